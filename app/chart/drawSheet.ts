@@ -1,0 +1,104 @@
+import { axisBottom, axisLeft, line, select } from 'd3';
+import type { CurveSheet, PlanePoint } from '../../src/index';
+import { PALETTE } from './palette';
+import type { PlateScales } from './plateScales';
+
+/**
+ * The static layer: grid, axes, plate-curve family with grid-voltage labels,
+ * and the ratings limits. Redrawn only when the tube or B+ changes, never
+ * while the operating point is dragged.
+ */
+export function planePath(scales: PlateScales) {
+  return line<PlanePoint>()
+    .defined((p) => Number.isFinite(p.i) && p.i <= scales.y.domain()[1]! * 1.02)
+    .x((p) => scales.x(p.v))
+    .y((p) => scales.y(Math.min(p.i, scales.y.domain()[1]! * 1.02)));
+}
+
+const fmtGrid = (vg: number) => (vg === 0 ? '0 V' : `${String(vg).replace('-', '−')} V`);
+
+export function drawGrid(layer: SVGGElement, scales: PlateScales): void {
+  const g = select(layer);
+  g.selectAll('*').remove();
+  const { x, y } = scales;
+  const [x0, x1] = x.range() as [number, number];
+  const [y0, y1] = y.range() as [number, number];
+  g.append('rect').attr('x', x0).attr('y', y1).attr('width', x1 - x0).attr('height', y0 - y1).attr('fill', PALETTE.sheet);
+  for (const [ticks, stroke] of [[x.ticks(40), PALETTE.gridMinor], [x.ticks(10), PALETTE.gridMajor]] as const) {
+    g.append('g').selectAll('line').data(ticks).join('line')
+      .attr('x1', (d) => x(d)).attr('x2', (d) => x(d)).attr('y1', y0).attr('y2', y1)
+      .attr('stroke', stroke).attr('stroke-width', 1).attr('shape-rendering', 'crispEdges');
+  }
+  for (const [ticks, stroke] of [[y.ticks(40), PALETTE.gridMinor], [y.ticks(10), PALETTE.gridMajor]] as const) {
+    g.append('g').selectAll('line').data(ticks).join('line')
+      .attr('y1', (d) => y(d)).attr('y2', (d) => y(d)).attr('x1', x0).attr('x2', x1)
+      .attr('stroke', stroke).attr('stroke-width', 1).attr('shape-rendering', 'crispEdges');
+  }
+}
+
+export function drawAxes(layer: SVGGElement, scales: PlateScales): void {
+  const g = select(layer);
+  g.selectAll('*').remove();
+  const { x, y, box } = scales;
+  const bottom = g.append('g').attr('transform', `translate(0,${y.range()[0]})`).call(axisBottom(x).ticks(10).tickSizeOuter(0));
+  const left = g.append('g').attr('transform', `translate(${x.range()[0]},0)`).call(
+    axisLeft(y).ticks(10).tickSizeOuter(0).tickFormat((d) => String(Number(((d as number) * 1e3).toPrecision(3)))),
+  );
+  for (const axis of [bottom, left]) axis.attr('font-size', 12).attr('font-family', 'inherit').attr('color', PALETTE.inkSoft);
+  g.append('text')
+    .attr('x', (x.range()[0]! + x.range()[1]!) / 2).attr('y', box.height - 8)
+    .attr('text-anchor', 'middle').attr('font-size', 13).attr('fill', PALETTE.ink)
+    .text('Plate–cathode voltage Vpk (V)');
+  g.append('text')
+    .attr('transform', `translate(16,${(y.range()[0]! + y.range()[1]!) / 2}) rotate(-90)`)
+    .attr('text-anchor', 'middle').attr('font-size', 13).attr('fill', PALETTE.ink)
+    .text('Plate current Ia (mA)');
+}
+
+export function drawFamily(layer: SVGGElement, sheet: CurveSheet, scales: PlateScales, style: { stroke: string; dash?: string; labelSide?: 'end' | 'start' } = { stroke: PALETTE.ink }): void {
+  const g = select(layer);
+  g.selectAll('*').remove();
+  const path = planePath(scales);
+  g.selectAll('path').data(sheet.family).join('path')
+    .attr('d', (c) => path(c.points))
+    .attr('fill', 'none').attr('stroke', style.stroke).attr('stroke-width', 1.4)
+    .attr('stroke-dasharray', style.dash ?? null)
+    .attr('data-vg', (c) => c.vg);
+  // Label each curve where it leaves the chart (top edge or right edge).
+  const [, iTop] = scales.y.domain() as [number, number];
+  const labels = sheet.family.map((c) => {
+    const exit = c.points.find((p) => p.i >= iTop) ?? c.points[c.points.length - 1]!;
+    const atTop = exit.i >= iTop;
+    return { vg: c.vg, x: scales.x(exit.v) + (atTop ? 3 : 4), y: atTop ? scales.y(iTop) + 12 : scales.y(exit.i) + 4 };
+  }).filter((l) => Number.isFinite(l.x) && Number.isFinite(l.y));
+  g.selectAll('text').data(labels).join('text')
+    .attr('x', (l) => l.x).attr('y', (l) => l.y)
+    .attr('font-size', 11).attr('fill', style.stroke)
+    .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
+    .text((l) => fmtGrid(l.vg));
+}
+
+export function drawLimits(layer: SVGGElement, sheet: CurveSheet, scales: PlateScales): void {
+  const g = select(layer);
+  g.selectAll('*').remove();
+  if (sheet.dissipation.length > 0) {
+    g.append('path')
+      .attr('d', planePath(scales)(sheet.dissipation as PlanePoint[]))
+      .attr('fill', 'none').attr('stroke', PALETTE.limit).attr('stroke-width', 1.6).attr('stroke-dasharray', '7 4')
+      .attr('data-series', 'dissipation');
+    const last = sheet.dissipation[sheet.dissipation.length - 1]!;
+    g.append('text').attr('x', scales.x(last.v) - 4).attr('y', scales.y(last.i) - 6).attr('text-anchor', 'end')
+      .attr('font-size', 11).attr('fill', PALETTE.limit)
+      .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
+      .text(`${sheet.maxPlateDissipation} W rated dissipation`);
+  }
+  if (sheet.maxPlateVoltage !== null && sheet.maxPlateVoltage <= sheet.extent.vmax) {
+    const xv = scales.x(sheet.maxPlateVoltage);
+    g.append('line').attr('x1', xv).attr('x2', xv).attr('y1', scales.y.range()[0]!).attr('y2', scales.y.range()[1]!)
+      .attr('stroke', PALETTE.limit).attr('stroke-width', 1.2).attr('stroke-dasharray', '2 4').attr('data-series', 'max-plate-voltage');
+    g.append('text').attr('x', xv - 4).attr('y', scales.y.range()[0]! - 6).attr('text-anchor', 'end')
+      .attr('font-size', 11).attr('fill', PALETTE.limit)
+      .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
+      .text(`${sheet.maxPlateVoltage} V max`);
+  }
+}

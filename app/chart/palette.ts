@@ -1,0 +1,22 @@
+/**
+ * One colour, one meaning. Chosen for this product; each passes WCAG AA's 3:1
+ * for graphics against the sheet colour, and the line styles (solid, dashed,
+ * dotted, weight) keep them apart in grayscale.
+ */
+export const PALETTE = {
+  sheet: '#fbfaf5',
+  gridMajor: '#d8d6cc',
+  gridMinor: '#ecebe4',
+  ink: '#1d2329',
+  inkSoft: '#4a535c',
+  /** Ratings limits: dissipation hyperbola, maximum plate voltage. */
+  limit: '#b42318',
+  /** Load lines (DC solid, AC dashed). */
+  load: '#0f5f8a',
+  /** Cathode bias line. */
+  bias: '#6b3fa0',
+  /** The operating point. */
+  point: '#c25e00',
+  /** The second tube in a comparison. */
+  rival: '#2f6b3a',
+} as const;

@@ -1,0 +1,52 @@
+/**
+ * Quiescent's model: the public face. Pure TypeScript, SI base units
+ * (V, A, Ω, F, W, Hz), no DOM. Every solver answers `{ ok: true, … }` or a
+ * typed failure `{ ok: false, reason, message }`; none throws or returns NaN
+ * for finite input.
+ */
+export type { Failure, FailureReason, Result } from './result';
+
+export type {
+  Capacitances,
+  FitProvenance,
+  HeaterOption,
+  HeaterWiring,
+  KorenTriodeParams,
+  TriodeModel,
+  TubeLike,
+  TubeRatings,
+  TubeRecord,
+  TypicalPoint,
+} from './tube/types';
+export { modelOf, recordOf } from './tube/types';
+export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
+export { gridCurrent, cutoffGridVoltage } from './tube/koren';
+export { tubeLibrary, findTube } from './tube/library';
+export { korenPublishedSets } from './tube/korenPublishedSets';
+
+export { solveStage, CUTOFF_CURRENT_A, type StageSolution, type OperatingPoint } from './stage/solveStage';
+export { normalizeStage, STAGE_DEFAULTS, type StageDesign, type CheckedStage } from './stage/stageDesign';
+export { solveFollower, type FollowerDesign, type FollowerSolution } from './stage/solveFollower';
+export { designFor, type DesignTarget, type DesignAnswer } from './stage/designFor';
+export { ratingsFindings, DISSIPATION_WARN_FRACTION, type Finding, type FindingKind, type Severity } from './stage/findings';
+export {
+  plateCurve,
+  plateFamily,
+  familyGrids,
+  dcLoadLine,
+  acLoadLine,
+  biasLine,
+  dissipationLimit,
+  MAX_FAMILY_CURVES,
+  type PlanePoint,
+  type PlateCurve,
+} from './stage/planeSeries';
+export { plateExtent, niceCeil, type PlateExtent } from './stage/plateExtent';
+export { parallel } from './stage/parallel';
+export { curveSheet, CURVE_SAMPLES, type CurveSheet } from './stage/curveSheet';
+export { stageOverlay, BIAS_SAMPLES, type StageOverlay } from './stage/stageOverlay';
+
+export { parseValue, type ParsedValue } from './parts/parseValue';
+export { formatValue } from './parts/formatValue';
+export { nearestPreferred } from './parts/nearestPreferred';
+export { E12, E24, E96, SERIES, SERIES_TOLERANCE, type PreferredSeries } from './parts/preferredValues';

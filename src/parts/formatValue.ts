@@ -1,0 +1,41 @@
+/**
+ * Formats an SI value with an engineering prefix and up to three significant
+ * figures, e.g. formatValue(4700, 'Ω') → "4.7 kΩ", formatValue(1e-7, 'F') →
+ * "100 nF". Non-finite values read "—" (and Infinity "∞"), never "NaN".
+ */
+const PREFIXES: readonly [number, string][] = [
+  [1e9, 'G'],
+  [1e6, 'M'],
+  [1e3, 'k'],
+  [1, ''],
+  [1e-3, 'm'],
+  [1e-6, 'µ'],
+  [1e-9, 'n'],
+  [1e-12, 'p'],
+];
+
+export function formatValue(value: number, unit = '', digits = 3): string {
+  const sep = unit === '' ? '' : ' ';
+  if (value === Infinity) return `∞${sep}${unit}`;
+  if (value === -Infinity) return `−∞${sep}${unit}`;
+  if (!Number.isFinite(value)) return '—';
+  if (value === 0) return `0${sep}${unit}`;
+  const abs = Math.abs(value);
+  let [scale, prefix] = PREFIXES[PREFIXES.length - 1]!;
+  for (const [s, p] of PREFIXES) {
+    if (abs >= s * (1 - 5e-4 * Math.pow(10, 3 - digits))) {
+      scale = s;
+      prefix = p;
+      break;
+    }
+  }
+  let mantissa = Number((value / scale).toPrecision(digits));
+  // 999.6 rounds to 1000: move to the next prefix up.
+  const idx = PREFIXES.findIndex(([s]) => s === scale);
+  if (Math.abs(mantissa) >= 1000 && idx > 0) {
+    [scale, prefix] = PREFIXES[idx - 1]!;
+    mantissa = Number((value / scale).toPrecision(digits));
+  }
+  const text = String(mantissa).replace('-', '−');
+  return `${text}${sep}${prefix}${unit}`;
+}

@@ -1,0 +1,26 @@
+import { SERIES, type PreferredSeries } from './preferredValues';
+
+/**
+ * The value of the chosen IEC 60063 series nearest to `value`, nearest by
+ * ratio (on a log scale, as the series are spaced), e.g. 50 kΩ → 47 kΩ in E12
+ * and 49.9 kΩ in E96. Non-positive or non-finite values come back unchanged:
+ * there is no preferred value for them.
+ */
+export function nearestPreferred(value: number, series: PreferredSeries): number {
+  const table = SERIES[series];
+  if (!table || !(value > 0) || !Number.isFinite(value)) return value;
+  const decade = Math.floor(Math.log10(value));
+  const base = Math.pow(10, decade);
+  let best = value;
+  let bestDist = Infinity;
+  // Candidates from this decade and the first of the next (9.1 → 10).
+  for (const m of [...table, 10]) {
+    const candidate = Number((m * base).toPrecision(3));
+    const dist = Math.abs(Math.log(candidate / value));
+    if (dist < bestDist) {
+      bestDist = dist;
+      best = candidate;
+    }
+  }
+  return best;
+}

@@ -1,0 +1,36 @@
+import { recordOf, type TubeLike } from '../tube/types';
+
+export interface PlateExtent {
+  /** Highest plate–cathode voltage shown, V. */
+  readonly vmax: number;
+  /** Highest plate current shown, A. */
+  readonly iaMax: number;
+}
+
+/** Rounds up to 1, 1.5, 2, 2.5, 3, 4, 5, 6, 8 × 10ⁿ so axes end on a readable tick. */
+export function niceCeil(x: number): number {
+  if (!(x > 0) || !Number.isFinite(x)) return 1;
+  const exp = Math.floor(Math.log10(x));
+  const base = Math.pow(10, exp);
+  const m = x / base;
+  const steps = [1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10];
+  return (steps.find((s) => s >= m - 1e-9) ?? 10) * base;
+}
+
+/**
+ * The plate-plane window for a tube and a supply. It depends on B+ and the
+ * tube's ratings only, not on Ra or Rk, so that it stays still while the
+ * operating point is dragged. Voltage: past both B+ and the plate rating.
+ * Current: 1.6 × the current the dissipation limit allows at half that
+ * voltage, which frames the curves where a stage can live. A bare model with
+ * no ratings falls back to B+ alone and the model's current at 0 V grid.
+ */
+export function plateExtent(tube: TubeLike, bplus: number, fallbackIa?: number): PlateExtent {
+  const rec = recordOf(tube);
+  const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 100;
+  const vmax = niceCeil(Math.max(b * 1.1, rec ? rec.ratings.maxPlateVoltage * 1.05 : 0));
+  const iaMax = rec
+    ? niceCeil((1.6 * 2 * rec.ratings.maxPlateDissipation) / vmax)
+    : niceCeil(fallbackIa !== undefined && fallbackIa > 0 ? fallbackIa : 0.01);
+  return { vmax, iaMax };
+}

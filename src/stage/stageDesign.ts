@@ -1,0 +1,69 @@
+import type { TubeLike } from '../tube/types';
+import { fail, type Failure } from '../result';
+import { checkNumber, checkTube, LIMITS } from './checkInput';
+
+/** A common-cathode triode stage. SI units throughout. */
+export interface StageDesign {
+  readonly tube: TubeLike;
+  /** Supply voltage at the top of the plate resistor, V (> 0). */
+  readonly bplus: number;
+  /** Plate resistor, Ω (> 0). */
+  readonly ra: number;
+  /** Cathode resistor, Ω (≥ 0; 0 with fixed bias). */
+  readonly rk: number;
+  /** Is Rk bypassed by a large capacitor? Default true. */
+  readonly bypassed?: boolean;
+  /** Next stage's load seen through the coupling capacitor, Ω; Infinity (the default) when none. */
+  readonly rl?: number;
+  /** Fixed grid bias to ground, V; default 0 (cathode bias only). */
+  readonly vbias?: number;
+  /** Grid-leak (grid-circuit) resistor, Ω, checked against the datasheet maximum when given. */
+  readonly rg?: number;
+  /** DC potential of the heater to ground, V; default 0 (heater winding grounded). */
+  readonly heaterVolts?: number;
+}
+
+export interface CheckedStage {
+  readonly tube: TubeLike;
+  readonly bplus: number;
+  readonly ra: number;
+  readonly rk: number;
+  readonly bypassed: boolean;
+  readonly rl: number;
+  readonly vbias: number;
+  readonly rg: number | null;
+  readonly heaterVolts: number;
+}
+
+export const STAGE_DEFAULTS = { bypassed: true, rl: Infinity, vbias: 0, heaterVolts: 0 } as const;
+
+/** Validates a stage design once, at the edge; the solvers then compute on checked input. */
+export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
+  if (typeof raw !== 'object' || raw === null) return fail('invalid-input', 'No design given');
+  const tubeProblem = checkTube(raw.tube);
+  if (tubeProblem) return tubeProblem;
+  if (typeof raw.bplus === 'number' && Number.isFinite(raw.bplus) && raw.bplus <= 0) {
+    return fail('supply-too-low', `B+ must be above 0 V (got ${raw.bplus} V)`, 'bplus');
+  }
+  const problem =
+    checkNumber('bplus', 'B+', raw.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
+    checkNumber('ra', 'Ra', raw.ra, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true }) ??
+    checkNumber('rk', 'Rk', raw.rk, 'Ω', 0, LIMITS.maxOhms) ??
+    (raw.rl === undefined ? null : checkNumber('rl', 'RL', raw.rl, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true, allowInfinity: true })) ??
+    (raw.vbias === undefined ? null : checkNumber('vbias', 'Grid bias', raw.vbias, 'V', -LIMITS.maxBiasVolts, LIMITS.maxBiasVolts)) ??
+    (raw.rg === undefined ? null : checkNumber('rg', 'Rg', raw.rg, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true })) ??
+    (raw.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', raw.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts));
+  if (problem) return problem;
+  if (raw.bypassed !== undefined && typeof raw.bypassed !== 'boolean') return fail('invalid-input', 'Bypass must be on or off', 'bypassed');
+  return {
+    tube: raw.tube,
+    bplus: raw.bplus,
+    ra: raw.ra,
+    rk: raw.rk,
+    bypassed: raw.bypassed ?? STAGE_DEFAULTS.bypassed,
+    rl: raw.rl ?? STAGE_DEFAULTS.rl,
+    vbias: raw.vbias ?? STAGE_DEFAULTS.vbias,
+    rg: raw.rg ?? null,
+    heaterVolts: raw.heaterVolts ?? STAGE_DEFAULTS.heaterVolts,
+  };
+}

@@ -1,0 +1,123 @@
+import type { KorenTriodeParams, TriodeModel } from './types';
+
+/**
+ * Koren's triode law (N. Koren, Glass Audio vol. 8, 1996; form as in his
+ * errata file, Table 1 constants):
+ *
+ *   E1 = (Vpk/kp) · ln(1 + exp(kp · (1/mu + Vgk/√(kvb + Vpk²))))
+ *   Ia = 2 · E1^ex / kg1          for E1 > 0, else 0
+ *
+ * The factor 2 matters: Koren's kg1 values assume it (a worked textbook
+ * example, 1.07 mA at 221 V / -1.61 V for his 12AX7 set, confirms this form).
+ */
+
+/** ln(1 + eˣ) without overflow for large x or lost precision for very negative x. */
+function softplus(x: number): number {
+  return x > 30 ? x + Math.log1p(Math.exp(-x)) : Math.log1p(Math.exp(x));
+}
+
+/** The logistic function, d/dx softplus(x). */
+function logistic(x: number): number {
+  return x >= 0 ? 1 / (1 + Math.exp(-x)) : Math.exp(x) / (1 + Math.exp(x));
+}
+
+/** Plate current in A at plate–cathode voltage vpk and grid–cathode voltage vgk (V). Never negative, never NaN. */
+export function korenPlateCurrent(p: KorenTriodeParams, vpk: number, vgk: number): number {
+  if (!(vpk > 0) || !Number.isFinite(vgk)) return 0;
+  const s = Math.sqrt(p.kvb + vpk * vpk);
+  const e1 = (vpk / p.kp) * softplus(p.kp * (1 / p.mu + vgk / s));
+  if (!(e1 > 0)) return 0;
+  const ia = (2 * Math.pow(e1, p.ex)) / p.kg1;
+  return Number.isFinite(ia) ? ia : 0;
+}
+
+/** Plate current and its two partial derivatives at one point. */
+export interface PlateSlopes {
+  /** Plate current, A. */
+  readonly ia: number;
+  /** Transconductance ∂Ia/∂Vgk, A/V (siemens). */
+  readonly gm: number;
+  /** Plate conductance ∂Ia/∂Vpk, A/V; rp = 1/ga. */
+  readonly ga: number;
+}
+
+/**
+ * Analytic partial derivatives of Koren's law (chain rule through E1), so that
+ * mu, rp and gm are exact for the model and cost one exp/log each; numeric
+ * differences would lose digits deep in cutoff where the current is tiny.
+ *
+ *   ∂E1/∂Vgk = Vpk · σ(x) / s
+ *   ∂E1/∂Vpk = softplus(x)/kp − σ(x) · Vgk · Vpk² / s³
+ *   ∂Ia/∂E1  = 2 · ex · E1^(ex−1) / kg1
+ * with s = √(kvb + Vpk²), x = kp·(1/mu + Vgk/s), σ the logistic function.
+ */
+export function korenSlopes(p: KorenTriodeParams, vpk: number, vgk: number): PlateSlopes {
+  if (!(vpk > 0) || !Number.isFinite(vgk)) return { ia: 0, gm: 0, ga: 0 };
+  const s = Math.sqrt(p.kvb + vpk * vpk);
+  const x = p.kp * (1 / p.mu + vgk / s);
+  const sp = softplus(x);
+  const sig = logistic(x);
+  const e1 = (vpk / p.kp) * sp;
+  if (!(e1 > 0)) return { ia: 0, gm: 0, ga: 0 };
+  const powEx1 = Math.pow(e1, p.ex - 1);
+  const ia = (2 * powEx1 * e1) / p.kg1;
+  const dIdE = (2 * p.ex * powEx1) / p.kg1;
+  const gm = (dIdE * vpk * sig) / s;
+  const ga = dIdE * (sp / p.kp - (sig * vgk * vpk * vpk) / (s * s * s));
+  if (!Number.isFinite(ia) || !Number.isFinite(gm) || !Number.isFinite(ga)) return { ia: 0, gm: 0, ga: 0 };
+  return { ia, gm, ga };
+}
+
+/**
+ * Grid current for a positive grid, A: a Child–Langmuir 3/2-power law
+ * (I = K·V^1.5, Child 1911, Langmuir 1913) with K chosen so the grid draws
+ * 1 V / gridResistance at Vgk = 1 V. Zero for Vgk ≤ 0 (contact potential and
+ * the small negative-grid current are neglected).
+ */
+export function gridCurrent(model: TriodeModel, vgk: number): number {
+  if (!(vgk > 0) || !(model.gridResistance > 0)) return 0;
+  const ig = Math.pow(vgk, 1.5) / model.gridResistance;
+  return Number.isFinite(ig) ? ig : 0;
+}
+
+/**
+ * The grid voltage at which Koren's law puts the tube at cutoff for a given
+ * plate voltage: where 1/mu + Vgk/√(kvb + Vpk²) = 0. Below it the current
+ * falls off exponentially.
+ */
+export function cutoffGridVoltage(p: KorenTriodeParams, vpk: number): number {
+  return -Math.sqrt(p.kvb + vpk * vpk) / p.mu;
+}
+
+/** A plate current this small a share of the operating current counts as cut off (this project's convention). */
+export const CUTOFF_FRACTION = 0.01;
+
+/**
+ * The grid voltage at which the plate current, at fixed Vpk, falls to
+ * `targetIa`: found by bisection between 0 V and a grid far enough negative
+ * that softplus's argument is −30 (current below e⁻³⁰ of the knee value).
+ */
+export function gridVoltageForCurrent(p: KorenTriodeParams, vpk: number, targetIa: number): number {
+  const s = Math.sqrt(p.kvb + vpk * vpk);
+  let lo = -s * (1 / p.mu + 30 / p.kp);
+  let hi = 0;
+  if (!(targetIa > 0) || korenPlateCurrent(p, vpk, hi) <= targetIa) return hi;
+  for (let k = 0; k < 80; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (korenPlateCurrent(p, vpk, mid) > targetIa) hi = mid;
+    else lo = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+/** True when the parameters describe a physical tube (the checks solvers run before using a model). */
+export function korenParamsProblem(p: KorenTriodeParams): string | null {
+  const { mu, ex, kg1, kp, kvb } = p;
+  if (![mu, ex, kg1, kp, kvb].every(Number.isFinite)) return 'tube parameters must all be finite numbers';
+  if (!(mu > 0)) return `mu must be above 0 (got ${mu})`;
+  if (!(ex > 0.5 && ex < 3)) return `ex must be between 0.5 and 3 (got ${ex})`;
+  if (!(kg1 > 0)) return `kg1 must be above 0 (got ${kg1})`;
+  if (!(kp > 0)) return `kp must be above 0 (got ${kp})`;
+  if (!(kvb >= 0)) return `kvb must be 0 or more (got ${kvb})`;
+  return null;
+}
