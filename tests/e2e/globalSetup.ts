@@ -19,7 +19,15 @@ export default async function setup(project: TestProject) {
     project.provide('baseUrl', '');
     return;
   }
-  await build({ logLevel: 'warn', build: { outDir: 'dist' } });
+  // Vitest runs with NODE_ENV=test, which would make Vite bundle React's
+  // development build. The browser suites must test what users get.
+  const nodeEnv = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ mode: 'production', logLevel: 'warn', build: { outDir: 'dist' } });
+  } finally {
+    process.env.NODE_ENV = nodeEnv;
+  }
   server = await preview({ logLevel: 'warn', preview: { host: '127.0.0.1', port: 0, strictPort: false } });
   const url = server.resolvedUrls?.local[0];
   if (!url) throw new Error('the preview server did not report its address');
