@@ -3,7 +3,7 @@ import tseslint from 'typescript-eslint';
 // The one architectural rule the compiler cannot see: the model in src/ is pure
 // TypeScript that runs in Node. It must not reach into the UI or the DOM layer.
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'bench/results.json'] },
+  { ignores: ['dist/**', 'node_modules/**', 'bench/results.json', '.scratch/**', 'test-results/**'] },
   ...tseslint.configs.recommended,
   {
     files: ['src/**/*.ts'],

@@ -1,5 +1,12 @@
 import { PlateChart } from './chart/PlateChart';
+import { CircuitValues } from './panels/CircuitValues';
+import { FiguresStrip } from './panels/FiguresStrip';
+import { FindingsList } from './panels/FindingsList';
+import { SafetyIntro } from './panels/SafetyIntro';
 import { SafetyNotice } from './panels/SafetyNotice';
+import { TubeChooser } from './panels/TubeChooser';
+import { StageSchematic } from './schematic/StageSchematic';
+import { DesignTitle } from './panels/DesignTitle';
 import { StoreProvider } from './store/StoreProvider';
 import type { WorkbenchStore } from './store/workbenchStore';
 
@@ -10,14 +17,25 @@ export function App({ store }: { store?: WorkbenchStore }) {
         <header className="masthead">
           <h1>Quiescent</h1>
           <p className="tagline">Load lines and part values for tube audio stages</p>
+          <DesignTitle />
         </header>
-        <main>
-          <section className="sheet-panel" aria-label="Plate curves">
-            <PlateChart />
-          </section>
+        <SafetyIntro />
+        <main className="bench">
+          <div className="bench-main">
+            <FiguresStrip />
+            <section className="sheet-panel" aria-label="Plate curves">
+              <PlateChart />
+            </section>
+            <FindingsList />
+          </div>
+          <div className="bench-side">
+            <StageSchematic />
+            <CircuitValues />
+            <TubeChooser />
+          </div>
         </main>
         <footer>
-          <SafetyNotice />
+          <SafetyNotice compact />
         </footer>
       </div>
     </StoreProvider>

@@ -23,11 +23,22 @@ export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type Tube
 export { gridCurrent, cutoffGridVoltage } from './tube/koren';
 export { tubeLibrary, findTube } from './tube/library';
 export { korenPublishedSets } from './tube/korenPublishedSets';
+export { tubeSummary, type TubeSummary } from './tube/tubeSummary';
 
 export { solveStage, CUTOFF_CURRENT_A, type StageSolution, type OperatingPoint } from './stage/solveStage';
 export { normalizeStage, STAGE_DEFAULTS, type StageDesign, type CheckedStage } from './stage/stageDesign';
 export { solveFollower, type FollowerDesign, type FollowerSolution } from './stage/solveFollower';
 export { designFor, type DesignTarget, type DesignAnswer } from './stage/designFor';
+export {
+  designAtPlanePoint,
+  nearestReachable,
+  gridVoltageAt,
+  MIN_DRAG_RA,
+  MIN_DRAG_IA,
+  type PlanePointTarget,
+  type PlanePointDesign,
+  type ReachablePoint,
+} from './stage/designAtPoint';
 export { ratingsFindings, DISSIPATION_WARN_FRACTION, type Finding, type FindingKind, type Severity } from './stage/findings';
 export {
   plateCurve,

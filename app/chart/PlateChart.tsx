@@ -1,20 +1,39 @@
-import { useEffect, useMemo, useRef } from 'react';
-import { useWorkbench } from '../store/StoreProvider';
+import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
+import { milliamps, volts } from '../format';
+import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
+import { attachDrag } from './attachDrag';
+import { ChartLegend } from './ChartLegend';
 import { drawAxes, drawFamily, drawGrid, drawLimits } from './drawSheet';
-import { CHART_BOX, plateScales } from './plateScales';
+import { drawOverlay } from './drawOverlay';
+import { HoverReadout } from './HoverReadout';
+import { PALETTE } from './palette';
+import { plateScales } from './plateScales';
+import { useChartBox } from './useChartBox';
+
+/** Arrow keys move the point by 1 % of the chart window, 5 % with Shift. */
+const STEP = 0.01;
+const BIG_STEP = 0.05;
 
 /**
- * The plate chart. React owns the <svg> and its layer groups; d3 draws inside
- * them. The static layers redraw only when the curve sheet changes.
+ * The plate chart. React owns the <svg>, its layer groups and the two
+ * focusable handles; d3 draws inside the layers. Static layers redraw only
+ * when the curve sheet changes; the overlay follows the store through a
+ * subscription, so dragging never re-renders this component.
  */
 export function PlateChart() {
-  const sheet = useWorkbench((s) => s.sheet);
-  const tubeId = useWorkbench((s) => s.tubeId);
-  const scales = useMemo(() => plateScales(sheet.extent), [sheet.extent]);
+  const store = useWorkbenchStore();
+  const sheet = useWorkbench((s) => s.analysis.sheet);
+  const tubeId = useWorkbench((s) => s.design.tubeId);
+  const frame = useRef<HTMLDivElement>(null);
+  const box = useChartBox(frame);
+  const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
   const grid = useRef<SVGGElement>(null);
   const curves = useRef<SVGGElement>(null);
   const limits = useRef<SVGGElement>(null);
   const axes = useRef<SVGGElement>(null);
+  const lines = useRef<SVGGElement>(null);
+  const point = useRef<SVGGElement>(null);
+  const bplusHandle = useRef<SVGGElement>(null);
 
   useEffect(() => {
     if (!grid.current || !curves.current || !limits.current || !axes.current) return;
@@ -24,17 +43,134 @@ export function PlateChart() {
     drawAxes(axes.current, scales);
   }, [sheet, scales]);
 
+  useEffect(() => {
+    const nodes = { lines: lines.current!, point: point.current!, bplusHandle: bplusHandle.current! };
+    const draw = () => {
+      const s = store.getState();
+      const { op } = s.analysis.solution;
+      drawOverlay(nodes, s.analysis.overlay, s.design.bplus, scales);
+      nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
+      // Exact values for tests and exports to read; the figures strip shows them rounded.
+      nodes.point.dataset.vpk = String(op.vpk);
+      nodes.point.dataset.ia = String(op.ia);
+      nodes.point.dataset.vgk = String(op.vgk);
+      nodes.point.setAttribute('aria-valuetext', `plate ${volts(op.va)} to ground, ${volts(op.vpk)} plate to cathode, ${milliamps(op.ia)}`);
+      nodes.bplusHandle.setAttribute('aria-valuenow', String(s.design.bplus));
+      nodes.bplusHandle.setAttribute('aria-valuetext', `B+ ${volts(s.design.bplus)}`);
+    };
+    draw();
+    const unsubscribe = store.subscribe((s, prev) => {
+      if (s.analysis !== prev.analysis) draw();
+    });
+    const detach = attachDrag(store, scales, nodes.point, nodes.bplusHandle);
+    return () => {
+      unsubscribe();
+      detach();
+    };
+  }, [store, scales]);
+
+  const onPointKey = (e: KeyboardEvent<SVGGElement>) => {
+    const s = store.getState();
+    if (e.key === 'Enter' && s.dragging === 'point') {
+      e.preventDefault();
+      s.endDrag();
+      return;
+    }
+    if (e.key === 'Escape' && s.dragging === 'point') {
+      e.preventDefault();
+      s.cancelDrag();
+      return;
+    }
+    const step = e.shiftKey ? BIG_STEP : STEP;
+    const moves: Record<string, [number, number]> = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, step], ArrowDown: [0, -step] };
+    const m = moves[e.key];
+    if (!m) return;
+    e.preventDefault();
+    s.nudgePoint(m[0], m[1]);
+  };
+
+  /** Leaving the handle after arrow presses is the keyboard's release. */
+  const onPointBlur = () => {
+    if (store.getState().dragging === 'point') store.getState().endDrag();
+  };
+
+  const onBplusKey = (e: KeyboardEvent<SVGGElement>) => {
+    const step = e.shiftKey ? 10 : 1;
+    const delta = e.key === 'ArrowRight' || e.key === 'ArrowUp' ? step : e.key === 'ArrowLeft' || e.key === 'ArrowDown' ? -step : 0;
+    if (delta === 0) return;
+    e.preventDefault();
+    const s = store.getState();
+    s.beginDrag('bplus');
+    s.dragBplusTo(s.design.bplus + delta);
+    store.getState().endDrag();
+  };
+
+  const onHover = (e: PointerEvent<SVGRectElement>) => {
+    const svg = e.currentTarget.ownerSVGElement;
+    const ctm = svg?.getScreenCTM();
+    if (!svg || !ctm) return;
+    const p = new DOMPoint(e.clientX, e.clientY).matrixTransform(ctm.inverse());
+    store.getState().setHover(scales.x.invert(p.x), scales.y.invert(p.y));
+  };
+
+  const [x0, x1] = scales.x.range() as [number, number];
+  const [y0, y1] = scales.y.range() as [number, number];
   return (
-    <svg
-      className="plate-chart"
-      viewBox={`0 0 ${CHART_BOX.width} ${CHART_BOX.height}`}
-      role="img"
-      aria-label={`Plate curves of the ${tubeId}: plate current against plate voltage for a range of grid voltages`}
-    >
-      <g ref={grid} className="layer-grid" />
-      <g ref={limits} className="layer-limits" />
-      <g ref={curves} className="layer-curves" />
-      <g ref={axes} className="layer-axes" />
-    </svg>
+    <div className="chart-frame" ref={frame}>
+      <svg
+        className="plate-chart"
+        viewBox={`0 0 ${box.width} ${box.height}`}
+        width={box.width}
+        height={box.height}
+        role="group"
+        aria-label={`Plate curves of the ${tubeId} with the stage's load lines and operating point`}
+      >
+        <g ref={grid} className="layer-grid" />
+        <g ref={limits} className="layer-limits" />
+        <g ref={curves} className="layer-curves" />
+        <g ref={axes} className="layer-axes" />
+        <rect
+          className="hover-surface"
+          x={x0}
+          y={y1}
+          width={x1 - x0}
+          height={y0 - y1}
+          fill="transparent"
+          onPointerMove={onHover}
+          onPointerLeave={() => store.getState().clearHover()}
+        />
+        <g ref={lines} className="layer-lines" pointerEvents="none" />
+        <g
+          ref={bplusHandle}
+          className="handle handle-bplus"
+          role="slider"
+          tabIndex={0}
+          aria-label="B+, the foot of the DC load line: drag or use the arrow keys"
+          aria-valuemin={5}
+          aria-valuemax={sheet.extent.vmax}
+          onKeyDown={onBplusKey}
+        >
+          <path d="M0,0 L-8,14 L8,14 Z" fill={PALETTE.load} stroke={PALETTE.sheet} strokeWidth={1.5} />
+          <rect x={-14} y={-6} width={28} height={26} fill="transparent" />
+        </g>
+        <g
+          ref={point}
+          className="handle handle-point"
+          role="slider"
+          tabIndex={0}
+          aria-label="Operating point: drag it, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)"
+          aria-valuemin={0}
+          aria-valuemax={sheet.extent.vmax}
+          onKeyDown={onPointKey}
+          onBlur={onPointBlur}
+        >
+          <circle r={16} fill="transparent" />
+          <circle r={7} fill={PALETTE.point} stroke={PALETTE.ink} strokeWidth={1.8} />
+          <circle r={1.8} fill={PALETTE.ink} />
+        </g>
+      </svg>
+      <HoverReadout />
+      <ChartLegend />
+    </div>
   );
 }

@@ -94,11 +94,14 @@ export function drawLimits(layer: SVGGElement, sheet: CurveSheet, scales: PlateS
   }
   if (sheet.maxPlateVoltage !== null && sheet.maxPlateVoltage <= sheet.extent.vmax) {
     const xv = scales.x(sheet.maxPlateVoltage);
-    g.append('line').attr('x1', xv).attr('x2', xv).attr('y1', scales.y.range()[0]!).attr('y2', scales.y.range()[1]!)
+    const [yBottom, yTop] = scales.y.range() as [number, number];
+    g.append('line').attr('x1', xv).attr('x2', xv).attr('y1', yBottom).attr('y2', yTop)
       .attr('stroke', PALETTE.limit).attr('stroke-width', 1.2).attr('stroke-dasharray', '2 4').attr('data-series', 'max-plate-voltage');
-    g.append('text').attr('x', xv - 4).attr('y', scales.y.range()[0]! - 6).attr('text-anchor', 'end')
+    // Written up the line, clear of the curve labels along the top and the load line along the bottom.
+    const yText = yBottom - (yBottom - yTop) * 0.72;
+    g.append('text').attr('transform', `translate(${xv - 5},${yText}) rotate(-90)`).attr('text-anchor', 'middle')
       .attr('font-size', 11).attr('fill', PALETTE.limit)
       .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
-      .text(`${sheet.maxPlateVoltage} V max`);
+      .text(`${sheet.maxPlateVoltage} V max plate`);
   }
 }

@@ -10,7 +10,7 @@ describe('the workbench page', () => {
     expect(screen.getByRole('heading', { level: 1 }).textContent).toBe('Quiescent');
     expect(screen.getByLabelText('Safety caution').textContent).toMatch(/lethal voltages/i);
     const curves = container.querySelectorAll('.layer-curves path');
-    expect(curves.length).toBe(store.getState().sheet.family.length);
+    expect(curves.length).toBe(store.getState().analysis.sheet.family.length);
     expect(curves.length).toBeGreaterThanOrEqual(5);
     // Every curve is a real path, not an empty or NaN-laden one.
     for (const c of curves) expect(c.getAttribute('d')).toMatch(/^M[\d.]+,[\d.]+L/);

@@ -1,7 +1,7 @@
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { chromium, type BrowserContext } from 'playwright-core';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 /** Debian's Chromium; never a downloaded browser. */
 export const CHROMIUM_PATH = '/usr/bin/chromium';
@@ -53,4 +53,20 @@ export async function openBrowser(viewport = { width: 1280, height: 900 }): Prom
       rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * Opens the workbench in a new tab, collecting console errors and page
+ * errors, and acknowledges the first-visit safety caution when it shows.
+ */
+export async function openWorkbench(browser: OpenBrowser, url: string): Promise<{ page: Page; errors: string[] }> {
+  const page = await browser.context.newPage();
+  const errors: string[] = [];
+  page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
+  page.on('pageerror', (e) => errors.push(String(e)));
+  await page.goto(url);
+  await page.waitForSelector('.layer-curves path');
+  const ack = page.getByRole('button', { name: 'I understand' });
+  if (await ack.isVisible()) await ack.click();
+  return { page, errors };
 }

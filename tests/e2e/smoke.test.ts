@@ -1,6 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { chromiumGate, openBrowser, type OpenBrowser } from './browser';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
 
 const run = chromiumGate();
 
@@ -14,15 +14,11 @@ describe.runIf(run)('the built workbench in Chromium', () => {
   });
 
   it('loads with no console errors and draws the plate curves', async () => {
-    const page = await browser.context.newPage();
-    const errors: string[] = [];
-    page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
-    page.on('pageerror', (e) => errors.push(String(e)));
-    await page.goto(inject('baseUrl'));
-    await page.waitForSelector('.layer-curves path');
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
     expect(await page.locator('h1').textContent()).toBe('Quiescent');
     expect(await page.locator('.layer-curves path').count()).toBeGreaterThanOrEqual(5);
     expect(await page.getByLabel('Safety caution').textContent()).toMatch(/lethal voltages/i);
+    expect(await page.getByRole('slider', { name: /operating point/i }).count()).toBe(1);
     mkdirSync('test-results', { recursive: true });
     await page.screenshot({ path: 'test-results/smoke.png', fullPage: true });
     expect(errors).toEqual([]);

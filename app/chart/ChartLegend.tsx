@@ -1,0 +1,31 @@
+import { PALETTE } from './palette';
+
+/** Key to the chart's lines: colour and line style together, so it reads in grayscale too. */
+const ITEMS = [
+  { label: 'Plate curves (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
+  { label: 'DC load line', stroke: PALETTE.load, dash: undefined, width: 2 },
+  { label: 'AC load line (with RL)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
+  { label: 'Cathode bias line', stroke: PALETTE.bias, dash: '2 3', width: 1.8 },
+  { label: 'Rated dissipation, max plate voltage', stroke: PALETTE.limit, dash: '7 4', width: 1.6 },
+];
+
+export function ChartLegend() {
+  return (
+    <ul className="chart-legend" aria-label="Chart key">
+      {ITEMS.map((it) => (
+        <li key={it.label}>
+          <svg width="30" height="10" aria-hidden="true">
+            <line x1="1" x2="29" y1="5" y2="5" stroke={it.stroke} strokeWidth={it.width} strokeDasharray={it.dash} />
+          </svg>
+          {it.label}
+        </li>
+      ))}
+      <li>
+        <svg width="30" height="14" aria-hidden="true">
+          <circle cx="15" cy="7" r="5" fill={PALETTE.point} stroke={PALETTE.ink} strokeWidth="1.5" />
+        </svg>
+        Operating point
+      </li>
+    </ul>
+  );
+}

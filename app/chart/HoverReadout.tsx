@@ -1,0 +1,18 @@
+import { milliamps, plain } from '../format';
+import { useWorkbench } from '../store/StoreProvider';
+
+/** What the model says at the cursor: plate voltage, plate current and the grid voltage of the curve through it. */
+export function HoverReadout() {
+  const hover = useWorkbench((s) => s.hover);
+  const note = useWorkbench((s) => s.dragNote);
+  return (
+    <div className="chart-status" aria-live="polite">
+      {note ? <p className="drag-note">{note}</p> : null}
+      <p className="hover-readout" data-testid="hover-readout">
+        {hover
+          ? `Cursor: Vpk ${plain(hover.vpk)} V · Ia ${milliamps(hover.ia)} · Vgk ${hover.vgk === null ? 'above 0 V (grid current)' : `${plain(hover.vgk)} V`}`
+          : 'Point at the curves to read Vpk, Ia and Vgk; drag the orange point to choose Ra and Rk.'}
+      </p>
+    </div>
+  );
+}

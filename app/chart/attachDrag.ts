@@ -1,0 +1,62 @@
+import { drag, select } from 'd3';
+import type { WorkbenchStore } from '../store/workbenchStore';
+import type { PlateScales } from './plateScales';
+
+/**
+ * d3-drag on the chart's two handles. Pointer positions arrive in SVG user
+ * units (d3 accounts for the viewBox scaling) and are turned into plate-plane
+ * values with the scales' inverses. At most one model update runs per
+ * animation frame: moves that arrive faster are coalesced to the latest.
+ */
+export function attachDrag(store: WorkbenchStore, scales: PlateScales, point: SVGGElement, bplusHandle: SVGGElement): () => void {
+  let frame = 0;
+  let pending: (() => void) | null = null;
+  const schedule = (fn: () => void) => {
+    pending = fn;
+    if (frame) return;
+    frame = requestAnimationFrame(() => {
+      frame = 0;
+      const run = pending;
+      pending = null;
+      run?.();
+    });
+  };
+  const flush = () => {
+    if (frame) cancelAnimationFrame(frame);
+    frame = 0;
+    const run = pending;
+    pending = null;
+    run?.();
+  };
+
+  const onPoint = drag<SVGGElement, unknown>()
+    .on('start', () => store.getState().beginDrag('point'))
+    .on('drag', (event: { x: number; y: number }) => {
+      const vpk = scales.x.invert(event.x);
+      const ia = scales.y.invert(event.y);
+      schedule(() => store.getState().dragPointTo(vpk, ia));
+    })
+    .on('end', () => {
+      flush();
+      store.getState().endDrag();
+    });
+
+  const onBplus = drag<SVGGElement, unknown>()
+    .on('start', () => store.getState().beginDrag('bplus'))
+    .on('drag', (event: { x: number }) => {
+      const volts = scales.x.invert(event.x);
+      schedule(() => store.getState().dragBplusTo(volts));
+    })
+    .on('end', () => {
+      flush();
+      store.getState().endDrag();
+    });
+
+  select(point).call(onPoint);
+  select(bplusHandle).call(onBplus);
+  return () => {
+    if (frame) cancelAnimationFrame(frame);
+    select(point).on('.drag', null);
+    select(bplusHandle).on('.drag', null);
+  };
+}

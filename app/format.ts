@@ -1,0 +1,18 @@
+import { formatValue } from '../src/index';
+
+/**
+ * Display formatting only: SI values from the model into the units a bench
+ * reads (mA, kΩ, µmho as mA/V). No physics here.
+ */
+export const volts = (v: number) => formatValue(v, 'V');
+export const ohms = (v: number) => formatValue(v, 'Ω');
+export const farads = (v: number) => formatValue(v, 'F');
+/** Dissipation is read in watts at the bench, even below 1 W. */
+export const watts = (v: number) => `${Number(v.toPrecision(3))} W`;
+/** Plate currents read in mA on the bench, whatever their size. */
+export const milliamps = (a: number) => `${Number((a * 1e3).toPrecision(3))} mA`;
+/** Transconductance in mA/V (= millisiemens), as curve sheets print it. */
+export const mAPerV = (s: number) => `${Number((s * 1e3).toPrecision(3))} mA/V`;
+export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digits))).replace('-', '−');
+/** Gain as a voltage ratio in decibels (20·log10). */
+export const decibels = (ratio: number) => `${(20 * Math.log10(Math.abs(ratio))).toFixed(1)} dB`;

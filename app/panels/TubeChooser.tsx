@@ -1,0 +1,49 @@
+import { useId, useState } from 'react';
+import { mAPerV, ohms, plain } from '../format';
+import { useWorkbench } from '../store/StoreProvider';
+
+/**
+ * Choose the tube: a filter box over the library, each entry with the figures
+ * a builder weighs first (mu, rp, gm at its datasheet point, rated plate
+ * dissipation). A radio group, so arrow keys move through it.
+ */
+export function TubeChooser() {
+  const tubes = useWorkbench((s) => s.tubes);
+  const current = useWorkbench((s) => s.design.tubeId);
+  const error = useWorkbench((s) => s.errors.tube);
+  const chooseTube = useWorkbench((s) => s.chooseTube);
+  const [filter, setFilter] = useState('');
+  const filterId = useId();
+  const errorId = useId();
+  const words = filter.trim().toLowerCase().split(/\s+/).filter(Boolean);
+  const shown = tubes.filter((t) => words.every((w) => `${t.id} ${t.description}`.toLowerCase().includes(w)));
+
+  return (
+    <section className="panel tube-chooser" aria-labelledby={`${filterId}-h`}>
+      <h2 id={`${filterId}-h`}>Tube</h2>
+      <label htmlFor={filterId} className="field-label">Find by type or use</label>
+      <input
+        id={filterId}
+        type="search"
+        value={filter}
+        placeholder="e.g. 12A, octal, power"
+        onChange={(e) => setFilter(e.target.value)}
+        aria-describedby={error ? errorId : undefined}
+      />
+      {error ? <p id={errorId} className="field-error" role="alert">{error}</p> : null}
+      <div className="tube-list" role="radiogroup" aria-label="Tubes">
+        {shown.length === 0 ? <p className="muted">No tube matches “{filter}”.</p> : null}
+        {shown.map((t) => (
+          <label key={t.id} className={t.id === current ? 'tube-option chosen' : 'tube-option'} title={t.description}>
+            <input type="radio" name="tube" value={t.id} checked={t.id === current} onChange={() => chooseTube(t.id)} />
+            <span className="tube-id">{t.id}</span>
+            <span className="tube-figures">
+              μ {plain(t.mu, 2)} · rp {ohms(t.rp)} · gm {mAPerV(t.gm)} · {t.maxPlateDissipation} W
+            </span>
+            <span className="tube-desc">{t.description}</span>
+          </label>
+        ))}
+      </div>
+    </section>
+  );
+}

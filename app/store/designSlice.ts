@@ -1,0 +1,118 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
+import { analyze, type Analysis, type BenchDesign } from './analysis';
+import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
+
+/** Longest design title kept, in characters. */
+export const MAX_TITLE_LENGTH = 120;
+import { FIELDS, type FieldName } from './fields';
+import type { WorkbenchState } from './workbenchStore';
+
+export type Drafts = Record<FieldName, string>;
+export type FieldErrors = Partial<Record<FieldName | 'tube', string>>;
+
+/**
+ * The design and what the model makes of it. Every change goes through
+ * `commit`, which runs the model once and replaces the design only when the
+ * model can solve it: an invalid entry never replaces a valid value, it
+ * leaves a message next to its field instead.
+ */
+export interface DesignSlice {
+  /** The chooser's list: every available tube with its key figures (computed once by the model). */
+  tubes: readonly TubeSummary[];
+  design: BenchDesign;
+  /** The design's name, for the page and the build card. */
+  title: string;
+  setTitle: (title: string) => void;
+  analysis: Analysis;
+  /** The text in each input box: what the user typed, or the design's value. */
+  drafts: Drafts;
+  errors: FieldErrors;
+  editField: (field: FieldName, text: string) => void;
+  /** When a box loses focus: show the held value in trade notation if the text was valid. */
+  settleField: (field: FieldName) => void;
+  chooseTube: (id: string) => void;
+  setBypassed: (on: boolean) => void;
+  setSeries: (series: PreferredSeries) => void;
+  setSnap: (on: boolean) => void;
+  /** Runs the model on `next`; on success makes it the design and returns null. */
+  commit: (next: BenchDesign, opts?: { extent?: PlateExtent; typedField?: FieldName }) => Failure | null;
+}
+
+function withoutError(errors: FieldErrors, key: keyof FieldErrors): FieldErrors {
+  const next = { ...errors };
+  delete next[key];
+  return next;
+}
+
+export function draftsFor(d: BenchDesign): Drafts {
+  return { bplus: FIELDS.bplus.show(d.bplus), ra: FIELDS.ra.show(d.ra), rk: FIELDS.rk.show(d.rk), rl: FIELDS.rl.show(d.rl) };
+}
+
+function initialAnalysis(): Analysis {
+  const a = analyze(DEMO_DESIGN, null);
+  if (!a.ok) throw new Error(`the demo design must solve: ${a.message}`);
+  return a;
+}
+
+const LIBRARY_SUMMARIES: readonly TubeSummary[] = tubeLibrary.map(tubeSummary);
+
+export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice> = (set, get) => ({
+  tubes: LIBRARY_SUMMARIES,
+  design: DEMO_DESIGN,
+  title: DEMO_TITLE,
+  setTitle: (title) => set({ title: title.slice(0, MAX_TITLE_LENGTH) }),
+  analysis: initialAnalysis(),
+  drafts: draftsFor(DEMO_DESIGN),
+  errors: {},
+
+  commit: (next, opts = {}) => {
+    const s = get();
+    const a = analyze(next, s.analysis, opts.extent);
+    if (!a.ok) return a;
+    const drafts = draftsFor(next);
+    // Keep what the user is typing in the box they are typing in.
+    if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
+    const errors = { ...s.errors };
+    for (const f of Object.keys(drafts) as FieldName[]) if (next[f] !== s.design[f] || f === opts.typedField) delete errors[f];
+    const { ok: _ok, ...analysis } = a;
+    set({ design: next, analysis, drafts, errors });
+    return null;
+  },
+
+  editField: (field, text) => {
+    const s = get();
+    set({ drafts: { ...s.drafts, [field]: text } });
+    const read = FIELDS[field].read(text);
+    if (!read.ok) {
+      set({ errors: { ...get().errors, [field]: read.message } });
+      return;
+    }
+    const failure = get().commit({ ...s.design, [field]: read.value }, { typedField: field });
+    if (failure) set({ errors: { ...get().errors, [field]: failure.message } });
+  },
+
+  settleField: (field) => {
+    const s = get();
+    if (s.errors[field]) return;
+    set({ drafts: { ...s.drafts, [field]: FIELDS[field].show(s.design[field]) } });
+  },
+
+  chooseTube: (id) => {
+    const s = get();
+    if (id === s.design.tubeId) return;
+    // Same parts, new tube: what a tube swap in the same socket does.
+    const failure = s.commit({ ...s.design, tubeId: id });
+    set({ errors: failure ? { ...get().errors, tube: `The ${id} cannot run with these parts: ${failure.message}` } : withoutError(get().errors, 'tube') });
+  },
+
+  setBypassed: (on) => {
+    get().commit({ ...get().design, bypassed: on });
+  },
+  setSeries: (series) => {
+    get().commit({ ...get().design, series });
+  },
+  setSnap: (on) => {
+    get().commit({ ...get().design, snap: on });
+  },
+});

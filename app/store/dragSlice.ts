@@ -1,0 +1,97 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { designAtPlanePoint, nearestPreferred, nearestReachable } from '../../src/index';
+import type { BenchDesign } from './analysis';
+import type { WorkbenchState } from './workbenchStore';
+
+/**
+ * Dragging on the plate chart. While the operating point moves, B+ stays
+ * fixed and the model gives the Ra and Rk that put the point under the
+ * pointer (or at the nearest reachable place, with the reason). On release the
+ * resistors snap to the chosen preferred series and the real, snapped point
+ * is shown. Dragging the load line's foot on the voltage axis changes B+.
+ * The chart window is pinned for the whole drag so the picture holds still.
+ */
+export type DragTarget = 'point' | 'bplus';
+
+export interface DragSlice {
+  dragging: DragTarget | null;
+  /** The design the current drag started from: what cancelDrag puts back, and one undo step per drag. */
+  dragStart: BenchDesign | null;
+  /** Why the point is not where the pointer is, or what happened on release; null when all is well. */
+  dragNote: string | null;
+  beginDrag: (target: DragTarget) => void;
+  dragPointTo: (vpk: number, ia: number) => void;
+  dragBplusTo: (volts: number) => void;
+  endDrag: () => void;
+  /** Ends a drag by putting back the design it started from. */
+  cancelDrag: () => void;
+  /**
+   * Keyboard: move the point by fractions of the chart window. Arrow presses
+   * are a drag in progress (exact values); endDrag, on Enter or when the
+   * handle loses focus, is the release that snaps.
+   */
+  nudgePoint: (dxFraction: number, dyFraction: number) => void;
+}
+
+/** Lowest B+ the foot of the load line can be dragged to, V. */
+export const MIN_DRAG_BPLUS = 5;
+
+export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = (set, get) => ({
+  dragging: null,
+  dragStart: null,
+  dragNote: null,
+
+  beginDrag: (target) => set({ dragging: target, dragStart: get().design, dragNote: null }),
+
+  cancelDrag: () => {
+    const start = get().dragStart;
+    set({ dragging: null, dragStart: null, dragNote: null });
+    if (start) get().commit(start);
+  },
+
+  dragPointTo: (vpk, ia) => {
+    const s = get();
+    const { tube, sheet } = s.analysis;
+    const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
+    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
+    if (!d.ok) {
+      set({ dragNote: d.message });
+      return;
+    }
+    const failure = s.commit({ ...s.design, ra: d.ra, rk: d.rk }, { extent: sheet.extent });
+    set({ dragNote: failure ? failure.message : reach.reason });
+  },
+
+  dragBplusTo: (volts) => {
+    const s = get();
+    const { extent } = s.analysis.sheet;
+    const bplus = Math.round(Math.min(Math.max(volts, MIN_DRAG_BPLUS), extent.vmax) * 2) / 2;
+    if (bplus === s.design.bplus) return;
+    const failure = s.commit({ ...s.design, bplus }, { extent });
+    set({ dragNote: failure ? `B+ ${bplus} V: ${failure.message}` : null });
+  },
+
+  endDrag: () => {
+    const s = get();
+    const was = s.dragging;
+    set({ dragging: null, dragStart: null });
+    if (was === 'bplus') {
+      // Release the pinned window: the axes now follow the new B+.
+      s.commit(s.design);
+      return;
+    }
+    if (was !== 'point' || !s.design.snap) return;
+    const { ra, rk, series } = s.design;
+    const snapped = { ...s.design, ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) };
+    const failure = s.commit(snapped);
+    if (failure) set({ dragNote: `Snapping to ${series} values would fail (${failure.message}); the exact values are kept.` });
+  },
+
+  nudgePoint: (dx, dy) => {
+    const s = get();
+    if (s.dragging !== 'point') s.beginDrag('point');
+    const { vmax, iaMax } = s.analysis.sheet.extent;
+    const { vpk, ia } = get().analysis.solution.op;
+    get().dragPointTo(vpk + dx * vmax, ia + dy * iaMax);
+  },
+});

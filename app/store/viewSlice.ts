@@ -1,0 +1,23 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { gridVoltageAt } from '../../src/index';
+import type { WorkbenchState } from './workbenchStore';
+
+/** What the cursor is over on the plate chart: the plane point and the grid voltage the model gives there. */
+export interface HoverReadout {
+  readonly vpk: number;
+  readonly ia: number;
+  /** null above the 0 V curve (where the grid would draw current). */
+  readonly vgk: number | null;
+}
+
+export interface ViewSlice {
+  hover: HoverReadout | null;
+  setHover: (vpk: number, ia: number) => void;
+  clearHover: () => void;
+}
+
+export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = (set, get) => ({
+  hover: null,
+  setHover: (vpk, ia) => set({ hover: { vpk, ia, vgk: gridVoltageAt(get().analysis.tube, vpk, ia) } }),
+  clearHover: () => set({ hover: null }),
+});

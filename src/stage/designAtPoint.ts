@@ -1,0 +1,117 @@
+import { gridVoltageForCurrent, korenPlateCurrent } from '../tube/koren';
+import { modelOf, type TubeLike } from '../tube/types';
+import { fail, type Result } from '../result';
+import { checkNumber, checkTube, LIMITS } from './checkInput';
+
+/**
+ * The design behind a point of the plate plane: where the pointer is on the
+ * chart, (Vpk, Ia), which Ra and Rk put a cathode-biased stage there with the
+ * given B+. At fixed Vpk the grid voltage that passes Ia is unique (Ip rises
+ * with Vgk), so Vgk, Rk = −Vgk/Ia, Va = Vpk − Vgk and Ra = (B+ − Va)/Ia follow.
+ */
+export interface PlanePointTarget {
+  readonly tube: TubeLike;
+  readonly bplus: number;
+  /** Plate–cathode voltage, V. */
+  readonly vpk: number;
+  /** Plate current, A. */
+  readonly ia: number;
+}
+
+export interface PlanePointDesign {
+  readonly ra: number;
+  readonly rk: number;
+  readonly vgk: number;
+  /** Plate to ground, V. */
+  readonly va: number;
+}
+
+/** The smallest plate resistor a drag may produce, Ω: below it the "stage" is a short to B+. */
+export const MIN_DRAG_RA = 100;
+/** The smallest plate current a drag may ask for, A. */
+export const MIN_DRAG_IA = 2e-6;
+/** Relative slack between "reachable" (nearestReachable) and "designable" (designAtPlanePoint), so a point clamped onto a boundary is never refused by rounding. */
+const BOUNDARY_SLACK = 1e-6;
+
+export function designAtPlanePoint(t: PlanePointTarget): Result<PlanePointDesign> {
+  const problem =
+    checkTube(t.tube) ??
+    checkNumber('bplus', 'B+', t.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
+    checkNumber('vpk', 'Plate voltage', t.vpk, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
+    checkNumber('ia', 'Plate current', t.ia, 'A', 0, 100, { minExclusive: true });
+  if (problem) return problem;
+  const p = modelOf(t.tube).params;
+  const iaAtZeroGrid = korenPlateCurrent(p, t.vpk, 0);
+  if (t.ia > iaAtZeroGrid) {
+    return fail('grid-current', `At ${t.vpk.toFixed(0)} V the tube passes at most ${(iaAtZeroGrid * 1e3).toFixed(2)} mA before its grid goes positive.`, 'ia');
+  }
+  const vgk = gridVoltageForCurrent(p, t.vpk, t.ia);
+  const va = t.vpk - vgk;
+  const ra = (t.bplus - va) / t.ia;
+  if (!(ra >= MIN_DRAG_RA * (1 - BOUNDARY_SLACK))) {
+    return fail('supply-too-low', `With B+ at ${t.bplus.toFixed(0)} V the plate cannot sit at ${va.toFixed(0)} V with ${(t.ia * 1e3).toFixed(2)} mA: the load line ends at B+.`, 'vpk');
+  }
+  return { ok: true, ra, rk: -vgk / t.ia, vgk, va };
+}
+
+/** Where a drag may go: the asked point if reachable, else the nearest reachable one, with the reason. */
+export interface ReachablePoint {
+  readonly vpk: number;
+  readonly ia: number;
+  /** Why the asked point could not be reached; null when it was. */
+  readonly reason: string | null;
+}
+
+/**
+ * Moves an asked plate-plane point to the nearest one a cathode-biased stage
+ * on this B+ can reach: not above the 0 V grid curve (grid current), not so
+ * far right that the plate would need a plate resistor under MIN_DRAG_RA,
+ * and not below MIN_DRAG_IA. Each limit is a monotonic boundary, found by
+ * bisection, so the answer is always on the reachable side.
+ */
+export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia: number): ReachablePoint {
+  const p = modelOf(tube).params;
+  let reason: string | null = null;
+  let v = Math.min(Math.max(vpk, 0.5), bplus);
+  let i = Math.max(ia, MIN_DRAG_IA);
+  if (ia < MIN_DRAG_IA) reason = 'The plate current cannot go lower here.';
+  // The two limits meet at a corner (on the 0 V curve, where the plate is as
+  // close to B+ as Ra allows), and moving off one can cross the other; apply
+  // them in turn until both hold. Each pass moves strictly inward.
+  for (let pass = 0; pass < 8; pass++) {
+    let moved = false;
+    // Grid current: above the 0 V curve. Drop straight down onto it.
+    const top = korenPlateCurrent(p, v, 0) * (1 - BOUNDARY_SLACK);
+    if (i > top) {
+      reason = `Above the 0 V grid curve the grid would draw current: at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`;
+      i = Math.max(top, MIN_DRAG_IA);
+      moved = true;
+    }
+    // The plate must stay below B+ by at least Ia·MIN_DRAG_RA: Va = Vpk − Vgk(Vpk, Ia) rises with Vpk.
+    const current = i;
+    const vaAt = (vv: number) => vv - gridVoltageForCurrent(p, vv, current);
+    const vaMax = bplus - i * MIN_DRAG_RA * (1 + BOUNDARY_SLACK);
+    if (vaAt(v) > vaMax) {
+      let lo = 0;
+      let hi = v;
+      for (let k = 0; k < 60; k++) {
+        const mid = 0.5 * (lo + hi);
+        if (vaAt(mid) > vaMax) hi = mid;
+        else lo = mid;
+      }
+      v = lo;
+      reason = `With B+ at ${bplus.toFixed(0)} V the load line cannot reach further right at ${(i * 1e3).toFixed(2)} mA.`;
+      moved = true;
+    }
+    if (!moved) break;
+  }
+  return { vpk: v, ia: i, reason };
+}
+
+/** The grid voltage at which the tube passes ia at vpk: the Vgk read off the curves at the cursor, V. */
+export function gridVoltageAt(tube: TubeLike, vpk: number, ia: number): number | null {
+  if (!(vpk > 0) || !(ia > 0) || !Number.isFinite(vpk) || !Number.isFinite(ia)) return null;
+  const p = modelOf(tube).params;
+  if (ia > korenPlateCurrent(p, vpk, 0)) return null; // would need a positive grid: off the family
+  return gridVoltageForCurrent(p, vpk, ia);
+}

@@ -1,0 +1,96 @@
+import { mkdirSync, readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { findTube, plateCurrent } from '../../src/index';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+
+const run = chromiumGate();
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+const openBench = (browser: OpenBrowser) => openWorkbench(browser, inject('baseUrl'));
+
+const value = (page: Page, label: RegExp) => page.getByRole('textbox', { name: label }).inputValue();
+
+describe.runIf(run)('the workbench in Chromium', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+    mkdirSync('test-results', { recursive: true });
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('dragging the operating point with the mouse changes Ra and Rk, keeps B+, and the point stays on the model\'s curve', async () => {
+    const { page, errors } = await openBench(browser);
+    const before = { bplus: await value(page, /^B\+/), ra: await value(page, /^Ra/), rk: await value(page, /^Rk/) };
+    const handle = page.getByRole('slider', { name: /operating point/i });
+    const box = (await handle.boundingBox())!;
+    const x = box.x + box.width / 2;
+    const y = box.y + box.height / 2;
+    await page.mouse.move(x, y);
+    await page.mouse.down();
+    for (let k = 1; k <= 12; k++) await page.mouse.move(x + k * 8, y - k * 5);
+    await page.mouse.up();
+    await page.waitForFunction((ra) => (document.querySelector('input[name="ra"]') as HTMLInputElement).value !== ra, before.ra);
+
+    expect(await value(page, /^Ra/)).not.toBe(before.ra);
+    expect(await value(page, /^Rk/)).not.toBe(before.rk);
+    expect(await value(page, /^B\+/)).toBe(before.bplus);
+
+    // The point drawn is the model's: on the 12AU7 curve for its own Vgk, to solver precision.
+    const d = await handle.evaluate((el) => ({ ...(el as SVGGElement).dataset }));
+    const vpk = Number(d.vpk);
+    const ia = Number(d.ia);
+    const vgk = Number(d.vgk);
+    expect(Math.abs(plateCurrent(findTube('12AU7')!, vpk, vgk) - ia) / ia).toBeLessThan(1e-6);
+    // And the figures strip shows those same values (to the three figures it prints).
+    const shown = async (name: string) => Number((await page.locator(`[data-figure="${name}"] dd`).textContent())!.replace('−', '-').replace(/[^\d.-]/g, ''));
+    expect(Math.abs((await shown('vpk')) - vpk)).toBeLessThan(0.5 + 1e-9);
+    expect(Math.abs((await shown('ia')) - ia * 1e3) / (ia * 1e3)).toBeLessThan(0.005);
+    expect(Math.abs((await shown('vgk')) - vgk) / Math.abs(vgk)).toBeLessThan(0.005);
+    // The marker sits where the point moved to: right of and above where it started.
+    const after = (await handle.boundingBox())!;
+    expect(after.x).toBeGreaterThan(box.x + 20);
+    expect(after.y).toBeLessThan(box.y - 10);
+
+    await page.screenshot({ path: 'test-results/workbench-after-drag.png' });
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('dragging the load line\'s foot along the voltage axis changes B+', async () => {
+    const { page } = await openBench(browser);
+    const handle = page.getByRole('slider', { name: /^B\+/ });
+    const box = (await handle.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + 4);
+    await page.mouse.down();
+    for (let k = 1; k <= 6; k++) await page.mouse.move(box.x + box.width / 2 + k * 10, box.y + 4);
+    await page.mouse.up();
+    await page.waitForFunction(() => (document.querySelector('input[name="bplus"]') as HTMLInputElement).value !== '275');
+    expect(Number(await value(page, /^B\+/))).toBeGreaterThan(275);
+    await page.close();
+  });
+
+  it('typing a bad value shows its message beside the field and keeps the figures', async () => {
+    const { page } = await openBench(browser);
+    const ia = await page.locator('[data-figure="ia"] dd').textContent();
+    await page.getByRole('textbox', { name: /^Ra/ }).fill('4k7k');
+    await expect.poll(() => page.getByRole('alert').first().textContent()).toMatch(/not a part value/);
+    expect(await page.locator('[data-figure="ia"] dd').textContent()).toBe(ia);
+    await page.close();
+  });
+
+  it('has no serious accessibility violations (axe-core)', async () => {
+    const { page } = await openBench(browser);
+    await page.addScriptTag({ content: axeSource });
+    const result = await page.evaluate(async () => {
+      const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+      return axe.run(document, { resultTypes: ['violations'] });
+    });
+    const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+    await page.close();
+  });
+});
