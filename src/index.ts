@@ -61,3 +61,14 @@ export { parseValue, type ParsedValue } from './parts/parseValue';
 export { formatValue } from './parts/formatValue';
 export { nearestPreferred } from './parts/nearestPreferred';
 export { E12, E24, E96, SERIES, SERIES_TOLERANCE, type PreferredSeries } from './parts/preferredValues';
+
+export { swing, swingOf, type SwingResult, type SwingLimit } from './signal/swing';
+export { distortion, distortionOf, DEFAULT_SAMPLES, type DriveLevel, type DistortionOptions, type DistortionResult } from './signal/distortion';
+export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } from './signal/frequencyResponse';
+export { corners, cornersOf, type Corners } from './signal/corners';
+export { solveChain, type ChainLink, type LinkResult, type ChainResult } from './signal/solveChain';
+export { sineLevel, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
+export { solvedStage, type SolvedStage } from './signal/analysisInput';
+export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';
+export { distortionSweep, type LevelThd } from './signal/distortionSweep';
+export { harmonicAmplitudes, fftInPlace } from './signal/fft';

@@ -34,4 +34,5 @@ export const LIMITS = {
   maxVolts: 10_000,
   maxOhms: 1e9,
   maxBiasVolts: 1_000,
+  maxFarads: 10,
 } as const;

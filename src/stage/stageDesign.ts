@@ -21,6 +21,14 @@ export interface StageDesign {
   readonly rg?: number;
   /** DC potential of the heater to ground, V; default 0 (heater winding grounded). */
   readonly heaterVolts?: number;
+  /** Source impedance driving the stage, Ω (e.g. a level control's output impedance); default 0. */
+  readonly rsource?: number;
+  /** Input coupling capacitor, F; absent means direct coupling. */
+  readonly cin?: number;
+  /** Cathode bypass capacitor, F. When given it replaces the ideal `bypassed` in the frequency response; at midband the cathode counts as bypassed. */
+  readonly ck?: number;
+  /** Output coupling capacitor into RL, F; absent means an ideal (infinite) one. */
+  readonly cout?: number;
 }
 
 export interface CheckedStage {
@@ -33,6 +41,10 @@ export interface CheckedStage {
   readonly vbias: number;
   readonly rg: number | null;
   readonly heaterVolts: number;
+  readonly rsource: number;
+  readonly cin: number | null;
+  readonly ck: number | null;
+  readonly cout: number | null;
 }
 
 export const STAGE_DEFAULTS = { bypassed: true, rl: Infinity, vbias: 0, heaterVolts: 0 } as const;
@@ -52,7 +64,11 @@ export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
     (raw.rl === undefined ? null : checkNumber('rl', 'RL', raw.rl, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true, allowInfinity: true })) ??
     (raw.vbias === undefined ? null : checkNumber('vbias', 'Grid bias', raw.vbias, 'V', -LIMITS.maxBiasVolts, LIMITS.maxBiasVolts)) ??
     (raw.rg === undefined ? null : checkNumber('rg', 'Rg', raw.rg, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true })) ??
-    (raw.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', raw.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts));
+    (raw.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', raw.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts)) ??
+    (raw.rsource === undefined ? null : checkNumber('rsource', 'Source impedance', raw.rsource, 'Ω', 0, LIMITS.maxOhms)) ??
+    (raw.cin === undefined ? null : checkNumber('cin', 'Cin', raw.cin, 'F', 0, LIMITS.maxFarads, { minExclusive: true })) ??
+    (raw.ck === undefined ? null : checkNumber('ck', 'Ck', raw.ck, 'F', 0, LIMITS.maxFarads, { minExclusive: true })) ??
+    (raw.cout === undefined ? null : checkNumber('cout', 'Cout', raw.cout, 'F', 0, LIMITS.maxFarads, { minExclusive: true }));
   if (problem) return problem;
   if (raw.bypassed !== undefined && typeof raw.bypassed !== 'boolean') return fail('invalid-input', 'Bypass must be on or off', 'bypassed');
   return {
@@ -60,10 +76,15 @@ export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
     bplus: raw.bplus,
     ra: raw.ra,
     rk: raw.rk,
-    bypassed: raw.bypassed ?? STAGE_DEFAULTS.bypassed,
+    // A real bypass capacitor means the cathode is bypassed at midband; its corner shows in the response.
+    bypassed: raw.ck !== undefined ? true : (raw.bypassed ?? STAGE_DEFAULTS.bypassed),
     rl: raw.rl ?? STAGE_DEFAULTS.rl,
     vbias: raw.vbias ?? STAGE_DEFAULTS.vbias,
     rg: raw.rg ?? null,
     heaterVolts: raw.heaterVolts ?? STAGE_DEFAULTS.heaterVolts,
+    rsource: raw.rsource ?? 0,
+    cin: raw.cin ?? null,
+    ck: raw.ck ?? null,
+    cout: raw.cout ?? null,
   };
 }

@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
@@ -27,11 +27,22 @@ export function ngspiceGate(): boolean {
   return false;
 }
 
-export function runNgspice(netlist: string): Record<string, number> {
+export interface NgspiceRun {
+  /** Every `name = value` line that `print` wrote. */
+  readonly values: Record<string, number>;
+  /** Everything ngspice wrote, for parsing other reports (e.g. Fourier tables). */
+  readonly output: string;
+  /** The contents of a file the netlist wrote with `wrdata`, when asked for. */
+  readonly data: string;
+}
+
+/** Runs a netlist; `{data}` in it is replaced by the path of a scratch file whose contents come back as `data`. */
+export function runNgspiceFull(netlist: string): NgspiceRun {
   const dir = mkdtempSync(join(tmpdir(), 'quiescent-spice-'));
   try {
     const file = join(dir, 'check.cir');
-    writeFileSync(file, netlist);
+    const dataFile = join(dir, 'data.txt');
+    writeFileSync(file, netlist.replaceAll('{data}', dataFile));
     const r = spawnSync('ngspice', ['-b', file], { encoding: 'utf8', timeout: 60_000 });
     const out = `${r.stdout}\n${r.stderr}`;
     if (r.status !== 0 || /^Error/m.test(out)) throw new Error(`ngspice failed:\n${out}\n--- netlist ---\n${netlist}`);
@@ -39,8 +50,31 @@ export function runNgspice(netlist: string): Record<string, number> {
     for (const m of out.matchAll(/^\s*([\w@#()[\].,:-]+)\s*=\s*([-+]?\d[\d.]*(?:e[-+]?\d+)?)\s*$/gim)) {
       values[(m[1] as string).toLowerCase()] = Number(m[2]);
     }
-    return values;
+    let data = '';
+    try {
+      data = readFileSync(dataFile, 'utf8');
+    } catch {
+      /* no data file asked for */
+    }
+    return { values, output: out, data };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+export function runNgspice(netlist: string): Record<string, number> {
+  return runNgspiceFull(netlist).values;
+}
+
+/** The "Normalized Magnitude" column of ngspice's Fourier table, by harmonic number (1 = fundamental). */
+export function fourierTable(output: string): Map<number, { magnitude: number; normalized: number }> {
+  const rows = new Map<number, { magnitude: number; normalized: number }>();
+  const start = output.indexOf('Fourier analysis');
+  for (const line of output.slice(start).split('\n')) {
+    const cols = line.trim().split(/\s+/);
+    if (cols.length === 6 && cols.every((c) => /^[-+]?\d/.test(c))) {
+      rows.set(Number(cols[0]), { magnitude: Number(cols[2]), normalized: Number(cols[4]) });
+    }
+  }
+  return rows;
 }

@@ -1,0 +1,131 @@
+import { fail, type Result } from '../result';
+import type { StageDesign } from '../stage/stageDesign';
+import { solvedStage, type SolvedStage } from './analysisInput';
+import { harmonicAmplitudes, isPowerOfTwo } from './fft';
+import { stageTransfer, type StageTransfer } from './stageTransfer';
+import { swingOf, type SwingResult } from './swing';
+
+/** Drive level: the output wanted (rms, across RL or at the plate), or the input given (rms, at the grid). */
+export type DriveLevel = { readonly outputRms: number } | { readonly inputRms: number };
+
+export interface DistortionOptions {
+  /** Samples per cycle for the FFT, a power of two; default 1024. */
+  readonly samples?: number;
+}
+
+export interface DistortionResult {
+  readonly thdPercent: number;
+  /** H2…H9 in dB relative to the fundamental; harmonicsDb[0] is H2. */
+  readonly harmonicsDb: readonly number[];
+  /** Input sine peak at the grid, V. */
+  readonly inputPeak: number;
+  /** Fundamental output peak, V. */
+  readonly outputPeak: number;
+  readonly inputRms: number;
+  readonly outputRms: number;
+  /** Quiescent shift of the output's average (DC) with this signal, V: a sign of even-order distortion. */
+  readonly outputDcShift: number;
+}
+
+export const DEFAULT_SAMPLES = 1024;
+/** Samples per cycle while searching for the input that gives a wanted output: the fundamental only. */
+const SEARCH_SAMPLES = 64;
+const HIGHEST_HARMONIC = 9;
+const SEARCH_REL_TOL = 1e-9;
+
+function sineSamples(peak: number, n: number): Float64Array {
+  const x = new Float64Array(n);
+  for (let k = 0; k < n; k++) x[k] = peak * Math.sin((2 * Math.PI * k) / n);
+  return x;
+}
+
+/** Fundamental output amplitude for an input peak, from one coherently sampled cycle. */
+function fundamental(t: StageTransfer, peak: number, n: number): number {
+  const y = t.outputs(sineSamples(peak, n));
+  let re = 0;
+  let im = 0;
+  for (let k = 0; k < n; k++) {
+    re += y[k]! * Math.cos((2 * Math.PI * k) / n);
+    im += y[k]! * Math.sin((2 * Math.PI * k) / n);
+  }
+  return (2 * Math.hypot(re, im)) / n;
+}
+
+/** Input peak giving a wanted fundamental output peak: the Illinois variant of regula falsi on [0, clean peak]. */
+function inputForOutput(t: StageTransfer, target: number, cleanPeak: number, gain: number): number {
+  let a = 0;
+  let fa = -target;
+  let b = cleanPeak;
+  let fb = fundamental(t, b, SEARCH_SAMPLES) - target;
+  let x = Math.min(target / Math.abs(gain), cleanPeak);
+  let side = 0;
+  for (let i = 0; i < 60; i++) {
+    const fx = fundamental(t, x, SEARCH_SAMPLES) - target;
+    if (Math.abs(fx) <= SEARCH_REL_TOL * target) return x;
+    if (fx < 0) {
+      a = x;
+      fa = fx;
+      if (side === -1) fb /= 2;
+      side = -1;
+    } else {
+      b = x;
+      fb = fx;
+      if (side === 1) fa /= 2;
+      side = 1;
+    }
+    x = (a * fb - b * fa) / (fb - fa);
+    if (!(x > a && x < b)) x = 0.5 * (a + b);
+  }
+  return x;
+}
+
+export function distortionOf(s: SolvedStage, level: DriveLevel, options: DistortionOptions = {}, precomputed?: { transfer: StageTransfer; swing: SwingResult }): Result<DistortionResult> {
+  const n = options.samples ?? DEFAULT_SAMPLES;
+  if (!isPowerOfTwo(n) || n < 32 || n > 1 << 20) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to 1048576 (got ${n})`, 'samples');
+  const transfer = precomputed?.transfer ?? stageTransfer(s.checked, s.solution.op);
+  const clean = precomputed?.swing ?? swingOf(s, transfer);
+  const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
+  const clipMessage = `Clipping: this stage is clean up to ${clean.input.rms.toPrecision(3)} V rms in, ${clean.output.rms.toPrecision(3)} V rms out; beyond that ${limit} sets in.`;
+  let inputPeak: number;
+  if ('inputRms' in level) {
+    if (!(Number.isFinite(level.inputRms) && level.inputRms > 0)) return fail('invalid-input', `Input level must be above 0 V rms (got ${level.inputRms})`, 'inputRms');
+    inputPeak = level.inputRms * Math.SQRT2;
+    if (inputPeak > clean.inputPeak * (1 + 1e-9)) return fail('clipping', clipMessage, 'inputRms');
+  } else {
+    if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${level.outputRms})`, 'outputRms');
+    const target = level.outputRms * Math.SQRT2;
+    if (target > fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES) * (1 + 1e-9)) return fail('clipping', clipMessage, 'outputRms');
+    inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain);
+  }
+  const y = transfer.outputs(sineSamples(inputPeak, n));
+  let sum = 0;
+  for (const v of y) sum += v;
+  const amps = harmonicAmplitudes(y, n / 2 - 1);
+  const fund = amps[1]!;
+  let ss = 0;
+  for (let k = 2; k < amps.length; k++) ss += amps[k]! * amps[k]!;
+  const db = (a: number) => (a > 0 ? 20 * Math.log10(a / fund) : -Infinity);
+  return {
+    ok: true,
+    thdPercent: fund > 0 ? (100 * Math.sqrt(ss)) / fund : 0,
+    harmonicsDb: amps.slice(2, HIGHEST_HARMONIC + 1).map(db),
+    inputPeak,
+    outputPeak: fund,
+    inputRms: inputPeak / Math.SQRT2,
+    outputRms: fund / Math.SQRT2,
+    outputDcShift: sum / n,
+  };
+}
+
+/**
+ * Harmonic distortion of a stage driven by a sine at a chosen output (or
+ * input) level: one cycle sampled coherently, solved sample by sample on the
+ * large-signal transfer, then an FFT. A level beyond the clean swing is a
+ * 'clipping' failure naming where clipping starts.
+ */
+export function distortion(design: StageDesign, level: DriveLevel, options?: DistortionOptions): Result<DistortionResult> {
+  const s = solvedStage(design);
+  if ('ok' in s) return s;
+  if (typeof level !== 'object' || level === null) return fail('invalid-input', 'Give an output or input level in V rms');
+  return distortionOf(s, level, options);
+}

@@ -1,0 +1,68 @@
+import { CUTOFF_FRACTION } from '../tube/koren';
+import type { StageDesign } from '../stage/stageDesign';
+import type { Result } from '../result';
+import { solvedStage, type SolvedStage } from './analysisInput';
+import { sineLevel, type Level } from './levels';
+import { stageTransfer, type StageTransfer } from './stageTransfer';
+
+/** What ends a stage's clean swing: the grid reaching 0 V to the cathode, or the plate current falling to cutoff. */
+export type SwingLimit = 'grid-current' | 'cutoff';
+
+export interface SwingResult {
+  /** Largest clean input (sine) peak, V, and its level. */
+  readonly inputPeak: number;
+  readonly input: Level;
+  /** Output peak at that input (half the peak-to-peak excursion), V, and its level. */
+  readonly outputPeak: number;
+  readonly output: Level;
+  readonly limitedBy: SwingLimit;
+  /** Input peaks at which each limit is reached on its own half-cycle, V (positive numbers). */
+  readonly toGridCurrent: number;
+  readonly toCutoff: number;
+}
+
+const BISECTIONS = 60;
+
+/** Smallest positive x with pred(x) true, given pred(0) false and pred monotone; bisection with an expanding upper end. */
+function firstTrue(pred: (x: number) => boolean, start: number): number {
+  let hi = Math.max(start, 1e-6);
+  for (let k = 0; k < 60 && !pred(hi); k++) hi *= 2;
+  let lo = 0;
+  for (let k = 0; k < BISECTIONS; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (pred(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi;
+}
+
+/**
+ * The clean swing of a solved stage on its transfer curve: the positive input
+ * half-cycle ends where Vgk reaches 0 V (grid current), the negative one where
+ * Ia falls to 1 % of its quiescent value (this project's cutoff convention).
+ * A symmetric sine is clean up to the smaller of the two.
+ */
+export function swingOf(s: SolvedStage, transfer: StageTransfer = stageTransfer(s.checked, s.solution.op)): SwingResult {
+  const { op } = s.solution;
+  const toGridCurrent = firstTrue((v) => transfer.at(v).vgk >= 0, -op.vgk);
+  const cutoffIa = CUTOFF_FRACTION * op.ia;
+  const toCutoff = firstTrue((v) => transfer.at(-v).ia <= cutoffIa, -op.vgk);
+  const inputPeak = Math.min(toGridCurrent, toCutoff);
+  const outputPeak = Math.abs(transfer.at(inputPeak).vout - transfer.at(-inputPeak).vout) / 2;
+  return {
+    inputPeak,
+    input: sineLevel(inputPeak),
+    outputPeak,
+    output: sineLevel(outputPeak),
+    limitedBy: toGridCurrent <= toCutoff ? 'grid-current' : 'cutoff',
+    toGridCurrent,
+    toCutoff,
+  };
+}
+
+/** The largest clean input and output peaks of a stage, and what limits them. */
+export function swing(design: StageDesign): Result<SwingResult> {
+  const s = solvedStage(design);
+  if ('ok' in s) return s;
+  return { ok: true, ...swingOf(s) };
+}

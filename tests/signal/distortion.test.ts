@@ -1,0 +1,64 @@
+import { describe, expect, it } from 'vitest';
+import { distortion, distortionSweep, findTube, sineLevel, solvedStage, swing } from '../../src/index';
+import { expectClose } from '../helpers/expectClose';
+
+const ax7 = findTube('12AX7')!;
+const stage = { tube: ax7, bplus: 250, ra: 100e3, rk: 1500, rl: 470e3 };
+
+describe('distortion and swing', () => {
+  it('meets the asked output level, and H2 dominates in a single-ended triode stage (common practice)', () => {
+    const r = distortion(stage, { outputRms: 5 });
+    if (!r.ok) throw new Error(r.message);
+    expectClose(r.outputRms, 5, { rel: 1e-6 });
+    expect(r.harmonicsDb).toHaveLength(8);
+    expect(r.harmonicsDb[0]!).toBeGreaterThan(r.harmonicsDb[1]!);
+    expect(r.thdPercent).toBeGreaterThan(0.1);
+    expect(r.thdPercent).toBeLessThan(5);
+  });
+
+  it('an unbypassed cathode lowers distortion and gain together (common practice)', () => {
+    const by = distortion({ ...stage, bypassed: true }, { outputRms: 5 });
+    const un = distortion({ ...stage, bypassed: false }, { outputRms: 5 });
+    if (!by.ok || !un.ok) throw new Error('both should solve');
+    expect(un.thdPercent).toBeLessThan(by.thdPercent);
+    expect(un.inputRms).toBeGreaterThan(by.inputRms); // less gain: more input for the same output
+  });
+
+  it('THD rises with level from a small signal up to the clipping point', () => {
+    const s = solvedStage(stage);
+    if ('ok' in s) throw new Error(s.message);
+    const sweep = distortionSweep(s, 10);
+    expect(sweep).toHaveLength(10);
+    for (let k = 1; k < sweep.length; k++) expect(sweep[k]!.thdPercent).toBeGreaterThan(sweep[k - 1]!.thdPercent);
+  });
+
+  it('a level beyond clipping is reported as clipping, with the level where it starts', () => {
+    const clean = swing(stage);
+    if (!clean.ok) throw new Error(clean.message);
+    const r = distortion(stage, { outputRms: 500 });
+    expect(r).toEqual({
+      ok: false,
+      reason: 'clipping',
+      message: `Clipping: this stage is clean up to ${clean.input.rms.toPrecision(3)} V rms in, ${clean.output.rms.toPrecision(3)} V rms out; beyond that grid current sets in.`,
+      field: 'outputRms',
+    });
+    expect(distortion(stage, { inputRms: clean.input.rms * 1.01 })).toMatchObject({ ok: false, reason: 'clipping', field: 'inputRms' });
+  });
+
+  it('with Rk bypassed, the positive half-cycle is clean exactly until the grid reaches 0 V: an input peak of −Vgk', () => {
+    const r = swing(stage);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.limitedBy).toBe('grid-current');
+    expectClose(r.toGridCurrent, 1.3142747, { rel: 1e-3 }); // this stage's Vgk, from solveStage
+  });
+
+  it('levels: 1 V rms is 0 dBV and 0.7746 V rms is 0 dBu (1 mW into 600 Ω)', () => {
+    expectClose(sineLevel(Math.SQRT2).dBV, 0, { abs: 1e-12 });
+    expectClose(sineLevel(Math.SQRT2 * Math.sqrt(0.6)).dBu, 0, { abs: 1e-12 });
+  });
+
+  it('refuses a bad sample count and a non-positive level with specific messages', () => {
+    expect(distortion(stage, { outputRms: 1 }, { samples: 1000 })).toEqual({ ok: false, reason: 'invalid-input', message: 'Samples per cycle must be a power of two from 32 to 1048576 (got 1000)', field: 'samples' });
+    expect(distortion(stage, { outputRms: 0 })).toEqual({ ok: false, reason: 'invalid-input', message: 'Output level must be above 0 V rms (got 0)', field: 'outputRms' });
+  });
+});
