@@ -6,6 +6,9 @@ import { SafetyIntro } from './panels/SafetyIntro';
 import { SafetyNotice } from './panels/SafetyNotice';
 import { TubeChooser } from './panels/TubeChooser';
 import { StageSchematic } from './schematic/StageSchematic';
+import { SignalCharts } from './signal/SignalCharts';
+import { SignalPanel } from './signal/SignalPanel';
+import { Stage2Panel } from './signal/Stage2Panel';
 import { DesignTitle } from './panels/DesignTitle';
 import { StoreProvider } from './store/StoreProvider';
 import type { WorkbenchStore } from './store/workbenchStore';
@@ -27,10 +30,13 @@ export function App({ store }: { store?: WorkbenchStore }) {
               <PlateChart />
             </section>
             <FindingsList />
+            <SignalPanel />
+            <SignalCharts />
           </div>
           <div className="bench-side">
             <StageSchematic />
             <CircuitValues />
+            <Stage2Panel />
             <TubeChooser />
           </div>
         </main>

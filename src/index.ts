@@ -72,3 +72,4 @@ export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';
 export { distortionSweep, type LevelThd } from './signal/distortionSweep';
 export { harmonicAmplitudes, fftInPlace } from './signal/fft';
+export { transferCurve, swingPath } from './signal/transferCurve';

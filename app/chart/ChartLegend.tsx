@@ -7,6 +7,7 @@ const ITEMS = [
   { label: 'AC load line (with RL)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
   { label: 'Cathode bias line', stroke: PALETTE.bias, dash: '2 3', width: 1.8 },
   { label: 'Rated dissipation, max plate voltage', stroke: PALETTE.limit, dash: '7 4', width: 1.6 },
+  { label: 'Span of the signal at the chosen level', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
 export function ChartLegend() {

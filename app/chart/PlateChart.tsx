@@ -48,7 +48,7 @@ export function PlateChart() {
     const draw = () => {
       const s = store.getState();
       const { op } = s.analysis.solution;
-      drawOverlay(nodes, s.analysis.overlay, s.design.bplus, scales);
+      drawOverlay(nodes, s.analysis.overlay, s.design.bplus, scales, s.analysis.signal.swingPath);
       nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
       // Exact values for tests and exports to read; the figures strip shows them rounded.
       nodes.point.dataset.vpk = String(op.vpk);

@@ -25,7 +25,8 @@ function linePath(layer: SVGGElement, key: string, points: readonly PlanePoint[]
     .attr('d', planePath(scales)(points as PlanePoint[]));
 }
 
-export function drawOverlay(nodes: OverlayNodes, overlay: StageOverlay, bplus: number, scales: PlateScales): void {
+export function drawOverlay(nodes: OverlayNodes, overlay: StageOverlay, bplus: number, scales: PlateScales, swing: readonly PlanePoint[] = []): void {
+  linePath(nodes.lines, 'swing', swing, scales, { stroke: PALETTE.pointWash, width: 9 });
   linePath(nodes.lines, 'dc-load', overlay.dcLoad, scales, { stroke: PALETTE.load, width: 2 });
   linePath(nodes.lines, 'ac-load', overlay.acLoad, scales, { stroke: PALETTE.load, width: 1.6, dash: '9 5' });
   linePath(nodes.lines, 'bias', overlay.bias, scales, { stroke: PALETTE.bias, width: 1.8, dash: '2 3' });

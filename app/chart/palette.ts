@@ -17,6 +17,8 @@ export const PALETTE = {
   bias: '#6b3fa0',
   /** The operating point. */
   point: '#c25e00',
+  /** The stretch of load line a signal covers: a wash of the point's colour. */
+  pointWash: 'rgba(194, 94, 0, 0.28)',
   /** The second tube in a comparison. */
   rival: '#2f6b3a',
 } as const;

@@ -21,6 +21,14 @@ export function CircuitValues() {
         <ValueField field="rk" />
         <ValueField field="rl" hint="next stage's input; “none” if open" />
       </div>
+      <h3 className="subhead">Signal parts</h3>
+      <div className="value-grid">
+        <ValueField field="rsource" hint="what drives the grid" />
+        <ValueField field="cin" />
+        <ValueField field="rg" />
+        <ValueField field="ck" hint="when bypassed" />
+        <ValueField field="cout" />
+      </div>
       <div className="option-row">
         <label>
           <input type="checkbox" checked={bypassed} onChange={(e) => setBypassed(e.target.checked)} /> Rk bypassed (Ck)

@@ -1,71 +1,103 @@
 import { useEffect, useId, useRef, useState } from 'react';
-import { ohms, volts } from '../format';
+import { farads, ohms, volts } from '../format';
 import { FIELDS, type FieldName } from '../store/fields';
 import { useWorkbench } from '../store/StoreProvider';
+import type { BenchDesign } from '../store/analysis';
 import { Capacitor, Ground, Resistor, Triode } from './symbols';
+import { Dot, HResistor, Wire } from './symbols2';
 
 /**
  * The stage drawn as a schematic, and the main control surface: each part's
  * value is a button on the drawing that opens an editor in place, bound to the
- * same store field as the form (one source of truth). The bypass capacitor
- * toggles on a click; drawn faint and dashed when absent.
+ * same store field as the form (one source of truth). The drawing grows a
+ * second tube when the design has one; RL and Cout then sit after it.
  */
-const W = 320;
 const H = 400;
-const X_TUBE = 130;
+const RAIL = 44;
+const X1 = 184;
+const X2 = 334;
+const GRID_Y = 190;
 
-/** Where each editable label sits, in schematic units (also where its editor opens). */
-const LABELS: Record<FieldName, { x: number; y: number; anchor: 'start' | 'end' }> = {
-  bplus: { x: X_TUBE + 14, y: 24, anchor: 'start' },
-  ra: { x: X_TUBE + 16, y: 82, anchor: 'start' },
-  rk: { x: X_TUBE - 16, y: 298, anchor: 'end' },
-  rl: { x: 256, y: 232, anchor: 'end' },
-};
+type Spot = { x: number; y: number; anchor: 'start' | 'end' | 'middle' };
+
+function labelSpots(kind: BenchDesign['stage2']['kind']): Partial<Record<FieldName, Spot>> {
+  const out = kind === 'none' ? { x: 300, yC: 130 } : { x: 404, yC: kind === 'follower' ? 250 : 130 };
+  return {
+    bplus: { x: X1 + 14, y: RAIL - 18, anchor: 'start' },
+    ra: { x: X1 + 14, y: 92, anchor: 'start' },
+    rk: { x: X1 - 14, y: 302, anchor: 'end' },
+    ck: { x: X1 + 66, y: 326, anchor: 'start' },
+    rsource: { x: 45, y: GRID_Y - 16, anchor: 'middle' },
+    cin: { x: 92, y: GRID_Y - 20, anchor: 'middle' },
+    rg: { x: 114, y: 286, anchor: 'end' },
+    cout: { x: out.x - 24, y: out.yC - 20, anchor: 'middle' },
+    rl: { x: out.x + 14, y: 290, anchor: 'start' },
+    ...(kind === 'none' ? {} : { rk2: { x: X2 - 14, y: 302, anchor: 'end' as const } }),
+    ...(kind === 'common-cathode' ? { ra2: { x: X2 + 14, y: 92, anchor: 'start' as const }, rg2: { x: 262, y: 300, anchor: 'end' as const } } : {}),
+  };
+}
+
+function partText(f: FieldName, d: BenchDesign): string {
+  switch (f) {
+    case 'bplus': return `B+ ${volts(d.bplus)}`;
+    case 'ra': return `Ra ${ohms(d.ra)}`;
+    case 'rk': return `Rk ${ohms(d.rk)}`;
+    case 'rl': return Number.isFinite(d.rl) ? `RL ${ohms(d.rl)}` : 'RL none';
+    case 'rsource': return `Rs ${ohms(d.rsource)}`;
+    case 'cin': return d.cin === null ? 'direct' : farads(d.cin);
+    case 'rg': return `Rg ${ohms(d.rg)}`;
+    case 'ck': return d.ck === null ? 'Ck ideal' : farads(d.ck);
+    case 'cout': return d.cout === null ? 'ideal' : farads(d.cout);
+    case 'ra2': return `Ra ${ohms(d.stage2.ra)}`;
+    case 'rk2': return `Rk ${ohms(d.stage2.rk)}`;
+    case 'rg2': return `Rg ${ohms(d.stage2.rg)}`;
+    default: return FIELDS[f].label;
+  }
+}
 
 export function StageSchematic() {
   const design = useWorkbench((s) => s.design);
   const op = useWorkbench((s) => s.analysis.solution.op);
   const setBypassed = useWorkbench((s) => s.setBypassed);
   const [editing, setEditing] = useState<FieldName | null>(null);
+  const kind = design.stage2.kind;
+  const width = kind === 'none' ? 385 : 490;
+  const spots = labelSpots(kind);
   const hasLoad = Number.isFinite(design.rl);
-  const text: Record<FieldName, string> = {
-    bplus: `B+ ${volts(design.bplus)}`,
-    ra: `Ra ${ohms(design.ra)}`,
-    rk: `Rk ${ohms(design.rk)}`,
-    rl: hasLoad ? `RL ${ohms(design.rl)}` : 'RL none',
-  };
+  const outX = kind === 'none' ? 300 : 404;
+  const outY = kind === 'follower' ? 250 : 130;
+  const fromX = kind === 'none' ? X1 : X2;
 
   return (
     <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
       <div className="schematic-frame">
-        <svg viewBox={`0 0 ${W} ${H}`} className="schematic-svg" role="group" aria-label={`Common-cathode ${design.tubeId} stage`}>
-          {/* supply rail */}
-          <line x1={X_TUBE - 40} x2={X_TUBE + 40} y1={40} y2={40} stroke="#1d2329" strokeWidth={3} />
-          <Resistor x={X_TUBE} y1={40} y2={126} />
-          {/* plate node, output coupling, load */}
-          <circle cx={X_TUBE} cy={126} r={3} fill="#1d2329" />
-          <line x1={X_TUBE} x2={X_TUBE} y1={126} y2={144} stroke="#1d2329" strokeWidth={2} />
-          <line x1={X_TUBE} x2={190} y1={126} y2={126} stroke="#1d2329" strokeWidth={2} />
-          <Capacitor at={126} from={190} to={240} vertical={false} />
-          <line x1={240} x2={266} y1={126} y2={126} stroke="#1d2329" strokeWidth={2} />
-          <text x={258} y={118} fontSize={12} fill="#4a535c">out</text>
-          <Resistor x={266} y1={126} y2={346} faded={!hasLoad} />
-          <Ground x={266} y={354} />
-          {/* the tube and its grid input */}
-          <Triode cx={X_TUBE} cy={180} />
-          <line x1={40} x2={X_TUBE - 36} y1={180} y2={180} stroke="#1d2329" strokeWidth={2} />
-          <text x={30} y={172} fontSize={12} fill="#4a535c">in</text>
-          <text x={X_TUBE + 40} y={168} fontSize={13} fontWeight={600} fill="#1d2329">{design.tubeId}</text>
-          <text x={X_TUBE + 40} y={186} fontSize={11} fill="#4a535c">{`Va ${volts(op.va)}`}</text>
-          <text x={X_TUBE + 40} y={200} fontSize={11} fill="#4a535c">{`Vk ${volts(op.vk)}`}</text>
-          {/* cathode: Rk with the bypass capacitor across it */}
-          <line x1={X_TUBE} x2={X_TUBE} y1={216} y2={240} stroke="#1d2329" strokeWidth={2} />
-          <circle cx={X_TUBE} cy={240} r={3} fill="#1d2329" />
-          <Resistor x={X_TUBE} y1={240} y2={340} />
-          <line x1={X_TUBE} x2={X_TUBE + 50} y1={240} y2={240} stroke="#1d2329" strokeWidth={2} opacity={design.bypassed ? 1 : 0.3} />
-          <line x1={X_TUBE} x2={X_TUBE + 50} y1={340} y2={340} stroke="#1d2329" strokeWidth={2} opacity={design.bypassed ? 1 : 0.3} />
-          <Capacitor at={X_TUBE + 50} from={240} to={340} vertical faded={!design.bypassed} polarised />
-          <Ground x={X_TUBE} y={354} />
+        <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? ', then a cathode follower' : ', then a second gain stage'}`}>
+          <line x1={X1 - 30} x2={kind === 'none' ? X1 + 30 : X2 + 30} y1={RAIL} y2={RAIL} stroke="#1d2329" strokeWidth={3} />
+          {/* input network: source impedance, coupling capacitor, grid leak */}
+          <text x={4} y={GRID_Y + 4} fontSize={12} fill="#4a535c">in</text>
+          <HResistor x1={18} x2={72} y={GRID_Y} />
+          <Capacitor at={GRID_Y} from={72} to={112} vertical={false} />
+          <Wire points={[[112, GRID_Y], [X1 - 36, GRID_Y]]} />
+          <Dot x={120} y={GRID_Y} />
+          <Resistor x={120} y1={GRID_Y} y2={344} />
+          <Ground x={120} y={352} />
+          {/* stage 1 */}
+          <Resistor x={X1} y1={RAIL} y2={130} />
+          <Dot x={X1} y={130} />
+          <Wire points={[[X1, 130], [X1, 154]]} />
+          <Triode cx={X1} cy={GRID_Y} />
+          <text x={X1 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{design.tubeId}</text>
+          <text x={X1 + 40} y={192} fontSize={11} fill="#4a535c">{`Va ${volts(op.va)}`}</text>
+          <text x={X1 + 40} y={206} fontSize={11} fill="#4a535c">{`Vk ${volts(op.vk)}`}</text>
+          <Wire points={[[X1, 226], [X1, 250]]} />
+          <Dot x={X1} y={250} />
+          <Resistor x={X1} y1={250} y2={344} />
+          <g opacity={design.bypassed ? 1 : 0.3}>
+            <Wire points={[[X1, 250], [X1 + 46, 250]]} />
+            <Wire points={[[X1, 344], [X1 + 46, 344]]} />
+          </g>
+          <Capacitor at={X1 + 46} from={250} to={344} vertical faded={!design.bypassed} polarised />
+          <Ground x={X1} y={352} />
           <g
             role="switch"
             tabIndex={0}
@@ -80,17 +112,55 @@ export function StageSchematic() {
               }
             }}
           >
-            <rect x={X_TUBE + 30} y={262} width={86} height={56} fill="transparent" />
-            <text x={X_TUBE + 66} y={296} fontSize={12} fill="#1d2329">{design.bypassed ? 'Ck' : 'no Ck'}</text>
+            <rect x={X1 + 28} y={276} width={40} height={44} fill="transparent" />
+            <text x={X1 + 66} y={300} fontSize={12} fill="#1d2329">{design.bypassed ? 'Ck' : 'no Ck'}</text>
           </g>
-          {(Object.keys(LABELS) as FieldName[]).map((f) => (
+          {kind === 'follower' ? (
+            <g>
+              <Wire points={[[X1, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+              <Wire points={[[X2, RAIL], [X2, 154]]} />
+              <Dot x={X2} y={RAIL} />
+              <Triode cx={X2} cy={GRID_Y} />
+              <text x={X2 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{design.stage2.tubeId}</text>
+              <text x={X2 + 40} y={192} fontSize={11} fill="#4a535c">follower</text>
+              <Wire points={[[X2, 226], [X2, 250]]} />
+              <Dot x={X2} y={250} />
+              <Resistor x={X2} y1={250} y2={344} />
+              <Ground x={X2} y={352} />
+            </g>
+          ) : null}
+          {kind === 'common-cathode' ? (
+            <g>
+              <Capacitor at={130} from={X1} to={256} vertical={false} />
+              <Wire points={[[256, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+              <Dot x={270} y={GRID_Y} />
+              <Resistor x={270} y1={GRID_Y} y2={344} />
+              <Ground x={270} y={352} />
+              <Resistor x={X2} y1={RAIL} y2={130} />
+              <Dot x={X2} y={130} />
+              <Wire points={[[X2, 130], [X2, 154]]} />
+              <Triode cx={X2} cy={GRID_Y} />
+              <text x={X2 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{design.stage2.tubeId}</text>
+              <Wire points={[[X2, 226], [X2, 250]]} />
+              <Resistor x={X2} y1={250} y2={344} />
+              <Ground x={X2} y={352} />
+            </g>
+          ) : null}
+          {/* output: coupling capacitor into the load */}
+          <Wire points={[[fromX, outY], [outX - 50, outY]]} />
+          <Capacitor at={outY} from={outX - 50} to={outX - 4} vertical={false} />
+          <Wire points={[[outX - 4, outY], [outX, outY]]} />
+          <text x={outX + 6} y={outY - 6} fontSize={12} fill="#4a535c">out</text>
+          <Resistor x={outX} y1={outY} y2={344} faded={!hasLoad} />
+          <Ground x={outX} y={352} />
+          {(Object.keys(spots) as FieldName[]).map((f) => (
             <g
               key={f}
               role="button"
               tabIndex={0}
               className="schematic-part"
               data-part={f}
-              aria-label={`${text[f]}: change`}
+              aria-label={`${FIELDS[f].label} ${partText(f, design).replace(/^(Ra|Rk|Rg|Rs|RL|B\+) /, '')}: change`}
               onClick={() => setEditing(f)}
               onKeyDown={(e) => {
                 if (e.key === 'Enter' || e.key === ' ') {
@@ -99,20 +169,20 @@ export function StageSchematic() {
                 }
               }}
             >
-              <text x={LABELS[f].x} y={LABELS[f].y} textAnchor={LABELS[f].anchor} fontSize={13} fill="#0f5f8a" className="part-value">
-                {text[f]}
+              <text x={spots[f]!.x} y={spots[f]!.y} textAnchor={spots[f]!.anchor} fontSize={12} fill="#0f5f8a" className="part-value" paintOrder="stroke" stroke="#fbfaf5" strokeWidth={3}>
+                {partText(f, design)}
               </text>
             </g>
           ))}
         </svg>
-        {editing ? <InlineEditor field={editing} onDone={() => setEditing(null)} /> : null}
+        {editing ? <InlineEditor field={editing} spot={spots[editing]!} width={width} onDone={() => setEditing(null)} /> : null}
       </div>
     </section>
   );
 }
 
 /** The in-place editor for one part's value, placed over its label. */
-function InlineEditor({ field, onDone }: { field: FieldName; onDone: () => void }) {
+function InlineEditor({ field, spot, width, onDone }: { field: FieldName; spot: Spot; width: number; onDone: () => void }) {
   const draft = useWorkbench((s) => s.drafts[field]);
   const error = useWorkbench((s) => s.errors[field]);
   const editField = useWorkbench((s) => s.editField);
@@ -123,16 +193,12 @@ function InlineEditor({ field, onDone }: { field: FieldName; onDone: () => void 
     input.current?.focus();
     input.current?.select();
   }, []);
-  const at = LABELS[field];
   const close = () => {
     settleField(field);
     onDone();
   };
   return (
-    <div
-      className="inline-editor"
-      style={{ left: `${(Math.min(at.x, W - 150) / W) * 100}%`, top: `${((at.y + 6) / H) * 100}%` }}
-    >
+    <div className="inline-editor" style={{ left: `${(Math.min(Math.max(spot.x - 60, 0), width - 150) / width) * 100}%`, top: `${((spot.y + 6) / H) * 100}%` }}>
       <label htmlFor={id} className="visually-hidden">{`${FIELDS[field].label} (${FIELDS[field].unit})`}</label>
       <input
         ref={input}

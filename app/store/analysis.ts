@@ -10,9 +10,11 @@ import {
   type PlateExtent,
   type PreferredSeries,
   type StageOverlay,
+  type StageDesign,
   type StageSolution,
   type TubeRecord,
 } from '../../src/index';
+import { analyzeSignal, type SignalAnalysis } from './signalAnalysis';
 
 /** The design as the bench holds it: what the user chose, in SI units. */
 export interface BenchDesign {
@@ -26,6 +28,28 @@ export interface BenchDesign {
   /** Preferred-value series resistors snap to when a drag ends. */
   readonly series: PreferredSeries;
   readonly snap: boolean;
+  /** Source impedance driving the grid, Ω. */
+  readonly rsource: number;
+  /** Input coupling capacitor, F; null for direct coupling. */
+  readonly cin: number | null;
+  /** Grid leak, Ω. */
+  readonly rg: number;
+  /** Cathode bypass capacitor, F (used when bypassed); null for an ideal one. */
+  readonly ck: number | null;
+  /** Output coupling capacitor into RL, F; null for an ideal one. */
+  readonly cout: number | null;
+  /** Output level the distortion figures are taken at, V rms. */
+  readonly levelRms: number;
+  readonly stage2: Stage2Design;
+}
+
+/** The optional second stage: none, a direct-coupled cathode follower, or a capacitor-coupled gain stage. */
+export interface Stage2Design {
+  readonly kind: 'none' | 'follower' | 'common-cathode';
+  readonly tubeId: string;
+  readonly ra: number;
+  readonly rk: number;
+  readonly rg: number;
 }
 
 /** Everything the screen shows that the model derives from a design. */
@@ -34,6 +58,7 @@ export interface Analysis {
   readonly solution: StageSolution;
   readonly overlay: StageOverlay;
   readonly sheet: CurveSheet;
+  readonly signal: SignalAnalysis;
 }
 
 /**
@@ -42,10 +67,10 @@ export interface Analysis {
  * is reused otherwise, so a drag never rebuilds the curve family). `extent`
  * pins the chart window, as while B+ is being dragged.
  */
-export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent): ({ ok: true } & Analysis) | Failure {
+export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false): ({ ok: true } & Analysis) | Failure {
   const tube = findTube(design.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library`, field: 'tube' };
-  const stage = { tube, bplus: design.bplus, ra: design.ra, rk: design.rk, bypassed: design.bypassed, rl: design.rl };
+  const stage = stageDesignOf(design, tube);
   const solution = solveStage(stage);
   if (!solution.ok) return solution;
   const checked = normalizeStage(stage);
@@ -53,5 +78,27 @@ export function analyze(design: BenchDesign, prev: Analysis | null, extent?: Pla
   const window = extent ?? plateExtent(tube, design.bplus);
   const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax;
   const sheet = sameSheet ? prev.sheet : curveSheet(tube, design.bplus, window);
-  return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet };
+  const signal = analyzeSignal({ checked, solution }, stage, design, prev?.signal ?? null, light);
+  if (signal.chain && !signal.chain.ok) return { ...signal.chain, field: signal.chain.field ?? 'stage2' };
+  return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet, signal };
+}
+
+/** The model's stage design for the bench's first stage, with its signal parts. */
+export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign {
+  // With a second stage, RL and Cout belong to the end of the chain; stage 1 drives stage 2.
+  const chained = d.stage2.kind !== 'none';
+  const load = !chained ? d.rl : d.stage2.kind === 'follower' ? Infinity : d.stage2.rg;
+  return {
+    tube,
+    bplus: d.bplus,
+    ra: d.ra,
+    rk: d.rk,
+    bypassed: d.bypassed,
+    rl: load,
+    rg: d.rg,
+    rsource: d.rsource,
+    ...(d.cin !== null ? { cin: d.cin } : {}),
+    ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
+    ...(d.cout !== null && !chained ? { cout: d.cout } : {}),
+  };
 }

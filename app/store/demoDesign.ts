@@ -3,7 +3,9 @@ import type { BenchDesign } from './analysis';
 /**
  * The design the bench opens on: a line stage of our own making. A 12AU7
  * section on a 275 V rail, plate resistor 27 kΩ, cathode resistor 1.2 kΩ
- * bypassed, driving a 220 kΩ level control of the next unit.
+ * bypassed by 100 µF, fed from a 1 kΩ source through 470 nF into a 1 MΩ grid
+ * leak, driving a 220 kΩ level control through 1 µF; distortion read at
+ * 2 V rms out. No second stage until the user adds one.
  */
 export const DEMO_DESIGN: BenchDesign = {
   tubeId: '12AU7',
@@ -14,6 +16,13 @@ export const DEMO_DESIGN: BenchDesign = {
   rl: 220e3,
   series: 'E24',
   snap: true,
+  rsource: 1e3,
+  cin: 470e-9,
+  rg: 1e6,
+  ck: 100e-6,
+  cout: 1e-6,
+  levelRms: 2,
+  stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
 };
 
 export const DEMO_TITLE = 'Line stage, 12AU7 into a 220 k level control';

@@ -5,11 +5,11 @@ import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 
 /** Longest design title kept, in characters. */
 export const MAX_TITLE_LENGTH = 120;
-import { FIELDS, type FieldName } from './fields';
+import { FIELD_NAMES, FIELDS, type FieldName } from './fields';
 import type { WorkbenchState } from './workbenchStore';
 
 export type Drafts = Record<FieldName, string>;
-export type FieldErrors = Partial<Record<FieldName | 'tube', string>>;
+export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2', string>>;
 
 /**
  * The design and what the model makes of it. Every change goes through
@@ -36,7 +36,8 @@ export interface DesignSlice {
   setSeries: (series: PreferredSeries) => void;
   setSnap: (on: boolean) => void;
   /** Runs the model on `next`; on success makes it the design and returns null. */
-  commit: (next: BenchDesign, opts?: { extent?: PlateExtent; typedField?: FieldName }) => Failure | null;
+  commit: (next: BenchDesign, opts?: { extent?: PlateExtent; typedField?: FieldName; light?: boolean }) => Failure | null;
+  setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId'>>) => void;
 }
 
 function withoutError(errors: FieldErrors, key: keyof FieldErrors): FieldErrors {
@@ -46,7 +47,7 @@ function withoutError(errors: FieldErrors, key: keyof FieldErrors): FieldErrors 
 }
 
 export function draftsFor(d: BenchDesign): Drafts {
-  return { bplus: FIELDS.bplus.show(d.bplus), ra: FIELDS.ra.show(d.ra), rk: FIELDS.rk.show(d.rk), rl: FIELDS.rl.show(d.rl) };
+  return Object.fromEntries(FIELD_NAMES.map((f) => [f, FIELDS[f].show(FIELDS[f].get(d))])) as Drafts;
 }
 
 function initialAnalysis(): Analysis {
@@ -68,13 +69,13 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
 
   commit: (next, opts = {}) => {
     const s = get();
-    const a = analyze(next, s.analysis, opts.extent);
+    const a = analyze(next, s.analysis, opts.extent, opts.light);
     if (!a.ok) return a;
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
     const errors = { ...s.errors };
-    for (const f of Object.keys(drafts) as FieldName[]) if (next[f] !== s.design[f] || f === opts.typedField) delete errors[f];
+    for (const f of FIELD_NAMES) if (FIELDS[f].get(next) !== FIELDS[f].get(s.design) || f === opts.typedField) delete errors[f];
     const { ok: _ok, ...analysis } = a;
     set({ design: next, analysis, drafts, errors });
     return null;
@@ -88,14 +89,14 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       set({ errors: { ...get().errors, [field]: read.message } });
       return;
     }
-    const failure = get().commit({ ...s.design, [field]: read.value }, { typedField: field });
+    const failure = get().commit(FIELDS[field].put(s.design, read.value), { typedField: field });
     if (failure) set({ errors: { ...get().errors, [field]: failure.message } });
   },
 
   settleField: (field) => {
     const s = get();
     if (s.errors[field]) return;
-    set({ drafts: { ...s.drafts, [field]: FIELDS[field].show(s.design[field]) } });
+    set({ drafts: { ...s.drafts, [field]: FIELDS[field].show(FIELDS[field].get(s.design)) } });
   },
 
   chooseTube: (id) => {
@@ -104,6 +105,12 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     // Same parts, new tube: what a tube swap in the same socket does.
     const failure = s.commit({ ...s.design, tubeId: id });
     set({ errors: failure ? { ...get().errors, tube: `The ${id} cannot run with these parts: ${failure.message}` } : withoutError(get().errors, 'tube') });
+  },
+
+  setStage2: (patch) => {
+    const s = get();
+    const failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, ...patch } });
+    set({ errors: failure ? { ...get().errors, tube: undefined, stage2: failure.message } : withoutError(get().errors, 'stage2') });
   },
 
   setBypassed: (on) => {

@@ -58,7 +58,7 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
       set({ dragNote: d.message });
       return;
     }
-    const failure = s.commit({ ...s.design, ra: d.ra, rk: d.rk }, { extent: sheet.extent });
+    const failure = s.commit({ ...s.design, ra: d.ra, rk: d.rk }, { extent: sheet.extent, light: true });
     set({ dragNote: failure ? failure.message : reach.reason });
   },
 
@@ -67,7 +67,7 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     const { extent } = s.analysis.sheet;
     const bplus = Math.round(Math.min(Math.max(volts, MIN_DRAG_BPLUS), extent.vmax) * 2) / 2;
     if (bplus === s.design.bplus) return;
-    const failure = s.commit({ ...s.design, bplus }, { extent });
+    const failure = s.commit({ ...s.design, bplus }, { extent, light: true });
     set({ dragNote: failure ? `B+ ${bplus} V: ${failure.message}` : null });
   },
 
@@ -80,11 +80,18 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
       s.commit(s.design);
       return;
     }
-    if (was !== 'point' || !s.design.snap) return;
+    if (was !== 'point') return;
+    if (!s.design.snap) {
+      s.commit(s.design); // the full signal analysis, deferred while dragging
+      return;
+    }
     const { ra, rk, series } = s.design;
     const snapped = { ...s.design, ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) };
     const failure = s.commit(snapped);
-    if (failure) set({ dragNote: `Snapping to ${series} values would fail (${failure.message}); the exact values are kept.` });
+    if (failure) {
+      s.commit(get().design); // the full signal analysis, deferred while dragging
+      set({ dragNote: `Snapping to ${series} values would fail (${failure.message}); the exact values are kept.` });
+    }
   },
 
   nudgePoint: (dx, dy) => {

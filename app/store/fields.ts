@@ -1,47 +1,63 @@
 import { formatValue, parseValue } from '../../src/index';
+import type { BenchDesign } from './analysis';
 
-/** The design values a user types; each has one definition of how it is read, checked and shown. */
-export type FieldName = 'bplus' | 'ra' | 'rk' | 'rl';
+/** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
+export type FieldName = 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2';
+
+type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
 export interface FieldDef {
   readonly label: string;
   readonly unit: string;
   /** Example shown as the input's placeholder. */
   readonly example: string;
-  /** Reads the typed text: the SI value, or a message for the user. */
-  readonly read: (text: string) => { ok: true; value: number } | { ok: false; message: string };
+  readonly read: Read;
   /** The text shown for a value the design holds. */
-  readonly show: (value: number) => string;
+  readonly show: (value: number | null) => string;
+  readonly get: (d: BenchDesign) => number | null;
+  readonly put: (d: BenchDesign, value: number | null) => BenchDesign;
 }
 
-function ranged(label: string, unit: string, min: number, max: number, opts: { allowZero?: boolean } = {}) {
-  return (text: string) => {
+function ranged(label: string, unit: string, min: number, max: number, opts: { allowZero?: boolean; none?: 'infinite' | 'null' } = {}): Read {
+  return (text) => {
+    const t = text.trim().toLowerCase();
+    if (opts.none && (t === 'none' || t === '' || t === '∞')) return { ok: true, value: opts.none === 'infinite' ? Infinity : null };
     const r = parseValue(text);
     if (!r.ok) return r;
     const low = opts.allowZero ? r.value < 0 : r.value <= 0;
-    if (low) return { ok: false as const, message: `${label} must be ${opts.allowZero ? '0 or more' : 'above 0'} ${unit}` };
-    if (r.value < min && r.value !== 0) return { ok: false as const, message: `${label} must be at least ${formatValue(min, unit)}` };
-    if (r.value > max) return { ok: false as const, message: `${label} must be at most ${formatValue(max, unit)}` };
+    if (low) return { ok: false, message: `${label} must be ${opts.allowZero ? '0 or more' : 'above 0'} ${unit}` };
+    if (r.value < min && r.value !== 0) return { ok: false, message: `${label} must be at least ${formatValue(min, unit)}` };
+    if (r.value > max) return { ok: false, message: `${label} must be at most ${formatValue(max, unit)}` };
     return r;
   };
 }
 
-/** Compact trade notation for an input box: 27000 → "27k", 1200 → "1.2k", 275 → "275". */
-export const compact = (v: number) => formatValue(v, '').replace('µ', 'u');
+/** Compact trade notation for an input box: 27000 → "27k", 1.2e-7 → "120n", 275 → "275". */
+export const compact = (v: number | null) => (v === null ? 'none' : Number.isFinite(v) ? formatValue(v, '').replace('µ', 'u') : 'none');
+
+const top = <K extends keyof BenchDesign>(key: K) => ({
+  get: (d: BenchDesign) => d[key] as number | null,
+  put: (d: BenchDesign, v: number | null) => ({ ...d, [key]: v }),
+});
+const second = <K extends 'ra' | 'rk' | 'rg'>(key: K) => ({
+  get: (d: BenchDesign) => d.stage2[key],
+  put: (d: BenchDesign, v: number | null) => ({ ...d, stage2: { ...d.stage2, [key]: v as number } }),
+});
 
 export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
-  bplus: { label: 'B+', unit: 'V', example: '275', read: ranged('B+', 'V', 1, 1500), show: compact },
-  ra: { label: 'Ra', unit: 'Ω', example: '47k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact },
-  rk: { label: 'Rk', unit: 'Ω', example: '1k5', read: ranged('Rk', 'Ω', 1, 1e6, { allowZero: true }), show: compact },
-  rl: {
-    label: 'RL',
-    unit: 'Ω',
-    example: '220k or none',
-    read: (text) => {
-      const t = text.trim().toLowerCase();
-      if (t === '' || t === 'none' || t === '∞' || t === 'inf') return { ok: true, value: Infinity };
-      return ranged('RL', 'Ω', 100, 100e6)(text);
-    },
-    show: (v) => (Number.isFinite(v) ? compact(v) : 'none'),
-  },
+  bplus: { label: 'B+', unit: 'V', example: '275', read: ranged('B+', 'V', 1, 1500), show: compact, ...top('bplus') },
+  ra: { label: 'Ra', unit: 'Ω', example: '47k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact, ...top('ra') },
+  rk: { label: 'Rk', unit: 'Ω', example: '1k5', read: ranged('Rk', 'Ω', 1, 1e6, { allowZero: true }), show: compact, ...top('rk') },
+  rl: { label: 'RL', unit: 'Ω', example: '220k or none', read: ranged('RL', 'Ω', 100, 100e6, { none: 'infinite' }), show: compact, ...top('rl') },
+  rsource: { label: 'Source Rs', unit: 'Ω', example: '10k', read: ranged('Source impedance', 'Ω', 0, 10e6, { allowZero: true }), show: compact, ...top('rsource') },
+  cin: { label: 'Cin', unit: 'F', example: '100n or none', read: ranged('Cin', 'F', 1e-12, 1, { none: 'null' }), show: compact, ...top('cin') },
+  rg: { label: 'Rg', unit: 'Ω', example: '1M', read: ranged('Rg', 'Ω', 1e3, 100e6), show: compact, ...top('rg') },
+  ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', 'F', 1e-9, 1, { none: 'null' }), show: compact, ...top('ck') },
+  cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', 'F', 1e-12, 1, { none: 'null' }), show: compact, ...top('cout') },
+  level: { label: 'Output level', unit: 'V rms', example: '2', read: ranged('Output level', 'V rms', 1e-4, 1000), show: compact, ...top('levelRms') },
+  ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact, ...second('ra') },
+  rk2: { label: 'Rk (stage 2)', unit: 'Ω', example: '1k or 47k', read: ranged('Rk', 'Ω', 1, 10e6), show: compact, ...second('rk') },
+  rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', 'Ω', 1e3, 100e6), show: compact, ...second('rg') },
 };
+
+export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

@@ -8,7 +8,7 @@ describe('workbench store', () => {
     const s = createWorkbenchStore().getState();
     expect(s.design).toMatchObject({ tubeId: '12AU7', bplus: 275, ra: 27e3, rk: 1200, rl: 220e3 });
     expect(s.analysis.solution.op.ia).toBeGreaterThan(1e-3);
-    expect(s.drafts).toEqual({ bplus: '275', ra: '27k', rk: '1.2k', rl: '220k' });
+    expect(s.drafts).toMatchObject({ bplus: '275', ra: '27k', rk: '1.2k', rl: '220k', cin: '470n', ck: '100u', level: '2' });
   });
 
   it('an entry that does not parse leaves a specific message and keeps the design and its figures', () => {

@@ -1,0 +1,57 @@
+import { formatValue } from '../../src/index';
+import { decibels, ohms, plain } from '../format';
+import { ValueField } from '../panels/ValueField';
+import { useWorkbench } from '../store/StoreProvider';
+
+const dbText = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(1)}`;
+const hz = (f: number | null) => (f === null ? 'flat' : formatValue(f, 'Hz'));
+
+/** The signal level control and what the model says at that level: headroom, distortion, bandwidth, and the chain's totals. */
+export function SignalPanel() {
+  const sig = useWorkbench((s) => s.analysis.signal);
+  const level = useWorkbench((s) => s.design.levelRms);
+  const editField = useWorkbench((s) => s.editField);
+  const settleField = useWorkbench((s) => s.settleField);
+  const { swing, distortion: d, corners, chain } = sig;
+  const limit = swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
+  return (
+    <section className="panel signal-panel" aria-label="Signal at a chosen level">
+      <h2>Signal {sig.stale ? <span className="stale-note">(updates when you let go)</span> : null}</h2>
+      <div className="signal-row">
+        <div className="level-control">
+          <ValueField field="level" hint="output level the distortion is read at" />
+          <input
+            type="range"
+            aria-label="Output level, log scale from 1 mV rms to the clean swing"
+            min={-3}
+            max={Math.log10(swing.output.rms)}
+            step={0.01}
+            value={Math.log10(Math.min(level, swing.output.rms))}
+            onChange={(e) => editField('level', Number(Math.pow(10, Number(e.target.value)).toPrecision(3)).toString())}
+            onPointerUp={() => settleField('level')}
+          />
+        </div>
+        <dl className="figure-group">
+          <div className="figure" data-figure="input-needed"><dt>Input needed</dt><dd>{d.ok ? `${plain(d.inputRms)} V rms` : '—'}</dd></div>
+          <div className="figure" data-figure="thd"><dt>THD</dt><dd>{d.ok ? `${plain(d.thdPercent)} %` : '—'}</dd></div>
+          <div className="figure" data-figure="h2"><dt>H2</dt><dd>{d.ok ? `${d.harmonicsDb[0]!.toFixed(1)} dB` : '—'}</dd></div>
+          <div className="figure" data-figure="h3"><dt>H3</dt><dd>{d.ok ? `${d.harmonicsDb[1]!.toFixed(1)} dB` : '—'}</dd></div>
+        </dl>
+        <dl className="figure-group">
+          <div className="figure" data-figure="headroom-out"><dt>Clean output swing</dt><dd>{`${plain(swing.output.rms)} V rms (${dbText(swing.output.dBu)} dBu)`}</dd></div>
+          <div className="figure" data-figure="headroom-in"><dt>Clean input</dt><dd>{`${plain(swing.input.rms)} V rms (${dbText(swing.input.dBV)} dBV)`}</dd></div>
+          <div className="figure" data-figure="limited-by"><dt>Clips by</dt><dd>{limit}</dd></div>
+          <div className="figure" data-figure="bandwidth"><dt>−3 dB</dt><dd>{`${hz(corners.lowHz)} to ${hz(corners.highHz)}`}</dd></div>
+        </dl>
+      </div>
+      {!d.ok ? <p className="field-error" role="alert">{d.message}</p> : null}
+      {chain?.ok ? (
+        <dl className="figure-group chain-figures" aria-label="Both stages together">
+          <div className="figure" data-figure="chain-gain"><dt>Chain gain</dt><dd>{`${plain(chain.gain)} × (${decibels(chain.gain)}), ${chain.inverting ? 'inverting' : 'non-inverting'}`}</dd></div>
+          <div className="figure" data-figure="chain-zout"><dt>Chain Zout</dt><dd>{ohms(chain.zout)}</dd></div>
+          <div className="figure" data-figure="chain-swing"><dt>Chain clean output</dt><dd>{`${plain(chain.output.rms)} V rms, limited by stage ${chain.limitedBy.link + 1} (${chain.limitedBy.by === 'grid-current' ? 'grid current' : 'cutoff'})`}</dd></div>
+        </dl>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,57 @@
+import { render, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { distortion, findTube, swing } from '../../src/index';
+
+function setup() {
+  const store = createWorkbenchStore();
+  const user = userEvent.setup();
+  const view = render(<App store={store} />);
+  const figure = (name: string) => view.container.querySelector(`[data-figure="${name}"] dd`)?.textContent ?? null;
+  return { store, user, view, figure };
+}
+
+describe('signal views', () => {
+  it('show the model\'s THD and H2 at the chosen output level', async () => {
+    const { figure, store } = setup();
+    const d = store.getState().design;
+    const model = distortion({ tube: findTube(d.tubeId)!, bplus: d.bplus, ra: d.ra, rk: d.rk, rl: d.rl, rg: d.rg, rsource: d.rsource, cin: d.cin!, ck: d.ck!, cout: d.cout! }, { outputRms: 2 });
+    if (!model.ok) throw new Error(model.message);
+    expect(figure('h2')).toBe(`${model.harmonicsDb[0]!.toFixed(1)} dB`);
+    expect(figure('thd')).toMatch(/^\d+(\.\d+)? %$/);
+    expect(figure('limited-by')).toBe('grid current');
+  });
+
+  it('a level beyond the clean swing says where clipping starts, and the figures keep their places', async () => {
+    const { user, store } = setup();
+    const level = screen.getByRole('textbox', { name: /^Output level/ });
+    await user.clear(level);
+    await user.type(level, '100');
+    const d = store.getState().design;
+    const clean = swing({ tube: findTube(d.tubeId)!, bplus: d.bplus, ra: d.ra, rk: d.rk, rl: d.rl });
+    if (!clean.ok) throw new Error(clean.message);
+    expect(store.getState().design.levelRms).toBe(100);
+    expect(screen.getByText(/^Clipping: this stage is clean up to/).textContent).toContain(`${clean.output.rms.toPrecision(3)} V rms out`);
+  });
+
+  it('draws the transfer curve, the harmonic bars, THD against level and the Bode plot', () => {
+    const { view } = setup();
+    expect(view.container.querySelector('[data-series="transfer"]')?.getAttribute('d')).toMatch(/^M/);
+    expect(view.container.querySelectorAll('[data-bar]').length).toBe(8);
+    expect(view.container.querySelector('[data-series="thd"]')?.getAttribute('d')).toMatch(/^M/);
+    expect(view.container.querySelector('[data-series="magnitude"]')?.getAttribute('d')).toMatch(/^M/);
+    expect(view.container.querySelector('[data-series="phase"]')?.getAttribute('d')).toMatch(/^M/);
+  });
+
+  it('adding a cathode follower shows its figures, its own plate curves, the chain as inverting, and grows the schematic', async () => {
+    const { user, figure, view } = setup();
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Add' }), 'follower');
+    expect(figure('chain-gain')).toMatch(/inverting$/);
+    expect(figure('stage2-vhk')).toMatch(/V$/);
+    expect(view.container.querySelector('[data-stage2-point]')).not.toBeNull();
+    expect(screen.getByRole('group', { name: /then a cathode follower/ })).toBeTruthy();
+    expect(view.container.querySelector('[data-part="rk2"]')).not.toBeNull();
+  });
+});
