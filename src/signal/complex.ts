@@ -10,26 +10,89 @@ export const cdiv = (a: Complex, b: Complex): Complex => {
 };
 export const cabs = (a: Complex): number => Math.hypot(a[0], a[1]);
 
-/** Solves A·x = b for complex A (n×n) by Gaussian elimination with partial pivoting; null when singular. */
-export function csolve(a: Complex[][], b: Complex[]): Complex[] | null {
-  const n = b.length;
-  const m = a.map((row, i) => [...row, b[i]!]);
+/**
+ * Solves the augmented complex system [A | b] (n rows of n + 1 entries, real
+ * and imaginary parts in two flat arrays, overwritten) by Gaussian
+ * elimination with partial pivoting, writing x into xr, xi. Returns false
+ * when the matrix is singular or the answer is not finite. No allocation.
+ */
+export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Float64Array, xi: Float64Array): boolean {
+  const w = n + 1;
   for (let col = 0; col < n; col++) {
     let pivot = col;
-    for (let r = col + 1; r < n; r++) if (cabs(m[r]![col]!) > cabs(m[pivot]![col]!)) pivot = r;
-    if (!(cabs(m[pivot]![col]!) > 0)) return null;
-    [m[col], m[pivot]] = [m[pivot]!, m[col]!];
+    let best = Math.hypot(re[col * w + col]!, im[col * w + col]!);
     for (let r = col + 1; r < n; r++) {
-      const f = cdiv(m[r]![col]!, m[col]![col]!);
-      if (f[0] === 0 && f[1] === 0) continue;
-      for (let c = col; c <= n; c++) m[r]![c] = csub(m[r]![c]!, cmul(f, m[col]![c]!));
+      const m = Math.hypot(re[r * w + col]!, im[r * w + col]!);
+      if (m > best) {
+        best = m;
+        pivot = r;
+      }
+    }
+    if (!(best > 0)) return false;
+    if (pivot !== col) {
+      for (let c = 0; c < w; c++) {
+        const i1 = col * w + c;
+        const i2 = pivot * w + c;
+        const tr = re[i1]!;
+        const ti = im[i1]!;
+        re[i1] = re[i2]!;
+        im[i1] = im[i2]!;
+        re[i2] = tr;
+        im[i2] = ti;
+      }
+    }
+    const pr = re[col * w + col]!;
+    const pi = im[col * w + col]!;
+    const pd = pr * pr + pi * pi;
+    for (let r = col + 1; r < n; r++) {
+      const ar = re[r * w + col]!;
+      const ai = im[r * w + col]!;
+      if (ar === 0 && ai === 0) continue;
+      const fr = (ar * pr + ai * pi) / pd;
+      const fi = (ai * pr - ar * pi) / pd;
+      for (let c = col; c < w; c++) {
+        const vr = re[col * w + c]!;
+        const vi = im[col * w + c]!;
+        re[r * w + c] = re[r * w + c]! - (fr * vr - fi * vi);
+        im[r * w + c] = im[r * w + c]! - (fr * vi + fi * vr);
+      }
     }
   }
-  const x: Complex[] = new Array(n).fill([0, 0]);
   for (let r = n - 1; r >= 0; r--) {
-    let s = m[r]![n]!;
-    for (let c = r + 1; c < n; c++) s = csub(s, cmul(m[r]![c]!, x[c]!));
-    x[r] = cdiv(s, m[r]![r]!);
+    let sr = re[r * w + n]!;
+    let si = im[r * w + n]!;
+    for (let c = r + 1; c < n; c++) {
+      const mr = re[r * w + c]!;
+      const mi = im[r * w + c]!;
+      sr -= mr * xr[c]! - mi * xi[c]!;
+      si -= mr * xi[c]! + mi * xr[c]!;
+    }
+    const dr = re[r * w + r]!;
+    const di = im[r * w + r]!;
+    const dd = dr * dr + di * di;
+    xr[r] = (sr * dr + si * di) / dd;
+    xi[r] = (si * dr - sr * di) / dd;
+    if (!Number.isFinite(xr[r]!) || !Number.isFinite(xi[r]!)) return false;
   }
-  return x.every((v) => Number.isFinite(v[0]) && Number.isFinite(v[1])) ? x : null;
+  return true;
+}
+
+/** Solves A·x = b for complex A given as [re, im] pairs; null when singular. */
+export function csolve(a: Complex[][], b: Complex[]): Complex[] | null {
+  const n = b.length;
+  const w = n + 1;
+  const re = new Float64Array(n * w);
+  const im = new Float64Array(n * w);
+  for (let r = 0; r < n; r++) {
+    for (let c = 0; c < n; c++) {
+      re[r * w + c] = a[r]![c]![0];
+      im[r * w + c] = a[r]![c]![1];
+    }
+    re[r * w + n] = b[r]![0];
+    im[r * w + n] = b[r]![1];
+  }
+  const xr = new Float64Array(n);
+  const xi = new Float64Array(n);
+  if (!csolveFlat(re, im, n, xr, xi)) return null;
+  return Array.from(xr, (v, k) => [v, xi[k]!] as Complex);
 }

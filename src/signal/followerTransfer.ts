@@ -1,4 +1,4 @@
-import { korenSlopes } from '../tube/koren';
+import { korenSlopesInto } from '../tube/koren';
 import type { TriodeModel } from '../tube/types';
 import type { OperatingPoint } from '../stage/solveStage';
 
@@ -15,6 +15,7 @@ export function followerTransfer(model: TriodeModel, bplus: number, rk: number, 
   const offset = Number.isFinite(rl) ? (op.vk / rl) * rPar : 0; // vk = ia·rPar + offset
   const iaHi = (bplus - offset) / rPar; // vpk = 0
   let last = op.ia;
+  const k = { ia: 0, gm: 0, ga: 0 }; // scratch for korenSlopesInto
   return (vg: number): { vk: number; ia: number; vgk: number } => {
     if (!(iaHi > 0)) return { vk: offset, ia: 0, vgk: vg - offset };
     let lo = 0;
@@ -22,7 +23,7 @@ export function followerTransfer(model: TriodeModel, bplus: number, rk: number, 
     let x = last > 0 && last < iaHi ? last : 0.5 * iaHi;
     for (let i = 0; i < 80; i++) {
       const vk = x * rPar + offset;
-      const k = korenSlopes(p, bplus - vk, vg - vk);
+      korenSlopesInto(p, bplus - vk, vg - vk, k);
       const value = k.ia - x;
       if (value === 0) break;
       if (value > 0) lo = x;

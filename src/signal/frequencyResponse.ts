@@ -2,7 +2,7 @@ import { recordOf } from '../tube/types';
 import { fail, type Result } from '../result';
 import type { StageDesign } from '../stage/stageDesign';
 import { solvedStage, type SolvedStage } from './analysisInput';
-import { cabs, csolve, type Complex } from './complex';
+import { cabs, csolveFlat, type Complex } from './complex';
 
 /**
  * Small-signal response of the stage from the source to the output, by nodal
@@ -26,40 +26,83 @@ export interface ResponsePoint {
 /** Admittance standing in for an ideal short: far above any other in the network, yet finite for the solver. */
 const SHORT = 1e9;
 
-export function responseAt(s: SolvedStage, freqHz: number): Complex {
+/** Node order of the matrix: a, g, p, k, o. */
+const N = 5;
+const W = N + 1;
+
+/** The circuit's admittances that do not depend on frequency, and the capacitances that scale with it. */
+function networkOf(s: SolvedStage) {
   const d = s.checked;
-  const { gm, rp } = s.solution;
   const caps = recordOf(d.tube)?.capacitances ?? { cgk: 0, cgp: 0, cpk: 0 };
-  const w = 2 * Math.PI * freqHz;
-  const jw = (c: number): Complex => [0, w * c];
   const g = (r: number): number => (r === 0 ? SHORT : Number.isFinite(r) ? 1 / r : 0);
-  const ySeries = (c: number | null): Complex => (c === null ? [SHORT, 0] : jw(c));
-  const yRs = g(d.rsource);
-  const yCin = ySeries(d.cin);
-  const gRg = d.rg === null ? 0 : 1 / d.rg;
-  const yCk: Complex = d.ck !== null ? jw(d.ck) : d.bypassed ? [SHORT, 0] : [0, 0];
-  const gRk = d.rk > 0 ? 1 / d.rk : SHORT;
-  const yCout = ySeries(d.cout);
-  const gRl = g(d.rl);
-  const yGk = jw(caps.cgk);
-  const yGp = jw(caps.cgp);
-  const yPk = jw(caps.cpk);
-  const gp = 1 / rp;
-  const add = (...xs: Complex[]): Complex => xs.reduce((acc, x) => [acc[0] + x[0], acc[1] + x[1]], [0, 0] as Complex);
-  const neg = (x: Complex): Complex => [-x[0], -x[1]];
-  const re = (x: number): Complex => [x, 0];
-  // Unknowns [a, g, p, k, o]; source vs = 1 V. Rows: KCL, currents leaving each node.
-  // Tube current from plate to cathode: i = gm·(vg − vk) + gp·(vp − vk).
-  const A: Complex[][] = [
-    [add(re(yRs), yCin), neg(yCin), [0, 0], [0, 0], [0, 0]],
-    [neg(yCin), add(yCin, re(gRg), yGk, yGp), neg(yGp), neg(yGk), [0, 0]],
-    [[0, 0], add(neg(yGp), re(gm)), add(re(g(d.ra)), yCout, yPk, yGp, re(gp)), add(neg(yPk), re(-gm - gp)), neg(yCout)],
-    [[0, 0], add(neg(yGk), re(-gm)), add(neg(yPk), re(-gp)), add(re(gRk), yCk, yGk, yPk, re(gm + gp)), [0, 0]],
-    [[0, 0], [0, 0], neg(yCout), [0, 0], add(yCout, re(gRl))],
-  ];
-  const b: Complex[] = [re(yRs), [0, 0], [0, 0], [0, 0], [0, 0]];
-  const x = csolve(A, b);
-  return x ? x[4]! : [0, 0];
+  return {
+    gm: s.solution.gm,
+    gp: 1 / s.solution.rp,
+    gRs: g(d.rsource),
+    gRg: d.rg === null ? 0 : 1 / d.rg,
+    gRa: g(d.ra),
+    gRk: d.rk > 0 ? 1 / d.rk : SHORT,
+    gRl: g(d.rl),
+    // Series capacitors: null is an ideal short.
+    cin: d.cin,
+    cout: d.cout,
+    // The bypass: a real capacitor, an ideal short, or nothing.
+    ck: d.ck,
+    kShort: d.ck === null && d.bypassed,
+    cgk: caps.cgk,
+    cgp: caps.cgp,
+    cpk: caps.cpk,
+  };
+}
+
+type Network = ReturnType<typeof networkOf>;
+const scratch = { re: new Float64Array(N * W), im: new Float64Array(N * W), xr: new Float64Array(N), xi: new Float64Array(N) };
+
+/** vout/vsource at one frequency: the nodal equations filled straight into flat arrays and solved in place. */
+function solveAt(net: Network, freqHz: number): Complex {
+  const w = 2 * Math.PI * freqHz;
+  const { re, im, xr, xi } = scratch;
+  re.fill(0);
+  im.fill(0);
+  const at = (r: number, c: number) => r * W + c;
+  const add = (r: number, c: number, gr: number, bi: number) => {
+    const i = at(r, c);
+    re[i] = re[i]! + gr;
+    im[i] = im[i]! + bi;
+  };
+  // Admittance y = (gr + j·bi) between nodes r and c (c < 0: ground), stamped as in modified nodal analysis.
+  const stamp = (r: number, c: number, gr: number, bi: number) => {
+    add(r, r, gr, bi);
+    if (c >= 0) {
+      add(c, c, gr, bi);
+      add(r, c, -gr, -bi);
+      add(c, r, -gr, -bi);
+    }
+  };
+  const [A, G, P, K, O] = [0, 1, 2, 3, 4];
+  stamp(A, -1, net.gRs, 0); // source impedance to the (1 V) source: its current enters the right-hand side
+  re[at(A, N)] = net.gRs;
+  if (net.cin === null) stamp(A, G, SHORT, 0);
+  else stamp(A, G, 0, w * net.cin);
+  stamp(G, -1, net.gRg, 0);
+  stamp(G, K, 0, w * net.cgk);
+  stamp(G, P, 0, w * net.cgp);
+  stamp(P, -1, net.gRa, 0);
+  stamp(P, K, net.gp, w * net.cpk);
+  if (net.cout === null) stamp(P, O, SHORT, 0);
+  else stamp(P, O, 0, w * net.cout);
+  stamp(O, -1, net.gRl, 0);
+  stamp(K, -1, net.gRk + (net.kShort ? SHORT : 0), net.ck === null ? 0 : w * net.ck);
+  // The controlled source gm·(vg − vk) flows from plate to cathode.
+  add(P, G, net.gm, 0);
+  add(P, K, -net.gm, 0);
+  add(K, G, -net.gm, 0);
+  add(K, K, net.gm, 0);
+  return csolveFlat(re, im, N, xr, xi) ? [xr[O]!, xi[O]!] : [0, 0];
+}
+
+export function responseAt(s: SolvedStage, freqHz: number): Complex {
+  return solveAt(networkOf(s), freqHz);
 }
 
 function toPoint(freqHz: number, h: Complex): ResponsePoint {
@@ -70,7 +113,8 @@ function toPoint(freqHz: number, h: Complex): ResponsePoint {
 }
 
 export function responseOf(s: SolvedStage, frequenciesHz: readonly number[]): ResponsePoint[] {
-  return frequenciesHz.map((f) => toPoint(f, responseAt(s, f)));
+  const net = networkOf(s);
+  return frequenciesHz.map((f) => toPoint(f, solveAt(net, f)));
 }
 
 /** Log-spaced frequencies, `perDecade` to a decade, from lo to hi inclusive. */

@@ -1,4 +1,4 @@
-import { korenSlopes } from '../tube/koren';
+import { korenSlopesInto } from '../tube/koren';
 import { modelOf } from '../tube/types';
 import type { CheckedStage } from '../stage/stageDesign';
 import type { OperatingPoint } from '../stage/solveStage';
@@ -44,6 +44,7 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
   // Largest current at which vpk is still ≥ 0.
   const iaHi = degenerate ? (drive * rPar) / (rPar + d.rk) : drive - op.vk / rPar;
   let last = op.ia;
+  const k = { ia: 0, gm: 0, ga: 0 }; // scratch for korenSlopesInto
 
   /**
    * One instant: Newton on f(ia) = Ip − ia from the previous sample's current,
@@ -61,7 +62,7 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
     let x = last > 0 && last < iaHi ? last : 0.5 * iaHi;
     const tol = iaHi * REL_TOL;
     for (let i = 0; i < MAX_STEPS; i++) {
-      const k = korenSlopes(p, vpk0 + dVpk * x, vgk0 + dVgk * x);
+      korenSlopesInto(p, vpk0 + dVpk * x, vgk0 + dVgk * x, k);
       const value = k.ia - x;
       if (value === 0) break;
       if (value > 0) lo = x;

@@ -52,20 +52,35 @@ export interface PlateSlopes {
  * with s = √(kvb + Vpk²), x = kp·(1/mu + Vgk/s), σ the logistic function.
  */
 export function korenSlopes(p: KorenTriodeParams, vpk: number, vgk: number): PlateSlopes {
-  if (!(vpk > 0) || !Number.isFinite(vgk)) return { ia: 0, gm: 0, ga: 0 };
+  const out = { ia: 0, gm: 0, ga: 0 };
+  korenSlopesInto(p, vpk, vgk, out);
+  return out;
+}
+
+/**
+ * korenSlopes writing into a caller's object, for the inner loops that solve
+ * thousands of samples (a distortion cycle): no allocation per call.
+ */
+export function korenSlopesInto(p: KorenTriodeParams, vpk: number, vgk: number, out: { ia: number; gm: number; ga: number }): void {
+  out.ia = 0;
+  out.gm = 0;
+  out.ga = 0;
+  if (!(vpk > 0) || !Number.isFinite(vgk)) return;
   const s = Math.sqrt(p.kvb + vpk * vpk);
   const x = p.kp * (1 / p.mu + vgk / s);
   const sp = softplus(x);
   const sig = logistic(x);
   const e1 = (vpk / p.kp) * sp;
-  if (!(e1 > 0)) return { ia: 0, gm: 0, ga: 0 };
+  if (!(e1 > 0)) return;
   const powEx1 = Math.pow(e1, p.ex - 1);
   const ia = (2 * powEx1 * e1) / p.kg1;
   const dIdE = (2 * p.ex * powEx1) / p.kg1;
   const gm = (dIdE * vpk * sig) / s;
   const ga = dIdE * (sp / p.kp - (sig * vgk * vpk * vpk) / (s * s * s));
-  if (!Number.isFinite(ia) || !Number.isFinite(gm) || !Number.isFinite(ga)) return { ia: 0, gm: 0, ga: 0 };
-  return { ia, gm, ga };
+  if (!Number.isFinite(ia) || !Number.isFinite(gm) || !Number.isFinite(ga)) return;
+  out.ia = ia;
+  out.gm = gm;
+  out.ga = ga;
 }
 
 /**
