@@ -10,12 +10,24 @@ import { SignalCharts } from './signal/SignalCharts';
 import { SignalPanel } from './signal/SignalPanel';
 import { Stage2Panel } from './signal/Stage2Panel';
 import { DesignTitle } from './panels/DesignTitle';
-import { StoreProvider } from './store/StoreProvider';
+import { StoreProvider, useWorkbenchStore } from './store/StoreProvider';
+import { useKeeping } from './keep/useKeeping';
+import { ComparePanel } from './panels/ComparePanel';
+import { ExportPanel } from './panels/ExportPanel';
+import { KeepPanel } from './panels/KeepPanel';
 import type { WorkbenchStore } from './store/workbenchStore';
 
 export function App({ store }: { store?: WorkbenchStore }) {
   return (
     <StoreProvider store={store}>
+      <Bench />
+    </StoreProvider>
+  );
+}
+
+function Bench() {
+  useKeeping(useWorkbenchStore());
+  return (
       <div className="page">
         <header className="masthead">
           <h1>Quiescent</h1>
@@ -32,18 +44,20 @@ export function App({ store }: { store?: WorkbenchStore }) {
             <FindingsList />
             <SignalPanel />
             <SignalCharts />
+            <ComparePanel />
           </div>
           <div className="bench-side">
+            <KeepPanel />
             <StageSchematic />
             <CircuitValues />
             <Stage2Panel />
             <TubeChooser />
+            <ExportPanel />
           </div>
         </main>
         <footer>
           <SafetyNotice compact />
         </footer>
       </div>
-    </StoreProvider>
   );
 }

@@ -10,9 +10,17 @@ const ITEMS = [
   { label: 'Span of the signal at the chosen level', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
-export function ChartLegend() {
+export function ChartLegend({ first, rival }: { first: string; rival: string | null }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">
+      {rival ? (
+        <li>
+          <svg width="30" height="10" aria-hidden="true">
+            <line x1="1" x2="29" y1="5" y2="5" stroke={PALETTE.rival} strokeWidth={1.6} strokeDasharray="6 3" />
+          </svg>
+          {`${rival} (dashed, square point) against ${first} (solid, round point)`}
+        </li>
+      ) : null}
       {ITEMS.map((it) => (
         <li key={it.label}>
           <svg width="30" height="10" aria-hidden="true">

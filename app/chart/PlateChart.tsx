@@ -4,7 +4,7 @@ import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachDrag } from './attachDrag';
 import { ChartLegend } from './ChartLegend';
 import { drawAxes, drawFamily, drawGrid, drawLimits } from './drawSheet';
-import { drawOverlay } from './drawOverlay';
+import { drawOverlay, drawRivalOverlay } from './drawOverlay';
 import { HoverReadout } from './HoverReadout';
 import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
@@ -23,6 +23,8 @@ const BIG_STEP = 0.05;
 export function PlateChart() {
   const store = useWorkbenchStore();
   const sheet = useWorkbench((s) => s.analysis.sheet);
+  const rivalSheet = useWorkbench((s) => (s.rivalAnalysis && 'sheet' in s.rivalAnalysis ? s.rivalAnalysis.sheet : null));
+  const rival = useWorkbench((s) => s.rival);
   const tubeId = useWorkbench((s) => s.design.tubeId);
   const frame = useRef<HTMLDivElement>(null);
   const box = useChartBox(frame);
@@ -34,6 +36,8 @@ export function PlateChart() {
   const lines = useRef<SVGGElement>(null);
   const point = useRef<SVGGElement>(null);
   const bplusHandle = useRef<SVGGElement>(null);
+  const rivalCurves = useRef<SVGGElement>(null);
+  const rivalHandle = useRef<SVGGElement>(null);
 
   useEffect(() => {
     if (!grid.current || !curves.current || !limits.current || !axes.current) return;
@@ -44,11 +48,19 @@ export function PlateChart() {
   }, [sheet, scales]);
 
   useEffect(() => {
+    if (!rivalCurves.current) return;
+    if (rivalSheet) drawFamily(rivalCurves.current, rivalSheet, scales, { stroke: PALETTE.rival, dash: '6 3', labelRow: 1 });
+    else rivalCurves.current.replaceChildren();
+  }, [rivalSheet, scales]);
+
+  useEffect(() => {
     const nodes = { lines: lines.current!, point: point.current!, bplusHandle: bplusHandle.current! };
     const draw = () => {
       const s = store.getState();
       const { op } = s.analysis.solution;
       drawOverlay(nodes, s.analysis.overlay, s.design.bplus, scales, s.analysis.signal.swingPath);
+      const r = s.rivalAnalysis && 'overlay' in s.rivalAnalysis ? s.rivalAnalysis.overlay : null;
+      drawRivalOverlay(nodes.lines, rivalHandle.current!, r, scales);
       nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
       // Exact values for tests and exports to read; the figures strip shows them rounded.
       nodes.point.dataset.vpk = String(op.vpk);
@@ -60,9 +72,9 @@ export function PlateChart() {
     };
     draw();
     const unsubscribe = store.subscribe((s, prev) => {
-      if (s.analysis !== prev.analysis) draw();
+      if (s.analysis !== prev.analysis || s.rivalAnalysis !== prev.rivalAnalysis) draw();
     });
-    const detach = attachDrag(store, scales, nodes.point, nodes.bplusHandle);
+    const detach = attachDrag(store, scales, nodes.point, nodes.bplusHandle, rivalHandle.current!);
     return () => {
       unsubscribe();
       detach();
@@ -127,6 +139,7 @@ export function PlateChart() {
       >
         <g ref={grid} className="layer-grid" />
         <g ref={limits} className="layer-limits" />
+        <g ref={rivalCurves} className="layer-rival-curves" />
         <g ref={curves} className="layer-curves" />
         <g ref={axes} className="layer-axes" />
         <rect
@@ -154,6 +167,16 @@ export function PlateChart() {
           <rect x={-14} y={-6} width={28} height={26} fill="transparent" />
         </g>
         <g
+          ref={rivalHandle}
+          className={rival.mode === 'own-values' ? 'handle handle-rival' : 'handle-rival fixed'}
+          role="img"
+          aria-label={`Operating point of the ${rival.tubeId}${rival.mode === 'own-values' ? ' (drag it to choose its own Ra and Rk)' : ' with the same parts'}`}
+          visibility={rival.on && rivalSheet ? 'visible' : 'hidden'}
+        >
+          <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
+          <rect x={-6} y={-6} width={12} height={12} fill={PALETTE.rival} stroke={PALETTE.ink} strokeWidth={1.6} />
+        </g>
+        <g
           ref={point}
           className="handle handle-point"
           role="slider"
@@ -170,7 +193,7 @@ export function PlateChart() {
         </g>
       </svg>
       <HoverReadout />
-      <ChartLegend />
+      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} />
     </div>
   );
 }

@@ -8,7 +8,7 @@ import type { PlateScales } from './plateScales';
  * values with the scales' inverses. At most one model update runs per
  * animation frame: moves that arrive faster are coalesced to the latest.
  */
-export function attachDrag(store: WorkbenchStore, scales: PlateScales, point: SVGGElement, bplusHandle: SVGGElement): () => void {
+export function attachDrag(store: WorkbenchStore, scales: PlateScales, point: SVGGElement, bplusHandle: SVGGElement, rivalHandle: SVGGElement): () => void {
   let frame = 0;
   let pending: (() => void) | null = null;
   const schedule = (fn: () => void) => {
@@ -52,11 +52,23 @@ export function attachDrag(store: WorkbenchStore, scales: PlateScales, point: SV
       store.getState().endDrag();
     });
 
+  const onRival = drag<SVGGElement, unknown>()
+    .filter(() => store.getState().rival.mode === 'own-values')
+    .on('drag', (event: { x: number; y: number }) => {
+      const vpk = scales.x.invert(event.x);
+      const ia = scales.y.invert(event.y);
+      schedule(() => store.getState().dragRivalTo(vpk, ia));
+    })
+    .on('end', () => {
+      flush();
+      store.getState().endRivalDrag();
+    });
+
   select(point).call(onPoint);
   select(bplusHandle).call(onBplus);
+  select(rivalHandle).call(onRival);
   return () => {
     if (frame) cancelAnimationFrame(frame);
-    select(point).on('.drag', null);
-    select(bplusHandle).on('.drag', null);
+    for (const el of [point, bplusHandle, rivalHandle]) select(el).on('.drag', null);
   };
 }

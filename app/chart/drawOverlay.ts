@@ -34,3 +34,11 @@ export function drawOverlay(nodes: OverlayNodes, overlay: StageOverlay, bplus: n
   nodes.point.setAttribute('transform', `translate(${x(overlay.point.v)},${y(overlay.point.i)})`);
   nodes.bplusHandle.setAttribute('transform', `translate(${x(Math.min(bplus, x.domain()[1]!))},${y(0)})`);
 }
+
+/** The second tube's lines and point, dashed in its own colour so a grayscale print still tells them apart. */
+export function drawRivalOverlay(lines: SVGGElement, handle: SVGGElement, overlay: StageOverlay | null, scales: PlateScales): void {
+  linePath(lines, 'rival-dc-load', overlay?.dcLoad ?? [], scales, { stroke: PALETTE.rival, width: 1.8, dash: '10 4' });
+  linePath(lines, 'rival-ac-load', overlay?.acLoad ?? [], scales, { stroke: PALETTE.rival, width: 1.4, dash: '3 3' });
+  linePath(lines, 'rival-bias', overlay?.bias ?? [], scales, { stroke: PALETTE.rival, width: 1.4, dash: '1 3' });
+  if (overlay) handle.setAttribute('transform', `translate(${scales.x(overlay.point.v)},${scales.y(overlay.point.i)})`);
+}

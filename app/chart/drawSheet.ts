@@ -55,7 +55,7 @@ export function drawAxes(layer: SVGGElement, scales: PlateScales): void {
     .text('Plate current Ia (mA)');
 }
 
-export function drawFamily(layer: SVGGElement, sheet: CurveSheet, scales: PlateScales, style: { stroke: string; dash?: string; labelSide?: 'end' | 'start' } = { stroke: PALETTE.ink }): void {
+export function drawFamily(layer: SVGGElement, sheet: CurveSheet, scales: PlateScales, style: { stroke: string; dash?: string; labelRow?: number } = { stroke: PALETTE.ink }): void {
   const g = select(layer);
   g.selectAll('*').remove();
   const path = planePath(scales);
@@ -69,7 +69,9 @@ export function drawFamily(layer: SVGGElement, sheet: CurveSheet, scales: PlateS
   const labels = sheet.family.map((c) => {
     const exit = c.points.find((p) => p.i >= iTop) ?? c.points[c.points.length - 1]!;
     const atTop = exit.i >= iTop;
-    return { vg: c.vg, x: scales.x(exit.v) + (atTop ? 3 : 4), y: atTop ? scales.y(iTop) + 12 : scales.y(exit.i) + 4 };
+    // A second family's labels go one row lower, so two families on one chart keep their labels apart.
+    const row = (style.labelRow ?? 0) * 14;
+    return { vg: c.vg, x: scales.x(exit.v) + (atTop ? 3 : 4), y: atTop ? scales.y(iTop) + 12 + row : scales.y(exit.i) + 4 + row };
   }).filter((l) => Number.isFinite(l.x) && Number.isFinite(l.y));
   g.selectAll('text').data(labels).join('text')
     .attr('x', (l) => l.x).attr('y', (l) => l.y)

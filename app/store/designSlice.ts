@@ -1,6 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
+import { analyzeRival, sharedWindow } from './compareSlice';
 import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 
 /** Longest design title kept, in characters. */
@@ -38,6 +39,8 @@ export interface DesignSlice {
   /** Runs the model on `next`; on success makes it the design and returns null. */
   commit: (next: BenchDesign, opts?: { extent?: PlateExtent; typedField?: FieldName; light?: boolean }) => Failure | null;
   setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId'>>) => void;
+  /** Makes a whole document (opened file, shared link, shelf) the current design; null on success, else why not. */
+  loadDocument: (doc: { title: string; design: BenchDesign }) => Failure | null;
 }
 
 function withoutError(errors: FieldErrors, key: keyof FieldErrors): FieldErrors {
@@ -69,15 +72,17 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
 
   commit: (next, opts = {}) => {
     const s = get();
-    const a = analyze(next, s.analysis, opts.extent, opts.light);
+    const extent = opts.extent ?? sharedWindow(next, s.rival);
+    const a = analyze(next, s.analysis, extent, opts.light);
     if (!a.ok) return a;
+    const rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, opts.light ?? false);
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
     const errors = { ...s.errors };
     for (const f of FIELD_NAMES) if (FIELDS[f].get(next) !== FIELDS[f].get(s.design) || f === opts.typedField) delete errors[f];
     const { ok: _ok, ...analysis } = a;
-    set({ design: next, analysis, drafts, errors });
+    set({ design: next, analysis, drafts, errors, rivalAnalysis });
     return null;
   },
 
@@ -111,6 +116,13 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const s = get();
     const failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, ...patch } });
     set({ errors: failure ? { ...get().errors, tube: undefined, stage2: failure.message } : withoutError(get().errors, 'stage2') });
+  },
+
+  loadDocument: (doc) => {
+    const failure = get().commit(doc.design);
+    if (failure) return failure;
+    set({ title: doc.title.slice(0, MAX_TITLE_LENGTH), errors: {} });
+    return null;
   },
 
   setBypassed: (on) => {

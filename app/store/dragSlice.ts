@@ -68,30 +68,24 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     const bplus = Math.round(Math.min(Math.max(volts, MIN_DRAG_BPLUS), extent.vmax) * 2) / 2;
     if (bplus === s.design.bplus) return;
     const failure = s.commit({ ...s.design, bplus }, { extent, light: true });
+    // (the chart window stays pinned while dragging; both tubes share it)
     set({ dragNote: failure ? `B+ ${bplus} V: ${failure.message}` : null });
   },
 
   endDrag: () => {
+    // Everything a release changes happens while `dragging` is still set, so
+    // the undo history records the whole drag as one step when it clears.
     const s = get();
     const was = s.dragging;
-    set({ dragging: null, dragStart: null });
     if (was === 'bplus') {
-      // Release the pinned window: the axes now follow the new B+.
-      s.commit(s.design);
-      return;
+      s.commit(s.design); // release the pinned window: the axes now follow the new B+
+    } else if (was === 'point') {
+      const { ra, rk, series } = s.design;
+      const failure = s.design.snap ? s.commit({ ...s.design, ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) }) : null;
+      if (failure || !s.design.snap) s.commit(get().design); // the full signal analysis, deferred while dragging
+      if (failure) set({ dragNote: `Snapping to ${series} values would fail (${failure.message}); the exact values are kept.` });
     }
-    if (was !== 'point') return;
-    if (!s.design.snap) {
-      s.commit(s.design); // the full signal analysis, deferred while dragging
-      return;
-    }
-    const { ra, rk, series } = s.design;
-    const snapped = { ...s.design, ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) };
-    const failure = s.commit(snapped);
-    if (failure) {
-      s.commit(get().design); // the full signal analysis, deferred while dragging
-      set({ dragNote: `Snapping to ${series} values would fail (${failure.message}); the exact values are kept.` });
-    }
+    set({ dragging: null, dragStart: null });
   },
 
   nudgePoint: (dx, dy) => {

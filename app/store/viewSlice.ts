@@ -11,12 +11,17 @@ export interface HoverReadout {
 }
 
 export interface ViewSlice {
+  /** The last message about keeping designs (opened, saved, refused and why). */
+  keepNote: { readonly kind: 'ok' | 'error'; readonly text: string } | null;
+  setKeepNote: (note: ViewSlice['keepNote']) => void;
   hover: HoverReadout | null;
   setHover: (vpk: number, ia: number) => void;
   clearHover: () => void;
 }
 
 export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = (set, get) => ({
+  keepNote: null,
+  setKeepNote: (keepNote) => set({ keepNote }),
   hover: null,
   setHover: (vpk, ia) => set({ hover: { vpk, ia, vgk: gridVoltageAt(get().analysis.tube, vpk, ia) } }),
   clearHover: () => set({ hover: null }),

@@ -1,17 +1,28 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { createDesignSlice, type DesignSlice } from './designSlice';
 import { createDragSlice, type DragSlice } from './dragSlice';
+import { createCompareSlice, type CompareSlice } from './compareSlice';
+import { createHistorySlice, recordHistory, type HistorySlice } from './historySlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
 
 /** The whole workbench state: the slices, combined once. */
-export type WorkbenchState = DesignSlice & DragSlice & ViewSlice;
+export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice;
 export type WorkbenchStore = StoreApi<WorkbenchState>;
 
+export interface StoreOptions {
+  /** Clock for undo coalescing (tests pass their own). */
+  readonly now?: () => number;
+}
+
 /** A fresh store; the app makes one, each test makes its own. */
-export function createWorkbenchStore(): WorkbenchStore {
-  return createStore<WorkbenchState>()((...a) => ({
+export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore {
+  const store = createStore<WorkbenchState>()((...a) => ({
     ...createDesignSlice(...a),
     ...createDragSlice(...a),
     ...createViewSlice(...a),
+    ...createHistorySlice(...a),
+    ...createCompareSlice(...a),
   }));
+  recordHistory(store, options.now);
+  return store;
 }

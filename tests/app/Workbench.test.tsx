@@ -70,7 +70,7 @@ describe('the workbench', () => {
   it('the tube list filters by type or description', async () => {
     const { user } = setup();
     await user.type(screen.getByRole('searchbox', { name: /find by type/i }), 'directly heated');
-    const names = screen.getAllByRole('radio').map((r) => (r as HTMLInputElement).value);
+    const names = within(screen.getByRole('radiogroup', { name: 'Tubes' })).getAllByRole('radio').map((r) => (r as HTMLInputElement).value);
     expect(names.sort()).toEqual(['2A3', '300B', '45']);
   });
 

@@ -1,6 +1,11 @@
 import { cleanup } from '@testing-library/react';
-import { afterEach } from 'vitest';
+import { afterEach, beforeEach } from 'vitest';
 
-// jsdom lacks the SVG geometry calls d3 uses for pointer positions; tests that
-// need them stub them locally. Each test unmounts what it rendered.
+// Each test starts as a first visit: no autosave, no shelf, no shared link.
+beforeEach(() => {
+  localStorage.clear();
+  history.replaceState(null, '', '/');
+});
+
+// Each test unmounts what it rendered.
 afterEach(() => cleanup());

@@ -37,7 +37,7 @@ export interface OpenBrowser {
 }
 
 /** A fresh Chromium with a new, empty profile directory (deleted on close). */
-export async function openBrowser(viewport = { width: 1280, height: 900 }): Promise<OpenBrowser> {
+export async function openBrowser(viewport = { width: 1280, height: 900 }, options: { bypassCSP?: boolean } = {}): Promise<OpenBrowser> {
   const profile = mkdtempSync(join(tmpdir(), 'quiescent-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: CHROMIUM_PATH,
@@ -45,6 +45,8 @@ export async function openBrowser(viewport = { width: 1280, height: 900 }): Prom
     args: CHROMIUM_FLAGS,
     viewport,
     acceptDownloads: true,
+    // Only for injecting test tools (axe-core): the app's own policy is tested as it ships.
+    bypassCSP: options.bypassCSP ?? false,
   });
   return {
     context,

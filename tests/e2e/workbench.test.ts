@@ -83,7 +83,8 @@ describe.runIf(run)('the workbench in Chromium', () => {
   });
 
   it('has no serious accessibility violations (axe-core)', async () => {
-    const { page } = await openBench(browser);
+    const tooling = await openBrowser(undefined, { bypassCSP: true });
+    const { page } = await openWorkbench(tooling, inject('baseUrl'));
     await page.addScriptTag({ content: axeSource });
     const result = await page.evaluate(async () => {
       const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
@@ -91,6 +92,14 @@ describe.runIf(run)('the workbench in Chromium', () => {
     });
     const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+    await tooling.close();
+  });
+
+  it('its Content-Security-Policy refuses inline scripts', async () => {
+    const { page } = await openBench(browser);
+    const refused = await page.addScriptTag({ content: 'window.__inline = 1;' }).then(() => false, (e: Error) => /Content Security Policy/.test(e.message));
+    expect(refused).toBe(true);
+    expect(await page.evaluate(() => (window as unknown as { __inline?: number }).__inline)).toBeUndefined();
     await page.close();
   });
 });

@@ -1,0 +1,131 @@
+import { findTube, type PreferredSeries } from '../../src/index';
+import type { BenchDesign, Stage2Design } from '../store/analysis';
+
+/**
+ * Quiescent's design file: our own JSON format, versioned.
+ *
+ *   { "format": "quiescent-design", "version": 1, "title": "…", "savedAt": "ISO 8601",
+ *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2 } }
+ *
+ * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
+ * ideal capacitor (cin, ck, cout) are written as null. Opening validates
+ * every field; nothing of a file that fails is applied.
+ */
+export const DESIGN_FORMAT = 'quiescent-design';
+export const DESIGN_FORMAT_VERSION = 1;
+/** Largest design file accepted, in bytes. */
+export const MAX_DESIGN_FILE_BYTES = 1_000_000;
+export const MAX_TITLE_CHARS = 120;
+
+export interface DesignDocument {
+  readonly title: string;
+  readonly design: BenchDesign;
+}
+
+export type ReadResult = { ok: true; doc: DesignDocument } | { ok: false; message: string };
+
+export function writeDesignFile(doc: DesignDocument, savedAt = new Date()): string {
+  const d = doc.design;
+  const file = {
+    format: DESIGN_FORMAT,
+    version: DESIGN_FORMAT_VERSION,
+    title: doc.title,
+    savedAt: savedAt.toISOString(),
+    design: { ...d, rl: Number.isFinite(d.rl) ? d.rl : null },
+  };
+  return JSON.stringify(file, null, 2);
+}
+
+type Check = (v: unknown) => string | null;
+const num = (min: number, max: number, unit: string): Check => (v) =>
+  typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max ? null : `must be a number from ${min} to ${max} ${unit}`;
+const numOrNull = (min: number, max: number, unit: string): Check => (v) => (v === null ? null : num(min, max, unit)(v));
+const bool: Check = (v) => (typeof v === 'boolean' ? null : 'must be true or false');
+const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'string' && options.includes(v) ? null : `must be one of ${options.join(', ')}`);
+const tubeId: Check = (v) => (typeof v === 'string' && findTube(v) ? null : 'must name a tube in the library');
+
+const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2'>, Check> = {
+  tubeId,
+  bplus: num(1, 1500, 'V'),
+  ra: num(100, 10e6, 'Ω'),
+  rk: num(0, 10e6, 'Ω'),
+  bypassed: bool,
+  rl: numOrNull(100, 100e6, 'Ω'),
+  series: oneOf(['E12', 'E24', 'E96']),
+  snap: bool,
+  rsource: num(0, 10e6, 'Ω'),
+  cin: numOrNull(1e-12, 1, 'F'),
+  rg: num(1e3, 100e6, 'Ω'),
+  ck: numOrNull(1e-9, 1, 'F'),
+  cout: numOrNull(1e-12, 1, 'F'),
+  levelRms: num(1e-4, 1000, 'V rms'),
+};
+const STAGE2_FIELDS: Record<keyof Stage2Design, Check> = {
+  kind: oneOf(['none', 'follower', 'common-cathode']),
+  tubeId,
+  ra: num(100, 10e6, 'Ω'),
+  rk: num(1, 10e6, 'Ω'),
+  rg: num(1e3, 100e6, 'Ω'),
+};
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+/** Values quoted in messages are cut short and shown as JSON text, never interpreted. */
+const quote = (v: unknown) => {
+  const t = JSON.stringify(v) ?? String(v);
+  return t.length > 40 ? `${t.slice(0, 40)}…` : t;
+};
+
+/** Reads a design file's text: the design, or a message saying exactly what is wrong. */
+export function readDesignFile(text: string, byteLength = new TextEncoder().encode(text).length): ReadResult {
+  if (byteLength > MAX_DESIGN_FILE_BYTES) {
+    return { ok: false, message: `The file is ${(byteLength / 1e6).toFixed(1)} MB; a design file is at most 1 MB. Nothing was opened.` };
+  }
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    return { ok: false, message: `The file is not complete JSON (cut short or damaged): ${(e as Error).message}. Nothing was opened.` };
+  }
+  if (!isRecord(raw) || raw.format !== DESIGN_FORMAT) return { ok: false, message: 'This is not a Quiescent design file (its "format" is not "quiescent-design"). Nothing was opened.' };
+  if (typeof raw.version !== 'number' || !Number.isInteger(raw.version) || raw.version < 1) return { ok: false, message: 'The file has no valid format version. Nothing was opened.' };
+  if (raw.version > DESIGN_FORMAT_VERSION) {
+    return { ok: false, message: `The file was written by a newer Quiescent (format version ${raw.version}); this one reads up to version ${DESIGN_FORMAT_VERSION}. Nothing was opened.` };
+  }
+  if (typeof raw.title !== 'string' || raw.title.length > MAX_TITLE_CHARS) return { ok: false, message: `"title" must be text of at most ${MAX_TITLE_CHARS} characters. Nothing was opened.` };
+  const d = raw.design;
+  if (!isRecord(d)) return { ok: false, message: 'The file has no "design" section. Nothing was opened.' };
+  for (const [key, check] of Object.entries(DESIGN_FIELDS)) {
+    const problem = check(d[key]);
+    if (problem) return { ok: false, message: `design.${key} ${problem} (found ${quote(d[key])}). Nothing was opened.` };
+  }
+  const s2 = d.stage2;
+  if (!isRecord(s2)) return { ok: false, message: 'design.stage2 is missing. Nothing was opened.' };
+  for (const [key, check] of Object.entries(STAGE2_FIELDS)) {
+    const problem = check(s2[key]);
+    if (problem) return { ok: false, message: `design.stage2.${key} ${problem} (found ${quote(s2[key])}). Nothing was opened.` };
+  }
+  const design: BenchDesign = {
+    tubeId: findTube(d.tubeId as string)!.id,
+    bplus: d.bplus as number,
+    ra: d.ra as number,
+    rk: d.rk as number,
+    bypassed: d.bypassed as boolean,
+    rl: d.rl === null ? Infinity : (d.rl as number),
+    series: d.series as PreferredSeries,
+    snap: d.snap as boolean,
+    rsource: d.rsource as number,
+    cin: d.cin as number | null,
+    rg: d.rg as number,
+    ck: d.ck as number | null,
+    cout: d.cout as number | null,
+    levelRms: d.levelRms as number,
+    stage2: {
+      kind: s2.kind as Stage2Design['kind'],
+      tubeId: findTube(s2.tubeId as string)!.id,
+      ra: s2.ra as number,
+      rk: s2.rk as number,
+      rg: s2.rg as number,
+    },
+  };
+  return { ok: true, doc: { title: raw.title, design } };
+}

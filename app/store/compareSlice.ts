@@ -1,0 +1,98 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, findTube, type Failure, type PlateExtent } from '../../src/index';
+import { analyze, type Analysis, type BenchDesign } from './analysis';
+import type { WorkbenchState } from './workbenchStore';
+
+/**
+ * A second tube weighed against the first on shared axes. "Same parts" puts
+ * the rival in the first design's socket (same B+, Ra, Rk): what a tube swap
+ * does. "Own values" gives it its own Ra and Rk, dragged on its own point.
+ */
+export interface Rival {
+  readonly on: boolean;
+  readonly tubeId: string;
+  readonly mode: 'same-parts' | 'own-values';
+  readonly ra: number;
+  readonly rk: number;
+}
+
+export interface CompareSlice {
+  rival: Rival;
+  rivalAnalysis: Analysis | Failure | null;
+  setRival: (patch: Partial<Rival>) => void;
+  /** Swaps which tube is first; everything else stays. */
+  swapTubes: () => void;
+  dragRivalTo: (vpk: number, ia: number) => void;
+  endRivalDrag: () => void;
+}
+
+export function rivalDesign(d: BenchDesign, r: Rival): BenchDesign {
+  return {
+    ...d,
+    tubeId: r.tubeId,
+    ra: r.mode === 'own-values' ? r.ra : d.ra,
+    rk: r.mode === 'own-values' ? r.rk : d.rk,
+    stage2: { ...d.stage2, kind: 'none' },
+  };
+}
+
+/** The chart window covering both tubes at this B+, so both families share one pair of axes. */
+export function sharedWindow(d: BenchDesign, r: Rival): PlateExtent | undefined {
+  const a = findTube(d.tubeId);
+  const b = findTube(r.tubeId);
+  if (!r.on || !a || !b) return undefined;
+  const ea = plateExtent(a, d.bplus);
+  const eb = plateExtent(b, d.bplus);
+  return { vmax: Math.max(ea.vmax, eb.vmax), iaMax: Math.max(ea.iaMax, eb.iaMax) };
+}
+
+export function analyzeRival(d: BenchDesign, r: Rival, prev: Analysis | Failure | null, extent: PlateExtent | undefined, light: boolean): Analysis | Failure | null {
+  if (!r.on) return null;
+  const a = analyze(rivalDesign(d, r), prev && 'solution' in prev ? prev : null, extent, light);
+  if (!a.ok) return a;
+  const { ok: _ok, ...analysis } = a;
+  return analysis;
+}
+
+export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSlice> = (set, get) => ({
+  rival: { on: false, tubeId: '12AX7', mode: 'same-parts', ra: 100e3, rk: 1500 },
+  rivalAnalysis: null,
+
+  setRival: (patch) => {
+    const s = get();
+    const rival = { ...s.rival, ...patch };
+    if (patch.mode === 'own-values' && s.rival.mode !== 'own-values') Object.assign(rival, { ra: s.design.ra, rk: s.design.rk });
+    set({ rival });
+    s.commit(s.design); // re-window both tubes and analyse the rival
+  },
+
+  swapTubes: () => {
+    const s = get();
+    if (!s.rival.on) return;
+    const own = s.rival.mode === 'own-values';
+    const design = { ...s.design, tubeId: s.rival.tubeId, ...(own ? { ra: s.rival.ra, rk: s.rival.rk } : {}) };
+    const rival = { ...s.rival, tubeId: s.design.tubeId, ...(own ? { ra: s.design.ra, rk: s.design.rk } : {}) };
+    const before = s.rival;
+    set({ rival });
+    if (s.commit(design) !== null) set({ rival: before });
+  },
+
+  dragRivalTo: (vpk, ia) => {
+    const s = get();
+    if (!s.rival.on || s.rival.mode !== 'own-values' || !s.rivalAnalysis || !('solution' in s.rivalAnalysis)) return;
+    const tube = s.rivalAnalysis.tube;
+    const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
+    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
+    if (!d.ok) return;
+    const rival = { ...s.rival, ra: d.ra, rk: d.rk };
+    const a = analyzeRival(s.design, rival, s.rivalAnalysis, s.analysis.sheet.extent, true);
+    if (a && 'solution' in a) set({ rival, rivalAnalysis: a, dragNote: reach.reason });
+  },
+
+  endRivalDrag: () => {
+    const s = get();
+    const rival = s.design.snap ? { ...s.rival, ra: nearestPreferred(s.rival.ra, s.design.series), rk: nearestPreferred(s.rival.rk, s.design.series) } : s.rival;
+    const a = analyzeRival(s.design, rival, s.rivalAnalysis, s.analysis.sheet.extent, false);
+    if (a && 'solution' in a) set({ rival, rivalAnalysis: a });
+  },
+});

@@ -1,0 +1,72 @@
+import { describe, expect, it } from 'vitest';
+import { analyze } from '../../../app/store/analysis';
+import { DEMO_DESIGN } from '../../../app/store/demoDesign';
+import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
+import { readShareFragment, shareFragment } from '../../../app/keep/shareLink';
+
+const doc = { title: 'Phono second stage', design: { ...DEMO_DESIGN, ra: 33e3, rl: Infinity, stage2: { ...DEMO_DESIGN.stage2, kind: 'follower' as const } } };
+
+describe('design files', () => {
+  it('round-trip: save then open gives the identical design, title and figures', () => {
+    const text = writeDesignFile(doc, new Date('2026-12-02T10:00:00Z'));
+    const back = readDesignFile(text);
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc).toEqual(doc);
+    const a = analyze(doc.design, null);
+    const b = analyze(back.doc.design, null);
+    if (!a.ok || !b.ok) throw new Error('both solve');
+    expect(b.solution).toEqual(a.solution);
+    expect(JSON.parse(text)).toMatchObject({ format: 'quiescent-design', version: 1, savedAt: '2026-12-02T10:00:00.000Z', design: { rl: null } });
+  });
+
+  const good = JSON.parse(writeDesignFile(doc)) as Record<string, unknown>;
+  // A copy of a good file, to break one field at a time.
+  type FileShape = { version: unknown; title: unknown; design: Record<string, unknown> };
+  const variant = (patch: (f: FileShape) => void) => {
+    const f = structuredClone(good) as unknown as FileShape;
+    patch(f);
+    return JSON.stringify(f);
+  };
+
+  it.each([
+    ['truncated', writeDesignFile(doc).slice(0, 80), /^The file is not complete JSON \(cut short or damaged\): .+\. Nothing was opened\.$/],
+    ['not a design file', JSON.stringify({ hello: 'world' }), /^This is not a Quiescent design file \(its "format" is not "quiescent-design"\)\. Nothing was opened\.$/],
+    ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 1\. Nothing was opened\.$/],
+    ['a wrong value', variant((f) => { f.design.ra = -5; }), /^design\.ra must be a number from 100 to 10000000 Ω \(found -5\)\. Nothing was opened\.$/],
+    ['a wrong type', variant((f) => { f.design.bypassed = 'yes'; }), /^design\.bypassed must be true or false \(found "yes"\)\. Nothing was opened\.$/],
+    ['an unknown tube', variant((f) => { f.design.tubeId = 'XYZ99'; }), /^design\.tubeId must name a tube in the library \(found "XYZ99"\)\. Nothing was opened\.$/],
+    ['no second stage', variant((f) => { delete f.design.stage2; }), /^design\.stage2 is missing\. Nothing was opened\.$/],
+  ])('%s gets its own message', (_label, text, message) => {
+    const r = readDesignFile(text);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.message).toMatch(message);
+  });
+
+  it('refuses a 10 MB file before parsing it', () => {
+    const big = 'x'.repeat(10_000_000);
+    expect(readDesignFile(big)).toEqual({ ok: false, message: 'The file is 10.0 MB; a design file is at most 1 MB. Nothing was opened.' });
+  });
+
+  it('keeps script-like text as plain text', () => {
+    const r = readDesignFile(variant((f) => { f.title = '<script>alert("x")</script><img src=x onerror=alert(1)>'; }));
+    expect(r.ok && r.doc.title).toBe('<script>alert("x")</script><img src=x onerror=alert(1)>');
+  });
+});
+
+describe('share links', () => {
+  it('carry the design in the fragment and read back identically', () => {
+    const hash = shareFragment(doc);
+    expect(hash).toMatch(/^#design=[A-Za-z0-9_-]+$/);
+    const r = readShareFragment(hash);
+    expect(r).toEqual({ ok: true, doc });
+  });
+
+  it('ignore a hash that is not a design, and report a damaged one', () => {
+    expect(readShareFragment('#top')).toBeNull();
+    expect(readShareFragment('#design=')).toMatchObject({ ok: false });
+    const damaged = shareFragment(doc).slice(0, 60);
+    const r = readShareFragment(damaged);
+    expect(r?.ok).toBe(false);
+    if (r && !r.ok) expect(r.message).toMatch(/^The shared link could not be opened: The file is not complete JSON/);
+  });
+});

@@ -1,0 +1,119 @@
+import { readFileSync } from 'node:fs';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+
+const run = chromiumGate();
+
+/** Width and height from a PNG's IHDR chunk (bytes 16–23, big-endian). */
+function pngSize(bytes: Buffer): { width: number; height: number } {
+  expect(bytes.subarray(1, 4).toString('latin1')).toBe('PNG');
+  return { width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
+}
+
+/** Share of pixels in the middle of a PNG that differ from its top-left pixel, decoded by the browser. */
+async function inkShare(page: Page, png: Buffer): Promise<number> {
+  return page.evaluate(async (b64) => {
+    const img = new Image();
+    img.src = `data:image/png;base64,${b64}`;
+    await img.decode();
+    const c = document.createElement('canvas');
+    c.width = img.width;
+    c.height = img.height;
+    const ctx = c.getContext('2d')!;
+    ctx.drawImage(img, 0, 0);
+    const data = ctx.getImageData(Math.floor(img.width * 0.1), Math.floor(img.height * 0.1), Math.floor(img.width * 0.8), Math.floor(img.height * 0.8)).data;
+    let differ = 0;
+    for (let i = 0; i < data.length; i += 4) if (Math.abs(data[i]! - data[0]!) + Math.abs(data[i + 1]! - data[1]!) + Math.abs(data[i + 2]! - data[2]!) > 60) differ++;
+    return differ / (data.length / 4);
+  }, png.toString('base64'));
+}
+
+async function downloadOf(page: Page, button: string): Promise<Buffer> {
+  const [dl] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: button }).click()]);
+  return readFileSync((await dl.path())!);
+}
+
+describe.runIf(run)('compare, export and keep in Chromium', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('compare mode draws two plate families and two operating points on shared axes', async () => {
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    await page.getByLabel('Second tube').selectOption('12AX7');
+    expect(await page.locator('.layer-curves path').count()).toBeGreaterThanOrEqual(5);
+    expect(await page.locator('.layer-rival-curves path').count()).toBeGreaterThanOrEqual(5);
+    await expect.poll(() => page.locator('.handle-rival').getAttribute('visibility')).toBe('visible');
+    expect(await page.locator('[data-series="rival-dc-load"]').count()).toBe(1);
+    expect(await page.locator('.compare-table tbody tr').count()).toBeGreaterThan(10);
+    await page.screenshot({ path: 'test-results/compare.png', fullPage: true });
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('exports the chart as a PNG at the chosen scale, not blank, and a build card on A4 proportions', async () => {
+    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const [, , w, h] = (await page.locator('svg.plate-chart').getAttribute('viewBox'))!.split(' ').map(Number);
+    const png2 = await downloadOf(page, 'Chart PNG 2×');
+    expect(pngSize(png2)).toEqual({ width: w! * 2, height: h! * 2 });
+    expect(await inkShare(page, png2)).toBeGreaterThan(0.05);
+    const png3 = await downloadOf(page, 'Chart PNG 3×');
+    expect(pngSize(png3)).toEqual({ width: w! * 3, height: h! * 3 });
+    const svg = (await downloadOf(page, 'Chart SVG')).toString('utf8');
+    expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    const card = await downloadOf(page, 'Build card (PNG, A4)');
+    expect(pngSize(card)).toEqual({ width: 1240, height: 1754 });
+    expect(await inkShare(page, card)).toBeGreaterThan(0.03);
+    await page.close();
+  });
+
+  it('a reload brings the last design back', async () => {
+    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    await page.getByRole('textbox', { name: /^Ra/ }).fill('47k');
+    await page.waitForTimeout(700); // autosave waits 400 ms after the last change
+    await page.reload();
+    await page.waitForSelector('.layer-curves path');
+    expect(await page.getByRole('textbox', { name: /^Ra/ }).inputValue()).toBe('47k');
+    await page.close();
+  });
+
+  it('undo after a drag restores the previous Ra and Rk', async () => {
+    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const ra = await page.getByRole('textbox', { name: /^Ra/ }).inputValue();
+    const rk = await page.getByRole('textbox', { name: /^Rk/ }).inputValue();
+    const box = (await page.getByRole('slider', { name: /operating point/i }).boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.down();
+    for (let k = 1; k <= 8; k++) await page.mouse.move(box.x + box.width / 2 + k * 9, box.y + box.height / 2 - k * 4);
+    await page.mouse.up();
+    await expect.poll(() => page.getByRole('textbox', { name: /^Ra/ }).inputValue()).not.toBe(ra);
+    await page.getByRole('button', { name: 'Undo' }).click();
+    expect(await page.getByRole('textbox', { name: /^Ra/ }).inputValue()).toBe(ra);
+    expect(await page.getByRole('textbox', { name: /^Rk/ }).inputValue()).toBe(rk);
+    await page.close();
+  });
+
+  it('a share link opened in a fresh browser shows the same design', async () => {
+    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    await page.getByRole('textbox', { name: /^Ra/ }).fill('39k');
+    await page.getByRole('textbox', { name: 'Design title' }).fill('Shared by a colleague');
+    await page.getByRole('button', { name: 'Share link' }).click();
+    const link = await page.getByRole('textbox', { name: 'Share link for this design' }).inputValue();
+    expect(link).toMatch(/#design=/);
+    await page.close();
+    const fresh = await openBrowser();
+    try {
+      const other = await openWorkbench(fresh, link);
+      expect(await other.page.getByRole('textbox', { name: /^Ra/ }).inputValue()).toBe('39k');
+      expect(await other.page.getByRole('textbox', { name: 'Design title' }).inputValue()).toBe('Shared by a colleague');
+      expect(other.errors).toEqual([]);
+    } finally {
+      await fresh.close();
+    }
+  });
+});
