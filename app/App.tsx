@@ -13,6 +13,7 @@ import { DesignTitle } from './panels/DesignTitle';
 import { StoreProvider, useWorkbenchStore } from './store/StoreProvider';
 import { useKeeping } from './keep/useKeeping';
 import { ComparePanel } from './panels/ComparePanel';
+import { CustomTubePanel } from './panels/CustomTubePanel';
 import { ExportPanel } from './panels/ExportPanel';
 import { KeepPanel } from './panels/KeepPanel';
 import type { WorkbenchStore } from './store/workbenchStore';
@@ -52,6 +53,7 @@ function Bench() {
             <CircuitValues />
             <Stage2Panel />
             <TubeChooser />
+            <CustomTubePanel />
             <ExportPanel />
           </div>
         </main>

@@ -20,7 +20,7 @@ export type {
 } from './tube/types';
 export { modelOf, recordOf } from './tube/types';
 export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
-export { gridCurrent, cutoffGridVoltage } from './tube/koren';
+export { gridCurrent, cutoffGridVoltage, korenParamsProblem } from './tube/koren';
 export { tubeLibrary, findTube } from './tube/library';
 export { korenPublishedSets } from './tube/korenPublishedSets';
 export { tubeSummary, type TubeSummary } from './tube/tubeSummary';
@@ -73,3 +73,5 @@ export { stageTransfer, type StageTransfer, type TransferSample } from './signal
 export { distortionSweep, type LevelThd } from './signal/distortionSweep';
 export { harmonicAmplitudes, fftInPlace } from './signal/fft';
 export { transferCurve, swingPath } from './signal/transferCurve';
+export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPointError } from './fit/fitTriode';
+export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';

@@ -1,4 +1,5 @@
-import { findTube, type PreferredSeries } from '../../src/index';
+import type { PreferredSeries } from '../../src/index';
+import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
 
 /**
@@ -42,7 +43,7 @@ const num = (min: number, max: number, unit: string): Check => (v) =>
 const numOrNull = (min: number, max: number, unit: string): Check => (v) => (v === null ? null : num(min, max, unit)(v));
 const bool: Check = (v) => (typeof v === 'boolean' ? null : 'must be true or false');
 const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'string' && options.includes(v) ? null : `must be one of ${options.join(', ')}`);
-const tubeId: Check = (v) => (typeof v === 'string' && findTube(v) ? null : 'must name a tube in the library');
+const tubeId: Check = (v) => (typeof v === 'string' && lookupTube(v) ? null : 'must name a tube in the library or one of yours kept in this browser');
 
 const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2'>, Check> = {
   tubeId,
@@ -105,7 +106,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     if (problem) return { ok: false, message: `design.stage2.${key} ${problem} (found ${quote(s2[key])}). Nothing was opened.` };
   }
   const design: BenchDesign = {
-    tubeId: findTube(d.tubeId as string)!.id,
+    tubeId: lookupTube(d.tubeId as string)!.id,
     bplus: d.bplus as number,
     ra: d.ra as number,
     rk: d.rk as number,
@@ -121,7 +122,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     levelRms: d.levelRms as number,
     stage2: {
       kind: s2.kind as Stage2Design['kind'],
-      tubeId: findTube(s2.tubeId as string)!.id,
+      tubeId: lookupTube(s2.tubeId as string)!.id,
       ra: s2.ra as number,
       rk: s2.rk as number,
       rg: s2.rg as number,

@@ -36,7 +36,7 @@ export function TubeChooser() {
         {shown.map((t) => (
           <label key={t.id} className={t.id === current ? 'tube-option chosen' : 'tube-option'} title={t.description}>
             <input type="radio" name="tube" value={t.id} checked={t.id === current} onChange={() => chooseTube(t.id)} />
-            <span className="tube-id">{t.id}</span>
+            <span className="tube-id">{t.id}{t.userMade ? <span className="yours"> · yours</span> : null}</span>
             <span className="tube-figures">
               μ {plain(t.mu, 2)} · rp {ohms(t.rp)} · gm {mAPerV(t.gm)} · {t.maxPlateDissipation} W
             </span>

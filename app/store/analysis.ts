@@ -1,6 +1,5 @@
 import {
   curveSheet,
-  findTube,
   normalizeStage,
   plateExtent,
   solveStage,
@@ -14,6 +13,7 @@ import {
   type StageSolution,
   type TubeRecord,
 } from '../../src/index';
+import { lookupTube } from '../keep/customTubes';
 import { analyzeSignal, type SignalAnalysis } from './signalAnalysis';
 
 /** The design as the bench holds it: what the user chose, in SI units. */
@@ -68,7 +68,7 @@ export interface Analysis {
  * pins the chart window, as while B+ is being dragged.
  */
 export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false): ({ ok: true } & Analysis) | Failure {
-  const tube = findTube(design.tubeId);
+  const tube = lookupTube(design.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library`, field: 'tube' };
   const stage = stageDesignOf(design, tube);
   const solution = solveStage(stage);

@@ -1,5 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, findTube, type Failure, type PlateExtent } from '../../src/index';
+import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, type Failure, type PlateExtent } from '../../src/index';
+import { lookupTube } from '../keep/customTubes';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -38,8 +39,8 @@ export function rivalDesign(d: BenchDesign, r: Rival): BenchDesign {
 
 /** The chart window covering both tubes at this B+, so both families share one pair of axes. */
 export function sharedWindow(d: BenchDesign, r: Rival): PlateExtent | undefined {
-  const a = findTube(d.tubeId);
-  const b = findTube(r.tubeId);
+  const a = lookupTube(d.tubeId);
+  const b = lookupTube(r.tubeId);
   if (!r.on || !a || !b) return undefined;
   const ea = plateExtent(a, d.bplus);
   const eb = plateExtent(b, d.bplus);

@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import { tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeRival, sharedWindow } from './compareSlice';
+import { customTubes } from '../keep/customTubes';
 import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 
 /** Longest design title kept, in characters. */
@@ -21,6 +22,8 @@ export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2', string>>
 export interface DesignSlice {
   /** The chooser's list: every available tube with its key figures (computed once by the model). */
   tubes: readonly TubeSummary[];
+  /** Re-reads the tube list after the user saved or removed a tube of their own. */
+  refreshTubes: () => void;
   design: BenchDesign;
   /** The design's name, for the page and the build card. */
   title: string;
@@ -60,9 +63,11 @@ function initialAnalysis(): Analysis {
 }
 
 const LIBRARY_SUMMARIES: readonly TubeSummary[] = tubeLibrary.map(tubeSummary);
+const allSummaries = () => [...LIBRARY_SUMMARIES, ...customTubes().map(tubeSummary)];
 
 export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice> = (set, get) => ({
-  tubes: LIBRARY_SUMMARIES,
+  tubes: allSummaries(),
+  refreshTubes: () => set({ tubes: allSummaries() }),
   design: DEMO_DESIGN,
   title: DEMO_TITLE,
   setTitle: (title) => set({ title: title.slice(0, MAX_TITLE_LENGTH) }),

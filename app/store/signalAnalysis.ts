@@ -3,7 +3,6 @@ import {
   curveSheet,
   distortionOf,
   distortionSweep,
-  findTube,
   logFrequencies,
   responseOf,
   solveChain,
@@ -25,6 +24,7 @@ import {
   type SwingResult,
   type TransferSample,
 } from '../../src/index';
+import { lookupTube } from '../keep/customTubes';
 import type { BenchDesign } from './analysis';
 
 /** What the signal views show; the store asks the model for all of it. */
@@ -50,7 +50,7 @@ export const RESPONSE_FREQUENCIES = logFrequencies(1, 1e6, 15);
 
 function chainLinks(stage1: StageDesign, d: BenchDesign): ChainLink[] | null {
   const s2 = d.stage2;
-  const tube = findTube(s2.tubeId);
+  const tube = lookupTube(s2.tubeId);
   if (s2.kind === 'none' || !tube) return null;
   // The chain solver applies the second stage's loading to stage 1 itself.
   const first: ChainLink = { kind: 'common-cathode', ...stage1, rl: Infinity };
@@ -79,7 +79,7 @@ export function analyzeSignal(s: SolvedStage, stage1: StageDesign, d: BenchDesig
   const chain = links ? solveChain(links) : null;
   let stage2: SignalAnalysis['stage2'] = null;
   if (chain?.ok && chain.links[1]) {
-    const tube = findTube(d.stage2.tubeId)!;
+    const tube = lookupTube(d.stage2.tubeId)!;
     const op = chain.links[1].op;
     const sheet = prev?.stage2 && prev.stage2.tubeId === tube.id && prev.stage2.sheet.extent.vmax >= d.bplus ? prev.stage2.sheet : curveSheet(tube, d.bplus);
     stage2 = { sheet, point: { v: op.vpk, i: op.ia }, tubeId: tube.id };

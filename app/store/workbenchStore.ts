@@ -2,11 +2,12 @@ import { createStore, type StoreApi } from 'zustand/vanilla';
 import { createDesignSlice, type DesignSlice } from './designSlice';
 import { createDragSlice, type DragSlice } from './dragSlice';
 import { createCompareSlice, type CompareSlice } from './compareSlice';
+import { createCustomSlice, type CustomSlice } from './customSlice';
 import { createHistorySlice, recordHistory, type HistorySlice } from './historySlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
 
 /** The whole workbench state: the slices, combined once. */
-export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice;
+export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice;
 export type WorkbenchStore = StoreApi<WorkbenchState>;
 
 export interface StoreOptions {
@@ -22,6 +23,7 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createViewSlice(...a),
     ...createHistorySlice(...a),
     ...createCompareSlice(...a),
+    ...createCustomSlice(...a),
   }));
   recordHistory(store, options.now);
   return store;

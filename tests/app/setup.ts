@@ -1,9 +1,11 @@
 import { cleanup } from '@testing-library/react';
 import { afterEach, beforeEach } from 'vitest';
+import { resetCustomTubes } from '../../app/keep/customTubes';
 
 // Each test starts as a first visit: no autosave, no shelf, no shared link.
 beforeEach(() => {
   localStorage.clear();
+  resetCustomTubes();
   history.replaceState(null, '', '/');
 });
 

@@ -34,7 +34,7 @@ describe('design files', () => {
     ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 1\. Nothing was opened\.$/],
     ['a wrong value', variant((f) => { f.design.ra = -5; }), /^design\.ra must be a number from 100 to 10000000 Ω \(found -5\)\. Nothing was opened\.$/],
     ['a wrong type', variant((f) => { f.design.bypassed = 'yes'; }), /^design\.bypassed must be true or false \(found "yes"\)\. Nothing was opened\.$/],
-    ['an unknown tube', variant((f) => { f.design.tubeId = 'XYZ99'; }), /^design\.tubeId must name a tube in the library \(found "XYZ99"\)\. Nothing was opened\.$/],
+    ['an unknown tube', variant((f) => { f.design.tubeId = 'XYZ99'; }), /^design\.tubeId must name a tube in the library or one of yours kept in this browser \(found "XYZ99"\)\. Nothing was opened\.$/],
     ['no second stage', variant((f) => { delete f.design.stage2; }), /^design\.stage2 is missing\. Nothing was opened\.$/],
   ])('%s gets its own message', (_label, text, message) => {
     const r = readDesignFile(text);

@@ -1,0 +1,128 @@
+import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, triode, tubeLibrary, type KorenTriodeParams, type TubeRecord } from '../../src/index';
+
+/**
+ * Tubes the user made by fitting points: kept in this browser, exportable and
+ * importable as JSON (format "quiescent-tubes", version 1), and usable wherever
+ * a library tube is. Each is marked user-made.
+ */
+export interface CustomTubeSpec {
+  readonly name: string;
+  readonly params: KorenTriodeParams;
+  readonly maxPlateVoltage: number;
+  readonly maxPlateDissipation: number;
+  readonly maxHeaterCathodeVoltage: number;
+  /** The points it was fitted to, SI units, for showing the fit again. */
+  readonly points: readonly { va: number; vg: number; ia: number }[];
+  readonly rmsPercent: number;
+}
+
+const KEY = 'quiescent.custom-tubes';
+export const TUBES_FORMAT = 'quiescent-tubes';
+
+export function customRecord(spec: CustomTubeSpec): TubeRecord {
+  const record: TubeRecord = {
+    kind: 'tube',
+    id: spec.name,
+    description: `Yours: fitted to ${spec.points.length} points (RMS error ${spec.rmsPercent.toFixed(1)} %).`,
+    model: triode(spec.params, DEFAULT_GRID_RESISTANCE),
+    fit: { method: 'fitted in Quiescent to the user\'s points', rmsPercent: spec.rmsPercent, worst: '' },
+    directlyHeated: false,
+    heaters: [{ wiring: 'single', volts: 6.3, amps: 0 }],
+    ratings: { maxPlateVoltage: spec.maxPlateVoltage, maxPlateDissipation: spec.maxPlateDissipation, maxHeaterCathodeVoltage: spec.maxHeaterCathodeVoltage, source: 'entered by the user' },
+    capacitances: { cgk: 0, cgp: 0, cpk: 0, source: 'not given' },
+    typical: spec.points.length > 0 ? [{ va: spec.points[0]!.va, vg: spec.points[0]!.vg, ia: spec.points[0]!.ia, source: 'user point' }] : [],
+    userMade: true,
+  };
+  return Object.freeze(record);
+}
+
+let specs: CustomTubeSpec[] = load();
+
+function load(): CustomTubeSpec[] {
+  try {
+    const r = readTubesFile(globalThis.localStorage?.getItem(KEY) ?? '');
+    return r.ok ? r.specs : [];
+  } catch {
+    return [];
+  }
+}
+
+function persist(): void {
+  try {
+    globalThis.localStorage?.setItem(KEY, writeTubesFile(specs));
+  } catch {
+    /* storage full or blocked */
+  }
+}
+
+export function customTubes(): TubeRecord[] {
+  return specs.map(customRecord);
+}
+
+export function customSpecs(): readonly CustomTubeSpec[] {
+  return specs;
+}
+
+/** A tube by id: the library first, then the user's own. */
+export function lookupTube(id: string): TubeRecord | undefined {
+  return findTube(id) ?? customTubes().find((t) => t.id === id);
+}
+
+/** Checks a name for a new custom tube: a message, or null when it may be used. */
+export function nameProblem(name: string): string | null {
+  const n = name.trim();
+  if (n.length === 0) return 'Give the tube a name';
+  if (n.length > 40) return 'A tube name is at most 40 characters';
+  if (tubeLibrary.some((t) => t.id.toUpperCase() === n.toUpperCase())) return `“${n}” is a library tube; choose another name`;
+  return null;
+}
+
+export function saveCustomTube(spec: CustomTubeSpec): void {
+  specs = [...specs.filter((s) => s.name !== spec.name), spec];
+  persist();
+}
+
+export function removeCustomTube(name: string): void {
+  specs = specs.filter((s) => s.name !== name);
+  persist();
+}
+
+/** Test hook: forget every custom tube (storage included). */
+export function resetCustomTubes(): void {
+  specs = [];
+  persist();
+}
+
+export function writeTubesFile(list: readonly CustomTubeSpec[]): string {
+  return JSON.stringify({ format: TUBES_FORMAT, version: 1, tubes: list }, null, 2);
+}
+
+export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[] } | { ok: false; message: string } {
+  if (text.length > 1_000_000) return { ok: false, message: 'A tubes file is at most 1 MB.' };
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    return { ok: false, message: `The file is not complete JSON: ${(e as Error).message}` };
+  }
+  const r = raw as { format?: unknown; version?: unknown; tubes?: unknown };
+  if (!r || r.format !== TUBES_FORMAT) return { ok: false, message: 'This is not a Quiescent tubes file (its "format" is not "quiescent-tubes").' };
+  if (r.version !== 1) return { ok: false, message: `Tubes file version ${String(r.version)} is not one this Quiescent reads (version 1).` };
+  if (!Array.isArray(r.tubes)) return { ok: false, message: 'The file has no "tubes" list.' };
+  const out: CustomTubeSpec[] = [];
+  for (const [k, t] of (r.tubes as Record<string, unknown>[]).entries()) {
+    const where = `Tube ${k + 1}`;
+    if (typeof t?.name !== 'string' || nameProblem(t.name)) return { ok: false, message: `${where}: ${typeof t?.name === 'string' ? nameProblem(t.name) : 'has no name'}` };
+    const p = t.params as KorenTriodeParams | undefined;
+    if (!p || typeof p !== 'object' || korenParamsProblem(p)) return { ok: false, message: `${where} (${t.name}): its Koren parameters are not usable` };
+    const num = (v: unknown, lo: number, hi: number) => typeof v === 'number' && Number.isFinite(v) && v >= lo && v <= hi;
+    if (!num(t.maxPlateVoltage, 1, 10000) || !num(t.maxPlateDissipation, 0.01, 1000) || !num(t.maxHeaterCathodeVoltage, 0, 1000) || !num(t.rmsPercent, 0, 1e6)) {
+      return { ok: false, message: `${where} (${t.name}): ratings must be numbers in range` };
+    }
+    if (!Array.isArray(t.points) || !t.points.every((q: { va?: unknown; vg?: unknown; ia?: unknown }) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 0, 100))) {
+      return { ok: false, message: `${where} (${t.name}): its points must be { va, vg, ia } numbers` };
+    }
+    out.push({ name: t.name, params: { mu: p.mu, ex: p.ex, kg1: p.kg1, kp: p.kp, kvb: p.kvb }, maxPlateVoltage: t.maxPlateVoltage as number, maxPlateDissipation: t.maxPlateDissipation as number, maxHeaterCathodeVoltage: t.maxHeaterCathodeVoltage as number, points: t.points as CustomTubeSpec['points'], rmsPercent: t.rmsPercent as number });
+  }
+  return { ok: true, specs: out };
+}

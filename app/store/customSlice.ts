@@ -1,0 +1,66 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { fitTriode, parseCurveCsv, plateFamily, type CsvLineError, type PlateCurve, type TriodeFit } from '../../src/index';
+import { customSpecs, nameProblem, readTubesFile, removeCustomTube, saveCustomTube, writeTubesFile } from '../keep/customTubes';
+import type { WorkbenchState } from './workbenchStore';
+
+/** Making a tube of one's own: points in, a fitted model out, saved under a name. */
+export interface CustomSlice {
+  custom: {
+    readonly csv: string;
+    readonly lineErrors: readonly CsvLineError[];
+    readonly fit: ({ ok: true } & TriodeFit) | { ok: false; message: string } | null;
+    /** The fitted model's curves at the grid voltages of the points, for drawing over them. */
+    readonly curves: readonly PlateCurve[];
+    readonly points: readonly { va: number; vg: number; ia: number }[];
+    readonly note: string | null;
+  };
+  setCustomCsv: (csv: string) => void;
+  fitCustom: () => void;
+  saveCustom: (name: string, ratings: { maxPlateVoltage: number; maxPlateDissipation: number; maxHeaterCathodeVoltage: number }) => void;
+  removeCustom: (name: string) => void;
+  importCustomTubes: (text: string) => void;
+  exportCustomTubes: () => string;
+}
+
+const EXAMPLE = '# Va (V), Vg (V), Ia (mA), read off a curve sheet\n';
+
+export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice> = (set, get) => ({
+  custom: { csv: EXAMPLE, lineErrors: [], fit: null, curves: [], points: [], note: null },
+
+  setCustomCsv: (csv) => set({ custom: { ...get().custom, csv } }),
+
+  fitCustom: () => {
+    const c = get().custom;
+    const { points, errors } = parseCurveCsv(c.csv);
+    const fit = fitTriode(points);
+    const grids = [...new Set(points.map((p) => p.vg))].sort((a, b) => b - a);
+    const vmax = Math.max(...points.map((p) => p.va), 1) * 1.15;
+    const curves = fit.ok ? plateFamily({ kind: 'triode-model', params: fit.params, gridResistance: 2000 }, grids, vmax, 80) : [];
+    set({ custom: { ...c, lineErrors: errors, fit, curves, points, note: null } });
+  },
+
+  saveCustom: (name, ratings) => {
+    const c = get().custom;
+    const problem = nameProblem(name);
+    if (problem) return set({ custom: { ...c, note: problem } });
+    if (!c.fit?.ok) return set({ custom: { ...c, note: 'Fit the points first.' } });
+    saveCustomTube({ name: name.trim(), params: c.fit.params, ...ratings, points: c.points, rmsPercent: c.fit.rmsPercent });
+    get().refreshTubes();
+    set({ custom: { ...get().custom, note: `Saved “${name.trim()}”: choose it in the tube list (marked “yours”).` } });
+  },
+
+  removeCustom: (name) => {
+    removeCustomTube(name);
+    get().refreshTubes();
+  },
+
+  importCustomTubes: (text) => {
+    const r = readTubesFile(text);
+    if (!r.ok) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.message}` } });
+    for (const spec of r.specs) saveCustomTube(spec);
+    get().refreshTubes();
+    set({ custom: { ...get().custom, note: `Imported ${r.specs.length} tube${r.specs.length === 1 ? '' : 's'}.` } });
+  },
+
+  exportCustomTubes: () => writeTubesFile(customSpecs()),
+});

@@ -1,0 +1,65 @@
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { korenPublishedSets, plateCurrent, triode } from '../../src/index';
+
+/** Points read off a "curve sheet": here made from Koren's published 12AU7 set, in mA as a sheet is read. */
+function sheetCsv(): string {
+  const m = triode(korenPublishedSets['12AU7']!);
+  const lines = ['Va, Vg, Ia'];
+  for (const vg of [0, -4, -8, -12]) for (const va of [60, 120, 180, 240, 300]) {
+    const ia = plateCurrent(m, va, vg) * 1e3;
+    if (ia > 0.05) lines.push(`${va}, ${vg}, ${ia.toFixed(3)}`);
+  }
+  return lines.join('\n');
+}
+
+describe('a tube of your own', () => {
+  it('pastes points, fits, shows the fit, refuses a library name, saves, and is usable in a design and a comparison', async () => {
+    const store = createWorkbenchStore();
+    const user = userEvent.setup();
+    render(<App store={store} />);
+    const panel = within(screen.getByRole('region', { name: 'A tube of your own' }));
+    const csv = panel.getByRole('textbox', { name: /^Points, one per line/ });
+    await user.clear(csv);
+    await user.click(csv);
+    await user.paste(`${sheetCsv()}\n300, -4\n`);
+    await user.click(panel.getByRole('button', { name: 'Fit the model' }));
+    const badLine = sheetCsv().split('\n').length + 1; // the line after the sheet's points
+    expect(panel.getByRole('alert').textContent).toBe(`Line ${badLine}: expected 3 numbers (Va V, Vg V, Ia mA), found 2`);
+    expect(panel.getByTestId('fit-summary').textContent).toMatch(/RMS error 0\.\d\d %/);
+    const f = store.getState().custom.fit;
+    expect(f?.ok && f.params.mu).toBeCloseTo(21.5, 0);
+
+    await user.type(panel.getByRole('textbox', { name: 'Name' }), '12AU7');
+    await user.click(panel.getByRole('button', { name: 'Save as my tube' }));
+    expect(panel.getByRole('status').textContent).toBe('“12AU7” is a library tube; choose another name');
+    await user.clear(panel.getByRole('textbox', { name: 'Name' }));
+    await user.type(panel.getByRole('textbox', { name: 'Name' }), 'Bench 12AU7 no. 3');
+    await user.click(panel.getByRole('button', { name: 'Save as my tube' }));
+
+    await user.click(screen.getByRole('radio', { name: /^Bench 12AU7 no\. 3 · yours/ }));
+    expect(store.getState().design.tubeId).toBe('Bench 12AU7 no. 3');
+    expect(store.getState().analysis.tube.userMade).toBe(true);
+    store.getState().setRival({ on: true, tubeId: '12AU7' });
+    const rival = store.getState().rivalAnalysis;
+    expect(rival && 'solution' in rival && Math.abs(rival.solution.op.ia / store.getState().analysis.solution.op.ia - 1)).toBeLessThan(0.02);
+
+    const exported = store.getState().exportCustomTubes();
+    expect(JSON.parse(exported)).toMatchObject({ format: 'quiescent-tubes', version: 1, tubes: [{ name: 'Bench 12AU7 no. 3' }] });
+    store.getState().removeCustom('Bench 12AU7 no. 3');
+    store.getState().importCustomTubes(exported);
+    expect(store.getState().tubes.some((t) => t.id === 'Bench 12AU7 no. 3' && t.userMade)).toBe(true);
+    store.getState().importCustomTubes('{"format":"quiescent-tubes","version":1,"tubes":[{"name":"EL34-T"}]}');
+    expect(store.getState().custom.note).toBe('Nothing imported: Tube 1: “EL34-T” is a library tube; choose another name');
+  });
+
+  it('points all on one grid voltage get a specific message', async () => {
+    const store = createWorkbenchStore();
+    store.getState().setCustomCsv('100,-2,1\n150,-2,2\n200,-2,3\n250,-2,4\n300,-2,5');
+    store.getState().fitCustom();
+    expect(store.getState().custom.fit).toEqual({ ok: false, reason: 'invalid-input', message: 'All the points are on one grid voltage (-2 V): give points from at least two plate curves so mu can be found' });
+  });
+});
