@@ -6,6 +6,7 @@ import { ChartLegend } from './ChartLegend';
 import { drawAxes, drawFamily, drawGrid, drawLimits } from './drawSheet';
 import { drawOverlay, drawRivalOverlay } from './drawOverlay';
 import { HoverReadout } from './HoverReadout';
+import { CurveDensity } from './CurveDensity';
 import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
 import { useChartBox } from './useChartBox';
@@ -193,6 +194,7 @@ export function PlateChart() {
         </g>
       </svg>
       <HoverReadout />
+      <CurveDensity />
       <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} />
     </div>
   );

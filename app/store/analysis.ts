@@ -1,6 +1,7 @@
 import {
   curveSheet,
   normalizeStage,
+  MAX_FAMILY_CURVES,
   plateExtent,
   solveStage,
   stageOverlay,
@@ -59,6 +60,8 @@ export interface Analysis {
   readonly overlay: StageOverlay;
   readonly sheet: CurveSheet;
   readonly signal: SignalAnalysis;
+  /** The most plate curves the sheet was drawn with. */
+  readonly maxCurves: number;
 }
 
 /**
@@ -67,7 +70,7 @@ export interface Analysis {
  * is reused otherwise, so a drag never rebuilds the curve family). `extent`
  * pins the chart window, as while B+ is being dragged.
  */
-export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false): ({ ok: true } & Analysis) | Failure {
+export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false, maxCurves = MAX_FAMILY_CURVES): ({ ok: true } & Analysis) | Failure {
   const tube = lookupTube(design.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library`, field: 'tube' };
   const stage = stageDesignOf(design, tube);
@@ -76,11 +79,11 @@ export function analyze(design: BenchDesign, prev: Analysis | null, extent?: Pla
   const checked = normalizeStage(stage);
   if ('ok' in checked) return checked;
   const window = extent ?? plateExtent(tube, design.bplus);
-  const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax;
-  const sheet = sameSheet ? prev.sheet : curveSheet(tube, design.bplus, window);
+  const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax && prev.sheet.family.length <= maxCurves && prev.maxCurves === maxCurves;
+  const sheet = sameSheet ? prev.sheet : curveSheet(tube, design.bplus, window, maxCurves);
   const signal = analyzeSignal({ checked, solution }, stage, design, prev?.signal ?? null, light);
   if (signal.chain && !signal.chain.ok) return { ...signal.chain, field: signal.chain.field ?? 'stage2' };
-  return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet, signal };
+  return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet, signal, maxCurves };
 }
 
 /** The model's stage design for the bench's first stage, with its signal parts. */

@@ -47,9 +47,9 @@ export function sharedWindow(d: BenchDesign, r: Rival): PlateExtent | undefined 
   return { vmax: Math.max(ea.vmax, eb.vmax), iaMax: Math.max(ea.iaMax, eb.iaMax) };
 }
 
-export function analyzeRival(d: BenchDesign, r: Rival, prev: Analysis | Failure | null, extent: PlateExtent | undefined, light: boolean): Analysis | Failure | null {
+export function analyzeRival(d: BenchDesign, r: Rival, prev: Analysis | Failure | null, extent: PlateExtent | undefined, light: boolean, maxCurves?: number): Analysis | Failure | null {
   if (!r.on) return null;
-  const a = analyze(rivalDesign(d, r), prev && 'solution' in prev ? prev : null, extent, light);
+  const a = analyze(rivalDesign(d, r), prev && 'solution' in prev ? prev : null, extent, light, maxCurves);
   if (!a.ok) return a;
   const { ok: _ok, ...analysis } = a;
   return analysis;

@@ -41,9 +41,26 @@ export interface DesignSlice {
   setSnap: (on: boolean) => void;
   /** Runs the model on `next`; on success makes it the design and returns null. */
   commit: (next: BenchDesign, opts?: { extent?: PlateExtent; typedField?: FieldName; light?: boolean }) => Failure | null;
+  /** How many plate curves the chart draws at most: 6 (sparse), 12 (normal) or 24 (dense). */
+  curveCount: number;
+  setCurveCount: (n: number) => void;
   setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId'>>) => void;
   /** Makes a whole document (opened file, shared link, shelf) the current design; null on success, else why not. */
   loadDocument: (doc: { title: string; design: BenchDesign }) => Failure | null;
+}
+
+/** How long after the last keystroke the full (signal) analysis runs, ms. */
+export const TYPING_SETTLE_MS = 200;
+const pending = new WeakMap<object, ReturnType<typeof setTimeout>>();
+
+/** Runs the deferred full analysis once typing pauses (one timer per store). */
+function scheduleFullAnalysis(get: () => WorkbenchState): void {
+  const key = get().commit; // stable per store
+  clearTimeout(pending.get(key));
+  pending.set(key, setTimeout(() => {
+    const s = get();
+    if (s.analysis.signal.stale && !s.dragging) s.commit(s.design);
+  }, TYPING_SETTLE_MS));
 }
 
 function withoutError(errors: FieldErrors, key: keyof FieldErrors): FieldErrors {
@@ -78,9 +95,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   commit: (next, opts = {}) => {
     const s = get();
     const extent = opts.extent ?? sharedWindow(next, s.rival);
-    const a = analyze(next, s.analysis, extent, opts.light);
+    const a = analyze(next, s.analysis, extent, opts.light, s.curveCount);
     if (!a.ok) return a;
-    const rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, opts.light ?? false);
+    const rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, opts.light ?? false, s.curveCount);
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
@@ -99,8 +116,10 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       set({ errors: { ...get().errors, [field]: read.message } });
       return;
     }
-    const failure = get().commit(FIELDS[field].put(s.design, read.value), { typedField: field });
+    // Like a drag: the light analysis follows each keystroke; the signal views catch up when typing pauses.
+    const failure = get().commit(FIELDS[field].put(s.design, read.value), { typedField: field, light: true });
     if (failure) set({ errors: { ...get().errors, [field]: failure.message } });
+    else scheduleFullAnalysis(get);
   },
 
   settleField: (field) => {
@@ -115,6 +134,12 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     // Same parts, new tube: what a tube swap in the same socket does.
     const failure = s.commit({ ...s.design, tubeId: id });
     set({ errors: failure ? { ...get().errors, tube: `The ${id} cannot run with these parts: ${failure.message}` } : withoutError(get().errors, 'tube') });
+  },
+
+  curveCount: 12,
+  setCurveCount: (n) => {
+    set({ curveCount: n });
+    get().commit(get().design);
   },
 
   setStage2: (patch) => {

@@ -34,7 +34,7 @@ export function plateFamily(tube: TubeLike, grids: readonly number[], vmax: numb
   return grids.map((vg) => plateCurve(tube, vg, vmax, n));
 }
 
-const NICE_STEPS = [0.1, 0.2, 0.25, 0.5, 1, 2, 2.5, 5, 10, 20, 25, 50, 100];
+const NICE_STEPS = [0.05, 0.1, 0.2, 0.25, 0.5, 1, 2, 2.5, 5, 10, 20, 25, 50, 100];
 /** Most curves a family is drawn with; enough to read, few enough to label. */
 export const MAX_FAMILY_CURVES = 12;
 

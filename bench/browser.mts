@@ -1,0 +1,116 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { gzipSync } from 'node:zlib';
+import type { Page } from 'playwright-core';
+import { build, preview } from 'vite';
+import { openBrowser, openWorkbench } from '../tests/e2e/browser';
+import { stats, type Stats } from './stats.mts';
+
+/**
+ * Interaction cost, measured inside the page so the figure is the work the
+ * page does and not the driver's round trip: for each pointer move, the
+ * time its handler takes plus the next frame's animation callbacks and a
+ * forced style and layout, which is when the moved point, lines and figures
+ * are ready to paint. The wait for the display's next refresh is excluded.
+ */
+const DRAG_SCRIPT = (moves: number) => `(async () => {
+  const el = document.querySelector('.handle-point');
+  const r = el.getBoundingClientRect();
+  const cx = r.x + r.width / 2, cy = r.y + r.height / 2;
+  const fire = (type, x, y) => (type === 'mousedown' ? el : window).dispatchEvent(new MouseEvent(type, { clientX: x, clientY: y, bubbles: true, cancelable: true, view: window, buttons: 1 }));
+  fire('mousedown', cx, cy);
+  await new Promise((res) => requestAnimationFrame(res));
+  const work = [];
+  for (let k = 0; k < ${moves}; k++) {
+    let frameStart = 0;
+    requestAnimationFrame(() => { frameStart = performance.now(); });
+    const t0 = performance.now();
+    fire('mousemove', cx + 60 * Math.sin(k / 20), cy + 40 * Math.cos(k / 17) - 40);
+    const t1 = performance.now();
+    const end = await new Promise((res) => requestAnimationFrame(() => { document.body.getBoundingClientRect(); document.querySelector('[data-figure="ia"]').offsetWidth; res(performance.now()); }));
+    work.push((t1 - t0) + (end - frameStart));
+  }
+  fire('mouseup', cx, cy);
+  await new Promise((res) => setTimeout(res, 300));
+  return work;
+})()`;
+
+const TYPING_SCRIPT = (edits: number) => `(async () => {
+  const input = document.querySelector('input[name="ra"]');
+  const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value').set;
+  const work = [];
+  for (let k = 0; k < ${edits}; k++) {
+    let frameStart = 0;
+    requestAnimationFrame(() => { frameStart = performance.now(); });
+    const t0 = performance.now();
+    setter.call(input, (20 + (k % 40)) + 'k');
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    const t1 = performance.now();
+    const end = await new Promise((res) => requestAnimationFrame(() => { document.body.getBoundingClientRect(); res(performance.now()); }));
+    work.push((t1 - t0) + (end - frameStart));
+  }
+  return work;
+})()`;
+
+const FIRST_CURVE_HOOK = `window.__firstCurve = null;
+new MutationObserver((m, obs) => { if (document.querySelector('.layer-curves path')) { window.__firstCurve = performance.now(); obs.disconnect(); } })
+  .observe(document, { subtree: true, childList: true });`;
+
+async function drag(page: Page, moves = 320): Promise<Stats> {
+  return stats((await page.evaluate(DRAG_SCRIPT(moves))) as number[]);
+}
+
+export interface BrowserResults {
+  readonly dragOneTube: Stats;
+  readonly dragTwoTubes: Stats;
+  readonly typingRa: Stats;
+  readonly dragByCurveCount: Record<string, Stats>;
+  readonly firstCurveMs: Stats;
+  readonly jsGzipBytes: number;
+  readonly cssGzipBytes: number;
+}
+
+export async function benchBrowser(): Promise<BrowserResults> {
+  process.env.NODE_ENV = 'production';
+  await build({ mode: 'production', logLevel: 'error' });
+  const server = await preview({ logLevel: 'error', preview: { port: 0 } });
+  const url = server.resolvedUrls!.local[0]!;
+  const sizes = { js: 0, css: 0 };
+  for (const f of readdirSync('dist/assets')) {
+    const gz = gzipSync(readFileSync(`dist/assets/${f}`)).length;
+    if (f.endsWith('.js')) sizes.js += gz;
+    if (f.endsWith('.css')) sizes.css += gz;
+  }
+  const browser = await openBrowser();
+  try {
+    const { page } = await openWorkbench(browser, url);
+    // Warm-up: the first few hundred moves after loading include the JavaScript engine optimising the
+    // code paths; the figures below are the steady state a builder feels after the first seconds.
+    await drag(page, 300);
+    const dragOneTube = await drag(page);
+    const dragByCurveCount: Record<string, Stats> = {};
+    for (const n of [6, 12, 24]) {
+      await page.getByLabel('Plate curves drawn').selectOption(String(n));
+      dragByCurveCount[n] = await drag(page);
+    }
+    await page.getByLabel('Plate curves drawn').selectOption('12');
+    const typingRa = stats((await page.evaluate(TYPING_SCRIPT(150))) as number[]);
+    await page.getByLabel('Second tube').selectOption('12AX7');
+    await drag(page, 300); // the same warm-up for the comparison's code paths
+    const dragTwoTubes = await drag(page);
+    await page.close();
+
+    const firsts: number[] = [];
+    for (let k = 0; k < 7; k++) {
+      const fresh = await browser.context.newPage();
+      await fresh.addInitScript(FIRST_CURVE_HOOK);
+      await fresh.goto(url);
+      await fresh.waitForFunction(() => (window as unknown as { __firstCurve: number | null }).__firstCurve !== null);
+      firsts.push(await fresh.evaluate(() => (window as unknown as { __firstCurve: number }).__firstCurve));
+      await fresh.close();
+    }
+    return { dragOneTube, dragTwoTubes, typingRa, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+  } finally {
+    await browser.close();
+    await server.close();
+  }
+}

@@ -1,0 +1,64 @@
+import { distortion, findTube, solveStage, swing } from '../src/index';
+import { distortionNetlist, stageNetlist } from '../tests/spice/netlists';
+import { fourierTable, runNgspiceFull } from '../tests/spice/ngspice';
+import { stats, timeIt } from './stats.mts';
+
+/** Ten designs across high-mu, medium-mu and power triodes, bypassed and not, with and without a load. */
+const DESIGNS = [
+  { id: '12AX7', bplus: 250, ra: 100e3, rk: 1500, bypassed: true, rl: Infinity, vbias: 0 },
+  { id: '12AX7', bplus: 300, ra: 220e3, rk: 2700, bypassed: false, rl: 470e3, vbias: 0 },
+  { id: '12AT7', bplus: 250, ra: 47e3, rk: 680, bypassed: true, rl: 220e3, vbias: 0 },
+  { id: '12AU7', bplus: 250, ra: 22e3, rk: 1000, bypassed: true, rl: 100e3, vbias: 0 },
+  { id: '12AU7', bplus: 300, ra: 47e3, rk: 2200, bypassed: false, rl: Infinity, vbias: 0 },
+  { id: '6SN7', bplus: 350, ra: 33e3, rk: 1200, bypassed: true, rl: 220e3, vbias: 0 },
+  { id: '6SL7', bplus: 300, ra: 100e3, rk: 1800, bypassed: true, rl: 470e3, vbias: 0 },
+  { id: '6DJ8', bplus: 150, ra: 8.2e3, rk: 220, bypassed: false, rl: 47e3, vbias: 0 },
+  { id: '300B', bplus: 400, ra: 2.5e3, rk: 820, bypassed: true, rl: Infinity, vbias: 0 },
+  { id: '2A3', bplus: 300, ra: 1e3, rk: 0, bypassed: true, rl: 10e3, vbias: -40 },
+];
+
+export interface SpiceRow {
+  readonly design: string;
+  readonly oursMs: number;
+  readonly ngspiceMs: number;
+  readonly ratio: number;
+  readonly vaErrPercent: number;
+  readonly gainErrPercent: number;
+  readonly h2ErrDb: number;
+  readonly h3ErrDb: number;
+}
+
+const dB = (x: number) => 20 * Math.log10(x);
+
+export function benchNgspice(): SpiceRow[] {
+  return DESIGNS.map((d) => {
+    const tube = findTube(d.id)!;
+    const design = { tube, ...d };
+    const clean = swing(design);
+    if (!clean.ok) throw new Error(clean.message);
+    const inputRms = (clean.inputPeak * 0.6) / Math.SQRT2;
+    // The same figures both ways: operating point, gain, and the harmonics of one drive level.
+    const ours = () => {
+      const s = solveStage(design);
+      const h = distortion(design, { inputRms });
+      if (!s.ok || !h.ok) throw new Error('the model failed');
+      return { s, h };
+    };
+    const oursMs = stats(timeIt(ours, 30, 5)).median;
+    const { s, h } = ours();
+    const t0 = performance.now();
+    const op = runNgspiceFull(stageNetlist({ ...d, params: tube.model.params }, 'gain')).values;
+    const four = fourierTable(runNgspiceFull(distortionNetlist({ ...d, params: tube.model.params }, inputRms * Math.SQRT2)).output);
+    const ngspiceMs = performance.now() - t0;
+    return {
+      design: `${d.id} ${d.bypassed ? 'bypassed' : 'unbypassed'}${Number.isFinite(d.rl) ? `, RL ${d.rl / 1e3}k` : ''}${d.vbias ? ', fixed bias' : ''}`,
+      oursMs,
+      ngspiceMs,
+      ratio: ngspiceMs / oursMs,
+      vaErrPercent: Math.abs(s.op.va / op['v(plate)']! - 1) * 100,
+      gainErrPercent: Math.abs(s.gain / op['vr(out)']! - 1) * 100,
+      h2ErrDb: Math.abs(h.harmonicsDb[0]! - dB(four.get(2)!.normalized)),
+      h3ErrDb: Math.abs(h.harmonicsDb[1]! - dB(four.get(3)!.normalized)),
+    };
+  });
+}

@@ -1,0 +1,60 @@
+/**
+ * `npm run bench`: model speed in Node, interaction and load in Chromium on
+ * the production build, and Quiescent side by side with ngspice. Writes
+ * bench/results.json and prints a table with each budget. Not a test: it
+ * never fails a build; a missed budget is printed as such.
+ */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
+import { benchBrowser, type BrowserResults } from './browser.mts';
+import { benchModel } from './model.mts';
+import { benchNgspice, type SpiceRow } from './ngspice.mts';
+import { ms, type Stats } from './stats.mts';
+import { ngspiceAvailable } from '../tests/spice/ngspice';
+
+const line = (label: string, s: Stats, budget?: { value: number; on: 'median' | 'p95' }) => {
+  const verdict = budget ? (s[budget.on] <= budget.value ? `  within ${budget.on} budget ${ms(budget.value)}` : `  MISSES ${budget.on} budget ${ms(budget.value)}`) : '';
+  console.log(`${label.padEnd(44)} median ${ms(s.median).padStart(10)}  p95 ${ms(s.p95).padStart(10)}  (min ${ms(s.min)}, max ${ms(s.max)}, n=${s.n})${verdict}`);
+};
+
+console.log('\nModel (Node)');
+const model = benchModel();
+line('solveStage', model.solveStage);
+line('full one-stage analysis', model.fullAnalysis, { value: 2, on: 'median' });
+line('plate-curve family (sheet)', model.plateFamily);
+line('fit of 200 points', model.fit200, { value: 300, on: 'median' });
+for (const [n, s] of Object.entries(model.fftScaling)) line(`  full analysis, FFT of ${n} points`, s);
+
+let browser: BrowserResults | null = null;
+if (existsSync('/usr/bin/chromium')) {
+  console.log('\nInteraction and load (Chromium, production build)');
+  browser = await benchBrowser();
+  line('drag, one tube (move to frame ready)', browser.dragOneTube, { value: 8, on: 'p95' });
+  line('drag, two tubes compared', browser.dragTwoTubes, { value: 8, on: 'p95' });
+  line('typing a new Ra', browser.typingRa, { value: 8, on: 'p95' });
+  for (const [n, s] of Object.entries(browser.dragByCurveCount)) line(`  drag with up to ${n} curves`, s);
+  line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });
+  console.log(`${'production JS, gzipped'.padEnd(44)} ${(browser.jsGzipBytes / 1024).toFixed(1)} kB  ${browser.jsGzipBytes <= 200 * 1024 ? 'within' : 'MISSES'} budget 200 kB`);
+  console.log(`${'production CSS, gzipped'.padEnd(44)} ${(browser.cssGzipBytes / 1024).toFixed(1)} kB`);
+} else {
+  console.log('\n!!! Chromium is missing (sudo apt-get install -y chromium): interaction and load not measured.');
+}
+
+let spice: SpiceRow[] | null = null;
+if (ngspiceAvailable()) {
+  console.log('\nSide by side with ngspice (operating point, gain, H2 and H3 of one drive level)');
+  spice = benchNgspice();
+  console.log(`${'design'.padEnd(34)} ${'ours'.padStart(10)} ${'ngspice'.padStart(11)} ${'ratio'.padStart(7)}   Va err  gain err  H2 err  H3 err`);
+  for (const r of spice) {
+    console.log(`${r.design.padEnd(34)} ${ms(r.oursMs).padStart(10)} ${ms(r.ngspiceMs).padStart(11)} ${`${Math.round(r.ratio)}×`.padStart(7)}   ${r.vaErrPercent.toFixed(3)} %  ${r.gainErrPercent.toFixed(3)} %  ${r.h2ErrDb.toFixed(2)} dB  ${r.h3ErrDb.toFixed(2)} dB`);
+  }
+  const slowest = Math.min(...spice.map((r) => r.ratio));
+  const worst = { va: Math.max(...spice.map((r) => r.vaErrPercent)), gain: Math.max(...spice.map((r) => r.gainErrPercent)), h2: Math.max(...spice.map((r) => r.h2ErrDb)), h3: Math.max(...spice.map((r) => r.h3ErrDb)) };
+  console.log(`least speed-up ${Math.round(slowest)}× (${slowest >= 100 ? 'within' : 'MISSES'} budget 100×); largest disagreement: Va ${worst.va.toFixed(3)} %, gain ${worst.gain.toFixed(3)} %, H2 ${worst.h2.toFixed(2)} dB, H3 ${worst.h3.toFixed(2)} dB`);
+} else {
+  console.log('\n!!! ngspice is missing (sudo apt-get install -y ngspice): no side-by-side run.');
+}
+
+mkdirSync('bench', { recursive: true });
+writeFileSync('bench/results.json', JSON.stringify({ date: new Date().toISOString(), machine: `${process.platform} ${process.arch}, node ${process.version}`, model, browser, spice }, null, 2));
+console.log('\nWrote bench/results.json');
