@@ -12,6 +12,7 @@ import { Stage2Panel } from './signal/Stage2Panel';
 import { DesignTitle } from './panels/DesignTitle';
 import { StoreProvider, useWorkbenchStore } from './store/StoreProvider';
 import { useKeeping } from './keep/useKeeping';
+import { BuildSheetPanel } from './panels/BuildSheetPanel';
 import { ComparePanel } from './panels/ComparePanel';
 import { CustomTubePanel } from './panels/CustomTubePanel';
 import { ExportPanel } from './panels/ExportPanel';
@@ -46,6 +47,7 @@ function Bench() {
             <SignalPanel />
             <SignalCharts />
             <ComparePanel />
+            <BuildSheetPanel />
           </div>
           <div className="bench-side">
             <KeepPanel />

@@ -4,7 +4,8 @@ import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachDrag } from './attachDrag';
 import { ChartLegend } from './ChartLegend';
 import { drawAxes, drawFamily, drawGrid, drawLimits } from './drawSheet';
-import { drawOverlay, drawRivalOverlay } from './drawOverlay';
+import { drawOverlay, drawRivalOverlay, drawSpread } from './drawOverlay';
+import { buildSheetOf } from '../store/buildSheet';
 import { HoverReadout } from './HoverReadout';
 import { CurveDensity } from './CurveDensity';
 import { PALETTE } from './palette';
@@ -39,6 +40,8 @@ export function PlateChart() {
   const bplusHandle = useRef<SVGGElement>(null);
   const rivalCurves = useRef<SVGGElement>(null);
   const rivalHandle = useRef<SVGGElement>(null);
+  const spreadLayer = useRef<SVGGElement>(null);
+  const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging ? buildSheetOf(s).spread : null));
 
   useEffect(() => {
     if (!grid.current || !curves.current || !limits.current || !axes.current) return;
@@ -47,6 +50,11 @@ export function PlateChart() {
     drawLimits(limits.current, sheet, scales);
     drawAxes(axes.current, scales);
   }, [sheet, scales]);
+
+  useEffect(() => {
+    if (!spreadLayer.current) return;
+    drawSpread(spreadLayer.current, spread && spread.ok ? spread.samples.map((p) => ({ v: p.vpk, i: p.ia })) : [], scales);
+  }, [spread, scales]);
 
   useEffect(() => {
     if (!rivalCurves.current) return;
@@ -153,6 +161,7 @@ export function PlateChart() {
           onPointerMove={onHover}
           onPointerLeave={() => store.getState().clearHover()}
         />
+        <g ref={spreadLayer} className="layer-spread" pointerEvents="none" />
         <g ref={lines} className="layer-lines" pointerEvents="none" />
         <g
           ref={bplusHandle}

@@ -42,3 +42,16 @@ export function drawRivalOverlay(lines: SVGGElement, handle: SVGGElement, overla
   linePath(lines, 'rival-bias', overlay?.bias ?? [], scales, { stroke: PALETTE.rival, width: 1.4, dash: '1 3' });
   if (overlay) handle.setAttribute('transform', `translate(${scales.x(overlay.point.v)},${scales.y(overlay.point.i)})`);
 }
+
+/** The production-spread cloud: one faint dot per simulated build around the operating point. */
+export function drawSpread(layer: SVGGElement, points: readonly PlanePoint[], scales: PlateScales): void {
+  select(layer)
+    .selectAll<SVGCircleElement, PlanePoint>('circle')
+    .data(points)
+    .join('circle')
+    .attr('cx', (p) => scales.x(p.v))
+    .attr('cy', (p) => scales.y(p.i))
+    .attr('r', 1.8)
+    .attr('fill', PALETTE.point)
+    .attr('fill-opacity', 0.35);
+}

@@ -1,6 +1,7 @@
 import { formatValue } from '../../src/index';
 import { decibels, farads, mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../panels/ComparePanel';
+import { buildSheetOf } from '../store/buildSheet';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 
@@ -43,6 +44,15 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
     },
     { heading: 'Ratings', lines: sol.findings.map((f) => `${f.severity.toUpperCase()}: ${f.message}`) },
   ];
+  const build = buildSheetOf(s);
+  sections.push({
+    heading: 'Parts to order',
+    lines: [
+      ...build.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
+      ...build.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
+      build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
+    ].filter(Boolean),
+  });
   const r = s.rivalAnalysis;
   if (s.rival.on && r && 'solution' in r) {
     sections.push({
@@ -107,7 +117,8 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
   ctx.fillStyle = '#1d2329';
   // The design's own figures on the left; a comparison, when there is one, in a column on the right.
   const sections = cardSections(s);
-  const columns = sections.length > 4 ? [sections.slice(0, 4), sections.slice(4)] : [sections];
+  // The design's own figures on the left; parts and any comparison on the right.
+  const columns = [sections.slice(0, 4), sections.slice(4)];
   const colWidth = columns.length > 1 ? cw / 2 - 12 : cw;
   const top = y;
   columns.forEach((column, c) => {

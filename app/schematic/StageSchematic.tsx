@@ -29,7 +29,7 @@ function labelSpots(kind: BenchDesign['stage2']['kind']): Partial<Record<FieldNa
     ck: { x: X1 + 66, y: 326, anchor: 'start' },
     rsource: { x: 45, y: GRID_Y - 16, anchor: 'middle' },
     cin: { x: 92, y: GRID_Y - 20, anchor: 'middle' },
-    rg: { x: 114, y: 286, anchor: 'end' },
+    rg: { x: 114, y: 252, anchor: 'end' },
     cout: { x: out.x - 24, y: out.yC - 20, anchor: 'middle' },
     rl: { x: out.x + 14, y: 290, anchor: 'start' },
     ...(kind === 'none' ? {} : { rk2: { x: X2 - 14, y: 302, anchor: 'end' as const } }),

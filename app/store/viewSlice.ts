@@ -1,6 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { gridVoltageAt } from '../../src/index';
 import type { WorkbenchState } from './workbenchStore';
+import { DEFAULT_BUILD, type BuildInputs } from './buildSheet';
 
 /** What the cursor is over on the plate chart: the plane point and the grid voltage the model gives there. */
 export interface HoverReadout {
@@ -11,6 +12,9 @@ export interface HoverReadout {
 }
 
 export interface ViewSlice {
+  /** The builder's inputs to the build sheet (corner, heater supply, B+ filter). */
+  buildInputs: BuildInputs;
+  setBuildInputs: (patch: Partial<BuildInputs>) => void;
   /** The last message about keeping designs (opened, saved, refused and why). */
   keepNote: { readonly kind: 'ok' | 'error'; readonly text: string } | null;
   setKeepNote: (note: ViewSlice['keepNote']) => void;
@@ -20,6 +24,8 @@ export interface ViewSlice {
 }
 
 export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = (set, get) => ({
+  buildInputs: DEFAULT_BUILD,
+  setBuildInputs: (patch) => set({ buildInputs: { ...get().buildInputs, ...patch } }),
   keepNote: null,
   setKeepNote: (keepNote) => set({ keepNote }),
   hover: null,

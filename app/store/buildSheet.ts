@@ -1,0 +1,107 @@
+import {
+  capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
+  solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
+  type Failure, type HeaterOption, type HeaterPlan, type ResistorLine, type Spread, type TubeRecord,
+} from '../../src/index';
+import { lookupTube } from '../keep/customTubes';
+import { stageDesignOf } from './analysis';
+import type { WorkbenchState } from './workbenchStore';
+
+/** The builder's own inputs for the build sheet. */
+export interface BuildInputs {
+  readonly cornerHz: number;
+  readonly heaterSupplyVolts: number;
+  /** Heater wiring chosen per tube type (by id); default the first option. */
+  readonly heaterWiring: Readonly<Record<string, string>>;
+  readonly railVolts: number;
+  readonly filterR: number;
+  readonly filterC: number;
+  readonly showSpread: boolean;
+}
+
+export const DEFAULT_BUILD: BuildInputs = { cornerHz: 5, heaterSupplyVolts: 12.6, heaterWiring: {}, railVolts: 300, filterR: 4.7e3, filterC: 47e-6, showSpread: true };
+
+export interface BuildSheet {
+  readonly resistors: readonly ResistorLine[];
+  readonly capacitors: readonly CapacitorLine[];
+  readonly forCorner: ({ ok: true; cin: CapacitorForCorner | null; cout: CapacitorForCorner | null; ck: CapacitorForCorner | null }) | Failure;
+  readonly spread: ({ ok: true } & Spread) | Failure;
+  readonly tubes: readonly { tube: TubeRecord; options: readonly HeaterOption[]; chosen: HeaterOption }[];
+  readonly heaters: ({ ok: true } & HeaterPlan) | Failure;
+  readonly dropper: ({ ok: true } & DroppingResistor) | Failure | null;
+  readonly elevation: { ok: true; lo: number; hi: number; suggested: number; groundedOk: boolean } | Failure;
+  readonly filter: ({ ok: true } & DecouplingResult) | Failure;
+  readonly totalBplusAmps: number;
+}
+
+const cache = new WeakMap<object, { inputs: BuildInputs; sheet: BuildSheet }>();
+/** The last sheet per store (keyed by its stable commit action), served while a drag or typing is under way. */
+const lastSheet = new WeakMap<object, BuildSheet>();
+
+/**
+ * The build sheet of the current design, computed by the model once per
+ * (analysis, inputs) pair and remembered, so panels can read it freely.
+ */
+export function buildSheetOf(s: WorkbenchState): BuildSheet {
+  const hit = cache.get(s.analysis);
+  if (hit && hit.inputs === s.buildInputs) return hit.sheet;
+  // Like the signal views, the sheet is redone when the drag or the typing pauses, not on every frame.
+  const last = lastSheet.get(s.commit);
+  if (last && (s.dragging || s.analysis.signal.stale)) return last;
+  const sheet = compute(s);
+  cache.set(s.analysis, { inputs: s.buildInputs, sheet });
+  lastSheet.set(s.commit, sheet);
+  return sheet;
+}
+
+function compute(s: WorkbenchState): BuildSheet {
+  const inp = s.buildInputs;
+  const d = s.design;
+  const tube1 = s.analysis.tube;
+  const stage = stageDesignOf(d, tube1);
+  const checked = normalizeStage(stage);
+  if ('ok' in checked) throw new Error(checked.message);
+  const sol = s.analysis.solution;
+  const parts = stagePartsList(checked, sol, d.series);
+  const resistors = [...parts.resistors];
+  const capacitors = [...parts.capacitors];
+  const link = s.analysis.signal.chain?.ok ? s.analysis.signal.chain.links[1] : undefined;
+  if (link) {
+    const ia2 = link.op.ia;
+    if (link.kind === 'common-cathode') {
+      resistors.push(resistorLine('Ra2', 'stage 2 plate load', d.stage2.ra, ia2, d.series));
+      resistors.push(resistorLine('Rg2', 'stage 2 grid leak', d.stage2.rg, 0, d.series));
+      capacitors.push(capacitorLine('Cc', 'between the stages', null, sol.op.va, d.bplus, '+ to stage 1\'s plate'));
+    }
+    resistors.push(resistorLine('Rk2', link.kind === 'follower' ? 'follower cathode load' : 'stage 2 cathode bias', d.stage2.rk, ia2, d.series));
+  }
+  const tubeIds = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : [])])];
+  const tubes = tubeIds.map((id) => lookupTube(id)!).map((tube) => {
+    const chosen = tube.heaters.find((h) => h.wiring === inp.heaterWiring[tube.id]) ?? tube.heaters[0]!;
+    return { tube, options: tube.heaters, chosen };
+  });
+  const heaters = heaterTotals(tubes.map((t) => t.chosen));
+  const dropper = heaters.ok ? droppingResistor(heaters, inp.heaterSupplyVolts, d.series) : null;
+  const stages = [{ name: 'stage 1', vk: sol.op.vk, maxVhk: tube1.directlyHeated ? null : tube1.ratings.maxHeaterCathodeVoltage }];
+  if (link) {
+    const t2 = lookupTube(d.stage2.tubeId)!;
+    stages.push({ name: 'stage 2', vk: link.op.vk, maxVhk: t2.directlyHeated ? null : t2.ratings.maxHeaterCathodeVoltage });
+  }
+  const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0);
+  const filter = decouplingFilter(inp.railVolts, inp.filterR, inp.filterC, (b) => {
+    const r = solveStage({ ...stage, bplus: b });
+    return r.ok ? r.op.ia + (link?.op.ia ?? 0) : null;
+  });
+  return {
+    resistors,
+    capacitors,
+    forCorner: capacitorsForCorner(checked, sol, inp.cornerHz, 'E12'),
+    spread: productionSpread(checked, sol, d.series, { seed: 1, runs: 160 }),
+    tubes,
+    heaters,
+    dropper,
+    elevation: heaterElevation(stages),
+    filter,
+    totalBplusAmps,
+  };
+}

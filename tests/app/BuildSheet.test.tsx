@@ -1,0 +1,43 @@
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+describe('the build sheet', () => {
+  it('lists the parts to order with ratings, draws the spread on the chart, and sizes the heater dropper', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
+    const ra = view.container.querySelector('[data-part-line="Ra"]')!;
+    expect(ra.textContent).toMatch(/^Ra \(plate load\)27 kΩ E24/);
+    expect(view.container.querySelector('[data-part-line="Cout"]')!.textContent).toContain('630 V');
+    expect(view.container.querySelectorAll('.layer-spread circle').length).toBeGreaterThan(100);
+    // (12.6 − 6.3) V / 0.3 A = 21 Ω; nearest E24 by ratio is 22 Ω; heaters then get 12.6 × 21/(21 + 22) = 6.15 V.
+    expect(sheet.getByTestId('dropper').textContent).toMatch(/^Dropping resistor 21 Ω exactly, order 22 Ω \(5 W\): heaters at 6.15 V/);
+    expect(sheet.getByTestId('elevation').textContent).toMatch(/within every rating with the heaters at ground/);
+  });
+
+  it('a heater supply below the heater voltage and a corner of 0 Hz get specific messages', async () => {
+    const store = createWorkbenchStore();
+    const user = userEvent.setup();
+    render(<App store={store} />);
+    const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
+    const supply = sheet.getByLabelText(/^DC heater supply/);
+    await user.clear(supply);
+    await user.type(supply, '5');
+    expect(sheet.getByText('A 5 V supply is below the 6.3 V the heaters need: no resistor can raise it')).toBeTruthy();
+    const corner = sheet.getByLabelText(/^Wanted low corner/);
+    await user.clear(corner);
+    await user.type(corner, '0');
+    expect(sheet.getByText('The corner frequency must be above 0 Hz (got 0 Hz)')).toBeTruthy();
+  });
+
+  it('a follower chain gets an elevation when its cathode sits above the heater–cathode rating', () => {
+    const store = createWorkbenchStore();
+    store.getState().setStage2({ kind: 'follower', tubeId: '12AX7' });
+    store.getState().editField('bplus', '400');
+    render(<App store={store} />);
+    expect(screen.getAllByText(/Elevate the heater supply to about|within every rating/).length).toBe(1);
+  });
+});
