@@ -3,6 +3,7 @@ import type { StageDesign } from '../stage/stageDesign';
 import { solvedStage, type SolvedStage } from './analysisInput';
 import { cabs } from './complex';
 import { logFrequencies, responseAt } from './frequencyResponse';
+import { illinois } from '../numeric/illinois';
 
 export interface Corners {
   /** Lower −3 dB frequency, Hz; null when the response stays flat down to SCAN_LO_HZ (direct coupling). */
@@ -21,36 +22,13 @@ export const SCAN_HI_HZ = 1e9;
 const CORNER_REL_TOL = 1e-9;
 
 /**
- * Frequency between loHz and hiHz where |H| crosses level: the Illinois
- * variant of regula falsi on ln|H| against ln f, which is nearly straight
- * near a corner, so a handful of evaluations reach CORNER_REL_TOL; the
- * bracket is kept, so it cannot wander.
+ * Frequency between loHz and hiHz where |H| crosses level: Illinois regula
+ * falsi on ln|H| against ln f, which is nearly straight near a corner, so a
+ * handful of evaluations reach CORNER_REL_TOL.
  */
 function crossing(s: SolvedStage, loHz: number, hiHz: number, level: number): number {
   const g = (lnF: number) => Math.log(cabs(responseAt(s, Math.exp(lnF))) / level);
-  let a = Math.log(loHz);
-  let b = Math.log(hiHz);
-  let fa = g(a);
-  let fb = g(b);
-  let side = 0;
-  let x = a;
-  for (let k = 0; k < 60; k++) {
-    x = (a * fb - b * fa) / (fb - fa);
-    const fx = g(x);
-    if (Math.abs(fx) < CORNER_REL_TOL || Math.abs(b - a) < CORNER_REL_TOL) break;
-    if (fx * fa > 0) {
-      a = x;
-      fa = fx;
-      if (side === -1) fb /= 2;
-      side = -1;
-    } else {
-      b = x;
-      fb = fx;
-      if (side === 1) fa /= 2;
-      side = 1;
-    }
-  }
-  return Math.exp(x);
+  return Math.exp(illinois(g, Math.log(loHz), Math.log(hiHz), CORNER_REL_TOL));
 }
 
 /** The −3 dB points: where the gain falls to 1/√2 of its largest value, each side of it. */

@@ -3,6 +3,7 @@ import type { StageDesign } from '../stage/stageDesign';
 import { solvedStage, type SolvedStage } from './analysisInput';
 import { harmonicAmplitudes, isPowerOfTwo } from './fft';
 import { stageTransfer, type StageTransfer } from './stageTransfer';
+import { illinois } from '../numeric/illinois';
 import { swingOf, type SwingResult } from './swing';
 
 /** Drive level: the output wanted (rms, across RL or at the plate), or the input given (rms, at the grid). */
@@ -69,32 +70,10 @@ function fundamental(t: StageTransfer, peak: number, n: number): number {
   return (2 * Math.hypot(re, im)) / n;
 }
 
-/** Input peak giving a wanted fundamental output peak: the Illinois variant of regula falsi on [0, clean peak]. */
+/** Input peak giving a wanted fundamental output peak: Illinois regula falsi on [0, clean peak], started from the small-signal estimate. */
 function inputForOutput(t: StageTransfer, target: number, cleanPeak: number, gain: number): number {
-  let a = 0;
-  let fa = -target;
-  let b = cleanPeak;
-  let fb = fundamental(t, b, SEARCH_SAMPLES) - target;
-  let x = Math.min(target / Math.abs(gain), cleanPeak);
-  let side = 0;
-  for (let i = 0; i < 60; i++) {
-    const fx = fundamental(t, x, SEARCH_SAMPLES) - target;
-    if (Math.abs(fx) <= SEARCH_REL_TOL * target) return x;
-    if (fx < 0) {
-      a = x;
-      fa = fx;
-      if (side === -1) fb /= 2;
-      side = -1;
-    } else {
-      b = x;
-      fb = fx;
-      if (side === 1) fa /= 2;
-      side = 1;
-    }
-    x = (a * fb - b * fa) / (fb - fa);
-    if (!(x > a && x < b)) x = 0.5 * (a + b);
-  }
-  return x;
+  const g = (peak: number) => fundamental(t, peak, SEARCH_SAMPLES) - target;
+  return illinois(g, 0, cleanPeak, SEARCH_REL_TOL * target, { fa: -target, start: Math.min(target / Math.abs(gain), cleanPeak) });
 }
 
 export function distortionOf(s: SolvedStage, level: DriveLevel, options: DistortionOptions = {}, precomputed?: { transfer: StageTransfer; swing: SwingResult }): Result<DistortionResult> {
