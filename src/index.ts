@@ -79,3 +79,4 @@ export { stagePartsList, capacitorsForCorner, resistorLine, capacitorLine, TUBE_
 export { productionSpread, seededRandom, type Spread, type SpreadSample } from './build/spread';
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';
+export { parseTypicalCsv } from './fit/parseTypicalCsv';

@@ -1,4 +1,4 @@
-import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, triode, tubeLibrary, type KorenTriodeParams, type TubeRecord } from '../../src/index';
+import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, triode, tubeLibrary, type KorenTriodeParams, type TubeRecord, type TypicalPoint } from '../../src/index';
 
 /**
  * Tubes the user made by fitting points: kept in this browser, exportable and
@@ -14,6 +14,11 @@ export interface CustomTubeSpec {
   /** The points it was fitted to, SI units, for showing the fit again. */
   readonly points: readonly { va: number; vg: number; ia: number }[];
   readonly rmsPercent: number;
+  /** The datasheet typical figures it was fitted to, if any (SI units). */
+  readonly typical?: readonly TypicalPoint[];
+  /** Heater, V and A; interelectrode capacitances, F. Optional: unknown when not given. */
+  readonly heater?: { readonly volts: number; readonly amps: number };
+  readonly caps?: { readonly cgk: number; readonly cgp: number; readonly cpk: number };
 }
 
 const KEY = 'quiescent.custom-tubes';
@@ -23,14 +28,14 @@ export function customRecord(spec: CustomTubeSpec): TubeRecord {
   const record: TubeRecord = {
     kind: 'tube',
     id: spec.name,
-    description: `Yours: fitted to ${spec.points.length} points (RMS error ${spec.rmsPercent.toFixed(1)} %).`,
+    description: `Yours: fitted to ${spec.points.length} points${spec.typical?.length ? ` and ${spec.typical.length} typical figures` : ''} (RMS error ${spec.rmsPercent.toFixed(1)} %).`,
     model: triode(spec.params, DEFAULT_GRID_RESISTANCE),
     fit: { method: 'fitted in Quiescent to the user\'s points', rmsPercent: spec.rmsPercent, worst: '' },
     directlyHeated: false,
-    heaters: [{ wiring: 'single', volts: 6.3, amps: 0 }],
+    heaters: [{ wiring: 'single', volts: spec.heater?.volts ?? 6.3, amps: spec.heater?.amps ?? 0, source: spec.heater ? 'entered by the user' : 'not given' }],
     ratings: { maxPlateVoltage: spec.maxPlateVoltage, maxPlateDissipation: spec.maxPlateDissipation, maxHeaterCathodeVoltage: spec.maxHeaterCathodeVoltage, source: 'entered by the user' },
-    capacitances: { cgk: 0, cgp: 0, cpk: 0, source: 'not given' },
-    typical: spec.points.length > 0 ? [{ va: spec.points[0]!.va, vg: spec.points[0]!.vg, ia: spec.points[0]!.ia, source: 'user point' }] : [],
+    capacitances: spec.caps ? { ...spec.caps, source: 'entered by the user' } : { cgk: 0, cgp: 0, cpk: 0, source: 'not given' },
+    typical: spec.typical?.length ? spec.typical : spec.points.length > 0 ? [{ va: spec.points[0]!.va, vg: spec.points[0]!.vg, ia: spec.points[0]!.ia, source: 'user point' }] : [],
     userMade: true,
   };
   return Object.freeze(record);
@@ -122,7 +127,24 @@ export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[]
     if (!Array.isArray(t.points) || !t.points.every((q: { va?: unknown; vg?: unknown; ia?: unknown }) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 0, 100))) {
       return { ok: false, message: `${where} (${t.name}): its points must be { va, vg, ia } numbers` };
     }
-    out.push({ name: t.name, params: { mu: p.mu, ex: p.ex, kg1: p.kg1, kp: p.kp, kvb: p.kvb }, maxPlateVoltage: t.maxPlateVoltage as number, maxPlateDissipation: t.maxPlateDissipation as number, maxHeaterCathodeVoltage: t.maxHeaterCathodeVoltage as number, points: t.points as CustomTubeSpec['points'], rmsPercent: t.rmsPercent as number });
+    const heater = t.heater as { volts?: unknown; amps?: unknown } | undefined;
+    if (heater !== undefined && !(num(heater?.volts, 0.5, 200) && num(heater?.amps, 0, 50))) return { ok: false, message: `${where} (${t.name}): its heater must give volts and amps in range` };
+    const caps = t.caps as { cgk?: unknown; cgp?: unknown; cpk?: unknown } | undefined;
+    if (caps !== undefined && !(num(caps?.cgk, 0, 1e-9) && num(caps?.cgp, 0, 1e-9) && num(caps?.cpk, 0, 1e-9))) return { ok: false, message: `${where} (${t.name}): its capacitances must be cgk, cgp, cpk in farads` };
+    const typical = t.typical as TypicalPoint[] | undefined;
+    if (typical !== undefined && !(Array.isArray(typical) && typical.every((q) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 1e-9, 100)))) return { ok: false, message: `${where} (${t.name}): its typical figures must be { va, vg, ia } numbers` };
+    out.push({
+      name: t.name,
+      params: { mu: p.mu, ex: p.ex, kg1: p.kg1, kp: p.kp, kvb: p.kvb },
+      maxPlateVoltage: t.maxPlateVoltage as number,
+      maxPlateDissipation: t.maxPlateDissipation as number,
+      maxHeaterCathodeVoltage: t.maxHeaterCathodeVoltage as number,
+      points: t.points as CustomTubeSpec['points'],
+      rmsPercent: t.rmsPercent as number,
+      ...(typical ? { typical: typical.map((q) => ({ ...q, source: 'entered by the user' })) } : {}),
+      ...(heater ? { heater: { volts: heater.volts as number, amps: heater.amps as number } } : {}),
+      ...(caps ? { caps: { cgk: caps.cgk as number, cgp: caps.cgp as number, cpk: caps.cpk as number } } : {}),
+    });
   }
   return { ok: true, specs: out };
 }

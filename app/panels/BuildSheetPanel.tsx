@@ -102,7 +102,7 @@ export function BuildSheetPanel() {
       <p>{`Total B+ current ${milliamps(sheet.totalBplusAmps)}.`}</p>
       {sheet.filter.ok ? (
         <p data-testid="filter">
-          {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}. `}
+          {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}.${sheet.filteredOp ? ` Stage 1 then sits at Va ${volts(sheet.filteredOp.va)}, Ia ${milliamps(sheet.filteredOp.ia)}.` : ''} `}
           <button type="button" onClick={() => { if (sheet.filter.ok) { editField('bplus', sheet.filter.stageBplus.toFixed(1)); settleField('bplus'); } }}>Use this B+ for the stage</button>
         </p>
       ) : <p className="field-error" role="alert">{sheet.filter.message}</p>}

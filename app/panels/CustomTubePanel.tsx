@@ -10,28 +10,37 @@ import { useWorkbench } from '../store/StoreProvider';
 export function CustomTubePanel() {
   const custom = useWorkbench((s) => s.custom);
   const setCsv = useWorkbench((s) => s.setCustomCsv);
+  const setTypical = useWorkbench((s) => s.setTypicalCsv);
   const fit = useWorkbench((s) => s.fitCustom);
   const save = useWorkbench((s) => s.saveCustom);
   const importTubes = useWorkbench((s) => s.importCustomTubes);
   const exportTubes = useWorkbench((s) => s.exportCustomTubes);
   const [name, setName] = useState('');
   const [ratings, setRatings] = useState({ maxPlateVoltage: 300, maxPlateDissipation: 1, maxHeaterCathodeVoltage: 100 });
+  const [extras, setExtras] = useState({ heaterVolts: 6.3, heaterAmps: 0.3, cgkPf: 0, cgpPf: 0, cpkPf: 0 });
+  const extraField = (key: keyof typeof extras, label: string, step = '0.1') => (
+    <label className="field-label">{label}<input type="number" step={step} value={extras[key]} onChange={(e) => setExtras({ ...extras, [key]: Number(e.target.value) })} /></label>
+  );
   const id = useId();
   const f = custom.fit;
 
   const chart = useMemo<XYSpec | null>(() => {
-    if (!f?.ok || custom.points.length === 0) return null;
-    const vmax = Math.max(...custom.points.map((p) => p.va)) * 1.15;
-    const imax = Math.max(...custom.points.map((p) => p.ia)) * 1.2e3;
+    const shown = [...custom.points, ...custom.typical];
+    if (!f?.ok || shown.length === 0) return null;
+    const vmax = Math.max(...shown.map((p) => p.va)) * 1.15;
+    const imax = Math.max(...shown.map((p) => p.ia)) * 1.2e3;
     return {
       width: 330,
       height: 230,
       x: { domain: [0, vmax], label: 'Va (V)' },
       y: { domain: [0, imax], label: 'Ia (mA)' },
       series: custom.curves.map((c) => ({ key: `fit-${c.vg}`, points: c.points.map((p) => ({ x: p.v, y: p.i * 1e3 })), stroke: PALETTE.ink, width: 1.2 })),
-      markers: custom.points.map((p) => ({ x: p.va, y: p.ia * 1e3, color: PALETTE.point })),
+      markers: [
+        ...custom.points.map((p) => ({ x: p.va, y: p.ia * 1e3, color: PALETTE.point })),
+        ...custom.typical.map((p) => ({ x: p.va, y: p.ia * 1e3, color: PALETTE.rival, label: 'typical' })),
+      ],
     };
-  }, [f, custom.curves, custom.points]);
+  }, [f, custom.curves, custom.points, custom.typical]);
 
   return (
     <section className="panel custom-tube" aria-labelledby={`${id}-h`}>
@@ -39,6 +48,8 @@ export function CustomTubePanel() {
       <label htmlFor={`${id}-csv`} className="field-label">Points, one per line: plate voltage (V), grid voltage (V), plate current (mA)</label>
       <textarea id={`${id}-csv`} rows={6} value={custom.csv} spellCheck={false} onChange={(e) => setCsv(e.target.value)} aria-describedby={`${id}-hint`} />
       <p id={`${id}-hint`} className="field-hint">Commas, semicolons, tabs or spaces; a header line and # comments are skipped. Read at least two grid curves.</p>
+      <label htmlFor={`${id}-typ`} className="field-label">And/or the datasheet's typical figures, one point per line: Va (V), Vg (V), Ia (mA), mu, rp (Ω), gm (mA/V); “-” for a figure not given</label>
+      <textarea id={`${id}-typ`} rows={2} value={custom.typicalCsv} spellCheck={false} placeholder="250, -8.5, 10.5, 17, 7700, 2.2" onChange={(e) => setTypical(e.target.value)} />
       <div className="option-row"><button type="button" onClick={fit}>Fit the model</button></div>
       {custom.lineErrors.length > 0 ? (
         <ul className="field-error line-errors" role="alert">
@@ -58,8 +69,18 @@ export function CustomTubePanel() {
             <label className="field-label">Max plate voltage (V)<input type="number" value={ratings.maxPlateVoltage} onChange={(e) => setRatings({ ...ratings, maxPlateVoltage: Number(e.target.value) })} /></label>
             <label className="field-label">Max plate dissipation (W)<input type="number" step="0.1" value={ratings.maxPlateDissipation} onChange={(e) => setRatings({ ...ratings, maxPlateDissipation: Number(e.target.value) })} /></label>
             <label className="field-label">Max heater–cathode (V)<input type="number" value={ratings.maxHeaterCathodeVoltage} onChange={(e) => setRatings({ ...ratings, maxHeaterCathodeVoltage: Number(e.target.value) })} /></label>
+            {extraField('heaterVolts', 'Heater (V)')}
+            {extraField('heaterAmps', 'Heater (A)', '0.01')}
+            {extraField('cgkPf', 'Cgk (pF)')}
+            {extraField('cgpPf', 'Cgp (pF)')}
+            {extraField('cpkPf', 'Cpk (pF)')}
           </div>
-          <div className="option-row"><button type="button" onClick={() => save(name, ratings)}>Save as my tube</button></div>
+          <div className="option-row">
+            <button type="button" onClick={() => save(name, ratings, {
+              heater: { volts: extras.heaterVolts, amps: extras.heaterAmps },
+              caps: { cgk: extras.cgkPf * 1e-12, cgp: extras.cgpPf * 1e-12, cpk: extras.cpkPf * 1e-12 },
+            })}>Save as my tube</button>
+          </div>
         </>
       ) : null}
       <div className="option-row">

@@ -31,6 +31,8 @@ export interface BuildSheet {
   readonly dropper: ({ ok: true } & DroppingResistor) | Failure | null;
   readonly elevation: { ok: true; lo: number; hi: number; suggested: number; groundedOk: boolean } | Failure;
   readonly filter: ({ ok: true } & DecouplingResult) | Failure;
+  /** Where stage 1 then sits, with the filter's B+. */
+  readonly filteredOp: { va: number; ia: number } | null;
   readonly totalBplusAmps: number;
 }
 
@@ -92,7 +94,9 @@ function compute(s: WorkbenchState): BuildSheet {
     const r = solveStage({ ...stage, bplus: b });
     return r.ok ? r.op.ia + (link?.op.ia ?? 0) : null;
   });
+  const at = filter.ok ? solveStage({ ...stage, bplus: filter.stageBplus }) : null;
   return {
+    filteredOp: at?.ok ? { va: at.op.va, ia: at.op.ia } : null,
     resistors,
     capacitors,
     forCorner: capacitorsForCorner(checked, sol, inp.cornerHz, 'E12'),

@@ -7,6 +7,9 @@ import type { CurvePoint } from './fitTriode';
  * read; the points come back in SI units (A). A header line and blank or
  * '#' comment lines are skipped. Every bad line is reported by its number.
  */
+/** milli-units to SI, rounded to 15 significant digits (11.8 / 1000 is 0.011800000000000001 in binary). */
+export const milli = (x: number) => Number((x / 1e3).toPrecision(15));
+
 export interface CsvLineError {
   readonly line: number;
   readonly message: string;
@@ -35,7 +38,7 @@ export function parseCurveCsv(text: string): { points: CurvePoint[]; errors: Csv
     if (!(va > 0)) return void errors.push({ line: n, message: `plate voltage must be above 0 V (got ${va})` });
     if (ia < 0) return void errors.push({ line: n, message: `plate current cannot be negative (got ${ia} mA)` });
     if (vg > 0) return void errors.push({ line: n, message: `grid voltage above 0 V (${vg}) is outside what the model fits` });
-    points.push({ va, vg, ia: ia / 1e3 });
+    points.push({ va, vg, ia: milli(ia) });
   });
   return { points, errors };
 }

@@ -63,3 +63,22 @@ describe('a tube of your own', () => {
     expect(store.getState().custom.fit).toEqual({ ok: false, reason: 'invalid-input', message: 'All the points are on one grid voltage (-2 V): give points from at least two plate curves so mu can be found' });
   });
 });
+
+describe('a tube of your own from typical figures alone', () => {
+  it('fits to the datasheet figures (Tung-Sol 12AU7, 1962, p.2) and keeps heater and capacitances', () => {
+    const store = createWorkbenchStore();
+    store.getState().setCustomCsv('');
+    store.getState().setTypicalCsv('100, 0, 11.8, 20, 6500, 3.1\n250, -8.5, 10.5, 17, 7700, 2.2');
+    store.getState().fitCustom();
+    const f = store.getState().custom.fit;
+    expect(f?.ok).toBe(true);
+    if (f?.ok) expect(f.rmsPercent).toBeLessThan(5);
+    store.getState().saveCustom('My ECC82', { maxPlateVoltage: 300, maxPlateDissipation: 2.75, maxHeaterCathodeVoltage: 200 }, { heater: { volts: 6.3, amps: 0.3 }, caps: { cgk: 1.6e-12, cgp: 1.5e-12, cpk: 0.4e-12 } });
+    store.getState().chooseTube('My ECC82');
+    const tube = store.getState().analysis.tube;
+    expect(tube.heaters[0]).toMatchObject({ volts: 6.3, amps: 0.3 });
+    expect(tube.capacitances.cgp).toBe(1.5e-12);
+    expect(tube.typical).toHaveLength(2);
+    expect(store.getState().analysis.solution.cin).toBeGreaterThan(0); // Miller input capacitance from the given Cgp
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseCurveCsv } from '../../src/index';
+import { parseCurveCsv, parseTypicalCsv } from '../../src/index';
 
 describe('parseCurveCsv', () => {
   it('reads Va, Vg, Ia (mA) in any common separator, skipping a header and comments, into SI units', () => {
@@ -21,6 +21,26 @@ describe('parseCurveCsv', () => {
       { line: 4, message: 'plate voltage must be above 0 V (got -5)' },
       { line: 5, message: 'plate current cannot be negative (got -1 mA)' },
       { line: 6, message: 'grid voltage above 0 V (1) is outside what the model fits' },
+    ]);
+  });
+});
+
+describe('parseTypicalCsv', () => {
+  it('reads Va, Vg, Ia (mA), mu, rp (Ω), gm (mA/V) into SI units, with "-" for a figure not given', () => {
+    const r = parseTypicalCsv('Va Vg Ia mu rp gm\n250, -8.5, 10.5, 17, 7700, 2.2\n100, 0, 11.8, -, 6500, 3.1');
+    expect(r.errors).toEqual([]);
+    expect(r.typical).toEqual([
+      { va: 250, vg: -8.5, ia: 0.0105, mu: 17, rp: 7700, gm: 0.0022, source: 'entered by the user' },
+      { va: 100, vg: 0, ia: 0.0118, rp: 6500, gm: 0.0031, source: 'entered by the user' },
+    ]);
+  });
+
+  it('reports bad lines by number', () => {
+    const r = parseTypicalCsv('250, -8.5\n250, -8.5, 0, 17\n250, x, 10, 17');
+    expect(r.errors).toEqual([
+      { line: 1, message: 'expected 3 to 6 values (Va, Vg, Ia mA, mu, rp Ω, gm mA/V), found 2' },
+      { line: 2, message: 'plate current must be above 0 mA (got 0)' },
+      { line: 3, message: '“x” is not a number' },
     ]);
   });
 });
