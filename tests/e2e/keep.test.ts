@@ -66,6 +66,7 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     expect(pngSize(png3)).toEqual({ width: w! * 3, height: h! * 3 });
     const svg = (await downloadOf(page, 'Chart SVG')).toString('utf8');
     expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+    expect(svg).toContain('class="layer-curves"'); // the static sheet, drawn in its own SVG on screen, is merged in
     const card = await downloadOf(page, 'Build card (PNG, A4)');
     expect(pngSize(card)).toEqual({ width: 1240, height: 1754 });
     expect(await inkShare(page, card)).toBeGreaterThan(0.03);
