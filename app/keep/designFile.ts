@@ -16,6 +16,7 @@ export const DESIGN_FORMAT = 'quiescent-design';
 export const DESIGN_FORMAT_VERSION = 1;
 /** Largest design file accepted, in bytes. */
 export const MAX_DESIGN_FILE_BYTES = 1_000_000;
+/** Longest design title, in characters: in files, in the store and in the title box. */
 export const MAX_TITLE_CHARS = 120;
 
 export interface DesignDocument {

@@ -1,4 +1,4 @@
-import { MAX_TITLE_LENGTH } from '../store/designSlice';
+import { MAX_TITLE_CHARS } from '../keep/designFile';
 import { useWorkbench } from '../store/StoreProvider';
 
 /** The design's name, editable in place in the masthead. Shown only as text, never as markup. */
@@ -10,7 +10,7 @@ export function DesignTitle() {
       className="design-title"
       aria-label="Design title"
       value={title}
-      maxLength={MAX_TITLE_LENGTH}
+      maxLength={MAX_TITLE_CHARS}
       placeholder="Name this design"
       onChange={(e) => setTitle(e.target.value)}
     />

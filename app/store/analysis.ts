@@ -1,9 +1,8 @@
 import {
   curveSheet,
-  normalizeStage,
   MAX_FAMILY_CURVES,
   plateExtent,
-  solveStage,
+  solvedStage,
   stageOverlay,
   type CurveSheet,
   type Failure,
@@ -72,14 +71,13 @@ export interface Analysis {
  */
 export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false, maxCurves = MAX_FAMILY_CURVES): ({ ok: true } & Analysis) | Failure {
   const tube = lookupTube(design.tubeId);
-  if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library`, field: 'tube' };
+  if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library or among your own`, field: 'tube' };
   const stage = stageDesignOf(design, tube);
-  const solution = solveStage(stage);
-  if (!solution.ok) return solution;
-  const checked = normalizeStage(stage);
-  if ('ok' in checked) return checked;
+  const solved = solvedStage(stage);
+  if ('ok' in solved) return solved;
+  const { checked, solution } = solved;
   const window = extent ?? plateExtent(tube, design.bplus);
-  const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax && prev.sheet.family.length <= maxCurves && prev.maxCurves === maxCurves;
+  const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax && prev.maxCurves === maxCurves;
   const sheet = sameSheet ? prev.sheet : curveSheet(tube, design.bplus, window, maxCurves);
   const signal = analyzeSignal({ checked, solution }, stage, design, prev?.signal ?? null, light);
   if (signal.chain && !signal.chain.ok) return { ...signal.chain, field: signal.chain.field ?? 'stage2' };

@@ -4,9 +4,7 @@ import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeRival, sharedWindow } from './compareSlice';
 import { customTubes } from '../keep/customTubes';
 import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
-
-/** Longest design title kept, in characters. */
-export const MAX_TITLE_LENGTH = 120;
+import { MAX_TITLE_CHARS } from '../keep/designFile';
 import { FIELD_NAMES, FIELDS, type FieldName } from './fields';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -87,7 +85,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   refreshTubes: () => set({ tubes: allSummaries() }),
   design: DEMO_DESIGN,
   title: DEMO_TITLE,
-  setTitle: (title) => set({ title: title.slice(0, MAX_TITLE_LENGTH) }),
+  setTitle: (title) => set({ title: title.slice(0, MAX_TITLE_CHARS) }),
   analysis: initialAnalysis(),
   drafts: draftsFor(DEMO_DESIGN),
   errors: {},
@@ -151,7 +149,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   loadDocument: (doc) => {
     const failure = get().commit(doc.design);
     if (failure) return failure;
-    set({ title: doc.title.slice(0, MAX_TITLE_LENGTH), errors: {} });
+    set({ title: doc.title.slice(0, MAX_TITLE_CHARS), errors: {} });
     return null;
   },
 

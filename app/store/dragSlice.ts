@@ -68,7 +68,6 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     const bplus = Math.round(Math.min(Math.max(volts, MIN_DRAG_BPLUS), extent.vmax) * 2) / 2;
     if (bplus === s.design.bplus) return;
     const failure = s.commit({ ...s.design, bplus }, { extent, light: true });
-    // (the chart window stays pinned while dragging; both tubes share it)
     set({ dragNote: failure ? `B+ ${bplus} V: ${failure.message}` : null });
   },
 

@@ -1,13 +1,6 @@
 /** Complex numbers as [re, im] pairs, and a dense complex linear solve, for the small-signal AC network. */
 export type Complex = readonly [number, number];
 
-export const cadd = (a: Complex, b: Complex): Complex => [a[0] + b[0], a[1] + b[1]];
-export const csub = (a: Complex, b: Complex): Complex => [a[0] - b[0], a[1] - b[1]];
-export const cmul = (a: Complex, b: Complex): Complex => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
-export const cdiv = (a: Complex, b: Complex): Complex => {
-  const d = b[0] * b[0] + b[1] * b[1];
-  return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d];
-};
 export const cabs = (a: Complex): number => Math.hypot(a[0], a[1]);
 
 /**
@@ -75,24 +68,4 @@ export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Fl
     if (!Number.isFinite(xr[r]!) || !Number.isFinite(xi[r]!)) return false;
   }
   return true;
-}
-
-/** Solves A·x = b for complex A given as [re, im] pairs; null when singular. */
-export function csolve(a: Complex[][], b: Complex[]): Complex[] | null {
-  const n = b.length;
-  const w = n + 1;
-  const re = new Float64Array(n * w);
-  const im = new Float64Array(n * w);
-  for (let r = 0; r < n; r++) {
-    for (let c = 0; c < n; c++) {
-      re[r * w + c] = a[r]![c]![0];
-      im[r * w + c] = a[r]![c]![1];
-    }
-    re[r * w + n] = b[r]![0];
-    im[r * w + n] = b[r]![1];
-  }
-  const xr = new Float64Array(n);
-  const xi = new Float64Array(n);
-  if (!csolveFlat(re, im, n, xr, xi)) return null;
-  return Array.from(xr, (v, k) => [v, xi[k]!] as Complex);
 }
