@@ -49,6 +49,7 @@ export {
   biasLine,
   dissipationLimit,
   MAX_FAMILY_CURVES,
+  gridsDownTo,
   type PlanePoint,
   type PlateCurve,
 } from './stage/planeSeries';
@@ -80,3 +81,15 @@ export { productionSpread, seededRandom, type Spread, type SpreadSample } from '
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';
 export { parseTypicalCsv } from './fit/parseTypicalCsv';
+
+export { korenPentode, pentodeParamsProblem, type KorenPentodeParams } from './tube/pentode';
+export { CONNECTIONS, connectionsOf, type Connection, type OutputTube, type OutputLaw, type PowerRatings, type SingleEndedExample } from './output/outputTube';
+export { outputTubeLibrary, findOutputTube } from './output/library/index';
+export { OUTPUT_LIMITS, outputDesignProblem, effectiveConnection, type OutputDesign } from './output/outputDesign';
+export { solveOutput, OUTPUT_CUTOFF_A, type OutputSolution, type OutputPoint } from './output/solveOutput';
+export { atDrive, cleanLimit, waveform, OUTPUT_SAMPLES, CUTOFF_SHARE, type DriveResult, type CleanLimit } from './output/outputSignal';
+export { powerSweep, powerAtDistortion, zPrimarySweep, type LimitedPower, type ZSweep } from './output/powerSweep';
+export { biasForPoint, type BiasAnswer } from './output/outputBias';
+export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
+export { outputFindings } from './output/outputFindings';
+export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';

@@ -10,7 +10,10 @@ export type FindingKind =
   | 'heater-cathode'
   | 'grid-current'
   | 'grid-resistor'
-  | 'cathode-current';
+  | 'cathode-current'
+  | 'screen-dissipation'
+  | 'screen-voltage'
+  | 'plate-swing';
 
 /** One check of the design against the tube's ratings, worded to be shown as is. */
 export interface Finding {

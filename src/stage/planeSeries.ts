@@ -44,7 +44,11 @@ export const MAX_FAMILY_CURVES = 12;
  * power triodes (20 V for a 300B), as printed curve sheets do.
  */
 export function familyGrids(tube: TubeLike, vmax: number, maxCurves = MAX_FAMILY_CURVES): number[] {
-  const cutoff = Math.abs(cutoffGridVoltage(modelOf(tube).params, Math.max(vmax, 1)));
+  return gridsDownTo(Math.abs(cutoffGridVoltage(modelOf(tube).params, Math.max(vmax, 1))), maxCurves);
+}
+
+/** 0 V down to −cutoff in a nice step, at most maxCurves values. */
+export function gridsDownTo(cutoff: number, maxCurves = MAX_FAMILY_CURVES): number[] {
   const wanted = cutoff / Math.max(2, maxCurves - 1);
   const step = NICE_STEPS.find((s) => s >= wanted) ?? NICE_STEPS[NICE_STEPS.length - 1]!;
   const grids: number[] = [];

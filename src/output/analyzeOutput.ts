@@ -1,0 +1,74 @@
+import type { Result } from '../result';
+import type { CurveSheet } from '../stage/curveSheet';
+import type { Finding } from '../stage/findings';
+import type { PlateExtent } from '../stage/plateExtent';
+import type { OutputDesign } from './outputDesign';
+import { outputFindings } from './outputFindings';
+import { outputExtent, outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
+import { atDrive, cleanLimit, type CleanLimit, type DriveResult } from './outputSignal';
+import type { OutputTube } from './outputTube';
+import { powerAtDistortion, powerSweep, zPrimarySweep, type LimitedPower, type ZSweep } from './powerSweep';
+import { solveOutput, type OutputSolution } from './solveOutput';
+
+export interface OutputAnalysis {
+  readonly solution: OutputSolution;
+  readonly sheet: CurveSheet;
+  readonly overlay: OutputOverlay;
+  /** Power at the onset of grid current or cutoff, whichever comes first. */
+  readonly clean: CleanLimit;
+  /** The stage with the grid driven to 0 V peak: the drive data sheets quote power at. */
+  readonly full: DriveResult;
+  /** Most power under the design's distortion limit; null on the light pass. */
+  readonly atLimit: LimitedPower | null;
+  /** Speaker impedance over the stage's output impedance at the secondary. */
+  readonly dampingFactor: number;
+  /** Output impedance at the secondary, Ω: (rp + Rpri) reflected through the turns ratio. */
+  readonly outputImpedance: number;
+  /** Primary-to-secondary turns ratio for the chosen speaker. */
+  readonly turnsRatio: number;
+  readonly findings: readonly Finding[];
+  /** Filled on the full pass, left empty on the light one that runs during a drag. */
+  readonly sweep: readonly DriveResult[];
+  readonly zSweep: ZSweep | null;
+}
+
+export interface OutputAnalysisOptions {
+  readonly extent?: PlateExtent;
+  readonly maxCurves?: number;
+  /** Light: skip the distortion-limited power and both sweeps (the costly parts). */
+  readonly light?: boolean;
+  /** A sheet to reuse when the screen feed has not changed. */
+  readonly sheet?: CurveSheet;
+}
+
+/**
+ * Everything the output-stage screen shows, from the tube and the design.
+ * The damping factor takes the cathode as bypassed and the transformer as
+ * ideal apart from its primary resistance.
+ */
+export function analyzeOutput(tube: OutputTube, design: OutputDesign, options: OutputAnalysisOptions = {}): Result<OutputAnalysis> {
+  const solved = solveOutput(tube, design);
+  if (!solved.ok) return solved;
+  const s = solved;
+  const extent = options.extent ?? outputExtent(tube, design.bplus);
+  const sheet = options.sheet ?? outputSheet(tube, s.op.feed, extent, options.maxCurves);
+  const clean = cleanLimit(s);
+  const full = atDrive(s, Math.max(0, -s.op.vgk));
+  const zOut = s.op.rp + design.rPrimary;
+  const dampingFactor = Number.isFinite(zOut) && zOut > 0 ? design.zPrimary / zOut : 0;
+  return {
+    ok: true,
+    solution: s,
+    sheet,
+    overlay: outputOverlay(s, extent, clean.at),
+    clean,
+    full,
+    atLimit: options.light ? null : powerAtDistortion(s, design.thdLimit),
+    dampingFactor,
+    outputImpedance: dampingFactor > 0 ? design.speakerOhms / dampingFactor : Infinity,
+    turnsRatio: Math.sqrt(design.zPrimary / design.speakerOhms),
+    findings: outputFindings(s, full.vpkMax),
+    sweep: options.light ? [] : powerSweep(s),
+    zSweep: options.light ? null : zPrimarySweep(s),
+  };
+}

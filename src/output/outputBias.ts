@@ -1,0 +1,44 @@
+import { bracketedRoot } from '../numeric/bracketedRoot';
+import { fail, type Result } from '../result';
+import { emptyCurrents, screenFeedOf, stageCurrentsInto } from './electrodes';
+import { effectiveConnection, type OutputDesign } from './outputDesign';
+import type { OutputTube } from './outputTube';
+
+export interface BiasAnswer {
+  /** Grid to cathode, V. */
+  readonly vgk: number;
+  /** Cathode current at the point, A. */
+  readonly ik: number;
+  /** Cathode resistor that sets the point (cathode bias), Ω; for fixed bias the grid supply is vgk. */
+  readonly rk: number;
+  /** B+ that puts the plate at the wanted voltage through the primary's DC resistance, V. */
+  readonly bplus: number;
+}
+
+/**
+ * Inverse design of the bias: for a wanted plate voltage and primary current,
+ * the grid voltage that gives them (Brent's method; the current rises with
+ * the grid, and with cathode bias the screen-to-cathode voltage rises with it
+ * too), then Rk = −Vgk/Ik and B+ = Vpk + Ip·Rpri + Vk.
+ */
+export function biasForPoint(tube: OutputTube, d: OutputDesign, vpk: number, ip: number): Result<BiasAnswer> {
+  if (!(vpk > 0) || !(ip > 0) || !Number.isFinite(vpk) || !Number.isFinite(ip)) return fail('invalid-input', 'The wanted point needs a positive plate voltage and current');
+  const connection = effectiveConnection(d, tube);
+  const cathode = d.bias === 'cathode';
+  const c = emptyCurrents();
+  const currentAt = (vgk: number) => {
+    const vk = cathode ? -vgk : 0;
+    const feed = screenFeedOf(connection, d.screenVolts - vk, d.ulTap, vpk + ip * d.rPrimary);
+    stageCurrentsInto(tube, feed, vpk, vgk, c, 0);
+    return c.ip;
+  };
+  if (currentAt(0) < ip) return fail('grid-current', 'That much current needs the grid above the cathode (class A1 stops at 0 V grid)');
+  const floor = -Math.max(vpk, d.screenVolts, 10) * 2;
+  if (currentAt(floor) > ip) return fail('unreachable', 'The tube cannot be biased that far toward cutoff here');
+  const r = bracketedRoot((g) => currentAt(g) - ip, floor, 0, 1e-9);
+  const vgk = r.x;
+  currentAt(vgk);
+  const ik = c.ik;
+  const vk = cathode ? -vgk : 0;
+  return { ok: true, vgk, ik, rk: cathode && ik > 0 ? vk / ik : 0, bplus: vpk + ip * d.rPrimary + vk };
+}

@@ -1,0 +1,85 @@
+import { cutoffGridVoltage } from '../tube/koren';
+import type { CurveSheet } from '../stage/curveSheet';
+import { CURVE_SAMPLES } from '../stage/curveSheet';
+import { acLoadLine, dissipationLimit, gridsDownTo, MAX_FAMILY_CURVES, type PlanePoint, type PlateCurve } from '../stage/planeSeries';
+import { niceCeil, type PlateExtent } from '../stage/plateExtent';
+import { primaryCurrent, screenVoltage, type ScreenFeed } from './electrodes';
+import type { OutputTube } from './outputTube';
+import type { OutputSolution } from './solveOutput';
+
+/**
+ * The plate-plane window for an output stage. A transformer lets the plate
+ * swing to about twice B+, so the voltage axis runs to 2.2 × B+; the current
+ * axis to 2.2 × the current the rated dissipation allows at B+. Both depend
+ * on the tube and B+ only, so the window stays still while the point moves.
+ */
+export function outputExtent(tube: OutputTube, bplus: number): PlateExtent {
+  const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 250;
+  return { vmax: niceCeil(2.2 * b), iaMax: niceCeil((2.2 * tube.ratings.maxPlateDissipation) / b) };
+}
+
+/** The grid voltage that cuts the tube off at the right edge of the chart. */
+function cutoffAt(tube: OutputTube, feed: ScreenFeed, vmax: number): number {
+  if (tube.law.kind === 'triode') return Math.abs(cutoffGridVoltage(tube.law.tube.model.params, vmax));
+  return Math.max(1, screenVoltage(feed, vmax) / tube.law.params.mu);
+}
+
+/**
+ * Plate curves for the connection as wired: at the set screen voltage for a
+ * pentode, with the screen following the plate for triode and ultralinear
+ * connections (so the family is the one the stage really moves on). The
+ * y value is the primary current (plate plus screen when tied).
+ */
+export function outputSheet(tube: OutputTube, feed: ScreenFeed, extent: PlateExtent, maxCurves = MAX_FAMILY_CURVES): CurveSheet {
+  const grids = gridsDownTo(cutoffAt(tube, feed, extent.vmax), maxCurves);
+  const family: PlateCurve[] = grids.map((vg) => {
+    const points: PlanePoint[] = [];
+    for (let k = 0; k <= CURVE_SAMPLES; k++) {
+      const v = (extent.vmax * k) / CURVE_SAMPLES;
+      points.push({ v, i: primaryCurrent(tube, feed, v, vg) });
+    }
+    return { vg, points };
+  });
+  return {
+    extent,
+    family,
+    dissipation: dissipationLimit(tube.ratings.maxPlateDissipation, extent.vmax, extent.iaMax),
+    maxPlateVoltage: tube.ratings.maxPlateVoltage,
+    maxPlateDissipation: tube.ratings.maxPlateDissipation,
+  };
+}
+
+export interface OutputOverlay {
+  /** Nearly vertical: through (supply, 0) with slope −1/Rpri. */
+  readonly dcLoad: readonly PlanePoint[];
+  /** Through the point with slope −1/(Zpri + Rpri). */
+  readonly acLoad: readonly PlanePoint[];
+  readonly point: PlanePoint;
+  /** Where the AC load line's slope handle sits. */
+  readonly loadHandle: PlanePoint;
+  /** The stretch of the AC load line the clean swing covers. */
+  readonly swing: readonly PlanePoint[];
+}
+
+export function outputOverlay(s: OutputSolution, extent: PlateExtent, swing: { vpkMin: number; vpkMax: number; ipMin: number; ipMax: number } | null): OutputOverlay {
+  const { supply, vpk, ip } = s.op;
+  const rp = s.design.rPrimary;
+  const top = extent.iaMax * 1.02;
+  const dcLoad = rp > 0 ? [{ v: supply, i: 0 }, { v: Math.max(0, supply - top * rp), i: Math.min(top, supply / rp) }] : [{ v: supply, i: 0 }, { v: supply, i: top }];
+  const zt = s.design.zPrimary + rp;
+  const acLoad = acLoadLine(vpk, ip, zt, extent.vmax).map((p) => (p.i > top ? { v: vpk - (top - ip) * zt, i: top } : p));
+  // The handle sits 60 % of the way from the point to where the line leaves the chart on the right.
+  const right = acLoad[acLoad.length - 1] ?? { v: vpk, i: ip };
+  const loadHandle = { v: vpk + 0.6 * (right.v - vpk), i: ip + 0.6 * (right.i - ip) };
+  const sw = swing ? [{ v: swing.vpkMin, i: swing.ipMax }, { v: swing.vpkMax, i: swing.ipMin }] : [];
+  return { dcLoad, acLoad, point: { v: vpk, i: ip }, loadHandle, swing: sw };
+}
+
+/** The primary impedance whose AC load line passes through (v, i), or null when the point is not on a falling line. */
+export function zPrimaryThrough(s: OutputSolution, v: number, i: number): number | null {
+  const dv = v - s.op.vpk;
+  const di = s.op.ip - i;
+  if (!(dv > 0) || !(di > 0)) return null;
+  const z = dv / di - s.design.rPrimary;
+  return z > 0 && Number.isFinite(z) ? z : null;
+}

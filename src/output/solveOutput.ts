@@ -1,0 +1,136 @@
+import { bracketedRoot } from '../numeric/bracketedRoot';
+import { fail, type Result } from '../result';
+import { emptyCurrents, screenFeedOf, screenVoltage, stageCurrentsInto, type ScreenFeed } from './electrodes';
+import { effectiveConnection, outputDesignProblem, type OutputDesign } from './outputDesign';
+import type { Connection, OutputTube } from './outputTube';
+
+/** Below this cathode current the tube is taken as cut off, A (the same 1 µA as the voltage stage). */
+export const OUTPUT_CUTOFF_A = 1e-6;
+
+export interface OutputPoint {
+  readonly connection: Connection;
+  /** Plate to cathode, V. */
+  readonly vpk: number;
+  /** Charted current (plate, plus screen when tied), A; the primary's DC resistance carries it. */
+  readonly ip: number;
+  /** The current the transformer couples (ip, plus the tap's share of an ultralinear screen's), A. */
+  readonly mmf: number;
+  readonly ia: number;
+  readonly ig2: number;
+  readonly ik: number;
+  readonly vgk: number;
+  /** Cathode to ground, V. */
+  readonly vk: number;
+  /** Screen to cathode, V (equals vpk when tied). */
+  readonly vg2k: number;
+  /** Primary's B+ end to cathode, V. */
+  readonly supply: number;
+  /** Plate dissipation, W (plate and screen together when tied). */
+  readonly pa: number;
+  /** Screen dissipation, W. */
+  readonly pg2: number;
+  /** Small-signal plate resistance for this connection, Ω (the screen follows as wired). */
+  readonly rp: number;
+  /** Transconductance of the primary current, S. */
+  readonly gm: number;
+  readonly mu: number;
+  /** Fixed bias: the grid supply, V. Cathode bias: the cathode resistor, Ω. */
+  readonly rk: number | null;
+  readonly feed: ScreenFeed;
+}
+
+export interface OutputSolution {
+  readonly tube: OutputTube;
+  readonly design: OutputDesign;
+  readonly op: OutputPoint;
+}
+
+const VOLT_TOL = 1e-9;
+
+function feedFor(tube: OutputTube, d: OutputDesign, vk: number): ScreenFeed {
+  return screenFeedOf(effectiveConnection(d, tube), d.screenVolts - vk, d.ulTap, d.bplus - vk);
+}
+
+/**
+ * Plate voltage where the primary's DC drop closes the loop:
+ * Vpk + Ip(Vpk)·Rpri = supply. At DC the winding itself drops nothing, so an
+ * ultralinear tap sits at the supply.
+ */
+function plateVoltage(tube: OutputTube, feed: ScreenFeed, rPrimary: number, supply: number, vgk: number): number {
+  if (rPrimary === 0) return supply;
+  const c = emptyCurrents();
+  const r = bracketedRoot((v) => {
+    stageCurrentsInto(tube, feed, v, vgk, c, 0);
+    return v + c.ip * rPrimary - supply;
+  }, 0, supply, VOLT_TOL * supply);
+  return r.x;
+}
+
+function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number): OutputPoint {
+  const supply = d.bplus - vk;
+  const feed = feedFor(tube, d, vk);
+  const vpk = plateVoltage(tube, feed, d.rPrimary, supply, vgk);
+  const c = emptyCurrents();
+  stageCurrentsInto(tube, feed, vpk, vgk, c, 0);
+  const vg2k = tube.law.kind === 'triode' ? 0 : screenVoltage(feed, vpk, 0);
+  const slopes = slopesAt(tube, feed, vpk, vgk);
+  const tied = feed.kind === 'tied';
+  return {
+    connection: effectiveConnection(d, tube),
+    vpk,
+    ip: c.ip,
+    mmf: c.mmf,
+    ia: c.ia,
+    ig2: c.ig2,
+    ik: c.ik,
+    vgk,
+    vk,
+    vg2k,
+    supply,
+    pa: vpk * (tied ? c.ip : c.ia),
+    pg2: tied ? 0 : vg2k * c.ig2,
+    rp: slopes.rp,
+    gm: slopes.gm,
+    mu: slopes.gm * slopes.rp,
+    rk: d.bias === 'cathode' ? d.rk : null,
+    feed,
+  };
+}
+
+/** rp and gm of the primary current by central differences (the screen follows the plate as wired). */
+export function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number): { rp: number; gm: number } {
+  const h = Math.max(1e-3, vpk * 1e-5);
+  const c = emptyCurrents();
+  const at = (v: number, g: number) => {
+    stageCurrentsInto(tube, feed, v, g, c);
+    return c.ip;
+  };
+  const ga = (at(vpk + h, vgk) - at(vpk - h, vgk)) / (2 * h);
+  const gm = (at(vpk, vgk + h) - at(vpk, vgk - h)) / (2 * h);
+  return { rp: ga > 0 ? 1 / ga : Infinity, gm: Math.max(0, gm) };
+}
+
+/**
+ * The quiescent point of a single-ended output stage. Fixed bias: the grid
+ * sits at the bias supply and the plate where the primary's DC drop closes
+ * the loop. Cathode bias: Brent's method on the cathode voltage, with that
+ * loop solved inside for each trial (Vk = Ik·Rk, Ik taking in the screen).
+ */
+export function solveOutput(tube: OutputTube, design: OutputDesign): Result<OutputSolution> {
+  const problem = outputDesignProblem(design, tube);
+  if (problem) return problem;
+  let op: OutputPoint;
+  if (design.bias === 'fixed') {
+    op = pointAt(tube, design, 0, design.vg);
+  } else {
+    const excess = (vk: number) => pointAt(tube, design, vk, -vk).ik * design.rk - vk;
+    const r = bracketedRoot(excess, 0, design.bplus, VOLT_TOL * design.bplus);
+    if (!r.converged && Math.abs(excess(r.x)) > 1e-6 * design.bplus) return fail('no-convergence', 'The cathode-bias loop did not settle; try another Rk', 'rk');
+    op = pointAt(tube, design, r.x, -r.x);
+  }
+  if (!(op.ik > OUTPUT_CUTOFF_A)) {
+    return fail('cutoff', design.bias === 'fixed' ? `The ${tube.id} is cut off at ${design.vg} V grid bias: make the bias less negative` : `The ${tube.id} is cut off with this Rk`, design.bias === 'fixed' ? 'vg' : 'rk');
+  }
+  if (!(op.vpk > 0.5)) return fail('supply-too-low', 'The primary\'s DC drop leaves no voltage on the plate: lower its DC resistance or raise B+', 'rPrimary');
+  return { ok: true, tube, design, op };
+}

@@ -1,0 +1,94 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { analyzeOutput, biasForPoint, findOutputTube, outputTubeLibrary, solveOutput, type OutputDesign } from '../../src/index';
+import { expectClose } from '../helpers/expectClose';
+
+const EL34 = findOutputTube('EL34')!;
+const base: OutputDesign = {
+  tubeId: 'EL34', connection: 'pentode', bplus: 320, screenVolts: 300, ulTap: 0.43, zPrimary: 3000, rPrimary: 120,
+  bias: 'cathode', rk: 270, vg: -20, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
+};
+
+describe('output stage operating point', () => {
+  it.each(['pentode', 'triode', 'ultralinear'] as const)('closes the DC loop by Ohm\'s law (%s)', (connection) => {
+    const s = solveOutput(EL34, { ...base, connection });
+    if (!s.ok) throw new Error(s.message);
+    const { op } = s;
+    expectClose(op.vk, op.ik * base.rk, { rel: 1e-7 }, 'Vk = Ik·Rk');
+    expectClose(op.vpk + op.ip * base.rPrimary + op.vk, base.bplus, { rel: 1e-7 }, 'B+ = Vpk + Ip·Rpri + Vk');
+    expectClose(op.vgk, -op.vk, { rel: 1e-12 }, 'grid at ground');
+    expectClose(op.ik, op.ia + op.ig2, { rel: 1e-12 }, 'Ik = Ia + Ig2');
+  });
+
+  it('holds the screen at its supply in pentode connection and at the plate when tied', () => {
+    const p = solveOutput(EL34, base);
+    const t = solveOutput(EL34, { ...base, connection: 'triode' });
+    if (!p.ok || !t.ok) throw new Error('unsolved');
+    expectClose(p.op.vg2k, base.screenVolts - p.op.vk, { rel: 1e-12 }, 'pentode screen');
+    expectClose(t.op.vg2k, t.op.vpk, { rel: 1e-12 }, 'tied screen');
+  });
+
+  it('reports typed failures the screen can show beside the field', () => {
+    const cut = solveOutput(EL34, { ...base, bias: 'fixed', vg: -120 });
+    expect(cut.ok === false && cut.reason === 'cutoff' && cut.field === 'vg').toBe(true);
+    const bad = solveOutput(EL34, { ...base, zPrimary: 5 });
+    expect(bad.ok === false && bad.field === 'zPrimary' && /at least 100/.test(bad.message)).toBe(true);
+    const noScreen = solveOutput(findOutputTube('300B')!, { ...base, connection: 'ultralinear' });
+    expect(noScreen.ok === false && noScreen.field === 'connection').toBe(true);
+  });
+
+  it('finds the bias and B+ that put the point where it was dragged (inverse design, property)', () => {
+    let solved = 0;
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...outputTubeLibrary),
+        fc.constantFrom('pentode', 'triode', 'ultralinear'),
+        fc.constantFrom('cathode', 'fixed'),
+        fc.double({ min: 150, max: 400, noNaN: true }),
+        fc.double({ min: 0.2, max: 0.8, noNaN: true }),
+        (tube, connection, bias, vpk, share) => {
+          const d: OutputDesign = { ...base, tubeId: tube.id, connection: tube.law.kind === 'triode' ? 'triode' : connection, bias };
+          const ip = (share * tube.ratings.maxPlateDissipation) / vpk;
+          const b = biasForPoint(tube, d, vpk, ip);
+          if (!b.ok) return; // outside class A1 for this tube: a typed answer is all that is asked
+          const s = solveOutput(tube, { ...d, bplus: b.bplus, rk: bias === 'cathode' ? b.rk : d.rk, vg: bias === 'fixed' ? b.vgk : d.vg });
+          if (!s.ok) throw new Error(s.message);
+          expectClose(s.op.vpk, vpk, { rel: 1e-5 }, 'Vpk');
+          expectClose(s.op.ip, ip, { rel: 1e-5 }, 'Ip');
+          solved++;
+        },
+      ),
+      { numRuns: 150 },
+    );
+    // Most asked points are class A1 points; a property that skipped them all would prove nothing.
+    expect(solved).toBeGreaterThan(100);
+  });
+
+  it('never returns NaN or throws for any finite design (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...outputTubeLibrary),
+        fc.record({
+          connection: fc.constantFrom('pentode', 'triode', 'ultralinear'),
+          bplus: fc.double({ min: -100, max: 3000, noNaN: true }),
+          screenVolts: fc.double({ min: -10, max: 1000, noNaN: true }),
+          ulTap: fc.double({ min: 0, max: 1, noNaN: true }),
+          zPrimary: fc.double({ min: 0, max: 2e5, noNaN: true }),
+          rPrimary: fc.double({ min: 0, max: 2e4, noNaN: true }),
+          bias: fc.constantFrom('cathode', 'fixed'),
+          rk: fc.double({ min: 0, max: 2e5, noNaN: true }),
+          vg: fc.double({ min: -600, max: 10, noNaN: true }),
+        }),
+        (tube, r) => {
+          const a = analyzeOutput(tube, { ...base, ...r, tubeId: tube.id } as OutputDesign, { light: true });
+          if (!a.ok) {
+            expect(a.message.length).toBeGreaterThan(0);
+            return;
+          }
+          for (const x of [a.solution.op.vpk, a.solution.op.ip, a.clean.at.power, a.full.thd, a.dampingFactor]) expect(Number.isFinite(x)).toBe(true);
+        },
+      ),
+      { numRuns: 120 },
+    );
+  });
+});

@@ -1,0 +1,55 @@
+import type { OutputDesign, OutputTube } from '../../src/index';
+import { triodeSubckt } from './netlists';
+
+/**
+ * A transformer-coupled single-ended stage for ngspice: Koren's pentode law
+ * as two behavioural current sources (plate and screen), the transformer as
+ * coupled inductors (100 H primary, k = 0.999999: at 1 kHz the magnetising
+ * reactance is 630 kΩ and the leakage about 1 Ω, so it acts as the ideal
+ * transformer the model assumes) with the primary's DC resistance in series
+ * between the winding and the plate, where the model puts it. An
+ * ultralinear primary is two coupled windings split at the tap. Cathode bias is bypassed by 10 mF. The grid is driven by a 1 kHz sine
+ * of `peak` volts; ngspice's Fourier analysis reads the secondary.
+ */
+const g = (x: number) => x.toPrecision(12);
+const L_PRIMARY = 100;
+const K = 0.999999;
+
+function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: number; kp: number; kvb: number }): string {
+  return [
+    '.subckt pent plate screen grid cathode',
+    `.param mu=${g(p.mu)} ex=${g(p.ex)} kg1=${g(p.kg1)} kg2=${g(p.kg2)} kp=${g(p.kp)} kvb=${g(p.kvb)}`,
+    '.func e1(vs,vg) = (vs/kp)*ln(1+exp(kp*(1/mu + vg/vs)))',
+    'B1 plate cathode I = (1 + sgn(e1(v(screen,cathode),v(grid,cathode)))) * pwr(e1(v(screen,cathode),v(grid,cathode)),ex)/kg1 * atan(v(plate,cathode)/kvb)',
+    'B2 screen cathode I = 0.5*(1 + sgn(v(grid,cathode) + v(screen,cathode)/mu)) * pwr(v(grid,cathode) + v(screen,cathode)/mu, ex)/kg2',
+    '.ends pent',
+  ].join('\n');
+}
+
+export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number): string {
+  const n2 = d.zPrimary / d.speakerOhms;
+  const ul = d.connection === 'ultralinear' && tube.law.kind === 'pentode';
+  const lines: string[] = ['* single-ended transformer-coupled output stage'];
+  if (tube.law.kind === 'pentode') lines.push(pentodeSubckt(tube.law.params));
+  else lines.push(triodeSubckt('tri', tube.law.tube.model.params));
+  lines.push(`VB bplus 0 DC ${g(d.bplus)}`, `RPRI bottom plate ${g(Math.max(d.rPrimary, 1e-6))}`);
+  if (ul) {
+    const x = d.ulTap;
+    lines.push(`LA bplus tap ${g(L_PRIMARY * x * x)}`, `LB tap bottom ${g(L_PRIMARY * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${K}`, `KBS LB LS ${K}`);
+  } else {
+    lines.push(`LP bplus bottom ${g(L_PRIMARY)}`, `KPS LP LS ${K}`);
+  }
+  lines.push(`LS sec 0 ${g(L_PRIMARY / n2)}`, `RSPK sec 0 ${g(d.speakerOhms)}`);
+  const vbias = d.bias === 'fixed' ? d.vg : 0;
+  lines.push(`VG grid 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000)`);
+  lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 10m` : 'VK cathode 0 DC 0');
+  if (tube.law.kind === 'pentode') {
+    const screen = d.connection === 'triode' ? 'plate' : ul ? 'tap' : 'screen';
+    if (d.connection === 'pentode') lines.push(`VS screen 0 DC ${g(d.screenVolts)}`);
+    lines.push(`X1 plate ${screen} grid cathode pent`);
+  } else {
+    lines.push('X1 plate grid cathode tri');
+  }
+  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
+  return lines.join('\n');
+}
