@@ -10,7 +10,14 @@ import { SignalCharts } from './signal/SignalCharts';
 import { SignalPanel } from './signal/SignalPanel';
 import { Stage2Panel } from './signal/Stage2Panel';
 import { DesignTitle } from './panels/DesignTitle';
-import { StoreProvider, useWorkbenchStore } from './store/StoreProvider';
+import { StoreProvider, useWorkbench, useWorkbenchStore } from './store/StoreProvider';
+import { StageKindSwitch } from './output/StageKindSwitch';
+import { OutputChart } from './output/OutputChart';
+import { OutputFigures } from './output/OutputFigures';
+import { OutputSignalCharts } from './output/OutputSignalCharts';
+import { OutputComparePanel } from './output/OutputComparePanel';
+import { OutputSchematic } from './output/OutputSchematic';
+import { OutputValues } from './output/OutputValues';
 import { useKeeping } from './keep/useKeeping';
 import { BuildSheetPanel } from './panels/BuildSheetPanel';
 import { ComparePanel } from './panels/ComparePanel';
@@ -29,6 +36,7 @@ export function App({ store }: { store?: WorkbenchStore }) {
 
 function Bench() {
   useKeeping(useWorkbenchStore());
+  const stageKind = useWorkbench((s) => s.design.stageKind);
   return (
       <div className="page">
         <header className="masthead">
@@ -37,6 +45,18 @@ function Bench() {
           <DesignTitle />
         </header>
         <SafetyIntro />
+        <StageKindSwitch />
+        {stageKind === 'output' ? <OutputBench /> : <VoltageBench />}
+        <footer>
+          <SafetyNotice compact />
+        </footer>
+      </div>
+  );
+}
+
+/** The resistance-coupled voltage stage: its chart, figures, signal views and build sheet. */
+function VoltageBench() {
+  return (
         <main className="bench">
           <div className="bench-main">
             <FiguresStrip />
@@ -59,9 +79,28 @@ function Bench() {
             <ExportPanel />
           </div>
         </main>
-        <footer>
-          <SafetyNotice compact />
-        </footer>
+  );
+}
+
+/** The transformer-coupled output stage: its chart, power and distortion, and a second tube to weigh. */
+function OutputBench() {
+  return (
+    <main className="bench">
+      <div className="bench-main">
+        <OutputFigures />
+        <section className="sheet-panel" aria-label="Plate curves">
+          <OutputChart />
+        </section>
+        <FindingsList />
+        <OutputSignalCharts />
+        <OutputComparePanel />
       </div>
+      <div className="bench-side">
+        <KeepPanel />
+        <OutputSchematic />
+        <OutputValues />
+        <ExportPanel />
+      </div>
+    </main>
   );
 }

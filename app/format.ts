@@ -16,3 +16,5 @@ export const mAPerV = (s: number) => `${Number((s * 1e3).toPrecision(3))} mA/V`;
 export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digits))).replace('-', '−');
 /** Gain as a voltage ratio in decibels (20·log10). */
 export const decibels = (ratio: number) => `${(20 * Math.log10(Math.abs(ratio))).toFixed(1)} dB`;
+/** A fraction shown in percent, to three figures. */
+export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;

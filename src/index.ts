@@ -89,7 +89,8 @@ export { OUTPUT_LIMITS, outputDesignProblem, effectiveConnection, type OutputDes
 export { solveOutput, OUTPUT_CUTOFF_A, type OutputSolution, type OutputPoint } from './output/solveOutput';
 export { atDrive, cleanLimit, waveform, OUTPUT_SAMPLES, CUTOFF_SHARE, type DriveResult, type CleanLimit } from './output/outputSignal';
 export { powerSweep, powerAtDistortion, zPrimarySweep, type LimitedPower, type ZSweep } from './output/powerSweep';
-export { biasForPoint, type BiasAnswer } from './output/outputBias';
+export { biasForPoint, switchBias, type BiasAnswer } from './output/outputBias';
 export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
+export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';

@@ -1,7 +1,14 @@
 import { PALETTE } from './palette';
 
+export interface LegendItem {
+  readonly label: string;
+  readonly stroke: string;
+  readonly dash: string | undefined;
+  readonly width: number;
+}
+
 /** Key to the chart's lines: colour and line style together, so it reads in grayscale too. */
-const ITEMS = [
+export const VOLTAGE_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'Plate curves (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
   { label: 'DC load line', stroke: PALETTE.load, dash: undefined, width: 2 },
   { label: 'AC load line (with RL)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
@@ -10,7 +17,15 @@ const ITEMS = [
   { label: 'Span of the signal at the chosen level', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
-export function ChartLegend({ first, rival }: { first: string; rival: string | null }) {
+export const OUTPUT_STAGE_LEGEND: readonly LegendItem[] = [
+  { label: 'Plate curves at the screen voltage as wired (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
+  { label: 'DC load line (primary resistance)', stroke: PALETTE.load, dash: undefined, width: 2 },
+  { label: 'AC load line (primary impedance; drag its diamond handle)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
+  { label: 'Rated plate dissipation, max plate voltage', stroke: PALETTE.limit, dash: '7 4', width: 1.6 },
+  { label: 'Clean swing (to grid current or cutoff)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
+];
+
+export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND }: { first: string; rival: string | null; items?: readonly LegendItem[] }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">
       {rival ? (
@@ -21,7 +36,7 @@ export function ChartLegend({ first, rival }: { first: string; rival: string | n
           {`${rival} (dashed, square point) against ${first} (solid, round point)`}
         </li>
       ) : null}
-      {ITEMS.map((it) => (
+      {items.map((it) => (
         <li key={it.label}>
           <svg width="30" height="10" aria-hidden="true">
             <line x1="1" x2="29" y1="5" y2="5" stroke={it.stroke} strokeWidth={it.width} strokeDasharray={it.dash} />

@@ -1,5 +1,6 @@
 import { drag, select } from 'd3';
 import type { WorkbenchStore } from '../store/workbenchStore';
+import { frameCoalescer } from './frameCoalescer';
 import type { PlateScales } from './plateScales';
 
 /**
@@ -9,25 +10,7 @@ import type { PlateScales } from './plateScales';
  * animation frame: moves that arrive faster are coalesced to the latest.
  */
 export function attachDrag(store: WorkbenchStore, scales: PlateScales, point: SVGGElement, bplusHandle: SVGGElement, rivalHandle: SVGGElement): () => void {
-  let frame = 0;
-  let pending: (() => void) | null = null;
-  const schedule = (fn: () => void) => {
-    pending = fn;
-    if (frame) return;
-    frame = requestAnimationFrame(() => {
-      frame = 0;
-      const run = pending;
-      pending = null;
-      run?.();
-    });
-  };
-  const flush = () => {
-    if (frame) cancelAnimationFrame(frame);
-    frame = 0;
-    const run = pending;
-    pending = null;
-    run?.();
-  };
+  const { schedule, flush, cancel } = frameCoalescer();
 
   const onPoint = drag<SVGGElement, unknown>()
     .on('start', () => store.getState().beginDrag('point'))
@@ -68,7 +51,7 @@ export function attachDrag(store: WorkbenchStore, scales: PlateScales, point: SV
   select(bplusHandle).call(onBplus);
   select(rivalHandle).call(onRival);
   return () => {
-    if (frame) cancelAnimationFrame(frame);
+    cancel();
     for (const el of [point, bplusHandle, rivalHandle]) select(el).on('.drag', null);
   };
 }

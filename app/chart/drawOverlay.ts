@@ -16,7 +16,7 @@ export interface OverlayNodes {
   readonly bplusHandle: SVGGElement;
 }
 
-function linePath(layer: SVGGElement, key: string, points: readonly PlanePoint[], scales: PlateScales, style: { stroke: string; width: number; dash?: string }): void {
+export function linePath(layer: SVGGElement, key: string, points: readonly PlanePoint[], scales: PlateScales, style: { stroke: string; width: number; dash?: string }): void {
   const sel = select(layer).selectAll<SVGPathElement, string>(`path[data-series="${key}"]`).data(points.length > 1 ? [key] : []);
   sel.exit().remove();
   sel.enter().append('path').attr('data-series', key).attr('fill', 'none')

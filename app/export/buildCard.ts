@@ -4,6 +4,7 @@ import { COMPARE_ROWS } from '../panels/ComparePanel';
 import { buildSheetOf } from '../store/buildSheet';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
+import { outputCardSections } from './outputCard';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
 export const CARD_WIDTH = 1240;
@@ -12,6 +13,7 @@ const MARGIN = 60;
 
 /** Everything the card shows, as lines of text, gathered from the store (the model already computed it). */
 export function cardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
+  if (s.design.stageKind === 'output') return outputCardSections(s);
   const sol = s.analysis.solution;
   const d = s.design;
   const sig = s.analysis.signal;

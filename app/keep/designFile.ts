@@ -1,19 +1,24 @@
-import type { PreferredSeries } from '../../src/index';
+import { CONNECTIONS, findOutputTube, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
+import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
 
 /**
  * Quiescent's design file: our own JSON format, versioned.
  *
- *   { "format": "quiescent-design", "version": 1, "title": "…", "savedAt": "ISO 8601",
- *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2 } }
+ *   { "format": "quiescent-design", "version": 2, "title": "…", "savedAt": "ISO 8601",
+ *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
+ *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
+ *                                      bias, rk, vg, rg, speakerOhms, thdLimit } } }
  *
+ * Version 1 files (before output stages) open with the bench's default
+ * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
  * ideal capacitor (cin, ck, cout) are written as null. Opening validates
  * every field; nothing of a file that fails is applied.
  */
 export const DESIGN_FORMAT = 'quiescent-design';
-export const DESIGN_FORMAT_VERSION = 1;
+export const DESIGN_FORMAT_VERSION = 2;
 /** Largest design file accepted, in bytes. */
 export const MAX_DESIGN_FILE_BYTES = 1_000_000;
 /** Longest design title, in characters: in files, in the store and in the title box. */
@@ -46,7 +51,7 @@ const bool: Check = (v) => (typeof v === 'boolean' ? null : 'must be true or fal
 const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'string' && options.includes(v) ? null : `must be one of ${options.join(', ')}`);
 const tubeId: Check = (v) => (typeof v === 'string' && lookupTube(v) ? null : 'must name a tube in the library or one of yours kept in this browser');
 
-const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2'>, Check> = {
+const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind'>, Check> = {
   tubeId,
   bplus: num(1, 1500, 'V'),
   ra: num(100, 10e6, 'Ω'),
@@ -68,6 +73,23 @@ const STAGE2_FIELDS: Record<keyof Stage2Design, Check> = {
   ra: num(100, 10e6, 'Ω'),
   rk: num(1, 10e6, 'Ω'),
   rg: num(1e3, 100e6, 'Ω'),
+};
+
+const outputTubeId: Check = (v) => (typeof v === 'string' && findOutputTube(v) ? null : 'must name an output tube in the library');
+const OUTPUT_FIELDS: Record<keyof OutputDesign, Check> = {
+  tubeId: outputTubeId,
+  connection: oneOf(CONNECTIONS),
+  bplus: num(20, 2000, 'V'),
+  screenVolts: num(10, 2000, 'V'),
+  ulTap: num(0.05, 0.95, ''),
+  zPrimary: num(100, 100e3, 'Ω'),
+  rPrimary: num(0, 10e3, 'Ω'),
+  bias: oneOf(['cathode', 'fixed']),
+  rk: num(1, 100e3, 'Ω'),
+  vg: num(-500, 0, 'V'),
+  rg: num(1e3, 10e6, 'Ω'),
+  speakerOhms: num(1, 100, 'Ω'),
+  thdLimit: num(0.001, 0.5, ''),
 };
 
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
@@ -106,6 +128,34 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     const problem = check(s2[key]);
     if (problem) return { ok: false, message: `design.stage2.${key} ${problem} (found ${quote(s2[key])}). Nothing was opened.` };
   }
+  let output: OutputDesign = DEMO_DESIGN.output;
+  let stageKind: BenchDesign['stageKind'] = 'voltage';
+  if (raw.version >= 2) {
+    const kindProblem = oneOf(['voltage', 'output'])(d.stageKind);
+    if (kindProblem) return { ok: false, message: `design.stageKind ${kindProblem} (found ${quote(d.stageKind)}). Nothing was opened.` };
+    stageKind = d.stageKind as BenchDesign['stageKind'];
+    const o = d.output;
+    if (!isRecord(o)) return { ok: false, message: 'design.output is missing. Nothing was opened.' };
+    for (const [key, check] of Object.entries(OUTPUT_FIELDS)) {
+      const problem = check(o[key]);
+      if (problem) return { ok: false, message: `design.output.${key} ${problem} (found ${quote(o[key])}). Nothing was opened.` };
+    }
+    output = {
+      tubeId: findOutputTube(o.tubeId as string)!.id,
+      connection: o.connection as Connection,
+      bplus: o.bplus as number,
+      screenVolts: o.screenVolts as number,
+      ulTap: o.ulTap as number,
+      zPrimary: o.zPrimary as number,
+      rPrimary: o.rPrimary as number,
+      bias: o.bias as OutputDesign['bias'],
+      rk: o.rk as number,
+      vg: o.vg as number,
+      rg: o.rg as number,
+      speakerOhms: o.speakerOhms as number,
+      thdLimit: o.thdLimit as number,
+    };
+  }
   const design: BenchDesign = {
     tubeId: lookupTube(d.tubeId as string)!.id,
     bplus: d.bplus as number,
@@ -128,6 +178,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       rk: s2.rk as number,
       rg: s2.rg as number,
     },
+    stageKind,
+    output,
   };
   return { ok: true, doc: { title: raw.title, design } };
 }

@@ -29,7 +29,8 @@ export const COMPARE_ROWS: readonly Row[] = [
   { label: 'THD at the level', key: 'thd', value: (a) => (a.signal.distortion.ok ? a.signal.distortion.thdPercent : null), show: (v) => `${plain(v)} %`, diff: 'ratio' },
 ];
 
-function difference(row: Row, a: number | null, b: number | null): string {
+/** The second design's value against the first: a percentage for quantities that scale, else a signed difference. */
+export function difference(row: Pick<Row, 'show' | 'diff'>, a: number | null, b: number | null): string {
   if (a === null || b === null) return '—';
   if (row.diff === 'ratio') return a === 0 ? '—' : `${b / a >= 1 ? '+' : '−'}${Math.abs((b / a - 1) * 100).toFixed(0)} %`;
   const d = b - a;

@@ -12,6 +12,7 @@ import {
   type StageDesign,
   type StageSolution,
   type TubeRecord,
+  type OutputDesign,
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { analyzeSignal, type SignalAnalysis } from './signalAnalysis';
@@ -41,7 +42,12 @@ export interface BenchDesign {
   /** Output level the distortion figures are taken at, V rms. */
   readonly levelRms: number;
   readonly stage2: Stage2Design;
+  /** Which stage the bench shows: the resistance-coupled voltage stage or the transformer-coupled output stage. */
+  readonly stageKind: StageKind;
+  readonly output: OutputDesign;
 }
+
+export type StageKind = 'voltage' | 'output';
 
 /** The optional second stage: none, a direct-coupled cathode follower, or a capacitor-coupled gain stage. */
 export interface Stage2Design {

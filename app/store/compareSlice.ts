@@ -64,7 +64,7 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     const rival = { ...s.rival, ...patch };
     if (patch.mode === 'own-values' && s.rival.mode !== 'own-values') Object.assign(rival, { ra: s.design.ra, rk: s.design.rk });
     set({ rival });
-    s.commit(s.design); // re-window both tubes and analyse the rival
+    s.commit(s.design, { force: true }); // re-window both tubes and analyse the rival
   },
 
   swapTubes: () => {
@@ -75,7 +75,7 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     const rival = { ...s.rival, tubeId: s.design.tubeId, ...(own ? { ra: s.design.ra, rk: s.design.rk } : {}) };
     const before = s.rival;
     set({ rival });
-    if (s.commit(design) !== null) set({ rival: before });
+    if (s.commit(design, { force: true }) !== null) set({ rival: before });
   },
 
   dragRivalTo: (vpk, ia) => {

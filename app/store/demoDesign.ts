@@ -23,6 +23,24 @@ export const DEMO_DESIGN: BenchDesign = {
   cout: 1e-6,
   levelRms: 2,
   stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
+  stageKind: 'voltage',
+  output: {
+    // The output stage the bench offers first: an EL34 with its screen on a
+    // 43 % ultralinear tap, 3.5 kΩ primary of 130 Ω, self-biased by 330 Ω.
+    tubeId: 'EL34',
+    connection: 'ultralinear',
+    bplus: 330,
+    screenVolts: 300,
+    ulTap: 0.43,
+    zPrimary: 3500,
+    rPrimary: 130,
+    bias: 'cathode',
+    rk: 330,
+    vg: -22,
+    rg: 220e3,
+    speakerOhms: 8,
+    thdLimit: 0.05,
+  },
 };
 
 export const DEMO_TITLE = 'Line stage, 12AU7 into a 220 k level control';

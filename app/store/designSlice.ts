@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import { tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeRival, sharedWindow } from './compareSlice';
+import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
 import { customTubes } from '../keep/customTubes';
 import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 import { MAX_TITLE_CHARS } from '../keep/designFile';
@@ -9,7 +10,7 @@ import { FIELD_NAMES, FIELDS, type FieldName } from './fields';
 import type { WorkbenchState } from './workbenchStore';
 
 export type Drafts = Record<FieldName, string>;
-export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2', string>>;
+export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube', string>>;
 
 /**
  * The design and what the model makes of it. Every change goes through
@@ -38,13 +39,31 @@ export interface DesignSlice {
   setSeries: (series: PreferredSeries) => void;
   setSnap: (on: boolean) => void;
   /** Runs the model on `next`; on success makes it the design and returns null. */
-  commit: (next: BenchDesign, opts?: { extent?: PlateExtent; typedField?: FieldName; light?: boolean }) => Failure | null;
+  commit: (next: BenchDesign, opts?: CommitOptions) => Failure | null;
   /** How many plate curves the chart draws at most: 6 (sparse), 12 (normal) or 24 (dense). */
   curveCount: number;
   setCurveCount: (n: number) => void;
   setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId'>>) => void;
   /** Makes a whole document (opened file, shared link, shelf) the current design; null on success, else why not. */
   loadDocument: (doc: { title: string; design: BenchDesign }) => Failure | null;
+}
+
+export interface CommitOptions {
+  /** Pins the voltage stage's chart window (while B+ is dragged). */
+  readonly extent?: PlateExtent;
+  /** Pins the output stage's chart window (while its point is dragged). */
+  readonly outputExtent?: PlateExtent;
+  readonly typedField?: FieldName;
+  /** The light analysis of a drag or a keystroke: the costly figures wait for the full pass. */
+  readonly light?: boolean;
+  /** Re-run both analyses even where the design part did not change (curve count, rival). */
+  readonly force?: boolean;
+}
+
+/** True when two designs differ only in their output stage (or which stage is shown). */
+function sameVoltagePart(a: BenchDesign, b: BenchDesign): boolean {
+  for (const k of Object.keys(a) as (keyof BenchDesign)[]) if (k !== 'output' && k !== 'stageKind' && a[k] !== b[k]) return false;
+  return true;
 }
 
 /** How long after the last keystroke the full (signal) analysis runs, ms. */
@@ -57,7 +76,7 @@ function scheduleFullAnalysis(get: () => WorkbenchState): void {
   clearTimeout(pending.get(key));
   pending.set(key, setTimeout(() => {
     const s = get();
-    if (s.analysis.signal.stale && !s.dragging) s.commit(s.design);
+    if ((s.analysis.signal.stale || s.outputBench.light) && !s.dragging) s.commit(s.design);
   }, TYPING_SETTLE_MS));
 }
 
@@ -92,17 +111,33 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
 
   commit: (next, opts = {}) => {
     const s = get();
-    const extent = opts.extent ?? sharedWindow(next, s.rival);
-    const a = analyze(next, s.analysis, extent, opts.light, s.curveCount);
-    if (!a.ok) return a;
-    const rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, opts.light ?? false, s.curveCount);
+    const light = opts.light ?? false;
+    const patch: Partial<WorkbenchState> = {};
+    // Each stage is analysed only when its part of the design changed (or a
+    // full pass follows a light one): dragging the output stage never re-runs
+    // the voltage stage, and the other way round.
+    if (!sameVoltagePart(next, s.design) || opts.force || (!light && s.analysis.signal.stale)) {
+      const extent = opts.extent ?? sharedWindow(next, s.rival);
+      const a = analyze(next, s.analysis, extent, light, s.curveCount);
+      if (!a.ok) return a;
+      const { ok: _ok, ...analysis } = a;
+      patch.analysis = analysis;
+      patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, light, s.curveCount);
+    }
+    if (next.output !== s.design.output || opts.force || (!light && s.outputBench.light)) {
+      const window = opts.outputExtent ?? sharedOutputWindow(next.output, s.outputRival);
+      const ob = analyzeOutputBench(next.output, s.outputBench, { light, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
+      if ('ok' in ob) return ob;
+      patch.outputBench = ob;
+      const prevRival = s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench : null;
+      patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(next.output, s.outputRival), prevRival, { light, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
+    }
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
     const errors = { ...s.errors };
     for (const f of FIELD_NAMES) if (FIELDS[f].get(next) !== FIELDS[f].get(s.design) || f === opts.typedField) delete errors[f];
-    const { ok: _ok, ...analysis } = a;
-    set({ design: next, analysis, drafts, errors, rivalAnalysis });
+    set({ ...patch, design: next, drafts, errors });
     return null;
   },
 
@@ -137,7 +172,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   curveCount: 12,
   setCurveCount: (n) => {
     set({ curveCount: n });
-    get().commit(get().design);
+    get().commit(get().design, { force: true });
   },
 
   setStage2: (patch) => {

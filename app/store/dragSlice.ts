@@ -11,7 +11,7 @@ import type { WorkbenchState } from './workbenchStore';
  * is shown. Dragging the load line's foot on the voltage axis changes B+.
  * The chart window is pinned for the whole drag so the picture holds still.
  */
-export type DragTarget = 'point' | 'bplus';
+export type DragTarget = 'point' | 'bplus' | 'output-point' | 'output-load';
 
 export interface DragSlice {
   dragging: DragTarget | null;
@@ -77,7 +77,15 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     const s = get();
     const was = s.dragging;
     if (was === 'bplus') {
-      s.commit(s.design); // release the pinned window: the axes now follow the new B+
+      s.commit(s.design, { force: true }); // release the pinned window: the axes now follow the new B+
+    } else if (was === 'output-point') {
+      // Release: B+ to the volt, the bias to a preferred resistor or a tenth of a volt, and the full analysis.
+      const o = s.design.output;
+      const patch = o.bias === 'cathode' && s.design.snap ? { rk: nearestPreferred(o.rk, s.design.series) } : o.bias === 'fixed' ? { vg: Math.round(o.vg * 10) / 10 } : {};
+      // Unpinned (force): the window follows the new B+.
+      if (s.commit({ ...s.design, output: { ...o, ...patch, bplus: Math.round(o.bplus) } }, { force: true }) !== null) s.commit(s.design, { force: true });
+    } else if (was === 'output-load') {
+      s.commit(s.design, { force: true });
     } else if (was === 'point') {
       const { ra, rk, series } = s.design;
       const failure = s.design.snap ? s.commit({ ...s.design, ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) }) : null;

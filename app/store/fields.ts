@@ -1,8 +1,11 @@
 import { formatValue, parseValue } from '../../src/index';
+import type { OutputDesign } from '../../src/index';
 import type { BenchDesign } from './analysis';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
-export type FieldName = 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2';
+export type FieldName =
+  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2'
+  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
@@ -44,6 +47,31 @@ const second = <K extends 'ra' | 'rk' | 'rg'>(key: K) => ({
   put: (d: BenchDesign, v: number | null) => ({ ...d, stage2: { ...d.stage2, [key]: v as number } }),
 });
 
+const out = <K extends keyof OutputDesign>(key: K) => ({
+  get: (d: BenchDesign) => d.output[key] as number,
+  put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, [key]: v as number } }),
+});
+
+/** A share typed and shown in percent, held as a fraction. */
+function percent(label: string, min: number, max: number): Read {
+  return (text) => {
+    const r = parseValue(text.replace('%', ''));
+    if (!r.ok) return r;
+    if (r.value < min || r.value > max) return { ok: false, message: `${label} must be from ${min} to ${max} %` };
+    return { ok: true, value: r.value / 100 };
+  };
+}
+const showPercent = (v: number | null) => (v === null ? '' : String(Number((v * 100).toPrecision(3))));
+
+/** A fixed grid bias: 0 V or negative. */
+const gridBias: Read = (text) => {
+  const r = parseValue(text);
+  if (!r.ok) return r;
+  if (r.value > 0) return { ok: false, message: 'Grid bias must be 0 V or negative, e.g. -20' };
+  if (r.value < -500) return { ok: false, message: 'Grid bias must be at least -500 V' };
+  return r;
+};
+
 export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   bplus: { label: 'B+', unit: 'V', example: '275', read: ranged('B+', 'V', 1, 1500), show: compact, ...top('bplus') },
   ra: { label: 'Ra', unit: 'Ω', example: '47k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact, ...top('ra') },
@@ -58,6 +86,16 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact, ...second('ra') },
   rk2: { label: 'Rk (stage 2)', unit: 'Ω', example: '1k or 47k', read: ranged('Rk', 'Ω', 1, 10e6), show: compact, ...second('rk') },
   rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', 'Ω', 1e3, 100e6), show: compact, ...second('rg') },
+  oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', 'V', 20, 2000), show: compact, ...out('bplus') },
+  oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', 'V', 10, 2000), show: compact, ...out('screenVolts') },
+  oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', 5, 95), show: showPercent, ...out('ulTap') },
+  oZ: { label: 'Primary Z', unit: 'Ω', example: '3k5', read: ranged('Primary impedance', 'Ω', 100, 100e3), show: compact, ...out('zPrimary') },
+  oRpri: { label: 'Primary DCR', unit: 'Ω', example: '120', read: ranged('Primary DC resistance', 'Ω', 0, 10e3, { allowZero: true }), show: compact, ...out('rPrimary') },
+  oRk: { label: 'Rk', unit: 'Ω', example: '270', read: ranged('Rk', 'Ω', 1, 100e3), show: compact, ...out('rk') },
+  oVg: { label: 'Grid bias', unit: 'V', example: '-20', read: gridBias, show: (v) => (v === null ? '' : String(Number(v.toFixed(2)))), ...out('vg') },
+  oRg: { label: 'Rg', unit: 'Ω', example: '220k', read: ranged('Rg', 'Ω', 1e3, 10e6), show: compact, ...out('rg') },
+  oSpeaker: { label: 'Speaker', unit: 'Ω', example: '8', read: ranged('Speaker', 'Ω', 1, 100), show: compact, ...out('speakerOhms') },
+  oThd: { label: 'Distortion limit', unit: '%', example: '5', read: percent('Distortion limit', 0.1, 50), show: showPercent, ...out('thdLimit') },
 };
 
 export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

@@ -5,9 +5,10 @@ import { createCompareSlice, type CompareSlice } from './compareSlice';
 import { createCustomSlice, type CustomSlice } from './customSlice';
 import { createHistorySlice, recordHistory, type HistorySlice } from './historySlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
+import { createOutputSlice, type OutputSlice } from './outputSlice';
 
 /** The whole workbench state: the slices, combined once. */
-export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice;
+export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice;
 export type WorkbenchStore = StoreApi<WorkbenchState>;
 
 export interface StoreOptions {
@@ -24,6 +25,7 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createHistorySlice(...a),
     ...createCompareSlice(...a),
     ...createCustomSlice(...a),
+    ...createOutputSlice(...a),
   }));
   recordHistory(store, options.now);
   return store;

@@ -2,6 +2,8 @@ import type { Result } from '../result';
 import type { CurveSheet } from '../stage/curveSheet';
 import type { Finding } from '../stage/findings';
 import type { PlateExtent } from '../stage/plateExtent';
+import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
+import type { ScreenFeed } from './electrodes';
 import type { OutputDesign } from './outputDesign';
 import { outputFindings } from './outputFindings';
 import { outputExtent, outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
@@ -13,6 +15,7 @@ import { solveOutput, type OutputSolution } from './solveOutput';
 export interface OutputAnalysis {
   readonly solution: OutputSolution;
   readonly sheet: CurveSheet;
+  readonly maxCurves: number;
   readonly overlay: OutputOverlay;
   /** Power at the onset of grid current or cutoff, whichever comes first. */
   readonly clean: CleanLimit;
@@ -32,13 +35,25 @@ export interface OutputAnalysis {
   readonly zSweep: ZSweep | null;
 }
 
+/**
+ * Curves drawn with screen feeds this close (V) look the same at chart
+ * scale, so a drag that moves the cathode voltage a little keeps the sheet.
+ */
+export const SHEET_FEED_TOLERANCE = 0.5;
+
+function sameFeed(a: ScreenFeed, b: ScreenFeed): boolean {
+  if (a.kind === 'fixed' && b.kind === 'fixed') return Math.abs(a.vg2k - b.vg2k) < SHEET_FEED_TOLERANCE;
+  if (a.kind === 'tap' && b.kind === 'tap') return a.fraction === b.fraction && Math.abs(a.supply - b.supply) < SHEET_FEED_TOLERANCE;
+  return a.kind === 'tied' && b.kind === 'tied';
+}
+
 export interface OutputAnalysisOptions {
   readonly extent?: PlateExtent;
   readonly maxCurves?: number;
   /** Light: skip the distortion-limited power and both sweeps (the costly parts). */
   readonly light?: boolean;
-  /** A sheet to reuse when the screen feed has not changed. */
-  readonly sheet?: CurveSheet;
+  /** The last analysis: its curve sheet is reused when tube, window, curve count and screen feed are unchanged. */
+  readonly previous?: OutputAnalysis | null;
 }
 
 /**
@@ -51,7 +66,10 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, options: O
   if (!solved.ok) return solved;
   const s = solved;
   const extent = options.extent ?? outputExtent(tube, design.bplus);
-  const sheet = options.sheet ?? outputSheet(tube, s.op.feed, extent, options.maxCurves);
+  const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
+  const prev = options.previous;
+  const reuse = prev && prev.solution.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves && sameFeed(prev.solution.op.feed, s.op.feed);
+  const sheet = reuse ? prev.sheet : outputSheet(tube, s.op.feed, extent, maxCurves);
   const clean = cleanLimit(s);
   const full = atDrive(s, Math.max(0, -s.op.vgk));
   const zOut = s.op.rp + design.rPrimary;
@@ -60,6 +78,7 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, options: O
     ok: true,
     solution: s,
     sheet,
+    maxCurves,
     overlay: outputOverlay(s, extent, clean.at),
     clean,
     full,

@@ -3,6 +3,7 @@ import { fail, type Result } from '../result';
 import { emptyCurrents, screenFeedOf, stageCurrentsInto } from './electrodes';
 import { effectiveConnection, type OutputDesign } from './outputDesign';
 import type { OutputTube } from './outputTube';
+import type { OutputSolution } from './solveOutput';
 
 export interface BiasAnswer {
   /** Grid to cathode, V. */
@@ -41,4 +42,17 @@ export function biasForPoint(tube: OutputTube, d: OutputDesign, vpk: number, ip:
   const ik = c.ik;
   const vk = cathode ? -vgk : 0;
   return { ok: true, vgk, ik, rk: cathode && ik > 0 ? vk / ik : 0, bplus: vpk + ip * d.rPrimary + vk };
+}
+
+/**
+ * The other kind of bias that keeps the grid where it is: Rk = −Vgk/Ik for
+ * cathode bias, or a grid supply of Vgk for fixed bias (the plate then gains
+ * the cathode's voltage). Rounded as a part would be: Rk to the ohm, the
+ * supply to a tenth of a volt.
+ */
+export function switchBias(s: OutputSolution, to: 'cathode' | 'fixed'): Pick<OutputDesign, 'bias' | 'rk' | 'vg'> {
+  const { op, design } = s;
+  if (to === design.bias) return { bias: design.bias, rk: design.rk, vg: design.vg };
+  if (to === 'fixed') return { bias: 'fixed', rk: design.rk, vg: Math.round(op.vgk * 10) / 10 };
+  return { bias: 'cathode', vg: design.vg, rk: op.ik > 0 ? Math.max(1, Math.round(-op.vgk / op.ik)) : design.rk };
 }

@@ -4,7 +4,17 @@ import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
 import { readShareFragment, shareFragment } from '../../../app/keep/shareLink';
 
-const doc = { title: 'Phono second stage', design: { ...DEMO_DESIGN, ra: 33e3, rl: Infinity, stage2: { ...DEMO_DESIGN.stage2, kind: 'follower' as const } } };
+const doc = {
+  title: 'Phono second stage',
+  design: {
+    ...DEMO_DESIGN,
+    ra: 33e3,
+    rl: Infinity,
+    stage2: { ...DEMO_DESIGN.stage2, kind: 'follower' as const },
+    stageKind: 'output' as const,
+    output: { ...DEMO_DESIGN.output, tubeId: 'KT88', connection: 'pentode' as const, bias: 'fixed' as const, vg: -28.5 },
+  },
+};
 
 describe('design files', () => {
   it('round-trip: save then open gives the identical design, title and figures', () => {
@@ -16,7 +26,7 @@ describe('design files', () => {
     const b = analyze(back.doc.design, null);
     if (!a.ok || !b.ok) throw new Error('both solve');
     expect(b.solution).toEqual(a.solution);
-    expect(JSON.parse(text)).toMatchObject({ format: 'quiescent-design', version: 1, savedAt: '2026-12-02T10:00:00.000Z', design: { rl: null } });
+    expect(JSON.parse(text)).toMatchObject({ format: 'quiescent-design', version: 2, savedAt: '2026-12-02T10:00:00.000Z', design: { rl: null } });
   });
 
   const good = JSON.parse(writeDesignFile(doc)) as Record<string, unknown>;
@@ -31,15 +41,32 @@ describe('design files', () => {
   it.each([
     ['truncated', writeDesignFile(doc).slice(0, 80), /^The file is not complete JSON \(cut short or damaged\): .+\. Nothing was opened\.$/],
     ['not a design file', JSON.stringify({ hello: 'world' }), /^This is not a Quiescent design file \(its "format" is not "quiescent-design"\)\. Nothing was opened\.$/],
-    ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 1\. Nothing was opened\.$/],
+    ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 2\. Nothing was opened\.$/],
     ['a wrong value', variant((f) => { f.design.ra = -5; }), /^design\.ra must be a number from 100 to 10000000 Ω \(found -5\)\. Nothing was opened\.$/],
     ['a wrong type', variant((f) => { f.design.bypassed = 'yes'; }), /^design\.bypassed must be true or false \(found "yes"\)\. Nothing was opened\.$/],
     ['an unknown tube', variant((f) => { f.design.tubeId = 'XYZ99'; }), /^design\.tubeId must name a tube in the library or one of yours kept in this browser \(found "XYZ99"\)\. Nothing was opened\.$/],
     ['no second stage', variant((f) => { delete f.design.stage2; }), /^design\.stage2 is missing\. Nothing was opened\.$/],
+    ['no output stage', variant((f) => { delete f.design.output; }), /^design\.output is missing\. Nothing was opened\.$/],
+    ['an unknown output tube', variant((f) => { (f.design.output as Record<string, unknown>).tubeId = '12AX7'; }), /^design\.output\.tubeId must name an output tube in the library \(found "12AX7"\)\. Nothing was opened\.$/],
+    ['a positive grid bias', variant((f) => { (f.design.output as Record<string, unknown>).vg = 5; }), /^design\.output\.vg must be a number from -500 to 0 V \(found 5\)\. Nothing was opened\.$/],
+    ['an unknown stage kind', variant((f) => { f.design.stageKind = 'push-pull'; }), /^design\.stageKind must be one of voltage, output \(found "push-pull"\)\. Nothing was opened\.$/],
   ])('%s gets its own message', (_label, text, message) => {
     const r = readDesignFile(text);
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.message).toMatch(message);
+  });
+
+  it('opens a version 1 file (before output stages) with the default output stage, showing the voltage stage', () => {
+    const v1 = variant((f) => {
+      f.version = 1;
+      delete f.design.output;
+      delete f.design.stageKind;
+    });
+    const r = readDesignFile(v1);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.doc.design.stageKind).toBe('voltage');
+    expect(r.doc.design.output).toEqual(DEMO_DESIGN.output);
+    expect(r.doc.design.ra).toBe(33e3);
   });
 
   it('refuses a 10 MB file before parsing it', () => {

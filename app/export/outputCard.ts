@@ -1,0 +1,63 @@
+import { outputPartsList } from '../../src/index';
+import { farads, mAPerV, milliamps, ohms, percentOf, plain, volts, watts } from '../format';
+import { OUTPUT_COMPARE_ROWS } from '../output/OutputComparePanel';
+import type { WorkbenchState } from '../store/workbenchStore';
+
+/** The build card's text for the output stage, from what the model already computed. */
+export function outputCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
+  const a = s.outputBench.analysis;
+  const { op, tube, design: o } = a.solution;
+  const r = tube.ratings;
+  const parts = outputPartsList(a, s.design.series);
+  const t = parts.transformer;
+  const screen =
+    op.connection === 'pentode' ? `screen at ${volts(o.screenVolts)}` : op.connection === 'ultralinear' ? `screen on a ${percentOf(o.ulTap)} tap` : tube.law.kind === 'pentode' ? 'screen tied to plate' : 'power triode';
+  const sections = [
+    {
+      heading: 'Output stage',
+      lines: [
+        `${tube.id} single-ended, ${screen}, ${o.bias === 'cathode' ? `cathode bias Rk ${ohms(o.rk)} (bypassed)` : `fixed bias ${volts(o.vg)}`}`,
+        `B+ ${volts(o.bplus)}, primary ${ohms(o.zPrimary)} (DCR ${ohms(o.rPrimary)}) into ${ohms(o.speakerOhms)}, turns ${plain(a.turnsRatio)} : 1`,
+      ],
+    },
+    {
+      heading: 'Operating point',
+      lines: [
+        `Vpk ${volts(op.vpk)}, Ia ${milliamps(op.ip)}${op.ig2 > 0 && op.connection !== 'triode' ? `, Ig2 ${milliamps(op.ig2)}` : ''}, Vgk ${volts(op.vgk)}`,
+        `Pa ${watts(op.pa)} (${Math.round((100 * op.pa) / r.maxPlateDissipation)} % of ${r.maxPlateDissipation} W)${r.maxScreenDissipation !== null && op.connection !== 'triode' ? `, Pg2 ${watts(op.pg2)} at idle (${Math.round((100 * op.pg2) / r.maxScreenDissipation)} % of ${r.maxScreenDissipation} W)` : ''}`,
+        `rp as wired ${ohms(op.rp)}, gm ${mAPerV(op.gm)}, damping factor ${plain(a.dampingFactor, 2)}`,
+      ],
+    },
+    {
+      heading: 'Power and distortion',
+      lines: [
+        `Clean: ${watts(a.clean.at.power)} at ${percentOf(a.clean.at.thd)} THD (to ${a.clean.limitedBy}), drive ${volts(a.clean.at.drive / Math.SQRT2)} rms`,
+        `Grid to 0 V: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${percentOf(a.full.harmonics[2] ?? 0)}, H3 ${percentOf(a.full.harmonics[3] ?? 0)})`,
+        a.atLimit ? `Within ${percentOf(o.thdLimit)} THD: ${watts(a.atLimit.power)}` : '',
+        a.zSweep ? `Best primary at this point: ${ohms(a.zSweep.best.zPrimary)} for ${watts(a.zSweep.best.power)} within ${percentOf(a.zSweep.limit)} THD` : '',
+      ].filter(Boolean),
+    },
+    { heading: 'Ratings', lines: a.findings.map((f) => `${f.severity.toUpperCase()}: ${f.message}`) },
+    {
+      heading: 'Parts to order',
+      lines: [
+        `Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap ${percentOf(t.screenTap)}` : ''}`,
+        ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),
+        ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)} or more, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''}`),
+        `Heater ${tube.heater.volts} V, ${tube.heater.amps} A`,
+      ],
+    },
+  ];
+  const rival = s.outputRivalBench;
+  if (s.outputRival.on && rival && !('ok' in rival)) {
+    sections.push({
+      heading: `Compared: ${tube.id} against ${rival.analysis.solution.tube.id} (same parts)`,
+      lines: OUTPUT_COMPARE_ROWS.map((row) => {
+        const x = row.value(a);
+        const y = row.value(rival.analysis);
+        return `${row.label}: ${x === null ? '—' : row.show(x)}  |  ${y === null ? '—' : row.show(y)}`;
+      }),
+    });
+  }
+  return sections;
+}

@@ -1,0 +1,167 @@
+import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
+import { milliamps, ohms, volts } from '../format';
+import { ChartLegend, OUTPUT_STAGE_LEGEND } from '../chart/ChartLegend';
+import { drawAxes, drawFamily, drawGrid, drawLimits } from '../chart/drawSheet';
+import { PALETTE } from '../chart/palette';
+import { plateScales } from '../chart/plateScales';
+import { useChartBox } from '../chart/useChartBox';
+import { CurveDensity } from '../chart/CurveDensity';
+import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
+import { attachOutputDrag } from './attachOutputDrag';
+import { drawOutputOverlay } from './drawOutputOverlay';
+
+/** Arrow keys move the point by 1 % of the window (5 % with Shift); on the load handle they change Zpri by 2 % (10 %). */
+const STEP = 0.01;
+const BIG_STEP = 0.05;
+
+/**
+ * The output stage's plate chart: curves at the screen voltage as wired,
+ * the DC and AC load lines, the point (drag: bias and B+) and the AC load
+ * line's handle (drag: primary impedance). A rival tube's curves, lines and
+ * point share the axes. The overlay follows the store by subscription.
+ */
+export function OutputChart() {
+  const store = useWorkbenchStore();
+  const sheet = useWorkbench((s) => s.outputBench.analysis.sheet);
+  const tubeId = useWorkbench((s) => s.design.output.tubeId);
+  const rivalSheet = useWorkbench((s) => (s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench.analysis.sheet : null));
+  const rivalId = useWorkbench((s) => (s.outputRival.on ? s.outputRival.tubeId : null));
+  const frame = useRef<HTMLDivElement>(null);
+  const box = useChartBox(frame);
+  const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
+  const grid = useRef<SVGGElement>(null);
+  const curves = useRef<SVGGElement>(null);
+  const rivalCurves = useRef<SVGGElement>(null);
+  const limits = useRef<SVGGElement>(null);
+  const axes = useRef<SVGGElement>(null);
+  const lines = useRef<SVGGElement>(null);
+  const point = useRef<SVGGElement>(null);
+  const loadHandle = useRef<SVGGElement>(null);
+  const rivalPoint = useRef<SVGGElement>(null);
+
+  useEffect(() => {
+    if (!grid.current || !curves.current || !limits.current || !axes.current) return;
+    drawGrid(grid.current, scales);
+    drawFamily(curves.current, sheet, scales);
+    drawLimits(limits.current, sheet, scales);
+    drawAxes(axes.current, scales);
+  }, [sheet, scales]);
+
+  useEffect(() => {
+    if (!rivalCurves.current) return;
+    if (rivalSheet) drawFamily(rivalCurves.current, rivalSheet, scales, { stroke: PALETTE.rival, dash: '6 3', labelRow: 1 });
+    else rivalCurves.current.replaceChildren();
+  }, [rivalSheet, scales]);
+
+  useEffect(() => {
+    const nodes = { lines: lines.current!, point: point.current!, loadHandle: loadHandle.current!, rivalPoint: rivalPoint.current! };
+    const draw = () => {
+      const s = store.getState();
+      const a = s.outputBench.analysis;
+      const r = s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench.analysis.overlay : null;
+      drawOutputOverlay(nodes, a.overlay, r, scales);
+      const { op } = a.solution;
+      nodes.point.dataset.vpk = String(op.vpk);
+      nodes.point.dataset.ip = String(op.ip);
+      nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
+      nodes.point.setAttribute('aria-valuetext', `plate ${volts(op.vpk)} to cathode, ${milliamps(op.ip)}, grid ${volts(op.vgk)}`);
+      nodes.loadHandle.setAttribute('aria-valuenow', String(s.design.output.zPrimary));
+      nodes.loadHandle.setAttribute('aria-valuetext', `primary impedance ${ohms(s.design.output.zPrimary)}`);
+    };
+    draw();
+    const unsubscribe = store.subscribe((s, prev) => {
+      if (s.outputBench !== prev.outputBench || s.outputRivalBench !== prev.outputRivalBench) draw();
+    });
+    const detach = attachOutputDrag(store, scales, nodes.point, nodes.loadHandle);
+    return () => {
+      unsubscribe();
+      detach();
+    };
+  }, [store, scales]);
+
+  const onPointKey = (e: KeyboardEvent<SVGGElement>) => {
+    const s = store.getState();
+    if ((e.key === 'Enter' || e.key === 'Escape') && s.dragging === 'output-point') {
+      e.preventDefault();
+      if (e.key === 'Enter') s.endDrag();
+      else s.cancelDrag();
+      return;
+    }
+    const step = e.shiftKey ? BIG_STEP : STEP;
+    const moves: Record<string, [number, number]> = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, step], ArrowDown: [0, -step] };
+    const m = moves[e.key];
+    if (!m) return;
+    e.preventDefault();
+    if (s.dragging !== 'output-point') s.beginDrag('output-point');
+    const { vmax, iaMax } = s.outputBench.analysis.sheet.extent;
+    const { vpk, ip } = store.getState().outputBench.analysis.solution.op;
+    store.getState().dragOutputPointTo(vpk + m[0] * vmax, ip + m[1] * iaMax);
+  };
+  const onPointBlur = () => {
+    if (store.getState().dragging === 'output-point') store.getState().endDrag();
+  };
+  const onLoadKey = (e: KeyboardEvent<SVGGElement>) => {
+    const up = e.key === 'ArrowRight' || e.key === 'ArrowUp';
+    const down = e.key === 'ArrowLeft' || e.key === 'ArrowDown';
+    if (!up && !down) return;
+    e.preventDefault();
+    const s = store.getState();
+    const factor = 1 + (e.shiftKey ? 0.1 : 0.02) * (up ? 1 : -1);
+    s.beginDrag('output-load');
+    s.changeOutput({ zPrimary: Number((s.design.output.zPrimary * factor).toPrecision(3)) });
+    store.getState().endDrag();
+  };
+
+  return (
+    <div className="chart-frame" ref={frame}>
+      <svg
+        className="plate-chart"
+        viewBox={`0 0 ${box.width} ${box.height}`}
+        width={box.width}
+        height={box.height}
+        role="group"
+        aria-label={`Plate curves of the ${tubeId} output stage with its load lines and operating point`}
+      >
+        <g ref={grid} className="layer-grid" />
+        <g ref={limits} className="layer-limits" />
+        <g ref={rivalCurves} className="layer-rival-curves" />
+        <g ref={curves} className="layer-curves" />
+        <g ref={axes} className="layer-axes" />
+        <g ref={lines} className="layer-lines" pointerEvents="none" />
+        <g ref={rivalPoint} className="handle-rival fixed" role="img" aria-label={`Operating point of the ${rivalId ?? 'second tube'} with the same parts`} visibility="hidden">
+          <rect x={-6} y={-6} width={12} height={12} fill={PALETTE.rival} stroke={PALETTE.ink} strokeWidth={1.6} />
+        </g>
+        <g
+          ref={loadHandle}
+          className="handle handle-load"
+          role="slider"
+          tabIndex={0}
+          aria-label="Primary impedance: drag the AC load line's handle, or use the arrow keys"
+          aria-valuemin={100}
+          aria-valuemax={100000}
+          onKeyDown={onLoadKey}
+        >
+          <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
+          <rect x={-5.5} y={-5.5} width={11} height={11} fill={PALETTE.sheet} stroke={PALETTE.load} strokeWidth={2.2} transform="rotate(45)" />
+        </g>
+        <g
+          ref={point}
+          className="handle handle-point"
+          role="slider"
+          tabIndex={0}
+          aria-label="Operating point: drag it to set the bias and B+, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)"
+          aria-valuemin={0}
+          aria-valuemax={sheet.extent.vmax}
+          onKeyDown={onPointKey}
+          onBlur={onPointBlur}
+        >
+          <circle r={16} fill="transparent" />
+          <circle r={7} fill={PALETTE.point} stroke={PALETTE.ink} strokeWidth={1.8} />
+          <circle r={1.8} fill={PALETTE.ink} />
+        </g>
+      </svg>
+      <CurveDensity />
+      <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={OUTPUT_STAGE_LEGEND} />
+    </div>
+  );
+}

@@ -1,0 +1,87 @@
+import { useId } from 'react';
+import { connectionsOf, findOutputTube, outputTubeLibrary, type Connection, type OutputAnalysis } from '../../src/index';
+import { mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
+import { difference } from '../panels/ComparePanel';
+import { useWorkbench } from '../store/StoreProvider';
+
+interface Row {
+  readonly label: string;
+  readonly key: string;
+  readonly value: (a: OutputAnalysis) => number | null;
+  readonly show: (v: number) => string;
+  readonly diff: 'ratio' | 'difference';
+}
+
+const share = (v: number, rating: number | null) => (rating ? (100 * v) / rating : null);
+
+export const OUTPUT_COMPARE_ROWS: readonly Row[] = [
+  { label: 'Vpk', key: 'vpk', value: (a) => a.solution.op.vpk, show: volts, diff: 'difference' },
+  { label: 'Plate current', key: 'ip', value: (a) => a.solution.op.ip, show: milliamps, diff: 'ratio' },
+  { label: 'Vgk', key: 'vgk', value: (a) => a.solution.op.vgk, show: volts, diff: 'difference' },
+  { label: 'Pa / rating', key: 'pa-share', value: (a) => share(a.solution.op.pa, a.solution.tube.ratings.maxPlateDissipation), show: (v) => `${v.toFixed(0)} %`, diff: 'difference' },
+  { label: 'Pg2 / rating', key: 'pg2-share', value: (a) => (a.solution.op.connection === 'triode' ? null : share(a.solution.op.pg2, a.solution.tube.ratings.maxScreenDissipation)), show: (v) => `${v.toFixed(0)} %`, diff: 'difference' },
+  { label: 'rp as wired', key: 'rp', value: (a) => a.solution.op.rp, show: ohms, diff: 'ratio' },
+  { label: 'gm', key: 'gm', value: (a) => a.solution.op.gm, show: mAPerV, diff: 'ratio' },
+  { label: 'Damping factor', key: 'damping', value: (a) => a.dampingFactor, show: (v) => plain(v, 2), diff: 'ratio' },
+  { label: 'Clean power', key: 'clean', value: (a) => a.clean.at.power, show: watts, diff: 'ratio' },
+  { label: 'THD at clean power', key: 'clean-thd', value: (a) => a.clean.at.thd * 100, show: (v) => `${plain(v, 2)} %`, diff: 'ratio' },
+  { label: 'Power within the THD limit', key: 'limit', value: (a) => a.atLimit?.power ?? null, show: watts, diff: 'ratio' },
+  { label: 'Best primary Z at the limit', key: 'best-z', value: (a) => a.zSweep?.best.zPrimary ?? null, show: ohms, diff: 'ratio' },
+];
+
+/** Two output tubes in the same socket (same B+, transformer and bias parts), on one chart and side by side. */
+export function OutputComparePanel() {
+  const rival = useWorkbench((s) => s.outputRival);
+  const setOutputRival = useWorkbench((s) => s.setOutputRival);
+  const first = useWorkbench((s) => s.outputBench.analysis);
+  const second = useWorkbench((s) => s.outputRivalBench);
+  const id = useId();
+  const rivalTube = findOutputTube(rival.tubeId);
+  const connections = rivalTube ? connectionsOf(rivalTube) : [];
+  const b = second && !('ok' in second) ? second.analysis : null;
+  return (
+    <section className="panel compare" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>Compare output tubes</h2>
+      <div className="option-row">
+        <label>
+          <input type="checkbox" checked={rival.on} onChange={(e) => setOutputRival({ on: e.target.checked })} /> Compare with
+        </label>
+        <label htmlFor={`${id}-tube`} className="visually-hidden">Second output tube</label>
+        <select id={`${id}-tube`} value={rival.tubeId} onChange={(e) => setOutputRival({ tubeId: e.target.value, on: true })}>
+          {outputTubeLibrary.map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
+        </select>
+        <label htmlFor={`${id}-conn`} className="visually-hidden">Its connection</label>
+        <select id={`${id}-conn`} value={rival.connection} onChange={(e) => setOutputRival({ connection: e.target.value as Connection })}>
+          {connections.map((c) => <option key={c} value={c}>{c}</option>)}
+        </select>
+      </div>
+      {rival.on && second && 'ok' in second ? <p className="field-error" role="alert">The {rival.tubeId} cannot run with these parts: {second.message}</p> : null}
+      {rival.on && b ? (
+        <table className="compare-table">
+          <thead>
+            <tr>
+              <th scope="col">Same parts</th>
+              <th scope="col">{first.solution.tube.id} ({first.solution.op.connection})</th>
+              <th scope="col">{b.solution.tube.id} ({b.solution.op.connection})</th>
+              <th scope="col">Difference</th>
+            </tr>
+          </thead>
+          <tbody>
+            {OUTPUT_COMPARE_ROWS.map((row) => {
+              const va = row.value(first);
+              const vb = row.value(b);
+              return (
+                <tr key={row.key} data-row={row.key}>
+                  <th scope="row">{row.label}</th>
+                  <td>{va === null ? '—' : row.show(va)}</td>
+                  <td>{vb === null ? '—' : row.show(vb)}</td>
+                  <td>{difference(row, va, vb)}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,71 @@
+import { mAPerV, milliamps, ohms, percentOf as percent, plain, volts, watts } from '../format';
+import { useWorkbench } from '../store/StoreProvider';
+
+/** A share of a rating with its bar: green below 85 %, amber to 100 %, red above. */
+function Share({ name, label, value, rating }: { name: string; label: string; value: number; rating: number }) {
+  const share = value / rating;
+  const barClass = share > 1 ? 'bar danger' : share > 0.85 ? 'bar warning' : 'bar';
+  return (
+    <div className="figure" data-figure={name}>
+      <dt>{label}</dt>
+      <dd>
+        {watts(value)} <span className="muted">({Math.round(share * 100)} % of {rating} W)</span>
+        <span className={barClass} role="meter" aria-label={`${label}, share of rating`} aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(share * 100)}>
+          <span style={{ width: `${Math.min(share, 1) * 100}%` }} />
+        </span>
+      </dd>
+    </div>
+  );
+}
+
+function Figure({ name, label, value }: { name: string; label: string; value: string }) {
+  return (
+    <div className="figure" data-figure={name}>
+      <dt>{label}</dt>
+      <dd>{value}</dd>
+    </div>
+  );
+}
+
+/**
+ * The output stage's figures: the quiescent point, dissipation against
+ * ratings, small-signal figures, and power: clean (to grid current or
+ * cutoff), at full drive (grid to 0 V, as data sheets quote it), and within
+ * the distortion limit. Names in data-figure for tests and exports.
+ */
+export function OutputFigures() {
+  const bench = useWorkbench((s) => s.outputBench);
+  const a = bench.analysis;
+  const { op, tube } = a.solution;
+  const r = tube.ratings;
+  const screen = tube.law.kind === 'pentode' && op.connection !== 'triode';
+  return (
+    <section className="panel figures" aria-label="Output stage figures">
+      <dl className="figure-group">
+        <Figure name="vpk" label="Vpk" value={volts(op.vpk)} />
+        <Figure name="ip" label={op.connection === 'triode' && tube.law.kind === 'pentode' ? 'Ia + Ig2' : 'Ia'} value={milliamps(op.ip)} />
+        {screen ? <Figure name="ig2" label="Ig2" value={milliamps(op.ig2)} /> : null}
+        <Figure name="vgk" label="Vgk" value={volts(op.vgk)} />
+        <Share name="pa" label="Pa" value={op.pa} rating={r.maxPlateDissipation} />
+        {screen && r.maxScreenDissipation !== null ? <Share name="pg2" label="Pg2 (idle)" value={op.pg2} rating={r.maxScreenDissipation} /> : null}
+      </dl>
+      <dl className="figure-group">
+        <Figure name="rp" label="rp (as wired)" value={ohms(op.rp)} />
+        <Figure name="gm" label="gm" value={mAPerV(op.gm)} />
+        <Figure name="damping" label="Damping factor" value={plain(a.dampingFactor, 2)} />
+        <Figure name="zout" label="Zout at the speaker" value={ohms(a.outputImpedance)} />
+        <Figure name="turns" label="Turns ratio" value={`${plain(a.turnsRatio, 3)} : 1`} />
+      </dl>
+      <dl className="figure-group">
+        <Figure name="clean-power" label={`Clean power (to ${a.clean.limitedBy})`} value={`${watts(a.clean.at.power)} at ${percent(a.clean.at.thd)} THD`} />
+        <Figure name="full-power" label="Grid driven to 0 V" value={`${watts(a.full.power)} at ${percent(a.full.thd)} THD`} />
+        <Figure
+          name="limit-power"
+          label={`Power within ${percent(bench.analysis.solution.design.thdLimit)} THD`}
+          value={a.atLimit ? `${watts(a.atLimit.power)}${a.atLimit.limitedBy === 'grid current' ? ' (grid current first)' : ''}` : '…'}
+        />
+        <Figure name="drive" label="Drive for clean power" value={`${volts(a.clean.at.drive / Math.SQRT2)} rms`} />
+      </dl>
+    </section>
+  );
+}

@@ -1,0 +1,72 @@
+import { useId } from 'react';
+import { connectionsOf, outputTubeLibrary, switchBias, type Connection } from '../../src/index';
+import { ValueField } from '../panels/ValueField';
+import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
+
+/** What each connection's figures can be trusted for, said plainly beside the choice. */
+export const CONNECTION_NOTES: Record<Connection, string> = {
+  pentode: 'Screen at a fixed supply. Koren\'s pentode law: plate current and power as fitted; screen current is the idle figure and reads low near full drive.',
+  triode: 'Screen tied to the plate: the pentode law with Vg2 = Va. Against recalled triode-connection figures its current is within 5 % for the EL34 and EL84; the other types are unchecked.',
+  ultralinear: 'Screen on a primary tap. The law with Vg2 following the plate by the tap share: as good as the pentode fit between the two other modes.',
+};
+
+const CONNECTION_LABEL: Record<Connection, string> = { pentode: 'Pentode', triode: 'Triode-connected', ultralinear: 'Ultralinear' };
+
+/** The output stage's values: tube, connection, bias and the transformer, each with its message beside it. */
+export function OutputValues() {
+  const store = useWorkbenchStore();
+  const o = useWorkbench((s) => s.design.output);
+  const tubeError = useWorkbench((s) => s.errors.outputTube);
+  const chooseOutputTube = useWorkbench((s) => s.chooseOutputTube);
+  const changeOutput = useWorkbench((s) => s.changeOutput);
+  const tube = useWorkbench((s) => s.outputBench.analysis.solution.tube);
+  const id = useId();
+  const connections = connectionsOf(tube);
+  const setBias = (to: 'cathode' | 'fixed') => changeOutput(switchBias(store.getState().outputBench.analysis.solution, to));
+  return (
+    <section className="panel circuit-values output-values" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>Output stage</h2>
+      <div className="value-field">
+        <label htmlFor={`${id}-tube`} className="field-label">Output tube</label>
+        <select id={`${id}-tube`} value={o.tubeId} onChange={(e) => chooseOutputTube(e.target.value)} aria-describedby={`${id}-tube-note`}>
+          {outputTubeLibrary.map((t) => (
+            <option key={t.id} value={t.id}>
+              {t.id} — {t.construction}, {t.ratings.maxPlateDissipation} W
+            </option>
+          ))}
+        </select>
+        {tubeError ? <p className="field-error" role="alert">{tubeError}</p> : <p id={`${id}-tube-note`} className="field-hint">{tube.description} Law: {tube.lawSource}.</p>}
+      </div>
+      <fieldset className="option-row" aria-label="Screen connection">
+        {(['pentode', 'triode', 'ultralinear'] as const).map((c) => (
+          <label key={c}>
+            <input type="radio" name={`${id}-conn`} value={c} checked={(tube.law.kind === 'triode' ? 'triode' : o.connection) === c} disabled={!connections.includes(c)} onChange={() => changeOutput({ connection: c })} />
+            {CONNECTION_LABEL[c]}
+          </label>
+        ))}
+      </fieldset>
+      <p className="field-hint">{tube.law.kind === 'triode' ? 'A power triode: no screen to connect.' : CONNECTION_NOTES[o.connection]}</p>
+      <div className="value-grid">
+        <ValueField field="oBplus" hint="at the primary's B+ end" />
+        {tube.law.kind === 'pentode' && o.connection === 'pentode' ? <ValueField field="oScreen" hint="screen supply to ground" /> : null}
+        {tube.law.kind === 'pentode' && o.connection === 'ultralinear' ? <ValueField field="oTap" hint="share of primary turns from B+" /> : null}
+        <ValueField field="oZ" hint="reflected load, plate to B+" />
+        <ValueField field="oRpri" hint="primary DC resistance" />
+      </div>
+      <fieldset className="option-row" aria-label="Bias">
+        <label>
+          <input type="radio" name={`${id}-bias`} checked={o.bias === 'cathode'} onChange={() => setBias('cathode')} /> Cathode bias (Rk, bypassed)
+        </label>
+        <label>
+          <input type="radio" name={`${id}-bias`} checked={o.bias === 'fixed'} onChange={() => setBias('fixed')} /> Fixed bias
+        </label>
+      </fieldset>
+      <div className="value-grid">
+        {o.bias === 'cathode' ? <ValueField field="oRk" /> : <ValueField field="oVg" hint="grid supply" />}
+        <ValueField field="oRg" hint="grid resistor" />
+        <ValueField field="oSpeaker" />
+        <ValueField field="oThd" hint="for the power-at-distortion figures" />
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,59 @@
+import { capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
+import type { PreferredSeries } from '../parts/preferredValues';
+import { followerZout } from '../stage/gainFormulas';
+import type { OutputAnalysis } from './analyzeOutput';
+
+/** The bypass is sized for its corner to sit this far below the band, Hz (common practice: a decade under 20 Hz is often quoted; 10 Hz keeps the part sane). */
+export const CATHODE_BYPASS_CORNER_HZ = 10;
+
+export interface TransformerSpec {
+  readonly primary: number;
+  readonly secondary: number;
+  readonly primaryDcr: number;
+  /** DC through the primary at idle, A: a single-ended core must carry it without saturating. */
+  readonly dcCurrent: number;
+  /** Power the transformer must pass at the clean limit, W. */
+  readonly power: number;
+  /** Ultralinear screen tap, fraction of the primary's turns; null when there is none. */
+  readonly screenTap: number | null;
+}
+
+export interface OutputPartsList {
+  readonly resistors: ResistorLine[];
+  readonly capacitors: CapacitorLine[];
+  readonly transformer: TransformerSpec;
+}
+
+/**
+ * What to order for the output stage. Resistors and the bypass capacitor use
+ * the voltage stage's rules (power and voltage ratings twice the worst case,
+ * common practice). The bypass is sized so that its reactance equals the
+ * impedance it shunts at CATHODE_BYPASS_CORNER_HZ: Rk in parallel with the
+ * cathode's own impedance, (rp + Zpri)/(μ + 1) (the cathode-follower formula,
+ * Langford-Smith, RDH4 ch. 13).
+ */
+export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): OutputPartsList {
+  const { op, design } = a.solution;
+  const resistors: ResistorLine[] = [];
+  const capacitors: CapacitorLine[] = [];
+  if (design.bias === 'cathode') {
+    resistors.push(resistorLine('Rk', 'cathode resistor', design.rk, op.ik, series));
+    const rkPreferred = resistors[0]!.preferred;
+    const shunted = followerZout(op.mu, op.rp + design.zPrimary, rkPreferred);
+    const ck = 1 / (2 * Math.PI * CATHODE_BYPASS_CORNER_HZ * shunted);
+    capacitors.push(capacitorLine('Ck', 'cathode bypass', ck, op.vk, 0, '+ to cathode'));
+  }
+  resistors.push(resistorLine('Rg', design.bias === 'fixed' ? 'grid resistor to the bias supply' : 'grid resistor', design.rg, 0, series));
+  return {
+    resistors,
+    capacitors,
+    transformer: {
+      primary: design.zPrimary,
+      secondary: design.speakerOhms,
+      primaryDcr: design.rPrimary,
+      dcCurrent: op.ip,
+      power: a.clean.at.power,
+      screenTap: op.connection === 'ultralinear' ? design.ulTap : null,
+    },
+  };
+}

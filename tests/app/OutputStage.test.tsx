@@ -1,0 +1,130 @@
+import { render, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { expectClose } from '../helpers/expectClose';
+
+async function setup() {
+  const store = createWorkbenchStore();
+  const user = userEvent.setup();
+  const view = render(<App store={store} />);
+  await user.click(screen.getByLabelText('Output stage (transformer-coupled)'));
+  const figure = (name: string) => view.container.querySelector(`[data-figure="${name}"] dd`)!.textContent;
+  const field = (label: RegExp) => screen.getByRole('textbox', { name: label }) as HTMLInputElement;
+  return { store, user, view, figure, field };
+}
+
+describe('the output stage on the bench', () => {
+  it('shows the output figures, chart and schematic once chosen, and keeps the voltage stage as it was', async () => {
+    const { store, figure, view } = await setup();
+    expect(store.getState().design.stageKind).toBe('output');
+    expect(figure('clean-power')).toMatch(/W at .* % THD/);
+    expect(figure('damping')).toMatch(/^\d/);
+    expect(view.container.querySelector('svg.plate-chart .layer-curves path')).not.toBeNull();
+    expect(screen.getByRole('img', { name: /EL34 single-ended output stage, ultralinear connection/ })).toBeTruthy();
+    expect(store.getState().design.ra).toBe(27e3);
+  });
+
+  it('a bad primary impedance gets its message beside the field and the last good design stays', async () => {
+    const { store, user, field, figure } = await setup();
+    const before = figure('clean-power');
+    const z = field(/^Primary Z/);
+    await user.clear(z);
+    await user.type(z, '50');
+    expect(screen.getByText('Primary impedance must be at least 100 Ω')).toBeTruthy();
+    expect(z.getAttribute('aria-invalid')).toBe('true');
+    expect(store.getState().design.output.zPrimary).toBe(3500);
+    expect(figure('clean-power')).toBe(before);
+    await user.clear(z);
+    await user.type(z, '5k');
+    expect(store.getState().design.output.zPrimary).toBe(5000);
+  });
+
+  it('switching to fixed bias keeps the grid where it was, and back gives an Rk', async () => {
+    const { store, user } = await setup();
+    const vgk = store.getState().outputBench.analysis.solution.op.vgk;
+    await user.click(screen.getByLabelText('Fixed bias'));
+    expect(store.getState().design.output.bias).toBe('fixed');
+    expectClose(store.getState().design.output.vg, vgk, { abs: 0.05 }, 'grid supply');
+    await user.click(screen.getByLabelText('Cathode bias (Rk, bypassed)'));
+    expect(store.getState().design.output.rk).toBeGreaterThan(100);
+  });
+
+  it('a power triode offers only the triode connection', async () => {
+    const { store, user } = await setup();
+    await user.selectOptions(screen.getByLabelText('Output tube'), '300B');
+    expect(store.getState().design.output.tubeId).toBe('300B');
+    expect((screen.getByLabelText('Pentode') as HTMLInputElement).disabled).toBe(true);
+    expect((screen.getByLabelText('Triode-connected') as HTMLInputElement).checked).toBe(true);
+  });
+
+  it('compares a second output tube on the same parts', async () => {
+    const { store, user, view } = await setup();
+    await user.click(screen.getByLabelText('Compare with'));
+    expect(store.getState().outputRival.on).toBe(true);
+    const row = view.container.querySelector('tr[data-row="clean"]')!;
+    expect(row.textContent).toMatch(/W.*W/);
+    expect(view.container.querySelectorAll('.layer-rival-curves path').length).toBeGreaterThan(3);
+  });
+});
+
+describe('output stage in the store', () => {
+  it('dragging the point puts it under the pointer by setting Rk and B+, and the drag is one undo step', () => {
+    const store = createWorkbenchStore();
+    const s = store.getState();
+    s.setStageKind('output');
+    const before = store.getState().design;
+    store.getState().beginDrag('output-point');
+    store.getState().dragOutputPointTo(280, 0.07);
+    store.getState().dragOutputPointTo(320, 0.06);
+    const op = store.getState().outputBench.analysis.solution.op;
+    expectClose(op.vpk, 320, { rel: 1e-4 }, 'Vpk under the pointer');
+    expectClose(op.ip, 0.06, { rel: 1e-4 }, 'Ia under the pointer');
+    store.getState().endDrag();
+    const after = store.getState().design.output;
+    expect(after.rk).not.toBe(before.output.rk);
+    expect(Number.isInteger(after.bplus)).toBe(true);
+    store.getState().undo();
+    expect(store.getState().design).toEqual(before);
+  });
+
+  it('dragging the load handle sets the primary impedance through that point', () => {
+    const store = createWorkbenchStore();
+    store.getState().setStageKind('output');
+    const { vpk, ip } = store.getState().outputBench.analysis.solution.op;
+    const rPri = store.getState().design.output.rPrimary;
+    store.getState().beginDrag('output-load');
+    store.getState().dragOutputLoadTo(vpk + 0.03 * (5000 + rPri), ip - 0.03);
+    store.getState().endDrag();
+    expect(store.getState().design.output.zPrimary).toBe(5000);
+    expect(store.getState().outputBench.light).toBe(false);
+  });
+
+  it('a design file carries the output stage and which stage is shown', () => {
+    const store = createWorkbenchStore();
+    store.getState().setStageKind('output');
+    store.getState().changeOutput({ tubeId: 'KT88', connection: 'triode', zPrimary: 2500 });
+    const s = store.getState();
+    const back = readDesignFile(writeDesignFile({ title: s.title, design: s.design }));
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc.design.stageKind).toBe('output');
+    expect(back.doc.design.output).toEqual(s.design.output);
+  });
+});
+
+describe('the build card for an output stage', () => {
+  it('lists the stage, power, ratings, transformer and parts, and the comparison when on', async () => {
+    const { cardSections } = await import('../../app/export/buildCard');
+    const store = createWorkbenchStore();
+    store.getState().setStageKind('output');
+    store.getState().setOutputRival({ on: true, tubeId: 'KT88', connection: 'ultralinear' });
+    const sections = cardSections(store.getState());
+    const text = sections.map((s) => `${s.heading}\n${s.lines.join('\n')}`).join('\n');
+    expect(sections.map((s) => s.heading)).toEqual(['Output stage', 'Operating point', 'Power and distortion', 'Ratings', 'Parts to order', 'Compared: EL34 against KT88 (same parts)']);
+    expect(text).toMatch(/Output transformer: 3\.5 kΩ to 8 Ω/);
+    expect(text).toMatch(/screen on a 43 % tap/);
+    expect(text).toMatch(/Clean: .* W at .* THD/);
+  });
+});

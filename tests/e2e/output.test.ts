@@ -1,0 +1,75 @@
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+
+const run = chromiumGate();
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+describe.runIf(run)('the output stage in Chromium', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  const openOutput = async (on: OpenBrowser = browser) => {
+    const bench = await openWorkbench(on, inject('baseUrl'));
+    await bench.page.getByLabel('Output stage (transformer-coupled)').check();
+    await bench.page.waitForSelector('[data-figure="clean-power"]');
+    return bench;
+  };
+
+  it('dragging the operating point sets Rk and B+; dragging the load handle sets the primary impedance', async () => {
+    const { page, errors } = await openOutput();
+    const rk = () => page.getByRole('textbox', { name: /^Rk/ }).inputValue();
+    const bplus = () => page.getByRole('textbox', { name: /^B\+/ }).inputValue();
+    const before = { rk: await rk(), bplus: await bplus() };
+    const point = page.getByRole('slider', { name: /operating point/i });
+    const box = (await point.boundingBox())!;
+    const x = box.x + box.width / 2;
+    const y = box.y + box.height / 2;
+    await page.mouse.move(x, y);
+    await page.mouse.down();
+    for (let k = 1; k <= 10; k++) await page.mouse.move(x + k * 6, y + k * 3);
+    await page.mouse.up();
+    await expect.poll(rk).not.toBe(before.rk);
+    expect(await bplus()).not.toBe(before.bplus);
+
+    const z = () => page.getByRole('textbox', { name: /^Primary Z/ }).inputValue();
+    const zBefore = await z();
+    const handle = page.getByRole('slider', { name: /primary impedance/i });
+    const hb = (await handle.boundingBox())!;
+    await page.mouse.move(hb.x + hb.width / 2, hb.y + hb.height / 2);
+    await page.mouse.down();
+    for (let k = 1; k <= 8; k++) await page.mouse.move(hb.x + hb.width / 2 + k * 8, hb.y + hb.height / 2 - k * 2);
+    await page.mouse.up();
+    await expect.poll(z).not.toBe(zBefore);
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('compares two output tubes on one chart', async () => {
+    const { page, errors } = await openOutput();
+    await page.getByLabel('Compare with').check();
+    await expect.poll(() => page.locator('.layer-rival-curves path').count()).toBeGreaterThan(3);
+    expect(await page.locator('tr[data-row="clean"]').textContent()).toMatch(/W.*W/);
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('has no serious accessibility violations (axe-core)', async () => {
+    const tooling = await openBrowser(undefined, { bypassCSP: true });
+    const { page } = await openOutput(tooling);
+    await page.addScriptTag({ content: axeSource });
+    const result = await page.evaluate(async () => {
+      const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+      return axe.run(document, { resultTypes: ['violations'] });
+    });
+    const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+    await tooling.close();
+  });
+});

@@ -1,0 +1,18 @@
+import { describe, expect, it } from 'vitest';
+import { findOutputTube, findTube, korenPentode } from '../../src/index';
+import { relErr } from '../helpers/expectClose';
+
+// Triode connection from the pentode law (screen tied to plate, the two
+// currents summed) against the triode-connection figures in the triode
+// library's EL34-T and EL84-T records (from memory, low confidence, as marked
+// there). Tolerance 10 %: memory-grade figures, loose check.
+describe('triode connection from the pentode law', () => {
+  it.each([['EL34', 'EL34-T'], ['EL84', 'EL84-T']] as const)('%s tied matches the %s figures within 10 %', (outputId, triodeId) => {
+    const law = findOutputTube(outputId)!.law;
+    if (law.kind !== 'pentode') throw new Error('a pentode');
+    for (const p of findTube(triodeId)!.typical) {
+      const c = korenPentode(law.params, p.va, p.vg, p.va);
+      expect(Math.abs(relErr(c.ia + c.ig2, p.ia)), `${p.va} V / ${p.vg} V`).toBeLessThan(10);
+    }
+  });
+});
