@@ -1,31 +1,6 @@
 import { mAPerV, milliamps, ohms, percentOf as percent, plain, volts, watts } from '../format';
+import { Figure, Share } from '../panels/Figure';
 import { useWorkbench } from '../store/StoreProvider';
-
-/** A share of a rating with its bar: green below 85 %, amber to 100 %, red above. */
-function Share({ name, label, value, rating }: { name: string; label: string; value: number; rating: number }) {
-  const share = value / rating;
-  const barClass = share > 1 ? 'bar danger' : share > 0.85 ? 'bar warning' : 'bar';
-  return (
-    <div className="figure" data-figure={name}>
-      <dt>{label}</dt>
-      <dd>
-        {watts(value)} <span className="muted">({Math.round(share * 100)} % of {rating} W)</span>
-        <span className={barClass} role="meter" aria-label={`${label}, share of rating`} aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(share * 100)}>
-          <span style={{ width: `${Math.min(share, 1) * 100}%` }} />
-        </span>
-      </dd>
-    </div>
-  );
-}
-
-function Figure({ name, label, value }: { name: string; label: string; value: string }) {
-  return (
-    <div className="figure" data-figure={name}>
-      <dt>{label}</dt>
-      <dd>{value}</dd>
-    </div>
-  );
-}
 
 /**
  * The output stage's figures: the quiescent point, dissipation against
@@ -46,8 +21,8 @@ export function OutputFigures() {
         <Figure name="ip" label={op.connection === 'triode' && tube.law.kind === 'pentode' ? 'Ia + Ig2' : 'Ia'} value={milliamps(op.ip)} />
         {screen ? <Figure name="ig2" label="Ig2" value={milliamps(op.ig2)} /> : null}
         <Figure name="vgk" label="Vgk" value={volts(op.vgk)} />
-        <Share name="pa" label="Pa" value={op.pa} rating={r.maxPlateDissipation} />
-        {screen && r.maxScreenDissipation !== null ? <Share name="pg2" label="Pg2 (idle)" value={op.pg2} rating={r.maxScreenDissipation} /> : null}
+        <Share name="pa" label="Pa" value={op.pa} rating={r.maxPlateDissipation} meterLabel="Plate dissipation, share of rating" />
+        {screen && r.maxScreenDissipation !== null ? <Share name="pg2" label="Pg2 (idle)" value={op.pg2} rating={r.maxScreenDissipation} meterLabel="Screen dissipation, share of rating" /> : null}
       </dl>
       <dl className="figure-group">
         <Figure name="rp" label="rp (as wired)" value={ohms(op.rp)} />

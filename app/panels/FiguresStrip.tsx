@@ -1,4 +1,5 @@
-import { decibels, farads, mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
+import { decibels, farads, mAPerV, milliamps, ohms, plain, volts } from '../format';
+import { Figure, Share } from './Figure';
 import { useWorkbench } from '../store/StoreProvider';
 
 /**
@@ -9,8 +10,6 @@ export function FiguresStrip() {
   const sol = useWorkbench((s) => s.analysis.solution);
   const maxPa = useWorkbench((s) => s.analysis.tube.ratings.maxPlateDissipation);
   const { op } = sol;
-  const share = op.pa / maxPa;
-  const barClass = share > 1 ? 'bar danger' : share > 0.85 ? 'bar warning' : 'bar';
   return (
     <section className="panel figures" aria-label="Figures at the operating point">
       <dl className="figure-group">
@@ -18,15 +17,7 @@ export function FiguresStrip() {
         <Figure name="vpk" label="Vpk" value={volts(op.vpk)} />
         <Figure name="ia" label="Ia" value={milliamps(op.ia)} />
         <Figure name="vgk" label="Vgk" value={volts(op.vgk)} />
-        <div className="figure" data-figure="pa">
-          <dt>Pa</dt>
-          <dd>
-            {watts(op.pa)} <span className="muted">({Math.round(share * 100)} % of {maxPa} W)</span>
-            <span className={barClass} role="meter" aria-label="Plate dissipation, share of rating" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(share * 100)}>
-              <span style={{ width: `${Math.min(share, 1) * 100}%` }} />
-            </span>
-          </dd>
-        </div>
+        <Share name="pa" label="Pa" value={op.pa} rating={maxPa} meterLabel="Plate dissipation, share of rating" />
       </dl>
       <dl className="figure-group">
         <Figure name="mu" label="μ" value={plain(sol.mu)} />
@@ -43,14 +34,5 @@ export function FiguresStrip() {
         <Figure name="to-cutoff" label="Grid swing to cutoff" value={volts(sol.toCutoff)} />
       </dl>
     </section>
-  );
-}
-
-function Figure({ name, label, value }: { name: string; label: string; value: string }) {
-  return (
-    <div className="figure" data-figure={name}>
-      <dt>{label}</dt>
-      <dd>{value}</dd>
-    </div>
   );
 }

@@ -76,7 +76,8 @@ function scheduleFullAnalysis(get: () => WorkbenchState): void {
   clearTimeout(pending.get(key));
   pending.set(key, setTimeout(() => {
     const s = get();
-    if ((s.analysis.signal.stale || s.outputBench.light) && !s.dragging) s.commit(s.design);
+    const behind = s.design.stageKind === 'output' ? s.outputBench.light : s.analysis.signal.stale;
+    if (behind && !s.dragging) s.commit(s.design);
   }, TYPING_SETTLE_MS));
 }
 
@@ -113,24 +114,28 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const s = get();
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};
-    // Each stage is analysed only when its part of the design changed (or a
-    // full pass follows a light one): dragging the output stage never re-runs
-    // the voltage stage, and the other way round.
-    if (!sameVoltagePart(next, s.design) || opts.force || (!light && s.analysis.signal.stale)) {
+    // Each stage is analysed only when its part of the design changed, or to
+    // follow a light pass with the full one; the stage not on the bench gets
+    // the light analysis only (its costly figures wait until it is shown), so
+    // dragging or typing in one stage never pays for the other.
+    const showsVoltage = next.stageKind === 'voltage';
+    if (!sameVoltagePart(next, s.design) || opts.force || (!light && showsVoltage && s.analysis.signal.stale)) {
+      const voltageLight = light || !showsVoltage;
       const extent = opts.extent ?? sharedWindow(next, s.rival);
-      const a = analyze(next, s.analysis, extent, light, s.curveCount);
+      const a = analyze(next, s.analysis, extent, voltageLight, s.curveCount);
       if (!a.ok) return a;
       const { ok: _ok, ...analysis } = a;
       patch.analysis = analysis;
-      patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, light, s.curveCount);
+      patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, voltageLight, s.curveCount);
     }
-    if (next.output !== s.design.output || opts.force || (!light && s.outputBench.light)) {
+    if (next.output !== s.design.output || opts.force || (!light && !showsVoltage && s.outputBench.light)) {
+      const outputLight = light || showsVoltage;
       const window = opts.outputExtent ?? sharedOutputWindow(next.output, s.outputRival);
-      const ob = analyzeOutputBench(next.output, s.outputBench, { light, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
+      const ob = analyzeOutputBench(next.output, s.outputBench, { light: outputLight, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
       if ('ok' in ob) return ob;
       patch.outputBench = ob;
       const prevRival = s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench : null;
-      patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(next.output, s.outputRival), prevRival, { light, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
+      patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(next.output, s.outputRival), prevRival, { light: outputLight, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
     }
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.

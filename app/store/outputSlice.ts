@@ -25,8 +25,9 @@ export interface OutputSlice {
   dragOutputLoadTo: (vpk: number, ip: number) => void;
 }
 
+/** The light analysis: the bench opens on the voltage stage; the full one runs when the output stage is shown. */
 export function initialOutputBench(d: OutputDesign): OutputBench {
-  const b = analyzeOutputBench(d, null);
+  const b = analyzeOutputBench(d, null, { light: true });
   if ('ok' in b) throw new Error(`the demo output stage must solve: ${b.message}`);
   return b;
 }
