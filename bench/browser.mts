@@ -26,7 +26,7 @@ const DRAG_SCRIPT = (moves: number) => `(async () => {
     const t0 = performance.now();
     fire('mousemove', cx + 60 * Math.sin(k / 20), cy + 40 * Math.cos(k / 17) - 40);
     const t1 = performance.now();
-    const end = await new Promise((res) => requestAnimationFrame(() => { document.body.getBoundingClientRect(); document.querySelector('[data-figure="ia"]').offsetWidth; res(performance.now()); }));
+    const end = await new Promise((res) => requestAnimationFrame(() => { document.body.getBoundingClientRect(); document.querySelector('[data-figure="vpk"]').offsetWidth; res(performance.now()); }));
     work.push((t1 - t0) + (end - frameStart));
   }
   fire('mouseup', cx, cy);
@@ -65,6 +65,8 @@ export interface BrowserResults {
   readonly dragOneTube: Stats;
   readonly dragTwoTubes: Stats;
   readonly typingRa: Stats;
+  readonly dragOutput: Stats;
+  readonly dragOutputTwoTubes: Stats;
   readonly dragByCurveCount: Record<string, Stats>;
   readonly firstCurveMs: Stats;
   readonly jsGzipBytes: number;
@@ -103,6 +105,17 @@ export async function benchBrowser(): Promise<BrowserResults> {
     const dragTwoTubes = await drag(page);
     await page.close();
 
+    // The output stage: its point drags the bias and B+ (the same measure, on the same handle class).
+    const out = (await openWorkbench(browser, url)).page;
+    await out.getByLabel('Output stage (transformer-coupled)').check();
+    await out.waitForSelector('[data-figure="clean-power"]');
+    await drag(out, 600);
+    const dragOutput = await drag(out);
+    await out.getByLabel('Compare with').check();
+    await drag(out, 600);
+    const dragOutputTwoTubes = await drag(out);
+    await out.close();
+
     const firsts: number[] = [];
     for (let k = 0; k < 7; k++) {
       const fresh = await browser.context.newPage();
@@ -112,7 +125,7 @@ export async function benchBrowser(): Promise<BrowserResults> {
       firsts.push(await fresh.evaluate(() => (window as unknown as { __firstCurve: number }).__firstCurve));
       await fresh.close();
     }
-    return { dragColdStart, dragOneTube, dragTwoTubes, typingRa, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    return { dragColdStart, dragOneTube, dragTwoTubes, typingRa, dragOutput, dragOutputTwoTubes, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();

@@ -1,4 +1,5 @@
 import {
+  analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
 } from '../src/index';
@@ -33,12 +34,23 @@ function fitPoints(n: number): CurvePoint[] {
   return pts;
 }
 
+/** The bench's default output stage: an EL34 on a 43 % ultralinear tap (the same as the workbench offers first). */
+const OUTPUT: OutputDesign = {
+  tubeId: 'EL34', connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130,
+  bias: 'cathode', rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
+};
+const EL34 = findOutputTube('EL34')!;
+
 export interface ModelResults {
   readonly solveStage: Stats;
   readonly fullAnalysis: Stats;
   readonly plateFamily: Stats;
   readonly fit200: Stats;
   readonly fftScaling: Record<string, Stats>;
+  /** Output stage: what runs per drag frame (point, lines, clean limit, full-drive figures). */
+  readonly outputLight: Stats;
+  /** Output stage: everything, with the power sweep and the primary-impedance sweep (after a drag). */
+  readonly outputFull: Stats;
 }
 
 export function benchModel(): ModelResults {
@@ -51,5 +63,7 @@ export function benchModel(): ModelResults {
     plateFamily: stats(timeIt(() => curveSheet(STAGE.tube, 275), 300)),
     fit200: stats(timeIt(() => fitTriode(pts), 15, 2)),
     fftScaling,
+    outputLight: stats(timeIt(() => analyzeOutput(EL34, OUTPUT, { light: true }), 200)),
+    outputFull: stats(timeIt(() => analyzeOutput(EL34, OUTPUT), 20, 3)),
   };
 }

@@ -24,6 +24,8 @@ line('full one-stage analysis', model.fullAnalysis, { value: 2, on: 'median' });
 line('plate-curve family (sheet)', model.plateFamily);
 line('fit of 200 points', model.fit200, { value: 300, on: 'median' });
 for (const [n, s] of Object.entries(model.fftScaling)) line(`  full analysis, FFT of ${n} points`, s);
+line('output stage, light (per drag frame)', model.outputLight);
+line('output stage, full (with both sweeps)', model.outputFull);
 
 let browser: BrowserResults | null = null;
 if (existsSync('/usr/bin/chromium')) {
@@ -33,6 +35,8 @@ if (existsSync('/usr/bin/chromium')) {
   line('drag, one tube (move to frame ready)', browser.dragOneTube, { value: 8, on: 'p95' });
   line('drag, two tubes compared', browser.dragTwoTubes, { value: 8, on: 'p95' });
   line('typing a new Ra', browser.typingRa, { value: 8, on: 'p95' });
+  line('drag, output stage', browser.dragOutput, { value: 8, on: 'p95' });
+  line('drag, output stage, two tubes compared', browser.dragOutputTwoTubes, { value: 8, on: 'p95' });
   for (const [n, s] of Object.entries(browser.dragByCurveCount)) line(`  drag with up to ${n} curves`, s);
   line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });
   console.log(`${'production JS, gzipped'.padEnd(44)} ${(browser.jsGzipBytes / 1024).toFixed(1)} kB  ${browser.jsGzipBytes <= 200 * 1024 ? 'within' : 'MISSES'} budget 200 kB`);

@@ -43,12 +43,17 @@ export function PlateChart() {
   const spreadLayer = useRef<SVGGElement>(null);
   const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging ? buildSheetOf(s).spread : null));
 
+  // Grid and axes follow the window only; the family and limits follow the sheet.
   useEffect(() => {
-    if (!grid.current || !curves.current || !limits.current || !axes.current) return;
+    if (!grid.current || !axes.current) return;
     drawGrid(grid.current, scales);
+    drawAxes(axes.current, scales);
+  }, [scales]);
+
+  useEffect(() => {
+    if (!curves.current || !limits.current) return;
     drawFamily(curves.current, sheet, scales);
     drawLimits(limits.current, sheet, scales);
-    drawAxes(axes.current, scales);
   }, [sheet, scales]);
 
   useEffect(() => {

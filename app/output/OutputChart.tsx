@@ -39,12 +39,17 @@ export function OutputChart() {
   const loadHandle = useRef<SVGGElement>(null);
   const rivalPoint = useRef<SVGGElement>(null);
 
+  // Grid and axes follow the window only; the family and limits follow the sheet.
   useEffect(() => {
-    if (!grid.current || !curves.current || !limits.current || !axes.current) return;
+    if (!grid.current || !axes.current) return;
     drawGrid(grid.current, scales);
+    drawAxes(axes.current, scales);
+  }, [scales]);
+
+  useEffect(() => {
+    if (!curves.current || !limits.current) return;
     drawFamily(curves.current, sheet, scales);
     drawLimits(limits.current, sheet, scales);
-    drawAxes(axes.current, scales);
   }, [sheet, scales]);
 
   useEffect(() => {

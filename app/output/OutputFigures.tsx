@@ -37,7 +37,7 @@ export function OutputFigures() {
         <Figure
           name="limit-power"
           label={`Power within ${percent(bench.analysis.solution.design.thdLimit)} THD`}
-          value={a.atLimit ? `${watts(a.atLimit.power)}${a.atLimit.limitedBy === 'grid current' ? ' (grid current first)' : ''}` : '…'}
+          value={a.atLimit && !bench.light ? `${watts(a.atLimit.power)}${a.atLimit.limitedBy === 'grid current' ? ' (grid current first)' : ''}` : '…'}
         />
         <Figure name="drive" label="Drive for clean power" value={`${volts(a.clean.at.drive / Math.SQRT2)} rms`} />
       </dl>

@@ -16,10 +16,11 @@ const pct = (x: number) => x * 100;
  * The model computes both on the full pass; during a drag they wait.
  */
 export function OutputSignalCharts() {
-  const bench = useWorkbench((s) => s.outputBench);
+  const settled = useWorkbench((s) => s.outputBench.settled);
+  const stale = useWorkbench((s) => s.outputBench.light);
   const changeOutput = useWorkbench((s) => s.changeOutput);
-  const { sweep, zSweep, clean } = bench.analysis;
-  const design = bench.analysis.solution.design;
+  const { sweep, zSweep, clean, atLimit } = settled;
+  const design = settled.solution.design;
   const id = useId();
 
   const distortion = useMemo<XYSpec | null>(() => {
@@ -52,14 +53,14 @@ export function OutputSignalCharts() {
       series: [{ key: 'power', points: pts, stroke: PALETTE.load }],
       markers: [
         { x: zSweep.best.zPrimary, y: zSweep.best.power, color: PALETTE.rival, label: `best ${ohms(zSweep.best.zPrimary)}` },
-        ...(design.zPrimary >= pts[0]!.x && design.zPrimary <= pts[pts.length - 1]!.x && bench.analysis.atLimit ? [{ x: design.zPrimary, y: bench.analysis.atLimit.power, color: PALETTE.point }] : []),
+        ...(design.zPrimary >= pts[0]!.x && design.zPrimary <= pts[pts.length - 1]!.x && atLimit ? [{ x: design.zPrimary, y: atLimit.power, color: PALETTE.point }] : []),
       ],
     };
-  }, [zSweep, design.zPrimary, bench.analysis.atLimit]);
+  }, [zSweep, design.zPrimary, atLimit]);
 
   return (
     <section className="panel output-signal" aria-labelledby={`${id}-h`}>
-      <h2 id={`${id}-h`}>Power and distortion {bench.light ? <span className="muted">(updating after the drag)</span> : null}</h2>
+      <h2 id={`${id}-h`}>Power and distortion {stale ? <span className="muted">(updating after the drag)</span> : null}</h2>
       <div className="chart-row">
         {distortion ? (
           <MiniChart title="THD (solid), H2 (dashed), H3 (dotted) against power" spec={distortion} description="Total harmonic distortion, second and third harmonic against output power, up to the onset of grid current" />

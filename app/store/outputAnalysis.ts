@@ -8,6 +8,12 @@ import { analyzeOutput, findOutputTube, outputExtent, type Connection, type Fail
 export interface OutputBench {
   readonly analysis: OutputAnalysis;
   readonly light: boolean;
+  /**
+   * The last full pass's analysis: what the power and distortion charts
+   * draw, so a drag does not redraw them sixty times a second with figures
+   * that are stale anyway.
+   */
+  readonly settled: OutputAnalysis;
 }
 
 /** A second output tube in the same socket: same B+, primary, bias parts; its own screen connection. */
@@ -43,7 +49,8 @@ export function analyzeOutputBench(d: OutputDesign, prev: OutputBench | null, op
   });
   if (!a.ok) return a.field !== undefined && a.field in OUTPUT_FIELD_OF ? { ...a, field: OUTPUT_FIELD_OF[a.field]! } : a;
   const { ok: _ok, ...analysis } = a;
-  return { analysis, light: opts.light ?? false };
+  const light = opts.light ?? false;
+  return { analysis, light, settled: light && prev ? prev.settled : analysis };
 }
 
 export function rivalOutputDesign(d: OutputDesign, r: OutputRival): OutputDesign {

@@ -7,7 +7,7 @@ import type { ScreenFeed } from './electrodes';
 import type { OutputDesign } from './outputDesign';
 import { outputFindings } from './outputFindings';
 import { outputExtent, outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
-import { atDrive, cleanLimit, type CleanLimit, type DriveResult } from './outputSignal';
+import { atDrive, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
 import type { OutputTube } from './outputTube';
 import { powerAtDistortion, powerSweep, zPrimarySweep, type LimitedPower, type ZSweep } from './powerSweep';
 import { solveOutput, type OutputSolution } from './solveOutput';
@@ -21,7 +21,7 @@ export interface OutputAnalysis {
   readonly clean: CleanLimit;
   /** The stage with the grid driven to 0 V peak: the drive data sheets quote power at. */
   readonly full: DriveResult;
-  /** Most power under the design's distortion limit; null on the light pass. */
+  /** Most power under the design's distortion limit; on the light pass, the last full pass's (or null). */
   readonly atLimit: LimitedPower | null;
   /** Speaker impedance over the stage's output impedance at the secondary. */
   readonly dampingFactor: number;
@@ -30,7 +30,7 @@ export interface OutputAnalysis {
   /** Primary-to-secondary turns ratio for the chosen speaker. */
   readonly turnsRatio: number;
   readonly findings: readonly Finding[];
-  /** Filled on the full pass, left empty on the light one that runs during a drag. */
+  /** Filled on the full pass; the light pass that runs during a drag carries the last full pass's, stale. */
   readonly sweep: readonly DriveResult[];
   readonly zSweep: ZSweep | null;
 }
@@ -50,7 +50,7 @@ function sameFeed(a: ScreenFeed, b: ScreenFeed): boolean {
 export interface OutputAnalysisOptions {
   readonly extent?: PlateExtent;
   readonly maxCurves?: number;
-  /** Light: skip the distortion-limited power and both sweeps (the costly parts). */
+  /** Light: skip the distortion-limited power and both sweeps (the costly parts), carrying the previous ones. */
   readonly light?: boolean;
   /** The last analysis: its curve sheet is reused when tube, window, curve count and screen feed are unchanged. */
   readonly previous?: OutputAnalysis | null;
@@ -68,10 +68,22 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, options: O
   const extent = options.extent ?? outputExtent(tube, design.bplus);
   const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
   const prev = options.previous;
-  const reuse = prev && prev.solution.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves && sameFeed(prev.solution.op.feed, s.op.feed);
+  // On the light pass (a drag) the sheet is kept while the screen feed's kind is unchanged: the curves
+  // of an ultralinear or cathode-biased pentode move a little with B+ and Vk, and are redrawn exactly
+  // on the full pass at release. Redrawing the family every frame would cost the drag its frame rate.
+  const light = options.light ?? false;
+  const reuse =
+    prev &&
+    prev.solution.tube === tube &&
+    prev.sheet.extent.vmax === extent.vmax &&
+    prev.sheet.extent.iaMax === extent.iaMax &&
+    prev.maxCurves === maxCurves &&
+    (light ? prev.solution.op.feed.kind === s.op.feed.kind : sameFeed(prev.solution.op.feed, s.op.feed));
   const sheet = reuse ? prev.sheet : outputSheet(tube, s.op.feed, extent, maxCurves);
-  const clean = cleanLimit(s);
-  const full = atDrive(s, Math.max(0, -s.op.vgk));
+  // The light pass reads its two waveforms at the sweeps' resolution (agreeing to four digits).
+  const samples = light ? SWEEP_SAMPLES : OUTPUT_SAMPLES;
+  const clean = cleanLimit(s, design.zPrimary, samples);
+  const full = atDrive(s, Math.max(0, -s.op.vgk), design.zPrimary, samples);
   const zOut = s.op.rp + design.rPrimary;
   const dampingFactor = Number.isFinite(zOut) && zOut > 0 ? design.zPrimary / zOut : 0;
   return {
@@ -82,12 +94,12 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, options: O
     overlay: outputOverlay(s, extent, clean.at),
     clean,
     full,
-    atLimit: options.light ? null : powerAtDistortion(s, design.thdLimit),
+    atLimit: light ? (prev?.atLimit ?? null) : powerAtDistortion(s, design.thdLimit),
     dampingFactor,
     outputImpedance: dampingFactor > 0 ? design.speakerOhms / dampingFactor : Infinity,
     turnsRatio: Math.sqrt(design.zPrimary / design.speakerOhms),
     findings: outputFindings(s, full.vpkMax),
-    sweep: options.light ? [] : powerSweep(s),
-    zSweep: options.light ? null : zPrimarySweep(s),
+    sweep: light ? (prev?.sweep ?? []) : powerSweep(s),
+    zSweep: light ? (prev?.zSweep ?? null) : zPrimarySweep(s),
   };
 }

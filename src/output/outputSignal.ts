@@ -162,7 +162,7 @@ export interface CleanLimit {
  * The current is lowest at the grid's most negative instant, so cutoff needs
  * one load-line solve per trial drive.
  */
-export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary): CleanLimit {
+export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary, samples = OUTPUT_SAMPLES): CleanLimit {
   const grid = Math.max(0, -s.op.vgk);
   const floor = CUTOFF_SHARE * s.op.ip;
   const at: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
@@ -173,5 +173,5 @@ export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary): Cle
   let cutoffDrive: number | null = null;
   if (grid > 0 && lowest(grid) < 0) cutoffDrive = illinois(lowest, 0, grid, Math.max(1e-9, floor * 1e-3));
   const drive = cutoffDrive ?? grid;
-  return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: atDrive(s, drive, zPrimary) };
+  return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: atDrive(s, drive, zPrimary, samples) };
 }
