@@ -1,6 +1,7 @@
 import { useId } from 'react';
 import { connectionsOf, outputTubeLibrary, switchBias, type Connection } from '../../src/index';
 import { ValueField } from '../panels/ValueField';
+import { WantedPoint } from './WantedPoint';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 
 /** What each connection's figures can be trusted for, said plainly beside the choice. */
@@ -67,6 +68,7 @@ export function OutputValues() {
         <ValueField field="oSpeaker" />
         <ValueField field="oThd" hint="for the power-at-distortion figures" />
       </div>
+      <WantedPoint />
     </section>
   );
 }

@@ -78,7 +78,9 @@ export function drawXY(layer: SVGGElement, spec: XYSpec) {
   }
   for (const m of spec.markers ?? []) {
     g.append('circle').attr('cx', x(m.x)).attr('cy', y(m.y)).attr('r', 4).attr('fill', m.color).attr('stroke', PALETTE.ink);
-    if (m.label) g.append('text').attr('x', x(m.x) + 6).attr('y', y(m.y) - 6).attr('font-size', 10).attr('fill', PALETTE.ink).attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3).text(m.label);
+    // Labels in the right half of the plot are written leftward, so they stay inside it.
+    const leftward = x(m.x) > (x.range()[0]! + x.range()[1]!) / 2;
+    if (m.label) g.append('text').attr('x', x(m.x) + (leftward ? -6 : 6)).attr('text-anchor', leftward ? 'end' : 'start').attr('y', y(m.y) - 6).attr('font-size', 10).attr('fill', PALETTE.ink).attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3).text(m.label);
   }
   return { x, y };
 }

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { biasForPoint, findOutputTube, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign } from '../../src/index';
+import { biasForPoint, findOutputTube, nearestPreferred, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign } from '../../src/index';
 import type { StageKind } from './analysis';
 import { analyzeOutputBench, type OutputBench, type OutputRival } from './outputAnalysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -22,6 +22,8 @@ export interface OutputSlice {
   chooseOutputTube: (id: string) => void;
   setOutputRival: (patch: Partial<OutputRival>) => void;
   dragOutputPointTo: (vpk: number, ip: number) => void;
+  /** Inverse design: the bias (Rk, snapped to the series, or the grid supply) and B+ for a wanted point; the failure when there is none. */
+  placeOutputPoint: (vpk: number, ip: number) => Failure | null;
   dragOutputLoadTo: (vpk: number, ip: number) => void;
 }
 
@@ -85,6 +87,16 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const patch: Partial<OutputDesign> = d.bias === 'cathode' ? { bplus, rk: Math.max(1, b.rk) } : { bplus, vg: b.vgk };
     const failure = s.changeOutput(patch, { light: true });
     set({ dragNote: failure ? failure.message : null });
+  },
+
+  placeOutputPoint: (vpk, ip) => {
+    const s = get();
+    const d = s.design.output;
+    const b = biasForPoint(s.outputBench.analysis.solution.tube, d, vpk, ip);
+    if (!b.ok) return b;
+    const patch: Partial<OutputDesign> =
+      d.bias === 'cathode' ? { bplus: Math.round(b.bplus), rk: s.design.snap ? nearestPreferred(Math.max(1, b.rk), s.design.series) : Math.max(1, Math.round(b.rk)) } : { bplus: Math.round(b.bplus), vg: Math.round(b.vgk * 10) / 10 };
+    return s.changeOutput(patch);
   },
 
   dragOutputLoadTo: (vpk, ip) => {

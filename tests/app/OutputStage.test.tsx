@@ -128,3 +128,25 @@ describe('the build card for an output stage', () => {
     expect(text).toMatch(/Clean: .* W at .* THD/);
   });
 });
+
+describe('bias for a wanted point', () => {
+  it('typing 300 V and 70 mA sets Rk (snapped) and B+ so the point lands there to the snap', async () => {
+    const { store, user } = await setup();
+    await user.type(screen.getByRole('textbox', { name: 'Vpk (V)' }), '300');
+    await user.type(screen.getByRole('textbox', { name: 'Ia (mA)' }), '70');
+    await user.click(screen.getByRole('button', { name: 'Set Rk and B+' }));
+    expect(screen.getByText('Bias and B+ set for that point.')).toBeTruthy();
+    const { op } = store.getState().outputBench.analysis.solution;
+    // Rk snapped to E24 (±5 %) moves the current a little; B+ is set to the volt.
+    expectClose(op.ip, 0.07, { rel: 0.05 }, 'Ia');
+    expectClose(op.vpk, 300, { rel: 0.02 }, 'Vpk');
+  });
+
+  it('a point above the 0 V grid curve gets the model\'s reason', async () => {
+    const { user } = await setup();
+    await user.type(screen.getByRole('textbox', { name: 'Vpk (V)' }), '60');
+    await user.type(screen.getByRole('textbox', { name: 'Ia (mA)' }), '400');
+    await user.click(screen.getByRole('button', { name: 'Set Rk and B+' }));
+    expect(screen.getByRole('alert').textContent).toMatch(/grid above the cathode/);
+  });
+});
