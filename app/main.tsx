@@ -1,13 +1,17 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './App';
+import { createWorkbenchStore } from './store/workbenchStore';
+import { warmDragPath } from './store/warmDragPath';
 import './styles.css';
 
 const root = document.getElementById('root');
 if (root) {
+  const store = createWorkbenchStore();
   createRoot(root).render(
     <StrictMode>
-      <App />
+      <App store={store} />
     </StrictMode>,
   );
+  warmDragPath(store);
 }
