@@ -5,6 +5,9 @@ import { effectiveConnection, type OutputDesign } from './outputDesign';
 import type { OutputTube } from './outputTube';
 import type { OutputSolution } from './solveOutput';
 
+/** The smallest cathode resistor the output design accepts, Ω (as outputDesignProblem checks). */
+const MIN_RK = 1;
+
 export interface BiasAnswer {
   /** Grid to cathode, V. */
   readonly vgk: number;
@@ -41,7 +44,9 @@ export function biasForPoint(tube: OutputTube, d: OutputDesign, vpk: number, ip:
   currentAt(vgk);
   const ik = c.ik;
   const vk = cathode ? -vgk : 0;
-  return { ok: true, vgk, ik, rk: cathode && ik > 0 ? vk / ik : 0, bplus: vpk + ip * d.rPrimary + vk };
+  const rk = cathode && ik > 0 ? vk / ik : 0;
+  if (cathode && rk < MIN_RK) return fail('grid-current', `That point needs the grid within ${(-vgk).toFixed(2)} V of the cathode: Rk would be under ${MIN_RK} Ω, at the edge of grid current`);
+  return { ok: true, vgk, ik, rk, bplus: vpk + ip * d.rPrimary + vk };
 }
 
 /**
