@@ -3,6 +3,7 @@ import { connectionsOf, findOutputTube, outputTubeLibrary, type Connection, type
 import { mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
 import { difference } from '../panels/ComparePanel';
 import { useWorkbench } from '../store/StoreProvider';
+import { useDragPaced } from '../panels/useDragPaced';
 
 interface Row {
   readonly label: string;
@@ -33,8 +34,9 @@ export const OUTPUT_COMPARE_ROWS: readonly Row[] = [
 export function OutputComparePanel() {
   const rival = useWorkbench((s) => s.outputRival);
   const setOutputRival = useWorkbench((s) => s.setOutputRival);
-  const first = useWorkbench((s) => s.outputBench.analysis);
-  const second = useWorkbench((s) => s.outputRivalBench);
+  // The chart shows both points live; the table follows a drag at a readable pace (useDragPaced).
+  const first = useDragPaced(useWorkbench((s) => s.outputBench.analysis));
+  const second = useDragPaced(useWorkbench((s) => s.outputRivalBench));
   const id = useId();
   const rivalTube = findOutputTube(rival.tubeId);
   const connections = rivalTube ? connectionsOf(rivalTube) : [];

@@ -3,6 +3,7 @@ import type { Analysis } from '../store/analysis';
 import { mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
 import { rivalDesign } from '../store/compareSlice';
 import { useWorkbench } from '../store/StoreProvider';
+import { useDragPaced } from './useDragPaced';
 
 /** One row of the comparison: how to read a figure from an analysis, how to show it, and how to show a difference. */
 interface Row {
@@ -43,9 +44,10 @@ export function ComparePanel() {
   const setRival = useWorkbench((s) => s.setRival);
   const swapTubes = useWorkbench((s) => s.swapTubes);
   const tubes = useWorkbench((s) => s.tubes);
-  const first = useWorkbench((s) => s.analysis);
-  const second = useWorkbench((s) => s.rivalAnalysis);
-  const design = useWorkbench((s) => s.design);
+  // The chart shows both points live; the table follows a drag at a readable pace (useDragPaced).
+  const first = useDragPaced(useWorkbench((s) => s.analysis));
+  const second = useDragPaced(useWorkbench((s) => s.rivalAnalysis));
+  const design = useDragPaced(useWorkbench((s) => s.design));
   const other = rivalDesign(design, rival);
   const id = useId();
   return (

@@ -1,0 +1,28 @@
+import { act, render } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { DRAG_TABLE_INTERVAL_MS } from '../../app/panels/useDragPaced';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+describe('the comparison table during a drag', () => {
+  it('holds while the point moves, catches up at its pace, and shows the final values on release', async () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    act(() => store.getState().setRival({ on: true, tubeId: '12AT7' }));
+    const tableIa = () => view.container.querySelector('tr[data-row="ia"] td')!.textContent;
+    const stripIa = () => view.container.querySelector('[data-figure="ia"] dd')!.textContent;
+    const before = tableIa();
+    const { vpk, ia } = store.getState().analysis.solution.op;
+    act(() => store.getState().beginDrag('point'));
+    act(() => store.getState().dragPointTo(vpk + 20, ia * 0.8));
+    act(() => store.getState().dragPointTo(vpk + 40, ia * 0.7));
+    // Within the pacing interval: the strip follows the point, the table holds.
+    expect(stripIa()).not.toBe(before);
+    expect(tableIa()).toBe(before);
+    await act(() => new Promise((done) => setTimeout(done, DRAG_TABLE_INTERVAL_MS + 50)));
+    expect(tableIa()).toBe(stripIa());
+    act(() => store.getState().dragPointTo(vpk + 10, ia * 0.9));
+    act(() => store.getState().endDrag());
+    expect(tableIa()).toBe(stripIa());
+  });
+});
