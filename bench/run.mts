@@ -14,7 +14,8 @@ import { ngspiceAvailable } from '../tests/spice/ngspice';
 
 const line = (label: string, s: Stats, budget?: { value: number; on: 'median' | 'p95' }) => {
   const verdict = budget ? (s[budget.on] <= budget.value ? `  within ${budget.on} budget ${ms(budget.value)}` : `  MISSES ${budget.on} budget ${ms(budget.value)}`) : '';
-  console.log(`${label.padEnd(44)} median ${ms(s.median).padStart(10)}  p95 ${ms(s.p95).padStart(10)}  (min ${ms(s.min)}, max ${ms(s.max)}, n=${s.n})${verdict}`);
+  const runs = s.p95Runs ? `, p95 of each run ${s.p95Runs.map((x) => x.toFixed(1)).join(' / ')}` : '';
+  console.log(`${label.padEnd(44)} median ${ms(s.median).padStart(10)}  p95 ${ms(s.p95).padStart(10)}  (min ${ms(s.min)}, max ${ms(s.max)}, n=${s.n}${runs})${verdict}`);
 };
 
 console.log('\nModel (Node)');

@@ -5,6 +5,31 @@ export interface Stats {
   readonly p95: number;
   readonly min: number;
   readonly max: number;
+  /** For a figure taken over repeated runs: each run's p95, whose median is `p95`. */
+  readonly p95Runs?: readonly number[];
+}
+
+const middle = (xs: readonly number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
+};
+
+/**
+ * A figure over repeated runs (each run its own block of samples): the median
+ * of the runs' medians and of their p95s, with every run's p95 kept as the
+ * spread. One unlucky block on a shared machine moves the figure no more
+ * than it should.
+ */
+export function repeatedStats(runs: readonly number[][]): Stats {
+  const each = runs.map(stats);
+  return {
+    n: each.reduce((a, r) => a + r.n, 0),
+    median: middle(each.map((r) => r.median)),
+    p95: middle(each.map((r) => r.p95)),
+    min: Math.min(...each.map((r) => r.min)),
+    max: Math.max(...each.map((r) => r.max)),
+    p95Runs: each.map((r) => r.p95),
+  };
 }
 
 export function stats(samples: number[]): Stats {

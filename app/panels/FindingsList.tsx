@@ -1,10 +1,22 @@
+import type { Finding } from '../../src/index';
 import { useWorkbench } from '../store/StoreProvider';
+import { useDragPaced } from './useDragPaced';
 
 const WORD = { danger: 'Danger', warning: 'Warning', note: 'Note' } as const;
 
-/** The model's ratings findings for the stage on the bench, most severe first, in plain words. */
+/** Which checks are listed at which severity: what must never wait. */
+const signature = (fs: readonly Finding[]) => fs.map((f) => `${f.kind}:${f.severity}`).join(' ');
+
+/**
+ * The model's ratings findings for the stage on the bench, most severe first,
+ * in plain words. During a drag the sentences' numbers refresh at the
+ * comparison table's pace (the figures strip carries them live), but a check
+ * that appears, goes, or changes severity shows at once.
+ */
 export function FindingsList() {
-  const findings = useWorkbench((s) => (s.design.stageKind === 'output' ? s.outputBench.analysis.findings : s.analysis.solution.findings));
+  const live = useWorkbench((s) => (s.design.stageKind === 'output' ? s.outputBench.analysis.findings : s.analysis.solution.findings));
+  const paced = useDragPaced(live);
+  const findings = signature(paced) === signature(live) ? paced : live;
   return (
     <section className="panel findings" aria-label="Ratings checks">
       <h2>Ratings</h2>

@@ -123,7 +123,14 @@ export function solveOutput(tube: OutputTube, design: OutputDesign): Result<Outp
   if (design.bias === 'fixed') {
     op = pointAt(tube, design, 0, design.vg);
   } else {
-    const excess = (vk: number) => pointAt(tube, design, vk, -vk).ik * design.rk - vk;
+    // Each trial needs only the cathode current: the full point (with its slopes) is built once, at the root.
+    const c = emptyCurrents();
+    const excess = (vk: number) => {
+      const feed = feedFor(tube, design, vk);
+      const vpk = plateVoltage(tube, feed, design.rPrimary, design.bplus - vk, -vk);
+      stageCurrentsInto(tube, feed, vpk, -vk, c, 0);
+      return c.ik * design.rk - vk;
+    };
     const r = bracketedRoot(excess, 0, design.bplus, VOLT_TOL * design.bplus);
     if (!r.converged && Math.abs(excess(r.x)) > 1e-6 * design.bplus) return fail('no-convergence', 'The cathode-bias loop did not settle; try another Rk', 'rk');
     op = pointAt(tube, design, r.x, -r.x);

@@ -26,3 +26,17 @@ describe('the comparison table during a drag', () => {
     expect(tableIa()).toBe(stripIa());
   });
 });
+
+describe('the ratings list during a drag', () => {
+  it('shows a check that turns dangerous at once, while the sentences\' numbers follow at the table\'s pace', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const severities = () => [...view.container.querySelectorAll('.findings li')].map((li) => li.className);
+    expect(severities()).toContain('finding note');
+    act(() => store.getState().beginDrag('point'));
+    act(() => store.getState().dragPointTo(150, 0.025));
+    expect(store.getState().analysis.solution.op.pa).toBeGreaterThan(2.75);
+    expect(severities()).toContain('finding danger');
+    act(() => store.getState().endDrag());
+  });
+});
