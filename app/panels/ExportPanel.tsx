@@ -13,6 +13,8 @@ export function ExportPanel() {
   const stem = () => fileStem(store.getState().title);
   const run = async (what: string, make: () => Promise<{ blob: Blob; name: string }>) => {
     try {
+      // An export reads the figures: if a keystroke's light analysis is showing, finish it first.
+      store.getState().settleAnalysis();
       const { blob, name } = await make();
       download(blob, name);
       setNote(`${what} saved as ${name}.`);

@@ -44,6 +44,8 @@ export interface DesignSlice {
   curveCount: number;
   setCurveCount: (n: number) => void;
   setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId'>>) => void;
+  /** Runs the full analysis now if a light one (a drag's or a keystroke's) is showing: before an export reads the figures. */
+  settleAnalysis: () => void;
   /** Makes a whole document (opened file, shared link, shelf) the current design; null on success, else why not. */
   loadDocument: (doc: { title: string; design: BenchDesign }) => Failure | null;
 }
@@ -74,11 +76,7 @@ const pending = new WeakMap<object, ReturnType<typeof setTimeout>>();
 function scheduleFullAnalysis(get: () => WorkbenchState): void {
   const key = get().commit; // stable per store
   clearTimeout(pending.get(key));
-  pending.set(key, setTimeout(() => {
-    const s = get();
-    const behind = s.design.stageKind === 'output' ? s.outputBench.light : s.analysis.signal.stale;
-    if (behind && !s.dragging) s.commit(s.design);
-  }, TYPING_SETTLE_MS));
+  pending.set(key, setTimeout(() => get().settleAnalysis(), TYPING_SETTLE_MS));
 }
 
 function withoutError(errors: FieldErrors, key: keyof FieldErrors): FieldErrors {
@@ -184,6 +182,12 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const s = get();
     const failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, ...patch } });
     set({ errors: failure ? { ...get().errors, tube: undefined, stage2: failure.message } : withoutError(get().errors, 'stage2') });
+  },
+
+  settleAnalysis: () => {
+    const s = get();
+    const behind = s.design.stageKind === 'output' ? s.outputBench.light : s.analysis.signal.stale;
+    if (behind && !s.dragging) s.commit(s.design);
   },
 
   loadDocument: (doc) => {

@@ -150,3 +150,19 @@ describe('bias for a wanted point', () => {
     expect(screen.getByRole('alert').textContent).toMatch(/grid above the cathode/);
   });
 });
+
+describe('exports read settled figures', () => {
+  it('a build card made right after typing carries the full analysis for the new value, not the last one', async () => {
+    const { cardSections } = await import('../../app/export/buildCard');
+    const store = createWorkbenchStore();
+    store.getState().setStageKind('output');
+    const before = store.getState().outputBench.analysis.atLimit!.power;
+    store.getState().editField('oZ', '5k'); // a keystroke: the light pass
+    expect(store.getState().outputBench.light).toBe(true);
+    store.getState().settleAnalysis(); // what the export buttons do first
+    const after = store.getState().outputBench.analysis.atLimit!.power;
+    expect(after).not.toBeCloseTo(before, 3);
+    const text = cardSections(store.getState()).flatMap((s) => s.lines).join('\n');
+    expect(text).toContain(`Within 5 % THD: ${Number(after.toPrecision(3))} W`);
+  });
+});

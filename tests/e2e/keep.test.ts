@@ -1,38 +1,8 @@
-import { readFileSync } from 'node:fs';
-import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { downloadOf, inkShare, pngSize } from './downloads';
 
 const run = chromiumGate();
-
-/** Width and height from a PNG's IHDR chunk (bytes 16–23, big-endian). */
-function pngSize(bytes: Buffer): { width: number; height: number } {
-  expect(bytes.subarray(1, 4).toString('latin1')).toBe('PNG');
-  return { width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
-}
-
-/** Share of pixels in the middle of a PNG that differ from its top-left pixel, decoded by the browser. */
-async function inkShare(page: Page, png: Buffer): Promise<number> {
-  return page.evaluate(async (b64) => {
-    const img = new Image();
-    img.src = `data:image/png;base64,${b64}`;
-    await img.decode();
-    const c = document.createElement('canvas');
-    c.width = img.width;
-    c.height = img.height;
-    const ctx = c.getContext('2d')!;
-    ctx.drawImage(img, 0, 0);
-    const data = ctx.getImageData(Math.floor(img.width * 0.1), Math.floor(img.height * 0.1), Math.floor(img.width * 0.8), Math.floor(img.height * 0.8)).data;
-    let differ = 0;
-    for (let i = 0; i < data.length; i += 4) if (Math.abs(data[i]! - data[0]!) + Math.abs(data[i + 1]! - data[1]!) + Math.abs(data[i + 2]! - data[2]!) > 60) differ++;
-    return differ / (data.length / 4);
-  }, png.toString('base64'));
-}
-
-async function downloadOf(page: Page, button: string): Promise<Buffer> {
-  const [dl] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: button }).click()]);
-  return readFileSync((await dl.path())!);
-}
 
 describe.runIf(run)('compare, export and keep in Chromium', () => {
   let browser: OpenBrowser;

@@ -1,7 +1,8 @@
-import { readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { downloadOf, inkShare, pngSize } from './downloads';
 
 const run = chromiumGate();
 const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
@@ -71,5 +72,33 @@ describe.runIf(run)('the output stage in Chromium', () => {
     const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
     await tooling.close();
+  });
+});
+
+describe.runIf(run)('keeping and exporting an output stage in Chromium', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+    mkdirSync('test-results', { recursive: true });
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('exports an A4 build card of the output stage, and a reload brings the output stage back', async () => {
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    await page.getByLabel('Output stage (transformer-coupled)').check();
+    await page.getByRole('textbox', { name: /^Primary Z/ }).fill('5k');
+    await page.waitForSelector('[data-figure="clean-power"]');
+    const card = await downloadOf(page, 'Build card (PNG, A4)');
+    writeFileSync('test-results/output-build-card.png', card);
+    expect(pngSize(card)).toEqual({ width: 1240, height: 1754 });
+    expect(await inkShare(page, card)).toBeGreaterThan(0.03);
+    await page.waitForTimeout(700); // autosave waits 400 ms after the last change
+    await page.reload();
+    await page.waitForSelector('[data-figure="clean-power"]');
+    expect(await page.getByRole('textbox', { name: /^Primary Z/ }).inputValue()).toBe('5k');
+    expect(errors).toEqual([]);
+    await page.close();
   });
 });
