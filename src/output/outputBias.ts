@@ -50,14 +50,21 @@ export function biasForPoint(tube: OutputTube, d: OutputDesign, vpk: number, ip:
 }
 
 /**
- * The other kind of bias that keeps the grid where it is: Rk = −Vgk/Ik for
- * cathode bias, or a grid supply of Vgk for fixed bias (the plate then gains
- * the cathode's voltage). Rounded as a part would be: Rk to the ohm, the
- * supply to a tenth of a volt.
+ * The other kind of bias for the same stage. To fixed bias: the grid supply
+ * that keeps the idle plate current with B+ unchanged (the plate gains the
+ * cathode's voltage, as when an amplifier is converted; found by
+ * biasForPoint). To cathode bias: Rk = −Vgk/Ik, the resistor that holds the
+ * grid where it was (the plate then loses Vk, so the current falls a
+ * little: the safe direction). Rounded as a part would be: the supply to a
+ * tenth of a volt, Rk to the ohm.
  */
 export function switchBias(s: OutputSolution, to: 'cathode' | 'fixed'): Pick<OutputDesign, 'bias' | 'rk' | 'vg'> {
-  const { op, design } = s;
+  const { op, design, tube } = s;
   if (to === design.bias) return { bias: design.bias, rk: design.rk, vg: design.vg };
-  if (to === 'fixed') return { bias: 'fixed', rk: design.rk, vg: Math.round(op.vgk * 10) / 10 };
-  return { bias: 'cathode', vg: design.vg, rk: op.ik > 0 ? Math.max(1, Math.round(-op.vgk / op.ik)) : design.rk };
+  if (to === 'fixed') {
+    const fixed: OutputDesign = { ...design, bias: 'fixed' };
+    const b = biasForPoint(tube, fixed, design.bplus - op.ip * design.rPrimary, op.ip);
+    return { bias: 'fixed', rk: design.rk, vg: Math.round((b.ok ? b.vgk : op.vgk) * 10) / 10 };
+  }
+  return { bias: 'cathode', vg: design.vg, rk: op.ik > 0 ? Math.max(MIN_RK, Math.round(-op.vgk / op.ik)) : design.rk };
 }

@@ -42,14 +42,20 @@ describe('the output stage on the bench', () => {
     expect(store.getState().design.output.zPrimary).toBe(5000);
   });
 
-  it('switching to fixed bias keeps the grid where it was, and back gives an Rk', async () => {
+  it('switching to fixed bias keeps the idle current with B+ unchanged; back to cathode bias gives the Rk that holds the grid', async () => {
     const { store, user } = await setup();
-    const vgk = store.getState().outputBench.analysis.solution.op.vgk;
+    const before = store.getState().outputBench.analysis.solution.op;
+    const bplus = store.getState().design.output.bplus;
     await user.click(screen.getByLabelText('Fixed bias'));
+    const fixed = store.getState().outputBench.analysis.solution.op;
     expect(store.getState().design.output.bias).toBe('fixed');
-    expectClose(store.getState().design.output.vg, vgk, { abs: 0.05 }, 'grid supply');
+    expect(store.getState().design.output.bplus).toBe(bplus);
+    // The grid supply is rounded to 0.1 V: the current lands within a couple of per cent.
+    expectClose(fixed.ip, before.ip, { rel: 0.02 }, 'idle current');
+    expect(fixed.vpk).toBeGreaterThan(before.vpk + 0.9 * before.vk);
     await user.click(screen.getByLabelText('Cathode bias (Rk, bypassed)'));
-    expect(store.getState().design.output.rk).toBeGreaterThan(100);
+    const rk = store.getState().design.output.rk;
+    expectClose(rk, -fixed.vgk / fixed.ik, { abs: 0.5 }, 'Rk = -Vgk/Ik');
   });
 
   it('a power triode offers only the triode connection', async () => {
