@@ -3,7 +3,7 @@ import { milliamps, volts } from '../format';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachDrag } from './attachDrag';
 import { ChartLegend } from './ChartLegend';
-import { drawAxes, drawFamily, drawGrid, drawLimits } from './drawSheet';
+import { PointMark, RivalMark, SheetLayers } from './SheetLayers';
 import { drawOverlay, drawRivalOverlay, drawSpread } from './drawOverlay';
 import { buildSheetOf } from '../store/buildSheet';
 import { HoverReadout } from './HoverReadout';
@@ -31,41 +31,17 @@ export function PlateChart() {
   const frame = useRef<HTMLDivElement>(null);
   const box = useChartBox(frame);
   const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
-  const grid = useRef<SVGGElement>(null);
-  const curves = useRef<SVGGElement>(null);
-  const limits = useRef<SVGGElement>(null);
-  const axes = useRef<SVGGElement>(null);
   const lines = useRef<SVGGElement>(null);
   const point = useRef<SVGGElement>(null);
   const bplusHandle = useRef<SVGGElement>(null);
-  const rivalCurves = useRef<SVGGElement>(null);
   const rivalHandle = useRef<SVGGElement>(null);
   const spreadLayer = useRef<SVGGElement>(null);
   const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging ? buildSheetOf(s).spread : null));
-
-  // Grid and axes follow the window only; the family and limits follow the sheet.
-  useEffect(() => {
-    if (!grid.current || !axes.current) return;
-    drawGrid(grid.current, scales);
-    drawAxes(axes.current, scales);
-  }, [scales]);
-
-  useEffect(() => {
-    if (!curves.current || !limits.current) return;
-    drawFamily(curves.current, sheet, scales);
-    drawLimits(limits.current, sheet, scales);
-  }, [sheet, scales]);
 
   useEffect(() => {
     if (!spreadLayer.current) return;
     drawSpread(spreadLayer.current, spread && spread.ok ? spread.samples.map((p) => ({ v: p.vpk, i: p.ia })) : [], scales);
   }, [spread, scales]);
-
-  useEffect(() => {
-    if (!rivalCurves.current) return;
-    if (rivalSheet) drawFamily(rivalCurves.current, rivalSheet, scales, { stroke: PALETTE.rival, dash: '6 3', labelRow: 1 });
-    else rivalCurves.current.replaceChildren();
-  }, [rivalSheet, scales]);
 
   useEffect(() => {
     const nodes = { lines: lines.current!, point: point.current!, bplusHandle: bplusHandle.current! };
@@ -151,11 +127,7 @@ export function PlateChart() {
         role="group"
         aria-label={`Plate curves of the ${tubeId} with the stage's load lines and operating point`}
       >
-        <g ref={grid} className="layer-grid" />
-        <g ref={limits} className="layer-limits" />
-        <g ref={rivalCurves} className="layer-rival-curves" />
-        <g ref={curves} className="layer-curves" />
-        <g ref={axes} className="layer-axes" />
+        <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
         <rect
           className="hover-surface"
           x={x0}
@@ -189,7 +161,7 @@ export function PlateChart() {
           visibility={rival.on && rivalSheet ? 'visible' : 'hidden'}
         >
           <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
-          <rect x={-6} y={-6} width={12} height={12} fill={PALETTE.rival} stroke={PALETTE.ink} strokeWidth={1.6} />
+          <RivalMark />
         </g>
         <g
           ref={point}
@@ -202,9 +174,7 @@ export function PlateChart() {
           onKeyDown={onPointKey}
           onBlur={onPointBlur}
         >
-          <circle r={16} fill="transparent" />
-          <circle r={7} fill={PALETTE.point} stroke={PALETTE.ink} strokeWidth={1.8} />
-          <circle r={1.8} fill={PALETTE.ink} />
+          <PointMark />
         </g>
       </svg>
       <HoverReadout />

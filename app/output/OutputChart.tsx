@@ -1,7 +1,7 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { milliamps, ohms, volts } from '../format';
 import { ChartLegend, OUTPUT_STAGE_LEGEND } from '../chart/ChartLegend';
-import { drawAxes, drawFamily, drawGrid, drawLimits } from '../chart/drawSheet';
+import { PointMark, RivalMark, SheetLayers } from '../chart/SheetLayers';
 import { PALETTE } from '../chart/palette';
 import { plateScales } from '../chart/plateScales';
 import { useChartBox } from '../chart/useChartBox';
@@ -29,34 +29,10 @@ export function OutputChart() {
   const frame = useRef<HTMLDivElement>(null);
   const box = useChartBox(frame);
   const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
-  const grid = useRef<SVGGElement>(null);
-  const curves = useRef<SVGGElement>(null);
-  const rivalCurves = useRef<SVGGElement>(null);
-  const limits = useRef<SVGGElement>(null);
-  const axes = useRef<SVGGElement>(null);
   const lines = useRef<SVGGElement>(null);
   const point = useRef<SVGGElement>(null);
   const loadHandle = useRef<SVGGElement>(null);
   const rivalPoint = useRef<SVGGElement>(null);
-
-  // Grid and axes follow the window only; the family and limits follow the sheet.
-  useEffect(() => {
-    if (!grid.current || !axes.current) return;
-    drawGrid(grid.current, scales);
-    drawAxes(axes.current, scales);
-  }, [scales]);
-
-  useEffect(() => {
-    if (!curves.current || !limits.current) return;
-    drawFamily(curves.current, sheet, scales);
-    drawLimits(limits.current, sheet, scales);
-  }, [sheet, scales]);
-
-  useEffect(() => {
-    if (!rivalCurves.current) return;
-    if (rivalSheet) drawFamily(rivalCurves.current, rivalSheet, scales, { stroke: PALETTE.rival, dash: '6 3', labelRow: 1 });
-    else rivalCurves.current.replaceChildren();
-  }, [rivalSheet, scales]);
 
   useEffect(() => {
     const nodes = { lines: lines.current!, point: point.current!, loadHandle: loadHandle.current!, rivalPoint: rivalPoint.current! };
@@ -127,14 +103,10 @@ export function OutputChart() {
         role="group"
         aria-label={`Plate curves of the ${tubeId} output stage with its load lines and operating point`}
       >
-        <g ref={grid} className="layer-grid" />
-        <g ref={limits} className="layer-limits" />
-        <g ref={rivalCurves} className="layer-rival-curves" />
-        <g ref={curves} className="layer-curves" />
-        <g ref={axes} className="layer-axes" />
+        <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
         <g ref={lines} className="layer-lines" pointerEvents="none" />
         <g ref={rivalPoint} className="handle-rival fixed" role="img" aria-label={`Operating point of the ${rivalId ?? 'second tube'} with the same parts`} visibility="hidden">
-          <rect x={-6} y={-6} width={12} height={12} fill={PALETTE.rival} stroke={PALETTE.ink} strokeWidth={1.6} />
+          <RivalMark />
         </g>
         <g
           ref={loadHandle}
@@ -160,9 +132,7 @@ export function OutputChart() {
           onKeyDown={onPointKey}
           onBlur={onPointBlur}
         >
-          <circle r={16} fill="transparent" />
-          <circle r={7} fill={PALETTE.point} stroke={PALETTE.ink} strokeWidth={1.8} />
-          <circle r={1.8} fill={PALETTE.ink} />
+          <PointMark />
         </g>
       </svg>
       <CurveDensity />

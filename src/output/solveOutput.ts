@@ -98,7 +98,7 @@ function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number): Ou
 }
 
 /** rp and gm of the primary current by central differences (the screen follows the plate as wired). */
-export function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number): { rp: number; gm: number } {
+function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number): { rp: number; gm: number } {
   const h = Math.max(1e-3, vpk * 1e-5);
   const c = emptyCurrents();
   const at = (v: number, g: number) => {

@@ -1,11 +1,10 @@
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { seriousViolations } from './axe';
 import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
 import { downloadOf, inkShare, pngSize } from './downloads';
 
 const run = chromiumGate();
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
 describe.runIf(run)('the output stage in Chromium', () => {
   let browser: OpenBrowser;
@@ -64,13 +63,7 @@ describe.runIf(run)('the output stage in Chromium', () => {
   it('has no serious accessibility violations (axe-core)', async () => {
     const tooling = await openBrowser(undefined, { bypassCSP: true });
     const { page } = await openOutput(tooling);
-    await page.addScriptTag({ content: axeSource });
-    const result = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-      return axe.run(document, { resultTypes: ['violations'] });
-    });
-    const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+    expect(await seriousViolations(page)).toEqual([]);
     await tooling.close();
   });
 });

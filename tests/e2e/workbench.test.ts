@@ -1,12 +1,11 @@
-import { mkdirSync, readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
+import { mkdirSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { findTube, plateCurrent } from '../../src/index';
+import { seriousViolations } from './axe';
 import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
 
 const run = chromiumGate();
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
 const openBench = (browser: OpenBrowser) => openWorkbench(browser, inject('baseUrl'));
 
@@ -85,13 +84,7 @@ describe.runIf(run)('the workbench in Chromium', () => {
   it('has no serious accessibility violations (axe-core)', async () => {
     const tooling = await openBrowser(undefined, { bypassCSP: true });
     const { page } = await openWorkbench(tooling, inject('baseUrl'));
-    await page.addScriptTag({ content: axeSource });
-    const result = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-      return axe.run(document, { resultTypes: ['violations'] });
-    });
-    const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+    expect(await seriousViolations(page)).toEqual([]);
     await tooling.close();
   });
 
