@@ -3,7 +3,7 @@ import { connectionsOf, findOutputTube, outputTubeLibrary, type Connection, type
 import { mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
 import { difference } from '../panels/ComparePanel';
 import { useWorkbench } from '../store/StoreProvider';
-import { useDragPaced } from '../panels/useDragPaced';
+import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 
 interface Row {
   readonly label: string;
@@ -35,8 +35,7 @@ export function OutputComparePanel() {
   const rival = useWorkbench((s) => s.outputRival);
   const setOutputRival = useWorkbench((s) => s.setOutputRival);
   // The chart shows both points live; the table follows a drag at a readable pace (useDragPaced).
-  const first = useDragPaced(useWorkbench((s) => s.outputBench.analysis));
-  const second = useDragPaced(useWorkbench((s) => s.outputRivalBench));
+  const [first, second] = useDragPaced((s) => [s.outputBench.analysis, s.outputRivalBench] as const, { equal: sameEntries });
   const id = useId();
   const rivalTube = findOutputTube(rival.tubeId);
   const connections = rivalTube ? connectionsOf(rivalTube) : [];

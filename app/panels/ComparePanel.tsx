@@ -3,7 +3,7 @@ import type { Analysis } from '../store/analysis';
 import { mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
 import { rivalDesign } from '../store/compareSlice';
 import { useWorkbench } from '../store/StoreProvider';
-import { useDragPaced } from './useDragPaced';
+import { sameEntries, useDragPaced } from './useDragPaced';
 
 /** One row of the comparison: how to read a figure from an analysis, how to show it, and how to show a difference. */
 interface Row {
@@ -45,9 +45,7 @@ export function ComparePanel() {
   const swapTubes = useWorkbench((s) => s.swapTubes);
   const tubes = useWorkbench((s) => s.tubes);
   // The chart shows both points live; the table follows a drag at a readable pace (useDragPaced).
-  const first = useDragPaced(useWorkbench((s) => s.analysis));
-  const second = useDragPaced(useWorkbench((s) => s.rivalAnalysis));
-  const design = useDragPaced(useWorkbench((s) => s.design));
+  const [first, second, design] = useDragPaced((s) => [s.analysis, s.rivalAnalysis, s.design] as const, { equal: sameEntries });
   const other = rivalDesign(design, rival);
   const id = useId();
   return (

@@ -1,6 +1,8 @@
 import type { Finding } from '../../src/index';
-import { useWorkbench } from '../store/StoreProvider';
+import type { WorkbenchState } from '../store/workbenchStore';
 import { useDragPaced } from './useDragPaced';
+
+const benchFindings = (s: WorkbenchState) => (s.design.stageKind === 'output' ? s.outputBench.analysis.findings : s.analysis.solution.findings);
 
 const WORD = { danger: 'Danger', warning: 'Warning', note: 'Note' } as const;
 
@@ -14,9 +16,7 @@ const signature = (fs: readonly Finding[]) => fs.map((f) => `${f.kind}:${f.sever
  * that appears, goes, or changes severity shows at once.
  */
 export function FindingsList() {
-  const live = useWorkbench((s) => (s.design.stageKind === 'output' ? s.outputBench.analysis.findings : s.analysis.solution.findings));
-  const paced = useDragPaced(live);
-  const findings = signature(paced) === signature(live) ? paced : live;
+  const findings = useDragPaced(benchFindings, { urgent: (shown, next) => signature(shown) !== signature(next) });
   return (
     <section className="panel findings" aria-label="Ratings checks">
       <h2>Ratings</h2>

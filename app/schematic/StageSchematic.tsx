@@ -3,8 +3,7 @@ import { farads, ohms, volts } from '../format';
 import { FIELDS, type FieldName } from '../store/fields';
 import { useWorkbench } from '../store/StoreProvider';
 import type { BenchDesign } from '../store/analysis';
-import { Capacitor, Ground, Resistor, Triode } from './symbols';
-import { Dot, HResistor, Wire } from './symbols2';
+import { GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
 
 /**
  * The stage drawn as a schematic, and the main control surface: each part's
@@ -12,12 +11,6 @@ import { Dot, HResistor, Wire } from './symbols2';
  * same store field as the form (one source of truth). The drawing grows a
  * second tube when the design has one; RL and Cout then sit after it.
  */
-const H = 400;
-const RAIL = 44;
-const X1 = 184;
-const X2 = 334;
-const GRID_Y = 190;
-
 type Spot = { x: number; y: number; anchor: 'start' | 'end' | 'middle' };
 
 function labelSpots(kind: BenchDesign['stage2']['kind']): Partial<Record<FieldName, Spot>> {
@@ -64,40 +57,14 @@ export function StageSchematic() {
   const width = kind === 'none' ? 385 : 490;
   const spots = labelSpots(kind);
   const hasLoad = Number.isFinite(design.rl);
-  const outX = kind === 'none' ? 300 : 404;
-  const outY = kind === 'follower' ? 250 : 130;
-  const fromX = kind === 'none' ? X1 : X2;
 
   return (
     <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
       <div className="schematic-frame">
         <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? ', then a cathode follower' : ', then a second gain stage'}`}>
-          <line x1={X1 - 30} x2={kind === 'none' ? X1 + 30 : X2 + 30} y1={RAIL} y2={RAIL} stroke="#1d2329" strokeWidth={3} />
-          {/* input network: source impedance, coupling capacitor, grid leak */}
-          <text x={4} y={GRID_Y + 4} fontSize={12} fill="#4a535c">in</text>
-          <HResistor x1={18} x2={72} y={GRID_Y} />
-          <Capacitor at={GRID_Y} from={72} to={112} vertical={false} />
-          <Wire points={[[112, GRID_Y], [X1 - 36, GRID_Y]]} />
-          <Dot x={120} y={GRID_Y} />
-          <Resistor x={120} y1={GRID_Y} y2={344} />
-          <Ground x={120} y={352} />
-          {/* stage 1 */}
-          <Resistor x={X1} y1={RAIL} y2={130} />
-          <Dot x={X1} y={130} />
-          <Wire points={[[X1, 130], [X1, 154]]} />
-          <Triode cx={X1} cy={GRID_Y} />
-          <text x={X1 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{design.tubeId}</text>
+          <StageDrawing kind={kind} bypassed={design.bypassed} hasLoad={hasLoad} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
           <text x={X1 + 40} y={192} fontSize={11} fill="#4a535c">{`Va ${volts(op.va)}`}</text>
           <text x={X1 + 40} y={206} fontSize={11} fill="#4a535c">{`Vk ${volts(op.vk)}`}</text>
-          <Wire points={[[X1, 226], [X1, 250]]} />
-          <Dot x={X1} y={250} />
-          <Resistor x={X1} y1={250} y2={344} />
-          <g opacity={design.bypassed ? 1 : 0.3}>
-            <Wire points={[[X1, 250], [X1 + 46, 250]]} />
-            <Wire points={[[X1, 344], [X1 + 46, 344]]} />
-          </g>
-          <Capacitor at={X1 + 46} from={250} to={344} vertical faded={!design.bypassed} polarised />
-          <Ground x={X1} y={352} />
           <g
             role="switch"
             tabIndex={0}
@@ -115,44 +82,6 @@ export function StageSchematic() {
             <rect x={X1 + 28} y={276} width={40} height={44} fill="transparent" />
             <text x={X1 + 66} y={300} fontSize={12} fill="#1d2329">{design.bypassed ? 'Ck' : 'no Ck'}</text>
           </g>
-          {kind === 'follower' ? (
-            <g>
-              <Wire points={[[X1, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
-              <Wire points={[[X2, RAIL], [X2, 154]]} />
-              <Dot x={X2} y={RAIL} />
-              <Triode cx={X2} cy={GRID_Y} />
-              <text x={X2 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{design.stage2.tubeId}</text>
-              <text x={X2 + 40} y={192} fontSize={11} fill="#4a535c">follower</text>
-              <Wire points={[[X2, 226], [X2, 250]]} />
-              <Dot x={X2} y={250} />
-              <Resistor x={X2} y1={250} y2={344} />
-              <Ground x={X2} y={352} />
-            </g>
-          ) : null}
-          {kind === 'common-cathode' ? (
-            <g>
-              <Capacitor at={130} from={X1} to={256} vertical={false} />
-              <Wire points={[[256, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
-              <Dot x={270} y={GRID_Y} />
-              <Resistor x={270} y1={GRID_Y} y2={344} />
-              <Ground x={270} y={352} />
-              <Resistor x={X2} y1={RAIL} y2={130} />
-              <Dot x={X2} y={130} />
-              <Wire points={[[X2, 130], [X2, 154]]} />
-              <Triode cx={X2} cy={GRID_Y} />
-              <text x={X2 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{design.stage2.tubeId}</text>
-              <Wire points={[[X2, 226], [X2, 250]]} />
-              <Resistor x={X2} y1={250} y2={344} />
-              <Ground x={X2} y={352} />
-            </g>
-          ) : null}
-          {/* output: coupling capacitor into the load */}
-          <Wire points={[[fromX, outY], [outX - 50, outY]]} />
-          <Capacitor at={outY} from={outX - 50} to={outX - 4} vertical={false} />
-          <Wire points={[[outX - 4, outY], [outX, outY]]} />
-          <text x={outX + 6} y={outY - 6} fontSize={12} fill="#4a535c">out</text>
-          <Resistor x={outX} y1={outY} y2={344} faded={!hasLoad} />
-          <Ground x={outX} y={352} />
           {(Object.keys(spots) as FieldName[]).map((f) => (
             <g
               key={f}

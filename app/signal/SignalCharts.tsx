@@ -1,4 +1,5 @@
 import { useMemo } from 'react';
+import { useShallow } from 'zustand/react/shallow';
 import { PALETTE } from '../chart/palette';
 import { useWorkbench } from '../store/StoreProvider';
 import { MiniChart } from './MiniChart';
@@ -13,7 +14,10 @@ const H = 210;
  * the model's results from the store; none computes anything itself.
  */
 export function SignalCharts() {
-  const signal = useWorkbench((s) => s.analysis.signal);
+  // Field by field: during a drag only the swing path changes, which these views do not show.
+  const signal = useWorkbench(
+    useShallow(({ analysis: { signal: g } }) => ({ transfer: g.transfer, distortion: g.distortion, swing: g.swing, thdByLevel: g.thdByLevel, response: g.response, corners: g.corners })),
+  );
   const level = useWorkbench((s) => s.design.levelRms);
 
   const transfer = useMemo<XYSpec>(() => {

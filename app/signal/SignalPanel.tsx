@@ -1,3 +1,4 @@
+import { useShallow } from 'zustand/react/shallow';
 import { formatValue } from '../../src/index';
 import { decibels, ohms, plain } from '../format';
 import { ValueField } from '../panels/ValueField';
@@ -8,15 +9,17 @@ const hz = (f: number | null) => (f === null ? 'flat' : formatValue(f, 'Hz'));
 
 /** The signal level control and what the model says at that level: headroom, distortion, bandwidth, and the chain's totals. */
 export function SignalPanel() {
-  const sig = useWorkbench((s) => s.analysis.signal);
+  // Field by field: during a drag only the swing path changes, and this panel need not follow it.
+  const { swing, distortion: d, corners, chain, stale } = useWorkbench(
+    useShallow(({ analysis: { signal: g } }) => ({ swing: g.swing, distortion: g.distortion, corners: g.corners, chain: g.chain, stale: g.stale })),
+  );
   const level = useWorkbench((s) => s.design.levelRms);
   const editField = useWorkbench((s) => s.editField);
   const settleField = useWorkbench((s) => s.settleField);
-  const { swing, distortion: d, corners, chain } = sig;
   const limit = swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
   return (
     <section className="panel signal-panel" aria-label="Signal at a chosen level">
-      <h2>Signal {sig.stale ? <span className="stale-note">(updates when you let go)</span> : null}</h2>
+      <h2>Signal {stale ? <span className="stale-note">(updates when you let go)</span> : null}</h2>
       <div className="signal-row">
         <div className="level-control">
           <ValueField field="level" hint="output level the distortion is read at" />

@@ -1,7 +1,8 @@
 import { act, render } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
-import { DRAG_TABLE_INTERVAL_MS } from '../../app/panels/useDragPaced';
+import { DRAG_TABLE_INTERVAL_MS, useDragPaced } from '../../app/panels/useDragPaced';
+import { StoreProvider } from '../../app/store/StoreProvider';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 
 describe('the comparison table during a drag', () => {
@@ -38,5 +39,26 @@ describe('the ratings list during a drag', () => {
     expect(store.getState().analysis.solution.op.pa).toBeGreaterThan(2.75);
     expect(severities()).toContain('finding danger');
     act(() => store.getState().endDrag());
+  });
+});
+
+describe('a paced reader', () => {
+  it('is not rendered at all on the moves between its refreshes', () => {
+    const store = createWorkbenchStore();
+    let renders = 0;
+    function Probe() {
+      useDragPaced((s) => s.analysis);
+      renders++;
+      return null;
+    }
+    render(<StoreProvider store={store}><Probe /></StoreProvider>);
+    const { vpk, ia } = store.getState().analysis.solution.op;
+    act(() => store.getState().beginDrag('point'));
+    act(() => store.getState().dragPointTo(vpk + 5, ia));
+    const afterFirstMove = renders;
+    for (let k = 1; k <= 8; k++) act(() => store.getState().dragPointTo(vpk + 5 + k, ia * (1 - k / 100)));
+    expect(renders).toBe(afterFirstMove);
+    act(() => store.getState().endDrag());
+    expect(renders).toBe(afterFirstMove + 1);
   });
 });
