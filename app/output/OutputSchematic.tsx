@@ -1,7 +1,7 @@
 import { ohms, percentOf, volts } from '../format';
 import { Capacitor, Ground, Resistor, Triode } from '../schematic/symbols';
 import { Dot, Pentode, Wire, Winding } from '../schematic/symbols2';
-import { useWorkbench } from '../store/StoreProvider';
+import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 
 /**
  * The output stage as a schematic: the tube (pentode or triode symbol) with
@@ -22,8 +22,8 @@ const TEXT = '#4a535c';
 const TAP_X = 156;
 
 export function OutputSchematic() {
-  const o = useWorkbench((s) => s.design.output);
-  const a = useWorkbench((s) => s.outputBench.analysis);
+  // Values follow a drag at a readable pace; the figures strip carries them live.
+  const [o, a] = useDragPaced((s) => [s.design.output, s.outputBench.analysis] as const, { equal: sameEntries });
   const { op, tube } = a.solution;
   const pentode = tube.law.kind === 'pentode';
   const conn = op.connection;

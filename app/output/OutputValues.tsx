@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { useShallow } from 'zustand/react/shallow';
 import { connectionsOf, outputTubeLibrary, switchBias, type Connection } from '../../src/index';
 import { ValueField } from '../panels/ValueField';
 import { WantedPoint } from './WantedPoint';
@@ -16,7 +17,8 @@ const CONNECTION_LABEL: Record<Connection, string> = { pentode: 'Pentode', triod
 /** The output stage's values: tube, connection, bias and the transformer, each with its message beside it. */
 export function OutputValues() {
   const store = useWorkbenchStore();
-  const o = useWorkbench((s) => s.design.output);
+  // Only the choices that shape the form: a drag changes values, which the fields follow themselves.
+  const o = useWorkbench(useShallow(({ design: { output } }) => ({ tubeId: output.tubeId, connection: output.connection, bias: output.bias })));
   const tubeError = useWorkbench((s) => s.errors.outputTube);
   const chooseOutputTube = useWorkbench((s) => s.chooseOutputTube);
   const changeOutput = useWorkbench((s) => s.changeOutput);

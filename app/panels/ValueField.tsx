@@ -1,6 +1,7 @@
 import { useId } from 'react';
 import { FIELDS, type FieldName } from '../store/fields';
 import { useWorkbench } from '../store/StoreProvider';
+import { useDragPaced } from './useDragPaced';
 
 /**
  * One design value typed in the trade's notation. The box shows the user's
@@ -9,7 +10,8 @@ import { useWorkbench } from '../store/StoreProvider';
  */
 export function ValueField({ field, hint }: { field: FieldName; hint?: string }) {
   const def = FIELDS[field];
-  const draft = useWorkbench((s) => s.drafts[field]);
+  // A drag rewrites Ra, Rk or B+ on every move: the box follows at a readable pace, the figures strip live.
+  const draft = useDragPaced((s) => s.drafts[field]);
   const error = useWorkbench((s) => s.errors[field]);
   const editField = useWorkbench((s) => s.editField);
   const settleField = useWorkbench((s) => s.settleField);

@@ -2,6 +2,7 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { farads, ohms, volts } from '../format';
 import { FIELDS, type FieldName } from '../store/fields';
 import { useWorkbench } from '../store/StoreProvider';
+import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import type { BenchDesign } from '../store/analysis';
 import { GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
 
@@ -49,8 +50,8 @@ function partText(f: FieldName, d: BenchDesign): string {
 }
 
 export function StageSchematic() {
-  const design = useWorkbench((s) => s.design);
-  const op = useWorkbench((s) => s.analysis.solution.op);
+  // Values follow a drag at a readable pace; the figures strip carries them live.
+  const [design, op] = useDragPaced((s) => [s.design, s.analysis.solution.op] as const, { equal: sameEntries });
   const setBypassed = useWorkbench((s) => s.setBypassed);
   const [editing, setEditing] = useState<FieldName | null>(null);
   const kind = design.stage2.kind;

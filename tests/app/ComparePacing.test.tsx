@@ -62,3 +62,23 @@ describe('a paced reader', () => {
     expect(renders).toBe(afterFirstMove + 1);
   });
 });
+
+describe('the parts during a drag', () => {
+  it('show live in the figures strip, while the form box follows at the table\'s pace and ends exact', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const strip = () => view.container.querySelector('[data-figure="ra"] dd')!.textContent;
+    const box = () => (view.container.querySelector('input[name="ra"]') as HTMLInputElement).value;
+    const { vpk, ia } = store.getState().analysis.solution.op;
+    act(() => store.getState().beginDrag('point'));
+    act(() => store.getState().dragPointTo(vpk + 20, ia * 0.8));
+    const shownAfterFirst = box();
+    const stripAfterFirst = strip();
+    act(() => store.getState().dragPointTo(vpk + 40, ia * 0.6));
+    expect(strip()).not.toBe(stripAfterFirst);
+    expect(store.getState().drafts.ra).not.toBe(shownAfterFirst);
+    expect(box()).toBe(shownAfterFirst);
+    act(() => store.getState().endDrag());
+    expect(box()).toBe(store.getState().drafts.ra);
+  });
+});

@@ -95,4 +95,35 @@ describe.runIf(run)('the workbench in Chromium', () => {
     expect(await page.evaluate(() => (window as unknown as { __inline?: number }).__inline)).toBeUndefined();
     await page.close();
   });
+
+  it('every live figure fits its fixed box, for every tube in the library, in both stages', async () => {
+    const { page, errors } = await openBench(browser);
+    // A readout whose text is wider than its box would spill into the next figure (the box does not grow: see .readout).
+    const overflowing = () =>
+      page.evaluate(() =>
+        [...document.querySelectorAll('.readout')].flatMap((box) => {
+          const text = document.createRange();
+          text.selectNodeContents(box);
+          const spill = text.getBoundingClientRect().width - box.getBoundingClientRect().width;
+          return spill > 0.5 ? [`${(box.closest('[data-figure]') as HTMLElement).dataset.figure}: “${box.textContent}” by ${spill.toFixed(1)} px`] : [];
+        }),
+      );
+    const tubes = page.getByRole('radiogroup', { name: 'Tubes' }).getByRole('radio');
+    const spills: string[] = [];
+    for (let k = 0; k < (await tubes.count()); k++) {
+      await tubes.nth(k).check();
+      spills.push(...(await overflowing()));
+    }
+    await page.getByLabel('Output stage (transformer-coupled)').check();
+    const outputTubes = await page.getByLabel('Output tube', { exact: true }).locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+    expect(outputTubes.length).toBeGreaterThan(5);
+    for (const id of outputTubes) {
+      await page.getByLabel('Output tube', { exact: true }).selectOption(id);
+      await page.waitForFunction(() => document.querySelector('[data-figure="limit-power"] dd')?.textContent !== '…');
+      spills.push(...(await overflowing()));
+    }
+    expect(spills).toEqual([]);
+    expect(errors).toEqual([]);
+    await page.close();
+  });
 });
