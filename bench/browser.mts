@@ -3,7 +3,7 @@ import { gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
 import { build, preview } from 'vite';
 import { openBrowser, openWorkbench } from '../tests/e2e/browser';
-import { repeatedStats, stats, type Stats } from './stats.mts';
+import { repeatedStats, RUNS, stats, type Stats } from './stats.mts';
 
 /**
  * Interaction cost, measured inside the page so the figure is the work the
@@ -55,9 +55,6 @@ const FIRST_CURVE_HOOK = `window.__firstCurve = null;
 new MutationObserver((m, obs) => { if (document.querySelector('.layer-curves path')) { window.__firstCurve = performance.now(); obs.disconnect(); } })
   .observe(document, { subtree: true, childList: true });`;
 
-/** Measured blocks per figure: each figure is the median over these runs, with their spread. */
-export const RUNS = 3;
-
 async function dragSamples(page: Page, moves = 320): Promise<number[]> {
   return (await page.evaluate(DRAG_SCRIPT(moves))) as number[];
 }
@@ -101,8 +98,8 @@ export async function benchBrowser(): Promise<BrowserResults> {
   const browser = await openBrowser();
   try {
     // The first moves after loading include the JavaScript engine optimising the drag's code paths:
-    // measured on RUNS fresh loads and reported as the cold start. The budgets are judged on the steady
-    // state, after a further warm-up of 600 moves (about ten seconds of dragging).
+    // measured on RUNS fresh loads as the cold start, which the drag budget holds too (a user's first
+    // drag is a cold one). The steady-state figures follow a further warm-up of 600 moves.
     const colds: number[][] = [];
     for (let k = 0; k < RUNS - 1; k++) {
       const fresh = (await openWorkbench(browser, url)).page;

@@ -3,7 +3,7 @@ import {
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
 } from '../src/index';
-import { stats, timeIt, type Stats } from './stats.mts';
+import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 
 /** The demo line stage with its signal parts: what the workbench analyses on every change. */
 const STAGE = { tube: findTube('12AU7')!, bplus: 275, ra: 27e3, rk: 1200, rl: 220e3, rg: 1e6, rsource: 1e3, cin: 470e-9, ck: 100e-6, cout: 1e-6 };
@@ -53,17 +53,43 @@ export interface ModelResults {
   readonly outputFull: Stats;
 }
 
+/** One measure: the call, the calls timed per block, the warm-up before its first block. */
+type Measure = readonly [fn: () => unknown, perBlock: number, warmup: number];
+
+/**
+ * Times every measure in RUNS interleaved blocks (block 1 of each, then
+ * block 2 of each, …), so a burst of load on the shared machine lands in one
+ * block of several figures instead of all of one figure; each figure is the
+ * median of its blocks, with each block's p95 kept as the spread.
+ */
+function interleaved<K extends string>(measures: Record<K, Measure>): Record<K, Stats> {
+  const blocks = {} as Record<K, number[][]>;
+  for (let run = 0; run < RUNS; run++) {
+    for (const name of Object.keys(measures) as K[]) {
+      const [fn, perBlock, warmup] = measures[name];
+      (blocks[name] ??= []).push(timeIt(fn, perBlock, run === 0 ? warmup : 2));
+    }
+  }
+  const out = {} as Record<K, Stats>;
+  for (const name of Object.keys(blocks) as K[]) out[name] = repeatedStats(blocks[name]);
+  return out;
+}
+
 export function benchModel(): ModelResults {
   const pts = fitPoints(200);
-  const fftScaling: Record<string, Stats> = {};
-  for (const n of [1024, 2048, 4096, 8192, 16384]) fftScaling[n] = stats(timeIt(() => fullAnalysis(n), 60, 5));
-  return {
-    solveStage: stats(timeIt(() => solveStage(STAGE), 2000)),
-    fullAnalysis: stats(timeIt(() => fullAnalysis(), 400)),
-    plateFamily: stats(timeIt(() => curveSheet(STAGE.tube, 275), 300)),
-    fit200: stats(timeIt(() => fitTriode(pts), 15, 2)),
-    fftScaling,
-    outputLight: stats(timeIt(() => analyzeOutput(EL34, OUTPUT, { light: true }), 200)),
-    outputFull: stats(timeIt(() => analyzeOutput(EL34, OUTPUT), 20, 3)),
-  };
+  const m = interleaved({
+    solveStage: [() => solveStage(STAGE), 700, 20],
+    fullAnalysis: [() => fullAnalysis(), 150, 20],
+    plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
+    fit200: [() => fitTriode(pts), 7, 2],
+    outputLight: [() => analyzeOutput(EL34, OUTPUT, { light: true }), 70, 20],
+    outputFull: [() => analyzeOutput(EL34, OUTPUT), 8, 3],
+    fft1024: [() => fullAnalysis(1024), 20, 5],
+    fft2048: [() => fullAnalysis(2048), 20, 5],
+    fft4096: [() => fullAnalysis(4096), 20, 5],
+    fft8192: [() => fullAnalysis(8192), 20, 5],
+    fft16384: [() => fullAnalysis(16384), 20, 5],
+  });
+  const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
+  return { solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

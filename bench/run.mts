@@ -32,7 +32,7 @@ let browser: BrowserResults | null = null;
 if (existsSync('/usr/bin/chromium')) {
   console.log('\nInteraction and load (Chromium, production build)');
   browser = await benchBrowser();
-  line('drag, first 320 moves after loading (cold)', browser.dragColdStart);
+  line('drag, first 320 moves after loading (cold)', browser.dragColdStart, { value: 8, on: 'p95' });
   line('drag, one tube (move to frame ready)', browser.dragOneTube, { value: 8, on: 'p95' });
   line('drag, two tubes compared', browser.dragTwoTubes, { value: 8, on: 'p95' });
   line('typing a new Ra', browser.typingRa, { value: 8, on: 'p95' });

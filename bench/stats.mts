@@ -1,4 +1,8 @@
 /** Timing statistics: these machines are shared and noisy, so every figure is a median with its spread. */
+
+/** Measured blocks per figure: each figure is the median over these runs, with their spread. */
+export const RUNS = 3;
+
 export interface Stats {
   readonly n: number;
   readonly median: number;
