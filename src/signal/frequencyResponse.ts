@@ -58,46 +58,53 @@ function networkOf(s: SolvedStage) {
 type Network = ReturnType<typeof networkOf>;
 const scratch = { re: new Float64Array(N * W), im: new Float64Array(N * W), xr: new Float64Array(N), xi: new Float64Array(N) };
 
-/** vout/vsource at one frequency: the nodal equations filled straight into flat arrays and solved in place. */
+/** Adds the admittance (gr + j·bi) at row r, column c of the flat matrix. */
+function add(re: Float64Array, im: Float64Array, r: number, c: number, gr: number, bi: number): void {
+  const i = r * W + c;
+  re[i] = re[i]! + gr;
+  im[i] = im[i]! + bi;
+}
+
+/** Admittance y = (gr + j·bi) between nodes r and c (c < 0: ground), stamped as in modified nodal analysis. */
+function stamp(re: Float64Array, im: Float64Array, r: number, c: number, gr: number, bi: number): void {
+  add(re, im, r, r, gr, bi);
+  if (c >= 0) {
+    add(re, im, c, c, gr, bi);
+    add(re, im, r, c, -gr, -bi);
+    add(re, im, c, r, -gr, -bi);
+  }
+}
+
+const [A, G, P, K, O] = [0, 1, 2, 3, 4];
+
+/**
+ * vout/vsource at one frequency: the nodal equations filled straight into
+ * flat arrays and solved in place. (The stamping helpers live at module level:
+ * closures made per call cost a measurable share of the full analysis.)
+ */
 function solveAt(net: Network, freqHz: number): Complex {
   const w = 2 * Math.PI * freqHz;
   const { re, im, xr, xi } = scratch;
   re.fill(0);
   im.fill(0);
-  const at = (r: number, c: number) => r * W + c;
-  const add = (r: number, c: number, gr: number, bi: number) => {
-    const i = at(r, c);
-    re[i] = re[i]! + gr;
-    im[i] = im[i]! + bi;
-  };
-  // Admittance y = (gr + j·bi) between nodes r and c (c < 0: ground), stamped as in modified nodal analysis.
-  const stamp = (r: number, c: number, gr: number, bi: number) => {
-    add(r, r, gr, bi);
-    if (c >= 0) {
-      add(c, c, gr, bi);
-      add(r, c, -gr, -bi);
-      add(c, r, -gr, -bi);
-    }
-  };
-  const [A, G, P, K, O] = [0, 1, 2, 3, 4];
-  stamp(A, -1, net.gRs, 0); // source impedance to the (1 V) source: its current enters the right-hand side
-  re[at(A, N)] = net.gRs;
-  if (net.cin === null) stamp(A, G, SHORT, 0);
-  else stamp(A, G, 0, w * net.cin);
-  stamp(G, -1, net.gRg, 0);
-  stamp(G, K, 0, w * net.cgk);
-  stamp(G, P, 0, w * net.cgp);
-  stamp(P, -1, net.gRa, 0);
-  stamp(P, K, net.gp, w * net.cpk);
-  if (net.cout === null) stamp(P, O, SHORT, 0);
-  else stamp(P, O, 0, w * net.cout);
-  stamp(O, -1, net.gRl, 0);
-  stamp(K, -1, net.gRk + (net.kShort ? SHORT : 0), net.ck === null ? 0 : w * net.ck);
+  stamp(re, im, A, -1, net.gRs, 0); // source impedance to the (1 V) source: its current enters the right-hand side
+  re[A * W + N] = net.gRs;
+  if (net.cin === null) stamp(re, im, A, G, SHORT, 0);
+  else stamp(re, im, A, G, 0, w * net.cin);
+  stamp(re, im, G, -1, net.gRg, 0);
+  stamp(re, im, G, K, 0, w * net.cgk);
+  stamp(re, im, G, P, 0, w * net.cgp);
+  stamp(re, im, P, -1, net.gRa, 0);
+  stamp(re, im, P, K, net.gp, w * net.cpk);
+  if (net.cout === null) stamp(re, im, P, O, SHORT, 0);
+  else stamp(re, im, P, O, 0, w * net.cout);
+  stamp(re, im, O, -1, net.gRl, 0);
+  stamp(re, im, K, -1, net.gRk + (net.kShort ? SHORT : 0), net.ck === null ? 0 : w * net.ck);
   // The controlled source gm·(vg − vk) flows from plate to cathode.
-  add(P, G, net.gm, 0);
-  add(P, K, -net.gm, 0);
-  add(K, G, -net.gm, 0);
-  add(K, K, net.gm, 0);
+  add(re, im, P, G, net.gm, 0);
+  add(re, im, P, K, -net.gm, 0);
+  add(re, im, K, G, -net.gm, 0);
+  add(re, im, K, K, net.gm, 0);
   return csolveFlat(re, im, N, xr, xi) ? [xr[O]!, xi[O]!] : [0, 0];
 }
 

@@ -16,10 +16,6 @@ function softplus(x: number): number {
   return x > 30 ? x + Math.log1p(Math.exp(-x)) : Math.log1p(Math.exp(x));
 }
 
-/** The logistic function, d/dx softplus(x). */
-function logistic(x: number): number {
-  return x >= 0 ? 1 / (1 + Math.exp(-x)) : Math.exp(x) / (1 + Math.exp(x));
-}
 
 /** Plate current in A at plate–cathode voltage vpk and grid–cathode voltage vgk (V). Never negative, never NaN. */
 export function korenPlateCurrent(p: KorenTriodeParams, vpk: number, vgk: number): number {
@@ -68,8 +64,11 @@ export function korenSlopesInto(p: KorenTriodeParams, vpk: number, vgk: number, 
   if (!(vpk > 0) || !Number.isFinite(vgk)) return;
   const s = Math.sqrt(p.kvb + vpk * vpk);
   const x = p.kp * (1 / p.mu + vgk / s);
-  const sp = softplus(x);
-  const sig = logistic(x);
+  // softplus and the logistic σ(x) from one exponential, e^−|x| (no overflow either side):
+  // ln(1 + eˣ) = max(x, 0) + ln(1 + e^−|x|), and σ(x) = 1/(1 + e^−x) or e^x/(1 + e^x).
+  const t = Math.exp(-Math.abs(x));
+  const sp = Math.max(x, 0) + Math.log1p(t);
+  const sig = x >= 0 ? 1 / (1 + t) : t / (1 + t);
   const e1 = (vpk / p.kp) * sp;
   if (!(e1 > 0)) return;
   const powEx1 = Math.pow(e1, p.ex - 1);
