@@ -4,8 +4,8 @@ import { useShallow } from 'zustand/react/shallow';
 import { useWorkbench } from '../store/StoreProvider';
 
 /**
- * The stage's figures as a strip of labelled numbers with units, led by the
- * parts (B+, Ra, Rk) that put the operating point where it is. Each value
+ * The stage's figures as a strip of labelled numbers with units: the
+ * operating point, then the parts (B+, Ra, Rk) that put it there. Each value
  * carries a data-figure name so tests and exports can read it.
  */
 export function FiguresStrip() {
@@ -16,17 +16,17 @@ export function FiguresStrip() {
   const { op } = sol;
   return (
     <section className="panel figures" aria-label="Figures at the operating point">
-      <dl className="figure-group" aria-label="Parts">
-        <Figure name="bplus" label="B+" value={volts(bplus)} chars={5.5} />
-        <Figure name="ra" label="Ra" value={ohms(ra)} chars={6.5} />
-        <Figure name="rk" label="Rk" value={ohms(rk)} chars={6.5} />
-      </dl>
       <dl className="figure-group">
         <Figure name="va" label="Va (plate to ground)" value={volts(op.va)} chars={5.5} />
         <Figure name="vpk" label="Vpk" value={volts(op.vpk)} chars={5.5} />
         <Figure name="ia" label="Ia" value={milliamps(op.ia)} chars={7} />
         <Figure name="vgk" label="Vgk" value={volts(op.vgk)} chars={6.5} />
         <Share name="pa" label="Pa" value={op.pa} rating={maxPa} meterLabel="Plate dissipation, share of rating" />
+      </dl>
+      <dl className="figure-group" aria-label="Parts">
+        <Figure name="bplus" label="B+" value={volts(bplus)} chars={5.5} />
+        <Figure name="ra" label="Ra" value={ohms(ra)} chars={6.5} />
+        <Figure name="rk" label="Rk" value={ohms(rk)} chars={6.5} />
       </dl>
       <dl className="figure-group">
         <Figure name="mu" label="μ" value={plain(sol.mu)} chars={4} />
