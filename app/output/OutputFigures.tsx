@@ -21,9 +21,9 @@ export function OutputFigures() {
     <section className="panel figures" aria-label="Output stage figures">
       <dl className="figure-group">
         <Figure name="vpk" label="Vpk" value={volts(op.vpk)} chars={5.5} />
-        <Figure name="ip" label={op.connection === 'triode' && tube.law.kind === 'pentode' ? 'Ia + Ig2' : 'Ia'} value={milliamps(op.ip)} chars={7} />
-        {screen ? <Figure name="ig2" label="Ig2" value={milliamps(op.ig2)} chars={7} /> : null}
-        <Figure name="vgk" label="Vgk" value={volts(op.vgk)} chars={6.5} />
+        <Figure name="ip" label={op.connection === 'triode' && tube.law.kind === 'pentode' ? 'Ia + Ig2' : 'Ia'} value={milliamps(op.ip)} chars={8} />
+        {screen ? <Figure name="ig2" label="Ig2" value={milliamps(op.ig2)} chars={8} /> : null}
+        <Figure name="vgk" label="Vgk" value={volts(op.vgk)} chars={7.5} />
         <Share name="pa" label="Pa" value={op.pa} rating={r.maxPlateDissipation} meterLabel="Plate dissipation, share of rating" />
         {screen && r.maxScreenDissipation !== null ? <Share name="pg2" label="Pg2 (idle)" value={op.pg2} rating={r.maxScreenDissipation} meterLabel="Screen dissipation, share of rating" /> : null}
       </dl>
@@ -34,7 +34,7 @@ export function OutputFigures() {
       </dl>
       <dl className="figure-group">
         <Figure name="rp" label="rp (as wired)" value={ohms(op.rp)} chars={6.5} />
-        <Figure name="gm" label="gm" value={mAPerV(op.gm)} chars={8.5} />
+        <Figure name="gm" label="gm" value={mAPerV(op.gm)} chars={9.5} />
         <Figure name="damping" label="Damping factor" value={plain(a.dampingFactor, 2)} chars={4} />
         <Figure name="zout" label="Zout at the speaker" value={ohms(a.outputImpedance)} chars={6.5} />
         <Figure name="turns" label="Turns ratio" value={`${plain(a.turnsRatio, 3)} : 1`} chars={6.5} />

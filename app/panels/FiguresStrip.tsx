@@ -19,8 +19,8 @@ export function FiguresStrip() {
       <dl className="figure-group">
         <Figure name="va" label="Va (plate to ground)" value={volts(op.va)} chars={5.5} />
         <Figure name="vpk" label="Vpk" value={volts(op.vpk)} chars={5.5} />
-        <Figure name="ia" label="Ia" value={milliamps(op.ia)} chars={7} />
-        <Figure name="vgk" label="Vgk" value={volts(op.vgk)} chars={6.5} />
+        <Figure name="ia" label="Ia" value={milliamps(op.ia)} chars={8} />
+        <Figure name="vgk" label="Vgk" value={volts(op.vgk)} chars={7.5} />
         <Share name="pa" label="Pa" value={op.pa} rating={maxPa} meterLabel="Plate dissipation, share of rating" />
       </dl>
       <dl className="figure-group" aria-label="Parts">
@@ -31,7 +31,7 @@ export function FiguresStrip() {
       <dl className="figure-group">
         <Figure name="mu" label="μ" value={plain(sol.mu)} chars={4} />
         <Figure name="rp" label="rp" value={ohms(sol.rp)} chars={6.5} />
-        <Figure name="gm" label="gm" value={mAPerV(sol.gm)} chars={8.5} />
+        <Figure name="gm" label="gm" value={mAPerV(sol.gm)} chars={9.5} />
       </dl>
       <dl className="figure-group">
         <Figure name="gain" label="Gain" value={`${plain(sol.gain)} × (${decibels(sol.gain)})`} chars={15} />
@@ -39,8 +39,8 @@ export function FiguresStrip() {
         <Figure name="cin" label="Cin (Miller)" value={farads(sol.cin)} chars={6.5} />
       </dl>
       <dl className="figure-group">
-        <Figure name="to-grid-current" label="Grid swing to 0 V" value={volts(sol.toGridCurrent)} chars={6.5} />
-        <Figure name="to-cutoff" label="Grid swing to cutoff" value={volts(sol.toCutoff)} chars={6.5} />
+        <Figure name="to-grid-current" label="Grid swing to 0 V" value={volts(sol.toGridCurrent)} chars={7} />
+        <Figure name="to-cutoff" label="Grid swing to cutoff" value={volts(sol.toCutoff)} chars={7} />
       </dl>
     </section>
   );
