@@ -1,4 +1,4 @@
-import { formatValue } from '../src/index';
+import { formatValue, type Level } from '../src/index';
 
 /**
  * Display formatting only: SI values from the model into the units a bench
@@ -18,3 +18,10 @@ export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digi
 export const decibels = (ratio: number) => `${(20 * Math.log10(Math.abs(ratio))).toFixed(1)} dB`;
 /** A fraction shown in percent, to three figures. */
 export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
+/** A signed level in dB to one decimal, with a true minus sign. */
+export const signedDb = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(1)}`;
+/** A sine level as the bench reads it, "1.23 V rms (+4.0 dBu)"; a level of nothing reads "none". */
+export const rmsLevel = (l: Level, ref: 'dBu' | 'dBV') => {
+  const db = ref === 'dBu' ? l.dBu : l.dBV;
+  return db === null ? 'none' : `${plain(l.rms)} V rms (${signedDb(db)} ${ref})`;
+};

@@ -39,7 +39,9 @@ export {
   type PlanePointDesign,
   type ReachablePoint,
 } from './stage/designAtPoint';
-export { ratingsFindings, DISSIPATION_WARN_FRACTION, type Finding, type FindingKind, type Severity } from './stage/findings';
+export { ratingsFindings, NO_BIAS_VOLTS, type FindingInput } from './stage/findings';
+export { amplifierFindings, type StageFinding } from './stage/stageFindings';
+export { DISSIPATION_WARN_FRACTION, HEATER_CATHODE_WARN_FRACTION, AT_RATING_TOLERANCE, bandOf, bySeverity, heaterCathodeRating, type Band, type Finding, type FindingKind, type HeaterCathodeRating, type Severity } from './stage/ratingBands';
 export {
   plateCurve,
   plateFamily,
@@ -68,7 +70,7 @@ export { distortion, distortionOf, DEFAULT_SAMPLES, type DriveLevel, type Distor
 export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } from './signal/frequencyResponse';
 export { corners, cornersOf, type Corners } from './signal/corners';
 export { solveChain, type ChainLink, type LinkResult, type ChainResult } from './signal/solveChain';
-export { sineLevel, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
+export { sineLevel, decibelsOf, DB_FLOOR, NO_SIGNAL_VOLTS, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
 export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';
 export { distortionSweep, type LevelThd } from './signal/distortionSweep';

@@ -1,10 +1,11 @@
 import { formatValue } from '../../src/index';
-import { decibels, farads, mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
+import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../panels/ComparePanel';
 import { buildSheetOf } from '../store/buildSheet';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
+import { ratingsLines } from './ratingsLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
 export const CARD_WIDTH = 1240;
@@ -37,16 +38,35 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
     {
       heading: 'Signal',
       lines: [
-        `Clean output ${plain(sig.swing.output.rms)} V rms (${sig.swing.output.dBu.toFixed(1)} dBu), clips by ${sig.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`,
+        sig.swing.output.rms === 0 ? 'No clean output: the grid has no bias' : `Clean output ${rmsLevel(sig.swing.output, 'dBu')}, clips by ${sig.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`,
         sig.distortion.ok
           ? `At ${plain(d.levelRms)} V rms out: THD ${plain(sig.distortion.thdPercent)} %, H2 ${sig.distortion.harmonicsDb[0]!.toFixed(1)} dB, H3 ${sig.distortion.harmonicsDb[1]!.toFixed(1)} dB`
           : sig.distortion.message,
         `−3 dB: ${sig.corners.lowHz ? formatValue(sig.corners.lowHz, 'Hz') : 'DC'} to ${sig.corners.highHz ? formatValue(sig.corners.highHz, 'Hz') : 'beyond 1 GHz'}`,
       ],
     },
-    { heading: 'Ratings', lines: sol.findings.map((f) => `${f.severity.toUpperCase()}: ${f.message}`) },
   ];
+  const chain = sig.chain?.ok ? sig.chain : null;
+  const link = chain?.links[1];
+  if (chain && link) {
+    sections.push({
+      heading: link.kind === 'follower' ? `Stage 2: ${d.stage2.tubeId} cathode follower, direct-coupled` : `Stage 2: ${d.stage2.tubeId} gain stage, capacitor-coupled`,
+      lines: [
+        link.kind === 'follower' ? `Rk ${ohms(d.stage2.rk)}` : `Ra ${ohms(d.stage2.ra)}, Rk ${ohms(d.stage2.rk)} bypassed, Rg ${ohms(d.stage2.rg)}`,
+        `Va ${volts(link.op.va)}, Vk ${volts(link.op.vk)}, Ia ${milliamps(link.op.ia)}, Vgk ${volts(link.op.vgk)}, Pa ${watts(link.op.pa)}`,
+        `Gain ${plain(link.gain)} ×, Zout ${ohms(link.zout)}${link.kind === 'follower' ? `, heater–cathode ${volts(link.vhk)}` : ''}`,
+        `Both stages: gain ${plain(chain.gain)} × (${chain.inverting ? 'inverting' : 'not inverting'}), clean output ${plain(chain.output.rms)} V rms`,
+      ],
+    });
+  }
   const build = buildSheetOf(s);
+  sections.push({ heading: 'Ratings, every stage', lines: ratingsLines(s) });
+  if (build.elevation.ok) {
+    sections.push({
+      heading: 'Heaters',
+      lines: [build.elevation.groundedOk ? 'Heater–cathode voltages are within every rating with the heaters at ground.' : `Elevate the heater supply to about ${volts(build.elevation.suggested)} DC (${volts(build.elevation.lo)} to ${volts(build.elevation.hi)} keeps every stage within its heater–cathode rating).`],
+    });
+  } else sections.push({ heading: 'Heaters', lines: [build.elevation.message] });
   sections.push({
     heading: 'Parts to order',
     lines: [
@@ -118,22 +138,31 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
   ctx.drawImage(chartImg, MARGIN + (cw - chartW) / 2, y, chartW, ch);
   y += ch + 20;
   ctx.fillStyle = '#1d2329';
-  // The design's own figures on the left; a comparison, when there is one, in a column on the right.
   const sections = cardSections(s);
-  // The design's own figures on the left; parts and any comparison on the right.
-  const columns = [sections.slice(0, 4), sections.slice(4)];
+  // The stages' own figures on the left; ratings (most severe first), heaters, parts and any comparison on the right.
+  const split = sections.findIndex((x) => x.heading.startsWith('Ratings'));
+  const columns = [sections.slice(0, split), sections.slice(split)];
   const colWidth = columns.length > 1 ? cw / 2 - 12 : cw;
   const top = y;
   columns.forEach((column, c) => {
     let cy = top;
     const x = MARGIN + c * (colWidth + 24);
-    for (const section of column) {
-      if (cy > CARD_HEIGHT - 140) break;
+    for (const [n, section] of column.entries()) {
+      if (cy > CARD_HEIGHT - 140) {
+        ctx.font = `17px ${EXPORT_FONTS}`;
+        ctx.fillText(`… did not fit: ${column.slice(n).map((x) => x.heading).join(', ')} (see the screen)`, x, cy);
+        break;
+      }
       ctx.font = `bold 21px ${EXPORT_FONTS}`;
       cy = wrapText(ctx, section.heading, x, cy, colWidth, 27) + 2;
       ctx.font = `17px ${EXPORT_FONTS}`;
-      for (const line of section.lines) {
-        if (cy > CARD_HEIGHT - 120) break;
+      for (const [k, line] of section.lines.entries()) {
+        if (cy > CARD_HEIGHT - 120) {
+          // Never drop lines without a word: say how many did not fit.
+          ctx.fillText(`… ${section.lines.length - k} more: see the build sheet on screen`, x + 10, cy);
+          cy += 22;
+          break;
+        }
         cy = wrapText(ctx, line, x + 10, cy, colWidth - 10, 22);
       }
       cy += 8;

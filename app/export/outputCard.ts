@@ -2,6 +2,7 @@ import { outputPartsList } from '../../src/index';
 import { farads, mAPerV, milliamps, ohms, percentOf, plain, volts, watts } from '../format';
 import { OUTPUT_COMPARE_ROWS } from '../output/OutputComparePanel';
 import type { WorkbenchState } from '../store/workbenchStore';
+import { ratingsLines } from './ratingsLines';
 
 /** The build card's text for the output stage, from what the model already computed. */
 export function outputCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
@@ -37,7 +38,7 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
         a.zSweep ? `Best primary at this point: ${ohms(a.zSweep.best.zPrimary)} for ${watts(a.zSweep.best.power)} within ${percentOf(a.zSweep.limit)} THD` : '',
       ].filter(Boolean),
     },
-    { heading: 'Ratings', lines: a.findings.map((f) => `${f.severity.toUpperCase()}: ${f.message}`) },
+    { heading: 'Ratings, every stage', lines: ratingsLines(s) },
     {
       heading: 'Parts to order',
       lines: [

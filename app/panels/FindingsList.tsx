@@ -1,29 +1,29 @@
-import type { Finding } from '../../src/index';
-import type { WorkbenchState } from '../store/workbenchStore';
+import type { StageFinding } from '../../src/index';
+import { benchFindings, sameFindings } from '../store/amplifierFindings';
 import { useDragPaced } from './useDragPaced';
-
-const benchFindings = (s: WorkbenchState) => (s.design.stageKind === 'output' ? s.outputBench.analysis.findings : s.analysis.solution.findings);
 
 const WORD = { danger: 'Danger', warning: 'Warning', note: 'Note' } as const;
 
 /** Which checks are listed at which severity: what must never wait. */
-const signature = (fs: readonly Finding[]) => fs.map((f) => `${f.kind}:${f.severity}`).join(' ');
+const signature = (fs: readonly StageFinding[]) => fs.map((f) => `${f.stage}:${f.kind}:${f.severity}`).join(' ');
 
 /**
- * The model's ratings findings for the stage on the bench, most severe first,
- * in plain words. During a drag the sentences' numbers refresh at the
- * comparison table's pace (the figures strip carries them live), but a check
- * that appears, goes, or changes severity shows at once.
+ * The model's ratings findings for every stage of the amplifier, most severe
+ * first, each tagged with its stage, in plain words. During a drag the
+ * sentences' numbers refresh at the comparison table's pace (the figures
+ * strip carries them live), but a check that appears, goes, or changes
+ * severity shows at once.
  */
 export function FindingsList() {
-  const findings = useDragPaced(benchFindings, { urgent: (shown, next) => signature(shown) !== signature(next) });
+  const findings = useDragPaced(benchFindings, { equal: sameFindings, urgent: (shown, next) => signature(shown) !== signature(next) });
+  const stages = new Set(findings.map((f) => f.stage)).size;
   return (
     <section className="panel findings" aria-label="Ratings checks">
-      <h2>Ratings</h2>
+      <h2>Ratings{stages > 1 ? ', every stage' : ''}</h2>
       <ul>
         {findings.map((f) => (
-          <li key={f.kind} className={`finding ${f.severity}`}>
-            <span className="severity">{WORD[f.severity]}</span> {f.message}
+          <li key={`${f.stage}:${f.kind}`} className={`finding ${f.severity}`} data-stage={f.stage}>
+            <span className="severity">{WORD[f.severity]}</span> <span className="finding-stage">{f.stageName}:</span> {f.message}
           </li>
         ))}
       </ul>

@@ -1,10 +1,9 @@
 import { useShallow } from 'zustand/react/shallow';
 import { formatValue } from '../../src/index';
-import { decibels, ohms, plain } from '../format';
+import { decibels, ohms, plain, rmsLevel } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
 
-const dbText = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(1)}`;
 const hz = (f: number | null) => (f === null ? 'flat' : formatValue(f, 'Hz'));
 
 /** The signal level control and what the model says at that level: headroom, distortion, bandwidth, and the chain's totals. */
@@ -27,9 +26,9 @@ export function SignalPanel() {
             type="range"
             aria-label="Output level, log scale from 1 mV rms to the clean swing"
             min={-3}
-            max={Math.log10(swing.output.rms)}
+            max={Math.log10(Math.max(swing.output.rms, 1e-3))}
             step={0.01}
-            value={Math.log10(Math.min(level, swing.output.rms))}
+            value={Math.log10(Math.max(1e-3, Math.min(level, swing.output.rms)))}
             onChange={(e) => editField('level', Number(Math.pow(10, Number(e.target.value)).toPrecision(3)).toString())}
             onPointerUp={() => settleField('level')}
           />
@@ -41,9 +40,9 @@ export function SignalPanel() {
           <div className="figure" data-figure="h3"><dt>H3</dt><dd>{d.ok ? `${d.harmonicsDb[1]!.toFixed(1)} dB` : '—'}</dd></div>
         </dl>
         <dl className="figure-group">
-          <div className="figure" data-figure="headroom-out"><dt>Clean output swing</dt><dd>{`${plain(swing.output.rms)} V rms (${dbText(swing.output.dBu)} dBu)`}</dd></div>
-          <div className="figure" data-figure="headroom-in"><dt>Clean input</dt><dd>{`${plain(swing.input.rms)} V rms (${dbText(swing.input.dBV)} dBV)`}</dd></div>
-          <div className="figure" data-figure="limited-by"><dt>Clips by</dt><dd>{limit}</dd></div>
+          <div className="figure" data-figure="headroom-out"><dt>Clean output swing</dt><dd>{rmsLevel(swing.output, 'dBu')}</dd></div>
+          <div className="figure" data-figure="headroom-in"><dt>Clean input</dt><dd>{rmsLevel(swing.input, 'dBV')}</dd></div>
+          <div className="figure" data-figure="limited-by"><dt>Clips by</dt><dd>{swing.output.rms === 0 ? 'at any level (no grid bias)' : limit}</dd></div>
           <div className="figure" data-figure="bandwidth"><dt>−3 dB</dt><dd>{`${hz(corners.lowHz)} to ${hz(corners.highHz)}`}</dd></div>
         </dl>
       </div>

@@ -84,11 +84,12 @@ function compute(s: WorkbenchState): BuildSheet {
   });
   const heaters = heaterTotals(tubes.map((t) => t.chosen));
   const dropper = heaters.ok ? droppingResistor(heaters, inp.heaterSupplyVolts, d.series) : null;
-  const stages = [{ name: 'stage 1', vk: sol.op.vk, maxVhk: tube1.directlyHeated ? null : tube1.ratings.maxHeaterCathodeVoltage }];
-  if (link) {
-    const t2 = lookupTube(d.stage2.tubeId)!;
-    stages.push({ name: 'stage 2', vk: link.op.vk, maxVhk: t2.directlyHeated ? null : t2.ratings.maxHeaterCathodeVoltage });
-  }
+  const hk = (tube: TubeRecord) => ({
+    maxVhk: tube.directlyHeated ? null : tube.ratings.maxHeaterCathodeVoltage,
+    ...(tube.ratings.maxHeaterCathodeVoltageCathodeNegative !== undefined ? { maxVhkCathodeNegative: tube.ratings.maxHeaterCathodeVoltageCathodeNegative } : {}),
+  });
+  const stages = [{ name: 'stage 1', vk: sol.op.vk, ...hk(tube1) }];
+  if (link) stages.push({ name: 'stage 2', vk: link.op.vk, ...hk(lookupTube(d.stage2.tubeId)!) });
   const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0);
   const filter = decouplingFilter(inp.railVolts, inp.filterR, inp.filterC, (b) => {
     const r = solveStage({ ...stage, bplus: b });

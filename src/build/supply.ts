@@ -63,18 +63,20 @@ export function droppingResistor(plan: HeaterPlan, supplyVolts: number, series: 
 
 /**
  * The heater elevation that keeps every stage's heater–cathode voltage within
- * its rating: the intersection of [Vk − max, Vk + max] over the stages.
+ * its rating: the intersection of [Vk − max₊, Vk + max₋] over the stages,
+ * where max₊ is the rating with the cathode positive to the heater and max₋
+ * the one with it negative (the same figure where the sheet gives one).
  * Returns the allowed window and a suggestion (0 V when grounding is fine,
  * else the point of the window nearest 0 V moved 10 % into it), or a message
  * when no single heater potential serves every stage.
  */
-export function heaterElevation(stages: readonly { name: string; vk: number; maxVhk: number | null }[]): Result<{ lo: number; hi: number; suggested: number; groundedOk: boolean }> {
+export function heaterElevation(stages: readonly { name: string; vk: number; maxVhk: number | null; maxVhkCathodeNegative?: number }[]): Result<{ lo: number; hi: number; suggested: number; groundedOk: boolean }> {
   let lo = -Infinity;
   let hi = Infinity;
   for (const s of stages) {
     if (s.maxVhk === null) continue;
     lo = Math.max(lo, s.vk - s.maxVhk);
-    hi = Math.min(hi, s.vk + s.maxVhk);
+    hi = Math.min(hi, s.vk + (s.maxVhkCathodeNegative ?? s.maxVhk));
   }
   if (lo > hi) return fail('unreachable', 'No single heater potential keeps every stage within its heater–cathode rating: give the follower its own heater winding');
   if (!Number.isFinite(lo) && !Number.isFinite(hi)) return { ok: true, lo: -Infinity, hi: Infinity, suggested: 0, groundedOk: true };

@@ -1,7 +1,6 @@
-import { DISSIPATION_WARN_FRACTION, type Finding, type FindingKind, type Severity } from '../stage/findings';
+import { bySeverity, dissipationFinding, finding, heaterCathodeFinding, heaterCathodeRating, type Finding, type FindingKind, type Severity } from '../stage/ratingBands';
 import type { OutputSolution } from './solveOutput';
 
-const SEVERITY_ORDER: Record<Severity, number> = { danger: 0, warning: 1, note: 2 };
 const v0 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
 
 /**
@@ -13,18 +12,11 @@ const v0 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
  */
 export function outputFindings(s: OutputSolution, peakPlateVolts: number | null): Finding[] {
   const out: Finding[] = [];
-  const push = (kind: FindingKind, severity: Severity, message: string, value: number, limit: number) =>
-    out.push({ kind, severity, message, value, limit, percent: limit > 0 ? (100 * value) / limit : Infinity });
+  const push = (kind: FindingKind, severity: Severity, message: string, value: number, limit: number) => out.push(finding(kind, severity, message, value, limit));
   const r = s.tube.ratings;
   const { op, design } = s;
 
-  const dissipation = (kind: FindingKind, what: string, watts: number, rating: number, extra: string) => {
-    const share = watts / rating;
-    const text = `${what} dissipation ${watts.toFixed(2)} W is ${Math.round(share * 100)} % of the ${rating} W rating${extra}`;
-    if (share > 1) push(kind, 'danger', `${text}: it will overheat.`, watts, rating);
-    else if (share > DISSIPATION_WARN_FRACTION) push(kind, 'warning', `${text}: little margin for mains swings and tube spread.`, watts, rating);
-    else push(kind, 'note', `${text}.`, watts, rating);
-  };
+  const dissipation = (kind: FindingKind, what: string, watts: number, rating: number, extra: string) => out.push(dissipationFinding(kind, what, watts, rating, extra));
   dissipation('plate-dissipation', op.connection === 'triode' && s.tube.law.kind === 'pentode' ? 'Plate (with screen)' : 'Plate', op.pa, r.maxPlateDissipation, '');
   if (r.maxScreenDissipation !== null && op.connection !== 'triode') {
     dissipation('screen-dissipation', 'Screen', op.pg2, r.maxScreenDissipation, ' at idle (it rises under drive as the plate swings low)');
@@ -39,9 +31,9 @@ export function outputFindings(s: OutputSolution, peakPlateVolts: number | null)
   if (r.maxCathodeCurrent !== undefined && op.ik > r.maxCathodeCurrent) {
     push('cathode-current', 'danger', `Cathode current ${(op.ik * 1e3).toFixed(1)} mA exceeds the ${(r.maxCathodeCurrent * 1e3).toFixed(0)} mA rating.`, op.ik, r.maxCathodeCurrent);
   }
-  if (r.maxHeaterCathodeVoltage !== null && op.vk > r.maxHeaterCathodeVoltage) {
-    push('heater-cathode', 'danger', `Heater-to-cathode voltage ${v0(op.vk)} V exceeds the ${r.maxHeaterCathodeVoltage} V rating: elevate the heater supply.`, op.vk, r.maxHeaterCathodeVoltage);
-  }
+  // The output stage's heaters are taken at ground, so the cathode sits op.vk above them.
+  const hk = heaterCathodeRating(r);
+  if (hk && op.vk > 0) out.push(heaterCathodeFinding(op.vk, hk));
   const rgMax = design.bias === 'fixed' ? r.maxGridResistanceFixedBias : r.maxGridResistanceCathodeBias;
   if (rgMax !== undefined && design.rg > rgMax) {
     push('grid-resistor', 'warning', `Grid resistor ${(design.rg / 1e3).toFixed(0)} kΩ is above the ${(rgMax / 1e3).toFixed(0)} kΩ the data sheet allows with ${design.bias} bias: risk of thermal runaway from grid current.`, design.rg, rgMax);
@@ -49,5 +41,5 @@ export function outputFindings(s: OutputSolution, peakPlateVolts: number | null)
   if (peakPlateVolts !== null) {
     push('plate-swing', 'note', `At full drive the plate swings to ${v0(peakPlateVolts)} V peak, about ${(peakPlateVolts / Math.max(op.supply, 1)).toFixed(1)} × B+: the transformer's insulation and the coupling parts must stand it.`, peakPlateVolts, r.maxPlateVoltage);
   }
-  return out.sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]);
+  return bySeverity(out);
 }

@@ -25,8 +25,10 @@ export interface PowerRatings {
   readonly maxScreenVoltage: number | null;
   readonly maxScreenDissipation: number | null;
   readonly maxCathodeCurrent?: number;
-  /** null for a directly heated tube. */
+  /** Cathode positive to the heater (or either polarity); null for a directly heated tube. */
   readonly maxHeaterCathodeVoltage: number | null;
+  /** Cathode negative to the heater, where the sheet rates that polarity apart. */
+  readonly maxHeaterCathodeVoltageCathodeNegative?: number;
   readonly maxGridResistanceCathodeBias?: number;
   readonly maxGridResistanceFixedBias?: number;
   readonly source: string;

@@ -5,6 +5,7 @@ import { harmonicAmplitudes, isPowerOfTwo } from './fft';
 import { stageTransfer, type StageTransfer } from './stageTransfer';
 import { illinois } from '../numeric/illinois';
 import { swingOf, type SwingResult } from './swing';
+import { DB_FLOOR, decibelsOf } from './levels';
 
 /** Drive level: the output wanted (rms, across RL or at the plate), or the input given (rms, at the grid). */
 export type DriveLevel = { readonly outputRms: number } | { readonly inputRms: number };
@@ -16,7 +17,7 @@ export interface DistortionOptions {
 
 export interface DistortionResult {
   readonly thdPercent: number;
-  /** H2…H9 in dB relative to the fundamental; harmonicsDb[0] is H2. */
+  /** H2…H9 in dB relative to the fundamental; harmonicsDb[0] is H2. A harmonic of nothing reads DB_FLOOR. */
   readonly harmonicsDb: readonly number[];
   /** Input sine peak at the grid, V. */
   readonly inputPeak: number;
@@ -101,7 +102,7 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
   const fund = amps[1]!;
   let ss = 0;
   for (let k = 2; k < amps.length; k++) ss += amps[k]! * amps[k]!;
-  const db = (a: number) => (a > 0 ? 20 * Math.log10(a / fund) : -Infinity);
+  const db = (a: number) => (fund > 0 ? decibelsOf(a / fund) : DB_FLOOR);
   return {
     ok: true,
     thdPercent: fund > 0 ? (100 * Math.sqrt(ss)) / fund : 0,

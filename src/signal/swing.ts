@@ -47,16 +47,17 @@ export function swingOf(s: SolvedStage, transfer: StageTransfer = stageTransfer(
   const toGridCurrent = firstTrue((v) => transfer.at(v).vgk >= 0, -op.vgk);
   const cutoffIa = CUTOFF_FRACTION * op.ia;
   const toCutoff = firstTrue((v) => transfer.at(-v).ia <= cutoffIa, -op.vgk);
-  const inputPeak = Math.min(toGridCurrent, toCutoff);
-  const outputPeak = Math.abs(transfer.at(inputPeak).vout - transfer.at(-inputPeak).vout) / 2;
+  const input = sineLevel(Math.min(toGridCurrent, toCutoff));
+  // A grid with no bias has no clean swing at all: exactly 0, not a bisection's last 1e-24 V.
+  const output = sineLevel(input.peak > 0 ? Math.abs(transfer.at(input.peak).vout - transfer.at(-input.peak).vout) / 2 : 0);
   return {
-    inputPeak,
-    input: sineLevel(inputPeak),
-    outputPeak,
-    output: sineLevel(outputPeak),
+    inputPeak: input.peak,
+    input,
+    outputPeak: output.peak,
+    output,
     limitedBy: toGridCurrent <= toCutoff ? 'grid-current' : 'cutoff',
-    toGridCurrent,
-    toCutoff,
+    toGridCurrent: sineLevel(toGridCurrent).peak,
+    toCutoff: sineLevel(toCutoff).peak,
   };
 }
 

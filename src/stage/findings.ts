@@ -1,38 +1,8 @@
 import type { TubeLike } from '../tube/types';
 import { recordOf } from '../tube/types';
+import { bySeverity, dissipationFinding, finding, heaterCathodeFinding, heaterCathodeRating, type Finding, type FindingKind, type Severity } from './ratingBands';
 
-export type Severity = 'danger' | 'warning' | 'note';
-
-export type FindingKind =
-  | 'plate-dissipation'
-  | 'plate-voltage'
-  | 'cold-plate-voltage'
-  | 'heater-cathode'
-  | 'grid-current'
-  | 'grid-resistor'
-  | 'cathode-current'
-  | 'screen-dissipation'
-  | 'screen-voltage'
-  | 'plate-swing';
-
-/** One check of the design against the tube's ratings, worded to be shown as is. */
-export interface Finding {
-  readonly kind: FindingKind;
-  readonly severity: Severity;
-  readonly message: string;
-  /** The value checked and its limit, in SI units; percent = 100·value/limit. */
-  readonly value: number;
-  readonly limit: number;
-  readonly percent: number;
-}
-
-/**
- * Above this share of the rated dissipation a design gets a warning. Designers
- * keep a margin for mains swings and tube spread (common practice; no source).
- */
-export const DISSIPATION_WARN_FRACTION = 0.85;
-
-const SEVERITY_ORDER: Record<Severity, number> = { danger: 0, warning: 1, note: 2 };
+export { DISSIPATION_WARN_FRACTION, HEATER_CATHODE_WARN_FRACTION, type Finding, type FindingKind, type Severity } from './ratingBands';
 
 export interface FindingInput {
   readonly tube: TubeLike;
@@ -50,6 +20,12 @@ export interface FindingInput {
   readonly fixedBias: boolean;
 }
 
+/**
+ * A grid within this many volts of its cathode has no bias to speak of: with
+ * Rk = 0 and no fixed bias the solver puts it at 0 V exactly.
+ */
+export const NO_BIAS_VOLTS = 1e-3;
+
 const v1 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
 
 /**
@@ -58,20 +34,17 @@ const v1 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
  */
 export function ratingsFindings(x: FindingInput): Finding[] {
   const out: Finding[] = [];
-  const push = (kind: FindingKind, severity: Severity, message: string, value: number, limit: number) =>
-    out.push({ kind, severity, message, value, limit, percent: limit > 0 ? (100 * value) / limit : Infinity });
+  const push = (kind: FindingKind, severity: Severity, message: string, value: number, limit: number) => out.push(finding(kind, severity, message, value, limit));
 
   if (x.vgk > 0) {
     push('grid-current', 'danger', `The grid is ${v1(x.vgk)} V positive to the cathode and draws current: the stage will distort and load its driver.`, x.vgk, 0);
+  } else if (x.vgk > -NO_BIAS_VOLTS && !x.fixedBias) {
+    push('no-grid-bias', 'warning', 'No grid bias: the grid sits at the cathode\'s voltage and draws current on every positive half-cycle, so the stage distorts at any level. Give it a cathode resistor or a fixed bias.', x.vgk, 0);
   }
   const rec = recordOf(x.tube);
   if (rec) {
     const r = rec.ratings;
-    const share = x.pa / r.maxPlateDissipation;
-    const paText = `Plate dissipation ${x.pa.toFixed(2)} W is ${Math.round(share * 100)} % of the ${r.maxPlateDissipation} W rating`;
-    if (share > 1) push('plate-dissipation', 'danger', `${paText}: the plate will overheat.`, x.pa, r.maxPlateDissipation);
-    else if (share > DISSIPATION_WARN_FRACTION) push('plate-dissipation', 'warning', `${paText}: little margin for mains swings and tube spread.`, x.pa, r.maxPlateDissipation);
-    else push('plate-dissipation', 'note', `${paText}.`, x.pa, r.maxPlateDissipation);
+    out.push(dissipationFinding('plate-dissipation', 'Plate', x.pa, r.maxPlateDissipation));
 
     if (x.vpk > r.maxPlateVoltage) {
       push('plate-voltage', 'danger', `Plate voltage ${v1(x.vpk)} V exceeds the ${r.maxPlateVoltage} V rating.`, x.vpk, r.maxPlateVoltage);
@@ -80,12 +53,8 @@ export function ratingsFindings(x: FindingInput): Finding[] {
       push('cold-plate-voltage', 'warning', `At switch-on, before the heater warms, the plate sees the full B+ of ${v1(x.bplus)} V, above the ${r.maxPlateVoltage} V rating.`, x.bplus, r.maxPlateVoltage);
     }
 
-    if (!rec.directlyHeated && r.maxHeaterCathodeVoltage !== null) {
-      const vhk = x.vk - x.heaterVolts;
-      if (Math.abs(vhk) > r.maxHeaterCathodeVoltage) {
-        push('heater-cathode', 'danger', `Heater-to-cathode voltage ${v1(vhk)} V exceeds the ${r.maxHeaterCathodeVoltage} V rating: elevate the heater supply.`, Math.abs(vhk), r.maxHeaterCathodeVoltage);
-      }
-    }
+    const hk = rec.directlyHeated ? null : heaterCathodeRating(r);
+    if (hk) out.push(heaterCathodeFinding(x.vk - x.heaterVolts, hk));
 
     if (r.maxCathodeCurrent !== undefined && x.ia > r.maxCathodeCurrent) {
       push('cathode-current', 'danger', `Cathode current ${(x.ia * 1e3).toFixed(1)} mA exceeds the ${(r.maxCathodeCurrent * 1e3).toFixed(0)} mA rating.`, x.ia, r.maxCathodeCurrent);
@@ -96,5 +65,5 @@ export function ratingsFindings(x: FindingInput): Finding[] {
       push('grid-resistor', 'warning', `Grid resistor ${(x.rg / 1e3).toFixed(0)} kΩ is above the ${(rgMax / 1e3).toFixed(0)} kΩ the datasheet allows with ${x.fixedBias ? 'fixed' : 'cathode'} bias: risk of thermal runaway from grid current.`, x.rg, rgMax);
     }
   }
-  return out.sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]);
+  return bySeverity(out);
 }

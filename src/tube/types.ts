@@ -42,8 +42,14 @@ export interface TubeRatings {
   readonly maxPlateVoltage: number;
   /** Maximum plate dissipation per section, W. */
   readonly maxPlateDissipation: number;
-  /** Maximum heater–cathode voltage, V; null for directly heated tubes (the filament is the cathode). */
+  /**
+   * Maximum heater–cathode voltage, V, with the cathode positive to the heater
+   * (or either polarity where the sheet gives one figure); null for directly
+   * heated tubes (the filament is the cathode).
+   */
   readonly maxHeaterCathodeVoltage: number | null;
+  /** The rating with the cathode negative to the heater, V, where the sheet rates that polarity apart. */
+  readonly maxHeaterCathodeVoltageCathodeNegative?: number;
   /** Maximum grid-circuit resistance with cathode bias, Ω, where the datasheet gives one. */
   readonly maxGridResistanceCathodeBias?: number;
   /** Maximum grid-circuit resistance with fixed bias, Ω, where the datasheet gives one. */

@@ -120,6 +120,13 @@ describe('heater supply', () => {
     expect(r.suggested).toBeGreaterThanOrEqual(20);
     for (const [vk, max] of [[5, 200], [200, 180]] as const) expect(Math.abs(vk - r.suggested)).toBeLessThanOrEqual(max);
   });
+
+  it('heeds a polarity rated apart: a 12AU7 gain stage at 5 V allows the heater only 100 V above its cathode (Tung-Sol 12AU7, 1962)', () => {
+    const r = heaterElevation([{ name: 'stage 1', vk: 5, maxVhk: 200, maxVhkCathodeNegative: 100 }, { name: 'follower', vk: 200, maxVhk: 180 }]);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.lo).toBe(20);
+    expect(r.hi).toBe(105);
+  });
 });
 
 describe('B+ decoupling filter', () => {

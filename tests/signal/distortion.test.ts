@@ -52,9 +52,23 @@ describe('distortion and swing', () => {
     expectClose(r.toGridCurrent, 1.3142747, { rel: 1e-3 }); // this stage's Vgk, from solveStage
   });
 
+  // dBV re 1 V rms and dBu re 0.7746 V rms (1 mW into 600 Ω): IEC 60268-3 and audio practice.
   it('levels: 1 V rms is 0 dBV and 0.7746 V rms is 0 dBu (1 mW into 600 Ω)', () => {
-    expectClose(sineLevel(Math.SQRT2).dBV, 0, { abs: 1e-12 });
-    expectClose(sineLevel(Math.SQRT2 * Math.sqrt(0.6)).dBu, 0, { abs: 1e-12 });
+    expectClose(sineLevel(Math.SQRT2).dBV!, 0, { abs: 1e-12 });
+    expectClose(sineLevel(Math.SQRT2 * Math.sqrt(0.6)).dBu!, 0, { abs: 1e-12 });
+  });
+
+  it('a level of nothing is exactly 0 V with no dB figure, never −Infinity or 6e−25 V', () => {
+    expect(sineLevel(0)).toEqual({ peak: 0, rms: 0, dBV: null, dBu: null });
+    expect(sineLevel(6.13e-25)).toEqual({ peak: 0, rms: 0, dBV: null, dBu: null });
+  });
+
+  it('a stage with Rk 0 and no fixed bias has no clean swing: exactly 0 V, limited by grid current', () => {
+    const r = swing({ tube: findTube('12AX7')!, bplus: 250, ra: 100e3, rk: 0 });
+    if (!r.ok) throw new Error(r.message);
+    expect(r.output.rms).toBe(0);
+    expect(r.output.dBu).toBeNull();
+    expect(r.limitedBy).toBe('grid-current');
   });
 
   it('refuses a bad sample count and a non-positive level with specific messages', () => {

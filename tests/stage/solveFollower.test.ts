@@ -34,8 +34,9 @@ describe('solveFollower (direct-coupled cathode follower)', () => {
     expectClose(f.vhk, f.op.vk, { rel: 1e-12 });
     expect(f.vhk).toBeGreaterThan(180);
     expect(f.findings.find((x) => x.kind === 'heater-cathode')?.severity).toBe('danger');
-    const raised = solveFollower({ tube: ax7, bplus: 400, vgrid: 250, rk: 150e3, heaterVolts: 100 });
-    expect(raised.ok && raised.findings.some((x) => x.kind === 'heater-cathode')).toBe(false);
+    const raised = solveFollower({ tube: ax7, bplus: 400, vgrid: 250, rk: 150e3, heaterVolts: 125 });
+    // Elevated by 125 V the heater-cathode voltage falls to about 126 V of 180 V (70 %): a note, no longer a danger.
+    expect(raised.ok && raised.findings.find((x) => x.kind === 'heater-cathode')?.severity).toBe('note');
   });
 
   it('chained after a gain stage: the plate inverts, the follower does not (common practice)', () => {

@@ -21,6 +21,7 @@ function asOutputTube(tube: TubeRecord, singleEnded: readonly SingleEndedExample
       maxScreenDissipation: null,
       ...(r.maxCathodeCurrent !== undefined ? { maxCathodeCurrent: r.maxCathodeCurrent } : {}),
       maxHeaterCathodeVoltage: r.maxHeaterCathodeVoltage,
+      ...(r.maxHeaterCathodeVoltageCathodeNegative !== undefined ? { maxHeaterCathodeVoltageCathodeNegative: r.maxHeaterCathodeVoltageCathodeNegative } : {}),
       ...(r.maxGridResistanceCathodeBias !== undefined ? { maxGridResistanceCathodeBias: r.maxGridResistanceCathodeBias } : {}),
       ...(r.maxGridResistanceFixedBias !== undefined ? { maxGridResistanceFixedBias: r.maxGridResistanceFixedBias } : {}),
       source: r.source,

@@ -21,6 +21,7 @@ export const tube12AU7 = defineTube({
     maxPlateVoltage: 300,
     maxPlateDissipation: 2.75,
     maxHeaterCathodeVoltage: 200,
+    maxHeaterCathodeVoltageCathodeNegative: 100,
     maxGridResistanceCathodeBias: 1000000,
     maxGridResistanceFixedBias: 250000,
     maxCathodeCurrent: 0.02,
