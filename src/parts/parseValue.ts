@@ -1,7 +1,7 @@
 /**
- * Part values in the trade's notation: "47k", "4k7" (the multiplier letter as
- * decimal point, IEC 60062 resistor code), "1K5", "2R2", "1M", "100n", "2u2",
- * "470p", "0.1u", "22µ", "330 Ω", "100nF", "1meg", "-1.5".
+ * Part values in the trade's notation: "33k", "3k3" (the multiplier letter as
+ * decimal point, IEC 60062 resistor code), "6K8", "2R2", "2M2", "68n", "4u7",
+ * "470p", "0.22u", "22µ", "330 Ω", "68nF", "1meg", "-1.5".
  *
  * Multipliers: p n u/µ/μ m k/K M/meg G, and R/r for ×1. Upper-case M is mega
  * and lower-case m is milli, as in the SI; "meg" is accepted as mega because
@@ -28,18 +28,18 @@ const MULTIPLIERS: Record<string, number> = {
 };
 
 const UNIT = /(?:Ω|Ω|ohms?|Ohms?|OHMS?|F|V|A|W|Hz|HZ|hz)$/;
-// number, optional multiplier, optional digits after an infix multiplier (4k7, 2R2, 2u2)
+// number, optional multiplier, optional digits after an infix multiplier (3k3, 2R2, 4u7)
 const SHAPE = /^([+-]?)(\d*\.?\d*)(meg|MEG|Meg|[pnuµμmrRkKMG]?)(\d*)$/;
 
 export function parseValue(text: string): ParsedValue {
-  if (typeof text !== 'string') return { ok: false, message: 'Enter a value, e.g. 47k' };
+  if (typeof text !== 'string') return { ok: false, message: 'Enter a value, e.g. 33k' };
   const trimmed = text.trim();
-  if (trimmed === '') return { ok: false, message: 'Enter a value, e.g. 47k or 4k7' };
+  if (trimmed === '') return { ok: false, message: 'Enter a value, e.g. 33k or 3k3' };
   if (trimmed.length > 40) return { ok: false, message: 'That entry is too long to be a part value' };
   const noUnit = trimmed.replace(UNIT, '').replace(/\s+/g, '');
   const m = SHAPE.exec(noUnit);
   if (!m || noUnit === '') {
-    return { ok: false, message: `“${trimmed}” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k, 4k7 or 100n` };
+    return { ok: false, message: `“${trimmed}” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k, 3k3 or 68n` };
   }
   const [, sign, lead, mult, tail] = m as unknown as [string, string, string, string, string];
   if (lead === '' || lead === '.') {
@@ -54,7 +54,7 @@ export function parseValue(text: string): ParsedValue {
   const number = Number(digits);
   const factor = mult === '' ? 1 : MULTIPLIERS[mult];
   if (!Number.isFinite(number) || factor === undefined) {
-    return { ok: false, message: `“${trimmed}” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k` };
+    return { ok: false, message: `“${trimmed}” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k` };
   }
   // 15 significant digits: 100 × 1e-9 is 1.0000000000000001e-7 in binary floating point.
   const value = Number(((sign === '-' ? -1 : 1) * number * factor).toPrecision(15));

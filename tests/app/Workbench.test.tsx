@@ -20,7 +20,7 @@ describe('the workbench', () => {
     const ra = field(/^Ra/);
     await user.clear(ra);
     await user.type(ra, 'bad');
-    const alert = screen.getByText('“bad” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k, 4k7 or 100n');
+    const alert = screen.getByText('“bad” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k, 3k3 or 68n');
     expect(ra.getAttribute('aria-invalid')).toBe('true');
     expect(ra.getAttribute('aria-describedby')).toBe(alert.id);
     expect(figure('ia')).toBe(before.ia);

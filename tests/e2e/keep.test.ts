@@ -45,11 +45,11 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
 
   it('a reload brings the last design back', async () => {
     const { page } = await openWorkbench(browser, inject('baseUrl'));
-    await page.getByRole('textbox', { name: /^Ra/ }).fill('47k');
+    await page.getByRole('textbox', { name: /^Ra/ }).fill('33k');
     await page.waitForTimeout(700); // autosave waits 400 ms after the last change
     await page.reload();
     await page.waitForSelector('.layer-curves path');
-    expect(await page.getByRole('textbox', { name: /^Ra/ }).inputValue()).toBe('47k');
+    expect(await page.getByRole('textbox', { name: /^Ra/ }).inputValue()).toBe('33k');
     await page.close();
   });
 

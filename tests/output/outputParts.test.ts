@@ -12,12 +12,15 @@ describe('output stage parts list', () => {
   if (!a.ok) throw new Error(a.message);
   const parts = outputPartsList(a, 'E24');
 
-  it('rates Rk by Joule\'s law on the cathode current, with twice the worst case', () => {
+  // Joule's law P = I²R; a resistor rated at twice its worst-case dissipation is common practice.
+  it('rates Rk by Joule\'s law on the cathode current, with twice the worst case (common practice)', () => {
     const rk = parts.resistors.find((r) => r.ref === 'Rk')!;
     expectClose(rk.watts, a.solution.op.ik ** 2 * 330, { rel: 1e-9 }, 'Rk watts');
     expect(rk.ratingWatts).toBeGreaterThanOrEqual(2 * rk.wattsWorst);
   });
 
+  // The cathode's impedance (rp + RL)/(μ + 1): Langford-Smith, RDH4 ch. 12; the corner 1/(2πRC) from
+  // Horowitz and Hill, 3rd ed., §1.7; a capacitor rated at twice its working voltage is common practice.
   it('sizes Ck for a 10 Hz corner against Rk in parallel with the cathode impedance (rp + Zpri)/(μ + 1)', () => {
     const ck = parts.capacitors.find((c) => c.ref === 'Ck')!;
     const { mu, rp } = a.solution.op;

@@ -4,9 +4,9 @@ import { formatValue, parseValue } from '../../src/index';
 
 describe('parseValue reads the trade notation', () => {
   it.each([
-    ['47k', 47e3], ['4k7', 4.7e3], ['1K5', 1.5e3], ['2R2', 2.2], ['1M', 1e6], ['100n', 100e-9], ['2u2', 2.2e-6],
-    ['470p', 470e-12], ['0.1u', 0.1e-6], ['22µ', 22e-6], ['22μ', 22e-6], ['330 Ω', 330], ['330', 330], ['100nF', 100e-9],
-    ['47kΩ', 47e3], ['1meg', 1e6], ['0R47', 0.47], ['R47', 0.47], ['-1.5', -1.5], ['250V', 250], [' 68k ', 68e3],
+    ['33k', 33e3], ['3k3', 3.3e3], ['6K8', 6.8e3], ['2R2', 2.2], ['2M2', 2.2e6], ['68n', 68e-9], ['4u7', 4.7e-6],
+    ['470p', 470e-12], ['0.22u', 0.22e-6], ['22µ', 22e-6], ['22μ', 22e-6], ['330 Ω', 330], ['330', 330], ['68nF', 68e-9],
+    ['33kΩ', 33e3], ['1meg', 1e6], ['0R47', 0.47], ['R47', 0.47], ['-1.5', -1.5], ['250V', 250], [' 68k ', 68e3],
     ['1.5mA', 1.5e-3], ['10 ohms', 10], ['2.2uF', 2.2e-6],
   ])('%s → %d', (text, value) => {
     const r = parseValue(text);
@@ -14,12 +14,12 @@ describe('parseValue reads the trade notation', () => {
   });
 
   it.each([
-    ['', 'Enter a value, e.g. 47k or 4k7'],
-    ['bad', '“bad” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k, 4k7 or 100n'],
+    ['', 'Enter a value, e.g. 33k or 3k3'],
+    ['bad', '“bad” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k, 3k3 or 68n'],
     ['4.7k7', '“4.7k7” mixes a decimal point with an inner multiplier: write 4.7k or 4k7, not both'],
     ['k', '“k” has no digits before the multiplier: write e.g. 0.47 or 0R47'],
-    ['4kk', '“4kk” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k, 4k7 or 100n'],
-    ['1e3', '“1e3” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k, 4k7 or 100n'],
+    ['4kk', '“4kk” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k, 3k3 or 68n'],
+    ['1e3', '“1e3” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k, 3k3 or 68n'],
     ['x'.repeat(41), 'That entry is too long to be a part value'],
   ])('%j is refused: %s', (text, message) => {
     expect(parseValue(text)).toEqual({ ok: false, message });

@@ -24,7 +24,8 @@ describe('distortion and swing', () => {
     expect(un.inputRms).toBeGreaterThan(by.inputRms); // less gain: more input for the same output
   });
 
-  it('THD rises with level from a small signal up to the clipping point', () => {
+  // Common practice: a triode stage's distortion grows with level (mostly H2, about in proportion to it).
+  it('THD rises with level from a small signal up to the clipping point (common practice)', () => {
     const s = solvedStage(stage);
     if ('ok' in s) throw new Error(s.message);
     const sweep = distortionSweep(s, 10);

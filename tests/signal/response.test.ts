@@ -16,12 +16,14 @@ describe('frequency response', () => {
     expectClose(c.lowHz!, 1 / (2 * Math.PI * 100e-9 * (s.zout + 100e3)), { rel: 0.005 });
   });
 
+  // The same first-order RC corner (Horowitz and Hill, 3rd ed., §1.7), R the source and grid leak in series.
   it('an input coupling capacitor into the grid leak is an RC high-pass at 1/(2π·Cin·(Rs + Rg))', () => {
     const c = corners({ ...base, rsource: 10e3, cin: 47e-9, rg: 470e3 });
     if (!c.ok) throw new Error(c.message);
     expectClose(c.lowHz!, 1 / (2 * Math.PI * 47e-9 * (10e3 + 470e3)), { rel: 0.005 });
   });
 
+  // Voltage divider (Ohm's law) times the stage gain; the plate output inverts (common practice).
   it('midband gain is the stage gain times the input divider Rg/(Rs + Rg), with a plate output inverting (phase near ±180°)', () => {
     const s = solveStage({ ...base, rl: 220e3 });
     if (!s.ok) throw new Error(s.message);
@@ -31,6 +33,8 @@ describe('frequency response', () => {
     expect(Math.abs(Math.abs(r.phaseDeg[0]!) - 180)).toBeLessThan(2);
   });
 
+  // Langford-Smith, Radiotron Designer's Handbook, 4th ed., ch. 12 (cathode bias and its bypass): the gain
+  // runs from the degenerated figure at DC to the bypassed one above the shelf.
   it('a cathode bypass capacitor makes a shelf from the unbypassed gain (low frequencies) to the bypassed gain (midband)', () => {
     const s = solveStage(base);
     if (!s.ok) throw new Error(s.message);

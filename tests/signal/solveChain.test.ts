@@ -20,6 +20,7 @@ describe('solveChain', () => {
     expect(r.zout).toBeLessThan(1000);
   });
 
+  // 12AX7: 180 V heater–cathode, either polarity (Tung-Sol 12AX7, design-centre; shared reference).
   it('the follower\'s heater-to-cathode voltage is checked against its rating', () => {
     const r = solveChain([first, { kind: 'follower', tube: ax7, bplus: 400, rk: 150e3 }]);
     if (!r.ok) throw new Error(r.message);
@@ -28,7 +29,8 @@ describe('solveChain', () => {
     expect(f.findings.some((x) => x.kind === 'heater-cathode' && x.severity === 'danger')).toBe(true);
   });
 
-  it('two common-cathode stages do not invert overall, and the second stage\'s grid leak loads the first', () => {
+  // Common practice: each plate output inverts, so two invert back; the next grid leak is in parallel with the load.
+  it('two common-cathode stages do not invert overall, and the second stage\'s grid leak loads the first (common practice)', () => {
     const r = solveChain([first, { kind: 'common-cathode', tube: au7, bplus: 300, ra: 22e3, rk: 1000, rg: 220e3 }]);
     if (!r.ok) throw new Error(r.message);
     expect(r.inverting).toBe(false);
@@ -36,7 +38,8 @@ describe('solveChain', () => {
     expect(loaded.ok && r.links[0]!.gain).toBeCloseTo(loaded.ok ? loaded.gain : 0, 12);
   });
 
-  it('the chain\'s clean swing is no more than the first stage\'s own', () => {
+  // Common practice: a later stage sees the earlier gain, so the chain cannot swing more than its first stage allows.
+  it('the chain\'s clean swing is no more than the first stage\'s own (common practice)', () => {
     const alone = solveChain([first]);
     const both = solveChain([first, { kind: 'common-cathode', tube: au7, bplus: 300, ra: 22e3, rk: 1000, rg: 220e3 }]);
     if (!alone.ok || !both.ok) throw new Error('both should solve');

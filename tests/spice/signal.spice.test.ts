@@ -59,7 +59,7 @@ function simulatedCorners(data: string): { low: number | null; high: number | nu
 
 describe.runIf(run)('-3 dB points agree with an ngspice AC sweep', () => {
   const networks = [
-    { id: '12AX7', label: '50k source, 22n in, 1M leak, 22u bypass, 100n into 470k', d: { bplus: 250, ra: 100e3, rk: 1500, bypassed: true, rl: 470e3, vbias: 0, rsource: 50e3, cin: 22e-9, rg: 1e6, ck: 22e-6, cout: 100e-9 } },
+    { id: '12AX7', label: '50k source, 33n in, 680k leak, 33u bypass, 150n into 470k', d: { bplus: 250, ra: 100e3, rk: 1800, bypassed: true, rl: 470e3, vbias: 0, rsource: 50e3, cin: 33e-9, rg: 680e3, ck: 33e-6, cout: 150e-9 } },
     { id: '12AU7', label: '10k source, 100n in, 470k leak, 100u bypass, 470n into 100k', d: { bplus: 275, ra: 27e3, rk: 1200, bypassed: true, rl: 100e3, vbias: 0, rsource: 10e3, cin: 100e-9, rg: 470e3, ck: 100e-6, cout: 470e-9 } },
     { id: '6SL7', label: '100k source (a level control at mid setting), 47n in, unbypassed, 47n into 220k', d: { bplus: 300, ra: 100e3, rk: 1800, bypassed: false, rl: 220e3, vbias: 0, rsource: 100e3, cin: 47e-9, rg: 1e6, cout: 47e-9 } },
     { id: '6DJ8', label: '600 ohm source, 1u in, 220k leak, 470u bypass, 1u into 47k', d: { bplus: 150, ra: 8.2e3, rk: 220, bypassed: true, rl: 47e3, vbias: 0, rsource: 600, cin: 1e-6, rg: 220e3, ck: 470e-6, cout: 1e-6 } },

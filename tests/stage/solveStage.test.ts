@@ -70,18 +70,21 @@ describe('solveStage', () => {
     expectClose(s.zout, (22e3 * (s.rp + (s.mu + 1) * 1000)) / (22e3 + s.rp + (s.mu + 1) * 1000), { rel: 1e-12 });
   });
 
-  it('the next-stage load lowers the gain but not the output impedance', () => {
+  // Common practice: the load is in parallel with Ra for gain, while Zout is seen looking back into the plate.
+  it('the next-stage load lowers the gain but not the output impedance (common practice)', () => {
     const open = ok<StageSolution>(solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 1500 }));
     const loaded = ok<StageSolution>(solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 1500, rl: 100e3 }));
     expect(Math.abs(loaded.gain)).toBeLessThan(Math.abs(open.gain));
     expect(loaded.zout).toBe(open.zout);
   });
 
+  // J. M. Miller, "Dependence of the input impedance of a three-electrode vacuum tube upon the load in the
+  // plate circuit", Scientific Papers of the Bureau of Standards 15 (351), 1920; Langford-Smith, RDH4 ch. 2 §9.
   it('input capacitance grows with gain by the Miller effect: Cgk + Cgp·(1 + |A|) when bypassed', () => {
     const s = ok<StageSolution>(solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 1500 }));
     const { cgk, cgp } = ax7.capacitances;
     expectClose(s.cin, cgk + cgp * (1 + Math.abs(s.gain)), { rel: 1e-12 });
-    expect(s.cin).toBeGreaterThan(50e-12); // a 12AX7 at gain ~60: ~100 pF, the reason high-mu stages lose treble
+    expect(s.cin).toBeGreaterThan(50e-12); // a 12AX7 at gain ~60: ~100 pF, the reason high-mu stages lose treble (common practice)
   });
 
   it('reports the grid swing left to grid current and to cutoff', () => {

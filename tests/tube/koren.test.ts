@@ -9,8 +9,10 @@ const koren12AX7 = korenPublishedSets['12AX7']!;
 
 describe("Koren's triode law", () => {
   it('reproduces the textbook worked example: 1.07 mA at 221 V, -1.61 V with Koren\'s 12AX7 set', () => {
-    // Source: electronics textbook, ch. 6 "Vacuum Tubes", p. 176 (secondary copy; shared reference TXT176),
-    // a worked example of Koren's equation with mu 100, kG1 1060, kP 600, kVB 300, x 1.4.
+    // Source: an electronics textbook's chapter 6 "Vacuum Tubes", p. 176, as a one-page secondary copy whose
+    // title, author and edition are not visible (shared reference, source TXT176); the equation itself is
+    // N. Koren, "Improved vacuum tube models for SPICE simulations", Glass Audio vol. 8 no. 5, 1996.
+    // The worked example uses Koren's 12AX7 set: mu 100, kG1 1060, kP 600, kVB 300, x 1.4.
     // The printed 1.07 mA is rounded; the form with the factor 2 gives 1.078 mA, the form without it 0.539 mA.
     expectClose(korenPlateCurrent(koren12AX7, 221, -1.61), 1.07e-3, { rel: 0.01 });
   });

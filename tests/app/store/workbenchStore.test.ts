@@ -16,7 +16,7 @@ describe('workbench store', () => {
     const before = store.getState();
     store.getState().editField('ra', 'bad');
     const after = store.getState();
-    expect(after.errors.ra).toBe('“bad” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 47k, 4k7 or 100n');
+    expect(after.errors.ra).toBe('“bad” is not a part value: use digits with an optional multiplier (p n u m k M), e.g. 33k, 3k3 or 68n');
     expect(after.drafts.ra).toBe('bad');
     expect(after.design).toBe(before.design);
     expect(after.analysis).toBe(before.analysis);
@@ -49,7 +49,7 @@ describe('workbench store', () => {
   it('keeps the curve sheet object across Ra changes and drags (one change, one solve)', () => {
     const store = createWorkbenchStore();
     const sheet = store.getState().analysis.sheet;
-    store.getState().editField('ra', '47k');
+    store.getState().editField('ra', '33k');
     store.getState().beginDrag('point');
     store.getState().dragPointTo(150, 5e-3);
     expect(store.getState().analysis.sheet).toBe(sheet);
