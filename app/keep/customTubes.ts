@@ -42,6 +42,18 @@ export function customRecord(spec: CustomTubeSpec): TubeRecord {
 }
 
 let specs: CustomTubeSpec[] = load();
+/** Each user tube's record, built once when the list changes, never per look-up (a drag looks up every frame). */
+let records: ReadonlyMap<string, TubeRecord> = recordsOf(specs);
+
+function recordsOf(list: readonly CustomTubeSpec[]): ReadonlyMap<string, TubeRecord> {
+  return new Map(list.map((spec) => [spec.name, customRecord(spec)]));
+}
+
+function setSpecs(next: CustomTubeSpec[]): void {
+  specs = next;
+  records = recordsOf(next);
+  persist();
+}
 
 function load(): CustomTubeSpec[] {
   try {
@@ -61,7 +73,7 @@ function persist(): void {
 }
 
 export function customTubes(): TubeRecord[] {
-  return specs.map(customRecord);
+  return [...records.values()];
 }
 
 export function customSpecs(): readonly CustomTubeSpec[] {
@@ -70,7 +82,7 @@ export function customSpecs(): readonly CustomTubeSpec[] {
 
 /** A tube by id: the library first, then the user's own. */
 export function lookupTube(id: string): TubeRecord | undefined {
-  return findTube(id) ?? customTubes().find((t) => t.id === id);
+  return findTube(id) ?? records.get(id);
 }
 
 /** Checks a name for a new custom tube: a message, or null when it may be used. */
@@ -83,19 +95,16 @@ export function nameProblem(name: string): string | null {
 }
 
 export function saveCustomTube(spec: CustomTubeSpec): void {
-  specs = [...specs.filter((s) => s.name !== spec.name), spec];
-  persist();
+  setSpecs([...specs.filter((s) => s.name !== spec.name), spec]);
 }
 
 export function removeCustomTube(name: string): void {
-  specs = specs.filter((s) => s.name !== name);
-  persist();
+  setSpecs(specs.filter((s) => s.name !== name));
 }
 
 /** Test hook: forget every custom tube (storage included). */
 export function resetCustomTubes(): void {
-  specs = [];
-  persist();
+  setSpecs([]);
 }
 
 export function writeTubesFile(list: readonly CustomTubeSpec[]): string {
