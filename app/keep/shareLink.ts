@@ -26,12 +26,33 @@ export function shareFragment(doc: DesignDocument): string {
   return `#${KEY}=${toBase64Url(new TextEncoder().encode(writeDesignFile(doc)))}`;
 }
 
-/** The design in a location hash, null when the hash carries none, or a failure with its message. */
+/**
+ * Longest design link accepted, in characters after "#design=". A design is a
+ * few kilobytes; a longer link is refused by its length before any decoding,
+ * so a pasted megabyte costs nothing.
+ */
+export const MAX_LINK_CHARS = 100_000;
+
+const KEPT = 'The bench kept your last design.';
+
+/**
+ * The design in a location hash: null when the hash carries none, else the
+ * design or a failure whose message says what is wrong with the link.
+ */
 export function readShareFragment(hash: string): ReadResult | null {
-  const m = /^#?design=([A-Za-z0-9_-]*)$/.exec(hash);
-  if (!m) return null;
-  const bytes = fromBase64Url(m[1]!);
-  if (!bytes) return { ok: false, message: 'The shared link is damaged (not valid base64). The bench opened on its last design instead.' };
+  const prefix = /^#?design=/.exec(hash);
+  if (!prefix) return null;
+  const body = hash.slice(prefix[0].length);
+  if (body.length > MAX_LINK_CHARS) {
+    return { ok: false, message: `The shared link is ${body.length.toLocaleString('en')} characters long; a design link is at most ${MAX_LINK_CHARS.toLocaleString('en')}. ${KEPT}` };
+  }
+  const stray = /[^A-Za-z0-9_-]/.exec(body);
+  if (stray) {
+    const what = stray[0] === '=' ? 'padding “=”, which design links never carry' : `the character “${stray[0]}”, which is not base64url`;
+    return { ok: false, message: `The shared link is damaged: at place ${stray.index + 1} it has ${what}. ${KEPT}` };
+  }
+  const bytes = fromBase64Url(body);
+  if (!bytes) return { ok: false, message: `The shared link is damaged (not valid base64url). ${KEPT}` };
   const r = readDesignFile(new TextDecoder().decode(bytes), bytes.length);
-  return r.ok ? r : { ok: false, message: `The shared link could not be opened: ${r.message}` };
+  return r.ok ? r : { ok: false, message: `The shared link could not be opened: ${r.message.replace(/ Nothing was opened\.$/, '')}. ${KEPT}` };
 }

@@ -58,7 +58,8 @@ export function KeepPanel() {
         <label htmlFor={`${id}-name`} className="visually-hidden">Name to keep this design under</label>
         <input id={`${id}-name`} value={name} placeholder="Name to keep it under" maxLength={60} onChange={(e) => setName(e.target.value)} />
         <button type="button" disabled={name.trim() === ''} onClick={() => {
-          const ok = putOnShelf(name.trim(), doc());
+          // Kept only if it reads back: a store that says yes and keeps nothing is caught here.
+          const ok = putOnShelf(name.trim(), doc()) && takeFromShelf(name.trim()) !== null;
           setNames(shelfNames());
           setNote(ok ? { kind: 'ok', text: `Kept as “${name.trim()}” in this browser.` } : { kind: 'error', text: 'This browser would not store the design (storage full or blocked).' });
         }}>Keep in this browser</button>
