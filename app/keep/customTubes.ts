@@ -1,4 +1,5 @@
 import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, triode, tubeLibrary, type KorenTriodeParams, type TubeRecord, type TypicalPoint } from '../../src/index';
+import { loadKept, saveKept } from './keptTubes';
 
 /**
  * Tubes the user made by fitting points: kept in this browser, exportable and
@@ -21,8 +22,15 @@ export interface CustomTubeSpec {
   readonly caps?: { readonly cgk: number; readonly cgp: number; readonly cpk: number };
 }
 
-const KEY = 'quiescent.custom-tubes';
 export const TUBES_FORMAT = 'quiescent-tubes';
+/**
+ * Points kept with a tube, at most: enough to redraw the fit over them. A fit
+ * of more keeps an even selection (the first and last included), so a
+ * 100,000-point import cannot fill the browser's storage.
+ */
+export const MAX_KEPT_POINTS = 400;
+/** Largest tubes file read, bytes. */
+export const MAX_TUBES_FILE_BYTES = 20_000_000;
 
 export function customRecord(spec: CustomTubeSpec): TubeRecord {
   const record: TubeRecord = {
@@ -41,35 +49,40 @@ export function customRecord(spec: CustomTubeSpec): TubeRecord {
   return Object.freeze(record);
 }
 
-let specs: CustomTubeSpec[] = load();
+/**
+ * The user's tubes in this page. Filled by loadCustomTubes at start-up (the
+ * browser's store is asynchronous); saving and removing change it at once
+ * and persist in the background.
+ */
+let specs: CustomTubeSpec[] = [];
 /** Each user tube's record, built once when the list changes, never per look-up (a drag looks up every frame). */
-let records: ReadonlyMap<string, TubeRecord> = recordsOf(specs);
+let records: ReadonlyMap<string, TubeRecord> = new Map();
 
 function recordsOf(list: readonly CustomTubeSpec[]): ReadonlyMap<string, TubeRecord> {
   return new Map(list.map((spec) => [spec.name, customRecord(spec)]));
 }
 
-function setSpecs(next: CustomTubeSpec[]): void {
+function setSpecs(next: CustomTubeSpec[]): Promise<boolean> {
   specs = next;
   records = recordsOf(next);
-  persist();
+  return saveKept(next);
 }
 
-function load(): CustomTubeSpec[] {
-  try {
-    const r = readTubesFile(globalThis.localStorage?.getItem(KEY) ?? '');
-    return r.ok ? r.specs : [];
-  } catch {
-    return [];
-  }
-}
-
-function persist(): void {
-  try {
-    globalThis.localStorage?.setItem(KEY, writeTubesFile(specs));
-  } catch {
-    /* storage full or blocked */
-  }
+/**
+ * Reads the kept tubes into the page: every record that reads is kept, and
+ * each that does not is named in the returned problems (the rest still load).
+ */
+export async function loadCustomTubes(): Promise<string[]> {
+  const kept = await loadKept();
+  const read = 'records' in kept ? readTubeList(kept.records) : 'legacy' in kept ? readTubesFile(kept.legacy) : { specs: [], problems: [] };
+  const problems = 'message' in read ? [read.message] : read.problems;
+  const loaded = 'specs' in read ? read.specs : [];
+  // Tubes saved in this page before the load finished win over kept ones of the same name.
+  const names = new Set(specs.map((x) => x.name));
+  specs = [...loaded.filter((x) => !names.has(x.name)), ...specs];
+  records = recordsOf(specs);
+  if ('legacy' in kept && loaded.length > 0) await saveKept(specs); // move them to IndexedDB
+  return problems;
 }
 
 export function customTubes(): TubeRecord[] {
@@ -94,25 +107,49 @@ export function nameProblem(name: string): string | null {
   return null;
 }
 
-export function saveCustomTube(spec: CustomTubeSpec): void {
-  setSpecs([...specs.filter((s) => s.name !== spec.name), spec]);
+/** Saves a tube (its points bounded to MAX_KEPT_POINTS); resolves false when the browser would not keep it. */
+export function saveCustomTube(spec: CustomTubeSpec): Promise<boolean> {
+  return saveCustomTubes([spec]);
 }
 
-export function removeCustomTube(name: string): void {
-  setSpecs(specs.filter((s) => s.name !== name));
+export function saveCustomTubes(list: readonly CustomTubeSpec[]): Promise<boolean> {
+  const names = new Set(list.map((x) => x.name));
+  return setSpecs([...specs.filter((s) => !names.has(s.name)), ...list.map(bounded)]);
+}
+
+export function removeCustomTube(name: string): Promise<boolean> {
+  return setSpecs(specs.filter((s) => s.name !== name));
 }
 
 /** Test hook: forget every custom tube (storage included). */
-export function resetCustomTubes(): void {
-  setSpecs([]);
+export function resetCustomTubes(): Promise<boolean> {
+  return setSpecs([]);
+}
+
+/** Test hook: forget the page's list only, as a reload does, leaving the browser's store as it is. */
+export function removeFromPageForTests(): void {
+  specs = [];
+  records = new Map();
+}
+
+/** A spec whose points are at most MAX_KEPT_POINTS, evenly chosen. */
+export function bounded(spec: CustomTubeSpec): CustomTubeSpec {
+  const n = spec.points.length;
+  if (n <= MAX_KEPT_POINTS) return spec;
+  const points = Array.from({ length: MAX_KEPT_POINTS }, (_, k) => spec.points[Math.round((k * (n - 1)) / (MAX_KEPT_POINTS - 1))]!);
+  return { ...spec, points };
 }
 
 export function writeTubesFile(list: readonly CustomTubeSpec[]): string {
   return JSON.stringify({ format: TUBES_FORMAT, version: 1, tubes: list }, null, 2);
 }
 
-export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[] } | { ok: false; message: string } {
-  if (text.length > 1_000_000) return { ok: false, message: 'A tubes file is at most 1 MB.' };
+/**
+ * Reads a tubes file. Every tube that reads is returned; each that does not
+ * is named with what is wrong, and the others still come through.
+ */
+export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[]; problems: string[] } | { ok: false; message: string } {
+  if (text.length > MAX_TUBES_FILE_BYTES) return { ok: false, message: `A tubes file is at most ${MAX_TUBES_FILE_BYTES / 1e6} MB (this one is ${(text.length / 1e6).toFixed(1)} MB).` };
   let raw: unknown;
   try {
     raw = JSON.parse(text);
@@ -123,37 +160,52 @@ export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[]
   if (!r || r.format !== TUBES_FORMAT) return { ok: false, message: 'This is not a Quiescent tubes file (its "format" is not "quiescent-tubes").' };
   if (r.version !== 1) return { ok: false, message: `Tubes file version ${String(r.version)} is not one this Quiescent reads (version 1).` };
   if (!Array.isArray(r.tubes)) return { ok: false, message: 'The file has no "tubes" list.' };
-  const out: CustomTubeSpec[] = [];
-  for (const [k, t] of (r.tubes as Record<string, unknown>[]).entries()) {
-    const where = `Tube ${k + 1}`;
-    if (typeof t?.name !== 'string' || nameProblem(t.name)) return { ok: false, message: `${where}: ${typeof t?.name === 'string' ? nameProblem(t.name) : 'has no name'}` };
-    const p = t.params as KorenTriodeParams | undefined;
-    if (!p || typeof p !== 'object' || korenParamsProblem(p)) return { ok: false, message: `${where} (${t.name}): its Koren parameters are not usable` };
-    const num = (v: unknown, lo: number, hi: number) => typeof v === 'number' && Number.isFinite(v) && v >= lo && v <= hi;
-    if (!num(t.maxPlateVoltage, 1, 10000) || !num(t.maxPlateDissipation, 0.01, 1000) || !num(t.maxHeaterCathodeVoltage, 0, 1000) || !num(t.rmsPercent, 0, 1e6)) {
-      return { ok: false, message: `${where} (${t.name}): ratings must be numbers in range` };
-    }
-    if (!Array.isArray(t.points) || !t.points.every((q: { va?: unknown; vg?: unknown; ia?: unknown }) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 0, 100))) {
-      return { ok: false, message: `${where} (${t.name}): its points must be { va, vg, ia } numbers` };
-    }
-    const heater = t.heater as { volts?: unknown; amps?: unknown } | undefined;
-    if (heater !== undefined && !(num(heater?.volts, 0.5, 200) && num(heater?.amps, 0, 50))) return { ok: false, message: `${where} (${t.name}): its heater must give volts and amps in range` };
-    const caps = t.caps as { cgk?: unknown; cgp?: unknown; cpk?: unknown } | undefined;
-    if (caps !== undefined && !(num(caps?.cgk, 0, 1e-9) && num(caps?.cgp, 0, 1e-9) && num(caps?.cpk, 0, 1e-9))) return { ok: false, message: `${where} (${t.name}): its capacitances must be cgk, cgp, cpk in farads` };
-    const typical = t.typical as TypicalPoint[] | undefined;
-    if (typical !== undefined && !(Array.isArray(typical) && typical.every((q) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 1e-9, 100)))) return { ok: false, message: `${where} (${t.name}): its typical figures must be { va, vg, ia } numbers` };
-    out.push({
-      name: t.name,
-      params: { mu: p.mu, ex: p.ex, kg1: p.kg1, kp: p.kp, kvb: p.kvb },
-      maxPlateVoltage: t.maxPlateVoltage as number,
-      maxPlateDissipation: t.maxPlateDissipation as number,
-      maxHeaterCathodeVoltage: t.maxHeaterCathodeVoltage as number,
-      points: t.points as CustomTubeSpec['points'],
-      rmsPercent: t.rmsPercent as number,
-      ...(typical ? { typical: typical.map((q) => ({ ...q, source: 'entered by the user' })) } : {}),
-      ...(heater ? { heater: { volts: heater.volts as number, amps: heater.amps as number } } : {}),
-      ...(caps ? { caps: { cgk: caps.cgk as number, cgp: caps.cgp as number, cpk: caps.cpk as number } } : {}),
-    });
+  return { ok: true, ...readTubeList(r.tubes) };
+}
+
+/** Reads a list of raw tube records: the ones that read, and a problem naming each that does not. */
+export function readTubeList(list: readonly unknown[]): { specs: CustomTubeSpec[]; problems: string[] } {
+  const specs: CustomTubeSpec[] = [];
+  const problems: string[] = [];
+  list.forEach((t, k) => {
+    const r = readTubeSpec(t, k);
+    if (typeof r === 'string') problems.push(r);
+    else specs.push(bounded(r));
+  });
+  return { specs, problems };
+}
+
+const num = (v: unknown, lo: number, hi: number) => typeof v === 'number' && Number.isFinite(v) && v >= lo && v <= hi;
+
+/** One tube record: the spec, or a message naming the tube (or its place) and what is wrong. */
+function readTubeSpec(raw: unknown, k: number): CustomTubeSpec | string {
+  const t = (typeof raw === 'object' && raw !== null ? raw : {}) as Record<string, unknown>;
+  const where = `Tube ${k + 1}`;
+  if (typeof t.name !== 'string' || nameProblem(t.name)) return `${where}: ${typeof t.name === 'string' ? nameProblem(t.name) : 'has no name'}`;
+  const p = t.params as KorenTriodeParams | undefined;
+  if (!p || typeof p !== 'object' || korenParamsProblem(p)) return `${where} (${t.name}): its Koren parameters are not usable`;
+  if (!num(t.maxPlateVoltage, 1, 10000) || !num(t.maxPlateDissipation, 0.01, 1000) || !num(t.maxHeaterCathodeVoltage, 0, 1000) || !num(t.rmsPercent, 0, 1e6)) {
+    return `${where} (${t.name}): ratings must be numbers in range`;
   }
-  return { ok: true, specs: out };
+  if (!Array.isArray(t.points) || !t.points.every((q: { va?: unknown; vg?: unknown; ia?: unknown }) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 0, 100))) {
+    return `${where} (${t.name}): its points must be { va, vg, ia } numbers`;
+  }
+  const heater = t.heater as { volts?: unknown; amps?: unknown } | undefined;
+  if (heater !== undefined && !(num(heater?.volts, 0.5, 200) && num(heater?.amps, 0, 50))) return `${where} (${t.name}): its heater must give volts and amps in range`;
+  const caps = t.caps as { cgk?: unknown; cgp?: unknown; cpk?: unknown } | undefined;
+  if (caps !== undefined && !(num(caps?.cgk, 0, 1e-9) && num(caps?.cgp, 0, 1e-9) && num(caps?.cpk, 0, 1e-9))) return `${where} (${t.name}): its capacitances must be cgk, cgp, cpk in farads`;
+  const typical = t.typical as TypicalPoint[] | undefined;
+  if (typical !== undefined && !(Array.isArray(typical) && typical.every((q) => num(q?.va, 0, 1e4) && num(q?.vg, -1e3, 1e3) && num(q?.ia, 1e-9, 100)))) return `${where} (${t.name}): its typical figures must be { va, vg, ia } numbers`;
+  return {
+    name: t.name,
+    params: { mu: p.mu, ex: p.ex, kg1: p.kg1, kp: p.kp, kvb: p.kvb },
+    maxPlateVoltage: t.maxPlateVoltage as number,
+    maxPlateDissipation: t.maxPlateDissipation as number,
+    maxHeaterCathodeVoltage: t.maxHeaterCathodeVoltage as number,
+    points: (t.points as CustomTubeSpec['points']).map((q) => ({ va: q.va, vg: q.vg, ia: q.ia })),
+    rmsPercent: t.rmsPercent as number,
+    ...(typical ? { typical: typical.map((q) => ({ ...q, source: 'entered by the user' })) } : {}),
+    ...(heater ? { heater: { volts: heater.volts as number, amps: heater.amps as number } } : {}),
+    ...(caps ? { caps: { cgk: caps.cgk as number, cgp: caps.cgp as number, cpk: caps.cpk as number } } : {}),
+  };
 }

@@ -49,7 +49,8 @@ const num = (min: number, max: number, unit: string): Check => (v) =>
 const numOrNull = (min: number, max: number, unit: string): Check => (v) => (v === null ? null : num(min, max, unit)(v));
 const bool: Check = (v) => (typeof v === 'boolean' ? null : 'must be true or false');
 const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'string' && options.includes(v) ? null : `must be one of ${options.join(', ')}`);
-const tubeId: Check = (v) => (typeof v === 'string' && lookupTube(v) ? null : 'must name a tube in the library or one of yours kept in this browser');
+/** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
+const tubeId: Check = (v) => (typeof v === 'string' && v.trim().length > 0 && v.length <= 60 ? null : 'must name a tube (text of at most 60 characters)');
 
 const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind'>, Check> = {
   tubeId,
@@ -157,7 +158,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     };
   }
   const design: BenchDesign = {
-    tubeId: lookupTube(d.tubeId as string)!.id,
+    tubeId: knownId(d.tubeId as string),
     bplus: d.bplus as number,
     ra: d.ra as number,
     rk: d.rk as number,
@@ -173,7 +174,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     levelRms: d.levelRms as number,
     stage2: {
       kind: s2.kind as Stage2Design['kind'],
-      tubeId: lookupTube(s2.tubeId as string)!.id,
+      tubeId: knownId(s2.tubeId as string),
       ra: s2.ra as number,
       rk: s2.rk as number,
       rg: s2.rg as number,
@@ -182,4 +183,27 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     output,
   };
   return { ok: true, doc: { title: raw.title, design } };
+}
+
+/** A known tube's id as the library spells it; an unknown name as written. */
+const knownId = (name: string) => lookupTube(name)?.id ?? name;
+
+/**
+ * A design whose tubes this browser does not know (a user tube from another
+ * browser, or since removed) opens with the demo's tube in each such place
+ * and every other value as saved, and a note naming the missing tube and
+ * what to do. Never the demo in its place.
+ */
+export function withKnownTubes(doc: DesignDocument): { doc: DesignDocument; note: string | null } {
+  const d = doc.design;
+  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : [])].filter((id) => !lookupTube(id)))];
+  if (missing.length === 0) return { doc, note: null };
+  const stand = DEMO_DESIGN.tubeId;
+  const swap = (id: string) => (lookupTube(id) ? id : stand);
+  const design: BenchDesign = { ...d, tubeId: swap(d.tubeId), stage2: { ...d.stage2, tubeId: swap(d.stage2.tubeId) } };
+  const names = missing.map((m) => `“${m}”`).join(' and ');
+  return {
+    doc: { ...doc, design },
+    note: `The design uses ${names}, which is neither in the library nor among your tubes in this browser: it opened with the ${stand} in its place and every other value as saved. Import the tube (A tube of your own → Import tubes) and choose it again.`,
+  };
 }

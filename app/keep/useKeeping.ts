@@ -1,6 +1,8 @@
 import { useEffect } from 'react';
 import type { WorkbenchState, WorkbenchStore } from '../store/workbenchStore';
 import type { DesignDocument } from './designFile';
+import { loadCustomTubes } from './customTubes';
+import { openDocument, withNote } from './openDocument';
 import { readShareFragment } from './shareLink';
 import { autosave, restoreAutosave, restoreHistory, saveHistory, DAMAGED_AUTOSAVE } from './storage';
 
@@ -17,19 +19,53 @@ function keptDocument(s: WorkbenchState): DesignDocument {
   return { title: s.title, design: s.dragging && s.dragStart ? s.dragStart : s.design };
 }
 
+/**
+ * A design opened with stand-ins for tubes not known yet: the user's own
+ * tubes load asynchronously, so once they have, it is opened again as saved
+ * (unless the user has changed the design meanwhile).
+ */
+interface Waiting {
+  readonly doc: DesignDocument;
+  readonly shown: WorkbenchState['design'];
+  readonly what: string;
+}
+/** What one mounted bench is waiting on (kept per bench, never module-wide). */
+interface Opening {
+  readonly store: WorkbenchStore;
+  waiting: Waiting | null;
+}
+
+function open(o: Opening, doc: DesignDocument, what: string): ReturnType<typeof openDocument> {
+  const opened = openDocument(o.store, doc);
+  if (!opened.failure && opened.note) o.waiting = { doc, shown: o.store.getState().design, what };
+  return opened;
+}
+
+/** Once the user's tubes have loaded: a design waiting for one of them opens as saved. */
+function reopenWaiting({ store, ...o }: Opening): void {
+  const w = o.waiting;
+  if (!w || store.getState().design !== w.shown) return;
+  const { past, future } = store.getState();
+  const opened = openDocument(store, w.doc);
+  store.setState({ past, future }); // the stand-in was never the user's step
+  if (!opened.failure && !opened.note) store.getState().setKeepNote({ kind: 'ok', text: `Opened ${w.what} with your own tube.` });
+}
+
 /** Opens the autosaved design and its undo history (true when it did); says so when it could not be read. */
-function openLastDesign(store: WorkbenchStore): boolean {
+function openLastDesign(o: Opening): boolean {
+  const { store } = o;
   const s = store.getState();
   const saved = restoreAutosave();
   if (saved.kind === 'damaged') {
     s.setKeepNote({ kind: 'error', text: `Your last design could not be read (${saved.message}); the bench opened on the demo. The damaged copy is kept in this browser under “${DAMAGED_AUTOSAVE}”.` });
   }
   if (saved.kind !== 'ok') return false;
-  const failure = s.loadDocument(saved.doc);
-  if (failure) {
-    s.setKeepNote({ kind: 'error', text: `Your last design could not run (${failure.message}); the bench opened on the demo.` });
+  const opened = open(o, saved.doc, 'your last design');
+  if (opened.failure) {
+    s.setKeepNote({ kind: 'error', text: `Your last design could not run (${opened.failure.message}); the bench opened on the demo.` });
     return false;
   }
+  if (opened.note) s.setKeepNote({ kind: 'error', text: opened.note });
   // The undo history kept with it, in place of the step that opening just recorded.
   const history = restoreHistory();
   store.setState({ past: history.past, future: history.future });
@@ -41,15 +77,20 @@ function openLastDesign(store: WorkbenchStore): boolean {
  * design cannot run, leaves the design that was open (at start-up: the last
  * one) and says why.
  */
-function openLink(store: WorkbenchStore, hash: string, atStart: boolean): void {
+function openLink(o: Opening, hash: string, atStart: boolean): void {
+  const { store } = o;
   const link = readShareFragment(hash);
   // Opening the demo, or a design that did not run, is not an undo step.
-  if (atStart && !openLastDesign(store)) store.setState({ past: [], future: [] });
+  if (atStart && !openLastDesign(o)) store.setState({ past: [], future: [] });
   if (!link) return;
   const s = store.getState();
   if (!link.ok) return s.setKeepNote({ kind: 'error', text: link.message });
-  const failure = s.loadDocument(link.doc);
-  s.setKeepNote(failure ? { kind: 'error', text: `The shared design could not run: ${failure.message}. The bench kept your last design.` } : { kind: 'ok', text: `Opened the shared design “${link.doc.title}”.` });
+  const opened = open(o, link.doc, `the shared design “${link.doc.title}”`);
+  s.setKeepNote(
+    opened.failure
+      ? { kind: 'error', text: `The shared design could not run: ${opened.failure.message}. The bench kept your last design.` }
+      : { kind: opened.note ? 'error' : 'ok', text: withNote(`Opened the shared design “${link.doc.title}”.`, opened.note) },
+  );
 }
 
 /**
@@ -62,7 +103,19 @@ function openLink(store: WorkbenchStore, hash: string, atStart: boolean): void {
  */
 export function useKeeping(store: WorkbenchStore): void {
   useEffect(() => {
-    openLink(store, globalThis.location?.hash ?? '', true);
+    const opening: Opening = { store, waiting: null };
+    openLink(opening, globalThis.location?.hash ?? '', true);
+    let live = true;
+    void loadCustomTubes().then((problems) => {
+      if (!live) return;
+      store.getState().refreshTubes();
+      if (problems.length > 0) {
+        const list = `${problems.slice(0, 5).join('; ')}${problems.length > 5 ? `; and ${problems.length - 5} more` : ''}`;
+        store.getState().setKeepNote({ kind: 'error', text: `Some of your kept tubes could not be read, and the others loaded: ${list}.` });
+      }
+      reopenWaiting(opening);
+      opening.waiting = null;
+    });
 
     let timer: ReturnType<typeof setTimeout> | undefined;
     let warned = false;
@@ -86,7 +139,7 @@ export function useKeeping(store: WorkbenchStore): void {
     const onVisibility = () => {
       if (document.visibilityState === 'hidden') flush();
     };
-    const onHash = () => openLink(store, globalThis.location.hash, false);
+    const onHash = () => openLink(opening, globalThis.location.hash, false);
     const onKey = (e: KeyboardEvent) => {
       if (!(e.ctrlKey || e.metaKey)) return;
       const target = e.target as HTMLElement | null;
@@ -105,6 +158,7 @@ export function useKeeping(store: WorkbenchStore): void {
     window.addEventListener('hashchange', onHash);
     document.addEventListener('visibilitychange', onVisibility);
     return () => {
+      live = false;
       unsubscribe();
       flush();
       window.removeEventListener('keydown', onKey);

@@ -1,5 +1,6 @@
 import { useId, useRef, useState } from 'react';
 import { readDesignFile, writeDesignFile, MAX_DESIGN_FILE_BYTES } from '../keep/designFile';
+import { openDocument, withNote } from '../keep/openDocument';
 import { shareFragment } from '../keep/shareLink';
 import { putOnShelf, removeFromShelf, shelfNames, takeFromShelf } from '../keep/storage';
 import { download, fileStem } from '../export/download';
@@ -24,8 +25,8 @@ export function KeepPanel() {
   const open = (text: string, bytes: number, what: string) => {
     const r = readDesignFile(text, bytes);
     if (!r.ok) return setNote({ kind: 'error', text: r.message });
-    const failure = store.getState().loadDocument(r.doc);
-    setNote(failure ? { kind: 'error', text: `${what} could not run: ${failure.message}` } : { kind: 'ok', text: `Opened “${r.doc.title}”.` });
+    const opened = openDocument(store, r.doc);
+    setNote(opened.failure ? { kind: 'error', text: `${what} could not run: ${opened.failure.message}` } : { kind: opened.note ? 'error' : 'ok', text: withNote(`Opened “${r.doc.title}”.`, opened.note) });
   };
 
   const onFile = async (file: File | undefined) => {

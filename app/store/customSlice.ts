@@ -1,6 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { fitTriode, parseCurveCsv, parseTypicalCsv, plateFamily, type CsvLineError, type PlateCurve, type TriodeFit, type TypicalPoint } from '../../src/index';
-import { customSpecs, nameProblem, readTubesFile, removeCustomTube, saveCustomTube, writeTubesFile } from '../keep/customTubes';
+import { customSpecs, nameProblem, readTubesFile, removeCustomTube, saveCustomTube, saveCustomTubes, writeTubesFile } from '../keep/customTubes';
 import type { WorkbenchState } from './workbenchStore';
 
 /** Making a tube of one's own: points in, a fitted model out, saved under a name. */
@@ -55,22 +55,26 @@ export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice
     const problem = nameProblem(name);
     if (problem) return set({ custom: { ...c, note: problem } });
     if (!c.fit?.ok) return set({ custom: { ...c, note: 'Fit the points first.' } });
-    saveCustomTube({ name: name.trim(), params: c.fit.params, ...ratings, points: c.points, rmsPercent: c.fit.rmsPercent, typical: c.typical, ...extras });
+    const kept = saveCustomTube({ name: name.trim(), params: c.fit.params, ...ratings, points: c.points, rmsPercent: c.fit.rmsPercent, typical: c.typical, ...extras });
     get().refreshTubes();
     set({ custom: { ...get().custom, note: `Saved “${name.trim()}”: choose it in the tube list (marked “yours”).` } });
+    void kept.then((ok) => ok || set({ custom: { ...get().custom, note: `“${name.trim()}” is usable in this page, but this browser would not keep it (storage full or blocked): export your tubes to a file to keep them.` } }));
   },
 
   removeCustom: (name) => {
-    removeCustomTube(name);
+    void removeCustomTube(name);
     get().refreshTubes();
   },
 
   importCustomTubes: (text) => {
     const r = readTubesFile(text);
     if (!r.ok) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.message}` } });
-    for (const spec of r.specs) saveCustomTube(spec);
+    if (r.specs.length === 0) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.problems.slice(0, 5).join('; ')}` } });
+    const kept = saveCustomTubes(r.specs);
     get().refreshTubes();
-    set({ custom: { ...get().custom, note: `Imported ${r.specs.length} tube${r.specs.length === 1 ? '' : 's'}.` } });
+    const skipped = r.problems.length > 0 ? ` Not imported: ${r.problems.slice(0, 5).join('; ')}${r.problems.length > 5 ? `; and ${r.problems.length - 5} more` : ''}.` : '';
+    set({ custom: { ...get().custom, note: `Imported ${r.specs.length} tube${r.specs.length === 1 ? '' : 's'}.${skipped}` } });
+    void kept.then((ok) => ok || set({ custom: { ...get().custom, note: `${get().custom.note} This browser would not keep them (storage full or blocked): keep the file.` } }));
   },
 
   exportCustomTubes: () => writeTubesFile(customSpecs()),

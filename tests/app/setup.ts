@@ -1,11 +1,12 @@
+import 'fake-indexeddb/auto';
 import { cleanup } from '@testing-library/react';
 import { afterEach, beforeEach } from 'vitest';
 import { resetCustomTubes } from '../../app/keep/customTubes';
 
 // Each test starts as a first visit: no autosave, no shelf, no shared link.
-beforeEach(() => {
+beforeEach(async () => {
   localStorage.clear();
-  resetCustomTubes();
+  await resetCustomTubes();
   history.replaceState(null, '', '/');
 });
 

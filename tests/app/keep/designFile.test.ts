@@ -44,7 +44,7 @@ describe('design files', () => {
     ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 2\. Nothing was opened\.$/],
     ['a wrong value', variant((f) => { f.design.ra = -5; }), /^design\.ra must be a number from 100 to 10000000 Ω \(found -5\)\. Nothing was opened\.$/],
     ['a wrong type', variant((f) => { f.design.bypassed = 'yes'; }), /^design\.bypassed must be true or false \(found "yes"\)\. Nothing was opened\.$/],
-    ['an unknown tube', variant((f) => { f.design.tubeId = 'XYZ99'; }), /^design\.tubeId must name a tube in the library or one of yours kept in this browser \(found "XYZ99"\)\. Nothing was opened\.$/],
+    ['a tube that is not a name', variant((f) => { f.design.tubeId = 42; }), /^design\.tubeId must name a tube \(text of at most 60 characters\) \(found 42\)\. Nothing was opened\.$/],
     ['no second stage', variant((f) => { delete f.design.stage2; }), /^design\.stage2 is missing\. Nothing was opened\.$/],
     ['no output stage', variant((f) => { delete f.design.output; }), /^design\.output is missing\. Nothing was opened\.$/],
     ['an unknown output tube', variant((f) => { (f.design.output as Record<string, unknown>).tubeId = '12AX7'; }), /^design\.output\.tubeId must name an output tube in the library \(found "12AX7"\)\. Nothing was opened\.$/],
