@@ -89,9 +89,11 @@ export { CONNECTIONS, connectionsOf, type Connection, type OutputTube, type Outp
 export { outputTubeLibrary, findOutputTube } from './output/library/index';
 export { OUTPUT_LIMITS, outputDesignProblem, effectiveConnection, type OutputDesign } from './output/outputDesign';
 export { solveOutput, OUTPUT_CUTOFF_A, type OutputSolution, type OutputPoint } from './output/solveOutput';
-export { atDrive, cleanLimit, waveform, OUTPUT_SAMPLES, CUTOFF_SHARE, type DriveResult, type CleanLimit } from './output/outputSignal';
-export { powerSweep, powerAtDistortion, zPrimarySweep, type LimitedPower, type ZSweep } from './output/powerSweep';
-export { biasForPoint, switchBias, type BiasAnswer } from './output/outputBias';
+export { OUTPUT_SAMPLES, CUTOFF_SHARE, type DriveResult, type CleanLimit, type Waveform } from './output/outputSignal';
+export { type LimitedPower, type ZSweep } from './output/powerSweep';
+export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimarySweep, switchBias } from './output/outputCalls';
+export { checkOutputTube, OUTPUT_CALL_LIMITS } from './output/checkOutput';
+export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';

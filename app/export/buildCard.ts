@@ -5,6 +5,7 @@ import { buildSheetOf } from '../store/buildSheet';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
+import { elevationAdvice } from '../panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
@@ -64,7 +65,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   if (build.elevation.ok) {
     sections.push({
       heading: 'Heaters',
-      lines: [build.elevation.groundedOk ? 'Heater–cathode voltages are within every rating with the heaters at ground.' : `Elevate the heater supply to about ${volts(build.elevation.suggested)} DC (${volts(build.elevation.lo)} to ${volts(build.elevation.hi)} keeps every stage within its heater–cathode rating).`],
+      lines: [elevationAdvice(build.elevation)],
     });
   } else sections.push({ heading: 'Heaters', lines: [build.elevation.message] });
   sections.push({

@@ -1,9 +1,9 @@
 import { useId } from 'react';
 import { useShallow } from 'zustand/react/shallow';
-import { connectionsOf, outputTubeLibrary, switchBias, type Connection } from '../../src/index';
+import { connectionsOf, outputTubeLibrary, type Connection } from '../../src/index';
 import { ValueField } from '../panels/ValueField';
 import { WantedPoint } from './WantedPoint';
-import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
+import { useWorkbench } from '../store/StoreProvider';
 
 /** What each connection's figures can be trusted for, said plainly beside the choice. */
 export const CONNECTION_NOTES: Record<Connection, string> = {
@@ -16,7 +16,6 @@ const CONNECTION_LABEL: Record<Connection, string> = { pentode: 'Pentode', triod
 
 /** The output stage's values: tube, connection, bias and the transformer, each with its message beside it. */
 export function OutputValues() {
-  const store = useWorkbenchStore();
   // Only the choices that shape the form: a drag changes values, which the fields follow themselves.
   const o = useWorkbench(useShallow(({ design: { output } }) => ({ tubeId: output.tubeId, connection: output.connection, bias: output.bias })));
   const tubeError = useWorkbench((s) => s.errors.outputTube);
@@ -25,7 +24,7 @@ export function OutputValues() {
   const tube = useWorkbench((s) => s.outputBench.analysis.solution.tube);
   const id = useId();
   const connections = connectionsOf(tube);
-  const setBias = (to: 'cathode' | 'fixed') => changeOutput(switchBias(store.getState().outputBench.analysis.solution, to));
+  const setBias = useWorkbench((s) => s.setOutputBias);
   return (
     <section className="panel circuit-values output-values" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Output stage</h2>

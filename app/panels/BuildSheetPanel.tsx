@@ -2,6 +2,7 @@ import { useId } from 'react';
 import { farads, milliamps, ohms, plain, volts, watts } from '../format';
 import { buildSheetOf } from '../store/buildSheet';
 import { useWorkbench } from '../store/StoreProvider';
+import { elevationAdvice } from './elevationAdvice';
 
 /** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
 function NumberInput({ label, value, unit, onValue, min }: { label: string; value: number; unit: string; onValue: (v: number) => void; min: number }) {
@@ -91,7 +92,7 @@ export function BuildSheetPanel() {
         <p data-testid="dropper">{sheet.dropper.preferred === 0 ? 'No dropping resistor needed.' : `Dropping resistor ${ohms(sheet.dropper.exact)} exactly, order ${ohms(sheet.dropper.preferred)} (${sheet.dropper.ratingWatts} W): heaters at ${plain(sheet.dropper.heaterVolts)} V, resistor dissipating ${watts(sheet.dropper.watts)}.`}{sheet.dropper.warning ? <span className="field-error"> {sheet.dropper.warning}</span> : null}</p>
       ) : null}
       {sheet.elevation.ok ? (
-        <p data-testid="elevation">{sheet.elevation.groundedOk ? 'Heater–cathode voltages are within every rating with the heaters at ground.' : `Elevate the heater supply to about ${volts(sheet.elevation.suggested)} DC (anywhere from ${volts(sheet.elevation.lo)} to ${volts(sheet.elevation.hi)} keeps every stage within its heater–cathode rating).`}</p>
+        <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p>
       ) : <p className="field-error">{sheet.elevation.message}</p>}
       <h3 className="subhead">B+ decoupling filter</h3>
       <div className="option-row">

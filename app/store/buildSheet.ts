@@ -29,7 +29,7 @@ export interface BuildSheet {
   readonly tubes: readonly { tube: TubeRecord; options: readonly HeaterOption[]; chosen: HeaterOption }[];
   readonly heaters: ({ ok: true } & HeaterPlan) | Failure;
   readonly dropper: ({ ok: true } & DroppingResistor) | Failure | null;
-  readonly elevation: { ok: true; lo: number; hi: number; suggested: number; groundedOk: boolean } | Failure;
+  readonly elevation: { ok: true; lo: number | null; hi: number | null; suggested: number; groundedOk: boolean } | Failure;
   readonly filter: ({ ok: true } & DecouplingResult) | Failure;
   /** Where stage 1 then sits, with the filter's B+. */
   readonly filteredOp: { va: number; ia: number } | null;

@@ -83,6 +83,7 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     if (!s.rival.on || s.rival.mode !== 'own-values' || !s.rivalAnalysis || !('solution' in s.rivalAnalysis)) return;
     const tube = s.rivalAnalysis.tube;
     const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
+    if (!reach.ok) return;
     const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
     if (!d.ok) return;
     const rival = { ...s.rival, ra: d.ra, rk: d.rk };

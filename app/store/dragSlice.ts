@@ -53,6 +53,10 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     const s = get();
     const { tube, sheet } = s.analysis;
     const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
+    if (!reach.ok) {
+      set({ dragNote: reach.message });
+      return;
+    }
     const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
     if (!d.ok) {
       set({ dragNote: d.message });

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { biasForPoint, findOutputTube, nearestPreferred, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign } from '../../src/index';
+import { biasForPoint, findOutputTube, nearestPreferred, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign, switchBias } from '../../src/index';
 import type { StageKind } from './analysis';
 import { analyzeOutputBench, type OutputBench, type OutputRival } from './outputAnalysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -20,6 +20,8 @@ export interface OutputSlice {
   /** Applies a change to the output design through commit; returns the failure, if any, for the caller to place. */
   changeOutput: (patch: Partial<OutputDesign>, opts?: { light?: boolean }) => Failure | null;
   chooseOutputTube: (id: string) => void;
+  /** Switches between cathode and fixed bias keeping the idle current; returns the failure, if any. */
+  setOutputBias: (to: 'cathode' | 'fixed') => Failure | null;
   setOutputRival: (patch: Partial<OutputRival>) => void;
   dragOutputPointTo: (vpk: number, ip: number) => void;
   /** Inverse design: the bias (Rk, snapped to the series, or the grid supply) and B+ for a wanted point; the failure when there is none. */
@@ -51,6 +53,14 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const s = get();
     const pinned = s.dragging ? s.outputBench.analysis.sheet.extent : undefined;
     return s.commit({ ...s.design, output: { ...s.design.output, ...patch } }, { light: opts.light ?? false, ...(pinned ? { outputExtent: pinned } : {}) });
+  },
+
+  setOutputBias: (to) => {
+    const s = get();
+    const parts = switchBias(s.outputBench.analysis.solution, to);
+    if (!parts.ok) return parts;
+    const { ok: _ok, ...patch } = parts;
+    return s.changeOutput(patch);
   },
 
   chooseOutputTube: (id) => {

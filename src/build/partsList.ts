@@ -4,6 +4,7 @@ import { SERIES, SERIES_TOLERANCE, type PreferredSeries } from '../parts/preferr
 import type { CheckedStage } from '../stage/stageDesign';
 import type { StageSolution } from '../stage/solveStage';
 import { CAPACITOR_VOLTS, RATING_MARGIN, RESISTOR_WATTS, roundUpTo } from './ratings';
+import { shown } from '../shown';
 
 /** Production spread of a tube's current around the model: ±20 % (common practice). */
 export const TUBE_CURRENT_SPREAD = 0.2;
@@ -114,7 +115,9 @@ export interface CapacitorForCorner {
  *                    the cathode node (F. Langford-Smith, RDH4, ch. 12).
  */
 export function capacitorsForCorner(d: CheckedStage, s: StageSolution, cornerHz: number, series: PreferredSeries = 'E12'): Result<{ cin: CapacitorForCorner | null; cout: CapacitorForCorner | null; ck: CapacitorForCorner | null }> {
-  if (!(Number.isFinite(cornerHz) && cornerHz > 0)) return fail('invalid-input', `The corner frequency must be above 0 Hz (got ${cornerHz} Hz)`, 'cornerHz');
+  if (!(cornerHz >= 0.01 && cornerHz <= 1e6)) return fail('invalid-input', `The corner frequency must be from 0.01 Hz to 1 MHz (got ${shown(cornerHz)} Hz)`, 'cornerHz');
+  if (typeof series !== 'string' || !Object.hasOwn(SERIES, series)) return fail('invalid-input', 'Choose the E12, E24 or E96 series', 'series');
+  if (typeof s !== 'object' || s === null || typeof d !== 'object' || d === null || !(s.rp > 0) || !(s.zout > 0)) return fail('invalid-input', 'Give a checked stage and its solution', 'stage');
   const pick = (resistance: number): CapacitorForCorner => {
     const exact = 1 / (2 * Math.PI * cornerHz * resistance);
     const preferred = preferredAtOrAbove(exact, series);

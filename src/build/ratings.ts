@@ -12,5 +12,6 @@ export const RATING_MARGIN = 2;
 
 /** The smallest standard value at or above need; the largest one (flagged by the caller) when none is. */
 export function roundUpTo(table: readonly number[], need: number): number {
+  if (!Array.isArray(table) || table.length === 0) return need;
   return table.find((v) => v >= need - 1e-12) ?? table[table.length - 1]!;
 }

@@ -6,6 +6,7 @@ import { triode } from '../tube/triode';
 import { modelOf } from '../tube/types';
 import { recordOf } from '../tube/types';
 import { TUBE_CURRENT_SPREAD } from './partsList';
+import { shown } from '../shown';
 
 /** A small fast seeded generator (mulberry32, T. Ettinger, public domain), so a spread repeats exactly under one seed. */
 export function seededRandom(seed: number): () => number {
@@ -42,8 +43,8 @@ export interface Spread {
  */
 export function productionSpread(d: CheckedStage, nominal: StageSolution, series: PreferredSeries, options: { runs?: number; seed?: number; tubeSpread?: number } = {}): Result<Spread> {
   const { runs = 200, seed = 1, tubeSpread = TUBE_CURRENT_SPREAD } = options;
-  if (!(Number.isFinite(tubeSpread) && tubeSpread >= 0 && tubeSpread < 1)) return fail('invalid-input', `The tube's current spread must be from 0 % to under 100 % (got ${Math.round(tubeSpread * 100)} %)`, 'tubeSpread');
-  if (!(Number.isInteger(runs) && runs >= 1 && runs <= 10_000)) return fail('invalid-input', `Runs must be a whole number from 1 to 10000 (got ${runs})`, 'runs');
+  if (!(Number.isFinite(tubeSpread) && tubeSpread >= 0 && tubeSpread < 1)) return fail('invalid-input', `The tube's current spread must be from 0 % to under 100 % (got ${shown(tubeSpread * 100)} %)`, 'tubeSpread');
+  if (!(Number.isInteger(runs) && runs >= 1 && runs <= 10_000)) return fail('invalid-input', `Runs must be a whole number from 1 to 10000 (got ${shown(runs)})`, 'runs');
   const rnd = seededRandom(seed);
   const tol = (t: number) => 1 + t * (2 * rnd() - 1);
   const base = modelOf(d.tube);

@@ -1,8 +1,10 @@
 import { fail, type Result } from '../result';
+import { decibelsOf } from '../signal/levels';
 import { nearestPreferred } from '../parts/nearestPreferred';
 import type { PreferredSeries } from '../parts/preferredValues';
 import type { HeaterOption } from '../tube/types';
 import { RATING_MARGIN, RESISTOR_WATTS, roundUpTo } from './ratings';
+import { shown } from '../shown';
 
 /** Heater voltage within ±10 % of nominal (common practice, no source). */
 export const HEATER_TOLERANCE = 0.1;
@@ -15,7 +17,10 @@ export interface HeaterPlan {
 }
 
 export function heaterTotals(heaters: readonly HeaterOption[]): Result<HeaterPlan> {
-  if (heaters.length === 0) return fail('invalid-input', 'No heaters to supply');
+  if (!Array.isArray(heaters) || heaters.length === 0) return fail('invalid-input', 'No heaters to supply');
+  const usable = (v: unknown, min: number) => typeof v === 'number' && Number.isFinite(v) && v >= min && v <= 1000;
+  const bad = heaters.findIndex((h) => typeof h !== 'object' || h === null || !usable(h.volts, 0.5) || !usable(h.amps, 0));
+  if (bad >= 0) return fail('invalid-input', `Heater ${bad + 1} must give volts (0.5 to 1000 V) and amps (0 to 1000 A)`);
   const volts = heaters[0]!.volts;
   if (heaters.some((h) => Math.abs(h.volts - volts) > 1e-9)) return fail('invalid-input', 'The chosen heater wirings have different voltages: choose the same voltage for every tube to wire them in parallel');
   const totalAmps = heaters.reduce((a, h) => a + h.amps, 0);
@@ -39,7 +44,10 @@ export interface DroppingResistor {
  * Ohm's law, R = (Vs − Vh)/Ih, and Joule's law for its dissipation, P = I²R.
  */
 export function droppingResistor(plan: HeaterPlan, supplyVolts: number, series: PreferredSeries = 'E24'): Result<DroppingResistor> {
-  if (!(Number.isFinite(supplyVolts) && supplyVolts > 0)) return fail('invalid-input', `Heater supply must be above 0 V (got ${supplyVolts} V)`, 'supply');
+  const checked = typeof plan === 'object' && plan !== null ? heaterTotals([{ wiring: 'single', volts: plan.volts, amps: plan.totalAmps }]) : null;
+  if (!checked?.ok) return fail('invalid-input', 'Give the heaters\' plan (from heaterTotals)', 'heaters');
+  if (!(plan.totalAmps >= 1e-6)) return fail('invalid-input', 'The heaters draw no current', 'supply');
+  if (!(typeof supplyVolts === 'number' && supplyVolts > 0 && supplyVolts <= 1000)) return fail('invalid-input', `Heater supply must be above 0 V and at most 1000 V (got ${shown(supplyVolts)} V)`, 'supply');
   if (supplyVolts < plan.volts) return fail('supply-too-low', `A ${supplyVolts} V supply is below the ${plan.volts} V the heaters need: no resistor can raise it`, 'supply');
   if (!(plan.totalAmps > 0)) return fail('invalid-input', 'The heaters draw no current', 'supply');
   const exact = (supplyVolts - plan.volts) / plan.totalAmps;
@@ -70,7 +78,11 @@ export function droppingResistor(plan: HeaterPlan, supplyVolts: number, series: 
  * else the point of the window nearest 0 V moved 10 % into it), or a message
  * when no single heater potential serves every stage.
  */
-export function heaterElevation(stages: readonly { name: string; vk: number; maxVhk: number | null; maxVhkCathodeNegative?: number }[]): Result<{ lo: number; hi: number; suggested: number; groundedOk: boolean }> {
+export function heaterElevation(stages: readonly { name: string; vk: number; maxVhk: number | null; maxVhkCathodeNegative?: number }[]): Result<{ lo: number | null; hi: number | null; suggested: number; groundedOk: boolean }> {
+  if (!Array.isArray(stages)) return fail('invalid-input', 'Give the stages as a list of { name, vk, maxVhk }', 'stages');
+  const finite = (v: unknown) => typeof v === 'number' && Number.isFinite(v);
+  const bad = stages.findIndex((s) => typeof s !== 'object' || s === null || !finite(s.vk) || !(s.maxVhk === null || (finite(s.maxVhk) && s.maxVhk >= 0)) || !(s.maxVhkCathodeNegative === undefined || (finite(s.maxVhkCathodeNegative) && s.maxVhkCathodeNegative >= 0)));
+  if (bad >= 0) return fail('invalid-input', `Stage ${bad + 1} must give its cathode voltage and heater–cathode ratings as numbers`, 'stages');
   let lo = -Infinity;
   let hi = Infinity;
   for (const s of stages) {
@@ -79,12 +91,12 @@ export function heaterElevation(stages: readonly { name: string; vk: number; max
     hi = Math.min(hi, s.vk + (s.maxVhkCathodeNegative ?? s.maxVhk));
   }
   if (lo > hi) return fail('unreachable', 'No single heater potential keeps every stage within its heater–cathode rating: give the follower its own heater winding');
-  if (!Number.isFinite(lo) && !Number.isFinite(hi)) return { ok: true, lo: -Infinity, hi: Infinity, suggested: 0, groundedOk: true };
   const groundedOk = lo <= 0 && 0 <= hi;
   const nearest = Math.min(Math.max(0, lo), hi);
   const width = Number.isFinite(hi - lo) ? hi - lo : 0;
   const suggested = groundedOk ? 0 : nearest + (nearest === lo ? 0.1 : -0.1) * width;
-  return { ok: true, lo, hi, suggested, groundedOk };
+  // No bound on a side (no indirectly heated stage limits it) is null, never ±Infinity.
+  return { ok: true, lo: Number.isFinite(lo) ? lo : null, hi: Number.isFinite(hi) ? hi : null, suggested, groundedOk };
 }
 
 export interface DecouplingResult {
@@ -106,19 +118,25 @@ export interface DecouplingResult {
  * low-pass (Horowitz & Hill, The Art of Electronics, 3rd ed., §1.7).
  */
 export function decouplingFilter(railVolts: number, r: number, c: number, currentAt: (bplus: number) => number | null): Result<DecouplingResult> {
-  if (!(railVolts > 0) || !Number.isFinite(railVolts)) return fail('invalid-input', `The supply rail must be above 0 V (got ${railVolts} V)`, 'rail');
-  if (!(r >= 0) || !Number.isFinite(r)) return fail('invalid-input', `The filter resistor must be 0 Ω or more (got ${r} Ω)`, 'filterR');
-  if (!(c > 0) || !Number.isFinite(c)) return fail('invalid-input', `The filter capacitor must be above 0 F (got ${c} F)`, 'filterC');
+  if (!(railVolts > 0) || !Number.isFinite(railVolts)) return fail('invalid-input', `The supply rail must be above 0 V (got ${shown(railVolts)} V)`, 'rail');
+  if (!(r >= 0) || !(r <= 1e9)) return fail('invalid-input', `The filter resistor must be from 0 Ω to 1 GΩ (got ${shown(r)} Ω)`, 'filterR');
+  if (!(c >= 1e-12) || !(c <= 10)) return fail('invalid-input', `The filter capacitor must be from 1 pF to 10 F (got ${shown(c)} F)`, 'filterC');
+  if (typeof currentAt !== 'function') return fail('invalid-input', 'Give the stage\'s current as a function of its B+', 'current');
+  const drawn = (b: number) => {
+    const i = currentAt(b);
+    return typeof i === 'number' && Number.isFinite(i) && i >= 0 ? i : 0;
+  };
   let lo = 0;
   let hi = railVolts;
   for (let k = 0; k < 80; k++) {
     const mid = 0.5 * (lo + hi);
-    const i = currentAt(mid) ?? 0;
+    const i = drawn(mid);
     if (mid < railVolts - r * i) lo = mid;
     else hi = mid;
   }
   const stageBplus = 0.5 * (lo + hi);
-  const amps = currentAt(stageBplus) ?? 0;
-  const att = (f: number) => -10 * Math.log10(1 + Math.pow(2 * Math.PI * f * r * c, 2));
+  const amps = drawn(stageBplus);
+  // |1/(1 + jωRC)| in dB; an absurd RC reads the floor, never −Infinity.
+  const att = (f: number) => decibelsOf(1 / Math.hypot(1, 2 * Math.PI * f * r * c));
   return { ok: true, stageBplus, dropVolts: railVolts - stageBplus, amps, ripple100Db: att(100), ripple120Db: att(120), resistorWatts: amps * amps * r };
 }

@@ -3,6 +3,7 @@ import { korenParamsProblem, korenPlateCurrent } from '../tube/koren';
 import { smallSignalAt, triode } from '../tube/triode';
 import type { KorenTriodeParams, TypicalPoint } from '../tube/types';
 import { levenbergMarquardt } from './levenbergMarquardt';
+import { shown } from '../shown';
 
 /** One point of a plate curve, read off a datasheet or measured: SI units (V, V, A). */
 export interface CurvePoint {
@@ -53,15 +54,17 @@ const MAX_POINTS = 10_000;
  * starts; the best is kept. Never NaN: a fit that does not converge returns
  * its best result with a warning.
  */
-export function fitTriode(points: readonly CurvePoint[], options: FitOptions = {}): Result<TriodeFit> {
+export function fitTriode(points: readonly CurvePoint[], options: FitOptions | null = {}): Result<TriodeFit> {
   if (!Array.isArray(points)) return fail('invalid-input', 'Give the points as a list of { va, vg, ia }');
   if (points.length > MAX_POINTS) return fail('invalid-input', `At most ${MAX_POINTS} points can be fitted (got ${points.length})`);
   for (const [k, p] of points.entries()) {
     if (!p || ![p.va, p.vg, p.ia].every((v) => typeof v === 'number' && Number.isFinite(v))) return fail('invalid-input', `Point ${k + 1} must have finite va, vg and ia`);
-    if (!(p.va > 0)) return fail('invalid-input', `Point ${k + 1}: plate voltage must be above 0 V (got ${p.va} V)`);
-    if (p.ia < 0) return fail('invalid-input', `Point ${k + 1}: plate current cannot be negative (got ${p.ia} A)`);
+    if (!(p.va > 0)) return fail('invalid-input', `Point ${k + 1}: plate voltage must be above 0 V (got ${shown(p.va)} V)`);
+    if (p.ia < 0) return fail('invalid-input', `Point ${k + 1}: plate current cannot be negative (got ${shown(p.ia)} A)`);
   }
-  const typical = options.typical ?? [];
+  if (options !== null && options !== undefined && typeof options !== 'object') return fail('invalid-input', 'Fit options must be an object or left out');
+  const typical = options?.typical ?? [];
+  if (!Array.isArray(typical)) return fail('invalid-input', 'Typical figures must be a list of { va, vg, ia }');
   const figureCount = typical.reduce((n, t) => n + 1 + (t.mu !== undefined ? 1 : 0) + (t.rp !== undefined ? 1 : 0) + (t.gm !== undefined ? 1 : 0), 0);
   if (points.length + figureCount < MIN_POINTS) {
     return fail('invalid-input', `Too few values to fit five parameters: give at least ${MIN_POINTS} points or figures (got ${points.length + figureCount})`);
@@ -72,7 +75,7 @@ export function fitTriode(points: readonly CurvePoint[], options: FitOptions = {
     if (grids.size < 2) return fail('invalid-input', `All the points are on one grid voltage (${[...grids][0]} V): give points from at least two plate curves so mu can be found`);
     if (plates.size < 2) return fail('invalid-input', 'All the points are at one plate voltage: give points along the curves (several plate voltages)');
   }
-  const muGuess = options.muGuess ?? guessMu(points) ?? typical.find((t) => t.mu !== undefined)?.mu ?? 20;
+  const muGuess = options?.muGuess ?? guessMu(points) ?? typical.find((t) => t.mu !== undefined)?.mu ?? 20;
 
   const toParams = (x: readonly number[]): KorenTriodeParams => ({ mu: Math.exp(x[0]!), ex: x[1]!, kg1: Math.exp(x[2]!), kp: Math.exp(x[3]!), kvb: Math.exp(x[4]!) });
   const residuals = (x: readonly number[]): number[] => {
@@ -104,7 +107,7 @@ export function fitTriode(points: readonly CurvePoint[], options: FitOptions = {
   for (const kg1 of [scale / 3, scale, scale * 3]) {
     for (const kpFactor of [3, 10, 30]) {
       const start = [Math.log(muGuess), 1.4, Math.log(Math.min(Math.max(kg1, 11), 9e4)), Math.log(Math.min(kpFactor * muGuess, 4000)), Math.log(300)];
-      const res = levenbergMarquardt(residuals, start, { lower, upper, maxIterations: options.maxIterations ?? 200 });
+      const res = levenbergMarquardt(residuals, start, { lower, upper, maxIterations: options?.maxIterations ?? 200 });
       if (Number.isFinite(res.cost) && korenParamsProblem(toParams(res.x)) === null && (!best || res.cost < best.cost)) best = res;
     }
   }

@@ -1,7 +1,8 @@
-import type { Result } from '../result';
+import { fail, type Result } from '../result';
 import type { CurveSheet } from '../stage/curveSheet';
 import type { Finding } from '../stage/findings';
 import type { PlateExtent } from '../stage/plateExtent';
+import { checkCount, checkNumber } from '../stage/checkInput';
 import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
 import type { ScreenFeed } from './electrodes';
 import type { OutputDesign } from './outputDesign';
@@ -61,13 +62,21 @@ export interface OutputAnalysisOptions {
  * The damping factor takes the cathode as bypassed and the transformer as
  * ideal apart from its primary resistance.
  */
-export function analyzeOutput(tube: OutputTube, design: OutputDesign, options: OutputAnalysisOptions = {}): Result<OutputAnalysis> {
+export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiven: OutputAnalysisOptions | null = {}): Result<OutputAnalysis> {
+  if (optionsGiven !== null && optionsGiven !== undefined && typeof optionsGiven !== 'object') return fail('invalid-input', 'Analysis options must be an object or left out');
+  const options = optionsGiven ?? {};
   const solved = solveOutput(tube, design);
   if (!solved.ok) return solved;
   const s = solved;
   const extent = options.extent ?? outputExtent(tube, design.bplus);
   const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
-  const prev = options.previous;
+  const problem =
+    checkNumber('extent', 'Chart width', extent?.vmax, 'V', 1, 20_000) ??
+    checkNumber('extent', 'Chart height', extent?.iaMax, 'A', 1e-6, 100) ??
+    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES);
+  if (problem) return problem;
+  // A previous analysis is only a cache: anything that does not look like one is ignored.
+  const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
   // On the light pass (a drag) the sheet is kept while the screen feed's kind is unchanged: the curves
   // of an ultralinear or cathode-biased pentode move a little with B+ and Vk, and are redrawn exactly
   // on the full pass at release. Redrawing the family every frame would cost the drag its frame rate.

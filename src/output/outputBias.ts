@@ -4,6 +4,7 @@ import { emptyCurrents, screenFeedOf, stageCurrentsInto } from './electrodes';
 import { effectiveConnection, type OutputDesign } from './outputDesign';
 import type { OutputTube } from './outputTube';
 import type { OutputSolution } from './solveOutput';
+import { checkOutputInput } from './checkOutput';
 
 /** The smallest cathode resistor the output design accepts, Ω (as outputDesignProblem checks). */
 const MIN_RK = 1;
@@ -26,6 +27,8 @@ export interface BiasAnswer {
  * too), then Rk = −Vgk/Ik and B+ = Vpk + Ip·Rpri + Vk.
  */
 export function biasForPoint(tube: OutputTube, d: OutputDesign, vpk: number, ip: number): Result<BiasAnswer> {
+  const problem = checkOutputInput(tube, d);
+  if (problem) return problem;
   if (!(vpk > 0) || !(ip > 0) || !Number.isFinite(vpk) || !Number.isFinite(ip)) return fail('invalid-input', 'The wanted point needs a positive plate voltage and current');
   const connection = effectiveConnection(d, tube);
   const cathode = d.bias === 'cathode';

@@ -53,7 +53,7 @@ export function outputDesignProblem(d: OutputDesign, tube: OutputTube): Failure 
   const L = OUTPUT_LIMITS;
   return (
     checkNumber('bplus', 'B+', d.bplus, 'V', L.minBplus, L.maxBplus) ??
-    (d.connection === 'pentode' ? checkNumber('screenVolts', 'Screen supply', d.screenVolts, 'V', 10, L.maxBplus) : null) ??
+    checkNumber('screenVolts', 'Screen supply', d.screenVolts, 'V', 10, L.maxBplus) ??
     (d.connection === 'ultralinear' ? checkNumber('ulTap', 'Screen tap', d.ulTap, '', L.minTap, L.maxTap) : null) ??
     checkNumber('zPrimary', 'Primary impedance', d.zPrimary, 'Ω', L.minZ, L.maxZ) ??
     checkNumber('rPrimary', 'Primary DC resistance', d.rPrimary, 'Ω', 0, L.maxRPrimary) ??

@@ -1,7 +1,8 @@
 import { bracketedRoot } from '../numeric/bracketedRoot';
 import { fail, type Result } from '../result';
 import { emptyCurrents, screenFeedOf, screenVoltage, stageCurrentsInto, type ScreenFeed } from './electrodes';
-import { effectiveConnection, outputDesignProblem, type OutputDesign } from './outputDesign';
+import { checkOutputInput } from './checkOutput';
+import { effectiveConnection, type OutputDesign } from './outputDesign';
 import type { Connection, OutputTube } from './outputTube';
 
 /** Below this cathode current the tube is taken as cut off, A (the same 1 µA as the voltage stage). */
@@ -117,7 +118,7 @@ function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number):
  * loop solved inside for each trial (Vk = Ik·Rk, Ik taking in the screen).
  */
 export function solveOutput(tube: OutputTube, design: OutputDesign): Result<OutputSolution> {
-  const problem = outputDesignProblem(design, tube);
+  const problem = checkOutputInput(tube, design);
   if (problem) return problem;
   let op: OutputPoint;
   if (design.bias === 'fixed') {

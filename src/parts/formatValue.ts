@@ -14,7 +14,11 @@ const PREFIXES: readonly [number, string][] = [
   [1e-12, 'p'],
 ];
 
-export function formatValue(value: number, unit = '', digits = 3): string {
+export function formatValue(value: number, unit = '', digitsAsked = 3): string {
+  if (typeof value !== 'number') return '—';
+  if (typeof unit !== 'string') unit = '';
+  // toPrecision takes 1 to 100 figures; a display never wants more than 15.
+  const digits = typeof digitsAsked === 'number' && Number.isFinite(digitsAsked) ? Math.min(15, Math.max(1, Math.round(digitsAsked))) : 3;
   const sep = unit === '' ? '' : ' ';
   if (value === Infinity) return `∞${sep}${unit}`;
   if (value === -Infinity) return `−∞${sep}${unit}`;

@@ -4,11 +4,12 @@ import { SERIES, type PreferredSeries } from './preferredValues';
  * The value of the chosen IEC 60063 series nearest to `value`, nearest by
  * ratio (on a log scale, as the series are spaced), e.g. 50 kΩ → 47 kΩ in E12
  * and 49.9 kΩ in E96. Non-positive or non-finite values come back unchanged:
- * there is no preferred value for them.
+ * there is no preferred value for them; so does any value for a series name
+ * that is not one of the series ("toString" is a name, not a key).
  */
 export function nearestPreferred(value: number, series: PreferredSeries): number {
-  const table = SERIES[series];
-  if (!table || !(value > 0) || !Number.isFinite(value)) return value;
+  const table = typeof series === 'string' && Object.hasOwn(SERIES, series) ? SERIES[series] : null;
+  if (!table || typeof value !== 'number' || !(value > 0) || !Number.isFinite(value)) return value;
   const decade = Math.floor(Math.log10(value));
   const base = Math.pow(10, decade);
   let best = value;

@@ -6,6 +6,7 @@ import { stageTransfer, type StageTransfer } from './stageTransfer';
 import { illinois } from '../numeric/illinois';
 import { swingOf, type SwingResult } from './swing';
 import { DB_FLOOR, decibelsOf } from './levels';
+import { shown } from '../shown';
 
 /** Drive level: the output wanted (rms, across RL or at the plate), or the input given (rms, at the grid). */
 export type DriveLevel = { readonly outputRms: number } | { readonly inputRms: number };
@@ -77,20 +78,27 @@ function inputForOutput(t: StageTransfer, target: number, cleanPeak: number, gai
   return illinois(g, 0, cleanPeak, SEARCH_REL_TOL * target, { fa: -target, start: Math.min(target / Math.abs(gain), cleanPeak) });
 }
 
-export function distortionOf(s: SolvedStage, level: DriveLevel, options: DistortionOptions = {}, precomputed?: { transfer: StageTransfer; swing: SwingResult }): Result<DistortionResult> {
-  const n = options.samples ?? DEFAULT_SAMPLES;
-  if (!isPowerOfTwo(n) || n < 32 || n > 1 << 20) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to 1048576 (got ${n})`, 'samples');
+/**
+ * Most samples per cycle: 16,384 resolves harmonics far past H9 and keeps a
+ * call near 15 ms (2^20 took up to 2 s).
+ */
+export const MAX_SAMPLES = 1 << 14;
+
+export function distortionOf(s: SolvedStage, level: DriveLevel, options: DistortionOptions | null = {}, precomputed?: { transfer: StageTransfer; swing: SwingResult }): Result<DistortionResult> {
+  if (typeof level !== 'object' || level === null) return fail('invalid-input', 'Give an output or input level', 'outputRms');
+  const n = options?.samples ?? DEFAULT_SAMPLES;
+  if (typeof n !== 'number' || !isPowerOfTwo(n) || n < 32 || n > MAX_SAMPLES) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to ${MAX_SAMPLES} (got ${String(n)})`, 'samples');
   const transfer = precomputed?.transfer ?? stageTransfer(s.checked, s.solution.op);
   const clean = precomputed?.swing ?? swingOf(s, transfer);
   const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
   const clipMessage = `Clipping: this stage is clean up to ${clean.input.rms.toPrecision(3)} V rms in, ${clean.output.rms.toPrecision(3)} V rms out; beyond that ${limit} sets in.`;
   let inputPeak: number;
   if ('inputRms' in level) {
-    if (!(Number.isFinite(level.inputRms) && level.inputRms > 0)) return fail('invalid-input', `Input level must be above 0 V rms (got ${level.inputRms})`, 'inputRms');
+    if (!(Number.isFinite(level.inputRms) && level.inputRms > 0)) return fail('invalid-input', `Input level must be above 0 V rms (got ${shown(level.inputRms)})`, 'inputRms');
     inputPeak = level.inputRms * Math.SQRT2;
     if (inputPeak > clean.inputPeak * (1 + 1e-9)) return fail('clipping', clipMessage, 'inputRms');
   } else {
-    if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${level.outputRms})`, 'outputRms');
+    if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${shown(level.outputRms)})`, 'outputRms');
     const target = level.outputRms * Math.SQRT2;
     if (target > fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES) * (1 + 1e-9)) return fail('clipping', clipMessage, 'outputRms');
     inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain);
@@ -121,7 +129,7 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
  * large-signal transfer, then an FFT. A level beyond the clean swing is a
  * 'clipping' failure naming where clipping starts.
  */
-export function distortion(design: StageDesign, level: DriveLevel, options?: DistortionOptions): Result<DistortionResult> {
+export function distortion(design: StageDesign, level: DriveLevel, options?: DistortionOptions | null): Result<DistortionResult> {
   const s = solvedStage(design);
   if ('ok' in s) return s;
   if (typeof level !== 'object' || level === null) return fail('invalid-input', 'Give an output or input level in V rms');

@@ -3,6 +3,7 @@ import { fail, type Result } from '../result';
 import type { StageDesign } from '../stage/stageDesign';
 import { solvedStage, type SolvedStage } from './analysisInput';
 import { cabs, csolveFlat, type Complex } from './complex';
+import { decibelsOf } from './levels';
 
 /**
  * Small-signal response of the stage from the source to the output, by nodal
@@ -116,7 +117,7 @@ function toPoint(freqHz: number, h: Complex): ResponsePoint {
   const mag = cabs(h);
   let phase = (Math.atan2(h[1], h[0]) * 180) / Math.PI;
   if (phase <= -180) phase += 360;
-  return { freqHz, magnitudeDb: mag > 0 ? 20 * Math.log10(mag) : -Infinity, phaseDeg: phase };
+  return { freqHz, magnitudeDb: decibelsOf(mag), phaseDeg: Number.isFinite(phase) ? phase : 0 };
 }
 
 export function responseOf(s: SolvedStage, frequenciesHz: readonly number[]): ResponsePoint[] {
@@ -126,16 +127,22 @@ export function responseOf(s: SolvedStage, frequenciesHz: readonly number[]): Re
 
 /** Log-spaced frequencies, `perDecade` to a decade, from lo to hi inclusive. */
 export function logFrequencies(loHz = 1, hiHz = 1e6, perDecade = 20): number[] {
+  const usable = (f: unknown): f is number => typeof f === 'number' && Number.isFinite(f) && f > 0;
+  // Nothing to space for a bad range or density; at most 100 a decade over 1e-3 … 1e12 Hz.
+  if (!usable(loHz) || !usable(hiHz) || !usable(perDecade) || hiHz < loHz || perDecade > 100 || loHz < 1e-3 || hiHz > 1e12) return [];
   const n = Math.round(Math.log10(hiHz / loHz) * perDecade);
   return Array.from({ length: n + 1 }, (_, k) => loHz * Math.pow(10, k / perDecade));
 }
 
-/** Magnitude (dB) and phase (degrees) of the stage's response at each frequency, source to output. */
+/** Most frequencies in one call: a Bode plot needs a few hundred. */
+export const MAX_FREQUENCIES = 10_000;
+
+/** Magnitude (dB) and phase (degrees) of the stage's response at each frequency, source to output. A null response reads DB_FLOOR. */
 export function frequencyResponse(design: StageDesign, frequenciesHz: readonly number[]): Result<{ points: ResponsePoint[]; magnitudeDb: number[]; phaseDeg: number[] }> {
   const s = solvedStage(design);
   if ('ok' in s) return s;
-  if (!Array.isArray(frequenciesHz) || frequenciesHz.some((f) => !(typeof f === 'number' && f > 0 && Number.isFinite(f)))) {
-    return fail('invalid-input', 'Frequencies must be positive numbers in Hz', 'frequencies');
+  if (!Array.isArray(frequenciesHz) || frequenciesHz.length > MAX_FREQUENCIES || frequenciesHz.some((f) => !(typeof f === 'number' && f > 0 && Number.isFinite(f)))) {
+    return fail('invalid-input', `Frequencies must be a list of at most ${MAX_FREQUENCIES} positive numbers in Hz`, 'frequencies');
   }
   const points = responseOf(s, frequenciesHz);
   return { ok: true, points, magnitudeDb: points.map((p) => p.magnitudeDb), phaseDeg: points.map((p) => p.phaseDeg) };

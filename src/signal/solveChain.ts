@@ -40,6 +40,7 @@ export interface ChainResult {
  */
 export function solveChain(links: readonly ChainLink[]): Result<ChainResult> {
   if (!Array.isArray(links) || links.length < 1 || links.length > 2) return fail('invalid-input', 'A chain has one or two links');
+  if (!links.every((l) => typeof l === 'object' && l !== null)) return fail('invalid-input', 'Every link of a chain must be a stage design', 'links');
   const first = links[0]!;
   if (first.kind !== 'common-cathode') return fail('invalid-input', 'The first link must be a common-cathode stage', 'links');
   const second = links[1];

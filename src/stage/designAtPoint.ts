@@ -34,11 +34,12 @@ export const MIN_DRAG_IA = 2e-6;
 const BOUNDARY_SLACK = 1e-6;
 
 export function designAtPlanePoint(t: PlanePointTarget): Result<PlanePointDesign> {
+  if (typeof t !== 'object' || t === null) return fail('invalid-input', 'No point given');
   const problem =
     checkTube(t.tube) ??
     checkNumber('bplus', 'B+', t.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
     checkNumber('vpk', 'Plate voltage', t.vpk, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
-    checkNumber('ia', 'Plate current', t.ia, 'A', 0, 100, { minExclusive: true });
+    checkNumber('ia', 'Plate current', t.ia, 'A', MIN_DRAG_IA, 100);
   if (problem) return problem;
   const p = modelOf(t.tube).params;
   const iaAtZeroGrid = korenPlateCurrent(p, t.vpk, 0);
@@ -69,7 +70,13 @@ export interface ReachablePoint {
  * and not below MIN_DRAG_IA. Each limit is a monotonic boundary, found by
  * bisection, so the answer is always on the reachable side.
  */
-export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia: number): ReachablePoint {
+export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia: number): Result<ReachablePoint> {
+  const problem =
+    checkTube(tube) ??
+    checkNumber('bplus', 'B+', bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
+    checkNumber('vpk', 'Plate voltage', vpk, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
+    checkNumber('ia', 'Plate current', ia, 'A', -100, 100);
+  if (problem) return problem;
   const p = modelOf(tube).params;
   let reason: string | null = null;
   let v = Math.min(Math.max(vpk, 0.5), bplus);
@@ -105,12 +112,12 @@ export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia:
     }
     if (!moved) break;
   }
-  return { vpk: v, ia: i, reason };
+  return { ok: true, vpk: v, ia: i, reason };
 }
 
 /** The grid voltage at which the tube passes ia at vpk: the Vgk read off the curves at the cursor, V. */
 export function gridVoltageAt(tube: TubeLike, vpk: number, ia: number): number | null {
-  if (!(vpk > 0) || !(ia > 0) || !Number.isFinite(vpk) || !Number.isFinite(ia)) return null;
+  if (!(vpk > 0) || !(ia > 0) || !Number.isFinite(vpk) || !Number.isFinite(ia) || checkTube(tube)) return null;
   const p = modelOf(tube).params;
   if (ia > korenPlateCurrent(p, vpk, 0)) return null; // would need a positive grid: off the family
   return gridVoltageForCurrent(p, vpk, ia);

@@ -30,13 +30,19 @@ export interface DesignAnswer {
  * from 0 at Vgk = −Va, so a bracket on [−Va, 0] holds exactly one answer
  * when Ip(Va, 0) ≥ Ia, and none otherwise (the grid would have to go positive).
  */
+/**
+ * The least plate current designed for, A: 1 µA, the solvers' own cutoff. Below
+ * it Ra = (B+ − Va)/Ia runs off to infinity (1e-307 A gave Ra = Infinity).
+ */
+export const MIN_DESIGN_IA = 1e-6;
+
 export function designFor(target: DesignTarget): Result<DesignAnswer> {
   if (typeof target !== 'object' || target === null) return fail('invalid-input', 'No target given');
   const problem =
     checkTube(target.tube) ??
     checkNumber('bplus', 'B+', target.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
     checkNumber('va', 'Plate voltage', target.va, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
-    checkNumber('ia', 'Plate current', target.ia, 'A', 0, 100, { minExclusive: true });
+    checkNumber('ia', 'Plate current', target.ia, 'A', MIN_DESIGN_IA, 100);
   if (problem) return problem;
   const { bplus, va, ia } = target;
   if (va >= bplus) {
@@ -50,5 +56,8 @@ export function designFor(target: DesignTarget): Result<DesignAnswer> {
   const root = bracketedRoot(g, -va, 0, 1e-12 * Math.max(1, va));
   if (!root.converged) return fail('no-convergence', 'No bias could be found for that point.');
   const vgk = root.x;
-  return { ok: true, ra: (bplus - va) / ia, rk: -vgk / ia, vgk };
+  const ra = (bplus - va) / ia;
+  const rk = -vgk / ia;
+  if (!(ra <= LIMITS.maxOhms && rk <= LIMITS.maxOhms)) return fail('unreachable', `That point needs more than ${LIMITS.maxOhms / 1e6} MΩ of plate or cathode resistance.`, 'ia');
+  return { ok: true, ra, rk, vgk };
 }

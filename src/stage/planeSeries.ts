@@ -58,7 +58,9 @@ export function gridsDownTo(cutoff: number, maxCurves = MAX_FAMILY_CURVES): numb
 
 /** DC load line: Vpk = B+ − Ia·(Ra + Rk), from the current axis to the voltage axis. */
 export function dcLoadLine(bplus: number, rSeries: number): PlanePoint[] {
-  if (!(rSeries > 0)) return [{ v: bplus, i: 0 }];
+  if (typeof bplus !== 'number' || !Number.isFinite(bplus) || typeof rSeries !== 'number' || Number.isNaN(rSeries)) return [];
+  // A series resistance too small to draw (a denormal) is a vertical line, as 0 Ω is.
+  if (!(rSeries > 0) || !Number.isFinite(bplus / rSeries)) return [{ v: bplus, i: 0 }];
   return [
     { v: 0, i: bplus / rSeries },
     { v: bplus, i: 0 },

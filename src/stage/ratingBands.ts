@@ -123,7 +123,8 @@ export function heaterCathodeFinding(vhk: number, rating: HeaterCathodeRating): 
 
 /** The heater–cathode rating by polarity from a record's ratings; null where there is none (directly heated). */
 export function heaterCathodeRating(r: { readonly maxHeaterCathodeVoltage: number | null; readonly maxHeaterCathodeVoltageCathodeNegative?: number }): HeaterCathodeRating | null {
-  if (r.maxHeaterCathodeVoltage === null) return null;
-  const negative = r.maxHeaterCathodeVoltageCathodeNegative;
+  const usable = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
+  if (!usable(r.maxHeaterCathodeVoltage)) return null;
+  const negative = usable(r.maxHeaterCathodeVoltageCathodeNegative) ? r.maxHeaterCathodeVoltageCathodeNegative : undefined;
   return { cathodePositive: r.maxHeaterCathodeVoltage, cathodeNegative: negative ?? r.maxHeaterCathodeVoltage, onePolarity: negative === undefined };
 }

@@ -59,16 +59,16 @@ export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
   }
   const problem =
     checkNumber('bplus', 'B+', raw.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
-    checkNumber('ra', 'Ra', raw.ra, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true }) ??
+    checkNumber('ra', 'Ra', raw.ra, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
     checkNumber('rk', 'Rk', raw.rk, 'Ω', 0, LIMITS.maxOhms) ??
-    (raw.rl === undefined ? null : checkNumber('rl', 'RL', raw.rl, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true, allowInfinity: true })) ??
+    (raw.rl === undefined ? null : checkNumber('rl', 'RL', raw.rl, 'Ω', LIMITS.minOhms, LIMITS.maxOhms, { allowInfinity: true })) ??
     (raw.vbias === undefined ? null : checkNumber('vbias', 'Grid bias', raw.vbias, 'V', -LIMITS.maxBiasVolts, LIMITS.maxBiasVolts)) ??
-    (raw.rg === undefined ? null : checkNumber('rg', 'Rg', raw.rg, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true })) ??
+    (raw.rg === undefined ? null : checkNumber('rg', 'Rg', raw.rg, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
     (raw.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', raw.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts)) ??
-    (raw.rsource === undefined ? null : checkNumber('rsource', 'Source impedance', raw.rsource, 'Ω', 0, LIMITS.maxOhms)) ??
-    (raw.cin === undefined ? null : checkNumber('cin', 'Cin', raw.cin, 'F', 0, LIMITS.maxFarads, { minExclusive: true })) ??
-    (raw.ck === undefined ? null : checkNumber('ck', 'Ck', raw.ck, 'F', 0, LIMITS.maxFarads, { minExclusive: true })) ??
-    (raw.cout === undefined ? null : checkNumber('cout', 'Cout', raw.cout, 'F', 0, LIMITS.maxFarads, { minExclusive: true }));
+    (raw.rsource === undefined || raw.rsource === 0 ? null : checkNumber('rsource', 'Source impedance (0 for an ideal source)', raw.rsource, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
+    (raw.cin === undefined ? null : checkNumber('cin', 'Cin', raw.cin, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
+    (raw.ck === undefined ? null : checkNumber('ck', 'Ck', raw.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
+    (raw.cout === undefined ? null : checkNumber('cout', 'Cout', raw.cout, 'F', LIMITS.minFarads, LIMITS.maxFarads));
   if (problem) return problem;
   if (raw.bypassed !== undefined && typeof raw.bypassed !== 'boolean') return fail('invalid-input', 'Bypass must be on or off', 'bypassed');
   return {

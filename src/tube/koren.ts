@@ -1,4 +1,5 @@
 import type { KorenTriodeParams, TriodeModel } from './types';
+import { shown } from '../shown';
 
 /**
  * Koren's triode law (N. Koren, Glass Audio vol. 8, 1996; form as in his
@@ -139,10 +140,10 @@ export function gridVoltageForCurrent(p: KorenTriodeParams, vpk: number, targetI
 export function korenParamsProblem(p: KorenTriodeParams): string | null {
   const { mu, ex, kg1, kp, kvb } = p;
   if (![mu, ex, kg1, kp, kvb].every(Number.isFinite)) return 'tube parameters must all be finite numbers';
-  if (!(mu > 0)) return `mu must be above 0 (got ${mu})`;
-  if (!(ex > 0.5 && ex < 3)) return `ex must be between 0.5 and 3 (got ${ex})`;
-  if (!(kg1 > 0)) return `kg1 must be above 0 (got ${kg1})`;
-  if (!(kp > 0)) return `kp must be above 0 (got ${kp})`;
-  if (!(kvb >= 0)) return `kvb must be 0 or more (got ${kvb})`;
+  if (!(mu > 0)) return `mu must be above 0 (got ${shown(mu)})`;
+  if (!(ex > 0.5 && ex < 3)) return `ex must be between 0.5 and 3 (got ${shown(ex)})`;
+  if (!(kg1 > 0)) return `kg1 must be above 0 (got ${shown(kg1)})`;
+  if (!(kp > 0)) return `kp must be above 0 (got ${shown(kp)})`;
+  if (!(kvb >= 0)) return `kvb must be 0 or more (got ${shown(kvb)})`;
   return null;
 }

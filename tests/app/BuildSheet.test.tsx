@@ -30,7 +30,7 @@ describe('the build sheet', () => {
     const corner = sheet.getByLabelText(/^Wanted low corner/);
     await user.clear(corner);
     await user.type(corner, '0');
-    expect(sheet.getByText('The corner frequency must be above 0 Hz (got 0 Hz)')).toBeTruthy();
+    expect(sheet.getByText('The corner frequency must be from 0.01 Hz to 1 MHz (got 0 Hz)')).toBeTruthy();
   });
 
   it('a follower chain gets an elevation when its cathode sits above the heater–cathode rating', () => {

@@ -54,7 +54,7 @@ describe('parts list', () => {
 
   it('refuses a corner frequency of 0 with a specific message', () => {
     const { checked, solution } = solved();
-    expect(capacitorsForCorner(checked, solution, 0)).toEqual({ ok: false, reason: 'invalid-input', message: 'The corner frequency must be above 0 Hz (got 0 Hz)', field: 'cornerHz' });
+    expect(capacitorsForCorner(checked, solution, 0)).toEqual({ ok: false, reason: 'invalid-input', message: 'The corner frequency must be from 0.01 Hz to 1 MHz (got 0 Hz)', field: 'cornerHz' });
   });
 });
 

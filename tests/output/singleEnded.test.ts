@@ -50,6 +50,7 @@ describe('data-sheet single-ended examples', () => {
     const s = solveOutput(tube, designFor(tube, ex));
     if (!s.ok) throw new Error(s.message);
     const full = atDrive(s, -ex.vg1);
+    if (!full.ok) throw new Error(full.message);
     const iaErr = relErr(s.op.ip, ex.ia);
     const pErr = relErr(full.power, ex.power);
     expect(Math.abs(iaErr), `idle plate current ${(s.op.ip * 1e3).toFixed(1)} mA vs ${ex.ia * 1e3} mA`).toBeLessThanOrEqual(25);

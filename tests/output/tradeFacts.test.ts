@@ -38,6 +38,7 @@ describe('facts of the trade', () => {
       const s = solveOutput(tube, { ...design(id, connection), bplus: id === '2A3' ? 250 : 300, rk: id === '2A3' ? 750 : id === '300B' ? 1000 : 250 });
       if (!s.ok) throw new Error(s.message);
       const sweep = zPrimarySweep(s, 0.05);
+      if (!sweep.ok) throw new Error(sweep.message);
       const k = sweep.rows.indexOf(sweep.best);
       expect(k, sweep.rows.map((r) => `${r.zPrimary}:${r.power.toFixed(2)}`).join(' ')).toBeGreaterThan(0);
       expect(k).toBeLessThan(sweep.rows.length - 1);

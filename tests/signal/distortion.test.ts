@@ -73,7 +73,7 @@ describe('distortion and swing', () => {
   });
 
   it('refuses a bad sample count and a non-positive level with specific messages', () => {
-    expect(distortion(stage, { outputRms: 1 }, { samples: 1000 })).toEqual({ ok: false, reason: 'invalid-input', message: 'Samples per cycle must be a power of two from 32 to 1048576 (got 1000)', field: 'samples' });
+    expect(distortion(stage, { outputRms: 1 }, { samples: 1000 })).toEqual({ ok: false, reason: 'invalid-input', message: 'Samples per cycle must be a power of two from 32 to 16384 (got 1000)', field: 'samples' });
     expect(distortion(stage, { outputRms: 0 })).toEqual({ ok: false, reason: 'invalid-input', message: 'Output level must be above 0 V rms (got 0)', field: 'outputRms' });
   });
 });

@@ -55,6 +55,6 @@ describe('frequency response', () => {
   });
 
   it('refuses frequencies that are not positive numbers', () => {
-    expect(frequencyResponse(base, [1000, -5])).toEqual({ ok: false, reason: 'invalid-input', message: 'Frequencies must be positive numbers in Hz', field: 'frequencies' });
+    expect(frequencyResponse(base, [1000, -5])).toEqual({ ok: false, reason: 'invalid-input', message: 'Frequencies must be a list of at most 10000 positive numbers in Hz', field: 'frequencies' });
   });
 });

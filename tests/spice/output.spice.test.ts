@@ -31,6 +31,7 @@ describe.runIf(run)('transformer-coupled stages agree with ngspice', () => {
     if (!s.ok) throw new Error(s.message);
     const drive = 0.8 * -s.op.vgk;
     const ours = atDrive(s, drive);
+    if (!ours.ok) throw new Error(ours.message);
     const sim = runNgspiceFull(outputNetlist(tube, d, drive));
     expectClose(s.op.vpk + s.op.vk, sim.values['v(plate)']!, { rel: 1e-3 }, 'plate voltage');
     expectClose(s.op.vk, sim.values['v(cathode)'] ?? 0, { rel: 1e-3, abs: 1e-6 }, 'cathode voltage');

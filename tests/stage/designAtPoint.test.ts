@@ -32,17 +32,19 @@ describe('designAtPlanePoint (the design under the pointer)', () => {
 
 describe('nearestReachable (where a drag may go)', () => {
   it('leaves a reachable point alone', () => {
-    expect(nearestReachable(au7, 300, 150, 5e-3)).toEqual({ vpk: 150, ia: 5e-3, reason: null });
+    expect(nearestReachable(au7, 300, 150, 5e-3)).toEqual({ ok: true, vpk: 150, ia: 5e-3, reason: null });
   });
 
   it('drops a point above the 0 V curve onto it, with the reason', () => {
     const r = nearestReachable(au7, 300, 100, 30e-3);
+    if (!r.ok) throw new Error(r.message);
     expectClose(r.ia, plateCurrent(au7, 100, 0), { rel: 1e-5 });
     expect(r.reason).toMatch(/grid would draw current/);
   });
 
   it('pulls a point beyond B+ back onto the reachable side, with the reason', () => {
     const r = nearestReachable(au7, 200, 260, 5e-3);
+    if (!r.ok) throw new Error(r.message);
     expect(r.vpk).toBeLessThan(200);
     expect(r.reason).toMatch(/load line cannot reach further right/);
     expect(designAtPlanePoint({ tube: au7, bplus: 200, vpk: r.vpk, ia: r.ia }).ok).toBe(true);
@@ -57,6 +59,7 @@ describe('nearestReachable (where a drag may go)', () => {
         fc.double({ min: -0.1, max: 0.5, noNaN: true }),
         (tube, bplus, vpk, ia) => {
           const r = nearestReachable(tube, bplus, vpk, ia);
+          if (!r.ok) throw new Error(r.message);
           const d = designAtPlanePoint({ tube, bplus, vpk: r.vpk, ia: r.ia });
           expect(d.ok, `${tube.id} ${bplus} ${vpk} ${ia} → ${JSON.stringify(r)} ${d.ok ? '' : d.message}`).toBe(true);
         },

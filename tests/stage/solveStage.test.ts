@@ -106,9 +106,10 @@ describe('solveStage failures say what is wrong', () => {
     [{ bplus: -5 }, 'supply-too-low', 'B+ must be above 0 V (got -5 V)', 'bplus'],
     [{ bplus: 0 }, 'supply-too-low', 'B+ must be above 0 V (got 0 V)', 'bplus'],
     [{ ra: Number.NaN }, 'invalid-input', 'Ra must be a number', 'ra'],
-    [{ ra: 0 }, 'invalid-input', 'Ra must be above 0 Ω (got 0 Ω)', 'ra'],
+    [{ ra: 0 }, 'invalid-input', 'Ra must be at least 1 Ω (got 0 Ω)', 'ra'],
+    [{ ra: 5e-324 }, 'invalid-input', 'Ra must be at least 1 Ω (got 5e-324 Ω)', 'ra'],
     [{ rk: -10 }, 'invalid-input', 'Rk must be at least 0 Ω (got -10 Ω)', 'rk'],
-    [{ rl: 0 }, 'invalid-input', 'RL must be above 0 Ω (got 0 Ω)', 'rl'],
+    [{ rl: 0 }, 'invalid-input', 'RL must be at least 1 Ω (got 0 Ω)', 'rl'],
     [{ bplus: Infinity }, 'invalid-input', 'B+ must be finite (got Infinity)', 'bplus'],
     [{ bplus: 50_000 }, 'invalid-input', 'B+ must be at most 10000 V (got 50000 V)', 'bplus'],
   ] as const)('%j → %s', (patch, reason, message, field) => {

@@ -1,0 +1,135 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import * as Q from '../../src/index';
+
+/**
+ * The model's promise, export by export: for any input at all (malformed
+ * records, null options, prototype keys as strings, denormals, out-of-range
+ * counts) no call throws, and no ok result carries NaN or ±Infinity in a
+ * numeric field. Drawing series (a sheet's curves, an overlay) may carry NaN
+ * gaps by design and are not walked; echoes of the caller's own input
+ * (tube, design, checked) are not either.
+ */
+const NOT_WALKED = new Set(['tube', 'design', 'checked', 'sheet', 'overlay', 'feed', 'law', 'model']);
+
+function nonFinitePath(value: unknown, path = 'result', depth = 0): string | null {
+  if (typeof value === 'number') return Number.isFinite(value) ? null : `${path} = ${value}`;
+  if (depth > 6 || value === null || typeof value !== 'object') return null;
+  if (ArrayBuffer.isView(value)) {
+    const a = value as unknown as ArrayLike<number>;
+    for (let k = 0; k < a.length; k++) if (!Number.isFinite(a[k])) return `${path}[${k}] = ${a[k]}`;
+    return null;
+  }
+  if (Array.isArray(value)) {
+    for (let k = 0; k < Math.min(value.length, 200); k++) {
+      const bad = nonFinitePath(value[k], `${path}[${k}]`, depth + 1);
+      if (bad) return bad;
+    }
+    return null;
+  }
+  for (const [k, v] of Object.entries(value)) {
+    if (NOT_WALKED.has(k)) continue;
+    const bad = nonFinitePath(v, `${path}.${k}`, depth + 1);
+    if (bad) return bad;
+  }
+  return null;
+}
+
+/**
+ * Calls f and checks the promise: no throw; an ok result holds only finite
+ * numbers, where every number passed in was finite (a pure helper may hand
+ * back an Infinity it was given, as nearestPreferred(Infinity) does).
+ */
+function keepsPromise(name: string, f: () => unknown, args: readonly unknown[]): void {
+  let r: unknown;
+  try {
+    r = f();
+  } catch (e) {
+    throw new Error(`${name} threw: ${(e as Error).message}`);
+  }
+  if (r && typeof r === 'object' && (r as { ok?: unknown }).ok === false) {
+    const msg = (r as { message?: unknown }).message;
+    expect(typeof msg === 'string' && msg.length > 5 && !/NaN|undefined/.test(msg), `${name}: ${String(msg)}`).toBe(true);
+    return;
+  }
+  if (args.some((a) => typeof a === 'number' && !Number.isFinite(a))) return;
+  const bad = nonFinitePath(r);
+  expect(bad, `${name}: ${bad}`).toBeNull();
+}
+
+const strange = fc.constantFrom<unknown>(null, undefined, '__proto__', 'constructor', 'toString', '', 'E24', {}, [], true, Symbol.iterator.toString());
+const numbers = fc.oneof(
+  fc.double(),
+  fc.constantFrom(0, -0, 5e-324, -5e-324, 1e-307, 1.7e308, -1.7e308, Number.NaN, Infinity, -Infinity, 2 ** 20, 2 ** 30, -1),
+  fc.double({ min: -1e4, max: 1e6, noNaN: true }),
+);
+const anything: fc.Arbitrary<unknown> = fc.oneof(numbers, strange, fc.string({ maxLength: 8 }));
+
+/** A valid value, or the same with one or two of its fields replaced by anything. */
+function near<T extends object>(base: T): fc.Arbitrary<unknown> {
+  const keys = Object.keys(base);
+  return fc.oneof(
+    fc.constant(base),
+    fc.tuple(fc.subarray(keys, { minLength: 1, maxLength: Math.min(2, keys.length) }), fc.array(anything, { minLength: 2, maxLength: 2 })).map(([ks, vs]) => {
+      const out: Record<string, unknown> = { ...(base as Record<string, unknown>) };
+      ks.forEach((k, i) => (out[k] = vs[i]));
+      return out;
+    }),
+    anything,
+  );
+}
+const or = <T>(good: fc.Arbitrary<T>) => fc.oneof({ weight: 3, arbitrary: good as fc.Arbitrary<unknown> }, { weight: 1, arbitrary: anything });
+
+const au7 = Q.findTube('12AU7')!;
+const el34 = Q.findOutputTube('EL34')!;
+const stage = { tube: au7, bplus: 275, ra: 27e3, rk: 1200, bypassed: true, rl: 220e3 };
+const output: Q.OutputDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130, bias: 'cathode', rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
+const solvedOut = Q.solveOutput(el34, output);
+if (!solvedOut.ok) throw new Error(solvedOut.message);
+const solvedStage = Q.solvedStage(stage);
+if ('ok' in solvedStage) throw new Error(solvedStage.message);
+const tubes = fc.oneof(fc.constantFrom<unknown>(...Q.tubeLibrary), near(au7), near(au7.model));
+const outTubes = fc.oneof(fc.constantFrom<unknown>(...Q.outputTubeLibrary), near(el34), near(el34.law));
+const solutions = near(solvedOut);
+const run = (name: string, arb: fc.Arbitrary<unknown[]>, call: (...a: never[]) => unknown, numRuns = 300) =>
+  it(`${name} keeps the promise for any input`, () => {
+    fc.assert(fc.property(arb, (args) => keepsPromise(name, () => call(...(args as never[])), args)), { numRuns });
+  });
+
+describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
+  run('solveStage', fc.tuple(near({ ...stage, tube: au7 })), Q.solveStage, 600);
+  run('solveStage (tube)', fc.tuple(tubes.map((t) => ({ ...stage, tube: t }))), Q.solveStage);
+  run('solveFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 })), Q.solveFollower);
+  run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
+  run('designAtPlanePoint', fc.tuple(near({ tube: au7, bplus: 275, vpk: 150, ia: 5e-3 })), Q.designAtPlanePoint);
+  run('nearestReachable', fc.tuple(tubes, or(fc.double({ min: 1, max: 600 })), or(fc.double({ min: -10, max: 900 })), or(fc.double({ min: -0.1, max: 0.2 }))), Q.nearestReachable);
+  run('swing', fc.tuple(near(stage)), Q.swing);
+  run('distortion', fc.tuple(near(stage), near({ outputRms: 2 }), near({ samples: 256 })), Q.distortion, 200);
+  run('frequencyResponse', fc.tuple(near(stage), or(fc.array(fc.double({ min: 0.1, max: 1e7 }), { maxLength: 20 }))), Q.frequencyResponse);
+  run('corners', fc.tuple(near({ ...stage, cin: 100e-9, rg: 1e6, rsource: 10e3, cout: 1e-6 })), Q.corners, 150);
+  run('solveChain', fc.tuple(or(fc.array(near({ kind: 'common-cathode', ...stage }), { maxLength: 3 }))), Q.solveChain);
+  run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
+  run('analyzeOutput (light)', fc.tuple(outTubes, near(output), near({ light: true })), Q.analyzeOutput, 150);
+  run('biasForPoint', fc.tuple(outTubes, near(output), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.biasForPoint);
+  run('switchBias', fc.tuple(solutions, fc.oneof(fc.constantFrom('cathode', 'fixed'), anything)), Q.switchBias);
+  run('atDrive', fc.tuple(solutions, or(fc.double({ min: 0, max: 40 })), fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.atDrive);
+  run('waveform', fc.tuple(solutions, or(fc.double({ min: 0, max: 40 })), fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.waveform);
+  run('cleanLimit', fc.tuple(solutions, fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.cleanLimit);
+  run('powerAtDistortion', fc.tuple(solutions, or(fc.double({ min: 0.001, max: 0.5 })), fc.oneof(fc.constant(undefined), anything)), Q.powerAtDistortion, 150);
+  run('powerSweep', fc.tuple(solutions, or(fc.integer({ min: 1, max: 30 }))), Q.powerSweep, 100);
+  run('zPrimarySweep', fc.tuple(solutions, fc.oneof(fc.constant(undefined), anything), or(fc.integer({ min: 2, max: 6 }))), Q.zPrimarySweep, 40);
+  run('nearestPreferred', fc.tuple(numbers, fc.oneof(fc.constantFrom('E12', 'E24', 'E96'), anything)), Q.nearestPreferred);
+  run('formatValue', fc.tuple(numbers, anything, anything), Q.formatValue);
+  run('parseValue', fc.tuple(fc.oneof(fc.string(), anything)), Q.parseValue);
+  run('sineLevel', fc.tuple(numbers), Q.sineLevel);
+  run('decibelsOf', fc.tuple(numbers), Q.decibelsOf);
+  run('decouplingFilter', fc.tuple(numbers, numbers, numbers, fc.oneof(fc.constant(() => 2e-3), fc.constant(() => Number.NaN), anything)), Q.decouplingFilter);
+  run('heaterTotals', fc.tuple(or(fc.array(near({ wiring: 'single', volts: 6.3, amps: 0.3 }), { maxLength: 3 }))), Q.heaterTotals);
+  run('droppingResistor', fc.tuple(near({ ok: true, volts: 6.3, totalAmps: 0.6, totalWatts: 3.78 }), numbers, anything), Q.droppingResistor);
+  run('heaterElevation', fc.tuple(or(fc.array(near({ name: 'stage', vk: 100, maxVhk: 200 }), { maxLength: 3 }))), Q.heaterElevation);
+  run('fitTriode', fc.tuple(or(fc.array(near({ va: 200, vg: -2, ia: 5e-3 }), { maxLength: 8 })), fc.oneof(fc.constant(undefined), near({ typical: [] }))), Q.fitTriode, 60);
+  run('logFrequencies', fc.tuple(numbers, numbers, numbers), Q.logFrequencies);
+  run('capacitorsForCorner', fc.tuple(fc.constant(solvedStage.checked), fc.constant(solvedStage.solution), numbers, anything), Q.capacitorsForCorner);
+  run('dcLoadLine', fc.tuple(anything, anything), Q.dcLoadLine);
+  run('roundUpTo', fc.tuple(fc.oneof(fc.constant([0.25, 0.5, 1, 2]), anything), numbers), Q.roundUpTo);
+});
