@@ -1,4 +1,4 @@
-import { PALETTE } from './palette';
+import { LIMIT_STROKES, PALETTE } from './palette';
 
 export interface LegendItem {
   readonly label: string;
@@ -13,7 +13,8 @@ export const VOLTAGE_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'DC load line', stroke: PALETTE.load, dash: undefined, width: 2 },
   { label: 'AC load line (with RL)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
   { label: 'Cathode bias line', stroke: PALETTE.bias, dash: '2 3', width: 1.8 },
-  { label: 'Rated dissipation, max plate voltage', stroke: PALETTE.limit, dash: '7 4', width: 1.6 },
+  { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
+  { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
   { label: 'Span of the signal at the chosen level', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
@@ -21,8 +22,9 @@ export const OUTPUT_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'Plate curves at the screen voltage as wired (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
   { label: 'DC load line (primary resistance)', stroke: PALETTE.load, dash: undefined, width: 2 },
   { label: 'AC load line (primary impedance; drag its diamond handle)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
-  { label: 'Rated plate dissipation, max plate voltage', stroke: PALETTE.limit, dash: '7 4', width: 1.6 },
-  { label: 'Clean swing (to grid current or cutoff)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
+  { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
+  { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
+  { label: 'Swing to grid current or cutoff, along the AC load line', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
 export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND }: { first: string; rival: string | null; items?: readonly LegendItem[] }) {

@@ -1,6 +1,6 @@
 import { axisBottom, axisLeft, line, select } from 'd3';
 import type { CurveSheet, PlanePoint } from '../../src/index';
-import { PALETTE } from './palette';
+import { LIMIT_STROKES, PALETTE } from './palette';
 import type { PlateScales } from './plateScales';
 
 /**
@@ -86,7 +86,7 @@ export function drawLimits(layer: SVGGElement, sheet: CurveSheet, scales: PlateS
   if (sheet.dissipation.length > 0) {
     g.append('path')
       .attr('d', planePath(scales)(sheet.dissipation as PlanePoint[]))
-      .attr('fill', 'none').attr('stroke', PALETTE.limit).attr('stroke-width', 1.6).attr('stroke-dasharray', '7 4')
+      .attr('fill', 'none').attr('stroke', PALETTE.limit).attr('stroke-width', LIMIT_STROKES.dissipation.width).attr('stroke-dasharray', LIMIT_STROKES.dissipation.dash)
       .attr('data-series', 'dissipation');
     const last = sheet.dissipation[sheet.dissipation.length - 1]!;
     g.append('text').attr('x', scales.x(last.v) - 4).attr('y', scales.y(last.i) - 6).attr('text-anchor', 'end')
@@ -98,7 +98,7 @@ export function drawLimits(layer: SVGGElement, sheet: CurveSheet, scales: PlateS
     const xv = scales.x(sheet.maxPlateVoltage);
     const [yBottom, yTop] = scales.y.range() as [number, number];
     g.append('line').attr('x1', xv).attr('x2', xv).attr('y1', yBottom).attr('y2', yTop)
-      .attr('stroke', PALETTE.limit).attr('stroke-width', 1.2).attr('stroke-dasharray', '2 4').attr('data-series', 'max-plate-voltage');
+      .attr('stroke', PALETTE.limit).attr('stroke-width', LIMIT_STROKES.maxPlateVoltage.width).attr('stroke-dasharray', LIMIT_STROKES.maxPlateVoltage.dash).attr('data-series', 'max-plate-voltage');
     // Written up the line, clear of the curve labels along the top and the load line along the bottom.
     const yText = yBottom - (yBottom - yTop) * 0.72;
     g.append('text').attr('transform', `translate(${xv - 5},${yText}) rotate(-90)`).attr('text-anchor', 'middle')

@@ -22,3 +22,9 @@ export const PALETTE = {
   /** The second tube in a comparison. */
   rival: '#2f6b3a',
 } as const;
+
+/** Line styles of the ratings limits, drawn and keyed from this one place. */
+export const LIMIT_STROKES = {
+  dissipation: { dash: '7 4', width: 1.6 },
+  maxPlateVoltage: { dash: '2 4', width: 1.2 },
+} as const;

@@ -32,7 +32,7 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
     {
       heading: 'Power and distortion',
       lines: [
-        `Clean: ${watts(a.clean.at.power)} at ${percentOf(a.clean.at.thd)} THD (to ${a.clean.limitedBy}), drive ${volts(a.clean.at.drive / Math.SQRT2)} rms`,
+        `At the onset of ${a.clean.limitedBy}: ${watts(a.clean.at.power)} at ${percentOf(a.clean.at.thd)} THD, drive ${volts(a.clean.at.drive / Math.SQRT2)} rms`,
         `Grid to 0 V: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${percentOf(a.full.harmonics[2] ?? 0)}, H3 ${percentOf(a.full.harmonics[3] ?? 0)})`,
         a.atLimit ? `Within ${percentOf(o.thdLimit)} THD: ${watts(a.atLimit.power)}` : '',
         a.zSweep ? `Best primary at this point: ${ohms(a.zSweep.best.zPrimary)} for ${watts(a.zSweep.best.power)} within ${percentOf(a.zSweep.limit)} THD` : '',

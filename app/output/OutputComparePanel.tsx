@@ -10,7 +10,7 @@ interface Row {
   readonly key: string;
   readonly value: (a: OutputAnalysis) => number | null;
   readonly show: (v: number) => string;
-  readonly diff: 'ratio' | 'difference';
+  readonly diff: 'ratio' | 'difference' | 'points';
 }
 
 const share = (v: number, rating: number | null) => (rating ? (100 * v) / rating : null);
@@ -19,13 +19,13 @@ export const OUTPUT_COMPARE_ROWS: readonly Row[] = [
   { label: 'Vpk', key: 'vpk', value: (a) => a.solution.op.vpk, show: volts, diff: 'difference' },
   { label: 'Plate current', key: 'ip', value: (a) => a.solution.op.ip, show: milliamps, diff: 'ratio' },
   { label: 'Vgk', key: 'vgk', value: (a) => a.solution.op.vgk, show: volts, diff: 'difference' },
-  { label: 'Pa / rating', key: 'pa-share', value: (a) => share(a.solution.op.pa, a.solution.tube.ratings.maxPlateDissipation), show: (v) => `${v.toFixed(0)} %`, diff: 'difference' },
-  { label: 'Pg2 / rating', key: 'pg2-share', value: (a) => (a.solution.op.connection === 'triode' ? null : share(a.solution.op.pg2, a.solution.tube.ratings.maxScreenDissipation)), show: (v) => `${v.toFixed(0)} %`, diff: 'difference' },
+  { label: 'Pa / rating', key: 'pa-share', value: (a) => share(a.solution.op.pa, a.solution.tube.ratings.maxPlateDissipation), show: (v) => `${v.toFixed(0)} %`, diff: 'points' },
+  { label: 'Pg2 / rating', key: 'pg2-share', value: (a) => (a.solution.op.connection === 'triode' ? null : share(a.solution.op.pg2, a.solution.tube.ratings.maxScreenDissipation)), show: (v) => `${v.toFixed(0)} %`, diff: 'points' },
   { label: 'rp as wired', key: 'rp', value: (a) => a.solution.op.rp, show: ohms, diff: 'ratio' },
   { label: 'gm', key: 'gm', value: (a) => a.solution.op.gm, show: mAPerV, diff: 'ratio' },
   { label: 'Damping factor', key: 'damping', value: (a) => a.dampingFactor, show: (v) => plain(v, 2), diff: 'ratio' },
-  { label: 'Clean power', key: 'clean', value: (a) => a.clean.at.power, show: watts, diff: 'ratio' },
-  { label: 'THD at clean power', key: 'clean-thd', value: (a) => a.clean.at.thd * 100, show: (v) => `${plain(v, 2)} %`, diff: 'ratio' },
+  { label: 'Power at grid-current or cutoff onset', key: 'clean', value: (a) => a.clean.at.power, show: watts, diff: 'ratio' },
+  { label: 'THD at that onset', key: 'clean-thd', value: (a) => a.clean.at.thd * 100, show: (v) => `${plain(v, 2)} %`, diff: 'ratio' },
   { label: 'Power within the THD limit', key: 'limit', value: (a) => a.atLimit?.power ?? null, show: watts, diff: 'ratio' },
   { label: 'Best primary Z at the limit', key: 'best-z', value: (a) => a.zSweep?.best.zPrimary ?? null, show: ohms, diff: 'ratio' },
 ];

@@ -40,7 +40,7 @@ export function OutputFigures() {
         <Figure name="turns" label="Turns ratio" value={`${plain(a.turnsRatio, 3)} : 1`} chars={6.5} />
       </dl>
       <dl className="figure-group">
-        <Figure name="clean-power" label={`Clean power (to ${a.clean.limitedBy})`} value={`${watts(a.clean.at.power)} at ${percent(a.clean.at.thd)} THD`} chars={20.5} />
+        <Figure name="clean-power" label={`Power at ${a.clean.limitedBy} onset`} value={`${watts(a.clean.at.power)} at ${percent(a.clean.at.thd)} THD`} chars={20.5} />
         <Figure name="full-power" label="Grid driven to 0 V" value={`${watts(a.full.power)} at ${percent(a.full.thd)} THD`} chars={20.5} />
         <Figure
           name="limit-power"

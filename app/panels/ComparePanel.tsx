@@ -11,8 +11,8 @@ interface Row {
   readonly key: string;
   readonly value: (a: Analysis) => number | null;
   readonly show: (v: number) => string;
-  /** Differences as a ratio (for quantities that scale) or a plain difference. */
-  readonly diff: 'ratio' | 'difference';
+  /** Differences as a ratio (for quantities that scale), a plain difference, or percentage points (for shares in %). */
+  readonly diff: 'ratio' | 'difference' | 'points';
 }
 
 export const COMPARE_ROWS: readonly Row[] = [
@@ -20,7 +20,7 @@ export const COMPARE_ROWS: readonly Row[] = [
   { label: 'Ia', key: 'ia', value: (a) => a.solution.op.ia, show: milliamps, diff: 'ratio' },
   { label: 'Vgk', key: 'vgk', value: (a) => a.solution.op.vgk, show: volts, diff: 'difference' },
   { label: 'Pa', key: 'pa', value: (a) => a.solution.op.pa, show: watts, diff: 'ratio' },
-  { label: 'Pa / rating', key: 'pa-share', value: (a) => (100 * a.solution.op.pa) / a.tube.ratings.maxPlateDissipation, show: (v) => `${v.toFixed(0)} %`, diff: 'difference' },
+  { label: 'Pa / rating', key: 'pa-share', value: (a) => (100 * a.solution.op.pa) / a.tube.ratings.maxPlateDissipation, show: (v) => `${v.toFixed(0)} %`, diff: 'points' },
   { label: 'μ', key: 'mu', value: (a) => a.solution.mu, show: (v) => plain(v), diff: 'ratio' },
   { label: 'rp', key: 'rp', value: (a) => a.solution.rp, show: ohms, diff: 'ratio' },
   { label: 'gm', key: 'gm', value: (a) => a.solution.gm, show: mAPerV, diff: 'ratio' },
@@ -30,9 +30,14 @@ export const COMPARE_ROWS: readonly Row[] = [
   { label: 'THD at the level', key: 'thd', value: (a) => (a.signal.distortion.ok ? a.signal.distortion.thdPercent : null), show: (v) => `${plain(v)} %`, diff: 'ratio' },
 ];
 
-/** The second design's value against the first: a percentage for quantities that scale, else a signed difference. */
+/**
+ * The second design's value against the first: a percentage for quantities
+ * that scale, percentage points between two shares (20 % → 9 % is −11
+ * points, not −11 %), else a signed difference.
+ */
 export function difference(row: Pick<Row, 'show' | 'diff'>, a: number | null, b: number | null): string {
   if (a === null || b === null) return '—';
+  if (row.diff === 'points') return `${b >= a ? '+' : '−'}${Math.abs(b - a).toFixed(0)} points`;
   if (row.diff === 'ratio') return a === 0 ? '—' : `${b / a >= 1 ? '+' : '−'}${Math.abs((b / a - 1) * 100).toFixed(0)} %`;
   const d = b - a;
   return `${d >= 0 ? '+' : '−'}${row.show(Math.abs(d))}`.replace('−−', '−');

@@ -57,7 +57,14 @@ export interface OutputOverlay {
   readonly point: PlanePoint;
   /** Where the AC load line's slope handle sits. */
   readonly loadHandle: PlanePoint;
-  /** The stretch of the AC load line the clean swing covers. */
+  /**
+   * The stretch of the AC load line the clean swing covers, drawn on the line
+   * itself: its ends are the plate-voltage extremes, each at the current the
+   * line gives there. The line is the primary's current referred to the
+   * plate; in ultralinear the plate current proper departs from it by the
+   * screen's share of the winding (a few mA), so plotting the plate
+   * current's extremes would put the band beside the line it belongs to.
+   */
   readonly swing: readonly PlanePoint[];
 }
 
@@ -71,7 +78,8 @@ export function outputOverlay(s: OutputSolution, extent: PlateExtent, swing: { v
   // The handle sits 60 % of the way from the point to where the line leaves the chart on the right.
   const right = acLoad[acLoad.length - 1] ?? { v: vpk, i: ip };
   const loadHandle = { v: vpk + 0.6 * (right.v - vpk), i: ip + 0.6 * (right.i - ip) };
-  const sw = swing ? [{ v: swing.vpkMin, i: swing.ipMax }, { v: swing.vpkMax, i: swing.ipMin }] : [];
+  const onLine = (v: number) => ({ v, i: ip - (v - vpk) / zt });
+  const sw = swing ? [onLine(swing.vpkMin), onLine(swing.vpkMax)] : [];
   return { dcLoad, acLoad, point: { v: vpk, i: ip }, loadHandle, swing: sw };
 }
 

@@ -25,6 +25,8 @@ export function formatValue(value: number, unit = '', digitsAsked = 3): string {
   if (!Number.isFinite(value)) return '—';
   if (value === 0) return `0${sep}${unit}`;
   const abs = Math.abs(value);
+  // Frequencies below 1 Hz read as decimals: "0.91 Hz", never "913 mHz" (which reads as megahertz at a glance).
+  if (unit === 'Hz' && abs < 1 && abs >= 1e-3) return `${String(Number(value.toPrecision(digits))).replace('-', '−')}${sep}${unit}`;
   let [scale, prefix] = PREFIXES[PREFIXES.length - 1]!;
   for (const [s, p] of PREFIXES) {
     if (abs >= s * (1 - 5e-4 * Math.pow(10, 3 - digits))) {

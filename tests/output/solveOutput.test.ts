@@ -92,3 +92,18 @@ describe('output stage operating point', () => {
     );
   });
 });
+
+describe('the clean-swing band on the chart', () => {
+  it('lies on the AC load line and through the operating point, in ultralinear too (where the plate current departs from the line by the screen share)', async () => {
+    const { analyzeOutput, findOutputTube } = await import('../../src/index');
+    const d = { tubeId: 'EL34', connection: 'ultralinear' as const, bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130, bias: 'cathode' as const, rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
+    const a = analyzeOutput(findOutputTube('EL34')!, d, { light: true });
+    if (!a.ok) throw new Error(a.message);
+    const { vpk, ip } = a.solution.op;
+    const zt = d.zPrimary + d.rPrimary;
+    const [lo, hi] = a.overlay.swing;
+    for (const p of [lo!, hi!]) expect(Math.abs(p.i - (ip - (p.v - vpk) / zt))).toBeLessThan(1e-9);
+    expect(lo!.v).toBeLessThan(vpk);
+    expect(hi!.v).toBeGreaterThan(vpk);
+  });
+});

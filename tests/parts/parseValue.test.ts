@@ -48,6 +48,13 @@ describe('parseValue reads the trade notation', () => {
 });
 
 describe('formatValue', () => {
+  it('writes sub-hertz frequencies as decimals, never as millihertz (which reads as megahertz at a glance)', () => {
+    expect(formatValue(0.913, 'Hz')).toBe('0.913 Hz');
+    expect(formatValue(0.5, 'Hz')).toBe('0.5 Hz');
+    expect(formatValue(913, 'Hz')).toBe('913 Hz');
+    expect(formatValue(0.913, 'V')).toBe('913 mV');
+  });
+
   it.each([
     [4700, 'Ω', '4.7 kΩ'], [1e-7, 'F', '100 nF'], [999.7, 'V', '1 kV'], [0.0012, 'A', '1.2 mA'], [2.2e-6, 'F', '2.2 µF'],
     [0, 'V', '0 V'], [Infinity, 'Ω', '∞ Ω'], [Number.NaN, 'V', '—'], [-8.5, 'V', '−8.5 V'], [68e3, 'Ω', '68 kΩ'], [1.5e6, 'Ω', '1.5 MΩ'],
