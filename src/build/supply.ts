@@ -118,7 +118,7 @@ export interface DecouplingResult {
  * low-pass (Horowitz & Hill, The Art of Electronics, 3rd ed., §1.7).
  */
 export function decouplingFilter(railVolts: number, r: number, c: number, currentAt: (bplus: number) => number | null): Result<DecouplingResult> {
-  if (!(railVolts > 0) || !Number.isFinite(railVolts)) return fail('invalid-input', `The supply rail must be above 0 V (got ${shown(railVolts)} V)`, 'rail');
+  if (!(railVolts > 0) || !(railVolts <= 10_000)) return fail('invalid-input', `The supply rail must be above 0 V and at most 10 kV (got ${shown(railVolts)} V)`, 'rail');
   if (!(r >= 0) || !(r <= 1e9)) return fail('invalid-input', `The filter resistor must be from 0 Ω to 1 GΩ (got ${shown(r)} Ω)`, 'filterR');
   if (!(c >= 1e-12) || !(c <= 10)) return fail('invalid-input', `The filter capacitor must be from 1 pF to 10 F (got ${shown(c)} F)`, 'filterC');
   if (typeof currentAt !== 'function') return fail('invalid-input', 'Give the stage\'s current as a function of its B+', 'current');

@@ -4,6 +4,7 @@ import { solvedStage, type SolvedStage } from './analysisInput';
 import { cabs } from './complex';
 import { logFrequencies, responseAt } from './frequencyResponse';
 import { illinois } from '../numeric/illinois';
+import { decibelsOf } from './levels';
 
 export interface Corners {
   /** Lower −3 dB frequency, Hz; null when the response stays flat down to SCAN_LO_HZ (direct coupling). */
@@ -54,7 +55,7 @@ export function cornersOf(s: SolvedStage): Corners {
       break;
     }
   }
-  return { lowHz, highHz, midbandGain: mid, midbandDb: 20 * Math.log10(mid) };
+  return { lowHz, highHz, midbandGain: mid, midbandDb: decibelsOf(mid) };
 }
 
 /** The stage's −3 dB points from source to output. */

@@ -87,7 +87,7 @@ export const MAX_SAMPLES = 1 << 14;
 export function distortionOf(s: SolvedStage, level: DriveLevel, options: DistortionOptions | null = {}, precomputed?: { transfer: StageTransfer; swing: SwingResult }): Result<DistortionResult> {
   if (typeof level !== 'object' || level === null) return fail('invalid-input', 'Give an output or input level', 'outputRms');
   const n = options?.samples ?? DEFAULT_SAMPLES;
-  if (typeof n !== 'number' || !isPowerOfTwo(n) || n < 32 || n > MAX_SAMPLES) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to ${MAX_SAMPLES} (got ${String(n)})`, 'samples');
+  if (typeof n !== 'number' || !isPowerOfTwo(n) || n < 32 || n > MAX_SAMPLES) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to ${MAX_SAMPLES} (got ${shown(n)})`, 'samples');
   const transfer = precomputed?.transfer ?? stageTransfer(s.checked, s.solution.op);
   const clean = precomputed?.swing ?? swingOf(s, transfer);
   const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
