@@ -47,6 +47,9 @@ export interface CheckedStage {
   readonly cout: number | null;
 }
 
+/** An Rk below this is a short to ground, Ω. */
+export const RK_WIRE_OHMS = 1e-6;
+
 export const STAGE_DEFAULTS = { bypassed: true, rl: Infinity, vbias: 0, heaterVolts: 0 } as const;
 
 /** Validates a stage design once, at the edge; the solvers then compute on checked input. */
@@ -75,7 +78,8 @@ export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
     tube: raw.tube,
     bplus: raw.bplus,
     ra: raw.ra,
-    rk: raw.rk,
+    // Under a micro-ohm Rk is a wire: taken as 0, so a denormal never becomes an infinite conductance.
+    rk: raw.rk < RK_WIRE_OHMS ? 0 : raw.rk,
     // A real bypass capacitor means the cathode is bypassed at midband; its corner shows in the response.
     bypassed: raw.ck !== undefined ? true : (raw.bypassed ?? STAGE_DEFAULTS.bypassed),
     rl: raw.rl ?? STAGE_DEFAULTS.rl,
