@@ -78,7 +78,7 @@ export { harmonicAmplitudes, fftInPlace } from './signal/fft';
 export { transferCurve, swingPath } from './signal/transferCurve';
 export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPointError } from './fit/fitTriode';
 export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';
-export { stagePartsList, capacitorsForCorner, resistorLine, capacitorLine, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
+export { stagePartsList, capacitorsForCorner, capacitorForCorner, bypassResistance, resistorLine, capacitorLine, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
 export { productionSpread, seededRandom, type Spread, type SpreadSample } from './build/spread';
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';

@@ -1,7 +1,7 @@
 import { formatValue } from '../../src/index';
 import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../panels/ComparePanel';
-import { buildSheetOf } from '../store/buildSheet';
+import { buildSheetOf, railOf } from '../store/buildSheet';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
@@ -74,7 +74,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
       ...build.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
       ...build.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
       build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
-      build.filter.ok ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(s.buildInputs.railVolts)}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',
+      build.filter.ok ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',
     ].filter(Boolean),
   });
   const r = s.rivalAnalysis;

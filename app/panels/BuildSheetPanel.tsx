@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { farads, milliamps, ohms, plain, volts, watts } from '../format';
-import { buildSheetOf } from '../store/buildSheet';
+import { buildSheetOf, railOf } from '../store/buildSheet';
 import { useWorkbench } from '../store/StoreProvider';
 import { elevationAdvice } from './elevationAdvice';
 
@@ -25,6 +25,7 @@ function NumberInput({ label, value, unit, onValue, min }: { label: string; valu
 export function BuildSheetPanel() {
   const sheet = useWorkbench(buildSheetOf);
   const inputs = useWorkbench((s) => s.buildInputs);
+  const rail = useWorkbench(railOf);
   const setInputs = useWorkbench((s) => s.setBuildInputs);
   const editField = useWorkbench((s) => s.editField);
   const settleField = useWorkbench((s) => s.settleField);
@@ -96,7 +97,7 @@ export function BuildSheetPanel() {
       ) : <p className="field-error">{sheet.elevation.message}</p>}
       <h3 className="subhead">B+ decoupling filter</h3>
       <div className="option-row">
-        <NumberInput label="Supply rail" unit="V" value={inputs.railVolts} min={1} onValue={(v) => setInputs({ railVolts: v })} />
+        <NumberInput label={inputs.railVolts === null ? 'Supply rail (follows B+)' : 'Supply rail'} unit="V" value={rail} min={1} onValue={(v) => setInputs({ railVolts: v })} />
         <NumberInput label="Series R" unit="Ω" value={inputs.filterR} min={0} onValue={(v) => setInputs({ filterR: v })} />
         <NumberInput label="Shunt C" unit="µF" value={inputs.filterC * 1e6} min={0.001} onValue={(v) => setInputs({ filterC: v / 1e6 })} />
       </div>

@@ -1,5 +1,5 @@
 import {
-  capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
+  bypassResistance, capacitorForCorner, capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
   solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
   type Failure, type HeaterOption, type HeaterPlan, type ResistorLine, type Spread, type TubeRecord,
 } from '../../src/index';
@@ -13,13 +13,14 @@ export interface BuildInputs {
   readonly heaterSupplyVolts: number;
   /** Heater wiring chosen per tube type (by id); default the first option. */
   readonly heaterWiring: Readonly<Record<string, string>>;
-  readonly railVolts: number;
+  /** The rail ahead of the decoupling filter, V; null follows the design's B+ until the user sets one. */
+  readonly railVolts: number | null;
   readonly filterR: number;
   readonly filterC: number;
   readonly showSpread: boolean;
 }
 
-export const DEFAULT_BUILD: BuildInputs = { cornerHz: 5, heaterSupplyVolts: 12.6, heaterWiring: {}, railVolts: 300, filterR: 4.7e3, filterC: 47e-6, showSpread: true };
+export const DEFAULT_BUILD: BuildInputs = { cornerHz: 5, heaterSupplyVolts: 12.6, heaterWiring: {}, railVolts: null, filterR: 4.7e3, filterC: 47e-6, showSpread: true };
 
 export interface BuildSheet {
   readonly resistors: readonly ResistorLine[];
@@ -44,6 +45,9 @@ const lastSheet = new WeakMap<object, BuildSheet>();
  * The build sheet of the current design, computed by the model once per
  * (analysis, inputs) pair and remembered, so panels can read it freely.
  */
+/** The rail the decoupling filter hangs from: the user's, or the design's B+. */
+export const railOf = (s: WorkbenchState) => s.buildInputs.railVolts ?? s.design.bplus;
+
 export function buildSheetOf(s: WorkbenchState): BuildSheet {
   const hit = cache.get(s.analysis);
   if (hit && hit.inputs === s.buildInputs) return hit.sheet;
@@ -69,11 +73,19 @@ function compute(s: WorkbenchState): BuildSheet {
   const capacitors = [...parts.capacitors];
   const link = s.analysis.signal.chain?.ok ? s.analysis.signal.chain.links[1] : undefined;
   if (link) {
+    // Each stage's capacitors with that stage's own voltages; values the design does not hold are sized for the wanted corner.
     const ia2 = link.op.ia;
+    const forCorner = (r: number) => capacitorForCorner(r, inp.cornerHz, 'E12').preferred;
     if (link.kind === 'common-cathode') {
       resistors.push(resistorLine('Ra2', 'stage 2 plate load', d.stage2.ra, ia2, d.series));
       resistors.push(resistorLine('Rg2', 'stage 2 grid leak', d.stage2.rg, 0, d.series));
-      capacitors.push(capacitorLine('Cc', 'between the stages', null, sol.op.va, d.bplus, '+ to stage 1\'s plate'));
+      capacitors.push(capacitorLine('Cc', 'between the stages', forCorner(sol.zout + d.stage2.rg), sol.op.va, d.bplus, '+ to stage 1\'s plate'));
+      const rLoad2 = Number.isFinite(d.rl) ? (d.stage2.ra * d.rl) / (d.stage2.ra + d.rl) : d.stage2.ra;
+      capacitors.push(capacitorLine('Ck2', 'stage 2 cathode bypass', forCorner(bypassResistance(d.stage2.rk, link.mu, link.rp, rLoad2)), link.op.vk, 0, '+ to the cathode'));
+      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', 'output coupling from stage 2', d.cout, link.op.va, d.bplus, '+ to stage 2\'s plate'));
+    } else if (d.cout !== null || Number.isFinite(d.rl)) {
+      // Cold, the follower passes no current; as it warms its cathode rises toward its grid, which sits at stage 1's plate.
+      capacitors.push(capacitorLine('Cout', 'output coupling from the follower\'s cathode', d.cout, link.op.vk, d.bplus, '+ to the cathode'));
     }
     resistors.push(resistorLine('Rk2', link.kind === 'follower' ? 'follower cathode load' : 'stage 2 cathode bias', d.stage2.rk, ia2, d.series));
   }
@@ -91,7 +103,7 @@ function compute(s: WorkbenchState): BuildSheet {
   const stages = [{ name: 'stage 1', vk: sol.op.vk, ...hk(tube1) }];
   if (link) stages.push({ name: 'stage 2', vk: link.op.vk, ...hk(lookupTube(d.stage2.tubeId)!) });
   const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0);
-  const filter = decouplingFilter(inp.railVolts, inp.filterR, inp.filterC, (b) => {
+  const filter = decouplingFilter(railOf(s), inp.filterR, inp.filterC, (b) => {
     const r = solveStage({ ...stage, bplus: b });
     return r.ok ? r.op.ia + (link?.op.ia ?? 0) : null;
   });

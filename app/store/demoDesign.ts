@@ -1,4 +1,5 @@
 import type { BenchDesign } from './analysis';
+import { autoTitle } from './autoTitle';
 
 /**
  * The design the bench opens on: a line stage of our own making. A 12AU7
@@ -43,4 +44,5 @@ export const DEMO_DESIGN: BenchDesign = {
   },
 };
 
-export const DEMO_TITLE = 'Line stage, 12AU7 into a 220 k level control';
+/** The demo's title is its automatic one, so it follows the first change the user makes. */
+export const DEMO_TITLE = autoTitle(DEMO_DESIGN);

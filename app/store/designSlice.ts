@@ -4,6 +4,7 @@ import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeRival, sharedWindow } from './compareSlice';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
 import { customTubes } from '../keep/customTubes';
+import { autoTitle } from './autoTitle';
 import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 import { MAX_TITLE_CHARS } from '../keep/designFile';
 import { FIELD_NAMES, FIELDS, type FieldName } from './fields';
@@ -26,6 +27,8 @@ export interface DesignSlice {
   design: BenchDesign;
   /** The design's name, for the page and the build card. */
   title: string;
+  /** True once the user has typed a title; until then (and after clearing it) the title follows the design. */
+  titleTyped: boolean;
   setTitle: (title: string) => void;
   analysis: Analysis;
   /** The text in each input box: what the user typed, or the design's value. */
@@ -103,7 +106,11 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   refreshTubes: () => set({ tubes: allSummaries() }),
   design: DEMO_DESIGN,
   title: DEMO_TITLE,
-  setTitle: (title) => set({ title: title.slice(0, MAX_TITLE_CHARS) }),
+  titleTyped: false,
+  setTitle: (title) => {
+    const typed = title.trim() !== '';
+    set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
+  },
   analysis: initialAnalysis(),
   drafts: draftsFor(DEMO_DESIGN),
   errors: {},
@@ -140,7 +147,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
     const errors = { ...s.errors };
     for (const f of FIELD_NAMES) if (FIELDS[f].get(next) !== FIELDS[f].get(s.design) || f === opts.typedField) delete errors[f];
-    set({ ...patch, design: next, drafts, errors });
+    set({ ...patch, design: next, drafts, errors, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
     return null;
   },
 
@@ -193,7 +200,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   loadDocument: (doc) => {
     const failure = get().commit(doc.design);
     if (failure) return failure;
-    set({ title: doc.title.slice(0, MAX_TITLE_CHARS), errors: {} });
+    // A title that is the design's own automatic one keeps following it; any other was typed.
+    const typed = doc.title.trim() !== '' && doc.title !== autoTitle(doc.design);
+    set({ title: typed ? doc.title.slice(0, MAX_TITLE_CHARS) : autoTitle(doc.design), titleTyped: typed, errors: {} });
     return null;
   },
 

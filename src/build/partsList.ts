@@ -118,17 +118,25 @@ export function capacitorsForCorner(d: CheckedStage, s: StageSolution, cornerHz:
   if (!(cornerHz >= 0.01 && cornerHz <= 1e6)) return fail('invalid-input', `The corner frequency must be from 0.01 Hz to 1 MHz (got ${shown(cornerHz)} Hz)`, 'cornerHz');
   if (typeof series !== 'string' || !Object.hasOwn(SERIES, series)) return fail('invalid-input', 'Choose the E12, E24 or E96 series', 'series');
   if (typeof s !== 'object' || s === null || typeof d !== 'object' || d === null || !(s.rp > 0) || !(s.zout > 0)) return fail('invalid-input', 'Give a checked stage and its solution', 'stage');
-  const pick = (resistance: number): CapacitorForCorner => {
-    const exact = 1 / (2 * Math.PI * cornerHz * resistance);
-    const preferred = preferredAtOrAbove(exact, series);
-    return { exact, preferred, cornerHz: 1 / (2 * Math.PI * preferred * resistance), resistance };
-  };
-  const rLoad = Number.isFinite(d.rl) ? (d.ra * d.rl) / (d.ra + d.rl) : d.ra;
-  const intoCathode = (s.rp + rLoad) / (s.mu + 1);
+  const pick = (resistance: number) => capacitorForCorner(resistance, cornerHz, series);
   return {
     ok: true,
     cin: d.rg !== null ? pick(d.rsource + d.rg) : null,
     cout: Number.isFinite(d.rl) ? pick(s.zout + d.rl) : null,
-    ck: d.rk > 0 ? pick((d.rk * intoCathode) / (d.rk + intoCathode)) : null,
+    // An unbypassed stage has no bypass capacitor to size.
+    ck: d.bypassed && d.rk > 0 ? pick(bypassResistance(d.rk, s.mu, s.rp, Number.isFinite(d.rl) ? (d.ra * d.rl) / (d.ra + d.rl) : d.ra)) : null,
   };
+}
+
+/** The capacitor for a first-order corner against a resistance: C = 1/(2π·f·R), then the next preferred value up. */
+export function capacitorForCorner(resistance: number, cornerHz: number, series: PreferredSeries): CapacitorForCorner {
+  const exact = 1 / (2 * Math.PI * cornerHz * resistance);
+  const preferred = preferredAtOrAbove(exact, series);
+  return { exact, preferred, cornerHz: 1 / (2 * Math.PI * preferred * resistance), resistance };
+}
+
+/** What a cathode bypass capacitor works against: Rk ∥ (rp + R_load)/(μ + 1) (Langford-Smith, RDH4, ch. 12). */
+export function bypassResistance(rk: number, mu: number, rp: number, rLoad: number): number {
+  const intoCathode = (rp + rLoad) / (mu + 1);
+  return (rk * intoCathode) / (rk + intoCathode);
 }

@@ -1,0 +1,70 @@
+import { describe, expect, it } from 'vitest';
+import { createWorkbenchStore } from '../../../app/store/workbenchStore';
+
+describe('the design title', () => {
+  it('follows the design until the user types one: a 2A3 output stage is never called a line stage', () => {
+    const store = createWorkbenchStore();
+    expect(store.getState().title).toBe('12AU7 voltage stage, B+ 275 V into 220 kΩ');
+    store.getState().setStageKind('output');
+    store.getState().chooseOutputTube('2A3');
+    expect(store.getState().title).toMatch(/^2A3 single-ended output, triode-connected, B\+ 330 V/);
+  });
+
+  it('a typed title stays through changes; clearing it hands the title back to the design', () => {
+    const store = createWorkbenchStore();
+    store.getState().setTitle('Phono front end, left channel');
+    store.getState().editField('bplus', '300');
+    expect(store.getState().title).toBe('Phono front end, left channel');
+    store.getState().setTitle('');
+    expect(store.getState().title).toBe('12AU7 voltage stage, B+ 300 V into 220 kΩ');
+  });
+});
+
+describe('the B+ decoupling helper', () => {
+  it('hangs from the design\'s B+ until the user sets a rail, and the card says so', async () => {
+    const { buildSheetOf, railOf } = await import('../../../app/store/buildSheet');
+    const { cardSections } = await import('../../../app/export/buildCard');
+    const store = createWorkbenchStore();
+    store.getState().editField('bplus', '370');
+    store.getState().settleAnalysis();
+    expect(railOf(store.getState())).toBe(370);
+    expect(buildSheetOf(store.getState()).filter.ok).toBe(true);
+    expect(cardSections(store.getState()).flatMap((x) => x.lines).join('\n')).toMatch(/from 370 V/);
+    store.getState().setBuildInputs({ railVolts: 400 });
+    expect(railOf(store.getState())).toBe(400);
+  });
+});
+
+describe('the capacitor table with two stages', () => {
+  it('a follower keeps its output capacitor, at the follower cathode\'s voltage', async () => {
+    const { buildSheetOf } = await import('../../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    store.getState().setStage2({ kind: 'follower' });
+    const s = store.getState();
+    const chain = s.analysis.signal.chain;
+    if (!chain?.ok) throw new Error('chain');
+    const cout = buildSheetOf(s).capacitors.find((c) => c.ref === 'Cout');
+    expect(cout?.volts).toBe(chain.links[1]!.op.vk);
+  });
+
+  it('a second gain stage lists Cc, its own bypass and its output capacitor with values and its own voltages', async () => {
+    const { buildSheetOf } = await import('../../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    store.getState().setStage2({ kind: 'common-cathode' });
+    const s = store.getState();
+    const chain = s.analysis.signal.chain;
+    if (!chain?.ok) throw new Error('chain');
+    const caps = Object.fromEntries(buildSheetOf(s).capacitors.map((c) => [c.ref, c]));
+    expect(caps.Cc?.value).toBeGreaterThan(0);
+    expect(caps.Ck2?.volts).toBe(chain.links[1]!.op.vk);
+    expect(caps.Cout?.volts).toBe(chain.links[1]!.op.va);
+  });
+
+  it('the low-corner helper proposes no bypass capacitor for an unbypassed stage', async () => {
+    const { buildSheetOf } = await import('../../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    store.getState().setBypassed(false);
+    const f = buildSheetOf(store.getState()).forCorner;
+    expect(f.ok && f.ck).toBeNull();
+  });
+});
