@@ -80,6 +80,7 @@ export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPo
 export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';
 export { stagePartsList, capacitorsForCorner, capacitorForCorner, bypassResistance, resistorLine, capacitorLine, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
 export { productionSpread, seededRandom, type Spread, type SpreadSample } from './build/spread';
+export { envelopesOf, type EnvelopeCount } from './build/envelopes';
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';
 export { parseTypicalCsv } from './fit/parseTypicalCsv';

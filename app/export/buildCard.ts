@@ -73,6 +73,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
     lines: [
       ...build.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
       ...build.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
+      `Tubes: ${build.tubes.map((t) => `${t.envelopes} × ${t.tube.id} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`).join(', ')}`,
       build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
       build.filter.ok ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',
     ].filter(Boolean),

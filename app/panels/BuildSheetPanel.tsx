@@ -80,7 +80,7 @@ export function BuildSheetPanel() {
       <h3 className="subhead">Heaters</h3>
       {sheet.tubes.map((t) => (
         <div className="option-row" key={t.tube.id}>
-          <label htmlFor={`${id}-${t.tube.id}`}>{t.tube.id}</label>
+          <label htmlFor={`${id}-${t.tube.id}`}>{`${t.tube.id}: ${t.envelopes} envelope${t.envelopes === 1 ? '' : 's'} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`}</label>
           <select id={`${id}-${t.tube.id}`} value={t.chosen.wiring} onChange={(e) => setInputs({ heaterWiring: { ...inputs.heaterWiring, [t.tube.id]: e.target.value } })}>
             {t.options.map((o) => <option key={o.wiring} value={o.wiring}>{`${o.volts} V, ${o.amps} A (${o.wiring})`}</option>)}
           </select>

@@ -1,5 +1,5 @@
 import {
-  bypassResistance, capacitorForCorner, capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
+  bypassResistance, capacitorForCorner, envelopesOf, capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
   solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
   type Failure, type HeaterOption, type HeaterPlan, type ResistorLine, type Spread, type TubeRecord,
 } from '../../src/index';
@@ -27,7 +27,7 @@ export interface BuildSheet {
   readonly capacitors: readonly CapacitorLine[];
   readonly forCorner: ({ ok: true; cin: CapacitorForCorner | null; cout: CapacitorForCorner | null; ck: CapacitorForCorner | null }) | Failure;
   readonly spread: ({ ok: true } & Spread) | Failure;
-  readonly tubes: readonly { tube: TubeRecord; options: readonly HeaterOption[]; chosen: HeaterOption }[];
+  readonly tubes: readonly { tube: TubeRecord; options: readonly HeaterOption[]; chosen: HeaterOption; sectionsUsed: number; envelopes: number }[];
   readonly heaters: ({ ok: true } & HeaterPlan) | Failure;
   readonly dropper: ({ ok: true } & DroppingResistor) | Failure | null;
   readonly elevation: { ok: true; lo: number | null; hi: number | null; suggested: number; groundedOk: boolean } | Failure;
@@ -89,12 +89,13 @@ function compute(s: WorkbenchState): BuildSheet {
     }
     resistors.push(resistorLine('Rk2', link.kind === 'follower' ? 'follower cathode load' : 'stage 2 cathode bias', d.stage2.rk, ia2, d.series));
   }
-  const tubeIds = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : [])])];
-  const tubes = tubeIds.map((id) => lookupTube(id)!).map((tube) => {
+  const stageTubes = [tube1, ...(d.stage2.kind !== 'none' ? [lookupTube(d.stage2.tubeId)!] : [])];
+  const tubes = envelopesOf(stageTubes).map(({ tube, sectionsUsed, envelopes }) => {
     const chosen = tube.heaters.find((h) => h.wiring === inp.heaterWiring[tube.id]) ?? tube.heaters[0]!;
-    return { tube, options: tube.heaters, chosen };
+    return { tube, options: tube.heaters, chosen, sectionsUsed, envelopes };
   });
-  const heaters = heaterTotals(tubes.map((t) => t.chosen));
+  // One heater per envelope, counted explicitly: two stages on one twin triode light one heater.
+  const heaters = heaterTotals(tubes.flatMap((t) => Array.from({ length: t.envelopes }, () => t.chosen)));
   const dropper = heaters.ok ? droppingResistor(heaters, inp.heaterSupplyVolts, d.series) : null;
   const hk = (tube: TubeRecord) => ({
     maxVhk: tube.directlyHeated ? null : tube.ratings.maxHeaterCathodeVoltage,

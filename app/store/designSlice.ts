@@ -187,7 +187,16 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
 
   setStage2: (patch) => {
     const s = get();
-    const failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, ...patch } });
+    // Adding a second stage puts it on the other half of stage 1's envelope when stage 1 is a twin triode (common practice).
+    const adding = s.design.stage2.kind === 'none' && patch.kind !== undefined && patch.kind !== 'none' && patch.tubeId === undefined;
+    const sameEnvelope = adding && (s.analysis.tube.sections ?? 1) === 2 ? { tubeId: s.design.tubeId } : {};
+    let failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, ...sameEnvelope, ...patch } });
+    // A newly added stage whose held Rk cannot run (a 12AX7 follower on a 12AU7's 22 kΩ draws grid current)
+    // takes the first of a few cathode resistors up the decade that does.
+    for (const rk of adding ? [47e3, 100e3, 220e3] : []) {
+      if (!failure || rk <= s.design.stage2.rk) continue;
+      failure = get().commit({ ...s.design, stage2: { ...s.design.stage2, ...sameEnvelope, ...patch, rk } });
+    }
     set({ errors: failure ? { ...get().errors, tube: undefined, stage2: failure.message } : withoutError(get().errors, 'stage2') });
   },
 

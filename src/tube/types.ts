@@ -97,6 +97,8 @@ export interface TubeRecord {
   readonly model: TriodeModel;
   readonly fit: FitProvenance;
   readonly directlyHeated: boolean;
+  /** Triode sections in one envelope (2 for a twin triode); 1 when absent. Two stages can share a twin's envelope and heater. */
+  readonly sections?: 1 | 2;
   readonly heaters: readonly HeaterOption[];
   readonly ratings: TubeRatings;
   readonly capacitances: Capacitances;

@@ -13,6 +13,7 @@ export const tube12AT7 = defineTube({
     rejected: 'Koren\'s published set (errata Table 1), RMS 21.9 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'parallel', volts: 6.3, amps: 0.3, source: 'from memory' },
     { wiring: 'series', volts: 12.6, amps: 0.15, source: 'from memory' },

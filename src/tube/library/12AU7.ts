@@ -13,6 +13,7 @@ export const tube12AU7 = defineTube({
     rejected: 'Koren\'s published set (errata Table 1), RMS 7.1 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'parallel', volts: 6.3, amps: 0.3, source: 'Tung-Sol 12AU7 (1962) p.1 (P)' },
     { wiring: 'series', volts: 12.6, amps: 0.15, source: 'Tung-Sol 12AU7 (1962) p.1 (P)' },

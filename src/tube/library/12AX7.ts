@@ -13,6 +13,7 @@ export const tube12AX7 = defineTube({
     rejected: 'Koren\'s published set (errata Table 1), RMS 44.7 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'parallel', volts: 6.3, amps: 0.3, source: 'Tung-Sol 12AX7 (1947) p.1; Brimar VAD/513.5 p.2 (P)' },
     { wiring: 'series', volts: 12.6, amps: 0.15, source: 'Tung-Sol 12AX7 (1947) p.1; Brimar VAD/513.5 p.2 (P)' },

@@ -12,6 +12,7 @@ export const tube12AY7 = defineTube({
     worst: 'mu at 250 V/-4 V: -1.4 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'parallel', volts: 6.3, amps: 0.3, source: 'from memory' },
     { wiring: 'series', volts: 12.6, amps: 0.15, source: 'from memory' },

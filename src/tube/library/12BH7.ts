@@ -12,6 +12,7 @@ export const tube12BH7 = defineTube({
     worst: 'mu at 250 V/-10.5 V: -0.9 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'parallel', volts: 6.3, amps: 0.6, source: 'from memory' },
     { wiring: 'series', volts: 12.6, amps: 0.3, source: 'from memory' },

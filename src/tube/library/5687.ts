@@ -12,6 +12,7 @@ export const tube5687 = defineTube({
     worst: 'rp at 120 V/-2 V: -8.7 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'parallel', volts: 6.3, amps: 0.9, source: 'from memory' },
     { wiring: 'series', volts: 12.6, amps: 0.45, source: 'from memory' },

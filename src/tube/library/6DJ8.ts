@@ -13,6 +13,7 @@ export const spec6DJ8: TubeSpec = {
     rejected: 'Koren\'s published set (errata Table 1), RMS 16.2 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'single', volts: 6.3, amps: 0.365, source: 'from memory' },
   ],

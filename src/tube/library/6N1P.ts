@@ -12,6 +12,7 @@ export const tube6N1P = defineTube({
     worst: 'rp at 250 V/-4.5 V: +1.0 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'single', volts: 6.3, amps: 0.6, source: 'from memory' },
   ],

@@ -12,6 +12,7 @@ export const tube6SL7 = defineTube({
     worst: 'rp at 250 V/-2 V: -2.8 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'single', volts: 6.3, amps: 0.3, source: 'from memory' },
   ],

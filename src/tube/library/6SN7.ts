@@ -12,6 +12,7 @@ export const spec6SN7: TubeSpec = {
     worst: 'mu at 90 V/0 V: +0.9 %',
   },
   directlyHeated: false,
+  sections: 2,
   heaters: [
     { wiring: 'single', volts: 6.3, amps: 0.6, source: 'RCA data quoted in a secondary source (S)' },
   ],

@@ -68,3 +68,17 @@ describe('the capacitor table with two stages', () => {
     expect(f.ok && f.ck).toBeNull();
   });
 });
+
+describe('the second stage and the heaters', () => {
+  it('a follower added to a 12AX7 stage defaults to the other half of the same envelope, and the heaters count one envelope', async () => {
+    const { buildSheetOf } = await import('../../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    store.getState().commit({ ...store.getState().design, tubeId: '12AX7', ra: 100e3, rk: 1800 });
+    store.getState().setStage2({ kind: 'follower' });
+    expect(store.getState().errors.stage2).toBeUndefined();
+    expect(store.getState().design.stage2.tubeId).toBe('12AX7');
+    const sheet = buildSheetOf(store.getState());
+    expect(sheet.tubes.map((t) => [t.tube.id, t.sectionsUsed, t.envelopes])).toEqual([['12AX7', 2, 1]]);
+    expect(sheet.heaters.ok && sheet.heaters.totalAmps).toBeCloseTo(0.3, 6); // 12AX7 at 6.3 V: 0.3 A (Tung-Sol 12AX7)
+  });
+});
