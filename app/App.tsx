@@ -18,6 +18,7 @@ import { OutputSignalCharts } from './output/OutputSignalCharts';
 import { OutputComparePanel } from './output/OutputComparePanel';
 import { OutputSchematic } from './output/OutputSchematic';
 import { OutputValues } from './output/OutputValues';
+import { OutputPartsPanel } from './output/OutputPartsPanel';
 import { useKeeping } from './keep/useKeeping';
 import { BuildSheetPanel } from './panels/BuildSheetPanel';
 import { ComparePanel } from './panels/ComparePanel';
@@ -94,6 +95,7 @@ function OutputBench() {
         <FindingsList />
         <OutputSignalCharts />
         <OutputComparePanel />
+        <OutputPartsPanel />
       </div>
       <div className="bench-side">
         <KeepPanel />

@@ -3,6 +3,7 @@ import { farads, milliamps, ohms, plain, volts, watts } from '../format';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { useWorkbench } from '../store/StoreProvider';
 import { elevationAdvice } from './elevationAdvice';
+import { PartsTables } from './PartsTables';
 
 /** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
 function NumberInput({ label, value, unit, onValue, min }: { label: string; value: number; unit: string; onValue: (v: number) => void; min: number }) {
@@ -35,24 +36,7 @@ export function BuildSheetPanel() {
   return (
     <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Build sheet</h2>
-      <table className="parts-table">
-        <caption>Resistors (power rating: twice the worst case, common practice)</caption>
-        <thead><tr><th scope="col">Part</th><th scope="col">Order</th><th scope="col">Runs at</th><th scope="col">Worst case</th><th scope="col">Rating</th></tr></thead>
-        <tbody>
-          {sheet.resistors.map((r) => (
-            <tr key={r.ref} data-part-line={r.ref}><th scope="row">{`${r.ref} (${r.role})`}</th><td>{`${ohms(r.preferred)} ${r.series}`}</td><td>{watts(r.watts)}</td><td>{watts(r.wattsWorst)}</td><td>{`${r.ratingWatts} W`}</td></tr>
-          ))}
-        </tbody>
-      </table>
-      <table className="parts-table">
-        <caption>Capacitors (voltage rating: twice the larger of running and switch-on, common practice)</caption>
-        <thead><tr><th scope="col">Part</th><th scope="col">Value</th><th scope="col">Runs at</th><th scope="col">At switch-on</th><th scope="col">Rating</th></tr></thead>
-        <tbody>
-          {sheet.capacitors.map((c) => (
-            <tr key={c.ref} data-part-line={c.ref}><th scope="row">{`${c.ref} (${c.role})`}</th><td>{`${c.value === null ? '—' : farads(c.value)}${c.polarity ? `, ${c.polarity}` : ''}`}</td><td>{volts(c.volts)}</td><td>{volts(c.voltsAtSwitchOn)}</td><td>{`${c.ratingVolts} V`}</td></tr>
-          ))}
-        </tbody>
-      </table>
+      <PartsTables resistors={sheet.resistors} capacitors={sheet.capacitors} />
       <div className="option-row">
         <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />
       </div>
