@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import { buildCardPng } from '../export/buildCard';
+import { chartCaption } from '../export/chartCaption';
 import { chartPng, svgDocument } from '../export/chartImage';
 import { download, fileStem } from '../export/download';
 import { useWorkbenchStore } from '../store/StoreProvider';
@@ -27,11 +28,11 @@ export function ExportPanel() {
       <h2 id={`${id}-h`}>Export</h2>
       <div className="option-row">
         {[1, 2, 3].map((scale) => (
-          <button key={scale} type="button" onClick={() => void run(`Chart PNG ${scale}×`, async () => ({ blob: await chartPng(chart()!, scale), name: `${stem()}-chart-${scale}x.png` }))}>
+          <button key={scale} type="button" onClick={() => void run(`Chart PNG ${scale}×`, async () => ({ blob: await chartPng(chart()!, scale, chartCaption(store.getState())), name: `${stem()}-chart-${scale}x.png` }))}>
             Chart PNG {scale}×
           </button>
         ))}
-        <button type="button" onClick={() => void run('Chart SVG', async () => ({ blob: new Blob([svgDocument(chart()!).text], { type: 'image/svg+xml' }), name: `${stem()}-chart.svg` }))}>Chart SVG</button>
+        <button type="button" onClick={() => void run('Chart SVG', async () => ({ blob: new Blob([svgDocument(chart()!, chartCaption(store.getState())).text], { type: 'image/svg+xml' }), name: `${stem()}-chart.svg` }))}>Chart SVG</button>
         <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg')), name: `${stem()}-build-card.png` }))}>Build card (PNG, A4)</button>
       </div>
       {note ? <p className="keep-ok" role="status">{note}</p> : null}

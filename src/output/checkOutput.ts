@@ -59,7 +59,7 @@ export function checkOutputSolution(s: unknown): Failure | null {
 }
 
 /** Limits on what a caller may ask of the swing: counts stay small enough for a call to end within 100 ms. */
-export const OUTPUT_CALL_LIMITS = { maxSamples: 4096, maxLevels: 200, maxZPoints: 64, maxDrive: 1000 } as const;
+export const OUTPUT_CALL_LIMITS = { maxSamples: 4096, maxLevels: 200, maxZPoints: 32, maxDrive: 1000 } as const;
 
 export const checkSamples = (n: unknown) => checkCount('samples', 'Samples per cycle', n, 8, OUTPUT_CALL_LIMITS.maxSamples);
 export const checkDrive = (v: unknown) => checkNumber('drive', 'Drive', v, 'V', 0, OUTPUT_CALL_LIMITS.maxDrive);
