@@ -1,5 +1,6 @@
 import { defineConfig, type Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
+import { VitePWA } from 'vite-plugin-pwa';
 
 /**
  * The page's Content-Security-Policy: scripts only from the app's own origin,
@@ -30,8 +31,29 @@ function contentSecurityPolicy(): Plugin {
 
 // The workbench is a static single page: `vite build` writes dist/, which any
 // static file server (or `npm run preview`) can serve.
+/**
+ * Offline at the bench: a service worker (vite-plugin-pwa, generated with
+ * Workbox) precaches the built page, so once loaded the workbench opens and
+ * works with no network, and it can be installed as an app. Registered from
+ * its own script file, which the page's policy allows.
+ */
+const offline = VitePWA({
+  registerType: 'autoUpdate',
+  injectRegister: 'script',
+  manifest: {
+    name: 'Quiescent: load lines and part values for tube stages',
+    short_name: 'Quiescent',
+    description: 'A workbench for designing vacuum-tube audio stages: plate curves, load lines, figures and parts.',
+    theme_color: '#1d2329',
+    background_color: '#fbfaf5',
+    display: 'standalone',
+    icons: [{ src: 'favicon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' }],
+  },
+  workbox: { globPatterns: ['**/*.{js,css,html,svg,webmanifest}'], navigateFallback: 'index.html', cleanupOutdatedCaches: true, clientsClaim: true, skipWaiting: true },
+});
+
 export default defineConfig({
-  plugins: [react(), contentSecurityPolicy()],
+  plugins: [react(), contentSecurityPolicy(), offline],
   server: { host: '127.0.0.1', port: 5173, strictPort: false },
   preview: { host: '127.0.0.1', port: 4173 },
   build: { outDir: 'dist', sourcemap: true, target: 'es2022' },
