@@ -55,7 +55,7 @@ export {
   type PlanePoint,
   type PlateCurve,
 } from './stage/planeSeries';
-export { plateExtent, niceCeil, type PlateExtent } from './stage/plateExtent';
+export { plateExtent, loadLineExtent, niceCeil, type PlateExtent } from './stage/plateExtent';
 export { parallel } from './stage/parallel';
 export { curveSheet, CURVE_SAMPLES, type CurveSheet } from './stage/curveSheet';
 export { stageOverlay, BIAS_SAMPLES, type StageOverlay } from './stage/stageOverlay';

@@ -7,6 +7,7 @@ import { PointMark, RivalMark, SheetLayers } from './SheetLayers';
 import { drawOverlay, drawRivalOverlay, drawSpread } from './drawOverlay';
 import { buildSheetOf } from '../store/buildSheet';
 import { HoverReadout } from './HoverReadout';
+import { ChartWindowSwitch } from './ChartWindowSwitch';
 import { CurveDensity } from './CurveDensity';
 import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
@@ -178,7 +179,10 @@ export function PlateChart() {
         </g>
       </svg>
       <HoverReadout />
-      <CurveDensity />
+      <div className="chart-controls">
+        <ChartWindowSwitch />
+        <CurveDensity />
+      </div>
       <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} />
     </div>
   );

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
+import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeRival, sharedWindow } from './compareSlice';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
@@ -126,7 +126,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const showsVoltage = next.stageKind === 'voltage';
     if (!sameVoltagePart(next, s.design) || opts.force || (!light && showsVoltage && s.analysis.signal.stale)) {
       const voltageLight = light || !showsVoltage;
-      const extent = opts.extent ?? sharedWindow(next, s.rival);
+      const extent = opts.extent ?? (s.chartWindow === 'load-line' ? loadLineExtent(next.bplus, next.ra, next.rk) : sharedWindow(next, s.rival));
       const a = analyze(next, s.analysis, extent, voltageLight, s.curveCount);
       if (!a.ok) return a;
       const { ok: _ok, ...analysis } = a;

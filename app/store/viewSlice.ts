@@ -18,6 +18,9 @@ export interface ViewSlice {
   /** The last message about keeping designs (opened, saved, refused and why). */
   keepNote: { readonly kind: 'ok' | 'error'; readonly text: string } | null;
   setKeepNote: (note: ViewSlice['keepNote']) => void;
+  /** The voltage stage's chart window: the whole sheet (by the tube's ratings) or framed on the load line. */
+  chartWindow: 'sheet' | 'load-line';
+  setChartWindow: (w: 'sheet' | 'load-line') => void;
   hover: HoverReadout | null;
   setHover: (vpk: number, ia: number) => void;
   clearHover: () => void;
@@ -28,6 +31,11 @@ export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = 
   setBuildInputs: (patch) => set({ buildInputs: { ...get().buildInputs, ...patch } }),
   keepNote: null,
   setKeepNote: (keepNote) => set({ keepNote }),
+  chartWindow: 'sheet',
+  setChartWindow: (chartWindow) => {
+    set({ chartWindow });
+    get().commit(get().design, { force: true });
+  },
   hover: null,
   setHover: (vpk, ia) => set({ hover: { vpk, ia, vgk: gridVoltageAt(get().analysis.tube, vpk, ia) } }),
   clearHover: () => set({ hover: null }),

@@ -34,3 +34,16 @@ export function plateExtent(tube: TubeLike, bplus: number, fallbackIa?: number):
     : niceCeil(fallbackIa !== undefined && fallbackIa > 0 ? fallbackIa : 0.01);
   return { vmax, iaMax };
 }
+
+/**
+ * A window framing one stage's load line rather than the whole sheet: to just
+ * past B+ and to 1.25 × the line's current at 0 V, B+/(Ra + Rk), so a 12AX7 at
+ * a fraction of a milliamp fills the chart instead of its bottom few percent.
+ * Depends on Ra and Rk, so the bench pins it during a drag and re-ranges on
+ * release.
+ */
+export function loadLineExtent(bplus: number, ra: number, rk: number): PlateExtent {
+  const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 100;
+  const r = Number.isFinite(ra + rk) && ra + rk > 0 ? ra + rk : 1;
+  return { vmax: niceCeil(b * 1.1), iaMax: niceCeil(Math.max(1e-5, (1.25 * b) / r)) };
+}

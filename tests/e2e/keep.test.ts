@@ -30,13 +30,19 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     const { page } = await openWorkbench(browser, inject('baseUrl'));
     const [, , w, h] = (await page.locator('svg.plate-chart').getAttribute('viewBox'))!.split(' ').map(Number);
     const png2 = await downloadOf(page, 'Chart PNG 2×');
-    expect(pngSize(png2)).toEqual({ width: w! * 2, height: h! * 2 });
+    // The chart at twice its size, with the caption band (title, figures above; legend below) added to its height.
+    const size2 = pngSize(png2);
+    expect(size2.width).toBe(w! * 2);
+    expect(size2.height / 2 - h!).toBeGreaterThan(80);
+    expect(size2.height / 2 - h!).toBeLessThan(200);
     expect(await inkShare(page, png2)).toBeGreaterThan(0.05);
     const png3 = await downloadOf(page, 'Chart PNG 3×');
-    expect(pngSize(png3)).toEqual({ width: w! * 3, height: h! * 3 });
+    expect(pngSize(png3)).toEqual({ width: w! * 3, height: (size2.height / 2) * 3 });
     const svg = (await downloadOf(page, 'Chart SVG')).toString('utf8');
     expect(svg).toMatch(/^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
     expect(svg).toContain('class="layer-curves"'); // the static sheet, drawn in its own SVG on screen, is merged in
+    expect(svg).toContain('12AU7, B+ 275 V, Ra 27 kΩ, Rk 1.2 kΩ bypassed'); // the title line
+    expect(svg).toContain('Maximum plate voltage'); // the legend
     const card = await downloadOf(page, 'Build card (PNG, A4)');
     expect(pngSize(card)).toEqual({ width: 1240, height: 1754 });
     expect(await inkShare(page, card)).toBeGreaterThan(0.03);
