@@ -3,6 +3,7 @@ import { gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
 import { build, preview } from 'vite';
 import { openBrowser, openWorkbench } from '../tests/e2e/browser';
+import { benchHeavyInputs, type HeavyInputResults } from './heavyInputs.mts';
 import { repeatedStats, RUNS, stats, type Stats } from './stats.mts';
 
 /**
@@ -80,6 +81,7 @@ export interface BrowserResults {
   readonly dragOutputTwoTubes: Stats;
   readonly dragByCurveCount: Record<string, Stats>;
   readonly firstCurveMs: Stats;
+  readonly heavyInputs: HeavyInputResults;
   readonly jsGzipBytes: number;
   readonly cssGzipBytes: number;
 }
@@ -144,7 +146,8 @@ export async function benchBrowser(): Promise<BrowserResults> {
       firsts.push(await fresh.evaluate(() => (window as unknown as { __firstCurve: number }).__firstCurve));
       await fresh.close();
     }
-    return { dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    const heavyInputs = await benchHeavyInputs(browser, url);
+    return { heavyInputs, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();

@@ -42,6 +42,10 @@ if (existsSync('/usr/bin/chromium')) {
   line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });
   console.log(`${'production JS, gzipped'.padEnd(44)} ${(browser.jsGzipBytes / 1024).toFixed(1)} kB  ${browser.jsGzipBytes <= 200 * 1024 ? 'within' : 'MISSES'} budget 200 kB`);
   console.log(`${'production CSS, gzipped'.padEnd(44)} ${(browser.cssGzipBytes / 1024).toFixed(1)} kB`);
+  console.log('\nLongest main-thread task for inputs that once froze the page (budget 200 ms; "50" means none over 50 ms)');
+  for (const [what, msLongest] of Object.entries(browser.heavyInputs)) {
+    console.log(`${`  ${what}`.padEnd(44)} ${Number.isNaN(msLongest) ? 'not measured' : `${msLongest.toFixed(0)} ms  ${msLongest <= 200 ? 'within' : 'MISSES'} budget 200 ms`}`);
+  }
 } else {
   console.log('\n!!! Chromium is missing (sudo apt-get install -y chromium): interaction and load not measured.');
 }

@@ -14,6 +14,7 @@ export function CustomTubePanel() {
   const fit = useWorkbench((s) => s.fitCustom);
   const save = useWorkbench((s) => s.saveCustom);
   const importTubes = useWorkbench((s) => s.importCustomTubes);
+  const cancel = useWorkbench((s) => s.cancelCustomWork);
   const exportTubes = useWorkbench((s) => s.exportCustomTubes);
   const [name, setName] = useState('');
   const [ratings, setRatings] = useState({ maxPlateVoltage: 300, maxPlateDissipation: 1, maxHeaterCathodeVoltage: 100 });
@@ -50,7 +51,15 @@ export function CustomTubePanel() {
       <p id={`${id}-hint`} className="field-hint">Commas, semicolons, tabs or spaces; a header line and # comments are skipped. Read at least two grid curves.</p>
       <label htmlFor={`${id}-typ`} className="field-label">And/or the datasheet's typical figures, one point per line: Va (V), Vg (V), Ia (mA), mu, rp (Ω), gm (mA/V); “-” for a figure not given</label>
       <textarea id={`${id}-typ`} rows={2} value={custom.typicalCsv} spellCheck={false} placeholder="250, -8.5, 10.5, 17, 7700, 2.2" onChange={(e) => setTypical(e.target.value)} />
-      <div className="option-row"><button type="button" onClick={fit}>Fit the model</button></div>
+      <div className="option-row">
+        <button type="button" onClick={() => void fit()} disabled={custom.busy !== null}>Fit the model</button>
+        {custom.busy ? (
+          <>
+            <progress max={custom.busy.of} value={custom.busy.done} aria-label={custom.busy.what === 'fit' ? 'Fit in progress' : 'Import in progress'} />
+            <button type="button" onClick={cancel}>Cancel</button>
+          </>
+        ) : null}
+      </div>
       {custom.lineErrors.length > 0 ? (
         <ul className="field-error line-errors" role="alert">
           {custom.lineErrors.map((e) => <li key={e.line}>{`Line ${e.line}: ${e.message}`}</li>)}
@@ -91,7 +100,7 @@ export function CustomTubePanel() {
             const file = e.target.files?.[0];
             if (!file) return;
             const reader = new FileReader();
-            reader.onload = () => importTubes(String(reader.result));
+            reader.onload = () => void importTubes(String(reader.result));
             reader.readAsText(file);
           }} />
         </label>

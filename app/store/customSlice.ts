@@ -1,6 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { fitTriode, parseCurveCsv, parseTypicalCsv, plateFamily, type CsvLineError, type PlateCurve, type TriodeFit, type TypicalPoint } from '../../src/index';
-import { customSpecs, nameProblem, readTubesFile, removeCustomTube, saveCustomTube, saveCustomTubes, writeTubesFile } from '../keep/customTubes';
+import type { CsvLineError, PlateCurve, TriodeFit, TypicalPoint } from '../../src/index';
+import { customSpecs, MAX_TUBES_FILE_BYTES, nameProblem, removeCustomTube, saveCustomTube, saveCustomTubes, writeTubesFile } from '../keep/customTubes';
+import { createOffThread } from '../work/offThread';
 import type { WorkbenchState } from './workbenchStore';
 
 /** Making a tube of one's own: points in, a fitted model out, saved under a name. */
@@ -16,39 +17,59 @@ export interface CustomSlice {
     readonly points: readonly { va: number; vg: number; ia: number }[];
     readonly typical: readonly TypicalPoint[];
     readonly note: string | null;
+    /** A fit or an import running off the page's thread: what it is and how far it has got; null when idle. */
+    readonly busy: { readonly what: 'fit' | 'import'; readonly done: number; readonly of: number } | null;
   };
   setCustomCsv: (csv: string) => void;
   setTypicalCsv: (text: string) => void;
-  fitCustom: () => void;
+  /** Fits off the page's thread; resolves when the fit is in (or was cancelled). */
+  fitCustom: () => Promise<void>;
+  /** Stops a running fit or import; nothing it would have changed is changed. */
+  cancelCustomWork: () => void;
   saveCustom: (
     name: string,
     ratings: { maxPlateVoltage: number; maxPlateDissipation: number; maxHeaterCathodeVoltage: number },
     extras?: { heater?: { volts: number; amps: number }; caps?: { cgk: number; cgp: number; cpk: number } },
   ) => void;
   removeCustom: (name: string) => void;
-  importCustomTubes: (text: string) => void;
+  importCustomTubes: (text: string) => Promise<void>;
   exportCustomTubes: () => string;
 }
 
 const EXAMPLE = '# Va (V), Vg (V), Ia (mA), read off a curve sheet\n';
 
-export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice> = (set, get) => ({
-  custom: { csv: EXAMPLE, typicalCsv: '', lineErrors: [], fit: null, curves: [], points: [], typical: [], note: null },
+/**
+ * The points box holds at most this many characters, about 10,000 points (the
+ * most a fit takes). A larger paste is refused with a message and the box
+ * keeps what it had: a 100,000-line box made every keystroke cost a second.
+ */
+export const MAX_POINTS_TEXT = 400_000;
+/** Tubes read from one file, at most. */
+export const MAX_IMPORT_TUBES = 500;
 
-  setCustomCsv: (csv) => set({ custom: { ...get().custom, csv } }),
-  setTypicalCsv: (typicalCsv) => set({ custom: { ...get().custom, typicalCsv } }),
+export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice> = (set, get) => {
+  // Per store: the worker that fits and imports off the page's thread.
+  const work = createOffThread();
+  const patch = (p: Partial<CustomSlice['custom']>) => set({ custom: { ...get().custom, ...p } });
+  return {
+  custom: { csv: EXAMPLE, typicalCsv: '', lineErrors: [], fit: null, curves: [], points: [], typical: [], note: null, busy: null },
 
-  fitCustom: () => {
-    const c = get().custom;
-    const { points, errors } = parseCurveCsv(c.csv);
-    const typ = parseTypicalCsv(c.typicalCsv);
-    const lineErrors = [...errors, ...typ.errors.map((e) => ({ ...e, message: `typical figures: ${e.message}` }))];
-    const fit = fitTriode(points, { typical: typ.typical });
-    const grids = [...new Set([...points, ...typ.typical].map((p) => p.vg))].sort((a, b) => b - a);
-    const vmax = Math.max(...[...points, ...typ.typical].map((p) => p.va), 1) * 1.15;
-    const curves = fit.ok ? plateFamily({ kind: 'triode-model', params: fit.params, gridResistance: 2000 }, grids, vmax, 80) : [];
-    set({ custom: { ...c, lineErrors, fit, curves, points, typical: typ.typical, note: null } });
+  setCustomCsv: (csv) => {
+    if (csv.length > MAX_POINTS_TEXT) return patch({ note: `The points box holds at most ${MAX_POINTS_TEXT.toLocaleString('en')} characters (about 10,000 points); this is ${csv.length.toLocaleString('en')}. Thin the points or fit them in parts.` });
+    patch({ csv });
   },
+  setTypicalCsv: (typicalCsv) => patch({ typicalCsv: typicalCsv.slice(0, MAX_POINTS_TEXT) }),
+
+  fitCustom: async () => {
+    const c = get().custom;
+    if (c.busy) return;
+    patch({ busy: { what: 'fit', done: 0, of: 9 }, note: null });
+    const outcome = await work.fit(c.csv, c.typicalCsv, (done, of) => patch({ busy: { what: 'fit', done, of } }));
+    if (outcome === 'cancelled') return patch({ busy: null, note: 'Fit cancelled: nothing changed.' });
+    patch({ ...outcome, busy: null });
+  },
+
+  cancelCustomWork: () => work.cancel(),
 
   saveCustom: (name, ratings, extras = {}) => {
     const c = get().custom;
@@ -66,8 +87,16 @@ export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice
     get().refreshTubes();
   },
 
-  importCustomTubes: (text) => {
-    const r = readTubesFile(text);
+  importCustomTubes: async (text) => {
+    if (get().custom.busy) return;
+    if (text.length > MAX_TUBES_FILE_BYTES) return patch({ note: `Nothing imported: a tubes file is at most ${MAX_TUBES_FILE_BYTES / 1e6} MB (this one is ${(text.length / 1e6).toFixed(1)} MB).` });
+    patch({ busy: { what: 'import', done: 0, of: 1 }, note: null });
+    const read = await work.readTubes(text);
+    patch({ busy: null });
+    if (read === 'cancelled') return patch({ note: 'Import cancelled: nothing imported.' });
+    const r = read.ok && read.specs.length > MAX_IMPORT_TUBES
+      ? { ...read, specs: read.specs.slice(0, MAX_IMPORT_TUBES), problems: [...read.problems, `only the first ${MAX_IMPORT_TUBES} tubes of ${read.specs.length} are read from one file`] }
+      : read;
     if (!r.ok) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.message}` } });
     if (r.specs.length === 0) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.problems.slice(0, 5).join('; ')}` } });
     const kept = saveCustomTubes(r.specs);
@@ -78,4 +107,5 @@ export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice
   },
 
   exportCustomTubes: () => writeTubesFile(customSpecs()),
-});
+  };
+};

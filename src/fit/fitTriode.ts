@@ -13,6 +13,8 @@ export interface CurvePoint {
 }
 
 export interface FitOptions {
+  /** Called after each of the fit's starts with how many are done of how many: for a progress bar. */
+  readonly onProgress?: (done: number, of: number) => void;
   /** Datasheet typical operating figures to fit as well (Ia, mu, rp, gm at each). */
   readonly typical?: readonly TypicalPoint[];
   /** Starting mu; default from the points' spread, else 20. */
@@ -104,13 +106,17 @@ export function fitTriode(points: readonly CurvePoint[], options: FitOptions | n
   const upper = [Math.log(300), 1.9, Math.log(1e5), Math.log(5000), Math.log(20000)];
   let best: { x: number[]; cost: number; converged: boolean } | null = null;
   const scale = scaleGuess(points, muGuess);
+  let started = 0;
+  const progress = typeof options?.onProgress === 'function' ? options.onProgress : null;
   for (const kg1 of [scale / 3, scale, scale * 3]) {
     for (const kpFactor of [3, 10, 30]) {
+      progress?.(started++, 9);
       const start = [Math.log(muGuess), 1.4, Math.log(Math.min(Math.max(kg1, 11), 9e4)), Math.log(Math.min(kpFactor * muGuess, 4000)), Math.log(300)];
       const res = levenbergMarquardt(residuals, start, { lower, upper, maxIterations: options?.maxIterations ?? 200 });
       if (Number.isFinite(res.cost) && korenParamsProblem(toParams(res.x)) === null && (!best || res.cost < best.cost)) best = res;
     }
   }
+  progress?.(9, 9);
   if (!best) return fail('no-convergence', 'No set of Koren parameters could be fitted to these values; check the units (V, V, A)');
   const params = toParams(best.x);
   const errors = fitErrors(params, points, typical).sort((a, b) => Math.abs(b.errorPercent) - Math.abs(a.errorPercent));

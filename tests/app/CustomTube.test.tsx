@@ -1,4 +1,4 @@
-import { render, screen, within } from '@testing-library/react';
+import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
@@ -27,6 +27,7 @@ describe('a tube of your own', () => {
     await user.click(csv);
     await user.paste(`${sheetCsv()}\n300, -4\n`);
     await user.click(panel.getByRole('button', { name: 'Fit the model' }));
+    await waitFor(() => expect(panel.getByTestId('fit-summary')).toBeTruthy());
     const badLine = sheetCsv().split('\n').length + 1; // the line after the sheet's points
     expect(panel.getByRole('alert').textContent).toBe(`Line ${badLine}: expected 3 numbers (Va V, Vg V, Ia mA), found 2`);
     expect(panel.getByTestId('fit-summary').textContent).toMatch(/RMS error 0\.\d\d %/);
@@ -50,26 +51,26 @@ describe('a tube of your own', () => {
     const exported = store.getState().exportCustomTubes();
     expect(JSON.parse(exported)).toMatchObject({ format: 'quiescent-tubes', version: 1, tubes: [{ name: 'Bench 12AU7 no. 3' }] });
     store.getState().removeCustom('Bench 12AU7 no. 3');
-    store.getState().importCustomTubes(exported);
+    await store.getState().importCustomTubes(exported);
     expect(store.getState().tubes.some((t) => t.id === 'Bench 12AU7 no. 3' && t.userMade)).toBe(true);
-    store.getState().importCustomTubes('{"format":"quiescent-tubes","version":1,"tubes":[{"name":"EL34-T"}]}');
+    await store.getState().importCustomTubes('{"format":"quiescent-tubes","version":1,"tubes":[{"name":"EL34-T"}]}');
     expect(store.getState().custom.note).toBe('Nothing imported: Tube 1: “EL34-T” is a library tube; choose another name');
   });
 
   it('points all on one grid voltage get a specific message', async () => {
     const store = createWorkbenchStore();
     store.getState().setCustomCsv('100,-2,1\n150,-2,2\n200,-2,3\n250,-2,4\n300,-2,5');
-    store.getState().fitCustom();
+    await store.getState().fitCustom();
     expect(store.getState().custom.fit).toEqual({ ok: false, reason: 'invalid-input', message: 'All the points are on one grid voltage (-2 V): give points from at least two plate curves so mu can be found' });
   });
 });
 
 describe('a tube of your own from typical figures alone', () => {
-  it('fits to the datasheet figures (Tung-Sol 12AU7, 1962, p.2) and keeps heater and capacitances', () => {
+  it('fits to the datasheet figures (Tung-Sol 12AU7, 1962, p.2) and keeps heater and capacitances', async () => {
     const store = createWorkbenchStore();
     store.getState().setCustomCsv('');
     store.getState().setTypicalCsv('100, 0, 11.8, 20, 6500, 3.1\n250, -8.5, 10.5, 17, 7700, 2.2');
-    store.getState().fitCustom();
+    await store.getState().fitCustom();
     const f = store.getState().custom.fit;
     expect(f?.ok).toBe(true);
     if (f?.ok) expect(f.rmsPercent).toBeLessThan(5);

@@ -1,0 +1,13 @@
+/// <reference lib="webworker" />
+import { expose } from 'comlink';
+import { readTubesFile } from '../keep/customTubes';
+import { fitJob } from './fitJob';
+
+/**
+ * The Web Worker that runs what would freeze the page: fits of many points
+ * and reading large tubes files. comlink (a small, well-kept wrapper) turns
+ * the message passing into plain async calls.
+ */
+const api = { fitJob, readTubesFile };
+export type ModelWorkerApi = typeof api;
+expose(api);

@@ -1,0 +1,48 @@
+import { proxy, wrap, type Remote } from 'comlink';
+import type { ModelWorkerApi } from './modelWorker';
+import { fitJob, type FitOutcome } from './fitJob';
+import { readTubesFile } from '../keep/customTubes';
+
+/**
+ * Runs the heavy jobs off the page's thread, one at a time, each cancellable:
+ * cancelling ends the worker outright (a fit cannot be interrupted from
+ * outside), and the next job starts a fresh one. Where the platform has no
+ * workers (tests in jsdom) the same job runs in place.
+ */
+type TubesRead = ReturnType<typeof readTubesFile>;
+
+export interface OffThread {
+  fit(csv: string, typicalCsv: string, onProgress: (done: number, of: number) => void): Promise<FitOutcome | 'cancelled'>;
+  readTubes(text: string): Promise<TubesRead | 'cancelled'>;
+  cancel(): void;
+}
+
+export function createOffThread(): OffThread {
+  let worker: Worker | null = null;
+  let remote: Remote<ModelWorkerApi> | null = null;
+  let cancelPending: (() => void) | null = null;
+  const hasWorkers = typeof Worker !== 'undefined';
+  const ensure = () => {
+    if (!remote) {
+      worker = new Worker(new URL('./modelWorker.ts', import.meta.url), { type: 'module' });
+      remote = wrap<ModelWorkerApi>(worker);
+    }
+    return remote;
+  };
+  const run = <T>(job: () => Promise<T>): Promise<T | 'cancelled'> =>
+    new Promise((resolve, reject) => {
+      cancelPending = () => resolve('cancelled');
+      job().then(resolve, reject).finally(() => (cancelPending = null));
+    });
+  return {
+    fit: (csv, typicalCsv, onProgress) =>
+      hasWorkers ? run(() => ensure().fitJob(csv, typicalCsv, proxy(onProgress))) : run(async () => fitJob(csv, typicalCsv, onProgress)),
+    readTubes: (text) => run<TubesRead>(hasWorkers ? () => ensure().readTubesFile(text) as Promise<TubesRead> : async () => readTubesFile(text)),
+    cancel: () => {
+      worker?.terminate();
+      worker = null;
+      remote = null;
+      cancelPending?.();
+    },
+  };
+}

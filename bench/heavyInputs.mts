@@ -1,0 +1,78 @@
+import type { Page } from 'playwright-core';
+import { openWorkbench, type OpenBrowser } from '../tests/e2e/browser';
+
+/**
+ * The inputs that once froze the page, each timed by its longest main-thread
+ * task (Chromium's Long Tasks API reports every task over 50 ms; none means
+ * the longest was under 50). The budget for each is 200 ms.
+ */
+export interface HeavyInputResults {
+  readonly import2000TubesMs: number;
+  readonly fit10000PointsMs: number;
+  readonly paste100000LinesMs: number;
+  readonly link2MBMs: number;
+}
+
+const WATCH = `window.__long = []; new PerformanceObserver((l) => l.getEntries().forEach((e) => window.__long.push(e.duration))).observe({ type: 'longtask' });`;
+const longest = (page: Page) => page.evaluate(() => Math.max(50, ...((window as unknown as { __long: number[] }).__long ?? [])));
+const reset = (page: Page) => page.evaluate(() => ((window as unknown as { __long: number[] }).__long = []));
+
+/** Points from a smooth 3/2-power family, in the points box's units (V, V, mA). */
+function pointsText(n: number): string {
+  const lines: string[] = [];
+  for (let k = 0; k < n; k++) {
+    const vg = -2 * (k % 6);
+    const va = 40 + ((k * 7) % 300);
+    const ia = Math.max(0.01, 1.2e-3 * Math.pow(Math.max(0, va / 20 + vg), 1.5));
+    lines.push(`${va}, ${vg}, ${ia.toFixed(4)}`);
+  }
+  return lines.join('\n');
+}
+
+function tubesFile(n: number): string {
+  const tubes = Array.from({ length: n }, (_, k) => ({
+    name: `Bench tube ${k}`, params: { mu: 20, ex: 1.35, kg1: 1200, kp: 60, kvb: 300 },
+    maxPlateVoltage: 300, maxPlateDissipation: 2.5, maxHeaterCathodeVoltage: 100,
+    points: Array.from({ length: 40 }, (_, j) => ({ va: 50 + j * 5, vg: -(j % 5), ia: 1e-3 })), rmsPercent: 2,
+  }));
+  return JSON.stringify({ format: 'quiescent-tubes', version: 1, tubes });
+}
+
+/** Runs one measure; a measure that cannot run reports NaN ("not measured") instead of ending the bench. */
+async function measure(page: Page, step: () => Promise<void>): Promise<number> {
+  try {
+    await reset(page);
+    await step();
+    return await longest(page);
+  } catch (e) {
+    console.warn(`  (not measured: ${(e as Error).message.split('\n')[0]})`);
+    return Number.NaN;
+  }
+}
+
+export async function benchHeavyInputs(browser: OpenBrowser, url: string): Promise<HeavyInputResults> {
+  const { page } = await openWorkbench(browser, url);
+  await page.evaluate(WATCH);
+  const box = page.locator('.custom-tube textarea').first();
+  const import2000TubesMs = await measure(page, async () => {
+    await page.locator('.custom-tube input[type="file"]').setInputFiles({ name: 'tubes.json', mimeType: 'application/json', buffer: Buffer.from(tubesFile(2000)) });
+    await page.waitForFunction(() => /Imported|Nothing imported/.test(document.querySelector('.custom-tube [role="status"]')?.textContent ?? ''), null, { timeout: 60_000 });
+  });
+  const fit10000PointsMs = await measure(page, async () => {
+    await box.evaluate((el) => el.scrollIntoView());
+    await box.fill(pointsText(10_000), { force: true, timeout: 60_000 });
+    await page.getByRole('button', { name: 'Fit the model' }).click({ force: true });
+    await page.waitForSelector('[data-testid="fit-summary"]', { timeout: 120_000 });
+  });
+  const paste100000LinesMs = await measure(page, async () => {
+    await box.fill(pointsText(100_000), { force: true, timeout: 60_000 });
+    await box.press('End');
+    await box.type('1');
+  });
+  const link2MBMs = await measure(page, async () => {
+    await page.evaluate(() => (location.hash = `#design=${'A'.repeat(2_000_000)}`));
+    await page.waitForFunction(() => /shared link is/.test(document.body.textContent ?? ''));
+  });
+  await page.close();
+  return { import2000TubesMs, fit10000PointsMs, paste100000LinesMs, link2MBMs };
+}
