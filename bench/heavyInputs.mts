@@ -45,7 +45,7 @@ async function measure(page: Page, step: () => Promise<void>): Promise<number> {
     await step();
     return await longest(page);
   } catch (e) {
-    console.warn(`  (not measured: ${(e as Error).message.split('\n')[0]})`);
+    console.warn(`  (not measured: ${(e as Error).message.split("\n")[0]})`);
     return Number.NaN;
   }
 }

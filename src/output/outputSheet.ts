@@ -15,7 +15,8 @@ import type { OutputSolution } from './solveOutput';
  */
 export function outputExtent(tube: OutputTube, bplus: number): PlateExtent {
   const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 250;
-  return { vmax: niceCeil(2.2 * b), iaMax: niceCeil((2.2 * tube.ratings.maxPlateDissipation) / b) };
+  const pd = tube?.ratings?.maxPlateDissipation;
+  return { vmax: niceCeil(2.2 * b), iaMax: niceCeil((2.2 * (typeof pd === 'number' && pd > 0 ? pd : 10)) / b) };
 }
 
 /** The grid voltage that cuts the tube off at the right edge of the chart. */

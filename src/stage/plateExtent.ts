@@ -26,7 +26,9 @@ export function niceCeil(x: number): number {
  * no ratings falls back to B+ alone and the model's current at 0 V grid.
  */
 export function plateExtent(tube: TubeLike, bplus: number, fallbackIa?: number): PlateExtent {
-  const rec = recordOf(tube);
+  const r = typeof tube === 'object' && tube !== null ? recordOf(tube) : null;
+  // A record without usable ratings frames like a bare model.
+  const rec = r && r.ratings?.maxPlateVoltage > 0 && r.ratings?.maxPlateDissipation > 0 ? r : null;
   const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 100;
   const vmax = niceCeil(Math.max(b * 1.1, rec ? rec.ratings.maxPlateVoltage * 1.05 : 0));
   const iaMax = rec

@@ -90,7 +90,7 @@ export function korenSlopesInto(p: KorenTriodeParams, vpk: number, vgk: number, 
  * the small negative-grid current are neglected).
  */
 export function gridCurrent(model: TriodeModel, vgk: number): number {
-  if (!(vgk > 0) || !(model.gridResistance > 0)) return 0;
+  if (!(vgk > 0) || typeof model !== 'object' || model === null || !(model.gridResistance > 0)) return 0;
   const ig = Math.pow(vgk, 1.5) / model.gridResistance;
   return Number.isFinite(ig) ? ig : 0;
 }

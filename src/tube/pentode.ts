@@ -54,7 +54,9 @@ export function korenPentodeInto(p: KorenPentodeParams, va: number, vg1: number,
 
 export function korenPentode(p: KorenPentodeParams, va: number, vg1: number, vg2: number): ElectrodeCurrents {
   const out = { ia: 0, ig2: 0 };
+  if (typeof p !== 'object' || p === null || pentodeParamsProblem(p) !== null) return out;
   korenPentodeInto(p, va, vg1, vg2, out);
+  if (!Number.isFinite(out.ia) || !Number.isFinite(out.ig2)) return { ia: 0, ig2: 0 };
   return out;
 }
 

@@ -16,7 +16,11 @@ export function triode(params: KorenTriodeParams, gridResistance = DEFAULT_GRID_
 
 /** Plate current in amperes for plate–cathode voltage vpk and grid–cathode voltage vgk, in volts. */
 export function plateCurrent(tube: TubeLike, vpk: number, vgk: number): number {
-  return korenPlateCurrent(modelOf(tube).params, vpk, vgk);
+  // Not a tube, or not numbers: no current, never a throw or NaN (hot path: a cheap guard, not the full check).
+  const model = typeof tube === 'object' && tube !== null ? modelOf(tube) : null;
+  if (typeof model !== 'object' || model === null || typeof model.params !== 'object' || model.params === null) return 0;
+  const i = korenPlateCurrent(model.params, vpk, vgk);
+  return Number.isFinite(i) ? i : 0;
 }
 
 /** Small-signal figures of the tube itself at a point: mu, rp (Ω), gm (S). */

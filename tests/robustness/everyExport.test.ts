@@ -135,5 +135,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('logFrequencies', fc.tuple(numbers, numbers, numbers), Q.logFrequencies);
   run('capacitorsForCorner', fc.tuple(fc.constant(solvedStage.checked), fc.constant(solvedStage.solution), numbers, anything), Q.capacitorsForCorner);
   run('dcLoadLine', fc.tuple(anything, anything), Q.dcLoadLine);
+  run('plateCurrent', fc.tuple(tubes, numbers, numbers), Q.plateCurrent);
+  run('gridCurrent', fc.tuple(fc.oneof(near(au7.model), anything), numbers), Q.gridCurrent);
+  run('korenPentode', fc.tuple(fc.oneof(near((el34.law as { params: object }).params), anything), numbers, numbers, numbers), Q.korenPentode);
+  run('plateExtent', fc.tuple(tubes, numbers), Q.plateExtent);
+  run('outputExtent', fc.tuple(outTubes, numbers), Q.outputExtent);
   run('roundUpTo', fc.tuple(fc.oneof(fc.constant([0.25, 0.5, 1, 2]), anything), numbers), Q.roundUpTo);
 });
