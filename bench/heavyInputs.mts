@@ -58,16 +58,20 @@ export async function benchHeavyInputs(browser: OpenBrowser, url: string): Promi
     await page.locator('.custom-tube input[type="file"]').setInputFiles({ name: 'tubes.json', mimeType: 'application/json', buffer: Buffer.from(tubesFile(2000)) });
     await page.waitForFunction(() => /Imported|Nothing imported/.test(document.querySelector('.custom-tube [role="status"]')?.textContent ?? ''), null, { timeout: 60_000 });
   });
+  // A paste, as the browser delivers one: the whole text set at once and one input event (Playwright's fill is far slower).
+  const paste = (text: string) =>
+    box.evaluate((el, t) => {
+      Object.getOwnPropertyDescriptor(HTMLTextAreaElement.prototype, 'value')!.set!.call(el, t);
+      el.dispatchEvent(new Event('input', { bubbles: true }));
+    }, text);
   const fit10000PointsMs = await measure(page, async () => {
-    await box.evaluate((el) => el.scrollIntoView());
-    await box.fill(pointsText(10_000), { force: true, timeout: 60_000 });
-    await page.getByRole('button', { name: 'Fit the model' }).click({ force: true });
-    await page.waitForSelector('[data-testid="fit-summary"]', { timeout: 120_000 });
+    await paste(pointsText(10_000));
+    await page.locator('.custom-tube button', { hasText: 'Fit the model' }).click();
+    await page.waitForSelector('[data-testid="fit-summary"]', { timeout: 60_000 });
   });
   const paste100000LinesMs = await measure(page, async () => {
-    await box.fill(pointsText(100_000), { force: true, timeout: 60_000 });
-    await box.press('End');
-    await box.type('1');
+    await paste(pointsText(100_000));
+    await paste(`${pointsText(10)}\n1`);
   });
   const link2MBMs = await measure(page, async () => {
     await page.evaluate(() => (location.hash = `#design=${'A'.repeat(2_000_000)}`));

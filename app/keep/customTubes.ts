@@ -148,7 +148,7 @@ export function writeTubesFile(list: readonly CustomTubeSpec[]): string {
  * Reads a tubes file. Every tube that reads is returned; each that does not
  * is named with what is wrong, and the others still come through.
  */
-export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[]; problems: string[] } | { ok: false; message: string } {
+export function readTubesFile(text: string, maxTubes = Infinity): { ok: true; specs: CustomTubeSpec[]; problems: string[] } | { ok: false; message: string } {
   if (text.length > MAX_TUBES_FILE_BYTES) return { ok: false, message: `A tubes file is at most ${MAX_TUBES_FILE_BYTES / 1e6} MB (this one is ${(text.length / 1e6).toFixed(1)} MB).` };
   let raw: unknown;
   try {
@@ -160,7 +160,10 @@ export function readTubesFile(text: string): { ok: true; specs: CustomTubeSpec[]
   if (!r || r.format !== TUBES_FORMAT) return { ok: false, message: 'This is not a Quiescent tubes file (its "format" is not "quiescent-tubes").' };
   if (r.version !== 1) return { ok: false, message: `Tubes file version ${String(r.version)} is not one this Quiescent reads (version 1).` };
   if (!Array.isArray(r.tubes)) return { ok: false, message: 'The file has no "tubes" list.' };
-  return { ok: true, ...readTubeList(r.tubes) };
+  // Past the most one file may bring, tubes are not read at all (nor sent back from the worker): named as a count.
+  const read = readTubeList(r.tubes.slice(0, maxTubes));
+  const over = r.tubes.length - Math.min(r.tubes.length, maxTubes);
+  return { ok: true, specs: read.specs, problems: over > 0 ? [...read.problems, `${over} tubes past the first ${maxTubes} were not read (at most ${maxTubes} a file)`] : read.problems };
 }
 
 /** Reads a list of raw tube records: the ones that read, and a problem naming each that does not. */

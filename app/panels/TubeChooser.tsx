@@ -7,6 +7,9 @@ import { useWorkbench } from '../store/StoreProvider';
  * a builder weighs first (mu, rp, gm at its datasheet point, rated plate
  * dissipation). A radio group, so arrow keys move through it.
  */
+/** Tubes listed at once, at most. */
+export const MAX_LISTED = 60;
+
 export function TubeChooser() {
   const tubes = useWorkbench((s) => s.tubes);
   const current = useWorkbench((s) => s.design.tubeId);
@@ -16,7 +19,9 @@ export function TubeChooser() {
   const filterId = useId();
   const errorId = useId();
   const words = filter.trim().toLowerCase().split(/\s+/).filter(Boolean);
-  const shown = tubes.filter((t) => words.every((w) => `${t.id} ${t.description}`.toLowerCase().includes(w)));
+  const matching = tubes.filter((t) => words.every((w) => `${t.id} ${t.description}`.toLowerCase().includes(w)));
+  // A list the eye can scan, and the page can draw at once: the chosen tube and the first matches; the filter finds the rest.
+  const shown = matching.length <= MAX_LISTED ? matching : [...matching.filter((t) => t.id === current), ...matching.filter((t) => t.id !== current).slice(0, MAX_LISTED - 1)];
 
   return (
     <section className="panel tube-chooser" aria-labelledby={`${filterId}-h`}>
@@ -32,7 +37,7 @@ export function TubeChooser() {
       />
       {error ? <p id={errorId} className="field-error" role="alert">{error}</p> : null}
       <div className="tube-list" role="radiogroup" aria-label="Tubes">
-        {shown.length === 0 ? <p className="muted">No tube matches “{filter}”.</p> : null}
+        {matching.length === 0 ? <p className="muted">No tube matches “{filter}”.</p> : null}
         {shown.map((t) => (
           <label key={t.id} className={t.id === current ? 'tube-option chosen' : 'tube-option'} title={t.description}>
             <input type="radio" name="tube" value={t.id} checked={t.id === current} onChange={() => chooseTube(t.id)} />
@@ -43,6 +48,7 @@ export function TubeChooser() {
             <span className="tube-desc">{t.description}</span>
           </label>
         ))}
+        {matching.length > shown.length ? <p className="muted">{`${matching.length - shown.length} more: type in the box to narrow the list.`}</p> : null}
       </div>
     </section>
   );

@@ -91,12 +91,9 @@ export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice
     if (get().custom.busy) return;
     if (text.length > MAX_TUBES_FILE_BYTES) return patch({ note: `Nothing imported: a tubes file is at most ${MAX_TUBES_FILE_BYTES / 1e6} MB (this one is ${(text.length / 1e6).toFixed(1)} MB).` });
     patch({ busy: { what: 'import', done: 0, of: 1 }, note: null });
-    const read = await work.readTubes(text);
+    const r = await work.readTubes(text, MAX_IMPORT_TUBES);
     patch({ busy: null });
-    if (read === 'cancelled') return patch({ note: 'Import cancelled: nothing imported.' });
-    const r = read.ok && read.specs.length > MAX_IMPORT_TUBES
-      ? { ...read, specs: read.specs.slice(0, MAX_IMPORT_TUBES), problems: [...read.problems, `only the first ${MAX_IMPORT_TUBES} tubes of ${read.specs.length} are read from one file`] }
-      : read;
+    if (r === 'cancelled') return patch({ note: 'Import cancelled: nothing imported.' });
     if (!r.ok) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.message}` } });
     if (r.specs.length === 0) return set({ custom: { ...get().custom, note: `Nothing imported: ${r.problems.slice(0, 5).join('; ')}` } });
     const kept = saveCustomTubes(r.specs);

@@ -13,7 +13,7 @@ type TubesRead = ReturnType<typeof readTubesFile>;
 
 export interface OffThread {
   fit(csv: string, typicalCsv: string, onProgress: (done: number, of: number) => void): Promise<FitOutcome | 'cancelled'>;
-  readTubes(text: string): Promise<TubesRead | 'cancelled'>;
+  readTubes(text: string, maxTubes: number): Promise<TubesRead | 'cancelled'>;
   cancel(): void;
 }
 
@@ -37,7 +37,7 @@ export function createOffThread(): OffThread {
   return {
     fit: (csv, typicalCsv, onProgress) =>
       hasWorkers ? run(() => ensure().fitJob(csv, typicalCsv, proxy(onProgress))) : run(async () => fitJob(csv, typicalCsv, onProgress)),
-    readTubes: (text) => run<TubesRead>(hasWorkers ? () => ensure().readTubesFile(text) as Promise<TubesRead> : async () => readTubesFile(text)),
+    readTubes: (text, maxTubes) => run<TubesRead>(hasWorkers ? () => ensure().readTubesFile(text, maxTubes) as Promise<TubesRead> : async () => readTubesFile(text, maxTubes)),
     cancel: () => {
       worker?.terminate();
       worker = null;
