@@ -56,7 +56,8 @@ export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice
 
   setCustomCsv: (csv) => {
     if (csv.length > MAX_POINTS_TEXT) return patch({ note: `The points box holds at most ${MAX_POINTS_TEXT.toLocaleString('en')} characters (about 10,000 points); this is ${csv.length.toLocaleString('en')}. Thin the points or fit them in parts.` });
-    patch({ csv });
+    // The box's maxLength cuts a larger paste where the browser inserts it (so the page never lays out a 100,000-line box): say so.
+    patch({ csv, ...(csv.length === MAX_POINTS_TEXT ? { note: `The points box is full (${MAX_POINTS_TEXT.toLocaleString('en')} characters, about 10,000 points): a longer paste was cut there. Thin the points or fit them in parts.` } : {}) });
   },
   setTypicalCsv: (typicalCsv) => patch({ typicalCsv: typicalCsv.slice(0, MAX_POINTS_TEXT) }),
 

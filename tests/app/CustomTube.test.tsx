@@ -83,3 +83,16 @@ describe('a tube of your own from typical figures alone', () => {
     expect(store.getState().analysis.solution.cin).toBeGreaterThan(0); // Miller input capacitance from the given Cgp
   });
 });
+
+describe('the points box has a size', () => {
+  it('refuses a paste past its size with a message and keeps what it had; a full box says a paste was cut', async () => {
+    const { MAX_POINTS_TEXT } = await import('../../app/store/customSlice');
+    const store = createWorkbenchStore();
+    store.getState().setCustomCsv('100, 0, 5');
+    store.getState().setCustomCsv('1'.repeat(MAX_POINTS_TEXT + 1));
+    expect(store.getState().custom.csv).toBe('100, 0, 5');
+    expect(store.getState().custom.note).toMatch(/^The points box holds at most 400,000 characters/);
+    store.getState().setCustomCsv('1'.repeat(MAX_POINTS_TEXT));
+    expect(store.getState().custom.note).toMatch(/^The points box is full .* a longer paste was cut there/);
+  });
+});

@@ -1,0 +1,43 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+
+const run = chromiumGate();
+
+/** Points from a smooth 3/2-power family, in the box's units (V, V, mA). */
+const points = (n: number) =>
+  Array.from({ length: n }, (_, k) => {
+    const vg = -2 * (k % 6);
+    const va = 40 + ((k * 7) % 300);
+    return `${va}, ${vg}, ${Math.max(0.01, 1.2e-3 * Math.pow(Math.max(0, va / 20 + vg), 1.5)).toFixed(4)}`;
+  }).join('\n');
+
+describe.runIf(run)('heavy work off the page\'s thread', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('a 10,000-point fit runs in a worker with progress, can be cancelled, and then runs to the end', async () => {
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    const box = page.locator('.custom-tube textarea').first();
+    await box.evaluate((el) => el.scrollIntoView());
+    await box.evaluate((el, t) => {
+      Object.getOwnPropertyDescriptor(HTMLTextAreaElement.prototype, 'value')!.set!.call(el, t);
+      el.dispatchEvent(new Event('input', { bubbles: true }));
+    }, points(10_000));
+    const fitButton = page.locator('.custom-tube button', { hasText: 'Fit the model' });
+    await fitButton.click({ force: true });
+    await page.waitForSelector('.custom-tube progress', { state: 'attached' });
+    await page.locator('.custom-tube button', { hasText: 'Cancel' }).click({ force: true });
+    await expect.poll(() => page.locator('.custom-tube [role="status"]').textContent()).toBe('Fit cancelled: nothing changed.');
+    expect(await page.locator('[data-testid="fit-summary"]').count()).toBe(0);
+    await fitButton.click({ force: true });
+    await page.waitForSelector('[data-testid="fit-summary"]', { state: 'attached', timeout: 60_000 });
+    expect(await page.locator('[data-testid="fit-summary"]').textContent()).toMatch(/RMS error/);
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+});
