@@ -52,6 +52,9 @@ async function measure(page: Page, step: () => Promise<void>): Promise<number> {
 
 export async function benchHeavyInputs(browser: OpenBrowser, url: string): Promise<HeavyInputResults> {
   const { page } = await openWorkbench(browser, url);
+  // The pages before may have left the autosave on the output stage: these inputs live on the voltage stage's bench.
+  await page.getByLabel('Voltage stage (resistance-coupled)').check();
+  await page.waitForSelector('.custom-tube textarea', { state: 'attached' });
   await page.evaluate(WATCH);
   const box = page.locator('.custom-tube textarea').first();
   // The file is made in the page and handed to the input before the watch starts: Playwright's own
