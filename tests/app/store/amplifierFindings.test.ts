@@ -33,3 +33,14 @@ describe('one ratings list for the amplifier', () => {
     expect(byHeading['Heaters']).toMatch(/Elevate the heater supply to about/);
   });
 });
+
+describe('the output stage\'s card', () => {
+  it('keeps every stage\'s dangers and warnings but only its own notes, so its parts fit the page', () => {
+    const store = overRatedFollower();
+    store.getState().setStageKind('output');
+    const ratings = cardSections(store.getState()).find((x) => x.heading === 'Ratings, every stage')!.lines;
+    expect(ratings.some((l) => l.startsWith('DANGER: Stage 2, 12AX7 cathode follower: Heater-to-cathode'))).toBe(true);
+    expect(ratings.some((l) => l.startsWith('NOTE: Stage 1'))).toBe(false);
+    expect(ratings.some((l) => l.startsWith('NOTE: Output stage, EL34'))).toBe(true);
+  });
+});
