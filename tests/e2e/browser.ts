@@ -72,3 +72,4 @@ export async function openWorkbench(browser: OpenBrowser, url: string): Promise<
   if (await ack.isVisible()) await ack.click();
   return { page, errors };
 }
+

@@ -1,5 +1,6 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openWorkbench } from './browser';
+import { useBrowser } from './useBrowser';
 
 const run = chromiumGate();
 
@@ -12,16 +13,10 @@ const points = (n: number) =>
   }).join('\n');
 
 describe.runIf(run)('heavy work off the page\'s thread', () => {
-  let browser: OpenBrowser;
-  beforeAll(async () => {
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('a 10,000-point fit runs in a worker with progress, can be cancelled, and then runs to the end', async () => {
-    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    const { page, errors } = await openWorkbench(browser.current, inject('baseUrl'));
     const box = page.locator('.custom-tube textarea').first();
     await box.evaluate((el) => el.scrollIntoView());
     await box.evaluate((el, t) => {

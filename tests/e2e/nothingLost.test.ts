@@ -1,19 +1,14 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openWorkbench } from './browser';
+import { useBrowser } from './useBrowser';
 
 const run = chromiumGate();
 
 describe.runIf(run)('nothing lost, every danger shown, in Chromium', () => {
-  let browser: OpenBrowser;
-  beforeAll(async () => {
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('a change reloaded at once (inside the autosave delay) is kept, with its undo step', async () => {
-    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const { page } = await openWorkbench(browser.current, inject('baseUrl'));
     await page.getByRole('textbox', { name: /^Ra/ }).fill('39k');
     await page.reload(); // pagehide flushes the autosave
     await page.waitForSelector('.layer-curves path');
@@ -23,7 +18,7 @@ describe.runIf(run)('nothing lost, every danger shown, in Chromium', () => {
   });
 
   it('a damaged link, opened on a tab or pasted into it, leaves the last design open and says why', async () => {
-    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const { page } = await openWorkbench(browser.current, inject('baseUrl'));
     await page.getByRole('textbox', { name: /^Ra/ }).fill('33k');
     await page.goto(`${inject('baseUrl')}/#design=abcd==`);
     await page.reload();
@@ -37,7 +32,7 @@ describe.runIf(run)('nothing lost, every danger shown, in Chromium', () => {
   });
 
   it('a follower past its heater–cathode rating is a danger in the one ratings list, tagged with its stage', async () => {
-    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const { page } = await openWorkbench(browser.current, inject('baseUrl'));
     await page.getByRole('radio', { name: /^12AX7/ }).check({ force: true });
     await page.getByRole('textbox', { name: /^B\+/ }).fill('400');
     await page.getByRole('textbox', { name: /^Ra/ }).fill('220k');

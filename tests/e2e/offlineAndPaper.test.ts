@@ -1,26 +1,21 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openWorkbench } from './browser';
+import { useBrowser } from './useBrowser';
 
 const run = chromiumGate();
 
 describe.runIf(run)('at the bench: offline and on paper', () => {
-  let browser: OpenBrowser;
-  beforeAll(async () => {
-    browser = await openBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('once loaded, the workbench opens and works with the network gone, and it offers itself for installing', async () => {
-    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const { page } = await openWorkbench(browser.current, inject('baseUrl'));
     expect(await page.locator('link[rel="manifest"]').count()).toBe(1);
     // Wait until the service worker controls the page and has precached the build.
     await page.evaluate(async () => {
       await navigator.serviceWorker.ready;
       if (!navigator.serviceWorker.controller) await new Promise((r) => navigator.serviceWorker.addEventListener('controllerchange', r, { once: true }));
     });
-    await browser.context.setOffline(true);
+    await browser.current.context.setOffline(true);
     try {
       await page.reload();
       await page.waitForSelector('.layer-curves path');
@@ -30,13 +25,13 @@ describe.runIf(run)('at the bench: offline and on paper', () => {
       await page.getByRole('textbox', { name: /^B\+/ }).fill('300');
       await expect.poll(() => page.locator('[data-figure="bplus"] dd').textContent()).toMatch(/300/);
     } finally {
-      await browser.context.setOffline(false);
+      await browser.current.context.setOffline(false);
     }
     await page.close();
   });
 
   it('prints on one A4 page, controls left off, the caution kept', async () => {
-    const { page } = await openWorkbench(browser, inject('baseUrl'));
+    const { page } = await openWorkbench(browser.current, inject('baseUrl'));
     await page.emulateMedia({ media: 'print' });
     expect(await page.locator('button').first().isVisible()).toBe(false);
     expect(await page.getByRole('complementary', { name: 'Safety caution' }).isVisible()).toBe(true);

@@ -1,13 +1,12 @@
 import { render, screen, waitFor } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../../app/App';
-import { bounded, customSpecs, loadCustomTubes, lookupTube, MAX_KEPT_POINTS, saveCustomTube, type CustomTubeSpec } from '../../../app/keep/customTubes';
+import { bounded, customSpecs, loadCustomTubes, lookupTube, MAX_KEPT_POINTS, removeFromPageForTests as clearPageOnly, saveCustomTube, type CustomTubeSpec } from '../../../app/keep/customTubes';
 import { readDesignFile, withKnownTubes, writeDesignFile } from '../../../app/keep/designFile';
 import { LEGACY_KEY } from '../../../app/keep/keptTubes';
 import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { korenPublishedSets } from '../../../src/index';
-import { clearPageOnly } from './pageOnly';
 
 const spec = (name: string, points = 20): CustomTubeSpec => ({
   name,
