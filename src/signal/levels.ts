@@ -1,6 +1,6 @@
 /**
  * Signal levels. dBV is relative to 1 V rms; dBu to 0.7746 V rms, the voltage
- * that dissipates 1 mW in 600 Ω (√0.6 V; IEC 60268-3 and audio practice).
+ * that dissipates 1 mW in 600 Ω (√0.6 V; common practice in audio, from the old 600 Ω telephone lines).
  */
 export const DBU_REFERENCE_VOLTS = Math.sqrt(0.6);
 

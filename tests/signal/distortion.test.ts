@@ -53,7 +53,7 @@ describe('distortion and swing', () => {
     expectClose(r.toGridCurrent, 1.3142747, { rel: 1e-3 }); // this stage's Vgk, from solveStage
   });
 
-  // dBV re 1 V rms and dBu re 0.7746 V rms (1 mW into 600 Ω): IEC 60268-3 and audio practice.
+  // dBV re 1 V rms and dBu re 0.7746 V rms (1 mW into 600 Ω): common practice in audio.
   it('levels: 1 V rms is 0 dBV and 0.7746 V rms is 0 dBu (1 mW into 600 Ω)', () => {
     expectClose(sineLevel(Math.SQRT2).dBV!, 0, { abs: 1e-12 });
     expectClose(sineLevel(Math.SQRT2 * Math.sqrt(0.6)).dBu!, 0, { abs: 1e-12 });
