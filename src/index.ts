@@ -69,7 +69,11 @@ export { swing, swingOf, type SwingResult, type SwingLimit } from './signal/swin
 export { distortion, distortionOf, DEFAULT_SAMPLES, type DriveLevel, type DistortionOptions, type DistortionResult } from './signal/distortion';
 export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } from './signal/frequencyResponse';
 export { corners, cornersOf, type Corners } from './signal/corners';
-export { solveChain, type ChainLink, type LinkResult, type ChainResult } from './signal/solveChain';
+export { solveLinks, type ChainLink, type LinkResult, type LinkChainResult } from './signal/solveLinks';
+export { solveChain } from './chain/solveChain';
+export { solveAmplifier, checkChain, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
+export { STAGE_KINDS, STAGE_KIND_LABELS } from './chain/stageKinds';
+export type { ChainInput, ChainResult, ChainStage, StageKindName, StageResult, Coupling, CapacitorCoupling, DirectCoupling, CommonCathodeLink, FollowerLink, SingleEndedLink, ClipCause } from './chain/chainTypes';
 export { sineLevel, decibelsOf, DB_FLOOR, NO_SIGNAL_VOLTS, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
 export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';
@@ -99,3 +103,4 @@ export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputO
 export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
 export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';
+export { amplifierAtLevel, type AmplifierLevel, type AmplifierAtLevel, type StageLevel } from './chain/amplifierAtLevel';

@@ -11,7 +11,7 @@ import {
   swingPath,
   transferCurve,
   type ChainLink,
-  type ChainResult,
+  type LinkChainResult,
   type Corners,
   type CurveSheet,
   type DistortionResult,
@@ -39,7 +39,7 @@ export interface SignalAnalysis {
   readonly response: readonly ResponsePoint[];
   readonly corners: Corners;
   readonly thdByLevel: readonly LevelThd[];
-  readonly chain: ({ ok: true } & ChainResult) | Failure | null;
+  readonly chain: ({ ok: true } & LinkChainResult) | Failure | null;
   /** The second stage's own plate curves and operating point, when it has one. */
   readonly stage2: { readonly sheet: CurveSheet; readonly point: PlanePoint; readonly tubeId: string } | null;
   /** True while a drag is in progress: these figures are from before it and are redone on release. */

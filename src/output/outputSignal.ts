@@ -52,7 +52,7 @@ export interface Waveform {
 }
 
 /** One instant on the AC load. */
-interface Instant {
+export interface Instant {
   vpk: number;
   ip: number;
   winding: number;
@@ -68,7 +68,7 @@ interface Instant {
  */
 const c = emptyCurrents();
 
-function solveInstant(s: OutputSolution, vgk: number, zPrimary: number, out: Instant): void {
+export function solveInstant(s: OutputSolution, vgk: number, zPrimary: number, out: Instant): void {
   const { supply, mmf: mq, feed } = s.op;
   const rp = s.design.rPrimary;
   const tap = feed.kind === 'tap' ? feed.fraction : 0;

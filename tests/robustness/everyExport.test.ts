@@ -112,6 +112,14 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('frequencyResponse', fc.tuple(near(stage), or(fc.array(fc.double({ min: 0.1, max: 1e7 }), { maxLength: 20 }))), Q.frequencyResponse);
   run('corners', fc.tuple(near({ ...stage, cin: 100e-9, rg: 1e6, rsource: 10e3, cout: 1e-6 })), Q.corners, 150);
   run('solveChain', fc.tuple(or(fc.array(near({ kind: 'common-cathode', ...stage }), { maxLength: 3 }))), Q.solveChain);
+  const chainStages = [
+    { kind: 'common-cathode', tube: au7, bplus: 275, ra: 27e3, rk: 1200, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    { kind: 'follower', tube: au7, bplus: 275, rk: 22e3, coupling: { kind: 'direct' } },
+    { ...output, kind: 'single-ended-output', tube: el34, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } },
+  ];
+  const amplifier = fc.tuple(near(chainStages[0]!), near(chainStages[1]!), near(chainStages[2]!), near({ rsource: 1e3 }), fc.integer({ min: 0, max: 3 })).map(([a, b, c, source, n]) => ({ source, stages: [a, b, c].slice(0, n) }));
+  run('solveChain (amplifier)', fc.tuple(fc.oneof(amplifier, near({ source: { rsource: 0 }, stages: chainStages }))), Q.solveChain, 150);
+  run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
   run('analyzeOutput (light)', fc.tuple(outTubes, near(output), near({ light: true })), Q.analyzeOutput, 150);
   run('biasForPoint', fc.tuple(outTubes, near(output), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.biasForPoint);

@@ -15,7 +15,7 @@ const g = (x: number) => x.toPrecision(12);
 const L_PRIMARY = 100;
 const K = 0.999999;
 
-function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: number; kp: number; kvb: number }): string {
+export function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: number; kp: number; kvb: number }): string {
   return [
     '.subckt pent plate screen grid cathode',
     `.param mu=${g(p.mu)} ex=${g(p.ex)} kg1=${g(p.kg1)} kg2=${g(p.kg2)} kp=${g(p.kp)} kvb=${g(p.kvb)}`,

@@ -3,6 +3,7 @@ import { corners, distortion, findTube, swing, type StageDesign } from '../../sr
 import { expectClose } from '../helpers/expectClose';
 import { distortionNetlist, responseNetlist } from './netlists';
 import { fourierTable, ngspiceGate, runNgspiceFull } from './ngspice';
+import { simulatedCorners } from './simulatedCorners';
 
 // Outside reference: ngspice (Debian's package). Harmonics from a transient
 // run and its Fourier analysis; -3 dB points from an AC sweep. Agreement asked:
@@ -40,22 +41,6 @@ describe.runIf(run)('harmonics agree with an ngspice transient and Fourier analy
     expect(Math.abs(ours.harmonicsDb[1]! - dB(sim.get(3)!.normalized)), `H3 ${ours.harmonicsDb[1]} vs ${dB(sim.get(3)!.normalized)}`).toBeLessThan(1);
   });
 });
-
-/** The simulator's -3 dB points from its sweep, by log interpolation between samples. */
-function simulatedCorners(data: string): { low: number | null; high: number | null } {
-  const rows = data.trim().split('\n').map((l) => l.trim().split(/\s+/).map(Number)).map((c) => ({ f: c[0]!, m: c[1]! }));
-  let peak = 0;
-  rows.forEach((r, k) => {
-    if (r.m > rows[peak]!.m) peak = k;
-  });
-  const level = rows[peak]!.m / Math.SQRT2;
-  const cross = (a: { f: number; m: number }, b: { f: number; m: number }) => Math.exp(Math.log(a.f) + ((level - a.m) / (b.m - a.m)) * (Math.log(b.f) - Math.log(a.f)));
-  let low: number | null = null;
-  for (let k = peak; k > 0; k--) if (rows[k - 1]!.m < level) { low = cross(rows[k - 1]!, rows[k]!); break; }
-  let high: number | null = null;
-  for (let k = peak; k < rows.length - 1; k++) if (rows[k + 1]!.m < level) { high = cross(rows[k]!, rows[k + 1]!); break; }
-  return { low, high };
-}
 
 describe.runIf(run)('-3 dB points agree with an ngspice AC sweep', () => {
   const networks = [

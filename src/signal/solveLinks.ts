@@ -16,7 +16,7 @@ export type ChainLink =
 
 export type LinkResult = ({ readonly kind: 'common-cathode' } & StageSolution) | ({ readonly kind: 'follower' } & FollowerSolution);
 
-export interface ChainResult {
+export interface LinkChainResult {
   readonly links: readonly LinkResult[];
   /** Overall voltage gain, signed: negative means the chain inverts. */
   readonly gain: number;
@@ -32,13 +32,14 @@ export interface ChainResult {
 }
 
 /**
- * Solves a one- or two-link chain. A common-cathode second link is coupled
+ * Solves a one- or two-link chain (the first version's input, kept working:
+ * `solveChain` answers an array with this). A common-cathode second link is coupled
  * through a capacitor, so its grid leak Rg loads the first plate; a follower
  * is direct-coupled, its grid at the first plate's voltage, and loads it not
  * at all (no grid current below 0 V). The combined clean swing comes from the
  * large-signal transfers composed sample by sample.
  */
-export function solveChain(links: readonly ChainLink[]): Result<ChainResult> {
+export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult> {
   if (!Array.isArray(links) || links.length < 1 || links.length > 2) return fail('invalid-input', 'A chain has one or two links');
   if (!links.every((l) => typeof l === 'object' && l !== null)) return fail('invalid-input', 'Every link of a chain must be a stage design', 'links');
   const first = links[0]!;

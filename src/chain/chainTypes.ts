@@ -1,0 +1,114 @@
+import type { OutputDesign } from '../output/outputDesign';
+import type { OutputTube } from '../output/outputTube';
+import type { StageFinding } from '../stage/stageFindings';
+import type { TubeLike } from '../tube/types';
+import type { Level } from '../signal/levels';
+
+/**
+ * An amplifier as a chain of stages, input jack to speaker. SI units
+ * throughout. Each stage names how its grid is fed from the output before it
+ * (the source, for the first stage): through a coupling capacitor into a grid
+ * leak, or directly (the grid at the previous output's DC voltage).
+ */
+export type Coupling = CapacitorCoupling | DirectCoupling;
+
+export interface CapacitorCoupling {
+  readonly kind: 'capacitor';
+  /** Coupling capacitor, F. */
+  readonly cc: number;
+  /** Grid leak to ground (or to the stage's own bias), Ω. */
+  readonly rg: number;
+}
+
+export interface DirectCoupling {
+  readonly kind: 'direct';
+}
+
+/** A common-cathode triode stage: plate resistor, cathode resistor (bypassed or not) and/or a fixed grid bias. */
+export interface CommonCathodeLink {
+  readonly kind: 'common-cathode';
+  readonly tube: TubeLike;
+  /** The supply node at the top of Ra, V. */
+  readonly bplus: number;
+  readonly ra: number;
+  readonly rk: number;
+  readonly bypassed: boolean;
+  /** Cathode bypass capacitor, F; absent with `bypassed` means an ideal one. */
+  readonly ck?: number;
+  /** Fixed grid bias to ground through the grid leak, V (capacitor coupling only); default 0. */
+  readonly vbias?: number;
+  /** DC potential of the heater to ground, V; default 0. */
+  readonly heaterVolts?: number;
+  readonly coupling: Coupling;
+}
+
+/** A cathode follower: plate at its B+, output at the cathode across Rk. */
+export interface FollowerLink {
+  readonly kind: 'follower';
+  readonly tube: TubeLike;
+  readonly bplus: number;
+  readonly rk: number;
+  /** Grid DC voltage to ground with capacitor coupling (a divider or bias supply through the grid leak), V; default 0. */
+  readonly vbias?: number;
+  readonly heaterVolts?: number;
+  readonly coupling: Coupling;
+}
+
+/** A single-ended, transformer-coupled output stage (the parts of OutputDesign; its grid resistor is the coupling's grid leak). */
+export interface SingleEndedLink extends Omit<OutputDesign, 'tubeId' | 'rg'> {
+  readonly kind: 'single-ended-output';
+  readonly tube: OutputTube;
+  /** Cathode bypass capacitor, F (cathode bias); absent means an ideal one. */
+  readonly ck?: number;
+  readonly coupling: Coupling;
+}
+
+export type ChainStage = CommonCathodeLink | FollowerLink | SingleEndedLink;
+export type StageKindName = ChainStage['kind'];
+
+export interface ChainInput {
+  readonly source: { readonly rsource: number };
+  readonly stages: readonly ChainStage[];
+  /** A load on the last stage's output through an ideal capacitor, Ω (a line input, say); none when absent. */
+  readonly load?: { readonly rl: number };
+}
+
+/** What ends a stage's clean swing. */
+export type ClipCause = 'grid-current' | 'cutoff';
+
+export interface StageResult {
+  readonly kind: StageKindName;
+  /** DC operating point: plate and cathode to ground, plate current, grid to cathode (V, V, A, V). */
+  readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
+  /** DC voltage of the stage's output (plate, or cathode for a follower), V: what a direct-coupled grid after it sits at. */
+  readonly outputDc: number;
+  /** Small-signal midband gain into the load the next stage really presents, signed (an output stage: plate-phased, to the speaker). */
+  readonly gain: number;
+  /** Midband input impedance at the grid, Ω; null for a direct-coupled grid, which has no leak and draws no current below 0 V. */
+  readonly zin: number | null;
+  /** Output impedance, Ω (at the speaker for an output stage), the load excluded. */
+  readonly zout: number;
+  /** The input peak (at the amplifier's input) at which this stage's own swing ends, V, and what ends it; null when it never does within the search. */
+  readonly clipsAt: { readonly inputPeak: number; readonly by: ClipCause } | null;
+  /** dB between the amplifier's clean limit and this stage's own; 0 for the stage that clips first; null when it never clips. */
+  readonly headroomDb: number | null;
+  readonly findings: readonly StageFinding[];
+}
+
+export interface ChainResult {
+  readonly stages: readonly StageResult[];
+  /** Overall midband voltage gain from the source's open-circuit voltage to the output, signed. */
+  readonly gain: number;
+  readonly inverting: boolean;
+  /** −3 dB points of the whole chain (every coupling network, bypass, Miller capacitance and the source impedance), Hz; null when flat past 0.01 Hz or 100 MHz. */
+  readonly lowHz: number | null;
+  readonly highHz: number | null;
+  readonly clipsFirst: { readonly stage: number; readonly by: ClipCause };
+  /** The largest clean input peak and the output peak there, V. */
+  readonly inputPeak: number;
+  readonly outputPeak: number;
+  readonly input: Level;
+  readonly output: Level;
+  /** Every stage's findings, each tagged with its stage, most severe first. */
+  readonly findings: readonly StageFinding[];
+}

@@ -1,0 +1,79 @@
+import { fail } from '../result';
+import { checkNumber, checkTube, LIMITS } from '../stage/checkInput';
+import { solveStage } from '../stage/solveStage';
+import { normalizeStage, type StageDesign } from '../stage/stageDesign';
+import { stageTransfer } from '../signal/stageTransfer';
+import { CUTOFF_FRACTION } from '../tube/koren';
+import { recordOf } from '../tube/types';
+import type { CommonCathodeLink } from './chainTypes';
+import { checkCoupling, couplingImpedance } from './checkCoupling';
+import { NO_CAPACITANCES } from './noCapacitances';
+import type { StageKind } from './stageKind';
+
+/** The common-cathode stage in the chain: today's solver and large-signal transfer, with the next grid's leak as its load. */
+export const commonCathodeKind: StageKind<CommonCathodeLink> = {
+  kind: 'common-cathode',
+  check(s) {
+    return (
+      checkTube(s.tube) ??
+      checkCoupling(s.coupling, true) ??
+      checkNumber('bplus', 'B+', s.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
+      checkNumber('ra', 'Ra', s.ra, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
+      checkNumber('rk', 'Rk', s.rk, 'Ω', 0, LIMITS.maxOhms) ??
+      (typeof s.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
+      (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
+      (s.vbias === undefined ? null : checkNumber('vbias', 'Grid bias', s.vbias, 'V', -LIMITS.maxBiasVolts, LIMITS.maxBiasVolts)) ??
+      (s.coupling?.kind === 'direct' && (s.vbias ?? 0) !== 0 ? fail('invalid-input', 'A direct-coupled grid sits at the previous output\'s voltage: it takes no fixed bias', 'vbias') : null) ??
+      (s.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', s.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts))
+    );
+  },
+  inputImpedance: (s) => couplingImpedance(s.coupling),
+  solve(s, env) {
+    const design: StageDesign = {
+      tube: s.tube,
+      bplus: s.bplus,
+      ra: s.ra,
+      rk: s.rk,
+      bypassed: s.bypassed,
+      ...(s.ck !== undefined && s.bypassed ? { ck: s.ck } : {}),
+      rl: env.load,
+      vbias: env.gridDc ?? s.vbias ?? 0,
+      ...(s.coupling.kind === 'capacitor' ? { rg: s.coupling.rg } : {}),
+      heaterVolts: s.heaterVolts ?? 0,
+    };
+    const solved = solveStage(design);
+    if (!solved.ok) return solved;
+    const checked = normalizeStage(design);
+    if ('ok' in checked) return checked;
+    const t = stageTransfer(checked, solved.op);
+    const { op } = solved;
+    return {
+      ok: true,
+      op: { va: op.va, vk: op.vk, ia: op.ia, vgk: op.vgk },
+      outputDc: op.va,
+      gain: solved.gain,
+      zin: couplingImpedance(s.coupling),
+      zout: solved.zout,
+      sample: (vin, out) => {
+        const x = t.at(vin);
+        out.vout = x.vout;
+        out.vgk = x.vgk;
+        out.ia = x.ia;
+      },
+      cutoffCurrent: CUTOFF_FRACTION * op.ia,
+      findings: solved.findings,
+      linear: {
+        gm: solved.gm,
+        rp: solved.rp,
+        plateLoad: s.ra,
+        rk: checked.rk,
+        ck: checked.bypassed ? checked.ck : null,
+        cathodeGrounded: checked.rk === 0 || (checked.bypassed && checked.ck === null),
+        gScreen: 0,
+        caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES,
+        output: 'plate',
+        outputScale: 1,
+      },
+    };
+  },
+};

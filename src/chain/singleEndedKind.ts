@@ -1,0 +1,95 @@
+import { checkOutputInput } from '../output/checkOutput';
+import { outputFindings } from '../output/outputFindings';
+import { cleanLimit, CUTOFF_SHARE, solveInstant, type Instant } from '../output/outputSignal';
+import type { OutputDesign } from '../output/outputDesign';
+import { solveOutput, type OutputSolution } from '../output/solveOutput';
+import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
+import { checkNumber, LIMITS } from '../stage/checkInput';
+import type { SingleEndedLink } from './chainTypes';
+import { checkCoupling, couplingImpedance } from './checkCoupling';
+import type { LinkSample, StageKind } from './stageKind';
+
+/** d(Ik − coupled current)/dVgk at the operating point: the screen current's share that the cathode carries but the winding does not. */
+function screenTransconductance(s: OutputSolution): number {
+  const c = emptyCurrents();
+  const h = 1e-3;
+  stageCurrentsInto(s.tube, s.op.feed, s.op.vpk, s.op.vgk + h, c, 0);
+  const up = c.ik - c.mmf;
+  stageCurrentsInto(s.tube, s.op.feed, s.op.vpk, s.op.vgk - h, c, 0);
+  return Math.max(0, (up - (c.ik - c.mmf)) / (2 * h));
+}
+
+/** The output stage's own design record, its grid resistor being the coupling's grid leak. */
+function designOf(s: SingleEndedLink): OutputDesign {
+  const { kind: _kind, tube, coupling, ck: _ck, ...parts } = s;
+  return { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 };
+}
+
+/**
+ * The single-ended output stage in the chain. Its output is the speaker's
+ * voltage, phased as the plate (the winding's sense is the builder's choice);
+ * the transformer is ideal apart from the primary's DC resistance, which is
+ * in series with the reflected load for signal too.
+ */
+export const singleEndedKind: StageKind<SingleEndedLink> = {
+  kind: 'single-ended-output',
+  check(s) {
+    return (
+      checkCoupling(s.coupling, false) ??
+      checkOutputInput(s.tube, designOf(s)) ??
+      (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads))
+    );
+  },
+  inputImpedance: (s) => couplingImpedance(s.coupling),
+  solve(s) {
+    const design = designOf(s);
+    const solved = solveOutput(s.tube, design);
+    if (!solved.ok) return solved;
+    const { op } = solved;
+    const zp = design.zPrimary;
+    const ratio = Math.sqrt(design.speakerOhms / zp);
+    const series = zp + design.rPrimary;
+    const scale = (ratio * zp) / series;
+    const instant: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
+    const peak = cleanLimit(solved, zp).at.vpkMax + op.vk;
+    const sample = (vin: number, out: LinkSample) => {
+      solveInstant(solved, op.vgk + vin, zp, instant);
+      out.vout = -instant.winding * ratio;
+      out.vgk = op.vgk + vin;
+      out.ia = instant.ip;
+    };
+    // The gain from the large-signal solution itself (central difference over ±1 mV): an ultralinear
+    // screen's current couples through the tap's share of the turns, which the plate's own slopes leave out.
+    const probe: LinkSample = { vout: 0, vgk: 0, ia: 0 };
+    const h = 1e-3;
+    sample(h, probe);
+    const up = probe.vout;
+    sample(-h, probe);
+    const gain = (up - probe.vout) / (2 * h);
+    const rLoad = (op.rp * series) / (op.rp + series);
+    return {
+      ok: true,
+      op: { va: op.vpk + op.vk, vk: op.vk, ia: op.ip, vgk: op.vgk },
+      outputDc: 0,
+      gain,
+      zin: couplingImpedance(s.coupling),
+      zout: (op.rp + design.rPrimary) * ratio * ratio,
+      sample,
+      cutoffCurrent: CUTOFF_SHARE * op.ip,
+      findings: outputFindings(solved, peak),
+      linear: {
+        // The transconductance that gives the same midband gain in the linear network.
+        gm: -gain / (scale * rLoad),
+        rp: op.rp,
+        plateLoad: series,
+        rk: design.bias === 'cathode' ? design.rk : 0,
+        ck: design.bias === 'cathode' ? (s.ck ?? null) : null,
+        cathodeGrounded: design.bias === 'fixed' || s.ck === undefined,
+        gScreen: screenTransconductance(solved),
+        caps: s.tube.capacitances,
+        output: 'plate',
+        outputScale: scale,
+      },
+    };
+  },
+};

@@ -1,0 +1,75 @@
+import type { Failure, Result } from '../result';
+import type { Capacitances } from '../tube/types';
+import type { Finding } from '../stage/ratingBands';
+import type { ChainStage } from './chainTypes';
+
+/**
+ * The stage linearised at its operating point, for the chain's nodal
+ * analysis: a current source gm·vgk and rp between plate and cathode, the
+ * interelectrode capacitances, and the parts from plate and cathode to
+ * signal ground.
+ */
+export interface LinearStage {
+  readonly gm: number;
+  readonly rp: number;
+  /** Plate to signal ground, Ω; 0 when the plate is at signal ground (a follower's, on its B+). */
+  readonly plateLoad: number;
+  /** Cathode to ground, Ω; 0 when the cathode is grounded. */
+  readonly rk: number;
+  /** A real bypass capacitor across Rk, F, or null. */
+  readonly ck: number | null;
+  /** An ideal bypass: the cathode at signal ground. */
+  readonly cathodeGrounded: boolean;
+  /** Transconductance of current that enters the cathode but not the plate's load (a screen's, fed from its own supply or the tap), S; 0 for a triode. */
+  readonly gScreen: number;
+  readonly caps: Capacitances;
+  /** Where the signal leaves the stage. */
+  readonly output: 'plate' | 'cathode';
+  /** Output voltage over the output node's voltage: 1, or an output transformer's turns ratio (secondary over primary). */
+  readonly outputScale: number;
+}
+
+/** One instant of the stage's large-signal response, written in place (the chain solves thousands a waveform). */
+export interface LinkSample {
+  /** Output less its quiescent value, V. */
+  vout: number;
+  vgk: number;
+  /** The current whose fall marks cutoff (plate current; the primary's for an output stage), A. */
+  ia: number;
+}
+
+/** A stage solved with the load the next stage puts on it. */
+export interface SolvedLink {
+  readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
+  readonly outputDc: number;
+  readonly gain: number;
+  readonly zin: number;
+  readonly zout: number;
+  /** The stage at a grid swing vin from its bias (midband: the capacitors hold their DC voltages). */
+  readonly sample: (vin: number, out: LinkSample) => void;
+  /** Below this current the stage is cut off, A. */
+  readonly cutoffCurrent: number;
+  readonly findings: readonly Finding[];
+  readonly linear: LinearStage;
+}
+
+/** Where a stage sits in the chain: what feeds its grid at DC, and what loads its output at midband. */
+export interface LinkEnv {
+  /** With direct coupling, the DC voltage of the output before it (0 V for the source); null with a coupling capacitor. */
+  readonly gridDc: number | null;
+  /** Midband load on the output: the next grid's input impedance, or the amplifier's load, Ω (Infinity for none). */
+  readonly load: number;
+}
+
+/**
+ * What every kind of stage provides to the chain. Push-pull stages and phase
+ * splitters join through the same interface.
+ */
+export interface StageKind<S extends ChainStage> {
+  readonly kind: S['kind'];
+  /** The stage's design checked on its own: the first field that cannot be used, or null. */
+  check(stage: S): Failure | null;
+  /** Midband input impedance at the grid, Ω, set by the coupling alone. */
+  inputImpedance(stage: S): number;
+  solve(stage: S, env: LinkEnv): Result<SolvedLink>;
+}

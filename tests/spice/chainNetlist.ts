@@ -1,0 +1,95 @@
+import type { ChainInput, ChainStage } from '../../src/index';
+import { modelOf, recordOf } from '../../src/index';
+import { pentodeSubckt } from './outputNetlist';
+import { triodeSubckt } from './netlists';
+
+/**
+ * A whole amplifier for ngspice, stage by stage from the same ChainInput the
+ * model takes: Koren's laws as behavioural sources with the interelectrode
+ * capacitances, every coupling capacitor and grid leak as given, a bias
+ * supply behind each leak, and an output transformer as coupled inductors
+ * large enough (10 kH, k = 1 − 10⁻¹⁰) to act as the ideal transformer the
+ * model assumes across the audio band and well past it. Where the design
+ * leaves a bypass ideal, a large capacitor stands for it: 1 F in the AC
+ * sweep, 1 mF in the transient (ngspice's time step collapses with more).
+ * The transient checks the midband large-signal figures, so there every
+ * coupling capacitor is 10 µF and every bypass 1 mF: a real 15 nF would
+ * still be settling from the sine's start over a 5 ms run and shift the
+ * operating points the harmonics are read at. The AC sweep keeps every
+ * capacitor as given.
+ */
+const g = (x: number) => x.toPrecision(12);
+const L_PRIMARY = 1e4;
+const K = 1 - 1e-10;
+
+export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'tran'; readonly peak: number };
+
+/** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
+export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
+
+function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean): { lines: string[]; output: string } {
+  const p = nodes.plate(i);
+  const k = nodes.cathode(i);
+  const gnode = s.coupling.kind === 'direct' ? input : `g${i}`;
+  const lines: string[] = [];
+  if (s.coupling.kind === 'capacitor') {
+    const vbias = s.kind === 'single-ended-output' ? (s.bias === 'fixed' ? s.vg : 0) : (s.vbias ?? 0);
+    lines.push(`CC${i} ${input} ${gnode} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${gnode} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
+  }
+  if (s.kind === 'single-ended-output') {
+    const t = s.tube;
+    const n2 = s.zPrimary / s.speakerOhms;
+    const ul = s.connection === 'ultralinear' && t.law.kind === 'pentode';
+    lines.push(t.law.kind === 'pentode' ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params));
+    lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RPRI bottom ${p} ${g(Math.max(s.rPrimary, 1e-6))}`);
+    if (ul) {
+      const x = s.ulTap;
+      lines.push(`LA bp${i} tap ${g(L_PRIMARY * x * x)}`, `LB tap bottom ${g(L_PRIMARY * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${K}`, `KBS LB LS ${K}`);
+    } else {
+      lines.push(`LP bp${i} bottom ${g(L_PRIMARY)}`, `KPS LP LS ${K}`);
+    }
+    lines.push(`LS sec 0 ${g(L_PRIMARY / n2)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
+    lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(midband ? large : (s.ck ?? large))}` : `VK${i} ${k} 0 DC 0`);
+    if (t.law.kind === 'pentode') {
+      const screen = s.connection === 'triode' ? p : ul ? 'tap' : 'screen';
+      if (s.connection === 'pentode') lines.push(`VS screen 0 DC ${g(s.screenVolts)}`);
+      lines.push(`X${i} ${p} ${screen} ${gnode} ${k} pent`, `CGK${i} ${gnode} ${k} ${g(t.capacitances.cgk)}`, `CGP${i} ${gnode} ${p} ${g(t.capacitances.cgp)}`, `CPK${i} ${p} ${k} ${g(t.capacitances.cpk)}`);
+    } else {
+      lines.push(`X${i} ${p} ${gnode} ${k} outtri`, `CGK${i} ${gnode} ${k} ${g(t.capacitances.cgk)}`, `CGP${i} ${gnode} ${p} ${g(t.capacitances.cgp)}`, `CPK${i} ${p} ${k} ${g(t.capacitances.cpk)}`);
+    }
+    return { lines, output: 'sec' };
+  }
+  const caps = recordOf(s.tube)?.capacitances;
+  lines.push(triodeSubckt(`tri${i}`, modelOf(s.tube).params, caps ? { cgk: caps.cgk, cgp: caps.cgp, cpk: caps.cpk } : undefined));
+  lines.push(`X${i} ${p} ${gnode} ${k} tri${i}`);
+  if (s.kind === 'common-cathode') {
+    lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RA${i} bp${i} ${p} ${g(s.ra)}`);
+    lines.push(s.rk > 0 ? `RK${i} ${k} 0 ${g(s.rk)}` : `VK${i} ${k} 0 DC 0`);
+    if (s.rk > 0 && s.bypassed) lines.push(`CK${i} ${k} 0 ${g(midband ? large : (s.ck ?? large))}`);
+    return { lines, output: p };
+  }
+  lines.push(`${nodes.supply(i).toUpperCase()} ${p} 0 DC ${g(s.bplus)}`, `RK${i} ${k} 0 ${g(s.rk)}`);
+  return { lines, output: k };
+}
+
+export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
+  const large = analysis.kind === 'tran' ? 1e-3 : 1;
+  const source = analysis.kind === 'tran' ? `DC 0 SIN(0 ${g(analysis.peak)} 1000)` : 'DC 0 AC 1';
+  const lines = ['* amplifier chain', `VS src 0 ${source}`, `RS src a ${g(Math.max(c.source.rsource, 1e-3))}`];
+  let input = 'a';
+  c.stages.forEach((s, i) => {
+    const st = stageLines(s, i, input, large, analysis.kind === 'tran');
+    lines.push(...st.lines);
+    input = st.output;
+  });
+  lines.push(`EOUT ${nodes.output} 0 ${input} 0 1`);
+  // In the transient a 10 µF output capacitor holds its charge over the run (RL·C ≥ 0.1 s); more collapses the time step.
+  if (c.load) lines.push(`CO ${input} lo ${analysis.kind === 'tran' ? '10u' : '1'}`, `RL lo 0 ${g(c.load.rl)}`);
+  const control =
+    analysis.kind === 'op-ac'
+      ? ['op', `print ${c.stages.map((_, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']
+      : analysis.kind === 'sweep'
+        ? ['ac dec 50 0.01 1e8', 'wrdata {data} vm(out)']
+        : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
+  return [...lines, '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
+}
