@@ -12,6 +12,7 @@ import { Stage2Panel } from './signal/Stage2Panel';
 import { DesignTitle } from './panels/DesignTitle';
 import { StoreProvider, useWorkbench, useWorkbenchStore } from './store/StoreProvider';
 import { StageKindSwitch } from './output/StageKindSwitch';
+import { ChainStrip } from './chain/ChainStrip';
 import { OutputChart } from './output/OutputChart';
 import { OutputFigures } from './output/OutputFigures';
 import { OutputSignalCharts } from './output/OutputSignalCharts';
@@ -42,10 +43,11 @@ function Bench() {
       <div className="page">
         <header className="masthead">
           <h1>Quiescent</h1>
-          <p className="tagline">Load lines and part values for tube audio stages</p>
+          <p className="tagline">Load lines and part values for tube audio amplifiers, stage by stage</p>
           <DesignTitle />
         </header>
         <SafetyIntro />
+        <ChainStrip />
         <StageKindSwitch />
         {stageKind === 'output' ? <OutputBench /> : <VoltageBench />}
         <footer>

@@ -9,8 +9,11 @@ import type { BenchDesign, Stage2Design } from '../store/analysis';
  *   { "format": "quiescent-design", "version": 2, "title": "…", "savedAt": "ISO 8601",
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
- *                                      bias, rk, vg, rg, speakerOhms, thdLimit } } }
+ *                                      bias, rk, vg, rg, speakerOhms, thdLimit }, drivesOutput } }
  *
+ * `drivesOutput` (true: the voltage stages drive the output stage, one
+ * amplifier; RL is then the output grid resistor) came later within
+ * version 2: a file without it opens as it always did, the stages apart.
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -52,7 +55,7 @@ const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'strin
 /** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
 const tubeId: Check = (v) => (typeof v === 'string' && v.trim().length > 0 && v.length <= 60 ? null : 'must name a tube (text of at most 60 characters)');
 
-const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind'>, Check> = {
+const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput'>, Check> = {
   tubeId,
   bplus: num(1, 1500, 'V'),
   ra: num(100, 10e6, 'Ω'),
@@ -157,6 +160,13 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       thdLimit: o.thdLimit as number,
     };
   }
+  if (d.drivesOutput !== undefined && typeof d.drivesOutput !== 'boolean') {
+    return { ok: false, message: `design.drivesOutput must be true or false (found ${quote(d.drivesOutput)}). Nothing was opened.` };
+  }
+  const drivesOutput = d.drivesOutput === true;
+  if (drivesOutput && d.rl !== output.rg) {
+    return { ok: false, message: `design.rl must equal design.output.rg when the voltage stages drive the output stage (found ${quote(d.rl)} and ${quote(output.rg)}). Nothing was opened.` };
+  }
   const design: BenchDesign = {
     tubeId: knownId(d.tubeId as string),
     bplus: d.bplus as number,
@@ -181,6 +191,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     },
     stageKind,
     output,
+    drivesOutput,
   };
   return { ok: true, doc: { title: raw.title, design } };
 }

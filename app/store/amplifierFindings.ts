@@ -10,7 +10,7 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   const chain = s.analysis.signal.chain;
   const link = chain?.ok ? chain.links[1] : undefined;
   if (link && d.stage2.kind !== 'none') stages.push({ name: `Stage 2, ${d.stage2.tubeId} ${STAGE2_NAME[d.stage2.kind]}`, findings: link.findings });
-  if (d.stageKind === 'output') stages.push({ name: `Output stage, ${d.output.tubeId}`, findings: s.outputBench.analysis.findings });
+  if (d.stageKind === 'output' || d.drivesOutput) stages.push({ name: `Output stage, ${d.output.tubeId}`, findings: s.outputBench.analysis.findings });
   return stages;
 }
 

@@ -45,6 +45,12 @@ export interface BenchDesign {
   /** Which stage the bench shows: the resistance-coupled voltage stage or the transformer-coupled output stage. */
   readonly stageKind: StageKind;
   readonly output: OutputDesign;
+  /**
+   * The voltage stages drive the output stage: one amplifier from input to
+   * speaker. RL is then the output grid's resistor (the two are kept equal)
+   * and Cout the capacitor coupling into it.
+   */
+  readonly drivesOutput: boolean;
 }
 
 export type StageKind = 'voltage' | 'output';

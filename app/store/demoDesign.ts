@@ -5,8 +5,9 @@ import { autoTitle } from './autoTitle';
  * The design the bench opens on: a line stage of our own making. A 12AU7
  * section on a 275 V rail, plate resistor 27 kΩ, cathode resistor 1.2 kΩ
  * bypassed by 100 µF, fed from a 1 kΩ source through 470 nF into a 1 MΩ grid
- * leak, driving a 220 kΩ level control through 1 µF; distortion read at
- * 2 V rms out. No second stage until the user adds one.
+ * leak, driving the output stage's 220 kΩ grid resistor through 1 µF;
+ * distortion read at 2 V rms out. No second stage until the user adds one:
+ * a small amplifier from line input to speaker.
  */
 export const DEMO_DESIGN: BenchDesign = {
   tubeId: '12AU7',
@@ -25,6 +26,7 @@ export const DEMO_DESIGN: BenchDesign = {
   levelRms: 2,
   stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
   stageKind: 'voltage',
+  drivesOutput: true,
   output: {
     // The output stage the bench offers first: an EL34 with its screen on a
     // 43 % ultralinear tap, 3.5 kΩ primary of 130 Ω, self-biased by 330 Ω.

@@ -1,6 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
+import { analyzeAmplifier, type AmplifierView } from './amplifierChain';
 import { analyzeRival, sharedWindow } from './compareSlice';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
 import { customTubes } from '../keep/customTubes';
@@ -31,6 +32,10 @@ export interface DesignSlice {
   titleTyped: boolean;
   setTitle: (title: string) => void;
   analysis: Analysis;
+  /** The whole amplifier (the chain strip's figures); null when a stage's tube is unknown. */
+  amplifier: AmplifierView | null;
+  /** Joins the voltage stages to the output stage as one amplifier, or parts them. */
+  setDrivesOutput: (on: boolean) => void;
   /** The text in each input box: what the user typed, or the design's value. */
   drafts: Drafts;
   errors: FieldErrors;
@@ -69,6 +74,21 @@ export interface CommitOptions {
 function sameVoltagePart(a: BenchDesign, b: BenchDesign): boolean {
   for (const k of Object.keys(a) as (keyof BenchDesign)[]) if (k !== 'output' && k !== 'stageKind' && a[k] !== b[k]) return false;
   return true;
+}
+
+/**
+ * With the output stage driven, RL is its grid resistor: whichever of the two
+ * the change touched, the other follows. An open RL cannot be a grid resistor.
+ */
+function withOutputDriven(next: BenchDesign, prev: BenchDesign): BenchDesign | Failure {
+  if (!next.drivesOutput) return next;
+  // Joining the stages: the output stage's own grid resistor becomes the voltage stage's load.
+  if (!prev.drivesOutput) return next.rl === next.output.rg ? next : { ...next, rl: next.output.rg };
+  if (next.rl !== prev.rl) {
+    if (!Number.isFinite(next.rl)) return { ok: false, reason: 'invalid-input', message: 'RL is the output grid\'s resistor while the stages drive the output stage: give it a value', field: 'rl' };
+    return { ...next, output: { ...next.output, rg: next.rl } };
+  }
+  return next.output.rg === next.rl ? next : { ...next, rl: next.output.rg };
 }
 
 /** How long after the last keystroke the full (signal) analysis runs, ms. */
@@ -112,11 +132,17 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
   },
   analysis: initialAnalysis(),
+  amplifier: analyzeAmplifier(DEMO_DESIGN),
+  setDrivesOutput: (on) => {
+    get().commit({ ...get().design, drivesOutput: on });
+  },
   drafts: draftsFor(DEMO_DESIGN),
   errors: {},
 
-  commit: (next, opts = {}) => {
+  commit: (asked, opts = {}) => {
     const s = get();
+    const next = withOutputDriven(asked, s.design);
+    if ('ok' in next) return next;
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};
     // Each stage is analysed only when its part of the design changed, or to
@@ -141,6 +167,10 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       patch.outputBench = ob;
       const prevRival = s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench : null;
       patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(next.output, s.outputRival), prevRival, { light: outputLight, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
+    }
+    // The whole amplifier follows every full pass; a drag or keystroke shows the last one, marked as behind.
+    if (next !== s.design || opts.force || s.amplifier?.stale) {
+      patch.amplifier = !light ? analyzeAmplifier(next) : s.amplifier && { ...s.amplifier, stale: true };
     }
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.
@@ -202,7 +232,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
 
   settleAnalysis: () => {
     const s = get();
-    const behind = s.design.stageKind === 'output' ? s.outputBench.light : s.analysis.signal.stale;
+    const behind = (s.design.stageKind === 'output' ? s.outputBench.light : s.analysis.signal.stale) || s.amplifier?.stale === true;
     if (behind && !s.dragging) s.commit(s.design);
   },
 

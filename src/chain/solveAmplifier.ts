@@ -96,6 +96,7 @@ export function solveAmplifier(input: ChainInput): Result<ChainResult> {
   const rsource = input.source.rsource;
   const chainLoad = input.load?.rl ?? Infinity;
   const outputPeak = signal.outputPeak(inputPeak);
+  const last = stages[stages.length - 1]!;
 
   const network: ChainNetwork = {
     rsource,
@@ -128,6 +129,7 @@ export function solveAmplifier(input: ChainInput): Result<ChainResult> {
     outputPeak,
     input: sineLevel(inputPeak),
     output: sineLevel(outputPeak),
+    outputPower: last.kind === 'single-ended-output' ? (outputPeak * outputPeak) / (2 * last.speakerOhms) : null,
     findings: tagged,
   };
 }

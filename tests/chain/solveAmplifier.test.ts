@@ -103,7 +103,7 @@ describe('an amplifier of 1 to 8 stages', () => {
 
   it('every finding is tagged with its stage, in one list', () => {
     const hot: ChainStage = { ...follower, bplus: 420 };
-    const r = solved(amp({ ...gainStage(), bplus: 420, ra: 220e3 }, hot));
+    const r = solved(amp({ ...gainStage(), bplus: 420, ra: 220e3 } as ChainStage, hot));
     expect(r.findings.some((f) => f.stage === 1 && f.kind === 'heater-cathode' && f.severity === 'danger')).toBe(true);
     expect(r.findings.every((f) => f.stageName.startsWith(`Stage ${f.stage + 1}`))).toBe(true);
     expect(r.stages[1]!.findings.every((f) => f.stage === 1)).toBe(true);

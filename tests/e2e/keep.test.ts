@@ -63,6 +63,7 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     const { page } = await openWorkbench(browser, inject('baseUrl'));
     const ra = await page.getByRole('textbox', { name: /^Ra/ }).inputValue();
     const rk = await page.getByRole('textbox', { name: /^Rk/ }).inputValue();
+    await page.getByRole('slider', { name: /operating point/i }).scrollIntoViewIfNeeded();
     const box = (await page.getByRole('slider', { name: /operating point/i }).boundingBox())!;
     await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
     await page.mouse.down();

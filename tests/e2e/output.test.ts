@@ -28,6 +28,7 @@ describe.runIf(run)('the output stage in Chromium', () => {
     const bplus = () => page.getByRole('textbox', { name: /^B\+/ }).inputValue();
     const before = { rk: await rk(), bplus: await bplus() };
     const point = page.getByRole('slider', { name: /operating point/i });
+    await point.scrollIntoViewIfNeeded();
     const box = (await point.boundingBox())!;
     const x = box.x + box.width / 2;
     const y = box.y + box.height / 2;
@@ -41,6 +42,7 @@ describe.runIf(run)('the output stage in Chromium', () => {
     const z = () => page.getByRole('textbox', { name: /^Primary Z/ }).inputValue();
     const zBefore = await z();
     const handle = page.getByRole('slider', { name: /primary impedance/i });
+    await handle.scrollIntoViewIfNeeded();
     const hb = (await handle.boundingBox())!;
     await page.mouse.move(hb.x + hb.width / 2, hb.y + hb.height / 2);
     await page.mouse.down();

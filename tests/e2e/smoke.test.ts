@@ -21,6 +21,7 @@ describe.runIf(run)('the built workbench in Chromium', () => {
     expect(await page.getByRole('slider', { name: /operating point/i }).count()).toBe(1);
     mkdirSync('test-results', { recursive: true });
     await page.screenshot({ path: 'test-results/smoke.png', fullPage: true });
+    await page.locator('.chain-strip').screenshot({ path: 'test-results/chain-strip.png' });
     expect(errors).toEqual([]);
   });
 });

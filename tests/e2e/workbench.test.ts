@@ -25,6 +25,7 @@ describe.runIf(run)('the workbench in Chromium', () => {
     const { page, errors } = await openBench(browser);
     const before = { bplus: await value(page, /^B\+/), ra: await value(page, /^Ra/), rk: await value(page, /^Rk/) };
     const handle = page.getByRole('slider', { name: /operating point/i });
+    await handle.scrollIntoViewIfNeeded();
     const box = (await handle.boundingBox())!;
     const x = box.x + box.width / 2;
     const y = box.y + box.height / 2;
@@ -62,6 +63,7 @@ describe.runIf(run)('the workbench in Chromium', () => {
   it('dragging the load line\'s foot along the voltage axis changes B+', async () => {
     const { page } = await openBench(browser);
     const handle = page.getByRole('slider', { name: /^B\+/ });
+    await handle.scrollIntoViewIfNeeded();
     const box = (await handle.boundingBox())!;
     await page.mouse.move(box.x + box.width / 2, box.y + 4);
     await page.mouse.down();

@@ -13,6 +13,8 @@ const doc = {
     stage2: { ...DEMO_DESIGN.stage2, kind: 'follower' as const },
     stageKind: 'output' as const,
     output: { ...DEMO_DESIGN.output, tubeId: 'KT88', connection: 'pentode' as const, bias: 'fixed' as const, vg: -28.5 },
+    // A preamp stage and an output stage kept apart: RL is the preamp's own load.
+    drivesOutput: false,
   },
 };
 
@@ -49,6 +51,8 @@ describe('design files', () => {
     ['no output stage', variant((f) => { delete f.design.output; }), /^design\.output is missing\. Nothing was opened\.$/],
     ['an unknown output tube', variant((f) => { (f.design.output as Record<string, unknown>).tubeId = '12AX7'; }), /^design\.output\.tubeId must name an output tube in the library \(found "12AX7"\)\. Nothing was opened\.$/],
     ['a positive grid bias', variant((f) => { (f.design.output as Record<string, unknown>).vg = 5; }), /^design\.output\.vg must be a number from -500 to 0 V \(found 5\)\. Nothing was opened\.$/],
+    ['a driven output stage whose grid resistor is not RL', variant((f) => { f.design.drivesOutput = true; f.design.rl = 100e3; }), /^design\.rl must equal design\.output\.rg when the voltage stages drive the output stage \(found 100000 and 220000\)\. Nothing was opened\.$/],
+    ['a join that is not true or false', variant((f) => { f.design.drivesOutput = 'yes'; }), /^design\.drivesOutput must be true or false \(found "yes"\)\. Nothing was opened\.$/],
     ['an unknown stage kind', variant((f) => { f.design.stageKind = 'push-pull'; }), /^design\.stageKind must be one of voltage, output \(found "push-pull"\)\. Nothing was opened\.$/],
   ])('%s gets its own message', (_label, text, message) => {
     const r = readDesignFile(text);
@@ -67,6 +71,14 @@ describe('design files', () => {
     expect(r.doc.design.stageKind).toBe('voltage');
     expect(r.doc.design.output).toEqual(DEMO_DESIGN.output);
     expect(r.doc.design.ra).toBe(33e3);
+  });
+
+  it('an amplifier (voltage stage driving the output stage) round-trips; a file from before the join opens with the stages apart', () => {
+    const joined = { title: 'Small amplifier', design: { ...DEMO_DESIGN, drivesOutput: true, rl: DEMO_DESIGN.output.rg } };
+    const back = readDesignFile(writeDesignFile(joined));
+    expect(back.ok && back.doc).toEqual(joined);
+    const before = readDesignFile(variant((f) => { delete f.design.drivesOutput; }));
+    expect(before.ok && before.doc.design.drivesOutput).toBe(false);
   });
 
   it('refuses a 10 MB file before parsing it', () => {

@@ -1,0 +1,48 @@
+import { fireEvent, render, screen, within } from '@testing-library/react';
+import { act } from 'react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+describe('the amplifier strip', () => {
+  it('shows the demo as one amplifier, input stage to output stage, and a card opens its stage', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    const strip = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' }));
+    const cards = strip.getAllByRole('button');
+    expect(cards.map((c) => c.querySelector('.card-title')!.textContent)).toEqual(['Stage 1 · 12AU7 common cathode', 'Output · EL34 single-ended output']);
+    expect(cards[0]!.getAttribute('aria-pressed')).toBe('true');
+    // The stage with no headroom left is the one named as clipping first.
+    expect(strip.getAllByText(/clips first/)).toHaveLength(1);
+    expect(strip.getByTestId('amplifier-figures').textContent).toMatch(/Gain[\d.]+ dB .*Band \(−3 dB\)[\d.]+ Hz to [\d.]+ kHz.*Clean to[\d.]+ W/);
+    act(() => fireEvent.click(cards[1]!));
+    expect(store.getState().design.stageKind).toBe('output');
+  });
+
+  it('while joined, RL is the output grid resistor; parting the stages keeps both values', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, rg: 150e3 } }));
+    expect(store.getState().design.rl).toBe(150e3);
+    act(() => store.getState().commit({ ...store.getState().design, rl: 270e3 }));
+    expect(store.getState().design.output.rg).toBe(270e3);
+    expect(store.getState().commit({ ...store.getState().design, rl: Infinity })).toMatchObject({ field: 'rl' });
+    act(() => fireEvent.click(screen.getByRole('checkbox', { name: 'The voltage stages drive the output stage' })));
+    expect(store.getState().design.drivesOutput).toBe(false);
+    const cards = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' })).getAllByRole('button');
+    expect(cards).toHaveLength(1);
+    expect(store.getState().design.rl).toBe(270e3);
+  });
+
+  it('a second stage joins the chain between the first and the output', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().setStage2({ kind: 'follower' }));
+    const strip = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' }));
+    expect(strip.getAllByRole('button').map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
+      'Stage 1 · 12AU7 common cathode', 'Stage 2 · 12AU7 cathode follower', 'Output · EL34 single-ended output',
+    ]);
+    // The ratings list names the output stage's findings too, as part of the amplifier.
+    expect(screen.getAllByText(/Output stage, EL34/).length).toBeGreaterThan(0);
+  });
+});
