@@ -2,6 +2,7 @@ import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
+  solveAmplifier, type ChainInput,
 } from '../src/index';
 import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 
@@ -40,8 +41,29 @@ const OUTPUT: OutputDesign = {
   bias: 'cathode', rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
 };
 const EL34 = findOutputTube('EL34')!;
+const { tubeId: _tubeId, rg: _rg, ...OUTPUT_PARTS } = OUTPUT;
+
+/** A four-stage amplifier of our own: input stage, second gain stage, direct-coupled follower, single-ended EL34. */
+export const FOUR_STAGES: ChainInput = {
+  source: { rsource: 1e3 },
+  stages: [
+    { kind: 'common-cathode', tube: findTube('12AX7')!, bplus: 290, ra: 100e3, rk: 1500, bypassed: true, ck: 47e-6, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    { kind: 'common-cathode', tube: findTube('12AU7')!, bplus: 290, ra: 33e3, rk: 3300, bypassed: false, coupling: { kind: 'capacitor', cc: 68e-9, rg: 470e3 } },
+    { kind: 'follower', tube: findTube('12AU7')!, bplus: 290, rk: 33e3, coupling: { kind: 'direct' } },
+    { ...OUTPUT_PARTS, kind: 'single-ended-output', tube: findOutputTube('EL34')!, ck: 220e-6, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } },
+  ],
+};
+
+/** The whole amplifier's analysis: every stage, the band, the clean limit, and sensitivity with THD at 1 W. */
+export function fourStageAnalysis(): void {
+  const r = solveAmplifier(FOUR_STAGES, { power: 1 });
+  if (!r.ok) throw new Error(r.message);
+  if (!r.atLevel?.ok) throw new Error('no figures at 1 W');
+}
 
 export interface ModelResults {
+  /** The four-stage amplifier, solved whole (budget 8 ms median). */
+  readonly fourStageChain: Stats;
   readonly solveStage: Stats;
   readonly fullAnalysis: Stats;
   readonly plateFamily: Stats;
@@ -79,6 +101,7 @@ export function benchModel(): ModelResults {
   const pts = fitPoints(200);
   const m = interleaved({
     solveStage: [() => solveStage(STAGE), 700, 20],
+    fourStageChain: [() => fourStageAnalysis(), 20, 5],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
     plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
     fit200: [() => fitTriode(pts), 7, 2],
@@ -91,5 +114,5 @@ export function benchModel(): ModelResults {
     fft16384: [() => fullAnalysis(16384), 20, 5],
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
-  return { solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

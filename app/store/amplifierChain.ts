@@ -1,7 +1,6 @@
 import {
-  amplifierAtLevel,
   findOutputTube,
-  solveChain,
+  solveAmplifier,
   STAGE_KIND_LABELS,
   type AmplifierAtLevel,
   type ChainInput,
@@ -76,9 +75,9 @@ export interface AmplifierView {
 export function analyzeAmplifier(d: BenchDesign): AmplifierView | null {
   const chain = chainInputOf(d);
   if (!chain) return null;
-  const result = solveChain(chain.input);
   const toSpeaker = d.drivesOutput;
-  const atLevel = result.ok ? amplifierAtLevel(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms }) : null;
+  const result = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });
+  const atLevel = result.ok ? (result.atLevel ?? null) : null;
   return {
     names: chain.names,
     kinds: chain.input.stages.map((s) => STAGE_KIND_LABELS[s.kind]),

@@ -3,6 +3,8 @@ import type { LinkSample, SolvedLink } from './stageKind';
 
 /** The largest input peak searched, V: past it a stage is taken never to clip. */
 export const MAX_SEARCH_PEAK = 1e4;
+/** The clean limit to 10 ppm (a ten-thousandth of a dB): far finer than any figure shows. */
+export const CLIP_REL_TOL = 1e-5;
 
 /**
  * The chain at midband, large signal: the source's voltage divided onto the
@@ -35,33 +37,54 @@ export class ChainSignal {
     return this.samples[stage]!;
   }
 
-  /** Does stage `i` pass its limit `by` at either polarity of a source peak? */
-  private hits(i: number, by: ClipCause, peak: number): boolean {
+  /** Which of stage i's limits a source peak reaches, at either polarity (null: neither). */
+  private limitAt(i: number, peak: number): ClipCause | null {
     const link = this.links[i]!;
+    let cause: ClipCause | null = null;
     for (const v of [peak, -peak]) {
       this.at(v, i);
       const s = this.samples[i]!;
-      if (by === 'grid-current' ? s.vgk >= 0 : s.ia <= link.cutoffCurrent) return true;
+      if (s.vgk >= 0) return 'grid-current';
+      if (s.ia <= link.cutoffCurrent) cause = 'cutoff';
     }
-    return false;
+    return cause;
   }
 
-  /** The source peak at which stage i's swing ends, and by what; null if it does not below MAX_SEARCH_PEAK. */
-  clipOf(i: number): { inputPeak: number; by: ClipCause } | null {
-    let best: { inputPeak: number; by: ClipCause } | null = null;
-    for (const by of ['grid-current', 'cutoff'] as const) {
-      let hi = 1e-3;
-      while (hi < MAX_SEARCH_PEAK && !this.hits(i, by, hi)) hi *= 2;
-      if (!this.hits(i, by, hi)) continue;
-      let lo = hi === 1e-3 ? 0 : hi / 2;
-      for (let k = 0; k < 50 && hi - lo > 1e-9 * hi; k++) {
-        const mid = 0.5 * (lo + hi);
-        if (this.hits(i, by, mid)) hi = mid;
-        else lo = mid;
+  /**
+   * The source peak at which stage i's swing ends, and by what; null if it
+   * does not below MAX_SEARCH_PEAK. Either limit ends the swing, so one
+   * search finds the first: a bracket grown by factors of 2 from `guess`
+   * (the small-signal estimate), then bisection to CLIP_REL_TOL.
+   */
+  clipOf(i: number, guess = 1e-3): { inputPeak: number; by: ClipCause } | null {
+    let hi = Math.min(Math.max(guess, 1e-9), MAX_SEARCH_PEAK);
+    let lo = 0;
+    if (this.limitAt(i, hi) !== null) {
+      while (hi > 1e-9 && this.limitAt(i, hi / 2) !== null) hi /= 2;
+      lo = hi / 2;
+    } else {
+      while (hi < MAX_SEARCH_PEAK && this.limitAt(i, hi) === null) {
+        lo = hi;
+        hi *= 2;
       }
-      if (!best || hi < best.inputPeak) best = { inputPeak: hi, by };
+      if (this.limitAt(i, hi) === null) return null;
     }
-    return best;
+    for (let k = 0; k < 60 && hi - lo > CLIP_REL_TOL * hi; k++) {
+      const mid = 0.5 * (lo + hi);
+      if (this.limitAt(i, mid) !== null) hi = mid;
+      else lo = mid;
+    }
+    return { inputPeak: hi, by: this.limitAt(i, hi)! };
+  }
+
+  /** Every stage's output for one source voltage, written into `into` (one pass through the chain). */
+  stageOutputs(vsrc: number, into: Float64Array): void {
+    let v = vsrc * this.sourceShare;
+    for (let i = 0; i < this.links.length; i++) {
+      this.links[i]!.sample(v, this.samples[i]!);
+      v = this.samples[i]!.vout;
+      into[i] = v;
+    }
   }
 
   /** Half the output's peak-to-peak for a source peak. */

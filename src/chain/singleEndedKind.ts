@@ -1,6 +1,6 @@
 import { checkOutputInput } from '../output/checkOutput';
 import { outputFindings } from '../output/outputFindings';
-import { cleanLimit, CUTOFF_SHARE, solveInstant, type Instant } from '../output/outputSignal';
+import { cleanLimit, CUTOFF_SHARE, solveInstant, SWEEP_SAMPLES, type Instant } from '../output/outputSignal';
 import type { OutputDesign } from '../output/outputDesign';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
@@ -51,7 +51,8 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
     const series = zp + design.rPrimary;
     const scale = (ratio * zp) / series;
     const instant: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
-    const peak = cleanLimit(solved, zp).at.vpkMax + op.vk;
+    // The plate's peak at the stage's own clean limit, for the insulation note (64 points find a peak to well under a volt).
+    const peak = cleanLimit(solved, zp, SWEEP_SAMPLES).at.vpkMax + op.vk;
     const sample = (vin: number, out: LinkSample) => {
       solveInstant(solved, op.vgk + vin, zp, instant);
       out.vout = -instant.winding * ratio;

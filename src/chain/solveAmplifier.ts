@@ -1,84 +1,13 @@
-import { fail, type Failure, type Result } from '../result';
-import { checkNumber, LIMITS } from '../stage/checkInput';
+import type { Result } from '../result';
 import { amplifierFindings } from '../stage/stageFindings';
 import { sineLevel } from '../signal/levels';
+import { atLevelOf, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import { chainCorners, type ChainNetwork } from './chainResponse';
-import { ChainSignal } from './chainSwing';
-import type { ChainInput, ChainResult, ChainStage, ClipCause, StageResult } from './chainTypes';
-import { kindOf, STAGE_KIND_LABELS } from './stageKinds';
-import type { SolvedLink } from './stageKind';
+import type { ChainInput, ChainResult, ChainStage, StageResult } from './chainTypes';
+import { prepareAmplifier } from './prepareAmplifier';
+import { STAGE_KIND_LABELS } from './stageKinds';
 
-export const MAX_CHAIN_STAGES = 8;
-
-/** A stage's failure, its message and field placed in the chain ("Stage 2: …", field "stages.1.ra"). */
-function inStage(f: Failure, i: number): Failure {
-  return fail(f.reason, `Stage ${i + 1}: ${f.message}`, `stages.${i}.${f.field ?? 'kind'}`);
-}
-
-/** The chain's shape and every stage's design, checked before anything is solved. */
-export function checkChain(input: unknown): Failure | null {
-  if (typeof input !== 'object' || input === null) return fail('invalid-input', 'No amplifier given');
-  const c = input as ChainInput;
-  if (typeof c.source !== 'object' || c.source === null) return fail('invalid-input', 'Give the source as { rsource } (0 for an ideal source)', 'source');
-  const rs = c.source.rsource;
-  const sourceProblem = rs === 0 ? null : checkNumber('rsource', 'Source impedance (0 for an ideal source)', rs, 'Ω', LIMITS.minOhms, LIMITS.maxOhms);
-  if (sourceProblem) return { ...sourceProblem, field: 'source.rsource' };
-  if (!Array.isArray(c.stages) || c.stages.length < 1 || c.stages.length > MAX_CHAIN_STAGES) {
-    return fail('invalid-input', `An amplifier has 1 to ${MAX_CHAIN_STAGES} stages (got ${Array.isArray(c.stages) ? c.stages.length : 'none'})`, 'stages');
-  }
-  for (const [i, s] of c.stages.entries()) {
-    const kind = typeof s === 'object' && s !== null ? kindOf(s) : null;
-    if (!kind) return fail('invalid-input', `Stage ${i + 1}: choose a kind of stage (common-cathode, follower or single-ended-output)`, `stages.${i}.kind`);
-    const problem = kind.check(s);
-    if (problem) return inStage(problem, i);
-    if (s.kind === 'single-ended-output' && i !== c.stages.length - 1) {
-      return fail('invalid-input', `Stage ${i + 1}: an output stage drives the speaker, so it comes last`, `stages.${i}.kind`);
-    }
-  }
-  if (c.load !== undefined) {
-    const loadProblem = typeof c.load === 'object' && c.load !== null ? checkNumber('rl', 'Load', c.load.rl, 'Ω', LIMITS.minOhms, LIMITS.maxOhms, { allowInfinity: true }) : fail('invalid-input', 'Give the load as { rl }');
-    if (loadProblem) return { ...loadProblem, field: 'load.rl' };
-  }
-  return null;
-}
-
-/** The chain solved stage by stage, with its composed transfer and each stage's clean limit: what every figure of the amplifier starts from. */
-export interface PreparedAmplifier {
-  readonly links: readonly SolvedLink[];
-  readonly signal: ChainSignal;
-  readonly clips: readonly ({ readonly inputPeak: number; readonly by: ClipCause } | null)[];
-  /** The stage that clips first, and the source peak where it does. */
-  readonly first: number;
-  readonly inputPeak: number;
-  readonly gain: number;
-}
-
-export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
-  const problem = checkChain(input);
-  if (problem) return problem;
-  const { stages } = input;
-  const chainLoad = input.load?.rl ?? Infinity;
-  const zins = stages.map((s) => kindOf(s)!.inputImpedance(s));
-  const links: SolvedLink[] = [];
-  for (const [i, s] of stages.entries()) {
-    const load = i + 1 < stages.length ? zins[i + 1]! : chainLoad;
-    const gridDc = s.coupling.kind === 'direct' ? (i === 0 ? 0 : links[i - 1]!.outputDc) : null;
-    const solved = (kindOf(s) as ReturnType<typeof kindOf<ChainStage>>)!.solve(s, { gridDc, load });
-    if (!solved.ok) return inStage(solved, i);
-    links.push(solved);
-  }
-  const rsource = input.source.rsource;
-  const sourceShare = Number.isFinite(zins[0]!) ? zins[0]! / (zins[0]! + rsource) : 1;
-  const gain = links.reduce((g, l) => g * l.gain, sourceShare);
-  const signal = new ChainSignal(links, sourceShare);
-  const clips = links.map((_, i) => signal.clipOf(i));
-  let first = -1;
-  clips.forEach((c, i) => {
-    if (c && (first < 0 || c.inputPeak < clips[first]!.inputPeak)) first = i;
-  });
-  if (first < 0) return fail('unreachable', 'No stage reaches grid current or cutoff below 10 kV at the input: check the values', 'stages');
-  return { ok: true, links, signal, clips, first, inputPeak: clips[first]!.inputPeak, gain };
-}
+export { checkChain, prepareAmplifier, MAX_CHAIN_STAGES, type PreparedAmplifier } from './prepareAmplifier';
 
 /**
  * Solves an amplifier of 1 to 8 stages: each stage's operating point (a
@@ -88,7 +17,7 @@ export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
  * composed sample by sample, naming the stage that clips first and each
  * stage's headroom there.
  */
-export function solveAmplifier(input: ChainInput): Result<ChainResult> {
+export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Result<ChainResult & { readonly atLevel?: Result<AmplifierAtLevel> }> {
   const a = prepareAmplifier(input);
   if (!a.ok) return a;
   const { stages } = input;
@@ -131,6 +60,7 @@ export function solveAmplifier(input: ChainInput): Result<ChainResult> {
     output: sineLevel(outputPeak),
     outputPower: last.kind === 'single-ended-output' ? (outputPeak * outputPeak) / (2 * last.speakerOhms) : null,
     findings: tagged,
+    ...(level === undefined ? {} : { atLevel: atLevelOf(a, input, level) }),
   };
 }
 
