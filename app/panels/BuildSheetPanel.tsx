@@ -4,6 +4,7 @@ import { buildSheetOf, railOf } from '../store/buildSheet';
 import { useWorkbench } from '../store/StoreProvider';
 import { elevationAdvice } from './elevationAdvice';
 import { PartsTables } from './PartsTables';
+import { OutputPartsLines } from '../output/OutputPartsPanel';
 
 /** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
 function NumberInput({ label, value, unit, onValue, min }: { label: string; value: number; unit: string; onValue: (v: number) => void; min: number }) {
@@ -30,6 +31,7 @@ export function BuildSheetPanel() {
   const setInputs = useWorkbench((s) => s.setBuildInputs);
   const editField = useWorkbench((s) => s.editField);
   const settleField = useWorkbench((s) => s.settleField);
+  const drivenOutput = useWorkbench((s) => (s.design.drivesOutput ? s.design.output.tubeId : null));
   const id = useId();
   const fc = sheet.forCorner;
   const sp = sheet.spread;
@@ -37,6 +39,12 @@ export function BuildSheetPanel() {
     <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Build sheet</h2>
       <PartsTables resistors={sheet.resistors} capacitors={sheet.capacitors} />
+      {drivenOutput ? (
+        <>
+          <h3 className="subhead">{`Output stage, ${drivenOutput}`}</h3>
+          <OutputPartsLines />
+        </>
+      ) : null}
       <div className="option-row">
         <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />
       </div>
@@ -85,7 +93,7 @@ export function BuildSheetPanel() {
         <NumberInput label="Series R" unit="Ω" value={inputs.filterR} min={0} onValue={(v) => setInputs({ filterR: v })} />
         <NumberInput label="Shunt C" unit="µF" value={inputs.filterC * 1e6} min={0.001} onValue={(v) => setInputs({ filterC: v / 1e6 })} />
       </div>
-      <p>{`Total B+ current ${milliamps(sheet.totalBplusAmps)}.`}</p>
+      <p>{`Total B+ current ${milliamps(sheet.totalBplusAmps)}${sheet.outputBplusAmps > 0 ? `, and ${milliamps(sheet.outputBplusAmps)} for the output stage ahead of the filter (${milliamps(sheet.totalBplusAmps + sheet.outputBplusAmps)} in all)` : ''}.`}</p>
       {sheet.filter.ok ? (
         <p data-testid="filter">
           {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}.${sheet.filteredOp ? ` Stage 1 then sits at Va ${volts(sheet.filteredOp.va)}, Ia ${milliamps(sheet.filteredOp.ia)}.` : ''} `}

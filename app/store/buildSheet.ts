@@ -35,6 +35,8 @@ export interface BuildSheet {
   /** Where stage 1 then sits, with the filter's B+. */
   readonly filteredOp: { va: number; ia: number } | null;
   readonly totalBplusAmps: number;
+  /** The driven output stage's cathode current (plate and screen), drawn from the rail ahead of the filter, A; 0 when the stages are apart. */
+  readonly outputBplusAmps: number;
 }
 
 const cache = new WeakMap<object, { inputs: BuildInputs; sheet: BuildSheet }>();
@@ -82,7 +84,7 @@ function compute(s: WorkbenchState): BuildSheet {
       capacitors.push(capacitorLine('Cc', 'between the stages', forCorner(sol.zout + d.stage2.rg), sol.op.va, d.bplus, '+ to stage 1\'s plate'));
       const rLoad2 = Number.isFinite(d.rl) ? (d.stage2.ra * d.rl) / (d.stage2.ra + d.rl) : d.stage2.ra;
       capacitors.push(capacitorLine('Ck2', 'stage 2 cathode bypass', forCorner(bypassResistance(d.stage2.rk, link.mu, link.rp, rLoad2)), link.op.vk, 0, '+ to the cathode'));
-      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', 'output coupling from stage 2', d.cout, link.op.va, d.bplus, '+ to stage 2\'s plate'));
+      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', d.drivesOutput ? 'coupling into the output grid' : 'output coupling from stage 2', d.cout, link.op.va, d.bplus, '+ to stage 2\'s plate'));
     } else if (d.cout !== null || Number.isFinite(d.rl)) {
       // Cold, the follower passes no current; as it warms its cathode rises toward its grid, which sits at stage 1's plate.
       capacitors.push(capacitorLine('Cout', 'output coupling from the follower\'s cathode', d.cout, link.op.vk, d.bplus, '+ to the cathode'));
@@ -121,5 +123,6 @@ function compute(s: WorkbenchState): BuildSheet {
     elevation: heaterElevation(stages),
     filter,
     totalBplusAmps,
+    outputBplusAmps: d.drivesOutput ? s.outputBench.settled.solution.op.ik : 0,
   };
 }

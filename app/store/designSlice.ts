@@ -159,8 +159,10 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       patch.analysis = analysis;
       patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, voltageLight, s.curveCount);
     }
-    if (next.output !== s.design.output || opts.force || (!light && !showsVoltage && s.outputBench.light)) {
-      const outputLight = light || showsVoltage;
+    // A driven output stage is part of the amplifier on screen (strip, ratings, build sheet) even with the voltage stage shown.
+    const outputShown = !showsVoltage || next.drivesOutput;
+    if (next.output !== s.design.output || opts.force || (!light && outputShown && s.outputBench.light)) {
+      const outputLight = light || !outputShown;
       const window = opts.outputExtent ?? sharedOutputWindow(next.output, s.outputRival);
       const ob = analyzeOutputBench(next.output, s.outputBench, { light: outputLight, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
       if ('ok' in ob) return ob;

@@ -45,4 +45,16 @@ describe('the amplifier strip', () => {
     // The ratings list names the output stage's findings too, as part of the amplifier.
     expect(screen.getAllByText(/Output stage, EL34/).length).toBeGreaterThan(0);
   });
+
+  it('one build sheet for the joined amplifier: the output stage\'s transformer and parts, its grid resistor the RL typed, and its current in the B+ total', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().commit({ ...store.getState().design, rl: 270e3 }));
+    const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
+    expect(sheet.getByText('Output stage, EL34')).toBeTruthy();
+    expect(sheet.getByText(/^Output transformer: 3\.5 kΩ to 8 Ω/)).toBeTruthy();
+    const rg = sheet.getAllByRole('row').find((r) => /^Rg \(grid resistor\)/.test(r.textContent ?? ''));
+    expect(rg?.textContent).toMatch(/270 kΩ/);
+    expect(sheet.getByText(/for the output stage ahead of the filter/)).toBeTruthy();
+  });
 });
