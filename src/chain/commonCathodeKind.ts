@@ -1,32 +1,26 @@
 import { fail } from '../result';
-import { checkNumber, checkTube, LIMITS } from '../stage/checkInput';
+import { checkNumber, LIMITS } from '../stage/checkInput';
 import { solveStage } from '../stage/solveStage';
 import { normalizeStage, type StageDesign } from '../stage/stageDesign';
 import { stageTransfer } from '../signal/stageTransfer';
 import { CUTOFF_FRACTION } from '../tube/koren';
 import { recordOf } from '../tube/types';
 import type { CommonCathodeLink } from './chainTypes';
-import { checkCoupling, couplingImpedance } from './checkCoupling';
+import { couplingImpedance } from './checkCoupling';
+import { checkTriodeLink } from './checkTriodeLink';
 import { NO_CAPACITANCES } from './noCapacitances';
 import type { StageKind } from './stageKind';
 
 /** The common-cathode stage in the chain: today's solver and large-signal transfer, with the next grid's leak as its load. */
 export const commonCathodeKind: StageKind<CommonCathodeLink> = {
   kind: 'common-cathode',
-  check(s) {
-    return (
-      checkTube(s.tube) ??
-      checkCoupling(s.coupling, true) ??
-      checkNumber('bplus', 'B+', s.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
+  check: (s) =>
+    checkTriodeLink(s, () =>
       checkNumber('ra', 'Ra', s.ra, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
       checkNumber('rk', 'Rk', s.rk, 'Ω', 0, LIMITS.maxOhms) ??
       (typeof s.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
-      (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
-      (s.vbias === undefined ? null : checkNumber('vbias', 'Grid bias', s.vbias, 'V', -LIMITS.maxBiasVolts, LIMITS.maxBiasVolts)) ??
-      (s.coupling?.kind === 'direct' && (s.vbias ?? 0) !== 0 ? fail('invalid-input', 'A direct-coupled grid sits at the previous output\'s voltage: it takes no fixed bias', 'vbias') : null) ??
-      (s.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', s.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts))
-    );
-  },
+      (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)),
+    ),
   inputImpedance: (s) => couplingImpedance(s.coupling),
   solve(s, env) {
     const design: StageDesign = {

@@ -1,11 +1,11 @@
-import { fail } from '../result';
-import { checkNumber, checkTube, LIMITS } from '../stage/checkInput';
+import { checkNumber, LIMITS } from '../stage/checkInput';
 import { solveFollower } from '../stage/solveFollower';
 import { followerTransfer } from '../signal/followerTransfer';
 import { CUTOFF_FRACTION } from '../tube/koren';
 import { modelOf, recordOf } from '../tube/types';
 import type { FollowerLink } from './chainTypes';
-import { checkCoupling, couplingImpedance } from './checkCoupling';
+import { couplingImpedance } from './checkCoupling';
+import { checkTriodeLink } from './checkTriodeLink';
 import { NO_CAPACITANCES } from './noCapacitances';
 import type { StageKind } from './stageKind';
 
@@ -15,17 +15,7 @@ import type { StageKind } from './stageKind';
  */
 export const followerKind: StageKind<FollowerLink> = {
   kind: 'follower',
-  check(s) {
-    return (
-      checkTube(s.tube) ??
-      checkCoupling(s.coupling, true) ??
-      checkNumber('bplus', 'B+', s.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
-      checkNumber('rk', 'Rk', s.rk, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
-      (s.vbias === undefined ? null : checkNumber('vbias', 'Grid voltage', s.vbias, 'V', -LIMITS.maxBiasVolts, LIMITS.maxBiasVolts)) ??
-      (s.coupling?.kind === 'direct' && (s.vbias ?? 0) !== 0 ? fail('invalid-input', 'A direct-coupled follower\'s grid sits at the previous output\'s voltage: give no grid voltage of its own', 'vbias') : null) ??
-      (s.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', s.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts))
-    );
-  },
+  check: (s) => checkTriodeLink(s, () => checkNumber('rk', 'Rk', s.rk, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)),
   inputImpedance: (s) => couplingImpedance(s.coupling),
   solve(s, env) {
     const vgrid = env.gridDc ?? s.vbias ?? 0;

@@ -18,7 +18,9 @@ export const STAGE_KIND_LABELS: { readonly [K in StageKindName]: string } = {
   'single-ended-output': 'Single-ended output',
 };
 
+/** The adapter for a stage's kind; null for a name that is not one (own keys only: "toString" is not a kind). */
 export function kindOf<S extends ChainStage>(stage: S): StageKind<S> | null {
-  const k = (STAGE_KINDS as Record<string, StageKind<ChainStage>>)[stage.kind];
-  return (k ?? null) as StageKind<S> | null;
+  const name: unknown = stage.kind;
+  if (typeof name !== 'string' || !Object.hasOwn(STAGE_KINDS, name)) return null;
+  return (STAGE_KINDS as Record<string, StageKind<ChainStage>>)[name] as unknown as StageKind<S>;
 }

@@ -89,6 +89,8 @@ describe('an amplifier of 1 to 8 stages', () => {
     expect(solveChain(amp(gainStage(), { ...output, coupling: { kind: 'direct' } } as ChainStage))).toMatchObject({ ok: false, field: 'stages.1.coupling' });
     expect(solveChain({ source: { rsource: -1 }, stages: [gainStage()] })).toMatchObject({ ok: false, field: 'source.rsource' });
     expect(solveChain({ source: { rsource: 0 }, stages: [] })).toMatchObject({ ok: false, field: 'stages' });
+    // A kind's name is looked up among the kinds themselves, not the object's inherited keys (found by the property test).
+    expect(solveChain(amp({ ...driver, kind: 'toString' } as unknown as ChainStage))).toMatchObject({ ok: false, field: 'stages.0.kind' });
   });
 
   it('the first version\'s array of links keeps its meaning beside the amplifier form', () => {
