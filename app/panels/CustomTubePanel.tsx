@@ -5,12 +5,11 @@ import { plain } from '../format';
 import { MiniChart } from '../signal/MiniChart';
 import type { XYSpec } from '../signal/drawXY';
 import { useWorkbench } from '../store/StoreProvider';
-import { MAX_POINTS_TEXT } from '../store/customSlice';
+import { PointsBox } from './PointsBox';
 
 /** Make a tube from points read off a datasheet or measured: paste, fit, check the curves over the points, save under a name. */
 export function CustomTubePanel() {
   const custom = useWorkbench((s) => s.custom);
-  const setCsv = useWorkbench((s) => s.setCustomCsv);
   const setTypical = useWorkbench((s) => s.setTypicalCsv);
   const fit = useWorkbench((s) => s.fitCustom);
   const save = useWorkbench((s) => s.saveCustom);
@@ -48,7 +47,7 @@ export function CustomTubePanel() {
     <section className="panel custom-tube" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>A tube of your own</h2>
       <label htmlFor={`${id}-csv`} className="field-label">Points, one per line: plate voltage (V), grid voltage (V), plate current (mA)</label>
-      <textarea id={`${id}-csv`} rows={6} maxLength={MAX_POINTS_TEXT} value={custom.csv} spellCheck={false} onChange={(e) => setCsv(e.target.value)} aria-describedby={`${id}-hint`} />
+      <PointsBox id={`${id}-csv`} hintId={`${id}-hint`} />
       <p id={`${id}-hint`} className="field-hint">Commas, semicolons, tabs or spaces; a header line and # comments are skipped. Read at least two grid curves.</p>
       <label htmlFor={`${id}-typ`} className="field-label">And/or the datasheet's typical figures, one point per line: Va (V), Vg (V), Ia (mA), mu, rp (Ω), gm (mA/V); “-” for a figure not given</label>
       <textarea id={`${id}-typ`} rows={2} value={custom.typicalCsv} spellCheck={false} placeholder="250, -8.5, 10.5, 17, 7700, 2.2" onChange={(e) => setTypical(e.target.value)} />

@@ -21,6 +21,12 @@ export interface CustomSlice {
     readonly busy: { readonly what: 'fit' | 'import'; readonly done: number; readonly of: number } | null;
   };
   setCustomCsv: (csv: string) => void;
+  /**
+   * A paste into the points box between `start` and `end` of what it holds: a
+   * paste that would overfill it keeps the whole lines that fit and says how
+   * many were left out, before the page ever lays the rest out.
+   */
+  pastePoints: (text: string, start: number, end: number) => void;
   setTypicalCsv: (text: string) => void;
   /** Fits off the page's thread; resolves when the fit is in (or was cancelled). */
   fitCustom: () => Promise<void>;
@@ -50,6 +56,9 @@ export const MAX_IMPORT_TUBES = 500;
 export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice> = (set, get) => {
   // Per store: the worker that fits and imports off the page's thread.
   const work = createOffThread();
+  // The running job's number: a progress report that arrives after its job ended or was cancelled (the worker's
+  // reports travel on their own channel and can land after the answer) must not mark the bench busy again.
+  let currentJob = 0;
   const patch = (p: Partial<CustomSlice['custom']>) => set({ custom: { ...get().custom, ...p } });
   return {
   custom: { csv: EXAMPLE, typicalCsv: '', lineErrors: [], fit: null, curves: [], points: [], typical: [], note: null, busy: null },
@@ -59,18 +68,40 @@ export const createCustomSlice: StateCreator<WorkbenchState, [], [], CustomSlice
     // The box's maxLength cuts a larger paste where the browser inserts it (so the page never lays out a 100,000-line box): say so.
     patch({ csv, ...(csv.length === MAX_POINTS_TEXT ? { note: `The points box is full (${MAX_POINTS_TEXT.toLocaleString('en')} characters, about 10,000 points): a longer paste was cut there. Thin the points or fit them in parts.` } : {}) });
   },
+  pastePoints: (text, start, end) => {
+    const held = get().custom.csv;
+    const before = held.slice(0, Math.max(0, start));
+    const after = held.slice(Math.max(start, end));
+    const room = MAX_POINTS_TEXT - before.length - after.length;
+    if (text.length <= room) return patch({ csv: before + text + after, note: null });
+    // Whole lines only: a line cut in the middle would read as a wrong point.
+    const cut = room > 0 ? text.lastIndexOf('\n', room - 1) : -1;
+    const kept = cut > 0 ? text.slice(0, cut + 1) : '';
+    const lines = (t: string) => (t === '' ? 0 : t.split('\n').filter((l) => l.trim() !== '').length);
+    patch({
+      csv: before + kept + after,
+      note: `The paste had ${lines(text).toLocaleString('en')} lines (${text.length.toLocaleString('en')} characters); the points box holds ${MAX_POINTS_TEXT.toLocaleString('en')} characters (about 10,000 points), so the first ${lines(kept).toLocaleString('en')} lines were kept. Thin the points or fit them in parts.`,
+    });
+  },
   setTypicalCsv: (typicalCsv) => patch({ typicalCsv: typicalCsv.slice(0, MAX_POINTS_TEXT) }),
 
   fitCustom: async () => {
     const c = get().custom;
     if (c.busy) return;
+    const job = ++currentJob;
     patch({ busy: { what: 'fit', done: 0, of: 9 }, note: null });
-    const outcome = await work.fit(c.csv, c.typicalCsv, (done, of) => patch({ busy: { what: 'fit', done, of } }));
+    const outcome = await work.fit(c.csv, c.typicalCsv, (done, of) => {
+      if (job === currentJob) patch({ busy: { what: 'fit', done, of } });
+    });
+    if (job === currentJob) currentJob = 0;
     if (outcome === 'cancelled') return patch({ busy: null, note: 'Fit cancelled: nothing changed.' });
     patch({ ...outcome, busy: null });
   },
 
-  cancelCustomWork: () => work.cancel(),
+  cancelCustomWork: () => {
+    currentJob = 0;
+    work.cancel();
+  },
 
   saveCustom: (name, ratings, extras = {}) => {
     const c = get().custom;

@@ -1,4 +1,5 @@
-import { render, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { act } from 'react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
@@ -94,5 +95,37 @@ describe('the points box has a size', () => {
     expect(store.getState().custom.note).toMatch(/^The points box holds at most 400,000 characters/);
     store.getState().setCustomCsv('1'.repeat(MAX_POINTS_TEXT));
     expect(store.getState().custom.note).toMatch(/^The points box is full .* a longer paste was cut there/);
+  });
+
+  it('a paste of 100,000 lines into the box keeps the whole lines that fit, at the cursor, and says how many it left out', async () => {
+    const { MAX_POINTS_TEXT } = await import('../../app/store/customSlice');
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().setCustomCsv('# mine\n'));
+    const box = document.querySelector<HTMLTextAreaElement>('.custom-tube textarea')!;
+    const line = '250, -4, 3.25\n';
+    const huge = line.repeat(100_000);
+    box.setSelectionRange(7, 7);
+    act(() => {
+      fireEvent.paste(box, { clipboardData: { getData: () => huge } });
+    });
+    const held = store.getState().custom.csv;
+    expect(held.length).toBeLessThanOrEqual(MAX_POINTS_TEXT);
+    expect(held.startsWith('# mine\n250, -4, 3.25\n')).toBe(true);
+    expect(held.endsWith('3.25\n')).toBe(true);
+    const kept = Math.floor((MAX_POINTS_TEXT - 7) / line.length);
+    expect(store.getState().custom.note).toBe(`The paste had 100,000 lines (${huge.length.toLocaleString('en')} characters); the points box holds 400,000 characters (about 10,000 points), so the first ${kept.toLocaleString('en')} lines were kept. Thin the points or fit them in parts.`);
+    // So large a set is shown as its first lines, read-only, with its count; all of it is kept for the fit.
+    const preview = document.querySelector<HTMLTextAreaElement>('.custom-tube textarea')!;
+    expect(preview.readOnly).toBe(true);
+    expect(preview.value.length).toBeLessThan(2000);
+    expect(screen.getByText(/^28,571 lines \(399,987 characters\): too many to edit here, all kept for the fit/)).toBeTruthy();
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Clear the points' })));
+    expect(store.getState().custom.csv).toBe('');
+    expect(document.querySelector<HTMLTextAreaElement>('.custom-tube textarea')!.readOnly).toBe(false);
+    // A paste that fits goes in whole, where the cursor is.
+    act(() => store.getState().setCustomCsv('# mine\n'));
+    act(() => store.getState().pastePoints('100, 0, 5\n', 0, 0));
+    expect(store.getState().custom.csv).toBe('100, 0, 5\n# mine\n');
   });
 });

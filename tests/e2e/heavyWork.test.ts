@@ -30,7 +30,11 @@ describe.runIf(run)('heavy work off the page\'s thread', () => {
     await expect.poll(() => page.locator('.custom-tube [role="status"]').textContent()).toBe('Fit cancelled: nothing changed.');
     expect(await page.locator('[data-testid="fit-summary"]').count()).toBe(0);
     await fitButton.click({ force: true });
-    await page.waitForSelector('[data-testid="fit-summary"]', { state: 'attached', timeout: 60_000 });
+    // Where the fit stands, should it not finish: the progress bar's value, or the status line.
+    const state = () => page.locator('.custom-tube').evaluate((el) => `progress ${el.querySelector('progress')?.value ?? 'none'}; status ${el.querySelector('[role="status"]')?.textContent ?? 'none'}`);
+    await page.waitForSelector('[data-testid="fit-summary"]', { state: 'attached', timeout: 60_000 }).catch(async (e: Error) => {
+      throw new Error(`${e.message.split('\n')[0]} (${await state()})`);
+    });
     expect(await page.locator('[data-testid="fit-summary"]').textContent()).toMatch(/RMS error/);
     expect(errors).toEqual([]);
     await page.close();
