@@ -12,6 +12,7 @@ import { CurveDensity } from './CurveDensity';
 import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
 import { useChartBox } from './useChartBox';
+import { DESIGN_LIMITS } from '../store/designLimits';
 
 /** Arrow keys move the point by 1 % of the chart window, 5 % with Shift. */
 const STEP = 0.01;
@@ -147,8 +148,8 @@ export function PlateChart() {
           role="slider"
           tabIndex={0}
           aria-label="B+, the foot of the DC load line: drag or use the arrow keys"
-          aria-valuemin={5}
-          aria-valuemax={sheet.extent.vmax}
+          aria-valuemin={DESIGN_LIMITS.bplus.min}
+          aria-valuemax={Math.min(sheet.extent.vmax, DESIGN_LIMITS.bplus.max)}
           onKeyDown={onBplusKey}
         >
           <path d="M0,0 L-8,14 L8,14 Z" fill={PALETTE.load} stroke={PALETTE.sheet} strokeWidth={1.5} />

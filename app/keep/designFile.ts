@@ -2,6 +2,7 @@ import { CONNECTIONS, findOutputTube, type Connection, type OutputDesign, type P
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
+import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
 
 /**
  * Quiescent's design file: our own JSON format, versioned.
@@ -47,9 +48,13 @@ export function writeDesignFile(doc: DesignDocument, savedAt = new Date()): stri
 }
 
 type Check = (v: unknown) => string | null;
-const num = (min: number, max: number, unit: string): Check => (v) =>
-  typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max ? null : `must be a number from ${min} to ${max} ${unit}`;
-const numOrNull = (min: number, max: number, unit: string): Check => (v) => (v === null ? null : num(min, max, unit)(v));
+/** A number in the field's range (DESIGN_LIMITS: the same as typing it). */
+const num = ({ min, max, unit, minPart }: Limit): Check => (v) => {
+  const u = unit === '' ? '' : ` ${unit}`;
+  if (minPart !== undefined) return v === 0 || (typeof v === 'number' && Number.isFinite(v) && v >= minPart && v <= max) ? null : `must be 0 or a number from ${minPart} to ${max}${u}`;
+  return typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max ? null : `must be a number from ${min} to ${max}${u}`;
+};
+const numOrNull = (range: Limit): Check => (v) => (v === null ? null : num(range)(v));
 const bool: Check = (v) => (typeof v === 'boolean' ? null : 'must be true or false');
 const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'string' && options.includes(v) ? null : `must be one of ${options.join(', ')}`);
 /** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
@@ -57,43 +62,43 @@ const tubeId: Check = (v) => (typeof v === 'string' && v.trim().length > 0 && v.
 
 const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput'>, Check> = {
   tubeId,
-  bplus: num(1, 1500, 'V'),
-  ra: num(100, 10e6, 'Ω'),
-  rk: num(0, 10e6, 'Ω'),
+  bplus: num(L.bplus),
+  ra: num(L.ra),
+  rk: num(L.rk),
   bypassed: bool,
-  rl: numOrNull(100, 100e6, 'Ω'),
+  rl: numOrNull(L.rl),
   series: oneOf(['E12', 'E24', 'E96']),
   snap: bool,
-  rsource: num(0, 10e6, 'Ω'),
-  cin: numOrNull(1e-12, 1, 'F'),
-  rg: num(1e3, 100e6, 'Ω'),
-  ck: numOrNull(1e-9, 1, 'F'),
-  cout: numOrNull(1e-12, 1, 'F'),
-  levelRms: num(1e-4, 1000, 'V rms'),
+  rsource: num(L.rsource),
+  cin: numOrNull(L.cin),
+  rg: num(L.rg),
+  ck: numOrNull(L.ck),
+  cout: numOrNull(L.cout),
+  levelRms: num(L.levelRms),
 };
 const STAGE2_FIELDS: Record<keyof Stage2Design, Check> = {
   kind: oneOf(['none', 'follower', 'common-cathode']),
   tubeId,
-  ra: num(100, 10e6, 'Ω'),
-  rk: num(1, 10e6, 'Ω'),
-  rg: num(1e3, 100e6, 'Ω'),
+  ra: num(L.stage2.ra),
+  rk: num(L.stage2.rk),
+  rg: num(L.stage2.rg),
 };
 
 const outputTubeId: Check = (v) => (typeof v === 'string' && findOutputTube(v) ? null : 'must name an output tube in the library');
 const OUTPUT_FIELDS: Record<keyof OutputDesign, Check> = {
   tubeId: outputTubeId,
   connection: oneOf(CONNECTIONS),
-  bplus: num(20, 2000, 'V'),
-  screenVolts: num(10, 2000, 'V'),
-  ulTap: num(0.05, 0.95, ''),
-  zPrimary: num(100, 100e3, 'Ω'),
-  rPrimary: num(0, 10e3, 'Ω'),
+  bplus: num(L.output.bplus),
+  screenVolts: num(L.output.screenVolts),
+  ulTap: num(L.output.ulTap),
+  zPrimary: num(L.output.zPrimary),
+  rPrimary: num(L.output.rPrimary),
   bias: oneOf(['cathode', 'fixed']),
-  rk: num(1, 100e3, 'Ω'),
-  vg: num(-500, 0, 'V'),
-  rg: num(1e3, 10e6, 'Ω'),
-  speakerOhms: num(1, 100, 'Ω'),
-  thdLimit: num(0.001, 0.5, ''),
+  rk: num(L.output.rk),
+  vg: num(L.output.vg),
+  rg: num(L.output.rg),
+  speakerOhms: num(L.output.speakerOhms),
+  thdLimit: num(L.output.thdLimit),
 };
 
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);

@@ -9,6 +9,7 @@ import { CurveDensity } from '../chart/CurveDensity';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachOutputDrag } from './attachOutputDrag';
 import { drawOutputOverlay } from './drawOutputOverlay';
+import { DESIGN_LIMITS } from '../store/designLimits';
 
 /** Arrow keys move the point by 1 % of the window (5 % with Shift); on the load handle they change Zpri by 2 % (10 %). */
 const STEP = 0.01;
@@ -114,8 +115,8 @@ export function OutputChart() {
           role="slider"
           tabIndex={0}
           aria-label="Primary impedance: drag the AC load line's handle, or use the arrow keys"
-          aria-valuemin={100}
-          aria-valuemax={100000}
+          aria-valuemin={DESIGN_LIMITS.output.zPrimary.min}
+          aria-valuemax={DESIGN_LIMITS.output.zPrimary.max}
           onKeyDown={onLoadKey}
         >
           <rect x={-14} y={-14} width={28} height={28} fill="transparent" />

@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import { designAtPlanePoint, nearestPreferred, nearestReachable } from '../../src/index';
 import type { BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
+import { DESIGN_LIMITS } from './designLimits';
 
 /**
  * Dragging on the plate chart. While the operating point moves, B+ stays
@@ -34,7 +35,7 @@ export interface DragSlice {
 }
 
 /** Lowest B+ the foot of the load line can be dragged to, V. */
-export const MIN_DRAG_BPLUS = 5;
+export const MIN_DRAG_BPLUS = DESIGN_LIMITS.bplus.min;
 
 export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = (set, get) => ({
   dragging: null,
@@ -69,7 +70,7 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
   dragBplusTo: (volts) => {
     const s = get();
     const { extent } = s.analysis.sheet;
-    const bplus = Math.round(Math.min(Math.max(volts, MIN_DRAG_BPLUS), extent.vmax) * 2) / 2;
+    const bplus = Math.round(Math.min(Math.max(volts, MIN_DRAG_BPLUS), extent.vmax, DESIGN_LIMITS.bplus.max) * 2) / 2;
     if (bplus === s.design.bplus) return;
     const failure = s.commit({ ...s.design, bplus }, { extent, light: true });
     set({ dragNote: failure ? `B+ ${bplus} V: ${failure.message}` : null });

@@ -1,6 +1,7 @@
 import { formatValue, parseValue } from '../../src/index';
 import type { OutputDesign } from '../../src/index';
 import type { BenchDesign } from './analysis';
+import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
@@ -21,14 +22,19 @@ export interface FieldDef {
   readonly put: (d: BenchDesign, value: number | null) => BenchDesign;
 }
 
-function ranged(label: string, unit: string, min: number, max: number, opts: { allowZero?: boolean; none?: 'infinite' | 'null' } = {}): Read {
+/** Reads a value in the field's range (DESIGN_LIMITS); 0 where the range allows no part; "none" where a field may be empty. */
+function ranged(label: string, range: Limit, opts: { none?: 'infinite' | 'null' } = {}): Read {
+  const unit = range.unit;
+  const allowZero = range.min === 0;
+  const min = range.minPart ?? range.min;
+  const max = range.max;
   return (text) => {
     const t = text.trim().toLowerCase();
     if (opts.none && (t === 'none' || t === '' || t === '∞')) return { ok: true, value: opts.none === 'infinite' ? Infinity : null };
     const r = parseValue(text);
     if (!r.ok) return r;
-    const low = opts.allowZero ? r.value < 0 : r.value <= 0;
-    if (low) return { ok: false, message: `${label} must be ${opts.allowZero ? '0 or more' : 'above 0'} ${unit}` };
+    const low = allowZero ? r.value < 0 : r.value <= 0;
+    if (low) return { ok: false, message: `${label} must be ${allowZero ? '0 or more' : 'above 0'} ${unit}` };
     if (r.value < min && r.value !== 0) return { ok: false, message: `${label} must be at least ${formatValue(min, unit)}` };
     if (r.value > max) return { ok: false, message: `${label} must be at most ${formatValue(max, unit)}` };
     return r;
@@ -53,11 +59,12 @@ const out = <K extends keyof OutputDesign>(key: K) => ({
 });
 
 /** A share typed and shown in percent, held as a fraction. */
-function percent(label: string, min: number, max: number): Read {
+function percent(label: string, range: Limit): Read {
+  const [min, max] = [range.min * 100, range.max * 100];
   return (text) => {
     const r = parseValue(text.replace('%', ''));
     if (!r.ok) return r;
-    if (r.value < min || r.value > max) return { ok: false, message: `${label} must be from ${min} to ${max} %` };
+    if (r.value < min || r.value > max) return { ok: false, message: `${label} must be from ${Number(min.toPrecision(3))} to ${Number(max.toPrecision(3))} %` };
     return { ok: true, value: r.value / 100 };
   };
 }
@@ -68,34 +75,34 @@ const gridBias: Read = (text) => {
   const r = parseValue(text);
   if (!r.ok) return r;
   if (r.value > 0) return { ok: false, message: 'Grid bias must be 0 V or negative, e.g. -20' };
-  if (r.value < -500) return { ok: false, message: 'Grid bias must be at least -500 V' };
+  if (r.value < L.output.vg.min) return { ok: false, message: `Grid bias must be at least ${L.output.vg.min} V` };
   return r;
 };
 
 export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
-  bplus: { label: 'B+', unit: 'V', example: '275', read: ranged('B+', 'V', 1, 1500), show: compact, ...top('bplus') },
-  ra: { label: 'Ra', unit: 'Ω', example: '33k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact, ...top('ra') },
-  rk: { label: 'Rk', unit: 'Ω', example: '3k3', read: ranged('Rk', 'Ω', 1, 1e6, { allowZero: true }), show: compact, ...top('rk') },
-  rl: { label: 'RL', unit: 'Ω', example: '220k or none', read: ranged('RL', 'Ω', 100, 100e6, { none: 'infinite' }), show: compact, ...top('rl') },
-  rsource: { label: 'Source Rs', unit: 'Ω', example: '10k', read: ranged('Source impedance', 'Ω', 0, 10e6, { allowZero: true }), show: compact, ...top('rsource') },
-  cin: { label: 'Cin', unit: 'F', example: '68n or none', read: ranged('Cin', 'F', 1e-12, 1, { none: 'null' }), show: compact, ...top('cin') },
-  rg: { label: 'Rg', unit: 'Ω', example: '2M2', read: ranged('Rg', 'Ω', 1e3, 100e6), show: compact, ...top('rg') },
-  ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', 'F', 1e-9, 1, { none: 'null' }), show: compact, ...top('ck') },
-  cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', 'F', 1e-12, 1, { none: 'null' }), show: compact, ...top('cout') },
-  level: { label: 'Output level', unit: 'V rms', example: '2', read: ranged('Output level', 'V rms', 1e-4, 1000), show: compact, ...top('levelRms') },
-  ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', 'Ω', 100, 10e6), show: compact, ...second('ra') },
-  rk2: { label: 'Rk (stage 2)', unit: 'Ω', example: '1k or 33k', read: ranged('Rk', 'Ω', 1, 10e6), show: compact, ...second('rk') },
-  rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', 'Ω', 1e3, 100e6), show: compact, ...second('rg') },
-  oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', 'V', 20, 2000), show: compact, ...out('bplus') },
-  oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', 'V', 10, 2000), show: compact, ...out('screenVolts') },
-  oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', 5, 95), show: showPercent, ...out('ulTap') },
-  oZ: { label: 'Primary Z', unit: 'Ω', example: '3k5', read: ranged('Primary impedance', 'Ω', 100, 100e3), show: compact, ...out('zPrimary') },
-  oRpri: { label: 'Primary DCR', unit: 'Ω', example: '120', read: ranged('Primary DC resistance', 'Ω', 0, 10e3, { allowZero: true }), show: compact, ...out('rPrimary') },
-  oRk: { label: 'Rk', unit: 'Ω', example: '270', read: ranged('Rk', 'Ω', 1, 100e3), show: compact, ...out('rk') },
+  bplus: { label: 'B+', unit: 'V', example: '275', read: ranged('B+', L.bplus), show: compact, ...top('bplus') },
+  ra: { label: 'Ra', unit: 'Ω', example: '33k', read: ranged('Ra', L.ra), show: compact, ...top('ra') },
+  rk: { label: 'Rk', unit: 'Ω', example: '3k3', read: ranged('Rk', L.rk), show: compact, ...top('rk') },
+  rl: { label: 'RL', unit: 'Ω', example: '220k or none', read: ranged('RL', L.rl, { none: 'infinite' }), show: compact, ...top('rl') },
+  rsource: { label: 'Source Rs', unit: 'Ω', example: '10k', read: ranged('Source impedance', L.rsource), show: compact, ...top('rsource') },
+  cin: { label: 'Cin', unit: 'F', example: '68n or none', read: ranged('Cin', L.cin, { none: 'null' }), show: compact, ...top('cin') },
+  rg: { label: 'Rg', unit: 'Ω', example: '2M2', read: ranged('Rg', L.rg), show: compact, ...top('rg') },
+  ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', L.ck, { none: 'null' }), show: compact, ...top('ck') },
+  cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', L.cout, { none: 'null' }), show: compact, ...top('cout') },
+  level: { label: 'Output level', unit: 'V rms', example: '2', read: ranged('Output level', L.levelRms), show: compact, ...top('levelRms') },
+  ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', L.stage2.ra), show: compact, ...second('ra') },
+  rk2: { label: 'Rk (stage 2)', unit: 'Ω', example: '1k or 33k', read: ranged('Rk', L.stage2.rk), show: compact, ...second('rk') },
+  rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', L.stage2.rg), show: compact, ...second('rg') },
+  oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', L.output.bplus), show: compact, ...out('bplus') },
+  oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
+  oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', L.output.ulTap), show: showPercent, ...out('ulTap') },
+  oZ: { label: 'Primary Z', unit: 'Ω', example: '3k5', read: ranged('Primary impedance', L.output.zPrimary), show: compact, ...out('zPrimary') },
+  oRpri: { label: 'Primary DCR', unit: 'Ω', example: '120', read: ranged('Primary DC resistance', L.output.rPrimary), show: compact, ...out('rPrimary') },
+  oRk: { label: 'Rk', unit: 'Ω', example: '270', read: ranged('Rk', L.output.rk), show: compact, ...out('rk') },
   oVg: { label: 'Grid bias', unit: 'V', example: '-20', read: gridBias, show: (v) => (v === null ? '' : String(Number(v.toFixed(2)))), ...out('vg') },
-  oRg: { label: 'Rg', unit: 'Ω', example: '220k', read: ranged('Rg', 'Ω', 1e3, 10e6), show: compact, ...out('rg') },
-  oSpeaker: { label: 'Speaker', unit: 'Ω', example: '8', read: ranged('Speaker', 'Ω', 1, 100), show: compact, ...out('speakerOhms') },
-  oThd: { label: 'Distortion limit', unit: '%', example: '5', read: percent('Distortion limit', 0.1, 50), show: showPercent, ...out('thdLimit') },
+  oRg: { label: 'Rg', unit: 'Ω', example: '220k', read: ranged('Rg', L.output.rg), show: compact, ...out('rg') },
+  oSpeaker: { label: 'Speaker', unit: 'Ω', example: '8', read: ranged('Speaker', L.output.speakerOhms), show: compact, ...out('speakerOhms') },
+  oThd: { label: 'Distortion limit', unit: '%', example: '5', read: percent('Distortion limit', L.output.thdLimit), show: showPercent, ...out('thdLimit') },
 };
 
 export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

@@ -44,6 +44,14 @@ export const OUTPUT_LIMITS = {
   maxTap: 0.95,
   minThd: 0.001,
   maxThd: 0.5,
+  minScreen: 10,
+  minRk: 1,
+  maxRk: 100_000,
+  minVg: -500,
+  minRg: 1000,
+  maxRg: 10e6,
+  minSpeaker: 1,
+  maxSpeaker: 100,
 } as const;
 
 /** The first field that cannot be used, worded for showing next to it; null when the design is usable. */
@@ -53,13 +61,13 @@ export function outputDesignProblem(d: OutputDesign, tube: OutputTube): Failure 
   const L = OUTPUT_LIMITS;
   return (
     checkNumber('bplus', 'B+', d.bplus, 'V', L.minBplus, L.maxBplus) ??
-    checkNumber('screenVolts', 'Screen supply', d.screenVolts, 'V', 10, L.maxBplus) ??
+    checkNumber('screenVolts', 'Screen supply', d.screenVolts, 'V', L.minScreen, L.maxBplus) ??
     (d.connection === 'ultralinear' ? checkNumber('ulTap', 'Screen tap', d.ulTap, '', L.minTap, L.maxTap) : null) ??
     checkNumber('zPrimary', 'Primary impedance', d.zPrimary, 'Ω', L.minZ, L.maxZ) ??
     checkNumber('rPrimary', 'Primary DC resistance', d.rPrimary, 'Ω', 0, L.maxRPrimary) ??
-    (d.bias === 'cathode' ? checkNumber('rk', 'Rk', d.rk, 'Ω', 1, 100_000) : checkNumber('vg', 'Grid bias', d.vg, 'V', -500, 0)) ??
-    checkNumber('rg', 'Grid resistor', d.rg, 'Ω', 1000, 10e6) ??
-    checkNumber('speakerOhms', 'Speaker', d.speakerOhms, 'Ω', 1, 100) ??
+    (d.bias === 'cathode' ? checkNumber('rk', 'Rk', d.rk, 'Ω', L.minRk, L.maxRk) : checkNumber('vg', 'Grid bias', d.vg, 'V', L.minVg, 0)) ??
+    checkNumber('rg', 'Grid resistor', d.rg, 'Ω', L.minRg, L.maxRg) ??
+    checkNumber('speakerOhms', 'Speaker', d.speakerOhms, 'Ω', L.minSpeaker, L.maxSpeaker) ??
     checkNumber('thdLimit', 'Distortion limit', d.thdLimit, '', L.minThd, L.maxThd)
   );
 }

@@ -27,12 +27,13 @@ describe('workbench store', () => {
     const before = store.getState().design;
     store.getState().editField('bplus', '0');
     expect(store.getState().errors.bplus).toBe('B+ must be above 0 V');
-    store.getState().editField('rk', '1M');
+    // The lowest B+ the bench takes (5 V, the one table of limits) with a 10 MΩ cathode resistor: cut off.
+    store.getState().editField('rk', '10M');
     const held = store.getState().design;
-    store.getState().editField('bplus', '1');
+    store.getState().editField('bplus', '5');
     expect(store.getState().errors.bplus).toBe('The tube is cut off: plate current below 1 µA. Lower Rk, make the grid bias less negative, or raise B+.');
     expect(store.getState().design).toEqual(held);
-    expect(held).toEqual({ ...before, rk: 1e6 });
+    expect(held).toEqual({ ...before, rk: 10e6 });
   });
 
   it('a valid entry replaces the value, clears the message and re-solves once', () => {
@@ -133,8 +134,9 @@ describe('workbench store', () => {
 
   it('a tube the model cannot run with these parts is refused, and the bench keeps the old one', () => {
     const store = createWorkbenchStore();
-    store.getState().editField('bplus', '2');
-    store.getState().editField('rk', '1M');
+    // 8 V and 2.2 MΩ: the 12AU7 still draws 1.02 µA, the 6DJ8 is cut off (the model's own figures).
+    store.getState().editField('bplus', '8');
+    store.getState().editField('rk', '2M2');
     const before = store.getState().design;
     store.getState().chooseTube('6DJ8');
     expect(store.getState().design).toEqual(before);

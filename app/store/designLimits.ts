@@ -1,0 +1,49 @@
+import { OUTPUT_LIMITS } from '../../src/index';
+
+/** A design field's range: typing, files and links, drags and the sliders' aria bounds all read it from here. */
+export interface Limit {
+  readonly min: number;
+  readonly max: number;
+  readonly unit: string;
+  /** Where 0 is allowed (no part) but a part must be at least this, as Rk (0: no cathode resistor). */
+  readonly minPart?: number;
+}
+
+const limit = (min: number, max: number, unit: string, minPart?: number): Limit => (minPart === undefined ? { min, max, unit } : { min, max, unit, minPart });
+
+/**
+ * Every design field's range, one place. The output stage's come from the
+ * model's own (OUTPUT_LIMITS), so the bench never accepts what the model
+ * refuses. Values outside are typing slips, not designs.
+ */
+export const DESIGN_LIMITS = {
+  bplus: limit(5, 1500, 'V'),
+  ra: limit(100, 10e6, 'Ω'),
+  rk: limit(0, 10e6, 'Ω', 1),
+  rl: limit(100, 100e6, 'Ω'),
+  rsource: limit(0, 10e6, 'Ω'),
+  cin: limit(1e-12, 1, 'F'),
+  rg: limit(1e3, 100e6, 'Ω'),
+  ck: limit(1e-9, 1, 'F'),
+  cout: limit(1e-12, 1, 'F'),
+  levelRms: limit(1e-4, 1000, 'V rms'),
+  stage2: {
+    ra: limit(100, 10e6, 'Ω'),
+    rk: limit(1, 10e6, 'Ω'),
+    rg: limit(1e3, 100e6, 'Ω'),
+  },
+  output: {
+    bplus: limit(OUTPUT_LIMITS.minBplus, OUTPUT_LIMITS.maxBplus, 'V'),
+    screenVolts: limit(OUTPUT_LIMITS.minScreen, OUTPUT_LIMITS.maxBplus, 'V'),
+    ulTap: limit(OUTPUT_LIMITS.minTap, OUTPUT_LIMITS.maxTap, ''),
+    zPrimary: limit(OUTPUT_LIMITS.minZ, OUTPUT_LIMITS.maxZ, 'Ω'),
+    rPrimary: limit(0, OUTPUT_LIMITS.maxRPrimary, 'Ω'),
+    rk: limit(OUTPUT_LIMITS.minRk, OUTPUT_LIMITS.maxRk, 'Ω'),
+    vg: limit(OUTPUT_LIMITS.minVg, 0, 'V'),
+    rg: limit(OUTPUT_LIMITS.minRg, OUTPUT_LIMITS.maxRg, 'Ω'),
+    speakerOhms: limit(OUTPUT_LIMITS.minSpeaker, OUTPUT_LIMITS.maxSpeaker, 'Ω'),
+    thdLimit: limit(OUTPUT_LIMITS.minThd, OUTPUT_LIMITS.maxThd, ''),
+  },
+} as const;
+
+export const within = (v: number, l: Limit) => Math.min(Math.max(v, l.min), l.max);

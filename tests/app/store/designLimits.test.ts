@@ -1,0 +1,53 @@
+import { describe, expect, it } from 'vitest';
+import { OUTPUT_LIMITS, outputDesignProblem, findOutputTube } from '../../../src/index';
+import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
+import { DEMO_DESIGN } from '../../../app/store/demoDesign';
+import { DESIGN_LIMITS as L, type Limit } from '../../../app/store/designLimits';
+import { FIELDS, type FieldName } from '../../../app/store/fields';
+import type { BenchDesign } from '../../../app/store/analysis';
+import { MIN_DRAG_BPLUS } from '../../../app/store/dragSlice';
+
+/** Each typed field, its range in the one table, and where the design file keeps it. */
+const FIELD_LIMITS: [FieldName, Limit, (d: BenchDesign, v: number) => BenchDesign][] = [
+  ['bplus', L.bplus, (d, v) => ({ ...d, bplus: v })],
+  ['ra', L.ra, (d, v) => ({ ...d, ra: v })],
+  ['rk', L.rk, (d, v) => ({ ...d, rk: v })],
+  ['rsource', L.rsource, (d, v) => ({ ...d, rsource: v })],
+  ['rg', L.rg, (d, v) => ({ ...d, rg: v })],
+  ['level', L.levelRms, (d, v) => ({ ...d, levelRms: v })],
+  ['ra2', L.stage2.ra, (d, v) => ({ ...d, stage2: { ...d.stage2, ra: v } })],
+  ['rk2', L.stage2.rk, (d, v) => ({ ...d, stage2: { ...d.stage2, rk: v } })],
+  ['oBplus', L.output.bplus, (d, v) => ({ ...d, output: { ...d.output, bplus: v } })],
+  ['oZ', L.output.zPrimary, (d, v) => ({ ...d, output: { ...d.output, zPrimary: v } })],
+  ['oRk', L.output.rk, (d, v) => ({ ...d, output: { ...d.output, rk: v } })],
+  ['oSpeaker', L.output.speakerOhms, (d, v) => ({ ...d, output: { ...d.output, speakerOhms: v } })],
+];
+
+const parted: BenchDesign = { ...DEMO_DESIGN, drivesOutput: false };
+const opens = (d: BenchDesign) => readDesignFile(writeDesignFile({ title: 'limits', design: d })).ok;
+
+describe('one table of limits per design field', () => {
+  it.each(FIELD_LIMITS.map(([f, l, put]) => [f, l, put] as const))('%s: typing and files take the same range, ends included', (field, l, put) => {
+    const edge = (v: number) => FIELDS[field].read(String(v)).ok;
+    const top = l.max;
+    const bottom = l.minPart ?? l.min;
+    expect(edge(top)).toBe(true);
+    expect(edge(top * 1.01)).toBe(false);
+    expect(opens(put(parted, top))).toBe(true);
+    expect(opens(put(parted, top * 1.01))).toBe(false);
+    if (bottom > 0) {
+      expect(edge(bottom)).toBe(true);
+      expect(edge(bottom * 0.99)).toBe(false);
+      expect(opens(put(parted, bottom))).toBe(true);
+      expect(opens(put(parted, bottom * 0.99))).toBe(false);
+    }
+  });
+
+  it('the output stage\'s ranges are the model\'s own, and a drag of B+ stops where typing does', () => {
+    const el34 = findOutputTube('EL34')!;
+    expect(L.output.bplus).toMatchObject({ min: OUTPUT_LIMITS.minBplus, max: OUTPUT_LIMITS.maxBplus });
+    expect(outputDesignProblem({ ...DEMO_DESIGN.output, zPrimary: L.output.zPrimary.max }, el34)).toBeNull();
+    expect(outputDesignProblem({ ...DEMO_DESIGN.output, zPrimary: L.output.zPrimary.max * 1.01 }, el34)).toMatchObject({ field: 'zPrimary' });
+    expect(MIN_DRAG_BPLUS).toBe(L.bplus.min);
+  });
+});
