@@ -104,3 +104,7 @@ export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
 export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';
 export { amplifierAtLevel, type AmplifierLevel, type AmplifierAtLevel, type StageLevel } from './chain/amplifierAtLevel';
+export { solveSupply } from './supply/solveSupply';
+export { checkSupply, MAX_SECTIONS } from './supply/checkSupply';
+export { RECTIFIER_TUBES, findRectifierTube, type RectifierTube } from './supply/rectifierTubes';
+export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection } from './supply/supplyTypes';

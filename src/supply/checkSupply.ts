@@ -1,0 +1,57 @@
+import { fail, type Failure } from '../result';
+import { checkNumber } from '../stage/checkInput';
+import { findRectifierTube } from './rectifierTubes';
+import type { SupplyDesign } from './supplyTypes';
+
+export const MAX_SECTIONS = 8;
+/** A section's R·C past this, s, is a typing slip (a supply settles in seconds), and would take the solver minutes. */
+export const MAX_TIME_CONSTANT = 30;
+
+/** The supply's design checked field by field: the first that cannot be used, or null. */
+export function checkSupply(d: unknown): Failure | null {
+  if (typeof d !== 'object' || d === null) return fail('invalid-input', 'No supply given');
+  const s = d as SupplyDesign;
+  const r = s.rectifier as { kind?: unknown; tubeId?: unknown } | undefined;
+  const rectifierProblem =
+    typeof r !== 'object' || r === null || !['silicon-bridge', 'silicon-full-wave', 'tube'].includes(r.kind as string)
+      ? fail('invalid-input', 'Choose the rectifier: a silicon bridge, silicon full-wave (centre-tapped) or a rectifier tube', 'rectifier')
+      : r.kind === 'tube' && (typeof r.tubeId !== 'string' || !findRectifierTube(r.tubeId))
+        ? fail('invalid-input', 'Choose a rectifier tube from the list (5AR4, 5U4GB, 5Y3GT, EZ81)', 'rectifier')
+        : null;
+  const first =
+    checkNumber('mainsHz', 'Mains frequency', s.mainsHz, 'Hz', 40, 70) ??
+    checkNumber('secondaryRms', 'Secondary voltage', s.secondaryRms, 'V', 1, 2000) ??
+    checkNumber('windingOhms', 'Winding resistance', s.windingOhms, 'Ω', 0, 10_000) ??
+    rectifierProblem;
+  if (first) return first;
+  const input = s.input as { kind?: unknown; c?: unknown; l?: unknown; rdc?: unknown } | undefined;
+  if (typeof input !== 'object' || input === null || (input.kind !== 'capacitor' && input.kind !== 'choke')) {
+    return fail('invalid-input', 'Choose the filter\'s input: a reservoir capacitor, or a choke then a capacitor', 'input');
+  }
+  const inputProblem =
+    checkNumber('c', 'Reservoir capacitor', input.c, 'F', 1e-7, 10) ??
+    (input.kind === 'choke' ? checkNumber('l', 'Input choke', input.l, 'H', 0.01, 1000) ?? checkNumber('rdc', 'Choke resistance', input.rdc, 'Ω', 0, 100_000) : null);
+  if (inputProblem) return { ...inputProblem, field: `input.${inputProblem.field}` };
+  if (!Array.isArray(s.sections) || s.sections.length > MAX_SECTIONS) return fail('invalid-input', `Give at most ${MAX_SECTIONS} filter sections`, 'sections');
+  for (const [k, sec] of s.sections.entries()) {
+    const x = sec as { kind?: unknown; r?: unknown; l?: unknown; rdc?: unknown; c?: unknown };
+    const problem =
+      typeof x !== 'object' || x === null || (x.kind !== 'rc' && x.kind !== 'lc')
+        ? fail('invalid-input', 'A filter section is R–C or L–C', 'kind')
+        : (x.kind === 'rc' ? checkNumber('r', 'Series resistor', x.r, 'Ω', 1, 1e6) : checkNumber('l', 'Choke', x.l, 'H', 0.01, 1000) ?? checkNumber('rdc', 'Choke resistance', x.rdc, 'Ω', 0, 100_000)) ??
+          checkNumber('c', 'Capacitor', x.c, 'F', 1e-7, 10);
+    if (problem) return { ...problem, message: `Section ${k + 1}: ${problem.message}`, field: `sections.${k}.${problem.field}` };
+    const rc = x.kind === 'rc' ? (x.r as number) * (x.c as number) : 0;
+    if (rc > MAX_TIME_CONSTANT) {
+      return fail('invalid-input', `Section ${k + 1}: R·C is ${Math.round(rc)} s, far beyond any supply's (its B+ would take minutes to settle): check the values`, `sections.${k}.c`);
+    }
+  }
+  if (!Array.isArray(s.loads) || s.loads.length !== s.sections.length + 1) {
+    return fail('invalid-input', `Give the current drawn at each of the ${s.sections.length + 1} nodes (0 where none)`, 'loads');
+  }
+  for (const [k, a] of s.loads.entries()) {
+    const problem = checkNumber('loads', `Current at node ${k + 1}`, a, 'A', 0, 10);
+    if (problem) return { ...problem, field: `loads.${k}` };
+  }
+  return null;
+}

@@ -1,0 +1,54 @@
+/**
+ * A B+ supply: a mains transformer's secondary, a rectifier, a first filter
+ * element and a ladder of filter sections, each node with the DC current
+ * drawn from it. SI units.
+ */
+export interface SupplyDesign {
+  /** Mains frequency, Hz (50 or 60). */
+  readonly mainsHz: number;
+  /** Secondary rms voltage at its rated current (each half of a centre-tapped winding), V. */
+  readonly secondaryRms: number;
+  /** The winding's resistance as the rectifier sees it (each half for a centre-tapped winding), Ω. */
+  readonly windingOhms: number;
+  readonly rectifier: Rectifier;
+  /** The reservoir: a capacitor straight after the rectifier, or a choke (L, DCR) then a capacitor. */
+  readonly input: { readonly kind: 'capacitor'; readonly c: number } | { readonly kind: 'choke'; readonly l: number; readonly rdc: number; readonly c: number };
+  /** Further sections, each a series R (or L with its DCR) and a capacitor to ground. */
+  readonly sections: readonly FilterSection[];
+  /** DC current drawn at each node, A: index 0 the reservoir, then one per section. */
+  readonly loads: readonly number[];
+}
+
+export type Rectifier =
+  | { readonly kind: 'silicon-bridge' }
+  | { readonly kind: 'silicon-full-wave' }
+  | { readonly kind: 'tube'; readonly tubeId: string };
+
+export type FilterSection = { readonly kind: 'rc'; readonly r: number; readonly c: number } | { readonly kind: 'lc'; readonly l: number; readonly rdc: number; readonly c: number };
+
+export interface SupplyNode {
+  /** Mean voltage, V. */
+  readonly dc: number;
+  /** Ripple peak to peak and rms (the AC part), V. */
+  readonly ripplePp: number;
+  readonly rippleRms: number;
+  /** The capacitor's ripple current (rms), A. */
+  readonly capacitorRippleRms: number;
+}
+
+export interface SupplySolution {
+  readonly nodes: readonly SupplyNode[];
+  /** Rectifier current: peak and rms of all its pulses, A; the share of each half-cycle it conducts, degrees of 180. */
+  readonly rectifierPeak: number;
+  readonly rectifierRms: number;
+  readonly conductionDegrees: number;
+  /** Secondary rms current (each half of a centre-tapped winding), A, and the secondary's volt-amperes (both halves). */
+  readonly secondaryRmsCurrent: number;
+  readonly secondaryVa: number;
+  /** What every capacitor sees with no current drawn (the tubes cold): the secondary's peak less the rectifier's drop at no current, V. */
+  readonly noLoadVolts: number;
+  /** For a choke input, the least inductance that keeps it conducting at this load (common practice: R/(3πf) for full wave); null otherwise. */
+  readonly criticalInductance: number | null;
+  /** Mains cycles integrated before the supply settled. */
+  readonly cycles: number;
+}

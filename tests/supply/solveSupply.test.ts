@@ -1,0 +1,79 @@
+import { describe, expect, it } from 'vitest';
+import { RECTIFIER_TUBES, solveSupply, type SupplyDesign } from '../../src/index';
+import { expectClose } from '../helpers/expectClose';
+
+// Our own supply: 250 V a side, full wave, 47 µF reservoir, an R–C section.
+const base: SupplyDesign = {
+  mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' },
+  input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01],
+};
+const solved = (d: SupplyDesign) => {
+  const r = solveSupply(d);
+  if (!r.ok) throw new Error(r.message);
+  return r;
+};
+
+describe('the B+ supply, solved in time', () => {
+  // Common practice: a capacitor-input full-wave supply's ripple is about I/(2·f·C) peak to peak (the reservoir
+  // discharging for most of each half cycle); the rule overstates it a little as the capacitor recharges part of the time.
+  it('the reservoir\'s ripple is near I/(2fC) and under it (common practice); the section divides it by at least ωRC', () => {
+    const r = solved(base);
+    const rule = 0.07 / (2 * 50 * 47e-6);
+    expect(r.nodes[0]!.ripplePp).toBeLessThan(rule);
+    expect(r.nodes[0]!.ripplePp).toBeGreaterThan(0.6 * rule);
+    const omegaRc = 2 * Math.PI * 100 * 1000 * 47e-6;
+    // The fundamental (100 Hz) is divided by √(1 + (ωRC)²) ≈ ωRC, the harmonics of the sawtooth by more.
+    const division = r.nodes[0]!.ripplePp / r.nodes[1]!.ripplePp;
+    expect(division).toBeGreaterThan(omegaRc);
+    expect(division).toBeLessThan(1.5 * omegaRc);
+    // Ohm's law: the section's resistor drops its node's current.
+    expectClose(r.nodes[0]!.dc - r.nodes[1]!.dc, 0.01 * 1000, { rel: 0.01 }, 'section drop');
+  });
+
+  it('less current, higher B+ and less ripple; no current leaves every capacitor at the peak (cold tubes, common practice)', () => {
+    const light = solved({ ...base, loads: [0.02, 0.005] });
+    const heavy = solved(base);
+    expect(light.nodes[0]!.dc).toBeGreaterThan(heavy.nodes[0]!.dc);
+    expect(light.nodes[0]!.ripplePp).toBeLessThan(heavy.nodes[0]!.ripplePp);
+    expectClose(heavy.noLoadVolts, 250 * Math.SQRT2, { rel: 1e-12 });
+    const idle = solved({ ...base, loads: [0, 0] });
+    expectClose(idle.nodes[1]!.dc, 250 * Math.SQRT2, { rel: 0.01 }, 'no-load B+');
+  });
+
+  // Common practice: a choke input above its critical inductance gives about 0.9 × the rms voltage, less the IR drops,
+  // and conducts the whole cycle.
+  it('a choke input gives about 0.9 × Vrms less the resistive drops and conducts all the time (common practice)', () => {
+    const r = solved({ ...base, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } });
+    const amps = 0.07;
+    expectClose(r.nodes[0]!.dc, 0.9 * 250 - amps * (40 + 150) - 1.2, { rel: 0.02 }, 'choke-input B+');
+    expect(r.conductionDegrees).toBeCloseTo(180, 0);
+    expect(r.criticalInductance).toBeLessThan(10);
+  });
+
+  it('a bridge and a centre-tapped winding give the same B+ from the same volts a side, less one diode\'s drop', () => {
+    const ct = solved(base);
+    const bridge = solved({ ...base, rectifier: { kind: 'silicon-bridge' } });
+    expect(ct.nodes[0]!.dc - bridge.nodes[0]!.dc).toBeGreaterThan(0.3);
+    expect(ct.nodes[0]!.dc - bridge.nodes[0]!.dc).toBeLessThan(1.5);
+    // The bridge's secondary carries every pulse; each half of a centre-tapped one carries every other.
+    expectClose(bridge.secondaryRmsCurrent, bridge.rectifierRms, { rel: 1e-12 });
+    expectClose(ct.secondaryRmsCurrent, ct.rectifierRms / Math.SQRT2, { rel: 1e-12 });
+  });
+
+  it('a rectifier tube drops more than silicon, by about its rated drop at the pulses\' current', () => {
+    const si = solved(base);
+    for (const t of RECTIFIER_TUBES) {
+      const tube = solved({ ...base, rectifier: { kind: 'tube', tubeId: t.id } });
+      expect(tube.nodes[0]!.dc).toBeLessThan(si.nodes[0]!.dc - 5);
+      expect(tube.nodes[0]!.dc).toBeGreaterThan(si.nodes[0]!.dc - 3 * t.dropVolts);
+    }
+  });
+
+  it('names the field of a bad value', () => {
+    expect(solveSupply({ ...base, mainsHz: 400 })).toMatchObject({ ok: false, field: 'mainsHz' });
+    expect(solveSupply({ ...base, rectifier: { kind: 'tube', tubeId: '6SN7' } })).toMatchObject({ ok: false, field: 'rectifier' });
+    expect(solveSupply({ ...base, sections: [{ kind: 'rc', r: 0, c: 47e-6 }] })).toMatchObject({ ok: false, field: 'sections.0.r', message: expect.stringMatching(/^Section 1: /) });
+    expect(solveSupply({ ...base, loads: [0.06] })).toMatchObject({ ok: false, field: 'loads' });
+    expect(solveSupply({ ...base, input: { kind: 'capacitor', c: 0 } })).toMatchObject({ ok: false, field: 'input.c' });
+  });
+});
