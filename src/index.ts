@@ -108,3 +108,5 @@ export { solveSupply } from './supply/solveSupply';
 export { checkSupply, MAX_SECTIONS } from './supply/checkSupply';
 export { RECTIFIER_TUBES, findRectifierTube, type RectifierTube } from './supply/rectifierTubes';
 export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection } from './supply/supplyTypes';
+export { supplyFindings, SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
+export type { SupplyRatings } from './supply/supplyTypes';

@@ -15,7 +15,14 @@ export type FindingKind =
   | 'cathode-current'
   | 'screen-dissipation'
   | 'screen-voltage'
-  | 'plate-swing';
+  | 'plate-swing'
+  | 'capacitor-voltage'
+  | 'capacitor-ripple-current'
+  | 'rectifier-current'
+  | 'rectifier-peak-current'
+  | 'reservoir-capacitance'
+  | 'transformer-current'
+  | 'hum';
 
 /** One check of the design against the tube's ratings, worded to be shown as is. */
 export interface Finding {

@@ -53,5 +53,34 @@ export function checkSupply(d: unknown): Failure | null {
     const problem = checkNumber('loads', `Current at node ${k + 1}`, a, 'A', 0, 10);
     if (problem) return { ...problem, field: `loads.${k}` };
   }
+  return checkRatings(s.ratings, s.sections.length + 1);
+}
+
+/** The builder's ratings, where given: positive figures, one per node where a list. */
+function checkRatings(r: unknown, nodes: number): Failure | null {
+  if (r === undefined) return null;
+  if (typeof r !== 'object' || r === null) return fail('invalid-input', 'Ratings must be an object or left out', 'ratings');
+  const x = r as { secondaryAmps?: unknown; capacitorVolts?: unknown; capacitorRippleAmps?: unknown; hum?: unknown };
+  if (x.secondaryAmps !== undefined) {
+    const p = checkNumber('secondaryAmps', 'Secondary current rating', x.secondaryAmps, 'A', 0.001, 100);
+    if (p) return { ...p, field: 'ratings.secondaryAmps' };
+  }
+  for (const [key, label, unit, max] of [['capacitorVolts', 'Capacitor voltage rating', 'V', 10_000], ['capacitorRippleAmps', 'Capacitor ripple-current rating', 'A', 100]] as const) {
+    const list = x[key];
+    if (list === undefined) continue;
+    if (!Array.isArray(list) || list.length !== nodes) return fail('invalid-input', `${label}s: give one for each of the ${nodes} nodes (null where not known)`, `ratings.${key}`);
+    for (const [k, v] of list.entries()) {
+      const p = v === null ? null : checkNumber(key, `${label} at node ${k + 1}`, v, unit, 1e-3, max);
+      if (p) return { ...p, field: `ratings.${key}.${k}` };
+    }
+  }
+  if (x.hum !== undefined) {
+    const h = x.hum as { node?: unknown; maxRippleRms?: unknown };
+    const p =
+      typeof h !== 'object' || h === null || typeof h.node !== 'number' || !Number.isInteger(h.node) || h.node < 0 || h.node >= nodes
+        ? fail('invalid-input', `The hum budget names a node from 1 to ${nodes}`, 'ratings.hum.node')
+        : checkNumber('maxRippleRms', 'Hum budget', h.maxRippleRms, 'V', 1e-9, 100);
+    if (p) return p.field === 'maxRippleRms' ? { ...p, field: 'ratings.hum.maxRippleRms' } : p;
+  }
   return null;
 }

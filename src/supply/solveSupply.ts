@@ -1,6 +1,7 @@
 import { fail, type Result } from '../result';
 import { checkSupply } from './checkSupply';
 import { dropLaw, rectifierCurrent } from './rectifierLaw';
+import { supplyFindings } from './supplyFindings';
 import type { SupplyDesign, SupplyNode, SupplySolution } from './supplyTypes';
 
 /** Steps a mains cycle while the supply settles, and for the cycles that are measured. */
@@ -220,8 +221,7 @@ export function solveSupply(d: SupplyDesign): Result<SupplySolution> {
   const centreTapped = d.rectifier.kind !== 'silicon-bridge';
   const secondaryRmsCurrent = centreTapped ? rectifierRms / Math.SQRT2 : rectifierRms;
   const dcAtInput = nodes[0]!.dc;
-  return {
-    ok: true,
+  const solution: SupplySolution = {
     nodes,
     rectifierPeak: iPeak,
     rectifierRms,
@@ -232,5 +232,7 @@ export function solveSupply(d: SupplyDesign): Result<SupplySolution> {
     // Common practice (full wave, from memory of the handbooks' rule): L ≥ R/(3ω) keeps a choke input conducting.
     criticalInductance: choke && totalLoad > 0 ? dcAtInput / totalLoad / (3 * omega) : null,
     cycles,
+    findings: [],
   };
+  return { ok: true, ...solution, findings: supplyFindings(d, solution) };
 }

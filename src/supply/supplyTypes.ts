@@ -1,3 +1,5 @@
+import type { Finding } from '../stage/ratingBands';
+
 /**
  * A B+ supply: a mains transformer's secondary, a rectifier, a first filter
  * element and a ladder of filter sections, each node with the DC current
@@ -17,6 +19,18 @@ export interface SupplyDesign {
   readonly sections: readonly FilterSection[];
   /** DC current drawn at each node, A: index 0 the reservoir, then one per section. */
   readonly loads: readonly number[];
+  /** What the parts are rated for, where the builder knows it; each check runs only when its rating is given. */
+  readonly ratings?: SupplyRatings;
+}
+
+export interface SupplyRatings {
+  /** The secondary's rated rms current (each half of a centre-tapped winding), A. */
+  readonly secondaryAmps?: number;
+  /** Each node's capacitor: rated DC volts and rated ripple current (rms, at 100/120 Hz), A. */
+  readonly capacitorVolts?: readonly (number | null)[];
+  readonly capacitorRippleAmps?: readonly (number | null)[];
+  /** The most ripple (rms) the first stage's node may carry, V, and which node feeds the first stage. */
+  readonly hum?: { readonly node: number; readonly maxRippleRms: number };
 }
 
 export type Rectifier =
@@ -51,4 +65,6 @@ export interface SupplySolution {
   readonly criticalInductance: number | null;
   /** Mains cycles integrated before the supply settled. */
   readonly cycles: number;
+  /** The supply against its parts' ratings (supplyFindings), most severe first. */
+  readonly findings: readonly Finding[];
 }

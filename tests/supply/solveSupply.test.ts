@@ -76,4 +76,20 @@ describe('the B+ supply, solved in time', () => {
     expect(solveSupply({ ...base, loads: [0.06] })).toMatchObject({ ok: false, field: 'loads' });
     expect(solveSupply({ ...base, input: { kind: 'capacitor', c: 0 } })).toMatchObject({ ok: false, field: 'input.c' });
   });
+
+  it('the parts against their ratings: cold capacitors, the rectifier tube\'s currents and reservoir, the winding, the hum budget', () => {
+    // 250 V a side peaks at 354 V: a 350 V capacitor is over its rating at switch-on (common practice: rate for the no-load peak).
+    const cold = solved({ ...base, ratings: { capacitorVolts: [350, 450], secondaryAmps: 0.2, hum: { node: 1, maxRippleRms: 0.01 } } });
+    expect(cold.findings[0]).toMatchObject({ kind: 'capacitor-voltage', severity: 'danger' });
+    expect(cold.findings.find((f) => f.kind === 'capacitor-voltage' && f.limit === 450)?.severity).toBe('note');
+    expect(cold.findings.find((f) => f.kind === 'transformer-current')?.severity).toBe('note');
+    expect(cold.findings.find((f) => f.kind === 'hum')).toMatchObject({ severity: 'warning' });
+    // A 5Y3GT (125 mA, 20 µF; from memory) asked for 150 mA from 47 µF.
+    const small = solved({ ...base, rectifier: { kind: 'tube', tubeId: '5Y3GT' }, loads: [0.14, 0.01] });
+    const current = small.findings.find((f) => f.kind === 'rectifier-current')!;
+    expect(current).toMatchObject({ severity: 'danger', limit: 0.125 });
+    expect(current.value).toBeCloseTo(0.15, 12);
+    expect(small.findings.find((f) => f.kind === 'reservoir-capacitance')).toMatchObject({ severity: 'danger' });
+    expect(solveSupply({ ...base, ratings: { capacitorVolts: [450] } })).toMatchObject({ ok: false, field: 'ratings.capacitorVolts' });
+  });
 });
