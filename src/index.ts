@@ -110,3 +110,4 @@ export { RECTIFIER_TUBES, findRectifierTube, type RectifierTube } from './supply
 export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection } from './supply/supplyTypes';
 export { supplyFindings, SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
+export { solveOnSupply, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';

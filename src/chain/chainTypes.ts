@@ -82,6 +82,8 @@ export interface StageResult {
   readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
   /** DC voltage of the stage's output (plate, or cathode for a follower), V: what a direct-coupled grid after it sits at. */
   readonly outputDc: number;
+  /** DC current drawn from the stage's B+ node, A. */
+  readonly supplyCurrent: number;
   /** Small-signal midband gain into the load the next stage really presents, signed (an output stage: plate-phased, to the speaker). */
   readonly gain: number;
   /** Midband input impedance at the grid, Ω; null for a direct-coupled grid, which has no leak and draws no current below 0 V. */

@@ -44,6 +44,7 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
     return {
       ok: true,
       op: { va: op.va, vk: op.vk, ia: op.ia, vgk: op.vgk },
+      supplyCurrent: op.ia,
       outputDc: op.va,
       gain: solved.gain,
       zin: couplingImpedance(s.coupling),

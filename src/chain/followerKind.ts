@@ -26,6 +26,7 @@ export const followerKind: StageKind<FollowerLink> = {
     return {
       ok: true,
       op: { va: op.va, vk: op.vk, ia: op.ia, vgk: op.vgk },
+      supplyCurrent: op.ia,
       outputDc: op.vk,
       gain: solved.gain,
       zin: couplingImpedance(s.coupling),

@@ -71,6 +71,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
     return {
       ok: true,
       op: { va: op.vpk + op.vk, vk: op.vk, ia: op.ip, vgk: op.vgk },
+      supplyCurrent: op.ik,
       outputDc: 0,
       gain,
       zin: couplingImpedance(s.coupling),

@@ -39,6 +39,7 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
     kind: stages[i]!.kind,
     op: l.op,
     outputDc: l.outputDc,
+    supplyCurrent: l.supplyCurrent,
     gain: l.gain,
     zin: Number.isFinite(l.zin) ? l.zin : null,
     zout: l.zout,

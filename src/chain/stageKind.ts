@@ -42,6 +42,8 @@ export interface LinkSample {
 export interface SolvedLink {
   readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
   readonly outputDc: number;
+  /** DC current the stage draws from its B+ node, A (an output stage's screen included: it is fed from the same supply here). */
+  readonly supplyCurrent: number;
   readonly gain: number;
   readonly zin: number;
   readonly zout: number;

@@ -23,7 +23,7 @@ const MAX_FINE_CYCLES = 400;
  * The transformer is a sine source behind its winding resistance (no
  * leakage inductance); the loads draw constant currents.
  */
-export function solveSupply(d: SupplyDesign): Result<SupplySolution> {
+export function solveSupply(d: SupplyDesign, options: { readonly start?: readonly number[] } | null = {}): Result<SupplySolution> {
   const problem = checkSupply(d);
   if (problem) return problem;
   const law = dropLaw(d.rectifier)!;
@@ -52,6 +52,9 @@ export function solveSupply(d: SupplyDesign): Result<SupplySolution> {
     iChoke = totalLoad;
     v[0] = Math.max((2 / Math.PI) * peak - totalLoad * (rw + choke.rdc), 0);
   }
+  // A caller solving again with nearby loads (the amplifier on its supply) starts from the last node voltages.
+  const start = options?.start;
+  if (Array.isArray(start) && start.length === n && start.every((x) => typeof x === 'number' && Number.isFinite(x) && x >= 0 && x <= peak)) v.set(start);
 
   // Scratch for the tridiagonal solve.
   const lower = new Float64Array(n);

@@ -1,0 +1,65 @@
+import { fail, type Result } from '../result';
+import { solveSupply } from '../supply/solveSupply';
+import type { SupplyDesign, SupplySolution } from '../supply/supplyTypes';
+import type { ChainInput, ChainResult } from './chainTypes';
+import { solveAmplifier } from './solveAmplifier';
+
+export interface AmplifierOnSupply {
+  readonly amplifier: ChainInput;
+  readonly supply: SupplyDesign;
+  /** The supply node feeding each stage's B+ (0 the reservoir, then one per section). */
+  readonly feeds: readonly number[];
+}
+
+export interface AmplifierOnSupplyResult {
+  readonly amplifier: ChainResult;
+  readonly supply: SupplySolution;
+  /** Each stage's B+ as its node delivers it under the whole amplifier's current, V. */
+  readonly bplus: readonly number[];
+  readonly iterations: number;
+}
+
+/** Agreement asked between a node's voltage and the B+ its stages were solved at, V. */
+const VOLT_TOL = 0.01;
+const MAX_ITERATIONS = 30;
+
+/**
+ * The amplifier and its supply as one solution: each stage draws its current
+ * from its node, and its operating point is solved at the voltage that node
+ * delivers under all the currents drawn from the supply. Fixed-point
+ * iteration: solve the stages at the nodes' voltages, hand their currents
+ * (plus the supply's own `loads`, for anything else it feeds) to the supply,
+ * repeat until no node moves by more than 10 mV. The currents fall as the
+ * voltages do, so the iteration contracts.
+ */
+export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSupplyResult> {
+  if (typeof input !== 'object' || input === null) return fail('invalid-input', 'Give the amplifier, its supply and which node feeds each stage');
+  const { amplifier, supply, feeds } = input;
+  const nodes = Array.isArray(supply?.sections) ? supply.sections.length + 1 : 0;
+  const stages = Array.isArray(amplifier?.stages) ? amplifier.stages : [];
+  if (!Array.isArray(feeds) || feeds.length !== stages.length || !feeds.every((f) => Number.isInteger(f) && f >= 0 && f < Math.max(nodes, 1))) {
+    return fail('invalid-input', `Name the supply node (1 to ${Math.max(nodes, 1)}) feeding each of the ${stages.length} stages`, 'feeds');
+  }
+  const own = Array.isArray(supply.loads) ? supply.loads : [];
+  let volts: number[] | null = null;
+  let last: { amplifier: ChainResult; supply: SupplySolution; bplus: number[] } | null = null;
+  for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
+    const bplus = stages.map((s, i) => (volts ? volts[feeds[i]!]! : s.bplus));
+    const chain = solveAmplifier({ ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) });
+    if (!chain.ok) return chain;
+    const loads = own.map((a, k) => a + chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
+    const solved = solveSupply({ ...supply, loads }, volts ? { start: volts } : {});
+    if (!solved.ok) return solved;
+    const next = solved.nodes.map((n) => n.dc);
+    const moved = volts ? Math.max(...next.map((v, k) => Math.abs(v - volts![k]!))) : Infinity;
+    const settled = last !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
+    last = { amplifier: chain, supply: solved, bplus };
+    volts = next;
+    if (settled || moved <= VOLT_TOL / 10) {
+      const { ok: _a, ...amp } = chain;
+      const { ok: _s, ...sup } = solved;
+      return { ok: true, amplifier: amp, supply: sup, bplus, iterations: iteration };
+    }
+  }
+  return fail('no-convergence', 'The stages and the supply did not agree on the B+ within 30 rounds: check the loads and the filter', 'supply');
+}

@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import { findOutputTube, findTube, solveOnSupply, type ChainInput, type SupplyDesign } from '../../src/index';
+import { expectClose } from '../helpers/expectClose';
+
+// Our own small amplifier on its own supply: the output stage on the reservoir, the follower after a 1k section,
+// the input stage after a further 10k.
+const amplifier: ChainInput = {
+  source: { rsource: 1e3 },
+  stages: [
+    { kind: 'common-cathode', tube: findTube('12AU7')!, bplus: 300, ra: 27e3, rk: 1200, bypassed: true, coupling: { kind: 'capacitor', cc: 470e-9, rg: 1e6 } },
+    { kind: 'follower', tube: findTube('12AU7')!, bplus: 300, rk: 22e3, coupling: { kind: 'direct' } },
+    {
+      kind: 'single-ended-output', tube: findOutputTube('EL34')!, connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130,
+      bias: 'cathode', rk: 330, vg: -22, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 1e-6, rg: 220e3 },
+    },
+  ],
+};
+const supply: SupplyDesign = {
+  mainsHz: 50, secondaryRms: 260, windingOhms: 35, rectifier: { kind: 'silicon-full-wave' },
+  input: { kind: 'capacitor', c: 100e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 10e3, c: 47e-6 }], loads: [0, 0, 0],
+};
+
+describe('the amplifier on its supply, solved as one', () => {
+  it('every stage runs at the voltage its node delivers under the whole amplifier\'s current (Ohm\'s law through each section)', () => {
+    const r = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    if (!r.ok) throw new Error(r.message);
+    const [n0, n1, n2] = r.supply.nodes.map((n) => n.dc);
+    expectClose(r.bplus[2]!, n0!, { abs: 0.01 }, 'output stage on the reservoir');
+    expectClose(r.bplus[1]!, n1!, { abs: 0.01 }, 'follower on node 2');
+    expectClose(r.bplus[0]!, n2!, { abs: 0.01 }, 'input stage on node 3');
+    const [input, follower] = r.amplifier.stages;
+    // Each section drops its downstream current through its resistor.
+    expectClose(n1! - n2!, input!.supplyCurrent * 10e3, { rel: 0.002 }, '10k section');
+    expectClose(n0! - n1!, (input!.supplyCurrent + follower!.supplyCurrent) * 1e3, { rel: 0.002 }, '1k section');
+    expect(r.iterations).toBeGreaterThan(1);
+  });
+
+  it('more current from the reservoir sags every node, and the input stage with them', () => {
+    const light = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    const loaded = solveOnSupply({ amplifier, supply: { ...supply, loads: [0.03, 0, 0] }, feeds: [2, 1, 0] });
+    if (!light.ok || !loaded.ok) throw new Error('both solve');
+    expect(loaded.bplus[2]!).toBeLessThan(light.bplus[2]! - 2);
+    expect(loaded.amplifier.stages[0]!.op.ia).toBeLessThan(light.amplifier.stages[0]!.op.ia);
+  });
+
+  it('names a stage without a node', () => {
+    expect(solveOnSupply({ amplifier, supply, feeds: [2, 1] })).toMatchObject({ ok: false, field: 'feeds' });
+    expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 3] })).toMatchObject({ ok: false, field: 'feeds' });
+  });
+});
