@@ -3,12 +3,10 @@ import { checkNumber, LIMITS } from '../stage/checkInput';
 import { solveStage } from '../stage/solveStage';
 import { normalizeStage, type StageDesign } from '../stage/stageDesign';
 import { stageTransfer } from '../signal/stageTransfer';
-import { CUTOFF_FRACTION } from '../tube/koren';
-import { recordOf } from '../tube/types';
 import type { CommonCathodeLink } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
 import { checkTriodeLink } from './checkTriodeLink';
-import { NO_CAPACITANCES } from './noCapacitances';
+import { triodeLink } from './triodeLink';
 import type { StageKind } from './stageKind';
 
 /** The common-cathode stage in the chain: today's solver and large-signal transfer, with the next grid's leak as its load. */
@@ -40,35 +38,19 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
     const checked = normalizeStage(design);
     if ('ok' in checked) return checked;
     const t = stageTransfer(checked, solved.op);
-    const { op } = solved;
-    return {
-      ok: true,
-      op: { va: op.va, vk: op.vk, ia: op.ia, vgk: op.vgk },
-      supplyCurrent: op.ia,
-      outputDc: op.va,
-      gain: solved.gain,
-      zin: couplingImpedance(s.coupling),
-      zout: solved.zout,
-      sample: (vin, out) => {
-        const x = t.at(vin);
-        out.vout = x.vout;
-        out.vgk = x.vgk;
-        out.ia = x.ia;
-      },
-      cutoffCurrent: CUTOFF_FRACTION * op.ia,
-      findings: solved.findings,
-      linear: {
-        gm: solved.gm,
-        rp: solved.rp,
+    return triodeLink({
+      tube: s.tube,
+      coupling: s.coupling,
+      solved,
+      outputDc: solved.op.va,
+      at: (vin) => t.at(vin),
+      network: {
         plateLoad: s.ra,
         rk: checked.rk,
         ck: checked.bypassed ? checked.ck : null,
         cathodeGrounded: checked.rk === 0 || (checked.bypassed && checked.ck === null),
-        gScreen: 0,
-        caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES,
         output: 'plate',
-        outputScale: 1,
       },
-    };
+    });
   },
 };

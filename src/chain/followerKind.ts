@@ -1,12 +1,11 @@
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { solveFollower } from '../stage/solveFollower';
 import { followerTransfer } from '../signal/followerTransfer';
-import { CUTOFF_FRACTION } from '../tube/koren';
-import { modelOf, recordOf } from '../tube/types';
+import { modelOf } from '../tube/types';
 import type { FollowerLink } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
 import { checkTriodeLink } from './checkTriodeLink';
-import { NO_CAPACITANCES } from './noCapacitances';
+import { triodeLink } from './triodeLink';
 import type { StageKind } from './stageKind';
 
 /**
@@ -23,34 +22,16 @@ export const followerKind: StageKind<FollowerLink> = {
     if (!solved.ok) return solved;
     const { op } = solved;
     const t = followerTransfer(modelOf(s.tube), s.bplus, s.rk, env.load, op);
-    return {
-      ok: true,
-      op: { va: op.va, vk: op.vk, ia: op.ia, vgk: op.vgk },
-      supplyCurrent: op.ia,
+    return triodeLink({
+      tube: s.tube,
+      coupling: s.coupling,
+      solved,
       outputDc: op.vk,
-      gain: solved.gain,
-      zin: couplingImpedance(s.coupling),
-      zout: solved.zout,
-      sample: (vin, out) => {
+      at: (vin) => {
         const x = t(vgrid + vin);
-        out.vout = x.vk - op.vk;
-        out.vgk = x.vgk;
-        out.ia = x.ia;
+        return { vout: x.vk - op.vk, vgk: x.vgk, ia: x.ia };
       },
-      cutoffCurrent: CUTOFF_FRACTION * op.ia,
-      findings: solved.findings,
-      linear: {
-        gm: solved.gm,
-        rp: solved.rp,
-        plateLoad: 0,
-        rk: s.rk,
-        ck: null,
-        cathodeGrounded: false,
-        gScreen: 0,
-        caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES,
-        output: 'cathode',
-        outputScale: 1,
-      },
-    };
+      network: { plateLoad: 0, rk: s.rk, ck: null, cathodeGrounded: false, output: 'cathode' },
+    });
   },
 };
