@@ -13,7 +13,7 @@ const FREQS = logFrequencies(1, 1e6, 15);
 /** The whole one-stage analysis: operating point, small signal, swing, distortion at 2 V rms, response and corners. */
 export function fullAnalysis(samples = 1024): void {
   const s = solvedStage(STAGE);
-  if ('ok' in s) throw new Error(s.message);
+  if (!s.ok) throw new Error(s.message);
   const transfer = stageTransfer(s.checked, s.solution.op);
   const swing = swingOf(s, transfer);
   const d = distortionOf(s, { outputRms: 2 }, { samples }, { transfer, swing });

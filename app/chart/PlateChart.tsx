@@ -27,7 +27,7 @@ const BIG_STEP = 0.05;
 export function PlateChart() {
   const store = useWorkbenchStore();
   const sheet = useWorkbench((s) => s.analysis.sheet);
-  const rivalSheet = useWorkbench((s) => (s.rivalAnalysis && 'sheet' in s.rivalAnalysis ? s.rivalAnalysis.sheet : null));
+  const rivalSheet = useWorkbench((s) => (s.rivalAnalysis?.ok ? s.rivalAnalysis.sheet : null));
   const rival = useWorkbench((s) => s.rival);
   const tubeId = useWorkbench((s) => s.design.tubeId);
   const frame = useRef<HTMLDivElement>(null);
@@ -51,7 +51,7 @@ export function PlateChart() {
       const s = store.getState();
       const { op } = s.analysis.solution;
       drawOverlay(nodes, s.analysis.overlay, s.design.bplus, scales, s.analysis.signal.swingPath);
-      const r = s.rivalAnalysis && 'overlay' in s.rivalAnalysis ? s.rivalAnalysis.overlay : null;
+      const r = s.rivalAnalysis?.ok ? s.rivalAnalysis.overlay : null;
       drawRivalOverlay(nodes.lines, rivalHandle.current!, r, scales);
       nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
       // Exact values for tests and exports to read; the figures strip shows them rounded.

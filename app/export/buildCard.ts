@@ -79,7 +79,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
     ].filter(Boolean),
   });
   const r = s.rivalAnalysis;
-  if (s.rival.on && r && 'solution' in r) {
+  if (s.rival.on && r?.ok) {
     sections.push({
       heading: `Compared: ${s.analysis.tube.id} against ${r.tube.id} (${s.rival.mode === 'same-parts' ? 'same parts' : 'each its own values'})`,
       lines: COMPARE_ROWS.map((row) => {

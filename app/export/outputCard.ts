@@ -50,7 +50,7 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
     },
   ];
   const rival = s.outputRivalBench;
-  if (s.outputRival.on && rival && !('ok' in rival)) {
+  if (s.outputRival.on && rival && rival.ok) {
     sections.push({
       heading: `Compared: ${tube.id} against ${rival.analysis.solution.tube.id} (same parts)`,
       lines: OUTPUT_COMPARE_ROWS.map((row) => {

@@ -25,7 +25,7 @@ export function OutputChart() {
   const store = useWorkbenchStore();
   const sheet = useWorkbench((s) => s.outputBench.analysis.sheet);
   const tubeId = useWorkbench((s) => s.design.output.tubeId);
-  const rivalSheet = useWorkbench((s) => (s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench.analysis.sheet : null));
+  const rivalSheet = useWorkbench((s) => (s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench.analysis.sheet : null));
   const rivalId = useWorkbench((s) => (s.outputRival.on ? s.outputRival.tubeId : null));
   const frame = useRef<HTMLDivElement>(null);
   const box = useChartBox(frame);
@@ -40,7 +40,7 @@ export function OutputChart() {
     const draw = () => {
       const s = store.getState();
       const a = s.outputBench.analysis;
-      const r = s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench.analysis.overlay : null;
+      const r = s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench.analysis.overlay : null;
       drawOutputOverlay(nodes, a.overlay, r, scales);
       const { op } = a.solution;
       nodes.point.dataset.vpk = String(op.vpk);

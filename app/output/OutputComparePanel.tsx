@@ -39,7 +39,7 @@ export function OutputComparePanel() {
   const id = useId();
   const rivalTube = findOutputTube(rival.tubeId);
   const connections = rivalTube ? connectionsOf(rivalTube) : [];
-  const b = second && !('ok' in second) ? second.analysis : null;
+  const b = second && second.ok ? second.analysis : null;
   return (
     <section className="panel compare" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Compare output tubes</h2>
@@ -56,7 +56,7 @@ export function OutputComparePanel() {
           {connections.map((c) => <option key={c} value={c}>{c}</option>)}
         </select>
       </div>
-      {rival.on && second && 'ok' in second ? <p className="field-error" role="alert">The {rival.tubeId} cannot run with these parts: {second.message}</p> : null}
+      {rival.on && second && !second.ok ? <p className="field-error" role="alert">The {rival.tubeId} cannot run with these parts: {second.message}</p> : null}
       {rival.on && b ? (
         <table className="compare-table">
           <thead>

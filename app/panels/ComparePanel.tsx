@@ -71,8 +71,8 @@ export function ComparePanel() {
         <label><input type="radio" name={`${id}-mode`} checked={rival.mode === 'same-parts'} onChange={() => setRival({ mode: 'same-parts' })} /> Same parts (a tube swap)</label>
         <label><input type="radio" name={`${id}-mode`} checked={rival.mode === 'own-values'} onChange={() => setRival({ mode: 'own-values' })} /> Each its own Ra, Rk (drag the square)</label>
       </fieldset>
-      {rival.on && second && !('solution' in second) ? <p className="field-error" role="alert">{`The ${rival.tubeId} cannot run here: ${second.message}`}</p> : null}
-      {rival.on && second && 'solution' in second ? (
+      {rival.on && second && !second.ok ? <p className="field-error" role="alert">{`The ${rival.tubeId} cannot run here: ${second.message}`}</p> : null}
+      {rival.on && second?.ok ? (
         <table className="compare-table">
           <thead>
             <tr><th scope="col">At the operating point</th><th scope="col">{first.tube.id}</th><th scope="col">{second.tube.id}</th><th scope="col">Second vs first</th></tr>

@@ -86,7 +86,7 @@ export function analyze(design: BenchDesign, prev: Analysis | null, extent?: Pla
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library or among your own`, field: 'tube' };
   const stage = stageDesignOf(design, tube);
   const solved = solvedStage(stage);
-  if ('ok' in solved) return solved;
+  if (!solved.ok) return solved;
   const { checked, solution } = solved;
   const window = extent ?? plateExtent(tube, design.bplus);
   const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax && prev.maxCurves === maxCurves;

@@ -68,7 +68,7 @@ function compute(s: WorkbenchState): BuildSheet {
   const tube1 = s.analysis.tube;
   const stage = stageDesignOf(d, tube1);
   const checked = normalizeStage(stage);
-  if ('ok' in checked) throw new Error(checked.message);
+  if (!checked.ok) throw new Error(checked.message);
   const sol = s.analysis.solution;
   const parts = stagePartsList(checked, sol, d.series);
   const resistors = [...parts.resistors];

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, type Failure, type PlateExtent } from '../../src/index';
+import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, type PlateExtent, type Result } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -19,7 +19,7 @@ export interface Rival {
 
 export interface CompareSlice {
   rival: Rival;
-  rivalAnalysis: Analysis | Failure | null;
+  rivalAnalysis: Result<Analysis> | null;
   setRival: (patch: Partial<Rival>) => void;
   /** Swaps which tube is first; everything else stays. */
   swapTubes: () => void;
@@ -47,12 +47,9 @@ export function sharedWindow(d: BenchDesign, r: Rival): PlateExtent | undefined 
   return { vmax: Math.max(ea.vmax, eb.vmax), iaMax: Math.max(ea.iaMax, eb.iaMax) };
 }
 
-export function analyzeRival(d: BenchDesign, r: Rival, prev: Analysis | Failure | null, extent: PlateExtent | undefined, light: boolean, maxCurves?: number): Analysis | Failure | null {
+export function analyzeRival(d: BenchDesign, r: Rival, prev: Result<Analysis> | null, extent: PlateExtent | undefined, light: boolean, maxCurves?: number): Result<Analysis> | null {
   if (!r.on) return null;
-  const a = analyze(rivalDesign(d, r), prev && 'solution' in prev ? prev : null, extent, light, maxCurves);
-  if (!a.ok) return a;
-  const { ok: _ok, ...analysis } = a;
-  return analysis;
+  return analyze(rivalDesign(d, r), prev?.ok ? prev : null, extent, light, maxCurves);
 }
 
 export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSlice> = (set, get) => ({
@@ -80,7 +77,7 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
 
   dragRivalTo: (vpk, ia) => {
     const s = get();
-    if (!s.rival.on || s.rival.mode !== 'own-values' || !s.rivalAnalysis || !('solution' in s.rivalAnalysis)) return;
+    if (!s.rival.on || s.rival.mode !== 'own-values' || !s.rivalAnalysis?.ok) return;
     const tube = s.rivalAnalysis.tube;
     const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
     if (!reach.ok) return;
@@ -88,13 +85,13 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     if (!d.ok) return;
     const rival = { ...s.rival, ra: d.ra, rk: d.rk };
     const a = analyzeRival(s.design, rival, s.rivalAnalysis, s.analysis.sheet.extent, true);
-    if (a && 'solution' in a) set({ rival, rivalAnalysis: a, dragNote: reach.reason });
+    if (a?.ok) set({ rival, rivalAnalysis: a, dragNote: reach.reason });
   },
 
   endRivalDrag: () => {
     const s = get();
     const rival = s.design.snap ? { ...s.rival, ra: nearestPreferred(s.rival.ra, s.design.series), rk: nearestPreferred(s.rival.rk, s.design.series) } : s.rival;
     const a = analyzeRival(s.design, rival, s.rivalAnalysis, s.analysis.sheet.extent, false);
-    if (a && 'solution' in a) set({ rival, rivalAnalysis: a });
+    if (a?.ok) set({ rival, rivalAnalysis: a });
   },
 });

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
+import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeAmplifier, type AmplifierView } from './amplifierChain';
 import { analyzeRival, sharedWindow } from './compareSlice';
@@ -80,15 +80,17 @@ function sameVoltagePart(a: BenchDesign, b: BenchDesign): boolean {
  * With the output stage driven, RL is its grid resistor: whichever of the two
  * the change touched, the other follows. An open RL cannot be a grid resistor.
  */
-function withOutputDriven(next: BenchDesign, prev: BenchDesign): BenchDesign | Failure {
-  if (!next.drivesOutput) return next;
+function withOutputDriven(next: BenchDesign, prev: BenchDesign): Result<{ design: BenchDesign }> {
+  // The design itself when nothing follows, so an unchanged design stays the same object (history and re-analysis key on it).
+  const same = (design: BenchDesign) => ({ ok: true as const, design });
+  if (!next.drivesOutput) return same(next);
   // Joining the stages: the output stage's own grid resistor becomes the voltage stage's load.
-  if (!prev.drivesOutput) return next.rl === next.output.rg ? next : { ...next, rl: next.output.rg };
+  if (!prev.drivesOutput) return same(next.rl === next.output.rg ? next : { ...next, rl: next.output.rg });
   if (next.rl !== prev.rl) {
     if (!Number.isFinite(next.rl)) return { ok: false, reason: 'invalid-input', message: 'RL is the output grid\'s resistor while the stages drive the output stage: give it a value', field: 'rl' };
-    return { ...next, output: { ...next.output, rg: next.rl } };
+    return same(next.rl === next.output.rg ? next : { ...next, output: { ...next.output, rg: next.rl } });
   }
-  return next.output.rg === next.rl ? next : { ...next, rl: next.output.rg };
+  return same(next.output.rg === next.rl ? next : { ...next, rl: next.output.rg });
 }
 
 /** How long after the last keystroke the full (signal) analysis runs, ms. */
@@ -141,8 +143,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
 
   commit: (asked, opts = {}) => {
     const s = get();
-    const next = withOutputDriven(asked, s.design);
-    if ('ok' in next) return next;
+    const joined = withOutputDriven(asked, s.design);
+    if (!joined.ok) return joined;
+    const next = joined.design;
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};
     // Each stage is analysed only when its part of the design changed, or to
@@ -155,8 +158,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       const extent = opts.extent ?? (s.chartWindow === 'load-line' ? loadLineExtent(next.bplus, next.ra, next.rk) : sharedWindow(next, s.rival));
       const a = analyze(next, s.analysis, extent, voltageLight, s.curveCount);
       if (!a.ok) return a;
-      const { ok: _ok, ...analysis } = a;
-      patch.analysis = analysis;
+      patch.analysis = a;
       patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, voltageLight, s.curveCount);
     }
     // A driven output stage is part of the amplifier on screen (strip, ratings, build sheet) even with the voltage stage shown.
@@ -165,9 +167,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       const outputLight = light || !outputShown;
       const window = opts.outputExtent ?? sharedOutputWindow(next.output, s.outputRival);
       const ob = analyzeOutputBench(next.output, s.outputBench, { light: outputLight, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
-      if ('ok' in ob) return ob;
+      if (!ob.ok) return ob;
       patch.outputBench = ob;
-      const prevRival = s.outputRivalBench && !('ok' in s.outputRivalBench) ? s.outputRivalBench : null;
+      const prevRival = s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench : null;
       patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(next.output, s.outputRival), prevRival, { light: outputLight, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
     }
     // The whole amplifier follows every full pass; a drag or keystroke shows the last one, marked as behind.

@@ -1,4 +1,5 @@
-import { analyzeOutput, findOutputTube, outputExtent, type Connection, type Failure, type OutputAnalysis, type OutputDesign, type PlateExtent } from '../../src/index';
+import { analyzeOutput, findOutputTube, outputExtent, type Connection,
+  type Result, type OutputAnalysis, type OutputDesign, type PlateExtent } from '../../src/index';
 
 /**
  * The output stage as the bench shows it: the model's analysis plus whether
@@ -38,7 +39,7 @@ const OUTPUT_FIELD_OF: Record<string, string> = {
   connection: 'outputTube',
 };
 
-export function analyzeOutputBench(d: OutputDesign, prev: OutputBench | null, opts: { light?: boolean; maxCurves?: number; extent?: PlateExtent } = {}): OutputBench | Failure {
+export function analyzeOutputBench(d: OutputDesign, prev: OutputBench | null, opts: { light?: boolean; maxCurves?: number; extent?: PlateExtent } = {}): Result<OutputBench> {
   const tube = findOutputTube(d.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No output tube called “${d.tubeId}”`, field: 'outputTube' };
   const a = analyzeOutput(tube, d, {
@@ -48,9 +49,8 @@ export function analyzeOutputBench(d: OutputDesign, prev: OutputBench | null, op
     ...(opts.extent ? { extent: opts.extent } : {}),
   });
   if (!a.ok) return a.field !== undefined && a.field in OUTPUT_FIELD_OF ? { ...a, field: OUTPUT_FIELD_OF[a.field]! } : a;
-  const { ok: _ok, ...analysis } = a;
   const light = opts.light ?? false;
-  return { analysis, light, settled: light && prev ? prev.settled : analysis };
+  return { ok: true, analysis: a, light, settled: light && prev ? prev.settled : a };
 }
 
 export function rivalOutputDesign(d: OutputDesign, r: OutputRival): OutputDesign {

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { biasForPoint, findOutputTube, nearestPreferred, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign, switchBias } from '../../src/index';
+import { biasForPoint, findOutputTube, nearestPreferred, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign, type Result, switchBias } from '../../src/index';
 import type { StageKind } from './analysis';
 import { analyzeOutputBench, type OutputBench, type OutputRival } from './outputAnalysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -15,7 +15,7 @@ import { DEMO_DESIGN } from './demoDesign';
 export interface OutputSlice {
   outputBench: OutputBench;
   outputRival: OutputRival;
-  outputRivalBench: OutputBench | Failure | null;
+  outputRivalBench: Result<OutputBench> | null;
   setStageKind: (kind: StageKind) => void;
   /** Applies a change to the output design through commit; returns the failure, if any, for the caller to place. */
   changeOutput: (patch: Partial<OutputDesign>, opts?: { light?: boolean }) => Failure | null;
@@ -32,7 +32,7 @@ export interface OutputSlice {
 /** The light analysis: the bench opens on the voltage stage; the full one runs when the output stage is shown. */
 export function initialOutputBench(d: OutputDesign): OutputBench {
   const b = analyzeOutputBench(d, null, { light: true });
-  if ('ok' in b) throw new Error(`the demo output stage must solve: ${b.message}`);
+  if (!b.ok) throw new Error(`the demo output stage must solve: ${b.message}`);
   return b;
 }
 
@@ -59,6 +59,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const s = get();
     const parts = switchBias(s.outputBench.analysis.solution, to);
     if (!parts.ok) return parts;
+    // The answer's parts become a patch of the output design: its ok flag is not a design field.
     const { ok: _ok, ...patch } = parts;
     return s.changeOutput(patch);
   },

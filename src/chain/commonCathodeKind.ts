@@ -36,7 +36,7 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
     const solved = solveStage(design);
     if (!solved.ok) return solved;
     const checked = normalizeStage(design);
-    if ('ok' in checked) return checked;
+    if (!checked.ok) return checked;
     const t = stageTransfer(checked, solved.op);
     return triodeLink({
       tube: s.tube,

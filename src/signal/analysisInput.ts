@@ -1,6 +1,6 @@
 import { normalizeStage, type CheckedStage, type StageDesign } from '../stage/stageDesign';
 import { solveStage, type StageSolution } from '../stage/solveStage';
-import type { Failure } from '../result';
+import type { Result } from '../result';
 
 /** A validated, solved stage: what every signal analysis starts from. */
 export interface SolvedStage {
@@ -8,10 +8,10 @@ export interface SolvedStage {
   readonly solution: StageSolution;
 }
 
-export function solvedStage(design: StageDesign): SolvedStage | Failure {
+export function solvedStage(design: StageDesign): Result<SolvedStage> {
   const solution = solveStage(design);
   if (!solution.ok) return solution;
   const checked = normalizeStage(design);
-  if ('ok' in checked) return checked;
-  return { checked, solution };
+  if (!checked.ok) return checked;
+  return { ok: true, checked, solution };
 }

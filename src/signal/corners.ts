@@ -61,6 +61,6 @@ export function cornersOf(s: SolvedStage): Corners {
 /** The stage's −3 dB points from source to output. */
 export function corners(design: StageDesign): Result<Corners> {
   const s = solvedStage(design);
-  if ('ok' in s) return s;
+  if (!s.ok) return s;
   return { ok: true, ...cornersOf(s) };
 }

@@ -131,7 +131,7 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
  */
 export function distortion(design: StageDesign, level: DriveLevel, options?: DistortionOptions | null): Result<DistortionResult> {
   const s = solvedStage(design);
-  if ('ok' in s) return s;
+  if (!s.ok) return s;
   if (typeof level !== 'object' || level === null) return fail('invalid-input', 'Give an output or input level in V rms');
   return distortionOf(s, level, options);
 }

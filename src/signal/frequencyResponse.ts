@@ -140,7 +140,7 @@ export const MAX_FREQUENCIES = 10_000;
 /** Magnitude (dB) and phase (degrees) of the stage's response at each frequency, source to output. A null response reads DB_FLOOR. */
 export function frequencyResponse(design: StageDesign, frequenciesHz: readonly number[]): Result<{ points: ResponsePoint[]; magnitudeDb: number[]; phaseDeg: number[] }> {
   const s = solvedStage(design);
-  if ('ok' in s) return s;
+  if (!s.ok) return s;
   if (!Array.isArray(frequenciesHz) || frequenciesHz.length > MAX_FREQUENCIES || frequenciesHz.some((f) => !(typeof f === 'number' && f > 0 && Number.isFinite(f)))) {
     return fail('invalid-input', `Frequencies must be a list of at most ${MAX_FREQUENCIES} positive numbers in Hz`, 'frequencies');
   }

@@ -54,7 +54,7 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
   const s1 = solveStage(firstDesign);
   if (!s1.ok) return { ...s1, message: `Stage 1: ${s1.message}` };
   const c1 = normalizeStage(firstDesign);
-  if ('ok' in c1) return c1;
+  if (!c1.ok) return c1;
   const t1 = stageTransfer(c1, s1.op);
   const results: LinkResult[] = [{ kind: 'common-cathode', ...s1 }];
 
@@ -82,7 +82,7 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
     const s2 = solveStage(second);
     if (!s2.ok) return { ...s2, message: `Stage 2: ${s2.message}` };
     const c2 = normalizeStage(second);
-    if ('ok' in c2) return c2;
+    if (!c2.ok) return c2;
     results.push({ kind: 'common-cathode', ...s2 });
     const t2 = stageTransfer(c2, s2.op);
     const at = (v: number) => t2.at(t1.at(v).vout);

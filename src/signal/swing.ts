@@ -64,6 +64,6 @@ export function swingOf(s: SolvedStage, transfer: StageTransfer = stageTransfer(
 /** The largest clean input and output peaks of a stage, and what limits them. */
 export function swing(design: StageDesign): Result<SwingResult> {
   const s = solvedStage(design);
-  if ('ok' in s) return s;
+  if (!s.ok) return s;
   return { ok: true, ...swingOf(s) };
 }

@@ -45,7 +45,7 @@ export interface StageSolution {
  */
 export function solveStage(design: StageDesign): Result<StageSolution> {
   const d = normalizeStage(design);
-  if ('ok' in d) return d;
+  if (!d.ok) return d;
   const model = modelOf(d.tube);
   const loop = solveLoop(model, d.bplus, d.ra, d.rk, d.vbias);
   if (!loop.converged) return fail('no-convergence', 'The operating point could not be found to full accuracy; check the values.');

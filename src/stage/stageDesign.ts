@@ -1,5 +1,5 @@
 import type { TubeLike } from '../tube/types';
-import { fail, type Failure } from '../result';
+import { fail, type Result } from '../result';
 import { checkNumber, checkTube, LIMITS } from './checkInput';
 
 /** A common-cathode triode stage. SI units throughout. */
@@ -53,7 +53,7 @@ export const RK_WIRE_OHMS = 1e-6;
 export const STAGE_DEFAULTS = { bypassed: true, rl: Infinity, vbias: 0, heaterVolts: 0 } as const;
 
 /** Validates a stage design once, at the edge; the solvers then compute on checked input. */
-export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
+export function normalizeStage(raw: StageDesign): Result<CheckedStage> {
   if (typeof raw !== 'object' || raw === null) return fail('invalid-input', 'No design given');
   const tubeProblem = checkTube(raw.tube);
   if (tubeProblem) return tubeProblem;
@@ -75,6 +75,7 @@ export function normalizeStage(raw: StageDesign): CheckedStage | Failure {
   if (problem) return problem;
   if (raw.bypassed !== undefined && typeof raw.bypassed !== 'boolean') return fail('invalid-input', 'Bypass must be on or off', 'bypassed');
   return {
+    ok: true,
     tube: raw.tube,
     bplus: raw.bplus,
     ra: raw.ra,

@@ -9,7 +9,7 @@ const au7 = findTube('12AU7')!;
 const design = { tube: au7, bplus: 275, ra: 27e3, rk: 1200, rl: 220e3, rg: 1e6, rsource: 1e3, cin: 470e-9, ck: 100e-6, cout: 1e-6 };
 const solved = () => {
   const s = solvedStage(design);
-  if ('ok' in s) throw new Error(s.message);
+  if (!s.ok) throw new Error(s.message);
   return s;
 };
 

@@ -91,7 +91,7 @@ const output: Q.OutputDesign = { tubeId: 'EL34', connection: 'ultralinear', bplu
 const solvedOut = Q.solveOutput(el34, output);
 if (!solvedOut.ok) throw new Error(solvedOut.message);
 const solvedStage = Q.solvedStage(stage);
-if ('ok' in solvedStage) throw new Error(solvedStage.message);
+if (!solvedStage.ok) throw new Error(solvedStage.message);
 const tubes = fc.oneof(fc.constantFrom<unknown>(...Q.tubeLibrary), near(au7), near(au7.model));
 const outTubes = fc.oneof(fc.constantFrom<unknown>(...Q.outputTubeLibrary), near(el34), near(el34.law));
 const solutions = near(solvedOut);

@@ -27,7 +27,7 @@ describe('distortion and swing', () => {
   // Common practice: a triode stage's distortion grows with level (mostly H2, about in proportion to it).
   it('THD rises with level from a small signal up to the clipping point (common practice)', () => {
     const s = solvedStage(stage);
-    if ('ok' in s) throw new Error(s.message);
+    if (!s.ok) throw new Error(s.message);
     const sweep = distortionSweep(s, 10);
     expect(sweep).toHaveLength(10);
     for (let k = 1; k < sweep.length; k++) expect(sweep[k]!.thdPercent).toBeGreaterThan(sweep[k - 1]!.thdPercent);
