@@ -54,8 +54,8 @@ export function ChainStrip() {
                     onClick={() => setStageKind(name.bench)}
                   >
                     <span className="card-title">{name.title} · {name.tube} <span className="card-kind">{view.kinds[i]!.toLowerCase()}</span></span>
+                    <span className="card-gain">gain {plain(st.gain)}×{st.kind === 'single-ended-output' ? ' (grid to speaker)' : ''}</span>
                     <span className="card-headroom">
-                      <span className="card-gain">gain {plain(st.gain)}×{st.kind === 'single-ended-output' ? ' to speaker' : ''}</span>
                       <meter min={0} max={HEADROOM_FULL_DB} low={3} optimum={HEADROOM_FULL_DB} value={headroom === null ? HEADROOM_FULL_DB : Math.min(headroom, HEADROOM_FULL_DB)} aria-label="headroom" />
                       {clipsHere ? `clips first (${r.clipsFirst.by === 'grid-current' ? 'grid current' : 'cutoff'})` : headroom === null ? 'never clips' : `${headroom.toFixed(1)} dB headroom`}
                     </span>
