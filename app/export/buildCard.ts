@@ -7,6 +7,7 @@ import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
 import { elevationAdvice } from '../panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
+import { amplifierSection } from './amplifierLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
 export const CARD_WIDTH = 1240;
@@ -15,7 +16,12 @@ const MARGIN = 60;
 
 /** Everything the card shows, as lines of text, gathered from the store (the model already computed it). */
 export function cardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
-  if (s.design.stageKind === 'output') return outputCardSections(s);
+  const amplifier = amplifierSection(s);
+  const stageSections = s.design.stageKind === 'output' ? outputCardSections(s) : voltageCardSections(s);
+  return amplifier ? [amplifier, ...stageSections] : stageSections;
+}
+
+function voltageCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
   const sol = s.analysis.solution;
   const d = s.design;
   const sig = s.analysis.signal;

@@ -27,7 +27,7 @@ export interface AmplifierAtLevel {
 }
 
 /** Points a cycle for the figures: below clipping the transfers are smooth, and harmonics to H10 need far fewer. */
-const SAMPLES = 128;
+export const SAMPLES = 128;
 /** Points a cycle while the secant search finds the level: only the fundamental is read, and below clipping the harmonics that alias onto it (the 31st and 33rd) are negligible. */
 const SEARCH_SAMPLES = 32;
 
@@ -63,8 +63,9 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
     return harmonicAmplitudes(wave, 10);
   };
   const target = targetRms * Math.SQRT2;
-  const cleanMax = fundamentalAt(cleanPeak)[1]!;
-  if (target > cleanMax * (1 + 1e-9)) {
+  const cleanMax = fundamentalAt(cleanPeak, SAMPLES)[1]!;
+  // Within a part per million of the clean limit counts as at it.
+  if (target > cleanMax * (1 + 1e-6)) {
     return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms is past the clean limit of ${(cleanMax / Math.SQRT2).toPrecision(3)} V rms, where stage ${first + 1} reaches ${clips[first]!.by === 'grid-current' ? 'grid current' : 'cutoff'}`, 'outputRms');
   }
   // Secant on the fundamental, from the small-signal guess; bracketed by [0, the clean limit].

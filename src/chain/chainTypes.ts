@@ -111,7 +111,7 @@ export interface ChainResult {
   readonly outputPeak: number;
   readonly input: Level;
   readonly output: Level;
-  /** Power into the speaker at the clean limit, W, for a chain ending in an output stage; else null. */
+  /** Power into the speaker at the clean limit (at the fundamental), W, for a chain ending in an output stage; else null. */
   readonly outputPower: number | null;
   /** Every stage's findings, each tagged with its stage, most severe first. */
   readonly findings: readonly StageFinding[];

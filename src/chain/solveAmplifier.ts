@@ -1,10 +1,11 @@
 import type { Result } from '../result';
 import { amplifierFindings } from '../stage/stageFindings';
 import { sineLevel } from '../signal/levels';
-import { atLevelOf, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
+import { atLevelOf, SAMPLES, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import { chainCorners, type ChainNetwork } from './chainResponse';
 import type { ChainInput, ChainResult, ChainStage, StageResult } from './chainTypes';
-import { prepareAmplifier } from './prepareAmplifier';
+import { prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
+import { harmonicAmplitudes } from '../signal/fft';
 import { STAGE_KIND_LABELS } from './stageKinds';
 
 export { checkChain, prepareAmplifier, MAX_CHAIN_STAGES, type PreparedAmplifier } from './prepareAmplifier';
@@ -59,10 +60,19 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
     outputPeak,
     input: sineLevel(inputPeak),
     output: sineLevel(outputPeak),
-    outputPower: last.kind === 'single-ended-output' ? (outputPeak * outputPeak) / (2 * last.speakerOhms) : null,
+    outputPower: last.kind === 'single-ended-output' ? powerAt(signal, inputPeak, last.speakerOhms) : null,
     findings: tagged,
     ...(level === undefined ? {} : { atLevel: atLevelOf(a, input, level) }),
   };
+}
+
+/** Power into the speaker at the fundamental (as data sheets and the output stage's own figures state it) for a source peak. */
+function powerAt(signal: PreparedAmplifier['signal'], peak: number, speakerOhms: number): number {
+  const n = SAMPLES; // the same resolution amplifierAtLevel reads the clean limit at
+  const wave = new Float64Array(n);
+  for (let k = 0; k < n; k++) wave[k] = signal.at(peak * Math.sin((2 * Math.PI * k) / n));
+  const v1 = harmonicAmplitudes(wave, 1)[1] ?? 0;
+  return (v1 * v1) / (2 * speakerOhms);
 }
 
 function tubeName(s: ChainStage): string {

@@ -57,4 +57,18 @@ describe('the amplifier strip', () => {
     expect(rg?.textContent).toMatch(/270 kΩ/);
     expect(sheet.getByText(/for the output stage ahead of the filter/)).toBeTruthy();
   });
+
+  it('the build card opens with the whole amplifier: the chain, gain and band, the clean power and which stage clips first, and the input for 1 W', async () => {
+    const { cardSections } = await import('../../app/export/buildCard');
+    const store = createWorkbenchStore();
+    const [first] = cardSections(store.getState());
+    expect(first!.heading).toBe('Amplifier');
+    expect(first!.lines[0]).toBe('12AU7 common cathode → EL34 single-ended output');
+    expect(first!.lines[1]).toMatch(/^Gain [\d.]+ × \([\d.]+ dB\), −3 dB [\d.]+ Hz to [\d.]+ kHz$/);
+    expect(first!.lines[2]).toMatch(/^Clean to [\d.]+ W \([\d.]+ V rms at the speaker\) from .* in; output clips first \(grid current\)$/);
+    expect(first!.lines[3]).toMatch(/^At 1 W: .* in, THD [\d.]+ %$/);
+    // The stages apart, a single stage: its own sections say it all.
+    store.getState().setDrivesOutput(false);
+    expect(cardSections(store.getState())[0]!.heading).toBe('Stage');
+  });
 });

@@ -75,6 +75,15 @@ describe('an amplifier of 1 to 8 stages', () => {
     expect(past.ok === false && past.reason).toBe('clipping');
   });
 
+  it('the clean power is the fundamental\'s (as the output stage states its own): asking for it takes the clean limit\'s input', () => {
+    const c = amp(gainStage(), follower, output);
+    const r = solved(c);
+    expect(r.clipsFirst).toEqual({ stage: 2, by: 'grid-current' });
+    const at = amplifierAtLevel(c, { power: r.outputPower! * (1 - 1e-9) });
+    if (!at.ok) throw new Error(at.message);
+    expectClose(at.inputPeak, r.inputPeak, { rel: 1e-3 }, 'input for the clean power');
+  });
+
   it('eight stages solve; nine are refused', () => {
     const eight = [gainStage(), driver, gainStage(470e3), driver, gainStage(470e3), driver, gainStage(470e3), follower];
     const r = solveChain(amp(...eight));
