@@ -174,7 +174,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     }
     // The whole amplifier follows every full pass; a drag or keystroke shows the last one, marked as behind.
     if (next !== s.design || opts.force || s.amplifier?.stale) {
-      patch.amplifier = !light ? analyzeAmplifier(next) : s.amplifier && { ...s.amplifier, stale: true };
+      // Marked once: a drag's later frames keep the same object, so the strip is not drawn again on every move.
+      patch.amplifier = !light ? analyzeAmplifier(next) : s.amplifier && (s.amplifier.stale ? s.amplifier : { ...s.amplifier, stale: true });
     }
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.

@@ -33,16 +33,12 @@ export class ChainSignal {
     return v;
   }
 
-  sampleOf(stage: number): LinkSample {
-    return this.samples[stage]!;
-  }
-
   /** Which of stage i's limits a source peak reaches, at either polarity (null: neither). */
   private limitAt(i: number, peak: number): ClipCause | null {
     const link = this.links[i]!;
     let cause: ClipCause | null = null;
-    for (const v of [peak, -peak]) {
-      this.at(v, i);
+    for (let sign = 1; sign >= -1; sign -= 2) {
+      this.at(sign * peak, i);
       const s = this.samples[i]!;
       if (s.vgk >= 0) return 'grid-current';
       if (s.ia <= link.cutoffCurrent) cause = 'cutoff';

@@ -14,14 +14,15 @@ const VT_300K = 0.025852; // kT/q at 300 K, V
  * a bridge) or a tube plate by Child–Langmuir, V = (I/k)^(2/3). Monotone
  * rising from 0 at 0 A.
  */
-export interface DropLaw {
+export type DropLaw = {
   readonly drop: (i: number) => number;
   readonly slope: (i: number) => number;
-  /** For a tube: the Child–Langmuir perveance, so the current can be solved in the drop voltage (smooth there). */
-  readonly perveance?: number;
-  /** For silicon: the diodes in the path, so the current can be solved in the junction voltage (convex there). */
-  readonly diodes?: number;
-}
+} & (
+  /** A tube: its Child–Langmuir perveance, so the current is solved in the drop voltage (smooth there). */
+  | { readonly kind: 'tube'; readonly perveance: number }
+  /** Silicon: the diodes in the path, so the current is solved in the junction voltage (convex there). */
+  | { readonly kind: 'silicon'; readonly diodes: number }
+);
 
 export function dropLaw(r: Rectifier): DropLaw | null {
   if (r.kind === 'tube') {
@@ -31,6 +32,7 @@ export function dropLaw(r: Rectifier): DropLaw | null {
     return {
       drop: (i) => (i <= 0 ? 0 : Math.pow(i / k, 2 / 3)),
       slope: (i) => (i <= 1e-12 ? 1e6 : (2 / 3) * Math.pow(i / k, -1 / 3) / k),
+      kind: 'tube',
       perveance: k,
     };
   }
@@ -39,6 +41,7 @@ export function dropLaw(r: Rectifier): DropLaw | null {
   return {
     drop: (i) => (i <= 0 ? 0 : diodes * (nvt * Math.log1p(i / SILICON.is) + i * SILICON.rs)),
     slope: (i) => diodes * (nvt / (Math.max(i, 0) + SILICON.is) + SILICON.rs),
+    kind: 'silicon',
     diodes,
   };
 }
@@ -46,30 +49,13 @@ export function dropLaw(r: Rectifier): DropLaw | null {
 /**
  * The rectifier's current into a node held at `v` (after the winding's
  * resistance `rw`) when the rectified secondary stands at `e`: the one root of
- * e − v = i·rw + drop(i), or 0 when e ≤ v. Newton from a bisection bracket;
- * its derivative with respect to v comes back for the caller's Newton.
+ * e − v = i·rw + drop(i), or 0 when e ≤ v, with its derivative with respect
+ * to v for the caller's Newton.
  */
 export function rectifierCurrent(law: DropLaw, e: number, v: number, rw: number): { i: number; di: number } {
   const head = e - v;
   if (!(head > 0)) return { i: 0, di: 0 };
-  if (law.perveance !== undefined) return tubeCurrent(law.perveance, head, rw);
-  if (law.diodes !== undefined) return siliconCurrent(law.diodes, head, rw);
-  let lo = 0;
-  let hi = head / Math.max(rw, 1e-3);
-  let i = Math.min(hi, head / (rw + law.slope(1e-3)));
-  for (let k = 0; k < 60; k++) {
-    const f = i * rw + law.drop(i) - head;
-    if (f > 0) hi = i;
-    else lo = i;
-    const next = i - f / (rw + law.slope(i));
-    const step = next > lo && next < hi ? next : 0.5 * (lo + hi);
-    if (Math.abs(step - i) <= 1e-12 + 1e-10 * i) {
-      i = step;
-      break;
-    }
-    i = step;
-  }
-  return { i, di: -1 / (rw + law.slope(i)) };
+  return law.kind === 'tube' ? tubeCurrent(law.perveance, head, rw) : siliconCurrent(law.diodes, head, rw);
 }
 
 /**

@@ -71,4 +71,17 @@ describe('the amplifier strip', () => {
     store.getState().setDrivesOutput(false);
     expect(cardSections(store.getState())[0]!.heading).toBe('Stage');
   });
+
+  it('during a drag the amplifier\'s figures are marked behind once and then left alone, and are redone on release', () => {
+    const store = createWorkbenchStore();
+    const first = store.getState().amplifier;
+    store.getState().commit({ ...store.getState().design, ra: 28e3 }, { light: true });
+    const behind = store.getState().amplifier;
+    expect(behind?.stale).toBe(true);
+    store.getState().commit({ ...store.getState().design, ra: 29e3 }, { light: true });
+    expect(store.getState().amplifier).toBe(behind);
+    store.getState().commit({ ...store.getState().design, ra: 30e3 });
+    expect(store.getState().amplifier?.stale).toBe(false);
+    expect(store.getState().amplifier).not.toBe(first);
+  });
 });
