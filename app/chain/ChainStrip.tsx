@@ -71,7 +71,7 @@ export function ChainStrip() {
             <div>
               <dt>Clean to</dt>
               <dd>
-                {r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.output.rms)} V rms at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
+                {r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
               </dd>
             </div>
             {view.atLevel && (

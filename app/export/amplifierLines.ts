@@ -17,7 +17,7 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   const lines = [
     chain,
     `Gain ${plain(Math.abs(r.gain))} × (${(20 * Math.log10(Math.abs(r.gain))).toFixed(1)} dB${r.inverting ? ', inverting' : ''}), −3 dB ${hz(r.lowHz, 'DC')} to ${hz(r.highHz, 'beyond 100 MHz')}`,
-    `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.output.rms)} V rms at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
+    `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
   ];
   if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${rmsLevel(view.atLevel.input, 'dBu')} in, THD ${plain(view.atLevel.thd * 100, 2)} %`);
   return { heading: 'Amplifier', lines };

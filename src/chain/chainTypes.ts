@@ -113,6 +113,8 @@ export interface ChainResult {
   readonly output: Level;
   /** Power into the speaker at the clean limit (at the fundamental), W, for a chain ending in an output stage; else null. */
   readonly outputPower: number | null;
+  /** The speaker's rms voltage at that power (the fundamental's), V; null without an output stage. */
+  readonly speakerRms: number | null;
   /** Every stage's findings, each tagged with its stage, most severe first. */
   readonly findings: readonly StageFinding[];
 }

@@ -27,6 +27,7 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
   const chainLoad = input.load?.rl ?? Infinity;
   const outputPeak = signal.outputPeak(inputPeak);
   const last = stages[stages.length - 1]!;
+  const outputPower = last.kind === 'single-ended-output' ? powerAt(signal, inputPeak, last.speakerOhms) : null;
 
   const network: ChainNetwork = {
     rsource,
@@ -60,7 +61,8 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
     outputPeak,
     input: sineLevel(inputPeak),
     output: sineLevel(outputPeak),
-    outputPower: last.kind === 'single-ended-output' ? powerAt(signal, inputPeak, last.speakerOhms) : null,
+    outputPower,
+    speakerRms: outputPower === null || last.kind !== 'single-ended-output' ? null : Math.sqrt(outputPower * last.speakerOhms),
     findings: tagged,
     ...(level === undefined ? {} : { atLevel: atLevelOf(a, input, level) }),
   };

@@ -82,6 +82,8 @@ describe('an amplifier of 1 to 8 stages', () => {
     const at = amplifierAtLevel(c, { power: r.outputPower! * (1 - 1e-9) });
     if (!at.ok) throw new Error(at.message);
     expectClose(at.inputPeak, r.inputPeak, { rel: 1e-3 }, 'input for the clean power');
+    // The speaker's volts shown beside the power are the same fundamental's: P = V²/R (Ohm's law).
+    expectClose(r.speakerRms! ** 2 / 8, r.outputPower!, { rel: 1e-12 }, 'V²/R');
   });
 
   it('eight stages solve; nine are refused', () => {
