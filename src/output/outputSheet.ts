@@ -7,6 +7,10 @@ import { primaryCurrent, screenVoltage, type ScreenFeed } from './electrodes';
 import type { OutputTube } from './outputTube';
 import type { OutputSolution } from './solveOutput';
 
+const EXTENT_MIN_VOLTS = 1;
+const EXTENT_MAX_VOLTS = 1e5;
+const EXTENT_MAX_WATTS = 1e5;
+
 /**
  * The plate-plane window for an output stage. A transformer lets the plate
  * swing to about twice B+, so the voltage axis runs to 2.2 × B+; the current
@@ -14,9 +18,11 @@ import type { OutputSolution } from './solveOutput';
  * on the tube and B+ only, so the window stays still while the point moves.
  */
 export function outputExtent(tube: OutputTube, bplus: number): PlateExtent {
-  const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 250;
+  // Held to a window a chart can draw: a B+ of 6.8e307 V (found by the robustness test) made an infinite axis.
+  const b = Number.isFinite(bplus) && bplus > 0 ? Math.min(Math.max(bplus, EXTENT_MIN_VOLTS), EXTENT_MAX_VOLTS) : 250;
   const pd = tube?.ratings?.maxPlateDissipation;
-  return { vmax: niceCeil(2.2 * b), iaMax: niceCeil((2.2 * (typeof pd === 'number' && pd > 0 ? pd : 10)) / b) };
+  const watts = typeof pd === 'number' && pd > 0 && Number.isFinite(pd) ? Math.min(pd, EXTENT_MAX_WATTS) : 10;
+  return { vmax: niceCeil(2.2 * b), iaMax: niceCeil((2.2 * watts) / b) };
 }
 
 /** The grid voltage that cuts the tube off at the right edge of the chart. */

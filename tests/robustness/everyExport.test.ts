@@ -151,5 +151,9 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('korenPentode', fc.tuple(fc.oneof(near((el34.law as { params: object }).params), anything), numbers, numbers, numbers), Q.korenPentode);
   run('plateExtent', fc.tuple(tubes, numbers), Q.plateExtent);
   run('outputExtent', fc.tuple(outTubes, numbers), Q.outputExtent);
+  // Found by a fresh seed: a B+ of 6.8e307 V made the voltage axis infinite (2.2 × B+ rounded up past the largest double).
+  it('outputExtent at the ends of the doubles', () => {
+    for (const b of [6.818181822727273e307, 5e-324, 1.7e308]) keepsPromise('outputExtent', () => Q.outputExtent(el34, b), [el34, b]);
+  });
   run('roundUpTo', fc.tuple(fc.oneof(fc.constant([0.25, 0.5, 1, 2]), anything), numbers), Q.roundUpTo);
 });
