@@ -1,3 +1,5 @@
+import { solveLinear } from '../numeric/solveLinear';
+
 /**
  * Levenberg–Marquardt least squares with box bounds (K. Levenberg 1944,
  * D. Marquardt 1963; damping scaled by the diagonal of JᵀJ as in Marquardt).
@@ -33,29 +35,6 @@ function sumSquares(r: readonly number[]): number {
 
 function clamp(x: number, lo: number, hi: number): number {
   return x < lo ? lo : x > hi ? hi : x;
-}
-
-/** Solves the n×n system A·x = b by Gaussian elimination with partial pivoting; null when singular. */
-function solveLinear(a: number[][], b: number[]): number[] | null {
-  const n = b.length;
-  const m = a.map((row, i) => [...row, b[i] as number]);
-  for (let col = 0; col < n; col++) {
-    let pivot = col;
-    for (let r = col + 1; r < n; r++) if (Math.abs(m[r]![col]!) > Math.abs(m[pivot]![col]!)) pivot = r;
-    if (!(Math.abs(m[pivot]![col]!) > 1e-300)) return null;
-    [m[col], m[pivot]] = [m[pivot]!, m[col]!];
-    for (let r = col + 1; r < n; r++) {
-      const f = m[r]![col]! / m[col]![col]!;
-      for (let c = col; c <= n; c++) m[r]![c]! -= f * m[col]![c]!;
-    }
-  }
-  const x = new Array<number>(n).fill(0);
-  for (let r = n - 1; r >= 0; r--) {
-    let s = m[r]![n]!;
-    for (let c = r + 1; c < n; c++) s -= m[r]![c]! * x[c]!;
-    x[r] = s / m[r]![r]!;
-  }
-  return x.every(Number.isFinite) ? x : null;
 }
 
 export function levenbergMarquardt(
