@@ -2,7 +2,7 @@ import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
-  solveAmplifier, type ChainInput,
+  solveAmplifier, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign,
 } from '../src/index';
 import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 
@@ -61,7 +61,24 @@ export function fourStageAnalysis(): void {
   if (!r.atLevel?.ok) throw new Error('no figures at 1 W');
 }
 
+/** A supply of our own: 260 V a side, silicon full wave, 100 µF reservoir and three R–C sections. */
+export const THREE_SECTION_SUPPLY: SupplyDesign = {
+  mainsHz: 50, secondaryRms: 260, windingOhms: 35, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 100e-6 },
+  sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 4700, c: 47e-6 }, { kind: 'rc', r: 10e3, c: 22e-6 }],
+  loads: [0.075, 0.004, 0.004, 0.001],
+};
+
+/** The four-stage amplifier on that supply: the output stage on the reservoir, the follower, second and first stages down the ladder. */
+export function amplifierOnSupply(): void {
+  const r = solveOnSupply({ amplifier: FOUR_STAGES, supply: { ...THREE_SECTION_SUPPLY, loads: [0, 0, 0, 0] }, feeds: [3, 2, 1, 0] });
+  if (!r.ok) throw new Error(r.message);
+}
+
 export interface ModelResults {
+  /** A three-section supply to its steady state (budget 50 ms median). */
+  readonly supplyThreeSections: Stats;
+  /** The four-stage amplifier and the supply solved as one, from cold. */
+  readonly amplifierOnSupply: Stats;
   /** The four-stage amplifier, solved whole (budget 8 ms median). */
   readonly fourStageChain: Stats;
   readonly solveStage: Stats;
@@ -102,6 +119,8 @@ export function benchModel(): ModelResults {
   const m = interleaved({
     solveStage: [() => solveStage(STAGE), 700, 20],
     fourStageChain: [() => fourStageAnalysis(), 20, 5],
+    supplyThreeSections: [() => solveSupply(THREE_SECTION_SUPPLY), 5, 2],
+    amplifierOnSupply: [() => amplifierOnSupply(), 2, 1],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
     plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
     fit200: [() => fitTriode(pts), 7, 2],
@@ -114,5 +133,5 @@ export function benchModel(): ModelResults {
     fft16384: [() => fullAnalysis(16384), 20, 5],
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
-  return { fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }
