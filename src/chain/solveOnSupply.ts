@@ -9,6 +9,8 @@ export interface AmplifierOnSupply {
   readonly supply: SupplyDesign;
   /** The supply node feeding each stage's B+ (0 the reservoir, then one per section). */
   readonly feeds: readonly number[];
+  /** Identical channels on the one supply (2 for stereo): each node carries every channel's stages. Default 1. */
+  readonly channels?: number;
 }
 
 export interface AmplifierOnSupplyResult {
@@ -22,6 +24,8 @@ export interface AmplifierOnSupplyResult {
 /** Agreement asked between a node's voltage and the B+ its stages were solved at, V. */
 const VOLT_TOL = 0.01;
 const MAX_ITERATIONS = 30;
+/** Channels one supply may feed (a multichannel amplifier beyond this has more than one supply). */
+export const MAX_CHANNELS = 8;
 
 /**
  * The amplifier and its supply as one solution: each stage draws its current
@@ -35,6 +39,8 @@ const MAX_ITERATIONS = 30;
 export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSupplyResult> {
   if (typeof input !== 'object' || input === null) return fail('invalid-input', 'Give the amplifier, its supply and which node feeds each stage');
   const { amplifier, supply, feeds } = input;
+  const channels = input.channels ?? 1;
+  if (!Number.isInteger(channels) || channels < 1 || channels > MAX_CHANNELS) return fail('invalid-input', `Give 1 to ${MAX_CHANNELS} channels on the supply`, 'channels');
   const nodes = Array.isArray(supply?.sections) ? supply.sections.length + 1 : 0;
   const stages = Array.isArray(amplifier?.stages) ? amplifier.stages : [];
   if (!Array.isArray(feeds) || feeds.length !== stages.length || !feeds.every((f) => Number.isInteger(f) && f >= 0 && f < Math.max(nodes, 1))) {
@@ -47,7 +53,7 @@ export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSuppl
     const bplus = stages.map((s, i) => (volts ? volts[feeds[i]!]! : s.bplus));
     const chain = solveAmplifier({ ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) });
     if (!chain.ok) return chain;
-    const loads = own.map((a, k) => a + chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
+    const loads = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
     const solved = solveSupply({ ...supply, loads }, volts ? { start: volts } : {});
     if (!solved.ok) return solved;
     const next = solved.nodes.map((n) => n.dc);

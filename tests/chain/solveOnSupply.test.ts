@@ -43,6 +43,18 @@ describe('the amplifier on its supply, solved as one', () => {
     expect(loaded.amplifier.stages[0]!.op.ia).toBeLessThan(light.amplifier.stages[0]!.op.ia);
   });
 
+  it('two channels on one supply: every section carries both channels\' current (Ohm\'s law), so every node sags further', () => {
+    const stereo = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], channels: 2 });
+    const mono = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    if (!stereo.ok || !mono.ok) throw new Error('both solve');
+    const [n0, n1, n2] = stereo.supply.nodes.map((n) => n.dc);
+    const [input, follower] = stereo.amplifier.stages;
+    expectClose(n1! - n2!, 2 * input!.supplyCurrent * 10e3, { rel: 0.002 }, '10k section, two channels');
+    expectClose(n0! - n1!, 2 * (input!.supplyCurrent + follower!.supplyCurrent) * 1e3, { rel: 0.002 }, '1k section, two channels');
+    expect(stereo.bplus[2]!).toBeLessThan(mono.bplus[2]! - 2);
+    expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], channels: 1.5 })).toMatchObject({ ok: false, field: 'channels' });
+  });
+
   it('names a stage without a node', () => {
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1] })).toMatchObject({ ok: false, field: 'feeds' });
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 3] })).toMatchObject({ ok: false, field: 'feeds' });
