@@ -22,6 +22,7 @@ import { OutputValues } from './output/OutputValues';
 import { OutputPartsPanel } from './output/OutputPartsPanel';
 import { useKeeping } from './keep/useKeeping';
 import { BuildSheetPanel } from './panels/BuildSheetPanel';
+import { SupplyPanel } from './supply/SupplyPanel';
 import { ComparePanel } from './panels/ComparePanel';
 import { CustomTubePanel } from './panels/CustomTubePanel';
 import { ExportPanel } from './panels/ExportPanel';
@@ -50,6 +51,7 @@ function Bench() {
         <ChainStrip />
         <StageKindSwitch />
         {stageKind === 'output' ? <OutputBench /> : <VoltageBench />}
+        <SupplyPanel />
         <footer>
           <SafetyNotice compact />
         </footer>

@@ -3,6 +3,7 @@ import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
 import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
+import { readSupplyPlan } from './supplyInFile';
 
 /**
  * Quiescent's design file: our own JSON format, versioned.
@@ -10,11 +11,15 @@ import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
  *   { "format": "quiescent-design", "version": 2, "title": "…", "savedAt": "ISO 8601",
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
- *                                      bias, rk, vg, rg, speakerOhms, thdLimit }, drivesOutput } }
+ *                                      bias, rk, vg, rg, speakerOhms, thdLimit }, drivesOutput,
+ *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
+ *                           channels, secondaryAmps, humRms } } }
  *
  * `drivesOutput` (true: the voltage stages drive the output stage, one
  * amplifier; RL is then the output grid resistor) came later within
  * version 2: a file without it opens as it always did, the stages apart.
+ * So did `supply` (the B+ supply, see supplyInFile.ts): a file without it
+ * opens on the bench's default supply, its own values unchanged.
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -60,7 +65,7 @@ const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'strin
 /** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
 const tubeId: Check = (v) => (typeof v === 'string' && v.trim().length > 0 && v.length <= 60 ? null : 'must name a tube (text of at most 60 characters)');
 
-const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput'>, Check> = {
+const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput' | 'supply'>, Check> = {
   tubeId,
   bplus: num(L.bplus),
   ra: num(L.ra),
@@ -172,6 +177,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   if (drivesOutput && d.rl !== output.rg) {
     return { ok: false, message: `design.rl must equal design.output.rg when the voltage stages drive the output stage (found ${quote(d.rl)} and ${quote(output.rg)}). Nothing was opened.` };
   }
+  const supply = readSupplyPlan(d.supply);
+  if (!supply.ok) return supply;
   const design: BenchDesign = {
     tubeId: knownId(d.tubeId as string),
     bplus: d.bplus as number,
@@ -197,6 +204,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     stageKind,
     output,
     drivesOutput,
+    supply: supply.plan,
   };
   return { ok: true, doc: { title: raw.title, design } };
 }

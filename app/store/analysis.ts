@@ -16,6 +16,7 @@ import {
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { analyzeSignal, type SignalAnalysis } from './signalAnalysis';
+import type { SupplyPlan } from './supplyPlan';
 
 /** The design as the bench holds it: what the user chose, in SI units. */
 export interface BenchDesign {
@@ -51,6 +52,8 @@ export interface BenchDesign {
    * and Cout the capacitor coupling into it.
    */
   readonly drivesOutput: boolean;
+  /** The B+ supply, solved with the amplifier when it is on. */
+  readonly supply: SupplyPlan;
 }
 
 export type StageKind = 'voltage' | 'output';

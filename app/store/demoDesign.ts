@@ -1,5 +1,6 @@
 import type { BenchDesign } from './analysis';
 import { autoTitle } from './autoTitle';
+import { DEMO_SUPPLY } from './supplyPlan';
 
 /**
  * The design the bench opens on: a line stage of our own making. A 12AU7
@@ -7,7 +8,8 @@ import { autoTitle } from './autoTitle';
  * bypassed by 100 µF, fed from a 1 kΩ source through 470 nF into a 1 MΩ grid
  * leak, driving the output stage's 220 kΩ grid resistor through 1 µF;
  * distortion read at 2 V rms out. No second stage until the user adds one:
- * a small amplifier from line input to speaker.
+ * a small amplifier from line input to speaker, on its own supply
+ * (DEMO_SUPPLY).
  */
 export const DEMO_DESIGN: BenchDesign = {
   tubeId: '12AU7',
@@ -44,6 +46,7 @@ export const DEMO_DESIGN: BenchDesign = {
     speakerOhms: 8,
     thdLimit: 0.05,
   },
+  supply: DEMO_SUPPLY,
 };
 
 /** The demo's title is its automatic one, so it follows the first change the user makes. */

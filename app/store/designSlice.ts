@@ -10,6 +10,7 @@ import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 import { MAX_TITLE_CHARS } from '../keep/designFile';
 import { FIELD_NAMES, FIELDS, type FieldName } from './fields';
 import type { WorkbenchState } from './workbenchStore';
+import { supplyDraftsFor } from './supplySlice';
 
 export type Drafts = Record<FieldName, string>;
 export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube', string>>;
@@ -70,9 +71,9 @@ export interface CommitOptions {
   readonly force?: boolean;
 }
 
-/** True when two designs differ only in their output stage (or which stage is shown). */
+/** True when two designs differ only in their output stage, their supply, or which stage is shown. */
 function sameVoltagePart(a: BenchDesign, b: BenchDesign): boolean {
-  for (const k of Object.keys(a) as (keyof BenchDesign)[]) if (k !== 'output' && k !== 'stageKind' && a[k] !== b[k]) return false;
+  for (const k of Object.keys(a) as (keyof BenchDesign)[]) if (k !== 'output' && k !== 'stageKind' && k !== 'supply' && a[k] !== b[k]) return false;
   return true;
 }
 
@@ -182,6 +183,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
     const errors = { ...s.errors };
     for (const f of FIELD_NAMES) if (FIELDS[f].get(next) !== FIELDS[f].get(s.design) || f === opts.typedField) delete errors[f];
+    // A supply changed from outside its boxes (undo, an opened file) shows its own values.
+    if (next.supply !== s.design.supply) patch.supplyDrafts = supplyDraftsFor(next.supply);
     set({ ...patch, design: next, drafts, errors, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
     return null;
   },

@@ -6,14 +6,28 @@ import { createCustomSlice, type CustomSlice } from './customSlice';
 import { createHistorySlice, recordHistory, type HistorySlice } from './historySlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
 import { createOutputSlice, type OutputSlice } from './outputSlice';
+import { createSupplySlice, watchSupply, type SupplySlice, type SupplySolver } from './supplySlice';
+import { createOffThread } from '../work/offThread';
 
 /** The whole workbench state: the slices, combined once. */
-export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice;
+export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice & SupplySlice;
 export type WorkbenchStore = StoreApi<WorkbenchState>;
 
 export interface StoreOptions {
   /** Clock for undo coalescing (tests pass their own). */
   readonly now?: () => number;
+  /**
+   * Where the amplifier is solved on its supply: by default a Web Worker
+   * where the platform has them (the page), else nowhere (jsdom tests, which
+   * pass one when they test the supply).
+   */
+  readonly supplySolver?: SupplySolver | null;
+}
+
+function defaultSupplySolver(): SupplySolver | null {
+  if (typeof Worker === 'undefined') return null;
+  const work = createOffThread();
+  return (input) => work.onSupply(input);
 }
 
 /** A fresh store; the app makes one, each test makes its own. */
@@ -26,7 +40,9 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createCompareSlice(...a),
     ...createCustomSlice(...a),
     ...createOutputSlice(...a),
+    ...createSupplySlice(...a),
   }));
   recordHistory(store, options.now);
+  watchSupply(store, options.supplySolver === undefined ? defaultSupplySolver() : options.supplySolver);
   return store;
 }

@@ -18,6 +18,8 @@ export interface AmplifierOnSupplyResult {
   readonly supply: SupplySolution;
   /** Each stage's B+ as its node delivers it under the whole amplifier's current, V. */
   readonly bplus: readonly number[];
+  /** The current drawn at each node (every channel's stages, plus the supply's own loads), A. */
+  readonly loads: readonly number[];
   readonly iterations: number;
 }
 
@@ -49,11 +51,12 @@ export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSuppl
   const own = Array.isArray(supply.loads) ? supply.loads : [];
   let volts: number[] | null = null;
   let last: { amplifier: ChainResult; supply: SupplySolution; bplus: number[] } | null = null;
+  let loads: number[] = [];
   for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
     const bplus = stages.map((s, i) => (volts ? volts[feeds[i]!]! : s.bplus));
     const chain = solveAmplifier({ ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) });
     if (!chain.ok) return chain;
-    const loads = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
+    loads = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
     const solved = solveSupply({ ...supply, loads }, volts ? { start: volts } : {});
     if (!solved.ok) return solved;
     const next = solved.nodes.map((n) => n.dc);
@@ -64,7 +67,7 @@ export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSuppl
     if (settled || moved <= VOLT_TOL / 10) {
       const { ok: _a, ...amp } = chain;
       const { ok: _s, ...sup } = solved;
-      return { ok: true, amplifier: amp, supply: sup, bplus, iterations: iteration };
+      return { ok: true, amplifier: amp, supply: sup, bplus, loads, iterations: iteration };
     }
   }
   return fail('no-convergence', 'The stages and the supply did not agree on the B+ within 30 rounds: check the loads and the filter', 'supply');

@@ -10,6 +10,8 @@ export const BLEED_SECONDS = 30;
 export type Bleeder = { readonly needed: false } | NeededBleeder;
 
 const MAX_BLEEDER_OHMS = 10e6;
+/** Resistor power ratings commonly stocked, W. */
+const POWER_RATINGS = [0.25, 0.5, 1, 2, 3, 5, 7, 10, 15, 25, 50];
 
 export interface NeededBleeder {
   readonly needed: true;
@@ -17,6 +19,8 @@ export interface NeededBleeder {
   readonly ohms: number;
   /** What it dissipates at the highest voltage it sees (the no-load peak), W; common practice: a part rated at twice this. */
   readonly watts: number;
+  /** The power rating to buy: the first common rating at least twice `watts` (common practice), W. */
+  readonly partWatts: number;
   /** The current it adds to the supply's load at the running voltage, A. */
   readonly amps: number;
   /** How long it takes to bring the capacitors from the no-load peak to the safe voltage, s. */
@@ -43,5 +47,7 @@ export function bleederFor(capacitance: number, peakVolts: number, runningVolts:
   const mantissa = exact / decade;
   const below = [...E12].reverse().find((m) => m <= mantissa * (1 + 1e-9)) ?? E12[0]!;
   const ohms = below * decade;
-  return { ok: true, needed: true, ohms, watts: (peakVolts * peakVolts) / ohms, amps: runningVolts / ohms, seconds: ohms * capacitance * Math.log(peakVolts / safeVolts) };
+  const watts = (peakVolts * peakVolts) / ohms;
+  const partWatts = POWER_RATINGS.find((w) => w >= 2 * watts) ?? 2 * watts;
+  return { ok: true, needed: true, ohms, watts, partWatts, amps: runningVolts / ohms, seconds: ohms * capacitance * Math.log(peakVolts / safeVolts) };
 }

@@ -52,6 +52,7 @@ describe('the amplifier on its supply, solved as one', () => {
     expectClose(n1! - n2!, 2 * input!.supplyCurrent * 10e3, { rel: 0.002 }, '10k section, two channels');
     expectClose(n0! - n1!, 2 * (input!.supplyCurrent + follower!.supplyCurrent) * 1e3, { rel: 0.002 }, '1k section, two channels');
     expect(stereo.bplus[2]!).toBeLessThan(mono.bplus[2]! - 2);
+    expectClose(stereo.loads[2]!, 2 * input!.supplyCurrent, { rel: 1e-12 }, 'node 3 carries both input stages');
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], channels: 1.5 })).toMatchObject({ ok: false, field: 'channels' });
   });
 

@@ -10,6 +10,7 @@ describe('the bleeder that makes the filter capacitors safe to touch', () => {
     expect(r.seconds).toBeLessThan(30);
     expect(r.seconds).toBeCloseTo(68e3 * 200e-6 * Math.log(400 / 60), 9);
     expect(r.watts).toBeCloseTo((400 * 400) / 68e3, 9);
+    expect(r.partWatts).toBe(5); // 2.35 W at the peak: twice that is 4.7 W (common practice), so a 5 W part
     expect(r.amps).toBeCloseTo(350 / 68e3, 12);
   });
 

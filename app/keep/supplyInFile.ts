@@ -1,0 +1,55 @@
+import { findRectifierTube, type FilterSection, type Rectifier, type SupplyDesign } from '../../src/index';
+import { checkPlan, DEMO_SUPPLY, type SupplyPlan } from '../store/supplyPlan';
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const isNum = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+const quote = (v: unknown) => (v === undefined ? 'nothing' : JSON.stringify(v) ?? String(v));
+
+/**
+ * A design file's `supply` section: its shape checked here, its values by
+ * the same checks as typing them (checkPlan: the model's own limits). A file
+ * written before the supply was part of a design opens with the bench's
+ * default supply, which changes none of the design's values.
+ */
+export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | { ok: false; message: string } {
+  if (raw === undefined) return { ok: true, plan: DEMO_SUPPLY };
+  const bad = (path: string, what: string, found: unknown) => ({ ok: false as const, message: `design.supply${path} ${what} (found ${quote(found)}). Nothing was opened.` });
+  if (!isRecord(raw)) return bad('', 'must be an object', raw);
+  if (typeof raw.on !== 'boolean') return bad('.on', 'must be true or false', raw.on);
+  for (const key of ['mainsHz', 'secondaryRms', 'windingOhms', 'channels'] as const) if (!isNum(raw[key])) return bad(`.${key}`, 'must be a number', raw[key]);
+  for (const key of ['secondaryAmps', 'humRms'] as const) if (raw[key] !== null && !isNum(raw[key])) return bad(`.${key}`, 'must be a number or null', raw[key]);
+  const r = raw.rectifier;
+  let rectifier: Rectifier;
+  if (isRecord(r) && (r.kind === 'silicon-bridge' || r.kind === 'silicon-full-wave')) rectifier = { kind: r.kind };
+  else if (isRecord(r) && r.kind === 'tube' && typeof r.tubeId === 'string' && findRectifierTube(r.tubeId)) rectifier = { kind: 'tube', tubeId: findRectifierTube(r.tubeId)!.id };
+  else return bad('.rectifier', 'must be a silicon bridge, silicon full wave or a known rectifier tube', r);
+  const i = raw.input;
+  let input: SupplyDesign['input'];
+  if (isRecord(i) && i.kind === 'capacitor' && isNum(i.c)) input = { kind: 'capacitor', c: i.c };
+  else if (isRecord(i) && i.kind === 'choke' && isNum(i.c) && isNum(i.l) && isNum(i.rdc)) input = { kind: 'choke', l: i.l, rdc: i.rdc, c: i.c };
+  else return bad('.input', 'must be a capacitor (c) or a choke (l, rdc, c)', i);
+  if (!Array.isArray(raw.sections)) return bad('.sections', 'must be a list', raw.sections);
+  const sections: FilterSection[] = [];
+  for (const [k, s] of raw.sections.entries()) {
+    if (isRecord(s) && s.kind === 'rc' && isNum(s.r) && isNum(s.c)) sections.push({ kind: 'rc', r: s.r, c: s.c });
+    else if (isRecord(s) && s.kind === 'lc' && isNum(s.l) && isNum(s.rdc) && isNum(s.c)) sections.push({ kind: 'lc', l: s.l, rdc: s.rdc, c: s.c });
+    else return bad(`.sections[${k}]`, 'must be an R–C (r, c) or L–C (l, rdc, c) section', s);
+  }
+  const f = raw.feeds;
+  if (!isRecord(f) || !isNum(f.output) || !isNum(f.voltage)) return bad('.feeds', 'must name the output and voltage stages\' nodes', f);
+  const plan: SupplyPlan = {
+    on: raw.on,
+    mainsHz: raw.mainsHz as number,
+    secondaryRms: raw.secondaryRms as number,
+    windingOhms: raw.windingOhms as number,
+    rectifier,
+    input,
+    sections,
+    feeds: { output: f.output, voltage: f.voltage },
+    channels: raw.channels as number,
+    secondaryAmps: raw.secondaryAmps as number | null,
+    humRms: raw.humRms as number | null,
+  };
+  const problem = checkPlan(plan);
+  return problem ? { ok: false, message: `design.supply: ${problem.message}. Nothing was opened.` } : { ok: true, plan };
+}

@@ -1,0 +1,92 @@
+import { checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
+import { chainInputOf, type ChainCardName } from './amplifierChain';
+import type { BenchDesign } from './analysis';
+
+/**
+ * The B+ supply as the bench holds it: the transformer, rectifier and filter
+ * (the model's SupplyDesign without the loads, which the amplifier's stages
+ * draw), which node feeds which stage, and what the parts are rated for.
+ */
+export interface SupplyPlan {
+  /** Solve the amplifier on this supply: every stage at the voltage its node delivers. */
+  readonly on: boolean;
+  readonly mainsHz: number;
+  /** Secondary rms voltage (each half of a centre-tapped winding), V. */
+  readonly secondaryRms: number;
+  readonly windingOhms: number;
+  readonly rectifier: Rectifier;
+  readonly input: SupplyDesign['input'];
+  readonly sections: readonly FilterSection[];
+  /** The node (0 the reservoir, then one per section) feeding the output stage, and the one feeding the voltage stages. */
+  readonly feeds: { readonly output: number; readonly voltage: number };
+  /** Identical channels on the supply (2 for stereo). */
+  readonly channels: number;
+  /** The secondary's rated current, A (each half of a centre-tapped winding); null when not known. */
+  readonly secondaryAmps: number | null;
+  /** The most ripple (rms) the voltage stages' node may carry, V; null for no budget. */
+  readonly humRms: number | null;
+}
+
+/**
+ * The supply the bench opens on, of our own: 260 V a side full-wave with
+ * silicon diodes, a 100 µF reservoir feeding the output stage, then 1 kΩ and
+ * 10 kΩ sections of 47 µF down to the voltage stages; a 200 mA winding, and
+ * a hum budget of 5 mV rms on the input stage's node (common practice for a
+ * quiet first stage).
+ */
+export const DEMO_SUPPLY: SupplyPlan = {
+  on: true,
+  mainsHz: 50,
+  secondaryRms: 260,
+  windingOhms: 35,
+  rectifier: { kind: 'silicon-full-wave' },
+  input: { kind: 'capacitor', c: 100e-6 },
+  sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 10e3, c: 47e-6 }],
+  feeds: { output: 0, voltage: 2 },
+  channels: 1,
+  secondaryAmps: 0.2,
+  humRms: 0.005,
+};
+
+/** The model's supply for a plan, drawing nothing of its own (the stages' currents are added when it is solved). */
+export function supplyDesignOf(p: SupplyPlan): SupplyDesign {
+  const nodes = p.sections.length + 1;
+  const ratings = {
+    ...(p.secondaryAmps !== null ? { secondaryAmps: p.secondaryAmps } : {}),
+    ...(p.humRms !== null ? { hum: { node: p.feeds.voltage, maxRippleRms: p.humRms } } : {}),
+  };
+  return {
+    mainsHz: p.mainsHz,
+    secondaryRms: p.secondaryRms,
+    windingOhms: p.windingOhms,
+    rectifier: p.rectifier,
+    input: p.input,
+    sections: p.sections,
+    loads: new Array<number>(nodes).fill(0),
+    ...(Object.keys(ratings).length > 0 ? { ratings } : {}),
+  };
+}
+
+/** The plan's first problem (the model's check, then the feeds and channels), or null. */
+export function checkPlan(p: SupplyPlan): Failure | null {
+  const problem = checkSupply(supplyDesignOf(p));
+  if (problem) return problem;
+  const nodes = p.sections.length + 1;
+  for (const which of ['output', 'voltage'] as const) {
+    const k = p.feeds[which];
+    if (!Number.isInteger(k) || k < 0 || k >= nodes) return { ok: false, reason: 'invalid-input', message: `The ${which} stage's node must be 1 to ${nodes}`, field: `feeds.${which}` };
+  }
+  if (!Number.isInteger(p.channels) || p.channels < 1 || p.channels > MAX_CHANNELS) {
+    return { ok: false, reason: 'invalid-input', message: `Channels must be a whole number from 1 to ${MAX_CHANNELS}`, field: 'channels' };
+  }
+  return null;
+}
+
+/** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node. */
+export function onSupplyInputOf(d: BenchDesign): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
+  const chain = chainInputOf(d);
+  if (!chain) return null;
+  const p = d.supply;
+  const feeds = chain.names.map((n) => (n.bench === 'output' ? p.feeds.output : p.feeds.voltage));
+  return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, channels: p.channels }, names: chain.names };
+}

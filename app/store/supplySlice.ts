@@ -1,0 +1,212 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { bleederFor, parseValue, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result } from '../../src/index';
+import type { ChainCardName } from './amplifierChain';
+import type { BenchDesign } from './analysis';
+import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
+import { compact } from './fields';
+import { DEMO_DESIGN } from './demoDesign';
+import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
+
+/** What the supply view shows: the amplifier solved on its supply, and the bleeder its capacitors need. */
+export interface SupplyView {
+  readonly result: Result<AmplifierOnSupplyResult>;
+  /** The chain's stages, in order, and the node each draws from. */
+  readonly names: readonly ChainCardName[];
+  readonly feeds: readonly number[];
+  readonly bleeder: Result<Bleeder> | null;
+  /** True while the design has moved on and the new solve has not come back. */
+  readonly stale: boolean;
+}
+
+/** The supply's typed values: the plan's path ("secondaryRms", "input.c", "sections.1.r") to the text in its box. */
+export type SupplyDrafts = Readonly<Record<string, string>>;
+
+export interface SupplySlice {
+  supplyView: SupplyView | null;
+  supplyDrafts: SupplyDrafts;
+  /** Messages by the same paths, and "supply" for the plan as a whole. */
+  supplyErrors: Readonly<Record<string, string>>;
+  /** Types a value into one of the supply's boxes: held when the model can use it, else a message beside it. */
+  editSupplyValue: (path: string, text: string) => void;
+  /** Changes the plan's choices (rectifier, input kind, feeds, channels, on); a plan the model refuses leaves a message. */
+  setSupply: (patch: Partial<SupplyPlan>) => void;
+  addSection: (kind: FilterSection['kind']) => void;
+  removeSection: (index: number) => void;
+  /** Sets each stage's B+ to what its node delivers under the whole amplifier's current. */
+  useSupplyVolts: () => void;
+}
+
+/** The plan's values that have boxes, by path, with how each is shown. */
+export function supplyDraftsFor(p: SupplyPlan): Record<string, string> {
+  const out: Record<string, string> = {
+    secondaryRms: compact(p.secondaryRms),
+    windingOhms: compact(p.windingOhms),
+    'input.c': compact(p.input.c),
+    secondaryAmps: p.secondaryAmps === null ? 'none' : compact(p.secondaryAmps),
+    humRms: p.humRms === null ? 'none' : compact(p.humRms),
+  };
+  if (p.input.kind === 'choke') {
+    out['input.l'] = compact(p.input.l);
+    out['input.rdc'] = compact(p.input.rdc);
+  }
+  p.sections.forEach((s, k) => {
+    out[`sections.${k}.c`] = compact(s.c);
+    if (s.kind === 'rc') out[`sections.${k}.r`] = compact(s.r);
+    else {
+      out[`sections.${k}.l`] = compact(s.l);
+      out[`sections.${k}.rdc`] = compact(s.rdc);
+    }
+  });
+  return out;
+}
+
+/** The plan with one value replaced at its path. */
+function putAt(p: SupplyPlan, path: string, value: number | null): SupplyPlan {
+  const [head, index, key] = path.split('.');
+  if (head === 'input' && index) return { ...p, input: { ...p.input, [index]: value } as SupplyPlan['input'] };
+  if (head === 'sections' && index !== undefined && key) {
+    const k = Number(index);
+    return { ...p, sections: p.sections.map((s, i) => (i === k ? ({ ...s, [key]: value } as FilterSection) : s)) };
+  }
+  return { ...p, [path]: value };
+}
+
+/** Where a value may be left empty ("none"): the ratings the builder may not know. */
+const MAY_BE_NONE = new Set(['secondaryAmps', 'humRms']);
+
+/** A new section's values: a 10 kΩ, 47 µF R–C, or a 10 H, 200 Ω choke into 47 µF (common practice). */
+const NEW_SECTION: Record<FilterSection['kind'], FilterSection> = {
+  rc: { kind: 'rc', r: 10e3, c: 47e-6 },
+  lc: { kind: 'lc', l: 10, rdc: 200, c: 47e-6 },
+};
+
+export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice> = (set, get) => {
+  /** Puts a plan in the design when the model accepts it; otherwise the message goes to `at` (or the field the model names). */
+  const tryPlan = (plan: SupplyPlan, at: string): boolean => {
+    const s = get();
+    const problem = checkPlan(plan);
+    if (problem) {
+      set({ supplyErrors: { ...s.supplyErrors, [problem.field && s.supplyDrafts[problem.field] !== undefined ? problem.field : at]: problem.message } });
+      return false;
+    }
+    const failure = s.commit({ ...s.design, supply: plan });
+    if (failure) {
+      set({ supplyErrors: { ...get().supplyErrors, [at]: failure.message } });
+      return false;
+    }
+    return true;
+  };
+  return {
+    supplyView: null,
+    supplyDrafts: supplyDraftsFor(DEMO_DESIGN.supply),
+    supplyErrors: {},
+
+    editSupplyValue: (path, text) => {
+      const s = get();
+      set({ supplyDrafts: { ...s.supplyDrafts, [path]: text } });
+      const t = text.trim().toLowerCase();
+      let value: number | null;
+      if (MAY_BE_NONE.has(path) && (t === '' || t === 'none')) value = null;
+      else {
+        const read = parseValue(text);
+        if (!read.ok) {
+          set({ supplyErrors: { ...get().supplyErrors, [path]: read.message } });
+          return;
+        }
+        value = read.value;
+      }
+      const errors = { ...get().supplyErrors };
+      delete errors[path];
+      delete errors.supply;
+      set({ supplyErrors: errors });
+      if (tryPlan(putAt(s.design.supply, path, value), path)) set({ supplyDrafts: { ...supplyDraftsFor(get().design.supply), [path]: text } });
+    },
+
+    setSupply: (patch) => {
+      const s = get();
+      const errors = { ...s.supplyErrors };
+      delete errors.supply;
+      set({ supplyErrors: errors });
+      if (tryPlan({ ...s.design.supply, ...patch }, 'supply')) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
+    },
+
+    addSection: (kind) => {
+      const p = get().design.supply;
+      if (tryPlan({ ...p, sections: [...p.sections, NEW_SECTION[kind]] }, 'supply')) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
+    },
+
+    removeSection: (index) => {
+      const p = get().design.supply;
+      const last = p.sections.length - 1;
+      // A stage fed from a node that goes moves to the node before it.
+      const node = (k: number) => (k > index ? k - 1 : k);
+      const plan = { ...p, sections: p.sections.filter((_, i) => i !== index), feeds: { output: Math.min(node(p.feeds.output), last), voltage: Math.min(node(p.feeds.voltage), last) } };
+      if (tryPlan(plan, 'supply')) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
+    },
+
+    useSupplyVolts: () => {
+      const s = get();
+      const view = s.supplyView;
+      if (!view || !view.result.ok || view.stale) return;
+      const at = (bench: 'voltage' | 'output') => {
+        const i = view.names.findIndex((n) => n.bench === bench);
+        return i < 0 ? null : Math.round(view.result.ok ? view.result.bplus[i]! : 0);
+      };
+      const v = at('voltage');
+      const o = at('output');
+      const next: BenchDesign = { ...s.design, ...(v !== null ? { bplus: v } : {}), ...(o !== null ? { output: { ...s.design.output, bplus: o } } : {}) };
+      const failure = s.commit(next);
+      if (failure) set({ supplyErrors: { ...get().supplyErrors, supply: `These B+ cannot be used: ${failure.message}` } });
+    },
+  };
+};
+
+/** Solves the amplifier on its supply somewhere (a Web Worker in the browser). */
+export type SupplySolver = (input: AmplifierOnSupply) => Promise<Result<AmplifierOnSupplyResult> | 'cancelled'>;
+
+/** How long the design must hold still before the supply is solved again, ms. */
+export const SUPPLY_SETTLE_MS = 150;
+
+/** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */
+function bleederOf(d: BenchDesign, r: Result<AmplifierOnSupplyResult>): Result<Bleeder> | null {
+  if (!r.ok) return null;
+  const p = d.supply;
+  const total = p.input.c + p.sections.reduce((a, s) => a + s.c, 0);
+  return bleederFor(total, r.supply.noLoadVolts, Math.min(r.supply.nodes[0]!.dc, r.supply.noLoadVolts));
+}
+
+/**
+ * Keeps the supply view following the design: solved once the design holds
+ * still (SUPPLY_SETTLE_MS after the last full analysis), marked stale while
+ * a drag or typing runs ahead of it; a late answer to an older design is
+ * dropped. Without a solver (tests that do not ask for one) nothing runs.
+ */
+export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null): void {
+  if (!solver) return;
+  let job = 0;
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const schedule = () => {
+    clearTimeout(timer);
+    timer = setTimeout(() => {
+      const d = store.getState().design;
+      const chain = d.supply.on ? onSupplyInputOf(d) : null;
+      if (!chain) {
+        store.setState({ supplyView: null });
+        return;
+      }
+      const mine = ++job;
+      void solver(chain.input).then((r) => {
+        if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
+        store.setState({ supplyView: { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false } });
+      });
+    }, SUPPLY_SETTLE_MS);
+  };
+  store.subscribe((s, prev) => {
+    if (s.design === prev.design && s.amplifier === prev.amplifier) return;
+    const view = s.supplyView;
+    if (view && !view.stale) store.setState({ supplyView: { ...view, stale: true } });
+    // A drag or keystroke shows the amplifier marked behind: the supply waits for the full pass too.
+    if (!s.amplifier?.stale) schedule();
+  });
+  schedule();
+}

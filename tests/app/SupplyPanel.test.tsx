@@ -1,0 +1,97 @@
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { act } from 'react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
+import { DEMO_SUPPLY } from '../../app/store/supplyPlan';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { solveOnSupply } from '../../src/index';
+
+/** The workbench with the supply solved in place (the page uses a Web Worker; jsdom has none). */
+function bench() {
+  const store = createWorkbenchStore({ supplySolver: async (input) => solveOnSupply(input) });
+  render(<App store={store} />);
+  const panel = within(screen.getByRole('region', { name: 'B+ supply' }));
+  return { store, panel };
+}
+
+const nodeDc = (node: number) => document.querySelector(`tr[data-node="${node}"] [data-figure="node-dc"]`)?.textContent;
+
+describe('the B+ supply on the bench', () => {
+  it('solves the demo amplifier on its supply: every node, which stage it feeds, the cautions and the bleeder', async () => {
+    const { store, panel } = bench();
+    expect(panel.getByRole('note').textContent).toMatch(/Lethal voltages.*licensed electrician/s);
+    await waitFor(() => expect(panel.getByTestId('supply-results')).toBeTruthy(), { timeout: 5000 });
+    const view = store.getState().supplyView!;
+    if (!view.result.ok) throw new Error(view.result.message);
+    // Three nodes: the output stage on the reservoir, the voltage stage at the end of the ladder (DEMO_SUPPLY).
+    expect(panel.getAllByRole('row')).toHaveLength(1 + 3);
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '1')).getByText(/Output \(EL34\)/)).toBeTruthy();
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '3')).getByText(/Stage 1 \(12AU7\)/)).toBeTruthy();
+    // B+ falls down the ladder, each node's shown value the model's.
+    const dcs = view.result.supply.nodes.map((n) => n.dc);
+    expect(dcs[0]!).toBeGreaterThan(dcs[1]!);
+    expect(dcs[1]!).toBeGreaterThan(dcs[2]!);
+    expect(nodeDc(1)).toBe(`${Number(dcs[0]!.toPrecision(3))} V`);
+    // The winding's 200 mA rating and the 5 mV hum budget are checked (notes: well within both).
+    const ratings = within(panel.getByRole('list', { name: 'The supply against its ratings' }));
+    expect(ratings.getByText(/winding|secondary/i)).toBeTruthy();
+    expect(ratings.getByText(/hum|ripple/i)).toBeTruthy();
+    expect(panel.getByTestId('bleeder').textContent).toMatch(/^Bleeder: .*Ω across node 1 brings every capacitor under 60 V in .* s/);
+  });
+
+  it('takes the supply\'s B+ onto the bench, and the bench then holds them', async () => {
+    const { store, panel } = bench();
+    const use = await panel.findByRole('button', { name: 'Use these B+ on the bench' }, { timeout: 5000 });
+    const r = store.getState().supplyView!.result;
+    if (!r.ok) throw new Error(r.message);
+    fireEvent.click(use);
+    expect(store.getState().design.bplus).toBe(Math.round(r.bplus[0]!));
+    expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[1]!));
+    await waitFor(() => expect(panel.getByText('The bench\'s B+ are the supply\'s.')).toBeTruthy(), { timeout: 5000 });
+  });
+
+  it('a bad value gets a message beside its box and the last good supply stays; undo brings a changed one back', async () => {
+    const { store, panel } = bench();
+    const secondary = panel.getByRole('textbox', { name: /^Secondary, each half/ });
+    fireEvent.change(secondary, { target: { value: '2x0' } });
+    expect(panel.getByRole('alert').textContent).toBeTruthy();
+    expect(store.getState().design.supply.secondaryRms).toBe(260);
+    const reservoir = panel.getByRole('textbox', { name: /^Node 1 capacitor/ });
+    fireEvent.change(reservoir, { target: { value: '0' } });
+    expect(within(reservoir.parentElement!).getByRole('alert').textContent).toMatch(/Node 1|capacit|above 0/i);
+    expect(store.getState().design.supply.input.c).toBe(100e-6);
+    fireEvent.change(reservoir, { target: { value: '220u' } });
+    expect(store.getState().design.supply.input.c).toBeCloseTo(220e-6, 12);
+    act(() => store.getState().undo());
+    expect(store.getState().design.supply.input.c).toBe(100e-6);
+    expect(reservoir).toHaveProperty('value', '100u');
+  });
+
+  it('adds and removes filter sections; a stage fed from a node that goes moves to the node before it', () => {
+    const { store, panel } = bench();
+    fireEvent.click(panel.getByRole('button', { name: 'Add an L–C section' }));
+    expect(store.getState().design.supply.sections).toHaveLength(3);
+    expect(panel.getByRole('textbox', { name: /^Node 4: choke/ })).toBeTruthy();
+    fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 3' }));
+    fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 3' }));
+    expect(store.getState().design.supply.sections).toHaveLength(1);
+    expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1 });
+  });
+
+  it('is kept in the design file; a file from before the supply opens on the default one', () => {
+    const store = createWorkbenchStore({ supplySolver: null });
+    store.getState().setSupply({ channels: 2, rectifier: { kind: 'tube', tubeId: '5AR4' } });
+    const text = writeDesignFile({ title: 't', design: store.getState().design });
+    const back = readDesignFile(text);
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc.design.supply).toEqual(store.getState().design.supply);
+    const old = JSON.parse(text);
+    delete old.design.supply;
+    const opened = readDesignFile(JSON.stringify(old));
+    if (!opened.ok) throw new Error(opened.message);
+    expect(opened.doc.design.supply).toBe(DEMO_SUPPLY);
+    old.design.supply = { ...store.getState().design.supply, sections: [{ kind: 'rc', r: -5, c: 47e-6 }] };
+    expect(readDesignFile(JSON.stringify(old))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.supply: Section 1: .*Nothing was opened\.$/) });
+  });
+});
