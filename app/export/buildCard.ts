@@ -8,6 +8,7 @@ import { outputCardSections } from './outputCard';
 import { elevationAdvice } from '../panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection } from './amplifierLines';
+import { supplySection } from './supplyLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
 export const CARD_WIDTH = 1240;
@@ -17,8 +18,9 @@ const MARGIN = 60;
 /** Everything the card shows, as lines of text, gathered from the store (the model already computed it). */
 export function cardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
   const amplifier = amplifierSection(s);
+  const supply = supplySection(s);
   const stageSections = s.design.stageKind === 'output' ? outputCardSections(s) : voltageCardSections(s);
-  return amplifier ? [amplifier, ...stageSections] : stageSections;
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections];
 }
 
 function voltageCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {

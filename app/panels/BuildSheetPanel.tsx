@@ -87,15 +87,15 @@ export function BuildSheetPanel() {
       {sheet.elevation.ok ? (
         <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p>
       ) : <p className="field-error">{sheet.elevation.message}</p>}
-      <h3 className="subhead">B+ decoupling filter</h3>
+      <h3 className="subhead decoupling">B+ decoupling filter</h3>
       <div className="option-row">
         <NumberInput label={inputs.railVolts === null ? 'Supply rail (follows B+)' : 'Supply rail'} unit="V" value={rail} min={1} onValue={(v) => setInputs({ railVolts: v })} />
         <NumberInput label="Series R" unit="Ω" value={inputs.filterR} min={0} onValue={(v) => setInputs({ filterR: v })} />
         <NumberInput label="Shunt C" unit="µF" value={inputs.filterC * 1e6} min={0.001} onValue={(v) => setInputs({ filterC: v / 1e6 })} />
       </div>
-      <p>{`Total B+ current ${milliamps(sheet.totalBplusAmps)}${sheet.outputBplusAmps > 0 ? `, and ${milliamps(sheet.outputBplusAmps)} for the output stage ahead of the filter (${milliamps(sheet.totalBplusAmps + sheet.outputBplusAmps)} in all)` : ''}.`}</p>
+      <p className="decoupling">{`Total B+ current ${milliamps(sheet.totalBplusAmps)}${sheet.outputBplusAmps > 0 ? `, and ${milliamps(sheet.outputBplusAmps)} for the output stage ahead of the filter (${milliamps(sheet.totalBplusAmps + sheet.outputBplusAmps)} in all)` : ''}.`}</p>
       {sheet.filter.ok ? (
-        <p data-testid="filter">
+        <p data-testid="filter" className="decoupling">
           {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}.${sheet.filteredOp ? ` Stage 1 then sits at Va ${volts(sheet.filteredOp.va)}, Ia ${milliamps(sheet.filteredOp.ia)}.` : ''} `}
           <button type="button" onClick={() => { if (sheet.filter.ok) { editField('bplus', sheet.filter.stageBplus.toFixed(1)); settleField('bplus'); } }}>Use this B+ for the stage</button>
         </p>

@@ -2,6 +2,7 @@ import { fireEvent, render, screen, waitFor, within } from '@testing-library/rea
 import { act } from 'react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
+import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { DEMO_SUPPLY } from '../../app/store/supplyPlan';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
@@ -38,6 +39,13 @@ describe('the B+ supply on the bench', () => {
     expect(ratings.getByText(/winding|secondary/i)).toBeTruthy();
     expect(ratings.getByText(/hum|ripple/i)).toBeTruthy();
     expect(panel.getByTestId('bleeder').textContent).toMatch(/^Bleeder: .*Ω across node 1 brings every capacitor under 60 V in .* s/);
+    // The build card carries it, after the amplifier: the supply, every node and what it feeds, the currents, the bleeder.
+    const card = cardSections(store.getState());
+    expect(card.map((c) => c.heading).slice(0, 2)).toEqual(['Amplifier', 'B+ supply']);
+    const lines = card[1]!.lines;
+    expect(lines[0]).toMatch(/^260 V rms a side, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 1 kΩ \/ 47 µF → 10 kΩ \/ 47 µF$/);
+    expect(lines[1]).toMatch(/^Nodes 1: .* \(output\); 2: .*; 3: .* \(stage 1\)$/);
+    expect(lines.some((l) => /^Bleeder .*Ω, .* W across node 1: under 60 V in/.test(l))).toBe(true);
   });
 
   it('takes the supply\'s B+ onto the bench, and the bench then holds them', async () => {

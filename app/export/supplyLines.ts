@@ -1,0 +1,32 @@
+import { farads, milliamps, ohms, plain, volts, watts } from '../format';
+import type { WorkbenchState } from '../store/workbenchStore';
+
+/**
+ * The B+ supply on the card, in four or five lines: what it is, every
+ * node's voltage and ripple with what it feeds, the rectifier's and
+ * winding's currents and the cold voltage, the bleeder, and the worst of its
+ * ratings. Null when the supply is off or not solved.
+ */
+export function supplySection(s: WorkbenchState): { heading: string; lines: string[] } | null {
+  const p = s.design.supply;
+  const view = s.supplyView;
+  if (!p.on || !view || !view.result.ok) return null;
+  const r = view.result;
+  const rectifier = p.rectifier.kind === 'tube' ? `${p.rectifier.tubeId} rectifier` : p.rectifier.kind === 'silicon-bridge' ? 'silicon bridge' : 'silicon full wave';
+  const filter = [
+    p.input.kind === 'choke' ? `${plain(p.input.l)} H (${ohms(p.input.rdc)}) into ${farads(p.input.c)}` : farads(p.input.c),
+    ...p.sections.map((x) => `${x.kind === 'rc' ? ohms(x.r) : `${plain(x.l)} H (${ohms(x.rdc)})`} / ${farads(x.c)}`),
+  ].join(' → ');
+  const feeds = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => n.title.toLowerCase());
+  const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${plain(n.ripplePp * 1e3)} mV p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
+  const lines = [
+    `${plain(p.secondaryRms)} V rms${p.rectifier.kind === 'silicon-bridge' ? '' : ' a side'}, ${ohms(p.windingOhms)} winding, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
+    `Nodes ${nodes}`,
+    `Rectifier peak ${milliamps(r.supply.rectifierPeak)}, winding ${milliamps(r.supply.secondaryRmsCurrent)} rms (${plain(r.supply.secondaryVa)} VA); ${volts(r.supply.noLoadVolts)} on every capacitor cold`,
+  ];
+  const b = view.bleeder;
+  if (b?.ok && b.needed) lines.push(`Bleeder ${ohms(b.ohms)}, ${watts(b.partWatts)} across node 1: under 60 V in ${plain(b.seconds, 2)} s`);
+  const worst = r.supply.findings.find((f) => f.severity !== 'note');
+  if (worst) lines.push(`${worst.severity === 'danger' ? 'Danger' : 'Warning'}: ${worst.message}`);
+  return { heading: 'B+ supply', lines };
+}
