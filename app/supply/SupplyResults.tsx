@@ -1,8 +1,10 @@
 import { SAFE_DC_VOLTS } from '../../src/index';
 import { farads, milliamps, ohms, plain, volts, watts } from '../format';
 import { useWorkbench } from '../store/StoreProvider';
+import { SupplyWaves } from './SupplyWaves';
 
 const mv = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
+const SAME_BPLUS_SHARE = 0.01;
 const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 1e6)} µA`);
 
 /**
@@ -31,7 +33,8 @@ export function SupplyResults() {
   const feeding = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => `${n.title} (${n.tube})`);
   const held = (bench: 'voltage' | 'output') => (bench === 'output' ? design.output.bplus : design.bplus);
   const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: r.bplus[i]!, bench: held(n.bench) })).filter((x, i, all) => all.findIndex((y) => y.n.bench === x.n.bench) === i);
-  const differs = offBy.some((x) => Math.abs(x.supply - x.bench) >= 1);
+  // Within 1 % is as close as the parts and the mains hold it (common practice: mains ±10 %, resistors ±5 %).
+  const differs = offBy.some((x) => Math.abs(x.supply - x.bench) > SAME_BPLUS_SHARE * x.supply);
   const b = view.bleeder;
   return (
     <div className={`supply-results${view.stale ? ' stale' : ''}`} data-testid="supply-results">
@@ -64,6 +67,7 @@ export function SupplyResults() {
         <div className="figure"><dt>Cold (no load)</dt><dd>{volts(sup.noLoadVolts)}</dd></div>
         {sup.criticalInductance !== null ? <div className="figure"><dt>Critical L</dt><dd>{plain(sup.criticalInductance)} H</dd></div> : null}
       </dl>
+      <SupplyWaves />
       <p className="field-hint">
         Every capacitor sees {volts(sup.noLoadVolts)} when the tubes are cold or pulled{plan.rectifier.kind === 'tube' ? ' (a rectifier tube warms with the heaters and softens this)' : ' (silicon brings B+ up before the heaters warm)'}: rate each above it (common practice).
       </p>
@@ -87,7 +91,7 @@ export function SupplyResults() {
             </li>
           ))}
         </ul>
-        {differs ? <button type="button" onClick={useVolts} disabled={view.stale}>Use these B+ on the bench</button> : <p className="field-hint">The bench's B+ are the supply's.</p>}
+        {differs ? <button type="button" onClick={useVolts} disabled={view.stale}>Use these B+ on the bench</button> : <p className="field-hint">The bench's B+ are the supply's (within 1 %).</p>}
         {!view.names.some((n) => n.bench === 'output') ? <p className="field-hint">The output stage is not joined to the voltage stages (the box at the top), so only they draw from the supply here.</p> : null}
       </div>
       {b && b.ok ? (

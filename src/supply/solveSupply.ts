@@ -11,6 +11,8 @@ const SETTLE_STEPS = 400;
 const MEASURE_STEPS = 4000;
 const MAX_SETTLE_CYCLES = 5000;
 const MAX_FINE_CYCLES = 400;
+/** One in this many measured steps is kept for the waveform (400 points a rectified period). */
+const WAVE_EVERY = 5;
 
 /**
  * The supply in the time domain, at its periodic steady state: backward
@@ -95,6 +97,10 @@ export function solveSupply(d: SupplyDesign, options: SupplySolveOptions | null 
   const h = period / 2 / measured;
   means.fill(0);
   const samples: number[][] = Array.from({ length: n }, () => []);
+  const tStart = t;
+  const waveT: number[] = [];
+  const waveI: number[] = [];
+  const waveV: number[] = [];
   for (let k = 0; k < measured; k++) {
     prev.set(v);
     t += h;
@@ -110,6 +116,11 @@ export function solveSupply(d: SupplyDesign, options: SupplySolveOptions | null 
     }
     iPeak = Math.max(iPeak, inflow);
     iSq += (inflow * inflow) / measured;
+    if ((k + 1) % WAVE_EVERY === 0) {
+      waveT.push(t - tStart);
+      waveI.push(inflow);
+      waveV.push(v[0]!);
+    }
     if (inflow > 1e-9) conducting++;
   }
   for (let m = 0; m < n; m++) for (const x of samples[m]!) sq[m] = sq[m]! + ((x - means[m]!) * (x - means[m]!)) / measured;
@@ -134,6 +145,7 @@ export function solveSupply(d: SupplyDesign, options: SupplySolveOptions | null 
     // Common practice (full wave, from memory of the handbooks' rule): L ≥ R/(3ω) keeps a choke input conducting.
     criticalInductance: choke && totalLoad > 0 ? dcAtInput / totalLoad / (3 * omega) : null,
     cycles,
+    wave: { t: waveT, rectifierAmps: waveI, reservoirVolts: waveV },
     findings: [],
   };
   return { ok: true, ...solution, findings: supplyFindings(d, solution) };

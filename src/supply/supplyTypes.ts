@@ -65,6 +65,12 @@ export interface SupplySolution {
   readonly criticalInductance: number | null;
   /** Mains cycles integrated before the supply settled. */
   readonly cycles: number;
+  /**
+   * One period of the rectified source (half a mains cycle) at the steady
+   * state, from the start of a half-cycle: time, s; the rectifier's current
+   * into the filter, A; the reservoir's voltage, V.
+   */
+  readonly wave: { readonly t: readonly number[]; readonly rectifierAmps: readonly number[]; readonly reservoirVolts: readonly number[] };
   /** The supply against its parts' ratings (supplyFindings), most severe first. */
   readonly findings: readonly Finding[];
 }

@@ -69,6 +69,37 @@ describe('the B+ supply, solved in time', () => {
     }
   });
 
+  // Common practice: at large ωCR the reservoir's ripple is inversely proportional to its capacitance.
+  it('doubling the reservoir about halves its ripple (common practice)', () => {
+    const one = solved({ ...base, input: { kind: 'capacitor', c: 100e-6 } });
+    const two = solved({ ...base, input: { kind: 'capacitor', c: 200e-6 } });
+    const ratio = one.nodes[0]!.ripplePp / two.nodes[0]!.ripplePp;
+    expect(ratio).toBeGreaterThan(1.8);
+    expect(ratio).toBeLessThan(2.2);
+  });
+
+  // Common practice: a choke far below its critical inductance cannot keep conducting, and the supply behaves like a
+  // capacitor input (B+ towards the peak, the rectifier conducting in pulses); above it, the choke input's 0.9 × Vrms.
+  it('a choke input below its critical inductance behaves like a capacitor input (common practice)', () => {
+    const capIn = solved(base);
+    const small = solved({ ...base, input: { kind: 'choke', l: 0.01, rdc: 1, c: 47e-6 } });
+    expect(small.criticalInductance!).toBeGreaterThan(0.01);
+    expect(small.conductionDegrees).toBeLessThan(120);
+    expectClose(small.nodes[0]!.dc, capIn.nodes[0]!.dc, { rel: 0.05 }, 'B+ near the capacitor input\'s');
+    const large = solved({ ...base, input: { kind: 'choke', l: 20, rdc: 1, c: 47e-6 } });
+    expect(large.nodes[0]!.dc).toBeLessThan(0.92 * 250);
+  });
+
+  it('gives one rectified period of the rectifier current and the reservoir voltage, agreeing with its own figures', () => {
+    const r = solved(base);
+    const { t, rectifierAmps, reservoirVolts } = r.wave;
+    expect(t).toHaveLength(400);
+    expectClose(t.at(-1)!, 1 / 100, { rel: 1e-9 }, 'half a 50 Hz cycle');
+    expectClose(Math.max(...rectifierAmps), r.rectifierPeak, { rel: 0.02 }, 'the pulse\'s peak');
+    expectClose(reservoirVolts.reduce((a, b) => a + b, 0) / reservoirVolts.length, r.nodes[0]!.dc, { rel: 1e-3 }, 'the mean');
+    expectClose(Math.max(...reservoirVolts) - Math.min(...reservoirVolts), r.nodes[0]!.ripplePp, { rel: 0.02 }, 'the ripple');
+  });
+
   it('names the field of a bad value', () => {
     expect(solveSupply({ ...base, mainsHz: 400 })).toMatchObject({ ok: false, field: 'mainsHz' });
     expect(solveSupply({ ...base, rectifier: { kind: 'tube', tubeId: '6SN7' } })).toMatchObject({ ok: false, field: 'rectifier' });
