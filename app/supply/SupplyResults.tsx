@@ -38,6 +38,7 @@ export function SupplyResults() {
   const b = view.bleeder;
   return (
     <div className={`supply-results${view.stale ? ' stale' : ''}`} data-testid="supply-results">
+      {view.stale ? <p className="stale-note" role="status">Solving again for the changed design; these figures are from before it.</p> : null}
       <table className="parts-table supply-nodes">
         <caption>Every node under the whole amplifier's current{plan.channels > 1 ? ` (${plan.channels} channels)` : ''}</caption>
         <thead>
