@@ -20,7 +20,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   const feeds = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => n.title.toLowerCase());
   const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${plain(n.ripplePp * 1e3)} mV p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
   const lines = [
-    `${plain(p.secondaryRms)} V rms${p.rectifier.kind === 'silicon-bridge' ? '' : ' a side'}, ${ohms(p.windingOhms)} winding, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
+    `${plain(p.secondaryRms)} V rms${p.rectifier.kind === 'silicon-bridge' ? '' : ' a side'}${p.secondaryAmps !== null ? ` at ${milliamps(p.secondaryAmps)}` : ''}, ${p.regulation !== null ? `${plain(p.regulation * 100)} % regulation` : `${ohms(p.windingOhms)} winding`}, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
     `Nodes ${nodes}`,
     `Rectifier peak ${milliamps(r.supply.rectifierPeak)}, winding ${milliamps(r.supply.secondaryRmsCurrent)} rms (${plain(r.supply.secondaryVa)} VA); ${volts(r.supply.noLoadVolts)} on every capacitor cold`,
   ];

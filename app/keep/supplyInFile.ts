@@ -18,6 +18,8 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   if (typeof raw.on !== 'boolean') return bad('.on', 'must be true or false', raw.on);
   for (const key of ['mainsHz', 'secondaryRms', 'windingOhms', 'channels'] as const) if (!isNum(raw[key])) return bad(`.${key}`, 'must be a number', raw[key]);
   for (const key of ['secondaryAmps', 'humRms'] as const) if (raw[key] !== null && !isNum(raw[key])) return bad(`.${key}`, 'must be a number or null', raw[key]);
+  // Regulation came after the supply itself: a file without it gives the winding's resistance.
+  if (raw.regulation !== undefined && raw.regulation !== null && !isNum(raw.regulation)) return bad('.regulation', 'must be a number or null', raw.regulation);
   const r = raw.rectifier;
   let rectifier: Rectifier;
   if (isRecord(r) && (r.kind === 'silicon-bridge' || r.kind === 'silicon-full-wave')) rectifier = { kind: r.kind };
@@ -49,6 +51,7 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
     channels: raw.channels as number,
     secondaryAmps: raw.secondaryAmps as number | null,
     humRms: raw.humRms as number | null,
+    regulation: (raw.regulation ?? null) as number | null,
   };
   const problem = checkPlan(plan);
   return problem ? { ok: false, message: `design.supply: ${problem.message}. Nothing was opened.` } : { ok: true, plan };

@@ -21,14 +21,16 @@ export interface SupplyPlan {
   readonly feeds: { readonly output: number; readonly voltage: number };
   /** Identical channels on the supply (2 for stereo). */
   readonly channels: number;
-  /** The secondary's rated current, A (each half of a centre-tapped winding); null when not known. */
+  /** The secondary's rated current, A (each half of a centre-tapped winding): its voltage is stated at it, and its current is checked against it; null when not known. */
   readonly secondaryAmps: number | null;
+  /** The winding's regulation (a fraction), in place of its resistance; needs the rated current; null to give the resistance. */
+  readonly regulation: number | null;
   /** The most ripple (rms) the voltage stages' node may carry, V; null for no budget. */
   readonly humRms: number | null;
 }
 
 /**
- * The supply the bench opens on, of our own: 248 V a side full-wave with
+ * The supply the bench opens on, of our own: 241 V a side at 200 mA, full wave with
  * silicon diodes, a 100 µF reservoir feeding the output stage, then 1 kΩ and
  * 11 kΩ sections of 47 µF down to the voltage stage, chosen so the nodes
  * deliver the demo's own B+ (330 V and 275 V, each within 1 %); a 200 mA winding, and
@@ -38,7 +40,7 @@ export interface SupplyPlan {
 export const DEMO_SUPPLY: SupplyPlan = {
   on: true,
   mainsHz: 50,
-  secondaryRms: 248,
+  secondaryRms: 241,
   windingOhms: 35,
   rectifier: { kind: 'silicon-full-wave' },
   input: { kind: 'capacitor', c: 100e-6 },
@@ -46,6 +48,7 @@ export const DEMO_SUPPLY: SupplyPlan = {
   feeds: { output: 0, voltage: 2 },
   channels: 1,
   secondaryAmps: 0.2,
+  regulation: null,
   humRms: 0.005,
 };
 
@@ -60,6 +63,8 @@ export function supplyDesignOf(p: SupplyPlan): SupplyDesign {
     mainsHz: p.mainsHz,
     secondaryRms: p.secondaryRms,
     windingOhms: p.windingOhms,
+    ...(p.secondaryAmps !== null ? { ratedAmps: p.secondaryAmps } : {}),
+    ...(p.regulation !== null ? { regulation: p.regulation } : {}),
     rectifier: p.rectifier,
     input: p.input,
     sections: p.sections,

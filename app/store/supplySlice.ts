@@ -44,6 +44,7 @@ export function supplyDraftsFor(p: SupplyPlan): Record<string, string> {
     'input.c': compact(p.input.c),
     secondaryAmps: p.secondaryAmps === null ? 'none' : compact(p.secondaryAmps),
     humRms: p.humRms === null ? 'none' : compact(p.humRms),
+    regulation: p.regulation === null ? 'none' : compact(p.regulation * 100),
   };
   if (p.input.kind === 'choke') {
     out['input.l'] = compact(p.input.l);
@@ -72,7 +73,9 @@ function putAt(p: SupplyPlan, path: string, value: number | null): SupplyPlan {
 }
 
 /** Where a value may be left empty ("none"): the ratings the builder may not know. */
-const MAY_BE_NONE = new Set(['secondaryAmps', 'humRms']);
+const MAY_BE_NONE = new Set(['secondaryAmps', 'humRms', 'regulation']);
+/** Values typed in a display unit: regulation in percent, held as a fraction. */
+const TYPED_SCALE: Readonly<Record<string, number>> = { regulation: 0.01 };
 
 /** A new section's values: a 10 kΩ, 47 µF R–C, or a 10 H, 200 Ω choke into 47 µF (common practice). */
 const NEW_SECTION: Record<FilterSection['kind'], FilterSection> = {
@@ -113,7 +116,7 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
           set({ supplyErrors: { ...get().supplyErrors, [path]: read.message } });
           return;
         }
-        value = read.value;
+        value = read.value * (TYPED_SCALE[path] ?? 1);
       }
       const errors = { ...get().supplyErrors };
       delete errors[path];

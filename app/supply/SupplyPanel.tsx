@@ -50,10 +50,12 @@ export function SupplyPanel() {
               {RECTIFIER_TUBES.map((t) => <option key={t.id} value={`tube:${t.id}`}>{t.id} rectifier tube</option>)}
             </select>
           </div>
+          <p className="field-hint">A transformer's voltage is stated at its rated current; with no load it rises by the winding's drop (its resistance, or its regulation when given).</p>
           <div className="value-grid">
             <SupplyField path="secondaryRms" label={plan.rectifier.kind === 'silicon-bridge' ? 'Secondary' : 'Secondary, each half'} unit="V rms" example="260" />
+            <SupplyField path="secondaryAmps" label="At its rated current" unit="A" example="200m or none" />
             <SupplyField path="windingOhms" label="Winding resistance" unit="Ω" example="35" />
-            <SupplyField path="secondaryAmps" label="Winding rated" unit="A" example="200m or none" />
+            <SupplyField path="regulation" label="Or its regulation" unit="%" example="8 or none" />
             <SupplyField path="humRms" label="Hum budget, voltage stages" unit="V rms" example="5m or none" />
           </div>
           <h3>Filter</h3>

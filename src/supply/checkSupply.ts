@@ -22,6 +22,9 @@ export function checkSupply(d: unknown): Failure | null {
     checkNumber('mainsHz', 'Mains frequency', s.mainsHz, 'Hz', 40, 70) ??
     checkNumber('secondaryRms', 'Secondary voltage', s.secondaryRms, 'V', 1, 2000) ??
     checkNumber('windingOhms', 'Winding resistance', s.windingOhms, 'Ω', 0, 10_000) ??
+    (s.ratedAmps === undefined ? null : checkNumber('ratedAmps', 'The current the secondary voltage is rated at', s.ratedAmps, 'A', 0.001, 100)) ??
+    (s.regulation === undefined ? null : checkNumber('regulation', 'Regulation', s.regulation, '', 0, 0.5)) ??
+    (s.regulation !== undefined && s.ratedAmps === undefined ? fail('invalid-input', 'Regulation needs the rated current it is stated at', 'ratedAmps') : null) ??
     rectifierProblem;
   if (first) return first;
   const input = s.input as { kind?: unknown; c?: unknown; l?: unknown; rdc?: unknown } | undefined;

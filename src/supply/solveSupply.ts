@@ -3,6 +3,7 @@ import { checkSupply } from './checkSupply';
 import { dropLaw } from './rectifierLaw';
 import { shootSteadyState } from './shootSteadyState';
 import { supplyFindings } from './supplyFindings';
+import { openCircuitWinding } from './winding';
 import { supplyStepper, type SupplyStepper } from './supplyStepper';
 import type { SupplyDesign, SupplyNode, SupplySolution } from './supplyTypes';
 
@@ -28,9 +29,12 @@ export interface SupplySolveOptions {
   readonly steady?: 'shooting' | 'marching';
 }
 
-export function solveSupply(d: SupplyDesign, options: SupplySolveOptions | null = {}): Result<SupplySolution> {
-  const problem = checkSupply(d);
+export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | null = {}): Result<SupplySolution> {
+  const problem = checkSupply(asked);
   if (problem) return problem;
+  // From here on the secondary is its open-circuit voltage behind its resistance.
+  const winding = openCircuitWinding(asked);
+  const d: SupplyDesign = { ...asked, secondaryRms: winding.emfRms, windingOhms: winding.ohms };
   const law = dropLaw(d.rectifier)!;
   const st = supplyStepper(d, law);
   const n = st.nodes;
@@ -140,7 +144,8 @@ export function solveSupply(d: SupplyDesign, options: SupplySolveOptions | null 
     rectifierRms,
     conductionDegrees: (conducting / measured) * 180,
     secondaryRmsCurrent,
-    secondaryVa: (centreTapped ? 2 : 1) * d.secondaryRms * secondaryRmsCurrent,
+    // Rated as a transformer is: its rated-load voltage times the current.
+    secondaryVa: (centreTapped ? 2 : 1) * asked.secondaryRms * secondaryRmsCurrent,
     noLoadVolts: peak,
     // Common practice (full wave, from memory of the handbooks' rule): L ≥ R/(3ω) keeps a choke input conducting.
     criticalInductance: choke && totalLoad > 0 ? dcAtInput / totalLoad / (3 * omega) : null,
@@ -148,7 +153,7 @@ export function solveSupply(d: SupplyDesign, options: SupplySolveOptions | null 
     wave: { t: waveT, rectifierAmps: waveI, reservoirVolts: waveV },
     findings: [],
   };
-  return { ok: true, ...solution, findings: supplyFindings(d, solution) };
+  return { ok: true, ...solution, findings: supplyFindings(asked, solution) };
 }
 
 /**

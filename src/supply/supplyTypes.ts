@@ -12,6 +12,14 @@ export interface SupplyDesign {
   readonly secondaryRms: number;
   /** The winding's resistance as the rectifier sees it (each half for a centre-tapped winding), Ω. */
   readonly windingOhms: number;
+  /**
+   * The current `secondaryRms` is stated at (the winding's rated current), A:
+   * its open-circuit voltage is then higher by the drop in the winding
+   * (openCircuitWinding). Left out, `secondaryRms` is the open-circuit voltage.
+   */
+  readonly ratedAmps?: number;
+  /** The winding's regulation (no-load rise over the rated-load voltage, a fraction); with `ratedAmps`, it sets the winding's resistance in place of `windingOhms`. */
+  readonly regulation?: number;
   readonly rectifier: Rectifier;
   /** The reservoir: a capacitor straight after the rectifier, or a choke (L, DCR) then a capacitor. */
   readonly input: { readonly kind: 'capacitor'; readonly c: number } | { readonly kind: 'choke'; readonly l: number; readonly rdc: number; readonly c: number };

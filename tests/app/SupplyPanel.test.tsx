@@ -43,7 +43,7 @@ describe('the B+ supply on the bench', () => {
     const card = cardSections(store.getState());
     expect(card.map((c) => c.heading).slice(0, 2)).toEqual(['Amplifier', 'B+ supply']);
     const lines = card[1]!.lines;
-    expect(lines[0]).toMatch(/^248 V rms a side, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 1 kΩ \/ 47 µF → 11 kΩ \/ 47 µF$/);
+    expect(lines[0]).toMatch(/^241 V rms a side at 200 mA, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 1 kΩ \/ 47 µF → 11 kΩ \/ 47 µF$/);
     expect(lines[1]).toMatch(/^Nodes 1: .* \(output\); 2: .*; 3: .* \(stage 1\)$/);
     expect(lines.some((l) => /^Bleeder .*Ω, .* W across node 1: under 60 V in/.test(l))).toBe(true);
   });
@@ -67,11 +67,14 @@ describe('the B+ supply on the bench', () => {
     const secondary = panel.getByRole('textbox', { name: /^Secondary, each half/ });
     fireEvent.change(secondary, { target: { value: '2x0' } });
     expect(panel.getByRole('alert').textContent).toBeTruthy();
-    expect(store.getState().design.supply.secondaryRms).toBe(248);
+    expect(store.getState().design.supply.secondaryRms).toBe(241);
     const reservoir = panel.getByRole('textbox', { name: /^Node 1 capacitor/ });
     fireEvent.change(reservoir, { target: { value: '0' } });
     expect(within(reservoir.parentElement!).getByRole('alert').textContent).toMatch(/Node 1|capacit|above 0/i);
     expect(store.getState().design.supply.input.c).toBe(100e-6);
+    // Regulation is typed in percent and held as a fraction.
+    fireEvent.change(panel.getByRole('textbox', { name: /^Or its regulation/ }), { target: { value: '8' } });
+    expect(store.getState().design.supply.regulation).toBeCloseTo(0.08, 12);
     fireEvent.change(reservoir, { target: { value: '220u' } });
     expect(store.getState().design.supply.input.c).toBeCloseTo(220e-6, 12);
     act(() => store.getState().undo());
@@ -92,12 +95,16 @@ describe('the B+ supply on the bench', () => {
 
   it('is kept in the design file; a file from before the supply opens on the default one', () => {
     const store = createWorkbenchStore({ supplySolver: null });
-    store.getState().setSupply({ channels: 2, rectifier: { kind: 'tube', tubeId: '5AR4' } });
+    store.getState().setSupply({ channels: 2, rectifier: { kind: 'tube', tubeId: '5AR4' }, regulation: 0.08 });
     const text = writeDesignFile({ title: 't', design: store.getState().design });
     const back = readDesignFile(text);
     if (!back.ok) throw new Error(back.message);
     expect(back.doc.design.supply).toEqual(store.getState().design.supply);
     const old = JSON.parse(text);
+    // A supply from before regulation was given opens with the winding's resistance.
+    delete old.design.supply.regulation;
+    const earlier = readDesignFile(JSON.stringify(old));
+    expect(earlier.ok && earlier.doc.design.supply.regulation).toBe(null);
     delete old.design.supply;
     const opened = readDesignFile(JSON.stringify(old));
     if (!opened.ok) throw new Error(opened.message);

@@ -100,6 +100,22 @@ describe('the B+ supply, solved in time', () => {
     expectClose(Math.max(...reservoirVolts) - Math.min(...reservoirVolts), r.nodes[0]!.ripplePp, { rel: 0.02 }, 'the ripple');
   });
 
+  // A transformer is rated by its voltage at its rated current: with the winding's resistance all of its regulation,
+  // the open-circuit voltage is V + I·R (and with regulation r, V·(1 + r) behind V·r/I).
+  it('a secondary rated at its current is the same supply as its open-circuit voltage behind the winding', () => {
+    const rated = solved({ ...base, ratedAmps: 0.2 });
+    const open = solved({ ...base, secondaryRms: 250 + 0.2 * 40 });
+    expectClose(rated.nodes[0]!.dc, open.nodes[0]!.dc, { rel: 1e-9 }, 'same B+');
+    expectClose(rated.noLoadVolts, Math.SQRT2 * 258, { rel: 1e-12 }, 'cold peak');
+    const regulated = solved({ ...base, ratedAmps: 0.2, regulation: 0.08, windingOhms: 0 });
+    const same = solved({ ...base, secondaryRms: 270, windingOhms: 100 });
+    expectClose(regulated.nodes[1]!.dc, same.nodes[1]!.dc, { rel: 1e-9 }, 'regulation as a resistance');
+    // Its VA is the rating's: the rated voltage times the current.
+    expectClose(regulated.secondaryVa, 2 * 250 * regulated.secondaryRmsCurrent, { rel: 1e-12 });
+    expect(solveSupply({ ...base, regulation: 0.08 })).toMatchObject({ ok: false, field: 'ratedAmps' });
+    expect(solveSupply({ ...base, ratedAmps: 0.2, regulation: 0.9 })).toMatchObject({ ok: false, field: 'regulation' });
+  });
+
   it('names the field of a bad value', () => {
     expect(solveSupply({ ...base, mainsHz: 400 })).toMatchObject({ ok: false, field: 'mainsHz' });
     expect(solveSupply({ ...base, rectifier: { kind: 'tube', tubeId: '6SN7' } })).toMatchObject({ ok: false, field: 'rectifier' });
