@@ -41,6 +41,7 @@ export const MAX_CHANNELS = 8;
 export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSupplyResult> {
   if (typeof input !== 'object' || input === null) return fail('invalid-input', 'Give the amplifier, its supply and which node feeds each stage');
   const { amplifier, supply, feeds } = input;
+  if (typeof supply !== 'object' || supply === null) return fail('invalid-input', 'Give the supply the amplifier runs on', 'supply');
   const channels = input.channels ?? 1;
   if (!Number.isInteger(channels) || channels < 1 || channels > MAX_CHANNELS) return fail('invalid-input', `Give 1 to ${MAX_CHANNELS} channels on the supply`, 'channels');
   const nodes = Array.isArray(supply?.sections) ? supply.sections.length + 1 : 0;

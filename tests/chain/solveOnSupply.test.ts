@@ -58,6 +58,8 @@ describe('the amplifier on its supply, solved as one', () => {
 
   it('names a stage without a node', () => {
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1] })).toMatchObject({ ok: false, field: 'feeds' });
+    // Found by a fresh robustness seed: no supply at all threw.
+    expect(solveOnSupply({ amplifier, supply: null as never, feeds: [0, 0, 0] })).toMatchObject({ ok: false, field: 'supply' });
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 3] })).toMatchObject({ ok: false, field: 'feeds' });
   });
 });
