@@ -112,3 +112,4 @@ export { supplyFindings, SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
+export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
