@@ -39,7 +39,7 @@ export interface BuildSheet {
   readonly outputBplusAmps: number;
 }
 
-const cache = new WeakMap<object, { inputs: BuildInputs; sheet: BuildSheet }>();
+const cache = new WeakMap<object, { inputs: BuildInputs; design: WorkbenchState['design']; outputBench: WorkbenchState['outputBench']; sheet: BuildSheet }>();
 /** The last sheet per store (keyed by its stable commit action), served while a drag or typing is under way. */
 const lastSheet = new WeakMap<object, BuildSheet>();
 
@@ -52,12 +52,13 @@ export const railOf = (s: WorkbenchState) => s.buildInputs.railVolts ?? s.design
 
 export function buildSheetOf(s: WorkbenchState): BuildSheet {
   const hit = cache.get(s.analysis);
-  if (hit && hit.inputs === s.buildInputs) return hit.sheet;
+  // The output stage's current and the design's other stages are on the sheet too: an output-only change is a new sheet.
+  if (hit && hit.inputs === s.buildInputs && hit.design === s.design && hit.outputBench === s.outputBench) return hit.sheet;
   // Like the signal views, the sheet is redone when the drag or the typing pauses, not on every frame.
   const last = lastSheet.get(s.commit);
   if (last && (s.dragging || s.analysis.signal.stale)) return last;
   const sheet = compute(s);
-  cache.set(s.analysis, { inputs: s.buildInputs, sheet });
+  cache.set(s.analysis, { inputs: s.buildInputs, design: s.design, outputBench: s.outputBench, sheet });
   lastSheet.set(s.commit, sheet);
   return sheet;
 }

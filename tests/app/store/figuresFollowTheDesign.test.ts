@@ -82,3 +82,15 @@ describe('the second stage and the heaters', () => {
     expect(sheet.heaters.ok && sheet.heaters.totalAmps).toBeCloseTo(0.3, 6); // 12AX7 at 6.3 V: 0.3 A (Tung-Sol 12AX7)
   });
 });
+
+describe('the build sheet follows the output stage', () => {
+  it('an output-only change (a new output tube) gives a new sheet with the new tube\'s B+ current', async () => {
+    const { buildSheetOf } = await import('../../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    const before = buildSheetOf(store.getState()).outputBplusAmps;
+    store.getState().chooseOutputTube('6L6GC');
+    const after = buildSheetOf(store.getState()).outputBplusAmps;
+    expect(after).toBeCloseTo(store.getState().outputBench.settled.solution.op.ik, 12);
+    expect(after).not.toBeCloseTo(before, 6);
+  });
+});
