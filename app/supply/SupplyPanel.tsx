@@ -3,6 +3,7 @@ import { MAX_CHANNELS, MAX_SECTIONS, RECTIFIER_TUBES, SAFE_DC_VOLTS, type Rectif
 import { useWorkbench } from '../store/StoreProvider';
 import { SupplyField } from './SupplyField';
 import { SupplyResults } from './SupplyResults';
+import { HeaterWindings } from './HeaterWindings';
 
 const rectifierKey = (r: Rectifier) => (r.kind === 'tube' ? `tube:${r.tubeId}` : r.kind);
 const rectifierOf = (key: string): Rectifier => (key.startsWith('tube:') ? { kind: 'tube', tubeId: key.slice(5) } : { kind: key as 'silicon-bridge' | 'silicon-full-wave' });
@@ -115,6 +116,7 @@ export function SupplyPanel() {
             </select>
           </div>
           {error ? <p className="field-error" role="alert">{error}</p> : null}
+          <HeaterWindings />
         </div>
         <SupplyResults />
       </div>

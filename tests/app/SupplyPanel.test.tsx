@@ -93,6 +93,17 @@ describe('the B+ supply on the bench', () => {
     expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1 });
   });
 
+  it('lists the heater windings beside the supply: every stage\'s heaters per channel, a directly heated rectifier on its own', () => {
+    const { store, panel } = bench();
+    const list = () => panel.getByTestId('heater-windings').textContent;
+    // 12AU7 (6.3 V, 0.3 A in parallel) and EL34 (6.3 V, 1.5 A; from memory): one 6.3 V winding of 1.8 A.
+    expect(list()).toMatch(/^6\.3 V, 1\.8 A \(11\.3 VA\): 12AU7 \(6\.3 V, 0\.3 A\), EL34 \(6\.3 V, 1\.5 A\)$/);
+    fireEvent.change(panel.getByLabelText('Rectifier'), { target: { value: 'tube:5U4GB' } });
+    fireEvent.change(panel.getByLabelText('Channels'), { target: { value: '2' } });
+    expect(store.getState().design.supply.channels).toBe(2);
+    expect(list()).toMatch(/^6\.3 V, 3\.6 A .*2 × 12AU7.*2 × EL34.*5 V, 3 A \(15 VA\): 5U4GB rectifier .*sits at B\+/);
+  });
+
   it('is kept in the design file; a file from before the supply opens on the default one', () => {
     const store = createWorkbenchStore({ supplySolver: null });
     store.getState().setSupply({ channels: 2, rectifier: { kind: 'tube', tubeId: '5AR4' }, regulation: 0.08 });
