@@ -2,6 +2,7 @@ import { formatValue } from '../../src/index';
 import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../panels/ComparePanel';
 import { buildSheetOf, railOf } from '../store/buildSheet';
+import { heaterWindingsOf } from '../store/heaterPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
@@ -70,12 +71,9 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   }
   const build = buildSheetOf(s);
   sections.push({ heading: 'Ratings, every stage', lines: ratingsLines(s) });
-  if (build.elevation.ok) {
-    sections.push({
-      heading: 'Heaters',
-      lines: [elevationAdvice(build.elevation)],
-    });
-  } else sections.push({ heading: 'Heaters', lines: [build.elevation.message] });
+  const windings = heaterWindingsOf(s);
+  const windingLines = windings.ok ? windings.windings.map((w) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}`) : [windings.message];
+  sections.push({ heading: 'Heaters', lines: [build.elevation.ok ? elevationAdvice(build.elevation) : build.elevation.message, ...windingLines] });
   sections.push({
     heading: 'Parts to order',
     lines: [

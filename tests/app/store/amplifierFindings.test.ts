@@ -31,6 +31,8 @@ describe('one ratings list for the amplifier', () => {
     expect(byHeading['Ratings, every stage']).toMatch(/DANGER: Stage 2, 12AX7 cathode follower: Heater-to-cathode voltage/);
     expect(byHeading['Stage 2: 12AX7 cathode follower, direct-coupled']).toMatch(/heater–cathode \d+/);
     expect(byHeading['Heaters']).toMatch(/Elevate the heater supply to about/);
+    // And the windings the whole amplifier's heaters need: both stages on one 12AX7 envelope (0.3 A at 6.3 V) and the EL34 (1.5 A).
+    expect(byHeading['Heaters']).toMatch(/\nWinding 6\.3 V, 1\.8 A \(11\.3 VA\): 12AX7 \(6\.3 V, 0\.3 A\), EL34 \(6\.3 V, 1\.5 A\)$/);
   });
 });
 
