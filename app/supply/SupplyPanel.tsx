@@ -4,6 +4,7 @@ import { useWorkbench } from '../store/StoreProvider';
 import { SupplyField } from './SupplyField';
 import { SupplyResults } from './SupplyResults';
 import { HeaterWindings } from './HeaterWindings';
+import { SupplySchematic } from './SupplySchematic';
 
 const rectifierKey = (r: Rectifier) => (r.kind === 'tube' ? `tube:${r.tubeId}` : r.kind);
 const rectifierOf = (key: string): Rectifier => (key.startsWith('tube:') ? { kind: 'tube', tubeId: key.slice(5) } : { kind: key as 'silicon-bridge' | 'silicon-full-wave' });
@@ -36,6 +37,7 @@ export function SupplyPanel() {
         long after switch-off. Fit a bleeder (below), measure every capacitor before touching it (under {SAFE_DC_VOLTS} V), fuse the primary and
         earth the chassis. Follow your local electrical codes; where in doubt, have the mains side built or checked by a licensed electrician.
       </p>
+      <SupplySchematic />
       <div className="supply-body">
         <div className="supply-values">
           <div className="option-row">
