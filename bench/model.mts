@@ -2,7 +2,7 @@ import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
-  solveAmplifier, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign,
+  solveAmplifier, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign, solvePushPull, pushPullAtDrive,
 } from '../src/index';
 import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 
@@ -74,7 +74,15 @@ export function amplifierOnSupply(): void {
   if (!r.ok) throw new Error(r.message);
 }
 
+/** A push-pull pair of our own: EL34s ultralinear at 430 V, fixed bias, 6.6 kΩ plate to plate. */
+const PUSH_PULL = solvePushPull(findOutputTube('EL34')!, {
+  tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200,
+  bias: 'fixed', rk: 0, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
+});
+
 export interface ModelResults {
+  /** A push-pull pair through one cycle at 128 points (composite characteristics, one root per point). */
+  readonly pushPullCycle: Stats;
   /** A three-section supply to its steady state (budget 50 ms median). */
   readonly supplyThreeSections: Stats;
   /** The four-stage amplifier and the supply solved as one, from cold. */
@@ -120,6 +128,7 @@ export function benchModel(): ModelResults {
     solveStage: [() => solveStage(STAGE), 700, 20],
     fourStageChain: [() => fourStageAnalysis(), 20, 5],
     supplyThreeSections: [() => solveSupply(THREE_SECTION_SUPPLY), 5, 2],
+    pushPullCycle: [() => PUSH_PULL.ok && pushPullAtDrive(PUSH_PULL, 30), 20, 3],
     amplifierOnSupply: [() => amplifierOnSupply(), 2, 1],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
     plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
@@ -133,5 +142,5 @@ export function benchModel(): ModelResults {
     fft16384: [() => fullAnalysis(16384), 20, 5],
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
-  return { supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

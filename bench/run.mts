@@ -25,6 +25,7 @@ line('full one-stage analysis', model.fullAnalysis, { value: 2, on: 'median' });
 line('four-stage amplifier, whole analysis', model.fourStageChain, { value: 8, on: 'median' });
 line('supply, three sections, to steady state', model.supplyThreeSections, { value: 50, on: 'median' });
 line('four-stage amplifier on that supply', model.amplifierOnSupply);
+line('push-pull pair, one cycle at 128 points', model.pushPullCycle);
 line('plate-curve family (sheet)', model.plateFamily);
 line('fit of 200 points', model.fit200, { value: 300, on: 'median' });
 for (const [n, s] of Object.entries(model.fftScaling)) line(`  full analysis, FFT of ${n} points`, s);

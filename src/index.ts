@@ -113,3 +113,6 @@ export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
+export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
+export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
+export { checkPushPull, MAX_MISMATCH, type PushPullDesign } from './pushpull/pushPullDesign';

@@ -124,6 +124,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);
   run('solveSupply (rated winding)', fc.tuple(near({ ...supply, ratedAmps: 0.2, regulation: 0.08 })), Q.solveSupply, 30);
   run('heaterWindings', fc.tuple(or(fc.array(near({ label: '12AU7', volts: 6.3, amps: 0.3, count: 2 }), { maxLength: 4 }))), Q.heaterWindings);
+  const ppDesign: Q.PushPullDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200, bias: 'fixed', rk: 220, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
+  run('solvePushPull', fc.tuple(outTubes, fc.oneof(near(ppDesign), near({ ...ppDesign, bias: 'cathode', mismatch: 0.05 }))), Q.solvePushPull, 150);
+  const solvedPP = Q.solvePushPull(el34, ppDesign);
+  run('pushPullAtDrive', fc.tuple(near(solvedPP), or(fc.double({ min: 0, max: 60 })), or(fc.constantFrom(16, 64, 100))), Q.pushPullAtDrive, 60);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);

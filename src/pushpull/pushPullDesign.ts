@@ -1,0 +1,46 @@
+import { fail, type Failure } from '../result';
+import { checkNumber } from '../stage/checkInput';
+import { checkOutputTube } from '../output/checkOutput';
+import { outputDesignProblem, type OutputDesign } from '../output/outputDesign';
+import type { OutputTube } from '../output/outputTube';
+
+/**
+ * A push-pull output stage: two tubes of one type on a centre-tapped
+ * transformer, B+ at the centre tap. SI units. The transformer is ideal
+ * apart from the primary's DC resistance (half of it in each half) and
+ * reflects the speaker as `raa` plate to plate. The grids are driven in
+ * antiphase about the bias; a shared cathode resistor is taken as fully
+ * bypassed. The single-ended stage's other fields mean what they mean there.
+ */
+export interface PushPullDesign extends Omit<OutputDesign, 'zPrimary'> {
+  /** Plate-to-plate load the transformer reflects, Ω. */
+  readonly raa: number;
+  /** The whole primary's DC resistance, plate to plate, Ω (each half carries its tube's current through half of it). */
+  readonly rPrimary: number;
+  /** Cathode resistor shared by both tubes, Ω (cathode bias). */
+  readonly rk: number;
+  /**
+   * The second tube's current against the first's at every voltage, as a
+   * fraction above 1 (0.05: 5 % more current and 5 % more gm, as two tubes of
+   * one type differ); 0 for a matched pair.
+   */
+  readonly mismatch?: number;
+}
+
+/** The most mismatch asked about: beyond ±30 % the two are not a pair. */
+export const MAX_MISMATCH = 0.3;
+
+/** The first field that cannot be used, or null. */
+export function checkPushPull(tube: unknown, design: unknown): Failure | null {
+  const t = checkOutputTube(tube);
+  if (t) return t;
+  if (typeof design !== 'object' || design === null) return fail('invalid-input', 'No push-pull design given');
+  const d = design as PushPullDesign;
+  const raa = checkNumber('raa', 'Plate-to-plate load', d.raa, 'Ω', 400, 200_000);
+  if (raa) return raa;
+  // Each tube's half of the primary is a quarter of the plate-to-plate impedance: the single-ended checks apply to it.
+  const asSingle = outputDesignProblem({ ...d, zPrimary: d.raa / 4 } as OutputDesign, tube as OutputTube);
+  if (asSingle) return asSingle.field === 'zPrimary' ? { ...asSingle, field: 'raa' } : asSingle;
+  if (d.mismatch !== undefined) return checkNumber('mismatch', 'Mismatch', d.mismatch, '', -MAX_MISMATCH, MAX_MISMATCH);
+  return null;
+}

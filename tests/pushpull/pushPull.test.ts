@@ -1,0 +1,80 @@
+import { describe, expect, it } from 'vitest';
+import { findOutputTube, pushPullAtDrive as checkedAtDrive, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
+import { primaryCurrent } from '../../src/output/electrodes';
+import { expectClose } from '../helpers/expectClose';
+
+// Our own designs.
+const el34: PushPullDesign = {
+  tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200,
+  bias: 'fixed', rk: 0, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
+};
+const pushPullAtDrive = (s: PushPullSolution, drive: number) => {
+  const r = checkedAtDrive(s, drive);
+  if (!r.ok) throw new Error(r.message);
+  return r;
+};
+const pair = (d: PushPullDesign) => {
+  const s = solvePushPull(findOutputTube(d.tubeId)!, d);
+  if (!s.ok) throw new Error(s.message);
+  return s;
+};
+
+describe('push-pull output stages', () => {
+  // Langford-Smith, Radiotron Designer's Handbook (4th ed.), ch. 13: in class A the pair is two generators μ·eg in
+  // series, internal resistance 2rp, into the plate-to-plate load: Vaa = μ·(2eg)·Raa/(2rp + Raa).
+  it('at small drive in class A, the plate-to-plate voltage is μ·2eg·Raa/(2rp + Raa) (the textbook equivalent circuit)', () => {
+    const d: PushPullDesign = { ...el34, tubeId: '300B', connection: 'triode', bplus: 400, vg: -80, raa: 5000, rPrimary: 0 };
+    const s = pair(d);
+    const tube = findOutputTube('300B')!;
+    const feed = s.feed;
+    const { vpk, ip } = s.idle[0];
+    const h = 1e-3;
+    const gm = (primaryCurrent(tube, feed, vpk, s.vgk + h) - primaryCurrent(tube, feed, vpk, s.vgk - h)) / (2 * h);
+    const rp = (2 * h) / (primaryCurrent(tube, feed, vpk + h, s.vgk) - primaryCurrent(tube, feed, vpk - h, s.vgk));
+    expect(ip).toBeGreaterThan(0.05);
+    const eg = 0.5;
+    const vaa = gm * rp * 2 * eg * d.raa / (2 * rp + d.raa);
+    const r = pushPullAtDrive(s, eg);
+    expectClose(r.power, (vaa * vaa) / (2 * d.raa), { rel: 0.002 }, 'small-signal power');
+    expect(r.classAB).toBe(false);
+  });
+
+  it('a matched pair cancels its even harmonics and leaves no DC in the core; a mismatch brings H2 in proportion, and a DC imbalance', () => {
+    const matched = pushPullAtDrive(pair(el34), 20);
+    for (const k of [2, 4, 6, 8]) expect(matched.harmonics[k]!).toBeLessThan(1e-9);
+    expect(pair(el34).dcImbalance).toBe(0);
+    const five = pair({ ...el34, mismatch: 0.05 });
+    const ten = pair({ ...el34, mismatch: 0.1 });
+    const h5 = pushPullAtDrive(five, 20).harmonics[2]!;
+    const h10 = pushPullAtDrive(ten, 20).harmonics[2]!;
+    expect(h5).toBeGreaterThan(1e-4);
+    expect(h10 / h5).toBeGreaterThan(1.8);
+    expect(h10 / h5).toBeLessThan(2.2);
+    // The second tube draws about 5 % more of the idle current, and that difference is the core's DC.
+    expectClose(-five.dcImbalance, 0.05 * five.idle[0].mmf, { rel: 0.1 }, 'DC imbalance');
+  });
+
+  it('says class AB when the drive cuts a tube off, class A below; dissipation falls and supply current rises with drive in class AB', () => {
+    const s = pair({ ...el34, vg: -48 });
+    expect(pushPullAtDrive(s, 2).classAB).toBe(false);
+    const full = pushPullAtDrive(s, 48);
+    expect(full.classAB).toBe(true);
+    expect(full.supplyCurrent).toBeGreaterThan(s.supplyCurrent);
+    expect(full.harmonics[2]!).toBeLessThan(1e-9);
+  });
+
+  it('a shared cathode resistor carries both tubes: Vk = Rk·(Ik1 + Ik2) (Ohm\'s law)', () => {
+    const s = pair({ ...el34, bias: 'cathode', rk: 220 });
+    expectClose(s.vk, 220 * (s.idle[0].ik + s.idle[1].ik), { rel: 1e-6 }, 'cathode voltage');
+    expectClose(s.vgk, -s.vk, { rel: 1e-12 });
+  });
+
+  it('names the field of a bad value', () => {
+    const tube = findOutputTube('EL34')!;
+    expect(solvePushPull(tube, { ...el34, raa: 10 })).toMatchObject({ ok: false, field: 'raa' });
+    expect(solvePushPull(tube, { ...el34, mismatch: 0.5 })).toMatchObject({ ok: false, field: 'mismatch' });
+    expect(solvePushPull(tube, { ...el34, vg: -200 })).toMatchObject({ ok: false, reason: 'cutoff', field: 'vg' });
+    expect(checkedAtDrive(pair(el34), 20, 100)).toMatchObject({ ok: false, field: 'samples' });
+    expect(checkedAtDrive({ ok: true } as never, 20)).toMatchObject({ ok: false });
+  });
+});
