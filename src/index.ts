@@ -116,3 +116,4 @@ export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/hea
 export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
 export { checkPushPull, MAX_MISMATCH, type PushPullDesign } from './pushpull/pushPullDesign';
+export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, pushPullAtDrive as checkedAtDrive, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
+import { findOutputTube, pushPullAtDrive as checkedAtDrive, pushPullFigures, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
 import { primaryCurrent } from '../../src/output/electrodes';
 import { expectClose } from '../helpers/expectClose';
 
@@ -67,6 +67,32 @@ describe('push-pull output stages', () => {
     const s = pair({ ...el34, bias: 'cathode', rk: 220 });
     expectClose(s.vk, 220 * (s.idle[0].ik + s.idle[1].ik), { rel: 1e-6 }, 'cathode voltage');
     expectClose(s.vgk, -s.vk, { rel: 1e-12 });
+  });
+
+  // Langford-Smith, ch. 13: a class B pair's plate dissipation is greatest at about 2/π of the full swing, below full
+  // power; in class A it is greatest at idle and falls with drive.
+  it('finds the worst dissipation over the levels: below full power deep in class AB, at idle in class A', () => {
+    const deep = pushPullFigures(pair({ ...el34, vg: -55 }));
+    if (!deep.ok) throw new Error(deep.message);
+    expect(deep.worstPlate.drive).toBeGreaterThan(0);
+    expect(deep.worstPlate.drive).toBeLessThan(55);
+    expect(deep.worstPlate.watts).toBeGreaterThan(pair({ ...el34, vg: -55 }).idle[0].pa * 1.5);
+    const classA = pushPullFigures(pair({ ...el34, vg: -34 }));
+    if (!classA.ok) throw new Error(classA.message);
+    expect(classA.worstPlate.drive).toBe(0);
+    expect(classA.classABFrom).toBe(null);
+  });
+
+  it('the power at the distortion limit is where THD meets it; class AB begins where a tube first cuts off', () => {
+    const s = pair({ ...el34, vg: -48, thdLimit: 0.03 });
+    const f = pushPullFigures(s);
+    if (!f.ok) throw new Error(f.message);
+    expect(f.atZeroGrid.thd).toBeGreaterThan(0.03);
+    expectClose(f.atThdLimit!.thd, 0.03, { rel: 0.01 }, 'THD at the limit');
+    expect(pushPullAtDrive(s, f.atThdLimit!.drive * 1.02).thd).toBeGreaterThan(0.03);
+    const from = f.classABFrom!;
+    expect(pushPullAtDrive(s, from * 0.99).classAB).toBe(false);
+    expect(pushPullAtDrive(s, from * 1.01).classAB).toBe(true);
   });
 
   it('names the field of a bad value', () => {
