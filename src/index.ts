@@ -117,3 +117,4 @@ export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoin
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
 export { checkPushPull, MAX_MISMATCH, type PushPullDesign } from './pushpull/pushPullDesign';
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
+export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
