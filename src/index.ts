@@ -118,3 +118,4 @@ export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './p
 export { checkPushPull, MAX_MISMATCH, type PushPullDesign } from './pushpull/pushPullDesign';
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
+export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';
