@@ -119,3 +119,4 @@ export { checkPushPull, MAX_MISMATCH, type PushPullDesign } from './pushpull/pus
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
 export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';
+export { pushPullRaaSweep, MAX_RAA_POINTS, type RaaRow } from './pushpull/raaSweep';

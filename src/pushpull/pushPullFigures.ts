@@ -1,7 +1,8 @@
 import { fail, type Result } from '../result';
 import { SWEEP_SAMPLES } from '../output/outputSignal';
 import { pushPullAtDrive, pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
-import type { PushPullSolution } from './solvePushPull';
+import { plateOf, type PushPullSolution } from './solvePushPull';
+import { emptyCurrents } from '../output/electrodes';
 
 /** Drive levels in the sweep for the worst dissipation (it peaks below full power in class AB). */
 const SWEEP_LEVELS = 16;
@@ -23,6 +24,11 @@ export interface PushPullFigures {
   readonly worstPlate: { readonly watts: number; readonly drive: number };
   /** The same for the screens, W (0 for triodes and triode connection). */
   readonly worstScreen: { readonly watts: number; readonly drive: number };
+  /** The stage's source impedance plate to plate at idle (both tubes and the primary's resistance), Ω; null where the tubes do not respond to their plates (none here do). */
+  readonly zPlateToPlate: number | null;
+  /** The same at the speaker, Ω, and the damping factor (speaker over it). */
+  readonly zSpeaker: number | null;
+  readonly dampingFactor: number | null;
 }
 
 /**
@@ -66,5 +72,28 @@ export function pushPullFigures(s: PushPullSolution): Result<PushPullFigures> {
     if (pa > worstPlate.watts) worstPlate = { watts: pa, drive: r.drive };
     if (pg2 > worstScreen.watts) worstScreen = { watts: pg2, drive: r.drive };
   }
-  return { ok: true, atZeroGrid, atThdLimit, overThdEverywhere, classABFrom, worstPlate, worstScreen };
+  const zPlateToPlate = plateToPlateImpedance(s);
+  const zSpeaker = zPlateToPlate === null ? null : (zPlateToPlate * s.design.speakerOhms) / s.design.raa;
+  return { ok: true, atZeroGrid, atThdLimit, overThdEverywhere, classABFrom, worstPlate, worstScreen, zPlateToPlate, zSpeaker, dampingFactor: zSpeaker === null ? null : s.design.speakerOhms / zSpeaker };
+}
+
+/**
+ * The pair as a source, grids held at idle: a small winding voltage δw on
+ * each half (opposite senses) changes the net coupled current by δM; each
+ * half then sees δw/δM, and the whole primary (twice the turns) four times
+ * that. In class A with triodes and no primary resistance this is 2·rp, the
+ * textbook's two plate resistances in series (Langford-Smith, ch. 13).
+ */
+function plateToPlateImpedance(s: PushPullSolution): number | null {
+  const rHalf = s.design.rPrimary / 2;
+  const c = emptyCurrents();
+  const net = (w: number) => {
+    plateOf(s.tube, s.feed, s.supply, w, rHalf, s.vgk, c);
+    const m1 = c.mmf;
+    plateOf(s.tube2, s.feed, s.supply, -w, rHalf, s.vgk, c);
+    return m1 - c.mmf;
+  };
+  const h = 1e-3;
+  const slope = (net(h) - net(-h)) / (2 * h);
+  return slope < 0 && Number.isFinite(slope) ? 4 / -slope : null;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, pushPullAtDrive as checkedAtDrive, pushPullFigures, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
+import { findOutputTube, pushPullAtDrive as checkedAtDrive, pushPullFigures, pushPullRaaSweep, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
 import { primaryCurrent } from '../../src/output/electrodes';
 import { expectClose } from '../helpers/expectClose';
 
@@ -93,6 +93,40 @@ describe('push-pull output stages', () => {
     const from = f.classABFrom!;
     expect(pushPullAtDrive(s, from * 0.99).classAB).toBe(false);
     expect(pushPullAtDrive(s, from * 1.01).classAB).toBe(true);
+  });
+
+  // Langford-Smith, ch. 13: in class A the pair's source impedance plate to plate is two plate resistances in series
+  // (and the primary's own resistance with them); at the speaker, scaled by the impedance ratio.
+  it('its source impedance is 2·rp plate to plate in class A, plus the primary\'s resistance; the damping factor follows', () => {
+    const tube = findOutputTube('300B')!;
+    const d: PushPullDesign = { ...el34, tubeId: '300B', connection: 'triode', bplus: 400, vg: -80, raa: 5000, rPrimary: 0 };
+    const s = pair(d);
+    const h = 1e-3;
+    const rp = (2 * h) / (primaryCurrent(tube, s.feed, s.idle[0].vpk + h, s.vgk) - primaryCurrent(tube, s.feed, s.idle[0].vpk - h, s.vgk));
+    const f = pushPullFigures(s);
+    if (!f.ok) throw new Error(f.message);
+    expectClose(f.zPlateToPlate!, 2 * rp, { rel: 1e-4 }, 'two plate resistances');
+    expectClose(f.zSpeaker!, (2 * rp * 8) / 5000, { rel: 1e-4 }, 'at the speaker');
+    expectClose(f.dampingFactor!, 5000 / (2 * rp), { rel: 1e-4 }, 'damping factor');
+    // With 300 Ω of primary the plates sit lower (its DC drop), so rp is taken at the new point.
+    const sw = pair({ ...d, rPrimary: 300 });
+    const rpW = (2 * h) / (primaryCurrent(tube, sw.feed, sw.idle[0].vpk + h, sw.vgk) - primaryCurrent(tube, sw.feed, sw.idle[0].vpk - h, sw.vgk));
+    const wound = pushPullFigures(sw);
+    if (!wound.ok) throw new Error(wound.message);
+    expectClose(wound.zPlateToPlate!, 2 * rpW + 300, { rel: 1e-4 }, 'with the primary\'s resistance');
+  });
+
+  it('sweeps Raa from a third to three times the design\'s: each row the power within the limit at that load, the best marked', () => {
+    const d = { ...el34, thdLimit: 0.03 };
+    const r = pushPullRaaSweep(findOutputTube('EL34')!, d, 5);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.rows.map((x) => Math.round(x.raa))).toEqual([2200, 3811, 6600, 11432, 19800]);
+    // The middle row is the design itself: the same figure pushPullFigures gives.
+    const own = pushPullFigures(pair(d));
+    if (!own.ok) throw new Error(own.message);
+    expectClose(r.rows[2]!.power, (own.atThdLimit ?? own.atZeroGrid).power, { rel: 1e-12 });
+    for (const row of r.rows) expect(row.power).toBeLessThanOrEqual(r.rows[r.best]!.power);
+    expect(pushPullRaaSweep(findOutputTube('EL34')!, d, 1)).toMatchObject({ ok: false, field: 'points' });
   });
 
   it('names the field of a bad value', () => {

@@ -131,6 +131,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('pushPullFigures', fc.tuple(near(solvedPP)), Q.pushPullFigures, 20);
   run('solveCathodyne', fc.tuple(fc.oneof(near({ tube: au7, bplus: 350, ra: 22e3, rk: 21e3, rb: 1e3, grid: { kind: 'tap' }, rl: 470e3, cl: 50e-12 }), near({ tube: au7, bplus: 350, ra: 22e3, rk: 22e3, rb: 0, grid: { kind: 'fixed', volts: 100 } }))), Q.solveCathodyne);
   run('solveLongTailedPair', fc.tuple(fc.oneof(near({ tube: au7, bplus: 400, ra1: 47e3, ra2: 47e3, rk: 820, tail: { kind: 'resistor', rt: 22e3 }, grid: { kind: 'tap' }, rl: 220e3 }), near({ tube: au7, bplus: 400, ra1: 47e3, ra2: 47e3, rk: 0, tail: { kind: 'current', amps: 0.008 }, grid: { kind: 'fixed', volts: 100 } }))), Q.solveLongTailedPair, 100);
+  run('pushPullRaaSweep', fc.tuple(outTubes, near(ppDesign), or(fc.constantFrom(2, 3, 30))), Q.pushPullRaaSweep, 10);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
