@@ -7,6 +7,7 @@ import { CUTOFF_CURRENT_A, type OperatingPoint } from '../stage/solveStage';
 import { gridVoltageForCurrent, korenPlateCurrent } from '../tube/koren';
 import { smallSignalAt } from '../tube/triode';
 import { modelOf, type TubeLike } from '../tube/types';
+import { balancePoint, BALANCE_HZ, checkSplitterLoads, type BalancePoint, type SplitterLoads } from './splitterOutputs';
 
 /**
  * The split-load phase splitter (cathodyne): one triode with equal plate and
@@ -19,7 +20,7 @@ import { modelOf, type TubeLike } from '../tube/types';
  * tube's input capacitance with its Miller effect), through coupling
  * capacitors taken as short at signal frequencies.
  */
-export interface CathodyneDesign {
+export interface CathodyneDesign extends SplitterLoads {
   readonly tube: TubeLike;
   readonly bplus: number;
   readonly ra: number;
@@ -27,12 +28,6 @@ export interface CathodyneDesign {
   /** Bias resistor from the cathode to the top of Rk, Ω; 0 for none. */
   readonly rb: number;
   readonly grid: { readonly kind: 'fixed'; readonly volts: number } | { readonly kind: 'tap' };
-  /** Each output's load resistance (the next grid's resistor), Ω; Infinity for none. */
-  readonly rl?: number;
-  /** Each output's load capacitance, F; 0 for none. */
-  readonly cl?: number;
-  /** Heater potential to ground, V (the cathode sits high: elevate the heaters). */
-  readonly heaterVolts?: number;
 }
 
 export interface CathodyneResult {
@@ -49,7 +44,7 @@ export interface CathodyneResult {
   readonly zPlate: number;
   readonly zCathode: number;
   /** The balance against frequency with the loads' capacitance: |vk/va| and its phase error from 180°, at each frequency asked. */
-  readonly balanceAt: readonly { readonly hz: number; readonly ratio: number; readonly phaseErrorDeg: number }[];
+  readonly balanceAt: readonly BalancePoint[];
   /** The clean swing of a sine: peak at the grid, at each output, and what ends it. */
   readonly swing: { readonly inputPeak: number; readonly platePeak: number; readonly cathodePeak: number; readonly limitedBy: 'grid-current' | 'cutoff' };
   /** Heater to cathode, V (cathode minus heater). */
@@ -57,7 +52,6 @@ export interface CathodyneResult {
   readonly findings: readonly Finding[];
 }
 
-const BALANCE_HZ = [1e3, 10e3, 20e3, 50e3, 100e3];
 
 /** Complex numbers as pairs, for the two-node solve. */
 type C = readonly [number, number];
@@ -105,9 +99,7 @@ export function solveCathodyne(design: CathodyneDesign): Result<CathodyneResult>
     checkNumber('rb', 'Rb', d.rb, 'Ω', 0, LIMITS.maxOhms) ??
     (typeof grid !== 'object' || grid === null || (grid.kind !== 'tap' && grid.kind !== 'fixed') ? fail('invalid-input', 'Give the grid a fixed voltage or return it to the bias tap', 'grid') : null) ??
     (grid?.kind === 'fixed' ? checkNumber('grid.volts', 'Grid voltage', grid.volts, 'V', 0, LIMITS.maxVolts) : null) ??
-    (d.rl === undefined ? null : checkNumber('rl', 'RL', d.rl, 'Ω', 1, LIMITS.maxOhms, { allowInfinity: true })) ??
-    (d.cl === undefined ? null : checkNumber('cl', 'Load capacitance', d.cl, 'F', 0, 1e-6)) ??
-    (d.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', d.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts));
+    checkSplitterLoads(d);
   if (problem) return problem;
   const p = modelOf(d.tube).params;
   const rc = d.rk + d.rb;
@@ -140,10 +132,7 @@ export function solveCathodyne(design: CathodyneDesign): Result<CathodyneResult>
   const zCathode = parallel(rc, (ss.rp + raL) / (ss.mu + 1));
   const balanceAt = BALANCE_HZ.map((hz) => {
     const o = outputs(ss.gm, ss.rp, d.ra, rc, rl, cl, hz);
-    const ratio = Math.hypot(o.vk[0], o.vk[1]) / Math.hypot(o.va[0], o.va[1]);
-    const phase = ((Math.atan2(o.vk[1], o.vk[0]) - Math.atan2(o.va[1], o.va[0])) * 180) / Math.PI;
-    const wrapped = ((phase % 360) + 360) % 360;
-    return { hz, ratio, phaseErrorDeg: wrapped - 180 };
+    return balancePoint(hz, o.va, o.vk);
   });
   return {
     ok: true,

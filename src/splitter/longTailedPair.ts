@@ -7,6 +7,7 @@ import { CUTOFF_CURRENT_A, type OperatingPoint } from '../stage/solveStage';
 import { korenPlateCurrent } from '../tube/koren';
 import { smallSignalAt } from '../tube/triode';
 import { modelOf, type TubeLike } from '../tube/types';
+import { balancePoint, BALANCE_HZ, checkSplitterLoads, type BalancePoint, type SplitterLoads } from './splitterOutputs';
 import { solveComplex, type Complex } from './complexSolve';
 
 /**
@@ -20,7 +21,7 @@ import { solveComplex, type Complex } from './complexSolve';
  * resistor and capacitance through coupling capacitors (short at signal
  * frequencies). SI units.
  */
-export interface LongTailedPairDesign {
+export interface LongTailedPairDesign extends SplitterLoads {
   readonly tube: TubeLike;
   readonly bplus: number;
   readonly ra1: number;
@@ -29,9 +30,6 @@ export interface LongTailedPairDesign {
   readonly rk: number;
   readonly tail: { readonly kind: 'resistor'; readonly rt: number; readonly vee?: number } | { readonly kind: 'current'; readonly amps: number };
   readonly grid: { readonly kind: 'fixed'; readonly volts: number } | { readonly kind: 'tap' };
-  readonly rl?: number;
-  readonly cl?: number;
-  readonly heaterVolts?: number;
 }
 
 export interface LongTailedPairResult {
@@ -47,7 +45,7 @@ export interface LongTailedPairResult {
   /** Each plate's output impedance with the grids at signal ground and the other plate loaded, Ω. */
   readonly zout: readonly [number, number];
   /** Balance against frequency with the loads' capacitance. */
-  readonly balanceAt: readonly { readonly hz: number; readonly ratio: number; readonly phaseErrorDeg: number }[];
+  readonly balanceAt: readonly BalancePoint[];
   /** The tail: its current (the pair's common-mode current), and the voltage at the cathodes and at its top, V. */
   readonly tailCurrent: number;
   readonly cathodeVolts: number;
@@ -57,7 +55,6 @@ export interface LongTailedPairResult {
   readonly findings: readonly [readonly Finding[], readonly Finding[]];
 }
 
-const BALANCE_HZ = [1e3, 10e3, 20e3, 50e3, 100e3];
 const TOL = 1e-12;
 
 /** One tube's current where its plate load (DC drop at idle, `rAc` for the signal beyond it) and its grid–cathode voltage agree. */
@@ -85,9 +82,7 @@ export function solveLongTailedPair(design: LongTailedPairDesign): Result<LongTa
     (tail?.kind === 'current' ? checkNumber('tail.amps', 'Tail current', tail.amps, 'A', 1e-6, 1) : null) ??
     (typeof grid !== 'object' || grid === null || (grid.kind !== 'tap' && grid.kind !== 'fixed') ? fail('invalid-input', 'Give the grids a fixed voltage or return them to the tail', 'grid') : null) ??
     (grid?.kind === 'fixed' ? checkNumber('grid.volts', 'Grid voltage', grid.volts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) : null) ??
-    (d.rl === undefined ? null : checkNumber('rl', 'RL', d.rl, 'Ω', 1, LIMITS.maxOhms, { allowInfinity: true })) ??
-    (d.cl === undefined ? null : checkNumber('cl', 'Load capacitance', d.cl, 'F', 0, 1e-6)) ??
-    (d.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', d.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts));
+    checkSplitterLoads(d);
   if (problem) return problem;
   if (d.tail.kind === 'current' && d.grid.kind === 'tap') return fail('invalid-input', 'A constant-current tail has no junction to return the grids to: give them a fixed voltage', 'grid');
   const p = modelOf(d.tube).params;
@@ -167,9 +162,7 @@ export function solveLongTailedPair(design: LongTailedPairDesign): Result<LongTa
   const zout = [unload(Math.hypot(z1![0]![0], z1![0]![1])), unload(Math.hypot(z2![1]![0], z2![1]![1]))] as const;
   const balanceAt = BALANCE_HZ.map((hz) => {
     const o = network(hz, 'grid')!;
-    const ratio = Math.hypot(o[1]![0], o[1]![1]) / Math.hypot(o[0]![0], o[0]![1]);
-    const phase = ((Math.atan2(o[1]![1], o[1]![0]) - Math.atan2(o[0]![1], o[0]![0])) * 180) / Math.PI;
-    return { hz, ratio, phaseErrorDeg: (((phase % 360) + 360) % 360) - 180 };
+    return balancePoint(hz, o[0]!, o[1]!);
   });
   const raL = ra.map((r) => parallel(r, rl)) as [number, number];
   const tailAc = d.tail.kind === 'resistor' ? d.tail.rt + d.rk : Infinity;
