@@ -18,6 +18,7 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   if (typeof raw.on !== 'boolean') return bad('.on', 'must be true or false', raw.on);
   for (const key of ['mainsHz', 'secondaryRms', 'windingOhms', 'channels'] as const) if (!isNum(raw[key])) return bad(`.${key}`, 'must be a number', raw[key]);
   for (const key of ['secondaryAmps', 'humRms'] as const) if (raw[key] !== null && !isNum(raw[key])) return bad(`.${key}`, 'must be a number or null', raw[key]);
+  if (raw.follow !== undefined && typeof raw.follow !== 'boolean') return bad('.follow', 'must be true or false', raw.follow);
   // Regulation came after the supply itself: a file without it gives the winding's resistance.
   if (raw.regulation !== undefined && raw.regulation !== null && !isNum(raw.regulation)) return bad('.regulation', 'must be a number or null', raw.regulation);
   const r = raw.rectifier;
@@ -49,6 +50,8 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
     sections,
     feeds: { output: f.output, voltage: f.voltage },
     channels: raw.channels as number,
+    // Following came after the supply itself: a file without it keeps its typed B+.
+    follow: raw.follow === true,
     secondaryAmps: raw.secondaryAmps as number | null,
     humRms: raw.humRms as number | null,
     regulation: (raw.regulation ?? null) as number | null,

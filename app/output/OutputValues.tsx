@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { BplusField } from '../supply/BplusField';
 import { useShallow } from 'zustand/react/shallow';
 import { connectionsOf, outputTubeLibrary, type Connection } from '../../src/index';
 import { ValueField } from '../panels/ValueField';
@@ -49,7 +50,7 @@ export function OutputValues() {
       </fieldset>
       <p className="field-hint">{tube.law.kind === 'triode' ? 'A power triode: no screen to connect.' : CONNECTION_NOTES[o.connection]}</p>
       <div className="value-grid">
-        <ValueField field="oBplus" hint="at the primary's B+ end" />
+        <BplusField field="oBplus" bench="output" hint="at the primary's B+ end" />
         {tube.law.kind === 'pentode' && o.connection === 'pentode' ? <ValueField field="oScreen" hint="screen supply to ground" /> : null}
         {tube.law.kind === 'pentode' && o.connection === 'ultralinear' ? <ValueField field="oTap" hint="share of primary turns from B+" /> : null}
         <ValueField field="oZ" hint="reflected load, plate to B+" />

@@ -2,6 +2,7 @@ import { useId } from 'react';
 import type { PreferredSeries } from '../../src/index';
 import { useWorkbench } from '../store/StoreProvider';
 import { ValueField } from './ValueField';
+import { BplusField } from '../supply/BplusField';
 
 /** The stage's values as a form: the same values the schematic shows, one source of truth. */
 export function CircuitValues() {
@@ -16,7 +17,7 @@ export function CircuitValues() {
     <section className="panel circuit-values" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Circuit values</h2>
       <div className="value-grid">
-        <ValueField field="bplus" />
+        <BplusField field="bplus" bench="voltage" />
         <ValueField field="ra" />
         <ValueField field="rk" />
         <ValueField field="rl" hint="next stage's input; “none” if open" />

@@ -8,7 +8,7 @@ import { useDragPaced } from './useDragPaced';
  * text; a message beside it says what is wrong, and the design keeps its last
  * valid value until the text is fixed.
  */
-export function ValueField({ field, hint }: { field: FieldName; hint?: string }) {
+export function ValueField({ field, hint, readOnly }: { field: FieldName; hint?: string; readOnly?: boolean }) {
   const def = FIELDS[field];
   // A drag rewrites Ra, Rk or B+ on every move: the box follows at a readable pace, the figures strip live.
   const draft = useDragPaced((s) => s.drafts[field]);
@@ -28,6 +28,7 @@ export function ValueField({ field, hint }: { field: FieldName; hint?: string })
         autoComplete="off"
         spellCheck={false}
         value={draft}
+        readOnly={readOnly}
         placeholder={def.example}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-err` : hint ? `${id}-hint` : undefined}

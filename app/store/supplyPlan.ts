@@ -21,6 +21,8 @@ export interface SupplyPlan {
   readonly feeds: { readonly output: number; readonly voltage: number };
   /** Identical channels on the supply (2 for stereo). */
   readonly channels: number;
+  /** The stages' B+ follow what their nodes deliver (set after each solve); false: the B+ are typed, and shown beside the nodes'. */
+  readonly follow: boolean;
   /** The secondary's rated current, A (each half of a centre-tapped winding): its voltage is stated at it, and its current is checked against it; null when not known. */
   readonly secondaryAmps: number | null;
   /** The winding's regulation (a fraction), in place of its resistance; needs the rated current; null to give the resistance. */
@@ -47,6 +49,7 @@ export const DEMO_SUPPLY: SupplyPlan = {
   sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 11e3, c: 47e-6 }],
   feeds: { output: 0, voltage: 2 },
   channels: 1,
+  follow: false,
   secondaryAmps: 0.2,
   regulation: null,
   humRms: 0.005,
@@ -88,11 +91,14 @@ export function checkPlan(p: SupplyPlan): Failure | null {
   return null;
 }
 
+/** Which node feeds a bench's stage: the output stage's, or the voltage stages'. */
+export const nodeOf = (p: SupplyPlan, bench: 'voltage' | 'output') => (bench === 'output' ? p.feeds.output : p.feeds.voltage);
+
 /** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node. */
 export function onSupplyInputOf(d: BenchDesign): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
   const chain = chainInputOf(d);
   if (!chain) return null;
   const p = d.supply;
-  const feeds = chain.names.map((n) => (n.bench === 'output' ? p.feeds.output : p.feeds.voltage));
+  const feeds = chain.names.map((n) => nodeOf(p, n.bench));
   return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, channels: p.channels }, names: chain.names };
 }

@@ -36,6 +36,19 @@ export interface SupplySlice {
   useSupplyVolts: () => void;
 }
 
+/** The bench's B+ that the supply's solution gives (rounded to the volt, as B+ is typed), or null where it says nothing. */
+export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | null {
+  const r = view.result;
+  if (!r.ok) return null;
+  const at = (bench: 'voltage' | 'output') => {
+    const i = view.names.findIndex((n) => n.bench === bench);
+    return i < 0 ? null : Math.round(r.bplus[i]!);
+  };
+  const v = at('voltage');
+  const o = at('output');
+  return { ...d, ...(v !== null ? { bplus: v } : {}), ...(o !== null ? { output: { ...d.output, bplus: o } } : {}) };
+}
+
 /** The plan's values that have boxes, by path, with how each is shown. */
 export function supplyDraftsFor(p: SupplyPlan): Record<string, string> {
   const out: Record<string, string> = {
@@ -150,14 +163,8 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
     useSupplyVolts: () => {
       const s = get();
       const view = s.supplyView;
-      if (!view || !view.result.ok || view.stale) return;
-      const at = (bench: 'voltage' | 'output') => {
-        const i = view.names.findIndex((n) => n.bench === bench);
-        return i < 0 ? null : Math.round(view.result.ok ? view.result.bplus[i]! : 0);
-      };
-      const v = at('voltage');
-      const o = at('output');
-      const next: BenchDesign = { ...s.design, ...(v !== null ? { bplus: v } : {}), ...(o !== null ? { output: { ...s.design.output, bplus: o } } : {}) };
+      const next = view && !view.stale ? supplyBplusOf(s.design, view) : null;
+      if (!next) return;
       const failure = s.commit(next);
       if (failure) set({ supplyErrors: { ...get().supplyErrors, supply: `These B+ cannot be used: ${failure.message}` } });
     },
@@ -200,7 +207,12 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
       const mine = ++job;
       void solver(chain.input).then((r) => {
         if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
-        store.setState({ supplyView: { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false } });
+        const view: SupplyView = { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false };
+        store.setState({ supplyView: view });
+        // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
+        // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
+        const next = d.supply.follow ? supplyBplusOf(d, view) : null;
+        if (next && (next.bplus !== d.bplus || next.output.bplus !== d.output.bplus)) store.getState().commit(next);
       });
     }, SUPPLY_SETTLE_MS);
   };

@@ -18,6 +18,7 @@ export function SupplyResults() {
   const plan = useWorkbench((s) => s.design.supply);
   const design = useWorkbench((s) => s.design);
   const useVolts = useWorkbench((s) => s.useSupplyVolts);
+  const setSupply = useWorkbench((s) => s.setSupply);
   if (!plan.on) return <div className="supply-results"><p className="field-hint">Not solved: tick “Solve the amplifier on this supply” to see every node’s B+ and ripple.</p></div>;
   if (!view) return <div className="supply-results"><p className="field-hint" role="status">Solving the supply…</p></div>;
   const r = view.result;
@@ -92,7 +93,17 @@ export function SupplyResults() {
             </li>
           ))}
         </ul>
-        {differs ? <button type="button" onClick={useVolts} disabled={view.stale}>Use these B+ on the bench</button> : <p className="field-hint">The bench's B+ are the supply's (within 1 %).</p>}
+        <label className="supply-follow">
+          <input type="checkbox" checked={plan.follow} onChange={(e) => setSupply({ follow: e.currentTarget.checked })} />
+          The stages' B+ follow their nodes
+        </label>
+        {plan.follow ? (
+          <p className="field-hint">The bench's B+ follow their nodes: they are set from each solve.</p>
+        ) : differs ? (
+          <button type="button" onClick={useVolts} disabled={view.stale}>Use these B+ on the bench</button>
+        ) : (
+          <p className="field-hint">The bench's B+ are the supply's (within 1 %).</p>
+        )}
         {!view.names.some((n) => n.bench === 'output') ? <p className="field-hint">The output stage is not joined to the voltage stages (the box at the top), so only they draw from the supply here.</p> : null}
       </div>
       {b && b.ok ? (

@@ -93,6 +93,28 @@ describe('the B+ supply on the bench', () => {
     expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1 });
   });
 
+  it('with "follow" on, the stages\' B+ are their nodes\' after every solve, read-only with the node named; undo still undoes', async () => {
+    const { store, panel } = bench();
+    await panel.findByText('The bench\'s B+ are the supply\'s (within 1 %).', {}, { timeout: 5000 });
+    fireEvent.click(panel.getByRole('checkbox', { name: 'The stages\' B+ follow their nodes' }));
+    const bplus = screen.getByRole('textbox', { name: /^B\+/ });
+    expect(bplus).toHaveProperty('readOnly', true);
+    expect(screen.getByText(/^from node 3 of the supply/)).toBeTruthy();
+    // A higher secondary: the supply is solved again and the bench's B+ follow it.
+    fireEvent.change(panel.getByRole('textbox', { name: /^Secondary, each half/ }), { target: { value: '260' } });
+    await waitFor(() => expect(store.getState().design.bplus).toBeGreaterThan(285), { timeout: 5000 });
+    const r = store.getState().supplyView!.result;
+    if (!r.ok) throw new Error(r.message);
+    expect(store.getState().design.bplus).toBe(Math.round(r.bplus[0]!));
+    expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[1]!));
+    // Undo goes back to 241 V and its own B+, which already agreed: nothing follows again to undo the undo.
+    act(() => store.getState().undo());
+    await waitFor(() => expect(store.getState().design.supply.secondaryRms).toBe(241));
+    await new Promise((done) => setTimeout(done, 600));
+    expect(store.getState().design.bplus).toBeLessThan(285);
+    expect(store.getState().future.length).toBeGreaterThan(0);
+  }, 20_000);
+
   it('lists the heater windings beside the supply: every stage\'s heaters per channel, a directly heated rectifier on its own', () => {
     const { store, panel } = bench();
     const list = () => panel.getByTestId('heater-windings').textContent;
