@@ -3,11 +3,12 @@ import { createRoot } from 'react-dom/client';
 import { App } from './App';
 import { createWorkbenchStore } from './store/workbenchStore';
 import { warmDragPath } from './store/warmDragPath';
+import { supplyBetweenFrames } from './work/supplyBetweenFrames';
 import './styles.css';
 
 const root = document.getElementById('root');
 if (root) {
-  const store = createWorkbenchStore();
+  const store = createWorkbenchStore({ supplySolver: supplyBetweenFrames() });
   createRoot(root).render(
     <StrictMode>
       <App store={store} />

@@ -110,7 +110,7 @@ export { RECTIFIER_TUBES, findRectifierTube, type RectifierTube } from './supply
 export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection } from './supply/supplyTypes';
 export { supplyFindings, SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
-export { solveOnSupply, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
+export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
 export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';

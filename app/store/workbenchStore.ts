@@ -7,7 +7,6 @@ import { createHistorySlice, recordHistory, type HistorySlice } from './historyS
 import { createViewSlice, type ViewSlice } from './viewSlice';
 import { createOutputSlice, type OutputSlice } from './outputSlice';
 import { createSupplySlice, watchSupply, type SupplySlice, type SupplySolver } from './supplySlice';
-import { createOffThread } from '../work/offThread';
 
 /** The whole workbench state: the slices, combined once. */
 export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice & SupplySlice;
@@ -17,17 +16,11 @@ export interface StoreOptions {
   /** Clock for undo coalescing (tests pass their own). */
   readonly now?: () => number;
   /**
-   * Where the amplifier is solved on its supply: by default a Web Worker
-   * where the platform has them (the page), else nowhere (jsdom tests, which
-   * pass one when they test the supply).
+   * Where the amplifier is solved on its supply (the page passes
+   * supplyBetweenFrames); without one it is not solved, as in the tests that
+   * do not look at the supply.
    */
   readonly supplySolver?: SupplySolver | null;
-}
-
-function defaultSupplySolver(): SupplySolver | null {
-  if (typeof Worker === 'undefined') return null;
-  const work = createOffThread();
-  return (input) => work.onSupply(input);
 }
 
 /** A fresh store; the app makes one, each test makes its own. */
@@ -43,6 +36,6 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createSupplySlice(...a),
   }));
   recordHistory(store, options.now);
-  watchSupply(store, options.supplySolver === undefined ? defaultSupplySolver() : options.supplySolver);
+  watchSupply(store, options.supplySolver ?? null);
   return store;
 }

@@ -2,13 +2,12 @@
 import { expose } from 'comlink';
 import { readTubesFile } from '../keep/customTubes';
 import { fitJob } from './fitJob';
-import { solveOnSupply } from '../../src/index';
 
 /**
- * The Web Worker that runs what would freeze the page: fits of many points,
- * reading large tubes files, and the amplifier solved on its supply. comlink (a small, well-kept wrapper) turns
+ * The Web Worker that runs what would freeze the page: fits of many points
+ * and reading large tubes files. comlink (a small, well-kept wrapper) turns
  * the message passing into plain async calls.
  */
-const api = { fitJob, readTubesFile, solveOnSupply };
+const api = { fitJob, readTubesFile };
 export type ModelWorkerApi = typeof api;
 expose(api);

@@ -2,7 +2,6 @@ import { proxy, wrap, type Remote } from 'comlink';
 import type { ModelWorkerApi } from './modelWorker';
 import { fitJob, type FitOutcome } from './fitJob';
 import { readTubesFile } from '../keep/customTubes';
-import { solveOnSupply, type AmplifierOnSupply } from '../../src/index';
 
 /**
  * Runs the heavy jobs off the page's thread, one at a time, each cancellable:
@@ -15,7 +14,6 @@ type TubesRead = ReturnType<typeof readTubesFile>;
 export interface OffThread {
   fit(csv: string, typicalCsv: string, onProgress: (done: number, of: number) => void): Promise<FitOutcome | 'cancelled'>;
   readTubes(text: string, maxTubes: number): Promise<TubesRead | 'cancelled'>;
-  onSupply(input: AmplifierOnSupply): Promise<ReturnType<typeof solveOnSupply> | 'cancelled'>;
   cancel(): void;
 }
 
@@ -39,7 +37,6 @@ export function createOffThread(): OffThread {
   return {
     fit: (csv, typicalCsv, onProgress) =>
       hasWorkers ? run(() => ensure().fitJob(csv, typicalCsv, proxy(onProgress))) : run(async () => fitJob(csv, typicalCsv, onProgress)),
-    onSupply: (input) => run(hasWorkers ? () => ensure().solveOnSupply(input) as Promise<ReturnType<typeof solveOnSupply>> : async () => solveOnSupply(input)),
     readTubes: (text, maxTubes) => run<TubesRead>(hasWorkers ? () => ensure().readTubesFile(text, maxTubes) as Promise<TubesRead> : async () => readTubesFile(text, maxTubes)),
     cancel: () => {
       worker?.terminate();

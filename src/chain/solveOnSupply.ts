@@ -39,6 +39,19 @@ export const MAX_CHANNELS = 8;
  * voltages do, so the iteration contracts.
  */
 export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSupplyResult> {
+  const rounds = solveOnSupplyInRounds(input);
+  for (;;) {
+    const r = rounds.next();
+    if (r.done) return r.value;
+  }
+}
+
+/**
+ * The same solve, pausing after each round of stages and supply (each a few
+ * tens of milliseconds): a page can run it between frames instead of in a
+ * worker, which would carry a second copy of the whole model.
+ */
+export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void, Result<AmplifierOnSupplyResult>, void> {
   if (typeof input !== 'object' || input === null) return fail('invalid-input', 'Give the amplifier, its supply and which node feeds each stage');
   const { amplifier, supply, feeds } = input;
   if (typeof supply !== 'object' || supply === null) return fail('invalid-input', 'Give the supply the amplifier runs on', 'supply');
@@ -65,6 +78,7 @@ export function solveOnSupply(input: AmplifierOnSupply): Result<AmplifierOnSuppl
     const settled = last !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
     last = { amplifier: chain, supply: solved, bplus };
     volts = next;
+    yield;
     if (settled || moved <= VOLT_TOL / 10) {
       const { ok: _a, ...amp } = chain;
       const { ok: _s, ...sup } = solved;

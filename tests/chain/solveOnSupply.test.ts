@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, solveOnSupply, type ChainInput, type SupplyDesign } from '../../src/index';
+import { findOutputTube, findTube, solveOnSupply, solveOnSupplyInRounds, type ChainInput, type SupplyDesign } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own small amplifier on its own supply: the output stage on the reservoir, the follower after a 1k section,
@@ -54,6 +54,20 @@ describe('the amplifier on its supply, solved as one', () => {
     expect(stereo.bplus[2]!).toBeLessThan(mono.bplus[2]! - 2);
     expectClose(stereo.loads[2]!, 2 * input!.supplyCurrent, { rel: 1e-12 }, 'node 3 carries both input stages');
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], channels: 1.5 })).toMatchObject({ ok: false, field: 'channels' });
+  });
+
+  it('in rounds, pausing after each, it reaches the same solution (a page runs it between frames)', () => {
+    const whole = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    if (!whole.ok) throw new Error(whole.message);
+    const rounds = solveOnSupplyInRounds({ amplifier, supply, feeds: [2, 1, 0] });
+    let pauses = 0;
+    let r = rounds.next();
+    while (!r.done) {
+      pauses++;
+      r = rounds.next();
+    }
+    expect(pauses).toBe(whole.iterations);
+    expect(r.value).toEqual(whole);
   });
 
   it('names a stage without a node', () => {
