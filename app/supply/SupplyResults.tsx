@@ -30,6 +30,7 @@ export function SupplyResults() {
     );
   }
   const sup = r.supply;
+  const full = r.atFullPower;
   const caps = [plan.input.c, ...plan.sections.map((s) => s.c)];
   const feeding = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => `${n.title} (${n.tube})`);
   const held = (bench: 'voltage' | 'output') => (bench === 'output' ? design.output.bplus : design.bplus);
@@ -43,7 +44,7 @@ export function SupplyResults() {
       <table className="parts-table supply-nodes">
         <caption>Every node under the whole amplifier's current{plan.channels > 1 ? ` (${plan.channels} channels)` : ''}</caption>
         <thead>
-          <tr><th scope="col">Node</th><th scope="col">Capacitor</th><th scope="col">B+</th><th scope="col">Ripple p-p</th><th scope="col">Ripple rms</th><th scope="col">Load</th><th scope="col">Capacitor ripple</th><th scope="col">Feeds</th></tr>
+          <tr><th scope="col">Node</th><th scope="col">Capacitor</th><th scope="col">B+</th><th scope="col">Ripple p-p</th><th scope="col">Ripple rms</th>{full ? <th scope="col" title="with the output stage driven to its clean limit">At full power</th> : null}<th scope="col">Load</th><th scope="col">Capacitor ripple</th><th scope="col">Feeds</th></tr>
         </thead>
         <tbody>
           {sup.nodes.map((node, k) => (
@@ -53,6 +54,7 @@ export function SupplyResults() {
               <td data-figure="node-dc">{volts(node.dc)}</td>
               <td>{mv(node.ripplePp)}</td>
               <td>{mv(node.rippleRms)}</td>
+              {full ? <td data-figure="node-full">{volts(full.volts[k]!)}</td> : null}
               <td>{milliamps(r.loads[k]!)}</td>
               <td>{amps(node.capacitorRippleRms)} rms</td>
               <td>{feeding(k).join(', ') || '—'}</td>

@@ -84,6 +84,8 @@ export interface StageResult {
   readonly outputDc: number;
   /** DC current drawn from the stage's B+ node, A. */
   readonly supplyCurrent: number;
+  /** An output stage's average current driven to its own clean limit, A (the supply's full-power load). */
+  readonly fullPowerCurrent?: number;
   /** Small-signal midband gain into the load the next stage really presents, signed (an output stage: plate-phased, to the speaker). */
   readonly gain: number;
   /** Midband input impedance at the grid, Ω; null for a direct-coupled grid, which has no leak and draws no current below 0 V. */

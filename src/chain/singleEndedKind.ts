@@ -52,7 +52,8 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
     const scale = (ratio * zp) / series;
     const instant: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
     // The plate's peak at the stage's own clean limit, for the insulation note (64 points find a peak to well under a volt).
-    const peak = cleanLimit(solved, zp, SWEEP_SAMPLES).at.vpkMax + op.vk;
+    const limit = cleanLimit(solved, zp, SWEEP_SAMPLES);
+    const peak = limit.at.vpkMax + op.vk;
     const sample = (vin: number, out: LinkSample) => {
       solveInstant(solved, op.vgk + vin, zp, instant);
       out.vout = -instant.winding * ratio;
@@ -72,6 +73,8 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       ok: true,
       op: { va: op.vpk + op.vk, vk: op.vk, ia: op.ip, vgk: op.vgk },
       supplyCurrent: op.ik,
+      // The primary's average shifts under drive (the law's curvature rectifies); a separate screen's own shift is left out.
+      fullPowerCurrent: op.ik + limit.at.dcShift,
       outputDc: 0,
       gain,
       zin: couplingImpedance(s.coupling),

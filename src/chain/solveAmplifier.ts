@@ -42,6 +42,7 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
     op: l.op,
     outputDc: l.outputDc,
     supplyCurrent: l.supplyCurrent,
+    ...(l.fullPowerCurrent !== undefined ? { fullPowerCurrent: l.fullPowerCurrent } : {}),
     gain: l.gain,
     zin: Number.isFinite(l.zin) ? l.zin : null,
     zout: l.zout,

@@ -20,6 +20,13 @@ export interface AmplifierOnSupplyResult {
   readonly bplus: readonly number[];
   /** The current drawn at each node (every channel's stages, plus the supply's own loads), A. */
   readonly loads: readonly number[];
+  /**
+   * With an output stage driven to its clean limit (its average current then
+   * differs from idle), every node's DC voltage and load: the sag at full
+   * power, the stages' operating points left where they idle. Null when no
+   * stage reports a full-power current.
+   */
+  readonly atFullPower: { readonly volts: readonly number[]; readonly loads: readonly number[] } | null;
   readonly iterations: number;
 }
 
@@ -82,7 +89,14 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     if (settled || moved <= VOLT_TOL / 10) {
       const { ok: _a, ...amp } = chain;
       const { ok: _s, ...sup } = solved;
-      return { ok: true, amplifier: amp, supply: sup, bplus, loads, iterations: iteration };
+      let atFullPower: AmplifierOnSupplyResult['atFullPower'] = null;
+      if (chain.stages.some((st) => st.fullPowerCurrent !== undefined)) {
+        const full = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? (st.fullPowerCurrent ?? st.supplyCurrent) : 0), 0));
+        const driven = solveSupply({ ...supply, loads: full }, { start: next });
+        if (!driven.ok) return driven;
+        atFullPower = { volts: driven.nodes.map((n) => n.dc), loads: full };
+      }
+      return { ok: true, amplifier: amp, supply: sup, bplus, loads, atFullPower, iterations: iteration };
     }
   }
   return fail('no-convergence', 'The stages and the supply did not agree on the B+ within 30 rounds: check the loads and the filter', 'supply');

@@ -44,6 +44,8 @@ export interface SolvedLink {
   readonly outputDc: number;
   /** DC current the stage draws from its B+ node, A (an output stage's screen included: it is fed from the same supply here). */
   readonly supplyCurrent: number;
+  /** For an output stage, the average current it draws driven to its own clean limit, A (what sags the supply at full power); a voltage stage leaves it out (class A: its average hardly moves). */
+  readonly fullPowerCurrent?: number;
   readonly gain: number;
   readonly zin: number;
   readonly zout: number;

@@ -34,6 +34,8 @@ describe('the B+ supply on the bench', () => {
     expect(dcs[0]!).toBeGreaterThan(dcs[1]!);
     expect(dcs[1]!).toBeGreaterThan(dcs[2]!);
     expect(nodeDc(1)).toBe(`${Number(dcs[0]!.toPrecision(3))} V`);
+    // And at full power (the output stage at its clean limit).
+    expect(document.querySelector('tr[data-node="1"] [data-figure="node-full"]')?.textContent).toBe(`${Number(view.result.atFullPower!.volts[0]!.toPrecision(3))} V`);
     // The winding's 200 mA rating and the 5 mV hum budget are checked (notes: well within both).
     const ratings = within(panel.getByRole('list', { name: 'The supply against its ratings' }));
     expect(ratings.getByText(/winding|secondary/i)).toBeTruthy();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, solveOnSupply, solveOnSupplyInRounds, type ChainInput, type SupplyDesign } from '../../src/index';
+import { findOutputTube, findTube, solveOnSupply, solveOnSupplyInRounds, solveSupply, type ChainInput, type SupplyDesign } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own small amplifier on its own supply: the output stage on the reservoir, the follower after a 1k section,
@@ -54,6 +54,25 @@ describe('the amplifier on its supply, solved as one', () => {
     expect(stereo.bplus[2]!).toBeLessThan(mono.bplus[2]! - 2);
     expectClose(stereo.loads[2]!, 2 * input!.supplyCurrent, { rel: 1e-12 }, 'node 3 carries both input stages');
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], channels: 1.5 })).toMatchObject({ ok: false, field: 'channels' });
+  });
+
+  it('at full power the output stage\'s average current moves, and every node sags by the reservoir\'s change (the sections\' currents are the same)', () => {
+    const r = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    if (!r.ok) throw new Error(r.message);
+    const out = r.amplifier.stages[2]!;
+    expect(out.fullPowerCurrent).toBeDefined();
+    expect(Math.abs(out.fullPowerCurrent! - out.supplyCurrent)).toBeGreaterThan(1e-5);
+    const full = r.atFullPower!;
+    expectClose(full.loads[0]!, r.loads[0]! + out.fullPowerCurrent! - out.supplyCurrent, { rel: 1e-12 }, 'the reservoir\'s load');
+    expect(full.loads.slice(1)).toEqual(r.loads.slice(1));
+    const idle = r.supply.nodes.map((n) => n.dc);
+    const sag = full.volts[0]! - idle[0]!;
+    // Ohm's law through each section: the drops are unchanged, so each node moves as the reservoir does.
+    for (const k of [1, 2]) expectClose(full.volts[k]! - idle[k]!, sag, { abs: 0.01 }, `node ${k + 1}`);
+    // The same supply solved directly with those loads.
+    const direct = solveSupply({ ...supply, loads: full.loads });
+    if (!direct.ok) throw new Error(direct.message);
+    expectClose(full.volts[0]!, direct.nodes[0]!.dc, { abs: 0.01 }, 'reservoir at full power');
   });
 
   it('in rounds, pausing after each, it reaches the same solution (a page runs it between frames)', () => {
