@@ -1,4 +1,4 @@
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { solveSupply } from '../supply/solveSupply';
 import type { SupplyDesign, SupplySolution } from '../supply/supplyTypes';
 import type { ChainInput, ChainResult } from './chainTypes';
@@ -33,6 +33,20 @@ export interface AmplifierOnSupplyResult {
 /** Agreement asked between a node's voltage and the B+ its stages were solved at, V. */
 const VOLT_TOL = 0.01;
 const MAX_ITERATIONS = 30;
+/** The least a node may give a stage, V: below it the supply cannot be said to feed the amplifier. */
+const MIN_NODE_VOLTS = 1;
+
+/** The supply too weak for the stages: which node gives out, under what current, and what to change. */
+function cannotDeliver(volts: readonly number[], feeds: readonly number[], loads: readonly number[]): Failure {
+  const k = feeds.reduce((worst, f) => (volts[f]! < volts[worst]! ? f : worst), feeds[0]!);
+  const amps = loads[k] ?? 0;
+  return fail(
+    'supply-too-low',
+    `The supply cannot deliver the stages' current: node ${k + 1} falls to ${volts[k]!.toFixed(1)} V${amps > 0 ? ` under ${(amps * 1e3).toFixed(1)} mA` : ''}. Raise the secondary's voltage, lower the filter's resistances, or feed fewer stages from that node.`,
+    'secondaryRms',
+  );
+}
+
 /** Channels one supply may feed (a multichannel amplifier beyond this has more than one supply). */
 export const MAX_CHANNELS = 8;
 
@@ -74,9 +88,11 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   let last: { amplifier: ChainResult; supply: SupplySolution; bplus: number[] } | null = null;
   let loads: number[] = [];
   for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
-    const bplus = stages.map((s, i) => (volts ? volts[feeds[i]!]! : s.bplus));
+    // A node the stages pulled below the floor (the loads are taken as constant currents for one round) is held
+    // there; the stages then draw less, and a supply that can feed them climbs back.
+    const bplus = stages.map((s, i) => (volts ? Math.max(volts[feeds[i]!]!, MIN_NODE_VOLTS) : s.bplus));
     const chain = solveAmplifier({ ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) });
-    if (!chain.ok) return chain;
+    if (!chain.ok) return volts && bplus.some((b) => b <= MIN_NODE_VOLTS) ? cannotDeliver(volts, feeds, loads) : chain;
     loads = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
     const solved = solveSupply({ ...supply, loads }, volts ? { start: volts } : {});
     if (!solved.ok) return solved;
@@ -87,6 +103,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     volts = next;
     yield;
     if (settled || moved <= VOLT_TOL / 10) {
+      if (feeds.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, feeds, loads);
       const { ok: _a, ...amp } = chain;
       const { ok: _s, ...sup } = solved;
       let atFullPower: AmplifierOnSupplyResult['atFullPower'] = null;

@@ -89,6 +89,15 @@ describe('the amplifier on its supply, solved as one', () => {
     expect(r.value).toEqual(whole);
   });
 
+  it('a supply too weak for the stages says which node gives out and what to change', () => {
+    const weak = solveOnSupply({ amplifier, supply: { ...supply, secondaryRms: 10 }, feeds: [2, 1, 0] });
+    expect(weak).toMatchObject({ ok: false, reason: 'supply-too-low', field: 'secondaryRms', message: expect.stringMatching(/^The supply cannot deliver the stages' current: node \d falls to /) });
+    // A low but able supply still solves, its stages at what it gives.
+    const low = solveOnSupply({ amplifier, supply: { ...supply, secondaryRms: 60 }, feeds: [2, 1, 0] });
+    if (!low.ok) throw new Error(low.message);
+    expect(low.bplus[2]!).toBeLessThan(85);
+  });
+
   it('names a stage without a node', () => {
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1] })).toMatchObject({ ok: false, field: 'feeds' });
     // Found by a fresh robustness seed: no supply at all threw.
