@@ -25,7 +25,7 @@ export function SupplyResults() {
   if (!r.ok) {
     return (
       <div className="supply-results">
-        <p className="finding danger" role="alert">The supply cannot feed this amplifier: {r.message}</p>
+        <p className="finding danger" role="alert">{r.reason === 'supply-too-low' ? r.message : `The amplifier could not be solved on this supply: ${r.message}`}</p>
       </div>
     );
   }

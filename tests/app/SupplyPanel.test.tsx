@@ -84,6 +84,13 @@ describe('the B+ supply on the bench', () => {
     expect(reservoir).toHaveProperty('value', '100u');
   });
 
+  it('a supply too weak for the amplifier says which node gives out and what to change', async () => {
+    const { panel } = bench();
+    fireEvent.change(panel.getByRole('textbox', { name: /^Secondary, each half/ }), { target: { value: '10' } });
+    const alert = await panel.findByText(/^The supply cannot deliver the stages' current: node \d falls to .* Raise the secondary's voltage/, {}, { timeout: 5000 });
+    expect(alert.getAttribute('role')).toBe('alert');
+  }, 15_000);
+
   it('adds and removes filter sections; a stage fed from a node that goes moves to the node before it', () => {
     const { store, panel } = bench();
     fireEvent.click(panel.getByRole('button', { name: 'Add an L–C section' }));
