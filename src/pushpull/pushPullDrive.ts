@@ -1,9 +1,8 @@
 import { bracketedRoot } from '../numeric/bracketedRoot';
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { checkDrive, checkOutputTube, checkSamples } from '../output/checkOutput';
-import { isPowerOfTwo } from '../signal/fft';
+import { harmonicAmplitudes, isPowerOfTwo } from '../signal/fft';
 import { checkPushPull } from './pushPullDesign';
-import { harmonicAmplitudes } from '../signal/fft';
 import { emptyCurrents } from '../output/electrodes';
 import { OUTPUT_SAMPLES, THD_HARMONICS } from '../output/outputSignal';
 import { plateOf, type PushPullSolution } from './solvePushPull';
@@ -116,16 +115,24 @@ function usableFeed(f: unknown): boolean {
   return x.kind === 'tied' || (x.kind === 'fixed' && finite(x.vg2k)) || (x.kind === 'tap' && finite(x.fraction) && finite(x.supply));
 }
 
-/** The pair at a drive, its inputs checked first (a solution from solvePushPull, a drive of 0 to 1000 V, samples a power of two). */
-export function pushPullAtDrive(s: PushPullSolution, drive: number, samples: number = OUTPUT_SAMPLES): Result<PushPullDrive> {
+/** A solution from solvePushPull that its tube and design still pass, with a usable idle point; null when it is. */
+export function checkPushPullSolution(s: PushPullSolution): Failure | null {
   if (typeof s !== 'object' || s === null || (s as { ok?: unknown }).ok !== true) return fail('invalid-input', 'Give a solution from solvePushPull', 'solution');
   const problem = checkPushPull(s.tube, s.design) ?? checkOutputTube(s.tube2);
   if (problem) return problem;
   const finite = (v: unknown) => typeof v === 'number' && Number.isFinite(v);
   const idle = Array.isArray(s.idle) ? s.idle : [];
-  if (!finite(s.vgk) || !finite(s.supply) || !(s.supply > 0) || idle.length !== 2 || !idle.every((p) => typeof p === 'object' && p !== null && finite(p.mmf) && finite(p.ip) && p.ip > 0) || !usableFeed(s.feed)) {
+  // The idle point must be one the design could have: the centre tap at most B+ above the cathode, the grid not above it
+  // nor further below it than B+ (a hand-edited solution with a supply of 1e308 V made infinite figures).
+  const b = s.design.bplus;
+  if (!finite(s.vgk) || !(s.vgk <= 0 && s.vgk >= -b) || !finite(s.supply) || !(s.supply > 0 && s.supply <= b) || idle.length !== 2 || !idle.every((p) => typeof p === 'object' && p !== null && finite(p.mmf) && finite(p.ip) && p.ip > 0) || !usableFeed(s.feed)) {
     return fail('invalid-input', 'The solution has no usable idle point: solve the stage again', 'solution');
   }
-  const bad = checkDrive(drive) ?? checkSamples(samples) ?? (isPowerOfTwo(samples) ? null : fail('invalid-input', 'Samples per cycle must be a power of two', 'samples'));
+  return null;
+}
+
+/** The pair at a drive, its inputs checked first (a solution from solvePushPull, a drive of 0 to 1000 V, samples a power of two). */
+export function pushPullAtDrive(s: PushPullSolution, drive: number, samples: number = OUTPUT_SAMPLES): Result<PushPullDrive> {
+  const bad = checkPushPullSolution(s) ?? checkDrive(drive) ?? checkSamples(samples) ?? (isPowerOfTwo(samples) ? null : fail('invalid-input', 'Samples per cycle must be a power of two', 'samples'));
   return bad ?? { ok: true, ...pushPullDriveOf(s, drive, samples) };
 }

@@ -1,6 +1,6 @@
 import { fail, type Result } from '../result';
 import { SWEEP_SAMPLES } from '../output/outputSignal';
-import { pushPullAtDrive, pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
+import { checkPushPullSolution, pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
 import { plateOf, type PushPullSolution } from './solvePushPull';
 import { emptyCurrents } from '../output/electrodes';
 
@@ -41,8 +41,8 @@ export interface PushPullFigures {
  * Langford-Smith, ch. 13) while in class A it is worst at idle.
  */
 export function pushPullFigures(s: PushPullSolution): Result<PushPullFigures> {
-  const check = pushPullAtDrive(s, 0, SWEEP_SAMPLES);
-  if (!check.ok) return check;
+  const problem = checkPushPullSolution(s);
+  if (problem) return problem;
   const full = -s.vgk;
   if (!(full > 0)) return fail('invalid-input', 'The grids have no negative bias: there is no drive before grid current', 'vg');
   const at = (drive: number) => pushPullDriveOf(s, drive, SWEEP_SAMPLES);
