@@ -2,10 +2,10 @@ import { farads, milliamps, ohms, plain, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**
- * The B+ supply on the card, in four or five lines: what it is, every
+ * The B+ supply on the card, in three or four lines: what it is, every
  * node's voltage and ripple with what it feeds, the rectifier's and
- * winding's currents and the cold voltage, the bleeder, and the worst of its
- * ratings. Null when the supply is off or not solved.
+ * winding's currents and the cold voltage, and the bleeder (its ratings are
+ * in the card's one ratings list). Null when the supply is off or not solved.
  */
 export function supplySection(s: WorkbenchState): { heading: string; lines: string[] } | null {
   const p = s.design.supply;
@@ -26,7 +26,5 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   ];
   const b = view.bleeder;
   if (b?.ok && b.needed) lines.push(`Bleeder ${ohms(b.ohms)}, ${watts(b.partWatts)} across node 1: under 60 V in ${plain(b.seconds, 2)} s`);
-  const worst = r.supply.findings.find((f) => f.severity !== 'note');
-  if (worst) lines.push(`${worst.severity === 'danger' ? 'Danger' : 'Warning'}: ${worst.message}`);
   return { heading: 'B+ supply', lines };
 }

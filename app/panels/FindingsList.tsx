@@ -21,8 +21,9 @@ export function FindingsList() {
     <section className="panel findings" aria-label="Ratings checks">
       <h2>Ratings{stages > 1 ? ', every stage' : ''}</h2>
       <ul>
-        {findings.map((f) => (
-          <li key={`${f.stage}:${f.kind}`} className={`finding ${f.severity}`} data-stage={f.stage}>
+        {findings.map((f, i) => (
+          // A check can appear more than once in a stage (the supply's capacitors, one per node).
+          <li key={`${f.stage}:${f.kind}:${i}`} className={`finding ${f.severity}`} data-stage={f.stage}>
             <span className="severity">{WORD[f.severity]}</span> <span className="finding-stage">{f.stageName}:</span> {f.message}
           </li>
         ))}

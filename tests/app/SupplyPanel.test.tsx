@@ -91,6 +91,17 @@ describe('the B+ supply on the bench', () => {
     expect(alert.getAttribute('role')).toBe('alert');
   }, 15_000);
 
+  it('the supply\'s dangers are in the one ratings list and on the card, tagged with the supply', async () => {
+    const { store, panel } = bench();
+    // A winding rated 50 mA carries well over 100 mA rms.
+    fireEvent.change(panel.getByRole('textbox', { name: /^At its rated current/ }), { target: { value: '50m' } });
+    const ratings = within(screen.getByRole('region', { name: 'Ratings checks' }));
+    const item = await ratings.findByText(/^The secondary carries .* rms against its 50 mA rms rating/, {}, { timeout: 5000 });
+    expect(item.closest('li')!.textContent).toMatch(/^Danger B\+ supply:/);
+    const card = cardSections(store.getState()).find((c) => c.heading === 'Ratings, every stage')!;
+    expect(card.lines.some((l) => /^DANGER: B\+ supply: The secondary carries/.test(l))).toBe(true);
+  }, 15_000);
+
   it('adds and removes filter sections; a stage fed from a node that goes moves to the node before it', () => {
     const { store, panel } = bench();
     fireEvent.click(panel.getByRole('button', { name: 'Add an L–C section' }));
