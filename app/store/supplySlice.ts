@@ -57,7 +57,7 @@ export function supplyDraftsFor(p: SupplyPlan): Record<string, string> {
     'input.c': compact(p.input.c),
     secondaryAmps: p.secondaryAmps === null ? 'none' : compact(p.secondaryAmps),
     humRms: p.humRms === null ? 'none' : compact(p.humRms),
-    regulation: p.regulation === null ? 'none' : compact(p.regulation * 100),
+    regulation: p.regulation === null ? 'none' : compact(p.regulation / TYPED_SCALE.regulation!),
   };
   if (p.input.kind === 'choke') {
     out['input.l'] = compact(p.input.l);
@@ -171,7 +171,7 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
   };
 };
 
-/** Solves the amplifier on its supply somewhere (a Web Worker in the browser). */
+/** Solves the amplifier on its supply, asynchronously (the page's: supplyBetweenFrames). */
 export type SupplySolver = (input: AmplifierOnSupply) => Promise<Result<AmplifierOnSupplyResult> | 'cancelled'>;
 
 /** How long the design must hold still before the supply is solved again, ms. */

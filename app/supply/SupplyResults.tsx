@@ -16,7 +16,9 @@ const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 
 export function SupplyResults() {
   const view = useWorkbench((s) => s.supplyView);
   const plan = useWorkbench((s) => s.design.supply);
-  const design = useWorkbench((s) => s.design);
+  // The two B+ only: the whole design changes on every drag frame, and this table need not follow it.
+  const voltageBplus = useWorkbench((s) => s.design.bplus);
+  const outputBplus = useWorkbench((s) => s.design.output.bplus);
   const useVolts = useWorkbench((s) => s.useSupplyVolts);
   const setSupply = useWorkbench((s) => s.setSupply);
   if (!plan.on) return <div className="supply-results"><p className="field-hint">Not solved: tick “Solve the amplifier on this supply” to see every node’s B+ and ripple.</p></div>;
@@ -33,7 +35,7 @@ export function SupplyResults() {
   const full = r.atFullPower;
   const caps = [plan.input.c, ...plan.sections.map((s) => s.c)];
   const feeding = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => `${n.title} (${n.tube})`);
-  const held = (bench: 'voltage' | 'output') => (bench === 'output' ? design.output.bplus : design.bplus);
+  const held = (bench: 'voltage' | 'output') => (bench === 'output' ? outputBplus : voltageBplus);
   const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: r.bplus[i]!, bench: held(n.bench) })).filter((x, i, all) => all.findIndex((y) => y.n.bench === x.n.bench) === i);
   // Within 1 % is as close as the parts and the mains hold it (common practice: mains ±10 %, resistors ±5 %).
   const differs = offBy.some((x) => Math.abs(x.supply - x.bench) > SAME_BPLUS_SHARE * x.supply);

@@ -80,12 +80,6 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
     if (marched === null) return fail('no-convergence', 'The supply did not settle within 5,000 mains cycles: check the filter values', 'sections');
     cycles = marched;
   }
-  let t = 0;
-  let inflow = 0;
-  const step = (at: number, h: number) => {
-    st.step(at, h);
-    inflow = st.inflow();
-  };
   const means = new Float64Array(n);
 
   // Measure one period of the rectified source (half a mains cycle: both halves are alike) at the fine step.
@@ -99,16 +93,15 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
   let conducting = 0;
   const prev = new Float64Array(n);
   const h = period / 2 / measured;
-  means.fill(0);
   const samples: number[][] = Array.from({ length: n }, () => []);
-  const tStart = t;
   const waveT: number[] = [];
   const waveI: number[] = [];
   const waveV: number[] = [];
   for (let k = 0; k < measured; k++) {
     prev.set(v);
-    t += h;
-    step(t, h);
+    const t = (k + 1) * h;
+    st.step(t, h);
+    const inflow = st.inflow();
     for (let m = 0; m < n; m++) {
       const x = v[m]!;
       means[m] = means[m]! + x / measured;
@@ -121,7 +114,7 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
     iPeak = Math.max(iPeak, inflow);
     iSq += (inflow * inflow) / measured;
     if ((k + 1) % WAVE_EVERY === 0) {
-      waveT.push(t - tStart);
+      waveT.push(t);
       waveI.push(inflow);
       waveV.push(v[0]!);
     }

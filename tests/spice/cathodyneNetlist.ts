@@ -1,6 +1,7 @@
 import type { CathodyneDesign } from '../../src/index';
 import { modelOf } from '../../src/tube/types';
 import { triodeSubckt } from './netlists';
+import { splitterLoadLines } from './splitterLoads';
 
 /**
  * The split-load splitter for ngspice: the triode by Koren's law, Ra, Rb and
@@ -20,12 +21,7 @@ export function cathodyneNetlist(d: CathodyneDesign, probe: 'gain' | 'plate' | '
   const ac = probe === 'gain' ? 'AC 1' : 'AC 0';
   if (d.grid.kind === 'fixed') lines.push(`VG grid 0 DC ${g(d.grid.volts)} ${ac}`);
   else lines.push(`VIN in 0 DC 0 ${ac}`, 'CIN in grid 1', 'RG grid tap 1e9');
-  for (const [node, load] of [['plate', 'la'], ['cathode', 'lk']] as const) {
-    lines.push(`C${load} ${node} ${load} 1`);
-    if (Number.isFinite(rl)) lines.push(`R${load} ${load} 0 ${g(rl)}`);
-    if (cl > 0) lines.push(`CC${load} ${load} 0 ${g(cl)}`);
-  }
-  if (probe !== 'gain') lines.push(`IZ 0 ${probe} DC 0 AC 1`);
+  lines.push(...splitterLoadLines(['plate', 'cathode'], rl, cl, probe === 'gain' ? null : probe));
   lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) v(grid)', `ac lin 1 ${g(hz)} ${g(hz)}`, 'print vr(plate) vi(plate) vr(cathode) vi(cathode) vr(grid) vi(grid)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }

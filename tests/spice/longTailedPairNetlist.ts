@@ -1,6 +1,7 @@
 import type { LongTailedPairDesign } from '../../src/index';
 import { modelOf } from '../../src/tube/types';
 import { triodeSubckt } from './netlists';
+import { splitterLoadLines } from './splitterLoads';
 
 /**
  * The long-tailed pair for ngspice: two triodes by Koren's law, the plate
@@ -22,12 +23,7 @@ export function longTailedPairNetlist(d: LongTailedPairDesign, probe: 'gain' | '
   else lines.push(`IT t 0 DC ${g(d.tail.amps)}`);
   if (d.grid.kind === 'fixed') lines.push(`VG1 g1 0 DC ${g(d.grid.volts)} ${ac}`, `VG2 g2 0 DC ${g(d.grid.volts)}`);
   else lines.push(`VIN in 0 DC 0 ${ac}`, 'CIN in g1 1', 'RG1 g1 t 1e9', 'RG2 g2 t 1e9', 'CG2 g2 0 1');
-  for (const [node, load] of [['p1', 'l1'], ['p2', 'l2']] as const) {
-    lines.push(`C${load} ${node} ${load} 1`);
-    if (Number.isFinite(rl)) lines.push(`R${load} ${load} 0 ${g(rl)}`);
-    if (cl > 0) lines.push(`CC${load} ${load} 0 ${g(cl)}`);
-  }
-  if (probe !== 'gain') lines.push(`IZ 0 ${probe} DC 0 AC 1`);
+  lines.push(...splitterLoadLines(['p1', 'p2'], rl, cl, probe === 'gain' ? null : probe));
   lines.push('.control', 'set numdgt=12', 'op', 'print v(p1) v(p2) v(k) v(g1)', `ac lin 1 ${g(hz)} ${g(hz)}`, 'print vr(p1) vi(p1) vr(p2) vi(p2) vr(g1) vi(g1)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }
