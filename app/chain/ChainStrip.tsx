@@ -1,87 +1,94 @@
-import type { StageFinding } from '../../src/index';
 import { useWorkbench } from '../store/StoreProvider';
 import { plain, rmsLevel, watts } from '../format';
-
-/** Headroom shown on each card's bar: 20 dB fills it. */
-const HEADROOM_FULL_DB = 20;
+import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '../store/stagePlans';
+import { StageCard } from './StageCard';
+import { StageMenu } from './StageMenu';
 
 const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
 const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
 
-function worstOf(findings: readonly StageFinding[]): { text: string; severity: 'danger' | 'warning' | 'ok' } {
-  const f = findings.find((x) => x.severity === 'danger') ?? findings.find((x) => x.severity === 'warning');
-  return f ? { text: f.message, severity: f.severity as 'danger' | 'warning' } : { text: 'Within every rating', severity: 'ok' };
-}
-
 /**
  * The amplifier, input to output: one card per stage (its kind, tube, gain,
  * headroom and worst finding), the whole chain's figures beside them. A card
- * opens its stage on the bench below.
+ * opens its stage on the bench below; under each voltage stage, moving,
+ * removing and adding stages.
  */
 export function ChainStrip() {
   const view = useWorkbench((s) => s.amplifier);
-  const stageKind = useWorkbench((s) => s.design.stageKind);
-  const drivesOutput = useWorkbench((s) => s.design.drivesOutput);
+  const design = useWorkbench((s) => s.design);
+  const note = useWorkbench((s) => s.chainNote);
   const setStageKind = useWorkbench((s) => s.setStageKind);
+  const showStage = useWorkbench((s) => s.showStage);
   const setDrivesOutput = useWorkbench((s) => s.setDrivesOutput);
   if (!view) return null;
   const r = view.result;
+  const list = voltageStages(design);
+  const bench = benchIndex(design);
+  const followerOnBench = design.stage2.kind !== 'none';
+  const gains = list.flatMap((p, i) => (p.kind === 'common-cathode' ? [i] : []));
+  const full = list.length >= MAX_VOLTAGE_STAGES;
   return (
     <section className={`chain-strip panel${view.stale ? ' stale' : ''}`} aria-label="The amplifier, stage by stage">
       <div className="chain-head">
         <h2>Amplifier</h2>
         <label>
-          <input type="checkbox" checked={drivesOutput} onChange={(e) => setDrivesOutput(e.currentTarget.checked)} />
+          <input type="checkbox" checked={design.drivesOutput} onChange={(e) => setDrivesOutput(e.currentTarget.checked)} />
           The voltage stages drive the output stage
         </label>
       </div>
-      {!r.ok ? (
-        <p className="chain-failure" role="status">{r.message}</p>
-      ) : (
-        <>
-          <ol className="chain-cards">
-            {r.stages.map((st, i) => {
-              const name = view.names[i]!;
-              const worst = worstOf(st.findings);
-              const clipsHere = r.clipsFirst.stage === i;
-              const headroom = st.headroomDb;
-              return (
-                <li key={i}>
-                  <button
-                    type="button"
-                    className={`chain-card ${worst.severity}`}
-                    aria-pressed={stageKind === name.bench}
-                    onClick={() => setStageKind(name.bench)}
-                  >
-                    <span className="card-title">{name.title} · {name.tube} <span className="card-kind">{view.kinds[i]!.toLowerCase()}</span></span>
-                    <span className="card-gain">gain {plain(st.gain)}×{st.kind === 'single-ended-output' ? ' (grid to speaker)' : ''}</span>
-                    <span className="card-headroom">
-                      <meter min={0} max={HEADROOM_FULL_DB} low={3} optimum={HEADROOM_FULL_DB} value={headroom === null ? HEADROOM_FULL_DB : Math.min(headroom, HEADROOM_FULL_DB)} aria-label="headroom" />
-                      {clipsHere ? `clips first (${r.clipsFirst.by === 'grid-current' ? 'grid current' : 'cutoff'})` : headroom === null ? 'never clips' : `${headroom.toFixed(1)} dB headroom`}
-                    </span>
-                    <span className={`card-worst ${worst.severity}`} title={worst.text}>{worst.severity === 'ok' ? '✓ ' : worst.severity === 'danger' ? '⚠ Danger: ' : '⚠ '}{worst.text}</span>
-                  </button>
-                </li>
-              );
-            })}
-          </ol>
-          <dl className="chain-figures" data-testid="amplifier-figures">
-            <div><dt>Gain</dt><dd>{gainDb(r.gain)} ({plain(Math.abs(r.gain))}×{r.inverting ? ', inverting' : ''})</dd></div>
-            <div><dt>Band (−3 dB)</dt><dd>{hz(r.lowHz, 'DC')} to {hz(r.highHz, 'beyond 100 MHz')}</dd></div>
-            <div>
-              <dt>Clean to</dt>
-              <dd>
-                {r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
-              </dd>
-            </div>
-            {view.atLevel && (
-              <div>
-                <dt>At {view.levelLabel}</dt>
-                <dd>{view.atLevel.ok ? `${rmsLevel(view.atLevel.input, 'dBu')} in, THD ${plain(view.atLevel.thd * 100, 2)} %` : view.atLevel.message}</dd>
+      {!r.ok && <p className="chain-failure" role="status">{r.message}</p>}
+      {note && <p className="chain-note" role="status">{note}</p>}
+      <ol className="chain-cards">
+        {view.names.map((name, i) => {
+          const v = name.voltageIndex;
+          const onBench = v === null ? design.stageKind === 'output' : design.stageKind === 'voltage' && (v === bench || (followerOnBench && v === bench + 1));
+          const result = r.ok ? r.stages[i] ?? null : null;
+          const isFollower = v !== null && list[v]?.kind === 'follower';
+          return (
+            <li key={`${i}-${name.tube}`}>
+              <div className="chain-stage">
+                <StageCard
+                  name={name}
+                  kind={view.kinds[i]!}
+                  result={result}
+                  clipsFirst={r.ok && r.clipsFirst.stage === i ? r.clipsFirst : null}
+                  onBench={onBench}
+                  onOpen={() => (v === null ? setStageKind('output') : showStage(v))}
+                />
+                {v !== null && (
+                  <StageMenu
+                    index={v}
+                    title={name.title}
+                    isFollower={isFollower}
+                    first={v === 0}
+                    last={!gains.some((g) => g > v)}
+                    followerFits={canAddFollower(list, v)}
+                    full={full}
+                    removable={isFollower || gains.length > 1}
+                  />
+                )}
               </div>
-            )}
-          </dl>
-        </>
+            </li>
+          );
+        })}
+      </ol>
+      {r.ok && (
+        <dl className="chain-figures" data-testid="amplifier-figures">
+          <div><dt>Gain</dt><dd>{gainDb(r.gain)} ({plain(Math.abs(r.gain))}×{r.inverting ? ', inverting' : ''})</dd></div>
+          <div><dt>Band (−3 dB)</dt><dd>{hz(r.lowHz, 'DC')} to {hz(r.highHz, 'beyond 100 MHz')}</dd></div>
+          <div>
+            <dt>Clean to</dt>
+            <dd>
+              {r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
+            </dd>
+          </div>
+          {view.atLevel && (
+            <div>
+              <dt>At {view.levelLabel}</dt>
+              <dd>{view.atLevel.ok ? `${rmsLevel(view.atLevel.input, 'dBu')} in, THD ${plain(view.atLevel.thd * 100, 2)} %` : view.atLevel.message}</dd>
+            </div>
+          )}
+        </dl>
       )}
     </section>
   );

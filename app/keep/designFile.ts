@@ -4,6 +4,7 @@ import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
 import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
 import { readSupplyPlan } from './supplyInFile';
+import { MAX_VOLTAGE_STAGES, normalized, type FollowerPlan, type GainPlan, type StagePlan } from '../store/stagePlans';
 
 /**
  * Quiescent's design file: our own JSON format, versioned.
@@ -13,7 +14,16 @@ import { readSupplyPlan } from './supplyInFile';
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
  *                                      bias, rk, vg, rg, speakerOhms, thdLimit }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
- *                           channels, secondaryAmps, humRms } } }
+ *                           channels, secondaryAmps, humRms },
+ *                 before: [stage…], after: [stage…] } }
+ *
+ * Version 3 holds the whole chain of voltage stages: the design's own
+ * fields are the stage on the bench (and `stage2` its follower), `before`
+ * and `after` the stages either side of it, input first (stagePlans.ts). A
+ * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg }
+ * (cc null: direct from the source, first stage only) or
+ * { kind: "follower", tubeId, rk } (direct-coupled to the gain stage before it).
+ * Versions 1 and 2 open as a chain of their one or two voltage stages.
  *
  * `drivesOutput` (true: the voltage stages drive the output stage, one
  * amplifier; RL is then the output grid resistor) came later within
@@ -27,7 +37,7 @@ import { readSupplyPlan } from './supplyInFile';
  * every field; nothing of a file that fails is applied.
  */
 export const DESIGN_FORMAT = 'quiescent-design';
-export const DESIGN_FORMAT_VERSION = 2;
+export const DESIGN_FORMAT_VERSION = 3;
 /** Largest design file accepted, in bytes. */
 export const MAX_DESIGN_FILE_BYTES = 1_000_000;
 /** Longest design title, in characters: in files, in the store and in the title box. */
@@ -65,7 +75,7 @@ const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'strin
 /** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
 const tubeId: Check = (v) => (typeof v === 'string' && v.trim().length > 0 && v.length <= 60 ? null : 'must name a tube (text of at most 60 characters)');
 
-const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput' | 'supply'>, Check> = {
+const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput' | 'supply' | 'before' | 'after'>, Check> = {
   tubeId,
   bplus: num(L.bplus),
   ra: num(L.ra),
@@ -88,6 +98,50 @@ const STAGE2_FIELDS: Record<keyof Stage2Design, Check> = {
   rk: num(L.stage2.rk),
   rg: num(L.stage2.rg),
 };
+
+const GAIN_PLAN_FIELDS: Record<keyof Omit<GainPlan, 'kind'>, Check> = {
+  tubeId,
+  bplus: num(L.bplus),
+  ra: num(L.ra),
+  rk: num(L.rk),
+  bypassed: bool,
+  ck: numOrNull(L.ck),
+  cc: numOrNull(L.cin),
+  rg: num(L.rg),
+};
+const FOLLOWER_PLAN_FIELDS: Record<keyof Omit<FollowerPlan, 'kind'>, Check> = { tubeId, rk: num(L.stage2.rk) };
+
+/** One side of the chain (`before` or `after`): each stage checked field by field, and the order a chain can have. */
+function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, afterGain: boolean): { ok: true; plans: StagePlan[] } | { ok: false; message: string } {
+  if (v === undefined) return { ok: true, plans: [] };
+  if (!Array.isArray(v)) return { ok: false, message: `design.${side} must be a list of stages (found ${quote(v)}). Nothing was opened.` };
+  const plans: StagePlan[] = [];
+  let prevIsGain = afterGain;
+  for (const [i, raw] of v.entries()) {
+    const at = `design.${side}[${i}]`;
+    if (!isRecord(raw)) return { ok: false, message: `${at} must be a stage (found ${quote(raw)}). Nothing was opened.` };
+    const kindProblem = oneOf(['common-cathode', 'follower'])(raw.kind);
+    if (kindProblem) return { ok: false, message: `${at}.kind ${kindProblem} (found ${quote(raw.kind)}). Nothing was opened.` };
+    const fields = raw.kind === 'follower' ? FOLLOWER_PLAN_FIELDS : GAIN_PLAN_FIELDS;
+    for (const [key, check] of Object.entries(fields)) {
+      const problem = check(raw[key]);
+      if (problem) return { ok: false, message: `${at}.${key} ${problem} (found ${quote(raw[key])}). Nothing was opened.` };
+    }
+    if (raw.kind === 'follower') {
+      if (!prevIsGain) return { ok: false, message: `${at} is a cathode follower with no gain stage right before it to be direct-coupled to. Nothing was opened.` };
+      plans.push({ kind: 'follower', tubeId: knownId(raw.tubeId as string), rk: raw.rk as number });
+    } else {
+      const first = firstIsInput && i === 0;
+      if (!first && raw.cc === null) return { ok: false, message: `${at}.cc must be a coupling capacitor: only the first stage may be direct-coupled (to the source). Nothing was opened.` };
+      plans.push({
+        kind: 'common-cathode', tubeId: knownId(raw.tubeId as string), bplus: raw.bplus as number, ra: raw.ra as number, rk: raw.rk as number,
+        bypassed: raw.bypassed as boolean, ck: raw.ck as number | null, cc: raw.cc as number | null, rg: raw.rg as number,
+      });
+    }
+    prevIsGain = raw.kind !== 'follower';
+  }
+  return { ok: true, plans };
+}
 
 const outputTubeId: Check = (v) => (typeof v === 'string' && findOutputTube(v) ? null : 'must name an output tube in the library');
 const OUTPUT_FIELDS: Record<keyof OutputDesign, Check> = {
@@ -179,6 +233,14 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   }
   const supply = readSupplyPlan(d.supply);
   if (!supply.ok) return supply;
+  // Versions 1 and 2 hold no stages beyond the bench's: their chain is its stage and its second stage.
+  const before = readPlans(raw.version >= 3 ? d.before : undefined, 'before', true, false);
+  if (!before.ok) return before;
+  if (before.plans.length > 0 && d.cin === null) return { ok: false, message: 'design.cin must be a coupling capacitor: only the first stage may be direct-coupled (to the source). Nothing was opened.' };
+  const after = readPlans(raw.version >= 3 ? d.after : undefined, 'after', false, s2.kind === 'none' || s2.kind === 'common-cathode');
+  if (!after.ok) return after;
+  const count = before.plans.length + 1 + (s2.kind === 'none' ? 0 : 1) + after.plans.length;
+  if (count > MAX_VOLTAGE_STAGES) return { ok: false, message: `The file holds ${count} voltage stages; an amplifier here has at most ${MAX_VOLTAGE_STAGES}. Nothing was opened.` };
   const design: BenchDesign = {
     tubeId: knownId(d.tubeId as string),
     bplus: d.bplus as number,
@@ -201,12 +263,14 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       rk: s2.rk as number,
       rg: s2.rg as number,
     },
+    before: before.plans,
+    after: after.plans,
     stageKind,
     output,
     drivesOutput,
     supply: supply.plan,
   };
-  return { ok: true, doc: { title: raw.title, design } };
+  return { ok: true, doc: { title: raw.title, design: normalized(design) } };
 }
 
 /** A known tube's id as the library spells it; an unknown name as written. */
@@ -220,11 +284,13 @@ const knownId = (name: string) => lookupTube(name)?.id ?? name;
  */
 export function withKnownTubes(doc: DesignDocument): { doc: DesignDocument; note: string | null } {
   const d = doc.design;
-  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : [])].filter((id) => !lookupTube(id)))];
+  const others = [...d.before, ...d.after].map((p) => p.tubeId);
+  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : []), ...others].filter((id) => !lookupTube(id)))];
   if (missing.length === 0) return { doc, note: null };
   const stand = DEMO_DESIGN.tubeId;
   const swap = (id: string) => (lookupTube(id) ? id : stand);
-  const design: BenchDesign = { ...d, tubeId: swap(d.tubeId), stage2: { ...d.stage2, tubeId: swap(d.stage2.tubeId) } };
+  const swapAll = (list: readonly StagePlan[]) => list.map((p) => ({ ...p, tubeId: swap(p.tubeId) }));
+  const design: BenchDesign = { ...d, tubeId: swap(d.tubeId), stage2: { ...d.stage2, tubeId: swap(d.stage2.tubeId) }, before: swapAll(d.before), after: swapAll(d.after) };
   const names = missing.map((m) => `“${m}”`).join(' and ');
   return {
     doc: { ...doc, design },

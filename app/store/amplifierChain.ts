@@ -7,16 +7,12 @@ import {
   type ChainResult,
   type ChainStage,
   type Failure,
+  type Result,
+  type TubeRecord,
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import type { BenchDesign } from './analysis';
-
-/**
- * A coupling capacitor the bench has no field for yet (between the first and
- * a second gain stage): taken as ideal, the largest value the model accepts,
- * so it adds no low-frequency corner of its own.
- */
-const IDEAL_FARADS = 10;
+import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
 
 /** A stage as the chain strip names it. */
 export interface ChainCardName {
@@ -24,39 +20,76 @@ export interface ChainCardName {
   readonly tube: string;
   /** Which bench shows the stage's chart and values. */
   readonly bench: BenchDesign['stageKind'];
+  /** The stage's place among the voltage stages (voltageStages), or null for the output stage. */
+  readonly voltageIndex: number | null;
 }
 
-/** The bench's design as one amplifier: the voltage stage, its second stage if any, and the output stage when driven. */
-export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainCardName[] } | null {
-  const tube = lookupTube(d.tubeId);
-  if (!tube) return null;
-  const stages: ChainStage[] = [
-    {
-      kind: 'common-cathode', tube, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed,
-      ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
-      coupling: d.cin === null ? { kind: 'direct' } : { kind: 'capacitor', cc: d.cin, rg: d.rg },
-    },
-  ];
-  const names: ChainCardName[] = [{ title: 'Stage 1', tube: tube.id, bench: 'voltage' }];
-  const s2 = d.stage2;
-  const tube2 = s2.kind === 'none' ? null : lookupTube(s2.tubeId);
-  if (s2.kind !== 'none') {
-    if (!tube2) return null;
-    stages.push(
-      s2.kind === 'follower'
-        ? { kind: 'follower', tube: tube2, bplus: d.bplus, rk: s2.rk, coupling: { kind: 'direct' } }
-        : { kind: 'common-cathode', tube: tube2, bplus: d.bplus, ra: s2.ra, rk: s2.rk, bypassed: true, coupling: { kind: 'capacitor', cc: IDEAL_FARADS, rg: s2.rg } },
-    );
-    names.push({ title: 'Stage 2', tube: tube2.id, bench: 'voltage' });
+type Tubes = { ok: true; tubes: TubeRecord[] } | (Failure & { stage: number });
+
+/** Each voltage stage's tube, or which stage names one this browser does not know. */
+function tubesOf(list: readonly StagePlan[]): Tubes {
+  const tubes: TubeRecord[] = [];
+  for (const [i, p] of list.entries()) {
+    const tube = lookupTube(p.tubeId);
+    if (!tube) return { ok: false, reason: 'invalid-tube', message: `Stage ${i + 1}: no tube called “${p.tubeId}” in the library or among your own`, stage: i };
+    tubes.push(tube);
   }
+  return { ok: true, tubes };
+}
+
+/** The model's chain stages for voltage plans (their tubes looked up). */
+function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[]): ChainStage[] {
+  return list.map((p, i): ChainStage => {
+    const tube = tubes[i]!;
+    if (p.kind === 'follower') return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, coupling: { kind: 'direct' } };
+    return {
+      kind: 'common-cathode', tube, bplus: p.bplus, ra: p.ra, rk: p.rk, bypassed: p.bypassed,
+      ...(p.bypassed && p.ck !== null && p.rk > 0 ? { ck: p.ck } : {}),
+      coupling: p.cc === null ? { kind: 'direct' } : { kind: 'capacitor', cc: p.cc, rg: p.rg },
+    };
+  });
+}
+
+/** The bench's design as one amplifier: every voltage stage, and the output stage when driven. */
+export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainCardName[] } | null {
+  const list = voltageStages(d);
+  const found = tubesOf(list);
+  if (!found.ok) return null;
+  const stages = chainStagesOf(list, found.tubes);
+  const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i }));
   const outputTube = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
   if (outputTube) {
     const { tubeId: _id, rg, ...parts } = d.output;
-    stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_FARADS, rg } });
-    names.push({ title: 'Output', tube: outputTube.id, bench: 'output' });
+    stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
+    names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null });
   }
   const load = !outputTube && Number.isFinite(d.rl) ? { load: { rl: d.rl } } : {};
   return { input: { source: { rsource: d.rsource }, stages, ...load }, names };
+}
+
+const sources = new WeakMap<readonly StagePlan[], { rsource: number; result: Result<{ ohms: number }> }>();
+
+/**
+ * What drives the bench stage's grid: the amplifier's source for the first
+ * stage, else the output impedance of the stage before it (solved with the
+ * stages before it, remembered per list, so a drag on the bench never
+ * solves them again).
+ */
+export function benchSource(d: BenchDesign): Result<{ ohms: number }> {
+  if (d.before.length === 0) return { ok: true, ohms: d.rsource };
+  const hit = sources.get(d.before);
+  if (hit && hit.rsource === d.rsource) return hit.result;
+  const result = solvePrefix(d.before, d.rsource);
+  sources.set(d.before, { rsource: d.rsource, result });
+  return result;
+}
+
+function solvePrefix(before: readonly StagePlan[], rsource: number): Result<{ ohms: number }> {
+  const found = tubesOf(before);
+  if (!found.ok) return found;
+  const r = solveAmplifier({ source: { rsource }, stages: chainStagesOf(before, found.tubes) });
+  if (!r.ok) return { ...r, message: `A stage before this one cannot run: ${r.message}` };
+  return { ok: true, ohms: r.stages[r.stages.length - 1]!.zout };
 }
 
 /** What the chain strip shows: the whole amplifier, and it at a working level (1 W into the speaker, or the bench's output level). */

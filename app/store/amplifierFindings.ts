@@ -1,18 +1,29 @@
 import { amplifierFindings, type Finding, type StageFinding } from '../../src/index';
 import type { WorkbenchState } from './workbenchStore';
+import { benchIndex, voltageStages } from './stagePlans';
 
 /** How the supply is named in the ratings list. */
 export const SUPPLY_STAGE_NAME = 'B+ supply';
 
-const STAGE2_NAME = { follower: 'cathode follower', 'common-cathode': 'second gain stage' } as const;
+const KIND_NAME = { follower: 'cathode follower', 'common-cathode': 'gain stage' } as const;
 
 /** The stages whose findings the bench lists, named as the builder sees them. */
 function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding[] }[] {
   const d = s.design;
-  const stages: { name: string; findings: readonly Finding[] }[] = [{ name: `Stage 1, ${d.tubeId}`, findings: s.analysis.solution.findings }];
+  const list = voltageStages(d);
+  const bench = benchIndex(d);
   const chain = s.analysis.signal.chain;
   const link = chain?.ok ? chain.links[1] : undefined;
-  if (link && d.stage2.kind !== 'none') stages.push({ name: `Stage 2, ${d.stage2.tubeId} ${STAGE2_NAME[d.stage2.kind]}`, findings: link.findings });
+  // The bench's stage and its second stage from the bench's own analysis; the others from the whole amplifier's.
+  const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
+  const stages: { name: string; findings: readonly Finding[] }[] = [];
+  for (const [i, p] of list.entries()) {
+    const name = `Stage ${i + 1}, ${p.tubeId} ${KIND_NAME[p.kind]}`;
+    if (i === bench) stages.push({ name, findings: s.analysis.solution.findings });
+    else if (i === bench + 1 && d.stage2.kind !== 'none') {
+      if (link) stages.push({ name, findings: link.findings });
+    } else if (amp?.stages[i]) stages.push({ name, findings: amp.stages[i]!.findings });
+  }
   if (d.stageKind === 'output' || d.drivesOutput) stages.push({ name: `Output stage, ${d.output.tubeId}`, findings: s.outputBench.analysis.findings });
   // The supply's warnings and dangers belong in the same list (a capacitor over its voltage is as dangerous as a plate);
   // its notes, the margins, stay with its own table.

@@ -17,6 +17,8 @@ import {
 import { lookupTube } from '../keep/customTubes';
 import { analyzeSignal, type SignalAnalysis } from './signalAnalysis';
 import type { SupplyPlan } from './supplyPlan';
+import { loadAfterBench, type StagePlan } from './stagePlans';
+import { benchSource } from './amplifierChain';
 
 /** The design as the bench holds it: what the user chose, in SI units. */
 export interface BenchDesign {
@@ -43,6 +45,10 @@ export interface BenchDesign {
   /** Output level the distortion figures are taken at, V rms. */
   readonly levelRms: number;
   readonly stage2: Stage2Design;
+  /** The voltage stages before the one on the bench, input first (see stagePlans.ts). */
+  readonly before: readonly StagePlan[];
+  /** The voltage stages after the bench's stage and its follower, up to the output stage. */
+  readonly after: readonly StagePlan[];
   /** Which stage the bench shows: the resistance-coupled voltage stage or the transformer-coupled output stage. */
   readonly stageKind: StageKind;
   readonly output: OutputDesign;
@@ -87,6 +93,8 @@ export interface Analysis {
 export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false, maxCurves = MAX_FAMILY_CURVES): ({ ok: true } & Analysis) | Failure {
   const tube = lookupTube(design.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library or among your own`, field: 'tube' };
+  const source = benchSource(design);
+  if (!source.ok) return source;
   const stage = stageDesignOf(design, tube);
   const solved = solvedStage(stage);
   if (!solved.ok) return solved;
@@ -99,11 +107,17 @@ export function analyze(design: BenchDesign, prev: Analysis | null, extent?: Pla
   return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet, signal, maxCurves };
 }
 
-/** The model's stage design for the bench's first stage, with its signal parts. */
+/**
+ * The model's stage design for the bench's stage, with its signal parts: fed
+ * by the source or the stage before it, loaded by its follower, the next
+ * stage's grid, or the amplifier's own load.
+ */
 export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign {
   // With a second stage, RL and Cout belong to the end of the chain; stage 1 drives stage 2.
   const chained = d.stage2.kind !== 'none';
-  const load = !chained ? d.rl : d.stage2.kind === 'follower' ? Infinity : d.stage2.rg;
+  const after = loadAfterBench(d);
+  const load = !chained ? after.rl : d.stage2.kind === 'follower' ? Infinity : d.stage2.rg;
+  const source = benchSource(d);
   return {
     tube,
     bplus: d.bplus,
@@ -112,9 +126,9 @@ export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign {
     bypassed: d.bypassed,
     rl: load,
     rg: d.rg,
-    rsource: d.rsource,
+    rsource: source.ok ? source.ohms : d.rsource,
     ...(d.cin !== null ? { cin: d.cin } : {}),
     ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
-    ...(d.cout !== null && !chained ? { cout: d.cout } : {}),
+    ...(after.cout !== null && !chained ? { cout: after.cout } : {}),
   };
 }

@@ -27,6 +27,8 @@ export const DEMO_DESIGN: BenchDesign = {
   cout: 1e-6,
   levelRms: 2,
   stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
+  before: [],
+  after: [],
   stageKind: 'voltage',
   drivesOutput: true,
   output: {

@@ -11,6 +11,7 @@ import { MAX_TITLE_CHARS } from '../keep/designFile';
 import { FIELD_NAMES, FIELDS, type FieldName } from './fields';
 import type { WorkbenchState } from './workbenchStore';
 import { supplyDraftsFor } from './supplySlice';
+import { chainProblem } from './chainSlice';
 
 export type Drafts = Record<FieldName, string>;
 export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube', string>>;
@@ -146,6 +147,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const s = get();
     const joined = withOutputDriven(asked, s.design);
     if (!joined.ok) return joined;
+    const shape = chainProblem(joined.design);
+    if (shape) return shape;
     const next = joined.design;
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};

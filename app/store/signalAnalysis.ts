@@ -26,6 +26,7 @@ import {
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import type { BenchDesign } from './analysis';
+import { loadAfterBench } from './stagePlans';
 
 /** What the signal views show; the store asks the model for all of it. */
 export interface SignalAnalysis {
@@ -54,8 +55,10 @@ function chainLinks(stage1: StageDesign, d: BenchDesign): ChainLink[] | null {
   if (s2.kind === 'none' || !tube) return null;
   // The chain solver applies the second stage's loading to stage 1 itself.
   const first: ChainLink = { kind: 'common-cathode', ...stage1, rl: Infinity };
-  if (s2.kind === 'follower') return [first, { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl: d.rl }];
-  return [first, { kind: 'common-cathode', tube, bplus: d.bplus, ra: s2.ra, rk: s2.rk, rg: s2.rg, bypassed: true, rl: d.rl }];
+  // The second stage drives the next gain stage's grid, or the amplifier's own load.
+  const { rl } = loadAfterBench(d);
+  if (s2.kind === 'follower') return [first, { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl }];
+  return [first, { kind: 'common-cathode', tube, bplus: d.bplus, ra: s2.ra, rk: s2.rk, rg: s2.rg, bypassed: true, rl }];
 }
 
 /**

@@ -4,6 +4,7 @@ import type { ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
 import { compact } from './fields';
+import { withVoltageBplus } from './stagePlans';
 import { DEMO_DESIGN } from './demoDesign';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
@@ -40,13 +41,15 @@ export interface SupplySlice {
 export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | null {
   const r = view.result;
   if (!r.ok) return null;
+  // Every voltage stage hangs from the one node that feeds them (plan.feeds.voltage).
   const at = (bench: 'voltage' | 'output') => {
     const i = view.names.findIndex((n) => n.bench === bench);
     return i < 0 ? null : Math.round(r.bplus[i]!);
   };
   const v = at('voltage');
   const o = at('output');
-  return { ...d, ...(v !== null ? { bplus: v } : {}), ...(o !== null ? { output: { ...d.output, bplus: o } } : {}) };
+  const voltage = v !== null ? withVoltageBplus(d, v) : d;
+  return o !== null ? { ...voltage, output: { ...d.output, bplus: o } } : voltage;
 }
 
 /** The plan's values that have boxes, by path, with how each is shown. */
@@ -212,7 +215,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
         // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
         const next = d.supply.follow ? supplyBplusOf(d, view) : null;
-        if (next && (next.bplus !== d.bplus || next.output.bplus !== d.output.bplus)) store.getState().commit(next);
+        const moved = (a: BenchDesign['before'], b: BenchDesign['before']) => a.some((p, i) => p !== b[i]);
+        if (next && (next.bplus !== d.bplus || next.output.bplus !== d.output.bplus || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
       });
     }, SUPPLY_SETTLE_MS);
   };

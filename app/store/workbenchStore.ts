@@ -6,10 +6,11 @@ import { createCustomSlice, type CustomSlice } from './customSlice';
 import { createHistorySlice, recordHistory, type HistorySlice } from './historySlice';
 import { createViewSlice, type ViewSlice } from './viewSlice';
 import { createOutputSlice, type OutputSlice } from './outputSlice';
+import { createChainSlice, type ChainSlice } from './chainSlice';
 import { createSupplySlice, watchSupply, type SupplySlice, type SupplySolver } from './supplySlice';
 
 /** The whole workbench state: the slices, combined once. */
-export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice & SupplySlice;
+export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice & SupplySlice & ChainSlice;
 export type WorkbenchStore = StoreApi<WorkbenchState>;
 
 export interface StoreOptions {
@@ -34,6 +35,7 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createCustomSlice(...a),
     ...createOutputSlice(...a),
     ...createSupplySlice(...a),
+    ...createChainSlice(...a),
   }));
   recordHistory(store, options.now);
   watchSupply(store, options.supplySolver ?? null);

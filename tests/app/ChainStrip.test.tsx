@@ -4,12 +4,15 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 
+/** The stage cards in the strip (each stage's menu buttons aside). */
+const cardsOf = () => [...screen.getByRole('region', { name: 'The amplifier, stage by stage' }).querySelectorAll<HTMLButtonElement>('button.chain-card')];
+
 describe('the amplifier strip', () => {
   it('shows the demo as one amplifier, input stage to output stage, and a card opens its stage', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);
     const strip = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' }));
-    const cards = strip.getAllByRole('button');
+    const cards = cardsOf();
     expect(cards.map((c) => c.querySelector('.card-title')!.textContent)).toEqual(['Stage 1 · 12AU7 common cathode', 'Output · EL34 single-ended output']);
     expect(cards[0]!.getAttribute('aria-pressed')).toBe('true');
     // The stage with no headroom left is the one named as clipping first.
@@ -29,8 +32,7 @@ describe('the amplifier strip', () => {
     expect(store.getState().commit({ ...store.getState().design, rl: Infinity })).toMatchObject({ field: 'rl' });
     act(() => fireEvent.click(screen.getByRole('checkbox', { name: 'The voltage stages drive the output stage' })));
     expect(store.getState().design.drivesOutput).toBe(false);
-    const cards = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' })).getAllByRole('button');
-    expect(cards).toHaveLength(1);
+    expect(cardsOf()).toHaveLength(1);
     expect(store.getState().design.rl).toBe(270e3);
   });
 
@@ -38,12 +40,37 @@ describe('the amplifier strip', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);
     act(() => store.getState().setStage2({ kind: 'follower' }));
-    const strip = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' }));
-    expect(strip.getAllByRole('button').map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
+    expect(cardsOf().map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
       'Stage 1 · 12AU7 common cathode', 'Stage 2 · 12AU7 cathode follower', 'Output · EL34 single-ended output',
     ]);
     // The ratings list names the output stage's findings too, as part of the amplifier.
     expect(screen.getAllByText(/Output stage, EL34/).length).toBeGreaterThan(0);
+  });
+
+  it('each voltage stage\'s menu adds a stage after it, moves it and removes it; the card opens it on the bench', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Add a gain stage after Stage 1' })));
+    expect(cardsOf().map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
+      'Stage 1 · 12AU7 common cathode', 'Stage 2 · 12AU7 common cathode', 'Output · EL34 single-ended output',
+    ]);
+    // The new stage is on the bench; its B+ box is its own.
+    expect(cardsOf()[1]!.getAttribute('aria-pressed')).toBe('true');
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Add a cathode follower direct-coupled to Stage 2\'s plate' })));
+    expect(cardsOf().map((c) => c.querySelector('.card-kind')!.textContent)).toEqual(['common cathode', 'common cathode', 'cathode follower', 'single-ended output']);
+    // The follower rides with its gain stage: both are on the bench.
+    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'true', 'true', 'false']);
+    expect((screen.getByRole('button', { name: 'Move Stage 2 toward the output' }) as HTMLButtonElement).disabled).toBe(true);
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Move Stage 2 toward the input' })));
+    expect(cardsOf().map((c) => c.querySelector('.card-kind')!.textContent)).toEqual(['common cathode', 'cathode follower', 'common cathode', 'single-ended output']);
+    act(() => fireEvent.click(cardsOf()[2]!));
+    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Remove Stage 2' })));
+    expect(cardsOf()).toHaveLength(3);
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Remove Stage 1' })));
+    expect(cardsOf()).toHaveLength(2);
+    // The last gain stage stays.
+    expect((screen.getByRole('button', { name: 'Remove Stage 1' }) as HTMLButtonElement).disabled).toBe(true);
   });
 
   it('one build sheet for the joined amplifier: the output stage\'s transformer and parts, its grid resistor the RL typed, and its current in the B+ total', () => {

@@ -3,6 +3,8 @@ import { analyze } from '../../../app/store/analysis';
 import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
 import { readShareFragment, shareFragment } from '../../../app/keep/shareLink';
+import { IDEAL_CC, voltageStages } from '../../../app/store/stagePlans';
+import type { BenchDesign } from '../../../app/store/analysis';
 
 const doc = {
   title: 'Phono second stage',
@@ -28,7 +30,7 @@ describe('design files', () => {
     const b = analyze(back.doc.design, null);
     if (!a.ok || !b.ok) throw new Error('both solve');
     expect(b.solution).toEqual(a.solution);
-    expect(JSON.parse(text)).toMatchObject({ format: 'quiescent-design', version: 2, savedAt: '2026-12-02T10:00:00.000Z', design: { rl: null } });
+    expect(JSON.parse(text)).toMatchObject({ format: 'quiescent-design', version: 3, savedAt: '2026-12-02T10:00:00.000Z', design: { rl: null } });
   });
 
   const good = JSON.parse(writeDesignFile(doc)) as Record<string, unknown>;
@@ -40,10 +42,13 @@ describe('design files', () => {
     return JSON.stringify(f);
   };
 
+  /** A gain stage as version 3 lists it. */
+  const GAIN = { kind: 'common-cathode', tubeId: '12AX7', bplus: 250, ra: 100e3, rk: 1500, bypassed: true, ck: 22e-6, cc: 47e-9, rg: 470e3 };
+
   it.each([
     ['truncated', writeDesignFile(doc).slice(0, 80), /^The file is not complete JSON \(cut short or damaged\): .+\. Nothing was opened\.$/],
     ['not a design file', JSON.stringify({ hello: 'world' }), /^This is not a Quiescent design file \(its "format" is not "quiescent-design"\)\. Nothing was opened\.$/],
-    ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 2\. Nothing was opened\.$/],
+    ['from the future', variant((f) => { f.version = 7; }), /^The file was written by a newer Quiescent \(format version 7\); this one reads up to version 3\. Nothing was opened\.$/],
     ['a wrong value', variant((f) => { f.design.ra = -5; }), /^design\.ra must be a number from 100 to 10000000 Ω \(found -5\)\. Nothing was opened\.$/],
     ['a wrong type', variant((f) => { f.design.bypassed = 'yes'; }), /^design\.bypassed must be true or false \(found "yes"\)\. Nothing was opened\.$/],
     ['a tube that is not a name', variant((f) => { f.design.tubeId = 42; }), /^design\.tubeId must name a tube \(text of at most 60 characters\) \(found 42\)\. Nothing was opened\.$/],
@@ -54,6 +59,13 @@ describe('design files', () => {
     ['a driven output stage whose grid resistor is not RL', variant((f) => { f.design.drivesOutput = true; f.design.rl = 100e3; }), /^design\.rl must equal design\.output\.rg when the voltage stages drive the output stage \(found 100000 and 220000\)\. Nothing was opened\.$/],
     ['a join that is not true or false', variant((f) => { f.design.drivesOutput = 'yes'; }), /^design\.drivesOutput must be true or false \(found "yes"\)\. Nothing was opened\.$/],
     ['an unknown stage kind', variant((f) => { f.design.stageKind = 'push-pull'; }), /^design\.stageKind must be one of voltage, output \(found "push-pull"\)\. Nothing was opened\.$/],
+    ['a chain side that is not a list', variant((f) => { f.design.after = { kind: 'follower' }; }), /^design\.after must be a list of stages \(found \{"kind":"follower"\}\)\. Nothing was opened\.$/],
+    ['a chain stage of an unknown kind', variant((f) => { f.design.after = [{ ...GAIN, kind: 'pentode' }]; }), /^design\.after\[0\]\.kind must be one of common-cathode, follower \(found "pentode"\)\. Nothing was opened\.$/],
+    ['a chain stage with a bad value', variant((f) => { f.design.before = [{ ...GAIN, ra: 5 }]; }), /^design\.before\[0\]\.ra must be a number from 100 to 10000000 Ω \(found 5\)\. Nothing was opened\.$/],
+    ['a later stage without a coupling capacitor', variant((f) => { f.design.after = [{ ...GAIN, cc: null }]; }), /^design\.after\[0\]\.cc must be a coupling capacitor: only the first stage may be direct-coupled \(to the source\)\. Nothing was opened\.$/],
+    ['a follower after a follower', variant((f) => { f.design.after = [{ kind: 'follower', tubeId: '12AU7', rk: 22e3 }]; }), /^design\.after\[0\] is a cathode follower with no gain stage right before it to be direct-coupled to\. Nothing was opened\.$/],
+    ['a bench stage direct-coupled after another', variant((f) => { f.design.before = [GAIN]; f.design.cin = null; }), /^design\.cin must be a coupling capacitor: only the first stage may be direct-coupled \(to the source\)\. Nothing was opened\.$/],
+    ['too many stages', variant((f) => { f.design.before = Array.from({ length: 6 }, () => GAIN); }), /^The file holds 8 voltage stages; an amplifier here has at most 7\. Nothing was opened\.$/],
   ])('%s gets its own message', (_label, text, message) => {
     const r = readDesignFile(text);
     expect(r.ok).toBe(false);
@@ -79,6 +91,45 @@ describe('design files', () => {
     expect(back.ok && back.doc).toEqual(joined);
     const before = readDesignFile(variant((f) => { delete f.design.drivesOutput; }));
     expect(before.ok && before.doc.design.drivesOutput).toBe(false);
+  });
+
+  it('a chain of four voltage stages round-trips, the bench on the third', () => {
+    const chain = {
+      title: 'Four-stage line amplifier',
+      design: {
+        ...DEMO_DESIGN,
+        tubeId: '12AX7', ra: 100e3, rk: 1500,
+        before: [{ ...GAIN, cc: 470e-9, rg: 1e6 }, { ...GAIN, tubeId: '12AU7', ra: 22e3, rk: 1e3 }] as BenchDesign['before'],
+        stage2: { ...DEMO_DESIGN.stage2, kind: 'follower' as const, tubeId: '12AU7', rk: 47e3 },
+        after: [] as BenchDesign['after'],
+      },
+    };
+    const back = readDesignFile(writeDesignFile(chain));
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc).toEqual(chain);
+    expect(voltageStages(back.doc.design).map((p) => p.kind)).toEqual(['common-cathode', 'common-cathode', 'common-cathode', 'follower']);
+    // A follower listed first in 'after' opens held by the bench's stage, as the bench holds it.
+    const listed = readDesignFile(variant((f) => { (f.design.stage2 as Record<string, unknown>).kind = 'none'; f.design.after = [{ kind: 'follower', tubeId: '12AU7', rk: 33e3 }]; }));
+    if (!listed.ok) throw new Error(listed.message);
+    expect(listed.doc.design.stage2).toMatchObject({ kind: 'follower', tubeId: '12AU7', rk: 33e3 });
+    expect(listed.doc.design.after).toEqual([]);
+  });
+
+  it('a version 2 file with a second gain stage opens as the same two-stage chain', () => {
+    const v2 = variant((f) => {
+      f.version = 2;
+      delete f.design.before;
+      delete f.design.after;
+      f.design.stage2 = { kind: 'common-cathode', tubeId: '12AU7', ra: 22e3, rk: 1e3, rg: 470e3 };
+    });
+    const r = readDesignFile(v2);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.doc.design.before).toEqual([]);
+    // The second gain stage is held as the chain holds any stage after the bench's.
+    expect(r.doc.design.stage2.kind).toBe('none');
+    expect(r.doc.design.after).toHaveLength(1);
+    // Same meaning as before version 3: the second stage on stage 1's B+, its bypass and coupling ideal.
+    expect(voltageStages(r.doc.design)[1]).toEqual({ kind: 'common-cathode', tubeId: '12AU7', bplus: doc.design.bplus, ra: 22e3, rk: 1e3, bypassed: true, ck: null, cc: IDEAL_CC, rg: 470e3 });
   });
 
   it('refuses a 10 MB file before parsing it', () => {
