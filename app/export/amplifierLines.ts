@@ -1,4 +1,6 @@
-import { plain, rmsLevel, watts } from '../format';
+import { farads, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
+import type { BuildSheet } from '../store/buildSheet';
+import { voltageStages } from '../store/stagePlans';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**
@@ -21,4 +23,31 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   ];
   if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${rmsLevel(view.atLevel.input, 'dBu')} in, THD ${plain(view.atLevel.thd * 100, 2)} %`);
   return { heading: 'Amplifier', lines };
+}
+
+/**
+ * The voltage stages off the bench, one section each: their values, where
+ * they sit in the solved amplifier, and their parts with their own ratings.
+ */
+export function otherStageSections(s: WorkbenchState, sheet: BuildSheet): { heading: string; lines: string[] }[] {
+  const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
+  if (!amp) return [];
+  const list = voltageStages(s.design);
+  return sheet.otherStages.map((parts) => {
+    const i = parts.index;
+    const p = list[i]!;
+    const st = amp.stages[i]!;
+    const values = p.kind === 'follower'
+      ? `Rk ${ohms(p.rk)}, direct-coupled to stage ${i}'s plate`
+      : `B+ ${volts(p.bplus)}, Ra ${ohms(p.ra)}, Rk ${ohms(p.rk)}${p.bypassed ? ` bypassed${p.ck ? ` by ${farads(p.ck)}` : ''}` : ' unbypassed'}, ${p.cc === null ? 'direct from the source' : `Cc ${farads(p.cc)}`}, Rg ${ohms(p.rg)}`;
+    return {
+      heading: parts.title,
+      lines: [
+        values,
+        `Va ${volts(st.op.va)}, Vk ${volts(st.op.vk)}, Ia ${milliamps(st.op.ia)}, Vgk ${volts(st.op.vgk)}; gain ${plain(st.gain)} ×, Zout ${ohms(st.zout)}`,
+        ...parts.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
+        ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
+      ],
+    };
+  });
 }

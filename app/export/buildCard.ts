@@ -8,7 +8,7 @@ import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
 import { elevationAdvice } from '../panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
-import { amplifierSection } from './amplifierLines';
+import { amplifierSection, otherStageSections } from './amplifierLines';
 import { supplySection } from './supplyLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
@@ -28,9 +28,10 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   const sol = s.analysis.solution;
   const d = s.design;
   const sig = s.analysis.signal;
+  const build = buildSheetOf(s);
   const sections = [
     {
-      heading: 'Stage',
+      heading: build.otherStages.length > 0 ? `${build.benchTitle} (on the bench)` : 'Stage',
       lines: [
         `${d.tubeId}, B+ ${volts(d.bplus)}, Ra ${ohms(d.ra)}, Rk ${ohms(d.rk)}${d.bypassed ? ` bypassed${d.ck ? ` by ${farads(d.ck)}` : ''}` : ' unbypassed'}`,
         `RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}, Rs ${ohms(d.rsource)}, Cin ${d.cin ? farads(d.cin) : 'none'}, Rg ${ohms(d.rg)}, Cout ${d.cout ? farads(d.cout) : 'none'}`,
@@ -69,7 +70,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       ],
     });
   }
-  const build = buildSheetOf(s);
+  sections.push(...otherStageSections(s, build));
   sections.push({ heading: 'Ratings, every stage', lines: ratingsLines(s) });
   const windings = heaterWindingsOf(s);
   const windingLines = windings.ok ? windings.windings.map((w) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}`) : [windings.message];

@@ -38,7 +38,14 @@ export function BuildSheetPanel() {
   return (
     <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Build sheet</h2>
+      {sheet.otherStages.length > 0 && <h3 className="subhead">{sheet.benchTitle} (on the bench)</h3>}
       <PartsTables resistors={sheet.resistors} capacitors={sheet.capacitors} />
+      {sheet.otherStages.map((st) => (
+        <div key={st.title}>
+          <h3 className="subhead">{st.title}</h3>
+          <PartsTables resistors={st.resistors} capacitors={st.capacitors} />
+        </div>
+      ))}
       {drivenOutput ? (
         <>
           <h3 className="subhead">{`Output stage, ${drivenOutput}`}</h3>

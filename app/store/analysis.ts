@@ -15,7 +15,7 @@ import {
   type OutputDesign,
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
-import { analyzeSignal, type SignalAnalysis } from './signalAnalysis';
+import { analyzeSignal, secondStageProblem, type SignalAnalysis } from './signalAnalysis';
 import type { SupplyPlan } from './supplyPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
 import { benchSource } from './amplifierChain';
@@ -102,6 +102,10 @@ export function analyze(design: BenchDesign, prev: Analysis | null, extent?: Pla
   const window = extent ?? plateExtent(tube, design.bplus);
   const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax && prev.maxCurves === maxCurves;
   const sheet = sameSheet ? prev.sheet : curveSheet(tube, design.bplus, window, maxCurves);
+  if (light) {
+    const second = secondStageProblem(solution.op.va, design);
+    if (second) return second;
+  }
   const signal = analyzeSignal({ checked, solution }, stage, design, prev?.signal ?? null, light);
   if (signal.chain && !signal.chain.ok) return { ...signal.chain, field: signal.chain.field ?? 'stage2' };
   return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet, signal, maxCurves };

@@ -1,5 +1,6 @@
 import { formatValue } from '../../src/index';
 import type { BenchDesign } from './analysis';
+import { voltageStages } from './stagePlans';
 
 const CONNECTION = { pentode: 'pentode', triode: 'triode-connected', ultralinear: 'ultralinear' } as const;
 
@@ -9,6 +10,12 @@ const CONNECTION = { pentode: 'pentode', triode: 'triode-connected', ultralinear
  * the name of a design it no longer is.
  */
 export function autoTitle(d: BenchDesign): string {
+  // More than a stage and its second: the amplifier named by its chain, input to output.
+  if (d.before.length + d.after.length > 0) {
+    const list = voltageStages(d).map((p) => (p.kind === 'follower' ? `${p.tubeId} follower` : p.tubeId));
+    const end = d.drivesOutput ? [`${d.output.tubeId} output`] : [];
+    return `${list.length + end.length}-stage amplifier: ${[...list, ...end].join(' → ')}`;
+  }
   if (d.stageKind === 'output') {
     const o = d.output;
     return `${o.tubeId} single-ended output, ${CONNECTION[o.connection]}, B+ ${formatValue(o.bplus, 'V')}, ${formatValue(o.zPrimary, 'Ω')} primary`;

@@ -5,6 +5,8 @@ import {
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
+import { offBenchParts, type OffBenchParts } from './chainParts';
+import { benchIndex, voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
 /** The builder's own inputs for the build sheet. */
@@ -35,6 +37,10 @@ export interface BuildSheet {
   /** Where stage 1 then sits, with the filter's B+. */
   readonly filteredOp: { va: number; ia: number } | null;
   readonly totalBplusAmps: number;
+  /** The voltage stages not on the bench, each with its own parts. */
+  readonly otherStages: readonly OffBenchParts[];
+  /** The bench stage's place, for the parts table's heading (e.g. "Stage 2, 12AX7"). */
+  readonly benchTitle: string;
   /** The driven output stage's cathode current (plate and screen), drawn from the rail ahead of the filter, A; 0 when the stages are apart. */
   readonly outputBplusAmps: number;
 }
@@ -92,7 +98,14 @@ function compute(s: WorkbenchState): BuildSheet {
     }
     resistors.push(resistorLine('Rk2', link.kind === 'follower' ? 'follower cathode load' : 'stage 2 cathode bias', d.stage2.rk, ia2, d.series));
   }
-  const stageTubes = [tube1, ...(d.stage2.kind !== 'none' ? [lookupTube(d.stage2.tubeId)!] : [])];
+  // Every voltage stage's tube, for the heaters (envelopes counted across the whole chain).
+  const list = voltageStages(d);
+  const bench = benchIndex(d);
+  const onBench = new Set(d.stage2.kind !== 'none' ? [bench, bench + 1] : [bench]);
+  const stageTubes = list.flatMap((p) => lookupTube(p.tubeId) ?? []);
+  const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
+  const otherStages = amp ? offBenchParts(list, onBench, amp, d.series) : [];
+  const otherAmps = amp ? amp.stages.reduce((sum, st, i) => (i < list.length && !onBench.has(i) ? sum + st.supplyCurrent : sum), 0) : 0;
   const tubes = envelopesOf(stageTubes).map(({ tube, sectionsUsed, envelopes }) => {
     const chosen = tube.heaters.find((h) => h.wiring === inp.heaterWiring[tube.id]) ?? tube.heaters[0]!;
     return { tube, options: tube.heaters, chosen, sectionsUsed, envelopes };
@@ -106,10 +119,10 @@ function compute(s: WorkbenchState): BuildSheet {
   });
   const stages = [{ name: 'stage 1', vk: sol.op.vk, ...hk(tube1) }];
   if (link) stages.push({ name: 'stage 2', vk: link.op.vk, ...hk(lookupTube(d.stage2.tubeId)!) });
-  const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0);
+  const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0) + otherAmps;
   const filter = decouplingFilter(railOf(s), inp.filterR, inp.filterC, (b) => {
     const r = solveStage({ ...stage, bplus: b });
-    return r.ok ? r.op.ia + (link?.op.ia ?? 0) : null;
+    return r.ok ? r.op.ia + (link?.op.ia ?? 0) + otherAmps : null;
   });
   const at = filter.ok ? solveStage({ ...stage, bplus: filter.stageBplus }) : null;
   return {
@@ -124,6 +137,8 @@ function compute(s: WorkbenchState): BuildSheet {
     elevation: heaterElevation(stages),
     filter,
     totalBplusAmps,
+    otherStages,
+    benchTitle: `Stage ${bench + 1}, ${d.tubeId}${d.stage2.kind !== 'none' ? ` and its follower (stage ${bench + 2})` : ''}`,
     outputBplusAmps: d.drivesOutput ? s.outputBench.settled.solution.op.ik : 0,
   };
 }

@@ -6,6 +6,7 @@ import {
   logFrequencies,
   responseOf,
   solveChain,
+  solveFollower,
   stageTransfer,
   swingOf,
   swingPath,
@@ -69,6 +70,20 @@ function chainLinks(stage1: StageDesign, d: BenchDesign): ChainLink[] | null {
  * (Measured: the full analysis with its chart redraws took the drag's p95
  * from under 10 ms to about 30 ms per move.)
  */
+/**
+ * The second stage at DC on the first's plate, for a drag's light pass: the
+ * full pass refuses a follower whose grid would draw current, so a drag must
+ * not leave the design there (it would be held, unanalysed, after release).
+ */
+export function secondStageProblem(va: number, d: BenchDesign): Failure | null {
+  const s2 = d.stage2;
+  if (s2.kind !== 'follower') return null;
+  const tube = lookupTube(s2.tubeId);
+  if (!tube) return null;
+  const f = solveFollower({ tube, bplus: d.bplus, vgrid: va, rk: s2.rk, rl: loadAfterBench(d).rl });
+  return f.ok ? null : { ...f, message: `Follower: ${f.message}`, field: 'stage2' };
+}
+
 export function analyzeSignal(s: SolvedStage, stage1: StageDesign, d: BenchDesign, prev: SignalAnalysis | null, light: boolean): SignalAnalysis {
   if (light && prev) {
     const estimate = Math.min((d.levelRms * Math.SQRT2) / Math.abs(s.solution.gain), prev.swing.inputPeak);

@@ -37,7 +37,7 @@ describe.runIf(run)('nothing lost, every danger shown, in Chromium', () => {
     await page.getByRole('textbox', { name: /^B\+/ }).fill('400');
     await page.getByRole('textbox', { name: /^Ra/ }).fill('220k');
     await page.getByRole('textbox', { name: /^Rk/ }).fill('1k8');
-    await page.getByLabel('Add').selectOption('follower');
+    await page.getByLabel('Add', { exact: true }).selectOption('follower');
     await page.getByRole('textbox', { name: /^Rk \(stage 2\)/ }).fill('150k');
     const ratings = page.getByRole('region', { name: 'Ratings checks' });
     await expect.poll(() => ratings.locator('.finding.danger').filter({ hasText: 'Stage 2, 12AX7 cathode follower: Heater-to-cathode voltage' }).count()).toBe(1);

@@ -33,7 +33,9 @@ describe.runIf(run)('at the bench: offline and on paper', () => {
   it('prints on one A4 page, controls left off, the caution kept', async () => {
     const { page } = await openWorkbench(browser.current, inject('baseUrl'));
     await page.emulateMedia({ media: 'print' });
-    expect(await page.locator('button').first().isVisible()).toBe(false);
+    // Every control is left off; the stage cards stay, as the amplifier on paper.
+    expect(await page.locator('button:not(.chain-card)').first().isVisible()).toBe(false);
+    expect(await page.locator('button.chain-card').first().isVisible()).toBe(true);
     expect(await page.getByRole('complementary', { name: 'Safety caution' }).isVisible()).toBe(true);
     await page.screenshot({ path: 'test-results/print.png', fullPage: true });
     const pdf = await page.pdf({ format: 'A4', printBackground: true, path: 'test-results/print.pdf' });

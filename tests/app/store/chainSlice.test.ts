@@ -108,4 +108,18 @@ describe('the amplifier as a chain of stages', () => {
     expect([...names].some((n) => n.startsWith('Stage 2, 12AU7 gain stage'))).toBe(true);
     expect(benchFindings(store.getState()).some((f) => f.stageName.startsWith('Stage 2') && f.severity === 'danger')).toBe(true);
   });
+
+  it('a drag (the light pass) cannot leave a follower drawing grid current, which the full pass refuses', () => {
+    // Regression: the light pass skipped the follower, so a drag held a design no stage could then be put on the bench with.
+    const store = createWorkbenchStore();
+    store.getState().addStage(0, 'common-cathode');
+    store.getState().addStage(1, 'follower');
+    store.getState().editField('ra', '100k');
+    store.getState().chooseTube('12AX7');
+    const full = store.getState().commit({ ...store.getState().design, ra: 50e3 });
+    const light = store.getState().commit({ ...store.getState().design, ra: 50e3 }, { light: true });
+    expect(full).toMatchObject({ reason: 'grid-current' });
+    expect(light).toMatchObject({ reason: 'grid-current', field: 'stage2' });
+    expect(store.getState().design.ra).toBe(100e3);
+  });
 });
