@@ -75,6 +75,9 @@ export interface BrowserResults {
   /** The first moves after the page loads, before the engine has optimised the drag path. */
   readonly dragColdStart: Stats;
   readonly dragOneTube: Stats;
+  /** The second stage of a four-stage amplifier on the bench: on fresh loads, then steady. */
+  readonly dragChainColdStart: Stats;
+  readonly dragChain: Stats;
   readonly dragTwoTubes: Stats;
   readonly typingRa: Stats;
   readonly dragOutput: Stats;
@@ -137,6 +140,28 @@ export async function benchBrowser(): Promise<BrowserResults> {
     const dragOutputTwoTubes = await dragRepeated(out);
     await out.close();
 
+    // A four-stage amplifier (input stage, second gain stage on the bench with its follower, the output stage):
+    // the drag on the selected stage, cold on a fresh load and then steady.
+    const chainColds: number[][] = [];
+    let chain: Page | null = null;
+    for (let k = 0; k < RUNS; k++) {
+      const fresh = (await openWorkbench(browser, url)).page;
+      // From the demo, not from the design the pages before left in autosave.
+      await fresh.evaluate(() => localStorage.clear());
+      await fresh.reload();
+      await fresh.waitForSelector('.layer-curves path');
+      await fresh.getByRole('button', { name: 'Add a gain stage after Stage 1' }).click();
+      await fresh.getByRole('button', { name: "Add a cathode follower direct-coupled to Stage 2's plate" }).click();
+      await fresh.waitForFunction(() => document.querySelectorAll('button.chain-card').length === 4);
+      chainColds.push(await dragSamples(fresh));
+      if (k < RUNS - 1) await fresh.close();
+      else chain = fresh;
+    }
+    const dragChainColdStart = repeatedStats(chainColds);
+    await drag(chain!, 600);
+    const dragChain = await dragRepeated(chain!);
+    await chain!.close();
+
     const firsts: number[] = [];
     for (let k = 0; k < 7; k++) {
       const fresh = await browser.context.newPage();
@@ -147,7 +172,7 @@ export async function benchBrowser(): Promise<BrowserResults> {
       await fresh.close();
     }
     const heavyInputs = await benchHeavyInputs(browser, url);
-    return { heavyInputs, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    return { heavyInputs, dragChainColdStart, dragChain, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();

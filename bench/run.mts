@@ -41,6 +41,8 @@ if (existsSync('/usr/bin/chromium')) {
   line('drag, two tubes compared', browser.dragTwoTubes, { value: 8, on: 'p95' });
   line('typing a new Ra', browser.typingRa, { value: 8, on: 'p95' });
   line('drag, output stage', browser.dragOutput, { value: 8, on: 'p95' });
+  line('drag, stage 2 of four, cold (fresh loads)', browser.dragChainColdStart, { value: 8, on: 'p95' });
+  line('drag, stage 2 of four, steady', browser.dragChain, { value: 8, on: 'p95' });
   line('drag, output stage, two tubes compared', browser.dragOutputTwoTubes, { value: 8, on: 'p95' });
   for (const [n, s] of Object.entries(browser.dragByCurveCount)) line(`  drag with up to ${n} curves`, s);
   line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });

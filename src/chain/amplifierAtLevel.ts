@@ -3,7 +3,8 @@ import { checkNumber } from '../stage/checkInput';
 import { harmonicAmplitudes } from '../signal/fft';
 import { sineLevel, type Level } from '../signal/levels';
 import type { ChainInput } from './chainTypes';
-import { prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
+import { CYCLE_SAMPLES, prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
+import { sineCycle } from '../signal/sineCycle';
 
 /** An output level to reach: volts rms at the output, or watts into the speaker of a chain ending in an output stage. */
 export type AmplifierLevel = { readonly outputRms: number } | { readonly power: number };
@@ -26,8 +27,8 @@ export interface AmplifierAtLevel {
   readonly harmonics: readonly number[];
 }
 
-/** Points a cycle for the figures: below clipping the transfers are smooth, and harmonics to H10 need far fewer. */
-export const SAMPLES = 128;
+/** Points a cycle for the figures (CYCLE_SAMPLES). */
+export const SAMPLES = CYCLE_SAMPLES;
 /** Points a cycle while the secant search finds the level: only the fundamental is read, and below clipping the harmonics that alias onto it (the 31st and 33rd) are negligible. */
 const SEARCH_SAMPLES = 32;
 
@@ -57,23 +58,21 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
     targetRms = (level as { outputRms: number }).outputRms;
   }
   const { signal, clips, first, inputPeak: cleanPeak } = a;
-  const fundamentalAt = (peak: number, n = SEARCH_SAMPLES) => {
-    const wave = new Float64Array(n);
-    for (let k = 0; k < n; k++) wave[k] = signal.at(peak * Math.sin((2 * Math.PI * k) / n));
-    return harmonicAmplitudes(wave, 10);
-  };
+  const at = (v: number) => signal.at(v);
+  const searchWave = new Float64Array(SEARCH_SAMPLES);
+  const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SEARCH_SAMPLES, peak, at, searchWave), 1)[1]!;
   const target = targetRms * Math.SQRT2;
-  const cleanMax = fundamentalAt(cleanPeak, SAMPLES)[1]!;
+  const cleanMax = a.cleanFundamental();
   // Within a part per million of the clean limit counts as at it.
   if (target > cleanMax * (1 + 1e-6)) {
     return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms is past the clean limit of ${(cleanMax / Math.SQRT2).toPrecision(3)} V rms, where stage ${first + 1} reaches ${clips[first]!.by === 'grid-current' ? 'grid current' : 'cutoff'}`, 'outputRms');
   }
   // Secant on the fundamental, from the small-signal guess; bracketed by [0, the clean limit].
   let p0 = Math.min(target / Math.max(Math.abs(a.gain), 1e-12), cleanPeak);
-  let f0 = fundamentalAt(p0)[1]! - target;
+  let f0 = fundamentalAt(p0) - target;
   let p1 = p0 * (f0 > 0 ? 0.99 : 1.01);
   for (let k = 0; k < 40 && Math.abs(f0) > 1e-9 * target; k++) {
-    const f1 = fundamentalAt(Math.min(p1, cleanPeak))[1]! - target;
+    const f1 = fundamentalAt(Math.min(p1, cleanPeak)) - target;
     const next = f1 === f0 ? p1 : p1 - (f1 * (p1 - p0)) / (f1 - f0);
     [p0, f0] = [p1, f1];
     p1 = Math.min(Math.max(next, 0), cleanPeak);
@@ -84,15 +83,15 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
   const lows = new Float64Array(n).fill(Infinity);
   const highs = new Float64Array(n).fill(-Infinity);
   const outs = new Float64Array(n);
-  const wave = new Float64Array(SAMPLES);
-  for (let k = 0; k < SAMPLES; k++) {
-    signal.stageOutputs(peak * Math.sin((2 * Math.PI * k) / SAMPLES), outs);
+  // Each distinct point once (sineCycle): a mirrored point repeats every stage's output, so the extremes stand.
+  const wave = sineCycle(SAMPLES, peak, (v) => {
+    signal.stageOutputs(v, outs);
     for (let i = 0; i < n; i++) {
       lows[i] = Math.min(lows[i]!, outs[i]!);
       highs[i] = Math.max(highs[i]!, outs[i]!);
     }
-    wave[k] = outs[n - 1]!;
-  }
+    return outs[n - 1]!;
+  });
   const h = harmonicAmplitudes(wave, 10);
   const v1 = h[1]!;
   const harmonics = h.map((x, k) => (k < 2 || v1 === 0 ? 0 : x / v1));

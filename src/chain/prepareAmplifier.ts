@@ -1,6 +1,8 @@
 import { fail, type Failure, type Result } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
+import { harmonicAmplitudes } from '../signal/fft';
+import { sineCycle } from '../signal/sineCycle';
 import type { ChainInput, ChainStage, ClipCause } from './chainTypes';
 import { kindOf } from './stageKinds';
 import type { SolvedLink } from './stageKind';
@@ -48,7 +50,12 @@ export interface PreparedAmplifier {
   readonly first: number;
   readonly inputPeak: number;
   readonly gain: number;
+  /** The output's fundamental (peak) at the clean limit, at CYCLE_SAMPLES points a cycle; computed once, on first asking. */
+  readonly cleanFundamental: () => number;
 }
+
+/** Points a cycle for the figures: below clipping the transfers are smooth, and harmonics to H10 need far fewer. */
+export const CYCLE_SAMPLES = 128;
 
 export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
   const problem = checkChain(input);
@@ -80,6 +87,10 @@ export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
     if (c && (first < 0 || c.inputPeak < clips[first]!.inputPeak)) first = i;
   });
   if (first < 0) return fail('unreachable', 'No stage reaches grid current or cutoff below 10 kV at the input: check the values', 'stages');
-  return { ok: true, links, signal, clips, first, inputPeak: clips[first]!.inputPeak, gain };
+  const inputPeak = clips[first]!.inputPeak;
+  // The clean limit's power and the check that a level is below it both read this: one cycle, shared.
+  let clean: number | null = null;
+  const cleanFundamental = () => (clean ??= harmonicAmplitudes(sineCycle(CYCLE_SAMPLES, inputPeak, (v) => signal.at(v)), 1)[1] ?? 0);
+  return { ok: true, links, signal, clips, first, inputPeak, gain, cleanFundamental };
 }
 

@@ -1,11 +1,10 @@
 import type { Result } from '../result';
 import { amplifierFindings } from '../stage/stageFindings';
 import { sineLevel } from '../signal/levels';
-import { atLevelOf, SAMPLES, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
+import { atLevelOf, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import { chainCorners, type ChainNetwork } from './chainResponse';
 import type { ChainInput, ChainResult, ChainStage, StageResult } from './chainTypes';
-import { prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
-import { harmonicAmplitudes } from '../signal/fft';
+import { prepareAmplifier } from './prepareAmplifier';
 import { STAGE_KIND_LABELS } from './stageKinds';
 
 export { checkChain, prepareAmplifier, MAX_CHAIN_STAGES, type PreparedAmplifier } from './prepareAmplifier';
@@ -27,7 +26,8 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
   const chainLoad = input.load?.rl ?? Infinity;
   const outputPeak = signal.outputPeak(inputPeak);
   const last = stages[stages.length - 1]!;
-  const outputPower = last.kind === 'single-ended-output' ? powerAt(signal, inputPeak, last.speakerOhms) : null;
+  // Power into the speaker at the fundamental, as data sheets and the output stage's own figures state it.
+  const outputPower = last.kind === 'single-ended-output' ? a.cleanFundamental() ** 2 / (2 * last.speakerOhms) : null;
 
   const network: ChainNetwork = {
     rsource,
@@ -67,15 +67,6 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
     findings: tagged,
     ...(level === undefined ? {} : { atLevel: atLevelOf(a, input, level) }),
   };
-}
-
-/** Power into the speaker at the fundamental (as data sheets and the output stage's own figures state it) for a source peak. */
-function powerAt(signal: PreparedAmplifier['signal'], peak: number, speakerOhms: number): number {
-  const n = SAMPLES; // the same resolution amplifierAtLevel reads the clean limit at
-  const wave = new Float64Array(n);
-  for (let k = 0; k < n; k++) wave[k] = signal.at(peak * Math.sin((2 * Math.PI * k) / n));
-  const v1 = harmonicAmplitudes(wave, 1)[1] ?? 0;
-  return (v1 * v1) / (2 * speakerOhms);
 }
 
 function tubeName(s: ChainStage): string {
