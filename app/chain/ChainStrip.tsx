@@ -3,6 +3,7 @@ import { plain, rmsLevel, watts } from '../format';
 import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '../store/stagePlans';
 import { StageCard } from './StageCard';
 import { StageMenu } from './StageMenu';
+import { ChainSchematic } from '../schematic/ChainSchematic';
 
 const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
 const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
@@ -72,6 +73,7 @@ export function ChainStrip() {
           );
         })}
       </ol>
+      <ChainSchematic />
       {r.ok && (
         <dl className="chain-figures" data-testid="amplifier-figures">
           <div><dt>Gain</dt><dd>{gainDb(r.gain)} ({plain(Math.abs(r.gain))}×{r.inverting ? ', inverting' : ''})</dd></div>

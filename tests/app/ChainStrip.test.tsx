@@ -65,6 +65,13 @@ describe('the amplifier strip', () => {
     expect(cardsOf().map((c) => c.querySelector('.card-kind')!.textContent)).toEqual(['common cathode', 'cathode follower', 'common cathode', 'single-ended output']);
     act(() => fireEvent.click(cardsOf()[2]!));
     expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
+    // The whole amplifier's schematic draws every stage, the bench's shaded; pressing one puts it on the bench.
+    const drawing = screen.getByRole('group', { name: 'Schematic of the whole amplifier, 4 stages' });
+    expect(within(drawing).getAllByRole('button').map((b) => b.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
+    act(() => fireEvent.keyDown(within(drawing).getByRole('button', { name: 'Stage 1, 12AU7 gain stage: put it on the bench' }), { key: 'Enter' }));
+    // Stage 1 and the follower riding with it.
+    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['true', 'true', 'false', 'false']);
+    act(() => fireEvent.click(cardsOf()[2]!));
     act(() => fireEvent.click(screen.getByRole('button', { name: 'Remove Stage 2' })));
     expect(cardsOf()).toHaveLength(3);
     act(() => fireEvent.click(screen.getByRole('button', { name: 'Remove Stage 1' })));
