@@ -1,4 +1,5 @@
-import { useWorkbench } from '../store/StoreProvider';
+import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
+import type { WorkbenchState } from '../store/workbenchStore';
 import { plain, rmsLevel, watts } from '../format';
 import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '../store/stagePlans';
 import { StageCard } from './StageCard';
@@ -8,6 +9,12 @@ import { ChainSchematic } from '../schematic/ChainSchematic';
 const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
 const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
 
+/** What the strip draws from the design: each voltage stage's kind, which is on the bench, and whether the output stage is joined. */
+function shapeKey(s: WorkbenchState): string {
+  const d = s.design;
+  return `${voltageStages(d).map((p) => p.kind[0]).join('')}|${benchIndex(d)}|${d.stage2.kind}|${d.stageKind}|${d.drivesOutput}`;
+}
+
 /**
  * The amplifier, input to output: one card per stage (its kind, tube, gain,
  * headroom and worst finding), the whole chain's figures beside them. A card
@@ -16,7 +23,9 @@ const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
  */
 export function ChainStrip() {
   const view = useWorkbench((s) => s.amplifier);
-  const design = useWorkbench((s) => s.design);
+  // The strip reads the chain's shape, not its values: a drag changes the design every frame and must not redraw the strip.
+  useWorkbench(shapeKey);
+  const design = useWorkbenchStore().getState().design;
   const note = useWorkbench((s) => s.chainNote);
   const setStageKind = useWorkbench((s) => s.setStageKind);
   const showStage = useWorkbench((s) => s.showStage);

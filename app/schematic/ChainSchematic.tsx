@@ -1,4 +1,4 @@
-import type { KeyboardEvent, ReactNode } from 'react';
+import { memo, type KeyboardEvent, type ReactNode } from 'react';
 import { farads, ohms, volts } from '../format';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../store/StoreProvider';
@@ -138,7 +138,7 @@ function Cell({ x0, width, onBench, name, onOpen, tubeId, children }: { x0: numb
  * the load). The stage on the bench is shaded; pressing another stage puts
  * it there. Its values are edited on the bench's own schematic below.
  */
-export function ChainSchematic() {
+export const ChainSchematic = memo(function ChainSchematic() {
   const [design] = useDragPaced((s) => [s.design] as const, { equal: sameEntries });
   const showStage = useWorkbench((s) => s.showStage);
   const setStageKind = useWorkbench((s) => s.setStageKind);
@@ -179,4 +179,4 @@ export function ChainSchematic() {
       {end}
     </svg>
   );
-}
+});
