@@ -41,7 +41,7 @@ export function BuildSheetPanel() {
       {sheet.otherStages.length > 0 && <h3 className="subhead">{sheet.benchTitle} (on the bench)</h3>}
       <PartsTables resistors={sheet.resistors} capacitors={sheet.capacitors} />
       {sheet.otherStages.map((st) => (
-        <div key={st.title}>
+        <div key={st.title} className="stage-parts">
           <h3 className="subhead">{st.title}</h3>
           <PartsTables resistors={st.resistors} capacitors={st.capacitors} />
         </div>

@@ -123,11 +123,16 @@ function Cell({ x0, width, onBench, name, onOpen, tubeId, children }: { x0: numb
     }
   };
   return (
-    <g role="button" tabIndex={0} aria-label={`${name}: put it on the bench`} aria-pressed={onBench} className="chain-cell" onClick={onOpen} onKeyDown={key}>
+    <g>
       <rect x={x0 + 2} y={4} width={width - 4} height={H - 8} rx={6} fill={onBench ? '#f3efe2' : '#fff'} stroke={onBench ? INK : 'transparent'} strokeWidth={onBench ? 1.5 : 0} />
       {children}
       {tubeId && label(x0 + width / 2, H - 16, tubeId, 'middle')}
       <text x={x0 + width / 2} y={H - 4} fontSize={10} fill={MUTED} textAnchor="middle">{name.split(',')[0]}</text>
+      {/* The press target lies over the drawing and holds no text: its name says what pressing it does. */}
+      <rect
+        role="button" tabIndex={0} aria-label={`${name}: put it on the bench`} aria-pressed={onBench} className="chain-cell"
+        x={x0 + 2} y={4} width={width - 4} height={H - 8} rx={6} fill="transparent" onClick={onOpen} onKeyDown={key}
+      />
     </g>
   );
 }

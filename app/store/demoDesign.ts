@@ -3,13 +3,12 @@ import { autoTitle } from './autoTitle';
 import { DEMO_SUPPLY } from './supplyPlan';
 
 /**
- * The design the bench opens on: a line stage of our own making. A 12AU7
- * section on a 275 V rail, plate resistor 27 kΩ, cathode resistor 1.2 kΩ
- * bypassed by 100 µF, fed from a 1 kΩ source through 470 nF into a 1 MΩ grid
- * leak, driving the output stage's 220 kΩ grid resistor through 1 µF;
- * distortion read at 2 V rms out. No second stage until the user adds one:
- * a small amplifier from line input to speaker, on its own supply
- * (DEMO_SUPPLY).
+ * The design the bench opens on: a small amplifier of our own making, three
+ * stages from input jack to speaker on its own supply (DEMO_SUPPLY). A 12AX7
+ * input stage (below) drives, through 470 nF into 1 MΩ, the driver on the
+ * bench: a 12AU7 section on a 275 V rail, plate resistor 27 kΩ, cathode
+ * resistor 1.2 kΩ bypassed by 100 µF, driving the output stage's 220 kΩ grid
+ * resistor through 1 µF; distortion read at 2 V rms out. The source is 1 kΩ.
  */
 export const DEMO_DESIGN: BenchDesign = {
   tubeId: '12AU7',
@@ -27,7 +26,9 @@ export const DEMO_DESIGN: BenchDesign = {
   cout: 1e-6,
   levelRms: 2,
   stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
-  before: [],
+  // The input stage: a 12AX7 section, 100 kΩ plate, 1.5 kΩ cathode left unbypassed (its feedback keeps the gain near 30
+  // and the distortion low), fed from the source through 470 nF into 1 MΩ.
+  before: [{ kind: 'common-cathode', tubeId: '12AX7', bplus: 275, ra: 100e3, rk: 1500, bypassed: false, ck: null, cc: 470e-9, rg: 1e6 }],
   after: [],
   stageKind: 'voltage',
   drivesOutput: true,

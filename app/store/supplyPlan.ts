@@ -34,7 +34,7 @@ export interface SupplyPlan {
 /**
  * The supply the bench opens on, of our own: 241 V a side at 200 mA, full wave with
  * silicon diodes, a 100 µF reservoir feeding the output stage, then 1 kΩ and
- * 11 kΩ sections of 47 µF down to the voltage stage, chosen so the nodes
+ * 9.1 kΩ sections of 47 µF down to the voltage stages, chosen so the nodes
  * deliver the demo's own B+ (330 V and 275 V, each within 1 %); a 200 mA winding, and
  * a hum budget of 5 mV rms on the input stage's node (common practice for a
  * quiet first stage).
@@ -46,7 +46,7 @@ export const DEMO_SUPPLY: SupplyPlan = {
   windingOhms: 35,
   rectifier: { kind: 'silicon-full-wave' },
   input: { kind: 'capacitor', c: 100e-6 },
-  sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 11e3, c: 47e-6 }],
+  sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 9.1e3, c: 47e-6 }],
   feeds: { output: 0, voltage: 2 },
   channels: 1,
   follow: false,

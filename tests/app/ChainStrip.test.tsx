@@ -13,12 +13,13 @@ describe('the amplifier strip', () => {
     render(<App store={store} />);
     const strip = within(screen.getByRole('region', { name: 'The amplifier, stage by stage' }));
     const cards = cardsOf();
-    expect(cards.map((c) => c.querySelector('.card-title')!.textContent)).toEqual(['Stage 1 · 12AU7 common cathode', 'Output · EL34 single-ended output']);
-    expect(cards[0]!.getAttribute('aria-pressed')).toBe('true');
+    expect(cards.map((c) => c.querySelector('.card-title')!.textContent)).toEqual(['Stage 1 · 12AX7 common cathode', 'Stage 2 · 12AU7 common cathode', 'Output · EL34 single-ended output']);
+    // The demo opens on its driver stage.
+    expect(cards.map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'true', 'false']);
     // The stage with no headroom left is the one named as clipping first.
     expect(strip.getAllByText(/clips first/)).toHaveLength(1);
     expect(strip.getByTestId('amplifier-figures').textContent).toMatch(/Gain[\d.]+ dB .*Band \(−3 dB\)[\d.]+ Hz to [\d.]+ kHz.*Clean to[\d.]+ W/);
-    act(() => fireEvent.click(cards[1]!));
+    act(() => fireEvent.click(cards[2]!));
     expect(store.getState().design.stageKind).toBe('output');
   });
 
@@ -32,7 +33,7 @@ describe('the amplifier strip', () => {
     expect(store.getState().commit({ ...store.getState().design, rl: Infinity })).toMatchObject({ field: 'rl' });
     act(() => fireEvent.click(screen.getByRole('checkbox', { name: 'The voltage stages drive the output stage' })));
     expect(store.getState().design.drivesOutput).toBe(false);
-    expect(cardsOf()).toHaveLength(1);
+    expect(cardsOf()).toHaveLength(2);
     expect(store.getState().design.rl).toBe(270e3);
   });
 
@@ -41,15 +42,18 @@ describe('the amplifier strip', () => {
     render(<App store={store} />);
     act(() => store.getState().setStage2({ kind: 'follower' }));
     expect(cardsOf().map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
-      'Stage 1 · 12AU7 common cathode', 'Stage 2 · 12AU7 cathode follower', 'Output · EL34 single-ended output',
+      'Stage 1 · 12AX7 common cathode', 'Stage 2 · 12AU7 common cathode', 'Stage 3 · 12AU7 cathode follower', 'Output · EL34 single-ended output',
     ]);
     // The ratings list names the output stage's findings too, as part of the amplifier.
     expect(screen.getAllByText(/Output stage, EL34/).length).toBeGreaterThan(0);
   });
 
-  it('each voltage stage\'s menu adds a stage after it, moves it and removes it; the card opens it on the bench', () => {
+  it('each voltage stage\'s menu adds a stage after it, moves it and removes it; the card opens it on the bench', { timeout: 20_000 }, () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);
+    // From one voltage stage: the demo's input stage removed, its driver first.
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Remove Stage 1' })));
+    expect(cardsOf()).toHaveLength(2);
     act(() => fireEvent.click(screen.getByRole('button', { name: 'Add a gain stage after Stage 1' })));
     expect(cardsOf().map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
       'Stage 1 · 12AU7 common cathode', 'Stage 2 · 12AU7 common cathode', 'Output · EL34 single-ended output',
@@ -97,12 +101,15 @@ describe('the amplifier strip', () => {
     const store = createWorkbenchStore();
     const [first] = cardSections(store.getState());
     expect(first!.heading).toBe('Amplifier');
-    expect(first!.lines[0]).toBe('12AU7 common cathode → EL34 single-ended output');
-    expect(first!.lines[1]).toMatch(/^Gain [\d.]+ × \([\d.]+ dB\), −3 dB [\d.]+ Hz to [\d.]+ kHz$/);
+    expect(first!.lines[0]).toBe('12AX7 common cathode → 12AU7 common cathode → EL34 single-ended output');
+    // Three common-cathode stages (the output tube's among them): inverting (common practice: an odd count inverts).
+    expect(first!.lines[1]).toMatch(/^Gain [\d.]+ × \([\d.]+ dB, inverting\), −3 dB [\d.]+ Hz to [\d.]+ kHz$/);
     expect(first!.lines[2]).toMatch(/^Clean to [\d.]+ W \([\d.]+ V rms at the speaker\) from .* in; output clips first \(grid current\)$/);
     expect(first!.lines[3]).toMatch(/^At 1 W: .* in, THD [\d.]+ %$/);
-    // The stages apart, a single stage: its own sections say it all.
+    // The stages apart and one voltage stage left: its own sections say it all.
     store.getState().setDrivesOutput(false);
+    expect(cardSections(store.getState())[0]!.heading).toBe('Amplifier');
+    store.getState().dropStage(0);
     expect(cardSections(store.getState())[0]!.heading).toBe('Stage');
   });
 

@@ -28,7 +28,8 @@ describe('the B+ supply on the bench', () => {
     // Three nodes: the output stage on the reservoir, the voltage stage at the end of the ladder (DEMO_SUPPLY).
     expect(panel.getAllByRole('row')).toHaveLength(1 + 3);
     expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '1')).getByText(/Output \(EL34\)/)).toBeTruthy();
-    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '3')).getByText(/Stage 1 \(12AU7\)/)).toBeTruthy();
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '3')).getByText(/Stage 1 \(12AX7\)/)).toBeTruthy();
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '3')).getByText(/Stage 2 \(12AU7\)/)).toBeTruthy();
     // B+ falls down the ladder, each node's shown value the model's.
     const dcs = view.result.supply.nodes.map((n) => n.dc);
     expect(dcs[0]!).toBeGreaterThan(dcs[1]!);
@@ -45,8 +46,8 @@ describe('the B+ supply on the bench', () => {
     const card = cardSections(store.getState());
     expect(card.map((c) => c.heading).slice(0, 2)).toEqual(['Amplifier', 'B+ supply']);
     const lines = card[1]!.lines;
-    expect(lines[0]).toMatch(/^241 V rms a side at 200 mA, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 1 kΩ \/ 47 µF → 11 kΩ \/ 47 µF$/);
-    expect(lines[1]).toMatch(/^Nodes 1: .* \(output\); 2: .*; 3: .* \(stage 1\)$/);
+    expect(lines[0]).toMatch(/^241 V rms a side at 200 mA, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 1 kΩ \/ 47 µF → 9.1 kΩ \/ 47 µF$/);
+    expect(lines[1]).toMatch(/^Nodes 1: .* \(output\); 2: .*; 3: .* \(stage 1, stage 2\)$/);
     expect(lines.some((l) => /^Bleeder .*Ω, .* W across node 1: under 60 V in/.test(l))).toBe(true);
   });
 
@@ -59,8 +60,10 @@ describe('the B+ supply on the bench', () => {
     const r = store.getState().supplyView!.result;
     if (!r.ok) throw new Error(r.message);
     fireEvent.click(use);
-    expect(store.getState().design.bplus).toBe(Math.round(r.bplus[0]!));
-    expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[1]!));
+    // The supply's B+ per stage, input first: the input stage, the driver on the bench, the output stage.
+    expect(store.getState().design.before[0]).toMatchObject({ bplus: Math.round(r.bplus[0]!) });
+    expect(store.getState().design.bplus).toBe(Math.round(r.bplus[1]!));
+    expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[2]!));
     await waitFor(() => expect(panel.getByText('The bench\'s B+ are the supply\'s (within 1 %).')).toBeTruthy(), { timeout: 5000 });
   }, 20_000);
 
@@ -125,8 +128,9 @@ describe('the B+ supply on the bench', () => {
     await waitFor(() => expect(store.getState().design.bplus).toBeGreaterThan(285), { timeout: 5000 });
     const r = store.getState().supplyView!.result;
     if (!r.ok) throw new Error(r.message);
-    expect(store.getState().design.bplus).toBe(Math.round(r.bplus[0]!));
-    expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[1]!));
+    expect(store.getState().design.before[0]).toMatchObject({ bplus: Math.round(r.bplus[0]!) });
+    expect(store.getState().design.bplus).toBe(Math.round(r.bplus[1]!));
+    expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[2]!));
     // Undo goes back to 241 V and its own B+, which already agreed: nothing follows again to undo the undo.
     act(() => store.getState().undo());
     await waitFor(() => expect(store.getState().design.supply.secondaryRms).toBe(241));
@@ -138,12 +142,12 @@ describe('the B+ supply on the bench', () => {
   it('lists the heater windings beside the supply: every stage\'s heaters per channel, a directly heated rectifier on its own', () => {
     const { store, panel } = bench();
     const list = () => panel.getByTestId('heater-windings').textContent;
-    // 12AU7 (6.3 V, 0.3 A in parallel) and EL34 (6.3 V, 1.5 A; from memory): one 6.3 V winding of 1.8 A.
-    expect(list()).toMatch(/^6\.3 V, 1\.8 A \(11\.3 VA\): 12AU7 \(6\.3 V, 0\.3 A\), EL34 \(6\.3 V, 1\.5 A\)$/);
+    // 12AX7 and 12AU7 (6.3 V, 0.3 A each in parallel) and EL34 (6.3 V, 1.5 A; from memory): one 6.3 V winding of 2.1 A, 13.2 VA.
+    expect(list()).toMatch(/^6\.3 V, 2\.1 A \(13\.2 VA\): 12AX7 \(6\.3 V, 0\.3 A\), 12AU7 \(6\.3 V, 0\.3 A\), EL34 \(6\.3 V, 1\.5 A\)$/);
     fireEvent.change(panel.getByLabelText('Rectifier'), { target: { value: 'tube:5U4GB' } });
     fireEvent.change(panel.getByLabelText('Channels'), { target: { value: '2' } });
     expect(store.getState().design.supply.channels).toBe(2);
-    expect(list()).toMatch(/^6\.3 V, 3\.6 A .*2 × 12AU7.*2 × EL34.*5 V, 3 A \(15 VA\): 5U4GB rectifier .*sits at B\+/);
+    expect(list()).toMatch(/^6\.3 V, 4\.2 A .*2 × 12AX7.*2 × 12AU7.*2 × EL34.*5 V, 3 A \(15 VA\): 5U4GB rectifier .*sits at B\+/);
   });
 
   it('is kept in the design file; a file from before the supply opens on the default one', () => {

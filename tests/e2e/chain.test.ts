@@ -18,12 +18,11 @@ describe.runIf(run)('a four-stage amplifier end to end in Chromium', () => {
     const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
     const strip = page.getByRole('region', { name: 'The amplifier, stage by stage' });
     const cards = strip.locator('button.chain-card');
-    // Designed: a second gain stage and its follower between the input stage and the output stage.
-    await page.getByRole('button', { name: 'Add a gain stage after Stage 1' }).click();
+    // Designed: the demo's input stage, driver and output stage, and a follower after the driver.
     await page.getByRole('button', { name: "Add a cathode follower direct-coupled to Stage 2's plate" }).click();
     await expect.poll(() => cards.count()).toBe(4);
     expect(await cards.locator('.card-kind').allTextContents()).toEqual(['common cathode', 'common cathode', 'cathode follower', 'single-ended output']);
-    // A different tube and plate resistor on stage 2 (on the bench now), typed.
+    // A different tube and plate resistor on stage 2 (on the bench), typed.
     const ra = page.getByRole('textbox', { name: /^Ra/ }).first();
     await ra.fill('100k');
     await ra.press('Tab');
@@ -41,12 +40,12 @@ describe.runIf(run)('a four-stage amplifier end to end in Chromium', () => {
     const draggedRa = await ra.inputValue();
     // Stage 1 on the bench shows its own values; stage 2 keeps the dragged one.
     await cards.nth(0).click();
-    await expect.poll(() => ra.inputValue()).toBe('27k');
+    await expect.poll(() => ra.inputValue()).toBe('100k');
     await cards.nth(2).click();
     await expect.poll(() => ra.inputValue()).toBe(draggedRa);
     // Checked: the ratings list names stages by place; the build sheet lists the stages off the bench with their own parts.
     const sheet = page.getByRole('region', { name: 'Build sheet' });
-    await expect.poll(() => sheet.getByText('Stage 1, 12AU7 gain stage').count()).toBe(1);
+    await expect.poll(() => sheet.getByText('Stage 1, 12AX7 gain stage').count()).toBe(1);
     expect(await sheet.getByRole('row').filter({ hasText: /^Ra1/ }).count()).toBe(1);
     mkdirSync('test-results', { recursive: true });
     await strip.screenshot({ path: 'test-results/chain-four-stages.png' });

@@ -6,6 +6,7 @@ import { cardSections } from '../../../app/export/buildCard';
 /** A 12AX7 follower direct-coupled to a 12AX7 plate near 250 V: its cathode sits above the 180 V heater–cathode rating (Tung-Sol 12AX7, design-centre). */
 function overRatedFollower() {
   const store = createWorkbenchStore();
+  store.getState().dropStage(0); // one voltage stage and its follower: the demo's input stage removed
   const s = store.getState();
   s.commit({ ...s.design, tubeId: '12AX7', bplus: 400, ra: 220e3, rk: 1500, rl: 100e3, stage2: { kind: 'follower', tubeId: '12AX7', ra: 22e3, rk: 150e3, rg: 470e3 } });
   return store;

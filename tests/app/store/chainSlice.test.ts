@@ -3,9 +3,16 @@ import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { benchIndex, voltageStages } from '../../../app/store/stagePlans';
 import { benchFindings } from '../../../app/store/amplifierFindings';
 
-/** The demo with a second gain stage and a follower after it: four stages to the speaker. */
+/** The demo's driver alone before the output stage (its input stage removed): one voltage stage. */
+function oneStage(options?: Parameters<typeof createWorkbenchStore>[0]) {
+  const store = createWorkbenchStore(options);
+  store.getState().dropStage(0);
+  return store;
+}
+
+/** One voltage stage, a second gain stage and a follower after it: four stages to the speaker. */
 function fourStages() {
-  const store = createWorkbenchStore();
+  const store = oneStage();
   store.getState().addStage(0, 'common-cathode');
   store.getState().addStage(1, 'follower');
   return store;
@@ -15,7 +22,7 @@ const kinds = (store: ReturnType<typeof createWorkbenchStore>) => voltageStages(
 
 describe('the amplifier as a chain of stages', () => {
   it('adding a gain stage puts it on the bench, after the one it follows, capacitor-coupled', () => {
-    const store = createWorkbenchStore();
+    const store = oneStage();
     store.getState().addStage(0, 'common-cathode');
     const d = store.getState().design;
     expect(kinds(store)).toEqual(['common-cathode:12AU7', 'common-cathode:12AU7']);
@@ -67,7 +74,7 @@ describe('the amplifier as a chain of stages', () => {
 
   it('moves a stage with its follower, removes stages, and each change is one undo step', () => {
     let now = 0;
-    const store = createWorkbenchStore({ now: () => (now += 5000) });
+    const store = oneStage({ now: () => (now += 5000) });
     store.getState().addStage(0, 'common-cathode');
     store.getState().commit({ ...store.getState().design, tubeId: '12AX7', ra: 100e3, rk: 1500 });
     store.getState().addStage(1, 'follower');
@@ -85,7 +92,7 @@ describe('the amplifier as a chain of stages', () => {
   });
 
   it('refuses what the chain cannot hold, with a reason', () => {
-    const store = createWorkbenchStore();
+    const store = oneStage();
     store.getState().dropStage(0);
     expect(store.getState().chainNote).toMatch(/at least one gain stage/);
     store.getState().addStage(0, 'common-cathode');
@@ -99,7 +106,7 @@ describe('the amplifier as a chain of stages', () => {
   });
 
   it('every stage\'s findings are in the one ratings list, named by place', () => {
-    const store = createWorkbenchStore();
+    const store = oneStage();
     store.getState().addStage(0, 'common-cathode');
     // Stage 2 run past its plate dissipation: a 12AU7 section at 450 V with 4.7 kΩ.
     store.getState().commit({ ...store.getState().design, bplus: 450, ra: 4.7e3, rk: 470 });
@@ -111,7 +118,7 @@ describe('the amplifier as a chain of stages', () => {
 
   it('a drag (the light pass) cannot leave a follower drawing grid current, which the full pass refuses', () => {
     // Regression: the light pass skipped the follower, so a drag held a design no stage could then be put on the bench with.
-    const store = createWorkbenchStore();
+    const store = oneStage();
     store.getState().addStage(0, 'common-cathode');
     store.getState().addStage(1, 'follower');
     store.getState().editField('ra', '100k');

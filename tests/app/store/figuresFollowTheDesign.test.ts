@@ -4,6 +4,9 @@ import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 describe('the design title', () => {
   it('follows the design until the user types one: a 2A3 output stage is never called a line stage', () => {
     const store = createWorkbenchStore();
+    // The demo amplifier is named by its chain; one voltage stage by its tube, B+ and load.
+    expect(store.getState().title).toBe('3-stage amplifier: 12AX7 → 12AU7 → EL34 output');
+    store.getState().dropStage(0);
     expect(store.getState().title).toBe('12AU7 voltage stage, B+ 275 V into 220 kΩ');
     store.getState().setStageKind('output');
     store.getState().chooseOutputTube('2A3');
@@ -12,6 +15,7 @@ describe('the design title', () => {
 
   it('a typed title stays through changes; clearing it hands the title back to the design', () => {
     const store = createWorkbenchStore();
+    store.getState().dropStage(0);
     store.getState().setTitle('Phono front end, left channel');
     store.getState().editField('bplus', '300');
     expect(store.getState().title).toBe('Phono front end, left channel');
@@ -73,6 +77,7 @@ describe('the second stage and the heaters', () => {
   it('a follower added to a 12AX7 stage defaults to the other half of the same envelope, and the heaters count one envelope', async () => {
     const { buildSheetOf } = await import('../../../app/store/buildSheet');
     const store = createWorkbenchStore();
+    store.getState().dropStage(0); // one voltage stage: the demo's 12AX7 input stage would light an envelope of its own
     store.getState().commit({ ...store.getState().design, tubeId: '12AX7', ra: 100e3, rk: 1800 });
     store.getState().setStage2({ kind: 'follower' });
     expect(store.getState().errors.stage2).toBeUndefined();
