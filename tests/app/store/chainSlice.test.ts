@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { benchIndex, voltageStages } from '../../../app/store/stagePlans';
 import { benchFindings } from '../../../app/store/amplifierFindings';
+import { cornersOf, findTube, solvedStage } from '../../../src/index';
 
 /** The demo's driver alone before the output stage (its input stage removed): one voltage stage. */
 function oneStage(options?: Parameters<typeof createWorkbenchStore>[0]) {
@@ -128,5 +129,32 @@ describe('the amplifier as a chain of stages', () => {
     expect(full).toMatchObject({ reason: 'grid-current' });
     expect(light).toMatchObject({ reason: 'grid-current', field: 'stage2' });
     expect(store.getState().design.ra).toBe(100e3);
+  });
+
+  it('the bench stage\'s own figures are taken with the stage before it as its source and the next grid as its load', () => {
+    // The demo: its driver (stage 2) on the bench after the 12AX7 input stage, with a third gain stage added after it.
+    const store = createWorkbenchStore();
+    store.getState().addStage(1, 'common-cathode');
+    store.getState().commit({ ...store.getState().design, rg: 220e3, cin: 22e-9 });
+    store.getState().showStage(1);
+    const s = store.getState();
+    const amp = s.amplifier!.result;
+    if (!amp.ok) throw new Error(amp.message);
+    const tube = findTube('12AU7')!;
+    const next = s.design.after[0]!;
+    if (next.kind !== 'common-cathode') throw new Error('a gain stage follows');
+    // The same stage solved by hand: fed from stage 1's output impedance, loaded by stage 3's 220 kΩ grid leak through its 22 nF.
+    const byHand = solvedStage({
+      tube, bplus: s.design.bplus, ra: s.design.ra, rk: s.design.rk, bypassed: true, ck: s.design.ck!, rg: s.design.rg, cin: s.design.cin!,
+      rsource: amp.stages[0]!.zout, rl: next.rg, cout: next.cc!,
+    });
+    if (!byHand.ok) throw new Error(byHand.message);
+    expect(next).toMatchObject({ rg: 220e3, cc: 22e-9 });
+    expect(s.analysis.solution.gain).toBeCloseTo(byHand.solution.gain, 9);
+    const corners = cornersOf(byHand);
+    expect(s.analysis.signal.corners.lowHz).toBeCloseTo(corners.lowHz!, 6);
+    expect(s.analysis.signal.corners.highHz).toBeCloseTo(corners.highHz!, 3);
+    // And the chain's own solve of that stage, into the same load, agrees on its gain (common practice: a stage's gain is set by the load it drives).
+    expect(amp.stages[1]!.gain).toBeCloseTo(byHand.solution.gain, 3);
   });
 });
