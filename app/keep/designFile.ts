@@ -1,10 +1,10 @@
-import { CONNECTIONS, findOutputTube, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
+import { findOutputTube, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
-import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
+import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, JOIN, OUTPUT_STAGE, quote, STAGE_KIND } from './designSchema';
 import { readSupplyPlan } from './supplyInFile';
-import { MAX_VOLTAGE_STAGES, normalized, type FollowerPlan, type GainPlan, type StagePlan } from '../store/stagePlans';
+import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePlans';
 
 /**
  * Quiescent's design file: our own JSON format, versioned.
@@ -62,56 +62,9 @@ export function writeDesignFile(doc: DesignDocument, savedAt = new Date()): stri
   return JSON.stringify(file, null, 2);
 }
 
-type Check = (v: unknown) => string | null;
-/** A number in the field's range (DESIGN_LIMITS: the same as typing it). */
-const num = ({ min, max, unit, minPart }: Limit): Check => (v) => {
-  const u = unit === '' ? '' : ` ${unit}`;
-  if (minPart !== undefined) return v === 0 || (typeof v === 'number' && Number.isFinite(v) && v >= minPart && v <= max) ? null : `must be 0 or a number from ${minPart} to ${max}${u}`;
-  return typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max ? null : `must be a number from ${min} to ${max}${u}`;
-};
-const numOrNull = (range: Limit): Check => (v) => (v === null ? null : num(range)(v));
-const bool: Check = (v) => (typeof v === 'boolean' ? null : 'must be true or false');
-const oneOf = (options: readonly string[]): Check => (v) => (typeof v === 'string' && options.includes(v) ? null : `must be one of ${options.join(', ')}`);
-/** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
-const tubeId: Check = (v) => (typeof v === 'string' && v.trim().length > 0 && v.length <= 60 ? null : 'must name a tube (text of at most 60 characters)');
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
-const DESIGN_FIELDS: Record<keyof Omit<BenchDesign, 'stage2' | 'output' | 'stageKind' | 'drivesOutput' | 'supply' | 'before' | 'after'>, Check> = {
-  tubeId,
-  bplus: num(L.bplus),
-  ra: num(L.ra),
-  rk: num(L.rk),
-  bypassed: bool,
-  rl: numOrNull(L.rl),
-  series: oneOf(['E12', 'E24', 'E96']),
-  snap: bool,
-  rsource: num(L.rsource),
-  cin: numOrNull(L.cin),
-  rg: num(L.rg),
-  ck: numOrNull(L.ck),
-  cout: numOrNull(L.cout),
-  levelRms: num(L.levelRms),
-};
-const STAGE2_FIELDS: Record<keyof Stage2Design, Check> = {
-  kind: oneOf(['none', 'follower', 'common-cathode']),
-  tubeId,
-  ra: num(L.stage2.ra),
-  rk: num(L.stage2.rk),
-  rg: num(L.stage2.rg),
-};
-
-const GAIN_PLAN_FIELDS: Record<keyof Omit<GainPlan, 'kind'>, Check> = {
-  tubeId,
-  bplus: num(L.bplus),
-  ra: num(L.ra),
-  rk: num(L.rk),
-  bypassed: bool,
-  ck: numOrNull(L.ck),
-  cc: numOrNull(L.cin),
-  rg: num(L.rg),
-};
-const FOLLOWER_PLAN_FIELDS: Record<keyof Omit<FollowerPlan, 'kind'>, Check> = { tubeId, rk: num(L.stage2.rk) };
-
-/** One side of the chain (`before` or `after`): each stage checked field by field, and the order a chain can have. */
+/** One side of the chain (`before` or `after`): each stage checked by its kind's schema, and the order a chain can have. */
 function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, afterGain: boolean): { ok: true; plans: StagePlan[] } | { ok: false; message: string } {
   if (v === undefined) return { ok: true, plans: [] };
   if (!Array.isArray(v)) return { ok: false, message: `design.${side} must be a list of stages (found ${quote(v)}). Nothing was opened.` };
@@ -120,13 +73,8 @@ function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, 
   for (const [i, raw] of v.entries()) {
     const at = `design.${side}[${i}]`;
     if (!isRecord(raw)) return { ok: false, message: `${at} must be a stage (found ${quote(raw)}). Nothing was opened.` };
-    const kindProblem = oneOf(['common-cathode', 'follower'])(raw.kind);
-    if (kindProblem) return { ok: false, message: `${at}.kind ${kindProblem} (found ${quote(raw.kind)}). Nothing was opened.` };
-    const fields = raw.kind === 'follower' ? FOLLOWER_PLAN_FIELDS : GAIN_PLAN_FIELDS;
-    for (const [key, check] of Object.entries(fields)) {
-      const problem = check(raw[key]);
-      if (problem) return { ok: false, message: `${at}.${key} ${problem} (found ${quote(raw[key])}). Nothing was opened.` };
-    }
+    const problem = firstProblem(STAGE_KIND, raw, at) ?? firstProblem(raw.kind === 'follower' ? FOLLOWER_STAGE : GAIN_STAGE, raw, at);
+    if (problem) return { ok: false, message: problem };
     if (raw.kind === 'follower') {
       if (!prevIsGain) return { ok: false, message: `${at} is a cathode follower with no gain stage right before it to be direct-coupled to. Nothing was opened.` };
       plans.push({ kind: 'follower', tubeId: knownId(raw.tubeId as string), rk: raw.rk as number });
@@ -142,30 +90,6 @@ function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, 
   }
   return { ok: true, plans };
 }
-
-const outputTubeId: Check = (v) => (typeof v === 'string' && findOutputTube(v) ? null : 'must name an output tube in the library');
-const OUTPUT_FIELDS: Record<keyof OutputDesign, Check> = {
-  tubeId: outputTubeId,
-  connection: oneOf(CONNECTIONS),
-  bplus: num(L.output.bplus),
-  screenVolts: num(L.output.screenVolts),
-  ulTap: num(L.output.ulTap),
-  zPrimary: num(L.output.zPrimary),
-  rPrimary: num(L.output.rPrimary),
-  bias: oneOf(['cathode', 'fixed']),
-  rk: num(L.output.rk),
-  vg: num(L.output.vg),
-  rg: num(L.output.rg),
-  speakerOhms: num(L.output.speakerOhms),
-  thdLimit: num(L.output.thdLimit),
-};
-
-const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
-/** Values quoted in messages are cut short and shown as JSON text, never interpreted. */
-const quote = (v: unknown) => {
-  const t = JSON.stringify(v) ?? String(v);
-  return t.length > 40 ? `${t.slice(0, 40)}…` : t;
-};
 
 /** Reads a design file's text: the design, or a message saying exactly what is wrong. */
 export function readDesignFile(text: string, byteLength = new TextEncoder().encode(text).length): ReadResult {
@@ -186,28 +110,16 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   if (typeof raw.title !== 'string' || raw.title.length > MAX_TITLE_CHARS) return { ok: false, message: `"title" must be text of at most ${MAX_TITLE_CHARS} characters. Nothing was opened.` };
   const d = raw.design;
   if (!isRecord(d)) return { ok: false, message: 'The file has no "design" section. Nothing was opened.' };
-  for (const [key, check] of Object.entries(DESIGN_FIELDS)) {
-    const problem = check(d[key]);
-    if (problem) return { ok: false, message: `design.${key} ${problem} (found ${quote(d[key])}). Nothing was opened.` };
-  }
-  const s2 = d.stage2;
-  if (!isRecord(s2)) return { ok: false, message: 'design.stage2 is missing. Nothing was opened.' };
-  for (const [key, check] of Object.entries(STAGE2_FIELDS)) {
-    const problem = check(s2[key]);
-    if (problem) return { ok: false, message: `design.stage2.${key} ${problem} (found ${quote(s2[key])}). Nothing was opened.` };
-  }
+  const benchProblem = firstProblem(BENCH_STAGE, d, 'design');
+  if (benchProblem) return { ok: false, message: benchProblem };
+  const s2 = d.stage2 as Record<string, unknown>;
   let output: OutputDesign = DEMO_DESIGN.output;
   let stageKind: BenchDesign['stageKind'] = 'voltage';
   if (raw.version >= 2) {
-    const kindProblem = oneOf(['voltage', 'output'])(d.stageKind);
-    if (kindProblem) return { ok: false, message: `design.stageKind ${kindProblem} (found ${quote(d.stageKind)}). Nothing was opened.` };
+    const outputProblem = firstProblem(OUTPUT_STAGE, d, 'design');
+    if (outputProblem) return { ok: false, message: outputProblem };
     stageKind = d.stageKind as BenchDesign['stageKind'];
-    const o = d.output;
-    if (!isRecord(o)) return { ok: false, message: 'design.output is missing. Nothing was opened.' };
-    for (const [key, check] of Object.entries(OUTPUT_FIELDS)) {
-      const problem = check(o[key]);
-      if (problem) return { ok: false, message: `design.output.${key} ${problem} (found ${quote(o[key])}). Nothing was opened.` };
-    }
+    const o = d.output as Record<string, unknown>;
     output = {
       tubeId: findOutputTube(o.tubeId as string)!.id,
       connection: o.connection as Connection,
@@ -224,9 +136,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       thdLimit: o.thdLimit as number,
     };
   }
-  if (d.drivesOutput !== undefined && typeof d.drivesOutput !== 'boolean') {
-    return { ok: false, message: `design.drivesOutput must be true or false (found ${quote(d.drivesOutput)}). Nothing was opened.` };
-  }
+  const joinProblem = firstProblem(JOIN, d, 'design');
+  if (joinProblem) return { ok: false, message: joinProblem };
   const drivesOutput = d.drivesOutput === true;
   if (drivesOutput && d.rl !== output.rg) {
     return { ok: false, message: `design.rl must equal design.output.rg when the voltage stages drive the output stage (found ${quote(d.rl)} and ${quote(output.rg)}). Nothing was opened.` };

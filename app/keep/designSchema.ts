@@ -1,0 +1,117 @@
+import * as v from 'valibot';
+import { CONNECTIONS, findOutputTube } from '../../src/index';
+import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
+
+/**
+ * The design file's fields as one schema (valibot), each with the range the
+ * bench types it in (DESIGN_LIMITS) and the words a builder reads when a
+ * file breaks it. `firstProblem` turns the first broken field into one
+ * sentence naming it by its path and what was found. The file's envelope
+ * (format, version, title) and the rules between fields (a driven output's
+ * grid resistor is RL, the chain's order) are checked in designFile.ts.
+ */
+
+/** A number in the field's range: the same as typing it. */
+const ranged = ({ min, max, unit, minPart }: Limit) => {
+  const u = unit === '' ? '' : ` ${unit}`;
+  if (minPart !== undefined) {
+    return v.custom<number>((x) => x === 0 || (typeof x === 'number' && Number.isFinite(x) && x >= minPart && x <= max), `must be 0 or a number from ${minPart} to ${max}${u}`);
+  }
+  return v.custom<number>((x) => typeof x === 'number' && Number.isFinite(x) && x >= min && x <= max, `must be a number from ${min} to ${max}${u}`);
+};
+const rangedOrNull = (l: Limit) => v.union([v.null(), ranged(l)], ranged(l).message as string);
+const yesNo = () => v.boolean('must be true or false');
+const oneOf = <const T extends readonly [string, ...string[]]>(options: T) => v.picklist(options, `must be one of ${options.join(', ')}`);
+/** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
+const tubeName = () => v.custom<string>((x) => typeof x === 'string' && x.trim().length > 0 && x.length <= 60, 'must name a tube (text of at most 60 characters)');
+const section = <T extends v.ObjectEntries>(entries: T) => v.object(entries, 'must be an object');
+
+/** The voltage stage on the bench and the amplifier's own values (every version). */
+export const BENCH_STAGE = v.object({
+  tubeId: tubeName(),
+  bplus: ranged(L.bplus),
+  ra: ranged(L.ra),
+  rk: ranged(L.rk),
+  bypassed: yesNo(),
+  rl: rangedOrNull(L.rl),
+  series: oneOf(['E12', 'E24', 'E96']),
+  snap: yesNo(),
+  rsource: ranged(L.rsource),
+  cin: rangedOrNull(L.cin),
+  rg: ranged(L.rg),
+  ck: rangedOrNull(L.ck),
+  cout: rangedOrNull(L.cout),
+  levelRms: ranged(L.levelRms),
+  stage2: section({
+    kind: oneOf(['none', 'follower', 'common-cathode']),
+    tubeId: tubeName(),
+    ra: ranged(L.stage2.ra),
+    rk: ranged(L.stage2.rk),
+    rg: ranged(L.stage2.rg),
+  }),
+});
+
+/** The output stage (version 2 on). */
+export const OUTPUT_STAGE = v.object({
+  stageKind: oneOf(['voltage', 'output']),
+  output: section({
+    tubeId: v.custom<string>((x) => typeof x === 'string' && findOutputTube(x) !== undefined, 'must name an output tube in the library'),
+    connection: oneOf(CONNECTIONS as unknown as readonly [string, ...string[]]),
+    bplus: ranged(L.output.bplus),
+    screenVolts: ranged(L.output.screenVolts),
+    ulTap: ranged(L.output.ulTap),
+    zPrimary: ranged(L.output.zPrimary),
+    rPrimary: ranged(L.output.rPrimary),
+    bias: oneOf(['cathode', 'fixed']),
+    rk: ranged(L.output.rk),
+    vg: ranged(L.output.vg),
+    rg: ranged(L.output.rg),
+    speakerOhms: ranged(L.output.speakerOhms),
+    thdLimit: ranged(L.output.thdLimit),
+  }),
+});
+
+/** Whether the voltage stages drive the output stage (added within version 2; absent: apart). */
+export const JOIN = v.object({ drivesOutput: v.optional(yesNo()) });
+
+/** A stage of the chain off the bench (version 3): its kind first, then its parts. */
+export const STAGE_KIND = v.object({ kind: oneOf(['common-cathode', 'follower']) });
+export const GAIN_STAGE = v.object({
+  tubeId: tubeName(),
+  bplus: ranged(L.bplus),
+  ra: ranged(L.ra),
+  rk: ranged(L.rk),
+  bypassed: yesNo(),
+  ck: rangedOrNull(L.ck),
+  cc: rangedOrNull(L.cin),
+  rg: ranged(L.rg),
+});
+export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk) });
+
+/** Values quoted in messages are cut short and shown as JSON text, never interpreted. */
+export const quote = (x: unknown) => {
+  const t = JSON.stringify(x) ?? String(x);
+  return t.length > 40 ? `${t.slice(0, 40)}…` : t;
+};
+
+/**
+ * The first field of `input` the schema refuses, as a sentence ("design.ra
+ * must be a number from 100 to 10000000 Ω (found -5). Nothing was opened."),
+ * or null when every field is good. `at` names where the input sits in the
+ * file ("design", "design.after[0]").
+ */
+export function firstProblem(schema: v.GenericSchema, input: unknown, at: string): string | null {
+  const r = v.safeParse(schema, input, { abortEarly: true });
+  if (r.success) return null;
+  const issue = r.issues[0];
+  const keys = (issue.path ?? []).map((p) => p.key);
+  const path = keys.map((k) => (typeof k === 'number' ? `[${k}]` : `.${String(k)}`)).join('');
+  // An absent key: a whole section reads as missing; a value as what its own schema says of nothing.
+  if (issue.input === undefined) {
+    const field = keys.reduce<v.GenericSchema | undefined>((sch, k) => (sch as { entries?: Record<string, v.GenericSchema> } | undefined)?.entries?.[String(k)], schema);
+    if (field && 'entries' in field) return `${at}${path} is missing. Nothing was opened.`;
+    const own = field ? v.safeParse(field, undefined) : null;
+    if (own && !own.success) return `${at}${path} ${own.issues[0].message} (found undefined). Nothing was opened.`;
+  }
+  return `${at}${path} ${issue.message} (found ${quote(issue.input)}). Nothing was opened.`;
+}
