@@ -13,6 +13,8 @@ export function Stage2Panel() {
   const stage2 = useWorkbench((s) => s.design.stage2);
   const tubes = useWorkbench((s) => s.tubes);
   const setStage2 = useWorkbench((s) => s.setStage2);
+  const addStage = useWorkbench((s) => s.addStage);
+  const bench = useWorkbench((s) => s.design.before.length);
   const error = useWorkbench((s) => s.errors.stage2);
   const chain = useWorkbench((s) => s.analysis.signal.chain);
   const view = useWorkbench((s) => s.analysis.signal.stage2);
@@ -23,10 +25,19 @@ export function Stage2Panel() {
       <h2 id={`${id}-h`}>Second stage</h2>
       <div className="option-row">
         <label htmlFor={`${id}-kind`}>Add</label>
-        <select id={`${id}-kind`} value={stage2.kind} onChange={(e) => setStage2({ kind: e.target.value as typeof stage2.kind })}>
-          <option value="none">nothing (stage 1 drives RL)</option>
+        <select
+          id={`${id}-kind`}
+          value={stage2.kind}
+          onChange={(e) => {
+            const kind = e.target.value as typeof stage2.kind;
+            // A gain stage joins the amplifier as a stage of its own (its own B+, bypass and coupling), put on the bench.
+            if (kind === 'common-cathode' && stage2.kind === 'none') addStage(bench, 'common-cathode');
+            else setStage2({ kind });
+          }}
+        >
+          <option value="none">nothing (this stage drives the next, or RL)</option>
           <option value="follower">a cathode follower, direct-coupled</option>
-          <option value="common-cathode">a second gain stage, capacitor-coupled</option>
+          <option value="common-cathode">a gain stage after it, capacitor-coupled</option>
         </select>
       </div>
       {stage2.kind !== 'none' ? (

@@ -84,6 +84,17 @@ describe('the amplifier strip', () => {
     expect((screen.getByRole('button', { name: 'Remove Stage 1' }) as HTMLButtonElement).disabled).toBe(true);
   });
 
+  it('the second-stage panel adds a gain stage as a stage of the chain, on the bench', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => fireEvent.change(screen.getByLabelText('Add', { exact: true }), { target: { value: 'common-cathode' } }));
+    expect(cardsOf().map((c) => c.querySelector('.card-title')!.textContent)).toEqual([
+      'Stage 1 · 12AX7 common cathode', 'Stage 2 · 12AU7 common cathode', 'Stage 3 · 12AU7 common cathode', 'Output · EL34 single-ended output',
+    ]);
+    expect(cardsOf()[2]!.getAttribute('aria-pressed')).toBe('true');
+    expect(store.getState().design.stage2.kind).toBe('none');
+  });
+
   it('one build sheet for the joined amplifier: the output stage\'s transformer and parts, its grid resistor the RL typed, and its current in the B+ total', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);
