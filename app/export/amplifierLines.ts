@@ -1,5 +1,6 @@
 import { farads, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import type { BuildSheet } from '../store/buildSheet';
+import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
 import type { WorkbenchState } from '../store/workbenchStore';
 
@@ -45,9 +46,16 @@ export function otherStageSections(s: WorkbenchState, sheet: BuildSheet): { head
       lines: [
         values,
         `Va ${volts(st.op.va)}, Vk ${volts(st.op.vk)}, Ia ${milliamps(st.op.ia)}, Vgk ${volts(st.op.vgk)}; gain ${plain(st.gain)} ×, Zout ${ohms(st.zout)}`,
-        ...parts.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
-        ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
+        ...partLines(parts),
       ],
     };
   });
+}
+
+/** One line per part to order: its value and series, its rating, and what it runs at or sees. */
+export function partLines(parts: { readonly resistors: readonly ResistorLine[]; readonly capacitors: readonly CapacitorLine[] }): string[] {
+  return [
+    ...parts.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
+    ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
+  ];
 }

@@ -8,7 +8,7 @@ import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
 import { elevationAdvice } from '../panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
-import { amplifierSection, otherStageSections } from './amplifierLines';
+import { amplifierSection, otherStageSections, partLines } from './amplifierLines';
 import { supplySection } from './supplyLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
@@ -20,8 +20,15 @@ const MARGIN = 60;
 export function cardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
   const amplifier = amplifierSection(s);
   const supply = supplySection(s);
-  const stageSections = s.design.stageKind === 'output' ? outputCardSections(s) : voltageCardSections(s);
+  const stageSections = s.design.stageKind === 'output' ? [...outputCardSections(s), ...voltagePartsSections(s)] : voltageCardSections(s);
   return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections];
+}
+
+/** With the output stage on the bench, the voltage stages that drive it still go on the card: each one's parts, with their own ratings. */
+function voltagePartsSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
+  if (!s.design.drivesOutput) return [];
+  const build = buildSheetOf(s);
+  return [{ heading: `${build.benchTitle}, its parts`, lines: partLines(build) }, ...otherStageSections(s, build)];
 }
 
 function voltageCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
@@ -78,8 +85,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   sections.push({
     heading: 'Parts to order',
     lines: [
-      ...build.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
-      ...build.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
+      ...partLines(build),
       `Tubes: ${build.tubes.map((t) => `${t.envelopes} × ${t.tube.id} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`).join(', ')}`,
       build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
       build.filter.ok ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',

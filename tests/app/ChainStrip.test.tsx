@@ -117,6 +117,12 @@ describe('the amplifier strip', () => {
     expect(first!.lines[1]).toMatch(/^Gain [\d.]+ × \([\d.]+ dB, inverting\), −3 dB [\d.]+ Hz to [\d.]+ kHz$/);
     expect(first!.lines[2]).toMatch(/^Clean to [\d.]+ W \([\d.]+ V rms at the speaker\) from .* in; output clips first \(grid current\)$/);
     expect(first!.lines[3]).toMatch(/^At 1 W: .* in, THD [\d.]+ %$/);
+    // With the output stage on the bench the card still carries every voltage stage's parts, each with its own ratings.
+    store.getState().setStageKind('output');
+    const outputCard = cardSections(store.getState());
+    expect(outputCard.map((x) => x.heading)).toEqual(expect.arrayContaining(['Output stage', 'Stage 2, 12AU7, its parts', 'Stage 1, 12AX7 gain stage']));
+    expect(outputCard.find((x) => x.heading === 'Stage 1, 12AX7 gain stage')!.lines).toEqual(expect.arrayContaining([expect.stringMatching(/^Ra1: 100 kΩ E24, [\d.]+ W \(runs at /)]));
+    store.getState().setStageKind('voltage');
     // The stages apart and one voltage stage left: its own sections say it all.
     store.getState().setDrivesOutput(false);
     expect(cardSections(store.getState())[0]!.heading).toBe('Amplifier');
