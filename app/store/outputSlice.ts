@@ -1,9 +1,10 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { biasForPoint, findOutputTube, nearestPreferred, OUTPUT_LIMITS, zPrimaryThrough, type Connection, type Failure, type OutputDesign, type Result, switchBias } from '../../src/index';
+import { biasForPoint, findOutputTube, nearestPreferred, zPrimaryThrough, type Connection, type Failure, type OutputDesign, type Result, switchBias } from '../../src/index';
 import type { StageKind } from './analysis';
 import { analyzeOutputBench, type OutputBench, type OutputRival } from './outputAnalysis';
 import type { WorkbenchState } from './workbenchStore';
 import { DEMO_DESIGN } from './demoDesign';
+import { DESIGN_LIMITS, within } from './designLimits';
 
 /**
  * The transformer-coupled output stage. Its design lives in the bench design
@@ -94,7 +95,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
       set({ dragNote: b.message });
       return;
     }
-    const bplus = Math.min(Math.max(b.bplus, OUTPUT_LIMITS.minBplus), OUTPUT_LIMITS.maxBplus);
+    const bplus = within(b.bplus, DESIGN_LIMITS.output.bplus);
     const patch: Partial<OutputDesign> = d.bias === 'cathode' ? { bplus, rk: Math.max(1, b.rk) } : { bplus, vg: b.vgk };
     const failure = s.changeOutput(patch, { light: true });
     set({ dragNote: failure ? failure.message : null });
@@ -117,7 +118,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
       set({ dragNote: 'The AC load line falls from the operating point: drag its handle down and to the right' });
       return;
     }
-    const zPrimary = threeFigures(Math.min(Math.max(z, OUTPUT_LIMITS.minZ), OUTPUT_LIMITS.maxZ));
+    const zPrimary = threeFigures(within(z, DESIGN_LIMITS.output.zPrimary));
     if (zPrimary === s.design.output.zPrimary) return;
     const failure = s.changeOutput({ zPrimary }, { light: true });
     set({ dragNote: failure ? failure.message : null });
