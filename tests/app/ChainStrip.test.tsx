@@ -3,6 +3,7 @@ import { act } from 'react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { ohms } from '../../app/format';
 
 /** The stage cards in the strip (each stage's menu buttons aside). */
 const cardsOf = () => [...screen.getByRole('region', { name: 'The amplifier, stage by stage' }).querySelectorAll<HTMLButtonElement>('button.chain-card')];
@@ -82,6 +83,19 @@ describe('the amplifier strip', () => {
     expect(cardsOf()).toHaveLength(2);
     // The last gain stage stays.
     expect((screen.getByRole('button', { name: 'Remove Stage 1' }) as HTMLButtonElement).disabled).toBe(true);
+  });
+
+  it('on a stage in the middle, the amplifier-end boxes say what this stage really sees', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    // The demo's driver, after the 12AX7 input stage: fed by that stage's output impedance, not the 1 kΩ source.
+    const values = within(screen.getByRole('region', { name: 'Circuit values' }));
+    const zout = store.getState().amplifier!.result;
+    if (!zout.ok) throw new Error(zout.message);
+    expect(values.getByText(/^the amplifier's source; this stage is fed by stage 1 \(/).textContent).toBe(`the amplifier's source; this stage is fed by stage 1 (${ohms(zout.stages[0]!.zout)})`);
+    act(() => store.getState().showStage(0));
+    expect(values.getByText('what drives the grid')).toBeTruthy();
+    expect(values.getByText(/^the last voltage stage's load; this one drives 1 MΩ at the next grid$/)).toBeTruthy();
   });
 
   it('the second-stage panel adds a gain stage as a stage of the chain, on the bench', () => {
