@@ -30,7 +30,7 @@ function Coupling({ x0, cc }: { x0: number; cc: number | null }) {
   return cc === null ? <Wire points={[[x0, GRID], [x0 + CC_END, GRID]]} /> : (
     <>
       <Capacitor at={GRID} from={x0} to={x0 + CC_END} vertical={false} />
-      {label(x0 + CC_END / 2, GRID - 16, farads(cc), 'middle')}
+      {label(x0 + 2, GRID - 16, farads(cc))}
     </>
   );
 }
@@ -47,7 +47,7 @@ function GainCell({ x0, p }: { x0: number; p: GainPlan }) {
           <Dot x={x0 + RG_X} y={GRID} />
           <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
           <Ground x={x0 + RG_X} y={GROUND} />
-          {label(x0 + RG_X - 10, GRID + 44, ohms(p.rg), 'end')}
+          {label(x0 + RG_X + 11, GRID + 32, ohms(p.rg))}
         </>
       )}
       <Triode cx={cx} cy={GRID} r={r} />
@@ -99,7 +99,7 @@ function OutputCell({ x0, cc, rg, tubeId, speakerOhms }: { x0: number; cc: numbe
       <Dot x={x0 + RG_X} y={GRID} />
       <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
       <Ground x={x0 + RG_X} y={GROUND} />
-      {label(x0 + RG_X - 10, GRID + 44, ohms(rg), 'end')}
+      {label(x0 + RG_X + 11, GRID + 32, ohms(rg))}
       <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, GRID + 8], [cx - r, GRID + 8]]} />
       <Pentode cx={cx} cy={GRID} r={r} />
       <Wire points={[[x0 + 64, RAIL], [cx, RAIL], [cx, RAIL + 10]]} />

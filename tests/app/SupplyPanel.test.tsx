@@ -142,7 +142,7 @@ describe('the B+ supply on the bench', () => {
   it('lists the heater windings beside the supply: every stage\'s heaters per channel, a directly heated rectifier on its own', () => {
     const { store, panel } = bench();
     const list = () => panel.getByTestId('heater-windings').textContent;
-    // 12AX7 and 12AU7 (6.3 V, 0.3 A each in parallel) and EL34 (6.3 V, 1.5 A; from memory): one 6.3 V winding of 2.1 A, 13.2 VA.
+    // 12AX7 and 12AU7 (6.3 V, 0.3 A each in parallel; Tung-Sol data sheets) and EL34 (6.3 V, 1.5 A; from memory): one 6.3 V winding of 2.1 A, 13.2 VA.
     expect(list()).toMatch(/^6\.3 V, 2\.1 A \(13\.2 VA\): 12AX7 \(6\.3 V, 0\.3 A\), 12AU7 \(6\.3 V, 0\.3 A\), EL34 \(6\.3 V, 1\.5 A\)$/);
     fireEvent.change(panel.getByLabelText('Rectifier'), { target: { value: 'tube:5U4GB' } });
     fireEvent.change(panel.getByLabelText('Channels'), { target: { value: '2' } });
