@@ -120,3 +120,6 @@ export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigure
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
 export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';
 export { pushPullRaaSweep, MAX_RAA_POINTS, type RaaRow } from './pushpull/raaSweep';
+export { analyzePushPull, type PushPullAnalysis, type PushPullAnalysisOptions } from './pushpull/analyzePushPull';
+export { pushPullOverlay, raaThrough, type PushPullOverlay } from './pushpull/pushPullOverlay';
+export { pushPullFindings } from './pushpull/pushPullFindings';

@@ -22,7 +22,9 @@ export type FindingKind =
   | 'rectifier-peak-current'
   | 'reservoir-capacitance'
   | 'transformer-current'
-  | 'hum';
+  | 'hum'
+  | 'primary-imbalance'
+  | 'distortion';
 
 /** One check of the design against the tube's ratings, worded to be shown as is. */
 export interface Finding {

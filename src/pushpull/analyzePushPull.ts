@@ -1,0 +1,102 @@
+import { fail, type Result } from '../result';
+import type { CurveSheet } from '../stage/curveSheet';
+import type { Finding } from '../stage/findings';
+import type { PlateExtent } from '../stage/plateExtent';
+import { checkCount, checkNumber } from '../stage/checkInput';
+import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
+import { outputExtent, outputSheet } from '../output/outputSheet';
+import { OUTPUT_SAMPLES, SWEEP_SAMPLES } from '../output/outputSignal';
+import type { OutputTube } from '../output/outputTube';
+import { SHEET_FEED_TOLERANCE } from '../output/analyzeOutput';
+import type { ScreenFeed } from '../output/electrodes';
+import type { PushPullDesign } from './pushPullDesign';
+import { pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
+import { pushPullFigures, type PushPullFigures } from './pushPullFigures';
+import { pushPullFindings } from './pushPullFindings';
+import { pushPullOverlay, type PushPullOverlay } from './pushPullOverlay';
+import { solvePushPull, type PushPullSolution } from './solvePushPull';
+
+export interface PushPullAnalysis {
+  readonly solution: PushPullSolution;
+  /** One tube's plate curves as wired (the pair shares them; a mismatched second tube is drawn by its point only). */
+  readonly sheet: CurveSheet;
+  readonly maxCurves: number;
+  readonly overlay: PushPullOverlay;
+  /** The grids driven to 0 V peak, in antiphase: the drive data sheets quote a pair's power at. */
+  readonly full: PushPullDrive;
+  /**
+   * The level sweep's figures (power within the distortion limit, where class
+   * AB begins, the worst dissipation, damping): on the light pass that runs
+   * during a drag, the last full pass's, stale; null before any full pass.
+   */
+  readonly figures: PushPullFigures | null;
+  /** The current the stage draws from B+ (both cathodes), A: at idle and with the grids driven to 0 V. */
+  readonly supplyCurrent: { readonly idle: number; readonly full: number };
+  /** Primary (plate to plate) to secondary turns ratio for the chosen speaker. */
+  readonly turnsRatio: number;
+  readonly findings: readonly Finding[];
+}
+
+export interface PushPullAnalysisOptions {
+  readonly extent?: PlateExtent;
+  readonly maxCurves?: number;
+  /** Light: skip the level sweep (the costly part), carrying the previous figures. */
+  readonly light?: boolean;
+  /** The last analysis: its curve sheet is reused when tube, window, curve count and screen feed are unchanged. */
+  readonly previous?: PushPullAnalysis | null;
+}
+
+function sameFeed(a: ScreenFeed, b: ScreenFeed, light: boolean): boolean {
+  if (light) return a.kind === b.kind;
+  if (a.kind === 'fixed' && b.kind === 'fixed') return Math.abs(a.vg2k - b.vg2k) < SHEET_FEED_TOLERANCE;
+  if (a.kind === 'tap' && b.kind === 'tap') return a.fraction === b.fraction && Math.abs(a.supply - b.supply) < SHEET_FEED_TOLERANCE;
+  return a.kind === 'tied' && b.kind === 'tied';
+}
+
+/**
+ * Everything the bench shows of a push-pull pair: the idle point, one tube's
+ * curves with the composite load lines and the path it takes at full drive,
+ * power and distortion with the grids driven to 0 V, and on the full pass
+ * the level sweep (power within the distortion limit, class AB onset, worst
+ * dissipation, damping factor) that the findings check against the ratings.
+ */
+export function analyzePushPull(tube: OutputTube, design: PushPullDesign, optionsGiven: PushPullAnalysisOptions | null = {}): Result<PushPullAnalysis> {
+  if (optionsGiven !== null && optionsGiven !== undefined && typeof optionsGiven !== 'object') return fail('invalid-input', 'Analysis options must be an object or left out');
+  const options = optionsGiven ?? {};
+  const solved = solvePushPull(tube, design);
+  if (!solved.ok) return solved;
+  const s = solved;
+  const extent = options.extent ?? outputExtent(tube, design.bplus);
+  const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
+  const problem =
+    checkNumber('extent', 'Chart width', extent?.vmax, 'V', 1, 20_000) ??
+    checkNumber('extent', 'Chart height', extent?.iaMax, 'A', 1e-6, 100) ??
+    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES);
+  if (problem) return problem;
+  const light = options.light ?? false;
+  const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
+  const reuse = prev && prev.solution.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves && sameFeed(prev.solution.feed, s.feed, light);
+  const sheet = reuse ? prev.sheet : outputSheet(tube, s.feed, extent, maxCurves);
+  const full = pushPullDriveOf(s, Math.max(0, -s.vgk), light ? SWEEP_SAMPLES : OUTPUT_SAMPLES);
+  let figures: PushPullFigures | null = prev?.figures ?? null;
+  if (!light) {
+    const f = pushPullFigures(s);
+    figures = f.ok ? f : null;
+  }
+  const overlay = pushPullOverlay(s, extent, full);
+  // Tube 1's path reaches its highest plate voltage where its partner pulls hardest: the pair's peak (mirrored for tube 2).
+  const peak = overlay.swing.length > 0 ? Math.max(...overlay.swing.map((p) => p.v)) : null;
+  return {
+    ok: true,
+    solution: s,
+    sheet,
+    maxCurves,
+    overlay,
+    full,
+    figures,
+    supplyCurrent: { idle: s.supplyCurrent, full: full.supplyCurrent },
+    turnsRatio: Math.sqrt(design.raa / design.speakerOhms),
+    findings: pushPullFindings(s, light ? null : figures, peak),
+  };
+}
+

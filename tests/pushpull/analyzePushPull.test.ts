@@ -1,0 +1,81 @@
+import { describe, expect, it } from 'vitest';
+import { analyzePushPull, findOutputTube, raaThrough, type PushPullDesign } from '../../src/index';
+import { expectClose } from '../helpers/expectClose';
+
+// Our own designs.
+const el84: PushPullDesign = {
+  tubeId: 'EL84', connection: 'ultralinear', bplus: 320, screenVolts: 320, ulTap: 0.4, raa: 8000, rPrimary: 240,
+  bias: 'cathode', rk: 130, vg: 0, rg: 470e3, speakerOhms: 8, thdLimit: 0.03,
+};
+const analysed = (d: PushPullDesign, opts = {}) => {
+  const a = analyzePushPull(findOutputTube(d.tubeId)!, d, opts);
+  if (!a.ok) throw new Error(a.message);
+  return a;
+};
+const slope = (line: readonly { v: number; i: number }[]) => (line[1]!.v - line[0]!.v) / (line[0]!.i - line[1]!.i);
+
+describe('the push-pull bench analysis', () => {
+  // Langford-Smith, Radiotron Designer's Handbook (4th ed.), ch. 13: while both tubes conduct each sees Raa/2; a tube
+  // working alone sees Raa/4. Each half of the primary adds its DC resistance in series.
+  it('draws the composite load line through the idle point at Raa/2 + Rpri/2, and the lone tube\'s line from the centre tap at Raa/4 + Rpri/2', () => {
+    const a = analysed(el84);
+    const { vpk, ip } = a.solution.idle[0];
+    expectClose(slope(a.overlay.acLoad), el84.raa / 2 + el84.rPrimary / 2, { rel: 1e-9 }, 'composite slope');
+    expectClose(slope(a.overlay.alone), el84.raa / 4 + el84.rPrimary / 2, { rel: 1e-9 }, 'alone slope');
+    const onLine = a.overlay.acLoad[0]!.i - (vpk - a.overlay.acLoad[0]!.v) / slope(a.overlay.acLoad);
+    expectClose(onLine, ip, { rel: 1e-9 }, 'through the point');
+    expect(a.overlay.alone[1]).toEqual({ v: a.solution.supply, i: 0 });
+    // Dragging the handle back gives the design's Raa (the inverse the bench uses).
+    expectClose(raaThrough(a.solution, a.overlay.loadHandle.v, a.overlay.loadHandle.i)!, el84.raa, { rel: 1e-9 }, 'Raa through the handle');
+    expect(raaThrough(a.solution, vpk - 10, ip + 0.001)).toBeNull();
+  });
+
+  it('traces the path one tube takes at full drive: from its idle point up to the grid at 0 V and down toward cutoff, within the window', () => {
+    const a = analysed(el84);
+    const path = a.overlay.swing;
+    expect(path.length).toBeGreaterThan(32);
+    const vs = path.map((p) => p.v);
+    expect(Math.min(...vs)).toBeLessThan(a.solution.idle[0].vpk - 100);
+    expect(Math.max(...vs)).toBeGreaterThan(a.solution.idle[0].vpk + 100);
+    // In class AB the tube cuts off for part of the cycle: its current there is a small share of its idle current.
+    expect(a.figures!.classABFrom).not.toBeNull();
+    expect(Math.min(...path.map((p) => p.i))).toBeLessThan(0.2 * a.solution.idle[0].ip);
+  });
+
+  it('the light pass (a drag) keeps the last full pass\'s level sweep and curves, and the full pass draws more current at full drive than at idle (class AB)', () => {
+    const full = analysed(el84);
+    const light = analysed({ ...el84, rk: 150 }, { light: true, previous: full });
+    expect(light.figures).toBe(full.figures);
+    expect(light.sheet).toBe(full.sheet);
+    expect(light.solution.vk).toBeGreaterThan(full.solution.vk);
+    expect(full.supplyCurrent.full).toBeGreaterThan(full.supplyCurrent.idle * 1.1);
+    expectClose(full.supplyCurrent.idle, full.solution.idle[0].ik + full.solution.idle[1].ik, { rel: 1e-12 }, 'idle supply current');
+  });
+
+  it('checks the worst plate dissipation over the drive range, and says when a mismatch leaves DC in the core', () => {
+    // Fixed bias cold enough that class AB's dissipation peaks under drive, above idle (Langford-Smith, ch. 13).
+    const cold: PushPullDesign = { ...el84, connection: 'pentode', bias: 'fixed', vg: -16, mismatch: 0.08 };
+    const a = analysed(cold);
+    const plate = a.findings.filter((f) => f.kind === 'plate-dissipation');
+    expect(plate).toHaveLength(2);
+    expect(plate.some((f) => f.message.includes('under drive'))).toBe(true);
+    const imbalance = a.findings.find((f) => f.kind === 'primary-imbalance');
+    expect(imbalance?.value).toBeCloseTo(Math.abs(a.solution.dcImbalance), 12);
+    expect(analysed({ ...cold, mismatch: 0 }).findings.some((f) => f.kind === 'primary-imbalance')).toBe(false);
+  });
+
+  it('says when the pair distorts past the limit at every level (crossover from a bias too cold)', () => {
+    const crossover: PushPullDesign = { ...el84, connection: 'pentode', bias: 'fixed', vg: -16, thdLimit: 0.005 };
+    const a = analysed(crossover);
+    expect(a.figures!.overThdEverywhere).toBe(true);
+    expect(a.findings.some((f) => f.kind === 'distortion')).toBe(true);
+  });
+
+  it('names the field of a bad value and never throws for finite input', () => {
+    const bad = analyzePushPull(findOutputTube('EL84')!, { ...el84, raa: 5 });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.field).toBe('raa');
+    const options = analyzePushPull(findOutputTube('EL84')!, el84, { maxCurves: 0 });
+    expect(options.ok).toBe(false);
+  });
+});
