@@ -115,7 +115,7 @@ export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBlee
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
 export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
-export { checkPushPull, MAX_MISMATCH, type PushPullDesign } from './pushpull/pushPullDesign';
+export { checkPushPull, MAX_MISMATCH, RAA_LIMITS, type PushPullDesign } from './pushpull/pushPullDesign';
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
 export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';
@@ -123,3 +123,5 @@ export { pushPullRaaSweep, MAX_RAA_POINTS, type RaaRow } from './pushpull/raaSwe
 export { analyzePushPull, type PushPullAnalysis, type PushPullAnalysisOptions } from './pushpull/analyzePushPull';
 export { pushPullOverlay, raaThrough, type PushPullOverlay } from './pushpull/pushPullOverlay';
 export { pushPullFindings } from './pushpull/pushPullFindings';
+export { pairBiasForPoint, switchPairBias } from './pushpull/pairBias';
+export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } from './pushpull/pushPullParts';

@@ -5,7 +5,7 @@ import type { ChainCardName } from '../store/amplifierChain';
 /** Headroom shown on each card's bar: 20 dB fills it. */
 const HEADROOM_FULL_DB = 20;
 
-function worstOf(findings: readonly StageFinding[]): { text: string; severity: 'danger' | 'warning' | 'ok' } {
+export function worstOf(findings: readonly Pick<StageFinding, "severity" | "message">[]): { text: string; severity: 'danger' | 'warning' | 'ok' } {
   const f = findings.find((x) => x.severity === 'danger') ?? findings.find((x) => x.severity === 'warning');
   return f ? { text: f.message, severity: f.severity as 'danger' | 'warning' } : { text: 'Within every rating', severity: 'ok' };
 }

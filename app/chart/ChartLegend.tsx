@@ -27,6 +27,16 @@ export const OUTPUT_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'Swing to grid current or cutoff, along the AC load line', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
+export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
+  { label: 'One tube\'s plate curves as wired (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
+  { label: 'DC load line (its half of the primary)', stroke: PALETTE.load, dash: undefined, width: 2 },
+  { label: 'Composite load line, both tubes conducting: Raa/2 (drag its diamond handle)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
+  { label: 'One tube alone, its partner cut off: Raa/4', stroke: PALETTE.load, dash: '2 4', width: 1.2 },
+  { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
+  { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
+  { label: 'The path the tube takes with the grids driven to 0 V (solved with its partner)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
+];
+
 export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND }: { first: string; rival: string | null; items?: readonly LegendItem[] }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">

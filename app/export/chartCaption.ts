@@ -1,4 +1,4 @@
-import { OUTPUT_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../chart/ChartLegend';
+import { OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../chart/ChartLegend';
 import { PALETTE } from '../chart/palette';
 import { milliamps, ohms, plain, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -12,8 +12,18 @@ export interface ChartCaption {
 
 export function chartCaption(s: WorkbenchState): ChartCaption {
   if (s.design.stageKind === 'output') {
-    const a = s.outputBench.analysis;
+    const b = s.outputBench;
     const o = s.design.output;
+    if (b.pair === 'push-pull') {
+      const p = b.analysis;
+      const one = p.solution.idle[0];
+      return {
+        title: `Two ${o.tubeId} ${o.connection} in push-pull, B+ ${volts(o.bplus)}, ${o.bias === 'cathode' ? `Rk ${ohms(o.rk)} shared` : `grids ${volts(o.vg)}`}, Raa ${ohms(o.raa)}`,
+        figures: `Each: Vpk ${volts(one.vpk)}, Ia ${milliamps(one.ip)}, Pa ${watts(one.pa)}; ${watts(p.full.power)} with the grids driven to 0 V`,
+        legend: PAIR_STAGE_LEGEND,
+      };
+    }
+    const a = b.analysis;
     return {
       title: `${o.tubeId} ${o.connection}, B+ ${volts(o.bplus)}, ${o.bias === 'cathode' ? `Rk ${ohms(o.rk)}` : `grid ${volts(o.vg)}`}, primary ${ohms(o.zPrimary)}`,
       figures: `Vpk ${volts(a.solution.op.vpk)}, Ia ${milliamps(a.solution.op.ip)}, Pa ${watts(a.solution.op.pa)}; ${watts(a.clean.at.power)} at the onset of ${a.clean.limitedBy}`,

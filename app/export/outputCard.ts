@@ -1,12 +1,14 @@
 import { outputPartsList } from '../../src/index';
 import { farads, mAPerV, milliamps, ohms, percentOf, plain, volts, watts } from '../format';
-import { OUTPUT_COMPARE_ROWS } from '../output/OutputComparePanel';
+import { comparedSection, pairCardSections } from './pairCard';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
 
 /** The build card's text for the output stage, from what the model already computed. */
 export function outputCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
-  const a = s.outputBench.analysis;
+  const b = s.outputBench;
+  if (b.pair === 'push-pull') return pairCardSections(s, b);
+  const a = b.analysis;
   const { op, tube, design: o } = a.solution;
   const r = tube.ratings;
   const parts = outputPartsList(a, s.design.series);
@@ -49,16 +51,6 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
       ],
     },
   ];
-  const rival = s.outputRivalBench;
-  if (s.outputRival.on && rival && rival.ok) {
-    sections.push({
-      heading: `Compared: ${tube.id} against ${rival.analysis.solution.tube.id} (same parts)`,
-      lines: OUTPUT_COMPARE_ROWS.map((row) => {
-        const x = row.value(a);
-        const y = row.value(rival.analysis);
-        return `${row.label}: ${x === null ? '—' : row.show(x)}  |  ${y === null ? '—' : row.show(y)}`;
-      }),
-    });
-  }
+  sections.push(...comparedSection(s));
   return sections;
 }

@@ -1,3 +1,4 @@
+import { pairDefaults, type OutputPair, type OutputPlan } from '../store/outputPlan';
 import { findOutputTube, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
@@ -12,7 +13,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *   { "format": "quiescent-design", "version": 2, "title": "…", "savedAt": "ISO 8601",
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
- *                                      bias, rk, vg, rg, speakerOhms, thdLimit }, drivesOutput,
+ *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
  *                 before: [stage…], after: [stage…] } }
@@ -24,6 +25,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * (cc null: direct from the source, first stage only) or
  * { kind: "follower", tubeId, rk } (direct-coupled to the gain stage before it).
  * Versions 1 and 2 open as a chain of their one or two voltage stages.
+ * The output stage's `pair` ("single-ended" or "push-pull"), `raa` (the
+ * pair's plate-to-plate load, Ω) and `mismatch` (fraction) came later within
+ * version 3: a file without them opens single-ended, as it was written.
  *
  * `drivesOutput` (true: the voltage stages drive the output stage, one
  * amplifier; RL is then the output grid resistor) came later within
@@ -113,7 +117,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   const benchProblem = firstProblem(BENCH_STAGE, d, 'design');
   if (benchProblem) return { ok: false, message: benchProblem };
   const s2 = d.stage2 as Record<string, unknown>;
-  let output: OutputDesign = DEMO_DESIGN.output;
+  let output: OutputPlan = DEMO_DESIGN.output;
   let stageKind: BenchDesign['stageKind'] = 'voltage';
   if (raw.version >= 2) {
     const outputProblem = firstProblem(OUTPUT_STAGE, d, 'design');
@@ -134,6 +138,10 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       rg: o.rg as number,
       speakerOhms: o.speakerOhms as number,
       thdLimit: o.thdLimit as number,
+      ...pairDefaults(o.zPrimary as number),
+      ...(o.pair !== undefined ? { pair: o.pair as OutputPair } : {}),
+      ...(o.raa !== undefined ? { raa: o.raa as number } : {}),
+      ...(o.mismatch !== undefined ? { mismatch: o.mismatch as number } : {}),
     };
   }
   const joinProblem = firstProblem(JOIN, d, 'design');

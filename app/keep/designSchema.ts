@@ -68,6 +68,10 @@ export const OUTPUT_STAGE = v.object({
     rg: ranged(L.output.rg),
     speakerOhms: ranged(L.output.speakerOhms),
     thdLimit: ranged(L.output.thdLimit),
+    // The push-pull pair came within version 3: absent, the stage is single-ended with the pair's defaults.
+    pair: v.optional(oneOf(['single-ended', 'push-pull'])),
+    raa: v.optional(ranged(L.output.raa)),
+    mismatch: v.optional(ranged(L.output.mismatch)),
   }),
 });
 

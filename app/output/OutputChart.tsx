@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { milliamps, ohms, volts } from '../format';
-import { ChartLegend, OUTPUT_STAGE_LEGEND } from '../chart/ChartLegend';
+import { ChartLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND } from '../chart/ChartLegend';
 import { PointMark, RivalMark, SheetLayers } from '../chart/SheetLayers';
 import { PALETTE } from '../chart/palette';
 import { plateScales } from '../chart/plateScales';
@@ -10,6 +10,7 @@ import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachOutputDrag } from './attachOutputDrag';
 import { drawOutputOverlay } from './drawOutputOverlay';
 import { DESIGN_LIMITS } from '../store/designLimits';
+import { benchPoint } from '../store/outputAnalysis';
 
 /** Arrow keys move the point by 1 % of the window (5 % with Shift); on the load handle they change Zpri by 2 % (10 %). */
 const STEP = 0.01;
@@ -25,6 +26,7 @@ export function OutputChart() {
   const store = useWorkbenchStore();
   const sheet = useWorkbench((s) => s.outputBench.analysis.sheet);
   const tubeId = useWorkbench((s) => s.design.output.tubeId);
+  const pair = useWorkbench((s) => s.outputBench.pair === 'push-pull');
   const rivalSheet = useWorkbench((s) => (s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench.analysis.sheet : null));
   const rivalId = useWorkbench((s) => (s.outputRival.on ? s.outputRival.tubeId : null));
   const frame = useRef<HTMLDivElement>(null);
@@ -42,13 +44,18 @@ export function OutputChart() {
       const a = s.outputBench.analysis;
       const r = s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench.analysis.overlay : null;
       drawOutputOverlay(nodes, a.overlay, r, scales);
-      const { op } = a.solution;
+      const op = benchPoint(s.outputBench);
       nodes.point.dataset.vpk = String(op.vpk);
       nodes.point.dataset.ip = String(op.ip);
       nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
       nodes.point.setAttribute('aria-valuetext', `plate ${volts(op.vpk)} to cathode, ${milliamps(op.ip)}, grid ${volts(op.vgk)}`);
-      nodes.loadHandle.setAttribute('aria-valuenow', String(s.design.output.zPrimary));
-      nodes.loadHandle.setAttribute('aria-valuetext', `primary impedance ${ohms(s.design.output.zPrimary)}`);
+      const pair = s.outputBench.pair === 'push-pull';
+      const load = pair ? s.design.output.raa : s.design.output.zPrimary;
+      nodes.loadHandle.setAttribute('aria-valuenow', String(load));
+      nodes.loadHandle.setAttribute('aria-valuetext', pair ? `plate-to-plate load ${ohms(load)}` : `primary impedance ${ohms(load)}`);
+      nodes.loadHandle.setAttribute('aria-valuemin', String(pair ? DESIGN_LIMITS.output.raa.min : DESIGN_LIMITS.output.zPrimary.min));
+      nodes.loadHandle.setAttribute('aria-valuemax', String(pair ? DESIGN_LIMITS.output.raa.max : DESIGN_LIMITS.output.zPrimary.max));
+      nodes.loadHandle.setAttribute('aria-label', pair ? 'Plate-to-plate load: drag the composite load line\'s handle, or use the arrow keys' : 'Primary impedance: drag the AC load line\'s handle, or use the arrow keys');
     };
     draw();
     const unsubscribe = store.subscribe((s, prev) => {
@@ -76,7 +83,7 @@ export function OutputChart() {
     e.preventDefault();
     if (s.dragging !== 'output-point') s.beginDrag('output-point');
     const { vmax, iaMax } = s.outputBench.analysis.sheet.extent;
-    const { vpk, ip } = store.getState().outputBench.analysis.solution.op;
+    const { vpk, ip } = benchPoint(store.getState().outputBench);
     store.getState().dragOutputPointTo(vpk + m[0] * vmax, ip + m[1] * iaMax);
   };
   const onPointBlur = () => {
@@ -90,7 +97,8 @@ export function OutputChart() {
     const s = store.getState();
     const factor = 1 + (e.shiftKey ? 0.1 : 0.02) * (up ? 1 : -1);
     s.beginDrag('output-load');
-    s.changeOutput({ zPrimary: Number((s.design.output.zPrimary * factor).toPrecision(3)) });
+    const o = s.design.output;
+    s.changeOutput(o.pair === 'push-pull' ? { raa: Number((o.raa * factor).toPrecision(3)) } : { zPrimary: Number((o.zPrimary * factor).toPrecision(3)) });
     store.getState().endDrag();
   };
 
@@ -102,7 +110,7 @@ export function OutputChart() {
         width={box.width}
         height={box.height}
         role="group"
-        aria-label={`Plate curves of the ${tubeId} output stage with its load lines and operating point`}
+        aria-label={pair ? `Plate curves of one ${tubeId} of the push-pull pair with its composite load lines, the path it takes at full drive and its operating point` : `Plate curves of the ${tubeId} output stage with its load lines and operating point`}
       >
         <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
         <g ref={lines} className="layer-lines" pointerEvents="none" />
@@ -114,9 +122,6 @@ export function OutputChart() {
           className="handle handle-load"
           role="slider"
           tabIndex={0}
-          aria-label="Primary impedance: drag the AC load line's handle, or use the arrow keys"
-          aria-valuemin={DESIGN_LIMITS.output.zPrimary.min}
-          aria-valuemax={DESIGN_LIMITS.output.zPrimary.max}
           onKeyDown={onLoadKey}
         >
           <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
@@ -137,7 +142,7 @@ export function OutputChart() {
         </g>
       </svg>
       <CurveDensity />
-      <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={OUTPUT_STAGE_LEGEND} />
+      <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} />
     </div>
   );
 }

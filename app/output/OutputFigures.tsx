@@ -1,6 +1,8 @@
 import { mAPerV, milliamps, ohms, percentOf as percent, plain, volts, watts } from '../format';
 import { Figure, Share } from '../panels/Figure';
 import { useWorkbench } from '../store/StoreProvider';
+import type { SingleEndedBench } from '../store/outputAnalysis';
+import { PairFigures } from './PairFigures';
 
 /**
  * The output stage's figures: the parts the drag sets (B+, bias, Zpri), the quiescent point, dissipation against
@@ -9,9 +11,13 @@ import { useWorkbench } from '../store/StoreProvider';
  * the distortion limit. Names in data-figure for tests and exports.
  */
 export function OutputFigures() {
+  const bench = useWorkbench((s) => s.outputBench);
+  return bench.pair === 'push-pull' ? <PairFigures bench={bench} /> : <SingleEndedFigures bench={bench} />;
+}
+
+function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
   // The parts the point and the load handle set: the live values while dragging (the form and schematic follow at a readable pace).
   const o = useWorkbench((s) => s.design.output);
-  const bench = useWorkbench((s) => s.outputBench);
   const a = bench.analysis;
   const { op, tube } = a.solution;
   const r = tube.ratings;

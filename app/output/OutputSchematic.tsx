@@ -2,6 +2,8 @@ import { ohms, percentOf, volts } from '../format';
 import { Capacitor, Ground, Resistor, Triode } from '../schematic/symbols';
 import { Dot, Pentode, Wire, Winding } from '../schematic/symbols2';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
+import { useWorkbench } from '../store/StoreProvider';
+import { PairSchematic } from './PairSchematic';
 
 /**
  * The output stage as a schematic: the tube (pentode or triode symbol) with
@@ -22,8 +24,14 @@ const TEXT = '#4a535c';
 const TAP_X = 156;
 
 export function OutputSchematic() {
+  const pair = useWorkbench((s) => s.outputBench.pair === 'push-pull');
+  return pair ? <PairSchematic /> : <SingleEndedSchematic />;
+}
+
+function SingleEndedSchematic() {
   // Values follow a drag at a readable pace; the figures strip carries them live.
-  const [o, a] = useDragPaced((s) => [s.design.output, s.outputBench.analysis] as const, { equal: sameEntries });
+  const [o, a] = useDragPaced((s) => [s.design.output, s.outputBench.pair === 'single-ended' ? s.outputBench.analysis : null] as const, { equal: sameEntries });
+  if (!a) return null;
   const { op, tube } = a.solution;
   const pentode = tube.law.kind === 'pentode';
   const conn = op.connection;

@@ -4,6 +4,8 @@ import { PALETTE } from '../chart/palette';
 import { MiniChart } from '../signal/MiniChart';
 import type { XYSpec } from '../signal/drawXY';
 import { useWorkbench } from '../store/StoreProvider';
+import type { SingleEndedBench } from '../store/outputAnalysis';
+import { PairSignal } from './PairSignal';
 
 const W = 330;
 const H = 210;
@@ -16,8 +18,13 @@ const pct = (x: number) => x * 100;
  * The model computes both on the full pass; during a drag they wait.
  */
 export function OutputSignalCharts() {
-  const settled = useWorkbench((s) => s.outputBench.settled);
-  const stale = useWorkbench((s) => s.outputBench.light);
+  const bench = useWorkbench((s) => s.outputBench);
+  return bench.pair === 'push-pull' ? <PairSignal bench={bench} /> : <SingleEndedSignal bench={bench} />;
+}
+
+function SingleEndedSignal({ bench }: { bench: SingleEndedBench }) {
+  const settled = bench.settled;
+  const stale = bench.light;
   const changeOutput = useWorkbench((s) => s.changeOutput);
   const { sweep, zSweep, clean, atLimit } = settled;
   const design = settled.solution.design;

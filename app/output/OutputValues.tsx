@@ -18,7 +18,9 @@ const CONNECTION_LABEL: Record<Connection, string> = { pentode: 'Pentode', triod
 /** The output stage's values: tube, connection, bias and the transformer, each with its message beside it. */
 export function OutputValues() {
   // Only the choices that shape the form: a drag changes values, which the fields follow themselves.
-  const o = useWorkbench(useShallow(({ design: { output } }) => ({ tubeId: output.tubeId, connection: output.connection, bias: output.bias })));
+  const o = useWorkbench(useShallow(({ design: { output } }) => ({ tubeId: output.tubeId, connection: output.connection, bias: output.bias, pair: output.pair })));
+  const setOutputPair = useWorkbench((s) => s.setOutputPair);
+  const pushPull = o.pair === 'push-pull';
   const tubeError = useWorkbench((s) => s.errors.outputTube);
   const chooseOutputTube = useWorkbench((s) => s.chooseOutputTube);
   const changeOutput = useWorkbench((s) => s.changeOutput);
@@ -29,6 +31,20 @@ export function OutputValues() {
   return (
     <section className="panel circuit-values output-values" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Output stage</h2>
+      <fieldset className="option-row" aria-label="Tubes in the output stage">
+        <label>
+          <input type="radio" name={`${id}-pair`} checked={!pushPull} onChange={() => setOutputPair('single-ended')} /> Single-ended (one tube)
+        </label>
+        <label>
+          <input type="radio" name={`${id}-pair`} checked={pushPull} onChange={() => setOutputPair('push-pull')} /> Push-pull pair
+        </label>
+      </fieldset>
+      {pushPull ? (
+        <p className="field-hint">
+          Two tubes on a centre-tapped transformer, the grids driven in antiphase by a phase splitter (not yet part of the chain here: the pair's figures take an ideal drive, the same on each grid).
+          Solved instant by instant with the transformer coupling the two tubes' currents (composite characteristics).
+        </p>
+      ) : null}
       <div className="value-field">
         <label htmlFor={`${id}-tube`} className="field-label">Output tube</label>
         <select id={`${id}-tube`} value={o.tubeId} onChange={(e) => chooseOutputTube(e.target.value)} aria-describedby={`${id}-tube-note`}>
@@ -53,24 +69,25 @@ export function OutputValues() {
         <BplusField field="oBplus" bench="output" hint="at the primary's B+ end" />
         {tube.law.kind === 'pentode' && o.connection === 'pentode' ? <ValueField field="oScreen" hint="screen supply to ground" /> : null}
         {tube.law.kind === 'pentode' && o.connection === 'ultralinear' ? <ValueField field="oTap" hint="share of primary turns from B+" /> : null}
-        <ValueField field="oZ" hint="reflected load, plate to B+" />
+        {pushPull ? <ValueField field="oRaa" hint="plate to plate" /> : <ValueField field="oZ" hint="reflected load, plate to B+" />}
         <ValueField field="oRpri" hint="primary DC resistance" />
       </div>
       <fieldset className="option-row" aria-label="Bias">
         <label>
-          <input type="radio" name={`${id}-bias`} checked={o.bias === 'cathode'} onChange={() => setBias('cathode')} /> Cathode bias (Rk, bypassed)
+          <input type="radio" name={`${id}-bias`} checked={o.bias === 'cathode'} onChange={() => setBias('cathode')} /> {pushPull ? 'Cathode bias (one Rk shared, bypassed)' : 'Cathode bias (Rk, bypassed)'}
         </label>
         <label>
           <input type="radio" name={`${id}-bias`} checked={o.bias === 'fixed'} onChange={() => setBias('fixed')} /> Fixed bias
         </label>
       </fieldset>
       <div className="value-grid">
-        {o.bias === 'cathode' ? <ValueField field="oRk" /> : <ValueField field="oVg" hint="grid supply" />}
-        <ValueField field="oRg" hint="grid resistor" />
+        {o.bias === 'cathode' ? <ValueField field="oRk" {...(pushPull ? { hint: 'shared by both cathodes' } : {})} /> : <ValueField field="oVg" hint="grid supply" />}
+        <ValueField field="oRg" hint={pushPull ? 'each grid\'s resistor' : 'grid resistor'} />
+        {pushPull ? <ValueField field="oMismatch" hint="second tube's current above the first's (0: matched)" /> : null}
         <ValueField field="oSpeaker" />
         <ValueField field="oThd" hint="for the power-at-distortion figures" />
       </div>
-      <WantedPoint />
+      {pushPull ? null : <WantedPoint />}
     </section>
   );
 }

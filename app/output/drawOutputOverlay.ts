@@ -1,4 +1,4 @@
-import type { OutputOverlay } from '../../src/index';
+import type { OutputOverlay, PushPullOverlay } from '../../src/index';
 import { linePath } from '../chart/drawOverlay';
 import { PALETTE } from '../chart/palette';
 import type { PlateScales } from '../chart/plateScales';
@@ -22,6 +22,8 @@ export function drawOutputOverlay(nodes: OutputOverlayNodes, overlay: OutputOver
   linePath(nodes.lines, 'swing', overlay.swing, scales, { stroke: PALETTE.pointWash, width: 9 });
   linePath(nodes.lines, 'dc-load', overlay.dcLoad, scales, { stroke: PALETTE.load, width: 2 });
   linePath(nodes.lines, 'ac-load', overlay.acLoad, scales, { stroke: PALETTE.load, width: 1.6, dash: '9 5' });
+  // A push-pull pair's second line: one tube working alone once its partner cuts off.
+  linePath(nodes.lines, 'alone-load', 'alone' in overlay ? (overlay as PushPullOverlay).alone : [], scales, { stroke: PALETTE.load, width: 1.2, dash: '2 4' });
   linePath(nodes.lines, 'rival-dc-load', rival?.dcLoad ?? [], scales, { stroke: PALETTE.rival, width: 1.8, dash: '10 4' });
   linePath(nodes.lines, 'rival-ac-load', rival?.acLoad ?? [], scales, { stroke: PALETTE.rival, width: 1.4, dash: '3 3' });
   nodes.point.setAttribute('transform', at(scales, overlay.point));

@@ -164,8 +164,8 @@ export const ChainSchematic = memo(function ChainSchematic() {
   });
   const o = design.output;
   const end = design.drivesOutput ? (
-    <Cell key="output" x0={x} width={WIDTH.output} onBench={design.stageKind === 'output'} name={`Output stage, ${o.tubeId}`} tubeId={null} onOpen={() => setStageKind('output')}>
-      <OutputCell x0={x} cc={design.cout} rg={o.rg} tubeId={o.tubeId} speakerOhms={o.speakerOhms} />
+    <Cell key="output" x0={x} width={WIDTH.output} onBench={design.stageKind === 'output'} name={o.pair === 'push-pull' ? `Output stage, two ${o.tubeId} in push-pull (one drawn)` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={() => setStageKind('output')}>
+      <OutputCell x0={x} cc={design.cout} rg={o.rg} tubeId={o.pair === 'push-pull' ? `${o.tubeId}, one of a pair` : o.tubeId} speakerOhms={o.speakerOhms} />
     </Cell>
   ) : Number.isFinite(design.rl) ? (
     <g key="load">

@@ -57,9 +57,11 @@ export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainC
   if (!found.ok) return null;
   const stages = chainStagesOf(list, found.tubes);
   const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i }));
-  const outputTube = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
+  // A push-pull pair needs a phase splitter before it, which the chain cannot hold yet: the chain then ends at the
+  // last voltage stage, loaded by one of the pair's grid resistors (RL), and the pair is designed on its own bench.
+  const outputTube = d.drivesOutput && d.output.pair === 'single-ended' ? findOutputTube(d.output.tubeId) : undefined;
   if (outputTube) {
-    const { tubeId: _id, rg, ...parts } = d.output;
+    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, ...parts } = d.output;
     stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null });
   }
@@ -108,7 +110,7 @@ export interface AmplifierView {
 export function analyzeAmplifier(d: BenchDesign): AmplifierView | null {
   const chain = chainInputOf(d);
   if (!chain) return null;
-  const toSpeaker = d.drivesOutput;
+  const toSpeaker = d.drivesOutput && d.output.pair === 'single-ended';
   const result = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });
   const atLevel = result.ok ? (result.atLevel ?? null) : null;
   return {

@@ -1,3 +1,4 @@
+import type { OutputPlan } from './outputPlan';
 import {
   curveSheet,
   MAX_FAMILY_CURVES,
@@ -12,7 +13,6 @@ import {
   type StageDesign,
   type StageSolution,
   type TubeRecord,
-  type OutputDesign,
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { analyzeSignal, secondStageProblem, type SignalAnalysis } from './signalAnalysis';
@@ -51,7 +51,7 @@ export interface BenchDesign {
   readonly after: readonly StagePlan[];
   /** Which stage the bench shows: the resistance-coupled voltage stage or the transformer-coupled output stage. */
   readonly stageKind: StageKind;
-  readonly output: OutputDesign;
+  readonly output: OutputPlan;
   /**
    * The voltage stages drive the output stage: one amplifier from input to
    * speaker. RL is then the output grid's resistor (the two are kept equal)

@@ -1,3 +1,4 @@
+import { outputIdleAmps } from './outputAnalysis';
 import {
   bypassResistance, capacitorForCorner, envelopesOf, capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
   solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
@@ -139,6 +140,6 @@ function compute(s: WorkbenchState): BuildSheet {
     totalBplusAmps,
     otherStages,
     benchTitle: `Stage ${bench + 1}, ${d.tubeId}${d.stage2.kind !== 'none' ? ` and its follower (stage ${bench + 2})` : ''}`,
-    outputBplusAmps: d.drivesOutput ? s.outputBench.settled.solution.op.ik : 0,
+    outputBplusAmps: d.drivesOutput ? outputIdleAmps(s.outputBench) : 0,
   };
 }

@@ -1,3 +1,4 @@
+import { pairDefaults } from './outputPlan';
 import type { BenchDesign } from './analysis';
 import { autoTitle } from './autoTitle';
 import { DEMO_SUPPLY } from './supplyPlan';
@@ -48,6 +49,8 @@ export const DEMO_DESIGN: BenchDesign = {
     rg: 220e3,
     speakerOhms: 8,
     thdLimit: 0.05,
+    // Single-ended; as a pair the EL34s would run into 7 kΩ plate to plate, matched.
+    ...pairDefaults(3500),
   },
   supply: DEMO_SUPPLY,
 };

@@ -1,4 +1,4 @@
-import { OUTPUT_LIMITS } from '../../src/index';
+import { MAX_MISMATCH, OUTPUT_LIMITS, RAA_LIMITS } from '../../src/index';
 
 /** A design field's range: typing, files and links, drags and the sliders' aria bounds all read it from here. */
 export interface Limit {
@@ -37,6 +37,8 @@ export const DESIGN_LIMITS = {
     screenVolts: limit(OUTPUT_LIMITS.minScreen, OUTPUT_LIMITS.maxBplus, 'V'),
     ulTap: limit(OUTPUT_LIMITS.minTap, OUTPUT_LIMITS.maxTap, ''),
     zPrimary: limit(OUTPUT_LIMITS.minZ, OUTPUT_LIMITS.maxZ, 'Ω'),
+    raa: limit(RAA_LIMITS.min, RAA_LIMITS.max, 'Ω'),
+    mismatch: limit(-MAX_MISMATCH, MAX_MISMATCH, ''),
     rPrimary: limit(0, OUTPUT_LIMITS.maxRPrimary, 'Ω'),
     rk: limit(OUTPUT_LIMITS.minRk, OUTPUT_LIMITS.maxRk, 'Ω'),
     vg: limit(OUTPUT_LIMITS.minVg, 0, 'V'),

@@ -1,12 +1,12 @@
 import { formatValue, parseValue } from '../../src/index';
-import type { OutputDesign } from '../../src/index';
+import type { OutputPlan } from './outputPlan';
 import type { BenchDesign } from './analysis';
 import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2'
-  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd';
+  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
@@ -53,7 +53,7 @@ const second = <K extends 'ra' | 'rk' | 'rg'>(key: K) => ({
   put: (d: BenchDesign, v: number | null) => ({ ...d, stage2: { ...d.stage2, [key]: v as number } }),
 });
 
-const out = <K extends keyof OutputDesign>(key: K) => ({
+const out = <K extends keyof OutputPlan>(key: K) => ({
   get: (d: BenchDesign) => d.output[key] as number,
   put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, [key]: v as number } }),
 });
@@ -96,6 +96,8 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', L.output.bplus), show: compact, ...out('bplus') },
   oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
   oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', L.output.ulTap), show: showPercent, ...out('ulTap') },
+  oRaa: { label: 'Raa', unit: 'Ω', example: '6k6', read: ranged('Plate-to-plate load', L.output.raa), show: compact, ...out('raa') },
+  oMismatch: { label: 'Pair mismatch', unit: '%', example: '5', read: percent('Pair mismatch', L.output.mismatch), show: showPercent, ...out('mismatch') },
   oZ: { label: 'Primary Z', unit: 'Ω', example: '3k5', read: ranged('Primary impedance', L.output.zPrimary), show: compact, ...out('zPrimary') },
   oRpri: { label: 'Primary DCR', unit: 'Ω', example: '120', read: ranged('Primary DC resistance', L.output.rPrimary), show: compact, ...out('rPrimary') },
   oRk: { label: 'Rk', unit: 'Ω', example: '270', read: ranged('Rk', L.output.rk), show: compact, ...out('rk') },

@@ -1,12 +1,16 @@
-import { analyzeOutput, findOutputTube, outputExtent, type Connection,
-  type Result, type OutputAnalysis, type OutputDesign, type PlateExtent } from '../../src/index';
+import { analyzeOutput, analyzePushPull, findOutputTube, outputExtent, type Connection,
+  type Result, type OutputAnalysis, type PlateExtent, type PushPullAnalysis } from '../../src/index';
+import { pushPullDesignOf, type OutputPlan } from './outputPlan';
 
 /**
  * The output stage as the bench shows it: the model's analysis plus whether
  * it is the light pass (during a drag or while typing; the distortion-limited
  * power and the sweeps then wait for the full pass).
  */
-export interface OutputBench {
+export type OutputBench = SingleEndedBench | PushPullBench;
+
+export interface SingleEndedBench {
+  readonly pair: 'single-ended';
   readonly analysis: OutputAnalysis;
   readonly light: boolean;
   /**
@@ -15,6 +19,14 @@ export interface OutputBench {
    * that are stale anyway.
    */
   readonly settled: OutputAnalysis;
+}
+
+/** The push-pull pair as the bench shows it, on the same terms. */
+export interface PushPullBench {
+  readonly pair: 'push-pull';
+  readonly analysis: PushPullAnalysis;
+  readonly light: boolean;
+  readonly settled: PushPullAnalysis;
 }
 
 /** A second output tube in the same socket: same B+, primary, bias parts; its own screen connection. */
@@ -37,28 +49,37 @@ const OUTPUT_FIELD_OF: Record<string, string> = {
   speakerOhms: 'oSpeaker',
   thdLimit: 'oThd',
   connection: 'outputTube',
+  raa: 'oRaa',
+  mismatch: 'oMismatch',
 };
 
-export function analyzeOutputBench(d: OutputDesign, prev: OutputBench | null, opts: { light?: boolean; maxCurves?: number; extent?: PlateExtent } = {}): Result<OutputBench> {
+type Options = { light?: boolean; maxCurves?: number; extent?: PlateExtent };
+
+const withBenchField = <T,>(a: Result<T>): Result<T> => (!a.ok && a.field !== undefined && a.field in OUTPUT_FIELD_OF ? { ...a, field: OUTPUT_FIELD_OF[a.field]! } : a);
+
+export function analyzeOutputBench(d: OutputPlan, prev: OutputBench | null, opts: Options = {}): Result<OutputBench> {
   const tube = findOutputTube(d.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No output tube called “${d.tubeId}”`, field: 'outputTube' };
-  const a = analyzeOutput(tube, d, {
-    light: opts.light ?? false,
-    previous: prev?.analysis ?? null,
-    ...(opts.maxCurves !== undefined ? { maxCurves: opts.maxCurves } : {}),
-    ...(opts.extent ? { extent: opts.extent } : {}),
-  });
-  if (!a.ok) return a.field !== undefined && a.field in OUTPUT_FIELD_OF ? { ...a, field: OUTPUT_FIELD_OF[a.field]! } : a;
   const light = opts.light ?? false;
-  return { ok: true, analysis: a, light, settled: light && prev ? prev.settled : a };
+  const shared = { light, ...(opts.maxCurves !== undefined ? { maxCurves: opts.maxCurves } : {}), ...(opts.extent ? { extent: opts.extent } : {}) };
+  if (d.pair === 'push-pull') {
+    const before = prev?.pair === 'push-pull' ? prev : null;
+    const a = withBenchField(analyzePushPull(tube, pushPullDesignOf(d), { ...shared, previous: before?.analysis ?? null }));
+    if (!a.ok) return a;
+    return { ok: true, pair: 'push-pull', analysis: a, light, settled: light && before ? before.settled : a };
+  }
+  const before = prev?.pair === 'single-ended' ? prev : null;
+  const a = withBenchField(analyzeOutput(tube, d, { ...shared, previous: before?.analysis ?? null }));
+  if (!a.ok) return a;
+  return { ok: true, pair: 'single-ended', analysis: a, light, settled: light && before ? before.settled : a };
 }
 
-export function rivalOutputDesign(d: OutputDesign, r: OutputRival): OutputDesign {
+export function rivalOutputDesign(d: OutputPlan, r: OutputRival): OutputPlan {
   return { ...d, tubeId: r.tubeId, connection: r.connection };
 }
 
 /** One chart window for both output tubes at this B+. */
-export function sharedOutputWindow(d: OutputDesign, r: OutputRival): PlateExtent | undefined {
+export function sharedOutputWindow(d: OutputPlan, r: OutputRival): PlateExtent | undefined {
   const a = findOutputTube(d.tubeId);
   const b = findOutputTube(r.tubeId);
   if (!a) return undefined;
@@ -66,4 +87,18 @@ export function sharedOutputWindow(d: OutputDesign, r: OutputRival): PlateExtent
   if (!r.on || !b) return ea;
   const eb = outputExtent(b, d.bplus);
   return { vmax: Math.max(ea.vmax, eb.vmax), iaMax: Math.max(ea.iaMax, eb.iaMax) };
+}
+
+/** The current the output stage draws from B+ at idle, A (both cathodes of a pair), from its last full pass. */
+export function outputIdleAmps(b: OutputBench): number {
+  return b.pair === 'push-pull' ? b.settled.supplyCurrent.idle : b.settled.solution.op.ik;
+}
+
+/** The point the chart's handle sits on: the tube's idle point (the first tube of a pair). */
+export function benchPoint(b: OutputBench): { readonly vpk: number; readonly ip: number; readonly vgk: number } {
+  if (b.pair === 'push-pull') {
+    const s = b.analysis.solution;
+    return { vpk: s.idle[0].vpk, ip: s.idle[0].ip, vgk: s.vgk };
+  }
+  return b.analysis.solution.op;
 }

@@ -1,5 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { biasForPoint, findOutputTube, nearestPreferred, zPrimaryThrough, type Connection, type Failure, type OutputDesign, type Result, switchBias } from '../../src/index';
+import { biasForPoint, findOutputTube, nearestPreferred, pairBiasForPoint, pushPullRaaSweep, raaThrough, type RaaRow, switchPairBias, zPrimaryThrough, type Connection, type Failure, type Result, switchBias } from '../../src/index';
+import { pushPullDesignOf, type OutputPair, type OutputPlan } from './outputPlan';
 import type { StageKind } from './analysis';
 import { analyzeOutputBench, type OutputBench, type OutputRival } from './outputAnalysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -18,8 +19,13 @@ export interface OutputSlice {
   outputRival: OutputRival;
   outputRivalBench: Result<OutputBench> | null;
   setStageKind: (kind: StageKind) => void;
+  /** The pair's Raa sweep, run when asked (each point is a whole level sweep), for the output design it was run on. */
+  pairRaaSweep: { readonly output: OutputPlan; readonly result: Result<{ readonly rows: readonly RaaRow[]; readonly best: number }> } | null;
+  sweepPairRaa: () => void;
+  /** One tube or a push-pull pair: the shared cathode resistor halves (or doubles) so each tube keeps its idle current. */
+  setOutputPair: (pair: OutputPair) => void;
   /** Applies a change to the output design through commit; returns the failure, if any, for the caller to place. */
-  changeOutput: (patch: Partial<OutputDesign>, opts?: { light?: boolean }) => Failure | null;
+  changeOutput: (patch: Partial<OutputPlan>, opts?: { light?: boolean }) => Failure | null;
   chooseOutputTube: (id: string) => void;
   /** Switches between cathode and fixed bias keeping the idle current; returns the failure, if any. */
   setOutputBias: (to: 'cathode' | 'fixed') => Failure | null;
@@ -31,14 +37,23 @@ export interface OutputSlice {
 }
 
 /** The light analysis: the bench opens on the voltage stage; the full one runs when the output stage is shown. */
-export function initialOutputBench(d: OutputDesign): OutputBench {
+export function initialOutputBench(d: OutputPlan): OutputBench {
   const b = analyzeOutputBench(d, null, { light: true });
   if (!b.ok) throw new Error(`the demo output stage must solve: ${b.message}`);
   return b;
 }
 
+/** Points of the pair's Raa sweep: a third to three times the design's, about a sixth of a decade apart. */
+const RAA_SWEEP_POINTS = 7;
+
 /** Primary impedances are read to three figures: finer than any transformer is wound. */
 const threeFigures = (x: number) => Number(x.toPrecision(3));
+
+/** The bias and B+ for a wanted point of the stage as it is wired: one tube, or each tube of the pair. */
+function biasFor(b: OutputBench, d: OutputPlan, vpk: number, ip: number) {
+  const tube = b.analysis.solution.tube;
+  return d.pair === 'push-pull' ? pairBiasForPoint(tube, pushPullDesignOf(d), vpk, ip) : biasForPoint(tube, d, vpk, ip);
+}
 
 export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice> = (set, get) => ({
   outputBench: initialOutputBench(DEMO_DESIGN.output),
@@ -50,6 +65,25 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     if (s.design.stageKind !== kind) s.commit({ ...s.design, stageKind: kind });
   },
 
+  pairRaaSweep: null,
+  sweepPairRaa: () => {
+    const s = get();
+    const o = s.design.output;
+    const tube = findOutputTube(o.tubeId);
+    if (!tube || o.pair !== 'push-pull') return;
+    set({ pairRaaSweep: { output: o, result: pushPullRaaSweep(tube, pushPullDesignOf(o), RAA_SWEEP_POINTS) } });
+  },
+
+  setOutputPair: (pair) => {
+    const s = get();
+    const o = s.design.output;
+    if (o.pair === pair) return;
+    // Ohm's law: one resistor carrying both cathodes' current is half the one that carried one tube's.
+    const rk = o.bias === 'cathode' ? (pair === 'push-pull' ? o.rk / 2 : o.rk * 2) : o.rk;
+    const snapped = s.design.snap ? nearestPreferred(rk, s.design.series) : Math.round(rk);
+    s.changeOutput({ pair, rk: within(snapped, DESIGN_LIMITS.output.rk) });
+  },
+
   changeOutput: (patch, opts = {}) => {
     const s = get();
     const pinned = s.dragging ? s.outputBench.analysis.sheet.extent : undefined;
@@ -58,7 +92,9 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
 
   setOutputBias: (to) => {
     const s = get();
-    const parts = switchBias(s.outputBench.analysis.solution, to);
+    const b = s.outputBench;
+    if (b.pair === 'push-pull') return s.changeOutput(switchPairBias(b.analysis.solution, to));
+    const parts = switchBias(b.analysis.solution, to);
     if (!parts.ok) return parts;
     // The answer's parts become a patch of the output design: its ok flag is not a design field.
     const { ok: _ok, ...patch } = parts;
@@ -86,17 +122,16 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
   dragOutputPointTo: (vpk, ip) => {
     const s = get();
     const d = s.design.output;
-    const tube = s.outputBench.analysis.solution.tube;
     const { vmax, iaMax } = s.outputBench.analysis.sheet.extent;
     const v = Math.min(Math.max(vpk, 10), vmax);
     const i = Math.min(Math.max(ip, iaMax * 0.005), iaMax);
-    const b = biasForPoint(tube, d, v, i);
+    const b = biasFor(s.outputBench, d, v, i);
     if (!b.ok) {
       set({ dragNote: b.message });
       return;
     }
     const bplus = within(b.bplus, DESIGN_LIMITS.output.bplus);
-    const patch: Partial<OutputDesign> = d.bias === 'cathode' ? { bplus, rk: Math.max(1, b.rk) } : { bplus, vg: b.vgk };
+    const patch: Partial<OutputPlan> = d.bias === 'cathode' ? { bplus, rk: Math.max(1, b.rk) } : { bplus, vg: b.vgk };
     const failure = s.changeOutput(patch, { light: true });
     set({ dragNote: failure ? failure.message : null });
   },
@@ -104,16 +139,29 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
   placeOutputPoint: (vpk, ip) => {
     const s = get();
     const d = s.design.output;
-    const b = biasForPoint(s.outputBench.analysis.solution.tube, d, vpk, ip);
+    const b = biasFor(s.outputBench, d, vpk, ip);
     if (!b.ok) return b;
-    const patch: Partial<OutputDesign> =
+    const patch: Partial<OutputPlan> =
       d.bias === 'cathode' ? { bplus: Math.round(b.bplus), rk: s.design.snap ? nearestPreferred(Math.max(1, b.rk), s.design.series) : Math.max(1, Math.round(b.rk)) } : { bplus: Math.round(b.bplus), vg: Math.round(b.vgk * 10) / 10 };
     return s.changeOutput(patch);
   },
 
   dragOutputLoadTo: (vpk, ip) => {
     const s = get();
-    const z = zPrimaryThrough(s.outputBench.analysis.solution, vpk, ip);
+    const b = s.outputBench;
+    if (b.pair === 'push-pull') {
+      const r = raaThrough(b.analysis.solution, vpk, ip);
+      if (r === null) {
+        set({ dragNote: 'The composite load line falls from the operating point: drag its handle down and to the right' });
+        return;
+      }
+      const raa = threeFigures(within(r, DESIGN_LIMITS.output.raa));
+      if (raa === s.design.output.raa) return;
+      const failure = s.changeOutput({ raa }, { light: true });
+      set({ dragNote: failure ? failure.message : null });
+      return;
+    }
+    const z = zPrimaryThrough(b.analysis.solution, vpk, ip);
     if (z === null) {
       set({ dragNote: 'The AC load line falls from the operating point: drag its handle down and to the right' });
       return;

@@ -201,8 +201,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
   const schedule = () => {
     clearTimeout(timer);
     timer = setTimeout(() => {
-      const d = store.getState().design;
-      const chain = d.supply.on ? onSupplyInputOf(d) : null;
+      const { design: d, outputBench } = store.getState();
+      const chain = d.supply.on ? onSupplyInputOf(d, outputBench.pair === 'push-pull' ? outputBench.settled.supplyCurrent : null) : null;
       if (!chain) {
         store.setState({ supplyView: null });
         return;
@@ -221,7 +221,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
     }, SUPPLY_SETTLE_MS);
   };
   store.subscribe((s, prev) => {
-    if (s.design === prev.design && s.amplifier === prev.amplifier) return;
+    if (s.design === prev.design && s.amplifier === prev.amplifier && s.outputBench.settled === prev.outputBench.settled) return;
     const view = s.supplyView;
     if (view && !view.stale) store.setState({ supplyView: { ...view, stale: true } });
     // A drag or keystroke shows the amplifier marked behind: the supply waits for the full pass too.

@@ -7,7 +7,7 @@ import type { OutputSolution } from './solveOutput';
 import { checkOutputInput } from './checkOutput';
 
 /** The smallest cathode resistor the output design accepts, Ω (as outputDesignProblem checks). */
-const MIN_RK = 1;
+export const MIN_RK = 1;
 
 export interface BiasAnswer {
   /** Grid to cathode, V. */

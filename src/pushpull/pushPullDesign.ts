@@ -27,6 +27,9 @@ export interface PushPullDesign extends Omit<OutputDesign, 'zPrimary'> {
   readonly mismatch?: number;
 }
 
+/** The plate-to-plate loads a pair may be given, Ω: each half then reflects a quarter, inside the single-ended range. */
+export const RAA_LIMITS = { min: 400, max: 200_000 } as const;
+
 /** The most mismatch asked about: beyond ±30 % the two are not a pair. */
 export const MAX_MISMATCH = 0.3;
 
@@ -36,7 +39,7 @@ export function checkPushPull(tube: unknown, design: unknown): Failure | null {
   if (t) return t;
   if (typeof design !== 'object' || design === null) return fail('invalid-input', 'No push-pull design given');
   const d = design as PushPullDesign;
-  const raa = checkNumber('raa', 'Plate-to-plate load', d.raa, 'Ω', 400, 200_000);
+  const raa = checkNumber('raa', 'Plate-to-plate load', d.raa, 'Ω', RAA_LIMITS.min, RAA_LIMITS.max);
   if (raa) return raa;
   // Each tube's half of the primary is a quarter of the plate-to-plate impedance: the single-ended checks apply to it.
   const asSingle = outputDesignProblem({ ...d, zPrimary: d.raa / 4 } as OutputDesign, tube as OutputTube);

@@ -1,4 +1,5 @@
 import { render, screen } from '@testing-library/react';
+import { singleEnded } from '../helpers/singleEnded';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
@@ -44,10 +45,10 @@ describe('the output stage on the bench', () => {
 
   it('switching to fixed bias keeps the idle current with B+ unchanged; back to cathode bias gives the Rk that holds the grid', async () => {
     const { store, user } = await setup();
-    const before = store.getState().outputBench.analysis.solution.op;
+    const before = singleEnded(store.getState().outputBench).analysis.solution.op;
     const bplus = store.getState().design.output.bplus;
     await user.click(screen.getByLabelText('Fixed bias'));
-    const fixed = store.getState().outputBench.analysis.solution.op;
+    const fixed = singleEnded(store.getState().outputBench).analysis.solution.op;
     expect(store.getState().design.output.bias).toBe('fixed');
     expect(store.getState().design.output.bplus).toBe(bplus);
     // The grid supply is rounded to 0.1 V: the current lands within a couple of per cent.
@@ -85,7 +86,7 @@ describe('output stage in the store', () => {
     store.getState().beginDrag('output-point');
     store.getState().dragOutputPointTo(280, 0.07);
     store.getState().dragOutputPointTo(320, 0.06);
-    const op = store.getState().outputBench.analysis.solution.op;
+    const op = singleEnded(store.getState().outputBench).analysis.solution.op;
     expectClose(op.vpk, 320, { rel: 1e-4 }, 'Vpk under the pointer');
     expectClose(op.ip, 0.06, { rel: 1e-4 }, 'Ia under the pointer');
     store.getState().endDrag();
@@ -99,7 +100,7 @@ describe('output stage in the store', () => {
   it('dragging the load handle sets the primary impedance through that point', () => {
     const store = createWorkbenchStore();
     store.getState().setStageKind('output');
-    const { vpk, ip } = store.getState().outputBench.analysis.solution.op;
+    const { vpk, ip } = singleEnded(store.getState().outputBench).analysis.solution.op;
     const rPri = store.getState().design.output.rPrimary;
     store.getState().beginDrag('output-load');
     store.getState().dragOutputLoadTo(vpk + 0.03 * (5000 + rPri), ip - 0.03);
@@ -146,7 +147,7 @@ describe('bias for a wanted point', () => {
     await user.type(screen.getByRole('textbox', { name: 'Ia (mA)' }), '70');
     await user.click(screen.getByRole('button', { name: 'Set Rk and B+' }));
     expect(screen.getByText('Bias and B+ set for that point.')).toBeTruthy();
-    const { op } = store.getState().outputBench.analysis.solution;
+    const { op } = singleEnded(store.getState().outputBench).analysis.solution;
     // Rk snapped to E24 (±5 %) moves the current a little; B+ is set to the volt.
     expectClose(op.ip, 0.07, { rel: 0.05 }, 'Ia');
     expectClose(op.vpk, 300, { rel: 0.02 }, 'Vpk');
@@ -166,11 +167,11 @@ describe('exports read settled figures', () => {
     const { cardSections } = await import('../../app/export/buildCard');
     const store = createWorkbenchStore();
     store.getState().setStageKind('output');
-    const before = store.getState().outputBench.analysis.atLimit!.power;
+    const before = singleEnded(store.getState().outputBench).analysis.atLimit!.power;
     store.getState().editField('oZ', '5k'); // a keystroke: the light pass
     expect(store.getState().outputBench.light).toBe(true);
     store.getState().settleAnalysis(); // what the export buttons do first
-    const after = store.getState().outputBench.analysis.atLimit!.power;
+    const after = singleEnded(store.getState().outputBench).analysis.atLimit!.power;
     expect(after).not.toBeCloseTo(before, 3);
     const text = cardSections(store.getState()).flatMap((s) => s.lines).join('\n');
     expect(text).toContain(`Within 5 % THD: ${Number(after.toPrecision(3))} W`);

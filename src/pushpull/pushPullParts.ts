@@ -1,0 +1,86 @@
+import { capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
+import type { PreferredSeries } from '../parts/preferredValues';
+import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
+import { CATHODE_BYPASS_CORNER_HZ } from '../output/outputParts';
+import type { PushPullAnalysis } from './analyzePushPull';
+
+/** The pair's output transformer: centre-tapped, B+ at the tap. */
+export interface PairTransformerSpec {
+  /** Plate-to-plate load, Ω. */
+  readonly primary: number;
+  readonly secondary: number;
+  /** The whole primary's DC resistance, plate to plate, Ω. */
+  readonly primaryDcr: number;
+  /** DC in each half at idle, A (opposite senses: the core sees only their difference). */
+  readonly dcPerHalf: number;
+  /** The DC the halves leave uncancelled in the core, A (0 for a matched pair). */
+  readonly dcUncancelled: number;
+  /** Power it must pass with the grids driven to 0 V, W. */
+  readonly power: number;
+  readonly screenTap: number | null;
+}
+
+export interface PushPullPartsList {
+  readonly resistors: ResistorLine[];
+  readonly capacitors: CapacitorLine[];
+  readonly transformer: PairTransformerSpec;
+  /** Fixed bias: the supply the grids return to, V, and that each side wants its own balance adjustment. */
+  readonly biasSupply: number | null;
+}
+
+/**
+ * What to order for a push-pull pair, by the voltage stage's rules (power
+ * and voltage ratings twice the worst case, common practice). The shared
+ * cathode resistor is rated for the pair's current with the grids driven to
+ * 0 V (in class AB the cathodes draw more under drive than at idle). Its
+ * bypass is sized so that its reactance at CATHODE_BYPASS_CORNER_HZ equals
+ * the impedance it shunts: Rk in parallel with the two cathodes, taken with
+ * their plates held at idle (the lower impedance, so the larger capacitor:
+ * the safe side).
+ */
+export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries): PushPullPartsList {
+  const s = a.solution;
+  const d = s.design;
+  const resistors: ResistorLine[] = [];
+  const capacitors: CapacitorLine[] = [];
+  if (d.bias === 'cathode') {
+    const ik = Math.max(a.supplyCurrent.idle, a.supplyCurrent.full);
+    resistors.push(resistorLine('Rk', 'cathode resistor, shared by both tubes', d.rk, ik, series));
+    const rk = resistors[0]!.preferred;
+    const gk = cathodeConductance(a);
+    const shunted = gk > 0 ? 1 / (1 / rk + gk) : rk;
+    capacitors.push(capacitorLine('Ck', 'cathode bypass, shared', 1 / (2 * Math.PI * CATHODE_BYPASS_CORNER_HZ * shunted), s.vk, 0, '+ to cathode'));
+  }
+  resistors.push(resistorLine('Rg1, Rg2', d.bias === 'fixed' ? 'grid resistors to the bias supply (one per tube)' : 'grid resistors (one per tube)', d.rg, 0, series));
+  return {
+    resistors,
+    capacitors,
+    transformer: {
+      primary: d.raa,
+      secondary: d.speakerOhms,
+      primaryDcr: d.rPrimary,
+      dcPerHalf: s.idle[0].ip,
+      dcUncancelled: Math.abs(s.dcImbalance),
+      power: a.full.power,
+      screenTap: s.feed.kind === 'tap' ? d.ulTap : null,
+    },
+    biasSupply: d.bias === 'fixed' ? d.vg : null,
+  };
+}
+
+/** d(Ik1 + Ik2)/dVk with the plates and screens held at idle, S: what the cathode node sees of the tubes. */
+function cathodeConductance(a: PushPullAnalysis): number {
+  const s = a.solution;
+  const c = emptyCurrents();
+  const h = 0.01;
+  const sum = (dvk: number) => {
+    let total = 0;
+    for (const [tube, p] of [[s.tube, s.idle[0]], [s.tube2, s.idle[1]]] as const) {
+      stageCurrentsInto(tube, s.feed, p.vpk - dvk, s.vgk - dvk, c, 0);
+      total += c.ik;
+    }
+    return total;
+  };
+  const g = (sum(-h) - sum(h)) / (2 * h);
+  return Number.isFinite(g) && g > 0 ? g : 0;
+}

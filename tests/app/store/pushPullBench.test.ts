@@ -1,0 +1,89 @@
+import { describe, expect, it } from 'vitest';
+import { createWorkbenchStore } from '../../../app/store/workbenchStore';
+import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
+import { benchPoint } from '../../../app/store/outputAnalysis';
+import { outputPartsOf } from '../../../app/store/outputParts';
+import { buildSheetOf } from '../../../app/store/buildSheet';
+import { cardSections } from '../../../app/export/buildCard';
+import { expectClose } from '../../helpers/expectClose';
+
+/** The demo with its output stage as a pair of EL84s on the bench. */
+function pairOnBench() {
+  const store = createWorkbenchStore();
+  store.getState().setStageKind('output');
+  store.getState().chooseOutputTube('EL84');
+  store.getState().changeOutput({ connection: 'pentode', bplus: 300, screenVolts: 300, rk: 270, raa: 8000 });
+  store.getState().setOutputPair('push-pull');
+  return store;
+}
+
+describe('the push-pull pair on the output bench', () => {
+  it('switching to the pair halves the cathode resistor (both cathodes share it: Ohm\'s law), and back doubles it', () => {
+    const store = pairOnBench();
+    const s = store.getState();
+    expect(s.outputBench.pair).toBe('push-pull');
+    // 270 Ω / 2 = 135 Ω, snapped to the design's series (the demo snaps to E24: 130 Ω).
+    expect(s.design.output.rk).toBe(130);
+    s.setOutputPair('single-ended');
+    expect(store.getState().design.output.rk).toBe(270);
+    expect(store.getState().outputBench.pair).toBe('single-ended');
+  });
+
+  it('dragging the point sets the shared Rk and B+ so each tube sits where it was put; the load handle sets Raa', () => {
+    const store = pairOnBench();
+    const s = store.getState();
+    const { vpk, ip } = benchPoint(s.outputBench);
+    s.beginDrag('output-point');
+    store.getState().dragOutputPointTo(vpk - 20, ip * 1.15);
+    // Read during the drag: on release Rk snaps to the design's series, which moves the point a little.
+    const dragged = benchPoint(store.getState().outputBench);
+    expectClose(dragged.vpk, vpk - 20, { abs: 0.5 }, 'plate voltage');
+    expectClose(dragged.ip, ip * 1.15, { rel: 0.01 }, 'plate current');
+    store.getState().endDrag();
+    const after = benchPoint(store.getState().outputBench);
+    const b = store.getState().outputBench;
+    if (b.pair !== 'push-pull') throw new Error('still a pair');
+    // Raa through a point on the composite line at Raa/2 + Rpri/2 (Langford-Smith, RDH4 ch. 13).
+    const r = b.analysis.solution.design.rPrimary;
+    const target = 10_000;
+    store.getState().beginDrag('output-load');
+    store.getState().dragOutputLoadTo(after.vpk + 100, after.ip - 100 / (target / 2 + r / 2));
+    store.getState().endDrag();
+    expect(store.getState().design.output.raa).toBe(target);
+  });
+
+  it('its parts, its build card and the supply current the build sheet counts are the pair\'s', () => {
+    const store = pairOnBench();
+    const s = store.getState();
+    const b = s.outputBench;
+    if (b.pair !== 'push-pull') throw new Error('a pair');
+    const parts = outputPartsOf(s);
+    expect(parts.pair).toBe('push-pull');
+    expect(parts.resistors.map((r) => r.ref)).toEqual(['Rk', 'Rg1, Rg2']);
+    expect(buildSheetOf(s).outputBplusAmps).toBeCloseTo(b.settled.supplyCurrent.idle, 12);
+    const card = cardSections(s).flatMap((x) => x.lines).join('\n');
+    expect(card).toContain('Two EL84 in push-pull');
+    expect(card).toContain('centre-tapped: 8 kΩ plate to plate');
+  });
+
+  it('a file keeps the pair; a file written before pairs opens single-ended with twice its primary as Raa (common practice)', () => {
+    const store = pairOnBench();
+    const s = store.getState();
+    const text = writeDesignFile({ title: 'Pair', design: s.design });
+    const back = readDesignFile(text);
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc.design.output).toEqual(s.design.output);
+    const old = JSON.parse(text) as { design: { output: Record<string, unknown> } };
+    delete old.design.output.pair;
+    delete old.design.output.raa;
+    delete old.design.output.mismatch;
+    const opened = readDesignFile(JSON.stringify(old));
+    if (!opened.ok) throw new Error(opened.message);
+    expect(opened.doc.design.output).toMatchObject({ pair: 'single-ended', raa: 2 * s.design.output.zPrimary, mismatch: 0 });
+    const bad = JSON.parse(text) as { design: { output: Record<string, unknown> } };
+    bad.design.output.raa = 50;
+    const refused = readDesignFile(JSON.stringify(bad));
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.message).toContain('design.output.raa');
+  });
+});

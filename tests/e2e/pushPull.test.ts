@@ -1,0 +1,65 @@
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { downloadOf, inkShare, pngSize } from './downloads';
+
+const run = chromiumGate();
+
+describe.runIf(run)('a push-pull output stage in Chromium', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+    mkdirSync('test-results', { recursive: true });
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('is chosen, given its tubes and load, dragged, saved, reloaded and exported as a build card', async () => {
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    await page.getByLabel('Output stage (transformer-coupled)').check();
+    await page.getByRole('radio', { name: 'Push-pull pair' }).check();
+    await page.getByRole('combobox', { name: 'Output tube', exact: true }).selectOption('EL84');
+    const raa = page.getByRole('textbox', { name: /^Raa/ });
+    await raa.fill('8k');
+    await raa.press('Tab');
+    await page.waitForSelector('[data-figure="worst-pa"]');
+    // The strip ends in the pair's card, and says why the chain stops before it.
+    const strip = page.getByRole('region', { name: 'The amplifier, stage by stage' });
+    await expect.poll(() => strip.locator('button.chain-card').last().locator('.card-title').textContent()).toBe('Output · 2 × EL84 push-pull pair');
+    expect(await strip.getByText(/needs a phase splitter/).count()).toBe(1);
+    // Dragged: the operating point sets the shared Rk (cathode bias) and B+.
+    const rk = page.getByRole('textbox', { name: /^Rk/ });
+    const rkBefore = await rk.inputValue();
+    const point = page.getByRole('slider', { name: /operating point/i });
+    await point.scrollIntoViewIfNeeded();
+    const box = (await point.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.down();
+    for (let k = 1; k <= 8; k++) await page.mouse.move(box.x + box.width / 2 + k * 4, box.y + box.height / 2 + k * 4);
+    await page.mouse.up();
+    await expect.poll(() => rk.inputValue()).not.toBe(rkBefore);
+    const rkDragged = await rk.inputValue();
+    // The composite load line and the lone tube's line are drawn, and the path at full drive.
+    expect(await page.locator('.layer-lines path[data-series="alone-load"]').count()).toBeGreaterThan(0);
+    await page.locator('.chart-frame').first().screenshot({ path: 'test-results/push-pull-chart.png' });
+    await page.screenshot({ path: 'test-results/push-pull.png', fullPage: true });
+    // Saved in the file.
+    const file = JSON.parse((await downloadOf(page, 'Save file')).toString('utf8')) as { design: { output: { pair: string; raa: number; tubeId: string } } };
+    expect(file.design.output).toMatchObject({ pair: 'push-pull', raa: 8000, tubeId: 'EL84' });
+    // Exported: the build card.
+    const card = await downloadOf(page, 'Build card (PNG, A4)');
+    writeFileSync('test-results/push-pull-build-card.png', card);
+    expect(pngSize(card)).toEqual({ width: 1240, height: 1754 });
+    expect(await inkShare(page, card)).toBeGreaterThan(0.03);
+    // Reloaded: the pair comes back as it was.
+    await page.waitForTimeout(700); // autosave waits 400 ms after the last change
+    await page.reload();
+    await page.waitForSelector('[data-figure="worst-pa"]');
+    expect(await page.getByRole('radio', { name: 'Push-pull pair' }).isChecked()).toBe(true);
+    expect(await page.getByRole('textbox', { name: /^Raa/ }).inputValue()).toBe('8k');
+    expect(await page.getByRole('textbox', { name: /^Rk/ }).inputValue()).toBe(rkDragged);
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+});
