@@ -71,9 +71,9 @@ export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } fro
 export { corners, cornersOf, type Corners } from './signal/corners';
 export { solveLinks, type ChainLink, type LinkResult, type LinkChainResult } from './signal/solveLinks';
 export { solveChain } from './chain/solveChain';
-export { solveAmplifier, checkChain, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
+export { solveAmplifier, checkChain, prepareAmplifier, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
 export { STAGE_KINDS, STAGE_KIND_LABELS } from './chain/stageKinds';
-export type { ChainInput, ChainResult, ChainStage, StageKindName, StageResult, Coupling, CapacitorCoupling, DirectCoupling, CommonCathodeLink, FollowerLink, SingleEndedLink, ClipCause } from './chain/chainTypes';
+export type { ChainInput, ChainResult, ChainStage, StageKindName, StageResult, Coupling, CapacitorCoupling, DirectCoupling, CommonCathodeLink, FollowerLink, SingleEndedLink, SplitLoadLink, LongTailedPairLink, PushPullLink, ClipCause } from './chain/chainTypes';
 export { sineLevel, decibelsOf, DB_FLOOR, NO_SIGNAL_VOLTS, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
 export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';

@@ -48,7 +48,7 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
   const last = input.stages[input.stages.length - 1]!;
   let targetRms: number;
   if (typeof level === 'object' && level !== null && 'power' in level) {
-    if (last.kind !== 'single-ended-output') return fail('invalid-input', 'A level in watts needs an output stage at the end of the chain', 'power');
+    if (last.kind !== 'single-ended-output' && last.kind !== 'push-pull-output') return fail('invalid-input', 'A level in watts needs an output stage at the end of the chain', 'power');
     const p = checkNumber('power', 'Power', level.power, 'W', 1e-9, 10_000);
     if (p) return p;
     targetRms = Math.sqrt(level.power * last.speakerOhms);

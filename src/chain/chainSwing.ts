@@ -20,15 +20,17 @@ export class ChainSignal {
     /** First grid's share of the source voltage (its leak against the source impedance). */
     private readonly sourceShare: number,
   ) {
-    this.samples = links.map(() => ({ vout: 0, vgk: 0, ia: 0 }));
+    this.samples = links.map(() => ({ vout: 0, vgk: 0, ia: 0, vout2: 0 }));
   }
 
   /** Output for a source voltage vsrc (from quiescent), each stage's sample kept for inspection; `upTo` stops after that stage. */
   at(vsrc: number, upTo = this.links.length - 1): number {
     let v = vsrc * this.sourceShare;
+    let v2 = 0;
     for (let i = 0; i <= upTo; i++) {
-      this.links[i]!.sample(v, this.samples[i]!);
+      this.links[i]!.sample(v, this.samples[i]!, v2);
       v = this.samples[i]!.vout;
+      v2 = this.samples[i]!.vout2;
     }
     return v;
   }
@@ -76,9 +78,11 @@ export class ChainSignal {
   /** Every stage's output for one source voltage, written into `into` (one pass through the chain). */
   stageOutputs(vsrc: number, into: Float64Array): void {
     let v = vsrc * this.sourceShare;
+    let v2 = 0;
     for (let i = 0; i < this.links.length; i++) {
-      this.links[i]!.sample(v, this.samples[i]!);
+      this.links[i]!.sample(v, this.samples[i]!, v2);
       v = this.samples[i]!.vout;
+      v2 = this.samples[i]!.vout2;
       into[i] = v;
     }
   }

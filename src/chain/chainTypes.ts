@@ -1,4 +1,5 @@
 import type { OutputDesign } from '../output/outputDesign';
+import type { PushPullDesign } from '../pushpull/pushPullDesign';
 import type { OutputTube } from '../output/outputTube';
 import type { StageFinding } from '../stage/stageFindings';
 import type { TubeLike } from '../tube/types';
@@ -63,7 +64,66 @@ export interface SingleEndedLink extends Omit<OutputDesign, 'tubeId' | 'rg'> {
   readonly coupling: Coupling;
 }
 
-export type ChainStage = CommonCathodeLink | FollowerLink | SingleEndedLink;
+/**
+ * A split-load (cathodyne) phase splitter: one triode, its plate load Ra to
+ * B+ and its cathode load Rk to ground. The chain goes on from the plate
+ * (inverted); the cathode's output, in phase, drives the push-pull stage's
+ * other grid. Its grid sits at the plate before it (direct coupling) or at
+ * `vbias` through its leak (a divider).
+ */
+export interface SplitLoadLink {
+  readonly kind: 'split-load';
+  readonly tube: TubeLike;
+  readonly bplus: number;
+  readonly ra: number;
+  readonly rk: number;
+  /** Grid DC voltage to ground with capacitor coupling, V; default 0. */
+  readonly vbias?: number;
+  readonly heaterVolts?: number;
+  readonly coupling: Coupling;
+}
+
+/**
+ * A long-tailed pair phase splitter: two triodes with plate resistors Ra
+ * (and Ra2 for the second, to trim the balance), cathodes joined into a
+ * shared bias resistor Rk over a tail resistor to ground, the second grid at
+ * signal ground through a capacitor, both grids at one DC voltage. The chain
+ * goes on from the first plate (inverted); the second plate's output, in
+ * phase, drives the push-pull stage's other grid.
+ */
+export interface LongTailedPairLink {
+  readonly kind: 'long-tailed-pair';
+  readonly tube: TubeLike;
+  readonly bplus: number;
+  readonly ra: number;
+  /** The second plate's resistor, Ω; default Ra. */
+  readonly ra2?: number;
+  readonly rk: number;
+  readonly rtail: number;
+  /** Both grids' DC voltage with capacitor coupling, V; default 0. */
+  readonly vbias?: number;
+  readonly heaterVolts?: number;
+  readonly coupling: Coupling;
+}
+
+/**
+ * A push-pull output stage (the parts of PushPullDesign; each grid's
+ * resistor is the coupling's grid leak). It follows a phase splitter: its
+ * first grid takes the chain's signal, its second the splitter's other
+ * output. Its output is the speaker's voltage, phased as the first plate.
+ */
+export interface PushPullLink extends Omit<PushPullDesign, 'tubeId' | 'rg'> {
+  readonly kind: 'push-pull-output';
+  readonly tube: OutputTube;
+  readonly coupling: Coupling;
+}
+
+export type ChainStage = CommonCathodeLink | FollowerLink | SingleEndedLink | SplitLoadLink | LongTailedPairLink | PushPullLink;
+
+/** Stages with two outputs in antiphase. */
+export const SPLITTER_KINDS: readonly StageKindName[] = ['split-load', 'long-tailed-pair'];
+/** Stages that drive the speaker, and so come last. */
+export const OUTPUT_KINDS: readonly StageKindName[] = ['single-ended-output', 'push-pull-output'];
 export type StageKindName = ChainStage['kind'];
 
 export interface ChainInput {

@@ -1,6 +1,6 @@
 import { fail, type Failure } from '../result';
 import { checkNumber, checkTube, LIMITS } from '../stage/checkInput';
-import type { CommonCathodeLink, FollowerLink } from './chainTypes';
+import type { CommonCathodeLink, FollowerLink, LongTailedPairLink, SplitLoadLink } from './chainTypes';
 import { checkCoupling } from './checkCoupling';
 
 /**
@@ -8,7 +8,7 @@ import { checkCoupling } from './checkCoupling';
  * B+, grid voltage (none of its own when direct-coupled: the grid sits at the
  * output before it) and heater potential. Each kind adds its own parts.
  */
-export function checkTriodeLink(s: CommonCathodeLink | FollowerLink, ownParts: () => Failure | null): Failure | null {
+export function checkTriodeLink(s: CommonCathodeLink | FollowerLink | SplitLoadLink | LongTailedPairLink, ownParts: () => Failure | null): Failure | null {
   return (
     checkTube(s.tube) ??
     checkCoupling(s.coupling, true) ??

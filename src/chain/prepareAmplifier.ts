@@ -3,8 +3,8 @@ import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
 import { harmonicAmplitudes } from '../signal/fft';
 import { sineCycle } from '../signal/sineCycle';
-import type { ChainInput, ChainStage, ClipCause } from './chainTypes';
-import { kindOf } from './stageKinds';
+import { OUTPUT_KINDS, SPLITTER_KINDS, type ChainInput, type ChainStage, type ClipCause } from './chainTypes';
+import { kindOf, STAGE_KINDS } from './stageKinds';
 import type { SolvedLink } from './stageKind';
 
 export const MAX_CHAIN_STAGES = 8;
@@ -27,11 +27,20 @@ export function checkChain(input: unknown): Failure | null {
   }
   for (const [i, s] of c.stages.entries()) {
     const kind = typeof s === 'object' && s !== null ? kindOf(s) : null;
-    if (!kind) return fail('invalid-input', `Stage ${i + 1}: choose a kind of stage (common-cathode, follower or single-ended-output)`, `stages.${i}.kind`);
+    if (!kind) return fail('invalid-input', `Stage ${i + 1}: choose a kind of stage (${Object.keys(STAGE_KINDS).join(', ')})`, `stages.${i}.kind`);
     const problem = kind.check(s);
     if (problem) return inStage(problem, i);
-    if (s.kind === 'single-ended-output' && i !== c.stages.length - 1) {
+    if (OUTPUT_KINDS.includes(s.kind) && i !== c.stages.length - 1) {
       return fail('invalid-input', `Stage ${i + 1}: an output stage drives the speaker, so it comes last`, `stages.${i}.kind`);
+    }
+    // A splitter's two outputs drive a push-pull pair's two grids: the one needs the other.
+    const before = i > 0 ? c.stages[i - 1] : undefined;
+    if (s.kind === 'push-pull-output' && !(before && SPLITTER_KINDS.includes(before.kind))) {
+      return fail('invalid-input', `Stage ${i + 1}: a push-pull stage's grids are driven in antiphase: put a phase splitter just before it`, `stages.${i}.kind`);
+    }
+    const next = c.stages[i + 1];
+    if (SPLITTER_KINDS.includes(s.kind) && next?.kind !== 'push-pull-output') {
+      return fail('invalid-input', `Stage ${i + 1}: a phase splitter drives a push-pull stage: put one just after it`, `stages.${i}.kind`);
     }
   }
   if (c.load !== undefined) {
@@ -67,7 +76,8 @@ export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
   for (const [i, s] of stages.entries()) {
     const load = i + 1 < stages.length ? zins[i + 1]! : chainLoad;
     const gridDc = s.coupling.kind === 'direct' ? (i === 0 ? 0 : links[i - 1]!.outputDc) : null;
-    const solved = (kindOf(s) as ReturnType<typeof kindOf<ChainStage>>)!.solve(s, { gridDc, load });
+    const antiphase = i > 0 ? links[i - 1]!.antiphase : undefined;
+    const solved = (kindOf(s) as ReturnType<typeof kindOf<ChainStage>>)!.solve(s, { gridDc, load, ...(antiphase !== undefined ? { antiphase } : {}) });
     if (!solved.ok) return inStage(solved, i);
     links.push(solved);
   }

@@ -62,7 +62,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
     };
     // The gain from the large-signal solution itself (central difference over ±1 mV): an ultralinear
     // screen's current couples through the tap's share of the turns, which the plate's own slopes leave out.
-    const probe: LinkSample = { vout: 0, vgk: 0, ia: 0 };
+    const probe: LinkSample = { vout: 0, vgk: 0, ia: 0, vout2: 0 };
     const h = 1e-3;
     sample(h, probe);
     const up = probe.vout;

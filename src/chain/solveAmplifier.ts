@@ -27,7 +27,8 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
   const outputPeak = signal.outputPeak(inputPeak);
   const last = stages[stages.length - 1]!;
   // Power into the speaker at the fundamental, as data sheets and the output stage's own figures state it.
-  const outputPower = last.kind === 'single-ended-output' ? a.cleanFundamental() ** 2 / (2 * last.speakerOhms) : null;
+  const speaker = last.kind === 'single-ended-output' || last.kind === 'push-pull-output' ? last.speakerOhms : null;
+  const outputPower = speaker !== null ? a.cleanFundamental() ** 2 / (2 * speaker) : null;
 
   const network: ChainNetwork = {
     rsource,
@@ -63,14 +64,14 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
     input: sineLevel(inputPeak),
     output: sineLevel(outputPeak),
     outputPower,
-    speakerRms: outputPower === null || last.kind !== 'single-ended-output' ? null : Math.sqrt(outputPower * last.speakerOhms),
+    speakerRms: outputPower === null || speaker === null ? null : Math.sqrt(outputPower * speaker),
     findings: tagged,
     ...(level === undefined ? {} : { atLevel: atLevelOf(a, input, level) }),
   };
 }
 
 function tubeName(s: ChainStage): string {
-  if (s.kind === 'single-ended-output') return s.tube.id;
+  if (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') return s.tube.id;
   const t = s.tube as { id?: unknown };
   return typeof t.id === 'string' ? t.id : 'own model';
 }

@@ -36,6 +36,8 @@ export interface LinkSample {
   vgk: number;
   /** The current whose fall marks cutoff (plate current; the primary's for an output stage), A. */
   ia: number;
+  /** A phase splitter's second output (in antiphase to `vout`) less its quiescent value, V; 0 for other stages. */
+  vout2: number;
 }
 
 /** A stage solved with the load the next stage puts on it. */
@@ -47,10 +49,16 @@ export interface SolvedLink {
   /** For an output stage, the average current it draws driven to its own clean limit, A (what sags the supply at full power); a voltage stage leaves it out (class A: its average hardly moves). */
   readonly fullPowerCurrent?: number;
   readonly gain: number;
+  /** A phase splitter's second output over its first at midband (negative: in antiphase); absent for other stages. */
+  readonly antiphase?: number;
   readonly zin: number;
   readonly zout: number;
-  /** The stage at a grid swing vin from its bias (midband: the capacitors hold their DC voltages). */
-  readonly sample: (vin: number, out: LinkSample) => void;
+  /**
+   * The stage at a grid swing vin from its bias (midband: the capacitors hold
+   * their DC voltages). A push-pull stage also takes `vin2`, the splitter's
+   * second output, on its other grid.
+   */
+  readonly sample: (vin: number, out: LinkSample, vin2?: number) => void;
   /** Below this current the stage is cut off, A. */
   readonly cutoffCurrent: number;
   readonly findings: readonly Finding[];
@@ -63,6 +71,8 @@ export interface LinkEnv {
   readonly gridDc: number | null;
   /** Midband load on the output: the next grid's input impedance, or the amplifier's load, Ω (Infinity for none). */
   readonly load: number;
+  /** After a phase splitter: its second output over its first (what the push-pull stage's other grid gets). */
+  readonly antiphase?: number;
 }
 
 /**

@@ -2,6 +2,9 @@ import type { ChainStage, StageKindName } from './chainTypes';
 import { commonCathodeKind } from './commonCathodeKind';
 import { followerKind } from './followerKind';
 import { singleEndedKind } from './singleEndedKind';
+import { splitLoadKind } from './splitLoadKind';
+import { longTailedPairKind } from './longTailedPairKind';
+import { pushPullKind } from './pushPullKind';
 import type { StageKind } from './stageKind';
 
 /** Every kind of stage the chain knows, by name: adding a kind means one adapter and one line here. */
@@ -9,6 +12,9 @@ export const STAGE_KINDS: { readonly [K in StageKindName]: StageKind<Extract<Cha
   'common-cathode': commonCathodeKind,
   follower: followerKind,
   'single-ended-output': singleEndedKind,
+  'split-load': splitLoadKind,
+  'long-tailed-pair': longTailedPairKind,
+  'push-pull-output': pushPullKind,
 };
 
 /** A builder's name for each kind, for messages and cards. */
@@ -16,6 +22,9 @@ export const STAGE_KIND_LABELS: { readonly [K in StageKindName]: string } = {
   'common-cathode': 'Common cathode',
   follower: 'Cathode follower',
   'single-ended-output': 'Single-ended output',
+  'split-load': 'Split-load phase splitter',
+  'long-tailed-pair': 'Long-tailed pair phase splitter',
+  'push-pull-output': 'Push-pull output',
 };
 
 /** The adapter for a stage's kind; null for a name that is not one (own keys only: "toString" is not a kind). */

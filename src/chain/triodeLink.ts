@@ -34,6 +34,7 @@ export function triodeLink(p: TriodeLinkParts): { ok: true } & SolvedLink {
       out.vout = x.vout;
       out.vgk = x.vgk;
       out.ia = x.ia;
+      out.vout2 = 0;
     },
     cutoffCurrent: CUTOFF_FRACTION * op.ia,
     findings: p.solved.findings,

@@ -3,7 +3,7 @@ import { fail, type Failure, type Result } from '../result';
 import { checkDrive, checkOutputTube, checkSamples } from '../output/checkOutput';
 import { harmonicAmplitudes, isPowerOfTwo } from '../signal/fft';
 import { checkPushPull } from './pushPullDesign';
-import { emptyCurrents } from '../output/electrodes';
+import { emptyCurrents, type StageCurrents } from '../output/electrodes';
 import { OUTPUT_SAMPLES, THD_HARMONICS } from '../output/outputSignal';
 import { plateOf, type PushPullSolution } from './solvePushPull';
 
@@ -38,6 +38,46 @@ export interface PushPullDrive {
   readonly winding: Float64Array;
 }
 
+/** The pair at one instant, reused sample after sample: `solve` writes both tubes' currents into c1, c2 and their plates into v1, v2. */
+export interface PushPullInstant {
+  readonly c1: StageCurrents;
+  readonly c2: StageCurrents;
+  v1: number;
+  v2: number;
+  /** The winding's signal voltage (each half) with the grids at g1 and g2 to their cathode, V. */
+  solve(g1: number, g2: number): number;
+}
+
+/**
+ * One instant of the pair: each half of the primary carries the winding's
+ * signal w with opposite sign (the centre tap at the supply), and the ideal
+ * transformer sets w from the net coupled current, w = (Raa/4)·((M1 − M2) −
+ * (M1q − M2q)). The residual rises with w, so a bracketed root finds it.
+ */
+export function pushPullInstant(s: PushPullSolution): PushPullInstant {
+  const { supply, feed } = s;
+  const rHalf = s.design.rPrimary / 2;
+  const quarter = s.design.raa / 4;
+  const offset = s.idle[0].mmf - s.idle[1].mmf;
+  const out: PushPullInstant = {
+    c1: emptyCurrents(),
+    c2: emptyCurrents(),
+    v1: 0,
+    v2: 0,
+    solve(g1, g2) {
+      const residual = (w: number) => {
+        out.v1 = plateOf(s.tube, feed, supply, w, rHalf, g1, out.c1);
+        out.v2 = plateOf(s.tube2, feed, supply, -w, rHalf, g2, out.c2);
+        return w - quarter * (out.c1.mmf - out.c2.mmf - offset);
+      };
+      const w = bracketedRoot(residual, -supply, supply, 1e-12 * supply).x;
+      residual(w);
+      return w;
+    },
+  };
+  return out;
+}
+
 /**
  * Composite characteristics, instant by instant: at each point of a cycle
  * the grids sit at Vgk ± v, each half of the primary carries the winding's
@@ -49,12 +89,9 @@ export interface PushPullDrive {
  * harmonics, the screen and plate products the dissipations.
  */
 export function pushPullDriveOf(s: PushPullSolution, drive: number, n = OUTPUT_SAMPLES): PushPullDrive {
-  const { supply, feed, vgk } = s;
-  const rHalf = s.design.rPrimary / 2;
-  const quarter = s.design.raa / 4;
-  const offset = s.idle[0].mmf - s.idle[1].mmf;
-  const c1 = emptyCurrents();
-  const c2 = emptyCurrents();
+  const { feed, vgk } = s;
+  const instant = pushPullInstant(s);
+  const { c1, c2 } = instant;
   const tied = feed.kind === 'tied';
   const winding = new Float64Array(n);
   const pa: [number, number] = [0, 0];
@@ -63,19 +100,13 @@ export function pushPullDriveOf(s: PushPullSolution, drive: number, n = OUTPUT_S
   let ikSum = 0;
   let vMin = Infinity;
   let cutoff = false;
-  let v1 = 0;
-  let v2 = 0;
+  let v1: number;
+  let v2: number;
   for (let k = 0; k < n; k++) {
     const x = drive * Math.sin((2 * Math.PI * k) / n);
-    const g1 = vgk + x;
-    const g2 = vgk - x;
-    const residual = (w: number) => {
-      v1 = plateOf(s.tube, feed, supply, w, rHalf, g1, c1);
-      v2 = plateOf(s.tube2, feed, supply, -w, rHalf, g2, c2);
-      return w - quarter * (c1.mmf - c2.mmf - offset);
-    };
-    const w = bracketedRoot(residual, -supply, supply, 1e-12 * supply).x;
-    residual(w);
+    const w = instant.solve(vgk + x, vgk - x);
+    v1 = instant.v1;
+    v2 = instant.v2;
     winding[k] = w;
     pa[0] += (v1 * (tied ? c1.ip : c1.ia)) / n;
     pa[1] += (v2 * (tied ? c2.ip : c2.ia)) / n;
@@ -96,7 +127,7 @@ export function pushPullDriveOf(s: PushPullSolution, drive: number, n = OUTPUT_S
   for (let k = 2; k < rel.length; k++) sum += rel[k]! * rel[k]!;
   return {
     drive,
-    power: (fundamental * fundamental) / (2 * quarter),
+    power: (fundamental * fundamental) / (2 * (s.design.raa / 4)),
     thd: Math.sqrt(sum),
     harmonics: rel,
     classAB: cutoff,

@@ -84,7 +84,7 @@ export function pushPullFigures(s: PushPullSolution): Result<PushPullFigures> {
  * that. In class A with triodes and no primary resistance this is 2·rp, the
  * textbook's two plate resistances in series (Langford-Smith, ch. 13).
  */
-function plateToPlateImpedance(s: PushPullSolution): number | null {
+export function plateToPlateImpedance(s: PushPullSolution): number | null {
   const rHalf = s.design.rPrimary / 2;
   const c = emptyCurrents();
   const net = (w: number) => {

@@ -58,7 +58,7 @@ export interface LongTailedPairResult {
 const TOL = 1e-12;
 
 /** One tube's current where its plate load (DC drop at idle, `rAc` for the signal beyond it) and its grid–cathode voltage agree. */
-function tubeCurrent(p: Parameters<typeof korenPlateCurrent>[0], topVolts: number, i0: number, rAc: number, vk: number, vgk: number): number {
+export function tubeCurrent(p: Parameters<typeof korenPlateCurrent>[0], topVolts: number, i0: number, rAc: number, vk: number, vgk: number): number {
   // va = topVolts − (i − i0)·rAc, where topVolts is the plate's idle voltage; the residual rises with i.
   const hi = Math.max((topVolts - vk) / rAc + i0, 1e-9);
   const f = (i: number) => i - korenPlateCurrent(p, topVolts - (i - i0) * rAc - vk, vgk);

@@ -27,15 +27,18 @@ export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
 
-function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean): { lines: string[]; output: string } {
+function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null): { lines: string[]; output: string; output2?: string } {
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
   const gnode = s.coupling.kind === 'direct' ? input : `g${i}`;
   const lines: string[] = [];
   if (s.coupling.kind === 'capacitor') {
-    const vbias = s.kind === 'single-ended-output' ? (s.bias === 'fixed' ? s.vg : 0) : (s.vbias ?? 0);
+    const vbias = s.kind === 'single-ended-output' || s.kind === 'push-pull-output' ? (s.bias === 'fixed' ? s.vg : 0) : (s.vbias ?? 0);
     lines.push(`CC${i} ${input} ${gnode} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${gnode} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
+    // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
+    if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b gb${i} ${g(s.coupling.rg)}`);
   }
+  if (s.kind === 'push-pull-output') return { lines: [...lines, ...pushPullLines(s, i, gnode, `${gnode}b`, large)], output: 'sec' };
   if (s.kind === 'single-ended-output') {
     const t = s.tube;
     const n2 = s.zPrimary / s.speakerOhms;
@@ -62,6 +65,26 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
   const caps = recordOf(s.tube)?.capacitances;
   lines.push(triodeSubckt(`tri${i}`, modelOf(s.tube).params, caps ? { cgk: caps.cgk, cgp: caps.cgp, cpk: caps.cpk } : undefined));
   lines.push(`X${i} ${p} ${gnode} ${k} tri${i}`);
+  if (s.kind === 'split-load') {
+    lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RA${i} bp${i} ${p} ${g(s.ra)}`, `RK${i} ${k} 0 ${g(s.rk)}`);
+    return { lines, output: p, output2: k };
+  }
+  if (s.kind === 'long-tailed-pair') {
+    // The second grid at the first's DC voltage through a leak, held at signal ground by a capacitor.
+    const vgrid = s.coupling.kind === 'capacitor' ? `gb${i}` : `gd${i}`;
+    if (s.coupling.kind === 'direct') lines.push(`EGD${i} gd${i} 0 ${input} 0 1`);
+    lines.push(
+      `X${i}b ${p}b ${gnode}b ${k} tri${i}`,
+      `RG${i}b ${gnode}b ${vgrid} 1e6`,
+      `CG${i}b ${gnode}b 0 1`,
+      `${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`,
+      `RA${i} bp${i} ${p} ${g(s.ra)}`,
+      `RA${i}b bp${i} ${p}b ${g(s.ra2 ?? s.ra)}`,
+      s.rk > 0 ? `RK${i} ${k} t${i} ${g(s.rk)}` : `VK${i} ${k} t${i} DC 0`,
+      `RT${i} t${i} 0 ${g(s.rtail)}`,
+    );
+    return { lines, output: p, output2: `${p}b` };
+  }
   if (s.kind === 'common-cathode') {
     lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RA${i} bp${i} ${p} ${g(s.ra)}`);
     lines.push(s.rk > 0 ? `RK${i} ${k} 0 ${g(s.rk)}` : `VK${i} ${k} 0 DC 0`);
@@ -72,15 +95,58 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
   return { lines, output: k };
 }
 
+/**
+ * A push-pull stage: the two tubes on a centre-tapped primary of coupled
+ * segments (as pushPullNetlist, at this file's inductance), half the
+ * primary's DC resistance before each plate, a shared cathode resistor
+ * bypassed (by a large capacitor) or fixed bias. Node names: the first
+ * plate and the cathode are the stage's own; the second plate ends in b.
+ */
+function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: number, grid1: string, grid2: string, large: number): string[] {
+  const t = s.tube;
+  const p = nodes.plate(i);
+  const k = nodes.cathode(i);
+  const pentode = t.law.kind === 'pentode';
+  const ul = s.connection === 'ultralinear' && pentode;
+  const lines = [pentode ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params)];
+  lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RH1 end1 ${p} ${g(Math.max(s.rPrimary / 2, 1e-6))}`, `RH2 end2 ${p}b ${g(Math.max(s.rPrimary / 2, 1e-6))}`);
+  const quarter = L_PRIMARY / 4;
+  const segments: string[] = [];
+  if (ul) {
+    const x = s.ulTap;
+    lines.push(`LB1 end1 tap1 ${g(quarter * (1 - x) ** 2)}`, `LA1 tap1 bp${i} ${g(quarter * x * x)}`, `LA2 bp${i} tap2 ${g(quarter * x * x)}`, `LB2 tap2 end2 ${g(quarter * (1 - x) ** 2)}`);
+    segments.push('LB1', 'LA1', 'LA2', 'LB2');
+  } else {
+    lines.push(`LH1 end1 bp${i} ${g(quarter)}`, `LH2 bp${i} end2 ${g(quarter)}`);
+    segments.push('LH1', 'LH2');
+  }
+  lines.push(`LS sec 0 ${g((L_PRIMARY * s.speakerOhms) / s.raa)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
+  const all = [...segments, 'LS'];
+  all.forEach((a, j) => all.slice(j + 1).forEach((b) => lines.push(`K${a}${b} ${a} ${b} ${K}`)));
+  lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(large)}` : `VK${i} ${k} 0 DC 0`);
+  const screen = (n: 1 | 2) => (s.connection === 'triode' ? (n === 1 ? p : `${p}b`) : ul ? `tap${n}` : 'screen');
+  if (pentode) {
+    if (s.connection === 'pentode') lines.push(`VSCR screen 0 DC ${g(s.screenVolts)}`);
+    lines.push(`X${i} ${p} ${screen(1)} ${grid1} ${k} pent`, `X${i}b ${p}b ${screen(2)} ${grid2} ${k} pent`);
+  } else {
+    lines.push(`X${i} ${p} ${grid1} ${k} outtri`, `X${i}b ${p}b ${grid2} ${k} outtri`);
+  }
+  const c = t.capacitances;
+  for (const [x, gn, pn] of [['a', grid1, p], ['b', grid2, `${p}b`]] as const) lines.push(`CGK${i}${x} ${gn} ${k} ${g(c.cgk)}`, `CGP${i}${x} ${gn} ${pn} ${g(c.cgp)}`, `CPK${i}${x} ${pn} ${k} ${g(c.cpk)}`);
+  return lines;
+}
+
 export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
   const large = analysis.kind === 'tran' ? 1e-3 : 1;
   const source = analysis.kind === 'tran' ? `DC 0 SIN(0 ${g(analysis.peak)} 1000)` : 'DC 0 AC 1';
   const lines = ['* amplifier chain', `VS src 0 ${source}`, `RS src a ${g(Math.max(c.source.rsource, 1e-3))}`];
   let input = 'a';
+  let input2: string | null = null;
   c.stages.forEach((s, i) => {
-    const st = stageLines(s, i, input, large, analysis.kind === 'tran');
+    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2);
     lines.push(...st.lines);
     input = st.output;
+    input2 = st.output2 ?? null;
   });
   lines.push(`EOUT ${nodes.output} 0 ${input} 0 1`);
   // In the transient a 10 µF output capacitor holds its charge over the run (RL·C ≥ 0.1 s); more collapses the time step.

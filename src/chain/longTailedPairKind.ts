@@ -1,0 +1,81 @@
+import { bracketedRoot } from '../numeric/bracketedRoot';
+import type { Failure } from '../result';
+import { checkNumber, LIMITS } from '../stage/checkInput';
+import { parallel } from '../stage/parallel';
+import { solveLongTailedPair, tubeCurrent } from '../splitter/longTailedPair';
+import { CUTOFF_FRACTION } from '../tube/koren';
+import { modelOf, recordOf } from '../tube/types';
+import type { LongTailedPairLink } from './chainTypes';
+import { couplingImpedance } from './checkCoupling';
+import { checkTriodeLink } from './checkTriodeLink';
+import { NO_CAPACITANCES } from './noCapacitances';
+import type { LinkSample, StageKind } from './stageKind';
+
+const fieldOf = (f: Failure): Failure => (f.field === 'grid.volts' ? { ...f, field: 'vbias' } : f.field === 'tail.rt' ? { ...f, field: 'rtail' } : f.field === 'ra1' ? { ...f, field: 'ra' } : f);
+
+/**
+ * The long-tailed pair in the chain: the signal on the first grid, the
+ * second at signal ground, both cathodes over Rk and the tail. At each
+ * instant the tail's current S sets the cathodes (S·(Rk + Rt)), each tube
+ * answers along its own plate load (Ra in parallel with the next grid's
+ * leak), and one S agrees: a bracketed root per instant. The first plate
+ * carries the chain's signal (inverted); the second, in phase, the other.
+ */
+export const longTailedPairKind: StageKind<LongTailedPairLink> = {
+  kind: 'long-tailed-pair',
+  check: (s) =>
+    checkTriodeLink(s, () =>
+      checkNumber('ra', 'Ra', s.ra, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
+      (s.ra2 === undefined ? null : checkNumber('ra2', 'Ra (second plate)', s.ra2, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
+      checkNumber('rk', 'Rk', s.rk, 'Ω', 0, LIMITS.maxOhms) ??
+      checkNumber('rtail', 'Tail resistor', s.rtail, 'Ω', LIMITS.minOhms, LIMITS.maxOhms),
+    ),
+  inputImpedance: (s) => couplingImpedance(s.coupling),
+  solve(s, env) {
+    const vg = env.gridDc ?? s.vbias ?? 0;
+    const ra2 = s.ra2 ?? s.ra;
+    const r = solveLongTailedPair({ tube: s.tube, bplus: s.bplus, ra1: s.ra, ra2, rk: s.rk, tail: { kind: 'resistor', rt: s.rtail }, grid: { kind: 'fixed', volts: vg }, rl: env.load, heaterVolts: s.heaterVolts ?? 0 });
+    if (!r.ok) return fieldOf(r);
+    const [o1, o2] = r.ops;
+    const p = modelOf(s.tube).params;
+    const r1 = parallel(s.ra, env.load);
+    const r2 = parallel(ra2, env.load);
+    const tail = s.rk + s.rtail;
+    const sum0 = o1.ia + o2.ia;
+    let i1 = o1.ia;
+    let i2 = o2.ia;
+    const sample = (vin: number, out: LinkSample) => {
+      const excess = (sum: number) => {
+        const vk = sum * tail;
+        i1 = tubeCurrent(p, o1.va, o1.ia, r1, vk, vg + vin - vk);
+        i2 = tubeCurrent(p, o2.va, o2.ia, r2, vk, vg - vk);
+        return i1 + i2 - sum;
+      };
+      const top = Math.max(s.bplus / tail, 2 * sum0);
+      const sum = bracketedRoot(excess, 0, top, 1e-12 * (1 + top)).x;
+      excess(sum);
+      const vk = sum * tail;
+      out.vout = -(i1 - o1.ia) * r1;
+      out.vout2 = -(i2 - o2.ia) * r2;
+      out.vgk = Math.max(vg + vin - vk, vg - vk);
+      out.ia = Math.min(i1, i2);
+    };
+    const second = (r.rp[1] + r2) / (r.mu[1] + 1);
+    return {
+      ok: true,
+      op: { va: o1.va, vk: o1.vk, ia: o1.ia, vgk: o1.vgk },
+      supplyCurrent: sum0,
+      outputDc: o1.va,
+      gain: r.gain1,
+      zin: couplingImpedance(s.coupling),
+      zout: r.zout[0],
+      antiphase: r.gain2 / r.gain1,
+      sample,
+      cutoffCurrent: CUTOFF_FRACTION * Math.min(o1.ia, o2.ia),
+      // One envelope: the second triode's findings where they say something the first's do not.
+      findings: [...r.findings[0], ...r.findings[1].filter((f) => !r.findings[0].some((g) => g.message === f.message))],
+      // The first triode with, at its cathode, the tail in parallel with the second triode's cathode (its grid at signal ground).
+      linear: { gm: r.gm[0], rp: r.rp[0], plateLoad: s.ra, rk: parallel(tail, second), ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', outputScale: 1 },
+    };
+  },
+};

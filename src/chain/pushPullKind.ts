@@ -1,0 +1,101 @@
+import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
+import { SWEEP_SAMPLES } from '../output/outputSignal';
+import { checkPushPull, type PushPullDesign } from '../pushpull/pushPullDesign';
+import { pushPullDriveOf, pushPullInstant } from '../pushpull/pushPullDrive';
+import { plateToPlateImpedance } from '../pushpull/pushPullFigures';
+import { pushPullFindings } from '../pushpull/pushPullFindings';
+import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
+import type { PushPullLink } from './chainTypes';
+import { checkCoupling, couplingImpedance } from './checkCoupling';
+import type { LinkSample, StageKind } from './stageKind';
+
+/** The pair's own design record, each grid's resistor being the coupling's grid leak. */
+function designOf(s: PushPullLink): PushPullDesign {
+  const { kind: _kind, tube, coupling, ...parts } = s;
+  return { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 };
+}
+
+/** One tube's plate resistance at idle, its grid held (numerical slope of the charted current), Ω. */
+function plateResistance(s: PushPullSolution): number {
+  const c = emptyCurrents();
+  const { vpk } = s.idle[0];
+  const h = 0.05;
+  stageCurrentsInto(s.tube, s.feed, vpk + h, s.vgk, c, -h);
+  const up = c.ip;
+  stageCurrentsInto(s.tube, s.feed, vpk - h, s.vgk, c, h);
+  const slope = (up - c.ip) / (2 * h);
+  return slope > 0 ? 1 / slope : Infinity;
+}
+
+/**
+ * The push-pull output stage in the chain. Its first grid takes the chain's
+ * signal, its second the phase splitter's other output, instant by instant,
+ * so the splitter's imbalance reaches the pair as it is; the pair is solved
+ * with the transformer coupling the two tubes' currents (pushPullInstant).
+ * Its output is the speaker's voltage, phased as the first plate. A pair in
+ * class AB cuts a tube off by design: only grid current ends its swing.
+ */
+export const pushPullKind: StageKind<PushPullLink> = {
+  kind: 'push-pull-output',
+  check: (s) => checkCoupling(s.coupling, false) ?? checkPushPull(s.tube, designOf(s)),
+  inputImpedance: (s) => couplingImpedance(s.coupling),
+  solve(s, env) {
+    const design = designOf(s);
+    const solved = solvePushPull(s.tube, design);
+    if (!solved.ok) return solved;
+    const instant = pushPullInstant(solved);
+    const quarter = design.raa / 4;
+    const ratio = Math.sqrt(design.speakerOhms / quarter);
+    const antiphase = env.antiphase ?? -1;
+    const { vgk } = solved;
+    const sample = (vin: number, out: LinkSample, vin2?: number) => {
+      const g1 = vgk + vin;
+      const g2 = vgk + (vin2 ?? antiphase * vin);
+      const w = instant.solve(g1, g2);
+      out.vout = -w * ratio;
+      out.vout2 = 0;
+      out.vgk = Math.max(g1, g2);
+      // Cutoff of one tube is class AB, not clipping: the current reported never reaches the cutoff mark.
+      out.ia = 1;
+    };
+    const probe: LinkSample = { vout: 0, vgk: 0, ia: 0, vout2: 0 };
+    const h = 1e-3;
+    sample(h, probe);
+    const up = probe.vout;
+    sample(-h, probe);
+    const gain = (up - probe.vout) / (2 * h);
+    const full = pushPullDriveOf(solved, -vgk, SWEEP_SAMPLES);
+    const zpp = plateToPlateImpedance(solved);
+    // Each tube, linearised for the response: it sees half the plate-to-plate load while both conduct (Langford-Smith, RDH4 ch. 13).
+    const series = design.raa / 2 + design.rPrimary / 2;
+    const scale = (ratio * (design.raa / 2)) / series;
+    const rp = plateResistance(solved);
+    const rLoad = Number.isFinite(rp) ? (rp * series) / (rp + series) : series;
+    const peak = Math.max(...Array.from(full.winding, Math.abs));
+    return {
+      ok: true,
+      op: { va: solved.idle[0].vpk + solved.vk, vk: solved.vk, ia: solved.idle[0].ip, vgk },
+      supplyCurrent: solved.supplyCurrent,
+      fullPowerCurrent: full.supplyCurrent,
+      outputDc: 0,
+      gain,
+      zin: couplingImpedance(s.coupling),
+      zout: zpp === null ? Infinity : (zpp * design.speakerOhms) / design.raa,
+      sample,
+      cutoffCurrent: 0,
+      findings: pushPullFindings(solved, null, solved.supply + peak),
+      linear: {
+        gm: -gain / (scale * rLoad),
+        rp: Number.isFinite(rp) ? rp : 1e12,
+        plateLoad: series,
+        rk: 0,
+        ck: null,
+        cathodeGrounded: true,
+        gScreen: 0,
+        caps: s.tube.capacitances,
+        output: 'plate',
+        outputScale: scale,
+      },
+    };
+  },
+};
