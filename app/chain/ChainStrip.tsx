@@ -1,4 +1,3 @@
-import { PairCard } from './PairCard';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { plain, rmsLevel, watts } from '../format';
@@ -13,7 +12,7 @@ const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
 /** What the strip draws from the design: each voltage stage's kind, which is on the bench, and whether the output stage is joined. */
 function shapeKey(s: WorkbenchState): string {
   const d = s.design;
-  return `${voltageStages(d).map((p) => p.kind[0]).join('')}|${benchIndex(d)}|${d.stage2.kind}|${d.stageKind}|${d.drivesOutput}|${d.output.pair}`;
+  return `${voltageStages(d).map((p) => p.kind[0]).join('')}|${benchIndex(d)}|${d.stage2.kind}|${d.stageKind}|${d.drivesOutput}|${d.output.pair}|${d.output.splitter.kind}`;
 }
 
 /**
@@ -82,19 +81,7 @@ export function ChainStrip() {
             </li>
           );
         })}
-        {design.drivesOutput && design.output.pair === 'push-pull' && (
-          <li key="pair">
-            <div className="chain-stage">
-              <PairCard />
-            </div>
-          </li>
-        )}
       </ol>
-      {design.drivesOutput && design.output.pair === 'push-pull' && (
-        <p className="chain-note" role="note">
-          The push-pull pair needs a phase splitter to drive its grids in antiphase, and the chain cannot hold one yet: the chain&apos;s figures end at the last voltage stage, loaded by one of the pair&apos;s grid resistors. The pair itself is designed on its own bench.
-        </p>
-      )}
       <ChainSchematic />
       {r.ok && (
         <dl className="chain-figures" data-testid="amplifier-figures">

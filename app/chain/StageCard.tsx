@@ -5,7 +5,7 @@ import type { ChainCardName } from '../store/amplifierChain';
 /** Headroom shown on each card's bar: 20 dB fills it. */
 const HEADROOM_FULL_DB = 20;
 
-export function worstOf(findings: readonly Pick<StageFinding, "severity" | "message">[]): { text: string; severity: 'danger' | 'warning' | 'ok' } {
+function worstOf(findings: readonly Pick<StageFinding, "severity" | "message">[]): { text: string; severity: 'danger' | 'warning' | 'ok' } {
   const f = findings.find((x) => x.severity === 'danger') ?? findings.find((x) => x.severity === 'warning');
   return f ? { text: f.message, severity: f.severity as 'danger' | 'warning' } : { text: 'Within every rating', severity: 'ok' };
 }
@@ -29,7 +29,7 @@ export function StageCard({ name, kind, result, clipsFirst, onBench, onOpen }: S
       <span className="card-title">{name.title} · {name.tube} <span className="card-kind">{kind.toLowerCase()}</span></span>
       {result ? (
         <>
-          <span className="card-gain">gain {plain(result.gain)}×{result.kind === 'single-ended-output' ? ' (grid to speaker)' : ''}</span>
+          <span className="card-gain">gain {plain(result.gain)}×{result.kind === 'single-ended-output' || result.kind === 'push-pull-output' ? ' (grid to speaker)' : ''}</span>
           <span className="card-headroom">
             <meter min={0} max={HEADROOM_FULL_DB} low={3} optimum={HEADROOM_FULL_DB} value={headroom === null ? HEADROOM_FULL_DB : Math.min(headroom, HEADROOM_FULL_DB)} aria-label="headroom" />
             {clipsFirst ? `clips first (${clipsFirst.by === 'grid-current' ? 'grid current' : 'cutoff'})` : headroom === null ? 'never clips' : `${headroom.toFixed(1)} dB headroom`}

@@ -1,4 +1,4 @@
-import { pairDefaults, type OutputPair, type OutputPlan } from '../store/outputPlan';
+import { pairDefaults, type OutputPair, type OutputPlan, type SplitterPlan } from '../store/outputPlan';
 import { findOutputTube, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
@@ -13,7 +13,8 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *   { "format": "quiescent-design", "version": 2, "title": "…", "savedAt": "ISO 8601",
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
- *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch }, drivesOutput,
+ *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch,
+ *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
  *                 before: [stage…], after: [stage…] } }
@@ -27,7 +28,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * Versions 1 and 2 open as a chain of their one or two voltage stages.
  * The output stage's `pair` ("single-ended" or "push-pull"), `raa` (the
  * pair's plate-to-plate load, Ω) and `mismatch` (fraction) came later within
- * version 3: a file without them opens single-ended, as it was written.
+ * version 3: a file without them opens single-ended, as it was written;
+ * so did `splitter` (the phase splitter before a driven pair; absent, the
+ * bench's default).
  *
  * `drivesOutput` (true: the voltage stages drive the output stage, one
  * amplifier; RL is then the output grid resistor) came later within
@@ -142,13 +145,17 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       ...(o.pair !== undefined ? { pair: o.pair as OutputPair } : {}),
       ...(o.raa !== undefined ? { raa: o.raa as number } : {}),
       ...(o.mismatch !== undefined ? { mismatch: o.mismatch as number } : {}),
+      ...(o.splitter !== undefined ? { splitter: { ...(o.splitter as SplitterPlan), tubeId: knownId((o.splitter as SplitterPlan).tubeId) } } : {}),
     };
   }
   const joinProblem = firstProblem(JOIN, d, 'design');
   if (joinProblem) return { ok: false, message: joinProblem };
   const drivesOutput = d.drivesOutput === true;
-  if (drivesOutput && d.rl !== output.rg) {
-    return { ok: false, message: `design.rl must equal design.output.rg when the voltage stages drive the output stage (found ${quote(d.rl)} and ${quote(output.rg)}). Nothing was opened.` };
+  const pairDriven = output.pair === 'push-pull';
+  const leak = pairDriven ? output.splitter.rg : output.rg;
+  if (drivesOutput && d.rl !== leak) {
+    const path = pairDriven ? 'design.output.splitter.rg' : 'design.output.rg';
+    return { ok: false, message: `design.rl must equal ${path} when the voltage stages drive the output stage (found ${quote(d.rl)} and ${quote(leak)}). Nothing was opened.` };
   }
   const supply = readSupplyPlan(d.supply);
   if (!supply.ok) return supply;
@@ -204,12 +211,13 @@ const knownId = (name: string) => lookupTube(name)?.id ?? name;
 export function withKnownTubes(doc: DesignDocument): { doc: DesignDocument; note: string | null } {
   const d = doc.design;
   const others = [...d.before, ...d.after].map((p) => p.tubeId);
-  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : []), ...others].filter((id) => !lookupTube(id)))];
+  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : []), ...others, d.output.splitter.tubeId].filter((id) => !lookupTube(id)))];
   if (missing.length === 0) return { doc, note: null };
   const stand = DEMO_DESIGN.tubeId;
   const swap = (id: string) => (lookupTube(id) ? id : stand);
   const swapAll = (list: readonly StagePlan[]) => list.map((p) => ({ ...p, tubeId: swap(p.tubeId) }));
-  const design: BenchDesign = { ...d, tubeId: swap(d.tubeId), stage2: { ...d.stage2, tubeId: swap(d.stage2.tubeId) }, before: swapAll(d.before), after: swapAll(d.after) };
+  const output = { ...d.output, splitter: { ...d.output.splitter, tubeId: swap(d.output.splitter.tubeId) } };
+  const design: BenchDesign = { ...d, tubeId: swap(d.tubeId), stage2: { ...d.stage2, tubeId: swap(d.stage2.tubeId) }, before: swapAll(d.before), after: swapAll(d.after), output };
   const names = missing.map((m) => `“${m}”`).join(' and ');
   return {
     doc: { ...doc, design },

@@ -72,6 +72,20 @@ export const OUTPUT_STAGE = v.object({
     pair: v.optional(oneOf(['single-ended', 'push-pull'])),
     raa: v.optional(ranged(L.output.raa)),
     mismatch: v.optional(ranged(L.output.mismatch)),
+    splitter: v.optional(
+      section({
+        kind: oneOf(['split-load', 'long-tailed-pair']),
+        tubeId: tubeName(),
+        bplus: ranged(L.splitter.bplus),
+        ra: ranged(L.splitter.ra),
+        ra2: ranged(L.splitter.ra),
+        rk: ranged(L.splitter.rk),
+        rtail: ranged(L.splitter.rtail),
+        vgrid: ranged(L.splitter.vgrid),
+        rg: ranged(L.splitter.rg),
+        cc: ranged(L.splitter.cc),
+      }),
+    ),
   }),
 });
 

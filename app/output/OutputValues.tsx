@@ -4,6 +4,7 @@ import { useShallow } from 'zustand/react/shallow';
 import { connectionsOf, outputTubeLibrary, type Connection } from '../../src/index';
 import { ValueField } from '../panels/ValueField';
 import { WantedPoint } from './WantedPoint';
+import { SplitterValues } from './SplitterValues';
 import { useWorkbench } from '../store/StoreProvider';
 
 /** What each connection's figures can be trusted for, said plainly beside the choice. */
@@ -41,8 +42,8 @@ export function OutputValues() {
       </fieldset>
       {pushPull ? (
         <p className="field-hint">
-          Two tubes on a centre-tapped transformer, the grids driven in antiphase by a phase splitter (not yet part of the chain here: the pair's figures take an ideal drive, the same on each grid).
-          Solved instant by instant with the transformer coupling the two tubes' currents (composite characteristics).
+          Two tubes on a centre-tapped transformer, the grids driven in antiphase by the phase splitter below. The pair&apos;s own figures here take an ideal drive, the same on each grid; the amplifier&apos;s (the strip above) take the splitter&apos;s two outputs as they are.
+          Solved instant by instant with the transformer coupling the two tubes&apos; currents (composite characteristics).
         </p>
       ) : null}
       <div className="value-field">
@@ -87,7 +88,7 @@ export function OutputValues() {
         <ValueField field="oSpeaker" />
         <ValueField field="oThd" hint="for the power-at-distortion figures" />
       </div>
-      {pushPull ? null : <WantedPoint />}
+      {pushPull ? <SplitterValues /> : <WantedPoint />}
     </section>
   );
 }

@@ -3,6 +3,7 @@ import { farads, ohms, volts } from '../format';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../store/StoreProvider';
 import { benchIndex, voltageStages, type FollowerPlan, type GainPlan } from '../store/stagePlans';
+import { drivesPair, type SplitterPlan } from '../store/outputPlan';
 import { Capacitor, Ground, Resistor, Triode } from './symbols';
 import { Dot, Pentode, Winding, Wire } from './symbols2';
 
@@ -14,7 +15,7 @@ const CATHODE_OUT = 156;
 const GROUND = 200;
 const H = 246;
 const LEAD_IN = 34;
-const WIDTH = { gain: 160, follower: 104, output: 176, load: 60 } as const;
+const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 60 } as const;
 const INK = '#1d2329';
 /** Where a cell's coupling capacitor ends and its grid leak stands, from the cell's left edge. */
 const CC_END = 36;
@@ -86,6 +87,51 @@ function FollowerCell({ x0, p }: { x0: number; p: FollowerPlan }) {
       {label(cx - 12, 176, ohms(p.rk), 'end')}
       <Dot x={cx} y={CATHODE_OUT} />
       <Wire points={[[cx, CATHODE_OUT], [x0 + WIDTH.follower, CATHODE_OUT], [x0 + WIDTH.follower, GRID]]} />
+    </>
+  );
+}
+
+/**
+ * The phase splitter before a pair: fed through Cout into its leak (returned
+ * to the divider that sets its grid), its plate and cathode loads (for a
+ * long-tailed pair, the first triode with the tail below; the second is
+ * named), and two outputs to the pair's grids.
+ */
+function SplitterCell({ x0, cc, sp }: { x0: number; cc: number | null; sp: SplitterPlan }) {
+  const cx = x0 + 100;
+  const r = 22;
+  const ltp = sp.kind === 'long-tailed-pair';
+  return (
+    <>
+      <Coupling x0={x0} cc={cc} />
+      <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      <Dot x={x0 + RG_X} y={GRID} />
+      <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
+      {label(x0 + RG_X + 11, GRID + 32, ohms(sp.rg))}
+      {label(x0 + RG_X, GROUND + 4, `to ${volts(sp.vgrid)}`, 'middle')}
+      <Triode cx={cx} cy={GRID} r={r} />
+      <Wire points={[[x0, RAIL], [x0 + WIDTH.splitter, RAIL]]} />
+      <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
+      {label(cx - 12, 60, ohms(sp.ra), 'end')}
+      <Dot x={cx} y={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [x0 + WIDTH.splitter, PLATE_OUT], [x0 + WIDTH.splitter, GRID]]} />
+      <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
+      <Ground x={cx} y={GROUND} />
+      {label(cx - 12, 170, ohms(sp.rk), 'end')}
+      {ltp ? (
+        <>
+          {label(cx - 12, 183, `+ ${ohms(sp.rtail)}`, 'end')}
+          {label(cx + 12, 60, `2nd ${ohms(sp.ra2)}`)}
+        </>
+      ) : (
+        <>
+          <Dot x={cx} y={CATHODE_OUT} />
+          <Wire points={[[cx, CATHODE_OUT], [x0 + WIDTH.splitter - 8, CATHODE_OUT]]} />
+          {label(x0 + WIDTH.splitter - 10, CATHODE_OUT - 5, 'in phase →', 'end')}
+        </>
+      )}
+      {label(x0 + 4, RAIL - 8, `B+ ${volts(sp.bplus)}`)}
     </>
   );
 }
@@ -163,9 +209,17 @@ export const ChainSchematic = memo(function ChainSchematic() {
     );
   });
   const o = design.output;
+  const pair = drivesPair(design);
+  const splitterX = x;
+  if (pair) x += WIDTH.splitter;
+  const splitter = pair ? (
+    <Cell key="splitter" x0={splitterX} width={WIDTH.splitter} onBench={design.stageKind === 'output'} name={`Phase splitter, ${o.splitter.tubeId} ${o.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'}`} tubeId={o.splitter.tubeId} onOpen={() => setStageKind('output')}>
+      <SplitterCell x0={splitterX} cc={design.cout} sp={o.splitter} />
+    </Cell>
+  ) : null;
   const end = design.drivesOutput ? (
-    <Cell key="output" x0={x} width={WIDTH.output} onBench={design.stageKind === 'output'} name={o.pair === 'push-pull' ? `Output stage, two ${o.tubeId} in push-pull (one drawn)` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={() => setStageKind('output')}>
-      <OutputCell x0={x} cc={design.cout} rg={o.rg} tubeId={o.pair === 'push-pull' ? `${o.tubeId}, one of a pair` : o.tubeId} speakerOhms={o.speakerOhms} />
+    <Cell key="output" x0={x} width={WIDTH.output} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull (one drawn)` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={() => setStageKind('output')}>
+      <OutputCell x0={x} cc={pair ? o.splitter.cc : design.cout} rg={o.rg} tubeId={pair ? `${o.tubeId} × 2` : o.tubeId} speakerOhms={o.speakerOhms} />
     </Cell>
   ) : Number.isFinite(design.rl) ? (
     <g key="load">
@@ -177,10 +231,11 @@ export const ChainSchematic = memo(function ChainSchematic() {
   ) : null;
   const width = x + (design.drivesOutput ? WIDTH.output : WIDTH.load);
   return (
-    <svg className="chain-schematic" preserveAspectRatio="xMinYMid meet" viewBox={`0 0 ${width} ${H}`} role="group" aria-label={`Schematic of the whole amplifier, ${list.length + (design.drivesOutput ? 1 : 0)} stages`}>
+    <svg className="chain-schematic" preserveAspectRatio="xMinYMid meet" viewBox={`0 0 ${width} ${H}`} role="group" aria-label={`Schematic of the whole amplifier, ${list.length + (design.drivesOutput ? 1 : 0) + (pair ? 1 : 0)} stages`}>
       <Wire points={[[4, GRID], [LEAD_IN, GRID]]} />
       {label(4, GRID - 8, 'in')}
       {cells}
+      {splitter}
       {end}
     </svg>
   );

@@ -20,8 +20,10 @@ export interface ChainCardName {
   readonly tube: string;
   /** Which bench shows the stage's chart and values. */
   readonly bench: BenchDesign['stageKind'];
-  /** The stage's place among the voltage stages (voltageStages), or null for the output stage. */
+  /** The stage's place among the voltage stages (voltageStages), or null for the splitter and the output stage. */
   readonly voltageIndex: number | null;
+  /** What the stage is to the amplifier: a voltage stage, the phase splitter before a pair, or the output stage. */
+  readonly role: 'voltage' | 'splitter' | 'output';
 }
 
 type Tubes = { ok: true; tubes: TubeRecord[] } | (Failure & { stage: number });
@@ -56,14 +58,27 @@ export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainC
   const found = tubesOf(list);
   if (!found.ok) return null;
   const stages = chainStagesOf(list, found.tubes);
-  const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i }));
-  // A push-pull pair needs a phase splitter before it, which the chain cannot hold yet: the chain then ends at the
-  // last voltage stage, loaded by one of the pair's grid resistors (RL), and the pair is designed on its own bench.
-  const outputTube = d.drivesOutput && d.output.pair === 'single-ended' ? findOutputTube(d.output.tubeId) : undefined;
-  if (outputTube) {
-    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, ...parts } = d.output;
+  const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i, role: 'voltage' }));
+  const outputTube = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
+  if (outputTube && d.output.pair === 'push-pull') {
+    // The splitter is fed from the last voltage stage through Cout into its leak; its outputs drive the pair's grids.
+    const sp = d.output.splitter;
+    const splitterTube = lookupTube(sp.tubeId);
+    if (!splitterTube) return null;
+    const into = { kind: 'capacitor' as const, cc: d.cout ?? IDEAL_CC, rg: sp.rg };
+    stages.push(
+      sp.kind === 'split-load'
+        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, vbias: sp.vgrid, coupling: into }
+        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, vbias: sp.vgrid, coupling: into },
+    );
+    names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
+    const { tubeId: _id, rg, pair: _pair, zPrimary: _z, splitter: _sp, ...parts } = d.output;
+    stages.push({ ...parts, kind: 'push-pull-output', tube: outputTube, coupling: { kind: 'capacitor', cc: sp.cc, rg } });
+    names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
+  } else if (outputTube) {
+    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, splitter: _sp, ...parts } = d.output;
     stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
-    names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null });
+    names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   }
   const load = !outputTube && Number.isFinite(d.rl) ? { load: { rl: d.rl } } : {};
   return { input: { source: { rsource: d.rsource }, stages, ...load }, names };
@@ -110,7 +125,7 @@ export interface AmplifierView {
 export function analyzeAmplifier(d: BenchDesign): AmplifierView | null {
   const chain = chainInputOf(d);
   if (!chain) return null;
-  const toSpeaker = d.drivesOutput && d.output.pair === 'single-ended';
+  const toSpeaker = d.drivesOutput;
   const result = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });
   const atLevel = result.ok ? (result.atLevel ?? null) : null;
   return {

@@ -6,7 +6,8 @@ import {
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
-import { offBenchParts, type OffBenchParts } from './chainParts';
+import { offBenchParts, splitterParts, type OffBenchParts } from './chainParts';
+import { drivesPair } from './outputPlan';
 import { benchIndex, voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -92,7 +93,7 @@ function compute(s: WorkbenchState): BuildSheet {
       capacitors.push(capacitorLine('Cc', 'between the stages', forCorner(sol.zout + d.stage2.rg), sol.op.va, d.bplus, '+ to stage 1\'s plate'));
       const rLoad2 = Number.isFinite(d.rl) ? (d.stage2.ra * d.rl) / (d.stage2.ra + d.rl) : d.stage2.ra;
       capacitors.push(capacitorLine('Ck2', 'stage 2 cathode bypass', forCorner(bypassResistance(d.stage2.rk, link.mu, link.rp, rLoad2)), link.op.vk, 0, '+ to the cathode'));
-      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', d.drivesOutput ? 'coupling into the output grid' : 'output coupling from stage 2', d.cout, link.op.va, d.bplus, '+ to stage 2\'s plate'));
+      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', d.drivesOutput ? (drivesPair(d) ? 'coupling into the splitter\'s grid' : 'coupling into the output grid') : 'output coupling from stage 2', d.cout, link.op.va - (drivesPair(d) ? d.output.splitter.vgrid : 0), d.bplus, '+ to stage 2\'s plate'));
     } else if (d.cout !== null || Number.isFinite(d.rl)) {
       // Cold, the follower passes no current; as it warms its cathode rises toward its grid, which sits at stage 1's plate.
       capacitors.push(capacitorLine('Cout', 'output coupling from the follower\'s cathode', d.cout, link.op.vk, d.bplus, '+ to the cathode'));
@@ -103,10 +104,15 @@ function compute(s: WorkbenchState): BuildSheet {
   const list = voltageStages(d);
   const bench = benchIndex(d);
   const onBench = new Set(d.stage2.kind !== 'none' ? [bench, bench + 1] : [bench]);
-  const stageTubes = list.flatMap((p) => lookupTube(p.tubeId) ?? []);
+  // The splitter before a driven pair hangs from the voltage stages' node and lights its sections beside theirs.
+  const pair = drivesPair(d);
+  const splitterTube = pair ? lookupTube(d.output.splitter.tubeId) : undefined;
+  const splitterSections = splitterTube ? Array.from({ length: d.output.splitter.kind === 'long-tailed-pair' ? 2 : 1 }, () => splitterTube) : [];
+  const stageTubes = [...list.flatMap((p) => lookupTube(p.tubeId) ?? []), ...splitterSections];
   const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
-  const otherStages = amp ? offBenchParts(list, onBench, amp, d.series) : [];
-  const otherAmps = amp ? amp.stages.reduce((sum, st, i) => (i < list.length && !onBench.has(i) ? sum + st.supplyCurrent : sum), 0) : 0;
+  const splitterStage = pair && amp ? amp.stages[list.length] : undefined;
+  const otherStages = amp ? [...offBenchParts(list, onBench, amp, d.series), ...(splitterStage ? [splitterParts(d.output.splitter, splitterStage, list.length, d.series)] : [])] : [];
+  const otherAmps = amp ? amp.stages.reduce((sum, st, i) => ((i < list.length && !onBench.has(i)) || st === splitterStage ? sum + st.supplyCurrent : sum), 0) : 0;
   const tubes = envelopesOf(stageTubes).map(({ tube, sectionsUsed, envelopes }) => {
     const chosen = tube.heaters.find((h) => h.wiring === inp.heaterWiring[tube.id]) ?? tube.heaters[0]!;
     return { tube, options: tube.heaters, chosen, sectionsUsed, envelopes };

@@ -1,4 +1,5 @@
-import { capacitorLine, resistorLine, type CapacitorLine, type ChainResult, type PreferredSeries, type ResistorLine } from '../../src/index';
+import { capacitorLine, nearestPreferred, resistorLine, type CapacitorLine, type ChainResult, type PreferredSeries, type ResistorLine, type StageResult } from '../../src/index';
+import type { SplitterPlan } from './outputPlan';
 import { bplusOfStage, type StagePlan } from './stagePlans';
 
 /** The parts of one voltage stage that is not on the bench, with its own currents and voltages. */
@@ -41,4 +42,43 @@ export function offBenchParts(list: readonly StagePlan[], onBench: ReadonlySet<n
     out.push({ index: i, title: `Stage ${n}, ${p.tubeId} gain stage`, resistors, capacitors });
   }
   return out;
+}
+
+/** The lower resistor of the divider that sets a splitter's grid, Ω (common practice: a few hundred kΩ, so it wastes little current). */
+const DIVIDER_LOWER = 220e3;
+/** The divider's decoupling sets its corner this low, Hz (common practice: well under the band, so no signal rides on the grid return). */
+const DIVIDER_CORNER_HZ = 2;
+
+/**
+ * The phase splitter's parts, rated from its operating point in the solved
+ * amplifier: its plate and cathode (or tail) resistors, its grid leak and
+ * the divider that holds its grid (with the capacitor that decouples it),
+ * and the two capacitors coupling its outputs into the pair's grids, each
+ * across its output's DC running and the splitter's B+ cold.
+ */
+export function splitterParts(sp: SplitterPlan, st: StageResult, index: number, series: PreferredSeries): OffBenchParts {
+  const both = sp.kind === 'long-tailed-pair';
+  const tail = st.supplyCurrent;
+  const resistors = both
+    ? [
+        resistorLine('Ras1', 'splitter first plate load', sp.ra, st.op.ia, series),
+        resistorLine('Ras2', 'splitter second plate load', sp.ra2, tail - st.op.ia, series),
+        resistorLine('Rks', 'splitter shared cathode bias', sp.rk, tail, series),
+        resistorLine('Rtail', 'splitter tail', sp.rtail, tail, series),
+      ]
+    : [resistorLine('Ras', 'splitter plate load', sp.ra, st.op.ia, series), resistorLine('Rks', 'splitter cathode load', sp.rk, st.op.ia, series)];
+  resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks (one per grid, to the divider)' : 'splitter grid leak (to the divider)', sp.rg, 0, series));
+  const upper = nearestPreferred((DIVIDER_LOWER * (sp.bplus - sp.vgrid)) / Math.max(sp.vgrid, 1e-3), series);
+  const lower = nearestPreferred(DIVIDER_LOWER, series);
+  const dividerAmps = sp.bplus / (upper + lower);
+  resistors.push(resistorLine('Rd1', `divider upper (with Rd2 sets the grid near ${sp.vgrid} V)`, upper, dividerAmps, series), resistorLine('Rd2', 'divider lower', lower, dividerAmps, series));
+  const shunt = (upper * lower) / (upper + lower);
+  const capacitors: CapacitorLine[] = [capacitorLine('Cd', 'divider decoupling', 1 / (2 * Math.PI * DIVIDER_CORNER_HZ * shunt), sp.vgrid, (sp.bplus * lower) / (upper + lower), '+ to the divider')];
+  // Each output's coupling: the split-load's plate and cathode, or the pair's two plates.
+  const second = both ? sp.bplus - (tail - st.op.ia) * sp.ra2 : st.op.vk;
+  capacitors.push(
+    capacitorLine('Ccs1', 'splitter to the first output grid', sp.cc, st.op.va, sp.bplus, '+ to the splitter'),
+    capacitorLine('Ccs2', 'splitter to the second output grid', sp.cc, second, sp.bplus, '+ to the splitter'),
+  );
+  return { index, title: `Phase splitter, ${sp.tubeId} ${both ? 'long-tailed pair' : 'split-load'}`, resistors, capacitors };
 }

@@ -32,6 +32,15 @@ export const DESIGN_LIMITS = {
     rk: limit(1, 10e6, 'Ω'),
     rg: limit(1e3, 100e6, 'Ω'),
   },
+  splitter: {
+    bplus: limit(5, 1500, 'V'),
+    ra: limit(100, 10e6, 'Ω'),
+    rk: limit(1, 10e6, 'Ω'),
+    rtail: limit(100, 10e6, 'Ω'),
+    vgrid: limit(0, 1000, 'V'),
+    rg: limit(1e3, 100e6, 'Ω'),
+    cc: limit(1e-12, 1, 'F'),
+  },
   output: {
     bplus: limit(OUTPUT_LIMITS.minBplus, OUTPUT_LIMITS.maxBplus, 'V'),
     screenVolts: limit(OUTPUT_LIMITS.minScreen, OUTPUT_LIMITS.maxBplus, 'V'),

@@ -14,7 +14,7 @@ import { supplyDraftsFor } from './supplySlice';
 import { chainProblem } from './chainSlice';
 
 export type Drafts = Record<FieldName, string>;
-export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube', string>>;
+export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube' | 'splitter', string>>;
 
 /**
  * The design and what the model makes of it. Every change goes through
@@ -78,21 +78,33 @@ function sameVoltagePart(a: BenchDesign, b: BenchDesign): boolean {
   return true;
 }
 
+/** The grid leak the voltage stages drive when joined: the output grid's resistor, or the splitter's before a pair. */
+function drivenLeak(d: BenchDesign): number {
+  return d.output.pair === 'push-pull' ? d.output.splitter.rg : d.output.rg;
+}
+
+function withDrivenLeak(d: BenchDesign, rg: number): BenchDesign {
+  return d.output.pair === 'push-pull' ? { ...d, output: { ...d.output, splitter: { ...d.output.splitter, rg } } } : { ...d, output: { ...d.output, rg } };
+}
+
 /**
- * With the output stage driven, RL is its grid resistor: whichever of the two
- * the change touched, the other follows. An open RL cannot be a grid resistor.
+ * With the output stage driven, RL is the grid leak the voltage stages feed:
+ * the output grid's resistor, or the phase splitter's before a push-pull
+ * pair. Whichever of the two the change touched, the other follows. An open
+ * RL cannot be a grid leak.
  */
 function withOutputDriven(next: BenchDesign, prev: BenchDesign): Result<{ design: BenchDesign }> {
   // The design itself when nothing follows, so an unchanged design stays the same object (history and re-analysis key on it).
   const same = (design: BenchDesign) => ({ ok: true as const, design });
   if (!next.drivesOutput) return same(next);
-  // Joining the stages: the output stage's own grid resistor becomes the voltage stage's load.
-  if (!prev.drivesOutput) return same(next.rl === next.output.rg ? next : { ...next, rl: next.output.rg });
+  const leak = drivenLeak(next);
+  // Joining the stages (or switching what they drive): the driven grid's own leak becomes the voltage stage's load.
+  if (!prev.drivesOutput || next.output.pair !== prev.output.pair) return same(next.rl === leak ? next : { ...next, rl: leak });
   if (next.rl !== prev.rl) {
-    if (!Number.isFinite(next.rl)) return { ok: false, reason: 'invalid-input', message: 'RL is the output grid\'s resistor while the stages drive the output stage: give it a value', field: 'rl' };
-    return same(next.rl === next.output.rg ? next : { ...next, output: { ...next.output, rg: next.rl } });
+    if (!Number.isFinite(next.rl)) return { ok: false, reason: 'invalid-input', message: 'RL is the driven grid\'s leak while the stages drive the output stage: give it a value', field: 'rl' };
+    return same(next.rl === leak ? next : withDrivenLeak(next, next.rl));
   }
-  return same(next.output.rg === next.rl ? next : { ...next, rl: next.output.rg });
+  return same(leak === next.rl ? next : { ...next, rl: leak });
 }
 
 /** How long after the last keystroke the full (signal) analysis runs, ms. */

@@ -1,12 +1,13 @@
 import { formatValue, parseValue } from '../../src/index';
-import type { OutputPlan } from './outputPlan';
+import type { OutputPlan, SplitterPlan } from './outputPlan';
 import type { BenchDesign } from './analysis';
 import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2'
-  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch';
+  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch'
+  | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
@@ -58,6 +59,11 @@ const out = <K extends keyof OutputPlan>(key: K) => ({
   put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, [key]: v as number } }),
 });
 
+const splitter = <K extends Exclude<keyof SplitterPlan, 'kind' | 'tubeId'>>(key: K) => ({
+  get: (d: BenchDesign) => d.output.splitter[key],
+  put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, splitter: { ...d.output.splitter, [key]: v as number } } }),
+});
+
 /** A share typed and shown in percent, held as a fraction. */
 function percent(label: string, range: Limit): Read {
   const [min, max] = [range.min * 100, range.max * 100];
@@ -105,6 +111,14 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   oRg: { label: 'Rg', unit: 'Ω', example: '220k', read: ranged('Rg', L.output.rg), show: compact, ...out('rg') },
   oSpeaker: { label: 'Speaker', unit: 'Ω', example: '8', read: ranged('Speaker', L.output.speakerOhms), show: compact, ...out('speakerOhms') },
   oThd: { label: 'Distortion limit', unit: '%', example: '5', read: percent('Distortion limit', L.output.thdLimit), show: showPercent, ...out('thdLimit') },
+  sBplus: { label: 'Splitter B+', unit: 'V', example: '330', read: ranged('Splitter B+', L.splitter.bplus), show: compact, ...splitter('bplus') },
+  sRa: { label: 'Splitter Ra', unit: 'Ω', example: '22k', read: ranged('Splitter Ra', L.splitter.ra), show: compact, ...splitter('ra') },
+  sRa2: { label: 'Second Ra', unit: 'Ω', example: '36k', read: ranged('Second plate resistor', L.splitter.ra), show: compact, ...splitter('ra2') },
+  sRk: { label: 'Splitter Rk', unit: 'Ω', example: '22k', read: ranged('Splitter Rk', L.splitter.rk), show: compact, ...splitter('rk') },
+  sRtail: { label: 'Tail', unit: 'Ω', example: '10k', read: ranged('Tail resistor', L.splitter.rtail), show: compact, ...splitter('rtail') },
+  sVgrid: { label: 'Splitter grid', unit: 'V', example: '90', read: ranged('Splitter grid voltage', L.splitter.vgrid), show: compact, ...splitter('vgrid') },
+  sRg: { label: 'Splitter Rg', unit: 'Ω', example: '1M', read: ranged('Splitter grid leak', L.splitter.rg), show: compact, ...splitter('rg') },
+  sCc: { label: 'Splitter Cc', unit: 'F', example: '100n', read: ranged('Splitter coupling capacitor', L.splitter.cc), show: compact, ...splitter('cc') },
 };
 
 export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

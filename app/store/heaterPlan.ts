@@ -18,7 +18,7 @@ export function heaterWindingsOf(s: WorkbenchState): HeaterWindingsView {
   const d = s.design;
   const tubes = buildSheetOf(s).tubes;
   const r = d.supply.rectifier;
-  const key = `${d.drivesOutput ? d.output.tubeId : ''}|${r.kind === 'tube' ? r.tubeId : r.kind}|${d.supply.channels}`;
+  const key = `${d.drivesOutput ? `${d.output.tubeId}×${d.output.pair}` : ''}|${r.kind === 'tube' ? r.tubeId : r.kind}|${d.supply.channels}`;
   const hit = cache.get(tubes);
   if (hit && hit.key === key) return hit.view;
   const channels = d.supply.channels;
@@ -29,7 +29,7 @@ export function heaterWindingsOf(s: WorkbenchState): HeaterWindingsView {
     count: t.envelopes * channels,
   }));
   const output = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
-  if (output) loads.push({ label: `${output.id} (${output.heater.volts} V, ${output.heater.amps} A)`, volts: output.heater.volts, amps: output.heater.amps, count: channels });
+  if (output) loads.push({ label: `${output.id} (${output.heater.volts} V, ${output.heater.amps} A)`, volts: output.heater.volts, amps: output.heater.amps, count: channels * (d.output.pair === 'push-pull' ? 2 : 1) });
   const rectifier = r.kind === 'tube' ? findRectifierTube(r.tubeId) : undefined;
   if (rectifier) loads.push({ label: `${rectifier.id} rectifier (${rectifier.heaterVolts} V, ${rectifier.heaterAmps} A)`, volts: rectifier.heaterVolts, amps: rectifier.heaterAmps, count: 1, atBplus: rectifier.directlyHeated });
   const view = heaterWindings(loads);

@@ -8,8 +8,51 @@ export type OutputPair = 'single-ended' | 'push-pull';
  * plus the push-pull pair's own. Both loads are kept (zPrimary for one
  * tube, raa for the pair) so switching between them loses nothing.
  */
+/**
+ * The phase splitter that drives a push-pull pair, fed from the last voltage
+ * stage through Cout into its grid leak (RL, kept equal to `rg`), its grid
+ * held at `vgrid` by a divider behind the leak, each output coupled to a
+ * pair grid through `cc`. The values of both kinds are kept, so switching
+ * loses nothing.
+ */
+export interface SplitterPlan {
+  readonly kind: 'split-load' | 'long-tailed-pair';
+  readonly tubeId: string;
+  readonly bplus: number;
+  /** Plate resistor (the first plate's, for the long-tailed pair), Ω. */
+  readonly ra: number;
+  /** The long-tailed pair's second plate resistor, Ω (a little larger trims the balance). */
+  readonly ra2: number;
+  /** Split-load: the cathode load to ground; long-tailed pair: the shared bias resistor over the tail, Ω. */
+  readonly rk: number;
+  /** The long-tailed pair's tail resistor to ground, Ω. */
+  readonly rtail: number;
+  /** The grid's (both grids') DC voltage from the divider, V. */
+  readonly vgrid: number;
+  /** Grid leak, Ω: the load the last voltage stage drives. */
+  readonly rg: number;
+  /** Each output's coupling capacitor into a pair grid, F. */
+  readonly cc: number;
+}
+
+export type SplitterKind = SplitterPlan['kind'];
+
+/**
+ * The splitter a pair starts with (our own values, E12/E24): a 12AU7
+ * split-load stage with 22 kΩ plate and cathode loads, its grid at 90 V, fed
+ * through 1 MΩ and coupled out through 100 nF; as a long-tailed pair, 33 kΩ
+ * and 36 kΩ plates, 470 Ω over a 10 kΩ tail, grids at 60 V.
+ */
+export const DEFAULT_SPLITTER: SplitterPlan = { kind: 'split-load', tubeId: '12AU7', bplus: 330, ra: 22e3, ra2: 36e3, rk: 22e3, rtail: 10e3, vgrid: 90, rg: 1e6, cc: 100e-9 };
+
+/** Each kind's own values where the two differ (switching kinds sets them; both are typical of their kind). */
+export const LONG_TAILED_START = { ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vgrid: 60 } as const;
+export const SPLIT_LOAD_START = { ra: DEFAULT_SPLITTER.ra, rk: DEFAULT_SPLITTER.rk, vgrid: DEFAULT_SPLITTER.vgrid } as const;
+
 export interface OutputPlan extends OutputDesign {
   readonly pair: OutputPair;
+  /** The splitter before the pair (used when the pair is push-pull and driven by the voltage stages). */
+  readonly splitter: SplitterPlan;
   /** Plate-to-plate load of the pair's transformer, Ω. */
   readonly raa: number;
   /** The second tube's current (and gm) above the first's, a fraction; 0 for a matched pair. */
@@ -22,12 +65,15 @@ export interface OutputPlan extends OutputDesign {
  * usual step from one tube to a class AB pair of the same type (common
  * practice), and a matched pair.
  */
-export function pairDefaults(zPrimary: number): Pick<OutputPlan, 'pair' | 'raa' | 'mismatch'> {
-  return { pair: 'single-ended', raa: Number((2 * zPrimary).toPrecision(2)), mismatch: 0 };
+export function pairDefaults(zPrimary: number): Pick<OutputPlan, 'pair' | 'raa' | 'mismatch' | 'splitter'> {
+  return { pair: 'single-ended', raa: Number((2 * zPrimary).toPrecision(2)), mismatch: 0, splitter: DEFAULT_SPLITTER };
 }
+
+/** True when the voltage stages drive a push-pull pair (through its splitter). */
+export const drivesPair = (d: { readonly drivesOutput: boolean; readonly output: OutputPlan }) => d.drivesOutput && d.output.pair === 'push-pull';
 
 /** The pair's design for the model: the shared values, its own load and mismatch (the single-ended primary is not its). */
 export function pushPullDesignOf(o: OutputPlan): PushPullDesign {
-  const { pair: _pair, zPrimary: _z, ...pp } = o;
+  const { pair: _pair, zPrimary: _z, splitter: _s, ...pp } = o;
   return pp;
 }

@@ -1,6 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { biasForPoint, findOutputTube, nearestPreferred, pairBiasForPoint, pushPullRaaSweep, raaThrough, type RaaRow, switchPairBias, zPrimaryThrough, type Connection, type Failure, type Result, switchBias } from '../../src/index';
-import { pushPullDesignOf, type OutputPair, type OutputPlan } from './outputPlan';
+import { LONG_TAILED_START, pushPullDesignOf, SPLIT_LOAD_START, type OutputPair, type OutputPlan, type SplitterKind } from './outputPlan';
 import type { StageKind } from './analysis';
 import { analyzeOutputBench, type OutputBench, type OutputRival } from './outputAnalysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -24,6 +24,8 @@ export interface OutputSlice {
   sweepPairRaa: () => void;
   /** One tube or a push-pull pair: the shared cathode resistor halves (or doubles) so each tube keeps its idle current. */
   setOutputPair: (pair: OutputPair) => void;
+  /** The phase splitter's kind (each kind starts from its own typical values) or its tube; returns the failure, if any. */
+  setSplitter: (patch: { kind?: SplitterKind; tubeId?: string }) => Failure | null;
   /** Applies a change to the output design through commit; returns the failure, if any, for the caller to place. */
   changeOutput: (patch: Partial<OutputPlan>, opts?: { light?: boolean }) => Failure | null;
   chooseOutputTube: (id: string) => void;
@@ -72,6 +74,16 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const tube = findOutputTube(o.tubeId);
     if (!tube || o.pair !== 'push-pull') return;
     set({ pairRaaSweep: { output: o, result: pushPullRaaSweep(tube, pushPullDesignOf(o), RAA_SWEEP_POINTS) } });
+  },
+
+  setSplitter: (patch) => {
+    const s = get();
+    const sp = s.design.output.splitter;
+    const kindChange = patch.kind !== undefined && patch.kind !== sp.kind ? (patch.kind === 'long-tailed-pair' ? LONG_TAILED_START : SPLIT_LOAD_START) : {};
+    const next = { ...sp, ...patch, ...kindChange };
+    const failure = s.commit({ ...s.design, output: { ...s.design.output, splitter: next } });
+    set({ errors: { ...get().errors, splitter: failure ? `The splitter cannot run so: ${failure.message}` : undefined } });
+    return failure;
   },
 
   setOutputPair: (pair) => {

@@ -95,12 +95,11 @@ export function checkPlan(p: SupplyPlan): Failure | null {
 export const nodeOf = (p: SupplyPlan, bench: 'voltage' | 'output') => (bench === 'output' ? p.feeds.output : p.feeds.voltage);
 
 /** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node. */
-export function onSupplyInputOf(d: BenchDesign, pair: { readonly idle: number; readonly full: number } | null = null): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
+export function onSupplyInputOf(d: BenchDesign): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
   const chain = chainInputOf(d);
   if (!chain) return null;
   const p = d.supply;
-  const feeds = chain.names.map((n) => nodeOf(p, n.bench));
-  // A driven push-pull pair is not in the chain yet (no phase splitter): it draws its own current from the output node.
-  const outsideLoads = pair && d.drivesOutput && d.output.pair === 'push-pull' ? [{ node: nodeOf(p, 'output'), ...pair }] : [];
-  return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, channels: p.channels, outsideLoads }, names: chain.names };
+  // The splitter shares the voltage stages' node (common practice: it hangs from the driver's decoupling).
+  const feeds = chain.names.map((n) => nodeOf(p, n.role === 'output' ? 'output' : 'voltage'));
+  return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, channels: p.channels }, names: chain.names };
 }

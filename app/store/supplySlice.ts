@@ -42,14 +42,16 @@ export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | n
   const r = view.result;
   if (!r.ok) return null;
   // Every voltage stage hangs from the one node that feeds them (plan.feeds.voltage).
-  const at = (bench: 'voltage' | 'output') => {
-    const i = view.names.findIndex((n) => n.bench === bench);
+  const at = (role: 'voltage' | 'splitter' | 'output') => {
+    const i = view.names.findIndex((n) => n.role === role);
     return i < 0 ? null : Math.round(r.bplus[i]!);
   };
   const v = at('voltage');
   const o = at('output');
+  const sp = at('splitter');
   const voltage = v !== null ? withVoltageBplus(d, v) : d;
-  return o !== null ? { ...voltage, output: { ...d.output, bplus: o } } : voltage;
+  const splitter = sp !== null && sp !== d.output.splitter.bplus ? { ...d.output.splitter, bplus: sp } : d.output.splitter;
+  return o !== null || splitter !== d.output.splitter ? { ...voltage, output: { ...d.output, ...(o !== null ? { bplus: o } : {}), splitter } } : voltage;
 }
 
 /** The plan's values that have boxes, by path, with how each is shown. */
@@ -201,8 +203,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
   const schedule = () => {
     clearTimeout(timer);
     timer = setTimeout(() => {
-      const { design: d, outputBench } = store.getState();
-      const chain = d.supply.on ? onSupplyInputOf(d, outputBench.pair === 'push-pull' ? outputBench.settled.supplyCurrent : null) : null;
+      const d = store.getState().design;
+      const chain = d.supply.on ? onSupplyInputOf(d) : null;
       if (!chain) {
         store.setState({ supplyView: null });
         return;
@@ -216,12 +218,12 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
         const next = d.supply.follow ? supplyBplusOf(d, view) : null;
         const moved = (a: BenchDesign['before'], b: BenchDesign['before']) => a.some((p, i) => p !== b[i]);
-        if (next && (next.bplus !== d.bplus || next.output.bplus !== d.output.bplus || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
+        if (next && (next.bplus !== d.bplus || next.output.bplus !== d.output.bplus || next.output.splitter.bplus !== d.output.splitter.bplus || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
       });
     }, SUPPLY_SETTLE_MS);
   };
   store.subscribe((s, prev) => {
-    if (s.design === prev.design && s.amplifier === prev.amplifier && s.outputBench.settled === prev.outputBench.settled) return;
+    if (s.design === prev.design && s.amplifier === prev.amplifier) return;
     const view = s.supplyView;
     if (view && !view.stale) store.setState({ supplyView: { ...view, stale: true } });
     // A drag or keystroke shows the amplifier marked behind: the supply waits for the full pass too.

@@ -11,12 +11,6 @@ export interface AmplifierOnSupply {
   readonly feeds: readonly number[];
   /** Identical channels on the one supply (2 for stereo): each node carries every channel's stages. Default 1. */
   readonly channels?: number;
-  /**
-   * Stages solved outside the chain (a push-pull pair, until the chain holds
-   * its phase splitter), per channel: the node each draws from and its
-   * current at idle and at full power, A. Taken as constant currents.
-   */
-  readonly outsideLoads?: readonly { readonly node: number; readonly idle: number; readonly full: number }[];
 }
 
 export interface AmplifierOnSupplyResult {
@@ -89,14 +83,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   if (!Array.isArray(feeds) || feeds.length !== stages.length || !feeds.every((f) => Number.isInteger(f) && f >= 0 && f < Math.max(nodes, 1))) {
     return fail('invalid-input', `Name the supply node (1 to ${Math.max(nodes, 1)}) feeding each of the ${stages.length} stages`, 'feeds');
   }
-  const outside = Array.isArray(input.outsideLoads) ? input.outsideLoads : [];
-  if (!outside.every((l) => Number.isInteger(l?.node) && l.node >= 0 && l.node < Math.max(nodes, 1) && Number.isFinite(l.idle) && l.idle >= 0 && Number.isFinite(l.full) && l.full >= 0)) {
-    return fail('invalid-input', 'Each stage outside the chain needs a supply node and finite currents of 0 or more', 'outsideLoads');
-  }
-  const given = Array.isArray(supply.loads) ? supply.loads : [];
-  const withOutside = (pick: 'idle' | 'full') => Array.from({ length: Math.max(nodes, given.length) }, (_, k) => (given[k] ?? 0) + channels * outside.reduce((sum, l) => sum + (l.node === k ? l[pick] : 0), 0));
-  const own = withOutside('idle');
-  const ownFull = withOutside('full');
+  const own = Array.isArray(supply.loads) ? supply.loads : [];
   let volts: number[] | null = null;
   let last: { amplifier: ChainResult; supply: SupplySolution; bplus: number[] } | null = null;
   let loads: number[] = [];
@@ -120,8 +107,8 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
       const { ok: _a, ...amp } = chain;
       const { ok: _s, ...sup } = solved;
       let atFullPower: AmplifierOnSupplyResult['atFullPower'] = null;
-      if (chain.stages.some((st) => st.fullPowerCurrent !== undefined) || outside.some((l) => l.full !== l.idle)) {
-        const full = ownFull.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? (st.fullPowerCurrent ?? st.supplyCurrent) : 0), 0));
+      if (chain.stages.some((st) => st.fullPowerCurrent !== undefined)) {
+        const full = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? (st.fullPowerCurrent ?? st.supplyCurrent) : 0), 0));
         const driven = solveSupply({ ...supply, loads: full }, { start: next });
         if (!driven.ok) return driven;
         atFullPower = { volts: driven.nodes.map((n) => n.dc), loads: full };

@@ -35,20 +35,6 @@ describe('the amplifier on its supply, solved as one', () => {
     expect(r.iterations).toBeGreaterThan(1);
   });
 
-  it('a stage outside the chain (a push-pull pair) draws its idle current like a load of the supply, per channel, and its full-power current sags the nodes at full power', () => {
-    const voltage = { ...amplifier, stages: amplifier.stages.slice(0, 2) };
-    const pair = { node: 0, idle: 0.07, full: 0.1 };
-    const outside = solveOnSupply({ amplifier: voltage, supply, feeds: [2, 1], channels: 2, outsideLoads: [pair] });
-    const asLoad = solveOnSupply({ amplifier: voltage, supply: { ...supply, loads: [0.14, 0, 0] }, feeds: [2, 1], channels: 2 });
-    if (!outside.ok || !asLoad.ok) throw new Error('both solve');
-    outside.supply.nodes.forEach((n, k) => expectClose(n.dc, asLoad.supply.nodes[k]!.dc, { abs: 1e-9 }, `node ${k + 1}`));
-    // Ohm's law: at full power the reservoir carries 2 × 30 mA more; every node falls.
-    const full = outside.atFullPower!;
-    expectClose(full.loads[0]! - outside.loads[0]!, 0.06, { abs: 1e-12 }, 'full-power load');
-    full.volts.forEach((v, k) => expect(v).toBeLessThan(outside.supply.nodes[k]!.dc - 1));
-    expect(solveOnSupply({ amplifier: voltage, supply, feeds: [2, 1], outsideLoads: [{ node: 7, idle: 0.07, full: 0.1 }] }).ok).toBe(false);
-  });
-
   it('more current from the reservoir sags every node, and the input stage with them', () => {
     const light = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
     const loaded = solveOnSupply({ amplifier, supply: { ...supply, loads: [0.03, 0, 0] }, feeds: [2, 1, 0] });

@@ -15,7 +15,7 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     await browser?.close();
   });
 
-  it('is chosen, given its tubes and load, dragged, saved, reloaded and exported as a build card', async () => {
+  it('is chosen with its phase splitter, given its tubes and load, dragged, saved, reloaded and exported as a build card', async () => {
     const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
     await page.getByLabel('Output stage (transformer-coupled)').check();
     await page.getByRole('radio', { name: 'Push-pull pair' }).check();
@@ -24,10 +24,13 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     await raa.fill('8k');
     await raa.press('Tab');
     await page.waitForSelector('[data-figure="worst-pa"]');
-    // The strip ends in the pair's card, and says why the chain stops before it.
+    // The strip ends in the splitter and the pair; the whole amplifier reaches the speaker.
     const strip = page.getByRole('region', { name: 'The amplifier, stage by stage' });
-    await expect.poll(() => strip.locator('button.chain-card').last().locator('.card-title').textContent()).toBe('Output · 2 × EL84 push-pull pair');
-    expect(await strip.getByText(/needs a phase splitter/).count()).toBe(1);
+    const titles = () => strip.locator('button.chain-card .card-title').allTextContents();
+    await expect.poll(async () => (await titles()).slice(-2)).toEqual(['Splitter · 12AU7 split-load phase splitter', 'Output · EL84 push-pull output']);
+    await page.getByRole('radio', { name: 'Long-tailed pair' }).check();
+    await expect.poll(async () => (await titles()).at(-2)).toBe('Splitter · 12AU7 long-tailed pair phase splitter');
+    await expect.poll(() => strip.getByTestId('amplifier-figures').textContent()).toMatch(/Clean to\d+(\.\d+)? W/);
     // Dragged: the operating point sets the shared Rk (cathode bias) and B+.
     const rk = page.getByRole('textbox', { name: /^Rk/ });
     const rkBefore = await rk.inputValue();
@@ -43,10 +46,11 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     // The composite load line and the lone tube's line are drawn, and the path at full drive.
     expect(await page.locator('.layer-lines path[data-series="alone-load"]').count()).toBeGreaterThan(0);
     await page.locator('.chart-frame').first().screenshot({ path: 'test-results/push-pull-chart.png' });
+    await strip.screenshot({ path: 'test-results/push-pull-strip.png' });
     await page.screenshot({ path: 'test-results/push-pull.png', fullPage: true });
     // Saved in the file.
-    const file = JSON.parse((await downloadOf(page, 'Save file')).toString('utf8')) as { design: { output: { pair: string; raa: number; tubeId: string } } };
-    expect(file.design.output).toMatchObject({ pair: 'push-pull', raa: 8000, tubeId: 'EL84' });
+    const file = JSON.parse((await downloadOf(page, 'Save file')).toString('utf8')) as { design: { output: { pair: string; raa: number; tubeId: string; splitter: { kind: string } } } };
+    expect(file.design.output).toMatchObject({ pair: 'push-pull', raa: 8000, tubeId: 'EL84', splitter: { kind: 'long-tailed-pair' } });
     // Exported: the build card.
     const card = await downloadOf(page, 'Build card (PNG, A4)');
     writeFileSync('test-results/push-pull-build-card.png', card);
@@ -59,6 +63,7 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     expect(await page.getByRole('radio', { name: 'Push-pull pair' }).isChecked()).toBe(true);
     expect(await page.getByRole('textbox', { name: /^Raa/ }).inputValue()).toBe('8k');
     expect(await page.getByRole('textbox', { name: /^Rk/ }).inputValue()).toBe(rkDragged);
+    expect(await page.getByRole('radio', { name: 'Long-tailed pair' }).isChecked()).toBe(true);
     expect(errors).toEqual([]);
     await page.close();
   });

@@ -77,6 +77,9 @@ describe('the push-pull pair on the output bench', () => {
     delete old.design.output.pair;
     delete old.design.output.raa;
     delete old.design.output.mismatch;
+    delete old.design.output.splitter;
+    // Written before pairs, a driven design's RL was the output grid's resistor.
+    (old.design as Record<string, unknown>).rl = old.design.output.rg;
     const opened = readDesignFile(JSON.stringify(old));
     if (!opened.ok) throw new Error(opened.message);
     expect(opened.doc.design.output).toMatchObject({ pair: 'single-ended', raa: 2 * s.design.output.zPrimary, mismatch: 0 });
@@ -85,5 +88,36 @@ describe('the push-pull pair on the output bench', () => {
     const refused = readDesignFile(JSON.stringify(bad));
     expect(refused.ok).toBe(false);
     if (!refused.ok) expect(refused.message).toContain('design.output.raa');
+  });
+});
+
+describe('the pair in the amplifier, with its phase splitter', () => {
+  it('the driven pair joins the chain behind its splitter: the strip names both, the splitter takes RL as its grid leak, and the amplifier reaches the speaker', () => {
+    const store = pairOnBench();
+    const s = store.getState();
+    expect(s.design.drivesOutput).toBe(true);
+    const view = s.amplifier!;
+    expect(view.names.map((n) => n.role)).toEqual(['voltage', 'voltage', 'splitter', 'output']);
+    expect(view.kinds.slice(2)).toEqual(['Split-load phase splitter', 'Push-pull output']);
+    if (!view.result.ok) throw new Error(view.result.message);
+    expect(view.result.outputPower!).toBeGreaterThan(5);
+    // RL is the splitter's grid leak while the pair is driven; typing either moves the other.
+    expect(s.design.rl).toBe(s.design.output.splitter.rg);
+    s.editField('sRg', '680k');
+    expect(store.getState().design.rl).toBe(680e3);
+  });
+
+  it('switching the splitter to a long-tailed pair starts it from that kind\'s values; its parts and heaters are on the build sheet', () => {
+    const store = pairOnBench();
+    expect(store.getState().setSplitter({ kind: 'long-tailed-pair' })).toBeNull();
+    const s = store.getState();
+    expect(s.design.output.splitter).toMatchObject({ kind: 'long-tailed-pair', rk: 470, rtail: 10e3 });
+    if (!s.amplifier?.result.ok) throw new Error('the amplifier solves');
+    const sheet = buildSheetOf(s);
+    const splitter = sheet.otherStages.find((st) => st.title.startsWith('Phase splitter'))!;
+    expect(splitter.resistors.map((r) => r.ref)).toEqual(['Ras1', 'Ras2', 'Rks', 'Rtail', 'Rgs', 'Rd1', 'Rd2']);
+    // Both sections of one 12AU7 (the driver's tube is a 12AU7 too): sections counted across the amplifier.
+    const au7 = sheet.tubes.find((t) => t.tube.id === '12AU7')!;
+    expect(au7.sectionsUsed).toBe(3);
   });
 });
