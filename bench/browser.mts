@@ -82,6 +82,8 @@ export interface BrowserResults {
   readonly typingRa: Stats;
   readonly dragOutput: Stats;
   readonly dragOutputTwoTubes: Stats;
+  /** The output stage as a push-pull pair behind its phase splitter, the amplifier joined. */
+  readonly dragPushPull: Stats;
   readonly dragByCurveCount: Record<string, Stats>;
   readonly firstCurveMs: Stats;
   readonly heavyInputs: HeavyInputResults;
@@ -138,6 +140,11 @@ export async function benchBrowser(): Promise<BrowserResults> {
     await out.getByLabel('Compare with').check();
     await drag(out, 600);
     const dragOutputTwoTubes = await dragRepeated(out);
+    await out.getByLabel('Compare with').uncheck();
+    await out.getByRole('radio', { name: 'Push-pull pair' }).check();
+    await out.waitForSelector('[data-figure="worst-pa"]');
+    await drag(out, 600);
+    const dragPushPull = await dragRepeated(out);
     await out.close();
 
     // A four-stage amplifier (the demo's input stage, its driver on the bench with a follower added, the output stage):
@@ -171,7 +178,7 @@ export async function benchBrowser(): Promise<BrowserResults> {
       await fresh.close();
     }
     const heavyInputs = await benchHeavyInputs(browser, url);
-    return { heavyInputs, dragChainColdStart, dragChain, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    return { heavyInputs, dragChainColdStart, dragChain, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();

@@ -2,7 +2,7 @@ import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
-  solveAmplifier, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign, solvePushPull, pushPullAtDrive,
+  solveAmplifier, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign, solvePushPull, pushPullAtDrive, analyzePushPull, type PushPullDesign,
 } from '../src/index';
 import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 
@@ -80,7 +80,48 @@ const PUSH_PULL = solvePushPull(findOutputTube('EL34')!, {
   bias: 'fixed', rk: 0, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
 });
 
+/** The same pair as the bench drags it: its analysis once in full, then the light pass each drag frame runs. */
+const PAIR_DESIGN: PushPullDesign = {
+  tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200,
+  bias: 'fixed', rk: 0, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
+};
+const PAIR_FULL = analyzePushPull(EL34_PAIR_TUBE(), PAIR_DESIGN);
+function EL34_PAIR_TUBE() {
+  return findOutputTube('EL34')!;
+}
+let pairStep = 0;
+/** One drag frame on the pair: the bias a little different each time, the last full pass as the cache. */
+export function pushPullLightFrame(): void {
+  pairStep = (pairStep + 1) % 40;
+  const r = analyzePushPull(EL34_PAIR_TUBE(), { ...PAIR_DESIGN, vg: -40 + 0.05 * pairStep }, { light: true, previous: PAIR_FULL.ok ? PAIR_FULL : null });
+  if (!r.ok) throw new Error(r.message);
+}
+
+/** A push-pull amplifier of our own: a 12AX7 input stage, a 12AU7 long-tailed pair, EL84s ultralinear. */
+export const PUSH_PULL_AMPLIFIER: ChainInput = {
+  source: { rsource: 600 },
+  stages: [
+    { kind: 'common-cathode', tube: findTube('12AX7')!, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    { kind: 'long-tailed-pair', tube: findTube('12AU7')!, bplus: 350, ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vbias: 60, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    {
+      kind: 'push-pull-output', tube: findOutputTube('EL84')!, connection: 'ultralinear', bplus: 300, screenVolts: 300, ulTap: 0.4, raa: 8000, rPrimary: 240,
+      bias: 'cathode', rk: 130, vg: 0, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 },
+    },
+  ],
+};
+
+/** The push-pull amplifier's whole analysis with sensitivity and THD at 1 W. */
+export function pushPullAmplifier(): void {
+  const r = solveAmplifier(PUSH_PULL_AMPLIFIER, { power: 1 });
+  if (!r.ok) throw new Error(r.message);
+  if (!r.atLevel?.ok) throw new Error('no figures at 1 W');
+}
+
 export interface ModelResults {
+  /** A push-pull pair's light analysis, what each drag frame on its bench runs (budget 2 ms median). */
+  readonly pushPullLight: Stats;
+  /** Input stage → long-tailed pair → push-pull EL84s, solved whole. */
+  readonly pushPullAmplifier: Stats;
   /** A push-pull pair through one cycle at 128 points (composite characteristics, one root per point). */
   readonly pushPullCycle: Stats;
   /** A three-section supply to its steady state (budget 50 ms median). */
@@ -129,6 +170,8 @@ export function benchModel(): ModelResults {
     fourStageChain: [() => fourStageAnalysis(), 20, 5],
     supplyThreeSections: [() => solveSupply(THREE_SECTION_SUPPLY), 5, 2],
     pushPullCycle: [() => PUSH_PULL.ok && pushPullAtDrive(PUSH_PULL, 30), 20, 3],
+    pushPullLight: [() => pushPullLightFrame(), 40, 10],
+    pushPullAmplifier: [() => pushPullAmplifier(), 10, 3],
     amplifierOnSupply: [() => amplifierOnSupply(), 2, 1],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
     plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
@@ -142,5 +185,5 @@ export function benchModel(): ModelResults {
     fft16384: [() => fullAnalysis(16384), 20, 5],
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
-  return { pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

@@ -26,6 +26,8 @@ line('four-stage amplifier, whole analysis', model.fourStageChain, { value: 8, o
 line('supply, three sections, to steady state', model.supplyThreeSections, { value: 50, on: 'median' });
 line('four-stage amplifier on that supply', model.amplifierOnSupply);
 line('push-pull pair, one cycle at 128 points', model.pushPullCycle);
+line('push-pull pair, light (per drag frame)', model.pushPullLight, { value: 2, on: 'median' });
+line('push-pull amplifier (LTP → EL84s), whole', model.pushPullAmplifier);
 line('plate-curve family (sheet)', model.plateFamily);
 line('fit of 200 points', model.fit200, { value: 300, on: 'median' });
 for (const [n, s] of Object.entries(model.fftScaling)) line(`  full analysis, FFT of ${n} points`, s);
@@ -44,6 +46,7 @@ if (existsSync('/usr/bin/chromium')) {
   line('drag, stage 2 of four, cold (fresh loads)', browser.dragChainColdStart, { value: 8, on: 'p95' });
   line('drag, stage 2 of four, steady', browser.dragChain, { value: 8, on: 'p95' });
   line('drag, output stage, two tubes compared', browser.dragOutputTwoTubes, { value: 8, on: 'p95' });
+  line('drag, push-pull pair behind its splitter', browser.dragPushPull, { value: 8, on: 'p95' });
   for (const [n, s] of Object.entries(browser.dragByCurveCount)) line(`  drag with up to ${n} curves`, s);
   line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });
   console.log(`${'production JS, gzipped'.padEnd(44)} ${(browser.jsGzipBytes / 1024).toFixed(1)} kB  ${browser.jsGzipBytes <= 200 * 1024 ? 'within' : 'MISSES'} budget 200 kB`);

@@ -70,11 +70,32 @@ export function pushPullInstant(s: PushPullSolution): PushPullInstant {
         out.v2 = plateOf(s.tube2, feed, supply, -w, rHalf, g2, out.c2);
         return w - quarter * (out.c1.mmf - out.c2.mmf - offset);
       };
-      const w = bracketedRoot(residual, -supply, supply, 1e-12 * supply).x;
-      residual(w);
-      return w;
+      // Secant steps from the last instant's answer (a sine's next point is near it); the residual rises with w, so
+      // a step that does not settle within a few tries hands over to the bracketed root over the whole range.
+      const tol = 1e-9 * supply;
+      let x0 = last;
+      let f0 = residual(x0);
+      if (Math.abs(f0) > tol) {
+        let x1 = x0 + Math.max(1e-3, 1e-4 * supply);
+        let f1 = residual(x1);
+        let settled = false;
+        for (let k = 0; k < 12 && !settled; k++) {
+          const slope = (f1 - f0) / (x1 - x0);
+          if (!(slope > 0) || !Number.isFinite(slope)) break;
+          const x2 = Math.min(Math.max(x1 - f1 / slope, -supply), supply);
+          x0 = x1;
+          f0 = f1;
+          x1 = x2;
+          f1 = residual(x1);
+          settled = Math.abs(f1) <= tol;
+        }
+        last = settled ? x1 : bracketedRoot(residual, -supply, supply, 1e-12 * supply).x;
+      }
+      residual(last);
+      return last;
     },
   };
+  let last = 0;
   return out;
 }
 
