@@ -22,6 +22,7 @@ export { modelOf, recordOf } from './tube/types';
 export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
 export { gridCurrent, cutoffGridVoltage, korenParamsProblem } from './tube/koren';
 export { tubeLibrary, findTube } from './tube/library';
+export { LIBRARY_TUBE_IDS } from './tube/library/libraryIds';
 export { korenPublishedSets } from './tube/korenPublishedSets';
 export { tubeSummary, type TubeSummary } from './tube/tubeSummary';
 
@@ -115,7 +116,7 @@ export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBlee
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
 export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
-export { checkPushPull, MAX_MISMATCH, RAA_LIMITS, type PushPullDesign } from './pushpull/pushPullDesign';
+export { checkPushPull, mismatchParts, MAX_MISMATCH, RAA_LIMITS, type PushPullDesign } from './pushpull/pushPullDesign';
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
 export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';

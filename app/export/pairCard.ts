@@ -15,6 +15,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
   const o = sol.design;
   const r = sol.tube.ratings;
   const f = a.figures;
+  const plan = s.design.output;
   const [one, two] = sol.idle;
   const parts = outputPartsOf(s);
   const screen = sol.feed.kind === 'fixed' ? `screens at ${volts(o.screenVolts)}` : sol.feed.kind === 'tap' ? `screens on ${percentOf(o.ulTap)} taps` : sol.tube.law.kind === 'pentode' ? 'screens tied to plates' : 'power triodes';
@@ -22,7 +23,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
     {
       heading: 'Output stage',
       lines: [
-        `Two ${sol.tube.id} in push-pull, ${screen}, ${o.bias === 'cathode' ? `cathode bias, Rk ${ohms(o.rk)} shared (bypassed)` : `fixed bias ${volts(o.vg)}`}${o.mismatch ? `, the second tube ${percentOf(o.mismatch)} hotter (mismatch)` : ''}`,
+        `Two ${sol.tube.id} in push-pull, ${screen}, ${o.bias === 'cathode' ? `cathode bias, Rk ${ohms(o.rk)} shared (bypassed)` : `fixed bias ${volts(o.vg)}`}${plan.mismatch || plan.idleMismatch ? `, the second tube's gm ${percentOf(plan.mismatch)} and idle ${percentOf(plan.idleMismatch)} above the first's` : ''}`,
         `B+ ${volts(o.bplus)} at the centre tap, ${ohms(o.raa)} plate to plate (DCR ${ohms(o.rPrimary)}) into ${ohms(o.speakerOhms)}, turns ${plain(a.turnsRatio)} : 1`,
         'The grids are driven in antiphase: a phase splitter before the pair is needed (not yet designed here).',
       ],
@@ -30,7 +31,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
     {
       heading: 'Operating point, each tube',
       lines: [
-        `Vpk ${volts(one.vpk)}, Ia ${milliamps(one.ip)}${o.mismatch ? ` and ${milliamps(two.ip)}` : ''}, Vgk ${volts(sol.vgk)}${sol.vk > 0 ? `, Vk ${volts(sol.vk)}` : ''}`,
+        `Vpk ${volts(one.vpk)}, Ia ${milliamps(one.ip)}${plan.mismatch || plan.idleMismatch ? ` and ${milliamps(two.ip)}` : ''}, Vgk ${volts(sol.vgk)}${sol.vk > 0 ? `, Vk ${volts(sol.vk)}` : ''}`,
         `Pa ${watts(Math.max(one.pa, two.pa))} at idle (${Math.round((100 * Math.max(one.pa, two.pa)) / r.maxPlateDissipation)} % of ${r.maxPlateDissipation} W)${f ? `, worst under drive ${watts(f.worstPlate.watts)}` : ''}`,
         `B+ current ${milliamps(a.supplyCurrent.idle)} at idle, ${milliamps(a.supplyCurrent.full)} with the grids driven to 0 V`,
       ],

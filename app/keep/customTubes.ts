@@ -1,4 +1,4 @@
-import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, triode, tubeLibrary, type KorenTriodeParams, type TubeRecord, type TypicalPoint } from '../../src/index';
+import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, LIBRARY_TUBE_IDS, triode, type KorenTriodeParams, type TubeRecord, type TypicalPoint } from '../../src/index';
 import { loadKept, saveKept } from './keptTubes';
 
 /**
@@ -103,7 +103,7 @@ export function nameProblem(name: string): string | null {
   const n = name.trim();
   if (n.length === 0) return 'Give the tube a name';
   if (n.length > 40) return 'A tube name is at most 40 characters';
-  if (tubeLibrary.some((t) => t.id.toUpperCase() === n.toUpperCase())) return `“${n}” is a library tube; choose another name`;
+  if (LIBRARY_TUBE_IDS.some((id) => id.toUpperCase() === n.toUpperCase())) return `“${n}” is a library tube; choose another name`;
   return null;
 }
 

@@ -13,7 +13,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *   { "format": "quiescent-design", "version": 2, "title": "…", "savedAt": "ISO 8601",
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
- *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch,
+ *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch, idleMismatch,
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
@@ -27,7 +27,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * { kind: "follower", tubeId, rk } (direct-coupled to the gain stage before it).
  * Versions 1 and 2 open as a chain of their one or two voltage stages.
  * The output stage's `pair` ("single-ended" or "push-pull"), `raa` (the
- * pair's plate-to-plate load, Ω) and `mismatch` (fraction) came later within
+ * pair's plate-to-plate load, Ω), `mismatch` (the second tube's gm, a
+ * fraction) and `idleMismatch` (its idle current after the bias; absent,
+ * equal to `mismatch`) came later within
  * version 3: a file without them opens single-ended, as it was written;
  * so did `splitter` (the phase splitter before a driven pair; absent, the
  * bench's default).
@@ -145,6 +147,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       ...(o.pair !== undefined ? { pair: o.pair as OutputPair } : {}),
       ...(o.raa !== undefined ? { raa: o.raa as number } : {}),
       ...(o.mismatch !== undefined ? { mismatch: o.mismatch as number } : {}),
+      // Written before the two parts were told apart, a mismatch moved the idle current with the gm.
+      ...(o.idleMismatch !== undefined ? { idleMismatch: o.idleMismatch as number } : o.mismatch !== undefined ? { idleMismatch: o.mismatch as number } : {}),
       ...(o.splitter !== undefined ? { splitter: { ...(o.splitter as SplitterPlan), tubeId: knownId((o.splitter as SplitterPlan).tubeId) } } : {}),
     };
   }

@@ -72,6 +72,7 @@ export const OUTPUT_STAGE = v.object({
     pair: v.optional(oneOf(['single-ended', 'push-pull'])),
     raa: v.optional(ranged(L.output.raa)),
     mismatch: v.optional(ranged(L.output.mismatch)),
+    idleMismatch: v.optional(ranged(L.output.mismatch)),
     splitter: v.optional(
       section({
         kind: oneOf(['split-load', 'long-tailed-pair']),

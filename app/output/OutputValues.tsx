@@ -84,7 +84,8 @@ export function OutputValues() {
       <div className="value-grid">
         {o.bias === 'cathode' ? <ValueField field="oRk" {...(pushPull ? { hint: 'shared by both cathodes' } : {})} /> : <ValueField field="oVg" hint="grid supply" />}
         <ValueField field="oRg" hint={pushPull ? 'each grid\'s resistor' : 'grid resistor'} />
-        {pushPull ? <ValueField field="oMismatch" hint="second tube's current above the first's (0: matched)" /> : null}
+        {pushPull ? <ValueField field="oMismatch" hint="second tube's gm above the first's (0: matched)" /> : null}
+        {pushPull ? <ValueField field="oIdleMismatch" hint="its idle current above the first's after the bias (0: trimmed equal)" /> : null}
         <ValueField field="oSpeaker" />
         <ValueField field="oThd" hint="for the power-at-distortion figures" />
       </div>

@@ -1,6 +1,7 @@
 import { milliamps, ohms, percentOf as percent, plain, volts, watts } from '../format';
 import { Figure, Share } from '../panels/Figure';
 import type { PushPullBench } from '../store/outputAnalysis';
+import { useWorkbench } from '../store/StoreProvider';
 
 /**
  * A push-pull pair's figures: each tube's idle point against its ratings
@@ -16,6 +17,8 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
   const d = s.design;
   const r = s.tube.ratings;
   const [one, two] = s.idle;
+  const plan = useWorkbench((st) => st.design.output);
+  const mismatched = plan.mismatch !== 0 || plan.idleMismatch !== 0;
   const f = bench.light ? null : a.figures;
   const screen = s.tube.law.kind === 'pentode' && s.feed.kind !== 'tied';
   const wait = '…';
@@ -23,7 +26,7 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
     <section className="panel figures" aria-label="Push-pull output stage figures">
       <dl className="figure-group">
         <Figure name="vpk" label="Vpk (each)" value={volts(one.vpk)} chars={5.5} />
-        <Figure name="ip" label={s.feed.kind === 'tied' && s.tube.law.kind === 'pentode' ? 'Ia + Ig2 (each)' : 'Ia (each)'} value={d.mismatch ? `${milliamps(one.ip)} / ${milliamps(two.ip)}` : milliamps(one.ip)} chars={d.mismatch ? 15 : 8} />
+        <Figure name="ip" label={s.feed.kind === 'tied' && s.tube.law.kind === 'pentode' ? 'Ia + Ig2 (each)' : 'Ia (each)'} value={mismatched ? `${milliamps(one.ip)} / ${milliamps(two.ip)}` : milliamps(one.ip)} chars={mismatched ? 15 : 8} />
         <Figure name="vgk" label="Vgk" value={volts(s.vgk)} chars={7.5} />
         <Share name="pa" label="Pa (each, idle)" value={Math.max(one.pa, two.pa)} rating={r.maxPlateDissipation} meterLabel="Plate dissipation at idle, share of rating" />
         {screen && r.maxScreenDissipation !== null ? <Share name="pg2" label="Pg2 (each, idle)" value={Math.max(one.pg2, two.pg2)} rating={r.maxScreenDissipation} meterLabel="Screen dissipation at idle, share of rating" /> : null}
@@ -44,7 +47,7 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
         <Figure name="supply-current" label="B+ current idle → full" value={`${milliamps(a.supplyCurrent.idle)} → ${milliamps(a.supplyCurrent.full)}`} chars={17} />
         <Figure name="damping" label="Damping factor" value={f?.dampingFactor ? plain(f.dampingFactor, 2) : wait} chars={4} />
         <Figure name="turns" label="Turns ratio (plate to plate)" value={`${plain(a.turnsRatio, 3)} : 1`} chars={6.5} />
-        {d.mismatch ? <Figure name="imbalance" label="DC uncancelled in the core" value={milliamps(Math.abs(s.dcImbalance))} chars={8} /> : null}
+        {mismatched ? <Figure name="imbalance" label="DC uncancelled in the core" value={milliamps(Math.abs(s.dcImbalance))} chars={8} /> : null}
       </dl>
     </section>
   );

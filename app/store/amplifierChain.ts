@@ -12,6 +12,7 @@ import {
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import type { BenchDesign } from './analysis';
+import { pushPullDesignOf } from './outputPlan';
 import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
 
 /** A stage as the chain strip names it. */
@@ -72,11 +73,11 @@ export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainC
         : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, vbias: sp.vgrid, coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
-    const { tubeId: _id, rg, pair: _pair, zPrimary: _z, splitter: _sp, ...parts } = d.output;
+    const { tubeId: _id, rg, ...parts } = pushPullDesignOf(d.output);
     stages.push({ ...parts, kind: 'push-pull-output', tube: outputTube, coupling: { kind: 'capacitor', cc: sp.cc, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   } else if (outputTube) {
-    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, splitter: _sp, ...parts } = d.output;
+    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, idleMismatch: _idle, splitter: _sp, ...parts } = d.output;
     stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   }

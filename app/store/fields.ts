@@ -6,7 +6,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2'
-  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch'
+  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
@@ -103,7 +103,8 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
   oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', L.output.ulTap), show: showPercent, ...out('ulTap') },
   oRaa: { label: 'Raa', unit: 'Ω', example: '6k6', read: ranged('Plate-to-plate load', L.output.raa), show: compact, ...out('raa') },
-  oMismatch: { label: 'Pair mismatch', unit: '%', example: '5', read: percent('Pair mismatch', L.output.mismatch), show: showPercent, ...out('mismatch') },
+  oMismatch: { label: 'gm mismatch', unit: '%', example: '5', read: percent('gm mismatch', L.output.mismatch), show: showPercent, ...out('mismatch') },
+  oIdleMismatch: { label: 'Idle mismatch', unit: '%', example: '3', read: percent('Idle mismatch', L.output.mismatch), show: showPercent, ...out('idleMismatch') },
   oZ: { label: 'Primary Z', unit: 'Ω', example: '3k5', read: ranged('Primary impedance', L.output.zPrimary), show: compact, ...out('zPrimary') },
   oRpri: { label: 'Primary DCR', unit: 'Ω', example: '120', read: ranged('Primary DC resistance', L.output.rPrimary), show: compact, ...out('rPrimary') },
   oRk: { label: 'Rk', unit: 'Ω', example: '270', read: ranged('Rk', L.output.rk), show: compact, ...out('rk') },

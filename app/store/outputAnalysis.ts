@@ -51,6 +51,8 @@ const OUTPUT_FIELD_OF: Record<string, string> = {
   connection: 'outputTube',
   raa: 'oRaa',
   mismatch: 'oMismatch',
+  'mismatch.gm': 'oMismatch',
+  'mismatch.idle': 'oIdleMismatch',
 };
 
 type Options = { light?: boolean; maxCurves?: number; extent?: PlateExtent };

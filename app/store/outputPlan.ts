@@ -55,8 +55,10 @@ export interface OutputPlan extends OutputDesign {
   readonly splitter: SplitterPlan;
   /** Plate-to-plate load of the pair's transformer, Ω. */
   readonly raa: number;
-  /** The second tube's current (and gm) above the first's, a fraction; 0 for a matched pair. */
+  /** The second tube's gm (its current at every voltage) above the first's, a fraction; 0 for a matched pair. */
   readonly mismatch: number;
+  /** The second tube's idle current above the first's after the bias, a fraction (0: each side trimmed to the same idle). */
+  readonly idleMismatch: number;
 }
 
 /**
@@ -65,8 +67,8 @@ export interface OutputPlan extends OutputDesign {
  * usual step from one tube to a class AB pair of the same type (common
  * practice), and a matched pair.
  */
-export function pairDefaults(zPrimary: number): Pick<OutputPlan, 'pair' | 'raa' | 'mismatch' | 'splitter'> {
-  return { pair: 'single-ended', raa: Number((2 * zPrimary).toPrecision(2)), mismatch: 0, splitter: DEFAULT_SPLITTER };
+export function pairDefaults(zPrimary: number): Pick<OutputPlan, 'pair' | 'raa' | 'mismatch' | 'idleMismatch' | 'splitter'> {
+  return { pair: 'single-ended', raa: Number((2 * zPrimary).toPrecision(2)), mismatch: 0, idleMismatch: 0, splitter: DEFAULT_SPLITTER };
 }
 
 /** True when the voltage stages drive a push-pull pair (through its splitter). */
@@ -74,6 +76,6 @@ export const drivesPair = (d: { readonly drivesOutput: boolean; readonly output:
 
 /** The pair's design for the model: the shared values, its own load and mismatch (the single-ended primary is not its). */
 export function pushPullDesignOf(o: OutputPlan): PushPullDesign {
-  const { pair: _pair, zPrimary: _z, splitter: _s, ...pp } = o;
-  return pp;
+  const { pair: _pair, zPrimary: _z, splitter: _s, mismatch, idleMismatch, ...pp } = o;
+  return { ...pp, mismatch: { gm: mismatch, idle: idleMismatch } };
 }

@@ -47,10 +47,10 @@ export const pushPullKind: StageKind<PushPullLink> = {
     const quarter = design.raa / 4;
     const ratio = Math.sqrt(design.speakerOhms / quarter);
     const antiphase = env.antiphase ?? -1;
-    const { vgk } = solved;
+    const { vgk, vgk2 } = solved;
     const sample = (vin: number, out: LinkSample, vin2?: number) => {
       const g1 = vgk + vin;
-      const g2 = vgk + (vin2 ?? antiphase * vin);
+      const g2 = vgk2 + (vin2 ?? antiphase * vin);
       const w = instant.solve(g1, g2);
       out.vout = -w * ratio;
       out.vout2 = 0;
@@ -64,7 +64,7 @@ export const pushPullKind: StageKind<PushPullLink> = {
     const up = probe.vout;
     sample(-h, probe);
     const gain = (up - probe.vout) / (2 * h);
-    const full = pushPullDriveOf(solved, -vgk, SWEEP_SAMPLES);
+    const full = pushPullDriveOf(solved, Math.min(-vgk, -vgk2), SWEEP_SAMPLES);
     const zpp = plateToPlateImpedance(solved);
     // Each tube, linearised for the response: it sees half the plate-to-plate load while both conduct (Langford-Smith, RDH4 ch. 13).
     const series = design.raa / 2 + design.rPrimary / 2;

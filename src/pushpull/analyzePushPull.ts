@@ -77,7 +77,7 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
   const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
   const reuse = prev && prev.solution.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves && sameFeed(prev.solution.feed, s.feed, light);
   const sheet = reuse ? prev.sheet : outputSheet(tube, s.feed, extent, maxCurves);
-  const full = pushPullDriveOf(s, Math.max(0, -s.vgk), light ? SWEEP_SAMPLES : OUTPUT_SAMPLES);
+  const full = pushPullDriveOf(s, Math.max(0, Math.min(-s.vgk, -s.vgk2)), light ? SWEEP_SAMPLES : OUTPUT_SAMPLES);
   let figures: PushPullFigures | null = prev?.figures ?? null;
   if (!light) {
     const f = pushPullFigures(s);

@@ -20,11 +20,15 @@ export interface PushPullDesign extends Omit<OutputDesign, 'zPrimary'> {
   /** Cathode resistor shared by both tubes, Ω (cathode bias). */
   readonly rk: number;
   /**
-   * The second tube's current against the first's at every voltage, as a
-   * fraction above 1 (0.05: 5 % more current and 5 % more gm, as two tubes of
-   * one type differ); 0 for a matched pair.
+   * How the second tube differs from the first. A number: its current at
+   * every voltage, as a fraction above the first's (0.05: 5 % more current
+   * and 5 % more gm at the same bias, as two tubes of one type differ); 0 for
+   * a matched pair. `{ idle, gm }`: its gm (its current at every voltage,
+   * scaled) and, separately, its idle current after the bias, as when each
+   * side's bias is trimmed (idle 0: trimmed to equal idle currents, only the
+   * gm left to differ).
    */
-  readonly mismatch?: number;
+  readonly mismatch?: number | { readonly idle: number; readonly gm: number };
 }
 
 /** The plate-to-plate loads a pair may be given, Ω: each half then reflects a quarter, inside the single-ended range. */
@@ -44,6 +48,15 @@ export function checkPushPull(tube: unknown, design: unknown): Failure | null {
   // Each tube's half of the primary is a quarter of the plate-to-plate impedance: the single-ended checks apply to it.
   const asSingle = outputDesignProblem({ ...d, zPrimary: d.raa / 4 } as OutputDesign, tube as OutputTube);
   if (asSingle) return asSingle.field === 'zPrimary' ? { ...asSingle, field: 'raa' } : asSingle;
-  if (d.mismatch !== undefined) return checkNumber('mismatch', 'Mismatch', d.mismatch, '', -MAX_MISMATCH, MAX_MISMATCH);
-  return null;
+  const m = d.mismatch as unknown;
+  if (m === undefined || typeof m === 'number') return m === undefined ? null : checkNumber('mismatch', 'Mismatch', m, '', -MAX_MISMATCH, MAX_MISMATCH);
+  if (typeof m !== 'object' || m === null) return fail('invalid-input', 'Give the mismatch as a fraction or as { idle, gm }', 'mismatch');
+  const parts = m as { idle?: unknown; gm?: unknown };
+  return checkNumber('mismatch.gm', 'gm mismatch', parts.gm, '', -MAX_MISMATCH, MAX_MISMATCH) ?? checkNumber('mismatch.idle', 'Idle mismatch', parts.idle, '', -MAX_MISMATCH, MAX_MISMATCH);
+}
+
+/** The mismatch as its two parts: the second tube's gm (current at every voltage) and its idle current, fractions; null idle: as the gm leaves it. */
+export function mismatchParts(m: PushPullDesign['mismatch']): { readonly gm: number; readonly idle: number | null } {
+  if (m === undefined) return { gm: 0, idle: null };
+  return typeof m === 'number' ? { gm: m, idle: null } : { gm: m.gm, idle: m.idle };
 }

@@ -125,7 +125,7 @@ export function pushPullDriveOf(s: PushPullSolution, drive: number, n = OUTPUT_S
   let v2: number;
   for (let k = 0; k < n; k++) {
     const x = drive * Math.sin((2 * Math.PI * k) / n);
-    const w = instant.solve(vgk + x, vgk - x);
+    const w = instant.solve(vgk + x, s.vgk2 - x);
     v1 = instant.v1;
     v2 = instant.v2;
     winding[k] = w;
@@ -177,7 +177,7 @@ export function checkPushPullSolution(s: PushPullSolution): Failure | null {
   // The idle point must be one the design could have: the centre tap at most B+ above the cathode, the grid not above it
   // nor further below it than B+ (a hand-edited solution with a supply of 1e308 V made infinite figures).
   const b = s.design.bplus;
-  if (!finite(s.vgk) || !(s.vgk <= 0 && s.vgk >= -b) || !finite(s.supply) || !(s.supply > 0 && s.supply <= b) || idle.length !== 2 || !idle.every((p) => typeof p === 'object' && p !== null && finite(p.mmf) && finite(p.ip) && p.ip > 0) || !usableFeed(s.feed)) {
+  if (!finite(s.vgk) || !(s.vgk <= 0 && s.vgk >= -b) || !finite(s.vgk2) || !(s.vgk2 <= 0 && s.vgk2 >= -b) || !finite(s.supply) || !(s.supply > 0 && s.supply <= b) || idle.length !== 2 || !idle.every((p) => typeof p === 'object' && p !== null && finite(p.mmf) && finite(p.ip) && p.ip > 0) || !usableFeed(s.feed)) {
     return fail('invalid-input', 'The solution has no usable idle point: solve the stage again', 'solution');
   }
   return null;

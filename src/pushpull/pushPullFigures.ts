@@ -43,7 +43,8 @@ export interface PushPullFigures {
 export function pushPullFigures(s: PushPullSolution): Result<PushPullFigures> {
   const problem = checkPushPullSolution(s);
   if (problem) return problem;
-  const full = -s.vgk;
+  // Driven until the first grid reaches 0 V (the two differ by a trimmed side's offset).
+  const full = Math.min(-s.vgk, -s.vgk2);
   if (!(full > 0)) return fail('invalid-input', 'The grids have no negative bias: there is no drive before grid current', 'vg');
   const at = (drive: number) => pushPullDriveOf(s, drive, SWEEP_SAMPLES);
   const sweep = Array.from({ length: SWEEP_LEVELS + 1 }, (_, k) => at((full * k) / SWEEP_LEVELS));
@@ -90,7 +91,7 @@ export function plateToPlateImpedance(s: PushPullSolution): number | null {
   const net = (w: number) => {
     plateOf(s.tube, s.feed, s.supply, w, rHalf, s.vgk, c);
     const m1 = c.mmf;
-    plateOf(s.tube2, s.feed, s.supply, -w, rHalf, s.vgk, c);
+    plateOf(s.tube2, s.feed, s.supply, -w, rHalf, s.vgk2, c);
     return m1 - c.mmf;
   };
   const h = 1e-3;

@@ -75,8 +75,8 @@ function cathodeConductance(a: PushPullAnalysis): number {
   const h = 0.01;
   const sum = (dvk: number) => {
     let total = 0;
-    for (const [tube, p] of [[s.tube, s.idle[0]], [s.tube2, s.idle[1]]] as const) {
-      stageCurrentsInto(tube, s.feed, p.vpk - dvk, s.vgk - dvk, c, 0);
+    for (const [tube, p, g] of [[s.tube, s.idle[0], s.vgk], [s.tube2, s.idle[1], s.vgk2]] as const) {
+      stageCurrentsInto(tube, s.feed, p.vpk - dvk, g - dvk, c, 0);
       total += c.ik;
     }
     return total;

@@ -4,7 +4,7 @@ import { emptyCurrents, screenFeedOf, stageCurrentsInto, type ScreenFeed, type S
 import { effectiveConnection, type OutputDesign } from '../output/outputDesign';
 import type { OutputTube } from '../output/outputTube';
 import { OUTPUT_CUTOFF_A } from '../output/solveOutput';
-import { checkPushPull, type PushPullDesign } from './pushPullDesign';
+import { checkPushPull, mismatchParts, type PushPullDesign } from './pushPullDesign';
 
 /** One tube of the pair at idle. */
 export interface PushPullTubePoint {
@@ -27,8 +27,10 @@ export interface PushPullSolution {
   /** The second tube as it is (its current scaled by the mismatch). */
   readonly tube2: OutputTube;
   readonly design: PushPullDesign;
-  /** Grid to cathode at idle, V (both tubes share it). */
+  /** Grid to cathode at idle, V (the first tube's; the second's is vgk2). */
   readonly vgk: number;
+  /** The second tube's grid to cathode at idle, V: vgk, plus the offset that sets its idle current apart (a trimmed or untrimmed side). */
+  readonly vgk2: number;
   /** Cathode to ground, V (cathode bias); 0 for fixed bias. */
   readonly vk: number;
   /** The centre tap to the cathode, V. */
@@ -105,15 +107,25 @@ export function solvePushPull(tube: OutputTube, design: PushPullDesign): Result<
   const problem = checkPushPull(tube, design);
   if (problem) return problem;
   const d = design;
-  const tube2 = scaledTube(tube, d.mismatch ?? 0);
+  const mismatch = mismatchParts(d.mismatch);
+  const tube2 = scaledTube(tube, mismatch.gm);
   const rHalf = d.rPrimary / 2;
   const connection = effectiveConnection(d as unknown as OutputDesign, tube);
   const feedAt = (vk: number) => screenFeedOf(connection, d.screenVolts - vk, d.ulTap, d.bplus - vk);
+  // With the idle mismatch given apart from the gm's, the second grid sits off the first by what brings its idle
+  // current to (1 + idle) × the first's (the balance adjustment of a fixed-bias side, or a cathode-biased pair's spread).
+  const offsetAt = (feed: ScreenFeed, supply: number, g: number): number => {
+    if (mismatch.idle === null || (mismatch.idle === 0 && mismatch.gm === 0)) return 0;
+    const want = (1 + mismatch.idle) * pointOf(tube, feed, supply, rHalf, g).ik;
+    const r = bracketedRoot((x) => pointOf(tube2, feed, supply, rHalf, g + x).ik - want, -Math.max(supply, 10), Math.max(-g, 0) + 1e-9, 1e-9);
+    return r.x;
+  };
   let vk = 0;
   if (d.bias === 'cathode') {
     const excess = (x: number) => {
       const feed = feedAt(x);
-      return d.rk * (pointOf(tube, feed, d.bplus - x, rHalf, -x).ik + pointOf(tube2, feed, d.bplus - x, rHalf, -x).ik) - x;
+      const supply = d.bplus - x;
+      return d.rk * (pointOf(tube, feed, supply, rHalf, -x).ik + pointOf(tube2, feed, supply, rHalf, -x + offsetAt(feed, supply, -x)).ik) - x;
     };
     const r = bracketedRoot(excess, 0, d.bplus, VOLT_TOL * d.bplus);
     if (!r.converged && Math.abs(excess(r.x)) > 1e-6 * d.bplus) return fail('no-convergence', 'The shared cathode resistor\'s bias did not settle; try another Rk', 'rk');
@@ -122,8 +134,9 @@ export function solvePushPull(tube: OutputTube, design: PushPullDesign): Result<
   const vgk = d.bias === 'cathode' ? -vk : d.vg;
   const feed = feedAt(vk);
   const supply = d.bplus - vk;
+  const vgk2 = vgk + offsetAt(feed, supply, vgk);
   const one = pointOf(tube, feed, supply, rHalf, vgk);
-  const two = pointOf(tube2, feed, supply, rHalf, vgk);
+  const two = pointOf(tube2, feed, supply, rHalf, vgk2);
   if (!(one.ik > OUTPUT_CUTOFF_A) || !(two.ik > OUTPUT_CUTOFF_A)) {
     return fail('cutoff', d.bias === 'fixed' ? `The ${tube.id}s are cut off at ${d.vg} V grid bias: make the bias less negative` : `The ${tube.id}s are cut off with this Rk`, d.bias === 'fixed' ? 'vg' : 'rk');
   }
@@ -134,6 +147,7 @@ export function solvePushPull(tube: OutputTube, design: PushPullDesign): Result<
     tube2,
     design: d,
     vgk,
+    vgk2,
     vk,
     supply,
     idle: [one, two],

@@ -138,3 +138,24 @@ describe('push-pull output stages', () => {
     expect(checkedAtDrive({ ok: true } as never, 20)).toMatchObject({ ok: false });
   });
 });
+
+describe('a pair whose tubes differ in gm and in idle current apart', () => {
+  it('trimmed to equal idle currents, a gm mismatch leaves no DC in the core but still brings H2; an idle mismatch alone sets the currents apart as asked', () => {
+    const trimmed = pair({ ...el34, mismatch: { gm: 0.1, idle: 0 } });
+    expectClose(trimmed.idle[1].ik, trimmed.idle[0].ik, { rel: 1e-6 }, 'equal idle');
+    expect(trimmed.vgk2).toBeLessThan(trimmed.vgk); // the hotter tube biased further down
+    const matched = pushPullAtDrive(pair(el34), 20);
+    const gmOnly = pushPullAtDrive(trimmed, 20);
+    expect(gmOnly.harmonics[2]!).toBeGreaterThan(100 * matched.harmonics[2]!);
+    const idleOnly = pair({ ...el34, mismatch: { gm: 0, idle: 0.1 } });
+    expectClose(idleOnly.idle[1].ik / idleOnly.idle[0].ik, 1.1, { rel: 1e-6 }, 'idle ratio');
+    expect(Math.abs(idleOnly.dcImbalance)).toBeGreaterThan(0.003);
+    // A number is the old meaning: the second tube's current scaled at every voltage, idle included.
+    const scaled = pair({ ...el34, mismatch: 0.1 });
+    expectClose(scaled.vgk2, scaled.vgk, { abs: 0 }, 'no offset');
+    expect(checkedAtDrive(scaled, 1).ok).toBe(true);
+    const bad = solvePushPull(findOutputTube('EL34')!, { ...el34, mismatch: { gm: 0.5, idle: 0 } });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.field).toBe('mismatch.gm');
+  });
+});

@@ -18,6 +18,7 @@ const cases: { label: string; d: PushPullDesign; share: number }[] = [
   { label: 'EL34 ultralinear, fixed bias, matched, half drive', d: base, share: 0.5 },
   { label: 'EL34 ultralinear, fixed bias, matched, driven to 0 V grid', d: base, share: 1 },
   { label: 'EL34 ultralinear, 5 % mismatch', d: { ...base, mismatch: 0.05 }, share: 0.7 },
+  { label: 'EL34 ultralinear, 8 % gm mismatch, idle trimmed equal (the second grid offset)', d: { ...base, mismatch: { gm: 0.08, idle: 0 } }, share: 0.7 },
   { label: '6L6GC pentode, shared cathode resistor', d: { ...base, tubeId: '6L6GC', connection: 'pentode', bplus: 400, screenVolts: 300, bias: 'cathode', rk: 200, raa: 5000 }, share: 0.8 },
   { label: '300B pair, shared cathode resistor', d: { ...base, tubeId: '300B', connection: 'triode', bplus: 400, bias: 'cathode', rk: 470, raa: 5000, rPrimary: 150 }, share: 0.8 },
 ];
@@ -32,7 +33,7 @@ describe.runIf(run)('push-pull stages agree with ngspice', () => {
     const drive = c.share * -s.vgk;
     const ours = pushPullAtDrive(s, drive);
     if (!ours.ok) throw new Error(ours.message);
-    const sim = runNgspiceFull(pushPullNetlist(tube, c.d, drive));
+    const sim = runNgspiceFull(pushPullNetlist(tube, c.d, drive, s.vgk2 - s.vgk));
     expectClose(s.idle[0].vpk + s.vk, sim.values['v(plate1)']!, { rel: 1e-3 }, 'plate 1');
     expectClose(s.idle[1].vpk + s.vk, sim.values['v(plate2)']!, { rel: 1e-3 }, 'plate 2');
     expectClose(s.vk, sim.values['v(cathode)'] ?? 0, { rel: 1e-3, abs: 1e-6 }, 'cathode');

@@ -1,4 +1,4 @@
-import { scaledTube, type OutputTube, type PushPullDesign } from '../../src/index';
+import { mismatchParts, scaledTube, type OutputTube, type PushPullDesign } from '../../src/index';
 import { triodeSubckt } from './netlists';
 import { pentodeSubckt } from './outputNetlist';
 
@@ -23,8 +23,8 @@ function subckt(tube: OutputTube, name: string): string {
   return triodeSubckt(name, tube.law.tube.model.params);
 }
 
-export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: number): string {
-  const tube2 = scaledTube(tube, d.mismatch ?? 0);
+export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: number, offset2 = 0): string {
+  const tube2 = scaledTube(tube, mismatchParts(d.mismatch).gm);
   const pentode = tube.law.kind === 'pentode';
   const ul = d.connection === 'ultralinear' && pentode;
   const lines: string[] = ['* push-pull transformer-coupled output stage', subckt(tube, 'one'), subckt(tube2, 'two')];
@@ -43,7 +43,7 @@ export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: numbe
   const all = [...segments, 'LS'];
   all.forEach((a, i) => all.slice(i + 1).forEach((b) => lines.push(`K${a}${b} ${a} ${b} ${K}`)));
   const vbias = d.bias === 'fixed' ? d.vg : 0;
-  lines.push(`VG1 grid1 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000)`, `VG2 grid2 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000 0 0 180)`);
+  lines.push(`VG1 grid1 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000)`, `VG2 grid2 0 DC ${g(vbias + offset2)} SIN(${g(vbias + offset2)} ${g(peak)} 1000 0 0 180)`);
   // A 10 F bypass holds the cathode at its idle voltage through the run, as the model takes it (its time constant is
   // thousands of seconds; a real one's is seconds, over which a class AB stage's rising average current lifts the bias).
   lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 10` : 'VK cathode 0 DC 0');
