@@ -1,13 +1,15 @@
 import { proxy, wrap, type Remote } from 'comlink';
 import type { ModelWorkerApi } from './modelWorker';
-import { fitJob, type FitOutcome } from './fitJob';
-import { readTubesFile } from '../keep/customTubes';
+import type { FitOutcome } from './fitJob';
+import type { readTubesFile } from '../keep/customTubes';
 
 /**
  * Runs the heavy jobs off the page's thread, one at a time, each cancellable:
  * cancelling ends the worker outright (a fit cannot be interrupted from
  * outside), and the next job starts a fresh one. Where the platform has no
- * workers (tests in jsdom) the same job runs in place.
+ * workers (tests in jsdom) the same job runs in place; production builds
+ * leave that path out (every browser the workbench runs in has module
+ * workers), so the fit's code is downloaded once, in the worker.
  */
 type TubesRead = ReturnType<typeof readTubesFile>;
 
@@ -34,10 +36,15 @@ export function createOffThread(): OffThread {
       cancelPending = () => resolve('cancelled');
       job().then(resolve, reject).finally(() => (cancelPending = null));
     });
+  const inPlace = async () => {
+    if (import.meta.env.PROD) throw new Error('This browser cannot run background jobs (Web Workers): fitting and importing tubes need them.');
+    const [{ fitJob }, { readTubesFile }] = await Promise.all([import('./fitJob'), import('../keep/customTubes')]);
+    return { fitJob, readTubesFile };
+  };
   return {
     fit: (csv, typicalCsv, onProgress) =>
-      hasWorkers ? run(() => ensure().fitJob(csv, typicalCsv, proxy(onProgress))) : run(async () => fitJob(csv, typicalCsv, onProgress)),
-    readTubes: (text, maxTubes) => run<TubesRead>(hasWorkers ? () => ensure().readTubesFile(text, maxTubes) as Promise<TubesRead> : async () => readTubesFile(text, maxTubes)),
+      hasWorkers ? run(() => ensure().fitJob(csv, typicalCsv, proxy(onProgress))) : run(async () => (await inPlace()).fitJob(csv, typicalCsv, onProgress)),
+    readTubes: (text, maxTubes) => run<TubesRead>(hasWorkers ? () => ensure().readTubesFile(text, maxTubes) as Promise<TubesRead> : async () => (await inPlace()).readTubesFile(text, maxTubes)),
     cancel: () => {
       worker?.terminate();
       worker = null;
