@@ -126,3 +126,4 @@ export { pushPullOverlay, raaThrough, type PushPullOverlay } from './pushpull/pu
 export { pushPullFindings } from './pushpull/pushPullFindings';
 export { pairBiasForPoint, switchPairBias } from './pushpull/pairBias';
 export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } from './pushpull/pushPullParts';
+export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';

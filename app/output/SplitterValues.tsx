@@ -3,6 +3,7 @@ import { milliamps, plain, volts } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
 import { drivesPair } from '../store/outputPlan';
+import { SplitterChart } from './SplitterChart';
 
 /**
  * The phase splitter before a push-pull pair: its kind, tube and values, and
@@ -61,6 +62,7 @@ export function SplitterValues() {
           <div className="figure" data-figure="splitter-headroom"><dt>Headroom</dt><dd>{stage.headroomDb === null ? 'never clips' : `${stage.headroomDb.toFixed(1)} dB`}</dd></div>
         </dl>
       ) : null}
+      {driven ? <SplitterChart tubeId={sp.tubeId} ltp={ltp} /> : null}
     </fieldset>
   );
 }

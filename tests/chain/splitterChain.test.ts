@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, prepareAmplifier, pushPullAtDrive, solveAmplifier, solveCathodyne, solveLongTailedPair, solvePushPull, type ChainInput, type PushPullLink } from '../../src/index';
+import { findOutputTube, findTube, prepareAmplifier, pushPullAtDrive, solveAmplifier, solveCathodyne, solveLongTailedPair, solvePushPull, splitterPlane, type ChainInput, type PushPullLink } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own push-pull amplifier: a 12AX7 input stage, a phase splitter, and a pair of EL84s in ultralinear.
@@ -87,5 +87,23 @@ describe('phase splitters and push-pull pairs in the chain', () => {
     const badGrid = solveAmplifier({ ...cathodyne, stages: [input, { ...cathodyne.stages[1]!, vbias: 250 } as ChainInput['stages'][number], pair] });
     expect(badGrid.ok).toBe(false);
     if (!badGrid.ok) expect(badGrid.field).toBe('stages.1.vbias');
+  });
+});
+
+describe('a phase splitter on its plate curves', () => {
+  it('its operating point lies on its DC load line (B+ across Ra, the tube and Rk) and on its bias line (Vgk = Vgrid − Ia·Rk)', () => {
+    const r = solved(cathodyne);
+    const op = r.stages[1]!.op;
+    const plane = splitterPlane(findTube('12AU7')!, { kind: 'split-load', bplus: 300, ra: 22e3, rk: 22e3, rtail: 0, vgrid: 90 }, op);
+    const [top, foot] = plane.load;
+    expect(foot).toEqual({ v: 300, i: 0 });
+    // Ohm's law along the line: Vpk = B+ − Ia·(Ra + Rk).
+    expectClose(plane.point.v, 300 - plane.point.i * 44e3, { rel: 1e-9 }, 'on the load line');
+    expectClose(top!.i, 300 / 44e3, { rel: 1e-12 }, 'load line at 0 V');
+    // Between the two bias-line points that straddle the operating current, the line passes through the point.
+    const k = plane.bias.findIndex((p, j) => j + 1 < plane.bias.length && p.i <= op.ia && plane.bias[j + 1]!.i >= op.ia);
+    expect(k).toBeGreaterThanOrEqual(0);
+    const [a, b] = [plane.bias[k]!, plane.bias[k + 1]!];
+    expectClose(a.v + ((op.ia - a.i) * (b.v - a.v)) / (b.i - a.i), plane.point.v, { rel: 0.005 }, 'on the bias line');
   });
 });

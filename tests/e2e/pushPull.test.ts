@@ -47,6 +47,10 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     expect(await page.locator('.layer-lines path[data-series="alone-load"]').count()).toBeGreaterThan(0);
     await page.locator('.chart-frame').first().screenshot({ path: 'test-results/push-pull-chart.png' });
     await strip.screenshot({ path: 'test-results/push-pull-strip.png' });
+    // The splitter on its own plate curves, beside its values.
+    const splitter = page.getByRole('group', { name: 'Phase splitter' });
+    expect(await splitter.getByRole('img', { name: /Plate curves of the phase splitter's 12AU7/ }).count()).toBe(1);
+    await splitter.screenshot({ path: 'test-results/push-pull-splitter.png' });
     await page.screenshot({ path: 'test-results/push-pull.png', fullPage: true });
     // Saved in the file.
     const file = JSON.parse((await downloadOf(page, 'Save file')).toString('utf8')) as { design: { output: { pair: string; raa: number; tubeId: string; splitter: { kind: string } } } };
