@@ -5,7 +5,10 @@ import type { PlateExtent } from '../stage/plateExtent';
 import { checkCount, checkNumber } from '../stage/checkInput';
 import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
 import { outputExtent, outputSheet } from '../output/outputSheet';
-import { OUTPUT_SAMPLES, SWEEP_SAMPLES } from '../output/outputSignal';
+import { OUTPUT_SAMPLES } from '../output/outputSignal';
+
+/** Points a cycle on the light pass (a power of two, over twice the tenth harmonic). */
+const LIGHT_SAMPLES = 32;
 import type { OutputTube } from '../output/outputTube';
 import { SHEET_FEED_TOLERANCE } from '../output/analyzeOutput';
 import type { ScreenFeed } from '../output/electrodes';
@@ -77,7 +80,8 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
   const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
   const reuse = prev && prev.solution.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves && sameFeed(prev.solution.feed, s.feed, light);
   const sheet = reuse ? prev.sheet : outputSheet(tube, s.feed, extent, maxCurves);
-  const full = pushPullDriveOf(s, Math.max(0, Math.min(-s.vgk, -s.vgk2)), light ? SWEEP_SAMPLES : OUTPUT_SAMPLES);
+  // The light pass reads its cycle at 32 points: harmonics to the tenth still resolve, at half the cost a drag frame pays.
+  const full = pushPullDriveOf(s, Math.max(0, Math.min(-s.vgk, -s.vgk2)), light ? LIGHT_SAMPLES : OUTPUT_SAMPLES);
   let figures: PushPullFigures | null = prev?.figures ?? null;
   if (!light) {
     const f = pushPullFigures(s);
