@@ -7,6 +7,7 @@ import { pushPullFindings } from '../pushpull/pushPullFindings';
 import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
 import type { PushPullLink } from './chainTypes';
 import { checkCoupling, couplingImpedance } from './checkCoupling';
+import { midbandGain } from './midbandGain';
 import type { LinkSample, StageKind } from './stageKind';
 
 /** The pair's own design record, each grid's resistor being the coupling's grid leak. */
@@ -58,12 +59,7 @@ export const pushPullKind: StageKind<PushPullLink> = {
       // Cutoff of one tube is class AB, not clipping: the current reported never reaches the cutoff mark.
       out.ia = 1;
     };
-    const probe: LinkSample = { vout: 0, vgk: 0, ia: 0, vout2: 0 };
-    const h = 1e-3;
-    sample(h, probe);
-    const up = probe.vout;
-    sample(-h, probe);
-    const gain = (up - probe.vout) / (2 * h);
+    const gain = midbandGain(sample);
     const full = pushPullDriveOf(solved, Math.min(-vgk, -vgk2), SWEEP_SAMPLES);
     const zpp = plateToPlateImpedance(solved);
     // Each tube, linearised for the response: it sees half the plate-to-plate load while both conduct (Langford-Smith, RDH4 ch. 13).

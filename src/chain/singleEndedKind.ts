@@ -7,6 +7,7 @@ import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import type { SingleEndedLink } from './chainTypes';
 import { checkCoupling, couplingImpedance } from './checkCoupling';
+import { midbandGain } from './midbandGain';
 import type { LinkSample, StageKind } from './stageKind';
 
 /** d(Ik − coupled current)/dVgk at the operating point: the screen current's share that the cathode carries but the winding does not. */
@@ -60,14 +61,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       out.vgk = op.vgk + vin;
       out.ia = instant.ip;
     };
-    // The gain from the large-signal solution itself (central difference over ±1 mV): an ultralinear
-    // screen's current couples through the tap's share of the turns, which the plate's own slopes leave out.
-    const probe: LinkSample = { vout: 0, vgk: 0, ia: 0, vout2: 0 };
-    const h = 1e-3;
-    sample(h, probe);
-    const up = probe.vout;
-    sample(-h, probe);
-    const gain = (up - probe.vout) / (2 * h);
+    const gain = midbandGain(sample);
     const rLoad = (op.rp * series) / (op.rp + series);
     return {
       ok: true,

@@ -2,11 +2,11 @@ import { fail, type Result } from '../result';
 import type { CurveSheet } from '../stage/curveSheet';
 import type { Finding } from '../stage/findings';
 import type { PlateExtent } from '../stage/plateExtent';
-import { checkCount, checkNumber } from '../stage/checkInput';
 import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
 import type { ScreenFeed } from './electrodes';
 import type { OutputDesign } from './outputDesign';
 import { outputFindings } from './outputFindings';
+import { chartOptionsProblem } from './chartOptions';
 import { outputExtent, outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
 import { atDrive, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
 import type { OutputTube } from './outputTube';
@@ -70,10 +70,7 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
   const s = solved;
   const extent = options.extent ?? outputExtent(tube, design.bplus);
   const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
-  const problem =
-    checkNumber('extent', 'Chart width', extent?.vmax, 'V', 1, 20_000) ??
-    checkNumber('extent', 'Chart height', extent?.iaMax, 'A', 1e-6, 100) ??
-    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES);
+  const problem = chartOptionsProblem(extent, maxCurves);
   if (problem) return problem;
   // A previous analysis is only a cache: anything that does not look like one is ignored.
   const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;

@@ -2,8 +2,8 @@ import { fail, type Result } from '../result';
 import type { CurveSheet } from '../stage/curveSheet';
 import type { Finding } from '../stage/findings';
 import type { PlateExtent } from '../stage/plateExtent';
-import { checkCount, checkNumber } from '../stage/checkInput';
 import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
+import { chartOptionsProblem } from '../output/chartOptions';
 import { outputExtent, outputSheet } from '../output/outputSheet';
 import { OUTPUT_SAMPLES } from '../output/outputSignal';
 
@@ -71,10 +71,7 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
   const s = solved;
   const extent = options.extent ?? outputExtent(tube, design.bplus);
   const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
-  const problem =
-    checkNumber('extent', 'Chart width', extent?.vmax, 'V', 1, 20_000) ??
-    checkNumber('extent', 'Chart height', extent?.iaMax, 'A', 1e-6, 100) ??
-    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES);
+  const problem = chartOptionsProblem(extent, maxCurves);
   if (problem) return problem;
   const light = options.light ?? false;
   const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
