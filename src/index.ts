@@ -127,3 +127,4 @@ export { pushPullFindings } from './pushpull/pushPullFindings';
 export { pairBiasForPoint, switchPairBias } from './pushpull/pairBias';
 export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } from './pushpull/pushPullParts';
 export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';
+export { solveSplitter, millerInputCapacitance, type SplitterDesign, type SplitterResult, type SplitterOutput } from './splitter/solveSplitter';

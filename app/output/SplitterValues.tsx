@@ -1,9 +1,10 @@
 import { useId } from 'react';
-import { milliamps, plain, volts } from '../format';
+import { milliamps, ohms, percentOf, plain, volts } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
 import { drivesPair } from '../store/outputPlan';
 import { SplitterChart } from './SplitterChart';
+import { splitterFiguresOf } from '../store/splitterPlane';
 
 /**
  * The phase splitter before a push-pull pair: its kind, tube and values, and
@@ -23,6 +24,8 @@ export function SplitterValues() {
     return r?.ok ? r.stages.find((st) => st.kind === 'split-load' || st.kind === 'long-tailed-pair') ?? null : null;
   });
   const ltp = sp.kind === 'long-tailed-pair';
+  const figures = useWorkbench(splitterFiguresOf);
+  const rgPair = useWorkbench((s) => s.design.output.rg);
   return (
     <fieldset className="splitter-values" aria-labelledby={`${id}-h`}>
       <legend id={`${id}-h`}>Phase splitter</legend>
@@ -61,6 +64,30 @@ export function SplitterValues() {
           <div className="figure" data-figure="splitter-gain"><dt>Gain to the first output</dt><dd>{plain(stage.gain)}×</dd></div>
           <div className="figure" data-figure="splitter-headroom"><dt>Headroom</dt><dd>{stage.headroomDb === null ? 'never clips' : `${stage.headroomDb.toFixed(1)} dB`}</dd></div>
         </dl>
+      ) : null}
+      {driven && figures ? (
+        <table className="compare-table splitter-outputs" aria-label="Splitter outputs">
+          <thead>
+            <tr><th scope="col">Output</th><th scope="col">Gain</th><th scope="col">Zout</th><th scope="col">Clean peak</th></tr>
+          </thead>
+          <tbody>
+            {figures.outputs.map((o, k) => (
+              <tr key={k} data-output={k + 1}>
+                <th scope="row">{ltp ? (k === 0 ? 'First plate (inverted)' : 'Second plate (in phase)') : k === 0 ? 'Plate (inverted)' : 'Cathode (in phase)'}</th>
+                <td>{plain(o.gain)}×</td>
+                <td>{ohms(o.zout)}</td>
+                <td>{volts(o.swingPeak)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+      {driven && figures ? (
+        <p className="field-hint" data-figure="splitter-balance">
+          {`Balance ${percentOf(figures.balance)} at midband; ${figures.balanceAt.filter((b) => b.hz === 20e3 || b.hz === 100e3).map((b) => `${percentOf(b.ratio)} and ${plain(b.phaseErrorDeg, 2)}° off at ${b.hz / 1e3} kHz`).join(', ')} (each output into a pair grid's ${ohms(rgPair)} and its Miller capacitance). Clean to ${volts(figures.inputPeak)} peak at its grid (${figures.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}).`}
+          {figures.tail ? ` Tail: ${milliamps(figures.tail.current)} at ${volts(figures.tail.volts)}.` : ''}
+          {!ltp ? ' Unloaded, the plate\'s output impedance is near Ra and the cathode\'s a follower\'s: they differ greatly; equal loads keep the outputs balanced.' : ''}
+        </p>
       ) : null}
       {driven ? <SplitterChart tubeId={sp.tubeId} ltp={ltp} /> : null}
     </fieldset>

@@ -1,4 +1,4 @@
-import { splitterPlane, type SplitterPlane } from '../../src/index';
+import { millerInputCapacitance, solveSplitter, splitterPlane, type SplitterPlane, type SplitterResult } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { drivesPair } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
@@ -18,4 +18,31 @@ export function splitterPlaneOf(s: WorkbenchState): SplitterPlane | null {
   const plane = st && tube ? splitterPlane(tube, s.design.output.splitter, st.op) : null;
   memo.set(key, plane);
   return plane;
+}
+
+const figuresMemo = new WeakMap<object, Map<object, SplitterResult | null>>();
+
+/**
+ * The splitter's own figures as the pair loads it: each output into a pair
+ * grid's resistor and its input capacitance with the Miller effect (the
+ * pair's plate swing per grid volt from its last full pass), so the balance
+ * against frequency is the one the pair's grids see.
+ */
+export function splitterFiguresOf(s: WorkbenchState): SplitterResult | null {
+  const b = s.outputBench;
+  if (!drivesPair(s.design) || b.pair !== 'push-pull') return null;
+  const sp = s.design.output.splitter;
+  const byBench = figuresMemo.get(sp) ?? new Map<object, SplitterResult | null>();
+  figuresMemo.set(sp, byBench);
+  if (byBench.has(b.settled)) return byBench.get(b.settled)!;
+  const tube = lookupTube(sp.tubeId);
+  const a = b.settled;
+  // Each half's fundamental from the power into Raa/4, over the drive per grid: the plate's gain.
+  const fundamental = Math.sqrt(2 * a.full.power * (a.solution.design.raa / 4));
+  const plateGain = a.full.drive > 0 ? fundamental / a.full.drive : 0;
+  const cl = millerInputCapacitance(a.solution.tube.capacitances, plateGain);
+  const r = tube ? solveSplitter({ ...sp, tube, rl: s.design.output.rg, cl }) : null;
+  const result = r && r.ok ? r : null;
+  byBench.set(b.settled, result);
+  return result;
 }

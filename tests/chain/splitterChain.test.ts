@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, prepareAmplifier, pushPullAtDrive, solveAmplifier, solveCathodyne, solveLongTailedPair, solvePushPull, splitterPlane, type ChainInput, type PushPullLink } from '../../src/index';
+import { findOutputTube, findTube, prepareAmplifier, pushPullAtDrive, solveAmplifier, solveCathodyne, solveLongTailedPair, solvePushPull, splitterPlane, solveSplitter, millerInputCapacitance, type ChainInput, type PushPullLink } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own push-pull amplifier: a 12AX7 input stage, a phase splitter, and a pair of EL84s in ultralinear.
@@ -105,5 +105,30 @@ describe('a phase splitter on its plate curves', () => {
     expect(k).toBeGreaterThanOrEqual(0);
     const [a, b] = [plane.bias[k]!, plane.bias[k + 1]!];
     expectClose(a.v + ((op.ia - a.i) * (b.v - a.v)) / (b.i - a.i), plane.point.v, { rel: 0.005 }, 'on the bias line');
+  });
+});
+
+describe('either splitter in one shape (solveSplitter)', () => {
+  it('gives the inverted output first, then the in-phase one, as each splitter\'s own solver does; a pair\'s tail with it', () => {
+    const tube = findTube('12AU7')!;
+    const load = { rl: 470e3, cl: 200e-12 };
+    const split = solveSplitter({ kind: 'split-load', tube, bplus: 300, ra: 22e3, rk: 22e3, vgrid: 90, ...load });
+    const own = solveCathodyne({ tube, bplus: 300, ra: 22e3, rk: 22e3, rb: 0, grid: { kind: 'fixed', volts: 90 }, ...load });
+    if (!split.ok || !own.ok) throw new Error('both solve');
+    expect(split.outputs.map((o) => o.gain)).toEqual([own.gainPlate, own.gainCathode]);
+    expect(split.outputs.map((o) => o.zout)).toEqual([own.zPlate, own.zCathode]);
+    expect(split.tail).toBeNull();
+    const ltp = solveSplitter({ kind: 'long-tailed-pair', tube, bplus: 350, ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vgrid: 60, ...load });
+    const ownLtp = solveLongTailedPair({ tube, bplus: 350, ra1: 33e3, ra2: 36e3, rk: 470, tail: { kind: 'resistor', rt: 10e3 }, grid: { kind: 'fixed', volts: 60 }, ...load });
+    if (!ltp.ok || !ownLtp.ok) throw new Error('both solve');
+    expect(ltp.outputs.map((o) => o.gain)).toEqual([ownLtp.gain1, ownLtp.gain2]);
+    expect(ltp.tail).toEqual({ current: ownLtp.tailCurrent, volts: ownLtp.tailVolts });
+    const bad = solveSplitter({ kind: 'long-tailed-pair', tube, bplus: 350, ra: 33e3, rk: 470, rtail: 10e3, vgrid: 500, ...load });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.field).toBe('vgrid');
+  });
+
+  it('a grid\'s input capacitance is Cgk + Cgp·(1 + A) (the Miller effect)', () => {
+    expectClose(millerInputCapacitance({ cgk: 10e-12, cgp: 1e-12 }, -20), 31e-12, { rel: 1e-12 }, 'Cin');
   });
 });

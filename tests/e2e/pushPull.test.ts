@@ -50,6 +50,8 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     // The splitter on its own plate curves, beside its values.
     const splitter = page.getByRole('group', { name: 'Phase splitter' });
     expect(await splitter.getByRole('img', { name: /Plate curves of the phase splitter's 12AU7/ }).count()).toBe(1);
+    expect(await splitter.getByRole('table', { name: 'Splitter outputs' }).getByRole('row').count()).toBe(3);
+    expect(await splitter.locator('[data-figure="splitter-balance"]').textContent()).toMatch(/Tail: .* mA/);
     await splitter.screenshot({ path: 'test-results/push-pull-splitter.png' });
     await page.screenshot({ path: 'test-results/push-pull.png', fullPage: true });
     // Saved in the file.

@@ -5,6 +5,7 @@ import { benchPoint } from '../../../app/store/outputAnalysis';
 import { outputPartsOf } from '../../../app/store/outputParts';
 import { buildSheetOf } from '../../../app/store/buildSheet';
 import { cardSections } from '../../../app/export/buildCard';
+import { splitterFiguresOf } from '../../../app/store/splitterPlane';
 import { expectClose } from '../../helpers/expectClose';
 
 /** The demo with its output stage as a pair of EL84s on the bench. */
@@ -119,5 +120,18 @@ describe('the pair in the amplifier, with its phase splitter', () => {
     // Both sections of one 12AU7 (the driver's tube is a 12AU7 too): sections counted across the amplifier.
     const au7 = sheet.tubes.find((t) => t.tube.id === '12AU7')!;
     expect(au7.sectionsUsed).toBe(3);
+  });
+});
+
+describe('the splitter\'s own figures on the bench', () => {
+  it('each output into a pair grid\'s resistor and its Miller capacitance (above Cgk alone): gains of either sign, the balance, the clean peak', () => {
+    const store = pairOnBench();
+    const f = splitterFiguresOf(store.getState())!;
+    expect(f.outputs[0].gain).toBeLessThan(0);
+    expect(f.outputs[1].gain).toBeGreaterThan(0);
+    expect(f.balance).toBeGreaterThan(0.95);
+    expect(f.inputPeak).toBeGreaterThan(1);
+    // The balance at 100 kHz falls below midband's with the capacitance the pair's grids put on the outputs.
+    expect(f.balanceAt.find((b) => b.hz === 100e3)!.ratio).not.toBe(f.balance);
   });
 });
