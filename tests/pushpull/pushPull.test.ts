@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, pushPullAtDrive as checkedAtDrive, pushPullFigures, pushPullRaaSweep, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
+import { findOutputTube, pairBiasForPoint, pushPullAtDrive as checkedAtDrive, pushPullFigures, pushPullRaaSweep, solvePushPull, type PushPullDesign, type PushPullSolution } from '../../src/index';
 import { primaryCurrent } from '../../src/output/electrodes';
 import { expectClose } from '../helpers/expectClose';
 
@@ -157,5 +157,28 @@ describe('a pair whose tubes differ in gm and in idle current apart', () => {
     const bad = solvePushPull(findOutputTube('EL34')!, { ...el34, mismatch: { gm: 0.5, idle: 0 } });
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.field).toBe('mismatch.gm');
+  });
+});
+
+describe('class A against class AB at the same idle dissipation', () => {
+  // Common practice: a pair run into class AB gives more power than one held in class A at the same idle dissipation
+  // (class A's efficiency stops at 50 %; in class AB each tube's current swings past twice its idle).
+  it('EL34 pentodes idling at 20 W a tube: held in class A to 0 V on the grids at 220 V into 1 kΩ, several times less power than in class AB at 450 V into 6.6 kΩ', () => {
+    const tube = findOutputTube('EL34')!;
+    const at = (bplus: number, raa: number) => {
+      const d: PushPullDesign = { ...el34, connection: 'pentode', bplus, screenVolts: Math.min(bplus, 350), raa, rPrimary: 0, bias: 'fixed' };
+      const bias = pairBiasForPoint(tube, d, bplus, 20 / bplus);
+      if (!bias.ok) throw new Error(bias.message);
+      const s = pair({ ...d, vg: bias.vgk });
+      expectClose(s.idle[0].pa, 20, { rel: 1e-3 }, 'idle dissipation');
+      const f = pushPullFigures(s);
+      if (!f.ok) throw new Error(f.message);
+      return f;
+    };
+    const classA = at(220, 1000);
+    const classAB = at(450, 6600);
+    expect(classA.classABFrom).toBeNull();
+    expect(classAB.classABFrom).not.toBeNull();
+    expect(classAB.atZeroGrid.power).toBeGreaterThan(3 * classA.atZeroGrid.power);
   });
 });
