@@ -25,14 +25,19 @@ export function SplitterChart({ tubeId, ltp }: { tubeId: string; ltp: boolean })
         ...plane.sheet.family.map((c) => ({ key: `vg${c.vg}`, points: c.points.filter((p) => p.i <= iaMax * 1.05).map(mA), stroke: PALETTE.ink, width: 1 })),
         { key: 'load', points: plane.load.map(mA), stroke: PALETTE.load, width: 1.8 },
         { key: 'bias', points: plane.bias.map(mA), stroke: PALETTE.bias, width: 1.4, dash: '5 3' },
+        ...(plane.second ? [{ key: 'load2', points: plane.second.load.map(mA), stroke: PALETTE.rival, width: 1.4, dash: '8 4' }] : []),
       ],
-      markers: [{ x: plane.point.v, y: plane.point.i * 1e3, color: PALETTE.point, label: `${volts(plane.point.v)}, ${milliamps(plane.point.i)}` }],
+      markers: [
+        // A pair's two points sit close together: their values are in the table above, not on the chart.
+        { x: plane.point.v, y: plane.point.i * 1e3, color: PALETTE.point, ...(plane.second ? {} : { label: `${volts(plane.point.v)}, ${milliamps(plane.point.i)}` }) },
+        ...(plane.second ? [{ x: plane.second.point.v, y: plane.second.point.i * 1e3, color: PALETTE.rival }] : []),
+      ],
     };
   }, [plane]);
   if (!spec) return null;
   return (
     <MiniChart
-      title={`${tubeId} ${ltp ? '(first triode of the pair)' : 'split-load'}: DC load line (solid), bias line (dashed), operating point`}
+      title={`${tubeId} ${ltp ? 'long-tailed pair: each triode\'s DC load line (the second green, long-dashed), the bias line (dashed), both points (the second green)' : 'split-load: DC load line (solid), bias line (dashed), operating point'}`}
       spec={spec}
       description={`Plate curves of the phase splitter's ${tubeId} with its DC load line, bias line and operating point`}
     />

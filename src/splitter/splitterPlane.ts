@@ -31,6 +31,8 @@ export interface SplitterPlane {
   readonly load: readonly PlanePoint[];
   readonly bias: readonly PlanePoint[];
   readonly point: PlanePoint;
+  /** A long-tailed pair's second triode: its own load line (Ra2) and point; the bias line is the first's (one grid voltage, one cathode). Null for the split-load. */
+  readonly second: { readonly load: readonly PlanePoint[]; readonly point: PlanePoint } | null;
 }
 
 export interface SplitterPlaneDesign {
@@ -43,6 +45,8 @@ export interface SplitterPlaneDesign {
   readonly rtail: number;
   /** The grid's DC voltage to ground, V. */
   readonly vgrid: number;
+  /** The long-tailed pair's second plate resistor, Ω. */
+  readonly ra2?: number;
 }
 
 /**
@@ -54,13 +58,17 @@ export interface SplitterPlaneDesign {
  * (a balanced pair): slope −1/(Ra + 2(Rk + Rt)) and Vgk = Vgrid − 2·Ia·(Rk + Rt).
  * The point is the one the amplifier solved.
  */
-export function splitterPlane(tube: TubeLike, d: SplitterPlaneDesign, op: { readonly va: number; readonly vk: number; readonly ia: number }): SplitterPlane {
+type Point = { readonly va: number; readonly vk: number; readonly ia: number };
+
+export function splitterPlane(tube: TubeLike, d: SplitterPlaneDesign, op: Point, op2?: Point): SplitterPlane {
   const sheet = curveSheet(tube, d.bplus);
   const cathode = Math.max(d.kind === 'split-load' ? d.rk : 2 * (d.rk + d.rtail), 1);
+  const second = d.kind === 'long-tailed-pair' && op2 ? { load: dcLoadLine(d.bplus, (d.ra2 ?? d.ra) + cathode), point: { v: op2.va - op2.vk, i: op2.ia } } : null;
   return {
     sheet,
     load: dcLoadLine(d.bplus, d.ra + cathode),
     bias: gridBiasLine(tube, cathode, d.vgrid, sheet.extent.vmax),
     point: { v: op.va - op.vk, i: op.ia },
+    second,
   };
 }

@@ -5,7 +5,7 @@ import { benchPoint } from '../../../app/store/outputAnalysis';
 import { outputPartsOf } from '../../../app/store/outputParts';
 import { buildSheetOf } from '../../../app/store/buildSheet';
 import { cardSections } from '../../../app/export/buildCard';
-import { splitterFiguresOf } from '../../../app/store/splitterPlane';
+import { splitterFiguresOf, splitterPlaneOf } from '../../../app/store/splitterPlane';
 import { expectClose } from '../../helpers/expectClose';
 
 /** The demo with its output stage as a pair of EL84s on the bench. */
@@ -133,5 +133,20 @@ describe('the splitter\'s own figures on the bench', () => {
     expect(f.inputPeak).toBeGreaterThan(1);
     // The balance at 100 kHz falls below midband's with the capacitance the pair's grids put on the outputs.
     expect(f.balanceAt.find((b) => b.hz === 100e3)!.ratio).not.toBe(f.balance);
+  });
+});
+
+describe('the splitter\'s chart', () => {
+  it('a long-tailed pair shows its second triode too (its own load line and point); a split-load stage has one', () => {
+    const store = pairOnBench();
+    expect(splitterPlaneOf(store.getState())!.second).toBeNull();
+    store.getState().setSplitter({ kind: 'long-tailed-pair' });
+    const s = store.getState();
+    const plane = splitterPlaneOf(s)!;
+    const op2 = splitterFiguresOf(s)!.op[1]!;
+    expect(plane.second!.point).toEqual({ v: op2.va - op2.vk, i: op2.ia });
+    // Its line starts from B+ at no current, and is steeper than the first's by the larger second plate resistor.
+    expect(plane.second!.load[1]).toEqual({ v: s.design.output.splitter.bplus, i: 0 });
+    expect(plane.second!.load[0]!.i).toBeLessThan(plane.load[0]!.i);
   });
 });
