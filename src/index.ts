@@ -128,3 +128,4 @@ export { pairBiasForPoint, switchPairBias } from './pushpull/pairBias';
 export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } from './pushpull/pushPullParts';
 export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';
 export { solveSplitter, millerInputCapacitance, type SplitterDesign, type SplitterResult, type SplitterOutput } from './splitter/solveSplitter';
+export { compositeCurves } from './pushpull/compositeCurves';

@@ -21,6 +21,8 @@ export const PALETTE = {
   pointWash: 'rgba(194, 94, 0, 0.28)',
   /** The second tube in a comparison. */
   rival: '#2f6b3a',
+  /** A push-pull pair's composite characteristics. */
+  composite: '#8a5a14',
 } as const;
 
 /** Line styles of the ratings limits, drawn and keyed from this one place. */

@@ -1,4 +1,5 @@
-import type { PlanePoint } from '../stage/planeSeries';
+import type { PlanePoint, PlateCurve } from '../stage/planeSeries';
+import { compositeCurves } from './compositeCurves';
 import type { PlateExtent } from '../stage/plateExtent';
 import type { OutputOverlay } from '../output/outputSheet';
 import { emptyCurrents } from '../output/electrodes';
@@ -20,10 +21,14 @@ const PATH_POINTS = 64;
  * - `swing`: the path the tube really takes at the drive given, solved instant
  *   by instant with its partner (it bends from the first line toward the
  *   second as the partner cuts off);
- * - `dcLoad`: the primary's half, nearly vertical.
+ * - `dcLoad`: the primary's half, nearly vertical;
+ * - `composite`: the pair's composite characteristics, whose load line is
+ *   `alone` (Raa/4 through the centre tap).
  */
 export interface PushPullOverlay extends OutputOverlay {
   readonly alone: readonly PlanePoint[];
+  /** The composite characteristics (compositeCurves), their load line being `alone`. */
+  readonly composite: readonly PlateCurve[];
 }
 
 /** A line through (v0, i0) with slope −1/r, from the top of the window to zero current. */
@@ -42,7 +47,7 @@ export function pushPullOverlay(s: PushPullSolution, extent: PlateExtent, drive:
   const alone = lineThrough(s.supply, 0, s.design.raa / 4 + rHalf, top);
   const right = acLoad[1]!;
   const loadHandle = { v: vpk + 0.6 * (right.v - vpk), i: ip + 0.6 * (right.i - ip) };
-  return { dcLoad, acLoad, alone, point: { v: vpk, i: ip }, loadHandle, swing: pathOf(s, drive) };
+  return { dcLoad, acLoad, alone, composite: compositeCurves(s, extent), point: { v: vpk, i: ip }, loadHandle, swing: pathOf(s, drive) };
 }
 
 /** Tube 1's plate voltage and charted current over the cycle the drive's winding signal describes. */

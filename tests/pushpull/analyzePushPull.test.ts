@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzePushPull, findOutputTube, raaThrough, type PushPullDesign } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { primaryCurrent } from '../../src/output/electrodes';
 
 // Our own designs.
 const el84: PushPullDesign = {
@@ -77,5 +78,29 @@ describe('the push-pull bench analysis', () => {
     if (!bad.ok) expect(bad.field).toBe('raa');
     const options = analyzePushPull(findOutputTube('EL84')!, el84, { maxCurves: 0 });
     expect(options.ok).toBe(false);
+  });
+});
+
+describe('the pair\'s composite characteristics', () => {
+  // Langford-Smith, RDH4 ch. 13: at the bias the composite curve passes through the centre tap's voltage at zero net
+  // current, and its slope there is that of the two tubes in parallel (the composite plate resistance rp/2).
+  it('at the bias the curve crosses zero at the centre tap, with the slope of both tubes in parallel; more drive lifts it', () => {
+    const matched: PushPullDesign = { ...el84, connection: 'triode', rPrimary: 0, bias: 'fixed', vg: -12 };
+    const a = analysed(matched);
+    const s = a.solution;
+    const [atBias, driven] = [a.overlay.composite[0]!, a.overlay.composite[1]!];
+    expect(atBias.vg).toBeCloseTo(s.vgk, 12);
+    // The net current rises with tube 1's plate voltage: the curve starts where it reaches zero, at the centre tap.
+    const step = (2 * s.supply) / 48;
+    expect(Math.abs(atBias.points[0]!.v - s.supply)).toBeLessThanOrEqual(step);
+    // One tube's plate conductance, by a central difference; the composite's is twice it.
+    const tube = findOutputTube('EL84')!;
+    const h = 0.5;
+    const [p0, p1] = [atBias.points[0]!, atBias.points[1]!];
+    const slope = (p1.i - p0.i) / (p1.v - p0.v);
+    const gOne = (primaryCurrent(tube, s.feed, s.idle[0].vpk + h, s.vgk) - primaryCurrent(tube, s.feed, s.idle[0].vpk - h, s.vgk)) / (2 * h);
+    expectClose(slope, 2 * gOne, { rel: 0.1 }, 'composite conductance');
+    // More drive on tube 1 (and less on tube 2) brings the zero crossing below the centre tap.
+    expect(driven.points[0]!.v).toBeLessThan(atBias.points[0]!.v);
   });
 });
