@@ -2,7 +2,7 @@ import type { Result } from '../result';
 import { biasForPoint, MIN_RK, type BiasAnswer } from '../output/outputBias';
 import type { OutputDesign } from '../output/outputDesign';
 import type { OutputTube } from '../output/outputTube';
-import type { PushPullDesign } from './pushPullDesign';
+import { checkPushPull, type PushPullDesign } from './pushPullDesign';
 import type { PushPullSolution } from './solvePushPull';
 
 /** The pair's design as one of its tubes sees it at DC: its half of the primary, its quarter of the load. */
@@ -17,6 +17,8 @@ function oneTube(d: PushPullDesign): OutputDesign {
  * the one a single tube would need (Ohm's law).
  */
 export function pairBiasForPoint(tube: OutputTube, d: PushPullDesign, vpk: number, ip: number): Result<BiasAnswer> {
+  const problem = checkPushPull(tube, d);
+  if (problem) return problem;
   const b = biasForPoint(tube, oneTube(d), vpk, ip);
   if (!b.ok) return b;
   return { ...b, rk: b.rk / 2, ik: 2 * b.ik };

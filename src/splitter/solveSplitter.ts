@@ -93,5 +93,10 @@ export function solveSplitter(design: SplitterDesign): Result<SplitterResult> {
  * one plus the grid-to-plate voltage gain (Miller, 1920).
  */
 export function millerInputCapacitance(caps: { readonly cgk: number; readonly cgp: number }, plateGain: number): number {
-  return caps.cgk + caps.cgp * (1 + Math.abs(plateGain));
+  // A record without capacitances (a user's tube may have none) adds none; beyond a microfarad or a gain of a
+  // million nothing is a tube's, and holding them there keeps the answer finite for any finite input.
+  const part = (x: unknown) => (typeof x === 'number' && Number.isFinite(x) && x > 0 ? Math.min(x, 1e-6) : 0);
+  const c = (typeof caps === 'object' && caps !== null ? caps : {}) as { cgk?: unknown; cgp?: unknown };
+  const gain = Number.isNaN(plateGain) ? plateGain : Math.min(Math.abs(plateGain), 1e6);
+  return part(c.cgk) + part(c.cgp) * (1 + gain);
 }

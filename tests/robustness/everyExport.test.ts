@@ -138,6 +138,20 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveCathodyne', fc.tuple(fc.oneof(near({ tube: au7, bplus: 350, ra: 22e3, rk: 21e3, rb: 1e3, grid: { kind: 'tap' }, rl: 470e3, cl: 50e-12 }), near({ tube: au7, bplus: 350, ra: 22e3, rk: 22e3, rb: 0, grid: { kind: 'fixed', volts: 100 } }))), Q.solveCathodyne);
   run('solveLongTailedPair', fc.tuple(fc.oneof(near({ tube: au7, bplus: 400, ra1: 47e3, ra2: 47e3, rk: 820, tail: { kind: 'resistor', rt: 22e3 }, grid: { kind: 'tap' }, rl: 220e3 }), near({ tube: au7, bplus: 400, ra1: 47e3, ra2: 47e3, rk: 0, tail: { kind: 'current', amps: 0.008 }, grid: { kind: 'fixed', volts: 100 } }))), Q.solveLongTailedPair, 100);
   run('pushPullRaaSweep', fc.tuple(outTubes, near(ppDesign), or(fc.constantFrom(2, 3, 30))), Q.pushPullRaaSweep, 10);
+  run('solvePushPull (two-part mismatch)', fc.tuple(outTubes, near({ ...ppDesign, bias: 'cathode', mismatch: { gm: 0.08, idle: 0 } })), Q.solvePushPull, 80);
+  run('analyzePushPull (light)', fc.tuple(outTubes, fc.oneof(near(ppDesign), near({ ...ppDesign, mismatch: { gm: 0.05, idle: 0.02 } })), near({ light: true })), Q.analyzePushPull, 60);
+  run('pairBiasForPoint', fc.tuple(outTubes, near(ppDesign), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.pairBiasForPoint, 150);
+  run('switchPairBias', fc.tuple(fc.constant(solvedPP), fc.constantFrom('cathode', 'fixed')), (s: typeof solvedPP, to: 'cathode' | 'fixed') => (s.ok ? Q.switchPairBias(s, to) : null), 5);
+  run('raaThrough', fc.tuple(fc.constant(solvedPP), numbers, numbers), (s: typeof solvedPP, v: number, i: number) => (s.ok ? Q.raaThrough(s, v, i) : null), 100);
+  run('solveSplitter', fc.tuple(fc.oneof(
+    near({ kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vgrid: 90, rl: 470e3, cl: 100e-12 }),
+    near({ kind: 'long-tailed-pair', tube: au7, bplus: 350, ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vgrid: 60, rl: 470e3 }),
+  )), Q.solveSplitter, 150);
+  run('millerInputCapacitance', fc.tuple(near({ cgk: 10e-12, cgp: 1e-12 }), numbers), Q.millerInputCapacitance);
+  const splitLoad = { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } };
+  const ltp = { kind: 'long-tailed-pair', tube: au7, bplus: 350, ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vbias: 60, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } };
+  const pairStage = { ...ppDesign, kind: 'push-pull-output', tube: el34, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } };
+  run('solveChain (push-pull)', fc.tuple(fc.tuple(near(chainStages[0]!), fc.oneof(near(splitLoad), near(ltp)), near(pairStage)).map(([a, b, c]) => ({ source: { rsource: 600 }, stages: [a, b, c] }))), Q.solveChain, 40);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
