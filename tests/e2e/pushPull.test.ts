@@ -54,6 +54,10 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     expect(await splitter.locator('[data-figure="splitter-balance"]').textContent()).toMatch(/Tail: .* mA/);
     await splitter.screenshot({ path: 'test-results/push-pull-splitter.png' });
     await page.screenshot({ path: 'test-results/push-pull.png', fullPage: true });
+    // Printed, for the bench notes.
+    await page.emulateMedia({ media: 'print' });
+    await page.pdf({ format: 'A4', printBackground: true, path: 'test-results/print-push-pull.pdf' });
+    await page.emulateMedia({ media: 'screen' });
     // Saved in the file.
     const file = JSON.parse((await downloadOf(page, 'Save file')).toString('utf8')) as { design: { output: { pair: string; raa: number; tubeId: string; splitter: { kind: string } } } };
     expect(file.design.output).toMatchObject({ pair: 'push-pull', raa: 8000, tubeId: 'EL84', splitter: { kind: 'long-tailed-pair' } });
