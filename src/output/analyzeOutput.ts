@@ -1,13 +1,12 @@
-import { fail, type Result } from '../result';
+import type { Result } from '../result';
 import type { CurveSheet } from '../stage/curveSheet';
 import type { Finding } from '../stage/findings';
 import type { PlateExtent } from '../stage/plateExtent';
-import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
 import type { ScreenFeed } from './electrodes';
 import type { OutputDesign } from './outputDesign';
 import { outputFindings } from './outputFindings';
-import { chartOptionsProblem } from './chartOptions';
-import { outputExtent, outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
+import { chartOptionsOf } from './chartOptions';
+import { outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
 import { atDrive, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
 import type { OutputTube } from './outputTube';
 import { powerAtDistortion, powerSweep, zPrimarySweep, type LimitedPower, type ZSweep } from './powerSweep';
@@ -63,15 +62,13 @@ export interface OutputAnalysisOptions {
  * ideal apart from its primary resistance.
  */
 export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiven: OutputAnalysisOptions | null = {}): Result<OutputAnalysis> {
-  if (optionsGiven !== null && optionsGiven !== undefined && typeof optionsGiven !== 'object') return fail('invalid-input', 'Analysis options must be an object or left out');
-  const options = optionsGiven ?? {};
   const solved = solveOutput(tube, design);
   if (!solved.ok) return solved;
   const s = solved;
-  const extent = options.extent ?? outputExtent(tube, design.bplus);
-  const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
-  const problem = chartOptionsProblem(extent, maxCurves);
-  if (problem) return problem;
+  const chart = chartOptionsOf(optionsGiven, tube, design.bplus);
+  if (!chart.ok) return chart;
+  const { extent, maxCurves } = chart;
+  const options: typeof chart.options & Partial<NonNullable<typeof optionsGiven>> = chart.options;
   // A previous analysis is only a cache: anything that does not look like one is ignored.
   const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
   // On the light pass (a drag) the sheet is kept while the screen feed's kind is unchanged: the curves

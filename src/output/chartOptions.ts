@@ -1,13 +1,29 @@
 import { checkCount, checkNumber } from '../stage/checkInput';
 import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
 import type { PlateExtent } from '../stage/plateExtent';
-import type { Failure } from '../result';
+import { fail, type Result } from '../result';
+import { outputExtent } from './outputSheet';
+import type { OutputTube } from './outputTube';
 
-/** An output stage's chart window and curve count as an analysis is asked for them: the first unusable one, or null. */
-export function chartOptionsProblem(extent: PlateExtent | undefined, maxCurves: number): Failure | null {
-  return (
+/** What an output stage's analysis takes besides the design: its chart window and curve count. */
+export interface ChartOptions {
+  readonly extent?: PlateExtent;
+  readonly maxCurves?: number;
+}
+
+/**
+ * An output analysis's options as given (an object, or left out), with the
+ * chart window (the tube's at this B+ unless given) and the curve count
+ * checked: the options, window and count to use, or the first unusable one.
+ */
+export function chartOptionsOf<O extends ChartOptions>(given: O | null | undefined, tube: OutputTube, bplus: number): Result<{ readonly options: O | Record<string, never>; readonly extent: PlateExtent; readonly maxCurves: number }> {
+  if (given !== null && given !== undefined && typeof given !== 'object') return fail('invalid-input', 'Analysis options must be an object or left out');
+  const options = given ?? {};
+  const extent = (options as ChartOptions).extent ?? outputExtent(tube, bplus);
+  const maxCurves = (options as ChartOptions).maxCurves ?? MAX_FAMILY_CURVES;
+  const problem =
     checkNumber('extent', 'Chart width', extent?.vmax, 'V', 1, 20_000) ??
     checkNumber('extent', 'Chart height', extent?.iaMax, 'A', 1e-6, 100) ??
-    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES)
-  );
+    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES);
+  return problem ?? { ok: true, options, extent, maxCurves };
 }

@@ -1,14 +1,10 @@
-import { fail, type Result } from '../result';
+import type { Result } from '../result';
 import type { CurveSheet } from '../stage/curveSheet';
 import type { Finding } from '../stage/findings';
 import type { PlateExtent } from '../stage/plateExtent';
-import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
-import { chartOptionsProblem } from '../output/chartOptions';
-import { outputExtent, outputSheet } from '../output/outputSheet';
+import { chartOptionsOf } from '../output/chartOptions';
+import { outputSheet } from '../output/outputSheet';
 import { OUTPUT_SAMPLES } from '../output/outputSignal';
-
-/** Points a cycle on the light pass (a power of two, over twice the tenth harmonic). */
-const LIGHT_SAMPLES = 32;
 import type { OutputTube } from '../output/outputTube';
 import { SHEET_FEED_TOLERANCE } from '../output/analyzeOutput';
 import type { ScreenFeed } from '../output/electrodes';
@@ -18,6 +14,9 @@ import { pushPullFigures, type PushPullFigures } from './pushPullFigures';
 import { pushPullFindings } from './pushPullFindings';
 import { pushPullOverlay, type PushPullOverlay } from './pushPullOverlay';
 import { solvePushPull, type PushPullSolution } from './solvePushPull';
+
+/** Points a cycle on the light pass (a power of two, over twice the tenth harmonic). */
+const LIGHT_SAMPLES = 32;
 
 export interface PushPullAnalysis {
   readonly solution: PushPullSolution;
@@ -64,15 +63,13 @@ function sameFeed(a: ScreenFeed, b: ScreenFeed, light: boolean): boolean {
  * dissipation, damping factor) that the findings check against the ratings.
  */
 export function analyzePushPull(tube: OutputTube, design: PushPullDesign, optionsGiven: PushPullAnalysisOptions | null = {}): Result<PushPullAnalysis> {
-  if (optionsGiven !== null && optionsGiven !== undefined && typeof optionsGiven !== 'object') return fail('invalid-input', 'Analysis options must be an object or left out');
-  const options = optionsGiven ?? {};
   const solved = solvePushPull(tube, design);
   if (!solved.ok) return solved;
   const s = solved;
-  const extent = options.extent ?? outputExtent(tube, design.bplus);
-  const maxCurves = options.maxCurves ?? MAX_FAMILY_CURVES;
-  const problem = chartOptionsProblem(extent, maxCurves);
-  if (problem) return problem;
+  const chart = chartOptionsOf(optionsGiven, tube, design.bplus);
+  if (!chart.ok) return chart;
+  const { extent, maxCurves } = chart;
+  const options: typeof chart.options & Partial<NonNullable<typeof optionsGiven>> = chart.options;
   const light = options.light ?? false;
   const prev = typeof options.previous?.solution === 'object' && typeof options.previous?.sheet?.extent === 'object' ? options.previous : undefined;
   const reuse = prev && prev.solution.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves && sameFeed(prev.solution.feed, s.feed, light);
