@@ -14,7 +14,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
  *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch, idleMismatch,
- *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc } }, drivesOutput,
+ *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
  *                 before: [stage…], after: [stage…] } }
@@ -149,15 +149,17 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       ...(o.mismatch !== undefined ? { mismatch: o.mismatch as number } : {}),
       // Written before the two parts were told apart, a mismatch moved the idle current with the gm.
       ...(o.idleMismatch !== undefined ? { idleMismatch: o.idleMismatch as number } : o.mismatch !== undefined ? { idleMismatch: o.mismatch as number } : {}),
-      ...(o.splitter !== undefined ? { splitter: { ...(o.splitter as SplitterPlan), tubeId: knownId((o.splitter as SplitterPlan).tubeId) } } : {}),
+      // A splitter written before its coupling could be chosen was capacitor-coupled.
+      ...(o.splitter !== undefined ? { splitter: { ...(o.splitter as SplitterPlan), coupling: (o.splitter as Partial<SplitterPlan>).coupling ?? 'capacitor', tubeId: knownId((o.splitter as SplitterPlan).tubeId) } } : {}),
     };
   }
   const joinProblem = firstProblem(JOIN, d, 'design');
   if (joinProblem) return { ok: false, message: joinProblem };
   const drivesOutput = d.drivesOutput === true;
   const pairDriven = output.pair === 'push-pull';
-  const leak = pairDriven ? output.splitter.rg : output.rg;
-  if (drivesOutput && d.rl !== leak) {
+  const leak = pairDriven ? (output.splitter.coupling === 'direct' ? Infinity : output.splitter.rg) : output.rg;
+  if (drivesOutput && (d.rl === null ? Infinity : d.rl) !== leak) {
+    if (leak === Infinity) return { ok: false, message: `design.rl must be null when the voltage stages drive a direct-coupled splitter (found ${quote(d.rl)}). Nothing was opened.` };
     const path = pairDriven ? 'design.output.splitter.rg' : 'design.output.rg';
     return { ok: false, message: `design.rl must equal ${path} when the voltage stages drive the output stage (found ${quote(d.rl)} and ${quote(leak)}). Nothing was opened.` };
   }

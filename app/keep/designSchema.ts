@@ -85,6 +85,7 @@ export const OUTPUT_STAGE = v.object({
         vgrid: ranged(L.splitter.vgrid),
         rg: ranged(L.splitter.rg),
         cc: ranged(L.splitter.cc),
+        coupling: v.optional(oneOf(['capacitor', 'direct'])),
       }),
     ),
   }),

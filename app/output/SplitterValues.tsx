@@ -42,6 +42,9 @@ export function SplitterValues() {
           {tubes.map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
         </select>
       </div>
+      <label className="option-row">
+        <input type="checkbox" checked={sp.coupling === 'direct'} onChange={(e) => setSplitter({ coupling: e.currentTarget.checked ? 'direct' : 'capacitor' })} /> Direct-coupled: its grid at the last voltage stage&apos;s plate (no coupling capacitor, leak or divider)
+      </label>
       {error ? <p className="field-error" role="alert">{error}</p> : null}
       <p className="field-hint">
         {ltp
@@ -54,8 +57,8 @@ export function SplitterValues() {
         {ltp ? <ValueField field="sRa2" hint="second plate" /> : null}
         <ValueField field="sRk" hint={ltp ? 'shared bias, over the tail' : 'cathode load'} />
         {ltp ? <ValueField field="sRtail" hint="to ground" /> : null}
-        <ValueField field="sVgrid" hint="grid DC, from a divider" />
-        <ValueField field="sRg" hint="grid leak (RL of the stage before)" />
+        {sp.coupling === 'direct' ? null : <ValueField field="sVgrid" hint="grid DC, from a divider" />}
+        {sp.coupling === 'direct' && !ltp ? null : <ValueField field="sRg" hint={sp.coupling === 'direct' ? 'the second grid\'s leak' : 'grid leak (RL of the stage before)'} />}
         <ValueField field="sCc" hint="into each output grid" />
       </div>
       {driven && stage ? (

@@ -105,10 +105,14 @@ function SplitterCell({ x0, cc, sp }: { x0: number; cc: number | null; sp: Split
     <>
       <Coupling x0={x0} cc={cc} />
       <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
-      <Dot x={x0 + RG_X} y={GRID} />
-      <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
-      {label(x0 + RG_X + 11, GRID + 32, ohms(sp.rg))}
-      {label(x0 + RG_X, GROUND + 4, `to ${volts(sp.vgrid)}`, 'middle')}
+      {sp.coupling === 'capacitor' && (
+        <>
+          <Dot x={x0 + RG_X} y={GRID} />
+          <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
+          {label(x0 + RG_X + 11, GRID + 32, ohms(sp.rg))}
+          {label(x0 + RG_X, GROUND + 4, `to ${volts(sp.vgrid)}`, 'middle')}
+        </>
+      )}
       <Triode cx={cx} cy={GRID} r={r} />
       <Wire points={[[x0, RAIL], [x0 + WIDTH.splitter, RAIL]]} />
       <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
@@ -214,7 +218,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   if (pair) x += WIDTH.splitter;
   const splitter = pair ? (
     <Cell key="splitter" x0={splitterX} width={WIDTH.splitter} onBench={design.stageKind === 'output'} name={`Phase splitter, ${o.splitter.tubeId} ${o.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'}`} tubeId={o.splitter.tubeId} onOpen={() => setStageKind('output')}>
-      <SplitterCell x0={splitterX} cc={design.cout} sp={o.splitter} />
+      <SplitterCell x0={splitterX} cc={o.splitter.coupling === 'direct' ? null : design.cout} sp={o.splitter} />
     </Cell>
   ) : null;
   const end = design.drivesOutput ? (

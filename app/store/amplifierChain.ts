@@ -66,11 +66,14 @@ export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainC
     const sp = d.output.splitter;
     const splitterTube = lookupTube(sp.tubeId);
     if (!splitterTube) return null;
-    const into = { kind: 'capacitor' as const, cc: d.cout ?? IDEAL_CC, rg: sp.rg };
+    // Direct: the grid sits at the last plate's voltage (no leak, no divider); else through Cout into its leak, held at vgrid.
+    const direct = sp.coupling === 'direct';
+    const into = direct ? { kind: 'direct' as const } : { kind: 'capacitor' as const, cc: d.cout ?? IDEAL_CC, rg: sp.rg };
+    const grid = direct ? {} : { vbias: sp.vgrid };
     stages.push(
       sp.kind === 'split-load'
-        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, vbias: sp.vgrid, coupling: into }
-        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, vbias: sp.vgrid, coupling: into },
+        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, coupling: into }
+        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, ...grid, coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
     const { tubeId: _id, rg, ...parts } = pushPullDesignOf(d.output);

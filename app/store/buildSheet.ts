@@ -7,7 +7,7 @@ import {
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
 import { offBenchParts, splitterParts, type OffBenchParts } from './chainParts';
-import { drivesPair } from './outputPlan';
+import { drivesPair, splitterDirect } from './outputPlan';
 import { benchIndex, voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -93,7 +93,7 @@ function compute(s: WorkbenchState): BuildSheet {
       capacitors.push(capacitorLine('Cc', 'between the stages', forCorner(sol.zout + d.stage2.rg), sol.op.va, d.bplus, '+ to stage 1\'s plate'));
       const rLoad2 = Number.isFinite(d.rl) ? (d.stage2.ra * d.rl) / (d.stage2.ra + d.rl) : d.stage2.ra;
       capacitors.push(capacitorLine('Ck2', 'stage 2 cathode bypass', forCorner(bypassResistance(d.stage2.rk, link.mu, link.rp, rLoad2)), link.op.vk, 0, '+ to the cathode'));
-      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', d.drivesOutput ? (drivesPair(d) ? 'coupling into the splitter\'s grid' : 'coupling into the output grid') : 'output coupling from stage 2', d.cout, link.op.va - (drivesPair(d) ? d.output.splitter.vgrid : 0), d.bplus, '+ to stage 2\'s plate'));
+      if (!splitterDirect(d) && (d.cout !== null || Number.isFinite(d.rl))) capacitors.push(capacitorLine('Cout', d.drivesOutput ? (drivesPair(d) ? 'coupling into the splitter\'s grid' : 'coupling into the output grid') : 'output coupling from stage 2', d.cout, link.op.va - (drivesPair(d) ? d.output.splitter.vgrid : 0), d.bplus, '+ to stage 2\'s plate'));
     } else if (d.cout !== null || Number.isFinite(d.rl)) {
       // Cold, the follower passes no current; as it warms its cathode rises toward its grid, which sits at stage 1's plate.
       capacitors.push(capacitorLine('Cout', 'output coupling from the follower\'s cathode', d.cout, link.op.vk, d.bplus, '+ to the cathode'));

@@ -67,13 +67,20 @@ export function splitterParts(sp: SplitterPlan, st: StageResult, index: number, 
         resistorLine('Rtail', 'splitter tail', sp.rtail, tail, series),
       ]
     : [resistorLine('Ras', 'splitter plate load', sp.ra, st.op.ia, series), resistorLine('Rks', 'splitter cathode load', sp.rk, st.op.ia, series)];
-  resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks (one per grid, to the divider)' : 'splitter grid leak (to the divider)', sp.rg, 0, series));
-  const upper = nearestPreferred((DIVIDER_LOWER * (sp.bplus - sp.vgrid)) / Math.max(sp.vgrid, 1e-3), series);
-  const lower = nearestPreferred(DIVIDER_LOWER, series);
-  const dividerAmps = sp.bplus / (upper + lower);
-  resistors.push(resistorLine('Rd1', `divider upper (with Rd2 sets the grid near ${sp.vgrid} V)`, upper, dividerAmps, series), resistorLine('Rd2', 'divider lower', lower, dividerAmps, series));
-  const shunt = (upper * lower) / (upper + lower);
-  const capacitors: CapacitorLine[] = [capacitorLine('Cd', 'divider decoupling', 1 / (2 * Math.PI * DIVIDER_CORNER_HZ * shunt), sp.vgrid, (sp.bplus * lower) / (upper + lower), '+ to the divider')];
+  const capacitors: CapacitorLine[] = [];
+  // Direct-coupled, the grid sits at the plate before it: no leak, no divider. A long-tailed pair's second grid still
+  // needs its leak to that voltage, held at signal ground by its capacitor.
+  if (sp.coupling === 'capacitor' || both) {
+    resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks (one per grid, to the divider)' : 'splitter grid leak (to the divider)', sp.rg, 0, series));
+  }
+  if (sp.coupling === 'capacitor') {
+    const upper = nearestPreferred((DIVIDER_LOWER * (sp.bplus - sp.vgrid)) / Math.max(sp.vgrid, 1e-3), series);
+    const lower = nearestPreferred(DIVIDER_LOWER, series);
+    const dividerAmps = sp.bplus / (upper + lower);
+    resistors.push(resistorLine('Rd1', `divider upper (with Rd2 sets the grid near ${sp.vgrid} V)`, upper, dividerAmps, series), resistorLine('Rd2', 'divider lower', lower, dividerAmps, series));
+    const shunt = (upper * lower) / (upper + lower);
+    capacitors.push(capacitorLine('Cd', 'divider decoupling', 1 / (2 * Math.PI * DIVIDER_CORNER_HZ * shunt), sp.vgrid, (sp.bplus * lower) / (upper + lower), '+ to the divider'));
+  }
   // Each output's coupling: the split-load's plate and cathode, or the pair's two plates.
   const second = both ? sp.bplus - (tail - st.op.ia) * sp.ra2 : st.op.vk;
   capacitors.push(

@@ -80,7 +80,9 @@ function sameVoltagePart(a: BenchDesign, b: BenchDesign): boolean {
 
 /** The grid leak the voltage stages drive when joined: the output grid's resistor, or the splitter's before a pair. */
 function drivenLeak(d: BenchDesign): number {
-  return d.output.pair === 'push-pull' ? d.output.splitter.rg : d.output.rg;
+  if (d.output.pair !== 'push-pull') return d.output.rg;
+  // A direct-coupled splitter's grid has no leak: the stage before drives no load of its own.
+  return d.output.splitter.coupling === 'direct' ? Infinity : d.output.splitter.rg;
 }
 
 function withDrivenLeak(d: BenchDesign, rg: number): BenchDesign {
@@ -99,7 +101,12 @@ function withOutputDriven(next: BenchDesign, prev: BenchDesign): Result<{ design
   if (!next.drivesOutput) return same(next);
   const leak = drivenLeak(next);
   // Joining the stages (or switching what they drive): the driven grid's own leak becomes the voltage stage's load.
-  if (!prev.drivesOutput || next.output.pair !== prev.output.pair) return same(next.rl === leak ? next : { ...next, rl: leak });
+  const directBefore = prev.output.pair === 'push-pull' && prev.output.splitter.coupling === 'direct';
+  if (!prev.drivesOutput || next.output.pair !== prev.output.pair || (leak === Infinity) !== directBefore) return same(next.rl === leak ? next : { ...next, rl: leak });
+  if (leak === Infinity) {
+    if (next.rl !== prev.rl) return { ok: false, reason: 'invalid-input', message: 'The splitter takes its grid straight from this plate: there is no RL to give (choose capacitor coupling for a grid leak)', field: 'rl' };
+    return same(next);
+  }
   if (next.rl !== prev.rl) {
     if (!Number.isFinite(next.rl)) return { ok: false, reason: 'invalid-input', message: 'RL is the driven grid\'s leak while the stages drive the output stage: give it a value', field: 'rl' };
     return same(next.rl === leak ? next : withDrivenLeak(next, next.rl));

@@ -33,6 +33,8 @@ export interface SplitterPlan {
   readonly rg: number;
   /** Each output's coupling capacitor into a pair grid, F. */
   readonly cc: number;
+  /** How its grid is fed: through Cout into its leak (held at `vgrid` by a divider), or direct from the last voltage stage's plate. */
+  readonly coupling: 'capacitor' | 'direct';
 }
 
 export type SplitterKind = SplitterPlan['kind'];
@@ -43,7 +45,7 @@ export type SplitterKind = SplitterPlan['kind'];
  * through 1 MΩ and coupled out through 100 nF; as a long-tailed pair, 33 kΩ
  * and 36 kΩ plates, 470 Ω over a 10 kΩ tail, grids at 60 V.
  */
-export const DEFAULT_SPLITTER: SplitterPlan = { kind: 'split-load', tubeId: '12AU7', bplus: 330, ra: 22e3, ra2: 36e3, rk: 22e3, rtail: 10e3, vgrid: 90, rg: 1e6, cc: 100e-9 };
+export const DEFAULT_SPLITTER: SplitterPlan = { kind: 'split-load', tubeId: '12AU7', bplus: 330, ra: 22e3, ra2: 36e3, rk: 22e3, rtail: 10e3, vgrid: 90, rg: 1e6, cc: 100e-9, coupling: 'capacitor' };
 
 /** Each kind's own values where the two differ (switching kinds sets them; both are typical of their kind). */
 export const LONG_TAILED_START = { ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vgrid: 60 } as const;
@@ -70,6 +72,9 @@ export interface OutputPlan extends OutputDesign {
 export function pairDefaults(zPrimary: number): Pick<OutputPlan, 'pair' | 'raa' | 'mismatch' | 'idleMismatch' | 'splitter'> {
   return { pair: 'single-ended', raa: Number((2 * zPrimary).toPrecision(2)), mismatch: 0, idleMismatch: 0, splitter: DEFAULT_SPLITTER };
 }
+
+/** True when the splitter before a driven pair takes its grid straight from the last voltage stage's plate. */
+export const splitterDirect = (d: { readonly drivesOutput: boolean; readonly output: OutputPlan }) => drivesPair(d) && d.output.splitter.coupling === 'direct';
 
 /** True when the voltage stages drive a push-pull pair (through its splitter). */
 export const drivesPair = (d: { readonly drivesOutput: boolean; readonly output: OutputPlan }) => d.drivesOutput && d.output.pair === 'push-pull';

@@ -25,7 +25,7 @@ export interface OutputSlice {
   /** One tube or a push-pull pair: the shared cathode resistor halves (or doubles) so each tube keeps its idle current. */
   setOutputPair: (pair: OutputPair) => void;
   /** The phase splitter's kind (each kind starts from its own typical values) or its tube; returns the failure, if any. */
-  setSplitter: (patch: { kind?: SplitterKind; tubeId?: string }) => Failure | null;
+  setSplitter: (patch: { kind?: SplitterKind; tubeId?: string; coupling?: 'capacitor' | 'direct' }) => Failure | null;
   /** Applies a change to the output design through commit; returns the failure, if any, for the caller to place. */
   changeOutput: (patch: Partial<OutputPlan>, opts?: { light?: boolean }) => Failure | null;
   chooseOutputTube: (id: string) => void;

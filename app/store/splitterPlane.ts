@@ -3,6 +3,15 @@ import { lookupTube } from '../keep/customTubes';
 import { drivesPair } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
+/** The splitter's grid voltage: the divider's, or (direct-coupled) the DC of the plate before it in the solved amplifier. */
+function gridVolts(s: WorkbenchState): number | null {
+  const sp = s.design.output.splitter;
+  if (sp.coupling !== 'direct') return sp.vgrid;
+  const view = s.amplifier;
+  const i = view?.names.findIndex((n) => n.role === 'splitter') ?? -1;
+  return view && view.result.ok && i > 0 ? view.result.stages[i - 1]!.outputDc : null;
+}
+
 /** Per solved amplifier and the pair's last full pass: the chart runs the model once for each. */
 const memo = new WeakMap<object, WeakMap<object, SplitterPlane | null>>();
 
@@ -19,7 +28,8 @@ export function splitterPlaneOf(s: WorkbenchState): SplitterPlane | null {
   const tube = lookupTube(s.design.output.splitter.tubeId);
   // A long-tailed pair's second triode from the splitter's own solve (the chain carries the first's point).
   const figures = splitterFiguresOf(s);
-  const plane = st && tube ? splitterPlane(tube, s.design.output.splitter, st.op, figures?.op[1]) : null;
+  const vgrid = gridVolts(s);
+  const plane = st && tube && vgrid !== null ? splitterPlane(tube, { ...s.design.output.splitter, vgrid }, st.op, figures?.op[1]) : null;
   byResult.set(key, plane);
   return plane;
 }
@@ -38,15 +48,18 @@ export function splitterFiguresOf(s: WorkbenchState): SplitterResult | null {
   const sp = s.design.output.splitter;
   const byBench = figuresMemo.get(sp) ?? new Map<object, SplitterResult | null>();
   figuresMemo.set(sp, byBench);
-  if (byBench.has(b.settled)) return byBench.get(b.settled)!;
+  // Keyed by the pair's pass and, for a direct-coupled grid, the amplifier that sets its voltage.
+  const key = sp.coupling === 'direct' && s.amplifier ? s.amplifier : b.settled;
+  if (byBench.has(key)) return byBench.get(key)!;
   const tube = lookupTube(sp.tubeId);
   const a = b.settled;
   // Each half's fundamental from the power into Raa/4, over the drive per grid: the plate's gain.
   const fundamental = Math.sqrt(2 * a.full.power * (a.solution.design.raa / 4));
   const plateGain = a.full.drive > 0 ? fundamental / a.full.drive : 0;
   const cl = millerInputCapacitance(a.solution.tube.capacitances, plateGain);
-  const r = tube ? solveSplitter({ ...sp, tube, rl: s.design.output.rg, cl }) : null;
+  const vgrid = gridVolts(s);
+  const r = tube && vgrid !== null ? solveSplitter({ ...sp, vgrid, tube, rl: s.design.output.rg, cl }) : null;
   const result = r && r.ok ? r : null;
-  byBench.set(b.settled, result);
+  byBench.set(key, result);
   return result;
 }

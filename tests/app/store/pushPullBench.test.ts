@@ -150,3 +150,28 @@ describe('the splitter\'s chart', () => {
     expect(plane.second!.load[0]!.i).toBeLessThan(plane.load[0]!.i);
   });
 });
+
+describe('a direct-coupled splitter', () => {
+  it('takes its grid from the last plate: RL goes to none (typing one is refused with a reason), no leak or divider is ordered, the file keeps it', () => {
+    const store = pairOnBench();
+    store.getState().editField('sBplus', '450');
+    expect(store.getState().setSplitter({ coupling: 'direct' })).toBeNull();
+    const s = store.getState();
+    expect(s.design.rl).toBe(Infinity);
+    if (!s.amplifier?.result.ok) throw new Error(s.amplifier?.result.ok === false ? s.amplifier.result.message : 'no amplifier');
+    const names = s.amplifier.names.map((n) => n.role);
+    const st = s.amplifier.result.stages[names.indexOf('splitter')]!;
+    const before = s.amplifier.result.stages[names.indexOf('splitter') - 1]!;
+    // The grid at the plate before it: Vk = Va(before) − |Vgk| (Kirchhoff round the grid).
+    expectClose(st.op.vk + st.op.vgk, before.outputDc, { rel: 1e-9 }, 'grid at the plate before');
+    const parts = buildSheetOf(s).otherStages.find((x) => x.title.startsWith('Phase splitter'))!;
+    expect(parts.resistors.map((r) => r.ref)).toEqual(['Ras', 'Rks']);
+    s.editField('rl', '220k');
+    expect(store.getState().errors.rl).toMatch(/no RL to give/);
+    expect(store.getState().design.rl).toBe(Infinity);
+    const back = readDesignFile(writeDesignFile({ title: 'Direct', design: store.getState().design }));
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc.design.output.splitter.coupling).toBe('direct');
+    expect(back.doc.design.rl).toBe(Infinity);
+  });
+});
