@@ -5,6 +5,7 @@ import type { PlateExtent } from '../stage/plateExtent';
 import { chartOptionsOf } from '../output/chartOptions';
 import { outputSheet } from '../output/outputSheet';
 import { OUTPUT_SAMPLES } from '../output/outputSignal';
+import { decibelsOf } from '../signal/levels';
 import type { OutputTube } from '../output/outputTube';
 import { SHEET_FEED_TOLERANCE } from '../output/analyzeOutput';
 import type { ScreenFeed } from '../output/electrodes';
@@ -15,6 +16,8 @@ import { pushPullFindings } from './pushPullFindings';
 import { pushPullOverlay, type PushPullOverlay } from './pushPullOverlay';
 import { solvePushPull, type PushPullSolution } from './solvePushPull';
 
+const opOf = (p: { readonly ia: number; readonly ig2: number; readonly pa: number; readonly pg2: number }): PushPullTubeOp => ({ ia: p.ia, ig2: p.ig2, pa: p.pa, pg2: p.pg2 });
+
 /** Points a cycle on the light pass (a power of two, over twice the tenth harmonic). */
 const LIGHT_SAMPLES = 32;
 
@@ -24,8 +27,14 @@ export interface PushPullAnalysis {
   readonly sheet: CurveSheet;
   readonly maxCurves: number;
   readonly overlay: PushPullOverlay;
-  /** The grids driven to 0 V peak, in antiphase: the drive data sheets quote a pair's power at. */
-  readonly full: PushPullDrive;
+  /** The grids driven to 0 V peak, in antiphase: the drive data sheets quote a pair's power at; `harmonicsDb` is H2 to H10 in dB under the fundamental (H2 first, DB_FLOOR for none). */
+  readonly full: PushPullDrive & { readonly harmonicsDb: readonly number[] };
+  /** Each tube's idle plate and screen current and dissipation (the second as the mismatch leaves it). */
+  readonly op: readonly [PushPullTubeOp, PushPullTubeOp];
+  /** True when a tube cuts off before the grids reach 0 V. */
+  readonly classAB: boolean;
+  /** The most either tube's plate and screen dissipate over the level sweep, W, and at which drive; null before a full pass. */
+  readonly worstDissipation: { readonly plate: { readonly watts: number; readonly drive: number }; readonly screen: { readonly watts: number; readonly drive: number } } | null;
   /**
    * The level sweep's figures (power within the distortion limit, where class
    * AB begins, the worst dissipation, damping): on the light pass that runs
@@ -37,6 +46,13 @@ export interface PushPullAnalysis {
   /** Primary (plate to plate) to secondary turns ratio for the chosen speaker. */
   readonly turnsRatio: number;
   readonly findings: readonly Finding[];
+}
+
+export interface PushPullTubeOp {
+  readonly ia: number;
+  readonly ig2: number;
+  readonly pa: number;
+  readonly pg2: number;
 }
 
 export interface PushPullAnalysisOptions {
@@ -90,7 +106,10 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
     sheet,
     maxCurves,
     overlay,
-    full,
+    full: { ...full, harmonicsDb: full.harmonics.slice(2).map(decibelsOf) },
+    op: [opOf(s.idle[0]), opOf(s.idle[1])],
+    classAB: full.classAB,
+    worstDissipation: figures ? { plate: figures.worstPlate, screen: figures.worstScreen } : null,
     figures,
     supplyCurrent: { idle: s.supplyCurrent, full: full.supplyCurrent },
     turnsRatio: Math.sqrt(design.raa / design.speakerOhms),

@@ -104,3 +104,15 @@ describe('the pair\'s composite characteristics', () => {
     expect(driven.points[0]!.v).toBeLessThan(atBias.points[0]!.v);
   });
 });
+
+describe('the pair\'s analysis by the names a caller asks for', () => {
+  it('op per tube, full with harmonics in dB (H2 first), class AB, the worst dissipation over the sweep', () => {
+    const a = analysed({ ...el84, mismatch: { gm: 0.05, idle: 0.03 } });
+    expect(a.op[1].ia).toBe(a.solution.idle[1].ia);
+    expect(a.op[0].pg2).toBe(a.solution.idle[0].pg2);
+    expectClose(a.full.harmonicsDb[0]!, 20 * Math.log10(a.full.harmonics[2]!), { rel: 1e-12 }, 'H2 in dB');
+    expect(a.full.harmonicsDb).toHaveLength(9);
+    expect(a.classAB).toBe(a.full.classAB);
+    expect(a.worstDissipation!.plate).toEqual(a.figures!.worstPlate);
+  });
+});
