@@ -46,6 +46,7 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
         <Figure name="worst-pa" label="Worst Pa under drive" value={f ? `${watts(f.worstPlate.watts)} (${Math.round((100 * f.worstPlate.watts) / r.maxPlateDissipation)} %)` : wait} chars={13} />
         <Figure name="supply-current" label="B+ current idle → full" value={`${milliamps(a.supplyCurrent.idle)} → ${milliamps(a.supplyCurrent.full)}`} chars={17} />
         <Figure name="damping" label="Damping factor" value={f?.dampingFactor ? plain(f.dampingFactor, 2) : wait} chars={4} />
+        <Figure name="zout" label="Zout at the speaker" value={f?.zSpeaker ? ohms(f.zSpeaker) : wait} chars={6.5} />
         <Figure name="turns" label="Turns ratio (plate to plate)" value={`${plain(a.turnsRatio, 3)} : 1`} chars={6.5} />
         {mismatched ? <Figure name="imbalance" label="DC uncancelled in the core" value={milliamps(Math.abs(s.dcImbalance))} chars={8} /> : null}
       </dl>

@@ -20,6 +20,7 @@ const cases: { label: string; d: PushPullDesign; share: number }[] = [
   { label: 'EL34 ultralinear, 5 % mismatch', d: { ...base, mismatch: 0.05 }, share: 0.7 },
   { label: 'EL34 ultralinear, 8 % gm mismatch, idle trimmed equal (the second grid offset)', d: { ...base, mismatch: { gm: 0.08, idle: 0 } }, share: 0.7 },
   { label: '6L6GC pentode, shared cathode resistor', d: { ...base, tubeId: '6L6GC', connection: 'pentode', bplus: 400, screenVolts: 300, bias: 'cathode', rk: 200, raa: 5000 }, share: 0.8 },
+  { label: 'EL34 triode-connected (screens tied to the plates), shared cathode resistor', d: { ...base, connection: 'triode', bplus: 400, bias: 'cathode', rk: 250, raa: 5000, rPrimary: 150 }, share: 0.8 },
   { label: '300B pair, shared cathode resistor', d: { ...base, tubeId: '300B', connection: 'triode', bplus: 400, bias: 'cathode', rk: 470, raa: 5000, rPrimary: 150 }, share: 0.8 },
 ];
 
