@@ -120,18 +120,32 @@ function wrapText(ctx: CanvasRenderingContext2D, text: string, x: number, y: num
   return y + lineHeight;
 }
 
-/** The build card as a PNG: title and date, schematic, chart, figures, ratings, comparison, and the safety caution. */
+/** The most A4 pages a card may run to: past them a note names what is left (the screen has it all). */
+export const MAX_CARD_PAGES = 4;
+/** Where a page's text stops, above the caution at its foot (a line may wrap below its start: 66 px kept). */
+const TEXT_BOTTOM = CARD_HEIGHT - 120 - 66;
+/** Where text starts on the pages after the first, below their running title. */
+const CONTINUED_TOP = MARGIN + 50;
+
+/**
+ * The build card as a PNG of one A4 page or more, stacked: title and date,
+ * schematic, chart, then the figures in two columns (the stages' own on the
+ * left; ratings, heaters, parts and any comparison on the right), each
+ * column running on to the next page when it fills one, every page with the
+ * safety caution at its foot. Past MAX_CARD_PAGES a note names what is left.
+ */
 export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, schematic: SVGSVGElement | null, date = new Date()): Promise<Blob> {
   const canvas = document.createElement('canvas');
   canvas.width = CARD_WIDTH;
-  canvas.height = CARD_HEIGHT;
+  canvas.height = CARD_HEIGHT * MAX_CARD_PAGES;
   const ctx = canvas.getContext('2d')!;
   ctx.fillStyle = '#ffffff';
-  ctx.fillRect(0, 0, CARD_WIDTH, CARD_HEIGHT);
+  ctx.fillRect(0, 0, CARD_WIDTH, canvas.height);
   ctx.fillStyle = '#1d2329';
   ctx.textBaseline = 'top';
   ctx.font = `bold 40px ${EXPORT_FONTS}`;
-  let y = wrapText(ctx, s.title || 'Untitled design', MARGIN, MARGIN, 700, 46);
+  const title = s.title || 'Untitled design';
+  let y = wrapText(ctx, title, MARGIN, MARGIN, 700, 46);
   ctx.font = `22px ${EXPORT_FONTS}`;
   ctx.fillStyle = '#4a535c';
   ctx.fillText(`Quiescent build card · ${date.toISOString().slice(0, 10)}`, MARGIN, y);
@@ -147,32 +161,40 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
   const chartDoc = svgDocument(chart);
   const chartImg = await svgImage(chartDoc.text);
   const cw = CARD_WIDTH - 2 * MARGIN;
-  // The chart takes at most 40 % of the page, so the figures, ratings and a comparison fit below it.
+  // The chart takes at most 40 % of the first page; the figures run on below it and onto more pages.
   const ch = Math.min((cw * chartDoc.height) / chartDoc.width, CARD_HEIGHT * 0.4);
   const chartW = (ch * chartDoc.width) / chartDoc.height;
   ctx.drawImage(chartImg, MARGIN + (cw - chartW) / 2, y, chartW, ch);
   y += ch + 20;
   ctx.fillStyle = '#1d2329';
   const sections = cardSections(s);
-  // The stages' own figures on the left; ratings (most severe first), heaters, parts and any comparison on the right.
   const split = sections.findIndex((x) => x.heading.startsWith('Ratings'));
   const columns = [sections.slice(0, split), sections.slice(split)];
-  const colWidth = columns.length > 1 ? cw / 2 - 12 : cw;
-  const top = y;
+  const colWidth = cw / 2 - 12;
+  let pages = 1;
   columns.forEach((column, c) => {
-    let cy = top;
     const x = MARGIN + c * (colWidth + 24);
+    let page = 0;
+    let cy = y;
+    // Room for a block of `need` px on this page, or the top of the next; false past the last page.
+    const room = (need: number): boolean => {
+      if (cy + need <= page * CARD_HEIGHT + TEXT_BOTTOM) return true;
+      if (page + 1 >= MAX_CARD_PAGES) return false;
+      page += 1;
+      cy = page * CARD_HEIGHT + CONTINUED_TOP;
+      return true;
+    };
     for (const [n, section] of column.entries()) {
-      if (cy > CARD_HEIGHT - 140) {
+      if (!room(27 + 22)) {
         ctx.font = `17px ${EXPORT_FONTS}`;
-        ctx.fillText(`… did not fit: ${column.slice(n).map((x) => x.heading).join(', ')} (see the screen)`, x, cy);
+        wrapText(ctx, `… did not fit: ${column.slice(n).map((x) => x.heading).join(', ')} (see the screen)`, x, cy, colWidth, 22);
         break;
       }
       ctx.font = `bold 21px ${EXPORT_FONTS}`;
       cy = wrapText(ctx, section.heading, x, cy, colWidth, 27) + 2;
       ctx.font = `17px ${EXPORT_FONTS}`;
       for (const [k, line] of section.lines.entries()) {
-        if (cy > CARD_HEIGHT - 120) {
+        if (!room(22)) {
           // Never drop lines without a word: say how many did not fit.
           ctx.fillText(`… ${section.lines.length - k} more: see the build sheet on screen`, x + 10, cy);
           cy += 22;
@@ -182,9 +204,22 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
       }
       cy += 8;
     }
+    pages = Math.max(pages, page + 1);
   });
-  ctx.fillStyle = '#b42318';
-  ctx.font = `bold 18px ${EXPORT_FONTS}`;
-  wrapText(ctx, 'Danger: lethal voltages. Discharge capacitors before touching; follow local electrical codes and licensed practice. Figures are a design aid from a model.', MARGIN, CARD_HEIGHT - 80, cw, 24);
-  return canvasBlob(canvas);
+  for (let p = 0; p < pages; p++) {
+    if (p > 0) {
+      ctx.fillStyle = '#4a535c';
+      ctx.font = `20px ${EXPORT_FONTS}`;
+      ctx.fillText(`${title} · build card, page ${p + 1} of ${pages}`, MARGIN, p * CARD_HEIGHT + MARGIN);
+    }
+    ctx.fillStyle = '#b42318';
+    ctx.font = `bold 18px ${EXPORT_FONTS}`;
+    wrapText(ctx, 'Danger: lethal voltages. Discharge capacitors before touching; follow local electrical codes and licensed practice. Figures are a design aid from a model.', MARGIN, p * CARD_HEIGHT + CARD_HEIGHT - 80, cw, 24);
+  }
+  // The pages used, as one image: A4 after A4.
+  const out = document.createElement('canvas');
+  out.width = CARD_WIDTH;
+  out.height = CARD_HEIGHT * pages;
+  out.getContext('2d')!.drawImage(canvas, 0, 0);
+  return canvasBlob(out);
 }

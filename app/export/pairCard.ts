@@ -3,10 +3,14 @@ import { compareCells } from '../output/OutputComparePanel';
 import { transformerLines } from '../output/OutputPartsPanel';
 import type { PushPullBench } from '../store/outputAnalysis';
 import { outputPartsOf } from '../store/outputParts';
+import { drivesPair } from '../store/outputPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
 
 type Section = { heading: string; lines: string[] };
+
+/** A harmonic as a percentage; under a millionth (a matched pair's even ones) it is the arithmetic's, not the pair's. */
+const share = (x: number) => (x < 1e-6 ? 'below 0.0001 %' : percentOf(x));
 
 /** The build card's text for a push-pull pair, from what the model already computed. */
 export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[] {
@@ -25,7 +29,9 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
       lines: [
         `Two ${sol.tube.id} in push-pull, ${screen}, ${o.bias === 'cathode' ? `cathode bias, Rk ${ohms(o.rk)} shared (bypassed)` : `fixed bias ${volts(o.vg)}`}${plan.mismatch || plan.idleMismatch ? `, the second tube's gm ${percentOf(plan.mismatch)} and idle ${percentOf(plan.idleMismatch)} above the first's` : ''}`,
         `B+ ${volts(o.bplus)} at the centre tap, ${ohms(o.raa)} plate to plate (DCR ${ohms(o.rPrimary)}) into ${ohms(o.speakerOhms)}, turns ${plain(a.turnsRatio)} : 1`,
-        'The grids are driven in antiphase: a phase splitter before the pair is needed (not yet designed here).',
+        drivesPair(s.design)
+          ? `The grids are driven in antiphase by the ${s.design.output.splitter.tubeId} ${s.design.output.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'} phase splitter (its parts with the other stages')`
+          : 'The grids are driven in antiphase: join the voltage stages to the output stage to design the phase splitter that does it',
       ],
     },
     {
@@ -39,7 +45,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
     {
       heading: 'Power and distortion',
       lines: [
-        `Grids to 0 V: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${percentOf(a.full.harmonics[2] ?? 0)}, H3 ${percentOf(a.full.harmonics[3] ?? 0)}), ${volts(a.full.drive / Math.SQRT2)} rms per grid`,
+        `Grids to 0 V: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${share(a.full.harmonics[2] ?? 0)}, H3 ${share(a.full.harmonics[3] ?? 0)}), ${volts(a.full.drive / Math.SQRT2)} rms per grid`,
         f ? (f.overThdEverywhere ? `Over ${percentOf(o.thdLimit)} THD at every level (crossover)` : `Within ${percentOf(o.thdLimit)} THD: ${watts((f.atThdLimit ?? f.atZeroGrid).power)}`) : '',
         f ? (f.classABFrom === null ? 'Class A to 0 V on the grids' : `Class AB from ${volts(f.classABFrom)} peak per grid`) : '',
         f?.dampingFactor ? `Damping factor ${plain(f.dampingFactor, 2)}` : '',

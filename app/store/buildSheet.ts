@@ -64,7 +64,8 @@ export function buildSheetOf(s: WorkbenchState): BuildSheet {
   if (hit && hit.inputs === s.buildInputs && hit.design === s.design && hit.outputBench === s.outputBench) return hit.sheet;
   // Like the signal views, the sheet is redone when the drag or the typing pauses, not on every frame.
   const last = lastSheet.get(s.commit);
-  if (last && (s.dragging || s.analysis.signal.stale)) return last;
+  // (With the output stage on the bench the voltage stage's signal pass waits, so its staleness says nothing about this sheet.)
+  if (last && (s.dragging || (s.design.stageKind === 'voltage' && s.analysis.signal.stale))) return last;
   const sheet = compute(s);
   cache.set(s.analysis, { inputs: s.buildInputs, design: s.design, outputBench: s.outputBench, sheet });
   lastSheet.set(s.commit, sheet);

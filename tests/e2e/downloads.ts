@@ -31,3 +31,10 @@ export async function downloadOf(page: Page, button: string): Promise<Buffer> {
   const [dl] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: button }).click()]);
   return readFileSync((await dl.path())!);
 }
+
+/** A build card's A4 pages (1240 × 1754 px each at 150 dpi, stacked); fails the test on any other size. */
+export function cardPages(size: { width: number; height: number }): number {
+  const pages = size.height / 1754;
+  if (size.width !== 1240 || !Number.isInteger(pages) || pages < 1 || pages > 4) throw new Error(`not a card of A4 pages: ${size.width} × ${size.height}`);
+  return pages;
+}

@@ -2,7 +2,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { seriousViolations } from './axe';
 import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
-import { downloadOf, inkShare, pngSize } from './downloads';
+import { cardPages, downloadOf, inkShare, pngSize } from './downloads';
 
 const run = chromiumGate();
 
@@ -87,7 +87,7 @@ describe.runIf(run)('keeping and exporting an output stage in Chromium', () => {
     await page.waitForSelector('[data-figure="clean-power"]');
     const card = await downloadOf(page, 'Build card (PNG, A4)');
     writeFileSync('test-results/output-build-card.png', card);
-    expect(pngSize(card)).toEqual({ width: 1240, height: 1754 });
+    expect(cardPages(pngSize(card))).toBeGreaterThanOrEqual(1);
     expect(await inkShare(page, card)).toBeGreaterThan(0.03);
     await page.waitForTimeout(700); // autosave waits 400 ms after the last change
     await page.reload();
