@@ -64,7 +64,6 @@ export function SplitterValues() {
       {driven && stage ? (
         <dl className="figure-group" aria-label="Splitter figures">
           <div className="figure" data-figure="splitter-op"><dt>Va, Vk, Ia</dt><dd>{`${volts(stage.op.va)}, ${volts(stage.op.vk)}, ${milliamps(stage.op.ia)}`}</dd></div>
-          <div className="figure" data-figure="splitter-gain"><dt>Gain to the first output</dt><dd>{plain(stage.gain)}×</dd></div>
           <div className="figure" data-figure="splitter-headroom"><dt>Headroom</dt><dd>{stage.headroomDb === null ? 'never clips' : `${stage.headroomDb.toFixed(1)} dB`}</dd></div>
         </dl>
       ) : null}
