@@ -20,7 +20,8 @@ export type {
 } from './tube/types';
 export { modelOf, recordOf } from './tube/types';
 export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
-export { gridCurrent, cutoffGridVoltage, korenParamsProblem } from './tube/koren';
+export { cutoffGridVoltage, korenParamsProblem } from './tube/koren';
+export { gridCurrent, GRID_CURRENT_ONSET, CATHODE_THERMAL_VOLTS } from './tube/gridCurrent';
 export { tubeLibrary, findTube } from './tube/library';
 export { LIBRARY_TUBE_IDS } from './tube/library/libraryIds';
 export { korenPublishedSets } from './tube/korenPublishedSets';
@@ -67,7 +68,8 @@ export { nearestPreferred } from './parts/nearestPreferred';
 export { E12, E24, E96, SERIES, SERIES_TOLERANCE, type PreferredSeries } from './parts/preferredValues';
 
 export { swing, swingOf, type SwingResult, type SwingLimit } from './signal/swing';
-export { distortion, distortionOf, DEFAULT_SAMPLES, type DriveLevel, type DistortionOptions, type DistortionResult } from './signal/distortion';
+export { levelAtThd, levelAtThdOf, TABLE_THD, type LevelAtThd } from './signal/levelAtThd';
+export { distortion, distortionOf, MAX_OVERDRIVE, DEFAULT_SAMPLES, type DriveLevel, type DistortionOptions, type DistortionResult } from './signal/distortion';
 export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } from './signal/frequencyResponse';
 export { corners, cornersOf, type Corners } from './signal/corners';
 export { solveLinks, type ChainLink, type LinkResult, type LinkChainResult } from './signal/solveLinks';

@@ -1,5 +1,5 @@
 import { pairDefaults, type OutputPair, type OutputPlan, type SplitterPlan } from '../store/outputPlan';
-import { findOutputTube, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
+import { findOutputTube, TABLE_THD, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
@@ -188,6 +188,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     ck: d.ck as number | null,
     cout: d.cout as number | null,
     levelRms: d.levelRms as number,
+    thdLimit: (d.thdLimit as number | undefined) ?? TABLE_THD,
     stage2: {
       kind: s2.kind as Stage2Design['kind'],
       tubeId: knownId(s2.tubeId as string),

@@ -42,6 +42,8 @@ export const BENCH_STAGE = v.object({
   ck: rangedOrNull(L.ck),
   cout: rangedOrNull(L.cout),
   levelRms: ranged(L.levelRms),
+  // Came within version 3: absent, the published tables' 5 %.
+  thdLimit: v.optional(ranged(L.output.thdLimit)),
   stage2: section({
     kind: oneOf(['none', 'follower', 'common-cathode']),
     tubeId: tubeName(),

@@ -52,18 +52,30 @@ export function SignalCharts() {
 
   const thd = useMemo<XYSpec>(() => {
     const pts = signal.thdByLevel.map((p) => ({ x: p.outputRms, y: p.thdPercent }));
+    // The curve past the clean swing drawn dashed, from the last clean point on.
+    const firstPast = signal.thdByLevel.findIndex((p) => p.pastClean);
+    const clean = firstPast < 0 ? pts : pts.slice(0, firstPast);
+    const past = firstPast < 0 ? [] : pts.slice(Math.max(0, firstPast - 1));
     const xs = pts.map((p) => p.x);
     const ys = pts.map((p) => p.y).filter((v) => v > 0);
     const d = signal.distortion;
+    const edge = signal.swing.output.rms;
+    const edgeThd = clean.length > 0 ? clean[clean.length - 1]!.y : ys[0] ?? 1;
     return {
       width: W,
       height: H,
       x: { domain: [Math.min(...xs), Math.max(...xs)], log: true, label: 'Output level (V rms)' },
       y: { domain: [Math.max(Math.min(...ys), 1e-4), Math.max(...ys) * 1.2], log: true, label: 'THD (%)' },
-      series: [{ key: 'thd', points: pts, stroke: PALETTE.load }],
-      markers: d.ok ? [{ x: level, y: d.thdPercent, color: PALETTE.point, label: `${d.thdPercent.toFixed(2)} %` }] : [],
+      series: [
+        { key: 'thd', points: clean, stroke: PALETTE.load },
+        { key: 'thd-past', points: past, stroke: PALETTE.load, dash: '4 3' },
+      ],
+      markers: [
+        ...(edge > 0 ? [{ x: edge, y: edgeThd, color: PALETTE.bias, label: signal.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff' }] : []),
+        ...(d.ok ? [{ x: level, y: d.thdPercent, color: PALETTE.point, label: `${d.thdPercent.toFixed(2)} %` }] : []),
+      ],
     };
-  }, [signal.thdByLevel, signal.distortion, level]);
+  }, [signal.thdByLevel, signal.distortion, signal.swing, level]);
 
   const bode = useMemo<XYSpec>(() => {
     const pts = signal.response.map((p) => ({ x: p.freqHz, y: p.magnitudeDb }));
@@ -98,7 +110,7 @@ export function SignalCharts() {
     <section className="panel signal-charts" aria-label="Signal views">
       <MiniChart title="Transfer curve (orange: the span in use)" spec={transfer} description="Output voltage against grid swing, from the model's large-signal solution" />
       <MiniChart title="Harmonics at the chosen level" spec={spectrum} description="Harmonics H2 to H9 in dB below the fundamental" />
-      <MiniChart title="THD against output level" spec={thd} description="Total harmonic distortion against output level, up to clipping" />
+      <MiniChart title="THD against output level (dashed: past the clean swing)" spec={thd} description="Total harmonic distortion against output level, across the clean limit (marked) and past it (dashed)" />
       <div className="bode">
         <MiniChart title="Response, source to output (−3 dB points marked)" spec={bode} description="Gain in dB against frequency from 1 Hz to 1 MHz" />
         <MiniChart title="Phase" spec={phase} description="Phase in degrees against frequency" />

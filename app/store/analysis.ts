@@ -44,6 +44,8 @@ export interface BenchDesign {
   readonly cout: number | null;
   /** Output level the distortion figures are taken at, V rms. */
   readonly levelRms: number;
+  /** The THD whose output level is shown (a fraction; 0.05, the 5 % published resistance-coupled tables use). */
+  readonly thdLimit: number;
   readonly stage2: Stage2Design;
   /** The voltage stages before the one on the bench, input first (see stagePlans.ts). */
   readonly before: readonly StagePlan[];

@@ -5,7 +5,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
-  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'ra2' | 'rk2' | 'rg2'
+  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc';
 
@@ -96,6 +96,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', L.ck, { none: 'null' }), show: compact, ...top('ck') },
   cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', L.cout, { none: 'null' }), show: compact, ...top('cout') },
   level: { label: 'Output level', unit: 'V rms', example: '2', read: ranged('Output level', L.levelRms), show: compact, ...top('levelRms') },
+  thd: { label: 'THD limit', unit: '%', example: '5', read: percent('THD limit', L.output.thdLimit), show: showPercent, ...top('thdLimit') },
   ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', L.stage2.ra), show: compact, ...second('ra') },
   rk2: { label: 'Rk (stage 2)', unit: 'Ω', example: '1k or 33k', read: ranged('Rk', L.stage2.rk), show: compact, ...second('rk') },
   rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', L.stage2.rg), show: compact, ...second('rg') },

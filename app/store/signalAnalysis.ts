@@ -3,6 +3,7 @@ import {
   curveSheet,
   distortionOf,
   distortionSweep,
+  levelAtThdOf,
   logFrequencies,
   responseOf,
   solveChain,
@@ -18,6 +19,8 @@ import {
   type DistortionResult,
   type Failure,
   type LevelThd,
+  type LevelAtThd,
+  type Result,
   type PlanePoint,
   type ResponsePoint,
   type SolvedStage,
@@ -41,6 +44,8 @@ export interface SignalAnalysis {
   readonly response: readonly ResponsePoint[];
   readonly corners: Corners;
   readonly thdByLevel: readonly LevelThd[];
+  /** The output level at which THD reaches the design's limit (past the clean swing when that is where it lands). */
+  readonly atThd: Result<LevelAtThd>;
   readonly chain: ({ ok: true } & LinkChainResult) | Failure | null;
   /** The second stage's own plate curves and operating point, when it has one. */
   readonly stage2: { readonly sheet: CurveSheet; readonly point: PlanePoint; readonly tubeId: string } | null;
@@ -109,7 +114,8 @@ export function analyzeSignal(s: SolvedStage, stage1: StageDesign, d: BenchDesig
     swingPath: swingPath(s, peak, 24, transfer),
     response: responseOf(s, RESPONSE_FREQUENCIES),
     corners: cornersOf(s),
-    thdByLevel: distortionSweep(s, 14, 256),
+    thdByLevel: distortionSweep(s, 18, 256),
+    atThd: levelAtThdOf(s, d.thdLimit, { transfer, swing }),
     chain,
     stage2,
     stale: false,

@@ -1,3 +1,4 @@
+import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
 import type { ClipCause } from './chainTypes';
 import type { LinkSample, SolvedLink } from './stageKind';
 
@@ -39,10 +40,11 @@ export class ChainSignal {
   private limitAt(i: number, peak: number): ClipCause | null {
     const link = this.links[i]!;
     let cause: ClipCause | null = null;
+    const gridLimit = link.gridLimit ?? GRID_CURRENT_ONSET;
     for (let sign = 1; sign >= -1; sign -= 2) {
       this.at(sign * peak, i);
       const s = this.samples[i]!;
-      if (s.vgk >= 0) return 'grid-current';
+      if (s.vgk >= gridLimit) return 'grid-current';
       if (s.ia <= link.cutoffCurrent) cause = 'cutoff';
     }
     return cause;

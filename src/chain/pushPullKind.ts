@@ -79,6 +79,7 @@ export const pushPullKind: StageKind<PushPullLink> = {
       zout: zpp === null ? Infinity : (zpp * design.speakerOhms) / design.raa,
       sample,
       cutoffCurrent: 0,
+      gridLimit: 0,
       findings: pushPullFindings(solved, null, solved.supply + peak),
       linear: {
         gm: -gain / (scale * rLoad),

@@ -75,6 +75,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       zout: (op.rp + design.rPrimary) * ratio * ratio,
       sample,
       cutoffCurrent: CUTOFF_SHARE * op.ip,
+      gridLimit: 0,
       findings: outputFindings(solved, peak),
       linear: {
         // The transconductance that gives the same midband gain in the linear network.

@@ -61,6 +61,13 @@ export interface SolvedLink {
   readonly sample: (vin: number, out: LinkSample, vin2?: number) => void;
   /** Below this current the stage is cut off, A. */
   readonly cutoffCurrent: number;
+  /**
+   * The grid voltage (to its cathode) where the stage's clean swing ends, V:
+   * the onset of grid current for a voltage stage (GRID_CURRENT_ONSET);
+   * 0 V for an output stage, whose data-sheet figures are taken with the
+   * grid driven to 0 V (class A1). Absent means the onset.
+   */
+  readonly gridLimit?: number;
   readonly findings: readonly Finding[];
   readonly linear: LinearStage;
 }

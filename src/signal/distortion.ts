@@ -4,7 +4,7 @@ import { solvedStage, type SolvedStage } from './analysisInput';
 import { harmonicAmplitudes, isPowerOfTwo } from './fft';
 import { stageTransfer, type StageTransfer } from './stageTransfer';
 import { illinois } from '../numeric/illinois';
-import { swingOf, type SwingResult } from './swing';
+import { swingOf, type SwingLimit, type SwingResult } from './swing';
 import { DB_FLOOR, decibelsOf } from './levels';
 import { shown } from '../shown';
 
@@ -28,6 +28,8 @@ export interface DistortionResult {
   readonly outputRms: number;
   /** Quiescent shift of the output's average (DC) with this signal, V: a sign of even-order distortion. */
   readonly outputDcShift: number;
+  /** The limit this level is driven past (grid current, through the real source, or cutoff), or null while the stage is clean. */
+  readonly pastClean: SwingLimit | null;
 }
 
 export const DEFAULT_SAMPLES = 1024;
@@ -72,10 +74,35 @@ function fundamental(t: StageTransfer, peak: number, n: number): number {
   return (2 * Math.hypot(re, im)) / n;
 }
 
-/** Input peak giving a wanted fundamental output peak: Illinois regula falsi on [0, clean peak], started from the small-signal estimate. */
-function inputForOutput(t: StageTransfer, target: number, cleanPeak: number, gain: number): number {
+/** Input peak giving a wanted fundamental output peak: Illinois regula falsi on [0, top], started from the small-signal estimate. */
+function inputForOutput(t: StageTransfer, target: number, top: number, gain: number): number {
   const g = (peak: number) => fundamental(t, peak, SEARCH_SAMPLES) - target;
-  return illinois(g, 0, cleanPeak, SEARCH_REL_TOL * target, { fa: -target, start: Math.min(target / Math.abs(gain), cleanPeak) });
+  return illinois(g, 0, top, SEARCH_REL_TOL * target, { fa: -target, start: Math.min(target / Math.abs(gain), top) });
+}
+
+/**
+ * How far past its clean limit a stage is driven at most, as a multiple of
+ * the clean input peak (or of 1 V for a grid with no clean swing): ten
+ * times (+20 dB) is far into hard clipping, where the output hardly grows.
+ */
+export const MAX_OVERDRIVE = 10;
+
+/** The input peak past the clean limit that gives `target`, or null when no drive up to MAX_OVERDRIVE does; the search doubles up from the clean peak. */
+function overdriveFor(t: StageTransfer, target: number, cleanPeak: number): { top: number } | null {
+  const most = MAX_OVERDRIVE * Math.max(cleanPeak, 1);
+  let top = Math.max(cleanPeak, 1e-3);
+  while (top < most) {
+    top = Math.min(2 * top, most);
+    if (fundamental(t, top, SEARCH_SAMPLES) >= target) return { top };
+  }
+  return null;
+}
+
+/** Which limit an input peak is past, or null when it is within the clean swing. */
+function limitPassed(clean: SwingResult, inputPeak: number): SwingLimit | null {
+  const past = (edge: number) => inputPeak > edge * (1 + 1e-9);
+  if (past(clean.toGridCurrent) && (!past(clean.toCutoff) || clean.toGridCurrent <= clean.toCutoff)) return 'grid-current';
+  return past(clean.toCutoff) ? 'cutoff' : null;
 }
 
 /**
@@ -90,18 +117,21 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
   if (typeof n !== 'number' || !isPowerOfTwo(n) || n < 32 || n > MAX_SAMPLES) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to ${MAX_SAMPLES} (got ${shown(n)})`, 'samples');
   const transfer = precomputed?.transfer ?? stageTransfer(s.checked, s.solution.op);
   const clean = precomputed?.swing ?? swingOf(s, transfer);
-  const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
-  const clipMessage = `Clipping: this stage is clean up to ${clean.input.rms.toPrecision(3)} V rms in, ${clean.output.rms.toPrecision(3)} V rms out; beyond that ${limit} sets in.`;
   let inputPeak: number;
   if ('inputRms' in level) {
     if (!(Number.isFinite(level.inputRms) && level.inputRms > 0)) return fail('invalid-input', `Input level must be above 0 V rms (got ${shown(level.inputRms)})`, 'inputRms');
     inputPeak = level.inputRms * Math.SQRT2;
-    if (inputPeak > clean.inputPeak * (1 + 1e-9)) return fail('clipping', clipMessage, 'inputRms');
+    if (inputPeak > MAX_OVERDRIVE * Math.max(clean.inputPeak, 1) * (1 + 1e-9)) return fail('clipping', `${shown(level.inputRms)} V rms is more than ${MAX_OVERDRIVE} times this stage's clean input of ${clean.input.rms.toPrecision(3)} V rms: far into clipping.`, 'inputRms');
   } else {
     if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${shown(level.outputRms)})`, 'outputRms');
     const target = level.outputRms * Math.SQRT2;
-    if (target > fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES) * (1 + 1e-9)) return fail('clipping', clipMessage, 'outputRms');
-    inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain);
+    if (target <= fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES)) inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain);
+    else {
+      const over = overdriveFor(transfer, target, clean.inputPeak);
+      const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
+      if (!over) return fail('clipping', `This stage cannot give ${shown(level.outputRms)} V rms: it is clean up to ${clean.output.rms.toPrecision(3)} V rms out (${clean.input.rms.toPrecision(3)} V rms in), where ${limit} sets in, and driven ${MAX_OVERDRIVE} times harder its output hardly grows.`, 'outputRms');
+      inputPeak = inputForOutput(transfer, target, over.top, s.solution.gain);
+    }
   }
   const y = cycleOutputs(transfer, inputPeak, n);
   let sum = 0;
@@ -120,13 +150,16 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
     inputRms: inputPeak / Math.SQRT2,
     outputRms: fund / Math.SQRT2,
     outputDcShift: sum / n,
+    pastClean: limitPassed(clean, inputPeak),
   };
 }
 
 /**
  * Harmonic distortion of a stage driven by a sine at a chosen output (or
  * input) level: one cycle sampled coherently, solved sample by sample on the
- * large-signal transfer, then an FFT. A level beyond the clean swing is a
+ * large-signal transfer, then an FFT. Past the clean swing it goes on (grid
+ * current through the real source, or cutoff), and says which limit the
+ * level is past; only a level no drive up to MAX_OVERDRIVE reaches is a
  * 'clipping' failure naming where clipping starts.
  */
 export function distortion(design: StageDesign, level: DriveLevel, options?: DistortionOptions | null): Result<DistortionResult> {

@@ -1,4 +1,5 @@
 import { CUTOFF_FRACTION } from '../tube/koren';
+import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
 import { modelOf, type TubeLike } from '../tube/types';
 import { fail, type Result } from '../result';
 import { solveFollower, type FollowerSolution } from '../stage/solveFollower';
@@ -61,7 +62,7 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
   // Each link's output at an input peak, and the tests that end its clean swing.
   let output: (vin: number) => number = (vin) => t1.at(vin).vout;
   const limits: { link: number; by: 'grid-current' | 'cutoff'; hit: (vin: number) => boolean }[] = [
-    { link: 0, by: 'grid-current', hit: (v) => t1.at(v).vgk >= 0 },
+    { link: 0, by: 'grid-current', hit: (v) => t1.at(v).vgk >= GRID_CURRENT_ONSET },
     { link: 0, by: 'cutoff', hit: (v) => t1.at(-v).ia <= CUTOFF_FRACTION * s1.op.ia },
   ];
   let gain = s1.gain;
@@ -74,7 +75,7 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
     const tf = followerTransfer(modelOf(second.tube), second.bplus, second.rk, second.rl ?? Infinity, f.op);
     const at = (v: number) => tf(s1.op.va + t1.at(v).vout);
     output = (v) => at(v).vk - f.op.vk;
-    limits.push({ link: 1, by: 'grid-current', hit: (v) => at(-v).vgk >= 0 || at(v).vgk >= 0 });
+    limits.push({ link: 1, by: 'grid-current', hit: (v) => at(-v).vgk >= GRID_CURRENT_ONSET || at(v).vgk >= GRID_CURRENT_ONSET });
     limits.push({ link: 1, by: 'cutoff', hit: (v) => at(v).ia <= CUTOFF_FRACTION * f.op.ia || at(-v).ia <= CUTOFF_FRACTION * f.op.ia });
     gain *= f.gain;
     zout = f.zout;
@@ -87,7 +88,7 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
     const t2 = stageTransfer(c2, s2.op);
     const at = (v: number) => t2.at(t1.at(v).vout);
     output = (v) => at(v).vout;
-    limits.push({ link: 1, by: 'grid-current', hit: (v) => at(v).vgk >= 0 || at(-v).vgk >= 0 });
+    limits.push({ link: 1, by: 'grid-current', hit: (v) => at(v).vgk >= GRID_CURRENT_ONSET || at(-v).vgk >= GRID_CURRENT_ONSET });
     limits.push({ link: 1, by: 'cutoff', hit: (v) => at(v).ia <= CUTOFF_FRACTION * s2.op.ia || at(-v).ia <= CUTOFF_FRACTION * s2.op.ia });
     gain *= s2.gain;
     zout = s2.zout;

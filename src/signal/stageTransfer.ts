@@ -1,4 +1,6 @@
 import { korenSlopesInto } from '../tube/koren';
+import { gridCurrent } from '../tube/gridCurrent';
+import { illinois } from '../numeric/illinois';
 import { modelOf } from '../tube/types';
 import type { CheckedStage } from '../stage/stageDesign';
 import type { OperatingPoint } from '../stage/solveStage';
@@ -13,6 +15,15 @@ import type { OperatingPoint } from '../stage/solveStage';
  * Ip − ia falls strictly with ia, so each sample has exactly one solution.
  * This is the circuit a simulator sees with large capacitors, solved without
  * any small-signal approximation.
+ *
+ * `vin` is the grid's swing as the source would make it with no grid current
+ * (its open-circuit voltage on the grid leak). Near and past the onset of
+ * grid current the grid draws Ig (see gridCurrent) through the source and
+ * leak in parallel, Rs ∥ Rg, and sits lower by Ig · (Rs ∥ Rg): that loop is
+ * solved with the plate's at every such instant, so a stage driven from a
+ * real source goes on past the onset, compressing, as a real one does. (The
+ * grid current's own share of an unbypassed Rk's drop is left out: below a
+ * hundredth of the plate current at the onset.)
  */
 export interface TransferSample {
   readonly vin: number;
@@ -21,6 +32,10 @@ export interface TransferSample {
   readonly ia: number;
   readonly vgk: number;
   readonly vpk: number;
+  /** Grid current, A (through the source and grid leak). */
+  readonly ig: number;
+  /** How far the grid current pulls the grid below its open-circuit swing, V: Ig · (Rs ∥ Rg). */
+  readonly gridDrop: number;
 }
 
 export interface StageTransfer {
@@ -33,6 +48,8 @@ export interface StageTransfer {
 const REL_TOL = 1e-12;
 /** Bisection alone would need about 45 steps to reach REL_TOL; Newton needs 2 to 4 from a warm start. */
 const MAX_STEPS = 80;
+/** A grid-current drop on the source below this, V, is left out (it moves the output by microvolts at most). */
+const GRID_DROP_FLOOR = 1e-7;
 
 export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfer {
   const p = modelOf(d.tube).params;
@@ -79,17 +96,36 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
   };
   const vaOf = (ia: number) => (drive - ia) * rPar;
   const vkOf = (ia: number) => (degenerate ? ia * d.rk : op.vk);
+  const model = modelOf(d.tube);
+  // What the grid sees looking back: the source and the grid leak in parallel (the leak alone carries no drop without a source).
+  const rGrid = d.rsource > 0 ? (d.rg === null ? d.rsource : (d.rsource * d.rg) / (d.rsource + d.rg)) : 0;
+
+  /**
+   * The grid swing the tube really gets, from the open-circuit one: equal to
+   * it until the grid draws current, then less by Ig · (Rs ∥ Rg), found by
+   * Illinois on Ig (the residual Ig − Ig(grid) rises with Ig, so one root).
+   */
+  const gridSwing = (vin: number): number => {
+    if (rGrid === 0) return vin;
+    const open = gridCurrent(model, d.vbias + vin - vkOf(solveIa(vin)));
+    if (open * rGrid < GRID_DROP_FLOOR) return vin;
+    const residual = (ig: number) => ig - gridCurrent(model, d.vbias + vin - rGrid * ig - vkOf(solveIa(vin - rGrid * ig)));
+    const ig = illinois(residual, 0, open, GRID_DROP_FLOOR / rGrid, { fa: -open });
+    return vin - rGrid * ig;
+  };
 
   return {
     at: (vin) => {
-      const ia = solveIa(vin);
+      const v = gridSwing(vin);
+      const ia = solveIa(v);
       const va = vaOf(ia);
       const vk = vkOf(ia);
-      return { vin, vout: va - op.va, ia, vgk: d.vbias + vin - vk, vpk: va - vk };
+      const vgk = d.vbias + v - vk;
+      return { vin, vout: va - op.va, ia, vgk, vpk: va - vk, ig: rGrid > 0 ? (vin - v) / rGrid : gridCurrent(model, vgk), gridDrop: vin - v };
     },
     outputs: (vins) => {
       const out = new Float64Array(vins.length);
-      for (let k = 0; k < vins.length; k++) out[k] = vaOf(solveIa(vins[k]!)) - op.va;
+      for (let k = 0; k < vins.length; k++) out[k] = vaOf(solveIa(gridSwing(vins[k]!))) - op.va;
       return out;
     },
   };

@@ -1,11 +1,12 @@
 import { CUTOFF_FRACTION } from '../tube/koren';
+import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
 import type { StageDesign } from '../stage/stageDesign';
 import type { Result } from '../result';
 import { solvedStage, type SolvedStage } from './analysisInput';
 import { sineLevel, type Level } from './levels';
 import { stageTransfer, type StageTransfer } from './stageTransfer';
 
-/** What ends a stage's clean swing: the grid reaching 0 V to the cathode, or the plate current falling to cutoff. */
+/** What ends a stage's clean swing: the grid reaching the onset of grid current (GRID_CURRENT_ONSET), or the plate current falling to cutoff. */
 export type SwingLimit = 'grid-current' | 'cutoff';
 
 export interface SwingResult {
@@ -38,13 +39,16 @@ function firstTrue(pred: (x: number) => boolean, start: number): number {
 
 /**
  * The clean swing of a solved stage on its transfer curve: the positive input
- * half-cycle ends where Vgk reaches 0 V (grid current), the negative one where
+ * half-cycle ends where the grid, as the source would swing it, reaches the
+ * onset of grid current (about −0.7 V to the cathode, see gridCurrent), the negative one where
  * Ia falls to 1 % of its quiescent value (this project's cutoff convention).
  * A symmetric sine is clean up to the smaller of the two.
  */
 export function swingOf(s: SolvedStage, transfer: StageTransfer = stageTransfer(s.checked, s.solution.op)): SwingResult {
   const { op } = s.solution;
-  const toGridCurrent = firstTrue((v) => transfer.at(v).vgk >= 0, -op.vgk);
+  // The open-circuit grid (the loaded one plus the grid current's drop on the source) against the onset;
+  // a grid biased past the onset already draws current and has no clean swing.
+  const toGridCurrent = op.vgk >= GRID_CURRENT_ONSET ? 0 : firstTrue((v) => { const x = transfer.at(v); return x.vgk + x.gridDrop >= GRID_CURRENT_ONSET; }, GRID_CURRENT_ONSET - op.vgk);
   const cutoffIa = CUTOFF_FRACTION * op.ia;
   const toCutoff = firstTrue((v) => transfer.at(-v).ia <= cutoffIa, -op.vgk);
   const input = sineLevel(Math.min(toGridCurrent, toCutoff));

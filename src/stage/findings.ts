@@ -1,5 +1,6 @@
 import type { TubeLike } from '../tube/types';
 import { recordOf } from '../tube/types';
+import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
 import { bySeverity, dissipationFinding, finding, heaterCathodeFinding, heaterCathodeRating, type Finding, type FindingKind, type Severity } from './ratingBands';
 
 export { DISSIPATION_WARN_FRACTION, HEATER_CATHODE_WARN_FRACTION, type Finding, type FindingKind, type Severity } from './ratingBands';
@@ -40,6 +41,8 @@ export function ratingsFindings(x: FindingInput): Finding[] {
     push('grid-current', 'danger', `The grid is ${v1(x.vgk)} V positive to the cathode and draws current: the stage will distort and load its driver.`, x.vgk, 0);
   } else if (x.vgk > -NO_BIAS_VOLTS && !x.fixedBias) {
     push('no-grid-bias', 'warning', 'No grid bias: the grid sits at the cathode\'s voltage and draws current on every positive half-cycle, so the stage distorts at any level. Give it a cathode resistor or a fixed bias.', x.vgk, 0);
+  } else if (x.vgk >= GRID_CURRENT_ONSET) {
+    push('grid-current-onset', 'warning', `The grid sits only ${Math.abs(x.vgk).toFixed(2)} V below its cathode, past the onset of grid current (about ${Math.abs(GRID_CURRENT_ONSET)} V): it draws current at rest and has no clean swing, so any source impedance distorts the signal. Bias it further negative.`, x.vgk, GRID_CURRENT_ONSET);
   }
   const rec = recordOf(x.tube);
   if (rec) {

@@ -11,6 +11,7 @@ export type FindingKind =
   | 'heater-cathode'
   | 'grid-current'
   | 'no-grid-bias'
+  | 'grid-current-onset'
   | 'grid-resistor'
   | 'cathode-current'
   | 'screen-dissipation'

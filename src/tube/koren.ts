@@ -1,4 +1,4 @@
-import type { KorenTriodeParams, TriodeModel } from './types';
+import type { KorenTriodeParams } from './types';
 import { shown } from '../shown';
 
 /**
@@ -81,18 +81,6 @@ export function korenSlopesInto(p: KorenTriodeParams, vpk: number, vgk: number, 
   out.ia = ia;
   out.gm = gm;
   out.ga = ga;
-}
-
-/**
- * Grid current for a positive grid, A: a Child–Langmuir 3/2-power law
- * (I = K·V^1.5, Child 1911, Langmuir 1913) with K chosen so the grid draws
- * 1 V / gridResistance at Vgk = 1 V. Zero for Vgk ≤ 0 (contact potential and
- * the small negative-grid current are neglected).
- */
-export function gridCurrent(model: TriodeModel, vgk: number): number {
-  if (!(vgk > 0) || typeof model !== 'object' || model === null || !(model.gridResistance > 0)) return 0;
-  const ig = Math.pow(vgk, 1.5) / model.gridResistance;
-  return Number.isFinite(ig) ? ig : 0;
 }
 
 /**

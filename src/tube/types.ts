@@ -22,7 +22,7 @@ export interface TriodeModel {
   readonly params: KorenTriodeParams;
   /**
    * Grid-to-cathode resistance of the positive-grid region in Ω, used by the
-   * Child–Langmuir grid-current law (see gridCurrent). Koren's table gives
+   * grid-current law (see tube/gridCurrent.ts). Koren's table gives
    * 2 kΩ for small-signal triodes and 1 kΩ for power triodes.
    */
   readonly gridResistance: number;

@@ -1,9 +1,10 @@
-import { render, screen } from '@testing-library/react';
+import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { distortion, findTube, swing } from '../../src/index';
+import { stageDesignOf } from '../../app/store/analysis';
+import { distortion, findTube, levelAtThd, swing } from '../../src/index';
 
 function setup() {
   const store = createWorkbenchStore();
@@ -24,17 +25,43 @@ describe('signal views', () => {
     expect(figure('limited-by')).toBe('grid current');
   });
 
-  it('a level beyond the clean swing says where clipping starts, and the figures keep their places', async () => {
+  it('a level no drive reaches says where clipping starts, and the figures keep their places', async () => {
     const { user, store } = setup();
     const level = screen.getByRole('textbox', { name: /^Output level/ });
     await user.clear(level);
     await user.type(level, '100');
     const d = store.getState().design;
-    const clean = swing({ tube: findTube(d.tubeId)!, bplus: d.bplus, ra: d.ra, rk: d.rk, rl: d.rl });
+    // The bench's stage as the model sees it: driven from the stage before it, whose output impedance its grid current flows through.
+    const clean = swing(stageDesignOf(d, findTube(d.tubeId)!));
     if (!clean.ok) throw new Error(clean.message);
     expect(store.getState().design.levelRms).toBe(100);
     // The signal views catch up once typing pauses.
-    expect((await screen.findByText(/^Clipping: this stage is clean up to/)).textContent).toContain(`${clean.output.rms.toPrecision(3)} V rms out`);
+    expect((await screen.findByText(/^This stage cannot give 100 V rms: it is clean up to/)).textContent).toContain(`${clean.output.rms.toPrecision(3)} V rms out`);
+  });
+
+  it('a level past the clean swing shows its distortion and which limit it is past', async () => {
+    const { user, store, figure } = setup();
+    const d = store.getState().design;
+    const clean = swing(stageDesignOf(d, findTube(d.tubeId)!));
+    if (!clean.ok) throw new Error(clean.message);
+    const level = screen.getByRole('textbox', { name: /^Output level/ });
+    await user.clear(level);
+    await user.type(level, (clean.output.rms * 1.2).toPrecision(3));
+    await waitFor(() => expect(figure('thd')).toContain('past the clean swing'));
+    expect(figure('thd')).toMatch(/^\d+(\.\d+)? % past the clean swing \((grid current|cutoff)\)$/);
+  });
+
+  it('the THD limit sets the level shown for it: the model\u2019s output at that THD, and what brings it', async () => {
+    const { user, store, view } = setup();
+    const field = screen.getByRole('textbox', { name: /^THD limit/ });
+    await user.clear(field);
+    await user.type(field, '1');
+    expect(store.getState().design.thdLimit).toBeCloseTo(0.01, 12);
+    const d = store.getState().design;
+    const model = levelAtThd(stageDesignOf(d, findTube(d.tubeId)!), 0.01);
+    if (!model.ok) throw new Error(model.message);
+    await waitFor(() => expect(view.container.querySelector('[data-figure="at-thd"] dt')?.textContent).toBe('Output at 1 % THD'));
+    await waitFor(() => expect(view.container.querySelector('[data-figure="at-thd"] dd')?.textContent).toMatch(new RegExp(`^${model.outputRms.toPrecision(3)} V rms`)));
   });
 
   it('draws the transfer curve, the harmonic bars, THD against level and the Bode plot', () => {

@@ -78,7 +78,8 @@ describe('an amplifier of 1 to 8 stages', () => {
   it('the clean power is the fundamental\'s (as the output stage states its own): asking for it takes the clean limit\'s input', () => {
     const c = amp(gainStage(), follower, output);
     const r = solved(c);
-    expect(r.clipsFirst).toEqual({ stage: 2, by: 'grid-current' });
+    // The follower's grid reaches the onset of grid current (−0.7 V to its cathode) before the EL34's reaches 0 V.
+    expect(r.clipsFirst).toEqual({ stage: 1, by: 'grid-current' });
     const at = amplifierAtLevel(c, { power: r.outputPower! * (1 - 1e-9) });
     if (!at.ok) throw new Error(at.message);
     expectClose(at.inputPeak, r.inputPeak, { rel: 1e-3 }, 'input for the clean power');

@@ -33,24 +33,37 @@ describe('distortion and swing', () => {
     for (let k = 1; k < sweep.length; k++) expect(sweep[k]!.thdPercent).toBeGreaterThan(sweep[k - 1]!.thdPercent);
   });
 
-  it('a level beyond clipping is reported as clipping, with the level where it starts', () => {
+  it('a level no drive reaches is reported as clipping, with the level where clean ends', () => {
     const clean = swing(stage);
     if (!clean.ok) throw new Error(clean.message);
     const r = distortion(stage, { outputRms: 500 });
     expect(r).toEqual({
       ok: false,
       reason: 'clipping',
-      message: `Clipping: this stage is clean up to ${clean.input.rms.toPrecision(3)} V rms in, ${clean.output.rms.toPrecision(3)} V rms out; beyond that grid current sets in.`,
+      message: `This stage cannot give 500 V rms: it is clean up to ${clean.output.rms.toPrecision(3)} V rms out (${clean.input.rms.toPrecision(3)} V rms in), where grid current sets in, and driven 10 times harder its output hardly grows.`,
       field: 'outputRms',
     });
-    expect(distortion(stage, { inputRms: clean.input.rms * 1.01 })).toMatchObject({ ok: false, reason: 'clipping', field: 'inputRms' });
   });
 
-  it('with Rk bypassed, the positive half-cycle is clean exactly until the grid reaches 0 V: an input peak of −Vgk', () => {
+  it('past the clean limit the distortion is computed, and says which limit the level is past', () => {
+    const clean = swing(stage);
+    if (!clean.ok) throw new Error(clean.message);
+    const inside = distortion(stage, { inputRms: clean.input.rms * 0.99 });
+    const past = distortion(stage, { inputRms: clean.input.rms * 1.5 });
+    if (!inside.ok || !past.ok) throw new Error('both should solve');
+    expect(inside.pastClean).toBeNull();
+    expect(past.pastClean).toBe('grid-current');
+    expect(past.thdPercent).toBeGreaterThan(inside.thdPercent);
+    const byOutput = distortion(stage, { outputRms: past.outputRms });
+    if (!byOutput.ok) throw new Error(byOutput.message);
+    expectClose(byOutput.inputRms, past.inputRms, { rel: 1e-6 }, 'the same level asked by its output');
+  });
+
+  it('with Rk bypassed, the positive half-cycle is clean until the grid reaches the onset of grid current: an input peak of −0.7 V − Vgk', () => {
     const r = swing(stage);
     if (!r.ok) throw new Error(r.message);
     expect(r.limitedBy).toBe('grid-current');
-    expectClose(r.toGridCurrent, 1.3142747, { rel: 1e-3 }); // this stage's Vgk, from solveStage
+    expectClose(r.toGridCurrent, 1.3142747 - 0.7, { rel: 1e-3 }); // this stage's Vgk, from solveStage, less the onset
   });
 
   // dBV re 1 V rms and dBu re 0.7746 V rms (1 mW into 600 Ω): common practice in audio.

@@ -15,12 +15,20 @@ export interface SpiceCaps {
   readonly cpk: number;
 }
 
-export function triodeSubckt(name: string, p: KorenTriodeParams, caps?: SpiceCaps): string {
+/** The grid-current law (src/tube/gridCurrent.ts) as a B-source: onset, cathode kT/e and the tube's Rgrid. */
+export interface SpiceGridCurrent {
+  readonly onset: number;
+  readonly vt: number;
+  readonly rgrid: number;
+}
+
+export function triodeSubckt(name: string, p: KorenTriodeParams, caps?: SpiceCaps, grid?: SpiceGridCurrent): string {
   return [
     `.subckt ${name} plate grid cathode`,
     `.param mu=${g(p.mu)} ex=${g(p.ex)} kg1=${g(p.kg1)} kp=${g(p.kp)} kvb=${g(p.kvb)}`,
     `.func e1(vp,vg) = (vp/kp)*ln(1+exp(kp*(1/mu + vg/sqrt(kvb + vp*vp))))`,
     `B1 plate cathode I = (1 + sgn(e1(v(plate,cathode),v(grid,cathode)))) * pwr(e1(v(plate,cathode),v(grid,cathode)),ex)/kg1`,
+    ...(grid ? [`BG grid cathode I = pwr(${g(grid.vt)}*ln(1+exp((v(grid,cathode)-(${g(grid.onset)}))/${g(grid.vt)})),1.5)/${g(grid.rgrid)}`] : []),
     ...(caps ? [`CGK grid cathode ${g(caps.cgk)}`, `CGP grid plate ${g(caps.cgp)}`, `CPK plate cathode ${g(caps.cpk)}`] : []),
     `.ends ${name}`,
   ].join('\n');
@@ -40,6 +48,8 @@ export interface SpiceStage {
   readonly rg?: number;
   readonly ck?: number;
   readonly cout?: number;
+  /** The grid-current law, when the stage's grid draws current (absent: none, as Koren's plate law alone). */
+  readonly grid?: SpiceGridCurrent;
 }
 
 /**
@@ -50,7 +60,7 @@ export interface SpiceStage {
 function stageElements(s: SpiceStage, source: string, large = { bypass: 1, coupling: 1 }): string[] {
   const hasInputNetwork = s.rsource !== undefined || s.cin !== undefined;
   return [
-    triodeSubckt('tri', s.params, s.caps),
+    triodeSubckt('tri', s.params, s.caps, s.grid),
     `VB bplus 0 DC ${g(s.bplus)}`,
     `RA bplus plate ${g(s.ra)}`,
     s.rk > 0 ? `RK cathode 0 ${g(s.rk)}` : 'VK cathode 0 DC 0',

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findTube, ratingsFindings, solveStage } from '../../src/index';
+import { findTube, GRID_CURRENT_ONSET, ratingsFindings, solveStage } from '../../src/index';
 
 const ax7 = findTube('12AX7')!;
 const base = { tube: ax7, bplus: 250, va: 150, vk: 1.5, vpk: 148.5, ia: 1e-3, vgk: -1.5, pa: 0.1485, heaterVolts: 0, rg: null, fixedBias: false };
@@ -94,5 +94,13 @@ describe('ratingsFindings', () => {
     if (!s.ok) throw new Error(s.message);
     expect(s.op.pa).toBeGreaterThan(1);
     expect(s.findings[0]).toMatchObject({ kind: 'plate-dissipation', severity: 'danger' });
+  });
+});
+
+describe('a grid biased past the onset of grid current', () => {
+  it('is warned of, with the onset as its limit; a grid well below it is not', () => {
+    const at = (vgk: number) => ratingsFindings({ ...base, vk: -vgk, vpk: 150 + vgk, vgk });
+    expect(at(-0.4).find((f) => f.kind === 'grid-current-onset')).toMatchObject({ severity: 'warning', limit: GRID_CURRENT_ONSET });
+    expect(at(-1.5).some((f) => f.kind === 'grid-current-onset')).toBe(false);
   });
 });
