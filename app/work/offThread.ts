@@ -19,6 +19,14 @@ export interface OffThread {
   cancel(): void;
 }
 
+/**
+ * The worker's script. Built, it is an entry of the page's own build
+ * (vite.config.ts), beside the page's chunk in assets/, so the model code
+ * both use is downloaded once, in chunks they share; in development the
+ * server compiles the source as it is asked for.
+ */
+const WORKER_SCRIPT = import.meta.env.PROD ? './modelWorker.js' : './modelWorker.ts';
+
 export function createOffThread(): OffThread {
   let worker: Worker | null = null;
   let remote: Remote<ModelWorkerApi> | null = null;
@@ -26,7 +34,7 @@ export function createOffThread(): OffThread {
   const hasWorkers = typeof Worker !== 'undefined';
   const ensure = () => {
     if (!remote) {
-      worker = new Worker(new URL('./modelWorker.ts', import.meta.url), { type: 'module' });
+      worker = new Worker(new URL(WORKER_SCRIPT, import.meta.url), { type: 'module' });
       remote = wrap<ModelWorkerApi>(worker);
     }
     return remote;
