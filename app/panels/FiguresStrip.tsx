@@ -39,7 +39,7 @@ export function FiguresStrip() {
         <Figure name="cin" label="Cin (Miller)" value={farads(sol.cin)} chars={6.5} />
       </dl>
       <dl className="figure-group">
-        <Figure name="to-grid-current" label="Grid swing to 0 V" value={volts(sol.toGridCurrent)} chars={7} />
+        <Figure name="to-grid-current" label="Grid swing to grid current" value={volts(sol.toGridCurrent)} chars={7} />
         <Figure name="to-cutoff" label="Grid swing to cutoff" value={volts(sol.toCutoff)} chars={7} />
       </dl>
     </section>

@@ -1,3 +1,4 @@
+import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
 import { CUTOFF_FRACTION, gridVoltageForCurrent } from '../tube/koren';
 import { smallSignalAt } from '../tube/triode';
 import { modelOf, recordOf } from '../tube/types';
@@ -30,7 +31,7 @@ export interface StageSolution {
   readonly zout: number;
   /** Input capacitance with the Miller effect, F (0 for a bare model with no capacitances). */
   readonly cin: number;
-  /** Grid swing from the operating point to 0 V grid–cathode (onset of grid current), V. */
+  /** Grid swing from the operating point to the onset of grid current (GRID_CURRENT_ONSET, about −0.7 V grid to cathode), V; 0 past it. */
   readonly toGridCurrent: number;
   /** Grid swing from the operating point down to where, at the same Vpk, the current falls to 1 % of its operating value, V. */
   readonly toCutoff: number;
@@ -75,7 +76,7 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
     gainUnbypassed,
     zout: commonCathodeZout(ss.mu, ss.rp, d.ra, d.rk, d.bypassed),
     cin,
-    toGridCurrent: -loop.vgk,
+    toGridCurrent: Math.max(0, GRID_CURRENT_ONSET - loop.vgk),
     toCutoff: loop.vgk - gridVoltageForCurrent(model.params, loop.vpk, CUTOFF_FRACTION * loop.ia),
     findings: ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }),
   };
