@@ -131,3 +131,7 @@ export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } f
 export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';
 export { solveSplitter, millerInputCapacitance, type SplitterDesign, type SplitterResult, type SplitterOutput } from './splitter/solveSplitter';
 export { compositeCurves } from './pushpull/compositeCurves';
+export { TARGET_NAMES, TARGET_LABELS, activeTargets, targetsProblem, type Targets, type TargetName } from './targets/targets';
+export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
+export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';
+export { rankTubes, type TubeRank } from './targets/rankTubes';

@@ -14,6 +14,13 @@ export type DriveLevel = { readonly outputRms: number } | { readonly inputRms: n
 export interface DistortionOptions {
   /** Samples per cycle for the FFT, a power of two; default 1024. */
   readonly samples?: number;
+  /**
+   * How closely an asked output level is met, relative; default 1e-8. A
+   * search over many designs (a target region) asks 1e-3: THD follows the
+   * level about in proportion, so its figure moves by a thousandth at most,
+   * for a third of the work.
+   */
+  readonly levelTolerance?: number;
 }
 
 export interface DistortionResult {
@@ -75,9 +82,9 @@ function fundamental(t: StageTransfer, peak: number, n: number): number {
 }
 
 /** Input peak giving a wanted fundamental output peak: Illinois regula falsi on [0, top], started from the small-signal estimate. */
-function inputForOutput(t: StageTransfer, target: number, top: number, gain: number): number {
+function inputForOutput(t: StageTransfer, target: number, top: number, gain: number, relTol = SEARCH_REL_TOL): number {
   const g = (peak: number) => fundamental(t, peak, SEARCH_SAMPLES) - target;
-  return illinois(g, 0, top, SEARCH_REL_TOL * target, { fa: -target, start: Math.min(target / Math.abs(gain), top) });
+  return illinois(g, 0, top, relTol * target, { fa: -target, start: Math.min(target / Math.abs(gain), top) });
 }
 
 /**
@@ -115,6 +122,8 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
   if (typeof level !== 'object' || level === null) return fail('invalid-input', 'Give an output or input level', 'outputRms');
   const n = options?.samples ?? DEFAULT_SAMPLES;
   if (typeof n !== 'number' || !isPowerOfTwo(n) || n < 32 || n > MAX_SAMPLES) return fail('invalid-input', `Samples per cycle must be a power of two from 32 to ${MAX_SAMPLES} (got ${shown(n)})`, 'samples');
+  const tolerance = options?.levelTolerance ?? SEARCH_REL_TOL;
+  if (typeof tolerance !== 'number' || !(tolerance >= 1e-12 && tolerance <= 0.01)) return fail('invalid-input', `The level tolerance must be from 1e-12 to 0.01 (got ${shown(tolerance)})`, 'levelTolerance');
   const transfer = precomputed?.transfer ?? stageTransfer(s.checked, s.solution.op);
   const clean = precomputed?.swing ?? swingOf(s, transfer);
   let inputPeak: number;
@@ -125,12 +134,12 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
   } else {
     if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${shown(level.outputRms)})`, 'outputRms');
     const target = level.outputRms * Math.SQRT2;
-    if (target <= fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES)) inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain);
+    if (target <= fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES)) inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain, tolerance);
     else {
       const over = overdriveFor(transfer, target, clean.inputPeak);
       const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
       if (!over) return fail('clipping', `This stage cannot give ${shown(level.outputRms)} V rms: it is clean up to ${clean.output.rms.toPrecision(3)} V rms out (${clean.input.rms.toPrecision(3)} V rms in), where ${limit} sets in, and driven ${MAX_OVERDRIVE} times harder its output hardly grows.`, 'outputRms');
-      inputPeak = inputForOutput(transfer, target, over.top, s.solution.gain);
+      inputPeak = inputForOutput(transfer, target, over.top, s.solution.gain, tolerance);
     }
   }
   const y = cycleOutputs(transfer, inputPeak, n);

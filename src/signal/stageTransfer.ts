@@ -107,9 +107,12 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
    */
   const gridSwing = (vin: number): number => {
     if (rGrid === 0) return vin;
-    const open = gridCurrent(model, d.vbias + vin - vkOf(solveIa(vin)));
+    // With the cathode held (bypassed, or no Rk) the open-circuit grid needs no plate solve.
+    const open = gridCurrent(model, d.vbias + vin - (degenerate ? vkOf(solveIa(vin)) : op.vk));
     if (open * rGrid < GRID_DROP_FLOOR) return vin;
-    const residual = (ig: number) => ig - gridCurrent(model, d.vbias + vin - rGrid * ig - vkOf(solveIa(vin - rGrid * ig)));
+    // The cathode's voltage at a trial grid current: held (no plate solve needed), or Ia·Rk with the plate solved there.
+    const vkAt = (ig: number) => (degenerate ? vkOf(solveIa(vin - rGrid * ig)) : op.vk);
+    const residual = (ig: number) => ig - gridCurrent(model, d.vbias + vin - rGrid * ig - vkAt(ig));
     const ig = illinois(residual, 0, open, GRID_DROP_FLOOR / rGrid, { fa: -open });
     return vin - rGrid * ig;
   };

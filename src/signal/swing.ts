@@ -25,11 +25,11 @@ export interface SwingResult {
 const BISECTIONS = 60;
 
 /** Smallest positive x with pred(x) true, given pred(0) false and pred monotone; bisection with an expanding upper end. */
-function firstTrue(pred: (x: number) => boolean, start: number): number {
+function firstTrue(pred: (x: number) => boolean, start: number, bisections: number): number {
   let hi = Math.max(start, 1e-6);
   for (let k = 0; k < 60 && !pred(hi); k++) hi *= 2;
   let lo = 0;
-  for (let k = 0; k < BISECTIONS; k++) {
+  for (let k = 0; k < bisections; k++) {
     const mid = 0.5 * (lo + hi);
     if (pred(mid)) hi = mid;
     else lo = mid;
@@ -44,13 +44,13 @@ function firstTrue(pred: (x: number) => boolean, start: number): number {
  * Ia falls to 1 % of its quiescent value (this project's cutoff convention).
  * A symmetric sine is clean up to the smaller of the two.
  */
-export function swingOf(s: SolvedStage, transfer: StageTransfer = stageTransfer(s.checked, s.solution.op)): SwingResult {
+export function swingOf(s: SolvedStage, transfer: StageTransfer = stageTransfer(s.checked, s.solution.op), bisections = BISECTIONS): SwingResult {
   const { op } = s.solution;
   // The open-circuit grid (the loaded one plus the grid current's drop on the source) against the onset;
   // a grid biased past the onset already draws current and has no clean swing.
-  const toGridCurrent = op.vgk >= GRID_CURRENT_ONSET ? 0 : firstTrue((v) => { const x = transfer.at(v); return x.vgk + x.gridDrop >= GRID_CURRENT_ONSET; }, GRID_CURRENT_ONSET - op.vgk);
+  const toGridCurrent = op.vgk >= GRID_CURRENT_ONSET ? 0 : firstTrue((v) => { const x = transfer.at(v); return x.vgk + x.gridDrop >= GRID_CURRENT_ONSET; }, GRID_CURRENT_ONSET - op.vgk, bisections);
   const cutoffIa = CUTOFF_FRACTION * op.ia;
-  const toCutoff = firstTrue((v) => transfer.at(-v).ia <= cutoffIa, -op.vgk);
+  const toCutoff = firstTrue((v) => transfer.at(-v).ia <= cutoffIa, -op.vgk, bisections);
   const input = sineLevel(Math.min(toGridCurrent, toCutoff));
   // A grid with no bias has no clean swing at all: exactly 0, not a bisection's last 1e-24 V.
   const output = sineLevel(input.peak > 0 ? Math.abs(transfer.at(input.peak).vout - transfer.at(-input.peak).vout) / 2 : 0);

@@ -1,0 +1,116 @@
+import { designAtPlanePoint } from '../stage/designAtPoint';
+import { heaterCathodeRating } from '../stage/ratingBands';
+import { normalizeStage, type StageDesign } from '../stage/stageDesign';
+import { solveStage } from '../stage/solveStage';
+import { distortionOf } from '../signal/distortion';
+import { stageTransfer } from '../signal/stageTransfer';
+import { swingOf } from '../signal/swing';
+import { recordOf, type TubeLike } from '../tube/types';
+import type { TargetName, Targets } from './targets';
+
+/** The stage a region is drawn for: everything but Ra and Rk, which each point of the plane sets. */
+export interface RegionStage {
+  readonly tube: TubeLike;
+  readonly bplus: number;
+  /** The next stage's load, Ω (Infinity for none). */
+  readonly rl: number;
+  /** What drives the grid, Ω. */
+  readonly rsource: number;
+  readonly bypassed: boolean;
+  /** The stage's own grid leak, Ω (default 1 MΩ). */
+  readonly rg?: number;
+}
+
+/** A point no cathode-biased stage on this B+ can sit at (above the 0 V grid curve, or past the load line's end). */
+export const UNREACHABLE = 'unreachable';
+
+export interface PointVerdict {
+  /** The parts that put the stage there, Ω; NaN-free: 0 where unreachable. */
+  readonly ra: number;
+  readonly rk: number;
+  /** The targets that fail here, or [UNREACHABLE]. */
+  readonly failing: readonly string[];
+  /** Each target's margin: 0 at its edge, positive inside (a share of the target), negative outside. */
+  readonly margins: Partial<Record<TargetName, number>>;
+  /** The smallest margin: how well the worst target is met (negative: by how much it is missed); −Infinity where unreachable. */
+  readonly score: number;
+}
+
+/** Bisection steps for a point's clean swing: its edges to a few parts in 10⁸ of the bracket, far finer than a target needs. */
+const SWING_BISECTIONS = 26;
+/** Samples per cycle for a point's THD: 32 resolve H2 to H9 and more (a hundredth of a percent at the levels targets name). */
+const THD_SAMPLES = 32;
+/** The asked level met to a thousandth: THD moves by a thousandth of itself at most. */
+const LEVEL_TOLERANCE = 1e-3;
+
+const unreachable: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity });
+
+/**
+ * One point of the plate plane against the targets: the Ra and Rk that put a
+ * cathode-biased stage there, one solve of that stage, and from it every
+ * target, the costly ones (swing, THD) only when a target needs them.
+ */
+export function evaluatePoint(stage: RegionStage, targets: Targets, active: readonly TargetName[], vpk: number, ia: number): PointVerdict {
+  const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia });
+  if (!at.ok) return unreachable;
+  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6 };
+  const solution = solveStage(design);
+  const checked = normalizeStage(design);
+  if (!solution.ok || !checked.ok) return unreachable;
+  const s = { checked, solution };
+  const needsSwing = active.includes('minCleanOutputRms') || active.includes('minGridHeadroom') || active.includes('maxThdAt');
+  const transfer = needsSwing ? stageTransfer(checked, solution.op) : null;
+  const swing = transfer ? swingOf(s, transfer, SWING_BISECTIONS) : null;
+  const rec = recordOf(stage.tube);
+  const margins: Partial<Record<TargetName, number>> = {};
+  const within = (x: number, [lo, hi]: readonly [number, number]) => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
+  for (const k of active) {
+    switch (k) {
+      case 'minGain':
+        margins.minGain = Math.abs(solution.gain) / targets.minGain! - 1;
+        break;
+      case 'minCleanOutputRms':
+        margins.minCleanOutputRms = swing!.output.rms / targets.minCleanOutputRms! - 1;
+        break;
+      case 'maxThdAt': {
+        // Held within the clean swing: a working level past grid current or cutoff fails, by how far it is past.
+        const want = targets.maxThdAt!;
+        if (want.outputRms > swing!.output.rms) {
+          margins.maxThdAt = swing!.output.rms / want.outputRms - 1;
+          break;
+        }
+        const r = distortionOf(s, { outputRms: want.outputRms }, { samples: THD_SAMPLES, levelTolerance: LEVEL_TOLERANCE }, { transfer: transfer!, swing: swing! });
+        margins.maxThdAt = r.ok ? 1 - r.thdPercent / (100 * want.thd) : -1;
+        break;
+      }
+      case 'maxDissipationFraction':
+        margins.maxDissipationFraction = rec ? 1 - solution.op.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! : 0;
+        break;
+      case 'maxZout':
+        margins.maxZout = 1 - solution.zout / targets.maxZout!;
+        break;
+      case 'raRange':
+        margins.raRange = within(at.ra, targets.raRange!);
+        break;
+      case 'rkRange':
+        margins.rkRange = within(at.rk, targets.rkRange!);
+        break;
+      case 'minGridHeadroom':
+        margins.minGridHeadroom = swing!.inputPeak / targets.minGridHeadroom! - 1;
+        break;
+      case 'heaterCathodeWithinRating': {
+        const hk = rec && !rec.directlyHeated ? heaterCathodeRating(rec.ratings) : null;
+        margins.heaterCathodeWithinRating = hk ? 1 - solution.op.vk / hk.cathodePositive : 0;
+        break;
+      }
+    }
+  }
+  let score = Infinity;
+  const failing: string[] = [];
+  for (const k of active) {
+    const m = margins[k]!;
+    if (m < 0) failing.push(k);
+    if (m < score) score = m;
+  }
+  return { ra: at.ra, rk: at.rk, failing, margins, score: active.length === 0 ? 0 : score };
+}

@@ -1,0 +1,61 @@
+import { fail, type Result } from '../result';
+import { plateExtent } from '../stage/plateExtent';
+import { tubeLibrary } from '../tube/library';
+import type { TubeRecord } from '../tube/types';
+import { evaluatePoint, UNREACHABLE, type RegionStage } from './evaluatePoint';
+import { feasibleRegion } from './feasibleRegion';
+import { activeTargets, type TargetName, type Targets } from './targets';
+
+export interface TubeRank {
+  readonly tubeId: string;
+  /** The parts of its best design, Ω. */
+  readonly ra: number;
+  readonly rk: number;
+  /** Each target's margin there (0 at its edge, positive inside). */
+  readonly margins: Partial<Record<TargetName, number>>;
+  /** The smallest margin: ≥ 0 when every target holds. */
+  readonly score: number;
+  /** Where it sits on the plate plane, V and A. */
+  readonly vpk: number;
+  readonly ia: number;
+}
+
+/** The coarse look per tube, then a finer one around its best cell: 16 × 12 and 7 × 7 points. */
+const COARSE = { nx: 16, ny: 12 };
+const FINE = 7;
+
+/**
+ * Every tube (the library's, or those given) ranked by how well its best
+ * design on this B+ and load meets the targets: a coarse region, then a
+ * finer search around its best point. Best first, as `ranks` (a Result, so
+ * bad targets are a typed failure); a tube no point of which is reachable is
+ * left out.
+ */
+export function rankTubes(targets: Targets, stage: Omit<RegionStage, 'tube'>, tubes: readonly TubeRecord[] = tubeLibrary): Result<{ ranks: TubeRank[] }> {
+  if (!Array.isArray(tubes)) return fail('invalid-input', 'Tubes must be a list', 'tubes');
+  const active = activeTargets(typeof targets === 'object' && targets !== null ? targets : {});
+  const ranks: TubeRank[] = [];
+  for (const tube of tubes) {
+    const s: RegionStage = { ...stage, tube };
+    const ext = plateExtent(tube, stage.bplus);
+    const region = feasibleRegion(s, targets, { ...COARSE, extent: ext });
+    if (!region.ok) {
+      if (region.field === 'tube') continue;
+      return region;
+    }
+    if (!region.best) continue;
+    const dv = ext.vmax / COARSE.nx;
+    const di = ext.iaMax / COARSE.ny;
+    let top = { vpk: region.va[region.best.i]!, ia: region.ia[region.best.j]!, ra: region.best.ra, rk: region.best.rk, score: region.best.score, margins: region.best.margins };
+    for (let a = 0; a < FINE; a++) {
+      for (let b = 0; b < FINE; b++) {
+        const vpk = region.va[region.best.i]! + dv * ((a + 0.5) / FINE - 0.5);
+        const ia = region.ia[region.best.j]! + di * ((b + 0.5) / FINE - 0.5);
+        const v = evaluatePoint(s, targets, active, vpk, ia);
+        if (v.failing[0] !== UNREACHABLE && v.score > top.score) top = { vpk, ia, ra: v.ra, rk: v.rk, score: v.score, margins: v.margins };
+      }
+    }
+    ranks.push({ tubeId: tube.id, ...top });
+  }
+  return { ok: true, ranks: ranks.sort((x, y) => y.score - x.score) };
+}
