@@ -27,6 +27,7 @@ import { ComparePanel } from './panels/ComparePanel';
 import { CustomTubePanel } from './panels/CustomTubePanel';
 import { ExportPanel } from './panels/ExportPanel';
 import { KeepPanel } from './panels/KeepPanel';
+import { TargetsPanel } from './targets/TargetsPanel';
 import type { WorkbenchStore } from './store/workbenchStore';
 
 export function App({ store }: { store?: WorkbenchStore }) {
@@ -68,6 +69,7 @@ function VoltageBench() {
             <section className="sheet-panel" aria-label="Plate curves">
               <PlateChart />
             </section>
+            <TargetsPanel />
             <FindingsList />
             <SignalPanel />
             <SignalCharts />

@@ -4,11 +4,12 @@ import { App } from './App';
 import { createWorkbenchStore } from './store/workbenchStore';
 import { warmDragPath } from './store/warmDragPath';
 import { supplyBetweenFrames } from './work/supplyBetweenFrames';
+import { regionThread } from './work/regionThread';
 import './styles.css';
 
 const root = document.getElementById('root');
 if (root) {
-  const store = createWorkbenchStore({ supplySolver: supplyBetweenFrames() });
+  const store = createWorkbenchStore({ supplySolver: supplyBetweenFrames(), ...(typeof Worker !== 'undefined' ? { regionSolver: regionThread() } : {}) });
   createRoot(root).render(
     <StrictMode>
       <App store={store} />

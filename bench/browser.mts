@@ -87,6 +87,9 @@ export interface BrowserResults {
   readonly dragByCurveCount: Record<string, Stats>;
   readonly firstCurveMs: Stats;
   readonly heavyInputs: HeavyInputResults;
+  /** A target changed: time until the region's first (coarse) look is on the chart, and until the full grid is. */
+  readonly regionFirstPaint: Stats;
+  readonly regionFullPaint: Stats;
   readonly jsGzipBytes: number;
   readonly cssGzipBytes: number;
 }
@@ -187,9 +190,55 @@ export async function benchBrowser(): Promise<BrowserResults> {
       await fresh.close();
     }
     const heavyInputs = await benchHeavyInputs(browser, url);
-    return { heavyInputs, dragChainColdStart, dragChain, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    const region = await regionPaints(browser, url);
+    return { regionFirstPaint: stats(region.first), regionFullPaint: stats(region.full), heavyInputs, dragChainColdStart, dragChain, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();
   }
+}
+
+/**
+ * The target region after a change: a target typed (a fresh value each
+ * time), then the time until the chart shows the region's coarse look and
+ * until it shows the full grid, both read in the page (the status line the
+ * panel writes when each is drawn), the Web Worker doing the work.
+ */
+export async function regionPaints(browser: Awaited<ReturnType<typeof openBrowser>>, url: string): Promise<{ first: number[]; full: number[] }> {
+  const page = (await openWorkbench(browser, url)).page;
+  await page.evaluate(() => localStorage.clear());
+  await page.reload();
+  await page.waitForSelector('.layer-curves path');
+  // Every costly target set (THD at a level, clean output), as a builder would: the gain is then changed.
+  for (const [name, value] of [['tThd', '1'], ['tThdLevel', '2'], ['tClean', '15'], ['tDiss', '70'], ['tHeadroom', '1']] as const) await page.locator(`input[name=${name}]`).fill(value);
+  const first: number[] = [];
+  const full: number[] = [];
+  for (let k = 0; k < 12; k++) {
+    const times = await page.evaluate(async (gain) => {
+      const input = [...document.querySelectorAll('input')].find((i) => i.name === 'tGain')!;
+      const status = document.querySelector('[data-testid=region-status]')!;
+      const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
+      const t0 = performance.now();
+      let coarse = NaN;
+      await new Promise<void>((done) => {
+        const watch = new MutationObserver(() => {
+          const text = status.textContent ?? '';
+          if (Number.isNaN(coarse) && /coarse/.test(text)) coarse = performance.now() - t0;
+          if (/60 × 40/.test(text) || (/meet every target\.$|misses? by|missed by/.test(text) && !/coarse/.test(text))) {
+            watch.disconnect();
+            done();
+          }
+        });
+        watch.observe(status, { childList: true, characterData: true, subtree: true });
+        setter.call(input, String(gain));
+        input.dispatchEvent(new Event('input', { bubbles: true }));
+      });
+      const total = performance.now() - t0;
+      return { coarse: Number.isNaN(coarse) ? total : coarse, total };
+    }, 8 + (k % 6));
+    first.push(times.coarse);
+    full.push(times.total);
+  }
+  await page.close();
+  return { first, full };
 }

@@ -1,3 +1,4 @@
+import { feasibleRegion, rankTubes, type Targets } from '../src/index';
 import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
@@ -9,6 +10,14 @@ import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 /** The demo line stage with its signal parts: what the workbench analyses on every change. */
 const STAGE = { tube: findTube('12AU7')!, bplus: 275, ra: 27e3, rk: 1200, rl: 220e3, rg: 1e6, rsource: 1e3, cin: 470e-9, ck: 100e-6, cout: 1e-6 };
 const FREQS = logFrequencies(1, 1e6, 15);
+
+/**
+ * The target region's stage and a target of every kind, THD among them:
+ * a 12AX7 line stage (invented demo targets), over its chart's window.
+ */
+const REGION_STAGE = { tube: findTube('12AX7')!, bplus: 300, rl: 470e3, rsource: 10e3, bypassed: true };
+const REGION_TARGETS: Targets = { minGain: 40, minCleanOutputRms: 15, maxThdAt: { outputRms: 2, thd: 0.01 }, maxDissipationFraction: 0.7, maxZout: 80e3, raRange: [47e3, 470e3], rkRange: [470, 4.7e3], minGridHeadroom: 1, heaterCathodeWithinRating: true };
+const region = (nx: number, ny: number) => feasibleRegion(REGION_STAGE, REGION_TARGETS, { nx, ny });
 
 /** The whole one-stage analysis: operating point, small signal, swing, distortion at 2 V rms, response and corners. */
 export function fullAnalysis(samples = 1024): void {
@@ -139,6 +148,13 @@ export interface ModelResults {
   readonly outputLight: Stats;
   /** Output stage: everything, with the power sweep and the primary-impedance sweep (after a drag). */
   readonly outputFull: Stats;
+  /** The target region: the coarse first look (30 × 20) and the full grid (60 × 40), every target set. */
+  readonly regionCoarse: Stats;
+  readonly regionFull: Stats;
+  /** One point of the region: the full grid's time over its 2,400 points (every target judged from one solve). */
+  readonly regionPoint: Stats;
+  /** Every library tube ranked against the same targets. */
+  readonly rankLibrary: Stats;
 }
 
 /** One measure: the call, the calls timed per block, the warm-up before its first block. */
@@ -174,6 +190,9 @@ export function benchModel(): ModelResults {
     pushPullAmplifier: [() => pushPullAmplifier(), 10, 3],
     amplifierOnSupply: [() => amplifierOnSupply(), 2, 1],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
+    regionCoarse: [() => region(30, 20), 5, 2],
+    regionFull: [() => region(60, 40), 3, 1],
+    rankLibrary: [() => rankTubes(REGION_TARGETS, { bplus: 300, rl: 470e3, rsource: 10e3, bypassed: true }), 2, 1],
     plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
     fit200: [() => fitTriode(pts), 7, 2],
     outputLight: [() => analyzeOutput(EL34, OUTPUT, { light: true }), 70, 20],
@@ -185,5 +204,6 @@ export function benchModel(): ModelResults {
     fft16384: [() => fullAnalysis(16384), 20, 5],
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
-  return { pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  const perPoint = (s: Stats): Stats => ({ ...s, median: s.median / 2400, p95: s.p95 / 2400, min: s.min / 2400, max: s.max / 2400, ...(s.p95Runs ? { p95Runs: s.p95Runs.map((x) => x / 2400) } : {}) });
+  return { regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

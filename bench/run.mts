@@ -33,6 +33,10 @@ line('fit of 200 points', model.fit200, { value: 300, on: 'median' });
 for (const [n, s] of Object.entries(model.fftScaling)) line(`  full analysis, FFT of ${n} points`, s);
 line('output stage, light (per drag frame)', model.outputLight);
 line('output stage, full (with both sweeps)', model.outputFull);
+line('target region, coarse 30 × 20 (first look)', model.regionCoarse, { value: 100, on: 'median' });
+line('target region, full 60 × 40', model.regionFull, { value: 300, on: 'median' });
+line('  one point of it (one solve, every target)', model.regionPoint, { value: 0.5, on: 'median' });
+line('every library tube ranked against targets', model.rankLibrary, { value: 1000, on: 'median' });
 
 let browser: BrowserResults | null = null;
 if (existsSync('/usr/bin/chromium')) {
@@ -49,6 +53,8 @@ if (existsSync('/usr/bin/chromium')) {
   line('drag, push-pull pair behind its splitter', browser.dragPushPull, { value: 8, on: 'p95' });
   for (const [n, s] of Object.entries(browser.dragByCurveCount)) line(`  drag with up to ${n} curves`, s);
   line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });
+  line('target changed: region first shown (coarse)', browser.regionFirstPaint, { value: 100, on: 'median' });
+  line('target changed: region complete (60 × 40)', browser.regionFullPaint, { value: 300, on: 'median' });
   console.log(`${'production JS, gzipped'.padEnd(44)} ${(browser.jsGzipBytes / 1024).toFixed(1)} kB  ${browser.jsGzipBytes <= 200 * 1024 ? 'within' : 'MISSES'} budget 200 kB`);
   console.log(`${'production CSS, gzipped'.padEnd(44)} ${(browser.cssGzipBytes / 1024).toFixed(1)} kB`);
   console.log('\nLongest main-thread task for inputs that once froze the page (budget 200 ms; "50" means none over 50 ms)');

@@ -1,4 +1,5 @@
 import { LIMIT_STROKES, PALETTE } from './palette';
+import { REGION_HATCH_ID } from '../targets/drawRegion';
 
 export interface LegendItem {
   readonly label: string;
@@ -38,7 +39,7 @@ export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'The path the tube takes with the grids driven to 0 V (solved with its partner)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
-export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND }: { first: string; rival: string | null; items?: readonly LegendItem[] }) {
+export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = false }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: boolean }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">
       {rival ? (
@@ -63,6 +64,14 @@ export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND }: { fi
         </svg>
         Operating point
       </li>
+      {region ? (
+        <li>
+          <svg width="30" height="14" aria-hidden="true">
+            <rect x="1" y="1" width="28" height="12" fill={`url(#${REGION_HATCH_ID})`} stroke={PALETTE.rival} strokeWidth="0.8" />
+          </svg>
+          Every target met (hatched; ringed: the best point; the cursor readout names the targets failing elsewhere)
+        </li>
+      ) : null}
     </ul>
   );
 }

@@ -13,6 +13,7 @@ import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
 import { useChartBox } from './useChartBox';
 import { DESIGN_LIMITS } from '../store/designLimits';
+import { drawRegion, REGION_HATCH_ID } from '../targets/drawRegion';
 
 /** Arrow keys move the point by 1 % of the chart window, 5 % with Shift. */
 const STEP = 0.01;
@@ -38,6 +39,12 @@ export function PlateChart() {
   const bplusHandle = useRef<SVGGElement>(null);
   const rivalHandle = useRef<SVGGElement>(null);
   const spreadLayer = useRef<SVGGElement>(null);
+  const regionLayer = useRef<SVGGElement>(null);
+  const region = useWorkbench((s) => (s.region?.result.ok ? s.region.result : null));
+
+  useEffect(() => {
+    if (regionLayer.current) drawRegion(regionLayer.current, region, scales);
+  }, [region, scales]);
   const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging ? buildSheetOf(s).spread : null));
 
   useEffect(() => {
@@ -129,7 +136,14 @@ export function PlateChart() {
         role="group"
         aria-label={`Plate curves of the ${tubeId} with the stage's load lines and operating point`}
       >
+        <defs>
+          <pattern id={REGION_HATCH_ID} patternUnits="userSpaceOnUse" width={7} height={7} patternTransform="rotate(45)">
+            <rect width={7} height={7} fill={PALETTE.rival} fillOpacity={0.1} />
+            <line x1={0} y1={0} x2={0} y2={7} stroke={PALETTE.rival} strokeWidth={2} strokeOpacity={0.55} />
+          </pattern>
+        </defs>
         <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
+        <g ref={regionLayer} className="layer-region" pointerEvents="none" />
         <rect
           className="hover-surface"
           x={x0}
@@ -184,7 +198,7 @@ export function PlateChart() {
         <ChartWindowSwitch />
         <CurveDensity />
       </div>
-      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} />
+      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={region !== null} />
     </div>
   );
 }

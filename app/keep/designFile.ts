@@ -1,6 +1,7 @@
 import { pairDefaults, type OutputPair, type OutputPlan, type SplitterPlan } from '../store/outputPlan';
 import { findOutputTube, TABLE_THD, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
+import { NO_TARGETS, type TargetPlan } from '../store/targetPlan';
 import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
 import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, JOIN, OUTPUT_STAGE, quote, STAGE_KIND } from './designSchema';
@@ -189,6 +190,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     cout: d.cout as number | null,
     levelRms: d.levelRms as number,
     thdLimit: (d.thdLimit as number | undefined) ?? TABLE_THD,
+    targets: (d.targets as TargetPlan | undefined) ?? NO_TARGETS,
     stage2: {
       kind: s2.kind as Stage2Design['kind'],
       tubeId: knownId(s2.tubeId as string),

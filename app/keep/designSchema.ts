@@ -44,6 +44,23 @@ export const BENCH_STAGE = v.object({
   levelRms: ranged(L.levelRms),
   // Came within version 3: absent, the published tables' 5 %.
   thdLimit: v.optional(ranged(L.output.thdLimit)),
+  // Came within version 3: absent, no targets.
+  targets: v.optional(
+    section({
+      minGain: rangedOrNull(L.targets.gain),
+      minCleanOutputRms: rangedOrNull(L.targets.level),
+      thdLevelRms: rangedOrNull(L.targets.level),
+      maxThd: rangedOrNull(L.targets.thd),
+      maxDissipationFraction: rangedOrNull(L.targets.dissipation),
+      maxZout: rangedOrNull(L.targets.ohms),
+      raMin: rangedOrNull(L.targets.ohms),
+      raMax: rangedOrNull(L.targets.ohms),
+      rkMin: rangedOrNull(L.targets.ohms),
+      rkMax: rangedOrNull(L.targets.ohms),
+      minGridHeadroom: rangedOrNull(L.targets.headroom),
+      heaterCathodeWithinRating: yesNo(),
+    }),
+  ),
   stage2: section({
     kind: oneOf(['none', 'follower', 'common-cathode']),
     tubeId: tubeName(),

@@ -17,6 +17,7 @@ import {
 import { lookupTube } from '../keep/customTubes';
 import { analyzeSignal, secondStageProblem, type SignalAnalysis } from './signalAnalysis';
 import type { SupplyPlan } from './supplyPlan';
+import type { TargetPlan } from './targetPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
 import { benchSource } from './amplifierChain';
 
@@ -62,6 +63,8 @@ export interface BenchDesign {
   readonly drivesOutput: boolean;
   /** The B+ supply, solved with the amplifier when it is on. */
   readonly supply: SupplyPlan;
+  /** What the builder asks of the bench's stage; the plate chart shades where it all holds. */
+  readonly targets: TargetPlan;
 }
 
 export type StageKind = 'voltage' | 'output';

@@ -1,5 +1,6 @@
 import { TABLE_THD } from '../../src/index';
 import { pairDefaults } from './outputPlan';
+import { NO_TARGETS } from './targetPlan';
 import type { BenchDesign } from './analysis';
 import { autoTitle } from './autoTitle';
 import { DEMO_SUPPLY } from './supplyPlan';
@@ -28,6 +29,7 @@ export const DEMO_DESIGN: BenchDesign = {
   cout: 1e-6,
   levelRms: 2,
   thdLimit: TABLE_THD,
+  targets: NO_TARGETS,
   stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
   // The input stage: a 12AX7 section, 100 kΩ plate, 1.5 kΩ cathode left unbypassed (its feedback keeps the gain near 30
   // and the distortion low), fed from the source through 470 nF into 1 MΩ.

@@ -27,6 +27,14 @@ export const DESIGN_LIMITS = {
   ck: limit(1e-9, 1, 'F'),
   cout: limit(1e-12, 1, 'F'),
   levelRms: limit(1e-4, 1000, 'V rms'),
+  targets: {
+    gain: limit(0.01, 10000, '×'),
+    level: limit(1e-4, 1000, 'V rms'),
+    thd: limit(1e-5, 0.5, ''),
+    dissipation: limit(0.01, 1.5, ''),
+    ohms: limit(1, 100e6, 'Ω'),
+    headroom: limit(1e-3, 1000, 'V'),
+  },
   stage2: {
     ra: limit(100, 10e6, 'Ω'),
     rk: limit(1, 10e6, 'Ω'),

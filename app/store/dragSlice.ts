@@ -3,6 +3,7 @@ import { designAtPlanePoint, nearestPreferred, nearestReachable } from '../../sr
 import type { BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
 import { DESIGN_LIMITS } from './designLimits';
+import { nearestInside, regionRequestOf } from './regionSlice';
 
 /**
  * Dragging on the plate chart. While the operating point moves, B+ stays
@@ -58,13 +59,18 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
       set({ dragNote: reach.message });
       return;
     }
-    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
+    // Held inside the target region when asked (and the region is worked out for this very stage).
+    const region = s.keepInside && s.region?.result.ok && s.region.key === regionRequestOf(s)?.key ? s.region.result : null;
+    const held = region ? nearestInside(region, reach.vpk, reach.ia) : null;
+    const to = held ?? reach;
+    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: to.vpk, ia: to.ia });
     if (!d.ok) {
       set({ dragNote: d.message });
       return;
     }
     const failure = s.commit({ ...s.design, ra: d.ra, rk: d.rk }, { extent: sheet.extent, light: true });
-    set({ dragNote: failure ? failure.message : reach.reason });
+    const kept = held && (held.vpk !== reach.vpk || held.ia !== reach.ia) ? 'Held inside the target region.' : null;
+    set({ dragNote: failure ? failure.message : (reach.reason ?? kept) });
   },
 
   dragBplusTo: (volts) => {

@@ -1,13 +1,15 @@
 import { formatValue, parseValue } from '../../src/index';
 import type { OutputPlan, SplitterPlan } from './outputPlan';
 import type { BenchDesign } from './analysis';
+import type { TargetPlan } from './targetPlan';
 import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
-  | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc';
+  | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
+  | 'tGain' | 'tClean' | 'tThdLevel' | 'tThd' | 'tDiss' | 'tZout' | 'tRaMin' | 'tRaMax' | 'tRkMin' | 'tRkMax' | 'tHeadroom';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
@@ -63,6 +65,15 @@ const splitter = <K extends Exclude<keyof SplitterPlan, 'kind' | 'tubeId'>>(key:
   get: (d: BenchDesign) => d.output.splitter[key],
   put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, splitter: { ...d.output.splitter, [key]: v as number } } }),
 });
+
+type NumericTarget = Exclude<keyof TargetPlan, 'heaterCathodeWithinRating'>;
+const target = <K extends NumericTarget>(key: K) => ({
+  get: (d: BenchDesign) => d.targets[key],
+  put: (d: BenchDesign, v: number | null) => ({ ...d, targets: { ...d.targets, [key]: v } }),
+});
+/** A target box: empty (or "none") leaves the target off. */
+const optional = (read: Read): Read => (text) => (text.trim() === '' || text.trim().toLowerCase() === 'none' ? { ok: true, value: null } : read(text));
+const showOptional = (show: (v: number | null) => string) => (v: number | null) => (v === null ? '' : show(v));
 
 /** A share typed and shown in percent, held as a fraction. */
 function percent(label: string, range: Limit): Read {
@@ -121,6 +132,17 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   sVgrid: { label: 'Splitter grid', unit: 'V', example: '90', read: ranged('Splitter grid voltage', L.splitter.vgrid), show: compact, ...splitter('vgrid') },
   sRg: { label: 'Splitter Rg', unit: 'Ω', example: '1M', read: ranged('Splitter grid leak', L.splitter.rg), show: compact, ...splitter('rg') },
   sCc: { label: 'Splitter Cc', unit: 'F', example: '100n', read: ranged('Splitter coupling capacitor', L.splitter.cc), show: compact, ...splitter('cc') },
+  tGain: { label: 'Least gain', unit: '×', example: 'off, e.g. 30', read: optional(ranged('Gain', L.targets.gain)), show: showOptional(compact), ...target('minGain') },
+  tClean: { label: 'Least clean output', unit: 'V rms', example: 'off, e.g. 20', read: optional(ranged('Clean output', L.targets.level)), show: showOptional(compact), ...target('minCleanOutputRms') },
+  tThdLevel: { label: 'THD measured at', unit: 'V rms', example: 'off, e.g. 2', read: optional(ranged('Level', L.targets.level)), show: showOptional(compact), ...target('thdLevelRms') },
+  tThd: { label: 'Most THD', unit: '%', example: 'off, e.g. 1', read: optional(percent('THD', L.targets.thd)), show: showPercent, ...target('maxThd') },
+  tDiss: { label: 'Most plate dissipation', unit: '% of rating', example: 'off, e.g. 70', read: optional(percent('Plate dissipation', L.targets.dissipation)), show: showPercent, ...target('maxDissipationFraction') },
+  tZout: { label: 'Most Zout', unit: 'Ω', example: 'off, e.g. 20k', read: optional(ranged('Zout', L.targets.ohms)), show: showOptional(compact), ...target('maxZout') },
+  tRaMin: { label: 'Lowest Ra', unit: 'Ω', example: 'off, e.g. 47k', read: optional(ranged('Ra', L.targets.ohms)), show: showOptional(compact), ...target('raMin') },
+  tRaMax: { label: 'Highest Ra', unit: 'Ω', example: 'off, e.g. 220k', read: optional(ranged('Ra', L.targets.ohms)), show: showOptional(compact), ...target('raMax') },
+  tRkMin: { label: 'Lowest Rk', unit: 'Ω', example: 'off, e.g. 680', read: optional(ranged('Rk', L.targets.ohms)), show: showOptional(compact), ...target('rkMin') },
+  tRkMax: { label: 'Highest Rk', unit: 'Ω', example: 'off, e.g. 3k3', read: optional(ranged('Rk', L.targets.ohms)), show: showOptional(compact), ...target('rkMax') },
+  tHeadroom: { label: 'Least grid swing', unit: 'V peak', example: 'off, e.g. 2', read: optional(ranged('Grid swing', L.targets.headroom)), show: showOptional(compact), ...target('minGridHeadroom') },
 };
 
 export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

@@ -8,9 +8,10 @@ import { createViewSlice, type ViewSlice } from './viewSlice';
 import { createOutputSlice, type OutputSlice } from './outputSlice';
 import { createChainSlice, type ChainSlice } from './chainSlice';
 import { createSupplySlice, watchSupply, type SupplySlice, type SupplySolver } from './supplySlice';
+import { createRegionSlice, inPlaceRegionSolver, watchRegion, type RegionSlice, type RegionSolver } from './regionSlice';
 
 /** The whole workbench state: the slices, combined once. */
-export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice & SupplySlice & ChainSlice;
+export type WorkbenchState = DesignSlice & DragSlice & ViewSlice & HistorySlice & CompareSlice & CustomSlice & OutputSlice & SupplySlice & ChainSlice & RegionSlice;
 export type WorkbenchStore = StoreApi<WorkbenchState>;
 
 export interface StoreOptions {
@@ -22,10 +23,13 @@ export interface StoreOptions {
    * do not look at the supply.
    */
   readonly supplySolver?: SupplySolver | null;
+  /** Where the target region and the tube ranking are worked out (the page passes a Web Worker's); default in place. */
+  readonly regionSolver?: RegionSolver;
 }
 
 /** A fresh store; the app makes one, each test makes its own. */
 export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore {
+  const regions = options.regionSolver ?? inPlaceRegionSolver;
   const store = createStore<WorkbenchState>()((...a) => ({
     ...createDesignSlice(...a),
     ...createDragSlice(...a),
@@ -36,8 +40,10 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createOutputSlice(...a),
     ...createSupplySlice(...a),
     ...createChainSlice(...a),
+    ...createRegionSlice(regions)(...a),
   }));
   recordHistory(store, options.now);
   watchSupply(store, options.supplySolver ?? null);
+  watchRegion(store, regions);
   return store;
 }

@@ -25,7 +25,7 @@ export interface OffThread {
  * both use is downloaded once, in chunks they share; in development the
  * server compiles the source as it is asked for.
  */
-const WORKER_SCRIPT = import.meta.env.PROD ? './modelWorker.js' : './modelWorker.ts';
+export const WORKER_SCRIPT = import.meta.env.PROD ? './modelWorker.js' : './modelWorker.ts';
 
 export function createOffThread(): OffThread {
   let worker: Worker | null = null;

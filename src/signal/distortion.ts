@@ -82,8 +82,9 @@ function fundamental(t: StageTransfer, peak: number, n: number): number {
 }
 
 /** Input peak giving a wanted fundamental output peak: Illinois regula falsi on [0, top], started from the small-signal estimate. */
-function inputForOutput(t: StageTransfer, target: number, top: number, gain: number, relTol = SEARCH_REL_TOL): number {
-  const g = (peak: number) => fundamental(t, peak, SEARCH_SAMPLES) - target;
+function inputForOutput(t: StageTransfer, target: number, top: number, gain: number, relTol = SEARCH_REL_TOL, samples = SEARCH_SAMPLES): number {
+  // The fundamental alone: fewer samples than SEARCH_SAMPLES (asked for a cheap THD) alias only harmonics near n − 1 onto it.
+  const g = (peak: number) => fundamental(t, peak, samples) - target;
   return illinois(g, 0, top, relTol * target, { fa: -target, start: Math.min(target / Math.abs(gain), top) });
 }
 
@@ -134,12 +135,12 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
   } else {
     if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${shown(level.outputRms)})`, 'outputRms');
     const target = level.outputRms * Math.SQRT2;
-    if (target <= fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES)) inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain, tolerance);
+    if (target <= fundamental(transfer, clean.inputPeak, SEARCH_SAMPLES)) inputPeak = inputForOutput(transfer, target, clean.inputPeak, s.solution.gain, tolerance, Math.min(SEARCH_SAMPLES, n));
     else {
       const over = overdriveFor(transfer, target, clean.inputPeak);
       const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
       if (!over) return fail('clipping', `This stage cannot give ${shown(level.outputRms)} V rms: it is clean up to ${clean.output.rms.toPrecision(3)} V rms out (${clean.input.rms.toPrecision(3)} V rms in), where ${limit} sets in, and driven ${MAX_OVERDRIVE} times harder its output hardly grows.`, 'outputRms');
-      inputPeak = inputForOutput(transfer, target, over.top, s.solution.gain, tolerance);
+      inputPeak = inputForOutput(transfer, target, over.top, s.solution.gain, tolerance, Math.min(SEARCH_SAMPLES, n));
     }
   }
   const y = cycleOutputs(transfer, inputPeak, n);

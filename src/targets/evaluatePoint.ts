@@ -36,12 +36,15 @@ export interface PointVerdict {
   readonly score: number;
 }
 
-/** Bisection steps for a point's clean swing: its edges to a few parts in 10⁸ of the bracket, far finer than a target needs. */
-const SWING_BISECTIONS = 26;
+/** Bisection steps for a point's clean swing: its edges to a millionth of the bracket, far finer than a target needs. */
+const SWING_BISECTIONS = 20;
 /** Samples per cycle for a point's THD: 32 resolve H2 to H9 and more (a hundredth of a percent at the levels targets name). */
 const THD_SAMPLES = 32;
 /** The asked level met to a thousandth: THD moves by a thousandth of itself at most. */
 const LEVEL_TOLERANCE = 1e-3;
+
+/** The largest margin reported either way: a target met a million times over is met. */
+const MAX_MARGIN = 1e6;
 
 const unreachable: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity });
 
@@ -108,7 +111,8 @@ export function evaluatePoint(stage: RegionStage, targets: Targets, active: read
   let score = Infinity;
   const failing: string[] = [];
   for (const k of active) {
-    const m = margins[k]!;
+    // A target of a denormal volt would make a margin overflow: margins are held to ±MAX_MARGIN.
+    const m = (margins[k] = Number.isNaN(margins[k]) ? -1 : Math.max(-MAX_MARGIN, Math.min(MAX_MARGIN, margins[k]!)));
     if (m < 0) failing.push(k);
     if (m < score) score = m;
   }

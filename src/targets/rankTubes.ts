@@ -4,7 +4,7 @@ import { tubeLibrary } from '../tube/library';
 import type { TubeRecord } from '../tube/types';
 import { evaluatePoint, UNREACHABLE, type RegionStage } from './evaluatePoint';
 import { feasibleRegion } from './feasibleRegion';
-import { activeTargets, type TargetName, type Targets } from './targets';
+import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
 
 export interface TubeRank {
   readonly tubeId: string;
@@ -33,7 +33,10 @@ const FINE = 7;
  */
 export function rankTubes(targets: Targets, stage: Omit<RegionStage, 'tube'>, tubes: readonly TubeRecord[] = tubeLibrary): Result<{ ranks: TubeRank[] }> {
   if (!Array.isArray(tubes)) return fail('invalid-input', 'Tubes must be a list', 'tubes');
-  const active = activeTargets(typeof targets === 'object' && targets !== null ? targets : {});
+  if (typeof stage !== 'object' || stage === null) return fail('invalid-input', 'No stage given (B+, load, source and bypass)');
+  const problem = targetsProblem(targets);
+  if (problem) return problem;
+  const active = activeTargets(targets);
   const ranks: TubeRank[] = [];
   for (const tube of tubes) {
     const s: RegionStage = { ...stage, tube };

@@ -1,0 +1,187 @@
+import type { StateCreator } from 'zustand/vanilla';
+import { feasibleRegion, rankTubes, type FeasibleRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { lookupTube } from '../keep/customTubes';
+import { stageDesignOf } from './analysis';
+import { anyTarget, targetsOf } from './targetPlan';
+import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
+
+/** Where the region is worked out: in a Web Worker on the page (regionThread), in place in tests. */
+export interface RegionSolver {
+  region(stage: RegionStage, targets: Targets, grid: RegionGrid): Promise<Result<FeasibleRegion>>;
+  rank(targets: Targets, stage: Omit<RegionStage, 'tube'>, tubes: readonly TubeRecord[]): Promise<Result<{ ranks: TubeRank[] }>>;
+}
+
+/** The model's own calls, run on the page's thread: for tests and platforms with no workers. */
+export const inPlaceRegionSolver: RegionSolver = {
+  region: async (stage, targets, grid) => feasibleRegion(stage, targets, grid),
+  rank: async (targets, stage, tubes) => rankTubes(targets, stage, tubes),
+};
+
+/** The region on the chart: first coarse, then complete. */
+export const COARSE_GRID = { nx: 30, ny: 20 } as const;
+export const FULL_GRID = { nx: 60, ny: 40 } as const;
+
+export interface RegionView {
+  /** What it was worked out for (the stage, its targets and the chart's window). */
+  readonly key: string;
+  readonly result: Result<FeasibleRegion>;
+  /** False for the coarse pass shown first. */
+  readonly complete: boolean;
+}
+
+export interface RankingView {
+  readonly key: string;
+  readonly result: Result<{ ranks: TubeRank[] }> | null;
+}
+
+export interface RegionSlice {
+  region: RegionView | null;
+  ranking: RankingView | null;
+  /** While on, a drag of the operating point stays inside the region. */
+  keepInside: boolean;
+  setKeepInside: (on: boolean) => void;
+  setHeaterTarget: (on: boolean) => void;
+  clearTargets: () => void;
+  /** Ranks every tube (the library's and the user's) against the targets. */
+  rankTubesNow: () => void;
+  /** Takes a ranked tube and its design onto the bench. */
+  takeRanked: (rank: TubeRank) => void;
+  /** Moves the operating point to the region's best point. */
+  moveToBest: () => void;
+}
+
+/** The region's inputs, or null when there is nothing to draw (no target, the output bench, an unknown tube). */
+export function regionRequestOf(s: WorkbenchState): { key: string; stage: RegionStage; targets: Targets; extent: { vmax: number; iaMax: number } } | null {
+  const d = s.design;
+  if (d.stageKind !== 'voltage' || !anyTarget(d.targets)) return null;
+  const tube = lookupTube(d.tubeId);
+  if (!tube) return null;
+  const sd = stageDesignOf(d, tube);
+  const stage: RegionStage = { tube, bplus: sd.bplus, rl: sd.rl ?? Infinity, rsource: sd.rsource ?? 0, bypassed: sd.bypassed ?? true, ...(sd.rg !== undefined ? { rg: sd.rg } : {}) };
+  const targets = targetsOf(d.targets);
+  const extent = s.analysis.sheet.extent;
+  const key = JSON.stringify([tube.id, stage.bplus, stage.rl, stage.rsource, stage.bypassed, stage.rg ?? null, targets, extent.vmax, extent.iaMax]);
+  return { key, stage, targets, extent: { vmax: extent.vmax, iaMax: extent.iaMax } };
+}
+
+/** The cell of the region a plate-plane point falls in, or null outside the grid. */
+export function regionCellAt(r: FeasibleRegion, vpk: number, ia: number): { i: number; j: number } | null {
+  const dv = r.va.length > 1 ? r.va[1]! - r.va[0]! : 0;
+  const di = r.ia.length > 1 ? r.ia[1]! - r.ia[0]! : 0;
+  if (!(dv > 0 && di > 0)) return null;
+  const i = Math.floor(vpk / dv);
+  const j = Math.floor(ia / di);
+  return i >= 0 && i < r.va.length && j >= 0 && j < r.ia.length ? { i, j } : null;
+}
+
+/** The targets failing at a plate-plane point (empty inside the region), or null where the region does not reach. */
+export function failingAt(r: FeasibleRegion, vpk: number, ia: number): readonly string[] | null {
+  const c = regionCellAt(r, vpk, ia);
+  return c ? r.failing[c.i]![c.j]! : null;
+}
+
+/**
+ * The nearest point inside the region to (vpk, ia), measured in cells (so a
+ * volt and a milliamp weigh as the chart draws them): the point itself when
+ * it is inside, else the centre of the nearest inside cell; null when no
+ * cell is inside.
+ */
+export function nearestInside(r: FeasibleRegion, vpk: number, ia: number): { vpk: number; ia: number } | null {
+  const here = regionCellAt(r, vpk, ia);
+  if (here && r.inside[here.i]![here.j]) return { vpk, ia };
+  const dv = r.va[1]! - r.va[0]!;
+  const di = r.ia[1]! - r.ia[0]!;
+  let best: { vpk: number; ia: number; d: number } | null = null;
+  for (let i = 0; i < r.va.length; i++) {
+    for (let j = 0; j < r.ia.length; j++) {
+      if (!r.inside[i]![j]) continue;
+      const d = ((r.va[i]! - vpk) / dv) ** 2 + ((r.ia[j]! - ia) / di) ** 2;
+      if (!best || d < best.d) best = { vpk: r.va[i]!, ia: r.ia[j]!, d };
+    }
+  }
+  return best && { vpk: best.vpk, ia: best.ia };
+}
+
+export const createRegionSlice =
+  (solver: RegionSolver): StateCreator<WorkbenchState, [], [], RegionSlice> =>
+  (set, get) => ({
+    region: null,
+    ranking: null,
+    keepInside: false,
+    setKeepInside: (on) => set({ keepInside: on }),
+    setHeaterTarget: (on) => {
+      const d = get().design;
+      get().commit({ ...d, targets: { ...d.targets, heaterCathodeWithinRating: on } });
+    },
+    clearTargets: () => {
+      const d = get().design;
+      get().commit({ ...d, targets: { ...d.targets, minGain: null, minCleanOutputRms: null, thdLevelRms: null, maxThd: null, maxDissipationFraction: null, maxZout: null, raMin: null, raMax: null, rkMin: null, rkMax: null, minGridHeadroom: null, heaterCathodeWithinRating: false } });
+    },
+    rankTubesNow: () => {
+      const req = regionRequestOf(get());
+      if (!req) return;
+      const { tube: _t, ...stage } = req.stage;
+      const key = JSON.stringify([stage, req.targets]);
+      set({ ranking: { key, result: null } });
+      const tubes = get().tubes.flatMap((t) => lookupTube(t.id) ?? []);
+      void solver.rank(req.targets, stage, tubes).then((result) => {
+        if (get().ranking?.key === key) set({ ranking: { key, result } });
+      });
+    },
+    takeRanked: (rank) => {
+      const s = get();
+      s.chooseTube(rank.tubeId);
+      const d = get().design;
+      get().commit({ ...d, ra: rank.ra, rk: rank.rk });
+    },
+    moveToBest: () => {
+      const r = get().region;
+      if (!r?.result.ok || !r.result.best) return;
+      const d = get().design;
+      get().commit({ ...d, ra: r.result.best.ra, rk: r.result.best.rk });
+    },
+  });
+
+/**
+ * Keeps the region current: whenever its inputs change (a target, the tube,
+ * B+ or the load; never Ra or Rk, which the region is a map of), the coarse
+ * grid, then the full one. One job at a time; a change while one runs waits
+ * and only the newest waiting is worked out, so a B+ drag never queues up.
+ */
+export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
+  let running = false;
+  let waiting = false;
+  const run = async () => {
+    if (running) {
+      waiting = true;
+      return;
+    }
+    running = true;
+    try {
+      do {
+        waiting = false;
+        const req = regionRequestOf(store.getState());
+        if (!req) {
+          if (store.getState().region) store.setState({ region: null });
+          break;
+        }
+        if (store.getState().region?.key === req.key && store.getState().region?.complete) break;
+        for (const [grid, complete] of [[COARSE_GRID, false], [FULL_GRID, true]] as const) {
+          const result = await solver.region(req.stage, req.targets, { ...grid, extent: req.extent });
+          if (regionRequestOf(store.getState())?.key !== req.key) break;
+          store.setState({ region: { key: req.key, result, complete } });
+          if (waiting) break;
+        }
+      } while (waiting);
+    } finally {
+      running = false;
+    }
+  };
+  store.subscribe((s, prev) => {
+    if (s.design.targets !== prev.design.targets || s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent) {
+      const req = regionRequestOf(s);
+      if (req?.key !== s.region?.key || !req) void run();
+    }
+  });
+  void run();
+}

@@ -1,0 +1,51 @@
+import type { Targets } from '../../src/index';
+
+/**
+ * The targets as the bench holds them: each box empty (null) or a value, in
+ * SI units and fractions. Part of the design, so undo, autosave, files and
+ * links carry them.
+ */
+export interface TargetPlan {
+  readonly minGain: number | null;
+  readonly minCleanOutputRms: number | null;
+  /** THD at most `maxThd` (a fraction) at `thdLevelRms`: both set, or the target is off. */
+  readonly thdLevelRms: number | null;
+  readonly maxThd: number | null;
+  readonly maxDissipationFraction: number | null;
+  readonly maxZout: number | null;
+  readonly raMin: number | null;
+  readonly raMax: number | null;
+  readonly rkMin: number | null;
+  readonly rkMax: number | null;
+  readonly minGridHeadroom: number | null;
+  readonly heaterCathodeWithinRating: boolean;
+}
+
+export const NO_TARGETS: TargetPlan = Object.freeze({
+  minGain: null, minCleanOutputRms: null, thdLevelRms: null, maxThd: null, maxDissipationFraction: null, maxZout: null,
+  raMin: null, raMax: null, rkMin: null, rkMax: null, minGridHeadroom: null, heaterCathodeWithinRating: false,
+});
+
+/** A range from two optional ends: one end alone leaves the other open. */
+const rangeOf = (lo: number | null, hi: number | null): readonly [number, number] | undefined =>
+  lo === null && hi === null ? undefined : [lo ?? 0, hi ?? 1e12];
+
+/** The model's targets for the plan: the boxes that hold a value. */
+export function targetsOf(p: TargetPlan): Targets {
+  const ra = rangeOf(p.raMin, p.raMax);
+  const rk = rangeOf(p.rkMin, p.rkMax);
+  return {
+    ...(p.minGain !== null ? { minGain: p.minGain } : {}),
+    ...(p.minCleanOutputRms !== null ? { minCleanOutputRms: p.minCleanOutputRms } : {}),
+    ...(p.thdLevelRms !== null && p.maxThd !== null ? { maxThdAt: { outputRms: p.thdLevelRms, thd: p.maxThd } } : {}),
+    ...(p.maxDissipationFraction !== null ? { maxDissipationFraction: p.maxDissipationFraction } : {}),
+    ...(p.maxZout !== null ? { maxZout: p.maxZout } : {}),
+    ...(ra ? { raRange: ra } : {}),
+    ...(rk ? { rkRange: rk } : {}),
+    ...(p.minGridHeadroom !== null ? { minGridHeadroom: p.minGridHeadroom } : {}),
+    ...(p.heaterCathodeWithinRating ? { heaterCathodeWithinRating: true } : {}),
+  };
+}
+
+/** True when at least one target is set. */
+export const anyTarget = (p: TargetPlan) => Object.keys(targetsOf(p)).length > 0;

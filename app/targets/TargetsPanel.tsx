@@ -1,0 +1,77 @@
+import { useId } from 'react';
+import { TARGET_LABELS, type FeasibleRegion, type TargetName } from '../../src/index';
+import { ohms, plain } from '../format';
+import { ValueField } from '../panels/ValueField';
+import { useWorkbench } from '../store/StoreProvider';
+import { TubeRanking } from './TubeRanking';
+import { marginWords } from './marginWords';
+
+/**
+ * What the builder asks of the stage on the bench, each box optional, and
+ * what the region on the chart says about it: how much of the plane meets
+ * everything, or which target shuts it out and by how much the best point
+ * misses. The region itself is worked out off the page's thread.
+ */
+export function TargetsPanel() {
+  const heater = useWorkbench((s) => s.design.targets.heaterCathodeWithinRating);
+  const keepInside = useWorkbench((s) => s.keepInside);
+  const region = useWorkbench((s) => s.region);
+  const setHeaterTarget = useWorkbench((s) => s.setHeaterTarget);
+  const setKeepInside = useWorkbench((s) => s.setKeepInside);
+  const moveToBest = useWorkbench((s) => s.moveToBest);
+  const clearTargets = useWorkbench((s) => s.clearTargets);
+  const id = useId();
+  const r = region?.result.ok ? region.result : null;
+  return (
+    <section className="panel targets-panel" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>Targets for this stage</h2>
+      <p className="panel-note">Leave a box empty to leave that target out. The chart hatches every operating point (at this B+ and load) where all of them hold.</p>
+      <div className="value-grid targets-grid">
+        <ValueField field="tGain" />
+        <ValueField field="tClean" />
+        <ValueField field="tThd" />
+        <ValueField field="tThdLevel" />
+        <ValueField field="tDiss" />
+        <ValueField field="tZout" />
+        <ValueField field="tRaMin" />
+        <ValueField field="tRaMax" />
+        <ValueField field="tRkMin" />
+        <ValueField field="tRkMax" />
+        <ValueField field="tHeadroom" hint="to grid current or cutoff, whichever is nearer" />
+      </div>
+      <label className="option-row">
+        <input type="checkbox" checked={heater} onChange={(e) => setHeaterTarget(e.target.checked)} /> Heater–cathode voltage within the rating (heater at ground)
+      </label>
+      <p className="region-status" role="status" data-testid="region-status">
+        {region === null ? 'No targets set.' : !region.result.ok ? region.result.message : summary(region.result, region.complete)}
+      </p>
+      <div className="button-row">
+        <button type="button" onClick={moveToBest} disabled={!r?.best}>Move to the best point</button>
+        <label>
+          <input type="checkbox" checked={keepInside} onChange={(e) => setKeepInside(e.target.checked)} disabled={!r} /> Keep the point inside the region while dragging
+        </label>
+        <button type="button" onClick={clearTargets} disabled={region === null}>Clear targets</button>
+      </div>
+      {r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.`}</p> : null}
+      {region !== null ? <TubeRanking /> : null}
+    </section>
+  );
+}
+
+/** The region in a sentence: its size, or why it is empty and how near the best point comes. */
+function summary(r: FeasibleRegion, complete: boolean): string {
+  let inside = 0;
+  let reachable = 0;
+  for (let i = 0; i < r.va.length; i++) for (let j = 0; j < r.ia.length; j++) {
+    if (r.failing[i]![j]![0] !== 'unreachable') reachable++;
+    if (r.inside[i]![j]) inside++;
+  }
+  const grid = `${r.va.length} × ${r.ia.length}`;
+  const pass = complete ? '' : ' (a first, coarse look; the full grid follows)';
+  if (inside > 0) return `${inside} of ${reachable} reachable points on the ${grid} grid meet every target${pass}.`;
+  const most = r.excludesMost;
+  const words = most ? ` ${capital(TARGET_LABELS[most.target as TargetName])} fails at ${plain(most.share * 100)} % of them.` : '';
+  return `No point meets every target${pass}.${words}${r.best ? ` The best point's weakest target is ${r.best.weakest ? TARGET_LABELS[r.best.weakest] : '—'}, ${marginWords(r.best.score)}.` : ''}`;
+}
+
+const capital = (s: string) => s[0]!.toUpperCase() + s.slice(1);

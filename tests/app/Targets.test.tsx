@@ -1,0 +1,84 @@
+import { render, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { stageDesignOf } from '../../app/store/analysis';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { feasibleRegion, findTube } from '../../src/index';
+
+function setup() {
+  const store = createWorkbenchStore();
+  const user = userEvent.setup();
+  const view = render(<App store={store} />);
+  const field = (label: RegExp) => screen.getByRole('textbox', { name: label }) as HTMLInputElement;
+  return { store, user, view, field };
+}
+
+describe('targets on the voltage bench', () => {
+  it('a target typed shades the chart where it holds: the cells the model marks inside, and says how many', async () => {
+    const { store, user, view, field } = setup();
+    await user.type(field(/^Least gain/), '12');
+    expect(store.getState().design.targets.minGain).toBe(12);
+    await waitFor(() => expect(store.getState().region?.complete).toBe(true));
+    const d = store.getState().design;
+    const sd = stageDesignOf(d, findTube(d.tubeId)!);
+    const model = feasibleRegion({ tube: sd.tube, bplus: sd.bplus, rl: sd.rl!, rsource: sd.rsource!, bypassed: sd.bypassed!, rg: sd.rg! }, { minGain: 12 }, { nx: 60, ny: 40, extent: store.getState().analysis.sheet.extent });
+    if (!model.ok) throw new Error(model.message);
+    const inside = model.inside.flat().filter(Boolean).length;
+    expect(inside).toBeGreaterThan(0);
+    expect(view.container.querySelectorAll('[data-region="inside"] rect').length).toBe(inside);
+    expect(screen.getByTestId('region-status').textContent).toMatch(new RegExp(`^${inside} of \\d+ reachable points on the 60 × 40 grid meet every target\\.$`));
+  });
+
+  it('an impossible target says which target shuts the plane out and how far the best point misses', async () => {
+    const { store, user, field } = setup();
+    await user.type(field(/^Least gain/), '500');
+    await waitFor(() => expect(store.getState().region?.complete).toBe(true));
+    expect(screen.getByTestId('region-status').textContent).toMatch(/^No point meets every target\. Gain fails at 100 % of them\. The best point's weakest target is gain, missed by \d+(\.\d+)? %\.$/);
+  });
+
+  it('the best point is one click away, and the ranking takes a tube and its design', async () => {
+    const { store, user, field } = setup();
+    await user.type(field(/^Least gain/), '12');
+    await user.type(field(/^Most plate dissipation/), '60');
+    await waitFor(() => expect(store.getState().region?.complete).toBe(true));
+    const best = store.getState().region!.result;
+    if (!best.ok || !best.best) throw new Error('a best point');
+    await user.click(screen.getByRole('button', { name: 'Move to the best point' }));
+    expect(store.getState().design.ra).toBeCloseTo(best.best.ra, 6);
+    await user.click(screen.getByRole('button', { name: 'Rank every tube for these targets' }));
+    await waitFor(() => expect(store.getState().ranking?.result?.ok).toBe(true));
+    const ranking = store.getState().ranking!.result!;
+    if (!ranking.ok) throw new Error(ranking.message);
+    const top = ranking.ranks[0]!;
+    await user.click(screen.getByRole('button', { name: new RegExp(`^Take the ${top.tubeId} at`) }));
+    expect(store.getState().design.tubeId).toBe(top.tubeId);
+    expect(store.getState().design.ra).toBeCloseTo(top.ra, 6);
+    expect(store.getState().design.rk).toBeCloseTo(top.rk, 6);
+  }, 20_000); // ranks every library tube on the test's own thread (the page does it in a worker)
+
+  it('a bad target is refused beside its box, and the design keeps its last targets', async () => {
+    const { store, user, field } = setup();
+    // "8" is taken as typed; "80" is refused, and 8 % stays in force.
+    await user.type(field(/^Most THD/), '80');
+    expect(screen.getByText('THD must be from 0.001 to 50 %')).toBeTruthy();
+    expect(store.getState().design.targets.maxThd).toBeCloseTo(0.08, 12);
+  });
+
+  it('with the point kept inside, a drag toward a failing point stops inside the region', async () => {
+    const { store, user, field } = setup();
+    await user.type(field(/^Most plate dissipation/), '30');
+    await waitFor(() => expect(store.getState().region?.complete).toBe(true));
+    await user.click(screen.getByRole('checkbox', { name: /Keep the point inside the region/ }));
+    const s = store.getState();
+    const { vmax, iaMax } = s.analysis.sheet.extent;
+    s.beginDrag('point');
+    // Far up at mid voltage: well past 30 % of the rated dissipation.
+    store.getState().dragPointTo(vmax * 0.5, iaMax * 0.9);
+    const op = store.getState().analysis.solution.op;
+    const rating = findTube(store.getState().design.tubeId)!.ratings.maxPlateDissipation;
+    expect(op.pa).toBeLessThanOrEqual(0.3 * rating * 1.05);
+    expect(store.getState().dragNote).toBe('Held inside the target region.');
+    store.getState().endDrag();
+  });
+});
