@@ -64,7 +64,7 @@ export { stageOverlay, BIAS_SAMPLES, type StageOverlay } from './stage/stageOver
 
 export { parseValue, type ParsedValue } from './parts/parseValue';
 export { formatValue } from './parts/formatValue';
-export { nearestPreferred } from './parts/nearestPreferred';
+export { nearestPreferred, preferredAround } from './parts/nearestPreferred';
 export { E12, E24, E96, SERIES, SERIES_TOLERANCE, type PreferredSeries } from './parts/preferredValues';
 
 export { swing, swingOf, type SwingResult, type SwingLimit } from './signal/swing';

@@ -1,9 +1,10 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { designAtPlanePoint, nearestPreferred, nearestReachable } from '../../src/index';
+import { designAtPlanePoint, nearestPreferred, nearestReachable, preferredAround, solveStage } from '../../src/index';
+import { stageDesignOf } from './analysis';
 import type { BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
 import { DESIGN_LIMITS } from './designLimits';
-import { nearestInside, regionRequestOf } from './regionSlice';
+import { failingAt, nearestInside, regionRequestOf } from './regionSlice';
 
 /**
  * Dragging on the plate chart. While the operating point moves, B+ stays
@@ -37,6 +38,27 @@ export interface DragSlice {
 
 /** Lowest B+ the foot of the load line can be dragged to, V. */
 export const MIN_DRAG_BPLUS = DESIGN_LIMITS.bplus.min;
+
+/**
+ * With the drag held inside the target region, the preferred Ra and Rk
+ * (each the nearest or its neighbour in the series) nearest the exact values
+ * whose operating point is still inside; null when none is, or the drag is
+ * not held.
+ */
+function snappedInside(s: WorkbenchState): { ra: number; rk: number } | null {
+  const region = s.keepInside && s.region?.result.ok && s.region.key === regionRequestOf(s)?.key ? s.region.result : null;
+  if (!region) return null;
+  const d = s.design;
+  const tube = s.analysis.tube;
+  const base = stageDesignOf(d, tube);
+  const pairs = preferredAround(d.ra, d.series).flatMap((ra) => preferredAround(d.rk, d.series).map((rk) => ({ ra, rk })));
+  const cost = (p: { ra: number; rk: number }) => Math.abs(Math.log(p.ra / d.ra)) + Math.abs(Math.log(p.rk / d.rk));
+  for (const p of pairs.sort((a, b) => cost(a) - cost(b))) {
+    const sol = solveStage({ ...base, ra: p.ra, rk: p.rk });
+    if (sol.ok && failingAt(region, sol.op.vpk, sol.op.ia)?.length === 0) return p;
+  }
+  return null;
+}
 
 export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = (set, get) => ({
   dragging: null,
@@ -99,7 +121,9 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
       s.commit(s.design, { force: true });
     } else if (was === 'point') {
       const { ra, rk, series } = s.design;
-      const failure = s.design.snap ? s.commit({ ...s.design, ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) }) : null;
+      // Held inside the region: the preferred pair nearest the exact values that still sits in it.
+      const inside = s.design.snap ? snappedInside(s) : null;
+      const failure = s.design.snap ? s.commit({ ...s.design, ...(inside ?? { ra: nearestPreferred(ra, series), rk: nearestPreferred(rk, series) }) }) : null;
       if (failure || !s.design.snap) s.commit(get().design); // the full signal analysis, deferred while dragging
       if (failure) set({ dragNote: `Snapping to ${series} values would fail (${failure.message}); the exact values are kept.` });
     }

@@ -25,3 +25,19 @@ export function nearestPreferred(value: number, series: PreferredSeries): number
   }
   return best;
 }
+
+/**
+ * The preferred values around `value`: the nearest, and the next below and
+ * above it in the series (by ratio), nearest first. For choosing among close
+ * standard parts when the nearest will not do (a drag held inside a target
+ * region). A value with no preferred value comes back alone.
+ */
+export function preferredAround(value: number, series: PreferredSeries): number[] {
+  const nearest = nearestPreferred(value, series);
+  if (nearest === value && !(value > 0 && Number.isFinite(value))) return [value];
+  const table = SERIES[series];
+  const step = Math.pow(10, 1 / table.length);
+  const below = nearestPreferred(nearest / step, series);
+  const above = nearestPreferred(nearest * step, series);
+  return [nearest, ...[below, above].filter((v) => v !== nearest)].sort((a, b) => Math.abs(Math.log(a / value)) - Math.abs(Math.log(b / value)));
+}

@@ -4,7 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { stageDesignOf } from '../../app/store/analysis';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { feasibleRegion, findTube } from '../../src/index';
+import { feasibleRegion, findTube, preferredAround } from '../../src/index';
+import { failingAt } from '../../app/store/regionSlice';
 
 function setup() {
   const store = createWorkbenchStore();
@@ -80,5 +81,11 @@ describe('targets on the voltage bench', () => {
     expect(op.pa).toBeLessThanOrEqual(0.3 * rating * 1.05);
     expect(store.getState().dragNote).toBe('Held inside the target region.');
     store.getState().endDrag();
+    // Released: snapped to preferred values that keep it inside (each the nearest or its neighbour in the series).
+    const after = store.getState();
+    const region = after.region!.result;
+    if (!region.ok) throw new Error(region.message);
+    expect(failingAt(region, after.analysis.solution.op.vpk, after.analysis.solution.op.ia)).toEqual([]);
+    expect(preferredAround(after.design.ra, after.design.series)[0]).toBe(after.design.ra);
   });
 });

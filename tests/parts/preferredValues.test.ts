@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { E12, E24, E96, nearestPreferred } from '../../src/index';
+import { E12, E24, E96, nearestPreferred, preferredAround } from '../../src/index';
 
 // IEC 60063:2015, tables of the E12, E24 and E96 series (one decade each). The
 // values are typed here again from the standard, apart from the model's tables.
@@ -43,5 +43,17 @@ describe('IEC 60063 preferred values', () => {
     expect(nearestPreferred(0, 'E12')).toBe(0);
     expect(nearestPreferred(-5, 'E12')).toBe(-5);
     expect(nearestPreferred(Infinity, 'E12')).toBe(Infinity);
+  });
+});
+
+describe('the preferred values around a value', () => {
+  // IEC 60063 E12: … 39, 47, 56 …; E24: … 43, 47, 51 …
+  it('is the nearest and its neighbours in the series, nearest first', () => {
+    expect(preferredAround(50e3, 'E12')).toEqual([47e3, 56e3, 39e3]);
+    expect(preferredAround(50e3, 'E24')).toEqual([51e3, 47e3, 56e3]);
+    expect(preferredAround(1000, 'E12')).toEqual([1000, 1200, 820]);
+  });
+  it('a value with no preferred value comes back alone', () => {
+    expect(preferredAround(0, 'E12')).toEqual([0]);
   });
 });

@@ -1,0 +1,78 @@
+import { mkdirSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { seriousViolations } from './axe';
+import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+
+const run = chromiumGate();
+
+/** Invented demo targets for the demo's bench stage: a medium-mu line stage held cool and stiff. */
+const TARGETS = [['tGain', '12'], ['tClean', '25'], ['tDiss', '60'], ['tZout', '10k']] as const;
+
+describe.runIf(run)('design from targets in Chromium', () => {
+  let browser: OpenBrowser;
+  beforeAll(async () => {
+    browser = await openBrowser();
+    mkdirSync('test-results', { recursive: true });
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('targets set by keyboard shade the chart, the top-ranked tube is taken, and a drag stays inside the region', async () => {
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    // Keyboard only: each target box is reached with Tab from the one before.
+    const first = page.locator('input[name=tGain]');
+    await first.focus();
+    await page.keyboard.type(TARGETS[0][1]);
+    for (const [name, value] of TARGETS.slice(1)) {
+      await page.locator(`input[name=${name}]`).focus();
+      await page.keyboard.type(value);
+    }
+    await page.keyboard.press('Tab');
+    const status = page.getByTestId('region-status');
+    await expect.poll(() => status.textContent(), { timeout: 15_000 }).toMatch(/^\d+ of \d+ reachable points on the 60 × 40 grid meet every target\.$/);
+    const hatched = page.locator('[data-region="inside"] rect');
+    expect(await hatched.count()).toBeGreaterThan(0);
+    await page.locator('.sheet-panel').screenshot({ path: 'test-results/targets-region.png' });
+    // The ranking, by keyboard: the button, then the top tube's Take.
+    await page.getByRole('button', { name: 'Rank every tube for these targets' }).focus();
+    await page.keyboard.press('Enter');
+    const take = page.getByRole('button', { name: /^Take the / }).first();
+    await take.waitFor({ timeout: 20_000 });
+    const label = (await take.getAttribute('aria-label'))!;
+    const tube = /^Take the (\S+) at/.exec(label)![1]!;
+    await take.focus();
+    await page.keyboard.press('Enter');
+    const escaped = tube.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    await expect.poll(() => page.getByRole('radiogroup', { name: 'Tubes' }).getByRole('radio', { name: new RegExp(`^${escaped}`) }).isChecked()).toBe(true);
+    await page.locator('.targets-panel').screenshot({ path: 'test-results/targets-panel.png' });
+    // Held inside: with the box ticked, a drag far up the chart (past the dissipation target) stops in the region.
+    await expect.poll(() => status.textContent(), { timeout: 15_000 }).toMatch(/60 × 40 grid meet every target\.$/);
+    await page.getByRole('checkbox', { name: /Keep the point inside the region/ }).check();
+    const point = page.getByRole('slider', { name: /operating point/i });
+    await point.scrollIntoViewIfNeeded();
+    const box = (await point.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.down();
+    for (let k = 1; k <= 10; k++) await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2 - k * 25);
+    await expect.poll(() => page.locator('.drag-note').textContent()).toBe('Held inside the target region.');
+    await page.mouse.up();
+    // Where it let go (snapped to preferred values), the point sits on a hatched cell.
+    await page.waitForTimeout(300);
+    const centre = (await point.locator('circle').first().boundingBox())!;
+    const [cx, cy] = [centre.x + centre.width / 2, centre.y + centre.height / 2];
+    const cells = await hatched.evaluateAll((rects) => rects.map((r) => r.getBoundingClientRect()).map((b) => [b.left, b.top, b.right, b.bottom]));
+    expect(cells.some(([l, t, r, b]) => cx >= l! - 1 && cx <= r! + 1 && cy >= t! - 1 && cy <= b! + 1), `point at ${cx}, ${cy}`).toBe(true);
+    expect(errors).toEqual([]);
+  });
+
+  it('has no serious accessibility violations with targets set and the tubes ranked (axe-core)', async () => {
+    const tooling = await openBrowser(undefined, { bypassCSP: true });
+    const { page } = await openWorkbench(tooling, inject('baseUrl'));
+    for (const [name, value] of TARGETS) await page.locator(`input[name=${name}]`).fill(value);
+    await page.getByRole('button', { name: 'Rank every tube for these targets' }).click();
+    await page.getByRole('button', { name: /^Take the / }).first().waitFor({ timeout: 20_000 });
+    expect(await seriousViolations(page)).toEqual([]);
+    await tooling.close();
+  });
+});
