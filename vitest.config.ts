@@ -26,6 +26,9 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/app/**/*.test.{ts,tsx}'],
           setupFiles: ['tests/app/setup.ts'],
+          // Whole interactions (typing, a full analysis per keystroke) in jsdom on a shared 2-core machine:
+          // some took just over the default 5 s under a full parallel run. Speed is the benches' job, not these tests'.
+          testTimeout: 15_000,
         },
       },
       {

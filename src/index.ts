@@ -135,3 +135,4 @@ export { TARGET_NAMES, TARGET_LABELS, activeTargets, targetsProblem, type Target
 export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
 export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';
 export { rankTubes, type TubeRank } from './targets/rankTubes';
+export { judgeDesign, type DesignVerdict } from './targets/judgeDesign';

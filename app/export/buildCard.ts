@@ -1,4 +1,5 @@
-import { formatValue } from '../../src/index';
+import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
+import { marginWords } from '../targets/marginWords';
 import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../panels/ComparePanel';
 import { buildSheetOf, railOf } from '../store/buildSheet';
@@ -61,9 +62,15 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
           ? `At ${plain(d.levelRms)} V rms out: THD ${plain(sig.distortion.thdPercent)} %, H2 ${sig.distortion.harmonicsDb[0]!.toFixed(1)} dB, H3 ${sig.distortion.harmonicsDb[1]!.toFixed(1)} dB`
           : sig.distortion.message,
         `−3 dB: ${sig.corners.lowHz ? formatValue(sig.corners.lowHz, 'Hz') : 'DC'} to ${sig.corners.highHz ? formatValue(sig.corners.highHz, 'Hz') : 'beyond 1 GHz'}`,
+        sig.atThd.ok ? `Output at ${plain(100 * d.thdLimit)} % THD: ${plain(sig.atThd.outputRms)} V rms (${sig.atThd.limitedBy === 'curvature' ? 'within the clean swing' : `past the clean swing, ${sig.atThd.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`})` : sig.atThd.message,
       ],
     },
   ];
+  // The builder's targets, each with how this design meets it.
+  if (s.verdict?.ok && Object.keys(s.verdict.margins).length > 0) {
+    const v = s.verdict;
+    sections.push({ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${TARGET_LABELS[k]}, ${marginWords(v.margins[k]!)}`) });
+  }
   const chain = sig.chain?.ok ? sig.chain : null;
   const link = chain?.links[1];
   if (chain && link) {

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { feasibleRegion, rankTubes, type FeasibleRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { feasibleRegion, judgeDesign, rankTubes, type DesignVerdict, type FeasibleRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
 import { anyTarget, targetsOf } from './targetPlan';
@@ -36,6 +36,8 @@ export interface RankingView {
 
 export interface RegionSlice {
   region: RegionView | null;
+  /** The design on the bench held against its targets (null with no targets, or on the output bench); kept from before while dragging. */
+  verdict: Result<DesignVerdict> | null;
   ranking: RankingView | null;
   /** While on, a drag of the operating point stays inside the region. */
   keepInside: boolean;
@@ -106,6 +108,7 @@ export const createRegionSlice =
   (solver: RegionSolver): StateCreator<WorkbenchState, [], [], RegionSlice> =>
   (set, get) => ({
     region: null,
+    verdict: null,
     ranking: null,
     keepInside: false,
     setKeepInside: (on) => set({ keepInside: on }),
@@ -177,11 +180,20 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
       running = false;
     }
   };
+  /** The design on the bench against its targets: on every change that is not a drag frame (the drag's release judges it). */
+  const judge = (s: WorkbenchState) => {
+    const req = regionRequestOf(s);
+    const tube = req?.stage.tube;
+    const verdict = req && tube ? judgeDesign(stageDesignOf(s.design, tube as TubeRecord), req.targets) : null;
+    if (verdict !== null || s.verdict !== null) store.setState({ verdict });
+  };
   store.subscribe((s, prev) => {
+    if ((s.design !== prev.design && !s.dragging) || (prev.dragging && !s.dragging)) judge(s);
     if (s.design.targets !== prev.design.targets || s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent) {
       const req = regionRequestOf(s);
       if (req?.key !== s.region?.key || !req) void run();
     }
   });
+  judge(store.getState());
   void run();
 }

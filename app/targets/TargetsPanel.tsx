@@ -16,6 +16,7 @@ export function TargetsPanel() {
   const heater = useWorkbench((s) => s.design.targets.heaterCathodeWithinRating);
   const keepInside = useWorkbench((s) => s.keepInside);
   const region = useWorkbench((s) => s.region);
+  const verdict = useWorkbench((s) => s.verdict);
   const setHeaterTarget = useWorkbench((s) => s.setHeaterTarget);
   const setKeepInside = useWorkbench((s) => s.setKeepInside);
   const moveToBest = useWorkbench((s) => s.moveToBest);
@@ -42,6 +43,15 @@ export function TargetsPanel() {
       <label className="option-row">
         <input type="checkbox" checked={heater} onChange={(e) => setHeaterTarget(e.target.checked)} /> Heater–cathode voltage within the rating (heater at ground)
       </label>
+      {verdict?.ok ? (
+        <ul className="target-verdicts" aria-label="Each target at the operating point now">
+          {(Object.keys(verdict.margins) as TargetName[]).map((k) => (
+            <li key={k} className={verdict.margins[k]! >= 0 ? 'meets' : 'misses'} data-target={k}>
+              {`${verdict.margins[k]! >= 0 ? '✓' : '✗'} ${capital(TARGET_LABELS[k])}: ${marginWords(verdict.margins[k]!)}`}
+            </li>
+          ))}
+        </ul>
+      ) : verdict ? <p className="field-error">{verdict.message}</p> : null}
       <p className="region-status" role="status" data-testid="region-status">
         {region === null ? 'No targets set.' : !region.result.ok ? region.result.message : summary(region.result, region.complete)}
       </p>

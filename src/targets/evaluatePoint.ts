@@ -57,6 +57,11 @@ export function evaluatePoint(stage: RegionStage, targets: Targets, active: read
   const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia });
   if (!at.ok) return unreachable;
   const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6 };
+  return judgeStage(design, targets, active);
+}
+
+/** One stage design against the targets (as evaluatePoint judges each point of the plane). */
+export function judgeStage(design: StageDesign, targets: Targets, active: readonly TargetName[]): PointVerdict {
   const solution = solveStage(design);
   const checked = normalizeStage(design);
   if (!solution.ok || !checked.ok) return unreachable;
@@ -64,7 +69,7 @@ export function evaluatePoint(stage: RegionStage, targets: Targets, active: read
   const needsSwing = active.includes('minCleanOutputRms') || active.includes('minGridHeadroom') || active.includes('maxThdAt');
   const transfer = needsSwing ? stageTransfer(checked, solution.op) : null;
   const swing = transfer ? swingOf(s, transfer, SWING_BISECTIONS) : null;
-  const rec = recordOf(stage.tube);
+  const rec = recordOf(design.tube);
   const margins: Partial<Record<TargetName, number>> = {};
   const within = (x: number, [lo, hi]: readonly [number, number]) => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
   for (const k of active) {
@@ -93,10 +98,10 @@ export function evaluatePoint(stage: RegionStage, targets: Targets, active: read
         margins.maxZout = 1 - solution.zout / targets.maxZout!;
         break;
       case 'raRange':
-        margins.raRange = within(at.ra, targets.raRange!);
+        margins.raRange = within(design.ra, targets.raRange!);
         break;
       case 'rkRange':
-        margins.rkRange = within(at.rk, targets.rkRange!);
+        margins.rkRange = within(design.rk, targets.rkRange!);
         break;
       case 'minGridHeadroom':
         margins.minGridHeadroom = swing!.inputPeak / targets.minGridHeadroom! - 1;
@@ -116,5 +121,5 @@ export function evaluatePoint(stage: RegionStage, targets: Targets, active: read
     if (m < 0) failing.push(k);
     if (m < score) score = m;
   }
-  return { ra: at.ra, rk: at.rk, failing, margins, score: active.length === 0 ? 0 : score };
+  return { ra: design.ra, rk: design.rk, failing, margins, score: active.length === 0 ? 0 : score };
 }

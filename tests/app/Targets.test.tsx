@@ -4,7 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { stageDesignOf } from '../../app/store/analysis';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { feasibleRegion, findTube, preferredAround } from '../../src/index';
+import { feasibleRegion, findTube, judgeDesign, preferredAround } from '../../src/index';
+import { cardSections } from '../../app/export/buildCard';
 import { failingAt } from '../../app/store/regionSlice';
 
 function setup() {
@@ -57,6 +58,21 @@ describe('targets on the voltage bench', () => {
     expect(store.getState().design.ra).toBeCloseTo(top.ra, 6);
     expect(store.getState().design.rk).toBeCloseTo(top.rk, 6);
   }, 20_000); // ranks every library tube on the test's own thread (the page does it in a worker)
+
+  it('each target is judged at the operating point now, beside the region and on the build card', async () => {
+    const { store, user, view, field } = setup();
+    await user.type(field(/^Least gain/), '12');
+    await user.type(field(/^Most Zout/), '5k');
+    const d = store.getState().design;
+    const model = judgeDesign(stageDesignOf(d, findTube(d.tubeId)!), { minGain: 12, maxZout: 5e3 });
+    if (!model.ok) throw new Error(model.message);
+    const items = [...view.container.querySelectorAll('.target-verdicts li')].map((li) => [li.getAttribute('data-target'), li.textContent]);
+    expect(items.map(([k]) => k)).toEqual(['minGain', 'maxZout']);
+    for (const [k, text] of items) expect(text!.startsWith(model.failing.includes(k as 'minGain') ? '✗' : '✓')).toBe(true);
+    const card = cardSections(store.getState()).find((c) => c.heading === 'Targets');
+    expect(card?.lines).toHaveLength(2);
+    expect(card!.lines[0]).toMatch(model.failing.includes('minGain') ? /^MISSED: gain, missed by/ : /^Met: gain, met with/);
+  });
 
   it('a bad target is refused beside its box, and the design keeps its last targets', async () => {
     const { store, user, field } = setup();
