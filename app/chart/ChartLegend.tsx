@@ -1,5 +1,7 @@
 import { LIMIT_STROKES, PALETTE } from './palette';
 import { REGION_HATCH_ID } from '../targets/drawRegion';
+import { TARGET_DASH } from '../targets/targetStrokes';
+import { TARGET_LABELS, type TargetName } from '../../src/index';
 
 export interface LegendItem {
   readonly label: string;
@@ -39,7 +41,7 @@ export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'The path the tube takes with the grids driven to 0 V (solved with its partner)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
-export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = false }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: boolean }) {
+export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = null }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: readonly TargetName[] | null }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">
       {rival ? (
@@ -72,6 +74,14 @@ export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region
           Every target met (hatched; ringed: the best point; the cursor readout names the targets failing elsewhere)
         </li>
       ) : null}
+      {(region ?? []).map((k) => (
+        <li key={k}>
+          <svg width="30" height="10" aria-hidden="true">
+            <line x1="1" x2="29" y1="5" y2="5" stroke={PALETTE.inkSoft} strokeWidth={1.6} strokeDasharray={TARGET_DASH[k]} />
+          </svg>
+          {`Edge of the ${TARGET_LABELS[k]} target`}
+        </li>
+      ))}
     </ul>
   );
 }

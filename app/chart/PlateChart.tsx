@@ -13,7 +13,7 @@ import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
 import { useChartBox } from './useChartBox';
 import { DESIGN_LIMITS } from '../store/designLimits';
-import { drawRegion, REGION_HATCH_ID } from '../targets/drawRegion';
+import { drawRegion, REGION_HATCH_ID, targetsWithEdges } from '../targets/drawRegion';
 
 /** Arrow keys move the point by 1 % of the chart window, 5 % with Shift. */
 const STEP = 0.01;
@@ -45,6 +45,7 @@ export function PlateChart() {
   useEffect(() => {
     if (regionLayer.current) drawRegion(regionLayer.current, region, scales);
   }, [region, scales]);
+  const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
   const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging ? buildSheetOf(s).spread : null));
 
   useEffect(() => {
@@ -198,7 +199,7 @@ export function PlateChart() {
         <ChartWindowSwitch />
         <CurveDensity />
       </div>
-      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={region !== null} />
+      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} />
     </div>
   );
 }

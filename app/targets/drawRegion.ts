@@ -1,5 +1,6 @@
 import { select } from 'd3';
-import type { FeasibleRegion } from '../../src/index';
+import { TARGET_LABELS, TARGET_NAMES, UNREACHABLE, type FeasibleRegion, type TargetName } from '../../src/index';
+import { TARGET_DASH } from './targetStrokes';
 import type { PlateScales } from '../chart/plateScales';
 import { PALETTE } from '../chart/palette';
 
@@ -31,6 +32,7 @@ export function drawRegion(layer: SVGGElement, region: FeasibleRegion | null, sc
     .attr('width', w + 0.5)
     .attr('height', h + 0.5)
     .attr('fill', `url(#${REGION_HATCH_ID})`);
+  drawTargetEdges(g, region, scales, dv, di);
   const best = region.best;
   if (best && best.score >= 0) {
     g.append('circle')
@@ -42,5 +44,47 @@ export function drawRegion(layer: SVGGElement, region: FeasibleRegion | null, sc
       .attr('stroke', PALETTE.rival)
       .attr('stroke-width', 2)
       .attr('stroke-dasharray', '3 2');
+  }
+}
+
+/** The targets whose edge crosses the region's grid: those that hold at some reachable points and fail at others. */
+export function targetsWithEdges(region: FeasibleRegion): TargetName[] {
+  const seen = new Set<string>();
+  for (const column of region.failing) for (const cell of column) for (const k of cell) seen.add(k);
+  return TARGET_NAMES.filter((k) => seen.has(k) && region.failing.some((column) => column.some((cell) => cell[0] !== UNREACHABLE && !cell.includes(k))));
+}
+
+/**
+ * Each target's own edge: the cell borders where it holds on one side and
+ * fails on the other (both cells reachable), in its dash pattern, named once
+ * at the middle of its run of borders. Where every target holds is the hatch.
+ */
+function drawTargetEdges(g: ReturnType<typeof select<SVGGElement, unknown>>, region: FeasibleRegion, scales: PlateScales, dv: number, di: number): void {
+  const fails = (i: number, j: number, k: string) => region.failing[i]![j]!.includes(k);
+  const reach = (i: number, j: number) => region.failing[i]![j]![0] !== UNREACHABLE;
+  for (const k of targetsWithEdges(region)) {
+    const segs: [number, number, number, number][] = [];
+    for (let i = 0; i < region.va.length; i++) {
+      for (let j = 0; j < region.ia.length; j++) {
+        if (!reach(i, j)) continue;
+        const x = region.va[i]! + dv / 2;
+        const y = region.ia[j]! + di / 2;
+        if (i + 1 < region.va.length && reach(i + 1, j) && fails(i, j, k) !== fails(i + 1, j, k)) segs.push([x, region.ia[j]! - di / 2, x, y]);
+        if (j + 1 < region.ia.length && reach(i, j + 1) && fails(i, j, k) !== fails(i, j + 1, k)) segs.push([region.va[i]! - dv / 2, y, x, y]);
+      }
+    }
+    if (segs.length === 0) continue;
+    const d = segs.map(([x1, y1, x2, y2]) => `M${scales.x(x1).toFixed(1)},${scales.y(y1).toFixed(1)}L${scales.x(x2).toFixed(1)},${scales.y(y2).toFixed(1)}`).join('');
+    g.append('path').attr('data-target-edge', k).attr('d', d).attr('fill', 'none').attr('stroke', PALETTE.inkSoft).attr('stroke-width', 1.6).attr('stroke-dasharray', TARGET_DASH[k]);
+    const [x1, y1, x2, y2] = segs[Math.floor(segs.length / 2)]!;
+    g.append('text')
+      .attr('x', scales.x((x1 + x2) / 2) + 4)
+      .attr('y', scales.y((y1 + y2) / 2) - 4)
+      .attr('font-size', 11)
+      .attr('fill', PALETTE.inkSoft)
+      .attr('paint-order', 'stroke')
+      .attr('stroke', PALETTE.sheet)
+      .attr('stroke-width', 3)
+      .text(TARGET_LABELS[k]);
   }
 }

@@ -30,6 +30,9 @@ describe('targets on the voltage bench', () => {
     expect(inside).toBeGreaterThan(0);
     expect(view.container.querySelectorAll('[data-region="inside"] rect').length).toBe(inside);
     expect(screen.getByTestId('region-status').textContent).toMatch(new RegExp(`^${inside} of \\d+ reachable points on the 60 × 40 grid meet every target\\.$`));
+    // The target's own edge is drawn, in its own dash, and keyed.
+    expect(view.container.querySelector('[data-target-edge="minGain"]')?.getAttribute('d')).toMatch(/^M/);
+    expect(screen.getByText('Edge of the gain target')).toBeTruthy();
   });
 
   it('an impossible target says which target shuts the plane out and how far the best point misses', async () => {
