@@ -4,12 +4,15 @@ import { App } from './App';
 import { createWorkbenchStore } from './store/workbenchStore';
 import { warmDragPath } from './store/warmDragPath';
 import { supplyBetweenFrames } from './work/supplyBetweenFrames';
+import { supplyInWorker } from './work/supplyInWorker';
 import { regionThread } from './work/regionThread';
 import './styles.css';
 
 const root = document.getElementById('root');
 if (root) {
-  const store = createWorkbenchStore({ supplySolver: supplyBetweenFrames(), ...(typeof Worker !== 'undefined' ? { regionSolver: regionThread() } : {}) });
+  const workers = typeof Worker !== 'undefined';
+  // Off the page's thread where the browser has workers (every one the workbench runs in); else between frames.
+  const store = createWorkbenchStore({ supplySolver: workers ? supplyInWorker() : supplyBetweenFrames(), ...(workers ? { regionSolver: regionThread() } : {}) });
   createRoot(root).render(
     <StrictMode>
       <App store={store} />

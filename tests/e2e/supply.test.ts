@@ -8,7 +8,7 @@ const run = chromiumGate();
 describe.runIf(run)('the amplifier on its supply in Chromium', () => {
   const browser = useBrowser();
 
-  it('solves the whole amplifier on its supply between frames (no long task over 200 ms), keeps a changed supply through a saved file and a reload, and prints it', async () => {
+  it('solves the whole amplifier on its supply off the page\'s thread (no long task over 200 ms), keeps a changed supply through a saved file and a reload, and prints it', async () => {
     const { page, errors } = await openWorkbench(browser.current, inject('baseUrl'));
     const supply = page.getByRole('region', { name: 'B+ supply' });
     await supply.getByTestId('supply-results').waitFor({ timeout: 15_000 });
