@@ -83,6 +83,16 @@ export function amplifierOnSupply(): void {
   if (!r.ok) throw new Error(r.message);
 }
 
+/** The same, started from its own steady state after one drag frame's change (the first stage's Ra up 2 %): what runs while a stage is dragged. */
+const ON_SUPPLY = { amplifier: FOUR_STAGES, supply: { ...THREE_SECTION_SUPPLY, loads: [0, 0, 0, 0] }, feeds: [3, 2, 1, 0] };
+const SETTLED = solveOnSupply(ON_SUPPLY);
+const NUDGED = { ...ON_SUPPLY, amplifier: { ...FOUR_STAGES, stages: FOUR_STAGES.stages.map((st, i) => (i === 0 && st.kind === 'common-cathode' ? { ...st, ra: st.ra * 1.02 } : st)) } };
+export function amplifierOnSupplyWarm(): void {
+  if (!SETTLED.ok) throw new Error(SETTLED.message);
+  const r = solveOnSupply({ ...NUDGED, start: SETTLED.supply.nodes.map((n) => n.dc) });
+  if (!r.ok) throw new Error(r.message);
+}
+
 /** A push-pull pair of our own: EL34s ultralinear at 430 V, fixed bias, 6.6 kΩ plate to plate. */
 const PUSH_PULL = solvePushPull(findOutputTube('EL34')!, {
   tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200,
@@ -137,6 +147,8 @@ export interface ModelResults {
   readonly supplyThreeSections: Stats;
   /** The four-stage amplifier and the supply solved as one, from cold. */
   readonly amplifierOnSupply: Stats;
+  /** The same after one drag frame's change, from the last steady state. */
+  readonly amplifierOnSupplyWarm: Stats;
   /** The four-stage amplifier, solved whole (budget 8 ms median). */
   readonly fourStageChain: Stats;
   readonly solveStage: Stats;
@@ -189,6 +201,7 @@ export function benchModel(): ModelResults {
     pushPullLight: [() => pushPullLightFrame(), 40, 10],
     pushPullAmplifier: [() => pushPullAmplifier(), 10, 3],
     amplifierOnSupply: [() => amplifierOnSupply(), 2, 1],
+    amplifierOnSupplyWarm: [() => amplifierOnSupplyWarm(), 5, 2],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
     regionCoarse: [() => region(30, 20), 5, 2],
     regionFull: [() => region(60, 40), 3, 1],
@@ -205,5 +218,5 @@ export function benchModel(): ModelResults {
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
   const perPoint = (s: Stats): Stats => ({ ...s, median: s.median / 2400, p95: s.p95 / 2400, min: s.min / 2400, max: s.max / 2400, ...(s.p95Runs ? { p95Runs: s.p95Runs.map((x) => x / 2400) } : {}) });
-  return { regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

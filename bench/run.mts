@@ -25,6 +25,7 @@ line('full one-stage analysis', model.fullAnalysis, { value: 2, on: 'median' });
 line('four-stage amplifier, whole analysis', model.fourStageChain, { value: 8, on: 'median' });
 line('supply, three sections, to steady state', model.supplyThreeSections, { value: 50, on: 'median' });
 line('four-stage amplifier on that supply', model.amplifierOnSupply);
+line('  again after a drag frame, from its steady state', model.amplifierOnSupplyWarm, { value: 8, on: 'p95' });
 line('push-pull pair, one cycle at 128 points', model.pushPullCycle);
 line('push-pull pair, light (per drag frame)', model.pushPullLight, { value: 2, on: 'median' });
 line('push-pull amplifier (LTP → EL84s), whole', model.pushPullAmplifier);

@@ -179,6 +179,9 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
 /** Solves the amplifier on its supply, asynchronously (the page's: supplyBetweenFrames). */
 export type SupplySolver = (input: AmplifierOnSupply) => Promise<Result<AmplifierOnSupplyResult> | 'cancelled'>;
 
+/** Between the supply's answers while a drag runs, ms: each redraws the supply's table on the page's thread. */
+export const LIVE_SUPPLY_PAUSE_MS = 250;
+
 /** How long the design must hold still before the supply is solved again, ms. */
 export const SUPPLY_SETTLE_MS = 150;
 
@@ -210,7 +213,9 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         return;
       }
       const mine = ++job;
-      void solver(chain.input).then((r) => {
+      // From the last steady state when there is one: a change to the stages settles in fewer rounds.
+      const last = store.getState().supplyView?.result;
+      void solver(last?.ok ? { ...chain.input, start: last.supply.nodes.map((n) => n.dc) } : chain.input).then((r) => {
         if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
         const view: SupplyView = { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false };
         store.setState({ supplyView: view });
@@ -222,12 +227,44 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
       });
     }, SUPPLY_SETTLE_MS);
   };
+  /**
+   * While a drag runs: the amplifier and its supply solved again and again
+   * (off the page's thread with the page's solver), each from the last
+   * steady state, one at a time, the newest design each time, so the nodes
+   * follow the drag. Its answers show but are never committed (following
+   * B+ waits for the release's full solve).
+   */
+  let live = false;
+  const follow = async () => {
+    if (live) return;
+    live = true;
+    try {
+      for (;;) {
+        const s = store.getState();
+        const last = s.supplyView?.result;
+        if (!s.dragging || !last?.ok) return;
+        const d = s.design;
+        const chain = d.supply.on ? onSupplyInputOf(d) : null;
+        if (!chain) return;
+        const r = await solver({ ...chain.input, start: last.supply.nodes.map((n) => n.dc) });
+        const now = store.getState();
+        if (r === 'cancelled' || !r.ok || !now.dragging) return;
+        store.setState({ supplyView: { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: now.design !== d } });
+        if (now.design === d) return;
+        // A few times a second is live enough to read, and leaves the drag's frames to the drag.
+        await new Promise((resume) => setTimeout(resume, LIVE_SUPPLY_PAUSE_MS));
+      }
+    } finally {
+      live = false;
+    }
+  };
   store.subscribe((s, prev) => {
     if (s.design === prev.design && s.amplifier === prev.amplifier) return;
     const view = s.supplyView;
     if (view && !view.stale) store.setState({ supplyView: { ...view, stale: true } });
-    // A drag or keystroke shows the amplifier marked behind: the supply waits for the full pass too.
+    // A keystroke shows the amplifier marked behind: the supply waits for the full pass; a drag has it follow live.
     if (!s.amplifier?.stale) schedule();
+    else if (s.dragging && s.design !== prev.design) void follow();
   });
   schedule();
 }

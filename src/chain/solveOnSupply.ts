@@ -11,6 +11,13 @@ export interface AmplifierOnSupply {
   readonly feeds: readonly number[];
   /** Identical channels on the one supply (2 for stereo): each node carries every channel's stages. Default 1. */
   readonly channels?: number;
+  /**
+   * Every node's voltage in a nearby solution (the last steady state, as
+   * while a stage is dragged), V: the first round starts there instead of at
+   * the stages' own B+, so a small change settles in a round or two. Ignored
+   * unless it gives one finite positive voltage per node.
+   */
+  readonly start?: readonly number[];
 }
 
 export interface AmplifierOnSupplyResult {
@@ -84,7 +91,8 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     return fail('invalid-input', `Name the supply node (1 to ${Math.max(nodes, 1)}) feeding each of the ${stages.length} stages`, 'feeds');
   }
   const own = Array.isArray(supply.loads) ? supply.loads : [];
-  let volts: number[] | null = null;
+  const start = input.start;
+  let volts: number[] | null = Array.isArray(start) && start.length === nodes && start.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) ? [...start] : null;
   let last: { amplifier: ChainResult; supply: SupplySolution; bplus: number[] } | null = null;
   let loads: number[] = [];
   for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
-import { DEMO_SUPPLY } from '../../app/store/supplyPlan';
+import { DEMO_SUPPLY, onSupplyInputOf } from '../../app/store/supplyPlan';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { solveOnSupply } from '../../src/index';
 
@@ -19,6 +19,31 @@ function bench() {
 const nodeDc = (node: number) => document.querySelector(`tr[data-node="${node}"] [data-figure="node-dc"]`)?.textContent;
 
 describe('the B+ supply on the bench', () => {
+  it('follows a drag: the nodes are solved again while the point moves, from the last steady state, and nothing is committed until release', async () => {
+    const { store } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });
+    const before = store.getState().supplyView!.result;
+    if (!before.ok) throw new Error(before.message);
+    const s = store.getState();
+    const { vpk, ia } = s.analysis.solution.op;
+    act(() => {
+      s.beginDrag('point');
+      store.getState().dragPointTo(vpk * 0.8, ia * 1.4);
+    });
+    const design = store.getState().design;
+    // While still dragging, an answer for the dragged design arrives: the bench stage's node moves with its current.
+    await waitFor(() => expect(store.getState().supplyView?.result).not.toBe(before), { timeout: 5000 });
+    expect(store.getState().dragging).toBe('point');
+    const during = store.getState().supplyView!.result;
+    if (!during.ok) throw new Error(during.message);
+    const model = solveOnSupply(onSupplyInputOf(design)!.input);
+    if (!model.ok) throw new Error(model.message);
+    during.supply.nodes.forEach((n, k) => expect(Math.abs(n.dc - model.supply.nodes[k]!.dc)).toBeLessThan(0.05));
+    expect(during.supply.nodes[2]!.dc).not.toBeCloseTo(before.supply.nodes[2]!.dc, 1);
+    expect(store.getState().design).toBe(design);
+    act(() => store.getState().endDrag());
+  });
+
   it('solves the demo amplifier on its supply: every node, which stage it feeds, the cautions and the bleeder', async () => {
     const { store, panel } = bench();
     expect(panel.getByRole('note').textContent).toMatch(/Lethal voltages.*licensed electrician/s);

@@ -35,6 +35,21 @@ describe('the amplifier on its supply, solved as one', () => {
     expect(r.iterations).toBeGreaterThan(1);
   });
 
+  it('started from a nearby steady state (as while a stage is dragged), a small change settles to the same solution in fewer rounds', () => {
+    const before = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    if (!before.ok) throw new Error(before.message);
+    // The input stage's plate resistor moved a little, as one drag frame moves it.
+    const moved = { ...amplifier, stages: amplifier.stages.map((st, i) => (i === 0 ? { ...st, ra: 27.5e3 } : st)) as ChainInput['stages'] };
+    const cold = solveOnSupply({ amplifier: moved, supply, feeds: [2, 1, 0] });
+    const warm = solveOnSupply({ amplifier: moved, supply, feeds: [2, 1, 0], start: before.supply.nodes.map((n) => n.dc) });
+    if (!cold.ok || !warm.ok) throw new Error('both solve');
+    warm.supply.nodes.forEach((n, k) => expectClose(n.dc, cold.supply.nodes[k]!.dc, { abs: 0.02 }, `node ${k + 1}`));
+    expect(warm.iterations).toBeLessThan(cold.iterations);
+    // A start that does not fit the supply (wrong length, not a voltage) is ignored, not trusted.
+    const ignored = solveOnSupply({ amplifier: moved, supply, feeds: [2, 1, 0], start: [300, Number.NaN] });
+    expect(ignored.ok && ignored.iterations).toBe(cold.iterations);
+  });
+
   it('more current from the reservoir sags every node, and the input stage with them', () => {
     const light = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
     const loaded = solveOnSupply({ amplifier, supply: { ...supply, loads: [0.03, 0, 0] }, feeds: [2, 1, 0] });
