@@ -136,3 +136,4 @@ export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
 export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';
 export { rankTubes, type TubeRank } from './targets/rankTubes';
 export { judgeDesign, type DesignVerdict } from './targets/judgeDesign';
+export { stageSignal, followerProblem, RESPONSE_FREQUENCIES, type StageSignal, type SignalLevels } from './stage/stageSignal';

@@ -222,8 +222,11 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
         // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
         const next = d.supply.follow ? supplyBplusOf(d, view) : null;
-        const moved = (a: BenchDesign['before'], b: BenchDesign['before']) => a.some((p, i) => p !== b[i]);
-        if (next && (next.bplus !== d.bplus || next.output.bplus !== d.output.bplus || next.output.splitter.bplus !== d.output.splitter.bplus || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
+        // B+ follow to the volt; a 1 V step alone is the rounding of a node solved from another start (to 10 mV), not a move.
+        const far = (a: number, b: number) => Math.abs(a - b) > 1;
+        const bplusOf = (p: BenchDesign['before'][number]) => (p.kind === 'common-cathode' ? p.bplus : null);
+        const moved = (a: BenchDesign['before'], b: BenchDesign['before']) => a.some((p, i) => p !== b[i] && (bplusOf(p) === null || bplusOf(b[i]!) === null || far(bplusOf(p)!, bplusOf(b[i]!)!)));
+        if (next && (far(next.bplus, d.bplus) || far(next.output.bplus, d.output.bplus) || far(next.output.splitter.bplus, d.output.splitter.bplus) || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
       });
     }, SUPPLY_SETTLE_MS);
   };
