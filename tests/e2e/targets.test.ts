@@ -1,7 +1,8 @@
 import { mkdirSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { describe, expect, inject, it } from 'vitest';
 import { seriousViolations } from './axe';
-import { chromiumGate, openBrowser, openWorkbench, type OpenBrowser } from './browser';
+import { chromiumGate, openBrowser, openWorkbench } from './browser';
+import { useBrowser } from './useBrowser';
 
 const run = chromiumGate();
 
@@ -9,17 +10,11 @@ const run = chromiumGate();
 const TARGETS = [['tGain', '12'], ['tClean', '25'], ['tDiss', '60'], ['tZout', '10k']] as const;
 
 describe.runIf(run)('design from targets in Chromium', () => {
-  let browser: OpenBrowser;
-  beforeAll(async () => {
-    browser = await openBrowser();
-    mkdirSync('test-results', { recursive: true });
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const browser = useBrowser();
 
   it('targets set by keyboard shade the chart, the top-ranked tube is taken, and a drag stays inside the region', async () => {
-    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    mkdirSync('test-results', { recursive: true });
+    const { page, errors } = await openWorkbench(browser.current, inject('baseUrl'));
     // Keyboard only: each target box is reached with Tab from the one before.
     const first = page.locator('input[name=tGain]');
     await first.focus();
