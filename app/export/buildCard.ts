@@ -1,5 +1,6 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
 import { marginWords } from '../targets/marginWords';
+import { targetValueWords } from '../targets/targetValue';
 import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../panels/ComparePanel';
 import { buildSheetOf, railOf } from '../store/buildSheet';
@@ -69,7 +70,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   // The builder's targets, each with how this design meets it.
   if (s.verdict?.ok && Object.keys(s.verdict.margins).length > 0) {
     const v = s.verdict;
-    sections.push({ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${TARGET_LABELS[k]}, ${marginWords(v.margins[k]!)}`) });
+    sections.push({ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${TARGET_LABELS[k]} ${targetValueWords(k, v.values[k])}, ${marginWords(v.margins[k]!)}`) });
   }
   const chain = sig.chain?.ok ? sig.chain : null;
   const link = chain?.links[1];

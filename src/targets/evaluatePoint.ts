@@ -34,6 +34,14 @@ export interface PointVerdict {
   readonly margins: Partial<Record<TargetName, number>>;
   /** The smallest margin: how well the worst target is met (negative: by how much it is missed); −Infinity where unreachable. */
   readonly score: number;
+  /**
+   * What each target measures, in SI units and fractions: the gain's
+   * magnitude, the clean output (V rms), THD (a fraction; null when the level
+   * is past the clean swing), plate dissipation as a share of the rating
+   * (null with no rating), Zout, Ra, Rk (Ω), the clean grid swing (V peak),
+   * the cathode's voltage to a grounded heater (V).
+   */
+  readonly values: Partial<Record<TargetName, number | null>>;
 }
 
 /** Bisection steps for a point's clean swing: its edges to a millionth of the bracket, far finer than a target needs. */
@@ -46,7 +54,7 @@ const LEVEL_TOLERANCE = 1e-3;
 /** The largest margin reported either way: a target met a million times over is met. */
 const MAX_MARGIN = 1e6;
 
-const unreachable: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity });
+const unreachable: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity, values: Object.freeze({}) });
 
 /**
  * One point of the plate plane against the targets: the Ra and Rk that put a
@@ -71,43 +79,54 @@ export function judgeStage(design: StageDesign, targets: Targets, active: readon
   const swing = transfer ? swingOf(s, transfer, SWING_BISECTIONS) : null;
   const rec = recordOf(design.tube);
   const margins: Partial<Record<TargetName, number>> = {};
+  const values: Partial<Record<TargetName, number | null>> = {};
   const within = (x: number, [lo, hi]: readonly [number, number]) => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
   for (const k of active) {
     switch (k) {
       case 'minGain':
+        values.minGain = Math.abs(solution.gain);
         margins.minGain = Math.abs(solution.gain) / targets.minGain! - 1;
         break;
       case 'minCleanOutputRms':
+        values.minCleanOutputRms = swing!.output.rms;
         margins.minCleanOutputRms = swing!.output.rms / targets.minCleanOutputRms! - 1;
         break;
       case 'maxThdAt': {
         // Held within the clean swing: a working level past grid current or cutoff fails, by how far it is past.
         const want = targets.maxThdAt!;
         if (want.outputRms > swing!.output.rms) {
+          values.maxThdAt = null;
           margins.maxThdAt = swing!.output.rms / want.outputRms - 1;
           break;
         }
         const r = distortionOf(s, { outputRms: want.outputRms }, { samples: THD_SAMPLES, levelTolerance: LEVEL_TOLERANCE }, { transfer: transfer!, swing: swing! });
+        values.maxThdAt = r.ok ? r.thdPercent / 100 : null;
         margins.maxThdAt = r.ok ? 1 - r.thdPercent / (100 * want.thd) : -1;
         break;
       }
       case 'maxDissipationFraction':
+        values.maxDissipationFraction = rec ? solution.op.pa / rec.ratings.maxPlateDissipation : null;
         margins.maxDissipationFraction = rec ? 1 - solution.op.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! : 0;
         break;
       case 'maxZout':
+        values.maxZout = solution.zout;
         margins.maxZout = 1 - solution.zout / targets.maxZout!;
         break;
       case 'raRange':
+        values.raRange = design.ra;
         margins.raRange = within(design.ra, targets.raRange!);
         break;
       case 'rkRange':
+        values.rkRange = design.rk;
         margins.rkRange = within(design.rk, targets.rkRange!);
         break;
       case 'minGridHeadroom':
+        values.minGridHeadroom = swing!.inputPeak;
         margins.minGridHeadroom = swing!.inputPeak / targets.minGridHeadroom! - 1;
         break;
       case 'heaterCathodeWithinRating': {
         const hk = rec && !rec.directlyHeated ? heaterCathodeRating(rec.ratings) : null;
+        values.heaterCathodeWithinRating = solution.op.vk;
         margins.heaterCathodeWithinRating = hk ? 1 - solution.op.vk / hk.cathodePositive : 0;
         break;
       }
@@ -121,5 +140,5 @@ export function judgeStage(design: StageDesign, targets: Targets, active: readon
     if (m < 0) failing.push(k);
     if (m < score) score = m;
   }
-  return { ra: design.ra, rk: design.rk, failing, margins, score: active.length === 0 ? 0 : score };
+  return { ra: design.ra, rk: design.rk, failing, margins, score: active.length === 0 ? 0 : score, values };
 }

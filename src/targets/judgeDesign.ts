@@ -8,6 +8,8 @@ export interface DesignVerdict {
   readonly failing: readonly TargetName[];
   /** Each set target's margin: 0 at its edge, positive inside (a share of the target), negative outside. */
   readonly margins: Partial<Record<TargetName, number>>;
+  /** What each target measures at this design (see PointVerdict.values). */
+  readonly values: Partial<Record<TargetName, number | null>>;
 }
 
 /**
@@ -21,5 +23,5 @@ export function judgeDesign(design: StageDesign, targets: Targets): Result<Desig
   if (typeof design !== 'object' || design === null) return fail('invalid-input', 'No design given');
   const v = judgeStage(design, targets, activeTargets(targets));
   if (v.failing[0] === UNREACHABLE) return fail('invalid-input', 'This design does not solve: no operating point to judge', 'design');
-  return { ok: true, failing: v.failing as TargetName[], margins: v.margins };
+  return { ok: true, failing: v.failing as TargetName[], margins: v.margins, values: v.values };
 }

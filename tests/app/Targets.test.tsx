@@ -74,7 +74,10 @@ describe('targets on the voltage bench', () => {
     for (const [k, text] of items) expect(text!.startsWith(model.failing.includes(k as 'minGain') ? '✗' : '✓')).toBe(true);
     const card = cardSections(store.getState()).find((c) => c.heading === 'Targets');
     expect(card?.lines).toHaveLength(2);
-    expect(card!.lines[0]).toMatch(model.failing.includes('minGain') ? /^MISSED: gain, missed by/ : /^Met: gain, met with/);
+    expect(card!.lines[0]).toMatch(model.failing.includes('minGain') ? /^MISSED: gain [\d.]+ ×, missed by/ : /^Met: gain [\d.]+ ×, met with/);
+    // The value shown is the model's gain at this design.
+    expect(model.values.minGain).toBeCloseTo(Math.abs(store.getState().analysis.solution.gain), 9);
+    expect(items[0]![1]).toContain(`${Number(model.values.minGain!.toPrecision(3))} ×`);
   });
 
   it('a bad target is refused beside its box, and the design keeps its last targets', async () => {
