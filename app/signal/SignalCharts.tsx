@@ -71,7 +71,7 @@ export function SignalCharts() {
         { key: 'thd-past', points: past, stroke: PALETTE.load, dash: '4 3' },
       ],
       markers: [
-        ...(edge > 0 ? [{ x: edge, y: edgeThd, color: PALETTE.bias, label: signal.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff' }] : []),
+        ...(edge > 0 ? [{ x: edge, y: edgeThd, color: PALETTE.bias, label: signal.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff', below: true }] : []),
         ...(d.ok ? [{ x: level, y: d.thdPercent, color: PALETTE.point, label: `${d.thdPercent.toFixed(2)} %` }] : []),
       ],
     };

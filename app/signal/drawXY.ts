@@ -36,7 +36,8 @@ export interface XYSpec {
   readonly y: AxisSpec;
   readonly series?: readonly XYSeries[];
   readonly bars?: readonly XYBar[];
-  readonly markers?: readonly { x: number; y: number; label?: string; color: string }[];
+  /** Points with a label; `below` writes it under the point (where another marker's label sits above). */
+  readonly markers?: readonly { x: number; y: number; label?: string; color: string; below?: boolean }[];
 }
 
 const M = { top: 10, right: 12, bottom: 36, left: 48 };
@@ -80,7 +81,7 @@ export function drawXY(layer: SVGGElement, spec: XYSpec) {
     g.append('circle').attr('cx', x(m.x)).attr('cy', y(m.y)).attr('r', 4).attr('fill', m.color).attr('stroke', PALETTE.ink);
     // Labels in the right half of the plot are written leftward, so they stay inside it.
     const leftward = x(m.x) > (x.range()[0]! + x.range()[1]!) / 2;
-    if (m.label) g.append('text').attr('x', x(m.x) + (leftward ? -6 : 6)).attr('text-anchor', leftward ? 'end' : 'start').attr('y', y(m.y) - 6).attr('font-size', 10).attr('fill', PALETTE.ink).attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3).text(m.label);
+    if (m.label) g.append('text').attr('x', x(m.x) + (leftward ? -6 : 6)).attr('text-anchor', leftward ? 'end' : 'start').attr('y', y(m.y) + (m.below ? 14 : -6)).attr('font-size', 10).attr('fill', PALETTE.ink).attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3).text(m.label);
   }
   return { x, y };
 }
