@@ -2,7 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import { feasibleRegion, judgeDesign, rankTubes, type DesignVerdict, type FeasibleRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
-import { anyTarget, targetsOf } from './targetPlan';
+import { anyTarget, NO_TARGETS, targetsOf } from './targetPlan';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
 /** Where the region is worked out: in a Web Worker on the page (regionThread), in place in tests. */
@@ -118,7 +118,7 @@ export const createRegionSlice =
     },
     clearTargets: () => {
       const d = get().design;
-      get().commit({ ...d, targets: { ...d.targets, minGain: null, minCleanOutputRms: null, thdLevelRms: null, maxThd: null, maxDissipationFraction: null, maxZout: null, raMin: null, raMax: null, rkMin: null, rkMax: null, minGridHeadroom: null, heaterCathodeWithinRating: false } });
+      get().commit({ ...d, targets: NO_TARGETS });
     },
     rankTubesNow: () => {
       const req = regionRequestOf(get());
@@ -189,7 +189,9 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
   };
   store.subscribe((s, prev) => {
     if ((s.design !== prev.design && !s.dragging) || (prev.dragging && !s.dragging)) judge(s);
-    if (s.design.targets !== prev.design.targets || s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent) {
+    // A drag of the point moves only Ra and Rk, which the region is a map of: nothing to ask for on its frames.
+    if (s.dragging === 'point') return;
+    if (s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent || (prev.dragging && !s.dragging)) {
       const req = regionRequestOf(s);
       if (req?.key !== s.region?.key || !req) void run();
     }

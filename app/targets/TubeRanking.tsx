@@ -1,4 +1,4 @@
-import { TARGET_LABELS, type TargetName } from '../../src/index';
+import { TARGET_LABELS } from '../../src/index';
 import { ohms } from '../format';
 import { useWorkbench } from '../store/StoreProvider';
 import { marginWords } from './marginWords';
@@ -22,7 +22,7 @@ export function TubeRanking() {
           </thead>
           <tbody>
             {result.ranks.map((r) => {
-              const weakest = (Object.keys(r.margins) as TargetName[]).reduce<TargetName | null>((w, k) => (w === null || r.margins[k]! < r.margins[w]! ? k : w), null);
+              const weakest = r.weakest;
               return (
                 <tr key={r.tubeId} className={r.score >= 0 ? 'meets' : 'misses'} data-tube={r.tubeId}>
                   <th scope="row">{r.tubeId}</th>

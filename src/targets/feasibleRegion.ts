@@ -99,7 +99,8 @@ export function feasibleRegion(stage: RegionStage, targets: Targets, grid: Regio
   return { ok: true, va, ia, inside, failing, ra: ras, rk: rks, best, excludesMost };
 }
 
-function weakestOf(margins: Partial<Record<TargetName, number>>, active: readonly TargetName[]): TargetName | null {
+/** The target with the smallest margin, or null with none set. */
+export function weakestOf(margins: Partial<Record<TargetName, number>>, active: readonly TargetName[]): TargetName | null {
   let weakest: TargetName | null = null;
   for (const k of active) if (weakest === null || margins[k]! < margins[weakest]!) weakest = k;
   return weakest;

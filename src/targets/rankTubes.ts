@@ -3,7 +3,7 @@ import { plateExtent } from '../stage/plateExtent';
 import { tubeLibrary } from '../tube/library';
 import type { TubeRecord } from '../tube/types';
 import { evaluatePoint, UNREACHABLE, type RegionStage } from './evaluatePoint';
-import { feasibleRegion } from './feasibleRegion';
+import { feasibleRegion, weakestOf } from './feasibleRegion';
 import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
 
 export interface TubeRank {
@@ -15,6 +15,8 @@ export interface TubeRank {
   readonly margins: Partial<Record<TargetName, number>>;
   /** The smallest margin: ≥ 0 when every target holds. */
   readonly score: number;
+  /** The target with that margin, or null with no targets set. */
+  readonly weakest: TargetName | null;
   /** Where it sits on the plate plane, V and A. */
   readonly vpk: number;
   readonly ia: number;
@@ -58,7 +60,7 @@ export function rankTubes(targets: Targets, stage: Omit<RegionStage, 'tube'>, tu
         if (v.failing[0] !== UNREACHABLE && v.score > top.score) top = { vpk, ia, ra: v.ra, rk: v.rk, score: v.score, margins: v.margins };
       }
     }
-    ranks.push({ tubeId: tube.id, ...top });
+    ranks.push({ tubeId: tube.id, ...top, weakest: weakestOf(top.margins, active) });
   }
   return { ok: true, ranks: ranks.sort((x, y) => y.score - x.score) };
 }
