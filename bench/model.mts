@@ -93,6 +93,27 @@ export function amplifierOnSupplyWarm(): void {
   if (!r.ok) throw new Error(r.message);
 }
 
+/** The settled solve as the page asks for it after a change: with the supply's tangent for the drag that may follow. */
+const SETTLED_WITH_TANGENT = solveOnSupply({ ...ON_SUPPLY, keepTangent: true });
+let outputStep = 0;
+let lastNodes: number[] | null = null;
+/**
+ * One drag frame as the page's worker solves it: the output stage's cathode
+ * resistor a little different each time (its current, the largest on the
+ * supply, moves every node; 40 frames sweep it 16 % and start again), the
+ * supply taken along the settled solve's tangent, from the last answer's nodes.
+ */
+export function amplifierOnSupplyDragFrame(): void {
+  if (!SETTLED_WITH_TANGENT.ok || !SETTLED_WITH_TANGENT.tangent) throw new Error('the settled solve answers its tangent');
+  outputStep = (outputStep + 1) % 40;
+  const stages = FOUR_STAGES.stages.map((st) => (st.kind === 'single-ended-output' ? { ...st, rk: st.rk * (1 - 0.004 * outputStep) } : st));
+  const start = lastNodes ?? SETTLED_WITH_TANGENT.supply.nodes.map((n) => n.dc);
+  const r = solveOnSupply({ ...ON_SUPPLY, amplifier: { ...FOUR_STAGES, stages }, start, around: SETTLED_WITH_TANGENT.tangent, keepTangent: true });
+  if (!r.ok) throw new Error(r.message);
+  lastNodes = r.supply.nodes.map((n) => n.dc);
+  if (r.supplyBy !== 'tangent') throw new Error('a drag frame strayed from the tangent: the measure would time the transient solve');
+}
+
 /** A push-pull pair of our own: EL34s ultralinear at 430 V, fixed bias, 6.6 kΩ plate to plate. */
 const PUSH_PULL = solvePushPull(findOutputTube('EL34')!, {
   tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200,
@@ -149,6 +170,8 @@ export interface ModelResults {
   readonly amplifierOnSupply: Stats;
   /** The same after one drag frame's change, from the last steady state. */
   readonly amplifierOnSupplyWarm: Stats;
+  /** One drag frame's solve of amplifier and supply, the supply along the settled solve's tangent (budget 8 ms p95). */
+  readonly amplifierOnSupplyDragFrame: Stats;
   /** The four-stage amplifier, solved whole (budget 8 ms median). */
   readonly fourStageChain: Stats;
   readonly solveStage: Stats;
@@ -202,6 +225,7 @@ export function benchModel(): ModelResults {
     pushPullAmplifier: [() => pushPullAmplifier(), 10, 3],
     amplifierOnSupply: [() => amplifierOnSupply(), 2, 1],
     amplifierOnSupplyWarm: [() => amplifierOnSupplyWarm(), 5, 2],
+    amplifierOnSupplyDragFrame: [() => amplifierOnSupplyDragFrame(), 40, 10],
     fullAnalysis: [() => fullAnalysis(), 150, 20],
     regionCoarse: [() => region(30, 20), 5, 2],
     regionFull: [() => region(60, 40), 3, 1],
@@ -218,5 +242,5 @@ export function benchModel(): ModelResults {
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
   const perPoint = (s: Stats): Stats => ({ ...s, median: s.median / 2400, p95: s.p95 / 2400, min: s.min / 2400, max: s.max / 2400, ...(s.p95Runs ? { p95Runs: s.p95Runs.map((x) => x / 2400) } : {}) });
-  return { regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, amplifierOnSupplyDragFrame: m.amplifierOnSupplyDragFrame, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

@@ -180,7 +180,7 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
 export type SupplySolver = (input: AmplifierOnSupply) => Promise<Result<AmplifierOnSupplyResult> | 'cancelled'>;
 
 /** Between the supply's answers while a drag runs, ms: each redraws the supply's table on the page's thread. */
-export const LIVE_SUPPLY_PAUSE_MS = 250;
+export const LIVE_SUPPLY_PAUSE_MS = 100;
 
 /** How long the design must hold still before the supply is solved again, ms. */
 export const SUPPLY_SETTLE_MS = 150;
@@ -215,7 +215,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
       const mine = ++job;
       // From the last steady state when there is one: a change to the stages settles in fewer rounds.
       const last = store.getState().supplyView?.result;
-      void solver(last?.ok ? { ...chain.input, start: last.supply.nodes.map((n) => n.dc) } : chain.input).then((r) => {
+      // Its tangent comes back with it: the drag that may follow solves the supply along it, frame by frame.
+      void solver({ ...chain.input, ...(last?.ok ? { start: last.supply.nodes.map((n) => n.dc) } : {}), keepTangent: true }).then((r) => {
         if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
         const view: SupplyView = { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false };
         store.setState({ supplyView: view });
@@ -232,10 +233,11 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
   };
   /**
    * While a drag runs: the amplifier and its supply solved again and again
-   * (off the page's thread with the page's solver), each from the last
-   * steady state, one at a time, the newest design each time, so the nodes
-   * follow the drag. Its answers show but are never committed (following
-   * B+ waits for the release's full solve).
+   * (off the page's thread with the page's solver), one at a time, the
+   * newest design each time, so the nodes follow the drag. The supply is
+   * taken along the last settled solve's tangent (a few milliseconds a
+   * solve; in full when the currents stray from it). Its answers show but
+   * are never committed (following B+ waits for the release's full solve).
    */
   let live = false;
   const follow = async () => {
@@ -249,12 +251,12 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         const d = s.design;
         const chain = d.supply.on ? onSupplyInputOf(d) : null;
         if (!chain) return;
-        const r = await solver({ ...chain.input, start: last.supply.nodes.map((n) => n.dc) });
+        const r = await solver({ ...chain.input, start: last.supply.nodes.map((n) => n.dc), ...(last.tangent ? { around: last.tangent } : {}), keepTangent: true });
         const now = store.getState();
         if (r === 'cancelled' || !r.ok || !now.dragging) return;
         store.setState({ supplyView: { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: now.design !== d } });
         if (now.design === d) return;
-        // A few times a second is live enough to read, and leaves the drag's frames to the drag.
+        // Ten times a second is live enough to read, and leaves the drag's frames to the drag (each answer redraws the supply's table).
         await new Promise((resume) => setTimeout(resume, LIVE_SUPPLY_PAUSE_MS));
       }
     } finally {

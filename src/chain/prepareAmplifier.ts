@@ -66,7 +66,18 @@ export interface PreparedAmplifier {
 /** Points a cycle for the figures: below clipping the transfers are smooth, and harmonics to H10 need far fewer. */
 export const CYCLE_SAMPLES = 128;
 
-export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
+/**
+ * Every stage solved in its place (operating point, small-signal figures,
+ * its current from the supply), without the composed transfer: what the
+ * supply needs from the amplifier, a fraction of the whole solve.
+ */
+export interface PlacedStages {
+  readonly links: readonly SolvedLink[];
+  /** Each stage's input impedance (the load on the stage before it), Ω. */
+  readonly zins: readonly number[];
+}
+
+export function solveStagesInPlace(input: ChainInput): Result<PlacedStages> {
   const problem = checkChain(input);
   if (problem) return problem;
   const { stages } = input;
@@ -81,6 +92,14 @@ export function prepareAmplifier(input: ChainInput): Result<PreparedAmplifier> {
     if (!solved.ok) return inStage(solved, i);
     links.push(solved);
   }
+  return { ok: true, links, zins };
+}
+
+/** `placed`: the stages already solved in place for this very input (as solveOnSupply's last round has them). */
+export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages>): Result<PreparedAmplifier> {
+  const solvedLinks = placed ?? solveStagesInPlace(input);
+  if (!solvedLinks.ok) return solvedLinks;
+  const { links, zins } = solvedLinks;
   const rsource = input.source.rsource;
   const sourceShare = Number.isFinite(zins[0]!) ? zins[0]! / (zins[0]! + rsource) : 1;
   const gain = links.reduce((g, l) => g * l.gain, sourceShare);

@@ -4,7 +4,7 @@ import { sineLevel } from '../signal/levels';
 import { atLevelOf, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import { chainCorners, type ChainNetwork } from './chainResponse';
 import type { ChainInput, ChainResult, ChainStage, StageResult } from './chainTypes';
-import { prepareAmplifier } from './prepareAmplifier';
+import { prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
 import { STAGE_KIND_LABELS } from './stageKinds';
 
 export { checkChain, prepareAmplifier, MAX_CHAIN_STAGES, type PreparedAmplifier } from './prepareAmplifier';
@@ -18,7 +18,11 @@ export { checkChain, prepareAmplifier, MAX_CHAIN_STAGES, type PreparedAmplifier 
  * stage's headroom there.
  */
 export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Result<ChainResult & { readonly atLevel?: Result<AmplifierAtLevel> }> {
-  const a = prepareAmplifier(input);
+  return amplifierOf(input, prepareAmplifier(input), level);
+}
+
+/** The amplifier's figures from its prepared solve (solveOnSupply prepares it from the stages its rounds already placed). */
+export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, level?: AmplifierLevel): Result<ChainResult & { readonly atLevel?: Result<AmplifierAtLevel> }> {
   if (!a.ok) return a;
   const { stages } = input;
   const { links, signal, clips, first, inputPeak, gain } = a;

@@ -1,8 +1,11 @@
 import { fail, type Failure, type Result } from '../result';
 import { solveSupply } from '../supply/solveSupply';
+import { nearbyLoads, supplyNear, supplyTangent, type SupplyTangent } from '../supply/supplyTangent';
 import type { SupplyDesign, SupplySolution } from '../supply/supplyTypes';
 import type { ChainInput, ChainResult } from './chainTypes';
-import { solveAmplifier } from './solveAmplifier';
+import { prepareAmplifier, solveStagesInPlace } from './prepareAmplifier';
+import { amplifierOf } from './solveAmplifier';
+import type { SolvedLink } from './stageKind';
 
 export interface AmplifierOnSupply {
   readonly amplifier: ChainInput;
@@ -18,6 +21,14 @@ export interface AmplifierOnSupply {
    * unless it gives one finite positive voltage per node.
    */
   readonly start?: readonly number[];
+  /**
+   * The last steady state's tangent (from a solve asked `keepTangent`): the
+   * supply is then taken along it instead of integrated, while the loads stay
+   * near where it was taken (a drag's frames), and solved in full otherwise.
+   */
+  readonly around?: SupplyTangent;
+  /** Answer the tangent at the solution too, for the frames that follow (one more transient solve per node). */
+  readonly keepTangent?: boolean;
 }
 
 export interface AmplifierOnSupplyResult {
@@ -35,6 +46,10 @@ export interface AmplifierOnSupplyResult {
    */
   readonly atFullPower: { readonly volts: readonly number[]; readonly loads: readonly number[] } | null;
   readonly iterations: number;
+  /** How the supply was solved: integrated to its steady state, or taken along the last one's tangent. */
+  readonly supplyBy: 'transient' | 'tangent';
+  /** The tangent at this solution, when asked (`keepTangent`). */
+  readonly tangent?: SupplyTangent;
 }
 
 /** Agreement asked between a node's voltage and the B+ its stages were solved at, V. */
@@ -93,35 +108,59 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   const own = Array.isArray(supply.loads) ? supply.loads : [];
   const start = input.start;
   let volts: number[] | null = Array.isArray(start) && start.length === nodes && start.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) ? [...start] : null;
-  let last: { amplifier: ChainResult; supply: SupplySolution; bplus: number[] } | null = null;
+  let rounds = 0;
   let loads: number[] = [];
+  const around = input.around && Array.isArray(input.around.loads) && input.around.loads.length === nodes ? input.around : null;
+  let byTangent = around !== null;
+  // Along the tangent while every round's loads stay near it; one round that strays solves the supply in full from there on.
+  const supplyAt = (at: number[], from: number[] | null) => {
+    if (byTangent && nearbyLoads(around!, at)) return supplyNear({ ...supply, loads: at }, around!, at);
+    byTangent = false;
+    return solveSupply({ ...supply, loads: at }, from ? { start: from } : {});
+  };
   for (let iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
     // A node the stages pulled below the floor (the loads are taken as constant currents for one round) is held
     // there; the stages then draw less, and a supply that can feed them climbs back.
     const bplus = stages.map((s, i) => (volts ? Math.max(volts[feeds[i]!]!, MIN_NODE_VOLTS) : s.bplus));
-    const chain = solveAmplifier({ ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) });
-    if (!chain.ok) return volts && bplus.some((b) => b <= MIN_NODE_VOLTS) ? cannotDeliver(volts, feeds, loads) : chain;
-    loads = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? st.supplyCurrent : 0), 0));
-    const solved = solveSupply({ ...supply, loads }, volts ? { start: volts } : {});
+    // Each round needs only the stages' currents (their operating points, a fifth of the whole solve); the whole
+    // amplifier is solved once, at the B+ the rounds agree on.
+    const placed: ChainInput = { ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) };
+    const inPlace = solveStagesInPlace(placed);
+    if (!inPlace.ok) return volts && bplus.some((b) => b <= MIN_NODE_VOLTS) ? cannotDeliver(volts, feeds, loads) : inPlace;
+    const drawn = (current: (l: SolvedLink) => number) => own.map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) : 0), 0));
+    loads = drawn((l) => l.supplyCurrent);
+    const solved = supplyAt(loads, volts);
     if (!solved.ok) return solved;
     const next = solved.nodes.map((n) => n.dc);
     const moved = volts ? Math.max(...next.map((v, k) => Math.abs(v - volts![k]!))) : Infinity;
-    const settled = last !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
-    last = { amplifier: chain, supply: solved, bplus };
+    // The stages were solved at the nodes the supply now gives (from the first round when it started from a solution).
+    const settled = (rounds > 0 || volts !== null) && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
+    rounds++;
     volts = next;
     yield;
     if (settled || moved <= VOLT_TOL / 10) {
       if (feeds.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, feeds, loads);
+      const chain = amplifierOf(placed, prepareAmplifier(placed, inPlace));
+      if (!chain.ok) return chain;
       const { ok: _a, ...amp } = chain;
       const { ok: _s, ...sup } = solved;
       let atFullPower: AmplifierOnSupplyResult['atFullPower'] = null;
-      if (chain.stages.some((st) => st.fullPowerCurrent !== undefined)) {
-        const full = own.map((a, k) => a + channels * chain.stages.reduce((sum, st, i) => sum + (feeds[i] === k ? (st.fullPowerCurrent ?? st.supplyCurrent) : 0), 0));
-        const driven = solveSupply({ ...supply, loads: full }, { start: next });
+      if (inPlace.links.some((l) => l.fullPowerCurrent !== undefined)) {
+        const full = drawn((l) => l.fullPowerCurrent ?? l.supplyCurrent);
+        const driven = byTangent && nearbyLoads(around!, full) ? supplyNear({ ...supply, loads: full }, around!, full) : solveSupply({ ...supply, loads: full }, { start: next });
         if (!driven.ok) return driven;
         atFullPower = { volts: driven.nodes.map((n) => n.dc), loads: full };
       }
-      return { ok: true, amplifier: amp, supply: sup, bplus, loads, atFullPower, iterations: iteration };
+      const solvedBy = byTangent ? ('tangent' as const) : ('transient' as const);
+      const answer = { ok: true as const, amplifier: amp, supply: sup, bplus, loads, atFullPower, iterations: iteration, supplyBy: solvedBy };
+      if (!input.keepTangent) return answer;
+      // Along a tangent already, it stays the one to follow: it was taken at a steady state, this answer is on its line.
+      if (byTangent) return { ...answer, tangent: around! };
+      yield;
+      const tangent = supplyTangent({ ...supply, loads }, sup);
+      if (!tangent.ok) return tangent;
+      const { ok: _t, ...kept } = tangent;
+      return { ...answer, tangent: kept };
     }
   }
   return fail('no-convergence', 'The stages and the supply did not agree on the B+ within 30 rounds: check the loads and the filter', 'supply');

@@ -158,6 +158,14 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveChain (push-pull)', fc.tuple(fc.tuple(near(chainStages[0]!), fc.oneof(near(splitLoad), near(ltp)), near(pairStage)).map(([a, b, c]) => ({ source: { rsource: 600 }, stages: [a, b, c] }))), Q.solveChain, 40);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
+  const tangentSupply = { ...supply, loads: [0.05, 0.004] } as Q.SupplyDesign;
+  const solvedSupply = Q.solveSupply(tangentSupply);
+  const tangent = solvedSupply.ok ? Q.supplyTangent(tangentSupply, solvedSupply) : null;
+  const tangents = fc.oneof(fc.constant(tangent), anything);
+  run('supplyTangent', fc.tuple(near(tangentSupply), fc.oneof(fc.constant(solvedSupply), anything)), Q.supplyTangent, 12);
+  run('supplyNear', fc.tuple(near(tangentSupply), tangents, fc.oneof(fc.tuple(or(fc.double({ min: 0, max: 0.1 })), or(fc.double({ min: 0, max: 0.01 }))), anything)), Q.supplyNear, 200);
+  run('nearbyLoads', fc.tuple(tangents, fc.oneof(fc.tuple(numbers, numbers), anything)), Q.nearbyLoads);
+  run('solveOnSupply (along a tangent)', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: fc.constant([0, 0]), around: tangents, start: fc.oneof(fc.constant([290]), anything) })), Q.solveOnSupply, 12);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
   run('analyzeOutput (light)', fc.tuple(outTubes, near(output), near({ light: true })), Q.analyzeOutput, 150);
   run('biasForPoint', fc.tuple(outTubes, near(output), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.biasForPoint);
