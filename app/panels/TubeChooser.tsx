@@ -21,6 +21,7 @@ export function TubeChooser() {
   const words = filter.trim().toLowerCase().split(/\s+/).filter(Boolean);
   const matching = tubes.filter((t) => words.every((w) => `${t.id} ${t.description}`.toLowerCase().includes(w)));
   // A list the eye can scan, and the page can draw at once: the chosen tube and the first matches; the filter finds the rest.
+  const chosen = tubes.find((t) => t.id === current);
   const shown = matching.length <= MAX_LISTED ? matching : [...matching.filter((t) => t.id === current), ...matching.filter((t) => t.id !== current).slice(0, MAX_LISTED - 1)];
 
   return (
@@ -50,6 +51,7 @@ export function TubeChooser() {
         ))}
         {matching.length > shown.length ? <p className="muted">{`${matching.length - shown.length} more: type in the box to narrow the list.`}</p> : null}
       </div>
+      {chosen ? <p className="fit-basis"><strong>{chosen.id}'s model:</strong> {chosen.fitBasis}</p> : null}
     </section>
   );
 }

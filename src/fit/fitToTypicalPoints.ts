@@ -1,4 +1,4 @@
-import { korenParamsProblem } from '../tube/koren';
+import { korenParamsProblem, korenPlateCurrent } from '../tube/koren';
 import { smallSignalAt, triode } from '../tube/triode';
 import type { KorenTriodeParams, TypicalPoint } from '../tube/types';
 import { levenbergMarquardt } from './levenbergMarquardt';
@@ -61,11 +61,31 @@ export function summarizeErrors(errors: readonly { label: string; errorPercent: 
   return { rmsPercent: Math.sqrt(ss / Math.max(errors.length, 1)), worst };
 }
 
-export function fitToTypicalPoints(points: readonly TypicalPoint[], muGuess: number): FigureFit {
+/** A point read from a published plate-curve family: plate volts, grid volts, plate current (A). */
+export interface CurveReadingPoint {
+  readonly va: number;
+  readonly vg: number;
+  readonly ia: number;
+}
+
+/** Relative errors of a parameter set against points read from plate curves, labelled for people. */
+export function curveErrors(params: KorenTriodeParams, points: readonly CurveReadingPoint[]) {
+  return points.map((pt) => ({ label: `Ia at ${pt.va} V/${pt.vg} V on the curves`, errorPercent: (korenPlateCurrent(params, pt.va, pt.vg) / pt.ia - 1) * 100 }));
+}
+
+/**
+ * The same fit with points read from the tube's published plate-curve family
+ * as well: each point's current is one more log-ratio residual, beside the
+ * typical points' figures, within the same physical bounds.
+ */
+export function fitToTypicalPoints(points: readonly TypicalPoint[], muGuess: number, curves: readonly CurveReadingPoint[] = []): FigureFit {
   const residuals = (x: readonly number[]): number[] => {
     const p = toParams(x);
     const model = triode(p);
-    const r: number[] = [];
+    const r: number[] = curves.map((c) => {
+      const ia = korenPlateCurrent(p, c.va, c.vg);
+      return ia > 0 && Number.isFinite(ia) ? Math.log(ia / c.ia) : 10;
+    });
     for (const pt of points) {
       const s = smallSignalAt(model, pt.va, pt.vg);
       const logRatio = (m: number, ref: number) => (m > 0 && Number.isFinite(m) ? Math.log(m / ref) : 10);

@@ -88,6 +88,16 @@ export interface FitProvenance {
   readonly worst: string;
   /** The other candidate that was weighed, with its own RMS, when there was one. */
   readonly rejected?: string;
+  /** Over the points read from the plate curves (`TubeRecord.curves`), when the fit used them: RMS of the current's relative errors, %, and the worst point. */
+  readonly curveRmsPercent?: number;
+  readonly curveWorst?: string;
+}
+
+/** Points read from a tube's published plate-curve family, and whose reading they are. */
+export interface CurveReadings {
+  /** The sheet, and who read the points off it. */
+  readonly source: string;
+  readonly points: readonly { readonly va: number; readonly vg: number; readonly ia: number }[];
 }
 
 export interface TubeRecord {
@@ -103,6 +113,8 @@ export interface TubeRecord {
   readonly ratings: TubeRatings;
   readonly capacitances: Capacitances;
   readonly typical: readonly TypicalPoint[];
+  /** Points read from its published plate curves, where the fit used them (#18: fits to whole curves, not one point). */
+  readonly curves?: CurveReadings;
   /** True for tubes a user made (custom fits); library tubes are false. */
   readonly userMade?: boolean;
 }

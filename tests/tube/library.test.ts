@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { figureErrors, summarizeErrors } from '../../src/fit/fitToTypicalPoints';
+import { curveErrors, figureErrors, summarizeErrors } from '../../src/fit/fitToTypicalPoints';
 import { smallSignalAt } from '../../src/tube/triode';
 import { findTube, tubeLibrary } from '../../src/tube/library';
 import { relErr } from '../helpers/expectClose';
@@ -55,6 +55,11 @@ describe('tube library', () => {
         if (p.gm !== undefined) expect(Math.abs(relErr(s.gm, p.gm)), `gm ${s.gm} vs ${p.gm}`).toBeLessThanOrEqual(20);
       },
     );
+  });
+
+  it.each(tubeLibrary.filter((t) => t.curves).map((t) => [t.id, t] as const))('%s records the residuals its parameters really have over the points read from its plate curves', (_id, tube) => {
+    const { rmsPercent } = summarizeErrors(curveErrors(tube.model.params, tube.curves!.points));
+    expect(Math.abs(rmsPercent - tube.fit.curveRmsPercent!)).toBeLessThan(0.06);
   });
 
   it('12AX7 figures against the Tung-Sol sheet (1947), checked by name', () => {
