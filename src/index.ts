@@ -30,6 +30,7 @@ export { tubeSummary, type TubeSummary } from './tube/tubeSummary';
 export { solveStage, CUTOFF_CURRENT_A, type StageSolution, type OperatingPoint } from './stage/solveStage';
 export { normalizeStage, STAGE_DEFAULTS, type StageDesign, type CheckedStage } from './stage/stageDesign';
 export { solveFollower, type FollowerDesign, type FollowerSolution } from './stage/solveFollower';
+export { followerPlane, followerRkFor, type FollowerPlane, type FollowerRk } from './stage/followerPlane';
 export { designFor, type DesignTarget, type DesignAnswer } from './stage/designFor';
 export {
   designAtPlanePoint,

@@ -1,4 +1,5 @@
 import { fail, type Result } from '../result';
+import { checkSupply } from './checkSupply';
 import { solveSupply } from './solveSupply';
 import { supplyFindings } from './supplyFindings';
 import type { SupplyDesign, SupplyNode, SupplySolution } from './supplyTypes';
@@ -82,6 +83,8 @@ export function nearbyLoads(tangent: SupplyTangent, loads: readonly number[]): b
  * A failure when the loads are not nearby (solve the supply in full).
  */
 export function supplyNear(design: SupplyDesign, tangent: SupplyTangent, loads: readonly number[]): Result<SupplySolution> {
+  const problem = checkSupply({ ...design, loads });
+  if (problem) return problem;
   if (!nearbyLoads(tangent, loads)) return fail('unreachable', 'These loads are too far from the last solved supply for its tangent: solve it in full', 'loads');
   const at = tangent.at;
   const x = figuresOf(at);

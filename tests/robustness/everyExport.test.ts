@@ -106,6 +106,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveStage', fc.tuple(near({ ...stage, tube: au7 })), Q.solveStage, 600);
   run('solveStage (tube)', fc.tuple(tubes.map((t) => ({ ...stage, tube: t }))), Q.solveStage);
   run('solveFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 })), Q.solveFollower);
+  run('followerPlane', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 }), near({ vmax: 400, iaMax: 0.02 })), Q.followerPlane);
+  run('followerRkFor', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150 }), or(fc.double({ min: 1e-7, max: 0.05 })), fc.oneof(fc.constant(undefined), fc.tuple(or(fc.double({ min: 1, max: 1e4 })), or(fc.double({ min: 1e4, max: 1e7 }))), anything)), Q.followerRkFor);
   run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
   run('designAtPlanePoint', fc.tuple(near({ tube: au7, bplus: 275, vpk: 150, ia: 5e-3 })), Q.designAtPlanePoint);
   run('nearestReachable', fc.tuple(tubes, or(fc.double({ min: 1, max: 600 })), or(fc.double({ min: -10, max: 900 })), or(fc.double({ min: -0.1, max: 0.2 }))), Q.nearestReachable);
