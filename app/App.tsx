@@ -29,6 +29,9 @@ import { ExportPanel } from './panels/ExportPanel';
 import { KeepPanel } from './panels/KeepPanel';
 import { TargetsPanel } from './targets/TargetsPanel';
 import type { WorkbenchStore } from './store/workbenchStore';
+import { followerShown } from './store/shownStage';
+import { FollowerFigures } from './follower/FollowerFigures';
+import { FollowerCompare } from './follower/FollowerCompare';
 
 export function App({ store }: { store?: WorkbenchStore }) {
   return (
@@ -60,27 +63,37 @@ function Bench() {
   );
 }
 
-/** The resistance-coupled voltage stage: its chart, figures, signal views and build sheet. */
+/**
+ * The resistance-coupled voltage stage: its chart, figures, signal views and
+ * build sheet; or, with its cathode follower on the bench, the follower on
+ * its own curves, its figures and its values first.
+ */
 function VoltageBench() {
+  const follower = useWorkbench(followerShown);
   return (
         <main className="bench">
           <div className="bench-main">
-            <FiguresStrip />
-            <section className="sheet-panel" aria-label="Plate curves">
+            {follower ? <FollowerFigures /> : <FiguresStrip />}
+            <section className="sheet-panel" aria-label={follower ? 'The follower\'s plate curves' : 'Plate curves'}>
               <PlateChart />
             </section>
-            <TargetsPanel />
+            {follower ? null : <TargetsPanel />}
             <FindingsList />
-            <SignalPanel />
-            <SignalCharts />
-            <ComparePanel />
+            {follower ? <FollowerCompare /> : (
+              <>
+                <SignalPanel />
+                <SignalCharts />
+                <ComparePanel />
+              </>
+            )}
             <BuildSheetPanel />
           </div>
           <div className="bench-side">
             <KeepPanel />
             <StageSchematic />
+            {follower ? <Stage2Panel /> : null}
             <CircuitValues />
-            <Stage2Panel />
+            {follower ? null : <Stage2Panel />}
             <TubeChooser />
             <CustomTubePanel />
             <ExportPanel />

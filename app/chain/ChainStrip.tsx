@@ -51,7 +51,7 @@ export function ChainStrip() {
       <ol className="chain-cards">
         {view.names.map((name, i) => {
           const v = name.voltageIndex;
-          const onBench = v === null ? design.stageKind === 'output' : design.stageKind === 'voltage' && (v === bench || (followerOnBench && v === bench + 1));
+          const onBench = v === null ? design.stageKind === 'output' : (design.stageKind === 'voltage' && v === bench) || (design.stageKind === 'follower' && followerOnBench && v === bench + 1);
           const result = r.ok ? r.stages[i] ?? null : null;
           const isFollower = v !== null && list[v]?.kind === 'follower';
           return (

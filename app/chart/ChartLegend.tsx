@@ -41,6 +41,19 @@ export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'The path the tube takes with the grids driven to 0 V (solved with its partner)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
+/** The follower's key: its plate at B+, its grid at the plate before it, the load in its cathode. */
+export function followerLegend(vgrid: number): readonly LegendItem[] {
+  return [
+    { label: 'Plate curves (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
+    { label: 'Cathode load line: B+ at no current, B+/Rk at the plate at its cathode', stroke: PALETTE.load, dash: undefined, width: 2 },
+    { label: 'AC load line (Rk with the next grid\'s resistor)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
+    { label: `Bias line: the grid held at ${vgrid.toFixed(0)} V, the plate before it`, stroke: PALETTE.bias, dash: '2 3', width: 1.8 },
+    { label: 'Where Rk moves the point (drag along it)', stroke: PALETTE.point, dash: '1 4', width: 1.2 },
+    { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
+    { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
+  ];
+}
+
 export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = null }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: readonly TargetName[] | null }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">

@@ -2,9 +2,10 @@ import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } fro
 import { milliamps, volts } from '../format';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachDrag } from './attachDrag';
-import { ChartLegend } from './ChartLegend';
+import { ChartLegend, followerLegend, VOLTAGE_STAGE_LEGEND } from './ChartLegend';
 import { PointMark, RivalMark, SheetLayers } from './SheetLayers';
-import { drawOverlay, drawRivalOverlay, drawSpread } from './drawOverlay';
+import { drawOverlay, drawRivalOverlay, drawSpread, linePath } from './drawOverlay';
+import { followerShown, shownLines, shownRivalSheet, shownSheet, shownTubeId } from '../store/shownStage';
 import { buildSheetOf } from '../store/buildSheet';
 import { HoverReadout } from './HoverReadout';
 import { ChartWindowSwitch } from './ChartWindowSwitch';
@@ -20,17 +21,20 @@ const STEP = 0.01;
 const BIG_STEP = 0.05;
 
 /**
- * The plate chart. React owns the <svg>, its layer groups and the two
- * focusable handles; d3 draws inside the layers. Static layers redraw only
- * when the curve sheet changes; the overlay follows the store through a
- * subscription, so dragging never re-renders this component.
+ * The plate chart of the voltage stage on the bench: a gain stage, or its
+ * cathode follower (shownChart.ts picks which). React owns the <svg>, its
+ * layer groups and the focusable handles; d3 draws inside the layers. Static
+ * layers redraw only when the curve sheet changes; the overlay follows the
+ * store through a subscription, so dragging never re-renders this component.
  */
 export function PlateChart() {
   const store = useWorkbenchStore();
-  const sheet = useWorkbench((s) => s.analysis.sheet);
-  const rivalSheet = useWorkbench((s) => (s.rivalAnalysis?.ok ? s.rivalAnalysis.sheet : null));
+  const sheet = useWorkbench(shownSheet);
+  const rivalSheet = useWorkbench(shownRivalSheet);
   const rival = useWorkbench((s) => s.rival);
-  const tubeId = useWorkbench((s) => s.design.tubeId);
+  const tubeId = useWorkbench(shownTubeId);
+  const follower = useWorkbench(followerShown);
+  const vgrid = useWorkbench((s) => (followerShown(s) ? s.followerBench!.vgrid : null));
   const frame = useRef<HTMLDivElement>(null);
   const box = useChartBox(frame);
   const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
@@ -40,13 +44,13 @@ export function PlateChart() {
   const rivalHandle = useRef<SVGGElement>(null);
   const spreadLayer = useRef<SVGGElement>(null);
   const regionLayer = useRef<SVGGElement>(null);
-  const region = useWorkbench((s) => (s.region?.result.ok ? s.region.result : null));
+  const region = useWorkbench((s) => (s.region?.result.ok && !followerShown(s) ? s.region.result : null));
 
   useEffect(() => {
     if (regionLayer.current) drawRegion(regionLayer.current, region, scales);
   }, [region, scales]);
   const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
-  const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging ? buildSheetOf(s).spread : null));
+  const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging && !followerShown(s) ? buildSheetOf(s).spread : null));
 
   useEffect(() => {
     if (!spreadLayer.current) return;
@@ -57,10 +61,13 @@ export function PlateChart() {
     const nodes = { lines: lines.current!, point: point.current!, bplusHandle: bplusHandle.current! };
     const draw = () => {
       const s = store.getState();
-      const { op } = s.analysis.solution;
-      drawOverlay(nodes, s.analysis.overlay, s.design.bplus, scales, s.analysis.signal.swingPath);
-      const r = s.rivalAnalysis?.ok ? s.rivalAnalysis.overlay : null;
-      drawRivalOverlay(nodes.lines, rivalHandle.current!, r, scales);
+      const shown = shownLines(s);
+      const { op } = shown;
+      const isFollower = followerShown(s);
+      drawOverlay(nodes, shown.overlay, s.design.bplus, scales, isFollower ? [] : shown.trace);
+      // A follower's point can only move along this line (its grid is held by the plate before it).
+      linePath(nodes.lines, 'locus', isFollower ? shown.trace : [], scales, { stroke: PALETTE.point, width: 1.2, dash: '1 4' });
+      drawRivalOverlay(nodes.lines, rivalHandle.current!, shown.rival, scales);
       nodes.point.setAttribute('aria-valuenow', String(Math.round(op.vpk)));
       // Exact values for tests and exports to read; the figures strip shows them rounded.
       nodes.point.dataset.vpk = String(op.vpk);
@@ -72,7 +79,7 @@ export function PlateChart() {
     };
     draw();
     const unsubscribe = store.subscribe((s, prev) => {
-      if (s.analysis !== prev.analysis || s.rivalAnalysis !== prev.rivalAnalysis) draw();
+      if (s.analysis !== prev.analysis || s.rivalAnalysis !== prev.rivalAnalysis || s.followerBench !== prev.followerBench || s.followerRival !== prev.followerRival) draw();
     });
     const detach = attachDrag(store, scales, nodes.point, nodes.bplusHandle, rivalHandle.current!);
     return () => {
@@ -83,12 +90,13 @@ export function PlateChart() {
 
   const onPointKey = (e: KeyboardEvent<SVGGElement>) => {
     const s = store.getState();
-    if (e.key === 'Enter' && s.dragging === 'point') {
+    const dragging = s.dragging === 'point' || s.dragging === 'follower-point';
+    if (e.key === 'Enter' && dragging) {
       e.preventDefault();
       s.endDrag();
       return;
     }
-    if (e.key === 'Escape' && s.dragging === 'point') {
+    if (e.key === 'Escape' && dragging) {
       e.preventDefault();
       s.cancelDrag();
       return;
@@ -103,7 +111,8 @@ export function PlateChart() {
 
   /** Leaving the handle after arrow presses is the keyboard's release. */
   const onPointBlur = () => {
-    if (store.getState().dragging === 'point') store.getState().endDrag();
+    const dragging = store.getState().dragging;
+    if (dragging === 'point' || dragging === 'follower-point') store.getState().endDrag();
   };
 
   const onBplusKey = (e: KeyboardEvent<SVGGElement>) => {
@@ -135,7 +144,7 @@ export function PlateChart() {
         width={box.width}
         height={box.height}
         role="group"
-        aria-label={`Plate curves of the ${tubeId} with the stage's load lines and operating point`}
+        aria-label={follower ? `Plate curves of the follower's ${tubeId} with its cathode load line, bias line and operating point` : `Plate curves of the ${tubeId} with the stage's load lines and operating point`}
       >
         <defs>
           <pattern id={REGION_HATCH_ID} patternUnits="userSpaceOnUse" width={7} height={7} patternTransform="rotate(45)">
@@ -161,7 +170,8 @@ export function PlateChart() {
           ref={bplusHandle}
           className="handle handle-bplus"
           role="slider"
-          tabIndex={0}
+          tabIndex={follower ? -1 : 0}
+          visibility={follower ? 'hidden' : 'visible'}
           aria-label="B+, the foot of the DC load line: drag or use the arrow keys"
           aria-valuemin={DESIGN_LIMITS.bplus.min}
           aria-valuemax={Math.min(sheet.extent.vmax, DESIGN_LIMITS.bplus.max)}
@@ -185,7 +195,7 @@ export function PlateChart() {
           className="handle handle-point"
           role="slider"
           tabIndex={0}
-          aria-label="Operating point: drag it, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)"
+          aria-label={follower ? 'The follower\'s operating point: drag it along its dotted line to choose its Rk, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)' : 'Operating point: drag it, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)'}
           aria-valuemin={0}
           aria-valuemax={sheet.extent.vmax}
           onKeyDown={onPointKey}
@@ -196,10 +206,10 @@ export function PlateChart() {
       </svg>
       <HoverReadout />
       <div className="chart-controls">
-        <ChartWindowSwitch />
+        {follower ? null : <ChartWindowSwitch />}
         <CurveDensity />
       </div>
-      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} />
+      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} items={follower && vgrid !== null ? followerLegend(vgrid) : VOLTAGE_STAGE_LEGEND} />
     </div>
   );
 }

@@ -72,7 +72,7 @@ export const BENCH_STAGE = v.object({
 
 /** The output stage (version 2 on). */
 export const OUTPUT_STAGE = v.object({
-  stageKind: oneOf(['voltage', 'output']),
+  stageKind: oneOf(['voltage', 'follower', 'output']),
   output: section({
     tubeId: v.custom<string>((x) => typeof x === 'string' && findOutputTube(x) !== undefined, 'must name an output tube in the library'),
     connection: oneOf(CONNECTIONS as unknown as readonly [string, ...string[]]),

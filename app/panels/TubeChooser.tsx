@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { mAPerV, ohms, plain } from '../format';
 import { useWorkbench } from '../store/StoreProvider';
+import { followerShown, shownTubeId } from '../store/shownStage';
 
 /**
  * Choose the tube: a filter box over the library, each entry with the figures
@@ -12,9 +13,13 @@ export const MAX_LISTED = 60;
 
 export function TubeChooser() {
   const tubes = useWorkbench((s) => s.tubes);
-  const current = useWorkbench((s) => s.design.tubeId);
-  const error = useWorkbench((s) => s.errors.tube);
-  const chooseTube = useWorkbench((s) => s.chooseTube);
+  // The tube of the stage shown: the gain stage's, or its follower's when the follower is on the bench.
+  const follower = useWorkbench(followerShown);
+  const current = useWorkbench(shownTubeId);
+  const error = useWorkbench((s) => (followerShown(s) ? s.errors.stage2 : s.errors.tube));
+  const chooseGainTube = useWorkbench((s) => s.chooseTube);
+  const setStage2 = useWorkbench((s) => s.setStage2);
+  const chooseTube = (id: string) => (follower ? setStage2({ tubeId: id }) : chooseGainTube(id));
   const [filter, setFilter] = useState('');
   const filterId = useId();
   const errorId = useId();
@@ -26,7 +31,7 @@ export function TubeChooser() {
 
   return (
     <section className="panel tube-chooser" aria-labelledby={`${filterId}-h`}>
-      <h2 id={`${filterId}-h`}>Tube</h2>
+      <h2 id={`${filterId}-h`}>{follower ? 'Tube (the follower)' : 'Tube'}</h2>
       <label htmlFor={filterId} className="field-label">Find by type or use</label>
       <input
         id={filterId}

@@ -204,7 +204,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   const cells = list.map((p, i) => {
     const x0 = x;
     x += WIDTH[p.kind === 'follower' ? 'follower' : 'gain'];
-    const onBench = design.stageKind === 'voltage' && (i === bench || (followerOnBench && i === bench + 1));
+    const onBench = (design.stageKind === 'voltage' && i === bench) || (design.stageKind === 'follower' && followerOnBench && i === bench + 1);
     const name = `Stage ${i + 1}, ${p.tubeId} ${p.kind === 'follower' ? 'cathode follower' : 'gain stage'}`;
     return (
       <Cell key={i} x0={x0} width={WIDTH[p.kind === 'follower' ? 'follower' : 'gain']} onBench={onBench} name={name} tubeId={p.tubeId} onOpen={() => showStage(i)}>

@@ -18,6 +18,7 @@ export function Stage2Panel() {
   const error = useWorkbench((s) => s.errors.stage2);
   const chain = useWorkbench((s) => s.analysis.signal.chain);
   const view = useWorkbench((s) => s.analysis.signal.stage2);
+  const onBench = useWorkbench((s) => s.design.stageKind === 'follower');
   const id = useId();
   const link = chain?.ok ? chain.links[1] : undefined;
   return (
@@ -70,7 +71,8 @@ export function Stage2Panel() {
           {link.findings.filter((f) => f.severity !== 'note').map((f) => <li key={f.kind} className={`finding ${f.severity}`}>{f.message}</li>)}
         </ul>
       ) : null}
-      {view ? <Stage2Curves /> : null}
+      {/* With the follower on the bench, the bench's own chart is its chart. */}
+      {view && !onBench ? <Stage2Curves /> : null}
     </section>
   );
 }

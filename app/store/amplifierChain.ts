@@ -20,7 +20,7 @@ export interface ChainCardName {
   readonly title: string;
   readonly tube: string;
   /** Which bench shows the stage's chart and values. */
-  readonly bench: BenchDesign['stageKind'];
+  readonly bench: 'voltage' | 'output';
   /** The stage's place among the voltage stages (voltageStages), or null for the splitter and the output stage. */
   readonly voltageIndex: number | null;
   /** What the stage is to the amplifier: a voltage stage, the phase splitter before a pair, or the output stage. */

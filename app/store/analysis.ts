@@ -52,7 +52,7 @@ export interface BenchDesign {
   readonly before: readonly StagePlan[];
   /** The voltage stages after the bench's stage and its follower, up to the output stage. */
   readonly after: readonly StagePlan[];
-  /** Which stage the bench shows: the resistance-coupled voltage stage or the transformer-coupled output stage. */
+  /** Which stage the bench shows: the resistance-coupled voltage stage, its follower, or the transformer-coupled output stage. */
   readonly stageKind: StageKind;
   readonly output: OutputPlan;
   /**
@@ -67,7 +67,8 @@ export interface BenchDesign {
   readonly targets: TargetPlan;
 }
 
-export type StageKind = 'voltage' | 'output';
+/** Which stage the bench shows: a gain stage, its cathode follower (riding with it as `stage2`), or the output stage. */
+export type StageKind = 'voltage' | 'follower' | 'output';
 
 /** The optional second stage: none, a direct-coupled cathode follower, or a capacitor-coupled gain stage. */
 export interface Stage2Design {

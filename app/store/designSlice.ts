@@ -3,6 +3,7 @@ import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, ty
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeAmplifier, type AmplifierView } from './amplifierChain';
 import { analyzeRival, sharedWindow } from './compareSlice';
+import { analyzeFollowerBench, type FollowerBench } from './followerBench';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
 import { customTubes } from '../keep/customTubes';
 import { autoTitle } from './autoTitle';
@@ -34,6 +35,10 @@ export interface DesignSlice {
   titleTyped: boolean;
   setTitle: (title: string) => void;
   analysis: Analysis;
+  /** The bench's cathode follower on its own curves, while it is the stage shown; null otherwise. */
+  followerBench: FollowerBench | null;
+  /** The compared tube in the follower's socket (same Rk, same grid), while the follower is shown and a tube is compared. */
+  followerRival: Result<FollowerBench> | null;
   /** The whole amplifier (the chain strip's figures); null when a stage's tube is unknown. */
   amplifier: AmplifierView | null;
   /** Joins the voltage stages to the output stage as one amplifier, or parts them. */
@@ -63,6 +68,8 @@ export interface DesignSlice {
 export interface CommitOptions {
   /** Pins the voltage stage's chart window (while B+ is dragged). */
   readonly extent?: PlateExtent;
+  /** Pins the follower's chart window (while its point is dragged). */
+  readonly followerExtent?: PlateExtent;
   /** Pins the output stage's chart window (while its point is dragged). */
   readonly outputExtent?: PlateExtent;
   readonly typedField?: FieldName;
@@ -155,6 +162,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
   },
   analysis: initialAnalysis(),
+  followerBench: null,
+  followerRival: null,
   amplifier: analyzeAmplifier(DEMO_DESIGN),
   setDrivesOutput: (on) => {
     get().commit({ ...get().design, drivesOutput: on });
@@ -168,14 +177,16 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (!joined.ok) return joined;
     const shape = chainProblem(joined.design);
     if (shape) return shape;
-    const next = joined.design;
+    // The follower can be the stage shown only while the bench's stage has one.
+    const next = joined.design.stageKind === 'follower' && joined.design.stage2.kind !== 'follower' ? { ...joined.design, stageKind: 'voltage' as const } : joined.design;
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};
     // Each stage is analysed only when its part of the design changed, or to
     // follow a light pass with the full one; the stage not on the bench gets
     // the light analysis only (its costly figures wait until it is shown), so
     // dragging or typing in one stage never pays for the other.
-    const showsVoltage = next.stageKind === 'voltage';
+    // The follower rides on the gain stage: showing it shows the voltage part.
+    const showsVoltage = next.stageKind !== 'output';
     if (!sameVoltagePart(next, s.design) || opts.force || (!light && showsVoltage && s.analysis.signal.stale)) {
       const voltageLight = light || !showsVoltage;
       const extent = opts.extent ?? (s.chartWindow === 'load-line' ? loadLineExtent(next.bplus, next.ra, next.rk) : sharedWindow(next, s.rival));
@@ -183,6 +194,13 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
       if (!a.ok) return a;
       patch.analysis = a;
       patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, voltageLight, s.curveCount);
+    }
+    // The follower on the bench follows every pass of the stage it rides on (a light one while dragged: it is cheap).
+    if (next.stageKind === 'follower' || s.followerBench) {
+      const f = analyzeFollowerBench(next, patch.analysis ?? s.analysis, { bench: s.followerBench, rival: s.followerRival }, s.rival, s.curveCount, opts.followerExtent);
+      if (!f.ok) return f;
+      patch.followerBench = f.bench;
+      patch.followerRival = f.rival;
     }
     // A driven output stage is part of the amplifier on screen (strip, ratings, build sheet) even with the voltage stage shown.
     const outputShown = !showsVoltage || next.drivesOutput;

@@ -1,5 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { designAtPlanePoint, nearestPreferred, nearestReachable, preferredAround, solveStage } from '../../src/index';
+import type { Failure } from '../../src/index';
+import { designAtPlanePoint, followerRkFor, nearestPreferred, nearestReachable, preferredAround, solveStage } from '../../src/index';
 import { stageDesignOf } from './analysis';
 import type { BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -14,7 +15,7 @@ import { failingAt, nearestInside, regionRequestOf } from './regionSlice';
  * is shown. Dragging the load line's foot on the voltage axis changes B+.
  * The chart window is pinned for the whole drag so the picture holds still.
  */
-export type DragTarget = 'point' | 'bplus' | 'output-point' | 'output-load';
+export type DragTarget = 'point' | 'follower-point' | 'bplus' | 'output-point' | 'output-load';
 
 export interface DragSlice {
   dragging: DragTarget | null;
@@ -60,12 +61,31 @@ function snappedInside(s: WorkbenchState): { ra: number; rk: number } | null {
   return null;
 }
 
+/**
+ * The follower's point under the pointer: the Rk that makes it draw the
+ * pointer's current with its grid where it is (it can only move along that
+ * one line); the window held still.
+ */
+function dragFollowerTo(s: WorkbenchState, ia: number, set: (patch: Partial<WorkbenchState>) => void): void {
+  const f = s.followerBench;
+  if (!f) return;
+  const limits = DESIGN_LIMITS.stage2.rk;
+  const r = followerRkFor({ tube: f.tube, bplus: f.bplus, vgrid: f.vgrid }, Math.max(ia, 1e-7), [limits.min, limits.max]);
+  if (!r.ok) {
+    set({ dragNote: r.message });
+    return;
+  }
+  const failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, rk: r.rk } }, { followerExtent: f.sheet.extent, light: true });
+  set({ dragNote: failure ? failure.message : r.reason });
+}
+
 export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = (set, get) => ({
   dragging: null,
   dragStart: null,
   dragNote: null,
 
-  beginDrag: (target) => set({ dragging: target, dragStart: get().design, dragNote: null }),
+  // The chart's point handle is the follower's while the follower is the stage shown.
+  beginDrag: (target) => set({ dragging: target === 'point' && get().design.stageKind === 'follower' ? 'follower-point' : target, dragStart: get().design, dragNote: null }),
 
   cancelDrag: () => {
     const start = get().dragStart;
@@ -75,6 +95,10 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
 
   dragPointTo: (vpk, ia) => {
     const s = get();
+    if (s.dragging === 'follower-point') {
+      dragFollowerTo(s, ia, set);
+      return;
+    }
     const { tube, sheet } = s.analysis;
     const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
     if (!reach.ok) {
@@ -117,6 +141,19 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
       const patch = o.bias === 'cathode' && s.design.snap ? { rk: nearestPreferred(o.rk, s.design.series) } : o.bias === 'fixed' ? { vg: Math.round(o.vg * 10) / 10 } : {};
       // Unpinned (force): the window follows the new B+.
       if (s.commit({ ...s.design, output: { ...o, ...patch, bplus: Math.round(o.bplus) } }, { force: true }) !== null) s.commit(s.design, { force: true });
+    } else if (was === 'follower-point') {
+      // Release: Rk to the nearest preferred value that runs (next to a grid at its cathode's voltage, the nearest
+      // may not: then its neighbour), else the exact value kept; and the full analysis.
+      const s2 = s.design.stage2;
+      let failure: Failure | null = null;
+      for (const rk of s.design.snap ? preferredAround(s2.rk, s.design.series) : [s2.rk]) {
+        failure = s.commit({ ...s.design, stage2: { ...s2, rk } });
+        if (!failure) break;
+      }
+      if (failure) {
+        s.commit(get().design);
+        set({ dragNote: `Snapping Rk to ${s.design.series} values would fail (${failure.message}); the exact value is kept.` });
+      }
     } else if (was === 'output-load') {
       s.commit(s.design, { force: true });
     } else if (was === 'point') {
@@ -132,6 +169,14 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
 
   nudgePoint: (dx, dy) => {
     const s = get();
+    const follower = s.design.stageKind === 'follower' ? s.followerBench : null;
+    if (follower) {
+      // The follower moves along one line: right or up draws more current, left or down less.
+      if (s.dragging !== 'follower-point') s.beginDrag('point');
+      const { iaMax } = follower.sheet.extent;
+      get().dragPointTo(0, follower.plane.solution.op.ia + (dy !== 0 ? dy : dx) * iaMax);
+      return;
+    }
     if (s.dragging !== 'point') s.beginDrag('point');
     const { vmax, iaMax } = s.analysis.sheet.extent;
     const { vpk, ia } = get().analysis.solution.op;

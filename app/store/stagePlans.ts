@@ -8,9 +8,9 @@ import type { BenchDesign } from './analysis';
  * the bench moves the cut, never copies a stage, so there is one place for
  * each value and undo, autosave, files and links carry the whole chain.
  *
- * Only gain stages go on the bench (their plate chart is the bench's); a
- * cathode follower rides with the gain stage whose plate it is direct-coupled
- * to, as that stage's `stage2`.
+ * A cathode follower rides with the gain stage whose plate it is
+ * direct-coupled to, as that stage's `stage2`; putting the follower on the
+ * bench puts that gain stage there and shows the follower (`stageKind`).
  */
 export type StagePlan = GainPlan | FollowerPlan;
 
@@ -120,10 +120,10 @@ function blockAt(list: readonly StagePlan[], i: number): { start: number; length
   return { start, length: list[start + 1]?.kind === 'follower' ? 2 : 1 };
 }
 
-/** Puts voltage stage i on the bench (a follower's gain stage, for a follower). */
+/** Puts voltage stage i on the bench: a gain stage, or a follower (on its own curves, its gain stage riding under it). */
 export function selectStage(d: BenchDesign, i: number): BenchDesign {
   const list = voltageStages(d);
-  return { ...withStagesOnBench(d, list, gainIndexOf(list, i)), stageKind: 'voltage' };
+  return { ...withStagesOnBench(d, list, gainIndexOf(list, i)), stageKind: list[i]?.kind === 'follower' ? 'follower' : 'voltage' };
 }
 
 /** The same chain with the bench's follower held as its `stage2` (a file may list it first in `after`). */

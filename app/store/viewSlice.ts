@@ -1,4 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
+import { shownTube } from './shownStage';
 import { gridVoltageAt } from '../../src/index';
 import type { WorkbenchState } from './workbenchStore';
 import { DEFAULT_BUILD, type BuildInputs } from './buildSheet';
@@ -37,6 +38,6 @@ export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = 
     get().commit(get().design, { force: true });
   },
   hover: null,
-  setHover: (vpk, ia) => set({ hover: { vpk, ia, vgk: gridVoltageAt(get().analysis.tube, vpk, ia) } }),
+  setHover: (vpk, ia) => set({ hover: { vpk, ia, vgk: gridVoltageAt(shownTube(get()), vpk, ia) } }),
   clearHover: () => set({ hover: null }),
 });

@@ -1,9 +1,10 @@
 import { fail, type Result } from '../result';
 import { plateCurrent } from '../tube/triode';
+import { modelOf } from '../tube/types';
 import { bracketedRoot } from '../numeric/bracketedRoot';
 import { checkNumber, checkTube, LIMITS } from './checkInput';
 import { parallel } from './parallel';
-import { acLoadLine, biasLine, dcLoadLine, type PlanePoint } from './planeSeries';
+import { acLoadLine, dcLoadLine, type PlanePoint } from './planeSeries';
 import type { PlateExtent } from './plateExtent';
 import { solveFollower, type FollowerDesign, type FollowerSolution } from './solveFollower';
 import { BIAS_SAMPLES, type StageOverlay } from './stageOverlay';
@@ -37,7 +38,7 @@ export function followerPlane(design: FollowerDesign, extent: PlateExtent): Resu
   const solved = solveFollower(design);
   if (!solved.ok) return solved;
   if (typeof extent !== 'object' || extent === null || !(extent.vmax > 0) || !(extent.iaMax > 0) || !Number.isFinite(extent.vmax) || !Number.isFinite(extent.iaMax)) {
-    return fail('invalid-input', 'Give the chart window as { vmax, iaMax }, both above 0', 'extent');
+    return fail('invalid-input', 'Give the chart extent as { vmax, iaMax }, both above 0', 'extent');
   }
   const { op } = solved;
   const rk = design.rk;
@@ -47,13 +48,39 @@ export function followerPlane(design: FollowerDesign, extent: PlateExtent): Resu
     dcLoad: dcLoadLine(design.bplus, rk),
     // Through a capacitor the load shares the cathode's swing: the AC line is steeper than the DC one.
     acLoad: Number.isFinite(rl) ? acLoadLine(op.vpk, op.ia, rAc, extent.vmax) : [],
-    bias: biasLine(design.tube, rk, design.vgrid, extent.iaMax, extent.vmax, BIAS_SAMPLES),
+    bias: followerBiasLine(design, extent),
     point: { v: op.vpk, i: op.ia },
   };
   return { ok: true, solution: solved, overlay, locus: followerLocus(design, extent) };
 }
 
-/** The locus inside the window: from the cathode voltage where the current enters the window (or the grid meets the cathode) to where it stops. */
+/**
+ * The bias line Vgk = Vgrid − Ia·Rk on the plate plane. A follower's Rk is
+ * large, so the line spans a few volts of grid over a sliver of current:
+ * sampled in grid voltage (from 0 V down to where the current would leave
+ * the chart's plate voltage), not in current as a gain stage's is, or every
+ * sample would miss it.
+ */
+function followerBiasLine(design: FollowerDesign, extent: PlateExtent): PlanePoint[] {
+  const { tube, vgrid, rk } = design;
+  const reach = extent.vmax / Math.max(modelMu(design), 1);
+  const out: PlanePoint[] = [];
+  for (let k = 0; k <= BIAS_SAMPLES; k++) {
+    const vgk = -(reach * k) / BIAS_SAMPLES;
+    const ia = (vgrid - vgk) / rk;
+    if (!(ia > 0) || ia > extent.iaMax || plateCurrent(tube, extent.vmax, vgk) < ia) continue;
+    const r = bracketedRoot((v) => plateCurrent(tube, v, vgk) - ia, 0, extent.vmax, extent.vmax * 1e-9);
+    if (r.converged) out.push({ v: r.x, i: ia });
+  }
+  return out;
+}
+
+/** The tube's amplification factor, for how far down the grid the bias line need go. */
+function modelMu(design: FollowerDesign): number {
+  return modelOf(design.tube).params.mu;
+}
+
+/** The locus inside the chart's extent: from the cathode voltage where the current enters the chart (or the grid meets the cathode) to where it stops. */
 function followerLocus(design: FollowerDesign, extent: PlateExtent): PlanePoint[] {
   const { bplus, vgrid } = design;
   const { lo, hi } = cathodeSpan(bplus, vgrid);

@@ -63,8 +63,12 @@ describe('the amplifier strip', () => {
     expect(cardsOf()[1]!.getAttribute('aria-pressed')).toBe('true');
     act(() => fireEvent.click(screen.getByRole('button', { name: 'Add a cathode follower direct-coupled to Stage 2\'s plate' })));
     expect(cardsOf().map((c) => c.querySelector('.card-kind')!.textContent)).toEqual(['common cathode', 'common cathode', 'cathode follower', 'single-ended output']);
-    // The follower rides with its gain stage: both are on the bench.
-    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'true', 'true', 'false']);
+    // The follower rides with its gain stage, which stays the stage shown; the follower's own card puts the follower on the bench.
+    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'true', 'false', 'false']);
+    act(() => fireEvent.click(cardsOf()[2]!));
+    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
+    expect(screen.getByRole('group', { name: /^Plate curves of the follower's 12AU7/ })).toBeTruthy();
+    act(() => fireEvent.click(cardsOf()[1]!));
     expect((screen.getByRole('button', { name: 'Move Stage 2 toward the output' }) as HTMLButtonElement).disabled).toBe(true);
     act(() => fireEvent.click(screen.getByRole('button', { name: 'Move Stage 2 toward the input' })));
     expect(cardsOf().map((c) => c.querySelector('.card-kind')!.textContent)).toEqual(['common cathode', 'cathode follower', 'common cathode', 'single-ended output']);
@@ -74,8 +78,8 @@ describe('the amplifier strip', () => {
     const drawing = screen.getByRole('group', { name: 'Schematic of the whole amplifier, 4 stages' });
     expect(within(drawing).getAllByRole('button').map((b) => b.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
     act(() => fireEvent.keyDown(within(drawing).getByRole('button', { name: 'Stage 1, 12AU7 gain stage: put it on the bench' }), { key: 'Enter' }));
-    // Stage 1 and the follower riding with it.
-    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['true', 'true', 'false', 'false']);
+    // Stage 1, the follower riding with it (the follower's own card shows the follower).
+    expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['true', 'false', 'false', 'false']);
     act(() => fireEvent.click(cardsOf()[2]!));
     act(() => fireEvent.click(screen.getByRole('button', { name: 'Remove Stage 2' })));
     expect(cardsOf()).toHaveLength(3);

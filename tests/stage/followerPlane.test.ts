@@ -19,6 +19,11 @@ describe('a cathode follower on its own plate curves', () => {
     expectClose(op.vpk, 300 - op.ia * 22e3, { rel: 1e-9 }, 'the point on the DC line');
     // Every bias-line point carries the current its grid voltage (Vgrid − Ia·Rk) gives at its plate voltage.
     for (const b of p.overlay.bias) expectClose(plateCurrent(au7, b.v, 130 - b.i * 22e3), b.i, { rel: 1e-6 }, 'bias line');
+    // And it runs through the point: a follower's bias line spans a sliver of current, which sampling must not miss.
+    const currents = p.overlay.bias.map((b) => b.i);
+    expect(p.overlay.bias.length).toBeGreaterThan(10);
+    expect(Math.min(...currents)).toBeLessThanOrEqual(op.ia);
+    expect(Math.max(...currents)).toBeGreaterThanOrEqual(op.ia);
     // Through the coupling capacitor the 100k load shares the cathode: the AC line's slope is −1/(Rk ∥ RL).
     const [a, b] = p.overlay.acLoad;
     expectClose((a!.i - b!.i) / (b!.v - a!.v), 1 / 22e3 + 1 / 100e3, { rel: 1e-9 }, 'AC line slope');

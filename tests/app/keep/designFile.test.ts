@@ -58,7 +58,7 @@ describe('design files', () => {
     ['a positive grid bias', variant((f) => { (f.design.output as Record<string, unknown>).vg = 5; }), /^design\.output\.vg must be a number from -500 to 0 V \(found 5\)\. Nothing was opened\.$/],
     ['a driven output stage whose grid resistor is not RL', variant((f) => { f.design.drivesOutput = true; f.design.rl = 100e3; }), /^design\.rl must equal design\.output\.rg when the voltage stages drive the output stage \(found 100000 and 220000\)\. Nothing was opened\.$/],
     ['a join that is not true or false', variant((f) => { f.design.drivesOutput = 'yes'; }), /^design\.drivesOutput must be true or false \(found "yes"\)\. Nothing was opened\.$/],
-    ['an unknown stage kind', variant((f) => { f.design.stageKind = 'push-pull'; }), /^design\.stageKind must be one of voltage, output \(found "push-pull"\)\. Nothing was opened\.$/],
+    ['an unknown stage kind', variant((f) => { f.design.stageKind = 'push-pull'; }), /^design\.stageKind must be one of voltage, follower, output \(found "push-pull"\)\. Nothing was opened\.$/],
     ['a missing value', variant((f) => { delete f.design.ra; }), /^design\.ra must be a number from 100 to 10000000 Ω \(found undefined\)\. Nothing was opened\.$/],
     ['a section that is not an object', variant((f) => { f.design.stage2 = 5; }), /^design\.stage2 must be an object \(found 5\)\. Nothing was opened\.$/],
     ['a nested value out of range', variant((f) => { (f.design.stage2 as Record<string, unknown>).rk = 0; }), /^design\.stage2\.rk must be a number from 1 to 10000000 Ω \(found 0\)\. Nothing was opened\.$/],

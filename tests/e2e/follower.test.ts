@@ -1,0 +1,73 @@
+import { mkdirSync } from 'node:fs';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { seriousViolations } from './axe';
+import { chromiumGate, openBrowser, openWorkbench } from './browser';
+import { useBrowser } from './useBrowser';
+
+const run = chromiumGate();
+
+/** The demo with a cathode follower after its driver, put on the bench from its card. */
+async function followerOnBench(page: Page): Promise<void> {
+  await page.getByRole('button', { name: "Add a cathode follower direct-coupled to Stage 2's plate" }).click();
+  const cards = page.getByRole('region', { name: 'The amplifier, stage by stage' }).locator('button.chain-card');
+  await expect.poll(() => cards.count()).toBe(4);
+  await cards.nth(2).click();
+  await expect.poll(() => cards.nth(2).getAttribute('aria-pressed')).toBe('true');
+}
+
+const figure = (page: Page, name: string) => page.locator(`[data-figure="${name}"] dd`);
+const mA = (text: string | null) => Number.parseFloat((text ?? '').replace('−', '-'));
+
+describe.runIf(run)('a cathode follower on the bench in Chromium', () => {
+  const browser = useBrowser();
+
+  it('is shown on its own curves, dragged and moved by keyboard to choose its Rk, compared with a second tube, and kept through a reload', async () => {
+    mkdirSync('test-results', { recursive: true });
+    const { page, errors } = await openWorkbench(browser.current, inject('baseUrl'));
+    await followerOnBench(page);
+    await expect.poll(() => page.getByRole('group', { name: /^Plate curves of the follower's 12AU7/ }).count()).toBe(1);
+    const rk = page.locator('input[name=rk2]');
+    const rk0 = await rk.inputValue();
+    const ia0 = mA(await figure(page, 'follower-ia').textContent());
+    // Dragged up: more current, a smaller Rk; the release snaps it to the series.
+    const point = page.getByRole('slider', { name: /follower's operating point/ });
+    await point.scrollIntoViewIfNeeded();
+    const box = (await point.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.down();
+    for (let k = 1; k <= 8; k++) await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2 - k * 5);
+    await page.mouse.up();
+    await expect.poll(async () => mA(await figure(page, 'follower-ia').textContent())).toBeGreaterThan(ia0);
+    const rkDragged = await rk.inputValue();
+    expect(rkDragged).not.toBe(rk0);
+    await page.locator('.sheet-panel').screenshot({ path: 'test-results/follower-chart.png' });
+    // By keyboard: down three steps is less current; Enter settles it.
+    const ia1 = mA(await figure(page, 'follower-ia').textContent());
+    await point.focus();
+    for (let k = 0; k < 3; k++) await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('Enter');
+    await expect.poll(async () => mA(await figure(page, 'follower-ia').textContent())).toBeLessThan(ia1);
+    const rkKeyed = await rk.inputValue();
+    // A second tube in the same socket: its row beside the first.
+    await page.getByRole('checkbox', { name: 'Compare with' }).check();
+    await page.getByRole('combobox', { name: 'Second tube' }).selectOption('12AT7');
+    const table = page.locator('.compare-table');
+    await expect.poll(() => table.locator('th').allTextContents()).toContain('12AT7');
+    expect(await table.locator('tr[data-row="ia"] td').count()).toBe(2);
+    // Kept: a reload opens on the follower with its Rk.
+    await page.waitForTimeout(1200);
+    await page.reload();
+    await expect.poll(() => page.locator('input[name=rk2]').inputValue()).toBe(rkKeyed);
+    await expect.poll(() => figure(page, 'follower-vk').count()).toBe(1);
+    expect(errors).toEqual([]);
+  });
+
+  it('has no serious accessibility violations with the follower on the bench (axe-core)', async () => {
+    const tooling = await openBrowser(undefined, { bypassCSP: true });
+    const { page } = await openWorkbench(tooling, inject('baseUrl'));
+    await followerOnBench(page);
+    expect(await seriousViolations(page)).toEqual([]);
+    await tooling.close();
+  });
+});
