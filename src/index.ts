@@ -137,5 +137,6 @@ export { TARGET_NAMES, TARGET_LABELS, activeTargets, targetsProblem, type Target
 export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
 export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';
 export { rankTubes, type TubeRank } from './targets/rankTubes';
+export { followerRegion, judgeFollower, judgeFollowerAt, rankFollowers, followerTargetsOf, FOLLOWER_SAMPLES, type FollowerRegion, type FollowerTargetStage } from './targets/followerTargets';
 export { judgeDesign, type DesignVerdict } from './targets/judgeDesign';
 export { stageSignal, followerProblem, RESPONSE_FREQUENCIES, type StageSignal, type SignalLevels } from './stage/stageSignal';

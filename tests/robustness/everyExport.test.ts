@@ -106,6 +106,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveStage', fc.tuple(near({ ...stage, tube: au7 })), Q.solveStage, 600);
   run('solveStage (tube)', fc.tuple(tubes.map((t) => ({ ...stage, tube: t }))), Q.solveStage);
   run('solveFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 })), Q.solveFollower);
+  run('followerRegion', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rl: 220e3 }), fc.oneof(fc.constant({ maxDissipationFraction: 0.5, minCleanOutputRms: 10 }), anything), fc.oneof(fc.constant(8), anything)), Q.followerRegion, 30);
+  run('judgeFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rl: 220e3 }), or(fc.double({ min: 100, max: 1e6 })), fc.oneof(fc.constant({ maxZout: 500, minGain: 0.9 }), anything)), Q.judgeFollower, 60);
   run('followerPlane', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 }), near({ vmax: 400, iaMax: 0.02 })), Q.followerPlane);
   run('followerRkFor', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150 }), or(fc.double({ min: 1e-7, max: 0.05 })), fc.oneof(fc.constant(undefined), fc.tuple(or(fc.double({ min: 1, max: 1e4 })), or(fc.double({ min: 1e4, max: 1e7 }))), anything)), Q.followerRkFor);
   run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
