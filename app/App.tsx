@@ -77,7 +77,7 @@ function VoltageBench() {
             <section className="sheet-panel" aria-label={follower ? 'The follower\'s plate curves' : 'Plate curves'}>
               <PlateChart />
             </section>
-            {follower ? null : <TargetsPanel />}
+            <TargetsPanel />
             <FindingsList />
             {follower ? <FollowerCompare /> : (
               <>

@@ -54,7 +54,7 @@ export function followerLegend(vgrid: number): readonly LegendItem[] {
   ];
 }
 
-export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = null }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: readonly TargetName[] | null }) {
+export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = null, alongLine = false }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: readonly TargetName[] | null; alongLine?: boolean }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">
       {rival ? (
@@ -79,6 +79,14 @@ export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region
         </svg>
         Operating point
       </li>
+      {alongLine ? (
+        <li>
+          <svg width="30" height="14" aria-hidden="true">
+            <line x1="5" x2="25" y1="7" y2="7" stroke={PALETTE.rival} strokeOpacity={0.35} strokeWidth={12} strokeLinecap="round" />
+          </svg>
+          Every target met along the follower&apos;s line (broad band; ringed: the best point)
+        </li>
+      ) : null}
       {region ? (
         <li>
           <svg width="30" height="14" aria-hidden="true">

@@ -15,6 +15,8 @@ import { plateScales } from './plateScales';
 import { useChartBox } from './useChartBox';
 import { DESIGN_LIMITS } from '../store/designLimits';
 import { drawRegion, REGION_HATCH_ID, targetsWithEdges } from '../targets/drawRegion';
+import { drawFollowerRegion } from '../targets/drawFollowerRegion';
+import { currentFollowerRegion } from '../store/regionSlice';
 
 /** Arrow keys move the point by 1 % of the chart window, 5 % with Shift. */
 const STEP = 0.01;
@@ -46,9 +48,12 @@ export function PlateChart() {
   const regionLayer = useRef<SVGGElement>(null);
   const region = useWorkbench((s) => (s.region?.result.ok && !followerShown(s) ? s.region.result : null));
 
+  const followerRegion = useWorkbench((s) => (followerShown(s) ? currentFollowerRegion(s) : null));
   useEffect(() => {
-    if (regionLayer.current) drawRegion(regionLayer.current, region, scales);
-  }, [region, scales]);
+    if (!regionLayer.current) return;
+    if (follower) drawFollowerRegion(regionLayer.current, followerRegion, scales);
+    else drawRegion(regionLayer.current, region, scales);
+  }, [region, followerRegion, follower, scales]);
   const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
   const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging && !followerShown(s) ? buildSheetOf(s).spread : null));
 
@@ -209,7 +214,7 @@ export function PlateChart() {
         {follower ? null : <ChartWindowSwitch />}
         <CurveDensity />
       </div>
-      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} items={follower && vgrid !== null ? followerLegend(vgrid) : VOLTAGE_STAGE_LEGEND} />
+      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} alongLine={followerRegion !== null} items={follower && vgrid !== null ? followerLegend(vgrid) : VOLTAGE_STAGE_LEGEND} />
     </div>
   );
 }

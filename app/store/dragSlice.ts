@@ -5,7 +5,7 @@ import { stageDesignOf } from './analysis';
 import type { BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
 import { DESIGN_LIMITS } from './designLimits';
-import { failingAt, nearestInside, regionRequestOf } from './regionSlice';
+import { currentFollowerRegion, failingAt, FOLLOWER_RK_RANGE, nearestInside, regionRequestOf } from './regionSlice';
 
 /**
  * Dragging on the plate chart. While the operating point moves, B+ stays
@@ -69,14 +69,25 @@ function snappedInside(s: WorkbenchState): { ra: number; rk: number } | null {
 function dragFollowerTo(s: WorkbenchState, ia: number, set: (patch: Partial<WorkbenchState>) => void): void {
   const f = s.followerBench;
   if (!f) return;
-  const limits = DESIGN_LIMITS.stage2.rk;
-  const r = followerRkFor({ tube: f.tube, bplus: f.bplus, vgrid: f.vgrid }, Math.max(ia, 1e-7), [limits.min, limits.max]);
+  // Held to the stretches of its line where the targets hold, when asked: the nearest inside sample to the pointer's.
+  const region = s.keepInside ? currentFollowerRegion(s) : null;
+  let want = ia;
+  let held = false;
+  if (region && region.inside.some(Boolean)) {
+    const nearest = (ok: (k: number) => boolean) => region.ia.reduce((best, x, k) => (ok(k) && (best < 0 || Math.abs(x - ia) < Math.abs(region.ia[best]! - ia)) ? k : best), -1);
+    const here = nearest(() => true);
+    if (!region.inside[here]) {
+      want = region.ia[nearest((k) => region.inside[k]!)]!;
+      held = true;
+    }
+  }
+  const r = followerRkFor({ tube: f.tube, bplus: f.bplus, vgrid: f.vgrid }, Math.max(want, 1e-7), FOLLOWER_RK_RANGE);
   if (!r.ok) {
     set({ dragNote: r.message });
     return;
   }
   const failure = s.commit({ ...s.design, stage2: { ...s.design.stage2, rk: r.rk } }, { followerExtent: f.sheet.extent, light: true });
-  set({ dragNote: failure ? failure.message : r.reason });
+  set({ dragNote: failure ? failure.message : held ? 'Held where the targets hold.' : r.reason });
 }
 
 export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = (set, get) => ({

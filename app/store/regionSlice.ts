@@ -1,5 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { feasibleRegion, judgeDesign, rankTubes, type DesignVerdict, type FeasibleRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { feasibleRegion, followerRegion, judgeDesign, judgeFollower, rankFollowers, rankTubes, type DesignVerdict, type FeasibleRegion, type FollowerRegion, type FollowerTargetStage, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { DESIGN_LIMITS } from './designLimits';
+import { loadAfterBench } from './stagePlans';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
 import { anyTarget, NO_TARGETS, targetsOf } from './targetPlan';
@@ -9,13 +11,26 @@ import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 export interface RegionSolver {
   region(stage: RegionStage, targets: Targets, grid: RegionGrid): Promise<Result<FeasibleRegion>>;
   rank(targets: Targets, stage: Omit<RegionStage, 'tube'>, tubes: readonly TubeRecord[]): Promise<Result<{ ranks: TubeRank[] }>>;
+  /** A follower's targets along its line, and every tube as that follower. */
+  followerRegion(stage: FollowerTargetStage, targets: Targets, samples: number, rkRange: readonly [number, number]): Promise<Result<FollowerRegion>>;
+  rankFollowers(targets: Targets, stage: Omit<FollowerTargetStage, 'tube'>, tubes: readonly TubeRecord[]): Promise<Result<{ ranks: TubeRank[] }>>;
 }
 
 /** The model's own calls, run on the page's thread: for tests and platforms with no workers. */
 export const inPlaceRegionSolver: RegionSolver = {
   region: async (stage, targets, grid) => feasibleRegion(stage, targets, grid),
   rank: async (targets, stage, tubes) => rankTubes(targets, stage, tubes),
+  followerRegion: async (stage, targets, samples, rkRange) => followerRegion(stage, targets, samples, rkRange),
+  rankFollowers: async (targets, stage, tubes) => rankFollowers(targets, stage, tubes),
 };
+
+/** Samples along a follower's line for its targets: a point every few pixels at chart sizes. */
+export const FOLLOWER_REGION_SAMPLES = 64;
+
+export interface FollowerRegionView {
+  readonly key: string;
+  readonly result: Result<FollowerRegion>;
+}
 
 /** The region on the chart: first coarse, then complete. */
 export const COARSE_GRID = { nx: 30, ny: 20 } as const;
@@ -36,6 +51,8 @@ export interface RankingView {
 
 export interface RegionSlice {
   region: RegionView | null;
+  /** With the follower on the bench: where along its line its targets hold. */
+  followerRegion: FollowerRegionView | null;
   /** The design on the bench held against its targets (null with no targets, or on the output bench); kept from before while dragging. */
   verdict: Result<DesignVerdict> | null;
   ranking: RankingView | null;
@@ -64,6 +81,25 @@ export function regionRequestOf(s: WorkbenchState): { key: string; stage: Region
   const extent = s.analysis.sheet.extent;
   const key = JSON.stringify([tube.id, stage.bplus, stage.rl, stage.rsource, stage.bypassed, stage.rg ?? null, targets, extent.vmax, extent.iaMax]);
   return { key, stage, targets, extent: { vmax: extent.vmax, iaMax: extent.iaMax } };
+}
+
+/** The follower's targets' inputs, while the follower is the stage shown and a target is set; else null. */
+export function followerRequestOf(s: WorkbenchState): { key: string; stage: FollowerTargetStage; targets: Targets } | null {
+  const d = s.design;
+  const f = s.followerBench;
+  if (d.stageKind !== 'follower' || !f || !anyTarget(d.targets)) return null;
+  const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl };
+  const targets = targetsOf(d.targets);
+  return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, targets]), stage, targets };
+}
+
+/** The Rk range a follower's drag and its region keep to: the design's own limits. */
+export const FOLLOWER_RK_RANGE: readonly [number, number] = [DESIGN_LIMITS.stage2.rk.min, DESIGN_LIMITS.stage2.rk.max];
+
+/** The region along the follower's line, when it was worked out for the follower now shown. */
+export function currentFollowerRegion(s: WorkbenchState): FollowerRegion | null {
+  const r = s.followerRegion;
+  return r?.result.ok && r.key === followerRequestOf(s)?.key ? r.result : null;
 }
 
 /** The cell of the region a plate-plane point falls in, or null outside the grid. */
@@ -108,6 +144,7 @@ export const createRegionSlice =
   (solver: RegionSolver): StateCreator<WorkbenchState, [], [], RegionSlice> =>
   (set, get) => ({
     region: null,
+    followerRegion: null,
     verdict: null,
     ranking: null,
     keepInside: false,
@@ -121,6 +158,17 @@ export const createRegionSlice =
       get().commit({ ...d, targets: NO_TARGETS });
     },
     rankTubesNow: () => {
+      const follower = followerRequestOf(get());
+      if (follower) {
+        const { tube: _t, ...stage } = follower.stage;
+        const key = JSON.stringify(['follower', stage, follower.targets]);
+        set({ ranking: { key, result: null } });
+        const tubes = get().tubes.flatMap((t) => lookupTube(t.id) ?? []);
+        void solver.rankFollowers(follower.targets, stage, tubes).then((result) => {
+          if (get().ranking?.key === key) set({ ranking: { key, result } });
+        });
+        return;
+      }
       const req = regionRequestOf(get());
       if (!req) return;
       const { tube: _t, ...stage } = req.stage;
@@ -133,11 +181,23 @@ export const createRegionSlice =
     },
     takeRanked: (rank) => {
       const s = get();
+      if (s.design.stageKind === 'follower') {
+        s.setStage2({ tubeId: rank.tubeId });
+        const d = get().design;
+        get().commit({ ...d, stage2: { ...d.stage2, rk: rank.rk } });
+        return;
+      }
       s.chooseTube(rank.tubeId);
       const d = get().design;
       get().commit({ ...d, ra: rank.ra, rk: rank.rk });
     },
     moveToBest: () => {
+      const f = currentFollowerRegion(get());
+      if (get().design.stageKind === 'follower') {
+        const d = get().design;
+        if (f?.best) get().commit({ ...d, stage2: { ...d.stage2, rk: f.best.rk } });
+        return;
+      }
       const r = get().region;
       if (!r?.result.ok || !r.result.best) return;
       const d = get().design;
@@ -163,6 +223,15 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
     try {
       do {
         waiting = false;
+        const follower = followerRequestOf(store.getState());
+        if (follower) {
+          if (store.getState().region) store.setState({ region: null });
+          if (store.getState().followerRegion?.key === follower.key) break;
+          const result = await solver.followerRegion(follower.stage, follower.targets, FOLLOWER_REGION_SAMPLES, FOLLOWER_RK_RANGE);
+          if (followerRequestOf(store.getState())?.key === follower.key) store.setState({ followerRegion: { key: follower.key, result } });
+          continue;
+        }
+        if (store.getState().followerRegion) store.setState({ followerRegion: null });
         const req = regionRequestOf(store.getState());
         if (!req) {
           if (store.getState().region) store.setState({ region: null });
@@ -182,6 +251,11 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
   };
   /** The design on the bench against its targets: on every change that is not a drag frame (the drag's release judges it). */
   const judge = (s: WorkbenchState) => {
+    const follower = followerRequestOf(s);
+    if (follower) {
+      store.setState({ verdict: judgeFollower(follower.stage, s.design.stage2.rk, follower.targets) });
+      return;
+    }
     const req = regionRequestOf(s);
     const tube = req?.stage.tube;
     const verdict = req && tube ? judgeDesign(stageDesignOf(s.design, tube as TubeRecord), req.targets) : null;
@@ -190,10 +264,15 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
   store.subscribe((s, prev) => {
     if ((s.design !== prev.design && !s.dragging) || (prev.dragging && !s.dragging)) judge(s);
     // A drag of the point moves only Ra and Rk, which the region is a map of: nothing to ask for on its frames.
-    if (s.dragging === 'point') return;
-    if (s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent || (prev.dragging && !s.dragging)) {
+    if (s.dragging === 'point' || s.dragging === 'follower-point') return;
+    if (s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent || s.followerBench !== prev.followerBench || (prev.dragging && !s.dragging)) {
+      const follower = followerRequestOf(s);
+      if (follower) {
+        if (follower.key !== s.followerRegion?.key) void run();
+        return;
+      }
       const req = regionRequestOf(s);
-      if (req?.key !== s.region?.key || !req) void run();
+      if (req?.key !== s.region?.key || !req || s.followerRegion) void run();
     }
   });
   judge(store.getState());

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { TARGET_LABELS, type FeasibleRegion, type TargetName } from '../../src/index';
+import { TARGET_LABELS, type FeasibleRegion, type FollowerRegion, type TargetName } from '../../src/index';
 import { ohms, plain } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
@@ -17,6 +17,8 @@ export function TargetsPanel() {
   const heater = useWorkbench((s) => s.design.targets.heaterCathodeWithinRating);
   const keepInside = useWorkbench((s) => s.keepInside);
   const region = useWorkbench((s) => s.region);
+  const follower = useWorkbench((s) => s.design.stageKind === 'follower');
+  const along = useWorkbench((s) => s.followerRegion);
   const verdict = useWorkbench((s) => s.verdict);
   const setHeaterTarget = useWorkbench((s) => s.setHeaterTarget);
   const setKeepInside = useWorkbench((s) => s.setKeepInside);
@@ -24,10 +26,16 @@ export function TargetsPanel() {
   const clearTargets = useWorkbench((s) => s.clearTargets);
   const id = useId();
   const r = region?.result.ok ? region.result : null;
+  const f = follower && along?.result.ok ? along.result : null;
+  const anySet = region !== null || (follower && along !== null);
   return (
     <section className="panel targets-panel" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Targets for this stage</h2>
-      <p className="panel-note">Leave a box empty to leave that target out. The chart hatches every operating point (at this B+ and load) where all of them hold.</p>
+      <p className="panel-note">
+        {follower
+          ? 'Leave a box empty to leave that target out. With its grid held by the plate before it, the follower\'s Rk moves it along one line: the chart marks the stretches of that line where all of them hold. Ra\'s range does not apply to a follower.'
+          : 'Leave a box empty to leave that target out. The chart hatches every operating point (at this B+ and load) where all of them hold.'}
+      </p>
       <div className="value-grid targets-grid">
         <ValueField field="tGain" />
         <ValueField field="tClean" />
@@ -54,19 +62,32 @@ export function TargetsPanel() {
         </ul>
       ) : verdict ? <p className="field-error">{verdict.message}</p> : null}
       <p className="region-status" role="status" data-testid="region-status">
-        {region === null ? 'No targets set.' : !region.result.ok ? region.result.message : summary(region.result, region.complete)}
+        {follower
+          ? along === null ? 'No targets set.' : !along.result.ok ? along.result.message : followerSummary(along.result)
+          : region === null ? 'No targets set.' : !region.result.ok ? region.result.message : summary(region.result, region.complete)}
       </p>
       <div className="button-row">
-        <button type="button" onClick={moveToBest} disabled={!r?.best}>Move to the best point</button>
+        <button type="button" onClick={moveToBest} disabled={!(r?.best || f?.best)}>Move to the best point</button>
         <label>
-          <input type="checkbox" checked={keepInside} onChange={(e) => setKeepInside(e.target.checked)} disabled={!r} /> Keep the point inside the region while dragging
+          <input type="checkbox" checked={keepInside} onChange={(e) => setKeepInside(e.target.checked)} disabled={!r && !f} /> Keep the point inside the region while dragging
         </label>
-        <button type="button" onClick={clearTargets} disabled={region === null}>Clear targets</button>
+        <button type="button" onClick={clearTargets} disabled={!anySet}>Clear targets</button>
       </div>
-      {r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.`}</p> : null}
-      {region !== null ? <TubeRanking /> : null}
+      {!follower && r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.`}</p> : null}
+      {f?.best ? <p className="region-best">{`Best point: Rk ${ohms(f.best.rk)}; weakest target ${f.best.weakest ? `${TARGET_LABELS[f.best.weakest]}, ${marginWords(f.best.score)}` : 'none'}.`}</p> : null}
+      {anySet ? <TubeRanking /> : null}
     </section>
   );
+}
+
+/** A follower's targets in a sentence: how much of its line meets them, or which target shuts it out. */
+function followerSummary(r: FollowerRegion): string {
+  const inside = r.inside.filter(Boolean).length;
+  const solved = r.failing.filter((f) => f[0] !== 'unreachable').length;
+  if (inside > 0) return `${inside} of ${solved} points along the follower's line meet every target.`;
+  const most = r.excludesMost;
+  const words = most ? ` ${capital(TARGET_LABELS[most.target])} fails at ${plain(most.share * 100)} % of them.` : '';
+  return `No point along the follower's line meets every target.${words}${r.best ? ` The best point's weakest target is ${r.best.weakest ? TARGET_LABELS[r.best.weakest] : '—'}, ${marginWords(r.best.score)}.` : ''}`;
 }
 
 /** The region in a sentence: its size, or why it is empty and how near the best point comes. */

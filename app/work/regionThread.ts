@@ -15,5 +15,7 @@ export function regionThread(): RegionSolver {
   return {
     region: (stage, targets, grid) => worker().feasibleRegion(stage, targets, grid),
     rank: (targets, stage, tubes) => worker().rankTubes(targets, stage, tubes),
+    followerRegion: (stage, targets, samples, rkRange) => worker().followerRegion(stage, targets, samples, rkRange),
+    rankFollowers: (targets, stage, tubes) => worker().rankFollowers(targets, stage, tubes),
   };
 }

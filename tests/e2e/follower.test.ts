@@ -63,10 +63,35 @@ describe.runIf(run)('a cathode follower on the bench in Chromium', () => {
     expect(errors).toEqual([]);
   });
 
+  it('with targets set, marks where along its line they hold, and takes the top-ranked tube as the follower', async () => {
+    // A browser of its own: the one above keeps the last test's autosave, whose follower is already added.
+    const fresh = await openBrowser();
+    const { page, errors } = await openWorkbench(fresh, inject('baseUrl'));
+    await followerOnBench(page);
+    await page.locator('input[name=tDiss]').fill('50');
+    await page.locator('input[name=tClean]').fill('20');
+    await page.locator('input[name=tClean]').press('Tab');
+    const status = page.getByTestId('region-status');
+    await expect.poll(() => status.textContent(), { timeout: 15_000 }).toMatch(/^\d+ of \d+ points along the follower's line meet every target\.$/);
+    expect(await page.locator('[data-region="inside"] path').count()).toBeGreaterThan(0);
+    await page.locator('.sheet-panel').screenshot({ path: 'test-results/follower-targets.png' });
+    await page.getByRole('button', { name: 'Rank every tube for these targets' }).click();
+    const take = page.getByRole('button', { name: /^Take the \S+ as the follower at Rk/ }).first();
+    await take.waitFor({ timeout: 20_000 });
+    const tube = /^Take the (\S+) as/.exec((await take.getAttribute('aria-label'))!)![1]!;
+    await take.click();
+    await expect.poll(() => page.getByRole('group', { name: new RegExp(`^Plate curves of the follower's ${tube}`) }).count()).toBe(1);
+    expect(errors).toEqual([]);
+    await fresh.close();
+  });
+
   it('has no serious accessibility violations with the follower on the bench (axe-core)', async () => {
     const tooling = await openBrowser(undefined, { bypassCSP: true });
     const { page } = await openWorkbench(tooling, inject('baseUrl'));
     await followerOnBench(page);
+    await page.locator('input[name=tDiss]').fill('50');
+    await page.getByRole('button', { name: 'Rank every tube for these targets' }).click();
+    await page.getByRole('button', { name: /^Take the / }).first().waitFor({ timeout: 20_000 });
     expect(await seriousViolations(page)).toEqual([]);
     await tooling.close();
   });

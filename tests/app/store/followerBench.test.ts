@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { benchIndex, voltageStages } from '../../../app/store/stagePlans';
 import { findTube, nearestPreferred, solveFollower } from '../../../src/index';
@@ -90,5 +90,47 @@ describe('a cathode follower on the bench', () => {
     store.getState().dropStage(at);
     expect(store.getState().design.stageKind).toBe('voltage');
     expect(store.getState().followerBench).toBeNull();
+  });
+});
+
+describe('targets for the follower on the bench', () => {
+  it('marks where along its line they hold, judges its point, moves to the best, keeps a drag inside, and ranks the tubes as the follower', async () => {
+    const store = followerOnBench();
+    store.getState().editField('tDiss', '50');
+    store.getState().editField('tClean', '20');
+    await vi.waitFor(() => expect(store.getState().followerRegion?.result.ok).toBe(true), { timeout: 10_000 });
+    const region = store.getState().followerRegion!.result;
+    if (!region.ok) throw new Error(region.message);
+    expect(region.inside.some(Boolean)).toBe(true);
+    // The gain stage's region is not drawn while the follower is shown.
+    expect(store.getState().region).toBeNull();
+    // Its point judged: each target with its margin.
+    await vi.waitFor(() => {
+      const v = store.getState().verdict;
+      expect(v?.ok && Object.keys(v.margins)).toEqual(['minCleanOutputRms', 'maxDissipationFraction']);
+    });
+    store.getState().moveToBest();
+    expect(store.getState().design.stage2.rk).toBe(region.best!.rk);
+    // Held inside: a drag toward the most current (where the clean output fails) stays on a stretch that holds.
+    store.getState().setKeepInside(true);
+    store.getState().beginDrag('point');
+    store.getState().dragPointTo(0, region.ia[0]!);
+    expect(store.getState().dragNote).toBe('Held where the targets hold.');
+    const k = region.rk.indexOf(store.getState().design.stage2.rk);
+    const ia = store.getState().followerBench!.plane.solution.op.ia;
+    const nearest = region.ia.reduce((b, x, j) => (Math.abs(x - ia) < Math.abs(region.ia[b]! - ia) ? j : b), 0);
+    expect(k === -1 ? region.inside[nearest] : region.inside[k]).toBe(true);
+    store.getState().endDrag();
+    // Every tube ranked as the follower in this socket; taking one puts it in the socket at its Rk.
+    store.getState().rankTubesNow();
+    await vi.waitFor(() => expect(store.getState().ranking?.result?.ok).toBe(true), { timeout: 10_000 });
+    const ranks = store.getState().ranking!.result!;
+    if (!ranks.ok) throw new Error(ranks.message);
+    const top = ranks.ranks[0]!;
+    expect(top.ra).toBe(0);
+    store.getState().takeRanked(top);
+    expect(store.getState().design.stage2.tubeId).toBe(top.tubeId);
+    expect(store.getState().design.stage2.rk).toBe(top.rk);
+    expect(store.getState().design.stageKind).toBe('follower');
   });
 });
