@@ -55,7 +55,7 @@ export function OutputValues() {
             </option>
           ))}
         </select>
-        {tubeError ? <p className="field-error" role="alert">{tubeError}</p> : <p id={`${id}-tube-note`} className="field-hint">{tube.description} Law: {tube.lawSource}.</p>}
+        {tubeError ? <p className="field-error" role="alert">{tubeError}</p> : <p id={`${id}-tube-note`} className="field-hint">{tube.description} Law: {tube.lawSource.replace(/\.$/, '')}.</p>}
       </div>
       <fieldset className="option-row" aria-label="Screen connection">
         {(['pentode', 'triode', 'ultralinear'] as const).map((c) => (

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { curveErrors, fitToTypicalPoints, summarizeErrors } from '../../src/fit/fitToTypicalPoints';
 import { findTube } from '../../src/tube/library';
+import { findOutputTube } from '../../src/index';
 import { fitBasisOf } from '../../src/tube/tubeSummary';
 
 /**
@@ -46,5 +47,11 @@ describe('what a tube\'s model rests on, said beside it', () => {
   it('a tube fitted to its curves says how many points and how well; one fitted to a single point says its curves are extrapolated', () => {
     expect(fitBasisOf(findTube('6SL7')!)).toMatch(/^Fitted to 26 points read from its published plate curves \(7 grid voltages\) and 1 typical point \(from memory\): 3\.9 % RMS/);
     expect(fitBasisOf(findTube('300B')!)).toMatch(/^Fitted to 1 typical point only.*extrapolated.*estimates/);
+  });
+});
+
+describe('the output bench says it too', () => {
+  it('a power triode on the output bench names what its curves rest on beside its law (the 300B: one data-sheet point)', () => {
+    expect(findOutputTube('300B')!.lawSource).toMatch(/Fitted to 1 typical point only.*large-signal figures.*are estimates/);
   });
 });

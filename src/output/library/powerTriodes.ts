@@ -2,6 +2,7 @@ import { tube2A3 } from '../../tube/library/2A3';
 import { tube300B } from '../../tube/library/300B';
 import { tube45 } from '../../tube/library/45';
 import type { TubeRecord } from '../../tube/types';
+import { fitBasisOf } from '../../tube/tubeSummary';
 import { defineOutputTube, type OutputTube, type SingleEndedExample } from '../outputTube';
 
 /** A library power triode seen as an output tube: its triode law, ratings and heater as recorded there. */
@@ -12,7 +13,8 @@ function asOutputTube(tube: TubeRecord, singleEnded: readonly SingleEndedExample
     description: tube.description,
     construction: 'power triode',
     law: { kind: 'triode', tube },
-    lawSource: `the ${tube.id} record of the triode library (${tube.fit.method})`,
+    // What the curves rest on, said where the law is named: a power triode fitted to one data-sheet point extrapolates.
+    lawSource: `Koren's triode law, the ${tube.id} record of the triode library. ${fitBasisOf(tube)}`,
     heater: tube.heaters[0]!,
     ratings: {
       maxPlateVoltage: r.maxPlateVoltage,
