@@ -1,4 +1,4 @@
-import { OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../chart/ChartLegend';
+import { followerLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../chart/ChartLegend';
 import { PALETTE } from '../chart/palette';
 import { milliamps, ohms, plain, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -31,6 +31,16 @@ export function chartCaption(s: WorkbenchState): ChartCaption {
     };
   }
   const d = s.design;
+  const f = s.design.stageKind === 'follower' ? s.followerBench : null;
+  if (f) {
+    // The chart shows the follower: its own parts and point, and its own key.
+    const sol = f.plane.solution;
+    return {
+      title: `${f.tube.id} cathode follower, B+ ${volts(f.bplus)}, grid at ${volts(f.vgrid)} (the plate before it), Rk ${ohms(d.stage2.rk)}`,
+      figures: `Vk ${volts(sol.op.vk)}, Ia ${milliamps(sol.op.ia)}, Vgk ${volts(sol.op.vgk)}, Pa ${watts(sol.op.pa)}; gain ${plain(sol.gain, 3)} ×, Zout ${ohms(sol.zout)}, heater–cathode ${volts(sol.vhk)}`,
+      legend: followerLegend(f.vgrid),
+    };
+  }
   const op = s.analysis.solution.op;
   return {
     title: `${d.tubeId}, B+ ${volts(d.bplus)}, Ra ${ohms(d.ra)}, Rk ${ohms(d.rk)}${d.bypassed ? ' bypassed' : ''}, RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}`,

@@ -1,5 +1,6 @@
 import { describe, expect, it, vi } from 'vitest';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
+import { chartCaption } from '../../../app/export/chartCaption';
 import { benchIndex, voltageStages } from '../../../app/store/stagePlans';
 import { findTube, nearestPreferred, solveFollower } from '../../../src/index';
 import { expectClose } from '../../helpers/expectClose';
@@ -132,5 +133,16 @@ describe('targets for the follower on the bench', () => {
     expect(store.getState().design.stage2.tubeId).toBe(top.tubeId);
     expect(store.getState().design.stage2.rk).toBe(top.rk);
     expect(store.getState().design.stageKind).toBe('follower');
+  });
+});
+
+describe('the follower in the build notes', () => {
+  it('an exported chart of the follower carries the follower\'s parts, point and key, not its gain stage\'s', () => {
+    const store = followerOnBench();
+    const s = store.getState();
+    const c = chartCaption(s);
+    expect(c.title).toMatch(new RegExp(`^${s.design.stage2.tubeId} cathode follower, B\\+ 275 V, grid at`));
+    expect(c.figures).toMatch(/heater–cathode/);
+    expect(c.legend.some((l) => /Bias line: the grid held at/.test(l.label))).toBe(true);
   });
 });
