@@ -13,7 +13,7 @@ import { repeatedStats, RUNS, stats, type Stats } from './stats.mts';
  * forced style and layout, which is when the moved point, lines and figures
  * are ready to paint. The wait for the display's next refresh is excluded.
  */
-const DRAG_SCRIPT = (moves: number) => `(async () => {
+const DRAG_SCRIPT = (moves: number, figure: string) => `(async () => {
   const el = document.querySelector('.handle-point');
   const r = el.getBoundingClientRect();
   const cx = r.x + r.width / 2, cy = r.y + r.height / 2;
@@ -27,7 +27,7 @@ const DRAG_SCRIPT = (moves: number) => `(async () => {
     const t0 = performance.now();
     fire('mousemove', cx + 60 * Math.sin(k / 20), cy + 40 * Math.cos(k / 17) - 40);
     const t1 = performance.now();
-    const end = await new Promise((res) => requestAnimationFrame(() => { document.body.getBoundingClientRect(); document.querySelector('[data-figure="vpk"]').offsetWidth; res(performance.now()); }));
+    const end = await new Promise((res) => requestAnimationFrame(() => { document.body.getBoundingClientRect(); document.querySelector('[data-figure="${figure}"]').offsetWidth; res(performance.now()); }));
     work.push((t1 - t0) + (end - frameStart));
   }
   fire('mouseup', cx, cy);
@@ -56,18 +56,19 @@ const FIRST_CURVE_HOOK = `window.__firstCurve = null;
 new MutationObserver((m, obs) => { if (document.querySelector('.layer-curves path')) { window.__firstCurve = performance.now(); obs.disconnect(); } })
   .observe(document, { subtree: true, childList: true });`;
 
-export async function dragSamples(page: Page, moves = 320): Promise<number[]> {
-  return (await page.evaluate(DRAG_SCRIPT(moves))) as number[];
+/** `figure`: a figure of the strip the frame must have laid out (the follower's strip names its own). */
+export async function dragSamples(page: Page, moves = 320, figure = 'vpk'): Promise<number[]> {
+  return (await page.evaluate(DRAG_SCRIPT(moves, figure))) as number[];
 }
 
-export async function drag(page: Page, moves = 320): Promise<Stats> {
-  return stats(await dragSamples(page, moves));
+export async function drag(page: Page, moves = 320, figure = 'vpk'): Promise<Stats> {
+  return stats(await dragSamples(page, moves, figure));
 }
 
 /** RUNS blocks of 320 moves, one after another on the same page. */
-export async function dragRepeated(page: Page): Promise<Stats> {
+export async function dragRepeated(page: Page, figure = 'vpk'): Promise<Stats> {
   const runs: number[][] = [];
-  for (let k = 0; k < RUNS; k++) runs.push(await dragSamples(page));
+  for (let k = 0; k < RUNS; k++) runs.push(await dragSamples(page, 320, figure));
   return repeatedStats(runs);
 }
 
@@ -78,6 +79,8 @@ export interface BrowserResults {
   /** The second stage of a four-stage amplifier on the bench: on fresh loads, then steady. */
   readonly dragChainColdStart: Stats;
   readonly dragChain: Stats;
+  /** That amplifier's follower on the bench, its point dragged (its Rk), steady. */
+  readonly dragFollower: Stats;
   readonly dragTwoTubes: Stats;
   readonly typingRa: Stats;
   readonly dragOutput: Stats;
@@ -178,6 +181,13 @@ export async function benchBrowser(): Promise<BrowserResults> {
     const dragChainColdStart = repeatedStats(chainColds);
     await drag(chain!, 600);
     const dragChain = await dragRepeated(chain!);
+    // The same amplifier's follower on the bench: its point moves along its line, choosing its Rk.
+    await chain!.locator('button.chain-card').nth(2).click();
+    await chain!.waitForSelector('[data-figure="follower-vpk"]');
+    const rk2Before = await chain!.locator('input[name=rk2]').inputValue();
+    await drag(chain!, 600, 'follower-vpk');
+    const dragFollower = await dragRepeated(chain!, 'follower-vpk');
+    if ((await chain!.locator('input[name=rk2]').inputValue()) === rk2Before) throw new Error('the follower drag moved nothing');
     await chain!.close();
 
     const firsts: number[] = [];
@@ -191,7 +201,7 @@ export async function benchBrowser(): Promise<BrowserResults> {
     }
     const heavyInputs = await benchHeavyInputs(browser, url);
     const region = await regionPaints(browser, url);
-    return { regionFirstPaint: stats(region.first), regionFullPaint: stats(region.full), heavyInputs, dragChainColdStart, dragChain, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    return { regionFirstPaint: stats(region.first), regionFullPaint: stats(region.full), heavyInputs, dragChainColdStart, dragChain, dragFollower, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();

@@ -51,6 +51,7 @@ if (existsSync('/usr/bin/chromium')) {
   line('drag, output stage', browser.dragOutput, { value: 8, on: 'p95' });
   line('drag, stage 2 of four, cold (fresh loads)', browser.dragChainColdStart, { value: 8, on: 'p95' });
   line('drag, stage 2 of four, steady', browser.dragChain, { value: 8, on: 'p95' });
+  line('drag, its follower on the bench, steady', browser.dragFollower, { value: 8, on: 'p95' });
   line('drag, output stage, two tubes compared', browser.dragOutputTwoTubes, { value: 8, on: 'p95' });
   line('drag, push-pull pair behind its splitter', browser.dragPushPull, { value: 8, on: 'p95' });
   for (const [n, s] of Object.entries(browser.dragByCurveCount)) line(`  drag with up to ${n} curves`, s);
