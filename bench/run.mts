@@ -71,7 +71,9 @@ if (existsSync('/usr/bin/chromium')) {
 let spice: SpiceRow[] | null = null;
 if (ngspiceAvailable()) {
   console.log('\nSide by side with ngspice (operating point, gain, H2 and H3 of one drive level)');
-  spice = benchNgspice();
+  const side = benchNgspice();
+  spice = side.rows;
+  for (const f of side.failed) console.log(`!!! ${f.design}: ngspice could not finish: ${f.reason}; left out of the figures below.`);
   console.log(`${'design'.padEnd(34)} ${'ours'.padStart(10)} ${'ngspice'.padStart(11)} ${'ratio'.padStart(7)}   Va err  gain err  H2 err  H3 err`);
   for (const r of spice) {
     console.log(`${r.design.padEnd(34)} ${ms(r.oursMs).padStart(10)} ${ms(r.ngspiceMs).padStart(11)} ${`${Math.round(r.ratio)}×`.padStart(7)}   ${r.vaErrPercent.toFixed(3)} %  ${r.gainErrPercent.toFixed(3)} %  ${r.h2ErrDb.toFixed(2)} dB  ${r.h3ErrDb.toFixed(2)} dB`);
