@@ -2,6 +2,7 @@ import { useId } from 'react';
 import type { FollowerSolution } from '../../src/index';
 import { milliamps, ohms, plain, volts, watts } from '../format';
 import { useWorkbench } from '../store/StoreProvider';
+import { SecondTubeChoice } from '../panels/SecondTubeChoice';
 
 interface Row {
   readonly key: string;
@@ -27,8 +28,6 @@ const ROWS: readonly Row[] = [
  */
 export function FollowerCompare() {
   const rival = useWorkbench((s) => s.rival);
-  const setRival = useWorkbench((s) => s.setRival);
-  const tubes = useWorkbench((s) => s.tubes);
   const first = useWorkbench((s) => s.followerBench);
   const second = useWorkbench((s) => s.followerRival);
   const id = useId();
@@ -36,15 +35,7 @@ export function FollowerCompare() {
   return (
     <section className="panel compare" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Compare the follower</h2>
-      <div className="option-row">
-        <label>
-          <input type="checkbox" checked={rival.on} onChange={(e) => setRival({ on: e.target.checked })} /> Compare with
-        </label>
-        <label htmlFor={`${id}-tube`} className="visually-hidden">Second tube</label>
-        <select id={`${id}-tube`} value={rival.tubeId} onChange={(e) => setRival({ tubeId: e.target.value, on: true })}>
-          {tubes.map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
-        </select>
-      </div>
+      <SecondTubeChoice id={id} />
       <p className="field-hint">In the same socket: the same Rk, its grid on the same plate. Drag the first tube's point to move both.</p>
       {rival.on && second && !second.ok ? <p className="field-error" role="alert">{`The ${rival.tubeId} cannot follow here: ${second.message}`}</p> : null}
       {rival.on && second?.ok ? (

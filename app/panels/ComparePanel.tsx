@@ -3,6 +3,7 @@ import type { Analysis } from '../store/analysis';
 import { mAPerV, milliamps, ohms, plain, volts, watts } from '../format';
 import { rivalDesign } from '../store/compareSlice';
 import { useWorkbench } from '../store/StoreProvider';
+import { SecondTubeChoice } from './SecondTubeChoice';
 import { sameEntries, useDragPaced } from './useDragPaced';
 
 /** One row of the comparison: how to read a figure from an analysis, how to show it, and how to show a difference. */
@@ -48,7 +49,6 @@ export function ComparePanel() {
   const rival = useWorkbench((s) => s.rival);
   const setRival = useWorkbench((s) => s.setRival);
   const swapTubes = useWorkbench((s) => s.swapTubes);
-  const tubes = useWorkbench((s) => s.tubes);
   // The chart shows both points live; the table follows a drag at a readable pace (useDragPaced).
   const [first, second, design] = useDragPaced((s) => [s.analysis, s.rivalAnalysis, s.design] as const, { equal: sameEntries });
   const other = rivalDesign(design, rival);
@@ -56,16 +56,9 @@ export function ComparePanel() {
   return (
     <section className="panel compare" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Compare</h2>
-      <div className="option-row">
-        <label>
-          <input type="checkbox" checked={rival.on} onChange={(e) => setRival({ on: e.target.checked })} /> Compare with
-        </label>
-        <label htmlFor={`${id}-tube`} className="visually-hidden">Second tube</label>
-        <select id={`${id}-tube`} value={rival.tubeId} onChange={(e) => setRival({ tubeId: e.target.value, on: true })}>
-          {tubes.map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
-        </select>
+      <SecondTubeChoice id={id}>
         <button type="button" onClick={swapTubes} disabled={!rival.on}>Swap first and second</button>
-      </div>
+      </SecondTubeChoice>
       <fieldset className="option-row" disabled={!rival.on}>
         <legend className="visually-hidden">How the second tube is fitted</legend>
         <label><input type="radio" name={`${id}-mode`} checked={rival.mode === 'same-parts'} onChange={() => setRival({ mode: 'same-parts' })} /> Same parts (a tube swap)</label>

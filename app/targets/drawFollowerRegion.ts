@@ -2,6 +2,7 @@ import { line, select } from 'd3';
 import type { FollowerRegion } from '../../src/index';
 import { PALETTE } from '../chart/palette';
 import type { PlateScales } from '../chart/plateScales';
+import { ringBest } from './drawRegion';
 
 /**
  * A follower's targets on the plate chart: each stretch of its line where
@@ -36,15 +37,5 @@ export function drawFollowerRegion(layer: SVGGElement, region: FollowerRegion | 
     .attr('stroke-width', 14)
     .attr('stroke-linecap', 'round');
   const best = region.best;
-  if (best && best.score >= 0) {
-    g.append('circle')
-      .attr('data-region', 'best')
-      .attr('cx', scales.x(region.vpk[best.index]!))
-      .attr('cy', scales.y(region.ia[best.index]!))
-      .attr('r', 7)
-      .attr('fill', 'none')
-      .attr('stroke', PALETTE.rival)
-      .attr('stroke-width', 2)
-      .attr('stroke-dasharray', '3 2');
-  }
+  if (best && best.score >= 0) ringBest(layer, scales.x(region.vpk[best.index]!), scales.y(region.ia[best.index]!));
 }

@@ -34,17 +34,21 @@ export function drawRegion(layer: SVGGElement, region: FeasibleRegion | null, sc
     .attr('fill', `url(#${REGION_HATCH_ID})`);
   drawTargetEdges(g, region, scales, dv, di);
   const best = region.best;
-  if (best && best.score >= 0) {
-    g.append('circle')
-      .attr('data-region', 'best')
-      .attr('cx', scales.x(region.va[best.i]!))
-      .attr('cy', scales.y(region.ia[best.j]!))
-      .attr('r', 7)
-      .attr('fill', 'none')
-      .attr('stroke', PALETTE.rival)
-      .attr('stroke-width', 2)
-      .attr('stroke-dasharray', '3 2');
-  }
+  if (best && best.score >= 0) ringBest(layer, scales.x(region.va[best.i]!), scales.y(region.ia[best.j]!));
+}
+
+/** The ring round the point that meets the targets best (dashed, in the region's colour). */
+export function ringBest(layer: SVGGElement, x: number, y: number): void {
+  select(layer)
+    .append('circle')
+    .attr('data-region', 'best')
+    .attr('cx', x)
+    .attr('cy', y)
+    .attr('r', 7)
+    .attr('fill', 'none')
+    .attr('stroke', PALETTE.rival)
+    .attr('stroke-width', 2)
+    .attr('stroke-dasharray', '3 2');
 }
 
 /** The targets whose edge crosses the region's grid: those that hold at some reachable points and fail at others. */

@@ -1,5 +1,4 @@
 import { designAtPlanePoint } from '../stage/designAtPoint';
-import { heaterCathodeRating } from '../stage/ratingBands';
 import { normalizeStage, type StageDesign } from '../stage/stageDesign';
 import { solveStage } from '../stage/solveStage';
 import { distortionOf } from '../signal/distortion';
@@ -7,6 +6,7 @@ import { stageTransfer } from '../signal/stageTransfer';
 import { swingOf } from '../signal/swing';
 import { recordOf, type TubeLike } from '../tube/types';
 import type { TargetName, Targets } from './targets';
+import { sharedMargin, verdictOf, withinRange } from './verdict';
 
 /** The stage a region is drawn for: everything but Ra and Rk, which each point of the plane sets. */
 export interface RegionStage {
@@ -51,10 +51,9 @@ const THD_SAMPLES = 32;
 /** The asked level met to a thousandth: THD moves by a thousandth of itself at most. */
 const LEVEL_TOLERANCE = 1e-3;
 
-/** The largest margin reported either way: a target met a million times over is met. */
-const MAX_MARGIN = 1e6;
-
-const unreachable: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity, values: Object.freeze({}) });
+/** The verdict of a point or design that does not solve. */
+export const UNREACHABLE_VERDICT: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity, values: Object.freeze({}) });
+const unreachable = UNREACHABLE_VERDICT;
 
 /**
  * One point of the plate plane against the targets: the Ra and Rk that put a
@@ -80,8 +79,14 @@ export function judgeStage(design: StageDesign, targets: Targets, active: readon
   const rec = recordOf(design.tube);
   const margins: Partial<Record<TargetName, number>> = {};
   const values: Partial<Record<TargetName, number | null>> = {};
-  const within = (x: number, [lo, hi]: readonly [number, number]) => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
+  const shared = { pa: solution.op.pa, zout: solution.zout, rk: design.rk, vhk: solution.op.vk };
   for (const k of active) {
+    const common = sharedMargin(k, shared, rec ?? null, targets);
+    if (common) {
+      values[k] = common.value;
+      margins[k] = common.margin;
+      continue;
+    }
     switch (k) {
       case 'minGain':
         values.minGain = Math.abs(solution.gain);
@@ -104,41 +109,17 @@ export function judgeStage(design: StageDesign, targets: Targets, active: readon
         margins.maxThdAt = r.ok ? 1 - r.thdPercent / (100 * want.thd) : -1;
         break;
       }
-      case 'maxDissipationFraction':
-        values.maxDissipationFraction = rec ? solution.op.pa / rec.ratings.maxPlateDissipation : null;
-        margins.maxDissipationFraction = rec ? 1 - solution.op.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! : 0;
-        break;
-      case 'maxZout':
-        values.maxZout = solution.zout;
-        margins.maxZout = 1 - solution.zout / targets.maxZout!;
-        break;
       case 'raRange':
         values.raRange = design.ra;
-        margins.raRange = within(design.ra, targets.raRange!);
-        break;
-      case 'rkRange':
-        values.rkRange = design.rk;
-        margins.rkRange = within(design.rk, targets.rkRange!);
+        margins.raRange = withinRange(design.ra, targets.raRange!);
         break;
       case 'minGridHeadroom':
         values.minGridHeadroom = swing!.inputPeak;
         margins.minGridHeadroom = swing!.inputPeak / targets.minGridHeadroom! - 1;
         break;
-      case 'heaterCathodeWithinRating': {
-        const hk = rec && !rec.directlyHeated ? heaterCathodeRating(rec.ratings) : null;
-        values.heaterCathodeWithinRating = solution.op.vk;
-        margins.heaterCathodeWithinRating = hk ? 1 - solution.op.vk / hk.cathodePositive : 0;
+      default:
         break;
-      }
     }
   }
-  let score = Infinity;
-  const failing: string[] = [];
-  for (const k of active) {
-    // A target of a denormal volt would make a margin overflow: margins are held to ±MAX_MARGIN.
-    const m = (margins[k] = Number.isNaN(margins[k]) ? -1 : Math.max(-MAX_MARGIN, Math.min(MAX_MARGIN, margins[k]!)));
-    if (m < 0) failing.push(k);
-    if (m < score) score = m;
-  }
-  return { ra: design.ra, rk: design.rk, failing, margins, score: active.length === 0 ? 0 : score, values };
+  return verdictOf(active, margins, values, design.ra, design.rk);
 }

@@ -3,16 +3,16 @@ import { solveAmplifier } from '../chain/solveAmplifier';
 import type { ChainInput } from '../chain/chainTypes';
 import { checkNumber, checkTube, LIMITS } from '../stage/checkInput';
 import { followerRkFor } from '../stage/followerPlane';
-import { heaterCathodeRating } from '../stage/ratingBands';
 import { solveFollower } from '../stage/solveFollower';
 import { plateCurrent } from '../tube/triode';
 import { recordOf, type TubeLike, type TubeRecord } from '../tube/types';
 import { tubeLibrary } from '../tube/library';
-import { UNREACHABLE, type PointVerdict } from './evaluatePoint';
+import { UNREACHABLE, UNREACHABLE_VERDICT, type PointVerdict } from './evaluatePoint';
 import { weakestOf } from './feasibleRegion';
 import type { DesignVerdict } from './judgeDesign';
 import type { TubeRank } from './rankTubes';
 import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
+import { sharedMargin, verdictOf } from './verdict';
 
 /**
  * Targets for a cathode follower. With its grid held by the plate before it,
@@ -39,8 +39,7 @@ const NOT_FOR_FOLLOWERS: readonly TargetName[] = ['raRange'];
 
 export const followerTargetsOf = (targets: Targets): TargetName[] => activeTargets(targets).filter((k) => !NOT_FOR_FOLLOWERS.includes(k));
 
-const MAX_MARGIN = 1e6;
-const unreachable: PointVerdict = Object.freeze({ ra: 0, rk: 0, failing: Object.freeze([UNREACHABLE]), margins: Object.freeze({}), score: -Infinity, values: Object.freeze({}) });
+const unreachable = UNREACHABLE_VERDICT;
 
 /** The follower as a one-stage amplifier (its grid held at `vgrid` by an ideal coupling): its clean limit and THD come from the chain's own composed transfer. */
 function asChain(stage: FollowerTargetStage, rk: number): ChainInput {
@@ -62,8 +61,14 @@ export function judgeFollowerAt(stage: FollowerTargetStage, rk: number, targets:
   const rec = recordOf(stage.tube);
   const margins: Partial<Record<TargetName, number>> = {};
   const values: Partial<Record<TargetName, number | null>> = {};
-  const within = (x: number, [lo, hi]: readonly [number, number]) => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
+  const shared = { pa: solved.op.pa, zout: solved.zout, rk, vhk: solved.vhk };
   for (const k of active) {
+    const common = sharedMargin(k, shared, rec ?? null, targets);
+    if (common) {
+      values[k] = common.value;
+      margins[k] = common.margin;
+      continue;
+    }
     switch (k) {
       case 'minGain':
         values.minGain = solved.gain;
@@ -85,42 +90,16 @@ export function judgeFollowerAt(stage: FollowerTargetStage, rk: number, targets:
         margins.maxThdAt = at?.ok ? 1 - at.thd / want!.thd : -1;
         break;
       }
-      case 'maxDissipationFraction':
-        values.maxDissipationFraction = rec ? solved.op.pa / rec.ratings.maxPlateDissipation : null;
-        margins.maxDissipationFraction = rec ? 1 - solved.op.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! : 0;
-        break;
-      case 'maxZout':
-        values.maxZout = solved.zout;
-        margins.maxZout = 1 - solved.zout / targets.maxZout!;
-        break;
-      case 'rkRange':
-        values.rkRange = rk;
-        margins.rkRange = within(rk, targets.rkRange!);
-        break;
-      case 'minGridHeadroom': {
+      case 'minGridHeadroom':
         // The grid swing to the nearer limit, the grid held through an ideal coupling: the chain's clean input.
         values.minGridHeadroom = chain!.inputPeak;
         margins.minGridHeadroom = chain!.inputPeak / targets.minGridHeadroom! - 1;
         break;
-      }
-      case 'heaterCathodeWithinRating': {
-        const hk = rec && !rec.directlyHeated ? heaterCathodeRating(rec.ratings) : null;
-        values.heaterCathodeWithinRating = solved.vhk;
-        margins.heaterCathodeWithinRating = hk ? 1 - solved.vhk / hk.cathodePositive : 0;
-        break;
-      }
       default:
         break;
     }
   }
-  let score = Infinity;
-  const failing: string[] = [];
-  for (const k of active) {
-    const m = (margins[k] = Number.isNaN(margins[k]) ? -1 : Math.max(-MAX_MARGIN, Math.min(MAX_MARGIN, margins[k]!)));
-    if (m < 0) failing.push(k);
-    if (m < score) score = m;
-  }
-  return { ra: 0, rk, failing, margins, score: active.length === 0 ? 0 : score, values };
+  return verdictOf(active, margins, values, 0, rk);
 }
 
 function stageProblem(stage: FollowerTargetStage) {

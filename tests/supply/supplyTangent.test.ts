@@ -1,26 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, solveOnSupply, solveSupply, supplyNear, supplyTangent, type ChainInput, type SupplyDesign } from '../../src/index';
+import { solveOnSupply, solveSupply, supplyNear, supplyTangent, type ChainInput } from '../../src/index';
+import { amplifier, supply } from '../helpers/smallAmplifierOnSupply';
 import { expectClose } from '../helpers/expectClose';
 
 // The reference here is the transient solve the tangent stands in for during a drag; that solve is itself held to
 // ngspice's transient analysis in tests/spice (node DC within 1 %, ripple and rectifier peak within 10 %).
 
 // Our own amplifier: a 12AU7 stage, its follower, an EL34 ultralinear output stage, on a C–R–C–R–C supply.
-const amplifier: ChainInput = {
-  source: { rsource: 1e3 },
-  stages: [
-    { kind: 'common-cathode', tube: findTube('12AU7')!, bplus: 300, ra: 27e3, rk: 1200, bypassed: true, coupling: { kind: 'capacitor', cc: 470e-9, rg: 1e6 } },
-    { kind: 'follower', tube: findTube('12AU7')!, bplus: 300, rk: 22e3, coupling: { kind: 'direct' } },
-    {
-      kind: 'single-ended-output', tube: findOutputTube('EL34')!, connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130,
-      bias: 'cathode', rk: 330, vg: -22, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 1e-6, rg: 220e3 },
-    },
-  ],
-};
-const supply: SupplyDesign = {
-  mainsHz: 50, secondaryRms: 260, windingOhms: 35, rectifier: { kind: 'silicon-full-wave' },
-  input: { kind: 'capacitor', c: 100e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 10e3, c: 47e-6 }], loads: [0, 0, 0],
-};
 const feeds = [2, 1, 0];
 const withOutputRk = (rk: number): ChainInput => ({ ...amplifier, stages: amplifier.stages.map((st, i) => (i === 2 ? { ...st, rk } : st)) as ChainInput['stages'] });
 

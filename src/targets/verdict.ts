@@ -1,0 +1,53 @@
+import { heaterCathodeRating } from '../stage/ratingBands';
+import type { TubeRecord } from '../tube/types';
+import type { TargetName, Targets } from './targets';
+import type { PointVerdict } from './evaluatePoint';
+
+/** The largest margin reported either way: a target met a million times over is met. */
+const MAX_MARGIN = 1e6;
+
+/** The margin of a value inside a range: positive inside, 0 at an end, negative outside (a share of the end it passes). */
+export const withinRange = (x: number, [lo, hi]: readonly [number, number]): number => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
+
+/** What a stage presents to the targets every kind of stage shares. */
+export interface SharedFigures {
+  /** Plate dissipation, W; output impedance, Ω; the cathode resistor, Ω; the cathode's voltage to its heater, V. */
+  readonly pa: number;
+  readonly zout: number;
+  readonly rk: number;
+  readonly vhk: number;
+}
+
+/**
+ * The targets every stage kind judges alike (plate dissipation against the
+ * rating, output impedance, Rk's range, heater–cathode against its rating):
+ * the value and the margin, or null for a target that is not one of these.
+ */
+export function sharedMargin(k: TargetName, at: SharedFigures, rec: TubeRecord | null, targets: Targets): { readonly value: number | null; readonly margin: number } | null {
+  switch (k) {
+    case 'maxDissipationFraction':
+      return rec ? { value: at.pa / rec.ratings.maxPlateDissipation, margin: 1 - at.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! } : { value: null, margin: 0 };
+    case 'maxZout':
+      return { value: at.zout, margin: 1 - at.zout / targets.maxZout! };
+    case 'rkRange':
+      return { value: at.rk, margin: withinRange(at.rk, targets.rkRange!) };
+    case 'heaterCathodeWithinRating': {
+      const hk = rec && !rec.directlyHeated ? heaterCathodeRating(rec.ratings) : null;
+      return { value: at.vhk, margin: hk ? 1 - at.vhk / hk.cathodePositive : 0 };
+    }
+    default:
+      return null;
+  }
+}
+
+/** The verdict from each target's margin: held to ±MAX_MARGIN (a denormal target would overflow), the failing ones, the smallest. */
+export function verdictOf(active: readonly TargetName[], margins: Partial<Record<TargetName, number>>, values: Partial<Record<TargetName, number | null>>, ra: number, rk: number): PointVerdict {
+  let score = Infinity;
+  const failing: string[] = [];
+  for (const k of active) {
+    const m = (margins[k] = Number.isNaN(margins[k]) ? -1 : Math.max(-MAX_MARGIN, Math.min(MAX_MARGIN, margins[k]!)));
+    if (m < 0) failing.push(k);
+    if (m < score) score = m;
+  }
+  return { ra, rk, failing, margins, score: active.length === 0 ? 0 : score, values };
+}
