@@ -6,7 +6,7 @@ import { stageTransfer } from '../signal/stageTransfer';
 import { swingOf } from '../signal/swing';
 import { recordOf, type TubeLike } from '../tube/types';
 import type { TargetName, Targets } from './targets';
-import { sharedMargin, verdictOf, withinRange } from './verdict';
+import { judgeFigures } from './verdict';
 
 /** The stage a region is drawn for: everything but Ra and Rk, which each point of the plane sets. */
 export interface RegionStage {
@@ -76,50 +76,17 @@ export function judgeStage(design: StageDesign, targets: Targets, active: readon
   const needsSwing = active.includes('minCleanOutputRms') || active.includes('minGridHeadroom') || active.includes('maxThdAt');
   const transfer = needsSwing ? stageTransfer(checked, solution.op) : null;
   const swing = transfer ? swingOf(s, transfer, SWING_BISECTIONS) : null;
-  const rec = recordOf(design.tube);
-  const margins: Partial<Record<TargetName, number>> = {};
-  const values: Partial<Record<TargetName, number | null>> = {};
-  const shared = { pa: solution.op.pa, zout: solution.zout, rk: design.rk, vhk: solution.op.vk };
-  for (const k of active) {
-    const common = sharedMargin(k, shared, rec ?? null, targets);
-    if (common) {
-      values[k] = common.value;
-      margins[k] = common.margin;
-      continue;
-    }
-    switch (k) {
-      case 'minGain':
-        values.minGain = Math.abs(solution.gain);
-        margins.minGain = Math.abs(solution.gain) / targets.minGain! - 1;
-        break;
-      case 'minCleanOutputRms':
-        values.minCleanOutputRms = swing!.output.rms;
-        margins.minCleanOutputRms = swing!.output.rms / targets.minCleanOutputRms! - 1;
-        break;
-      case 'maxThdAt': {
-        // Held within the clean swing: a working level past grid current or cutoff fails, by how far it is past.
-        const want = targets.maxThdAt!;
-        if (want.outputRms > swing!.output.rms) {
-          values.maxThdAt = null;
-          margins.maxThdAt = swing!.output.rms / want.outputRms - 1;
-          break;
-        }
-        const r = distortionOf(s, { outputRms: want.outputRms }, { samples: THD_SAMPLES, levelTolerance: LEVEL_TOLERANCE }, { transfer: transfer!, swing: swing! });
-        values.maxThdAt = r.ok ? r.thdPercent / 100 : null;
-        margins.maxThdAt = r.ok ? 1 - r.thdPercent / (100 * want.thd) : -1;
-        break;
-      }
-      case 'raRange':
-        values.raRange = design.ra;
-        margins.raRange = withinRange(design.ra, targets.raRange!);
-        break;
-      case 'minGridHeadroom':
-        values.minGridHeadroom = swing!.inputPeak;
-        margins.minGridHeadroom = swing!.inputPeak / targets.minGridHeadroom! - 1;
-        break;
-      default:
-        break;
-    }
-  }
-  return verdictOf(active, margins, values, design.ra, design.rk);
+  return judgeFigures(active, targets, {
+    pa: solution.op.pa,
+    zout: solution.zout,
+    rk: design.rk,
+    vhk: solution.op.vk,
+    ra: design.ra,
+    gain: Math.abs(solution.gain),
+    clean: () => ({ outputRms: swing!.output.rms, inputPeak: swing!.inputPeak }),
+    thdAt: (outputRms) => {
+      const r = distortionOf(s, { outputRms }, { samples: THD_SAMPLES, levelTolerance: LEVEL_TOLERANCE }, { transfer: transfer!, swing: swing! });
+      return r.ok ? r.thdPercent / 100 : null;
+    },
+  }, recordOf(design.tube) ?? null);
 }

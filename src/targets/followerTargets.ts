@@ -12,7 +12,7 @@ import { weakestOf } from './feasibleRegion';
 import type { DesignVerdict } from './judgeDesign';
 import type { TubeRank } from './rankTubes';
 import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
-import { sharedMargin, verdictOf } from './verdict';
+import { judgeFigures } from './verdict';
 
 /**
  * Targets for a cathode follower. With its grid held by the plate before it,
@@ -58,48 +58,17 @@ export function judgeFollowerAt(stage: FollowerTargetStage, rk: number, targets:
   const want = targets.maxThdAt;
   const chain = needsSwing ? solveAmplifier(asChain(stage, rk), want ? { outputRms: want.outputRms } : undefined) : null;
   if (chain && !chain.ok) return unreachable;
-  const rec = recordOf(stage.tube);
-  const margins: Partial<Record<TargetName, number>> = {};
-  const values: Partial<Record<TargetName, number | null>> = {};
-  const shared = { pa: solved.op.pa, zout: solved.zout, rk, vhk: solved.vhk };
-  for (const k of active) {
-    const common = sharedMargin(k, shared, rec ?? null, targets);
-    if (common) {
-      values[k] = common.value;
-      margins[k] = common.margin;
-      continue;
-    }
-    switch (k) {
-      case 'minGain':
-        values.minGain = solved.gain;
-        margins.minGain = solved.gain / targets.minGain! - 1;
-        break;
-      case 'minCleanOutputRms':
-        values.minCleanOutputRms = chain!.output.rms;
-        margins.minCleanOutputRms = chain!.output.rms / targets.minCleanOutputRms! - 1;
-        break;
-      case 'maxThdAt': {
-        const clean = chain!.output.rms;
-        if (want!.outputRms > clean) {
-          values.maxThdAt = null;
-          margins.maxThdAt = clean / want!.outputRms - 1;
-          break;
-        }
-        const at = chain!.atLevel;
-        values.maxThdAt = at?.ok ? at.thd : null;
-        margins.maxThdAt = at?.ok ? 1 - at.thd / want!.thd : -1;
-        break;
-      }
-      case 'minGridHeadroom':
-        // The grid swing to the nearer limit, the grid held through an ideal coupling: the chain's clean input.
-        values.minGridHeadroom = chain!.inputPeak;
-        margins.minGridHeadroom = chain!.inputPeak / targets.minGridHeadroom! - 1;
-        break;
-      default:
-        break;
-    }
-  }
-  return verdictOf(active, margins, values, 0, rk);
+  return judgeFigures(active, targets, {
+    pa: solved.op.pa,
+    zout: solved.zout,
+    rk,
+    vhk: solved.vhk,
+    ra: 0,
+    gain: solved.gain,
+    // The follower's clean limit and THD from the chain's composed transfer (its grid swing: the chain's clean input).
+    clean: () => ({ outputRms: chain!.output.rms, inputPeak: chain!.inputPeak }),
+    thdAt: () => (chain!.atLevel?.ok ? chain!.atLevel.thd : null),
+  }, recordOf(stage.tube) ?? null);
 }
 
 function stageProblem(stage: FollowerTargetStage) {

@@ -9,21 +9,31 @@ const MAX_MARGIN = 1e6;
 /** The margin of a value inside a range: positive inside, 0 at an end, negative outside (a share of the end it passes). */
 export const withinRange = (x: number, [lo, hi]: readonly [number, number]): number => Math.min(lo > 0 ? x / lo - 1 : Infinity, hi > 0 ? 1 - x / hi : -1);
 
-/** What a stage presents to the targets every kind of stage shares. */
-export interface SharedFigures {
+/** What a stage presents to its targets, whatever its kind. */
+export interface StageFigures {
   /** Plate dissipation, W; output impedance, Ω; the cathode resistor, Ω; the cathode's voltage to its heater, V. */
   readonly pa: number;
   readonly zout: number;
   readonly rk: number;
   readonly vhk: number;
+  /** The plate resistor, Ω (0 for a follower, which has none). */
+  readonly ra: number;
+  /** The voltage gain's magnitude. */
+  readonly gain: number;
+  /** The clean output (V rms) and the grid swing to the nearer limit (V peak), worked out only when a target needs them. */
+  readonly clean: () => { readonly outputRms: number; readonly inputPeak: number };
+  /** THD (a fraction) at an output level within the clean swing, or null where it cannot be had. */
+  readonly thdAt: (outputRms: number) => number | null;
 }
+
+type SharedFigures = Pick<StageFigures, 'pa' | 'zout' | 'rk' | 'vhk'>;
 
 /**
  * The targets every stage kind judges alike (plate dissipation against the
  * rating, output impedance, Rk's range, heater–cathode against its rating):
  * the value and the margin, or null for a target that is not one of these.
  */
-export function sharedMargin(k: TargetName, at: SharedFigures, rec: TubeRecord | null, targets: Targets): { readonly value: number | null; readonly margin: number } | null {
+function sharedMargin(k: TargetName, at: SharedFigures, rec: TubeRecord | null, targets: Targets): { readonly value: number | null; readonly margin: number } | null {
   switch (k) {
     case 'maxDissipationFraction':
       return rec ? { value: at.pa / rec.ratings.maxPlateDissipation, margin: 1 - at.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! } : { value: null, margin: 0 };
@@ -40,8 +50,57 @@ export function sharedMargin(k: TargetName, at: SharedFigures, rec: TubeRecord |
   }
 }
 
+/** Every active target judged from a stage's figures: each one's value and margin, and the verdict. */
+export function judgeFigures(active: readonly TargetName[], targets: Targets, at: StageFigures, rec: TubeRecord | null): PointVerdict {
+  const margins: Partial<Record<TargetName, number>> = {};
+  const values: Partial<Record<TargetName, number | null>> = {};
+  for (const k of active) {
+    const common = sharedMargin(k, at, rec, targets);
+    if (common) {
+      values[k] = common.value;
+      margins[k] = common.margin;
+      continue;
+    }
+    switch (k) {
+      case 'minGain':
+        values.minGain = at.gain;
+        margins.minGain = at.gain / targets.minGain! - 1;
+        break;
+      case 'minCleanOutputRms':
+        values.minCleanOutputRms = at.clean().outputRms;
+        margins.minCleanOutputRms = at.clean().outputRms / targets.minCleanOutputRms! - 1;
+        break;
+      case 'maxThdAt': {
+        // Held within the clean swing: a working level past grid current or cutoff fails, by how far it is past.
+        const want = targets.maxThdAt!;
+        const clean = at.clean().outputRms;
+        if (want.outputRms > clean) {
+          values.maxThdAt = null;
+          margins.maxThdAt = clean / want.outputRms - 1;
+          break;
+        }
+        const thd = at.thdAt(want.outputRms);
+        values.maxThdAt = thd;
+        margins.maxThdAt = thd !== null ? 1 - thd / want.thd : -1;
+        break;
+      }
+      case 'raRange':
+        values.raRange = at.ra;
+        margins.raRange = withinRange(at.ra, targets.raRange!);
+        break;
+      case 'minGridHeadroom':
+        values.minGridHeadroom = at.clean().inputPeak;
+        margins.minGridHeadroom = at.clean().inputPeak / targets.minGridHeadroom! - 1;
+        break;
+      default:
+        break;
+    }
+  }
+  return verdictOf(active, margins, values, at.ra, at.rk);
+}
+
 /** The verdict from each target's margin: held to ±MAX_MARGIN (a denormal target would overflow), the failing ones, the smallest. */
-export function verdictOf(active: readonly TargetName[], margins: Partial<Record<TargetName, number>>, values: Partial<Record<TargetName, number | null>>, ra: number, rk: number): PointVerdict {
+function verdictOf(active: readonly TargetName[], margins: Partial<Record<TargetName, number>>, values: Partial<Record<TargetName, number | null>>, ra: number, rk: number): PointVerdict {
   let score = Infinity;
   const failing: string[] = [];
   for (const k of active) {
