@@ -1,6 +1,6 @@
 import { fail, type Failure, type Result } from '../result';
 import { solveSupply } from '../supply/solveSupply';
-import { nearbyLoads, supplyNear, supplyTangent, type SupplyTangent } from '../supply/supplyTangent';
+import { supplyNear, supplyTangent, type SupplyTangent } from '../supply/supplyTangent';
 import type { SupplyDesign, SupplySolution } from '../supply/supplyTypes';
 import type { ChainInput, ChainResult } from './chainTypes';
 import { prepareAmplifier, solveStagesInPlace } from './prepareAmplifier';
@@ -108,13 +108,14 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   const own = Array.isArray(supply.loads) ? supply.loads : [];
   const start = input.start;
   let volts: number[] | null = Array.isArray(start) && start.length === nodes && start.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) ? [...start] : null;
-  let rounds = 0;
   let loads: number[] = [];
   const around = input.around && Array.isArray(input.around.loads) && input.around.loads.length === nodes ? input.around : null;
   let byTangent = around !== null;
-  // Along the tangent while every round's loads stay near it; one round that strays solves the supply in full from there on.
+  // Along the tangent while every round's loads stay near it (supplyNear refuses those that do not); one round that
+  // strays solves the supply in full from there on.
   const supplyAt = (at: number[], from: number[] | null) => {
-    if (byTangent && nearbyLoads(around!, at)) return supplyNear({ ...supply, loads: at }, around!, at);
+    const near = byTangent ? supplyNear({ ...supply, loads: at }, around!, at) : null;
+    if (near?.ok) return near;
     byTangent = false;
     return solveSupply({ ...supply, loads: at }, from ? { start: from } : {});
   };
@@ -134,8 +135,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     const next = solved.nodes.map((n) => n.dc);
     const moved = volts ? Math.max(...next.map((v, k) => Math.abs(v - volts![k]!))) : Infinity;
     // The stages were solved at the nodes the supply now gives (from the first round when it started from a solution).
-    const settled = (rounds > 0 || volts !== null) && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
-    rounds++;
+    const settled = volts !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
     volts = next;
     yield;
     if (settled || moved <= VOLT_TOL / 10) {
@@ -147,7 +147,8 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
       let atFullPower: AmplifierOnSupplyResult['atFullPower'] = null;
       if (inPlace.links.some((l) => l.fullPowerCurrent !== undefined)) {
         const full = drawn((l) => l.fullPowerCurrent ?? l.supplyCurrent);
-        const driven = byTangent && nearbyLoads(around!, full) ? supplyNear({ ...supply, loads: full }, around!, full) : solveSupply({ ...supply, loads: full }, { start: next });
+        const near = byTangent ? supplyNear({ ...supply, loads: full }, around!, full) : null;
+        const driven = near?.ok ? near : solveSupply({ ...supply, loads: full }, { start: next });
         if (!driven.ok) return driven;
         atFullPower = { volts: driven.nodes.map((n) => n.dc), loads: full };
       }

@@ -101,7 +101,7 @@ export function supplyNear(design: SupplyDesign, tangent: SupplyTangent, loads: 
   const shift = nodes[0]!.dc - at.nodes[0]!.dc;
   const scale = at.rectifierPeak > 0 ? rectifierPeak / at.rectifierPeak : 1;
   const total = loads.reduce((a, b) => a + b, 0);
-  const critical = at.criticalInductance !== null && total > 0 ? (at.criticalInductance * tangent.loads.reduce((a, b) => a + b, 0) * nodes[0]!.dc) / (total * at.nodes[0]!.dc) : at.criticalInductance;
+  const critical = at.criticalInductance !== null && total > 0 && at.nodes[0]!.dc > 0 ? (at.criticalInductance * tangent.loads.reduce((a, b) => a + b, 0) * nodes[0]!.dc) / (total * at.nodes[0]!.dc) : at.criticalInductance;
   const solution: SupplySolution = {
     ...at,
     nodes,
