@@ -45,10 +45,10 @@ export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
 export function followerLegend(vgrid: number): readonly LegendItem[] {
   return [
     { label: 'Plate curves (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
-    { label: 'Cathode load line: B+ at no current, B+/Rk at the plate at its cathode', stroke: PALETTE.load, dash: undefined, width: 2 },
-    { label: 'AC load line (Rk with the next grid\'s resistor)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
-    { label: `Bias line: the grid held at ${vgrid.toFixed(0)} V, the plate before it`, stroke: PALETTE.bias, dash: '2 3', width: 1.8 },
-    { label: 'Where Rk moves the point (drag along it)', stroke: PALETTE.point, dash: '1 4', width: 1.2 },
+    { label: 'Cathode load line (B+ to B+/Rk)', stroke: PALETTE.load, dash: undefined, width: 2 },
+    { label: 'AC load line (Rk with the next grid leak)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
+    { label: `Bias line (grid at ${vgrid.toFixed(0)} V)`, stroke: PALETTE.bias, dash: '2 3', width: 1.8 },
+    { label: 'Where Rk moves the point', stroke: PALETTE.point, dash: '1 4', width: 1.2 },
     { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
     { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
   ];

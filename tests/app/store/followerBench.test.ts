@@ -143,6 +143,6 @@ describe('the follower in the build notes', () => {
     const c = chartCaption(s);
     expect(c.title).toMatch(new RegExp(`^${s.design.stage2.tubeId} cathode follower, B\\+ 275 V, grid at`));
     expect(c.figures).toMatch(/heater–cathode/);
-    expect(c.legend.some((l) => /Bias line: the grid held at/.test(l.label))).toBe(true);
+    expect(c.legend.some((l) => /^Bias line \(grid at /.test(l.label))).toBe(true);
   });
 });
