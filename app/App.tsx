@@ -111,6 +111,7 @@ function OutputBench() {
         <section className="sheet-panel" aria-label="Plate curves">
           <OutputChart />
         </section>
+        <TargetsPanel />
         <FindingsList />
         <OutputSignalCharts />
         <OutputComparePanel />

@@ -133,10 +133,12 @@ export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } f
 export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';
 export { solveSplitter, millerInputCapacitance, type SplitterDesign, type SplitterResult, type SplitterOutput } from './splitter/solveSplitter';
 export { compositeCurves } from './pushpull/compositeCurves';
-export { TARGET_NAMES, TARGET_LABELS, activeTargets, targetsProblem, type Targets, type TargetName } from './targets/targets';
+export { TARGET_NAMES, TARGET_LABELS, TARGETS_OF_KIND, activeTargets, targetsProblem, type Targets, type TargetName, type TargetStageKind } from './targets/targets';
 export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
 export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';
 export { rankTubes, type TubeRank } from './targets/rankTubes';
 export { followerRegion, judgeFollower, judgeFollowerAt, rankFollowers, followerTargetsOf, FOLLOWER_SAMPLES, type FollowerRegion, type FollowerTargetStage } from './targets/followerTargets';
 export { judgeDesign, type DesignVerdict } from './targets/judgeDesign';
+export { outputRegion, judgeOutput, rankOutputTubes, outputTargetsOf, type OutputRegion, type OutputRegionBest, type OutputRank, type OutputParts, type OutputTargetStage } from './targets/outputTargets';
+export { type PlaneRegion, type PlaneBest } from './targets/planeRegion';
 export { stageSignal, followerProblem, RESPONSE_FREQUENCIES, type StageSignal, type SignalLevels } from './stage/stageSignal';

@@ -14,7 +14,8 @@ import { PALETTE } from './palette';
 import { plateScales } from './plateScales';
 import { useChartBox } from './useChartBox';
 import { DESIGN_LIMITS } from '../store/designLimits';
-import { drawRegion, REGION_HATCH_ID, targetsWithEdges } from '../targets/drawRegion';
+import { drawRegion, targetsWithEdges } from '../targets/drawRegion';
+import { RegionHatch } from '../targets/RegionHatch';
 import { drawFollowerRegion } from '../targets/drawFollowerRegion';
 import { currentFollowerRegion } from '../store/regionSlice';
 
@@ -151,12 +152,7 @@ export function PlateChart() {
         role="group"
         aria-label={follower ? `Plate curves of the follower's ${tubeId} with its cathode load line, bias line and operating point` : `Plate curves of the ${tubeId} with the stage's load lines and operating point`}
       >
-        <defs>
-          <pattern id={REGION_HATCH_ID} patternUnits="userSpaceOnUse" width={7} height={7} patternTransform="rotate(45)">
-            <rect width={7} height={7} fill={PALETTE.rival} fillOpacity={0.1} />
-            <line x1={0} y1={0} x2={0} y2={7} stroke={PALETTE.rival} strokeWidth={2} strokeOpacity={0.55} />
-          </pattern>
-        </defs>
+        <RegionHatch />
         <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
         <g ref={regionLayer} className="layer-region" pointerEvents="none" />
         <rect

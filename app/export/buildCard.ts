@@ -22,8 +22,15 @@ const MARGIN = 60;
 export function cardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
   const amplifier = amplifierSection(s);
   const supply = supplySection(s);
-  const stageSections = s.design.stageKind === 'output' ? [...outputCardSections(s), ...voltagePartsSections(s)] : voltageCardSections(s);
+  const stageSections = s.design.stageKind === 'output' ? [...outputCardSections(s), ...targetSections(s), ...voltagePartsSections(s)] : voltageCardSections(s);
   return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections];
+}
+
+/** The builder's targets, each with how the stage on the bench meets it. */
+function targetSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
+  const v = s.verdict;
+  if (!v?.ok || Object.keys(v.margins).length === 0) return [];
+  return [{ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${TARGET_LABELS[k]} ${targetValueWords(k, v.values[k])}, ${marginWords(v.margins[k]!)}`) }];
 }
 
 /** With the output stage on the bench, the voltage stages that drive it still go on the card: each one's parts, with their own ratings. */
@@ -67,11 +74,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       ],
     },
   ];
-  // The builder's targets, each with how this design meets it.
-  if (s.verdict?.ok && Object.keys(s.verdict.margins).length > 0) {
-    const v = s.verdict;
-    sections.push({ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${TARGET_LABELS[k]} ${targetValueWords(k, v.values[k])}, ${marginWords(v.margins[k]!)}`) });
-  }
+  sections.push(...targetSections(s));
   const chain = sig.chain?.ok ? sig.chain : null;
   const link = chain?.links[1];
   if (chain && link) {

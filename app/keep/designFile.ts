@@ -190,7 +190,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     cout: d.cout as number | null,
     levelRms: d.levelRms as number,
     thdLimit: (d.thdLimit as number | undefined) ?? TABLE_THD,
-    targets: (d.targets as TargetPlan | undefined) ?? NO_TARGETS,
+    targets: { ...NO_TARGETS, ...(d.targets as Partial<TargetPlan> | undefined) },
     stage2: {
       kind: s2.kind as Stage2Design['kind'],
       tubeId: knownId(s2.tubeId as string),

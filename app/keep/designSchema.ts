@@ -59,6 +59,11 @@ export const BENCH_STAGE = v.object({
       rkMax: rangedOrNull(L.targets.ohms),
       minGridHeadroom: rangedOrNull(L.targets.headroom),
       heaterCathodeWithinRating: yesNo(),
+      // Came later within version 3 (the output stage's targets): absent, off.
+      minPowerW: v.optional(rangedOrNull(L.targets.power)),
+      powerThd: v.optional(rangedOrNull(L.targets.thd)),
+      thdPowerW: v.optional(rangedOrNull(L.targets.power)),
+      maxThdAtPower: v.optional(rangedOrNull(L.targets.thd)),
     }),
   ),
   stage2: section({

@@ -11,6 +11,9 @@ import { attachOutputDrag } from './attachOutputDrag';
 import { drawOutputOverlay } from './drawOutputOverlay';
 import { DESIGN_LIMITS } from '../store/designLimits';
 import { benchPoint } from '../store/outputAnalysis';
+import { currentOutputRegion } from '../store/outputTargets';
+import { drawRegion, targetsWithEdges } from '../targets/drawRegion';
+import { RegionHatch } from '../targets/RegionHatch';
 
 /** Arrow keys move the point by 1 % of the window (5 % with Shift); on the load handle they change Zpri by 2 % (10 %). */
 const STEP = 0.01;
@@ -36,6 +39,12 @@ export function OutputChart() {
   const point = useRef<SVGGElement>(null);
   const loadHandle = useRef<SVGGElement>(null);
   const rivalPoint = useRef<SVGGElement>(null);
+  const regionLayer = useRef<SVGGElement>(null);
+  const region = useWorkbench(currentOutputRegion);
+  useEffect(() => {
+    if (regionLayer.current) drawRegion(regionLayer.current, region, scales);
+  }, [region, scales]);
+  const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
 
   useEffect(() => {
     const nodes = { lines: lines.current!, point: point.current!, loadHandle: loadHandle.current!, rivalPoint: rivalPoint.current! };
@@ -112,7 +121,9 @@ export function OutputChart() {
         role="group"
         aria-label={pair ? `Plate curves of one ${tubeId} of the push-pull pair with its composite load lines, the path it takes at full drive and its operating point` : `Plate curves of the ${tubeId} output stage with its load lines and operating point`}
       >
+        <RegionHatch />
         <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
+        <g ref={regionLayer} className="layer-region" pointerEvents="none" />
         <g ref={lines} className="layer-lines" pointerEvents="none" />
         <g ref={rivalPoint} className="handle-rival fixed" role="img" aria-label={`Operating point of the ${rivalId ?? 'second tube'} with the same parts`} visibility="hidden">
           <RivalMark />
@@ -142,7 +153,7 @@ export function OutputChart() {
         </g>
       </svg>
       <CurveDensity />
-      <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} />
+      <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} region={regionKeys} readout={false} />
     </div>
   );
 }

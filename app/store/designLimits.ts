@@ -34,6 +34,7 @@ export const DESIGN_LIMITS = {
     dissipation: limit(0.01, 1.5, ''),
     ohms: limit(1, 100e6, 'Ω'),
     headroom: limit(1e-3, 1000, 'V'),
+    power: limit(0.01, 2000, 'W'),
   },
   stage2: {
     ra: limit(100, 10e6, 'Ω'),

@@ -1,6 +1,8 @@
 import type { StateCreator } from 'zustand/vanilla';
 import type { Failure } from '../../src/index';
-import { designAtPlanePoint, followerRkFor, nearestPreferred, nearestReachable, preferredAround, solveStage } from '../../src/index';
+import { designAtPlanePoint, findOutputTube, followerRkFor, nearestPreferred, nearestReachable, preferredAround, solveOutput, solvePushPull, solveStage } from '../../src/index';
+import { pushPullDesignOf } from './outputPlan';
+import { currentOutputRegion } from './outputTargets';
 import { stageDesignOf } from './analysis';
 import type { BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
@@ -57,6 +59,25 @@ function snappedInside(s: WorkbenchState): { ra: number; rk: number } | null {
   for (const p of pairs.sort((a, b) => cost(a) - cost(b))) {
     const sol = solveStage({ ...base, ra: p.ra, rk: p.rk });
     if (sol.ok && failingAt(region, sol.op.vpk, sol.op.ia)?.length === 0) return p;
+  }
+  return null;
+}
+
+/**
+ * The output stage's release held inside its target region: the preferred
+ * cathode resistor (the nearest or its neighbour) whose idle point is still
+ * inside; null when none is, the bias is fixed, or the drag is not held.
+ */
+function snappedOutputInside(s: WorkbenchState, o: BenchDesign['output']): number | null {
+  const region = s.keepInside ? currentOutputRegion(s) : null;
+  const tube = findOutputTube(o.tubeId);
+  if (!region || !tube || o.bias !== 'cathode') return null;
+  const candidates = preferredAround(o.rk, s.design.series).sort((a, b) => Math.abs(Math.log(a / o.rk)) - Math.abs(Math.log(b / o.rk)));
+  for (const rk of candidates) {
+    const d = { ...o, rk };
+    const idle = o.pair === 'push-pull' ? solvePushPull(tube, pushPullDesignOf(d)) : solveOutput(tube, d);
+    const at = !idle.ok ? null : 'idle' in idle ? idle.idle[0] : { vpk: idle.op.vpk, ip: idle.op.ip };
+    if (at && failingAt(region, at.vpk, at.ip)?.length === 0) return rk;
   }
   return null;
 }
@@ -149,7 +170,8 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     } else if (was === 'output-point') {
       // Release: B+ to the volt, the bias to a preferred resistor or a tenth of a volt, and the full analysis.
       const o = s.design.output;
-      const patch = o.bias === 'cathode' && s.design.snap ? { rk: nearestPreferred(o.rk, s.design.series) } : o.bias === 'fixed' ? { vg: Math.round(o.vg * 10) / 10 } : {};
+      const rounded = { ...o, bplus: Math.round(o.bplus) };
+      const patch = o.bias === 'cathode' && s.design.snap ? { rk: snappedOutputInside(s, rounded) ?? nearestPreferred(o.rk, s.design.series) } : o.bias === 'fixed' ? { vg: Math.round(o.vg * 10) / 10 } : {};
       // Unpinned (force): the window follows the new B+.
       if (s.commit({ ...s.design, output: { ...o, ...patch, bplus: Math.round(o.bplus) } }, { force: true }) !== null) s.commit(s.design, { force: true });
     } else if (was === 'follower-point') {

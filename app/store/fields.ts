@@ -9,7 +9,8 @@ export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
-  | 'tGain' | 'tClean' | 'tThdLevel' | 'tThd' | 'tDiss' | 'tZout' | 'tRaMin' | 'tRaMax' | 'tRkMin' | 'tRkMax' | 'tHeadroom';
+  | 'tGain' | 'tClean' | 'tThdLevel' | 'tThd' | 'tDiss' | 'tZout' | 'tRaMin' | 'tRaMax' | 'tRkMin' | 'tRkMax' | 'tHeadroom'
+  | 'tPower' | 'tPowerThd' | 'tThdPower' | 'tThdAtPower';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
@@ -143,6 +144,10 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   tRkMin: { label: 'Lowest Rk', unit: 'Ω', example: 'off, e.g. 680', read: optional(ranged('Rk', L.targets.ohms)), show: showOptional(compact), ...target('rkMin') },
   tRkMax: { label: 'Highest Rk', unit: 'Ω', example: 'off, e.g. 3k3', read: optional(ranged('Rk', L.targets.ohms)), show: showOptional(compact), ...target('rkMax') },
   tHeadroom: { label: 'Least grid swing', unit: 'V peak', example: 'off, e.g. 2', read: optional(ranged('Grid swing', L.targets.headroom)), show: showOptional(compact), ...target('minGridHeadroom') },
+  tPower: { label: 'Least power', unit: 'W', example: 'off, e.g. 8', read: optional(ranged('Power', L.targets.power)), show: showOptional(compact), ...target('minPowerW') },
+  tPowerThd: { label: 'within THD', unit: '%', example: 'off, e.g. 5', read: optional(percent('THD', L.targets.thd)), show: showPercent, ...target('powerThd') },
+  tThdPower: { label: 'THD measured at', unit: 'W', example: 'off, e.g. 1', read: optional(ranged('Power', L.targets.power)), show: showOptional(compact), ...target('thdPowerW') },
+  tThdAtPower: { label: 'Most THD there', unit: '%', example: 'off, e.g. 2', read: optional(percent('THD', L.targets.thd)), show: showPercent, ...target('maxThdAtPower') },
 };
 
 export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

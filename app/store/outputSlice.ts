@@ -6,6 +6,8 @@ import { analyzeOutputBench, type OutputBench, type OutputRival } from './output
 import type { WorkbenchState } from './workbenchStore';
 import { DEMO_DESIGN } from './demoDesign';
 import { DESIGN_LIMITS, within } from './designLimits';
+import { currentOutputRegion } from './outputTargets';
+import { nearestInside } from './regionSlice';
 
 /**
  * The transformer-coupled output stage. Its design lives in the bench design
@@ -135,8 +137,13 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const s = get();
     const d = s.design.output;
     const { vmax, iaMax } = s.outputBench.analysis.sheet.extent;
-    const v = Math.min(Math.max(vpk, 10), vmax);
-    const i = Math.min(Math.max(ip, iaMax * 0.005), iaMax);
+    const v0 = Math.min(Math.max(vpk, 10), vmax);
+    const i0 = Math.min(Math.max(ip, iaMax * 0.005), iaMax);
+    // Held inside the target region when asked (and the region is worked out for this very stage).
+    const region = s.keepInside ? currentOutputRegion(s) : null;
+    const held = region ? nearestInside(region, v0, i0) : null;
+    const v = held?.vpk ?? v0;
+    const i = held?.ia ?? i0;
     const b = biasFor(s.outputBench, d, v, i);
     if (!b.ok) {
       set({ dragNote: b.message });
@@ -145,7 +152,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const bplus = within(b.bplus, DESIGN_LIMITS.output.bplus);
     const patch: Partial<OutputPlan> = d.bias === 'cathode' ? { bplus, rk: Math.max(1, b.rk) } : { bplus, vg: b.vgk };
     const failure = s.changeOutput(patch, { light: true });
-    set({ dragNote: failure ? failure.message : null });
+    set({ dragNote: failure ? failure.message : held && (held.vpk !== v0 || held.ia !== i0) ? 'Held inside the target region.' : null });
   },
 
   placeOutputPoint: (vpk, ip) => {

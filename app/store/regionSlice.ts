@@ -1,5 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { feasibleRegion, followerRegion, judgeDesign, judgeFollower, rankFollowers, rankTubes, type DesignVerdict, type FeasibleRegion, type FollowerRegion, type FollowerTargetStage, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { feasibleRegion, followerRegion, judgeDesign, judgeFollower, judgeOutput, outputRegion, rankFollowers, rankOutputTubes, rankTubes, type DesignVerdict, type FeasibleRegion, type FollowerRegion, type FollowerTargetStage, type OutputRank, type OutputRegion, type OutputTargetStage, type PlaneRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { outputRequestOf } from './outputTargets';
 import { DESIGN_LIMITS } from './designLimits';
 import { loadAfterBench } from './stagePlans';
 import { lookupTube } from '../keep/customTubes';
@@ -14,6 +15,9 @@ export interface RegionSolver {
   /** A follower's targets along its line, and every tube as that follower. */
   followerRegion(stage: FollowerTargetStage, targets: Targets, samples: number, rkRange: readonly [number, number]): Promise<Result<FollowerRegion>>;
   rankFollowers(targets: Targets, stage: Omit<FollowerTargetStage, 'tube'>, tubes: readonly TubeRecord[]): Promise<Result<{ ranks: TubeRank[] }>>;
+  /** An output stage's targets over its plate plane, and every output tube in its socket. */
+  outputRegion(stage: OutputTargetStage, targets: Targets, grid: RegionGrid): Promise<Result<OutputRegion>>;
+  rankOutputs(targets: Targets, stage: Omit<OutputTargetStage, 'tube'>): Promise<Result<{ ranks: OutputRank[] }>>;
 }
 
 /** The model's own calls, run on the page's thread: for tests and platforms with no workers. */
@@ -22,6 +26,8 @@ export const inPlaceRegionSolver: RegionSolver = {
   rank: async (targets, stage, tubes) => rankTubes(targets, stage, tubes),
   followerRegion: async (stage, targets, samples, rkRange) => followerRegion(stage, targets, samples, rkRange),
   rankFollowers: async (targets, stage, tubes) => rankFollowers(targets, stage, tubes),
+  outputRegion: async (stage, targets, grid) => outputRegion(stage, targets, grid),
+  rankOutputs: async (targets, stage) => rankOutputTubes(targets, stage),
 };
 
 /** Samples along a follower's line for its targets: a point every few pixels at chart sizes. */
@@ -49,6 +55,17 @@ export interface RankingView {
   readonly result: Result<{ ranks: TubeRank[] }> | null;
 }
 
+export interface OutputRegionView {
+  readonly key: string;
+  readonly result: Result<OutputRegion>;
+  readonly complete: boolean;
+}
+
+export interface OutputRankingView {
+  readonly key: string;
+  readonly result: Result<{ ranks: OutputRank[] }> | null;
+}
+
 export interface RegionSlice {
   region: RegionView | null;
   /** With the follower on the bench: where along its line its targets hold. */
@@ -56,6 +73,11 @@ export interface RegionSlice {
   /** The design on the bench held against its targets (null with no targets, or on the output bench); kept from before while dragging. */
   verdict: Result<DesignVerdict> | null;
   ranking: RankingView | null;
+  /** With the output stage on the bench: where on its plane its targets hold, and every output tube ranked in its socket. */
+  outputRegion: OutputRegionView | null;
+  outputRanking: OutputRankingView | null;
+  /** Takes a ranked output tube at its best bias and B+. */
+  takeOutputRank: (rank: OutputRank) => void;
   /** While on, a drag of the operating point stays inside the region. */
   keepInside: boolean;
   setKeepInside: (on: boolean) => void;
@@ -87,7 +109,7 @@ export function regionRequestOf(s: WorkbenchState): { key: string; stage: Region
 export function followerRequestOf(s: WorkbenchState): { key: string; stage: FollowerTargetStage; targets: Targets } | null {
   const d = s.design;
   const f = s.followerBench;
-  if (d.stageKind !== 'follower' || !f || !anyTarget(d.targets)) return null;
+  if (d.stageKind !== 'follower' || !f || !anyTarget(d.targets, 'follower')) return null;
   const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl };
   const targets = targetsOf(d.targets);
   return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, targets]), stage, targets };
@@ -103,7 +125,7 @@ export function currentFollowerRegion(s: WorkbenchState): FollowerRegion | null 
 }
 
 /** The cell of the region a plate-plane point falls in, or null outside the grid. */
-export function regionCellAt(r: FeasibleRegion, vpk: number, ia: number): { i: number; j: number } | null {
+export function regionCellAt(r: PlaneRegion, vpk: number, ia: number): { i: number; j: number } | null {
   const dv = r.va.length > 1 ? r.va[1]! - r.va[0]! : 0;
   const di = r.ia.length > 1 ? r.ia[1]! - r.ia[0]! : 0;
   if (!(dv > 0 && di > 0)) return null;
@@ -113,7 +135,7 @@ export function regionCellAt(r: FeasibleRegion, vpk: number, ia: number): { i: n
 }
 
 /** The targets failing at a plate-plane point (empty inside the region), or null where the region does not reach. */
-export function failingAt(r: FeasibleRegion, vpk: number, ia: number): readonly string[] | null {
+export function failingAt(r: PlaneRegion, vpk: number, ia: number): readonly string[] | null {
   const c = regionCellAt(r, vpk, ia);
   return c ? r.failing[c.i]![c.j]! : null;
 }
@@ -124,7 +146,7 @@ export function failingAt(r: FeasibleRegion, vpk: number, ia: number): readonly 
  * it is inside, else the centre of the nearest inside cell; null when no
  * cell is inside.
  */
-export function nearestInside(r: FeasibleRegion, vpk: number, ia: number): { vpk: number; ia: number } | null {
+export function nearestInside(r: PlaneRegion, vpk: number, ia: number): { vpk: number; ia: number } | null {
   const here = regionCellAt(r, vpk, ia);
   if (here && r.inside[here.i]![here.j]) return { vpk, ia };
   const dv = r.va[1]! - r.va[0]!;
@@ -147,6 +169,8 @@ export const createRegionSlice =
     followerRegion: null,
     verdict: null,
     ranking: null,
+    outputRegion: null,
+    outputRanking: null,
     keepInside: false,
     setKeepInside: (on) => set({ keepInside: on }),
     setHeaterTarget: (on) => {
@@ -158,6 +182,16 @@ export const createRegionSlice =
       get().commit({ ...d, targets: NO_TARGETS });
     },
     rankTubesNow: () => {
+      const output = outputRequestOf(get());
+      if (output) {
+        const { tube: _t, ...stage } = output.stage;
+        const key = JSON.stringify(['output', stage, output.targets]);
+        set({ outputRanking: { key, result: null } });
+        void solver.rankOutputs(output.targets, stage).then((result) => {
+          if (get().outputRanking?.key === key) set({ outputRanking: { key, result } });
+        });
+        return;
+      }
       const follower = followerRequestOf(get());
       if (follower) {
         const { tube: _t, ...stage } = follower.stage;
@@ -191,7 +225,18 @@ export const createRegionSlice =
       const d = get().design;
       get().commit({ ...d, ra: rank.ra, rk: rank.rk });
     },
+    takeOutputRank: (rank) => {
+      const s = get();
+      s.chooseOutputTube(rank.tubeId);
+      if (get().design.output.tubeId === rank.tubeId) get().placeOutputPoint(rank.vpk, rank.ip);
+    },
     moveToBest: () => {
+      if (get().design.stageKind === 'output') {
+        const o = get().outputRegion;
+        const r = o?.result.ok ? o.result : null;
+        if (r?.best) get().placeOutputPoint(r.va[r.best.i]!, r.ia[r.best.j]!);
+        return;
+      }
       const f = currentFollowerRegion(get());
       if (get().design.stageKind === 'follower') {
         const d = get().design;
@@ -223,6 +268,18 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
     try {
       do {
         waiting = false;
+        const output = outputRequestOf(store.getState());
+        if (output) {
+          if (store.getState().outputRegion?.key === output.key && store.getState().outputRegion?.complete) break;
+          for (const [grid, complete] of [[COARSE_GRID, false], [FULL_GRID, true]] as const) {
+            const result = await solver.outputRegion(output.stage, output.targets, { ...grid, extent: output.extent });
+            if (outputRequestOf(store.getState())?.key !== output.key) break;
+            store.setState({ outputRegion: { key: output.key, result, complete } });
+            if (waiting) break;
+          }
+          continue;
+        }
+        if (store.getState().outputRegion) store.setState({ outputRegion: null });
         const follower = followerRequestOf(store.getState());
         if (follower) {
           if (store.getState().region) store.setState({ region: null });
@@ -251,6 +308,11 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
   };
   /** The design on the bench against its targets: on every change that is not a drag frame (the drag's release judges it). */
   const judge = (s: WorkbenchState) => {
+    const output = outputRequestOf(s);
+    if (output) {
+      store.setState({ verdict: judgeOutput(output.stage, output.targets) });
+      return;
+    }
     const follower = followerRequestOf(s);
     if (follower) {
       store.setState({ verdict: judgeFollower(follower.stage, s.design.stage2.rk, follower.targets) });
@@ -264,8 +326,13 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
   store.subscribe((s, prev) => {
     if ((s.design !== prev.design && !s.dragging) || (prev.dragging && !s.dragging)) judge(s);
     // A drag of the point moves only Ra and Rk, which the region is a map of: nothing to ask for on its frames.
-    if (s.dragging === 'point' || s.dragging === 'follower-point') return;
-    if (s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent || s.followerBench !== prev.followerBench || (prev.dragging && !s.dragging)) {
+    if (s.dragging === 'point' || s.dragging === 'follower-point' || s.dragging === 'output-point') return;
+    if (s.design !== prev.design || s.analysis.sheet.extent !== prev.analysis.sheet.extent || s.outputBench !== prev.outputBench || s.followerBench !== prev.followerBench || (prev.dragging && !s.dragging)) {
+      const output = outputRequestOf(s);
+      if (output || s.outputRegion) {
+        if (output?.key !== s.outputRegion?.key || !output) void run();
+        if (output) return;
+      }
       const follower = followerRequestOf(s);
       if (follower) {
         if (follower.key !== s.followerRegion?.key) void run();

@@ -1,4 +1,4 @@
-import type { Targets } from '../../src/index';
+import { activeTargets, type Targets, type TargetStageKind } from '../../src/index';
 
 /**
  * The targets as the bench holds them: each box empty (null) or a value, in
@@ -19,11 +19,18 @@ export interface TargetPlan {
   readonly rkMax: number | null;
   readonly minGridHeadroom: number | null;
   readonly heaterCathodeWithinRating: boolean;
+  /** Output stages: at least `minPowerW` (W) within `powerThd` (a fraction): both set, or the target is off. */
+  readonly minPowerW: number | null;
+  readonly powerThd: number | null;
+  /** Output stages: THD at most `maxThdAtPower` (a fraction) at `thdPowerW` (W): both set, or the target is off. */
+  readonly thdPowerW: number | null;
+  readonly maxThdAtPower: number | null;
 }
 
 export const NO_TARGETS: TargetPlan = Object.freeze({
   minGain: null, minCleanOutputRms: null, thdLevelRms: null, maxThd: null, maxDissipationFraction: null, maxZout: null,
   raMin: null, raMax: null, rkMin: null, rkMax: null, minGridHeadroom: null, heaterCathodeWithinRating: false,
+  minPowerW: null, powerThd: null, thdPowerW: null, maxThdAtPower: null,
 });
 
 /** A range from two optional ends: one end alone leaves the other open. */
@@ -44,8 +51,10 @@ export function targetsOf(p: TargetPlan): Targets {
     ...(rk ? { rkRange: rk } : {}),
     ...(p.minGridHeadroom !== null ? { minGridHeadroom: p.minGridHeadroom } : {}),
     ...(p.heaterCathodeWithinRating ? { heaterCathodeWithinRating: true } : {}),
+    ...(p.minPowerW !== null && p.powerThd !== null ? { minPower: { power: p.minPowerW, thd: p.powerThd } } : {}),
+    ...(p.thdPowerW !== null && p.maxThdAtPower !== null ? { maxThdAtPower: { power: p.thdPowerW, thd: p.maxThdAtPower } } : {}),
   };
 }
 
-/** True when at least one target is set. */
-export const anyTarget = (p: TargetPlan) => Object.keys(targetsOf(p)).length > 0;
+/** True when at least one target is set that says something of this kind of stage. */
+export const anyTarget = (p: TargetPlan, kind: TargetStageKind = 'voltage') => activeTargets(targetsOf(p), kind).length > 0;

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { TARGET_LABELS, type FeasibleRegion, type FollowerRegion, type TargetName } from '../../src/index';
+import { TARGET_LABELS, type FeasibleRegion, type FollowerRegion, type OutputRegion, type PlaneRegion, type TargetName } from '../../src/index';
 import { ohms, plain } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
@@ -16,7 +16,9 @@ import { targetValueWords } from './targetValue';
 export function TargetsPanel() {
   const heater = useWorkbench((s) => s.design.targets.heaterCathodeWithinRating);
   const keepInside = useWorkbench((s) => s.keepInside);
-  const region = useWorkbench((s) => s.region);
+  const output = useWorkbench((s) => s.design.stageKind === 'output');
+  const cathodeBias = useWorkbench((s) => s.design.output.bias === 'cathode');
+  const region = useWorkbench((s) => (s.design.stageKind === 'output' ? s.outputRegion : s.region));
   const follower = useWorkbench((s) => s.design.stageKind === 'follower');
   const along = useWorkbench((s) => s.followerRegion);
   const verdict = useWorkbench((s) => s.verdict);
@@ -25,7 +27,8 @@ export function TargetsPanel() {
   const moveToBest = useWorkbench((s) => s.moveToBest);
   const clearTargets = useWorkbench((s) => s.clearTargets);
   const id = useId();
-  const r = region?.result.ok ? region.result : null;
+  const r = !output && region?.result.ok ? (region.result as FeasibleRegion) : null;
+  const o = output && region?.result.ok ? (region.result as OutputRegion) : null;
   const f = follower && along?.result.ok ? along.result : null;
   const anySet = region !== null || (follower && along !== null);
   return (
@@ -34,8 +37,23 @@ export function TargetsPanel() {
       <p className="panel-note">
         {follower
           ? 'Leave a box empty to leave that target out. With its grid held by the plate before it, the follower\'s Rk moves it along one line: the chart marks the stretches of that line where all of them hold. Ra\'s range does not apply to a follower.'
-          : 'Leave a box empty to leave that target out. The chart hatches every operating point (at this B+ and load) where all of them hold.'}
+          : output
+            ? 'Leave a box empty to leave that target out. Each point of the chart is an idle point the bias and B+ can give the tube at this load: the chart hatches those where every target holds. Power and THD are into the primary\'s load; output impedance is at the speaker.'
+            : 'Leave a box empty to leave that target out. The chart hatches every operating point (at this B+ and load) where all of them hold.'}
       </p>
+      {output ? (
+        <div className="value-grid targets-grid">
+          <ValueField field="tPower" />
+          <ValueField field="tPowerThd" />
+          <ValueField field="tThdAtPower" />
+          <ValueField field="tThdPower" />
+          <ValueField field="tDiss" hint="at idle" />
+          <ValueField field="tZout" hint="at the speaker" />
+          {cathodeBias ? <ValueField field="tRkMin" /> : null}
+          {cathodeBias ? <ValueField field="tRkMax" /> : null}
+          <ValueField field="tHeadroom" hint="to grid current or cutoff, whichever is nearer" />
+        </div>
+      ) : (
       <div className="value-grid targets-grid">
         <ValueField field="tGain" />
         <ValueField field="tClean" />
@@ -49,6 +67,7 @@ export function TargetsPanel() {
         <ValueField field="tRkMax" />
         <ValueField field="tHeadroom" hint="to grid current or cutoff, whichever is nearer" />
       </div>
+      )}
       <label className="option-row">
         <input type="checkbox" checked={heater} onChange={(e) => setHeaterTarget(e.target.checked)} /> Heater–cathode voltage within the rating (heater at ground)
       </label>
@@ -67,13 +86,14 @@ export function TargetsPanel() {
           : region === null ? 'No targets set.' : !region.result.ok ? region.result.message : summary(region.result, region.complete)}
       </p>
       <div className="button-row">
-        <button type="button" onClick={moveToBest} disabled={!(r?.best || f?.best)}>Move to the best point</button>
+        <button type="button" onClick={moveToBest} disabled={!(r?.best || f?.best || o?.best)}>Move to the best point</button>
         <label>
-          <input type="checkbox" checked={keepInside} onChange={(e) => setKeepInside(e.target.checked)} disabled={!r && !f} /> Keep the point inside the region while dragging
+          <input type="checkbox" checked={keepInside} onChange={(e) => setKeepInside(e.target.checked)} disabled={!r && !f && !o} /> Keep the point inside the region while dragging
         </label>
         <button type="button" onClick={clearTargets} disabled={!anySet}>Clear targets</button>
       </div>
-      {!follower && r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.`}</p> : null}
+      {output && o?.best ? <p className="region-best">{`Best point: B+ ${plain(o.best.parts.bplus)} V, ${cathodeBias ? `Rk ${ohms(o.best.parts.rk)}` : `grid ${plain(o.best.parts.vg)} V`}; weakest target ${o.best.weakest ? `${TARGET_LABELS[o.best.weakest]}, ${marginWords(o.best.score)}` : 'none'}.`}</p> : null}
+      {!follower && !output && r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.`}</p> : null}
       {f?.best ? <p className="region-best">{`Best point: Rk ${ohms(f.best.rk)}; weakest target ${f.best.weakest ? `${TARGET_LABELS[f.best.weakest]}, ${marginWords(f.best.score)}` : 'none'}.`}</p> : null}
       {anySet ? <TubeRanking /> : null}
     </section>
@@ -91,7 +111,7 @@ function followerSummary(r: FollowerRegion): string {
 }
 
 /** The region in a sentence: its size, or why it is empty and how near the best point comes. */
-function summary(r: FeasibleRegion, complete: boolean): string {
+function summary(r: PlaneRegion, complete: boolean): string {
   let inside = 0;
   let reachable = 0;
   for (let i = 0; i < r.va.length; i++) for (let j = 0; j < r.ia.length; j++) {

@@ -1,5 +1,5 @@
 import { select } from 'd3';
-import { TARGET_LABELS, TARGET_NAMES, UNREACHABLE, type FeasibleRegion, type TargetName } from '../../src/index';
+import { TARGET_LABELS, TARGET_NAMES, UNREACHABLE, type PlaneRegion, type TargetName } from '../../src/index';
 import { TARGET_DASH } from './targetStrokes';
 import type { PlateScales } from '../chart/plateScales';
 import { PALETTE } from '../chart/palette';
@@ -12,7 +12,7 @@ export const REGION_HATCH_ID = 'target-region-hatch';
  * hatched, and the best point ringed. Cells are drawn as the model gave them;
  * nothing is computed here beyond placing them.
  */
-export function drawRegion(layer: SVGGElement, region: FeasibleRegion | null, scales: PlateScales): void {
+export function drawRegion(layer: SVGGElement, region: PlaneRegion | null, scales: PlateScales): void {
   const g = select(layer);
   g.selectAll('*').remove();
   if (!region || region.va.length < 2 || region.ia.length < 2) return;
@@ -52,7 +52,7 @@ export function ringBest(layer: SVGGElement, x: number, y: number): void {
 }
 
 /** The targets whose edge crosses the region's grid: those that hold at some reachable points and fail at others. */
-export function targetsWithEdges(region: FeasibleRegion): TargetName[] {
+export function targetsWithEdges(region: PlaneRegion): TargetName[] {
   const seen = new Set<string>();
   for (const column of region.failing) for (const cell of column) for (const k of cell) seen.add(k);
   return TARGET_NAMES.filter((k) => seen.has(k) && region.failing.some((column) => column.some((cell) => cell[0] !== UNREACHABLE && !cell.includes(k))));
@@ -63,7 +63,7 @@ export function targetsWithEdges(region: FeasibleRegion): TargetName[] {
  * fails on the other (both cells reachable), in its dash pattern, named once
  * at the middle of its run of borders. Where every target holds is the hatch.
  */
-function drawTargetEdges(g: ReturnType<typeof select<SVGGElement, unknown>>, region: FeasibleRegion, scales: PlateScales, dv: number, di: number): void {
+function drawTargetEdges(g: ReturnType<typeof select<SVGGElement, unknown>>, region: PlaneRegion, scales: PlateScales, dv: number, di: number): void {
   const fails = (i: number, j: number, k: string) => region.failing[i]![j]!.includes(k);
   const reach = (i: number, j: number) => region.failing[i]![j]![0] !== UNREACHABLE;
   for (const k of targetsWithEdges(region)) {

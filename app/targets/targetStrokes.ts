@@ -15,4 +15,6 @@ export const TARGET_DASH: Readonly<Record<TargetName, string>> = {
   rkRange: '3 6',
   minGridHeadroom: '6 2 6 6',
   heaterCathodeWithinRating: '1 5 6 5',
+  minPower: '10 2 2 2',
+  maxThdAtPower: '5 3 1 3 1 3',
 };

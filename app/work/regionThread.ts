@@ -17,5 +17,7 @@ export function regionThread(): RegionSolver {
     rank: (targets, stage, tubes) => worker().rankTubes(targets, stage, tubes),
     followerRegion: (stage, targets, samples, rkRange) => worker().followerRegion(stage, targets, samples, rkRange),
     rankFollowers: (targets, stage, tubes) => worker().rankFollowers(targets, stage, tubes),
+    outputRegion: (stage, targets, grid) => worker().outputRegion(stage, targets, grid),
+    rankOutputs: (targets, stage) => worker().rankOutputTubes(targets, stage),
   };
 }

@@ -34,10 +34,8 @@ export interface FollowerTargetStage {
   readonly rl: number;
 }
 
-/** Targets that say nothing of a follower: it has no plate resistor. */
-const NOT_FOR_FOLLOWERS: readonly TargetName[] = ['raRange'];
-
-export const followerTargetsOf = (targets: Targets): TargetName[] => activeTargets(targets).filter((k) => !NOT_FOR_FOLLOWERS.includes(k));
+/** The targets set that say something of a follower (not Ra's range: it has no plate resistor). */
+export const followerTargetsOf = (targets: Targets): TargetName[] => activeTargets(targets, 'follower');
 
 const unreachable = UNREACHABLE_VERDICT;
 

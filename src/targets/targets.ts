@@ -23,12 +23,31 @@ export interface Targets {
   readonly minGridHeadroom?: number;
   /** The cathode's voltage to a grounded heater within the tube's heater–cathode rating. */
   readonly heaterCathodeWithinRating?: boolean;
+  /** Output stages: the least power into the load (W) with THD at most `thd` (a fraction) and the grid never driven past 0 V. */
+  readonly minPower?: { readonly power: number; readonly thd: number };
+  /** Output stages: the most THD (a fraction) at an output power, W, the power within reach before grid current. */
+  readonly maxThdAtPower?: { readonly power: number; readonly thd: number };
 }
 
 export type TargetName = keyof Targets;
 
 /** Every target, in the order the bench lists them. */
-export const TARGET_NAMES: readonly TargetName[] = ['minGain', 'minCleanOutputRms', 'maxThdAt', 'maxDissipationFraction', 'maxZout', 'raRange', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'];
+export const TARGET_NAMES: readonly TargetName[] = ['minGain', 'minCleanOutputRms', 'maxThdAt', 'minPower', 'maxThdAtPower', 'maxDissipationFraction', 'maxZout', 'raRange', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'];
+
+/** What a stage on the bench is, as far as targets go. */
+export type TargetStageKind = 'voltage' | 'follower' | 'output';
+
+/**
+ * The targets that say something of each kind of stage. A follower has no
+ * plate resistor; an output stage is judged by its power and distortion
+ * into the speaker (not a voltage gain or level), has no plate resistor,
+ * and its output impedance is the one the speaker sees.
+ */
+export const TARGETS_OF_KIND: Readonly<Record<TargetStageKind, readonly TargetName[]>> = {
+  voltage: ['minGain', 'minCleanOutputRms', 'maxThdAt', 'maxDissipationFraction', 'maxZout', 'raRange', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
+  follower: ['minGain', 'minCleanOutputRms', 'maxThdAt', 'maxDissipationFraction', 'maxZout', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
+  output: ['minPower', 'maxThdAtPower', 'maxDissipationFraction', 'maxZout', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
+};
 
 /** Each target in a builder's words, for keys, readouts and messages. */
 export const TARGET_LABELS: Readonly<Record<TargetName, string>> = {
@@ -41,11 +60,14 @@ export const TARGET_LABELS: Readonly<Record<TargetName, string>> = {
   rkRange: 'Rk range',
   minGridHeadroom: 'grid headroom',
   heaterCathodeWithinRating: 'heater–cathode',
+  minPower: 'power',
+  maxThdAtPower: 'THD at power',
 };
 
-/** The targets that are set, in TARGET_NAMES order. */
-export function activeTargets(t: Targets): TargetName[] {
-  return TARGET_NAMES.filter((k) => t[k] !== undefined && t[k] !== false);
+/** The targets that are set and say something of this kind of stage (a gain stage unless named), in TARGET_NAMES order. */
+export function activeTargets(t: Targets, kind: TargetStageKind = 'voltage'): TargetName[] {
+  const applies = TARGETS_OF_KIND[kind];
+  return TARGET_NAMES.filter((k) => t[k] !== undefined && t[k] !== false && applies.includes(k));
 }
 
 const positive = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x) && x > 0;
@@ -61,6 +83,11 @@ export function targetsProblem(t: unknown): Failure | null {
   if (x.maxThdAt !== undefined) {
     const m = x.maxThdAt as { outputRms?: unknown; thd?: unknown } | null;
     if (typeof m !== 'object' || m === null || !positive(m.outputRms) || !positive(m.thd) || !(m.thd < 1)) return bad('maxThdAt', 'give a level above 0 V rms and a THD between 0 and 1, as 0.01 for 1 %', m === null || typeof m !== 'object' ? m : m.thd);
+  }
+  for (const field of ['minPower', 'maxThdAtPower'] as const) {
+    if (x[field] === undefined) continue;
+    const m = x[field] as { power?: unknown; thd?: unknown } | null;
+    if (typeof m !== 'object' || m === null || !positive(m.power) || !positive(m.thd) || !(m.thd < 1)) return bad(field, 'give a power above 0 W and a THD between 0 and 1, as 0.05 for 5 %', m === null || typeof m !== 'object' ? m : m.thd);
   }
   if (x.maxDissipationFraction !== undefined && !(positive(x.maxDissipationFraction) && x.maxDissipationFraction <= 1.5)) return bad('maxDissipationFraction', 'the share of the rating must be above 0 and at most 1.5', x.maxDissipationFraction);
   if (x.maxZout !== undefined && !positive(x.maxZout)) return bad('maxZout', 'the most output impedance must be above 0 Ω', x.maxZout);

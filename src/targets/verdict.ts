@@ -26,24 +26,42 @@ export interface StageFigures {
   readonly thdAt: (outputRms: number) => number | null;
 }
 
-type SharedFigures = Pick<StageFigures, 'pa' | 'zout' | 'rk' | 'vhk'>;
+/** What every stage kind shares with the targets: plate dissipation, output impedance, Rk and the cathode's voltage to its heater. */
+export type SharedFigures = Pick<StageFigures, 'pa' | 'zout' | 'rk' | 'vhk'>;
+
+/** The ratings the shared targets are held to: plate dissipation, W, and the heater–cathode voltage (cathode positive), V; null where the tube has none. */
+export interface RatedLimits {
+  readonly plateDissipation: number | null;
+  readonly heaterCathode: number | null;
+}
+
+/** A small-signal tube's limits (none for an unknown tube; no heater–cathode rating for a directly heated one). */
+export function limitsOfRecord(rec: TubeRecord | null): RatedLimits {
+  return {
+    plateDissipation: rec ? rec.ratings.maxPlateDissipation : null,
+    heaterCathode: rec && !rec.directlyHeated ? (heaterCathodeRating(rec.ratings)?.cathodePositive ?? null) : null,
+  };
+}
 
 /**
  * The targets every stage kind judges alike (plate dissipation against the
  * rating, output impedance, Rk's range, heater–cathode against its rating):
  * the value and the margin, or null for a target that is not one of these.
+ * A rating the tube does not have is met (margin 0) rather than guessed.
  */
-function sharedMargin(k: TargetName, at: SharedFigures, rec: TubeRecord | null, targets: Targets): { readonly value: number | null; readonly margin: number } | null {
+export function sharedMargin(k: TargetName, at: SharedFigures, limits: RatedLimits, targets: Targets): { readonly value: number | null; readonly margin: number } | null {
   switch (k) {
-    case 'maxDissipationFraction':
-      return rec ? { value: at.pa / rec.ratings.maxPlateDissipation, margin: 1 - at.pa / rec.ratings.maxPlateDissipation / targets.maxDissipationFraction! } : { value: null, margin: 0 };
+    case 'maxDissipationFraction': {
+      const pd = limits.plateDissipation;
+      return pd ? { value: at.pa / pd, margin: 1 - at.pa / pd / targets.maxDissipationFraction! } : { value: null, margin: 0 };
+    }
     case 'maxZout':
       return { value: at.zout, margin: 1 - at.zout / targets.maxZout! };
     case 'rkRange':
       return { value: at.rk, margin: withinRange(at.rk, targets.rkRange!) };
     case 'heaterCathodeWithinRating': {
-      const hk = rec && !rec.directlyHeated ? heaterCathodeRating(rec.ratings) : null;
-      return { value: at.vhk, margin: hk ? 1 - at.vhk / hk.cathodePositive : 0 };
+      const hk = limits.heaterCathode;
+      return { value: at.vhk, margin: hk ? 1 - at.vhk / hk : 0 };
     }
     default:
       return null;
@@ -54,8 +72,9 @@ function sharedMargin(k: TargetName, at: SharedFigures, rec: TubeRecord | null, 
 export function judgeFigures(active: readonly TargetName[], targets: Targets, at: StageFigures, rec: TubeRecord | null): PointVerdict {
   const margins: Partial<Record<TargetName, number>> = {};
   const values: Partial<Record<TargetName, number | null>> = {};
+  const limits = limitsOfRecord(rec);
   for (const k of active) {
-    const common = sharedMargin(k, at, rec, targets);
+    const common = sharedMargin(k, at, limits, targets);
     if (common) {
       values[k] = common.value;
       margins[k] = common.margin;
@@ -100,7 +119,7 @@ export function judgeFigures(active: readonly TargetName[], targets: Targets, at
 }
 
 /** The verdict from each target's margin: held to ±MAX_MARGIN (a denormal target would overflow), the failing ones, the smallest. */
-function verdictOf(active: readonly TargetName[], margins: Partial<Record<TargetName, number>>, values: Partial<Record<TargetName, number | null>>, ra: number, rk: number): PointVerdict {
+export function verdictOf(active: readonly TargetName[], margins: Partial<Record<TargetName, number>>, values: Partial<Record<TargetName, number | null>>, ra: number, rk: number): PointVerdict {
   let score = Infinity;
   const failing: string[] = [];
   for (const k of active) {

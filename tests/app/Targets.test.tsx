@@ -1,10 +1,10 @@
-import { render, screen, waitFor } from '@testing-library/react';
+import { act, render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { stageDesignOf } from '../../app/store/analysis';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { feasibleRegion, findTube, judgeDesign, preferredAround } from '../../src/index';
+import { feasibleRegion, findOutputTube, findTube, judgeDesign, outputRegion, preferredAround } from '../../src/index';
 import { cardSections } from '../../app/export/buildCard';
 import { failingAt } from '../../app/store/regionSlice';
 
@@ -110,4 +110,77 @@ describe('targets on the voltage bench', () => {
     expect(failingAt(region, after.analysis.solution.op.vpk, after.analysis.solution.op.ia)).toEqual([]);
     expect(preferredAround(after.design.ra, after.design.series)[0]).toBe(after.design.ra);
   });
+});
+
+describe('targets on the output bench', () => {
+  /** The output bench with the demo's single-ended EL34, a power target typed (box by box, as a builder does). */
+  async function onOutput(power: string, thd: string) {
+    const s = setup();
+    act(() => s.store.getState().setStageKind('output'));
+    await s.user.type(s.field(/^Least power/), power);
+    await s.user.type(s.field(/^within THD/), thd);
+    await waitFor(() => expect(s.store.getState().outputRegion?.complete).toBe(true));
+    return s;
+  }
+
+  it('a power target hatches the idle points (bias and B+) that meet it at this primary: the model\'s own cells', async () => {
+    const { store, view } = await onOutput('4', '5');
+    const d = store.getState().design.output;
+    expect(store.getState().design.targets).toMatchObject({ minPowerW: 4, powerThd: 0.05 });
+    const { pair: _p, splitter: _s, raa: _r, mismatch: _m, idleMismatch: _i, ...design } = d;
+    const model = outputRegion({ pair: 'single-ended', tube: findOutputTube('EL34')!, design }, { minPower: { power: 4, thd: 0.05 } }, { nx: 60, ny: 40, extent: store.getState().outputBench.analysis.sheet.extent });
+    if (!model.ok) throw new Error(model.message);
+    const inside = model.inside.flat().filter(Boolean).length;
+    expect(inside).toBeGreaterThan(0);
+    expect(view.container.querySelectorAll('.plate-chart [data-region="inside"] rect').length).toBe(inside);
+    expect(screen.getByTestId('region-status').textContent).toMatch(new RegExp(`^${inside} of \\d+ reachable points on the 60 × 40 grid meet every target\\.$`));
+    expect(view.container.querySelector('[data-target-edge="minPower"]')?.getAttribute('d')).toMatch(/^M/);
+    expect(screen.getByText('Edge of the power target')).toBeTruthy();
+    // The gain stage's boxes are not offered here: they say nothing of an output stage.
+    expect(screen.queryByRole('textbox', { name: /^Least gain/ })).toBeNull();
+  }, 20_000);
+
+  it('judges the stage at its idle point, on the panel and the card; the best point is one click away', async () => {
+    const { store, user, view } = await onOutput('4', '5');
+    const v = store.getState().verdict;
+    if (!v?.ok) throw new Error('a verdict');
+    const item = view.container.querySelector('.target-verdicts li[data-target="minPower"]')!;
+    expect(item.textContent).toMatch(new RegExp(`^${v.failing.includes('minPower') ? '✗' : '✓'} Power ${Number(v.values.minPower!.toPrecision(3))} W: `));
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Targets')?.lines[0]).toMatch(/^(Met|MISSED): power [\d.]+ W, /);
+    const region = store.getState().outputRegion!.result;
+    if (!region.ok || !region.best) throw new Error('a best point');
+    await user.click(screen.getByRole('button', { name: 'Move to the best point' }));
+    expect(store.getState().design.output.bplus).toBe(Math.round(region.best.parts.bplus));
+    const op = store.getState().outputBench.analysis.solution;
+    // The snapped Rk moves the point a little; it stays within a cell or two of the best.
+    expect(Math.abs((op.design.bplus - region.best.parts.bplus))).toBeLessThan(1);
+  }, 20_000);
+
+  it('ranks every output tube in the socket and takes one at its best bias and B+', async () => {
+    const { store, user } = await onOutput('4', '5');
+    await user.click(screen.getByRole('button', { name: 'Rank every tube for these targets' }));
+    await waitFor(() => expect(store.getState().outputRanking?.result?.ok).toBe(true));
+    const ranking = store.getState().outputRanking!.result!;
+    if (!ranking.ok) throw new Error(ranking.message);
+    const top = ranking.ranks.find((r) => r.tubeId !== 'EL34')!;
+    await user.click(screen.getByRole('button', { name: new RegExp(`^Take the ${top.tubeId} at B\\+`) }));
+    expect(store.getState().design.output.tubeId).toBe(top.tubeId);
+    expect(store.getState().design.output.bplus).toBe(Math.round(top.parts.bplus));
+  }, 30_000);
+
+  it('with the point kept inside, a drag toward a failing idle point stops inside the region', async () => {
+    const { store, user } = await onOutput('4', '5');
+    await user.click(screen.getByRole('checkbox', { name: /Keep the point inside the region/ }));
+    const region = store.getState().outputRegion!.result;
+    if (!region.ok) throw new Error(region.message);
+    // Far below the region: a whisper of current, where no power target holds.
+    act(() => {
+      store.getState().beginDrag('output-point');
+      store.getState().dragOutputPointTo(region.va[30]!, region.ia[1]!);
+    });
+    expect(store.getState().dragNote).toBe('Held inside the target region.');
+    const op = store.getState().outputBench.analysis.solution.op;
+    expect(failingAt(region, op.vpk, op.ip)).toEqual([]);
+    act(() => store.getState().endDrag());
+  }, 20_000);
 });

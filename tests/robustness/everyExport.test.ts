@@ -170,6 +170,11 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('supplyNear', fc.tuple(near(tangentSupply), tangents, fc.oneof(fc.tuple(or(fc.double({ min: 0, max: 0.1 })), or(fc.double({ min: 0, max: 0.01 }))), anything)), Q.supplyNear, 200);
   run('nearbyLoads', fc.tuple(tangents, fc.oneof(fc.tuple(numbers, numbers), anything)), Q.nearbyLoads);
   run('solveOnSupply (along a tangent)', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: fc.constant([0, 0]), around: tangents, start: fc.oneof(fc.constant([290]), anything) })), Q.solveOnSupply, 12);
+  const outputTargets = fc.oneof(near({ minPower: { power: 5, thd: 0.05 }, maxThdAtPower: { power: 1, thd: 0.02 }, maxDissipationFraction: 0.9, minGridHeadroom: 5, rkRange: [100, 1000] }), anything);
+  run('outputRegion', fc.tuple(fc.oneof(fc.record({ pair: fc.constant('single-ended'), tube: outTubes, design: near(output) }), fc.record({ pair: fc.constant('push-pull'), tube: outTubes, design: near(ppDesign) }), anything), outputTargets, or(near({ nx: 4, ny: 3 }))), Q.outputRegion, 40);
+  run('judgeOutput', fc.tuple(fc.oneof(fc.record({ pair: fc.constant('single-ended'), tube: outTubes, design: near(output) }), fc.record({ pair: fc.constant('push-pull'), tube: outTubes, design: near(ppDesign) }), anything), outputTargets), Q.judgeOutput, 100);
+  run('rankOutputTubes', fc.tuple(outputTargets, fc.oneof(fc.record({ pair: fc.constant('single-ended'), design: near(output) }), anything), or(fc.constant([el34]))), Q.rankOutputTubes, 10);
+  run('outputTargetsOf', fc.tuple(outputTargets, fc.oneof(fc.record({ design: near(output) }), anything)), Q.outputTargetsOf);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
   run('analyzeOutput (light)', fc.tuple(outTubes, near(output), near({ light: true })), Q.analyzeOutput, 150);
   run('biasForPoint', fc.tuple(outTubes, near(output), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.biasForPoint);

@@ -1,0 +1,204 @@
+import { illinois } from '../numeric/illinois';
+import { solveInstant, THD_HARMONICS, type Instant } from './outputSignal';
+import type { OutputSolution } from './solveOutput';
+
+/**
+ * An output stage's transfer from grid to winding, solved once at evenly
+ * spaced grid excursions and read between them by a natural cubic spline
+ * (the textbook construction: continuous second derivatives, a tridiagonal
+ * system for them). A cycle at any drive up to the span is then a few
+ * multiplications per sample instead of a root of the circuit per sample:
+ * what makes a whole plane of output stages (the targets' region) cheap.
+ * The circuit is memoryless at audio frequencies (an ideal transformer, a
+ * bypassed or fixed bias), so the winding's voltage at an instant depends on
+ * the grid's voltage at that instant alone; that is what lets one curve
+ * serve every drive.
+ */
+export interface GridTransfer {
+  /** The nodes cover grid excursions from −span to +span about the bias, V. */
+  readonly span: number;
+  /** The winding's signal voltage at each node, V. */
+  readonly winding: Float64Array;
+  /** The current each node's instant draws (the charted current, or the lower of a pair's), A. */
+  readonly current: Float64Array;
+  /** The reflected load the winding drives, Ω: power is the fundamental's square over twice it. */
+  readonly load: number;
+  readonly windingCurve: Float64Array;
+  readonly currentCurve: Float64Array;
+}
+
+/** Nodes per transfer: 33 put a node every 1/16 of the bias, close enough that a cycle's THD agrees with the direct solve to a small fraction of itself (tests/output/gridTransfer.test.ts). */
+export const TRANSFER_NODES = 33;
+/** Samples per cycle read from the spline: 32 resolve the 2nd to 10th harmonics THD counts without aliasing. */
+export const TRANSFER_SAMPLES = 32;
+
+/** Second derivatives of the natural cubic spline through evenly spaced values (the Thomas algorithm on its tridiagonal system). */
+function splineCurve(y: Float64Array, h: number): Float64Array {
+  const n = y.length;
+  const m = new Float64Array(n);
+  if (n < 3) return m;
+  const c = new Float64Array(n);
+  const d = new Float64Array(n);
+  for (let i = 1; i < n - 1; i++) {
+    const rhs = (6 * (y[i + 1]! - 2 * y[i]! + y[i - 1]!)) / (h * h);
+    const denom = 4 - (i > 1 ? c[i - 1]! : 0);
+    c[i] = 1 / denom;
+    d[i] = (rhs - (i > 1 ? d[i - 1]! : 0)) / denom;
+  }
+  for (let i = n - 2; i >= 1; i--) m[i] = d[i]! - c[i]! * (i < n - 2 ? m[i + 1]! : 0);
+  return m;
+}
+
+/** The transfer from a function that solves one instant: `solve(x)` returns the winding's voltage and leaves the current in `out`. */
+export function gridTransfer(span: number, load: number, solve: (x: number, out: { current: number }) => number, nodes = TRANSFER_NODES): GridTransfer {
+  const winding = new Float64Array(nodes);
+  const current = new Float64Array(nodes);
+  const out = { current: 0 };
+  const h = (2 * span) / (nodes - 1);
+  for (let k = 0; k < nodes; k++) {
+    winding[k] = solve(-span + k * h, out);
+    current[k] = out.current;
+  }
+  return { span, winding, current, load, windingCurve: splineCurve(winding, h), currentCurve: splineCurve(current, h) };
+}
+
+/** The spline's value at grid excursion x (held to the span). */
+function readSpline(t: GridTransfer, y: Float64Array, m: Float64Array, x: number): number {
+  const n = y.length;
+  const h = (2 * t.span) / (n - 1);
+  const u = Math.min(Math.max((x + t.span) / h, 0), n - 1);
+  const k = Math.min(Math.floor(u), n - 2);
+  const b = u - k;
+  const a = 1 - b;
+  return a * y[k]! + b * y[k + 1]! + (((a * a * a - a) * m[k]! + (b * b * b - b) * m[k + 1]!) * h * h) / 6;
+}
+
+export const windingAt = (t: GridTransfer, x: number) => readSpline(t, t.winding, t.windingCurve, x);
+export const currentAt = (t: GridTransfer, x: number) => readSpline(t, t.current, t.currentCurve, x);
+
+export interface TransferCycle {
+  readonly drive: number;
+  /** Power into the reflected load at the fundamental, W. */
+  readonly power: number;
+  /** THD of the winding's voltage, 2nd to 10th, a fraction. */
+  readonly thd: number;
+}
+
+const wave = new Float64Array(TRANSFER_SAMPLES);
+/** sin and cos of every harmonic THD counts at every sample of the cycle, worked out once: a cycle is then sums of products. */
+const SINE = Float64Array.from({ length: TRANSFER_SAMPLES }, (_, k) => Math.sin((2 * Math.PI * k) / TRANSFER_SAMPLES));
+const BASIS_COS = Float64Array.from({ length: (THD_HARMONICS + 1) * TRANSFER_SAMPLES }, (_, i) => Math.cos((2 * Math.PI * Math.floor(i / TRANSFER_SAMPLES) * (i % TRANSFER_SAMPLES)) / TRANSFER_SAMPLES));
+const BASIS_SIN = Float64Array.from({ length: (THD_HARMONICS + 1) * TRANSFER_SAMPLES }, (_, i) => Math.sin((2 * Math.PI * Math.floor(i / TRANSFER_SAMPLES) * (i % TRANSFER_SAMPLES)) / TRANSFER_SAMPLES));
+
+/**
+ * One cycle at peak drive `drive` read from the transfer: its power and THD.
+ * Each harmonic by its own discrete Fourier sum (ten of them over 32 samples
+ * cost less than the FFT's twiddles; the same sums harmonicAmplitudes makes).
+ */
+export function cycleAt(t: GridTransfer, drive: number): TransferCycle {
+  const n = TRANSFER_SAMPLES;
+  for (let k = 0; k < n; k++) wave[k] = windingAt(t, drive * SINE[k]!);
+  let v1 = 0;
+  let sum = 0;
+  for (let h = 1; h <= THD_HARMONICS; h++) {
+    let re = 0;
+    let im = 0;
+    const row = h * n;
+    for (let k = 0; k < n; k++) {
+      re += wave[k]! * BASIS_COS[row + k]!;
+      im += wave[k]! * BASIS_SIN[row + k]!;
+    }
+    const amp = (2 * Math.hypot(re, im)) / n;
+    if (h === 1) v1 = amp;
+    else sum += amp * amp;
+  }
+  return { drive, power: (v1 * v1) / (2 * t.load), thd: v1 > 0 ? Math.sqrt(sum) / v1 : 0 };
+}
+
+/** Coarse steps the drive is scanned in before a crossing is refined (as the output bench's own power at a distortion limit). */
+const SCAN_STEPS = 4;
+
+/**
+ * The most power with THD at most `limit` and the drive at most the span (the
+ * grid at 0 V): THD scanned upward and its first crossing refined, as
+ * powerAtDistortion does on the direct solve.
+ */
+export function powerWithin(t: GridTransfer, limit: number): TransferCycle {
+  let prev: TransferCycle | null = null;
+  for (let k = 1; k <= SCAN_STEPS; k++) {
+    const r = cycleAt(t, (t.span * k) / SCAN_STEPS);
+    if (r.thd > limit) {
+      let last = r;
+      illinois((a) => (last = cycleAt(t, a)).thd - limit, prev?.drive ?? 0, r.drive, limit * 1e-3, { fa: (prev?.thd ?? 0) - limit, fb: r.thd - limit });
+      return last;
+    }
+    prev = r;
+  }
+  return prev ?? cycleAt(t, t.span);
+}
+
+/** Drive levels a pair's sweep judges its distortion limit on (as the pair's own figures do). */
+const PAIR_LEVELS = 16;
+
+/**
+ * The most power with THD within `limit` for a pair: the highest of the
+ * swept levels within it, then bisection up to the next, as the pair's own
+ * figures read it (a pair deep in class AB distorts most at low levels, so
+ * the first crossing from below would say nothing of its full power). Null
+ * when THD is over the limit at every level.
+ */
+export function highestWithin(t: GridTransfer, limit: number): TransferCycle | null {
+  let within: TransferCycle | null = null;
+  let above: TransferCycle | null = null;
+  for (let k = 1; k <= PAIR_LEVELS; k++) {
+    const r = cycleAt(t, (t.span * k) / PAIR_LEVELS);
+    if (r.thd <= limit) {
+      within = r;
+      above = null;
+    } else if (within && !above) above = r;
+  }
+  if (!within || !above) return within;
+  let lo = within;
+  let hi = above.drive;
+  for (let k = 0; k < 40 && hi - lo.drive > 1e-4 * t.span; k++) {
+    const mid = cycleAt(t, 0.5 * (lo.drive + hi));
+    if (mid.thd <= limit) lo = mid;
+    else hi = mid.drive;
+  }
+  return lo;
+}
+
+/**
+ * The cycle that gives `power` (the drive found by the Illinois method, power
+ * rising with drive), or null when even the full span gives less: then the
+ * most it gives, as `short`.
+ */
+export function cycleForPower(t: GridTransfer, power: number): { readonly at: TransferCycle | null; readonly most: number } {
+  const top = cycleAt(t, t.span);
+  if (top.power < power) return { at: null, most: top.power };
+  let last = top;
+  illinois((a) => (last = cycleAt(t, a)).power - power, 0, t.span, power * 1e-4, { fa: -power, fb: top.power - power });
+  return { at: last, most: top.power };
+}
+
+/** The least drive at which the current at the grid's most negative instant falls to `floor`, or null if it stays above it within the span. */
+export function driveToFloor(t: GridTransfer, floor: number): number | null {
+  if (currentAt(t, -t.span) >= floor) return null;
+  return illinois((a) => currentAt(t, -a) - floor, 0, t.span, Math.max(1e-12, floor * 1e-3));
+}
+
+/** A single-ended stage's transfer, from a fully negative swing to the grid at 0 V: each node solved from its neighbour's answer. */
+export function singleEndedTransfer(s: OutputSolution, nodes = TRANSFER_NODES): GridTransfer {
+  const at: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
+  // Each node starts from the line through the last two answers (nodes are evenly spaced).
+  let before: number | undefined;
+  let last: number | undefined;
+  return gridTransfer(Math.max(0, -s.op.vgk), s.design.zPrimary, (x, out) => {
+    const near = last === undefined ? undefined : before === undefined ? last : Math.max(0, 2 * last - before);
+    solveInstant(s, s.op.vgk + x, s.design.zPrimary, at, near);
+    before = last;
+    last = at.m;
+    out.current = at.ip;
+    return at.winding;
+  }, nodes);
+}
