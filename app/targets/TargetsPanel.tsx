@@ -45,8 +45,8 @@ export function TargetsPanel() {
         <div className="value-grid targets-grid">
           <ValueField field="tPower" />
           <ValueField field="tPowerThd" />
-          <ValueField field="tThdAtPower" />
           <ValueField field="tThdPower" />
+          <ValueField field="tThdAtPower" />
           <ValueField field="tDiss" hint="at idle" />
           <ValueField field="tZout" hint="at the speaker" />
           {cathodeBias ? <ValueField field="tRkMin" /> : null}

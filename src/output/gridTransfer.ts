@@ -49,15 +49,31 @@ function splineCurve(y: Float64Array, h: number): Float64Array {
   return m;
 }
 
-/** The transfer from a function that solves one instant: `solve(x)` returns the winding's voltage and leaves the current in `out`. */
-export function gridTransfer(span: number, load: number, solve: (x: number, out: { current: number }) => number, nodes = TRANSFER_NODES): GridTransfer {
+/**
+ * The transfer from a function that solves one instant: `solve(x)` returns
+ * the winding's voltage and leaves the current in `out`. With `odd` (a
+ * matched pair, whose halves trade places when the drive changes sign) only
+ * the nodes from 0 up are solved: w(−x) = −w(x), the current the same.
+ */
+export function gridTransfer(span: number, load: number, solve: (x: number, out: { current: number }) => number, nodes = TRANSFER_NODES, odd = false): GridTransfer {
   const winding = new Float64Array(nodes);
   const current = new Float64Array(nodes);
   const out = { current: 0 };
   const h = (2 * span) / (nodes - 1);
-  for (let k = 0; k < nodes; k++) {
-    winding[k] = solve(-span + k * h, out);
-    current[k] = out.current;
+  const mid = (nodes - 1) / 2;
+  if (odd && Number.isInteger(mid)) {
+    for (let k = mid; k < nodes; k++) {
+      winding[k] = k === mid ? 0 : solve(-span + k * h, out);
+      if (k === mid) solve(0, out);
+      current[k] = out.current;
+      winding[nodes - 1 - k] = -winding[k]!;
+      current[nodes - 1 - k] = current[k]!;
+    }
+  } else {
+    for (let k = 0; k < nodes; k++) {
+      winding[k] = solve(-span + k * h, out);
+      current[k] = out.current;
+    }
   }
   return { span, winding, current, load, windingCurve: splineCurve(winding, h), currentCurve: splineCurve(current, h) };
 }

@@ -67,10 +67,10 @@ function plateVoltage(tube: OutputTube, feed: ScreenFeed, rPrimary: number, supp
   return r.x;
 }
 
-function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number): OutputPoint {
+function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number, knownPlate?: number): OutputPoint {
   const supply = d.bplus - vk;
   const feed = feedFor(tube, d, vk);
-  const vpk = plateVoltage(tube, feed, d.rPrimary, supply, vgk);
+  const vpk = knownPlate ?? plateVoltage(tube, feed, d.rPrimary, supply, vgk);
   const c = emptyCurrents();
   stageCurrentsInto(tube, feed, vpk, vgk, c, 0);
   const vg2k = tube.law.kind === 'triode' ? 0 : screenVoltage(feed, vpk, 0);
@@ -109,6 +109,20 @@ function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number):
   const ga = (at(vpk + h, vgk) - at(vpk - h, vgk)) / (2 * h);
   const gm = (at(vpk, vgk + h) - at(vpk, vgk - h)) / (2 * h);
   return { rp: ga > 0 ? 1 / ga : Infinity, gm: Math.max(0, gm) };
+}
+
+/**
+ * The stage whose bias and B+ were found for a point (biasForPoint): its
+ * plate and grid are known, so the quiescent point is built there without
+ * solving the loops again. A whole plane of designs (the targets' region)
+ * is built this way; solveOutput on the same design finds the same point.
+ */
+export function outputSolutionAt(tube: OutputTube, design: OutputDesign, vpk: number, vgk: number): Result<OutputSolution> {
+  const problem = checkOutputInput(tube, design);
+  if (problem) return problem;
+  const op = pointAt(tube, design, design.bias === 'cathode' ? -vgk : 0, vgk, vpk);
+  if (!(op.ik > OUTPUT_CUTOFF_A) || !(op.vpk > 0.5)) return fail('cutoff', `The ${tube.id} cannot idle there`, 'bias');
+  return { ok: true, tube, design, op };
 }
 
 /**

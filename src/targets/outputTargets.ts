@@ -1,23 +1,19 @@
 import { fail, type Result } from '../result';
 import { outputExtent } from '../output/outputSheet';
-import { biasForPoint } from '../output/outputBias';
-import { CUTOFF_SHARE } from '../output/outputSignal';
-import { cycleForPower, driveToFloor, highestWithin, powerWithin, singleEndedTransfer, type GridTransfer } from '../output/gridTransfer';
 import type { OutputDesign } from '../output/outputDesign';
 import type { OutputTube } from '../output/outputTube';
 import { outputTubeLibrary } from '../output/library/index';
-import { solveOutput } from '../output/solveOutput';
 import { checkOutputInput, checkOutputTube } from '../output/checkOutput';
-import { pairBiasForPoint } from '../pushpull/pairBias';
-import { pairTransfer } from '../pushpull/pairTransfer';
 import { checkPushPull, type PushPullDesign } from '../pushpull/pushPullDesign';
-import { plateToPlateImpedance } from '../pushpull/pushPullFigures';
-import { solvePushPull } from '../pushpull/solvePushPull';
-import { UNREACHABLE, UNREACHABLE_VERDICT, type PointVerdict } from './evaluatePoint';
+import { UNREACHABLE_VERDICT, type PointVerdict } from './evaluatePoint';
 import type { DesignVerdict } from './judgeDesign';
-import { gridProblem, scanPlane, weakestOf, type PlaneBest, type PlaneRegion, type RegionGrid } from './planeRegion';
+import { COSTLY_TARGETS, costlyPart, limitsOf, placeOutput, plainPart, solveOutputStage, type OutputParts, type OutputTargetStage, type SolvedOutput } from './outputPoint';
+import { gridProblem, planeAxes, summarizePlane, weakestOf, type PlaneBest, type PlaneRegion, type RegionGrid } from './planeRegion';
+import { refinePlane, type CostlyPart } from './refinePlane';
 import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
-import { sharedMargin, verdictOf, type RatedLimits, type SharedFigures } from './verdict';
+import { verdictOf } from './verdict';
+
+export type { OutputParts, OutputTargetStage } from './outputPoint';
 
 /**
  * Targets for an output stage: the power it gives within a distortion
@@ -30,97 +26,17 @@ import { sharedMargin, verdictOf, type RatedLimits, type SharedFigures } from '.
  * the region over the plane answers "at this primary, where may the tube
  * idle and still give what I ask".
  */
-export type OutputTargetStage =
-  | { readonly pair: 'single-ended'; readonly tube: OutputTube; readonly design: OutputDesign }
-  | { readonly pair: 'push-pull'; readonly tube: OutputTube; readonly design: PushPullDesign };
-
-/** The targets set that say something of an output stage (Rk's range only with cathode bias). */
 export function outputTargetsOf(targets: Targets, stage: Pick<OutputTargetStage, 'design'>): TargetName[] {
   if (targetsProblem(targets)) return [];
   const cathode = typeof stage === 'object' && stage !== null && stage.design?.bias === 'cathode';
   return activeTargets(targets, 'output').filter((k) => k !== 'rkRange' || cathode);
 }
 
-/** What an output stage presents to its targets: the shared figures, and its large-signal ones worked out from one transfer when asked. */
-interface OutputFigures extends SharedFigures {
-  /** The clean grid swing to grid current or cutoff, V peak. */
-  readonly headroom: () => number;
-  /** The most power within a THD, W. */
-  readonly powerWithin: (thd: number) => number;
-  /** THD at a power (null past what the grid reaches before grid current), and the most power it reaches. */
-  readonly thdAtPower: (power: number) => { readonly thd: number | null; readonly most: number };
-}
-
-function judgeOutputFigures(active: readonly TargetName[], targets: Targets, at: OutputFigures, limits: RatedLimits): PointVerdict {
-  const margins: Partial<Record<TargetName, number>> = {};
-  const values: Partial<Record<TargetName, number | null>> = {};
-  for (const k of active) {
-    const common = sharedMargin(k, at, limits, targets);
-    if (common) {
-      values[k] = common.value;
-      margins[k] = common.margin;
-      continue;
-    }
-    if (k === 'minPower') {
-      const p = at.powerWithin(targets.minPower!.thd);
-      values.minPower = p;
-      margins.minPower = p / targets.minPower!.power - 1;
-    } else if (k === 'maxThdAtPower') {
-      // Held below grid current: a working power the grid cannot reach fails, by how far short the most it gives is.
-      const want = targets.maxThdAtPower!;
-      const r = at.thdAtPower(want.power);
-      values.maxThdAtPower = r.thd;
-      margins.maxThdAtPower = r.thd === null ? r.most / want.power - 1 : 1 - r.thd / want.thd;
-    } else if (k === 'minGridHeadroom') {
-      values.minGridHeadroom = at.headroom();
-      margins.minGridHeadroom = at.headroom() / targets.minGridHeadroom! - 1;
-    }
-  }
-  return verdictOf(active, margins, values, 0, at.rk);
-}
-
-const limitsOf = (tube: OutputTube): RatedLimits => ({ plateDissipation: tube.ratings.maxPlateDissipation, heaterCathode: tube.ratings.maxHeaterCathodeVoltage });
-
-/** One output design against the targets: one solve, one transfer (only when a target needs the large signal). */
-export function judgeOutputAt(stage: OutputTargetStage, targets: Targets, active: readonly TargetName[]): PointVerdict {
-  // The transfer is built on the first target that needs the large signal, and only then.
-  let transfer: GridTransfer | null = null;
-  if (stage.pair === 'single-ended') {
-    const solved = solveOutput(stage.tube, stage.design);
-    if (!solved.ok) return UNREACHABLE_VERDICT;
-    const { op, design } = solved;
-    const t = () => (transfer ??= singleEndedTransfer(solved));
-    return judgeOutputFigures(active, targets, {
-      pa: op.pa,
-      // The plate's source impedance (rp and the primary's resistance) seen through the turns ratio.
-      zout: ((op.rp + design.rPrimary) * design.speakerOhms) / design.zPrimary,
-      rk: design.bias === 'cathode' ? design.rk : 0,
-      vhk: op.vk,
-      headroom: () => driveToFloor(t(), CUTOFF_SHARE * op.ip) ?? t().span,
-      powerWithin: (thd) => powerWithin(t(), thd).power,
-      thdAtPower: (power) => {
-        const r = cycleForPower(t(), power);
-        return { thd: r.at?.thd ?? null, most: r.most };
-      },
-    }, limitsOf(stage.tube));
-  }
-  const solved = solvePushPull(stage.tube, stage.design);
-  if (!solved.ok) return UNREACHABLE_VERDICT;
-  const d = stage.design;
-  const t = () => (transfer ??= pairTransfer(solved));
-  const zpp = plateToPlateImpedance(solved);
-  return judgeOutputFigures(active, targets, {
-    pa: Math.max(solved.idle[0].pa, solved.idle[1].pa),
-    zout: zpp === null ? Infinity : (zpp * d.speakerOhms) / d.raa,
-    rk: d.bias === 'cathode' ? d.rk : 0,
-    vhk: solved.vk,
-    headroom: () => Math.max(0, Math.min(-solved.vgk, -solved.vgk2)),
-    powerWithin: (thd) => highestWithin(t(), thd)?.power ?? 0,
-    thdAtPower: (power) => {
-      const r = cycleForPower(t(), power);
-      return { thd: r.at?.thd ?? null, most: r.most };
-    },
-  }, limitsOf(stage.tube));
+/** Every target judged at one solved stage: the plain ones from its figures, the costly ones from its transfer. */
+function judgeSolved(s: SolvedOutput, targets: Targets, active: readonly TargetName[], tube: OutputTube): PointVerdict {
+  const plain = plainPart(active, targets, s, limitsOf(tube));
+  const costly = costlyPart(active, targets, s);
+  return verdictOf(active, { ...plain.margins, ...costly.margins }, { ...plain.values, ...costly.values }, 0, s.shared.rk);
 }
 
 function stageProblem(stage: OutputTargetStage) {
@@ -134,40 +50,17 @@ function stageProblem(stage: OutputTargetStage) {
 export function judgeOutput(stage: OutputTargetStage, targets: Targets): Result<DesignVerdict> {
   const problem = targetsProblem(targets) ?? stageProblem(stage);
   if (problem) return problem;
-  const v = judgeOutputAt(stage, targets, outputTargetsOf(targets, stage));
-  if (v.failing[0] === UNREACHABLE) return fail('invalid-input', 'This output stage does not solve: no operating point to judge', 'design');
+  const s = solveOutputStage(stage);
+  if (!s) return fail('invalid-input', 'This output stage does not solve: no operating point to judge', 'design');
+  const v = judgeSolved(s, targets, outputTargetsOf(targets, stage), stage.tube);
   return { ok: true, failing: v.failing as TargetName[], margins: v.margins, values: v.values };
 }
 
-/** The bias and B+ that put the stage's tube (each tube of a pair) at a point of the plane. */
-export interface OutputParts {
-  readonly bplus: number;
-  /** Cathode bias: the cathode resistor, Ω (the shared one for a pair). Fixed bias: 0. */
-  readonly rk: number;
-  /** Fixed bias: the grid supply, V. Cathode bias: the grid's voltage to its cathode, V. */
-  readonly vg: number;
-}
-
-export interface OutputVerdict extends PointVerdict {
-  readonly parts: OutputParts | null;
-}
-
-/** The stage moved to a point of the plane (its bias and B+ found as a drag finds them), or null where it cannot sit there. */
-export function outputStageAt(stage: OutputTargetStage, vpk: number, ip: number): { readonly stage: OutputTargetStage; readonly parts: OutputParts } | null {
-  const b = stage.pair === 'single-ended' ? biasForPoint(stage.tube, stage.design, vpk, ip) : pairBiasForPoint(stage.tube, stage.design, vpk, ip);
-  if (!b.ok) return null;
-  const cathode = stage.design.bias === 'cathode';
-  const parts: OutputParts = { bplus: b.bplus, rk: cathode ? b.rk : 0, vg: b.vgk };
-  const patch = cathode ? { bplus: b.bplus, rk: b.rk } : { bplus: b.bplus, vg: b.vgk };
-  const moved = { ...stage, design: { ...stage.design, ...patch } } as OutputTargetStage;
-  return { stage: moved, parts };
-}
-
-function judgePoint(stage: OutputTargetStage, targets: Targets, active: readonly TargetName[], vpk: number, ip: number): OutputVerdict {
-  const at = outputStageAt(stage, vpk, ip);
+/** A point of the plane judged in full (the ranking's finer search). */
+function judgePoint(stage: OutputTargetStage, targets: Targets, active: readonly TargetName[], vpk: number, ip: number): PointVerdict & { readonly parts: OutputParts | null } {
+  const at = placeOutput(stage, vpk, ip);
   if (!at) return { ...UNREACHABLE_VERDICT, parts: null };
-  const v = judgeOutputAt(at.stage, targets, active);
-  return { ...v, parts: v.failing[0] === UNREACHABLE ? null : at.parts };
+  return { ...judgeSolved(at.solved, targets, active, stage.tube), parts: at.parts };
 }
 
 export interface OutputRegionBest extends PlaneBest {
@@ -180,10 +73,16 @@ export interface OutputRegion extends PlaneRegion {
   readonly best: OutputRegionBest | null;
 }
 
+/** Times the best cell may turn out, once worked out in full, not to be the best after all. */
+const BEST_CHECKS = 8;
+
 /**
- * Where on the output stage's plate plane every target holds, at its load:
- * each point the design whose bias and B+ put the tube there, solved once,
- * its large-signal targets read from one transfer (gridTransfer).
+ * Where on the output stage's plate plane every target holds, at its load.
+ * Each point is the design whose bias and B+ put the tube there; every cell
+ * is solved and judged on its plain targets, and the costly ones (from the
+ * stage's transfer) are worked out along their edges and read between
+ * neighbours elsewhere (refinePlane). The best cell is always worked out in
+ * full.
  */
 export function outputRegion(stage: OutputTargetStage, targets: Targets, grid: RegionGrid = {}): Result<OutputRegion> {
   const problem = stageProblem(stage) ?? targetsProblem(targets);
@@ -194,13 +93,35 @@ export function outputRegion(stage: OutputTargetStage, targets: Targets, grid: R
   const bad = gridProblem(nx, ny, ext);
   if (bad) return bad;
   const active = outputTargetsOf(targets, stage);
-  const { cells, bestCell, ...region } = scanPlane(nx, ny, ext, active, (vpk, ip) => judgePoint(stage, targets, active, vpk, ip));
-  return {
-    ok: true,
-    ...region,
-    parts: cells.map((column) => column.map((v) => v.parts)),
-    best: region.best && bestCell?.parts ? { ...region.best, parts: bestCell.parts } : null,
+  const costlyActive = active.filter((k) => COSTLY_TARGETS.includes(k));
+  const limits = limitsOf(stage.tube);
+  const { va, ia } = planeAxes(nx, ny, ext);
+  const placed = va.map((v) => ia.map((i) => placeOutput(stage, v, i)));
+  const work = (i: number, j: number): CostlyPart | null => {
+    const p = placed[i]![j];
+    return p ? costlyPart(costlyActive, targets, p.solved) : null;
   };
+  const costly = costlyActive.length > 0 ? refinePlane(nx, ny, costlyActive, work) : null;
+  const cellAt = (i: number, j: number): PointVerdict => {
+    const p = placed[i]![j];
+    if (!p) return UNREACHABLE_VERDICT;
+    const plain = plainPart(active, targets, p.solved, limits);
+    const c = costly?.[i]![j];
+    return verdictOf(active, { ...plain.margins, ...c?.margins }, { ...plain.values, ...c?.values }, 0, p.solved.shared.rk);
+  };
+  const cells = va.map((_, i) => ia.map((_, j) => cellAt(i, j)));
+  let region = summarizePlane(va, ia, cells, active);
+  // A best cell read between neighbours is worked out in full, and the best looked for again.
+  for (let k = 0; k < BEST_CHECKS && region.best && costly && !costly[region.best.i]![region.best.j]!.exact; k++) {
+    const { i, j } = region.best;
+    costly[i]![j] = work(i, j);
+    cells[i]![j] = cellAt(i, j);
+    region = summarizePlane(va, ia, cells, active);
+  }
+  const { cells: _c, bestCell: _b, ...summary } = region;
+  const parts = placed.map((column) => column.map((p) => p?.parts ?? null));
+  const best = summary.best ? parts[summary.best.i]![summary.best.j] : null;
+  return { ok: true, ...summary, parts, best: summary.best && best ? { ...summary.best, parts: best } : null };
 }
 
 /** An output tube's best design in the same socket. */

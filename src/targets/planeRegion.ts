@@ -53,25 +53,31 @@ export function gridProblem(nx: number, ny: number, ext: PlateExtent): Failure |
  * the most. Each cell's verdict is kept for the kind's own extras (its parts).
  */
 export function scanPlane<V extends PointVerdict>(nx: number, ny: number, ext: PlateExtent, active: readonly TargetName[], judge: (vpk: number, ia: number) => V): PlaneRegion & { readonly cells: readonly (readonly V[])[]; readonly bestCell: V | null } {
-  const va = Array.from({ length: nx }, (_, i) => ((i + 0.5) * ext.vmax) / nx);
-  const ia = Array.from({ length: ny }, (_, j) => ((j + 0.5) * ext.iaMax) / ny);
+  const { va, ia } = planeAxes(nx, ny, ext);
+  return summarizePlane(va, ia, va.map((v) => ia.map((i) => judge(v, i))), active);
+}
+
+/** The cell centres of a window split nx × ny: plate to cathode voltage, V, and plate current, A. */
+export function planeAxes(nx: number, ny: number, ext: PlateExtent): { readonly va: number[]; readonly ia: number[] } {
+  return { va: Array.from({ length: nx }, (_, i) => ((i + 0.5) * ext.vmax) / nx), ia: Array.from({ length: ny }, (_, j) => ((j + 0.5) * ext.iaMax) / ny) };
+}
+
+/** A region from every cell's verdict (cells[i][j] for va[i], ia[j]): in or out, what fails, the best cell and what shuts the plane out. */
+export function summarizePlane<V extends PointVerdict>(va: readonly number[], ia: readonly number[], cells: readonly (readonly V[])[], active: readonly TargetName[]): PlaneRegion & { readonly cells: readonly (readonly V[])[]; readonly bestCell: V | null } {
   const inside: boolean[][] = [];
   const failing: string[][][] = [];
-  const cells: V[][] = [];
   let best: PlaneBest | null = null;
   let bestCell: V | null = null;
   const fails = new Map<TargetName, number>();
   let reachable = 0;
-  for (let i = 0; i < nx; i++) {
+  for (let i = 0; i < va.length; i++) {
     inside.push([]);
     failing.push([]);
-    cells.push([]);
-    for (let j = 0; j < ny; j++) {
-      const v = judge(va[i]!, ia[j]!);
+    for (let j = 0; j < ia.length; j++) {
+      const v = cells[i]![j]!;
       const out = v.failing;
       inside[i]!.push(out.length === 0);
       failing[i]!.push(out as string[]);
-      cells[i]!.push(v);
       if (out[0] === UNREACHABLE) continue;
       reachable++;
       for (const k of out) fails.set(k as TargetName, (fails.get(k as TargetName) ?? 0) + 1);
