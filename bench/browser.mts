@@ -93,6 +93,11 @@ export interface BrowserResults {
   /** A target changed: time until the region's first (coarse) look is on the chart, and until the full grid is. */
   readonly regionFirstPaint: Stats;
   readonly regionFullPaint: Stats;
+  /** The same on the output stage's bench (the demo's single-ended EL34, its power target changed). */
+  readonly outputRegionFirstPaint: Stats;
+  readonly outputRegionFullPaint: Stats;
+  readonly pairRegionFirstPaint: Stats;
+  readonly pairRegionFullPaint: Stats;
   readonly jsGzipBytes: number;
   readonly cssGzipBytes: number;
 }
@@ -201,7 +206,9 @@ export async function benchBrowser(): Promise<BrowserResults> {
     }
     const heavyInputs = await benchHeavyInputs(browser, url);
     const region = await regionPaints(browser, url);
-    return { regionFirstPaint: stats(region.first), regionFullPaint: stats(region.full), heavyInputs, dragChainColdStart, dragChain, dragFollower, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
+    const outputRegion = await regionPaints(browser, url, OUTPUT_REGION_CHANGE);
+    const pairRegion = await regionPaints(browser, url, PAIR_REGION_CHANGE);
+    return { regionFirstPaint: stats(region.first), regionFullPaint: stats(region.full), outputRegionFirstPaint: stats(outputRegion.first), outputRegionFullPaint: stats(outputRegion.full), pairRegionFirstPaint: stats(pairRegion.first), pairRegionFullPaint: stats(pairRegion.full), heavyInputs, dragChainColdStart, dragChain, dragFollower, dragColdStart, dragOneTube, dragTwoTubes, typingRa: repeatedStats(typingRuns), dragOutput, dragOutputTwoTubes, dragPushPull, dragByCurveCount, firstCurveMs: stats(firsts), jsGzipBytes: sizes.js, cssGzipBytes: sizes.css };
   } finally {
     await browser.close();
     await server.close();
@@ -214,18 +221,36 @@ export async function benchBrowser(): Promise<BrowserResults> {
  * until it shows the full grid, both read in the page (the status line the
  * panel writes when each is drawn), the Web Worker doing the work.
  */
-export async function regionPaints(browser: Awaited<ReturnType<typeof openBrowser>>, url: string): Promise<{ first: number[]; full: number[] }> {
+/** What a region measure sets up and then changes: the stage to open, the targets filled first, the box changed and its values. */
+export interface RegionChange {
+  readonly stage: string | null;
+  /** A further choice on that stage's bench (a radio's label), or null. */
+  readonly choice?: string;
+  readonly fill: readonly (readonly [string, string])[];
+  readonly field: string;
+  readonly values: readonly number[];
+}
+
+/** The gain stage: every costly target set (THD at a level, clean output), as a builder would; the gain is then changed. */
+const GAIN_REGION_CHANGE: RegionChange = { stage: null, fill: [['tThd', '1'], ['tThdLevel', '2'], ['tClean', '15'], ['tDiss', '70'], ['tHeadroom', '1']], field: 'tGain', values: [8, 9, 10, 11, 12, 13] };
+/** The output stage: power within 5 %, THD at 1 W, dissipation (invented demo targets); the power is then changed. */
+const OUTPUT_REGION_CHANGE: RegionChange = { stage: 'Output stage (transformer-coupled)', fill: [['tPowerThd', '5'], ['tThdPower', '1'], ['tThdAtPower', '2'], ['tDiss', '90']], field: 'tPower', values: [3, 3.5, 4, 4.5, 5, 5.5] };
+/** The same pair of EL34s push-pull: power within 5 % and dissipation; the power is then changed. */
+const PAIR_REGION_CHANGE: RegionChange = { stage: 'Output stage (transformer-coupled)', choice: 'Push-pull pair', fill: [['tPowerThd', '5'], ['tDiss', '90']], field: 'tPower', values: [12, 14, 16, 18, 20, 22] };
+
+export async function regionPaints(browser: Awaited<ReturnType<typeof openBrowser>>, url: string, change: RegionChange = GAIN_REGION_CHANGE): Promise<{ first: number[]; full: number[] }> {
   const page = (await openWorkbench(browser, url)).page;
   await page.evaluate(() => localStorage.clear());
   await page.reload();
   await page.waitForSelector('.layer-curves path');
-  // Every costly target set (THD at a level, clean output), as a builder would: the gain is then changed.
-  for (const [name, value] of [['tThd', '1'], ['tThdLevel', '2'], ['tClean', '15'], ['tDiss', '70'], ['tHeadroom', '1']] as const) await page.locator(`input[name=${name}]`).fill(value);
+  if (change.stage) await page.getByText(change.stage).click();
+  if (change.choice) await page.getByLabel(change.choice).check();
+  for (const [name, value] of change.fill) await page.locator(`input[name=${name}]`).fill(value);
   const first: number[] = [];
   const full: number[] = [];
   for (let k = 0; k < 12; k++) {
-    const times = await page.evaluate(async (gain) => {
-      const input = [...document.querySelectorAll('input')].find((i) => i.name === 'tGain')!;
+    const times = await page.evaluate(async ([field, value]) => {
+      const input = [...document.querySelectorAll('input')].find((i) => i.name === field)!;
       const status = document.querySelector('[data-testid=region-status]')!;
       const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
       const t0 = performance.now();
@@ -240,12 +265,12 @@ export async function regionPaints(browser: Awaited<ReturnType<typeof openBrowse
           }
         });
         watch.observe(status, { childList: true, characterData: true, subtree: true });
-        setter.call(input, String(gain));
+        setter.call(input, String(value));
         input.dispatchEvent(new Event('input', { bubbles: true }));
       });
       const total = performance.now() - t0;
       return { coarse: Number.isNaN(coarse) ? total : coarse, total };
-    }, 8 + (k % 6));
+    }, [change.field, change.values[k % change.values.length]!] as const);
     first.push(times.coarse);
     full.push(times.total);
   }

@@ -1,4 +1,4 @@
-import { feasibleRegion, rankTubes, type Targets } from '../src/index';
+import { feasibleRegion, outputRegion, rankOutputTubes, rankTubes, type Targets } from '../src/index';
 import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
@@ -190,6 +190,12 @@ export interface ModelResults {
   readonly regionPoint: Stats;
   /** Every library tube ranked against the same targets. */
   readonly rankLibrary: Stats;
+  /** The output stage's region (the demo's single-ended EL34; an EL34 pair), coarse and full, power and dissipation targets; every output tube ranked. */
+  readonly outputRegionCoarse: Stats;
+  readonly outputRegionFull: Stats;
+  readonly pairRegionCoarse: Stats;
+  readonly pairRegionFull: Stats;
+  readonly rankOutputs: Stats;
 }
 
 /** One measure: the call, the calls timed per block, the warm-up before its first block. */
@@ -214,6 +220,16 @@ function interleaved<K extends string>(measures: Record<K, Measure>): Record<K, 
   return out;
 }
 
+/**
+ * The output stage's targets (invented demo targets): at least 4 W within
+ * 5 % THD, THD under 2 % at 1 W, at most 90 % of the rated dissipation, on
+ * the demo's single-ended EL34; a pair of them at 15 W.
+ */
+const OUTPUT_TARGETS: Targets = { minPower: { power: 4, thd: 0.05 }, maxThdAtPower: { power: 1, thd: 0.02 }, maxDissipationFraction: 0.9 };
+const OUTPUT_TARGET_STAGE = { pair: 'single-ended', tube: EL34, design: OUTPUT } as const;
+const PAIR_TARGETS: Targets = { minPower: { power: 15, thd: 0.05 }, maxDissipationFraction: 0.9 };
+const PAIR_TARGET_STAGE = { pair: 'push-pull', tube: EL34, design: { ...OUTPUT, raa: 7000, mismatch: 0 } } as const;
+
 export function benchModel(): ModelResults {
   const pts = fitPoints(200);
   const m = interleaved({
@@ -230,6 +246,11 @@ export function benchModel(): ModelResults {
     regionCoarse: [() => region(30, 20), 5, 2],
     regionFull: [() => region(60, 40), 3, 1],
     rankLibrary: [() => rankTubes(REGION_TARGETS, { bplus: 300, rl: 470e3, rsource: 10e3, bypassed: true }), 2, 1],
+    outputRegionCoarse: [() => outputRegion(OUTPUT_TARGET_STAGE, OUTPUT_TARGETS, { nx: 30, ny: 20 }), 5, 2],
+    outputRegionFull: [() => outputRegion(OUTPUT_TARGET_STAGE, OUTPUT_TARGETS, { nx: 60, ny: 40 }), 3, 1],
+    pairRegionCoarse: [() => outputRegion(PAIR_TARGET_STAGE, PAIR_TARGETS, { nx: 30, ny: 20 }), 3, 1],
+    pairRegionFull: [() => outputRegion(PAIR_TARGET_STAGE, PAIR_TARGETS, { nx: 60, ny: 40 }), 2, 1],
+    rankOutputs: [() => rankOutputTubes(OUTPUT_TARGETS, OUTPUT_TARGET_STAGE), 2, 1],
     plateFamily: [() => curveSheet(STAGE.tube, 275), 100, 20],
     fit200: [() => fitTriode(pts), 7, 2],
     outputLight: [() => analyzeOutput(EL34, OUTPUT, { light: true }), 70, 20],
@@ -242,5 +263,5 @@ export function benchModel(): ModelResults {
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
   const perPoint = (s: Stats): Stats => ({ ...s, median: s.median / 2400, p95: s.p95 / 2400, min: s.min / 2400, max: s.max / 2400, ...(s.p95Runs ? { p95Runs: s.p95Runs.map((x) => x / 2400) } : {}) });
-  return { regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, amplifierOnSupplyDragFrame: m.amplifierOnSupplyDragFrame, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { outputRegionCoarse: m.outputRegionCoarse, outputRegionFull: m.outputRegionFull, pairRegionCoarse: m.pairRegionCoarse, pairRegionFull: m.pairRegionFull, rankOutputs: m.rankOutputs, regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, amplifierOnSupplyDragFrame: m.amplifierOnSupplyDragFrame, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

@@ -39,6 +39,11 @@ line('target region, coarse 30 × 20 (first look)', model.regionCoarse, { value:
 line('target region, full 60 × 40', model.regionFull, { value: 300, on: 'median' });
 line('  one point of it (one solve, every target)', model.regionPoint, { value: 0.5, on: 'median' });
 line('every library tube ranked against targets', model.rankLibrary, { value: 1000, on: 'median' });
+line('output stage region, coarse 30 × 20', model.outputRegionCoarse, { value: 100, on: 'median' });
+line('output stage region, full 60 × 40', model.outputRegionFull, { value: 300, on: 'median' });
+line('push-pull pair region, coarse 30 × 20', model.pairRegionCoarse, { value: 100, on: 'median' });
+line('push-pull pair region, full 60 × 40', model.pairRegionFull, { value: 300, on: 'median' });
+line('every output tube ranked against targets', model.rankOutputs, { value: 1000, on: 'median' });
 
 let browser: BrowserResults | null = null;
 if (existsSync('/usr/bin/chromium')) {
@@ -58,6 +63,10 @@ if (existsSync('/usr/bin/chromium')) {
   line('navigation to first plate curve', browser.firstCurveMs, { value: 1500, on: 'median' });
   line('target changed: region first shown (coarse)', browser.regionFirstPaint, { value: 100, on: 'median' });
   line('target changed: region complete (60 × 40)', browser.regionFullPaint, { value: 300, on: 'median' });
+  line('output stage: region first shown (coarse)', browser.outputRegionFirstPaint, { value: 100, on: 'median' });
+  line('output stage: region complete (60 × 40)', browser.outputRegionFullPaint, { value: 300, on: 'median' });
+  line('push-pull pair: region first shown (coarse)', browser.pairRegionFirstPaint, { value: 100, on: 'median' });
+  line('push-pull pair: region complete (60 × 40)', browser.pairRegionFullPaint, { value: 300, on: 'median' });
   console.log(`${'production JS, gzipped'.padEnd(44)} ${(browser.jsGzipBytes / 1024).toFixed(1)} kB  ${browser.jsGzipBytes <= 200 * 1024 ? 'within' : 'MISSES'} budget 200 kB`);
   console.log(`${'production CSS, gzipped'.padEnd(44)} ${(browser.cssGzipBytes / 1024).toFixed(1)} kB`);
   console.log('\nLongest main-thread task for inputs that once froze the page (budget 200 ms; "50" means none over 50 ms)');

@@ -15,6 +15,12 @@ import { currentOutputRegion } from '../store/outputTargets';
 import { drawRegion, targetsWithEdges } from '../targets/drawRegion';
 import { RegionHatch } from '../targets/RegionHatch';
 
+/** Why the point is not under the pointer (the bias cannot put it there, or the targets held it), as the voltage chart says it. */
+function DragNote() {
+  const note = useWorkbench((s) => s.dragNote);
+  return <div className="chart-status" aria-live="polite">{note ? <p className="drag-note">{note}</p> : null}</div>;
+}
+
 /** Arrow keys move the point by 1 % of the window (5 % with Shift); on the load handle they change Zpri by 2 % (10 %). */
 const STEP = 0.01;
 const BIG_STEP = 0.05;
@@ -152,6 +158,7 @@ export function OutputChart() {
           <PointMark />
         </g>
       </svg>
+      <DragNote />
       <CurveDensity />
       <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} region={regionKeys} readout={false} />
     </div>
