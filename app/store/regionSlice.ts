@@ -42,29 +42,23 @@ export interface FollowerRegionView {
 export const COARSE_GRID = { nx: 30, ny: 20 } as const;
 export const FULL_GRID = { nx: 60, ny: 40 } as const;
 
-export interface RegionView {
+/** A region on the chart as the store holds it: the gain stage's (FeasibleRegion) or the output stage's (OutputRegion). */
+export interface RegionView<R = FeasibleRegion> {
   /** What it was worked out for (the stage, its targets and the chart's window). */
   readonly key: string;
-  readonly result: Result<FeasibleRegion>;
+  readonly result: Result<R>;
   /** False for the coarse pass shown first. */
   readonly complete: boolean;
 }
 
-export interface RankingView {
+/** Every tube ranked for the targets, while it is worked out (null) and after. */
+export interface RankingView<R = TubeRank> {
   readonly key: string;
-  readonly result: Result<{ ranks: TubeRank[] }> | null;
+  readonly result: Result<{ ranks: R[] }> | null;
 }
 
-export interface OutputRegionView {
-  readonly key: string;
-  readonly result: Result<OutputRegion>;
-  readonly complete: boolean;
-}
-
-export interface OutputRankingView {
-  readonly key: string;
-  readonly result: Result<{ ranks: OutputRank[] }> | null;
-}
+export type OutputRegionView = RegionView<OutputRegion>;
+export type OutputRankingView = RankingView<OutputRank>;
 
 export interface RegionSlice {
   region: RegionView | null;

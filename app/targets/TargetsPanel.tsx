@@ -1,5 +1,6 @@
 import { useId } from 'react';
-import { TARGET_LABELS, type FeasibleRegion, type FollowerRegion, type OutputRegion, type PlaneRegion, type TargetName } from '../../src/index';
+import { TARGET_LABELS, type FollowerRegion, type PlaneRegion, type TargetName } from '../../src/index';
+import type { RegionView } from '../store/regionSlice';
 import { ohms, plain } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
@@ -18,7 +19,9 @@ export function TargetsPanel() {
   const keepInside = useWorkbench((s) => s.keepInside);
   const output = useWorkbench((s) => s.design.stageKind === 'output');
   const cathodeBias = useWorkbench((s) => s.design.output.bias === 'cathode');
-  const region = useWorkbench((s) => (s.design.stageKind === 'output' ? s.outputRegion : s.region));
+  const gainRegion = useWorkbench((s) => (s.design.stageKind === 'output' ? null : s.region));
+  const outputRegion = useWorkbench((s) => (s.design.stageKind === 'output' ? s.outputRegion : null));
+  const region: RegionView<PlaneRegion> | null = gainRegion ?? outputRegion;
   const follower = useWorkbench((s) => s.design.stageKind === 'follower');
   const along = useWorkbench((s) => s.followerRegion);
   const verdict = useWorkbench((s) => s.verdict);
@@ -27,8 +30,8 @@ export function TargetsPanel() {
   const moveToBest = useWorkbench((s) => s.moveToBest);
   const clearTargets = useWorkbench((s) => s.clearTargets);
   const id = useId();
-  const r = !output && region?.result.ok ? (region.result as FeasibleRegion) : null;
-  const o = output && region?.result.ok ? (region.result as OutputRegion) : null;
+  const r = gainRegion?.result.ok ? gainRegion.result : null;
+  const o = outputRegion?.result.ok ? outputRegion.result : null;
   const f = follower && along?.result.ok ? along.result : null;
   const anySet = region !== null || (follower && along !== null);
   return (

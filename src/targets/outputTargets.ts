@@ -8,7 +8,7 @@ import { checkPushPull, type PushPullDesign } from '../pushpull/pushPullDesign';
 import { UNREACHABLE_VERDICT, type PointVerdict } from './evaluatePoint';
 import type { DesignVerdict } from './judgeDesign';
 import { COSTLY_TARGETS, costlyPart, limitsOf, placeOutput, plainPart, solveOutputStage, type OutputParts, type OutputTargetStage, type SolvedOutput } from './outputPoint';
-import { gridProblem, planeAxes, summarizePlane, weakestOf, type PlaneBest, type PlaneRegion, type RegionGrid } from './planeRegion';
+import { gridProblem, planeAxes, RANK_GRID, searchAroundBest, summarizePlane, weakestOf, type PlaneBest, type PlaneRegion, type RegionGrid } from './planeRegion';
 import { refinePlane, type CostlyPart } from './refinePlane';
 import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
 import { verdictOf } from './verdict';
@@ -136,10 +136,6 @@ export interface OutputRank {
   readonly ip: number;
 }
 
-/** The coarse look per tube, then a finer one around its best cell (as the gain stage's ranking). */
-const COARSE = { nx: 16, ny: 12 };
-const FINE = 7;
-
 /**
  * Every output tube (the library's, or those given) in the same socket, the
  * same load, bias kind and connection (a power triode is always a triode),
@@ -157,25 +153,17 @@ export function rankOutputTubes(targets: Targets, stage: { readonly pair: Output
     const s = { pair: stage.pair, tube, design: { ...stage.design, tubeId: tube.id, connection } } as OutputTargetStage;
     const active = outputTargetsOf(targets, s);
     const ext = outputExtent(tube, stage.design.bplus);
-    const region = outputRegion(s, targets, { ...COARSE, extent: ext });
+    const region = outputRegion(s, targets, { ...RANK_GRID, extent: ext });
     if (!region.ok) {
       if (region.field === 'tube' || region.field === 'connection') continue;
       return region;
     }
     if (!region.best) continue;
-    const dv = ext.vmax / COARSE.nx;
-    const di = ext.iaMax / COARSE.ny;
-    const centre = { vpk: region.va[region.best.i]!, ip: region.ia[region.best.j]! };
-    let top = { ...centre, parts: region.best.parts, score: region.best.score, margins: region.best.margins };
-    for (let a = 0; a < FINE; a++) {
-      for (let b = 0; b < FINE; b++) {
-        const vpk = centre.vpk + dv * ((a + 0.5) / FINE - 0.5);
-        const ip = centre.ip + di * ((b + 0.5) / FINE - 0.5);
-        const v = judgePoint(s, targets, active, vpk, ip);
-        if (v.parts && v.score > top.score) top = { vpk, ip, parts: v.parts, score: v.score, margins: v.margins };
-      }
-    }
-    ranks.push({ tubeId: tube.id, ...top, weakest: weakestOf(top.margins, active) });
+    const start = { ...UNREACHABLE_VERDICT, failing: [], score: region.best.score, margins: region.best.margins, parts: region.best.parts as OutputParts | null };
+    const top = searchAroundBest(region, ext, start, (vpk, ip) => judgePoint(s, targets, active, vpk, ip));
+    if (!top?.verdict.parts) continue;
+    const v = top.verdict;
+    ranks.push({ tubeId: tube.id, vpk: top.vpk, ip: top.ia, parts: v.parts!, score: v.score, margins: v.margins, weakest: weakestOf(v.margins, active) });
   }
   return { ok: true, ranks: ranks.sort((x, y) => y.score - x.score) };
 }

@@ -100,3 +100,30 @@ export function weakestOf(margins: Partial<Record<TargetName, number>>, active: 
   for (const k of active) if (weakest === null || margins[k]! < margins[weakest]!) weakest = k;
   return weakest;
 }
+
+/** A ranking's first look at each tube: a coarse region, 16 × 12 points. */
+export const RANK_GRID = { nx: 16, ny: 12 } as const;
+/** Then a finer search of 7 × 7 points over the best coarse cell. */
+const RANK_FINE = 7;
+
+/**
+ * The best point over a coarse region's best cell: a RANK_FINE × RANK_FINE
+ * search of the cell, each point judged in full; the cell's centre (with
+ * its own verdict, `start`) when no point beats it. Null with no best cell.
+ */
+export function searchAroundBest<V extends PointVerdict>(region: PlaneRegion, ext: PlateExtent, start: V, judge: (vpk: number, ia: number) => V): { readonly vpk: number; readonly ia: number; readonly verdict: V } | null {
+  if (!region.best) return null;
+  const dv = ext.vmax / region.va.length;
+  const di = ext.iaMax / region.ia.length;
+  const centre = { vpk: region.va[region.best.i]!, ia: region.ia[region.best.j]! };
+  let top = { ...centre, verdict: start };
+  for (let a = 0; a < RANK_FINE; a++) {
+    for (let b = 0; b < RANK_FINE; b++) {
+      const vpk = centre.vpk + dv * ((a + 0.5) / RANK_FINE - 0.5);
+      const ia = centre.ia + di * ((b + 0.5) / RANK_FINE - 0.5);
+      const v = judge(vpk, ia);
+      if (v.failing[0] !== UNREACHABLE && v.score > top.verdict.score) top = { vpk, ia, verdict: v };
+    }
+  }
+  return top;
+}

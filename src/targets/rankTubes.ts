@@ -2,7 +2,8 @@ import { fail, type Result } from '../result';
 import { plateExtent } from '../stage/plateExtent';
 import { tubeLibrary } from '../tube/library';
 import type { TubeRecord } from '../tube/types';
-import { evaluatePoint, UNREACHABLE, type RegionStage } from './evaluatePoint';
+import { evaluatePoint, UNREACHABLE_VERDICT, type RegionStage } from './evaluatePoint';
+import { RANK_GRID, searchAroundBest } from './planeRegion';
 import { feasibleRegion, weakestOf } from './feasibleRegion';
 import { activeTargets, targetsProblem, type TargetName, type Targets } from './targets';
 
@@ -22,10 +23,6 @@ export interface TubeRank {
   readonly ia: number;
 }
 
-/** The coarse look per tube, then a finer one around its best cell: 16 × 12 and 7 × 7 points. */
-const COARSE = { nx: 16, ny: 12 };
-const FINE = 7;
-
 /**
  * Every tube (the library's, or those given) ranked by how well its best
  * design on this B+ and load meets the targets: a coarse region, then a
@@ -43,24 +40,17 @@ export function rankTubes(targets: Targets, stage: Omit<RegionStage, 'tube'>, tu
   for (const tube of tubes) {
     const s: RegionStage = { ...stage, tube };
     const ext = plateExtent(tube, stage.bplus);
-    const region = feasibleRegion(s, targets, { ...COARSE, extent: ext });
+    const region = feasibleRegion(s, targets, { ...RANK_GRID, extent: ext });
     if (!region.ok) {
       if (region.field === 'tube') continue;
       return region;
     }
     if (!region.best) continue;
-    const dv = ext.vmax / COARSE.nx;
-    const di = ext.iaMax / COARSE.ny;
-    let top = { vpk: region.va[region.best.i]!, ia: region.ia[region.best.j]!, ra: region.best.ra, rk: region.best.rk, score: region.best.score, margins: region.best.margins };
-    for (let a = 0; a < FINE; a++) {
-      for (let b = 0; b < FINE; b++) {
-        const vpk = region.va[region.best.i]! + dv * ((a + 0.5) / FINE - 0.5);
-        const ia = region.ia[region.best.j]! + di * ((b + 0.5) / FINE - 0.5);
-        const v = evaluatePoint(s, targets, active, vpk, ia);
-        if (v.failing[0] !== UNREACHABLE && v.score > top.score) top = { vpk, ia, ra: v.ra, rk: v.rk, score: v.score, margins: v.margins };
-      }
-    }
-    ranks.push({ tubeId: tube.id, ...top, weakest: weakestOf(top.margins, active) });
+    const start = { ...UNREACHABLE_VERDICT, failing: [], ra: region.best.ra, rk: region.best.rk, score: region.best.score, margins: region.best.margins };
+    const top = searchAroundBest(region, ext, start, (vpk, ia) => evaluatePoint(s, targets, active, vpk, ia));
+    if (!top) continue;
+    const v = top.verdict;
+    ranks.push({ tubeId: tube.id, vpk: top.vpk, ia: top.ia, ra: v.ra, rk: v.rk, score: v.score, margins: v.margins, weakest: weakestOf(v.margins, active) });
   }
   return { ok: true, ranks: ranks.sort((x, y) => y.score - x.score) };
 }
