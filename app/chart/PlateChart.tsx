@@ -3,7 +3,10 @@ import { milliamps, volts } from '../format';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachDrag } from './attachDrag';
 import { ChartLegend, followerLegend, VOLTAGE_STAGE_LEGEND } from './ChartLegend';
-import { PointMark, RivalMark, SheetLayers } from './SheetLayers';
+import { PointMark, RivalMark } from './SheetLayers';
+import { ChartShell } from './ChartShell';
+import { pointKey } from './pointKeys';
+import type { PlateScales } from './plateScales';
 import { drawOverlay, drawRivalOverlay, drawSpread, linePath } from './drawOverlay';
 import { followerShown, shownLines, shownRivalSheet, shownSheet, shownTubeId } from '../store/shownStage';
 import { buildSheetOf } from '../store/buildSheet';
@@ -11,51 +14,61 @@ import { HoverReadout } from './HoverReadout';
 import { ChartWindowSwitch } from './ChartWindowSwitch';
 import { CurveDensity } from './CurveDensity';
 import { PALETTE } from './palette';
-import { plateScales } from './plateScales';
-import { useChartBox } from './useChartBox';
 import { DESIGN_LIMITS } from '../store/designLimits';
-import { drawRegion, targetsWithEdges } from '../targets/drawRegion';
-import { RegionHatch } from '../targets/RegionHatch';
-import { drawFollowerRegion } from '../targets/drawFollowerRegion';
+import { targetsWithEdges } from '../targets/drawRegion';
 import { currentFollowerRegion } from '../store/regionSlice';
-
-/** Arrow keys move the point by 1 % of the chart window, 5 % with Shift. */
-const STEP = 0.01;
-const BIG_STEP = 0.05;
 
 /**
  * The plate chart of the voltage stage on the bench: a gain stage, or its
- * cathode follower (shownChart.ts picks which). React owns the <svg>, its
- * layer groups and the focusable handles; d3 draws inside the layers. Static
- * layers redraw only when the curve sheet changes; the overlay follows the
- * store through a subscription, so dragging never re-renders this component.
+ * cathode follower (shownStage.ts picks which), in the shell every plate
+ * chart shares. React owns the <svg>, its layer groups and the focusable
+ * handles; d3 draws inside the layers. Static layers redraw only when the
+ * curve sheet changes; the overlay follows the store through a
+ * subscription, so dragging never re-renders this component.
  */
 export function PlateChart() {
-  const store = useWorkbenchStore();
   const sheet = useWorkbench(shownSheet);
   const rivalSheet = useWorkbench(shownRivalSheet);
   const rival = useWorkbench((s) => s.rival);
   const tubeId = useWorkbench(shownTubeId);
   const follower = useWorkbench(followerShown);
   const vgrid = useWorkbench((s) => (followerShown(s) ? s.followerBench!.vgrid : null));
-  const frame = useRef<HTMLDivElement>(null);
-  const box = useChartBox(frame);
-  const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
+  const region = useWorkbench((s) => (s.region?.result.ok && !followerShown(s) ? s.region.result : null));
+  const followerRegion = useWorkbench((s) => (followerShown(s) ? currentFollowerRegion(s) : null));
+  const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
+  return (
+    <ChartShell
+      sheet={sheet}
+      rivalSheet={rivalSheet}
+      label={follower ? `Plate curves of the follower's ${tubeId} with its cathode load line, bias line and operating point` : `Plate curves of the ${tubeId} with the stage's load lines and operating point`}
+      region={follower ? { line: followerRegion } : { plane: region }}
+      layers={(scales) => <VoltageLayers scales={scales} />}
+      below={
+        <>
+          <HoverReadout />
+          <div className="chart-controls">
+            {follower ? null : <ChartWindowSwitch />}
+            <CurveDensity />
+          </div>
+          <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} alongLine={followerRegion !== null} items={follower && vgrid !== null ? followerLegend(vgrid) : VOLTAGE_STAGE_LEGEND} />
+        </>
+      }
+    />
+  );
+}
+
+/** The voltage stage's own layers and handles: the cursor's surface, the parts' spread, the lines, B+'s foot, the second tube's point and the operating point. */
+function VoltageLayers({ scales }: { scales: PlateScales }) {
+  const store = useWorkbenchStore();
+  const sheet = useWorkbench(shownSheet);
+  const rivalSheet = useWorkbench(shownRivalSheet);
+  const rival = useWorkbench((s) => s.rival);
+  const follower = useWorkbench(followerShown);
   const lines = useRef<SVGGElement>(null);
   const point = useRef<SVGGElement>(null);
   const bplusHandle = useRef<SVGGElement>(null);
   const rivalHandle = useRef<SVGGElement>(null);
   const spreadLayer = useRef<SVGGElement>(null);
-  const regionLayer = useRef<SVGGElement>(null);
-  const region = useWorkbench((s) => (s.region?.result.ok && !followerShown(s) ? s.region.result : null));
-
-  const followerRegion = useWorkbench((s) => (followerShown(s) ? currentFollowerRegion(s) : null));
-  useEffect(() => {
-    if (!regionLayer.current) return;
-    if (follower) drawFollowerRegion(regionLayer.current, followerRegion, scales);
-    else drawRegion(regionLayer.current, region, scales);
-  }, [region, followerRegion, follower, scales]);
-  const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
   const spread = useWorkbench((s) => (s.buildInputs.showSpread && !s.dragging && !followerShown(s) ? buildSheetOf(s).spread : null));
 
   useEffect(() => {
@@ -94,31 +107,15 @@ export function PlateChart() {
     };
   }, [store, scales]);
 
-  const onPointKey = (e: KeyboardEvent<SVGGElement>) => {
-    const s = store.getState();
-    const dragging = s.dragging === 'point' || s.dragging === 'follower-point';
-    if (e.key === 'Enter' && dragging) {
-      e.preventDefault();
-      s.endDrag();
-      return;
-    }
-    if (e.key === 'Escape' && dragging) {
-      e.preventDefault();
-      s.cancelDrag();
-      return;
-    }
-    const step = e.shiftKey ? BIG_STEP : STEP;
-    const moves: Record<string, [number, number]> = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, step], ArrowDown: [0, -step] };
-    const m = moves[e.key];
-    if (!m) return;
-    e.preventDefault();
-    s.nudgePoint(m[0], m[1]);
+  const pointDragging = () => {
+    const dragging = store.getState().dragging;
+    return dragging === 'point' || dragging === 'follower-point';
   };
+  const onPointKey = (e: KeyboardEvent<SVGGElement>) => pointKey(e, store.getState(), pointDragging(), (dx, dy) => store.getState().nudgePoint(dx, dy));
 
   /** Leaving the handle after arrow presses is the keyboard's release. */
   const onPointBlur = () => {
-    const dragging = store.getState().dragging;
-    if (dragging === 'point' || dragging === 'follower-point') store.getState().endDrag();
+    if (pointDragging()) store.getState().endDrag();
   };
 
   const onBplusKey = (e: KeyboardEvent<SVGGElement>) => {
@@ -143,74 +140,56 @@ export function PlateChart() {
   const [x0, x1] = scales.x.range() as [number, number];
   const [y0, y1] = scales.y.range() as [number, number];
   return (
-    <div className="chart-frame" ref={frame}>
-      <svg
-        className="plate-chart"
-        viewBox={`0 0 ${box.width} ${box.height}`}
-        width={box.width}
-        height={box.height}
-        role="group"
-        aria-label={follower ? `Plate curves of the follower's ${tubeId} with its cathode load line, bias line and operating point` : `Plate curves of the ${tubeId} with the stage's load lines and operating point`}
+    <>
+      <rect
+        className="hover-surface"
+        x={x0}
+        y={y1}
+        width={x1 - x0}
+        height={y0 - y1}
+        fill="transparent"
+        onPointerMove={onHover}
+        onPointerLeave={() => store.getState().clearHover()}
+      />
+      <g ref={spreadLayer} className="layer-spread" pointerEvents="none" />
+      <g ref={lines} className="layer-lines" pointerEvents="none" />
+      <g
+        ref={bplusHandle}
+        className="handle handle-bplus"
+        role="slider"
+        tabIndex={follower ? -1 : 0}
+        visibility={follower ? 'hidden' : 'visible'}
+        aria-label="B+, the foot of the DC load line: drag or use the arrow keys"
+        aria-valuemin={DESIGN_LIMITS.bplus.min}
+        aria-valuemax={Math.min(sheet.extent.vmax, DESIGN_LIMITS.bplus.max)}
+        onKeyDown={onBplusKey}
       >
-        <RegionHatch />
-        <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
-        <g ref={regionLayer} className="layer-region" pointerEvents="none" />
-        <rect
-          className="hover-surface"
-          x={x0}
-          y={y1}
-          width={x1 - x0}
-          height={y0 - y1}
-          fill="transparent"
-          onPointerMove={onHover}
-          onPointerLeave={() => store.getState().clearHover()}
-        />
-        <g ref={spreadLayer} className="layer-spread" pointerEvents="none" />
-        <g ref={lines} className="layer-lines" pointerEvents="none" />
-        <g
-          ref={bplusHandle}
-          className="handle handle-bplus"
-          role="slider"
-          tabIndex={follower ? -1 : 0}
-          visibility={follower ? 'hidden' : 'visible'}
-          aria-label="B+, the foot of the DC load line: drag or use the arrow keys"
-          aria-valuemin={DESIGN_LIMITS.bplus.min}
-          aria-valuemax={Math.min(sheet.extent.vmax, DESIGN_LIMITS.bplus.max)}
-          onKeyDown={onBplusKey}
-        >
-          <path d="M0,0 L-8,14 L8,14 Z" fill={PALETTE.load} stroke={PALETTE.sheet} strokeWidth={1.5} />
-          <rect x={-14} y={-6} width={28} height={26} fill="transparent" />
-        </g>
-        <g
-          ref={rivalHandle}
-          className={rival.mode === 'own-values' ? 'handle handle-rival' : 'handle-rival fixed'}
-          role="img"
-          aria-label={`Operating point of the ${rival.tubeId}${rival.mode === 'own-values' ? ' (drag it to choose its own Ra and Rk)' : ' with the same parts'}`}
-          visibility={rival.on && rivalSheet ? 'visible' : 'hidden'}
-        >
-          <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
-          <RivalMark />
-        </g>
-        <g
-          ref={point}
-          className="handle handle-point"
-          role="slider"
-          tabIndex={0}
-          aria-label={follower ? 'The follower\'s operating point: drag it along its dotted line to choose its Rk, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)' : 'Operating point: drag it, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)'}
-          aria-valuemin={0}
-          aria-valuemax={sheet.extent.vmax}
-          onKeyDown={onPointKey}
-          onBlur={onPointBlur}
-        >
-          <PointMark />
-        </g>
-      </svg>
-      <HoverReadout />
-      <div className="chart-controls">
-        {follower ? null : <ChartWindowSwitch />}
-        <CurveDensity />
-      </div>
-      <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} alongLine={followerRegion !== null} items={follower && vgrid !== null ? followerLegend(vgrid) : VOLTAGE_STAGE_LEGEND} />
-    </div>
+        <path d="M0,0 L-8,14 L8,14 Z" fill={PALETTE.load} stroke={PALETTE.sheet} strokeWidth={1.5} />
+        <rect x={-14} y={-6} width={28} height={26} fill="transparent" />
+      </g>
+      <g
+        ref={rivalHandle}
+        className={rival.mode === 'own-values' ? 'handle handle-rival' : 'handle-rival fixed'}
+        role="img"
+        aria-label={`Operating point of the ${rival.tubeId}${rival.mode === 'own-values' ? ' (drag it to choose its own Ra and Rk)' : ' with the same parts'}`}
+        visibility={rival.on && rivalSheet ? 'visible' : 'hidden'}
+      >
+        <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
+        <RivalMark />
+      </g>
+      <g
+        ref={point}
+        className="handle handle-point"
+        role="slider"
+        tabIndex={0}
+        aria-label={follower ? 'The follower\'s operating point: drag it along its dotted line to choose its Rk, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)' : 'Operating point: drag it, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)'}
+        aria-valuemin={0}
+        aria-valuemax={sheet.extent.vmax}
+        onKeyDown={onPointKey}
+        onBlur={onPointBlur}
+      >
+        <PointMark />
+      </g>
+    </>
   );
 }

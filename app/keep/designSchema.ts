@@ -26,6 +26,27 @@ const oneOf = <const T extends readonly [string, ...string[]]>(options: T) => v.
 const tubeName = () => v.custom<string>((x) => typeof x === 'string' && x.trim().length > 0 && x.length <= 60, 'must name a tube (text of at most 60 characters)');
 const section = <T extends v.ObjectEntries>(entries: T) => v.object(entries, 'must be an object');
 
+/** A stage's targets: each box a value or null (off). */
+const TARGETS = section({
+  minGain: rangedOrNull(L.targets.gain),
+  minCleanOutputRms: rangedOrNull(L.targets.level),
+  thdLevelRms: rangedOrNull(L.targets.level),
+  maxThd: rangedOrNull(L.targets.thd),
+  maxDissipationFraction: rangedOrNull(L.targets.dissipation),
+  maxZout: rangedOrNull(L.targets.ohms),
+  raMin: rangedOrNull(L.targets.ohms),
+  raMax: rangedOrNull(L.targets.ohms),
+  rkMin: rangedOrNull(L.targets.ohms),
+  rkMax: rangedOrNull(L.targets.ohms),
+  minGridHeadroom: rangedOrNull(L.targets.headroom),
+  heaterCathodeWithinRating: yesNo(),
+  // Came later within version 3 (the output stage's targets): absent, off.
+  minPowerW: v.optional(rangedOrNull(L.targets.power)),
+  powerThd: v.optional(rangedOrNull(L.targets.thd)),
+  thdPowerW: v.optional(rangedOrNull(L.targets.power)),
+  maxThdAtPower: v.optional(rangedOrNull(L.targets.thd)),
+});
+
 /** The voltage stage on the bench and the amplifier's own values (every version). */
 export const BENCH_STAGE = v.object({
   tubeId: tubeName(),
@@ -45,27 +66,9 @@ export const BENCH_STAGE = v.object({
   // Came within version 3: absent, the published tables' 5 %.
   thdLimit: v.optional(ranged(L.output.thdLimit)),
   // Came within version 3: absent, no targets.
-  targets: v.optional(
-    section({
-      minGain: rangedOrNull(L.targets.gain),
-      minCleanOutputRms: rangedOrNull(L.targets.level),
-      thdLevelRms: rangedOrNull(L.targets.level),
-      maxThd: rangedOrNull(L.targets.thd),
-      maxDissipationFraction: rangedOrNull(L.targets.dissipation),
-      maxZout: rangedOrNull(L.targets.ohms),
-      raMin: rangedOrNull(L.targets.ohms),
-      raMax: rangedOrNull(L.targets.ohms),
-      rkMin: rangedOrNull(L.targets.ohms),
-      rkMax: rangedOrNull(L.targets.ohms),
-      minGridHeadroom: rangedOrNull(L.targets.headroom),
-      heaterCathodeWithinRating: yesNo(),
-      // Came later within version 3 (the output stage's targets): absent, off.
-      minPowerW: v.optional(rangedOrNull(L.targets.power)),
-      powerThd: v.optional(rangedOrNull(L.targets.thd)),
-      thdPowerW: v.optional(rangedOrNull(L.targets.power)),
-      maxThdAtPower: v.optional(rangedOrNull(L.targets.thd)),
-    }),
-  ),
+  targets: v.optional(TARGETS),
+  // Came later within version 3 (the output stage's own targets): absent, none.
+  outputTargets: v.optional(TARGETS),
   stage2: section({
     kind: oneOf(['none', 'follower', 'common-cathode']),
     tubeId: tubeName(),

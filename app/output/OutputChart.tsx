@@ -1,10 +1,11 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { milliamps, ohms, volts } from '../format';
 import { ChartLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND } from '../chart/ChartLegend';
-import { PointMark, RivalMark, SheetLayers } from '../chart/SheetLayers';
+import { PointMark, RivalMark } from '../chart/SheetLayers';
+import { ChartShell } from '../chart/ChartShell';
 import { PALETTE } from '../chart/palette';
-import { plateScales } from '../chart/plateScales';
-import { useChartBox } from '../chart/useChartBox';
+import type { PlateScales } from '../chart/plateScales';
+import { pointKey } from '../chart/pointKeys';
 import { CurveDensity } from '../chart/CurveDensity';
 import { useWorkbench, useWorkbenchStore } from '../store/StoreProvider';
 import { attachOutputDrag } from './attachOutputDrag';
@@ -12,8 +13,7 @@ import { drawOutputOverlay } from './drawOutputOverlay';
 import { DESIGN_LIMITS } from '../store/designLimits';
 import { benchPoint } from '../store/outputAnalysis';
 import { currentOutputRegion } from '../store/outputTargets';
-import { drawRegion, targetsWithEdges } from '../targets/drawRegion';
-import { RegionHatch } from '../targets/RegionHatch';
+import { targetsWithEdges } from '../targets/drawRegion';
 
 /** Why the point is not under the pointer (the bias cannot put it there, or the targets held it), as the voltage chart says it. */
 function DragNote() {
@@ -21,36 +21,49 @@ function DragNote() {
   return <div className="chart-status" aria-live="polite">{note ? <p className="drag-note">{note}</p> : null}</div>;
 }
 
-/** Arrow keys move the point by 1 % of the window (5 % with Shift); on the load handle they change Zpri by 2 % (10 %). */
-const STEP = 0.01;
-const BIG_STEP = 0.05;
-
 /**
- * The output stage's plate chart: curves at the screen voltage as wired,
- * the DC and AC load lines, the point (drag: bias and B+) and the AC load
- * line's handle (drag: primary impedance). A rival tube's curves, lines and
- * point share the axes. The overlay follows the store by subscription.
+ * The output stage's plate chart, in the shell every plate chart shares:
+ * curves at the screen voltage as wired, the DC and AC load lines, the
+ * point (drag: bias and B+) and the AC load line's handle (drag: primary
+ * impedance), the targets' region over the plane of bias and B+. A rival
+ * tube's curves, lines and point share the axes. The overlay follows the
+ * store by subscription.
  */
 export function OutputChart() {
-  const store = useWorkbenchStore();
   const sheet = useWorkbench((s) => s.outputBench.analysis.sheet);
   const tubeId = useWorkbench((s) => s.design.output.tubeId);
   const pair = useWorkbench((s) => s.outputBench.pair === 'push-pull');
   const rivalSheet = useWorkbench((s) => (s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench.analysis.sheet : null));
   const rivalId = useWorkbench((s) => (s.outputRival.on ? s.outputRival.tubeId : null));
-  const frame = useRef<HTMLDivElement>(null);
-  const box = useChartBox(frame);
-  const scales = useMemo(() => plateScales(sheet.extent, box), [sheet.extent, box]);
+  const region = useWorkbench(currentOutputRegion);
+  const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
+  return (
+    <ChartShell
+      sheet={sheet}
+      rivalSheet={rivalSheet}
+      label={pair ? `Plate curves of one ${tubeId} of the push-pull pair with its composite load lines, the path it takes at full drive and its operating point` : `Plate curves of the ${tubeId} output stage with its load lines and operating point`}
+      region={{ plane: region }}
+      layers={(scales) => <OutputLayers scales={scales} />}
+      below={
+        <>
+          <DragNote />
+          <CurveDensity />
+          <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} region={regionKeys} readout={false} />
+        </>
+      }
+    />
+  );
+}
+
+/** The output stage's own layers and handles: its lines, the second tube's point, the AC load line's handle and the operating point. */
+function OutputLayers({ scales }: { scales: PlateScales }) {
+  const store = useWorkbenchStore();
+  const vmax = useWorkbench((s) => s.outputBench.analysis.sheet.extent.vmax);
+  const rivalId = useWorkbench((s) => (s.outputRival.on ? s.outputRival.tubeId : null));
   const lines = useRef<SVGGElement>(null);
   const point = useRef<SVGGElement>(null);
   const loadHandle = useRef<SVGGElement>(null);
   const rivalPoint = useRef<SVGGElement>(null);
-  const regionLayer = useRef<SVGGElement>(null);
-  const region = useWorkbench(currentOutputRegion);
-  useEffect(() => {
-    if (regionLayer.current) drawRegion(regionLayer.current, region, scales);
-  }, [region, scales]);
-  const regionKeys = useMemo(() => (region ? targetsWithEdges(region) : null), [region]);
 
   useEffect(() => {
     const nodes = { lines: lines.current!, point: point.current!, loadHandle: loadHandle.current!, rivalPoint: rivalPoint.current! };
@@ -83,24 +96,14 @@ export function OutputChart() {
     };
   }, [store, scales]);
 
-  const onPointKey = (e: KeyboardEvent<SVGGElement>) => {
-    const s = store.getState();
-    if ((e.key === 'Enter' || e.key === 'Escape') && s.dragging === 'output-point') {
-      e.preventDefault();
-      if (e.key === 'Enter') s.endDrag();
-      else s.cancelDrag();
-      return;
-    }
-    const step = e.shiftKey ? BIG_STEP : STEP;
-    const moves: Record<string, [number, number]> = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, step], ArrowDown: [0, -step] };
-    const m = moves[e.key];
-    if (!m) return;
-    e.preventDefault();
-    if (s.dragging !== 'output-point') s.beginDrag('output-point');
-    const { vmax, iaMax } = s.outputBench.analysis.sheet.extent;
-    const { vpk, ip } = benchPoint(store.getState().outputBench);
-    store.getState().dragOutputPointTo(vpk + m[0] * vmax, ip + m[1] * iaMax);
-  };
+  const onPointKey = (e: KeyboardEvent<SVGGElement>) =>
+    pointKey(e, store.getState(), store.getState().dragging === 'output-point', (dx, dy) => {
+      const s = store.getState();
+      if (s.dragging !== 'output-point') s.beginDrag('output-point');
+      const { vmax: vm, iaMax } = s.outputBench.analysis.sheet.extent;
+      const { vpk, ip } = benchPoint(store.getState().outputBench);
+      store.getState().dragOutputPointTo(vpk + dx * vm, ip + dy * iaMax);
+    });
   const onPointBlur = () => {
     if (store.getState().dragging === 'output-point') store.getState().endDrag();
   };
@@ -118,49 +121,28 @@ export function OutputChart() {
   };
 
   return (
-    <div className="chart-frame" ref={frame}>
-      <svg
-        className="plate-chart"
-        viewBox={`0 0 ${box.width} ${box.height}`}
-        width={box.width}
-        height={box.height}
-        role="group"
-        aria-label={pair ? `Plate curves of one ${tubeId} of the push-pull pair with its composite load lines, the path it takes at full drive and its operating point` : `Plate curves of the ${tubeId} output stage with its load lines and operating point`}
+    <>
+      <g ref={lines} className="layer-lines" pointerEvents="none" />
+      <g ref={rivalPoint} className="handle-rival fixed" role="img" aria-label={`Operating point of the ${rivalId ?? 'second tube'} with the same parts`} visibility="hidden">
+        <RivalMark />
+      </g>
+      <g ref={loadHandle} className="handle handle-load" role="slider" tabIndex={0} onKeyDown={onLoadKey}>
+        <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
+        <rect x={-5.5} y={-5.5} width={11} height={11} fill={PALETTE.sheet} stroke={PALETTE.load} strokeWidth={2.2} transform="rotate(45)" />
+      </g>
+      <g
+        ref={point}
+        className="handle handle-point"
+        role="slider"
+        tabIndex={0}
+        aria-label="Operating point: drag it to set the bias and B+, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)"
+        aria-valuemin={0}
+        aria-valuemax={vmax}
+        onKeyDown={onPointKey}
+        onBlur={onPointBlur}
       >
-        <RegionHatch />
-        <SheetLayers sheet={sheet} rivalSheet={rivalSheet} scales={scales} />
-        <g ref={regionLayer} className="layer-region" pointerEvents="none" />
-        <g ref={lines} className="layer-lines" pointerEvents="none" />
-        <g ref={rivalPoint} className="handle-rival fixed" role="img" aria-label={`Operating point of the ${rivalId ?? 'second tube'} with the same parts`} visibility="hidden">
-          <RivalMark />
-        </g>
-        <g
-          ref={loadHandle}
-          className="handle handle-load"
-          role="slider"
-          tabIndex={0}
-          onKeyDown={onLoadKey}
-        >
-          <rect x={-14} y={-14} width={28} height={28} fill="transparent" />
-          <rect x={-5.5} y={-5.5} width={11} height={11} fill={PALETTE.sheet} stroke={PALETTE.load} strokeWidth={2.2} transform="rotate(45)" />
-        </g>
-        <g
-          ref={point}
-          className="handle handle-point"
-          role="slider"
-          tabIndex={0}
-          aria-label="Operating point: drag it to set the bias and B+, or use the arrow keys (Shift for larger steps, Enter to settle, Escape to undo the move)"
-          aria-valuemin={0}
-          aria-valuemax={sheet.extent.vmax}
-          onKeyDown={onPointKey}
-          onBlur={onPointBlur}
-        >
-          <PointMark />
-        </g>
-      </svg>
-      <DragNote />
-      <CurveDensity />
-      <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} region={regionKeys} readout={false} />
-    </div>
+        <PointMark />
+      </g>
+    </>
   );
 }

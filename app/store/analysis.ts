@@ -63,8 +63,14 @@ export interface BenchDesign {
   readonly drivesOutput: boolean;
   /** The B+ supply, solved with the amplifier when it is on. */
   readonly supply: SupplyPlan;
-  /** What the builder asks of the bench's stage; the plate chart shades where it all holds. */
+  /** What the builder asks of the voltage stage on the bench (and its follower); the plate chart shades where it all holds. */
   readonly targets: TargetPlan;
+  /**
+   * What the builder asks of the output stage, kept apart: a power stage's
+   * output impedance (at the speaker), dissipation and swing are not a
+   * voltage stage's, and a target set for one must not empty the other's chart.
+   */
+  readonly outputTargets: TargetPlan;
 }
 
 /** Which stage the bench shows: a gain stage, its cathode follower (riding with it as `stage2`), or the output stage. */

@@ -1,7 +1,7 @@
 import { formatValue, parseValue } from '../../src/index';
 import type { OutputPlan, SplitterPlan } from './outputPlan';
 import type { BenchDesign } from './analysis';
-import type { TargetPlan } from './targetPlan';
+import { targetPlanOf, withTargetPlan, type TargetPlan } from './targetPlan';
 import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
@@ -69,8 +69,8 @@ const splitter = <K extends Exclude<keyof SplitterPlan, 'kind' | 'tubeId'>>(key:
 
 type NumericTarget = Exclude<keyof TargetPlan, 'heaterCathodeWithinRating'>;
 const target = <K extends NumericTarget>(key: K) => ({
-  get: (d: BenchDesign) => d.targets[key],
-  put: (d: BenchDesign, v: number | null) => ({ ...d, targets: { ...d.targets, [key]: v } }),
+  get: (d: BenchDesign) => targetPlanOf(d)[key],
+  put: (d: BenchDesign, v: number | null) => withTargetPlan(d, { ...targetPlanOf(d), [key]: v }),
 });
 /** A target box: empty (or "none") leaves the target off. */
 const optional = (read: Read): Read => (text) => (text.trim() === '' || text.trim().toLowerCase() === 'none' ? { ok: true, value: null } : read(text));

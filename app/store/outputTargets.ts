@@ -11,12 +11,12 @@ import type { WorkbenchState } from './workbenchStore';
  */
 export function outputRequestOf(s: WorkbenchState): { key: string; stage: OutputTargetStage; targets: Targets; extent: { vmax: number; iaMax: number } } | null {
   const d = s.design;
-  if (d.stageKind !== 'output' || !anyTarget(d.targets, 'output')) return null;
+  if (d.stageKind !== 'output' || !anyTarget(d.outputTargets, 'output')) return null;
   const o = d.output;
   const tube = findOutputTube(o.tubeId);
   if (!tube) return null;
   const stage: OutputTargetStage = o.pair === 'push-pull' ? { pair: 'push-pull', tube, design: pushPullDesignOf(o) } : { pair: 'single-ended', tube, design: outputDesignOf(o) };
-  const targets = targetsOf(d.targets);
+  const targets = targetsOf(d.outputTargets);
   const { vmax, iaMax } = s.outputBench.analysis.sheet.extent;
   const { bplus: _b, rk: _r, vg: _v, ...fixed } = stage.design;
   const key = JSON.stringify(['output', stage.pair, fixed, targets, vmax, iaMax]);

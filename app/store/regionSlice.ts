@@ -5,7 +5,7 @@ import { DESIGN_LIMITS } from './designLimits';
 import { loadAfterBench } from './stagePlans';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
-import { anyTarget, NO_TARGETS, targetsOf } from './targetPlan';
+import { anyTarget, NO_TARGETS, targetPlanOf, targetsOf, withTargetPlan } from './targetPlan';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
 /** Where the region is worked out: in a Web Worker on the page (regionThread), in place in tests. */
@@ -169,11 +169,11 @@ export const createRegionSlice =
     setKeepInside: (on) => set({ keepInside: on }),
     setHeaterTarget: (on) => {
       const d = get().design;
-      get().commit({ ...d, targets: { ...d.targets, heaterCathodeWithinRating: on } });
+      get().commit(withTargetPlan(d, { ...targetPlanOf(d), heaterCathodeWithinRating: on }));
     },
     clearTargets: () => {
       const d = get().design;
-      get().commit({ ...d, targets: NO_TARGETS });
+      get().commit(withTargetPlan(d, NO_TARGETS));
     },
     rankTubesNow: () => {
       const output = outputRequestOf(get());

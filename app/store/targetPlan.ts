@@ -56,5 +56,13 @@ export function targetsOf(p: TargetPlan): Targets {
   };
 }
 
+/** The targets of the stage the bench shows: the output stage's own, or the voltage stage's (its follower's with it). */
+export const targetPlanOf = (d: { readonly stageKind: string; readonly targets: TargetPlan; readonly outputTargets: TargetPlan }): TargetPlan => (d.stageKind === 'output' ? d.outputTargets : d.targets);
+
+/** The design with the shown stage's targets replaced. */
+export function withTargetPlan<D extends { readonly stageKind: string; readonly targets: TargetPlan; readonly outputTargets: TargetPlan }>(d: D, plan: TargetPlan): D {
+  return d.stageKind === 'output' ? { ...d, outputTargets: plan } : { ...d, targets: plan };
+}
+
 /** True when at least one target is set that says something of this kind of stage. */
 export const anyTarget = (p: TargetPlan, kind: TargetStageKind = 'voltage') => activeTargets(targetsOf(p), kind).length > 0;

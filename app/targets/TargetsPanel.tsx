@@ -1,6 +1,7 @@
 import { useId } from 'react';
 import { TARGET_LABELS, type FollowerRegion, type PlaneRegion, type TargetName } from '../../src/index';
 import type { RegionView } from '../store/regionSlice';
+import { targetPlanOf } from '../store/targetPlan';
 import { ohms, plain } from '../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../store/StoreProvider';
@@ -15,7 +16,7 @@ import { targetValueWords } from './targetValue';
  * misses. The region itself is worked out off the page's thread.
  */
 export function TargetsPanel() {
-  const heater = useWorkbench((s) => s.design.targets.heaterCathodeWithinRating);
+  const heater = useWorkbench((s) => targetPlanOf(s.design).heaterCathodeWithinRating);
   const keepInside = useWorkbench((s) => s.keepInside);
   const output = useWorkbench((s) => s.design.stageKind === 'output');
   const cathodeBias = useWorkbench((s) => s.design.output.bias === 'cathode');

@@ -127,7 +127,7 @@ describe('targets on the output bench', () => {
   it('a power target hatches the idle points (bias and B+) that meet it at this primary: the model\'s own cells', async () => {
     const { store, view } = await onOutput('4', '5');
     const d = store.getState().design.output;
-    expect(store.getState().design.targets).toMatchObject({ minPowerW: 4, powerThd: 0.05 });
+    expect(store.getState().design.outputTargets).toMatchObject({ minPowerW: 4, powerThd: 0.05 });
     const { pair: _p, splitter: _s, raa: _r, mismatch: _m, idleMismatch: _i, ...design } = d;
     const model = outputRegion({ pair: 'single-ended', tube: findOutputTube('EL34')!, design }, { minPower: { power: 4, thd: 0.05 } }, { nx: 60, ny: 40, extent: store.getState().outputBench.analysis.sheet.extent });
     if (!model.ok) throw new Error(model.message);
@@ -140,6 +140,33 @@ describe('targets on the output bench', () => {
     // The gain stage's boxes are not offered here: they say nothing of an output stage.
     expect(screen.queryByRole('textbox', { name: /^Least gain/ })).toBeNull();
   }, 20_000);
+
+  it('keeps its own targets: the voltage stage\'s Zout and dissipation are not the output stage\'s, and neither empties the other\'s chart', async () => {
+    const s = setup();
+    await s.user.type(s.field(/^Most Zout/), '20k');
+    await s.user.type(s.field(/^Most plate dissipation/), '40');
+    act(() => s.store.getState().setStageKind('output'));
+    // The output bench's boxes start empty: the voltage stage's 20 kΩ and 40 % are not its.
+    expect(s.field(/^Most Zout/).value).toBe('');
+    await s.user.type(s.field(/^Most Zout/), '2');
+    await s.user.type(s.field(/^Least power/), '4');
+    await s.user.type(s.field(/^within THD/), '5');
+    await waitFor(() => expect(s.store.getState().outputRegion?.complete).toBe(true));
+    expect(s.store.getState().design.outputTargets).toMatchObject({ maxZout: 2, minPowerW: 4, maxDissipationFraction: null });
+    expect(s.store.getState().design.targets).toMatchObject({ maxZout: 20e3, maxDissipationFraction: 0.4, minPowerW: null });
+    act(() => s.store.getState().setStageKind('voltage'));
+    expect(s.field(/^Most Zout/).value).toBe('20k');
+    await waitFor(() => expect(s.store.getState().region?.complete).toBe(true));
+    const r = s.store.getState().region!.result;
+    if (!r.ok) throw new Error(r.message);
+    // The gain stage's region answers its own two targets only (the output stage's 2 Ω would empty it).
+    expect(r.inside.flat().some(Boolean)).toBe(true);
+    // Clearing on the output bench clears its targets only.
+    act(() => s.store.getState().setStageKind('output'));
+    await s.user.click(screen.getByRole('button', { name: 'Clear targets' }));
+    expect(s.store.getState().design.outputTargets.maxZout).toBeNull();
+    expect(s.store.getState().design.targets.maxZout).toBe(20e3);
+  }, 30_000);
 
   it('judges the stage at its idle point, on the panel and the card; the best point is one click away', async () => {
     const { store, user, view } = await onOutput('4', '5');

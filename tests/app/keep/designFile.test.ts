@@ -5,6 +5,7 @@ import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
 import { readShareFragment, shareFragment } from '../../../app/keep/shareLink';
 import { IDEAL_CC, voltageStages } from '../../../app/store/stagePlans';
 import type { BenchDesign } from '../../../app/store/analysis';
+import { NO_TARGETS } from '../../../app/store/targetPlan';
 
 const doc = {
   title: 'Phono second stage',
@@ -95,6 +96,16 @@ describe('design files', () => {
     expect(back.ok && back.doc).toEqual(joined);
     const before = readDesignFile(variant((f) => { delete f.design.drivesOutput; }));
     expect(before.ok && before.doc.design.drivesOutput).toBe(false);
+  });
+
+  it('each bench\'s targets round-trip apart; a file written before the output stage had its own opens with none set for it', () => {
+    const withTargets = { ...doc, design: { ...doc.design, targets: { ...NO_TARGETS, minGain: 30, maxZout: 20e3 }, outputTargets: { ...NO_TARGETS, minPowerW: 8, powerThd: 0.05, maxZout: 1.5 } } };
+    const back = readDesignFile(writeDesignFile(withTargets));
+    expect(back.ok && back.doc).toEqual(withTargets);
+    const older = readDesignFile(variant((f) => { delete f.design.outputTargets; }));
+    expect(older.ok && older.doc.design.outputTargets).toEqual(NO_TARGETS);
+    const bad = readDesignFile(variant((f) => { f.design.outputTargets = { ...NO_TARGETS, minPowerW: -3 }; }));
+    expect(!bad.ok && bad.message).toMatch(/^design\.outputTargets\.minPowerW /);
   });
 
   it('a chain of four voltage stages round-trips, the bench on the third', () => {
