@@ -1,6 +1,7 @@
 import { ohms, percentOf, volts } from '../format';
-import { Capacitor, Ground, Resistor, Triode } from '../schematic/symbols';
-import { Dot, Pentode, Wire, Winding } from '../schematic/symbols2';
+import { Capacitor, Resistor, Winding } from '../schematic/parts';
+import { Pentode, Triode } from '../schematic/tubes';
+import { Dot, Ground, Wire } from '../schematic/wiring';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 
 /**

@@ -1,11 +1,12 @@
 import { memo, type KeyboardEvent, type ReactNode } from 'react';
+import { Capacitor, Resistor, Winding } from './parts';
+import { Pentode, Triode } from './tubes';
+import { Dot, Ground, Wire } from './wiring';
 import { farads, ohms, volts } from '../format';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../store/StoreProvider';
 import { benchIndex, voltageStages, type FollowerPlan, type GainPlan } from '../store/stagePlans';
 import { drivesPair, type SplitterPlan } from '../store/outputPlan';
-import { Capacitor, Ground, Resistor, Triode } from './symbols';
-import { Dot, Pentode, Winding, Wire } from './symbols2';
 
 /** The drawing's rows, in its own units: the B+ rail, the grids, the plate and cathode outputs, ground. */
 const RAIL = 30;

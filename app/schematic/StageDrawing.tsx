@@ -1,7 +1,8 @@
 import { memo } from 'react';
+import { Capacitor, HResistor, Resistor } from './parts';
+import { Triode } from './tubes';
+import { Dot, Ground, Wire } from './wiring';
 import type { BenchDesign } from '../store/analysis';
-import { Capacitor, Ground, Resistor, Triode } from './symbols';
-import { Dot, HResistor, Wire } from './symbols2';
 
 /** The drawing's grid, in viewBox units. */
 export const H = 400;

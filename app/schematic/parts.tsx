@@ -1,9 +1,10 @@
 /**
- * Schematic symbols, drawn in our own style: resistors as rectangles (the
- * IEC 60617 form), capacitors as two plates, the triode as an envelope with
- * plate, grid and cathode. Coordinates are the schematic's own user units.
+ * The passive parts, drawn in our own style: resistors as rectangles (the
+ * IEC 60617 form), upright or lying; capacitors as two plates; a
+ * transformer's winding as a row of loops. Coordinates are the schematic's
+ * own user units.
  */
-const INK = '#1d2329';
+import { INK } from './ink';
 
 /** A vertical resistor between (x, y1) and (x, y2). */
 export function Resistor({ x, y1, y2, faded = false }: { x: number; y1: number; y2: number; faded?: boolean }) {
@@ -14,6 +15,18 @@ export function Resistor({ x, y1, y2, faded = false }: { x: number; y1: number; 
       <line x1={x} x2={x} y1={y1} y2={mid - body / 2} />
       <rect x={x - 8} y={mid - body / 2} width={16} height={body} fill="#fff" />
       <line x1={x} x2={x} y1={mid + body / 2} y2={y2} />
+    </g>
+  );
+}
+
+export function HResistor({ x1, x2, y }: { x1: number; x2: number; y: number }) {
+  const mid = (x1 + x2) / 2;
+  const body = Math.min(36, (x2 - x1) * 0.6);
+  return (
+    <g stroke={INK} strokeWidth={2} fill="none">
+      <line x1={x1} x2={mid - body / 2} y1={y} y2={y} />
+      <rect x={mid - body / 2} y={y - 7} width={body} height={14} fill="#fff" />
+      <line x1={mid + body / 2} x2={x2} y1={y} y2={y} />
     </g>
   );
 }
@@ -48,28 +61,9 @@ export function Capacitor({ at, from, to, vertical, faded = false, polarised = f
   );
 }
 
-export function Ground({ x, y }: { x: number; y: number }) {
-  return (
-    <g stroke={INK} strokeWidth={2}>
-      <line x1={x} x2={x} y1={y - 8} y2={y} />
-      <line x1={x - 11} x2={x + 11} y1={y} y2={y} />
-      <line x1={x - 7} x2={x + 7} y1={y + 4} y2={y + 4} />
-      <line x1={x - 3} x2={x + 3} y1={y + 8} y2={y + 8} />
-    </g>
-  );
-}
-
-/** A triode centred at (cx, cy): plate on top, grid across the middle (dashed), cathode below. */
-export function Triode({ cx, cy, r = 36 }: { cx: number; cy: number; r?: number }) {
-  return (
-    <g stroke={INK} strokeWidth={2} fill="none">
-      <circle cx={cx} cy={cy} r={r} />
-      <line x1={cx - 14} x2={cx + 14} y1={cy - 16} y2={cy - 16} strokeWidth={3} />
-      <line x1={cx} x2={cx} y1={cy - r} y2={cy - 16} />
-      <line x1={cx - 18} x2={cx + 18} y1={cy} y2={cy} strokeDasharray="4 3" />
-      <line x1={cx - r} x2={cx - 18} y1={cy} y2={cy} />
-      <polyline points={`${cx - 14},${cy + 12} ${cx - 14},${cy + 17} ${cx + 14},${cy + 17}`} />
-      <line x1={cx} x2={cx} y1={cy + 17} y2={cy + r} />
-    </g>
-  );
+/** A winding from (x, y1) down to (x, y2) as a row of half-loops bulging toward `side`. */
+export function Winding({ x, y1, y2, side, turns = 5 }: { x: number; y1: number; y2: number; side: 1 | -1; turns?: number }) {
+  const h = (y2 - y1) / turns;
+  const d = Array.from({ length: turns }, (_, k) => `A ${h / 2} ${h / 2} 0 0 ${side > 0 ? 1 : 0} ${x} ${y1 + (k + 1) * h}`).join(' ');
+  return <path d={`M ${x} ${y1} ${d}`} fill="none" stroke={INK} strokeWidth={2} />;
 }

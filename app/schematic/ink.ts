@@ -1,0 +1,2 @@
+/** The schematic's one ink. */
+export const INK = '#1d2329';
