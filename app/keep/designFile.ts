@@ -191,6 +191,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     levelRms: d.levelRms as number,
     thdLimit: (d.thdLimit as number | undefined) ?? TABLE_THD,
     targets: { ...NO_TARGETS, ...(d.targets as Partial<TargetPlan> | undefined) },
+    followerTargets: { ...NO_TARGETS, ...(d.followerTargets as Partial<TargetPlan> | undefined) },
     outputTargets: { ...NO_TARGETS, ...(d.outputTargets as Partial<TargetPlan> | undefined) },
     stage2: {
       kind: s2.kind as Stage2Design['kind'],

@@ -63,8 +63,10 @@ export interface BenchDesign {
   readonly drivesOutput: boolean;
   /** The B+ supply, solved with the amplifier when it is on. */
   readonly supply: SupplyPlan;
-  /** What the builder asks of the voltage stage on the bench (and its follower); the plate chart shades where it all holds. */
+  /** What the builder asks of the voltage stage on the bench; the plate chart shades where it all holds. */
   readonly targets: TargetPlan;
+  /** What the builder asks of its cathode follower, kept apart (a follower's Zout and gain are not a gain stage's). */
+  readonly followerTargets: TargetPlan;
   /**
    * What the builder asks of the output stage, kept apart: a power stage's
    * output impedance (at the speaker), dissipation and swing are not a

@@ -30,6 +30,7 @@ export const DEMO_DESIGN: BenchDesign = {
   levelRms: 2,
   thdLimit: TABLE_THD,
   targets: NO_TARGETS,
+  followerTargets: NO_TARGETS,
   outputTargets: NO_TARGETS,
   stage2: { kind: 'none', tubeId: '12AU7', ra: 22e3, rk: 22e3, rg: 470e3 },
   // The input stage: a 12AX7 section, 100 kΩ plate, 1.5 kΩ cathode left unbypassed (its feedback keeps the gain near 30

@@ -103,9 +103,9 @@ export function regionRequestOf(s: WorkbenchState): { key: string; stage: Region
 export function followerRequestOf(s: WorkbenchState): { key: string; stage: FollowerTargetStage; targets: Targets } | null {
   const d = s.design;
   const f = s.followerBench;
-  if (d.stageKind !== 'follower' || !f || !anyTarget(d.targets, 'follower')) return null;
+  if (d.stageKind !== 'follower' || !f || !anyTarget(d.followerTargets, 'follower')) return null;
   const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl };
-  const targets = targetsOf(d.targets);
+  const targets = targetsOf(d.followerTargets);
   return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, targets]), stage, targets };
 }
 

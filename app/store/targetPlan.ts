@@ -56,12 +56,20 @@ export function targetsOf(p: TargetPlan): Targets {
   };
 }
 
-/** The targets of the stage the bench shows: the output stage's own, or the voltage stage's (its follower's with it). */
-export const targetPlanOf = (d: { readonly stageKind: string; readonly targets: TargetPlan; readonly outputTargets: TargetPlan }): TargetPlan => (d.stageKind === 'output' ? d.outputTargets : d.targets);
+/** A design's three plans: the gain stage's, its follower's and the output stage's, each kept apart. */
+interface Planned {
+  readonly stageKind: string;
+  readonly targets: TargetPlan;
+  readonly followerTargets: TargetPlan;
+  readonly outputTargets: TargetPlan;
+}
+
+/** The targets of the stage the bench shows (a target set for one stage says nothing of another's). */
+export const targetPlanOf = (d: Planned): TargetPlan => (d.stageKind === 'output' ? d.outputTargets : d.stageKind === 'follower' ? d.followerTargets : d.targets);
 
 /** The design with the shown stage's targets replaced. */
-export function withTargetPlan<D extends { readonly stageKind: string; readonly targets: TargetPlan; readonly outputTargets: TargetPlan }>(d: D, plan: TargetPlan): D {
-  return d.stageKind === 'output' ? { ...d, outputTargets: plan } : { ...d, targets: plan };
+export function withTargetPlan<D extends Planned>(d: D, plan: TargetPlan): D {
+  return d.stageKind === 'output' ? { ...d, outputTargets: plan } : d.stageKind === 'follower' ? { ...d, followerTargets: plan } : { ...d, targets: plan };
 }
 
 /** True when at least one target is set that says something of this kind of stage. */

@@ -40,7 +40,7 @@ export function TargetsPanel() {
       <h2 id={`${id}-h`}>Targets for this stage</h2>
       <p className="panel-note">
         {follower
-          ? 'Leave a box empty to leave that target out. With its grid held by the plate before it, the follower\'s Rk moves it along one line: the chart marks the stretches of that line where all of them hold. Ra\'s range does not apply to a follower.'
+          ? 'Leave a box empty to leave that target out. With its grid held by the plate before it, the follower\'s Rk moves it along one line: the chart marks the stretches of that line where all of them hold. The follower keeps its own targets, apart from its gain stage\'s.'
           : output
             ? 'Leave a box empty to leave that target out. Each point of the chart is an idle point the bias and B+ can give the tube at this load: the chart hatches those where every target holds. Power and THD are into the primary\'s load; output impedance is at the speaker.'
             : 'Leave a box empty to leave that target out. The chart hatches every operating point (at this B+ and load) where all of them hold.'}
@@ -65,8 +65,8 @@ export function TargetsPanel() {
         <ValueField field="tThdLevel" />
         <ValueField field="tDiss" />
         <ValueField field="tZout" />
-        <ValueField field="tRaMin" />
-        <ValueField field="tRaMax" />
+        {follower ? null : <ValueField field="tRaMin" />}
+        {follower ? null : <ValueField field="tRaMax" />}
         <ValueField field="tRkMin" />
         <ValueField field="tRkMax" />
         <ValueField field="tHeadroom" hint="to grid current or cutoff, whichever is nearer" />

@@ -99,11 +99,12 @@ describe('design files', () => {
   });
 
   it('each bench\'s targets round-trip apart; a file written before the output stage had its own opens with none set for it', () => {
-    const withTargets = { ...doc, design: { ...doc.design, targets: { ...NO_TARGETS, minGain: 30, maxZout: 20e3 }, outputTargets: { ...NO_TARGETS, minPowerW: 8, powerThd: 0.05, maxZout: 1.5 } } };
+    const withTargets = { ...doc, design: { ...doc.design, targets: { ...NO_TARGETS, minGain: 30, maxZout: 20e3 }, followerTargets: { ...NO_TARGETS, maxZout: 400 }, outputTargets: { ...NO_TARGETS, minPowerW: 8, powerThd: 0.05, maxZout: 1.5 } } };
     const back = readDesignFile(writeDesignFile(withTargets));
     expect(back.ok && back.doc).toEqual(withTargets);
-    const older = readDesignFile(variant((f) => { delete f.design.outputTargets; }));
+    const older = readDesignFile(variant((f) => { delete f.design.outputTargets; delete f.design.followerTargets; }));
     expect(older.ok && older.doc.design.outputTargets).toEqual(NO_TARGETS);
+    expect(older.ok && older.doc.design.followerTargets).toEqual(NO_TARGETS);
     const bad = readDesignFile(variant((f) => { f.design.outputTargets = { ...NO_TARGETS, minPowerW: -3 }; }));
     expect(!bad.ok && bad.message).toMatch(/^design\.outputTargets\.minPowerW /);
   });

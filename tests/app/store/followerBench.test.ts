@@ -1,4 +1,5 @@
 import { describe, expect, it, vi } from 'vitest';
+import { NO_TARGETS } from '../../../app/store/targetPlan';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { chartCaption } from '../../../app/export/chartCaption';
 import { benchIndex, voltageStages } from '../../../app/store/stagePlans';
@@ -99,6 +100,9 @@ describe('targets for the follower on the bench', () => {
     const store = followerOnBench();
     store.getState().editField('tDiss', '50');
     store.getState().editField('tClean', '20');
+    // The follower's own targets: its gain stage's stay as they were.
+    expect(store.getState().design.followerTargets).toMatchObject({ maxDissipationFraction: 0.5, minCleanOutputRms: 20 });
+    expect(store.getState().design.targets).toEqual(NO_TARGETS);
     await vi.waitFor(() => expect(store.getState().followerRegion?.result.ok).toBe(true), { timeout: 10_000 });
     const region = store.getState().followerRegion!.result;
     if (!region.ok) throw new Error(region.message);
