@@ -253,6 +253,15 @@ export const createRegionSlice =
 export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
   let running = false;
   let waiting = false;
+  /** The coarse grid, then the full one, each shown as it comes; dropped when the request has changed, cut short when a newer one waits. */
+  const coarseThenFull = async <R,>(key: string, current: () => string | undefined, solve: (grid: RegionGrid) => Promise<Result<R>>, show: (view: RegionView<R>) => void) => {
+    for (const [grid, complete] of [[COARSE_GRID, false], [FULL_GRID, true]] as const) {
+      const result = await solve(grid);
+      if (current() !== key) return;
+      show({ key, result, complete });
+      if (waiting) return;
+    }
+  };
   const run = async () => {
     if (running) {
       waiting = true;
@@ -265,12 +274,7 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
         const output = outputRequestOf(store.getState());
         if (output) {
           if (store.getState().outputRegion?.key === output.key && store.getState().outputRegion?.complete) break;
-          for (const [grid, complete] of [[COARSE_GRID, false], [FULL_GRID, true]] as const) {
-            const result = await solver.outputRegion(output.stage, output.targets, { ...grid, extent: output.extent });
-            if (outputRequestOf(store.getState())?.key !== output.key) break;
-            store.setState({ outputRegion: { key: output.key, result, complete } });
-            if (waiting) break;
-          }
+          await coarseThenFull(output.key, () => outputRequestOf(store.getState())?.key, (grid) => solver.outputRegion(output.stage, output.targets, { ...grid, extent: output.extent }), (outputRegion) => store.setState({ outputRegion }));
           continue;
         }
         if (store.getState().outputRegion) store.setState({ outputRegion: null });
@@ -289,12 +293,7 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
           break;
         }
         if (store.getState().region?.key === req.key && store.getState().region?.complete) break;
-        for (const [grid, complete] of [[COARSE_GRID, false], [FULL_GRID, true]] as const) {
-          const result = await solver.region(req.stage, req.targets, { ...grid, extent: req.extent });
-          if (regionRequestOf(store.getState())?.key !== req.key) break;
-          store.setState({ region: { key: req.key, result, complete } });
-          if (waiting) break;
-        }
+        await coarseThenFull(req.key, () => regionRequestOf(store.getState())?.key, (grid) => solver.region(req.stage, req.targets, { ...grid, extent: req.extent }), (region) => store.setState({ region }));
       } while (waiting);
     } finally {
       running = false;
