@@ -45,6 +45,8 @@ const TARGETS = section({
   powerThd: v.optional(rangedOrNull(L.targets.thd)),
   thdPowerW: v.optional(rangedOrNull(L.targets.power)),
   maxThdAtPower: v.optional(rangedOrNull(L.targets.thd)),
+  bplusMin: v.optional(rangedOrNull(L.output.bplus)),
+  bplusMax: v.optional(rangedOrNull(L.output.bplus)),
 });
 
 /** The voltage stage on the bench and the amplifier's own values (every version). */

@@ -10,7 +10,7 @@ export type FieldName =
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
   | 'tGain' | 'tClean' | 'tThdLevel' | 'tThd' | 'tDiss' | 'tZout' | 'tRaMin' | 'tRaMax' | 'tRkMin' | 'tRkMax' | 'tHeadroom'
-  | 'tPower' | 'tPowerThd' | 'tThdPower' | 'tThdAtPower';
+  | 'tPower' | 'tPowerThd' | 'tThdPower' | 'tThdAtPower' | 'tBplusMin' | 'tBplusMax';
 
 type Read = (text: string) => { ok: true; value: number | null } | { ok: false; message: string };
 
@@ -148,6 +148,8 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   tPowerThd: { label: 'within THD', unit: '%', example: 'off, e.g. 5', read: optional(percent('THD', L.targets.thd)), show: showPercent, ...target('powerThd') },
   tThdPower: { label: 'THD measured at', unit: 'W', example: 'off, e.g. 1', read: optional(ranged('Power', L.targets.power)), show: showOptional(compact), ...target('thdPowerW') },
   tThdAtPower: { label: 'Most THD there', unit: '%', example: 'off, e.g. 2', read: optional(percent('THD', L.targets.thd)), show: showPercent, ...target('maxThdAtPower') },
+  tBplusMin: { label: 'Lowest B+', unit: 'V', example: 'off, e.g. 300', read: optional(ranged('B+', L.output.bplus)), show: showOptional(compact), ...target('bplusMin') },
+  tBplusMax: { label: 'Highest B+', unit: 'V', example: 'off, e.g. 360', read: optional(ranged('B+', L.output.bplus)), show: showOptional(compact), ...target('bplusMax') },
 };
 
 export const FIELD_NAMES = Object.keys(FIELDS) as FieldName[];

@@ -25,12 +25,15 @@ export interface TargetPlan {
   /** Output stages: THD at most `maxThdAtPower` (a fraction) at `thdPowerW` (W): both set, or the target is off. */
   readonly thdPowerW: number | null;
   readonly maxThdAtPower: number | null;
+  /** Output stages: B+ within these ends (either may be open), V. */
+  readonly bplusMin: number | null;
+  readonly bplusMax: number | null;
 }
 
 export const NO_TARGETS: TargetPlan = Object.freeze({
   minGain: null, minCleanOutputRms: null, thdLevelRms: null, maxThd: null, maxDissipationFraction: null, maxZout: null,
   raMin: null, raMax: null, rkMin: null, rkMax: null, minGridHeadroom: null, heaterCathodeWithinRating: false,
-  minPowerW: null, powerThd: null, thdPowerW: null, maxThdAtPower: null,
+  minPowerW: null, powerThd: null, thdPowerW: null, maxThdAtPower: null, bplusMin: null, bplusMax: null,
 });
 
 /** A range from two optional ends: one end alone leaves the other open. */
@@ -41,6 +44,7 @@ const rangeOf = (lo: number | null, hi: number | null): readonly [number, number
 export function targetsOf(p: TargetPlan): Targets {
   const ra = rangeOf(p.raMin, p.raMax);
   const rk = rangeOf(p.rkMin, p.rkMax);
+  const bplus = rangeOf(p.bplusMin, p.bplusMax);
   return {
     ...(p.minGain !== null ? { minGain: p.minGain } : {}),
     ...(p.minCleanOutputRms !== null ? { minCleanOutputRms: p.minCleanOutputRms } : {}),
@@ -53,6 +57,7 @@ export function targetsOf(p: TargetPlan): Targets {
     ...(p.heaterCathodeWithinRating ? { heaterCathodeWithinRating: true } : {}),
     ...(p.minPowerW !== null && p.powerThd !== null ? { minPower: { power: p.minPowerW, thd: p.powerThd } } : {}),
     ...(p.thdPowerW !== null && p.maxThdAtPower !== null ? { maxThdAtPower: { power: p.thdPowerW, thd: p.maxThdAtPower } } : {}),
+    ...(bplus ? { bplusRange: bplus } : {}),
   };
 }
 

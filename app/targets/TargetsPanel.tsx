@@ -53,6 +53,8 @@ export function TargetsPanel() {
           <ValueField field="tThdAtPower" />
           <ValueField field="tDiss" hint="at idle" />
           <ValueField field="tZout" hint="at the speaker" />
+          <ValueField field="tBplusMin" hint="what the supply can give" />
+          <ValueField field="tBplusMax" />
           {cathodeBias ? <ValueField field="tRkMin" /> : null}
           {cathodeBias ? <ValueField field="tRkMax" /> : null}
           <ValueField field="tHeadroom" hint="to grid current or cutoff, whichever is nearer" />

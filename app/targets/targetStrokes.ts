@@ -17,4 +17,5 @@ export const TARGET_DASH: Readonly<Record<TargetName, string>> = {
   heaterCathodeWithinRating: '1 5 6 5',
   minPower: '10 2 2 2',
   maxThdAtPower: '5 3 1 3 1 3',
+  bplusRange: '14 4 4 4',
 };

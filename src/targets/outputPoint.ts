@@ -11,7 +11,7 @@ import { plateToPlateImpedance } from '../pushpull/pushPullFigures';
 import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
 import type { CostlyPart } from './refinePlane';
 import type { TargetName, Targets } from './targets';
-import { sharedMargin, type RatedLimits, type SharedFigures } from './verdict';
+import { sharedMargin, withinRange, type RatedLimits, type SharedFigures } from './verdict';
 
 /**
  * One output stage against its targets: one tube (single-ended) or a pair
@@ -36,6 +36,8 @@ export const COSTLY_TARGETS: readonly TargetName[] = ['minPower', 'maxThdAtPower
 /** A stage solved at its idle point: the figures at hand, and the large-signal ones from a transfer built on first asking. */
 export interface SolvedOutput {
   readonly shared: SharedFigures;
+  /** The supply at the primary's B+ end (the centre tap for a pair), V. */
+  readonly bplus: number;
   /** The clean grid swing to grid current or cutoff, V peak. */
   readonly headroom: () => number;
   /** The most power within a THD, W. */
@@ -58,6 +60,7 @@ export function singleEndedFigures(s: OutputSolution): SolvedOutput {
   const t = () => (transfer ??= singleEndedTransfer(s));
   return {
     shared: { pa: op.pa, zout: ((op.rp + design.rPrimary) * design.speakerOhms) / design.zPrimary, rk: design.bias === 'cathode' ? design.rk : 0, vhk: op.vk },
+    bplus: design.bplus,
     headroom: () => driveToFloor(t(), CUTOFF_SHARE * op.ip) ?? t().span,
     powerWithin: (thd) => powerWithin(t(), thd).power,
     thdAtPower: (power) => thdAt(t(), power),
@@ -72,6 +75,7 @@ export function pairFigures(s: PushPullSolution): SolvedOutput {
   const zpp = plateToPlateImpedance(s);
   return {
     shared: { pa: Math.max(s.idle[0].pa, s.idle[1].pa), zout: zpp === null ? Infinity : (zpp * d.speakerOhms) / d.raa, rk: d.bias === 'cathode' ? d.rk : 0, vhk: s.vk },
+    bplus: d.bplus,
     headroom: () => Math.max(0, Math.min(-s.vgk, -s.vgk2)),
     powerWithin: (thd) => highestWithin(t(), thd)?.power ?? 0,
     thdAtPower: (power) => thdAt(t(), power),
@@ -109,11 +113,16 @@ export function placeOutput(stage: OutputTargetStage, vpk: number, ip: number): 
   return s.ok ? { parts: { bplus: b.bplus, rk: cathode ? b.rk : 0, vg: b.vgk }, solved: pairFigures(s) } : null;
 }
 
-/** The targets answered from the figures at hand (dissipation, output impedance, Rk, heater–cathode). */
+/** The targets answered from the figures at hand (dissipation, output impedance, Rk, B+, heater–cathode). */
 export function plainPart(active: readonly TargetName[], targets: Targets, s: SolvedOutput, limits: RatedLimits): Pick<CostlyPart, 'margins' | 'values'> {
   const margins: Partial<Record<TargetName, number>> = {};
   const values: Partial<Record<TargetName, number | null>> = {};
   for (const k of active) {
+    if (k === 'bplusRange') {
+      values.bplusRange = s.bplus;
+      margins.bplusRange = withinRange(s.bplus, targets.bplusRange!);
+      continue;
+    }
     const m = sharedMargin(k, s.shared, limits, targets);
     if (m) {
       values[k] = m.value;

@@ -27,12 +27,14 @@ export interface Targets {
   readonly minPower?: { readonly power: number; readonly thd: number };
   /** Output stages: the most THD (a fraction) at an output power, W, the power within reach before grid current. */
   readonly maxThdAtPower?: { readonly power: number; readonly thd: number };
+  /** Output stages: B+ within this range, V (what the supply can give: an output stage's point sets its B+). */
+  readonly bplusRange?: readonly [number, number];
 }
 
 export type TargetName = keyof Targets;
 
 /** Every target, in the order the bench lists them. */
-export const TARGET_NAMES: readonly TargetName[] = ['minGain', 'minCleanOutputRms', 'maxThdAt', 'minPower', 'maxThdAtPower', 'maxDissipationFraction', 'maxZout', 'raRange', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'];
+export const TARGET_NAMES: readonly TargetName[] = ['minGain', 'minCleanOutputRms', 'maxThdAt', 'minPower', 'maxThdAtPower', 'maxDissipationFraction', 'maxZout', 'raRange', 'rkRange', 'bplusRange', 'minGridHeadroom', 'heaterCathodeWithinRating'];
 
 /** What a stage on the bench is, as far as targets go. */
 export type TargetStageKind = 'voltage' | 'follower' | 'output';
@@ -46,7 +48,7 @@ export type TargetStageKind = 'voltage' | 'follower' | 'output';
 export const TARGETS_OF_KIND: Readonly<Record<TargetStageKind, readonly TargetName[]>> = {
   voltage: ['minGain', 'minCleanOutputRms', 'maxThdAt', 'maxDissipationFraction', 'maxZout', 'raRange', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
   follower: ['minGain', 'minCleanOutputRms', 'maxThdAt', 'maxDissipationFraction', 'maxZout', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
-  output: ['minPower', 'maxThdAtPower', 'maxDissipationFraction', 'maxZout', 'rkRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
+  output: ['minPower', 'maxThdAtPower', 'maxDissipationFraction', 'maxZout', 'rkRange', 'bplusRange', 'minGridHeadroom', 'heaterCathodeWithinRating'],
 };
 
 /** Each target in a builder's words, for keys, readouts and messages. */
@@ -62,6 +64,7 @@ export const TARGET_LABELS: Readonly<Record<TargetName, string>> = {
   heaterCathodeWithinRating: 'heater–cathode',
   minPower: 'power',
   maxThdAtPower: 'THD at power',
+  bplusRange: 'B+ range',
 };
 
 /** The targets that are set and say something of this kind of stage (a gain stage unless named), in TARGET_NAMES order. */
@@ -93,6 +96,7 @@ export function targetsProblem(t: unknown): Failure | null {
   if (x.maxZout !== undefined && !positive(x.maxZout)) return bad('maxZout', 'the most output impedance must be above 0 Ω', x.maxZout);
   if (x.raRange !== undefined && !range(x.raRange)) return bad('raRange', 'give two resistances, the lower first', x.raRange);
   if (x.rkRange !== undefined && !range(x.rkRange)) return bad('rkRange', 'give two resistances, the lower first', x.rkRange);
+  if (x.bplusRange !== undefined && !range(x.bplusRange)) return bad('bplusRange', 'give two voltages, the lower first', x.bplusRange);
   if (x.minGridHeadroom !== undefined && !positive(x.minGridHeadroom)) return bad('minGridHeadroom', 'the least grid swing must be above 0 V', x.minGridHeadroom);
   if (x.heaterCathodeWithinRating !== undefined && typeof x.heaterCathodeWithinRating !== 'boolean') return bad('heaterCathodeWithinRating', 'must be true or false', x.heaterCathodeWithinRating);
   return null;

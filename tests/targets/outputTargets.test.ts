@@ -40,6 +40,7 @@ function meets(d: OutputDesign, t: Targets, vpk: number, ip: number): boolean | 
     if (thd === null || thd > t.maxThdAtPower.thd) return false;
   }
   if (t.rkRange && (s.design.rk < t.rkRange[0] || s.design.rk > t.rkRange[1])) return false;
+  if (t.bplusRange && (b.bplus < t.bplusRange[0] || b.bplus > t.bplusRange[1])) return false;
   if (t.heaterCathodeWithinRating && s.op.vk > el34.ratings.maxHeaterCathodeVoltage!) return false;
   return true;
 }
@@ -59,6 +60,7 @@ describe('where an output stage meets its targets', () => {
     ['pentode, cathode bias: power within 10 %, THD at 1 W, dissipation', se, { minPower: { power: 4, thd: 0.1 }, maxThdAtPower: { power: 1, thd: 0.05 }, maxDissipationFraction: 0.9 }],
     ['ultralinear, fixed bias: power within 5 % and dissipation', { ...se, connection: 'ultralinear', screenVolts: 350, bias: 'fixed' }, { minPower: { power: 2.5, thd: 0.05 }, maxDissipationFraction: 0.9 }],
     ['pentode: Rk range and heater–cathode', se, { rkRange: [150, 330], heaterCathodeWithinRating: true, maxDissipationFraction: 1 }],
+    ['pentode: what a 260–400 V supply gives, power within 10 % and dissipation', se, { bplusRange: [260, 400], minPower: { power: 3, thd: 0.1 }, maxDissipationFraction: 0.9 }],
   ];
   it.each(cases)('%s: every point off the boundary is what the direct calls say, inside or out', (_name, design, targets) => {
     // Over the stretch of the plane where these regions lie.
@@ -154,6 +156,18 @@ describe('where an output stage meets its targets', () => {
     if (!s.ok) throw new Error(s.message);
     expect(powerAtDistortion(s, 0.05).power).toBeGreaterThanOrEqual(6 * 0.99);
     expect(s.op.pa).toBeLessThanOrEqual(0.85 * tube.ratings.maxPlateDissipation * 1.001);
+  });
+
+  it('ranks within the B+ the supply can give: every tube that meets its targets idles on a B+ inside the range', () => {
+    const targets: Targets = { minPower: { power: 4, thd: 0.05 }, maxDissipationFraction: 0.9, bplusRange: [320, 340] };
+    const r = rankOutputTubes(targets, { pair: 'single-ended', design: { ...se, connection: 'ultralinear', screenVolts: 330 } });
+    if (!r.ok) throw new Error(r.message);
+    const meeting = r.ranks.filter((x) => x.score >= 0);
+    expect(meeting.length).toBeGreaterThan(0);
+    for (const x of meeting) {
+      expect(x.parts.bplus).toBeGreaterThanOrEqual(320);
+      expect(x.parts.bplus).toBeLessThanOrEqual(340);
+    }
   });
 
   it('refuses malformed targets and stages with a typed failure', () => {
