@@ -17,6 +17,6 @@ export function targetValueWords(k: TargetName, v: number | null | undefined): s
     case 'heaterCathodeWithinRating': return `cathode at ${plain(v)} V`;
     case 'minPower': return `${plain(v)} W`;
     case 'maxThdAtPower': return `${plain(100 * v)} %`;
-    case 'bplusRange': return `B+ ${plain(v)} V`;
+    case 'bplusRange': return `${plain(v)} V`;
   }
 }

@@ -32,11 +32,22 @@ export function outputTargetsOf(targets: Targets, stage: Pick<OutputTargetStage,
   return activeTargets(targets, 'output').filter((k) => k !== 'rkRange' || cathode);
 }
 
+/** Each target's margin and value from whichever part answers it, in the order the bench lists the targets. */
+function verdictFrom(active: readonly TargetName[], plain: Pick<CostlyPart, 'margins' | 'values'>, costly: Pick<CostlyPart, 'margins' | 'values'> | null | undefined, rk: number): PointVerdict {
+  const margins: Partial<Record<TargetName, number>> = {};
+  const values: Partial<Record<TargetName, number | null>> = {};
+  for (const k of active) {
+    const from = k in plain.margins ? plain : costly;
+    // A target no part answered is not met: never a silent pass.
+    margins[k] = from && k in from.margins ? from.margins[k] : -1;
+    values[k] = from?.values[k] ?? null;
+  }
+  return verdictOf(active, margins, values, 0, rk);
+}
+
 /** Every target judged at one solved stage: the plain ones from its figures, the costly ones from its transfer. */
 function judgeSolved(s: SolvedOutput, targets: Targets, active: readonly TargetName[], tube: OutputTube): PointVerdict {
-  const plain = plainPart(active, targets, s, limitsOf(tube));
-  const costly = costlyPart(active, targets, s);
-  return verdictOf(active, { ...plain.margins, ...costly.margins }, { ...plain.values, ...costly.values }, 0, s.shared.rk);
+  return verdictFrom(active, plainPart(active, targets, s, limitsOf(tube)), costlyPart(active, targets, s), s.shared.rk);
 }
 
 function stageProblem(stage: OutputTargetStage) {
@@ -105,9 +116,7 @@ export function outputRegion(stage: OutputTargetStage, targets: Targets, grid: R
   const cellAt = (i: number, j: number): PointVerdict => {
     const p = placed[i]![j];
     if (!p) return UNREACHABLE_VERDICT;
-    const plain = plainPart(active, targets, p.solved, limits);
-    const c = costly?.[i]![j];
-    return verdictOf(active, { ...plain.margins, ...c?.margins }, { ...plain.values, ...c?.values }, 0, p.solved.shared.rk);
+    return verdictFrom(active, plainPart(active, targets, p.solved, limits), costly?.[i]![j], p.solved.shared.rk);
   };
   const cells = va.map((_, i) => ia.map((_, j) => cellAt(i, j)));
   let region = summarizePlane(va, ia, cells, active);
@@ -152,7 +161,9 @@ export function rankOutputTubes(targets: Targets, stage: { readonly pair: Output
     const connection = tube.law.kind === 'triode' ? 'triode' : stage.design.connection;
     const s = { pair: stage.pair, tube, design: { ...stage.design, tubeId: tube.id, connection } } as OutputTargetStage;
     const active = outputTargetsOf(targets, s);
-    const ext = outputExtent(tube, stage.design.bplus);
+    // With a B+ range the plate cannot sit above its top: the coarse look is spent on the voltages it can reach.
+    const whole = outputExtent(tube, stage.design.bplus);
+    const ext = targets.bplusRange ? { ...whole, vmax: Math.min(whole.vmax, Math.max(targets.bplusRange[1], 1) * 1.02) } : whole;
     const region = outputRegion(s, targets, { ...RANK_GRID, extent: ext });
     if (!region.ok) {
       if (region.field === 'tube' || region.field === 'connection') continue;

@@ -158,16 +158,23 @@ describe('where an output stage meets its targets', () => {
     expect(s.op.pa).toBeLessThanOrEqual(0.85 * tube.ratings.maxPlateDissipation * 1.001);
   });
 
-  it('ranks within the B+ the supply can give: every tube that meets its targets idles on a B+ inside the range', () => {
-    const targets: Targets = { minPower: { power: 4, thd: 0.05 }, maxDissipationFraction: 0.9, bplusRange: [320, 340] };
-    const r = rankOutputTubes(targets, { pair: 'single-ended', design: { ...se, connection: 'ultralinear', screenVolts: 330 } });
+  it('ranks within the B+ the supply can give: every tube that meets its targets idles on a B+ inside the range, and a narrow window is not missed', () => {
+    // The demo's ultralinear EL34 on a 3.5 kΩ primary, a supply of 300 to 360 V (invented targets).
+    const design: OutputDesign = { ...se, connection: 'ultralinear', screenVolts: 300, zPrimary: 3500, rPrimary: 130 };
+    const targets: Targets = { minPower: { power: 4, thd: 0.05 }, maxDissipationFraction: 0.9, bplusRange: [300, 360] };
+    const r = rankOutputTubes(targets, { pair: 'single-ended', design });
     if (!r.ok) throw new Error(r.message);
     const meeting = r.ranks.filter((x) => x.score >= 0);
     expect(meeting.length).toBeGreaterThan(0);
     for (const x of meeting) {
-      expect(x.parts.bplus).toBeGreaterThanOrEqual(320);
-      expect(x.parts.bplus).toBeLessThanOrEqual(340);
+      expect(x.parts.bplus).toBeGreaterThanOrEqual(300);
+      expect(x.parts.bplus).toBeLessThanOrEqual(360);
     }
+    // The EL34's own full region holds inside the window; the ranking's coarse look must find it too.
+    const own = outputRegion({ pair: 'single-ended', tube: el34, design }, targets, { nx: 60, ny: 40 });
+    if (!own.ok) throw new Error(own.message);
+    expect(own.inside.flat().some(Boolean)).toBe(true);
+    expect(meeting.map((x) => x.tubeId)).toContain('EL34');
   });
 
   it('refuses malformed targets and stages with a typed failure', () => {
