@@ -54,7 +54,7 @@ export function followerLegend(vgrid: number): readonly LegendItem[] {
   ];
 }
 
-export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = null, alongLine = false, readout = true }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: readonly TargetName[] | null; alongLine?: boolean; readout?: boolean }) {
+export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region = null, alongLine = false }: { first: string; rival: string | null; items?: readonly LegendItem[]; region?: readonly TargetName[] | null; alongLine?: boolean }) {
   return (
     <ul className="chart-legend" aria-label="Chart key">
       {rival ? (
@@ -92,7 +92,7 @@ export function ChartLegend({ first, rival, items = VOLTAGE_STAGE_LEGEND, region
           <svg width="30" height="14" aria-hidden="true">
             <rect x="1" y="1" width="28" height="12" fill={`url(#${REGION_HATCH_ID})`} stroke={PALETTE.rival} strokeWidth="0.8" />
           </svg>
-          {readout ? 'Every target met (hatched; ringed: the best point; the cursor readout names the targets failing elsewhere)' : 'Every target met (hatched; ringed: the best point)'}
+          Every target met (hatched; ringed: the best point; the cursor readout names the targets failing elsewhere)
         </li>
       ) : null}
       {(region ?? []).map((k) => (

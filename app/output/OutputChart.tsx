@@ -1,5 +1,6 @@
-import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
-import { milliamps, ohms, volts } from '../format';
+import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
+import { TARGET_LABELS, UNREACHABLE, type TargetName } from '../../src/index';
+import { milliamps, ohms, plain, volts } from '../format';
 import { ChartLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND } from '../chart/ChartLegend';
 import { PointMark, RivalMark } from '../chart/SheetLayers';
 import { ChartShell } from '../chart/ChartShell';
@@ -13,12 +14,26 @@ import { drawOutputOverlay } from './drawOutputOverlay';
 import { DESIGN_LIMITS } from '../store/designLimits';
 import { benchPoint } from '../store/outputAnalysis';
 import { currentOutputRegion } from '../store/outputTargets';
+import { failingAt } from '../store/regionSlice';
 import { targetsWithEdges } from '../targets/drawRegion';
 
-/** Why the point is not under the pointer (the bias cannot put it there, or the targets held it), as the voltage chart says it. */
-function DragNote() {
+/**
+ * Under the chart: why the point is not under the pointer (the bias cannot
+ * put it there, or the targets held it), and, with targets set, which of
+ * them fail at the cursor (the region's own verdict of that cell).
+ */
+function OutputStatus() {
   const note = useWorkbench((s) => s.dragNote);
-  return <div className="chart-status" aria-live="polite">{note ? <p className="drag-note">{note}</p> : null}</div>;
+  const hover = useWorkbench((s) => s.outputHover);
+  const region = useWorkbench(currentOutputRegion);
+  const failing = hover && region ? failingAt(region, hover.vpk, hover.ip) : null;
+  const targets = failing === null ? '' : failing[0] === UNREACHABLE ? ' · targets: no bias puts the tube here' : failing.length === 0 ? ' · targets: all met' : ` · targets failing: ${failing.map((k) => TARGET_LABELS[k as TargetName]).join(', ')}`;
+  return (
+    <div className="chart-status" aria-live="polite">
+      {note ? <p className="drag-note">{note}</p> : null}
+      {hover && region ? <p className="hover-readout" data-testid="output-hover-readout">{`Cursor: Vpk ${plain(hover.vpk)} V · Ip ${milliamps(hover.ip)}${targets}`}</p> : null}
+    </div>
+  );
 }
 
 /**
@@ -46,9 +61,9 @@ export function OutputChart() {
       layers={(scales) => <OutputLayers scales={scales} />}
       below={
         <>
-          <DragNote />
+          <OutputStatus />
           <CurveDensity />
-          <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} region={regionKeys} readout={false} />
+          <ChartLegend first={tubeId} rival={rivalId && rivalSheet ? rivalId : null} items={pair ? PAIR_STAGE_LEGEND : OUTPUT_STAGE_LEGEND} region={regionKeys} />
         </>
       }
     />
@@ -120,8 +135,17 @@ function OutputLayers({ scales }: { scales: PlateScales }) {
     store.getState().endDrag();
   };
 
+  const onHover = (e: PointerEvent<SVGRectElement>) => {
+    const ctm = e.currentTarget.ownerSVGElement?.getScreenCTM();
+    if (!ctm) return;
+    const p = new DOMPoint(e.clientX, e.clientY).matrixTransform(ctm.inverse());
+    store.getState().setOutputHover({ vpk: scales.x.invert(p.x), ip: scales.y.invert(p.y) });
+  };
+  const [x0, x1] = scales.x.range() as [number, number];
+  const [y0, y1] = scales.y.range() as [number, number];
   return (
     <>
+      <rect className="hover-surface" x={x0} y={y1} width={x1 - x0} height={y0 - y1} fill="transparent" onPointerMove={onHover} onPointerLeave={() => store.getState().setOutputHover(null)} />
       <g ref={lines} className="layer-lines" pointerEvents="none" />
       <g ref={rivalPoint} className="handle-rival fixed" role="img" aria-label={`Operating point of the ${rivalId ?? 'second tube'} with the same parts`} visibility="hidden">
         <RivalMark />

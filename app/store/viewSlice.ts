@@ -25,6 +25,9 @@ export interface ViewSlice {
   hover: HoverReadout | null;
   setHover: (vpk: number, ia: number) => void;
   clearHover: () => void;
+  /** The cursor over the output stage's chart (plate to cathode, V; the charted current, A), or null. */
+  outputHover: { readonly vpk: number; readonly ip: number } | null;
+  setOutputHover: (at: { readonly vpk: number; readonly ip: number } | null) => void;
 }
 
 export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = (set, get) => ({
@@ -40,4 +43,6 @@ export const createViewSlice: StateCreator<WorkbenchState, [], [], ViewSlice> = 
   hover: null,
   setHover: (vpk, ia) => set({ hover: { vpk, ia, vgk: gridVoltageAt(shownTube(get()), vpk, ia) } }),
   clearHover: () => set({ hover: null }),
+  outputHover: null,
+  setOutputHover: (outputHover) => set({ outputHover }),
 });

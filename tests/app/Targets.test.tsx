@@ -139,6 +139,13 @@ describe('targets on the output bench', () => {
     expect(screen.getByText('Edge of the power target')).toBeTruthy();
     // The gain stage's boxes are not offered here: they say nothing of an output stage.
     expect(screen.queryByRole('textbox', { name: /^Least gain/ })).toBeNull();
+    // The cursor's readout names what fails under it, as the region has it.
+    const i = model.inside.findIndex((column) => column.some(Boolean));
+    const j = model.inside[i]!.findIndex(Boolean);
+    act(() => store.getState().setOutputHover({ vpk: model.va[i]!, ip: model.ia[j]! }));
+    expect(screen.getByTestId('output-hover-readout').textContent).toMatch(/· targets: all met$/);
+    act(() => store.getState().setOutputHover({ vpk: model.va[i]!, ip: model.ia[0]! }));
+    expect(screen.getByTestId('output-hover-readout').textContent).toMatch(/· targets failing: power$/);
   }, 20_000);
 
   it('keeps its own targets: the voltage stage\'s Zout and dissipation are not the output stage\'s, and neither empties the other\'s chart', async () => {

@@ -90,6 +90,11 @@ describe.runIf(run)('design from targets in Chromium', () => {
     await expect.poll(() => page.locator('.plate-chart').first().getAttribute('aria-label')).toContain(`the ${tube} output stage`);
     await expect.poll(() => status.textContent(), { timeout: 15_000 }).toMatch(/60 × 40 grid meet every target\.$/);
     await page.locator('.sheet-panel').screenshot({ path: 'test-results/output-targets-region.png' });
+    // The cursor over the chart: its readout names what holds or fails there.
+    await page.locator('.plate-chart').first().scrollIntoViewIfNeeded();
+    const chart = (await page.locator('.plate-chart').first().boundingBox())!;
+    await page.mouse.move(chart.x + chart.width * 0.5, chart.y + chart.height * 0.6);
+    await expect.poll(() => page.getByTestId('output-hover-readout').textContent()).toMatch(/^Cursor: Vpk [\d.]+ V · Ip [\d.]+ mA · targets/);
     // Held inside: a drag down toward a whisper of current, where no power target holds, stops in the region.
     await page.getByRole('checkbox', { name: /Keep the point inside the region/ }).check();
     const point = page.getByRole('slider', { name: /^Operating point/ });
