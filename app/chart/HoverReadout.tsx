@@ -1,4 +1,4 @@
-import { TARGET_LABELS, UNREACHABLE, type TargetName } from '../../src/index';
+import { cursorTargetWords } from '../targets/cursorTargets';
 import { milliamps, plain } from '../format';
 import { failingAt } from '../store/regionSlice';
 import { useWorkbench } from '../store/StoreProvider';
@@ -11,7 +11,7 @@ export function HoverReadout() {
   const note = useWorkbench((s) => s.dragNote);
   const region = useWorkbench((s) => (s.region?.result.ok ? s.region.result : null));
   const failing = hover && region ? failingAt(region, hover.vpk, hover.ia) : null;
-  const targets = failing === null ? '' : failing[0] === UNREACHABLE ? ' · targets: no stage on this B+ sits here' : failing.length === 0 ? ' · targets: all met' : ` · targets failing: ${failing.map((k) => TARGET_LABELS[k as TargetName]).join(', ')}`;
+  const targets = cursorTargetWords(failing, 'no stage on this B+ sits here');
   return (
     <div className="chart-status" aria-live="polite">
       {note ? <p className="drag-note">{note}</p> : null}

@@ -1,5 +1,4 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
-import { TARGET_LABELS, UNREACHABLE, type TargetName } from '../../src/index';
 import { milliamps, ohms, plain, volts } from '../format';
 import { ChartLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND } from '../chart/ChartLegend';
 import { PointMark, RivalMark } from '../chart/SheetLayers';
@@ -15,6 +14,7 @@ import { DESIGN_LIMITS } from '../store/designLimits';
 import { benchPoint } from '../store/outputAnalysis';
 import { currentOutputRegion } from '../store/outputTargets';
 import { failingAt } from '../store/regionSlice';
+import { cursorTargetWords } from '../targets/cursorTargets';
 import { targetsWithEdges } from '../targets/drawRegion';
 
 /**
@@ -27,7 +27,7 @@ function OutputStatus() {
   const hover = useWorkbench((s) => s.outputHover);
   const region = useWorkbench(currentOutputRegion);
   const failing = hover && region ? failingAt(region, hover.vpk, hover.ip) : null;
-  const targets = failing === null ? '' : failing[0] === UNREACHABLE ? ' · targets: no bias puts the tube here' : failing.length === 0 ? ' · targets: all met' : ` · targets failing: ${failing.map((k) => TARGET_LABELS[k as TargetName]).join(', ')}`;
+  const targets = cursorTargetWords(failing, 'no bias puts the tube here');
   return (
     <div className="chart-status" aria-live="polite">
       {note ? <p className="drag-note">{note}</p> : null}
