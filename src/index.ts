@@ -21,7 +21,7 @@ export type {
 export { modelOf, recordOf } from './tube/types';
 export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
 export { cutoffGridVoltage, korenParamsProblem } from './tube/koren';
-export { gridCurrent, GRID_CURRENT_ONSET, CATHODE_THERMAL_VOLTS } from './tube/gridCurrent';
+export { gridCurrent, classA1GridCurrent, GRID_CURRENT_ONSET, CATHODE_THERMAL_VOLTS, POWER_GRID_RESISTANCE } from './tube/gridCurrent';
 export { tubeLibrary, findTube } from './tube/library';
 export { LIBRARY_TUBE_IDS } from './tube/library/libraryIds';
 export { korenPublishedSets } from './tube/korenPublishedSets';

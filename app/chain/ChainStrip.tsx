@@ -5,6 +5,7 @@ import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '.
 import { StageCard } from './StageCard';
 import { StageMenu } from './StageMenu';
 import { ChainSchematic } from '../schematic/ChainSchematic';
+import { atLevelWords } from './atLevelWords';
 
 const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
 const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
@@ -96,7 +97,7 @@ export function ChainStrip() {
           {view.atLevel && (
             <div>
               <dt>At {view.levelLabel}</dt>
-              <dd>{view.atLevel.ok ? `${rmsLevel(view.atLevel.input, 'dBu')} in, THD ${plain(view.atLevel.thd * 100, 2)} %` : view.atLevel.message}</dd>
+              <dd className={view.atLevel.ok && view.atLevel.pastClean ? 'past-clean' : undefined}>{atLevelWords(view)}</dd>
             </div>
           )}
         </dl>

@@ -2,6 +2,7 @@ import { farads, milliamps, ohms, plain, rmsLevel, volts, watts } from '../forma
 import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
+import { atLevelWords } from '../chain/atLevelWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**
@@ -22,7 +23,7 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
     `Gain ${plain(Math.abs(r.gain))} × (${(20 * Math.log10(Math.abs(r.gain))).toFixed(1)} dB${r.inverting ? ', inverting' : ''}), −3 dB ${hz(r.lowHz, 'DC')} to ${hz(r.highHz, 'beyond 100 MHz')}`,
     `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
   ];
-  if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${rmsLevel(view.atLevel.input, 'dBu')} in, THD ${plain(view.atLevel.thd * 100, 2)} %`);
+  if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${atLevelWords(view)}`);
   return { heading: 'Amplifier', lines };
 }
 

@@ -1,8 +1,10 @@
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { checkNumber } from '../stage/checkInput';
 import { harmonicAmplitudes } from '../signal/fft';
 import { sineLevel, type Level } from '../signal/levels';
-import type { ChainInput } from './chainTypes';
+import { illinois } from '../numeric/illinois';
+import { MAX_OVERDRIVE } from '../signal/distortion';
+import type { ChainInput, ClipCause } from './chainTypes';
 import { CYCLE_SAMPLES, prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
 import { sineCycle } from '../signal/sineCycle';
 
@@ -25,6 +27,12 @@ export interface AmplifierAtLevel {
   /** THD of the output from the composed transfers (H2–H10), a fraction, and each harmonic over the fundamental (index 2 is H2). */
   readonly thd: number;
   readonly harmonics: readonly number[];
+  /**
+   * Past the chain's clean limit: the stage that reached its limit first and
+   * by what (the figures are then of a stage in grid current or cut off, as a
+   * real one would be driven); null inside it.
+   */
+  readonly pastClean: { readonly stage: number; readonly by: ClipCause } | null;
 }
 
 /** Points a cycle for the figures (CYCLE_SAMPLES). */
@@ -33,10 +41,11 @@ export const SAMPLES = CYCLE_SAMPLES;
 const SEARCH_SAMPLES = 32;
 
 /**
- * The amplifier at an output level: the source level it needs (found by the
- * secant method on the fundamental of the composed waveform), each stage's
- * swing and headroom there, and the distortion of the whole chain. Above
- * the clean limit it answers a typed failure naming the stage that clips.
+ * The amplifier at an output level: the source level it needs (found on the
+ * fundamental of the composed waveform), each stage's swing and headroom
+ * there, and the distortion of the whole chain. Past the clean limit the
+ * figures go on, the stage that clips first named in `pastClean`, its grid
+ * current drawn through the impedance driving it (see ChainSignal).
  */
 export function amplifierAtLevel(input: ChainInput, level: AmplifierLevel): Result<AmplifierAtLevel> {
   const a = prepareAmplifier(input);
@@ -57,27 +66,14 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
     if (v) return v;
     targetRms = (level as { outputRms: number }).outputRms;
   }
-  const { signal, clips, first, inputPeak: cleanPeak } = a;
+  const { signal, clips, first } = a;
   const at = (v: number) => signal.at(v);
-  const searchWave = new Float64Array(SEARCH_SAMPLES);
-  const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SEARCH_SAMPLES, peak, at, searchWave), 1)[1]!;
   const target = targetRms * Math.SQRT2;
   const cleanMax = a.cleanFundamental();
   // Within a part per million of the clean limit counts as at it.
-  if (target > cleanMax * (1 + 1e-6)) {
-    return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms is past the clean limit of ${(cleanMax / Math.SQRT2).toPrecision(3)} V rms, where stage ${first + 1} reaches ${clips[first]!.by === 'grid-current' ? 'grid current' : 'cutoff'}`, 'outputRms');
-  }
-  // Secant on the fundamental, from the small-signal guess; bracketed by [0, the clean limit].
-  let p0 = Math.min(target / Math.max(Math.abs(a.gain), 1e-12), cleanPeak);
-  let f0 = fundamentalAt(p0) - target;
-  let p1 = p0 * (f0 > 0 ? 0.99 : 1.01);
-  for (let k = 0; k < 40 && Math.abs(f0) > 1e-9 * target; k++) {
-    const f1 = fundamentalAt(Math.min(p1, cleanPeak)) - target;
-    const next = f1 === f0 ? p1 : p1 - (f1 * (p1 - p0)) / (f1 - f0);
-    [p0, f0] = [p1, f1];
-    p1 = Math.min(Math.max(next, 0), cleanPeak);
-  }
-  const peak = p0;
+  const past = target > cleanMax * (1 + 1e-6);
+  const peak = past ? peakPastClean(a, target) : peakWithinClean(a, target, at);
+  if (typeof peak !== 'number') return peak;
   // The final cycle at full resolution, every stage's output kept from the same pass.
   const n = a.links.length;
   const lows = new Float64Array(n).fill(Infinity);
@@ -100,5 +96,56 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
     const c = clips[i];
     return { outputPeak: (highs[i]! - lows[i]!) / 2, headroomDb: c ? 20 * Math.log10(c.inputPeak / peak) : null };
   });
-  return { ok: true, inputPeak: peak, input: sineLevel(peak), output: sineLevel(v1), stages, thd, harmonics };
+  return { ok: true, inputPeak: peak, input: sineLevel(peak), output: sineLevel(v1), stages, thd, harmonics, pastClean: past ? { stage: first, by: clips[first]!.by } : null };
+}
+
+/** The source peak for an output peak inside the clean limit: the secant on the fundamental from the small-signal guess, bracketed by [0, the clean limit]. */
+function peakWithinClean(a: PreparedAmplifier, target: number, at: (v: number) => number): number {
+  const cleanPeak = a.inputPeak;
+  const searchWave = new Float64Array(SEARCH_SAMPLES);
+  const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SEARCH_SAMPLES, peak, at, searchWave), 1)[1]!;
+  let p0 = Math.min(target / Math.max(Math.abs(a.gain), 1e-12), cleanPeak);
+  let f0 = fundamentalAt(p0) - target;
+  let p1 = p0 * (f0 > 0 ? 0.99 : 1.01);
+  for (let k = 0; k < 40 && Math.abs(f0) > 1e-9 * target; k++) {
+    const f1 = fundamentalAt(Math.min(p1, cleanPeak)) - target;
+    const next = f1 === f0 ? p1 : p1 - (f1 * (p1 - p0)) / (f1 - f0);
+    [p0, f0] = [p1, f1];
+    p1 = Math.min(Math.max(next, 0), cleanPeak);
+  }
+  return p0;
+}
+
+/**
+ * The source peak for an output peak past the clean limit, where the stage
+ * that clips first is in grid current (held back by the impedance driving
+ * it) or cut off: the fundamental still rises with drive, so Illinois on a
+ * bracket grown by doubling from the clean limit, up to MAX_OVERDRIVE times
+ * it. Each cycle at full resolution: a clipped wave's high harmonics would
+ * fold onto the fundamental at fewer points. A typed failure when the level
+ * cannot be had, or when a stage whose grid current the chain does not
+ * follow (a push-pull pair) would be driven past its limit.
+ */
+function peakPastClean(a: PreparedAmplifier, target: number): number | Failure {
+  const { clips, first, signal, inputPeak: cleanPeak } = a;
+  const limitWords = `stage ${first + 1} reaches ${clips[first]!.by === 'grid-current' ? 'grid current' : 'cutoff'}`;
+  const unfollowed = a.links.findIndex((l) => !l.gridLaw);
+  if (unfollowed >= 0) {
+    return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms is past the clean limit of ${(a.cleanFundamental() / Math.SQRT2).toPrecision(3)} V rms, where ${limitWords}; past it stage ${unfollowed + 1}'s grid current is not followed, so no figure is given there`, 'outputRms');
+  }
+  const wave = new Float64Array(SAMPLES);
+  const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SAMPLES, peak, (v) => signal.at(v), wave), 1)[1]!;
+  const most = MAX_OVERDRIVE * cleanPeak;
+  let lo = cleanPeak;
+  let hi = Math.min(2 * cleanPeak, most);
+  let top = fundamentalAt(hi);
+  while (top < target) {
+    if (hi >= most) {
+      return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms cannot be had: past the clean limit (where ${limitWords}) the output reaches ${(top / Math.SQRT2).toPrecision(3)} V rms at ${MAX_OVERDRIVE} times the clean input`, 'outputRms');
+    }
+    lo = hi;
+    hi = Math.min(2 * hi, most);
+    top = fundamentalAt(hi);
+  }
+  return illinois((p) => fundamentalAt(p) - target, lo, hi, 1e-9 * target, { fb: top - target });
 }

@@ -1,4 +1,5 @@
 import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
+import { illinois } from '../numeric/illinois';
 import type { ClipCause } from './chainTypes';
 import type { LinkSample, SolvedLink } from './stageKind';
 
@@ -7,11 +8,22 @@ export const MAX_SEARCH_PEAK = 1e4;
 /** The clean limit to 10 ppm (a ten-thousandth of a dB): far finer than any figure shows. */
 export const CLIP_REL_TOL = 1e-5;
 
+/** A grid-current drop on the driving impedance below this, V, is left out (it moves an output by microvolts at most). */
+const GRID_DROP_FLOOR = 1e-7;
+
 /**
  * The chain at midband, large signal: the source's voltage divided onto the
  * first grid, then each stage's transfer fed the one before's output, sample
  * by sample. Each stage's transfer already carries the load the next grid
  * puts on it, so the composition is the whole circuit's response.
+ *
+ * A stage's input is its grid's open-circuit swing (the voltage on its leak
+ * with no grid current). Where the grid draws current (`gridLaw`) it sits
+ * lower by Ig times the impedance driving it: the stage before's output
+ * impedance (the source's for the first) in parallel with the grid leak,
+ * Thévenin's theorem on the small-signal output. That loop is solved at each
+ * instant, so a stage driven into grid current compresses, and the stage
+ * before it is not asked for more than its output impedance lets it give.
  */
 export class ChainSignal {
   private readonly samples: LinkSample[];
@@ -20,8 +32,32 @@ export class ChainSignal {
     private readonly links: readonly SolvedLink[],
     /** First grid's share of the source voltage (its leak against the source impedance). */
     private readonly sourceShare: number,
+    /** The impedance driving each stage's grid, Ω (0: an ideal source, no drop). */
+    private readonly gridDrives: readonly number[] = links.map(() => 0),
   ) {
     this.samples = links.map(() => ({ vout: 0, vgk: 0, ia: 0, vout2: 0 }));
+  }
+
+  /**
+   * Stage i at an open-circuit grid swing v: the grid current's loop solved
+   * by Illinois on Ig (Ig − law(vgk at v − R·Ig) rises with Ig: one root).
+   */
+  private drive(i: number, v: number, v2: number): LinkSample {
+    const link = this.links[i]!;
+    const out = this.samples[i]!;
+    link.sample(v, out, v2);
+    const law = link.gridLaw;
+    const r = this.gridDrives[i]!;
+    if (!law || !(r > 0)) return out;
+    const open = law(out.vgk);
+    if (!(open * r >= GRID_DROP_FLOOR)) return out;
+    const residual = (ig: number) => {
+      link.sample(v - r * ig, out, v2);
+      return ig - law(out.vgk);
+    };
+    const ig = illinois(residual, 0, open, GRID_DROP_FLOOR / r, { fa: -open });
+    link.sample(v - r * ig, out, v2);
+    return out;
   }
 
   /** Output for a source voltage vsrc (from quiescent), each stage's sample kept for inspection; `upTo` stops after that stage. */
@@ -29,9 +65,9 @@ export class ChainSignal {
     let v = vsrc * this.sourceShare;
     let v2 = 0;
     for (let i = 0; i <= upTo; i++) {
-      this.links[i]!.sample(v, this.samples[i]!, v2);
-      v = this.samples[i]!.vout;
-      v2 = this.samples[i]!.vout2;
+      const s = this.drive(i, v, v2);
+      v = s.vout;
+      v2 = s.vout2;
     }
     return v;
   }
@@ -82,9 +118,9 @@ export class ChainSignal {
     let v = vsrc * this.sourceShare;
     let v2 = 0;
     for (let i = 0; i < this.links.length; i++) {
-      this.links[i]!.sample(v, this.samples[i]!, v2);
-      v = this.samples[i]!.vout;
-      v2 = this.samples[i]!.vout2;
+      const s = this.drive(i, v, v2);
+      v = s.vout;
+      v2 = s.vout2;
       into[i] = v;
     }
   }

@@ -103,7 +103,13 @@ export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages
   const rsource = input.source.rsource;
   const sourceShare = Number.isFinite(zins[0]!) ? zins[0]! / (zins[0]! + rsource) : 1;
   const gain = links.reduce((g, l) => g * l.gain, sourceShare);
-  const signal = new ChainSignal(links, sourceShare);
+  // What drives each grid, looking back from it: the stage before's output impedance (the source's for the first) in parallel with the leak.
+  const gridDrives = links.map((_, i) => {
+    const before = i === 0 ? rsource : links[i - 1]!.zout;
+    const zin = zins[i]!;
+    return Number.isFinite(zin) ? (before * zin) / (before + zin) : before;
+  });
+  const signal = new ChainSignal(links, sourceShare, gridDrives);
   // Each search starts from the small-signal estimate: the grid swing to 0 V over the gain up to that grid.
   let upstream = sourceShare;
   const clips = links.map((l, i) => {

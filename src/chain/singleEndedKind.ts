@@ -5,6 +5,7 @@ import type { OutputDesign } from '../output/outputDesign';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { checkNumber, LIMITS } from '../stage/checkInput';
+import { classA1GridCurrent, POWER_GRID_RESISTANCE } from '../tube/gridCurrent';
 import type { SingleEndedLink } from './chainTypes';
 import { checkCoupling, couplingImpedance } from './checkCoupling';
 import { midbandGain } from './midbandGain';
@@ -62,6 +63,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       out.ia = instant.ip;
     };
     const gain = midbandGain(sample);
+    const rgrid = s.tube.law.kind === 'triode' ? s.tube.law.tube.model.gridResistance : POWER_GRID_RESISTANCE;
     const rLoad = (op.rp * series) / (op.rp + series);
     return {
       ok: true,
@@ -76,6 +78,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       sample,
       cutoffCurrent: CUTOFF_SHARE * op.ip,
       gridLimit: 0,
+      gridLaw: (vgk) => classA1GridCurrent(rgrid, vgk),
       findings: outputFindings(solved, peak),
       linear: {
         // The transconductance that gives the same midband gain in the linear network.

@@ -4,6 +4,7 @@ import { checkNumber, LIMITS } from '../stage/checkInput';
 import { parallel } from '../stage/parallel';
 import { solveCathodyne } from '../splitter/cathodyne';
 import { CUTOFF_FRACTION, korenPlateCurrent } from '../tube/koren';
+import { gridCurrent } from '../tube/gridCurrent';
 import { modelOf, recordOf } from '../tube/types';
 import type { SplitLoadLink } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
@@ -53,6 +54,7 @@ export const splitLoadKind: StageKind<SplitLoadLink> = {
       antiphase: r.gainCathode / r.gainPlate,
       sample,
       cutoffCurrent: CUTOFF_FRACTION * op.ia,
+      gridLaw: (vgk) => gridCurrent(modelOf(s.tube), vgk),
       findings: r.findings,
       // The plate output as a common-cathode stage whose unbypassed cathode resistor carries the other output's load.
       linear: { gm: r.gm, rp: r.rp, plateLoad: s.ra, rk: rkL, ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', outputScale: 1 },

@@ -68,6 +68,14 @@ export interface SolvedLink {
    * grid driven to 0 V (class A1). Absent means the onset.
    */
   readonly gridLimit?: number;
+  /**
+   * The current the stage's signal grid draws at a grid–cathode voltage, A
+   * (see gridCurrent): the chain solves it through the impedance driving that
+   * grid, so a stage driven past its clean limit compresses as a real one
+   * does. Absent for a stage whose grid current the chain does not follow
+   * (a push-pull pair's two grids, a long-tailed pair's held second grid).
+   */
+  readonly gridLaw?: (vgk: number) => number;
   readonly findings: readonly Finding[];
   readonly linear: LinearStage;
 }

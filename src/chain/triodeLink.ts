@@ -1,7 +1,8 @@
 import type { Finding } from '../stage/ratingBands';
 import type { OperatingPoint } from '../stage/solveStage';
 import { CUTOFF_FRACTION } from '../tube/koren';
-import { recordOf, type TubeLike } from '../tube/types';
+import { gridCurrent } from '../tube/gridCurrent';
+import { modelOf, recordOf, type TubeLike } from '../tube/types';
 import type { Coupling } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
 import { NO_CAPACITANCES } from './noCapacitances';
@@ -21,6 +22,7 @@ export interface TriodeLinkParts {
 /** A triode stage as the chain takes it (common cathode and follower alike): the plate current feeds it, 1 % of it is cutoff. */
 export function triodeLink(p: TriodeLinkParts): { ok: true } & SolvedLink {
   const { op } = p.solved;
+  const model = modelOf(p.tube);
   return {
     ok: true,
     op: { va: op.va, vk: op.vk, ia: op.ia, vgk: op.vgk },
@@ -37,6 +39,7 @@ export function triodeLink(p: TriodeLinkParts): { ok: true } & SolvedLink {
       out.vout2 = 0;
     },
     cutoffCurrent: CUTOFF_FRACTION * op.ia,
+    gridLaw: (vgk) => gridCurrent(model, vgk),
     findings: p.solved.findings,
     linear: { gm: p.solved.gm, rp: p.solved.rp, gScreen: 0, caps: recordOf(p.tube)?.capacitances ?? NO_CAPACITANCES, outputScale: 1, ...p.network },
   };

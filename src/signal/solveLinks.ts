@@ -1,14 +1,12 @@
-import { CUTOFF_FRACTION } from '../tube/koren';
-import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
-import { modelOf, type TubeLike } from '../tube/types';
 import { fail, type Result } from '../result';
+import { LIMITS } from '../stage/checkInput';
 import { solveFollower, type FollowerSolution } from '../stage/solveFollower';
 import { solveStage, type StageSolution } from '../stage/solveStage';
-import { normalizeStage, type StageDesign } from '../stage/stageDesign';
-import { parallel } from '../stage/parallel';
+import type { StageDesign } from '../stage/stageDesign';
+import type { TubeLike } from '../tube/types';
+import type { ChainInput, ChainStage, CommonCathodeLink, Coupling } from '../chain/chainTypes';
+import { prepareAmplifier } from '../chain/prepareAmplifier';
 import { sineLevel, type Level } from './levels';
-import { followerTransfer } from './followerTransfer';
-import { stageTransfer } from './stageTransfer';
 
 /** A link of a chain: a common-cathode stage, or a cathode follower direct-coupled to the plate before it. */
 export type ChainLink =
@@ -32,13 +30,37 @@ export interface LinkChainResult {
   readonly limitedBy: { readonly link: number; readonly by: 'grid-current' | 'cutoff' };
 }
 
+/** A link's grid feed in the amplifier's terms: its leak through an ideal capacitor, or direct. */
+function couplingOf(d: StageDesign): Coupling {
+  // A grid held at a bias with no leak given: a leak far above any source, so the source sees the grid alone.
+  if (d.rg === undefined) return d.vbias ? { kind: 'capacitor', cc: LIMITS.maxFarads, rg: LIMITS.maxOhms } : { kind: 'direct' };
+  return { kind: 'capacitor', cc: d.cin ?? LIMITS.maxFarads, rg: d.rg };
+}
+
+function commonCathodeOf(d: StageDesign): CommonCathodeLink {
+  return {
+    kind: 'common-cathode',
+    tube: d.tube,
+    bplus: d.bplus,
+    ra: d.ra,
+    rk: d.rk,
+    bypassed: d.bypassed ?? true,
+    ...(d.ck !== undefined ? { ck: d.ck } : {}),
+    ...(d.vbias !== undefined ? { vbias: d.vbias } : {}),
+    ...(d.heaterVolts !== undefined ? { heaterVolts: d.heaterVolts } : {}),
+    coupling: couplingOf(d),
+  };
+}
+
 /**
  * Solves a one- or two-link chain (the first version's input, kept working:
- * `solveChain` answers an array with this). A common-cathode second link is coupled
- * through a capacitor, so its grid leak Rg loads the first plate; a follower
- * is direct-coupled, its grid at the first plate's voltage, and loads it not
- * at all (no grid current below 0 V). The combined clean swing comes from the
- * large-signal transfers composed sample by sample.
+ * `solveChain` answers an array with this), as the amplifier it is: each
+ * link's own solution, and the swing of the amplifier's composed transfer
+ * (see ChainSignal), so the two forms give the same figures. A
+ * common-cathode second link is coupled through a capacitor, its grid leak
+ * Rg loading the first plate; a follower is direct-coupled, its grid at the
+ * first plate's voltage. The input is the first grid's open-circuit swing,
+ * as it always was (the amplifier's is the source's).
  */
 export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult> {
   if (!Array.isArray(links) || links.length < 1 || links.length > 2) return fail('invalid-input', 'A chain has one or two links');
@@ -46,80 +68,46 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
   const first = links[0]!;
   if (first.kind !== 'common-cathode') return fail('invalid-input', 'The first link must be a common-cathode stage', 'links');
   const second = links[1];
-  let loadOnFirst = first.rl ?? Infinity;
-  if (second?.kind === 'common-cathode') {
-    if (second.rg === undefined) return fail('invalid-input', 'A capacitor-coupled second stage needs its grid leak Rg', 'rg');
-    loadOnFirst = parallel(loadOnFirst, second.rg);
-  }
-  const firstDesign: StageDesign = { ...first, rl: loadOnFirst };
-  const s1 = solveStage(firstDesign);
+  if (second?.kind === 'common-cathode' && second.rg === undefined) return fail('invalid-input', 'A capacitor-coupled second stage needs its grid leak Rg', 'rg');
+  // With a second link, the first plate's load is that link's grid: its leak, or none for a follower.
+  const loadOnFirst = second?.kind === 'common-cathode' ? second.rg! : second ? Infinity : (first.rl ?? Infinity);
+  const s1 = solveStage({ ...first, rl: loadOnFirst });
   if (!s1.ok) return { ...s1, message: `Stage 1: ${s1.message}` };
-  const c1 = normalizeStage(firstDesign);
-  if (!c1.ok) return c1;
-  const t1 = stageTransfer(c1, s1.op);
   const results: LinkResult[] = [{ kind: 'common-cathode', ...s1 }];
-
-  // Each link's output at an input peak, and the tests that end its clean swing.
-  let output: (vin: number) => number = (vin) => t1.at(vin).vout;
-  const limits: { link: number; by: 'grid-current' | 'cutoff'; hit: (vin: number) => boolean }[] = [
-    { link: 0, by: 'grid-current', hit: (v) => t1.at(v).vgk >= GRID_CURRENT_ONSET },
-    { link: 0, by: 'cutoff', hit: (v) => t1.at(-v).ia <= CUTOFF_FRACTION * s1.op.ia },
-  ];
-  let gain = s1.gain;
-  let zout = s1.zout;
-
+  const stages: ChainStage[] = [commonCathodeOf(first)];
+  let load = second ? undefined : first.rl;
   if (second?.kind === 'follower') {
     const f = solveFollower({ tube: second.tube, bplus: second.bplus, vgrid: s1.op.va, rk: second.rk, rl: second.rl, heaterVolts: second.heaterVolts });
     if (!f.ok) return { ...f, message: `Follower: ${f.message}` };
     results.push({ kind: 'follower', ...f });
-    const tf = followerTransfer(modelOf(second.tube), second.bplus, second.rk, second.rl ?? Infinity, f.op);
-    const at = (v: number) => tf(s1.op.va + t1.at(v).vout);
-    output = (v) => at(v).vk - f.op.vk;
-    limits.push({ link: 1, by: 'grid-current', hit: (v) => at(-v).vgk >= GRID_CURRENT_ONSET || at(v).vgk >= GRID_CURRENT_ONSET });
-    limits.push({ link: 1, by: 'cutoff', hit: (v) => at(v).ia <= CUTOFF_FRACTION * f.op.ia || at(-v).ia <= CUTOFF_FRACTION * f.op.ia });
-    gain *= f.gain;
-    zout = f.zout;
+    stages.push({ kind: 'follower', tube: second.tube, bplus: second.bplus, rk: second.rk, ...(second.heaterVolts !== undefined ? { heaterVolts: second.heaterVolts } : {}), coupling: { kind: 'direct' } });
+    load = second.rl;
   } else if (second?.kind === 'common-cathode') {
     const s2 = solveStage(second);
     if (!s2.ok) return { ...s2, message: `Stage 2: ${s2.message}` };
-    const c2 = normalizeStage(second);
-    if (!c2.ok) return c2;
     results.push({ kind: 'common-cathode', ...s2 });
-    const t2 = stageTransfer(c2, s2.op);
-    const at = (v: number) => t2.at(t1.at(v).vout);
-    output = (v) => at(v).vout;
-    limits.push({ link: 1, by: 'grid-current', hit: (v) => at(v).vgk >= GRID_CURRENT_ONSET || at(-v).vgk >= GRID_CURRENT_ONSET });
-    limits.push({ link: 1, by: 'cutoff', hit: (v) => at(v).ia <= CUTOFF_FRACTION * s2.op.ia || at(-v).ia <= CUTOFF_FRACTION * s2.op.ia });
-    gain *= s2.gain;
-    zout = s2.zout;
+    stages.push(commonCathodeOf(second));
+    load = second.rl;
   }
-
-  // Each limit's input peak by bisection (each test is monotone in the peak); the chain is clean below the smallest.
-  let best = { peak: Infinity, link: 0, by: 'grid-current' as 'grid-current' | 'cutoff' };
-  for (const lim of limits) {
-    let hi = Math.max(1e-3, -s1.op.vgk);
-    for (let k = 0; k < 60 && !lim.hit(hi); k++) hi *= 2;
-    if (!lim.hit(hi)) continue;
-    let lo = 0;
-    for (let k = 0; k < 60; k++) {
-      const mid = 0.5 * (lo + hi);
-      if (lim.hit(mid)) hi = mid;
-      else lo = mid;
-    }
-    if (hi < best.peak) best = { peak: hi, link: lim.link, by: lim.by };
-  }
-  const inputPeak = best.peak;
-  const outputPeak = Math.abs(output(inputPeak) - output(-inputPeak)) / 2;
+  const input: ChainInput = { source: { rsource: first.rsource ?? 0 }, stages, ...(load !== undefined && Number.isFinite(load) ? { load: { rl: load } } : {}) };
+  const a = prepareAmplifier(input);
+  if (!a.ok) return a;
+  // The chain's input is the source's; the first version's, the first grid's open-circuit swing.
+  const zin = stages[0]!.coupling.kind === 'capacitor' ? stages[0]!.coupling.rg : Infinity;
+  const share = Number.isFinite(zin) ? zin / (zin + input.source.rsource) : 1;
+  const gain = results.reduce((g, l) => g * l.gain, 1);
+  const outputPeak = a.signal.outputPeak(a.inputPeak);
+  const inputPeak = a.inputPeak * share;
   return {
     ok: true,
     links: results,
     gain,
     inverting: gain < 0,
-    zout,
+    zout: results[results.length - 1]!.zout,
     inputPeak,
     input: sineLevel(inputPeak),
     outputPeak,
     output: sineLevel(outputPeak),
-    limitedBy: { link: best.link, by: best.by },
+    limitedBy: { link: a.first, by: a.clips[a.first]!.by },
   };
 }

@@ -47,3 +47,22 @@ export function gridCurrent(model: TriodeModel, vgk: number): number {
 
 /** Grid voltages this far below the onset draw less than 1e-8 of the current 1 V past it: the grid loop is skipped there. */
 export const GRID_LOOP_FLOOR = GRID_CURRENT_ONSET - 20 * CATHODE_THERMAL_VOLTS;
+
+/**
+ * An output tube's grid current, A: the Child–Langmuir 3/2-power law from
+ * 0 V, with no retarding tail. Data sheets rate an output stage's class A1
+ * figures with the grid driven to 0 V and take it to draw no current up to
+ * there; starting the law at 0 V keeps every figure up to that limit as they
+ * define it, while a stage driven past it is held back by its driver as a
+ * real one is. 0 for input that is not a number.
+ */
+export function classA1GridCurrent(gridResistance: number, vgk: number): number {
+  if (!(gridResistance > 0) || !(vgk > 0) || !Number.isFinite(vgk)) return 0;
+  return (vgk * Math.sqrt(vgk)) / gridResistance;
+}
+
+/**
+ * Rgrid for an output pentode or beam tetrode, Ω: the power triodes' 1 kΩ of
+ * Koren's table (from memory; no pentode grid-current data is held here).
+ */
+export const POWER_GRID_RESISTANCE = 1000;

@@ -38,6 +38,22 @@ describe('the amplifier strip', () => {
     expect(store.getState().design.rl).toBe(270e3);
   });
 
+  it('a working level past the clean limit shows its input and THD, naming the stage past its own limit', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => fireEvent.click(screen.getByRole('checkbox', { name: 'The voltage stages drive the output stage' })));
+    const amp = store.getState().amplifier!.result;
+    if (!amp.ok) throw new Error(amp.message);
+    const first = amp.clipsFirst;
+    act(() => store.getState().commit({ ...store.getState().design, levelRms: Math.round(1.3 * amp.output.rms) }));
+    const at = store.getState().amplifier!.atLevel;
+    if (!at?.ok) throw new Error('the level past the clean limit is worked out');
+    expect(at.pastClean).toEqual({ stage: first.stage, by: first.by });
+    const words = within(screen.getByTestId('amplifier-figures')).getByText(/past the clean limit/);
+    expect(words.textContent).toMatch(new RegExp(`dBu\\) in, THD [\\d.]+ %: past the clean limit, stage ${first.stage + 1} ${first.by === 'grid-current' ? 'drawing grid current' : 'cut off'}`));
+    expect(words.className).toBe('past-clean');
+  });
+
   it('a second stage joins the chain between the first and the output', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);

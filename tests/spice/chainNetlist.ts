@@ -1,5 +1,5 @@
 import type { ChainInput, ChainStage } from '../../src/index';
-import { modelOf, recordOf } from '../../src/index';
+import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, POWER_GRID_RESISTANCE, modelOf, recordOf } from '../../src/index';
 import { pentodeSubckt } from './outputNetlist';
 import { triodeSubckt } from './netlists';
 
@@ -17,6 +17,12 @@ import { triodeSubckt } from './netlists';
  * still be settling from the sine's start over a 5 ms run and shift the
  * operating points the harmonics are read at. The AC sweep keeps every
  * capacitor as given.
+ *
+ * Every grid draws current by the law the model follows (src/tube/gridCurrent.ts):
+ * a voltage stage's from its onset with the retarding tail, an output stage's
+ * from 0 V (classA1GridCurrent), each a behavioural source from grid to cathode;
+ * a long-tailed pair's and a push-pull pair's grids draw none (the model does
+ * not follow theirs).
  */
 const g = (x: number) => x.toPrecision(12);
 const L_PRIMARY = 1e4;
@@ -53,9 +59,11 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     }
     lines.push(`LS sec 0 ${g(L_PRIMARY / n2)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
     lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(midband ? large : (s.ck ?? large))}` : `VK${i} ${k} 0 DC 0`);
+    const rgrid = t.law.kind === 'triode' ? t.law.tube.model.gridResistance : POWER_GRID_RESISTANCE;
+    lines.push(`BG${i} ${gnode} ${k} I = pwr(max(v(${gnode},${k}),0),1.5)/${g(rgrid)}`);
     if (t.law.kind === 'pentode') {
       const screen = s.connection === 'triode' ? p : ul ? 'tap' : 'screen';
-      if (s.connection === 'pentode') lines.push(`VS screen 0 DC ${g(s.screenVolts)}`);
+      if (s.connection === 'pentode') lines.push(`VSCR${i} screen 0 DC ${g(s.screenVolts)}`);
       lines.push(`X${i} ${p} ${screen} ${gnode} ${k} pent`, `CGK${i} ${gnode} ${k} ${g(t.capacitances.cgk)}`, `CGP${i} ${gnode} ${p} ${g(t.capacitances.cgp)}`, `CPK${i} ${p} ${k} ${g(t.capacitances.cpk)}`);
     } else {
       lines.push(`X${i} ${p} ${gnode} ${k} outtri`, `CGK${i} ${gnode} ${k} ${g(t.capacitances.cgk)}`, `CGP${i} ${gnode} ${p} ${g(t.capacitances.cgp)}`, `CPK${i} ${p} ${k} ${g(t.capacitances.cpk)}`);
@@ -63,7 +71,9 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     return { lines, output: 'sec' };
   }
   const caps = recordOf(s.tube)?.capacitances;
-  lines.push(triodeSubckt(`tri${i}`, modelOf(s.tube).params, caps ? { cgk: caps.cgk, cgp: caps.cgp, cpk: caps.cpk } : undefined));
+  const model = modelOf(s.tube);
+  const gridLaw = { onset: GRID_CURRENT_ONSET, vt: CATHODE_THERMAL_VOLTS, rgrid: model.gridResistance };
+  lines.push(triodeSubckt(`tri${i}`, model.params, caps ? { cgk: caps.cgk, cgp: caps.cgp, cpk: caps.cpk } : undefined, s.kind === 'long-tailed-pair' ? undefined : gridLaw));
   lines.push(`X${i} ${p} ${gnode} ${k} tri${i}`);
   if (s.kind === 'split-load') {
     lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RA${i} bp${i} ${p} ${g(s.ra)}`, `RK${i} ${k} 0 ${g(s.rk)}`);
