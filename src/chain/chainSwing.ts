@@ -10,6 +10,9 @@ export const CLIP_REL_TOL = 1e-5;
 
 /** A grid-current drop on the driving impedance below this, V, is left out (it moves an output by microvolts at most). */
 const GRID_DROP_FLOOR = 1e-7;
+/** Below these drops, V, one step or one secant step solves the loop (see drive). */
+const TINY_DROP = 1e-5;
+const SMALL_DROP = 1e-3;
 
 /**
  * The chain at midband, large signal: the source's voltage divided onto the
@@ -36,11 +39,16 @@ export class ChainSignal {
     private readonly gridDrives: readonly number[] = links.map(() => 0),
   ) {
     this.samples = links.map(() => ({ vout: 0, vgk: 0, ia: 0, vout2: 0 }));
+    this.lastIg = new Float64Array(links.length);
   }
+
+  /** Each stage's grid current at the last instant solved, A: the next instant's first guess. */
+  private readonly lastIg: Float64Array;
 
   /**
    * Stage i at an open-circuit grid swing v: the grid current's loop solved
-   * by Illinois on Ig (Ig − law(vgk at v − R·Ig) rises with Ig: one root).
+   * by Illinois on Ig (Ig − law(vgk at v − R·Ig) rises with Ig: one root);
+   * below the onset, where the loop is nearly linear, a step or two.
    */
   private drive(i: number, v: number, v2: number): LinkSample {
     const link = this.links[i]!;
@@ -51,11 +59,24 @@ export class ChainSignal {
     if (!law || !(r > 0)) return out;
     const open = law(out.vgk);
     if (!(open * r >= GRID_DROP_FLOOR)) return out;
+    // Below the onset the loop is nearly linear: one step at the open-circuit current is within 1.5·drop²/Vt of the root
+    // (1.6e-9 V at TINY_DROP); a secant step from (0, −Ig) and (Ig, its residual) is within 1e-7 V of it to SMALL_DROP.
+    if (open * r < SMALL_DROP) {
+      link.sample(v - r * open, out, v2);
+      if (open * r < TINY_DROP) return out;
+      const f1 = open - law(out.vgk);
+      const ig = (open * open) / (f1 + open);
+      link.sample(v - r * ig, out, v2);
+      return out;
+    }
     const residual = (ig: number) => {
       link.sample(v - r * ig, out, v2);
       return ig - law(out.vgk);
     };
-    const ig = illinois(residual, 0, open, GRID_DROP_FLOOR / r, { fa: -open });
+    // To 1e-7 V of the drop, or a ten-millionth of it deep in grid current; from the last instant's current when it is in the bracket.
+    const last = this.lastIg[i]!;
+    const ig = illinois(residual, 0, open, Math.max(GRID_DROP_FLOOR, 1e-7 * open * r) / r, { fa: -open, ...(last > 0 && last < open ? { start: last } : {}) });
+    this.lastIg[i] = ig;
     link.sample(v - r * ig, out, v2);
     return out;
   }
