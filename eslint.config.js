@@ -14,7 +14,7 @@ export default tseslint.config(
           patterns: [
             { group: ['react', 'react-dom', 'react/*', 'react-dom/*'], message: 'src/ is the pure model: no React.' },
             { group: ['zustand', 'zustand/*'], message: 'src/ is the pure model: state lives in app/store.' },
-            { group: ['d3-selection', 'd3-drag', 'd3-zoom', 'd3', 'd3-transition'], message: 'src/ is the pure model: drawing lives in app/chart.' },
+            { group: ['d3-selection', 'd3-drag', 'd3-zoom', 'd3', 'd3-transition'], message: 'src/ is the pure model: drawing lives in app/ui.' },
             { group: ['**/app/**', '../app', '../../app'], message: 'Dependencies point one way: app imports src, never the reverse.' },
           ],
         },

@@ -106,6 +106,7 @@ export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
+export { analyzeStage, type StageAnalysis, type StageAnalysisOptions } from './stage/analyzeStage';
 export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';
 export { amplifierAtLevel, type AmplifierLevel, type AmplifierAtLevel, type StageLevel } from './chain/amplifierAtLevel';
 export { solveSupply } from './supply/solveSupply';

@@ -2,7 +2,7 @@ import { farads, milliamps, ohms, plain, rmsLevel, volts, watts } from '../forma
 import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
-import { atLevelWords } from '../chain/atLevelWords';
+import { atLevelWords } from '../ui/chain/atLevelWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**

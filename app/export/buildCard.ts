@@ -1,14 +1,14 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
-import { marginWords } from '../targets/marginWords';
-import { targetValueWords } from '../targets/targetValue';
+import { marginWords } from '../ui/targets/marginWords';
+import { targetValueWords } from '../ui/targets/targetValue';
 import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
-import { COMPARE_ROWS } from '../panels/ComparePanel';
+import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { outputCardSections } from './outputCard';
-import { elevationAdvice } from '../panels/elevationAdvice';
+import { elevationAdvice } from '../ui/panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, otherStageSections, partLines } from './amplifierLines';
 import { supplySection } from './supplyLines';

@@ -1,5 +1,5 @@
-import { followerLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../chart/ChartLegend';
-import { PALETTE } from '../chart/palette';
+import { followerLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../ui/chart/ChartLegend';
+import { PALETTE } from '../ui/chart/palette';
 import { milliamps, ohms, plain, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 

@@ -1,4 +1,4 @@
-import { PALETTE } from '../chart/palette';
+import { PALETTE } from '../ui/chart/palette';
 import { addCaption, type ChartCaption } from './chartCaption';
 
 /** Fonts named in exported SVG and drawn into PNGs: common on every desktop, with a generic fallback. */

@@ -1,6 +1,6 @@
 import { farads, milliamps, ohms, percentOf, plain, volts, watts } from '../format';
-import { compareCells } from '../output/OutputComparePanel';
-import { transformerLines } from '../output/OutputPartsPanel';
+import { compareCells } from '../ui/output/OutputComparePanel';
+import { transformerLines } from '../ui/output/OutputPartsPanel';
 import type { PushPullBench } from '../store/outputAnalysis';
 import { outputPartsOf } from '../store/outputParts';
 import { drivesPair } from '../store/outputPlan';

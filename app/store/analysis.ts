@@ -1,21 +1,6 @@
 import type { OutputPlan } from './outputPlan';
-import {
-  curveSheet,
-  MAX_FAMILY_CURVES,
-  plateExtent,
-  solvedStage,
-  stageOverlay,
-  type CurveSheet,
-  type Failure,
-  type PlateExtent,
-  type PreferredSeries,
-  type StageOverlay,
-  type StageDesign,
-  type StageSolution,
-  type TubeRecord,
-} from '../../src/index';
+import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
-import { analyzeSignal, secondStageProblem, type SignalAnalysis } from './signalAnalysis';
 import type { SupplyPlan } from './supplyPlan';
 import type { TargetPlan } from './targetPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
@@ -87,42 +72,31 @@ export interface Stage2Design {
   readonly rg: number;
 }
 
-/** Everything the screen shows that the model derives from a design. */
-export interface Analysis {
-  readonly tube: TubeRecord;
-  readonly solution: StageSolution;
-  readonly overlay: StageOverlay;
-  readonly sheet: CurveSheet;
-  readonly signal: SignalAnalysis;
-  /** The most plate curves the sheet was drawn with. */
-  readonly maxCurves: number;
-}
+/** Everything the screen shows that the model derives from a design (see analyzeStage). */
+export type Analysis = StageAnalysis;
 
 /**
- * Runs the model for a design: one stage solve, one overlay, and the curve
- * sheet only when the tube or the chart window changed (the sheet of `prev`
- * is reused otherwise, so a drag never rebuilds the curve family). `extent`
- * pins the chart window, as while B+ is being dragged.
+ * The bench's stage analysed by the model (analyzeStage): the store only
+ * looks the tubes up and names the stages. `extent` pins the chart window,
+ * as while B+ is being dragged; `light` is a drag's frame.
  */
 export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false, maxCurves = MAX_FAMILY_CURVES): ({ ok: true } & Analysis) | Failure {
   const tube = lookupTube(design.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library or among your own`, field: 'tube' };
   const source = benchSource(design);
   if (!source.ok) return source;
-  const stage = stageDesignOf(design, tube);
-  const solved = solvedStage(stage);
-  if (!solved.ok) return solved;
-  const { checked, solution } = solved;
-  const window = extent ?? plateExtent(tube, design.bplus);
-  const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === window.vmax && prev.sheet.extent.iaMax === window.iaMax && prev.maxCurves === maxCurves;
-  const sheet = sameSheet ? prev.sheet : curveSheet(tube, design.bplus, window, maxCurves);
-  if (light) {
-    const second = secondStageProblem(solution.op.va, design);
-    if (second) return second;
-  }
-  const signal = analyzeSignal({ checked, solution }, stage, design, prev?.signal ?? null, light);
-  if (signal.chain && !signal.chain.ok) return { ...signal.chain, field: signal.chain.field ?? 'stage2' };
-  return { ok: true, tube, solution, overlay: stageOverlay(checked, solution.op, sheet.extent), sheet, signal, maxCurves };
+  return analyzeStage(stageDesignOf(design, tube), { second: secondLink(design), levels: { levelRms: design.levelRms, thdLimit: design.thdLimit }, ...(extent ? { extent } : {}), light, maxCurves }, prev);
+}
+
+/** The bench's second stage as the model's link: its follower, or a gain stage kept from a design before version 3. */
+function secondLink(d: BenchDesign): ChainLink | null {
+  const s2 = d.stage2;
+  const tube = lookupTube(s2.tubeId);
+  if (s2.kind === 'none' || !tube) return null;
+  // The second stage drives the next gain stage's grid, or the amplifier's own load.
+  const { rl } = loadAfterBench(d);
+  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl };
+  return { kind: 'common-cathode', tube, bplus: d.bplus, ra: s2.ra, rk: s2.rk, rg: s2.rg, bypassed: true, rl };
 }
 
 /**
@@ -130,7 +104,7 @@ export function analyze(design: BenchDesign, prev: Analysis | null, extent?: Pla
  * by the source or the stage before it, loaded by its follower, the next
  * stage's grid, or the amplifier's own load.
  */
-export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign {
+export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign & { readonly tube: TubeRecord } {
   // With a second stage, RL and Cout belong to the end of the chain; stage 1 drives stage 2.
   const chained = d.stage2.kind !== 'none';
   const after = loadAfterBench(d);

@@ -1,7 +1,7 @@
 import { act, render } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
-import { DRAG_TABLE_INTERVAL_MS, useDragPaced } from '../../app/panels/useDragPaced';
+import { DRAG_TABLE_INTERVAL_MS, useDragPaced } from '../../app/ui/panels/useDragPaced';
 import { StoreProvider } from '../../app/store/StoreProvider';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 

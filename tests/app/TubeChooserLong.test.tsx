@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { saveCustomTubes } from '../../app/keep/customTubes';
-import { MAX_LISTED } from '../../app/panels/TubeChooser';
+import { MAX_LISTED } from '../../app/ui/panels/TubeChooser';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { korenPublishedSets } from '../../src/index';
 

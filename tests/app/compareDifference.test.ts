@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { difference } from '../../app/panels/ComparePanel';
+import { difference } from '../../app/ui/panels/ComparePanel';
 
 describe('comparison differences read right', () => {
   it('two shares differ in percentage points, not percent: 20 % → 9 % is −11 points', () => {

@@ -1,0 +1,43 @@
+import { useId } from 'react';
+import { milliamps, ohms, percentOf, volts, watts } from '../../format';
+import { PartsTables } from '../panels/PartsTables';
+import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
+import { useWorkbench } from '../../store/StoreProvider';
+
+/** The output stage's parts to order on screen, as the card lists them: transformer, resistors, capacitors, heater. */
+export function OutputPartsPanel() {
+  const id = useId();
+  return (
+    <section className="panel build-sheet output-parts" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>Parts to order</h2>
+      <OutputPartsLines />
+    </section>
+  );
+}
+
+/** The transformer (and a pair's bias supply) in words, as the panel and the card print them. */
+export function transformerLines(parts: OutputStageParts): string[] {
+  const tap = (x: number | null) => (x !== null ? `, screen taps at ${percentOf(x)} of each half` : '');
+  if (parts.pair === 'push-pull') {
+    const t = parts.transformer;
+    return [
+      `Output transformer, centre-tapped: ${ohms(t.primary)} plate to plate to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcPerHalf)} DC in each half (${milliamps(t.dcUncancelled)} uncancelled), at least ${watts(t.power)}${tap(t.screenTap)}.`,
+      ...(parts.biasSupply !== null ? [`Bias supply ${volts(parts.biasSupply)} with a balance adjustment for each tube (set each to the same idle current).`] : []),
+    ];
+  }
+  const t = parts.transformer;
+  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`];
+}
+
+/** The output stage's lines, also shown in the amplifier's build sheet when the voltage stages drive it. */
+export function OutputPartsLines() {
+  const parts = useWorkbench(outputPartsOf);
+  const heater = useWorkbench((s) => s.outputBench.settled.solution.tube.heater);
+  return (
+    <>
+      {transformerLines(parts).map((line, k) => <p key={k} data-part-line={k === 0 ? 'OPT' : undefined}>{line}</p>)}
+      <PartsTables resistors={parts.resistors} capacitors={parts.capacitors} />
+      <p>{parts.pair === 'push-pull' ? `Heaters: two tubes, each ${heater.volts} V, ${heater.amps} A.` : `Heater: ${heater.volts} V, ${heater.amps} A.`}</p>
+    </>
+  );
+}

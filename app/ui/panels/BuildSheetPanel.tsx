@@ -1,0 +1,112 @@
+import { useId } from 'react';
+import { farads, milliamps, ohms, plain, volts, watts } from '../../format';
+import { buildSheetOf, railOf } from '../../store/buildSheet';
+import { useWorkbench } from '../../store/StoreProvider';
+import { elevationAdvice } from './elevationAdvice';
+import { PartsTables } from './PartsTables';
+import { OutputPartsLines } from '../output/OutputPartsPanel';
+
+/** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
+function NumberInput({ label, value, unit, onValue, min }: { label: string; value: number; unit: string; onValue: (v: number) => void; min: number }) {
+  const id = useId();
+  const bad = !(value >= min);
+  return (
+    <label className="field-label" htmlFor={id}>
+      {label} ({unit})
+      <input id={id} type="number" value={Number.isFinite(value) ? value : ''} onChange={(e) => onValue(e.target.value === '' ? Number.NaN : Number(e.target.value))} aria-invalid={bad || undefined} />
+      {bad ? <span className="field-error">{`must be ${min > 0 ? 'above' : 'at least'} ${min} ${unit}`}</span> : null}
+    </label>
+  );
+}
+
+/**
+ * The build sheet: an orderable parts list with ratings, capacitor values for
+ * a wanted corner, production spread, heater supply and the B+ decoupling
+ * filter. Everything here is the model's; the panel only lays it out.
+ */
+export function BuildSheetPanel() {
+  const sheet = useWorkbench(buildSheetOf);
+  const inputs = useWorkbench((s) => s.buildInputs);
+  const rail = useWorkbench(railOf);
+  const setInputs = useWorkbench((s) => s.setBuildInputs);
+  const editField = useWorkbench((s) => s.editField);
+  const settleField = useWorkbench((s) => s.settleField);
+  const drivenOutput = useWorkbench((s) => (s.design.drivesOutput ? s.design.output.tubeId : null));
+  const id = useId();
+  const fc = sheet.forCorner;
+  const sp = sheet.spread;
+  return (
+    <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>Build sheet</h2>
+      {sheet.otherStages.length > 0 && <h3 className="subhead">{sheet.benchTitle} (on the bench)</h3>}
+      <PartsTables resistors={sheet.resistors} capacitors={sheet.capacitors} />
+      {sheet.otherStages.map((st) => (
+        <div key={st.title} className="stage-parts">
+          <h3 className="subhead">{st.title}</h3>
+          <PartsTables resistors={st.resistors} capacitors={st.capacitors} />
+        </div>
+      ))}
+      {drivenOutput ? (
+        <>
+          <h3 className="subhead">{`Output stage, ${drivenOutput}`}</h3>
+          <OutputPartsLines />
+        </>
+      ) : null}
+      <div className="option-row">
+        <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />
+      </div>
+      {!fc.ok ? <p className="field-error" role="alert">{fc.message}</p> : (
+        <ul className="corner-caps">
+          {(['cin', 'ck', 'cout'] as const).map((k) => {
+            const c = fc[k];
+            if (!c) return null;
+            return (
+              <li key={k}>
+                {`${k === 'cin' ? 'Cin' : k === 'ck' ? 'Ck' : 'Cout'}: ${farads(c.exact)} exactly, order ${farads(c.preferred)} (corner ${plain(c.cornerHz)} Hz) `}
+                <button type="button" onClick={() => { editField(k, farads(c.preferred).replace(' ', '').replace('F', '').replace('µ', 'u')); settleField(k); }}>Use</button>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+      <h3 className="subhead">Production spread</h3>
+      {sp.ok ? (
+        <p className="spread" data-testid="spread">
+          {`Resistors at their series tolerance and the tube's current ±20 % (common practice), ${sp.samples.length} builds: Ia ${milliamps(sp.range.ia[0])} to ${milliamps(sp.range.ia[1])}, Va ${volts(sp.range.va[0])} to ${volts(sp.range.va[1])}, gain ${plain(sp.range.gain[1])} to ${plain(sp.range.gain[0])}, Pa ${watts(sp.range.pa[0])} to ${watts(sp.range.pa[1])}.`}
+        </p>
+      ) : <p className="field-error">{sp.message}</p>}
+      <label><input type="checkbox" checked={inputs.showSpread} onChange={(e) => setInputs({ showSpread: e.target.checked })} /> Show the spread on the chart</label>
+      <h3 className="subhead">Heaters</h3>
+      {sheet.tubes.map((t) => (
+        <div className="option-row" key={t.tube.id}>
+          <label htmlFor={`${id}-${t.tube.id}`}>{`${t.tube.id}: ${t.envelopes} envelope${t.envelopes === 1 ? '' : 's'} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`}</label>
+          <select id={`${id}-${t.tube.id}`} value={t.chosen.wiring} onChange={(e) => setInputs({ heaterWiring: { ...inputs.heaterWiring, [t.tube.id]: e.target.value } })}>
+            {t.options.map((o) => <option key={o.wiring} value={o.wiring}>{`${o.volts} V, ${o.amps} A (${o.wiring})`}</option>)}
+          </select>
+        </div>
+      ))}
+      {sheet.heaters.ok ? <p>{`Heaters: ${sheet.heaters.volts} V, ${plain(sheet.heaters.totalAmps)} A, ${plain(sheet.heaters.totalWatts)} W in all.`}</p> : <p className="field-error">{sheet.heaters.message}</p>}
+      <div className="option-row"><NumberInput label="DC heater supply" unit="V" value={inputs.heaterSupplyVolts} min={0.1} onValue={(v) => setInputs({ heaterSupplyVolts: v })} /></div>
+      {sheet.dropper && !sheet.dropper.ok ? <p className="field-error" role="alert">{sheet.dropper.message}</p> : null}
+      {sheet.dropper?.ok ? (
+        <p data-testid="dropper">{sheet.dropper.preferred === 0 ? 'No dropping resistor needed.' : `Dropping resistor ${ohms(sheet.dropper.exact)} exactly, order ${ohms(sheet.dropper.preferred)} (${sheet.dropper.ratingWatts} W): heaters at ${plain(sheet.dropper.heaterVolts)} V, resistor dissipating ${watts(sheet.dropper.watts)}.`}{sheet.dropper.warning ? <span className="field-error"> {sheet.dropper.warning}</span> : null}</p>
+      ) : null}
+      {sheet.elevation.ok ? (
+        <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p>
+      ) : <p className="field-error">{sheet.elevation.message}</p>}
+      <h3 className="subhead decoupling">B+ decoupling filter</h3>
+      <div className="option-row">
+        <NumberInput label={inputs.railVolts === null ? 'Supply rail (follows B+)' : 'Supply rail'} unit="V" value={rail} min={1} onValue={(v) => setInputs({ railVolts: v })} />
+        <NumberInput label="Series R" unit="Ω" value={inputs.filterR} min={0} onValue={(v) => setInputs({ filterR: v })} />
+        <NumberInput label="Shunt C" unit="µF" value={inputs.filterC * 1e6} min={0.001} onValue={(v) => setInputs({ filterC: v / 1e6 })} />
+      </div>
+      <p className="decoupling">{`Total B+ current ${milliamps(sheet.totalBplusAmps)}${sheet.outputBplusAmps > 0 ? `, and ${milliamps(sheet.outputBplusAmps)} for the output stage ahead of the filter (${milliamps(sheet.totalBplusAmps + sheet.outputBplusAmps)} in all)` : ''}.`}</p>
+      {sheet.filter.ok ? (
+        <p data-testid="filter" className="decoupling">
+          {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}.${sheet.filteredOp ? ` Stage 1 then sits at Va ${volts(sheet.filteredOp.va)}, Ia ${milliamps(sheet.filteredOp.ia)}.` : ''} `}
+          <button type="button" onClick={() => { if (sheet.filter.ok) { editField('bplus', sheet.filter.stageBplus.toFixed(1)); settleField('bplus'); } }}>Use this B+ for the stage</button>
+        </p>
+      ) : <p className="field-error" role="alert">{sheet.filter.message}</p>}
+    </section>
+  );
+}

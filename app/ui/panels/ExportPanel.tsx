@@ -1,0 +1,41 @@
+import { useId, useState } from 'react';
+import { buildCardPng } from '../../export/buildCard';
+import { chartCaption } from '../../export/chartCaption';
+import { chartPng, svgDocument } from '../../export/chartImage';
+import { download, fileStem } from '../../export/download';
+import { useWorkbenchStore } from '../../store/StoreProvider';
+
+/** Export for bench notes: the chart as PNG (1×, 2×, 3×) or SVG, and the whole build card as a PNG. */
+export function ExportPanel() {
+  const store = useWorkbenchStore();
+  const [note, setNote] = useState<string | null>(null);
+  const id = useId();
+  const chart = () => document.querySelector<SVGSVGElement>('svg.plate-chart');
+  const stem = () => fileStem(store.getState().title);
+  const run = async (what: string, make: () => Promise<{ blob: Blob; name: string }>) => {
+    try {
+      // An export reads the figures: if a keystroke's light analysis is showing, finish it first.
+      store.getState().settleAnalysis();
+      const { blob, name } = await make();
+      download(blob, name);
+      setNote(`${what} saved as ${name}.`);
+    } catch (e) {
+      setNote(`${what} failed: ${(e as Error).message}`);
+    }
+  };
+  return (
+    <section className="panel export" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>Export</h2>
+      <div className="option-row">
+        {[1, 2, 3].map((scale) => (
+          <button key={scale} type="button" onClick={() => void run(`Chart PNG ${scale}×`, async () => ({ blob: await chartPng(chart()!, scale, chartCaption(store.getState())), name: `${stem()}-chart-${scale}x.png` }))}>
+            Chart PNG {scale}×
+          </button>
+        ))}
+        <button type="button" onClick={() => void run('Chart SVG', async () => ({ blob: new Blob([svgDocument(chart()!, chartCaption(store.getState())).text], { type: 'image/svg+xml' }), name: `${stem()}-chart.svg` }))}>Chart SVG</button>
+        <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg')), name: `${stem()}-build-card.png` }))}>Build card (PNG, A4)</button>
+      </div>
+      {note ? <p className="keep-ok" role="status">{note}</p> : null}
+    </section>
+  );
+}

@@ -1,0 +1,97 @@
+import { memo } from 'react';
+import { Capacitor, HResistor, Resistor } from './parts';
+import { Triode } from './tubes';
+import { Dot, Ground, Wire } from './wiring';
+import type { BenchDesign } from '../../store/analysis';
+
+/** The drawing's grid, in viewBox units. */
+export const H = 400;
+export const RAIL = 44;
+export const X1 = 184;
+export const X2 = 334;
+export const GRID_Y = 190;
+
+interface DrawingProps {
+  readonly kind: BenchDesign['stage2']['kind'];
+  readonly bypassed: boolean;
+  readonly hasLoad: boolean;
+  readonly tubeId: string;
+  readonly tube2Id: string;
+}
+
+/**
+ * The parts and wiring of the stage without its values. It changes only with
+ * the circuit's shape, so a drag (which changes values, not wiring) never
+ * renders it again.
+ */
+export const StageDrawing = memo(function StageDrawing({ kind, bypassed, hasLoad, tubeId, tube2Id }: DrawingProps) {
+  const outX = kind === 'none' ? 300 : 404;
+  const outY = kind === 'follower' ? 250 : 130;
+  const fromX = kind === 'none' ? X1 : X2;
+  return (
+    <>
+            <line x1={X1 - 30} x2={kind === 'none' ? X1 + 30 : X2 + 30} y1={RAIL} y2={RAIL} stroke="#1d2329" strokeWidth={3} />
+            {/* input network: source impedance, coupling capacitor, grid leak */}
+            <text x={4} y={GRID_Y + 4} fontSize={12} fill="#4a535c">in</text>
+            <HResistor x1={18} x2={72} y={GRID_Y} />
+            <Capacitor at={GRID_Y} from={72} to={112} vertical={false} />
+            <Wire points={[[112, GRID_Y], [X1 - 36, GRID_Y]]} />
+            <Dot x={120} y={GRID_Y} />
+            <Resistor x={120} y1={GRID_Y} y2={344} />
+            <Ground x={120} y={352} />
+            {/* stage 1 */}
+            <Resistor x={X1} y1={RAIL} y2={130} />
+            <Dot x={X1} y={130} />
+            <Wire points={[[X1, 130], [X1, 154]]} />
+            <Triode cx={X1} cy={GRID_Y} />
+            <text x={X1 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{tubeId}</text>
+            <Wire points={[[X1, 226], [X1, 250]]} />
+            <Dot x={X1} y={250} />
+            <Resistor x={X1} y1={250} y2={344} />
+            <g opacity={bypassed ? 1 : 0.3}>
+              <Wire points={[[X1, 250], [X1 + 46, 250]]} />
+              <Wire points={[[X1, 344], [X1 + 46, 344]]} />
+            </g>
+            <Capacitor at={X1 + 46} from={250} to={344} vertical faded={!bypassed} polarised />
+            <Ground x={X1} y={352} />
+            {kind === 'follower' ? (
+              <g>
+                <Wire points={[[X1, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                <Wire points={[[X2, RAIL], [X2, 154]]} />
+                <Dot x={X2} y={RAIL} />
+                <Triode cx={X2} cy={GRID_Y} />
+                <text x={X2 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{tube2Id}</text>
+                <text x={X2 + 40} y={192} fontSize={11} fill="#4a535c">follower</text>
+                <Wire points={[[X2, 226], [X2, 250]]} />
+                <Dot x={X2} y={250} />
+                <Resistor x={X2} y1={250} y2={344} />
+                <Ground x={X2} y={352} />
+              </g>
+            ) : null}
+            {kind === 'common-cathode' ? (
+              <g>
+                <Capacitor at={130} from={X1} to={256} vertical={false} />
+                <Wire points={[[256, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                <Dot x={270} y={GRID_Y} />
+                <Resistor x={270} y1={GRID_Y} y2={344} />
+                <Ground x={270} y={352} />
+                <Resistor x={X2} y1={RAIL} y2={130} />
+                <Dot x={X2} y={130} />
+                <Wire points={[[X2, 130], [X2, 154]]} />
+                <Triode cx={X2} cy={GRID_Y} />
+                <text x={X2 + 40} y={176} fontSize={13} fontWeight={600} fill="#1d2329">{tube2Id}</text>
+                <Wire points={[[X2, 226], [X2, 250]]} />
+                <Resistor x={X2} y1={250} y2={344} />
+                <Ground x={X2} y={352} />
+              </g>
+            ) : null}
+            {/* output: coupling capacitor into the load */}
+            <Wire points={[[fromX, outY], [outX - 50, outY]]} />
+            <Capacitor at={outY} from={outX - 50} to={outX - 4} vertical={false} />
+            <Wire points={[[outX - 4, outY], [outX, outY]]} />
+            <text x={outX + 6} y={outY - 6} fontSize={12} fill="#4a535c">out</text>
+            <Resistor x={outX} y1={outY} y2={344} faded={!hasLoad} />
+            <Ground x={outX} y={352} />
+    </>
+  );
+});

@@ -1,0 +1,148 @@
+import { useEffect, useId, useRef, useState } from 'react';
+import { farads, ohms, volts } from '../../format';
+import { FIELDS, type FieldName } from '../../store/fields';
+import { useWorkbench } from '../../store/StoreProvider';
+import { sameEntries, useDragPaced } from '../panels/useDragPaced';
+import type { BenchDesign } from '../../store/analysis';
+import { GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
+
+/**
+ * The stage drawn as a schematic, and the main control surface: each part's
+ * value is a button on the drawing that opens an editor in place, bound to the
+ * same store field as the form (one source of truth). The drawing grows a
+ * second tube when the design has one; RL and Cout then sit after it.
+ */
+type Spot = { x: number; y: number; anchor: 'start' | 'end' | 'middle' };
+
+function labelSpots(kind: BenchDesign['stage2']['kind']): Partial<Record<FieldName, Spot>> {
+  const out = kind === 'none' ? { x: 300, yC: 130 } : { x: 404, yC: kind === 'follower' ? 250 : 130 };
+  return {
+    bplus: { x: X1 + 14, y: RAIL - 18, anchor: 'start' },
+    ra: { x: X1 + 14, y: 92, anchor: 'start' },
+    rk: { x: X1 - 14, y: 302, anchor: 'end' },
+    ck: { x: X1 + 66, y: 326, anchor: 'start' },
+    rsource: { x: 45, y: GRID_Y - 16, anchor: 'middle' },
+    cin: { x: 92, y: GRID_Y - 20, anchor: 'middle' },
+    rg: { x: 114, y: 252, anchor: 'end' },
+    cout: { x: out.x - 24, y: out.yC - 20, anchor: 'middle' },
+    rl: { x: out.x + 14, y: 290, anchor: 'start' },
+    ...(kind === 'none' ? {} : { rk2: { x: X2 - 14, y: 302, anchor: 'end' as const } }),
+    ...(kind === 'common-cathode' ? { ra2: { x: X2 + 14, y: 92, anchor: 'start' as const }, rg2: { x: 262, y: 300, anchor: 'end' as const } } : {}),
+  };
+}
+
+function partText(f: FieldName, d: BenchDesign): string {
+  switch (f) {
+    case 'bplus': return `B+ ${volts(d.bplus)}`;
+    case 'ra': return `Ra ${ohms(d.ra)}`;
+    case 'rk': return `Rk ${ohms(d.rk)}`;
+    case 'rl': return Number.isFinite(d.rl) ? `RL ${ohms(d.rl)}` : 'RL none';
+    case 'rsource': return `Rs ${ohms(d.rsource)}`;
+    case 'cin': return d.cin === null ? 'direct' : farads(d.cin);
+    case 'rg': return `Rg ${ohms(d.rg)}`;
+    case 'ck': return d.ck === null ? 'Ck ideal' : farads(d.ck);
+    case 'cout': return d.cout === null ? 'ideal' : farads(d.cout);
+    case 'ra2': return `Ra ${ohms(d.stage2.ra)}`;
+    case 'rk2': return `Rk ${ohms(d.stage2.rk)}`;
+    case 'rg2': return `Rg ${ohms(d.stage2.rg)}`;
+    default: return FIELDS[f].label;
+  }
+}
+
+export function StageSchematic() {
+  // Values follow a drag at a readable pace; the figures strip carries them live.
+  const [design, op] = useDragPaced((s) => [s.design, s.analysis.solution.op] as const, { equal: sameEntries });
+  const setBypassed = useWorkbench((s) => s.setBypassed);
+  const [editing, setEditing] = useState<FieldName | null>(null);
+  const kind = design.stage2.kind;
+  const width = kind === 'none' ? 385 : 490;
+  const spots = labelSpots(kind);
+  const hasLoad = Number.isFinite(design.rl);
+
+  return (
+    <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
+      <div className="schematic-frame">
+        <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? ', then a cathode follower' : ', then a second gain stage'}`}>
+          <StageDrawing kind={kind} bypassed={design.bypassed} hasLoad={hasLoad} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
+          <text x={X1 + 40} y={192} fontSize={11} fill="#4a535c">{`Va ${volts(op.va)}`}</text>
+          <text x={X1 + 40} y={206} fontSize={11} fill="#4a535c">{`Vk ${volts(op.vk)}`}</text>
+          <g
+            role="switch"
+            tabIndex={0}
+            aria-checked={design.bypassed}
+            aria-label="Cathode bypass capacitor"
+            className="schematic-part"
+            onClick={() => setBypassed(!design.bypassed)}
+            onKeyDown={(e) => {
+              if (e.key === 'Enter' || e.key === ' ') {
+                e.preventDefault();
+                setBypassed(!design.bypassed);
+              }
+            }}
+          >
+            <rect x={X1 + 28} y={276} width={40} height={44} fill="transparent" />
+            <text x={X1 + 66} y={300} fontSize={12} fill="#1d2329">{design.bypassed ? 'Ck' : 'no Ck'}</text>
+          </g>
+          {(Object.keys(spots) as FieldName[]).map((f) => (
+            <g
+              key={f}
+              role="button"
+              tabIndex={0}
+              className="schematic-part"
+              data-part={f}
+              aria-label={`${FIELDS[f].label} ${partText(f, design).replace(/^(Ra|Rk|Rg|Rs|RL|B\+) /, '')}: change`}
+              onClick={() => setEditing(f)}
+              onKeyDown={(e) => {
+                if (e.key === 'Enter' || e.key === ' ') {
+                  e.preventDefault();
+                  setEditing(f);
+                }
+              }}
+            >
+              <text x={spots[f]!.x} y={spots[f]!.y} textAnchor={spots[f]!.anchor} fontSize={12} fill="#0f5f8a" className="part-value" paintOrder="stroke" stroke="#fbfaf5" strokeWidth={3}>
+                {partText(f, design)}
+              </text>
+            </g>
+          ))}
+        </svg>
+        {editing ? <InlineEditor field={editing} spot={spots[editing]!} width={width} onDone={() => setEditing(null)} /> : null}
+      </div>
+    </section>
+  );
+}
+
+/** The in-place editor for one part's value, placed over its label. */
+function InlineEditor({ field, spot, width, onDone }: { field: FieldName; spot: Spot; width: number; onDone: () => void }) {
+  const draft = useWorkbench((s) => s.drafts[field]);
+  const error = useWorkbench((s) => s.errors[field]);
+  const editField = useWorkbench((s) => s.editField);
+  const settleField = useWorkbench((s) => s.settleField);
+  const input = useRef<HTMLInputElement>(null);
+  const id = useId();
+  useEffect(() => {
+    input.current?.focus();
+    input.current?.select();
+  }, []);
+  const close = () => {
+    settleField(field);
+    onDone();
+  };
+  return (
+    <div className="inline-editor" style={{ left: `${(Math.min(Math.max(spot.x - 60, 0), width - 150) / width) * 100}%`, top: `${((spot.y + 6) / H) * 100}%` }}>
+      <label htmlFor={id} className="visually-hidden">{`${FIELDS[field].label} (${FIELDS[field].unit})`}</label>
+      <input
+        ref={input}
+        id={id}
+        value={draft}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-err` : undefined}
+        onChange={(e) => editField(field, e.target.value)}
+        onBlur={close}
+        onKeyDown={(e) => {
+          if (e.key === 'Enter' || e.key === 'Escape') close();
+        }}
+      />
+      {error ? <p id={`${id}-err`} className="field-error" role="alert">{error}</p> : null}
+    </div>
+  );
+}

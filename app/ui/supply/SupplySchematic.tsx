@@ -1,0 +1,92 @@
+import { farads, ohms, plain } from '../../format';
+import { useWorkbench } from '../../store/StoreProvider';
+import type { SupplyPlan } from '../../store/supplyPlan';
+
+const STEP = 118;
+const TOP = 46;
+const GROUND = 118;
+const LEFT = 150;
+const INK = '#1d2733';
+
+/** A resistor drawn as a zigzag from x to x + w at height y. */
+function zigzag(x: number, y: number, w: number): string {
+  const n = 6;
+  const pts = [`M${x},${y}`, `L${x + w * 0.2},${y}`];
+  for (let k = 0; k < n; k++) pts.push(`L${x + w * 0.2 + ((k + 0.5) * w * 0.6) / n},${y + (k % 2 === 0 ? -6 : 6)}`);
+  pts.push(`L${x + w * 0.8},${y}`, `L${x + w},${y}`);
+  return pts.join(' ');
+}
+
+/** An inductor drawn as four humps from x to x + w at height y. */
+function coil(x: number, y: number, w: number): string {
+  const a = x + w * 0.15;
+  const hump = (w * 0.7) / 4;
+  let p = `M${x},${y} L${a},${y}`;
+  for (let k = 0; k < 4; k++) p += ` a${hump / 2},${hump / 2} 0 0 1 ${hump},0`;
+  return `${p} L${x + w},${y}`;
+}
+
+/** A vertical winding from (x, y) down h, its turns bulging left (−1) or right (+1). */
+function winding(x: number, y: number, h: number, side: 1 | -1): string {
+  const turn = h / 4;
+  let p = `M${x},${y}`;
+  for (let k = 0; k < 4; k++) p += ` a${turn / 2},${turn / 2} 0 0 ${side === 1 ? 1 : 0} 0,${turn}`;
+  return p;
+}
+
+const rectifierText = (p: SupplyPlan) => (p.rectifier.kind === 'tube' ? p.rectifier.tubeId : p.rectifier.kind === 'silicon-bridge' ? 'bridge' : 'full wave');
+
+/**
+ * The supply as a drawing of our own: the transformer and rectifier, then
+ * the ladder node by node (each node's capacitor to ground, the series R or
+ * choke between nodes), each node numbered as in the table and marked with
+ * the stages it feeds.
+ */
+export function SupplySchematic() {
+  const p = useWorkbench((s) => s.design.supply);
+  const names = useWorkbench((s) => s.supplyView?.names ?? null);
+  const feeds = useWorkbench((s) => s.supplyView?.feeds ?? null);
+  const nodes = p.sections.length + 1;
+  const width = LEFT + nodes * STEP + 40;
+  const nodeX = (k: number) => LEFT + 40 + k * STEP;
+  const feeding = (k: number) => (names && feeds ? names.filter((_, i) => feeds[i] === k).map((n) => n.title) : []);
+  return (
+    <svg className="supply-schematic" viewBox={`0 0 ${width} 150`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
+      <g stroke={INK} fill="none" strokeWidth={1.4}>
+        {/* Transformer: primary and secondary coils with the core between. */}
+        <path d={`${winding(26, 36, 64, 1)} M14 36 H26 M14 100 H26`} />
+        <path d="M40 32 V104 M44 32 V104" />
+        <path d={`${winding(58, 36, 64, -1)} M58 36 H62 V${TOP} H70 M58 100 H62 V${GROUND} H${nodeX(0) - 10}`} />
+        {/* Rectifier: a diode into the reservoir node. */}
+        <path d={`M70 ${TOP} H96 M96 ${TOP - 9} L96 ${TOP + 9} L112 ${TOP} Z M112 ${TOP - 9} V${TOP + 9} M112 ${TOP} H${nodeX(0)}`} />
+        {p.input.kind === 'choke' ? <path d={coil(118, TOP, nodeX(0) - 118 - 4)} stroke={INK} /> : null}
+        {/* Ground rail. */}
+        <path d={`M${nodeX(0) - 10} ${GROUND} H${nodeX(nodes - 1) + 10}`} />
+        {Array.from({ length: nodes }, (_, k) => (
+          <g key={k}>
+            <path d={`M${nodeX(k)} ${TOP} V${TOP + 30} M${nodeX(k) - 12} ${TOP + 30} H${nodeX(k) + 12} M${nodeX(k) - 12} ${TOP + 36} H${nodeX(k) + 12} M${nodeX(k)} ${TOP + 36} V${GROUND}`} />
+            {k > 0 ? <path d={p.sections[k - 1]!.kind === 'rc' ? zigzag(nodeX(k - 1), TOP, STEP) : coil(nodeX(k - 1), TOP, STEP)} /> : null}
+            <circle cx={nodeX(k)} cy={TOP} r={2.5} fill={INK} />
+          </g>
+        ))}
+      </g>
+      <g fontSize={10} fill={INK}>
+        <text x={8} y={120}>{plain(p.secondaryRms)} V{p.rectifier.kind === 'silicon-bridge' ? '' : ' ×2'}</text>
+        <text x={80} y={TOP + 24}>{rectifierText(p)}</text>
+        {p.input.kind === 'choke' ? <text x={120} y={TOP - 12}>{plain(p.input.l)} H</text> : null}
+        {Array.from({ length: nodes }, (_, k) => {
+          const s = p.sections[k - 1];
+          const c = k === 0 ? p.input.c : s!.c;
+          return (
+            <g key={k}>
+              <text x={nodeX(k) + 14} y={TOP + 36}>{farads(c)}</text>
+              <text x={nodeX(k) - 4} y={TOP - 26} fontWeight={700}>{k + 1}</text>
+              {feeding(k).length ? <text x={nodeX(k) - 4} y={TOP - 12} fill="#0f5f8a">→ {feeding(k).join(', ')}</text> : null}
+              {s ? <text x={nodeX(k - 1) + STEP / 2 - 16} y={TOP + 20}>{s.kind === 'rc' ? ohms(s.r) : `${plain(s.l)} H`}</text> : null}
+            </g>
+          );
+        })}
+      </g>
+    </svg>
+  );
+}
