@@ -73,7 +73,7 @@ export { levelAtThd, levelAtThdOf, TABLE_THD, type LevelAtThd } from './signal/l
 export { distortion, distortionOf, MAX_OVERDRIVE, DEFAULT_SAMPLES, type DriveLevel, type DistortionOptions, type DistortionResult } from './signal/distortion';
 export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } from './signal/frequencyResponse';
 export { corners, cornersOf, type Corners } from './signal/corners';
-export { solveLinks, type ChainLink, type LinkResult, type LinkChainResult } from './signal/solveLinks';
+export { solveLinks, type ChainLink, type FollowerCoupling, type LinkResult, type LinkChainResult } from './signal/solveLinks';
 export { solveChain } from './chain/solveChain';
 export { solveAmplifier, checkChain, prepareAmplifier, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
 export { STAGE_KINDS, STAGE_KIND_LABELS } from './chain/stageKinds';

@@ -79,9 +79,11 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   const link = chain?.links[1];
   if (chain && link) {
     sections.push({
-      heading: link.kind === 'follower' ? `Stage 2: ${d.stage2.tubeId} cathode follower, direct-coupled` : `Stage 2: ${d.stage2.tubeId} gain stage, capacitor-coupled`,
+      heading: link.kind === 'follower' ? `Stage 2: ${d.stage2.tubeId} cathode follower, ${d.stage2.coupling ? 'capacitor-coupled' : 'direct-coupled'}` : `Stage 2: ${d.stage2.tubeId} gain stage, capacitor-coupled`,
       lines: [
-        link.kind === 'follower' ? `Rk ${ohms(d.stage2.rk)}` : `Ra ${ohms(d.stage2.ra)}, Rk ${ohms(d.stage2.rk)} bypassed, Rg ${ohms(d.stage2.rg)}`,
+        link.kind === 'follower'
+          ? `Rk ${ohms(d.stage2.rk)}${d.stage2.coupling ? `; Cc ${farads(d.stage2.coupling.cc)} into Rg ${ohms(d.stage2.coupling.rg)}, grid held at ${volts(d.stage2.coupling.vbias)}` : ''}`
+          : `Ra ${ohms(d.stage2.ra)}, Rk ${ohms(d.stage2.rk)} bypassed, Rg ${ohms(d.stage2.rg)}`,
         `Va ${volts(link.op.va)}, Vk ${volts(link.op.vk)}, Ia ${milliamps(link.op.ia)}, Vgk ${volts(link.op.vgk)}, Pa ${watts(link.op.pa)}`,
         `Gain ${plain(link.gain)} ×, Zout ${ohms(link.zout)}${link.kind === 'follower' ? `, heater–cathode ${volts(link.vhk)}` : ''}`,
         `Both stages: gain ${plain(chain.gain)} × (${chain.inverting ? 'inverting' : 'not inverting'}), clean output ${plain(chain.output.rms)} V rms`,

@@ -1,5 +1,5 @@
 import { pairDefaults, type OutputPair, type OutputPlan, type SplitterPlan } from '../store/outputPlan';
-import { findOutputTube, TABLE_THD, type Connection, type OutputDesign, type PreferredSeries } from '../../src/index';
+import { findOutputTube, TABLE_THD, type Connection, type FollowerCoupling, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { NO_TARGETS, type TargetPlan } from '../store/targetPlan';
 import { lookupTube } from './customTubes';
@@ -25,7 +25,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * and `after` the stages either side of it, input first (stagePlans.ts). A
  * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg }
  * (cc null: direct from the source, first stage only) or
- * { kind: "follower", tubeId, rk } (direct-coupled to the gain stage before it).
+ * { kind: "follower", tubeId, rk, coupling? } (direct-coupled to the gain stage
+ * before it; with coupling { cc, rg, vbias }, through a capacitor into its own
+ * grid leak, the grid held at vbias; `stage2` carries the same).
  * Versions 1 and 2 open as a chain of their one or two voltage stages.
  * The output stage's `pair` ("single-ended" or "push-pull"), `raa` (the
  * pair's plate-to-plate load, Ω), `mismatch` (the second tube's gm, a
@@ -86,8 +88,9 @@ function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, 
     const problem = firstProblem(STAGE_KIND, raw, at) ?? firstProblem(raw.kind === 'follower' ? FOLLOWER_STAGE : GAIN_STAGE, raw, at);
     if (problem) return { ok: false, message: problem };
     if (raw.kind === 'follower') {
-      if (!prevIsGain) return { ok: false, message: `${at} is a cathode follower with no gain stage right before it to be direct-coupled to. Nothing was opened.` };
-      plans.push({ kind: 'follower', tubeId: knownId(raw.tubeId as string), rk: raw.rk as number });
+      if (!prevIsGain) return { ok: false, message: `${at} is a cathode follower with no gain stage right before it to be coupled to. Nothing was opened.` };
+      const coupling = raw.coupling as FollowerCoupling | undefined;
+      plans.push({ kind: 'follower', tubeId: knownId(raw.tubeId as string), rk: raw.rk as number, ...(coupling ? { coupling: { cc: coupling.cc, rg: coupling.rg, vbias: coupling.vbias } } : {}) });
     } else {
       const first = firstIsInput && i === 0;
       if (!first && raw.cc === null) return { ok: false, message: `${at}.cc must be a coupling capacitor: only the first stage may be direct-coupled (to the source). Nothing was opened.` };
@@ -199,6 +202,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       ra: s2.ra as number,
       rk: s2.rk as number,
       rg: s2.rg as number,
+      ...(s2.kind === 'follower' && s2.coupling ? { coupling: { ...(s2.coupling as FollowerCoupling) } } : {}),
     },
     before: before.plans,
     after: after.plans,

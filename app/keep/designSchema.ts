@@ -26,6 +26,9 @@ const oneOf = <const T extends readonly [string, ...string[]]>(options: T) => v.
 const tubeName = () => v.custom<string>((x) => typeof x === 'string' && x.trim().length > 0 && x.length <= 60, 'must name a tube (text of at most 60 characters)');
 const section = <T extends v.ObjectEntries>(entries: T) => v.object(entries, 'must be an object');
 
+/** A capacitor-coupled follower's coupling (came within version 3: absent, the follower is direct-coupled). */
+const FOLLOWER_COUPLING = v.optional(section({ cc: ranged(L.stage2.cc), rg: ranged(L.stage2.rg), vbias: ranged(L.stage2.vbias) }));
+
 /** A stage's targets: each box a value or null (off). */
 const TARGETS = section({
   minGain: rangedOrNull(L.targets.gain),
@@ -78,6 +81,7 @@ export const BENCH_STAGE = v.object({
     ra: ranged(L.stage2.ra),
     rk: ranged(L.stage2.rk),
     rg: ranged(L.stage2.rg),
+    coupling: FOLLOWER_COUPLING,
   }),
 });
 
@@ -136,7 +140,7 @@ export const GAIN_STAGE = v.object({
   cc: rangedOrNull(L.cin),
   rg: ranged(L.rg),
 });
-export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk) });
+export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk), coupling: FOLLOWER_COUPLING });
 
 /** Values quoted in messages are cut short and shown as JSON text, never interpreted. */
 export const quote = (x: unknown) => {

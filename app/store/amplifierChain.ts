@@ -44,7 +44,11 @@ function tubesOf(list: readonly StagePlan[]): Tubes {
 function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[]): ChainStage[] {
   return list.map((p, i): ChainStage => {
     const tube = tubes[i]!;
-    if (p.kind === 'follower') return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, coupling: { kind: 'direct' } };
+    if (p.kind === 'follower') {
+      const c = p.coupling;
+      const coupling = c ? { vbias: c.vbias, coupling: { kind: 'capacitor' as const, cc: c.cc, rg: c.rg } } : { coupling: { kind: 'direct' as const } };
+      return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, ...coupling };
+    }
     return {
       kind: 'common-cathode', tube, bplus: p.bplus, ra: p.ra, rk: p.rk, bypassed: p.bypassed,
       ...(p.bypassed && p.ck !== null && p.rk > 0 ? { ck: p.ck } : {}),

@@ -1,5 +1,5 @@
 import type { OutputPlan } from './outputPlan';
-import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
+import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type FollowerCoupling, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import type { SupplyPlan } from './supplyPlan';
 import type { TargetPlan } from './targetPlan';
@@ -63,13 +63,15 @@ export interface BenchDesign {
 /** Which stage the bench shows: a gain stage, its cathode follower (riding with it as `stage2`), or the output stage. */
 export type StageKind = 'voltage' | 'follower' | 'output';
 
-/** The optional second stage: none, a direct-coupled cathode follower, or a capacitor-coupled gain stage. */
+/** The optional second stage: none, a cathode follower, or a capacitor-coupled gain stage. */
 export interface Stage2Design {
   readonly kind: 'none' | 'follower' | 'common-cathode';
   readonly tubeId: string;
   readonly ra: number;
   readonly rk: number;
   readonly rg: number;
+  /** A follower's coupling capacitor, leak and grid bias; absent (or undefined): direct-coupled to the plate. */
+  readonly coupling?: FollowerCoupling;
 }
 
 /** Everything the screen shows that the model derives from a design (see analyzeStage). */
@@ -95,7 +97,7 @@ function secondLink(d: BenchDesign): ChainLink | null {
   if (s2.kind === 'none' || !tube) return null;
   // The second stage drives the next gain stage's grid, or the amplifier's own load.
   const { rl } = loadAfterBench(d);
-  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl };
+  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl, ...(s2.coupling ? { coupling: s2.coupling } : {}) };
   return { kind: 'common-cathode', tube, bplus: d.bplus, ra: s2.ra, rk: s2.rk, rg: s2.rg, bypassed: true, rl };
 }
 
@@ -108,7 +110,7 @@ export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign & {
   // With a second stage, RL and Cout belong to the end of the chain; stage 1 drives stage 2.
   const chained = d.stage2.kind !== 'none';
   const after = loadAfterBench(d);
-  const load = !chained ? after.rl : d.stage2.kind === 'follower' ? Infinity : d.stage2.rg;
+  const load = !chained ? after.rl : d.stage2.kind === 'follower' ? (d.stage2.coupling?.rg ?? Infinity) : d.stage2.rg;
   const source = benchSource(d);
   return {
     tube,

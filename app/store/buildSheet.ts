@@ -6,7 +6,7 @@ import {
 } from '../../src/index';
 import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
-import { offBenchParts, splitterParts, type OffBenchParts } from './chainParts';
+import { followerCouplingParts, offBenchParts, splitterParts, type OffBenchParts } from './chainParts';
 import { drivesPair, splitterDirect } from './outputPlan';
 import { benchIndex, voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
@@ -95,9 +95,15 @@ function compute(s: WorkbenchState): BuildSheet {
       const rLoad2 = Number.isFinite(d.rl) ? (d.stage2.ra * d.rl) / (d.stage2.ra + d.rl) : d.stage2.ra;
       capacitors.push(capacitorLine('Ck2', 'stage 2 cathode bypass', forCorner(bypassResistance(d.stage2.rk, link.mu, link.rp, rLoad2)), link.op.vk, 0, '+ to the cathode'));
       if (!splitterDirect(d) && (d.cout !== null || Number.isFinite(d.rl))) capacitors.push(capacitorLine('Cout', d.drivesOutput ? (drivesPair(d) ? 'coupling into the splitter\'s grid' : 'coupling into the output grid') : 'output coupling from stage 2', d.cout, link.op.va - (drivesPair(d) ? d.output.splitter.vgrid : 0), d.bplus, '+ to stage 2\'s plate'));
-    } else if (d.cout !== null || Number.isFinite(d.rl)) {
-      // Cold, the follower passes no current; as it warms its cathode rises toward its grid, which sits at stage 1's plate.
-      capacitors.push(capacitorLine('Cout', 'output coupling from the follower\'s cathode', d.cout, link.op.vk, d.bplus, '+ to the cathode'));
+    } else {
+      const c = d.stage2.coupling;
+      if (c) {
+        const own = followerCouplingParts(c, 2, sol.op.va, d.bplus, d.series);
+        resistors.push(...own.resistors);
+        capacitors.push(...own.capacitors);
+      }
+      // Cold, the follower passes no current; as it warms its cathode rises toward its grid: stage 1's plate (at B+ cold), or its own divider's voltage.
+      if (d.cout !== null || Number.isFinite(d.rl)) capacitors.push(capacitorLine('Cout', 'output coupling from the follower\'s cathode', d.cout, link.op.vk, c ? c.vbias : d.bplus, '+ to the cathode'));
     }
     resistors.push(resistorLine('Rk2', link.kind === 'follower' ? 'follower cathode load' : 'stage 2 cathode bias', d.stage2.rk, ia2, d.series));
   }

@@ -1,4 +1,4 @@
-import { capacitorLine, nearestPreferred, resistorLine, type CapacitorLine, type ChainResult, type PreferredSeries, type ResistorLine, type StageResult } from '../../src/index';
+import { capacitorLine, nearestPreferred, resistorLine, type CapacitorLine, type ChainResult, type FollowerCoupling, type PreferredSeries, type ResistorLine, type StageResult } from '../../src/index';
 import type { SplitterPlan } from './outputPlan';
 import { bplusOfStage, type StagePlan } from './stagePlans';
 
@@ -25,7 +25,14 @@ export function offBenchParts(list: readonly StagePlan[], onBench: ReadonlySet<n
     if (onBench.has(i) || !st) continue;
     const n = i + 1;
     if (p.kind === 'follower') {
-      out.push({ index: i, title: `Stage ${n}, ${p.tubeId} cathode follower`, resistors: [resistorLine(`Rk${n}`, `stage ${n} follower cathode load`, p.rk, st.op.ia, series)], capacitors: [] });
+      const resistors = [resistorLine(`Rk${n}`, `stage ${n} follower cathode load`, p.rk, st.op.ia, series)];
+      const capacitors: CapacitorLine[] = [];
+      if (p.coupling) {
+        const c = followerCouplingParts(p.coupling, n, amp.stages[i - 1]?.outputDc ?? 0, bplusOfStage(list, i), series);
+        resistors.push(...c.resistors);
+        capacitors.push(...c.capacitors);
+      }
+      out.push({ index: i, title: `Stage ${n}, ${p.tubeId} cathode follower${p.coupling ? ', capacitor-coupled' : ''}`, resistors, capacitors });
       continue;
     }
     const resistors = [resistorLine(`Ra${n}`, `stage ${n} plate load`, p.ra, st.op.ia, series)];
@@ -44,10 +51,44 @@ export function offBenchParts(list: readonly StagePlan[], onBench: ReadonlySet<n
   return out;
 }
 
+/**
+ * A capacitor-coupled follower's own parts: the capacitor from the plate
+ * before it (across that plate's DC less the grid's running, its B+ less the
+ * grid's cold), the grid leak to the divider, and the divider with its
+ * decoupling. Numbered by the follower's place.
+ */
+export function followerCouplingParts(c: FollowerCoupling, n: number, plateDc: number, bplus: number, series: PreferredSeries): { resistors: ResistorLine[]; capacitors: CapacitorLine[] } {
+  const divider = gridDivider({ upper: `Rd${n}a`, lower: `Rd${n}b`, cap: `Cd${n}` }, bplus, c.vbias, series);
+  return {
+    resistors: [resistorLine(`Rg${n}`, `stage ${n} follower grid leak (to the divider)`, c.rg, 0, series), ...divider.resistors],
+    capacitors: [capacitorLine(`Cc${n}`, `coupling into the stage ${n} follower`, c.cc, plateDc - c.vbias, bplus - c.vbias, `+ to stage ${n - 1}'s plate`), divider.capacitor],
+  };
+}
+
 /** The lower resistor of the divider that sets a splitter's grid, Ω (common practice: a few hundred kΩ, so it wastes little current). */
 const DIVIDER_LOWER = 220e3;
 /** The divider's decoupling sets its corner this low, Hz (common practice: well under the band, so no signal rides on the grid return). */
 const DIVIDER_CORNER_HZ = 2;
+
+/**
+ * The divider that holds a capacitor-coupled grid at `vgrid` from its B+,
+ * decoupled so no signal rides on the grid's return: the lower resistor a
+ * few hundred kΩ, the upper the nearest preferred value for the voltage.
+ * `refs` names its parts (the splitter's Rd1, Rd2, Cd; stage 3's Rd3a, Rd3b, Cd3).
+ */
+export function gridDivider(refs: { readonly upper: string; readonly lower: string; readonly cap: string }, bplus: number, vgrid: number, series: PreferredSeries): { resistors: ResistorLine[]; capacitor: CapacitorLine } {
+  const upper = nearestPreferred((DIVIDER_LOWER * (bplus - vgrid)) / Math.max(vgrid, 1e-3), series);
+  const lower = nearestPreferred(DIVIDER_LOWER, series);
+  const dividerAmps = bplus / (upper + lower);
+  const shunt = (upper * lower) / (upper + lower);
+  return {
+    resistors: [
+      resistorLine(refs.upper, `divider upper (with ${refs.lower} sets the grid near ${vgrid} V)`, upper, dividerAmps, series),
+      resistorLine(refs.lower, 'divider lower', lower, dividerAmps, series),
+    ],
+    capacitor: capacitorLine(refs.cap, 'divider decoupling', 1 / (2 * Math.PI * DIVIDER_CORNER_HZ * shunt), vgrid, (bplus * lower) / (upper + lower), '+ to the divider'),
+  };
+}
 
 /**
  * The phase splitter's parts, rated from its operating point in the solved
@@ -74,12 +115,9 @@ export function splitterParts(sp: SplitterPlan, st: StageResult, index: number, 
     resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks (one per grid, to the divider)' : 'splitter grid leak (to the divider)', sp.rg, 0, series));
   }
   if (sp.coupling === 'capacitor') {
-    const upper = nearestPreferred((DIVIDER_LOWER * (sp.bplus - sp.vgrid)) / Math.max(sp.vgrid, 1e-3), series);
-    const lower = nearestPreferred(DIVIDER_LOWER, series);
-    const dividerAmps = sp.bplus / (upper + lower);
-    resistors.push(resistorLine('Rd1', `divider upper (with Rd2 sets the grid near ${sp.vgrid} V)`, upper, dividerAmps, series), resistorLine('Rd2', 'divider lower', lower, dividerAmps, series));
-    const shunt = (upper * lower) / (upper + lower);
-    capacitors.push(capacitorLine('Cd', 'divider decoupling', 1 / (2 * Math.PI * DIVIDER_CORNER_HZ * shunt), sp.vgrid, (sp.bplus * lower) / (upper + lower), '+ to the divider'));
+    const divider = gridDivider({ upper: 'Rd1', lower: 'Rd2', cap: 'Cd' }, sp.bplus, sp.vgrid, series);
+    resistors.push(...divider.resistors);
+    capacitors.push(divider.capacitor);
   }
   // Each output's coupling: the split-load's plate and cathode, or the pair's two plates.
   const second = both ? sp.bplus - (tail - st.op.ia) * sp.ra2 : st.op.vk;

@@ -40,6 +40,9 @@ export const DESIGN_LIMITS = {
     ra: limit(100, 10e6, 'Ω'),
     rk: limit(1, 10e6, 'Ω'),
     rg: limit(1e3, 100e6, 'Ω'),
+    /** A capacitor-coupled follower's coupling capacitor and the grid voltage its divider holds. */
+    cc: limit(1e-12, 1, 'F'),
+    vbias: limit(0, 1000, 'V'),
   },
   splitter: {
     bplus: limit(5, 1500, 'V'),

@@ -58,7 +58,8 @@ export interface DesignSlice {
   /** How many plate curves the chart draws at most: 6 (sparse), 12 (normal) or 24 (dense). */
   curveCount: number;
   setCurveCount: (n: number) => void;
-  setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId'>>) => void;
+  /** The second stage's kind, tube or coupling (a follower's `coupling` undefined: direct-coupled to the plate). */
+  setStage2: (patch: Partial<Pick<BenchDesign['stage2'], 'kind' | 'tubeId' | 'coupling'>>) => void;
   /** Runs the full analysis now if a light one (a drag's or a keystroke's) is showing: before an export reads the figures. */
   settleAnalysis: () => void;
   /** Makes a whole document (opened file, shared link, shelf) the current design; null on success, else why not. */

@@ -1,12 +1,15 @@
 import { formatValue, parseValue } from '../../src/index';
 import type { OutputPlan, SplitterPlan } from './outputPlan';
 import type { BenchDesign } from './analysis';
+import type { FollowerCoupling } from '../../src/index';
+import { followerCouplingFor } from './stagePlans';
 import { targetPlanOf, withTargetPlan, type TargetPlan } from './targetPlan';
 import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2'
+  | 'fCc' | 'fRg' | 'fVbias'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
   | 'tGain' | 'tClean' | 'tThdLevel' | 'tThd' | 'tDiss' | 'tZout' | 'tRaMin' | 'tRaMax' | 'tRkMin' | 'tRkMax' | 'tHeadroom'
@@ -55,6 +58,12 @@ const top = <K extends keyof BenchDesign>(key: K) => ({
 const second = <K extends 'ra' | 'rk' | 'rg'>(key: K) => ({
   get: (d: BenchDesign) => d.stage2[key],
   put: (d: BenchDesign, v: number | null) => ({ ...d, stage2: { ...d.stage2, [key]: v as number } }),
+});
+
+/** A capacitor-coupled follower's own coupling values (a direct-coupled one has none to show). */
+const coupling = <K extends keyof FollowerCoupling>(key: K) => ({
+  get: (d: BenchDesign) => d.stage2.coupling?.[key] ?? null,
+  put: (d: BenchDesign, v: number | null) => ({ ...d, stage2: { ...d.stage2, coupling: { ...(d.stage2.coupling ?? followerCouplingFor(d.bplus)), [key]: v as number } } }),
 });
 
 const out = <K extends keyof OutputPlan>(key: K) => ({
@@ -112,6 +121,9 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', L.stage2.ra), show: compact, ...second('ra') },
   rk2: { label: 'Rk (stage 2)', unit: 'Ω', example: '1k or 33k', read: ranged('Rk', L.stage2.rk), show: compact, ...second('rk') },
   rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', L.stage2.rg), show: compact, ...second('rg') },
+  fCc: { label: 'Cc (follower)', unit: 'F', example: '100n', read: ranged('Coupling capacitor', L.stage2.cc), show: compact, ...coupling('cc') },
+  fRg: { label: 'Rg (follower)', unit: 'Ω', example: '1M', read: ranged('Grid leak', L.stage2.rg), show: compact, ...coupling('rg') },
+  fVbias: { label: 'Grid bias (follower)', unit: 'V', example: '150', read: ranged('Grid voltage', L.stage2.vbias), show: compact, ...coupling('vbias') },
   oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', L.output.bplus), show: compact, ...out('bplus') },
   oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
   oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', L.output.ulTap), show: showPercent, ...out('ulTap') },

@@ -7,14 +7,14 @@ import { loadAfterBench } from './stagePlans';
 /**
  * The bench's cathode follower on its own plate curves: what the chart draws
  * and the figures read when the follower is the stage on the bench. Its grid
- * is the gain stage's plate (direct-coupled), its plate is at the same B+,
+ * is the gain stage's plate (direct-coupled) or its own bias (capacitor-coupled), its plate is at the same B+,
  * its load the next grid or the amplifier's own.
  */
 export interface FollowerBench {
   readonly tube: TubeRecord;
   readonly sheet: CurveSheet;
   readonly plane: FollowerPlane;
-  /** The grid's voltage to ground: the plate before it, V. */
+  /** The grid's voltage to ground: the plate before it, or its own bias when capacitor-coupled, V. */
   readonly vgrid: number;
   readonly bplus: number;
   /** The most curves its sheet was drawn with (a new count draws it again). */
@@ -33,7 +33,8 @@ export function followerWindow(d: BenchDesign, rival: Rival): PlateExtent | null
 }
 
 function benchOf(d: BenchDesign, a: Analysis, tube: TubeRecord, extent: PlateExtent, prev: FollowerBench | null, maxCurves: number): Result<FollowerBench> {
-  const vgrid = a.solution.op.va;
+  // Direct-coupled, the grid is the plate before it; capacitor-coupled, its own bias holds it.
+  const vgrid = d.stage2.coupling ? d.stage2.coupling.vbias : a.solution.op.va;
   const plane = followerPlane({ tube, bplus: d.bplus, vgrid, rk: d.stage2.rk, rl: loadAfterBench(d).rl }, extent);
   if (!plane.ok) return { ...plane, message: `Follower: ${plane.message}`, field: plane.field === 'rk' ? 'rk2' : 'stage2' };
   const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves;

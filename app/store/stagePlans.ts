@@ -1,3 +1,4 @@
+import type { FollowerCoupling } from '../../src/index';
 import type { BenchDesign } from './analysis';
 
 /**
@@ -31,12 +32,25 @@ export interface GainPlan {
   readonly rg: number;
 }
 
-/** A cathode follower direct-coupled to the plate of the gain stage before it, on that stage's B+. */
+/**
+ * A cathode follower after the plate of the gain stage before it, on that
+ * stage's B+: direct-coupled (its grid at that plate), or through a coupling
+ * capacitor into its own grid leak, its grid held at `coupling.vbias`.
+ */
 export interface FollowerPlan {
   readonly kind: 'follower';
   readonly tubeId: string;
   readonly rk: number;
+  /** Absent: direct-coupled. */
+  readonly coupling?: FollowerCoupling;
 }
+
+/**
+ * A new capacitor-coupled follower's coupling (common practice: 100 nF into
+ * 1 MΩ, a corner of 1.6 Hz; the grid at half its B+, so the cathode, which
+ * sits just above it, can swing about as far either way).
+ */
+export const followerCouplingFor = (bplus: number): FollowerCoupling => ({ cc: NEW_STAGE_CC, rg: 1e6, vbias: Math.round(bplus / 2) });
 
 /** The most voltage stages an amplifier holds (the chain's limit of 8, one kept for the output stage). */
 export const MAX_VOLTAGE_STAGES = 7;
@@ -60,7 +74,7 @@ export function benchPlan(d: BenchDesign): GainPlan {
 /** The bench stage's second stage as plans: its follower, or a gain stage kept from a design before version 3. */
 function stage2Plans(d: BenchDesign): StagePlan[] {
   const s2 = d.stage2;
-  if (s2.kind === 'follower') return [{ kind: 'follower', tubeId: s2.tubeId, rk: s2.rk }];
+  if (s2.kind === 'follower') return [{ kind: 'follower', tubeId: s2.tubeId, rk: s2.rk, ...(s2.coupling ? { coupling: s2.coupling } : {}) }];
   if (s2.kind === 'common-cathode') return [{ kind: 'common-cathode', tubeId: s2.tubeId, bplus: d.bplus, ra: s2.ra, rk: s2.rk, bypassed: true, ck: null, cc: IDEAL_CC, rg: s2.rg }];
   return [];
 }
@@ -108,7 +122,7 @@ export function withStagesOnBench(d: BenchDesign, list: readonly StagePlan[], k:
     ck: on.ck,
     cin: on.cc,
     rg: on.rg,
-    stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk } : { ...d.stage2, kind: 'none' },
+    stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk, coupling: next.coupling } : { ...d.stage2, kind: 'none' },
     before: list.slice(0, k),
     after: list.slice(k + (follows ? 2 : 1)),
   };

@@ -11,7 +11,24 @@ import { sineLevel, type Level } from './levels';
 /** A link of a chain: a common-cathode stage, or a cathode follower direct-coupled to the plate before it. */
 export type ChainLink =
   | ({ readonly kind: 'common-cathode' } & StageDesign)
-  | { readonly kind: 'follower'; readonly tube: TubeLike; readonly bplus: number; readonly rk: number; readonly rl?: number; readonly heaterVolts?: number };
+  | {
+      readonly kind: 'follower';
+      readonly tube: TubeLike;
+      readonly bplus: number;
+      readonly rk: number;
+      readonly rl?: number;
+      readonly heaterVolts?: number;
+      /** Capacitor-coupled: through `cc` into the grid leak `rg`, the grid held at `vbias` (a divider's). Absent: direct-coupled to the plate before it. */
+      readonly coupling?: FollowerCoupling;
+    };
+
+/** A follower fed through a coupling capacitor, its grid held at its own bias: free of the plate before it, at the cost of Cc and a leak that loads that plate. */
+export interface FollowerCoupling {
+  readonly cc: number;
+  readonly rg: number;
+  /** The grid's DC voltage to ground, V. */
+  readonly vbias: number;
+}
 
 export type LinkResult = ({ readonly kind: 'common-cathode' } & StageSolution) | ({ readonly kind: 'follower' } & FollowerSolution);
 
@@ -59,7 +76,7 @@ function commonCathodeOf(d: StageDesign): CommonCathodeLink {
  * (see ChainSignal), so the two forms give the same figures. A
  * common-cathode second link is coupled through a capacitor, its grid leak
  * Rg loading the first plate; a follower is direct-coupled, its grid at the
- * first plate's voltage. The input is the first grid's open-circuit swing,
+ * first plate's voltage, or capacitor-coupled into its own leak and bias. The input is the first grid's open-circuit swing,
  * as it always was (the amplifier's is the source's).
  */
 export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult> {
@@ -69,18 +86,23 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
   if (first.kind !== 'common-cathode') return fail('invalid-input', 'The first link must be a common-cathode stage', 'links');
   const second = links[1];
   if (second?.kind === 'common-cathode' && second.rg === undefined) return fail('invalid-input', 'A capacitor-coupled second stage needs its grid leak Rg', 'rg');
-  // With a second link, the first plate's load is that link's grid: its leak, or none for a follower.
-  const loadOnFirst = second?.kind === 'common-cathode' ? second.rg! : second ? Infinity : (first.rl ?? Infinity);
+  // With a second link, the first plate's load is that link's grid: its leak, or none for a direct-coupled follower.
+  const loadOnFirst = second?.kind === 'common-cathode' ? second.rg! : second ? (second.coupling?.rg ?? Infinity) : (first.rl ?? Infinity);
   const s1 = solveStage({ ...first, rl: loadOnFirst });
   if (!s1.ok) return { ...s1, message: `Stage 1: ${s1.message}` };
   const results: LinkResult[] = [{ kind: 'common-cathode', ...s1 }];
   const stages: ChainStage[] = [commonCathodeOf(first)];
   let load = second ? undefined : first.rl;
   if (second?.kind === 'follower') {
-    const f = solveFollower({ tube: second.tube, bplus: second.bplus, vgrid: s1.op.va, rk: second.rk, rl: second.rl, heaterVolts: second.heaterVolts });
+    const c = second.coupling;
+    const f = solveFollower({ tube: second.tube, bplus: second.bplus, vgrid: c ? c.vbias : s1.op.va, rk: second.rk, rl: second.rl, heaterVolts: second.heaterVolts });
     if (!f.ok) return { ...f, message: `Follower: ${f.message}` };
     results.push({ kind: 'follower', ...f });
-    stages.push({ kind: 'follower', tube: second.tube, bplus: second.bplus, rk: second.rk, ...(second.heaterVolts !== undefined ? { heaterVolts: second.heaterVolts } : {}), coupling: { kind: 'direct' } });
+    stages.push({
+      kind: 'follower', tube: second.tube, bplus: second.bplus, rk: second.rk,
+      ...(second.heaterVolts !== undefined ? { heaterVolts: second.heaterVolts } : {}),
+      ...(c ? { vbias: c.vbias, coupling: { kind: 'capacitor' as const, cc: c.cc, rg: c.rg } } : { coupling: { kind: 'direct' as const } }),
+    });
     load = second.rl;
   } else if (second?.kind === 'common-cathode') {
     const s2 = solveStage(second);

@@ -47,13 +47,14 @@ export interface SignalLevels {
 export const RESPONSE_FREQUENCIES = logFrequencies(1, 1e6, 15);
 
 /**
- * A follower direct-coupled to a plate at `va`, at DC: the full pass refuses
+ * A follower after a plate at `va` (its grid there, or at its own bias when
+ * capacitor-coupled), at DC: the full pass refuses
  * a follower whose grid would draw current, so a drag's light pass checks it
  * too and never leaves the design there.
  */
 export function followerProblem(va: number, second: ChainLink | null): Failure | null {
   if (!second || second.kind !== 'follower') return null;
-  const f = solveFollower({ tube: second.tube, bplus: second.bplus, vgrid: va, rk: second.rk, rl: second.rl ?? Infinity });
+  const f = solveFollower({ tube: second.tube, bplus: second.bplus, vgrid: second.coupling ? second.coupling.vbias : va, rk: second.rk, rl: second.rl ?? Infinity });
   return f.ok ? null : { ...f, message: `Follower: ${f.message}`, field: 'stage2' };
 }
 

@@ -129,6 +129,18 @@ describe('the amplifier strip', () => {
     expect(store.getState().design.stage2.kind).toBe('none');
   });
 
+  it('the second-stage panel adds a capacitor-coupled follower: its capacitor, leak and grid bias boxes, and the drawing shows it so', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => fireEvent.change(screen.getByLabelText('Add', { exact: true }), { target: { value: 'follower-capacitor' } }));
+    const s2 = store.getState().design.stage2;
+    expect(s2.kind).toBe('follower');
+    expect(s2.coupling).toEqual({ cc: 100e-9, rg: 1e6, vbias: Math.round(store.getState().design.bplus / 2) });
+    for (const name of [/^Cc \(follower\)/, /^Rg \(follower\)/, /^Grid bias \(follower\)/]) expect(screen.getByRole('textbox', { name })).toBeTruthy();
+    expect(screen.getByRole('group', { name: /then a cathode follower, capacitor-coupled/ })).toBeTruthy();
+    expect(screen.getByRole('button', { name: /cathode follower, capacitor-coupled/ })).toBeTruthy();
+  });
+
   it('one build sheet for the joined amplifier: the output stage\'s transformer and parts, its grid resistor the RL typed, and its current in the B+ total', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);

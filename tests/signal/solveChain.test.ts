@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findTube, solveChain, solveStage } from '../../src/index';
+import { findTube, solveChain, solveFollower, solveStage } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 const ax7 = findTube('12AX7')!;
@@ -45,6 +45,24 @@ describe('solveChain', () => {
     if (!alone.ok || !both.ok) throw new Error('both should solve');
     expect(both.inputPeak).toBeLessThanOrEqual(alone.inputPeak);
     expect(both.limitedBy.link).toBe(1); // the second stage, with 40 times the drive, clips first
+  });
+
+  // Ohm's law: the follower's leak is the first plate's load; its grid sits where its bias holds it.
+  it('a capacitor-coupled follower sits on its own grid bias, its leak loading the plate, as the amplifier form has it', () => {
+    const coupling = { cc: 100e-9, rg: 1e6, vbias: 150 };
+    const r = solveChain([first, { kind: 'follower', tube: au7, bplus: 300, rk: 47e3, coupling }]);
+    if (!r.ok) throw new Error(r.message);
+    const own = solveFollower({ tube: au7, bplus: 300, vgrid: 150, rk: 47e3 });
+    expect(own.ok && r.links[1]!.op.vk).toBeCloseTo(own.ok ? own.op.vk : 0, 9);
+    const loaded = solveStage({ ...first, rl: 1e6 });
+    expect(loaded.ok && r.links[0]!.gain).toBeCloseTo(loaded.ok ? loaded.gain : 0, 12);
+    const amp = solveChain({
+      source: { rsource: 0 },
+      stages: [{ ...first, bypassed: true, coupling: { kind: 'direct' } }, { kind: 'follower', tube: au7, bplus: 300, rk: 47e3, vbias: 150, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }],
+    });
+    if (!amp.ok) throw new Error(amp.message);
+    expectClose(r.inputPeak, amp.inputPeak, { rel: 1e-9 }, 'same clean limit');
+    expectClose(r.gain, amp.gain, { rel: 1e-9 }, 'same gain');
   });
 
   it('names what is wrong with a malformed chain', () => {

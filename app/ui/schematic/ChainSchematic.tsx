@@ -74,20 +74,38 @@ function GainCell({ x0, p }: { x0: number; p: GainPlan }) {
   );
 }
 
+/** A follower's cell is wider when capacitor-coupled: its capacitor and leak stand before the tube. */
+const cellWidth = (p: FollowerPlan | GainPlan) => (p.kind === 'follower' ? WIDTH.follower + (p.coupling ? FOLLOWER_COUPLING_WIDTH : 0) : WIDTH.gain);
+const FOLLOWER_COUPLING_WIDTH = 46;
+
+/** A cathode follower: its grid straight from the plate before it, or through its capacitor into its leak, returned to the divider that holds it. */
 function FollowerCell({ x0, p }: { x0: number; p: FollowerPlan }) {
-  const cx = x0 + 54;
+  const c = p.coupling;
+  const cx = x0 + 54 + (c ? FOLLOWER_COUPLING_WIDTH : 0);
   const r = 22;
+  const width = cellWidth(p);
   return (
     <>
+      {c ? (
+        <>
+          <Coupling x0={x0} cc={c.cc} />
+          <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+          <Dot x={x0 + RG_X} y={GRID} />
+          <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
+          {label(x0 + RG_X + 11, GRID + 32, ohms(c.rg))}
+          {label(x0 + RG_X, GROUND + 4, `to ${volts(c.vbias)}`, 'middle')}
+        </>
+      ) : (
+        <Wire points={[[x0, GRID], [cx - r, GRID]]} />
+      )}
       <Triode cx={cx} cy={GRID} r={r} />
-      <Wire points={[[x0, GRID], [cx - r, GRID]]} />
-      <Wire points={[[x0, RAIL], [x0 + WIDTH.follower, RAIL]]} />
+      <Wire points={[[x0, RAIL], [x0 + width, RAIL]]} />
       <Wire points={[[cx, RAIL], [cx, GRID - r]]} />
       <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
       <Ground x={cx} y={GROUND} />
       {label(cx - 12, 176, ohms(p.rk), 'end')}
       <Dot x={cx} y={CATHODE_OUT} />
-      <Wire points={[[cx, CATHODE_OUT], [x0 + WIDTH.follower, CATHODE_OUT], [x0 + WIDTH.follower, GRID]]} />
+      <Wire points={[[cx, CATHODE_OUT], [x0 + width, CATHODE_OUT], [x0 + width, GRID]]} />
     </>
   );
 }
@@ -204,11 +222,11 @@ export const ChainSchematic = memo(function ChainSchematic() {
   let x = LEAD_IN;
   const cells = list.map((p, i) => {
     const x0 = x;
-    x += WIDTH[p.kind === 'follower' ? 'follower' : 'gain'];
+    x += cellWidth(p);
     const onBench = (design.stageKind === 'voltage' && i === bench) || (design.stageKind === 'follower' && followerOnBench && i === bench + 1);
-    const name = `Stage ${i + 1}, ${p.tubeId} ${p.kind === 'follower' ? 'cathode follower' : 'gain stage'}`;
+    const name = `Stage ${i + 1}, ${p.tubeId} ${p.kind === 'follower' ? `cathode follower${p.coupling ? ', capacitor-coupled' : ''}` : 'gain stage'}`;
     return (
-      <Cell key={i} x0={x0} width={WIDTH[p.kind === 'follower' ? 'follower' : 'gain']} onBench={onBench} name={name} tubeId={p.tubeId} onOpen={() => showStage(i)}>
+      <Cell key={i} x0={x0} width={cellWidth(p)} onBench={onBench} name={name} tubeId={p.tubeId} onOpen={() => showStage(i)}>
         {p.kind === 'follower' ? <FollowerCell x0={x0} p={p} /> : <GainCell x0={x0} p={p} />}
       </Cell>
     );

@@ -10,9 +10,14 @@ export const RAIL = 44;
 export const X1 = 184;
 export const X2 = 334;
 export const GRID_Y = 190;
+/** A capacitor-coupled follower's grid leak: where it stands and where it ends (at the divider). */
+export const FOLLOWER_LEAK_X = 292;
+export const FOLLOWER_LEAK_END = 252;
 
 interface DrawingProps {
   readonly kind: BenchDesign['stage2']['kind'];
+  /** A follower fed through its capacitor into its own leak and bias (else straight from the plate). */
+  readonly coupled: boolean;
   readonly bypassed: boolean;
   readonly hasLoad: boolean;
   readonly tubeId: string;
@@ -24,7 +29,7 @@ interface DrawingProps {
  * the circuit's shape, so a drag (which changes values, not wiring) never
  * renders it again.
  */
-export const StageDrawing = memo(function StageDrawing({ kind, bypassed, hasLoad, tubeId, tube2Id }: DrawingProps) {
+export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, tubeId, tube2Id }: DrawingProps) {
   const outX = kind === 'none' ? 300 : 404;
   const outY = kind === 'follower' ? 250 : 130;
   const fromX = kind === 'none' ? X1 : X2;
@@ -56,7 +61,17 @@ export const StageDrawing = memo(function StageDrawing({ kind, bypassed, hasLoad
             <Ground x={X1} y={352} />
             {kind === 'follower' ? (
               <g>
-                <Wire points={[[X1, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                {coupled ? (
+                  <>
+                    <Capacitor at={130} from={X1} to={256} vertical={false} />
+                    <Wire points={[[256, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                    {/* The leak hangs short, to the divider (named by its voltage), clear of stage 1's bypass and the follower's Rk. */}
+                    <Dot x={FOLLOWER_LEAK_X} y={GRID_Y} />
+                    <Resistor x={FOLLOWER_LEAK_X} y1={GRID_Y} y2={FOLLOWER_LEAK_END} />
+                  </>
+                ) : (
+                  <Wire points={[[X1, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                )}
                 <Wire points={[[X2, RAIL], [X2, 154]]} />
                 <Dot x={X2} y={RAIL} />
                 <Triode cx={X2} cy={GRID_Y} />

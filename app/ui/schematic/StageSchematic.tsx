@@ -4,7 +4,7 @@ import { FIELDS, type FieldName } from '../../store/fields';
 import { useWorkbench } from '../../store/StoreProvider';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import type { BenchDesign } from '../../store/analysis';
-import { GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
+import { FOLLOWER_LEAK_END, FOLLOWER_LEAK_X, GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
 
 /**
  * The stage drawn as a schematic, and the main control surface: each part's
@@ -14,7 +14,7 @@ import { GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
  */
 type Spot = { x: number; y: number; anchor: 'start' | 'end' | 'middle' };
 
-function labelSpots(kind: BenchDesign['stage2']['kind']): Partial<Record<FieldName, Spot>> {
+function labelSpots(kind: BenchDesign['stage2']['kind'], coupled: boolean): Partial<Record<FieldName, Spot>> {
   const out = kind === 'none' ? { x: 300, yC: 130 } : { x: 404, yC: kind === 'follower' ? 250 : 130 };
   return {
     bplus: { x: X1 + 14, y: RAIL - 18, anchor: 'start' },
@@ -28,6 +28,13 @@ function labelSpots(kind: BenchDesign['stage2']['kind']): Partial<Record<FieldNa
     rl: { x: out.x + 14, y: 290, anchor: 'start' },
     ...(kind === 'none' ? {} : { rk2: { x: X2 - 14, y: 302, anchor: 'end' as const } }),
     ...(kind === 'common-cathode' ? { ra2: { x: X2 + 14, y: 92, anchor: 'start' as const }, rg2: { x: 262, y: 300, anchor: 'end' as const } } : {}),
+    ...(kind === 'follower' && coupled
+      ? {
+          fCc: { x: 226, y: 112, anchor: 'middle' as const },
+          fRg: { x: FOLLOWER_LEAK_X - 8, y: 230, anchor: 'end' as const },
+          fVbias: { x: FOLLOWER_LEAK_X, y: FOLLOWER_LEAK_END + 14, anchor: 'middle' as const },
+        }
+      : {}),
   };
 }
 
@@ -45,6 +52,9 @@ function partText(f: FieldName, d: BenchDesign): string {
     case 'ra2': return `Ra ${ohms(d.stage2.ra)}`;
     case 'rk2': return `Rk ${ohms(d.stage2.rk)}`;
     case 'rg2': return `Rg ${ohms(d.stage2.rg)}`;
+    case 'fCc': return d.stage2.coupling ? farads(d.stage2.coupling.cc) : '';
+    case 'fRg': return d.stage2.coupling ? `Rg ${ohms(d.stage2.coupling.rg)}` : '';
+    case 'fVbias': return d.stage2.coupling ? `to ${volts(d.stage2.coupling.vbias)}` : '';
     default: return FIELDS[f].label;
   }
 }
@@ -56,14 +66,15 @@ export function StageSchematic() {
   const [editing, setEditing] = useState<FieldName | null>(null);
   const kind = design.stage2.kind;
   const width = kind === 'none' ? 385 : 490;
-  const spots = labelSpots(kind);
+  const coupled = kind === 'follower' && design.stage2.coupling !== undefined;
+  const spots = labelSpots(kind, coupled);
   const hasLoad = Number.isFinite(design.rl);
 
   return (
     <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
       <div className="schematic-frame">
-        <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? ', then a cathode follower' : ', then a second gain stage'}`}>
-          <StageDrawing kind={kind} bypassed={design.bypassed} hasLoad={hasLoad} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
+        <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? `, then a cathode follower${coupled ? ', capacitor-coupled' : ''}` : ', then a second gain stage'}`}>
+          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
           <text x={X1 + 40} y={192} fontSize={11} fill="#4a535c">{`Va ${volts(op.va)}`}</text>
           <text x={X1 + 40} y={206} fontSize={11} fill="#4a535c">{`Vk ${volts(op.vk)}`}</text>
           <g

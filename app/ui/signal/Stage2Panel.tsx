@@ -5,6 +5,7 @@ import { CHART_BOX, plateScales } from '../chart/plateScales';
 import { milliamps, ohms, plain, volts } from '../../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
+import { followerCouplingFor } from '../../store/stagePlans';
 
 const SMALL_BOX = { ...CHART_BOX, width: 330, height: 230, margin: { top: 10, right: 44, bottom: 40, left: 52 } };
 
@@ -19,6 +20,8 @@ export function Stage2Panel() {
   const chain = useWorkbench((s) => s.analysis.signal.chain);
   const view = useWorkbench((s) => s.analysis.signal.stage2);
   const onBench = useWorkbench((s) => s.design.stageKind === 'follower');
+  const bplus = useWorkbench((s) => s.design.bplus);
+  const choice = stage2.kind === 'follower' && stage2.coupling ? 'follower-capacitor' : stage2.kind;
   const id = useId();
   const link = chain?.ok ? chain.links[1] : undefined;
   return (
@@ -28,16 +31,18 @@ export function Stage2Panel() {
         <label htmlFor={`${id}-kind`}>Add</label>
         <select
           id={`${id}-kind`}
-          value={stage2.kind}
+          value={choice}
           onChange={(e) => {
-            const kind = e.target.value as typeof stage2.kind;
+            const picked = e.target.value as typeof choice;
             // A gain stage joins the amplifier as a stage of its own (its own B+, bypass and coupling), put on the bench.
-            if (kind === 'common-cathode' && stage2.kind === 'none') addStage(bench, 'common-cathode');
-            else setStage2({ kind });
+            if (picked === 'common-cathode' && stage2.kind === 'none') addStage(bench, 'common-cathode');
+            else if (picked === 'follower-capacitor') setStage2({ kind: 'follower', coupling: stage2.coupling ?? followerCouplingFor(bplus) });
+            else setStage2({ kind: picked, coupling: undefined });
           }}
         >
           <option value="none">nothing (this stage drives the next, or RL)</option>
           <option value="follower">a cathode follower, direct-coupled</option>
+          <option value="follower-capacitor">a cathode follower, capacitor-coupled (its grid on its own bias)</option>
           <option value="common-cathode">a gain stage after it, capacitor-coupled</option>
         </select>
       </div>
@@ -53,6 +58,13 @@ export function Stage2Panel() {
             {stage2.kind === 'common-cathode' ? <ValueField field="ra2" /> : null}
             <ValueField field="rk2" />
             {stage2.kind === 'common-cathode' ? <ValueField field="rg2" /> : null}
+            {choice === 'follower-capacitor' ? (
+              <>
+                <ValueField field="fCc" />
+                <ValueField field="fRg" />
+                <ValueField field="fVbias" />
+              </>
+            ) : null}
           </div>
         </>
       ) : null}

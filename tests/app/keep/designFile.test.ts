@@ -68,7 +68,7 @@ describe('design files', () => {
     ['a chain stage of an unknown kind', variant((f) => { f.design.after = [{ ...GAIN, kind: 'pentode' }]; }), /^design\.after\[0\]\.kind must be one of common-cathode, follower \(found "pentode"\)\. Nothing was opened\.$/],
     ['a chain stage with a bad value', variant((f) => { f.design.before = [{ ...GAIN, ra: 5 }]; }), /^design\.before\[0\]\.ra must be a number from 100 to 10000000 Ω \(found 5\)\. Nothing was opened\.$/],
     ['a later stage without a coupling capacitor', variant((f) => { f.design.after = [{ ...GAIN, cc: null }]; }), /^design\.after\[0\]\.cc must be a coupling capacitor: only the first stage may be direct-coupled \(to the source\)\. Nothing was opened\.$/],
-    ['a follower after a follower', variant((f) => { f.design.after = [{ kind: 'follower', tubeId: '12AU7', rk: 22e3 }]; }), /^design\.after\[0\] is a cathode follower with no gain stage right before it to be direct-coupled to\. Nothing was opened\.$/],
+    ['a follower after a follower', variant((f) => { f.design.after = [{ kind: 'follower', tubeId: '12AU7', rk: 22e3 }]; }), /^design\.after\[0\] is a cathode follower with no gain stage right before it to be coupled to\. Nothing was opened\.$/],
     ['a bench stage direct-coupled after another', variant((f) => { f.design.before = [GAIN]; f.design.cin = null; }), /^design\.cin must be a coupling capacitor: only the first stage may be direct-coupled \(to the source\)\. Nothing was opened\.$/],
     ['too many stages', variant((f) => { f.design.before = Array.from({ length: 6 }, () => GAIN); }), /^The file holds 8 voltage stages; an amplifier here has at most 7\. Nothing was opened\.$/],
   ])('%s gets its own message', (_label, text, message) => {

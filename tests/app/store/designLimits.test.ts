@@ -3,7 +3,7 @@ import { OUTPUT_LIMITS, outputDesignProblem, findOutputTube } from '../../../src
 import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
 import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { DESIGN_LIMITS as L, type Limit } from '../../../app/store/designLimits';
-import { FIELDS, type FieldName } from '../../../app/store/fields';
+import { compact, FIELDS, type FieldName } from '../../../app/store/fields';
 import type { BenchDesign } from '../../../app/store/analysis';
 import { MIN_DRAG_BPLUS } from '../../../app/store/dragSlice';
 
@@ -17,6 +17,9 @@ const FIELD_LIMITS: [FieldName, Limit, (d: BenchDesign, v: number) => BenchDesig
   ['level', L.levelRms, (d, v) => ({ ...d, levelRms: v })],
   ['ra2', L.stage2.ra, (d, v) => ({ ...d, stage2: { ...d.stage2, ra: v } })],
   ['rk2', L.stage2.rk, (d, v) => ({ ...d, stage2: { ...d.stage2, rk: v } })],
+  ['fCc', L.stage2.cc, (d, v) => ({ ...d, stage2: { ...d.stage2, kind: 'follower', coupling: { cc: v, rg: 1e6, vbias: 150 } } })],
+  ['fRg', L.stage2.rg, (d, v) => ({ ...d, stage2: { ...d.stage2, kind: 'follower', coupling: { cc: 100e-9, rg: v, vbias: 150 } } })],
+  ['fVbias', L.stage2.vbias, (d, v) => ({ ...d, stage2: { ...d.stage2, kind: 'follower', coupling: { cc: 100e-9, rg: 1e6, vbias: v } } })],
   ['oBplus', L.output.bplus, (d, v) => ({ ...d, output: { ...d.output, bplus: v } })],
   ['oZ', L.output.zPrimary, (d, v) => ({ ...d, output: { ...d.output, zPrimary: v } })],
   ['oRk', L.output.rk, (d, v) => ({ ...d, output: { ...d.output, rk: v } })],
@@ -28,7 +31,8 @@ const opens = (d: BenchDesign) => readDesignFile(writeDesignFile({ title: 'limit
 
 describe('one table of limits per design field', () => {
   it.each(FIELD_LIMITS.map(([f, l, put]) => [f, l, put] as const))('%s: typing and files take the same range, ends included', (field, l, put) => {
-    const edge = (v: number) => FIELDS[field].read(String(v)).ok;
+    // Typed as a builder types it: trade notation (1p), never exponent notation, which the boxes do not read.
+    const edge = (v: number) => FIELDS[field].read(String(v).includes('e') ? compact(v) : String(v)).ok;
     const top = l.max;
     const bottom = l.minPart ?? l.min;
     expect(edge(top)).toBe(true);
