@@ -48,8 +48,12 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     await page.locator('.chart-frame').first().screenshot({ path: 'test-results/push-pull-chart.png' });
     await strip.screenshot({ path: 'test-results/push-pull-strip.png' });
     // The splitter on its own plate curves, beside its values.
-    const splitter = page.getByRole('group', { name: 'Phase splitter' });
-    expect(await splitter.getByRole('img', { name: /Plate curves of the phase splitter's 12AU7/ }).count()).toBe(1);
+    const splitter = page.getByRole('group', { name: 'Phase splitter', exact: true });
+    expect(await splitter.getByRole('group', { name: /Plate curves of the phase splitter's 12AU7/ }).count()).toBe(1);
+    // In the one plate-chart shell: its curves, its lines and its point, as every stage's chart.
+    expect(await splitter.locator('.layer-curves path').count()).toBeGreaterThan(3);
+    expect(await splitter.locator('.layer-lines path[data-series="dc-load"]').count()).toBe(1);
+    expect(await splitter.locator('[data-splitter-point="first"]').count()).toBe(1);
     expect(await splitter.getByRole('table', { name: 'Splitter outputs' }).getByRole('row').count()).toBe(3);
     expect(await splitter.locator('[data-figure="splitter-balance"]').textContent()).toMatch(/Tail: .* mA/);
     await splitter.screenshot({ path: 'test-results/push-pull-splitter.png' });

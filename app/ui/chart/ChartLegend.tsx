@@ -41,6 +41,18 @@ export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'The path the tube takes with the grids driven to 0 V (solved with its partner)', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
+/** The phase splitter's key: a split-load's one triode, or a long-tailed pair's two (the second in the rival's colour). */
+export function splitterLegend(ltp: boolean): readonly LegendItem[] {
+  return [
+    { label: 'Plate curves (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
+    { label: ltp ? 'DC load line, first triode (its plate resistor with the shared tail)' : 'DC load line (plate and cathode resistors in series)', stroke: PALETTE.load, dash: undefined, width: 2 },
+    ...(ltp ? [{ label: 'DC load line, second triode (its point the square)', stroke: PALETTE.rival, dash: '10 4', width: 1.6 }] : []),
+    { label: 'Bias line (the grid held, the cathode on its resistor)', stroke: PALETTE.bias, dash: '5 3', width: 1.8 },
+    { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
+    { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
+  ];
+}
+
 /** The follower's key: its plate at B+, its grid at the plate before it, the load in its cathode. */
 export function followerLegend(vgrid: number): readonly LegendItem[] {
   return [

@@ -17,6 +17,18 @@ export function planePath(scales: PlateScales) {
 
 const fmtGrid = (vg: number) => (vg === 0 ? '0 V' : `${String(vg).replace('-', '−')} V`);
 
+/**
+ * How many major ticks each axis carries: ten on a full-width chart, fewer
+ * where it is drawn narrow (a phone, a splitter's column), so the figures
+ * never run into each other (about 60 px a label across, 36 down).
+ */
+function tickCounts({ x, y }: PlateScales): { nx: number; ny: number } {
+  const w = Math.abs(x.range()[1]! - x.range()[0]!);
+  const h = Math.abs(y.range()[0]! - y.range()[1]!);
+  const clamp = (n: number) => Math.min(10, Math.max(3, Math.floor(n)));
+  return { nx: clamp(w / 60), ny: clamp(h / 36) };
+}
+
 export function drawGrid(layer: SVGGElement, scales: PlateScales): void {
   const g = select(layer);
   g.selectAll('*').remove();
@@ -24,12 +36,13 @@ export function drawGrid(layer: SVGGElement, scales: PlateScales): void {
   const [x0, x1] = x.range() as [number, number];
   const [y0, y1] = y.range() as [number, number];
   g.append('rect').attr('x', x0).attr('y', y1).attr('width', x1 - x0).attr('height', y0 - y1).attr('fill', PALETTE.sheet);
-  for (const [ticks, stroke] of [[x.ticks(40), PALETTE.gridMinor], [x.ticks(10), PALETTE.gridMajor]] as const) {
+  const { nx, ny } = tickCounts(scales);
+  for (const [ticks, stroke] of [[x.ticks(4 * nx), PALETTE.gridMinor], [x.ticks(nx), PALETTE.gridMajor]] as const) {
     g.append('g').selectAll('line').data(ticks).join('line')
       .attr('x1', (d) => x(d)).attr('x2', (d) => x(d)).attr('y1', y0).attr('y2', y1)
       .attr('stroke', stroke).attr('stroke-width', 1).attr('shape-rendering', 'crispEdges');
   }
-  for (const [ticks, stroke] of [[y.ticks(40), PALETTE.gridMinor], [y.ticks(10), PALETTE.gridMajor]] as const) {
+  for (const [ticks, stroke] of [[y.ticks(4 * ny), PALETTE.gridMinor], [y.ticks(ny), PALETTE.gridMajor]] as const) {
     g.append('g').selectAll('line').data(ticks).join('line')
       .attr('y1', (d) => y(d)).attr('y2', (d) => y(d)).attr('x1', x0).attr('x2', x1)
       .attr('stroke', stroke).attr('stroke-width', 1).attr('shape-rendering', 'crispEdges');
@@ -40,9 +53,10 @@ export function drawAxes(layer: SVGGElement, scales: PlateScales): void {
   const g = select(layer);
   g.selectAll('*').remove();
   const { x, y, box } = scales;
-  const bottom = g.append('g').attr('transform', `translate(0,${y.range()[0]})`).call(axisBottom(x).ticks(10).tickSizeOuter(0));
+  const { nx, ny } = tickCounts(scales);
+  const bottom = g.append('g').attr('transform', `translate(0,${y.range()[0]})`).call(axisBottom(x).ticks(nx).tickSizeOuter(0));
   const left = g.append('g').attr('transform', `translate(${x.range()[0]},0)`).call(
-    axisLeft(y).ticks(10).tickSizeOuter(0).tickFormat((d) => String(Number(((d as number) * 1e3).toPrecision(3)))),
+    axisLeft(y).ticks(ny).tickSizeOuter(0).tickFormat((d) => String(Number(((d as number) * 1e3).toPrecision(3)))),
   );
   for (const axis of [bottom, left]) axis.attr('font-size', 12).attr('font-family', 'inherit').attr('color', PALETTE.inkSoft);
   g.append('text')
@@ -73,12 +87,29 @@ export function drawFamily(layer: SVGGElement, sheet: CurveSheet, scales: PlateS
     const row = (style.labelRow ?? 0) * 14;
     return { vg: c.vg, x: scales.x(exit.v) + (atTop ? 3 : 4), y: atTop ? scales.y(iTop) + 12 + row : scales.y(exit.i) + 4 + row };
   }).filter((l) => Number.isFinite(l.x) && Number.isFinite(l.y));
-  g.selectAll('text').data(labels).join('text')
+  g.selectAll('text').data(spaced(labels)).join('text')
     .attr('x', (l) => l.x).attr('y', (l) => l.y)
     .attr('font-size', 11).attr('fill', style.stroke)
     .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
     .text((l) => fmtGrid(l.vg));
 }
+
+/**
+ * The curve labels that fit: along the top edge each at least a label's
+ * width from the last kept, down the right edge a line's height, so a
+ * narrow chart names every second or third curve instead of overprinting.
+ */
+function spaced<L extends { x: number; y: number }>(labels: readonly L[]): L[] {
+  const kept: L[] = [];
+  for (const l of labels) {
+    const clash = kept.some((k) => Math.abs(k.x - l.x) < LABEL_WIDTH && Math.abs(k.y - l.y) < LABEL_HEIGHT);
+    if (!clash) kept.push(l);
+  }
+  return kept;
+}
+/** A curve label's room, px: "−12 V" at 11 px, and a line. */
+const LABEL_WIDTH = 30;
+const LABEL_HEIGHT = 12;
 
 export function drawLimits(layer: SVGGElement, sheet: CurveSheet, scales: PlateScales): void {
   const g = select(layer);
