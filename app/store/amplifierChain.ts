@@ -138,7 +138,8 @@ export function analyzeAmplifier(d: BenchDesign): AmplifierView | null {
   const atLevel = result.ok ? (result.atLevel ?? null) : null;
   return {
     names: chain.names,
-    kinds: chain.input.stages.map((s) => STAGE_KIND_LABELS[s.kind]),
+    // A follower's coupling is part of what it is: one on its own bias is not one riding on the plate before it.
+    kinds: chain.input.stages.map((s) => `${STAGE_KIND_LABELS[s.kind]}${s.kind === 'follower' && s.coupling.kind === 'capacitor' ? ', capacitor-coupled' : ''}`),
     result,
     atLevel,
     levelLabel: toSpeaker ? '1 W' : `${d.levelRms} V rms`,

@@ -138,7 +138,9 @@ describe('the amplifier strip', () => {
     expect(s2.coupling).toEqual({ cc: 100e-9, rg: 1e6, vbias: Math.round(store.getState().design.bplus / 2) });
     for (const name of [/^Cc \(follower\)/, /^Rg \(follower\)/, /^Grid bias \(follower\)/]) expect(screen.getByRole('textbox', { name })).toBeTruthy();
     expect(screen.getByRole('group', { name: /then a cathode follower, capacitor-coupled/ })).toBeTruthy();
-    expect(screen.getByRole('button', { name: /cathode follower, capacitor-coupled/ })).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Stage 3, 12AU7 cathode follower, capacitor-coupled: put it on the bench' })).toBeTruthy();
+    // The strip's card says so too.
+    expect(cardsOf().map((c) => c.querySelector('.card-title')!.textContent)).toContain('Stage 3 · 12AU7 cathode follower, capacitor-coupled');
   });
 
   it('one build sheet for the joined amplifier: the output stage\'s transformer and parts, its grid resistor the RL typed, and its current in the B+ total', () => {
