@@ -1,4 +1,4 @@
-import { DEFAULT_GRID_RESISTANCE, findTube, korenParamsProblem, LIBRARY_TUBE_IDS, triode, type KorenTriodeParams, type TubeRecord, type TypicalPoint } from '../../src/index';
+import { DEFAULT_GRID_RESISTANCE, korenParamsProblem, LIBRARY_TUBE_IDS, triode, type KorenTriodeParams, type TubeRecord, type TypicalPoint } from '../../src/index';
 import { loadKept, saveKept } from './keptTubes';
 
 /**
@@ -50,7 +50,9 @@ export function customRecord(spec: CustomTubeSpec): TubeRecord {
 }
 
 /**
- * The user's tubes in this page. Filled by loadCustomTubes at start-up (the
+ * The user's tubes in this page, kept here (persisted in this browser) and
+ * looked up through the store's registry (app/store/tubeRegistry.ts), which
+ * takes their records on each change. Filled by loadCustomTubes at start-up (the
  * browser's store is asynchronous); saving and removing change it at once
  * and persist in the background.
  */
@@ -93,10 +95,6 @@ export function customSpecs(): readonly CustomTubeSpec[] {
   return specs;
 }
 
-/** A tube by id: the library first, then the user's own. */
-export function lookupTube(id: string): TubeRecord | undefined {
-  return findTube(id) ?? records.get(id);
-}
 
 /** Checks a name for a new custom tube: a message, or null when it may be used. */
 export function nameProblem(name: string): string | null {

@@ -1,11 +1,11 @@
 import { pairDefaults, type OutputPair, type OutputPlan, type SplitterPlan } from '../store/outputPlan';
-import { findOutputTube, TABLE_THD, type Connection, type FollowerCoupling, type OutputDesign, type PreferredSeries } from '../../src/index';
+import { findOutputTube, findTube, TABLE_THD, type Connection, type FollowerCoupling, type OutputDesign, type PreferredSeries } from '../../src/index';
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { NO_TARGETS, type TargetPlan } from '../store/targetPlan';
-import { lookupTube } from './customTubes';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
 import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, JOIN, OUTPUT_STAGE, quote, STAGE_KIND } from './designSchema';
 import { readSupplyPlan } from './supplyInFile';
+import type { TubeRegistry } from '../store/tubeRegistry';
 import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePlans';
 
 /**
@@ -214,8 +214,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };
 }
 
-/** A known tube's id as the library spells it; an unknown name as written. */
-const knownId = (name: string) => lookupTube(name)?.id ?? name;
+/** A library tube's id as the library spells it; any other name as written (a user's tube is named by its id). */
+const knownId = (name: string) => findTube(name)?.id ?? name;
 
 /**
  * A design whose tubes this browser does not know (a user tube from another
@@ -223,13 +223,13 @@ const knownId = (name: string) => lookupTube(name)?.id ?? name;
  * and every other value as saved, and a note naming the missing tube and
  * what to do. Never the demo in its place.
  */
-export function withKnownTubes(doc: DesignDocument): { doc: DesignDocument; note: string | null } {
+export function withKnownTubes(doc: DesignDocument, registry: TubeRegistry): { doc: DesignDocument; note: string | null } {
   const d = doc.design;
   const others = [...d.before, ...d.after].map((p) => p.tubeId);
-  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : []), ...others, d.output.splitter.tubeId].filter((id) => !lookupTube(id)))];
+  const missing = [...new Set([d.tubeId, ...(d.stage2.kind !== 'none' ? [d.stage2.tubeId] : []), ...others, d.output.splitter.tubeId].filter((id) => !registry.lookup(id)))];
   if (missing.length === 0) return { doc, note: null };
   const stand = DEMO_DESIGN.tubeId;
-  const swap = (id: string) => (lookupTube(id) ? id : stand);
+  const swap = (id: string) => (registry.lookup(id) ? id : stand);
   const swapAll = (list: readonly StagePlan[]) => list.map((p) => ({ ...p, tubeId: swap(p.tubeId) }));
   const output = { ...d.output, splitter: { ...d.output.splitter, tubeId: swap(d.output.splitter.tubeId) } };
   const design: BenchDesign = { ...d, tubeId: swap(d.tubeId), stage2: { ...d.stage2, tubeId: swap(d.stage2.tubeId) }, before: swapAll(d.before), after: swapAll(d.after), output };

@@ -9,7 +9,8 @@ import { withKnownTubes, type DesignDocument } from './designFile';
  * to add to the success message (null when there is nothing to add).
  */
 export function openDocument(store: WorkbenchStore, doc: DesignDocument): { failure: Failure } | { failure: null; note: string | null } {
-  const known = withKnownTubes(doc);
+  // Against the tubes the page holds now: the library's and the user's in this browser.
+  const known = withKnownTubes(doc, store.getState().registry);
   const failure = store.getState().loadDocument(known.doc);
   return failure ? { failure } : { failure: null, note: known.note };
 }

@@ -10,7 +10,7 @@ import {
   type Result,
   type TubeRecord,
 } from '../../src/index';
-import { lookupTube } from '../keep/customTubes';
+import type { TubeRegistry } from './tubeRegistry';
 import type { BenchDesign } from './analysis';
 import { pushPullDesignOf } from './outputPlan';
 import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
@@ -30,10 +30,10 @@ export interface ChainCardName {
 type Tubes = { ok: true; tubes: TubeRecord[] } | (Failure & { stage: number });
 
 /** Each voltage stage's tube, or which stage names one this browser does not know. */
-function tubesOf(list: readonly StagePlan[]): Tubes {
+function tubesOf(list: readonly StagePlan[], registry: TubeRegistry): Tubes {
   const tubes: TubeRecord[] = [];
   for (const [i, p] of list.entries()) {
-    const tube = lookupTube(p.tubeId);
+    const tube = registry.lookup(p.tubeId);
     if (!tube) return { ok: false, reason: 'invalid-tube', message: `Stage ${i + 1}: no tube called “${p.tubeId}” in the library or among your own`, stage: i };
     tubes.push(tube);
   }
@@ -58,9 +58,9 @@ function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[])
 }
 
 /** The bench's design as one amplifier: every voltage stage, and the output stage when driven. */
-export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainCardName[] } | null {
+export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: ChainInput; names: ChainCardName[] } | null {
   const list = voltageStages(d);
-  const found = tubesOf(list);
+  const found = tubesOf(list, registry);
   if (!found.ok) return null;
   const stages = chainStagesOf(list, found.tubes);
   const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i, role: 'voltage' }));
@@ -68,7 +68,7 @@ export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainC
   if (outputTube && d.output.pair === 'push-pull') {
     // The splitter is fed from the last voltage stage through Cout into its leak; its outputs drive the pair's grids.
     const sp = d.output.splitter;
-    const splitterTube = lookupTube(sp.tubeId);
+    const splitterTube = registry.lookup(sp.tubeId);
     if (!splitterTube) return null;
     // Direct: the grid sits at the last plate's voltage (no leak, no divider); else through Cout into its leak, held at vgrid.
     const direct = sp.coupling === 'direct';
@@ -92,7 +92,7 @@ export function chainInputOf(d: BenchDesign): { input: ChainInput; names: ChainC
   return { input: { source: { rsource: d.rsource }, stages, ...load }, names };
 }
 
-const sources = new WeakMap<readonly StagePlan[], { rsource: number; result: Result<{ ohms: number }> }>();
+const sources = new WeakMap<readonly StagePlan[], { rsource: number; registry: TubeRegistry; result: Result<{ ohms: number }> }>();
 
 /**
  * What drives the bench stage's grid: the amplifier's source for the first
@@ -100,17 +100,17 @@ const sources = new WeakMap<readonly StagePlan[], { rsource: number; result: Res
  * stages before it, remembered per list, so a drag on the bench never
  * solves them again).
  */
-export function benchSource(d: BenchDesign): Result<{ ohms: number }> {
+export function benchSource(d: BenchDesign, registry: TubeRegistry): Result<{ ohms: number }> {
   if (d.before.length === 0) return { ok: true, ohms: d.rsource };
   const hit = sources.get(d.before);
-  if (hit && hit.rsource === d.rsource) return hit.result;
-  const result = solvePrefix(d.before, d.rsource);
-  sources.set(d.before, { rsource: d.rsource, result });
+  if (hit && hit.rsource === d.rsource && hit.registry === registry) return hit.result;
+  const result = solvePrefix(d.before, d.rsource, registry);
+  sources.set(d.before, { rsource: d.rsource, registry, result });
   return result;
 }
 
-function solvePrefix(before: readonly StagePlan[], rsource: number): Result<{ ohms: number }> {
-  const found = tubesOf(before);
+function solvePrefix(before: readonly StagePlan[], rsource: number, registry: TubeRegistry): Result<{ ohms: number }> {
+  const found = tubesOf(before, registry);
   if (!found.ok) return found;
   const r = solveAmplifier({ source: { rsource }, stages: chainStagesOf(before, found.tubes) });
   if (!r.ok) return { ...r, message: `A stage before this one cannot run: ${r.message}` };
@@ -130,8 +130,8 @@ export interface AmplifierView {
 }
 
 /** One working level: 1 W for a chain ending in the output stage (common practice for sensitivity), else the bench's output level. */
-export function analyzeAmplifier(d: BenchDesign): AmplifierView | null {
-  const chain = chainInputOf(d);
+export function analyzeAmplifier(d: BenchDesign, registry: TubeRegistry): AmplifierView | null {
+  const chain = chainInputOf(d, registry);
   if (!chain) return null;
   const toSpeaker = d.drivesOutput;
   const result = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });

@@ -1,6 +1,6 @@
 import type { OutputPlan } from './outputPlan';
 import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type FollowerCoupling, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
-import { lookupTube } from '../keep/customTubes';
+import type { TubeRegistry } from './tubeRegistry';
 import type { SupplyPlan } from './supplyPlan';
 import type { TargetPlan } from './targetPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
@@ -82,18 +82,18 @@ export type Analysis = StageAnalysis;
  * looks the tubes up and names the stages. `extent` pins the chart window,
  * as while B+ is being dragged; `light` is a drag's frame.
  */
-export function analyze(design: BenchDesign, prev: Analysis | null, extent?: PlateExtent, light = false, maxCurves = MAX_FAMILY_CURVES): ({ ok: true } & Analysis) | Failure {
-  const tube = lookupTube(design.tubeId);
+export function analyze(design: BenchDesign, registry: TubeRegistry, prev: Analysis | null, extent?: PlateExtent, light = false, maxCurves = MAX_FAMILY_CURVES): ({ ok: true } & Analysis) | Failure {
+  const tube = registry.lookup(design.tubeId);
   if (!tube) return { ok: false, reason: 'invalid-tube', message: `No tube called “${design.tubeId}” in the library or among your own`, field: 'tube' };
-  const source = benchSource(design);
+  const source = benchSource(design, registry);
   if (!source.ok) return source;
-  return analyzeStage(stageDesignOf(design, tube), { second: secondLink(design), levels: { levelRms: design.levelRms, thdLimit: design.thdLimit }, ...(extent ? { extent } : {}), light, maxCurves }, prev);
+  return analyzeStage(stageDesignOf(design, tube, registry), { second: secondLink(design, registry), levels: { levelRms: design.levelRms, thdLimit: design.thdLimit }, ...(extent ? { extent } : {}), light, maxCurves }, prev);
 }
 
 /** The bench's second stage as the model's link: its follower, or a gain stage kept from a design before version 3. */
-function secondLink(d: BenchDesign): ChainLink | null {
+function secondLink(d: BenchDesign, registry: TubeRegistry): ChainLink | null {
   const s2 = d.stage2;
-  const tube = lookupTube(s2.tubeId);
+  const tube = registry.lookup(s2.tubeId);
   if (s2.kind === 'none' || !tube) return null;
   // The second stage drives the next gain stage's grid, or the amplifier's own load.
   const { rl } = loadAfterBench(d);
@@ -106,12 +106,12 @@ function secondLink(d: BenchDesign): ChainLink | null {
  * by the source or the stage before it, loaded by its follower, the next
  * stage's grid, or the amplifier's own load.
  */
-export function stageDesignOf(d: BenchDesign, tube: TubeRecord): StageDesign & { readonly tube: TubeRecord } {
+export function stageDesignOf(d: BenchDesign, tube: TubeRecord, registry: TubeRegistry): StageDesign & { readonly tube: TubeRecord } {
   // With a second stage, RL and Cout belong to the end of the chain; stage 1 drives stage 2.
   const chained = d.stage2.kind !== 'none';
   const after = loadAfterBench(d);
   const load = !chained ? after.rl : d.stage2.kind === 'follower' ? (d.stage2.coupling?.rg ?? Infinity) : d.stage2.rg;
-  const source = benchSource(d);
+  const source = benchSource(d, registry);
   return {
     tube,
     bplus: d.bplus,

@@ -4,7 +4,6 @@ import {
   solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
   type Failure, type HeaterOption, type HeaterPlan, type ResistorLine, type Spread, type TubeRecord,
 } from '../../src/index';
-import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
 import { followerCouplingParts, offBenchParts, splitterParts, type OffBenchParts } from './chainParts';
 import { drivesPair, splitterDirect } from './outputPlan';
@@ -76,7 +75,7 @@ function compute(s: WorkbenchState): BuildSheet {
   const inp = s.buildInputs;
   const d = s.design;
   const tube1 = s.analysis.tube;
-  const stage = stageDesignOf(d, tube1);
+  const stage = stageDesignOf(d, tube1, s.registry);
   const checked = normalizeStage(stage);
   if (!checked.ok) throw new Error(checked.message);
   const sol = s.analysis.solution;
@@ -113,9 +112,9 @@ function compute(s: WorkbenchState): BuildSheet {
   const onBench = new Set(d.stage2.kind !== 'none' ? [bench, bench + 1] : [bench]);
   // The splitter before a driven pair hangs from the voltage stages' node and lights its sections beside theirs.
   const pair = drivesPair(d);
-  const splitterTube = pair ? lookupTube(d.output.splitter.tubeId) : undefined;
+  const splitterTube = pair ? s.registry.lookup(d.output.splitter.tubeId) : undefined;
   const splitterSections = splitterTube ? Array.from({ length: d.output.splitter.kind === 'long-tailed-pair' ? 2 : 1 }, () => splitterTube) : [];
-  const stageTubes = [...list.flatMap((p) => lookupTube(p.tubeId) ?? []), ...splitterSections];
+  const stageTubes = [...list.flatMap((p) => s.registry.lookup(p.tubeId) ?? []), ...splitterSections];
   const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
   const splitterStage = pair && amp ? amp.stages[list.length] : undefined;
   const otherStages = amp ? [...offBenchParts(list, onBench, amp, d.series), ...(splitterStage ? [splitterParts(d.output.splitter, splitterStage, list.length, d.series)] : [])] : [];
@@ -132,7 +131,7 @@ function compute(s: WorkbenchState): BuildSheet {
     ...(tube.ratings.maxHeaterCathodeVoltageCathodeNegative !== undefined ? { maxVhkCathodeNegative: tube.ratings.maxHeaterCathodeVoltageCathodeNegative } : {}),
   });
   const stages = [{ name: 'stage 1', vk: sol.op.vk, ...hk(tube1) }];
-  if (link) stages.push({ name: 'stage 2', vk: link.op.vk, ...hk(lookupTube(d.stage2.tubeId)!) });
+  if (link) stages.push({ name: 'stage 2', vk: link.op.vk, ...hk(s.registry.lookup(d.stage2.tubeId)!) });
   const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0) + otherAmps;
   const filter = decouplingFilter(railOf(s), inp.filterR, inp.filterC, (b) => {
     const r = solveStage({ ...stage, bplus: b });

@@ -1,6 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, type PlateExtent, type Result } from '../../src/index';
-import { lookupTube } from '../keep/customTubes';
+import type { TubeRegistry } from './tubeRegistry';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -38,18 +38,18 @@ export function rivalDesign(d: BenchDesign, r: Rival): BenchDesign {
 }
 
 /** The chart window covering both tubes at this B+, so both families share one pair of axes. */
-export function sharedWindow(d: BenchDesign, r: Rival): PlateExtent | undefined {
-  const a = lookupTube(d.tubeId);
-  const b = lookupTube(r.tubeId);
+export function sharedWindow(d: BenchDesign, registry: TubeRegistry, r: Rival): PlateExtent | undefined {
+  const a = registry.lookup(d.tubeId);
+  const b = registry.lookup(r.tubeId);
   if (!r.on || !a || !b) return undefined;
   const ea = plateExtent(a, d.bplus);
   const eb = plateExtent(b, d.bplus);
   return { vmax: Math.max(ea.vmax, eb.vmax), iaMax: Math.max(ea.iaMax, eb.iaMax) };
 }
 
-export function analyzeRival(d: BenchDesign, r: Rival, prev: Result<Analysis> | null, extent: PlateExtent | undefined, light: boolean, maxCurves?: number): Result<Analysis> | null {
+export function analyzeRival(d: BenchDesign, registry: TubeRegistry, r: Rival, prev: Result<Analysis> | null, extent: PlateExtent | undefined, light: boolean, maxCurves?: number): Result<Analysis> | null {
   if (!r.on) return null;
-  return analyze(rivalDesign(d, r), prev?.ok ? prev : null, extent, light, maxCurves);
+  return analyze(rivalDesign(d, r), registry, prev?.ok ? prev : null, extent, light, maxCurves);
 }
 
 export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSlice> = (set, get) => ({
@@ -84,14 +84,14 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
     if (!d.ok) return;
     const rival = { ...s.rival, ra: d.ra, rk: d.rk };
-    const a = analyzeRival(s.design, rival, s.rivalAnalysis, s.analysis.sheet.extent, true);
+    const a = analyzeRival(s.design, s.registry, rival, s.rivalAnalysis, s.analysis.sheet.extent, true);
     if (a?.ok) set({ rival, rivalAnalysis: a, dragNote: reach.reason });
   },
 
   endRivalDrag: () => {
     const s = get();
     const rival = s.design.snap ? { ...s.rival, ra: nearestPreferred(s.rival.ra, s.design.series), rk: nearestPreferred(s.rival.rk, s.design.series) } : s.rival;
-    const a = analyzeRival(s.design, rival, s.rivalAnalysis, s.analysis.sheet.extent, false);
+    const a = analyzeRival(s.design, s.registry, rival, s.rivalAnalysis, s.analysis.sheet.extent, false);
     if (a?.ok) set({ rival, rivalAnalysis: a });
   },
 });

@@ -6,6 +6,7 @@ import { analyzeRival, sharedWindow } from './compareSlice';
 import { analyzeFollowerBench, type FollowerBench } from './followerBench';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
 import { customTubes } from '../keep/customTubes';
+import { tubeRegistry, type TubeRegistry } from './tubeRegistry';
 import { autoTitle } from './autoTitle';
 import { DEMO_DESIGN, DEMO_TITLE } from './demoDesign';
 import { MAX_TITLE_CHARS } from '../keep/designFile';
@@ -26,7 +27,9 @@ export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'output
 export interface DesignSlice {
   /** The chooser's list: every available tube with its key figures (computed once by the model). */
   tubes: readonly TubeSummary[];
-  /** Re-reads the tube list after the user saved or removed a tube of their own. */
+  /** Every tube the bench can use, the library's and the user's (see tubeRegistry.ts). */
+  registry: TubeRegistry;
+  /** Re-reads the tube list and the registry after the user saved, removed or loaded tubes of their own. */
   refreshTubes: () => void;
   design: BenchDesign;
   /** The design's name, for the page and the build card. */
@@ -143,18 +146,25 @@ export function draftsFor(d: BenchDesign): Drafts {
   return Object.fromEntries(FIELD_NAMES.map((f) => [f, FIELDS[f].show(FIELDS[f].get(d))])) as Drafts;
 }
 
-function initialAnalysis(): Analysis {
-  const a = analyze(DEMO_DESIGN, null);
+function initialAnalysis(registry: TubeRegistry): Analysis {
+  const a = analyze(DEMO_DESIGN, registry, null);
   if (!a.ok) throw new Error(`the demo design must solve: ${a.message}`);
   return a;
 }
 
 const LIBRARY_SUMMARIES: readonly TubeSummary[] = tubeLibrary.map(tubeSummary);
-const allSummaries = () => [...LIBRARY_SUMMARIES, ...customTubes().map(tubeSummary)];
+const summariesOf = (registry: TubeRegistry) => [...LIBRARY_SUMMARIES, ...registry.user.map(tubeSummary)];
 
-export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice> = (set, get) => ({
-  tubes: allSummaries(),
-  refreshTubes: () => set({ tubes: allSummaries() }),
+export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice> = (set, get) => {
+  // The tubes as the page holds them now (the user's are read in when the browser gives them: refreshTubes).
+  const registry = tubeRegistry(customTubes());
+  return {
+  tubes: summariesOf(registry),
+  registry,
+  refreshTubes: () => {
+    const next = tubeRegistry(customTubes());
+    set({ tubes: summariesOf(next), registry: next });
+  },
   design: DEMO_DESIGN,
   title: DEMO_TITLE,
   titleTyped: false,
@@ -162,10 +172,10 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const typed = title.trim() !== '';
     set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
   },
-  analysis: initialAnalysis(),
+  analysis: initialAnalysis(registry),
   followerBench: null,
   followerRival: null,
-  amplifier: analyzeAmplifier(DEMO_DESIGN),
+  amplifier: analyzeAmplifier(DEMO_DESIGN, registry),
   setDrivesOutput: (on) => {
     get().commit({ ...get().design, drivesOutput: on });
   },
@@ -190,15 +200,15 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const showsVoltage = next.stageKind !== 'output';
     if (!sameVoltagePart(next, s.design) || opts.force || (!light && showsVoltage && s.analysis.signal.stale)) {
       const voltageLight = light || !showsVoltage;
-      const extent = opts.extent ?? (s.chartWindow === 'load-line' ? loadLineExtent(next.bplus, next.ra, next.rk) : sharedWindow(next, s.rival));
-      const a = analyze(next, s.analysis, extent, voltageLight, s.curveCount);
+      const extent = opts.extent ?? (s.chartWindow === 'load-line' ? loadLineExtent(next.bplus, next.ra, next.rk) : sharedWindow(next, s.registry, s.rival));
+      const a = analyze(next, s.registry, s.analysis, extent, voltageLight, s.curveCount);
       if (!a.ok) return a;
       patch.analysis = a;
-      patch.rivalAnalysis = analyzeRival(next, s.rival, s.rivalAnalysis, a.sheet.extent, voltageLight, s.curveCount);
+      patch.rivalAnalysis = analyzeRival(next, s.registry, s.rival, s.rivalAnalysis, a.sheet.extent, voltageLight, s.curveCount);
     }
     // The follower on the bench follows every pass of the stage it rides on (a light one while dragged: it is cheap).
     if (next.stageKind === 'follower' || s.followerBench) {
-      const f = analyzeFollowerBench(next, patch.analysis ?? s.analysis, { bench: s.followerBench, rival: s.followerRival }, s.rival, s.curveCount, opts.followerExtent);
+      const f = analyzeFollowerBench(next, s.registry, patch.analysis ?? s.analysis, { bench: s.followerBench, rival: s.followerRival }, s.rival, s.curveCount, opts.followerExtent);
       if (!f.ok) return f;
       patch.followerBench = f.bench;
       patch.followerRival = f.rival;
@@ -217,7 +227,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     // The whole amplifier follows every full pass; a drag or keystroke shows the last one, marked as behind.
     if (next !== s.design || opts.force || s.amplifier?.stale) {
       // Marked once: a drag's later frames keep the same object, so the strip is not drawn again on every move.
-      patch.amplifier = !light ? analyzeAmplifier(next) : s.amplifier && (s.amplifier.stale ? s.amplifier : { ...s.amplifier, stale: true });
+      patch.amplifier = !light ? analyzeAmplifier(next, s.registry) : s.amplifier && (s.amplifier.stale ? s.amplifier : { ...s.amplifier, stale: true });
     }
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.
@@ -303,4 +313,5 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   setSnap: (on) => {
     get().commit({ ...get().design, snap: on });
   },
-});
+};
+};

@@ -53,7 +53,7 @@ function snappedInside(s: WorkbenchState): { ra: number; rk: number } | null {
   if (!region) return null;
   const d = s.design;
   const tube = s.analysis.tube;
-  const base = stageDesignOf(d, tube);
+  const base = stageDesignOf(d, tube, s.registry);
   const pairs = preferredAround(d.ra, d.series).flatMap((ra) => preferredAround(d.rk, d.series).map((rk) => ({ ra, rk })));
   const cost = (p: { ra: number; rk: number }) => Math.abs(Math.log(p.ra / d.ra)) + Math.abs(Math.log(p.rk / d.rk));
   for (const p of pairs.sort((a, b) => cost(a) - cost(b))) {

@@ -1,5 +1,5 @@
 import { curveSheet, followerPlane, plateExtent, type CurveSheet, type Failure, type FollowerPlane, type PlateExtent, type Result, type TubeRecord } from '../../src/index';
-import { lookupTube } from '../keep/customTubes';
+import type { TubeRegistry } from './tubeRegistry';
 import type { Analysis, BenchDesign } from './analysis';
 import type { Rival } from './compareSlice';
 import { loadAfterBench } from './stagePlans';
@@ -22,11 +22,11 @@ export interface FollowerBench {
 }
 
 /** The follower's window, shared with a second tube's when one is compared, so both families use one pair of axes. */
-export function followerWindow(d: BenchDesign, rival: Rival): PlateExtent | null {
-  const own = lookupTube(d.stage2.tubeId);
+export function followerWindow(d: BenchDesign, registry: TubeRegistry, rival: Rival): PlateExtent | null {
+  const own = registry.lookup(d.stage2.tubeId);
   if (!own) return null;
   const e = plateExtent(own, d.bplus);
-  const other = rival.on ? lookupTube(rival.tubeId) : undefined;
+  const other = rival.on ? registry.lookup(rival.tubeId) : undefined;
   if (!other) return e;
   const r = plateExtent(other, d.bplus);
   return { vmax: Math.max(e.vmax, r.vmax), iaMax: Math.max(e.iaMax, r.iaMax) };
@@ -49,6 +49,7 @@ function benchOf(d: BenchDesign, a: Analysis, tube: TubeRecord, extent: PlateExt
  */
 export function analyzeFollowerBench(
   d: BenchDesign,
+  registry: TubeRegistry,
   a: Analysis,
   prev: { readonly bench: FollowerBench | null; readonly rival: Result<FollowerBench> | null },
   rival: Rival,
@@ -56,12 +57,12 @@ export function analyzeFollowerBench(
   extent?: PlateExtent,
 ): Result<{ readonly bench: FollowerBench | null; readonly rival: Result<FollowerBench> | null }> {
   if (d.stageKind !== 'follower' || d.stage2.kind !== 'follower') return { ok: true, bench: null, rival: null };
-  const tube = lookupTube(d.stage2.tubeId);
-  const window = extent ?? followerWindow(d, rival);
+  const tube = registry.lookup(d.stage2.tubeId);
+  const window = extent ?? followerWindow(d, registry, rival);
   if (!tube || !window) return { ok: false, reason: 'invalid-tube', message: `No tube called “${d.stage2.tubeId}” for the follower`, field: 'stage2' } satisfies Failure;
   const bench = benchOf(d, a, tube, window, prev.bench, maxCurves);
   if (!bench.ok) return bench;
-  const other = rival.on ? lookupTube(rival.tubeId) : undefined;
+  const other = rival.on ? registry.lookup(rival.tubeId) : undefined;
   const second = other ? benchOf(d, a, other, bench.sheet.extent, prev.rival?.ok ? prev.rival : null, maxCurves) : null;
   return { ok: true, bench, rival: second };
 }

@@ -3,7 +3,6 @@ import { feasibleRegion, followerRegion, judgeDesign, judgeFollower, judgeOutput
 import { outputRequestOf } from './outputTargets';
 import { DESIGN_LIMITS } from './designLimits';
 import { loadAfterBench } from './stagePlans';
-import { lookupTube } from '../keep/customTubes';
 import { stageDesignOf } from './analysis';
 import { anyTarget, NO_TARGETS, targetPlanOf, targetsOf, withTargetPlan } from './targetPlan';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
@@ -89,9 +88,9 @@ export interface RegionSlice {
 export function regionRequestOf(s: WorkbenchState): { key: string; stage: RegionStage; targets: Targets; extent: { vmax: number; iaMax: number } } | null {
   const d = s.design;
   if (d.stageKind !== 'voltage' || !anyTarget(d.targets)) return null;
-  const tube = lookupTube(d.tubeId);
+  const tube = s.registry.lookup(d.tubeId);
   if (!tube) return null;
-  const sd = stageDesignOf(d, tube);
+  const sd = stageDesignOf(d, tube, s.registry);
   const stage: RegionStage = { tube, bplus: sd.bplus, rl: sd.rl ?? Infinity, rsource: sd.rsource ?? 0, bypassed: sd.bypassed ?? true, ...(sd.rg !== undefined ? { rg: sd.rg } : {}) };
   const targets = targetsOf(d.targets);
   const extent = s.analysis.sheet.extent;
@@ -191,7 +190,7 @@ export const createRegionSlice =
         const { tube: _t, ...stage } = follower.stage;
         const key = JSON.stringify(['follower', stage, follower.targets]);
         set({ ranking: { key, result: null } });
-        const tubes = get().tubes.flatMap((t) => lookupTube(t.id) ?? []);
+        const tubes = get().tubes.flatMap((t) => get().registry.lookup(t.id) ?? []);
         void solver.rankFollowers(follower.targets, stage, tubes).then((result) => {
           if (get().ranking?.key === key) set({ ranking: { key, result } });
         });
@@ -202,7 +201,7 @@ export const createRegionSlice =
       const { tube: _t, ...stage } = req.stage;
       const key = JSON.stringify([stage, req.targets]);
       set({ ranking: { key, result: null } });
-      const tubes = get().tubes.flatMap((t) => lookupTube(t.id) ?? []);
+      const tubes = get().tubes.flatMap((t) => get().registry.lookup(t.id) ?? []);
       void solver.rank(req.targets, stage, tubes).then((result) => {
         if (get().ranking?.key === key) set({ ranking: { key, result } });
       });
@@ -313,7 +312,7 @@ export function watchRegion(store: WorkbenchStore, solver: RegionSolver): void {
     }
     const req = regionRequestOf(s);
     const tube = req?.stage.tube;
-    const verdict = req && tube ? judgeDesign(stageDesignOf(s.design, tube as TubeRecord), req.targets) : null;
+    const verdict = req && tube ? judgeDesign(stageDesignOf(s.design, tube as TubeRecord, s.registry), req.targets) : null;
     if (verdict !== null || s.verdict !== null) store.setState({ verdict });
   };
   store.subscribe((s, prev) => {

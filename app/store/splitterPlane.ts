@@ -1,5 +1,4 @@
 import { millerInputCapacitance, solveSplitter, splitterPlane, type SplitterPlane, type SplitterResult } from '../../src/index';
-import { lookupTube } from '../keep/customTubes';
 import { drivesPair } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -25,7 +24,7 @@ export function splitterPlaneOf(s: WorkbenchState): SplitterPlane | null {
   if (byResult.has(key)) return byResult.get(key)!;
   const i = view.names.findIndex((n) => n.role === 'splitter');
   const st = i >= 0 ? view.result.stages[i] : undefined;
-  const tube = lookupTube(s.design.output.splitter.tubeId);
+  const tube = s.registry.lookup(s.design.output.splitter.tubeId);
   // A long-tailed pair's second triode from the splitter's own solve (the chain carries the first's point).
   const figures = splitterFiguresOf(s);
   const vgrid = gridVolts(s);
@@ -51,7 +50,7 @@ export function splitterFiguresOf(s: WorkbenchState): SplitterResult | null {
   // Keyed by the pair's pass and, for a direct-coupled grid, the amplifier that sets its voltage.
   const key = sp.coupling === 'direct' && s.amplifier ? s.amplifier : b.settled;
   if (byBench.has(key)) return byBench.get(key)!;
-  const tube = lookupTube(sp.tubeId);
+  const tube = s.registry.lookup(sp.tubeId);
   const a = b.settled;
   // Each half's fundamental from the power into Raa/4, over the drive per grid: the plate's gain.
   const fundamental = Math.sqrt(2 * a.full.power * (a.solution.design.raa / 4));

@@ -1,6 +1,7 @@
 import { checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
 import { chainInputOf, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
+import type { TubeRegistry } from './tubeRegistry';
 
 /**
  * The B+ supply as the bench holds it: the transformer, rectifier and filter
@@ -95,8 +96,8 @@ export function checkPlan(p: SupplyPlan): Failure | null {
 export const nodeOf = (p: SupplyPlan, bench: 'voltage' | 'output') => (bench === 'output' ? p.feeds.output : p.feeds.voltage);
 
 /** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node. */
-export function onSupplyInputOf(d: BenchDesign): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
-  const chain = chainInputOf(d);
+export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
+  const chain = chainInputOf(d, registry);
   if (!chain) return null;
   const p = d.supply;
   // The splitter shares the voltage stages' node (common practice: it hangs from the driver's decoupling).

@@ -206,8 +206,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
   const schedule = () => {
     clearTimeout(timer);
     timer = setTimeout(() => {
-      const d = store.getState().design;
-      const chain = d.supply.on ? onSupplyInputOf(d) : null;
+      const { design: d, registry } = store.getState();
+      const chain = d.supply.on ? onSupplyInputOf(d, registry) : null;
       if (!chain) {
         store.setState({ supplyView: null });
         return;
@@ -256,7 +256,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         const last = s.supplyView?.result;
         if (!s.dragging || !last?.ok) return;
         const d = s.design;
-        const chain = d.supply.on ? onSupplyInputOf(d) : null;
+        const chain = d.supply.on ? onSupplyInputOf(d, s.registry) : null;
         if (!chain) return;
         const r = await solver({ ...chain.input, start: last.supply.nodes.map((n) => n.dc), ...(last.tangent ? { around: last.tangent } : {}), keepTangent: true });
         const now = store.getState();

@@ -26,7 +26,7 @@ export function warmDragPath(store: WorkbenchStore, rounds = WARM_ROUNDS): void 
       const ia = solution.op.ia * (1 + 0.25 * Math.cos(k / 5));
       const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
       const d = reach.ok ? designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia }) : reach;
-      if (d.ok) analyze({ ...s.design, ra: d.ra, rk: d.rk }, s.analysis, sheet.extent, true, s.curveCount);
+      if (d.ok) analyze({ ...s.design, ra: d.ra, rk: d.rk }, s.registry, s.analysis, sheet.extent, true, s.curveCount);
       k++;
     }
     if (k < rounds) idle(step);

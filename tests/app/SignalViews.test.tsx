@@ -5,6 +5,7 @@ import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { stageDesignOf } from '../../app/store/analysis';
 import { distortion, findTube, levelAtThd, swing } from '../../src/index';
+import { LIBRARY_TUBES } from '../../app/store/tubeRegistry';
 
 function setup() {
   const store = createWorkbenchStore();
@@ -32,7 +33,7 @@ describe('signal views', () => {
     await user.type(level, '100');
     const d = store.getState().design;
     // The bench's stage as the model sees it: driven from the stage before it, whose output impedance its grid current flows through.
-    const clean = swing(stageDesignOf(d, findTube(d.tubeId)!));
+    const clean = swing(stageDesignOf(d, findTube(d.tubeId)!, LIBRARY_TUBES));
     if (!clean.ok) throw new Error(clean.message);
     expect(store.getState().design.levelRms).toBe(100);
     // The signal views catch up once typing pauses.
@@ -42,7 +43,7 @@ describe('signal views', () => {
   it('a level past the clean swing shows its distortion and which limit it is past', async () => {
     const { user, store, figure } = setup();
     const d = store.getState().design;
-    const clean = swing(stageDesignOf(d, findTube(d.tubeId)!));
+    const clean = swing(stageDesignOf(d, findTube(d.tubeId)!, LIBRARY_TUBES));
     if (!clean.ok) throw new Error(clean.message);
     const level = screen.getByRole('textbox', { name: /^Output level/ });
     await user.clear(level);
@@ -58,7 +59,7 @@ describe('signal views', () => {
     await user.type(field, '1');
     expect(store.getState().design.thdLimit).toBeCloseTo(0.01, 12);
     const d = store.getState().design;
-    const model = levelAtThd(stageDesignOf(d, findTube(d.tubeId)!), 0.01);
+    const model = levelAtThd(stageDesignOf(d, findTube(d.tubeId)!, LIBRARY_TUBES), 0.01);
     if (!model.ok) throw new Error(model.message);
     await waitFor(() => expect(view.container.querySelector('[data-figure="at-thd"] dt')?.textContent).toBe('Output at 1 % THD'));
     await waitFor(() => expect(view.container.querySelector('[data-figure="at-thd"] dd')?.textContent).toMatch(new RegExp(`^${model.outputRms.toPrecision(3)} V rms`)));

@@ -7,6 +7,7 @@ import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { DEMO_SUPPLY, onSupplyInputOf } from '../../app/store/supplyPlan';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { solveOnSupply } from '../../src/index';
+import { LIBRARY_TUBES } from '../../app/store/tubeRegistry';
 
 /** The workbench with the supply solved in place (the page uses a Web Worker; jsdom has none). */
 function bench() {
@@ -36,7 +37,7 @@ describe('the B+ supply on the bench', () => {
     expect(store.getState().dragging).toBe('point');
     const during = store.getState().supplyView!.result;
     if (!during.ok) throw new Error(during.message);
-    const model = solveOnSupply(onSupplyInputOf(design)!.input);
+    const model = solveOnSupply(onSupplyInputOf(design, LIBRARY_TUBES)!.input);
     if (!model.ok) throw new Error(model.message);
     during.supply.nodes.forEach((n, k) => expect(Math.abs(n.dc - model.supply.nodes[k]!.dc)).toBeLessThan(0.05));
     expect(during.supply.nodes[2]!.dc).not.toBeCloseTo(before.supply.nodes[2]!.dc, 1);

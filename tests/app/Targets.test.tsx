@@ -8,6 +8,7 @@ import { feasibleRegion, findOutputTube, findTube, judgeDesign, nearestPreferred
 import { benchPoint } from '../../app/store/outputAnalysis';
 import { cardSections } from '../../app/export/buildCard';
 import { failingAt } from '../../app/store/regionSlice';
+import { LIBRARY_TUBES } from '../../app/store/tubeRegistry';
 
 function setup() {
   const store = createWorkbenchStore();
@@ -24,7 +25,7 @@ describe('targets on the voltage bench', () => {
     expect(store.getState().design.targets.minGain).toBe(12);
     await waitFor(() => expect(store.getState().region?.complete).toBe(true));
     const d = store.getState().design;
-    const sd = stageDesignOf(d, findTube(d.tubeId)!);
+    const sd = stageDesignOf(d, findTube(d.tubeId)!, LIBRARY_TUBES);
     const model = feasibleRegion({ tube: sd.tube, bplus: sd.bplus, rl: sd.rl!, rsource: sd.rsource!, bypassed: sd.bypassed!, rg: sd.rg! }, { minGain: 12 }, { nx: 60, ny: 40, extent: store.getState().analysis.sheet.extent });
     if (!model.ok) throw new Error(model.message);
     const inside = model.inside.flat().filter(Boolean).length;
@@ -68,7 +69,7 @@ describe('targets on the voltage bench', () => {
     await user.type(field(/^Least gain/), '12');
     await user.type(field(/^Most Zout/), '5k');
     const d = store.getState().design;
-    const model = judgeDesign(stageDesignOf(d, findTube(d.tubeId)!), { minGain: 12, maxZout: 5e3 });
+    const model = judgeDesign(stageDesignOf(d, findTube(d.tubeId)!, LIBRARY_TUBES), { minGain: 12, maxZout: 5e3 });
     if (!model.ok) throw new Error(model.message);
     const items = [...view.container.querySelectorAll('.target-verdicts li')].map((li) => [li.getAttribute('data-target'), li.textContent]);
     expect(items.map(([k]) => k)).toEqual(['minGain', 'maxZout']);

@@ -19,7 +19,7 @@ export function CircuitValues() {
   const drivesNext = useWorkbench((s) => s.design.after.length > 0);
   const sourceHint = useWorkbench((s) => {
     if (s.design.before.length === 0) return 'what drives the grid';
-    const src = benchSource(s.design);
+    const src = benchSource(s.design, s.registry);
     return `the amplifier's source; this stage is fed by stage ${s.design.before.length}${src.ok ? ` (${ohms(src.ohms)})` : ''}`;
   });
   const rlHint = useWorkbench((s) => {

@@ -1,5 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { lookupTube, resetCustomTubes, saveCustomTube } from '../../../app/keep/customTubes';
+import { customTubes, resetCustomTubes, saveCustomTube } from '../../../app/keep/customTubes';
+import { tubeRegistry } from '../../../app/store/tubeRegistry';
+import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { korenPublishedSets } from '../../../src/index';
 
 const spec = {
@@ -17,14 +19,29 @@ describe("the user's tubes", () => {
 
   it('a user tube is built once per id: every look-up (a drag makes one a frame) returns the same record', () => {
     saveCustomTube(spec);
-    const first = lookupTube('My 12AU7');
+    const lookup = (id: string) => tubeRegistry(customTubes()).lookup(id);
+    const first = lookup('My 12AU7');
     expect(first?.userMade).toBe(true);
-    expect(lookupTube('My 12AU7')).toBe(first);
+    expect(lookup('My 12AU7')).toBe(first);
     // Saving again builds it anew, once.
     saveCustomTube({ ...spec, maxPlateDissipation: 3 });
-    const second = lookupTube('My 12AU7');
+    const second = lookup('My 12AU7');
     expect(second).not.toBe(first);
     expect(second?.ratings.maxPlateDissipation).toBe(3);
-    expect(lookupTube('My 12AU7')).toBe(second);
+    expect(lookup('My 12AU7')).toBe(second);
+  });
+
+  it('the store holds the registry: a saved tube is in it after the list is read again, and the registry is replaced, never changed', () => {
+    const store = createWorkbenchStore();
+    const before = store.getState().registry;
+    expect(before.lookup('My 12AU7')).toBeUndefined();
+    expect(before.lookup('12AX7')?.id).toBe('12AX7');
+    saveCustomTube(spec);
+    store.getState().refreshTubes();
+    const after = store.getState().registry;
+    expect(after).not.toBe(before);
+    expect(before.lookup('My 12AU7')).toBeUndefined();
+    expect(after.lookup('My 12AU7')?.userMade).toBe(true);
+    expect(store.getState().tubes.some((t) => t.id === 'My 12AU7')).toBe(true);
   });
 });

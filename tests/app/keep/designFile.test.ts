@@ -6,6 +6,7 @@ import { readShareFragment, shareFragment } from '../../../app/keep/shareLink';
 import { IDEAL_CC, voltageStages } from '../../../app/store/stagePlans';
 import type { BenchDesign } from '../../../app/store/analysis';
 import { NO_TARGETS } from '../../../app/store/targetPlan';
+import { LIBRARY_TUBES } from '../../../app/store/tubeRegistry';
 
 const doc = {
   title: 'Phono second stage',
@@ -27,8 +28,8 @@ describe('design files', () => {
     const back = readDesignFile(text);
     if (!back.ok) throw new Error(back.message);
     expect(back.doc).toEqual(doc);
-    const a = analyze(doc.design, null);
-    const b = analyze(back.doc.design, null);
+    const a = analyze(doc.design, LIBRARY_TUBES, null);
+    const b = analyze(back.doc.design, LIBRARY_TUBES, null);
     if (!a.ok || !b.ok) throw new Error('both solve');
     expect(b.solution).toEqual(a.solution);
     expect(JSON.parse(text)).toMatchObject({ format: 'quiescent-design', version: 3, savedAt: '2026-12-02T10:00:00.000Z', design: { rl: null } });

@@ -1,12 +1,13 @@
 import { render, screen, waitFor } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../../app/App';
-import { bounded, customSpecs, loadCustomTubes, lookupTube, MAX_KEPT_POINTS, removeFromPageForTests as clearPageOnly, saveCustomTube, type CustomTubeSpec } from '../../../app/keep/customTubes';
+import { bounded, customSpecs, customTubes, loadCustomTubes, MAX_KEPT_POINTS, removeFromPageForTests as clearPageOnly, saveCustomTube, type CustomTubeSpec } from '../../../app/keep/customTubes';
 import { readDesignFile, withKnownTubes, writeDesignFile } from '../../../app/keep/designFile';
 import { LEGACY_KEY } from '../../../app/keep/keptTubes';
 import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { korenPublishedSets } from '../../../src/index';
+import { tubeRegistry } from '../../../app/store/tubeRegistry';
 
 const spec = (name: string, points = 20): CustomTubeSpec => ({
   name,
@@ -31,7 +32,7 @@ describe("the user's tubes are kept where the quota fits", () => {
     expect(JSON.stringify(customSpecs()).length).toBeGreaterThan(1e6);
     expect(await reloadTubes()).toEqual([]);
     expect(customSpecs()).toHaveLength(80);
-    expect(lookupTube('Big 79')?.userMade).toBe(true);
+    expect(tubeRegistry(customTubes()).lookup('Big 79')?.userMade).toBe(true);
   });
 
   it("a fit's points are kept in a bounded form: at most MAX_KEPT_POINTS, the first and last among them", () => {
@@ -56,7 +57,7 @@ describe('a design whose tube is missing', () => {
   it('opens with a stand-in and a message naming the tube, never as the demo', () => {
     const r = readDesignFile(writeDesignFile({ title: 'Borrowed', design: { ...DEMO_DESIGN, tubeId: 'Friend\'s 6SN7', bplus: 320, ra: 39e3 } }));
     if (!r.ok) throw new Error(r.message);
-    const k = withKnownTubes(r.doc);
+    const k = withKnownTubes(r.doc, tubeRegistry(customTubes()));
     expect(k.doc.design).toMatchObject({ tubeId: '12AU7', bplus: 320, ra: 39e3 });
     expect(k.note).toBe('The design uses “Friend\'s 6SN7”, which is neither in the library nor among your tubes in this browser: it opened with the 12AU7 in its place and every other value as saved. Import the tube (A tube of your own → Import tubes) and choose it again.');
   });

@@ -33,7 +33,7 @@ describe('a capacitor-coupled cathode follower', () => {
     const first = solveStage({ tube: s.analysis.tube, bplus: s.design.bplus, ra: s.design.ra, rk: s.design.rk, bypassed: s.design.bypassed, rl: 1e6 });
     expectClose(s.analysis.solution.gain, first.ok ? first.gain : NaN, { rel: 1e-9 }, 'stage gain into the leak');
     // The amplifier holds it as a capacitor-coupled follower, its grid at its bias.
-    const chain = chainInputOf(s.design)!;
+    const chain = chainInputOf(s.design, s.registry)!;
     const st = chain.input.stages[1]!;
     expect(st).toMatchObject({ kind: 'follower', vbias: c.vbias, coupling: { kind: 'capacitor', cc: c.cc, rg: c.rg } });
     const amp = s.amplifier!.result;
