@@ -36,7 +36,7 @@ export function chartCaption(s: WorkbenchState): ChartCaption {
     // The chart shows the follower: its own parts and point, and its own key.
     const sol = f.plane.solution;
     return {
-      title: `${f.tube.id} cathode follower, B+ ${volts(f.bplus)}, grid at ${volts(f.vgrid)} (${d.stage2.coupling ? `its own bias, through ${farads(d.stage2.coupling.cc)} into ${ohms(d.stage2.coupling.rg)}` : 'the plate before it'}), Rk ${ohms(d.stage2.rk)}`,
+      title: `${f.tube.id} cathode follower, B+ ${volts(f.bplus)}, grid at ${volts(f.vgrid)} (${d.stage2.coupling ? `held by its divider, through ${farads(d.stage2.coupling.cc)} into ${ohms(d.stage2.coupling.rg)}` : 'the plate before it'}), Rk ${ohms(d.stage2.rk)}`,
       figures: `Vk ${volts(sol.op.vk)}, Ia ${milliamps(sol.op.ia)}, Vgk ${volts(sol.op.vgk)}, Pa ${watts(sol.op.pa)}; gain ${plain(sol.gain, 3)} ×, Zout ${ohms(sol.zout)}, heater–cathode ${volts(sol.vhk)}`,
       legend: followerLegend(f.vgrid),
     };

@@ -123,7 +123,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', L.stage2.rg), show: compact, ...second('rg') },
   fCc: { label: 'Cc (follower)', unit: 'F', example: '100n', read: ranged('Coupling capacitor', L.stage2.cc), show: compact, ...coupling('cc') },
   fRg: { label: 'Rg (follower)', unit: 'Ω', example: '1M', read: ranged('Grid leak', L.stage2.rg), show: compact, ...coupling('rg') },
-  fVbias: { label: 'Grid bias (follower)', unit: 'V', example: '150', read: ranged('Grid voltage', L.stage2.vbias), show: compact, ...coupling('vbias') },
+  fVbias: { label: 'Follower grid', unit: 'V', example: '150', read: ranged('Follower grid voltage', L.stage2.vbias), show: compact, ...coupling('vbias') },
   oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', L.output.bplus), show: compact, ...out('bplus') },
   oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
   oTap: { label: 'Screen tap', unit: '%', example: '43', read: percent('Screen tap', L.output.ulTap), show: showPercent, ...out('ulTap') },

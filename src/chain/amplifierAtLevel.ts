@@ -67,12 +67,11 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
     targetRms = (level as { outputRms: number }).outputRms;
   }
   const { signal, clips, first } = a;
-  const at = (v: number) => signal.at(v);
   const target = targetRms * Math.SQRT2;
   const cleanMax = a.cleanFundamental();
   // Within a part per million of the clean limit counts as at it.
   const past = target > cleanMax * (1 + 1e-6);
-  const peak = past ? peakPastClean(a, target) : peakWithinClean(a, target, at);
+  const peak = past ? peakPastClean(a, target) : peakWithinClean(a, target);
   if (typeof peak !== 'number') return peak;
   // The final cycle at full resolution, every stage's output kept from the same pass.
   const n = a.links.length;
@@ -100,8 +99,9 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
 }
 
 /** The source peak for an output peak inside the clean limit: the secant on the fundamental from the small-signal guess, bracketed by [0, the clean limit]. */
-function peakWithinClean(a: PreparedAmplifier, target: number, at: (v: number) => number): number {
+function peakWithinClean(a: PreparedAmplifier, target: number): number {
   const cleanPeak = a.inputPeak;
+  const at = (v: number) => a.signal.at(v);
   const searchWave = new Float64Array(SEARCH_SAMPLES);
   const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SEARCH_SAMPLES, peak, at, searchWave), 1)[1]!;
   let p0 = Math.min(target / Math.max(Math.abs(a.gain), 1e-12), cleanPeak);

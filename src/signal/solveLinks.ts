@@ -8,7 +8,7 @@ import type { ChainInput, ChainStage, CommonCathodeLink, Coupling } from '../cha
 import { prepareAmplifier } from '../chain/prepareAmplifier';
 import { sineLevel, type Level } from './levels';
 
-/** A link of a chain: a common-cathode stage, or a cathode follower direct-coupled to the plate before it. */
+/** A link of a chain: a common-cathode stage, or a cathode follower after the plate before it (direct- or capacitor-coupled). */
 export type ChainLink =
   | ({ readonly kind: 'common-cathode' } & StageDesign)
   | {
@@ -76,8 +76,9 @@ function commonCathodeOf(d: StageDesign): CommonCathodeLink {
  * (see ChainSignal), so the two forms give the same figures. A
  * common-cathode second link is coupled through a capacitor, its grid leak
  * Rg loading the first plate; a follower is direct-coupled, its grid at the
- * first plate's voltage, or capacitor-coupled into its own leak and bias. The input is the first grid's open-circuit swing,
- * as it always was (the amplifier's is the source's).
+ * first plate's voltage, or capacitor-coupled into its own leak and bias.
+ * The input is the first grid's open-circuit swing, as it always was (the
+ * amplifier's is the source's).
  */
 export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult> {
   if (!Array.isArray(links) || links.length < 1 || links.length > 2) return fail('invalid-input', 'A chain has one or two links');

@@ -136,7 +136,7 @@ describe('the amplifier strip', () => {
     const s2 = store.getState().design.stage2;
     expect(s2.kind).toBe('follower');
     expect(s2.coupling).toEqual({ cc: 100e-9, rg: 1e6, vbias: Math.round(store.getState().design.bplus / 2) });
-    for (const name of [/^Cc \(follower\)/, /^Rg \(follower\)/, /^Grid bias \(follower\)/]) expect(screen.getByRole('textbox', { name })).toBeTruthy();
+    for (const name of [/^Cc \(follower\)/, /^Rg \(follower\)/, /^Follower grid/]) expect(screen.getByRole('textbox', { name })).toBeTruthy();
     expect(screen.getByRole('group', { name: /then a cathode follower, capacitor-coupled/ })).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Stage 3, 12AU7 cathode follower, capacitor-coupled: put it on the bench' })).toBeTruthy();
     // The strip's card says so too.

@@ -28,7 +28,7 @@ export function FollowerFigures() {
     <section className="panel figures" aria-label="The follower's figures at its operating point">
       <dl className="figure-group">
         <Figure name="follower-vk" label="Vk (cathode, the output's DC)" value={volts(op.vk)} chars={5.5} />
-        <Figure name="follower-vgrid" label={coupled ? 'Grid (its own bias)' : 'Grid (the plate before it)'} value={volts(bench.vgrid)} chars={5.5} />
+        <Figure name="follower-vgrid" label={coupled ? 'Grid (held by its divider)' : 'Grid (the plate before it)'} value={volts(bench.vgrid)} chars={5.5} />
         <Figure name="follower-vpk" label="Vpk" value={volts(op.vpk)} chars={5.5} />
         <Figure name="follower-ia" label="Ia" value={milliamps(op.ia)} chars={8} />
         <Figure name="follower-vgk" label="Vgk" value={volts(op.vgk)} chars={7.5} />

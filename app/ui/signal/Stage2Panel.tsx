@@ -42,7 +42,7 @@ export function Stage2Panel() {
         >
           <option value="none">nothing (this stage drives the next, or RL)</option>
           <option value="follower">a cathode follower, direct-coupled</option>
-          <option value="follower-capacitor">a cathode follower, capacitor-coupled (its grid on its own bias)</option>
+          <option value="follower-capacitor">a cathode follower, capacitor-coupled (its grid held by a divider)</option>
           <option value="common-cathode">a gain stage after it, capacitor-coupled</option>
         </select>
       </div>
