@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { ohms } from '../../app/format';
+import { voltageStages } from '../../app/store/stagePlans';
 
 /** The stage cards in the strip (each stage's menu buttons aside). */
 const cardsOf = () => [...screen.getByRole('region', { name: 'The amplifier, stage by stage' }).querySelectorAll<HTMLButtonElement>('button.chain-card')];
@@ -92,7 +93,7 @@ describe('the amplifier strip', () => {
     expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
     // The whole amplifier's schematic draws every stage, the bench's shaded; pressing one puts it on the bench.
     const drawing = screen.getByRole('group', { name: 'Schematic of the whole amplifier, 4 stages' });
-    expect(within(drawing).getAllByRole('button').map((b) => b.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
+    expect(within(drawing).getAllByRole('button', { name: /: put it on the bench$/ }).map((b) => b.getAttribute('aria-pressed'))).toEqual(['false', 'false', 'true', 'false']);
     act(() => fireEvent.keyDown(within(drawing).getByRole('button', { name: 'Stage 1, 12AU7 gain stage: put it on the bench' }), { key: 'Enter' }));
     // Stage 1, the follower riding with it (the follower's own card shows the follower).
     expect(cardsOf().map((c) => c.getAttribute('aria-pressed'))).toEqual(['true', 'false', 'false', 'false']);
@@ -103,6 +104,40 @@ describe('the amplifier strip', () => {
     expect(cardsOf()).toHaveLength(2);
     // The last gain stage stays.
     expect((screen.getByRole('button', { name: 'Remove Stage 1' }) as HTMLButtonElement).disabled).toBe(true);
+  });
+
+  it('every value on the whole amplifier\'s drawing is edited where it stands: its stage goes on the bench and its box opens there', { timeout: 20_000 }, () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const drawing = () => within(screen.getByRole('group', { name: /^Schematic of the whole amplifier/ }));
+    // The demo opens on its driver (stage 2); stage 1's plate resistor is pressed on the drawing.
+    expect(store.getState().design.before).toHaveLength(1);
+    const ra1 = store.getState().design.before[0]!;
+    if (ra1.kind !== 'common-cathode') throw new Error('the demo starts with a gain stage');
+    act(() => fireEvent.click(drawing().getByRole('button', { name: `Stage 1 Ra ${ohms(ra1.ra)}: change` })));
+    expect(store.getState().design.before).toHaveLength(0);
+    const editor = () => within(view.container.querySelector('.chain-frame .inline-editor') as HTMLElement).getByRole('textbox');
+    expect(editor().getAttribute('value') ?? (editor() as HTMLInputElement).value).toBe('100k');
+    act(() => fireEvent.change(editor(), { target: { value: '150k' } }));
+    act(() => fireEvent.keyDown(editor(), { key: 'Enter' }));
+    expect(view.container.querySelector('.chain-frame .inline-editor')).toBeNull();
+    expect(store.getState().design.ra).toBe(150e3);
+    expect(drawing().getByRole('button', { name: 'Stage 1 Ra 150 kΩ: change' })).toBeTruthy();
+    // Undo takes the edit back, as for any box.
+    act(() => store.getState().undo());
+    expect(voltageStages(store.getState().design)[0]).toMatchObject({ ra: ra1.ra });
+    // A bad value is refused next to the box and the design keeps its last good value.
+    act(() => fireEvent.keyDown(drawing().getByRole('button', { name: /^Stage 1 Rk .*: change$/ }), { key: 'Enter' }));
+    act(() => fireEvent.change(editor(), { target: { value: '-3' } }));
+    expect(within(view.container.querySelector('.chain-frame .inline-editor') as HTMLElement).getByRole('alert').textContent).toMatch(/Rk/);
+    expect(voltageStages(store.getState().design)[0]).toMatchObject({ rk: ra1.rk });
+    act(() => fireEvent.keyDown(editor(), { key: 'Escape' }));
+    // The output stage's grid resistor: the output stage goes on the bench.
+    act(() => fireEvent.click(drawing().getByRole('button', { name: /^Output stage Rg .*: change$/ })));
+    expect(store.getState().design.stageKind).toBe('output');
+    act(() => fireEvent.change(editor(), { target: { value: '220k' } }));
+    act(() => fireEvent.blur(editor()));
+    expect(store.getState().design.output.rg).toBe(220e3);
   });
 
   it('on a stage in the middle, the amplifier-end boxes say what this stage really sees', () => {

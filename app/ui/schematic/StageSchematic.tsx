@@ -1,4 +1,5 @@
-import { useEffect, useId, useRef, useState } from 'react';
+import { useState } from 'react';
+import { InlineEditor } from './InlineEditor';
 import { farads, ohms, volts } from '../../format';
 import { FIELDS, type FieldName } from '../../store/fields';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -59,6 +60,9 @@ function partText(f: FieldName, d: BenchDesign): string {
   }
 }
 
+/** Where the editor opens over a label: as fractions of the drawing, so it follows the drawing's scale. */
+const editorAt = (spot: Spot, width: number) => ({ left: `${(Math.min(Math.max(spot.x - 60, 0), width - 150) / width) * 100}%`, top: `${((spot.y + 6) / H) * 100}%` });
+
 export function StageSchematic() {
   // Values follow a drag at a readable pace; the figures strip carries them live.
   const [design, op] = useDragPaced((s) => [s.design, s.analysis.solution.op] as const, { equal: sameEntries });
@@ -116,44 +120,8 @@ export function StageSchematic() {
             </g>
           ))}
         </svg>
-        {editing ? <InlineEditor field={editing} spot={spots[editing]!} width={width} onDone={() => setEditing(null)} /> : null}
+        {editing ? <InlineEditor field={editing} at={editorAt(spots[editing]!, width)} onDone={() => setEditing(null)} /> : null}
       </div>
     </section>
-  );
-}
-
-/** The in-place editor for one part's value, placed over its label. */
-function InlineEditor({ field, spot, width, onDone }: { field: FieldName; spot: Spot; width: number; onDone: () => void }) {
-  const draft = useWorkbench((s) => s.drafts[field]);
-  const error = useWorkbench((s) => s.errors[field]);
-  const editField = useWorkbench((s) => s.editField);
-  const settleField = useWorkbench((s) => s.settleField);
-  const input = useRef<HTMLInputElement>(null);
-  const id = useId();
-  useEffect(() => {
-    input.current?.focus();
-    input.current?.select();
-  }, []);
-  const close = () => {
-    settleField(field);
-    onDone();
-  };
-  return (
-    <div className="inline-editor" style={{ left: `${(Math.min(Math.max(spot.x - 60, 0), width - 150) / width) * 100}%`, top: `${((spot.y + 6) / H) * 100}%` }}>
-      <label htmlFor={id} className="visually-hidden">{`${FIELDS[field].label} (${FIELDS[field].unit})`}</label>
-      <input
-        ref={input}
-        id={id}
-        value={draft}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-err` : undefined}
-        onChange={(e) => editField(field, e.target.value)}
-        onBlur={close}
-        onKeyDown={(e) => {
-          if (e.key === 'Enter' || e.key === 'Escape') close();
-        }}
-      />
-      {error ? <p id={`${id}-err`} className="field-error" role="alert">{error}</p> : null}
-    </div>
   );
 }

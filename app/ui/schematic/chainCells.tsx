@@ -1,0 +1,201 @@
+import type { ReactNode } from 'react';
+import { Capacitor, Resistor, Winding } from './parts';
+import { Pentode, Triode } from './tubes';
+import { Dot, Ground, Wire } from './wiring';
+import { farads, ohms, volts } from '../../format';
+import type { FieldName } from '../../store/fields';
+import type { FollowerPlan, GainPlan } from '../../store/stagePlans';
+import type { SplitterPlan } from '../../store/outputPlan';
+
+/**
+ * The cells of the whole amplifier's drawing, one per stage, each drawn from
+ * its left edge `x0` in the drawing's own units. A part's value is drawn by
+ * `value`, which the drawing binds to that stage's box in the store, so every
+ * value on the drawing can be edited where it stands.
+ */
+
+/** The drawing's rows: the B+ rail, the grids, the plate and cathode outputs, ground. */
+export const RAIL = 30;
+export const GRID = 120;
+const PLATE_OUT = 84;
+const CATHODE_OUT = 156;
+export const GROUND = 200;
+export const H = 246;
+export const LEAD_IN = 34;
+export const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 60 } as const;
+/** Where a cell's coupling capacitor ends and its grid leak stands, from the cell's left edge. */
+const CC_END = 36;
+const RG_X = 48;
+export const MUTED = '#4a535c';
+
+export type Anchor = 'start' | 'middle' | 'end';
+/** Draws one part's value at (x, y), named for a screen reader by `name` (e.g. "Ra"), bound to `field`. */
+export type ValueLabel = (field: FieldName, name: string, x: number, y: number, text: string, anchor?: Anchor) => ReactNode;
+
+export const label = (x: number, y: number, text: string, anchor: Anchor = 'start') => (
+  <text x={x} y={y} fontSize={10.5} fill={MUTED} textAnchor={anchor}>{text}</text>
+);
+
+/** A capacitor across the cell's input at grid height, or a plain wire for direct coupling. */
+function Coupling({ x0, cc, value, field }: { x0: number; cc: number | null; value: ValueLabel; field: FieldName }) {
+  return cc === null ? <Wire points={[[x0, GRID], [x0 + CC_END, GRID]]} /> : (
+    <>
+      <Capacitor at={GRID} from={x0} to={x0 + CC_END} vertical={false} />
+      {value(field, 'Cc', x0 + 2, GRID - 16, farads(cc))}
+    </>
+  );
+}
+
+/** A grid leak from the grid line to ground (or, with `to`, to the divider holding the grid there). */
+function GridLeak({ x0, rg, value, field, to }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number } }) {
+  return (
+    <>
+      <Dot x={x0 + RG_X} y={GRID} />
+      <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
+      {to ? value(to.field, 'grid held at', x0 + RG_X, GROUND + 4, `to ${volts(to.volts)}`, 'middle') : <Ground x={x0 + RG_X} y={GROUND} />}
+      {value(field, 'Rg', x0 + RG_X + 11, GRID + 32, ohms(rg))}
+    </>
+  );
+}
+
+/** A common-cathode gain stage: its coupling and leak (from the second stage on), plate and cathode parts, B+. */
+export function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: ValueLabel }) {
+  const cx = x0 + 112;
+  const r = 22;
+  return (
+    <>
+      <Coupling x0={x0} cc={p.cc} value={value} field="cin" />
+      <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      {p.cc !== null && <GridLeak x0={x0} rg={p.rg} value={value} field="rg" />}
+      <Triode cx={cx} cy={GRID} r={r} />
+      <Wire points={[[x0, RAIL], [x0 + WIDTH.gain, RAIL]]} />
+      <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
+      {value('ra', 'Ra', cx - 12, 60, ohms(p.ra), 'end')}
+      <Dot x={cx} y={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [x0 + WIDTH.gain, PLATE_OUT], [x0 + WIDTH.gain, GRID]]} />
+      {p.rk > 0 ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}
+      <Ground x={cx} y={GROUND} />
+      {p.rk > 0 && value('rk', 'Rk', cx - 12, 176, ohms(p.rk), 'end')}
+      {p.bypassed && p.rk > 0 && (
+        <>
+          <Wire points={[[cx, 150], [cx + 24, 150]]} />
+          <Capacitor at={cx + 24} from={150} to={GROUND - 8} vertical polarised />
+          <Wire points={[[cx + 24, GROUND - 8], [cx, GROUND - 8]]} />
+          {value('ck', 'Ck', cx - 12, 189, p.ck === null ? 'Ck ideal' : farads(p.ck), 'end')}
+        </>
+      )}
+      {value('bplus', 'B+', x0 + 4, RAIL - 8, `B+ ${volts(p.bplus)}`)}
+    </>
+  );
+}
+
+/** A follower's cell is wider when capacitor-coupled: its capacitor and leak stand before the tube. */
+export const cellWidth = (p: FollowerPlan | GainPlan) => (p.kind === 'follower' ? WIDTH.follower + (p.coupling ? FOLLOWER_COUPLING_WIDTH : 0) : WIDTH.gain);
+const FOLLOWER_COUPLING_WIDTH = 46;
+
+/** A cathode follower: its grid straight from the plate before it, or through its capacitor into its leak, returned to the divider that holds it. */
+export function FollowerCell({ x0, p, value }: { x0: number; p: FollowerPlan; value: ValueLabel }) {
+  const c = p.coupling;
+  const cx = x0 + 54 + (c ? FOLLOWER_COUPLING_WIDTH : 0);
+  const r = 22;
+  const width = cellWidth(p);
+  return (
+    <>
+      {c ? (
+        <>
+          <Coupling x0={x0} cc={c.cc} value={value} field="fCc" />
+          <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+          <GridLeak x0={x0} rg={c.rg} value={value} field="fRg" to={{ field: 'fVbias', volts: c.vbias }} />
+        </>
+      ) : (
+        <Wire points={[[x0, GRID], [cx - r, GRID]]} />
+      )}
+      <Triode cx={cx} cy={GRID} r={r} />
+      <Wire points={[[x0, RAIL], [x0 + width, RAIL]]} />
+      <Wire points={[[cx, RAIL], [cx, GRID - r]]} />
+      <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
+      <Ground x={cx} y={GROUND} />
+      {value('rk2', 'Rk', cx - 12, 176, ohms(p.rk), 'end')}
+      <Dot x={cx} y={CATHODE_OUT} />
+      <Wire points={[[cx, CATHODE_OUT], [x0 + width, CATHODE_OUT], [x0 + width, GRID]]} />
+    </>
+  );
+}
+
+/**
+ * The phase splitter before a pair: fed through Cout into its leak (returned
+ * to the divider that sets its grid), its plate and cathode loads (for a
+ * long-tailed pair, the first triode with the tail below; the second is
+ * named), and two outputs to the pair's grids.
+ */
+export function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | null; sp: SplitterPlan; value: ValueLabel }) {
+  const cx = x0 + 100;
+  const r = 22;
+  const ltp = sp.kind === 'long-tailed-pair';
+  return (
+    <>
+      <Coupling x0={x0} cc={cc} value={value} field="cout" />
+      <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      {sp.coupling === 'capacitor' && <GridLeak x0={x0} rg={sp.rg} value={value} field="sRg" to={{ field: 'sVgrid', volts: sp.vgrid }} />}
+      <Triode cx={cx} cy={GRID} r={r} />
+      <Wire points={[[x0, RAIL], [x0 + WIDTH.splitter, RAIL]]} />
+      <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
+      {value('sRa', 'Ra', cx - 12, 60, ohms(sp.ra), 'end')}
+      <Dot x={cx} y={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [x0 + WIDTH.splitter, PLATE_OUT], [x0 + WIDTH.splitter, GRID]]} />
+      <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
+      <Ground x={cx} y={GROUND} />
+      {value('sRk', 'Rk', cx - 12, 170, ohms(sp.rk), 'end')}
+      {ltp ? (
+        <>
+          {value('sRtail', 'tail', cx - 12, 183, `+ ${ohms(sp.rtail)}`, 'end')}
+          {value('sRa2', 'second Ra', cx + 12, 60, `2nd ${ohms(sp.ra2)}`)}
+        </>
+      ) : (
+        <>
+          <Dot x={cx} y={CATHODE_OUT} />
+          <Wire points={[[cx, CATHODE_OUT], [x0 + WIDTH.splitter - 8, CATHODE_OUT]]} />
+          {label(x0 + WIDTH.splitter - 10, CATHODE_OUT - 5, 'in phase →', 'end')}
+        </>
+      )}
+      {value('sBplus', 'B+', x0 + 4, RAIL - 8, `B+ ${volts(sp.bplus)}`)}
+    </>
+  );
+}
+
+/** The output stage: its coupling capacitor (`ccField` names whose box holds it) and grid resistor, the tube and its transformer. */
+export function OutputCell({ x0, cc, ccField, rg, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
+  const cx = x0 + 110;
+  const r = 26;
+  return (
+    <>
+      <Coupling x0={x0} cc={cc} value={value} field={ccField} />
+      <GridLeak x0={x0} rg={rg} value={value} field="oRg" />
+      <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, GRID + 8], [cx - r, GRID + 8]]} />
+      <Pentode cx={cx} cy={GRID} r={r} />
+      <Wire points={[[x0 + 64, RAIL], [cx, RAIL], [cx, RAIL + 10]]} />
+      <Winding x={cx} y1={RAIL + 10} y2={GRID - r - 4} side={1} turns={4} />
+      <Wire points={[[cx, GRID - r - 4], [cx, GRID - r]]} />
+      <Winding x={cx + 22} y1={RAIL + 10} y2={GRID - r - 4} side={-1} turns={4} />
+      {value('oSpeaker', 'speaker', cx + 30, 62, `${speakerOhms} Ω`)}
+      {value('oBplus', 'B+', x0 + 66, RAIL - 8, `B+ ${volts(bplus)}`)}
+      <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
+      <Ground x={cx} y={GROUND} />
+      {label(x0 + 150, H - 16, tubeId, 'middle')}
+    </>
+  );
+}
+
+/** A resistive load after the last voltage stage (the RL box). */
+export function LoadCell({ x0, rl, value }: { x0: number; rl: number; value: ValueLabel }) {
+  return (
+    <>
+      <Resistor x={x0 + 24} y1={GRID} y2={GROUND - 8} />
+      <Ground x={x0 + 24} y={GROUND} />
+      <Wire points={[[x0, GRID], [x0 + 24, GRID]]} />
+      {value('rl', 'RL', x0 + 34, GRID + 44, `RL ${ohms(rl)}`)}
+    </>
+  );
+}
