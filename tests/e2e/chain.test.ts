@@ -43,6 +43,17 @@ describe.runIf(run)('a four-stage amplifier end to end in Chromium', () => {
     await expect.poll(() => ra.inputValue()).toBe('100k');
     await cards.nth(1).click();
     await expect.poll(() => ra.inputValue()).toBe(draggedRa);
+    // Edited on the whole amplifier's drawing: stage 1's Rk, pressed where it is drawn, opens in place and takes a value.
+    await strip.getByRole('button', { name: /^Stage 1 Rk .*: change$/ }).click();
+    await expect.poll(() => cards.nth(0).getAttribute('aria-pressed')).toBe('true');
+    const inPlace = strip.locator('.chain-frame .inline-editor input');
+    await expect.poll(() => inPlace.evaluate((el) => el === document.activeElement)).toBe(true);
+    await inPlace.fill('2k2');
+    await inPlace.press('Enter');
+    await expect.poll(() => page.getByRole('textbox', { name: /^Rk/ }).first().inputValue()).toBe('2.2k');
+    expect(await strip.getByRole('button', { name: 'Stage 1 Rk 2.2 kΩ: change' }).count()).toBe(1);
+    await cards.nth(1).click();
+    await expect.poll(() => ra.inputValue()).toBe(draggedRa);
     // Checked: the ratings list names stages by place; the build sheet lists the stages off the bench with their own parts.
     const sheet = page.getByRole('region', { name: 'Build sheet' });
     await expect.poll(() => sheet.getByText('Stage 1, 12AX7 gain stage').count()).toBe(1);
