@@ -77,7 +77,7 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
     stages.push(
       sp.kind === 'split-load'
         ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, coupling: into }
-        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, ...grid, coupling: into },
+        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
     const { tubeId: _id, rg, ...parts } = pushPullDesignOf(d.output);
@@ -119,6 +119,8 @@ function solvePrefix(before: readonly StagePlan[], rsource: number, registry: Tu
 
 /** What the chain strip shows: the whole amplifier, and it at a working level (1 W into the speaker, or the bench's output level). */
 export interface AmplifierView {
+  /** The amplifier as the model was given it. */
+  readonly input: ChainInput;
   readonly names: readonly ChainCardName[];
   readonly kinds: readonly string[];
   readonly result: ({ ok: true } & ChainResult) | Failure;
@@ -137,6 +139,7 @@ export function analyzeAmplifier(d: BenchDesign, registry: TubeRegistry): Amplif
   const result = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });
   const atLevel = result.ok ? (result.atLevel ?? null) : null;
   return {
+    input: chain.input,
     names: chain.names,
     // A follower's coupling is part of what it is: one on its own bias is not one riding on the plate before it.
     kinds: chain.input.stages.map((s) => `${STAGE_KIND_LABELS[s.kind]}${s.kind === 'follower' && s.coupling.kind === 'capacitor' ? ', capacitor-coupled' : ''}`),

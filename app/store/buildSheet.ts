@@ -1,11 +1,11 @@
 import { outputIdleAmps } from './outputAnalysis';
 import {
   bypassResistance, capacitorForCorner, envelopesOf, capacitorLine, capacitorsForCorner, decouplingFilter, resistorLine, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread,
-  solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
-  type Failure, type HeaterOption, type HeaterPlan, type ResistorLine, type Spread, type TubeRecord,
+  followerCouplingParts, solveStage, stagePartsList, type CapacitorForCorner, type CapacitorLine, type DecouplingResult, type DroppingResistor,
+  type Failure, type HeaterOption, type HeaterPlan, type ResistorLine, type Spread, type StageParts, type TubeRecord,
 } from '../../src/index';
 import { stageDesignOf } from './analysis';
-import { followerCouplingParts, offBenchParts, splitterParts, type OffBenchParts } from './chainParts';
+import { offBenchParts } from './chainParts';
 import { drivesPair, splitterDirect } from './outputPlan';
 import { benchIndex, voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
@@ -39,7 +39,7 @@ export interface BuildSheet {
   readonly filteredOp: { va: number; ia: number } | null;
   readonly totalBplusAmps: number;
   /** The voltage stages not on the bench, each with its own parts. */
-  readonly otherStages: readonly OffBenchParts[];
+  readonly otherStages: readonly StageParts[];
   /** The bench stage's place, for the parts table's heading (e.g. "Stage 2, 12AX7"). */
   readonly benchTitle: string;
   /** The driven output stage's cathode current (plate and screen), drawn from the rail ahead of the filter, A; 0 when the stages are apart. */
@@ -117,7 +117,7 @@ function compute(s: WorkbenchState): BuildSheet {
   const stageTubes = [...list.flatMap((p) => s.registry.lookup(p.tubeId) ?? []), ...splitterSections];
   const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
   const splitterStage = pair && amp ? amp.stages[list.length] : undefined;
-  const otherStages = amp ? [...offBenchParts(list, onBench, amp, d.series), ...(splitterStage ? [splitterParts(d.output.splitter, splitterStage, list.length, d.series)] : [])] : [];
+  const otherStages = s.amplifier ? offBenchParts(s.amplifier, onBench, d.series) : [];
   const otherAmps = amp ? amp.stages.reduce((sum, st, i) => ((i < list.length && !onBench.has(i)) || st === splitterStage ? sum + st.supplyCurrent : sum), 0) : 0;
   const tubes = envelopesOf(stageTubes).map(({ tube, sectionsUsed, envelopes }) => {
     const chosen = tube.heaters.find((h) => h.wiring === inp.heaterWiring[tube.id]) ?? tube.heaters[0]!;

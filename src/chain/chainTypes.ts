@@ -100,6 +100,8 @@ export interface LongTailedPairLink {
   readonly ra2?: number;
   readonly rk: number;
   readonly rtail: number;
+  /** The held (second) grid's leak to the first grid's DC, Ω, when the first is direct-coupled; it carries no signal, so only the parts list reads it. */
+  readonly heldGridLeak?: number;
   /** Both grids' DC voltage with capacitor coupling, V; default 0. */
   readonly vbias?: number;
   readonly heaterVolts?: number;
