@@ -88,6 +88,7 @@ export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPo
 export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';
 export { chainStageParts, followerCouplingParts, type StageParts } from './build/chainStageParts';
 export { gridDivider } from './build/gridDivider';
+export { amplifierParts, type AmplifierPartsOptions } from './build/amplifierParts';
 export { stagePartsList, capacitorsForCorner, capacitorForCorner, bypassResistance, resistorLine, capacitorLine, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
 export { productionSpread, seededRandom, type Spread, type SpreadSample } from './build/spread';
 export { envelopesOf, type EnvelopeCount } from './build/envelopes';

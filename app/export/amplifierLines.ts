@@ -28,17 +28,19 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
 }
 
 /**
- * The voltage stages off the bench, one section each: their values, where
- * they sit in the solved amplifier, and their parts with their own ratings.
+ * The voltage stages (and the phase splitter) not on the bench, one section
+ * each: their values, where they sit in the solved amplifier, and their parts
+ * with their own ratings.
  */
 export function otherStageSections(s: WorkbenchState, sheet: BuildSheet): { heading: string; lines: string[] }[] {
   const amp = s.amplifier?.result.ok ? s.amplifier.result : null;
   if (!amp) return [];
   const list = voltageStages(s.design);
-  return sheet.otherStages.map((parts) => {
+  return sheet.stages.filter((st) => !st.onBench).map((parts) => {
     const i = parts.index;
     const p = list[i];
-    const st = amp.stages[i]!;
+    const st = amp.stages[i];
+    if (!st) return { heading: parts.title, lines: partLines(parts) };
     const sp = s.design.output.splitter;
     const values = !p
       ? `${sp.kind === 'split-load' ? `Split-load: Ra ${ohms(sp.ra)}, Rk ${ohms(sp.rk)}` : `Long-tailed pair: Ra ${ohms(sp.ra)} and ${ohms(sp.ra2)}, Rk ${ohms(sp.rk)} over a ${ohms(sp.rtail)} tail`}, B+ ${volts(sp.bplus)}, ${sp.coupling === 'direct' ? 'grid direct from the plate before it' : `grid at ${volts(sp.vgrid)} through ${ohms(sp.rg)}`}, Cc ${farads(sp.cc)} into each output grid`

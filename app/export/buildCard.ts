@@ -36,8 +36,7 @@ function targetSections(s: WorkbenchState): { heading: string; lines: string[] }
 /** With the output stage on the bench, the voltage stages that drive it still go on the card: each one's parts, with their own ratings. */
 function voltagePartsSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
   if (!s.design.drivesOutput) return [];
-  const build = buildSheetOf(s);
-  return [{ heading: `${build.benchTitle}, its parts`, lines: partLines(build) }, ...otherStageSections(s, build)];
+  return otherStageSections(s, buildSheetOf(s));
 }
 
 function voltageCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
@@ -47,7 +46,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   const build = buildSheetOf(s);
   const sections = [
     {
-      heading: build.otherStages.length > 0 ? `${build.benchTitle} (on the bench)` : 'Stage',
+      heading: build.stages.length > 1 ? `${build.stages.find((st) => st.onBench)?.title ?? 'Stage'} (on the bench)` : 'Stage',
       lines: [
         `${d.tubeId}, B+ ${volts(d.bplus)}, Ra ${ohms(d.ra)}, Rk ${ohms(d.rk)}${d.bypassed ? ` bypassed${d.ck ? ` by ${farads(d.ck)}` : ''}` : ' unbypassed'}`,
         `RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}, Rs ${ohms(d.rsource)}, Cin ${d.cin ? farads(d.cin) : 'none'}, Rg ${ohms(d.rg)}, Cout ${d.cout ? farads(d.cout) : 'none'}`,
@@ -98,7 +97,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   sections.push({
     heading: 'Parts to order',
     lines: [
-      ...partLines(build),
+      ...build.stages.filter((st) => st.onBench).flatMap(partLines),
       `Tubes: ${build.tubes.map((t) => `${t.envelopes} × ${t.tube.id} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`).join(', ')}`,
       build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
       build.filter.ok ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',

@@ -9,8 +9,12 @@ describe('the build sheet', () => {
     const store = createWorkbenchStore();
     const view = render(<App store={store} />);
     const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
-    const ra = view.container.querySelector('[data-part-line="Ra"]')!;
-    expect(ra.textContent).toMatch(/^Ra \(plate load\)27 kΩ E24/);
+    // Every part numbered by its stage's place: the demo's driver, on the bench, is stage 2.
+    const ra = view.container.querySelector('[data-part-line="Ra2"]')!;
+    expect(ra.textContent).toMatch(/^Ra2 \(stage 2 plate load\)27 kΩ E24/);
+    expect(sheet.getByRole('heading', { name: 'Stage 2, 12AU7 gain stage (on the bench)' })).toBeTruthy();
+    // Stage 1's parts come first, as the amplifier runs.
+    expect(sheet.getAllByRole('heading', { level: 3 }).map((h) => h.textContent).slice(0, 2)).toEqual(['Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage (on the bench)']);
     expect(view.container.querySelector('[data-part-line="Cout"]')!.textContent).toContain('630 V');
     expect(view.container.querySelectorAll('.layer-spread circle').length).toBeGreaterThan(100);
     // The demo lights two envelopes, the 12AX7 input stage and the 12AU7 driver, each 6.3 V 0.3 A in parallel (Tung-Sol 12AX7 and

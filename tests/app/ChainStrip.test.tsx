@@ -203,7 +203,7 @@ describe('the amplifier strip', () => {
     // With the output stage on the bench the card still carries every voltage stage's parts, each with its own ratings.
     store.getState().setStageKind('output');
     const outputCard = cardSections(store.getState());
-    expect(outputCard.map((x) => x.heading)).toEqual(expect.arrayContaining(['Output stage', 'Stage 2, 12AU7, its parts', 'Stage 1, 12AX7 gain stage']));
+    expect(outputCard.map((x) => x.heading)).toEqual(expect.arrayContaining(['Output stage', 'Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage']));
     expect(outputCard.find((x) => x.heading === 'Stage 1, 12AX7 gain stage')!.lines).toEqual(expect.arrayContaining([expect.stringMatching(/^Ra1: 100 kΩ E24, [\d.]+ W \(runs at /)]));
     store.getState().setStageKind('voltage');
     // The stages apart and one voltage stage left: its own sections say it all.

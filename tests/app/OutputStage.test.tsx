@@ -132,7 +132,7 @@ describe('the build card for an output stage', () => {
     // The demo's stages are joined, so the card opens with the whole amplifier and ends with the parts of the voltage stages driving it.
     expect(sections.map((s) => s.heading)).toEqual([
       'Amplifier', 'Output stage', 'Operating point', 'Power and distortion', 'Ratings, every stage', 'Parts to order', 'Compared: EL34 against KT88 (same parts)',
-      'Stage 2, 12AU7, its parts', 'Stage 1, 12AX7 gain stage',
+      'Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage',
     ]);
     expect(text).toMatch(/Output transformer: 3\.5 kΩ to 8 Ω/);
     expect(text).toMatch(/screen on a 43 % tap/);

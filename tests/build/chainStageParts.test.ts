@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { chainStageParts, findOutputTube, findTube, gridDivider, solveAmplifier, type ChainInput, type PushPullLink } from '../../src/index';
+import { amplifierParts, chainStageParts, findOutputTube, findTube, gridDivider, solveAmplifier, type ChainInput, type PushPullLink } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own amplifier: a 12AX7 input stage, a capacitor-coupled 12AU7 follower, a 12AU7 gain stage, a 12AU7 long-tailed pair, EL84s in push-pull.
@@ -101,5 +101,52 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     expectClose(d.resistors[0]!.watts, (330 / 780e3) ** 2 * 560e3, { rel: 1e-12 }, 'upper');
     // 1/(2π·2 Hz·(560k ∥ 220k)) = 0.504 µF.
     expectClose(d.capacitor.value!, 0.504e-6, { rel: 0.002 }, 'decoupling');
+  });
+});
+
+describe('the amplifier\'s parts, stage by stage', () => {
+  it('lists every voltage stage and the splitter in chain order, and Cout with the last voltage stage, across its plate less the splitter\'s grid', () => {
+    const all = amplifierParts(input, amp, { series: 'E12' });
+    expect(all.map((p) => p.index)).toEqual([0, 1, 2, 3]);
+    const cout = all[2]!.capacitors.find((c) => c.ref === 'Cout')!;
+    expect(cout.role).toBe('coupling into the splitter\'s grid from stage 3\'s plate');
+    expect(cout.value).toBe(100e-9);
+    expectClose(cout.volts, amp.stages[2]!.outputDc - 60, { rel: 1e-12 }, 'running');
+    expect(cout.voltsAtSwitchOn).toBe(300 - 60);
+    // Only one Cout, and the unique refs a build card needs.
+    const refs = all.flatMap((p) => [...p.resistors, ...p.capacitors].map((x) => x.ref));
+    expect(new Set(refs).size).toBe(refs.length);
+  });
+
+  it('into a fixed-bias output grid, Cout holds the plate\'s DC less the (negative) grid bias', () => {
+    const se: ChainInput = {
+      source: { rsource: 600 },
+      stages: [
+        input.stages[0]!,
+        { kind: 'single-ended-output', tube: findOutputTube('EL34')!, connection: 'pentode', bplus: 350, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 120, bias: 'fixed', rk: 0, vg: -24, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } },
+      ],
+    };
+    const r = solveAmplifier(se);
+    if (!r.ok) throw new Error(r.message);
+    const cout = amplifierParts(se, r, { series: 'E12' })[0]!.capacitors.find((c) => c.ref === 'Cout')!;
+    expectClose(cout.volts, r.stages[0]!.outputDc + 24, { rel: 1e-12 }, 'running');
+    expect(cout.voltsAtSwitchOn).toBe(280 + 24);
+  });
+
+  it('a capacitor standing for an ideal one is ordered at the value for the wanted corner, C = 1/(2π·f·R) (Horowitz & Hill, 3rd ed., §1.7)', () => {
+    const two: ChainInput = { source: { rsource: 600 }, stages: [input.stages[0]!, { ...(input.stages[2] as Extract<ChainInput['stages'][number], { kind: 'common-cathode' }>), coupling: { kind: 'capacitor', cc: 1, rg: 470e3 } }], load: { rl: 100e3 } };
+    const r = solveAmplifier(two);
+    if (!r.ok) throw new Error(r.message);
+    const all = amplifierParts(two, r, { series: 'E12', loadCoupling: null, unsized: { cc: 1, cornerHz: 5 } });
+    const cc2 = all[1]!.capacitors.find((c) => c.ref === 'Cc2')!;
+    // 1/(2π · 5 Hz · (Zout1 + 470 kΩ)), then the next E12 value up.
+    const exact = 1 / (2 * Math.PI * 5 * (r.stages[0]!.zout + 470e3));
+    expect(cc2.value!).toBeGreaterThanOrEqual(exact);
+    expect(cc2.value!).toBeLessThan(exact * 1.25);
+    expect(cc2.role).toMatch(/sized for a 5 Hz corner/);
+    // Into the load, Cout is the design's: ideal, so to choose.
+    const cout = all[1]!.capacitors.find((c) => c.ref === 'Cout')!;
+    expect(cout.value).toBeNull();
+    expect(cout.role).toBe('output coupling from stage 2\'s plate');
   });
 });

@@ -38,11 +38,10 @@ export function BuildSheetPanel() {
   return (
     <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Build sheet</h2>
-      {sheet.otherStages.length > 0 && <h3 className="subhead">{sheet.benchTitle} (on the bench)</h3>}
-      <PartsTables resistors={sheet.resistors} capacitors={sheet.capacitors} />
-      {sheet.otherStages.map((st) => (
-        <div key={st.title} className="stage-parts">
-          <h3 className="subhead">{st.title}</h3>
+      {sheet.partial ? <p className="field-error">{`Only the bench's stage is listed: ${sheet.partial}`}</p> : null}
+      {sheet.stages.map((st) => (
+        <div key={st.index} className="stage-parts">
+          <h3 className="subhead">{`${st.title}${st.onBench ? ' (on the bench)' : ''}`}</h3>
           <PartsTables resistors={st.resistors} capacitors={st.capacitors} />
         </div>
       ))}
@@ -103,7 +102,7 @@ export function BuildSheetPanel() {
       <p className="decoupling">{`Total B+ current ${milliamps(sheet.totalBplusAmps)}${sheet.outputBplusAmps > 0 ? `, and ${milliamps(sheet.outputBplusAmps)} for the output stage ahead of the filter (${milliamps(sheet.totalBplusAmps + sheet.outputBplusAmps)} in all)` : ''}.`}</p>
       {sheet.filter.ok ? (
         <p data-testid="filter" className="decoupling">
-          {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}.${sheet.filteredOp ? ` Stage 1 then sits at Va ${volts(sheet.filteredOp.va)}, Ia ${milliamps(sheet.filteredOp.ia)}.` : ''} `}
+          {`Drop ${volts(sheet.filter.dropVolts)} at ${milliamps(sheet.filter.amps)}: the stage sees ${volts(sheet.filter.stageBplus)}; ripple down ${(-sheet.filter.ripple100Db).toFixed(1)} dB at 100 Hz, ${(-sheet.filter.ripple120Db).toFixed(1)} dB at 120 Hz; R dissipates ${watts(sheet.filter.resistorWatts)}.${sheet.filteredOp ? ` The bench's stage then sits at Va ${volts(sheet.filteredOp.va)}, Ia ${milliamps(sheet.filteredOp.ia)}.` : ''} `}
           <button type="button" onClick={() => { if (sheet.filter.ok) { editField('bplus', sheet.filter.stageBplus.toFixed(1)); settleField('bplus'); } }}>Use this B+ for the stage</button>
         </p>
       ) : <p className="field-error" role="alert">{sheet.filter.message}</p>}

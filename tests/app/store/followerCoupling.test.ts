@@ -45,13 +45,17 @@ describe('a capacitor-coupled cathode follower', () => {
     store.getState().showStage(1);
     expect(store.getState().followerBench!.vgrid).toBe(store.getState().design.stage2.coupling!.vbias);
     store.getState().editField('fVbias', '120');
+    // The typing pauses: the whole amplifier (whose parts the sheet lists) catches up.
+    store.getState().settleAnalysis();
     const s = store.getState();
     expect(s.design.stage2.coupling!.vbias).toBe(120);
     expect(s.followerBench!.vgrid).toBe(120);
     const sheet = buildSheetOf(s);
-    const refs = [...sheet.resistors.map((r) => r.ref), ...sheet.capacitors.map((c) => c.ref)];
+    const resistors = sheet.stages.flatMap((st) => st.resistors);
+    const capacitors = sheet.stages.flatMap((st) => st.capacitors);
+    const refs = [...resistors.map((r) => r.ref), ...capacitors.map((c) => c.ref)];
     expect(refs).toEqual(expect.arrayContaining(['Rg2', 'Rd2a', 'Rd2b', 'Cc2', 'Cd2']));
-    const cc = sheet.capacitors.find((c) => c.ref === 'Cc2')!;
+    const cc = capacitors.find((c) => c.ref === 'Cc2')!;
     // Running, the capacitor holds the plate's DC less the grid's; cold, the plate sits at B+.
     expectClose(cc.volts, s.analysis.solution.op.va - 120, { rel: 1e-9 }, 'Cc running');
     expectClose(cc.voltsAtSwitchOn, s.design.bplus - 120, { rel: 1e-9 }, 'Cc cold');

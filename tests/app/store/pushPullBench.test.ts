@@ -115,7 +115,7 @@ describe('the pair in the amplifier, with its phase splitter', () => {
     expect(s.design.output.splitter).toMatchObject({ kind: 'long-tailed-pair', rk: 470, rtail: 10e3 });
     if (!s.amplifier?.result.ok) throw new Error('the amplifier solves');
     const sheet = buildSheetOf(s);
-    const splitter = sheet.otherStages.find((st) => st.title.startsWith('Phase splitter'))!;
+    const splitter = sheet.stages.find((st) => st.title.startsWith('Phase splitter'))!;
     expect(splitter.resistors.map((r) => r.ref)).toEqual(['Ras1', 'Ras2', 'Rks', 'Rtail', 'Rgs', 'Rd1', 'Rd2']);
     // Both sections of one 12AU7 (the driver's tube is a 12AU7 too): sections counted across the amplifier.
     const au7 = sheet.tubes.find((t) => t.tube.id === '12AU7')!;
@@ -164,7 +164,7 @@ describe('a direct-coupled splitter', () => {
     const before = s.amplifier.result.stages[names.indexOf('splitter') - 1]!;
     // The grid at the plate before it: Vk = Va(before) − |Vgk| (Kirchhoff round the grid).
     expectClose(st.op.vk + st.op.vgk, before.outputDc, { rel: 1e-9 }, 'grid at the plate before');
-    const parts = buildSheetOf(s).otherStages.find((x) => x.title.startsWith('Phase splitter'))!;
+    const parts = buildSheetOf(s).stages.find((x) => x.title.startsWith('Phase splitter'))!;
     expect(parts.resistors.map((r) => r.ref)).toEqual(['Ras', 'Rks']);
     s.editField('rl', '220k');
     expect(store.getState().errors.rl).toMatch(/no RL to give/);
