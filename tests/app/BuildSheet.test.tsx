@@ -24,6 +24,18 @@ describe('the build sheet', () => {
     expect(sheet.getByTestId('elevation').textContent).toMatch(/within every rating with the heaters at ground/);
   });
 
+  it('with the bench mid-chain, each capacitor is listed once: the one into the next stage is that stage\'s Cc, Cout leaves the last voltage stage', async () => {
+    const { buildSheetOf } = await import('../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    store.getState().showStage(0);
+    const sheet = buildSheetOf(store.getState());
+    expect(sheet.stages.map((st) => [st.title, st.onBench])).toEqual([['Stage 1, 12AX7 gain stage', true], ['Stage 2, 12AU7 gain stage', false]]);
+    const refs = sheet.stages.flatMap((st) => [...st.resistors, ...st.capacitors].map((x) => x.ref));
+    expect(new Set(refs).size).toBe(refs.length);
+    expect(sheet.stages[0]!.capacitors.map((c) => c.ref)).toEqual(['Cc1']);
+    expect(sheet.stages[1]!.capacitors.map((c) => c.ref)).toEqual(['Cc2', 'Ck2', 'Cout']);
+  });
+
   it('a heater supply below the heater voltage and a corner of 0 Hz get specific messages', async () => {
     const store = createWorkbenchStore();
     const user = userEvent.setup();
