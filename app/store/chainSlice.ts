@@ -63,7 +63,8 @@ export const createChainSlice: StateCreator<WorkbenchState, [], [], ChainSlice> 
       }
       // The follower joins its gain stage on the bench, with the bench's own rules for a new follower's Rk.
       apply(selectStage(d, g), 'No follower was added');
-      if (get().chainNote === null) get().setStage2({ kind: 'follower' });
+      // Direct-coupled, as the menu says: a coupling the bench held from an earlier follower is not carried over.
+      if (get().chainNote === null) get().setStage2({ kind: 'follower', coupling: undefined });
     },
     dropStage: (i) => apply(removeStage(get().design, i), 'The amplifier keeps at least one gain stage'),
     shiftStage: (i, dir) => apply(moveStage(get().design, i, dir), dir < 0 ? 'The first stage has nothing before it' : 'The last stage has nothing after it'),

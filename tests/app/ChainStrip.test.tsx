@@ -138,6 +138,24 @@ describe('the amplifier strip', () => {
     act(() => fireEvent.change(editor(), { target: { value: '220k' } }));
     act(() => fireEvent.blur(editor()));
     expect(store.getState().design.output.rg).toBe(220e3);
+    // Its cathode resistor is on the drawing with its value; with fixed bias the grid returns to the bias voltage instead.
+    expect(drawing().getByRole('button', { name: `Output stage Rk ${ohms(store.getState().design.output.rk)}: change` })).toBeTruthy();
+    act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, bias: 'fixed', vg: -24 } }));
+    expect(drawing().queryByRole('button', { name: /^Output stage Rk/ })).toBeNull();
+    act(() => fireEvent.click(drawing().getByRole('button', { name: 'Output stage grid held at −24 V: change' })));
+    expect((editor() as HTMLInputElement).value).toBe('-24');
+  });
+
+  it('the menu\'s follower is direct-coupled, as it says, even after a capacitor-coupled follower was on the bench', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => fireEvent.change(screen.getByLabelText('Add', { exact: true }), { target: { value: 'follower-capacitor' } }));
+    expect(store.getState().design.stage2.coupling).toBeDefined();
+    act(() => fireEvent.click(screen.getByRole('button', { name: 'Add a cathode follower direct-coupled to Stage 1\'s plate' })));
+    const list = voltageStages(store.getState().design);
+    expect(list.map((p) => p.kind)).toEqual(['common-cathode', 'follower', 'common-cathode', 'follower']);
+    expect(list[1]).not.toHaveProperty('coupling', expect.anything());
+    expect(list[3]).toHaveProperty('coupling', expect.anything());
   });
 
   it('on a stage in the middle, the amplifier-end boxes say what this stage really sees', () => {

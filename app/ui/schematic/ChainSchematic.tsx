@@ -111,7 +111,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   ) : null;
   const end = design.drivesOutput ? (
     <Cell key="output" x0={x} width={WIDTH.output} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull (one drawn)` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={openOutput}>
-      <OutputCell x0={x} cc={pair ? o.splitter.cc : design.cout} ccField={pair ? 'sCc' : 'cout'} rg={o.rg} bplus={o.bplus} tubeId={pair ? `${o.tubeId} × 2` : o.tubeId} speakerOhms={o.speakerOhms} value={valuesOf('Output stage', openOutput)} />
+      <OutputCell x0={x} cc={pair ? o.splitter.cc : design.cout} ccField={pair ? 'sCc' : 'cout'} rg={o.rg} bias={o.bias === 'fixed' ? { kind: 'fixed', vg: o.vg } : { kind: 'cathode', rk: o.rk }} bplus={o.bplus} tubeId={pair ? `${o.tubeId} × 2` : o.tubeId} speakerOhms={o.speakerOhms} value={valuesOf('Output stage', openOutput)} />
     </Cell>
   ) : Number.isFinite(design.rl) ? (
     <g key="load">

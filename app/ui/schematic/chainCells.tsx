@@ -18,7 +18,8 @@ import type { SplitterPlan } from '../../store/outputPlan';
 export const RAIL = 30;
 export const GRID = 120;
 const PLATE_OUT = 84;
-const CATHODE_OUT = 156;
+/** Where a cathode's output is taken: on its lead between the tube and Rk's body. */
+const CATHODE_OUT = GRID + 27;
 export const GROUND = 200;
 export const H = 246;
 export const LEAD_IN = 34;
@@ -147,17 +148,19 @@ export function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | n
       <Wire points={[[cx, PLATE_OUT], [x0 + WIDTH.splitter, PLATE_OUT], [x0 + WIDTH.splitter, GRID]]} />
       <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
       <Ground x={cx} y={GROUND} />
-      {value('sRk', 'Rk', cx - 12, 170, ohms(sp.rk), 'end')}
+      {/* The cathode's values stand right of it, clear of the grid leak's. */}
+      {value('sRk', 'Rk', cx + 12, 172, ohms(sp.rk))}
       {ltp ? (
         <>
-          {value('sRtail', 'tail', cx - 12, 183, `+ ${ohms(sp.rtail)}`, 'end')}
-          {value('sRa2', 'second Ra', cx + 12, 60, `2nd ${ohms(sp.ra2)}`)}
+          {value('sRtail', 'tail', cx + 12, 185, `+ ${ohms(sp.rtail)}`)}
+          {value('sRa2', 'second Ra', cx - 12, 73, `2nd ${ohms(sp.ra2)}`, 'end')}
         </>
       ) : (
         <>
           <Dot x={cx} y={CATHODE_OUT} />
           <Wire points={[[cx, CATHODE_OUT], [x0 + WIDTH.splitter - 8, CATHODE_OUT]]} />
-          {label(x0 + WIDTH.splitter - 10, CATHODE_OUT - 5, 'in phase →', 'end')}
+          {/* Under its wire, clear of the tube: the wire itself leads on to the pair's second grid. */}
+          {label(cx + 12, CATHODE_OUT + 12, 'in phase')}
         </>
       )}
       {value('sBplus', 'B+', x0 + 4, RAIL - 8, `B+ ${volts(sp.bplus)}`)}
@@ -166,13 +169,13 @@ export function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | n
 }
 
 /** The output stage: its coupling capacitor (`ccField` names whose box holds it) and grid resistor, the tube and its transformer. */
-export function OutputCell({ x0, cc, ccField, rg, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
+export function OutputCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
   const cx = x0 + 110;
   const r = 26;
   return (
     <>
       <Coupling x0={x0} cc={cc} value={value} field={ccField} />
-      <GridLeak x0={x0} rg={rg} value={value} field="oRg" />
+      <GridLeak x0={x0} rg={rg} value={value} field="oRg" {...(bias.kind === 'fixed' ? { to: { field: 'oVg' as const, volts: bias.vg } } : {})} />
       <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, GRID + 8], [cx - r, GRID + 8]]} />
       <Pentode cx={cx} cy={GRID} r={r} />
       <Wire points={[[x0 + 64, RAIL], [cx, RAIL], [cx, RAIL + 10]]} />
@@ -181,7 +184,8 @@ export function OutputCell({ x0, cc, ccField, rg, bplus, tubeId, speakerOhms, va
       <Winding x={cx + 22} y1={RAIL + 10} y2={GRID - r - 4} side={-1} turns={4} />
       {value('oSpeaker', 'speaker', cx + 30, 62, `${speakerOhms} Ω`)}
       {value('oBplus', 'B+', x0 + 66, RAIL - 8, `B+ ${volts(bplus)}`)}
-      <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
+      {bias.kind === 'cathode' ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}
+      {bias.kind === 'cathode' && value('oRk', 'Rk', cx - 12, 176, ohms(bias.rk), 'end')}
       <Ground x={cx} y={GROUND} />
       {label(x0 + 150, H - 16, tubeId, 'middle')}
     </>
