@@ -1,4 +1,4 @@
-import { capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
+import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
 import type { PreferredSeries } from '../parts/preferredValues';
 import { followerZout } from '../stage/gainFormulas';
 import type { OutputAnalysis } from './analyzeOutput';
@@ -28,7 +28,7 @@ export interface OutputPartsList {
  * What to order for the output stage. Resistors and the bypass capacitor use
  * the voltage stage's rules (power and voltage ratings twice the worst case,
  * common practice). The bypass is sized so that its reactance equals the
- * impedance it shunts at CATHODE_BYPASS_CORNER_HZ: Rk in parallel with the
+ * impedance it shunts at CATHODE_BYPASS_CORNER_HZ (then the next E12 value up): Rk in parallel with the
  * cathode's own impedance, (rp + Zpri)/(μ + 1) (the cathode-follower formula,
  * Langford-Smith, RDH4 ch. 13).
  */
@@ -40,7 +40,8 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
     resistors.push(resistorLine('Rk', 'cathode resistor', design.rk, op.ik, series));
     const rkPreferred = resistors[0]!.preferred;
     const shunted = followerZout(op.mu, op.rp + design.zPrimary, rkPreferred);
-    const ck = 1 / (2 * Math.PI * CATHODE_BYPASS_CORNER_HZ * shunted);
+    // Ordered at the next E12 value up (capacitors come in E12 values, common practice), so the corner lands at or below the one asked.
+    const ck = capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred;
     capacitors.push(capacitorLine('Ck', 'cathode bypass', ck, op.vk, 0, '+ to cathode'));
   }
   resistors.push(resistorLine('Rg', design.bias === 'fixed' ? 'grid resistor to the bias supply' : 'grid resistor', design.rg, 0, series));

@@ -1,4 +1,4 @@
-import { capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
+import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
 import type { PreferredSeries } from '../parts/preferredValues';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { CATHODE_BYPASS_CORNER_HZ } from '../output/outputParts';
@@ -49,7 +49,8 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     const rk = resistors[0]!.preferred;
     const gk = cathodeConductance(a);
     const shunted = gk > 0 ? 1 / (1 / rk + gk) : rk;
-    capacitors.push(capacitorLine('Ck', 'cathode bypass, shared', 1 / (2 * Math.PI * CATHODE_BYPASS_CORNER_HZ * shunted), s.vk, 0, '+ to cathode'));
+    // Ordered at the next E12 value up (common practice), so the corner lands at or below the one asked.
+    capacitors.push(capacitorLine('Ck', 'cathode bypass, shared', capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred, s.vk, 0, '+ to cathode'));
   }
   resistors.push(resistorLine('Rg1, Rg2', d.bias === 'fixed' ? 'grid resistors to the bias supply (one per tube)' : 'grid resistors (one per tube)', d.rg, 0, series));
   return {
