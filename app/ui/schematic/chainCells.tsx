@@ -59,6 +59,21 @@ function GridLeak({ x0, rg, value, field, to }: { x0: number; rg: number; value:
   );
 }
 
+/** A triode with its plate resistor from the rail, its plate taken to the cell's right edge and down to the next grid's height. */
+function PlateLoad({ x0, width, cx, r, ra, field, value }: { x0: number; width: number; cx: number; r: number; ra: number; field: FieldName; value: ValueLabel }) {
+  return (
+    <>
+      <Triode cx={cx} cy={GRID} r={r} />
+      <Wire points={[[x0, RAIL], [x0 + width, RAIL]]} />
+      <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
+      {value(field, 'Ra', cx - 12, 60, ohms(ra), 'end')}
+      <Dot x={cx} y={PLATE_OUT} />
+      <Wire points={[[cx, PLATE_OUT], [x0 + width, PLATE_OUT], [x0 + width, GRID]]} />
+    </>
+  );
+}
+
 /** A common-cathode gain stage: its coupling and leak (from the second stage on), plate and cathode parts, B+. */
 export function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: ValueLabel }) {
   const cx = x0 + 112;
@@ -68,13 +83,7 @@ export function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: Val
       <Coupling x0={x0} cc={p.cc} value={value} field="cin" />
       <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
       {p.cc !== null && <GridLeak x0={x0} rg={p.rg} value={value} field="rg" />}
-      <Triode cx={cx} cy={GRID} r={r} />
-      <Wire points={[[x0, RAIL], [x0 + WIDTH.gain, RAIL]]} />
-      <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
-      <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
-      {value('ra', 'Ra', cx - 12, 60, ohms(p.ra), 'end')}
-      <Dot x={cx} y={PLATE_OUT} />
-      <Wire points={[[cx, PLATE_OUT], [x0 + WIDTH.gain, PLATE_OUT], [x0 + WIDTH.gain, GRID]]} />
+      <PlateLoad x0={x0} width={WIDTH.gain} cx={cx} r={r} ra={p.ra} field="ra" value={value} />
       {p.rk > 0 ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}
       <Ground x={cx} y={GROUND} />
       {p.rk > 0 && value('rk', 'Rk', cx - 12, 176, ohms(p.rk), 'end')}
@@ -139,13 +148,7 @@ export function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | n
       <Coupling x0={x0} cc={cc} value={value} field="cout" />
       <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
       {sp.coupling === 'capacitor' && <GridLeak x0={x0} rg={sp.rg} value={value} field="sRg" to={{ field: 'sVgrid', volts: sp.vgrid }} />}
-      <Triode cx={cx} cy={GRID} r={r} />
-      <Wire points={[[x0, RAIL], [x0 + WIDTH.splitter, RAIL]]} />
-      <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
-      <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
-      {value('sRa', 'Ra', cx - 12, 60, ohms(sp.ra), 'end')}
-      <Dot x={cx} y={PLATE_OUT} />
-      <Wire points={[[cx, PLATE_OUT], [x0 + WIDTH.splitter, PLATE_OUT], [x0 + WIDTH.splitter, GRID]]} />
+      <PlateLoad x0={x0} width={WIDTH.splitter} cx={cx} r={r} ra={sp.ra} field="sRa" value={value} />
       <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
       <Ground x={cx} y={GROUND} />
       {/* The cathode's values stand right of it, clear of the grid leak's. */}
