@@ -74,14 +74,22 @@ export const ChainSchematic = memo(function ChainSchematic() {
   const setStageKind = useWorkbench((s) => s.setStageKind);
   const frame = useRef<HTMLDivElement>(null);
   const [editing, setEditing] = useState<{ field: FieldName; at: { left: string; top: string } } | null>(null);
-  /** Value labels for one stage: `stage` names it for a screen reader, `open` puts it on the bench. */
-  const valuesOf = (stage: string, open: () => void): ValueLabel => (field, name, x, y, text, anchor = 'start') => (
-    <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|to|2nd|\+) /, '')}`} onEdit={(at) => {
-      const spot = editorSpot(at, frame.current);
-      open();
-      setEditing({ field, at: spot });
-    }} />
-  );
+  // One value-drawing function per stage, kept across renders, so the cells (memoised) redraw only when their own values change.
+  const labels = useRef(new Map<string, ValueLabel>()).current;
+  /** Value labels for one stage: `stage` names it (for a screen reader, and uniquely), `open` puts it on the bench. */
+  const valuesOf = (stage: string, open: () => void): ValueLabel => {
+    const hit = labels.get(stage);
+    if (hit) return hit;
+    const made: ValueLabel = (field, name, x, y, text, anchor = 'start') => (
+      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|to|2nd|\+) /, '')}`} onEdit={(at) => {
+        const spot = editorSpot(at, frame.current);
+        open();
+        setEditing({ field, at: spot });
+      }} />
+    );
+    labels.set(stage, made);
+    return made;
+  };
   const list = voltageStages(design);
   const bench = benchIndex(design);
   const followerOnBench = design.stage2.kind !== 'none';

@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { memo, type ReactNode } from 'react';
 import { Capacitor, Resistor, Winding } from './parts';
 import { Pentode, Triode } from './tubes';
 import { Dot, Ground, Wire } from './wiring';
@@ -36,6 +36,18 @@ export type ValueLabel = (field: FieldName, name: string, x: number, y: number, 
 export const label = (x: number, y: number, text: string, anchor: Anchor = 'start') => (
   <text x={x} y={y} fontSize={10.5} fill={MUTED} textAnchor={anchor}>{text}</text>
 );
+
+/**
+ * Props equal entry by entry, objects one level down (a stage's plan is
+ * rebuilt on every change of the design; its values are what matter): a
+ * cell is drawn again only when its own stage changed, so a drag on one
+ * stage does not redraw the others.
+ */
+function sameProps<P extends object>(a: P, b: P): boolean {
+  const same = (x: unknown, y: unknown) => Object.is(x, y) || (typeof x === 'object' && typeof y === 'object' && x !== null && y !== null && Object.keys(x).length === Object.keys(y).length && Object.entries(x).every(([k, v]) => Object.is(v, (y as Record<string, unknown>)[k])));
+  const ka = Object.keys(a) as (keyof P)[];
+  return ka.length === Object.keys(b).length && ka.every((k) => same(a[k], b[k]));
+}
 
 /** A capacitor across the cell's input at grid height, or a plain wire for direct coupling. */
 function Coupling({ x0, cc, value, field }: { x0: number; cc: number | null; value: ValueLabel; field: FieldName }) {
@@ -75,7 +87,7 @@ function PlateLoad({ x0, width, cx, r, ra, field, value }: { x0: number; width: 
 }
 
 /** A common-cathode gain stage: its coupling and leak (from the second stage on), plate and cathode parts, B+. */
-export function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: ValueLabel }) {
+export const GainCell = memo(function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: ValueLabel }) {
   const cx = x0 + 112;
   const r = 22;
   return (
@@ -98,14 +110,14 @@ export function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: Val
       {value('bplus', 'B+', x0 + 4, RAIL - 8, `B+ ${volts(p.bplus)}`)}
     </>
   );
-}
+}, sameProps);
 
 /** A follower's cell is wider when capacitor-coupled: its capacitor and leak stand before the tube. */
 export const cellWidth = (p: FollowerPlan | GainPlan) => (p.kind === 'follower' ? WIDTH.follower + (p.coupling ? FOLLOWER_COUPLING_WIDTH : 0) : WIDTH.gain);
 const FOLLOWER_COUPLING_WIDTH = 46;
 
 /** A cathode follower: its grid straight from the plate before it, or through its capacitor into its leak, returned to the divider that holds it. */
-export function FollowerCell({ x0, p, value }: { x0: number; p: FollowerPlan; value: ValueLabel }) {
+export const FollowerCell = memo(function FollowerCell({ x0, p, value }: { x0: number; p: FollowerPlan; value: ValueLabel }) {
   const c = p.coupling;
   const cx = x0 + 54 + (c ? FOLLOWER_COUPLING_WIDTH : 0);
   const r = 22;
@@ -131,7 +143,7 @@ export function FollowerCell({ x0, p, value }: { x0: number; p: FollowerPlan; va
       <Wire points={[[cx, CATHODE_OUT], [x0 + width, CATHODE_OUT], [x0 + width, GRID]]} />
     </>
   );
-}
+}, sameProps);
 
 /**
  * The phase splitter before a pair: fed through Cout into its leak (returned
@@ -139,7 +151,7 @@ export function FollowerCell({ x0, p, value }: { x0: number; p: FollowerPlan; va
  * long-tailed pair, the first triode with the tail below; the second is
  * named), and two outputs to the pair's grids.
  */
-export function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | null; sp: SplitterPlan; value: ValueLabel }) {
+export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | null; sp: SplitterPlan; value: ValueLabel }) {
   const cx = x0 + 100;
   const r = 22;
   const ltp = sp.kind === 'long-tailed-pair';
@@ -169,10 +181,10 @@ export function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | n
       {value('sBplus', 'B+', x0 + 4, RAIL - 8, `B+ ${volts(sp.bplus)}`)}
     </>
   );
-}
+}, sameProps);
 
 /** The output stage: its coupling capacitor (`ccField` names whose box holds it) and grid resistor, the tube and its transformer. */
-export function OutputCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
+export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
   const cx = x0 + 110;
   const r = 26;
   return (
@@ -193,10 +205,10 @@ export function OutputCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOh
       {label(x0 + 150, H - 16, tubeId, 'middle')}
     </>
   );
-}
+}, sameProps);
 
 /** A resistive load after the last voltage stage (the RL box). */
-export function LoadCell({ x0, rl, value }: { x0: number; rl: number; value: ValueLabel }) {
+export const LoadCell = memo(function LoadCell({ x0, rl, value }: { x0: number; rl: number; value: ValueLabel }) {
   return (
     <>
       <Resistor x={x0 + 24} y1={GRID} y2={GROUND - 8} />
@@ -205,4 +217,4 @@ export function LoadCell({ x0, rl, value }: { x0: number; rl: number; value: Val
       {value('rl', 'RL', x0 + 34, GRID + 44, `RL ${ohms(rl)}`)}
     </>
   );
-}
+}, sameProps);
