@@ -144,6 +144,12 @@ describe('the amplifier strip', () => {
     expect(drawing().queryByRole('button', { name: /^Output stage Rk/ })).toBeNull();
     act(() => fireEvent.click(drawing().getByRole('button', { name: 'Output stage grid held at −24 V: change' })));
     expect((editor() as HTMLInputElement).value).toBe('-24');
+    act(() => fireEvent.keyDown(editor(), { key: 'Escape' }));
+    // The source's impedance, at the input.
+    act(() => fireEvent.click(drawing().getByRole('button', { name: `Source Rs ${ohms(store.getState().design.rsource)}: change` })));
+    act(() => fireEvent.change(editor(), { target: { value: '47k' } }));
+    act(() => fireEvent.keyDown(editor(), { key: 'Enter' }));
+    expect(store.getState().design.rsource).toBe(47e3);
   });
 
   it('the menu\'s follower is direct-coupled, as it says, even after a capacitor-coupled follower was on the bench', () => {

@@ -7,6 +7,7 @@ import { useWorkbench } from '../../store/StoreProvider';
 import type { FieldName } from '../../store/fields';
 import { benchIndex, voltageStages } from '../../store/stagePlans';
 import { drivesPair } from '../../store/outputPlan';
+import { ohms } from '../../format';
 
 const INK = '#1d2329';
 /** The in-place editor's width, px (as styled). */
@@ -81,7 +82,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
     const hit = labels.get(stage);
     if (hit) return hit;
     const made: ValueLabel = (field, name, x, y, text, anchor = 'start') => (
-      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|to|2nd|\+) /, '')}`} onEdit={(at) => {
+      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|Rs|to|2nd|\+) /, '')}`} onEdit={(at) => {
         const spot = editorSpot(at, frame.current);
         open();
         setEditing({ field, at: spot });
@@ -132,6 +133,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
       <svg className="chain-schematic" preserveAspectRatio="xMinYMid meet" viewBox={`0 0 ${width} ${H}`} role="group" aria-label={`Schematic of the whole amplifier, ${list.length + (design.drivesOutput ? 1 : 0) + (pair ? 1 : 0)} stages`}>
         <Wire points={[[4, GRID], [LEAD_IN, GRID]]} />
         {label(4, GRID - 8, 'in')}
+        {valuesOf('Source', () => undefined)('rsource', 'Rs', 4, GRID + 16, `Rs ${ohms(design.rsource)}`)}
         {cells}
         {splitter}
         {end}

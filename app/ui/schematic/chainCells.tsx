@@ -22,7 +22,7 @@ const PLATE_OUT = 84;
 const CATHODE_OUT = GRID + 27;
 export const GROUND = 200;
 export const H = 246;
-export const LEAD_IN = 34;
+export const LEAD_IN = 52;
 export const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 60 } as const;
 /** Where a cell's coupling capacitor ends and its grid leak stands, from the cell's left edge. */
 const CC_END = 36;
