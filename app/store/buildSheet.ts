@@ -26,7 +26,10 @@ export const DEFAULT_BUILD: BuildInputs = { cornerHz: 5, heaterSupplyVolts: 12.6
 
 /** One stage's parts on the sheet, and whether it is the stage on the bench. */
 export interface SheetStage extends StageParts {
+  /** In the bench's block: its gain stage, and the follower riding with it (their figures are the bench's own). */
   readonly onBench: boolean;
+  /** The stage whose chart the bench shows. */
+  readonly shown: boolean;
 }
 
 export interface BuildSheet {
@@ -87,13 +90,14 @@ function compute(s: WorkbenchState): BuildSheet {
   const bench = benchIndex(d);
   // The bench's block: its stage and the follower riding with it (their currents are the bench's own, solved live).
   const block = new Set(d.stage2.kind !== 'none' ? [bench, bench + 1] : [bench]);
-  const shown = (i: number) => d.stageKind !== 'output' && (i === bench || (d.stageKind === 'follower' && i === bench + 1) || (d.stageKind === 'voltage' && d.stage2.kind !== 'none' && i === bench + 1));
+  const inBlock = (i: number) => d.stageKind !== 'output' && block.has(i);
+  const shown = (i: number) => (d.stageKind === 'voltage' && i === bench) || (d.stageKind === 'follower' && i === bench + 1);
   const view = s.amplifier;
   const amp = view?.result.ok ? view.result : null;
   const stages: SheetStage[] = amp && view
     ? amplifierParts(view.input, amp, { series: d.series, ...(d.drivesOutput ? {} : Number.isFinite(d.rl) || d.cout !== null ? { loadCoupling: d.cout } : {}), unsized: { cc: IDEAL_CC, cornerHz: inp.cornerHz } })
-        .map((p) => ({ ...p, onBench: shown(p.index) }))
-    : [{ index: bench, title: `Stage ${bench + 1}, ${d.tubeId} gain stage`, onBench: true, ...stagePartsList(checked, sol, d.series) }];
+        .map((p) => ({ ...p, onBench: inBlock(p.index), shown: shown(p.index) }))
+    : [{ index: bench, title: `Stage ${bench + 1}, ${d.tubeId} gain stage`, onBench: true, shown: true, ...stagePartsList(checked, sol, d.series) }];
   // Every voltage stage's tube, and the splitter's sections, for the heaters (envelopes counted across the whole amplifier).
   const pair = drivesPair(d);
   const splitterTube = pair ? s.registry.lookup(d.output.splitter.tubeId) : undefined;

@@ -36,6 +36,16 @@ describe('the build sheet', () => {
     expect(sheet.stages[1]!.capacitors.map((c) => c.ref)).toEqual(['Cc2', 'Ck2', 'Cout']);
   });
 
+  it('with the follower on the bench, its parts are the ones marked on the bench, as its card is', async () => {
+    const { buildSheetOf } = await import('../../app/store/buildSheet');
+    const store = createWorkbenchStore();
+    store.getState().setStage2({ kind: 'follower' });
+    store.getState().showStage(2);
+    expect(store.getState().design.stageKind).toBe('follower');
+    const sheet = buildSheetOf(store.getState());
+    expect(sheet.stages.filter((st) => st.shown).map((st) => st.title)).toEqual(['Stage 3, 12AU7 cathode follower']);
+  });
+
   it('a heater supply below the heater voltage and a corner of 0 Hz get specific messages', async () => {
     const store = createWorkbenchStore();
     const user = userEvent.setup();

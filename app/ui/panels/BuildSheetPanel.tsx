@@ -41,7 +41,7 @@ export function BuildSheetPanel() {
       {sheet.partial ? <p className="field-error">{`Only the bench's stage is listed: ${sheet.partial}`}</p> : null}
       {sheet.stages.map((st) => (
         <div key={st.index} className="stage-parts">
-          <h3 className="subhead">{`${st.title}${st.onBench ? ' (on the bench)' : ''}`}</h3>
+          <h3 className="subhead">{`${st.title}${st.shown ? ' (on the bench)' : ''}`}</h3>
           <PartsTables resistors={st.resistors} capacitors={st.capacitors} />
         </div>
       ))}
