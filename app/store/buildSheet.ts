@@ -38,6 +38,13 @@ export interface BuildSheet {
   /** Why only the bench's stage is listed (the rest of the amplifier does not solve), or null. */
   readonly partial: string | null;
   readonly forCorner: ({ ok: true; cin: CapacitorForCorner | null; cout: CapacitorForCorner | null; ck: CapacitorForCorner | null }) | Failure;
+  /**
+   * What each capacitor sized for the corner is on the parts list, and the
+   * box that holds it: the bench's own Cc and Ck; its output capacitor is the
+   * amplifier's Cout when the bench is the last voltage stage, else the next
+   * stage's Cc, which no box on this bench holds (null).
+   */
+  readonly cornerParts: { readonly cin: string; readonly ck: string; readonly cout: { readonly ref: string; readonly box: 'cout' | null } };
   readonly spread: ({ ok: true } & Spread) | Failure;
   readonly tubes: readonly { tube: TubeRecord; options: readonly HeaterOption[]; chosen: HeaterOption; sectionsUsed: number; envelopes: number }[];
   readonly heaters: ({ ok: true } & HeaterPlan) | Failure;
@@ -123,6 +130,7 @@ function compute(s: WorkbenchState): BuildSheet {
     partial: amp || !view ? null : view.result.ok ? null : view.result.message,
     filteredOp: at?.ok ? { va: at.op.va, ia: at.op.ia } : null,
     forCorner: capacitorsForCorner(checked, sol, inp.cornerHz, 'E12'),
+    cornerParts: { cin: `Cc${bench + 1}`, ck: `Ck${bench + 1}`, cout: d.after.length > 0 ? { ref: `Cc${bench + 2}`, box: null } : { ref: 'Cout', box: 'cout' } },
     spread: productionSpread(checked, sol, d.series, { seed: 1, runs: 160 }),
     tubes,
     heaters,

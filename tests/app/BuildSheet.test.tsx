@@ -1,4 +1,6 @@
-import { render, screen, within } from '@testing-library/react';
+import { fireEvent, render, screen, within } from '@testing-library/react';
+import { act } from 'react';
+import { farads } from '../../app/format';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
@@ -44,6 +46,24 @@ describe('the build sheet', () => {
     expect(store.getState().design.stageKind).toBe('follower');
     const sheet = buildSheetOf(store.getState());
     expect(sheet.stages.filter((st) => st.shown).map((st) => st.title)).toEqual(['Stage 3, 12AU7 cathode follower']);
+  });
+
+  it('the capacitors sized for the corner are named as on the parts list; one into the next stage is not written into the amplifier\'s Cout', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const caps = () => [...view.container.querySelectorAll('.corner-caps li')].map((li) => li.textContent ?? '');
+    // The demo's driver (stage 2) is the last voltage stage: its output capacitor is the amplifier's Cout, and Use sets it.
+    expect(caps().map((t) => t.split(':')[0])).toEqual(['Cc2', 'Ck2', 'Cout']);
+    const use = screen.getByRole('button', { name: /^Use .* for Cout$/ });
+    act(() => fireEvent.click(use));
+    const sized = store.getState().design.cout;
+    expect(use.getAttribute('aria-label')).toContain(farads(sized!));
+    // Stage 1 on the bench: its output capacitor is stage 2's Cc; no button writes it into the amplifier's Cout.
+    act(() => store.getState().showStage(0));
+    expect(caps().map((t) => t.split(':')[0])).toEqual(['Cc1', 'Cc2']);
+    expect(caps()[1]).toMatch(/the next stage's coupling/);
+    expect(screen.queryByRole('button', { name: /^Use .* for Cc2$/ })).toBeNull();
+    expect(store.getState().design.cout).toBe(sized);
   });
 
   it('a heater supply below the heater voltage and a corner of 0 Hz get specific messages', async () => {

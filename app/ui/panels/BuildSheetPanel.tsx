@@ -59,10 +59,16 @@ export function BuildSheetPanel() {
           {(['cin', 'ck', 'cout'] as const).map((k) => {
             const c = fc[k];
             if (!c) return null;
+            // Named as on the parts list; a capacitor into the next stage is set with that stage on the bench.
+            const parts = sheet.cornerParts;
+            const ref = k === 'cout' ? parts.cout.ref : parts[k];
+            const box = k === 'cout' ? parts.cout.box : k;
             return (
               <li key={k}>
-                {`${k === 'cin' ? 'Cin' : k === 'ck' ? 'Ck' : 'Cout'}: ${farads(c.exact)} exactly, order ${farads(c.preferred)} (corner ${plain(c.cornerHz)} Hz) `}
-                <button type="button" onClick={() => { editField(k, farads(c.preferred).replace(' ', '').replace('F', '').replace('µ', 'u')); settleField(k); }}>Use</button>
+                {`${ref}: ${farads(c.exact)} exactly, order ${farads(c.preferred)} (corner ${plain(c.cornerHz)} Hz) `}
+                {box ? (
+                  <button type="button" aria-label={`Use ${farads(c.preferred)} for ${ref}`} onClick={() => { editField(box, farads(c.preferred).replace(' ', '').replace('F', '').replace('µ', 'u')); settleField(box); }}>Use</button>
+                ) : <span className="field-hint">{`(the next stage's coupling: set it with that stage on the bench)`}</span>}
               </li>
             );
           })}
