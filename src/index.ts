@@ -86,7 +86,7 @@ export { harmonicAmplitudes, fftInPlace } from './signal/fft';
 export { transferCurve, swingPath } from './signal/transferCurve';
 export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPointError } from './fit/fitTriode';
 export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';
-export { chainStageParts, followerCouplingParts, type StageParts } from './build/chainStageParts';
+export { chainStageParts, type StageParts } from './build/chainStageParts';
 export { gridDivider } from './build/gridDivider';
 export { amplifierParts, type AmplifierPartsOptions } from './build/amplifierParts';
 export { stagePartsList, capacitorsForCorner, capacitorForCorner, bypassResistance, resistorLine, capacitorLine, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';

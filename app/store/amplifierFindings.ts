@@ -21,9 +21,10 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   for (const [i, p] of list.entries()) {
     const name = `Stage ${i + 1}, ${p.tubeId} ${KIND_NAME[p.kind]}`;
     if (i === bench) stages.push({ name, findings: s.analysis.solution.findings });
-    else if (i === bench + 1 && d.stage2.kind !== 'none') {
-      if (link) stages.push({ name, findings: link.findings });
-    } else if (amp?.stages[i]) stages.push({ name, findings: amp.stages[i]!.findings });
+    // The follower riding with it from the bench's own pass while that pass is there (it follows a drag);
+    // when it waits (the output stage on the bench, after a reload) from the whole amplifier's, so its findings never drop out.
+    else if (i === bench + 1 && d.stage2.kind !== 'none' && link) stages.push({ name, findings: link.findings });
+    else if (amp?.stages[i]) stages.push({ name, findings: amp.stages[i]!.findings });
   }
   const splitter = amp && drivesPair(d) ? amp.stages[list.length] : undefined;
   if (splitter) stages.push({ name: `Phase splitter, ${d.output.splitter.tubeId} ${d.output.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'}`, findings: splitter.findings });

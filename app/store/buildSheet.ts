@@ -62,13 +62,13 @@ const cache = new WeakMap<object, { inputs: BuildInputs; design: WorkbenchState[
 /** The last sheet per store (keyed by its stable commit action), served while a drag or typing is under way. */
 const lastSheet = new WeakMap<object, BuildSheet>();
 
-/**
- * The build sheet of the current design, computed by the model once per
- * (analysis, inputs) pair and remembered, so panels can read it freely.
- */
 /** The rail the decoupling filter hangs from: the user's, or the design's B+. */
 export const railOf = (s: WorkbenchState) => s.buildInputs.railVolts ?? s.design.bplus;
 
+/**
+ * The build sheet of the current design, computed by the model once per
+ * (analysis, inputs, amplifier) and remembered, so panels can read it freely.
+ */
 export function buildSheetOf(s: WorkbenchState): BuildSheet {
   const hit = cache.get(s.analysis);
   // The output stage's current and the design's other stages are on the sheet too: an output-only change is a new sheet.
@@ -101,9 +101,10 @@ function compute(s: WorkbenchState): BuildSheet {
   const shown = (i: number) => (d.stageKind === 'voltage' && i === bench) || (d.stageKind === 'follower' && i === bench + 1);
   const view = s.amplifier;
   const amp = view?.result.ok ? view.result : null;
+  // Without an output stage, Cout couples the last voltage stage into RL (or is there with none, to order).
+  const intoLoad = !d.drivesOutput && (Number.isFinite(d.rl) || d.cout !== null) ? { loadCoupling: d.cout } : {};
   const stages: SheetStage[] = amp && view
-    ? amplifierParts(view.input, amp, { series: d.series, ...(d.drivesOutput ? {} : Number.isFinite(d.rl) || d.cout !== null ? { loadCoupling: d.cout } : {}), unsized: { cc: IDEAL_CC, cornerHz: inp.cornerHz } })
-        .map((p) => ({ ...p, onBench: inBlock(p.index), shown: shown(p.index) }))
+    ? amplifierParts(view.input, amp, { series: d.series, ...intoLoad, unsized: { cc: IDEAL_CC, cornerHz: inp.cornerHz } }).map((p) => ({ ...p, onBench: inBlock(p.index), shown: shown(p.index) }))
     : [{ index: bench, title: `Stage ${bench + 1}, ${d.tubeId} gain stage`, onBench: true, shown: true, ...stagePartsList(checked, sol, d.series) }];
   // Every voltage stage's tube, and the splitter's sections, for the heaters (envelopes counted across the whole amplifier).
   const pair = drivesPair(d);
@@ -127,7 +128,7 @@ function compute(s: WorkbenchState): BuildSheet {
   const at = filter.ok ? solveStage({ ...stage, bplus: filter.stageBplus }) : null;
   return {
     stages,
-    partial: amp || !view ? null : view.result.ok ? null : view.result.message,
+    partial: view && !view.result.ok ? view.result.message : null,
     filteredOp: at?.ok ? { va: at.op.va, ia: at.op.ia } : null,
     forCorner: capacitorsForCorner(checked, sol, inp.cornerHz, 'E12'),
     cornerParts: { cin: `Cc${bench + 1}`, ck: `Ck${bench + 1}`, cout: d.after.length > 0 ? { ref: `Cc${bench + 2}`, box: null } : { ref: 'Cout', box: 'cout' } },

@@ -91,7 +91,7 @@ function followerParts(s: FollowerLink, at: PartsContext): Parts {
  * grid's cold), the grid leak to the divider, and the divider with its
  * decoupling. Numbered by the follower's place.
  */
-export function followerCouplingParts(c: { readonly cc: number; readonly rg: number; readonly vbias: number }, n: number, plateDc: number, bplus: number, series: PreferredSeries): Parts {
+function followerCouplingParts(c: { readonly cc: number; readonly rg: number; readonly vbias: number }, n: number, plateDc: number, bplus: number, series: PreferredSeries): Parts {
   const divider = gridDivider({ upper: `Rd${n}a`, lower: `Rd${n}b`, cap: `Cd${n}` }, bplus, c.vbias, series);
   return {
     resistors: [resistorLine(`Rg${n}`, `stage ${n} follower grid leak (to the divider)`, c.rg, 0, series), ...divider.resistors],

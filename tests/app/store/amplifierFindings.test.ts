@@ -25,6 +25,17 @@ describe('one ratings list for the amplifier', () => {
     for (let k = 1; k < list.length; k++) expect(order[list[k]!.severity]).toBeGreaterThanOrEqual(order[list[k - 1]!.severity]);
   });
 
+  it('the follower\'s danger stays in the list when the page reopens on the output stage (the bench\'s own signal pass waits then)', () => {
+    const store = overRatedFollower();
+    store.getState().setDrivesOutput(true);
+    store.getState().setStageKind('output');
+    const reopened = createWorkbenchStore();
+    expect(reopened.getState().loadDocument({ title: 'reopened', design: store.getState().design })).toBeNull();
+    expect(reopened.getState().design.stageKind).toBe('output');
+    const f = benchFindings(reopened.getState()).find((x) => x.kind === 'heater-cathode' && x.stageName === 'Stage 2, 12AX7 cathode follower');
+    expect(f).toMatchObject({ severity: 'danger' });
+  });
+
   it('the build card carries every stage\'s findings, the follower\'s figures and the heater-elevation advice', () => {
     const store = overRatedFollower();
     const sections = cardSections(store.getState());
