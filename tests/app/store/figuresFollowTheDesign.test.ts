@@ -14,6 +14,19 @@ describe('the design title', () => {
     expect(store.getState().title).toMatch(/^2A3 single-ended output, triode-connected, B\+ 330 V/);
   });
 
+  it('a push-pull amplifier is named with its phase splitter, and a pair on its own as a pair', () => {
+    const store = createWorkbenchStore();
+    store.getState().setOutputPair('push-pull');
+    // The splitter is a stage of the amplifier: a title without it misdescribes the build.
+    expect(store.getState().title).toBe('4-stage amplifier: 12AX7 → 12AU7 → 12AU7 split-load splitter → EL34 push-pull output');
+    store.getState().setSplitter({ kind: 'long-tailed-pair' });
+    expect(store.getState().title).toBe('4-stage amplifier: 12AX7 → 12AU7 → 12AU7 long-tailed pair → EL34 push-pull output');
+    store.getState().dropStage(0);
+    store.getState().dropStage(0);
+    store.getState().setStageKind('output');
+    expect(store.getState().title).toMatch(/^EL34 push-pull output, .*plate to plate$/);
+  });
+
   it('a typed title stays through changes; clearing it hands the title back to the design', () => {
     const store = createWorkbenchStore();
     store.getState().dropStage(0);
