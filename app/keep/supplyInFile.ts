@@ -40,6 +40,7 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   }
   const f = raw.feeds;
   if (!isRecord(f) || !isNum(f.output) || !isNum(f.voltage)) return bad('.feeds', 'must name the output and voltage stages\' nodes', f);
+  if (f.splitter !== undefined && !isNum(f.splitter)) return bad('.feeds.splitter', 'must be the phase splitter\'s node (a number), or left out', f.splitter);
   const plan: SupplyPlan = {
     on: raw.on,
     mainsHz: raw.mainsHz as number,
@@ -48,7 +49,8 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
     rectifier,
     input,
     sections,
-    feeds: { output: f.output, voltage: f.voltage },
+    // A file from before the splitter had its own node feeds it from the voltage stages', as it was designed.
+    feeds: { output: f.output, voltage: f.voltage, ...(f.splitter !== undefined ? { splitter: f.splitter as number } : {}) },
     channels: raw.channels as number,
     // Following came after the supply itself: a file without it keeps its typed B+.
     follow: raw.follow === true,

@@ -1,6 +1,7 @@
 import {
   findOutputTube,
   solveAmplifier,
+  solveStagesInPlace,
   STAGE_KIND_LABELS,
   type AmplifierAtLevel,
   type ChainInput,
@@ -12,7 +13,7 @@ import {
 } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import type { BenchDesign } from './analysis';
-import { pushPullDesignOf } from './outputPlan';
+import { drivesPair, pushPullDesignOf } from './outputPlan';
 import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
 
 /** A stage as the chain strip names it. */
@@ -25,6 +26,22 @@ export interface ChainCardName {
   readonly voltageIndex: number | null;
   /** What the stage is to the amplifier: a voltage stage, the phase splitter before a pair, or the output stage. */
   readonly role: 'voltage' | 'splitter' | 'output';
+}
+
+const ROLE_NAME = { splitter: 'Phase splitter', output: 'Output stage' } as const;
+
+/**
+ * A failure of the whole amplifier in the strip's words: the model names a
+ * stage by its place ("Stage 4: …"), the strip calls the splitter and the
+ * output stage by what they are, so the message says "Phase splitter
+ * (12AU7): …" where the builder looks for it.
+ */
+export function namedAsCards(f: Failure, names: readonly ChainCardName[]): Failure {
+  const at = /^stages\.(\d+)(\.|$)/.exec(f.field ?? '');
+  const name = at ? names[Number(at[1])] : undefined;
+  const prefix = at ? `Stage ${Number(at[1]) + 1}: ` : '';
+  if (!name || name.role === 'voltage' || !f.message.startsWith(prefix)) return f;
+  return { ...f, message: `${ROLE_NAME[name.role]} (${name.tube}): ${f.message.slice(prefix.length)}` };
 }
 
 type Tubes = { ok: true; tubes: TubeRecord[] } | (Failure & { stage: number });
@@ -92,6 +109,28 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
   return { input: { source: { rsource: d.rsource }, stages, ...load }, names };
 }
 
+/**
+ * Why a change cannot stand because the phase splitter before a driven pair
+ * could not run after it (its grid driven positive, its plate below its
+ * cathode), named as the strip names it; null when it runs or the change
+ * leaves it alone. It is solved in its place in the amplifier (the pair's
+ * grid leak its load; direct-coupled, the last plate's DC its grid), about a
+ * millisecond, and only when its own values, its load or (direct-coupled) the
+ * voltage stages feeding its grid changed.
+ */
+export function splitterRefusal(next: BenchDesign, prev: BenchDesign, registry: TubeRegistry, voltageChanged: boolean): Failure | null {
+  if (!drivesPair(next)) return null;
+  const sp = next.output.splitter;
+  const touched = sp !== prev.output.splitter || next.output.rg !== prev.output.rg || !drivesPair(prev) || (sp.coupling === 'direct' && voltageChanged);
+  if (!touched) return null;
+  const chain = chainInputOf(next, registry);
+  if (!chain) return null;
+  const placed = solveStagesInPlace(chain.input);
+  if (placed.ok) return null;
+  const at = chain.names.findIndex((n) => n.role === 'splitter');
+  return placed.field?.startsWith(`stages.${at}.`) ? namedAsCards(placed, chain.names) : null;
+}
+
 const sources = new WeakMap<readonly StagePlan[], { rsource: number; registry: TubeRegistry; result: Result<{ ohms: number }> }>();
 
 /**
@@ -136,7 +175,8 @@ export function analyzeAmplifier(d: BenchDesign, registry: TubeRegistry): Amplif
   const chain = chainInputOf(d, registry);
   if (!chain) return null;
   const toSpeaker = d.drivesOutput;
-  const result = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });
+  const solved = solveAmplifier(chain.input, toSpeaker ? { power: 1 } : { outputRms: d.levelRms });
+  const result = solved.ok ? solved : namedAsCards(solved, chain.names);
   const atLevel = result.ok ? (result.atLevel ?? null) : null;
   return {
     input: chain.input,

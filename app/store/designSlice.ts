@@ -1,7 +1,7 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
-import { analyzeAmplifier, type AmplifierView } from './amplifierChain';
+import { analyzeAmplifier, splitterRefusal, type AmplifierView } from './amplifierChain';
 import { analyzeRival, sharedWindow } from './compareSlice';
 import { analyzeFollowerBench, type FollowerBench } from './followerBench';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
@@ -81,6 +81,11 @@ export interface CommitOptions {
   readonly light?: boolean;
   /** Re-run both analyses even where the design part did not change (curve count, rival). */
   readonly force?: boolean;
+  /**
+   * A whole document opened (file, link, autosave): taken as it was kept, so a design
+   * kept before a check existed still opens; the strip then says what cannot run.
+   */
+  readonly opened?: boolean;
 }
 
 /** True when two designs differ only in their output stage, their supply, or which stage is shown. */
@@ -177,7 +182,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   followerRival: null,
   amplifier: analyzeAmplifier(DEMO_DESIGN, registry),
   setDrivesOutput: (on) => {
-    get().commit({ ...get().design, drivesOutput: on });
+    const failure = get().commit({ ...get().design, drivesOutput: on });
+    // Said on the strip, where the box is: the box stays as it was, and why.
+    set({ chainNote: failure ? `${on ? 'The stages were not joined to the output stage' : 'The output stage was not separated'}: ${failure.message}` : null });
   },
   drafts: draftsFor(DEMO_DESIGN),
   errors: {},
@@ -190,6 +197,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (shape) return shape;
     // The follower can be the stage shown only while the bench's stage has one.
     const next = joined.design.stageKind === 'follower' && joined.design.stage2.kind !== 'follower' ? { ...joined.design, stageKind: 'voltage' as const } : joined.design;
+    // The splitter before a driven pair is no bench's stage: it is checked in its place, so a value that stops it is refused like any other.
+    const splitter = opts.opened ? null : splitterRefusal(next, s.design, s.registry, !sameVoltagePart(next, s.design));
+    if (splitter) return splitter;
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};
     // Each stage is analysed only when its part of the design changed, or to
@@ -296,7 +306,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   },
 
   loadDocument: (doc) => {
-    const failure = get().commit(doc.design);
+    const failure = get().commit(doc.design, { opened: true });
     if (failure) return failure;
     // A title that is the design's own automatic one keeps following it; any other was typed.
     const typed = doc.title.trim() !== '' && doc.title !== autoTitle(doc.design);

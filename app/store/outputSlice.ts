@@ -8,6 +8,7 @@ import { DEMO_DESIGN } from './demoDesign';
 import { DESIGN_LIMITS, within } from './designLimits';
 import { currentOutputRegion } from './outputTargets';
 import { nearestInside } from './regionSlice';
+import { withSplitterFed } from './supplyPlan';
 
 /**
  * The transformer-coupled output stage. Its design lives in the bench design
@@ -84,7 +85,9 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const kindChange = patch.kind !== undefined && patch.kind !== sp.kind ? (patch.kind === 'long-tailed-pair' ? LONG_TAILED_START : SPLIT_LOAD_START) : {};
     const next = { ...sp, ...patch, ...kindChange };
     const failure = s.commit({ ...s.design, output: { ...s.design.output, splitter: next } });
-    set({ errors: { ...get().errors, splitter: failure ? `The splitter cannot run so: ${failure.message}` : undefined } });
+    // A refusal from the splitter's own solve already names it.
+    const message = failure && (failure.message.startsWith('Phase splitter') ? failure.message : `The splitter cannot run so: ${failure.message}`);
+    set({ errors: { ...get().errors, splitter: message || undefined } });
     return failure;
   },
 
@@ -95,7 +98,9 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     // Ohm's law: one resistor carrying both cathodes' current is half the one that carried one tube's.
     const rk = o.bias === 'cathode' ? (pair === 'push-pull' ? o.rk / 2 : o.rk * 2) : o.rk;
     const snapped = s.design.snap ? nearestPreferred(rk, s.design.series) : Math.round(rk);
-    s.changeOutput({ pair, rk: within(snapped, DESIGN_LIMITS.output.rk) });
+    // The pair brings its splitter, and the splitter needs a node of the supply (one undo step with the pair).
+    const supply = pair === 'push-pull' ? withSplitterFed(s.design.supply) : s.design.supply;
+    s.commit({ ...s.design, supply, output: { ...o, pair, rk: within(snapped, DESIGN_LIMITS.output.rk) } });
   },
 
   changeOutput: (patch, opts = {}) => {

@@ -18,8 +18,11 @@ export interface SupplyPlan {
   readonly rectifier: Rectifier;
   readonly input: SupplyDesign['input'];
   readonly sections: readonly FilterSection[];
-  /** The node (0 the reservoir, then one per section) feeding the output stage, and the one feeding the voltage stages. */
-  readonly feeds: { readonly output: number; readonly voltage: number };
+  /**
+   * The node (0 the reservoir, then one per section) feeding the output stage, the one feeding the voltage stages, and the
+   * one feeding a driven pair's phase splitter (absent: the voltage stages' node, as before the splitter had its own).
+   */
+  readonly feeds: { readonly output: number; readonly voltage: number; readonly splitter?: number };
   /** Identical channels on the supply (2 for stereo). */
   readonly channels: number;
   /** The stages' B+ follow what their nodes deliver (set after each solve); false: the B+ are typed, and shown beside the nodes'. */
@@ -82,9 +85,11 @@ export function checkPlan(p: SupplyPlan): Failure | null {
   const problem = checkSupply(supplyDesignOf(p));
   if (problem) return problem;
   const nodes = p.sections.length + 1;
-  for (const which of ['output', 'voltage'] as const) {
+  for (const which of ['output', 'voltage', 'splitter'] as const) {
     const k = p.feeds[which];
-    if (!Number.isInteger(k) || k < 0 || k >= nodes) return { ok: false, reason: 'invalid-input', message: `The ${which} stage's node must be 1 to ${nodes}`, field: `feeds.${which}` };
+    if (k === undefined && which === 'splitter') continue;
+    const name = which === 'splitter' ? 'phase splitter' : `${which} stage`;
+    if (!Number.isInteger(k) || k! < 0 || k! >= nodes) return { ok: false, reason: 'invalid-input', message: `The ${name}'s node must be 1 to ${nodes}`, field: `feeds.${which}` };
   }
   if (!Number.isInteger(p.channels) || p.channels < 1 || p.channels > MAX_CHANNELS) {
     return { ok: false, reason: 'invalid-input', message: `Channels must be a whole number from 1 to ${MAX_CHANNELS}`, field: 'channels' };
@@ -92,15 +97,28 @@ export function checkPlan(p: SupplyPlan): Failure | null {
   return null;
 }
 
-/** Which node feeds a bench's stage: the output stage's, or the voltage stages'. */
-export const nodeOf = (p: SupplyPlan, bench: 'voltage' | 'output') => (bench === 'output' ? p.feeds.output : p.feeds.voltage);
+/** Which node feeds a stage of the amplifier: the output stage's, the splitter's, or the voltage stages'. */
+export const nodeOf = (p: SupplyPlan, role: 'voltage' | 'splitter' | 'output') =>
+  role === 'output' ? p.feeds.output : role === 'splitter' ? (p.feeds.splitter ?? p.feeds.voltage) : p.feeds.voltage;
+
+/**
+ * The plan with a node for a splitter that has none yet: the node before the
+ * voltage stages', when there is one after the output stage's (common
+ * practice: the splitter hangs from the decoupling between the output's node
+ * and the input stages', so it sees more of the B+ than they do and its
+ * current does not pass through their last filter resistor); else theirs.
+ */
+export function withSplitterFed(p: SupplyPlan): SupplyPlan {
+  if (p.feeds.splitter !== undefined) return p;
+  const before = p.feeds.voltage - 1;
+  return { ...p, feeds: { ...p.feeds, splitter: before > p.feeds.output ? before : p.feeds.voltage } };
+}
 
 /** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node. */
 export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
   const chain = chainInputOf(d, registry);
   if (!chain) return null;
   const p = d.supply;
-  // The splitter shares the voltage stages' node (common practice: it hangs from the driver's decoupling).
-  const feeds = chain.names.map((n) => nodeOf(p, n.role === 'output' ? 'output' : 'voltage'));
+  const feeds = chain.names.map((n) => nodeOf(p, n.role));
   return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, channels: p.channels }, names: chain.names };
 }

@@ -1,6 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import { bleederFor, parseValue, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result } from '../../src/index';
-import type { ChainCardName } from './amplifierChain';
+import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
 import { compact } from './fields';
@@ -161,7 +161,8 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
       const last = p.sections.length - 1;
       // A stage fed from a node that goes moves to the node before it.
       const node = (k: number) => (k > index ? k - 1 : k);
-      const plan = { ...p, sections: p.sections.filter((_, i) => i !== index), feeds: { output: Math.min(node(p.feeds.output), last), voltage: Math.min(node(p.feeds.voltage), last) } };
+      const feeds = { output: Math.min(node(p.feeds.output), last), voltage: Math.min(node(p.feeds.voltage), last), ...(p.feeds.splitter !== undefined ? { splitter: Math.min(node(p.feeds.splitter), last) } : {}) };
+      const plan = { ...p, sections: p.sections.filter((_, i) => i !== index), feeds };
       if (tryPlan(plan, 'supply')) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
     },
 
@@ -218,7 +219,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
       // Its tangent comes back with it: the drag that may follow solves the supply along it, frame by frame.
       void solver({ ...chain.input, ...(last?.ok ? { start: last.supply.nodes.map((n) => n.dc) } : {}), keepTangent: true }).then((r) => {
         if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
-        const view: SupplyView = { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false };
+        // A stage's failure named as its card is ("Phase splitter (12AU7): …"), not by its place in the model's list.
+        const view: SupplyView = { result: r.ok ? r : namedAsCards(r, chain.names), names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false };
         store.setState({ supplyView: view });
         // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
         // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.

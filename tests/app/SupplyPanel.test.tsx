@@ -142,6 +142,22 @@ describe('the B+ supply on the bench', () => {
     expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1 });
   });
 
+  it('with a push-pull pair, the phase splitter has its own node: chosen beside the others, and its B+ set against its own', async () => {
+    const { store, panel } = bench();
+    expect(panel.queryByLabelText('Phase splitter from')).toBeNull();
+    act(() => store.getState().setOutputPair('push-pull'));
+    const choice = panel.getByLabelText('Phase splitter from') as HTMLSelectElement;
+    expect(choice.value).toBe('1');
+    await waitFor(() => expect(panel.getByText(/^Phase splitter: node 2 gives/)).toBeTruthy(), { timeout: 5000 });
+    // The output stage's line is the output stage's node, not the splitter's (it had been the first 'output' stage listed).
+    expect(panel.getByText(/^Output stage: node 1 gives/)).toBeTruthy();
+    fireEvent.change(choice, { target: { value: '2' } });
+    expect(store.getState().design.supply.feeds.splitter).toBe(2);
+    // Remove the last section: the splitter on node 3 moves to node 2, like the stages.
+    fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 3' }));
+    expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1, splitter: 1 });
+  });
+
   it('with "follow" on, the stages\' B+ are their nodes\' after every solve, read-only with the node named; undo still undoes', async () => {
     const { store, panel } = bench();
     await panel.findByText('The bench\'s B+ are the supply\'s (within 1 %).', {}, { timeout: 5000 });

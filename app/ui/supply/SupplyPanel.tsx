@@ -5,6 +5,8 @@ import { SupplyField } from './SupplyField';
 import { SupplyResults } from './SupplyResults';
 import { HeaterWindings } from './HeaterWindings';
 import { SupplySchematic } from './SupplySchematic';
+import { drivesPair } from '../../store/outputPlan';
+import { nodeOf } from '../../store/supplyPlan';
 
 const rectifierKey = (r: Rectifier) => (r.kind === 'tube' ? `tube:${r.tubeId}` : r.kind);
 const rectifierOf = (key: string): Rectifier => (key.startsWith('tube:') ? { kind: 'tube', tubeId: key.slice(5) } : { kind: key as 'silicon-bridge' | 'silicon-full-wave' });
@@ -20,6 +22,7 @@ export function SupplyPanel() {
   const addSection = useWorkbench((s) => s.addSection);
   const removeSection = useWorkbench((s) => s.removeSection);
   const error = useWorkbench((s) => s.supplyErrors.supply);
+  const pairDriven = useWorkbench((s) => drivesPair(s.design));
   const id = useId();
   const nodes = plan.sections.length + 1;
   const nodeOptions = Array.from({ length: nodes }, (_, k) => <option key={k} value={k}>{k === 0 ? 'node 1 (reservoir)' : `node ${k + 1}`}</option>);
@@ -112,6 +115,12 @@ export function SupplyPanel() {
             <select id={`${id}-fo`} value={plan.feeds.output} onChange={(e) => setSupply({ feeds: { ...plan.feeds, output: Number(e.target.value) } })}>{nodeOptions}</select>
             <label htmlFor={`${id}-fv`}>Voltage stages from</label>
             <select id={`${id}-fv`} value={plan.feeds.voltage} onChange={(e) => setSupply({ feeds: { ...plan.feeds, voltage: Number(e.target.value) } })}>{nodeOptions}</select>
+            {pairDriven ? (
+              <>
+                <label htmlFor={`${id}-fs`}>Phase splitter from</label>
+                <select id={`${id}-fs`} value={nodeOf(plan, 'splitter')} onChange={(e) => setSupply({ feeds: { ...plan.feeds, splitter: Number(e.target.value) } })}>{nodeOptions}</select>
+              </>
+            ) : null}
             <label htmlFor={`${id}-ch`}>Channels</label>
             <select id={`${id}-ch`} value={plan.channels} onChange={(e) => setSupply({ channels: Number(e.target.value) })}>
               {Array.from({ length: MAX_CHANNELS }, (_, k) => <option key={k} value={k + 1}>{k === 0 ? '1 (mono)' : k === 1 ? '2 (stereo)' : k + 1}</option>)}

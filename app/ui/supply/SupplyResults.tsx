@@ -5,6 +5,7 @@ import { SupplyWaves } from './SupplyWaves';
 
 const mv = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
 const SAME_BPLUS_SHARE = 0.01;
+const ROLE_LINE = { voltage: 'Voltage stages', splitter: 'Phase splitter', output: 'Output stage' } as const;
 const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 1e6)} µA`);
 
 /**
@@ -19,6 +20,7 @@ export function SupplyResults() {
   // The two B+ only: the whole design changes on every drag frame, and this table need not follow it.
   const voltageBplus = useWorkbench((s) => s.design.bplus);
   const outputBplus = useWorkbench((s) => s.design.output.bplus);
+  const splitterBplus = useWorkbench((s) => s.design.output.splitter.bplus);
   const useVolts = useWorkbench((s) => s.useSupplyVolts);
   const setSupply = useWorkbench((s) => s.setSupply);
   if (!plan.on) return <div className="supply-results"><p className="field-hint">Not solved: tick “Solve the amplifier on this supply” to see every node’s B+ and ripple.</p></div>;
@@ -35,8 +37,9 @@ export function SupplyResults() {
   const full = r.atFullPower;
   const caps = [plan.input.c, ...plan.sections.map((s) => s.c)];
   const feeding = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => `${n.title} (${n.tube})`);
-  const held = (bench: 'voltage' | 'output') => (bench === 'output' ? outputBplus : voltageBplus);
-  const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: r.bplus[i]!, bench: held(n.bench) })).filter((x, i, all) => all.findIndex((y) => y.n.bench === x.n.bench) === i);
+  const held = { voltage: voltageBplus, splitter: splitterBplus, output: outputBplus };
+  // One line a role: the voltage stages share their node; a driven pair's splitter has its own B+ and node.
+  const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: r.bplus[i]!, bench: held[n.role] })).filter((x, i, all) => all.findIndex((y) => y.n.role === x.n.role) === i);
   // Within 1 % is as close as the parts and the mains hold it (common practice: mains ±10 %, resistors ±5 %).
   const differs = offBy.some((x) => Math.abs(x.supply - x.bench) > SAME_BPLUS_SHARE * x.supply);
   const b = view.bleeder;
@@ -92,8 +95,8 @@ export function SupplyResults() {
       <div className="supply-bplus">
         <ul>
           {offBy.map((x) => (
-            <li key={x.n.bench}>
-              {x.n.bench === 'output' ? 'Output stage' : 'Voltage stages'}: node {x.node + 1} gives <strong>{volts(x.supply)}</strong> under load; the bench holds {volts(x.bench)}.
+            <li key={x.n.role}>
+              {ROLE_LINE[x.n.role]}: node {x.node + 1} gives <strong>{volts(x.supply)}</strong> under load; the bench holds {volts(x.bench)}.
             </li>
           ))}
         </ul>
