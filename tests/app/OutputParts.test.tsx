@@ -15,4 +15,19 @@ describe('the output stage on screen', () => {
     expect(sheet.getByRole('rowheader', { name: /^Ck \(/ })).toBeTruthy();
     expect(sheet.getByText(/^Heater: 6\.3 V/)).toBeTruthy();
   });
+
+  it('driven by the voltage stages, lists the whole amplifier\'s parts in chain order, as the build card does', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().setStageKind('output'));
+    const sheet = within(screen.getByRole('region', { name: 'Parts to order' }));
+    // The demo: two gain stages driving the EL34; each stage's parts under its own heading, the output stage's last.
+    expect(sheet.getAllByRole('heading', { level: 3 }).map((h) => h.textContent)).toEqual(['Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage', 'Output stage, EL34 (on the bench)']);
+    expect(sheet.getByRole('rowheader', { name: /^Ra1 / })).toBeTruthy();
+    expect(sheet.getByRole('rowheader', { name: /^Cout / })).toBeTruthy();
+    // Apart, the output stage is the whole design on this bench: its parts alone.
+    act(() => store.getState().setDrivesOutput(false));
+    expect(sheet.queryAllByRole('heading', { level: 3 })).toHaveLength(0);
+    expect(sheet.queryByRole('rowheader', { name: /^Ra1 / })).toBeNull();
+  });
 });

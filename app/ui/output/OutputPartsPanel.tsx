@@ -3,13 +3,22 @@ import { milliamps, ohms, percentOf, volts, watts } from '../../format';
 import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
+import { StagesParts } from '../panels/StagesParts';
 
-/** The output stage's parts to order on screen, as the card lists them: transformer, resistors, capacitors, heater. */
+/** The parts to order on screen with the output stage on the bench, as the card lists them: every stage's when driven, then its transformer, resistors, capacitors, heater. */
 export function OutputPartsPanel() {
   const id = useId();
+  // Driven, the output stage is the end of an amplifier: its parts list is the amplifier's.
+  const driven = useWorkbench((s) => (s.design.drivesOutput ? s.design.output.tubeId : null));
   return (
     <section className="panel build-sheet output-parts" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Parts to order</h2>
+      {driven ? (
+        <>
+          <StagesParts />
+          <h3 className="subhead">{`Output stage, ${driven} (on the bench)`}</h3>
+        </>
+      ) : null}
       <OutputPartsLines />
     </section>
   );

@@ -3,7 +3,7 @@ import { farads, milliamps, ohms, plain, volts, watts } from '../../format';
 import { buildSheetOf, railOf } from '../../store/buildSheet';
 import { useWorkbench } from '../../store/StoreProvider';
 import { elevationAdvice } from './elevationAdvice';
-import { PartsTables } from './PartsTables';
+import { StagesParts } from './StagesParts';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
 
 /** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
@@ -38,13 +38,7 @@ export function BuildSheetPanel() {
   return (
     <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Build sheet</h2>
-      {sheet.partial ? <p className="field-error">{`Only the bench's stage is listed: ${sheet.partial}`}</p> : null}
-      {sheet.stages.map((st) => (
-        <div key={st.index} className="stage-parts">
-          <h3 className="subhead">{`${st.title}${st.shown ? ' (on the bench)' : ''}`}</h3>
-          <PartsTables resistors={st.resistors} capacitors={st.capacitors} />
-        </div>
-      ))}
+      <StagesParts />
       {drivenOutput ? (
         <>
           <h3 className="subhead">{`Output stage, ${drivenOutput}`}</h3>
