@@ -110,21 +110,27 @@ export function SupplyPanel() {
             </div>
           ) : null}
           <h3>Feeds</h3>
-          <div className="option-row">
-            <label htmlFor={`${id}-fo`}>Output stage from</label>
-            <select id={`${id}-fo`} value={plan.feeds.output} onChange={(e) => setSupply({ feeds: { ...plan.feeds, output: Number(e.target.value) } })}>{nodeOptions}</select>
-            <label htmlFor={`${id}-fv`}>Voltage stages from</label>
-            <select id={`${id}-fv`} value={plan.feeds.voltage} onChange={(e) => setSupply({ feeds: { ...plan.feeds, voltage: Number(e.target.value) } })}>{nodeOptions}</select>
+          <div className="option-row supply-feeds">
+            <span>
+              <label htmlFor={`${id}-fo`}>Output stage from</label>
+              <select id={`${id}-fo`} value={plan.feeds.output} onChange={(e) => setSupply({ feeds: { ...plan.feeds, output: Number(e.target.value) } })}>{nodeOptions}</select>
+            </span>
             {pairDriven ? (
-              <>
+              <span>
                 <label htmlFor={`${id}-fs`}>Phase splitter from</label>
                 <select id={`${id}-fs`} value={nodeOf(plan, 'splitter')} onChange={(e) => setSupply({ feeds: { ...plan.feeds, splitter: Number(e.target.value) } })}>{nodeOptions}</select>
-              </>
+              </span>
             ) : null}
-            <label htmlFor={`${id}-ch`}>Channels</label>
-            <select id={`${id}-ch`} value={plan.channels} onChange={(e) => setSupply({ channels: Number(e.target.value) })}>
-              {Array.from({ length: MAX_CHANNELS }, (_, k) => <option key={k} value={k + 1}>{k === 0 ? '1 (mono)' : k === 1 ? '2 (stereo)' : k + 1}</option>)}
-            </select>
+            <span>
+              <label htmlFor={`${id}-fv`}>Voltage stages from</label>
+              <select id={`${id}-fv`} value={plan.feeds.voltage} onChange={(e) => setSupply({ feeds: { ...plan.feeds, voltage: Number(e.target.value) } })}>{nodeOptions}</select>
+            </span>
+            <span>
+              <label htmlFor={`${id}-ch`}>Channels</label>
+              <select id={`${id}-ch`} value={plan.channels} onChange={(e) => setSupply({ channels: Number(e.target.value) })}>
+                {Array.from({ length: MAX_CHANNELS }, (_, k) => <option key={k} value={k + 1}>{k === 0 ? '1 (mono)' : k === 1 ? '2 (stereo)' : k + 1}</option>)}
+              </select>
+            </span>
           </div>
           {error ? <p className="field-error" role="alert">{error}</p> : null}
           <HeaterWindings />
