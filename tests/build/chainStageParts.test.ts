@@ -94,13 +94,14 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     expect(chainStageParts(input, amp, 9, 'E12')).toBeNull();
   });
 
-  it('a divider for 90 V from 330 V: 560 kΩ over 220 kΩ (E12), decoupled to a 2 Hz corner (Ohm\'s law; common practice for the corner)', () => {
+  it('a divider for 90 V from 330 V: 560 kΩ over 220 kΩ (E12), decoupled at or below a 2 Hz corner with an E12 capacitor (Ohm\'s law; common practice for the corner and the series)', () => {
     const d = gridDivider({ upper: 'Rd1', lower: 'Rd2', cap: 'Cd' }, 330, 90, 'E12');
     // 220k·(330 − 90)/90 = 587 kΩ: nearest E12 is 560 kΩ.
     expect(d.resistors.map((r) => r.preferred)).toEqual([560e3, 220e3]);
     expectClose(d.resistors[0]!.watts, (330 / 780e3) ** 2 * 560e3, { rel: 1e-12 }, 'upper');
-    // 1/(2π·2 Hz·(560k ∥ 220k)) = 0.504 µF.
-    expectClose(d.capacitor.value!, 0.504e-6, { rel: 0.002 }, 'decoupling');
+    // 1/(2π·2 Hz·(560k ∥ 220k)) = 0.504 µF, ordered at the next E12 value up (common practice): 560 nF, a 1.8 Hz corner.
+    expect(d.capacitor.value).toBe(560e-9);
+    expectClose(1 / (2 * Math.PI * d.capacitor.value! * ((560e3 * 220e3) / 780e3)), 1.80, { rel: 0.005 }, 'corner');
   });
 });
 
