@@ -36,8 +36,9 @@ function Cell({ x0, width, onBench, name, onOpen, tubeId, children }: { x0: numb
       />
       <g className="chain-ink">
         {children}
-        {tubeId && label(x0 + width / 2, H - 16, tubeId, 'middle')}
-        <text x={x0 + width / 2} y={H - 4} fontSize={10} fill={MUTED} textAnchor="middle">{name.split(',')[0]}</text>
+        {tubeId && label(x0 + width / 2, H - 20, tubeId, 'middle')}
+        {/* Above the highlighted frame's lower edge (at H − 4), so its descenders are not cut. */}
+        <text x={x0 + width / 2} y={H - 9} fontSize={10} fill={MUTED} textAnchor="middle">{name.split(',')[0]}</text>
       </g>
     </g>
   );

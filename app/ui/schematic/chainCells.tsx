@@ -23,6 +23,12 @@ const CATHODE_OUT = GRID + 27;
 export const GROUND = 200;
 export const H = 246;
 export const LEAD_IN = 52;
+/**
+ * A stage with its own B+ (a gain stage, the splitter) starts its rail this far into its cell: each such rail is its
+ * own node with its own value, so two stages at 275 V and 330 V are not drawn as one wire. A follower on the plate
+ * before it shares that stage's rail and continues it.
+ */
+const RAIL_GAP = 8;
 export const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 60 } as const;
 /** Where a cell's coupling capacitor ends and its grid leak stands, from the cell's left edge. */
 const CC_END = 36;
@@ -54,7 +60,7 @@ function Coupling({ x0, cc, value, field }: { x0: number; cc: number | null; val
   return cc === null ? <Wire points={[[x0, GRID], [x0 + CC_END, GRID]]} /> : (
     <>
       <Capacitor at={GRID} from={x0} to={x0 + CC_END} vertical={false} />
-      {value(field, 'Cc', x0 + 2, GRID - 16, farads(cc))}
+      {value(field, 'Cc', x0 + 7, GRID - 16, farads(cc))}
     </>
   );
 }
@@ -76,7 +82,7 @@ function PlateLoad({ x0, width, cx, r, ra, field, value }: { x0: number; width: 
   return (
     <>
       <Triode cx={cx} cy={GRID} r={r} />
-      <Wire points={[[x0, RAIL], [x0 + width, RAIL]]} />
+      <Wire points={[[x0 + RAIL_GAP, RAIL], [x0 + width, RAIL]]} />
       <Resistor x={cx} y1={RAIL} y2={PLATE_OUT} />
       <Wire points={[[cx, PLATE_OUT], [cx, GRID - r]]} />
       {value(field, 'Ra', cx - 12, 60, ohms(ra), 'end')}
@@ -202,7 +208,7 @@ export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, 
       {bias.kind === 'cathode' ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}
       {bias.kind === 'cathode' && value('oRk', 'Rk', cx - 12, 176, ohms(bias.rk), 'end')}
       <Ground x={cx} y={GROUND} />
-      {label(x0 + 150, H - 16, tubeId, 'middle')}
+      {label(x0 + 140, H - 20, tubeId, 'middle')}
     </>
   );
 }, sameProps);
