@@ -20,6 +20,7 @@ import { OutputComparePanel } from './ui/output/OutputComparePanel';
 import { OutputSchematic } from './ui/output/OutputSchematic';
 import { OutputValues } from './ui/output/OutputValues';
 import { OutputPartsPanel } from './ui/output/OutputPartsPanel';
+import { SplitterSheet } from './ui/output/SplitterSheet';
 import { useKeeping } from './keep/useKeeping';
 import { BuildSheetPanel } from './ui/panels/BuildSheetPanel';
 import { SupplyPanel } from './ui/supply/SupplyPanel';
@@ -114,6 +115,7 @@ function OutputBench() {
         <TargetsPanel />
         <FindingsList />
         <OutputSignalCharts />
+        <SplitterSheet />
         <OutputComparePanel />
         <OutputPartsPanel />
       </div>

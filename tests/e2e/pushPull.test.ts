@@ -47,13 +47,16 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     expect(await page.locator('.layer-lines path[data-series="alone-load"]').count()).toBeGreaterThan(0);
     await page.locator('.chart-frame').first().screenshot({ path: 'test-results/push-pull-chart.png' });
     await strip.screenshot({ path: 'test-results/push-pull-strip.png' });
-    // The splitter on its own plate curves, beside its values.
+    // The splitter on its own plate curves, in a panel of its own in the main column, wide enough to read.
     const splitter = page.getByRole('group', { name: 'Phase splitter', exact: true });
-    expect(await splitter.getByRole('group', { name: /Plate curves of the phase splitter's 12AU7/ }).count()).toBe(1);
+    const sheet = page.getByRole('region', { name: 'Phase splitter, 12AU7 long-tailed pair, on its plate curves' });
+    expect(await sheet.getByRole('group', { name: /Plate curves of the phase splitter's 12AU7/ }).count()).toBe(1);
+    expect((await sheet.locator('svg.plate-chart').boundingBox())!.width).toBeGreaterThan(500);
     // In the one plate-chart shell: its curves, its lines and its point, as every stage's chart.
-    expect(await splitter.locator('.layer-curves path').count()).toBeGreaterThan(3);
-    expect(await splitter.locator('.layer-lines path[data-series="dc-load"]').count()).toBe(1);
-    expect(await splitter.locator('[data-splitter-point="first"]').count()).toBe(1);
+    expect(await sheet.locator('.layer-curves path').count()).toBeGreaterThan(3);
+    expect(await sheet.locator('.layer-lines path[data-series="dc-load"]').count()).toBe(1);
+    expect(await sheet.locator('[data-splitter-point="first"]').count()).toBe(1);
+    await sheet.screenshot({ path: 'test-results/push-pull-splitter-chart.png' });
     expect(await splitter.getByRole('table', { name: 'Splitter outputs' }).getByRole('row').count()).toBe(3);
     expect(await splitter.locator('[data-figure="splitter-balance"]').textContent()).toMatch(/Tail: .* mA/);
     await splitter.screenshot({ path: 'test-results/push-pull-splitter.png' });

@@ -3,7 +3,6 @@ import { milliamps, ohms, percentOf, plain, volts } from '../../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
 import { drivesPair } from '../../store/outputPlan';
-import { SplitterChart } from './SplitterChart';
 import { splitterFiguresOf } from '../../store/splitterPlane';
 
 /**
@@ -42,8 +41,9 @@ export function SplitterValues() {
           {tubes.map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
         </select>
       </div>
-      <label className="option-row">
-        <input type="checkbox" checked={sp.coupling === 'direct'} onChange={(e) => setSplitter({ coupling: e.currentTarget.checked ? 'direct' : 'capacitor' })} /> Direct-coupled: its grid at the last voltage stage&apos;s plate (no coupling capacitor, leak or divider)
+      <label className="option-row splitter-direct">
+        <input type="checkbox" checked={sp.coupling === 'direct'} onChange={(e) => setSplitter({ coupling: e.currentTarget.checked ? 'direct' : 'capacitor' })} />
+        <span>Direct-coupled: its grid at the last voltage stage&apos;s plate (no coupling capacitor, leak or divider)</span>
       </label>
       {error ? <p className="field-error" role="alert">{error}</p> : null}
       <p className="field-hint">
@@ -91,7 +91,6 @@ export function SplitterValues() {
           {!ltp ? ' Unloaded, the plate\'s output impedance is near Ra and the cathode\'s a follower\'s: they differ greatly; equal loads keep the outputs balanced.' : ''}
         </p>
       ) : null}
-      {driven ? <SplitterChart tubeId={sp.tubeId} ltp={ltp} /> : null}
     </fieldset>
   );
 }

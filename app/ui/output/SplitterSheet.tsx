@@ -1,4 +1,4 @@
-import { useEffect, useRef } from 'react';
+import { useEffect, useId, useRef } from 'react';
 import type { SplitterPlane } from '../../../src/index';
 import { ChartLegend, splitterLegend } from '../chart/ChartLegend';
 import { ChartShell } from '../chart/ChartShell';
@@ -8,26 +8,35 @@ import type { PlateScales } from '../chart/plateScales';
 import { PointMark, RivalMark } from '../chart/SheetLayers';
 import { splitterPlaneOf } from '../../store/splitterPlane';
 import { useWorkbench } from '../../store/StoreProvider';
+import { drivesPair } from '../../store/outputPlan';
 import { milliamps, volts } from '../../format';
 
 /**
  * The phase splitter's triode on its plate curves, in the one plate-chart
  * shell every stage uses: the DC load line, the bias line and the operating
  * point (a long-tailed pair's second triode in the rival's colour and mark).
- * Its values are set in the table above; the chart follows them.
+ * Its own panel in the bench's main column, at a width its curve and line
+ * labels can be read at (in the values' column they had crowded each
+ * other); its values are set in the splitter's table, and it follows them.
  */
-export function SplitterChart({ tubeId, ltp }: { tubeId: string; ltp: boolean }) {
+export function SplitterSheet() {
+  const id = useId();
   const plane = useWorkbench(splitterPlaneOf);
-  if (!plane) return null;
+  const sp = useWorkbench((s) => (drivesPair(s.design) ? s.design.output.splitter : null));
+  if (!plane || !sp) return null;
+  const ltp = sp.kind === 'long-tailed-pair';
   return (
-    <ChartShell
-      sheet={plane.sheet}
-      rivalSheet={null}
-      label={`Plate curves of the phase splitter's ${tubeId} with its DC load line, bias line and operating point (${volts(plane.point.v)}, ${milliamps(plane.point.i)})`}
-      region={{ plane: null }}
-      layers={(scales) => <SplitterLayers plane={plane} scales={scales} />}
-      below={<ChartLegend first={tubeId} rival={null} items={splitterLegend(ltp)} />}
-    />
+    <section className="panel splitter-sheet" aria-labelledby={`${id}-h`}>
+      <h2 id={`${id}-h`}>{`Phase splitter, ${sp.tubeId} ${ltp ? 'long-tailed pair' : 'split-load'}, on its plate curves`}</h2>
+      <ChartShell
+        sheet={plane.sheet}
+        rivalSheet={null}
+        label={`Plate curves of the phase splitter's ${sp.tubeId} with its DC load line, bias line and operating point (${volts(plane.point.v)}, ${milliamps(plane.point.i)})`}
+        region={{ plane: null }}
+        layers={(scales) => <SplitterLayers plane={plane} scales={scales} />}
+        below={<ChartLegend first={sp.tubeId} rival={null} items={splitterLegend(ltp)} />}
+      />
+    </section>
   );
 }
 
