@@ -244,6 +244,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (opts.typedField) drafts[opts.typedField] = s.drafts[opts.typedField];
     const errors = { ...s.errors };
     for (const f of FIELD_NAMES) if (FIELDS[f].get(next) !== FIELDS[f].get(s.design) || f === opts.typedField) delete errors[f];
+    // A box whose text was refused keeps that text beside its message until its value changes: a pass that follows
+    // (the full analysis after typing pauses) must not put the last good value back under a message about another.
+    for (const f of FIELD_NAMES) if (errors[f] !== undefined) drafts[f] = s.drafts[f];
     // A supply changed from outside its boxes (undo, an opened file) shows its own values.
     if (next.supply !== s.design.supply) patch.supplyDrafts = supplyDraftsFor(next.supply);
     set({ ...patch, design: next, drafts, errors, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
@@ -310,7 +313,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (failure) return failure;
     // A title that is the design's own automatic one keeps following it; any other was typed.
     const typed = doc.title.trim() !== '' && doc.title !== autoTitle(doc.design);
-    set({ title: typed ? doc.title.slice(0, MAX_TITLE_CHARS) : autoTitle(doc.design), titleTyped: typed, errors: {} });
+    // A new document: every box shows its value, no refused text or message is carried over.
+    set({ title: typed ? doc.title.slice(0, MAX_TITLE_CHARS) : autoTitle(doc.design), titleTyped: typed, errors: {}, drafts: draftsFor(get().design) });
     return null;
   },
 

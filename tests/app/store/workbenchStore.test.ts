@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { E24, findTube, plateCurrent, solveStage } from '../../../src/index';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
+import { TYPING_SETTLE_MS } from '../../../app/store/designSlice';
 import { expectClose } from '../../helpers/expectClose';
 
 describe('workbench store', () => {
@@ -34,6 +35,27 @@ describe('workbench store', () => {
     expect(store.getState().errors.bplus).toBe('The tube is cut off: plate current below 1 µA. Lower Rk, make the grid bias less negative, or raise B+.');
     expect(store.getState().design).toEqual(held);
     expect(held).toEqual({ ...before, rk: 10e6 });
+  });
+
+  it('a refused entry typed just after an accepted one keeps its text beside its message when the deferred full pass runs', async () => {
+    const store = createWorkbenchStore();
+    // Typed fast: "1" and "10" (kV) are taken; the third key makes 100 kV, past the one table of limits.
+    store.getState().editField('bplus', '1');
+    store.getState().editField('bplus', '10');
+    store.getState().editField('bplus', '100k');
+    const refused = store.getState().errors.bplus;
+    expect(refused).toMatch(/B\+/);
+    // The full analysis the accepted keystroke scheduled runs after the typing pauses; it must not put "10" back in the box.
+    await new Promise((r) => setTimeout(r, TYPING_SETTLE_MS + 100));
+    expect(store.getState().analysis.signal.stale).toBe(false);
+    expect(store.getState().drafts.bplus).toBe('100k');
+    expect(store.getState().errors.bplus).toBe(refused);
+    expect(store.getState().design.bplus).toBe(10);
+    // Opening a document starts every box afresh: no refused text without its message.
+    const kept = { title: '', design: store.getState().design };
+    expect(store.getState().loadDocument(kept)).toBeNull();
+    expect(store.getState().drafts.bplus).toBe('10');
+    expect(store.getState().errors.bplus).toBeUndefined();
   });
 
   it('a valid entry replaces the value, clears the message and re-solves once', () => {
