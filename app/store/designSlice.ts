@@ -16,7 +16,7 @@ import { supplyDraftsFor } from './supplySlice';
 import { chainProblem } from './chainSlice';
 
 export type Drafts = Record<FieldName, string>;
-export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube' | 'splitter', string>>;
+export type FieldErrors = Partial<Record<FieldName | 'tube' | 'stage2' | 'outputTube' | 'outputPair' | 'splitter', string>>;
 
 /**
  * The design and what the model makes of it. Every change goes through

@@ -23,6 +23,7 @@ export function OutputValues() {
   const setOutputPair = useWorkbench((s) => s.setOutputPair);
   const pushPull = o.pair === 'push-pull';
   const tubeError = useWorkbench((s) => s.errors.outputTube);
+  const pairError = useWorkbench((s) => s.errors.outputPair);
   const chooseOutputTube = useWorkbench((s) => s.chooseOutputTube);
   const changeOutput = useWorkbench((s) => s.changeOutput);
   const tube = useWorkbench((s) => s.outputBench.analysis.solution.tube);
@@ -40,6 +41,7 @@ export function OutputValues() {
           <input type="radio" name={`${id}-pair`} checked={pushPull} onChange={() => setOutputPair('push-pull')} /> Push-pull pair
         </label>
       </fieldset>
+      {pairError ? <p className="field-error" role="alert">{pairError}</p> : null}
       {pushPull ? (
         <p className="field-hint">
           Two tubes on a centre-tapped transformer, the grids driven in antiphase by the phase splitter below. The pair&apos;s own figures here take an ideal drive, the same on each grid; the amplifier&apos;s (the strip above) take the splitter&apos;s two outputs as they are.

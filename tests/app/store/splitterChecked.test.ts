@@ -53,6 +53,20 @@ describe('the phase splitter is checked like a stage on the bench', () => {
     expect(store.getState().chainNote).toBeNull();
   });
 
+  it('switching the driven output stage to a pair whose splitter cannot run is refused beside the choice', () => {
+    const store = createWorkbenchStore();
+    // Single-ended, the splitter's values wait unused (and unchecked): one at 200 V is kept.
+    store.getState().editField('sVgrid', '200');
+    expect(store.getState().design.output.splitter.vgrid).toBe(200);
+    store.getState().setOutputPair('push-pull');
+    expect(store.getState().design.output.pair).toBe('single-ended');
+    expect(store.getState().errors.outputPair).toMatch(/^Not switched to a push-pull pair: Phase splitter \(12AU7\): The grid would sit/);
+    store.getState().editField('sVgrid', '90');
+    store.getState().setOutputPair('push-pull');
+    expect(store.getState().design.output.pair).toBe('push-pull');
+    expect(store.getState().errors.outputPair).toBeUndefined();
+  });
+
   it('a kept design whose splitter cannot run still opens, and the strip names the splitter, not its place in the list', () => {
     const store = pushPullAmplifier();
     const s = store.getState();
