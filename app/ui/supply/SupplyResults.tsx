@@ -17,7 +17,7 @@ const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 
 export function SupplyResults() {
   const view = useWorkbench((s) => s.supplyView);
   const plan = useWorkbench((s) => s.design.supply);
-  // The two B+ only: the whole design changes on every drag frame, and this table need not follow it.
+  // The three B+ only (voltage stages, splitter, output stage): the whole design changes on every drag frame, and this table need not follow it.
   const voltageBplus = useWorkbench((s) => s.design.bplus);
   const outputBplus = useWorkbench((s) => s.design.output.bplus);
   const splitterBplus = useWorkbench((s) => s.design.output.splitter.bplus);
