@@ -3,7 +3,7 @@ import { compareCells } from '../ui/output/OutputComparePanel';
 import { transformerLines } from '../ui/output/OutputPartsPanel';
 import type { PushPullBench } from '../store/outputAnalysis';
 import { outputPartsOf } from '../store/outputParts';
-import { drivesPair } from '../store/outputPlan';
+import { drivesPair, splitterName } from '../store/outputPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
 
@@ -30,7 +30,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
         `Two ${sol.tube.id} in push-pull, ${screen}, ${o.bias === 'cathode' ? `cathode bias, Rk ${ohms(o.rk)} shared (bypassed)` : `fixed bias ${volts(o.vg)}`}${plan.mismatch || plan.idleMismatch ? `, the second tube's gm ${percentOf(plan.mismatch)} and idle ${percentOf(plan.idleMismatch)} above the first's` : ''}`,
         `B+ ${volts(o.bplus)} at the centre tap, ${ohms(o.raa)} plate to plate (DCR ${ohms(o.rPrimary)}) into ${ohms(o.speakerOhms)}, turns ${plain(a.turnsRatio)} : 1`,
         drivesPair(s.design)
-          ? `The grids are driven in antiphase by the ${s.design.output.splitter.tubeId} ${s.design.output.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'} phase splitter (its parts with the other stages')`
+          ? `The grids are driven in antiphase by the ${splitterName(s.design.output.splitter)} phase splitter (its parts with the other stages')`
           : 'The grids are driven in antiphase: join the voltage stages to the output stage to design the phase splitter that does it',
       ],
     },

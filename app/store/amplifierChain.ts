@@ -28,7 +28,8 @@ export interface ChainCardName {
   readonly role: 'voltage' | 'splitter' | 'output';
 }
 
-const ROLE_NAME = { splitter: 'Phase splitter', output: 'Output stage' } as const;
+/** Each stage's role as the strip and the supply name it. */
+export const ROLE_NAME = { voltage: 'Voltage stages', splitter: 'Phase splitter', output: 'Output stage' } as const;
 
 /**
  * A failure of the whole amplifier in the strip's words: the model names a

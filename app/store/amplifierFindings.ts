@@ -1,7 +1,7 @@
 import { amplifierFindings, type Finding, type StageFinding } from '../../src/index';
 import type { WorkbenchState } from './workbenchStore';
 import { benchIndex, voltageStages } from './stagePlans';
-import { drivesPair } from './outputPlan';
+import { drivesPair, splitterName } from './outputPlan';
 
 /** How the supply is named in the ratings list. */
 export const SUPPLY_STAGE_NAME = 'B+ supply';
@@ -27,7 +27,7 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
     else if (amp?.stages[i]) stages.push({ name, findings: amp.stages[i]!.findings });
   }
   const splitter = amp && drivesPair(d) ? amp.stages[list.length] : undefined;
-  if (splitter) stages.push({ name: `Phase splitter, ${d.output.splitter.tubeId} ${d.output.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'}`, findings: splitter.findings });
+  if (splitter) stages.push({ name: `Phase splitter, ${splitterName(d.output.splitter)}`, findings: splitter.findings });
   if (d.stageKind === 'output' || d.drivesOutput) stages.push({ name: d.output.pair === 'push-pull' ? `Output stage, ${d.output.tubeId} pair` : `Output stage, ${d.output.tubeId}`, findings: s.outputBench.analysis.findings });
   // The supply's warnings and dangers belong in the same list (a capacitor over its voltage is as dangerous as a plate);
   // its notes, the margins, stay with its own table.

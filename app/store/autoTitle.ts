@@ -1,10 +1,9 @@
 import { formatValue } from '../../src/index';
 import type { BenchDesign } from './analysis';
 import { voltageStages } from './stagePlans';
-import { drivesPair } from './outputPlan';
+import { drivesPair, splitterName } from './outputPlan';
 
 const CONNECTION = { pentode: 'pentode', triode: 'triode-connected', ultralinear: 'ultralinear' } as const;
-const SPLITTER = { 'split-load': 'split-load splitter', 'long-tailed-pair': 'long-tailed pair' } as const;
 const PAIR = { 'single-ended': 'single-ended', 'push-pull': 'push-pull' } as const;
 
 /**
@@ -17,7 +16,7 @@ export function autoTitle(d: BenchDesign): string {
   if (d.before.length + d.after.length > 0) {
     const list = voltageStages(d).map((p) => (p.kind === 'follower' ? `${p.tubeId} follower` : p.tubeId));
     // A driven pair has its splitter between the voltage stages and the output: it is a stage of the chain too.
-    const splitter = drivesPair(d) ? [`${d.output.splitter.tubeId} ${SPLITTER[d.output.splitter.kind]}`] : [];
+    const splitter = drivesPair(d) ? [`${splitterName(d.output.splitter)} phase splitter`] : [];
     const end = d.drivesOutput ? [...splitter, `${d.output.tubeId} ${d.output.pair === 'push-pull' ? 'push-pull ' : ''}output`] : [];
     return `${list.length + end.length}-stage amplifier: ${[...list, ...end].join(' → ')}`;
   }

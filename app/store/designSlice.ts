@@ -198,7 +198,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     // The follower can be the stage shown only while the bench's stage has one.
     const next = joined.design.stageKind === 'follower' && joined.design.stage2.kind !== 'follower' ? { ...joined.design, stageKind: 'voltage' as const } : joined.design;
     // The splitter before a driven pair is no bench's stage: it is checked in its place, so a value that stops it is refused like any other.
-    const splitter = opts.opened ? null : splitterRefusal(next, s.design, s.registry, !sameVoltagePart(next, s.design));
+    const voltageSame = sameVoltagePart(next, s.design);
+    const splitter = opts.opened ? null : splitterRefusal(next, s.design, s.registry, !voltageSame);
     if (splitter) return splitter;
     const light = opts.light ?? false;
     const patch: Partial<WorkbenchState> = {};
@@ -208,7 +209,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     // dragging or typing in one stage never pays for the other.
     // The follower rides on the gain stage: showing it shows the voltage part.
     const showsVoltage = next.stageKind !== 'output';
-    if (!sameVoltagePart(next, s.design) || opts.force || (!light && showsVoltage && s.analysis.signal.stale)) {
+    if (!voltageSame || opts.force || (!light && showsVoltage && s.analysis.signal.stale)) {
       const voltageLight = light || !showsVoltage;
       const extent = opts.extent ?? (s.chartWindow === 'load-line' ? loadLineExtent(next.bplus, next.ra, next.rk) : sharedWindow(next, s.registry, s.rival));
       const a = analyze(next, s.registry, s.analysis, extent, voltageLight, s.curveCount);

@@ -39,6 +39,12 @@ export interface SplitterPlan {
 
 export type SplitterKind = SplitterPlan['kind'];
 
+/** Each splitter kind in the builder's words, as every panel, title and list names it. */
+const SPLITTER_KIND_WORDS: Record<SplitterKind, string> = { 'split-load': 'split-load', 'long-tailed-pair': 'long-tailed pair' };
+
+/** A splitter by its tube and kind: "12AU7 split-load", "12AU7 long-tailed pair". */
+export const splitterName = (sp: Pick<SplitterPlan, 'tubeId' | 'kind'>) => `${sp.tubeId} ${SPLITTER_KIND_WORDS[sp.kind]}`;
+
 /**
  * The splitter a pair starts with (our own values, E12/E24): a 12AU7
  * split-load stage with 22 kΩ plate and cathode loads, its grid at 90 V, fed

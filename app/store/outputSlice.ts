@@ -9,6 +9,7 @@ import { DESIGN_LIMITS, within } from './designLimits';
 import { currentOutputRegion } from './outputTargets';
 import { nearestInside } from './regionSlice';
 import { withSplitterFed } from './supplyPlan';
+import { ROLE_NAME } from './amplifierChain';
 
 /**
  * The transformer-coupled output stage. Its design lives in the bench design
@@ -86,7 +87,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const next = { ...sp, ...patch, ...kindChange };
     const failure = s.commit({ ...s.design, output: { ...s.design.output, splitter: next } });
     // A refusal from the splitter's own solve already names it.
-    const message = failure && (failure.message.startsWith('Phase splitter') ? failure.message : `The splitter cannot run so: ${failure.message}`);
+    const message = failure && (failure.message.startsWith(ROLE_NAME.splitter) ? failure.message : `The splitter cannot run so: ${failure.message}`);
     set({ errors: { ...get().errors, splitter: message || undefined } });
     return failure;
   },

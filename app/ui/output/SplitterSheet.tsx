@@ -8,7 +8,7 @@ import type { PlateScales } from '../chart/plateScales';
 import { PointMark, RivalMark } from '../chart/SheetLayers';
 import { splitterPlaneOf } from '../../store/splitterPlane';
 import { useWorkbench } from '../../store/StoreProvider';
-import { drivesPair } from '../../store/outputPlan';
+import { drivesPair, splitterName } from '../../store/outputPlan';
 import { milliamps, volts } from '../../format';
 
 /**
@@ -27,7 +27,7 @@ export function SplitterSheet() {
   const ltp = sp.kind === 'long-tailed-pair';
   return (
     <section className="panel splitter-sheet" aria-labelledby={`${id}-h`}>
-      <h2 id={`${id}-h`}>{`Phase splitter, ${sp.tubeId} ${ltp ? 'long-tailed pair' : 'split-load'}, on its plate curves`}</h2>
+      <h2 id={`${id}-h`}>{`Phase splitter, ${splitterName(sp)}, on its plate curves`}</h2>
       <ChartShell
         sheet={plane.sheet}
         rivalSheet={null}

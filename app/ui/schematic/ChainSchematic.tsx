@@ -6,7 +6,7 @@ import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { FieldName } from '../../store/fields';
 import { benchIndex, voltageStages } from '../../store/stagePlans';
-import { drivesPair } from '../../store/outputPlan';
+import { drivesPair, splitterName } from '../../store/outputPlan';
 import { ohms } from '../../format';
 
 const INK = '#1d2329';
@@ -115,7 +115,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   const splitterX = x;
   if (pair) x += WIDTH.splitter;
   const splitter = pair ? (
-    <Cell key="splitter" x0={splitterX} width={WIDTH.splitter} onBench={design.stageKind === 'output'} name={`Phase splitter, ${o.splitter.tubeId} ${o.splitter.kind === 'split-load' ? 'split-load' : 'long-tailed pair'}`} tubeId={o.splitter.tubeId} onOpen={openOutput}>
+    <Cell key="splitter" x0={splitterX} width={WIDTH.splitter} onBench={design.stageKind === 'output'} name={`Phase splitter, ${splitterName(o.splitter)}`} tubeId={o.splitter.tubeId} onOpen={openOutput}>
       <SplitterCell x0={splitterX} cc={o.splitter.coupling === 'direct' ? null : design.cout} sp={o.splitter} value={valuesOf('Phase splitter', openOutput)} />
     </Cell>
   ) : null;

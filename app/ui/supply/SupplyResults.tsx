@@ -1,11 +1,11 @@
 import { SAFE_DC_VOLTS } from '../../../src/index';
 import { farads, milliamps, ohms, plain, volts, watts } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
+import { ROLE_NAME } from '../../store/amplifierChain';
 import { SupplyWaves } from './SupplyWaves';
 
 const mv = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
 const SAME_BPLUS_SHARE = 0.01;
-const ROLE_LINE = { voltage: 'Voltage stages', splitter: 'Phase splitter', output: 'Output stage' } as const;
 const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 1e6)} µA`);
 
 /**
@@ -96,7 +96,7 @@ export function SupplyResults() {
         <ul>
           {offBy.map((x) => (
             <li key={x.n.role}>
-              {ROLE_LINE[x.n.role]}: node {x.node + 1} gives <strong>{volts(x.supply)}</strong> under load; the bench holds {volts(x.bench)}.
+              {ROLE_NAME[x.n.role]}: node {x.node + 1} gives <strong>{volts(x.supply)}</strong> under load; the bench holds {volts(x.bench)}.
             </li>
           ))}
         </ul>

@@ -18,9 +18,9 @@ describe('the design title', () => {
     const store = createWorkbenchStore();
     store.getState().setOutputPair('push-pull');
     // The splitter is a stage of the amplifier: a title without it misdescribes the build.
-    expect(store.getState().title).toBe('4-stage amplifier: 12AX7 → 12AU7 → 12AU7 split-load splitter → EL34 push-pull output');
+    expect(store.getState().title).toBe('4-stage amplifier: 12AX7 → 12AU7 → 12AU7 split-load phase splitter → EL34 push-pull output');
     store.getState().setSplitter({ kind: 'long-tailed-pair' });
-    expect(store.getState().title).toBe('4-stage amplifier: 12AX7 → 12AU7 → 12AU7 long-tailed pair → EL34 push-pull output');
+    expect(store.getState().title).toBe('4-stage amplifier: 12AX7 → 12AU7 → 12AU7 long-tailed pair phase splitter → EL34 push-pull output');
     store.getState().dropStage(0);
     store.getState().dropStage(0);
     store.getState().setStageKind('output');
