@@ -10,8 +10,13 @@ export function download(blob: Blob, fileName: string): void {
   setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
 
-/** A file name from a design title: letters, digits and dashes only. */
+const MAX_STEM = 60;
+
+/** A file name from a design title: letters, digits and dashes only, whole words. */
 export function fileStem(title: string): string {
-  const stem = title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60);
-  return stem || 'quiescent-design';
+  const whole = title.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '');
+  // At most 60 characters, cut between words (a long amplifier's title had ended in "phase-splitte").
+  const lastBreak = whole.slice(0, MAX_STEM + 1).lastIndexOf('-');
+  const cut = whole.length <= MAX_STEM ? whole : whole.slice(0, lastBreak > 0 ? lastBreak : MAX_STEM);
+  return cut || 'quiescent-design';
 }
