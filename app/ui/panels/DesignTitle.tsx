@@ -12,6 +12,8 @@ export function DesignTitle() {
       value={title}
       maxLength={MAX_TITLE_CHARS}
       placeholder="Name this design"
+      // As wide as its words: a long amplifier's title then takes a line of its own under the name instead of being cut off.
+      style={{ flexBasis: `${title.length + 2}ch` }}
       onChange={(e) => setTitle(e.target.value)}
     />
   );
