@@ -94,6 +94,7 @@ export { productionSpread, seededRandom, type Spread, type SpreadSample } from '
 export { envelopesOf, type EnvelopeCount } from './build/envelopes';
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';
+export { supplyPartsList, MAINS_HIGH, DIODE_VOLTS, ELECTROLYTIC_MAX_VOLTS, type SupplyParts, type SolvedSupply, type FilterCapacitorLine, type ChokeLine, type RectifierLine } from './build/supplyParts';
 export { parseTypicalCsv } from './fit/parseTypicalCsv';
 
 export { korenPentode, pentodeParamsProblem, type KorenPentodeParams } from './tube/pentode';

@@ -12,6 +12,7 @@ import { elevationAdvice } from '../ui/panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, otherStageSections, partLines } from './amplifierLines';
 import { supplySection } from './supplyLines';
+import { supplyPartLines } from './supplyPartsLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
 export const CARD_WIDTH = 1240;
@@ -23,7 +24,8 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   const amplifier = amplifierSection(s);
   const supply = supplySection(s);
   const stageSections = s.design.stageKind === 'output' ? [...outputCardSections(s), ...targetSections(s), ...voltagePartsSections(s)] : voltageCardSections(s);
-  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections];
+  const supplyParts = supplyPartLines(s);
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : [])];
 }
 
 /** The builder's targets, each with how the stage on the bench meets it. */
@@ -100,7 +102,8 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       ...build.stages.filter((st) => st.onBench).flatMap(partLines),
       `Tubes: ${build.tubes.map((t) => `${t.envelopes} × ${t.tube.id} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`).join(', ')}`,
       build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
-      build.filter.ok ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',
+      // With the supply solved its own ladder filters the stages (its parts are listed with it): the one-section estimate is not theirs.
+      build.filter.ok && !s.design.supply.on ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',
     ].filter(Boolean),
   });
   const r = s.rivalAnalysis;

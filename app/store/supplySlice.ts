@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { bleederFor, parseValue, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result } from '../../src/index';
+import { bleederFor, parseValue, supplyPartsList, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
@@ -15,6 +15,8 @@ export interface SupplyView {
   readonly names: readonly ChainCardName[];
   readonly feeds: readonly number[];
   readonly bleeder: Result<Bleeder> | null;
+  /** The supply's parts to order (filter capacitors, resistors, chokes, bleeder, rectifier), when it was solved. */
+  readonly parts: Result<SupplyParts> | null;
   /** True while the design has moved on and the new solve has not come back. */
   readonly stale: boolean;
 }
@@ -186,6 +188,14 @@ export const LIVE_SUPPLY_PAUSE_MS = 250;
 /** How long the design must hold still before the supply is solved again, ms. */
 export const SUPPLY_SETTLE_MS = 150;
 
+/** What the supply view shows for an answer: the result, the bleeder the capacitors need and the parts to order. */
+function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readonly ChainCardName[] }, r: Result<AmplifierOnSupplyResult>, stale: boolean): SupplyView {
+  const bleeder = bleederOf(d, r);
+  const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
+  const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
+  return { result: r, names: chain.names, feeds: chain.input.feeds, bleeder, parts, stale };
+}
+
 /** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */
 function bleederOf(d: BenchDesign, r: Result<AmplifierOnSupplyResult>): Result<Bleeder> | null {
   if (!r.ok) return null;
@@ -220,7 +230,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
       void solver({ ...chain.input, ...(last?.ok ? { start: last.supply.nodes.map((n) => n.dc) } : {}), keepTangent: true }).then((r) => {
         if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
         // A stage's failure named as its card is ("Phase splitter (12AU7): …"), not by its place in the model's list.
-        const view: SupplyView = { result: r.ok ? r : namedAsCards(r, chain.names), names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: false };
+        const view = viewOf(d, chain, r.ok ? r : namedAsCards(r, chain.names), false);
         store.setState({ supplyView: view });
         // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
         // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
@@ -263,7 +273,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         const r = await solver({ ...chain.input, start: last.supply.nodes.map((n) => n.dc), ...(last.tangent ? { around: last.tangent } : {}), keepTangent: true });
         const now = store.getState();
         if (r === 'cancelled' || !r.ok || !now.dragging) return;
-        store.setState({ supplyView: { result: r, names: chain.names, feeds: chain.input.feeds, bleeder: bleederOf(d, r), stale: now.design !== d } });
+        store.setState({ supplyView: viewOf(d, chain, r, now.design !== d) });
         lastLive = performance.now();
         if (now.design === d) return;
       }

@@ -77,6 +77,33 @@ describe('the B+ supply on the bench', () => {
     expect(lines.some((l) => /^Bleeder .*Ω, .* W across node 1: under 60 V in/.test(l))).toBe(true);
   });
 
+  it('lists the supply\'s parts to order on the build sheet and the card: each filter capacitor rated for the cold voltage with high mains (IEC 60038), the filter resistors, the bleeder and the diodes', async () => {
+    const { store } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.parts?.ok).toBe(true), { timeout: 5000 });
+    const view = store.getState().supplyView!;
+    if (!view.result.ok) throw new Error(view.result.message);
+    const cold = view.result.supply.noLoadVolts;
+    const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
+    // DEMO_SUPPLY: 100 µF, then 1 kΩ / 47 µF and 9.1 kΩ / 47 µF; about 351 V cold, 386 V with the mains 10 % high: 400 V parts.
+    expect(cold * 1.1).toBeGreaterThan(350);
+    expect(cold * 1.1).toBeLessThan(400);
+    for (const ref of ['Cf1', 'Cf2', 'Cf3']) expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === ref).textContent).toMatch(/µF.*400 V$/);
+    // The 9.1 kΩ carries node 3's current (Kirchhoff): I²R is what the line says it runs at.
+    const amps = view.result.loads[2]!;
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Rf3').textContent).toContain(`${Number((amps * amps * 9100).toPrecision(3))} W`);
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Rbleed')).toBeTruthy();
+    // Centre-tapped full wave: each diode stands twice the peak, about 700 V, 773 V with high mains: the 800 V 1N400x part.
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'rectifier').textContent).toMatch(/two diodes, each stands 70\d V peak inverse.*: 800 V or more/);
+    // The one-section estimate gives way to the supply's own ladder, on the sheet and on the card.
+    expect(sheet.getByTestId('filter-on-supply')).toBeTruthy();
+    expect(sheet.queryByTestId('filter')).toBeNull();
+    const card = cardSections(store.getState());
+    expect(card.find((c) => c.heading === 'Parts to order')!.lines.some((l) => l.startsWith('B+ filter'))).toBe(false);
+    const supplyParts = card.find((c) => c.heading === 'B+ supply: parts to order')!.lines;
+    expect(supplyParts.filter((l) => /^Cf\d .*400 V/.test(l))).toHaveLength(3);
+    expect(supplyParts.some((l) => l.startsWith('Rf2 ') && l.includes('1 kΩ'))).toBe(true);
+  });
+
   it('the demo\'s supply delivers the demo\'s B+; a higher secondary does not, and its B+ can be taken onto the bench', async () => {
     const { store, panel } = bench();
     await panel.findByText('The bench\'s B+ are the supply\'s (within 1 %).', {}, { timeout: 5000 });

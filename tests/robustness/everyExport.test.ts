@@ -133,6 +133,9 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };
   run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);
   run('solveSupply (rated winding)', fc.tuple(near({ ...supply, ratedAmps: 0.2, regulation: 0.08 })), Q.solveSupply, 30);
+  const supplySolved = Q.solveSupply(supply as Q.SupplyDesign);
+  if (!supplySolved.ok) throw new Error(supplySolved.message);
+  run('supplyPartsList', fc.tuple(near(supply), near({ supply: supplySolved, loads: supply.loads, atFullPower: null }), fc.oneof(fc.constant(null), near({ needed: true, ohms: 82e3, watts: 1.5, partWatts: 5, amps: 4e-3, seconds: 28 }))), Q.supplyPartsList, 200);
   run('heaterWindings', fc.tuple(or(fc.array(near({ label: '12AU7', volts: 6.3, amps: 0.3, count: 2 }), { maxLength: 4 }))), Q.heaterWindings);
   const ppDesign: Q.PushPullDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200, bias: 'fixed', rk: 220, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
   run('solvePushPull', fc.tuple(outTubes, fc.oneof(near(ppDesign), near({ ...ppDesign, bias: 'cathode', mismatch: 0.05 }))), Q.solvePushPull, 150);

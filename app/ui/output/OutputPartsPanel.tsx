@@ -4,6 +4,7 @@ import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
 import { StagesParts } from '../panels/StagesParts';
+import { SupplyPartsList } from '../supply/SupplyPartsList';
 
 /** The parts to order on screen with the output stage on the bench, as the card lists them: every stage's when driven, then its transformer, resistors, capacitors, heater. */
 export function OutputPartsPanel() {
@@ -20,6 +21,7 @@ export function OutputPartsPanel() {
         </>
       ) : null}
       <OutputPartsLines />
+      <SupplyPartsList />
     </section>
   );
 }

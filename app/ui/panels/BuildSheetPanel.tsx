@@ -5,6 +5,7 @@ import { useWorkbench } from '../../store/StoreProvider';
 import { elevationAdvice } from './elevationAdvice';
 import { StagesParts } from './StagesParts';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
+import { SupplyPartsList } from '../supply/SupplyPartsList';
 
 /** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
 function NumberInput({ label, value, unit, onValue, min }: { label: string; value: number; unit: string; onValue: (v: number) => void; min: number }) {
@@ -27,11 +28,11 @@ function NumberInput({ label, value, unit, onValue, min }: { label: string; valu
 export function BuildSheetPanel() {
   const sheet = useWorkbench(buildSheetOf);
   const inputs = useWorkbench((s) => s.buildInputs);
-  const rail = useWorkbench(railOf);
   const setInputs = useWorkbench((s) => s.setBuildInputs);
   const editField = useWorkbench((s) => s.editField);
   const settleField = useWorkbench((s) => s.settleField);
   const drivenOutput = useWorkbench((s) => (s.design.drivesOutput ? s.design.output.tubeId : null));
+  const supplyOn = useWorkbench((s) => s.design.supply.on);
   const id = useId();
   const fc = sheet.forCorner;
   const sp = sheet.spread;
@@ -45,6 +46,7 @@ export function BuildSheetPanel() {
           <OutputPartsLines />
         </>
       ) : null}
+      <SupplyPartsList />
       <div className="option-row">
         <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />
       </div>
@@ -94,6 +96,23 @@ export function BuildSheetPanel() {
         <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p>
       ) : <p className="field-error">{sheet.elevation.message}</p>}
       <h3 className="subhead decoupling">B+ decoupling filter</h3>
+      {supplyOn ? (
+        <p className="decoupling" data-testid="filter-on-supply">The amplifier is solved on its B+ supply: its filter ladder feeds the stages (B+ supply, below; its parts are listed above). Clear &ldquo;Solve the amplifier on this supply&rdquo; there for a quick one-section estimate here.</p>
+      ) : <DecouplingEstimate />}
+    </section>
+  );
+}
+
+/** One R–C section from a rail to the voltage stages, for a design without its supply: the drop, the ripple and the stage it leaves. */
+function DecouplingEstimate() {
+  const sheet = useWorkbench(buildSheetOf);
+  const inputs = useWorkbench((s) => s.buildInputs);
+  const rail = useWorkbench(railOf);
+  const setInputs = useWorkbench((s) => s.setBuildInputs);
+  const editField = useWorkbench((s) => s.editField);
+  const settleField = useWorkbench((s) => s.settleField);
+  return (
+    <>
       <div className="option-row">
         <NumberInput label={inputs.railVolts === null ? 'Supply rail (follows B+)' : 'Supply rail'} unit="V" value={rail} min={1} onValue={(v) => setInputs({ railVolts: v })} />
         <NumberInput label="Series R" unit="Ω" value={inputs.filterR} min={0} onValue={(v) => setInputs({ filterR: v })} />
@@ -106,6 +125,6 @@ export function BuildSheetPanel() {
           <button type="button" onClick={() => { if (sheet.filter.ok) { editField('bplus', sheet.filter.stageBplus.toFixed(1)); settleField('bplus'); } }}>Use this B+ for the stage</button>
         </p>
       ) : <p className="field-error" role="alert">{sheet.filter.message}</p>}
-    </section>
+    </>
   );
 }

@@ -43,6 +43,8 @@ describe('the B+ decoupling helper', () => {
     const { buildSheetOf, railOf } = await import('../../../app/store/buildSheet');
     const { cardSections } = await import('../../../app/export/buildCard');
     const store = createWorkbenchStore();
+    // The one-section estimate is for a design not solved on its supply (with it, the supply's ladder is the filter).
+    store.getState().setSupply({ on: false });
     store.getState().editField('bplus', '370');
     store.getState().settleAnalysis();
     expect(railOf(store.getState())).toBe(370);

@@ -1,0 +1,39 @@
+import type { ChokeLine, RectifierLine, SupplyParts } from '../../src/index';
+import { milliamps, ohms, plain, volts } from '../format';
+import type { WorkbenchState } from '../store/workbenchStore';
+
+/** The supply's capacitors' rating rule, as the table's caption states it. */
+export const SUPPLY_CAPACITOR_RULE = 'Filter capacitors (voltage rating: the cold voltage with the mains 10 % high, IEC 60038, rounded up to a standard rating; ripple current: the capacitor must be rated above it)';
+
+/** The rectifier's part in words: what each diode (or the tube) stands in reverse and carries at its peak. */
+export function rectifierWords(r: RectifierLine, tubeId: string | null): string {
+  const stands = `stands ${volts(r.piv)} peak inverse cold (${volts(r.pivHighMains)} with the mains 10 % high), peak current ${milliamps(r.peakAmps)}`;
+  if (r.kind === 'tube') return `Rectifier tube${tubeId ? ` ${tubeId}` : ''}: ${stands}; check its data sheet's peak inverse rating.`;
+  const each = r.kind === 'silicon-bridge' ? 'four diodes in a bridge, each' : 'two diodes, each';
+  const part = r.diodeVolts !== null ? `: ${r.diodeVolts} V or more (1N400x series ratings)` : ': past 1000 V, two 1000 V diodes in series for each (common practice)';
+  return `Rectifier, ${each} ${stands}${part}.`;
+}
+
+/** A choke in words: its inductance, resistance and the DC it must be rated for. */
+export function chokeWords(c: ChokeLine): string {
+  return `${c.ref} (${c.role}): ${plain(c.henries)} H, ${ohms(c.rdc)}, rated for at least ${milliamps(c.amps)} DC`;
+}
+
+/** The supply's parts as the card lists them, one line each; none when the supply is off or not solved. */
+export function supplyPartLines(s: WorkbenchState): string[] {
+  const parts = supplyPartsOf(s);
+  if (!parts) return [];
+  const tube = s.design.supply.rectifier.kind === 'tube' ? s.design.supply.rectifier.tubeId : null;
+  return [
+    ...parts.capacitors.map((c) => `${c.ref} (${c.role}): ${c.value === null ? 'value to choose' : `${plain(c.value * 1e6)} µF`}, ${c.ratingVolts} V, ${milliamps(c.rippleAmps)} rms ripple${c.note ? `; ${c.note}` : ''}`),
+    ...parts.resistors.map((r) => `${r.ref} (${r.role}): ${ohms(r.preferred)}, ${r.ratingWatts} W (runs at ${plain(r.watts)} W)`),
+    ...parts.chokes.map(chokeWords),
+    rectifierWords(parts.rectifier, tube),
+  ];
+}
+
+/** The supply's parts when its view is current and solved, else null. */
+export function supplyPartsOf(s: WorkbenchState): SupplyParts | null {
+  const v = s.supplyView;
+  return s.design.supply.on && v && v.parts?.ok ? v.parts : null;
+}
