@@ -3,7 +3,7 @@ import { milliamps, ohms, plain, volts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /** The supply's capacitors' rating rule, as the table's caption states it. */
-export const SUPPLY_CAPACITOR_RULE = 'Filter capacitors (voltage rating: the cold voltage with the mains 10 % high, IEC 60038, rounded up to a standard rating; ripple current: the capacitor must be rated above it)';
+export const SUPPLY_CAPACITOR_RULE = 'Filter capacitors (voltage rating: the cold voltage, mains 10 % high, IEC 60038; ripple-current rating above the ripple current)';
 
 /** The rectifier's part in words: what each diode (or the tube) stands in reverse and carries at its peak. */
 export function rectifierWords(r: RectifierLine, tubeId: string | null): string {

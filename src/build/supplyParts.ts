@@ -84,12 +84,12 @@ export function supplyPartsList(d: SupplyDesign, solved: SolvedSupply, bleeder: 
   const caps = [d.input.c, ...d.sections.map((x) => x.c)];
   const capacitors = caps.map((c, k): FilterCapacitorLine => ({
     ref: `Cf${k + 1}`,
-    role: k === 0 ? (d.input.kind === 'choke' ? 'node 1, after the input choke' : 'node 1, reservoir') : `node ${k + 1}`,
+    role: k === 0 ? (d.input.kind === 'choke' ? 'node 1, after the choke' : 'reservoir') : `node ${k + 1}`,
     value: c,
     volts: s.nodes[k]!.dc,
     voltsAtSwitchOn: cold,
     ratingVolts: rating,
-    polarity: '+ to the node',
+    polarity: '+ to node',
     rippleAmps: s.nodes[k]!.capacitorRippleRms,
     note: need > ELECTROLYTIC_MAX_VOLTS ? `${Math.round(need)} V is past the usual electrolytics: two in series, each with a balancing resistor across it (common practice)` : null,
   }));

@@ -32,6 +32,9 @@ describe.runIf(run)('at the bench: offline and on paper', () => {
 
   it('prints on one A4 page, controls left off, the caution kept', async () => {
     const { page } = await openWorkbench(browser.current, inject('baseUrl'));
+    // Printed once the page has settled: the supply solved, its nodes and its parts on the sheet.
+    await page.locator('.supply-parts [data-part-line="rectifier"]').waitFor();
+    await page.locator('tr[data-node="3"]').waitFor();
     await page.emulateMedia({ media: 'print' });
     // Every control is left off; the stage cards stay, as the amplifier on paper.
     expect(await page.locator('button:not(.chain-card)').first().isVisible()).toBe(false);

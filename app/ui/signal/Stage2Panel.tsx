@@ -9,7 +9,12 @@ import { followerCouplingFor } from '../../store/stagePlans';
 
 const SMALL_BOX = { ...CHART_BOX, width: 330, height: 230, margin: { top: 10, right: 44, bottom: 40, left: 52 } };
 
-/** The optional second stage: what it is, its values, its figures, and its operating point on its own plate curves. */
+/**
+ * What follows the stage on the bench, if anything: a cathode follower on its
+ * plate or a gain stage after it; its values, figures and operating point on
+ * its own plate curves. (Named for where it sits, not a number: the bench
+ * may hold any stage of the amplifier.)
+ */
 export function Stage2Panel() {
   const stage2 = useWorkbench((s) => s.design.stage2);
   const tubes = useWorkbench((s) => s.tubes);
@@ -26,7 +31,7 @@ export function Stage2Panel() {
   const link = chain?.ok ? chain.links[1] : undefined;
   return (
     <section className="panel stage2" aria-labelledby={`${id}-h`}>
-      <h2 id={`${id}-h`}>Second stage</h2>
+      <h2 id={`${id}-h`}>After this stage</h2>
       <div className="option-row">
         <label htmlFor={`${id}-kind`}>Add</label>
         <select
@@ -89,9 +94,10 @@ export function Stage2Panel() {
   );
 }
 
-/** Stage 2's operating point on its own plate curves (a static view; drag happens on stage 1). */
+/** The following stage's operating point on its own plate curves (a static view; the drag is on the bench's stage). */
 function Stage2Curves() {
   const view = useWorkbench((s) => s.analysis.signal.stage2)!;
+  const stage2Kind = useWorkbench((s) => s.design.stage2.kind);
   const scales = useMemo(() => plateScales(view.sheet.extent, SMALL_BOX), [view.sheet.extent]);
   const grid = useRef<SVGGElement>(null);
   const curves = useRef<SVGGElement>(null);
@@ -105,7 +111,7 @@ function Stage2Curves() {
     drawAxes(axes.current, scales);
   }, [view.sheet, scales]);
   return (
-    <svg className="stage2-chart" viewBox={`0 0 ${SMALL_BOX.width} ${SMALL_BOX.height}`} role="img" aria-label={`Plate curves of the second stage's ${view.tubeId} with its operating point`}>
+    <svg className="stage2-chart" viewBox={`0 0 ${SMALL_BOX.width} ${SMALL_BOX.height}`} role="img" aria-label={`Plate curves of the ${stage2Kind === 'follower' ? 'cathode follower' : 'stage after this one'}, ${view.tubeId}, with its operating point`}>
       <g ref={grid} />
       <g ref={limits} />
       <g ref={curves} />
