@@ -28,6 +28,11 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     const strip = page.getByRole('region', { name: 'The amplifier, stage by stage' });
     const titles = () => strip.locator('button.chain-card .card-title').allTextContents();
     await expect.poll(async () => (await titles()).slice(-2)).toEqual(['Splitter · 12AU7 split-load phase splitter', 'Output · EL84 push-pull output']);
+    // The direct-coupling box sits beside its words, on their first line (a later rule had wrapped it onto a line of its own).
+    const direct = page.locator('.splitter-direct').first();
+    const [tick, words] = [(await direct.locator('input').boundingBox())!, (await direct.locator('span').boundingBox())!];
+    expect(tick.x + tick.width).toBeLessThanOrEqual(words.x);
+    expect(tick.y).toBeLessThan(words.y + 20);
     await page.getByRole('radio', { name: 'Long-tailed pair' }).check();
     await expect.poll(async () => (await titles()).at(-2)).toBe('Splitter · 12AU7 long-tailed pair phase splitter');
     await expect.poll(() => strip.getByTestId('amplifier-figures').textContent()).toMatch(/Clean to\d+(\.\d+)? W/);
