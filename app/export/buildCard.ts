@@ -7,7 +7,7 @@ import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
-import { outputCardSections } from './outputCard';
+import { drivenOutputSection, outputCardSections } from './outputCard';
 import { elevationAdvice } from '../ui/panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, otherStageSections, partLines } from './amplifierLines';
@@ -92,6 +92,8 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
     });
   }
   sections.push(...otherStageSections(s, build));
+  const output = drivenOutputSection(s);
+  if (output) sections.push(output);
   sections.push({ heading: 'Ratings, every stage', lines: ratingsLines(s) });
   const windings = heaterWindingsOf(s);
   const windingLines = windings.ok ? windings.windings.map((w) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}`) : [windings.message];

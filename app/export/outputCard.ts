@@ -54,3 +54,16 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
   sections.push(...comparedSection(s));
   return sections;
 }
+
+/**
+ * With a voltage stage on the bench, the output stage the stages drive still
+ * goes on the card: its values and its parts to order (the screen's build
+ * sheet lists them too). Null when the stages stand apart from it.
+ */
+export function drivenOutputSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
+  if (!s.design.drivesOutput) return null;
+  const own = outputCardSections(s);
+  const values = own.find((x) => x.heading === 'Output stage')?.lines ?? [];
+  const parts = own.find((x) => x.heading === 'Parts to order')?.lines ?? [];
+  return { heading: `Output stage, ${s.design.output.tubeId}`, lines: [...values, ...parts] };
+}

@@ -226,6 +226,9 @@ describe('the amplifier strip', () => {
     expect(first!.lines[1]).toMatch(/^Gain [\d.]+ × \([\d.]+ dB, inverting\), −3 dB [\d.]+ Hz to [\d.]+ kHz$/);
     expect(first!.lines[2]).toMatch(/^Clean to [\d.]+ W \([\d.]+ V rms at the speaker\) from .* in; output clips first \(grid current\)$/);
     expect(first!.lines[3]).toMatch(/^At 1 W: .* in, THD [\d.]+ %$/);
+    // With a voltage stage on the bench the card still carries the output stage it drives: its values and parts (it had been left off).
+    const output = cardSections(store.getState()).find((x) => x.heading === 'Output stage, EL34')!;
+    expect(output.lines).toEqual(expect.arrayContaining([expect.stringMatching(/^EL34 single-ended/), expect.stringMatching(/^Output transformer: 3\.5 kΩ to 8 Ω/), expect.stringMatching(/^Rk: 330 Ω E24, 5 W/)]));
     // With the output stage on the bench the card still carries every voltage stage's parts, each with its own ratings.
     store.getState().setStageKind('output');
     const outputCard = cardSections(store.getState());
