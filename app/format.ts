@@ -15,7 +15,9 @@ export const milliamps = (a: number) => `${Number((a * 1e3).toPrecision(3))} mA`
 export const mAPerV = (s: number) => `${Number((s * 1e3).toPrecision(3))} mA/V`;
 export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digits))).replace('-', '−');
 /** Gain as a voltage ratio in decibels (20·log10). */
-export const decibels = (ratio: number) => `${(20 * Math.log10(Math.abs(ratio))).toFixed(1)} dB`;
+export const decibels = (ratio: number) => dB(20 * Math.log10(Math.abs(ratio)));
+/** A level in dB to a tenth, negative with a true minus sign (as every other figure here). */
+export const dB = (x: number) => `${x.toFixed(1).replace('-', '−')} dB`;
 /** A fraction shown in percent, to three figures. */
 export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 /** A signed level in dB to one decimal, with a true minus sign. */

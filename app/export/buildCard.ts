@@ -1,7 +1,7 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
 import { marginWords } from '../ui/targets/marginWords';
 import { targetValueWords } from '../ui/targets/targetValue';
-import { decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
+import { dB, decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
@@ -68,7 +68,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       lines: [
         sig.swing.output.rms === 0 ? 'No clean output: the grid has no bias' : `Clean output ${rmsLevel(sig.swing.output, 'dBu')}, clips by ${sig.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`,
         sig.distortion.ok
-          ? `At ${plain(d.levelRms)} V rms out: THD ${plain(sig.distortion.thdPercent)} %, H2 ${sig.distortion.harmonicsDb[0]!.toFixed(1)} dB, H3 ${sig.distortion.harmonicsDb[1]!.toFixed(1)} dB`
+          ? `At ${plain(d.levelRms)} V rms out: THD ${plain(sig.distortion.thdPercent)} %, H2 ${dB(sig.distortion.harmonicsDb[0]!)}, H3 ${dB(sig.distortion.harmonicsDb[1]!)}`
           : sig.distortion.message,
         `−3 dB: ${sig.corners.lowHz ? formatValue(sig.corners.lowHz, 'Hz') : 'DC'} to ${sig.corners.highHz ? formatValue(sig.corners.highHz, 'Hz') : 'beyond 1 GHz'}`,
         sig.atThd.ok ? `Output at ${plain(100 * d.thdLimit)} % THD: ${plain(sig.atThd.outputRms)} V rms (${sig.atThd.limitedBy === 'curvature' ? 'within the clean swing' : `past the clean swing, ${sig.atThd.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`})` : sig.atThd.message,
@@ -120,6 +120,14 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
     });
   }
   return sections;
+}
+
+/** The text as it fits a width on one line: whole, or cut between words with an ellipsis. */
+function cutToWidth(ctx: CanvasRenderingContext2D, text: string, width: number): string {
+  if (ctx.measureText(text).width <= width) return text;
+  const words = text.split(' ');
+  while (words.length > 1 && ctx.measureText(`${words.join(' ')} …`).width > width) words.pop();
+  return `${words.join(' ')} …`;
 }
 
 /** Draws text wrapped to a width; returns the y below it. */
@@ -227,7 +235,11 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
     if (p > 0) {
       ctx.fillStyle = '#4a535c';
       ctx.font = `20px ${EXPORT_FONTS}`;
-      ctx.fillText(`${title} · build card, page ${p + 1} of ${pages}`, MARGIN, p * CARD_HEIGHT + MARGIN);
+      // The page's number at the right; the title before it, cut between words to what is left (a long amplifier's ran off the page).
+      const number = `build card, page ${p + 1} of ${pages}`;
+      const numberWidth = ctx.measureText(number).width;
+      ctx.fillText(number, CARD_WIDTH - MARGIN - numberWidth, p * CARD_HEIGHT + MARGIN);
+      ctx.fillText(cutToWidth(ctx, title, cw - numberWidth - 24), MARGIN, p * CARD_HEIGHT + MARGIN);
     }
     ctx.fillStyle = '#b42318';
     ctx.font = `bold 18px ${EXPORT_FONTS}`;

@@ -21,7 +21,9 @@ describe('signal views', () => {
     const d = store.getState().design;
     const model = distortion({ tube: findTube(d.tubeId)!, bplus: d.bplus, ra: d.ra, rk: d.rk, rl: d.rl, rg: d.rg, rsource: d.rsource, cin: d.cin!, ck: d.ck!, cout: d.cout! }, { outputRms: 2 });
     if (!model.ok) throw new Error(model.message);
-    expect(figure('h2')).toBe(`${model.harmonicsDb[0]!.toFixed(1)} dB`);
+    // Negative with a true minus sign, as every figure on the page.
+    expect(figure('h2')).toBe(`${model.harmonicsDb[0]!.toFixed(1).replace('-', '−')} dB`);
+    expect(figure('h2')).toMatch(/^−\d/);
     expect(figure('thd')).toMatch(/^\d+(\.\d+)? %$/);
     expect(figure('limited-by')).toBe('grid current');
   });

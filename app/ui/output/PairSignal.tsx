@@ -1,12 +1,12 @@
 import { useId } from 'react';
 import type { PushPullDrive } from '../../../src/index';
-import { ohms, volts, watts } from '../../format';
+import { dB, ohms, volts, watts } from '../../format';
 import type { PushPullBench } from '../../store/outputAnalysis';
 import { useWorkbench } from '../../store/StoreProvider';
 
 const HARMONICS = [2, 3, 4, 5, 6, 7, 8, 9] as const;
 /** Below −120 dB a harmonic is the arithmetic's noise, not the pair's: a matched pair's even harmonics cancel exactly in the model. */
-const db = (x: number) => (x > 1e-6 ? `${(20 * Math.log10(x)).toFixed(1)} dB` : 'below −120 dB');
+const db = (x: number) => (x > 1e-6 ? dB(20 * Math.log10(x)) : 'below −120 dB');
 
 /**
  * The pair's power and distortion: the harmonics H2 to H9 (relative to the

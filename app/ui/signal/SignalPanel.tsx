@@ -1,6 +1,6 @@
 import { useShallow } from 'zustand/react/shallow';
 import { formatValue } from '../../../src/index';
-import { decibels, ohms, plain, rmsLevel } from '../../format';
+import { dB, decibels, ohms, plain, rmsLevel } from '../../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
 
@@ -41,8 +41,8 @@ export function SignalPanel() {
         <dl className="figure-group">
           <div className="figure" data-figure="input-needed"><dt>Input needed</dt><dd>{d.ok ? `${plain(d.inputRms)} V rms` : '—'}</dd></div>
           <div className="figure" data-figure="thd"><dt>THD</dt><dd>{d.ok ? `${plain(d.thdPercent)} %${d.pastClean ? ` past the clean swing (${LIMIT_WORDS[d.pastClean]})` : ''}` : '—'}</dd></div>
-          <div className="figure" data-figure="h2"><dt>H2</dt><dd>{d.ok ? `${d.harmonicsDb[0]!.toFixed(1)} dB` : '—'}</dd></div>
-          <div className="figure" data-figure="h3"><dt>H3</dt><dd>{d.ok ? `${d.harmonicsDb[1]!.toFixed(1)} dB` : '—'}</dd></div>
+          <div className="figure" data-figure="h2"><dt>H2</dt><dd>{d.ok ? dB(d.harmonicsDb[0]!) : '—'}</dd></div>
+          <div className="figure" data-figure="h3"><dt>H3</dt><dd>{d.ok ? dB(d.harmonicsDb[1]!) : '—'}</dd></div>
         </dl>
         <dl className="figure-group">
           <div className="figure" data-figure="headroom-out"><dt>Clean output swing</dt><dd>{rmsLevel(swing.output, 'dBu')}</dd></div>
