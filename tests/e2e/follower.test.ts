@@ -55,7 +55,9 @@ describe.runIf(run)('a cathode follower on the bench in Chromium', () => {
     const table = page.locator('.compare-table');
     await expect.poll(() => table.locator('th').allTextContents()).toContain('12AT7');
     expect(await table.locator('tr[data-row="ia"] td').count()).toBe(2);
-    // Printed with the follower on the bench: the whole amplifier's page still fits one A4 sheet.
+    // Printed with the follower on the bench: the whole amplifier's page, its supply solved and its parts listed, still fits one A4 sheet.
+    await page.locator('.supply-parts [data-part-line="rectifier"]').waitFor();
+    await page.locator('tr[data-node="3"]').waitFor();
     await page.emulateMedia({ media: 'print' });
     const pdf = (await page.pdf({ format: 'A4', printBackground: true, path: 'test-results/print-follower.pdf' })).toString('latin1');
     expect(pdf.match(/\/Type\s*\/Page[^s]/g)?.length).toBe(1);
