@@ -144,6 +144,7 @@ export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest }
 export { rankTubes, type TubeRank } from './targets/rankTubes';
 export { followerRegion, judgeFollower, judgeFollowerAt, rankFollowers, followerTargetsOf, FOLLOWER_SAMPLES, type FollowerRegion, type FollowerTargetStage } from './targets/followerTargets';
 export { judgeDesign, type DesignVerdict } from './targets/judgeDesign';
+export { preferredBest, type PreferredBest } from './targets/preferredBest';
 export { outputRegion, judgeOutput, rankOutputTubes, outputTargetsOf, type OutputRegion, type OutputRegionBest, type OutputRank, type OutputParts, type OutputTargetStage } from './targets/outputTargets';
 export { type PlaneRegion, type PlaneBest } from './targets/planeRegion';
 export { stageSignal, followerProblem, RESPONSE_FREQUENCIES, type StageSignal, type SignalLevels } from './stage/stageSignal';

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { feasibleRegion, followerRegion, judgeDesign, judgeFollower, judgeOutput, outputRegion, rankFollowers, rankOutputTubes, rankTubes, type DesignVerdict, type FeasibleRegion, type FollowerRegion, type FollowerTargetStage, type OutputRank, type OutputRegion, type OutputTargetStage, type PlaneRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
+import { feasibleRegion, followerRegion, judgeDesign, preferredBest, judgeFollower, judgeOutput, outputRegion, rankFollowers, rankOutputTubes, rankTubes, type DesignVerdict, type FeasibleRegion, type FollowerRegion, type FollowerTargetStage, type OutputRank, type OutputRegion, type OutputTargetStage, type PlaneRegion, type RegionGrid, type RegionStage, type Result, type Targets, type TubeRank, type TubeRecord } from '../../src/index';
 import { outputRequestOf } from './outputTargets';
 import { DESIGN_LIMITS } from './designLimits';
 import { loadAfterBench } from './stagePlans';
@@ -239,7 +239,12 @@ export const createRegionSlice =
       const r = get().region;
       if (!r?.result.ok || !r.result.best) return;
       const d = get().design;
-      get().commit({ ...d, ra: r.result.best.ra, rk: r.result.best.rk });
+      const exact = { ...d, ra: r.result.best.ra, rk: r.result.best.rk };
+      // Snapping, the best point is taken as parts to order: the preferred pair around it whose weakest target holds best.
+      const req = d.snap ? regionRequestOf(get()) : null;
+      const tube = req?.stage.tube;
+      const ordered = req && tube ? preferredBest(stageDesignOf(exact, tube as TubeRecord, get().registry), req.targets, d.series) : null;
+      get().commit(ordered?.ok ? { ...exact, ra: ordered.ra, rk: ordered.rk } : exact);
     },
   });
 

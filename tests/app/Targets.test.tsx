@@ -4,7 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { stageDesignOf } from '../../app/store/analysis';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { feasibleRegion, findOutputTube, findTube, judgeDesign, nearestPreferred, outputRegion, preferredAround } from '../../src/index';
+import { feasibleRegion, findOutputTube, findTube, judgeDesign, nearestPreferred, outputRegion, preferredAround, preferredBest } from '../../src/index';
+import { targetsOf } from '../../app/store/targetPlan';
 import { benchPoint } from '../../app/store/outputAnalysis';
 import { cardSections } from '../../app/export/buildCard';
 import { failingAt } from '../../app/store/regionSlice';
@@ -51,6 +52,15 @@ describe('targets on the voltage bench', () => {
     await waitFor(() => expect(store.getState().region?.complete).toBe(true));
     const best = store.getState().region!.result;
     if (!best.ok || !best.best) throw new Error('a best point');
+    // Snapping (the demo's E24): the parts to order around the best point, the pair whose weakest target holds best.
+    expect(store.getState().design.snap).toBe(true);
+    await user.click(screen.getByRole('button', { name: 'Move to the best point' }));
+    const want = preferredBest(stageDesignOf({ ...store.getState().design, ra: best.best.ra, rk: best.best.rk }, store.getState().analysis.tube, store.getState().registry), targetsOf(store.getState().design.targets), 'E24');
+    if (!want.ok) throw new Error(want.message);
+    expect([store.getState().design.ra, store.getState().design.rk]).toEqual([want.ra, want.rk]);
+    expect(preferredAround(best.best.ra, 'E24')).toContain(want.ra);
+    // Not snapping: the exact point.
+    act(() => store.getState().setSnap(false));
     await user.click(screen.getByRole('button', { name: 'Move to the best point' }));
     expect(store.getState().design.ra).toBeCloseTo(best.best.ra, 6);
     await user.click(screen.getByRole('button', { name: 'Rank every tube for these targets' }));

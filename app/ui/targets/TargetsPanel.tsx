@@ -29,6 +29,7 @@ export function TargetsPanel() {
   const setHeaterTarget = useWorkbench((s) => s.setHeaterTarget);
   const setKeepInside = useWorkbench((s) => s.setKeepInside);
   const moveToBest = useWorkbench((s) => s.moveToBest);
+  const snapSeries = useWorkbench((s) => (s.design.snap ? s.design.series : null));
   const clearTargets = useWorkbench((s) => s.clearTargets);
   const id = useId();
   const r = gainRegion?.result.ok ? gainRegion.result : null;
@@ -99,7 +100,7 @@ export function TargetsPanel() {
         <button type="button" onClick={clearTargets} disabled={!anySet}>Clear targets</button>
       </div>
       {output && o?.best ? <p className="region-best">{`Best point: B+ ${plain(o.best.parts.bplus)} V, ${cathodeBias ? `Rk ${ohms(o.best.parts.rk)}` : `grid ${plain(o.best.parts.vg)} V`}; weakest target ${o.best.weakest ? `${TARGET_LABELS[o.best.weakest]}, ${marginWords(o.best.score)}` : 'none'}.`}</p> : null}
-      {!follower && !output && r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.`}</p> : null}
+      {!follower && !output && r?.best ? <p className="region-best">{`Best point: Ra ${ohms(r.best.ra)}, Rk ${ohms(r.best.rk)}; weakest target ${r.best.weakest ? `${TARGET_LABELS[r.best.weakest]}, ${marginWords(r.best.score)}` : 'none'}.${snapSeries ? ` Moving there takes the ${snapSeries} values around it whose weakest target holds best.` : ''}`}</p> : null}
       {f?.best ? <p className="region-best">{`Best point: Rk ${ohms(f.best.rk)}; weakest target ${f.best.weakest ? `${TARGET_LABELS[f.best.weakest]}, ${marginWords(f.best.score)}` : 'none'}.`}</p> : null}
       {anySet ? <TubeRanking /> : null}
     </section>
