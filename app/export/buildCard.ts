@@ -1,6 +1,6 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
 import { marginWords } from '../ui/targets/marginWords';
-import { targetValueWords } from '../ui/targets/targetValue';
+import { targetWithValue } from '../ui/targets/targetValue';
 import { dB, decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
 import { buildSheetOf, railOf } from '../store/buildSheet';
@@ -32,7 +32,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
 function targetSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
   const v = s.verdict;
   if (!v?.ok || Object.keys(v.margins).length === 0) return [];
-  return [{ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${TARGET_LABELS[k]} ${targetValueWords(k, v.values[k])}, ${marginWords(v.margins[k]!)}`) }];
+  return [{ heading: 'Targets', lines: (Object.keys(v.margins) as TargetName[]).map((k) => `${v.margins[k]! >= 0 ? 'Met' : 'MISSED'}: ${targetWithValue(TARGET_LABELS[k], k, v.values[k])}, ${marginWords(v.margins[k]!)}`) }];
 }
 
 /** With the output stage on the bench, the voltage stages that drive it still go on the card: each one's parts, with their own ratings. */

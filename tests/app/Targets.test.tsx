@@ -90,6 +90,12 @@ describe('targets on the voltage bench', () => {
     // The value shown is the model's gain at this design.
     expect(model.values.minGain).toBeCloseTo(Math.abs(store.getState().analysis.solution.gain), 9);
     expect(items[0]![1]).toContain(`${Number(model.values.minGain!.toPrecision(3))} ×`);
+    // A level past the clean swing has no THD to show: the phrase is set off from the label, not run into it.
+    await user.type(field(/^Most THD/), '1');
+    await user.type(field(/^THD measured at/), '200');
+    const thd = view.container.querySelector('.target-verdicts li[data-target="maxThdAt"]')!;
+    expect(thd.textContent).toMatch(/^✗ THD at level: the level is past the clean swing; missed by [\d.]+ %$/);
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Targets')!.lines).toContainEqual(expect.stringMatching(/^MISSED: THD at level: the level is past the clean swing, missed by/));
   });
 
   it('a bad target is refused beside its box, and the design keeps its last targets', async () => {

@@ -7,7 +7,7 @@ import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
 import { TubeRanking } from './TubeRanking';
 import { marginWords } from './marginWords';
-import { targetValueWords } from './targetValue';
+import { targetWithValue } from './targetValue';
 
 /**
  * What the builder asks of the stage on the bench, each box optional, and
@@ -82,7 +82,7 @@ export function TargetsPanel() {
         <ul className="target-verdicts" aria-label="Each target at the operating point now">
           {(Object.keys(verdict.margins) as TargetName[]).map((k) => (
             <li key={k} className={verdict.margins[k]! >= 0 ? 'meets' : 'misses'} data-target={k}>
-              {`${verdict.margins[k]! >= 0 ? '✓' : '✗'} ${capital(TARGET_LABELS[k])} ${targetValueWords(k, verdict.values[k])}: ${marginWords(verdict.margins[k]!)}`}
+              {`${verdict.margins[k]! >= 0 ? '✓' : '✗'} ${targetWithValue(capital(TARGET_LABELS[k]), k, verdict.values[k])}${verdict.values[k] === null ? ';' : ':'} ${marginWords(verdict.margins[k]!)}`}
             </li>
           ))}
         </ul>

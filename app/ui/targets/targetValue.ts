@@ -20,3 +20,13 @@ export function targetValueWords(k: TargetName, v: number | null | undefined): s
     case 'bplusRange': return `${plain(v)} V`;
   }
 }
+
+/**
+ * A target's label with what it measures: "gain 15.2 ×", or, where it cannot
+ * be measured there, "THD at level: the level is past the clean swing" (a
+ * phrase, set off by a colon rather than run into the label).
+ */
+export function targetWithValue(label: string, k: TargetName, v: number | null | undefined): string {
+  const words = targetValueWords(k, v);
+  return v === null ? `${label}: ${words}` : `${label} ${words}`;
+}
