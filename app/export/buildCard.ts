@@ -3,6 +3,8 @@ import { marginWords } from '../ui/targets/marginWords';
 import { targetWithValue } from '../ui/targets/targetValue';
 import { dB, decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
+import { AMPLIFIER_COMPARE_ROWS } from '../ui/panels/AmplifierCompare';
+import type { AmplifierView } from '../store/amplifierChain';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -116,7 +118,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
         const a = row.value(s.analysis);
         const b = row.value(r);
         return `${row.label}: ${a === null ? '—' : row.show(a)}  |  ${b === null ? '—' : row.show(b)}`;
-      }),
+      }).concat(amplifierCompareLines(s)),
     });
   }
   return sections;
@@ -128,6 +130,15 @@ function cutToWidth(ctx: CanvasRenderingContext2D, text: string, width: number):
   const words = text.split(' ');
   while (words.length > 1 && ctx.measureText(`${words.join(' ')} …`).width > width) words.pop();
   return `${words.join(' ')} …`;
+}
+
+/** The whole amplifier with each tube in the bench's socket, as the compare panel shows it; none without a chain. */
+function amplifierCompareLines(s: WorkbenchState): string[] {
+  const a = s.amplifier;
+  const b = s.rivalAmplifier;
+  if (!a?.result.ok || !b?.result.ok) return [];
+  const solved = (v: AmplifierView) => v as AmplifierView & { result: { ok: true } };
+  return AMPLIFIER_COMPARE_ROWS.map((row) => `In the amplifier, ${row.label.toLowerCase()}: ${row.show(solved(a))}  |  ${row.show(solved(b))}`);
 }
 
 /** Draws text wrapped to a width; returns the y below it. */

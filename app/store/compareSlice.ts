@@ -2,6 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import { designAtPlanePoint, nearestPreferred, nearestReachable, plateExtent, type PlateExtent, type Result } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
+import { analyzeAmplifier, type AmplifierView } from './amplifierChain';
 import type { WorkbenchState } from './workbenchStore';
 
 /**
@@ -20,6 +21,8 @@ export interface Rival {
 export interface CompareSlice {
   rival: Rival;
   rivalAnalysis: Result<Analysis> | null;
+  /** The whole amplifier with the second tube in the bench's socket (its own Ra and Rk when fitted so); null when not compared or no chain. */
+  rivalAmplifier: AmplifierView | null;
   setRival: (patch: Partial<Rival>) => void;
   /** Swaps which tube is first; everything else stays. */
   swapTubes: () => void;
@@ -35,6 +38,14 @@ export function rivalDesign(d: BenchDesign, r: Rival): BenchDesign {
     rk: r.mode === 'own-values' ? r.rk : d.rk,
     stage2: { ...d.stage2, kind: 'none' },
   };
+}
+
+/** The amplifier with the rival in the bench's socket: only the bench stage's tube (and, own values, its Ra and Rk) changes. */
+export function analyzeRivalAmplifier(d: BenchDesign, registry: TubeRegistry, r: Rival): AmplifierView | null {
+  if (!r.on || d.stageKind !== 'voltage') return null;
+  const own = r.mode === 'own-values';
+  const view = analyzeAmplifier({ ...d, tubeId: r.tubeId, ra: own ? r.ra : d.ra, rk: own ? r.rk : d.rk }, registry);
+  return view && view.input.stages.length > 1 ? view : null;
 }
 
 /** The chart window covering both tubes at this B+, so both families share one pair of axes. */
@@ -55,6 +66,7 @@ export function analyzeRival(d: BenchDesign, registry: TubeRegistry, r: Rival, p
 export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSlice> = (set, get) => ({
   rival: { on: false, tubeId: '12AX7', mode: 'same-parts', ra: 100e3, rk: 1500 },
   rivalAnalysis: null,
+  rivalAmplifier: null,
 
   setRival: (patch) => {
     const s = get();
@@ -85,13 +97,15 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     if (!d.ok) return;
     const rival = { ...s.rival, ra: d.ra, rk: d.rk };
     const a = analyzeRival(s.design, s.registry, rival, s.rivalAnalysis, s.analysis.sheet.extent, true);
-    if (a?.ok) set({ rival, rivalAnalysis: a, dragNote: reach.reason });
+    // The whole amplifier waits for the release; until then it is marked as behind.
+    const amp = s.rivalAmplifier && !s.rivalAmplifier.stale ? { ...s.rivalAmplifier, stale: true } : s.rivalAmplifier;
+    if (a?.ok) set({ rival, rivalAnalysis: a, rivalAmplifier: amp, dragNote: reach.reason });
   },
 
   endRivalDrag: () => {
     const s = get();
     const rival = s.design.snap ? { ...s.rival, ra: nearestPreferred(s.rival.ra, s.design.series), rk: nearestPreferred(s.rival.rk, s.design.series) } : s.rival;
     const a = analyzeRival(s.design, s.registry, rival, s.rivalAnalysis, s.analysis.sheet.extent, false);
-    if (a?.ok) set({ rival, rivalAnalysis: a });
+    if (a?.ok) set({ rival, rivalAnalysis: a, rivalAmplifier: analyzeRivalAmplifier(s.design, s.registry, rival) });
   },
 });

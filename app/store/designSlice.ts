@@ -2,7 +2,7 @@ import type { StateCreator } from 'zustand/vanilla';
 import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeAmplifier, splitterRefusal, type AmplifierView } from './amplifierChain';
-import { analyzeRival, sharedWindow } from './compareSlice';
+import { analyzeRival, analyzeRivalAmplifier, sharedWindow } from './compareSlice';
 import { analyzeFollowerBench, type FollowerBench } from './followerBench';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
 import { customTubes } from '../keep/customTubes';
@@ -239,6 +239,8 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     if (next !== s.design || opts.force || s.amplifier?.stale) {
       // Marked once: a drag's later frames keep the same object, so the strip is not drawn again on every move.
       patch.amplifier = !light ? analyzeAmplifier(next, s.registry) : s.amplifier && (s.amplifier.stale ? s.amplifier : { ...s.amplifier, stale: true });
+      // And with the second tube in the bench's socket, when compared: what the swap does to the whole amplifier.
+      patch.rivalAmplifier = !light ? analyzeRivalAmplifier(next, s.registry, s.rival) : s.rivalAmplifier && (s.rivalAmplifier.stale ? s.rivalAmplifier : { ...s.rivalAmplifier, stale: true });
     }
     const drafts = draftsFor(next);
     // Keep what the user is typing in the box they are typing in.

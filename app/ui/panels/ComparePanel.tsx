@@ -4,6 +4,7 @@ import { mAPerV, milliamps, ohms, plain, volts, watts } from '../../format';
 import { rivalDesign } from '../../store/compareSlice';
 import { useWorkbench } from '../../store/StoreProvider';
 import { SecondTubeChoice } from './SecondTubeChoice';
+import { AmplifierCompare } from './AmplifierCompare';
 import { sameEntries, useDragPaced } from './useDragPaced';
 
 /** One row of the comparison: how to read a figure from an analysis, how to show it, and how to show a difference. */
@@ -51,6 +52,8 @@ export function ComparePanel() {
   const swapTubes = useWorkbench((s) => s.swapTubes);
   // The chart shows both points live; the table follows a drag at a readable pace (useDragPaced).
   const [first, second, design] = useDragPaced((s) => [s.analysis, s.rivalAnalysis, s.design] as const, { equal: sameEntries });
+  const amplifier = useWorkbench((s) => s.amplifier);
+  const rivalAmplifier = useWorkbench((s) => s.rivalAmplifier);
   const other = rivalDesign(design, rival);
   const id = useId();
   return (
@@ -87,6 +90,7 @@ export function ComparePanel() {
           </tbody>
         </table>
       ) : null}
+      {rival.on && second?.ok ? <AmplifierCompare first={amplifier} second={rivalAmplifier} /> : null}
     </section>
   );
 }
