@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { bleederFor, parseValue, supplyPartsList, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
+import { bleederFor, humAtOutput, parseValue, supplyHum, supplyPartsList, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
@@ -17,6 +17,8 @@ export interface SupplyView {
   readonly bleeder: Result<Bleeder> | null;
   /** The supply's parts to order (filter capacitors, resistors, chokes, bleeder, rectifier), when it was solved. */
   readonly parts: Result<SupplyParts> | null;
+  /** The hum each stage's B+ ripple gives at the amplifier's output, when it was solved. */
+  readonly hum: Result<HumAtOutput> | null;
   /** True while the design has moved on and the new solve has not come back. */
   readonly stale: boolean;
 }
@@ -193,7 +195,16 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   const bleeder = bleederOf(d, r);
   const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
   const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
-  return { result: r, names: chain.names, feeds: chain.input.feeds, bleeder, parts, stale };
+  return { result: r, names: chain.names, feeds: chain.input.feeds, bleeder, parts, hum: r.ok ? humOf(chain.input, r) : null, stale };
+}
+
+/** Each stage's share of the hum at the output: the amplifier at its nodes' B+, each stage's node's ripple. */
+function humOf(input: AmplifierOnSupply, r: AmplifierOnSupplyResult): Result<HumAtOutput> {
+  const amp = input.amplifier;
+  const atNodes = { ...amp, stages: amp.stages.map((st, k) => ({ ...st, bplus: r.bplus[k] ?? st.bplus })) };
+  const perVolt = supplyHum(atNodes, r.amplifier);
+  if (!perVolt.ok) return perVolt;
+  return humAtOutput(perVolt, input.feeds.map((node) => r.supply.nodes[node]?.rippleRms ?? 0));
 }
 
 /** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */

@@ -6,7 +6,7 @@ import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { DEMO_SUPPLY, onSupplyInputOf } from '../../app/store/supplyPlan';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { solveOnSupply } from '../../src/index';
+import { solveOnSupply, supplyHum } from '../../src/index';
 import { LIBRARY_TUBES } from '../../app/store/tubeRegistry';
 
 /** The workbench with the supply solved in place (the page uses a Web Worker; jsdom has none). */
@@ -102,6 +102,29 @@ describe('the B+ supply on the bench', () => {
     const supplyParts = card.find((c) => c.heading === 'B+ supply: parts to order')!.lines;
     expect(supplyParts.filter((l) => /^Cf\d .*400 V/.test(l))).toHaveLength(3);
     expect(supplyParts.some((l) => l.startsWith('Rf2 ') && l.includes('1 kΩ'))).toBe(true);
+  });
+
+  it('says the hum the supply leaves at the speaker: each stage\'s node ripple carried to the output, their sum a bound, the output stage on the reservoir the largest share', async () => {
+    const { store, panel } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.hum?.ok).toBe(true), { timeout: 5000 });
+    const view = store.getState().supplyView!;
+    if (!view.result.ok || !view.hum?.ok) throw new Error('solved');
+    const r = view.result;
+    // The model apart: the amplifier at its nodes' B+, each stage's share per volt times its node's ripple.
+    const input = onSupplyInputOf(store.getState().design, LIBRARY_TUBES)!.input;
+    const perVolt = supplyHum({ ...input.amplifier, stages: input.amplifier.stages.map((st, k) => ({ ...st, bplus: r.bplus[k]! })) }, r.amplifier);
+    if (!perVolt.ok) throw new Error(perVolt.message);
+    const shares = perVolt.perVolt.map((x, k) => (x === null ? null : Math.abs(x) * r.supply.nodes[input.feeds[k]!]!.rippleRms));
+    // The EL34 on the reservoir (1.85 V rms of ripple, its ultralinear screen on the tap) gives the most.
+    expect(shares.every((x) => x !== null)).toBe(true);
+    expect(Math.max(...(shares as number[]))).toBe(shares.at(-1));
+    expect(view.hum.bound).toBeCloseTo(shares.reduce<number>((a, v) => a + (v ?? 0), 0), 12);
+    const line = panel.getByTestId('supply-hum').textContent!;
+    expect(line).toMatch(/^Hum at the speaker: at most [\d.]+ (µV|mV) rms \(\d+ dB below 1 W into 8 Ω\)/);
+    expect(line).toMatch(/Output \(EL34\) [\d.]+ (µV|mV)/);
+    expect(line).not.toMatch(/not counted/i);
+    // On the card with the supply.
+    expect(cardSections(store.getState()).find((c) => c.heading === 'B+ supply')!.lines).toContainEqual(expect.stringMatching(/^Hum at the speaker: at most [\d.]+ (µV|mV) rms \(\d+ dB below 1 W into 8 Ω\), each stage's ripple carried/));
   });
 
   it('the demo\'s supply delivers the demo\'s B+; a higher secondary does not, and its B+ can be taken onto the bench', async () => {

@@ -130,6 +130,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   ];
   const amplifier = fc.tuple(near(chainStages[0]!), near(chainStages[1]!), near(chainStages[2]!), near({ rsource: 1e3 }), fc.integer({ min: 0, max: 3 })).map(([a, b, c, source, n]) => ({ source, stages: [a, b, c].slice(0, n) }));
   run('solveChain (amplifier)', fc.tuple(fc.oneof(amplifier, near({ source: { rsource: 0 }, stages: chainStages }))), Q.solveChain, 150);
+  const solvedAmplifier = Q.solveChain({ source: { rsource: 1e3 }, stages: chainStages } as Q.ChainInput);
+  if (!solvedAmplifier.ok) throw new Error(solvedAmplifier.message);
+  run('supplyHum', fc.tuple(fc.oneof(amplifier, near({ source: { rsource: 1e3 }, stages: chainStages })), fc.oneof(fc.constant(solvedAmplifier), near(solvedAmplifier))), Q.supplyHum, 100);
+  run('humAtOutput', fc.tuple(fc.oneof(near({ perVolt: [0.1, null, -0.02] }), anything), fc.oneof(fc.constant([1e-3, 2e-3, 0.5]), fc.array(numbers, { maxLength: 4 }), anything)), Q.humAtOutput);
   run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };
   run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);

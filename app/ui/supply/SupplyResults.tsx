@@ -1,5 +1,6 @@
 import { SAFE_DC_VOLTS } from '../../../src/index';
 import { farads, milliamps, ohms, plain, volts, watts } from '../../format';
+import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
 import { SupplyWaves } from './SupplyWaves';
@@ -92,6 +93,7 @@ export function SupplyResults() {
       ) : (
         <p className="field-hint">No ratings given to check the supply against (the winding's current, a hum budget).</p>
       )}
+      <SupplyHumLine view={view} />
       <div className="supply-bplus">
         <ul>
           {offBy.map((x) => (

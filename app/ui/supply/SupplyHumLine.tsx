@@ -1,0 +1,43 @@
+import { useWorkbench } from '../../store/StoreProvider';
+import type { SupplyView } from '../../store/supplySlice';
+
+/** A hum voltage to read: µV under a millivolt, else mV. */
+const small = (v: number) => (v < 1e-3 ? `${Number((v * 1e6).toPrecision(2))} µV` : `${Number((v * 1e3).toPrecision(3))} mV`);
+
+/** The hum's headline in words, as the card prints it: the bound and how far under the reference it is. */
+export function humWords(view: SupplyView, speakerOhms: number | null): string | null {
+  const h = view.hum;
+  if (!h?.ok) return null;
+  const db = speakerOhms !== null ? `${(20 * Math.log10(Math.sqrt(speakerOhms) / Math.max(h.bound, 1e-12))).toFixed(0)} dB below 1 W into ${speakerOhms} Ω` : `${(20 * Math.log10(Math.max(h.bound, 1e-12))).toFixed(0).replace('-', '−')} dBV`;
+  return `Hum at the ${speakerOhms !== null ? 'speaker' : 'output'}: at most ${small(h.bound)} rms (${db})`;
+}
+
+/**
+ * The hum the supply leaves at the amplifier's output: each stage's B+
+ * ripple carried to the output at midband, and their sum as a bound (the
+ * nodes' ripples are not in phase). At the speaker it is read against 1 W;
+ * elsewhere in dBV. A stage whose own injection is not modelled (a phase
+ * splitter, a push-pull pair) is named.
+ */
+export function SupplyHumLine({ view }: { view: SupplyView }) {
+  const speakerOhms = useWorkbench((s) => (view.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null));
+  const outputConnection = useWorkbench((s) => (view.names.some((n) => n.role === 'output') ? s.design.output.connection : null));
+  const hum = view.hum;
+  if (!hum) return null;
+  if (!hum.ok) return <p className="field-error">{`Hum at the output: ${hum.message}`}</p>;
+  const h = hum;
+  const shares = view.names.map((n, k) => `${n.title} (${n.tube}) ${h.volts[k] === null ? 'not counted' : small(h.volts[k]!)}`).join(', ');
+  const uncounted = h.volts.some((v) => v === null);
+  const pentode = outputConnection === 'pentode';
+  return (
+    <p className="supply-hum" data-testid="supply-hum">
+      <strong>{humWords(view, speakerOhms)}</strong>
+      {`. From each stage's B+ ripple: ${shares}.`}
+      <span className="supply-hum-why">
+        {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
+        {uncounted ? ' Not counted: a phase splitter\u2019s and a push-pull pair\u2019s own (common mode, which a matched pair cancels to first order).' : ''}
+        {pentode ? ' The pentode output stage\u2019s screen supply is taken as clean.' : ''}
+      </span>
+    </p>
+  );
+}

@@ -1,0 +1,151 @@
+import { fail, type Result } from '../result';
+import { solveOutput } from '../output/solveOutput';
+import { smallSignalAt } from '../tube/triode';
+import { korenPentodeInto } from '../tube/pentode';
+import type { ChainInput, ChainResult, ChainStage, SingleEndedLink } from './chainTypes';
+import { checkChain } from './prepareAmplifier';
+
+/**
+ * How each stage's B+ ripple reaches the amplifier's output, per volt of
+ * ripple: signed (in phase with the ripple, or inverted), at midband (the
+ * coupling and bypass capacitors taken as shorts at the ripple's frequency,
+ * as they are for 100 or 120 Hz when the band reaches well below it).
+ */
+export interface SupplyHum {
+  /**
+   * Output volts per volt of ripple on each stage's B+ (at the speaker for
+   * an output stage). Null where a stage's own injection is not modelled:
+   * a pentode or ultralinear output stage (the screen's ripple moves its
+   * current too), a phase splitter and a push-pull pair (common mode, which
+   * a matched pair cancels to first order). Ripple that enters before them
+   * is carried through them as signal.
+   */
+  readonly perVolt: readonly (number | null)[];
+}
+
+/** What a stage's output node does per volt on its B+, before the stages after it. */
+function injection(s: ChainStage, solved: ChainResult['stages'][number], load: number): number | null {
+  const par = (a: number, b: number) => (Number.isFinite(b) ? (a * b) / (a + b) : a);
+  if (s.kind === 'common-cathode' || s.kind === 'follower') {
+    const { mu, rp } = smallSignalAt(s.tube, solved.op.va - solved.op.vk, solved.op.vgk);
+    if (!Number.isFinite(rp)) return 0;
+    if (s.kind === 'follower') {
+      // Grid held, plate moved by the ripple: vk·(rp/Rk' + μ + 1) = vr, Rk' the cathode resistor beside the load.
+      const rk = par(s.rk, load);
+      return rk / (rp + (mu + 1) * rk);
+    }
+    // The ripple in series with Ra; the plate's other way to ground is the tube (with an unbypassed Rk, rp + (μ+1)·Rk) beside the load.
+    const down = par(rp + (s.bypassed || s.rk === 0 ? 0 : (mu + 1) * s.rk), load);
+    return down / (s.ra + down);
+  }
+  if (s.kind === 'single-ended-output') return outputInjection(s);
+  return null;
+}
+
+/**
+ * An output stage's own share: the ripple on the primary's B+ end, the
+ * cathode at AC ground. The tube's currents are linear about the operating
+ * point (plate and screen conductances, taken numerically from its law with
+ * the screen held); the winding's voltage w is the coupled current (the
+ * plate's, plus an ultralinear screen's through the tap's share of the
+ * turns) times the reflected load; the plate sits at the ripple less w and
+ * the DC resistance's drop; the screen at the plate (triode-connected), at
+ * the tap (the ripple less the tap's share of w), or on its own supply,
+ * taken as clean (pentode). The speaker gets w through the turns ratio,
+ * plate-phased as the stage's gain (the plate end falls against the B+ end:
+ * negative).
+ */
+function outputInjection(s: SingleEndedLink): number | null {
+  const { kind: _kind, tube, coupling, ck: _ck, ...parts } = s;
+  const solved = solveOutput(tube, { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 });
+  if (!solved.ok) return null;
+  const { op } = solved;
+  const zp = s.zPrimary;
+  const n = Math.sqrt(zp / s.speakerOhms);
+  if (tube.law.kind === 'triode') {
+    if (!Number.isFinite(op.rp)) return 0;
+    return -(zp / (zp + s.rPrimary + op.rp)) / n;
+  }
+  const params = tube.law.params;
+  const feed = op.feed;
+  const vs0 = feed.kind === 'fixed' ? feed.vg2k : feed.kind === 'tied' ? op.vpk : feed.supply;
+  const at = { ia: 0, ig2: 0 };
+  const currents = (vp: number, vs: number) => {
+    korenPentodeInto(params, vp, op.vgk, vs, at);
+    return [at.ia, at.ig2] as const;
+  };
+  const h = 1e-3 * Math.max(1, op.vpk);
+  const [iaP, ig2P] = currents(op.vpk + h, vs0);
+  const [iaM, ig2M] = currents(op.vpk - h, vs0);
+  const [iaS, ig2S] = currents(op.vpk, vs0 + h);
+  const [iaT, ig2T] = currents(op.vpk, vs0 - h);
+  const ga = (iaP - iaM) / (2 * h);
+  const ga2 = (ig2P - ig2M) / (2 * h);
+  const gs = (iaS - iaT) / (2 * h);
+  const gs2 = (ig2S - ig2T) / (2 * h);
+  // Each current as A·vp + B·w + C (per volt of ripple), by where the screen sits.
+  const f = feed.kind === 'tap' ? feed.fraction : 0;
+  const ia = feed.kind === 'tied' ? [ga + gs, 0, 0] : feed.kind === 'tap' ? [ga, -f * gs, gs] : [ga, 0, 0];
+  const ig2 = feed.kind === 'tied' ? [ga2 + gs2, 0, 0] : feed.kind === 'tap' ? [ga2, -f * gs2, gs2] : [ga2, 0, 0];
+  // The winding couples the plate's current and an ultralinear screen's share; the DC resistance carries the charted current.
+  const [m1, m2] = feed.kind === 'tied' ? [1, 1] : [1, f];
+  const [p1, p2] = feed.kind === 'tied' ? [1, 1] : [1, 0];
+  const mix = (a: number, b: number, k: number) => a * ia[k]! + b * ig2[k]!;
+  // w − Zp·mmf = 0 and vp + w + Rdc·ip = 1, solved for w.
+  const a11 = -zp * mix(m1, m2, 0), a12 = 1 - zp * mix(m1, m2, 1), b1 = zp * mix(m1, m2, 2);
+  const a21 = 1 + s.rPrimary * mix(p1, p2, 0), a22 = 1 + s.rPrimary * mix(p1, p2, 1), b2 = 1 - s.rPrimary * mix(p1, p2, 2);
+  const det = a11 * a22 - a12 * a21;
+  if (!(Math.abs(det) > 0)) return null;
+  const w = (a11 * b2 - a21 * b1) / det;
+  return -w / n;
+}
+
+/**
+ * Each stage's B+ ripple as it reaches the output (SupplyHum): its own
+ * injection at its output node, the stage loaded by the next one's input
+ * (its grid leak, or nothing for a direct-coupled grid) or the amplifier's
+ * load, then carried by every later stage's midband gain.
+ */
+export function supplyHum(chain: ChainInput, solved: ChainResult): Result<SupplyHum> {
+  if (typeof chain !== 'object' || chain === null || !Array.isArray(chain.stages) || typeof solved !== 'object' || solved === null || !Array.isArray(solved.stages)) {
+    return fail('invalid-input', 'Give the amplifier and its solution');
+  }
+  const problem = checkChain(chain);
+  if (problem) return problem;
+  if (chain.stages.length !== solved.stages.length) return fail('invalid-input', `The solution has ${solved.stages.length} stages for an amplifier of ${chain.stages.length}`);
+  const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
+  const usable = solved.stages.every((st) => typeof st === 'object' && st !== null && finite(st.gain) && typeof st.op === 'object' && st.op !== null && finite(st.op.va) && finite(st.op.vk) && finite(st.op.vgk) && (st.zin === null || typeof st.zin === 'number'));
+  if (!usable) return fail('invalid-input', 'Every solved stage must give its operating point, gain and input impedance');
+  const n = chain.stages.length;
+  const perVolt = chain.stages.map((s, k) => {
+    const next = solved.stages[k + 1];
+    const load = next ? (next.zin ?? Infinity) : (chain.load?.rl ?? Infinity);
+    const own = injection(s, solved.stages[k]!, load);
+    if (own === null || !Number.isFinite(own)) return null;
+    let carried = own;
+    for (let j = k + 1; j < n; j++) carried *= solved.stages[j]!.gain;
+    return Number.isFinite(carried) ? carried : null;
+  });
+  return { ok: true, perVolt };
+}
+
+export interface HumAtOutput {
+  /** Each stage's share at the output, V rms (null where its injection is not modelled). */
+  readonly volts: readonly (number | null)[];
+  /**
+   * The hum at the output, V rms, at most: the shares added as if in phase.
+   * The ripples at different nodes are not (each filter section turns its
+   * phase), so the real sum is at or under this bound.
+   */
+  readonly bound: number;
+}
+
+/** The hum each stage's ripple gives at the output (its B+'s ripple, V rms, times its share per volt), and their bound. */
+export function humAtOutput(hum: SupplyHum, rippleRms: readonly number[]): Result<HumAtOutput> {
+  if (typeof hum !== 'object' || hum === null || !Array.isArray(hum.perVolt) || !Array.isArray(rippleRms) || rippleRms.length !== hum.perVolt.length) {
+    return fail('invalid-input', 'Give one ripple voltage for each stage');
+  }
+  if (!rippleRms.every((r) => typeof r === 'number' && Number.isFinite(r) && r >= 0)) return fail('invalid-input', 'Every ripple voltage must be finite and not negative');
+  const volts = hum.perVolt.map((x, k) => (typeof x === 'number' && Number.isFinite(x) ? Math.abs(x) * rippleRms[k]! : null));
+  return { ok: true, volts, bound: volts.reduce<number>((a, v) => a + (v ?? 0), 0) };
+}
