@@ -36,22 +36,25 @@ export interface SupplyPlan {
 }
 
 /**
- * The supply the bench opens on, of our own: 241 V a side at 200 mA, full wave with
- * silicon diodes, a 100 µF reservoir feeding the output stage, then 1 kΩ and
- * 9.1 kΩ sections of 47 µF down to the voltage stages, chosen so the nodes
- * deliver the demo's own B+ (330 V and 275 V, each within 1 %); a 200 mA winding, and
- * a hum budget of 5 mV rms on the input stage's node (common practice for a
- * quiet first stage).
+ * The supply the bench opens on, of our own: 246 V a side at 200 mA, full wave with
+ * silicon diodes into a 100 µF reservoir; a 5 H, 100 Ω choke and 100 µF feed the
+ * single-ended output stage (its primary carries the ripple to the speaker: on the
+ * reservoir alone the demo hummed at about 120 mV, with the choke under 1 mV;
+ * common practice for a single-ended stage), then 1 kΩ (the splitter's node when a
+ * pair is chosen) and 9.1 kΩ sections of 47 µF down to the voltage stages, chosen
+ * so the nodes deliver the demo's own B+ (330 V and 275 V, each within 1 %); a
+ * 200 mA winding, and a hum budget of 5 mV rms on the input stage's node (common
+ * practice for a quiet first stage).
  */
 export const DEMO_SUPPLY: SupplyPlan = {
   on: true,
   mainsHz: 50,
-  secondaryRms: 241,
+  secondaryRms: 246,
   windingOhms: 35,
   rectifier: { kind: 'silicon-full-wave' },
   input: { kind: 'capacitor', c: 100e-6 },
-  sections: [{ kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 9.1e3, c: 47e-6 }],
-  feeds: { output: 0, voltage: 2 },
+  sections: [{ kind: 'lc', l: 5, rdc: 100, c: 100e-6 }, { kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 9.1e3, c: 47e-6 }],
+  feeds: { output: 1, voltage: 3 },
   channels: 1,
   follow: false,
   secondaryAmps: 0.2,

@@ -51,15 +51,16 @@ describe('the B+ supply on the bench', () => {
     await waitFor(() => expect(panel.getByTestId('supply-results')).toBeTruthy(), { timeout: 5000 });
     const view = store.getState().supplyView!;
     if (!view.result.ok) throw new Error(view.result.message);
-    // Three nodes: the output stage on the reservoir, the voltage stage at the end of the ladder (DEMO_SUPPLY).
-    expect(panel.getAllByRole('row')).toHaveLength(1 + 3);
-    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '1')).getByText(/Output \(EL34\)/)).toBeTruthy();
-    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '3')).getByText(/Stage 1 \(12AX7\)/)).toBeTruthy();
-    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '3')).getByText(/Stage 2 \(12AU7\)/)).toBeTruthy();
+    // Four nodes: the output stage after the choke, the voltage stages at the end of the ladder (DEMO_SUPPLY).
+    expect(panel.getAllByRole('row')).toHaveLength(1 + 4);
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '2')).getByText(/Output \(EL34\)/)).toBeTruthy();
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '4')).getByText(/Stage 1 \(12AX7\)/)).toBeTruthy();
+    expect(within(panel.getByText((_, el) => el?.getAttribute('data-node') === '4')).getByText(/Stage 2 \(12AU7\)/)).toBeTruthy();
     // B+ falls down the ladder, each node's shown value the model's.
     const dcs = view.result.supply.nodes.map((n) => n.dc);
     expect(dcs[0]!).toBeGreaterThan(dcs[1]!);
     expect(dcs[1]!).toBeGreaterThan(dcs[2]!);
+    expect(dcs[2]!).toBeGreaterThan(dcs[3]!);
     expect(nodeDc(1)).toBe(`${Number(dcs[0]!.toPrecision(3))} V`);
     // And at full power (the output stage at its clean limit).
     expect(document.querySelector('tr[data-node="1"] [data-figure="node-full"]')?.textContent).toBe(`${Number(view.result.atFullPower!.volts[0]!.toPrecision(3))} V`);
@@ -72,8 +73,8 @@ describe('the B+ supply on the bench', () => {
     const card = cardSections(store.getState());
     expect(card.map((c) => c.heading).slice(0, 2)).toEqual(['Amplifier', 'B+ supply']);
     const lines = card[1]!.lines;
-    expect(lines[0]).toMatch(/^241 V rms a side at 200 mA, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 1 kΩ \/ 47 µF → 9.1 kΩ \/ 47 µF$/);
-    expect(lines[1]).toMatch(/^Nodes 1: .* \(output\); 2: .*; 3: .* \(stage 1, stage 2\)$/);
+    expect(lines[0]).toMatch(/^246 V rms a side at 200 mA, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 5 H \(100 Ω\) \/ 100 µF → 1 kΩ \/ 47 µF → 9.1 kΩ \/ 47 µF$/);
+    expect(lines[1]).toMatch(/^Nodes 1: [^(]*; 2: .* \(output\); 3: .*; 4: .* \(stage 1, stage 2\)$/);
     expect(lines.some((l) => /^Bleeder .*Ω, .* W across node 1: under 60 V in/.test(l))).toBe(true);
   });
 
@@ -84,24 +85,29 @@ describe('the B+ supply on the bench', () => {
     if (!view.result.ok) throw new Error(view.result.message);
     const cold = view.result.supply.noLoadVolts;
     const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
-    // DEMO_SUPPLY: 100 µF, then 1 kΩ / 47 µF and 9.1 kΩ / 47 µF; about 351 V cold, 386 V with the mains 10 % high: 400 V parts.
+    // DEMO_SUPPLY: 100 µF, a 5 H choke into 100 µF, then 1 kΩ / 47 µF and 9.1 kΩ / 47 µF; about 358 V cold, 394 V with the
+    // mains 10 % high: 400 V parts.
     expect(cold * 1.1).toBeGreaterThan(350);
     expect(cold * 1.1).toBeLessThan(400);
-    for (const ref of ['Cf1', 'Cf2', 'Cf3']) expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === ref).textContent).toMatch(/µF.*400 V$/);
-    // The 9.1 kΩ carries node 3's current (Kirchhoff): I²R is what the line says it runs at.
-    const amps = view.result.loads[2]!;
-    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Rf3').textContent).toContain(`${Number((amps * amps * 9100).toPrecision(3))} W`);
+    for (const ref of ['Cf1', 'Cf2', 'Cf3', 'Cf4']) expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === ref).textContent).toMatch(/µF.*400 V$/);
+    // The 9.1 kΩ carries node 4's current (Kirchhoff): I²R is what the line says it runs at.
+    const amps = view.result.loads[3]!;
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Rf4').textContent).toContain(`${Number((amps * amps * 9100).toPrecision(3))} W`);
     expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Rbleed')).toBeTruthy();
-    // Centre-tapped full wave: each diode stands twice the peak, about 700 V, 773 V with high mains: the 800 V 1N400x part.
-    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'rectifier').textContent).toMatch(/two diodes, each stands 70\d V peak inverse.*: 800 V or more/);
+    // The choke carries every node after the reservoir: the output stage's current and the rest, at full power where more.
+    const through = [1, 2, 3].reduce((a, k) => a + Math.max(view.result.ok ? view.result.loads[k]! : 0, view.result.ok ? (view.result.atFullPower?.loads[k] ?? 0) : 0), 0);
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Lf2').textContent).toBe(`Lf2 (filter, node 1 to node 2): 5 H, 100 Ω, rated for at least ${Number((through * 1e3).toPrecision(3))} mA DC`);
+    // Centre-tapped full wave: each diode stands twice the peak, about 716 V, 788 V with high mains: the 800 V 1N400x part.
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'rectifier').textContent).toMatch(/two diodes, each stands 7\d\d V peak inverse.*: 800 V or more/);
     // The one-section estimate gives way to the supply's own ladder, on the sheet and on the card.
     expect(sheet.getByTestId('filter-on-supply')).toBeTruthy();
     expect(sheet.queryByTestId('filter')).toBeNull();
     const card = cardSections(store.getState());
     expect(card.find((c) => c.heading === 'Parts to order')!.lines.some((l) => l.startsWith('B+ filter'))).toBe(false);
     const supplyParts = card.find((c) => c.heading === 'B+ supply: parts to order')!.lines;
-    expect(supplyParts.filter((l) => /^Cf\d .*400 V/.test(l))).toHaveLength(3);
-    expect(supplyParts.some((l) => l.startsWith('Rf2 ') && l.includes('1 kΩ'))).toBe(true);
+    expect(supplyParts.filter((l) => /^Cf\d .*400 V/.test(l))).toHaveLength(4);
+    expect(supplyParts.some((l) => l.startsWith('Rf3 ') && l.includes('1 kΩ'))).toBe(true);
+    expect(supplyParts.some((l) => l.startsWith('Lf2 ') && l.includes('5 H'))).toBe(true);
   });
 
   it('says the hum the supply leaves at the speaker: each stage\'s node ripple carried to the output, their sum a bound, the output stage on the reservoir the largest share', async () => {
@@ -148,7 +154,7 @@ describe('the B+ supply on the bench', () => {
     const secondary = panel.getByRole('textbox', { name: /^Secondary, each half/ });
     fireEvent.change(secondary, { target: { value: '2x0' } });
     expect(panel.getByRole('alert').textContent).toBeTruthy();
-    expect(store.getState().design.supply.secondaryRms).toBe(241);
+    expect(store.getState().design.supply.secondaryRms).toBe(246);
     const reservoir = panel.getByRole('textbox', { name: /^Node 1 capacitor/ });
     fireEvent.change(reservoir, { target: { value: '0' } });
     expect(within(reservoir.parentElement!).getByRole('alert').textContent).toMatch(/Node 1|capacit|above 0/i);
@@ -184,12 +190,14 @@ describe('the B+ supply on the bench', () => {
   it('adds and removes filter sections; a stage fed from a node that goes moves to the node before it', () => {
     const { store, panel } = bench();
     fireEvent.click(panel.getByRole('button', { name: 'Add an L–C section' }));
-    expect(store.getState().design.supply.sections).toHaveLength(3);
-    expect(panel.getByRole('textbox', { name: /^Node 4: choke/ })).toBeTruthy();
+    expect(store.getState().design.supply.sections).toHaveLength(4);
+    expect(panel.getByRole('textbox', { name: /^Node 5: choke/ })).toBeTruthy();
+    // The voltage stages on node 4: it goes, then its successor at node 3 goes; they move down to node 2, with the output stage.
     fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 3' }));
+    expect(store.getState().design.supply.feeds).toEqual({ output: 1, voltage: 2 });
     fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 3' }));
-    expect(store.getState().design.supply.sections).toHaveLength(1);
-    expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1 });
+    expect(store.getState().design.supply.sections).toHaveLength(2);
+    expect(store.getState().design.supply.feeds).toEqual({ output: 1, voltage: 1 });
   });
 
   it('with a push-pull pair, the phase splitter has its own node: chosen beside the others, and its B+ set against its own', async () => {
@@ -197,15 +205,15 @@ describe('the B+ supply on the bench', () => {
     expect(panel.queryByLabelText('Phase splitter from')).toBeNull();
     act(() => store.getState().setOutputPair('push-pull'));
     const choice = panel.getByLabelText('Phase splitter from') as HTMLSelectElement;
-    expect(choice.value).toBe('1');
-    await waitFor(() => expect(panel.getByText(/^Phase splitter: node 2 gives/)).toBeTruthy(), { timeout: 5000 });
+    expect(choice.value).toBe('2');
+    await waitFor(() => expect(panel.getByText(/^Phase splitter: node 3 gives/)).toBeTruthy(), { timeout: 5000 });
     // The output stage's line is the output stage's node, not the splitter's (it had been the first 'output' stage listed).
-    expect(panel.getByText(/^Output stage: node 1 gives/)).toBeTruthy();
-    fireEvent.change(choice, { target: { value: '2' } });
-    expect(store.getState().design.supply.feeds.splitter).toBe(2);
-    // Remove the last section: the splitter on node 3 moves to node 2, like the stages.
-    fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 3' }));
-    expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 1, splitter: 1 });
+    expect(panel.getByText(/^Output stage: node 2 gives/)).toBeTruthy();
+    fireEvent.change(choice, { target: { value: '3' } });
+    expect(store.getState().design.supply.feeds.splitter).toBe(3);
+    // Remove the last section: the splitter on node 4 moves to node 3, like the stages.
+    fireEvent.click(panel.getByRole('button', { name: 'Remove the section to node 4' }));
+    expect(store.getState().design.supply.feeds).toEqual({ output: 1, voltage: 2, splitter: 2 });
   });
 
   it('with "follow" on, the stages\' B+ are their nodes\' after every solve, read-only with the node named; undo still undoes', async () => {
@@ -214,7 +222,7 @@ describe('the B+ supply on the bench', () => {
     fireEvent.click(panel.getByRole('checkbox', { name: 'The stages\' B+ follow their nodes' }));
     const bplus = screen.getByRole('textbox', { name: /^B\+/ });
     expect(bplus).toHaveProperty('readOnly', true);
-    expect(screen.getByText(/^from node 3 of the supply/)).toBeTruthy();
+    expect(screen.getByText(/^from node 4 of the supply/)).toBeTruthy();
     // A higher secondary: the supply is solved again and the bench's B+ follow it.
     fireEvent.change(panel.getByRole('textbox', { name: /^Secondary, each half/ }), { target: { value: '260' } });
     await waitFor(() => expect(store.getState().design.bplus).toBeGreaterThan(285), { timeout: 5000 });
@@ -223,9 +231,9 @@ describe('the B+ supply on the bench', () => {
     expect(store.getState().design.before[0]).toMatchObject({ bplus: Math.round(r.bplus[0]!) });
     expect(store.getState().design.bplus).toBe(Math.round(r.bplus[1]!));
     expect(store.getState().design.output.bplus).toBe(Math.round(r.bplus[2]!));
-    // Undo goes back to 241 V and its own B+, which already agreed: nothing follows again to undo the undo.
+    // Undo goes back to 246 V and its own B+, which already agreed: nothing follows again to undo the undo.
     act(() => store.getState().undo());
-    await waitFor(() => expect(store.getState().design.supply.secondaryRms).toBe(241));
+    await waitFor(() => expect(store.getState().design.supply.secondaryRms).toBe(246));
     await new Promise((done) => setTimeout(done, 600));
     expect(store.getState().design.bplus).toBeLessThan(285);
     expect(store.getState().future.length).toBeGreaterThan(0);

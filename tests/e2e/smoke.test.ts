@@ -21,7 +21,7 @@ describe.runIf(run)('the built workbench in Chromium', () => {
     expect(await page.getByRole('slider', { name: /operating point/i }).count()).toBe(1);
     // The amplifier solved on its supply in the Web Worker: the node table arrives.
     await page.getByTestId('supply-results').waitFor({ timeout: 15_000 });
-    expect(await page.locator('.supply-nodes tbody tr').count()).toBe(3);
+    expect(await page.locator('.supply-nodes tbody tr').count()).toBe(4);
     mkdirSync('test-results', { recursive: true });
     await page.screenshot({ path: 'test-results/smoke.png', fullPage: true });
     await page.locator('.chain-strip').screenshot({ path: 'test-results/chain-strip.png' });

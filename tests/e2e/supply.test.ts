@@ -12,9 +12,9 @@ describe.runIf(run)('the amplifier on its supply in Chromium', () => {
     const { page, errors } = await openWorkbench(browser.current, inject('baseUrl'));
     const supply = page.getByRole('region', { name: 'B+ supply' });
     await supply.getByTestId('supply-results').waitFor({ timeout: 15_000 });
-    // The output stage on the reservoir, the two voltage stages at the end of the ladder.
-    expect(await supply.locator('tr[data-node="1"] td').last().textContent()).toBe('Output (EL34)');
-    expect(await supply.locator('tr[data-node="3"] td').last().textContent()).toBe('Stage 1 (12AX7), Stage 2 (12AU7)');
+    // The output stage after the choke, the two voltage stages at the end of the ladder.
+    expect(await supply.locator('tr[data-node="2"] td').last().textContent()).toBe('Output (EL34)');
+    expect(await supply.locator('tr[data-node="4"] td').last().textContent()).toBe('Stage 1 (12AX7), Stage 2 (12AU7)');
     const before = await supply.locator('tr[data-node="1"] [data-figure="node-dc"]').textContent();
     // A larger reservoir and two channels: solved again a round at a time, never holding the page for long.
     await page.evaluate(() => {

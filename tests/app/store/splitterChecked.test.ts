@@ -96,19 +96,19 @@ describe('the phase splitter is checked like a stage on the bench', () => {
 describe('the phase splitter on the supply', () => {
   it('a pair switched on takes its splitter from the node before the voltage stages\' (common practice), and the demo runs on its supply', async () => {
     const store = pushPullAmplifier();
-    // The demo's ladder: node 1 the output's, node 3 the voltage stages'; the splitter hangs from node 2 between them.
-    expect(store.getState().design.supply.feeds).toEqual({ output: 0, voltage: 2, splitter: 1 });
+    // The demo's ladder: node 2 the output's (after the choke), node 4 the voltage stages'; the splitter hangs from node 3 between them.
+    expect(store.getState().design.supply.feeds).toEqual({ output: 1, voltage: 3, splitter: 2 });
     await waitFor(() => store.getState().supplyView?.result.ok === true);
     const view = store.getState().supplyView!;
     expect(view.result.ok).toBe(true);
     const at = view.names.findIndex((n) => n.role === 'splitter');
-    expect(view.feeds[at]).toBe(1);
-    // Below the reservoir (the pair's current through 1 kΩ), above the voltage stages' node (their 9.1 kΩ more).
+    expect(view.feeds[at]).toBe(2);
+    // Below the output stage's node (its own current through 1 kΩ), above the voltage stages' node (their 9.1 kΩ more).
     if (view.result.ok) {
-      const [reservoir, splitterNode, voltageNode] = view.result.supply.nodes.map((n) => n.dc);
+      const [, outputNode, splitterNode, voltageNode] = view.result.supply.nodes.map((n) => n.dc);
       // The splitter sits on its node's voltage (the supply's nodes are solved to 10 mV).
       expect(Math.abs(view.result.bplus[at]! - splitterNode!)).toBeLessThan(0.01);
-      expect(splitterNode!).toBeLessThan(reservoir!);
+      expect(splitterNode!).toBeLessThan(outputNode!);
       expect(splitterNode!).toBeGreaterThan(voltageNode!);
     }
     // One undo takes the pair, and the splitter's node with it.
@@ -124,17 +124,17 @@ describe('the phase splitter on the supply', () => {
     const text = writeDesignFile({ title: 'pair', design: store.getState().design });
     const back = readDesignFile(text);
     if (!back.ok) throw new Error(back.message);
-    expect(back.doc.design.supply.feeds).toEqual({ output: 0, voltage: 2, splitter: 1 });
+    expect(back.doc.design.supply.feeds).toEqual({ output: 1, voltage: 3, splitter: 2 });
     const older = JSON.parse(text) as { design: { supply: { feeds: Record<string, number> } } };
     delete older.design.supply.feeds.splitter;
     const old = readDesignFile(JSON.stringify(older));
     if (!old.ok) throw new Error(old.message);
     const chain = onSupplyInputOf(old.doc.design, store.getState().registry)!;
-    expect(chain.input.feeds[chain.names.findIndex((n) => n.role === 'splitter')]).toBe(2);
+    expect(chain.input.feeds[chain.names.findIndex((n) => n.role === 'splitter')]).toBe(3);
     // A node the ladder does not have is named.
     older.design.supply.feeds.splitter = 7;
     const wrong = readDesignFile(JSON.stringify(older));
     expect(wrong.ok).toBe(false);
-    if (!wrong.ok) expect(wrong.message).toMatch(/phase splitter's node must be 1 to 3/);
+    if (!wrong.ok) expect(wrong.message).toMatch(/phase splitter's node must be 1 to 4/);
   });
 });
