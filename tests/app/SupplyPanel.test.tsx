@@ -129,6 +129,8 @@ describe('the B+ supply on the bench', () => {
     expect(line).toMatch(/^Hum at the speaker: at most [\d.]+ (µV|mV) rms \(\d+ dB below 1 W into 8 Ω\)/);
     expect(line).toMatch(/Output \(EL34\) [\d.]+ (µV|mV)/);
     expect(line).not.toMatch(/not counted/i);
+    // And among the amplifier's figures at the top.
+    expect(screen.getByTestId('strip-hum').textContent).toMatch(/^Humat most [\d.]+ (µV|mV) rms \(\d+ dB below 1 W into 8 Ω\)$/);
     // On the card with the supply.
     expect(cardSections(store.getState()).find((c) => c.heading === 'B+ supply')!.lines).toContainEqual(expect.stringMatching(/^Hum at the speaker: at most [\d.]+ (µV|mV) rms \(\d+ dB below 1 W into 8 Ω\), each stage's ripple carried/));
   });

@@ -5,6 +5,7 @@ import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '.
 import { StageCard } from './StageCard';
 import { StageMenu } from './StageMenu';
 import { ChainSchematic } from '../schematic/ChainSchematic';
+import { StripHum } from '../supply/SupplyHumLine';
 import { atLevelWords } from './atLevelWords';
 
 const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
@@ -100,6 +101,7 @@ export function ChainStrip() {
               <dd className={view.atLevel.ok && view.atLevel.pastClean ? 'past-clean' : undefined}>{atLevelWords(view)}</dd>
             </div>
           )}
+          <StripHum />
         </dl>
       )}
     </section>

@@ -41,3 +41,21 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
     </p>
   );
 }
+
+/**
+ * The hum in the amplifier's figures at the top, once the supply is solved:
+ * the bound and how far under 1 W (or in dBV), the details under the supply.
+ * Its own small subscription: a drag's live supply answers redraw only it.
+ */
+export function StripHum() {
+  const view = useWorkbench((s) => (s.design.supply.on ? s.supplyView : null));
+  const speakerOhms = useWorkbench((s) => (view?.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null));
+  const words = view ? humWords(view, speakerOhms) : null;
+  if (!words) return null;
+  return (
+    <div data-testid="strip-hum">
+      <dt>Hum</dt>
+      <dd>{words.replace(/^Hum at the (speaker|output): /, '')}</dd>
+    </div>
+  );
+}
