@@ -14,11 +14,11 @@ import { checkChain } from './prepareAmplifier';
 export interface SupplyHum {
   /**
    * Output volts per volt of ripple on each stage's B+ (at the speaker for
-   * an output stage). Null where a stage's own injection is not modelled:
-   * a pentode or ultralinear output stage (the screen's ripple moves its
-   * current too), a phase splitter and a push-pull pair (common mode, which
-   * a matched pair cancels to first order). Ripple that enters before them
-   * is carried through them as signal.
+   * an output stage). Null where a stage's own injection is not modelled: a
+   * phase splitter and a push-pull pair (common mode, which a matched pair
+   * cancels to first order). Ripple that enters before them is carried
+   * through them as signal. A pentode-connected output stage's screen
+   * supply is taken as clean.
    */
   readonly perVolt: readonly (number | null)[];
 }
