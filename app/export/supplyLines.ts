@@ -1,6 +1,6 @@
 import { farads, milliamps, ohms, plain, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
-import { humWords } from '../ui/supply/SupplyHumLine';
+import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
 
 /**
  * The B+ supply on the card, in three or four lines: what it is, every
@@ -25,7 +25,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
     `Nodes ${nodes}`,
     `Rectifier peak ${milliamps(r.supply.rectifierPeak)}, winding ${milliamps(r.supply.secondaryRmsCurrent)} rms (${plain(r.supply.secondaryVa)} VA); ${volts(r.supply.noLoadVolts)} on every capacitor cold`,
   ];
-  const hum = humWords(view, view.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null);
+  const hum = humWords(view, humSpeakerOhms(s, view));
   if (hum) lines.push(`${hum}, each stage's ripple carried to the output and added in phase`);
   const b = view.bleeder;
   if (b?.ok && b.needed) lines.push(`Bleeder ${ohms(b.ohms)}, ${watts(b.partWatts)} across node 1: under 60 V in ${plain(b.seconds, 2)} s`);

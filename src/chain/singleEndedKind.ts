@@ -22,7 +22,7 @@ function screenTransconductance(s: OutputSolution): number {
 }
 
 /** The output stage's own design record, its grid resistor being the coupling's grid leak. */
-function designOf(s: SingleEndedLink): OutputDesign {
+export function designOf(s: SingleEndedLink): OutputDesign {
   const { kind: _kind, tube, coupling, ck: _ck, ...parts } = s;
   return { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 };
 }

@@ -3,6 +3,7 @@ import { solveOutput } from '../output/solveOutput';
 import { smallSignalAt } from '../tube/triode';
 import { korenPentodeInto } from '../tube/pentode';
 import type { ChainInput, ChainResult, ChainStage, SingleEndedLink } from './chainTypes';
+import { designOf } from './singleEndedKind';
 import { checkChain } from './prepareAmplifier';
 
 /**
@@ -56,8 +57,8 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
  * negative).
  */
 function outputInjection(s: SingleEndedLink): number | null {
-  const { kind: _kind, tube, coupling, ck: _ck, ...parts } = s;
-  const solved = solveOutput(tube, { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 });
+  const tube = s.tube;
+  const solved = solveOutput(tube, designOf(s));
   if (!solved.ok) return null;
   const { op } = solved;
   const zp = s.zPrimary;

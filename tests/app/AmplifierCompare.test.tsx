@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { analyzeAmplifier } from '../../app/store/amplifierChain';
 import { cardSections } from '../../app/export/buildCard';
+import { benchIndex } from '../../app/store/stagePlans';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 
 describe('a tube swap judged in the whole amplifier', () => {
@@ -20,7 +21,7 @@ describe('a tube swap judged in the whole amplifier', () => {
     expect(second.result.gain).toBeCloseTo(apart.result.gain, 9);
     // A chain's midband gain is the product of its stages' gains (each into the load the next presents): swapping
     // one stage's tube scales it by that stage's ratio; the stages around it see the same loads (common practice).
-    const bench = s.design.before.length;
+    const bench = benchIndex(s.design);
     const ratio = second.result.stages[bench]!.gain / first.result.stages[bench]!.gain;
     expect(second.result.gain / first.result.gain).toBeCloseTo(ratio, 6);
     expect(Math.abs(ratio)).toBeGreaterThan(2);

@@ -1,6 +1,7 @@
 import { decibels, plain, watts } from '../../format';
 import type { AmplifierView } from '../../store/amplifierChain';
 import { useWorkbench } from '../../store/StoreProvider';
+import { benchIndex } from '../../store/stagePlans';
 import { atLevelWords } from '../chain/atLevelWords';
 
 /** One row of the whole amplifier with each tube: its words for a solved amplifier. */
@@ -25,7 +26,7 @@ export const AMPLIFIER_COMPARE_ROWS: readonly AmplifierRow[] = [
  * the level the amplifier works at). Shown when the bench is part of a chain.
  */
 export function AmplifierCompare({ first, second }: { first: AmplifierView | null; second: AmplifierView | null }) {
-  const bench = useWorkbench((s) => s.design.before.length);
+  const bench = useWorkbench((s) => benchIndex(s.design));
   if (!first || !second) return null;
   if (!first.result.ok || !second.result.ok) {
     const failed = !second.result.ok ? second.result.message : !first.result.ok ? first.result.message : '';

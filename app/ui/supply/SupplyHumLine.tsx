@@ -1,8 +1,12 @@
 import { useWorkbench } from '../../store/StoreProvider';
 import type { SupplyView } from '../../store/supplySlice';
+import type { WorkbenchState } from '../../store/workbenchStore';
 
 /** A hum voltage to read: µV under a millivolt, else mV. */
 const small = (v: number) => (v < 1e-3 ? `${Number((v * 1e6).toPrecision(2))} µV` : `${Number((v * 1e3).toPrecision(3))} mV`);
+
+/** The speaker the hum is read at: the output stage's, when the supply feeds one; null for an amplifier ending in a voltage stage. */
+export const humSpeakerOhms = (s: WorkbenchState, view: SupplyView | null) => (view?.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null);
 
 /** The hum's headline in words, as the card prints it: the bound and how far under the reference it is. */
 export function humWords(view: SupplyView, speakerOhms: number | null): string | null {
@@ -20,7 +24,7 @@ export function humWords(view: SupplyView, speakerOhms: number | null): string |
  * splitter, a push-pull pair) is named.
  */
 export function SupplyHumLine({ view }: { view: SupplyView }) {
-  const speakerOhms = useWorkbench((s) => (view.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null));
+  const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
   const outputConnection = useWorkbench((s) => (view.names.some((n) => n.role === 'output') ? s.design.output.connection : null));
   const hum = view.hum;
   if (!hum) return null;
@@ -49,7 +53,7 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
  */
 export function StripHum() {
   const view = useWorkbench((s) => (s.design.supply.on ? s.supplyView : null));
-  const speakerOhms = useWorkbench((s) => (view?.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null));
+  const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
   const words = view ? humWords(view, speakerOhms) : null;
   if (!words) return null;
   return (

@@ -2,7 +2,7 @@ import type { TargetName } from '../../../src/index';
 import { ohms, plain } from '../../format';
 
 /** What a target measures at the design, in the bench's words. */
-export function targetValueWords(k: TargetName, v: number | null | undefined): string {
+function targetValueWords(k: TargetName, v: number | null | undefined): string {
   if (v === undefined) return '';
   if (v === null) return k === 'maxThdAt' ? 'the level is past the clean swing' : k === 'maxThdAtPower' ? 'that power needs the grid past 0 V' : 'no rating to hold it to';
   switch (k) {
