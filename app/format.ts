@@ -19,6 +19,8 @@ export const decibels = (ratio: number) => dB(20 * Math.log10(Math.abs(ratio)));
 /** A level in dB to a tenth, negative with a true minus sign (as every other figure here). */
 export const dB = (x: number) => `${x.toFixed(1).replace('-', '−')} dB`;
 /** A fraction shown in percent, to three figures. */
+/** A small voltage (ripple, hum) in the unit that reads: V, mV or µV, to three figures. */
+export const smallVolts = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
 export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 /** A signed level in dB to one decimal, with a true minus sign. */
 export const signedDb = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(1)}`;

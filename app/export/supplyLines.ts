@@ -1,4 +1,4 @@
-import { farads, milliamps, ohms, plain, volts, watts } from '../format';
+import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
 
@@ -19,7 +19,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
     ...p.sections.map((x) => `${x.kind === 'rc' ? ohms(x.r) : `${plain(x.l)} H (${ohms(x.rdc)})`} / ${farads(x.c)}`),
   ].join(' → ');
   const feeds = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => n.title.toLowerCase());
-  const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${plain(n.ripplePp * 1e3)} mV p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
+  const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${smallVolts(n.ripplePp)} p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
   const lines = [
     `${plain(p.secondaryRms)} V rms${p.rectifier.kind === 'silicon-bridge' ? '' : ' a side'}${p.secondaryAmps !== null ? ` at ${milliamps(p.secondaryAmps)}` : ''}, ${p.regulation !== null ? `${plain(p.regulation * 100)} % regulation` : `${ohms(p.windingOhms)} winding`}, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
     `Nodes ${nodes}`,

@@ -75,6 +75,8 @@ describe('the B+ supply on the bench', () => {
     const lines = card[1]!.lines;
     expect(lines[0]).toMatch(/^246 V rms a side at 200 mA, 35 Ω winding, silicon full wave, 50 Hz; 100 µF → 5 H \(100 Ω\) \/ 100 µF → 1 kΩ \/ 47 µF → 9.1 kΩ \/ 47 µF$/);
     expect(lines[1]).toMatch(/^Nodes 1: [^(]*; 2: .* \(output\); 3: .*; 4: .* \(stage 1, stage 2\)$/);
+    // Ripple in the unit that reads, as in the table: the reservoir's volts, the last node's microvolts (not "6480 mV", "0.00563 mV").
+    expect(lines[1]).toMatch(/^Nodes 1: [\d.]+ V, [\d.]+ V p-p; .*; 4: [\d.]+ V, [\d.]+ µV p-p/);
     expect(lines.some((l) => /^Bleeder .*Ω, .* W across node 1: under 60 V in/.test(l))).toBe(true);
   });
 

@@ -1,9 +1,8 @@
+import { smallVolts } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { SupplyView } from '../../store/supplySlice';
 import type { WorkbenchState } from '../../store/workbenchStore';
 
-/** A hum voltage to read: µV under a millivolt, else mV. */
-const small = (v: number) => (v < 1e-3 ? `${Number((v * 1e6).toPrecision(2))} µV` : `${Number((v * 1e3).toPrecision(3))} mV`);
 
 /** The speaker the hum is read at: the output stage's, when the supply feeds one; null for an amplifier ending in a voltage stage. */
 export const humSpeakerOhms = (s: WorkbenchState, view: SupplyView | null) => (view?.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null);
@@ -13,7 +12,7 @@ export function humWords(view: SupplyView, speakerOhms: number | null): string |
   const h = view.hum;
   if (!h?.ok) return null;
   const db = speakerOhms !== null ? `${(20 * Math.log10(Math.sqrt(speakerOhms) / Math.max(h.bound, 1e-12))).toFixed(0)} dB below 1 W into ${speakerOhms} Ω` : `${(20 * Math.log10(Math.max(h.bound, 1e-12))).toFixed(0).replace('-', '−')} dBV`;
-  return `Hum at the ${speakerOhms !== null ? 'speaker' : 'output'}: at most ${small(h.bound)} rms (${db})`;
+  return `Hum at the ${speakerOhms !== null ? 'speaker' : 'output'}: at most ${smallVolts(h.bound)} rms (${db})`;
 }
 
 /**
@@ -30,7 +29,7 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
   if (!hum) return null;
   if (!hum.ok) return <p className="field-error">{`Hum at the output: ${hum.message}`}</p>;
   const h = hum;
-  const shares = view.names.map((n, k) => `${n.title} (${n.tube}) ${h.volts[k] === null ? 'not counted' : small(h.volts[k]!)}`).join(', ');
+  const shares = view.names.map((n, k) => `${n.title} (${n.tube}) ${h.volts[k] === null ? 'not counted' : smallVolts(h.volts[k]!)}`).join(', ');
   const uncounted = h.volts.some((v) => v === null);
   const pentode = outputConnection === 'pentode';
   return (

@@ -1,11 +1,10 @@
 import { SAFE_DC_VOLTS } from '../../../src/index';
-import { farads, milliamps, ohms, plain, volts, watts } from '../../format';
+import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../../format';
 import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
 import { SupplyWaves } from './SupplyWaves';
 
-const mv = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
 const SAME_BPLUS_SHARE = 0.01;
 const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 1e6)} µA`);
 
@@ -58,8 +57,8 @@ export function SupplyResults() {
               <th scope="row">{k + 1}</th>
               <td>{farads(caps[k]!)}</td>
               <td data-figure="node-dc">{volts(node.dc)}</td>
-              <td>{mv(node.ripplePp)}</td>
-              <td>{mv(node.rippleRms)}</td>
+              <td>{smallVolts(node.ripplePp)}</td>
+              <td>{smallVolts(node.rippleRms)}</td>
               {full ? <td data-figure="node-full">{volts(full.volts[k]!)}</td> : null}
               <td>{milliamps(r.loads[k]!)}</td>
               <td>{amps(node.capacitorRippleRms)} rms</td>
