@@ -7,6 +7,7 @@ import { AMPLIFIER_COMPARE_ROWS } from '../ui/panels/AmplifierCompare';
 import type { AmplifierView } from '../store/amplifierChain';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
+import { tubesToOrderLine } from '../store/tubesToOrder';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
@@ -98,14 +99,19 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   if (output) sections.push(output);
   sections.push({ heading: 'Ratings, every stage', lines: ratingsLines(s) });
   const windings = heaterWindingsOf(s);
-  const windingLines = windings.ok ? windings.windings.map((w) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}`) : [windings.message];
+  const windingLines = windings.ok
+    ? [
+        ...windings.windings.map((w) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}`),
+        ...(windings.dc ? [`DC heater supply ${plain(windings.dc.volts)} V, ${plain(windings.dc.amps)} A: ${windings.dc.feeds.join(', ')}`] : []),
+      ]
+    : [windings.message];
   sections.push({ heading: 'Heaters', lines: [build.elevation.ok ? elevationAdvice(build.elevation) : build.elevation.message, ...windingLines] });
   sections.push({
     heading: 'Parts to order',
     lines: [
       ...build.stages.filter((st) => st.onBench).flatMap(partLines),
-      `Tubes: ${build.tubes.map((t) => `${t.envelopes} × ${t.tube.id} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`).join(', ')}`,
-      build.heaters.ok ? `Heaters ${build.heaters.volts} V, ${plain(build.heaters.totalAmps)} A${build.dropper?.ok && build.dropper.preferred > 0 ? `; dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the DC supply` : ''}` : '',
+      tubesToOrderLine(s),
+      build.dropper?.ok && build.dropper.preferred > 0 ? `Heater dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the ${plain(s.design.heaters.dcVolts)} V DC supply` : '',
       // With the supply solved its own ladder filters the stages (its parts are listed with it): the one-section estimate is not theirs.
       build.filter.ok && !s.design.supply.on ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',
     ].filter(Boolean),

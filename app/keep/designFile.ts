@@ -3,8 +3,9 @@ import { findOutputTube, findTube, TABLE_THD, type Connection, type FollowerCoup
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { NO_TARGETS, type TargetPlan } from '../store/targetPlan';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
-import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, JOIN, OUTPUT_STAGE, quote, STAGE_KIND } from './designSchema';
+import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, HEATERS, JOIN, OUTPUT_STAGE, quote, STAGE_KIND } from './designSchema';
 import { readSupplyPlan } from './supplyInFile';
+import { DEFAULT_HEATERS, type HeaterChoice } from '../store/heaterChoice';
 import type { TubeRegistry } from '../store/tubeRegistry';
 import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePlans';
 
@@ -18,6 +19,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
+ *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } },
  *                 before: [stage…], after: [stage…] } }
  *
  * Version 3 holds the whole chain of voltage stages: the design's own
@@ -41,7 +43,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * amplifier; RL is then the output grid resistor) came later within
  * version 2: a file without it opens as it always did, the stages apart.
  * So did `supply` (the B+ supply, see supplyInFile.ts): a file without it
- * opens on the bench's default supply, its own values unchanged.
+ * opens on the bench's default supply, its own values unchanged; and
+ * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
+ * bench's default (on the AC heater winding).
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -169,6 +173,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   }
   const supply = readSupplyPlan(d.supply);
   if (!supply.ok) return supply;
+  const heatersProblem = firstProblem(HEATERS, d, 'design');
+  if (heatersProblem) return { ok: false, message: heatersProblem };
   // Versions 1 and 2 hold no stages beyond the bench's: their chain is its stage and its second stage.
   const before = readPlans(raw.version >= 3 ? d.before : undefined, 'before', true, false);
   if (!before.ok) return before;
@@ -210,6 +216,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     output,
     drivesOutput,
     supply: supply.plan,
+    heaters: d.heaters === undefined ? DEFAULT_HEATERS : { ...(d.heaters as HeaterChoice), wiring: { ...(d.heaters as HeaterChoice).wiring } },
   };
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };
 }

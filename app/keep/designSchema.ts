@@ -128,6 +128,25 @@ export const OUTPUT_STAGE = v.object({
 /** Whether the voltage stages drive the output stage (added within version 2; absent: apart). */
 export const JOIN = v.object({ drivesOutput: v.optional(yesNo()) });
 
+/**
+ * How the small tubes' heaters are fed (came later within version 3: absent,
+ * the bench's default). A wiring names one of the tube's heater wirings; a
+ * name the tube does not have reads as its first, as a tube can change.
+ */
+export const HEATERS = v.object({
+  heaters: v.optional(
+    section({
+      voltageStages: oneOf(['ac', 'dc']),
+      dcVolts: ranged(L.heaterDcVolts),
+      wiring: v.record(
+        v.custom<string>((x) => typeof x === 'string' && x.length <= 60, 'must be keyed by tube names of at most 60 characters'),
+        v.custom<string>((x) => typeof x === 'string' && x.length <= 60, 'must name a heater wiring (text of at most 60 characters)'),
+        'must be an object of tube names and their heater wirings',
+      ),
+    }),
+  ),
+});
+
 /** A stage of the chain off the bench (version 3): its kind first, then its parts. */
 export const STAGE_KIND = v.object({ kind: oneOf(['common-cathode', 'follower']) });
 export const GAIN_STAGE = v.object({

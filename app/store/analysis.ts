@@ -2,6 +2,7 @@ import type { OutputPlan } from './outputPlan';
 import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type FollowerCoupling, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import type { SupplyPlan } from './supplyPlan';
+import type { HeaterChoice } from './heaterChoice';
 import type { TargetPlan } from './targetPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
 import { benchSource } from './amplifierChain';
@@ -48,6 +49,8 @@ export interface BenchDesign {
   readonly drivesOutput: boolean;
   /** The B+ supply, solved with the amplifier when it is on. */
   readonly supply: SupplyPlan;
+  /** How the small tubes' heaters are fed (AC winding or DC supply) and each type's wiring. */
+  readonly heaters: HeaterChoice;
   /** What the builder asks of the voltage stage on the bench; the plate chart shades where it all holds. */
   readonly targets: TargetPlan;
   /** What the builder asks of its cathode follower, kept apart (a follower's Zout and gain are not a gain stage's). */

@@ -12,9 +12,6 @@ import type { WorkbenchState } from './workbenchStore';
 /** The builder's own inputs for the build sheet. */
 export interface BuildInputs {
   readonly cornerHz: number;
-  readonly heaterSupplyVolts: number;
-  /** Heater wiring chosen per tube type (by id); default the first option. */
-  readonly heaterWiring: Readonly<Record<string, string>>;
   /** The rail ahead of the decoupling filter, V; null follows the design's B+ until the user sets one. */
   readonly railVolts: number | null;
   readonly filterR: number;
@@ -22,7 +19,7 @@ export interface BuildInputs {
   readonly showSpread: boolean;
 }
 
-export const DEFAULT_BUILD: BuildInputs = { cornerHz: 5, heaterSupplyVolts: 12.6, heaterWiring: {}, railVolts: null, filterR: 4.7e3, filterC: 47e-6, showSpread: true };
+export const DEFAULT_BUILD: BuildInputs = { cornerHz: 5, railVolts: null, filterR: 4.7e3, filterC: 47e-6, showSpread: true };
 
 /** One stage's parts on the sheet, and whether it is the stage on the bench. */
 export interface SheetStage extends StageParts {
@@ -48,6 +45,7 @@ export interface BuildSheet {
   readonly spread: ({ ok: true } & Spread) | Failure;
   readonly tubes: readonly { tube: TubeRecord; options: readonly HeaterOption[]; chosen: HeaterOption; sectionsUsed: number; envelopes: number }[];
   readonly heaters: ({ ok: true } & HeaterPlan) | Failure;
+  /** The DC heater supply's dropping resistor; null with the heaters on the AC winding. */
   readonly dropper: ({ ok: true } & DroppingResistor) | Failure | null;
   readonly elevation: { ok: true; lo: number | null; hi: number | null; suggested: number; groundedOk: boolean } | Failure;
   readonly filter: ({ ok: true } & DecouplingResult) | Failure;
@@ -112,12 +110,13 @@ function compute(s: WorkbenchState): BuildSheet {
   const splitterSections = splitterTube ? Array.from({ length: d.output.splitter.kind === 'long-tailed-pair' ? 2 : 1 }, () => splitterTube) : [];
   const stageTubes = [...list.flatMap((p) => s.registry.lookup(p.tubeId) ?? []), ...splitterSections];
   const tubes = envelopesOf(stageTubes).map(({ tube, sectionsUsed, envelopes }) => {
-    const chosen = tube.heaters.find((h) => h.wiring === inp.heaterWiring[tube.id]) ?? tube.heaters[0]!;
+    const chosen = tube.heaters.find((h) => h.wiring === d.heaters.wiring[tube.id]) ?? tube.heaters[0]!;
     return { tube, options: tube.heaters, chosen, sectionsUsed, envelopes };
   });
   // One heater per envelope, counted explicitly: two stages on one twin triode light one heater.
   const heaters = heaterTotals(tubes.flatMap((t) => Array.from({ length: t.envelopes }, () => t.chosen)));
-  const dropper = heaters.ok ? droppingResistor(heaters, inp.heaterSupplyVolts, d.series) : null;
+  // A dropping resistor only where the heaters run from the DC supply: on the AC winding they take its voltage.
+  const dropper = heaters.ok && d.heaters.voltageStages === 'dc' ? droppingResistor(heaters, d.heaters.dcVolts, d.series) : null;
   const splitterStage = pair && amp ? amp.stages[list.length] : undefined;
   const otherAmps = amp ? amp.stages.reduce((sum, st, i) => ((i < list.length && !block.has(i)) || st === splitterStage ? sum + st.supplyCurrent : sum), 0) : 0;
   const totalBplusAmps = sol.op.ia + (link?.op.ia ?? 0) + otherAmps;

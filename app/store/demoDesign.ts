@@ -4,6 +4,7 @@ import { NO_TARGETS } from './targetPlan';
 import type { BenchDesign } from './analysis';
 import { autoTitle } from './autoTitle';
 import { DEMO_SUPPLY } from './supplyPlan';
+import { DEFAULT_HEATERS } from './heaterChoice';
 
 /**
  * The design the bench opens on: a small amplifier of our own making, three
@@ -59,6 +60,7 @@ export const DEMO_DESIGN: BenchDesign = {
     ...pairDefaults(3500),
   },
   supply: DEMO_SUPPLY,
+  heaters: DEFAULT_HEATERS,
 };
 
 /** The demo's title is its automatic one, so it follows the first change the user makes. */

@@ -44,6 +44,8 @@ export const DESIGN_LIMITS = {
     cc: limit(1e-12, 1, 'F'),
     vbias: limit(0, 1000, 'V'),
   },
+  /** A DC heater supply: from a 1.5 V cell to a string of heaters in series. */
+  heaterDcVolts: limit(0.5, 500, 'V'),
   splitter: {
     bplus: limit(5, 1500, 'V'),
     ra: limit(100, 10e6, 'Ω'),

@@ -1,4 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
+import type { HeaterChoice } from './heaterChoice';
 import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeAmplifier, splitterRefusal, type AmplifierView } from './amplifierChain';
@@ -56,6 +57,8 @@ export interface DesignSlice {
   setBypassed: (on: boolean) => void;
   setSeries: (series: PreferredSeries) => void;
   setSnap: (on: boolean) => void;
+  /** How the small tubes' heaters are fed and wired (the build sheet's choice): one undo step. */
+  setHeaters: (patch: Partial<HeaterChoice>) => void;
   /** Runs the model on `next`; on success makes it the design and returns null. */
   commit: (next: BenchDesign, opts?: CommitOptions) => Failure | null;
   /** How many plate curves the chart draws at most: 6 (sparse), 12 (normal) or 24 (dense). */
@@ -329,6 +332,10 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   },
   setSnap: (on) => {
     get().commit({ ...get().design, snap: on });
+  },
+  setHeaters: (patch) => {
+    const d = get().design;
+    get().commit({ ...d, heaters: { ...d.heaters, ...patch } });
   },
 };
 };

@@ -20,8 +20,10 @@ describe('the build sheet', () => {
     expect(view.container.querySelector('[data-part-line="Cout"]')!.textContent).toContain('630 V');
     expect(view.container.querySelectorAll('.layer-spread circle').length).toBeGreaterThan(100);
     // The demo lights two envelopes, the 12AX7 input stage and the 12AU7 driver, each 6.3 V 0.3 A in parallel (Tung-Sol 12AX7 and
-    // 12AU7 data sheets); the dropper by Ohm's law:
+    // 12AU7 data sheets). On the AC winding they need no dropper; from a 12.6 V DC supply, the dropper by Ohm's law:
     // (12.6 − 6.3) V / 0.6 A = 10.5 Ω; nearest E24 by ratio is 11 Ω; heaters then get 12.6 × 10.5/(10.5 + 11) = 6.15 V; it runs at 0.6² × 11 = 4.0 W, rated twice that, 10 W (common practice).
+    expect(sheet.queryByTestId('dropper')).toBeNull();
+    act(() => store.getState().setHeaters({ voltageStages: 'dc' }));
     expect(sheet.getByTestId('dropper').textContent).toMatch(/^Dropping resistor 10.5 Ω exactly, order 11 Ω \(10 W\): heaters at 6.15 V/);
     expect(sheet.getByTestId('elevation').textContent).toMatch(/within every rating with the heaters at ground/);
   });
@@ -71,6 +73,7 @@ describe('the build sheet', () => {
     const user = userEvent.setup();
     render(<App store={store} />);
     const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
+    await user.selectOptions(sheet.getByLabelText(/heaters run/), 'dc');
     const supply = sheet.getByLabelText(/^DC heater supply/);
     await user.clear(supply);
     await user.type(supply, '5');

@@ -4,6 +4,7 @@ import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
 import { StagesParts } from '../panels/StagesParts';
+import { TubesToOrder } from '../panels/TubesToOrder';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
 
 /** The parts to order on screen with the output stage on the bench, as the card lists them: every stage's when driven, then its transformer, resistors, capacitors, heater. */
@@ -14,6 +15,7 @@ export function OutputPartsPanel() {
   return (
     <section className="panel build-sheet output-parts" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Parts to order</h2>
+      <TubesToOrder />
       {driven ? (
         <>
           <StagesParts />

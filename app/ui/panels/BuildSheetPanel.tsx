@@ -1,8 +1,9 @@
 import { useId } from 'react';
-import { farads, milliamps, ohms, plain, volts, watts } from '../../format';
+import { farads, milliamps, plain, volts, watts } from '../../format';
 import { buildSheetOf, railOf } from '../../store/buildSheet';
 import { useWorkbench } from '../../store/StoreProvider';
-import { elevationAdvice } from './elevationAdvice';
+import { HeaterSection } from './HeaterSection';
+import { TubesToOrder } from './TubesToOrder';
 import { StagesParts } from './StagesParts';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
@@ -39,6 +40,7 @@ export function BuildSheetPanel() {
   return (
     <section className="panel build-sheet" aria-labelledby={`${id}-h`}>
       <h2 id={`${id}-h`}>Build sheet</h2>
+      <TubesToOrder />
       <StagesParts />
       {drivenOutput ? (
         <>
@@ -47,6 +49,7 @@ export function BuildSheetPanel() {
         </>
       ) : null}
       <SupplyPartsList />
+      <h3 className="subhead corner-head">Capacitors for a wanted low corner, the bench's stage</h3>
       <div className="option-row">
         <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />
       </div>
@@ -77,24 +80,7 @@ export function BuildSheetPanel() {
         </p>
       ) : <p className="field-error">{sp.message}</p>}
       <label><input type="checkbox" checked={inputs.showSpread} onChange={(e) => setInputs({ showSpread: e.target.checked })} /> Show the spread on the chart</label>
-      <h3 className="subhead">Heaters</h3>
-      {sheet.tubes.map((t) => (
-        <div className="option-row" key={t.tube.id}>
-          <label htmlFor={`${id}-${t.tube.id}`}>{`${t.tube.id}: ${t.envelopes} envelope${t.envelopes === 1 ? '' : 's'} (${t.sectionsUsed} section${t.sectionsUsed === 1 ? '' : 's'} used)`}</label>
-          <select id={`${id}-${t.tube.id}`} value={t.chosen.wiring} onChange={(e) => setInputs({ heaterWiring: { ...inputs.heaterWiring, [t.tube.id]: e.target.value } })}>
-            {t.options.map((o) => <option key={o.wiring} value={o.wiring}>{`${o.volts} V, ${o.amps} A (${o.wiring})`}</option>)}
-          </select>
-        </div>
-      ))}
-      {sheet.heaters.ok ? <p>{`Heaters: ${sheet.heaters.volts} V, ${plain(sheet.heaters.totalAmps)} A, ${plain(sheet.heaters.totalWatts)} W in all.`}</p> : <p className="field-error">{sheet.heaters.message}</p>}
-      <div className="option-row"><NumberInput label="DC heater supply" unit="V" value={inputs.heaterSupplyVolts} min={0.1} onValue={(v) => setInputs({ heaterSupplyVolts: v })} /></div>
-      {sheet.dropper && !sheet.dropper.ok ? <p className="field-error" role="alert">{sheet.dropper.message}</p> : null}
-      {sheet.dropper?.ok ? (
-        <p data-testid="dropper">{sheet.dropper.preferred === 0 ? 'No dropping resistor needed.' : `Dropping resistor ${ohms(sheet.dropper.exact)} exactly, order ${ohms(sheet.dropper.preferred)} (${sheet.dropper.ratingWatts} W): heaters at ${plain(sheet.dropper.heaterVolts)} V, resistor dissipating ${watts(sheet.dropper.watts)}.`}{sheet.dropper.warning ? <span className="field-error"> {sheet.dropper.warning}</span> : null}</p>
-      ) : null}
-      {sheet.elevation.ok ? (
-        <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p>
-      ) : <p className="field-error">{sheet.elevation.message}</p>}
+      <HeaterSection />
       <h3 className="subhead decoupling">B+ decoupling filter</h3>
       {supplyOn ? (
         <p className="decoupling" data-testid="filter-on-supply">The amplifier is solved on its B+ supply: its filter ladder feeds the stages (B+ supply, below; its parts are listed above). Clear &ldquo;Solve the amplifier on this supply&rdquo; there for a quick one-section estimate here.</p>

@@ -18,9 +18,10 @@ export function HeaterWindings() {
               {w.atBplus ? '. Its own winding: the filament is the rectifier\'s cathode and sits at B+, so the winding must be insulated for it (common practice).' : ''}
             </li>
           ))}
+          {view.dc ? <li key="dc" data-heater="dc"><strong>DC heater supply {plain(view.dc.volts)} V, {plain(view.dc.amps)} A</strong> at the heaters: {view.dc.feeds.join(', ')}. Its winding, rectifier and filter are not designed here.</li> : null}
         </ul>
       )}
-      <p className="field-hint">The voltage stages' heaters, their wiring and a DC heater supply with its dropping resistor are on the build sheet.</p>
+      <p className="field-hint">Whether the voltage stages' heaters run on the winding or from a DC supply, their wiring and the supply's dropping resistor are on the build sheet.</p>
     </div>
   );
 }

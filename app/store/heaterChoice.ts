@@ -1,0 +1,19 @@
+/**
+ * How the amplifier's small tubes are lit, as the builder chooses it on the
+ * build sheet: on the mains transformer's heater winding (AC, with the
+ * output tubes), or from a DC supply through a dropping resistor (common
+ * practice for a low-level input stage, to keep heater hum out of it). The
+ * output tubes and a rectifier tube always take their windings. Part of the
+ * design: saved, shared, autosaved and undone with it.
+ */
+export interface HeaterChoice {
+  /** Where the voltage stages' and the phase splitter's heaters are fed from. */
+  readonly voltageStages: 'ac' | 'dc';
+  /** The DC heater supply's voltage, V (used when `voltageStages` is 'dc'). */
+  readonly dcVolts: number;
+  /** Each tube type's heater wiring, by tube id (its record's `wiring` name); absent, the record's first. */
+  readonly wiring: Readonly<Record<string, string>>;
+}
+
+/** The bench's default: everything on the heater winding, 12.6 V offered for a DC supply (two 6.3 V heaters in series, or 12AX7-family in series wiring). */
+export const DEFAULT_HEATERS: HeaterChoice = { voltageStages: 'ac', dcVolts: 12.6, wiring: {} };
