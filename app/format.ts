@@ -18,9 +18,11 @@ export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digi
 export const decibels = (ratio: number) => dB(20 * Math.log10(Math.abs(ratio)));
 /** A level in dB to a tenth, negative with a true minus sign (as every other figure here). */
 export const dB = (x: number) => `${x.toFixed(1).replace('-', '−')} dB`;
-/** A fraction shown in percent, to three figures. */
 /** A small voltage (ripple, hum) in the unit that reads: V, mV or µV, to three figures. */
 export const smallVolts = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
+/** A current that can be tiny (a filter capacitor's ripple current): mA down to 1 mA, then µA, then nA, to three figures. */
+export const smallAmps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : a >= 1e-6 ? `${plain(a * 1e6)} µA` : `${plain(a * 1e9)} nA`);
+/** A fraction shown in percent, to three figures. */
 export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 /** A signed level in dB to one decimal, with a true minus sign. */
 export const signedDb = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(1)}`;

@@ -1,5 +1,5 @@
 import type { ChokeLine, RectifierLine, SupplyParts } from '../../src/index';
-import { farads, milliamps, ohms, plain, volts, watts } from '../format';
+import { farads, milliamps, ohms, plain, smallAmps, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /** The supply's capacitors' rating rule, as the table's caption states it. */
@@ -25,7 +25,7 @@ export function supplyPartLines(s: WorkbenchState): string[] {
   if (!parts) return [];
   const tube = s.design.supply.rectifier.kind === 'tube' ? s.design.supply.rectifier.tubeId : null;
   return [
-    ...parts.capacitors.map((c) => `${c.ref} (${c.role}): ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V, ${milliamps(c.rippleAmps)} rms ripple${c.note ? `; ${c.note}` : ''}`),
+    ...parts.capacitors.map((c) => `${c.ref} (${c.role}): ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V, ${smallAmps(c.rippleAmps)} rms ripple${c.note ? `; ${c.note}` : ''}`),
     ...parts.resistors.map((r) => `${r.ref} (${r.role}): ${ohms(r.preferred)}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
     ...parts.chokes.map(chokeWords),
     rectifierWords(parts.rectifier, tube),

@@ -1,5 +1,6 @@
 import { bandOf, BAND_SEVERITY, bySeverity, finding, type Finding } from '../stage/ratingBands';
 import { findRectifierTube } from './rectifierTubes';
+import { formatValue } from '../parts/formatValue';
 import type { SupplyDesign, SupplySolution } from './supplyTypes';
 
 /** Above this share of a supply part's rating it gets a warning: mains runs up to 10 % high (common practice). */
@@ -42,7 +43,7 @@ export function supplyFindings(d: SupplyDesign, s: SupplySolution): Finding[] {
   if (r.hum && s.nodes[r.hum.node]) {
     const ripple = s.nodes[r.hum.node]!.rippleRms;
     const over = ripple > r.hum.maxRippleRms;
-    out.push(finding('hum', over ? 'warning' : 'note', `Ripple at node ${r.hum.node + 1}, which feeds the first stage, is ${(ripple * 1e3).toPrecision(3)} mV rms against your budget of ${(r.hum.maxRippleRms * 1e3).toPrecision(3)} mV${over ? ': expect hum; add a filter section or a larger capacitor.' : '.'}`, ripple, r.hum.maxRippleRms));
+    out.push(finding('hum', over ? 'warning' : 'note', `Ripple at node ${r.hum.node + 1}, which feeds the first stage, is ${formatValue(ripple, 'V')} rms against your budget of ${formatValue(r.hum.maxRippleRms, 'V')}${over ? ': expect hum; add a filter section or a larger capacitor.' : '.'}`, ripple, r.hum.maxRippleRms));
   }
   return bySeverity(out);
 }

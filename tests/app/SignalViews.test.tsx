@@ -71,6 +71,11 @@ describe('signal views', () => {
     const { view } = setup();
     expect(view.container.querySelector('[data-series="transfer"]')?.getAttribute('d')).toMatch(/^M/);
     expect(view.container.querySelectorAll('[data-bar]').length).toBe(8);
+    // The bars' figures: H2 read with a true minus, as every other level; a harmonic below the chart's −120 dB floor carries no figure (it is not −120).
+    const figures = [...view.container.querySelectorAll('[data-bar] + text')].map((t) => t.textContent);
+    expect(figures[0]).toMatch(/^−\d+$/);
+    expect(figures.some((f) => f === '')).toBe(true);
+    expect(figures.every((f) => !f!.includes('-'))).toBe(true);
     expect(view.container.querySelector('[data-series="thd"]')?.getAttribute('d')).toMatch(/^M/);
     expect(view.container.querySelector('[data-series="magnitude"]')?.getAttribute('d')).toMatch(/^M/);
     expect(view.container.querySelector('[data-series="phase"]')?.getAttribute('d')).toMatch(/^M/);

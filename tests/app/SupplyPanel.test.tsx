@@ -92,6 +92,11 @@ describe('the B+ supply on the bench', () => {
     expect(cold * 1.1).toBeGreaterThan(350);
     expect(cold * 1.1).toBeLessThan(400);
     for (const ref of ['Cf1', 'Cf2', 'Cf3', 'Cf4']) expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === ref).textContent).toMatch(/µF.*400 V$/);
+    // The last node's capacitor carries a few tens of nanoamps of ripple: read in its own unit, as the node table reads it, not "0.0000314 mA".
+    const lastRipple = view.result.supply.nodes[3]!.capacitorRippleRms;
+    expect(lastRipple).toBeLessThan(1e-6);
+    expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Cf4').textContent).toMatch(/\d nA rms400 V$/);
+    expect(document.querySelector('tr[data-node="4"]')!.textContent).toMatch(/\d nA rms/);
     // The 9.1 kΩ carries node 4's current (Kirchhoff): I²R is what the line says it runs at.
     const amps = view.result.loads[3]!;
     expect(sheet.getByText((_, el) => el?.getAttribute('data-part-line') === 'Rf4').textContent).toContain(`${Number((amps * amps * 9100).toPrecision(3))} W`);

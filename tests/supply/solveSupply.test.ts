@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { RECTIFIER_TUBES, solveSupply, type SupplyDesign } from '../../src/index';
+import { formatValue, RECTIFIER_TUBES, solveSupply, type SupplyDesign } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own supply: 250 V a side, full wave, 47 µF reservoir, an R–C section.
@@ -130,7 +130,10 @@ describe('the B+ supply, solved in time', () => {
     expect(cold.findings[0]).toMatchObject({ kind: 'capacitor-voltage', severity: 'danger' });
     expect(cold.findings.find((f) => f.kind === 'capacitor-voltage' && f.limit === 450)?.severity).toBe('note');
     expect(cold.findings.find((f) => f.kind === 'transformer-current')?.severity).toBe('note');
-    expect(cold.findings.find((f) => f.kind === 'hum')).toMatchObject({ severity: 'warning' });
+    const hum = cold.findings.find((f) => f.kind === 'hum')!;
+    expect(hum).toMatchObject({ severity: 'warning' });
+    // The ripple and the budget in the units they read in (the budget 10 mV, not "10.0 mV" or "0.0100 V"), as the node table shows them.
+    expect(hum.message).toMatch(new RegExp(`is ${formatValue(hum.value, 'V')} rms against your budget of 10 mV: expect hum`));
     // A 5Y3GT (125 mA, 20 µF; from memory) asked for 150 mA from 47 µF.
     const small = solved({ ...base, rectifier: { kind: 'tube', tubeId: '5Y3GT' }, loads: [0.14, 0.01] });
     const current = small.findings.find((f) => f.kind === 'rectifier-current')!;

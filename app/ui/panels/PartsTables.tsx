@@ -1,5 +1,5 @@
 import type { CapacitorLine, ResistorLine } from '../../../src/index';
-import { farads, milliamps, ohms, volts, watts } from '../../format';
+import { farads, ohms, smallAmps, volts, watts } from '../../format';
 
 /** The stages' rule for a capacitor's voltage rating (partsList's). */
 const STAGE_CAPACITORS = 'Capacitors (voltage rating: twice the larger of running and switch-on, common practice)';
@@ -28,7 +28,7 @@ export function PartsTables({ resistors, capacitors, capacitorRule = STAGE_CAPAC
           <thead><tr><th scope="col">Part</th><th scope="col">Value</th><th scope="col">Runs at</th><th scope="col">At switch-on</th>{ripple ? <th scope="col">Ripple current</th> : null}<th scope="col">Rating</th></tr></thead>
           <tbody>
             {capacitors.map((c) => (
-              <tr key={c.ref} data-part-line={c.ref}><th scope="row">{`${c.ref} (${c.role})`}</th><td>{`${c.value === null ? 'to choose' : farads(c.value)}${c.polarity ? `, ${c.polarity}` : ''}`}</td><td>{volts(c.volts)}</td><td>{volts(c.voltsAtSwitchOn)}</td>{ripple ? <td>{c.rippleAmps !== undefined ? `${milliamps(c.rippleAmps)} rms` : ''}</td> : null}<td>{`${c.ratingVolts} V`}</td></tr>
+              <tr key={c.ref} data-part-line={c.ref}><th scope="row">{`${c.ref} (${c.role})`}</th><td>{`${c.value === null ? 'to choose' : farads(c.value)}${c.polarity ? `, ${c.polarity}` : ''}`}</td><td>{volts(c.volts)}</td><td>{volts(c.voltsAtSwitchOn)}</td>{ripple ? <td>{c.rippleAmps !== undefined ? `${smallAmps(c.rippleAmps)} rms` : ''}</td> : null}<td>{`${c.ratingVolts} V`}</td></tr>
             ))}
           </tbody>
         </table>

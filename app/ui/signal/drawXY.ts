@@ -72,10 +72,11 @@ export function drawXY(layer: SVGGElement, spec: XYSpec) {
     g.append('path').attr('data-series', s.key).attr('d', path(s.points as { x: number; y: number }[])).attr('fill', 'none').attr('stroke', s.stroke).attr('stroke-width', s.width ?? 1.6).attr('stroke-dasharray', s.dash ?? null);
   }
   const base = y(spec.y.domain[0]);
+  // A bar at the floor is below what the chart shows: no figure on it (it is not that value). Negative with a true minus.
   for (const b of spec.bars ?? []) {
     const top = y(Math.max(b.y, spec.y.domain[0]));
     g.append('rect').attr('data-bar', b.label).attr('x', x(b.x) - 9).attr('width', 18).attr('y', top).attr('height', Math.max(0, base - top)).attr('fill', PALETTE.load);
-    g.append('text').attr('x', x(b.x)).attr('y', top - 3).attr('text-anchor', 'middle').attr('font-size', 9).attr('fill', PALETTE.ink).text(Number.isFinite(b.y) ? b.y.toFixed(0) : '');
+    g.append('text').attr('x', x(b.x)).attr('y', top - 3).attr('text-anchor', 'middle').attr('font-size', 9).attr('fill', PALETTE.ink).text(Number.isFinite(b.y) && b.y > spec.y.domain[0] ? b.y.toFixed(0).replace('-', '−') : '');
   }
   for (const m of spec.markers ?? []) {
     g.append('circle').attr('cx', x(m.x)).attr('cy', y(m.y)).attr('r', 4).attr('fill', m.color).attr('stroke', PALETTE.ink);

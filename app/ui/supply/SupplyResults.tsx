@@ -1,12 +1,11 @@
 import { SAFE_DC_VOLTS } from '../../../src/index';
-import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../../format';
+import { farads, milliamps, ohms, plain, smallAmps, smallVolts, volts, watts } from '../../format';
 import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
 import { SupplyWaves } from './SupplyWaves';
 
 const SAME_BPLUS_SHARE = 0.01;
-const amps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : `${plain(a * 1e6)} µA`);
 
 /**
  * The amplifier solved on its supply: every node's voltage, ripple and load
@@ -61,7 +60,7 @@ export function SupplyResults() {
               <td>{smallVolts(node.rippleRms)}</td>
               {full ? <td data-figure="node-full">{volts(full.volts[k]!)}</td> : null}
               <td>{milliamps(r.loads[k]!)}</td>
-              <td>{amps(node.capacitorRippleRms)} rms</td>
+              <td>{smallAmps(node.capacitorRippleRms)} rms</td>
               <td>{feeding(k).join(', ') || '—'}</td>
             </tr>
           ))}
