@@ -28,7 +28,9 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   const supply = supplySection(s);
   const stageSections = s.design.stageKind === 'output' ? [...outputCardSections(s), ...targetSections(s), ...voltagePartsSections(s)] : voltageCardSections(s);
   const supplyParts = supplyPartLines(s);
-  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : [])];
+  // The tubes once for the whole design, whichever bench the card is made from (no stage's section repeats them).
+  const tubes = { heading: 'Tubes to order', lines: [tubesToOrderLine(s)] };
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : [])];
 }
 
 /** The builder's targets, each with how the stage on the bench meets it. */
@@ -110,7 +112,6 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
     heading: 'Parts to order',
     lines: [
       ...build.stages.filter((st) => st.onBench).flatMap(partLines),
-      tubesToOrderLine(s),
       build.dropper?.ok && build.dropper.preferred > 0 ? `Heater dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the ${plain(s.design.heaters.dcVolts)} V DC supply` : '',
       // With the supply solved its own ladder filters the stages (its parts are listed with it): the one-section estimate is not theirs.
       build.filter.ok && !s.design.supply.on ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',

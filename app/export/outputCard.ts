@@ -2,7 +2,6 @@ import { outputPartsList } from '../../src/index';
 import { farads, mAPerV, milliamps, ohms, percentOf, plain, volts, watts } from '../format';
 import { comparedSection, pairCardSections } from './pairCard';
 import type { WorkbenchState } from '../store/workbenchStore';
-import { tubesToOrderLine } from '../store/tubesToOrder';
 import { ratingsLines } from './ratingsLines';
 
 /** The build card's text for the output stage, from what the model already computed. */
@@ -49,7 +48,6 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
         ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),
         ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)} or more, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''}`),
         `Heater ${tube.heater.volts} V, ${tube.heater.amps} A`,
-        tubesToOrderLine(s),
       ],
     },
   ];

@@ -5,7 +5,6 @@ import type { PushPullBench } from '../store/outputAnalysis';
 import { outputPartsOf } from '../store/outputParts';
 import { drivesPair, splitterName } from '../store/outputPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
-import { tubesToOrderLine } from '../store/tubesToOrder';
 import { ratingsLines } from './ratingsLines';
 
 type Section = { heading: string; lines: string[] };
@@ -60,7 +59,6 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
         ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),
         ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)} or more, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''}`),
         `Heaters: two tubes, each ${sol.tube.heater.volts} V, ${sol.tube.heater.amps} A`,
-        tubesToOrderLine(s),
       ],
     },
   ];

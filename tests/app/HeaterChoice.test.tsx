@@ -87,6 +87,12 @@ describe('how the small tubes are lit: one choice for the build sheet, the suppl
     expect(store.getState().design.output.pair).toBe('push-pull');
     // Two channels of a push-pull pair: four EL34; the splitter's 12AU7 shares nothing with the driver's (one section each per channel here).
     expect(line()).toMatch(/^Tubes: .*4 × EL34, 1 × 5AR4$/);
-    expect(cardLines(store, 'Parts to order').find((l) => l.startsWith('Tubes: '))).toBe(line());
+    // On the card once, whichever bench it is made from: no stage's section repeats it.
+    const everyLine = () => cardSections(store.getState()).flatMap((c) => c.lines);
+    expect(cardLines(store, 'Tubes to order')).toEqual([line()]);
+    expect(everyLine().filter((l) => l.startsWith('Tubes: '))).toHaveLength(1);
+    act(() => store.getState().setStageKind('output'));
+    expect(cardLines(store, 'Tubes to order')).toEqual([line()]);
+    expect(everyLine().filter((l) => l.startsWith('Tubes: '))).toHaveLength(1);
   });
 });
