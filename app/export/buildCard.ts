@@ -167,17 +167,20 @@ function wrapText(ctx: CanvasRenderingContext2D, text: string, x: number, y: num
 export const MAX_CARD_PAGES = 4;
 /** Where a page's text stops, above the caution at its foot (a line may wrap below its start: 66 px kept). */
 const TEXT_BOTTOM = CARD_HEIGHT - 120 - 66;
+/** The whole amplifier's drawing on the card is at most this tall (a short chain is drawn at full width, a long one scaled to fit). */
+const CHAIN_MAX_HEIGHT = 330;
 /** Where text starts on the pages after the first, below their running title. */
 const CONTINUED_TOP = MARGIN + 50;
 
 /**
  * The build card as a PNG of one A4 page or more, stacked: title and date,
- * schematic, chart, then the figures in two columns (the stages' own on the
+ * the schematic (the whole amplifier's across the page when it has more than
+ * one stage, else the bench's stage beside the title), chart, then the figures in two columns (the stages' own on the
  * left; ratings, heaters, parts and any comparison on the right), each
  * column running on to the next page when it fills one, every page with the
  * safety caution at its foot. Past MAX_CARD_PAGES a note names what is left.
  */
-export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, schematic: SVGSVGElement | null, date = new Date()): Promise<Blob> {
+export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, schematic: SVGSVGElement | null, date = new Date(), chain: SVGSVGElement | null = null): Promise<Blob> {
   const canvas = document.createElement('canvas');
   canvas.width = CARD_WIDTH;
   canvas.height = CARD_HEIGHT * MAX_CARD_PAGES;
@@ -188,13 +191,23 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
   ctx.textBaseline = 'top';
   ctx.font = `bold 40px ${EXPORT_FONTS}`;
   const title = s.title || 'Untitled design';
-  let y = wrapText(ctx, title, MARGIN, MARGIN, 700, 46);
+  // The title runs beside the bench stage's drawing, or across the page above the whole amplifier's.
+  let y = wrapText(ctx, title, MARGIN, MARGIN, chain ? CARD_WIDTH - 2 * MARGIN : 700, 46);
   ctx.font = `22px ${EXPORT_FONTS}`;
   ctx.fillStyle = '#4a535c';
   ctx.fillText(`Quiescent build card · ${date.toISOString().slice(0, 10)}`, MARGIN, y);
   y += 40;
   const schematicTop = MARGIN;
-  if (schematic) {
+  if (chain) {
+    // The whole amplifier, input to speaker, across the page under the title (the bench's stage is marked in it).
+    const doc = svgDocument(chain);
+    const img = await svgImage(doc.text);
+    const maxW = CARD_WIDTH - 2 * MARGIN;
+    const h = Math.min((maxW * doc.height) / doc.width, CHAIN_MAX_HEIGHT);
+    const w = (h * doc.width) / doc.height;
+    ctx.drawImage(img, MARGIN, y, w, h);
+    y += h + 16;
+  } else if (schematic) {
     const doc = svgDocument(schematic);
     const img = await svgImage(doc.text);
     const w = 400;

@@ -10,8 +10,9 @@ export function pngSize(bytes: Buffer): { width: number; height: number } {
 }
 
 /** Share of pixels in the middle of a PNG that differ from its top-left pixel, decoded by the browser. */
-export async function inkShare(page: Page, png: Buffer): Promise<number> {
-  return page.evaluate(async (b64) => {
+/** The share of pixels that differ from the corner's colour: over the middle 80 % of the image, or over `region` (image pixels). */
+export async function inkShare(page: Page, png: Buffer, region?: { x: number; y: number; width: number; height: number }): Promise<number> {
+  return page.evaluate(async ({ b64, region }) => {
     const img = new Image();
     img.src = `data:image/png;base64,${b64}`;
     await img.decode();
@@ -20,11 +21,12 @@ export async function inkShare(page: Page, png: Buffer): Promise<number> {
     c.height = img.height;
     const ctx = c.getContext('2d')!;
     ctx.drawImage(img, 0, 0);
-    const data = ctx.getImageData(Math.floor(img.width * 0.1), Math.floor(img.height * 0.1), Math.floor(img.width * 0.8), Math.floor(img.height * 0.8)).data;
+    const r = region ?? { x: Math.floor(img.width * 0.1), y: Math.floor(img.height * 0.1), width: Math.floor(img.width * 0.8), height: Math.floor(img.height * 0.8) };
+    const data = ctx.getImageData(r.x, r.y, r.width, r.height).data;
     let differ = 0;
     for (let i = 0; i < data.length; i += 4) if (Math.abs(data[i]! - data[0]!) + Math.abs(data[i + 1]! - data[1]!) + Math.abs(data[i + 2]! - data[2]!) > 60) differ++;
     return differ / (data.length / 4);
-  }, png.toString('base64'));
+  }, { b64: png.toString('base64'), region });
 }
 
 export async function downloadOf(page: Page, button: string): Promise<Buffer> {

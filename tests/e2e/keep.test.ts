@@ -46,6 +46,9 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     const card = await downloadOf(page, 'Build card (PNG, A4)');
     expect(cardPages(pngSize(card))).toBeGreaterThanOrEqual(1);
     expect(await inkShare(page, card)).toBeGreaterThan(0.03);
+    // The demo is three stages: the whole amplifier is drawn across the page under the title (the band left of where the bench
+    // stage's drawing alone had stood at the right is inked), before the chart.
+    expect(await inkShare(page, card, { x: 60, y: 200, width: 640, height: 240 })).toBeGreaterThan(0.02);
     await page.close();
   });
 

@@ -12,6 +12,11 @@ export function ExportPanel() {
   const id = useId();
   const chart = () => document.querySelector<SVGSVGElement>('svg.plate-chart');
   const stem = () => fileStem(store.getState().title);
+  // The whole amplifier's drawing goes on the card when it has more than one stage to show.
+  const wholeAmplifier = () => {
+    const svg = document.querySelector<SVGSVGElement>('svg.chain-schematic');
+    return svg && svg.querySelectorAll('rect.chain-cell').length > 1 ? svg : null;
+  };
   const run = async (what: string, make: () => Promise<{ blob: Blob; name: string }>) => {
     try {
       // An export reads the figures: if a keystroke's light analysis is showing, finish it first.
@@ -33,7 +38,7 @@ export function ExportPanel() {
           </button>
         ))}
         <button type="button" onClick={() => void run('Chart SVG', async () => ({ blob: new Blob([svgDocument(chart()!, chartCaption(store.getState())).text], { type: 'image/svg+xml' }), name: `${stem()}-chart.svg` }))}>Chart SVG</button>
-        <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg')), name: `${stem()}-build-card.png` }))}>Build card (PNG, A4)</button>
+        <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg'), new Date(), wholeAmplifier()), name: `${stem()}-build-card.png` }))}>Build card (PNG, A4)</button>
       </div>
       {note ? <p className="keep-ok" role="status">{note}</p> : null}
     </section>
