@@ -122,6 +122,7 @@ export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { supplyHum, humAtOutput, type SupplyHum, type HumAtOutput } from './chain/supplyHum';
 export { supplyTangent, supplyNear, nearbyLoads, type SupplyTangent } from './supply/supplyTangent';
+export { bplusAgreement, BPLUS_AGREEMENT } from './supply/bplusAgreement';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
 export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';

@@ -2,6 +2,7 @@ import { amplifierFindings, type Finding, type StageFinding } from '../../src/in
 import type { WorkbenchState } from './workbenchStore';
 import { benchIndex, voltageStages } from './stagePlans';
 import { drivesPair, splitterName } from './outputPlan';
+import { supplyBplusFindings } from './supplyBplus';
 
 /** How the supply is named in the ratings list. */
 export const SUPPLY_STAGE_NAME = 'B+ supply';
@@ -32,7 +33,8 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   // The supply's warnings and dangers belong in the same list (a capacitor over its voltage is as dangerous as a plate);
   // its notes, the margins, stay with its own table.
   const supply = s.supplyView?.result;
-  if (d.supply.on && supply?.ok) stages.push({ name: SUPPLY_STAGE_NAME, findings: supply.supply.findings.filter((f) => f.severity !== 'note') });
+  // So does a stage designed for a B+ its node does not give: its figures describe another amplifier.
+  if (d.supply.on && supply?.ok) stages.push({ name: SUPPLY_STAGE_NAME, findings: [...supply.supply.findings.filter((f) => f.severity !== 'note'), ...supplyBplusFindings(s)] });
   return stages;
 }
 

@@ -24,6 +24,7 @@ export type FindingKind =
   | 'reservoir-capacitance'
   | 'transformer-current'
   | 'hum'
+  | 'supply-bplus'
   | 'primary-imbalance'
   | 'distortion';
 

@@ -168,6 +168,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const ltp = { kind: 'long-tailed-pair', tube: au7, bplus: 350, ra: 33e3, ra2: 36e3, rk: 470, rtail: 10e3, vbias: 60, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } };
   const pairStage = { ...ppDesign, kind: 'push-pull-output', tube: el34, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } };
   run('solveChain (push-pull)', fc.tuple(fc.tuple(near(chainStages[0]!), fc.oneof(near(splitLoad), near(ltp)), near(pairStage)).map(([a, b, c]) => ({ source: { rsource: 600 }, stages: [a, b, c] }))), Q.solveChain, 40);
+  run('bplusAgreement', fc.tuple(or(fc.constant('Voltage stages')), or(fc.integer({ min: 0, max: 5 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 }))), Q.bplusAgreement);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
   const tangentSupply = { ...supply, loads: [0.05, 0.004] } as Q.SupplyDesign;
