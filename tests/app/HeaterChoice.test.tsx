@@ -36,6 +36,15 @@ describe('how the small tubes are lit: one choice for the build sheet, the suppl
     expect(cardLines(store, 'Heaters')).toEqual(expect.arrayContaining(['Winding 6.3 V, 1.5 A (9.45 VA): EL34 (6.3 V, 1.5 A)', 'DC heater supply 12.6 V, 0.6 A: 12AX7 (6.3 V, 0.3 A), 12AU7 (6.3 V, 0.3 A)']));
     expect(cardLines(store, 'Parts to order')).toContain('Heater dropper 11 Ω 10 W from the 12.6 V DC supply');
 
+    // Stereo: each channel's heaters have their dropper (sized for that channel's 0.6 A); the DC supply delivers both channels' 1.2 A.
+    act(() => store.getState().setSupply({ channels: 2 }));
+    expect(sheet.getByTestId('dropper').textContent).toMatch(/^Dropping resistor 10.5 Ω exactly, order 11 Ω \(10 W\), one for each channel: /);
+    expect(sheet.getByTestId('heater-totals').textContent).toBe('From the DC heater supply: 6.3 V, 0.6 A, 3.78 W for the voltage stages of each channel.');
+    expect(windings()).toContain('DC heater supply 12.6 V, 1.2 A at the heaters: 2 × 12AX7');
+    expect(cardLines(store, 'Parts to order')).toContain('Heater dropper 11 Ω 10 W from the 12.6 V DC supply, one for each channel (2)');
+    act(() => store.getState().undo());
+    expect(store.getState().design.supply.channels).toBe(1);
+
     // The choice is a step of the design: undone like any other.
     act(() => store.getState().undo());
     expect(store.getState().design.heaters.voltageStages).toBe('ac');

@@ -18,6 +18,7 @@ export function HeaterSection() {
   const sheet = useWorkbench(buildSheetOf);
   const heaters = useWorkbench((s) => s.design.heaters);
   const setHeaters = useWorkbench((s) => s.setHeaters);
+  const channels = useWorkbench((s) => s.design.supply.channels);
   const id = useId();
   const onDc = heaters.voltageStages === 'dc';
   return (
@@ -39,12 +40,12 @@ export function HeaterSection() {
         </div>
       ))}
       {sheet.heaters.ok ? (
-        <p data-testid="heater-totals">{`${onDc ? 'From the DC heater supply' : 'From the heater winding'}: ${sheet.heaters.volts} V, ${plain(sheet.heaters.totalAmps)} A, ${plain(sheet.heaters.totalWatts)} W for the voltage stages${onDc ? '' : ' (the winding, with the output tubes on it, is listed with the B+ supply)'}.`}</p>
+        <p data-testid="heater-totals">{`${onDc ? 'From the DC heater supply' : 'From the heater winding'}: ${sheet.heaters.volts} V, ${plain(sheet.heaters.totalAmps)} A, ${plain(sheet.heaters.totalWatts)} W for the voltage stages${channels > 1 ? ' of each channel' : ''}${onDc ? '' : ' (the winding, with the output tubes on it, is listed with the B+ supply)'}.`}</p>
       ) : <p className="field-error">{sheet.heaters.message}</p>}
       {onDc ? <DcSupply volts={heaters.dcVolts} onVolts={(v) => setHeaters({ dcVolts: v })} /> : null}
       {sheet.dropper && !sheet.dropper.ok ? <p className="field-error" role="alert">{sheet.dropper.message}</p> : null}
       {sheet.dropper?.ok ? (
-        <p data-testid="dropper">{sheet.dropper.preferred === 0 ? 'No dropping resistor needed.' : `Dropping resistor ${ohms(sheet.dropper.exact)} exactly, order ${ohms(sheet.dropper.preferred)} (${sheet.dropper.ratingWatts} W): heaters at ${plain(sheet.dropper.heaterVolts)} V, resistor dissipating ${watts(sheet.dropper.watts)}.`}{sheet.dropper.warning ? <span className="field-error"> {sheet.dropper.warning}</span> : null}</p>
+        <p data-testid="dropper">{sheet.dropper.preferred === 0 ? 'No dropping resistor needed.' : `Dropping resistor ${ohms(sheet.dropper.exact)} exactly, order ${ohms(sheet.dropper.preferred)} (${sheet.dropper.ratingWatts} W)${channels > 1 ? ', one for each channel' : ''}: heaters at ${plain(sheet.dropper.heaterVolts)} V, resistor dissipating ${watts(sheet.dropper.watts)}.`}{sheet.dropper.warning ? <span className="field-error"> {sheet.dropper.warning}</span> : null}</p>
       ) : null}
       {sheet.elevation.ok ? <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p> : <p className="field-error">{sheet.elevation.message}</p>}
     </>
