@@ -4,6 +4,7 @@ import { emptyCurrents, screenFeedOf, screenVoltage, stageCurrentsInto, type Scr
 import { checkOutputInput } from './checkOutput';
 import { effectiveConnection, type OutputDesign } from './outputDesign';
 import type { Connection, OutputTube } from './outputTube';
+import { korenPentodeInto, type KorenPentodeParams } from '../tube/pentode';
 
 /** Below this cathode current the tube is taken as cut off, A (the same 1 µA as the voltage stage). */
 export const OUTPUT_CUTOFF_A = 1e-6;
@@ -74,7 +75,7 @@ function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number, kno
   const c = emptyCurrents();
   stageCurrentsInto(tube, feed, vpk, vgk, c, 0);
   const vg2k = tube.law.kind === 'triode' ? 0 : screenVoltage(feed, vpk, 0);
-  const slopes = slopesAt(tube, feed, vpk, vgk);
+  const slopes = slopesAt(tube, feed, vpk, vgk, d.rPrimary);
   const tied = feed.kind === 'tied';
   return {
     connection: effectiveConnection(d, tube),
@@ -98,8 +99,16 @@ function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number, kno
   };
 }
 
-/** rp and gm of the primary current by central differences (the screen follows the plate as wired). */
-function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number): { rp: number; gm: number } {
+/**
+ * rp and gm by central differences (the screen follows the plate as wired).
+ * An ultralinear stage is read as the transformer sees it (tapSlopes): its
+ * screen follows the winding, not the plate, and its screen current couples
+ * through the tap's share of the turns. Taken on the plate current alone,
+ * as the other connections are, its output impedance read 15 % high against
+ * ngspice (EL34 on a 43 % tap; tests/spice/globalFeedback.spice.test.ts).
+ */
+function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number, rPrimary: number): { rp: number; gm: number } {
+  if (feed.kind === 'tap' && tube.law.kind === 'pentode') return tapSlopes(tube.law.params, feed.fraction, vpk, vgk, screenVoltage(feed, vpk, 0), rPrimary);
   const h = Math.max(1e-3, vpk * 1e-5);
   const c = emptyCurrents();
   const at = (v: number, g: number) => {
@@ -109,6 +118,39 @@ function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number):
   const ga = (at(vpk + h, vgk) - at(vpk - h, vgk)) / (2 * h);
   const gm = (at(vpk, vgk + h) - at(vpk, vgk - h)) / (2 * h);
   return { rp: ga > 0 ? 1 / ga : Infinity, gm: Math.max(0, gm) };
+}
+
+/**
+ * An ultralinear stage's slopes at its winding. With the plate Vpk = S − w − R·ia
+ * (w the winding's voltage, R the primary's resistance in the plate lead) and
+ * the screen Vg2 = S − x·w (x the tap's share), a change dw moves the plate
+ * current by dia = −(a + b·x)/(1 + a·R)·dw and the screen's by
+ * dig2 = −c·(dw + R·dia) − d·x·dw, where a, b are ∂ia/∂Vpk, ∂ia/∂Vg2 and
+ * c, d the screen current's. The transformer couples ia + x·ig2, so the
+ * winding sees the conductance G = −(dia + x·dig2)/dw; rp is 1/G − R (the
+ * stage's output impedance stays (rp + R)·n²). gm is that current's slope
+ * on the grid, the plate and screen held.
+ */
+function tapSlopes(p: KorenPentodeParams, x: number, vpk: number, vgk: number, vg2: number, r: number): { rp: number; gm: number } {
+  const e = { ia: 0, ig2: 0 };
+  const at = (va: number, g1: number, g2: number) => {
+    korenPentodeInto(p, va, g1, g2, e);
+    return [e.ia, e.ig2] as const;
+  };
+  const h = Math.max(1e-3, vpk * 1e-5);
+  const diff = (f: (s: number) => readonly [number, number], step: number) => {
+    const [ia1, ig1] = f(step);
+    const [ia0, ig0] = f(-step);
+    return [(ia1 - ia0) / (2 * step), (ig1 - ig0) / (2 * step)] as const;
+  };
+  const [a, c] = diff((s) => at(vpk + s, vgk, vg2), h);
+  const [b, d] = diff((s) => at(vpk, vgk, vg2 + s), Math.max(1e-3, vg2 * 1e-5));
+  const [gmA, gm2] = diff((s) => at(vpk, vgk + s, vg2), 1e-3);
+  const dia = -(a + b * x) / (1 + a * r);
+  const dig2 = -c * (1 + r * dia) - d * x;
+  const g = -(dia + x * dig2);
+  const rp = g > 0 ? Math.max(0, 1 / g - r) : Infinity;
+  return { rp: Number.isFinite(rp) && rp > 0 ? rp : Infinity, gm: Math.max(0, gmA + x * gm2) };
 }
 
 /**
