@@ -3,6 +3,7 @@ import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
 import { atLevelWords } from '../ui/chain/atLevelWords';
+import { FEEDBACK_CAVEAT, feedbackWords } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**
@@ -24,6 +25,13 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
     `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
   ];
   if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${atLevelWords(view)}`);
+  // With global feedback the figures above are the open loop's; the loop's own follow, with what they leave out.
+  const fb = feedbackWords(view);
+  if (fb && s.design.feedbackRf !== null) {
+    lines[1] = `Open loop: ${lines[1]}`;
+    lines.push(view.feedback?.ok ? `Global feedback, Rf ${ohms(s.design.feedbackRf)} from the speaker to stage 1's cathode: ${fb}` : `Global feedback: ${fb}`);
+    if (view.feedback?.ok) lines.push(FEEDBACK_CAVEAT);
+  }
   return { heading: 'Amplifier', lines };
 }
 

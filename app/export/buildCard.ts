@@ -8,6 +8,7 @@ import type { AmplifierView } from '../store/amplifierChain';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import { tubesToOrderLine } from '../store/tubesToOrder';
+import { feedbackPartLine } from '../ui/chain/feedbackPart';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
@@ -112,6 +113,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
     heading: 'Parts to order',
     lines: [
       ...build.stages.filter((st) => st.onBench).flatMap(partLines),
+      feedbackPartLine(s) ?? '',
       build.dropper?.ok && build.dropper.preferred > 0 ? `Heater dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the ${plain(s.design.heaters.dcVolts)} V DC supply${s.design.supply.channels > 1 ? `, one for each channel (${s.design.supply.channels})` : ''}` : '',
       // With the supply solved its own ladder filters the stages (its parts are listed with it): the one-section estimate is not theirs.
       build.filter.ok && !s.design.supply.on ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',

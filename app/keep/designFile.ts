@@ -19,7 +19,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
- *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } },
+ *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf,
  *                 before: [stage…], after: [stage…] } }
  *
  * Version 3 holds the whole chain of voltage stages: the design's own
@@ -45,7 +45,8 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * So did `supply` (the B+ supply, see supplyInFile.ts): a file without it
  * opens on the bench's default supply, its own values unchanged; and
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
- * bench's default (on the AC heater winding).
+ * bench's default (on the AC heater winding); and `feedbackRf` (global
+ * feedback's resistor, Ω, or null): absent, none.
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -216,6 +217,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     output,
     drivesOutput,
     supply: supply.plan,
+    feedbackRf: (d.feedbackRf as number | null | undefined) ?? null,
     heaters: d.heaters === undefined ? DEFAULT_HEATERS : { ...(d.heaters as HeaterChoice), wiring: { ...(d.heaters as HeaterChoice).wiring } },
   };
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };

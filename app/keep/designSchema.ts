@@ -72,6 +72,8 @@ export const BENCH_STAGE = v.object({
   thdLimit: v.optional(ranged(L.output.thdLimit)),
   // Came within version 3: absent, no targets.
   targets: v.optional(TARGETS),
+  // Came later within version 3 (global feedback): absent, none.
+  feedbackRf: v.optional(rangedOrNull(L.feedbackRf)),
   // Came later within version 3 (the follower's and the output stage's own targets): absent, none.
   followerTargets: v.optional(TARGETS),
   outputTargets: v.optional(TARGETS),

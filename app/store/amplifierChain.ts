@@ -1,5 +1,6 @@
 import {
   findOutputTube,
+  globalFeedback,
   solveAmplifier,
   solveStagesInPlace,
   STAGE_KIND_LABELS,
@@ -8,6 +9,7 @@ import {
   type ChainResult,
   type ChainStage,
   type Failure,
+  type GlobalFeedback,
   type Result,
   type TubeRecord,
 } from '../../src/index';
@@ -167,6 +169,8 @@ export interface AmplifierView {
   readonly atLevel: ({ ok: true } & AmplifierAtLevel) | Failure | null;
   /** The level `atLevel` is at, in words ("1 W", "2 V rms"). */
   readonly levelLabel: string;
+  /** With global feedback (the design's Rf, the output stage driven): the loop at midband; null without. */
+  readonly feedback: Result<GlobalFeedback> | null;
   /** True while a drag or keystroke is in progress: these figures are from before it. */
   readonly stale: boolean;
 }
@@ -187,6 +191,7 @@ export function analyzeAmplifier(d: BenchDesign, registry: TubeRegistry): Amplif
     result,
     atLevel,
     levelLabel: toSpeaker ? '1 W' : `${d.levelRms} V rms`,
+    feedback: toSpeaker && d.feedbackRf !== null && result.ok ? globalFeedback(chain.input, d.feedbackRf) : null,
     stale: false,
   };
 }

@@ -51,6 +51,8 @@ export interface BenchDesign {
   readonly supply: SupplyPlan;
   /** How the small tubes' heaters are fed (AC winding or DC supply) and each type's wiring. */
   readonly heaters: HeaterChoice;
+  /** Global negative feedback: the resistor from the speaker to the first stage's cathode, Ω; null for none. */
+  readonly feedbackRf: number | null;
   /** What the builder asks of the voltage stage on the bench; the plate chart shades where it all holds. */
   readonly targets: TargetPlan;
   /** What the builder asks of its cathode follower, kept apart (a follower's Zout and gain are not a gain stage's). */

@@ -61,6 +61,8 @@ export const DEMO_DESIGN: BenchDesign = {
   },
   supply: DEMO_SUPPLY,
   heaters: DEFAULT_HEATERS,
+  // No global feedback: the open-loop figures are the demo's own.
+  feedbackRf: null,
 };
 
 /** The demo's title is its automatic one, so it follows the first change the user makes. */

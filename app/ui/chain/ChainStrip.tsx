@@ -7,6 +7,7 @@ import { StageMenu } from './StageMenu';
 import { ChainSchematic } from '../schematic/ChainSchematic';
 import { StripHum } from '../supply/SupplyHumLine';
 import { atLevelWords } from './atLevelWords';
+import { GlobalFeedbackRow } from './GlobalFeedbackRow';
 
 const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
 const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
@@ -87,23 +88,24 @@ export function ChainStrip() {
       <ChainSchematic />
       {r.ok && (
         <dl className="chain-figures" data-testid="amplifier-figures">
-          <div><dt>Gain</dt><dd>{gainDb(r.gain)} ({plain(Math.abs(r.gain))}×{r.inverting ? ', inverting' : ''})</dd></div>
+          <div><dt>{view.feedback?.ok ? 'Gain, open loop' : 'Gain'}</dt><dd>{gainDb(r.gain)} ({plain(Math.abs(r.gain))}×{r.inverting ? ', inverting' : ''})</dd></div>
           <div><dt>Band (−3 dB)</dt><dd>{hz(r.lowHz, 'DC')} to {hz(r.highHz, 'beyond 100 MHz')}</dd></div>
           <div>
-            <dt>Clean to</dt>
+            <dt>{view.feedback?.ok ? 'Clean to, open loop' : 'Clean to'}</dt>
             <dd>
               {r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
             </dd>
           </div>
           {view.atLevel && (
             <div>
-              <dt>At {view.levelLabel}</dt>
+              <dt>At {view.levelLabel}{view.feedback?.ok ? ', open loop' : ''}</dt>
               <dd className={view.atLevel.ok && view.atLevel.pastClean ? 'past-clean' : undefined}>{atLevelWords(view)}</dd>
             </div>
           )}
           <StripHum />
         </dl>
       )}
+      <GlobalFeedbackRow />
     </section>
   );
 }

@@ -4,6 +4,7 @@ import { buildSheetOf, railOf } from '../../store/buildSheet';
 import { useWorkbench } from '../../store/StoreProvider';
 import { HeaterSection } from './HeaterSection';
 import { TubesToOrder } from './TubesToOrder';
+import { feedbackPartLine } from '../chain/feedbackPart';
 import { StagesParts } from './StagesParts';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
@@ -34,6 +35,7 @@ export function BuildSheetPanel() {
   const settleField = useWorkbench((s) => s.settleField);
   const drivenOutput = useWorkbench((s) => (s.design.drivesOutput ? s.design.output.tubeId : null));
   const supplyOn = useWorkbench((s) => s.design.supply.on);
+  const feedbackPart = useWorkbench(feedbackPartLine);
   const id = useId();
   const fc = sheet.forCorner;
   const sp = sheet.spread;
@@ -48,6 +50,7 @@ export function BuildSheetPanel() {
           <OutputPartsLines />
         </>
       ) : null}
+      {feedbackPart ? <p data-testid="feedback-part">{feedbackPart}</p> : null}
       <SupplyPartsList />
       <h3 className="subhead corner-head">Capacitors for a wanted low corner, the bench's stage</h3>
       <div className="option-row">

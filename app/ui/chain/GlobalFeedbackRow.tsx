@@ -1,0 +1,27 @@
+import { useWorkbench } from '../../store/StoreProvider';
+import { ValueField } from '../panels/ValueField';
+import { FEEDBACK_CAVEAT, feedbackWords } from './feedbackWords';
+
+/**
+ * Global negative feedback under the amplifier's figures, with the stages
+ * driving the output stage: Rf from the speaker to the first stage's cathode
+ * (empty or "none" for none), and the closed loop's figures beside it.
+ */
+export function GlobalFeedbackRow() {
+  const view = useWorkbench((s) => s.amplifier);
+  const driven = useWorkbench((s) => s.design.drivesOutput);
+  const on = useWorkbench((s) => s.design.feedbackRf !== null);
+  if (!driven || !view) return null;
+  const words = feedbackWords(view);
+  const failed = view.feedback !== null && !view.feedback.ok;
+  return (
+    <div className="global-feedback" data-testid="global-feedback">
+      <ValueField field="feedbackRf" hint="from the speaker to stage 1's unbypassed cathode resistor; none for no feedback" />
+      {on && words ? (
+        <p className={failed ? 'field-error' : 'feedback-figures'} data-testid="feedback-figures">
+          {failed ? words : <><strong>With feedback:</strong> {words}. <span className="feedback-caveat">{FEEDBACK_CAVEAT}</span></>}
+        </p>
+      ) : null}
+    </div>
+  );
+}
