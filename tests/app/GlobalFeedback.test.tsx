@@ -31,6 +31,8 @@ describe('global negative feedback on the bench', () => {
     expect(text).toContain(`damping factor ${Number(model.dampingFactor.toPrecision(3))}`);
     expect(text).toMatch(/not modelled: check with a square wave/);
     expect(screen.getByTestId('amplifier-figures').textContent).toMatch(/^Gain, open loop/);
+    // The drawing carries it: round under the stages from the secondary to stage 1's cathode, its value editable there.
+    expect(screen.getByRole('button', { name: /^Global feedback Rf .*47 kΩ/ })).toBeTruthy();
     expect(screen.getByTestId('feedback-part').textContent).toMatch(/^Rf \(global feedback, speaker to stage 1's cathode\): 47 kΩ, 0\.25 W/);
     const amp = cardSections(store.getState()).find((c) => c.heading === 'Amplifier')!.lines;
     expect(amp.some((l) => l.startsWith('Open loop: Gain'))).toBe(true);
@@ -49,6 +51,7 @@ describe('global negative feedback on the bench', () => {
     act(() => store.getState().undo());
     expect(store.getState().design.feedbackRf).toBe(null);
     expect(screen.queryByTestId('feedback-figures')).toBeNull();
+    expect(screen.queryByRole('button', { name: /^Global feedback Rf/ })).toBeNull();
   });
 
   it('a value out of range gets its message beside the box and the last good one stays; a bypassed first cathode is said to have nothing to return to', async () => {

@@ -1,6 +1,6 @@
 import { memo, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { Wire } from './wiring';
-import { FollowerCell, GainCell, GRID, H, LEAD_IN, LoadCell, MUTED, OutputCell, SplitterCell, WIDTH, cellWidth, label, type Anchor, type ValueLabel } from './chainCells';
+import { FEEDBACK_ROW, FeedbackPath, FollowerCell, GainCell, GRID, H, LEAD_IN, LoadCell, MUTED, OutputCell, SplitterCell, WIDTH, cellWidth, label, type Anchor, type ValueLabel } from './chainCells';
 import { InlineEditor } from './InlineEditor';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -129,15 +129,22 @@ export const ChainSchematic = memo(function ChainSchematic() {
     </g>
   ) : null;
   const width = x + (design.drivesOutput ? WIDTH.output : WIDTH.load);
+  // Global feedback: Rf from the speaker's end of the secondary round under the drawing to the first cathode (unbypassed).
+  const first = list[0];
+  const feedback = design.drivesOutput && design.feedbackRf !== null && first?.kind === 'common-cathode' && !first.bypassed
+    ? <FeedbackPath fromX={x} toX={LEAD_IN} rf={design.feedbackRf} value={valuesOf('Global feedback', () => undefined)} />
+    : null;
+  const height = feedback ? H + FEEDBACK_ROW : H;
   return (
     <div className="schematic-frame chain-frame" ref={frame}>
-      <svg className="chain-schematic" preserveAspectRatio="xMinYMid meet" viewBox={`0 0 ${width} ${H}`} role="group" aria-label={`Schematic of the whole amplifier, ${list.length + (design.drivesOutput ? 1 : 0) + (pair ? 1 : 0)} stages`}>
+      <svg className="chain-schematic" preserveAspectRatio="xMinYMid meet" viewBox={`0 0 ${width} ${height}`} role="group" aria-label={`Schematic of the whole amplifier, ${list.length + (design.drivesOutput ? 1 : 0) + (pair ? 1 : 0)} stages`}>
         <Wire points={[[4, GRID], [LEAD_IN, GRID]]} />
         {label(4, GRID - 8, 'in')}
         {valuesOf('Source', () => undefined)('rsource', 'Rs', 4, GRID + 16, `Rs ${ohms(design.rsource)}`)}
         {cells}
         {splitter}
         {end}
+        {feedback}
       </svg>
       {editing ? <InlineEditor field={editing.field} at={editing.at} onDone={() => setEditing(null)} /> : null}
     </div>

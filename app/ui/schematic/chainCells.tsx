@@ -224,3 +224,30 @@ export const LoadCell = memo(function LoadCell({ x0, rl, value }: { x0: number; 
     </>
   );
 }, sameProps);
+
+/** The row under the drawing that global feedback's path runs along. */
+export const FEEDBACK_ROW = 24;
+
+/**
+ * Global feedback's resistor drawn from the secondary's lower end (the output
+ * cell at `fromX`) round under the drawing to the first gain stage's cathode
+ * lead (its cell at `toX`), above its Rk: where the loop returns.
+ */
+export function FeedbackPath({ fromX, toX, rf, value }: { fromX: number; toX: number; rf: number; value: ValueLabel }) {
+  const speaker = fromX + 110 + 22;
+  const out = fromX + WIDTH.output - 6;
+  const cathode = toX + 112;
+  const up = cathode + 16;
+  const y = H + FEEDBACK_ROW / 2;
+  const mid = (up + out) / 2;
+  return (
+    <g className="feedback-path">
+      <Wire points={[[speaker, GRID - 30], [out, GRID - 30], [out, y], [mid + 20, y]]} />
+      <rect x={mid - 20} y={y - 5} width={40} height={10} fill="#fff" stroke="#1d2329" strokeWidth={2} />
+      <Wire points={[[mid - 20, y], [up, y], [up, CATHODE_OUT], [cathode, CATHODE_OUT]]} />
+      <Dot x={cathode} y={CATHODE_OUT} />
+      <Dot x={speaker} y={GRID - 30} />
+      {value('feedbackRf', 'Rf', mid, y - 8, `Rf ${ohms(rf)}`, 'middle')}
+    </g>
+  );
+}
