@@ -2,6 +2,7 @@ import { fail, type Result } from '../result';
 import { shown } from '../shown';
 import { smallSignalAt } from '../tube/triode';
 import { solveChain } from './solveChain';
+import { amplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import type { ChainInput, ChainResult, CommonCathodeLink } from './chainTypes';
 
 /** The feedback resistor's range, Ω: below it the loop would swamp the first stage's cathode; above it there is no loop to speak of. */
@@ -24,6 +25,14 @@ export interface GlobalFeedback {
   readonly zoutOpen: number;
   readonly zoutClosed: number;
   readonly dampingFactor: number;
+  /**
+   * Given a level: the open loop's THD there over 1 + T, a first-order
+   * estimate (common practice); against ngspice on three amplifiers at 1 W
+   * it reads 4 to 11 % low (the loop makes a little of the higher harmonics
+   * it does not count). Null without a level, or when the open loop cannot
+   * reach it cleanly.
+   */
+  readonly thdEstimate: number | null;
 }
 
 /**
@@ -41,7 +50,7 @@ export interface GlobalFeedback {
  * leakage and capacitances are not modelled. Checked against ngspice
  * (tests/spice/globalFeedback.spice.test.ts).
  */
-export function globalFeedback(input: ChainInput, rf: number): Result<GlobalFeedback> {
+export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierLevel): Result<GlobalFeedback> {
   if (!(typeof rf === 'number' && rf >= FEEDBACK_RF_LIMITS.min && rf <= FEEDBACK_RF_LIMITS.max)) {
     return fail('invalid-input', `The feedback resistor must be from ${FEEDBACK_RF_LIMITS.min} Ω to ${FEEDBACK_RF_LIMITS.max / 1e6} MΩ (got ${shown(rf)} Ω)`, 'rf');
   }
@@ -53,7 +62,8 @@ export function globalFeedback(input: ChainInput, rf: number): Result<GlobalFeed
   if (first.bypassed || !(typeof first.rk === 'number' && first.rk > 0)) return fail('invalid-input', 'The feedback needs an unbypassed cathode resistor in the first stage to return to (bypassed, Ck would short it)', 'stages');
   if (!last || (last.kind !== 'single-ended-output' && last.kind !== 'push-pull-output')) return fail('invalid-input', 'Global feedback is taken from the speaker: the amplifier must end in an output stage', 'stages');
   const rk = first.rk;
-  const open = solveChain({ ...input, stages: [{ ...first, rk: (rk * rf) / (rk + rf) }, ...stages.slice(1)] });
+  const openInput: ChainInput = { ...input, stages: [{ ...first, rk: (rk * rf) / (rk + rf) }, ...stages.slice(1)] };
+  const open = solveChain(openInput);
   if (!open.ok) return open;
   const s0 = open.stages[0]!;
   const mu = smallSignalAt(first.tube, s0.op.va - s0.op.vk, s0.op.vgk).mu;
@@ -67,6 +77,8 @@ export function globalFeedback(input: ChainInput, rf: number): Result<GlobalFeed
   const zoutOpen = open.stages[open.stages.length - 1]!.zout;
   const speaker = last.speakerOhms;
   const zoutClosed = zoutOpen / (1 + (loopGain * (speaker + zoutOpen)) / speaker);
+  const at = level === undefined ? null : amplifierAtLevel(openInput, level);
+  const thdEstimate = at?.ok && !at.pastClean ? at.thd / (1 + loopGain) : null;
   return {
     ok: true,
     open,
@@ -79,5 +91,6 @@ export function globalFeedback(input: ChainInput, rf: number): Result<GlobalFeed
     zoutOpen,
     zoutClosed,
     dampingFactor: speaker / zoutClosed,
+    thdEstimate,
   };
 }
