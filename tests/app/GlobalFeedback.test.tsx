@@ -27,6 +27,8 @@ describe('global negative feedback on the bench', () => {
     const model = globalFeedback(view.input, 47e3);
     if (!model.ok) throw new Error(model.message);
     const text = screen.getByTestId('feedback-figures').textContent!;
+    // The value is in the words too (on paper the box is not).
+    expect(text).toMatch(/^With feedback \(Rf 47 kΩ\): /);
     expect(text).toContain(`${model.feedbackDb.toFixed(1)} dB of feedback`);
     expect(text).toContain(`damping factor ${Number(model.dampingFactor.toPrecision(3))}`);
     expect(text).toMatch(/not modelled: check with a square wave/);

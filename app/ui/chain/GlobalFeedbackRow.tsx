@@ -1,3 +1,4 @@
+import { ohms } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ValueField } from '../panels/ValueField';
 import { FEEDBACK_CAVEAT, feedbackWords } from './feedbackWords';
@@ -10,7 +11,8 @@ import { FEEDBACK_CAVEAT, feedbackWords } from './feedbackWords';
 export function GlobalFeedbackRow() {
   const view = useWorkbench((s) => s.amplifier);
   const driven = useWorkbench((s) => s.design.drivesOutput);
-  const on = useWorkbench((s) => s.design.feedbackRf !== null);
+  const rf = useWorkbench((s) => s.design.feedbackRf);
+  const on = rf !== null;
   if (!driven || !view) return null;
   const words = feedbackWords(view);
   const failed = view.feedback !== null && !view.feedback.ok;
@@ -19,7 +21,7 @@ export function GlobalFeedbackRow() {
       <ValueField field="feedbackRf" hint="from the speaker to stage 1's unbypassed cathode resistor; none for no feedback" />
       {on && words ? (
         <p className={failed ? 'field-error' : 'feedback-figures'} data-testid="feedback-figures">
-          {failed ? words : <><strong>With feedback:</strong> {words}. <span className="feedback-caveat">{FEEDBACK_CAVEAT}</span></>}
+          {failed ? words : <><strong>{`With feedback (Rf ${rf === null ? '' : ohms(rf)}):`}</strong> {words}. <span className="feedback-caveat">{FEEDBACK_CAVEAT}</span></>}
         </p>
       ) : null}
     </div>
