@@ -9,6 +9,7 @@ import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import { tubesToOrderLine } from '../store/tubesToOrder';
 import { feedbackPartLine } from '../ui/chain/feedbackPart';
+import { feedbackBrief } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
@@ -147,7 +148,10 @@ function amplifierCompareLines(s: WorkbenchState): string[] {
   const b = s.rivalAmplifier;
   if (!a?.result.ok || !b?.result.ok) return [];
   const solved = (v: AmplifierView) => v as AmplifierView & { result: { ok: true } };
-  return AMPLIFIER_COMPARE_ROWS.map((row) => `In the amplifier, ${row.label.toLowerCase()}: ${row.show(solved(a))}  |  ${row.show(solved(b))}`);
+  const rows = AMPLIFIER_COMPARE_ROWS.map((row) => `In the amplifier, ${row.label.toLowerCase()}: ${row.show(solved(a))}  |  ${row.show(solved(b))}`);
+  const fa = feedbackBrief(a);
+  const fb = feedbackBrief(b);
+  return fa || fb ? [...rows, `In the amplifier, with feedback: ${fa ?? '—'}  |  ${fb ?? '—'}`] : rows;
 }
 
 /** Draws text wrapped to a width; returns the y below it. */

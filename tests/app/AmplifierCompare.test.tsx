@@ -40,3 +40,23 @@ describe('a tube swap judged in the whole amplifier', () => {
     expect(view.container.querySelector('.amplifier-compare')).toBeNull();
   });
 });
+
+describe('a tube swap in an amplifier with global feedback', () => {
+  it('the loop evens out the swap: the open loop\'s gain triples with a 12AT7, the closed loop\'s moves far less, and the row says so on screen and card', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    act(() => store.getState().commit({ ...store.getState().design, feedbackRf: 47e3 }));
+    act(() => store.getState().setRival({ on: true, tubeId: '12AT7' }));
+    const s = store.getState();
+    const [a, b] = [s.amplifier!.feedback, s.rivalAmplifier!.feedback];
+    if (!a?.ok || !b?.ok) throw new Error('both loops solve');
+    // Closed-loop gain G/(1 + T) with T ∝ G: as the loop gain grows, the closed gain tends to 1/β (common practice).
+    expect(b.openGain / a.openGain).toBeGreaterThan(2);
+    expect(b.closedGain / a.closedGain).toBeLessThan(1.5);
+    const cells = [...view.container.querySelectorAll('tr[data-row="amp-feedback"] td')].map((td) => td.textContent);
+    expect(cells[0]).toMatch(new RegExp(`^${a.feedbackDb.toFixed(1)} dB: gain ${Number(a.closedGain.toPrecision(3))}×, damping factor`));
+    expect(cells[1]).toMatch(new RegExp(`^${b.feedbackDb.toFixed(1)} dB: gain ${Number(b.closedGain.toPrecision(3))}×`));
+    const compared = cardSections(store.getState()).find((x) => x.heading.startsWith('Compared:'))!;
+    expect(compared.lines).toContainEqual(`In the amplifier, with feedback: ${cells[0]}  |  ${cells[1]}`);
+  });
+});

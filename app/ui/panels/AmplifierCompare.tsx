@@ -3,6 +3,7 @@ import type { AmplifierView } from '../../store/amplifierChain';
 import { useWorkbench } from '../../store/StoreProvider';
 import { benchIndex } from '../../store/stagePlans';
 import { atLevelWords } from '../chain/atLevelWords';
+import { feedbackBrief } from '../chain/feedbackWords';
 
 /** One row of the whole amplifier with each tube: its words for a solved amplifier. */
 export interface AmplifierRow {
@@ -46,6 +47,10 @@ export function AmplifierCompare({ first, second }: { first: AmplifierView | nul
           <tr key={row.key} data-row={`amp-${row.key}`}><th scope="row">{row.label}</th><td>{row.show(a)}</td><td>{row.show(b)}</td></tr>
         ))}
         <tr data-row="amp-at-level"><th scope="row">{`At ${a.levelLabel}`}</th><td>{atLevelWords(a) ?? '—'}</td><td>{atLevelWords(b) ?? '—'}</td></tr>
+        {a.feedback || b.feedback ? (
+          // With global feedback the rows above are the open loop's: the loop evens out much of a swap's difference in gain.
+          <tr data-row="amp-feedback"><th scope="row">With feedback</th><td>{feedbackBrief(a) ?? '—'}</td><td>{feedbackBrief(b) ?? '—'}</td></tr>
+        ) : null}
       </tbody>
     </table>
   );
