@@ -1,5 +1,6 @@
 import { findOutputTube, findRectifierTube, heaterWindings, type HeaterLoad, type HeaterWinding, type Result } from '../../src/index';
 import { buildSheetOf } from './buildSheet';
+import { outputTubesPerChannel } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
 /** The DC heater supply the small tubes run from, when the builder chose one: its voltage, the current it delivers and what it lights. */
@@ -42,7 +43,7 @@ export function heaterWindingsOf(s: WorkbenchState): HeaterWindingsView {
   const onDc = d.heaters.voltageStages === 'dc' && small.length > 0;
   const loads = onDc ? [] : small;
   const output = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
-  if (output) loads.push({ label: `${output.id} (${output.heater.volts} V, ${output.heater.amps} A)`, volts: output.heater.volts, amps: output.heater.amps, count: channels * (d.output.pair === 'push-pull' ? 2 : 1) });
+  if (output) loads.push({ label: `${output.id} (${output.heater.volts} V, ${output.heater.amps} A)`, volts: output.heater.volts, amps: output.heater.amps, count: channels * outputTubesPerChannel(d.output) });
   const rectifier = r.kind === 'tube' ? findRectifierTube(r.tubeId) : undefined;
   if (rectifier) loads.push({ label: `${rectifier.id} rectifier (${rectifier.heaterVolts} V, ${rectifier.heaterAmps} A)`, volts: rectifier.heaterVolts, amps: rectifier.heaterAmps, count: 1, atBplus: rectifier.directlyHeated });
   // Everything on DC with no output or rectifier tube: no winding to list (the model refuses an empty list).

@@ -84,6 +84,8 @@ export const splitterDirect = (d: { readonly drivesOutput: boolean; readonly out
 
 /** True when the voltage stages drive a push-pull pair (through its splitter). */
 export const drivesPair = (d: { readonly drivesOutput: boolean; readonly output: OutputPlan }) => d.drivesOutput && d.output.pair === 'push-pull';
+/** Output tubes in each channel: two for a push-pull pair, one single-ended. */
+export const outputTubesPerChannel = (o: OutputPlan) => (o.pair === 'push-pull' ? 2 : 1);
 
 /** The pair's design for the model: the shared values, its own load and mismatch (the single-ended primary is not its). */
 export function pushPullDesignOf(o: OutputPlan): PushPullDesign {

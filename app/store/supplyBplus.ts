@@ -23,19 +23,20 @@ export function supplyBplusFindings(s: WorkbenchState): Finding[] {
     const p = index === null ? undefined : list[index];
     return p?.kind === 'common-cathode' ? p.bplus : null;
   };
-  const groups = new Map<string, { who: string[]; role: 'voltage' | 'splitter' | 'output'; node: number; held: number; supplied: number }>();
+  const groups = new Map<string, { who: string[]; tube: string; role: 'voltage' | 'splitter' | 'output'; node: number; held: number; supplied: number }>();
   view.names.forEach((n, i) => {
     const h = held(n.role, n.voltageIndex);
     if (h === null) return;
     const key = `${n.role}|${view.feeds[i]}|${h}`;
-    const g = groups.get(key) ?? { who: [], role: n.role, node: view.feeds[i]!, held: h, supplied: r.bplus[i]! };
+    const g = groups.get(key) ?? { who: [], tube: n.tube, role: n.role, node: view.feeds[i]!, held: h, supplied: r.bplus[i]! };
     g.who.push(`${n.title} (${n.tube})`);
     groups.set(key, g);
   });
   const gainStages = list.filter((p) => p.kind === 'common-cathode').length;
   const out: Finding[] = [];
   for (const g of groups.values()) {
-    const who = g.role === 'voltage' ? (g.who.length === gainStages ? ROLE_NAME.voltage : g.who.join(', ')) : g.who[0]!;
+    // Named as the ratings list names them: the voltage stages together, or each by its card; the splitter and output stage by role.
+    const who = g.role === 'voltage' ? (g.who.length === gainStages ? ROLE_NAME.voltage : g.who.join(', ')) : `${ROLE_NAME[g.role]} (${g.tube})`;
     const a = bplusAgreement(who, g.node, g.held, g.supplied);
     if (a.ok && a.finding) out.push(a.finding);
   }

@@ -1,5 +1,6 @@
 import { findRectifierTube } from '../../src/index';
 import { buildSheetOf } from './buildSheet';
+import { outputTubesPerChannel } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
 /** One line of the tubes to order: how many of one type, and how many of its sections the design uses. */
@@ -25,7 +26,7 @@ export function tubesToOrder(s: WorkbenchState): TubeOrder[] {
   const small = withVoltage
     ? buildSheetOf(s).tubes.map((t) => ({ id: t.tube.id, count: t.envelopes * channels, sections: t.tube.sections ?? 1, sectionsUsed: (t.tube.sections ?? 1) > 1 ? t.sectionsUsed * channels : null }))
     : [];
-  const output = withOutput ? [{ id: d.output.tubeId, count: channels * (d.output.pair === 'push-pull' ? 2 : 1), sections: 1, sectionsUsed: null }] : [];
+  const output = withOutput ? [{ id: d.output.tubeId, count: channels * outputTubesPerChannel(d.output), sections: 1, sectionsUsed: null }] : [];
   const r = d.supply.rectifier;
   const rectifier = r.kind === 'tube' ? findRectifierTube(r.tubeId) : undefined;
   return [...small, ...output, ...(rectifier ? [{ id: rectifier.id, count: 1, sections: 1, sectionsUsed: null }] : [])];

@@ -35,7 +35,8 @@ describe('global negative feedback on the bench', () => {
     expect(screen.getByTestId('amplifier-figures').textContent).toMatch(/^Gain, open loop/);
     // The drawing carries it: round under the stages from the secondary to stage 1's cathode, its value editable there.
     expect(screen.getByRole('button', { name: /^Global feedback Rf .*47 kΩ/ })).toBeTruthy();
-    expect(screen.getByTestId('feedback-part').textContent).toMatch(/^Rf \(global feedback, speaker to stage 1's cathode\): 47 kΩ, 0\.25 W/);
+    // Joule's law at the clean limit: (8.1 V)² / 47 kΩ ≈ 1.4 mW, twice that rounded up to the smallest stocked rating.
+    expect(screen.getByTestId('feedback-part').textContent).toMatch(/^Rf \(global feedback, speaker to stage 1's cathode\): 47 kΩ, 0\.125 W \(runs at 0\.001\d+ W/);
     const amp = cardSections(store.getState()).find((c) => c.heading === 'Amplifier')!.lines;
     expect(amp.some((l) => l.startsWith('Open loop: Gain'))).toBe(true);
     expect(amp.some((l) => l.startsWith('Global feedback, Rf 47 kΩ from the speaker to stage 1\'s cathode: '))).toBe(true);

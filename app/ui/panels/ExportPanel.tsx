@@ -13,10 +13,7 @@ export function ExportPanel() {
   const chart = () => document.querySelector<SVGSVGElement>('svg.plate-chart');
   const stem = () => fileStem(store.getState().title);
   // The whole amplifier's drawing goes on the card when it has more than one stage to show.
-  const wholeAmplifier = () => {
-    const svg = document.querySelector<SVGSVGElement>('svg.chain-schematic');
-    return svg && svg.querySelectorAll('rect.chain-cell').length > 1 ? svg : null;
-  };
+  const wholeAmplifier = () => ((store.getState().amplifier?.names.length ?? 0) > 1 ? document.querySelector<SVGSVGElement>('svg.chain-schematic') : null);
   const run = async (what: string, make: () => Promise<{ blob: Blob; name: string }>) => {
     try {
       // An export reads the figures: if a keystroke's light analysis is showing, finish it first.

@@ -27,6 +27,8 @@ describe('stages designed for a B+ their supply node does not give', () => {
     const voltage = w.find((f) => f.message.startsWith('Voltage stages: '))!;
     expect(voltage).toMatchObject({ severity: 'warning' });
     expect(voltage.message).toMatch(/^Voltage stages: designed for B\+ 275 V, but node 4 gives \d+ V under load \(\d+ % less/);
+    // The output stage's node sags too (twice the EL34s' current through the choke), named as the ratings list names the stage.
+    expect(w.some((f) => /^Output stage \(EL34\): designed for B\+ 330 V, but node 2 gives \d+ V/.test(f.message))).toBe(true);
     expect(cardSections(store.getState()).find((c) => c.heading === 'Ratings, every stage')!.lines.some((l) => l.startsWith('WARNING: B+ supply: Voltage stages: designed for B+ 275 V'))).toBe(true);
     // Taking the nodes' B+ onto the bench settles it (after the solve that follows).
     store.getState().useSupplyVolts();
