@@ -25,7 +25,37 @@ const conductance = (r: number): number => (r === 0 ? SHORT : Number.isFinite(r)
 
 /** |vout / vsource| at one frequency; scratch arrays are passed in so a sweep allocates once. */
 export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratchFor(net)): number {
-  const n = 1 + 3 * net.stages.length;
+  const v = chainResponseAt(net, freqHz, scratch);
+  return v === null ? 0 : cabs(v);
+}
+
+/**
+ * Nodes beyond the source and each stage's three: two for each output
+ * transformer given its inductances (either side of the magnetising one),
+ * and a push-pull pair's second grid behind a stage with a second output.
+ */
+function extraNodes(net: ChainNetwork): number {
+  let extra = 0;
+  net.stages.forEach(({ linear }, i) => {
+    if (linear.winding) extra += 2;
+    if (linear.pair && i > 0 && net.stages[i - 1]!.linear.output2) extra += 1;
+  });
+  return extra;
+}
+
+/** The node count of the network's equations. */
+const nodeCount = (net: ChainNetwork): number => 1 + 3 * net.stages.length + extraNodes(net);
+
+/** An impedance r + jωl as an admittance, for stamping. */
+function seriesRl(r: number, l: number, omega: number): [number, number] {
+  const x = omega * l;
+  const d = r * r + x * x;
+  return d === 0 ? [SHORT, 0] : [r / d, -x / d];
+}
+
+/** vout / vsource at one frequency as [re, im] (the output's phase against the source's), or null when the network cannot be solved. */
+export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scratchFor(net)): [number, number] | null {
+  const n = nodeCount(net);
   const w = n + 1;
   const { re, im, xr, xi } = scratch;
   re.fill(0);
@@ -47,36 +77,70 @@ export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratch
   stamp(0, -1, gs, 0);
   re[0 * w + n] = gs; // the 1 V source's current through its impedance
   let previous = 0;
+  let previous2: number | null = null;
+  let scale = 1;
+  let spare = 1 + 3 * net.stages.length;
   net.stages.forEach(({ linear: s, coupling }, i) => {
     const [g, p, k] = [1 + 3 * i, 2 + 3 * i, 3 + 3 * i];
-    if (coupling === null) stamp(previous, g, SHORT, 0);
-    else {
-      stamp(previous, g, 0, omega * coupling.cc);
-      stamp(g, -1, 1 / coupling.rg, 0);
-    }
-    stamp(p, -1, conductance(s.plateLoad), 0);
+    const couple = (from: number, to: number) => {
+      if (coupling === null) stamp(from, to, SHORT, 0);
+      else {
+        stamp(from, to, 0, omega * coupling.cc);
+        stamp(to, -1, 1 / coupling.rg, 0);
+      }
+    };
+    couple(previous, g);
+    const g2 = s.pair && previous2 !== null ? spare++ : null;
+    if (g2 !== null) couple(previous2!, g2);
+    const wdg = s.winding;
+    if (wdg) {
+      // Plate → primary resistance and half the leakage → magnetising inductance to signal ground → the other half → reflected load.
+      const [m, x] = [spare, spare + 1];
+      spare += 2;
+      const half = (wdg.ll ?? 0) / 2;
+      stamp(p, m, ...seriesRl(wdg.rSeries, half, omega));
+      if (wdg.lm !== null) stamp(m, -1, ...seriesRl(0, wdg.lm, omega));
+      stamp(m, x, ...seriesRl(0, half, omega));
+      stamp(x, -1, conductance(wdg.reflected), 0);
+    } else stamp(p, -1, conductance(s.plateLoad), 0);
     stamp(k, -1, s.cathodeGrounded ? SHORT : conductance(s.rk), s.ck === null ? 0 : omega * s.ck);
     stamp(p, k, 1 / s.rp, omega * s.caps.cpk);
     stamp(g, k, 0, omega * s.caps.cgk);
-    stamp(g, p, 0, omega * s.caps.cgp);
-    // gm·(vg − vk) flows from plate to cathode inside the tube.
-    add(p, g, s.gm, 0);
-    add(p, k, -s.gm, 0);
-    add(k, g, -s.gm, 0);
-    add(k, k, s.gm, 0);
+    if (g2 === null) {
+      stamp(g, p, 0, omega * s.caps.cgp);
+      // gm·(vg − vk) flows from plate to cathode inside the tube.
+      add(p, g, s.gm, 0);
+      add(p, k, -s.gm, 0);
+      add(k, g, -s.gm, 0);
+      add(k, k, s.gm, 0);
+    } else {
+      // The pair's half circuit, its cathode at signal ground: the plate's row is half the difference of the two plates'
+      // (the second at −v), so each grid drives it by gm/2, and each Cgp loads it by half, from its own grid.
+      const b = omega * s.caps.cgp;
+      stamp(g2, k, 0, omega * s.caps.cgk);
+      add(g, g, 0, b);
+      add(g, p, 0, -b);
+      add(g2, g2, 0, b);
+      add(g2, p, 0, b);
+      add(p, p, 0, b);
+      const gm = s.pair!.gm;
+      add(p, g, gm / 2, -b / 2);
+      add(p, g2, -gm / 2, b / 2);
+    }
     // A screen's current enters the cathode from its supply (signal ground, near enough for the cathode's network).
     add(k, g, -s.gScreen, 0);
     add(k, k, s.gScreen, 0);
-    previous = s.output === 'plate' ? p : k;
+    previous = wdg ? spare - 1 : s.output === 'plate' ? p : k;
+    previous2 = s.output2 === 'cathode' ? k : null;
+    scale = wdg ? wdg.scale : s.outputScale;
   });
   stamp(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
-  if (!csolveFlat(re, im, n, xr, xi)) return 0;
-  const last = net.stages[net.stages.length - 1]!.linear;
-  return cabs([xr[previous]!, xi[previous]!]) * last.outputScale;
+  if (!csolveFlat(re, im, n, xr, xi)) return null;
+  return [xr[previous]! * scale, xi[previous]! * scale];
 }
 
 export function scratchFor(net: ChainNetwork) {
-  const n = 1 + 3 * net.stages.length;
+  const n = nodeCount(net);
   return { re: new Float64Array(n * (n + 1)), im: new Float64Array(n * (n + 1)), xr: new Float64Array(n), xi: new Float64Array(n) };
 }
 
@@ -84,11 +148,18 @@ const LO_HZ = 0.01;
 const HI_HZ = 1e8;
 const PER_DECADE = 8;
 
+/** The reference of the band's edges: 1 kHz, the usual reference frequency of audio response measurements (common practice). */
+export const REFERENCE_HZ = 1000;
+
 /**
- * The −3 dB points: the response on a log grid from 0.01 Hz to 100 MHz, its
- * flat top as the reference, then each crossing of 1/√2 of it refined by
- * bisection in log frequency. Null where the response stays up to the
- * grid's end (a chain with no capacitor rolls off no low frequencies).
+ * The −3 dB points against the gain at 1 kHz: the response on a log grid
+ * from 0.01 Hz to 100 MHz, walked out from 1 kHz each way to the first
+ * sample below 1/√2 of it, the crossing refined by bisection in log
+ * frequency. Null where the response stays up to the grid's end (a chain
+ * with no capacitor rolls off no low frequencies). Referred to 1 kHz, not
+ * to the response's highest point: an output transformer's leakage
+ * resonating with the plate's capacitance can rise above midband far
+ * beyond the band, and the band's edges are still read against midband.
  */
 export function chainCorners(net: ChainNetwork): { lowHz: number | null; highHz: number | null; midbandGain: number } {
   const scratch = scratchFor(net);
@@ -96,9 +167,8 @@ export function chainCorners(net: ChainNetwork): { lowHz: number | null; highHz:
   const count = Math.round(decades * PER_DECADE) + 1;
   const freqs = Array.from({ length: count }, (_, k) => LO_HZ * Math.pow(10, k / PER_DECADE));
   const mags = freqs.map((f) => chainGainAt(net, f, scratch));
-  let top = 0;
-  for (let k = 1; k < count; k++) if (mags[k]! > mags[top]!) top = k;
-  const ref = mags[top]!;
+  const mid = Math.round(Math.log10(REFERENCE_HZ / LO_HZ) * PER_DECADE);
+  const ref = mags[mid]!;
   const level = ref / Math.SQRT2;
   const refine = (loF: number, hiF: number, risingAtHi: boolean): number => {
     let a = Math.log(loF);
@@ -112,14 +182,14 @@ export function chainCorners(net: ChainNetwork): { lowHz: number | null; highHz:
     return Math.exp(0.5 * (a + b));
   };
   let lowHz: number | null = null;
-  for (let k = top; k > 0; k--) {
+  for (let k = mid; k > 0; k--) {
     if (mags[k - 1]! < level) {
       lowHz = refine(freqs[k - 1]!, freqs[k]!, true);
       break;
     }
   }
   let highHz: number | null = null;
-  for (let k = top; k < count - 1; k++) {
+  for (let k = mid; k < count - 1; k++) {
     if (mags[k + 1]! < level) {
       highHz = refine(freqs[k]!, freqs[k + 1]!, false);
       break;

@@ -1,8 +1,9 @@
 import { fail, type Result } from '../result';
 import { shown } from '../shown';
 import { smallSignalAt } from '../tube/triode';
-import { solveChain } from './solveChain';
+import { amplifierOf, networkOf, prepareAmplifier } from './solveAmplifier';
 import { amplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
+import { feedbackBand, type FeedbackBand } from './feedbackBand';
 import type { ChainInput, ChainResult, CommonCathodeLink } from './chainTypes';
 
 /** The feedback resistor's range, Ω: below it the loop would swamp the first stage's cathode; above it there is no loop to speak of. */
@@ -33,6 +34,8 @@ export interface GlobalFeedback {
    * reach it cleanly.
    */
   readonly thdEstimate: number | null;
+  /** The closed loop across the band, with the output transformer's inductances where the output stage gives them, and its margins from oscillation. */
+  readonly band: FeedbackBand;
 }
 
 /**
@@ -45,10 +48,11 @@ export interface GlobalFeedback {
  * T = |A|·β·(μ + 1)/μ and the closed gain |A|/(1 + T), the secondary phased
  * for negative feedback (a builder swaps its leads to make it so). The
  * output impedance falls by 1 + T·(R_L + Z_o)/R_L, the loop's gain with the
- * speaker off (Blackman's formula: the loop senses voltage). Midband only:
- * the band's edges and the loop's stability with a real transformer's
- * leakage and capacitances are not modelled. Checked against ngspice
- * (tests/spice/globalFeedback.spice.test.ts).
+ * speaker off (Blackman's formula: the loop senses voltage). Across the
+ * band (feedbackBand) the loop follows the open loop's network, with the
+ * output transformer's primary and leakage inductances where given; its
+ * winding capacitances are not modelled. Checked against ngspice
+ * (tests/spice/globalFeedback.spice.test.ts, feedbackBand.spice.test.ts).
  */
 export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierLevel): Result<GlobalFeedback> {
   if (!(typeof rf === 'number' && rf >= FEEDBACK_RF_LIMITS.min && rf <= FEEDBACK_RF_LIMITS.max)) {
@@ -63,8 +67,10 @@ export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierL
   if (!last || (last.kind !== 'single-ended-output' && last.kind !== 'push-pull-output')) return fail('invalid-input', 'Global feedback is taken from the speaker: the amplifier must end in an output stage', 'stages');
   const rk = first.rk;
   const openInput: ChainInput = { ...input, stages: [{ ...first, rk: (rk * rf) / (rk + rf) }, ...stages.slice(1)] };
-  const open = solveChain(openInput);
+  const prepared = prepareAmplifier(openInput);
+  const open = amplifierOf(openInput, prepared);
   if (!open.ok) return open;
+  if (!prepared.ok) return prepared;
   const s0 = open.stages[0]!;
   const mu = smallSignalAt(first.tube, s0.op.va - s0.op.vk, s0.op.vgk).mu;
   // The source's divider into the first grid (its leak) stays outside the loop.
@@ -92,5 +98,6 @@ export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierL
     zoutClosed,
     dampingFactor: speaker / zoutClosed,
     thdEstimate,
+    band: feedbackBand(networkOf(openInput, prepared), loopGain),
   };
 }

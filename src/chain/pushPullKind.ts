@@ -1,5 +1,6 @@
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { SWEEP_SAMPLES } from '../output/outputSignal';
+import { linearWinding } from '../output/windingInductance';
 import { checkPushPull, type PushPullDesign } from '../pushpull/pushPullDesign';
 import { pushPullDriveOf, pushPullInstant } from '../pushpull/pushPullDrive';
 import { plateToPlateImpedance } from '../pushpull/pushPullFigures';
@@ -65,7 +66,9 @@ export const pushPullKind: StageKind<PushPullLink> = {
     // Each tube, linearised for the response: it sees half the plate-to-plate load while both conduct (Langford-Smith, RDH4 ch. 13).
     const series = design.raa / 2 + design.rPrimary / 2;
     const scale = (ratio * (design.raa / 2)) / series;
-    const rp = plateResistance(solved);
+    // Each tube as a source in its half circuit: half the plate-to-plate impedance, less its half of the primary's
+    // resistance (an ultralinear pair's screen current coupled through the taps, as the speaker's impedance counts it).
+    const rp = zpp !== null && zpp / 2 > design.rPrimary / 2 ? zpp / 2 - design.rPrimary / 2 : plateResistance(solved);
     const rLoad = Number.isFinite(rp) ? (rp * series) / (rp + series) : series;
     const peak = Math.max(...Array.from(full.winding, Math.abs));
     return {
@@ -92,6 +95,9 @@ export const pushPullKind: StageKind<PushPullLink> = {
         caps: s.tube.capacitances,
         output: 'plate',
         outputScale: scale,
+        winding: linearWinding(design, design.rPrimary, design.raa / 2, 0.5, ratio),
+        // Both grids driven, the second at `antiphase` times the first: (1 − antiphase)/2 of the first's drive each way.
+        pair: { gm: (-gain / (scale * rLoad)) * (antiphase < 0 ? 2 / (1 - antiphase) : 1) },
       },
     };
   },

@@ -2,6 +2,7 @@ import { checkOutputInput } from '../output/checkOutput';
 import { outputFindings } from '../output/outputFindings';
 import { cleanLimit, CUTOFF_SHARE, solveInstant, SWEEP_SAMPLES, type Instant } from '../output/outputSignal';
 import type { OutputDesign } from '../output/outputDesign';
+import { linearWinding } from '../output/windingInductance';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { checkNumber, LIMITS } from '../stage/checkInput';
@@ -92,6 +93,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
         caps: s.tube.capacitances,
         output: 'plate',
         outputScale: scale,
+        winding: linearWinding(design, design.rPrimary, zp, 1, ratio),
       },
     };
   },

@@ -26,20 +26,13 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
   if (!a.ok) return a;
   const { stages } = input;
   const { links, signal, clips, first, inputPeak, gain } = a;
-  const rsource = input.source.rsource;
-  const chainLoad = input.load?.rl ?? Infinity;
   const outputPeak = signal.outputPeak(inputPeak);
   const last = stages[stages.length - 1]!;
   // Power into the speaker at the fundamental, as data sheets and the output stage's own figures state it.
   const speaker = last.kind === 'single-ended-output' || last.kind === 'push-pull-output' ? last.speakerOhms : null;
   const outputPower = speaker !== null ? a.cleanFundamental() ** 2 / (2 * speaker) : null;
 
-  const network: ChainNetwork = {
-    rsource,
-    stages: stages.map((s, i) => ({ linear: links[i]!.linear, coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null })),
-    rl: chainLoad,
-  };
-  const { lowHz, highHz } = chainCorners(network);
+  const { lowHz, highHz } = chainCorners(networkOf(input, a));
   const names = stages.map((s, i) => `Stage ${i + 1}, ${STAGE_KIND_LABELS[s.kind].toLowerCase()}, ${tubeName(s)}`);
   const tagged = amplifierFindings(links.map((l, i) => ({ name: names[i]!, findings: l.findings })));
   const results: StageResult[] = links.map((l, i) => ({
@@ -71,6 +64,15 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
     speakerRms: outputPower === null || speaker === null ? null : Math.sqrt(outputPower * speaker),
     findings: tagged,
     ...(level === undefined ? {} : { atLevel: atLevelOf(a, input, level) }),
+  };
+}
+
+/** The amplifier's linearised network, for its response: every stage at its operating point, each coupling as given. */
+export function networkOf(input: ChainInput, a: PreparedAmplifier): ChainNetwork {
+  return {
+    rsource: input.source.rsource,
+    stages: input.stages.map((s, i) => ({ linear: a.links[i]!.linear, coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null })),
+    rl: input.load?.rl ?? Infinity,
   };
 }
 

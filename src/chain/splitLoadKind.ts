@@ -56,8 +56,9 @@ export const splitLoadKind: StageKind<SplitLoadLink> = {
       cutoffCurrent: CUTOFF_FRACTION * op.ia,
       gridLaw: (vgk) => gridCurrent(modelOf(s.tube), vgk),
       findings: r.findings,
-      // The plate output as a common-cathode stage whose unbypassed cathode resistor carries the other output's load.
-      linear: { gm: r.gm, rp: r.rp, plateLoad: s.ra, rk: rkL, ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', outputScale: 1 },
+      // The plate output as a common-cathode stage with an unbypassed cathode resistor, the other output; the push-pull
+      // pair's second grid loads it through its own coupling in the network.
+      linear: { gm: r.gm, rp: r.rp, plateLoad: s.ra, rk: s.rk, ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', output2: 'cathode', outputScale: 1 },
     };
   },
 };

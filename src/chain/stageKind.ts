@@ -27,6 +27,37 @@ export interface LinearStage {
   readonly output: 'plate' | 'cathode';
   /** Output voltage over the output node's voltage: 1, or an output transformer's turns ratio (secondary over primary). */
   readonly outputScale: number;
+  /**
+   * An output transformer with its inductances given: in place of the plate
+   * load, the primary's resistance, then its leakage split either side of its
+   * magnetising inductance (the coupled windings' T), into the reflected
+   * load; the output is the reflected load's voltage times `scale`. Absent:
+   * the transformer is ideal and `plateLoad` and `outputScale` stand.
+   */
+  readonly winding?: LinearWinding | null;
+  /** A phase splitter whose second output, in antiphase, leaves at this node (a split-load's cathode). */
+  readonly output2?: 'cathode';
+  /**
+   * A push-pull pair, in its half circuit: where the stage before gives a
+   * second output, the second tube's grid follows it through its own
+   * coupling and each grid moves the plate by half the transconductance
+   * (the plates in antiphase, as a centre-tapped primary holds them);
+   * otherwise the first grid alone, with the whole of it. `gm` is then the
+   * transconductance that gives the stage's midband gain with both grids
+   * driven as its splitter drives them.
+   */
+  readonly pair?: { readonly gm: number };
+}
+
+/** An output transformer in the linear network, each value as the stage's plate sees it (a push-pull pair's halved for its half circuit). */
+export interface LinearWinding {
+  readonly rSeries: number;
+  readonly reflected: number;
+  /** Magnetising inductance, H, or null (ideal). */
+  readonly lm: number | null;
+  /** Leakage inductance, H, or null (none). */
+  readonly ll: number | null;
+  readonly scale: number;
 }
 
 /** One instant of the stage's large-signal response, written in place (the chain solves thousands a waveform). */

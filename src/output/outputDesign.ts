@@ -1,14 +1,16 @@
 import { fail, type Failure } from '../result';
 import { checkNumber } from '../stage/checkInput';
 import { CONNECTIONS, connectionsOf, type Connection, type OutputTube } from './outputTube';
+import { windingProblem, type WindingInductance } from './windingInductance';
 
 /**
  * A transformer-coupled single-ended output stage. SI units. The primary
- * runs from B+ to the plate; the transformer is ideal apart from the
- * primary's DC resistance, and reflects the speaker as zPrimary. The cathode
+ * runs from B+ to the plate; the transformer is ideal at midband apart from
+ * the primary's DC resistance, and reflects the speaker as zPrimary; its
+ * inductances, when given, shape the amplifier's band. The cathode
  * resistor, when used, is taken as fully bypassed for signal.
  */
-export interface OutputDesign {
+export interface OutputDesign extends WindingInductance {
   readonly tubeId: string;
   readonly connection: Connection;
   /** Supply at the primary's B+ end, to ground, V. */
@@ -68,7 +70,8 @@ export function outputDesignProblem(d: OutputDesign, tube: OutputTube): Failure 
     (d.bias === 'cathode' ? checkNumber('rk', 'Rk', d.rk, 'Ω', L.minRk, L.maxRk) : checkNumber('vg', 'Grid bias', d.vg, 'V', L.minVg, 0)) ??
     checkNumber('rg', 'Grid resistor', d.rg, 'Ω', L.minRg, L.maxRg) ??
     checkNumber('speakerOhms', 'Speaker', d.speakerOhms, 'Ω', L.minSpeaker, L.maxSpeaker) ??
-    checkNumber('thdLimit', 'Distortion limit', d.thdLimit, '', L.minThd, L.maxThd)
+    checkNumber('thdLimit', 'Distortion limit', d.thdLimit, '', L.minThd, L.maxThd) ??
+    windingProblem(d)
   );
 }
 

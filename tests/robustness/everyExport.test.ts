@@ -169,6 +169,16 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const pairStage = { ...ppDesign, kind: 'push-pull-output', tube: el34, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } };
   run('solveChain (push-pull)', fc.tuple(fc.tuple(near(chainStages[0]!), fc.oneof(near(splitLoad), near(ltp)), near(pairStage)).map(([a, b, c]) => ({ source: { rsource: 600 }, stages: [a, b, c] }))), Q.solveChain, 40);
   run('globalFeedback', fc.tuple(fc.oneof(fc.constant({ source: { rsource: 600 }, stages: [{ ...chainStages[0]!, bypassed: false }, pairStage] }), fc.tuple(near({ ...chainStages[0]!, bypassed: false }), near(pairStage)).map(([a, b]) => ({ source: { rsource: 600 }, stages: [a, b] })), anything), or(fc.double({ min: 50, max: 2e7 })), fc.oneof(fc.constant(undefined), near({ power: 1 }))), Q.globalFeedback, 40);
+  // With the output transformer's inductances: the loop across the band, single-ended and push-pull behind its splitter.
+  const inductances = { primaryInductance: 15, leakageInductance: 8e-3 };
+  const seWound = { ...chainStages[2]!, ...inductances };
+  const ppWound = { ...pairStage, ...inductances, primaryInductance: 80 };
+  run('globalFeedback (transformer)', fc.tuple(fc.oneof(
+    fc.tuple(near({ ...chainStages[0]!, bypassed: false }), near(chainStages[0]!), near(seWound)).map(([a, b, c]) => ({ source: { rsource: 1e3 }, stages: [a, b, c] })),
+    fc.tuple(near({ ...chainStages[0]!, bypassed: false }), near(splitLoad), near(ppWound)).map(([a, b, c]) => ({ source: { rsource: 600 }, stages: [a, b, c] })),
+  ), or(fc.double({ min: 50, max: 2e7 }))), Q.globalFeedback, 40);
+  run('windingProblem', fc.tuple(fc.oneof(near(inductances), near({ primaryInductance: null, leakageInductance: 5e-3 }), anything)), Q.windingProblem);
+  run('feedbackBand', fc.tuple(fc.constant({ rsource: 600, stages: [], rl: Infinity }), numbers), Q.feedbackBand, 50);
   run('bplusAgreement', fc.tuple(or(fc.constant('Voltage stages')), or(fc.integer({ min: 0, max: 5 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 }))), Q.bplusAgreement);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);

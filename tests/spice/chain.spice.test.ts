@@ -92,7 +92,7 @@ describe.runIf(run)('whole amplifiers agree with ngspice', () => {
     });
     expectClose(Math.abs(ours.gain), Math.hypot(sim['vr(out)']!, sim['vi(out)']!), { rel: 0.01 }, 'gain at 1 kHz');
 
-    const corners = simulatedCorners(runNgspiceFull(chainNetlist(c.chain, { kind: 'sweep' })).data);
+    const corners = simulatedCorners(runNgspiceFull(chainNetlist(c.chain, { kind: 'sweep' })).data, 1000);
     expectClose(ours.lowHz!, corners.low!, { rel: 0.03 }, 'low −3 dB');
     expectClose(ours.highHz!, corners.high!, { rel: 0.03 }, 'high −3 dB');
 

@@ -9,7 +9,14 @@ import { triodeSubckt } from './netlists';
  * capacitances, every coupling capacitor and grid leak as given, a bias
  * supply behind each leak, and an output transformer as coupled inductors
  * large enough (10 kH, k = 1 − 10⁻¹⁰) to act as the ideal transformer the
- * model assumes across the audio band and well past it. Where the design
+ * model assumes across the audio band and well past it, unless the design
+ * gives the transformer's inductances: then the primary is wound to its
+ * primary inductance and each of its sections coupled to the secondary by
+ * k = √(1 − L_leakage / L_primary), the coupling whose primary inductance
+ * with the secondary shorted, L_primary·(1 − k²), is the leakage; the
+ * primary's sections (an ultralinear tap, a push-pull primary's halves) stay
+ * coupled among themselves as the near-ideal transformer's, the leakage the
+ * model takes being the primary's to the secondary. Where the design
  * leaves a bypass ideal, a large capacitor stands for it: 1 F in the AC
  * sweep, 1 mF in the transient (ngspice's time step collapses with more).
  * The transient checks the midband large-signal figures, so there every
@@ -27,6 +34,13 @@ import { triodeSubckt } from './netlists';
 const g = (x: number) => x.toPrecision(12);
 const L_PRIMARY = 1e4;
 const K = 1 - 1e-10;
+
+/** The primary's inductance and the windings' coupling for an output stage: the design's where it gives them, else the near-ideal transformer's. */
+function windingOf(s: { readonly primaryInductance?: number | null; readonly leakageInductance?: number | null }): { lp: number; k: number } {
+  const lp = s.primaryInductance ?? L_PRIMARY;
+  const ll = s.leakageInductance ?? null;
+  return { lp, k: ll === null ? K : Math.sqrt(1 - ll / lp) };
+}
 
 export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'tran'; readonly peak: number };
 
@@ -51,13 +65,14 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     const ul = s.connection === 'ultralinear' && t.law.kind === 'pentode';
     lines.push(t.law.kind === 'pentode' ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params));
     lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RPRI bottom ${p} ${g(Math.max(s.rPrimary, 1e-6))}`);
+    const { lp, k: kw } = windingOf(s);
     if (ul) {
       const x = s.ulTap;
-      lines.push(`LA bp${i} tap ${g(L_PRIMARY * x * x)}`, `LB tap bottom ${g(L_PRIMARY * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${K}`, `KBS LB LS ${K}`);
+      lines.push(`LA bp${i} tap ${g(lp * x * x)}`, `LB tap bottom ${g(lp * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${g(kw)}`, `KBS LB LS ${g(kw)}`);
     } else {
-      lines.push(`LP bp${i} bottom ${g(L_PRIMARY)}`, `KPS LP LS ${K}`);
+      lines.push(`LP bp${i} bottom ${g(lp)}`, `KPS LP LS ${g(kw)}`);
     }
-    lines.push(`LS sec 0 ${g(L_PRIMARY / n2)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
+    lines.push(`LS sec 0 ${g(lp / n2)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
     lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(midband ? large : (s.ck ?? large))}` : `VK${i} ${k} 0 DC 0`);
     const rgrid = t.law.kind === 'triode' ? t.law.tube.model.gridResistance : POWER_GRID_RESISTANCE;
     lines.push(`BG${i} ${gnode} ${k} I = pwr(max(v(${gnode},${k}),0),1.5)/${g(rgrid)}`);
@@ -120,7 +135,8 @@ function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: 
   const ul = s.connection === 'ultralinear' && pentode;
   const lines = [pentode ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params)];
   lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RH1 end1 ${p} ${g(Math.max(s.rPrimary / 2, 1e-6))}`, `RH2 end2 ${p}b ${g(Math.max(s.rPrimary / 2, 1e-6))}`);
-  const quarter = L_PRIMARY / 4;
+  const { lp, k: kw } = windingOf(s);
+  const quarter = lp / 4;
   const segments: string[] = [];
   if (ul) {
     const x = s.ulTap;
@@ -130,9 +146,9 @@ function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: 
     lines.push(`LH1 end1 bp${i} ${g(quarter)}`, `LH2 bp${i} end2 ${g(quarter)}`);
     segments.push('LH1', 'LH2');
   }
-  lines.push(`LS sec 0 ${g((L_PRIMARY * s.speakerOhms) / s.raa)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
+  lines.push(`LS sec 0 ${g((lp * s.speakerOhms) / s.raa)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
   const all = [...segments, 'LS'];
-  all.forEach((a, j) => all.slice(j + 1).forEach((b) => lines.push(`K${a}${b} ${a} ${b} ${K}`)));
+  all.forEach((a, j) => all.slice(j + 1).forEach((b) => lines.push(`K${a}${b} ${a} ${b} ${g(b === 'LS' ? kw : K)}`)));
   lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(large)}` : `VK${i} ${k} 0 DC 0`);
   const screen = (n: 1 | 2) => (s.connection === 'triode' ? (n === 1 ? p : `${p}b`) : ul ? `tap${n}` : 'screen');
   if (pentode) {
