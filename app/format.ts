@@ -22,6 +22,10 @@ export const dB = (x: number) => `${x.toFixed(1).replace('-', '−')} dB`;
 export const smallVolts = (v: number) => (v >= 1 ? `${plain(v)} V` : v >= 1e-3 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
 /** A current that can be tiny (a filter capacitor's ripple current): mA down to 1 mA, then µA, then nA, to three figures. */
 export const smallAmps = (a: number) => (a >= 1e-3 || a === 0 ? milliamps(a) : a >= 1e-6 ? `${plain(a * 1e6)} µA` : `${plain(a * 1e9)} nA`);
+/** A frequency as the bench reads it: Hz, kHz or MHz, to three figures. */
+export const hertz = (f: number) => (f >= 1e6 ? `${plain(f / 1e6)} MHz` : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
+/** An inductance: H, mH or µH. */
+export const henries = (v: number) => formatValue(v, 'H');
 /** A fraction shown in percent, to three figures. */
 export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 /** A signed level in dB to one decimal, with a true minus sign. */

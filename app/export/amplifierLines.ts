@@ -1,9 +1,9 @@
-import { farads, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
+import { farads, hertz, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
 import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
 import { atLevelWords } from '../ui/chain/atLevelWords';
-import { FEEDBACK_CAVEAT, feedbackWords } from '../ui/chain/feedbackWords';
+import { FEEDBACK_CAVEAT, feedbackBandWords, feedbackWords } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**
@@ -16,7 +16,7 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   const view = s.amplifier;
   if (!view || !view.result.ok || view.result.stages.length < 2) return null;
   const r = view.result;
-  const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
+  const hz = (f: number | null, none: string) => (f === null ? none : hertz(f));
   const chain = view.names.map((n, i) => `${n.tube} ${view.kinds[i]!.toLowerCase()}`).join(' → ');
   const first = r.clipsFirst;
   const lines = [
@@ -30,6 +30,8 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   if (fb && s.design.feedbackRf !== null) {
     lines[1] = `Open loop: ${lines[1]}`;
     lines.push(view.feedback?.ok ? `Global feedback, Rf ${ohms(s.design.feedbackRf)} from the speaker to stage 1's cathode: ${fb}` : `Global feedback: ${fb}`);
+    const band = feedbackBandWords(view, s.design.output);
+    if (band) lines.push(band);
     if (view.feedback?.ok) lines.push(FEEDBACK_CAVEAT);
   }
   return { heading: 'Amplifier', lines };

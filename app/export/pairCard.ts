@@ -55,7 +55,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
     {
       heading: 'Parts to order',
       lines: [
-        ...transformerLines(parts),
+        ...transformerLines(parts, s.design.output),
         ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),
         ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)} or more, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''}`),
         `Heaters: two tubes, each ${sol.tube.heater.volts} V, ${sol.tube.heater.amps} A`,

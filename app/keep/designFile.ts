@@ -16,6 +16,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *     "design": { tubeId, bplus, ra, rk, bypassed, rl, series, snap, rsource, cin, rg, ck, cout, levelRms, stage2,
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
  *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch, idleMismatch,
+ *                                      primaryInductance, leakageInductance,
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
@@ -45,8 +46,10 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * So did `supply` (the B+ supply, see supplyInFile.ts): a file without it
  * opens on the bench's default supply, its own values unchanged; and
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
- * bench's default (on the AC heater winding); and `feedbackRf` (global
- * feedback's resistor, Ω, or null): absent, none.
+ * bench's default (on the AC heater winding); `feedbackRf` (global
+ * feedback's resistor, Ω, or null): absent, none; and the output
+ * transformer's `primaryInductance` and `leakageInductance` (H, or null):
+ * absent, the ideal transformer.
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -154,6 +157,8 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       thdLimit: o.thdLimit as number,
       ...pairDefaults(o.zPrimary as number),
       ...(o.pair !== undefined ? { pair: o.pair as OutputPair } : {}),
+      ...(o.primaryInductance != null ? { primaryInductance: o.primaryInductance as number } : {}),
+      ...(o.leakageInductance != null ? { leakageInductance: o.leakageInductance as number } : {}),
       ...(o.raa !== undefined ? { raa: o.raa as number } : {}),
       ...(o.mismatch !== undefined ? { mismatch: o.mismatch as number } : {}),
       // Written before the two parts were told apart, a mismatch moved the idle current with the gm.

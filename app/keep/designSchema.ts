@@ -98,6 +98,9 @@ export const OUTPUT_STAGE = v.object({
     ulTap: ranged(L.output.ulTap),
     zPrimary: ranged(L.output.zPrimary),
     rPrimary: ranged(L.output.rPrimary),
+    // The transformer's inductances came within version 3: absent (or null), the ideal transformer.
+    primaryInductance: v.optional(rangedOrNull(L.output.primaryInductance)),
+    leakageInductance: v.optional(rangedOrNull(L.output.leakageInductance)),
     bias: oneOf(['cathode', 'fixed']),
     rk: ranged(L.output.rk),
     vg: ranged(L.output.vg),

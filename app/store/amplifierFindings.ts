@@ -6,6 +6,8 @@ import { supplyBplusFindings } from './supplyBplus';
 
 /** How the supply is named in the ratings list. */
 export const SUPPLY_STAGE_NAME = 'B+ supply';
+/** How the feedback loop is named in the ratings list. */
+export const FEEDBACK_STAGE_NAME = 'Global feedback';
 
 const KIND_NAME = { follower: 'cathode follower', 'common-cathode': 'gain stage' } as const;
 
@@ -30,6 +32,9 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   const splitter = amp && drivesPair(d) ? amp.stages[list.length] : undefined;
   if (splitter) stages.push({ name: `Phase splitter, ${splitterName(d.output.splitter)}`, findings: splitter.findings });
   if (d.stageKind === 'output' || d.drivesOutput) stages.push({ name: d.output.pair === 'push-pull' ? `Output stage, ${d.output.tubeId} pair` : `Output stage, ${d.output.tubeId}`, findings: s.outputBench.analysis.findings });
+  // A loop that would oscillate, or nearly, is the amplifier's danger as much as any rating.
+  const feedback = s.amplifier?.feedback;
+  if (d.feedbackRf !== null && feedback?.ok && feedback.band.findings.length > 0) stages.push({ name: FEEDBACK_STAGE_NAME, findings: feedback.band.findings });
   // The supply's warnings and dangers belong in the same list (a capacitor over its voltage is as dangerous as a plate);
   // its notes, the margins, stay with its own table.
   const supply = s.supplyView?.result;

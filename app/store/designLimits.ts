@@ -1,4 +1,4 @@
-import { FEEDBACK_RF_LIMITS, MAX_MISMATCH, OUTPUT_LIMITS, RAA_LIMITS } from '../../src/index';
+import { FEEDBACK_RF_LIMITS, MAX_MISMATCH, OUTPUT_LIMITS, RAA_LIMITS, WINDING_LIMITS } from '../../src/index';
 
 /** A design field's range: typing, files and links, drags and the sliders' aria bounds all read it from here. */
 export interface Limit {
@@ -65,6 +65,8 @@ export const DESIGN_LIMITS = {
     raa: limit(RAA_LIMITS.min, RAA_LIMITS.max, 'Ω'),
     mismatch: limit(-MAX_MISMATCH, MAX_MISMATCH, ''),
     rPrimary: limit(0, OUTPUT_LIMITS.maxRPrimary, 'Ω'),
+    primaryInductance: limit(WINDING_LIMITS.primaryInductance.min, WINDING_LIMITS.primaryInductance.max, 'H'),
+    leakageInductance: limit(WINDING_LIMITS.leakageInductance.min, WINDING_LIMITS.leakageInductance.max, 'H'),
     rk: limit(OUTPUT_LIMITS.minRk, OUTPUT_LIMITS.maxRk, 'Ω'),
     vg: limit(OUTPUT_LIMITS.minVg, 0, 'V'),
     rg: limit(OUTPUT_LIMITS.minRg, OUTPUT_LIMITS.maxRg, 'Ω'),

@@ -10,7 +10,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 export type FieldName =
   | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf'
   | 'fCc' | 'fRg' | 'fVbias'
-  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
+  | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oLp' | 'oLl' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
   | 'tGain' | 'tClean' | 'tThdLevel' | 'tThd' | 'tDiss' | 'tZout' | 'tRaMin' | 'tRaMax' | 'tRkMin' | 'tRkMax' | 'tHeadroom'
   | 'tPower' | 'tPowerThd' | 'tThdPower' | 'tThdAtPower' | 'tBplusMin' | 'tBplusMax';
@@ -69,6 +69,12 @@ const coupling = <K extends keyof FollowerCoupling>(key: K) => ({
 const out = <K extends keyof OutputPlan>(key: K) => ({
   get: (d: BenchDesign) => d.output[key] as number,
   put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, [key]: v as number } }),
+});
+
+/** An output stage's value that may be left out (null: the ideal part's). */
+const outOptional = <K extends 'primaryInductance' | 'leakageInductance'>(key: K) => ({
+  get: (d: BenchDesign) => d.output[key] ?? null,
+  put: (d: BenchDesign, v: number | null) => ({ ...d, output: { ...d.output, [key]: v } }),
 });
 
 const splitter = <K extends Exclude<keyof SplitterPlan, 'kind' | 'tubeId'>>(key: K) => ({
@@ -133,6 +139,8 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   oIdleMismatch: { label: 'Idle mismatch', unit: '%', example: '3', read: percent('Idle mismatch', L.output.mismatch), show: showPercent, ...out('idleMismatch') },
   oZ: { label: 'Primary Z', unit: 'Ω', example: '3k5', read: ranged('Primary impedance', L.output.zPrimary), show: compact, ...out('zPrimary') },
   oRpri: { label: 'Primary DCR', unit: 'Ω', example: '120', read: ranged('Primary DC resistance', L.output.rPrimary), show: compact, ...out('rPrimary') },
+  oLp: { label: 'Primary L', unit: 'H', example: '15 or none', read: ranged('Primary inductance', L.output.primaryInductance, { none: 'null' }), show: compact, ...outOptional('primaryInductance') },
+  oLl: { label: 'Leakage L', unit: 'H', example: '8m or none', read: ranged('Leakage inductance', L.output.leakageInductance, { none: 'null' }), show: compact, ...outOptional('leakageInductance') },
   oRk: { label: 'Rk', unit: 'Ω', example: '270', read: ranged('Rk', L.output.rk), show: compact, ...out('rk') },
   oVg: { label: 'Grid bias', unit: 'V', example: '-20', read: gridBias, show: (v) => (v === null ? '' : String(Number(v.toFixed(2)))), ...out('vg') },
   oRg: { label: 'Rg', unit: 'Ω', example: '220k', read: ranged('Rg', L.output.rg), show: compact, ...out('rg') },

@@ -43,6 +43,8 @@ const OUTPUT_FIELD_OF: Record<string, string> = {
   ulTap: 'oTap',
   zPrimary: 'oZ',
   rPrimary: 'oRpri',
+  primaryInductance: 'oLp',
+  leakageInductance: 'oLl',
   rk: 'oRk',
   vg: 'oVg',
   rg: 'oRg',

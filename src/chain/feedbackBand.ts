@@ -1,3 +1,5 @@
+import { formatValue } from '../parts/formatValue';
+import { finding, type Finding } from '../stage/ratingBands';
 import { chainResponseAt, scratchFor, type ChainNetwork } from './chainResponse';
 
 /**
@@ -16,6 +18,8 @@ export interface FeedbackBand {
   readonly high: LoopMargins | null;
   /** Common practice: at least 45° of phase margin and 10 dB of gain margin at each end; under that 'marginal', below zero 'oscillates'. */
   readonly verdict: 'stable' | 'marginal' | 'oscillates';
+  /** The verdict for the ratings list: a loop that oscillates is a danger (it can overheat the output tubes' screens and burn a tweeter), a thin margin a warning; none when stable. */
+  readonly findings: readonly Finding[];
 }
 
 export interface LoopMargins {
@@ -122,6 +126,7 @@ export function feedbackBand(open: ChainNetwork, loopGain: number): FeedbackBand
   const ends = [low, high].filter((m): m is LoopMargins => m !== null);
   const oscillates = ends.some((m) => m.phaseMarginDeg < 0 || (m.gainMarginDb !== null && m.gainMarginDb < 0));
   const marginal = ends.some((m) => m.phaseMarginDeg < MIN_PHASE_MARGIN || (m.gainMarginDb !== null && m.gainMarginDb < MIN_GAIN_MARGIN));
+  const verdict = oscillates ? 'oscillates' : marginal ? 'marginal' : 'stable';
   return {
     lowHz: edge(sides[0]),
     highHz: edge(sides[1]),
@@ -129,8 +134,34 @@ export function feedbackBand(open: ChainNetwork, loopGain: number): FeedbackBand
     peakHz: peak.f,
     low,
     high,
-    verdict: oscillates ? 'oscillates' : marginal ? 'marginal' : 'stable',
+    verdict,
+    findings: loopFindings(verdict, low, high),
   };
+}
+
+/** The usual cures at each end (common practice): less feedback, or the loop's corners set apart so one of them rules there. */
+const CURE = {
+  low: 'one coupling network left to set the loop\'s low corner and the others (and the primary\'s) moved well below it',
+  high: 'a step network on a voltage stage or a small capacitor across Rf',
+} as const;
+
+/** The ends short of the margins, worded for the ratings list. */
+function loopFindings(verdict: FeedbackBand['verdict'], low: LoopMargins | null, high: LoopMargins | null): Finding[] {
+  if (verdict === 'stable') return [];
+  const ends = ([['low', low], ['high', high]] as const).filter((e): e is readonly ['low' | 'high', LoopMargins] => e[1] !== null);
+  const short = ends.filter(([, m]) => m.phaseMarginDeg < MIN_PHASE_MARGIN || (m.gainMarginDb !== null && m.gainMarginDb < MIN_GAIN_MARGIN));
+  const worded = short.map(([end, m]) => {
+    const gain = m.gainMarginDb === null ? '' : `, gain margin ${m.gainMarginDb.toFixed(1)} dB`;
+    return `at the ${end} end phase margin ${m.phaseMarginDeg.toFixed(0).replace('-', '−')}° at ${formatValue(m.crossoverHz, 'Hz')}${gain.replace('-', '−')}`;
+  });
+  const cure = `Less feedback (a larger Rf), or ${short.map(([end]) => `at the ${end} end ${CURE[end]}`).join('; ')}.`;
+  const worst = Math.min(...short.map(([, m]) => m.phaseMarginDeg));
+  if (verdict === 'oscillates') {
+    const unstable = new Set(short.filter(([, m]) => m.phaseMarginDeg < 0 || (m.gainMarginDb !== null && m.gainMarginDb < 0)).map(([end]) => end));
+    const how = [unstable.has('low') ? 'it will motorboat, a slow oscillation at the low end' : '', unstable.has('high') ? 'it will oscillate above the audio band' : ''].filter(Boolean).join(', and ');
+    return [finding('loop-stability', 'danger', `The loop is unstable (${how}): ${worded.join('; ')}. ${cure} Do not switch on with the loop closed.`, worst, MIN_PHASE_MARGIN)];
+  }
+  return [finding('loop-stability', 'warning', `Thin stability margins: ${worded.join('; ')} (common practice asks ${MIN_PHASE_MARGIN}° and ${MIN_GAIN_MARGIN} dB). Expect ringing on a square wave; a capacitive load makes it worse. ${cure}`, worst, MIN_PHASE_MARGIN)];
 }
 
 /** Where a quantity that is ≥ 1 at a and < 1 at b crosses one, by interpolation in log frequency and log value. */

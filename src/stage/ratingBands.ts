@@ -25,6 +25,7 @@ export type FindingKind =
   | 'transformer-current'
   | 'hum'
   | 'supply-bplus'
+  | 'loop-stability'
   | 'primary-imbalance'
   | 'distortion';
 

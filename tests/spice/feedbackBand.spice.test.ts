@@ -150,6 +150,8 @@ describe.runIf(run)('an amplifier\'s band with a real output transformer, open a
       const fb = globalFeedback(c.chain, c.rf);
       if (!fb.ok) throw new Error(fb.message);
       expect(fb.band.verdict).toBe(c.verdict);
+      // In the ratings list: a danger when it oscillates, a warning when the margins are thin, nothing when stable.
+      expect(fb.band.findings.map((f) => [f.kind, f.severity])).toEqual({ stable: [], marginal: [['loop-stability', 'warning']], oscillates: [['loop-stability', 'danger']] }[c.verdict]);
       const ways = [false, true].map((flip) => sweep(withLoop(c.chain, c.rf, flip)));
       const flip = nearest(ways[0]!, 1000).m < nearest(ways[1]!, 1000).m ? false : true;
       // The loop gain at each end.

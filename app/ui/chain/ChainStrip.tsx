@@ -1,6 +1,6 @@
 import { useWorkbench, useWorkbenchStore } from '../../store/StoreProvider';
 import type { WorkbenchState } from '../../store/workbenchStore';
-import { plain, rmsLevel, watts } from '../../format';
+import { hertz, plain, rmsLevel, watts } from '../../format';
 import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '../../store/stagePlans';
 import { StageCard } from './StageCard';
 import { StageMenu } from './StageMenu';
@@ -9,7 +9,7 @@ import { StripHum } from '../supply/SupplyHumLine';
 import { atLevelWords } from './atLevelWords';
 import { GlobalFeedbackRow } from './GlobalFeedbackRow';
 
-const hz = (f: number | null, none: string) => (f === null ? none : f >= 1000 ? `${plain(f / 1000)} kHz` : `${plain(f)} Hz`);
+const hz = (f: number | null, none: string) => (f === null ? none : hertz(f));
 const gainDb = (g: number) => `${(20 * Math.log10(Math.abs(g))).toFixed(1)} dB`;
 
 /** What the strip draws from the design: each voltage stage's kind, which is on the bench, and whether the output stage is joined. */

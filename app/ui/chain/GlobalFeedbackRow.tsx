@@ -1,7 +1,7 @@
 import { ohms } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ValueField } from '../panels/ValueField';
-import { FEEDBACK_CAVEAT, feedbackWords } from './feedbackWords';
+import { FEEDBACK_CAVEAT, feedbackBandWords, feedbackWords } from './feedbackWords';
 
 /**
  * Global negative feedback under the amplifier's figures, with the stages
@@ -12,6 +12,7 @@ export function GlobalFeedbackRow() {
   const view = useWorkbench((s) => s.amplifier);
   const driven = useWorkbench((s) => s.design.drivesOutput);
   const rf = useWorkbench((s) => s.design.feedbackRf);
+  const winding = useWorkbench((s) => s.design.output);
   const on = rf !== null;
   if (!driven || !view) return null;
   const words = feedbackWords(view);
@@ -23,6 +24,9 @@ export function GlobalFeedbackRow() {
         <p className={failed ? 'field-error' : 'feedback-figures'} data-testid="feedback-figures">
           {failed ? words : <><strong>{`With feedback (Rf ${rf === null ? '' : ohms(rf)}):`}</strong> {words}. <span className="feedback-caveat">{FEEDBACK_CAVEAT}</span></>}
         </p>
+      ) : null}
+      {on && !failed && view.feedback?.ok ? (
+        <p className={`feedback-band verdict-${view.feedback.band.verdict}`} data-testid="feedback-band">{feedbackBandWords(view, winding)}</p>
       ) : null}
     </div>
   );

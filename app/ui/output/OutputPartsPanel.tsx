@@ -1,5 +1,6 @@
 import { useId } from 'react';
-import { milliamps, ohms, percentOf, volts, watts } from '../../format';
+import { henries, milliamps, ohms, percentOf, volts, watts } from '../../format';
+import type { WindingInductance } from '../../../src/index';
 import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -28,27 +29,44 @@ export function OutputPartsPanel() {
   );
 }
 
+/**
+ * The transformer's inductances as the design gives them, a line for the
+ * parts list: the band and the loop's margins were worked out with them, so
+ * a transformer with less primary or more leakage does worse. None when the
+ * transformer was taken as ideal.
+ */
+export function windingLines(winding: WindingInductance): string[] {
+  const lp = winding.primaryInductance ?? null;
+  const ll = winding.leakageInductance ?? null;
+  if (lp === null && ll === null) return [];
+  const asked = [lp === null ? '' : `Primary inductance at least ${henries(lp)} at its DC current`, ll === null ? '' : `leakage inductance at most ${henries(ll)}`].filter(Boolean).join(', ');
+  return [`${asked.charAt(0).toUpperCase()}${asked.slice(1)} (the band and the feedback's margins were worked out with ${lp !== null && ll !== null ? 'these' : 'this'}).`];
+}
+
 /** The transformer (and a pair's bias supply) in words, as the panel and the card print them. */
-export function transformerLines(parts: OutputStageParts): string[] {
+export function transformerLines(parts: OutputStageParts, winding: WindingInductance = {}): string[] {
   const tap = (x: number | null) => (x !== null ? `, screen taps at ${percentOf(x)} of each half` : '');
+  const wound = windingLines(winding);
   if (parts.pair === 'push-pull') {
     const t = parts.transformer;
     return [
       `Output transformer, centre-tapped: ${ohms(t.primary)} plate to plate to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcPerHalf)} DC in each half (${milliamps(t.dcUncancelled)} uncancelled), at least ${watts(t.power)}${tap(t.screenTap)}.`,
+      ...wound,
       ...(parts.biasSupply !== null ? [`Bias supply ${volts(parts.biasSupply)} with a balance adjustment for each tube (set each to the same idle current).`] : []),
     ];
   }
   const t = parts.transformer;
-  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`];
+  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`, ...wound];
 }
 
 /** The output stage's lines, also shown in the amplifier's build sheet when the voltage stages drive it. */
 export function OutputPartsLines() {
   const parts = useWorkbench(outputPartsOf);
+  const winding = useWorkbench((s) => s.design.output);
   const heater = useWorkbench((s) => s.outputBench.settled.solution.tube.heater);
   return (
     <>
-      {transformerLines(parts).map((line, k) => <p key={k} data-part-line={k === 0 ? 'OPT' : undefined}>{line}</p>)}
+      {transformerLines(parts, winding).map((line, k) => <p key={k} data-part-line={k === 0 ? 'OPT' : undefined}>{line}</p>)}
       <PartsTables resistors={parts.resistors} capacitors={parts.capacitors} />
       <p>{parts.pair === 'push-pull' ? `Heaters: two tubes, each ${heater.volts} V, ${heater.amps} A.` : `Heater: ${heater.volts} V, ${heater.amps} A.`}</p>
     </>

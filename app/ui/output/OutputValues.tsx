@@ -74,6 +74,8 @@ export function OutputValues() {
         {tube.law.kind === 'pentode' && o.connection === 'ultralinear' ? <ValueField field="oTap" hint="share of primary turns from B+" /> : null}
         {pushPull ? <ValueField field="oRaa" hint="plate to plate" /> : <ValueField field="oZ" hint="reflected load, plate to B+" />}
         <ValueField field="oRpri" hint="primary DC resistance" />
+        <ValueField field="oLp" hint="primary inductance at its DC current (plate to plate for a pair); none: ideal" />
+        <ValueField field="oLl" hint="leakage inductance, the primary's with the secondary shorted; none: ideal" />
       </div>
       <fieldset className="option-row" aria-label="Bias">
         <label>
