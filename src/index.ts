@@ -75,8 +75,8 @@ export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } fro
 export { corners, cornersOf, type Corners } from './signal/corners';
 export { solveLinks, type ChainLink, type FollowerCoupling, type LinkResult, type LinkChainResult } from './signal/solveLinks';
 export { solveChain } from './chain/solveChain';
-export { globalFeedback, FEEDBACK_RF_LIMITS, type GlobalFeedback } from './chain/globalFeedback';
-export { feedbackBand, type FeedbackBand, type LoopMargins } from './chain/feedbackBand';
+export { globalFeedback, feedbackPartsProblem, FEEDBACK_CF_LIMITS, FEEDBACK_RF_LIMITS, type GlobalFeedback } from './chain/globalFeedback';
+export { feedbackBand, type FeedbackBand, type FeedbackDivider, type LoopMargins } from './chain/feedbackBand';
 export { windingProblem, WINDING_LIMITS, type WindingInductance } from './output/windingInductance';
 export { solveAmplifier, checkChain, prepareAmplifier, solveStagesInPlace, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
 export { STAGE_KINDS, STAGE_KIND_LABELS } from './chain/stageKinds';

@@ -29,7 +29,8 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   const fb = feedbackWords(view);
   if (fb && s.design.feedbackRf !== null) {
     lines[1] = `Open loop: ${lines[1]}`;
-    lines.push(view.feedback?.ok ? `Global feedback, Rf ${ohms(s.design.feedbackRf)} from the speaker to stage 1's cathode: ${fb}` : `Global feedback: ${fb}`);
+    const across = s.design.feedbackCf === null ? '' : ` with ${farads(s.design.feedbackCf)} across it`;
+    lines.push(view.feedback?.ok ? `Global feedback, Rf ${ohms(s.design.feedbackRf)}${across} from the speaker to stage 1's cathode: ${fb}` : `Global feedback: ${fb}`);
     const band = feedbackBandWords(view, s.design.output);
     if (band) lines.push(band);
     if (view.feedback?.ok) lines.push(FEEDBACK_CAVEAT);

@@ -20,7 +20,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
- *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf,
+ *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
  *                 before: [stage…], after: [stage…] } }
  *
  * Version 3 holds the whole chain of voltage stages: the design's own
@@ -47,7 +47,8 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * opens on the bench's default supply, its own values unchanged; and
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
  * bench's default (on the AC heater winding); `feedbackRf` (global
- * feedback's resistor, Ω, or null): absent, none; and the output
+ * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across
+ * it, F, or null): absent, none; and the output
  * transformer's `primaryInductance` and `leakageInductance` (H, or null):
  * absent, the ideal transformer.
  * Version 1 files (before output stages) open with the bench's default
@@ -223,6 +224,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     drivesOutput,
     supply: supply.plan,
     feedbackRf: (d.feedbackRf as number | null | undefined) ?? null,
+    feedbackCf: (d.feedbackCf as number | null | undefined) ?? null,
     heaters: d.heaters === undefined ? DEFAULT_HEATERS : { ...(d.heaters as HeaterChoice), wiring: { ...(d.heaters as HeaterChoice).wiring } },
   };
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };

@@ -74,6 +74,7 @@ export const BENCH_STAGE = v.object({
   targets: v.optional(TARGETS),
   // Came later within version 3 (global feedback): absent, none.
   feedbackRf: v.optional(rangedOrNull(L.feedbackRf)),
+  feedbackCf: v.optional(rangedOrNull(L.feedbackCf)),
   // Came later within version 3 (the follower's and the output stage's own targets): absent, none.
   followerTargets: v.optional(TARGETS),
   outputTargets: v.optional(TARGETS),

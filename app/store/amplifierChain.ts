@@ -191,7 +191,7 @@ export function analyzeAmplifier(d: BenchDesign, registry: TubeRegistry): Amplif
     result,
     atLevel,
     levelLabel: toSpeaker ? '1 W' : `${d.levelRms} V rms`,
-    feedback: toSpeaker && d.feedbackRf !== null && result.ok ? globalFeedback(chain.input, d.feedbackRf, { power: 1 }) : null,
+    feedback: toSpeaker && d.feedbackRf !== null && result.ok ? globalFeedback(chain.input, d.feedbackRf, { power: 1 }, d.feedbackCf) : null,
     stale: false,
   };
 }

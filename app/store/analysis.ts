@@ -53,6 +53,8 @@ export interface BenchDesign {
   readonly heaters: HeaterChoice;
   /** Global negative feedback: the resistor from the speaker to the first stage's cathode, Ω; null for none. */
   readonly feedbackRf: number | null;
+  /** A phase-lead capacitor across Rf, F, or null. */
+  readonly feedbackCf: number | null;
   /** What the builder asks of the voltage stage on the bench; the plate chart shades where it all holds. */
   readonly targets: TargetPlan;
   /** What the builder asks of its cathode follower, kept apart (a follower's Zout and gain are not a gain stage's). */

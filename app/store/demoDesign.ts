@@ -63,6 +63,7 @@ export const DEMO_DESIGN: BenchDesign = {
   heaters: DEFAULT_HEATERS,
   // No global feedback: the open-loop figures are the demo's own.
   feedbackRf: null,
+  feedbackCf: null,
 };
 
 /** The demo's title is its automatic one, so it follows the first change the user makes. */

@@ -1,4 +1,4 @@
-import { FEEDBACK_RF_LIMITS, MAX_MISMATCH, OUTPUT_LIMITS, RAA_LIMITS, WINDING_LIMITS } from '../../src/index';
+import { FEEDBACK_CF_LIMITS, FEEDBACK_RF_LIMITS, MAX_MISMATCH, OUTPUT_LIMITS, RAA_LIMITS, WINDING_LIMITS } from '../../src/index';
 
 /** A design field's range: typing, files and links, drags and the sliders' aria bounds all read it from here. */
 export interface Limit {
@@ -46,6 +46,7 @@ export const DESIGN_LIMITS = {
   },
   /** Global feedback's resistor, from the speaker to the first cathode (the model's own range). */
   feedbackRf: limit(FEEDBACK_RF_LIMITS.min, FEEDBACK_RF_LIMITS.max, 'Ω'),
+  feedbackCf: limit(FEEDBACK_CF_LIMITS.min, FEEDBACK_CF_LIMITS.max, 'F'),
   /** A DC heater supply: from a 1.5 V cell to a string of heaters in series. */
   heaterDcVolts: limit(0.5, 500, 'V'),
   splitter: {

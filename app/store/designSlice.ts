@@ -1,6 +1,6 @@
 import type { StateCreator } from 'zustand/vanilla';
 import type { HeaterChoice } from './heaterChoice';
-import { loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
+import { feedbackPartsProblem, loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
 import { analyze, type Analysis, type BenchDesign } from './analysis';
 import { analyzeAmplifier, splitterRefusal, type AmplifierView } from './amplifierChain';
 import { analyzeRival, analyzeRivalAmplifier, sharedWindow } from './compareSlice';
@@ -196,7 +196,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const s = get();
     const joined = withOutputDriven(asked, s.design);
     if (!joined.ok) return joined;
-    const shape = chainProblem(joined.design);
+    const shape = chainProblem(joined.design) ?? (joined.design.feedbackRf !== null ? feedbackPartsProblem(joined.design.feedbackRf, joined.design.feedbackCf) : null);
     if (shape) return shape;
     // The follower can be the stage shown only while the bench's stage has one.
     const next = joined.design.stageKind === 'follower' && joined.design.stage2.kind !== 'follower' ? { ...joined.design, stageKind: 'voltage' as const } : joined.design;

@@ -8,7 +8,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
-  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf'
+  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf' | 'feedbackCf'
   | 'fCc' | 'fRg' | 'fVbias'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oLp' | 'oLl' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
@@ -123,6 +123,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', L.ck, { none: 'null' }), show: compact, ...top('ck') },
   cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', L.cout, { none: 'null' }), show: compact, ...top('cout') },
   feedbackRf: { label: 'Feedback Rf', unit: 'Ω', example: '47k or none', read: ranged('Feedback resistor', L.feedbackRf, { none: 'null' }), show: compact, ...top('feedbackRf') },
+  feedbackCf: { label: 'Across Rf', unit: 'F', example: '22p or none', read: ranged('Capacitor across Rf', L.feedbackCf, { none: 'null' }), show: compact, ...top('feedbackCf') },
   level: { label: 'Output level', unit: 'V rms', example: '2', read: ranged('Output level', L.levelRms), show: compact, ...top('levelRms') },
   thd: { label: 'THD limit', unit: '%', example: '5', read: percent('THD limit', L.output.thdLimit), show: showPercent, ...top('thdLimit') },
   ra2: { label: 'Ra (stage 2)', unit: 'Ω', example: '22k', read: ranged('Ra', L.stage2.ra), show: compact, ...second('ra') },

@@ -16,6 +16,24 @@ export interface ChainNetwork {
   readonly stages: readonly { readonly linear: LinearStage; readonly coupling: { readonly cc: number; readonly rg: number } | null }[];
   /** Load on the last output, Ω (Infinity: none). */
   readonly rl: number;
+  /** Global feedback from the output to the first stage's cathode, when the network carries it. */
+  readonly feedback?: FeedbackPath;
+}
+
+/**
+ * Rf (with a capacitor across it, or none) from the output's far end to the
+ * first stage's cathode, whose own resistor is then `rk` alone. 'broken':
+ * the loop opened at the output, Rf driven from its own 1 V source and the
+ * input at rest, so the response is the loop's transmission; 'closed': Rf's
+ * end follows the output times `polarity` (the secondary's leads; its
+ * loading by Rf, thousands of times the speaker, is left out).
+ */
+export interface FeedbackPath {
+  readonly rk: number;
+  readonly rf: number;
+  readonly cf: number | null;
+  readonly mode: 'broken' | 'closed';
+  readonly polarity: 1 | -1;
 }
 
 /** Admittance standing in for an ideal short: far above any other in the network, yet finite for the solver. */
@@ -35,7 +53,7 @@ export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratch
  * and a push-pull pair's second grid behind a stage with a second output.
  */
 function extraNodes(net: ChainNetwork): number {
-  let extra = 0;
+  let extra = net.feedback ? 1 : 0;
   net.stages.forEach(({ linear }, i) => {
     if (linear.winding) extra += 2;
     if (linear.pair && i > 0 && net.stages[i - 1]!.linear.output2) extra += 1;
@@ -75,7 +93,11 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
   const omega = 2 * Math.PI * freqHz;
   const gs = conductance(net.rsource);
   stamp(0, -1, gs, 0);
-  re[0 * w + n] = gs; // the 1 V source's current through its impedance
+  const fb = net.feedback;
+  // The 1 V source's current through its impedance; with the loop broken, the source is at rest and Rf's end is driven instead.
+  re[0 * w + n] = fb?.mode === 'broken' ? 0 : gs;
+  const fNode = fb ? n - 1 : -1;
+  if (fb) stamp(fNode, 3, 1 / fb.rf, fb.cf === null ? 0 : omega * fb.cf);
   let previous = 0;
   let previous2: number | null = null;
   let scale = 1;
@@ -103,7 +125,8 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
       stamp(m, x, ...seriesRl(0, half, omega));
       stamp(x, -1, conductance(wdg.reflected), 0);
     } else stamp(p, -1, conductance(s.plateLoad), 0);
-    stamp(k, -1, s.cathodeGrounded ? SHORT : conductance(s.rk), s.ck === null ? 0 : omega * s.ck);
+    const rk = fb && i === 0 ? fb.rk : s.rk;
+    stamp(k, -1, s.cathodeGrounded ? SHORT : conductance(rk), s.ck === null ? 0 : omega * s.ck);
     stamp(p, k, 1 / s.rp, omega * s.caps.cpk);
     stamp(g, k, 0, omega * s.caps.cgk);
     if (g2 === null) {
@@ -135,6 +158,18 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
     scale = wdg ? wdg.scale : s.outputScale;
   });
   stamp(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
+  if (fb) {
+    // Rf's end is held by a source, its row that source's equation: 1 V with the loop broken, else the output times the
+    // secondary's sense. (Written as an equation, not as a huge conductance to a source: that would swamp the grid's
+    // microsiemens in the elimination.)
+    for (let c = 0; c <= n; c++) {
+      re[fNode * w + c] = 0;
+      im[fNode * w + c] = 0;
+    }
+    re[fNode * w + fNode] = 1;
+    if (fb.mode === 'broken') re[fNode * w + n] = 1;
+    else re[fNode * w + previous] = -fb.polarity * scale;
+  }
   if (!csolveFlat(re, im, n, xr, xi)) return null;
   return [xr[previous]! * scale, xi[previous]! * scale];
 }

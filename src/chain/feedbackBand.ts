@@ -1,4 +1,6 @@
 import { formatValue } from '../parts/formatValue';
+import { fail, type Result } from '../result';
+import { shown } from '../shown';
 import { finding, type Finding } from '../stage/ratingBands';
 import { chainResponseAt, scratchFor, type ChainNetwork } from './chainResponse';
 
@@ -31,95 +33,106 @@ export interface LoopMargins {
   readonly gainMarginDb: number | null;
 }
 
+/** The feedback divider: Rf from the speaker to the first cathode, its Rk to ground, and a capacitor across Rf (F) or null. */
+export interface FeedbackDivider {
+  readonly rk: number;
+  readonly rf: number;
+  readonly cf: number | null;
+}
+
 const LO_HZ = 0.01;
 const HI_HZ = 1e8;
 const PER_DECADE = 24;
 const MIDBAND_HZ = 1000;
 /** Common practice for a loop at rest: 45° of phase margin and 10 dB of gain margin. */
 const MIN_PHASE_MARGIN = 45;
+/** Bisection steps for a crossing between two points of the sweep (a factor 1.1 apart): 20 put it within a part in 10⁷. */
+const REFINE_STEPS = 20;
 const MIN_GAIN_MARGIN = 10;
 
 /**
- * The loop across the band, from the open loop's network: its gain from the
- * first grid to the speaker, A(f), read with the grid driven directly, so
- * the loop gain is T(f) = T₀·A(f)/|A(1 kHz)|·sign (T₀ the midband loop gain,
- * the sign making it negative feedback there), and the closed loop
- * H(f) = A_source(f)/(1 + T(f)). The margins are read the Bode way along
- * the sweep from 1 kHz outward, the phase unwrapped as it turns (a
- * minimum-phase loop's: every one this workbench draws is). Checked against
- * ngspice (tests/spice/feedbackBand.spice.test.ts).
+ * The loop across the band, in the amplifier's own linear network with Rf
+ * (and a capacitor across it) from the speaker to the first cathode, as a
+ * circuit simulator's AC analysis would solve it: the loop broken at the
+ * speaker (Rf driven, the input at rest) gives its transmission, scaled to
+ * the midband loop gain T₀ at 1 kHz and phased for negative feedback there
+ * (the secondary's leads chosen so); the loop closed gives the response.
+ * The margins are read the Bode way along the sweep from 1 kHz outward, the
+ * phase unwrapped as it turns (a minimum-phase loop's: every one this
+ * workbench draws is). Checked against ngspice
+ * (tests/spice/feedbackBand.spice.test.ts).
  */
-export function feedbackBand(open: ChainNetwork, loopGain: number): FeedbackBand {
-  const fromGrid: ChainNetwork = { ...open, rsource: 0, stages: open.stages.map((s, i) => (i === 0 ? { ...s, coupling: null } : s)) };
-  const scratch = scratchFor(open);
-  const gridScratch = scratchFor(fromGrid);
-  const ref = chainResponseAt(fromGrid, MIDBAND_HZ, gridScratch) ?? [1, 0];
-  const refMag = Math.hypot(ref[0], ref[1]) || 1;
-  const sign = ref[0] < 0 ? -1 : 1;
-  const k = (sign * loopGain) / refMag;
-  /** T(f) and H(f) at one frequency. */
+export function feedbackBand(network: ChainNetwork, loopGain: number, divider: FeedbackDivider): Result<FeedbackBand> {
+  const d = typeof divider === 'object' && divider !== null ? divider : ({} as Partial<FeedbackDivider>);
+  const positive = (x: unknown): x is number => typeof x === 'number' && x > 0 && Number.isFinite(x);
+  if (!positive(d.rk) || !positive(d.rf) || !(d.cf === null || positive(d.cf))) return fail('invalid-input', 'The feedback divider needs Rk and Rf above 0 Ω, and a capacitor above 0 F or none', 'rf');
+  if (!(Number.isFinite(loopGain) && loopGain > 0)) return fail('invalid-input', `The midband loop gain must be above 0 (got ${shown(loopGain)})`, 'rf');
+  if (!Array.isArray(network?.stages) || network.stages.length === 0) return fail('invalid-input', 'The loop needs an amplifier to go round', 'stages');
+  const path = { rk: d.rk, rf: d.rf, cf: d.cf ?? null };
+  const broken: ChainNetwork = { ...network, feedback: { ...path, mode: 'broken', polarity: 1 } };
+  const scratch = scratchFor(broken);
+  const ref = chainResponseAt(broken, MIDBAND_HZ, scratch);
+  const refMag = ref === null ? 0 : Math.hypot(ref[0], ref[1]);
+  if (ref === null || !(refMag > 0)) return fail('unreachable', 'The loop carries no signal at 1 kHz in this amplifier', 'rf');
+  // The secondary's sense that makes the loop negative at midband, and the network's loop scaled to the large-signal T₀.
+  const polarity = ref[0] > 0 ? -1 : 1;
+  const k = (-polarity * loopGain) / refMag;
+  const closed: ChainNetwork = { ...network, feedback: { ...path, mode: 'closed', polarity } };
+  /** T(f) and |H(f)| at one frequency. */
   const at = (f: number) => {
-    const a = chainResponseAt(fromGrid, f, gridScratch) ?? [0, 0];
-    const s = chainResponseAt(open, f, scratch) ?? [0, 0];
+    const a = chainResponseAt(broken, f, scratch) ?? [0, 0];
+    const h = chainResponseAt(closed, f, scratch) ?? [0, 0];
     const t: [number, number] = [k * a[0], k * a[1]];
-    const d = Math.hypot(1 + t[0], t[1]);
-    // 1 + T exactly nought (a loop balanced on the edge) is read as a vast but finite gain.
-    return { t, h: Math.hypot(s[0], s[1]) / Math.max(d, 1e-300) };
+    return { t, h: Math.hypot(h[0], h[1]) };
   };
   const mid = at(MIDBAND_HZ);
-  const decadesDown = Math.log10(MIDBAND_HZ / LO_HZ);
-  const decadesUp = Math.log10(HI_HZ / MIDBAND_HZ);
-  const side = (decades: number, dir: 1 | -1) => {
+  type Point = ReturnType<typeof at> & { readonly f: number; readonly phase: number };
+  /** The point at f, its phase unwrapped to lie nearest a neighbour's (the step between them is well under π). */
+  const pointAt = (f: number, near: number): Point => {
+    const p = at(f);
+    const raw = Math.atan2(p.t[1], p.t[0]);
+    return { f, ...p, phase: raw + 2 * Math.PI * Math.round((near - raw) / (2 * Math.PI)) };
+  };
+  const side = (decades: number, dir: 1 | -1): Point[] => {
     const count = Math.round(decades * PER_DECADE);
-    const points = [{ f: MIDBAND_HZ, ...mid, phase: Math.atan2(mid.t[1], mid.t[0]) }];
-    for (let j = 1; j <= count; j++) {
-      const f = MIDBAND_HZ * Math.pow(10, (dir * j) / PER_DECADE);
-      const p = at(f);
-      const raw = Math.atan2(p.t[1], p.t[0]);
-      const last = points[points.length - 1]!.phase;
-      // Unwrap: the step between neighbouring points is well under π at this density.
-      const phase = raw + 2 * Math.PI * Math.round((last - raw) / (2 * Math.PI));
-      points.push({ f, ...p, phase });
-    }
+    const points: Point[] = [{ f: MIDBAND_HZ, ...mid, phase: Math.atan2(mid.t[1], mid.t[0]) }];
+    for (let j = 1; j <= count; j++) points.push(pointAt(MIDBAND_HZ * Math.pow(10, (dir * j) / PER_DECADE), points[j - 1]!.phase));
     return points;
   };
-  const sides = [side(decadesDown, -1), side(decadesUp, 1)] as const;
-  const level = mid.h / Math.SQRT2;
-  const edge = (pts: ReturnType<typeof side>): number | null => {
-    for (let j = 1; j < pts.length; j++) if (pts[j]!.h < level) return between(pts[j - 1]!, pts[j]!, (p) => p.h / level);
+  /** Where `above` turns false between neighbouring a (true) and b (false), by bisection in log frequency. */
+  const refine = (a: Point, b: Point, above: (p: Point) => boolean): Point => {
+    let [lo, hi] = [a, b];
+    for (let k = 0; k < REFINE_STEPS; k++) {
+      const m = pointAt(Math.sqrt(lo.f * hi.f), lo.phase);
+      if (above(m)) lo = m;
+      else hi = m;
+    }
+    return pointAt(Math.sqrt(lo.f * hi.f), lo.phase);
+  };
+  const first = (pts: Point[], above: (p: Point) => boolean): Point | null => {
+    for (let j = 1; j < pts.length; j++) if (!above(pts[j]!)) return above(pts[j - 1]!) ? refine(pts[j - 1]!, pts[j]!, above) : null;
     return null;
   };
+  const sides = [side(Math.log10(MIDBAND_HZ / LO_HZ), -1), side(Math.log10(HI_HZ / MIDBAND_HZ), 1)] as const;
+  const level = mid.h / Math.SQRT2;
+  const edge = (pts: Point[]): number | null => first(pts, (p) => p.h >= level)?.f ?? null;
   let peak = { db: 0, f: null as number | null };
   for (const pts of sides)
     for (const p of pts) {
       const db = 20 * Math.log10(p.h / mid.h);
       if (db > peak.db) peak = { db, f: p.f };
     }
-  const margins = (pts: ReturnType<typeof side>): LoopMargins | null => {
-    let crossing: number | null = null;
-    for (let j = 1; j < pts.length; j++) {
-      if (Math.hypot(...pts[j]!.t) < 1 && Math.hypot(...pts[j - 1]!.t) >= 1) {
-        crossing = j;
-        break;
-      }
-    }
-    if (crossing === null) return null;
-    const [a, b] = [pts[crossing - 1]!, pts[crossing]!];
-    const crossoverHz = between(a, b, (p) => Math.hypot(...p.t));
-    const u = Math.log(crossoverHz / a.f) / Math.log(b.f / a.f);
-    const turn = Math.abs(a.phase + u * (b.phase - a.phase));
-    let phaseCrossoverHz: number | null = null;
-    let gainMarginDb: number | null = null;
-    for (let j = 1; j < pts.length; j++) {
-      if (Math.abs(pts[j]!.phase) >= Math.PI && Math.hypot(...pts[j - 1]!.t) > 0 && Math.hypot(...pts[j]!.t) > 0) {
-        const [c, d] = [pts[j - 1]!, pts[j]!];
-        const v = (Math.PI - Math.abs(c.phase)) / (Math.abs(d.phase) - Math.abs(c.phase));
-        phaseCrossoverHz = Math.exp(Math.log(c.f) + v * Math.log(d.f / c.f));
-        gainMarginDb = -20 * Math.log10(Math.hypot(...c.t) * Math.pow(Math.hypot(...d.t) / Math.hypot(...c.t), v));
-        break;
-      }
-    }
-    return { crossoverHz, phaseMarginDeg: 180 - (turn * 180) / Math.PI, phaseCrossoverHz, gainMarginDb };
+  const loop = (p: Point) => Math.hypot(p.t[0], p.t[1]);
+  const margins = (pts: Point[]): LoopMargins | null => {
+    const cross = first(pts, (p) => loop(p) >= 1);
+    if (cross === null) return null;
+    const turned = first(pts, (p) => Math.abs(p.phase) < Math.PI || !(loop(p) > 0));
+    return {
+      crossoverHz: cross.f,
+      phaseMarginDeg: 180 - (Math.abs(cross.phase) * 180) / Math.PI,
+      phaseCrossoverHz: turned?.f ?? null,
+      gainMarginDb: turned && loop(turned) > 0 ? -20 * Math.log10(loop(turned)) : null,
+    };
   };
   const low = margins(sides[0]);
   const high = margins(sides[1]);
@@ -128,6 +141,7 @@ export function feedbackBand(open: ChainNetwork, loopGain: number): FeedbackBand
   const marginal = ends.some((m) => m.phaseMarginDeg < MIN_PHASE_MARGIN || (m.gainMarginDb !== null && m.gainMarginDb < MIN_GAIN_MARGIN));
   const verdict = oscillates ? 'oscillates' : marginal ? 'marginal' : 'stable';
   return {
+    ok: true,
     lowHz: edge(sides[0]),
     highHz: edge(sides[1]),
     peakDb: peak.db,
@@ -162,12 +176,4 @@ function loopFindings(verdict: FeedbackBand['verdict'], low: LoopMargins | null,
     return [finding('loop-stability', 'danger', `The loop is unstable (${how}): ${worded.join('; ')}. ${cure} Do not switch on with the loop closed.`, worst, MIN_PHASE_MARGIN)];
   }
   return [finding('loop-stability', 'warning', `Thin stability margins: ${worded.join('; ')} (common practice asks ${MIN_PHASE_MARGIN}° and ${MIN_GAIN_MARGIN} dB). Expect ringing on a square wave; a capacitive load makes it worse. ${cure}`, worst, MIN_PHASE_MARGIN)];
-}
-
-/** Where a quantity that is ≥ 1 at a and < 1 at b crosses one, by interpolation in log frequency and log value. */
-function between<P extends { f: number }>(a: P, b: P, value: (p: P) => number): number {
-  const va = Math.log(value(a));
-  const vb = Math.log(value(b));
-  const u = vb === va ? 0.5 : va / (va - vb);
-  return Math.exp(Math.log(a.f) + u * Math.log(b.f / a.f));
 }

@@ -1,5 +1,6 @@
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { shown } from '../shown';
+import { formatValue } from '../parts/formatValue';
 import { smallSignalAt } from '../tube/triode';
 import { amplifierOf, networkOf, prepareAmplifier } from './solveAmplifier';
 import { amplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
@@ -8,6 +9,10 @@ import type { ChainInput, ChainResult, CommonCathodeLink } from './chainTypes';
 
 /** The feedback resistor's range, Ω: below it the loop would swamp the first stage's cathode; above it there is no loop to speak of. */
 export const FEEDBACK_RF_LIMITS = { min: 100, max: 10e6 } as const;
+/** A capacitor across Rf, F: from a few picofarads (the usual phase lead) to well past any that would help. */
+export const FEEDBACK_CF_LIMITS = { min: 1e-12, max: 1e-6 } as const;
+/** The lowest corner a phase-lead capacitor may make with Rf, Hz: above the band, so the midband figures stand (common practice). */
+const MIN_LEAD_HZ = 10e3;
 
 export interface GlobalFeedback {
   /** The open loop: the amplifier solved with the first stage's cathode resistor as Rk ∥ Rf (the feedback resistor's DC and AC path to the grounded secondary). */
@@ -39,6 +44,25 @@ export interface GlobalFeedback {
 }
 
 /**
+ * The capacitor across Rf, if any, against its limits and against Rf: a
+ * phase-lead capacitor acts above the band (its corner with Rf above 10 kHz,
+ * common practice); one that acts within it would change the midband
+ * figures, which take Rf alone. Null when usable.
+ */
+export function feedbackPartsProblem(rf: number, cf: number | null): Failure | null {
+  if (cf === null) return null;
+  if (!(typeof cf === 'number' && cf >= FEEDBACK_CF_LIMITS.min && cf <= FEEDBACK_CF_LIMITS.max)) {
+    return fail('invalid-input', `The capacitor across Rf must be from 1 pF to 1 µF, or none (got ${shown(cf)} F)`, 'cf');
+  }
+  if (!(typeof rf === 'number' && rf > 0 && Number.isFinite(rf))) return null; // Rf's own check speaks for it
+  const leadHz = 1 / (2 * Math.PI * rf * cf);
+  if (leadHz < MIN_LEAD_HZ) {
+    return fail('invalid-input', `The capacitor across Rf turns the feedback at ${formatValue(leadHz, 'Hz')} with Rf, inside the audio band: a phase-lead capacitor is chosen to act above ${formatValue(MIN_LEAD_HZ, 'Hz')} (common practice), so smaller than ${formatValue(1 / (2 * Math.PI * rf * MIN_LEAD_HZ), 'F')} here`, 'cf');
+  }
+  return null;
+}
+
+/**
  * Global negative feedback from the speaker to the first stage's
  * unbypassed cathode resistor through Rf, at midband. The first stage sees
  * the divider's Thévenin source, β·v_out behind Rk ∥ Rf, at its cathode: its
@@ -49,15 +73,19 @@ export interface GlobalFeedback {
  * for negative feedback (a builder swaps its leads to make it so). The
  * output impedance falls by 1 + T·(R_L + Z_o)/R_L, the loop's gain with the
  * speaker off (Blackman's formula: the loop senses voltage). Across the
- * band (feedbackBand) the loop follows the open loop's network, with the
+ * band (feedbackBand) the loop follows the open loop's network and a
+ * capacitor across Rf where given (phase lead: it changes nothing at
+ * midband), with the
  * output transformer's primary and leakage inductances where given; its
  * winding capacitances are not modelled. Checked against ngspice
  * (tests/spice/globalFeedback.spice.test.ts, feedbackBand.spice.test.ts).
  */
-export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierLevel): Result<GlobalFeedback> {
+export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierLevel, cf: number | null = null): Result<GlobalFeedback> {
   if (!(typeof rf === 'number' && rf >= FEEDBACK_RF_LIMITS.min && rf <= FEEDBACK_RF_LIMITS.max)) {
     return fail('invalid-input', `The feedback resistor must be from ${FEEDBACK_RF_LIMITS.min} Ω to ${FEEDBACK_RF_LIMITS.max / 1e6} MΩ (got ${shown(rf)} Ω)`, 'rf');
   }
+  const parts = feedbackPartsProblem(rf, cf);
+  if (parts) return parts;
   const stages = typeof input === 'object' && input !== null && Array.isArray(input.stages) ? input.stages : null;
   if (!stages || stages.length < 2) return fail('invalid-input', 'Global feedback needs an amplifier of at least two stages, from a first gain stage to an output stage', 'stages');
   const first = stages[0] as CommonCathodeLink | undefined;
@@ -83,6 +111,9 @@ export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierL
   const zoutOpen = open.stages[open.stages.length - 1]!.zout;
   const speaker = last.speakerOhms;
   const zoutClosed = zoutOpen / (1 + (loopGain * (speaker + zoutOpen)) / speaker);
+  const banded = feedbackBand(networkOf(openInput, prepared), loopGain, { rk, rf, cf });
+  if (!banded.ok) return banded;
+  const { ok: _ok, ...band } = banded;
   const at = level === undefined ? null : amplifierAtLevel(openInput, level);
   const thdEstimate = at?.ok && !at.pastClean ? at.thd / (1 + loopGain) : null;
   return {
@@ -98,6 +129,6 @@ export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierL
     zoutClosed,
     dampingFactor: speaker / zoutClosed,
     thdEstimate,
-    band: feedbackBand(networkOf(openInput, prepared), loopGain),
+    band,
   };
 }

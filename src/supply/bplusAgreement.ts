@@ -15,6 +15,8 @@ export const BPLUS_AGREEMENT = 0.05;
 
 /** Past any supply a tube amplifier has: a value above it is a slip, not a design. */
 const MAX_VOLTS = 100e3;
+/** Below any B+ a tube stage is designed for (a millivolt): a smaller one is a slip, and would make the percentages infinite. */
+const MIN_HELD_VOLTS = 1e-3;
 
 /**
  * A stage's (or a group of stages') B+ as designed against the voltage its
@@ -26,7 +28,7 @@ const MAX_VOLTS = 100e3;
 export function bplusAgreement(who: string, node: number, held: number, supplied: number): Result<{ finding: Finding | null }> {
   if (typeof who !== 'string' || who.length === 0) return fail('invalid-input', 'Name the stages whose B+ is compared', 'who');
   if (!(Number.isInteger(node) && node >= 0 && node < 1000)) return fail('invalid-input', `The node must be a whole number from 0 (got ${shown(node)})`, 'node');
-  if (!(typeof held === 'number' && held > 0 && held <= MAX_VOLTS)) return fail('invalid-input', `The B+ as designed must be above 0 V and at most ${MAX_VOLTS} V (got ${shown(held)})`, 'held');
+  if (!(typeof held === 'number' && held >= MIN_HELD_VOLTS && held <= MAX_VOLTS)) return fail('invalid-input', `The B+ as designed must be from ${MIN_HELD_VOLTS * 1e3} mV to ${MAX_VOLTS} V (got ${shown(held)})`, 'held');
   if (!(typeof supplied === 'number' && supplied >= 0 && supplied <= MAX_VOLTS)) return fail('invalid-input', `The node's voltage must be from 0 to ${MAX_VOLTS} V (got ${shown(supplied)})`, 'supplied');
   const off = (supplied - held) / held;
   if (Math.abs(off) <= BPLUS_AGREEMENT) return { ok: true, finding: null };

@@ -53,6 +53,30 @@ describe('the feedback loop across the band', () => {
     expect(card.flatMap((c) => c.lines)).toContain('Primary inductance at least 15 H at its DC current, leakage inductance at most 8 mH (the band and the feedback\'s margins were worked out with these).');
   });
 
+  it('a phase-lead capacitor across Rf: a design value beside Rf, in the loop\'s margins, the drawing, the parts and the file; one acting inside the band is refused beside its box', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    typed(store, 'oLp', '15');
+    typed(store, 'oLl', '8m');
+    typed(store, 'feedbackRf', '22k');
+    const without = store.getState().amplifier!.feedback;
+    typed(store, 'feedbackCf', '22p');
+    expect(store.getState().design.feedbackCf).toBe(22e-12);
+    const withLead = store.getState().amplifier!.feedback;
+    if (!without?.ok || !withLead?.ok) throw new Error('no loop');
+    // The model's own figures (checked against ngspice): here, that the bench asked for them with the capacitor.
+    expect(withLead.band.high!.phaseMarginDeg).toBeGreaterThan(without.band.high!.phaseMarginDeg + 20);
+    expect(screen.getByTestId('feedback-figures').textContent).toMatch(/^With feedback \(Rf 22 kΩ ∥ 22 pF\): /);
+    expect(screen.getByRole('button', { name: /^Global feedback Cf .*22 pF/ })).toBeTruthy();
+    expect(screen.getByTestId('feedback-part').textContent).toMatch(/; Cf across it 22 pF, \d+ V$/);
+    const back = readDesignFile(writeDesignFile({ title: 't', design: store.getState().design }));
+    expect(back.ok && back.doc.design.feedbackCf).toBe(22e-12);
+    // 1 nF with 22 kΩ turns at 7.2 kHz, inside the band: refused beside the box, the 22 pF kept.
+    act(() => store.getState().editField('feedbackCf', '1n'));
+    expect(store.getState().errors.feedbackCf).toMatch(/^The capacitor across Rf turns the feedback at 7\.23 kHz with Rf, inside the audio band/);
+    expect(store.getState().design.feedbackCf).toBe(22e-12);
+  });
+
   it('refuses a leakage not well below the primary beside its box, keeping the last good value; the file keeps both and an older file opens ideal', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);

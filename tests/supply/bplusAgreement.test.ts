@@ -20,7 +20,7 @@ describe('a stage\'s B+ as designed against what its node gives', () => {
   it('refuses what it cannot compare, naming the value', () => {
     expect(bplusAgreement('', 0, 275, 270)).toMatchObject({ ok: false, field: 'who' });
     expect(bplusAgreement('x', -1, 275, 270)).toMatchObject({ ok: false, field: 'node' });
-    expect(bplusAgreement('x', 0, 0, 270)).toMatchObject({ ok: false, field: 'held', message: 'The B+ as designed must be above 0 V and at most 100000 V (got 0)' });
+    expect(bplusAgreement('x', 0, 0, 270)).toMatchObject({ ok: false, field: 'held', message: 'The B+ as designed must be from 1 mV to 100000 V (got 0)' });
     expect(bplusAgreement('x', 0, 275, 1.7e308)).toMatchObject({ ok: false, field: 'supplied' });
     expect(bplusAgreement('x', 0, 275, Number.NaN)).toMatchObject({ ok: false, field: 'supplied', message: 'The node\'s voltage must be from 0 to 100000 V (got not a number)' });
   });

@@ -1,4 +1,4 @@
-import { ohms } from '../../format';
+import { farads, ohms } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ValueField } from '../panels/ValueField';
 import { FEEDBACK_CAVEAT, feedbackBandWords, feedbackWords } from './feedbackWords';
@@ -12,6 +12,7 @@ export function GlobalFeedbackRow() {
   const view = useWorkbench((s) => s.amplifier);
   const driven = useWorkbench((s) => s.design.drivesOutput);
   const rf = useWorkbench((s) => s.design.feedbackRf);
+  const cf = useWorkbench((s) => s.design.feedbackCf);
   const winding = useWorkbench((s) => s.design.output);
   const on = rf !== null;
   if (!driven || !view) return null;
@@ -20,9 +21,10 @@ export function GlobalFeedbackRow() {
   return (
     <div className="global-feedback" data-testid="global-feedback">
       <ValueField field="feedbackRf" hint="from the speaker to stage 1's unbypassed cathode resistor; none for no feedback" />
+      {on ? <ValueField field="feedbackCf" hint="phase lead: its corner with Rf near the loop's crossover; none for none" /> : null}
       {on && words ? (
         <p className={failed ? 'field-error' : 'feedback-figures'} data-testid="feedback-figures">
-          {failed ? words : <><strong>{`With feedback (Rf ${rf === null ? '' : ohms(rf)}):`}</strong> {words}. <span className="feedback-caveat">{FEEDBACK_CAVEAT}</span></>}
+          {failed ? words : <><strong>{`With feedback (Rf ${rf === null ? '' : ohms(rf)}${cf === null ? '' : ` ∥ ${farads(cf)}`}):`}</strong> {words}. <span className="feedback-caveat">{FEEDBACK_CAVEAT}</span></>}
         </p>
       ) : null}
       {on && !failed && view.feedback?.ok ? (

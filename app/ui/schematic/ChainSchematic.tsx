@@ -132,7 +132,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   // Global feedback: Rf from the speaker's end of the secondary round under the drawing to the first cathode (unbypassed).
   const first = list[0];
   const feedback = design.drivesOutput && design.feedbackRf !== null && first?.kind === 'common-cathode' && !first.bypassed
-    ? <FeedbackPath fromX={x} toX={LEAD_IN} rf={design.feedbackRf} value={valuesOf('Global feedback', () => undefined)} />
+    ? <FeedbackPath fromX={x} toX={LEAD_IN} rf={design.feedbackRf} cf={design.feedbackCf} value={valuesOf('Global feedback', () => undefined)} />
     : null;
   const height = feedback ? H + FEEDBACK_ROW : H;
   return (

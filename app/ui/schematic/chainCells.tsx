@@ -231,9 +231,10 @@ export const FEEDBACK_ROW = 24;
 /**
  * Global feedback's resistor drawn from the secondary's lower end (the output
  * cell at `fromX`) round under the drawing to the first gain stage's cathode
- * lead (its cell at `toX`), above its Rk: where the loop returns.
+ * lead (its cell at `toX`), above its Rk: where the loop returns. A
+ * capacitor across Rf is named beside it (the row has no room for its plates).
  */
-export function FeedbackPath({ fromX, toX, rf, value }: { fromX: number; toX: number; rf: number; value: ValueLabel }) {
+export function FeedbackPath({ fromX, toX, rf, cf, value }: { fromX: number; toX: number; rf: number; cf: number | null; value: ValueLabel }) {
   const speaker = fromX + 110 + 22;
   const out = fromX + WIDTH.output - 6;
   const cathode = toX + 112;
@@ -247,7 +248,8 @@ export function FeedbackPath({ fromX, toX, rf, value }: { fromX: number; toX: nu
       <Wire points={[[mid - 20, y], [up, y], [up, CATHODE_OUT], [cathode, CATHODE_OUT]]} />
       <Dot x={cathode} y={CATHODE_OUT} />
       <Dot x={speaker} y={GRID - 30} />
-      {value('feedbackRf', 'Rf', mid, y - 8, `Rf ${ohms(rf)}`, 'middle')}
+      {value('feedbackRf', 'Rf', mid, y - 8, `Rf ${ohms(rf)}`, cf === null ? 'middle' : 'end')}
+      {cf === null ? null : value('feedbackCf', 'Cf', mid + 4, y - 8, `∥ Cf ${farads(cf)}`, 'start')}
     </g>
   );
 }
