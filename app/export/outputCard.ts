@@ -3,7 +3,7 @@ import { farads, mAPerV, milliamps, ohms, percentOf, plain, volts, watts } from 
 import { comparedSection, pairCardSections } from './pairCard';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
-import { windingLines } from '../ui/output/OutputPartsPanel';
+import { windingLines } from '../ui/output/windingWords';
 
 /** The build card's text for the output stage, from what the model already computed. */
 export function outputCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {

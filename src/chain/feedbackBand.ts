@@ -2,7 +2,7 @@ import { formatValue } from '../parts/formatValue';
 import { fail, type Result } from '../result';
 import { shown } from '../shown';
 import { finding, type Finding } from '../stage/ratingBands';
-import { chainResponseAt, scratchFor, type ChainNetwork } from './chainResponse';
+import { chainResponseAt, REFERENCE_HZ, scratchFor, type ChainNetwork } from './chainResponse';
 
 /**
  * The closed loop across the band: its response and how far the loop is
@@ -43,11 +43,11 @@ export interface FeedbackDivider {
 const LO_HZ = 0.01;
 const HI_HZ = 1e8;
 const PER_DECADE = 24;
-const MIDBAND_HZ = 1000;
-/** Common practice for a loop at rest: 45° of phase margin and 10 dB of gain margin. */
-const MIN_PHASE_MARGIN = 45;
+const MIDBAND_HZ = REFERENCE_HZ;
 /** Bisection steps for a crossing between two points of the sweep (a factor 1.1 apart): 20 put it within a part in 10⁷. */
 const REFINE_STEPS = 20;
+/** Common practice for a loop at rest: 45° of phase margin and 10 dB of gain margin. */
+const MIN_PHASE_MARGIN = 45;
 const MIN_GAIN_MARGIN = 10;
 
 /**

@@ -1,6 +1,7 @@
 import { useId } from 'react';
-import { henries, milliamps, ohms, percentOf, volts, watts } from '../../format';
+import { milliamps, ohms, percentOf, volts, watts } from '../../format';
 import type { WindingInductance } from '../../../src/index';
+import { windingLines } from './windingWords';
 import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -27,20 +28,6 @@ export function OutputPartsPanel() {
       <SupplyPartsList />
     </section>
   );
-}
-
-/**
- * The transformer's inductances as the design gives them, a line for the
- * parts list: the band and the loop's margins were worked out with them, so
- * a transformer with less primary or more leakage does worse. None when the
- * transformer was taken as ideal.
- */
-export function windingLines(winding: WindingInductance): string[] {
-  const lp = winding.primaryInductance ?? null;
-  const ll = winding.leakageInductance ?? null;
-  if (lp === null && ll === null) return [];
-  const asked = [lp === null ? '' : `Primary inductance at least ${henries(lp)} at its DC current`, ll === null ? '' : `leakage inductance at most ${henries(ll)}`].filter(Boolean).join(', ');
-  return [`${asked.charAt(0).toUpperCase()}${asked.slice(1)} (the band and the feedback's margins were worked out with ${lp !== null && ll !== null ? 'these' : 'this'}).`];
 }
 
 /** The transformer (and a pair's bias supply) in words, as the panel and the card print them. */

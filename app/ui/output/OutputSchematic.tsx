@@ -5,6 +5,7 @@ import { Dot, Ground, Wire } from '../schematic/wiring';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../../store/StoreProvider';
 import { PairSchematic } from './PairSchematic';
+import { windingText } from './windingWords';
 
 /**
  * The output stage as a schematic: the tube (pentode or triode symbol) with
@@ -63,6 +64,7 @@ function SingleEndedSchematic() {
           <text x={TAP_X - 8} y={96} fontSize={12} fill="#1d2329" textAnchor="end">{`Zpri ${ohms(o.zPrimary)}`}</text>
           <text x={TAP_X - 8} y={111} fontSize={11} fill={TEXT} textAnchor="end">{`DCR ${ohms(o.rPrimary)}`}</text>
           <text x={TAP_X - 8} y={126} fontSize={11} fill={TEXT} textAnchor="end">{`${a.turnsRatio.toFixed(1)} : 1`}</text>
+          {windingText(o) ? <text x={TAP_X - 8} y={141} fontSize={11} fill={TEXT} textAnchor="end">{windingText(o)}</text> : null}
           <Wire points={[[PRI_X, PRI_BOT], [PRI_X, CY - 40]]} />
           {pentode ? <Pentode cx={CX} cy={CY} /> : <Triode cx={CX} cy={CY} r={40} />}
           <text x={CX + 48} y={CY + 34} fontSize={13} fontWeight={600} fill="#1d2329">{tube.id}</text>

@@ -1,6 +1,7 @@
 import { ohms, percentOf, volts } from '../../format';
 import { Capacitor, Resistor, Winding } from '../schematic/parts';
 import { Pentode, Triode } from '../schematic/tubes';
+import { windingText } from './windingWords';
 import { Dot, Ground, Wire } from '../schematic/wiring';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 
@@ -54,7 +55,7 @@ export function PairSchematic() {
           </g>
           <text x={408} y={112} fontSize={12} fill={INK}>{ohms(o.speakerOhms)}</text>
           <text x={PX + 30} y={BOT + 2} fontSize={12} fill={INK}>{`Raa ${ohms(o.raa)}`}</text>
-          <text x={PX + 30} y={BOT + 16} fontSize={11} fill={TEXT}>{`DCR ${ohms(o.rPrimary)}`}</text>
+          <text x={PX + 30} y={BOT + 16} fontSize={11} fill={TEXT}>{`DCR ${ohms(o.rPrimary)}${windingText(o) ? `, ${windingText(o)}` : ''}`}</text>
           {/* the tubes */}
           <Tube cx={AX} />
           <Tube cx={BX} />
