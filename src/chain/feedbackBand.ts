@@ -1,6 +1,7 @@
 import { formatValue } from '../parts/formatValue';
 import { fail, type Result } from '../result';
 import { shown } from '../shown';
+import { squareWave } from '../signal/squareWave';
 import { finding, type Finding } from '../stage/ratingBands';
 import { chainResponseAt, REFERENCE_HZ, scratchFor, type ChainNetwork } from './chainResponse';
 
@@ -20,9 +21,27 @@ export interface FeedbackBand {
   readonly high: LoopMargins | null;
   /** Common practice: at least 45° of phase margin and 10 dB of gain margin at each end; under that 'marginal', below zero 'oscillates'. */
   readonly verdict: 'stable' | 'marginal' | 'oscillates';
+  /**
+   * What a scope would show at the speaker for a square wave in, open and
+   * closed loop, each against its own midband gain: a 100 Hz one (its tilt:
+   * the low end) and a 10 kHz one (its rise and any ringing: the high end).
+   * None for a loop that oscillates: it has no steady state to show.
+   */
+  readonly squareWaves: readonly LoopSquareWave[];
   /** The verdict for the ratings list: a loop that oscillates is a danger (it can overheat the output tubes' screens and burn a tweeter), a thin margin a warning; none when stable. */
   readonly findings: readonly Finding[];
 }
+
+export interface LoopSquareWave {
+  readonly hz: number;
+  /** Instants across one period from the rising edge, s. */
+  readonly t: readonly number[];
+  readonly open: readonly number[];
+  readonly closed: readonly number[];
+}
+
+/** The square waves a builder puts through an amplifier on the bench (common practice): 100 Hz for the low end, 10 kHz for the high. */
+const SQUARE_WAVE_HZ = [100, 10e3] as const;
 
 export interface LoopMargins {
   /** Where the loop gain falls to one, Hz, and 180° less its phase shift from midband there, degrees (below 0: the loop oscillates). */
@@ -71,6 +90,7 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
   const path = { rk: d.rk, rf: d.rf, cf: d.cf ?? null };
   const broken: ChainNetwork = { ...network, feedback: { ...path, mode: 'broken', polarity: 1 } };
   const scratch = scratchFor(broken);
+  const openScratch = scratchFor(network);
   const ref = chainResponseAt(broken, MIDBAND_HZ, scratch);
   const refMag = ref === null ? 0 : Math.hypot(ref[0], ref[1]);
   if (ref === null || !(refMag > 0)) return fail('unreachable', 'The loop carries no signal at 1 kHz in this amplifier', 'rf');
@@ -140,6 +160,18 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
   const oscillates = ends.some((m) => m.phaseMarginDeg < 0 || (m.gainMarginDb !== null && m.gainMarginDb < 0));
   const marginal = ends.some((m) => m.phaseMarginDeg < MIN_PHASE_MARGIN || (m.gainMarginDb !== null && m.gainMarginDb < MIN_GAIN_MARGIN));
   const verdict = oscillates ? 'oscillates' : marginal ? 'marginal' : 'stable';
+  const squareWaves: LoopSquareWave[] = [];
+  if (verdict !== 'oscillates') {
+    const openAt = (f: number) => chainResponseAt(network, f, openScratch);
+    const closedAt = (f: number) => chainResponseAt(closed, f, scratch);
+    const openRef = openAt(MIDBAND_HZ);
+    const closedRef = closedAt(MIDBAND_HZ);
+    for (const hz of SQUARE_WAVE_HZ) {
+      const o = openRef && squareWave(openAt, hz, openRef);
+      const c = closedRef && squareWave(closedAt, hz, closedRef);
+      if (o?.ok && c?.ok) squareWaves.push({ hz, t: c.t, open: o.v, closed: c.v });
+    }
+  }
   return {
     ok: true,
     lowHz: edge(sides[0]),
@@ -149,6 +181,7 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
     low,
     high,
     verdict,
+    squareWaves,
     findings: loopFindings(verdict, low, high),
   };
 }

@@ -38,11 +38,18 @@ describe('the feedback loop across the band', () => {
     expect(words).toContain('With primary 15 H and leakage 8 mH.');
     const verdict = model.band.verdict;
     expect(screen.getByTestId('feedback-band').className).toContain(`verdict-${verdict}`);
+    // What a scope would show: a 100 Hz and a 10 kHz square wave, closed loop and open.
+    const scope = screen.getByTestId('loop-square-waves');
+    expect(Array.from(scope.querySelectorAll('figcaption'), (c) => c.textContent)).toEqual([
+      '100 Hz square wave at the speaker: closed loop solid, open loop dashed',
+      '10 kHz square wave at the speaker: closed loop solid, open loop dashed',
+    ]);
     const tagged = benchFindings(store.getState()).filter((f) => f.stageName === 'Global feedback');
     expect(tagged.map((f) => f.severity)).toEqual(verdict === 'stable' ? [] : verdict === 'marginal' ? ['warning'] : ['danger']);
     // Much more feedback: the loop would oscillate; the words stop quoting a band and the ratings list carries a danger.
     typed(store, 'feedbackRf', '3k3');
     expect(screen.getByTestId('feedback-band').textContent).toMatch(/^Unstable: the loop will oscillate\./);
+    expect(screen.queryByTestId('loop-square-waves')).toBeNull();
     const danger = benchFindings(store.getState()).find((f) => f.stageName === 'Global feedback');
     expect(danger?.severity).toBe('danger');
     expect(danger?.message).toMatch(/Do not switch on with the loop closed\.$/);

@@ -2,6 +2,7 @@ import { farads, ohms } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ValueField } from '../panels/ValueField';
 import { FEEDBACK_CAVEAT, feedbackBandWords, feedbackWords } from './feedbackWords';
+import { LoopSquareWaves } from './LoopSquareWaves';
 
 /**
  * Global negative feedback under the amplifier's figures, with the stages
@@ -30,6 +31,7 @@ export function GlobalFeedbackRow() {
       {on && !failed && view.feedback?.ok ? (
         <p className={`feedback-band verdict-${view.feedback.band.verdict}`} data-testid="feedback-band">{feedbackBandWords(view, winding)}</p>
       ) : null}
+      {on && !failed && view.feedback?.ok ? <LoopSquareWaves waves={view.feedback.band.squareWaves} /> : null}
     </div>
   );
 }
