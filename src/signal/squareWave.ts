@@ -14,6 +14,8 @@ export interface SquareWave {
 /** Odd harmonics summed: up to the 199th, so a 10 kHz square wave is followed to 2 MHz. */
 const HARMONICS = 199;
 const SAMPLES = 320;
+/** A square wave's frequency, Hz: any a bench could set, its harmonics and instants finite. */
+const HZ_LIMITS = { min: 1e-3, max: 1e9 } as const;
 
 /**
  * The steady-state response to a square wave of ±1, by its Fourier series
@@ -26,7 +28,8 @@ const SAMPLES = 320;
  * and high pass (tests/signal/squareWave.test.ts).
  */
 export function squareWave(response: (hz: number) => readonly [number, number] | null, hz: number, reference: readonly [number, number]): Result<SquareWave> {
-  if (!(typeof hz === 'number' && hz > 0 && Number.isFinite(hz) && hz * HARMONICS < 1e12)) return fail('invalid-input', `The square wave's frequency must be above 0 Hz (got ${shown(hz)})`, 'hz');
+  if (typeof response !== 'function') return fail('invalid-input', 'A response to put the square wave through is needed', 'response');
+  if (!(typeof hz === 'number' && hz >= HZ_LIMITS.min && hz <= HZ_LIMITS.max)) return fail('invalid-input', `The square wave's frequency must be from 1 mHz to 1 GHz (got ${shown(hz)} Hz)`, 'hz');
   const refMag = Array.isArray(reference) ? Math.hypot(reference[0], reference[1]) : NaN;
   if (!(refMag > 0 && Number.isFinite(refMag))) return fail('invalid-input', 'The midband gain to refer the square wave to must be above 0', 'reference');
   // The midband gain's size and sign only: its few degrees of phase at 1 kHz belong to the response (a constant phase
@@ -36,7 +39,7 @@ export function squareWave(response: (hz: number) => readonly [number, number] |
   const gains: [number, number][] = [];
   for (let k = 1; k <= HARMONICS; k += 2) {
     const h = response(k * hz);
-    if (h === null || !Number.isFinite(h[0]) || !Number.isFinite(h[1])) return fail('unreachable', `The response could not be worked out at ${shown(k * hz)} Hz`, 'hz');
+    if (!Array.isArray(h) || !Number.isFinite(h[0]) || !Number.isFinite(h[1])) return fail('unreachable', `The response could not be worked out at ${shown(k * hz)} Hz`, 'hz');
     // G = H / H_ref.
     gains.push([(h[0] * rr + h[1] * ri) / (refMag * refMag), (h[1] * rr - h[0] * ri) / (refMag * refMag)]);
   }
