@@ -50,12 +50,14 @@ export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratch
 /**
  * Nodes beyond the source and each stage's three: two for each output
  * transformer given its inductances (either side of the magnetising one),
- * and a push-pull pair's second grid behind a stage with a second output.
+ * a long-tailed pair's second plate, and a push-pull pair's second grid
+ * behind a stage with a second output.
  */
 function extraNodes(net: ChainNetwork): number {
   let extra = net.feedback ? 1 : 0;
   net.stages.forEach(({ linear }, i) => {
     if (linear.winding) extra += 2;
+    if (linear.second) extra += 1;
     if (linear.pair && i > 0 && net.stages[i - 1]!.linear.output2) extra += 1;
   });
   return extra;
@@ -153,8 +155,17 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
     // A screen's current enters the cathode from its supply (signal ground, near enough for the cathode's network).
     add(k, g, -s.gScreen, 0);
     add(k, k, s.gScreen, 0);
+    // A long-tailed pair's second triode: grid at signal ground, so gm·(0 − vk) from its plate to the shared cathode.
+    const p2 = s.second ? spare++ : null;
+    if (s.second && p2 !== null) {
+      stamp(p2, -1, conductance(s.second.plateLoad), omega * s.caps.cgp);
+      stamp(p2, k, 1 / s.second.rp, omega * s.caps.cpk);
+      stamp(k, -1, 0, omega * s.caps.cgk);
+      add(p2, k, -s.second.gm, 0);
+      add(k, k, s.second.gm, 0);
+    }
     previous = wdg ? spare - 1 : s.output === 'plate' ? p : k;
-    previous2 = s.output2 === 'cathode' ? k : null;
+    previous2 = s.output2 === 'cathode' ? k : s.output2 === 'second' && p2 !== null ? p2 : null;
     scale = wdg ? wdg.scale : s.outputScale;
   });
   stamp(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);

@@ -136,12 +136,17 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
   const sides = [side(Math.log10(MIDBAND_HZ / LO_HZ), -1), side(Math.log10(HI_HZ / MIDBAND_HZ), 1)] as const;
   const level = mid.h / Math.SQRT2;
   const edge = (pts: Point[]): number | null => first(pts, (p) => p.h >= level)?.f ?? null;
+  // The highest point of the sweep; a sharp rise falls between its points, so its top is then found by a golden-section
+  // search between the neighbours.
+  let best: { pts: Point[]; j: number } | null = null;
+  for (const pts of sides) for (const [j, p] of pts.entries()) if (p.h > (best ? best.pts[best.j]!.h : mid.h)) best = { pts, j };
   let peak = { db: 0, f: null as number | null };
-  for (const pts of sides)
-    for (const p of pts) {
-      const db = 20 * Math.log10(p.h / mid.h);
-      if (db > peak.db) peak = { db, f: p.f };
-    }
+  if (best) {
+    const { pts, j } = best;
+    const p = pts[j]!;
+    const top = j > 0 && j < pts.length - 1 ? goldenTop(pts[j - 1]!.f, pts[j + 1]!.f, (f) => at(f).h) : { f: p.f, value: p.h };
+    peak = top.value > p.h ? { db: 20 * Math.log10(top.value / mid.h), f: top.f } : { db: 20 * Math.log10(p.h / mid.h), f: p.f };
+  }
   const loop = (p: Point) => Math.hypot(p.t[0], p.t[1]);
   const margins = (pts: Point[]): LoopMargins | null => {
     const cross = first(pts, (p) => loop(p) >= 1);
@@ -209,4 +214,28 @@ function loopFindings(verdict: FeedbackBand['verdict'], low: LoopMargins | null,
     return [finding('loop-stability', 'danger', `The loop is unstable (${how}): ${worded.join('; ')}. ${cure} Do not switch on with the loop closed.`, worst, MIN_PHASE_MARGIN)];
   }
   return [finding('loop-stability', 'warning', `Thin stability margins: ${worded.join('; ')} (common practice asks ${MIN_PHASE_MARGIN}° and ${MIN_GAIN_MARGIN} dB). Expect ringing on a square wave; a capacitive load makes it worse. ${cure}`, worst, MIN_PHASE_MARGIN)];
+}
+
+/** The top of a single hump between a and b (Hz), by golden-section search in log frequency. */
+function goldenTop(a: number, b: number, value: (f: number) => number): { f: number; value: number } {
+  const r = (Math.sqrt(5) - 1) / 2;
+  let [lo, hi] = [Math.log(Math.min(a, b)), Math.log(Math.max(a, b))];
+  let x1 = hi - r * (hi - lo);
+  let x2 = lo + r * (hi - lo);
+  let v1 = value(Math.exp(x1));
+  let v2 = value(Math.exp(x2));
+  for (let k = 0; k < REFINE_STEPS; k++) {
+    if (v1 > v2) {
+      hi = x2;
+      [x2, v2] = [x1, v1];
+      x1 = hi - r * (hi - lo);
+      v1 = value(Math.exp(x1));
+    } else {
+      lo = x1;
+      [x1, v1] = [x2, v2];
+      x2 = lo + r * (hi - lo);
+      v2 = value(Math.exp(x2));
+    }
+  }
+  return v1 > v2 ? { f: Math.exp(x1), value: v1 } : { f: Math.exp(x2), value: v2 };
 }

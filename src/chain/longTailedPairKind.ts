@@ -101,7 +101,6 @@ export const longTailedPairKind: StageKind<LongTailedPairLink> = {
       out.vgk = Math.max(vg + vin - vk, vg - vk);
       out.ia = Math.min(i1, i2);
     };
-    const second = (r.rp[1] + r2) / (r.mu[1] + 1);
     return {
       ok: true,
       op: { va: o1.va, vk: o1.vk, ia: o1.ia, vgk: o1.vgk },
@@ -115,8 +114,12 @@ export const longTailedPairKind: StageKind<LongTailedPairLink> = {
       cutoffCurrent: CUTOFF_FRACTION * Math.min(o1.ia, o2.ia),
       // One envelope: the second triode's findings where they say something the first's do not.
       findings: [...r.findings[0], ...r.findings[1].filter((f) => !r.findings[0].some((g) => g.message === f.message))],
-      // The first triode with, at its cathode, the tail in parallel with the second triode's cathode (its grid at signal ground).
-      linear: { gm: r.gm[0], rp: r.rp[0], plateLoad: s.ra, rk: parallel(tail, second), ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', outputScale: 1 },
+      // The first triode, the tail at its cathode, and the second triode (its grid at signal ground) on the same cathode, its
+      // plate the second output; each plate's next grid loads it through its own coupling in the network.
+      linear: {
+        gm: r.gm[0], rp: r.rp[0], plateLoad: s.ra, rk: tail, ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', outputScale: 1,
+        output2: 'second', second: { gm: r.gm[1], rp: r.rp[1], plateLoad: ra2 },
+      },
     };
   },
 };

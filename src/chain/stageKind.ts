@@ -35,8 +35,14 @@ export interface LinearStage {
    * the transformer is ideal and `plateLoad` and `outputScale` stand.
    */
   readonly winding?: LinearWinding | null;
-  /** A phase splitter whose second output, in antiphase, leaves at this node (a split-load's cathode). */
-  readonly output2?: 'cathode';
+  /** A phase splitter's second output, in antiphase: a split-load's cathode, or a long-tailed pair's second plate. */
+  readonly output2?: 'cathode' | 'second';
+  /**
+   * A long-tailed pair's second triode, its grid at signal ground and its
+   * cathode the first's (the node `rk`, then the tail alone, runs from):
+   * driven by the cathode, its plate the second output.
+   */
+  readonly second?: { readonly gm: number; readonly rp: number; readonly plateLoad: number };
   /**
    * A push-pull pair, in its half circuit: where the stage before gives a
    * second output, the second tube's grid follows it through its own

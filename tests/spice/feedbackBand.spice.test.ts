@@ -67,6 +67,22 @@ const cases: { label: string; chain: ChainInput; rf: number; cf?: number; verdic
       ],
     },
   },
+  {
+    label: 'common cathode → long-tailed pair → push-pull EL34, pentode, fixed bias, 100 H and 20 mH; 150 kΩ',
+    rf: 150e3,
+    verdict: 'marginal',
+    chain: {
+      source: { rsource: 600 },
+      stages: [
+        input(300),
+        { kind: 'long-tailed-pair', tube: au7, bplus: 400, ra: 47e3, ra2: 51e3, rk: 470, rtail: 15e3, vbias: 80, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+        {
+          kind: 'push-pull-output', tube: findOutputTube('EL34')!, connection: 'pentode', bplus: 420, screenVolts: 400, ulTap: 0.4, raa: 6600, rPrimary: 180,
+          bias: 'fixed', rk: 1, vg: -36, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 }, primaryInductance: 100, leakageInductance: 20e-3,
+        },
+      ],
+    },
+  },
   // Too much feedback round three coupling networks and the primary: the loop's phase passes 180° above unity gain at the
   // bottom of the band (it would motorboat).
   { label: 'the EL34 amplifier with 10 kΩ: oscillates', rf: 10e3, chain: el34Amp, verdict: 'oscillates' },
