@@ -3,7 +3,7 @@ import {
   analyzeOutput, findOutputTube, type OutputDesign,
   cornersOf, curveSheet, distortionOf, findTube, fitTriode, korenPublishedSets, logFrequencies, plateCurrent,
   responseOf, solveStage, solvedStage, stageTransfer, swingOf, triode, type CurvePoint,
-  solveAmplifier, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign, solvePushPull, pushPullAtDrive, analyzePushPull, type PushPullDesign,
+  solveAmplifier, globalFeedback, type ChainInput, solveOnSupply, solveSupply, type SupplyDesign, solvePushPull, pushPullAtDrive, analyzePushPull, type PushPullDesign,
 } from '../src/index';
 import { repeatedStats, RUNS, timeIt, type Stats } from './stats.mts';
 
@@ -157,6 +157,21 @@ export function pushPullAmplifier(): void {
   if (!r.atLevel?.ok) throw new Error('no figures at 1 W');
 }
 
+/**
+ * The four-stage amplifier with global feedback (47 kΩ to its first cathode, left unbypassed) and an output transformer
+ * of 15 H and 8 mH: the loop's figures a full pass adds when Rf is set (midband, band, margins, square waves, THD at 1 W).
+ */
+const FOUR_STAGES_LOOPED: ChainInput = {
+  ...FOUR_STAGES,
+  stages: FOUR_STAGES.stages.map((s, i) =>
+    i === 0 && s.kind === 'common-cathode' ? { ...s, bypassed: false } : s.kind === 'single-ended-output' ? { ...s, primaryInductance: 15, leakageInductance: 8e-3 } : s,
+  ),
+};
+export function loopFigures(): void {
+  const r = globalFeedback(FOUR_STAGES_LOOPED, 47e3, { power: 1 });
+  if (!r.ok) throw new Error(r.message);
+}
+
 export interface ModelResults {
   /** A push-pull pair's light analysis, what each drag frame on its bench runs (budget 2 ms median). */
   readonly pushPullLight: Stats;
@@ -174,6 +189,8 @@ export interface ModelResults {
   readonly amplifierOnSupplyDragFrame: Stats;
   /** The four-stage amplifier, solved whole (budget 8 ms median). */
   readonly fourStageChain: Stats;
+  /** Its global feedback's figures across the band, with a real transformer (no budget: a full pass's, never a frame's). */
+  readonly loopFigures: Stats;
   readonly solveStage: Stats;
   readonly fullAnalysis: Stats;
   readonly plateFamily: Stats;
@@ -235,6 +252,7 @@ export function benchModel(): ModelResults {
   const m = interleaved({
     solveStage: [() => solveStage(STAGE), 700, 20],
     fourStageChain: [() => fourStageAnalysis(), 20, 5],
+    loopFigures: [() => loopFigures(), 10, 3],
     supplyThreeSections: [() => solveSupply(THREE_SECTION_SUPPLY), 5, 2],
     pushPullCycle: [() => PUSH_PULL.ok && pushPullAtDrive(PUSH_PULL, 30), 20, 3],
     pushPullLight: [() => pushPullLightFrame(), 40, 10],
@@ -263,5 +281,5 @@ export function benchModel(): ModelResults {
   });
   const fftScaling: Record<string, Stats> = { 1024: m.fft1024, 2048: m.fft2048, 4096: m.fft4096, 8192: m.fft8192, 16384: m.fft16384 };
   const perPoint = (s: Stats): Stats => ({ ...s, median: s.median / 2400, p95: s.p95 / 2400, min: s.min / 2400, max: s.max / 2400, ...(s.p95Runs ? { p95Runs: s.p95Runs.map((x) => x / 2400) } : {}) });
-  return { outputRegionCoarse: m.outputRegionCoarse, outputRegionFull: m.outputRegionFull, pairRegionCoarse: m.pairRegionCoarse, pairRegionFull: m.pairRegionFull, rankOutputs: m.rankOutputs, regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, amplifierOnSupplyDragFrame: m.amplifierOnSupplyDragFrame, fourStageChain: m.fourStageChain, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
+  return { outputRegionCoarse: m.outputRegionCoarse, outputRegionFull: m.outputRegionFull, pairRegionCoarse: m.pairRegionCoarse, pairRegionFull: m.pairRegionFull, rankOutputs: m.rankOutputs, regionCoarse: m.regionCoarse, regionFull: m.regionFull, regionPoint: perPoint(m.regionFull), rankLibrary: m.rankLibrary, pushPullLight: m.pushPullLight, pushPullAmplifier: m.pushPullAmplifier, pushPullCycle: m.pushPullCycle, supplyThreeSections: m.supplyThreeSections, amplifierOnSupply: m.amplifierOnSupply, amplifierOnSupplyWarm: m.amplifierOnSupplyWarm, amplifierOnSupplyDragFrame: m.amplifierOnSupplyDragFrame, fourStageChain: m.fourStageChain, loopFigures: m.loopFigures, solveStage: m.solveStage, fullAnalysis: m.fullAnalysis, plateFamily: m.plateFamily, fit200: m.fit200, fftScaling, outputLight: m.outputLight, outputFull: m.outputFull };
 }

@@ -23,6 +23,7 @@ const model = benchModel();
 line('solveStage', model.solveStage);
 line('full one-stage analysis', model.fullAnalysis, { value: 2, on: 'median' });
 line('four-stage amplifier, whole analysis', model.fourStageChain, { value: 8, on: 'median' });
+line('  its global feedback across the band', model.loopFigures);
 line('supply, three sections, to steady state', model.supplyThreeSections, { value: 50, on: 'median' });
 line('four-stage amplifier on that supply', model.amplifierOnSupply);
 line('  again after a change, from its steady state', model.amplifierOnSupplyWarm);
