@@ -98,60 +98,81 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
   const polarity = ref[0] > 0 ? -1 : 1;
   const k = (-polarity * loopGain) / refMag;
   const closed: ChainNetwork = { ...network, feedback: { ...path, mode: 'closed', polarity } };
-  /** T(f) and |H(f)| at one frequency. */
-  const at = (f: number) => {
+  /** The loop's transmission T(f), and the closed loop's |H(f)|: each solved only where it is asked for. */
+  const loopAt = (f: number): [number, number] => {
     const a = chainResponseAt(broken, f, scratch) ?? [0, 0];
+    return [k * a[0], k * a[1]];
+  };
+  const closedAt = (f: number): number => {
     const h = chainResponseAt(closed, f, scratch) ?? [0, 0];
-    const t: [number, number] = [k * a[0], k * a[1]];
-    return { t, h: Math.hypot(h[0], h[1]) };
+    return Math.hypot(h[0], h[1]);
   };
-  const mid = at(MIDBAND_HZ);
-  type Point = ReturnType<typeof at> & { readonly f: number; readonly phase: number };
-  /** The point at f, its phase unwrapped to lie nearest a neighbour's (the step between them is well under π). */
-  const pointAt = (f: number, near: number): Point => {
-    const p = at(f);
-    const raw = Math.atan2(p.t[1], p.t[0]);
-    return { f, ...p, phase: raw + 2 * Math.PI * Math.round((near - raw) / (2 * Math.PI)) };
+  type LoopPoint = { readonly f: number; readonly t: [number, number]; readonly phase: number };
+  /** T at f, its phase unwrapped to lie nearest a neighbour's (the step between them is well under π). */
+  const loopPoint = (f: number, near: number): LoopPoint => {
+    const t = loopAt(f);
+    const raw = Math.atan2(t[1], t[0]);
+    return { f, t, phase: raw + 2 * Math.PI * Math.round((near - raw) / (2 * Math.PI)) };
   };
+  type Point = LoopPoint & { readonly h: number };
+  const midT = loopAt(MIDBAND_HZ);
+  const mid: Point = { f: MIDBAND_HZ, t: midT, phase: Math.atan2(midT[1], midT[0]), h: closedAt(MIDBAND_HZ) };
   const side = (decades: number, dir: 1 | -1): Point[] => {
     const count = Math.round(decades * PER_DECADE);
-    const points: Point[] = [{ f: MIDBAND_HZ, ...mid, phase: Math.atan2(mid.t[1], mid.t[0]) }];
-    for (let j = 1; j <= count; j++) points.push(pointAt(MIDBAND_HZ * Math.pow(10, (dir * j) / PER_DECADE), points[j - 1]!.phase));
+    const points: Point[] = [mid];
+    for (let j = 1; j <= count; j++) {
+      const f = MIDBAND_HZ * Math.pow(10, (dir * j) / PER_DECADE);
+      points.push({ ...loopPoint(f, points[j - 1]!.phase), h: closedAt(f) });
+    }
     return points;
   };
-  /** Where `above` turns false between neighbouring a (true) and b (false), by bisection in log frequency. */
-  const refine = (a: Point, b: Point, above: (p: Point) => boolean): Point => {
-    let [lo, hi] = [a, b];
-    for (let k = 0; k < REFINE_STEPS; k++) {
-      const m = pointAt(Math.sqrt(lo.f * hi.f), lo.phase);
+  /** The first neighbours of the sweep (outward from 1 kHz) where `above` turns false, or null. */
+  const firstTurn = <P,>(pts: readonly P[], above: (p: P) => boolean): [P, P] | null => {
+    for (let j = 1; j < pts.length; j++) if (!above(pts[j]!)) return above(pts[j - 1]!) ? [pts[j - 1]!, pts[j]!] : null;
+    return null;
+  };
+  /** Where the loop's `above` turns false between neighbours, by bisection in log frequency (T alone is solved). */
+  const loopTurn = (pts: readonly LoopPoint[], above: (p: LoopPoint) => boolean): LoopPoint | null => {
+    const pair = firstTurn(pts, above);
+    if (!pair) return null;
+    let [lo, hi] = pair;
+    for (let j = 0; j < REFINE_STEPS; j++) {
+      const m = loopPoint(Math.sqrt(lo.f * hi.f), lo.phase);
       if (above(m)) lo = m;
       else hi = m;
     }
-    return pointAt(Math.sqrt(lo.f * hi.f), lo.phase);
-  };
-  const first = (pts: Point[], above: (p: Point) => boolean): Point | null => {
-    for (let j = 1; j < pts.length; j++) if (!above(pts[j]!)) return above(pts[j - 1]!) ? refine(pts[j - 1]!, pts[j]!, above) : null;
-    return null;
+    return loopPoint(Math.sqrt(lo.f * hi.f), lo.phase);
   };
   const sides = [side(Math.log10(MIDBAND_HZ / LO_HZ), -1), side(Math.log10(HI_HZ / MIDBAND_HZ), 1)] as const;
   const level = mid.h / Math.SQRT2;
-  const edge = (pts: Point[]): number | null => first(pts, (p) => p.h >= level)?.f ?? null;
+  /** The closed loop's −3 dB point on one side, by bisection on |H| alone. */
+  const edge = (pts: readonly Point[]): number | null => {
+    const pair = firstTurn(pts, (p) => p.h >= level);
+    if (!pair) return null;
+    let [lo, hi] = [pair[0].f, pair[1].f];
+    for (let j = 0; j < REFINE_STEPS; j++) {
+      const m = Math.sqrt(lo * hi);
+      if (closedAt(m) >= level) lo = m;
+      else hi = m;
+    }
+    return Math.sqrt(lo * hi);
+  };
   // The highest point of the sweep; a sharp rise falls between its points, so its top is then found by a golden-section
   // search between the neighbours.
-  let best: { pts: Point[]; j: number } | null = null;
+  let best: { pts: readonly Point[]; j: number } | null = null;
   for (const pts of sides) for (const [j, p] of pts.entries()) if (p.h > (best ? best.pts[best.j]!.h : mid.h)) best = { pts, j };
   let peak = { db: 0, f: null as number | null };
   if (best) {
     const { pts, j } = best;
     const p = pts[j]!;
-    const top = j > 0 && j < pts.length - 1 ? goldenTop(pts[j - 1]!.f, pts[j + 1]!.f, (f) => at(f).h) : { f: p.f, value: p.h };
+    const top = j > 0 && j < pts.length - 1 ? goldenTop(pts[j - 1]!.f, pts[j + 1]!.f, closedAt) : { f: p.f, value: p.h };
     peak = top.value > p.h ? { db: 20 * Math.log10(top.value / mid.h), f: top.f } : { db: 20 * Math.log10(p.h / mid.h), f: p.f };
   }
-  const loop = (p: Point) => Math.hypot(p.t[0], p.t[1]);
-  const margins = (pts: Point[]): LoopMargins | null => {
-    const cross = first(pts, (p) => loop(p) >= 1);
+  const loop = (p: LoopPoint) => Math.hypot(p.t[0], p.t[1]);
+  const margins = (pts: readonly Point[]): LoopMargins | null => {
+    const cross = loopTurn(pts, (p) => loop(p) >= 1);
     if (cross === null) return null;
-    const turned = first(pts, (p) => Math.abs(p.phase) < Math.PI || !(loop(p) > 0));
+    const turned = loopTurn(pts, (p) => Math.abs(p.phase) < Math.PI || !(loop(p) > 0));
     return {
       crossoverHz: cross.f,
       phaseMarginDeg: 180 - (Math.abs(cross.phase) * 180) / Math.PI,
@@ -168,12 +189,12 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
   const squareWaves: LoopSquareWave[] = [];
   if (verdict !== 'oscillates') {
     const openAt = (f: number) => chainResponseAt(network, f, openScratch);
-    const closedAt = (f: number) => chainResponseAt(closed, f, scratch);
+    const closedResponse = (f: number) => chainResponseAt(closed, f, scratch);
     const openRef = openAt(MIDBAND_HZ);
-    const closedRef = closedAt(MIDBAND_HZ);
+    const closedRef = closedResponse(MIDBAND_HZ);
     for (const hz of SQUARE_WAVE_HZ) {
       const o = openRef && squareWave(openAt, hz, openRef);
-      const c = closedRef && squareWave(closedAt, hz, closedRef);
+      const c = closedRef && squareWave(closedResponse, hz, closedRef);
       if (o?.ok && c?.ok) squareWaves.push({ hz, t: c.t, open: o.v, closed: c.v });
     }
   }

@@ -73,12 +73,12 @@ export function feedbackPartsProblem(rf: number, cf: number | null): Failure | n
  * for negative feedback (a builder swaps its leads to make it so). The
  * output impedance falls by 1 + T·(R_L + Z_o)/R_L, the loop's gain with the
  * speaker off (Blackman's formula: the loop senses voltage). Across the
- * band (feedbackBand) the loop follows the open loop's network and a
- * capacitor across Rf where given (phase lead: it changes nothing at
- * midband), with the
- * output transformer's primary and leakage inductances where given; its
- * winding capacitances are not modelled. Checked against ngspice
- * (tests/spice/globalFeedback.spice.test.ts, feedbackBand.spice.test.ts).
+ * band (feedbackBand) the loop is solved in the amplifier's own network,
+ * with a capacitor across Rf where given (phase lead, kept above the band
+ * by feedbackPartsProblem) and the output transformer's primary and leakage
+ * inductances where given; its winding capacitances are not modelled.
+ * Checked against ngspice (tests/spice/globalFeedback.spice.test.ts,
+ * feedbackBand.spice.test.ts).
  */
 export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierLevel, cf: number | null = null): Result<GlobalFeedback> {
   if (!(typeof rf === 'number' && rf >= FEEDBACK_RF_LIMITS.min && rf <= FEEDBACK_RF_LIMITS.max)) {
@@ -96,9 +96,9 @@ export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierL
   const rk = first.rk;
   const openInput: ChainInput = { ...input, stages: [{ ...first, rk: (rk * rf) / (rk + rf) }, ...stages.slice(1)] };
   const prepared = prepareAmplifier(openInput);
+  if (!prepared.ok) return prepared;
   const open = amplifierOf(openInput, prepared);
   if (!open.ok) return open;
-  if (!prepared.ok) return prepared;
   const s0 = open.stages[0]!;
   const mu = smallSignalAt(first.tube, s0.op.va - s0.op.vk, s0.op.vgk).mu;
   // The source's divider into the first grid (its leak) stays outside the loop.

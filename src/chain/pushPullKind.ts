@@ -95,7 +95,7 @@ export const pushPullKind: StageKind<PushPullLink> = {
         caps: s.tube.capacitances,
         output: 'plate',
         outputScale: scale,
-        winding: linearWinding(design, design.rPrimary, design.raa / 2, 0.5, ratio),
+        winding: linearWinding(design, design.rPrimary, design.raa, 0.5, ratio),
         // Both grids driven, the second at `antiphase` times the first: (1 − antiphase)/2 of the first's drive each way.
         pair: { gm: (-gain / (scale * rLoad)) * (antiphase < 0 ? 2 / (1 - antiphase) : 1) },
       },

@@ -16,7 +16,7 @@ export interface WindingInductance {
   readonly leakageInductance?: number | null;
 }
 
-/** From a small single-ended transformer's few henries to a large push-pull one's hundreds; leakage from a few µH to well past any real winding's. */
+/** From a small single-ended transformer's few henries to a large push-pull one's hundreds; leakage from a few µH to well past any real winding's (the ranges from memory, set wide). */
 export const WINDING_LIMITS = { primaryInductance: { min: 0.1, max: 2000 }, leakageInductance: { min: 1e-6, max: 10 } } as const;
 
 /** The first inductance that cannot be used, worded for showing next to it; null when both are usable or absent. */
@@ -29,7 +29,8 @@ export function windingProblem(d: WindingInductance): Failure | null {
     (lp === null ? null : checkNumber('primaryInductance', 'Primary inductance', lp, 'H', L.primaryInductance.min, L.primaryInductance.max)) ??
     (ll === null ? null : checkNumber('leakageInductance', 'Leakage inductance', ll, 'H', L.leakageInductance.min, L.leakageInductance.max)) ??
     (lp !== null && ll !== null && !(ll < lp / 10)
-      ? fail('invalid-input', 'The leakage inductance must be well below the primary inductance (under a tenth of it in any working transformer): check the units', 'leakageInductance')
+      ? // A working output transformer's leakage is a small fraction of a percent of its primary (from memory): a tenth is far past any.
+        fail('invalid-input', 'The leakage inductance must be well below the primary inductance (under a tenth of it in any working transformer): check the units', 'leakageInductance')
       : null)
   );
 }
@@ -39,17 +40,18 @@ export function windingProblem(d: WindingInductance): Failure | null {
  * primary's resistance, the leakage split either side of the magnetising
  * inductance (the coupled windings' T, its open-circuit inductance the
  * primary's), into the reflected load; `share` scales every primary value
- * to what the plate sees (1 single-ended; ½ for each tube of a push-pull
- * pair's half circuit, as its load is half the plate-to-plate one). Null
- * when neither inductance is given: the ideal transformer.
+ * (resistance, load, inductances) to what the plate sees (1 single-ended;
+ * ½ for each tube of a push-pull pair's half circuit, as its load is half
+ * the plate-to-plate one). Null when neither inductance is given: the ideal
+ * transformer.
  */
-export function linearWinding(d: WindingInductance, rPrimary: number, reflected: number, share: number, scale: number) {
+export function linearWinding(d: WindingInductance, rPrimary: number, primaryLoad: number, share: number, scale: number) {
   const lp = d.primaryInductance ?? null;
   const ll = d.leakageInductance ?? null;
   if (lp === null && ll === null) return null;
   return {
     rSeries: rPrimary * share,
-    reflected,
+    reflected: primaryLoad * share,
     lm: lp === null ? null : (lp - (ll ?? 0) / 2) * share,
     ll: ll === null ? null : ll * share,
     scale,

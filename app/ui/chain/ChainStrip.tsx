@@ -89,7 +89,7 @@ export function ChainStrip() {
       {r.ok && (
         <dl className="chain-figures" data-testid="amplifier-figures">
           <div><dt>{view.feedback?.ok ? 'Gain, open loop' : 'Gain'}</dt><dd>{gainDb(r.gain)} ({plain(Math.abs(r.gain))}×{r.inverting ? ', inverting' : ''})</dd></div>
-          <div><dt>Band (−3 dB)</dt><dd>{hz(r.lowHz, 'DC')} to {hz(r.highHz, 'beyond 100 MHz')}</dd></div>
+          <div><dt>{view.feedback?.ok ? 'Band (−3 dB), open loop' : 'Band (−3 dB)'}</dt><dd>{hz(r.lowHz, 'DC')} to {hz(r.highHz, 'beyond 100 MHz')}</dd></div>
           <div>
             <dt>{view.feedback?.ok ? 'Clean to, open loop' : 'Clean to'}</dt>
             <dd>
