@@ -30,8 +30,12 @@ export const henries = (v: number) => formatValue(v, 'H');
 export const percentOf = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 /** A signed level in dB to one decimal, with a true minus sign. */
 export const signedDb = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(1)}`;
+/** An rms voltage in volts down to 10 mV (line and speaker levels read so), then mV, then µV: a long chain's input never reads as an exponent. */
+const rmsVolts = (v: number) => (v >= 0.01 ? `${plain(v)} V` : v >= 1e-5 ? `${plain(v * 1e3)} mV` : `${plain(v * 1e6)} µV`);
+/** An rms voltage alone, "1.23 V rms", "2.57 mV rms". */
+export const voltsRms = (v: number) => `${rmsVolts(v)} rms`;
 /** A sine level as the bench reads it, "1.23 V rms (+4.0 dBu)"; a level of nothing reads "none". */
 export const rmsLevel = (l: Level, ref: 'dBu' | 'dBV') => {
   const db = ref === 'dBu' ? l.dBu : l.dBV;
-  return db === null ? 'none' : `${plain(l.rms)} V rms (${signedDb(db)} ${ref})`;
+  return db === null ? 'none' : `${rmsVolts(l.rms)} rms (${signedDb(db)} ${ref})`;
 };

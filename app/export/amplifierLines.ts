@@ -1,4 +1,4 @@
-import { farads, hertz, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
+import { farads, hertz, milliamps, ohms, plain, rmsLevel, volts, watts, voltsRms } from '../format';
 import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
@@ -22,7 +22,7 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   const lines = [
     chain,
     `Gain ${plain(Math.abs(r.gain))} × (${(20 * Math.log10(Math.abs(r.gain))).toFixed(1)} dB${r.inverting ? ', inverting' : ''}), −3 dB ${hz(r.lowHz, 'DC')} to ${hz(r.highHz, 'beyond 100 MHz')}`,
-    `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
+    `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${voltsRms(r.speakerRms ?? 0)} at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
   ];
   if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${atLevelWords(view)}`);
   // With global feedback the figures above are the open loop's; the loop's own follow, with what they leave out.

@@ -1,7 +1,7 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
 import { marginWords } from '../ui/targets/marginWords';
 import { targetWithValue } from '../ui/targets/targetValue';
-import { dB, decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts } from '../format';
+import { dB, decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts, voltsRms } from '../format';
 import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
 import { AMPLIFIER_COMPARE_ROWS } from '../ui/panels/AmplifierCompare';
 import type { AmplifierView } from '../store/amplifierChain';
@@ -75,10 +75,10 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       lines: [
         sig.swing.output.rms === 0 ? 'No clean output: the grid has no bias' : `Clean output ${rmsLevel(sig.swing.output, 'dBu')}, clips by ${sig.swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`,
         sig.distortion.ok
-          ? `At ${plain(d.levelRms)} V rms out: THD ${plain(sig.distortion.thdPercent)} %, H2 ${dB(sig.distortion.harmonicsDb[0]!)}, H3 ${dB(sig.distortion.harmonicsDb[1]!)}`
+          ? `At ${voltsRms(d.levelRms)} out: THD ${plain(sig.distortion.thdPercent)} %, H2 ${dB(sig.distortion.harmonicsDb[0]!)}, H3 ${dB(sig.distortion.harmonicsDb[1]!)}`
           : sig.distortion.message,
         `−3 dB: ${sig.corners.lowHz ? formatValue(sig.corners.lowHz, 'Hz') : 'DC'} to ${sig.corners.highHz ? formatValue(sig.corners.highHz, 'Hz') : 'beyond 1 GHz'}`,
-        sig.atThd.ok ? `Output at ${plain(100 * d.thdLimit)} % THD: ${plain(sig.atThd.outputRms)} V rms (${sig.atThd.limitedBy === 'curvature' ? 'within the clean swing' : `past the clean swing, ${sig.atThd.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`})` : sig.atThd.message,
+        sig.atThd.ok ? `Output at ${plain(100 * d.thdLimit)} % THD: ${voltsRms(sig.atThd.outputRms)} (${sig.atThd.limitedBy === 'curvature' ? 'within the clean swing' : `past the clean swing, ${sig.atThd.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}`})` : sig.atThd.message,
       ],
     },
   ];
@@ -94,7 +94,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
           : `Ra ${ohms(d.stage2.ra)}, Rk ${ohms(d.stage2.rk)} bypassed, Rg ${ohms(d.stage2.rg)}`,
         `Va ${volts(link.op.va)}, Vk ${volts(link.op.vk)}, Ia ${milliamps(link.op.ia)}, Vgk ${volts(link.op.vgk)}, Pa ${watts(link.op.pa)}`,
         `Gain ${plain(link.gain)} ×, Zout ${ohms(link.zout)}${link.kind === 'follower' ? `, heater–cathode ${volts(link.vhk)}` : ''}`,
-        `Both stages: gain ${plain(chain.gain)} × (${chain.inverting ? 'inverting' : 'not inverting'}), clean output ${plain(chain.output.rms)} V rms`,
+        `Both stages: gain ${plain(chain.gain)} × (${chain.inverting ? 'inverting' : 'not inverting'}), clean output ${voltsRms(chain.output.rms)}`,
       ],
     });
   }

@@ -1,6 +1,6 @@
 import { useWorkbench, useWorkbenchStore } from '../../store/StoreProvider';
 import type { WorkbenchState } from '../../store/workbenchStore';
-import { hertz, plain, rmsLevel, watts } from '../../format';
+import { hertz, plain, rmsLevel, watts, voltsRms } from '../../format';
 import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '../../store/stagePlans';
 import { StageCard } from './StageCard';
 import { StageMenu } from './StageMenu';
@@ -93,7 +93,7 @@ export function ChainStrip() {
           <div>
             <dt>{view.feedback?.ok ? 'Clean to, open loop' : 'Clean to'}</dt>
             <dd>
-              {r.outputPower !== null ? `${watts(r.outputPower)} (${plain(r.speakerRms ?? 0)} V rms at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
+              {r.outputPower !== null ? `${watts(r.outputPower)} (${voltsRms(r.speakerRms ?? 0)} at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
             </dd>
           </div>
           {view.atLevel && (

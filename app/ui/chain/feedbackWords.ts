@@ -1,4 +1,4 @@
-import { dB, henries, hertz, ohms, plain } from '../../format';
+import { dB, henries, hertz, ohms, plain, voltsRms } from '../../format';
 import type { WindingInductance } from '../../../src/index';
 import type { AmplifierView } from '../../store/amplifierChain';
 
@@ -15,7 +15,7 @@ export function feedbackWords(view: AmplifierView): string | null {
   if (!f.ok) return f.message;
   const inRms = f.inputPeak / Math.SQRT2;
   const at = f.thdEstimate !== null ? `; THD at 1 W about ${plain(f.thdEstimate * 100, 2)} %` : '';
-  return `${dB(f.feedbackDb)} of feedback (loop gain ${plain(f.loopGain)}): gain ${dB(20 * Math.log10(f.closedGain))} (${plain(f.closedGain)}×), clean limit from ${plain(inRms)} V rms in; output impedance ${f.zoutClosed < 1 ? `${plain(f.zoutClosed)} Ω` : ohms(f.zoutClosed)} (damping factor ${plain(f.dampingFactor)})${at}`;
+  return `${dB(f.feedbackDb)} of feedback (loop gain ${plain(f.loopGain)}): gain ${dB(20 * Math.log10(f.closedGain))} (${plain(f.closedGain)}×), clean limit from ${voltsRms(inRms)} in; output impedance ${f.zoutClosed < 1 ? `${plain(f.zoutClosed)} Ω` : ohms(f.zoutClosed)} (damping factor ${plain(f.dampingFactor)})${at}`;
 }
 
 /** What the feedback figures leave out, said beside them once. */

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import type { Analysis } from '../../store/analysis';
-import { mAPerV, milliamps, ohms, plain, volts, watts } from '../../format';
+import { mAPerV, milliamps, ohms, plain, volts, watts, voltsRms } from '../../format';
 import { rivalDesign } from '../../store/compareSlice';
 import { useWorkbench } from '../../store/StoreProvider';
 import { SecondTubeChoice } from './SecondTubeChoice';
@@ -28,7 +28,7 @@ export const COMPARE_ROWS: readonly Row[] = [
   { label: 'gm', key: 'gm', value: (a) => a.solution.gm, show: mAPerV, diff: 'ratio' },
   { label: 'Gain', key: 'gain', value: (a) => a.solution.gain, show: (v) => `${plain(v)} ×`, diff: 'ratio' },
   { label: 'Zout', key: 'zout', value: (a) => a.solution.zout, show: ohms, diff: 'ratio' },
-  { label: 'Clean output', key: 'swing', value: (a) => a.signal.swing.output.rms, show: (v) => `${plain(v)} V rms`, diff: 'ratio' },
+  { label: 'Clean output', key: 'swing', value: (a) => a.signal.swing.output.rms, show: (v) => voltsRms(v), diff: 'ratio' },
   { label: 'THD at the level', key: 'thd', value: (a) => (a.signal.distortion.ok ? a.signal.distortion.thdPercent : null), show: (v) => `${plain(v)} %`, diff: 'ratio' },
 ];
 

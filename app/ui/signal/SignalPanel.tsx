@@ -1,6 +1,6 @@
 import { useShallow } from 'zustand/react/shallow';
 import { formatValue } from '../../../src/index';
-import { dB, decibels, ohms, plain, rmsLevel } from '../../format';
+import { dB, decibels, ohms, plain, rmsLevel, voltsRms } from '../../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
 
@@ -39,7 +39,7 @@ export function SignalPanel() {
           />
         </div>
         <dl className="figure-group">
-          <div className="figure" data-figure="input-needed"><dt>Input needed</dt><dd>{d.ok ? `${plain(d.inputRms)} V rms` : '—'}</dd></div>
+          <div className="figure" data-figure="input-needed"><dt>Input needed</dt><dd>{d.ok ? voltsRms(d.inputRms) : '—'}</dd></div>
           <div className="figure" data-figure="thd"><dt>THD</dt><dd>{d.ok ? `${plain(d.thdPercent)} %${d.pastClean ? ` past the clean swing (${LIMIT_WORDS[d.pastClean]})` : ''}` : '—'}</dd></div>
           <div className="figure" data-figure="h2"><dt>H2</dt><dd>{d.ok ? dB(d.harmonicsDb[0]!) : '—'}</dd></div>
           <div className="figure" data-figure="h3"><dt>H3</dt><dd>{d.ok ? dB(d.harmonicsDb[1]!) : '—'}</dd></div>
@@ -48,7 +48,7 @@ export function SignalPanel() {
           <div className="figure" data-figure="headroom-out"><dt>Clean output swing</dt><dd>{rmsLevel(swing.output, 'dBu')}</dd></div>
           <div className="figure" data-figure="headroom-in"><dt>Clean input</dt><dd>{rmsLevel(swing.input, 'dBV')}</dd></div>
           <div className="figure" data-figure="limited-by"><dt>Clips by</dt><dd>{swing.output.rms === 0 ? 'at any level (no grid bias)' : limit}</dd></div>
-          <div className="figure" data-figure="at-thd"><dt>{`Output at ${plain(100 * thdLimit)} % THD`}</dt><dd>{atThd.ok ? `${plain(atThd.outputRms)} V rms (${plain(atThd.inputRms)} V rms in), ${LIMIT_WORDS[atThd.limitedBy]}` : atThd.message}</dd></div>
+          <div className="figure" data-figure="at-thd"><dt>{`Output at ${plain(100 * thdLimit)} % THD`}</dt><dd>{atThd.ok ? `${voltsRms(atThd.outputRms)} (${voltsRms(atThd.inputRms)} in), ${LIMIT_WORDS[atThd.limitedBy]}` : atThd.message}</dd></div>
           <div className="figure" data-figure="bandwidth"><dt>−3 dB</dt><dd>{`${hz(corners.lowHz)} to ${hz(corners.highHz)}`}</dd></div>
         </dl>
       </div>
@@ -57,7 +57,7 @@ export function SignalPanel() {
         <dl className="figure-group chain-figures" aria-label="Both stages together">
           <div className="figure" data-figure="chain-gain"><dt>Chain gain</dt><dd>{`${plain(chain.gain)} × (${decibels(chain.gain)}), ${chain.inverting ? 'inverting' : 'non-inverting'}`}</dd></div>
           <div className="figure" data-figure="chain-zout"><dt>Chain Zout</dt><dd>{ohms(chain.zout)}</dd></div>
-          <div className="figure" data-figure="chain-swing"><dt>Chain clean output</dt><dd>{`${plain(chain.output.rms)} V rms, limited by stage ${chain.limitedBy.link + 1} (${chain.limitedBy.by === 'grid-current' ? 'grid current' : 'cutoff'})`}</dd></div>
+          <div className="figure" data-figure="chain-swing"><dt>Chain clean output</dt><dd>{`${voltsRms(chain.output.rms)}, limited by stage ${chain.limitedBy.link + 1} (${chain.limitedBy.by === 'grid-current' ? 'grid current' : 'cutoff'})`}</dd></div>
         </dl>
       ) : null}
     </section>

@@ -1,5 +1,5 @@
 import type { TargetName } from '../../../src/index';
-import { ohms, plain } from '../../format';
+import { ohms, plain, voltsRms } from '../../format';
 
 /** What a target measures at the design, in the bench's words. */
 function targetValueWords(k: TargetName, v: number | null | undefined): string {
@@ -7,7 +7,7 @@ function targetValueWords(k: TargetName, v: number | null | undefined): string {
   if (v === null) return k === 'maxThdAt' ? 'the level is past the clean swing' : k === 'maxThdAtPower' ? 'that power needs the grid past 0 V' : 'no rating to hold it to';
   switch (k) {
     case 'minGain': return `${plain(v)} ×`;
-    case 'minCleanOutputRms': return `${plain(v)} V rms`;
+    case 'minCleanOutputRms': return voltsRms(v);
     case 'maxThdAt': return `${plain(100 * v)} %`;
     case 'maxDissipationFraction': return `${plain(100 * v)} % of its rating`;
     case 'maxZout':
