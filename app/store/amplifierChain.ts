@@ -108,7 +108,8 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
     stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   }
-  const load = !outputTube && Number.isFinite(d.rl) ? { load: { rl: d.rl } } : {};
+  // The last voltage stage drives RL through Cout (none: an ideal capacitor): its corner with the load is the amplifier's.
+  const load = !outputTube && Number.isFinite(d.rl) ? { load: { rl: d.rl, ...(d.cout !== null ? { cc: d.cout } : {}) } } : {};
   return { input: { source: { rsource: d.rsource }, stages, ...load }, names };
 }
 

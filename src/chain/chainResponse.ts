@@ -16,6 +16,8 @@ export interface ChainNetwork {
   readonly stages: readonly { readonly linear: LinearStage; readonly coupling: { readonly cc: number; readonly rg: number } | null }[];
   /** Load on the last output, Ω (Infinity: none). */
   readonly rl: number;
+  /** The load's coupling capacitor, F; null or absent: ideal (the output is then the last stage's own node). */
+  readonly loadCc?: number | null;
   /** Global feedback from the output to the first stage's cathode, when the network carries it. */
   readonly feedback?: FeedbackPath;
 }
@@ -54,7 +56,7 @@ export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratch
  * behind a stage with a second output.
  */
 function extraNodes(net: ChainNetwork): number {
-  let extra = net.feedback ? 1 : 0;
+  let extra = (net.feedback ? 1 : 0) + (loadCoupled(net) ? 1 : 0);
   net.stages.forEach(({ linear }, i) => {
     if (linear.winding) extra += 2;
     if (linear.second) extra += 1;
@@ -62,6 +64,9 @@ function extraNodes(net: ChainNetwork): number {
   });
   return extra;
 }
+
+/** Whether the load hangs on its own node behind a real coupling capacitor (with no load, the capacitor carries nothing). */
+const loadCoupled = (net: ChainNetwork): boolean => net.loadCc != null && Number.isFinite(net.rl);
 
 /** The node count of the network's equations. */
 const nodeCount = (net: ChainNetwork): number => 1 + 3 * net.stages.length + extraNodes(net);
@@ -168,6 +173,12 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
     previous2 = s.output2 === 'cathode' ? k : s.output2 === 'second' && p2 !== null ? p2 : null;
     scale = wdg ? wdg.scale : s.outputScale;
   });
+  if (loadCoupled(net)) {
+    // The load's node is the last before the feedback node's (which, with the loop's figures, comes last).
+    const l = fb ? n - 2 : n - 1;
+    stamp(previous, l, 0, omega * net.loadCc!);
+    previous = l;
+  }
   stamp(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
   if (fb) {
     // Rf's end is held by a source, its row that source's equation: 1 V with the loop broken, else the output times the

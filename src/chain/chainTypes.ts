@@ -131,8 +131,11 @@ export type StageKindName = ChainStage['kind'];
 export interface ChainInput {
   readonly source: { readonly rsource: number };
   readonly stages: readonly ChainStage[];
-  /** A load on the last stage's output through an ideal capacitor, Ω (a line input, say); none when absent. */
-  readonly load?: { readonly rl: number };
+  /**
+   * A load on the last stage's output, Ω (a line input, say), through its
+   * coupling capacitor `cc`, F (an ideal one when absent); none when absent.
+   */
+  readonly load?: { readonly rl: number; readonly cc?: number };
 }
 
 /** What ends a stage's clean swing. */

@@ -44,8 +44,11 @@ export function checkChain(input: unknown): Failure | null {
     }
   }
   if (c.load !== undefined) {
-    const loadProblem = typeof c.load === 'object' && c.load !== null ? checkNumber('rl', 'Load', c.load.rl, 'Ω', LIMITS.minOhms, LIMITS.maxOhms, { allowInfinity: true }) : fail('invalid-input', 'Give the load as { rl }');
+    if (typeof c.load !== 'object' || c.load === null) return fail('invalid-input', 'Give the load as { rl, cc? }', 'load');
+    const loadProblem = checkNumber('rl', 'Load', c.load.rl, 'Ω', LIMITS.minOhms, LIMITS.maxOhms, { allowInfinity: true });
     if (loadProblem) return { ...loadProblem, field: 'load.rl' };
+    const ccProblem = c.load.cc === undefined ? null : checkNumber('cc', "The load's coupling capacitor", c.load.cc, 'F', LIMITS.minFarads, LIMITS.maxFarads);
+    if (ccProblem) return { ...ccProblem, field: 'load.cc' };
   }
   return null;
 }

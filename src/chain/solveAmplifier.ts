@@ -73,6 +73,7 @@ export function networkOf(input: ChainInput, a: PreparedAmplifier): ChainNetwork
     rsource: input.source.rsource,
     stages: input.stages.map((s, i) => ({ linear: a.links[i]!.linear, coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null })),
     rl: input.load?.rl ?? Infinity,
+    loadCc: input.load?.cc ?? null,
   };
 }
 

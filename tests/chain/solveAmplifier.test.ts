@@ -94,6 +94,20 @@ describe('an amplifier of 1 to 8 stages', () => {
     expect(solveChain(amp(...eight, driver))).toMatchObject({ ok: false, field: 'stages' });
   });
 
+  it("the load's own coupling capacitor sets the low end with the last stage's output impedance and the load (a first-order high pass, Millman & Taub)", () => {
+    // Every other capacitor far larger, so this one alone sets the corner: 1/(2π·(Zout + RL)·C), about 34 Hz, far enough
+    // below the 1 kHz the band's edges are read against for that reference to move it by under 0.1 %.
+    const big: ChainStage = { ...gainStage(), coupling: { kind: 'capacitor', cc: 100e-6, rg: 1e6 } };
+    const ideal = solved({ ...amp(big), load: { rl: 10e3 } });
+    const real = solved({ ...amp(big), load: { rl: 10e3, cc: 100e-9 } });
+    const corner = 1 / (2 * Math.PI * (real.stages[0]!.zout + 10e3) * 100e-9);
+    expectClose(real.lowHz!, corner, { rel: 0.01 }, 'low −3 dB with the load capacitor');
+    expect(ideal.lowHz ?? 0).toBeLessThan(corner / 100);
+    // Midband is the load's alone: the capacitor passes it.
+    expectClose(real.gain, ideal.gain, { rel: 1e-9 }, 'midband gain');
+    expect(solveChain({ ...amp(big), load: { rl: 10e3, cc: -1e-9 } })).toMatchObject({ ok: false, field: 'load.cc' });
+  });
+
   it('names the stage and field of a bad value, and refuses an output stage before the end', () => {
     expect(solveChain(amp(gainStage(), { ...driver, ra: -5 } as ChainStage))).toMatchObject({ ok: false, field: 'stages.1.ra', message: expect.stringMatching(/^Stage 2: Ra/) });
     expect(solveChain(amp(gainStage(), { ...driver, coupling: { kind: 'capacitor', cc: 47e-9 } } as unknown as ChainStage))).toMatchObject({ ok: false, field: 'stages.1.rg' });

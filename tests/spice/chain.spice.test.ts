@@ -73,6 +73,33 @@ const chains: { label: string; chain: ChainInput; levelShare: number }[] = [
     },
     levelShare: 0.6,
   },
+  {
+    // A line stage's own output capacitor into the next unit's input: its corner with the load (and the follower's low
+    // output impedance) sets the amplifier's low end, 1/(2π·(Zout + RL)·C), about 15 Hz here.
+    label: 'common cathode → capacitor-coupled follower → 1 µF into a 10k line input',
+    chain: {
+      source: { rsource: 600 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 280, ra: 100e3, rk: 1500, bypassed: true, ck: 220e-6, coupling: { kind: 'capacitor', cc: 470e-9, rg: 1e6 } },
+        { kind: 'follower', tube: au7, bplus: 280, rk: 22e3, vbias: 100, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+      ],
+      load: { rl: 10e3, cc: 1e-6 },
+    },
+    levelShare: 0.6,
+  },
+  {
+    // A plate's output impedance behind a small output capacitor: the corner takes the plate's Zout as well as the load.
+    label: 'two common-cathode stages, the last plate through 47 nF into 47k',
+    chain: {
+      source: { rsource: 1e3 },
+      stages: [
+        { kind: 'common-cathode', tube: at7, bplus: 250, ra: 47e3, rk: 1000, bypassed: true, ck: 100e-6, coupling: { kind: 'capacitor', cc: 470e-9, rg: 1e6 } },
+        { kind: 'common-cathode', tube: au7, bplus: 250, ra: 47e3, rk: 1500, bypassed: true, ck: 100e-6, coupling: { kind: 'capacitor', cc: 470e-9, rg: 470e3 } },
+      ],
+      load: { rl: 47e3, cc: 47e-9 },
+    },
+    levelShare: 0.6,
+  },
 ];
 
 const dB = (x: number) => 20 * Math.log10(x);

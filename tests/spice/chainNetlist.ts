@@ -174,9 +174,11 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
     input = st.output;
     input2 = st.output2 ?? null;
   });
-  lines.push(`EOUT ${nodes.output} 0 ${input} 0 1`);
-  // In the transient a 10 µF output capacitor holds its charge over the run (RL·C ≥ 0.1 s); more collapses the time step.
-  if (c.load) lines.push(`CO ${input} lo ${analysis.kind === 'tran' ? '10u' : '1'}`, `RL lo 0 ${g(c.load.rl)}`);
+  // The load's own coupling capacitor in the sweeps (an ideal one when none is given). The transient checks midband
+  // levels: a 10 µF output capacitor there holds its charge over the run (RL·C ≥ 0.1 s); more collapses the time step.
+  if (c.load) lines.push(`CO ${input} lo ${analysis.kind === 'tran' ? '10u' : c.load.cc !== undefined ? g(c.load.cc) : '1'}`, `RL lo 0 ${g(c.load.rl)}`);
+  // The output is read across the load (across the last stage's own output with none).
+  lines.push(`EOUT ${nodes.output} 0 ${c.load ? 'lo' : input} 0 1`);
   const control =
     analysis.kind === 'op-ac'
       ? ['op', `print ${c.stages.map((_, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']

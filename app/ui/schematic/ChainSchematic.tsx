@@ -125,7 +125,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
     </Cell>
   ) : Number.isFinite(design.rl) ? (
     <g key="load">
-      <LoadCell x0={x} rl={design.rl} value={valuesOf('Load', () => undefined)} />
+      <LoadCell x0={x} rl={design.rl} cout={design.cout} value={valuesOf('Load', () => undefined)} />
     </g>
   ) : null;
   const width = x + (design.drivesOutput ? WIDTH.output : WIDTH.load);

@@ -29,7 +29,7 @@ export const LEAD_IN = 52;
  * before it shares that stage's rail and continues it.
  */
 const RAIL_GAP = 8;
-export const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 60 } as const;
+export const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 96 } as const;
 /** Where a cell's coupling capacitor ends and its grid leak stands, from the cell's left edge. */
 const CC_END = 36;
 const RG_X = 48;
@@ -56,11 +56,11 @@ function sameProps<P extends object>(a: P, b: P): boolean {
 }
 
 /** A capacitor across the cell's input at grid height, or a plain wire for direct coupling. */
-function Coupling({ x0, cc, value, field }: { x0: number; cc: number | null; value: ValueLabel; field: FieldName }) {
+function Coupling({ x0, cc, value, field, name = 'Cc' }: { x0: number; cc: number | null; value: ValueLabel; field: FieldName; name?: string }) {
   return cc === null ? <Wire points={[[x0, GRID], [x0 + CC_END, GRID]]} /> : (
     <>
       <Capacitor at={GRID} from={x0} to={x0 + CC_END} vertical={false} />
-      {value(field, 'Cc', x0 + 7, GRID - 16, farads(cc))}
+      {value(field, name, x0 + 7, GRID - 16, farads(cc))}
     </>
   );
 }
@@ -213,14 +213,16 @@ export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, 
   );
 }, sameProps);
 
-/** A resistive load after the last voltage stage (the RL box). */
-export const LoadCell = memo(function LoadCell({ x0, rl, value }: { x0: number; rl: number; value: ValueLabel }) {
+/** A resistive load after the last voltage stage (the RL box), through Cout (a wire when it is none). */
+export const LoadCell = memo(function LoadCell({ x0, rl, cout, value }: { x0: number; rl: number; cout: number | null; value: ValueLabel }) {
+  const x = x0 + CC_END + 24;
   return (
     <>
-      <Resistor x={x0 + 24} y1={GRID} y2={GROUND - 8} />
-      <Ground x={x0 + 24} y={GROUND} />
-      <Wire points={[[x0, GRID], [x0 + 24, GRID]]} />
-      {value('rl', 'RL', x0 + 34, GRID + 44, `RL ${ohms(rl)}`)}
+      <Coupling x0={x0} cc={cout} value={value} field="cout" name="Cout" />
+      <Resistor x={x} y1={GRID} y2={GROUND - 8} />
+      <Ground x={x} y={GROUND} />
+      <Wire points={[[x0 + CC_END, GRID], [x, GRID]]} />
+      {value('rl', 'RL', x + 10, GRID + 44, `RL ${ohms(rl)}`)}
     </>
   );
 }, sameProps);
