@@ -119,3 +119,16 @@ describe('the build sheet follows the output stage', () => {
     expect(after).not.toBeCloseTo(before, 6);
   });
 });
+
+describe("the amplifier's band without an output stage", () => {
+  it("takes Cout into RL: a line stage's output capacitor sets its low end (first-order high pass, Millman & Taub)", () => {
+    const store = createWorkbenchStore();
+    // 100 nF into 10k behind the last plate's output impedance: near 100 Hz, far above the other capacitors' corners.
+    store.getState().commit({ ...store.getState().design, drivesOutput: false, rl: 10e3, cout: 100e-9 });
+    const small = store.getState().amplifier!.result;
+    if (!small.ok) throw new Error(small.message);
+    const corner = 1 / (2 * Math.PI * (small.stages.at(-1)!.zout + 10e3) * 100e-9);
+    expect(small.lowHz!).toBeGreaterThan(0.97 * corner);
+    expect(small.lowHz!).toBeLessThan(1.01 * corner);
+  });
+});
