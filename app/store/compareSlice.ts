@@ -91,9 +91,9 @@ export const createCompareSlice: StateCreator<WorkbenchState, [], [], CompareSli
     const s = get();
     if (!s.rival.on || s.rival.mode !== 'own-values' || !s.rivalAnalysis?.ok) return;
     const tube = s.rivalAnalysis.tube;
-    const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
+    const reach = nearestReachable(tube, s.design.bplus, vpk, ia, s.design.rg);
     if (!reach.ok) return;
-    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia });
+    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia, rg: s.design.rg });
     if (!d.ok) return;
     const rival = { ...s.rival, ra: d.ra, rk: d.rk };
     const a = analyzeRival(s.design, s.registry, rival, s.rivalAnalysis, s.analysis.sheet.extent, true);

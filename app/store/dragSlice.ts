@@ -132,7 +132,7 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
       return;
     }
     const { tube, sheet } = s.analysis;
-    const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
+    const reach = nearestReachable(tube, s.design.bplus, vpk, ia, s.design.rg);
     if (!reach.ok) {
       set({ dragNote: reach.message });
       return;
@@ -141,7 +141,7 @@ export const createDragSlice: StateCreator<WorkbenchState, [], [], DragSlice> = 
     const region = s.keepInside && s.region?.result.ok && s.region.key === regionRequestOf(s)?.key ? s.region.result : null;
     const held = region ? nearestInside(region, reach.vpk, reach.ia) : null;
     const to = held ?? reach;
-    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: to.vpk, ia: to.ia });
+    const d = designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: to.vpk, ia: to.ia, rg: s.design.rg });
     if (!d.ok) {
       set({ dragNote: d.message });
       return;

@@ -24,8 +24,8 @@ export function warmDragPath(store: WorkbenchStore, rounds = WARM_ROUNDS): void 
     while (k < rounds && deadline.timeRemaining() > 2) {
       const vpk = solution.op.vpk * (1 + 0.25 * Math.sin(k / 7));
       const ia = solution.op.ia * (1 + 0.25 * Math.cos(k / 5));
-      const reach = nearestReachable(tube, s.design.bplus, vpk, ia);
-      const d = reach.ok ? designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia }) : reach;
+      const reach = nearestReachable(tube, s.design.bplus, vpk, ia, s.design.rg);
+      const d = reach.ok ? designAtPlanePoint({ tube, bplus: s.design.bplus, vpk: reach.vpk, ia: reach.ia, rg: s.design.rg }) : reach;
       if (d.ok) analyze({ ...s.design, ra: d.ra, rk: d.rk }, s.registry, s.analysis, sheet.extent, true, s.curveCount);
       k++;
     }

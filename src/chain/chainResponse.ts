@@ -13,7 +13,7 @@ import type { LinearStage } from './stageKind';
  */
 export interface ChainNetwork {
   readonly rsource: number;
-  readonly stages: readonly { readonly linear: LinearStage; readonly coupling: { readonly cc: number; readonly rg: number } | null }[];
+  readonly stages: readonly { readonly linear: LinearStage; readonly coupling: { readonly cc: number; readonly rg: number } | null; readonly gin?: number }[];
   /** Load on the last output, Ω (Infinity: none). */
   readonly rl: number;
   /** The load's coupling capacitor, F; null or absent: ideal (the output is then the last stage's own node). */
@@ -109,8 +109,10 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
   let previous2: number | null = null;
   let scale = 1;
   let spare = 1 + 3 * net.stages.length;
-  net.stages.forEach(({ linear: s, coupling }, i) => {
+  net.stages.forEach(({ linear: s, coupling, gin }, i) => {
     const [g, p, k] = [1 + 3 * i, 2 + 3 * i, 3 + 3 * i];
+    // The grid's current's slope at its bias, grid to cathode (it depends on Vgk alone).
+    if (gin !== undefined && gin > 0) stamp(g, k, gin, 0);
     const couple = (from: number, to: number) => {
       if (coupling === null) stamp(from, to, SHORT, 0);
       else {

@@ -40,15 +40,21 @@ export class ChainSignal {
   ) {
     this.samples = links.map(() => ({ vout: 0, vgk: 0, ia: 0, vout2: 0 }));
     this.lastIg = new Float64Array(links.length);
+    this.quiescentIg = links.map((l) => (l.gridLaw ? l.gridLaw(l.op.vgk) : 0));
   }
 
-  /** Each stage's grid current at the last instant solved, A: the next instant's first guess. */
+  /** Each grid's quiescent current, A: it flows through the grid's DC path (its leak), already in the operating point. */
+  private readonly quiescentIg: readonly number[];
+
+  /** Each stage's grid current above its quiescent value at the last instant solved, A: the next instant's first guess. */
   private readonly lastIg: Float64Array;
 
   /**
    * Stage i at an open-circuit grid swing v: the grid current's loop solved
-   * by Illinois on Ig (Ig − law(vgk at v − R·Ig) rises with Ig: one root);
-   * below the onset, where the loop is nearly linear, a step or two.
+   * by Illinois on its excess x over the quiescent current q, the part that
+   * flows through the driving impedance (x − (law(vgk at v − R·x) − q) rises
+   * with x: one root, between 0 and its open-circuit value; below q on the
+   * swing down); below the onset, where the loop is nearly linear, a step or two.
    */
   private drive(i: number, v: number, v2: number): LinkSample {
     const link = this.links[i]!;
@@ -57,27 +63,30 @@ export class ChainSignal {
     const law = link.gridLaw;
     const r = this.gridDrives[i]!;
     if (!law || !(r > 0)) return out;
-    const open = law(out.vgk);
-    if (!(open * r >= GRID_DROP_FLOOR)) return out;
+    const q = this.quiescentIg[i]!;
+    const open = law(out.vgk) - q;
+    const drop = Math.abs(open) * r;
+    if (!(drop >= GRID_DROP_FLOOR)) return out;
     // Below the onset the loop is nearly linear: one step at the open-circuit current is within 1.5·drop²/Vt of the root
-    // (1.6e-9 V at TINY_DROP); a secant step from (0, −Ig) and (Ig, its residual) is within 1e-7 V of it to SMALL_DROP.
-    if (open * r < SMALL_DROP) {
+    // (1.6e-9 V at TINY_DROP); a secant step from (0, −x) and (x, its residual) is within 1e-7 V of it to SMALL_DROP.
+    if (drop < SMALL_DROP) {
       link.sample(v - r * open, out, v2);
-      if (open * r < TINY_DROP) return out;
-      const f1 = open - law(out.vgk);
-      const ig = (open * open) / (f1 + open);
-      link.sample(v - r * ig, out, v2);
+      if (drop < TINY_DROP) return out;
+      const f1 = open - (law(out.vgk) - q);
+      const x = (open * open) / (f1 + open);
+      link.sample(v - r * x, out, v2);
       return out;
     }
-    const residual = (ig: number) => {
-      link.sample(v - r * ig, out, v2);
-      return ig - law(out.vgk);
+    const residual = (x: number) => {
+      link.sample(v - r * x, out, v2);
+      return x - (law(out.vgk) - q);
     };
-    // To 1e-7 V of the drop, or a ten-millionth of it deep in grid current; from the last instant's current when it is in the bracket.
+    // To 1e-7 V of the drop, or a ten-millionth of it deep in grid current; from the last instant's excess when it is in the bracket.
     const last = this.lastIg[i]!;
-    const ig = illinois(residual, 0, open, Math.max(GRID_DROP_FLOOR, 1e-7 * open * r) / r, { fa: -open, ...(last > 0 && last < open ? { start: last } : {}) });
-    this.lastIg[i] = ig;
-    link.sample(v - r * ig, out, v2);
+    const inside = open > 0 ? last > 0 && last < open : last < 0 && last > open;
+    const x = illinois(residual, 0, open, Math.max(GRID_DROP_FLOOR, 1e-7 * drop) / r, { fa: -open, ...(inside ? { start: last } : {}) });
+    this.lastIg[i] = x;
+    link.sample(v - r * x, out, v2);
     return out;
   }
 

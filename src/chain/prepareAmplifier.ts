@@ -1,3 +1,4 @@
+import { gainInto, gridConductance, loadedInput } from './gridConductance';
 import { fail, type Failure, type Result } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
@@ -61,7 +62,17 @@ export interface PreparedAmplifier {
   /** The stage that clips first, and the source peak where it does. */
   readonly first: number;
   readonly inputPeak: number;
+  /**
+   * The amplifier's small-signal gain at midband: the source divider and each
+   * stage's gain into the input it really drives (see `gains`).
+   */
   readonly gain: number;
+  /** Each stage's small-signal gain into the next grid's leak with that grid's current's slope (or the load), midband. */
+  readonly gains: readonly number[];
+  /** Each stage's input impedance at midband, Ω: its leak with its grid current's slope (Infinity: none). */
+  readonly inputs: readonly number[];
+  /** Each signal grid's small-signal conductance to its cathode, S (see gridConductance). */
+  readonly gridConductances: readonly number[];
   /** The output's fundamental (peak) at the clean limit, at CYCLE_SAMPLES points a cycle; computed once, on first asking. */
   readonly cleanFundamental: () => number;
 }
@@ -105,7 +116,14 @@ export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages
   const { links, zins } = solvedLinks;
   const rsource = input.source.rsource;
   const sourceShare = Number.isFinite(zins[0]!) ? zins[0]! / (zins[0]! + rsource) : 1;
-  const gain = links.reduce((g, l) => g * l.gain, sourceShare);
+  // Small signal: each grid's current has a slope at its bias (the retarding-field tail) that loads what drives it, less
+  // as its cathode follows; each stage's gain is taken into that input, through its output impedance.
+  const chainLoad = input.load?.rl ?? Infinity;
+  const loads = links.map((_, i) => (i + 1 < links.length ? zins[i + 1]! : chainLoad));
+  const inputs = links.map((l, i) => loadedInput(zins[i]!, l, loads[i]!));
+  const gains = links.map((l, i) => gainInto(l.gain, l.zout, loads[i]!, i + 1 < links.length ? inputs[i + 1]! : chainLoad));
+  const firstIn = inputs[0]!;
+  const gain = gains.reduce((g, x) => g * x, Number.isFinite(firstIn) ? firstIn / (firstIn + rsource) : 1);
   // What drives each grid, looking back from it: the stage before's output impedance (the source's for the first) in parallel with the leak.
   const gridDrives = links.map((_, i) => {
     const before = i === 0 ? rsource : links[i - 1]!.zout;
@@ -129,6 +147,6 @@ export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages
   // The clean limit's power and the check that a level is below it both read this: one cycle, shared.
   let clean: number | null = null;
   const cleanFundamental = () => (clean ??= harmonicAmplitudes(sineCycle(CYCLE_SAMPLES, inputPeak, (v) => signal.at(v)), 1)[1] ?? 0);
-  return { ok: true, links, signal, clips, first, inputPeak, gain, cleanFundamental };
+  return { ok: true, links, signal, clips, first, inputPeak, gain, gains, inputs, gridConductances: links.map(gridConductance), cleanFundamental };
 }
 

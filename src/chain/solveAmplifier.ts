@@ -41,8 +41,8 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
     outputDc: l.outputDc,
     supplyCurrent: l.supplyCurrent,
     ...(l.fullPowerCurrent !== undefined ? { fullPowerCurrent: l.fullPowerCurrent } : {}),
-    gain: l.gain,
-    zin: Number.isFinite(l.zin) ? l.zin : null,
+    gain: a.gains[i]!,
+    zin: Number.isFinite(a.inputs[i]!) ? a.inputs[i]! : null,
     zout: l.zout,
     clipsAt: clips[i] ?? null,
     headroomDb: clips[i] ? 20 * Math.log10(clips[i]!.inputPeak / inputPeak) : null,
@@ -71,7 +71,7 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
 export function networkOf(input: ChainInput, a: PreparedAmplifier): ChainNetwork {
   return {
     rsource: input.source.rsource,
-    stages: input.stages.map((s, i) => ({ linear: a.links[i]!.linear, coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null })),
+    stages: input.stages.map((s, i) => ({ linear: a.links[i]!.linear, coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null, gin: a.gridConductances[i]! })),
     rl: input.load?.rl ?? Infinity,
     loadCc: input.load?.cc ?? null,
   };

@@ -24,6 +24,13 @@ import type { OperatingPoint } from '../stage/solveStage';
  * real source goes on past the onset, compressing, as a real one does. (The
  * grid current's own share of an unbypassed Rk's drop is left out: below a
  * hundredth of the plate current at the onset.)
+ *
+ * The grid swings about where it really sits (op.vgk + op.vk: the bias less
+ * the grid's own quiescent current through its leak, as solveStage finds
+ * it). That quiescent current flows through the leak alone, the coupling
+ * capacitor holding its drop; only the current above it (or below it, on the
+ * swing down) flows through Rs ∥ Rg. So the grid's retarding-field current
+ * loads the source even at small signals, as its input conductance.
  */
 export interface TransferSample {
   readonly vin: number;
@@ -53,6 +60,7 @@ const GRID_DROP_FLOOR = 1e-7;
 
 export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfer {
   const p = modelOf(d.tube).params;
+  const vgrid = op.vgk + op.vk;
   const rPar = Number.isFinite(d.rl) ? (d.ra * d.rl) / (d.ra + d.rl) : d.ra;
   const drive = d.bplus / d.ra + (Number.isFinite(d.rl) ? op.va / d.rl : 0); // amperes: Norton source at the plate
   const degenerate = !d.bypassed && d.rk > 0;
@@ -72,7 +80,7 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
    */
   const solveIa = (vin: number): number => {
     if (!(iaHi > 0)) return 0;
-    const vgk0 = d.vbias + vin - (degenerate ? 0 : op.vk);
+    const vgk0 = vgrid + vin - (degenerate ? 0 : op.vk);
     const vpk0 = drive * rPar - (degenerate ? 0 : op.vk);
     let lo = 0;
     let hi = iaHi;
@@ -100,21 +108,26 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
   // What the grid sees looking back: the source and the grid leak in parallel (the leak alone carries no drop without a source).
   const rGrid = d.rsource > 0 ? (d.rg === null ? d.rsource : (d.rsource * d.rg) / (d.rsource + d.rg)) : 0;
 
+  // The grid's quiescent current, through the leak alone (the coupling capacitor holds its drop).
+  const quiescentIg = gridCurrent(model, op.vgk);
+
   /**
-   * The grid swing the tube really gets, from the open-circuit one: equal to
-   * it until the grid draws current, then less by Ig · (Rs ∥ Rg), found by
-   * Illinois on Ig (the residual Ig − Ig(grid) rises with Ig, so one root).
+   * The grid swing the tube really gets, from the open-circuit one: less by
+   * the grid current above its quiescent value times Rs ∥ Rg (more, on the
+   * swing down, where the current falls below it), found by Illinois on that
+   * excess x (the residual x − (Ig(grid) − Ig0) rises with x, so one root
+   * between 0 and its open-circuit value).
    */
   const gridSwing = (vin: number): number => {
     if (rGrid === 0) return vin;
     // With the cathode held (bypassed, or no Rk) the open-circuit grid needs no plate solve.
-    const open = gridCurrent(model, d.vbias + vin - (degenerate ? vkOf(solveIa(vin)) : op.vk));
-    if (open * rGrid < GRID_DROP_FLOOR) return vin;
+    const open = gridCurrent(model, vgrid + vin - (degenerate ? vkOf(solveIa(vin)) : op.vk)) - quiescentIg;
+    if (Math.abs(open) * rGrid < GRID_DROP_FLOOR) return vin;
     // The cathode's voltage at a trial grid current: held (no plate solve needed), or Ia·Rk with the plate solved there.
-    const vkAt = (ig: number) => (degenerate ? vkOf(solveIa(vin - rGrid * ig)) : op.vk);
-    const residual = (ig: number) => ig - gridCurrent(model, d.vbias + vin - rGrid * ig - vkAt(ig));
-    const ig = illinois(residual, 0, open, GRID_DROP_FLOOR / rGrid, { fa: -open });
-    return vin - rGrid * ig;
+    const vkAt = (x: number) => (degenerate ? vkOf(solveIa(vin - rGrid * x)) : op.vk);
+    const residual = (x: number) => x - (gridCurrent(model, vgrid + vin - rGrid * x - vkAt(x)) - quiescentIg);
+    const x = illinois(residual, 0, open, GRID_DROP_FLOOR / rGrid, { fa: -open });
+    return vin - rGrid * x;
   };
 
   return {
@@ -123,8 +136,8 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
       const ia = solveIa(v);
       const va = vaOf(ia);
       const vk = vkOf(ia);
-      const vgk = d.vbias + v - vk;
-      return { vin, vout: va - op.va, ia, vgk, vpk: va - vk, ig: rGrid > 0 ? (vin - v) / rGrid : gridCurrent(model, vgk), gridDrop: vin - v };
+      const vgk = vgrid + v - vk;
+      return { vin, vout: va - op.va, ia, vgk, vpk: va - vk, ig: rGrid > 0 ? quiescentIg + (vin - v) / rGrid : gridCurrent(model, vgk), gridDrop: vin - v };
     },
     outputs: (vins) => {
       const out = new Float64Array(vins.length);

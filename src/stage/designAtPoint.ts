@@ -1,3 +1,6 @@
+import { bracketedRoot } from '../numeric/bracketedRoot';
+import { formatValue } from '../parts/formatValue';
+import { gridCurrent } from '../tube/gridCurrent';
 import { gridVoltageForCurrent, korenPlateCurrent } from '../tube/koren';
 import { modelOf, type TubeLike } from '../tube/types';
 import { fail, type Result } from '../result';
@@ -8,6 +11,11 @@ import { checkNumber, checkTube, LIMITS } from './checkInput';
  * chart, (Vpk, Ia), which Ra and Rk put a cathode-biased stage there with the
  * given B+. At fixed Vpk the grid voltage that passes Ia is unique (Ip rises
  * with Vgk), so Vgk, Rk = −Vgk/Ia, Va = Vpk − Vgk and Ra = (B+ − Va)/Ia follow.
+ *
+ * With the grid returned through a leak `rg`, its own current there biases it
+ * lower by Ig·Rg (as solveStage solves it), so Rk sets the rest:
+ * Vk = −Vgk − Rg·Ig(Vgk). The highest grid a cathode-biased stage can then
+ * sit at is where the leak alone biases it (Rk = 0): leakLimit.
  */
 export interface PlanePointTarget {
   readonly tube: TubeLike;
@@ -16,6 +24,8 @@ export interface PlanePointTarget {
   readonly vpk: number;
   /** Plate current, A. */
   readonly ia: number;
+  /** The grid leak, Ω, whose drop from the grid's own current biases it; none: the grid held at 0 V. */
+  readonly rg?: number | null;
 }
 
 export interface PlanePointDesign {
@@ -41,18 +51,40 @@ export function designAtPlanePoint(t: PlanePointTarget): Result<PlanePointDesign
     checkNumber('vpk', 'Plate voltage', t.vpk, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
     checkNumber('ia', 'Plate current', t.ia, 'A', MIN_DRAG_IA, 100);
   if (problem) return problem;
-  const p = modelOf(t.tube).params;
-  const iaAtZeroGrid = korenPlateCurrent(p, t.vpk, 0);
-  if (t.ia > iaAtZeroGrid) {
-    return fail('grid-current', `At ${t.vpk.toFixed(0)} V the tube passes at most ${(iaAtZeroGrid * 1e3).toFixed(2)} mA before its grid goes positive.`, 'ia');
+  const model = modelOf(t.tube);
+  const p = model.params;
+  const rg = t.rg ?? null;
+  const top = leakLimit(t.tube, rg);
+  const iaAtTop = korenPlateCurrent(p, t.vpk, top);
+  if (t.ia > iaAtTop * (1 + BOUNDARY_SLACK)) {
+    const most = `At ${t.vpk.toFixed(0)} V the tube passes at most ${(iaAtTop * 1e3).toFixed(2)} mA`;
+    return fail(
+      'grid-current',
+      top < 0 ? `${most} with cathode bias: its grid's own current through its ${formatValue(rg!, 'Ω')} leak holds it at ${top.toFixed(2)} V or below.` : `${most} before its grid goes positive.`,
+      'ia',
+    );
   }
-  const vgk = gridVoltageForCurrent(p, t.vpk, t.ia);
-  const va = t.vpk - vgk;
+  const vgk = Math.min(gridVoltageForCurrent(p, t.vpk, t.ia), top);
+  const vk = Math.max(0, -vgk - (rg !== null && rg > 0 ? rg * gridCurrent(model, vgk) : 0));
+  const va = t.vpk + vk;
   const ra = (t.bplus - va) / t.ia;
   if (!(ra >= MIN_DRAG_RA * (1 - BOUNDARY_SLACK))) {
     return fail('supply-too-low', `With B+ at ${t.bplus.toFixed(0)} V the plate cannot sit at ${va.toFixed(0)} V with ${(t.ia * 1e3).toFixed(2)} mA: the load line ends at B+.`, 'vpk');
   }
-  return { ok: true, ra, rk: -vgk / t.ia, vgk, va };
+  return { ok: true, ra, rk: vk / t.ia, vgk, va };
+}
+
+/**
+ * The highest Vgk a cathode-biased grid returned through `rg` can sit at, V:
+ * where its own current through the leak alone biases it (Vgk + Rg·Ig = 0,
+ * Rk = 0); 0 V with no leak. Ig rises with Vgk, so one root below 0.
+ */
+export function leakLimit(tube: TubeLike, rg: number | null): number {
+  if (rg === null || !(rg > 0) || !Number.isFinite(rg)) return 0;
+  const model = modelOf(tube);
+  const f = (vgk: number) => vgk + rg * gridCurrent(model, vgk);
+  if (!(f(0) > 0)) return 0;
+  return bracketedRoot(f, -10, 0, 1e-9).x;
 }
 
 /** Where a drag may go: the asked point if reachable, else the nearest reachable one, with the reason. */
@@ -70,14 +102,18 @@ export interface ReachablePoint {
  * and not below MIN_DRAG_IA. Each limit is a monotonic boundary, found by
  * bisection, so the answer is always on the reachable side.
  */
-export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia: number): Result<ReachablePoint> {
+export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia: number, rg: number | null = null): Result<ReachablePoint> {
   const problem =
     checkTube(tube) ??
     checkNumber('bplus', 'B+', bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
     checkNumber('vpk', 'Plate voltage', vpk, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
     checkNumber('ia', 'Plate current', ia, 'A', -100, 100);
   if (problem) return problem;
-  const p = modelOf(tube).params;
+  const model = modelOf(tube);
+  const p = model.params;
+  const gridTop = leakLimit(tube, rg);
+  // The cathode's voltage at a grid voltage: what Rk must drop once the leak has dropped its share.
+  const cathodeAt = (vgk: number) => Math.max(0, -vgk - (rg !== null && rg > 0 ? rg * gridCurrent(model, vgk) : 0));
   let reason: string | null = null;
   let v = Math.min(Math.max(vpk, 0.5), bplus);
   let i = Math.max(ia, MIN_DRAG_IA);
@@ -87,16 +123,19 @@ export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia:
   // them in turn until both hold. Each pass moves strictly inward.
   for (let pass = 0; pass < 8; pass++) {
     let moved = false;
-    // Grid current: above the 0 V curve. Drop straight down onto it.
-    const top = korenPlateCurrent(p, v, 0) * (1 - BOUNDARY_SLACK);
+    // Grid current: above the 0 V curve (or, through a leak, the curve where the leak alone biases the grid). Drop straight down onto it.
+    const top = korenPlateCurrent(p, v, gridTop) * (1 - BOUNDARY_SLACK);
     if (i > top) {
-      reason = `Above the 0 V grid curve the grid would draw current: at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`;
+      reason =
+        gridTop < 0
+          ? `Above the ${gridTop.toFixed(2)} V grid curve the grid would draw current: its own current through Rg biases it there with no Rk, so at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`
+          : `Above the 0 V grid curve the grid would draw current: at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`;
       i = Math.max(top, MIN_DRAG_IA);
       moved = true;
     }
     // The plate must stay below B+ by at least Ia·MIN_DRAG_RA: Va = Vpk − Vgk(Vpk, Ia) rises with Vpk.
     const current = i;
-    const vaAt = (vv: number) => vv - gridVoltageForCurrent(p, vv, current);
+    const vaAt = (vv: number) => vv + cathodeAt(gridVoltageForCurrent(p, vv, current));
     const vaMax = bplus - i * MIN_DRAG_RA * (1 + BOUNDARY_SLACK);
     if (vaAt(v) > vaMax) {
       let lo = 0;

@@ -8,6 +8,9 @@ import { solveLoop } from './operatingPoint';
 import { parallel } from './parallel';
 import { CUTOFF_CURRENT_A, type OperatingPoint } from './solveStage';
 
+/** How far past 0 V a follower's grid may solve, V, and still be at its cathode: the loop's own rounding (its tolerance is 1e-12 of Ia). */
+const GRID_AT_CATHODE_ROUNDING = 1e-9;
+
 /** A direct-coupled cathode follower: plate at B+, grid at vgrid (the previous plate), Rk to ground. */
 export interface FollowerDesign {
   readonly tube: TubeLike;
@@ -54,7 +57,8 @@ export function solveFollower(design: FollowerDesign): Result<FollowerSolution> 
   const model = modelOf(design.tube);
   const loop = solveLoop(model, design.bplus, 0, design.rk, design.vgrid);
   if (!loop.converged) return fail('no-convergence', 'The follower operating point could not be found to full accuracy; check the values.');
-  if (loop.vgk > 0) {
+  // A follower held where its grid meets its cathode (a drag's limit) solves to within rounding of 0 V either side.
+  if (loop.vgk > GRID_AT_CATHODE_ROUNDING) {
     return fail('grid-current', `The follower's grid would sit ${loop.vgk.toFixed(2)} V positive to its cathode and draw current: raise its Rk.`, 'rk');
   }
   if (loop.ia < CUTOFF_CURRENT_A) {

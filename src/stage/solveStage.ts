@@ -48,7 +48,7 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
   const d = normalizeStage(design);
   if (!d.ok) return d;
   const model = modelOf(d.tube);
-  const loop = solveLoop(model, d.bplus, d.ra, d.rk, d.vbias);
+  const loop = solveLoop(model, d.bplus, d.ra, d.rk, d.vbias, d.rg);
   if (!loop.converged) return fail('no-convergence', 'The operating point could not be found to full accuracy; check the values.');
   if (loop.vgk > 0) {
     return fail('grid-current', `The grid would sit ${loop.vgk.toFixed(2)} V positive to the cathode and draw current: make the grid bias more negative or raise Rk.`, 'vbias');

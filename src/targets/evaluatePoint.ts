@@ -61,7 +61,7 @@ const unreachable = UNREACHABLE_VERDICT;
  * target, the costly ones (swing, THD) only when a target needs them.
  */
 export function evaluatePoint(stage: RegionStage, targets: Targets, active: readonly TargetName[], vpk: number, ia: number): PointVerdict {
-  const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia });
+  const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia, rg: stage.rg ?? 1e6 });
   if (!at.ok) return unreachable;
   const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6 };
   return judgeStage(design, targets, active);

@@ -100,6 +100,21 @@ const chains: { label: string; chain: ChainInput; levelShare: number }[] = [
     },
     levelShare: 0.6,
   },
+  {
+    // A 12AX7 biased near −1 V behind a 250k source (a volume control near its middle): the grid's retarding-field
+    // current biases it through its leak at DC and, by its slope, loads the source at midband (gain −2.9 dB and the
+    // plate 3.7 % off when left out).
+    label: 'a 12AX7 near −1 V grid from a 250k source, into a 12AU7',
+    chain: {
+      source: { rsource: 250e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, ck: 220e-6, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+        { kind: 'common-cathode', tube: au7, bplus: 250, ra: 47e3, rk: 1500, bypassed: true, ck: 220e-6, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+      ],
+      load: { rl: 1e6 },
+    },
+    levelShare: 0.6,
+  },
 ];
 
 const dB = (x: number) => 20 * Math.log10(x);

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { designAtPlanePoint, findTube, gridVoltageAt, nearestReachable, plateCurrent, solveStage, tubeLibrary, tubeSummary } from '../../src/index';
+import { designAtPlanePoint, findTube, gridCurrent, gridVoltageAt, modelOf, nearestReachable, plateCurrent, solveStage, tubeLibrary, tubeSummary } from '../../src/index';
+import { leakLimit } from '../../src/stage/designAtPoint';
 import { expectClose } from '../helpers/expectClose';
 
 const au7 = findTube('12AU7')!;
@@ -16,6 +17,28 @@ describe('designAtPlanePoint (the design under the pointer)', () => {
       expectClose(s.op.ia, ia, { rel: 1e-3 }, 'ia');
       expectClose(d.va, s.op.va, { rel: 1e-3 }, 'va');
     }
+  });
+
+  it('through a grid leak, the design the stage really sits at: its own grid current biases it by Ig·Rg (Ohm\'s law), Rk the rest', () => {
+    const ax7 = findTube('12AX7')!;
+    for (const [vpk, ia] of [[140, 0.85e-3], [180, 0.6e-3], [200, 0.5e-3]] as const) {
+      const d = designAtPlanePoint({ tube: ax7, bplus: 250, vpk, ia, rg: 1e6 });
+      if (!d.ok) throw new Error(d.message);
+      const s = solveStage({ tube: ax7, bplus: 250, ra: d.ra, rk: d.rk, rg: 1e6 });
+      if (!s.ok) throw new Error(s.message);
+      expectClose(s.op.vpk, vpk, { rel: 1e-3 }, 'vpk');
+      expectClose(s.op.ia, ia, { rel: 1e-3 }, 'ia');
+    }
+    // The highest grid a cathode-biased stage reaches through 1 MΩ: where the leak alone biases it (Rk = 0).
+    const top = leakLimit(ax7, 1e6);
+    expectClose(top, -1e6 * gridCurrent(modelOf(ax7), top), { abs: 1e-8 }, 'Vgk = −Rg·Ig');
+    expect(top).toBeLessThan(-0.3);
+    const above = designAtPlanePoint({ tube: ax7, bplus: 250, vpk: 100, ia: plateCurrent(ax7, 100, top) * 1.05, rg: 1e6 });
+    expect(above).toMatchObject({ ok: false, reason: 'grid-current' });
+    if (!above.ok) expect(above.message).toMatch(/through its 1 MΩ leak holds it at -0\.\d\d V or below\.$/);
+    const reach = nearestReachable(ax7, 250, 100, 0.05, 1e6);
+    if (!reach.ok) throw new Error(reach.message);
+    expectClose(reach.ia, plateCurrent(ax7, 100, top), { rel: 1e-5 }, 'held on the leak\'s curve');
   });
 
   it('refuses a point above the 0 V grid curve, saying what the tube can pass there', () => {

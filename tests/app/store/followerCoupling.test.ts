@@ -30,7 +30,7 @@ describe('a capacitor-coupled cathode follower', () => {
     if (!own.ok) throw new Error(own.message);
     expectClose(link.op.vk, own.op.vk, { rel: 1e-9 }, 'the follower on its own bias');
     // The gain stage's plate drives the follower's 1 MΩ leak: its gain is the stage's into that load.
-    const first = solveStage({ tube: s.analysis.tube, bplus: s.design.bplus, ra: s.design.ra, rk: s.design.rk, bypassed: s.design.bypassed, rl: 1e6 });
+    const first = solveStage({ tube: s.analysis.tube, bplus: s.design.bplus, ra: s.design.ra, rk: s.design.rk, bypassed: s.design.bypassed, rl: 1e6, rg: s.design.rg });
     expectClose(s.analysis.solution.gain, first.ok ? first.gain : NaN, { rel: 1e-9 }, 'stage gain into the leak');
     // The amplifier holds it as a capacitor-coupled follower, its grid at its bias.
     const chain = chainInputOf(s.design, s.registry)!;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { E24, findTube, plateCurrent, solveStage } from '../../../src/index';
+import { E24, findTube, gridCurrent, modelOf, plateCurrent, solveStage } from '../../../src/index';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { TYPING_SETTLE_MS } from '../../../app/store/designSlice';
 import { expectClose } from '../../helpers/expectClose';
@@ -65,7 +65,7 @@ describe('workbench store', () => {
     const s = store.getState();
     expect(s.design.ra).toBe(68e3);
     expect(s.errors.ra).toBeUndefined();
-    const direct = solveStage({ tube: findTube('12AU7')!, bplus: 275, ra: 68e3, rk: 1200, rl: 220e3 });
+    const direct = solveStage({ tube: findTube('12AU7')!, bplus: 275, ra: 68e3, rk: 1200, rl: 220e3, rg: s.design.rg });
     expect(direct.ok && s.analysis.solution.op).toEqual(direct.ok && direct.op);
   });
 
@@ -96,13 +96,20 @@ describe('workbench store', () => {
     expectClose(plateCurrent(findTube('12AU7')!, op.vpk, op.vgk), op.ia, { rel: 1e-6 });
   });
 
-  it('a drag past the 0 V grid curve stops on it and says why', () => {
+  it('a drag past the grid-current limit stops on it and says why: with a 1 MΩ leak, where the leak alone biases the grid', () => {
     const store = createWorkbenchStore();
     store.getState().beginDrag('point');
     store.getState().dragPointTo(100, 0.05);
     expect(store.getState().dragNote).toMatch(/grid would draw current/);
     const op = store.getState().analysis.solution.op;
-    expectClose(op.ia, plateCurrent(findTube('12AU7')!, op.vpk, 0), { rel: 1e-3 });
+    const tube = findTube('12AU7')!;
+    // Rk all but gone: the grid's own current through its 1 MΩ leak biases it (Ohm's law), a little below 0 V.
+    const rg = store.getState().design.rg;
+    expect(rg).toBe(1e6);
+    expect(op.vk).toBeLessThan(0.02);
+    expectClose(op.vgk + op.vk, -rg * gridCurrent(modelOf(tube), op.vgk), { rel: 1e-6 }, 'grid = −Ig·Rg');
+    expect(op.vgk).toBeLessThan(0);
+    expectClose(op.ia, plateCurrent(tube, op.vpk, op.vgk), { rel: 1e-3 });
   });
 
   it('a keyboard nudge changes Ra and Rk, and settling it snaps them like a drag release', () => {

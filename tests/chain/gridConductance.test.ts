@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest';
+import { cathodeShare, gainInto } from '../../src/chain/gridConductance';
+import type { LinearStage } from '../../src/chain/stageKind';
+import { NO_CAPACITANCES } from '../../src/chain/noCapacitances';
+import { amplifierAtLevel, findTube, gridCurrent, modelOf, solveChain, solveStage, type ChainInput } from '../../src/index';
+import { expectClose } from '../helpers/expectClose';
+
+// Our own small-signal values (a 12AU7-like triode): mu = gm·rp = 17.
+const gm = 2.2e-3;
+const rp = 7.7e3;
+const mu = gm * rp;
+const stage = (over: Partial<LinearStage>): LinearStage => ({
+  gm, rp, plateLoad: 47e3, rk: 1500, ck: null, cathodeGrounded: false, gScreen: 0, caps: NO_CAPACITANCES, output: 'plate', outputScale: 1, ...over,
+});
+
+describe('how far the cathode follows the grid (the bootstrap of the grid\'s own current)', () => {
+  it('a cathode follower: its gain, mu·R/(rp + (mu + 1)·R) with R = Rk ∥ RL (Langford-Smith, RDH4 ch. 12)', () => {
+    const r = (22e3 * 100e3) / (22e3 + 100e3);
+    expectClose(cathodeShare(stage({ plateLoad: 0, rk: 22e3, output: 'cathode' }), 100e3), (mu * r) / (rp + (mu + 1) * r), { rel: 1e-12 });
+  });
+
+  it('an unbypassed stage: Rk·i with i = mu·vg/(rp + Ra′ + (mu + 1)·Rk), Ra′ = Ra ∥ RL (Millman & Halkias, the degenerated stage)', () => {
+    const ra = (47e3 * 470e3) / (47e3 + 470e3);
+    expectClose(cathodeShare(stage({}), 470e3), (mu * 1500) / (rp + ra + (mu + 1) * 1500), { rel: 1e-12 });
+  });
+
+  it('a bypassed cathode does not follow at midband', () => {
+    expect(cathodeShare(stage({ ck: 100e-6 }), 470e3)).toBe(0);
+    expect(cathodeShare(stage({ cathodeGrounded: true }), 470e3)).toBe(0);
+  });
+
+  it('a gain into another load through the output impedance (Thévenin)', () => {
+    // Open-circuit gain 60 behind 40k: 60·100/140 into 100k, 60·50/90 into 50k.
+    expectClose(gainInto((60 * 100e3) / 140e3, 40e3, 100e3, 50e3), (60 * 50e3) / 90e3, { rel: 1e-12 });
+    expectClose(gainInto(60, 40e3, Infinity, 50e3), (60 * 50e3) / 90e3, { rel: 1e-12 });
+  });
+});
+
+describe('grid-leak bias: the grid\'s own current through its leak', () => {
+  const ax7 = findTube('12AX7')!;
+  it('holds the grid at −Ig·Rg (Ohm\'s law), moving a 12AX7 near −1 V by tens of millivolts', () => {
+    const held = solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 820, rg: 1e6 });
+    const ideal = solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 820 });
+    if (!held.ok || !ideal.ok) throw new Error('solves');
+    const grid = held.op.vgk + held.op.vk;
+    expectClose(grid, -1e6 * gridCurrent(modelOf(ax7), held.op.vgk), { rel: 1e-6 }, 'grid = −Ig·Rg');
+    expect(grid).toBeLessThan(-0.01);
+    expect(held.op.ia).toBeLessThan(ideal.op.ia);
+  });
+
+  it('a stage biased well below the onset is not moved', () => {
+    const held = solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 2700, rg: 1e6 });
+    const ideal = solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 2700 });
+    if (!held.ok || !ideal.ok) throw new Error('solves');
+    expectClose(held.op.ia, ideal.op.ia, { rel: 1e-6 });
+  });
+
+  it('the amplifier\'s small-signal gain agrees with its large-signal transfer at a small level, the grid\'s slope in both', () => {
+    const au7 = findTube('12AU7')!;
+    const chain: ChainInput = {
+      source: { rsource: 250e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+        { kind: 'common-cathode', tube: au7, bplus: 250, ra: 47e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+      ],
+    };
+    const r = solveChain(chain);
+    if (!r.ok) throw new Error(r.message);
+    // The first grid's input: well under its 1 MΩ leak at this bias.
+    expect(r.stages[0]!.zin!).toBeLessThan(0.5e6);
+    expect(r.stages[0]!.zin!).toBeGreaterThan(0.2e6);
+    // A thousandth of the clean output: the transfer, grid current solved at every instant, is all but linear there.
+    const small = amplifierAtLevel(chain, { outputRms: r.output.rms / 1000 });
+    if (!small.ok) throw new Error(small.message);
+    expectClose(Math.abs(r.gain), small.output.rms / small.input.rms, { rel: 0.005 }, 'small-signal against large-signal gain');
+  });
+});
