@@ -12,6 +12,7 @@ export type FindingKind =
   | 'grid-current'
   | 'no-grid-bias'
   | 'grid-current-onset'
+  | 'grid-leak-bias'
   | 'grid-resistor'
   | 'cathode-current'
   | 'screen-dissipation'

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { cathodeShare, gainInto } from '../../src/chain/gridConductance';
 import type { LinearStage } from '../../src/chain/stageKind';
 import { NO_CAPACITANCES } from '../../src/chain/noCapacitances';
-import { amplifierAtLevel, findTube, gridCurrent, modelOf, solveChain, solveStage, type ChainInput } from '../../src/index';
+import { amplifierAtLevel, findTube, gridCurrent, gridVoltageAt, modelOf, solveChain, solveStage, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own small-signal values (a 12AU7-like triode): mu = gm·rp = 17.
@@ -73,5 +73,38 @@ describe('grid-leak bias: the grid\'s own current through its leak', () => {
     const small = amplifierAtLevel(chain, { outputRms: r.output.rms / 1000 });
     if (!small.ok) throw new Error(small.message);
     expectClose(Math.abs(r.gain), small.output.rms / small.input.rms, { rel: 0.005 }, 'small-signal against large-signal gain');
+  });
+});
+
+describe("a capacitor-coupled follower's grid through its leak", () => {
+  const ax7 = findTube('12AX7')!;
+  const au7 = findTube('12AU7')!;
+  const chainWith = (tube: typeof ax7, rk: number) =>
+    solveChain({
+      source: { rsource: 1e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 275, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 470e-9, rg: 1e6 } },
+        { kind: 'follower', tube, bplus: 275, rk, vbias: 138, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+      ],
+    });
+
+  it('is warned with the shift its own current would make through the leak (Ohm\'s law), where that moves the cathode past 1 %', () => {
+    // A 12AX7 asked for 2.9 mA through 47k: its grid sits near its cathode and draws microamps.
+    const r = chainWith(ax7, 47e3);
+    if (!r.ok) throw new Error(r.message);
+    const f = r.stages[1]!.findings.find((x) => x.kind === 'grid-leak-bias');
+    expect(f?.severity).toBe('warning');
+    // Where the leak holds it, the tube's curves and Ohm's law at the leak agree: the cathode at Vk′ = Vk − shift passes
+    // Vk′/Rk, the curves give the Vgk′ for that current, and 138 V − (Vgk′ + Vk′) is Rg·Ig(Vgk′).
+    const vk = r.stages[1]!.op.vk - f!.value;
+    const vgk = gridVoltageAt(ax7, 275 - vk, vk / 47e3)!;
+    expectClose(138 - (vgk + vk), 1e6 * gridCurrent(modelOf(ax7), vgk), { rel: 2e-3 }, 'the leak\'s drop');
+    expect(f!.message).toMatch(/^Its grid draws [\d.]+ µA at rest .* about [\d.]+ V below the 138 V its divider gives/);
+  });
+
+  it('is quiet for a follower biased well below the onset', () => {
+    const r = chainWith(au7, 22e3);
+    if (!r.ok) throw new Error(r.message);
+    expect(r.stages[1]!.findings.some((x) => x.kind === 'grid-leak-bias')).toBe(false);
   });
 });
