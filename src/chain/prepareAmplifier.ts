@@ -1,7 +1,7 @@
-import { gainInto, gridConductance, loadedInput } from './gridConductance';
 import { fail, type Failure, type Result } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
+import { gainInto, gridConductance, loadedInput } from './gridConductance';
 import { harmonicAmplitudes } from '../signal/fft';
 import { sineCycle } from '../signal/sineCycle';
 import { OUTPUT_KINDS, SPLITTER_KINDS, type ChainInput, type ChainStage, type ClipCause } from './chainTypes';
