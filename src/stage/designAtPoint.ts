@@ -60,7 +60,7 @@ export function designAtPlanePoint(t: PlanePointTarget): Result<PlanePointDesign
     const most = `At ${t.vpk.toFixed(0)} V the tube passes at most ${(iaAtTop * 1e3).toFixed(2)} mA`;
     return fail(
       'grid-current',
-      top < 0 ? `${most} with cathode bias: its grid's own current through its ${formatValue(rg!, 'Ω')} leak holds it at ${top.toFixed(2)} V or below.` : `${most} before its grid goes positive.`,
+      top < 0 ? `${most} with cathode bias: its grid's own current through its ${formatValue(rg!, 'Ω')} leak holds it ${(-top).toFixed(2)} V or more below its cathode.` : `${most} before its grid goes positive.`,
       'ia',
     );
   }
@@ -128,7 +128,7 @@ export function nearestReachable(tube: TubeLike, bplus: number, vpk: number, ia:
     if (i > top) {
       reason =
         gridTop < 0
-          ? `Above the ${gridTop.toFixed(2)} V grid curve the grid would draw current: its own current through Rg biases it there with no Rk, so at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`
+          ? `Above the curve with the grid ${(-gridTop).toFixed(2)} V below its cathode the grid would draw current: its own current through Rg biases it that far with no Rk, so at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`
           : `Above the 0 V grid curve the grid would draw current: at ${v.toFixed(0)} V the tube passes at most ${(top * 1e3).toFixed(2)} mA.`;
       i = Math.max(top, MIN_DRAG_IA);
       moved = true;

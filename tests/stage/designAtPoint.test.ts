@@ -35,7 +35,7 @@ describe('designAtPlanePoint (the design under the pointer)', () => {
     expect(top).toBeLessThan(-0.3);
     const above = designAtPlanePoint({ tube: ax7, bplus: 250, vpk: 100, ia: plateCurrent(ax7, 100, top) * 1.05, rg: 1e6 });
     expect(above).toMatchObject({ ok: false, reason: 'grid-current' });
-    if (!above.ok) expect(above.message).toMatch(/through its 1 MΩ leak holds it at -0\.\d\d V or below\.$/);
+    if (!above.ok) expect(above.message).toMatch(/through its 1 MΩ leak holds it 0\.\d\d V or more below its cathode\.$/);
     const reach = nearestReachable(ax7, 250, 100, 0.05, 1e6);
     if (!reach.ok) throw new Error(reach.message);
     expectClose(reach.ia, plateCurrent(ax7, 100, top), { rel: 1e-5 }, 'held on the leak\'s curve');
