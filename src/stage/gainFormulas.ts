@@ -20,9 +20,13 @@ export function commonCathodeZout(mu: number, rp: number, ra: number, rk: number
   return parallel(ra, rp + (bypassed ? 0 : (mu + 1) * rk));
 }
 
-/** Cathode voltage over grid voltage of an unbypassed stage (the part of vg that Cgk does not see). */
+/**
+ * Cathode voltage over grid voltage of an unbypassed stage (the part of vg
+ * that Cgk does not see): the plate current mu·vg/(rp + RL + (mu+1)·Rk)
+ * through Rk, as a cathode follower's gain (Langford-Smith, RDH4 ch. 12).
+ */
 export function cathodeFollowing(mu: number, rp: number, rLoad: number, rk: number): number {
-  return ((mu + 1) * rk) / (rp + rLoad + (mu + 1) * rk);
+  return (mu * rk) / (rp + rLoad + (mu + 1) * rk);
 }
 
 /**

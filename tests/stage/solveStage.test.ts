@@ -87,6 +87,14 @@ describe('solveStage', () => {
     expect(s.cin).toBeGreaterThan(50e-12); // a 12AX7 at gain ~60: ~100 pF, the reason high-mu stages lose treble (common practice)
   });
 
+  it('unbypassed, Cgk sees only the grid\'s swing over the cathode: Cgk·(1 − Ak) with Ak = μ·Rk/(rp + Ra′ + (μ + 1)·Rk), the cathode follower\'s gain (Langford-Smith, RDH4 ch. 12)', () => {
+    const s = ok<StageSolution>(solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 1500, bypassed: false, rl: 470e3 }));
+    const { cgk, cgp } = ax7.capacitances;
+    const raLoaded = (100e3 * 470e3) / (100e3 + 470e3);
+    const ak = (s.mu * 1500) / (s.rp + raLoaded + (s.mu + 1) * 1500);
+    expectClose(s.cin, cgk * (1 - ak) + cgp * (1 + Math.abs(s.gain)), { rel: 1e-9 });
+  });
+
   it('reports the grid swing left to grid current and to cutoff', () => {
     const s = ok<StageSolution>(solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 1500 }));
     expectClose(s.toGridCurrent, -0.7 - s.op.vgk, { rel: 1e-12 }); // to the onset of grid current, not to 0 V
