@@ -114,6 +114,9 @@ export function supplyPartsList(d: SupplyDesign, solved: SolvedSupply, bleeder: 
   return { ok: true, resistors, capacitors, chokes, rectifier: { kind: d.rectifier.kind, piv, pivHighMains, diodeVolts, peakAmps: s.rectifierPeak, rmsAmps: s.rectifierRms } };
 }
 
+/** Below this a bleeder is a slip, not a part (its power across the reservoir would overflow), Ω. */
+const MIN_BLEEDER_OHMS = 1;
+
 const finiteAtLeast = (min: number) => (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x) && x >= min;
 
 /** Why a design and its solution cannot be listed, or null: every part a finite, positive value and one voltage and load per node. */
@@ -129,7 +132,7 @@ function shapeProblem(d: SupplyDesign, solved: SolvedSupply, bleeder: NeededBlee
   if (!s || !Array.isArray(s.nodes) || s.nodes.length !== nodes || !Array.isArray(solved.loads) || solved.loads.length !== nodes) return `The supply's solution must give one voltage and one load per node (${nodes})`;
   if (!s.nodes.every((n) => typeof n === 'object' && n !== null && finiteAtLeast(0)(n.dc) && finiteAtLeast(0)(n.capacitorRippleRms)) || !solved.loads.every(finiteAtLeast(0))) return 'Every node\'s voltage, ripple current and load must be finite and not negative';
   if (!positive(s.noLoadVolts) || !finiteAtLeast(0)(s.rectifierPeak) || !finiteAtLeast(0)(s.rectifierRms)) return 'The solution must give the no-load voltage and the rectifier\'s currents';
-  if (bleeder !== null && (typeof bleeder !== 'object' || !positive(bleeder.ohms) || !finiteAtLeast(0)(bleeder.watts) || !finiteAtLeast(0)(bleeder.partWatts))) return 'The bleeder must give its resistance and power';
+  if (bleeder !== null && (typeof bleeder !== 'object' || !finiteAtLeast(MIN_BLEEDER_OHMS)(bleeder.ohms) || !finiteAtLeast(0)(bleeder.watts) || !finiteAtLeast(0)(bleeder.partWatts))) return `The bleeder must give its resistance (at least ${MIN_BLEEDER_OHMS} Ω) and power`;
   return null;
 }
 

@@ -91,6 +91,8 @@ describe("the supply's parts to order", () => {
     expect(line.preferred).toBe(b.ohms);
     expect(line.ratingWatts).toBe(b.partWatts);
     expectClose(line.watts, solved.supply.nodes[0]!.dc ** 2 / b.ohms, { rel: 1e-12 }, 'running');
+    // A bleeder of next to nothing is a slip, not a part: refused (found by the robustness run: its power came out infinite).
+    expect(supplyPartsList(base, solved, { ...b, ohms: 1e-300 })).toMatchObject({ ok: false, message: expect.stringMatching(/bleeder/) });
   });
 
   it('a solution that does not match the design is a typed failure, not a throw', () => {
