@@ -1,10 +1,5 @@
+import { gridSlope, MIN_GRID_CONDUCTANCE } from '../tube/gridCurrent';
 import type { LinearStage, SolvedLink } from './stageKind';
-
-/** Below this, S (a teraohm: more than the leakage of any board or socket, common practice), a grid's slope is left out. */
-const MIN_CONDUCTANCE = 1e-12;
-
-/** Half the step of the grid law's central difference, V: far below the tail's thermal volt, far above rounding. */
-const STEP = 1e-4;
 
 /**
  * A grid's small-signal input conductance at its operating point, S: the
@@ -15,10 +10,7 @@ const STEP = 1e-4;
  * stage whose grid current the chain does not follow.
  */
 export function gridConductance(link: SolvedLink): number {
-  const law = link.gridLaw;
-  if (!law) return 0;
-  const g = (law(link.op.vgk + STEP) - law(link.op.vgk - STEP)) / (2 * STEP);
-  return Number.isFinite(g) && g > 0 ? g : 0;
+  return link.gridLaw ? gridSlope(link.gridLaw, link.op.vgk) : 0;
 }
 
 /**
@@ -54,7 +46,7 @@ export function cathodeShare(s: LinearStage, load: number): number {
  */
 export function loadedInput(zin: number, link: SolvedLink, load: number): number {
   const g = gridConductance(link) * (1 - cathodeShare(link.linear, load));
-  if (!(g > MIN_CONDUCTANCE)) return zin;
+  if (!(g > MIN_GRID_CONDUCTANCE)) return zin;
   const r = 1 / g;
   return Number.isFinite(zin) ? (zin * r) / (zin + r) : r;
 }

@@ -1,4 +1,4 @@
-import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
+import { GRID_CURRENT_ONSET, gridCurrent, gridSlope, MIN_GRID_CONDUCTANCE } from '../tube/gridCurrent';
 import { CUTOFF_FRACTION, gridVoltageForCurrent } from '../tube/koren';
 import { smallSignalAt } from '../tube/triode';
 import { modelOf, recordOf } from '../tube/types';
@@ -27,6 +27,13 @@ export interface StageSolution {
   /** The gain with Rk bypassed and unbypassed, whichever the design uses, for comparison. */
   readonly gainBypassed: number;
   readonly gainUnbypassed: number;
+  /**
+   * Input resistance at midband, Ω: the grid leak in parallel with the grid
+   * current's slope at the bias, as far as the cathode does not follow (a
+   * high-mu stage near −1 V presents a few hundred kilohms whatever its
+   * leak); null with no leak given and no slope to speak of.
+   */
+  readonly rin: number | null;
   /** Output impedance at the plate, Ω (RL excluded). */
   readonly zout: number;
   /** Input capacitance with the Miller effect, F (0 for a bare model with no capacitances). */
@@ -75,9 +82,16 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
     gainBypassed,
     gainUnbypassed,
     zout: commonCathodeZout(ss.mu, ss.rp, d.ra, d.rk, d.bypassed),
+    rin: inputResistance(d.rg, gridSlope((v) => gridCurrent(model, v), loop.vgk) * (1 - cathodeGain)),
     cin,
     toGridCurrent: Math.max(0, GRID_CURRENT_ONSET - loop.vgk),
     toCutoff: loop.vgk - gridVoltageForCurrent(model.params, loop.vpk, CUTOFF_FRACTION * loop.ia),
     findings: ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }),
   };
+}
+
+/** A leak (null: none) in parallel with a grid's conductance, Ω; null for neither. */
+function inputResistance(rg: number | null, g: number): number | null {
+  if (!(g > MIN_GRID_CONDUCTANCE)) return rg;
+  return rg !== null ? rg / (1 + rg * g) : 1 / g;
 }

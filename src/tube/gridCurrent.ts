@@ -66,3 +66,19 @@ export function classA1GridCurrent(gridResistance: number, vgk: number): number 
  * Koren's table (from memory; no pentode grid-current data is held here).
  */
 export const POWER_GRID_RESISTANCE = 1000;
+
+/** Half the step of gridSlope's central difference, V: far below the tail's thermal volt, far above rounding. */
+const SLOPE_STEP = 1e-4;
+
+/**
+ * The grid current's slope at vgk, S: the grid's small-signal input
+ * conductance at its bias (a few microsiemens at −1 V for a high-mu triode,
+ * on the retarding-field tail). Never NaN: 0 for input that is not a number.
+ */
+export function gridSlope(law: (vgk: number) => number, vgk: number): number {
+  const g = (law(vgk + SLOPE_STEP) - law(vgk - SLOPE_STEP)) / (2 * SLOPE_STEP);
+  return Number.isFinite(g) && g > 0 ? g : 0;
+}
+
+/** Below this, S (a teraohm: more than the leakage of any board or socket, common practice), a grid's slope is left out. */
+export const MIN_GRID_CONDUCTANCE = 1e-12;

@@ -14,6 +14,17 @@ function setup() {
 }
 
 describe('the workbench', () => {
+  it('shows the stage\'s input resistance: its leak, less where the grid\'s own current has a slope at its bias', async () => {
+    const { user, figure, field } = setup();
+    // The demo's 12AU7 at −5.45 V: its 1 MΩ leak alone.
+    expect(figure('rin')).toBe('1 MΩ');
+    // Rk 220 Ω puts it near −1 V grid, where its grid current's slope loads the source.
+    const rk = field(/^Rk/);
+    await user.clear(rk);
+    await user.type(rk, '220{Tab}');
+    expect(figure('rin')).toMatch(/^\d{3} kΩ$/);
+  });
+
   it('typing "bad" into Ra shows a specific error beside it and keeps the previous figures', async () => {
     const { user, figure, field, store } = setup();
     const before = { ia: figure('ia'), gain: figure('gain'), ra: store.getState().design.ra };

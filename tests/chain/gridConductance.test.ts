@@ -108,3 +108,24 @@ describe("a capacitor-coupled follower's grid through its leak", () => {
     expect(r.stages[1]!.findings.some((x) => x.kind === 'grid-leak-bias')).toBe(false);
   });
 });
+
+describe("a stage's input resistance on the bench", () => {
+  const ax7 = findTube('12AX7')!;
+  it('is its leak with its grid current\'s slope, as the amplifier takes it: a 12AX7 near −1 V, a few hundred kilohms behind 1 MΩ', () => {
+    const s = solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 820, rg: 1e6, rl: 1e6 });
+    if (!s.ok) throw new Error(s.message);
+    const r = solveChain({ source: { rsource: 1e3 }, stages: [{ kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } }], load: { rl: 1e6 } });
+    if (!r.ok) throw new Error(r.message);
+    expectClose(s.rin!, r.stages[0]!.zin!, { rel: 1e-6 }, 'bench and amplifier alike');
+    expect(s.rin).toBeLessThan(0.5e6);
+    // 1/Rin = 1/Rg + dIg/dVgk at the bias (the cathode bypassed).
+    const slope = (gridCurrent(modelOf(ax7), s.op.vgk + 1e-4) - gridCurrent(modelOf(ax7), s.op.vgk - 1e-4)) / 2e-4;
+    expectClose(1 / s.rin!, 1e-6 + slope, { rel: 1e-6 });
+  });
+
+  it('is the leak alone, to a hundredth of a percent, for a stage biased well below the onset', () => {
+    const s = solveStage({ tube: ax7, bplus: 250, ra: 100e3, rk: 2700, rg: 1e6 });
+    if (!s.ok) throw new Error(s.message);
+    expectClose(s.rin!, 1e6, { rel: 1e-4 });
+  });
+});

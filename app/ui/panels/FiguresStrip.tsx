@@ -37,6 +37,7 @@ export function FiguresStrip() {
         <Figure name="gain" label="Gain" value={`${plain(sol.gain)} × (${decibels(sol.gain)})`} chars={15} />
         <Figure name="zout" label="Zout" value={ohms(sol.zout)} chars={6.5} />
         <Figure name="cin" label="Cin (Miller)" value={farads(sol.cin)} chars={6.5} />
+        <Figure name="rin" label="Rin" value={sol.rin !== null ? ohms(sol.rin) : 'no leak'} chars={6.5} />
       </dl>
       <dl className="figure-group">
         <Figure name="to-grid-current" label="Grid swing to grid current" value={volts(sol.toGridCurrent)} chars={7} />
