@@ -87,6 +87,7 @@ function near<T extends object>(base: T): fc.Arbitrary<unknown> {
 const or = <T>(good: fc.Arbitrary<T>) => fc.oneof({ weight: 3, arbitrary: good as fc.Arbitrary<unknown> }, { weight: 1, arbitrary: anything });
 
 const au7 = Q.findTube('12AU7')!;
+const ax7 = Q.findTube('12AX7')!;
 const el34 = Q.findOutputTube('EL34')!;
 const stage = { tube: au7, bplus: 275, ra: 27e3, rk: 1200, bypassed: true, rl: 220e3 };
 const output: Q.OutputDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130, bias: 'cathode', rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
@@ -105,6 +106,8 @@ const run = (name: string, arb: fc.Arbitrary<unknown[]>, call: (...a: never[]) =
 describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveStage', fc.tuple(near({ ...stage, tube: au7 })), Q.solveStage, 600);
   run('solveStage (tube)', fc.tuple(tubes.map((t) => ({ ...stage, tube: t }))), Q.solveStage);
+  // A leaked grid near the onset of grid current: its own current biases it.
+  run('solveStage (grid leak)', fc.tuple(near({ ...stage, tube: ax7, ra: 100e3, rk: 820, rg: 1e6, rsource: 250e3 })), Q.solveStage, 600);
   run('solveFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 })), Q.solveFollower);
   run('followerRegion', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rl: 220e3 }), fc.oneof(fc.constant({ maxDissipationFraction: 0.5, minCleanOutputRms: 10 }), anything), fc.oneof(fc.constant(8), anything)), Q.followerRegion, 30);
   run('judgeFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rl: 220e3 }), or(fc.double({ min: 100, max: 1e6 })), fc.oneof(fc.constant({ maxZout: 500, minGain: 0.9 }), anything)), Q.judgeFollower, 60);
@@ -112,7 +115,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('followerRkFor', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150 }), or(fc.double({ min: 1e-7, max: 0.05 })), fc.oneof(fc.constant(undefined), fc.tuple(or(fc.double({ min: 1, max: 1e4 })), or(fc.double({ min: 1e4, max: 1e7 }))), anything)), Q.followerRkFor);
   run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
   run('designAtPlanePoint', fc.tuple(near({ tube: au7, bplus: 275, vpk: 150, ia: 5e-3 })), Q.designAtPlanePoint);
+  // Through a grid leak, near the limit where the leak alone biases the grid.
+  run('designAtPlanePoint (grid leak)', fc.tuple(near({ tube: au7, bplus: 275, vpk: 100, ia: 8e-3, rg: 1e6 })), Q.designAtPlanePoint);
   run('nearestReachable', fc.tuple(tubes, or(fc.double({ min: 1, max: 600 })), or(fc.double({ min: -10, max: 900 })), or(fc.double({ min: -0.1, max: 0.2 }))), Q.nearestReachable);
+  run('nearestReachable (grid leak)', fc.tuple(tubes, or(fc.double({ min: 1, max: 600 })), or(fc.double({ min: -10, max: 900 })), or(fc.double({ min: -0.1, max: 0.2 })), or(fc.double({ min: 1, max: 1e8 }))), Q.nearestReachable);
   run('swing', fc.tuple(near(stage)), Q.swing);
   run('distortion', fc.tuple(near(stage), near({ outputRms: 2 }), near({ samples: 256 })), Q.distortion, 200);
   run('feasibleRegion', fc.tuple(near({ tube: au7, bplus: 250, rl: 100e3, rsource: 1e3, bypassed: true }), fc.oneof(near({ minGain: 10, maxThdAt: { outputRms: 2, thd: 0.01 }, raRange: [10e3, 50e3] }), anything), or(near({ nx: 6, ny: 5 }))), Q.feasibleRegion, 60);
@@ -123,6 +129,22 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('frequencyResponse', fc.tuple(near(stage), or(fc.array(fc.double({ min: 0.1, max: 1e7 }), { maxLength: 20 }))), Q.frequencyResponse);
   run('corners', fc.tuple(near({ ...stage, cin: 100e-9, rg: 1e6, rsource: 10e3, cout: 1e-6 })), Q.corners, 150);
   run('solveChain', fc.tuple(or(fc.array(near({ kind: 'common-cathode', ...stage }), { maxLength: 3 }))), Q.solveChain);
+  // The amplifier form: grids near the onset behind a high source, a follower, the load through its own capacitor.
+  run(
+    'solveChain (near grid current, loaded)',
+    fc.tuple(
+      near({
+        source: { rsource: 250e3 },
+        stages: [
+          { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+          { kind: 'follower', tube: au7, bplus: 250, rk: 22e3, coupling: { kind: 'direct' } },
+        ],
+        load: { rl: 10e3, cc: 1e-6 },
+      }),
+    ),
+    Q.solveChain,
+    200,
+  );
   const chainStages = [
     { kind: 'common-cathode', tube: au7, bplus: 275, ra: 27e3, rk: 1200, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
     { kind: 'follower', tube: au7, bplus: 275, rk: 22e3, coupling: { kind: 'direct' } },
