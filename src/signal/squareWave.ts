@@ -17,6 +17,9 @@ const SAMPLES = 320;
 /** A square wave's frequency, Hz: any a bench could set, its harmonics and instants finite. */
 const HZ_LIMITS = { min: 1e-3, max: 1e9 } as const;
 
+/** The midband gains a square wave may be referred to: past any amplifier either way, yet their squares stay finite. */
+const REFERENCE_LIMITS = { min: 1e-30, max: 1e30 } as const;
+
 /**
  * The steady-state response to a square wave of ±1, by its Fourier series
  * (4/π)·Σ sin(2πkft)/k over odd k, each harmonic through the response
@@ -31,7 +34,7 @@ export function squareWave(response: (hz: number) => readonly [number, number] |
   if (typeof response !== 'function') return fail('invalid-input', 'A response to put the square wave through is needed', 'response');
   if (!(typeof hz === 'number' && hz >= HZ_LIMITS.min && hz <= HZ_LIMITS.max)) return fail('invalid-input', `The square wave's frequency must be from 1 mHz to 1 GHz (got ${shown(hz)} Hz)`, 'hz');
   const refMag = Array.isArray(reference) ? Math.hypot(reference[0], reference[1]) : NaN;
-  if (!(refMag > 0 && Number.isFinite(refMag))) return fail('invalid-input', 'The midband gain to refer the square wave to must be above 0', 'reference');
+  if (!(refMag >= REFERENCE_LIMITS.min && refMag <= REFERENCE_LIMITS.max)) return fail('invalid-input', `The midband gain to refer the square wave to must be from ${REFERENCE_LIMITS.min} to ${REFERENCE_LIMITS.max} (got ${shown(refMag)})`, 'reference');
   // The midband gain's size and sign only: its few degrees of phase at 1 kHz belong to the response (a constant phase
   // turn added to every harmonic would bend the square wave, not delay it).
   const rr = (reference[0] < 0 ? -1 : 1) * refMag;
@@ -41,7 +44,9 @@ export function squareWave(response: (hz: number) => readonly [number, number] |
     const h = response(k * hz);
     if (!Array.isArray(h) || !Number.isFinite(h[0]) || !Number.isFinite(h[1])) return fail('unreachable', `The response could not be worked out at ${shown(k * hz)} Hz`, 'hz');
     // G = H / H_ref.
-    gains.push([(h[0] * rr + h[1] * ri) / (refMag * refMag), (h[1] * rr - h[0] * ri) / (refMag * refMag)]);
+    const g: [number, number] = [(h[0] * rr + h[1] * ri) / (refMag * refMag), (h[1] * rr - h[0] * ri) / (refMag * refMag)];
+    if (!Number.isFinite(g[0]) || !Number.isFinite(g[1])) return fail('unreachable', `The response at ${shown(k * hz)} Hz is out of all proportion to the midband gain`, 'reference');
+    gains.push(g);
   }
   // What the response still passes at the last harmonic passes the edges whole: that share is drawn as the exact square
   // wave, and only the rest as the series (a 1/k series converges slowly near an edge; the rest dies away fast).

@@ -71,6 +71,8 @@ describe('a square wave through a response', () => {
   it('refuses what it cannot draw', () => {
     expect(squareWave(lowPass(1e3), 0, [1, 0])).toMatchObject({ ok: false, field: 'hz' });
     expect(squareWave(lowPass(1e3), 100, [0, 0])).toMatchObject({ ok: false, field: 'reference' });
+    // A midband gain so small its square underflows (found by the robustness run: every sample came out NaN).
+    expect(squareWave(lowPass(1e3), 100, [0, 1e-307])).toMatchObject({ ok: false, field: 'reference' });
     expect(squareWave(() => null, 100, [1, 0])).toMatchObject({ ok: false, field: 'hz' });
   });
 });
