@@ -14,7 +14,9 @@ import type { LinkSample, StageKind } from './stageKind';
 /** The pair's own design record, each grid's resistor being the coupling's grid leak. */
 function designOf(s: PushPullLink): PushPullDesign {
   const { kind: _kind, tube, coupling, ...parts } = s;
-  return { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 };
+  // The tube's own check names a missing tube; its id is not read from nothing first.
+  const id = typeof tube === 'object' && tube !== null ? tube.id : '';
+  return { ...parts, tubeId: id, rg: typeof coupling === 'object' && coupling !== null && coupling.kind === 'capacitor' ? coupling.rg : 0 };
 }
 
 /** One tube's plate resistance at idle, its grid held (numerical slope of the charted current), Ω. */

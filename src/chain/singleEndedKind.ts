@@ -25,7 +25,9 @@ function screenTransconductance(s: OutputSolution): number {
 /** The output stage's own design record, its grid resistor being the coupling's grid leak. */
 export function designOf(s: SingleEndedLink): OutputDesign {
   const { kind: _kind, tube, coupling, ck: _ck, ...parts } = s;
-  return { ...parts, tubeId: tube.id, rg: coupling.kind === 'capacitor' ? coupling.rg : 0 };
+  // The tube's own check names a missing tube; its id is not read from nothing first.
+  const id = typeof tube === 'object' && tube !== null ? tube.id : '';
+  return { ...parts, tubeId: id, rg: typeof coupling === 'object' && coupling !== null && coupling.kind === 'capacitor' ? coupling.rg : 0 };
 }
 
 /**

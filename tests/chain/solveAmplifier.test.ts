@@ -115,6 +115,8 @@ describe('an amplifier of 1 to 8 stages', () => {
     expect(solveChain(amp(gainStage(), { ...driver, ra: -5 } as ChainStage))).toMatchObject({ ok: false, field: 'stages.1.ra', message: expect.stringMatching(/^Stage 2: Ra/) });
     expect(solveChain(amp(gainStage(), { ...driver, coupling: { kind: 'capacitor', cc: 47e-9 } } as unknown as ChainStage))).toMatchObject({ ok: false, field: 'stages.1.rg' });
     expect(solveChain(amp(output, gainStage()))).toMatchObject({ ok: false, field: 'stages.0.kind' });
+    // An output stage with no tube is named, not read from (found by the robustness run: a throw on the tube's id).
+    expect(solveChain(amp(gainStage(), { ...output, tube: null } as unknown as ChainStage))).toMatchObject({ ok: false });
     expect(solveChain(amp(gainStage(), { ...output, coupling: { kind: 'direct' } } as ChainStage))).toMatchObject({ ok: false, field: 'stages.1.coupling' });
     expect(solveChain({ source: { rsource: -1 }, stages: [gainStage()] })).toMatchObject({ ok: false, field: 'source.rsource' });
     expect(solveChain({ source: { rsource: 0 }, stages: [] })).toMatchObject({ ok: false, field: 'stages' });
