@@ -17,6 +17,12 @@ export function niceCeil(x: number): number {
   return (steps.find((s) => s >= m - 1e-9) ?? 10) * base;
 }
 
+/** The largest voltage and current a chart is framed to, V and A: past any tube, and their nice ceilings stay finite. */
+const FRAME_MAX_VOLTS = 1e6;
+const FRAME_MAX_AMPS = 1e3;
+/** A B+ to frame: 100 V for one that is not a positive number, at most FRAME_MAX_VOLTS. */
+const framedVolts = (bplus: number) => (Number.isFinite(bplus) && bplus > 0 ? Math.min(bplus, FRAME_MAX_VOLTS) : 100);
+
 /**
  * The plate-plane window for a tube and a supply. It depends on B+ and the
  * tube's ratings only, not on Ra or Rk, so that it stays still while the
@@ -29,11 +35,11 @@ export function plateExtent(tube: TubeLike, bplus: number, fallbackIa?: number):
   const r = typeof tube === 'object' && tube !== null ? recordOf(tube) : null;
   // A record without usable ratings frames like a bare model.
   const rec = r && r.ratings?.maxPlateVoltage > 0 && r.ratings?.maxPlateDissipation > 0 ? r : null;
-  const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 100;
-  const vmax = niceCeil(Math.max(b * 1.1, rec ? rec.ratings.maxPlateVoltage * 1.05 : 0));
+  const b = framedVolts(bplus);
+  const vmax = niceCeil(Math.max(b * 1.1, rec ? Math.min(rec.ratings.maxPlateVoltage, FRAME_MAX_VOLTS) * 1.05 : 0));
   const iaMax = rec
     ? niceCeil((1.6 * 2 * rec.ratings.maxPlateDissipation) / vmax)
-    : niceCeil(fallbackIa !== undefined && fallbackIa > 0 ? fallbackIa : 0.01);
+    : niceCeil(fallbackIa !== undefined && fallbackIa > 0 ? Math.min(fallbackIa, FRAME_MAX_AMPS) : 0.01);
   return { vmax, iaMax };
 }
 
@@ -45,7 +51,7 @@ export function plateExtent(tube: TubeLike, bplus: number, fallbackIa?: number):
  * release.
  */
 export function loadLineExtent(bplus: number, ra: number, rk: number): PlateExtent {
-  const b = Number.isFinite(bplus) && bplus > 0 ? bplus : 100;
+  const b = framedVolts(bplus);
   const r = Number.isFinite(ra + rk) && ra + rk > 0 ? ra + rk : 1;
   return { vmax: niceCeil(b * 1.1), iaMax: niceCeil(Math.max(1e-5, (1.25 * b) / r)) };
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { acLoadLine, biasLine, dcLoadLine, dissipationLimit, familyGrids, findTube, plateCurrent, plateExtent, plateFamily, solveStage, niceCeil } from '../../src/index';
+import { acLoadLine, biasLine, dcLoadLine, dissipationLimit, familyGrids, findTube, plateCurrent, plateExtent, loadLineExtent, plateFamily, solveStage, niceCeil } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 const ax7 = findTube('12AX7')!;
@@ -63,5 +63,9 @@ describe('plate-plane series', () => {
     expect(niceCeil(333)).toBe(400);
     expect(niceCeil(0.0073)).toBe(0.008);
     expect(niceCeil(Number.NaN)).toBe(1);
+    // A B+ near the largest number frames finitely (found by the robustness run: an infinite window).
+    const huge = plateExtent('' as never, 1.36e308);
+    expect(Number.isFinite(huge.vmax) && Number.isFinite(huge.iaMax)).toBe(true);
+    expect(Number.isFinite(loadLineExtent(1.36e308, 1e3, 0).vmax)).toBe(true);
   });
 });
