@@ -20,6 +20,9 @@ export interface BiasAnswer {
   readonly bplus: number;
 }
 
+/** The least idle current a bias is designed for, A: below it Rk = Vk/Ik runs off to infinity (a robustness run found 1e-307 A). */
+const MIN_POINT_AMPS = 1e-6;
+
 /**
  * Inverse design of the bias: for a wanted plate voltage and primary current,
  * the grid voltage that gives them (Brent's method; the current rises with
@@ -29,7 +32,7 @@ export interface BiasAnswer {
 export function biasForPoint(tube: OutputTube, d: OutputDesign, vpk: number, ip: number): Result<BiasAnswer> {
   const problem = checkOutputInput(tube, d);
   if (problem) return problem;
-  if (!(vpk > 0) || !(ip > 0) || !Number.isFinite(vpk) || !Number.isFinite(ip)) return fail('invalid-input', 'The wanted point needs a positive plate voltage and current');
+  if (!(vpk > 0) || !(ip >= MIN_POINT_AMPS) || !Number.isFinite(vpk) || !Number.isFinite(ip)) return fail('invalid-input', `The wanted point needs a positive plate voltage and a current of at least ${MIN_POINT_AMPS * 1e6} µA`);
   const connection = effectiveConnection(d, tube);
   const cathode = d.bias === 'cathode';
   const c = emptyCurrents();

@@ -62,6 +62,8 @@ describe('output stage operating point', () => {
     );
     // Most asked points are class A1 points; a property that skipped them all would prove nothing.
     expect(solved).toBeGreaterThan(100);
+    // A current of next to nothing is refused, not answered with an infinite Rk (found by the robustness run).
+    expect(biasForPoint(outputTubeLibrary[0]!, { ...base, tubeId: outputTubeLibrary[0]!.id }, 51, 1e-307)).toMatchObject({ ok: false });
   });
 
   it('never returns NaN or throws for any finite design (property)', () => {
