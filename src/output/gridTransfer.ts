@@ -112,6 +112,8 @@ const BASIS_SIN = Float64Array.from({ length: (THD_HARMONICS + 1) * TRANSFER_SAM
  * cost less than the FFT's twiddles; the same sums harmonicAmplitudes makes).
  */
 export function cycleAt(t: GridTransfer, drive: number): TransferCycle {
+  // A grid already at 0 V has no swing: no signal (its spline, over no span, has no steps to read).
+  if (!(t.span > 0)) return { drive: 0, power: 0, thd: 0 };
   const n = TRANSFER_SAMPLES;
   for (let k = 0; k < n; k++) wave[k] = windingAt(t, drive * SINE[k]!);
   let v1 = 0;

@@ -117,6 +117,14 @@ describe('where an output stage meets its targets', () => {
     expect(v.values.maxZout).toBeCloseTo(((s.op.rp + 150) * 8) / 3000, 8);
   });
 
+  it('a pair whose grids already sit at 0 V gives no clean power, a figure of nothing (found by the robustness run: NaN)', () => {
+    const pp: PushPullDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200, bias: 'fixed', rk: 220, vg: 0, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
+    const v = judgeOutput({ pair: 'push-pull', tube: el34, design: pp }, { minPower: { power: 5, thd: 0.05 }, maxThdAtPower: { power: 1, thd: 0.02 } });
+    if (!v.ok) throw new Error(v.message);
+    expect(v.values.minPower).toBe(0);
+    expect(v.failing).toContain('minPower');
+  });
+
   it('a push-pull pair: inside points meet the power target by the pair\'s own figures, outside ones fail', () => {
     const pp: PushPullDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200, bias: 'fixed', rk: 220, vg: -38, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
     const targets: Targets = { minPower: { power: 30, thd: 0.05 }, maxDissipationFraction: 0.8 };
