@@ -82,10 +82,15 @@ export function designAtPlanePoint(t: PlanePointTarget): Result<PlanePointDesign
 export function leakLimit(tube: TubeLike, rg: number | null): number {
   if (rg === null || !(rg > 0) || !Number.isFinite(rg)) return 0;
   const model = modelOf(tube);
+  // A drag asks for the same tube and leak on every move, twice (the reachable point, then its design): one root serves.
+  if (lastLimit.model === model && lastLimit.rg === rg) return lastLimit.vgk;
   const f = (vgk: number) => vgk + rg * gridCurrent(model, vgk);
-  if (!(f(0) > 0)) return 0;
-  return bracketedRoot(f, -10, 0, 1e-9).x;
+  const vgk = f(0) > 0 ? bracketedRoot(f, -10, 0, 1e-9).x : 0;
+  lastLimit = { model, rg, vgk };
+  return vgk;
 }
+
+let lastLimit: { model: unknown; rg: number; vgk: number } = { model: null, rg: 0, vgk: 0 };
 
 /** Where a drag may go: the asked point if reachable, else the nearest reachable one, with the reason. */
 export interface ReachablePoint {
