@@ -133,6 +133,7 @@ export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoin
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
 export { checkPushPull, mismatchParts, MAX_MISMATCH, RAA_LIMITS, type PushPullDesign } from './pushpull/pushPullDesign';
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
+export { settledCathodeBias, type SettledBias } from './pushpull/settledBias';
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
 export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';
 export { pushPullRaaSweep, MAX_RAA_POINTS, type RaaRow } from './pushpull/raaSweep';

@@ -96,45 +96,47 @@ function pointOf(tube: OutputTube, feed: ScreenFeed, supply: number, rHalf: numb
   return { vpk, ia: c.ia, ig2: c.ig2, ik: c.ik, ip: c.ip, mmf: c.mmf, pa: vpk * (tied ? c.ip : c.ia), pg2: tied ? 0 : vg2k * c.ig2 };
 }
 
-/**
- * The pair at idle. Fixed bias: both grids at the bias supply. Cathode bias:
- * the shared resistor carries both cathodes' current, Vk = Rk·(Ik1 + Ik2),
- * found by a bracketed root on Vk (the current falls as Vk rises, so there is
- * one). Each tube's half of the primary drops its own current through half
- * the primary's DC resistance.
- */
-export function solvePushPull(tube: OutputTube, design: PushPullDesign): Result<PushPullSolution> {
-  const problem = checkPushPull(tube, design);
-  if (problem) return problem;
-  const d = design;
+/** What stays the same wherever the shared cathode sits: the two tubes, half the primary's resistance, the screen's connection. */
+interface PairParts {
+  readonly tube: OutputTube;
+  readonly tube2: OutputTube;
+  readonly design: PushPullDesign;
+  readonly rHalf: number;
+  readonly mismatch: ReturnType<typeof mismatchParts>;
+  readonly feedAt: (vk: number) => ScreenFeed;
+}
+
+function partsOf(tube: OutputTube, d: PushPullDesign): PairParts {
   const mismatch = mismatchParts(d.mismatch);
-  const tube2 = scaledTube(tube, mismatch.gm);
-  const rHalf = d.rPrimary / 2;
   const connection = effectiveConnection(d as unknown as OutputDesign, tube);
-  const feedAt = (vk: number) => screenFeedOf(connection, d.screenVolts - vk, d.ulTap, d.bplus - vk);
-  // With the idle mismatch given apart from the gm's, the second grid sits off the first by what brings its idle
-  // current to (1 + idle) × the first's (the balance adjustment of a fixed-bias side, or a cathode-biased pair's spread).
-  const offsetAt = (feed: ScreenFeed, supply: number, g: number): number => {
-    if (mismatch.idle === null || (mismatch.idle === 0 && mismatch.gm === 0)) return 0;
-    const want = (1 + mismatch.idle) * pointOf(tube, feed, supply, rHalf, g).ik;
-    const r = bracketedRoot((x) => pointOf(tube2, feed, supply, rHalf, g + x).ik - want, -Math.max(supply, 10), Math.max(-g, 0) + 1e-9, 1e-9);
-    return r.x;
-  };
-  let vk = 0;
-  if (d.bias === 'cathode') {
-    const excess = (x: number) => {
-      const feed = feedAt(x);
-      const supply = d.bplus - x;
-      return d.rk * (pointOf(tube, feed, supply, rHalf, -x).ik + pointOf(tube2, feed, supply, rHalf, -x + offsetAt(feed, supply, -x)).ik) - x;
-    };
-    const r = bracketedRoot(excess, 0, d.bplus, VOLT_TOL * d.bplus);
-    if (!r.converged && Math.abs(excess(r.x)) > 1e-6 * d.bplus) return fail('no-convergence', 'The shared cathode resistor\'s bias did not settle; try another Rk', 'rk');
-    vk = r.x;
-  }
-  const vgk = d.bias === 'cathode' ? -vk : d.vg;
-  const feed = feedAt(vk);
+  return { tube, tube2: scaledTube(tube, mismatch.gm), design: d, rHalf: d.rPrimary / 2, mismatch, feedAt: (vk) => screenFeedOf(connection, d.screenVolts - vk, d.ulTap, d.bplus - vk) };
+}
+
+/**
+ * With the idle mismatch given apart from the gm's, the second grid sits off the first by what brings its idle
+ * current to (1 + idle) × the first's (the balance adjustment of a fixed-bias side, or a cathode-biased pair's spread).
+ */
+function offsetAt(p: PairParts, feed: ScreenFeed, supply: number, g: number): number {
+  const { mismatch, tube, tube2, rHalf } = p;
+  if (mismatch.idle === null || (mismatch.idle === 0 && mismatch.gm === 0)) return 0;
+  const want = (1 + mismatch.idle) * pointOf(tube, feed, supply, rHalf, g).ik;
+  const r = bracketedRoot((x) => pointOf(tube2, feed, supply, rHalf, g + x).ik - want, -Math.max(supply, 10), Math.max(-g, 0) + 1e-9, 1e-9);
+  return r.x;
+}
+
+/** The shared resistor's voltage less what the pair's idle current would drop across it with the cathode at x, V. */
+function cathodeExcess(p: PairParts, x: number): number {
+  const feed = p.feedAt(x);
+  const supply = p.design.bplus - x;
+  return p.design.rk * (pointOf(p.tube, feed, supply, p.rHalf, -x).ik + pointOf(p.tube2, feed, supply, p.rHalf, -x + offsetAt(p, feed, supply, -x)).ik) - x;
+}
+
+/** The pair with its cathode held at vk (0 for fixed bias) and the first grid at vgk, every electrode at rest; a failure where it cannot run. */
+function pairAt(p: PairParts, vk: number, vgk: number): Result<PushPullSolution> {
+  const { tube, tube2, design: d, rHalf } = p;
+  const feed = p.feedAt(vk);
   const supply = d.bplus - vk;
-  const vgk2 = vgk + offsetAt(feed, supply, vgk);
+  const vgk2 = vgk + offsetAt(p, feed, supply, vgk);
   const one = pointOf(tube, feed, supply, rHalf, vgk);
   const two = pointOf(tube2, feed, supply, rHalf, vgk2);
   if (!(one.ik > OUTPUT_CUTOFF_A) || !(two.ik > OUTPUT_CUTOFF_A)) {
@@ -155,4 +157,35 @@ export function solvePushPull(tube: OutputTube, design: PushPullDesign): Result<
     dcImbalance: one.mmf - two.mmf,
     feed,
   };
+}
+
+/**
+ * The pair at idle. Fixed bias: both grids at the bias supply. Cathode bias:
+ * the shared resistor carries both cathodes' current, Vk = Rk·(Ik1 + Ik2),
+ * found by a bracketed root on Vk (the current falls as Vk rises, so there is
+ * one). Each tube's half of the primary drops its own current through half
+ * the primary's DC resistance.
+ */
+export function solvePushPull(tube: OutputTube, design: PushPullDesign): Result<PushPullSolution> {
+  const problem = checkPushPull(tube, design);
+  if (problem) return problem;
+  const d = design;
+  const p = partsOf(tube, d);
+  let vk = 0;
+  if (d.bias === 'cathode') {
+    const r = bracketedRoot((x) => cathodeExcess(p, x), 0, d.bplus, VOLT_TOL * d.bplus);
+    if (!r.converged && Math.abs(cathodeExcess(p, r.x)) > 1e-6 * d.bplus) return fail('no-convergence', 'The shared cathode resistor\'s bias did not settle; try another Rk', 'rk');
+    vk = r.x;
+  }
+  return pairAt(p, vk, d.bias === 'cathode' ? -vk : d.vg);
+}
+
+/**
+ * A cathode-biased pair with its shared cathode moved to vk (the grids, at
+ * ground through their resistors, vk below it), every electrode's idle
+ * current at that bias: the pair as it stands once a drive has shifted its
+ * bias. The design is the solution's; a failure where the tubes cut off.
+ */
+export function pairWithCathodeAt(s: PushPullSolution, vk: number): Result<PushPullSolution> {
+  return pairAt(partsOf(s.tube, s.design), vk, -vk);
 }

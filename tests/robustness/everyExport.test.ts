@@ -169,6 +169,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const solvedPP = Q.solvePushPull(el34, ppDesign);
   run('pushPullAtDrive', fc.tuple(near(solvedPP), or(fc.double({ min: 0, max: 60 })), or(fc.constantFrom(16, 64, 100))), Q.pushPullAtDrive, 60);
   run('pushPullFigures', fc.tuple(near(solvedPP)), Q.pushPullFigures, 20);
+  const solvedPPCathode = Q.solvePushPull(el34, { ...ppDesign, bias: 'cathode' });
+  run('settledCathodeBias', fc.tuple(fc.oneof(near(solvedPPCathode), near(solvedPP), fc.constant(solvedPPCathode))), Q.settledCathodeBias, 20);
   // Found by a fresh seed: a solution whose supply was edited to 1.7e308 V gave infinite figures.
   it('pushPullFigures refuses an idle point its design could not have', () => {
     for (const edit of [{ supply: 1.7e308 }, { vgk: -1e6 }, { vgk: 5 }]) keepsPromise('pushPullFigures', () => Q.pushPullFigures({ ...(solvedPP as Q.PushPullSolution & { ok: true }), ...edit }), [edit]);

@@ -23,7 +23,17 @@ function subckt(tube: OutputTube, name: string): string {
   return triodeSubckt(name, tube.law.tube.model.params);
 }
 
-export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: number, offset2 = 0): string {
+/**
+ * Asked for a settled bias instead, the shared cathode resistor gets a real bypass (`ck`) and the run lasts `ms`
+ * milliseconds, long enough for the cathode to settle where the resistor drops the average current; the cathode's
+ * average over the last 10 ms is printed as vkavg and the Fourier analysis reads the last cycle as before.
+ */
+export interface SettleRun {
+  readonly ck: number;
+  readonly ms: number;
+}
+
+export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: number, offset2 = 0, settle?: SettleRun): string {
   const tube2 = scaledTube(tube, mismatchParts(d.mismatch).gm);
   const pentode = tube.law.kind === 'pentode';
   const ul = d.connection === 'ultralinear' && pentode;
@@ -46,7 +56,7 @@ export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: numbe
   lines.push(`VG1 grid1 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000)`, `VG2 grid2 0 DC ${g(vbias + offset2)} SIN(${g(vbias + offset2)} ${g(peak)} 1000 0 0 180)`);
   // A 10 F bypass holds the cathode at its idle voltage through the run, as the model takes it (its time constant is
   // thousands of seconds; a real one's is seconds, over which a class AB stage's rising average current lifts the bias).
-  lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 10` : 'VK cathode 0 DC 0');
+  lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 ${settle ? g(settle.ck) : 10}` : 'VK cathode 0 DC 0');
   if (pentode) {
     const screen = (k: 1 | 2) => (d.connection === 'triode' ? `plate${k}` : ul ? `tap${k}` : 'screen');
     if (d.connection === 'pentode') lines.push(`VS screen 0 DC ${g(d.screenVolts)}`);
@@ -54,6 +64,8 @@ export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: numbe
   } else {
     lines.push('X1 plate1 grid1 cathode one', 'X2 plate2 grid2 cathode two');
   }
-  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate1) v(plate2) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 60m 50m 0.25u', 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
+  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate1) v(plate2) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', ...(settle
+    ? [`tran 0.25u ${settle.ms}m ${settle.ms - 10}m 0.25u`, `meas tran vkavg avg v(cathode) from=${settle.ms - 10}m to=${settle.ms}m`, 'print vkavg']
+    : ['tran 0.25u 60m 50m 0.25u']), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }
