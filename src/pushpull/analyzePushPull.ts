@@ -14,6 +14,7 @@ import { pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
 import { pushPullFigures, type PushPullFigures } from './pushPullFigures';
 import { pushPullFindings } from './pushPullFindings';
 import { pushPullOverlay, type PushPullOverlay } from './pushPullOverlay';
+import { settledCathodeBias, type SettledBias } from './settledBias';
 import { solvePushPull, type PushPullSolution } from './solvePushPull';
 
 const opOf = (p: { readonly ia: number; readonly ig2: number; readonly pa: number; readonly pg2: number }): PushPullTubeOp => ({ ia: p.ia, ig2: p.ig2, pa: p.pa, pg2: p.pg2 });
@@ -41,6 +42,12 @@ export interface PushPullAnalysis {
    * during a drag, the last full pass's, stale; null before any full pass.
    */
   readonly figures: PushPullFigures | null;
+  /**
+   * A shared cathode resistor's bias once its bypass has settled under full drive, and the pair there with its
+   * grids driven to 0 V; null for fixed bias, where it does not settle, and before any full pass (the light pass
+   * carries the last full pass's, stale, like the figures).
+   */
+  readonly settledBias: SettledBias | null;
   /** The current the stage draws from B+ (both cathodes), A: at idle and with the grids driven to 0 V. */
   readonly supplyCurrent: { readonly idle: number; readonly full: number };
   /** Primary (plate to plate) to secondary turns ratio for the chosen speaker. */
@@ -93,9 +100,12 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
   // The light pass reads its cycle at 32 points: harmonics to the tenth still resolve, at half the cost a drag frame pays.
   const full = pushPullDriveOf(s, Math.max(0, Math.min(-s.vgk, -s.vgk2)), light ? LIGHT_SAMPLES : OUTPUT_SAMPLES);
   let figures: PushPullFigures | null = prev?.figures ?? null;
+  let settledBias: SettledBias | null = design.bias === 'cathode' ? (prev?.settledBias ?? null) : null;
   if (!light) {
     const f = pushPullFigures(s);
     figures = f.ok ? f : null;
+    const b = design.bias === 'cathode' ? settledCathodeBias(s) : null;
+    settledBias = b?.ok ? b : null;
   }
   const overlay = pushPullOverlay(s, extent, full);
   // Tube 1's path reaches its highest plate voltage where its partner pulls hardest: the pair's peak (mirrored for tube 2).
@@ -111,6 +121,7 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
     classAB: full.classAB,
     worstDissipation: figures ? { plate: figures.worstPlate, screen: figures.worstScreen } : null,
     figures,
+    settledBias,
     supplyCurrent: { idle: s.supplyCurrent, full: full.supplyCurrent },
     turnsRatio: Math.sqrt(design.raa / design.speakerOhms),
     findings: pushPullFindings(s, light ? null : figures, peak),

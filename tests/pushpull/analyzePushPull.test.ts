@@ -53,6 +53,16 @@ describe('the push-pull bench analysis', () => {
     expectClose(full.supplyCurrent.idle, full.solution.idle[0].ik + full.solution.idle[1].ik, { rel: 1e-12 }, 'idle supply current');
   });
 
+  it('carries a shared cathode resistor\'s settled bias on the full pass (the light pass keeps the last), and none for fixed bias', () => {
+    const full = analysed(el84);
+    // Ohm's law on the settled cathode, as settledCathodeBias gives it (checked against ngspice there).
+    expectClose(full.settledBias!.vk, el84.rk * full.settledBias!.full.supplyCurrent, { rel: 1e-4 }, 'Vk = Rk·Ī');
+    expect(full.settledBias!.idleVk).toBe(full.solution.vk);
+    const light = analysed({ ...el84, rk: 150 }, { light: true, previous: full });
+    expect(light.settledBias).toBe(full.settledBias);
+    expect(analysed({ ...el84, bias: 'fixed', vg: -12 }).settledBias).toBeNull();
+  });
+
   it('checks the worst plate dissipation over the drive range, and says when a mismatch leaves DC in the core', () => {
     // Fixed bias cold enough that class AB's dissipation peaks under drive, above idle (Langford-Smith, ch. 13).
     const cold: PushPullDesign = { ...el84, connection: 'pentode', bias: 'fixed', vg: -16, mismatch: 0.08 };

@@ -8,8 +8,9 @@ import { useWorkbench } from '../../store/StoreProvider';
  * (the worse of the two when mismatched), the parts the drag sets, power and
  * distortion with the grids driven to 0 V and within the distortion limit,
  * where class AB begins, the worst dissipation under drive, the current the
- * pair draws from B+, and the damping it gives the speaker. The level sweep's
- * figures wait for the full pass ('…' during a drag).
+ * pair draws from B+, and the damping it gives the speaker; with a shared
+ * cathode resistor, where its bias settles under full drive and the power
+ * there. The level sweep's figures wait for the full pass ('…' during a drag).
  */
 export function PairFigures({ bench }: { bench: PushPullBench }) {
   const a = bench.analysis;
@@ -37,11 +38,18 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
         <Figure name="o-raa" label="Raa" value={ohms(d.raa)} chars={6.5} />
       </dl>
       <dl className="figure-group">
-        <Figure name="full-power" label="Grids driven to 0 V" value={`${watts(a.full.power)} at ${percent(a.full.thd)} THD`} chars={20.5} />
+        <Figure name="full-power" label={d.bias === 'cathode' ? 'Grids driven to 0 V, idle bias' : 'Grids driven to 0 V'} value={`${watts(a.full.power)} at ${percent(a.full.thd)} THD`} chars={20.5} />
         <Figure name="limit-power" label={`Power within ${percent(d.thdLimit)} THD`} value={f ? (f.overThdEverywhere ? 'never within' : watts((f.atThdLimit ?? f.atZeroGrid).power)) : wait} chars={12} />
         <Figure name="class" label="Class" value={f ? (f.classABFrom === null ? 'A to 0 V grid' : f.classABFrom === 0 ? 'AB from the smallest signal' : `AB from ${volts(f.classABFrom)} peak per grid`) : wait} chars={24} />
         <Figure name="drive" label="Drive per grid, full" value={`${volts(a.full.drive / Math.SQRT2)} rms`} chars={9} />
       </dl>
+      {d.bias === 'cathode' ? (
+        <dl className="figure-group" aria-label="The shared cathode resistor under full drive">
+          <Figure name="settled-vk" label="Vk idle → settled at full drive" value={a.settledBias && !bench.light ? `${volts(a.settledBias.idleVk)} → ${volts(a.settledBias.vk)}` : wait} chars={15} />
+          <Figure name="settled-power" label="Grids driven to 0 V there" value={a.settledBias && !bench.light ? `${watts(a.settledBias.full.power)} at ${percent(a.settledBias.full.thd)} THD` : wait} chars={20.5} />
+          <Figure name="settled-drive" label="Drive per grid there" value={a.settledBias && !bench.light ? `${volts(a.settledBias.full.drive / Math.SQRT2)} rms` : wait} chars={9} />
+        </dl>
+      ) : null}
       <dl className="figure-group">
         <Figure name="worst-pa" label="Worst Pa under drive" value={f ? `${watts(f.worstPlate.watts)} (${Math.round((100 * f.worstPlate.watts) / r.maxPlateDissipation)} %)` : wait} chars={13} />
         <Figure name="supply-current" label="B+ current idle → full" value={`${milliamps(a.supplyCurrent.idle)} → ${milliamps(a.supplyCurrent.full)}`} chars={17} />
