@@ -1,4 +1,4 @@
-import { followerLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, VOLTAGE_STAGE_LEGEND, type LegendItem } from '../ui/chart/ChartLegend';
+import { followerLegend, OUTPUT_STAGE_LEGEND, PAIR_STAGE_LEGEND, voltageStageLegend, type LegendItem } from '../ui/chart/ChartLegend';
 import { PALETTE } from '../ui/chart/palette';
 import { farads, milliamps, ohms, plain, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -45,7 +45,7 @@ export function chartCaption(s: WorkbenchState): ChartCaption {
   return {
     title: `${d.tubeId}, B+ ${volts(d.bplus)}, Ra ${ohms(d.ra)}, Rk ${ohms(d.rk)}${d.bypassed ? ' bypassed' : ''}, RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}`,
     figures: `Va ${volts(op.va)}, Ia ${milliamps(op.ia)}, Vgk ${volts(op.vgk)}, Pa ${watts(op.pa)}; gain ${plain(s.analysis.solution.gain)} ×, Zout ${ohms(s.analysis.solution.zout)}`,
-    legend: VOLTAGE_STAGE_LEGEND,
+    legend: voltageStageLegend(s.analysis.sheet.gridLimit?.vg ?? null),
   };
 }
 

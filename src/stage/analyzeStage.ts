@@ -2,7 +2,8 @@ import type { Failure, Result } from '../result';
 import type { ChainLink } from '../signal/solveLinks';
 import { solvedStage } from '../signal/analysisInput';
 import type { TubeRecord } from '../tube/types';
-import { curveSheet, type CurveSheet } from './curveSheet';
+import { curveSheet, withGridLimit, type CurveSheet } from './curveSheet';
+import { leakLimit } from './designAtPoint';
 import { MAX_FAMILY_CURVES } from './planeSeries';
 import { plateExtent, type PlateExtent } from './plateExtent';
 import type { StageSolution } from './solveStage';
@@ -47,7 +48,10 @@ export function analyzeStage(stage: StageDesign & { readonly tube: TubeRecord },
   const tube = stage.tube;
   const extent = options.extent ?? plateExtent(tube, stage.bplus);
   const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves;
-  const sheet = sameSheet ? prev.sheet : curveSheet(tube, stage.bplus, extent, maxCurves);
+  // The grid-leak limit moves with Rg, not with the window: a new leak redraws the sheet with its curve, a drag keeps it.
+  const limit = leakLimit(tube, stage.rg ?? null);
+  const base = sameSheet ? prev.sheet : curveSheet(tube, stage.bplus, extent, maxCurves);
+  const sheet = base.gridLimit !== undefined && (base.gridLimit?.vg ?? 0) === Math.min(limit, 0) ? base : withGridLimit(base, tube, limit);
   if (light) {
     const problem = followerProblem(solution.op.va, second);
     if (problem) return problem;

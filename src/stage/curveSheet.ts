@@ -1,5 +1,5 @@
 import { recordOf, type TubeLike } from '../tube/types';
-import { dissipationLimit, familyGrids, plateFamily, type PlanePoint, type PlateCurve } from './planeSeries';
+import { dissipationLimit, familyGrids, plateCurve, plateFamily, type PlanePoint, type PlateCurve } from './planeSeries';
 import { plateExtent, type PlateExtent } from './plateExtent';
 
 /**
@@ -14,6 +14,13 @@ export interface CurveSheet {
   /** Rated maximum plate voltage, V, or null when unknown. */
   readonly maxPlateVoltage: number | null;
   readonly maxPlateDissipation: number | null;
+  /**
+   * A voltage stage whose grid returns through a leak: the plate curve at the
+   * highest grid its cathode bias can reach, where the grid's own current
+   * through the leak alone biases it (leakLimit); above it the grid draws
+   * current. Absent or null for a grid held at 0 V and for other charts.
+   */
+  readonly gridLimit?: PlateCurve | null;
 }
 
 /** Samples per plate curve: smooth at chart sizes up to ~1600 px wide. */
@@ -29,4 +36,9 @@ export function curveSheet(tube: TubeLike, bplus: number, extent: PlateExtent = 
     maxPlateVoltage: rec ? rec.ratings.maxPlateVoltage : null,
     maxPlateDissipation: rec ? rec.ratings.maxPlateDissipation : null,
   };
+}
+
+/** The sheet with the plate curve at a grid-leak limit `vg` (V, below 0), or with none for a grid that can reach 0 V. */
+export function withGridLimit(sheet: CurveSheet, tube: TubeLike, vg: number): CurveSheet {
+  return { ...sheet, gridLimit: vg < 0 ? plateCurve(tube, vg, sheet.extent.vmax, CURVE_SAMPLES) : null };
 }

@@ -15,4 +15,18 @@ describe('the chart key', () => {
       expect(swatch(label).getAttribute('stroke-width')).toBe(drawn.getAttribute('stroke-width'));
     }
   });
+
+  it('keys the grid-leak limit with its voltage, drawn on that plate curve in the same style', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const key = screen.getByRole('list', { name: 'Chart key' });
+    const drawn = view.container.querySelector('[data-series="grid-leak-limit"]')!;
+    expect(drawn).toBeTruthy();
+    // The bench's own sheet says where: the same voltage on the chart and in the key.
+    const vg = store.getState().analysis.sheet.gridLimit!.vg;
+    expect(Number(drawn.getAttribute('data-vg'))).toBe(vg);
+    const item = [...key.querySelectorAll('li')].find((li) => li.textContent!.startsWith('Grid-leak limit'))!;
+    expect(item.textContent).toContain(`(${vg.toFixed(2).replace('-', '−')} V)`);
+    expect(item.querySelector('line')!.getAttribute('stroke-dasharray')).toBe(drawn.getAttribute('stroke-dasharray'));
+  });
 });

@@ -1,5 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeStage, findTube, solveStage } from '../../src/index';
+import { analyzeStage, findTube, nearestReachable, solveStage } from '../../src/index';
+import { korenPlateCurrent } from '../../src/tube/koren';
+import { gridCurrent } from '../../src/tube/gridCurrent';
+import { expectClose } from '../helpers/expectClose';
 
 // Our own stage: a 12AX7 at 300 V, 100k and 1.5k bypassed, into 470k.
 const ax7 = findTube('12AX7')!;
@@ -20,6 +23,29 @@ describe('analyzeStage: a voltage stage as the workbench shows it', () => {
     expect(moved.sheet).toBe(a.sheet);
     const otherTube = analyzeStage({ ...stage, tube: au7, rk: 1000 }, { second: null, levels }, a);
     expect(otherTube.ok && otherTube.sheet).not.toBe(a.sheet);
+  });
+
+  // Ohm's law at the grid: where the leak alone biases it, Vgk + Rg·Ig(Vgk) = 0 (no Rk). The curve drawn there is where
+  // the drag stops (nearestReachable), so the chart shows the limit the pointer meets.
+  it('draws the plate curve at the grid-leak limit, where the drag stops; none with no leak; kept while Rg stays', () => {
+    const a = analyzeStage(stage, { second: null, levels }, null);
+    if (!a.ok) throw new Error(a.message);
+    const limit = a.sheet.gridLimit!;
+    expect(limit.vg).toBeLessThan(-0.5);
+    expect(Math.abs(limit.vg + stage.rg * gridCurrent(ax7.model, limit.vg))).toBeLessThan(1e-6);
+    for (const p of limit.points.filter((_, k) => k % 20 === 0)) expectClose(p.i, korenPlateCurrent(ax7.model.params, p.v, limit.vg), { rel: 1e-12, abs: 1e-15 }, `Ia at ${p.v} V`);
+    const stop = nearestReachable(ax7, stage.bplus, 150, 0.05, stage.rg);
+    if (!stop.ok) throw new Error(stop.message);
+    expectClose(stop.ia, korenPlateCurrent(ax7.model.params, stop.vpk, limit.vg), { rel: 1e-5 }, 'the drag stops on the curve drawn');
+    // A drag keeps the sheet; a new leak redraws its limit; no leak, no limit.
+    const moved = analyzeStage({ ...stage, ra: 120e3 }, { second: null, levels }, a);
+    expect(moved.ok && moved.sheet).toBe(a.sheet);
+    const lower = analyzeStage({ ...stage, rg: 220e3 }, { second: null, levels }, a);
+    if (!lower.ok) throw new Error(lower.message);
+    expect(lower.sheet.gridLimit!.vg).toBeGreaterThan(limit.vg);
+    expect(lower.sheet.family).toBe(a.sheet.family);
+    const none = analyzeStage({ ...stage, rg: undefined }, { second: null, levels }, null);
+    expect(none.ok && none.sheet.gridLimit).toBeNull();
   });
 
   it('a drag\'s frame keeps the heavy signal views from before, marked stale', () => {

@@ -21,6 +21,13 @@ export const VOLTAGE_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'Span of the signal at the chosen level', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
+/** The voltage stage's key, with the grid-leak limit's curve when its grid returns through a leak (vg below 0 V). */
+export function voltageStageLegend(gridLimit: number | null): readonly LegendItem[] {
+  if (gridLimit === null || !(gridLimit < 0)) return VOLTAGE_STAGE_LEGEND;
+  const limit = { label: `Grid-leak limit (${gridLimit.toFixed(2).replace('-', '−')} V): Rg's own drop biases the grid there with no Rk; above it the grid draws current`, stroke: PALETTE.limit, dash: LIMIT_STROKES.gridLeak.dash, width: LIMIT_STROKES.gridLeak.width };
+  return [...VOLTAGE_STAGE_LEGEND.slice(0, -1), limit, VOLTAGE_STAGE_LEGEND[VOLTAGE_STAGE_LEGEND.length - 1]!];
+}
+
 export const OUTPUT_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'Plate curves at the screen voltage as wired (grid voltage marked)', stroke: PALETTE.ink, dash: undefined, width: 1.4 },
   { label: 'DC load line (primary resistance)', stroke: PALETTE.load, dash: undefined, width: 2 },

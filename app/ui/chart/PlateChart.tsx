@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } fro
 import { milliamps, volts } from '../../format';
 import { useWorkbench, useWorkbenchStore } from '../../store/StoreProvider';
 import { attachDrag } from './attachDrag';
-import { ChartLegend, followerLegend, VOLTAGE_STAGE_LEGEND } from './ChartLegend';
+import { ChartLegend, followerLegend, voltageStageLegend } from './ChartLegend';
 import { PointMark, RivalMark } from './SheetLayers';
 import { ChartShell } from './ChartShell';
 import { pointKey } from './pointKeys';
@@ -50,7 +50,7 @@ export function PlateChart() {
             {follower ? null : <ChartWindowSwitch />}
             <CurveDensity />
           </div>
-          <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} alongLine={followerRegion !== null} items={follower && vgrid !== null ? followerLegend(vgrid) : VOLTAGE_STAGE_LEGEND} />
+          <ChartLegend rival={rival.on && rivalSheet ? rival.tubeId : null} first={tubeId} region={regionKeys} alongLine={followerRegion !== null} items={follower && vgrid !== null ? followerLegend(vgrid) : voltageStageLegend(sheet.gridLimit?.vg ?? null)} />
         </>
       }
     />

@@ -125,6 +125,22 @@ export function drawLimits(layer: SVGGElement, sheet: CurveSheet, scales: PlateS
       .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
       .text(`${sheet.maxPlateDissipation} W rated dissipation`);
   }
+  if (sheet.gridLimit) {
+    const curve = sheet.gridLimit;
+    g.append('path')
+      .attr('d', planePath(scales)(curve.points as PlanePoint[]))
+      .attr('fill', 'none').attr('stroke', PALETTE.limit).attr('stroke-width', LIMIT_STROKES.gridLeak.width).attr('stroke-dasharray', LIMIT_STROKES.gridLeak.dash)
+      .attr('data-series', 'grid-leak-limit').attr('data-vg', curve.vg);
+    // Named low on the curve, clear of the grid-voltage labels along the top and right edges.
+    const [, iTop] = scales.y.domain() as [number, number];
+    const at = curve.points.find((p) => p.i >= 0.35 * iTop);
+    if (at) {
+      g.append('text').attr('x', scales.x(at.v) + 6).attr('y', scales.y(at.i)).attr('text-anchor', 'start')
+        .attr('font-size', 11).attr('fill', PALETTE.limit)
+        .attr('paint-order', 'stroke').attr('stroke', PALETTE.sheet).attr('stroke-width', 3)
+        .text(`${fmtGrid(Number(curve.vg.toFixed(2)))}: grid-leak limit`);
+    }
+  }
   if (sheet.maxPlateVoltage !== null && sheet.maxPlateVoltage <= sheet.extent.vmax) {
     const xv = scales.x(sheet.maxPlateVoltage);
     const [yBottom, yTop] = scales.y.range() as [number, number];

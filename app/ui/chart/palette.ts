@@ -29,4 +29,6 @@ export const PALETTE = {
 export const LIMIT_STROKES = {
   dissipation: { dash: '7 4', width: 1.6 },
   maxPlateVoltage: { dash: '2 4', width: 1.2 },
+  /** A leaked grid's limit: the plate curve where its own current biases it, dash-dot so it reads apart from the other two. */
+  gridLeak: { dash: '8 3 2 3', width: 1.4 },
 } as const;
