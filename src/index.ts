@@ -116,6 +116,7 @@ export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
 export { analyzeStage, type StageAnalysis, type StageAnalysisOptions } from './stage/analyzeStage';
 export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';
+export { screenFeedPlan, type ScreenFeedPlan } from './output/screenFeed';
 export { amplifierAtLevel, type AmplifierLevel, type AmplifierAtLevel, type StageLevel } from './chain/amplifierAtLevel';
 export { solveSupply } from './supply/solveSupply';
 export { checkSupply, MAX_SECTIONS } from './supply/checkSupply';

@@ -1,4 +1,5 @@
 import { bySeverity, dissipationFinding, finding, heaterCathodeFinding, heaterCathodeRating, type Finding, type FindingKind, type Severity } from '../stage/ratingBands';
+import { screenSupplyFinding } from './screenFeed';
 import type { OutputSolution } from './solveOutput';
 
 const v0 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
@@ -20,6 +21,11 @@ export function outputFindings(s: OutputSolution, peakPlateVolts: number | null)
   dissipation('plate-dissipation', op.connection === 'triode' && s.tube.law.kind === 'pentode' ? 'Plate (with screen)' : 'Plate', op.pa, r.maxPlateDissipation, '');
   if (r.maxScreenDissipation !== null && op.connection !== 'triode') {
     dissipation('screen-dissipation', 'Screen', op.pg2, r.maxScreenDissipation, ' at idle (it rises under drive as the plate swings low)');
+  }
+
+  if (op.feed.kind === 'fixed') {
+    const screenNode = screenSupplyFinding(design.bplus, design.screenVolts);
+    if (screenNode) out.push(screenNode);
   }
 
   const dcPlate = op.supply;

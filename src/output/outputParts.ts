@@ -1,7 +1,10 @@
 import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
+import { CAPACITOR_VOLTS, roundUpTo } from '../build/ratings';
+import { MAINS_HIGH } from '../build/supplyParts';
 import type { PreferredSeries } from '../parts/preferredValues';
 import { followerZout } from '../stage/gainFormulas';
 import type { OutputAnalysis } from './analyzeOutput';
+import { screenConductance, screenFeedPlan, type ScreenFeedPlan } from './screenFeed';
 
 /** The bypass is sized for its corner to sit this far below the band, Hz (common practice: a decade under 20 Hz is often quoted; 10 Hz keeps the part sane). */
 export const CATHODE_BYPASS_CORNER_HZ = 10;
@@ -45,6 +48,11 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
     capacitors.push(capacitorLine('Ck', 'cathode bypass', ck, op.vk, 0, '+ to cathode'));
   }
   resistors.push(resistorLine('Rg', design.bias === 'fixed' ? 'grid resistor to the bias supply' : 'grid resistor', design.rg, 0, series));
+  if (op.feed.kind === 'fixed') {
+    const screen = screenDropperParts(screenFeedPlan(design.bplus, design.screenVolts, op.ig2), design.bplus, design.screenVolts, screenConductance(a.solution.tube, op.feed.vg2k, op.vpk, op.vgk), series);
+    resistors.push(...screen.resistors);
+    capacitors.push(...screen.capacitors);
+  }
   return {
     resistors,
     capacitors,
@@ -57,4 +65,22 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
       screenTap: op.connection === 'ultralinear' ? design.ulTap : null,
     },
   };
+}
+
+/**
+ * The dropper's parts to order: the resistor (rated by the voltage stage's
+ * rule for the screens' idle current) and its bypass to ground, sized for
+ * its reactance at CATHODE_BYPASS_CORNER_HZ to equal what it shunts (the
+ * resistor in parallel with the screens themselves). The bypass is a filter
+ * capacitor on B+ (at switch-on cold screens draw nothing, so it sees all of
+ * it) and is rated as the supply's are: for that voltage with the mains 10 %
+ * high (IEC 60038's tolerance).
+ */
+export function screenDropperParts(plan: ScreenFeedPlan, bplus: number, screenVolts: number, gScreens: number, series: PreferredSeries): { resistors: ResistorLine[]; capacitors: CapacitorLine[] } {
+  if (plan.kind !== 'dropper') return { resistors: [], capacitors: [] };
+  const r = resistorLine('Rs', 'screen dropper from B+; its current rises under drive', plan.ohms, plan.amps, series);
+  const shunted = gScreens > 0 ? 1 / (1 / r.preferred + gScreens) : r.preferred;
+  const c = capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred;
+  const line = capacitorLine('Cs', 'screen bypass, rated as a filter capacitor', c, screenVolts, bplus, '+ to screen');
+  return { resistors: [r], capacitors: [{ ...line, ratingVolts: roundUpTo(CAPACITOR_VOLTS, MAINS_HIGH * bplus) }] };
 }

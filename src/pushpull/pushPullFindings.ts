@@ -1,5 +1,6 @@
 import { bySeverity, dissipationFinding, finding, heaterCathodeFinding, heaterCathodeRating, type Finding } from '../stage/ratingBands';
 import type { PushPullFigures } from './pushPullFigures';
+import { screenSupplyFinding } from '../output/screenFeed';
 import type { PushPullSolution } from './solvePushPull';
 
 const v0 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
@@ -28,6 +29,10 @@ export function pushPullFindings(s: PushPullSolution, figures: PushPullFigures |
     const pg2 = Math.max(s.idle[0].pg2, s.idle[1].pg2);
     const worst = figures ? Math.max(figures.worstScreen.watts, pg2) : pg2;
     out.push(dissipationFinding('screen-dissipation', 'Screen', worst, r.maxScreenDissipation!, figures && worst > pg2 * 1.005 ? ` at its worst under drive (${v0(figures.worstScreen.drive)} V peak on each grid), per tube` : ' at idle, per tube'));
+  }
+  if (s.feed.kind === 'fixed') {
+    const screenNode = screenSupplyFinding(d.bplus, d.screenVolts);
+    if (screenNode) out.push(screenNode);
   }
   if (s.supply > r.maxPlateVoltage) out.push(finding('plate-voltage', 'danger', `DC plate voltage ${v0(s.supply)} V exceeds the ${r.maxPlateVoltage} V rating.`, s.supply, r.maxPlateVoltage));
   if (screened && r.maxScreenVoltage !== null) {

@@ -1,7 +1,8 @@
 import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
 import type { PreferredSeries } from '../parts/preferredValues';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
-import { CATHODE_BYPASS_CORNER_HZ } from '../output/outputParts';
+import { CATHODE_BYPASS_CORNER_HZ, screenDropperParts } from '../output/outputParts';
+import { screenConductance, screenFeedPlan } from '../output/screenFeed';
 import type { PushPullAnalysis } from './analyzePushPull';
 
 /** The pair's output transformer: centre-tapped, B+ at the tap. */
@@ -53,6 +54,14 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     capacitors.push(capacitorLine('Ck', 'cathode bypass, shared', capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred, s.vk, 0, '+ to cathode'));
   }
   resistors.push(resistorLine('Rg1, Rg2', d.bias === 'fixed' ? 'grid resistors to the bias supply (one per tube)' : 'grid resistors (one per tube)', d.rg, 0, series));
+  if (s.feed.kind === 'fixed') {
+    // Both screens on one dropper and one bypass (common practice), carrying both idle currents.
+    const [one, two] = s.idle;
+    const g = screenConductance(s.tube, s.feed.vg2k, one.vpk, s.vgk) + screenConductance(s.tube2, s.feed.vg2k, two.vpk, s.vgk2);
+    const screen = screenDropperParts(screenFeedPlan(d.bplus, d.screenVolts, one.ig2 + two.ig2), d.bplus, d.screenVolts, g, series);
+    resistors.push(...screen.resistors);
+    capacitors.push(...screen.capacitors);
+  }
   return {
     resistors,
     capacitors,

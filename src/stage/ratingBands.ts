@@ -17,6 +17,7 @@ export type FindingKind =
   | 'cathode-current'
   | 'screen-dissipation'
   | 'screen-voltage'
+  | 'screen-supply'
   | 'plate-swing'
   | 'capacitor-voltage'
   | 'capacitor-ripple-current'

@@ -45,7 +45,8 @@ describe('output stage parts list', () => {
     const f = analyzeOutput(findOutputTube('EL34')!, { ...design, bias: 'fixed' }, { light: true });
     if (!f.ok) throw new Error(f.message);
     const p = outputPartsList(f, 'E24');
-    expect(p.resistors.map((r) => r.ref)).toEqual(['Rg']);
-    expect(p.capacitors).toEqual([]);
+    // The grid resistor, and (its screens 30 V under B+) the screens' dropper and bypass: no cathode parts.
+    expect(p.resistors.map((r) => r.ref)).toEqual(['Rg', 'Rs']);
+    expect(p.capacitors.map((c) => c.ref)).toEqual(['Cs']);
   });
 });

@@ -170,6 +170,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('pushPullAtDrive', fc.tuple(near(solvedPP), or(fc.double({ min: 0, max: 60 })), or(fc.constantFrom(16, 64, 100))), Q.pushPullAtDrive, 60);
   run('pushPullFigures', fc.tuple(near(solvedPP)), Q.pushPullFigures, 20);
   const solvedPPCathode = Q.solvePushPull(el34, { ...ppDesign, bias: 'cathode' });
+  run('screenFeedPlan', fc.tuple(numbers, numbers, numbers), Q.screenFeedPlan, 200);
   run('settledCathodeBias', fc.tuple(fc.oneof(near(solvedPPCathode), near(solvedPP), fc.constant(solvedPPCathode))), Q.settledCathodeBias, 20);
   // Found by a fresh seed: a solution whose supply was edited to 1.7e308 V gave infinite figures.
   it('pushPullFigures refuses an idle point its design could not have', () => {
