@@ -7,7 +7,9 @@ import type { OutputDesign } from './outputDesign';
 import { outputFindings } from './outputFindings';
 import { chartOptionsOf } from './chartOptions';
 import { outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
-import { atDrive, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
+import { atDrive, averageScreenCurrent, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
+import { screenFeedPlan, screenSagFinding } from './screenFeed';
+import { bySeverity } from '../stage/ratingBands';
 import type { OutputTube } from './outputTube';
 import { powerAtDistortion, powerSweep, zPrimarySweep, type LimitedPower, type ZSweep } from './powerSweep';
 import { solveOutput, type OutputSolution } from './solveOutput';
@@ -33,6 +35,8 @@ export interface OutputAnalysis {
   /** Filled on the full pass; the light pass that runs during a drag carries the last full pass's, stale. */
   readonly sweep: readonly DriveResult[];
   readonly zSweep: ZSweep | null;
+  /** A pentode-connected screen's current averaged over the cycle with the grid driven to 0 V, A (what its dropper drops then); null for the other connections. The light pass carries the last full pass's. */
+  readonly screenAtFull: number | null;
 }
 
 /**
@@ -87,6 +91,9 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
   const samples = light ? SWEEP_SAMPLES : OUTPUT_SAMPLES;
   const clean = cleanLimit(s, design.zPrimary, samples);
   const full = atDrive(s, Math.max(0, -s.op.vgk), design.zPrimary, samples);
+  const screenAtFull = s.op.feed.kind !== 'fixed' ? null : light ? (prev?.screenAtFull ?? null) : averageScreenCurrent(s, full.drive);
+  const screenPlan = screenFeedPlan(design.bplus, design.screenVolts, s.op.ig2);
+  const sag = screenAtFull === null ? null : screenSagFinding(screenPlan, design.screenVolts, screenAtFull);
   const zOut = s.op.rp + design.rPrimary;
   const dampingFactor = Number.isFinite(zOut) && zOut > 0 ? design.zPrimary / zOut : 0;
   return {
@@ -101,8 +108,9 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
     dampingFactor,
     outputImpedance: dampingFactor > 0 ? design.speakerOhms / dampingFactor : Infinity,
     turnsRatio: Math.sqrt(design.zPrimary / design.speakerOhms),
-    findings: outputFindings(s, full.vpkMax),
+    findings: sag ? bySeverity([...outputFindings(s, full.vpkMax), sag]) : outputFindings(s, full.vpkMax),
     sweep: light ? (prev?.sweep ?? []) : powerSweep(s),
     zSweep: light ? (prev?.zSweep ?? null) : zPrimarySweep(s),
+    screenAtFull,
   };
 }

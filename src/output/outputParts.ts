@@ -49,7 +49,7 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
   }
   resistors.push(resistorLine('Rg', design.bias === 'fixed' ? 'grid resistor to the bias supply' : 'grid resistor', design.rg, 0, series));
   if (op.feed.kind === 'fixed') {
-    const screen = screenDropperParts(screenFeedPlan(design.bplus, design.screenVolts, op.ig2), design.bplus, design.screenVolts, screenConductance(a.solution.tube, op.feed.vg2k, op.vpk, op.vgk), series);
+    const screen = screenDropperParts(screenFeedPlan(design.bplus, design.screenVolts, op.ig2), design.bplus, design.screenVolts, screenConductance(a.solution.tube, op.feed.vg2k, op.vpk, op.vgk), a.screenAtFull ?? null, series);
     resistors.push(...screen.resistors);
     capacitors.push(...screen.capacitors);
   }
@@ -68,17 +68,19 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
 }
 
 /**
- * The dropper's parts to order: the resistor (rated by the voltage stage's
- * rule for the screens' idle current) and its bypass to ground, sized for
+ * The dropper's parts to order: the resistor (sized for the screens' idle
+ * current, run and rated by the voltage stage's rule at the larger of that
+ * and their average with the grids driven to 0 V) and its bypass to ground, sized for
  * its reactance at CATHODE_BYPASS_CORNER_HZ to equal what it shunts (the
  * resistor in parallel with the screens themselves). The bypass is a filter
  * capacitor on B+ (at switch-on cold screens draw nothing, so it sees all of
  * it) and is rated as the supply's are: for that voltage with the mains 10 %
  * high (IEC 60038's tolerance).
  */
-export function screenDropperParts(plan: ScreenFeedPlan, bplus: number, screenVolts: number, gScreens: number, series: PreferredSeries): { resistors: ResistorLine[]; capacitors: CapacitorLine[] } {
+export function screenDropperParts(plan: ScreenFeedPlan, bplus: number, screenVolts: number, gScreens: number, fullAmps: number | null, series: PreferredSeries): { resistors: ResistorLine[]; capacitors: CapacitorLine[] } {
   if (plan.kind !== 'dropper') return { resistors: [], capacitors: [] };
-  const r = resistorLine('Rs', 'screen dropper from B+; its current rises under drive', plan.ohms, plan.amps, series);
+  const rising = fullAmps !== null && Number.isFinite(fullAmps) && fullAmps > plan.amps;
+  const r = resistorLine('Rs', rising ? 'screen dropper from B+, watts at full drive' : 'screen dropper from B+', plan.ohms, rising ? fullAmps : plan.amps, series);
   const shunted = gScreens > 0 ? 1 / (1 / r.preferred + gScreens) : r.preferred;
   const c = capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred;
   const line = capacitorLine('Cs', 'screen bypass, rated as a filter capacitor', c, screenVolts, bplus, '+ to screen');

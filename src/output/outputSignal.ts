@@ -198,3 +198,22 @@ export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary, samp
   const drive = cutoffDrive ?? grid;
   return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: atDrive(s, drive, zPrimary, samples) };
 }
+
+/**
+ * The screen's current averaged over a cycle at a drive (peak grid swing),
+ * A: each instant solved on the load as the power figures are, the screen's
+ * law read there. In a pentode the screen takes more as the plate swings low,
+ * so its average rises with drive: what a dropping resistor then drops.
+ */
+export function averageScreenCurrent(s: OutputSolution, drive: number, samples = SWEEP_SAMPLES): number {
+  const at: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
+  const screen = emptyCurrents();
+  let sum = 0;
+  for (let k = 0; k < samples; k++) {
+    const vgk = s.op.vgk + drive * Math.sin((2 * Math.PI * k) / samples);
+    solveInstant(s, vgk, s.design.zPrimary, at, k > 0 ? at.m : undefined);
+    stageCurrentsInto(s.tube, s.op.feed, at.vpk, vgk, screen, at.winding);
+    sum += screen.ig2;
+  }
+  return sum / samples;
+}

@@ -1,4 +1,5 @@
 import { emptyCurrents, stageCurrentsInto } from './electrodes';
+import { formatValue } from '../parts/formatValue';
 import { finding, type Finding } from '../stage/ratingBands';
 import type { OutputTube } from './outputTube';
 
@@ -52,4 +53,26 @@ export function screenConductance(tube: OutputTube, vg2k: number, vpk: number, v
 export function screenSupplyFinding(bplus: number, screenVolts: number): Finding | null {
   if (screenFeedPlan(bplus, screenVolts, 1).kind !== 'own-node') return null;
   return finding('screen-supply', 'note', `The screens at ${screenVolts.toFixed(0)} V sit above B+ (${bplus.toFixed(0)} V): feed them from a supply node of their own at that voltage (the figures take it as held there; the supply here feeds the plates).`, screenVolts, bplus);
+}
+
+/** A dropper's sag at full drive past this share of the screen voltage is warned (our own threshold: about where the power figures, which hold the screen, stop being the amplifier's). */
+export const SCREEN_SAG_SHARE = 0.05;
+
+/**
+ * Where a dropper would let the screens sag at full drive: their average
+ * current there through the dropper drops more than at idle (Ohm's law),
+ * while the figures hold the screen at the voltage asked. Past
+ * SCREEN_SAG_SHARE of it, a warning with the cure.
+ */
+export function screenSagFinding(plan: ScreenFeedPlan, screenVolts: number, fullAmps: number): Finding | null {
+  if (plan.kind !== 'dropper' || !(fullAmps > plan.amps) || !Number.isFinite(fullAmps)) return null;
+  const sag = plan.ohms * (fullAmps - plan.amps);
+  if (!(sag > SCREEN_SAG_SHARE * screenVolts)) return null;
+  return finding(
+    'screen-supply',
+    'warning',
+    `At full drive the screens draw ${(fullAmps * 1e3).toFixed(1)} mA on average (${(plan.amps * 1e3).toFixed(1)} mA at idle): through a ${formatValue(plan.ohms, 'Ω')} dropper from B+ they would sag about ${sag.toFixed(0)} V below ${screenVolts.toFixed(0)} V, where the power figures hold them. Feed the screens from a stiffer supply: a node of their own at that voltage, or a smaller dropper from a lower node (common practice).`,
+    sag,
+    SCREEN_SAG_SHARE * screenVolts,
+  );
 }

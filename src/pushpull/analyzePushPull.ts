@@ -15,6 +15,8 @@ import { pushPullFigures, type PushPullFigures } from './pushPullFigures';
 import { pushPullFindings } from './pushPullFindings';
 import { pushPullOverlay, type PushPullOverlay } from './pushPullOverlay';
 import { settledCathodeBias, type SettledBias } from './settledBias';
+import { screenFeedPlan, screenSagFinding } from '../output/screenFeed';
+import { bySeverity } from '../stage/ratingBands';
 import { solvePushPull, type PushPullSolution } from './solvePushPull';
 
 const opOf = (p: { readonly ia: number; readonly ig2: number; readonly pa: number; readonly pg2: number }): PushPullTubeOp => ({ ia: p.ia, ig2: p.ig2, pa: p.pa, pg2: p.pg2 });
@@ -124,7 +126,16 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
     settledBias,
     supplyCurrent: { idle: s.supplyCurrent, full: full.supplyCurrent },
     turnsRatio: Math.sqrt(design.raa / design.speakerOhms),
-    findings: pushPullFindings(s, light ? null : figures, peak),
+    findings: withScreenSag(pushPullFindings(s, light ? null : figures, peak), s, full),
   };
 }
 
+
+/** The pair's findings with a dropper's sag at full drive, where its screens are fed a fixed voltage below B+. */
+function withScreenSag(findings: Finding[], s: PushPullSolution, full: PushPullDrive): Finding[] {
+  const d = s.design;
+  if (s.feed.kind !== 'fixed' || !(s.feed.vg2k > 0)) return findings;
+  const plan = screenFeedPlan(d.bplus, d.screenVolts, s.idle[0].ig2 + s.idle[1].ig2);
+  const sag = screenSagFinding(plan, d.screenVolts, (full.screenDissipation[0] + full.screenDissipation[1]) / s.feed.vg2k);
+  return sag ? bySeverity([...findings, sag]) : findings;
+}

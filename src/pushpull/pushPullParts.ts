@@ -58,7 +58,7 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     // Both screens on one dropper and one bypass (common practice), carrying both idle currents.
     const [one, two] = s.idle;
     const g = screenConductance(s.tube, s.feed.vg2k, one.vpk, s.vgk) + screenConductance(s.tube2, s.feed.vg2k, two.vpk, s.vgk2);
-    const screen = screenDropperParts(screenFeedPlan(d.bplus, d.screenVolts, one.ig2 + two.ig2), d.bplus, d.screenVolts, g, series);
+    const screen = screenDropperParts(screenFeedPlan(d.bplus, d.screenVolts, one.ig2 + two.ig2), d.bplus, d.screenVolts, g, pairScreensAtFull(a), series);
     resistors.push(...screen.resistors);
     capacitors.push(...screen.capacitors);
   }
@@ -93,4 +93,12 @@ function cathodeConductance(a: PushPullAnalysis): number {
   };
   const g = (sum(-h) - sum(h)) / (2 * h);
   return Number.isFinite(g) && g > 0 ? g : 0;
+}
+
+/** Both screens' current averaged over the cycle with the grids driven to 0 V, A (each screen's dissipation over its fixed voltage); null unless fed a fixed voltage. */
+export function pairScreensAtFull(a: PushPullAnalysis): number | null {
+  const feed = a.solution.feed;
+  if (feed.kind !== 'fixed' || !(feed.vg2k > 0)) return null;
+  const amps = (a.full.screenDissipation[0] + a.full.screenDissipation[1]) / feed.vg2k;
+  return Number.isFinite(amps) ? amps : null;
 }

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeOutput, analyzePushPull, findOutputTube, outputPartsList, pushPullPartsList, screenFeedPlan, type OutputDesign, type PushPullDesign } from '../../src/index';
 import { emptyCurrents, stageCurrentsInto } from '../../src/output/electrodes';
+import { screenSagFinding } from '../../src/output/screenFeed';
+import { pairScreensAtFull } from '../../src/pushpull/pushPullParts';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own designs: an EL34 pentode with its screens 30 V under the plate's B+, and a 6L6GC pair at the RCA sheet's
@@ -50,11 +52,39 @@ describe('the screens\' feed on a pentode-connected output stage', () => {
     }
   });
 
+  // Ohm's law again: at full drive the screens' average current (checked against ngspice in screenCurrent.spice.test.ts)
+  // through the dropper drops more than at idle; the figures hold the screen, so past 5 % of it (our threshold) a warning.
+  it('warns how far a dropper lets the screens sag at full drive, and rates it for that current', () => {
+    const a = analyzeOutput(findOutputTube('EL34')!, el34);
+    if (!a.ok) throw new Error(a.message);
+    const idle = a.solution.op.ig2;
+    const full = a.screenAtFull!;
+    expect(full).toBeGreaterThan(2 * idle);
+    const sag = a.findings.find((f) => f.kind === 'screen-supply')!;
+    expect(sag.severity).toBe('warning');
+    expectClose(sag.value, ((330 - 300) / idle) * (full - idle), { rel: 1e-9 }, 'sag');
+    expect(sag.message).toMatch(/^At full drive the screens draw 18\.\d mA on average \(5\.1 mA at idle\): through a 5\.92 kΩ dropper from B\+ they would sag about \d+ V below 300 V/);
+    const rs = outputPartsList(a, 'E24').resistors.find((r) => r.ref === 'Rs')!;
+    expectClose(rs.watts, full ** 2 * rs.preferred, { rel: 1e-9 }, 'Rs at full drive');
+    expect(rs.ratingWatts).toBeGreaterThanOrEqual(2 * rs.wattsWorst);
+    // A small rise stays quiet; so does a screen fed straight from B+.
+    expect(screenSagFinding({ kind: 'dropper', ohms: 6000, amps: 0.005 }, 300, 0.0052)).toBeNull();
+    const atBplus = analyzeOutput(findOutputTube('EL34')!, { ...el34, screenVolts: 330 });
+    if (!atBplus.ok) throw new Error(atBplus.message);
+    expect(atBplus.findings.some((f) => f.kind === 'screen-supply')).toBe(false);
+  });
+
   it('a pair\'s screens share one dropper carrying both idle currents', () => {
     const a = analyzePushPull(findOutputTube('6L6GC')!, pair6l6, { light: true });
     if (!a.ok) throw new Error(a.message);
     const rs = pushPullPartsList(a, 'E24').resistors.find((r) => r.ref === 'Rs')!;
-    expectClose(rs.value, (450 - 400) / (a.solution.idle[0].ig2 + a.solution.idle[1].ig2), { rel: 1e-12 }, 'Rs');
+    const idle = a.solution.idle[0].ig2 + a.solution.idle[1].ig2;
+    expectClose(rs.value, (450 - 400) / idle, { rel: 1e-12 }, 'Rs');
+    // Its sag at full drive, both screens' average current through it (Ohm's law), is warned like a single tube's.
+    const full = pairScreensAtFull(a)!;
+    const sag = a.findings.find((f) => f.kind === 'screen-supply')!;
+    expectClose(sag.value, rs.value * (full - idle), { rel: 1e-9 }, 'sag');
+    expectClose(rs.watts, full ** 2 * rs.preferred, { rel: 1e-9 }, 'Rs at full drive');
   });
 
   it('a screen above B+ needs a node of its own: no dropper, a note that says so (single-ended and pair)', () => {

@@ -26,7 +26,8 @@ export function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: num
   ].join('\n');
 }
 
-export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number): string {
+/** `measureScreen`: also print a pentode screen supply's current averaged over the last cycle (isavg; negative: into the screen). */
+export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, measureScreen = false): string {
   const n2 = d.zPrimary / d.speakerOhms;
   const ul = d.connection === 'ultralinear' && tube.law.kind === 'pentode';
   const lines: string[] = ['* single-ended transformer-coupled output stage'];
@@ -50,6 +51,6 @@ export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number): 
   } else {
     lines.push('X1 plate grid cathode tri');
   }
-  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
+  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', ...(measureScreen ? ['meas tran isavg avg i(vs) from=4m to=5m', 'print isavg'] : []), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }

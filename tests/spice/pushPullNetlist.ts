@@ -66,6 +66,6 @@ export function pushPullNetlist(tube: OutputTube, d: PushPullDesign, peak: numbe
   }
   lines.push('.control', 'set numdgt=12', 'op', 'print v(plate1) v(plate2) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', ...(settle
     ? [`tran 0.25u ${settle.ms}m ${settle.ms - 10}m 0.25u`, `meas tran vkavg avg v(cathode) from=${settle.ms - 10}m to=${settle.ms}m`, 'print vkavg']
-    : ['tran 0.25u 60m 50m 0.25u']), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
+    : ['tran 0.25u 60m 50m 0.25u']), ...(d.connection === 'pentode' && pentode ? [`meas tran isavg avg i(vs) from=${(settle?.ms ?? 60) - 1}m to=${settle?.ms ?? 60}m`, 'print isavg'] : []), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }
