@@ -48,7 +48,6 @@ export function screenConductance(tube: OutputTube, vg2k: number, vpk: number, v
   return Number.isFinite(g) && g > 0 ? g : 0;
 }
 
-
 /** A note where the screens need a node above B+: the supply's nodes feed the plates, and no screen node is modelled. */
 export function screenSupplyFinding(bplus: number, screenVolts: number): Finding | null {
   if (screenFeedPlan(bplus, screenVolts, 1).kind !== 'own-node') return null;

@@ -130,7 +130,6 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
   };
 }
 
-
 /** The pair's findings with a dropper's sag at full drive, where its screens are fed a fixed voltage below B+. */
 function withScreenSag(findings: Finding[], s: PushPullSolution, full: PushPullDrive): Finding[] {
   const d = s.design;

@@ -26,8 +26,8 @@ const VOLT_TOL = 1e-4;
  * negative, the grids need more drive to reach 0 V, and the power there is
  * less than at the idle bias. Solved as the root of Rk·Ī(Vk) − Vk, Ī the
  * cycle's average cathode current with the pair rebuilt at that cathode and
- * the grids driven to it (Ī falls as Vk rises: one root). Fixed bias has no
- * such shift: a failure naming the bias.
+ * the grids driven to it, bracketed by walking from the idle bias. Fixed
+ * bias has no such shift: a failure naming the bias.
  */
 export function settledCathodeBias(s: PushPullSolution): Result<SettledBias> {
   const problem = checkPushPullSolution(s);
