@@ -45,9 +45,9 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
       </dl>
       {d.bias === 'cathode' ? (
         <dl className="figure-group" aria-label="The shared cathode resistor under full drive">
-          <Figure name="settled-vk" label="Vk idle → settled at full drive" value={a.settledBias && !bench.light ? `${volts(a.settledBias.idleVk)} → ${volts(a.settledBias.vk)}` : wait} chars={15} />
-          <Figure name="settled-power" label="Grids driven to 0 V there" value={a.settledBias && !bench.light ? `${watts(a.settledBias.full.power)} at ${percent(a.settledBias.full.thd)} THD` : wait} chars={20.5} />
-          <Figure name="settled-drive" label="Drive per grid there" value={a.settledBias && !bench.light ? `${volts(a.settledBias.full.drive / Math.SQRT2)} rms` : wait} chars={9} />
+          <Figure name="settled-vk" label="Vk idle → settled at full drive" value={bench.light ? wait : a.settledBias ? `${volts(a.settledBias.idleVk)} → ${volts(a.settledBias.vk)}` : 'does not settle'} chars={15} />
+          <Figure name="settled-power" label="Grids driven to 0 V there" value={!bench.light && a.settledBias ? `${watts(a.settledBias.full.power)} at ${percent(a.settledBias.full.thd)} THD` : bench.light ? wait : '—'} chars={20.5} />
+          <Figure name="settled-drive" label="Drive per grid there" value={!bench.light && a.settledBias ? `${volts(a.settledBias.full.drive / Math.SQRT2)} rms` : bench.light ? wait : '—'} chars={9} />
         </dl>
       ) : null}
       <dl className="figure-group">
