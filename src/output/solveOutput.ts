@@ -149,8 +149,13 @@ function tapSlopes(p: KorenPentodeParams, x: number, vpk: number, vgk: number, v
   const dia = -(a + b * x) / (1 + a * r);
   const dig2 = -c * (1 + r * dia) - d * x;
   const g = -(dia + x * dig2);
-  const rp = g > 0 ? Math.max(0, 1 / g - r) : Infinity;
-  return { rp: Number.isFinite(rp) && rp > 0 ? rp : Infinity, gm: Math.max(0, gmA + x * gm2) };
+  const gm = Math.max(0, gmA + x * gm2);
+  const rp = g > 0 ? 1 / g - r : -1;
+  if (Number.isFinite(rp) && rp > 0) return { rp, gm };
+  // With a primary resistance near the load itself the screen's coupling brings 1/G under R and the split into
+  // rp + R no longer holds: the tube's own slope as wired then, R left out (the same formulas with R = 0).
+  const own = a + b * x + x * (c + d * x);
+  return { rp: own > 0 && Number.isFinite(1 / own) ? 1 / own : Infinity, gm };
 }
 
 /**

@@ -225,6 +225,15 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('rankOutputTubes', fc.tuple(outputTargets, fc.oneof(fc.record({ pair: fc.constant('single-ended'), design: near(output) }), anything), or(fc.constant([el34]))), Q.rankOutputTubes, 10);
   run('outputTargetsOf', fc.tuple(outputTargets, fc.oneof(fc.record({ design: near(output) }), anything)), Q.outputTargetsOf);
   run('solveOutput', fc.tuple(outTubes, near(output)), Q.solveOutput);
+  // Found by a fresh seed at twenty times the count: an ultralinear primary with 2.6 kΩ of DC resistance under its
+  // 3.5 kΩ read rp as Infinity (the screen's coupling brought the winding's 1/G under R, and 0 was taken as none).
+  it('solveOutput keeps rp finite with a primary resistance near the load itself', () => {
+    for (const rPrimary of [2584.8491558266983, 3400]) {
+      keepsPromise('solveOutput', () => Q.solveOutput(el34, { ...output, rPrimary }), [rPrimary]);
+      const s = Q.solveOutput(el34, { ...output, rPrimary });
+      expect(s.ok && Number.isFinite(s.op.rp) && s.op.rp > 0, String(rPrimary)).toBe(true);
+    }
+  });
   run('analyzeOutput (light)', fc.tuple(outTubes, near(output), near({ light: true })), Q.analyzeOutput, 150);
   run('biasForPoint', fc.tuple(outTubes, near(output), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.biasForPoint);
   run('switchBias', fc.tuple(solutions, fc.oneof(fc.constantFrom('cathode', 'fixed'), anything)), Q.switchBias);
