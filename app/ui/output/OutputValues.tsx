@@ -70,7 +70,7 @@ export function OutputValues() {
       <p className="field-hint">{tube.law.kind === 'triode' ? 'A power triode: no screen to connect.' : CONNECTION_NOTES[o.connection]}</p>
       <div className="value-grid">
         <BplusField field="oBplus" bench="output" hint="at the primary's B+ end" />
-        {tube.law.kind === 'pentode' && o.connection === 'pentode' ? <ValueField field="oScreen" hint="screen supply to ground" /> : null}
+        {tube.law.kind === 'pentode' && o.connection === 'pentode' ? <ValueField field="oScreen" hint="to ground; below B+ the parts list drops it from B+ through Rs" /> : null}
         {tube.law.kind === 'pentode' && o.connection === 'ultralinear' ? <ValueField field="oTap" hint="share of primary turns from B+" /> : null}
         {pushPull ? <ValueField field="oRaa" hint="plate to plate" /> : <ValueField field="oZ" hint="reflected load, plate to B+" />}
         <ValueField field="oRpri" hint="primary DC resistance" />
