@@ -3,6 +3,7 @@ import { act } from 'react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { cardSections } from '../../app/export/buildCard';
+import { compareCells } from '../../app/ui/output/OutputComparePanel';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { findOutputTube, settledCathodeBias, solvePushPull } from '../../src/index';
 
@@ -28,7 +29,22 @@ describe('a cathode-biased pair shows where its shared resistor settles under fu
     const card = cardSections(store.getState()).flatMap((c) => c.lines);
     expect(card.some((l) => l.startsWith(`The shared Rk settles under full drive at Vk ${r.vk.toPrecision(3)} V`))).toBe(true);
 
+    // A second tube in the same sockets on the same Rk settles where its own currents put it: one row each, side by side.
+    act(() => store.getState().setOutputRival({ on: true, tubeId: '6L6GC', connection: 'ultralinear' }));
+    const st = store.getState();
+    const rival = st.outputRivalBench;
+    if (!rival?.ok || rival.pair !== 'push-pull' || st.outputBench.pair !== 'push-pull') throw new Error('no rival pair');
+    const theirs = settledCathodeBias(rival.analysis.solution);
+    if (!theirs.ok) throw new Error(theirs.message);
+    const row = compareCells(st.outputBench, rival).find((c) => c.key === 'settled')!;
+    expect(row.a).toBe(`${r.full.power.toPrecision(3)} W`);
+    expect(row.b).toBe(`${theirs.full.power.toPrecision(3)} W`);
+
     act(() => { store.getState().setOutputBias('fixed'); });
+    const fixed = store.getState();
+    if (fixed.outputBench.pair === 'push-pull' && fixed.outputRivalBench?.ok && fixed.outputRivalBench.pair === 'push-pull') {
+      expect(compareCells(fixed.outputBench, fixed.outputRivalBench).some((c) => c.key.startsWith('settled'))).toBe(false);
+    } else throw new Error('no pairs under fixed bias');
     expect(figures.queryByText((_, el) => el?.getAttribute('data-figure') === 'settled-vk')).toBeNull();
     expect(cardSections(store.getState()).flatMap((c) => c.lines).some((l) => l.startsWith('The shared Rk settles'))).toBe(false);
   });

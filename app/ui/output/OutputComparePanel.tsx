@@ -12,6 +12,8 @@ interface Row<A = OutputAnalysis> {
   readonly value: (a: A) => number | null;
   readonly show: (v: number) => string;
   readonly diff: 'ratio' | 'difference' | 'points';
+  /** Left out of the table where neither stage has it (a shared cathode resistor's figures under fixed bias). */
+  readonly ifAny?: true;
 }
 
 const share = (v: number, rating: number | null) => (rating ? (100 * v) / rating : null);
@@ -42,6 +44,8 @@ export const PAIR_COMPARE_ROWS: readonly Row<PushPullAnalysis>[] = [
   { label: 'Worst Pa / rating under drive', key: 'worst-pa', value: (a) => (a.figures ? share(a.figures.worstPlate.watts, a.solution.tube.ratings.maxPlateDissipation) : null), show: (v) => `${v.toFixed(0)} %`, diff: 'points' },
   { label: 'Power, grids to 0 V', key: 'full', value: (a) => a.full.power, show: watts, diff: 'ratio' },
   { label: 'THD there', key: 'full-thd', value: (a) => a.full.thd * 100, show: (v) => `${plain(v, 2)} %`, diff: 'ratio' },
+  { label: 'Shared Rk settled at full drive: Vk', key: 'settled-vk', value: (a) => a.settledBias?.vk ?? null, show: volts, diff: 'difference', ifAny: true },
+  { label: 'Power, grids to 0 V there', key: 'settled', value: (a) => a.settledBias?.full.power ?? null, show: watts, diff: 'ratio', ifAny: true },
   { label: 'Power within the THD limit', key: 'limit', value: (a) => (a.figures && !a.figures.overThdEverywhere ? (a.figures.atThdLimit ?? a.figures.atZeroGrid).power : null), show: watts, diff: 'ratio' },
   { label: 'Damping factor', key: 'damping', value: (a) => a.figures?.dampingFactor ?? null, show: (v) => plain(v, 2), diff: 'ratio' },
   { label: 'B+ current at full drive', key: 'supply-full', value: (a) => a.supplyCurrent.full, show: milliamps, diff: 'ratio' },
@@ -50,7 +54,7 @@ export const PAIR_COMPARE_ROWS: readonly Row<PushPullAnalysis>[] = [
 /** Rows and their values for whichever kind of stage both benches hold (the rival copies the design, so they agree). */
 export function compareCells(first: OutputBench, second: OutputBench): { readonly key: string; readonly label: string; readonly a: string; readonly b: string; readonly diff: string }[] {
   const cells = <A,>(rows: readonly Row<A>[], x: A, y: A) =>
-    rows.map((row) => {
+    rows.filter((row) => !row.ifAny || row.value(x) !== null || row.value(y) !== null).map((row) => {
       const va = row.value(x);
       const vb = row.value(y);
       return { key: row.key, label: row.label, a: va === null ? '—' : row.show(va), b: vb === null ? '—' : row.show(vb), diff: difference(row, va, vb) };
