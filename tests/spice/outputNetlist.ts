@@ -26,8 +26,13 @@ export function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: num
   ].join('\n');
 }
 
-/** `measureScreen`: also print a pentode screen supply's current averaged over the last cycle (isavg; negative: into the screen). */
-export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, measureScreen = false): string {
+/**
+ * `measureScreen`: also print a pentode screen supply's current averaged over the last cycle (isavg; negative: into
+ * the screen). `settle`: a run of `ms` milliseconds (and the cathode bypass `ck`), long enough for the primary's
+ * magnetising current (and a bypassed cathode) to settle under the drive; the cathode's average over the last 10 ms
+ * is printed as vkavg, and the Fourier analysis reads the last cycle.
+ */
+export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, measureScreen = false, settle?: { readonly ck: number; readonly ms: number }): string {
   const n2 = d.zPrimary / d.speakerOhms;
   const ul = d.connection === 'ultralinear' && tube.law.kind === 'pentode';
   const lines: string[] = ['* single-ended transformer-coupled output stage'];
@@ -43,7 +48,7 @@ export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, m
   lines.push(`LS sec 0 ${g(L_PRIMARY / n2)}`, `RSPK sec 0 ${g(d.speakerOhms)}`);
   const vbias = d.bias === 'fixed' ? d.vg : 0;
   lines.push(`VG grid 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000)`);
-  lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 10m` : 'VK cathode 0 DC 0');
+  lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 ${settle ? g(settle.ck) : '10m'}` : 'VK cathode 0 DC 0');
   if (tube.law.kind === 'pentode') {
     const screen = d.connection === 'triode' ? 'plate' : ul ? 'tap' : 'screen';
     if (d.connection === 'pentode') lines.push(`VS screen 0 DC ${g(d.screenVolts)}`);
@@ -51,6 +56,8 @@ export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, m
   } else {
     lines.push('X1 plate grid cathode tri');
   }
-  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', ...(measureScreen ? ['meas tran isavg avg i(vs) from=4m to=5m', 'print isavg'] : []), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
+  lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', ...(settle
+    ? [`tran 0.5u ${settle.ms}m ${settle.ms - 10}m 0.5u`, `meas tran vkavg avg v(cathode) from=${settle.ms - 10}m to=${settle.ms}m`, 'print vkavg']
+    : ['tran 0.25u 5m 0 0.25u']), ...(measureScreen ? ['meas tran isavg avg i(vs) from=4m to=5m', 'print isavg'] : []), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }
