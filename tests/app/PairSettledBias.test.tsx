@@ -48,14 +48,4 @@ describe('a cathode-biased pair shows where its shared resistor settles under fu
     expect(figures.queryByText((_, el) => el?.getAttribute('data-figure') === 'settled-vk')).toBeNull();
     expect(cardSections(store.getState()).flatMap((c) => c.lines).some((l) => l.startsWith('The shared Rk settles'))).toBe(false);
   });
-
-  // The listed known miss (tests/spice/outputSteadyState.spice.test.ts) is said where the single-ended figures are.
-  it('a single-ended stage says its full-drive figures hold the transformer\'s magnetising current at idle; a pair, whose halves cancel it, does not', () => {
-    const store = createWorkbenchStore();
-    render(<App store={store} />);
-    act(() => store.getState().setStageKind('output'));
-    expect(screen.getByTestId('single-ended-caveat').textContent).toMatch(/magnetising current at its idle value/);
-    act(() => store.getState().setOutputPair('push-pull'));
-    expect(screen.queryByTestId('single-ended-caveat')).toBeNull();
-  });
 });
