@@ -179,7 +179,9 @@ describe('exports read settled figures', () => {
     const text = cardSections(store.getState()).flatMap((s) => s.lines).join('\n');
     expect(text).toContain(`Within 5 % THD: ${Number(after.toPrecision(3))} W`);
   });
+});
 
+describe('what the single-ended figures hold', () => {
   // The listed known miss (tests/spice/outputSteadyState.spice.test.ts) is said where the single-ended figures are.
   it('a single-ended stage says its full-drive figures hold the transformer\'s magnetising current at idle; a pair, whose halves cancel it, does not', () => {
     const store = createWorkbenchStore();
