@@ -10,7 +10,7 @@ import type { OutputTube } from '../output/outputTube';
 import { SHEET_FEED_TOLERANCE } from '../output/analyzeOutput';
 import type { ScreenFeed } from '../output/electrodes';
 import type { PushPullDesign } from './pushPullDesign';
-import { pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
+import { pushPullDriveOf, screensAtDrive, type PushPullDrive } from './pushPullDrive';
 import { pushPullFigures, type PushPullFigures } from './pushPullFigures';
 import { pushPullFindings } from './pushPullFindings';
 import { pushPullOverlay, type PushPullOverlay } from './pushPullOverlay';
@@ -133,8 +133,9 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
 /** The pair's findings with a dropper's sag at full drive, where its screens are fed a fixed voltage below B+. */
 function withScreenSag(findings: Finding[], s: PushPullSolution, full: PushPullDrive): Finding[] {
   const d = s.design;
-  if (s.feed.kind !== 'fixed' || !(s.feed.vg2k > 0)) return findings;
+  const atFull = screensAtDrive(s, full);
+  if (atFull === null) return findings;
   const plan = screenFeedPlan(d.bplus, d.screenVolts, s.idle[0].ig2 + s.idle[1].ig2);
-  const sag = screenSagFinding(plan, d.screenVolts, (full.screenDissipation[0] + full.screenDissipation[1]) / s.feed.vg2k);
+  const sag = screenSagFinding(plan, d.screenVolts, atFull);
   return sag ? bySeverity([...findings, sag]) : findings;
 }

@@ -188,3 +188,11 @@ export function pushPullAtDrive(s: PushPullSolution, drive: number, samples: num
   const bad = checkPushPullSolution(s) ?? checkDrive(drive) ?? checkSamples(samples) ?? (isPowerOfTwo(samples) ? null : fail('invalid-input', 'Samples per cycle must be a power of two', 'samples'));
   return bad ?? { ok: true, ...pushPullDriveOf(s, drive, samples) };
 }
+
+/** Both screens' current averaged over a driven cycle, A (each screen's dissipation over its fixed voltage); null unless fed a fixed voltage. */
+export function screensAtDrive(s: PushPullSolution, drive: PushPullDrive): number | null {
+  const feed = s.feed;
+  if (feed.kind !== 'fixed' || !(feed.vg2k > 0)) return null;
+  const amps = (drive.screenDissipation[0] + drive.screenDissipation[1]) / feed.vg2k;
+  return Number.isFinite(amps) ? amps : null;
+}

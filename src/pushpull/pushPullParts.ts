@@ -4,6 +4,7 @@ import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { CATHODE_BYPASS_CORNER_HZ, screenDropperParts } from '../output/outputParts';
 import { screenConductance, screenFeedPlan } from '../output/screenFeed';
 import type { PushPullAnalysis } from './analyzePushPull';
+import { screensAtDrive } from './pushPullDrive';
 
 /** The pair's output transformer: centre-tapped, B+ at the tap. */
 export interface PairTransformerSpec {
@@ -95,10 +96,7 @@ function cathodeConductance(a: PushPullAnalysis): number {
   return Number.isFinite(g) && g > 0 ? g : 0;
 }
 
-/** Both screens' current averaged over the cycle with the grids driven to 0 V, A (each screen's dissipation over its fixed voltage); null unless fed a fixed voltage. */
+/** Both screens' current averaged over the cycle with the grids driven to 0 V, A; null unless fed a fixed voltage. */
 export function pairScreensAtFull(a: PushPullAnalysis): number | null {
-  const feed = a.solution.feed;
-  if (feed.kind !== 'fixed' || !(feed.vg2k > 0)) return null;
-  const amps = (a.full.screenDissipation[0] + a.full.screenDissipation[1]) / feed.vg2k;
-  return Number.isFinite(amps) ? amps : null;
+  return screensAtDrive(a.solution, a.full);
 }

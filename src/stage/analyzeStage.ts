@@ -51,7 +51,7 @@ export function analyzeStage(stage: StageDesign & { readonly tube: TubeRecord },
   // The grid-leak limit moves with Rg, not with the window: a new leak redraws the sheet with its curve, a drag keeps it.
   const limit = leakLimit(tube, stage.rg ?? null);
   const base = sameSheet ? prev.sheet : curveSheet(tube, stage.bplus, extent, maxCurves);
-  const sheet = base.gridLimit !== undefined && (base.gridLimit?.vg ?? 0) === Math.min(limit, 0) ? base : withGridLimit(base, tube, limit);
+  const sheet = base.gridLimit !== undefined && (base.gridLimit?.vg ?? 0) === limit ? base : withGridLimit(base, tube, limit);
   if (light) {
     const problem = followerProblem(solution.op.va, second);
     if (problem) return problem;

@@ -82,15 +82,17 @@ export function designAtPlanePoint(t: PlanePointTarget): Result<PlanePointDesign
 export function leakLimit(tube: TubeLike, rg: number | null): number {
   if (rg === null || !(rg > 0) || !Number.isFinite(rg)) return 0;
   const model = modelOf(tube);
-  // A drag asks for the same tube and leak on every move, twice (the reachable point, then its design): one root serves.
-  if (lastLimit.model === model && lastLimit.rg === rg) return lastLimit.vgk;
+  // A drag asks for the same tube and leak on every move (the reachable point, its design, the chart's sheet), and a
+  // compared tube for its own: one root per tube serves until its leak changes.
+  const kept = lastLimits.get(model);
+  if (kept && kept.rg === rg) return kept.vgk;
   const f = (vgk: number) => vgk + rg * gridCurrent(model, vgk);
   const vgk = f(0) > 0 ? bracketedRoot(f, -10, 0, 1e-9).x : 0;
-  lastLimit = { model, rg, vgk };
+  lastLimits.set(model, { rg, vgk });
   return vgk;
 }
 
-let lastLimit: { model: unknown; rg: number; vgk: number } = { model: null, rg: 0, vgk: 0 };
+const lastLimits = new WeakMap<object, { readonly rg: number; readonly vgk: number }>();
 
 /** Where a drag may go: the asked point if reachable, else the nearest reachable one, with the reason. */
 export interface ReachablePoint {
