@@ -191,4 +191,16 @@ describe('what the single-ended figures hold', () => {
     act(() => store.getState().setOutputPair('push-pull'));
     expect(screen.queryByTestId('single-ended-caveat')).toBeNull();
   });
+
+  // The screen dropper's sag (tests/output/screenFeed.test.ts) is a warning like any: in the one ratings list and on the card.
+  it('a pentode screen dropped below B+ warns of its sag at full drive in the ratings list and on the build card', async () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => { store.getState().changeOutput({ connection: 'pentode' }); });
+    const ratings = screen.getByRole('region', { name: 'Ratings checks' });
+    expect(ratings.textContent).toMatch(/Output stage, EL34: At full drive the screens draw 18\.\d mA on average/);
+    const { cardSections } = await import('../../app/export/buildCard');
+    const lines = cardSections(store.getState()).flatMap((c) => c.lines);
+    expect(lines.some((l) => /^WARNING: Output stage, EL34: At full drive the screens draw/.test(l))).toBe(true);
+  });
 });
