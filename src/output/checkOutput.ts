@@ -1,6 +1,7 @@
 import { fail, type Failure } from '../result';
 import { checkCount, checkNumber, checkTube } from '../stage/checkInput';
 import { pentodeParamsProblem, type KorenPentodeParams } from '../tube/pentode';
+import { isPowerOfTwo } from '../signal/fft';
 import { outputDesignProblem, type OutputDesign } from './outputDesign';
 import type { OutputTube } from './outputTube';
 import type { OutputSolution } from './solveOutput';
@@ -61,7 +62,10 @@ export function checkOutputSolution(s: unknown): Failure | null {
 /** Limits on what a caller may ask of the swing: counts stay small enough for a call to end within 100 ms. */
 export const OUTPUT_CALL_LIMITS = { maxSamples: 4096, maxLevels: 200, maxZPoints: 32, maxDrive: 1000 } as const;
 
-export const checkSamples = (n: unknown) => checkCount('samples', 'Samples per cycle', n, 8, OUTPUT_CALL_LIMITS.maxSamples);
+/** A cycle's points: a power of two, which the radix-2 Fourier transform of its harmonics needs. */
+export const checkSamples = (n: unknown) =>
+  checkCount('samples', 'Samples per cycle', n, 8, OUTPUT_CALL_LIMITS.maxSamples) ??
+  (isPowerOfTwo(n as number) ? null : fail('invalid-input', `Samples per cycle must be a power of two (its harmonics are read by a radix-2 Fourier transform), from 8 to ${OUTPUT_CALL_LIMITS.maxSamples}`, 'samples'));
 export const checkDrive = (v: unknown) => checkNumber('drive', 'Drive', v, 'V', 0, OUTPUT_CALL_LIMITS.maxDrive);
 export const checkZ = (v: unknown) => checkNumber('zPrimary', 'Primary impedance', v, 'Ω', 100, 100_000);
 export const checkThdLimit = (v: unknown) => checkNumber('thdLimit', 'Distortion limit', v, '', 0.001, 0.5);

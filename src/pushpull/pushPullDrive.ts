@@ -1,7 +1,7 @@
 import { bracketedRoot } from '../numeric/bracketedRoot';
 import { fail, type Failure, type Result } from '../result';
 import { checkDrive, checkOutputTube, checkSamples } from '../output/checkOutput';
-import { harmonicAmplitudes, isPowerOfTwo } from '../signal/fft';
+import { harmonicAmplitudes } from '../signal/fft';
 import { checkPushPull } from './pushPullDesign';
 import { emptyCurrents, type StageCurrents } from '../output/electrodes';
 import { OUTPUT_SAMPLES, THD_HARMONICS } from '../output/outputSignal';
@@ -185,7 +185,7 @@ export function checkPushPullSolution(s: PushPullSolution): Failure | null {
 
 /** The pair at a drive, its inputs checked first (a solution from solvePushPull, a drive of 0 to 1000 V, samples a power of two). */
 export function pushPullAtDrive(s: PushPullSolution, drive: number, samples: number = OUTPUT_SAMPLES): Result<PushPullDrive> {
-  const bad = checkPushPullSolution(s) ?? checkDrive(drive) ?? checkSamples(samples) ?? (isPowerOfTwo(samples) ? null : fail('invalid-input', 'Samples per cycle must be a power of two', 'samples'));
+  const bad = checkPushPullSolution(s) ?? checkDrive(drive) ?? checkSamples(samples);
   return bad ?? { ok: true, ...pushPullDriveOf(s, drive, samples) };
 }
 
