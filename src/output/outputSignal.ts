@@ -2,17 +2,22 @@ import { bracketedRoot } from '../numeric/bracketedRoot';
 import { illinois } from '../numeric/illinois';
 import { harmonicAmplitudes } from '../signal/fft';
 import { emptyCurrents, stageCurrentsInto } from './electrodes';
+import { settleCycle } from './steadyState';
 import type { OutputSolution } from './solveOutput';
 
 /**
  * Large-signal behaviour of a single-ended output stage along its AC load.
  * The grid is driven by a sine of peak `drive` about the bias (which holds:
  * fixed bias, or a fully bypassed cathode resistor). The winding is an ideal
- * transformer reflecting Zpri, so its signal voltage is w = Zpri·(M − Mq),
- * M being the coupled current; the plate sits at supply − w − Ip·Rpri. For
- * each of n points of one cycle M is the root of that circuit and the tube's
- * law (Brent's method; bracketed, so it cannot diverge), and a coherent FFT
- * of w, the voltage the speaker gets, gives power and harmonics.
+ * transformer reflecting Zpri in parallel with the primary's inductance,
+ * whose magnetising current Mm is steady over a cycle; the winding's signal
+ * voltage is w = Zpri·(M − Mm), M being the coupled current, and the plate
+ * sits at supply − w − Ip·Rpri. For each of n points of one cycle M is the
+ * root of that circuit and the tube's law (Brent's method; bracketed, so it
+ * cannot diverge). Under a sustained drive Mm settles at the cycle's average
+ * M (steadyState.ts), where the figures are read, as a data sheet's are, with
+ * the drive held; a coherent FFT of w, the voltage the speaker gets, gives
+ * power and harmonics.
  */
 export const OUTPUT_SAMPLES = 128;
 /**
@@ -42,6 +47,8 @@ export interface DriveResult {
   readonly ipMax: number;
   /** Shift of the average primary current from idle under this drive, A. */
   readonly dcShift: number;
+  /** The magnetising current the drive settles at, A (the cycle's average coupled current; its idle value at no drive). */
+  readonly magnetising: number;
 }
 
 export interface Waveform {
@@ -49,6 +56,8 @@ export interface Waveform {
   readonly ip: Float64Array;
   /** The winding's signal voltage, the secondary's wave scaled by the turns ratio. */
   readonly winding: Float64Array;
+  /** The magnetising current the cycle is solved with, A. */
+  readonly magnetising: number;
 }
 
 /** One instant on the AC load. */
@@ -68,8 +77,9 @@ export interface Instant {
  */
 const c = emptyCurrents();
 
-export function solveInstant(s: OutputSolution, vgk: number, zPrimary: number, out: Instant, near?: number): void {
-  const { supply, mmf: mq, feed } = s.op;
+export function solveInstant(s: OutputSolution, vgk: number, zPrimary: number, out: Instant, near?: number, magnetising = s.op.mmf): void {
+  const { supply, feed } = s.op;
+  const mq = magnetising;
   const rp = s.design.rPrimary;
   const tap = feed.kind === 'tap' ? feed.fraction : 0;
   let vpk = 0;
@@ -126,22 +136,46 @@ function secantFrom(residual: (m: number) => number, x0: number, hi: number, tol
   return null;
 }
 
-export function waveform(s: OutputSolution, drive: number, zPrimary = s.design.zPrimary, n = OUTPUT_SAMPLES): Waveform {
-  const vpk = new Float64Array(n);
-  const ip = new Float64Array(n);
-  const winding = new Float64Array(n);
+/** The magnetising current is settled to this share of the instants' bracket (M's span): a part in 10⁷, far under a figure's last digit. */
+export const SETTLE_TOL = 1e-7;
+
+/**
+ * One cycle at a drive in its steady state (settleCycle), written into the
+ * arrays given; its magnetising current returned.
+ */
+function steadyCycle(s: OutputSolution, drive: number, zPrimary: number, vpk: Float64Array, ip: Float64Array, winding: Float64Array, guess = s.op.mmf): number {
+  const n = vpk.length;
   const at: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
-  for (let k = 0; k < n; k++) {
-    solveInstant(s, s.op.vgk + drive * Math.sin((2 * Math.PI * k) / n), zPrimary, at);
+  const solveAt = (k: number, mm: number, near: number | undefined) => {
+    solveInstant(s, s.op.vgk + drive * Math.sin((2 * Math.PI * k) / n), zPrimary, at, near, mm);
     vpk[k] = at.vpk;
     ip[k] = at.ip;
     winding[k] = at.winding;
-  }
-  return { vpk, ip, winding };
+    return at.m;
+  };
+  const copy = (from: number, to: number) => {
+    vpk[to] = vpk[from]!;
+    ip[to] = ip[from]!;
+    winding[to] = winding[from]!;
+  };
+  return settleCycle(n, solveAt, s.op.mmf, SETTLE_TOL * (s.op.mmf + s.op.supply / zPrimary), guess, n % 4 === 0 ? copy : undefined);
 }
 
-export function atDrive(s: OutputSolution, drive: number, zPrimary = s.design.zPrimary, n = OUTPUT_SAMPLES): DriveResult {
-  const w = waveform(s, drive, zPrimary, n);
+export function waveform(s: OutputSolution, drive: number, zPrimary = s.design.zPrimary, n = OUTPUT_SAMPLES, guess?: number): Waveform {
+  const vpk = new Float64Array(n);
+  const ip = new Float64Array(n);
+  const winding = new Float64Array(n);
+  const magnetising = steadyCycle(s, drive, zPrimary, vpk, ip, winding, guess);
+  return { vpk, ip, winding, magnetising };
+}
+
+export function atDrive(s: OutputSolution, drive: number, zPrimary = s.design.zPrimary, n = OUTPUT_SAMPLES, guess?: number): DriveResult {
+  return driveResultOf(s, drive, zPrimary, waveform(s, drive, zPrimary, n, guess));
+}
+
+/** Power, harmonics and extremes of a cycle already solved. */
+function driveResultOf(s: OutputSolution, drive: number, zPrimary: number, w: Waveform): DriveResult {
+  const n = w.vpk.length;
   const h = harmonicAmplitudes(w.winding, THD_HARMONICS);
   const v1 = h[1] ?? 0;
   const rel = h.map((a, k) => (k < 2 || v1 === 0 ? 0 : a / v1));
@@ -165,6 +199,7 @@ export function atDrive(s: OutputSolution, drive: number, zPrimary = s.design.zP
     ipMin: iMin,
     ipMax: iMax,
     dcShift: iSum / n - s.op.ip,
+    magnetising: w.magnetising,
   };
 }
 
@@ -182,37 +217,44 @@ export interface CleanLimit {
 
 /**
  * Power at the onset of grid current or of cutoff, whichever comes first.
- * The current is lowest at the grid's most negative instant, so cutoff needs
- * one load-line solve per trial drive.
+ * The current is lowest at the grid's most negative instant, read there in
+ * the steady state of each trial drive (its magnetising current settled on a
+ * cycle of `samples` points, each trial's from the last's).
  */
 export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary, samples = OUTPUT_SAMPLES): CleanLimit {
   const grid = Math.max(0, -s.op.vgk);
   const floor = CUTOFF_SHARE * s.op.ip;
   const at: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
+  const [vpk, ip, winding] = [new Float64Array(samples), new Float64Array(samples), new Float64Array(samples)];
+  let mm = s.op.mmf;
+  let solvedAt = -1;
   const lowest = (a: number) => {
-    solveInstant(s, s.op.vgk - a, zPrimary, at);
+    mm = steadyCycle(s, a, zPrimary, vpk, ip, winding, mm);
+    solvedAt = a;
+    solveInstant(s, s.op.vgk - a, zPrimary, at, undefined, mm);
     return at.ip - floor;
   };
   let cutoffDrive: number | null = null;
   if (grid > 0 && lowest(grid) < 0) cutoffDrive = illinois(lowest, 0, grid, Math.max(1e-9, floor * 1e-3));
   const drive = cutoffDrive ?? grid;
-  return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: atDrive(s, drive, zPrimary, samples) };
+  // The last trial's cycle is the answer's when it was at that drive (grid current first: always).
+  const cycle = solvedAt === drive ? { vpk, ip, winding, magnetising: mm } : waveform(s, drive, zPrimary, samples, mm);
+  return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: driveResultOf(s, drive, zPrimary, cycle) };
 }
 
 /**
  * The screen's current averaged over a cycle at a drive (peak grid swing),
- * A: each instant solved on the load as the power figures are, the screen's
- * law read there. In a pentode the screen takes more as the plate swings low,
- * so its average rises with drive: what a dropping resistor then drops.
+ * A: each instant of the steady cycle as the power figures solve it, the
+ * screen's law read there. In a pentode the screen takes more as the plate
+ * swings low, so its average rises with drive: what a dropping resistor then
+ * drops.
  */
 export function averageScreenCurrent(s: OutputSolution, drive: number, samples = SWEEP_SAMPLES): number {
-  const at: Instant = { vpk: 0, ip: 0, winding: 0, m: 0 };
+  const w = waveform(s, drive, s.design.zPrimary, samples);
   const screen = emptyCurrents();
   let sum = 0;
   for (let k = 0; k < samples; k++) {
-    const vgk = s.op.vgk + drive * Math.sin((2 * Math.PI * k) / samples);
-    solveInstant(s, vgk, s.design.zPrimary, at, k > 0 ? at.m : undefined);
-    stageCurrentsInto(s.tube, s.op.feed, at.vpk, vgk, screen, at.winding);
+    stageCurrentsInto(s.tube, s.op.feed, w.vpk[k]!, s.op.vgk + drive * Math.sin((2 * Math.PI * k) / samples), screen, w.winding[k]!);
     sum += screen.ig2;
   }
   return sum / samples;

@@ -182,14 +182,14 @@ describe('exports read settled figures', () => {
 });
 
 describe('what the single-ended figures hold', () => {
-  // The listed known miss (tests/spice/outputSteadyState.spice.test.ts) is said where the single-ended figures are.
-  it('a single-ended stage says its full-drive figures hold the transformer\'s magnetising current at idle; a pair, whose halves cancel it, does not', () => {
+  // The figures' steady state (tests/spice/outputSteadyState.spice.test.ts) is said where the single-ended figures are.
+  it('a single-ended stage says its figures are for a sustained drive, the magnetising current settled; a pair, whose halves cancel it, does not', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);
     act(() => store.getState().setStageKind('output'));
-    expect(screen.getByTestId('single-ended-caveat').textContent).toMatch(/magnetising current at its idle value/);
+    expect(screen.getByTestId('single-ended-steady-state').textContent).toMatch(/sustained drive.*magnetising current/);
     act(() => store.getState().setOutputPair('push-pull'));
-    expect(screen.queryByTestId('single-ended-caveat')).toBeNull();
+    expect(screen.queryByTestId('single-ended-steady-state')).toBeNull();
   });
 
   // The screen dropper's sag (tests/output/screenFeed.test.ts) is a warning like any: in the one ratings list and on the card.

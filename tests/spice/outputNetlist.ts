@@ -26,13 +26,22 @@ export function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: num
   ].join('\n');
 }
 
+/** A settling run: its length, the cathode bypass, and the primary's inductance where not the 100 H (H). */
+export interface Settle {
+  readonly ck: number;
+  readonly ms: number;
+  readonly lp?: number;
+}
+
 /**
  * `measureScreen`: also print a pentode screen supply's current averaged over the last cycle (isavg; negative: into
  * the screen). `settle`: a run of `ms` milliseconds (and the cathode bypass `ck`), long enough for the primary's
- * magnetising current (and a bypassed cathode) to settle under the drive; the cathode's average over the last 10 ms
+ * magnetising current (and a bypassed cathode) to settle under the drive (its time constant is Lp over the
+ * reflected load in parallel with the plate's resistance: `lp` shortens it for a triode's low rp); the cathode's average over the last 10 ms
  * is printed as vkavg, and the Fourier analysis reads the last cycle.
  */
-export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, measureScreen = false, settle?: { readonly ck: number; readonly ms: number }): string {
+export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, measureScreen = false, settle?: Settle): string {
+  const lPrimary = settle?.lp ?? L_PRIMARY;
   const n2 = d.zPrimary / d.speakerOhms;
   const ul = d.connection === 'ultralinear' && tube.law.kind === 'pentode';
   const lines: string[] = ['* single-ended transformer-coupled output stage'];
@@ -41,11 +50,11 @@ export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, m
   lines.push(`VB bplus 0 DC ${g(d.bplus)}`, `RPRI bottom plate ${g(Math.max(d.rPrimary, 1e-6))}`);
   if (ul) {
     const x = d.ulTap;
-    lines.push(`LA bplus tap ${g(L_PRIMARY * x * x)}`, `LB tap bottom ${g(L_PRIMARY * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${K}`, `KBS LB LS ${K}`);
+    lines.push(`LA bplus tap ${g(lPrimary * x * x)}`, `LB tap bottom ${g(lPrimary * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${K}`, `KBS LB LS ${K}`);
   } else {
-    lines.push(`LP bplus bottom ${g(L_PRIMARY)}`, `KPS LP LS ${K}`);
+    lines.push(`LP bplus bottom ${g(lPrimary)}`, `KPS LP LS ${K}`);
   }
-  lines.push(`LS sec 0 ${g(L_PRIMARY / n2)}`, `RSPK sec 0 ${g(d.speakerOhms)}`);
+  lines.push(`LS sec 0 ${g(lPrimary / n2)}`, `RSPK sec 0 ${g(d.speakerOhms)}`);
   const vbias = d.bias === 'fixed' ? d.vg : 0;
   lines.push(`VG grid 0 DC ${g(vbias)} SIN(${g(vbias)} ${g(peak)} 1000)`);
   lines.push(d.bias === 'cathode' ? `RK cathode 0 ${g(d.rk)}\nCK cathode 0 ${settle ? g(settle.ck) : '10m'}` : 'VK cathode 0 DC 0');
@@ -58,6 +67,6 @@ export function outputNetlist(tube: OutputTube, d: OutputDesign, peak: number, m
   }
   lines.push('.control', 'set numdgt=12', 'op', 'print v(plate) v(cathode) i(vb)', 'set nfreqs=10', 'set fourgridsize=16384', ...(settle
     ? [`tran 0.5u ${settle.ms}m ${settle.ms - 10}m 0.5u`, `meas tran vkavg avg v(cathode) from=${settle.ms - 10}m to=${settle.ms}m`, 'print vkavg']
-    : ['tran 0.25u 5m 0 0.25u']), ...(measureScreen ? ['meas tran isavg avg i(vs) from=4m to=5m', 'print isavg'] : []), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
+    : ['tran 0.25u 5m 0 0.25u']), ...(measureScreen ? [`meas tran isavg avg i(vs) from=${(settle?.ms ?? 5) - 1}m to=${settle?.ms ?? 5}m`, 'print isavg'] : []), 'fourier 1000 v(sec)', 'quit 0', '.endc', '.end');
   return lines.join('\n');
 }

@@ -48,8 +48,8 @@ export function OutputValues() {
           Solved instant by instant with the transformer coupling the two tubes&apos; currents (composite characteristics).
         </p>
       ) : (
-        <p className="field-hint" data-testid="single-ended-caveat">
-          Power and distortion at full drive are for the first moments of a drive: the cycle holds the transformer&apos;s magnetising current at its idle value. Sustained, the drive&apos;s own DC shift settles into the primary and the plate swings about B+ again: against a circuit simulator an EL34 gives 8 to 12 % more power than shown.
+        <p className="field-hint" data-testid="single-ended-steady-state">
+          Power and distortion are for a sustained drive, as a data sheet quotes them: the drive&apos;s own shift of the average plate current settles into the primary&apos;s magnetising current, and the plate swings about B+ again. The cathode is held at its idle voltage.
         </p>
       )}
       <div className="value-field">
