@@ -6,7 +6,6 @@ import { illinois } from '../numeric/illinois';
 import { MAX_OVERDRIVE } from '../signal/distortion';
 import type { ChainInput, ClipCause } from './chainTypes';
 import { CYCLE_SAMPLES, prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
-import { sineCycle } from '../signal/sineCycle';
 
 /** An output level to reach: volts rms at the output, or watts into the speaker of a chain ending in an output stage. */
 export type AmplifierLevel = { readonly outputRms: number } | { readonly power: number };
@@ -77,16 +76,7 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
   const n = a.links.length;
   const lows = new Float64Array(n).fill(Infinity);
   const highs = new Float64Array(n).fill(-Infinity);
-  const outs = new Float64Array(n);
-  // Each distinct point once (sineCycle): a mirrored point repeats every stage's output, so the extremes stand.
-  const wave = sineCycle(SAMPLES, peak, (v) => {
-    signal.stageOutputs(v, outs);
-    for (let i = 0; i < n; i++) {
-      lows[i] = Math.min(lows[i]!, outs[i]!);
-      highs[i] = Math.max(highs[i]!, outs[i]!);
-    }
-    return outs[n - 1]!;
-  });
+  const wave = signal.cycle(SAMPLES, peak, new Float64Array(SAMPLES), { lows, highs });
   const h = harmonicAmplitudes(wave, 10);
   const v1 = h[1]!;
   const harmonics = h.map((x, k) => (k < 2 || v1 === 0 ? 0 : x / v1));
@@ -101,9 +91,8 @@ export function atLevelOf(a: PreparedAmplifier, input: ChainInput, level: Amplif
 /** The source peak for an output peak inside the clean limit: the secant on the fundamental from the small-signal guess, bracketed by [0, the clean limit]. */
 function peakWithinClean(a: PreparedAmplifier, target: number): number {
   const cleanPeak = a.inputPeak;
-  const at = (v: number) => a.signal.at(v);
   const searchWave = new Float64Array(SEARCH_SAMPLES);
-  const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SEARCH_SAMPLES, peak, at, searchWave), 1)[1]!;
+  const fundamentalAt = (peak: number) => harmonicAmplitudes(a.signal.cycle(SEARCH_SAMPLES, peak, searchWave), 1)[1]!;
   let p0 = Math.min(target / Math.max(Math.abs(a.gain), 1e-12), cleanPeak);
   let f0 = fundamentalAt(p0) - target;
   let p1 = p0 * (f0 > 0 ? 0.99 : 1.01);
@@ -134,7 +123,7 @@ function peakPastClean(a: PreparedAmplifier, target: number): number | Failure {
     return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms is past the clean limit of ${(a.cleanFundamental() / Math.SQRT2).toPrecision(3)} V rms, where ${limitWords}; past it stage ${unfollowed + 1}'s grid current is not followed, so no figure is given there`, 'outputRms');
   }
   const wave = new Float64Array(SAMPLES);
-  const fundamentalAt = (peak: number) => harmonicAmplitudes(sineCycle(SAMPLES, peak, (v) => signal.at(v), wave), 1)[1]!;
+  const fundamentalAt = (peak: number) => harmonicAmplitudes(signal.cycle(SAMPLES, peak, wave), 1)[1]!;
   const most = MAX_OVERDRIVE * cleanPeak;
   let lo = cleanPeak;
   let hi = Math.min(2 * cleanPeak, most);

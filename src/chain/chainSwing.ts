@@ -1,6 +1,8 @@
 import { GRID_CURRENT_ONSET } from '../tube/gridCurrent';
 import { illinois } from '../numeric/illinois';
 import type { ClipCause } from './chainTypes';
+import { settleCycle } from '../output/steadyState';
+import { sineCycle } from '../signal/sineCycle';
 import type { LinkSample, SolvedLink } from './stageKind';
 
 /** The largest input peak searched, V: past it a stage is taken never to clip. */
@@ -111,7 +113,9 @@ export class ChainSignal {
       this.at(sign * peak, i);
       const s = this.samples[i]!;
       if (s.vgk >= gridLimit) return 'grid-current';
-      if (s.ia <= link.cutoffCurrent) cause = 'cutoff';
+      // A settled primary's cutoff is its own clean limit's, read on the grid's swing below bias.
+      const cut = link.cutoffSwing === undefined ? s.ia <= link.cutoffCurrent : link.cutoffSwing !== null && link.op.vgk - s.vgk >= link.cutoffSwing;
+      if (cut) cause = 'cutoff';
     }
     return cause;
   }
@@ -155,7 +159,72 @@ export class ChainSignal {
     }
   }
 
-  /** Half the output's peak-to-peak for a source peak. */
+  /**
+   * One cycle of the output at a source peak, n points (a multiple of 4), in
+   * its steady state: with a single-ended output stage last, the stages
+   * before it run once (its grid's swing at each point does not depend on its
+   * primary), then its magnetising current is settled on that swing
+   * (settleCycle, from the last cycle's: the chain's searches ask for
+   * cycles at nearby levels in turn) and put back to idle after. `extremes`,
+   * when given, gets each stage's lowest and highest output over the cycle.
+   */
+  cycle(n: number, peak: number, into = new Float64Array(n), extremes?: { readonly lows: Float64Array; readonly highs: Float64Array }): Float64Array {
+    const last = this.links.length - 1;
+    const link = this.links[last]!;
+    const state = link.magnetising;
+    const outs = (this.outs ??= new Float64Array(this.links.length));
+    const track = (upTo: number) => {
+      if (!extremes) return;
+      for (let i = 0; i <= upTo; i++) {
+        extremes.lows[i] = Math.min(extremes.lows[i]!, outs[i]!);
+        extremes.highs[i] = Math.max(extremes.highs[i]!, outs[i]!);
+      }
+    };
+    if (!state) {
+      return sineCycle(n, peak, (v) => {
+        this.stageOutputs(v, outs);
+        track(last);
+        return outs[last]!;
+      }, into);
+    }
+    // The last grid's swing from its bias at each point, the stages before it run once.
+    const sample = this.samples[last]!;
+    state.gridOnly = true;
+    const swing = sineCycle(n, peak, (v) => {
+      this.stageOutputs(v, outs);
+      track(last - 1);
+      return sample.vgk - link.op.vgk;
+    }, new Float64Array(n));
+    state.gridOnly = false;
+    const solveAt = (k: number, mm: number, near: number | undefined) => {
+      state.value = mm;
+      state.near = near;
+      link.sample(swing[k]!, sample);
+      into[k] = sample.vout;
+      return state.coupled;
+    };
+    // The swing is a sine's cycle (sineCycle mirrors it), so the stage solves its distinct points only.
+    state.guess = settleCycle(n, solveAt, state.idle, state.tol, state.guess, (from, to) => (into[to] = into[from]!));
+    state.value = state.idle;
+    state.near = undefined;
+    if (extremes) {
+      for (let k = 0; k < n; k++) {
+        extremes.lows[last] = Math.min(extremes.lows[last]!, into[k]!);
+        extremes.highs[last] = Math.max(extremes.highs[last]!, into[k]!);
+      }
+    }
+    return into;
+  }
+
+  /** Every stage's outputs, one pass's scratch. */
+  private outs: Float64Array | null = null;
+
+  /** Whether the output stage's primary settles with the drive: its cycles then are not the instants' (outputPeak). */
+  get settles(): boolean {
+    return this.links[this.links.length - 1]!.magnetising !== undefined;
+  }
+
+  /** Half the output's peak-to-peak at the source's extremes, for a source peak, read at those instants (see `settles`). */
   outputPeak(peak: number): number {
     return Math.abs(this.at(peak) - this.at(-peak)) / 2;
   }

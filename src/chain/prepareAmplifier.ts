@@ -3,7 +3,6 @@ import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
 import { gainInto, gridConductance, loadedInput } from './gridConductance';
 import { harmonicAmplitudes } from '../signal/fft';
-import { sineCycle } from '../signal/sineCycle';
 import { OUTPUT_KINDS, SPLITTER_KINDS, type ChainInput, type ChainStage, type ClipCause } from './chainTypes';
 import { kindOf, STAGE_KINDS } from './stageKinds';
 import type { SolvedLink } from './stageKind';
@@ -73,8 +72,10 @@ export interface PreparedAmplifier {
   readonly inputs: readonly number[];
   /** Each signal grid's small-signal conductance to its cathode, S (see gridConductance). */
   readonly gridConductances: readonly number[];
-  /** The output's fundamental (peak) at the clean limit, at CYCLE_SAMPLES points a cycle; computed once, on first asking. */
+  /** The output's fundamental (peak) at the clean limit, at CYCLE_SAMPLES points a cycle; its cycle computed once, on first asking. */
   readonly cleanFundamental: () => number;
+  /** Half the output's peak-to-peak at the clean limit's source extremes. */
+  readonly cleanOutputPeak: () => number;
 }
 
 /** Points a cycle for the figures: below clipping the transfers are smooth, and harmonics to H10 need far fewer. */
@@ -144,9 +145,12 @@ export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages
   });
   if (first < 0) return fail('unreachable', 'No stage reaches grid current or cutoff below 10 kV at the input: check the values', 'stages');
   const inputPeak = clips[first]!.inputPeak;
-  // The clean limit's power and the check that a level is below it both read this: one cycle, shared.
-  let clean: number | null = null;
-  const cleanFundamental = () => (clean ??= harmonicAmplitudes(sineCycle(CYCLE_SAMPLES, inputPeak, (v) => signal.at(v)), 1)[1] ?? 0);
-  return { ok: true, links, signal, clips, first, inputPeak, gain, gains, inputs, gridConductances: links.map(gridConductance), cleanFundamental };
+  // The clean limit's power, the check that a level is below it and a settling output's swing all read this: one cycle, shared.
+  let clean: Float64Array | null = null;
+  const cleanCycle = () => (clean ??= signal.cycle(CYCLE_SAMPLES, inputPeak));
+  const cleanFundamental = () => harmonicAmplitudes(cleanCycle(), 1)[1] ?? 0;
+  // At the source's extremes: on the settled cycle (its quarter points) when the output stage settles, else at those instants.
+  const cleanOutputPeak = () => (signal.settles ? Math.abs(cleanCycle()[CYCLE_SAMPLES / 4]! - cleanCycle()[(3 * CYCLE_SAMPLES) / 4]!) / 2 : signal.outputPeak(inputPeak));
+  return { ok: true, links, signal, clips, first, inputPeak, gain, gains, inputs, gridConductances: links.map(gridConductance), cleanFundamental, cleanOutputPeak };
 }
 

@@ -1,6 +1,6 @@
 import { checkOutputInput } from '../output/checkOutput';
 import { outputFindings } from '../output/outputFindings';
-import { cleanLimit, CUTOFF_SHARE, solveInstant, SWEEP_SAMPLES, type Instant } from '../output/outputSignal';
+import { cleanLimit, CUTOFF_SHARE, SETTLE_TOL, solveInstant, SWEEP_SAMPLES, type Instant } from '../output/outputSignal';
 import type { OutputDesign } from '../output/outputDesign';
 import { linearWinding } from '../output/windingInductance';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
@@ -10,7 +10,7 @@ import { classA1GridCurrent, POWER_GRID_RESISTANCE } from '../tube/gridCurrent';
 import type { SingleEndedLink } from './chainTypes';
 import { checkCoupling, couplingImpedance } from './checkCoupling';
 import { midbandGain } from './midbandGain';
-import type { LinkSample, StageKind } from './stageKind';
+import type { LinkSample, MagnetisingState, StageKind } from './stageKind';
 
 /** d(Ik − coupled current)/dVgk at the operating point: the screen current's share that the cathode carries but the winding does not. */
 function screenTransconductance(s: OutputSolution): number {
@@ -34,7 +34,9 @@ export function designOf(s: SingleEndedLink): OutputDesign {
  * The single-ended output stage in the chain. Its output is the speaker's
  * voltage, phased as the plate (the winding's sense is the builder's choice);
  * the transformer is ideal apart from the primary's DC resistance, which is
- * in series with the reflected load for signal too.
+ * in series with the reflected load for signal too, and its magnetising
+ * current, which the chain settles for each cycle as the stage's own figures
+ * do (`magnetising`).
  */
 export const singleEndedKind: StageKind<SingleEndedLink> = {
   kind: 'single-ended-output',
@@ -59,8 +61,14 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
     // The plate's peak at the stage's own clean limit, for the insulation note (64 points find a peak to well under a volt).
     const limit = cleanLimit(solved, zp, SWEEP_SAMPLES);
     const peak = limit.at.vpkMax + op.vk;
+    const magnetising: MagnetisingState = { value: op.mmf, coupled: op.mmf, near: undefined, idle: op.mmf, guess: op.mmf, gridOnly: false, tol: SETTLE_TOL * (op.mmf + op.supply / zp) };
     const sample = (vin: number, out: LinkSample) => {
-      solveInstant(solved, op.vgk + vin, zp, instant);
+      if (magnetising.gridOnly) {
+        out.vgk = op.vgk + vin;
+        return;
+      }
+      solveInstant(solved, op.vgk + vin, zp, instant, magnetising.near, magnetising.value);
+      magnetising.coupled = instant.m;
       out.vout = -instant.winding * ratio;
       out.vgk = op.vgk + vin;
       out.ia = instant.ip;
@@ -80,6 +88,8 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       zout: (op.rp + design.rPrimary) * ratio * ratio,
       sample,
       cutoffCurrent: CUTOFF_SHARE * op.ip,
+      magnetising,
+      cutoffSwing: limit.cutoffDrive,
       gridLimit: 0,
       gridLaw: (vgk) => classA1GridCurrent(rgrid, vgk),
       findings: outputFindings(solved, peak),

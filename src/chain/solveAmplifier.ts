@@ -25,8 +25,8 @@ export function solveAmplifier(input: ChainInput, level?: AmplifierLevel): Resul
 export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, level?: AmplifierLevel): Result<ChainResult & { readonly atLevel?: Result<AmplifierAtLevel> }> {
   if (!a.ok) return a;
   const { stages } = input;
-  const { links, signal, clips, first, inputPeak, gain } = a;
-  const outputPeak = signal.outputPeak(inputPeak);
+  const { links, clips, first, inputPeak, gain } = a;
+  const outputPeak = a.cleanOutputPeak();
   const last = stages[stages.length - 1]!;
   // Power into the speaker at the fundamental, as data sheets and the output stage's own figures state it.
   const speaker = last.kind === 'single-ended-output' || last.kind === 'push-pull-output' ? last.speakerOhms : null;

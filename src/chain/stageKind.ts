@@ -77,6 +77,24 @@ export interface LinkSample {
   vout2: number;
 }
 
+/** A transformer primary's magnetising current as the chain settles it, A. */
+export interface MagnetisingState {
+  /** The current the next sample is solved with. */
+  value: number;
+  /** The last sample's coupled current. */
+  coupled: number;
+  /** A first guess for the next sample's coupled current (the same instant's in the last trial), or undefined. */
+  near: number | undefined;
+  /** Its value at idle. */
+  readonly idle: number;
+  /** Where the last cycle settled it: the next cycle's first guess. */
+  guess: number;
+  /** Set while the chain reads only the grid's swing (a settled cycle's first pass): `sample` then writes `vgk` alone. */
+  gridOnly: boolean;
+  /** How closely a cycle's average must meet it. */
+  readonly tol: number;
+}
+
 /** A stage solved with the load the next stage puts on it. */
 export interface SolvedLink {
   readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
@@ -98,6 +116,21 @@ export interface SolvedLink {
   readonly sample: (vin: number, out: LinkSample, vin2?: number) => void;
   /** Below this current the stage is cut off, A. */
   readonly cutoffCurrent: number;
+  /**
+   * A single-ended output stage's primary, whose magnetising current a
+   * sustained drive settles at the cycle's average coupled current
+   * (steadyState.ts): `sample` reads the stage with `magnetising.value` and
+   * leaves the instant's coupled current in `magnetising.coupled`.
+   * ChainSignal.cycle settles it for each cycle and puts it back to idle.
+   */
+  readonly magnetising?: MagnetisingState;
+  /**
+   * The grid's swing below its bias at which the stage cuts off, read in the
+   * steady state of a sine of that peak (a single-ended output stage's own
+   * clean limit); null when grid current comes first. Absent: cutoff is read
+   * at the instant, by `cutoffCurrent`.
+   */
+  readonly cutoffSwing?: number | null;
   /**
    * The grid voltage (to its cathode) where the stage's clean swing ends, V:
    * the onset of grid current for a voltage stage (GRID_CURRENT_ONSET);

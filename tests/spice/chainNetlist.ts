@@ -36,18 +36,25 @@ const L_PRIMARY = 1e4;
 const K = 1 - 1e-10;
 
 /** The primary's inductance and the windings' coupling for an output stage: the design's where it gives them, else the near-ideal transformer's. */
-function windingOf(s: { readonly primaryInductance?: number | null; readonly leakageInductance?: number | null }): { lp: number; k: number } {
-  const lp = s.primaryInductance ?? L_PRIMARY;
+function windingOf(s: { readonly primaryInductance?: number | null; readonly leakageInductance?: number | null }, settleLp?: number): { lp: number; k: number } {
+  const lp = s.primaryInductance ?? settleLp ?? L_PRIMARY;
   const ll = s.leakageInductance ?? null;
   return { lp, k: ll === null ? K : Math.sqrt(1 - ll / lp) };
 }
 
-export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'tran'; readonly peak: number };
+/**
+ * `settle`: a transient of `ms` milliseconds, read on its last cycle, with a single-ended output primary of `lp` henries
+ * (where the design gives none) and its cathode held by 10 F, so the primary's magnetising current settles where a
+ * sustained drive puts it (its time constant is lp over the reflected load in parallel with the plate's resistance).
+ * Inside the clean limit only: past it a grid in grid current would also charge its coupling capacitor over the run
+ * (10 µF through its leak), a shift of bias the model does not follow.
+ */
+export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
 
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
 
-function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null): { lines: string[]; output: string; output2?: string } {
+function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle?: { readonly lp: number }): { lines: string[]; output: string; output2?: string } {
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
   const gnode = s.coupling.kind === 'direct' ? input : `g${i}`;
@@ -65,7 +72,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     const ul = s.connection === 'ultralinear' && t.law.kind === 'pentode';
     lines.push(t.law.kind === 'pentode' ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params));
     lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RPRI bottom ${p} ${g(Math.max(s.rPrimary, 1e-6))}`);
-    const { lp, k: kw } = windingOf(s);
+    const { lp, k: kw } = windingOf(s, settle?.lp);
     if (ul) {
       const x = s.ulTap;
       lines.push(`LA bp${i} tap ${g(lp * x * x)}`, `LB tap bottom ${g(lp * (1 - x) * (1 - x))}`, `KAB LA LB ${K}`, `KAS LA LS ${g(kw)}`, `KBS LB LS ${g(kw)}`);
@@ -73,7 +80,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
       lines.push(`LP bp${i} bottom ${g(lp)}`, `KPS LP LS ${g(kw)}`);
     }
     lines.push(`LS sec 0 ${g(lp / n2)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
-    lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(midband ? large : (s.ck ?? large))}` : `VK${i} ${k} 0 DC 0`);
+    lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(settle ? 10 : midband ? large : (s.ck ?? large))}` : `VK${i} ${k} 0 DC 0`);
     const rgrid = t.law.kind === 'triode' ? t.law.tube.model.gridResistance : POWER_GRID_RESISTANCE;
     lines.push(`BG${i} ${gnode} ${k} I = pwr(max(v(${gnode},${k}),0),1.5)/${g(rgrid)}`);
     if (t.law.kind === 'pentode') {
@@ -169,7 +176,7 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
   let input = 'a';
   let input2: string | null = null;
   c.stages.forEach((s, i) => {
-    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2);
+    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2, analysis.kind === 'tran' ? analysis.settle : undefined);
     lines.push(...st.lines);
     input = st.output;
     input2 = st.output2 ?? null;
@@ -184,6 +191,8 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
       ? ['op', `print ${c.stages.map((_, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']
       : analysis.kind === 'sweep'
         ? ['ac dec 50 0.01 1e8', 'wrdata {data} vm(out)']
-        : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
+        : analysis.settle
+          ? ['set nfreqs=10', 'set fourgridsize=16384', `tran 0.5u ${analysis.settle.ms}m ${analysis.settle.ms - 10}m 0.5u`, 'fourier 1000 v(out)']
+          : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
   return [...lines, '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
 }
