@@ -111,6 +111,7 @@ export { type LimitedPower, type ZSweep } from './output/powerSweep';
 export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimarySweep, switchBias } from './output/outputCalls';
 export { checkOutputTube, OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
+export { settledCathode, type SettledCathode } from './output/settledCathode';
 export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 export { outputFindings } from './output/outputFindings';
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';

@@ -36,7 +36,8 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
       heading: 'Power and distortion',
       lines: [
         `At the onset of ${a.clean.limitedBy}: ${watts(a.clean.at.power)} at ${percentOf(a.clean.at.thd)} THD, drive ${volts(a.clean.at.drive / Math.SQRT2)} rms`,
-        `Grid to 0 V: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${percentOf(a.full.harmonics[2] ?? 0)}, H3 ${percentOf(a.full.harmonics[3] ?? 0)})`,
+        `Grid to 0 V${o.bias === 'cathode' ? ' at the idle bias' : ''}: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${percentOf(a.full.harmonics[2] ?? 0)}, H3 ${percentOf(a.full.harmonics[3] ?? 0)})`,
+        a.settledCathode ? `Rk settles under full drive at Vk ${volts(a.settledCathode.vk)} (${volts(a.settledCathode.idleVk)} idle): ${watts(a.settledCathode.full.power)} at ${percentOf(a.settledCathode.full.thd)} THD with the grid to 0 V there, ${volts(a.settledCathode.full.drive / Math.SQRT2)} rms drive` : '',
         a.atLimit ? `Within ${percentOf(o.thdLimit)} THD: ${watts(a.atLimit.power)}` : '',
         a.zSweep ? `Best primary at this point: ${ohms(a.zSweep.best.zPrimary)} for ${watts(a.zSweep.best.power)} within ${percentOf(a.zSweep.limit)} THD` : '',
       ].filter(Boolean),

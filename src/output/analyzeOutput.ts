@@ -9,6 +9,7 @@ import { chartOptionsOf } from './chartOptions';
 import { outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
 import { atDrive, averageScreenCurrent, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
 import { screenFeedPlan, screenSagFinding } from './screenFeed';
+import { settledCathode, type SettledCathode } from './settledCathode';
 import { bySeverity } from '../stage/ratingBands';
 import type { OutputTube } from './outputTube';
 import { powerAtDistortion, powerSweep, zPrimarySweep, type LimitedPower, type ZSweep } from './powerSweep';
@@ -37,6 +38,8 @@ export interface OutputAnalysis {
   readonly zSweep: ZSweep | null;
   /** A pentode-connected screen's current averaged over the cycle with the grid driven to 0 V, A (what its dropper drops then); null for the other connections. The light pass carries the last full pass's. */
   readonly screenAtFull: number | null;
+  /** A cathode resistor's bias settled under full drive (settledCathode), on the full pass; null under fixed bias or where it does not settle. The light pass carries the last full pass's. */
+  readonly settledCathode: SettledCathode | null;
 }
 
 /**
@@ -112,5 +115,14 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
     sweep: light ? (prev?.sweep ?? []) : powerSweep(s),
     zSweep: light ? (prev?.zSweep ?? null) : zPrimarySweep(s),
     screenAtFull,
+    settledCathode: settledOf(s, light, prev),
   };
+}
+
+/** The settled cathode on the full pass (20 to 35 ms, more than a drag frame can spend); the light pass carries the last one. */
+function settledOf(s: OutputSolution, light: boolean, prev: OutputAnalysis | undefined): SettledCathode | null {
+  if (s.design.bias !== 'cathode') return null;
+  if (light) return prev?.settledCathode ?? null;
+  const r = settledCathode(s);
+  return r.ok ? r : null;
 }

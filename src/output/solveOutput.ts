@@ -173,6 +173,17 @@ export function outputSolutionAt(tube: OutputTube, design: OutputDesign, vpk: nu
 }
 
 /**
+ * A cathode-biased stage with its cathode held at `vk` (its grid at 0 V DC
+ * through the leak, so Vgk = −vk): what its bypass holds it at once a
+ * sustained drive has moved it (settledCathode).
+ */
+export function outputWithCathodeAt(s: OutputSolution, vk: number): Result<OutputSolution> {
+  const op = pointAt(s.tube, s.design, vk, -vk);
+  if (!(op.ik > OUTPUT_CUTOFF_A) || !(op.vpk > 0.5)) return fail('cutoff', `The ${s.tube.id} is cut off with its cathode at ${vk.toPrecision(3)} V`, 'rk');
+  return { ok: true, tube: s.tube, design: s.design, op };
+}
+
+/**
  * The quiescent point of a single-ended output stage. Fixed bias: the grid
  * sits at the bias supply and the plate where the primary's DC drop closes
  * the loop. Cathode bias: Brent's method on the cathode voltage, with that

@@ -240,6 +240,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('atDrive', fc.tuple(solutions, or(fc.double({ min: 0, max: 40 })), fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.atDrive);
   run('waveform', fc.tuple(solutions, or(fc.double({ min: 0, max: 40 })), fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.waveform);
   run('cleanLimit', fc.tuple(solutions, fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.cleanLimit);
+  run('settledCathode', fc.tuple(fc.oneof(solutions, fc.constant(solvedOut))), Q.settledCathode, 30);
   run('powerAtDistortion', fc.tuple(solutions, or(fc.double({ min: 0.001, max: 0.5 })), fc.oneof(fc.constant(undefined), anything)), Q.powerAtDistortion, 150);
   run('powerSweep', fc.tuple(solutions, or(fc.integer({ min: 1, max: 30 }))), Q.powerSweep, 100);
   run('zPrimarySweep', fc.tuple(solutions, fc.oneof(fc.constant(undefined), anything), or(fc.integer({ min: 2, max: 6 }))), Q.zPrimarySweep, 40);

@@ -29,6 +29,8 @@ export const OUTPUT_COMPARE_ROWS: readonly Row[] = [
   { label: 'Damping factor', key: 'damping', value: (a) => a.dampingFactor, show: (v) => plain(v, 2), diff: 'ratio' },
   { label: 'Power at grid-current or cutoff onset', key: 'clean', value: (a) => a.clean.at.power, show: watts, diff: 'ratio' },
   { label: 'THD at that onset', key: 'clean-thd', value: (a) => a.clean.at.thd * 100, show: (v) => `${plain(v, 2)} %`, diff: 'ratio' },
+  { label: 'Rk settled at full drive: Vk', key: 'settled-vk', value: (a) => a.settledCathode?.vk ?? null, show: volts, diff: 'difference', ifAny: true },
+  { label: 'Power, grid to 0 V there', key: 'settled', value: (a) => a.settledCathode?.full.power ?? null, show: watts, diff: 'ratio', ifAny: true },
   { label: 'Power within the THD limit', key: 'limit', value: (a) => a.atLimit?.power ?? null, show: watts, diff: 'ratio' },
   { label: 'Best primary Z at the limit', key: 'best-z', value: (a) => a.zSweep?.best.zPrimary ?? null, show: ohms, diff: 'ratio' },
 ];

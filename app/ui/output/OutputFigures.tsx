@@ -8,7 +8,8 @@ import { PairFigures } from './PairFigures';
  * The output stage's figures: the parts the drag sets (B+, bias, Zpri), the quiescent point, dissipation against
  * ratings, small-signal figures, and power: clean (to grid current or
  * cutoff), at full drive (grid to 0 V, as data sheets quote it), and within
- * the distortion limit. Names in data-figure for tests and exports.
+ * the distortion limit; with a cathode resistor, where its bias settles under
+ * full drive and the power there. Names in data-figure for tests and exports.
  */
 export function OutputFigures() {
   const bench = useWorkbench((s) => s.outputBench);
@@ -23,6 +24,8 @@ function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
   const r = tube.ratings;
   const limitFirst = a.atLimit?.limitedBy === 'grid current' && !bench.light;
   const screen = tube.law.kind === 'pentode' && op.connection !== 'triode';
+  // The settled cathode is worked out on the full pass only (at release).
+  const wait = '…';
   return (
     <section className="panel figures" aria-label="Output stage figures">
       <dl className="figure-group">
@@ -47,7 +50,7 @@ function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
       </dl>
       <dl className="figure-group">
         <Figure name="clean-power" label={`Power at ${a.clean.limitedBy} onset`} value={`${watts(a.clean.at.power)} at ${percent(a.clean.at.thd)} THD`} chars={20.5} />
-        <Figure name="full-power" label="Grid driven to 0 V" value={`${watts(a.full.power)} at ${percent(a.full.thd)} THD`} chars={20.5} />
+        <Figure name="full-power" label={o.bias === 'cathode' ? 'Grid driven to 0 V, idle bias' : 'Grid driven to 0 V'} value={`${watts(a.full.power)} at ${percent(a.full.thd)} THD`} chars={20.5} />
         <Figure
           name="limit-power"
           label={`Power within ${percent(bench.analysis.solution.design.thdLimit)} THD${limitFirst ? ' (grid current first)' : ''}`}
@@ -56,6 +59,13 @@ function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
         />
         <Figure name="drive" label="Drive for clean power" value={`${volts(a.clean.at.drive / Math.SQRT2)} rms`} chars={9} />
       </dl>
+      {o.bias === 'cathode' ? (
+        <dl className="figure-group" aria-label="The cathode resistor under full drive">
+          <Figure name="settled-vk" label="Vk idle → settled at full drive" value={bench.light ? wait : a.settledCathode ? `${volts(a.settledCathode.idleVk)} → ${volts(a.settledCathode.vk)}` : 'does not settle'} chars={15} />
+          <Figure name="settled-power" label="Grid driven to 0 V there" value={!bench.light && a.settledCathode ? `${watts(a.settledCathode.full.power)} at ${percent(a.settledCathode.full.thd)} THD` : bench.light ? wait : '—'} chars={20.5} />
+          <Figure name="settled-drive" label="Drive there" value={!bench.light && a.settledCathode ? `${volts(a.settledCathode.full.drive / Math.SQRT2)} rms` : bench.light ? wait : '—'} chars={9} />
+        </dl>
+      ) : null}
     </section>
   );
 }

@@ -49,7 +49,7 @@ export function OutputValues() {
         </p>
       ) : (
         <p className="field-hint" data-testid="single-ended-steady-state">
-          Power and distortion are for a sustained drive, as a data sheet quotes them: the drive&apos;s own shift of the average plate current settles into the primary&apos;s magnetising current, and the plate swings about B+ again. The cathode is held at its idle voltage.
+          Power and distortion are for a sustained drive, as a data sheet quotes them: the drive&apos;s own shift of the average plate current settles into the primary&apos;s magnetising current, and the plate swings about B+ again. They are at the idle bias; a cathode resistor&apos;s bias under full drive, and the power there, are in the figures.
         </p>
       )}
       <div className="value-field">

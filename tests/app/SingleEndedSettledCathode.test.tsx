@@ -1,0 +1,50 @@
+import { render, screen, within } from '@testing-library/react';
+import { act } from 'react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { cardSections } from '../../app/export/buildCard';
+import { compareCells } from '../../app/ui/output/OutputComparePanel';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { findOutputTube, settledCathode, solveOutput } from '../../src/index';
+
+describe('a cathode-biased single-ended stage shows where its resistor settles under full drive', () => {
+  it('the figures, the build card and the comparison give the settled cathode and the power there, as the model solves it; fixed bias shows none', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().setStageKind('output'));
+    const bench = store.getState().outputBench;
+    if (bench.pair !== 'single-ended') throw new Error('no single-ended stage on the bench');
+    const design = bench.analysis.solution.design;
+    expect(design.bias).toBe('cathode');
+    // The same stage solved straight from the model (checked against ngspice in settledCathode.spice.test.ts).
+    const s = solveOutput(findOutputTube(design.tubeId)!, design);
+    if (!s.ok) throw new Error(s.message);
+    const r = settledCathode(s);
+    if (!r.ok) throw new Error(r.message);
+    const figures = within(screen.getByRole('region', { name: 'Output stage figures' }));
+    const figure = (name: string) => figures.getByText((_, el) => el?.getAttribute('data-figure') === name).querySelector('dd')!.textContent;
+    expect(figure('settled-vk')).toBe(`${r.idleVk.toPrecision(3)} V → ${r.vk.toPrecision(3)} V`);
+    expect(figure('settled-power')).toMatch(new RegExp(`^${r.full.power.toPrecision(3)} W at `));
+    const card = cardSections(store.getState()).flatMap((c) => c.lines);
+    expect(card.some((l) => l.startsWith(`Rk settles under full drive at Vk ${r.vk.toPrecision(3)} V`))).toBe(true);
+
+    // A second tube in the same socket on the same Rk settles where its own currents put it: side by side.
+    act(() => store.getState().setOutputRival({ on: true, tubeId: '6L6GC', connection: 'ultralinear' }));
+    const st = store.getState();
+    const rival = st.outputRivalBench;
+    if (!rival?.ok || rival.pair !== 'single-ended' || st.outputBench.pair !== 'single-ended') throw new Error('no rival stage');
+    const theirs = settledCathode(rival.analysis.solution);
+    if (!theirs.ok) throw new Error(theirs.message);
+    const row = compareCells(st.outputBench, rival).find((c) => c.key === 'settled-vk')!;
+    expect(row.a).toBe(`${r.vk.toPrecision(3)} V`);
+    expect(row.b).toBe(`${theirs.vk.toPrecision(3)} V`);
+
+    act(() => { store.getState().setOutputBias('fixed'); });
+    const fixed = store.getState();
+    if (fixed.outputBench.pair === 'single-ended' && fixed.outputRivalBench?.ok && fixed.outputRivalBench.pair === 'single-ended') {
+      expect(compareCells(fixed.outputBench, fixed.outputRivalBench).some((c) => c.key.startsWith('settled'))).toBe(false);
+    } else throw new Error('no single-ended stages under fixed bias');
+    expect(figures.queryByText((_, el) => el?.getAttribute('data-figure') === 'settled-vk')).toBeNull();
+    expect(cardSections(store.getState()).flatMap((c) => c.lines).some((l) => l.startsWith('Rk settles'))).toBe(false);
+  });
+});
