@@ -243,19 +243,24 @@ export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary, samp
 }
 
 /**
- * The screen's current averaged over a cycle at a drive (peak grid swing),
- * A: each instant of the steady cycle as the power figures solve it, the
- * screen's law read there. In a pentode the screen takes more as the plate
- * swings low, so its average rises with drive: what a dropping resistor then
- * drops.
+ * The screen's and the cathode's currents averaged over a cycle at a drive
+ * (peak grid swing), A: each instant of the steady cycle as the power figures
+ * solve it, the tube's laws read there. In a pentode the screen takes more as
+ * the plate swings low, so its average rises with drive: what a dropping
+ * resistor then drops; the cathode's is what a cathode resistor then drops.
  */
-export function averageScreenCurrent(s: OutputSolution, drive: number, samples = SWEEP_SAMPLES): number {
+export function averageCurrents(s: OutputSolution, drive: number, samples = SWEEP_SAMPLES): { readonly ig2: number; readonly ik: number } {
   const w = waveform(s, drive, s.design.zPrimary, samples);
-  const screen = emptyCurrents();
-  let sum = 0;
+  const c = emptyCurrents();
+  let ig2 = 0;
+  let ik = 0;
   for (let k = 0; k < samples; k++) {
-    stageCurrentsInto(s.tube, s.op.feed, w.vpk[k]!, s.op.vgk + drive * Math.sin((2 * Math.PI * k) / samples), screen, w.winding[k]!);
-    sum += screen.ig2;
+    stageCurrentsInto(s.tube, s.op.feed, w.vpk[k]!, s.op.vgk + drive * Math.sin((2 * Math.PI * k) / samples), c, w.winding[k]!);
+    ig2 += c.ig2;
+    ik += c.ik;
   }
-  return sum / samples;
+  return { ig2: ig2 / samples, ik: ik / samples };
 }
+
+/** The screen's average current at a drive, A (averageCurrents). */
+export const averageScreenCurrent = (s: OutputSolution, drive: number, samples = SWEEP_SAMPLES): number => averageCurrents(s, drive, samples).ig2;

@@ -1,8 +1,7 @@
-import { bracketedRoot } from '../numeric/bracketedRoot';
+import { walkToRoot } from '../numeric/walkToRoot';
 import { fail, type Result } from '../result';
 import { checkOutputSolution } from './checkOutput';
-import { emptyCurrents, stageCurrentsInto } from './electrodes';
-import { atDrive, OUTPUT_SAMPLES, SWEEP_SAMPLES, waveform, type DriveResult } from './outputSignal';
+import { atDrive, averageCurrents, OUTPUT_SAMPLES, type DriveResult } from './outputSignal';
 import { outputWithCathodeAt, solveOutput, type OutputSolution } from './solveOutput';
 
 /** A cathode-biased single-ended stage under full drive once its bypass capacitor has settled. */
@@ -17,19 +16,6 @@ export interface SettledCathode {
 
 /** The search stops within this many volts (a tenth of a millivolt reads the same on any figure). */
 const VOLT_TOL = 1e-4;
-
-/** The cathode current (plate and screen) averaged over the steady cycle with the grid driven to 0 V, A. */
-function averageCathodeCurrent(s: OutputSolution): number {
-  const drive = Math.max(0, -s.op.vgk);
-  const w = waveform(s, drive, s.design.zPrimary, SWEEP_SAMPLES);
-  const c = emptyCurrents();
-  let sum = 0;
-  for (let k = 0; k < SWEEP_SAMPLES; k++) {
-    stageCurrentsInto(s.tube, s.op.feed, w.vpk[k]!, s.op.vgk + drive * Math.sin((2 * Math.PI * k) / SWEEP_SAMPLES), c, w.winding[k]!);
-    sum += c.ik;
-  }
-  return sum / SWEEP_SAMPLES;
-}
 
 /**
  * A single-ended stage's cathode resistor under full drive. Its bypass holds
@@ -54,23 +40,13 @@ export function settledCathode(s: OutputSolution): Result<SettledCathode> {
   // A stage cut off at a deeper bias draws nothing: the resistor drops nothing there.
   const excess = (vk: number) => {
     const r = at(vk);
-    return d.rk * (r.ok ? averageCathodeCurrent(r) : 0) - vk;
+    return d.rk * (r.ok ? averageCurrents(r, Math.max(0, -r.op.vgk)).ik : 0) - vk;
   };
   const idleVk = idle.op.vk;
-  const step = Math.max(0.05 * idleVk, 0.01);
-  const e0 = excess(idleVk);
-  if (e0 === 0) return settledAt(idleVk);
-  const dir = e0 > 0 ? 1 : -1;
-  let prev = idleVk;
-  let bracket: readonly [number, number] | null = null;
-  for (let k = 1; k <= 60 && bracket === null; k++) {
-    const next = Math.min(Math.max(idleVk + dir * step * k, 1e-6), d.bplus);
-    if (Math.sign(excess(next)) !== Math.sign(e0)) bracket = [Math.min(prev, next), Math.max(prev, next)];
-    else if (next === 1e-6 || next === d.bplus) break;
-    prev = next;
-  }
-  if (bracket === null) return fail('no-convergence', 'The cathode resistor\'s bias under full drive did not settle; try another Rk', 'rk');
-  return settledAt(bracketedRoot(excess, bracket[0], bracket[1], VOLT_TOL).x);
+  // Walk from the idle bias the way the excess points until it changes sign, then close in by Brent's method.
+  const vk = walkToRoot(excess, idleVk, Math.max(0.05 * idleVk, 0.01), 1e-6, d.bplus, VOLT_TOL);
+  if (vk === null) return fail('no-convergence', 'The cathode resistor\'s bias under full drive did not settle; try another Rk', 'rk');
+  return settledAt(vk);
 
   function settledAt(vk: number): Result<SettledCathode> {
     const r = at(vk);

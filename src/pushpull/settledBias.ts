@@ -1,4 +1,4 @@
-import { bracketedRoot } from '../numeric/bracketedRoot';
+import { walkToRoot } from '../numeric/walkToRoot';
 import { fail, type Result } from '../result';
 import { OUTPUT_SAMPLES, SWEEP_SAMPLES } from '../output/outputSignal';
 import { checkPushPullSolution, pushPullDriveOf, type PushPullDrive } from './pushPullDrive';
@@ -46,23 +46,10 @@ export function settledCathodeBias(s: PushPullSolution): Result<SettledBias> {
   // A pair cut off at a deeper bias draws nothing: the resistor drops nothing there.
   const excess = (vk: number) => d.rk * (at(vk, SWEEP_SAMPLES)?.supplyCurrent ?? 0) - vk;
   const idleVk = idle.vk;
-  const step = Math.max(0.05 * idleVk, 0.01);
-  const e0 = excess(idleVk);
-  if (e0 === 0) return settledAt(idleVk);
-  // Walk from the idle bias the way the excess points until it changes sign (upward in class AB, where the
-  // average current rises; downward for a pair whose average falls), then close in by Brent's method.
-  const dir = e0 > 0 ? 1 : -1;
-  let prev = idleVk;
-  let bracket: readonly [number, number] | null = null;
-  for (let k = 1; k <= 60 && bracket === null; k++) {
-    const next = Math.min(Math.max(idleVk + dir * step * k, 1e-6), d.bplus);
-    if (Math.sign(excess(next)) !== Math.sign(e0)) bracket = [Math.min(prev, next), Math.max(prev, next)];
-    else if (next === 1e-6 || next === d.bplus) break;
-    prev = next;
-  }
-  if (bracket === null) return fail('no-convergence', 'The shared cathode resistor\'s bias under full drive did not settle; try another Rk', 'rk');
-  const r = bracketedRoot(excess, bracket[0], bracket[1], VOLT_TOL);
-  return settledAt(r.x);
+  // Walk from the idle bias the way the excess points until it changes sign, then close in by Brent's method.
+  const vk = walkToRoot(excess, idleVk, Math.max(0.05 * idleVk, 0.01), 1e-6, d.bplus, VOLT_TOL);
+  if (vk === null) return fail('no-convergence', 'The shared cathode resistor\'s bias under full drive did not settle; try another Rk', 'rk');
+  return settledAt(vk);
 
   function settledAt(vk: number): Result<SettledBias> {
     const full = at(vk, OUTPUT_SAMPLES);

@@ -3,6 +3,7 @@ import { Figure, Share } from '../panels/Figure';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { SingleEndedBench } from '../../store/outputAnalysis';
 import { PairFigures } from './PairFigures';
+import { SettledBiasFigures } from './SettledBiasFigures';
 
 /**
  * The output stage's figures: the parts the drag sets (B+, bias, Zpri), the quiescent point, dissipation against
@@ -24,8 +25,6 @@ function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
   const r = tube.ratings;
   const limitFirst = a.atLimit?.limitedBy === 'grid current' && !bench.light;
   const screen = tube.law.kind === 'pentode' && op.connection !== 'triode';
-  // The settled cathode is worked out on the full pass only (at release).
-  const wait = '…';
   return (
     <section className="panel figures" aria-label="Output stage figures">
       <dl className="figure-group">
@@ -60,13 +59,7 @@ function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
         />
         <Figure name="drive" label="Drive for clean power" value={`${volts(a.clean.at.drive / Math.SQRT2)} rms`} chars={9} />
       </dl>
-      {o.bias === 'cathode' ? (
-        <dl className="figure-group" aria-label="The cathode resistor under full drive">
-          <Figure name="settled-vk" label="Vk idle → settled at full drive" value={bench.light ? wait : a.settledCathode ? `${volts(a.settledCathode.idleVk)} → ${volts(a.settledCathode.vk)}` : 'does not settle'} chars={15} />
-          <Figure name="settled-power" label="Grid driven to 0 V there" value={!bench.light && a.settledCathode ? `${watts(a.settledCathode.full.power)} at ${percent(a.settledCathode.full.thd)} THD` : bench.light ? wait : '—'} chars={20.5} />
-          <Figure name="settled-drive" label="Drive there" value={!bench.light && a.settledCathode ? `${volts(a.settledCathode.full.drive / Math.SQRT2)} rms` : bench.light ? wait : '—'} chars={9} />
-        </dl>
-      ) : null}
+      {o.bias === 'cathode' ? <SettledBiasFigures settled={a.settledCathode} light={bench.light} label="The cathode resistor under full drive" grids="Grid" /> : null}
     </section>
   );
 }

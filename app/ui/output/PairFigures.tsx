@@ -1,5 +1,6 @@
 import { milliamps, ohms, percentOf as percent, plain, volts, watts } from '../../format';
 import { Figure, Share } from '../panels/Figure';
+import { SettledBiasFigures } from './SettledBiasFigures';
 import type { PushPullBench } from '../../store/outputAnalysis';
 import { useWorkbench } from '../../store/StoreProvider';
 
@@ -43,13 +44,7 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
         <Figure name="class" label="Class" value={f ? (f.classABFrom === null ? 'A to 0 V grid' : f.classABFrom === 0 ? 'AB from the smallest signal' : `AB from ${volts(f.classABFrom)} peak per grid`) : wait} chars={24} />
         <Figure name="drive" label="Drive per grid, full" value={`${volts(a.full.drive / Math.SQRT2)} rms`} chars={9} />
       </dl>
-      {d.bias === 'cathode' ? (
-        <dl className="figure-group" aria-label="The shared cathode resistor under full drive">
-          <Figure name="settled-vk" label="Vk idle → settled at full drive" value={bench.light ? wait : a.settledBias ? `${volts(a.settledBias.idleVk)} → ${volts(a.settledBias.vk)}` : 'does not settle'} chars={15} />
-          <Figure name="settled-power" label="Grids driven to 0 V there" value={!bench.light && a.settledBias ? `${watts(a.settledBias.full.power)} at ${percent(a.settledBias.full.thd)} THD` : bench.light ? wait : '—'} chars={20.5} />
-          <Figure name="settled-drive" label="Drive per grid there" value={!bench.light && a.settledBias ? `${volts(a.settledBias.full.drive / Math.SQRT2)} rms` : bench.light ? wait : '—'} chars={9} />
-        </dl>
-      ) : null}
+      {d.bias === 'cathode' ? <SettledBiasFigures settled={a.settledBias} light={bench.light} label="The shared cathode resistor under full drive" grids="Grids" /> : null}
       <dl className="figure-group">
         <Figure name="worst-pa" label="Worst Pa under drive" value={f ? `${watts(f.worstPlate.watts)} (${Math.round((100 * f.worstPlate.watts) / r.maxPlateDissipation)} %)` : wait} chars={13} />
         <Figure name="supply-current" label="B+ current idle → full" value={`${milliamps(a.supplyCurrent.idle)} → ${milliamps(a.supplyCurrent.full)}`} chars={17} />
