@@ -65,17 +65,20 @@ export interface OutputOverlay {
   /** Where the AC load line's slope handle sits. */
   readonly loadHandle: PlanePoint;
   /**
-   * The stretch of the AC load line the clean swing covers, drawn on the line
-   * itself: its ends are the plate-voltage extremes, each at the current the
-   * line gives there. The line is the primary's current referred to the
-   * plate; in ultralinear the plate current proper departs from it by the
-   * screen's share of the winding (a few mA), so plotting the plate
-   * current's extremes would put the band beside the line it belongs to.
+   * The stretch of the AC load line the clean swing covers: its ends are the
+   * plate-voltage extremes, each at the current the line gives there. Under
+   * a sustained drive the magnetising current settles Δ from idle and the
+   * instants run on the line moved up by Z·Δ/(Z + Rpri), so the band is
+   * drawn on that line (parallel to the one through the idle point). The
+   * line is the primary's current referred to the plate; in ultralinear the
+   * plate current proper departs from it by the screen's share of the
+   * winding (a few mA), so plotting the plate current's extremes would put
+   * the band beside the line it belongs to.
    */
   readonly swing: readonly PlanePoint[];
 }
 
-export function outputOverlay(s: OutputSolution, extent: PlateExtent, swing: { vpkMin: number; vpkMax: number; ipMin: number; ipMax: number } | null): OutputOverlay {
+export function outputOverlay(s: OutputSolution, extent: PlateExtent, swing: { vpkMin: number; vpkMax: number; magnetising: number } | null): OutputOverlay {
   const { supply, vpk, ip } = s.op;
   const rp = s.design.rPrimary;
   const top = extent.iaMax * 1.02;
@@ -85,7 +88,8 @@ export function outputOverlay(s: OutputSolution, extent: PlateExtent, swing: { v
   // The handle sits 60 % of the way from the point to where the line leaves the chart on the right.
   const right = acLoad[acLoad.length - 1] ?? { v: vpk, i: ip };
   const loadHandle = { v: vpk + 0.6 * (right.v - vpk), i: ip + 0.6 * (right.i - ip) };
-  const onLine = (v: number) => ({ v, i: ip - (v - vpk) / zt });
+  const shift = swing ? (s.design.zPrimary * (swing.magnetising - s.op.mmf)) / zt : 0;
+  const onLine = (v: number) => ({ v, i: ip - (v - vpk) / zt + shift });
   const sw = swing ? [onLine(swing.vpkMin), onLine(swing.vpkMax)] : [];
   return { dcLoad, acLoad, point: { v: vpk, i: ip }, loadHandle, swing: sw };
 }

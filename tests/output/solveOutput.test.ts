@@ -96,16 +96,31 @@ describe('output stage operating point', () => {
 });
 
 describe('the clean-swing band on the chart', () => {
-  it('lies on the AC load line and through the operating point, in ultralinear too (where the plate current departs from the line by the screen share)', async () => {
+  // Under a sustained drive the magnetising current settles Δ above idle (tests/output/steadyState.test.ts), so the
+  // instants run on the AC load line moved up by Z·Δ/(Z + Rpri): the band is drawn on that line, where the cycle is.
+  it('lies on the AC load line moved by the settled magnetising current, in ultralinear too (where the plate current departs from the line by the screen share)', async () => {
     const { analyzeOutput, findOutputTube } = await import('../../src/index');
     const d = { tubeId: 'EL34', connection: 'ultralinear' as const, bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130, bias: 'cathode' as const, rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
     const a = analyzeOutput(findOutputTube('EL34')!, d, { light: true });
     if (!a.ok) throw new Error(a.message);
-    const { vpk, ip } = a.solution.op;
+    const { vpk, ip, mmf } = a.solution.op;
     const zt = d.zPrimary + d.rPrimary;
+    const shift = (d.zPrimary * (a.clean.at.magnetising - mmf)) / zt;
+    expect(shift).toBeGreaterThan(1e-3);
     const [lo, hi] = a.overlay.swing;
-    for (const p of [lo!, hi!]) expect(Math.abs(p.i - (ip - (p.v - vpk) / zt))).toBeLessThan(1e-9);
+    for (const p of [lo!, hi!]) expect(Math.abs(p.i - (ip - (p.v - vpk) / zt + shift))).toBeLessThan(1e-9);
     expect(lo!.v).toBeLessThan(vpk);
     expect(hi!.v).toBeGreaterThan(vpk);
+  });
+
+  it('ends where the cycle\'s current does: a pentode\'s at its least plate current, not below the axis', async () => {
+    const { analyzeOutput, findOutputTube } = await import('../../src/index');
+    const d = { tubeId: 'EL34', connection: 'pentode' as const, bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130, bias: 'cathode' as const, rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
+    const a = analyzeOutput(findOutputTube('EL34')!, d, { light: true });
+    if (!a.ok) throw new Error(a.message);
+    const hi = a.overlay.swing[1]!;
+    // A pentode's coupled current is its plate current: at the plate's highest instant, the cycle's least current.
+    expect(Math.abs(hi.i - a.clean.at.ipMin)).toBeLessThan(1e-4 * a.solution.op.ip);
+    expect(hi.i).toBeGreaterThanOrEqual(0);
   });
 });

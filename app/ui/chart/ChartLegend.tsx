@@ -34,7 +34,7 @@ export const OUTPUT_STAGE_LEGEND: readonly LegendItem[] = [
   { label: 'AC load line (primary impedance; drag its diamond handle)', stroke: PALETTE.load, dash: '9 5', width: 1.6 },
   { label: 'Rated plate dissipation', stroke: PALETTE.limit, dash: LIMIT_STROKES.dissipation.dash, width: LIMIT_STROKES.dissipation.width },
   { label: 'Maximum plate voltage', stroke: PALETTE.limit, dash: LIMIT_STROKES.maxPlateVoltage.dash, width: LIMIT_STROKES.maxPlateVoltage.width },
-  { label: 'Swing to grid current or cutoff, along the AC load line', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
+  { label: 'Swing to grid current or cutoff, sustained: the AC load line moved by the settled magnetising current', stroke: PALETTE.pointWash, dash: undefined, width: 8 },
 ];
 
 export const PAIR_STAGE_LEGEND: readonly LegendItem[] = [
