@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, solveOutput, type OutputDesign } from '../../src/index';
 import { atDrive, waveform } from '../../src/output/outputSignal';
-import { settleMagnetising, SETTLE_ITERATIONS } from '../../src/output/steadyState';
+import { settleMagnetising } from '../../src/output/steadyState';
 
 /**
  * The magnetising current a sustained drive settles at: where the cycle's
@@ -42,7 +42,6 @@ describe('the magnetising current a drive settles at', () => {
       }),
       { numRuns: 300 },
     );
-    expect(SETTLE_ITERATIONS).toBeGreaterThan(3);
   });
 
   it('an EL34 pentode: the settled cycle\'s winding voltage averages to zero, and its magnetising current is the average coupled current', () => {
