@@ -18,10 +18,10 @@ export type {
   TubeRecord,
   TypicalPoint,
 } from './tube/types';
-export { modelOf, recordOf } from './tube/types';
-export { triode, plateCurrent, smallSignalAt, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
-export { cutoffGridVoltage, korenParamsProblem } from './tube/koren';
-export { gridCurrent, classA1GridCurrent, GRID_CURRENT_ONSET, CATHODE_THERMAL_VOLTS, POWER_GRID_RESISTANCE } from './tube/gridCurrent';
+export { recordOf } from './tube/types';
+export { triode, plateCurrent, DEFAULT_GRID_RESISTANCE, type TubeSmallSignal } from './tube/triode';
+export { korenParamsProblem } from './tube/koren';
+export { gridCurrent, GRID_CURRENT_ONSET, CATHODE_THERMAL_VOLTS, POWER_GRID_RESISTANCE } from './tube/gridCurrent';
 export { tubeLibrary, findTube } from './tube/library';
 export { LIBRARY_TUBE_IDS } from './tube/library/libraryIds';
 export { korenPublishedSets } from './tube/korenPublishedSets';
@@ -42,26 +42,14 @@ export {
   type PlanePointDesign,
   type ReachablePoint,
 } from './stage/designAtPoint';
-export { ratingsFindings, NO_BIAS_VOLTS, type FindingInput } from './stage/findings';
+export { NO_BIAS_VOLTS, type FindingInput } from './stage/findings';
 export { amplifierFindings, type StageFinding } from './stage/stageFindings';
-export { DISSIPATION_WARN_FRACTION, HEATER_CATHODE_WARN_FRACTION, AT_RATING_TOLERANCE, bandOf, bySeverity, heaterCathodeRating, type Band, type Finding, type FindingKind, type HeaterCathodeRating, type Severity } from './stage/ratingBands';
-export {
-  plateCurve,
-  plateFamily,
-  familyGrids,
-  dcLoadLine,
-  acLoadLine,
-  biasLine,
-  dissipationLimit,
-  MAX_FAMILY_CURVES,
-  gridsDownTo,
-  type PlanePoint,
-  type PlateCurve,
-} from './stage/planeSeries';
-export { plateExtent, loadLineExtent, niceCeil, type PlateExtent } from './stage/plateExtent';
-export { parallel } from './stage/parallel';
+export { DISSIPATION_WARN_FRACTION, HEATER_CATHODE_WARN_FRACTION, AT_RATING_TOLERANCE, type Band, type Finding, type FindingKind, type HeaterCathodeRating, type Severity } from './stage/ratingBands';
+export { plateFamily, dcLoadLine, MAX_FAMILY_CURVES, type PlanePoint, type PlateCurve } from './stage/planeSeries';
+export { plateExtent, loadLineExtent, type PlateExtent } from './stage/plateExtent';
+
 export { curveSheet, CURVE_SAMPLES, type CurveSheet } from './stage/curveSheet';
-export { stageOverlay, BIAS_SAMPLES, type StageOverlay } from './stage/stageOverlay';
+export { BIAS_SAMPLES, type StageOverlay } from './stage/stageOverlay';
 
 export { parseValue, type ParsedValue } from './parts/parseValue';
 export { formatValue } from './parts/formatValue';
@@ -69,51 +57,50 @@ export { nearestPreferred, preferredAround } from './parts/nearestPreferred';
 export { E12, E24, E96, SERIES, SERIES_TOLERANCE, type PreferredSeries } from './parts/preferredValues';
 
 export { swing, swingOf, type SwingResult, type SwingLimit } from './signal/swing';
-export { levelAtThd, levelAtThdOf, TABLE_THD, type LevelAtThd } from './signal/levelAtThd';
+export { levelAtThd, TABLE_THD, type LevelAtThd } from './signal/levelAtThd';
 export { distortion, distortionOf, MAX_OVERDRIVE, DEFAULT_SAMPLES, type DriveLevel, type DistortionOptions, type DistortionResult } from './signal/distortion';
 export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } from './signal/frequencyResponse';
 export { corners, cornersOf, type Corners } from './signal/corners';
-export { solveLinks, type ChainLink, type FollowerCoupling, type LinkResult, type LinkChainResult } from './signal/solveLinks';
+export { type ChainLink, type FollowerCoupling, type LinkResult, type LinkChainResult } from './signal/solveLinks';
 export { solveChain } from './chain/solveChain';
 export { globalFeedback, feedbackPartsProblem, FEEDBACK_CF_LIMITS, FEEDBACK_RF_LIMITS, type GlobalFeedback } from './chain/globalFeedback';
 export { squareWave, type SquareWave } from './signal/squareWave';
 export { feedbackBand, type FeedbackBand, type FeedbackDivider, type LoopMargins, type LoopSquareWave } from './chain/feedbackBand';
 export { windingProblem, WINDING_LIMITS, type WindingInductance } from './output/windingInductance';
-export { solveAmplifier, checkChain, prepareAmplifier, solveStagesInPlace, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
+export { solveAmplifier, stagesInPlaceProblem, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
 export { STAGE_KINDS, STAGE_KIND_LABELS } from './chain/stageKinds';
 export type { ChainInput, ChainResult, ChainStage, StageKindName, StageResult, Coupling, CapacitorCoupling, DirectCoupling, CommonCathodeLink, FollowerLink, SingleEndedLink, SplitLoadLink, LongTailedPairLink, PushPullLink, ClipCause } from './chain/chainTypes';
 export { sineLevel, decibelsOf, DB_FLOOR, NO_SIGNAL_VOLTS, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
 export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';
-export { distortionSweep, type LevelThd } from './signal/distortionSweep';
-export { harmonicAmplitudes, fftInPlace } from './signal/fft';
-export { transferCurve, swingPath } from './signal/transferCurve';
+export { type LevelThd } from './signal/distortionSweep';
+
 export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPointError } from './fit/fitTriode';
 export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';
-export { chainStageParts, type StageParts } from './build/chainStageParts';
-export { gridDivider } from './build/gridDivider';
+export { type StageParts } from './build/chainStageParts';
+
 export { amplifierParts, type AmplifierPartsOptions } from './build/amplifierParts';
-export { stagePartsList, capacitorsForCorner, capacitorForCorner, bypassResistance, resistorLine, capacitorLine, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
-export { productionSpread, seededRandom, type Spread, type SpreadSample } from './build/spread';
+export { stagePartsList, capacitorsForCorner, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
+export { productionSpread, type Spread, type SpreadSample } from './build/spread';
 export { envelopesOf, type EnvelopeCount } from './build/envelopes';
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';
 export { supplyPartsList, MAINS_HIGH, DIODE_VOLTS, ELECTROLYTIC_MAX_VOLTS, type SupplyParts, type SolvedSupply, type FilterCapacitorLine, type ChokeLine, type RectifierLine } from './build/supplyParts';
 export { parseTypicalCsv } from './fit/parseTypicalCsv';
 
-export { korenPentode, pentodeParamsProblem, type KorenPentodeParams } from './tube/pentode';
+export { korenPentode, type KorenPentodeParams } from './tube/pentode';
 export { CONNECTIONS, connectionsOf, type Connection, type OutputTube, type OutputLaw, type PowerRatings, type SingleEndedExample } from './output/outputTube';
 export { outputTubeLibrary, findOutputTube } from './output/library/index';
-export { OUTPUT_LIMITS, outputDesignProblem, effectiveConnection, type OutputDesign } from './output/outputDesign';
+export { OUTPUT_LIMITS, type OutputDesign } from './output/outputDesign';
 export { solveOutput, OUTPUT_CUTOFF_A, type OutputSolution, type OutputPoint } from './output/solveOutput';
 export { OUTPUT_SAMPLES, CUTOFF_SHARE, type DriveResult, type CleanLimit, type Waveform } from './output/outputSignal';
 export { type LimitedPower, type ZSweep } from './output/powerSweep';
 export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimarySweep, switchBias } from './output/outputCalls';
-export { checkOutputTube, OUTPUT_CALL_LIMITS } from './output/checkOutput';
+export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { settledCathode, type SettledCathode } from './output/settledCathode';
-export { outputExtent, outputSheet, outputOverlay, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
-export { outputFindings } from './output/outputFindings';
+export { outputExtent, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
+
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
 export { analyzeStage, type StageAnalysis, type StageAnalysisOptions } from './stage/analyzeStage';
 export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';
@@ -123,7 +110,7 @@ export { solveSupply } from './supply/solveSupply';
 export { checkSupply, MAX_SECTIONS } from './supply/checkSupply';
 export { RECTIFIER_TUBES, findRectifierTube, type RectifierTube } from './supply/rectifierTubes';
 export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection } from './supply/supplyTypes';
-export { supplyFindings, SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
+export { SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { supplyHum, humAtOutput, type SupplyHum, type HumAtOutput } from './chain/supplyHum';
@@ -131,29 +118,29 @@ export { supplyTangent, supplyNear, nearbyLoads, type SupplyTangent } from './su
 export { bplusAgreement, BPLUS_AGREEMENT } from './supply/bplusAgreement';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
-export { solvePushPull, scaledTube, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
+export { solvePushPull, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';
-export { checkPushPull, mismatchParts, MAX_MISMATCH, RAA_LIMITS, type PushPullDesign } from './pushpull/pushPullDesign';
+export { MAX_MISMATCH, RAA_LIMITS, type PushPullDesign } from './pushpull/pushPullDesign';
 export { pushPullFigures, type PushPullFigures } from './pushpull/pushPullFigures';
 export { settledCathodeBias, type SettledBias } from './pushpull/settledBias';
 export { solveCathodyne, type CathodyneDesign, type CathodyneResult } from './splitter/cathodyne';
 export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResult } from './splitter/longTailedPair';
 export { pushPullRaaSweep, MAX_RAA_POINTS, type RaaRow } from './pushpull/raaSweep';
 export { analyzePushPull, type PushPullAnalysis, type PushPullAnalysisOptions } from './pushpull/analyzePushPull';
-export { pushPullOverlay, raaThrough, type PushPullOverlay } from './pushpull/pushPullOverlay';
-export { pushPullFindings } from './pushpull/pushPullFindings';
+export { raaThrough, type PushPullOverlay } from './pushpull/pushPullOverlay';
+
 export { pairBiasForPoint, switchPairBias } from './pushpull/pairBias';
 export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } from './pushpull/pushPullParts';
 export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';
 export { solveSplitter, millerInputCapacitance, type SplitterDesign, type SplitterResult, type SplitterOutput } from './splitter/solveSplitter';
-export { compositeCurves } from './pushpull/compositeCurves';
-export { TARGET_NAMES, TARGET_LABELS, TARGETS_OF_KIND, activeTargets, targetsProblem, type Targets, type TargetName, type TargetStageKind } from './targets/targets';
+
+export { TARGET_NAMES, TARGET_LABELS, TARGETS_OF_KIND, activeTargets, type Targets, type TargetName, type TargetStageKind } from './targets/targets';
 export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
 export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';
 export { rankTubes, type TubeRank } from './targets/rankTubes';
-export { followerRegion, judgeFollower, judgeFollowerAt, rankFollowers, followerTargetsOf, FOLLOWER_SAMPLES, type FollowerRegion, type FollowerTargetStage } from './targets/followerTargets';
+export { followerRegion, judgeFollower, rankFollowers, FOLLOWER_SAMPLES, type FollowerRegion, type FollowerTargetStage } from './targets/followerTargets';
 export { judgeDesign, type DesignVerdict } from './targets/judgeDesign';
 export { preferredBest, type PreferredBest } from './targets/preferredBest';
 export { outputRegion, judgeOutput, rankOutputTubes, outputTargetsOf, type OutputRegion, type OutputRegionBest, type OutputRank, type OutputParts, type OutputTargetStage } from './targets/outputTargets';
 export { type PlaneRegion, type PlaneBest } from './targets/planeRegion';
-export { stageSignal, followerProblem, RESPONSE_FREQUENCIES, type StageSignal, type SignalLevels } from './stage/stageSignal';
+export { RESPONSE_FREQUENCIES, type StageSignal, type SignalLevels } from './stage/stageSignal';

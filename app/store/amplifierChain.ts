@@ -2,7 +2,7 @@ import {
   findOutputTube,
   globalFeedback,
   solveAmplifier,
-  solveStagesInPlace,
+  stagesInPlaceProblem,
   STAGE_KIND_LABELS,
   type AmplifierAtLevel,
   type ChainInput,
@@ -129,8 +129,8 @@ export function splitterRefusal(next: BenchDesign, prev: BenchDesign, registry: 
   if (!touched) return null;
   const chain = chainInputOf(next, registry);
   if (!chain) return null;
-  const placed = solveStagesInPlace(chain.input);
-  if (placed.ok) return null;
+  const placed = stagesInPlaceProblem(chain.input);
+  if (!placed) return null;
   const at = chain.names.findIndex((n) => n.role === 'splitter');
   return placed.field?.startsWith(`stages.${at}.`) ? namedAsCards(placed, chain.names) : null;
 }

@@ -92,6 +92,17 @@ export interface PlacedStages {
   readonly zins: readonly number[];
 }
 
+/**
+ * Why the amplifier's stages cannot all be solved in their places (the first
+ * that cannot, by field: a splitter whose grid gets no usable DC from the
+ * plate before it, a stage its B+ cannot feed), or null when they can. What a
+ * caller asks before it places a stage; the solve itself stays inside.
+ */
+export function stagesInPlaceProblem(input: ChainInput): Failure | null {
+  const placed = solveStagesInPlace(input);
+  return placed.ok ? null : placed;
+}
+
 export function solveStagesInPlace(input: ChainInput): Result<PlacedStages> {
   const problem = checkChain(input);
   if (problem) return problem;

@@ -7,7 +7,7 @@ import type { ChainInput, ChainResult, ChainStage, StageResult } from './chainTy
 import { prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
 import { STAGE_KIND_LABELS } from './stageKinds';
 
-export { checkChain, prepareAmplifier, solveStagesInPlace, MAX_CHAIN_STAGES, type PreparedAmplifier, type PlacedStages } from './prepareAmplifier';
+export { checkChain, prepareAmplifier, solveStagesInPlace, stagesInPlaceProblem, MAX_CHAIN_STAGES, type PreparedAmplifier, type PlacedStages } from './prepareAmplifier';
 
 /**
  * Solves an amplifier of 1 to 8 stages: each stage's operating point (a

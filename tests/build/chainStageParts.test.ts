@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { amplifierParts, chainStageParts, findOutputTube, findTube, gridDivider, solveAmplifier, type ChainInput, type PushPullLink } from '../../src/index';
+import { amplifierParts, findOutputTube, findTube, solveAmplifier, type ChainInput, type PushPullLink } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { chainStageParts } from '../../src/build/chainStageParts';
+import { gridDivider } from '../../src/build/gridDivider';
 
 // Our own amplifier: a 12AX7 input stage, a capacitor-coupled 12AU7 follower, a 12AU7 gain stage, a 12AU7 long-tailed pair, EL84s in push-pull.
 const pair: PushPullLink = {

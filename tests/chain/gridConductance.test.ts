@@ -2,8 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { cathodeShare, gainInto } from '../../src/chain/gridConductance';
 import type { LinearStage } from '../../src/chain/stageKind';
 import { NO_CAPACITANCES } from '../../src/chain/noCapacitances';
-import { amplifierAtLevel, findTube, gridCurrent, gridVoltageAt, modelOf, solveChain, solveStage, type ChainInput } from '../../src/index';
+import { amplifierAtLevel, findTube, gridCurrent, gridVoltageAt, solveChain, solveStage, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { modelOf } from '../../src/tube/types';
 
 // Our own small-signal values (a 12AU7-like triode): mu = gm·rp = 17.
 const gm = 2.2e-3;

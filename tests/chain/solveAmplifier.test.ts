@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { amplifierAtLevel, findOutputTube, findTube, solveChain, solveLinks, type ChainInput, type ChainStage } from '../../src/index';
+import { amplifierAtLevel, findOutputTube, findTube, solveChain, type ChainInput, type ChainStage } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { solveLinks } from '../../src/signal/solveLinks';
 
 const ax7 = findTube('12AX7')!;
 const au7 = findTube('12AU7')!;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, prepareAmplifier, pushPullAtDrive, solveAmplifier, solveCathodyne, solveLongTailedPair, solvePushPull, splitterPlane, solveSplitter, millerInputCapacitance, type ChainInput, type PushPullLink } from '../../src/index';
+import { findOutputTube, findTube, pushPullAtDrive, solveAmplifier, solveCathodyne, solveLongTailedPair, solvePushPull, splitterPlane, solveSplitter, millerInputCapacitance, type ChainInput, type PushPullLink } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { prepareAmplifier } from '../../src/chain/solveAmplifier';
 
 // Our own push-pull amplifier: a 12AX7 input stage, a phase splitter, and a pair of EL84s in ultralinear.
 const input = { kind: 'common-cathode' as const, tube: findTube('12AX7')!, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor' as const, cc: 100e-9, rg: 1e6 } };

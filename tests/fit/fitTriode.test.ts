@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { findTube, fitTriode, korenPublishedSets, plateCurrent, smallSignalAt, triode, type CurvePoint } from '../../src/index';
+import { findTube, fitTriode, korenPublishedSets, plateCurrent, triode, type CurvePoint } from '../../src/index';
 import { expectClose, relErr } from '../helpers/expectClose';
+import { smallSignalAt } from '../../src/tube/triode';
 
 /** A deterministic pseudo-random sequence (Park–Miller), so the noisy case repeats exactly. */
 function seeded(seed: number) {

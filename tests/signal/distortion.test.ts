@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { distortion, distortionSweep, findTube, sineLevel, solvedStage, swing } from '../../src/index';
+import { distortion, findTube, sineLevel, solvedStage, swing } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { distortionSweep } from '../../src/signal/distortionSweep';
 
 const ax7 = findTube('12AX7')!;
 const stage = { tube: ax7, bplus: 250, ra: 100e3, rk: 1500, rl: 470e3 };

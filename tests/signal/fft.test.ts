@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { harmonicAmplitudes } from '../../src/index';
+import { harmonicAmplitudes } from '../../src/signal/fft';
+
 
 const N = 1024;
 const dB = (x: number) => 20 * Math.log10(x);

@@ -1,7 +1,8 @@
 import type { ChainInput, ChainStage } from '../../src/index';
-import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, POWER_GRID_RESISTANCE, modelOf, recordOf } from '../../src/index';
+import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, POWER_GRID_RESISTANCE, recordOf } from '../../src/index';
 import { pentodeSubckt } from './outputNetlist';
 import { triodeSubckt } from './netlists';
+import { modelOf } from '../../src/tube/types';
 
 /**
  * A whole amplifier for ngspice, stage by stage from the same ChainInput the

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, distortion, findTube, modelOf, swing, type StageDesign } from '../../src/index';
+import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, distortion, findTube, swing, type StageDesign } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 import { distortionNetlist } from './netlists';
 import { fourierTable, ngspiceGate, runNgspiceFull } from './ngspice';
+import { modelOf } from '../../src/tube/types';
 
 // Outside reference: ngspice, the same grid-current law written as a behavioural current source from grid to
 // cathode, the stage driven through its source resistor, coupling capacitor and grid leak past the onset of

@@ -1,6 +1,8 @@
-import { mismatchParts, scaledTube, type OutputTube, type PushPullDesign } from '../../src/index';
+import { type OutputTube, type PushPullDesign } from '../../src/index';
 import { triodeSubckt } from './netlists';
 import { pentodeSubckt } from './outputNetlist';
+import { mismatchParts } from '../../src/pushpull/pushPullDesign';
+import { scaledTube } from '../../src/pushpull/solvePushPull';
 
 /**
  * A push-pull stage for ngspice: each tube by Koren's laws as behavioural

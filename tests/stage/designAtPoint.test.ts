@@ -1,8 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { designAtPlanePoint, findTube, gridCurrent, gridVoltageAt, modelOf, nearestReachable, plateCurrent, solveStage, tubeLibrary, tubeSummary } from '../../src/index';
+import { designAtPlanePoint, findTube, gridCurrent, gridVoltageAt, nearestReachable, plateCurrent, solveStage, tubeLibrary, tubeSummary } from '../../src/index';
 import { leakLimit } from '../../src/stage/designAtPoint';
 import { expectClose } from '../helpers/expectClose';
+import { modelOf } from '../../src/tube/types';
 
 const au7 = findTube('12AU7')!;
 

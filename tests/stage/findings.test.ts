@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { findTube, GRID_CURRENT_ONSET, ratingsFindings, solveStage } from '../../src/index';
+import { findTube, GRID_CURRENT_ONSET, solveStage } from '../../src/index';
+import { ratingsFindings } from '../../src/stage/findings';
 
 const ax7 = findTube('12AX7')!;
 const base = { tube: ax7, bplus: 250, va: 150, vk: 1.5, vpk: 148.5, ia: 1e-3, vgk: -1.5, pa: 0.1485, heaterVolts: 0, rg: null, fixedBias: false };

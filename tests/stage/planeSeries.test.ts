@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { acLoadLine, biasLine, dcLoadLine, dissipationLimit, familyGrids, findTube, plateCurrent, plateExtent, loadLineExtent, plateFamily, solveStage, niceCeil } from '../../src/index';
+import { dcLoadLine, findTube, plateCurrent, plateExtent, loadLineExtent, plateFamily, solveStage } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { acLoadLine, biasLine, dissipationLimit, familyGrids } from '../../src/stage/planeSeries';
+import { niceCeil } from '../../src/stage/plateExtent';
 
 const ax7 = findTube('12AX7')!;
 

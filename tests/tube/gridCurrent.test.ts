@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, findTube, gridCurrent, modelOf, triode } from '../../src/index';
+import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, findTube, gridCurrent, triode } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { modelOf } from '../../src/tube/types';
 
 const m = triode({ mu: 100, ex: 1.4, kg1: 1060, kp: 600, kvb: 300 }, 2000);
 

@@ -1,11 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { OUTPUT_LIMITS, outputDesignProblem, findOutputTube } from '../../../src/index';
+import { OUTPUT_LIMITS, findOutputTube } from '../../../src/index';
 import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
 import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { DESIGN_LIMITS as L, type Limit } from '../../../app/store/designLimits';
 import { compact, FIELDS, type FieldName } from '../../../app/store/fields';
 import type { BenchDesign } from '../../../app/store/analysis';
 import { MIN_DRAG_BPLUS } from '../../../app/store/dragSlice';
+import { outputDesignProblem } from '../../../src/output/outputDesign';
 
 /** Each typed field, its range in the one table, and where the design file keeps it. */
 const FIELD_LIMITS: [FieldName, Limit, (d: BenchDesign, v: number) => BenchDesign][] = [

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { E24, findTube, gridCurrent, modelOf, plateCurrent, solveStage } from '../../../src/index';
+import { E24, findTube, gridCurrent, plateCurrent, solveStage } from '../../../src/index';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { TYPING_SETTLE_MS } from '../../../app/store/designSlice';
 import { expectClose } from '../../helpers/expectClose';
+import { modelOf } from '../../../src/tube/types';
 
 describe('workbench store', () => {
   it('opens on the demo line stage, solved', () => {
