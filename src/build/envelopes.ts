@@ -20,5 +20,7 @@ export function envelopesOf(stageTubes: readonly TubeRecord[]): EnvelopeCount[] 
     entry.sectionsUsed++;
     byId.set(tube.id, entry);
   }
-  return [...byId.values()].map(({ tube, sectionsUsed }) => ({ tube, sectionsUsed, envelopes: Math.ceil(sectionsUsed / (tube.sections ?? 1)) }));
+  // A record without a whole, positive count of sections (one read from an old or hand-edited file) is taken as one section per envelope.
+  const perEnvelope = (t: TubeRecord) => (Number.isInteger(t.sections) && t.sections! >= 1 ? t.sections! : 1);
+  return [...byId.values()].map(({ tube, sectionsUsed }) => ({ tube, sectionsUsed, envelopes: Math.ceil(sectionsUsed / perEnvelope(tube)) }));
 }

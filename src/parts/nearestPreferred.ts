@@ -39,5 +39,6 @@ export function preferredAround(value: number, series: PreferredSeries): number[
   const step = Math.pow(10, 1 / table.length);
   const below = nearestPreferred(nearest / step, series);
   const above = nearestPreferred(nearest * step, series);
-  return [nearest, ...[below, above].filter((v) => v !== nearest)].sort((a, b) => Math.abs(Math.log(a / value)) - Math.abs(Math.log(b / value)));
+  // Near the largest double the value above is Infinity: not a part.
+  return [nearest, ...[below, above].filter((v) => v !== nearest && Number.isFinite(v))].sort((a, b) => Math.abs(Math.log(a / value)) - Math.abs(Math.log(b / value)));
 }

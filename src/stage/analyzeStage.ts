@@ -1,4 +1,4 @@
-import type { Failure, Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import type { ChainLink } from '../signal/solveLinks';
 import { solvedStage } from '../signal/analysisInput';
 import type { TubeRecord } from '../tube/types';
@@ -41,7 +41,10 @@ export interface StageAnalysisOptions {
  * on this plate is a failure naming it (field 'stage2').
  */
 export function analyzeStage(stage: StageDesign & { readonly tube: TubeRecord }, options: StageAnalysisOptions, prev: StageAnalysis | null): Result<StageAnalysis> {
-  const { second, levels, light = false, maxCurves = MAX_FAMILY_CURVES } = options;
+  if (typeof options !== 'object' || options === null || typeof options.levels !== 'object' || options.levels === null) {
+    return fail('invalid-input', 'Give the output level and THD limit the stage is analysed at', 'levels');
+  }
+  const { second = null, levels, light = false, maxCurves = MAX_FAMILY_CURVES } = options;
   const solved = solvedStage(stage);
   if (!solved.ok) return solved;
   const { checked, solution } = solved;

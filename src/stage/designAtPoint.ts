@@ -166,5 +166,7 @@ export function gridVoltageAt(tube: TubeLike, vpk: number, ia: number): number |
   if (!(vpk > 0) || !(ia > 0) || !Number.isFinite(vpk) || !Number.isFinite(ia) || checkTube(tube)) return null;
   const p = modelOf(tube).params;
   if (ia > korenPlateCurrent(p, vpk, 0)) return null; // would need a positive grid: off the family
-  return gridVoltageForCurrent(p, vpk, ia);
+  const vg = gridVoltageForCurrent(p, vpk, ia);
+  // At plate voltages no tube sees (past 1e150 V) the bracket's floor is unbounded: off the family too.
+  return Number.isFinite(vg) ? vg : null;
 }

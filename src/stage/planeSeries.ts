@@ -24,7 +24,8 @@ export function plateCurve(tube: TubeLike, vg: number, vmax: number, n = 120): P
   const points: PlanePoint[] = [];
   const steps = Math.max(1, Math.floor(n));
   for (let k = 0; k <= steps; k++) {
-    const v = (vmax * k) / steps;
+    // The share first, then the span: vmax · k overflows for a span near the largest double.
+    const v = vmax * (k / steps);
     points.push({ v, i: korenPlateCurrent(p, v, vg) });
   }
   return { vg, points };
@@ -107,7 +108,8 @@ export function dissipationLimit(pmax: number, vmax: number, iaMax: number, n = 
   for (let k = 0; k <= n; k++) {
     // Denser where the hyperbola bends: geometric spacing in V.
     const v = vStart * Math.pow(vmax / vStart, k / n);
-    out.push({ v, i: pmax / v });
+    // A point the doubles cannot hold (an extent near their ends) is left out of the curve.
+    if (Number.isFinite(v) && v > 0 && Number.isFinite(pmax / v)) out.push({ v, i: pmax / v });
   }
   return out;
 }

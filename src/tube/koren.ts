@@ -89,7 +89,8 @@ export function korenSlopesInto(p: KorenTriodeParams, vpk: number, vgk: number, 
  * falls off exponentially.
  */
 export function cutoffGridVoltage(p: KorenTriodeParams, vpk: number): number {
-  return -Math.sqrt(p.kvb + vpk * vpk) / p.mu;
+  // √(kvb + Vpk²) as a hypotenuse: squaring a plate voltage past 1.3e154 V overflows to Infinity.
+  return -Math.hypot(Math.sqrt(p.kvb), vpk) / p.mu;
 }
 
 /** A plate current this small a share of the operating current counts as cut off (this project's convention). */
