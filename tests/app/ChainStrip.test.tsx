@@ -172,7 +172,14 @@ describe('the amplifier strip', () => {
     const zout = store.getState().amplifier!.result;
     if (!zout.ok) throw new Error(zout.message);
     expect(values.getByText(/^the amplifier's source; this stage is fed by stage 1 \(/).textContent).toBe(`the amplifier's source; this stage is fed by stage 1 (${ohms(zout.stages[0]!.zout)})`);
+    // The bench stage's drawing says the same: its grid is driven from stage 1's output impedance, not through Rs.
+    const bench = within(screen.getByRole('region', { name: 'Stage schematic: click a value to change it' }));
+    expect(bench.queryByRole('button', { name: /^Source Rs/ })).toBeNull();
+    expect(bench.getByText('from stage 1')).toBeTruthy();
+    expect(bench.getByText(ohms(zout.stages[0]!.zout))).toBeTruthy();
     act(() => store.getState().showStage(0));
+    expect(bench.getByRole('button', { name: `Source Rs ${ohms(store.getState().design.rsource)}: change` })).toBeTruthy();
+    expect(bench.queryByText('from stage 1')).toBeNull();
     expect(values.getByText('what drives the grid')).toBeTruthy();
     expect(values.getByText(/^the last voltage stage's load; this one drives 1 MΩ at the next grid$/)).toBeTruthy();
   });

@@ -5,6 +5,7 @@ import { FIELDS, type FieldName } from '../../store/fields';
 import { useWorkbench } from '../../store/StoreProvider';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import type { BenchDesign } from '../../store/analysis';
+import { benchSource } from '../../store/amplifierChain';
 import { FOLLOWER_LEAK_END, FOLLOWER_LEAK_X, GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
 
 /**
@@ -71,7 +72,13 @@ export function StageSchematic() {
   const kind = design.stage2.kind;
   const width = kind === 'none' ? 385 : 490;
   const coupled = kind === 'follower' && design.stage2.coupling !== undefined;
-  const spots = labelSpots(kind, coupled);
+  // A stage past the first is driven from the stage before's output impedance, not through the amplifier's source.
+  // (benchSource remembers its answer per list of stages before, so the selector answers the same object while they stand.)
+  const fedStage = useWorkbench((s) => s.design.before.length);
+  const fedFrom = useWorkbench((s) => (s.design.before.length > 0 ? benchSource(s.design, s.registry) : null));
+  const fedBy = fedStage > 0 && fedFrom ? { stage: fedStage, source: fedFrom } : null;
+  const { rsource: _rs, ...laterSpots } = labelSpots(kind, coupled);
+  const spots: Partial<Record<FieldName, Spot>> = fedBy ? laterSpots : labelSpots(kind, coupled);
   const hasLoad = Number.isFinite(design.rl);
 
   return (
@@ -79,6 +86,12 @@ export function StageSchematic() {
       <div className="schematic-frame">
         <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? `, then a cathode follower${coupled ? ', capacitor-coupled' : ''}` : ', then a second gain stage'}`}>
           <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
+          {fedBy ? (
+            <g fontSize={12} fill="#4a535c" textAnchor="middle">
+              <text x={45} y={GRID_Y - 44}>{`from stage ${fedBy.stage}`}</text>
+              {fedBy.source.ok ? <text x={45} y={GRID_Y - 16}>{ohms(fedBy.source.ohms)}</text> : null}
+            </g>
+          ) : null}
           <text x={X1 + 40} y={192} fontSize={11} fill="#4a535c">{`Va ${volts(op.va)}`}</text>
           <text x={X1 + 40} y={206} fontSize={11} fill="#4a535c">{`Vk ${volts(op.vk)}`}</text>
           <g
