@@ -1,5 +1,6 @@
 import { bplusAgreement, type Finding } from '../../src/index';
 import { ROLE_NAME } from './amplifierChain';
+import { nodeVoltsOf } from './supplySlice';
 import { voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -28,7 +29,7 @@ export function supplyBplusFindings(s: WorkbenchState): Finding[] {
     const h = held(n.role, n.voltageIndex);
     if (h === null) return;
     const key = `${n.role}|${view.feeds[i]}|${h}`;
-    const g = groups.get(key) ?? { who: [], tube: n.tube, role: n.role, node: view.feeds[i]!, held: h, supplied: r.bplus[i]! };
+    const g = groups.get(key) ?? { who: [], tube: n.tube, role: n.role, node: view.feeds[i]!, held: h, supplied: nodeVoltsOf(view, r, i) };
     g.who.push(`${n.title} (${n.tube})`);
     groups.set(key, g);
   });

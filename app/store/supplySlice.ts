@@ -41,6 +41,15 @@ export interface SupplySlice {
   useSupplyVolts: () => void;
 }
 
+/**
+ * What the node feeding stage i gives under the whole amplifier's current, V:
+ * the node's own DC, as the supply's table shows it (the B+ the stages were
+ * last solved at agrees with it within 10 mV, and could round to another volt).
+ */
+export function nodeVoltsOf(view: SupplyView, r: AmplifierOnSupplyResult, i: number): number {
+  return r.supply.nodes[view.feeds[i]!]?.dc ?? r.bplus[i]!;
+}
+
 /** The bench's B+ that the supply's solution gives (rounded to the volt, as B+ is typed), or null where it says nothing. */
 export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | null {
   const r = view.result;
@@ -48,7 +57,7 @@ export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | n
   // Every voltage stage hangs from the one node that feeds them (plan.feeds.voltage).
   const at = (role: 'voltage' | 'splitter' | 'output') => {
     const i = view.names.findIndex((n) => n.role === role);
-    return i < 0 ? null : Math.round(r.bplus[i]!);
+    return i < 0 ? null : Math.round(nodeVoltsOf(view, r, i));
   };
   const v = at('voltage');
   const o = at('output');

@@ -34,7 +34,7 @@ export interface AmplifierOnSupply {
 export interface AmplifierOnSupplyResult {
   readonly amplifier: ChainResult;
   readonly supply: SupplySolution;
-  /** Each stage's B+ as its node delivers it under the whole amplifier's current, V. */
+  /** Each stage's B+ as the amplifier was solved at: its node's voltage under the whole amplifier's current (`supply.nodes[feed].dc`) within 10 mV, V. */
   readonly bplus: readonly number[];
   /** The current drawn at each node (every channel's stages, plus the supply's own loads), A. */
   readonly loads: readonly number[];

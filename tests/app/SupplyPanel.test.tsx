@@ -20,6 +20,15 @@ function bench() {
 const nodeDc = (node: number) => document.querySelector(`tr[data-node="${node}"] [data-figure="node-dc"]`)?.textContent;
 
 describe('the B+ supply on the bench', () => {
+  it('says one voltage for a node: the line under the table, the button and the table agree (the demo\'s node 4 is 274.50 V)', async () => {
+    const { store, panel } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });
+    const line = panel.getByText(/^Voltage stages: node 4 gives/);
+    expect(line.textContent).toBe(`Voltage stages: node 4 gives ${nodeDc(4)} under load; the bench holds 275 V.`);
+    // The bench already holds what the node gives, so there is nothing to use.
+    expect(panel.queryByRole('button', { name: 'Use these B+ on the bench' })).toBeNull();
+  });
+
   it('follows a drag: the nodes are solved again while the point moves, from the last steady state, and nothing is committed until release', async () => {
     const { store } = bench();
     await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });

@@ -3,6 +3,7 @@ import { farads, milliamps, ohms, plain, smallAmps, smallVolts, volts, watts } f
 import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
+import { nodeVoltsOf } from '../../store/supplySlice';
 import { SupplyWaves } from './SupplyWaves';
 
 const SAME_BPLUS_SHARE = 0.01;
@@ -38,7 +39,7 @@ export function SupplyResults() {
   const feeding = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => `${n.title} (${n.tube})`);
   const held = { voltage: voltageBplus, splitter: splitterBplus, output: outputBplus };
   // One line a role: the voltage stages share their node; a driven pair's splitter has its own B+ and node.
-  const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: r.bplus[i]!, bench: held[n.role] })).filter((x, i, all) => all.findIndex((y) => y.n.role === x.n.role) === i);
+  const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: nodeVoltsOf(view, r, i), bench: held[n.role] })).filter((x, i, all) => all.findIndex((y) => y.n.role === x.n.role) === i);
   // Within 1 % is as close as the parts and the mains hold it (common practice: mains ±10 %, resistors ±5 %).
   const differs = offBy.some((x) => Math.abs(x.supply - x.bench) > SAME_BPLUS_SHARE * x.supply);
   const b = view.bleeder;
