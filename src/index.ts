@@ -98,6 +98,7 @@ export { type LimitedPower, type ZSweep } from './output/powerSweep';
 export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimarySweep, switchBias } from './output/outputCalls';
 export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
+export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
 export { settledCathode, type SettledCathode } from './output/settledCathode';
 export { outputExtent, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 

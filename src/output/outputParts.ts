@@ -4,6 +4,8 @@ import { MAINS_HIGH } from '../build/supplyParts';
 import type { PreferredSeries } from '../parts/preferredValues';
 import { followerZout } from '../stage/gainFormulas';
 import type { OutputAnalysis } from './analyzeOutput';
+import type { Result } from '../result';
+import { biasAdjustment, type BiasAdjustment } from './biasAdjustment';
 import { screenConductance, screenFeedPlan, type ScreenFeedPlan } from './screenFeed';
 
 /** The bypass is sized for its corner to sit this far below the band, Hz (common practice: a decade under 20 Hz is often quoted; 10 Hz keeps the part sane). */
@@ -25,6 +27,8 @@ export interface OutputPartsList {
   readonly resistors: ResistorLine[];
   readonly capacitors: CapacitorLine[];
   readonly transformer: TransformerSpec;
+  /** Fixed bias: the range the grid's adjustment must cover for the type's spread of tubes, and the idle to set; null for cathode bias. */
+  readonly biasAdjustment: Result<BiasAdjustment> | null;
 }
 
 /**
@@ -64,6 +68,7 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
       power: a.clean.at.power,
       screenTap: op.connection === 'ultralinear' ? design.ulTap : null,
     },
+    biasAdjustment: design.bias === 'fixed' ? biasAdjustment(a.solution.tube, design, op.vpk, op.ip) : null,
   };
 }
 

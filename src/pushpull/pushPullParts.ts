@@ -1,5 +1,7 @@
 import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from '../build/partsList';
 import type { PreferredSeries } from '../parts/preferredValues';
+import type { Result } from '../result';
+import { biasAdjustment, type BiasAdjustment } from '../output/biasAdjustment';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { CATHODE_BYPASS_CORNER_HZ, screenDropperParts } from '../output/outputParts';
 import { screenConductance, screenFeedPlan } from '../output/screenFeed';
@@ -28,6 +30,8 @@ export interface PushPullPartsList {
   readonly transformer: PairTransformerSpec;
   /** Fixed bias: the supply the grids return to, V, and that each side wants its own balance adjustment. */
   readonly biasSupply: number | null;
+  /** Fixed bias: the range each tube's own adjustment must cover for the type's spread, and the idle to set each to; null for cathode bias. */
+  readonly biasAdjustment: Result<BiasAdjustment> | null;
 }
 
 /**
@@ -76,6 +80,8 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
       screenTap: s.feed.kind === 'tap' ? d.ulTap : null,
     },
     biasSupply: d.bias === 'fixed' ? d.vg : null,
+    // Each tube as a single-ended stage on its own half of the primary (its DC resistance and a quarter of Raa, the load one tube sees in class A).
+    biasAdjustment: d.bias === 'fixed' ? biasAdjustment(s.tube, { ...d, zPrimary: d.raa / 4, rPrimary: d.rPrimary / 2 }, s.idle[0].vpk, s.idle[0].ip) : null,
   };
 }
 

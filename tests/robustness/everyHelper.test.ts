@@ -66,7 +66,10 @@ function solvedBy<T>(base: object, solve: (design: never) => Q.Result<T>): fc.Ar
 }
 const solvedStages = solvedBy(stage, Q.solvedStage);
 const solvedOutputs = solvedBy(output, (d: Q.OutputDesign) => Q.solveOutput(el34, d));
-const outputAnalyses = solvedBy(output, (d: Q.OutputDesign) => Q.analyzeOutput(el34, d));
+const outputAnalyses = fc.oneof(
+  solvedBy(output, (d: Q.OutputDesign) => Q.analyzeOutput(el34, d)),
+  solvedBy({ ...output, bias: 'fixed', vg: -28 }, (d: Q.OutputDesign) => Q.analyzeOutput(el34, d)),
+);
 const pairAnalyses = solvedBy(ppDesign, (d: Q.PushPullDesign) => Q.analyzePushPull(el34, d));
 const solvedChains = solvedBy(chainInput, (c: Q.ChainInput) => {
   const r = Q.solveChain(c);

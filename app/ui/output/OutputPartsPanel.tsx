@@ -2,6 +2,7 @@ import { useId } from 'react';
 import { milliamps, ohms, percentOf, volts, watts } from '../../format';
 import type { WindingInductance } from '../../../src/index';
 import { windingLines } from './windingWords';
+import { biasLines } from './biasWords';
 import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -30,7 +31,7 @@ export function OutputPartsPanel() {
   );
 }
 
-/** The transformer (and a pair's bias supply) in words, as the panel and the card print them. */
+/** The transformer (and a fixed bias's supply and adjustment) in words, as the panel and the card print them. */
 export function transformerLines(parts: OutputStageParts, winding: WindingInductance = {}): string[] {
   const tap = (x: number | null) => (x !== null ? `, screen taps at ${percentOf(x)} of each half` : '');
   const wound = windingLines(winding);
@@ -40,10 +41,11 @@ export function transformerLines(parts: OutputStageParts, winding: WindingInduct
       `Output transformer, centre-tapped: ${ohms(t.primary)} plate to plate to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcPerHalf)} DC in each half (${milliamps(t.dcUncancelled)} uncancelled), at least ${watts(t.power)}${tap(t.screenTap)}.`,
       ...wound,
       ...(parts.biasSupply !== null ? [`Bias supply ${volts(parts.biasSupply)} with a balance adjustment for each tube (set each to the same idle current).`] : []),
+      ...biasLines(parts.biasAdjustment, 2),
     ];
   }
   const t = parts.transformer;
-  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`, ...wound];
+  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`, ...wound, ...biasLines(parts.biasAdjustment, 1)];
 }
 
 /** The output stage's lines, also shown in the amplifier's build sheet when the voltage stages drive it. */

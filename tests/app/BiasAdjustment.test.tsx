@@ -1,0 +1,40 @@
+import { render, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { act } from 'react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { outputCardSections } from '../../app/export/outputCard';
+import { milliamps, volts } from '../../app/format';
+import { outputPartsOf } from '../../app/store/outputParts';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { transformerLines } from '../../app/ui/output/OutputPartsPanel';
+import { analyzePushPull, findOutputTube, pushPullPartsList, type PushPullDesign } from '../../src/index';
+
+describe('a fixed-bias output stage\'s adjustment', () => {
+  it('is on the parts to order and the card with its range and how to set it; cathode bias has none', async () => {
+    const store = createWorkbenchStore();
+    const user = userEvent.setup();
+    render(<App store={store} />);
+    await user.click(screen.getByLabelText('Output stage (transformer-coupled)'));
+    expect(screen.queryByText(/^Bias adjustment/)).toBeNull();
+    act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, bias: 'fixed', vg: -24 } }));
+    const parts = outputPartsOf(store.getState()).biasAdjustment;
+    if (!parts?.ok) throw new Error('no adjustment for a fixed-bias stage');
+    const line = screen.getByText(/^Bias adjustment, for the tube: the grid from/).textContent!;
+    expect(line).toContain(`from ${volts(parts.weakest)} to ${volts(parts.strongest)} sets ${milliamps(parts.idlePlate)} idle plate current`);
+    expect(parts.nominal).toBeCloseTo(-24, 6);
+    expect(screen.getByText(/^Set it by a 1 Ω 1 % resistor from the cathode to ground/)).toBeTruthy();
+    expect(screen.getByText(/lifted wiper leaves the grid at the negative end/)).toBeTruthy();
+    const card = outputCardSections(store.getState()).flatMap((x) => x.lines);
+    expect(card).toContain(line);
+  });
+
+  it('a pair\'s lines say one adjustment for each tube and one sense resistor in each cathode', () => {
+    const design: PushPullDesign = { tubeId: 'EL34', connection: 'ultralinear', bplus: 430, screenVolts: 430, ulTap: 0.43, raa: 6600, rPrimary: 200, bias: 'fixed', rk: 220, vg: -40, rg: 220e3, speakerOhms: 8, thdLimit: 0.05 };
+    const a = analyzePushPull(findOutputTube('EL34')!, design);
+    if (!a.ok) throw new Error(a.message);
+    const lines = transformerLines({ pair: 'push-pull', ...pushPullPartsList(a, 'E24') });
+    expect(lines.some((l) => l.startsWith('Bias adjustment, one for each tube: the grid from'))).toBe(true);
+    expect(lines.some((l) => l.startsWith('Set it by a 1 Ω 1 % resistor from each cathode to ground'))).toBe(true);
+  });
+});
