@@ -99,6 +99,7 @@ export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimaryS
 export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
+export type { OutputSpread, SpreadEnd } from './output/outputSpread';
 export { settledCathode, type SettledCathode } from './output/settledCathode';
 export { outputExtent, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 

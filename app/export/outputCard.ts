@@ -5,6 +5,7 @@ import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
 import { windingLines } from '../ui/output/windingWords';
 import { biasLines } from '../ui/output/biasWords';
+import { tubeSpreadLine } from '../ui/output/TubeSpreadFigures';
 
 /** The build card's text for the output stage, from what the model already computed. */
 export function outputCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
@@ -38,6 +39,7 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
       lines: [
         `At the onset of ${a.clean.limitedBy}: ${watts(a.clean.at.power)} at ${percentOf(a.clean.at.thd)} THD, drive ${volts(a.clean.at.drive / Math.SQRT2)} rms`,
         `Grid to 0 V${o.bias === 'cathode' ? ' at the idle bias' : ''}: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${percentOf(a.full.harmonics[2] ?? 0)}, H3 ${percentOf(a.full.harmonics[3] ?? 0)})`,
+        tubeSpreadLine(a.spread, a.solution.tube.ratings.maxPlateDissipation, false),
         a.settledCathode ? `Rk settles under full drive at Vk ${volts(a.settledCathode.vk)} (${volts(a.settledCathode.idleVk)} idle): ${watts(a.settledCathode.full.power)} at ${percentOf(a.settledCathode.full.thd)} THD with the grid to 0 V there, ${volts(a.settledCathode.full.drive / Math.SQRT2)} rms drive` : '',
         a.atLimit ? `Within ${percentOf(o.thdLimit)} THD: ${watts(a.atLimit.power)}` : '',
         a.zSweep ? `Best primary at this point: ${ohms(a.zSweep.best.zPrimary)} for ${watts(a.zSweep.best.power)} within ${percentOf(a.zSweep.limit)} THD` : '',

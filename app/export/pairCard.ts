@@ -6,6 +6,7 @@ import { outputPartsOf } from '../store/outputParts';
 import { drivesPair, splitterName } from '../store/outputPlan';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
+import { tubeSpreadLine } from '../ui/output/TubeSpreadFigures';
 
 type Section = { heading: string; lines: string[] };
 
@@ -46,6 +47,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
       heading: 'Power and distortion',
       lines: [
         `Grids to 0 V: ${watts(a.full.power)} at ${percentOf(a.full.thd)} THD (H2 ${share(a.full.harmonics[2] ?? 0)}, H3 ${share(a.full.harmonics[3] ?? 0)}), ${volts(a.full.drive / Math.SQRT2)} rms per grid`,
+        tubeSpreadLine(a.spread, a.solution.tube.ratings.maxPlateDissipation, true),
         a.settledBias ? `The shared Rk settles under full drive at Vk ${volts(a.settledBias.vk)} (${volts(a.settledBias.idleVk)} idle): ${watts(a.settledBias.full.power)} at ${percentOf(a.settledBias.full.thd)} THD with the grids to 0 V there, ${volts(a.settledBias.full.drive / Math.SQRT2)} rms per grid` : '',
         f ? (f.overThdEverywhere ? `Over ${percentOf(o.thdLimit)} THD at every level (crossover)` : `Within ${percentOf(o.thdLimit)} THD: ${watts((f.atThdLimit ?? f.atZeroGrid).power)}`) : '',
         f ? (f.classABFrom === null ? 'Class A to 0 V on the grids' : `Class AB from ${volts(f.classABFrom)} peak per grid`) : '',

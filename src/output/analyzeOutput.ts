@@ -10,6 +10,7 @@ import { outputOverlay, outputSheet, type OutputOverlay } from './outputSheet';
 import { atDrive, averageScreenCurrent, cleanLimit, OUTPUT_SAMPLES, SWEEP_SAMPLES, type CleanLimit, type DriveResult } from './outputSignal';
 import { screenFeedPlan, screenSagFinding } from './screenFeed';
 import { settledCathode, type SettledCathode } from './settledCathode';
+import { outputSpread, spreadFinding, type OutputSpread } from './outputSpread';
 import { bySeverity } from '../stage/ratingBands';
 import type { OutputTube } from './outputTube';
 import { powerAtDistortion, powerSweep, zPrimarySweep, type LimitedPower, type ZSweep } from './powerSweep';
@@ -40,6 +41,8 @@ export interface OutputAnalysis {
   readonly screenAtFull: number | null;
   /** A cathode resistor's bias settled under full drive (settledCathode), on the full pass; null under fixed bias or where it does not settle. The light pass carries the last full pass's. */
   readonly settledCathode: SettledCathode | null;
+  /** A cathode-biased stage's idle with the type's weakest and strongest tube (outputSpread); null under fixed bias (set tube by tube) or where either end does not solve. */
+  readonly spread: OutputSpread | null;
 }
 
 /**
@@ -97,6 +100,10 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
   const screenAtFull = s.op.feed.kind !== 'fixed' ? null : light ? (prev?.screenAtFull ?? null) : averageScreenCurrent(s, full.drive);
   const screenPlan = screenFeedPlan(design.bplus, design.screenVolts, s.op.ig2);
   const sag = screenAtFull === null ? null : screenSagFinding(screenPlan, design.screenVolts, screenAtFull);
+  // Two operating points, a small share of even the light pass: solved on every pass.
+  const spreadResult = design.bias === 'cathode' ? outputSpread(s) : null;
+  const spread = spreadResult?.ok ? spreadResult : null;
+  const hot = spread ? spreadFinding(tube, spread) : null;
   const zOut = s.op.rp + design.rPrimary;
   const dampingFactor = Number.isFinite(zOut) && zOut > 0 ? design.zPrimary / zOut : 0;
   return {
@@ -111,11 +118,12 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
     dampingFactor,
     outputImpedance: dampingFactor > 0 ? design.speakerOhms / dampingFactor : Infinity,
     turnsRatio: Math.sqrt(design.zPrimary / design.speakerOhms),
-    findings: sag ? bySeverity([...outputFindings(s, full.vpkMax), sag]) : outputFindings(s, full.vpkMax),
+    findings: sag || hot ? bySeverity([...outputFindings(s, full.vpkMax), ...(sag ? [sag] : []), ...(hot ? [hot] : [])]) : outputFindings(s, full.vpkMax),
     sweep: light ? (prev?.sweep ?? []) : powerSweep(s),
     zSweep: light ? (prev?.zSweep ?? null) : zPrimarySweep(s),
     screenAtFull,
     settledCathode: settledOf(s, light, prev),
+    spread,
   };
 }
 

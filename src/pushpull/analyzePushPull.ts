@@ -18,6 +18,8 @@ import { settledCathodeBias, type SettledBias } from './settledBias';
 import { screenFeedPlan, screenSagFinding } from '../output/screenFeed';
 import { bySeverity } from '../stage/ratingBands';
 import { solvePushPull, type PushPullSolution } from './solvePushPull';
+import { pairSpread } from './pairSpread';
+import { spreadFinding, type OutputSpread } from '../output/outputSpread';
 
 const opOf = (p: { readonly ia: number; readonly ig2: number; readonly pa: number; readonly pg2: number }): PushPullTubeOp => ({ ia: p.ia, ig2: p.ig2, pa: p.pa, pg2: p.pg2 });
 
@@ -55,6 +57,8 @@ export interface PushPullAnalysis {
   /** Primary (plate to plate) to secondary turns ratio for the chosen speaker. */
   readonly turnsRatio: number;
   readonly findings: readonly Finding[];
+  /** A cathode-biased pair's idle with matched pairs of the type's weakest and strongest tubes (pairSpread); null under fixed bias or where either does not solve. */
+  readonly spread: OutputSpread | null;
 }
 
 export interface PushPullTubeOp {
@@ -109,6 +113,10 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
     const b = design.bias === 'cathode' ? settledCathodeBias(s) : null;
     settledBias = b?.ok ? b : null;
   }
+  // Two idle solves of the pair, a small share of even the light pass: on every pass.
+  const spreadResult = design.bias === 'cathode' ? pairSpread(s) : null;
+  const spread = spreadResult?.ok ? spreadResult : null;
+  const hot = spread ? spreadFinding(tube, spread) : null;
   const overlay = pushPullOverlay(s, extent, full);
   // Tube 1's path reaches its highest plate voltage where its partner pulls hardest: the pair's peak (mirrored for tube 2).
   const peak = overlay.swing.length > 0 ? Math.max(...overlay.swing.map((p) => p.v)) : null;
@@ -126,7 +134,8 @@ export function analyzePushPull(tube: OutputTube, design: PushPullDesign, option
     settledBias,
     supplyCurrent: { idle: s.supplyCurrent, full: full.supplyCurrent },
     turnsRatio: Math.sqrt(design.raa / design.speakerOhms),
-    findings: withScreenSag(pushPullFindings(s, light ? null : figures, peak), s, full),
+    findings: withScreenSag(hot ? bySeverity([...pushPullFindings(s, light ? null : figures, peak), hot]) : pushPullFindings(s, light ? null : figures, peak), s, full),
+    spread,
   };
 }
 

@@ -29,6 +29,7 @@ export type FindingKind =
   | 'supply-bplus'
   | 'loop-stability'
   | 'primary-imbalance'
+  | 'tube-spread'
   | 'distortion';
 
 /** One check of the design against the tube's ratings, worded to be shown as is. */

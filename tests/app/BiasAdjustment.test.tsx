@@ -38,3 +38,20 @@ describe('a fixed-bias output stage\'s adjustment', () => {
     expect(lines.some((l) => l.startsWith('Set it by a 1 Ω 1 % resistor from each cathode to ground'))).toBe(true);
   });
 });
+
+describe('a cathode-biased output stage across its tubes', () => {
+  it('shows the idle from the weakest to the strongest tube and the strongest\'s dissipation; fixed bias shows none', async () => {
+    const store = createWorkbenchStore();
+    const user = userEvent.setup();
+    const view = render(<App store={store} />);
+    await user.click(screen.getByLabelText('Output stage (transformer-coupled)'));
+    const spread = store.getState().outputBench.settled.spread;
+    if (!spread) throw new Error('no spread for the demo\'s cathode-biased stage');
+    const figure = (name: string) => view.container.querySelector(`[data-figure="${name}"] dd`)?.textContent ?? null;
+    expect(figure('spread-ia')).toBe(`${milliamps(spread.weakest.ip)} to ${milliamps(spread.strongest.ip)}`);
+    expect(figure('spread-pa')).toMatch(/^\d+(\.\d+)? W \(\d+(\.\d+)? %\)$/);
+    expect(outputCardSections(store.getState()).flatMap((x) => x.lines)).toContain(`Tubes 20 % weak to 20 % strong: Ia ${milliamps(spread.weakest.ip)} to ${milliamps(spread.strongest.ip)}; a strong tube dissipates ${figure('spread-pa')!.replace(/ \((.*)\)$/, ' at idle, $1 of 25 W')}`);
+    act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, bias: 'fixed', vg: -24 } }));
+    expect(figure('spread-ia')).toBeNull();
+  });
+});

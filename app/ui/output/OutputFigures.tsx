@@ -4,6 +4,7 @@ import { useWorkbench } from '../../store/StoreProvider';
 import type { SingleEndedBench } from '../../store/outputAnalysis';
 import { PairFigures } from './PairFigures';
 import { SettledBiasFigures } from './SettledBiasFigures';
+import { TubeSpreadFigures } from './TubeSpreadFigures';
 
 /**
  * The output stage's figures: the parts the drag sets (B+, bias, Zpri), the quiescent point, dissipation against
@@ -60,6 +61,7 @@ function SingleEndedFigures({ bench }: { bench: SingleEndedBench }) {
         <Figure name="drive" label="Drive for clean power" value={`${volts(a.clean.at.drive / Math.SQRT2)} rms`} chars={9} />
       </dl>
       {o.bias === 'cathode' ? <SettledBiasFigures settled={a.settledCathode} light={bench.light} label="The cathode resistor under full drive" grids="Grid" /> : null}
+      <TubeSpreadFigures spread={a.spread} rating={a.solution.tube.ratings.maxPlateDissipation} label="The idle across the type's spread of tubes" />
     </section>
   );
 }

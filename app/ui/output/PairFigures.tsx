@@ -1,6 +1,7 @@
 import { milliamps, ohms, percentOf as percent, plain, volts, watts } from '../../format';
 import { Figure, Share } from '../panels/Figure';
 import { SettledBiasFigures } from './SettledBiasFigures';
+import { TubeSpreadFigures } from './TubeSpreadFigures';
 import type { PushPullBench } from '../../store/outputAnalysis';
 import { useWorkbench } from '../../store/StoreProvider';
 
@@ -45,6 +46,7 @@ export function PairFigures({ bench }: { bench: PushPullBench }) {
         <Figure name="drive" label="Drive per grid, full" value={`${volts(a.full.drive / Math.SQRT2)} rms`} chars={9} />
       </dl>
       {d.bias === 'cathode' ? <SettledBiasFigures settled={a.settledBias} light={bench.light} label="The shared cathode resistor under full drive" grids="Grids" /> : null}
+      <TubeSpreadFigures spread={a.spread} rating={r.maxPlateDissipation} label="The idle across the type's spread of tubes (matched pairs)" />
       <dl className="figure-group">
         <Figure name="worst-pa" label="Worst Pa under drive" value={f ? `${watts(f.worstPlate.watts)} (${Math.round((100 * f.worstPlate.watts) / r.maxPlateDissipation)} %)` : wait} chars={13} />
         <Figure name="supply-current" label="B+ current idle → full" value={`${milliamps(a.supplyCurrent.idle)} → ${milliamps(a.supplyCurrent.full)}`} chars={17} />
