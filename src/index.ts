@@ -100,6 +100,7 @@ export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
 export type { OutputSpread, SpreadEnd } from './output/outputSpread';
+export { OUTPUT_GRID_STOPPER, STOPPER_CORNER_CLEAR_HZ, type GridStopper } from './output/gridStopper';
 export { settledCathode, type SettledCathode } from './output/settledCathode';
 export { outputExtent, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
 

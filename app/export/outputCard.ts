@@ -5,6 +5,7 @@ import type { WorkbenchState } from '../store/workbenchStore';
 import { ratingsLines } from './ratingsLines';
 import { windingLines } from '../ui/output/windingWords';
 import { biasLines } from '../ui/output/biasWords';
+import { stopperLine } from '../ui/output/stopperWords';
 import { tubeSpreadLine } from '../ui/output/TubeSpreadFigures';
 
 /** The build card's text for the output stage, from what the model already computed. */
@@ -52,6 +53,7 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
         `Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap ${percentOf(t.screenTap)}` : ''}`,
         ...windingLines(s.design.output),
         ...biasLines(parts.biasAdjustment, 1),
+        stopperLine(parts.gridStopper, 1),
         ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),
         ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)} or more, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''}`),
         `Heater ${tube.heater.volts} V, ${tube.heater.amps} A`,

@@ -6,6 +6,7 @@ import { followerZout } from '../stage/gainFormulas';
 import type { OutputAnalysis } from './analyzeOutput';
 import type { Result } from '../result';
 import { biasAdjustment, type BiasAdjustment } from './biasAdjustment';
+import { gridStopperFor, type GridStopper } from './gridStopper';
 import { screenConductance, screenFeedPlan, type ScreenFeedPlan } from './screenFeed';
 
 /** The bypass is sized for its corner to sit this far below the band, Hz (common practice: a decade under 20 Hz is often quoted; 10 Hz keeps the part sane). */
@@ -29,6 +30,8 @@ export interface OutputPartsList {
   readonly transformer: TransformerSpec;
   /** Fixed bias: the range the grid's adjustment must cover for the type's spread of tubes, and the idle to set; null for cathode bias. */
   readonly biasAdjustment: Result<BiasAdjustment> | null;
+  /** The grid stopper at the socket (on the resistor list as Rst) and the corner it makes with the grid's Miller capacitance. */
+  readonly gridStopper: GridStopper;
 }
 
 /**
@@ -52,6 +55,8 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
     capacitors.push(capacitorLine('Ck', 'cathode bypass', ck, op.vk, 0, '+ to cathode'));
   }
   resistors.push(resistorLine('Rg', design.bias === 'fixed' ? 'grid resistor to the bias supply' : 'grid resistor', design.rg, 0, series));
+  const gridStopper = gridStopperFor(a.solution.tube.capacitances, op.gm, op.rp, design.zPrimary);
+  resistors.push(resistorLine('Rst', 'grid stopper, at the socket', gridStopper.ohms, 0, series));
   if (op.feed.kind === 'fixed') {
     const screen = screenDropperParts(screenFeedPlan(design.bplus, design.screenVolts, op.ig2), design.bplus, design.screenVolts, screenConductance(a.solution.tube, op.feed.vg2k, op.vpk, op.vgk), a.screenAtFull ?? null, series);
     resistors.push(...screen.resistors);
@@ -69,6 +74,7 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
       screenTap: op.connection === 'ultralinear' ? design.ulTap : null,
     },
     biasAdjustment: design.bias === 'fixed' ? biasAdjustment(a.solution.tube, design, op.vpk, op.ip) : null,
+    gridStopper,
   };
 }
 

@@ -107,7 +107,7 @@ function pointAt(tube: OutputTube, d: OutputDesign, vk: number, vgk: number, kno
  * as the other connections are, its output impedance read 15 % high against
  * ngspice (EL34 on a 43 % tap; tests/spice/globalFeedback.spice.test.ts).
  */
-function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number, rPrimary: number): { rp: number; gm: number } {
+export function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: number, rPrimary: number): { rp: number; gm: number } {
   if (feed.kind === 'tap' && tube.law.kind === 'pentode') return tapSlopes(tube.law.params, feed.fraction, vpk, vgk, screenVoltage(feed, vpk, 0), rPrimary);
   const h = Math.max(1e-3, vpk * 1e-5);
   const c = emptyCurrents();

@@ -2,6 +2,8 @@ import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, ty
 import type { PreferredSeries } from '../parts/preferredValues';
 import type { Result } from '../result';
 import { biasAdjustment, type BiasAdjustment } from '../output/biasAdjustment';
+import { gridStopperFor, type GridStopper } from '../output/gridStopper';
+import { slopesAt } from '../output/solveOutput';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { CATHODE_BYPASS_CORNER_HZ, screenDropperParts } from '../output/outputParts';
 import { screenConductance, screenFeedPlan } from '../output/screenFeed';
@@ -32,6 +34,8 @@ export interface PushPullPartsList {
   readonly biasSupply: number | null;
   /** Fixed bias: the range each tube's own adjustment must cover for the type's spread, and the idle to set each to; null for cathode bias. */
   readonly biasAdjustment: Result<BiasAdjustment> | null;
+  /** Each grid's stopper at its socket (Rst1, Rst2 on the resistor list) and the corner it makes with that grid's Miller capacitance. */
+  readonly gridStopper: GridStopper;
 }
 
 /**
@@ -59,6 +63,10 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     capacitors.push(capacitorLine('Ck', 'cathode bypass, shared', capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred, s.vk, 0, '+ to cathode'));
   }
   resistors.push(resistorLine('Rg1, Rg2', d.bias === 'fixed' ? 'grid resistors to the bias supply (one per tube)' : 'grid resistors (one per tube)', d.rg, 0, series));
+  // Each tube's plate works into a quarter of Raa while both conduct (class A): the load its Miller gain is taken into.
+  const slopes = slopesAt(s.tube, s.feed, s.idle[0].vpk, s.vgk, d.rPrimary / 2);
+  const gridStopper = gridStopperFor(s.tube.capacitances, slopes.gm, slopes.rp, d.raa / 4);
+  resistors.push(resistorLine('Rst1, Rst2', 'grid stoppers, one at each socket', gridStopper.ohms, 0, series));
   if (s.feed.kind === 'fixed') {
     // Both screens on one dropper and one bypass (common practice), carrying both idle currents.
     const [one, two] = s.idle;
@@ -82,6 +90,7 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     biasSupply: d.bias === 'fixed' ? d.vg : null,
     // Each tube as a single-ended stage on its own half of the primary (its DC resistance and a quarter of Raa, the load one tube sees in class A).
     biasAdjustment: d.bias === 'fixed' ? biasAdjustment(s.tube, { ...d, zPrimary: d.raa / 4, rPrimary: d.rPrimary / 2 }, s.idle[0].vpk, s.idle[0].ip) : null,
+    gridStopper,
   };
 }
 

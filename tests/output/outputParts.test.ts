@@ -46,7 +46,7 @@ describe('output stage parts list', () => {
     if (!f.ok) throw new Error(f.message);
     const p = outputPartsList(f, 'E24');
     // The grid resistor, and (its screens 30 V under B+) the screens' dropper and bypass: no cathode parts.
-    expect(p.resistors.map((r) => r.ref)).toEqual(['Rg', 'Rs']);
+    expect(p.resistors.map((r) => r.ref)).toEqual(['Rg', 'Rst', 'Rs']);
     expect(p.capacitors.map((c) => c.ref)).toEqual(['Cs']);
   });
 });

@@ -3,6 +3,7 @@ import { milliamps, ohms, percentOf, volts, watts } from '../../format';
 import type { WindingInductance } from '../../../src/index';
 import { windingLines } from './windingWords';
 import { biasLines } from './biasWords';
+import { stopperLine } from './stopperWords';
 import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -42,10 +43,11 @@ export function transformerLines(parts: OutputStageParts, winding: WindingInduct
       ...wound,
       ...(parts.biasSupply !== null ? [`Bias supply ${volts(parts.biasSupply)} with a balance adjustment for each tube (set each to the same idle current).`] : []),
       ...biasLines(parts.biasAdjustment, 2),
+      stopperLine(parts.gridStopper, 2),
     ];
   }
   const t = parts.transformer;
-  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`, ...wound, ...biasLines(parts.biasAdjustment, 1)];
+  return [`Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, primary DC resistance ${ohms(t.primaryDcr)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap at ${percentOf(t.screenTap)} of the primary` : ''}.`, ...wound, ...biasLines(parts.biasAdjustment, 1), stopperLine(parts.gridStopper, 1)];
 }
 
 /** The output stage's lines, also shown in the amplifier's build sheet when the voltage stages drive it. */

@@ -60,7 +60,7 @@ describe('the push-pull pair on the output bench', () => {
     if (b.pair !== 'push-pull') throw new Error('a pair');
     const parts = outputPartsOf(s);
     expect(parts.pair).toBe('push-pull');
-    expect(parts.resistors.map((r) => r.ref)).toEqual(['Rk', 'Rg1, Rg2']);
+    expect(parts.resistors.map((r) => r.ref)).toEqual(['Rk', 'Rg1, Rg2', 'Rst1, Rst2']);
     expect(buildSheetOf(s).outputBplusAmps).toBeCloseTo(b.settled.supplyCurrent.idle, 12);
     const card = cardSections(s).flatMap((x) => x.lines).join('\n');
     expect(card).toContain('Two EL84 in push-pull');

@@ -4,7 +4,7 @@ import { act } from 'react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { outputCardSections } from '../../app/export/outputCard';
-import { milliamps, volts } from '../../app/format';
+import { hertz, milliamps, volts } from '../../app/format';
 import { outputPartsOf } from '../../app/store/outputParts';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { transformerLines } from '../../app/ui/output/OutputPartsPanel';
@@ -25,6 +25,9 @@ describe('a fixed-bias output stage\'s adjustment', () => {
     expect(parts.nominal).toBeCloseTo(-24, 6);
     expect(screen.getByText(/^Set it by a 1 Ω 1 % resistor from the cathode to ground/)).toBeTruthy();
     expect(screen.getByText(/lifted wiper leaves the grid at the negative end/)).toBeTruthy();
+    // The grid stopper's line, with its corner from the parts list.
+    const stopper = outputPartsOf(store.getState()).gridStopper;
+    expect(screen.getByText(/^Grid stopper 1 kΩ at the output grid pin, against parasitic oscillation \(common practice\)/).textContent).toContain(`its corner is ${hertz(stopper.cornerHz)}, far above the band, so the figures leave it out.`);
     const card = outputCardSections(store.getState()).flatMap((x) => x.lines);
     expect(card).toContain(line);
   });
