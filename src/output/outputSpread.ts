@@ -37,11 +37,15 @@ export function outputSpread(s: OutputSolution, spread = TUBE_CURRENT_SPREAD): R
   if (typeof s !== 'object' || s === null || typeof s.design !== 'object' || s.design === null || s.design.bias !== 'cathode') {
     return fail('invalid-input', 'Only a cathode-biased stage spreads with its tubes: a fixed bias is set for each tube', 'bias');
   }
-  if (typeof spread !== 'number' || !(spread >= 0 && spread < 0.9)) return fail('invalid-input', 'Give the tubes\' spread as a share of their current from 0 to 0.9', 'spread');
-  const end = (m: number): Result<SpreadEnd> => {
+  return spreadOf(spread, (m) => {
     const r = solveOutput(scaledTube(s.tube, m), s.design);
     return r.ok ? { ok: true, m, ip: r.op.ip, ig2: r.op.ig2, vk: r.op.vk, pa: r.op.pa, pg2: r.op.pg2 } : r;
-  };
+  });
+}
+
+/** The two ends of a spread, each solved by `end` at (1 ∓ spread) times the law's current; a failure from either is passed on. */
+export function spreadOf(spread: number, end: (m: number) => Result<SpreadEnd>): Result<OutputSpread> {
+  if (typeof spread !== 'number' || !(spread >= 0 && spread < 0.9)) return fail('invalid-input', 'Give the tubes\' spread as a share of their current from 0 to 0.9', 'spread');
   const weakest = end(-spread);
   if (!weakest.ok) return weakest;
   const strongest = end(spread);

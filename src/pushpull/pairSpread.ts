@@ -1,5 +1,5 @@
 import { TUBE_CURRENT_SPREAD } from '../build/partsList';
-import type { OutputSpread, SpreadEnd } from '../output/outputSpread';
+import { spreadOf, type OutputSpread } from '../output/outputSpread';
 import { fail, type Result } from '../result';
 import { scaledTube, solvePushPull, type PushPullSolution } from './solvePushPull';
 
@@ -15,18 +15,10 @@ export function pairSpread(s: PushPullSolution, spread = TUBE_CURRENT_SPREAD): R
   if (typeof s !== 'object' || s === null || typeof s.design !== 'object' || s.design === null || s.design.bias !== 'cathode') {
     return fail('invalid-input', 'Only a cathode-biased pair spreads with its tubes: a fixed bias is set for each tube', 'bias');
   }
-  if (typeof spread !== 'number' || !(spread >= 0 && spread < 0.9)) return fail('invalid-input', 'Give the tubes\' spread as a share of their current from 0 to 0.9', 'spread');
-  const end = (m: number): Result<SpreadEnd> => {
+  return spreadOf(spread, (m) => {
     const r = solvePushPull(scaledTube(s.tube, m), s.design);
     if (!r.ok) return r;
     const t = r.idle[0];
     return { ok: true, m, ip: t.ip, ig2: t.ig2, vk: r.vk, pa: t.pa, pg2: t.pg2 };
-  };
-  const weakest = end(-spread);
-  if (!weakest.ok) return weakest;
-  const strongest = end(spread);
-  if (!strongest.ok) return strongest;
-  const { ok: _w, ...w } = weakest;
-  const { ok: _s, ...st } = strongest;
-  return { ok: true, spread, weakest: w, strongest: st };
+  });
 }
