@@ -58,3 +58,14 @@ describe('a cathode-biased output stage across its tubes', () => {
     expect(figure('spread-ia')).toBeNull();
   });
 });
+
+describe('the ratings list for the whole amplifier', () => {
+  it('warns, tagged with the output stage, when the type\'s strong tubes would run past the plate rating', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    expect(screen.queryByText(/A tube passing 20 % more current/)).toBeNull();
+    act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, rk: 220 } }));
+    const item = screen.getByText(/A tube passing 20 % more current than the law would dissipate/).closest('li')!;
+    expect(item.textContent).toMatch(/^Warning\s*Output stage, EL34: A tube passing 20 % more current than the law would dissipate \d+\.\d W at idle, \d+ % of the 25 W rating/);
+  });
+});
