@@ -39,11 +39,16 @@ describe('a cathode-biased pair shows where its shared resistor settles under fu
     const row = compareCells(st.outputBench, rival).find((c) => c.key === 'settled')!;
     expect(row.a).toBe(`${r.full.power.toPrecision(3)} W`);
     expect(row.b).toBe(`${theirs.full.power.toPrecision(3)} W`);
+    // Each type's strong pair against its own rating, side by side.
+    const spreadRow = compareCells(st.outputBench, rival).find((c) => c.key === 'spread-pa')!;
+    const strong = (a: typeof rival.analysis) => `${((100 * a.spread!.strongest.pa) / a.solution.tube.ratings.maxPlateDissipation).toFixed(0)} %`;
+    expect(spreadRow.a).toBe(strong(st.outputBench.settled));
+    expect(spreadRow.b).toBe(strong(rival.analysis));
 
     act(() => { store.getState().setOutputBias('fixed'); });
     const fixed = store.getState();
     if (fixed.outputBench.pair === 'push-pull' && fixed.outputRivalBench?.ok && fixed.outputRivalBench.pair === 'push-pull') {
-      expect(compareCells(fixed.outputBench, fixed.outputRivalBench).some((c) => c.key.startsWith('settled'))).toBe(false);
+      expect(compareCells(fixed.outputBench, fixed.outputRivalBench).some((c) => c.key.startsWith('settled') || c.key === 'spread-pa')).toBe(false);
     } else throw new Error('no pairs under fixed bias');
     expect(figures.queryByText((_, el) => el?.getAttribute('data-figure') === 'settled-vk')).toBeNull();
     expect(cardSections(store.getState()).flatMap((c) => c.lines).some((l) => l.startsWith('The shared Rk settles'))).toBe(false);

@@ -38,11 +38,16 @@ describe('a cathode-biased single-ended stage shows where its resistor settles u
     const row = compareCells(st.outputBench, rival).find((c) => c.key === 'settled-vk')!;
     expect(row.a).toBe(`${r.vk.toPrecision(3)} V`);
     expect(row.b).toBe(`${theirs.vk.toPrecision(3)} V`);
+    // And each tube type's strong tubes side by side: the hotter end of its spread against its own rating.
+    const spreadRow = compareCells(st.outputBench, rival).find((c) => c.key === 'spread-pa')!;
+    const strong = (a: typeof rival.analysis) => `${((100 * a.spread!.strongest.pa) / a.solution.tube.ratings.maxPlateDissipation).toFixed(0)} %`;
+    expect(spreadRow.a).toBe(strong(st.outputBench.settled));
+    expect(spreadRow.b).toBe(strong(rival.analysis));
 
     act(() => { store.getState().setOutputBias('fixed'); });
     const fixed = store.getState();
     if (fixed.outputBench.pair === 'single-ended' && fixed.outputRivalBench?.ok && fixed.outputRivalBench.pair === 'single-ended') {
-      expect(compareCells(fixed.outputBench, fixed.outputRivalBench).some((c) => c.key.startsWith('settled'))).toBe(false);
+      expect(compareCells(fixed.outputBench, fixed.outputRivalBench).some((c) => c.key.startsWith('settled') || c.key === 'spread-pa')).toBe(false);
     } else throw new Error('no single-ended stages under fixed bias');
     expect(figures.queryByText((_, el) => el?.getAttribute('data-figure') === 'settled-vk')).toBeNull();
     expect(cardSections(store.getState()).flatMap((c) => c.lines).some((l) => l.startsWith('Rk settles'))).toBe(false);
