@@ -53,5 +53,5 @@ export function plateExtent(tube: TubeLike, bplus: number, fallbackIa?: number):
 export function loadLineExtent(bplus: number, ra: number, rk: number): PlateExtent {
   const b = framedVolts(bplus);
   const r = Number.isFinite(ra + rk) && ra + rk > 0 ? ra + rk : 1;
-  return { vmax: niceCeil(b * 1.1), iaMax: niceCeil(Math.max(1e-5, (1.25 * b) / r)) };
+  return { vmax: niceCeil(b * 1.1), iaMax: niceCeil(Math.min(FRAME_MAX_AMPS, Math.max(1e-5, (1.25 * b) / r))) };
 }

@@ -140,6 +140,8 @@ describe('every helper: no throw, no NaN or ±Infinity in an ok result', () => {
     ['curveSheet (a window of a denormal)', () => Q.curveSheet(sheetTube, 0, { vmax: 5e-324, iaMax: 5e-324 }, 1)],
     ['analyzeStage (no options)', () => Q.analyzeStage({ ...stage }, null as never, null)],
     ['analyzeStage (no levels)', () => Q.analyzeStage({ ...stage }, { second: null } as never, null)],
+    // Found at twenty times the count, at the end of this stop: a load line of 7e-307 Ω framed past the largest double.
+    ['loadLineExtent (a denormal load)', () => Q.loadLineExtent(0, 6.953355807835005e-307, 0)],
   ];
   for (const [name, call] of found) it(`${name} keeps the promise`, () => keepsPromise(name, call, []));
   it('solveOnSupplyInRounds keeps the promise for a malformed supply', () => {
