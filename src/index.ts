@@ -47,7 +47,6 @@ export { amplifierFindings, type StageFinding } from './stage/stageFindings';
 export { DISSIPATION_WARN_FRACTION, HEATER_CATHODE_WARN_FRACTION, AT_RATING_TOLERANCE, type Band, type Finding, type FindingKind, type HeaterCathodeRating, type Severity } from './stage/ratingBands';
 export { plateFamily, dcLoadLine, MAX_FAMILY_CURVES, type PlanePoint, type PlateCurve } from './stage/planeSeries';
 export { plateExtent, loadLineExtent, type PlateExtent } from './stage/plateExtent';
-
 export { curveSheet, CURVE_SAMPLES, type CurveSheet } from './stage/curveSheet';
 export { BIAS_SAMPLES, type StageOverlay } from './stage/stageOverlay';
 
@@ -74,11 +73,9 @@ export { sineLevel, decibelsOf, DB_FLOOR, NO_SIGNAL_VOLTS, DBU_REFERENCE_VOLTS, 
 export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';
 export { type LevelThd } from './signal/distortionSweep';
-
 export { fitTriode, type CurvePoint, type FitOptions, type TriodeFit, type FitPointError } from './fit/fitTriode';
 export { parseCurveCsv, type CsvLineError } from './fit/parseCurveCsv';
 export { type StageParts } from './build/chainStageParts';
-
 export { amplifierParts, type AmplifierPartsOptions } from './build/amplifierParts';
 export { stagePartsList, capacitorsForCorner, TUBE_CURRENT_SPREAD, type ResistorLine, type CapacitorLine, type CapacitorForCorner } from './build/partsList';
 export { productionSpread, type Spread, type SpreadSample } from './build/spread';
@@ -100,10 +97,9 @@ export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
 export type { OutputSpread, SpreadEnd } from './output/outputSpread';
-export { OUTPUT_GRID_STOPPER, STOPPER_CORNER_CLEAR_HZ, type GridStopper } from './output/gridStopper';
+export { STOPPER_CORNER_CLEAR_HZ, type GridStopper } from './output/gridStopper';
 export { settledCathode, type SettledCathode } from './output/settledCathode';
 export { outputExtent, zPrimaryThrough, type OutputOverlay } from './output/outputSheet';
-
 export { analyzeOutput, type OutputAnalysis, type OutputAnalysisOptions } from './output/analyzeOutput';
 export { analyzeStage, type StageAnalysis, type StageAnalysisOptions } from './stage/analyzeStage';
 export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type TransformerSpec } from './output/outputParts';
@@ -131,12 +127,10 @@ export { solveLongTailedPair, type LongTailedPairDesign, type LongTailedPairResu
 export { pushPullRaaSweep, MAX_RAA_POINTS, type RaaRow } from './pushpull/raaSweep';
 export { analyzePushPull, type PushPullAnalysis, type PushPullAnalysisOptions } from './pushpull/analyzePushPull';
 export { raaThrough, type PushPullOverlay } from './pushpull/pushPullOverlay';
-
 export { pairBiasForPoint, switchPairBias } from './pushpull/pairBias';
 export { pushPullPartsList, type PushPullPartsList, type PairTransformerSpec } from './pushpull/pushPullParts';
 export { splitterPlane, type SplitterPlane, type SplitterPlaneDesign } from './splitter/splitterPlane';
 export { solveSplitter, millerInputCapacitance, type SplitterDesign, type SplitterResult, type SplitterOutput } from './splitter/solveSplitter';
-
 export { TARGET_NAMES, TARGET_LABELS, TARGETS_OF_KIND, activeTargets, type Targets, type TargetName, type TargetStageKind } from './targets/targets';
 export { UNREACHABLE, type RegionStage } from './targets/evaluatePoint';
 export { feasibleRegion, type FeasibleRegion, type RegionGrid, type RegionBest } from './targets/feasibleRegion';

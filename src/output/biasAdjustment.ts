@@ -2,6 +2,7 @@ import { TUBE_CURRENT_SPREAD } from '../build/partsList';
 import { fail, type Result } from '../result';
 import { scaledTube } from '../pushpull/solvePushPull';
 import { biasForPoint } from './outputBias';
+import { spreadProblem } from './outputSpread';
 import type { OutputDesign } from './outputDesign';
 import type { OutputTube } from './outputTube';
 
@@ -38,7 +39,8 @@ export interface BiasAdjustment {
  */
 export function biasAdjustment(tube: OutputTube, design: OutputDesign, vpk: number, ip: number, spread = TUBE_CURRENT_SPREAD): Result<BiasAdjustment> {
   if (typeof design !== 'object' || design === null || design.bias !== 'fixed') return fail('invalid-input', 'A cathode-biased stage sets its own bias: only fixed bias is adjusted', 'bias');
-  if (typeof spread !== 'number' || !(spread >= 0 && spread < 0.9)) return fail('invalid-input', 'Give the tubes\' spread as a share of their current from 0 to 0.9', 'spread');
+  const problem = spreadProblem(spread);
+  if (problem) return problem;
   const nominal = biasForPoint(tube, design, vpk, ip);
   if (!nominal.ok) return nominal;
   const weakest = biasForPoint(scaledTube(tube, -spread), design, vpk, ip);

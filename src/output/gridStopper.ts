@@ -1,3 +1,5 @@
+import { millerInputCapacitance } from '../splitter/solveSplitter';
+import { parallel } from '../stage/parallel';
 import type { Capacitances } from '../tube/types';
 
 /**
@@ -19,15 +21,16 @@ export interface GridStopper {
 }
 
 /**
- * The stopper's low-pass corner: Cin = Cgk + Cgp·(1 + A) (the Miller effect,
- * A = gm·(rp ∥ Zload), the plate's gain into its load), f = 1/(2π·R·Cin).
- * With the source before it the grid sees more resistance still; the corner
- * here is the stopper's own, an upper bound on what it alone takes away.
+ * The stopper's low-pass corner with the grid's input capacitance by the
+ * Miller effect (millerInputCapacitance: Cgk + Cgp·(1 + A), A = gm·(rp ∥
+ * Zload), the plate's gain into its load), f = 1/(2π·R·Cin). With the source
+ * before it the grid sees more resistance still; the corner here is the
+ * stopper's own, an upper bound on what it alone takes away.
  */
 export function gridStopperFor(caps: Capacitances, gm: number, rp: number, zLoad: number, ohms = OUTPUT_GRID_STOPPER): GridStopper {
-  const load = rp > 0 && Number.isFinite(rp) ? (rp * zLoad) / (rp + zLoad) : zLoad;
+  const load = parallel(rp, zLoad);
   const gain = Number.isFinite(gm) && gm > 0 && Number.isFinite(load) && load > 0 ? gm * load : 0;
-  const cin = Math.max(caps.cgk + caps.cgp * (1 + gain), 0);
+  const cin = millerInputCapacitance(caps, gain);
   const cornerHz = cin > 0 && ohms > 0 ? 1 / (2 * Math.PI * ohms * cin) : Number.MAX_VALUE;
   return { ohms, inputCapacitance: cin, cornerHz: Number.isFinite(cornerHz) ? cornerHz : Number.MAX_VALUE };
 }

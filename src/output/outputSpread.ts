@@ -1,6 +1,6 @@
 import { TUBE_CURRENT_SPREAD } from '../build/partsList';
 import { scaledTube } from '../pushpull/solvePushPull';
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { finding, type Finding } from '../stage/ratingBands';
 import type { OutputTube } from './outputTube';
 import { solveOutput, type OutputSolution } from './solveOutput';
@@ -43,9 +43,15 @@ export function outputSpread(s: OutputSolution, spread = TUBE_CURRENT_SPREAD): R
   });
 }
 
+/** A spread of tubes' current the model can take: a share from 0 to 0.9 (a tube at 1 − spread must still conduct). */
+export function spreadProblem(spread: unknown): Failure | null {
+  return typeof spread === 'number' && spread >= 0 && spread < 0.9 ? null : fail('invalid-input', 'Give the tubes\' spread as a share of their current from 0 to 0.9', 'spread');
+}
+
 /** The two ends of a spread, each solved by `end` at (1 ∓ spread) times the law's current; a failure from either is passed on. */
 export function spreadOf(spread: number, end: (m: number) => Result<SpreadEnd>): Result<OutputSpread> {
-  if (typeof spread !== 'number' || !(spread >= 0 && spread < 0.9)) return fail('invalid-input', 'Give the tubes\' spread as a share of their current from 0 to 0.9', 'spread');
+  const problem = spreadProblem(spread);
+  if (problem) return problem;
   const weakest = end(-spread);
   if (!weakest.ok) return weakest;
   const strongest = end(spread);

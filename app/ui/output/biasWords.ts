@@ -1,5 +1,5 @@
-import { milliamps, smallVolts, volts } from '../../format';
-import type { BiasAdjustment, Result } from '../../../src/index';
+import { milliamps, ohms, smallVolts, volts } from '../../format';
+import { SENSE_OHMS, type BiasAdjustment, type Result } from '../../../src/index';
 
 /**
  * A fixed-bias stage's adjustment in words, for the parts list and the card:
@@ -15,7 +15,7 @@ export function biasLines(adjustment: Result<BiasAdjustment> | null, tubes: 1 | 
   const spread = Math.round(a.spread * 100);
   return [
     `Bias adjustment, ${each}: the grid from ${volts(a.weakest)} to ${volts(a.strongest)} sets ${milliamps(a.idlePlate)} idle plate current in tubes passing ${spread} % less to ${spread} % more current than the law (that spread from memory, common practice); ${volts(a.nominal)} for the law's own tube.`,
-    `Set it by a 1 Ω 1 % resistor from ${tubes === 2 ? 'each' : 'the'} cathode to ground: ${smallVolts(a.senseVolts)} across it is ${milliamps(a.idleCathode)} of cathode current, plate and screen (Ohm's law).`,
+    `Set it by a ${ohms(SENSE_OHMS)} 1 % resistor from ${tubes === 2 ? 'each' : 'the'} cathode to ground: ${smallVolts(a.senseVolts)} across it is ${milliamps(a.idleCathode)} of cathode current, plate and screen (Ohm's law).`,
     'Wire the adjustment so that a lifted wiper leaves the grid at the negative end of its range: a failed control then cools the tube instead of running it away (common practice).',
   ];
 }

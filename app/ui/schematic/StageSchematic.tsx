@@ -77,8 +77,9 @@ export function StageSchematic() {
   const fedStage = useWorkbench((s) => s.design.before.length);
   const fedFrom = useWorkbench((s) => (s.design.before.length > 0 ? benchSource(s.design, s.registry) : null));
   const fedBy = fedStage > 0 && fedFrom ? { stage: fedStage, source: fedFrom } : null;
-  const { rsource: _rs, ...laterSpots } = labelSpots(kind, coupled);
-  const spots: Partial<Record<FieldName, Spot>> = fedBy ? laterSpots : labelSpots(kind, coupled);
+  const allSpots = labelSpots(kind, coupled);
+  const { rsource: _rs, ...laterSpots } = allSpots;
+  const spots: Partial<Record<FieldName, Spot>> = fedBy ? laterSpots : allSpots;
   const hasLoad = Number.isFinite(design.rl);
 
   return (
