@@ -207,11 +207,11 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   return { result: r, names: chain.names, feeds: chain.input.feeds, bleeder, parts, hum: r.ok ? humOf(chain.input, r) : null, stale };
 }
 
-/** Each stage's share of the hum at the output: the amplifier at its nodes' B+, each stage's node's ripple. */
+/** Each stage's share of the hum at the output: the amplifier at its nodes' B+, each stage's node's ripple (a pentode output stage's screens take theirs from the same node). */
 function humOf(input: AmplifierOnSupply, r: AmplifierOnSupplyResult): Result<HumAtOutput> {
   const amp = input.amplifier;
   const atNodes = { ...amp, stages: amp.stages.map((st, k) => ({ ...st, bplus: r.bplus[k] ?? st.bplus })) };
-  const perVolt = supplyHum(atNodes, r.amplifier);
+  const perVolt = supplyHum(atNodes, r.amplifier, input.supply.mainsHz);
   if (!perVolt.ok) return perVolt;
   return humAtOutput(perVolt, input.feeds.map((node) => r.supply.nodes[node]?.rippleRms ?? 0));
 }

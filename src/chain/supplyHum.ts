@@ -1,5 +1,8 @@
 import { fail, type Result } from '../result';
-import { solveOutput } from '../output/solveOutput';
+import { shown } from '../shown';
+import { solveOutput, type OutputSolution } from '../output/solveOutput';
+import { CATHODE_BYPASS_CORNER_HZ } from '../output/outputParts';
+import { screenConductance, screenFeedPlan } from '../output/screenFeed';
 import { smallSignalAt } from '../tube/triode';
 import { korenPentodeInto } from '../tube/pentode';
 import type { ChainInput, ChainResult, ChainStage, SingleEndedLink } from './chainTypes';
@@ -15,14 +18,33 @@ import { checkChain } from './prepareAmplifier';
 export interface SupplyHum {
   /**
    * Output volts per volt of ripple on each stage's B+ (at the speaker for
-   * an output stage). Null where a stage's own injection is not modelled: a
-   * phase splitter and a push-pull pair (common mode, which a matched pair
-   * cancels to first order). Ripple that enters before them is carried
-   * through them as signal. A pentode-connected output stage's screen
-   * supply is taken as clean.
+   * an output stage), its screens held. Null where a stage's own injection
+   * is not modelled: a phase splitter and a push-pull pair (common mode,
+   * which a matched pair cancels to first order). Ripple that enters before
+   * them is carried through them as signal.
    */
   readonly perVolt: readonly (number | null)[];
+  /**
+   * A pentode-connected single-ended output stage's screens: output volts
+   * per volt of ripple on the screens themselves (the plate's B+ held),
+   * signed; null for every other stage (a triode has none, an ultralinear
+   * screen's tap is in perVolt). A screen moves the plate current about
+   * μg1g2/μ times as hard as the plate does, so its share dominates.
+   */
+  readonly screenPerVolt: readonly (number | null)[];
+  /**
+   * The share of the stage's B+ ripple its screens see (null where
+   * screenPerVolt is): 1 fed straight from B+; through their dropper and
+   * its bypass (the parts list's: the bypass for a 10 Hz corner against
+   * the dropper beside the screens' own conductance), the RC's magnitude at
+   * the ripple's frequency; 0 on a supply node of their own above B+,
+   * which this supply does not model.
+   */
+  readonly screenShare: readonly (number | null)[];
 }
+
+/** The ripple's frequency for a mains frequency: twice it, as every rectifier here is full wave (a centre-tapped winding, a bridge, or a full-wave tube). */
+export const rippleHzOf = (mainsHz: number) => 2 * mainsHz;
 
 /** What a stage's output node does per volt on its B+, before the stages after it. */
 function injection(s: ChainStage, solved: ChainResult['stages'][number], load: number): number | null {
@@ -39,7 +61,10 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
     const down = par(rp + (s.bypassed || s.rk === 0 ? 0 : (mu + 1) * s.rk), load);
     return down / (s.ra + down);
   }
-  if (s.kind === 'single-ended-output') return outputInjection(s);
+  if (s.kind === 'single-ended-output') {
+    const solved = solveOutput(s.tube, designOf(s));
+    return solved.ok ? outputInjection(s, solved, 'bplus') : null;
+  }
   return null;
 }
 
@@ -52,14 +77,12 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
  * turns) times the reflected load; the plate sits at the ripple less w and
  * the DC resistance's drop; the screen at the plate (triode-connected), at
  * the tap (the ripple less the tap's share of w), or on its own supply,
- * taken as clean (pentode). The speaker gets w through the turns ratio,
- * plate-phased as the stage's gain (the plate end falls against the B+ end:
- * negative).
+ * held (pentode: `from` 'screen' moves it instead, the primary's B+ end
+ * held). The speaker gets w through the turns ratio, plate-phased as the
+ * stage's gain (the plate end falls against the B+ end: negative).
  */
-function outputInjection(s: SingleEndedLink): number | null {
+function outputInjection(s: SingleEndedLink, solved: OutputSolution, from: 'bplus' | 'screen'): number | null {
   const tube = s.tube;
-  const solved = solveOutput(tube, designOf(s));
-  if (!solved.ok) return null;
   const { op } = solved;
   const zp = s.zPrimary;
   const n = Math.sqrt(zp / s.speakerOhms);
@@ -86,15 +109,17 @@ function outputInjection(s: SingleEndedLink): number | null {
   const gs2 = (ig2S - ig2T) / (2 * h);
   // Each current as A·vp + B·w + C (per volt of ripple), by where the screen sits.
   const f = feed.kind === 'tap' ? feed.fraction : 0;
-  const ia = feed.kind === 'tied' ? [ga + gs, 0, 0] : feed.kind === 'tap' ? [ga, -f * gs, gs] : [ga, 0, 0];
-  const ig2 = feed.kind === 'tied' ? [ga2 + gs2, 0, 0] : feed.kind === 'tap' ? [ga2, -f * gs2, gs2] : [ga2, 0, 0];
+  // A pentode's screen moves by the volt when it carries the ripple (`from` 'screen'), else it is held.
+  const moved = from === 'screen' ? 1 : 0;
+  const ia = feed.kind === 'tied' ? [ga + gs, 0, 0] : feed.kind === 'tap' ? [ga, -f * gs, gs] : [ga, 0, moved * gs];
+  const ig2 = feed.kind === 'tied' ? [ga2 + gs2, 0, 0] : feed.kind === 'tap' ? [ga2, -f * gs2, gs2] : [ga2, 0, moved * gs2];
   // The winding couples the plate's current and an ultralinear screen's share; the DC resistance carries the charted current.
   const [m1, m2] = feed.kind === 'tied' ? [1, 1] : [1, f];
   const [p1, p2] = feed.kind === 'tied' ? [1, 1] : [1, 0];
   const mix = (a: number, b: number, k: number) => a * ia[k]! + b * ig2[k]!;
-  // w − Zp·mmf = 0 and vp + w + Rdc·ip = 1, solved for w.
+  // w − Zp·mmf = 0 and vp + w + Rdc·ip = the B+ end's ripple (1, or 0 while the screen carries it), solved for w.
   const a11 = -zp * mix(m1, m2, 0), a12 = 1 - zp * mix(m1, m2, 1), b1 = zp * mix(m1, m2, 2);
-  const a21 = 1 + s.rPrimary * mix(p1, p2, 0), a22 = 1 + s.rPrimary * mix(p1, p2, 1), b2 = 1 - s.rPrimary * mix(p1, p2, 2);
+  const a21 = 1 + s.rPrimary * mix(p1, p2, 0), a22 = 1 + s.rPrimary * mix(p1, p2, 1), b2 = (from === 'bplus' ? 1 : 0) - s.rPrimary * mix(p1, p2, 2);
   const det = a11 * a22 - a12 * a21;
   if (!(Math.abs(det) > 0)) return null;
   const w = (a11 * b2 - a21 * b1) / det;
@@ -102,51 +127,104 @@ function outputInjection(s: SingleEndedLink): number | null {
 }
 
 /**
+ * A pentode-connected output stage's screens: what their ripple does at the
+ * output (per volt on them), and the share of the B+ ripple that reaches
+ * them by their feed (screenFeedPlan): all of it straight from B+; through
+ * the dropper R with its bypass C to ground, the screens' own conductance g
+ * beside C, |1/(1 + R·g + jωRC)| = 1/((1 + R·g)·√(1 + (f/fc)²)) with fc the
+ * bypass's corner against R ∥ 1/g (the parts list's rule, its capacitor at
+ * the corner exactly: a larger preferred one only filters more); none from
+ * a node of their own.
+ */
+function screenPath(s: ChainStage, rippleHz: number): { perVolt: number; share: number } | null {
+  if (s.kind !== 'single-ended-output' || s.connection !== 'pentode') return null;
+  const solved = solveOutput(s.tube, designOf(s));
+  if (!solved.ok) return null;
+  const perVolt = outputInjection(s, solved, 'screen');
+  if (perVolt === null || !Number.isFinite(perVolt)) return null;
+  const { op } = solved;
+  const plan = screenFeedPlan(s.bplus, s.screenVolts, op.ig2);
+  if (plan.kind === 'from-bplus') return { perVolt, share: 1 };
+  if (plan.kind === 'own-node') return { perVolt, share: 0 };
+  const g = op.feed.kind === 'fixed' ? screenConductance(s.tube, op.feed.vg2k, op.vpk, op.vgk) : 0;
+  const share = 1 / ((1 + plan.ohms * g) * Math.hypot(1, rippleHz / CATHODE_BYPASS_CORNER_HZ));
+  return { perVolt, share: Number.isFinite(share) ? share : 0 };
+}
+
+/**
  * Each stage's B+ ripple as it reaches the output (SupplyHum): its own
  * injection at its output node, the stage loaded by the next one's input
  * (its grid leak, or nothing for a direct-coupled grid) or the amplifier's
- * load, then carried by every later stage's midband gain.
+ * load, then carried by every later stage's midband gain. `mainsHz` sets
+ * the ripple's frequency, at which a screen dropper's bypass is read.
  */
-export function supplyHum(chain: ChainInput, solved: ChainResult): Result<SupplyHum> {
+export function supplyHum(chain: ChainInput, solved: ChainResult, mainsHz = 50): Result<SupplyHum> {
   if (typeof chain !== 'object' || chain === null || !Array.isArray(chain.stages) || typeof solved !== 'object' || solved === null || !Array.isArray(solved.stages)) {
     return fail('invalid-input', 'Give the amplifier and its solution');
   }
   const problem = checkChain(chain);
   if (problem) return problem;
+  if (!(typeof mainsHz === 'number' && mainsHz >= 1 && mainsHz <= 1000)) return fail('invalid-input', `The mains frequency must be from 1 Hz to 1 kHz (got ${shown(mainsHz)})`, 'mainsHz');
+  const rippleHz = rippleHzOf(mainsHz);
   if (chain.stages.length !== solved.stages.length) return fail('invalid-input', `The solution has ${solved.stages.length} stages for an amplifier of ${chain.stages.length}`);
   const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
   const usable = solved.stages.every((st) => typeof st === 'object' && st !== null && finite(st.gain) && typeof st.op === 'object' && st.op !== null && finite(st.op.va) && finite(st.op.vk) && finite(st.op.vgk) && (st.zin === null || typeof st.zin === 'number'));
   if (!usable) return fail('invalid-input', 'Every solved stage must give its operating point, gain and input impedance');
   const n = chain.stages.length;
-  const perVolt = chain.stages.map((s, k) => {
-    const next = solved.stages[k + 1];
-    const load = next ? (next.zin ?? Infinity) : (chain.load?.rl ?? Infinity);
-    const own = injection(s, solved.stages[k]!, load);
+  const carriedFrom = (k: number, own: number | null) => {
     if (own === null || !Number.isFinite(own)) return null;
     let carried = own;
     for (let j = k + 1; j < n; j++) carried *= solved.stages[j]!.gain;
     return Number.isFinite(carried) ? carried : null;
+  };
+  const perVolt = chain.stages.map((s, k) => {
+    const next = solved.stages[k + 1];
+    const load = next ? (next.zin ?? Infinity) : (chain.load?.rl ?? Infinity);
+    return carriedFrom(k, injection(s, solved.stages[k]!, load));
   });
-  return { ok: true, perVolt };
+  const screens = chain.stages.map((s) => screenPath(s, rippleHz));
+  const screenPerVolt = screens.map((p, k) => (p ? carriedFrom(k, p.perVolt) : null));
+  return { ok: true, perVolt, screenPerVolt, screenShare: screens.map((p, k) => (p && screenPerVolt[k] !== null ? p.share : null)) };
 }
 
 export interface HumAtOutput {
-  /** Each stage's share at the output, V rms (null where its injection is not modelled). */
+  /** Each stage's share at the output, V rms (null where its injection is not modelled), its screens' included. */
   readonly volts: readonly (number | null)[];
+  /** Of each share, the part that comes through a pentode output stage's screens, V rms; null for a stage without them. */
+  readonly screens: readonly (number | null)[];
   /**
    * The hum at the output, V rms, at most: the shares added as if in phase.
    * The ripples at different nodes are not (each filter section turns its
-   * phase), so the real sum is at or under this bound.
+   * phase, and a screen's bypass turns its share by up to 90°), so the real
+   * sum is at or under this bound.
    */
   readonly bound: number;
 }
 
-/** The hum each stage's ripple gives at the output (its B+'s ripple, V rms, times its share per volt), and their bound. */
+/**
+ * The hum each stage's ripple gives at the output (its B+'s ripple, V rms,
+ * times its share per volt, plus its screens' share of that ripple times
+ * theirs), and their bound. A hum without screen figures counts none.
+ */
 export function humAtOutput(hum: SupplyHum, rippleRms: readonly number[]): Result<HumAtOutput> {
   if (typeof hum !== 'object' || hum === null || !Array.isArray(hum.perVolt) || !Array.isArray(rippleRms) || rippleRms.length !== hum.perVolt.length) {
     return fail('invalid-input', 'Give one ripple voltage for each stage');
   }
   if (!rippleRms.every((r) => typeof r === 'number' && Number.isFinite(r) && r >= 0)) return fail('invalid-input', 'Every ripple voltage must be finite and not negative');
-  const volts = hum.perVolt.map((x, k) => (typeof x === 'number' && Number.isFinite(x) ? Math.abs(x) * rippleRms[k]! : null));
-  return { ok: true, volts, bound: volts.reduce<number>((a, v) => a + (v ?? 0), 0) };
+  const screened = hum.screenPerVolt !== undefined || hum.screenShare !== undefined;
+  if (screened && !(Array.isArray(hum.screenPerVolt) && Array.isArray(hum.screenShare) && hum.screenPerVolt.length === rippleRms.length && hum.screenShare.length === rippleRms.length)) {
+    return fail('invalid-input', 'Give the screens\' figures for each stage, or none');
+  }
+  const usable = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
+  const screens = rippleRms.map((r, k) => {
+    const per = screened ? hum.screenPerVolt[k] : null;
+    const share = screened ? hum.screenShare[k] : null;
+    const v = usable(per) && usable(share) ? Math.abs(per * share) * r : null;
+    return v !== null && Number.isFinite(v) ? v : null;
+  });
+  const volts = hum.perVolt.map((x, k) => {
+    const v = usable(x) ? Math.abs(x) * rippleRms[k]! + (screens[k] ?? 0) : null;
+    return v !== null && Number.isFinite(v) ? v : null;
+  });
+  return { ok: true, volts, screens, bound: volts.reduce<number>((a, v) => a + (v ?? 0), 0) };
 }

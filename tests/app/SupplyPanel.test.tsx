@@ -151,6 +151,36 @@ describe('the B+ supply on the bench', () => {
     expect(cardSections(store.getState()).find((c) => c.heading === 'B+ supply')!.lines).toContainEqual(expect.stringMatching(/^Hum at the speaker: at most [\d.]+ (µV|mV) rms \(\d+ dB below 1 W into 8 Ω\), each stage's ripple carried/));
   });
 
+  it('counts a pentode output stage\'s screens in the hum: fed straight from its node they carry that node\'s whole ripple', async () => {
+    const { store, panel } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.hum?.ok).toBe(true), { timeout: 5000 });
+    const ultralinear = store.getState().supplyView!.hum!;
+    if (!ultralinear.ok) throw new Error('solved');
+    // The demo's EL34, pentode-connected with its screens at its B+: straight from node 2.
+    act(() => {
+      expect(store.getState().changeOutput({ connection: 'pentode', screenVolts: store.getState().design.output.bplus })).toBeNull();
+    });
+    await waitFor(() => expect(store.getState().supplyView?.stale).toBe(false), { timeout: 5000 });
+    const view = store.getState().supplyView!;
+    if (!view.result.ok || !view.hum?.ok) throw new Error('solved');
+    const r = view.result;
+    const out = view.names.length - 1;
+    const node2 = r.supply.nodes[view.feeds[out]!]!.rippleRms;
+    // The model apart: the output stage's share is its plate's and its screens', each per volt times node 2's ripple.
+    const input = onSupplyInputOf(store.getState().design, LIBRARY_TUBES)!.input;
+    const hum = supplyHum({ ...input.amplifier, stages: input.amplifier.stages.map((st, k) => ({ ...st, bplus: r.bplus[k]! })) }, r.amplifier, store.getState().design.supply.mainsHz);
+    if (!hum.ok) throw new Error(hum.message);
+    expect(hum.screenShare[out]).toBe(1);
+    expect(view.hum.screens[out]).toBeCloseTo(Math.abs(hum.screenPerVolt[out]!) * node2, 12);
+    expect(view.hum.volts[out]).toBeCloseTo((Math.abs(hum.perVolt[out]!) + Math.abs(hum.screenPerVolt[out]!)) * node2, 12);
+    // The screens' share is most of the output stage's: a screen moves the plate current many times harder than the plate.
+    expect(view.hum.screens[out]!).toBeGreaterThan(0.8 * view.hum.volts[out]!);
+    const line = panel.getByTestId('supply-hum').textContent!;
+    expect(line).toMatch(/Output \(EL34\) [\d.]+ (µV|mV) \(its screens [\d.]+ (µV|mV)\)/);
+    expect(line).toMatch(/screens take the ripple of its B\+ node/);
+    expect(line).not.toMatch(/screen supply is taken as clean/);
+  });
+
   it('the demo\'s supply delivers the demo\'s B+; a higher secondary does not, and its B+ can be taken onto the bench', async () => {
     const { store, panel } = bench();
     await panel.findByText('The bench\'s B+ are the supply\'s (within 1 %).', {}, { timeout: 5000 });

@@ -68,8 +68,17 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('solveChain (amplifier)', fc.tuple(fc.oneof(amplifier, near({ source: { rsource: 0 }, stages: chainStages }))), Q.solveChain, 150);
   const solvedAmplifier = Q.solveChain({ source: { rsource: 1e3 }, stages: chainStages } as Q.ChainInput);
   if (!solvedAmplifier.ok) throw new Error(solvedAmplifier.message);
-  run('supplyHum', fc.tuple(fc.oneof(amplifier, near({ source: { rsource: 1e3 }, stages: chainStages })), fc.oneof(fc.constant(solvedAmplifier), near(solvedAmplifier))), Q.supplyHum, 100);
-  run('humAtOutput', fc.tuple(fc.oneof(near({ perVolt: [0.1, null, -0.02] }), anything), fc.oneof(fc.constant([1e-3, 2e-3, 0.5]), fc.array(numbers, { maxLength: 4 }), anything)), Q.humAtOutput);
+  run('supplyHum', fc.tuple(fc.oneof(amplifier, near({ source: { rsource: 1e3 }, stages: chainStages })), fc.oneof(fc.constant(solvedAmplifier), near(solvedAmplifier)), fc.oneof(fc.constant(50), fc.constant(undefined), numbers)), Q.supplyHum, 100);
+  // A pentode output stage's screens, straight from B+ and behind a dropper.
+  const pentodeStages = (screenVolts: number) => [chainStages[0]!, { ...chainStages[2]!, connection: 'pentode', screenVolts }];
+  const onScreens = (screenVolts: number) => {
+    const chain = { source: { rsource: 1e3 }, stages: pentodeStages(screenVolts) };
+    const solved = Q.solveChain(chain as Q.ChainInput);
+    if (!solved.ok) throw new Error(solved.message);
+    return fc.tuple(fc.oneof(fc.constant(chain), near(chain)), fc.oneof(fc.constant(solved), near(solved)), fc.oneof(fc.constant(60), numbers));
+  };
+  run('supplyHum (pentode screens)', fc.oneof(onScreens(output.bplus), onScreens(output.bplus - 60)), Q.supplyHum, 100);
+  run('humAtOutput', fc.tuple(fc.oneof(near({ perVolt: [0.1, null, -0.02] }), near({ perVolt: [0.1, null, -0.02], screenPerVolt: [null, null, -0.5], screenShare: [null, null, 0.05] }), anything), fc.oneof(fc.constant([1e-3, 2e-3, 0.5]), fc.array(numbers, { maxLength: 4 }), anything)), Q.humAtOutput);
   run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };
   run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);

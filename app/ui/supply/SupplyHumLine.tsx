@@ -24,14 +24,14 @@ export function humWords(view: SupplyView, speakerOhms: number | null): string |
  */
 export function SupplyHumLine({ view }: { view: SupplyView }) {
   const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
-  const outputConnection = useWorkbench((s) => (view.names.some((n) => n.role === 'output') ? s.design.output.connection : null));
   const hum = view.hum;
   if (!hum) return null;
   if (!hum.ok) return <p className="field-error">{`Hum at the output: ${hum.message}`}</p>;
   const h = hum;
-  const shares = view.names.map((n, k) => `${n.title} (${n.tube}) ${h.volts[k] === null ? 'not counted' : smallVolts(h.volts[k]!)}`).join(', ');
+  const screens = (k: number) => (h.screens[k] !== null ? ` (its screens ${smallVolts(h.screens[k]!)})` : '');
+  const shares = view.names.map((n, k) => `${n.title} (${n.tube}) ${h.volts[k] === null ? 'not counted' : `${smallVolts(h.volts[k]!)}${screens(k)}`}`).join(', ');
   const uncounted = h.volts.some((v) => v === null);
-  const pentode = outputConnection === 'pentode';
+  const screened = h.screens.some((v) => v !== null);
   return (
     <p className="supply-hum" data-testid="supply-hum">
       <strong>{humWords(view, speakerOhms)}</strong>
@@ -39,7 +39,7 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
       <span className="supply-hum-why">
         {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
         {uncounted ? ' Not counted: a phase splitter\u2019s and a push-pull pair\u2019s own (common mode, which a matched pair cancels to first order).' : ''}
-        {pentode ? ' The pentode output stage\u2019s screen supply is taken as clean.' : ''}
+        {screened ? ' A pentode output stage\u2019s screens take the ripple of its B+ node, straight or through their dropper and its bypass (a screen moves the plate current many times harder than the plate does, so filter it well); screens on a node of their own above B+ are taken as clean.' : ''}
       </span>
     </p>
   );
