@@ -77,6 +77,7 @@ export const pushPullKind: StageKind<PushPullLink> = {
       ok: true,
       op: { va: solved.idle[0].vpk + solved.vk, vk: solved.vk, ia: solved.idle[0].ip, vgk },
       supplyCurrent: solved.supplyCurrent,
+      ...(solved.feed.kind === 'fixed' ? { screenCurrent: solved.idle[0].ig2 + solved.idle[1].ig2 } : {}),
       fullPowerCurrent: full.supplyCurrent,
       outputDc: 0,
       gain,

@@ -80,6 +80,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       ok: true,
       op: { va: op.vpk + op.vk, vk: op.vk, ia: op.ip, vgk: op.vgk },
       supplyCurrent: op.ik,
+      ...(op.feed.kind === 'fixed' ? { screenCurrent: op.ig2 } : {}),
       // The primary's average shifts under drive (the law's curvature rectifies); a separate screen's own shift is left out.
       fullPowerCurrent: op.ik + limit.at.dcShift,
       outputDc: 0,

@@ -2,7 +2,7 @@ import { fail, type Failure, type Result } from '../result';
 import { solveSupply } from '../supply/solveSupply';
 import { supplyNear, supplyTangent, type SupplyTangent } from '../supply/supplyTangent';
 import type { SupplyDesign, SupplySolution } from '../supply/supplyTypes';
-import type { ChainInput, ChainResult } from './chainTypes';
+import type { ChainInput, ChainResult, ChainStage } from './chainTypes';
 import { prepareAmplifier, solveStagesInPlace } from './prepareAmplifier';
 import { amplifierOf } from './solveAmplifier';
 import type { SolvedLink } from './stageKind';
@@ -12,6 +12,17 @@ export interface AmplifierOnSupply {
   readonly supply: SupplyDesign;
   /** The supply node feeding each stage's B+ (0 the reservoir, then one per section). */
   readonly feeds: readonly number[];
+  /**
+   * For each stage, the node feeding its screens straight, or null: only a
+   * pentode-connected output stage's (single-ended or a pair) may have one.
+   * Those screens are then solved at that node's voltage, their idle
+   * current is drawn from it instead of the plates' node, and the stage's
+   * parts and findings take them as fed from it (screenFromNode). At full
+   * power the node carries their idle current still (a pair's screens'
+   * rise under drive is counted on the plates' node). Absent: every screen
+   * hangs from its plates' node, as designed.
+   */
+  readonly screenFeeds?: readonly (number | null)[];
   /** Identical channels on the one supply (2 for stereo): each node carries every channel's stages. Default 1. */
   readonly channels?: number;
   /**
@@ -36,6 +47,8 @@ export interface AmplifierOnSupplyResult {
   readonly supply: SupplySolution;
   /** Each stage's B+ as the amplifier was solved at: its node's voltage under the whole amplifier's current (`supply.nodes[feed].dc`) within 10 mV, V. */
   readonly bplus: readonly number[];
+  /** Each stage's screen voltage as solved where a node feeds its screens (`screenFeeds`; that node's voltage within 10 mV), V; null elsewhere. */
+  readonly screenVolts: readonly (number | null)[];
   /** The current drawn at each node (every channel's stages, plus the supply's own loads), A. */
   readonly loads: readonly number[];
   /**
@@ -67,6 +80,20 @@ function cannotDeliver(volts: readonly number[], feeds: readonly number[], loads
     `The supply cannot deliver the stages' current: node ${k + 1} falls to ${volts[k]!.toFixed(1)} V${amps > 0 ? ` under ${(amps * 1e3).toFixed(1)} mA` : ''}. Raise the secondary's voltage, lower the filter's resistances, or feed fewer stages from that node.`,
     'secondaryRms',
   );
+}
+
+/** The first screen feed that cannot be used: one per stage, each null or a node, and a node only for a pentode-connected output stage's screens. */
+function screenFeedsProblem(screenFeeds: unknown, stages: readonly ChainStage[], nodes: number): Failure | null {
+  if (!Array.isArray(screenFeeds) || screenFeeds.length !== stages.length) return fail('invalid-input', `Give the screens' node (or none) for each of the ${stages.length} stages`, 'screenFeeds');
+  for (let i = 0; i < stages.length; i++) {
+    const k: unknown = screenFeeds[i];
+    if (k === null || k === undefined) continue;
+    if (!(Number.isInteger(k) && (k as number) >= 0 && (k as number) < Math.max(nodes, 1))) return fail('invalid-input', `Name the screens' supply node (1 to ${Math.max(nodes, 1)}) for stage ${i + 1}, or none`, 'screenFeeds');
+    const s = stages[i]!;
+    const screened = (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') && s.connection === 'pentode';
+    if (!screened) return fail('invalid-input', `Stage ${i + 1} has no screens of its own to feed: only a pentode-connected output stage's take a node`, 'screenFeeds');
+  }
+  return null;
 }
 
 /** Channels one supply may feed (a multichannel amplifier beyond this has more than one supply). */
@@ -105,6 +132,9 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   if (!Array.isArray(feeds) || feeds.length !== stages.length || !feeds.every((f) => Number.isInteger(f) && f >= 0 && f < Math.max(nodes, 1))) {
     return fail('invalid-input', `Name the supply node (1 to ${Math.max(nodes, 1)}) feeding each of the ${stages.length} stages`, 'feeds');
   }
+  const screenFeeds = input.screenFeeds ?? stages.map(() => null);
+  const screenProblem = screenFeedsProblem(screenFeeds, stages, nodes);
+  if (screenProblem) return screenProblem;
   const own = Array.isArray(supply.loads) ? supply.loads : [];
   const start = input.start;
   let volts: number[] | null = Array.isArray(start) && start.length === nodes && start.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) ? [...start] : null;
@@ -123,23 +153,40 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     // A node the stages pulled below the floor (the loads are taken as constant currents for one round) is held
     // there; the stages then draw less, and a supply that can feed them climbs back.
     const bplus = stages.map((s, i) => (volts ? Math.max(volts[feeds[i]!]!, MIN_NODE_VOLTS) : s.bplus));
+    const screenVolts = stages.map((s, i) => {
+      const k = screenFeeds[i];
+      if (k === null || k === undefined || !('screenVolts' in s)) return null;
+      return volts ? Math.max(volts[k]!, MIN_NODE_VOLTS) : s.screenVolts;
+    });
     // Each round needs only the stages' currents (their operating points, a fifth of the whole solve); the whole
     // amplifier is solved once, at the B+ the rounds agree on.
-    const placed: ChainInput = { ...amplifier, stages: stages.map((s, i) => ({ ...s, bplus: bplus[i]! })) };
+    const placed: ChainInput = {
+      ...amplifier,
+      stages: stages.map((s, i) => {
+        const atNode = { ...s, bplus: bplus[i]! };
+        const vs = screenVolts[i];
+        return vs !== null && vs !== undefined && 'screenVolts' in atNode ? { ...atNode, screenVolts: vs, screenFromNode: true } : atNode;
+      }),
+    };
     const inPlace = solveStagesInPlace(placed);
     if (!inPlace.ok) return volts && bplus.some((b) => b <= MIN_NODE_VOLTS) ? cannotDeliver(volts, feeds, loads) : inPlace;
-    const drawn = (current: (l: SolvedLink) => number) => own.map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) : 0), 0));
+    // Screens on a node of their own draw their idle current there, and the plates' node the rest.
+    const screensOf = (l: SolvedLink, i: number) => (screenFeeds[i] !== null && screenFeeds[i] !== undefined ? (l.screenCurrent ?? 0) : 0);
+    const drawn = (current: (l: SolvedLink) => number) =>
+      own.map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) - screensOf(l, i) : 0) + (screenFeeds[i] === k ? screensOf(l, i) : 0), 0));
     loads = drawn((l) => l.supplyCurrent);
     const solved = supplyAt(loads, volts);
     if (!solved.ok) return solved;
     const next = solved.nodes.map((n) => n.dc);
     const moved = volts ? Math.max(...next.map((v, k) => Math.abs(v - volts![k]!))) : Infinity;
     // The stages were solved at the nodes the supply now gives (from the first round when it started from a solution).
-    const settled = volts !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!))) <= VOLT_TOL;
+    const settled =
+      volts !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!)), ...screenVolts.map((v, i) => (v === null ? 0 : Math.abs(v - next[screenFeeds[i]!]!)))) <= VOLT_TOL;
     volts = next;
     yield;
     if (settled || moved <= VOLT_TOL / 10) {
-      if (feeds.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, feeds, loads);
+      const fed = [...feeds, ...screenFeeds.filter((k): k is number => k !== null && k !== undefined)];
+      if (fed.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, fed, loads);
       const chain = amplifierOf(placed, prepareAmplifier(placed, inPlace));
       if (!chain.ok) return chain;
       const { ok: _a, ...amp } = chain;
@@ -153,7 +200,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
         atFullPower = { volts: driven.nodes.map((n) => n.dc), loads: full };
       }
       const solvedBy = byTangent ? ('tangent' as const) : ('transient' as const);
-      const answer = { ok: true as const, amplifier: amp, supply: sup, bplus, loads, atFullPower, iterations: iteration, supplyBy: solvedBy };
+      const answer = { ok: true as const, amplifier: amp, supply: sup, bplus, screenVolts, loads, atFullPower, iterations: iteration, supplyBy: solvedBy };
       if (!input.keepTangent) return answer;
       // Along a tangent already, it stays the one to follow: it was taken at a steady state, this answer is on its line.
       if (byTangent) return { ...answer, tangent: around! };

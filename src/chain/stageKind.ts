@@ -99,8 +99,10 @@ export interface MagnetisingState {
 export interface SolvedLink {
   readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
   readonly outputDc: number;
-  /** DC current the stage draws from its B+ node, A (an output stage's screen included: it is fed from the same supply here). */
+  /** DC current the stage draws from its supply, A (an output stage's screens included). */
   readonly supplyCurrent: number;
+  /** A pentode-connected output stage's screens' share of supplyCurrent at idle, A (what a node of their own carries); absent for other stages. */
+  readonly screenCurrent?: number;
   /** For an output stage, the average current it draws driven to its own clean limit, A (what sags the supply at full power); a voltage stage leaves it out (class A: its average hardly moves). */
   readonly fullPowerCurrent?: number;
   readonly gain: number;

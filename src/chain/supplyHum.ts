@@ -33,12 +33,13 @@ export interface SupplyHum {
    */
   readonly screenPerVolt: readonly (number | null)[];
   /**
-   * The share of the stage's B+ ripple its screens see (null where
-   * screenPerVolt is): 1 fed straight from B+; through their dropper and
-   * its bypass (the parts list's: the bypass for a 10 Hz corner against
-   * the dropper beside the screens' own conductance), the RC's magnitude at
-   * the ripple's frequency; 0 on a supply node of their own above B+,
-   * which this supply does not model.
+   * The share of the ripple on the node feeding the screens that they see
+   * (null where screenPerVolt is): 1 fed straight from B+ or from a node of
+   * their own (screenFromNode); through their dropper from B+ and its
+   * bypass (the parts list's: the bypass for a 10 Hz corner against the
+   * dropper beside the screens' own conductance), the RC's magnitude at the
+   * ripple's frequency; 0 above B+ on a node no supply here names, taken as
+   * clean.
    */
   readonly screenShare: readonly (number | null)[];
 }
@@ -143,9 +144,10 @@ function screenPath(s: ChainStage, rippleHz: number): { perVolt: number; share: 
   const perVolt = outputInjection(s, solved, 'screen');
   if (perVolt === null || !Number.isFinite(perVolt)) return null;
   const { op } = solved;
-  const plan = screenFeedPlan(s.bplus, s.screenVolts, op.ig2);
+  const plan = screenFeedPlan(s.bplus, s.screenVolts, op.ig2, s.screenFromNode);
   if (plan.kind === 'from-bplus') return { perVolt, share: 1 };
-  if (plan.kind === 'own-node') return { perVolt, share: 0 };
+  // Straight from the node the supply names for them; one above B+ that it does not model is taken as clean.
+  if (plan.kind === 'own-node') return { perVolt, share: s.screenFromNode === true ? 1 : 0 };
   const g = op.feed.kind === 'fixed' ? screenConductance(s.tube, op.feed.vg2k, op.vpk, op.vgk) : 0;
   const share = 1 / ((1 + plan.ohms * g) * Math.hypot(1, rippleHz / CATHODE_BYPASS_CORNER_HZ));
   return { perVolt, share: Number.isFinite(share) ? share : 0 };
@@ -203,20 +205,26 @@ export interface HumAtOutput {
 
 /**
  * The hum each stage's ripple gives at the output (its B+'s ripple, V rms,
- * times its share per volt, plus its screens' share of that ripple times
- * theirs), and their bound. A hum without screen figures counts none.
+ * times its share per volt, plus its screens' share of the ripple on the
+ * node feeding them times theirs), and their bound. `screenRippleRms` gives
+ * that node's ripple for each stage (default: its B+ node's, where screens
+ * straight from B+ and a dropper's hang). A hum without screen figures
+ * counts none.
  */
-export function humAtOutput(hum: SupplyHum, rippleRms: readonly number[]): Result<HumAtOutput> {
+export function humAtOutput(hum: SupplyHum, rippleRms: readonly number[], screenRippleRms: readonly number[] = rippleRms): Result<HumAtOutput> {
   if (typeof hum !== 'object' || hum === null || !Array.isArray(hum.perVolt) || !Array.isArray(rippleRms) || rippleRms.length !== hum.perVolt.length) {
     return fail('invalid-input', 'Give one ripple voltage for each stage');
   }
   if (!rippleRms.every((r) => typeof r === 'number' && Number.isFinite(r) && r >= 0)) return fail('invalid-input', 'Every ripple voltage must be finite and not negative');
+  if (!(Array.isArray(screenRippleRms) && screenRippleRms.length === rippleRms.length && screenRippleRms.every((r) => typeof r === 'number' && Number.isFinite(r) && r >= 0))) {
+    return fail('invalid-input', 'Give one finite, not negative ripple voltage on the screens\' node for each stage');
+  }
   const screened = hum.screenPerVolt !== undefined || hum.screenShare !== undefined;
   if (screened && !(Array.isArray(hum.screenPerVolt) && Array.isArray(hum.screenShare) && hum.screenPerVolt.length === rippleRms.length && hum.screenShare.length === rippleRms.length)) {
     return fail('invalid-input', 'Give the screens\' figures for each stage, or none');
   }
   const usable = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
-  const screens = rippleRms.map((r, k) => {
+  const screens = screenRippleRms.map((r, k) => {
     const per = screened ? hum.screenPerVolt[k] : null;
     const share = screened ? hum.screenShare[k] : null;
     const v = usable(per) && usable(share) ? Math.abs(per * share) * r : null;

@@ -98,7 +98,7 @@ export function analyzeOutput(tube: OutputTube, design: OutputDesign, optionsGiv
   const clean = cleanLimit(s, design.zPrimary, samples);
   const full = atDrive(s, Math.max(0, -s.op.vgk), design.zPrimary, samples);
   const screenAtFull = s.op.feed.kind !== 'fixed' ? null : light ? (prev?.screenAtFull ?? null) : averageScreenCurrent(s, full.drive);
-  const screenPlan = screenFeedPlan(design.bplus, design.screenVolts, s.op.ig2);
+  const screenPlan = screenFeedPlan(design.bplus, design.screenVolts, s.op.ig2, design.screenFromNode);
   const sag = screenAtFull === null ? null : screenSagFinding(screenPlan, design.screenVolts, screenAtFull);
   // Two operating points, a small share of even the light pass: solved on every pass.
   const spreadResult = design.bias === 'cathode' ? outputSpread(s) : null;

@@ -17,6 +17,12 @@ export interface OutputDesign extends WindingInductance {
   readonly bplus: number;
   /** Screen supply to ground, V (pentode connection). */
   readonly screenVolts: number;
+  /**
+   * The screens (pentode connection) are fed straight from a supply node of
+   * their own at screenVolts, as a supply that names their node says: no
+   * dropper from B+. Absent or false: from B+, through a dropper when lower.
+   */
+  readonly screenFromNode?: boolean;
   /** Ultralinear screen tap, fraction of the primary's turns from its B+ end. */
   readonly ulTap: number;
   /** Reflected load, plate to B+, Ω. */

@@ -24,7 +24,7 @@ export function outputFindings(s: OutputSolution, peakPlateVolts: number | null)
   }
 
   if (op.feed.kind === 'fixed') {
-    const screenNode = screenSupplyFinding(design.bplus, design.screenVolts);
+    const screenNode = screenSupplyFinding(design.bplus, design.screenVolts, design.screenFromNode);
     if (screenNode) out.push(screenNode);
   }
 

@@ -58,7 +58,7 @@ export function outputPartsList(a: OutputAnalysis, series: PreferredSeries): Out
   const gridStopper = gridStopperFor(a.solution.tube.capacitances, op.gm, op.rp, design.zPrimary);
   resistors.push(resistorLine('Rst', 'grid stopper, at the socket', gridStopper.ohms, 0, series));
   if (op.feed.kind === 'fixed') {
-    const screen = screenDropperParts(screenFeedPlan(design.bplus, design.screenVolts, op.ig2), design.bplus, design.screenVolts, screenConductance(a.solution.tube, op.feed.vg2k, op.vpk, op.vgk), a.screenAtFull ?? null, series);
+    const screen = screenDropperParts(screenFeedPlan(design.bplus, design.screenVolts, op.ig2, design.screenFromNode), design.bplus, design.screenVolts, screenConductance(a.solution.tube, op.feed.vg2k, op.vpk, op.vgk), a.screenAtFull ?? null, series);
     resistors.push(...screen.resistors);
     capacitors.push(...screen.capacitors);
   }

@@ -23,9 +23,11 @@ export type ScreenFeedPlan =
  * resistor R = (B+ − Vg2)/Ig2 (Ohm's law) where the screen sits lower; its
  * voltage sags as the screen current rises under drive, which a bypass holds
  * only over a cycle (common practice). A screen at B+ needs nothing; one
- * above it (or drawing no current to drop) needs a node of its own.
+ * above it (or drawing no current to drop) needs a node of its own, and
+ * screens the supply feeds from a node of their own (`fromNode`) have one.
  */
-export function screenFeedPlan(bplus: number, screenVolts: number, amps: number): ScreenFeedPlan {
+export function screenFeedPlan(bplus: number, screenVolts: number, amps: number, fromNode = false): ScreenFeedPlan {
+  if (fromNode === true) return { kind: 'own-node' };
   if (!(Number.isFinite(bplus) && Number.isFinite(screenVolts))) return { kind: 'from-bplus' };
   if (screenVolts > bplus + SCREEN_FROM_BPLUS_VOLTS) return { kind: 'own-node' };
   const drop = bplus - screenVolts;
@@ -48,9 +50,9 @@ export function screenConductance(tube: OutputTube, vg2k: number, vpk: number, v
   return Number.isFinite(g) && g > 0 ? g : 0;
 }
 
-/** A note where the screens need a node above B+: the supply's nodes feed the plates, and no screen node is modelled. */
-export function screenSupplyFinding(bplus: number, screenVolts: number): Finding | null {
-  if (screenFeedPlan(bplus, screenVolts, 1).kind !== 'own-node') return null;
+/** A note where the screens need a node above B+ and the supply names none for them (`fromNode` false): the figures hold them there. */
+export function screenSupplyFinding(bplus: number, screenVolts: number, fromNode = false): Finding | null {
+  if (fromNode === true || screenFeedPlan(bplus, screenVolts, 1).kind !== 'own-node') return null;
   return finding('screen-supply', 'note', `The screens at ${screenVolts.toFixed(0)} V sit above B+ (${bplus.toFixed(0)} V): feed them from a supply node of their own at that voltage (the figures take it as held there; the supply here feeds the plates).`, screenVolts, bplus);
 }
 

@@ -144,7 +144,7 @@ function withScreenSag(findings: Finding[], s: PushPullSolution, full: PushPullD
   const d = s.design;
   const atFull = screensAtDrive(s, full);
   if (atFull === null) return findings;
-  const plan = screenFeedPlan(d.bplus, d.screenVolts, s.idle[0].ig2 + s.idle[1].ig2);
+  const plan = screenFeedPlan(d.bplus, d.screenVolts, s.idle[0].ig2 + s.idle[1].ig2, d.screenFromNode);
   const sag = screenSagFinding(plan, d.screenVolts, atFull);
   return sag ? bySeverity([...findings, sag]) : findings;
 }

@@ -31,7 +31,7 @@ export function pushPullFindings(s: PushPullSolution, figures: PushPullFigures |
     out.push(dissipationFinding('screen-dissipation', 'Screen', worst, r.maxScreenDissipation!, figures && worst > pg2 * 1.005 ? ` at its worst under drive (${v0(figures.worstScreen.drive)} V peak on each grid), per tube` : ' at idle, per tube'));
   }
   if (s.feed.kind === 'fixed') {
-    const screenNode = screenSupplyFinding(d.bplus, d.screenVolts);
+    const screenNode = screenSupplyFinding(d.bplus, d.screenVolts, d.screenFromNode);
     if (screenNode) out.push(screenNode);
   }
   if (s.supply > r.maxPlateVoltage) out.push(finding('plate-voltage', 'danger', `DC plate voltage ${v0(s.supply)} V exceeds the ${r.maxPlateVoltage} V rating.`, s.supply, r.maxPlateVoltage));

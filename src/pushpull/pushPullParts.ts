@@ -71,7 +71,7 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     // Both screens on one dropper and one bypass (common practice), carrying both idle currents.
     const [one, two] = s.idle;
     const g = screenConductance(s.tube, s.feed.vg2k, one.vpk, s.vgk) + screenConductance(s.tube2, s.feed.vg2k, two.vpk, s.vgk2);
-    const screen = screenDropperParts(screenFeedPlan(d.bplus, d.screenVolts, one.ig2 + two.ig2), d.bplus, d.screenVolts, g, pairScreensAtFull(a), series);
+    const screen = screenDropperParts(screenFeedPlan(d.bplus, d.screenVolts, one.ig2 + two.ig2, d.screenFromNode), d.bplus, d.screenVolts, g, pairScreensAtFull(a), series);
     resistors.push(...screen.resistors);
     capacitors.push(...screen.capacitors);
   }

@@ -1,5 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { solveOnSupply, solveOnSupplyInRounds, solveSupply, type ChainInput } from '../../src/index';
+import { analyzeOutput, findOutputTube, outputPartsList, solveOnSupply, solveOnSupplyInRounds, solveSupply, supplyHum, type ChainInput } from '../../src/index';
+import { solveOutput } from '../../src/output/solveOutput';
+import { designOf } from '../../src/chain/singleEndedKind';
+import type { SingleEndedLink } from '../../src/chain/chainTypes';
 import { amplifier, supply } from '../helpers/smallAmplifierOnSupply';
 import { expectClose } from '../helpers/expectClose';
 
@@ -103,5 +106,70 @@ describe('the amplifier on its supply, solved as one', () => {
     // Found by a fresh robustness seed: no supply at all threw.
     expect(solveOnSupply({ amplifier, supply: null as never, feeds: [0, 0, 0] })).toMatchObject({ ok: false, field: 'supply' });
     expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 3] })).toMatchObject({ ok: false, field: 'feeds' });
+  });
+});
+
+describe('a pentode output stage\'s screens on a node of their own', () => {
+  // The small amplifier's EL34 pentode-connected, its plates on the reservoir and its screens fed straight from node 2
+  // (after the 1k section), the input stage on node 3 and the follower on node 2 as well.
+  const pentode: ChainInput = { ...amplifier, stages: amplifier.stages.map((s) => (s.kind === 'single-ended-output' ? { ...s, connection: 'pentode' as const } : s)) };
+  const onNode2 = () => {
+    const r = solveOnSupply({ amplifier: pentode, supply, feeds: [2, 1, 0], screenFeeds: [null, null, 1] });
+    if (!r.ok) throw new Error(r.message);
+    return r;
+  };
+
+  it('the screens sit at their node and draw their current there; the plates\' node carries the rest (Kirchhoff\'s current law, Ohm\'s law through each section)', () => {
+    const r = onNode2();
+    const [n0, n1, n2] = r.supply.nodes.map((n) => n.dc);
+    expectClose(r.screenVolts[2]!, n1!, { abs: 0.01 }, 'screens at node 2');
+    expect(r.screenVolts.slice(0, 2)).toEqual([null, null]);
+    expectClose(r.bplus[2]!, n0!, { abs: 0.01 }, 'plates on the reservoir');
+    // The output stage alone, at the B+ and screen voltage it was solved at: its screen current is node 2's share.
+    const stage = { ...(pentode.stages[2] as SingleEndedLink), bplus: r.bplus[2]!, screenVolts: r.screenVolts[2]! };
+    const alone = solveOutput(stage.tube, designOf(stage));
+    if (!alone.ok) throw new Error(alone.message);
+    const [input, follower, out] = r.amplifier.stages;
+    expectClose(r.loads[0]!, out!.supplyCurrent - alone.op.ig2, { rel: 1e-3 }, 'the reservoir carries the cathode current less the screens\'');
+    expectClose(r.loads[1]!, follower!.supplyCurrent + alone.op.ig2, { rel: 1e-3 }, 'node 2 carries the follower and the screens');
+    expectClose(n0! - n1!, (input!.supplyCurrent + follower!.supplyCurrent + alone.op.ig2) * 1e3, { rel: 0.002 }, '1k section');
+    expectClose(n1! - n2!, input!.supplyCurrent * 10e3, { rel: 0.002 }, '10k section');
+    // Every current drawn is drawn once: the nodes' loads add to the stages' currents.
+    expectClose(r.loads.reduce((a, b) => a + b, 0), input!.supplyCurrent + follower!.supplyCurrent + out!.supplyCurrent, { rel: 1e-9 }, 'total');
+  });
+
+  it('the stage\'s parts and findings take the screens as fed from their node: no dropper from B+, no note asking for a node', () => {
+    const r = onNode2();
+    const stage = pentode.stages[2] as SingleEndedLink;
+    const design = { ...designOf({ ...stage, bplus: r.bplus[2]!, screenVolts: r.screenVolts[2]! }), tubeId: 'EL34', rg: 220e3 };
+    // Below B+, the screens would otherwise be fed through a dropper.
+    const tube = findOutputTube('EL34')!;
+    const dropped = analyzeOutput(tube, design);
+    const fed = analyzeOutput(tube, { ...design, screenFromNode: true });
+    if (!dropped.ok || !fed.ok) throw new Error('both analyse');
+    const resistors = (a: typeof fed) => outputPartsList(a, 'E24').resistors.map((l) => l.ref);
+    expect(resistors(dropped)).toContain('Rs');
+    expect(resistors(fed)).not.toContain('Rs');
+    // Above B+ with no node named, the stage asks for one; with its node named, it does not.
+    const above = { ...design, screenVolts: design.bplus + 20 };
+    const asks = (a: ReturnType<typeof analyzeOutput>) => a.ok && a.findings.some((f) => f.kind === 'screen-supply');
+    expect(asks(analyzeOutput(tube, above))).toBe(true);
+    expect(asks(analyzeOutput(tube, { ...above, screenFromNode: true }))).toBe(false);
+  });
+
+  it('the screens\' hum comes from their own node: all of its ripple reaches them', () => {
+    const r = onNode2();
+    const atNodes = { ...pentode, stages: pentode.stages.map((s, k) => (k === 2 ? { ...s, bplus: r.bplus[k]!, screenVolts: r.screenVolts[k]!, screenFromNode: true } : { ...s, bplus: r.bplus[k]! })) } as ChainInput;
+    const hum = supplyHum(atNodes, r.amplifier, 50);
+    if (!hum.ok) throw new Error(hum.message);
+    expect(hum.screenShare[2]).toBe(1);
+  });
+
+  it('refuses a screen node for a stage without screens of its own, or a node the supply does not have', () => {
+    expect(solveOnSupply({ amplifier: pentode, supply, feeds: [2, 1, 0], screenFeeds: [1, null, null] })).toMatchObject({ ok: false, field: 'screenFeeds', message: expect.stringMatching(/^Stage 1 has no screens of its own/) });
+    // The ultralinear stage's screens are on the primary's taps.
+    expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], screenFeeds: [null, null, 1] })).toMatchObject({ ok: false, field: 'screenFeeds' });
+    expect(solveOnSupply({ amplifier: pentode, supply, feeds: [2, 1, 0], screenFeeds: [null, null, 3] })).toMatchObject({ ok: false, field: 'screenFeeds' });
+    expect(solveOnSupply({ amplifier: pentode, supply, feeds: [2, 1, 0], screenFeeds: [null, 1] })).toMatchObject({ ok: false, field: 'screenFeeds' });
   });
 });

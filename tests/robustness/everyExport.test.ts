@@ -134,6 +134,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('bplusAgreement', fc.tuple(or(fc.constant('Voltage stages')), or(fc.integer({ min: 0, max: 5 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 }))), Q.bplusAgreement);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
+  // A pentode output stage's screens on a node of their own (or a screen feed that is no node, or for no screens).
+  const screenedAmplifier = { source: { rsource: 1e3 }, stages: [chainStages[0]!, { ...chainStages[2]!, connection: 'pentode', screenVolts: 280 }] };
+  const oneSection = { ...supply, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0, 0] };
+  run('solveOnSupply (screens on a node)', fc.tuple(fc.record({ amplifier: fc.constant(screenedAmplifier), supply: fc.constant(oneSection), feeds: fc.constant([1, 0]), screenFeeds: or(fc.constant([null, 1])) })), Q.solveOnSupply, 12);
   const tangentSupply = { ...supply, loads: [0.05, 0.004] } as Q.SupplyDesign;
   const solvedSupply = Q.solveSupply(tangentSupply);
   const tangent = solvedSupply.ok ? Q.supplyTangent(tangentSupply, solvedSupply) : null;
