@@ -1,5 +1,6 @@
 import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
+import { fedFrom } from '../store/supplySlice';
 import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
 
 /**
@@ -18,7 +19,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
     p.input.kind === 'choke' ? `${plain(p.input.l)} H (${ohms(p.input.rdc)}) into ${farads(p.input.c)}` : farads(p.input.c),
     ...p.sections.map((x) => `${x.kind === 'rc' ? ohms(x.r) : `${plain(x.l)} H (${ohms(x.rdc)})`} / ${farads(x.c)}`),
   ].join(' → ');
-  const feeds = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => n.title.toLowerCase());
+  const feeds = (k: number) => fedFrom(view, k).map((n) => n.title.toLowerCase());
   const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${smallVolts(n.ripplePp)} p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
   const lines = [
     `${plain(p.secondaryRms)} V rms${p.rectifier.kind === 'silicon-bridge' ? '' : ' a side'}${p.secondaryAmps !== null ? ` at ${milliamps(p.secondaryAmps)}` : ''}, ${p.regulation !== null ? `${plain(p.regulation * 100)} % regulation` : `${ohms(p.windingOhms)} winding`}, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,

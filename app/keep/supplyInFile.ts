@@ -41,6 +41,7 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   const f = raw.feeds;
   if (!isRecord(f) || !isNum(f.output) || !isNum(f.voltage)) return bad('.feeds', 'must name the output and voltage stages\' nodes', f);
   if (f.splitter !== undefined && !isNum(f.splitter)) return bad('.feeds.splitter', 'must be the phase splitter\'s node (a number), or left out', f.splitter);
+  if (f.screens !== undefined && !isNum(f.screens)) return bad('.feeds.screens', 'must be the output stage\'s screens\' node (a number), or left out', f.screens);
   const plan: SupplyPlan = {
     on: raw.on,
     mainsHz: raw.mainsHz as number,
@@ -50,7 +51,8 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
     input,
     sections,
     // A file from before the splitter had its own node feeds it from the voltage stages', as it was designed.
-    feeds: { output: f.output, voltage: f.voltage, ...(f.splitter !== undefined ? { splitter: f.splitter as number } : {}) },
+    // And from before the screens could have a node of their own hangs them from their plates' node.
+    feeds: { output: f.output, voltage: f.voltage, ...(f.splitter !== undefined ? { splitter: f.splitter as number } : {}), ...(f.screens !== undefined ? { screens: f.screens as number } : {}) },
     channels: raw.channels as number,
     // Following came after the supply itself: a file without it keeps its typed B+.
     follow: raw.follow === true,

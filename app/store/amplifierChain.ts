@@ -15,7 +15,7 @@ import {
 } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import type { BenchDesign } from './analysis';
-import { drivesPair, pushPullDesignOf } from './outputPlan';
+import { drivesPair, outputOnSupply, pushPullDesignOf } from './outputPlan';
 import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
 
 /** A stage as the chain strip names it. */
@@ -100,11 +100,11 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
         : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
-    const { tubeId: _id, rg, ...parts } = pushPullDesignOf(d.output);
+    const { tubeId: _id, rg, ...parts } = pushPullDesignOf(outputOnSupply(d, d.output));
     stages.push({ ...parts, kind: 'push-pull-output', tube: outputTube, coupling: { kind: 'capacitor', cc: sp.cc, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   } else if (outputTube) {
-    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, idleMismatch: _idle, splitter: _sp, ...parts } = d.output;
+    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, idleMismatch: _idle, splitter: _sp, ...parts } = outputOnSupply(d, d.output);
     stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   }

@@ -92,3 +92,16 @@ export function pushPullDesignOf(o: OutputPlan): PushPullDesign {
   const { pair: _pair, zPrimary: _z, splitter: _s, mismatch, idleMismatch, ...pp } = o;
   return { ...pp, mismatch: { gm: mismatch, idle: idleMismatch } };
 }
+
+/** What decides where a driven output stage's screens are fed: the supply's plan, whether the stage is driven, its connection. */
+type ScreensFedBy = { readonly supply: { readonly on: boolean; readonly feeds: { readonly screens?: number } }; readonly drivesOutput: boolean; readonly output: OutputPlan };
+
+/**
+ * True when the supply feeds the driven output stage's screens from a node
+ * of their own: the amplifier is solved on the supply, the stage is
+ * pentode-connected, and the plan names that node.
+ */
+export const screensOnNode = (d: ScreensFedBy) => d.supply.on && d.drivesOutput && d.output.connection === 'pentode' && d.supply.feeds.screens !== undefined;
+
+/** The output design with its screens marked as fed from their node when the supply feeds them (no dropper, no note asking for one). */
+export const outputOnSupply = <O extends OutputPlan>(d: ScreensFedBy, output: O): O => (screensOnNode(d) ? { ...output, screenFromNode: true } : output);

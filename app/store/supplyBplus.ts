@@ -1,6 +1,6 @@
 import { bplusAgreement, type Finding } from '../../src/index';
 import { ROLE_NAME } from './amplifierChain';
-import { nodeVoltsOf } from './supplySlice';
+import { nodeVoltsOf, screensOf } from './supplySlice';
 import { voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -8,7 +8,8 @@ import type { WorkbenchState } from './workbenchStore';
  * The stages whose B+ as designed is not what their supply node gives: a
  * warning each (the model's bplusAgreement), for the one ratings list and
  * the card. The voltage stages on one node and one typed B+ are named
- * together. Nothing while the stages' B+ follow their nodes, before the
+ * together; an output stage's screens on a node of their own are
+ * compared with that node. Nothing while the stages' B+ follow their nodes, before the
  * supply is solved, or while a new solve is on its way (a drag's frames).
  */
 export function supplyBplusFindings(s: WorkbenchState): Finding[] {
@@ -39,6 +40,12 @@ export function supplyBplusFindings(s: WorkbenchState): Finding[] {
     // Named as the ratings list names them: the voltage stages together, or each by its card; the splitter and output stage by role.
     const who = g.role === 'voltage' ? (g.who.length === gainStages ? ROLE_NAME.voltage : g.who.join(', ')) : `${ROLE_NAME[g.role]} (${g.tube})`;
     const a = bplusAgreement(who, g.node, g.held, g.supplied);
+    if (a.ok && a.finding) out.push(a.finding);
+  }
+  // Screens on a node of their own: their voltage as designed against that node's.
+  const screens = screensOf(view, r);
+  if (screens) {
+    const a = bplusAgreement(`${ROLE_NAME.output} (${screens.tube})`, screens.node, d.output.screenVolts, screens.volts, 'screens');
     if (a.ok && a.finding) out.push(a.finding);
   }
   return out;

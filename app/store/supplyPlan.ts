@@ -1,5 +1,6 @@
 import { checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
 import { chainInputOf, type ChainCardName } from './amplifierChain';
+import { screensOnNode } from './outputPlan';
 import type { BenchDesign } from './analysis';
 import type { TubeRegistry } from './tubeRegistry';
 
@@ -19,10 +20,12 @@ export interface SupplyPlan {
   readonly input: SupplyDesign['input'];
   readonly sections: readonly FilterSection[];
   /**
-   * The node (0 the reservoir, then one per section) feeding the output stage, the one feeding the voltage stages, and the
-   * one feeding a driven pair's phase splitter (absent: the voltage stages' node, as before the splitter had its own).
+   * The node (0 the reservoir, then one per section) feeding the output stage, the one feeding the voltage stages, the
+   * one feeding a driven pair's phase splitter (absent: the voltage stages' node, as before the splitter had its own),
+   * and the one feeding a pentode-connected output stage's screens straight (absent: its plates' node, through a
+   * dropper when they sit lower).
    */
-  readonly feeds: { readonly output: number; readonly voltage: number; readonly splitter?: number };
+  readonly feeds: { readonly output: number; readonly voltage: number; readonly splitter?: number; readonly screens?: number };
   /** Identical channels on the supply (2 for stereo). */
   readonly channels: number;
   /** The stages' B+ follow what their nodes deliver (set after each solve); false: the B+ are typed, and shown beside the nodes'. */
@@ -88,10 +91,10 @@ export function checkPlan(p: SupplyPlan): Failure | null {
   const problem = checkSupply(supplyDesignOf(p));
   if (problem) return problem;
   const nodes = p.sections.length + 1;
-  for (const which of ['output', 'voltage', 'splitter'] as const) {
+  for (const which of ['output', 'voltage', 'splitter', 'screens'] as const) {
     const k = p.feeds[which];
-    if (k === undefined && which === 'splitter') continue;
-    const name = which === 'splitter' ? 'phase splitter' : `${which} stage`;
+    if (k === undefined && (which === 'splitter' || which === 'screens')) continue;
+    const name = which === 'splitter' ? 'phase splitter' : which === 'screens' ? 'output stage\'s screens' : `${which} stage`;
     if (!Number.isInteger(k) || k! < 0 || k! >= nodes) return { ok: false, reason: 'invalid-input', message: `The ${name}'s node must be 1 to ${nodes}`, field: `feeds.${which}` };
   }
   if (!Number.isInteger(p.channels) || p.channels < 1 || p.channels > MAX_CHANNELS) {
@@ -117,11 +120,12 @@ export function withSplitterFed(p: SupplyPlan): SupplyPlan {
   return { ...p, feeds: { ...p.feeds, splitter: before > p.feeds.output ? before : p.feeds.voltage } };
 }
 
-/** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node. */
+/** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node, and the output stage's screens from theirs. */
 export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
   const chain = chainInputOf(d, registry);
   if (!chain) return null;
   const p = d.supply;
   const feeds = chain.names.map((n) => nodeOf(p, n.role));
-  return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, channels: p.channels }, names: chain.names };
+  const screens = screensOnNode(d) ? { screenFeeds: chain.names.map((n) => (n.role === 'output' ? p.feeds.screens! : null)) } : {};
+  return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, ...screens, channels: p.channels }, names: chain.names };
 }

@@ -14,6 +14,8 @@ export interface SupplyView {
   /** The chain's stages, in order, and the node each draws from. */
   readonly names: readonly ChainCardName[];
   readonly feeds: readonly number[];
+  /** The node feeding each stage's screens straight (a pentode output stage's, when the plan names one), else null. */
+  readonly screenFeeds: readonly (number | null)[];
   readonly bleeder: Result<Bleeder> | null;
   /** The supply's parts to order (filter capacitors, resistors, chokes, bleeder, rectifier), when it was solved. */
   readonly parts: Result<SupplyParts> | null;
@@ -50,6 +52,21 @@ export function nodeVoltsOf(view: SupplyView, r: AmplifierOnSupplyResult, i: num
   return r.supply.nodes[view.feeds[i]!]?.dc ?? r.bplus[i]!;
 }
 
+/** What node k feeds, as the table and drawing name it: its stages, then any output stage's screens on it ("Output screens"). */
+export function fedFrom(view: SupplyView, k: number): { readonly title: string; readonly tube: string }[] {
+  const stages = view.names.filter((_, i) => view.feeds[i] === k);
+  const screens = view.names.filter((_, i) => view.screenFeeds[i] === k).map((n) => ({ title: `${n.title} screens`, tube: n.tube }));
+  return [...stages, ...screens];
+}
+
+/** Where the supply feeds the output stage's screens from their own node: which node, and what it gives under the whole amplifier's current (its own DC), V; null otherwise. */
+export function screensOf(view: SupplyView, r: AmplifierOnSupplyResult): { node: number; volts: number; tube: string } | null {
+  const i = view.screenFeeds.findIndex((k) => k !== null);
+  if (i < 0) return null;
+  const node = view.screenFeeds[i]!;
+  return { node, volts: r.supply.nodes[node]?.dc ?? r.screenVolts[i] ?? 0, tube: view.names[i]!.tube };
+}
+
 /** The bench's B+ that the supply's solution gives (rounded to the volt, as B+ is typed), or null where it says nothing. */
 export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | null {
   const r = view.result;
@@ -62,9 +79,12 @@ export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | n
   const v = at('voltage');
   const o = at('output');
   const sp = at('splitter');
+  const sc = screensOf(view, r);
+  const screens = sc !== null ? Math.round(sc.volts) : null;
   const voltage = v !== null ? withVoltageBplus(d, v) : d;
   const splitter = sp !== null && sp !== d.output.splitter.bplus ? { ...d.output.splitter, bplus: sp } : d.output.splitter;
-  return o !== null || splitter !== d.output.splitter ? { ...voltage, output: { ...d.output, ...(o !== null ? { bplus: o } : {}), splitter } } : voltage;
+  const output = { ...d.output, ...(o !== null ? { bplus: o } : {}), ...(screens !== null ? { screenVolts: screens } : {}), splitter };
+  return o !== null || screens !== null || splitter !== d.output.splitter ? { ...voltage, output } : voltage;
 }
 
 /** The plan's values that have boxes, by path, with how each is shown. */
@@ -174,7 +194,12 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
       const last = p.sections.length - 1;
       // A stage fed from a node that goes moves to the node before it.
       const node = (k: number) => (k > index ? k - 1 : k);
-      const feeds = { output: Math.min(node(p.feeds.output), last), voltage: Math.min(node(p.feeds.voltage), last), ...(p.feeds.splitter !== undefined ? { splitter: Math.min(node(p.feeds.splitter), last) } : {}) };
+      const feeds = {
+        output: Math.min(node(p.feeds.output), last),
+        voltage: Math.min(node(p.feeds.voltage), last),
+        ...(p.feeds.splitter !== undefined ? { splitter: Math.min(node(p.feeds.splitter), last) } : {}),
+        ...(p.feeds.screens !== undefined ? { screens: Math.min(node(p.feeds.screens), last) } : {}),
+      };
       const plan = { ...p, sections: p.sections.filter((_, i) => i !== index), feeds };
       if (tryPlan(plan, 'supply')) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
     },
@@ -204,16 +229,22 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   const bleeder = bleederOf(d, r);
   const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
   const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
-  return { result: r, names: chain.names, feeds: chain.input.feeds, bleeder, parts, hum: r.ok ? humOf(chain.input, r) : null, stale };
+  const screenFeeds = chain.input.screenFeeds ?? chain.names.map(() => null);
+  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOf(chain.input, r) : null, stale };
 }
 
 /** Each stage's share of the hum at the output: the amplifier at its nodes' B+, each stage's node's ripple (a pentode output stage's screens take theirs from the same node). */
 function humOf(input: AmplifierOnSupply, r: AmplifierOnSupplyResult): Result<HumAtOutput> {
   const amp = input.amplifier;
-  const atNodes = { ...amp, stages: amp.stages.map((st, k) => ({ ...st, bplus: r.bplus[k] ?? st.bplus })) };
+  const atNodes = { ...amp, stages: amp.stages.map((st, k) => {
+    const vs = r.screenVolts[k];
+    return vs !== null && vs !== undefined && 'screenVolts' in st ? { ...st, bplus: r.bplus[k] ?? st.bplus, screenVolts: vs, screenFromNode: true } : { ...st, bplus: r.bplus[k] ?? st.bplus };
+  }) };
   const perVolt = supplyHum(atNodes, r.amplifier, input.supply.mainsHz);
   if (!perVolt.ok) return perVolt;
-  return humAtOutput(perVolt, input.feeds.map((node) => r.supply.nodes[node]?.rippleRms ?? 0));
+  const ripple = (node: number | null | undefined) => (node === null || node === undefined ? null : (r.supply.nodes[node]?.rippleRms ?? 0));
+  const plates = input.feeds.map((node) => ripple(node)!);
+  return humAtOutput(perVolt, plates, input.feeds.map((node, k) => ripple(input.screenFeeds?.[k]) ?? plates[k]!));
 }
 
 /** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */
@@ -259,7 +290,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         const far = (a: number, b: number) => Math.abs(a - b) > 1;
         const bplusOf = (p: BenchDesign['before'][number]) => (p.kind === 'common-cathode' ? p.bplus : null);
         const moved = (a: BenchDesign['before'], b: BenchDesign['before']) => a.some((p, i) => p !== b[i] && (bplusOf(p) === null || bplusOf(b[i]!) === null || far(bplusOf(p)!, bplusOf(b[i]!)!)));
-        if (next && (far(next.bplus, d.bplus) || far(next.output.bplus, d.output.bplus) || far(next.output.splitter.bplus, d.output.splitter.bplus) || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
+        if (next && (far(next.bplus, d.bplus) || far(next.output.bplus, d.output.bplus) || far(next.output.screenVolts, d.output.screenVolts) || far(next.output.splitter.bplus, d.output.splitter.bplus) || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
       });
     }, SUPPLY_SETTLE_MS);
   };

@@ -6,7 +6,8 @@ import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { DEMO_SUPPLY, onSupplyInputOf } from '../../app/store/supplyPlan';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
-import { solveOnSupply, supplyHum } from '../../src/index';
+import { findOutputTube, solveOnSupply, supplyHum } from '../../src/index';
+import { solveOutput } from '../../src/output/solveOutput';
 import { LIBRARY_TUBES } from '../../app/store/tubeRegistry';
 
 /** The workbench with the supply solved in place (the page uses a Web Worker; jsdom has none). */
@@ -177,8 +178,67 @@ describe('the B+ supply on the bench', () => {
     expect(view.hum.screens[out]!).toBeGreaterThan(0.8 * view.hum.volts[out]!);
     const line = panel.getByTestId('supply-hum').textContent!;
     expect(line).toMatch(/Output \(EL34\) [\d.]+ (µV|mV) \(its screens [\d.]+ (µV|mV)\)/);
-    expect(line).toMatch(/screens take the ripple of its B\+ node/);
+    expect(line).toMatch(/screens take the ripple of the node feeding them/);
     expect(line).not.toMatch(/screen supply is taken as clean/);
+  });
+
+  it('feeds a pentode output stage\'s screens from a node of their own: drawn there, no dropper, compared with the node, saved in the file', async () => {
+    const { store, panel } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });
+    // Ultralinear screens are on the primary's taps: nothing to choose.
+    expect(panel.queryByRole('combobox', { name: 'Output screens from' })).toBeNull();
+    act(() => {
+      expect(store.getState().changeOutput({ connection: 'pentode' })).toBeNull();
+    });
+    // The demo's screens at 300 V from its 330 V B+: through a dropper, on the build sheet.
+    await waitFor(() => expect(screen.getAllByText(/screen dropper from B\+/).length).toBeGreaterThan(0), { timeout: 5000 });
+    fireEvent.change(panel.getByRole('combobox', { name: 'Output screens from' }), { target: { value: '2' } });
+    expect(store.getState().design.supply.feeds.screens).toBe(2);
+    await waitFor(() => {
+      const v = store.getState().supplyView;
+      expect(v && !v.stale && v.result.ok && v.screenFeeds.includes(2)).toBe(true);
+    }, { timeout: 5000 });
+    const view = store.getState().supplyView!;
+    if (!view.result.ok || !view.hum?.ok) throw new Error('solved');
+    const r = view.result;
+    const out = view.names.length - 1;
+    // Node 3 feeds the screens alone: its load is their current, the EL34 solved at the B+ and screen voltage the supply gave.
+    const design = { ...store.getState().design.output, bplus: r.bplus[out]!, screenVolts: r.screenVolts[out]! };
+    const alone = solveOutput(findOutputTube('EL34')!, design);
+    if (!alone.ok) throw new Error(alone.message);
+    expect(r.screenVolts[out]).toBeCloseTo(r.supply.nodes[2]!.dc, 1);
+    expect(r.loads[2]!).toBeCloseTo(alone.op.ig2, 6);
+    expect(document.querySelector('tr[data-node="3"]')!.textContent).toContain('Output screens (EL34)');
+    // No dropper now: the screens hang straight from their node.
+    expect(screen.queryAllByText(/screen dropper from B\+/)).toHaveLength(0);
+    // Their hum comes from node 3's ripple, all of it.
+    const input = onSupplyInputOf(store.getState().design, LIBRARY_TUBES)!.input;
+    const atNodes = { ...input.amplifier, stages: input.amplifier.stages.map((st, k) => (k === out ? { ...st, bplus: r.bplus[k]!, screenVolts: r.screenVolts[k]!, screenFromNode: true } : { ...st, bplus: r.bplus[k]! })) } as typeof input.amplifier;
+    const hum = supplyHum(atNodes, r.amplifier, 50);
+    if (!hum.ok) throw new Error(hum.message);
+    expect(hum.screenShare[out]).toBe(1);
+    expect(view.hum.screens[out]).toBeCloseTo(Math.abs(hum.screenPerVolt[out]!) * r.supply.nodes[2]!.rippleRms, 12);
+    // The screens as designed against their node: a line under the table, and a warning past 5 %.
+    expect(panel.getByText(/^Output stage's screens: node 3 gives/).textContent).toBe(`Output stage's screens: node 3 gives ${nodeDc(3)} under load; the bench holds 300 V.`);
+    const off = Math.abs(r.supply.nodes[2]!.dc - 300) / 300 > 0.05;
+    expect(screen.queryAllByText(/designed for screens at 300 V/).length > 0).toBe(off);
+    // The card names what node 3 feeds; the file keeps the screens' node, and a file without it hangs them from their plates' node.
+    expect(cardSections(store.getState()).find((c) => c.heading === 'B+ supply')!.lines.some((l) => /3: [\d.]+ V, [^;]*\(output screens\)/.test(l))).toBe(true);
+    const text = writeDesignFile({ title: 't', design: store.getState().design });
+    const file = readDesignFile(text);
+    expect(file.ok && file.doc.design.supply.feeds.screens).toBe(2);
+    const old = JSON.parse(text);
+    delete old.design.supply.feeds.screens;
+    const before = readDesignFile(JSON.stringify(old));
+    expect(before.ok && before.doc.design.supply.feeds).toEqual({ output: 1, voltage: 3 });
+    old.design.supply.feeds.screens = 'node 3';
+    expect(readDesignFile(JSON.stringify(old))).toMatchObject({ ok: false, message: expect.stringContaining('.feeds.screens must be the output stage\'s screens\' node') });
+    // Taking the supply's voltages onto the bench sets the screens' too.
+    act(() => store.getState().useSupplyVolts());
+    expect(store.getState().design.output.screenVolts).toBe(Math.round(r.supply.nodes[2]!.dc));
+    // Back to the plates' node.
+    fireEvent.change(panel.getByRole('combobox', { name: 'Output screens from' }), { target: { value: '' } });
+    expect(store.getState().design.supply.feeds.screens).toBeUndefined();
   });
 
   it('the demo\'s supply delivers the demo\'s B+; a higher secondary does not, and its B+ can be taken onto the bench', async () => {

@@ -131,7 +131,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   it('bplusAgreement refuses a B+ as designed too small to compare with', () => keepsPromise('bplusAgreement', () => Q.bplusAgreement('Voltage stages', 0, 1e-307, 0.18), []));
   const lowPass = (f: number) => [1 / (1 + (f / 1e4) ** 2), -(f / 1e4) / (1 + (f / 1e4) ** 2)] as const;
   run('squareWave', fc.tuple(fc.oneof(fc.constant(lowPass), fc.constant(() => [Number.NaN, 0]), anything), numbers, fc.oneof(fc.constant([1, 0]), fc.array(numbers, { maxLength: 3 }), anything)), Q.squareWave, 100);
-  run('bplusAgreement', fc.tuple(or(fc.constant('Voltage stages')), or(fc.integer({ min: 0, max: 5 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 }))), Q.bplusAgreement);
+  run('bplusAgreement', fc.tuple(or(fc.constant('Voltage stages')), or(fc.integer({ min: 0, max: 5 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), fc.oneof(fc.constant('B+'), fc.constant('screens'), anything)), Q.bplusAgreement);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
   // A pentode output stage's screens on a node of their own (or a screen feed that is no node, or for no screens).

@@ -17,6 +17,13 @@ describe('a stage\'s B+ as designed against what its node gives', () => {
     expect(high.ok && high.finding?.message).toMatch(/^Output stage \(EL34\): designed for B\+ 275 V, but node 2 gives 300 V under load \(9 % more: more current and dissipation than the ratings checked here\)/);
   });
 
+  it('an output stage\'s screens on a node of their own, compared the same way and named as screens', () => {
+    // 320 V for screens designed at 300 V: 6.7 % high.
+    const screens = bplusAgreement('Output stage (EL34)', 2, 300, 320, 'screens');
+    expect(screens.ok && screens.finding?.message).toBe('Output stage (EL34): designed for screens at 300 V, but node 3 gives 320 V under load (7 % more: more current and dissipation than the ratings checked here). Every figure and rating check for them is at 300 V: design them for the node\'s voltage, or change the supply.');
+    expect(bplusAgreement('Output stage (EL34)', 2, 300, 310, 'screens')).toEqual({ ok: true, finding: null });
+  });
+
   it('refuses what it cannot compare, naming the value', () => {
     expect(bplusAgreement('', 0, 275, 270)).toMatchObject({ ok: false, field: 'who' });
     expect(bplusAgreement('x', -1, 275, 270)).toMatchObject({ ok: false, field: 'node' });

@@ -39,7 +39,7 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
       <span className="supply-hum-why">
         {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
         {uncounted ? ' Not counted: a phase splitter\u2019s and a push-pull pair\u2019s own (common mode, which a matched pair cancels to first order).' : ''}
-        {screened ? ' A pentode output stage\u2019s screens take the ripple of its B+ node, straight or through their dropper and its bypass (a screen moves the plate current many times harder than the plate does, so filter it well); screens on a node of their own above B+ are taken as clean.' : ''}
+        {screened ? ' A pentode output stage\u2019s screens take the ripple of the node feeding them, straight (their plates\u2019 node, or the one named for them) or through their dropper and its bypass: a screen moves the plate current many times harder than the plate does, so filter it well. Screens above B+ on a node this supply does not feed are taken as clean.' : ''}
       </span>
     </p>
   );

@@ -23,6 +23,8 @@ export function SupplyPanel() {
   const removeSection = useWorkbench((s) => s.removeSection);
   const error = useWorkbench((s) => s.supplyErrors.supply);
   const pairDriven = useWorkbench((s) => drivesPair(s.design));
+  // A driven pentode-connected output stage's screens may hang from a node of their own.
+  const screensFed = useWorkbench((s) => s.design.drivesOutput && s.design.output.connection === 'pentode');
   const id = useId();
   const nodes = plan.sections.length + 1;
   const nodeOptions = Array.from({ length: nodes }, (_, k) => <option key={k} value={k}>{k === 0 ? 'node 1 (reservoir)' : `node ${k + 1}`}</option>);
@@ -119,6 +121,22 @@ export function SupplyPanel() {
               <span>
                 <label htmlFor={`${id}-fs`}>Phase splitter from</label>
                 <select id={`${id}-fs`} value={nodeOf(plan, 'splitter')} onChange={(e) => setSupply({ feeds: { ...plan.feeds, splitter: Number(e.target.value) } })}>{nodeOptions}</select>
+              </span>
+            ) : null}
+            {screensFed ? (
+              <span>
+                <label htmlFor={`${id}-fg2`}>Output screens from</label>
+                <select
+                  id={`${id}-fg2`}
+                  value={plan.feeds.screens ?? ''}
+                  onChange={(e) => {
+                    const { screens: _old, ...rest } = plan.feeds;
+                    setSupply({ feeds: e.target.value === '' ? rest : { ...rest, screens: Number(e.target.value) } });
+                  }}
+                >
+                  <option value="">the plates' node (a dropper when lower)</option>
+                  {nodeOptions}
+                </select>
               </span>
             ) : null}
             <span>

@@ -3,7 +3,7 @@ import { farads, milliamps, ohms, plain, smallAmps, smallVolts, volts, watts } f
 import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
-import { nodeVoltsOf } from '../../store/supplySlice';
+import { fedFrom, nodeVoltsOf, screensOf } from '../../store/supplySlice';
 import { SupplyWaves } from './SupplyWaves';
 
 const SAME_BPLUS_SHARE = 0.01;
@@ -17,10 +17,11 @@ const SAME_BPLUS_SHARE = 0.01;
 export function SupplyResults() {
   const view = useWorkbench((s) => s.supplyView);
   const plan = useWorkbench((s) => s.design.supply);
-  // The three B+ only (voltage stages, splitter, output stage): the whole design changes on every drag frame, and this table need not follow it.
+  // The three B+ only (voltage stages, splitter, output stage) and the screens': the whole design changes on every drag frame, and this table need not follow it.
   const voltageBplus = useWorkbench((s) => s.design.bplus);
   const outputBplus = useWorkbench((s) => s.design.output.bplus);
   const splitterBplus = useWorkbench((s) => s.design.output.splitter.bplus);
+  const screenVolts = useWorkbench((s) => s.design.output.screenVolts);
   const useVolts = useWorkbench((s) => s.useSupplyVolts);
   const setSupply = useWorkbench((s) => s.setSupply);
   if (!plan.on) return <div className="supply-results"><p className="field-hint">Not solved: tick “Solve the amplifier on this supply” to see every node’s B+ and ripple.</p></div>;
@@ -36,10 +37,13 @@ export function SupplyResults() {
   const sup = r.supply;
   const full = r.atFullPower;
   const caps = [plan.input.c, ...plan.sections.map((s) => s.c)];
-  const feeding = (k: number) => view.names.filter((_, i) => view.feeds[i] === k).map((n) => `${n.title} (${n.tube})`);
+  const feeding = (k: number) => fedFrom(view, k).map((n) => `${n.title} (${n.tube})`);
   const held = { voltage: voltageBplus, splitter: splitterBplus, output: outputBplus };
   // One line a role: the voltage stages share their node; a driven pair's splitter has its own B+ and node.
-  const offBy = view.names.map((n, i) => ({ n, node: view.feeds[i]!, supply: nodeVoltsOf(view, r, i), bench: held[n.role] })).filter((x, i, all) => all.findIndex((y) => y.n.role === x.n.role) === i);
+  const byRole = view.names.map((n, i) => ({ key: n.role as string, who: ROLE_NAME[n.role], node: view.feeds[i]!, supply: nodeVoltsOf(view, r, i), bench: held[n.role] })).filter((x, i, all) => all.findIndex((y) => y.key === x.key) === i);
+  // Screens on a node of their own are held at a voltage of their own.
+  const screens = screensOf(view, r);
+  const offBy = screens ? [...byRole, { key: 'screens', who: `${ROLE_NAME.output}'s screens`, node: screens.node, supply: screens.volts, bench: screenVolts }] : byRole;
   // Within 1 % is as close as the parts and the mains hold it (common practice: mains ±10 %, resistors ±5 %).
   const differs = offBy.some((x) => Math.abs(x.supply - x.bench) > SAME_BPLUS_SHARE * x.supply);
   const b = view.bleeder;
@@ -96,8 +100,8 @@ export function SupplyResults() {
       <div className="supply-bplus">
         <ul>
           {offBy.map((x) => (
-            <li key={x.n.role}>
-              {ROLE_NAME[x.n.role]}: node {x.node + 1} gives <strong>{volts(x.supply)}</strong> under load; the bench holds {volts(x.bench)}.
+            <li key={x.key}>
+              {x.who}: node {x.node + 1} gives <strong>{volts(x.supply)}</strong> under load; the bench holds {volts(x.bench)}.
             </li>
           ))}
         </ul>

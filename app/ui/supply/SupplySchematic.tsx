@@ -1,6 +1,7 @@
 import { farads, ohms, plain } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { SupplyPlan } from '../../store/supplyPlan';
+import { fedFrom } from '../../store/supplySlice';
 
 const STEP = 118;
 const TOP = 46;
@@ -44,12 +45,11 @@ const rectifierText = (p: SupplyPlan) => (p.rectifier.kind === 'tube' ? p.rectif
  */
 export function SupplySchematic() {
   const p = useWorkbench((s) => s.design.supply);
-  const names = useWorkbench((s) => s.supplyView?.names ?? null);
-  const feeds = useWorkbench((s) => s.supplyView?.feeds ?? null);
+  const view = useWorkbench((s) => s.supplyView);
   const nodes = p.sections.length + 1;
   const width = LEFT + nodes * STEP + 40;
   const nodeX = (k: number) => LEFT + 40 + k * STEP;
-  const feeding = (k: number) => (names && feeds ? names.filter((_, i) => feeds[i] === k).map((n) => n.title) : []);
+  const feeding = (k: number) => (view ? fedFrom(view, k).map((n) => n.title) : []);
   return (
     <svg className="supply-schematic" viewBox={`0 0 ${width} 150`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
       <g stroke={INK} fill="none" strokeWidth={1.4}>
