@@ -12,7 +12,7 @@ import { midbandGain } from './midbandGain';
 import type { LinkSample, StageKind } from './stageKind';
 
 /** The pair's own design record, each grid's resistor being the coupling's grid leak. */
-function designOf(s: PushPullLink): PushPullDesign {
+export function pairDesignOf(s: PushPullLink): PushPullDesign {
   const { kind: _kind, tube, coupling, ...parts } = s;
   // The tube's own check names a missing tube; its id is not read from nothing first.
   const id = typeof tube === 'object' && tube !== null ? tube.id : '';
@@ -41,10 +41,10 @@ function plateResistance(s: PushPullSolution): number {
  */
 export const pushPullKind: StageKind<PushPullLink> = {
   kind: 'push-pull-output',
-  check: (s) => checkCoupling(s.coupling, false) ?? checkPushPull(s.tube, designOf(s)),
+  check: (s) => checkCoupling(s.coupling, false) ?? checkPushPull(s.tube, pairDesignOf(s)),
   inputImpedance: (s) => couplingImpedance(s.coupling),
   solve(s, env) {
-    const design = designOf(s);
+    const design = pairDesignOf(s);
     const solved = solvePushPull(s.tube, design);
     if (!solved.ok) return solved;
     const instant = pushPullInstant(solved);

@@ -2,11 +2,14 @@ import { fail, type Result } from '../result';
 import { shown } from '../shown';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
 import { CATHODE_BYPASS_CORNER_HZ } from '../output/outputParts';
-import { screenConductance, screenFeedPlan } from '../output/screenFeed';
+import { screenConductance, screenFeedPlan, type ScreenFeedPlan } from '../output/screenFeed';
 import { smallSignalAt } from '../tube/triode';
 import { korenPentodeInto } from '../tube/pentode';
-import type { ChainInput, ChainResult, ChainStage, SingleEndedLink } from './chainTypes';
+import { pushPullInstant } from '../pushpull/pushPullDrive';
+import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
+import type { ChainInput, ChainResult, ChainStage, PushPullLink, SingleEndedLink } from './chainTypes';
 import { designOf } from './singleEndedKind';
+import { pairDesignOf } from './pushPullKind';
 import { checkChain } from './prepareAmplifier';
 
 /**
@@ -18,18 +21,20 @@ import { checkChain } from './prepareAmplifier';
 export interface SupplyHum {
   /**
    * Output volts per volt of ripple on each stage's B+ (at the speaker for
-   * an output stage), its screens held. Null where a stage's own injection
-   * is not modelled: a phase splitter and a push-pull pair (common mode,
-   * which a matched pair cancels to first order). Ripple that enters before
-   * them is carried through them as signal.
+   * an output stage), its screens held. A push-pull pair's is what its
+   * mismatch leaves of the ripple on its centre tap (a matched pair's is
+   * nothing). Null where a stage's own injection is not modelled: a phase
+   * splitter (its two outputs' difference). Ripple that enters before it is
+   * carried through it as signal.
    */
   readonly perVolt: readonly (number | null)[];
   /**
-   * A pentode-connected single-ended output stage's screens: output volts
-   * per volt of ripple on the screens themselves (the plate's B+ held),
-   * signed; null for every other stage (a triode has none, an ultralinear
-   * screen's tap is in perVolt). A screen moves the plate current about
-   * μg1g2/μ times as hard as the plate does, so its share dominates.
+   * A pentode-connected output stage's screens (single-ended, or a pair's
+   * through its mismatch): output volts per volt of ripple on the screens
+   * themselves (the plate's B+ held), signed; null for every other stage (a
+   * triode has none, an ultralinear screen's tap is in perVolt). A screen
+   * moves the plate current many times harder than the plate does, so a
+   * single-ended stage's screens dominate its share.
    */
   readonly screenPerVolt: readonly (number | null)[];
   /**
@@ -66,7 +71,37 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
     const solved = solveOutput(s.tube, designOf(s));
     return solved.ok ? outputInjection(s, solved, 'bplus') : null;
   }
+  if (s.kind === 'push-pull-output') {
+    const solved = solvePushPull(s.tube, pairDesignOf(s));
+    return solved.ok ? pairInjection(s, solved, 'bplus') : null;
+  }
   return null;
+}
+
+/**
+ * A push-pull pair's own share: the ripple on the centre tap (or, `from`
+ * 'screen', on pentode-connected screens), the cathodes held, the grids at
+ * their bias. The pair is solved at its idle instant with that supply moved
+ * a little either way (pushPullInstant, the transformer coupling the two
+ * tubes' currents, the core's idle imbalance kept): the winding answers
+ * only to what the two tubes do differently, so a matched pair gives
+ * nothing and a mismatched one its difference. Read at the speaker, phased
+ * as the stage's gain.
+ */
+function pairInjection(s: PushPullLink, solved: PushPullSolution, from: 'bplus' | 'screen'): number | null {
+  const feed = solved.feed;
+  if (from === 'screen' && feed.kind !== 'fixed') return null;
+  const h = 1e-3 * Math.max(1, solved.supply);
+  const winding = (dv: number) => {
+    const moved: PushPullSolution =
+      from === 'screen' && feed.kind === 'fixed'
+        ? { ...solved, feed: { ...feed, vg2k: feed.vg2k + dv } }
+        : { ...solved, supply: solved.supply + dv, feed: feed.kind === 'tap' ? { ...feed, supply: feed.supply + dv } : feed };
+    return pushPullInstant(moved).solve(solved.vgk, solved.vgk2);
+  };
+  const ratio = Math.sqrt(s.speakerOhms / (s.raa / 4));
+  const perVolt = (-(winding(h) - winding(-h)) / (2 * h)) * ratio;
+  return Number.isFinite(perVolt) ? perVolt : null;
 }
 
 /**
@@ -138,19 +173,36 @@ function outputInjection(s: SingleEndedLink, solved: OutputSolution, from: 'bplu
  * a node of their own.
  */
 function screenPath(s: ChainStage, rippleHz: number): { perVolt: number; share: number } | null {
-  if (s.kind !== 'single-ended-output' || s.connection !== 'pentode') return null;
-  const solved = solveOutput(s.tube, designOf(s));
-  if (!solved.ok) return null;
-  const perVolt = outputInjection(s, solved, 'screen');
+  if ((s.kind !== 'single-ended-output' && s.kind !== 'push-pull-output') || s.connection !== 'pentode') return null;
+  let perVolt: number | null;
+  let plan: ScreenFeedPlan;
+  let g: number;
+  if (s.kind === 'single-ended-output') {
+    const solved = solveOutput(s.tube, designOf(s));
+    if (!solved.ok) return null;
+    const { op } = solved;
+    perVolt = outputInjection(s, solved, 'screen');
+    plan = screenFeedPlan(s.bplus, s.screenVolts, op.ig2, s.screenFromNode);
+    g = op.feed.kind === 'fixed' ? screenConductance(s.tube, op.feed.vg2k, op.vpk, op.vgk) : 0;
+  } else {
+    const solved = solvePushPull(s.tube, pairDesignOf(s));
+    if (!solved.ok || solved.feed.kind !== 'fixed') return null;
+    const [one, two] = solved.idle;
+    perVolt = pairInjection(s, solved, 'screen');
+    plan = screenFeedPlan(s.bplus, s.screenVolts, one.ig2 + two.ig2, s.screenFromNode);
+    g = screenConductance(solved.tube, solved.feed.vg2k, one.vpk, solved.vgk) + screenConductance(solved.tube2, solved.feed.vg2k, two.vpk, solved.vgk2);
+  }
   if (perVolt === null || !Number.isFinite(perVolt)) return null;
-  const { op } = solved;
-  const plan = screenFeedPlan(s.bplus, s.screenVolts, op.ig2, s.screenFromNode);
-  if (plan.kind === 'from-bplus') return { perVolt, share: 1 };
+  return { perVolt, share: screenShareOf(plan, g, rippleHz, s.screenFromNode === true) };
+}
+
+/** The share of their feed node's ripple the screens see (SupplyHum.screenShare) for their feed plan and conductance g. */
+function screenShareOf(plan: ScreenFeedPlan, g: number, rippleHz: number, fromNode: boolean): number {
+  if (plan.kind === 'from-bplus') return 1;
   // Straight from the node the supply names for them; one above B+ that it does not model is taken as clean.
-  if (plan.kind === 'own-node') return { perVolt, share: s.screenFromNode === true ? 1 : 0 };
-  const g = op.feed.kind === 'fixed' ? screenConductance(s.tube, op.feed.vg2k, op.vpk, op.vgk) : 0;
+  if (plan.kind === 'own-node') return fromNode ? 1 : 0;
   const share = 1 / ((1 + plan.ohms * g) * Math.hypot(1, rippleHz / CATHODE_BYPASS_CORNER_HZ));
-  return { perVolt, share: Number.isFinite(share) ? share : 0 };
+  return Number.isFinite(share) ? share : 0;
 }
 
 /**

@@ -182,6 +182,43 @@ describe('the B+ supply on the bench', () => {
     expect(line).not.toMatch(/screen supply is taken as clean/);
   });
 
+  it('counts a push-pull pair\'s own hum: nothing for a matched pair, what a mismatch leaves of its centre tap\'s ripple', async () => {
+    const { store, panel } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });
+    act(() => store.getState().setOutputPair('push-pull'));
+    const settled = async () => {
+      await waitFor(() => {
+        const v = store.getState().supplyView;
+        expect(v && !v.stale && v.hum?.ok && v.names.some((n) => n.role === 'splitter')).toBe(true);
+      }, { timeout: 5000 });
+      const v = store.getState().supplyView!;
+      if (!v.result.ok || !v.hum?.ok) throw new Error('solved');
+      return { v, r: v.result, hum: v.hum, out: v.names.length - 1 };
+    };
+    const matched = await settled();
+    expect(matched.hum.volts[matched.out]).toBeLessThan(1e-12);
+    let line = panel.getByTestId('supply-hum').textContent!;
+    expect(line).toMatch(/Output \(EL34\) 0 µV/);
+    expect(line).toMatch(/Not counted: a phase splitter’s own/);
+    expect(line).toMatch(/A push-pull pair’s own is what its mismatch leaves/);
+    // A 5 % mismatch: the pair's share is its hum per volt (the model apart) times its node's ripple.
+    act(() => {
+      expect(store.getState().changeOutput({ mismatch: 0.05 })).toBeNull();
+    });
+    await waitFor(() => {
+      const h = store.getState().supplyView?.hum;
+      expect(h?.ok === true && (h.volts.at(-1) ?? 0) > 0).toBe(true);
+    }, { timeout: 5000 });
+    const { v, r, hum, out } = await settled();
+    const input = onSupplyInputOf(store.getState().design, LIBRARY_TUBES)!.input;
+    const perVolt = supplyHum({ ...input.amplifier, stages: input.amplifier.stages.map((st, k) => ({ ...st, bplus: r.bplus[k]! })) }, r.amplifier, 50);
+    if (!perVolt.ok) throw new Error(perVolt.message);
+    expect(hum.volts[out]).toBeCloseTo(Math.abs(perVolt.perVolt[out]!) * r.supply.nodes[v.feeds[out]!]!.rippleRms, 12);
+    expect(hum.volts[out]!).toBeGreaterThan(0);
+    line = panel.getByTestId('supply-hum').textContent!;
+    expect(line).not.toMatch(/Output \(EL34\) 0 µV/);
+  });
+
   it('feeds a pentode output stage\'s screens from a node of their own: drawn there, no dropper, compared with the node, saved in the file', async () => {
     const { store, panel } = bench();
     await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });

@@ -78,6 +78,18 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
     return fc.tuple(fc.oneof(fc.constant(chain), near(chain)), fc.oneof(fc.constant(solved), near(solved)), fc.oneof(fc.constant(60), numbers));
   };
   run('supplyHum (pentode screens)', fc.oneof(onScreens(output.bplus), onScreens(output.bplus - 60)), Q.supplyHum, 100);
+  // A push-pull pair behind its splitter, mismatched, its screens pentode-connected.
+  const pairChain = {
+    source: { rsource: 600 },
+    stages: [
+      chainStages[0]!,
+      { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+      { kind: 'push-pull-output', tube: el34, connection: 'pentode', bplus: 420, screenVolts: 400, ulTap: 0.4, raa: 6600, rPrimary: 180, bias: 'fixed', rk: 1, vg: -36, speakerOhms: 8, thdLimit: 0.05, mismatch: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } },
+    ],
+  };
+  const pairSolved = Q.solveChain(pairChain as Q.ChainInput);
+  if (!pairSolved.ok) throw new Error(pairSolved.message);
+  run('supplyHum (push-pull pair)', fc.tuple(fc.oneof(fc.constant(pairChain), near(pairChain)), fc.oneof(fc.constant(pairSolved), near(pairSolved)), fc.oneof(fc.constant(50), numbers)), Q.supplyHum, 60);
   run('humAtOutput', fc.tuple(fc.oneof(near({ perVolt: [0.1, null, -0.02] }), near({ perVolt: [0.1, null, -0.02], screenPerVolt: [null, null, -0.5], screenShare: [null, null, 0.05] }), anything), fc.oneof(fc.constant([1e-3, 2e-3, 0.5]), fc.array(numbers, { maxLength: 4 }), anything)), Q.humAtOutput);
   run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };

@@ -2,6 +2,7 @@ import { smallVolts } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { SupplyView } from '../../store/supplySlice';
 import type { WorkbenchState } from '../../store/workbenchStore';
+import { drivesPair } from '../../store/outputPlan';
 
 
 /** The speaker the hum is read at: the output stage's, when the supply feeds one; null for an amplifier ending in a voltage stage. */
@@ -20,10 +21,11 @@ export function humWords(view: SupplyView, speakerOhms: number | null): string |
  * ripple carried to the output at midband, and their sum as a bound (the
  * nodes' ripples are not in phase). At the speaker it is read against 1 W;
  * elsewhere in dBV. A stage whose own injection is not modelled (a phase
- * splitter, a push-pull pair) is named.
+ * splitter) is named, and a pair's is said to be its mismatch's.
  */
 export function SupplyHumLine({ view }: { view: SupplyView }) {
   const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
+  const pairDriven = useWorkbench((s) => drivesPair(s.design));
   const hum = view.hum;
   if (!hum) return null;
   if (!hum.ok) return <p className="field-error">{`Hum at the output: ${hum.message}`}</p>;
@@ -32,13 +34,15 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
   const shares = view.names.map((n, k) => `${n.title} (${n.tube}) ${h.volts[k] === null ? 'not counted' : `${smallVolts(h.volts[k]!)}${screens(k)}`}`).join(', ');
   const uncounted = h.volts.some((v) => v === null);
   const screened = h.screens.some((v) => v !== null);
+  const pair = pairDriven;
   return (
     <p className="supply-hum" data-testid="supply-hum">
       <strong>{humWords(view, speakerOhms)}</strong>
       {`. From each stage's B+ ripple: ${shares}.`}
       <span className="supply-hum-why">
         {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
-        {uncounted ? ' Not counted: a phase splitter\u2019s and a push-pull pair\u2019s own (common mode, which a matched pair cancels to first order).' : ''}
+        {uncounted ? ' Not counted: a phase splitter\u2019s own (the difference its ripple makes between its two outputs).' : ''}
+        {pair ? ' A push-pull pair\u2019s own is what its mismatch leaves of its centre tap\u2019s ripple (a matched pair cancels it): set the tubes\u2019 mismatch to see what a real pair passes.' : ''}
         {screened ? ' A pentode output stage\u2019s screens take the ripple of the node feeding them, straight (their plates\u2019 node, or the one named for them) or through their dropper and its bypass: a screen moves the plate current many times harder than the plate does, so filter it well. Screens above B+ on a node this supply does not feed are taken as clean.' : ''}
       </span>
     </p>
