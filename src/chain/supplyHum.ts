@@ -7,7 +7,8 @@ import { smallSignalAt } from '../tube/triode';
 import { korenPentodeInto } from '../tube/pentode';
 import { pushPullInstant } from '../pushpull/pushPullDrive';
 import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
-import type { ChainInput, ChainResult, ChainStage, PushPullLink, SingleEndedLink } from './chainTypes';
+import { solveLinear } from '../numeric/solveLinear';
+import type { ChainInput, ChainResult, ChainStage, LongTailedPairLink, PushPullLink, SingleEndedLink, SplitLoadLink } from './chainTypes';
 import { designOf } from './singleEndedKind';
 import { pairDesignOf } from './pushPullKind';
 import { checkChain } from './prepareAmplifier';
@@ -23,9 +24,9 @@ export interface SupplyHum {
    * Output volts per volt of ripple on each stage's B+ (at the speaker for
    * an output stage), its screens held. A push-pull pair's is what its
    * mismatch leaves of the ripple on its centre tap (a matched pair's is
-   * nothing). Null where a stage's own injection is not modelled: a phase
-   * splitter (its two outputs' difference). Ripple that enters before it is
-   * carried through it as signal.
+   * nothing); a phase splitter's, the difference its ripple makes between
+   * its two outputs, as the pair after it answers to it. Null where a
+   * stage's own cannot be worked out (a tube past its law's range).
    */
   readonly perVolt: readonly (number | null)[];
   /**
@@ -75,7 +76,64 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
     const solved = solvePushPull(s.tube, pairDesignOf(s));
     return solved.ok ? pairInjection(s, solved, 'bplus') : null;
   }
+  if (s.kind === 'split-load' || s.kind === 'long-tailed-pair') return splitterInjection(s, solved, load);
   return null;
+}
+
+/**
+ * A phase splitter's own share, as the signal on its first output that the
+ * pair after it answers to alike: its grids held (the divider's decoupling
+ * holds a capacitor-coupled grid's reference, and a long-tailed pair's
+ * second grid has its capacitor), the ripple on its B+, each output loaded
+ * by the pair's grid leak. Each triode is linear about its operating point
+ * (μ, rp); the plate, cathode and tail nodes by Kirchhoff's current law. A
+ * pair after it takes the difference of its two grids (its even response
+ * cancels), so the ripple's outputs (r1, r2) act as r1 − r2 over 1 − a,
+ * where a is the splitter's own second-over-first output for a grid signal.
+ */
+function splitterInjection(s: SplitLoadLink | LongTailedPairLink, solved: ChainResult['stages'][number], load: number): number | null {
+  const rl = Number.isFinite(load) && load > 0 ? load : 1e15;
+  const { op } = solved;
+  const a = smallSignalAt(s.tube, op.va - op.vk, op.vgk);
+  if (!Number.isFinite(a.rp) || !(a.rp > 0)) return null;
+  let outputs: (supply: number, grid: number) => readonly [number, number] | null;
+  if (s.kind === 'split-load') {
+    // One current through Ra, the tube and Rk: the plate and the cathode are its two outputs.
+    outputs = (supply, grid) => {
+      const m = [
+        [1, -(a.mu + 1), -a.rp],
+        [1 / s.ra + 1 / rl, 0, 1],
+        [0, 1 / s.rk + 1 / rl, -1],
+      ];
+      const x = solveLinear(m, [-a.mu * grid, supply / s.ra, 0]);
+      return x ? [x[0]!, x[1]!] : null;
+    };
+  } else {
+    // Two triodes on one cathode node over Rk + Rtail; the second's operating point from the tail's current.
+    const ra2 = s.ra2 ?? s.ra;
+    const ia2 = solved.supplyCurrent - op.ia;
+    const b = smallSignalAt(s.tube, s.bplus - ia2 * ra2 - op.vk, op.vgk);
+    if (!Number.isFinite(b.rp) || !(b.rp > 0)) return null;
+    const tail = s.rk + s.rtail;
+    outputs = (supply, grid) => {
+      // Unknowns: the two plates, the cathodes, the two plate currents.
+      const m = [
+        [1, 0, -(a.mu + 1), -a.rp, 0],
+        [0, 1, -(b.mu + 1), 0, -b.rp],
+        [1 / s.ra + 1 / rl, 0, 0, 1, 0],
+        [0, 1 / ra2 + 1 / rl, 0, 0, 1],
+        [0, 0, -1 / tail, 1, 1],
+      ];
+      const x = solveLinear(m, [-a.mu * grid, 0, supply / s.ra, supply / ra2, 0]);
+      return x ? [x[0]!, x[1]!] : null;
+    };
+  }
+  const driven = outputs(0, 1);
+  const ripple = outputs(1, 0);
+  if (!driven || !ripple || driven[0] === 0) return null;
+  const antiphase = driven[1] / driven[0];
+  const own = (ripple[0] - ripple[1]) / (1 - antiphase);
+  return Number.isFinite(own) ? own : null;
 }
 
 /**

@@ -90,6 +90,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const pairSolved = Q.solveChain(pairChain as Q.ChainInput);
   if (!pairSolved.ok) throw new Error(pairSolved.message);
   run('supplyHum (push-pull pair)', fc.tuple(fc.oneof(fc.constant(pairChain), near(pairChain)), fc.oneof(fc.constant(pairSolved), near(pairSolved)), fc.oneof(fc.constant(50), numbers)), Q.supplyHum, 60);
+  const tailChain = { ...pairChain, stages: [pairChain.stages[0]!, { kind: 'long-tailed-pair', tube: au7, bplus: 400, ra: 47e3, ra2: 51e3, rk: 470, rtail: 15e3, vbias: 80, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }, pairChain.stages[2]!] };
+  const tailSolved = Q.solveChain(tailChain as Q.ChainInput);
+  if (!tailSolved.ok) throw new Error(tailSolved.message);
+  run('supplyHum (long-tailed pair)', fc.tuple(fc.oneof(fc.constant(tailChain), near(tailChain)), fc.oneof(fc.constant(tailSolved), near(tailSolved)), fc.constant(50)), Q.supplyHum, 60);
   run('humAtOutput', fc.tuple(fc.oneof(near({ perVolt: [0.1, null, -0.02] }), near({ perVolt: [0.1, null, -0.02], screenPerVolt: [null, null, -0.5], screenShare: [null, null, 0.05] }), anything), fc.oneof(fc.constant([1e-3, 2e-3, 0.5]), fc.array(numbers, { maxLength: 4 }), anything)), Q.humAtOutput);
   run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };

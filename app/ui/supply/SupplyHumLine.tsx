@@ -20,8 +20,8 @@ export function humWords(view: SupplyView, speakerOhms: number | null): string |
  * The hum the supply leaves at the amplifier's output: each stage's B+
  * ripple carried to the output at midband, and their sum as a bound (the
  * nodes' ripples are not in phase). At the speaker it is read against 1 W;
- * elsewhere in dBV. A stage whose own injection is not modelled (a phase
- * splitter) is named, and a pair's is said to be its mismatch's.
+ * elsewhere in dBV. A stage whose own share could not be worked out is
+ * named; a splitter's and a pair's are said to be what they are.
  */
 export function SupplyHumLine({ view }: { view: SupplyView }) {
   const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
@@ -41,8 +41,8 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
       {`. From each stage's B+ ripple: ${shares}.`}
       <span className="supply-hum-why">
         {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
-        {uncounted ? ' Not counted: a phase splitter\u2019s own (the difference its ripple makes between its two outputs).' : ''}
-        {pair ? ' A push-pull pair\u2019s own is what its mismatch leaves of its centre tap\u2019s ripple (a matched pair cancels it): set the tubes\u2019 mismatch to see what a real pair passes.' : ''}
+        {uncounted ? ' Not counted: a stage whose own share could not be worked out at its operating point.' : ''}
+        {pair ? ' A phase splitter\u2019s is the difference its ripple makes between its two outputs, which the pair passes on; a push-pull pair\u2019s own is what its mismatch leaves of its centre tap\u2019s ripple (a matched pair cancels it): set the tubes\u2019 mismatch to see what a real pair passes.' : ''}
         {screened ? ' A pentode output stage\u2019s screens take the ripple of the node feeding them, straight (their plates\u2019 node, or the one named for them) or through their dropper and its bypass: a screen moves the plate current many times harder than the plate does, so filter it well. Screens above B+ on a node this supply does not feed are taken as clean.' : ''}
       </span>
     </p>
