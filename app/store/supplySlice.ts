@@ -53,7 +53,7 @@ export function nodeVoltsOf(view: SupplyView, r: AmplifierOnSupplyResult, i: num
 }
 
 /** What node k feeds, as the table and drawing name it: its stages, then any output stage's screens on it ("Output screens"). */
-export function fedFrom(view: SupplyView, k: number): { readonly title: string; readonly tube: string }[] {
+export function fedFrom(view: Pick<SupplyView, 'names' | 'feeds' | 'screenFeeds'>, k: number): { readonly title: string; readonly tube: string }[] {
   const stages = view.names.filter((_, i) => view.feeds[i] === k);
   const screens = view.names.filter((_, i) => view.screenFeeds[i] === k).map((n) => ({ title: `${n.title} screens`, tube: n.tube }));
   return [...stages, ...screens];

@@ -45,11 +45,14 @@ const rectifierText = (p: SupplyPlan) => (p.rectifier.kind === 'tube' ? p.rectif
  */
 export function SupplySchematic() {
   const p = useWorkbench((s) => s.design.supply);
-  const view = useWorkbench((s) => s.supplyView);
+  // The lists only: a view marked stale keeps them, so a keystroke does not redraw the drawing.
+  const names = useWorkbench((s) => s.supplyView?.names ?? null);
+  const feeds = useWorkbench((s) => s.supplyView?.feeds ?? null);
+  const screenFeeds = useWorkbench((s) => s.supplyView?.screenFeeds ?? null);
   const nodes = p.sections.length + 1;
   const width = LEFT + nodes * STEP + 40;
   const nodeX = (k: number) => LEFT + 40 + k * STEP;
-  const feeding = (k: number) => (view ? fedFrom(view, k).map((n) => n.title) : []);
+  const feeding = (k: number) => (names && feeds && screenFeeds ? fedFrom({ names, feeds, screenFeeds }, k).map((n) => n.title) : []);
   return (
     <svg className="supply-schematic" viewBox={`0 0 ${width} 150`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
       <g stroke={INK} fill="none" strokeWidth={1.4}>
