@@ -1,21 +1,20 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, screenFeedPlan, solveChain, supplyHum, type ChainInput } from '../../src/index';
-import { rippleHzOf } from '../../src/chain/supplyHum';
 import { solveOutput } from '../../src/output/solveOutput';
 import { screenConductance } from '../../src/output/screenFeed';
 import { CATHODE_BYPASS_CORNER_HZ } from '../../src/output/outputParts';
 import { designOf } from '../../src/chain/singleEndedKind';
 import type { SingleEndedLink } from '../../src/chain/chainTypes';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
-import { ngspiceGate, runNgspice } from './ngspice';
+import { nodes } from './chainNetlist';
+import { ngspiceGate } from './ngspice';
+import { rippleRun } from './rippleRun';
 
 // Outside reference: ngspice (Debian's package) on the whole amplifier with its input at rest and a 100 Hz ripple of
 // 1 V on the output stage's screens, on its B+, or on both, as the screens are fed. The designs are our own: a
 // voltage stage into a pentode-connected single-ended output stage.
 const run = ngspiceGate();
 
-const RIPPLE_HZ = rippleHzOf(50);
 
 function pentodeChain(tube: 'EL34' | '6V6GT', bplus: number, screenVolts: number, zPrimary: number, rk: number): ChainInput {
   return {
@@ -28,18 +27,6 @@ function pentodeChain(tube: 'EL34' | '6V6GT', bplus: number, screenVolts: number
       },
     ],
   };
-}
-
-/** The netlist at 100 Hz with the input at rest, each line passed through `edit` (to put the ripple where it is asked). */
-function at100Hz(chain: ChainInput, edit: (line: string) => string, print = 'vr(out) vi(out)'): Record<string, number> {
-  const netlist = chainNetlist(chain, { kind: 'op-ac' })
-    .replace('VS src 0 DC 0 AC 1', 'VS src 0 DC 0 AC 0')
-    .split('\n')
-    .map(edit)
-    .join('\n')
-    .replace(`ac lin 1 1000 1000`, `ac lin 1 ${RIPPLE_HZ} ${RIPPLE_HZ}`)
-    .replace('print vr(out) vi(out)', `print ${print}`);
-  return runNgspice(netlist);
 }
 
 const B_PLUS = nodes.supply(1).toUpperCase();
@@ -56,7 +43,7 @@ describe.runIf(run)('hum through a pentode output stage\'s screens, against ngsp
     if (!solved.ok) throw new Error(solved.message);
     const hum = supplyHum(chain, solved, 50);
     if (!hum.ok) throw new Error(hum.message);
-    const sim = at100Hz(chain, (line) => (line.startsWith('VSCR1 ') ? `${line} AC 1` : line));
+    const sim = rippleRun(chain, (line) => (line.startsWith('VSCR1 ') ? `${line} AC 1` : line));
     expect(Math.abs(sim['vi(out)']!)).toBeLessThan(0.02 * Math.abs(sim['vr(out)']!));
     expectClose(hum.screenPerVolt[1]!, PHASE * sim['vr(out)']!, { rel: 0.02 }, 'screens\' hum per volt');
     // Common practice, checked here: a pentode's screen moves the plate current many times harder than its plate does.
@@ -71,7 +58,7 @@ describe.runIf(run)('hum through a pentode output stage\'s screens, against ngsp
     const hum = supplyHum(chain, solved, 50);
     if (!hum.ok) throw new Error(hum.message);
     expect(hum.screenShare[1]).toBe(1);
-    const sim = at100Hz(chain, (line) => (line.startsWith('VSCR1 ') || line.startsWith(`${B_PLUS} `) ? `${line} AC 1` : line));
+    const sim = rippleRun(chain, (line) => (line.startsWith('VSCR1 ') || line.startsWith(`${B_PLUS} `) ? `${line} AC 1` : line));
     expectClose(hum.perVolt[1]! + hum.screenPerVolt[1]!, PHASE * sim['vr(out)']!, { rel: 0.02 }, 'the whole stage\'s hum per volt');
   });
 
@@ -92,7 +79,7 @@ describe.runIf(run)('hum through a pentode output stage\'s screens, against ngsp
     const c = 1 / (2 * Math.PI * CATHODE_BYPASS_CORNER_HZ * (plan.ohms / (1 + plan.ohms * g)));
     const dropper = (line: string) =>
       line.startsWith('VSCR1 ') ? `RSCR1 bp1 screen ${plan.ohms}\nCSCR1 screen 0 ${c}` : line.startsWith(`${B_PLUS} `) ? `${line} AC 1` : line.startsWith('print v(p0)') ? `${line} v(screen)` : line;
-    const sim = at100Hz(chain, dropper, 'vm(screen) vr(out) vi(out)');
+    const sim = rippleRun(chain, dropper, 'vm(screen) vr(out) vi(out)');
     // At DC the screens sit where they were designed (the dropper carries their current).
     expectClose(sim['v(screen)']!, stage.screenVolts, { rel: 0.01 }, 'screen DC');
     expectClose(hum.screenShare[1]!, sim['vm(screen)']!, { rel: 0.02 }, 'share of the B+ ripple on the screens');

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, solveChain, supplyHum, type ChainInput } from '../../src/index';
-import type { PushPullLink } from '../../src/chain/chainTypes';
+import { findTube, solveChain, supplyHum, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
-import { ngspiceGate, runNgspice } from './ngspice';
+import { ngspiceGate } from './ngspice';
+import { el84Pair, pushPullAmplifiers, pushPullInput } from './pushPullAmplifiers';
+import { rippleOnSupply, rippleRun } from './rippleRun';
 
 // Outside reference: ngspice on whole push-pull amplifiers (chainNetlist: the splitter's grid returned to a held DC
 // source, as the divider's decoupling holds it), the input at rest and a 100 Hz ripple of 1 V on the phase
@@ -11,44 +11,19 @@ import { ngspiceGate, runNgspice } from './ngspice';
 // 3 % in magnitude. The designs are our own (those of the push-pull amplifier checks).
 const run = ngspiceGate();
 
-const input = { kind: 'common-cathode' as const, tube: findTube('12AX7')!, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor' as const, cc: 100e-9, rg: 1e6 } };
-const el84: PushPullLink = {
-  kind: 'push-pull-output', tube: findOutputTube('EL84')!, connection: 'ultralinear', bplus: 300, screenVolts: 300, ulTap: 0.4, raa: 8000, rPrimary: 240,
-  bias: 'cathode', rk: 130, vg: 0, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 },
-};
-const el34: PushPullLink = {
-  kind: 'push-pull-output', tube: findOutputTube('EL34')!, connection: 'pentode', bplus: 420, screenVolts: 400, ulTap: 0.4, raa: 6600, rPrimary: 180,
-  bias: 'fixed', rk: 1, vg: -36, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 },
-};
-const chains: { label: string; chain: ChainInput }[] = [
-  {
-    label: 'split-load (12AU7) into an EL84 pair',
-    chain: { source: { rsource: 600 }, stages: [input, { kind: 'split-load', tube: findTube('12AU7')!, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }, el84] },
-  },
-  {
-    label: 'long-tailed pair (12AU7, trimmed plates) into an EL34 pair',
-    chain: { source: { rsource: 600 }, stages: [input, { kind: 'long-tailed-pair', tube: findTube('12AU7')!, bplus: 400, ra: 47e3, ra2: 51e3, rk: 470, rtail: 15e3, vbias: 80, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }, el34] },
-  },
-];
+const chains = pushPullAmplifiers;
 
 // A long-tailed pair with equal plates is symmetric for its own ripple but for one thing the model leaves out: the
 // plate's ripple reaching the first grid through the plate-to-grid capacitance (the second grid is held by its
 // capacitor, the first only through the stage before it).
 const symmetric: ChainInput = {
   source: { rsource: 600 },
-  stages: [input, { kind: 'long-tailed-pair', tube: findTube('12AT7')!, bplus: 300, ra: 39e3, rk: 1000, rtail: 22e3, vbias: 70, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }, el84],
+  stages: [pushPullInput, { kind: 'long-tailed-pair', tube: findTube('12AT7')!, bplus: 300, ra: 39e3, rk: 1000, rtail: 22e3, vbias: 70, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }, el84Pair],
 };
 
 /** The speaker's voltage per volt of 100 Hz ripple on the splitter's B+ (stage 2), the input at rest, from ngspice. */
 function simulated(chain: ChainInput): number {
-  const supply = nodes.supply(1).toUpperCase();
-  const netlist = chainNetlist(chain, { kind: 'op-ac' })
-    .replace('VS src 0 DC 0 AC 1', 'VS src 0 DC 0 AC 0')
-    .split('\n')
-    .map((line) => (line.startsWith(`${supply} `) ? `${line} AC 1` : line))
-    .join('\n')
-    .replace('ac lin 1 1000 1000', 'ac lin 1 100 100');
-  const sim = runNgspice(netlist);
+  const sim = rippleRun(chain, rippleOnSupply(1));
   return Math.hypot(sim['vr(out)']!, sim['vi(out)']!);
 }
 

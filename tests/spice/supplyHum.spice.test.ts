@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, solveChain, supplyHum, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
-import { ngspiceGate, runNgspice } from './ngspice';
+import { ngspiceGate } from './ngspice';
+import { rippleOnSupply, rippleRun } from './rippleRun';
 
 // Outside reference: ngspice (Debian's package) on the whole amplifier, its input at rest and a 100 Hz ripple of
 // 1 V on one stage's B+ at a time (an AC source in series with that stage's supply): the output it gives is that
@@ -71,14 +71,7 @@ const chains: { label: string; chain: ChainInput }[] = [
 
 /** The output per volt of 100 Hz ripple on stage k's B+, the input at rest, from ngspice. */
 function simulatedHum(chain: ChainInput, k: number): number {
-  const supply = nodes.supply(k).toUpperCase();
-  const netlist = chainNetlist(chain, { kind: 'op-ac' })
-    .replace('VS src 0 DC 0 AC 1', 'VS src 0 DC 0 AC 0')
-    .split('\n')
-    .map((line) => (line.startsWith(`${supply} `) ? `${line} AC 1` : line))
-    .join('\n')
-    .replace('ac lin 1 1000 1000', 'ac lin 1 100 100');
-  const sim = runNgspice(netlist);
+  const sim = rippleRun(chain, rippleOnSupply(k));
   // At midband the output is in phase with the ripple or inverted: its real part carries the sign.
   expect(Math.abs(sim['vi(out)']!)).toBeLessThan(0.02 * Math.abs(sim['vr(out)']!));
   return sim['vr(out)']!;
