@@ -35,6 +35,19 @@ function winding(x: number, y: number, h: number, side: 1 | -1): string {
   return p;
 }
 
+/** A node's label lines, its names packed so each line fits between two nodes (about 19 characters at this size). */
+const LINE_CHARS = 19;
+const LINE_HEIGHT = 11;
+function labelLines(names: readonly string[]): string[] {
+  const lines: string[] = [];
+  for (const n of names) {
+    const last = lines.length - 1;
+    if (last >= 0 && lines[last]!.length + 2 + n.length <= LINE_CHARS) lines[last] = `${lines[last]}, ${n}`;
+    else lines.push(lines.length === 0 ? `→ ${n}` : n);
+  }
+  return lines;
+}
+
 const rectifierText = (p: SupplyPlan) => (p.rectifier.kind === 'tube' ? p.rectifier.tubeId : p.rectifier.kind === 'silicon-bridge' ? 'bridge' : 'full wave');
 
 /**
@@ -52,9 +65,11 @@ export function SupplySchematic() {
   const nodes = p.sections.length + 1;
   const width = LEFT + nodes * STEP + 40;
   const nodeX = (k: number) => LEFT + 40 + k * STEP;
-  const feeding = (k: number) => (names && feeds && screenFeeds ? fedFrom({ names, feeds, screenFeeds }, k).map((n) => n.title) : []);
+  const feeding = (k: number) => (names && feeds && screenFeeds ? labelLines(fedFrom({ names, feeds, screenFeeds }, k).map((n) => n.title)) : []);
+  // A node feeding more than a line's worth stacks its label upward: the drawing moves down to make room.
+  const extra = (Math.max(1, ...Array.from({ length: nodes }, (_, k) => feeding(k).length)) - 1) * LINE_HEIGHT;
   return (
-    <svg className="supply-schematic" viewBox={`0 0 ${width} 150`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
+    <svg className="supply-schematic" viewBox={`0 ${-extra} ${width} ${150 + extra}`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
       <g stroke={INK} fill="none" strokeWidth={1.4}>
         {/* Transformer: primary and secondary coils with the core between. */}
         <path d={`${winding(26, 36, 64, 1)} M14 36 H26 M14 100 H26`} />
@@ -83,8 +98,10 @@ export function SupplySchematic() {
           return (
             <g key={k}>
               <text x={nodeX(k) + 14} y={TOP + 36}>{farads(c)}</text>
-              <text x={nodeX(k) - 4} y={TOP - 26} fontWeight={700}>{k + 1}</text>
-              {feeding(k).length ? <text x={nodeX(k) - 4} y={TOP - 12} fill="#0f5f8a">→ {feeding(k).join(', ')}</text> : null}
+              <text x={nodeX(k) - 4} y={TOP - 26 - Math.max(0, feeding(k).length - 1) * LINE_HEIGHT} fontWeight={700}>{k + 1}</text>
+              {feeding(k).map((line, j, all) => (
+                <text key={j} x={nodeX(k) - 4} y={TOP - 12 - (all.length - 1 - j) * LINE_HEIGHT} fill="#0f5f8a">{line}</text>
+              ))}
               {s ? <text x={nodeX(k - 1) + STEP / 2 - 16} y={TOP + 20}>{s.kind === 'rc' ? ohms(s.r) : `${plain(s.l)} H`}</text> : null}
             </g>
           );
