@@ -64,15 +64,23 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
   return sections;
 }
 
+/** What the driven output stage's section carries from its power figures: the clean limit and the grid driven to 0 V (the rest stays with the output stage's own card). */
+const DRIVEN_POWER_LINES = 2;
+
 /**
  * With a voltage stage on the bench, the output stage the stages drive still
- * goes on the card: its values and its parts to order (the screen's build
- * sheet lists them too). Null when the stages stand apart from it.
+ * goes on the card: its values, its operating point (each tube's, for a
+ * pair) with its dissipation against the ratings, its power at the clean
+ * limit and with the grid driven to 0 V, and its parts to order (the
+ * screen's build sheet lists them too). Null when the stages stand apart
+ * from it.
  */
 export function drivenOutputSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
   if (!s.design.drivesOutput) return null;
   const own = outputCardSections(s);
-  const values = own.find((x) => x.heading === 'Output stage')?.lines ?? [];
-  const parts = own.find((x) => x.heading === 'Parts to order')?.lines ?? [];
-  return { heading: `Output stage, ${s.design.output.tubeId}`, lines: [...values, ...parts] };
+  const lines = (heading: string) => own.find((x) => x.heading === heading)?.lines ?? [];
+  const values = lines('Output stage');
+  const op = [...lines('Operating point'), ...lines('Operating point, each tube')];
+  const power = lines('Power and distortion').slice(0, DRIVEN_POWER_LINES);
+  return { heading: `Output stage, ${s.design.output.tubeId}`, lines: [...values, ...op, ...power, ...lines('Parts to order')] };
 }

@@ -4,6 +4,7 @@ import { act } from 'react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { outputCardSections } from '../../app/export/outputCard';
+import { cardSections } from '../../app/export/buildCard';
 import { hertz, milliamps, volts } from '../../app/format';
 import { outputPartsOf } from '../../app/store/outputParts';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
@@ -67,5 +68,24 @@ describe('the ratings list for the whole amplifier', () => {
     act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, rk: 220 } }));
     const item = screen.getByText(/A tube passing 20 % more current than the law would dissipate/).closest('li')!;
     expect(item.textContent).toMatch(/^Warning\s*Output stage, EL34: A tube passing 20 % more current than the law would dissipate \d+\.\d W at idle, \d+ % of the 25 W rating/);
+  });
+});
+
+describe('the card with a voltage stage on the bench', () => {
+  it('still gives the driven output stage\'s operating point, dissipation and power, single-ended and as a pair', () => {
+    const store = createWorkbenchStore({ supplySolver: null });
+    const driven = () => cardSections(store.getState()).find((c) => c.heading === `Output stage, ${store.getState().design.output.tubeId}`)!.lines;
+    expect(store.getState().design.stageKind).toBe('voltage');
+    // The same lines the output stage's own card prints, from the same analysis.
+    const own = (heading: string) => outputCardSections(store.getState()).find((c) => c.heading === heading)!.lines;
+    const single = driven();
+    for (const line of own('Operating point')) expect(single).toContain(line);
+    expect(single).toContainEqual(expect.stringMatching(/^Pa [\d.]+ W \(\d+ % of 25 W\)/));
+    expect(single).toContain(own('Power and distortion')[0]);
+    expect(single).toContainEqual(expect.stringMatching(/^Output transformer: /));
+    act(() => store.getState().setOutputPair('push-pull'));
+    const pair = driven();
+    for (const line of own('Operating point, each tube')) expect(pair).toContain(line);
+    expect(pair).toContainEqual(expect.stringMatching(/^Grids to 0 V: [\d.]+ W at /));
   });
 });
