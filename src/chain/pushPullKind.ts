@@ -2,7 +2,7 @@ import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
 import { SWEEP_SAMPLES } from '../output/outputSignal';
 import { linearWinding } from '../output/windingInductance';
 import { checkPushPull, type PushPullDesign } from '../pushpull/pushPullDesign';
-import { pushPullDriveOf, pushPullInstant } from '../pushpull/pushPullDrive';
+import { pushPullDriveOf, pushPullInstant, screensAtDrive } from '../pushpull/pushPullDrive';
 import { plateToPlateImpedance } from '../pushpull/pushPullFigures';
 import { pushPullFindings } from '../pushpull/pushPullFindings';
 import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
@@ -77,7 +77,8 @@ export const pushPullKind: StageKind<PushPullLink> = {
       ok: true,
       op: { va: solved.idle[0].vpk + solved.vk, vk: solved.vk, ia: solved.idle[0].ip, vgk },
       supplyCurrent: solved.supplyCurrent,
-      ...(solved.feed.kind === 'fixed' ? { screenCurrent: solved.idle[0].ig2 + solved.idle[1].ig2 } : {}),
+      // A pentode pair's screens, at idle and averaged with the grids driven to 0 V.
+      ...(solved.feed.kind === 'fixed' ? { screenCurrent: solved.idle[0].ig2 + solved.idle[1].ig2, fullPowerScreenCurrent: screensAtDrive(solved, full) ?? solved.idle[0].ig2 + solved.idle[1].ig2 } : {}),
       fullPowerCurrent: full.supplyCurrent,
       outputDc: 0,
       gain,

@@ -80,9 +80,10 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
       ok: true,
       op: { va: op.vpk + op.vk, vk: op.vk, ia: op.ip, vgk: op.vgk },
       supplyCurrent: op.ik,
-      ...(op.feed.kind === 'fixed' ? { screenCurrent: op.ig2 } : {}),
-      // The primary's average shifts under drive (the law's curvature rectifies); a separate screen's own shift is left out.
-      fullPowerCurrent: op.ik + limit.at.dcShift,
+      // The cathode's average at the clean limit: the plate's shifts under drive (the law's curvature rectifies), and a
+      // screen's rises as the plate swings low.
+      fullPowerCurrent: limit.averages.ik,
+      ...(op.feed.kind === 'fixed' ? { screenCurrent: op.ig2, fullPowerScreenCurrent: limit.averages.ig2 } : {}),
       outputDc: 0,
       gain,
       zin: couplingImpedance(s.coupling),

@@ -18,9 +18,8 @@ export interface AmplifierOnSupply {
    * Those screens are then solved at that node's voltage, their idle
    * current is drawn from it instead of the plates' node, and the stage's
    * parts and findings take them as fed from it (screenFromNode). At full
-   * power the node carries their idle current still (a pair's screens'
-   * rise under drive is counted on the plates' node). Absent: every screen
-   * hangs from its plates' node, as designed.
+   * power the node carries their average at the clean limit. Absent: every
+   * screen hangs from its plates' node, as designed.
    */
   readonly screenFeeds?: readonly (number | null)[];
   /** Identical channels on the one supply (2 for stereo): each node carries every channel's stages. Default 1. */
@@ -170,11 +169,12 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     };
     const inPlace = solveStagesInPlace(placed);
     if (!inPlace.ok) return volts && bplus.some((b) => b <= MIN_NODE_VOLTS) ? cannotDeliver(volts, feeds, loads) : inPlace;
-    // Screens on a node of their own draw their idle current there, and the plates' node the rest.
-    const screensOf = (l: SolvedLink, i: number) => (screenFeeds[i] !== null && screenFeeds[i] !== undefined ? (l.screenCurrent ?? 0) : 0);
-    const drawn = (current: (l: SolvedLink) => number) =>
-      own.map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) - screensOf(l, i) : 0) + (screenFeeds[i] === k ? screensOf(l, i) : 0), 0));
-    loads = drawn((l) => l.supplyCurrent);
+    // Screens on a node of their own draw their current there, and the plates' node the rest.
+    const fed = (i: number) => screenFeeds[i] !== null && screenFeeds[i] !== undefined;
+    const drawn = (current: (l: SolvedLink) => number, screens: (l: SolvedLink) => number) =>
+      own.map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) - (fed(i) ? screens(l) : 0) : 0) + (screenFeeds[i] === k && fed(i) ? screens(l) : 0), 0));
+    const idleScreens = (l: SolvedLink) => l.screenCurrent ?? 0;
+    loads = drawn((l) => l.supplyCurrent, idleScreens);
     const solved = supplyAt(loads, volts);
     if (!solved.ok) return solved;
     const next = solved.nodes.map((n) => n.dc);
@@ -193,7 +193,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
       const { ok: _s, ...sup } = solved;
       let atFullPower: AmplifierOnSupplyResult['atFullPower'] = null;
       if (inPlace.links.some((l) => l.fullPowerCurrent !== undefined)) {
-        const full = drawn((l) => l.fullPowerCurrent ?? l.supplyCurrent);
+        const full = drawn((l) => l.fullPowerCurrent ?? l.supplyCurrent, (l) => l.fullPowerScreenCurrent ?? idleScreens(l));
         const near = byTangent ? supplyNear({ ...supply, loads: full }, around!, full) : null;
         const driven = near?.ok ? near : solveSupply({ ...supply, loads: full }, { start: next });
         if (!driven.ok) return driven;

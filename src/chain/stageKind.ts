@@ -103,7 +103,9 @@ export interface SolvedLink {
   readonly supplyCurrent: number;
   /** A pentode-connected output stage's screens' share of supplyCurrent at idle, A (what a node of their own carries); absent for other stages. */
   readonly screenCurrent?: number;
-  /** For an output stage, the average current it draws driven to its own clean limit, A (what sags the supply at full power); a voltage stage leaves it out (class A: its average hardly moves). */
+  /** Their share of fullPowerCurrent, A: the screens' average driven to the stage's clean limit (they take more as the plates swing low). */
+  readonly fullPowerScreenCurrent?: number;
+  /** For an output stage, the average current it draws driven to its own clean limit (its cathodes', screens included), A (what sags the supply at full power); a voltage stage leaves it out (class A: its average hardly moves). */
   readonly fullPowerCurrent?: number;
   readonly gain: number;
   /** A phase splitter's second output over its first at midband (negative: in antiphase); absent for other stages. */

@@ -213,6 +213,8 @@ export interface CleanLimit {
   readonly limitedBy: DriveLimit;
   /** The stage at the smaller of the two drives. */
   readonly at: DriveResult;
+  /** The screen's and the cathode's currents averaged over that drive's cycle, A (averageCurrents, read on the cycle already solved). */
+  readonly averages: { readonly ig2: number; readonly ik: number };
 }
 
 /**
@@ -239,7 +241,7 @@ export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary, samp
   const drive = cutoffDrive ?? grid;
   // The last trial's cycle is the answer's when it was at that drive (grid current first: always).
   const cycle = solvedAt === drive ? { vpk, ip, winding, magnetising: mm } : waveform(s, drive, zPrimary, samples, mm);
-  return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: driveResultOf(s, drive, zPrimary, cycle) };
+  return { gridCurrentDrive: grid, cutoffDrive, limitedBy: cutoffDrive === null ? 'grid current' : 'cutoff', at: driveResultOf(s, drive, zPrimary, cycle), averages: cycleAverages(s, drive, cycle) };
 }
 
 /**
@@ -250,7 +252,12 @@ export function cleanLimit(s: OutputSolution, zPrimary = s.design.zPrimary, samp
  * resistor then drops; the cathode's is what a cathode resistor then drops.
  */
 export function averageCurrents(s: OutputSolution, drive: number, samples = SWEEP_SAMPLES): { readonly ig2: number; readonly ik: number } {
-  const w = waveform(s, drive, s.design.zPrimary, samples);
+  return cycleAverages(s, drive, waveform(s, drive, s.design.zPrimary, samples));
+}
+
+/** The screen's and the cathode's currents averaged over a steady cycle already solved at a drive, A. */
+function cycleAverages(s: OutputSolution, drive: number, w: Waveform): { readonly ig2: number; readonly ik: number } {
+  const samples = w.vpk.length;
   const c = emptyCurrents();
   let ig2 = 0;
   let ik = 0;

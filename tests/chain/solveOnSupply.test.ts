@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeOutput, findOutputTube, outputPartsList, solveOnSupply, solveOnSupplyInRounds, solveSupply, supplyHum, type ChainInput } from '../../src/index';
 import { solveOutput } from '../../src/output/solveOutput';
+import { averageCurrents, cleanLimit, SWEEP_SAMPLES } from '../../src/output/outputSignal';
 import { designOf } from '../../src/chain/singleEndedKind';
 import type { SingleEndedLink } from '../../src/chain/chainTypes';
 import { amplifier, supply } from '../helpers/smallAmplifierOnSupply';
@@ -136,6 +137,21 @@ describe('a pentode output stage\'s screens on a node of their own', () => {
     expectClose(n1! - n2!, input!.supplyCurrent * 10e3, { rel: 0.002 }, '10k section');
     // Every current drawn is drawn once: the nodes' loads add to the stages' currents.
     expectClose(r.loads.reduce((a, b) => a + b, 0), input!.supplyCurrent + follower!.supplyCurrent + out!.supplyCurrent, { rel: 1e-9 }, 'total');
+  });
+
+  it('at full power the screens\' node carries their average driven to the clean limit, which rises over their idle', () => {
+    const r = onNode2();
+    const stage = { ...(pentode.stages[2] as SingleEndedLink), bplus: r.bplus[2]!, screenVolts: r.screenVolts[2]! };
+    const alone = solveOutput(stage.tube, designOf(stage));
+    if (!alone.ok) throw new Error(alone.message);
+    // The same cycle solved again by the dropper's own figure (checked against ngspice in tests/spice/screenCurrent.spice.test.ts).
+    const driven = averageCurrents(alone, cleanLimit(alone, stage.zPrimary, SWEEP_SAMPLES).at.drive);
+    const [, follower, out] = r.amplifier.stages;
+    const full = r.atFullPower!;
+    expectClose(full.loads[1]! - follower!.supplyCurrent, driven.ig2, { rel: 1e-3 }, 'the screens at full power');
+    expect(driven.ig2).toBeGreaterThan(1.5 * alone.op.ig2);
+    expectClose(out!.fullPowerCurrent!, driven.ik, { rel: 1e-3 }, 'the cathode\'s average at full power');
+    expectClose(full.loads[0]!, driven.ik - driven.ig2, { rel: 1e-3 }, 'the plates\' node at full power');
   });
 
   it('the stage\'s parts and findings take the screens as fed from their node: no dropper from B+, no note asking for a node', () => {
