@@ -7,6 +7,7 @@ import { windingLines } from '../ui/output/windingWords';
 import { biasLines } from '../ui/output/biasWords';
 import { stopperLine } from '../ui/output/stopperWords';
 import { tubeSpreadLine } from '../ui/output/TubeSpreadFigures';
+import { screensNodeLine } from '../ui/output/screenNodeWords';
 
 /** The build card's text for the output stage, from what the model already computed. */
 export function outputCardSections(s: WorkbenchState): { heading: string; lines: string[] }[] {
@@ -52,6 +53,7 @@ export function outputCardSections(s: WorkbenchState): { heading: string; lines:
       lines: [
         `Output transformer: ${ohms(t.primary)} to ${ohms(t.secondary)}, ${milliamps(t.dcCurrent)} DC in the primary, at least ${watts(t.power)}${t.screenTap !== null ? `, screen tap ${percentOf(t.screenTap)}` : ''}`,
         ...windingLines(s.design.output),
+        ...[screensNodeLine(s.design)].filter((x) => x !== null),
         ...biasLines(parts.biasAdjustment, 1),
         stopperLine(parts.gridStopper, 1),
         ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),

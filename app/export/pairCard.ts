@@ -1,4 +1,5 @@
 import { farads, milliamps, ohms, percentOf, plain, volts, watts } from '../format';
+import { screensNodeLine } from '../ui/output/screenNodeWords';
 import { compareCells } from '../ui/output/OutputComparePanel';
 import { transformerLines } from '../ui/output/OutputPartsPanel';
 import type { PushPullBench } from '../store/outputAnalysis';
@@ -59,6 +60,7 @@ export function pairCardSections(s: WorkbenchState, b: PushPullBench): Section[]
       heading: 'Parts to order',
       lines: [
         ...transformerLines(parts, s.design.output),
+        ...[screensNodeLine(s.design)].filter((x) => x !== null),
         ...parts.resistors.map((x) => `${x.ref}: ${ohms(x.preferred)} ${x.series}, ${x.ratingWatts} W (runs at ${watts(x.watts)})`),
         ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)} or more, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''}`),
         `Heaters: two tubes, each ${sol.tube.heater.volts} V, ${sol.tube.heater.amps} A`,

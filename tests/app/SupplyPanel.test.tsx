@@ -249,8 +249,10 @@ describe('the B+ supply on the bench', () => {
     expect(r.screenVolts[out]).toBeCloseTo(r.supply.nodes[2]!.dc, 1);
     expect(r.loads[2]!).toBeCloseTo(alone.op.ig2, 6);
     expect(document.querySelector('tr[data-node="3"]')!.textContent).toContain('Output screens (EL34)');
-    // No dropper now: the screens hang straight from their node.
+    // No dropper now: the screens hang straight from their node, and the parts list says so, as the card does.
     expect(screen.queryAllByText(/screen dropper from B\+/)).toHaveLength(0);
+    expect(screen.getAllByText("Screens: straight from the B+ supply's node 3, their own (no dropper; the supply's table gives its voltage under load).").length).toBeGreaterThan(0);
+    expect(cardSections(store.getState()).some((c) => c.lines.includes("Screens: straight from the B+ supply's node 3, their own (no dropper; the supply's table gives its voltage under load)."))).toBe(true);
     // Their hum comes from node 3's ripple, all of it.
     const input = onSupplyInputOf(store.getState().design, LIBRARY_TUBES)!.input;
     const atNodes = { ...input.amplifier, stages: input.amplifier.stages.map((st, k) => (k === out ? { ...st, bplus: r.bplus[k]!, screenVolts: r.screenVolts[k]!, screenFromNode: true } : { ...st, bplus: r.bplus[k]! })) } as typeof input.amplifier;

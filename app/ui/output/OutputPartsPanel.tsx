@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { screensNodeLine } from './screenNodeWords';
 import { milliamps, ohms, percentOf, volts, watts } from '../../format';
 import type { WindingInductance } from '../../../src/index';
 import { windingLines } from './windingWords';
@@ -55,9 +56,11 @@ export function OutputPartsLines() {
   const parts = useWorkbench(outputPartsOf);
   const winding = useWorkbench((s) => s.design.output);
   const heater = useWorkbench((s) => s.outputBench.settled.solution.tube.heater);
+  const screens = useWorkbench((s) => screensNodeLine(s.design));
   return (
     <>
       {transformerLines(parts, winding).map((line, k) => <p key={k} data-part-line={k === 0 ? 'OPT' : undefined}>{line}</p>)}
+      {screens ? <p data-part-line="screens">{screens}</p> : null}
       <PartsTables resistors={parts.resistors} capacitors={parts.capacitors} />
       <p>{parts.pair === 'push-pull' ? `Heaters: two tubes, each ${heater.volts} V, ${heater.amps} A.` : `Heater: ${heater.volts} V, ${heater.amps} A.`}</p>
     </>
