@@ -80,7 +80,9 @@ describe.runIf(run)('a cathode follower on the bench in Chromium', () => {
     await page.locator('input[name=tClean]').press('Tab');
     const status = page.getByTestId('region-status');
     await expect.poll(() => status.textContent(), { timeout: 15_000 }).toMatch(/^\d+ of \d+ points along the follower's line meet every target\.$/);
-    expect(await page.locator('[data-region="inside"] path').count()).toBeGreaterThan(0);
+    // The band is drawn by the chart's effect, which runs after the commit that writes the status (on a loaded
+    // machine a frame or more later): waited for, as the status is.
+    await expect.poll(() => page.locator('[data-region="inside"] path').count(), { timeout: 5_000 }).toBeGreaterThan(0);
     await page.locator('.sheet-panel').screenshot({ path: 'test-results/follower-targets.png' });
     await page.getByRole('button', { name: 'Rank every tube for these targets' }).click();
     const take = page.getByRole('button', { name: /^Take the \S+ as the follower at Rk/ }).first();

@@ -30,7 +30,8 @@ describe.runIf(run)('design from targets in Chromium', () => {
     const status = page.getByTestId('region-status');
     await expect.poll(() => status.textContent(), { timeout: 15_000 }).toMatch(/^\d+ of \d+ reachable points on the 60 × 40 grid meet every target\.$/);
     const hatched = page.locator('[data-region="inside"] rect');
-    expect(await hatched.count()).toBeGreaterThan(0);
+    // Drawn by the chart's effect after the commit that writes the status: waited for, as the status is.
+    await expect.poll(() => hatched.count(), { timeout: 5_000 }).toBeGreaterThan(0);
     await page.locator('.sheet-panel').screenshot({ path: 'test-results/targets-region.png' });
     // The ranking, by keyboard: the button, then the top tube's Take.
     await page.getByRole('button', { name: 'Rank every tube for these targets' }).focus();
