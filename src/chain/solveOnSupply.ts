@@ -185,8 +185,8 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     volts = next;
     yield;
     if (settled || moved <= VOLT_TOL / 10) {
-      const fed = [...feeds, ...screenFeeds.filter((k): k is number => k !== null && k !== undefined)];
-      if (fed.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, fed, loads);
+      const fedNodes = [...feeds, ...screenFeeds.filter((k): k is number => k !== null && k !== undefined)];
+      if (fedNodes.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, fedNodes, loads);
       const chain = amplifierOf(placed, prepareAmplifier(placed, inPlace));
       if (!chain.ok) return chain;
       const { ok: _a, ...amp } = chain;
