@@ -113,6 +113,7 @@ export { SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { supplyHum, humAtOutput, type SupplyHum, type HumAtOutput } from './chain/supplyHum';
+export { humOnSupply } from './chain/humOnSupply';
 export { supplyTangent, supplyNear, nearbyLoads, type SupplyTangent } from './supply/supplyTangent';
 export { bplusAgreement, BPLUS_AGREEMENT } from './supply/bplusAgreement';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';

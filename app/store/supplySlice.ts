@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { bleederFor, humAtOutput, parseValue, supplyHum, supplyPartsList, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
+import { bleederFor, humOnSupply, parseValue, supplyPartsList, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
@@ -230,21 +230,7 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
   const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
   const screenFeeds = chain.input.screenFeeds ?? chain.names.map(() => null);
-  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOf(chain.input, r) : null, stale };
-}
-
-/** Each stage's share of the hum at the output: the amplifier at its nodes' B+, each stage's node's ripple (a pentode output stage's screens take theirs from the same node). */
-function humOf(input: AmplifierOnSupply, r: AmplifierOnSupplyResult): Result<HumAtOutput> {
-  const amp = input.amplifier;
-  const atNodes = { ...amp, stages: amp.stages.map((st, k) => {
-    const vs = r.screenVolts[k];
-    return vs !== null && vs !== undefined && 'screenVolts' in st ? { ...st, bplus: r.bplus[k] ?? st.bplus, screenVolts: vs, screenFromNode: true } : { ...st, bplus: r.bplus[k] ?? st.bplus };
-  }) };
-  const perVolt = supplyHum(atNodes, r.amplifier, input.supply.mainsHz);
-  if (!perVolt.ok) return perVolt;
-  const ripple = (node: number | null | undefined) => (node === null || node === undefined ? null : (r.supply.nodes[node]?.rippleRms ?? 0));
-  const plates = input.feeds.map((node) => ripple(node)!);
-  return humAtOutput(perVolt, plates, input.feeds.map((node, k) => ripple(input.screenFeeds?.[k]) ?? plates[k]!));
+  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, stale };
 }
 
 /** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */

@@ -95,6 +95,22 @@ function screenFeedsProblem(screenFeeds: unknown, stages: readonly ChainStage[],
   return null;
 }
 
+/**
+ * The amplifier as its supply places it: each stage at its B+, and screens
+ * on a node of their own at their voltage, marked as fed from it (no
+ * dropper). What the rounds solve, and what the hum is read on.
+ */
+export function placedOnSupply(amplifier: ChainInput, bplus: readonly number[], screenVolts: readonly (number | null)[]): ChainInput {
+  return {
+    ...amplifier,
+    stages: amplifier.stages.map((s, i) => {
+      const atNode = { ...s, bplus: bplus[i] ?? s.bplus };
+      const vs = screenVolts[i];
+      return typeof vs === 'number' && 'screenVolts' in atNode ? { ...atNode, screenVolts: vs, screenFromNode: true } : atNode;
+    }),
+  };
+}
+
 /** Channels one supply may feed (a multichannel amplifier beyond this has more than one supply). */
 export const MAX_CHANNELS = 8;
 
@@ -159,14 +175,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     });
     // Each round needs only the stages' currents (their operating points, a fifth of the whole solve); the whole
     // amplifier is solved once, at the B+ the rounds agree on.
-    const placed: ChainInput = {
-      ...amplifier,
-      stages: stages.map((s, i) => {
-        const atNode = { ...s, bplus: bplus[i]! };
-        const vs = screenVolts[i];
-        return vs !== null && vs !== undefined && 'screenVolts' in atNode ? { ...atNode, screenVolts: vs, screenFromNode: true } : atNode;
-      }),
-    };
+    const placed = placedOnSupply(amplifier, bplus, screenVolts);
     const inPlace = solveStagesInPlace(placed);
     if (!inPlace.ok) return volts && bplus.some((b) => b <= MIN_NODE_VOLTS) ? cannotDeliver(volts, feeds, loads) : inPlace;
     // Screens on a node of their own draw their current there, and the plates' node the rest.

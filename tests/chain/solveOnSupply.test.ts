@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeOutput, findOutputTube, outputPartsList, solveOnSupply, solveOnSupplyInRounds, solveSupply, supplyHum, type ChainInput } from '../../src/index';
+import { analyzeOutput, findOutputTube, humOnSupply, outputPartsList, solveOnSupply, solveOnSupplyInRounds, solveSupply, supplyHum, type ChainInput } from '../../src/index';
 import { solveOutput } from '../../src/output/solveOutput';
 import { averageCurrents, cleanLimit, SWEEP_SAMPLES } from '../../src/output/outputSignal';
 import { designOf } from '../../src/chain/singleEndedKind';
@@ -173,12 +173,20 @@ describe('a pentode output stage\'s screens on a node of their own', () => {
     expect(asks(analyzeOutput(tube, { ...above, screenFromNode: true }))).toBe(false);
   });
 
-  it('the screens\' hum comes from their own node: all of its ripple reaches them', () => {
-    const r = onNode2();
+  it('the screens\' hum comes from their own node: all of its ripple reaches them, and the plates\' from theirs', () => {
+    const input = { amplifier: pentode, supply, feeds: [2, 1, 0], screenFeeds: [null, null, 1] };
+    const r = solveOnSupply(input);
+    if (!r.ok) throw new Error(r.message);
+    // The stages as the supply placed them, by hand: the output stage at the reservoir's B+ and its screens at node 2.
     const atNodes = { ...pentode, stages: pentode.stages.map((s, k) => (k === 2 ? { ...s, bplus: r.bplus[k]!, screenVolts: r.screenVolts[k]!, screenFromNode: true } : { ...s, bplus: r.bplus[k]! })) } as ChainInput;
-    const hum = supplyHum(atNodes, r.amplifier, 50);
+    const perVolt = supplyHum(atNodes, r.amplifier, 50);
+    if (!perVolt.ok) throw new Error(perVolt.message);
+    expect(perVolt.screenShare[2]).toBe(1);
+    const hum = humOnSupply(input, r);
     if (!hum.ok) throw new Error(hum.message);
-    expect(hum.screenShare[2]).toBe(1);
+    const [reservoir, node2] = r.supply.nodes.map((n) => n.rippleRms);
+    expectClose(hum.screens[2]!, Math.abs(perVolt.screenPerVolt[2]!) * node2!, { rel: 1e-12 }, 'the screens\' share, on node 2\'s ripple');
+    expectClose(hum.volts[2]!, Math.abs(perVolt.perVolt[2]!) * reservoir! + hum.screens[2]!, { rel: 1e-12 }, 'the stage\'s share, its plates on the reservoir\'s');
   });
 
   it('refuses a screen node for a stage without screens of its own, or a node the supply does not have', () => {

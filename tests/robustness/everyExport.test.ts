@@ -154,6 +154,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const screenedAmplifier = { source: { rsource: 1e3 }, stages: [chainStages[0]!, { ...chainStages[2]!, connection: 'pentode', screenVolts: 280 }] };
   const oneSection = { ...supply, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0, 0] };
   run('solveOnSupply (screens on a node)', fc.tuple(fc.record({ amplifier: fc.constant(screenedAmplifier), supply: fc.constant(oneSection), feeds: fc.constant([1, 0]), screenFeeds: or(fc.constant([null, 1])) })), Q.solveOnSupply, 12);
+  const screenedInput = { amplifier: screenedAmplifier, supply: oneSection, feeds: [1, 0], screenFeeds: [null, 1] } as unknown as Q.AmplifierOnSupply;
+  const screenedSolved = Q.solveOnSupply(screenedInput);
+  if (!screenedSolved.ok) throw new Error(screenedSolved.message);
+  run('humOnSupply', fc.tuple(fc.oneof(fc.constant(screenedInput), near(screenedInput), anything), fc.oneof(fc.constant(screenedSolved), near(screenedSolved), anything)), Q.humOnSupply, 60);
   const tangentSupply = { ...supply, loads: [0.05, 0.004] } as Q.SupplyDesign;
   const solvedSupply = Q.solveSupply(tangentSupply);
   const tangent = solvedSupply.ok ? Q.supplyTangent(tangentSupply, solvedSupply) : null;

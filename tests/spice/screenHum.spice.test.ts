@@ -86,7 +86,7 @@ describe.runIf(run)('hum through a pentode output stage\'s screens, against ngsp
     const whole = Math.hypot(sim['vr(out)']!, sim['vi(out)']!);
     const bound = Math.abs(hum.perVolt[1]!) + Math.abs(hum.screenPerVolt[1]! * hum.screenShare[1]!);
     expect(whole).toBeLessThanOrEqual(bound);
-    // The bypass turns the screens' share near 90° from the plate's: the bound is not far over the whole.
+    // The bypass turns the screens' share near 90° from the plate's: the bound is not far over the whole (0.7: our threshold).
     expect(whole).toBeGreaterThan(0.7 * bound);
   });
 });

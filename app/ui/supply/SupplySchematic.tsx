@@ -65,9 +65,9 @@ export function SupplySchematic() {
   const nodes = p.sections.length + 1;
   const width = LEFT + nodes * STEP + 40;
   const nodeX = (k: number) => LEFT + 40 + k * STEP;
-  const feeding = (k: number) => (names && feeds && screenFeeds ? labelLines(fedFrom({ names, feeds, screenFeeds }, k).map((n) => n.title)) : []);
-  // A node feeding more than a line's worth stacks its label upward: the drawing moves down to make room.
-  const extra = (Math.max(1, ...Array.from({ length: nodes }, (_, k) => feeding(k).length)) - 1) * LINE_HEIGHT;
+  // Each node's label lines; a node feeding more than a line's worth stacks them upward, and the drawing moves down to make room.
+  const labels = Array.from({ length: nodes }, (_, k) => (names && feeds && screenFeeds ? labelLines(fedFrom({ names, feeds, screenFeeds }, k).map((n) => n.title)) : []));
+  const extra = (Math.max(1, ...labels.map((l) => l.length)) - 1) * LINE_HEIGHT;
   return (
     <svg className="supply-schematic" viewBox={`0 ${-extra} ${width} ${150 + extra}`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
       <g stroke={INK} fill="none" strokeWidth={1.4}>
@@ -98,8 +98,8 @@ export function SupplySchematic() {
           return (
             <g key={k}>
               <text x={nodeX(k) + 14} y={TOP + 36}>{farads(c)}</text>
-              <text x={nodeX(k) - 4} y={TOP - 26 - Math.max(0, feeding(k).length - 1) * LINE_HEIGHT} fontWeight={700}>{k + 1}</text>
-              {feeding(k).map((line, j, all) => (
+              <text x={nodeX(k) - 4} y={TOP - 26 - Math.max(0, labels[k]!.length - 1) * LINE_HEIGHT} fontWeight={700}>{k + 1}</text>
+              {labels[k]!.map((line, j, all) => (
                 <text key={j} x={nodeX(k) - 4} y={TOP - 12 - (all.length - 1 - j) * LINE_HEIGHT} fill="#0f5f8a">{line}</text>
               ))}
               {s ? <text x={nodeX(k - 1) + STEP / 2 - 16} y={TOP + 20}>{s.kind === 'rc' ? ohms(s.r) : `${plain(s.l)} H`}</text> : null}
