@@ -58,7 +58,7 @@ export function chainStageParts(input: ChainInput, result: ChainResult, i: numbe
   }
 }
 
-/** A gain stage: Ra, Rk, and from its coupling the grid leak and the capacitor from the output before it; its bypass. */
+/** A gain stage: Ra, Rk, and from its coupling the grid leak and the capacitor from the output before it; its grid stopper; its bypass. */
 function gainStageParts(s: Extract<ChainStage, { kind: 'common-cathode' }>, at: PartsContext): Parts {
   const { n, solved, before, series } = at;
   const resistors = [resistorLine(`Ra${n}`, `stage ${n} plate load`, s.ra, solved.op.ia, series)];
@@ -68,6 +68,8 @@ function gainStageParts(s: Extract<ChainStage, { kind: 'common-cathode' }>, at: 
     resistors.push(resistorLine(`Rg${n}`, `stage ${n} grid leak`, s.coupling.rg, 0, series));
     capacitors.push(capacitorLine(`Cc${n}`, before ? `coupling from stage ${n - 1} into stage ${n}` : `input coupling into stage ${n}`, s.coupling.cc, before?.solved.outputDc ?? 0, before?.bplus ?? 0, before ? `+ to stage ${n - 1}'s output` : '+ to the grid'));
   }
+  // It carries no current below the grid's onset; at the socket, so the wire to the grid is short.
+  if ((s.rstopper ?? 0) > 0) resistors.push(resistorLine(`Rst${n}`, `stage ${n} grid stopper, at the socket`, s.rstopper!, 0, series));
   if (s.bypassed && s.rk > 0) capacitors.push(capacitorLine(`Ck${n}`, `stage ${n} cathode bypass`, s.ck ?? null, solved.op.vk, 0, '+ to the cathode'));
   return { resistors, capacitors };
 }

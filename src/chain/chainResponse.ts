@@ -13,7 +13,13 @@ import type { LinearStage } from './stageKind';
  */
 export interface ChainNetwork {
   readonly rsource: number;
-  readonly stages: readonly { readonly linear: LinearStage; readonly coupling: { readonly cc: number; readonly rg: number } | null; readonly gin?: number }[];
+  readonly stages: readonly {
+    readonly linear: LinearStage;
+    readonly coupling: { readonly cc: number; readonly rg: number } | null;
+    readonly gin?: number;
+    /** Grid stopper, Ω, between the coupling (its leak) and the grid; absent or 0: none. */
+    readonly stopper?: number;
+  }[];
   /** Load on the last output, Ω (Infinity: none). */
   readonly rl: number;
   /** The load's coupling capacitor, F; null or absent: ideal (the output is then the last stage's own node). */
@@ -52,12 +58,14 @@ export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratch
 /**
  * Nodes beyond the source and each stage's three: two for each output
  * transformer given its inductances (either side of the magnetising one),
- * a long-tailed pair's second plate, and a push-pull pair's second grid
- * behind a stage with a second output.
+ * a long-tailed pair's second plate, a push-pull pair's second grid
+ * behind a stage with a second output, and the grid leak's top before a
+ * capacitor-coupled grid's stopper.
  */
 function extraNodes(net: ChainNetwork): number {
   let extra = (net.feedback ? 1 : 0) + (loadCoupled(net) ? 1 : 0);
-  net.stages.forEach(({ linear }, i) => {
+  net.stages.forEach(({ linear, stopper, coupling }, i) => {
+    if (stopper !== undefined && stopper > 0 && coupling !== null) extra += 1;
     if (linear.winding) extra += 2;
     if (linear.second) extra += 1;
     if (linear.pair && i > 0 && net.stages[i - 1]!.linear.output2) extra += 1;
@@ -109,7 +117,7 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
   let previous2: number | null = null;
   let scale = 1;
   let spare = 1 + 3 * net.stages.length;
-  net.stages.forEach(({ linear: s, coupling, gin }, i) => {
+  net.stages.forEach(({ linear: s, coupling, gin, stopper }, i) => {
     const [g, p, k] = [1 + 3 * i, 2 + 3 * i, 3 + 3 * i];
     // The grid's current's slope at its bias, grid to cathode (it depends on Vgk alone).
     if (gin !== undefined && gin > 0) stamp(g, k, gin, 0);
@@ -120,7 +128,13 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
         stamp(to, -1, 1 / coupling.rg, 0);
       }
     };
-    couple(previous, g);
+    if (stopper !== undefined && stopper > 0) {
+      // The coupling (and its leak) end at the stopper's far side, the grid behind it; direct-coupled, the stopper
+      // hangs from the output before.
+      const x = coupling === null ? previous : spare++;
+      if (coupling !== null) couple(previous, x);
+      stamp(x, g, 1 / stopper, 0);
+    } else couple(previous, g);
     const g2 = s.pair && previous2 !== null ? spare++ : null;
     if (g2 !== null) couple(previous2!, g2);
     const wdg = s.winding;

@@ -40,6 +40,8 @@ export interface CommonCathodeLink {
   readonly vbias?: number;
   /** DC potential of the heater to ground, V; default 0. */
   readonly heaterVolts?: number;
+  /** Grid stopper, Ω, between the grid leak and the grid (at the socket); default 0, none. */
+  readonly rstopper?: number;
   readonly coupling: Coupling;
 }
 

@@ -9,7 +9,12 @@ import { checkTriodeLink } from './checkTriodeLink';
 import { triodeLink } from './triodeLink';
 import type { StageKind } from './stageKind';
 
-/** The common-cathode stage in the chain: today's solver and large-signal transfer, with the next grid's leak as its load. */
+/**
+ * The common-cathode stage in the chain: today's solver and large-signal
+ * transfer, with the next grid's leak as its load. Its grid stopper is the
+ * chain's to follow (stopperOf): it sits between the stage before and this
+ * grid, in the grid's drive and in the network.
+ */
 export const commonCathodeKind: StageKind<CommonCathodeLink> = {
   kind: 'common-cathode',
   check: (s) =>
@@ -17,7 +22,8 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
       checkNumber('ra', 'Ra', s.ra, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
       checkNumber('rk', 'Rk', s.rk, 'Ω', 0, LIMITS.maxOhms) ??
       (typeof s.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
-      (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)),
+      (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
+      (s.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', s.rstopper, 'Ω', 0, LIMITS.maxOhms)),
     ),
   inputImpedance: (s) => couplingImpedance(s.coupling),
   solve(s, env) {

@@ -42,12 +42,12 @@ export function cathodeShare(s: LinearStage, load: number): number {
 /**
  * The input impedance the stage before really drives at midband, Ω: the
  * grid's leak (`zin`) in parallel with its current's slope as the
- * bootstrapped cathode leaves it.
+ * bootstrapped cathode leaves it, fed through the grid stopper (`stopper`, Ω).
  */
-export function loadedInput(zin: number, link: SolvedLink, load: number): number {
+export function loadedInput(zin: number, link: SolvedLink, load: number, stopper = 0): number {
   const g = gridConductance(link) * (1 - cathodeShare(link.linear, load));
   if (!(g > MIN_GRID_CONDUCTANCE)) return zin;
-  const r = 1 / g;
+  const r = 1 / g + stopper;
   return Number.isFinite(zin) ? (zin * r) / (zin + r) : r;
 }
 

@@ -1,3 +1,4 @@
+import { stopperOf } from './stopperOf';
 import { fail, type Failure, type Result } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
@@ -132,15 +133,17 @@ export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages
   // as its cathode follows; each stage's gain is taken into that input, through its output impedance.
   const chainLoad = input.load?.rl ?? Infinity;
   const loads = links.map((_, i) => (i + 1 < links.length ? zins[i + 1]! : chainLoad));
-  const inputs = links.map((l, i) => loadedInput(zins[i]!, l, loads[i]!));
+  const stoppers = input.stages.map(stopperOf);
+  const inputs = links.map((l, i) => loadedInput(zins[i]!, l, loads[i]!, stoppers[i]!));
   const gains = links.map((l, i) => gainInto(l.gain, l.zout, loads[i]!, i + 1 < links.length ? inputs[i + 1]! : chainLoad));
   const firstIn = inputs[0]!;
   const gain = gains.reduce((g, x) => g * x, Number.isFinite(firstIn) ? firstIn / (firstIn + rsource) : 1);
-  // What drives each grid, looking back from it: the stage before's output impedance (the source's for the first) in parallel with the leak.
+  // What drives each grid, looking back from it: the stage before's output impedance (the source's for the first) in
+  // parallel with the leak, then the grid stopper in series.
   const gridDrives = links.map((_, i) => {
     const before = i === 0 ? rsource : links[i - 1]!.zout;
     const zin = zins[i]!;
-    return Number.isFinite(zin) ? (before * zin) / (before + zin) : before;
+    return (Number.isFinite(zin) ? (before * zin) / (before + zin) : before) + stoppers[i]!;
   });
   const signal = new ChainSignal(links, sourceShare, gridDrives);
   // Each search starts from the small-signal estimate: the grid swing to 0 V over the gain up to that grid.

@@ -1,3 +1,4 @@
+import { stopperOf } from './stopperOf';
 import type { Result } from '../result';
 import { amplifierFindings } from '../stage/stageFindings';
 import { sineLevel } from '../signal/levels';
@@ -71,7 +72,12 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
 export function networkOf(input: ChainInput, a: PreparedAmplifier): ChainNetwork {
   return {
     rsource: input.source.rsource,
-    stages: input.stages.map((s, i) => ({ linear: a.links[i]!.linear, coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null, gin: a.gridConductances[i]! })),
+    stages: input.stages.map((s, i) => ({
+      linear: a.links[i]!.linear,
+      coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null,
+      gin: a.gridConductances[i]!,
+      stopper: stopperOf(s),
+    })),
     rl: input.load?.rl ?? Infinity,
     loadCc: input.load?.cc ?? null,
   };

@@ -9,7 +9,8 @@ import { decibelsOf } from './levels';
  * Small-signal response of the stage from the source to the output, by nodal
  * analysis of the linearised circuit at the operating point (the method of
  * any circuit simulator's AC analysis). Nodes: a (after the source
- * impedance), g (grid), p (plate), k (cathode), o (output, across RL). The
+ * impedance), x (the grid leak's top, after Cin), g (grid, behind the grid
+ * stopper from x), p (plate), k (cathode), o (output, across RL). The
  * tube is a current source gm·vgk with rp across plate–cathode; its
  * interelectrode capacitances Cgk, Cgp and Cpk are in the circuit, so the
  * Miller effect with the source impedance comes out of the equations rather
@@ -27,8 +28,8 @@ export interface ResponsePoint {
 /** Admittance standing in for an ideal short: far above any other in the network, yet finite for the solver. */
 const SHORT = 1e9;
 
-/** Node order of the matrix: a, g, p, k, o. */
-const N = 5;
+/** Node order of the matrix: a, g, p, k, o, x. */
+const N = 6;
 const W = N + 1;
 
 /** The circuit's admittances that do not depend on frequency, and the capacitances that scale with it. */
@@ -41,6 +42,8 @@ function networkOf(s: SolvedStage) {
     gp: 1 / s.solution.rp,
     gRs: g(d.rsource),
     gRg: d.rg === null ? 0 : 1 / d.rg,
+    // No stopper: the leak's top is the grid itself (a huge conductance between them would cancel the grid's microsiemens).
+    gStopper: d.rstopper > 0 ? 1 / d.rstopper : null,
     gRa: g(d.ra),
     gRk: d.rk > 0 ? 1 / d.rk : SHORT,
     gRl: g(d.rl),
@@ -76,7 +79,7 @@ function stamp(re: Float64Array, im: Float64Array, r: number, c: number, gr: num
   }
 }
 
-const [A, G, P, K, O] = [0, 1, 2, 3, 4];
+const [A, G, P, K, O, X] = [0, 1, 2, 3, 4, 5];
 
 /**
  * vout/vsource at one frequency: the nodal equations filled straight into
@@ -90,9 +93,12 @@ function solveAt(net: Network, freqHz: number): Complex {
   im.fill(0);
   stamp(re, im, A, -1, net.gRs, 0); // source impedance to the (1 V) source: its current enters the right-hand side
   re[A * W + N] = net.gRs;
-  if (net.cin === null) stamp(re, im, A, G, SHORT, 0);
-  else stamp(re, im, A, G, 0, w * net.cin);
-  stamp(re, im, G, -1, net.gRg, 0);
+  const x = net.gStopper === null ? G : X;
+  if (net.gStopper === null) stamp(re, im, X, -1, 1, 0); // the unused node, held at 0 V
+  else stamp(re, im, X, G, net.gStopper, 0);
+  if (net.cin === null) stamp(re, im, A, x, SHORT, 0);
+  else stamp(re, im, A, x, 0, w * net.cin);
+  stamp(re, im, x, -1, net.gRg, 0);
   stamp(re, im, G, K, 0, w * net.cgk);
   stamp(re, im, G, P, 0, w * net.cgp);
   stamp(re, im, P, -1, net.gRa, 0);

@@ -19,7 +19,8 @@ import type { OperatingPoint } from '../stage/solveStage';
  * `vin` is the grid's swing as the source would make it with no grid current
  * (its open-circuit voltage on the grid leak). Near and past the onset of
  * grid current the grid draws Ig (see gridCurrent) through the source and
- * leak in parallel, Rs ∥ Rg, and sits lower by Ig · (Rs ∥ Rg): that loop is
+ * leak in parallel and its grid stopper, Rs ∥ Rg + Rst, and sits lower by
+ * Ig · (Rs ∥ Rg + Rst): that loop is
  * solved with the plate's at every such instant, so a stage driven from a
  * real source goes on past the onset, compressing, as a real one does. (The
  * grid current's own share of an unbypassed Rk's drop is left out: below a
@@ -29,8 +30,10 @@ import type { OperatingPoint } from '../stage/solveStage';
  * the grid's own quiescent current through its leak, as solveStage finds
  * it). That quiescent current flows through the leak alone, the coupling
  * capacitor holding its drop; only the current above it (or below it, on the
- * swing down) flows through Rs ∥ Rg. So the grid's retarding-field current
- * loads the source even at small signals, as its input conductance.
+ * swing down) flows through Rs ∥ Rg + Rst. So the grid's retarding-field
+ * current loads the source even at small signals, as its input conductance.
+ * (The quiescent current's own drop on a stopper, a tenth or less of the
+ * leak's on a bias shift of millivolts, is left out.)
  */
 export interface TransferSample {
   readonly vin: number;
@@ -41,7 +44,7 @@ export interface TransferSample {
   readonly vpk: number;
   /** Grid current, A (through the source and grid leak). */
   readonly ig: number;
-  /** How far the grid current pulls the grid below its open-circuit swing, V: Ig · (Rs ∥ Rg). */
+  /** How far the grid current pulls the grid below its open-circuit swing, V: Ig · (Rs ∥ Rg + Rst). */
   readonly gridDrop: number;
 }
 
@@ -105,8 +108,9 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
   const vaOf = (ia: number) => (drive - ia) * rPar;
   const vkOf = (ia: number) => (degenerate ? ia * d.rk : op.vk);
   const model = modelOf(d.tube);
-  // What the grid sees looking back: the source and the grid leak in parallel (the leak alone carries no drop without a source).
-  const rGrid = d.rsource > 0 ? (d.rg === null ? d.rsource : (d.rsource * d.rg) / (d.rsource + d.rg)) : 0;
+  // What the grid sees looking back: the source and the grid leak in parallel (the leak alone carries no drop without a
+  // source), then the grid stopper in series.
+  const rGrid = (d.rsource > 0 ? (d.rg === null ? d.rsource : (d.rsource * d.rg) / (d.rsource + d.rg)) : 0) + d.rstopper;
 
   // The grid's quiescent current, through the leak alone (the coupling capacitor holds its drop).
   const quiescentIg = gridCurrent(model, op.vgk);

@@ -25,6 +25,13 @@ export interface StageDesign {
   readonly rsource?: number;
   /** Input coupling capacitor, F; absent means direct coupling. */
   readonly cin?: number;
+  /**
+   * Grid stopper, Ω: in series with the grid, after the grid leak (at the
+   * socket); default 0, none. It carries no DC below grid current, so it
+   * moves no operating point; with the grid's Miller capacitance it rolls
+   * off the top of the band.
+   */
+  readonly rstopper?: number;
   /** Cathode bypass capacitor, F. When given it replaces the ideal `bypassed` in the frequency response; at midband the cathode counts as bypassed. */
   readonly ck?: number;
   /** Output coupling capacitor into RL, F; absent means an ideal (infinite) one. */
@@ -43,6 +50,7 @@ export interface CheckedStage {
   readonly heaterVolts: number;
   readonly rsource: number;
   readonly cin: number | null;
+  readonly rstopper: number;
   readonly ck: number | null;
   readonly cout: number | null;
 }
@@ -70,6 +78,7 @@ export function normalizeStage(raw: StageDesign): Result<CheckedStage> {
     (raw.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', raw.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts)) ??
     (raw.rsource === undefined || raw.rsource === 0 ? null : checkNumber('rsource', 'Source impedance (0 for an ideal source)', raw.rsource, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
     (raw.cin === undefined ? null : checkNumber('cin', 'Cin', raw.cin, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
+    (raw.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', raw.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
     (raw.ck === undefined ? null : checkNumber('ck', 'Ck', raw.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
     (raw.cout === undefined ? null : checkNumber('cout', 'Cout', raw.cout, 'F', LIMITS.minFarads, LIMITS.maxFarads));
   if (problem) return problem;
@@ -89,6 +98,7 @@ export function normalizeStage(raw: StageDesign): Result<CheckedStage> {
     heaterVolts: raw.heaterVolts ?? STAGE_DEFAULTS.heaterVolts,
     rsource: raw.rsource ?? 0,
     cin: raw.cin ?? null,
+    rstopper: raw.rstopper ?? 0,
     ck: raw.ck ?? null,
     cout: raw.cout ?? null,
   };

@@ -73,6 +73,20 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     expect(p.capacitors.map((c) => c.ref)).toEqual(['Cc3']);
   });
 
+  it('a gain stage with a grid stopper lists it after its leak, carrying no current (its grid draws none below the onset)', () => {
+    const stopped: ChainInput = { ...input, stages: input.stages.map((s, i) => (i === 2 ? { ...s, rstopper: 33e3 } : s)) };
+    const r = solveAmplifier(stopped);
+    if (!r.ok) throw new Error(r.message);
+    const p = chainStageParts(stopped, r, 2, 'E12')!;
+    expect(p.resistors.map((x) => x.ref)).toEqual(['Ra3', 'Rk3', 'Rg3', 'Rst3']);
+    const rst = line(p.resistors, 'Rst3');
+    expect(rst.role).toBe('stage 3 grid stopper, at the socket');
+    expect(rst.preferred).toBe(33e3);
+    expect(rst.watts).toBe(0);
+    // Without one, none is listed.
+    expect(partsOf(2).resistors.map((x) => x.ref)).not.toContain('Rst3');
+  });
+
   it('a long-tailed pair: the tail carries both triodes\' current, its outputs are coupled by the pair\'s capacitors', () => {
     const p = partsOf(3);
     expect(p.title).toBe('Phase splitter, 12AU7 long-tailed pair');

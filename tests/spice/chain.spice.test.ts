@@ -115,6 +115,19 @@ const chains: { label: string; chain: ChainInput; levelShare: number }[] = [
     },
     levelShare: 0.6,
   },
+  {
+    label: 'grid stoppers: 68k at a 12AX7 input from a 10k source, 4.7k at a 12AU7 direct-coupled to the plate before',
+    chain: {
+      source: { rsource: 10e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 47e-6, rstopper: 68e3, coupling: { kind: 'capacitor', cc: 47e-9, rg: 1e6 } },
+        { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 220e3, rk: 1500, bypassed: false, coupling: { kind: 'capacitor', cc: 22e-9, rg: 470e3 } },
+        { kind: 'common-cathode', tube: au7, bplus: 350, ra: 15e3, rk: 18e3, bypassed: false, rstopper: 4.7e3, coupling: { kind: 'direct' } },
+      ],
+      load: { rl: 220e3, cc: 100e-9 },
+    },
+    levelShare: 0.6,
+  },
 ];
 
 const dB = (x: number) => 20 * Math.log10(x);

@@ -58,11 +58,14 @@ export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k
 function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle?: { readonly lp: number }): { lines: string[]; output: string; output2?: string } {
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
-  const gnode = s.coupling.kind === 'direct' ? input : `g${i}`;
-  const lines: string[] = [];
+  // A gain stage's grid stopper: the coupling (or the output before, direct) ends at its far side, the grid behind it.
+  const stopper = s.kind === 'common-cathode' && (s.rstopper ?? 0) > 0 ? s.rstopper! : 0;
+  const gnode = s.coupling.kind === 'direct' && stopper === 0 ? input : `g${i}`;
+  const leakTop = stopper > 0 ? (s.coupling.kind === 'direct' ? input : `g${i}x`) : gnode;
+  const lines: string[] = stopper > 0 ? [`RST${i} ${leakTop} ${gnode} ${g(stopper)}`] : [];
   if (s.coupling.kind === 'capacitor') {
     const vbias = s.kind === 'single-ended-output' || s.kind === 'push-pull-output' ? (s.bias === 'fixed' ? s.vg : 0) : (s.vbias ?? 0);
-    lines.push(`CC${i} ${input} ${gnode} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${gnode} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
+    lines.push(`CC${i} ${input} ${leakTop} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${leakTop} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
     // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
     if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b gb${i} ${g(s.coupling.rg)}`);
   }

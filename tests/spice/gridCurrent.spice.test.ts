@@ -14,6 +14,8 @@ const cases = [
   { id: '12AX7', label: '100k source, 1.5 times the clean drive', d: { bplus: 300, ra: 100e3, rk: 1500, bypassed: true, rl: 470e3, rsource: 100e3, rg: 1e6 }, drive: 1.5 },
   { id: '12AU7', label: '100k source (the published tables\u2019 generator), twice the clean drive', d: { bplus: 300, ra: 100e3, rk: 1800, bypassed: true, rl: 100e3, rsource: 100e3, rg: 1e6 }, drive: 2 },
   { id: '6SN7', label: '47k source, unbypassed, 1.3 times the clean drive', d: { bplus: 350, ra: 47e3, rk: 2200, bypassed: false, rl: 220e3, rsource: 47e3, rg: 470e3 }, drive: 1.3 },
+  // A near-ideal source: the grid current flows through the grid stopper alone.
+  { id: '12AX7', label: '1k source, 68k grid stopper, twice the clean drive', d: { bplus: 300, ra: 100e3, rk: 1500, bypassed: true, rl: 470e3, rsource: 1e3, rg: 1e6, rstopper: 68e3 }, drive: 2 },
 ];
 
 const dB = (x: number) => 20 * Math.log10(x);

@@ -46,6 +46,8 @@ export interface SpiceStage {
   readonly rsource?: number;
   readonly cin?: number;
   readonly rg?: number;
+  /** Grid stopper, Ω, between the grid leak's top and the grid. */
+  readonly rstopper?: number;
   readonly ck?: number;
   readonly cout?: number;
   /** The grid-current law, when the stage's grid draws current (absent: none, as Koren's plate law alone). */
@@ -58,7 +60,9 @@ export interface SpiceStage {
  * unity buffer of the plate when there is no RL.
  */
 function stageElements(s: SpiceStage, source: string, large = { bypass: 1, coupling: 1 }): string[] {
-  const hasInputNetwork = s.rsource !== undefined || s.cin !== undefined;
+  const stopped = (s.rstopper ?? 0) > 0;
+  const hasInputNetwork = s.rsource !== undefined || s.cin !== undefined || stopped;
+  const leakTop = stopped ? 'x' : 'grid';
   return [
     triodeSubckt('tri', s.params, s.caps, s.grid),
     `VB bplus 0 DC ${g(s.bplus)}`,
@@ -67,8 +71,9 @@ function stageElements(s: SpiceStage, source: string, large = { bypass: 1, coupl
     s.rk > 0 && (s.ck !== undefined || s.bypassed) ? `CK cathode 0 ${g(s.ck ?? large.bypass)}` : '',
     hasInputNetwork ? `VS src 0 ${source}` : `VG grid 0 ${source}`,
     hasInputNetwork ? `RS src a ${g(Math.max(s.rsource ?? 0, 1e-3))}` : '',
-    hasInputNetwork ? `CIN a grid ${g(s.cin ?? large.coupling)}` : '',
-    hasInputNetwork ? `RG grid gbias ${g(s.rg ?? 1e12)}\nVGB gbias 0 DC ${g(s.vbias)}` : '',
+    hasInputNetwork ? `CIN a ${leakTop} ${g(s.cin ?? large.coupling)}` : '',
+    hasInputNetwork ? `RG ${leakTop} gbias ${g(s.rg ?? 1e12)}\nVGB gbias 0 DC ${g(s.vbias)}` : '',
+    stopped ? `RST ${leakTop} grid ${g(s.rstopper!)}` : '',
     'X1 plate grid cathode tri',
     Number.isFinite(s.rl) ? `CO plate out ${g(s.cout ?? large.coupling)}\nRL out 0 ${g(s.rl)}` : 'EO out 0 plate 0 1',
   ].filter((l) => l !== '');

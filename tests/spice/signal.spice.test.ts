@@ -48,6 +48,9 @@ describe.runIf(run)('-3 dB points agree with an ngspice AC sweep', () => {
     { id: '12AU7', label: '10k source, 100n in, 470k leak, 100u bypass, 470n into 100k', d: { bplus: 275, ra: 27e3, rk: 1200, bypassed: true, rl: 100e3, vbias: 0, rsource: 10e3, cin: 100e-9, rg: 470e3, ck: 100e-6, cout: 470e-9 } },
     { id: '6SL7', label: '100k source (a level control at mid setting), 47n in, unbypassed, 47n into 220k', d: { bplus: 300, ra: 100e3, rk: 1800, bypassed: false, rl: 220e3, vbias: 0, rsource: 100e3, cin: 47e-9, rg: 1e6, cout: 47e-9 } },
     { id: '6DJ8', label: '600 ohm source, 1u in, 220k leak, 470u bypass, 1u into 47k', d: { bplus: 150, ra: 8.2e3, rk: 220, bypassed: true, rl: 47e3, vbias: 0, rsource: 600, cin: 1e-6, rg: 220e3, ck: 470e-6, cout: 1e-6 } },
+    // A grid stopper at the socket: with the grid's Miller capacitance it sets the top of the band.
+    { id: '12AX7', label: '10k source, 22n in, 1M leak, 68k grid stopper, 22u bypass, 22n into 1M', d: { bplus: 300, ra: 100e3, rk: 1500, bypassed: true, rl: 1e6, vbias: 0, rsource: 10e3, cin: 22e-9, rg: 1e6, rstopper: 68e3, ck: 22e-6, cout: 22e-9 } },
+    { id: '12AU7', label: '1k source, 100n in, 470k leak, 10k grid stopper, unbypassed, 100n into 220k', d: { bplus: 250, ra: 22e3, rk: 1000, bypassed: false, rl: 220e3, vbias: 0, rsource: 1e3, cin: 100e-9, rg: 470e3, rstopper: 10e3, cout: 100e-9 } },
   ];
   it.each(networks.map((n) => [`${n.id}: ${n.label}`, n] as const))('%s', (_label, n) => {
     const tube = findTube(n.id)!;
