@@ -58,7 +58,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       heading: build.stages.length > 1 ? `${build.stages.find((st) => st.onBench)?.title ?? 'Stage'} (on the bench)` : 'Stage',
       lines: [
         `${d.tubeId}, B+ ${volts(d.bplus)}, Ra ${ohms(d.ra)}, Rk ${ohms(d.rk)}${d.bypassed ? ` bypassed${d.ck ? ` by ${farads(d.ck)}` : ''}` : ' unbypassed'}`,
-        `RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}, Rs ${ohms(d.rsource)}, Cin ${d.cin ? farads(d.cin) : 'none'}, Rg ${ohms(d.rg)}, Cout ${d.cout ? farads(d.cout) : 'none'}`,
+        `RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}, Rs ${ohms(d.rsource)}, Cin ${d.cin ? farads(d.cin) : 'none'}, Rg ${ohms(d.rg)}${d.rstopper ? `, grid stopper ${ohms(d.rstopper)}` : ''}, Cout ${d.cout ? farads(d.cout) : 'none'}`,
       ],
     },
     {

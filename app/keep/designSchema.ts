@@ -65,6 +65,8 @@ export const BENCH_STAGE = v.object({
   rsource: ranged(L.rsource),
   cin: rangedOrNull(L.cin),
   rg: ranged(L.rg),
+  // Came later within version 3: absent, none.
+  rstopper: v.optional(ranged(L.rstopper)),
   ck: rangedOrNull(L.ck),
   cout: rangedOrNull(L.cout),
   levelRms: ranged(L.levelRms),
@@ -164,6 +166,8 @@ export const GAIN_STAGE = v.object({
   ck: rangedOrNull(L.ck),
   cc: rangedOrNull(L.cin),
   rg: ranged(L.rg),
+  // Came later within version 3: absent, none.
+  rstopper: v.optional(ranged(L.rstopper)),
 });
 export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk), coupling: FOLLOWER_COUPLING });
 

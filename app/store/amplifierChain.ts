@@ -72,6 +72,7 @@ function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[])
     return {
       kind: 'common-cathode', tube, bplus: p.bplus, ra: p.ra, rk: p.rk, bypassed: p.bypassed,
       ...(p.bypassed && p.ck !== null && p.rk > 0 ? { ck: p.ck } : {}),
+      ...(p.rstopper ? { rstopper: p.rstopper } : {}),
       coupling: p.cc === null ? { kind: 'direct' } : { kind: 'capacitor', cc: p.cc, rg: p.rg },
     };
   });

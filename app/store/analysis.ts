@@ -25,6 +25,8 @@ export interface BenchDesign {
   readonly cin: number | null;
   /** Grid leak, Ω. */
   readonly rg: number;
+  /** Grid stopper at the socket, Ω; 0 for none. */
+  readonly rstopper: number;
   /** Cathode bypass capacitor, F (used when bypassed); null for an ideal one. */
   readonly ck: number | null;
   /** Output coupling capacitor into RL, F; null for an ideal one. */
@@ -128,6 +130,7 @@ export function stageDesignOf(d: BenchDesign, tube: TubeRecord, registry: TubeRe
     rl: load,
     rg: d.rg,
     rsource: source.ok ? source.ohms : d.rsource,
+    ...(d.rstopper ? { rstopper: d.rstopper } : {}),
     ...(d.cin !== null ? { cin: d.cin } : {}),
     ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
     ...(after.cout !== null && !chained ? { cout: after.cout } : {}),

@@ -26,6 +26,7 @@ export const DEMO_DESIGN: BenchDesign = {
   rsource: 1e3,
   cin: 470e-9,
   rg: 1e6,
+  rstopper: 0,
   ck: 100e-6,
   cout: 1e-6,
   levelRms: 2,

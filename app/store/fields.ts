@@ -8,7 +8,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
-  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf' | 'feedbackCf'
+  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'rstopper' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf' | 'feedbackCf'
   | 'fCc' | 'fRg' | 'fVbias'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oLp' | 'oLl' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
@@ -87,6 +87,8 @@ const target = <K extends NumericTarget>(key: K) => ({
   get: (d: BenchDesign) => targetPlanOf(d)[key],
   put: (d: BenchDesign, v: number | null) => withTargetPlan(d, { ...targetPlanOf(d), [key]: v }),
 });
+/** A part that may be left out, held as 0: empty or "none" is 0. */
+const noneIsZero = (read: Read): Read => (text) => (text.trim() === '' || text.trim().toLowerCase() === 'none' ? { ok: true, value: 0 } : read(text));
 /** A target box: empty (or "none") leaves the target off. */
 const optional = (read: Read): Read => (text) => (text.trim() === '' || text.trim().toLowerCase() === 'none' ? { ok: true, value: null } : read(text));
 const showOptional = (show: (v: number | null) => string) => (v: number | null) => (v === null ? '' : show(v));
@@ -120,6 +122,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   rsource: { label: 'Source Rs', unit: 'Ω', example: '10k', read: ranged('Source impedance', L.rsource), show: compact, ...top('rsource') },
   cin: { label: 'Cin', unit: 'F', example: '68n or none', read: ranged('Cin', L.cin, { none: 'null' }), show: compact, ...top('cin') },
   rg: { label: 'Rg', unit: 'Ω', example: '2M2', read: ranged('Rg', L.rg), show: compact, ...top('rg') },
+  rstopper: { label: 'Grid stopper', unit: 'Ω', example: '68k or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.rstopper, put: (d, v) => ({ ...d, rstopper: v ?? 0 }) },
   ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', L.ck, { none: 'null' }), show: compact, ...top('ck') },
   cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', L.cout, { none: 'null' }), show: compact, ...top('cout') },
   feedbackRf: { label: 'Feedback Rf', unit: 'Ω', example: '47k or none', read: ranged('Feedback resistor', L.feedbackRf, { none: 'null' }), show: compact, ...top('feedbackRf') },

@@ -30,6 +30,8 @@ export interface GainPlan {
   readonly cc: number | null;
   /** Grid leak, Ω. */
   readonly rg: number;
+  /** Grid stopper at the socket, Ω; 0 or absent: none. */
+  readonly rstopper?: number;
 }
 
 /**
@@ -68,7 +70,7 @@ export const NEW_STAGE_RG = 470e3;
 
 /** The stage on the bench as a plan. */
 export function benchPlan(d: BenchDesign): GainPlan {
-  return { kind: 'common-cathode', tubeId: d.tubeId, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed, ck: d.ck, cc: d.cin, rg: d.rg };
+  return { kind: 'common-cathode', tubeId: d.tubeId, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed, ck: d.ck, cc: d.cin, rg: d.rg, ...(d.rstopper ? { rstopper: d.rstopper } : {}) };
 }
 
 /** The bench stage's second stage as plans: its follower, or a gain stage kept from a design before version 3. */
@@ -122,6 +124,7 @@ export function withStagesOnBench(d: BenchDesign, list: readonly StagePlan[], k:
     ck: on.ck,
     cin: on.cc,
     rg: on.rg,
+    rstopper: on.rstopper ?? 0,
     stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk, coupling: next.coupling } : { ...d.stage2, kind: 'none' },
     before: list.slice(0, k),
     after: list.slice(k + (follows ? 2 : 1)),

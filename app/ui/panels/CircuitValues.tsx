@@ -41,6 +41,7 @@ export function CircuitValues() {
         <ValueField field="rsource" hint={sourceHint} />
         <ValueField field="cin" hint={place > 0 ? `from stage ${place}` : undefined} />
         <ValueField field="rg" />
+        <ValueField field="rstopper" hint="at the socket, in series with the grid; “none” to leave it out" />
         <ValueField field="ck" hint="when bypassed" />
         <ValueField field="cout" hint={drivesNext ? 'the last voltage stage\'s' : undefined} />
       </div>

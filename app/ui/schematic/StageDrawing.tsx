@@ -20,6 +20,8 @@ interface DrawingProps {
   readonly coupled: boolean;
   readonly bypassed: boolean;
   readonly hasLoad: boolean;
+  /** A grid stopper between the leak and the grid. */
+  readonly stopped: boolean;
   readonly tubeId: string;
   readonly tube2Id: string;
 }
@@ -29,18 +31,25 @@ interface DrawingProps {
  * the circuit's shape, so a drag (which changes values, not wiring) never
  * renders it again.
  */
-export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, tubeId, tube2Id }: DrawingProps) {
+export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, stopped, tubeId, tube2Id }: DrawingProps) {
   const outX = kind === 'none' ? 300 : 404;
   const outY = kind === 'follower' ? 250 : 130;
   const fromX = kind === 'none' ? X1 : X2;
   return (
     <>
             <line x1={X1 - 30} x2={kind === 'none' ? X1 + 30 : X2 + 30} y1={RAIL} y2={RAIL} stroke="#1d2329" strokeWidth={3} />
-            {/* input network: source impedance, coupling capacitor, grid leak */}
+            {/* input network: source impedance, coupling capacitor, grid leak, grid stopper */}
             <text x={4} y={GRID_Y + 4} fontSize={12} fill="#4a535c">in</text>
             <HResistor x1={18} x2={72} y={GRID_Y} />
             <Capacitor at={GRID_Y} from={72} to={112} vertical={false} />
-            <Wire points={[[112, GRID_Y], [X1 - 36, GRID_Y]]} />
+            {stopped ? (
+              <>
+                <Wire points={[[112, GRID_Y], [124, GRID_Y]]} />
+                <HResistor x1={124} x2={X1 - 36} y={GRID_Y} />
+              </>
+            ) : (
+              <Wire points={[[112, GRID_Y], [X1 - 36, GRID_Y]]} />
+            )}
             <Dot x={120} y={GRID_Y} />
             <Resistor x={120} y1={GRID_Y} y2={344} />
             <Ground x={120} y={352} />

@@ -26,6 +26,7 @@ function labelSpots(kind: BenchDesign['stage2']['kind'], coupled: boolean): Part
     rsource: { x: 45, y: GRID_Y - 16, anchor: 'middle' },
     cin: { x: 92, y: GRID_Y - 20, anchor: 'middle' },
     rg: { x: 114, y: 252, anchor: 'end' },
+    rstopper: { x: 128, y: GRID_Y - 36, anchor: 'middle' },
     cout: { x: out.x - 24, y: out.yC - 20, anchor: 'middle' },
     rl: { x: out.x + 14, y: 290, anchor: 'start' },
     ...(kind === 'none' ? {} : { rk2: { x: X2 - 14, y: 302, anchor: 'end' as const } }),
@@ -49,6 +50,7 @@ function partText(f: FieldName, d: BenchDesign): string {
     case 'rsource': return `Rs ${ohms(d.rsource)}`;
     case 'cin': return d.cin === null ? 'direct' : farads(d.cin);
     case 'rg': return `Rg ${ohms(d.rg)}`;
+    case 'rstopper': return d.rstopper ? `Rst ${ohms(d.rstopper)}` : 'Rst none';
     case 'ck': return d.ck === null ? 'Ck ideal' : farads(d.ck);
     case 'cout': return d.cout === null ? 'ideal' : farads(d.cout);
     case 'ra2': return `Ra ${ohms(d.stage2.ra)}`;
@@ -86,7 +88,7 @@ export function StageSchematic() {
     <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
       <div className="schematic-frame">
         <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? `, then a cathode follower${coupled ? ', capacitor-coupled' : ''}` : ', then a second gain stage'}`}>
-          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
+          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} stopped={(design.rstopper ?? 0) > 0} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
           {fedBy ? (
             <g fontSize={12} fill="#4a535c" textAnchor="middle">
               <text x={45} y={GRID_Y - 44}>{`from stage ${fedBy.stage}`}</text>
@@ -119,7 +121,7 @@ export function StageSchematic() {
               tabIndex={0}
               className="schematic-part"
               data-part={f}
-              aria-label={`${FIELDS[f].label} ${partText(f, design).replace(/^(Ra|Rk|Rg|Rs|RL|B\+) /, '')}: change`}
+              aria-label={`${FIELDS[f].label} ${partText(f, design).replace(/^(Ra|Rk|Rg|Rs|Rst|RL|B\+) /, '')}: change`}
               onClick={() => setEditing(f)}
               onKeyDown={(e) => {
                 if (e.key === 'Enter' || e.key === ' ') {

@@ -1,5 +1,5 @@
 import { memo, type ReactNode } from 'react';
-import { Capacitor, Resistor, Winding } from './parts';
+import { Capacitor, HResistor, Resistor, Winding } from './parts';
 import { Pentode, Triode } from './tubes';
 import { Dot, Ground, Wire } from './wiring';
 import { farads, ohms, volts } from '../../format';
@@ -92,14 +92,23 @@ function PlateLoad({ x0, width, cx, r, ra, field, value }: { x0: number; width: 
   );
 }
 
-/** A common-cathode gain stage: its coupling and leak (from the second stage on), plate and cathode parts, B+. */
+/** A common-cathode gain stage: its coupling and leak (from the second stage on), its grid stopper, plate and cathode parts, B+. */
 export const GainCell = memo(function GainCell({ x0, p, value }: { x0: number; p: GainPlan; value: ValueLabel }) {
   const cx = x0 + 112;
   const r = 22;
+  const stopper = p.rstopper ?? 0;
   return (
     <>
       <Coupling x0={x0} cc={p.cc} value={value} field="cin" />
-      <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      {stopper > 0 ? (
+        <>
+          <Wire points={[[x0 + CC_END, GRID], [x0 + 56, GRID]]} />
+          <HResistor x1={x0 + 56} x2={cx - r} y={GRID} />
+          {value('rstopper', 'Grid stopper', x0 + 73, GRID - 12, ohms(stopper), 'middle')}
+        </>
+      ) : (
+        <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      )}
       {p.cc !== null && <GridLeak x0={x0} rg={p.rg} value={value} field="rg" />}
       <PlateLoad x0={x0} width={WIDTH.gain} cx={cx} r={r} ra={p.ra} field="ra" value={value} />
       {p.rk > 0 ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}

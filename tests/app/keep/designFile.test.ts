@@ -132,6 +132,23 @@ describe('design files', () => {
     expect(listed.doc.design.after).toEqual([]);
   });
 
+  it('grid stoppers round-trip on the bench and on a stage off it; a file from before them opens with none; a bad one is named', () => {
+    const stopped = {
+      title: 'Guitar input',
+      design: { ...DEMO_DESIGN, rstopper: 68e3, before: [{ ...GAIN, cc: 470e-9, rg: 1e6, rstopper: 10e3 }] as BenchDesign['before'] },
+    };
+    const back = readDesignFile(writeDesignFile(stopped));
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc).toEqual(stopped);
+    expect(voltageStages(back.doc.design).map((p) => (p.kind === 'common-cathode' ? (p.rstopper ?? 0) : null))).toEqual([10e3, 68e3]);
+    const older = readDesignFile(variant((f) => { delete f.design.rstopper; }));
+    if (!older.ok) throw new Error(older.message);
+    expect(older.doc.design.rstopper).toBe(0);
+    const bad = readDesignFile(variant((f) => { f.design.rstopper = 5; }));
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.message).toBe('design.rstopper must be 0 or a number from 10 to 1000000 Ω (found 5). Nothing was opened.');
+  });
+
   it('a version 2 file with a second gain stage opens as the same two-stage chain', () => {
     const v2 = variant((f) => {
       f.version = 2;

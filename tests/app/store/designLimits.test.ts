@@ -15,6 +15,7 @@ const FIELD_LIMITS: [FieldName, Limit, (d: BenchDesign, v: number) => BenchDesig
   ['rk', L.rk, (d, v) => ({ ...d, rk: v })],
   ['rsource', L.rsource, (d, v) => ({ ...d, rsource: v })],
   ['rg', L.rg, (d, v) => ({ ...d, rg: v })],
+  ['rstopper', L.rstopper, (d, v) => ({ ...d, rstopper: v })],
   ['level', L.levelRms, (d, v) => ({ ...d, levelRms: v })],
   ['ra2', L.stage2.ra, (d, v) => ({ ...d, stage2: { ...d.stage2, ra: v } })],
   ['rk2', L.stage2.rk, (d, v) => ({ ...d, stage2: { ...d.stage2, rk: v } })],
