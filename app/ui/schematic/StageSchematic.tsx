@@ -121,7 +121,7 @@ export function StageSchematic() {
               tabIndex={0}
               className="schematic-part"
               data-part={f}
-              aria-label={`${FIELDS[f].label} ${partText(f, design).replace(/^(Ra|Rk|Rg|Rs|Rst|RL|B\+) /, '')}: change`}
+              aria-label={`${FIELDS[f].label} ${partText(f, design).replace(/^(Ra|Rk|Rg|Rs|RL|B\+) /, '')}: change`}
               onClick={() => setEditing(f)}
               onKeyDown={(e) => {
                 if (e.key === 'Enter' || e.key === ' ') {
