@@ -1,6 +1,7 @@
 import { fail } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
-import { solveStage } from '../stage/solveStage';
+import { solveStage, withStopper } from '../stage/solveStage';
+import { stopperFinding } from '../stage/stopperFinding';
 import { normalizeStage, type StageDesign } from '../stage/stageDesign';
 import { stageTransfer } from '../signal/stageTransfer';
 import type { CommonCathodeLink } from './chainTypes';
@@ -44,10 +45,11 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
     const checked = normalizeStage(design);
     if (!checked.ok) return checked;
     const t = stageTransfer(checked, solved.op);
+    const stopper = stopperFinding(s.rstopper ?? 0, solved.cin);
     return triodeLink({
       tube: s.tube,
       coupling: s.coupling,
-      solved,
+      solved: stopper ? { ...solved, findings: withStopper(solved.findings, stopper) } : solved,
       outputDc: solved.op.va,
       at: (vin) => t.at(vin),
       network: {

@@ -14,6 +14,7 @@ export type FindingKind =
   | 'grid-current-onset'
   | 'grid-leak-bias'
   | 'grid-resistor'
+  | 'grid-stopper'
   | 'cathode-current'
   | 'screen-dissipation'
   | 'screen-voltage'

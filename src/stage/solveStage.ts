@@ -1,3 +1,4 @@
+import { stopperFinding } from './stopperFinding';
 import { GRID_CURRENT_ONSET, gridCurrent, gridSlope, MIN_GRID_CONDUCTANCE } from '../tube/gridCurrent';
 import { CUTOFF_FRACTION, gridVoltageForCurrent } from '../tube/koren';
 import { smallSignalAt } from '../tube/triode';
@@ -82,16 +83,21 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
     gainBypassed,
     gainUnbypassed,
     zout: commonCathodeZout(ss.mu, ss.rp, d.ra, d.rk, d.bypassed),
-    rin: inputResistance(d.rg, gridSlope((v) => gridCurrent(model, v), loop.vgk) * (1 - cathodeGain)),
+    rin: inputResistance(d.rg, gridSlope((v) => gridCurrent(model, v), loop.vgk) * (1 - cathodeGain), d.rstopper),
     cin,
     toGridCurrent: Math.max(0, GRID_CURRENT_ONSET - loop.vgk),
     toCutoff: loop.vgk - gridVoltageForCurrent(model.params, loop.vpk, CUTOFF_FRACTION * loop.ia),
-    findings: ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }),
+    findings: withStopper(ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }), stopperFinding(d.rstopper, cin)),
   };
 }
 
-/** A leak (null: none) in parallel with a grid's conductance, Ω; null for neither. */
-function inputResistance(rg: number | null, g: number): number | null {
+/** The ratings' findings, and the grid stopper's after them when there is one. */
+export const withStopper = <F>(findings: readonly F[], stopper: F | null): F[] => (stopper ? [...findings, stopper] : [...findings]);
+
+/** A leak (null: none) in parallel with a grid's conductance fed through the grid stopper, Ω; null for neither. */
+function inputResistance(rg: number | null, gGrid: number, stopper: number): number | null {
+  // The grid's slope behind its stopper: 1/(1/g + Rst).
+  const g = gGrid / (1 + stopper * gGrid);
   if (!(g > MIN_GRID_CONDUCTANCE)) return rg;
   return rg !== null ? rg / (1 + rg * g) : 1 / g;
 }

@@ -24,11 +24,14 @@ describe('a gain stage\'s grid stopper', () => {
     await user.clear(field);
     await user.type(field, '220k{Tab}');
     expect(store.getState().design.rstopper).toBe(220e3);
-    // The demo's driver (12AU7, gain about 12) has some 30 pF of Miller capacitance: 220 kΩ puts a corner near 24 kHz,
-    // well inside its 119 kHz band (first-order RC, 1/(2πRC)); the amplifier's top falls with it.
+    // The demo's driver (12AU7, gain about 12) has some 21 pF of Miller capacitance: with 220 kΩ its own corner is about
+    // 35 kHz, and with stage 1's 68 kΩ before it about 27 kHz (first-order RC, 1/(2πRC)), well inside the 119 kHz band it
+    // had; the amplifier's top falls with it.
     // (The signal views and the strip follow when typing pauses.)
     await waitFor(() => expect(stageBand()).toBeLessThan(stage0 / 2));
     await waitFor(() => expect(amplifierBand()).toBeLessThan(amp0 / 2));
+    // The ratings list says what the stopper does: its own corner with the grid's Miller capacitance.
+    expect(screen.getByText(/^Grid stopper 220 kΩ with the grid's 2\d.\d pF \(Miller effect\): its own corner is 3\d.\d kHz, above the audio band/)).toBeTruthy();
     const part = view.container.querySelector('[data-part-line="Rst2"]');
     expect(part?.textContent).toMatch(/^Rst2 \(stage 2 grid stopper, at the socket\)220 kΩ E24/);
     expect(view.container.querySelector('[data-part="rstopper"]')!.textContent).toBe('Rst 220 kΩ');
