@@ -19,6 +19,8 @@ export interface RegionStage {
   readonly bypassed: boolean;
   /** The stage's own grid leak, Ω (default 1 MΩ). */
   readonly rg?: number;
+  /** Its grid stopper, Ω (default 0, none): the grid's current past its onset flows through it. */
+  readonly rstopper?: number;
 }
 
 /** A point no cathode-biased stage on this B+ can sit at (above the 0 V grid curve, or past the load line's end). */
@@ -63,7 +65,7 @@ const unreachable = UNREACHABLE_VERDICT;
 export function evaluatePoint(stage: RegionStage, targets: Targets, active: readonly TargetName[], vpk: number, ia: number): PointVerdict {
   const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia, rg: stage.rg ?? 1e6 });
   if (!at.ok) return unreachable;
-  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6 };
+  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0 };
   return judgeStage(design, targets, active);
 }
 

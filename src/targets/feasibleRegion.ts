@@ -34,6 +34,7 @@ export function feasibleRegion(stage: RegionStage, targets: Targets, grid: Regio
     checkNumber('rsource', 'Source impedance', stage.rsource, 'Ω', 0, LIMITS.maxOhms) ??
     (typeof stage.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
     (stage.rg === undefined ? null : checkNumber('rg', 'Rg', stage.rg, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
+    (stage.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', stage.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
     targetsProblem(targets);
   if (problem) return problem;
   const nx = grid?.nx ?? 60;

@@ -36,6 +36,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('swing', fc.tuple(near(stage)), Q.swing);
   run('distortion', fc.tuple(near(stage), near({ outputRms: 2 }), near({ samples: 256 })), Q.distortion, 200);
   run('feasibleRegion', fc.tuple(near({ tube: au7, bplus: 250, rl: 100e3, rsource: 1e3, bypassed: true }), fc.oneof(near({ minGain: 10, maxThdAt: { outputRms: 2, thd: 0.01 }, raRange: [10e3, 50e3] }), anything), or(near({ nx: 6, ny: 5 }))), Q.feasibleRegion, 60);
+  run('feasibleRegion (grid stopper)', fc.tuple(near({ tube: ax7, bplus: 300, rl: 470e3, rsource: 1e3, rstopper: 100e3, bypassed: true }), near({ minCleanOutputRms: 25, maxThdAt: { outputRms: 20, thd: 0.03 } }), or(near({ nx: 6, ny: 5 }))), Q.feasibleRegion, 30);
   run('rankTubes', fc.tuple(fc.oneof(near({ minGain: 10, minCleanOutputRms: 5 }), anything), near({ bplus: 250, rl: 100e3, rsource: 1e3, bypassed: true }), or(fc.constant([au7]))), Q.rankTubes, 30);
   run('preferredBest', fc.tuple(near(stage), fc.oneof(near({ minGain: 10, maxDissipationFraction: 0.6 }), anything), fc.oneof(fc.constantFrom('E12', 'E24', 'E96'), anything)), Q.preferredBest, 60);
   run('judgeDesign', fc.tuple(near(stage), fc.oneof(near({ minGain: 10, maxZout: 20e3, maxThdAt: { outputRms: 2, thd: 0.01 }, minGridHeadroom: 1 }), anything)), Q.judgeDesign, 60);

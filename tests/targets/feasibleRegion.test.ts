@@ -9,7 +9,7 @@ import { designAtPlanePoint, distortion, feasibleRegion, findTube, rankTubes, so
 function meets(stage: RegionStage, t: Targets, vpk: number, ia: number): boolean | 'unreachable' {
   const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia });
   if (!at.ok) return 'unreachable';
-  const design = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6 };
+  const design = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0 };
   const s = solveStage(design);
   if (!s.ok) return 'unreachable';
   const sw = swing(design);
@@ -50,6 +50,7 @@ describe('the region where a stage meets its targets', () => {
     ['12AX7: gain, clean output, THD at 2 V, dissipation, Zout', ax7, { minGain: 45, minCleanOutputRms: 20, maxThdAt: { outputRms: 2, thd: 0.01 }, maxDissipationFraction: 0.7, maxZout: 60e3 }, { vmax: 300, iaMax: 0.003 }],
     ['12AU7: grid headroom, Ra and Rk ranges, heater–cathode', au7, { minGridHeadroom: 4, raRange: [10e3, 47e3], rkRange: [470, 2200], heaterCathodeWithinRating: true }, { vmax: 250, iaMax: 0.015 }],
     ['12AU7 unbypassed, a high source: THD at 5 V and gain', { ...au7, bypassed: false, rsource: 100e3 }, { maxThdAt: { outputRms: 5, thd: 0.02 }, minGain: 8 }, { vmax: 250, iaMax: 0.015 }],
+    ['12AX7 behind a 100k grid stopper: clean output and THD at 10 V', { ...ax7, rsource: 1e3, rstopper: 100e3 }, { minCleanOutputRms: 15, maxThdAt: { outputRms: 10, thd: 0.03 } }, { vmax: 300, iaMax: 0.003 }],
   ];
   it.each(cases)('%s: every point off the boundary is what the full analysis says, inside or out', (_name, stage, targets, extent) => {
     const r = feasibleRegion(stage, targets, { nx: 30, ny: 24, extent });
