@@ -4,6 +4,7 @@ import { solveOutput, type OutputSolution } from '../output/solveOutput';
 import { CATHODE_BYPASS_CORNER_HZ } from '../output/outputParts';
 import { screenConductance, screenFeedPlan, type ScreenFeedPlan } from '../output/screenFeed';
 import { smallSignalAt } from '../tube/triode';
+import { recordOf } from '../tube/types';
 import { korenPentodeInto } from '../tube/pentode';
 import { pushPullInstant } from '../pushpull/pushPullDrive';
 import { solvePushPull, type PushPullSolution } from '../pushpull/solvePushPull';
@@ -53,8 +54,14 @@ export interface SupplyHum {
 /** The ripple's frequency for a mains frequency: twice it, as every rectifier here is full wave (a centre-tapped winding, a bridge, or a full-wave tube). */
 export const rippleHzOf = (mainsHz: number) => 2 * mainsHz;
 
+/** What drives a stage's grid at the ripple's frequency: the output impedance before it (the source's for the first stage), Ω, and that frequency, Hz. */
+interface GridDrive {
+  readonly before: number;
+  readonly rippleHz: number;
+}
+
 /** What a stage's output node does per volt on its B+, before the stages after it. */
-function injection(s: ChainStage, solved: ChainResult['stages'][number], load: number): number | null {
+function injection(s: ChainStage, solved: ChainResult['stages'][number], load: number, drive: GridDrive): number | null {
   const par = (a: number, b: number) => (Number.isFinite(b) ? (a * b) / (a + b) : a);
   if (s.kind === 'common-cathode' || s.kind === 'follower') {
     const { mu, rp } = smallSignalAt(s.tube, solved.op.va - solved.op.vk, solved.op.vgk);
@@ -76,7 +83,7 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
     const solved = solvePushPull(s.tube, pairDesignOf(s));
     return solved.ok ? pairInjection(s, solved, 'bplus') : null;
   }
-  if (s.kind === 'split-load' || s.kind === 'long-tailed-pair') return splitterInjection(s, solved, load);
+  if (s.kind === 'split-load' || s.kind === 'long-tailed-pair') return splitterInjection(s, solved, load, drive);
   return null;
 }
 
@@ -90,8 +97,19 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
  * pair after it takes the difference of its two grids (its even response
  * cancels), so the ripple's outputs (r1, r2) act as r1 − r2 over 1 − a,
  * where a is the splitter's own second-over-first output for a grid signal.
+ *
+ * The first grid is held only through what drives it, so the first plate's
+ * ripple also reaches it through the plate-to-grid capacitance: a divider
+ * of Cgp against the grid's drive at the ripple's frequency (the output
+ * before it through the coupling capacitor, beside the grid leak), which
+ * the splitter then amplifies as a signal, d1 at its first output (its
+ * second answers a·d1, so the pair sees d1 times it). That share is in
+ * quadrature with the resistive one (Cgp's current leads the ripple by
+ * 90°): a long-tailed pair with equal plates has no other, and its hum is
+ * all of it. The second grid's capacitor holds it; a split-load's plate
+ * ripple reaches its grid the same way, a part in ten thousand of its own.
  */
-function splitterInjection(s: SplitLoadLink | LongTailedPairLink, solved: ChainResult['stages'][number], load: number): number | null {
+function splitterInjection(s: SplitLoadLink | LongTailedPairLink, solved: ChainResult['stages'][number], load: number, drive: GridDrive): number | null {
   const rl = Number.isFinite(load) && load > 0 ? load : 1e15;
   const { op } = solved;
   const a = smallSignalAt(s.tube, op.va - op.vk, op.vgk);
@@ -133,7 +151,42 @@ function splitterInjection(s: SplitLoadLink | LongTailedPairLink, solved: ChainR
   if (!driven || !ripple || driven[0] === 0) return null;
   const antiphase = driven[1] / driven[0];
   const own = (ripple[0] - ripple[1]) / (1 - antiphase);
-  return Number.isFinite(own) ? own : null;
+  const [re, im] = capacitiveGrid(s, ripple[0], drive);
+  // The resistive share (real) and the capacitive one (re, im per volt on the grid) times the first output's gain.
+  const whole = Math.hypot(own + re * driven[0], im * driven[0]);
+  const signed = own < 0 ? -whole : whole;
+  return Number.isFinite(signed) ? signed : null;
+}
+
+/**
+ * The first grid's voltage, [re, im], per volt of ripple for a first plate
+ * moving by `plate`: Cgp's admittance jωC against the grid's own to ground,
+ * 1/Rg beside the output before it through its coupling capacitor
+ * (jωCc / (1 + jωCc·Zbefore)), or that output alone when direct-coupled.
+ */
+function capacitiveGrid(s: SplitLoadLink | LongTailedPairLink, plate: number, drive: GridDrive): readonly [number, number] {
+  const cgp = recordOf(s.tube)?.capacitances.cgp ?? 0;
+  if (!(cgp > 0) || !(drive.before >= 0)) return [0, 0];
+  const w = 2 * Math.PI * drive.rippleHz;
+  // The grid's admittance to ground, g + jb.
+  let g: number;
+  let b: number;
+  if (s.coupling.kind === 'capacitor') {
+    const x = w * s.coupling.cc;
+    const d = 1 + (x * drive.before) ** 2;
+    g = 1 / s.coupling.rg + (x * x * drive.before) / d;
+    b = x / d;
+  } else {
+    if (!(drive.before > 0)) return [0, 0];
+    g = 1 / drive.before;
+    b = 0;
+  }
+  // v = plate · jωC / (g + j(b + ωC))
+  const bc = w * cgp;
+  const den = g * g + (b + bc) ** 2;
+  const re = (plate * bc * (b + bc)) / den;
+  const im = (plate * bc * g) / den;
+  return Number.isFinite(re) && Number.isFinite(im) ? [re, im] : [0, 0];
 }
 
 /**
@@ -292,7 +345,8 @@ export function supplyHum(chain: ChainInput, solved: ChainResult, mainsHz = 50):
   const perVolt = chain.stages.map((s, k) => {
     const next = solved.stages[k + 1];
     const load = next ? (next.zin ?? Infinity) : (chain.load?.rl ?? Infinity);
-    return carriedFrom(k, injection(s, solved.stages[k]!, load));
+    const before = k === 0 ? chain.source.rsource : solved.stages[k - 1]!.zout;
+    return carriedFrom(k, injection(s, solved.stages[k]!, load, { before, rippleHz }));
   });
   const screens = chain.stages.map((s) => screenPath(s, rippleHz));
   const screenPerVolt = screens.map((p, k) => (p ? carriedFrom(k, p.perVolt) : null));
