@@ -2,7 +2,7 @@ import { bracketedRoot } from '../numeric/bracketedRoot';
 import type { Failure } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { parallel } from '../stage/parallel';
-import { solveLongTailedPair, tubeCurrent } from '../splitter/longTailedPair';
+import { bothTriodesFindings, solveLongTailedPair, tubeCurrent } from '../splitter/longTailedPair';
 import { CUTOFF_FRACTION, korenPlateCurrent } from '../tube/koren';
 import { modelOf, recordOf } from '../tube/types';
 import type { LongTailedPairLink } from './chainTypes';
@@ -112,8 +112,8 @@ export const longTailedPairKind: StageKind<LongTailedPairLink> = {
       antiphase: r.gain2 / r.gain1,
       sample,
       cutoffCurrent: CUTOFF_FRACTION * Math.min(o1.ia, o2.ia),
-      // One envelope: the second triode's findings where they say something the first's do not.
-      findings: [...r.findings[0], ...r.findings[1].filter((f) => !r.findings[0].some((g) => g.message === f.message))],
+      // One envelope: each triode's own findings named by it, the shared ones once.
+      findings: bothTriodesFindings(r.findings),
       // The first triode, the tail at its cathode, and the second triode (its grid at signal ground) on the same cathode, its
       // plate the second output; each plate's next grid loads it through its own coupling in the network.
       linear: {

@@ -232,3 +232,15 @@ function cleanSwing(p: Parameters<typeof korenPlateCurrent>[0], ops: readonly [O
   const peaks = [0, 1].map((i) => Math.min(Math.abs(plus.va[i]! - ops[i]!.va), Math.abs(minus.va[i]! - ops[i]!.va))) as [number, number];
   return { inputPeak: lo, peaks, limitedBy: end.ok ? 'cutoff' : end.by, tube: end.ok ? 1 : end.tube };
 }
+
+/**
+ * The pair's two triodes' findings as one envelope's list: a finding both
+ * say alike once, one they say differently (each plate's dissipation, say)
+ * named by its triode, so the list never shows two figures for one check
+ * without saying whose.
+ */
+export function bothTriodesFindings([first, second]: readonly [readonly Finding[], readonly Finding[]]): Finding[] {
+  const said = (f: Finding, by: readonly Finding[]) => by.some((g) => g.message === f.message);
+  const named = (f: Finding, who: string): Finding => ({ ...f, message: `${who} triode: ${f.message.charAt(0).toLowerCase()}${f.message.slice(1)}` });
+  return [...first.map((f) => (said(f, second) ? f : named(f, 'First'))), ...second.filter((f) => !said(f, first)).map((f) => named(f, 'Second'))];
+}

@@ -3,7 +3,7 @@ import type { Finding } from '../stage/findings';
 import type { OperatingPoint } from '../stage/solveStage';
 import type { TubeLike } from '../tube/types';
 import { solveCathodyne } from './cathodyne';
-import { solveLongTailedPair } from './longTailedPair';
+import { bothTriodesFindings, solveLongTailedPair } from './longTailedPair';
 import type { BalancePoint } from './splitterOutputs';
 
 /** Either phase splitter, as the push-pull stage after it loads it. SI units. */
@@ -84,7 +84,7 @@ export function solveSplitter(design: SplitterDesign): Result<SplitterResult> {
     limitedBy: r.swing.limitedBy,
     op: r.ops,
     tail: { current: r.tailCurrent, volts: r.tailVolts },
-    findings: [...r.findings[0], ...r.findings[1].filter((f) => !r.findings[0].some((g) => g.message === f.message))],
+    findings: bothTriodesFindings(r.findings),
   };
 }
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { findTube, solveLongTailedPair, type LongTailedPairDesign } from '../../src/index';
+import { bothTriodesFindings } from '../../src/splitter/longTailedPair';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own pair.
@@ -42,6 +43,20 @@ describe('the long-tailed pair', () => {
     expect(r.swing.inputPeak).toBeGreaterThan(1);
     expect([1, 2]).toContain(r.swing.tube);
     expect(r.swing.peaks[0]).toBeGreaterThan(r.swing.peaks[1] * 0.9);
+  });
+
+  it('lists each triode\'s own findings named by it, and what both say alike once', () => {
+    const r = solved({ ...base, ra2: 68e3 });
+    const list = bothTriodesFindings(r.findings);
+    const dissipation = list.filter((f) => f.kind === 'plate-dissipation').map((f) => f.message);
+    expect(dissipation).toHaveLength(2);
+    expect(dissipation[0]).toMatch(/^First triode: plate dissipation [\d.]+ W is \d+ % of the 2.75 W rating\.$/);
+    expect(dissipation[1]).toMatch(/^Second triode: plate dissipation [\d.]+ W is \d+ % of the 2.75 W rating\.$/);
+    // The two triodes share a cathode: its heater–cathode check reads the same for both, and is said once, unnamed.
+    const heater = list.filter((f) => f.kind === 'heater-cathode');
+    expect(heater).toHaveLength(1);
+    expect(heater[0]!.message).toMatch(/^Heater-to-cathode voltage/);
+    expect(list.length).toBe(r.findings[0].length + r.findings[1].filter((f) => !r.findings[0].some((g) => g.message === f.message)).length);
   });
 
   it('names the field of a bad value', () => {
