@@ -96,7 +96,7 @@ function followerParts(s: FollowerLink, at: PartsContext): Parts {
 function followerCouplingParts(c: { readonly cc: number; readonly rg: number; readonly vbias: number }, n: number, plateDc: number, bplus: number, series: PreferredSeries): Parts {
   const divider = gridDivider({ upper: `Rd${n}a`, lower: `Rd${n}b`, cap: `Cd${n}` }, bplus, c.vbias, series);
   return {
-    resistors: [resistorLine(`Rg${n}`, `stage ${n} follower grid leak (to the divider)`, c.rg, 0, series), ...divider.resistors],
+    resistors: [resistorLine(`Rg${n}`, `stage ${n} follower grid leak, to the divider`, c.rg, 0, series), ...divider.resistors],
     capacitors: [capacitorLine(`Cc${n}`, `coupling into the stage ${n} follower`, c.cc, plateDc - c.vbias, bplus - c.vbias, `+ to stage ${n - 1}'s plate`), divider.capacitor],
   };
 }
@@ -125,7 +125,7 @@ function splitterParts(s: SplitLoadLink | LongTailedPairLink, at: PartsContext):
   // Direct-coupled, the grid sits at the plate before it: no leak, no divider. A long-tailed pair's second grid still
   // needs its leak to that voltage, held at signal ground by its capacitor.
   const leak = s.coupling.kind === 'capacitor' ? s.coupling.rg : both ? s.heldGridLeak : undefined;
-  if (leak !== undefined) resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks (one per grid, to the divider)' : 'splitter grid leak (to the divider)', leak, 0, series));
+  if (leak !== undefined) resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks, one per grid, to the divider' : 'splitter grid leak, to the divider', leak, 0, series));
   if (s.coupling.kind === 'capacitor') {
     const divider = gridDivider({ upper: 'Rd1', lower: 'Rd2', cap: 'Cd' }, s.bplus, s.vbias ?? 0, series);
     resistors.push(...divider.resistors);

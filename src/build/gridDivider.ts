@@ -22,7 +22,7 @@ export function gridDivider(refs: { readonly upper: string; readonly lower: stri
   const shunt = (upper * lower) / (upper + lower);
   return {
     resistors: [
-      resistorLine(refs.upper, `divider upper (with ${refs.lower} sets the grid near ${vgrid} V)`, upper, dividerAmps, series),
+      resistorLine(refs.upper, `divider upper, with ${refs.lower} setting the grid near ${vgrid} V`, upper, dividerAmps, series),
       resistorLine(refs.lower, 'divider lower', lower, dividerAmps, series),
     ],
     // Ordered at the next E12 value up (capacitors come in E12 values, common practice): the corner lands at or below the one asked.

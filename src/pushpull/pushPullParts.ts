@@ -62,7 +62,7 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     // Ordered at the next E12 value up (common practice), so the corner lands at or below the one asked.
     capacitors.push(capacitorLine('Ck', 'cathode bypass, shared', capacitorForCorner(shunted, CATHODE_BYPASS_CORNER_HZ, 'E12').preferred, s.vk, 0, '+ to cathode'));
   }
-  resistors.push(resistorLine('Rg1, Rg2', d.bias === 'fixed' ? 'grid resistors to the bias supply (one per tube)' : 'grid resistors (one per tube)', d.rg, 0, series));
+  resistors.push(resistorLine('Rg1, Rg2', d.bias === 'fixed' ? 'grid resistors to the bias supply, one per tube' : 'grid resistors, one per tube', d.rg, 0, series));
   // Each tube's plate works into a quarter of Raa while both conduct (class A): the load its Miller gain is taken into.
   const slopes = slopesAt(s.tube, s.feed, s.idle[0].vpk, s.vgk, d.rPrimary / 2);
   const gridStopper = gridStopperFor(s.tube.capacitances, slopes.gm, slopes.rp, d.raa / 4);
