@@ -41,7 +41,7 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
       <span className="supply-hum-why">
         {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
         {uncounted ? ' Not counted: a stage whose own share could not be worked out at its operating point.' : ''}
-        {pairDriven ? ' A phase splitter\u2019s is the difference its ripple makes between its two outputs, which the pair passes on; a push-pull pair\u2019s own is what its mismatch leaves of its centre tap\u2019s ripple (a matched pair cancels it): set the tubes\u2019 mismatch to see what a real pair passes.' : ''}
+        {pairDriven ? ' A phase splitter\u2019s is the difference its ripple makes between its two outputs (with what its first plate\u2019s ripple puts on its first grid through the plate-to-grid capacitance), which the pair passes on; a push-pull pair\u2019s own is what its mismatch leaves of its centre tap\u2019s ripple (a matched pair cancels it): set the tubes\u2019 mismatch to see what a real pair passes.' : ''}
         {screened ? ' A pentode output stage\u2019s screens take the ripple of the node feeding them, straight (their plates\u2019 node, or the one named for them) or through their dropper and its bypass: a screen moves the plate current many times harder than the plate does, so filter it well. Screens above B+ on a node this supply does not feed are taken as clean.' : ''}
       </span>
     </p>
