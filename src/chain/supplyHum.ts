@@ -26,7 +26,8 @@ export interface SupplyHum {
    * an output stage), its screens held. A push-pull pair's is what its
    * mismatch leaves of the ripple on its centre tap (a matched pair's is
    * nothing); a phase splitter's, the difference its ripple makes between
-   * its two outputs, as the pair after it answers to it. Null where a
+   * its two outputs (its first plate's ripple on its first grid through
+   * Cgp included), as the pair after it answers to it. Null where a
    * stage's own cannot be worked out (a tube past its law's range).
    */
   readonly perVolt: readonly (number | null)[];
