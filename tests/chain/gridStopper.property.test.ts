@@ -41,7 +41,7 @@ describe('a grid stopper, for any gain stage', () => {
     );
   });
 
-  it('in a two-stage amplifier: the same operating points, a lower top, and the midband gain within 1 %', () => {
+  it('in a two-stage amplifier: the same operating points, a lower top, and a midband gain between the bare one and the grid\'s unloaded one', { timeout: 30_000 }, () => {
     fc.assert(
       fc.property(stage, ({ tube, bplus, ra, rk, bypassed, rsource, rstopper }) => {
         const input = (r: number): ChainInput => ({
@@ -53,12 +53,17 @@ describe('a grid stopper, for any gain stage', () => {
         });
         const bare = solveChain(input(0));
         const stopped = solveChain(input(rstopper));
+        // 1 GΩ in series: the grids' own conductance (their retarding-field current's slope) as good as cut off.
+        const unloaded = solveChain(input(1e9));
         expect(stopped.ok).toBe(bare.ok);
-        if (!bare.ok || !stopped.ok) return;
+        if (!bare.ok || !stopped.ok || !unloaded.ok) return;
         stopped.stages.forEach((st, i) => expect(st.op).toEqual(bare.stages[i]!.op));
         expect(stopped.highHz!).toBeLessThan(bare.highHz!);
-        // The grid's own input conductance is now fed through the stopper: a little less loading, never more than 1 %.
-        expect(Math.abs(stopped.gain / bare.gain - 1)).toBeLessThan(0.01);
+        // A grid near its onset loads what drives it through its current's slope; the stopper sits in series with that
+        // load, so the midband gain can only rise toward the gain with the grids unloaded (a 12AX7 near -0.7 V behind
+        // 87 kΩ rises by more than 1 %).
+        expect(Math.abs(stopped.gain)).toBeGreaterThanOrEqual(Math.abs(bare.gain) * (1 - 1e-12));
+        expect(Math.abs(stopped.gain)).toBeLessThanOrEqual(Math.abs(unloaded.gain) * (1 + 1e-12));
       }),
       { numRuns: 40 },
     );
