@@ -61,8 +61,23 @@ interface GridDrive {
   readonly rippleHz: number;
 }
 
+/** An output stage solved on its own (its winding, screens and the pair's two tubes), once for both its B+ share and its screens'; null for any other stage or one that fails. */
+type OutputSolved = { readonly kind: 'single-ended'; readonly solved: OutputSolution } | { readonly kind: 'pair'; readonly solved: PushPullSolution } | null;
+
+function outputSolved(s: ChainStage): OutputSolved {
+  if (s.kind === 'single-ended-output') {
+    const solved = solveOutput(s.tube, designOf(s));
+    return solved.ok ? { kind: 'single-ended', solved } : null;
+  }
+  if (s.kind === 'push-pull-output') {
+    const solved = solvePushPull(s.tube, pairDesignOf(s));
+    return solved.ok ? { kind: 'pair', solved } : null;
+  }
+  return null;
+}
+
 /** What a stage's output node does per volt on its B+, before the stages after it. */
-function injection(s: ChainStage, solved: ChainResult['stages'][number], load: number, drive: GridDrive): number | null {
+function injection(s: ChainStage, solved: ChainResult['stages'][number], load: number, drive: GridDrive, out: OutputSolved): number | null {
   const par = (a: number, b: number) => (Number.isFinite(b) ? (a * b) / (a + b) : a);
   if (s.kind === 'common-cathode' || s.kind === 'follower') {
     const { mu, rp } = smallSignalAt(s.tube, solved.op.va - solved.op.vk, solved.op.vgk);
@@ -76,14 +91,8 @@ function injection(s: ChainStage, solved: ChainResult['stages'][number], load: n
     const down = par(rp + (s.bypassed || s.rk === 0 ? 0 : (mu + 1) * s.rk), load);
     return down / (s.ra + down);
   }
-  if (s.kind === 'single-ended-output') {
-    const solved = solveOutput(s.tube, designOf(s));
-    return solved.ok ? outputInjection(s, solved, 'bplus') : null;
-  }
-  if (s.kind === 'push-pull-output') {
-    const solved = solvePushPull(s.tube, pairDesignOf(s));
-    return solved.ok ? pairInjection(s, solved, 'bplus') : null;
-  }
+  if (s.kind === 'single-ended-output') return out?.kind === 'single-ended' ? outputInjection(s, out.solved, 'bplus') : null;
+  if (s.kind === 'push-pull-output') return out?.kind === 'pair' ? pairInjection(s, out.solved, 'bplus') : null;
   if (s.kind === 'split-load' || s.kind === 'long-tailed-pair') return splitterInjection(s, solved, load, drive);
   return null;
 }
@@ -284,25 +293,27 @@ function outputInjection(s: SingleEndedLink, solved: OutputSolution, from: 'bplu
  * the corner exactly: a larger preferred one only filters more); none from
  * a node of their own.
  */
-function screenPath(s: ChainStage, rippleHz: number): { perVolt: number; share: number } | null {
+function screenPath(s: ChainStage, rippleHz: number, out: OutputSolved): { perVolt: number; share: number } | null {
   if ((s.kind !== 'single-ended-output' && s.kind !== 'push-pull-output') || s.connection !== 'pentode') return null;
   let perVolt: number | null;
   let plan: ScreenFeedPlan;
   let g: number;
   if (s.kind === 'single-ended-output') {
-    const solved = solveOutput(s.tube, designOf(s));
-    if (!solved.ok) return null;
+    if (out?.kind !== 'single-ended') return null;
+    const solved = out.solved;
     const { op } = solved;
     perVolt = outputInjection(s, solved, 'screen');
     plan = screenFeedPlan(s.bplus, s.screenVolts, op.ig2, s.screenFromNode);
     g = op.feed.kind === 'fixed' ? screenConductance(s.tube, op.feed.vg2k, op.vpk, op.vgk) : 0;
   } else {
-    const solved = solvePushPull(s.tube, pairDesignOf(s));
-    if (!solved.ok || solved.feed.kind !== 'fixed') return null;
+    if (out?.kind !== 'pair') return null;
+    const solved = out.solved;
+    const feed = solved.feed;
+    if (feed.kind !== 'fixed') return null;
     const [one, two] = solved.idle;
     perVolt = pairInjection(s, solved, 'screen');
     plan = screenFeedPlan(s.bplus, s.screenVolts, one.ig2 + two.ig2, s.screenFromNode);
-    g = screenConductance(solved.tube, solved.feed.vg2k, one.vpk, solved.vgk) + screenConductance(solved.tube2, solved.feed.vg2k, two.vpk, solved.vgk2);
+    g = screenConductance(solved.tube, feed.vg2k, one.vpk, solved.vgk) + screenConductance(solved.tube2, feed.vg2k, two.vpk, solved.vgk2);
   }
   if (perVolt === null || !Number.isFinite(perVolt)) return null;
   return { perVolt, share: screenShareOf(plan, g, rippleHz, s.screenFromNode === true) };
@@ -343,13 +354,14 @@ export function supplyHum(chain: ChainInput, solved: ChainResult, mainsHz = 50):
     for (let j = k + 1; j < n; j++) carried *= solved.stages[j]!.gain;
     return Number.isFinite(carried) ? carried : null;
   };
+  const outputs = chain.stages.map(outputSolved);
   const perVolt = chain.stages.map((s, k) => {
     const next = solved.stages[k + 1];
     const load = next ? (next.zin ?? Infinity) : (chain.load?.rl ?? Infinity);
     const before = k === 0 ? chain.source.rsource : solved.stages[k - 1]!.zout;
-    return carriedFrom(k, injection(s, solved.stages[k]!, load, { before, rippleHz }));
+    return carriedFrom(k, injection(s, solved.stages[k]!, load, { before, rippleHz }, outputs[k]!));
   });
-  const screens = chain.stages.map((s) => screenPath(s, rippleHz));
+  const screens = chain.stages.map((s, k) => screenPath(s, rippleHz, outputs[k]!));
   const screenPerVolt = screens.map((p, k) => (p ? carriedFrom(k, p.perVolt) : null));
   return { ok: true, perVolt, screenPerVolt, screenShare: screens.map((p, k) => (p && screenPerVolt[k] !== null ? p.share : null)) };
 }
