@@ -66,6 +66,7 @@ export const OUTPUT_LIMITS = {
 export function outputDesignProblem(d: OutputDesign, tube: OutputTube): Failure | null {
   if (!CONNECTIONS.includes(d.connection)) return fail('invalid-input', 'Choose pentode, triode or ultralinear connection', 'connection');
   if (!connectionsOf(tube).includes(d.connection)) return fail('invalid-input', `The ${tube.id} is a triode: it has no screen to connect`, 'connection');
+  if (d.bias !== 'cathode' && d.bias !== 'fixed') return fail('invalid-input', 'Choose cathode or fixed bias', 'bias');
   const L = OUTPUT_LIMITS;
   return (
     checkNumber('bplus', 'B+', d.bplus, 'V', L.minBplus, L.maxBplus) ??

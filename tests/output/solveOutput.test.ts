@@ -35,6 +35,9 @@ describe('output stage operating point', () => {
     expect(bad.ok === false && bad.field === 'zPrimary' && /at least 100/.test(bad.message)).toBe(true);
     const noScreen = solveOutput(findOutputTube('300B')!, { ...base, connection: 'ultralinear' });
     expect(noScreen.ok === false && noScreen.field === 'connection').toBe(true);
+    // Found by the robustness runs at twenty times their count: a bias that was neither read as fixed bias with an Rk of 0.
+    const noBias = solveOutput(EL34, { ...base, bias: null as unknown as 'fixed', rk: 0 });
+    expect(noBias.ok === false && noBias.field === 'bias' && /cathode or fixed/.test(noBias.message)).toBe(true);
   });
 
   it('finds the bias and B+ that put the point where it was dragged (inverse design, property)', () => {
