@@ -114,6 +114,8 @@ export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { supplyHum, humAtOutput, type SupplyHum, type HumAtOutput } from './chain/supplyHum';
 export { humOnSupply } from './chain/humOnSupply';
+export { NOISE_BAND_HZ, type ChainNoise } from './chain/chainNoise';
+export { TRIODE_NOISE_RESISTANCE_GM } from './chain/chainResponse';
 export { supplyTangent, supplyNear, nearbyLoads, type SupplyTangent } from './supply/supplyTangent';
 export { bplusAgreement, BPLUS_AGREEMENT } from './supply/bplusAgreement';
 export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';

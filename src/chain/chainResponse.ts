@@ -86,11 +86,51 @@ function seriesRl(r: number, l: number, omega: number): [number, number] {
   return d === 0 ? [SHORT, 0] : [r / d, -x / d];
 }
 
+/**
+ * A noise current's place in the network: between nodes `a` and `b` (−1:
+ * ground), its one-sided power spectral density `psd`, A²/Hz. Every
+ * physical resistance gives 4kT·Re(Y) (Nyquist); a tube's plate current
+ * its equivalent noise resistance's voltage times gm.
+ */
+export interface NoiseCurrent {
+  readonly a: number;
+  readonly b: number;
+  readonly psd: number;
+}
+
+/** Boltzmann's constant times a room temperature of 290 K (the IEEE noise reference), J. */
+export const KT = 1.380649e-23 * 290;
+
+/**
+ * A triode's equivalent noise resistance at the grid, Ω, over its gm: 2.5/gm
+ * (the shot noise of its plate current, space-charge limited; Valley and
+ * Wallman, Vacuum Tube Amplifiers, ch. 12, from memory). A pentode's partition
+ * noise is left out: it matters only at an output stage, far below the first
+ * stage's noise amplified.
+ */
+export const TRIODE_NOISE_RESISTANCE_GM = 2.5;
+
+/** The network's equations at one frequency, filled into `scratch`; where the output sits, its scale, and the row an equation holds (not Kirchhoff's). */
+interface Filled {
+  readonly n: number;
+  readonly out: number;
+  readonly scale: number;
+  readonly equationRow: number;
+}
+
 /** vout / vsource at one frequency as [re, im] (the output's phase against the source's), or null when the network cannot be solved. */
 export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scratchFor(net)): [number, number] | null {
+  const f = fillChain(net, freqHz, scratch, null);
+  const { xr, xi } = scratch;
+  if (!csolveFlat(scratch.re, scratch.im, f.n, xr, xi)) return null;
+  return [xr[f.out]! * f.scale, xi[f.out]! * f.scale];
+}
+
+/** Fills the equations; with `noise`, each physical resistance's and each tube's noise current is recorded as it is stamped. */
+export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType<typeof scratchFor>, noise: NoiseCurrent[] | null): Filled {
   const n = nodeCount(net);
   const w = n + 1;
-  const { re, im, xr, xi } = scratch;
+  const { re, im } = scratch;
   re.fill(0);
   im.fill(0);
   const add = (r: number, c: number, g: number, b: number) => {
@@ -105,14 +145,23 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
       add(b, a, -g, -bi);
     }
   };
+  // A physical resistance (with any reactance in series or across it): stamped, and its thermal noise recorded.
+  const resistor = (a: number, b: number, g: number, bi: number) => {
+    stamp(a, b, g, bi);
+    if (noise && g > 0 && g < SHORT) noise.push({ a, b, psd: 4 * KT * g });
+  };
+  // A tube's plate current noise, plate to cathode: gm times its equivalent noise resistance's voltage.
+  const tubeNoise = (p: number, k: number, gm: number) => {
+    if (noise && gm > 0) noise.push({ a: p, b: k, psd: 4 * KT * TRIODE_NOISE_RESISTANCE_GM * gm });
+  };
   const omega = 2 * Math.PI * freqHz;
   const gs = conductance(net.rsource);
-  stamp(0, -1, gs, 0);
+  resistor(0, -1, gs, 0);
   const fb = net.feedback;
   // The 1 V source's current through its impedance; with the loop broken, the source is at rest and Rf's end is driven instead.
   re[0 * w + n] = fb?.mode === 'broken' ? 0 : gs;
   const fNode = fb ? n - 1 : -1;
-  if (fb) stamp(fNode, 3, 1 / fb.rf, fb.cf === null ? 0 : omega * fb.cf);
+  if (fb) resistor(fNode, 3, 1 / fb.rf, fb.cf === null ? 0 : omega * fb.cf);
   let previous = 0;
   let previous2: number | null = null;
   let scale = 1;
@@ -125,7 +174,7 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
       if (coupling === null) stamp(from, to, SHORT, 0);
       else {
         stamp(from, to, 0, omega * coupling.cc);
-        stamp(to, -1, 1 / coupling.rg, 0);
+        resistor(to, -1, 1 / coupling.rg, 0);
       }
     };
     if (stopper !== undefined && stopper > 0) {
@@ -133,7 +182,7 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
       // hangs from the output before.
       const x = coupling === null ? previous : spare++;
       if (coupling !== null) couple(previous, x);
-      stamp(x, g, 1 / stopper, 0);
+      resistor(x, g, 1 / stopper, 0);
     } else couple(previous, g);
     const g2 = s.pair && previous2 !== null ? spare++ : null;
     if (g2 !== null) couple(previous2!, g2);
@@ -143,14 +192,15 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
       const [m, x] = [spare, spare + 1];
       spare += 2;
       const half = (wdg.ll ?? 0) / 2;
-      stamp(p, m, ...seriesRl(wdg.rSeries, half, omega));
+      resistor(p, m, ...seriesRl(wdg.rSeries, half, omega));
       if (wdg.lm !== null) stamp(m, -1, ...seriesRl(0, wdg.lm, omega));
       stamp(m, x, ...seriesRl(0, half, omega));
-      stamp(x, -1, conductance(wdg.reflected), 0);
-    } else stamp(p, -1, conductance(s.plateLoad), 0);
+      resistor(x, -1, conductance(wdg.reflected), 0);
+    } else resistor(p, -1, conductance(s.plateLoad), 0);
     const rk = fb && i === 0 ? fb.rk : s.rk;
-    stamp(k, -1, s.cathodeGrounded ? SHORT : conductance(rk), s.ck === null ? 0 : omega * s.ck);
+    resistor(k, -1, s.cathodeGrounded ? SHORT : conductance(rk), s.ck === null ? 0 : omega * s.ck);
     stamp(p, k, 1 / s.rp, omega * s.caps.cpk);
+    tubeNoise(p, k, s.gm);
     stamp(g, k, 0, omega * s.caps.cgk);
     if (g2 === null) {
       stamp(g, p, 0, omega * s.caps.cgp);
@@ -179,10 +229,11 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
     // A long-tailed pair's second triode: grid at signal ground, so gm·(0 − vk) from its plate to the shared cathode.
     const p2 = s.second ? spare++ : null;
     if (s.second && p2 !== null) {
-      stamp(p2, -1, conductance(s.second.plateLoad), omega * s.caps.cgp);
+      resistor(p2, -1, conductance(s.second.plateLoad), omega * s.caps.cgp);
       stamp(p2, k, 1 / s.second.rp, omega * s.caps.cpk);
       stamp(k, -1, 0, omega * s.caps.cgk);
       add(p2, k, -s.second.gm, 0);
+      tubeNoise(p2, k, s.second.gm);
       add(k, k, s.second.gm, 0);
     }
     previous = wdg ? spare - 1 : s.output === 'plate' ? p : k;
@@ -195,7 +246,7 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
     stamp(previous, l, 0, omega * net.loadCc!);
     previous = l;
   }
-  stamp(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
+  resistor(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
   if (fb) {
     // Rf's end is held by a source, its row that source's equation: 1 V with the loop broken, else the output times the
     // secondary's sense. (Written as an equation, not as a huge conductance to a source: that would swamp the grid's
@@ -208,8 +259,7 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
     if (fb.mode === 'broken') re[fNode * w + n] = 1;
     else re[fNode * w + previous] = -fb.polarity * scale;
   }
-  if (!csolveFlat(re, im, n, xr, xi)) return null;
-  return [xr[previous]! * scale, xi[previous]! * scale];
+  return { n, out: previous, scale, equationRow: fNode };
 }
 
 export function scratchFor(net: ChainNetwork) {

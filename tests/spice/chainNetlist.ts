@@ -50,7 +50,7 @@ function windingOf(s: { readonly primaryInductance?: number | null; readonly lea
  * Inside the clean limit only: past it a grid in grid current would also charge its coupling capacitor over the run
  * (10 µF through its leak), a shift of bias the model does not follow.
  */
-export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
+export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'noise' } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
 
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
@@ -195,8 +195,12 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
       ? ['op', `print ${c.stages.map((_, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']
       : analysis.kind === 'sweep'
         ? ['ac dec 50 0.01 1e8', 'wrdata {data} vm(out)']
+        : analysis.kind === 'noise'
+          ? ['noise v(out) vs dec 50 20 20000', 'print onoise_total']
         : analysis.settle
           ? ['set nfreqs=10', 'set fourgridsize=16384', `tran 0.5u ${analysis.settle.ms}m ${analysis.settle.ms - 10}m 0.5u`, 'fourier 1000 v(out)']
           : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
+  // Noise at the IEEE reference temperature, 290 K, as the model takes it (ngspice's default is 300.15 K).
+  if (analysis.kind === 'noise') lines.push('.options temp=16.85');
   return [...lines, '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
 }

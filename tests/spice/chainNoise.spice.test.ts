@@ -1,0 +1,93 @@
+import { describe, expect, it } from 'vitest';
+import { findOutputTube, findTube, solveChain, TRIODE_NOISE_RESISTANCE_GM, type ChainInput } from '../../src/index';
+import { networkOf, prepareAmplifier } from '../../src/chain/solveAmplifier';
+import { expectClose } from '../helpers/expectClose';
+import { chainNetlist } from './chainNetlist';
+import { ngspiceGate, runNgspiceFull } from './ngspice';
+
+// Outside reference: ngspice's noise analysis (Debian's package) of each
+// whole amplifier, at 290 K, over 20 Hz to 20 kHz: the thermal noise of every
+// resistor carried to the output through the real network (couplings,
+// bypasses, Miller capacitances, the next stage's loading). ngspice's
+// behavioural tubes make no noise of their own, so each tube gets its
+// equivalent noise resistance as a real resistor in series with its grid pin
+// (2.5/gm at its operating point: the triode's law the model takes, Valley
+// and Wallman, from memory); that resistor is exactly a noise voltage at the
+// grid, which the model carries as gm times it in the plate current.
+const run = ngspiceGate();
+
+const ax7 = findTube('12AX7')!;
+const au7 = findTube('12AU7')!;
+const at7 = findTube('12AT7')!;
+const el34 = findOutputTube('EL34')!;
+
+/** Each tube's grid pin behind its equivalent noise resistance: `X… grid …` becomes `X… q…` with `RQ… grid q… Req`. */
+function withTubeNoise(netlist: string, reqs: ReadonlyMap<string, number>): string {
+  return netlist
+    .split('\n')
+    .flatMap((line) => {
+      const parts = line.split(' ');
+      const name = parts[0]!;
+      const req = reqs.get(name);
+      if (req === undefined) return [line];
+      // Pins: plate grid cathode for a triode; plate screen grid cathode for a pentode.
+      const at = parts[parts.length - 1] === 'pent' ? 3 : 2;
+      const grid = parts[at]!;
+      parts[at] = `q${name}`;
+      return [parts.join(' '), `RQ${name} ${grid} q${name} ${req.toPrecision(12)}`];
+    })
+    .join('\n');
+}
+
+const chains: { label: string; chain: ChainInput }[] = [
+  {
+    label: '12AX7 from a 1k source, bypassed → 12AU7 unbypassed → direct-coupled follower, into 100k',
+    chain: {
+      source: { rsource: 1e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 280, ra: 120e3, rk: 1800, bypassed: true, ck: 47e-6, coupling: { kind: 'capacitor', cc: 220e-9, rg: 1e6 } },
+        { kind: 'common-cathode', tube: au7, bplus: 280, ra: 33e3, rk: 3300, bypassed: false, coupling: { kind: 'capacitor', cc: 68e-9, rg: 470e3 } },
+        { kind: 'follower', tube: au7, bplus: 280, rk: 39e3, coupling: { kind: 'direct' } },
+      ],
+      load: { rl: 100e3 },
+    },
+  },
+  {
+    label: '12AX7 from a 47k source through a 68k grid stopper → single-ended EL34 (ultralinear)',
+    chain: {
+      source: { rsource: 47e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 47e-6, rstopper: 68e3, coupling: { kind: 'capacitor', cc: 47e-9, rg: 1e6 } },
+        {
+          kind: 'single-ended-output', tube: el34, connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3300, rPrimary: 120,
+          bias: 'cathode', rk: 330, ck: 220e-6, vg: -20, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 330e-9, rg: 270e3 },
+        },
+      ],
+    },
+  },
+  {
+    label: '12AT7 from an ideal source, cathode unbypassed (its Rk\'s noise in the signal path) → 12AU7',
+    chain: {
+      source: { rsource: 0 },
+      stages: [
+        { kind: 'common-cathode', tube: at7, bplus: 250, ra: 47e3, rk: 1000, bypassed: false, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+        { kind: 'common-cathode', tube: au7, bplus: 250, ra: 22e3, rk: 1200, bypassed: true, ck: 100e-6, coupling: { kind: 'capacitor', cc: 47e-9, rg: 470e3 } },
+      ],
+      load: { rl: 220e3 },
+    },
+  },
+];
+
+describe.runIf(run)('the amplifier\'s noise against ngspice\'s noise analysis', () => {
+  it.each(chains)('$label: output noise within 3 % (0.26 dB)', ({ chain }) => {
+    const ours = solveChain(chain);
+    if (!ours.ok) throw new Error(ours.message);
+    expect(ours.noise).not.toBeNull();
+    const prepared = prepareAmplifier(chain);
+    if (!prepared.ok) throw new Error(prepared.message);
+    const reqs = new Map(networkOf(chain, prepared).stages.map((s, i) => [`X${i}`, TRIODE_NOISE_RESISTANCE_GM / s.linear.gm] as const));
+    const sim = runNgspiceFull(withTubeNoise(chainNetlist(chain, { kind: 'noise' }), reqs)).values;
+
+    expectClose(ours.noise!.outputRms, sim['onoise_total']!, { rel: 0.03 }, 'output noise, 20 Hz to 20 kHz');
+  });
+});
