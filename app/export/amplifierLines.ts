@@ -3,6 +3,7 @@ import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
 import { atLevelWords } from '../ui/chain/atLevelWords';
+import { NOISE_BAND_WORDS, noiseWords } from '../ui/chain/noiseWords';
 import { FEEDBACK_CAVEAT, feedbackBandWords, feedbackWords } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 
@@ -25,6 +26,8 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
     `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${voltsRms(r.speakerRms ?? 0)} at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
   ];
   if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${atLevelWords(view)}`);
+  const noise = noiseWords(r, r.outputPower !== null ? s.design.output.speakerOhms : null);
+  if (noise) lines.push(`Noise (${NOISE_BAND_WORDS}${s.design.feedbackRf !== null ? ', open loop' : ''}): ${noise}`);
   // With global feedback the figures above are the open loop's; the loop's own follow, with what they leave out.
   const fb = feedbackWords(view);
   if (fb && s.design.feedbackRf !== null) {

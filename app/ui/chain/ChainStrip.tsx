@@ -7,6 +7,7 @@ import { StageMenu } from './StageMenu';
 import { ChainSchematic } from '../schematic/ChainSchematic';
 import { StripHum } from '../supply/SupplyHumLine';
 import { atLevelWords } from './atLevelWords';
+import { NOISE_BAND_WORDS, noiseWords } from './noiseWords';
 import { GlobalFeedbackRow } from './GlobalFeedbackRow';
 
 const hz = (f: number | null, none: string) => (f === null ? none : hertz(f));
@@ -35,6 +36,7 @@ export function ChainStrip() {
   const setDrivesOutput = useWorkbench((s) => s.setDrivesOutput);
   if (!view) return null;
   const r = view.result;
+  const noise = r.ok ? noiseWords(r, r.outputPower !== null ? design.output.speakerOhms : null) : null;
   const list = voltageStages(design);
   const bench = benchIndex(design);
   const followerOnBench = design.stage2.kind !== 'none';
@@ -100,6 +102,12 @@ export function ChainStrip() {
             <div>
               <dt>At {view.levelLabel}{view.feedback?.ok ? ', open loop' : ''}</dt>
               <dd className={view.atLevel.ok && view.atLevel.pastClean ? 'past-clean' : undefined}>{atLevelWords(view)}</dd>
+            </div>
+          )}
+          {noise && (
+            <div data-testid="strip-noise">
+              <dt>{view.feedback?.ok ? 'Noise, open loop' : 'Noise'}</dt>
+              <dd title={`The amplifier's own noise, ${NOISE_BAND_WORDS}: every resistor's thermal noise and each tube's (2.5/gm at its grid), flicker noise left out`}>{noise}</dd>
             </div>
           )}
           <StripHum />

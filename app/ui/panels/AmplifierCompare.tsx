@@ -1,4 +1,4 @@
-import { decibels, plain, watts, voltsRms } from '../../format';
+import { decibels, plain, smallVolts, watts, voltsRms } from '../../format';
 import type { AmplifierView } from '../../store/amplifierChain';
 import { useWorkbench } from '../../store/StoreProvider';
 import { benchIndex } from '../../store/stagePlans';
@@ -17,6 +17,7 @@ export const AMPLIFIER_COMPARE_ROWS: readonly AmplifierRow[] = [
   { label: 'Clean to', key: 'clean', show: (v) => (v.result.outputPower !== null ? watts(v.result.outputPower) : voltsRms(v.result.output.rms)) },
   { label: 'Input for it', key: 'input', show: (v) => voltsRms(v.result.input.rms) },
   { label: 'Clips first', key: 'clips', show: (v) => `${v.names[v.result.clipsFirst.stage]?.title ?? `stage ${v.result.clipsFirst.stage + 1}`} (${v.result.clipsFirst.by === 'grid-current' ? 'grid current' : 'cutoff'})` },
+  { label: 'Noise at the input', key: 'noise', show: (v) => (v.result.noise ? `${smallVolts(v.result.noise.inputRms)} rms` : '—') },
   { label: 'Band (−3 dB)', key: 'band', show: (v) => `${v.result.lowHz === null ? 'DC' : `${plain(v.result.lowHz)} Hz`} to ${v.result.highHz === null ? '—' : v.result.highHz >= 1000 ? `${plain(v.result.highHz / 1000)} kHz` : `${plain(v.result.highHz)} Hz`}` },
 ];
 
