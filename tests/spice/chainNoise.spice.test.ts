@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, solveChain, TRIODE_NOISE_RESISTANCE_GM, type ChainInput } from '../../src/index';
-import { networkOf, prepareAmplifier } from '../../src/chain/solveAmplifier';
+import { findOutputTube, findTube, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 import { chainNetlist } from './chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
+import { withTubeNoise } from './tubeNoise';
 
 // Outside reference: ngspice's noise analysis (Debian's package) of each
 // whole amplifier, at 290 K, over 20 Hz to 20 kHz: the thermal noise of every
@@ -11,33 +11,13 @@ import { ngspiceGate, runNgspiceFull } from './ngspice';
 // bypasses, Miller capacitances, the next stage's loading). ngspice's
 // behavioural tubes make no noise of their own, so each tube gets its
 // equivalent noise resistance as a real resistor in series with its grid pin
-// (2.5/gm at its operating point: the triode's law the model takes, Valley
-// and Wallman, from memory); that resistor is exactly a noise voltage at the
-// grid, which the model carries as gm times it in the plate current.
+// (withTubeNoise).
 const run = ngspiceGate();
 
 const ax7 = findTube('12AX7')!;
 const au7 = findTube('12AU7')!;
 const at7 = findTube('12AT7')!;
 const el34 = findOutputTube('EL34')!;
-
-/** Each tube's grid pin behind its equivalent noise resistance: `X… grid …` becomes `X… q…` with `RQ… grid q… Req`. */
-function withTubeNoise(netlist: string, reqs: ReadonlyMap<string, number>): string {
-  return netlist
-    .split('\n')
-    .flatMap((line) => {
-      const parts = line.split(' ');
-      const name = parts[0]!;
-      const req = reqs.get(name);
-      if (req === undefined) return [line];
-      // Pins: plate grid cathode for a triode; plate screen grid cathode for a pentode.
-      const at = parts[parts.length - 1] === 'pent' ? 3 : 2;
-      const grid = parts[at]!;
-      parts[at] = `q${name}`;
-      return [parts.join(' '), `RQ${name} ${grid} q${name} ${req.toPrecision(12)}`];
-    })
-    .join('\n');
-}
 
 const chains: { label: string; chain: ChainInput }[] = [
   {
@@ -83,10 +63,7 @@ describe.runIf(run)('the amplifier\'s noise against ngspice\'s noise analysis', 
     const ours = solveChain(chain);
     if (!ours.ok) throw new Error(ours.message);
     expect(ours.noise).not.toBeNull();
-    const prepared = prepareAmplifier(chain);
-    if (!prepared.ok) throw new Error(prepared.message);
-    const reqs = new Map(networkOf(chain, prepared).stages.map((s, i) => [`X${i}`, TRIODE_NOISE_RESISTANCE_GM / s.linear.gm] as const));
-    const sim = runNgspiceFull(withTubeNoise(chainNetlist(chain, { kind: 'noise' }), reqs)).values;
+    const sim = runNgspiceFull(withTubeNoise(chainNetlist(chain, { kind: 'noise' }), chain)).values;
 
     expectClose(ours.noise!.outputRms, sim['onoise_total']!, { rel: 0.03 }, 'output noise, 20 Hz to 20 kHz');
   });

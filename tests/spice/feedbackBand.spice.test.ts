@@ -4,6 +4,7 @@ import { expectClose } from '../helpers/expectClose';
 import { chainNetlist, nodes } from './chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';
+import { withTubeNoise } from './tubeNoise';
 
 // Outside reference: ngspice (Debian's package) sweeping whole amplifiers built from the same input the model takes
 // (chainNetlist), now with real output transformers: the primary wound to its inductance and coupled to the secondary so
@@ -151,8 +152,8 @@ function loopMargins(rows: Row[], dir: 1 | -1) {
   return { phaseMargin, gainMargin };
 }
 
-const withLoop = (chain: ChainInput, rf: number, flip: boolean, cf?: number) =>
-  chainNetlist(chain, { kind: 'sweep' })
+const withLoop = (chain: ChainInput, rf: number, flip: boolean, cf?: number, analysis: 'sweep' | 'noise' = 'sweep') =>
+  chainNetlist(chain, { kind: analysis })
     .replace(/^LS sec 0 /m, flip ? 'LS 0 sec ' : 'LS sec 0 ')
     .replace(/^RSPK sec 0 (\S+)/m, `RSPK sec 0 $1\nRF sec ${nodes.cathode(0)} ${rf}${cf ? `\nCF sec ${nodes.cathode(0)} ${cf}` : ''}`);
 
@@ -207,6 +208,9 @@ describe.runIf(run)('an amplifier\'s band with a real output transformer, open a
         expectClose(ourOpen.lowHz!, corners.low!, { rel: 0.03 }, 'open loop, low −3 dB');
         expectClose(ourOpen.highHz!, corners.high!, { rel: 0.03 }, 'open loop, high −3 dB');
       }
+      // The closed loop's own noise: ngspice's noise analysis of the closed loop, every tube behind its noise resistance.
+      const noisy = withTubeNoise(withLoop(c.chain, c.rf, flip, c.cf, 'noise'), open);
+      expectClose(fb.band.noise!.outputRms, runNgspiceFull(noisy).values['onoise_total']!, { rel: 0.03 }, 'closed loop, output noise 20 Hz to 20 kHz');
       const closed = closedLoopShape(ways[flip ? 1 : 0]!);
       expectClose(fb.band.lowHz!, closed.low!, { rel: 0.05 }, 'closed loop, low −3 dB');
       expectClose(fb.band.highHz!, closed.high!, { rel: 0.05 }, 'closed loop, high −3 dB');
