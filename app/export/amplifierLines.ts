@@ -29,7 +29,7 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   const noise = noiseWords(r, r.outputPower !== null ? s.design.output.speakerOhms : null);
   if (noise) lines.push(`Noise (${NOISE_BAND_WORDS}${s.design.feedbackRf !== null ? ', open loop' : ''}): ${noise}`);
   // With global feedback the figures above are the open loop's; the loop's own follow, with what they leave out.
-  const fb = feedbackWords(view);
+  const fb = feedbackWords(view, s.design.output.speakerOhms);
   if (fb && s.design.feedbackRf !== null) {
     lines[1] = `Open loop: ${lines[1]}`;
     const across = s.design.feedbackCf === null ? '' : ` with ${farads(s.design.feedbackCf)} across it`;

@@ -17,7 +17,7 @@ export function GlobalFeedbackRow() {
   const winding = useWorkbench((s) => s.design.output);
   const on = rf !== null;
   if (!driven || !view) return null;
-  const words = feedbackWords(view);
+  const words = feedbackWords(view, winding.speakerOhms);
   const failed = view.feedback !== null && !view.feedback.ok;
   return (
     <div className="global-feedback" data-testid="global-feedback">

@@ -1,6 +1,7 @@
 import { dB, henries, hertz, ohms, plain, voltsRms } from '../../format';
 import type { WindingInductance } from '../../../src/index';
 import type { AmplifierView } from '../../store/amplifierChain';
+import { noiseWords } from './noiseWords';
 
 /**
  * Global feedback in words, for the strip and the card: how much, the
@@ -9,13 +10,15 @@ import type { AmplifierView } from '../../store/amplifierChain';
  * open loop's over 1 + T (a first-order estimate, common practice). Null
  * without feedback; the model's message when it cannot be had.
  */
-export function feedbackWords(view: AmplifierView): string | null {
+export function feedbackWords(view: AmplifierView, speakerOhms: number): string | null {
   const f = view.feedback;
   if (!f) return null;
   if (!f.ok) return f.message;
   const inRms = f.inputPeak / Math.SQRT2;
   const at = f.thdEstimate !== null ? `; THD at 1 W about ${plain(f.thdEstimate * 100, 2)} %` : '';
-  return `${dB(f.feedbackDb)} of feedback (loop gain ${plain(f.loopGain)}): gain ${dB(20 * Math.log10(f.closedGain))} (${plain(f.closedGain)}×), clean limit from ${voltsRms(inRms)} in; output impedance ${f.zoutClosed < 1 ? `${plain(f.zoutClosed)} Ω` : ohms(f.zoutClosed)} (damping factor ${plain(f.dampingFactor)})${at}`;
+  // The loop lowers the noise at the speaker with the gain; referred to the input it stays about the open loop's.
+  const noise = noiseWords(f.band, speakerOhms);
+  return `${dB(f.feedbackDb)} of feedback (loop gain ${plain(f.loopGain)}): gain ${dB(20 * Math.log10(f.closedGain))} (${plain(f.closedGain)}×), clean limit from ${voltsRms(inRms)} in; output impedance ${f.zoutClosed < 1 ? `${plain(f.zoutClosed)} Ω` : ohms(f.zoutClosed)} (damping factor ${plain(f.dampingFactor)})${at}${noise ? `; noise ${noise}` : ''}`;
 }
 
 /** What the feedback figures leave out, said beside them once. */

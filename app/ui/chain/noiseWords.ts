@@ -9,7 +9,7 @@ export const NOISE_BAND_WORDS = `${hertz(NOISE_BAND_HZ[0])} to ${hertz(NOISE_BAN
  * (at the output in dBV when the chain ends in a voltage stage), and
  * referred to the input. Null when the model could not find it.
  */
-export function noiseWords(r: Pick<ChainResult, 'noise'>, speakerOhms: number | null): string | null {
+export function noiseWords(r: { readonly noise: ChainResult['noise'] }, speakerOhms: number | null): string | null {
   const n = r.noise;
   if (!n) return null;
   const floor = Math.max(n.outputRms, 1e-15);
