@@ -1,6 +1,6 @@
 import type { PreferredSeries } from '../parts/preferredValues';
 import type { ChainInput, ChainResult, ChainStage, FollowerLink, LongTailedPairLink, SplitLoadLink, StageResult } from '../chain/chainTypes';
-import { capacitorLine, resistorLine, type CapacitorLine, type ResistorLine } from './partsList';
+import { capacitorLine, resistorLine, volumeLine, type CapacitorLine, type ResistorLine } from './partsList';
 import { gridDivider } from './gridDivider';
 import { recordOf, type TubeLike } from '../tube/types';
 
@@ -65,7 +65,7 @@ function gainStageParts(s: Extract<ChainStage, { kind: 'common-cathode' }>, at: 
   if (s.rk > 0) resistors.push(resistorLine(`Rk${n}`, `stage ${n} cathode bias`, s.rk, solved.op.ia, series));
   const capacitors: CapacitorLine[] = [];
   if (s.coupling.kind === 'capacitor') {
-    resistors.push(resistorLine(`Rg${n}`, `stage ${n} grid leak`, s.coupling.rg, 0, series));
+    resistors.push(s.volume !== undefined ? volumeLine(`VR${n}`, `stage ${n} volume control, audio taper, in the grid leak's place: wiper to the grid`, s.coupling.rg, series) : resistorLine(`Rg${n}`, `stage ${n} grid leak`, s.coupling.rg, 0, series));
     capacitors.push(capacitorLine(`Cc${n}`, before ? `coupling from stage ${n - 1} into stage ${n}` : `input coupling into stage ${n}`, s.coupling.cc, before?.solved.outputDc ?? 0, before?.bplus ?? 0, before ? `+ to stage ${n - 1}'s output` : '+ to the grid'));
   }
   // It carries no current below the grid's onset; at the socket, so the wire to the grid is short.

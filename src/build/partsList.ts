@@ -21,6 +21,8 @@ export interface ResistorLine {
   readonly wattsWorst: number;
   /** Suggested power rating: the next standard rating at or above twice the worst case (common practice). */
   readonly ratingWatts: number;
+  /** A potentiometer (a volume control): ordered at its value as given, not from the series. */
+  readonly potentiometer?: boolean;
 }
 
 export interface CapacitorLine {
@@ -50,6 +52,15 @@ export function resistorLine(ref: string, role: string, value: number, amps: num
   return { ref, role, value, preferred, series, watts, wattsWorst, ratingWatts: roundUpTo(RESISTOR_WATTS, RATING_MARGIN * Math.max(watts, wattsWorst)) };
 }
 
+/**
+ * A volume control in a grid leak's place: a potentiometer of the track's
+ * value, ordered as given (pots come in their own few values), audio taper
+ * (common practice for a volume control), carrying no DC.
+ */
+export function volumeLine(ref: string, role: string, track: number, series: PreferredSeries): ResistorLine {
+  return { ...resistorLine(ref, role, track, 0, series), preferred: track, potentiometer: true };
+}
+
 /** One capacitor's line: voltages running and at switch-on, rating, polarity. */
 export function capacitorLine(ref: string, role: string, value: number | null, volts: number, voltsAtSwitchOn: number, positive: string): CapacitorLine {
   const worst = Math.max(Math.abs(volts), Math.abs(voltsAtSwitchOn));
@@ -75,7 +86,7 @@ export function stagePartsList(d: CheckedStage, s: StageSolution, series: Prefer
   const { op } = s;
   const resistors = [resistorLine(`${prefix}Ra`, 'plate load', d.ra, op.ia, series)];
   if (d.rk > 0) resistors.push(resistorLine(`${prefix}Rk`, 'cathode bias', d.rk, op.ia, series));
-  if (d.rg !== null) resistors.push(resistorLine(`${prefix}Rg`, 'grid leak', d.rg, 0, series));
+  if (d.rg !== null) resistors.push(d.volumeGiven ? volumeLine(`${prefix}VR`, 'volume control, audio taper, in the grid leak\'s place: wiper to the grid', d.rg, series) : resistorLine(`${prefix}Rg`, 'grid leak', d.rg, 0, series));
   const capacitors: CapacitorLine[] = [];
   if (d.cin !== null) capacitors.push(capacitorLine(`${prefix}Cin`, 'input coupling', d.cin, 0, 0, 'either way (no DC across it)'));
   if (d.bypassed && d.rk > 0) capacitors.push(capacitorLine(`${prefix}Ck`, 'cathode bypass', d.ck, op.vk, 0, '+ to the cathode'));

@@ -15,7 +15,8 @@ export interface ChainNetwork {
   readonly rsource: number;
   readonly stages: readonly {
     readonly linear: LinearStage;
-    readonly coupling: { readonly cc: number; readonly rg: number } | null;
+    /** A capacitor coupling into its grid leak; with `volume` below 1 the leak is a pot's track and the grid hangs from its wiper. */
+    readonly coupling: { readonly cc: number; readonly rg: number; readonly volume?: number } | null;
     readonly gin?: number;
     /** Grid stopper, Ω, between the coupling (its leak) and the grid; absent or 0: none. */
     readonly stopper?: number;
@@ -66,12 +67,16 @@ function extraNodes(net: ChainNetwork): number {
   let extra = (net.feedback ? 1 : 0) + (loadCoupled(net) ? 1 : 0);
   net.stages.forEach(({ linear, stopper, coupling }, i) => {
     if (stopper !== undefined && stopper > 0 && coupling !== null) extra += 1;
+    if (potted(coupling)) extra += 1;
     if (linear.winding) extra += 2;
     if (linear.second) extra += 1;
     if (linear.pair && i > 0 && net.stages[i - 1]!.linear.output2) extra += 1;
   });
   return extra;
 }
+
+/** Whether a coupling's leak is a pot turned below full: its top then has a node of its own. */
+const potted = (c: ChainNetwork['stages'][number]['coupling']): boolean => c !== null && c.volume !== undefined && c.volume < 1;
 
 /** Whether the load hangs on its own node behind a real coupling capacitor (with no load, the capacitor carries nothing). */
 const loadCoupled = (net: ChainNetwork): boolean => net.loadCc != null && Number.isFinite(net.rl);
@@ -172,7 +177,14 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     if (gin !== undefined && gin > 0) stamp(g, k, gin, 0);
     const couple = (from: number, to: number) => {
       if (coupling === null) stamp(from, to, SHORT, 0);
-      else {
+      else if (potted(coupling)) {
+        // The capacitor into the pot's top; the track above the wiper to it, the track below to ground.
+        const top = spare++;
+        const a = coupling.volume!;
+        stamp(from, top, 0, omega * coupling.cc);
+        resistor(top, to, 1 / ((1 - a) * coupling.rg), 0);
+        resistor(to, -1, 1 / (a * coupling.rg), 0);
+      } else {
         stamp(from, to, 0, omega * coupling.cc);
         resistor(to, -1, 1 / coupling.rg, 0);
       }

@@ -39,6 +39,8 @@ export class ChainSignal {
     private readonly sourceShare: number,
     /** The impedance driving each stage's grid, Ω (0: an ideal source, no drop). */
     private readonly gridDrives: readonly number[] = links.map(() => 0),
+    /** Each stage's volume control, the share of the output before it its wiper passes to the grid (1: none). */
+    private readonly volumes: readonly number[] = links.map(() => 1),
   ) {
     this.samples = links.map(() => ({ vout: 0, vgk: 0, ia: 0, vout2: 0 }));
     this.lastIg = new Float64Array(links.length);
@@ -98,7 +100,7 @@ export class ChainSignal {
     let v2 = 0;
     for (let i = 0; i <= upTo; i++) {
       const s = this.drive(i, v, v2);
-      v = s.vout;
+      v = s.vout * (this.volumes[i + 1] ?? 1);
       v2 = s.vout2;
     }
     return v;
@@ -153,9 +155,9 @@ export class ChainSignal {
     let v2 = 0;
     for (let i = 0; i < this.links.length; i++) {
       const s = this.drive(i, v, v2);
-      v = s.vout;
+      into[i] = s.vout;
+      v = s.vout * (this.volumes[i + 1] ?? 1);
       v2 = s.vout2;
-      into[i] = v;
     }
   }
 

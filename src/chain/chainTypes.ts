@@ -42,6 +42,13 @@ export interface CommonCathodeLink {
   readonly heaterVolts?: number;
   /** Grid stopper, Ω, between the grid leak and the grid (at the socket); default 0, none. */
   readonly rstopper?: number;
+  /**
+   * A volume control in place of the grid leak (capacitor coupling only):
+   * the leak is the pot's track and the grid hangs from its wiper, which
+   * passes this share of the track's signal, above 0 up to 1 (full); absent,
+   * the leak is a fixed resistor.
+   */
+  readonly volume?: number;
   readonly coupling: Coupling;
 }
 

@@ -2,6 +2,7 @@ import { fail } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { solveStage, withStopper } from '../stage/solveStage';
 import { stopperFinding } from '../stage/stopperFinding';
+import { volumeFinding, volumeProblem } from '../stage/volumeControl';
 import { normalizeStage, type StageDesign } from '../stage/stageDesign';
 import { stageTransfer } from '../signal/stageTransfer';
 import type { CommonCathodeLink } from './chainTypes';
@@ -24,7 +25,8 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
       checkNumber('rk', 'Rk', s.rk, 'Ω', 0, LIMITS.maxOhms) ??
       (typeof s.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
       (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
-      (s.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', s.rstopper, 'Ω', 0, LIMITS.maxOhms)),
+      (s.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', s.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
+      volumeProblem(s.volume, s.coupling?.kind === 'capacitor'),
     ),
   inputImpedance: (s) => couplingImpedance(s.coupling),
   solve(s, env) {
@@ -37,19 +39,23 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
       ...(s.ck !== undefined && s.bypassed ? { ck: s.ck } : {}),
       rl: env.load,
       vbias: env.gridDc ?? s.vbias ?? 0,
-      ...(s.coupling.kind === 'capacitor' ? { rg: s.coupling.rg } : {}),
+      ...(s.coupling.kind === 'capacitor' ? { rg: s.coupling.rg, ...(s.volume !== undefined ? { volume: s.volume } : {}) } : {}),
       heaterVolts: s.heaterVolts ?? 0,
     };
     const solved = solveStage(design);
     if (!solved.ok) return solved;
-    const checked = normalizeStage(design);
+    // The transfer from the grid's own swing: what drives the grid (the pot's wiper among it) is the chain's to follow.
+    const checked = normalizeStage({ ...design, volume: undefined });
     if (!checked.ok) return checked;
     const t = stageTransfer(checked, solved.op);
+    // The stopper's finding, and the pot's with the stopper counted (the stage solved without it).
     const stopper = stopperFinding(s.rstopper ?? 0, solved.cin);
+    const pot = s.coupling.kind === 'capacitor' ? volumeFinding(s.coupling.rg, s.volume, s.rstopper ?? 0, solved.cin) : null;
+    const findings = withStopper(withStopper(solved.findings.filter((f) => f.kind !== 'volume-control'), stopper), pot);
     return triodeLink({
       tube: s.tube,
       coupling: s.coupling,
-      solved: stopper ? { ...solved, findings: withStopper(solved.findings, stopper) } : solved,
+      solved: { ...solved, findings },
       outputDc: solved.op.va,
       at: (vin) => t.at(vin),
       network: {

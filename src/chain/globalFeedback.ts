@@ -2,6 +2,7 @@ import { fail, type Failure, type Result } from '../result';
 import { shown } from '../shown';
 import { formatValue } from '../parts/formatValue';
 import { smallSignalAt } from '../tube/triode';
+import { volumeOf } from './volumeOf';
 import { amplifierOf, networkOf, prepareAmplifier } from './solveAmplifier';
 import { amplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import { feedbackBand, type FeedbackBand } from './feedbackBand';
@@ -101,9 +102,9 @@ export function globalFeedback(input: ChainInput, rf: number, level?: AmplifierL
   if (!open.ok) return open;
   const s0 = open.stages[0]!;
   const mu = smallSignalAt(first.tube, s0.op.va - s0.op.vk, s0.op.vgk).mu;
-  // The source's divider into the first grid (its leak) stays outside the loop.
+  // The source's divider into the first grid (its leak, and a volume control's wiper) stays outside the loop.
   const zin = s0.zin;
-  const divider = zin === null ? 1 : zin / (zin + input.source.rsource);
+  const divider = (zin === null ? 1 : zin / (zin + input.source.rsource)) * volumeOf(first);
   const gridGain = Math.abs(open.gain) / divider;
   const beta = rk / (rk + rf);
   const loopGain = gridGain * beta * ((mu + 1) / mu);

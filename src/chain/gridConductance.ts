@@ -1,5 +1,6 @@
 import { gridSlope, MIN_GRID_CONDUCTANCE } from '../tube/gridCurrent';
 import type { LinearStage, SolvedLink } from './stageKind';
+import { trackLoad } from '../stage/volumeControl';
 
 /**
  * A grid's small-signal input conductance at its operating point, S: the
@@ -42,13 +43,15 @@ export function cathodeShare(s: LinearStage, load: number): number {
 /**
  * The input impedance the stage before really drives at midband, Ω: the
  * grid's leak (`zin`) in parallel with its current's slope as the
- * bootstrapped cathode leaves it, fed through the grid stopper (`stopper`, Ω).
+ * bootstrapped cathode leaves it, fed through the grid stopper (`stopper`, Ω);
+ * behind a volume control (`volume` below 1) the grid hangs from the wiper,
+ * the leak being the pot's track.
  */
-export function loadedInput(zin: number, link: SolvedLink, load: number, stopper = 0): number {
+export function loadedInput(zin: number, link: SolvedLink, load: number, stopper = 0, volume = 1): number {
   const g = gridConductance(link) * (1 - cathodeShare(link.linear, load));
   if (!(g > MIN_GRID_CONDUCTANCE)) return zin;
   const r = 1 / g + stopper;
-  return Number.isFinite(zin) ? (zin * r) / (zin + r) : r;
+  return Number.isFinite(zin) ? trackLoad(zin, volume, r) : r;
 }
 
 /** A stage's gain into load `to` from its gain into load `from`, through its output impedance (Thévenin): L/(L + Zout) each. */

@@ -1,4 +1,6 @@
 import { stopperOf } from './stopperOf';
+import { volumeOf } from './volumeOf';
+import { wiperImpedance } from '../stage/volumeControl';
 import { fail, type Failure, type Result } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { ChainSignal } from './chainSwing';
@@ -128,29 +130,32 @@ export function prepareAmplifier(input: ChainInput, placed?: Result<PlacedStages
   if (!solvedLinks.ok) return solvedLinks;
   const { links, zins } = solvedLinks;
   const rsource = input.source.rsource;
-  const sourceShare = Number.isFinite(zins[0]!) ? zins[0]! / (zins[0]! + rsource) : 1;
+  // Each grid's share of what drives its leak: a volume control's wiper setting (1 for none).
+  const volumes = input.stages.map(volumeOf);
+  const sourceShare = (Number.isFinite(zins[0]!) ? zins[0]! / (zins[0]! + rsource) : 1) * volumes[0]!;
   // Small signal: each grid's current has a slope at its bias (the retarding-field tail) that loads what drives it, less
   // as its cathode follows; each stage's gain is taken into that input, through its output impedance.
   const chainLoad = input.load?.rl ?? Infinity;
   const loads = links.map((_, i) => (i + 1 < links.length ? zins[i + 1]! : chainLoad));
   const stoppers = input.stages.map(stopperOf);
-  const inputs = links.map((l, i) => loadedInput(zins[i]!, l, loads[i]!, stoppers[i]!));
+  const inputs = links.map((l, i) => loadedInput(zins[i]!, l, loads[i]!, stoppers[i]!, volumes[i]!));
   const gains = links.map((l, i) => gainInto(l.gain, l.zout, loads[i]!, i + 1 < links.length ? inputs[i + 1]! : chainLoad));
   const firstIn = inputs[0]!;
-  const gain = gains.reduce((g, x) => g * x, Number.isFinite(firstIn) ? firstIn / (firstIn + rsource) : 1);
+  const gain = gains.reduce((g, x, i) => g * x * volumes[i]!, Number.isFinite(firstIn) ? firstIn / (firstIn + rsource) : 1);
   // What drives each grid, looking back from it: the stage before's output impedance (the source's for the first) in
-  // parallel with the leak, then the grid stopper in series.
+  // parallel with the leak (behind a volume control, the wiper's: the track below it against the track above and what
+  // drives it), then the grid stopper in series.
   const gridDrives = links.map((_, i) => {
     const before = i === 0 ? rsource : links[i - 1]!.zout;
     const zin = zins[i]!;
-    return (Number.isFinite(zin) ? (before * zin) / (before + zin) : before) + stoppers[i]!;
+    return (Number.isFinite(zin) ? wiperImpedance(zin, volumes[i]!, before) : before) + stoppers[i]!;
   });
-  const signal = new ChainSignal(links, sourceShare, gridDrives);
+  const signal = new ChainSignal(links, sourceShare, gridDrives, volumes);
   // Each search starts from the small-signal estimate: the grid swing to 0 V over the gain up to that grid.
   let upstream = sourceShare;
   const clips = links.map((l, i) => {
     const guess = Math.abs(l.op.vgk) / Math.max(Math.abs(upstream), 1e-12);
-    upstream *= l.gain;
+    upstream *= l.gain * (volumes[i + 1] ?? 1);
     return signal.clipOf(i, guess);
   });
   let first = -1;

@@ -1,4 +1,5 @@
 import { stopperOf } from './stopperOf';
+import { volumeOf } from './volumeOf';
 import type { Result } from '../result';
 import { amplifierFindings } from '../stage/stageFindings';
 import { sineLevel } from '../signal/levels';
@@ -78,7 +79,7 @@ export function networkOf(input: ChainInput, a: PreparedAmplifier): ChainNetwork
     rsource: input.source.rsource,
     stages: input.stages.map((s, i) => ({
       linear: a.links[i]!.linear,
-      coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg } : null,
+      coupling: s.coupling.kind === 'capacitor' ? { cc: s.coupling.cc, rg: s.coupling.rg, ...(volumeOf(s) < 1 ? { volume: volumeOf(s) } : {}) } : null,
       gin: a.gridConductances[i]!,
       stopper: stopperOf(s),
     })),

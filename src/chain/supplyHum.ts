@@ -1,3 +1,4 @@
+import { volumeOf } from './volumeOf';
 import { fail, type Result } from '../result';
 import { shown } from '../shown';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
@@ -351,7 +352,8 @@ export function supplyHum(chain: ChainInput, solved: ChainResult, mainsHz = 50):
   const carriedFrom = (k: number, own: number | null) => {
     if (own === null || !Number.isFinite(own)) return null;
     let carried = own;
-    for (let j = k + 1; j < n; j++) carried *= solved.stages[j]!.gain;
+    // Into each later grid through its volume control's wiper (1 for none), then by its gain.
+    for (let j = k + 1; j < n; j++) carried *= volumeOf(chain.stages[j]!) * solved.stages[j]!.gain;
     return Number.isFinite(carried) ? carried : null;
   };
   const outputs = chain.stages.map(outputSolved);

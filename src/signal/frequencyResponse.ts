@@ -9,8 +9,9 @@ import { decibelsOf } from './levels';
  * Small-signal response of the stage from the source to the output, by nodal
  * analysis of the linearised circuit at the operating point (the method of
  * any circuit simulator's AC analysis). Nodes: a (after the source
- * impedance), x (the grid leak's top, after Cin), g (grid, behind the grid
- * stopper from x), p (plate), k (cathode), o (output, across RL). The
+ * impedance), x (the grid leak's top, after Cin; a volume control's wiper),
+ * g (grid, behind the grid stopper from x), p (plate), k (cathode), o
+ * (output, across RL), t (a volume control's top, after Cin). The
  * tube is a current source gm·vgk with rp across plate–cathode; its
  * interelectrode capacitances Cgk, Cgp and Cpk are in the circuit, so the
  * Miller effect with the source impedance comes out of the equations rather
@@ -28,8 +29,8 @@ export interface ResponsePoint {
 /** Admittance standing in for an ideal short: far above any other in the network, yet finite for the solver. */
 const SHORT = 1e9;
 
-/** Node order of the matrix: a, g, p, k, o, x. */
-const N = 6;
+/** Node order of the matrix: a, g, p, k, o, x, t. */
+const N = 7;
 const W = N + 1;
 
 /** The circuit's admittances that do not depend on frequency, and the capacitances that scale with it. */
@@ -41,7 +42,9 @@ function networkOf(s: SolvedStage) {
     gm: s.solution.gm,
     gp: 1 / s.solution.rp,
     gRs: g(d.rsource),
-    gRg: d.rg === null ? 0 : 1 / d.rg,
+    // Behind a volume control below 1: the track below the wiper to ground, and above it to the pot's top (its own node).
+    gRg: d.rg === null ? 0 : 1 / (d.rg * d.volume),
+    gAbove: d.rg !== null && d.volume < 1 ? 1 / (d.rg * (1 - d.volume)) : null,
     // No stopper: the leak's top is the grid itself (a huge conductance between them would cancel the grid's microsiemens).
     gStopper: d.rstopper > 0 ? 1 / d.rstopper : null,
     gRa: g(d.ra),
@@ -79,7 +82,7 @@ function stamp(re: Float64Array, im: Float64Array, r: number, c: number, gr: num
   }
 }
 
-const [A, G, P, K, O, X] = [0, 1, 2, 3, 4, 5];
+const [A, G, P, K, O, X, T] = [0, 1, 2, 3, 4, 5, 6];
 
 /**
  * vout/vsource at one frequency: the nodal equations filled straight into
@@ -96,8 +99,12 @@ function solveAt(net: Network, freqHz: number): Complex {
   const x = net.gStopper === null ? G : X;
   if (net.gStopper === null) stamp(re, im, X, -1, 1, 0); // the unused node, held at 0 V
   else stamp(re, im, X, G, net.gStopper, 0);
-  if (net.cin === null) stamp(re, im, A, x, SHORT, 0);
-  else stamp(re, im, A, x, 0, w * net.cin);
+  // The coupling feeds the leak's top: the pot's own node when there is one, else the leak's top is x.
+  const top = net.gAbove === null ? x : T;
+  if (net.gAbove === null) stamp(re, im, T, -1, 1, 0); // the unused node, held at 0 V
+  else stamp(re, im, T, x, net.gAbove, 0);
+  if (net.cin === null) stamp(re, im, A, top, SHORT, 0);
+  else stamp(re, im, A, top, 0, w * net.cin);
   stamp(re, im, x, -1, net.gRg, 0);
   stamp(re, im, G, K, 0, w * net.cgk);
   stamp(re, im, G, P, 0, w * net.cgp);

@@ -1,3 +1,4 @@
+import { wiperImpedance } from '../stage/volumeControl';
 import { korenSlopesInto } from '../tube/koren';
 import { gridCurrent } from '../tube/gridCurrent';
 import { illinois } from '../numeric/illinois';
@@ -109,8 +110,9 @@ export function stageTransfer(d: CheckedStage, op: OperatingPoint): StageTransfe
   const vkOf = (ia: number) => (degenerate ? ia * d.rk : op.vk);
   const model = modelOf(d.tube);
   // What the grid sees looking back: the source and the grid leak in parallel (the leak alone carries no drop without a
-  // source), then the grid stopper in series.
-  const rGrid = (d.rsource > 0 ? (d.rg === null ? d.rsource : (d.rsource * d.rg) / (d.rsource + d.rg)) : 0) + d.rstopper;
+  // source), or behind a volume control its wiper (the track below it against the track above and the source), then
+  // the grid stopper in series.
+  const rGrid = (d.rg === null ? d.rsource : wiperImpedance(d.rg, d.volume, d.rsource)) + d.rstopper;
 
   // The grid's quiescent current, through the leak alone (the coupling capacitor holds its drop).
   const quiescentIg = gridCurrent(model, op.vgk);

@@ -15,6 +15,7 @@ export type FindingKind =
   | 'grid-leak-bias'
   | 'grid-resistor'
   | 'grid-stopper'
+  | 'volume-control'
   | 'cathode-current'
   | 'screen-dissipation'
   | 'screen-voltage'

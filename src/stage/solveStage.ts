@@ -1,4 +1,5 @@
 import { stopperFinding } from './stopperFinding';
+import { trackLoad, volumeFinding } from './volumeControl';
 import { GRID_CURRENT_ONSET, gridCurrent, gridSlope, MIN_GRID_CONDUCTANCE } from '../tube/gridCurrent';
 import { CUTOFF_FRACTION, gridVoltageForCurrent } from '../tube/koren';
 import { smallSignalAt } from '../tube/triode';
@@ -56,7 +57,8 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
   const d = normalizeStage(design);
   if (!d.ok) return d;
   const model = modelOf(d.tube);
-  const loop = solveLoop(model, d.bplus, d.ra, d.rk, d.vbias, d.rg);
+  // Behind a volume control the grid's DC path is the track below the wiper (the coupling capacitor blocks the rest).
+  const loop = solveLoop(model, d.bplus, d.ra, d.rk, d.vbias, d.rg === null ? null : d.rg * d.volume);
   if (!loop.converged) return fail('no-convergence', 'The operating point could not be found to full accuracy; check the values.');
   if (loop.vgk > 0) {
     return fail('grid-current', `The grid would sit ${loop.vgk.toFixed(2)} V positive to the cathode and draw current: make the grid bias more negative or raise Rk.`, 'vbias');
@@ -83,21 +85,29 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
     gainBypassed,
     gainUnbypassed,
     zout: commonCathodeZout(ss.mu, ss.rp, d.ra, d.rk, d.bypassed),
-    rin: inputResistance(d.rg, gridSlope((v) => gridCurrent(model, v), loop.vgk) * (1 - cathodeGain), d.rstopper),
+    rin: inputResistance(d.rg, gridSlope((v) => gridCurrent(model, v), loop.vgk) * (1 - cathodeGain), d.rstopper, d.volume),
     cin,
     toGridCurrent: Math.max(0, GRID_CURRENT_ONSET - loop.vgk),
     toCutoff: loop.vgk - gridVoltageForCurrent(model.params, loop.vpk, CUTOFF_FRACTION * loop.ia),
-    findings: withStopper(ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }), stopperFinding(d.rstopper, cin)),
+    findings: withStopper(
+      withStopper(ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }), stopperFinding(d.rstopper, cin)),
+      d.rg !== null && d.volumeGiven ? volumeFinding(d.rg, d.volume, d.rstopper, cin) : null,
+    ),
   };
 }
 
 /** The ratings' findings, and the grid stopper's after them when there is one. */
 export const withStopper = <F>(findings: readonly F[], stopper: F | null): F[] => (stopper ? [...findings, stopper] : [...findings]);
 
-/** A leak (null: none) in parallel with a grid's conductance fed through the grid stopper, Ω; null for neither. */
-function inputResistance(rg: number | null, gGrid: number, stopper: number): number | null {
+/**
+ * A leak (null: none) in parallel with a grid's conductance fed through the
+ * grid stopper, Ω; null for neither. Behind a volume control the grid hangs
+ * from the wiper: the track above it in series with the track below it in
+ * parallel with the grid.
+ */
+function inputResistance(rg: number | null, gGrid: number, stopper: number, volume: number): number | null {
   // The grid's slope behind its stopper: 1/(1/g + Rst).
   const g = gGrid / (1 + stopper * gGrid);
   if (!(g > MIN_GRID_CONDUCTANCE)) return rg;
-  return rg !== null ? rg / (1 + rg * g) : 1 / g;
+  return rg !== null ? trackLoad(rg, volume, 1 / g) : 1 / g;
 }

@@ -1,5 +1,6 @@
 import type { TubeLike } from '../tube/types';
 import { fail, type Result } from '../result';
+import { volumeProblem } from './volumeControl';
 import { checkNumber, checkTube, LIMITS } from './checkInput';
 
 /** A common-cathode triode stage. SI units throughout. */
@@ -32,6 +33,13 @@ export interface StageDesign {
    * off the top of the band.
    */
   readonly rstopper?: number;
+  /**
+   * A volume control in place of the grid leak: `rg` is its track, and the
+   * grid (behind its stopper) hangs from the wiper, which passes this share
+   * of the track's signal, above 0 up to 1 (full). Absent: Rg is a fixed
+   * resistor. The grid's DC path is then the track below the wiper.
+   */
+  readonly volume?: number;
   /** Cathode bypass capacitor, F. When given it replaces the ideal `bypassed` in the frequency response; at midband the cathode counts as bypassed. */
   readonly ck?: number;
   /** Output coupling capacitor into RL, F; absent means an ideal (infinite) one. */
@@ -51,6 +59,9 @@ export interface CheckedStage {
   readonly rsource: number;
   readonly cin: number | null;
   readonly rstopper: number;
+  /** The wiper's share of the track (1: none, or a pot at full); `volumeGiven` says whether Rg is a pot at all. */
+  readonly volume: number;
+  readonly volumeGiven: boolean;
   readonly ck: number | null;
   readonly cout: number | null;
 }
@@ -79,6 +90,7 @@ export function normalizeStage(raw: StageDesign): Result<CheckedStage> {
     (raw.rsource === undefined || raw.rsource === 0 ? null : checkNumber('rsource', 'Source impedance (0 for an ideal source)', raw.rsource, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
     (raw.cin === undefined ? null : checkNumber('cin', 'Cin', raw.cin, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
     (raw.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', raw.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
+    volumeProblem(raw.volume, raw.rg !== undefined) ??
     (raw.ck === undefined ? null : checkNumber('ck', 'Ck', raw.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
     (raw.cout === undefined ? null : checkNumber('cout', 'Cout', raw.cout, 'F', LIMITS.minFarads, LIMITS.maxFarads));
   if (problem) return problem;
@@ -99,6 +111,8 @@ export function normalizeStage(raw: StageDesign): Result<CheckedStage> {
     rsource: raw.rsource ?? 0,
     cin: raw.cin ?? null,
     rstopper: raw.rstopper ?? 0,
+    volume: raw.volume ?? 1,
+    volumeGiven: raw.volume !== undefined,
     ck: raw.ck ?? null,
     cout: raw.cout ?? null,
   };

@@ -21,6 +21,8 @@ export interface RegionStage {
   readonly rg?: number;
   /** Its grid stopper, Ω (default 0, none): the grid's current past its onset flows through it. */
   readonly rstopper?: number;
+  /** A volume control in the leak's place, its wiper's share of the track (absent: a fixed leak). */
+  readonly volume?: number;
 }
 
 /** A point no cathode-biased stage on this B+ can sit at (above the 0 V grid curve, or past the load line's end). */
@@ -63,9 +65,9 @@ const unreachable = UNREACHABLE_VERDICT;
  * target, the costly ones (swing, THD) only when a target needs them.
  */
 export function evaluatePoint(stage: RegionStage, targets: Targets, active: readonly TargetName[], vpk: number, ia: number): PointVerdict {
-  const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia, rg: stage.rg ?? 1e6 });
+  const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia, rg: (stage.rg ?? 1e6) * (stage.volume ?? 1) });
   if (!at.ok) return unreachable;
-  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0 };
+  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0, ...(stage.volume !== undefined ? { volume: stage.volume } : {}) };
   return judgeStage(design, targets, active);
 }
 

@@ -1,3 +1,4 @@
+import { volumeProblem } from '../stage/volumeControl';
 import { fail, type Result } from '../result';
 import { checkNumber, checkTube, LIMITS } from '../stage/checkInput';
 import { plateExtent } from '../stage/plateExtent';
@@ -35,6 +36,7 @@ export function feasibleRegion(stage: RegionStage, targets: Targets, grid: Regio
     (typeof stage.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
     (stage.rg === undefined ? null : checkNumber('rg', 'Rg', stage.rg, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
     (stage.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', stage.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
+    volumeProblem(stage.volume, true) ??
     targetsProblem(targets);
   if (problem) return problem;
   const nx = grid?.nx ?? 60;

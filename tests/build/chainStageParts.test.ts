@@ -87,6 +87,20 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     expect(partsOf(2).resistors.map((x) => x.ref)).not.toContain('Rst3');
   });
 
+  it('a gain stage with a volume control lists the pot in its leak\'s place, at its value as given (pots come in their own few values)', () => {
+    const potted: ChainInput = { ...input, stages: input.stages.map((s, i) => (i === 2 && s.kind === 'common-cathode' && s.coupling.kind === 'capacitor' ? { ...s, volume: 0.5, coupling: { ...s.coupling, rg: 250e3 } } : s)) };
+    const r = solveAmplifier(potted);
+    if (!r.ok) throw new Error(r.message);
+    const p = chainStageParts(potted, r, 2, 'E12')!;
+    expect(p.resistors.map((x) => x.ref)).toEqual(['Ra3', 'Rk3', 'VR3']);
+    const vr = line(p.resistors, 'VR3');
+    expect(vr.role).toBe('stage 3 volume control, audio taper, in the grid leak\'s place: wiper to the grid');
+    // 250 kΩ is no E12 value (220k and 270k are): a pot is ordered as given.
+    expect(vr.preferred).toBe(250e3);
+    expect(vr.potentiometer).toBe(true);
+    expect(vr.watts).toBe(0);
+  });
+
   it('a long-tailed pair: the tail carries both triodes\' current, its outputs are coupled by the pair\'s capacitors', () => {
     const p = partsOf(3);
     expect(p.title).toBe('Phase splitter, 12AU7 long-tailed pair');

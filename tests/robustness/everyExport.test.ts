@@ -44,6 +44,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('frequencyResponse', fc.tuple(near(stage), or(fc.array(fc.double({ min: 0.1, max: 1e7 }), { maxLength: 20 }))), Q.frequencyResponse);
   run('corners', fc.tuple(near({ ...stage, cin: 100e-9, rg: 1e6, rsource: 10e3, cout: 1e-6 })), Q.corners, 150);
   run('corners (grid stopper)', fc.tuple(near({ ...stage, cin: 100e-9, rg: 1e6, rsource: 10e3, rstopper: 47e3, cout: 1e-6 })), Q.corners, 150);
+  run('corners (volume control)', fc.tuple(near({ ...stage, cin: 100e-9, rg: 250e3, volume: 0.3, rsource: 10e3, rstopper: 4.7e3, cout: 1e-6 })), Q.corners, 150);
+  run('distortion (volume control, past grid current)', fc.tuple(near({ ...stage, tube: ax7, ra: 100e3, rk: 1500, rg: 500e3, volume: 0.5, rsource: 1e3 }), near({ outputRms: 60 })), Q.distortion, 100);
   run('distortion (grid stopper, past grid current)', fc.tuple(near({ ...stage, tube: ax7, ra: 100e3, rk: 1500, rg: 1e6, rsource: 1e3, rstopper: 68e3 }), near({ outputRms: 60 })), Q.distortion, 100);
   run('solveChain', fc.tuple(or(fc.array(near({ kind: 'common-cathode', ...stage }), { maxLength: 3 }))), Q.solveChain);
   // The amplifier form: grids near the onset behind a high source, a follower, the load through its own capacitor.
@@ -53,7 +55,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
       near({
         source: { rsource: 250e3 },
         stages: [
-          { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, rstopper: 68e3, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+          { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, rstopper: 68e3, volume: 0.4, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
           { kind: 'follower', tube: au7, bplus: 250, rk: 22e3, coupling: { kind: 'direct' } },
         ],
         load: { rl: 10e3, cc: 1e-6 },

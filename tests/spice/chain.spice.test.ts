@@ -128,6 +128,19 @@ const chains: { label: string; chain: ChainInput; levelShare: number }[] = [
     },
     levelShare: 0.6,
   },
+  {
+    label: 'volume controls: a 250k pot at half its track at a 12AX7 input from 10k, a 100k pot at a quarter with a 2.2k stopper at a 12AU7, into a direct-coupled follower',
+    chain: {
+      source: { rsource: 10e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 47e-6, volume: 0.5, coupling: { kind: 'capacitor', cc: 100e-9, rg: 250e3 } },
+        { kind: 'common-cathode', tube: au7, bplus: 300, ra: 22e3, rk: 1000, bypassed: true, ck: 100e-6, rstopper: 2.2e3, volume: 0.25, coupling: { kind: 'capacitor', cc: 220e-9, rg: 100e3 } },
+        { kind: 'follower', tube: au7, bplus: 300, rk: 27e3, coupling: { kind: 'direct' } },
+      ],
+      load: { rl: 47e3, cc: 1e-6 },
+    },
+    levelShare: 0.6,
+  },
 ];
 
 const dB = (x: number) => 20 * Math.log10(x);

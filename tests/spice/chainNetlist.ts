@@ -65,7 +65,11 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
   const lines: string[] = stopper > 0 ? [`RST${i} ${leakTop} ${gnode} ${g(stopper)}`] : [];
   if (s.coupling.kind === 'capacitor') {
     const vbias = s.kind === 'single-ended-output' || s.kind === 'push-pull-output' ? (s.bias === 'fixed' ? s.vg : 0) : (s.vbias ?? 0);
-    lines.push(`CC${i} ${input} ${leakTop} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${leakTop} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
+    // A gain stage's volume control: the capacitor into the pot's top, the track above the wiper to it, below it to the bias.
+    const volume = s.kind === 'common-cathode' ? s.volume : undefined;
+    if (volume !== undefined && volume < 1) {
+      lines.push(`CC${i} ${input} g${i}t ${midband ? '10u' : g(s.coupling.cc)}`, `RGU${i} g${i}t ${leakTop} ${g((1 - volume) * s.coupling.rg)}`, `RG${i} ${leakTop} gb${i} ${g(volume * s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
+    } else lines.push(`CC${i} ${input} ${leakTop} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${leakTop} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
     // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
     if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b gb${i} ${g(s.coupling.rg)}`);
   }

@@ -56,6 +56,17 @@ const chains: { label: string; chain: ChainInput }[] = [
       load: { rl: 220e3 },
     },
   },
+  {
+    label: '12AX7 from 10k through a 250k volume control at half its track (its wiper\'s 62.5k of thermal noise at the grid) → 12AU7',
+    chain: {
+      source: { rsource: 10e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 47e-6, volume: 0.5, coupling: { kind: 'capacitor', cc: 100e-9, rg: 250e3 } },
+        { kind: 'common-cathode', tube: au7, bplus: 300, ra: 22e3, rk: 1000, bypassed: true, ck: 100e-6, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 } },
+      ],
+      load: { rl: 100e3 },
+    },
+  },
 ];
 
 describe.runIf(run)('the amplifier\'s noise against ngspice\'s noise analysis', () => {

@@ -65,6 +65,18 @@ const chains: { label: string; chain: ChainInput; over: number }[] = [
     },
     over: 1.15,
   },
+  {
+    label: '12AX7 plate driving a 12AU7 into grid current through a 470k volume control at 0.7 of its track (the wiper about 100k)',
+    chain: {
+      source: { rsource: 1e3 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
+        { kind: 'common-cathode', tube: au7, bplus: 300, ra: 47e3, rk: 1000, bypassed: true, volume: 0.7, coupling: { kind: 'capacitor', cc: 1e-6, rg: 470e3 } },
+      ],
+      load: { rl: 470e3 },
+    },
+    over: 1.25,
+  },
 ];
 
 const dB = (x: number) => 20 * Math.log10(x);

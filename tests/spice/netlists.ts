@@ -48,6 +48,8 @@ export interface SpiceStage {
   readonly rg?: number;
   /** Grid stopper, Ω, between the grid leak's top and the grid. */
   readonly rstopper?: number;
+  /** A volume control in the leak's place: Cin feeds the pot's top, the grid side hangs from its wiper, this share up its track. */
+  readonly volume?: number;
   readonly ck?: number;
   readonly cout?: number;
   /** The grid-current law, when the stage's grid draws current (absent: none, as Koren's plate law alone). */
@@ -63,6 +65,7 @@ function stageElements(s: SpiceStage, source: string, large = { bypass: 1, coupl
   const stopped = (s.rstopper ?? 0) > 0;
   const hasInputNetwork = s.rsource !== undefined || s.cin !== undefined || stopped;
   const leakTop = stopped ? 'x' : 'grid';
+  const potted = s.volume !== undefined && s.volume < 1 && s.rg !== undefined;
   return [
     triodeSubckt('tri', s.params, s.caps, s.grid),
     `VB bplus 0 DC ${g(s.bplus)}`,
@@ -71,8 +74,9 @@ function stageElements(s: SpiceStage, source: string, large = { bypass: 1, coupl
     s.rk > 0 && (s.ck !== undefined || s.bypassed) ? `CK cathode 0 ${g(s.ck ?? large.bypass)}` : '',
     hasInputNetwork ? `VS src 0 ${source}` : `VG grid 0 ${source}`,
     hasInputNetwork ? `RS src a ${g(Math.max(s.rsource ?? 0, 1e-3))}` : '',
-    hasInputNetwork ? `CIN a ${leakTop} ${g(s.cin ?? large.coupling)}` : '',
-    hasInputNetwork ? `RG ${leakTop} gbias ${g(s.rg ?? 1e12)}\nVGB gbias 0 DC ${g(s.vbias)}` : '',
+    hasInputNetwork ? `CIN a ${potted ? 'top' : leakTop} ${g(s.cin ?? large.coupling)}` : '',
+    potted ? `RGU top ${leakTop} ${g((1 - s.volume!) * s.rg!)}` : '',
+    hasInputNetwork ? `RG ${leakTop} gbias ${g((s.rg ?? 1e12) * (potted ? s.volume! : 1))}\nVGB gbias 0 DC ${g(s.vbias)}` : '',
     stopped ? `RST ${leakTop} grid ${g(s.rstopper!)}` : '',
     'X1 plate grid cathode tri',
     Number.isFinite(s.rl) ? `CO plate out ${g(s.cout ?? large.coupling)}\nRL out 0 ${g(s.rl)}` : 'EO out 0 plate 0 1',

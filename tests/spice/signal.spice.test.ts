@@ -51,6 +51,8 @@ describe.runIf(run)('-3 dB points agree with an ngspice AC sweep', () => {
     // A grid stopper at the socket: with the grid's Miller capacitance it sets the top of the band.
     { id: '12AX7', label: '10k source, 22n in, 1M leak, 68k grid stopper, 22u bypass, 22n into 1M', d: { bplus: 300, ra: 100e3, rk: 1500, bypassed: true, rl: 1e6, vbias: 0, rsource: 10e3, cin: 22e-9, rg: 1e6, rstopper: 68e3, ck: 22e-6, cout: 22e-9 } },
     { id: '12AU7', label: '1k source, 100n in, 470k leak, 10k grid stopper, unbypassed, 100n into 220k', d: { bplus: 250, ra: 22e3, rk: 1000, bypassed: false, rl: 220e3, vbias: 0, rsource: 1e3, cin: 100e-9, rg: 470e3, rstopper: 10e3, cout: 100e-9 } },
+    // A volume control in the leak's place: the wiper's impedance with the grid's Miller capacitance sets the top.
+    { id: '12AX7', label: '2k source, 47n into a 500k volume control at 0.3 of its track, 47u bypass, 22n into 470k', d: { bplus: 280, ra: 100e3, rk: 1500, bypassed: true, rl: 470e3, vbias: 0, rsource: 2e3, cin: 47e-9, rg: 500e3, volume: 0.3, ck: 47e-6, cout: 22e-9 } },
   ];
   it.each(networks.map((n) => [`${n.id}: ${n.label}`, n] as const))('%s', (_label, n) => {
     const tube = findTube(n.id)!;

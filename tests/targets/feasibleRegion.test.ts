@@ -9,7 +9,7 @@ import { designAtPlanePoint, distortion, feasibleRegion, findTube, rankTubes, so
 function meets(stage: RegionStage, t: Targets, vpk: number, ia: number): boolean | 'unreachable' {
   const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia });
   if (!at.ok) return 'unreachable';
-  const design = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0 };
+  const design = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0, ...(stage.volume !== undefined ? { volume: stage.volume } : {}) };
   const s = solveStage(design);
   if (!s.ok) return 'unreachable';
   const sw = swing(design);
@@ -51,6 +51,7 @@ describe('the region where a stage meets its targets', () => {
     ['12AU7: grid headroom, Ra and Rk ranges, heater–cathode', au7, { minGridHeadroom: 4, raRange: [10e3, 47e3], rkRange: [470, 2200], heaterCathodeWithinRating: true }, { vmax: 250, iaMax: 0.015 }],
     ['12AU7 unbypassed, a high source: THD at 5 V and gain', { ...au7, bypassed: false, rsource: 100e3 }, { maxThdAt: { outputRms: 5, thd: 0.02 }, minGain: 8 }, { vmax: 250, iaMax: 0.015 }],
     ['12AX7 behind a 100k grid stopper: clean output and THD at 10 V', { ...ax7, rsource: 1e3, rstopper: 100e3 }, { minCleanOutputRms: 15, maxThdAt: { outputRms: 10, thd: 0.03 } }, { vmax: 300, iaMax: 0.003 }],
+    ['12AU7 behind a 500k volume control at 0.4 of its track, from 47k: clean output and THD at 8 V', { ...au7, rsource: 47e3, rg: 500e3, volume: 0.4 }, { minCleanOutputRms: 12, maxThdAt: { outputRms: 8, thd: 0.02 } }, { vmax: 250, iaMax: 0.015 }],
   ];
   it.each(cases)('%s: every point off the boundary is what the full analysis says, inside or out', (_name, stage, targets, extent) => {
     const r = feasibleRegion(stage, targets, { nx: 30, ny: 24, extent });
