@@ -60,7 +60,7 @@ export function otherStageSections(s: WorkbenchState, sheet: BuildSheet): { head
       ? `${sp.kind === 'split-load' ? `Split-load: Ra ${ohms(sp.ra)}, Rk ${ohms(sp.rk)}` : `Long-tailed pair: Ra ${ohms(sp.ra)} and ${ohms(sp.ra2)}, Rk ${ohms(sp.rk)} over a ${ohms(sp.rtail)} tail`}, B+ ${volts(sp.bplus)}, ${sp.coupling === 'direct' ? 'grid direct from the plate before it' : `grid at ${volts(sp.vgrid)} through ${ohms(sp.rg)}`}, Cc ${farads(sp.cc)} into each output grid`
       : p.kind === 'follower'
       ? `Rk ${ohms(p.rk)}, direct-coupled to stage ${i}'s plate`
-      : `B+ ${volts(p.bplus)}, Ra ${ohms(p.ra)}, Rk ${ohms(p.rk)}${p.bypassed ? ` bypassed${p.ck ? ` by ${farads(p.ck)}` : ''}` : ' unbypassed'}, ${p.cc === null ? 'direct from the source' : `Cc ${farads(p.cc)}`}, Rg ${ohms(p.rg)}${p.rstopper ? `, grid stopper ${ohms(p.rstopper)}` : ''}`;
+      : `B+ ${volts(p.bplus)}, Ra ${ohms(p.ra)}, Rk ${ohms(p.rk)}${p.bypassed ? ` bypassed${p.ck ? ` by ${farads(p.ck)}` : ''}` : ' unbypassed'}, ${p.cc === null ? 'direct from the source' : `Cc ${farads(p.cc)}`}, ${leakWords(p.rg, p.volume ?? null)}${p.rstopper ? `, grid stopper ${ohms(p.rstopper)}` : ''}`;
     return {
       heading: parts.title,
       lines: [
@@ -75,7 +75,12 @@ export function otherStageSections(s: WorkbenchState, sheet: BuildSheet): { head
 /** One line per part to order: its value and series, its rating, and what it runs at or sees. */
 export function partLines(parts: { readonly resistors: readonly ResistorLine[]; readonly capacitors: readonly CapacitorLine[] }): string[] {
   return [
-    ...parts.resistors.map((r) => `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
+    ...parts.resistors.map((r) => (r.potentiometer ? `${r.ref}: ${ohms(r.preferred)} pot, audio taper` : `${r.ref}: ${ohms(r.preferred)} ${r.series}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`)),
     ...parts.capacitors.map((c) => `${c.ref}: ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V${c.polarity ? `, ${c.polarity}` : ''} (sees ${volts(Math.max(c.volts, c.voltsAtSwitchOn))})`),
   ];
+}
+
+/** A grid leak in words: Rg, or the volume control in its place with its setting. */
+export function leakWords(rg: number, volume: number | null): string {
+  return volume === null ? `Rg ${ohms(rg)}` : `volume control ${ohms(rg)} (in Rg's place) at ${String(Number(volume.toPrecision(3))).replace('-', '−')} dB`;
 }

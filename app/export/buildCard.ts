@@ -15,7 +15,7 @@ import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
 import { elevationAdvice } from '../ui/panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
-import { amplifierSection, otherStageSections, partLines } from './amplifierLines';
+import { amplifierSection, leakWords, otherStageSections, partLines } from './amplifierLines';
 import { supplySection } from './supplyLines';
 import { supplyPartLines } from './supplyPartsLines';
 
@@ -58,7 +58,7 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
       heading: build.stages.length > 1 ? `${build.stages.find((st) => st.onBench)?.title ?? 'Stage'} (on the bench)` : 'Stage',
       lines: [
         `${d.tubeId}, B+ ${volts(d.bplus)}, Ra ${ohms(d.ra)}, Rk ${ohms(d.rk)}${d.bypassed ? ` bypassed${d.ck ? ` by ${farads(d.ck)}` : ''}` : ' unbypassed'}`,
-        `RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}, Rs ${ohms(d.rsource)}, Cin ${d.cin ? farads(d.cin) : 'none'}, Rg ${ohms(d.rg)}${d.rstopper ? `, grid stopper ${ohms(d.rstopper)}` : ''}, Cout ${d.cout ? farads(d.cout) : 'none'}`,
+        `RL ${Number.isFinite(d.rl) ? ohms(d.rl) : 'none'}, Rs ${ohms(d.rsource)}, Cin ${d.cin ? farads(d.cin) : 'none'}, ${leakWords(d.rg, d.volume)}${d.rstopper ? `, grid stopper ${ohms(d.rstopper)}` : ''}, Cout ${d.cout ? farads(d.cout) : 'none'}`,
       ],
     },
     {

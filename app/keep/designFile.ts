@@ -26,7 +26,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * Version 3 holds the whole chain of voltage stages: the design's own
  * fields are the stage on the bench (and `stage2` its follower), `before`
  * and `after` the stages either side of it, input first (stagePlans.ts). A
- * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg, rstopper? }
+ * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg, rstopper?, volume? }
  * (cc null: direct from the source, first stage only) or
  * { kind: "follower", tubeId, rk, coupling? } (direct-coupled to the gain stage
  * before it; with coupling { cc, rg, vbias }, through a capacitor into its own
@@ -49,7 +49,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * bench's default (on the AC heater winding); `feedbackRf` (global
  * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across
  * it, F, or null): absent, none; `rstopper` (a gain stage's grid stopper,
- * Ω, 0 for none; the bench's and each such stage's): absent, none; and the output
+ * Ω, 0 for none; the bench's and each such stage's): absent, none; `volume`
+ * (a volume control in Rg's place, its setting in dB below full, or null
+ * for a fixed Rg; the bench's and each gain stage's): absent, none; and the output
  * transformer's `primaryInductance` and `leakageInductance` (H, or null):
  * absent, the ideal transformer.
  * Version 1 files (before output stages) open with the bench's default
@@ -108,6 +110,7 @@ function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, 
         kind: 'common-cathode', tubeId: knownId(raw.tubeId as string), bplus: raw.bplus as number, ra: raw.ra as number, rk: raw.rk as number,
         bypassed: raw.bypassed as boolean, ck: raw.ck as number | null, cc: raw.cc as number | null, rg: raw.rg as number,
         ...(raw.rstopper ? { rstopper: raw.rstopper as number } : {}),
+        ...(typeof raw.volume === 'number' ? { volume: raw.volume } : {}),
       });
     }
     prevIsGain = raw.kind !== 'follower';
@@ -205,6 +208,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     cin: d.cin as number | null,
     rg: d.rg as number,
     rstopper: (d.rstopper as number | undefined) ?? 0,
+    volume: (d.volume as number | null | undefined) ?? null,
     ck: d.ck as number | null,
     cout: d.cout as number | null,
     levelRms: d.levelRms as number,

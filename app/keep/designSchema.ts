@@ -67,6 +67,7 @@ export const BENCH_STAGE = v.object({
   rg: ranged(L.rg),
   // Came later within version 3: absent, none.
   rstopper: v.optional(ranged(L.rstopper)),
+  volume: v.optional(rangedOrNull(L.volume)),
   ck: rangedOrNull(L.ck),
   cout: rangedOrNull(L.cout),
   levelRms: ranged(L.levelRms),
@@ -168,6 +169,7 @@ export const GAIN_STAGE = v.object({
   rg: ranged(L.rg),
   // Came later within version 3: absent, none.
   rstopper: v.optional(ranged(L.rstopper)),
+  volume: v.optional(rangedOrNull(L.volume)),
 });
 export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk), coupling: FOLLOWER_COUPLING });
 

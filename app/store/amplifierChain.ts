@@ -14,6 +14,7 @@ import {
   type TubeRecord,
 } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
+import { volumeShare } from './volumeShare';
 import type { BenchDesign } from './analysis';
 import { drivesPair, outputOnSupply, pushPullDesignOf } from './outputPlan';
 import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
@@ -73,6 +74,7 @@ function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[])
       kind: 'common-cathode', tube, bplus: p.bplus, ra: p.ra, rk: p.rk, bypassed: p.bypassed,
       ...(p.bypassed && p.ck !== null && p.rk > 0 ? { ck: p.ck } : {}),
       ...(p.rstopper ? { rstopper: p.rstopper } : {}),
+      ...(p.volume != null && p.cc !== null ? { volume: volumeShare(p.volume) } : {}),
       coupling: p.cc === null ? { kind: 'direct' } : { kind: 'capacitor', cc: p.cc, rg: p.rg },
     };
   });

@@ -6,6 +6,7 @@ import type { HeaterChoice } from './heaterChoice';
 import type { TargetPlan } from './targetPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
 import { benchSource } from './amplifierChain';
+import { volumeShare } from './volumeShare';
 
 /** The design as the bench holds it: what the user chose, in SI units. */
 export interface BenchDesign {
@@ -27,6 +28,8 @@ export interface BenchDesign {
   readonly rg: number;
   /** Grid stopper at the socket, Ω; 0 for none. */
   readonly rstopper: number;
+  /** A volume control in Rg's place (Rg its track, the grid on its wiper): its setting, dB below full; null for a fixed Rg. */
+  readonly volume: number | null;
   /** Cathode bypass capacitor, F (used when bypassed); null for an ideal one. */
   readonly ck: number | null;
   /** Output coupling capacitor into RL, F; null for an ideal one. */
@@ -131,6 +134,7 @@ export function stageDesignOf(d: BenchDesign, tube: TubeRecord, registry: TubeRe
     rg: d.rg,
     rsource: source.ok ? source.ohms : d.rsource,
     ...(d.rstopper ? { rstopper: d.rstopper } : {}),
+    ...(d.volume !== null ? { volume: volumeShare(d.volume) } : {}),
     ...(d.cin !== null ? { cin: d.cin } : {}),
     ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
     ...(after.cout !== null && !chained ? { cout: after.cout } : {}),

@@ -27,6 +27,7 @@ export const DEMO_DESIGN: BenchDesign = {
   cin: 470e-9,
   rg: 1e6,
   rstopper: 0,
+  volume: null,
   ck: 100e-6,
   cout: 1e-6,
   levelRms: 2,

@@ -26,6 +26,8 @@ export const DESIGN_LIMITS = {
   rg: limit(1e3, 100e6, 'Ω'),
   /** A grid stopper: 0 (none), or from 10 Ω to 1 MΩ (past that it would eat the band with any grid's capacitance). */
   rstopper: limit(0, 1e6, 'Ω', 10),
+  /** A volume control's setting, dB below full (0 at full): to −60 dB, where it is as good as off. */
+  volume: limit(-60, 0, 'dB'),
   ck: limit(1e-9, 1, 'F'),
   cout: limit(1e-12, 1, 'F'),
   levelRms: limit(1e-4, 1000, 'V rms'),

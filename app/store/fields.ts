@@ -8,7 +8,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
-  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'rstopper' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf' | 'feedbackCf'
+  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'rstopper' | 'volume' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf' | 'feedbackCf'
   | 'fCc' | 'fRg' | 'fVbias'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oLp' | 'oLl' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
@@ -105,6 +105,16 @@ function percent(label: string, range: Limit): Read {
 }
 const showPercent = (v: number | null) => (v === null ? '' : String(Number((v * 100).toPrecision(3))));
 
+/** A setting in dB at or below full (0), as a volume control's. */
+function decibelsBelowFull(label: string, range: Limit): Read {
+  return (text) => {
+    const r = parseValue(text.replace(/db$/i, '').trim());
+    if (!r.ok) return r;
+    if (r.value < range.min || r.value > range.max) return { ok: false, message: `${label} must be from ${String(range.min).replace('-', '−')} to ${range.max} dB below full (0 at full, e.g. −6)` };
+    return r;
+  };
+}
+
 /** A fixed grid bias: 0 V or negative. */
 const gridBias: Read = (text) => {
   const r = parseValue(text);
@@ -123,6 +133,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   cin: { label: 'Cin', unit: 'F', example: '68n or none', read: ranged('Cin', L.cin, { none: 'null' }), show: compact, ...top('cin') },
   rg: { label: 'Rg', unit: 'Ω', example: '2M2', read: ranged('Rg', L.rg), show: compact, ...top('rg') },
   rstopper: { label: 'Grid stopper', unit: 'Ω', example: '68k or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.rstopper, put: (d, v) => ({ ...d, rstopper: v ?? 0 }) },
+  volume: { label: 'Volume control', unit: 'dB', example: '-6 or none', read: optional(decibelsBelowFull('Volume control', L.volume)), show: (v) => (v === null ? 'none' : String(Number(v.toPrecision(3)))), get: (d) => d.volume, put: (d, v) => ({ ...d, volume: v }) },
   ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', L.ck, { none: 'null' }), show: compact, ...top('ck') },
   cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', L.cout, { none: 'null' }), show: compact, ...top('cout') },
   feedbackRf: { label: 'Feedback Rf', unit: 'Ω', example: '47k or none', read: ranged('Feedback resistor', L.feedbackRf, { none: 'null' }), show: compact, ...top('feedbackRf') },

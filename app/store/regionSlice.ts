@@ -91,10 +91,10 @@ export function regionRequestOf(s: WorkbenchState): { key: string; stage: Region
   const tube = s.registry.lookup(d.tubeId);
   if (!tube) return null;
   const sd = stageDesignOf(d, tube, s.registry);
-  const stage: RegionStage = { tube, bplus: sd.bplus, rl: sd.rl ?? Infinity, rsource: sd.rsource ?? 0, bypassed: sd.bypassed ?? true, ...(sd.rg !== undefined ? { rg: sd.rg } : {}), ...(sd.rstopper ? { rstopper: sd.rstopper } : {}) };
+  const stage: RegionStage = { tube, bplus: sd.bplus, rl: sd.rl ?? Infinity, rsource: sd.rsource ?? 0, bypassed: sd.bypassed ?? true, ...(sd.rg !== undefined ? { rg: sd.rg } : {}), ...(sd.rstopper ? { rstopper: sd.rstopper } : {}), ...(sd.volume !== undefined ? { volume: sd.volume } : {}) };
   const targets = targetsOf(d.targets);
   const extent = s.analysis.sheet.extent;
-  const key = JSON.stringify([tube.id, stage.bplus, stage.rl, stage.rsource, stage.bypassed, stage.rg ?? null, stage.rstopper ?? 0, targets, extent.vmax, extent.iaMax]);
+  const key = JSON.stringify([tube.id, stage.bplus, stage.rl, stage.rsource, stage.bypassed, stage.rg ?? null, stage.rstopper ?? 0, stage.volume ?? 1, targets, extent.vmax, extent.iaMax]);
   return { key, stage, targets, extent: { vmax: extent.vmax, iaMax: extent.iaMax } };
 }
 

@@ -32,6 +32,8 @@ export interface GainPlan {
   readonly rg: number;
   /** Grid stopper at the socket, Ω; 0 or absent: none. */
   readonly rstopper?: number;
+  /** A volume control in Rg's place: its setting, dB below full; null or absent: a fixed Rg. */
+  readonly volume?: number | null;
 }
 
 /**
@@ -70,7 +72,7 @@ export const NEW_STAGE_RG = 470e3;
 
 /** The stage on the bench as a plan. */
 export function benchPlan(d: BenchDesign): GainPlan {
-  return { kind: 'common-cathode', tubeId: d.tubeId, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed, ck: d.ck, cc: d.cin, rg: d.rg, ...(d.rstopper ? { rstopper: d.rstopper } : {}) };
+  return { kind: 'common-cathode', tubeId: d.tubeId, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed, ck: d.ck, cc: d.cin, rg: d.rg, ...(d.rstopper ? { rstopper: d.rstopper } : {}), ...(d.volume !== null ? { volume: d.volume } : {}) };
 }
 
 /** The bench stage's second stage as plans: its follower, or a gain stage kept from a design before version 3. */
@@ -125,6 +127,7 @@ export function withStagesOnBench(d: BenchDesign, list: readonly StagePlan[], k:
     cin: on.cc,
     rg: on.rg,
     rstopper: on.rstopper ?? 0,
+    volume: on.volume ?? null,
     stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk, coupling: next.coupling } : { ...d.stage2, kind: 'none' },
     before: list.slice(0, k),
     after: list.slice(k + (follows ? 2 : 1)),

@@ -18,7 +18,7 @@ export function PartsTables({ resistors, capacitors, capacitorRule = STAGE_CAPAC
         <thead><tr><th scope="col">Part</th><th scope="col">Order</th><th scope="col">Runs at</th><th scope="col">Worst case</th><th scope="col">Rating</th></tr></thead>
         <tbody>
           {resistors.map((r) => (
-            <tr key={r.ref} data-part-line={r.ref}><th scope="row">{`${r.ref} (${r.role})`}</th><td>{`${ohms(r.preferred)} ${r.series}`}</td><td>{watts(r.watts)}</td><td>{watts(r.wattsWorst)}</td><td>{`${r.ratingWatts} W`}</td></tr>
+            <tr key={r.ref} data-part-line={r.ref}><th scope="row">{`${r.ref} (${r.role})`}</th><td>{`${ohms(r.preferred)} ${r.potentiometer ? 'pot' : r.series}`}</td><td>{watts(r.watts)}</td><td>{watts(r.wattsWorst)}</td><td>{`${r.ratingWatts} W`}</td></tr>
           ))}
         </tbody>
       </table>

@@ -1,5 +1,5 @@
 import { memo } from 'react';
-import { Capacitor, HResistor, Resistor } from './parts';
+import { Wiper, Capacitor, HResistor, Resistor } from './parts';
 import { Triode } from './tubes';
 import { Dot, Ground, Wire } from './wiring';
 import type { BenchDesign } from '../../store/analysis';
@@ -22,6 +22,8 @@ interface DrawingProps {
   readonly hasLoad: boolean;
   /** A grid stopper between the leak and the grid. */
   readonly stopped: boolean;
+  /** The leak is a volume control: its wiper drawn as an arrow onto the track. */
+  readonly potted: boolean;
   readonly tubeId: string;
   readonly tube2Id: string;
 }
@@ -31,7 +33,7 @@ interface DrawingProps {
  * the circuit's shape, so a drag (which changes values, not wiring) never
  * renders it again.
  */
-export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, stopped, tubeId, tube2Id }: DrawingProps) {
+export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, stopped, potted, tubeId, tube2Id }: DrawingProps) {
   const outX = kind === 'none' ? 300 : 404;
   const outY = kind === 'follower' ? 250 : 130;
   const fromX = kind === 'none' ? X1 : X2;
@@ -52,6 +54,7 @@ export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed
             )}
             <Dot x={120} y={GRID_Y} />
             <Resistor x={120} y1={GRID_Y} y2={344} />
+            {potted ? <Wiper x={120} y={268} /> : null}
             <Ground x={120} y={352} />
             {/* stage 1 */}
             <Resistor x={X1} y1={RAIL} y2={130} />

@@ -49,7 +49,8 @@ function partText(f: FieldName, d: BenchDesign): string {
     case 'rl': return Number.isFinite(d.rl) ? `RL ${ohms(d.rl)}` : 'RL none';
     case 'rsource': return `Rs ${ohms(d.rsource)}`;
     case 'cin': return d.cin === null ? 'direct' : farads(d.cin);
-    case 'rg': return `Rg ${ohms(d.rg)}`;
+    case 'rg': return d.volume === null ? `Rg ${ohms(d.rg)}` : `VR ${ohms(d.rg)}`;
+    case 'volume': return d.volume === null ? 'none' : `${String(Number(d.volume.toPrecision(3))).replace('-', '−')} dB`;
     case 'rstopper': return d.rstopper ? `Rst ${ohms(d.rstopper)}` : 'Rst none';
     case 'ck': return d.ck === null ? 'Ck ideal' : farads(d.ck);
     case 'cout': return d.cout === null ? 'ideal' : farads(d.cout);
@@ -79,7 +80,8 @@ export function StageSchematic() {
   const fedStage = useWorkbench((s) => s.design.before.length);
   const fedFrom = useWorkbench((s) => (s.design.before.length > 0 ? benchSource(s.design, s.registry) : null));
   const fedBy = fedStage > 0 && fedFrom ? { stage: fedStage, source: fedFrom } : null;
-  const allSpots = labelSpots(kind, coupled);
+  // A volume control's setting sits by its wiper, drawn only when Rg is one.
+  const allSpots = { ...labelSpots(kind, coupled), ...(design.volume !== null ? { volume: { x: 146, y: 272, anchor: 'start' as const } } : {}) };
   const { rsource: _rs, ...laterSpots } = allSpots;
   const spots: Partial<Record<FieldName, Spot>> = fedBy ? laterSpots : allSpots;
   const hasLoad = Number.isFinite(design.rl);
@@ -88,7 +90,7 @@ export function StageSchematic() {
     <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
       <div className="schematic-frame">
         <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? `, then a cathode follower${coupled ? ', capacitor-coupled' : ''}` : ', then a second gain stage'}`}>
-          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} stopped={(design.rstopper ?? 0) > 0} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
+          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} stopped={(design.rstopper ?? 0) > 0} potted={design.volume !== null} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
           {fedBy ? (
             <g fontSize={12} fill="#4a535c" textAnchor="middle">
               <text x={45} y={GRID_Y - 44}>{`from stage ${fedBy.stage}`}</text>

@@ -1,5 +1,5 @@
 import { memo, type ReactNode } from 'react';
-import { Capacitor, HResistor, Resistor, Winding } from './parts';
+import { Capacitor, HResistor, Resistor, Winding, Wiper } from './parts';
 import { Pentode, Triode } from './tubes';
 import { Dot, Ground, Wire } from './wiring';
 import { farads, ohms, volts } from '../../format';
@@ -66,13 +66,20 @@ function Coupling({ x0, cc, value, field, name = 'Cc' }: { x0: number; cc: numbe
 }
 
 /** A grid leak from the grid line to ground (or, with `to`, to the divider holding the grid there). */
-function GridLeak({ x0, rg, value, field, to }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number } }) {
+function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number }; volume?: number | null }) {
   return (
     <>
       <Dot x={x0 + RG_X} y={GRID} />
       <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
       {to ? value(to.field, 'grid held at', x0 + RG_X, GROUND + 4, `to ${volts(to.volts)}`, 'middle') : <Ground x={x0 + RG_X} y={GROUND} />}
-      {value(field, 'Rg', x0 + RG_X + 11, GRID + 32, ohms(rg))}
+      {value(field, volume === null ? 'Rg' : 'Volume control', x0 + RG_X + 11, GRID + 32, ohms(rg))}
+      {volume !== null && (
+        <>
+          {/* From the left: the right of the track holds the cathode's labels. */}
+          <Wiper x={x0 + RG_X} y={GRID + 52} side={-1} />
+          {value('volume', 'set to', x0 + RG_X - 9, GRID + 44, `${String(Number(volume.toPrecision(3))).replace('-', '−')} dB`, 'end')}
+        </>
+      )}
     </>
   );
 }
@@ -109,7 +116,7 @@ export const GainCell = memo(function GainCell({ x0, p, value }: { x0: number; p
       ) : (
         <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
       )}
-      {p.cc !== null && <GridLeak x0={x0} rg={p.rg} value={value} field="rg" />}
+      {p.cc !== null && <GridLeak x0={x0} rg={p.rg} value={value} field="rg" volume={p.volume ?? null} />}
       <PlateLoad x0={x0} width={WIDTH.gain} cx={cx} r={r} ra={p.ra} field="ra" value={value} />
       {p.rk > 0 ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}
       <Ground x={cx} y={GROUND} />

@@ -6,6 +6,16 @@
  */
 import { INK } from './ink';
 
+/** A potentiometer's wiper: an arrow onto a vertical track at (x, y), from the right (side 1) or the left (−1). */
+export function Wiper({ x, y, side = 1 }: { x: number; y: number; side?: 1 | -1 }) {
+  return (
+    <g stroke={INK} strokeWidth={1.5} fill={INK}>
+      <line x1={x + side * 22} y1={y} x2={x + side * 14} y2={y} />
+      <path d={`M${x + side * 9} ${y} l${side * 7} -4 v8 z`} stroke="none" />
+    </g>
+  );
+}
+
 /** A vertical resistor between (x, y1) and (x, y2). */
 export function Resistor({ x, y1, y2, faded = false }: { x: number; y1: number; y2: number; faded?: boolean }) {
   const mid = (y1 + y2) / 2;

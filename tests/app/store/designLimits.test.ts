@@ -49,6 +49,18 @@ describe('one table of limits per design field', () => {
     }
   });
 
+  it('a volume control\'s setting: typing and files take −60 to 0 dB, ends included, and none', () => {
+    const typed = (t: string) => FIELDS.volume.read(t);
+    expect(typed('-60')).toEqual({ ok: true, value: -60 });
+    expect(typed('0')).toEqual({ ok: true, value: 0 });
+    expect(typed('-6 dB')).toEqual({ ok: true, value: -6 });
+    expect(typed('none')).toEqual({ ok: true, value: null });
+    expect(typed('-60.6')).toEqual({ ok: false, message: 'Volume control must be from −60 to 0 dB below full (0 at full, e.g. −6)' });
+    expect(typed('6').ok).toBe(false);
+    for (const v of [L.volume.min, L.volume.max, null]) expect(opens({ ...parted, volume: v })).toBe(true);
+    for (const v of [L.volume.min - 0.5, 0.5]) expect(opens({ ...parted, volume: v })).toBe(false);
+  });
+
   it('the output stage\'s ranges are the model\'s own, and a drag of B+ stops where typing does', () => {
     const el34 = findOutputTube('EL34')!;
     expect(L.output.bplus).toMatchObject({ min: OUTPUT_LIMITS.minBplus, max: OUTPUT_LIMITS.maxBplus });
