@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { amplifierAtLevel, findOutputTube, findTube, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 import { chainNetlist, nodes } from './chainNetlist';
+import { LINE_AMPLIFIER } from './lineAmplifier';
 import { fourierTable, ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';
 
@@ -22,15 +23,7 @@ const el34 = findOutputTube('EL34')!;
 const chains: { label: string; chain: ChainInput; levelShare: number }[] = [
   {
     label: 'common cathode → common cathode → direct-coupled follower, into 100k',
-    chain: {
-      source: { rsource: 1e3 },
-      stages: [
-        { kind: 'common-cathode', tube: ax7, bplus: 280, ra: 120e3, rk: 1800, bypassed: true, ck: 47e-6, coupling: { kind: 'capacitor', cc: 220e-9, rg: 1e6 } },
-        { kind: 'common-cathode', tube: au7, bplus: 280, ra: 33e3, rk: 3300, bypassed: false, coupling: { kind: 'capacitor', cc: 68e-9, rg: 470e3 } },
-        { kind: 'follower', tube: au7, bplus: 280, rk: 39e3, coupling: { kind: 'direct' } },
-      ],
-      load: { rl: 100e3 },
-    },
+    chain: LINE_AMPLIFIER,
     levelShare: 0.6,
   },
   {
