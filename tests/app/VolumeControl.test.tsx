@@ -30,6 +30,8 @@ describe('a gain stage\'s volume control', () => {
     // The ratings list says what the pot does at its worst setting: a quarter of its track (Thévenin) against the 12AU7's
     // some 21 pF of Miller capacitance, about 30 kHz by 1/(2πRC): above the audio band, a note.
     expect(screen.getByText(/^Volume control 1 MΩ: at half its track \(−6 dB\) the wiper drives the grid through 250 kΩ; with the grid's 2\d.\d pF \(Miller effect\) its corner is 3\d.\d kHz, above the audio band/)).toBeTruthy();
+    // The stage's own input figures are then at the wiper, the strip's at the source.
+    expect(view.container.querySelector('[data-figure="input-needed"] dt')!.textContent).toBe('Input needed, at the wiper');
     const part = view.container.querySelector('[data-part-line="VR2"]');
     expect(part?.textContent).toMatch(/^VR2 \(stage 2 volume control, audio taper, in the grid leak's place: wiper to the grid\)1 MΩ pot/);
     expect(view.container.querySelector('[data-part-line="Rg2"]')).toBeNull();
@@ -55,5 +57,6 @@ describe('a gain stage\'s volume control', () => {
     await waitFor(() => expect(gainDbOf(strip())).toBeCloseTo(gain0, 1));
     expect(view.container.querySelector('[data-part-line="VR2"]')).toBeNull();
     expect(view.container.querySelector('[data-part="volume"]')).toBeNull();
+    expect(view.container.querySelector('[data-figure="input-needed"] dt')!.textContent).toBe('Input needed');
   });
 });

@@ -20,6 +20,8 @@ export function SignalPanel() {
   const editField = useWorkbench((s) => s.editField);
   const settleField = useWorkbench((s) => s.settleField);
   const limit = swing.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
+  // Behind a volume control the stage's own input figures are at the wiper (its grid's side); the strip's are at the source.
+  const atWiper = useWorkbench((s) => (s.design.volume !== null ? ', at the wiper' : ''));
   return (
     <section className="panel signal-panel" aria-label="Signal at a chosen level">
       <h2>Signal {stale ? <span className="stale-note">(updates when you let go)</span> : null}</h2>
@@ -39,14 +41,14 @@ export function SignalPanel() {
           />
         </div>
         <dl className="figure-group">
-          <div className="figure" data-figure="input-needed"><dt>Input needed</dt><dd>{d.ok ? voltsRms(d.inputRms) : '—'}</dd></div>
+          <div className="figure" data-figure="input-needed"><dt>{`Input needed${atWiper}`}</dt><dd>{d.ok ? voltsRms(d.inputRms) : '—'}</dd></div>
           <div className="figure" data-figure="thd"><dt>THD</dt><dd>{d.ok ? `${plain(d.thdPercent)} %${d.pastClean ? ` past the clean swing (${LIMIT_WORDS[d.pastClean]})` : ''}` : '—'}</dd></div>
           <div className="figure" data-figure="h2"><dt>H2</dt><dd>{d.ok ? dB(d.harmonicsDb[0]!) : '—'}</dd></div>
           <div className="figure" data-figure="h3"><dt>H3</dt><dd>{d.ok ? dB(d.harmonicsDb[1]!) : '—'}</dd></div>
         </dl>
         <dl className="figure-group">
           <div className="figure" data-figure="headroom-out"><dt>Clean output swing</dt><dd>{rmsLevel(swing.output, 'dBu')}</dd></div>
-          <div className="figure" data-figure="headroom-in"><dt>Clean input</dt><dd>{rmsLevel(swing.input, 'dBV')}</dd></div>
+          <div className="figure" data-figure="headroom-in"><dt>{`Clean input${atWiper}`}</dt><dd>{rmsLevel(swing.input, 'dBV')}</dd></div>
           <div className="figure" data-figure="limited-by"><dt>Clips by</dt><dd>{swing.output.rms === 0 ? 'at any level (no grid bias)' : limit}</dd></div>
           <div className="figure" data-figure="at-thd"><dt>{`Output at ${plain(100 * thdLimit)} % THD`}</dt><dd>{atThd.ok ? `${voltsRms(atThd.outputRms)} (${voltsRms(atThd.inputRms)} in), ${LIMIT_WORDS[atThd.limitedBy]}` : atThd.message}</dd></div>
           <div className="figure" data-figure="bandwidth"><dt>−3 dB</dt><dd>{`${hz(corners.lowHz)} to ${hz(corners.highHz)}`}</dd></div>
