@@ -181,8 +181,8 @@ export interface ChainResult {
   /** −3 dB points of the whole chain (every coupling network, bypass, Miller capacitance and the source impedance), Hz; null when flat past 0.01 Hz or 100 MHz. */
   readonly lowHz: number | null;
   readonly highHz: number | null;
-  /** The amplifier's own white noise over 20 Hz to 20 kHz, unweighted (chainNoise): at the output, and referred to the source; null when it cannot be found. */
-  readonly noise: { readonly outputRms: number; readonly inputRms: number } | null;
+  /** The amplifier's own white noise over 20 Hz to 20 kHz (chainNoise): at the output, referred to the source, and A-weighted at the output; null when it cannot be found. */
+  readonly noise: { readonly outputRms: number; readonly inputRms: number; readonly weightedRms: number } | null;
   readonly clipsFirst: { readonly stage: number; readonly by: ClipCause };
   /** The largest clean input peak and the output peak there, V. */
   readonly inputPeak: number;

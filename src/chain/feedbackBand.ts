@@ -30,7 +30,7 @@ export interface FeedbackBand {
    */
   readonly squareWaves: readonly LoopSquareWave[];
   /** The closed loop's own noise (chainNoise on the closed network), at the output and referred to the source; null for a loop that oscillates or when it cannot be found. */
-  readonly noise: { readonly outputRms: number; readonly inputRms: number } | null;
+  readonly noise: { readonly outputRms: number; readonly inputRms: number; readonly weightedRms: number } | null;
   /** The verdict for the ratings list: a loop that oscillates is a danger (it can overheat the output tubes' screens and burn a tweeter), a thin margin a warning; none when stable. */
   readonly findings: readonly Finding[];
 }
@@ -268,5 +268,5 @@ function goldenTop(a: number, b: number, value: (f: number) => number): { f: num
 /** The closed loop's noise as the band reports it: its two figures, or null. */
 function noiseOf(closed: ChainNetwork): FeedbackBand['noise'] {
   const n = chainNoise(closed);
-  return n.ok ? { outputRms: n.outputRms, inputRms: n.inputRms } : null;
+  return n.ok ? { outputRms: n.outputRms, inputRms: n.inputRms, weightedRms: n.weightedRms } : null;
 }

@@ -60,7 +60,7 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
     inverting: gain < 0,
     lowHz,
     highHz,
-    noise: noise.ok ? { outputRms: noise.outputRms, inputRms: noise.inputRms } : null,
+    noise: noise.ok ? { outputRms: noise.outputRms, inputRms: noise.inputRms, weightedRms: noise.weightedRms } : null,
     clipsFirst: { stage: first, by: clips[first]!.by },
     inputPeak,
     outputPeak,

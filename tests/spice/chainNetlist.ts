@@ -200,7 +200,7 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
       : analysis.kind === 'sweep'
         ? ['ac dec 50 0.01 1e8', 'wrdata {data} vm(out)']
         : analysis.kind === 'noise'
-          ? ['noise v(out) vs dec 50 20 20000', 'print onoise_total']
+          ? ['noise v(out) vs dec 50 20 20000', 'print onoise_total', 'setplot noise1', 'wrdata {data} onoise_spectrum']
         : analysis.settle
           ? ['set nfreqs=10', 'set fourgridsize=16384', `tran 0.5u ${analysis.settle.ms}m ${analysis.settle.ms - 10}m 0.5u`, 'fourier 1000 v(out)']
           : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
