@@ -34,7 +34,7 @@ describe('global negative feedback on the bench', () => {
     expect(text).toMatch(/not modelled: check with a square wave/);
     // The closed loop's noise: at the speaker lower than the open loop's by about the feedback (the loop cuts the noise its
     // stages make with their gain), referred to the input about the same.
-    const closedNoise = /noise ([\d.]+) µV rms at the speaker \(\d+ dB below 1 W into 8 Ω\), ([\d.]+) µV at the input/.exec(text);
+    const closedNoise = /noise ([\d.]+) µV rms at the speaker, [\d.]+ µV A-weighted \(\d+ dB and \d+ dB\(A\) below 1 W into 8 Ω\); ([\d.]+) µV at the input/.exec(text);
     const openNoise = /Noise, open loop([\d.]+) µV rms at the speaker/.exec(screen.getByTestId('amplifier-figures').textContent!);
     if (!closedNoise || !openNoise) throw new Error(`no noise in “${text}”`);
     expect(20 * Math.log10(Number(openNoise[1]) / Number(closedNoise[1]))).toBeCloseTo(model.feedbackDb, 0);

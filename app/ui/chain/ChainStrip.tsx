@@ -107,7 +107,7 @@ export function ChainStrip() {
           {noise && (
             <div data-testid="strip-noise">
               <dt>{view.feedback?.ok ? 'Noise, open loop' : 'Noise'}</dt>
-              <dd title={`The amplifier's own noise, ${NOISE_BAND_WORDS}: every resistor's thermal noise and each tube's (2.5/gm at its grid), flicker noise left out`}>{noise}</dd>
+              <dd title={`The amplifier's own noise, ${NOISE_BAND_WORDS}, plain and A-weighted (IEC 61672-1): every resistor's thermal noise and each tube's (2.5/gm at its grid), flicker noise left out`}>{noise}</dd>
             </div>
           )}
           <StripHum />
