@@ -150,15 +150,20 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
       add(b, a, -g, -bi);
     }
   };
-  // A physical resistance (with any reactance in series or across it): stamped, and its thermal noise recorded.
-  const resistor = (a: number, b: number, g: number, bi: number) => {
-    stamp(a, b, g, bi);
-    if (noise && g > 0 && g < SHORT) noise.push({ a, b, psd: 4 * KT * g });
-  };
-  // A tube's plate current noise, plate to cathode: gm times its equivalent noise resistance's voltage.
-  const tubeNoise = (p: number, k: number, gm: number) => {
-    if (noise && gm > 0) noise.push({ a: p, b: k, psd: 4 * KT * TRIODE_NOISE_RESISTANCE_GM * gm });
-  };
+  // A physical resistance (with any reactance in series or across it): stamped, and with `noise` its thermal noise
+  // recorded. A tube's plate current noise, plate to cathode: gm times its equivalent noise resistance's voltage.
+  // (Made only for a noise solve: the band's hundred-odd solves make no closures they do not use.)
+  const resistor = noise
+    ? (a: number, b: number, g: number, bi: number) => {
+        stamp(a, b, g, bi);
+        if (g > 0 && g < SHORT) noise.push({ a, b, psd: 4 * KT * g });
+      }
+    : stamp;
+  const tubeNoise = noise
+    ? (p: number, k: number, gm: number) => {
+        if (gm > 0) noise.push({ a: p, b: k, psd: 4 * KT * TRIODE_NOISE_RESISTANCE_GM * gm });
+      }
+    : null;
   const omega = 2 * Math.PI * freqHz;
   const gs = conductance(net.rsource);
   resistor(0, -1, gs, 0);
@@ -212,7 +217,7 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     const rk = fb && i === 0 ? fb.rk : s.rk;
     resistor(k, -1, s.cathodeGrounded ? SHORT : conductance(rk), s.ck === null ? 0 : omega * s.ck);
     stamp(p, k, 1 / s.rp, omega * s.caps.cpk);
-    tubeNoise(p, k, s.gm);
+    tubeNoise?.(p, k, s.gm);
     stamp(g, k, 0, omega * s.caps.cgk);
     if (g2 === null) {
       stamp(g, p, 0, omega * s.caps.cgp);
@@ -245,7 +250,7 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
       stamp(p2, k, 1 / s.second.rp, omega * s.caps.cpk);
       stamp(k, -1, 0, omega * s.caps.cgk);
       add(p2, k, -s.second.gm, 0);
-      tubeNoise(p2, k, s.second.gm);
+      tubeNoise?.(p2, k, s.second.gm);
       add(k, k, s.second.gm, 0);
     }
     previous = wdg ? spare - 1 : s.output === 'plate' ? p : k;
@@ -301,9 +306,14 @@ export function chainCorners(net: ChainNetwork): { lowHz: number | null; highHz:
   const decades = Math.log10(HI_HZ / LO_HZ);
   const count = Math.round(decades * PER_DECADE) + 1;
   const freqs = Array.from({ length: count }, (_, k) => LO_HZ * Math.pow(10, k / PER_DECADE));
-  const mags = freqs.map((f) => chainGainAt(net, f, scratch));
+  // Solved only where the walk out from 1 kHz reaches: a band's edges are found without the decades beyond them.
+  const solved = new Float64Array(count).fill(Number.NaN);
+  const magAt = (k: number): number => {
+    if (Number.isNaN(solved[k]!)) solved[k] = chainGainAt(net, freqs[k]!, scratch);
+    return solved[k]!;
+  };
   const mid = Math.round(Math.log10(REFERENCE_HZ / LO_HZ) * PER_DECADE);
-  const ref = mags[mid]!;
+  const ref = magAt(mid);
   const level = ref / Math.SQRT2;
   const refine = (loF: number, hiF: number, risingAtHi: boolean): number => {
     let a = Math.log(loF);
@@ -319,14 +329,14 @@ export function chainCorners(net: ChainNetwork): { lowHz: number | null; highHz:
   };
   let lowHz: number | null = null;
   for (let k = mid; k > 0; k--) {
-    if (mags[k - 1]! < level) {
+    if (magAt(k - 1) < level) {
       lowHz = refine(freqs[k - 1]!, freqs[k]!, true);
       break;
     }
   }
   let highHz: number | null = null;
   for (let k = mid; k < count - 1; k++) {
-    if (mags[k + 1]! < level) {
+    if (magAt(k + 1) < level) {
       highHz = refine(freqs[k]!, freqs[k + 1]!, false);
       break;
     }
