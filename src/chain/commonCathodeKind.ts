@@ -1,8 +1,7 @@
 import { fail } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
-import { solveStage, withStopper } from '../stage/solveStage';
-import { stopperFinding } from '../stage/stopperFinding';
-import { volumeFinding, volumeProblem } from '../stage/volumeControl';
+import { solveStage } from '../stage/solveStage';
+import { volumeProblem } from '../stage/volumeControl';
 import { normalizeStage, type StageDesign } from '../stage/stageDesign';
 import { stageTransfer } from '../signal/stageTransfer';
 import type { CommonCathodeLink } from './chainTypes';
@@ -13,9 +12,10 @@ import type { StageKind } from './stageKind';
 
 /**
  * The common-cathode stage in the chain: today's solver and large-signal
- * transfer, with the next grid's leak as its load. Its grid stopper is the
- * chain's to follow (stopperOf): it sits between the stage before and this
- * grid, in the grid's drive and in the network.
+ * transfer, with the next grid's leak as its load. Its grid stopper and
+ * volume control are the chain's to follow (stopperOf, volumeOf): they sit
+ * between the stage before and this grid, in the grid's drive and in the
+ * network.
  */
 export const commonCathodeKind: StageKind<CommonCathodeLink> = {
   kind: 'common-cathode',
@@ -40,22 +40,20 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
       rl: env.load,
       vbias: env.gridDc ?? s.vbias ?? 0,
       ...(s.coupling.kind === 'capacitor' ? { rg: s.coupling.rg, ...(s.volume !== undefined ? { volume: s.volume } : {}) } : {}),
+      ...(s.rstopper ? { rstopper: s.rstopper } : {}),
       heaterVolts: s.heaterVolts ?? 0,
     };
+    // Solved with its stopper and pot, so its findings name them; neither moves its operating point.
     const solved = solveStage(design);
     if (!solved.ok) return solved;
-    // The transfer from the grid's own swing: what drives the grid (the pot's wiper among it) is the chain's to follow.
-    const checked = normalizeStage({ ...design, volume: undefined });
+    // The transfer from the grid's own swing: what drives the grid (the pot's wiper, the stopper) is the chain's to follow.
+    const checked = normalizeStage({ ...design, volume: undefined, rstopper: undefined });
     if (!checked.ok) return checked;
     const t = stageTransfer(checked, solved.op);
-    // The stopper's finding, and the pot's with the stopper counted (the stage solved without it).
-    const stopper = stopperFinding(s.rstopper ?? 0, solved.cin);
-    const pot = s.coupling.kind === 'capacitor' ? volumeFinding(s.coupling.rg, s.volume, s.rstopper ?? 0, solved.cin) : null;
-    const findings = withStopper(withStopper(solved.findings.filter((f) => f.kind !== 'volume-control'), stopper), pot);
     return triodeLink({
       tube: s.tube,
       coupling: s.coupling,
-      solved: { ...solved, findings },
+      solved,
       outputDc: solved.op.va,
       at: (vin) => t.at(vin),
       network: {

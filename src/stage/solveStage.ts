@@ -89,15 +89,12 @@ export function solveStage(design: StageDesign): Result<StageSolution> {
     cin,
     toGridCurrent: Math.max(0, GRID_CURRENT_ONSET - loop.vgk),
     toCutoff: loop.vgk - gridVoltageForCurrent(model.params, loop.vpk, CUTOFF_FRACTION * loop.ia),
-    findings: withStopper(
-      withStopper(ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }), stopperFinding(d.rstopper, cin)),
-      d.rg !== null && d.volumeGiven ? volumeFinding(d.rg, d.volume, d.rstopper, cin) : null,
-    ),
+    findings: [
+      ...ratingsFindings({ tube: d.tube, bplus: d.bplus, ...op, heaterVolts: d.heaterVolts, rg: d.rg, fixedBias: d.vbias !== 0 }),
+      ...[stopperFinding(d.rstopper, cin), d.rg !== null && d.volumeGiven ? volumeFinding(d.rg, d.volume, d.rstopper, cin) : null].filter((f) => f !== null),
+    ],
   };
 }
-
-/** The ratings' findings, and the grid stopper's after them when there is one. */
-export const withStopper = <F>(findings: readonly F[], stopper: F | null): F[] => (stopper ? [...findings, stopper] : [...findings]);
 
 /**
  * A leak (null: none) in parallel with a grid's conductance fed through the
