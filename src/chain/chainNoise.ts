@@ -1,7 +1,7 @@
 import { fail, type Result } from '../result';
 import { csolveFlat } from '../signal/complex';
 import { aWeighting } from './aWeighting';
-import { fillChain, REFERENCE_HZ, scratchFor, type ChainNetwork, type NoiseCurrent } from './chainResponse';
+import { chainGainAt, fillChain, REFERENCE_HZ, scratchFor, type ChainNetwork, type NoiseCurrent } from './chainResponse';
 
 /** The band the noise is summed over, Hz: the audio band (common practice for a hi-fi noise figure), plain and A-weighted. */
 export const NOISE_BAND_HZ = [20, 20e3] as const;
@@ -73,15 +73,14 @@ export function chainNoise(net: ChainNetwork): Result<ChainNoise> {
   const step = Math.log(hi / lo) / (count - 1);
   total *= step / 3;
   weighted *= step / 3;
-  const gain = fillAndSolveGain(net, scratch);
+  const gain = chainGainAt(net, REFERENCE_HZ, scratch);
   const outputRms = Math.sqrt(total);
   if (!Number.isFinite(outputRms) || !(gain > 0)) return fail('unreachable', 'The amplifier passes no signal at 1 kHz, so its noise cannot be referred to its input', 'stages');
   return { ok: true, outputRms, inputRms: outputRms / gain, weightedRms: Math.sqrt(weighted) };
 }
 
-/** |vout / vsource| at the reference frequency. */
-function fillAndSolveGain(net: ChainNetwork, scratch: ReturnType<typeof scratchFor>): number {
-  const filled = fillChain(net, REFERENCE_HZ, scratch, null);
-  if (!csolveFlat(scratch.re, scratch.im, filled.n, scratch.xr, scratch.xi)) return 0;
-  return Math.hypot(scratch.xr[filled.out]!, scratch.xi[filled.out]!) * Math.abs(filled.scale);
+/** The noise as a result carries it beside its other figures: null where it cannot be found (the band's edges are null alike). */
+export function noiseFigures(net: ChainNetwork): ChainNoise | null {
+  const n = chainNoise(net);
+  return n.ok ? { outputRms: n.outputRms, inputRms: n.inputRms, weightedRms: n.weightedRms } : null;
 }

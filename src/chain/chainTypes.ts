@@ -1,3 +1,4 @@
+import type { ChainNoise } from './chainNoise';
 import type { OutputDesign } from '../output/outputDesign';
 import type { PushPullDesign } from '../pushpull/pushPullDesign';
 import type { OutputTube } from '../output/outputTube';
@@ -182,7 +183,7 @@ export interface ChainResult {
   readonly lowHz: number | null;
   readonly highHz: number | null;
   /** The amplifier's own white noise over 20 Hz to 20 kHz (chainNoise): at the output, referred to the source, and A-weighted at the output; null when it cannot be found. */
-  readonly noise: { readonly outputRms: number; readonly inputRms: number; readonly weightedRms: number } | null;
+  readonly noise: ChainNoise | null;
   readonly clipsFirst: { readonly stage: number; readonly by: ClipCause };
   /** The largest clean input peak and the output peak there, V. */
   readonly inputPeak: number;

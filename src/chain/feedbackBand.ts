@@ -3,7 +3,7 @@ import { fail, type Result } from '../result';
 import { shown } from '../shown';
 import { squareWave } from '../signal/squareWave';
 import { finding, type Finding } from '../stage/ratingBands';
-import { chainNoise } from './chainNoise';
+import { noiseFigures, type ChainNoise } from './chainNoise';
 import { chainResponseAt, REFERENCE_HZ, scratchFor, type ChainNetwork } from './chainResponse';
 
 /**
@@ -30,7 +30,7 @@ export interface FeedbackBand {
    */
   readonly squareWaves: readonly LoopSquareWave[];
   /** The closed loop's own noise (chainNoise on the closed network), at the output and referred to the source; null for a loop that oscillates or when it cannot be found. */
-  readonly noise: { readonly outputRms: number; readonly inputRms: number; readonly weightedRms: number } | null;
+  readonly noise: ChainNoise | null;
   /** The verdict for the ratings list: a loop that oscillates is a danger (it can overheat the output tubes' screens and burn a tweeter), a thin margin a warning; none when stable. */
   readonly findings: readonly Finding[];
 }
@@ -211,7 +211,7 @@ export function feedbackBand(network: ChainNetwork, loopGain: number, divider: F
     high,
     verdict,
     squareWaves,
-    noise: verdict === 'oscillates' ? null : noiseOf(closed),
+    noise: verdict === 'oscillates' ? null : noiseFigures(closed),
     findings: loopFindings(verdict, low, high),
   };
 }
@@ -263,10 +263,4 @@ function goldenTop(a: number, b: number, value: (f: number) => number): { f: num
     }
   }
   return v1 > v2 ? { f: Math.exp(x1), value: v1 } : { f: Math.exp(x2), value: v2 };
-}
-
-/** The closed loop's noise as the band reports it: its two figures, or null. */
-function noiseOf(closed: ChainNetwork): FeedbackBand['noise'] {
-  const n = chainNoise(closed);
-  return n.ok ? { outputRms: n.outputRms, inputRms: n.inputRms, weightedRms: n.weightedRms } : null;
 }

@@ -5,7 +5,7 @@ import { amplifierFindings } from '../stage/stageFindings';
 import { sineLevel } from '../signal/levels';
 import { atLevelOf, type AmplifierAtLevel, type AmplifierLevel } from './amplifierAtLevel';
 import { chainCorners, type ChainNetwork } from './chainResponse';
-import { chainNoise } from './chainNoise';
+import { noiseFigures } from './chainNoise';
 import type { ChainInput, ChainResult, ChainStage, StageResult } from './chainTypes';
 import { prepareAmplifier, type PreparedAmplifier } from './prepareAmplifier';
 import { STAGE_KIND_LABELS } from './stageKinds';
@@ -37,7 +37,7 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
 
   const network = networkOf(input, a);
   const { lowHz, highHz } = chainCorners(network);
-  const noise = chainNoise(network);
+  const noise = noiseFigures(network);
   const names = stages.map((s, i) => `Stage ${i + 1}, ${STAGE_KIND_LABELS[s.kind].toLowerCase()}, ${tubeName(s)}`);
   const tagged = amplifierFindings(links.map((l, i) => ({ name: names[i]!, findings: l.findings })));
   const results: StageResult[] = links.map((l, i) => ({
@@ -60,7 +60,7 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
     inverting: gain < 0,
     lowHz,
     highHz,
-    noise: noise.ok ? { outputRms: noise.outputRms, inputRms: noise.inputRms, weightedRms: noise.weightedRms } : null,
+    noise,
     clipsFirst: { stage: first, by: clips[first]!.by },
     inputPeak,
     outputPeak,
