@@ -82,5 +82,5 @@ export function partLines(parts: { readonly resistors: readonly ResistorLine[]; 
 
 /** A grid leak in words: Rg, or the volume control in its place with its setting. */
 export function leakWords(rg: number, volume: number | null): string {
-  return volume === null ? `Rg ${ohms(rg)}` : `volume control ${ohms(rg)} (in Rg's place) at ${String(Number(volume.toPrecision(3))).replace('-', '−')} dB`;
+  return volume === null ? `Rg ${ohms(rg)}` : `volume control ${ohms(rg)} (in Rg's place) at ${plain(volume)} dB`;
 }

@@ -134,7 +134,8 @@ export function stageDesignOf(d: BenchDesign, tube: TubeRecord, registry: TubeRe
     rg: d.rg,
     rsource: source.ok ? source.ohms : d.rsource,
     ...(d.rstopper ? { rstopper: d.rstopper } : {}),
-    ...(d.volume !== null ? { volume: volumeShare(d.volume) } : {}),
+    // A pot needs the coupling capacitor before it, as in the chain (a stage direct from the source has no leak there).
+    ...(d.volume !== null && d.cin !== null ? { volume: volumeShare(d.volume) } : {}),
     ...(d.cin !== null ? { cin: d.cin } : {}),
     ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
     ...(after.cout !== null && !chained ? { cout: after.cout } : {}),

@@ -42,7 +42,7 @@ export function CircuitValues() {
         <ValueField field="cin" hint={place > 0 ? `from stage ${place}` : undefined} />
         <ValueField field="rg" />
         <ValueField field="rstopper" hint="at the socket, in series with the grid; “none” to leave it out" />
-        <ValueField field="volume" hint="Rg as a pot, the grid on its wiper: its setting below full (0 at full); “none”: Rg is fixed" />
+        <ValueField field="volume" hint="Rg as a pot behind Cin, the grid on its wiper: its setting below full (0 at full); “none”: Rg is fixed" />
         <ValueField field="ck" hint="when bypassed" />
         <ValueField field="cout" hint={drivesNext ? 'the last voltage stage\'s' : undefined} />
       </div>

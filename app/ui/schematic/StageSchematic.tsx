@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { InlineEditor } from './InlineEditor';
-import { farads, ohms, volts } from '../../format';
+import { farads, ohms, plain, volts } from '../../format';
 import { FIELDS, type FieldName } from '../../store/fields';
 import { useWorkbench } from '../../store/StoreProvider';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
@@ -50,7 +50,7 @@ function partText(f: FieldName, d: BenchDesign): string {
     case 'rsource': return `Rs ${ohms(d.rsource)}`;
     case 'cin': return d.cin === null ? 'direct' : farads(d.cin);
     case 'rg': return d.volume === null ? `Rg ${ohms(d.rg)}` : `VR ${ohms(d.rg)}`;
-    case 'volume': return d.volume === null ? 'none' : `${String(Number(d.volume.toPrecision(3))).replace('-', '−')} dB`;
+    case 'volume': return d.volume === null ? 'none' : `${plain(d.volume)} dB`;
     case 'rstopper': return d.rstopper ? `Rst ${ohms(d.rstopper)}` : 'Rst none';
     case 'ck': return d.ck === null ? 'Ck ideal' : farads(d.ck);
     case 'cout': return d.cout === null ? 'ideal' : farads(d.cout);

@@ -2,7 +2,7 @@ import { memo, type ReactNode } from 'react';
 import { Capacitor, HResistor, Resistor, Winding, Wiper } from './parts';
 import { Pentode, Triode } from './tubes';
 import { Dot, Ground, Wire } from './wiring';
-import { farads, ohms, volts } from '../../format';
+import { farads, ohms, plain, volts } from '../../format';
 import type { FieldName } from '../../store/fields';
 import type { FollowerPlan, GainPlan } from '../../store/stagePlans';
 import type { SplitterPlan } from '../../store/outputPlan';
@@ -77,7 +77,7 @@ function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg:
         <>
           {/* From the left: the right of the track holds the cathode's labels. */}
           <Wiper x={x0 + RG_X} y={GRID + 52} side={-1} />
-          {value('volume', 'set to', x0 + RG_X - 9, GRID + 44, `${String(Number(volume.toPrecision(3))).replace('-', '−')} dB`, 'end')}
+          {value('volume', 'set to', x0 + RG_X - 9, GRID + 44, `${plain(volume)} dB`, 'end')}
         </>
       )}
     </>
