@@ -26,7 +26,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * Version 3 holds the whole chain of voltage stages: the design's own
  * fields are the stage on the bench (and `stage2` its follower), `before`
  * and `after` the stages either side of it, input first (stagePlans.ts). A
- * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg, rstopper?, volume? }
+ * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg, rstopper?, volume?, node? }
  * (cc null: direct from the source, first stage only) or
  * { kind: "follower", tubeId, rk, coupling? } (direct-coupled to the gain stage
  * before it; with coupling { cc, rg, vbias }, through a capacitor into its own
@@ -51,7 +51,10 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * it, F, or null): absent, none; `rstopper` (a gain stage's grid stopper,
  * Ω, 0 for none; the bench's and each such stage's): absent, none; `volume`
  * (a volume control in Rg's place, its setting in dB below full, or null
- * for a fixed Rg; the bench's and each gain stage's): absent, none; and the output
+ * for a fixed Rg; the bench's and each gain stage's): absent, none; `node`
+ * (the supply node feeding a gain stage, 0 the reservoir; the bench's and
+ * each gain stage's): absent, the voltage stages' node (supply.feeds.voltage),
+ * as every such file was designed; and the output
  * transformer's `primaryInductance` and `leakageInductance` (H, or null):
  * absent, the ideal transformer.
  * Version 1 files (before output stages) open with the bench's default
@@ -89,7 +92,7 @@ export function writeDesignFile(doc: DesignDocument, savedAt = new Date()): stri
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /** One side of the chain (`before` or `after`): each stage checked by its kind's schema, and the order a chain can have. */
-function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, afterGain: boolean): { ok: true; plans: StagePlan[] } | { ok: false; message: string } {
+function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, afterGain: boolean, nodes: number): { ok: true; plans: StagePlan[] } | { ok: false; message: string } {
   if (v === undefined) return { ok: true, plans: [] };
   if (!Array.isArray(v)) return { ok: false, message: `design.${side} must be a list of stages (found ${quote(v)}). Nothing was opened.` };
   const plans: StagePlan[] = [];
@@ -106,11 +109,14 @@ function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, 
     } else {
       const first = firstIsInput && i === 0;
       if (!first && raw.cc === null) return { ok: false, message: `${at}.cc must be a coupling capacitor: only the first stage may be direct-coupled (to the source). Nothing was opened.` };
+      const nodeProblem = nodeInSupply(raw.node, nodes, at);
+      if (nodeProblem) return { ok: false, message: nodeProblem };
       plans.push({
         kind: 'common-cathode', tubeId: knownId(raw.tubeId as string), bplus: raw.bplus as number, ra: raw.ra as number, rk: raw.rk as number,
         bypassed: raw.bypassed as boolean, ck: raw.ck as number | null, cc: raw.cc as number | null, rg: raw.rg as number,
         ...(raw.rstopper ? { rstopper: raw.rstopper as number } : {}),
         ...(typeof raw.volume === 'number' ? { volume: raw.volume } : {}),
+        ...(typeof raw.node === 'number' ? { node: raw.node } : {}),
       });
     }
     prevIsGain = raw.kind !== 'follower';
@@ -188,10 +194,13 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   const heatersProblem = firstProblem(HEATERS, d, 'design');
   if (heatersProblem) return { ok: false, message: heatersProblem };
   // Versions 1 and 2 hold no stages beyond the bench's: their chain is its stage and its second stage.
-  const before = readPlans(raw.version >= 3 ? d.before : undefined, 'before', true, false);
+  const nodes = supply.plan.sections.length + 1;
+  const benchNode = nodeInSupply(d.node, nodes, 'design');
+  if (benchNode) return { ok: false, message: benchNode };
+  const before = readPlans(raw.version >= 3 ? d.before : undefined, 'before', true, false, nodes);
   if (!before.ok) return before;
   if (before.plans.length > 0 && d.cin === null) return { ok: false, message: 'design.cin must be a coupling capacitor: only the first stage may be direct-coupled (to the source). Nothing was opened.' };
-  const after = readPlans(raw.version >= 3 ? d.after : undefined, 'after', false, s2.kind === 'none' || s2.kind === 'common-cathode');
+  const after = readPlans(raw.version >= 3 ? d.after : undefined, 'after', false, s2.kind === 'none' || s2.kind === 'common-cathode', nodes);
   if (!after.ok) return after;
   const count = before.plans.length + 1 + (s2.kind === 'none' ? 0 : 1) + after.plans.length;
   if (count > MAX_VOLTAGE_STAGES) return { ok: false, message: `The file holds ${count} voltage stages; an amplifier here has at most ${MAX_VOLTAGE_STAGES}. Nothing was opened.` };
@@ -209,6 +218,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     rg: d.rg as number,
     rstopper: (d.rstopper as number | undefined) ?? 0,
     volume: (d.volume as number | null | undefined) ?? null,
+    ...(typeof d.node === 'number' ? { node: d.node } : {}),
     ck: d.ck as number | null,
     cout: d.cout as number | null,
     levelRms: d.levelRms as number,
@@ -235,6 +245,11 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     heaters: d.heaters === undefined ? DEFAULT_HEATERS : { ...(d.heaters as HeaterChoice), wiring: { ...(d.heaters as HeaterChoice).wiring } },
   };
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };
+}
+
+/** A gain stage's supply node (schema-checked as a whole number) against the supply's count of nodes; absent is the voltage stages' node. */
+function nodeInSupply(node: unknown, nodes: number, at: string): string | null {
+  return typeof node === 'number' && node >= nodes ? `${at}.node must be a node of the supply, 0 (the reservoir) to ${nodes - 1} (found ${quote(node)}). Nothing was opened.` : null;
 }
 
 /** A library tube's id as the library spells it; any other name as written (a user's tube is named by its id). */

@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import { CONNECTIONS, findOutputTube } from '../../src/index';
+import { CONNECTIONS, findOutputTube, MAX_SECTIONS } from '../../src/index';
 import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
 
 /**
@@ -24,6 +24,8 @@ const yesNo = () => v.boolean('must be true or false');
 const oneOf = <const T extends readonly [string, ...string[]]>(options: T) => v.picklist(options, `must be one of ${options.join(', ')}`);
 /** A tube's name; whether this browser knows it is settled on opening (withKnownTubes), so a missing tube never loses the design. */
 const tubeName = () => v.custom<string>((x) => typeof x === 'string' && x.trim().length > 0 && x.length <= 60, 'must name a tube (text of at most 60 characters)');
+/** A supply node feeding a gain stage: 0 the reservoir, then one per filter section (whether the supply has it is checked in designFile.ts). */
+const supplyNode = () => v.optional(v.custom<number>((x) => typeof x === 'number' && Number.isInteger(x) && x >= 0 && x <= MAX_SECTIONS, `must be a supply node, a whole number from 0 (the reservoir) to ${MAX_SECTIONS}, or left out`));
 const section = <T extends v.ObjectEntries>(entries: T) => v.object(entries, 'must be an object');
 
 /** A capacitor-coupled follower's coupling (came within version 3: absent, the follower is direct-coupled). */
@@ -68,6 +70,8 @@ export const BENCH_STAGE = v.object({
   // Came later within version 3: absent, none.
   rstopper: v.optional(ranged(L.rstopper)),
   volume: v.optional(rangedOrNull(L.volume)),
+  // Came later within version 3: absent, the voltage stages' node.
+  node: supplyNode(),
   ck: rangedOrNull(L.ck),
   cout: rangedOrNull(L.cout),
   levelRms: ranged(L.levelRms),
@@ -170,6 +174,7 @@ export const GAIN_STAGE = v.object({
   // Came later within version 3: absent, none.
   rstopper: v.optional(ranged(L.rstopper)),
   volume: v.optional(rangedOrNull(L.volume)),
+  node: supplyNode(),
 });
 export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk), coupling: FOLLOWER_COUPLING });
 

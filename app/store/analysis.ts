@@ -30,6 +30,8 @@ export interface BenchDesign {
   readonly rstopper: number;
   /** A volume control in Rg's place (Rg its track, the grid on its wiper): its setting, dB below full; null for a fixed Rg. */
   readonly volume: number | null;
+  /** The supply node feeding this stage when the amplifier runs on its supply (0 the reservoir); absent: the voltage stages' node (supply.feeds.voltage). */
+  readonly node?: number;
   /** Cathode bypass capacitor, F (used when bypassed); null for an ideal one. */
   readonly ck: number | null;
   /** Output coupling capacitor into RL, F; null for an ideal one. */

@@ -34,6 +34,8 @@ export interface GainPlan {
   readonly rstopper?: number;
   /** A volume control in Rg's place: its setting, dB below full; null or absent: a fixed Rg. */
   readonly volume?: number | null;
+  /** The supply node feeding it when the amplifier runs on its supply (0 the reservoir); absent: the voltage stages' node (supply.feeds.voltage). */
+  readonly node?: number;
 }
 
 /**
@@ -72,7 +74,7 @@ export const NEW_STAGE_RG = 470e3;
 
 /** The stage on the bench as a plan. */
 export function benchPlan(d: BenchDesign): GainPlan {
-  return { kind: 'common-cathode', tubeId: d.tubeId, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed, ck: d.ck, cc: d.cin, rg: d.rg, ...(d.rstopper ? { rstopper: d.rstopper } : {}), ...(d.volume !== null ? { volume: d.volume } : {}) };
+  return { kind: 'common-cathode', tubeId: d.tubeId, bplus: d.bplus, ra: d.ra, rk: d.rk, bypassed: d.bypassed, ck: d.ck, cc: d.cin, rg: d.rg, ...(d.rstopper ? { rstopper: d.rstopper } : {}), ...(d.volume !== null ? { volume: d.volume } : {}), ...(d.node !== undefined ? { node: d.node } : {}) };
 }
 
 /** The bench stage's second stage as plans: its follower, or a gain stage kept from a design before version 3. */
@@ -128,6 +130,7 @@ export function withStagesOnBench(d: BenchDesign, list: readonly StagePlan[], k:
     rg: on.rg,
     rstopper: on.rstopper ?? 0,
     volume: on.volume ?? null,
+    node: on.node,
     stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk, coupling: next.coupling } : { ...d.stage2, kind: 'none' },
     before: list.slice(0, k),
     after: list.slice(k + (follows ? 2 : 1)),
@@ -217,8 +220,46 @@ export function loadAfterBench(d: BenchDesign): { rl: number; cout: number | nul
   return { rl: d.rl, cout: d.cout };
 }
 
-/** Every voltage stage's B+ set to `v` (they hang from one supply node). */
-export function withVoltageBplus(d: BenchDesign, v: number): BenchDesign {
-  const set = (list: readonly StagePlan[]) => list.map((p) => (p.kind === 'common-cathode' && p.bplus !== v ? { ...p, bplus: v } : p));
-  return { ...d, bplus: v, before: set(d.before), after: set(d.after) };
+/** The supply node voltage stage i hangs from: its gain stage's own, else the voltage stages' (a follower rides on its gain stage's B+). */
+export function nodeOfStage(d: BenchDesign, list: readonly StagePlan[], i: number): number {
+  const p = list[gainIndexOf(list, i)];
+  return (p?.kind === 'common-cathode' ? p.node : undefined) ?? d.supply.feeds.voltage;
+}
+
+/** Every gain stage's B+ set to what its node gives (`voltsAt(node)`; null leaves it as typed). */
+export function withNodeBplus(d: BenchDesign, voltsAt: (node: number) => number | null): BenchDesign {
+  const set = (p: StagePlan): StagePlan => {
+    if (p.kind !== 'common-cathode') return p;
+    const v = voltsAt(p.node ?? d.supply.feeds.voltage);
+    return v === null || v === p.bplus ? p : { ...p, bplus: v };
+  };
+  const bench = voltsAt(d.node ?? d.supply.feeds.voltage);
+  return { ...d, ...(bench !== null ? { bplus: bench } : {}), before: d.before.map(set), after: d.after.map(set) };
+}
+
+/**
+ * The design with gain stage i fed from `node`, held the one way: where every
+ * gain stage then shares a node it is the voltage stages' (supply.feeds.voltage)
+ * and none keeps its own; otherwise the voltage stages' is the first stage's and
+ * a stage carries its own node only where it differs.
+ */
+export function withStageNode(d: BenchDesign, i: number, node: number): BenchDesign {
+  const list = voltageStages(d);
+  const k = gainIndexOf(list, i);
+  const nodes = list.map((p, j) => (p.kind !== 'common-cathode' ? null : j === k ? node : p.node ?? d.supply.feeds.voltage));
+  const gains = nodes.filter((n): n is number => n !== null);
+  const shared = gains[0] ?? node;
+  const held = (p: StagePlan, j: number): StagePlan => {
+    if (p.kind !== 'common-cathode') return p;
+    const { node: _old, ...rest } = p;
+    return nodes[j] === shared ? rest : { ...rest, node: nodes[j]! };
+  };
+  const supply = { ...d.supply, feeds: { ...d.supply.feeds, voltage: shared } };
+  return withStagesOnBench({ ...d, supply }, list.map(held), benchIndex(d));
+}
+
+/** Every gain stage's own node moved by `move` (a filter section removed: the nodes after it shift down). */
+export function withStageNodesMoved(d: BenchDesign, move: (node: number) => number): BenchDesign {
+  const list = voltageStages(d).map((p) => (p.kind === 'common-cathode' && p.node !== undefined ? { ...p, node: move(p.node) } : p));
+  return withStagesOnBench(d, list, benchIndex(d));
 }

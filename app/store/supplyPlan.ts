@@ -3,6 +3,7 @@ import { chainInputOf, type ChainCardName } from './amplifierChain';
 import { screensOnNode } from './outputPlan';
 import type { BenchDesign } from './analysis';
 import type { TubeRegistry } from './tubeRegistry';
+import { nodeOfStage, voltageStages } from './stagePlans';
 
 /**
  * The B+ supply as the bench holds it: the transformer, rectifier and filter
@@ -65,12 +66,12 @@ export const DEMO_SUPPLY: SupplyPlan = {
   humRms: 0.005,
 };
 
-/** The model's supply for a plan, drawing nothing of its own (the stages' currents are added when it is solved). */
-export function supplyDesignOf(p: SupplyPlan): SupplyDesign {
+/** The model's supply for a plan, drawing nothing of its own (the stages' currents are added when it is solved); the hum budget is held at `humNode` (the first stage's). */
+export function supplyDesignOf(p: SupplyPlan, humNode = p.feeds.voltage): SupplyDesign {
   const nodes = p.sections.length + 1;
   const ratings = {
     ...(p.secondaryAmps !== null ? { secondaryAmps: p.secondaryAmps } : {}),
-    ...(p.humRms !== null ? { hum: { node: p.feeds.voltage, maxRippleRms: p.humRms } } : {}),
+    ...(p.humRms !== null ? { hum: { node: humNode, maxRippleRms: p.humRms } } : {}),
   };
   return {
     mainsHz: p.mainsHz,
@@ -103,7 +104,18 @@ export function checkPlan(p: SupplyPlan): Failure | null {
   return null;
 }
 
-/** Which node feeds a stage of the amplifier: the output stage's, the splitter's, or the voltage stages'. */
+/** A gain stage fed from a node the supply does not have, named by its place (a file's, or a plan whose sections went); null when every one is there. */
+export function checkStageNodes(d: BenchDesign): Failure | null {
+  const nodes = d.supply.sections.length + 1;
+  const list = voltageStages(d);
+  for (const [i, p] of list.entries()) {
+    if (p.kind !== 'common-cathode' || p.node === undefined) continue;
+    if (!Number.isInteger(p.node) || p.node < 0 || p.node >= nodes) return { ok: false, reason: 'invalid-input', message: `Stage ${i + 1}'s node must be 1 to ${nodes}`, field: `feeds.stage.${i}` };
+  }
+  return null;
+}
+
+/** Which node feeds a stage of the amplifier: the output stage's, the splitter's, or the voltage stages' (each gain stage may have its own: nodeOfStage). */
 export const nodeOf = (p: SupplyPlan, role: 'voltage' | 'splitter' | 'output') =>
   role === 'output' ? p.feeds.output : role === 'splitter' ? (p.feeds.splitter ?? p.feeds.voltage) : p.feeds.voltage;
 
@@ -125,7 +137,10 @@ export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input
   const chain = chainInputOf(d, registry);
   if (!chain) return null;
   const p = d.supply;
-  const feeds = chain.names.map((n) => nodeOf(p, n.role));
+  const list = voltageStages(d);
+  const feeds = chain.names.map((n) => (n.role === 'voltage' && n.voltageIndex !== null ? nodeOfStage(d, list, n.voltageIndex) : nodeOf(p, n.role)));
+  // The hum budget is the first stage's: the one whose ripple every stage after it amplifies.
+  const first = chain.names.findIndex((n) => n.role === 'voltage');
   const screens = screensOnNode(d) ? { screenFeeds: chain.names.map((n) => (n.role === 'output' ? p.feeds.screens! : null)) } : {};
-  return { input: { amplifier: chain.input, supply: supplyDesignOf(p), feeds, ...screens, channels: p.channels }, names: chain.names };
+  return { input: { amplifier: chain.input, supply: supplyDesignOf(p, first < 0 ? p.feeds.voltage : feeds[first]!), feeds, ...screens, channels: p.channels }, names: chain.names };
 }

@@ -2,9 +2,9 @@ import type { StateCreator } from 'zustand/vanilla';
 import { bleederFor, humOnSupply, parseValue, supplyPartsList, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
-import { checkPlan, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
+import { checkPlan, checkStageNodes, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
 import { compact } from './fields';
-import { withVoltageBplus } from './stagePlans';
+import { withNodeBplus, withStageNode, withStageNodesMoved } from './stagePlans';
 import { DEMO_DESIGN } from './demoDesign';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
@@ -41,6 +41,8 @@ export interface SupplySlice {
   removeSection: (index: number) => void;
   /** Sets each stage's B+ to what its node delivers under the whole amplifier's current. */
   useSupplyVolts: () => void;
+  /** Feeds voltage stage i (a follower: its gain stage) from supply node `node` (0 the reservoir); one undo step. */
+  setStageNode: (i: number, node: number) => void;
 }
 
 /**
@@ -71,17 +73,17 @@ export function screensOf(view: SupplyView, r: AmplifierOnSupplyResult): { node:
 export function supplyBplusOf(d: BenchDesign, view: SupplyView): BenchDesign | null {
   const r = view.result;
   if (!r.ok) return null;
-  // Every voltage stage hangs from the one node that feeds them (plan.feeds.voltage).
-  const at = (role: 'voltage' | 'splitter' | 'output') => {
+  const at = (role: 'splitter' | 'output') => {
     const i = view.names.findIndex((n) => n.role === role);
     return i < 0 ? null : Math.round(nodeVoltsOf(view, r, i));
   };
-  const v = at('voltage');
   const o = at('output');
   const sp = at('splitter');
   const sc = screensOf(view, r);
   const screens = sc !== null ? Math.round(sc.volts) : null;
-  const voltage = v !== null ? withVoltageBplus(d, v) : d;
+  // Each gain stage takes its own node's voltage (a follower rides on its gain stage's B+).
+  const hasVoltage = view.names.some((n) => n.role === 'voltage');
+  const voltage = hasVoltage ? withNodeBplus(d, (node) => { const n = r.supply.nodes[node]; return n ? Math.round(n.dc) : null; }) : d;
   const splitter = sp !== null && sp !== d.output.splitter.bplus ? { ...d.output.splitter, bplus: sp } : d.output.splitter;
   const output = { ...d.output, ...(o !== null ? { bplus: o } : {}), ...(screens !== null ? { screenVolts: screens } : {}), splitter };
   return o !== null || screens !== null || splitter !== d.output.splitter ? { ...voltage, output } : voltage;
@@ -136,14 +138,14 @@ const NEW_SECTION: Record<FilterSection['kind'], FilterSection> = {
 
 export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice> = (set, get) => {
   /** Puts a plan in the design when the model accepts it; otherwise the message goes to `at` (or the field the model names). */
-  const tryPlan = (plan: SupplyPlan, at: string): boolean => {
+  const tryPlan = (plan: SupplyPlan, at: string, stages: (d: BenchDesign) => BenchDesign = (d) => d): boolean => {
     const s = get();
-    const problem = checkPlan(plan);
+    const problem = checkPlan(plan) ?? checkStageNodes(stages({ ...s.design, supply: plan }));
     if (problem) {
       set({ supplyErrors: { ...s.supplyErrors, [problem.field && s.supplyDrafts[problem.field] !== undefined ? problem.field : at]: problem.message } });
       return false;
     }
-    const failure = s.commit({ ...s.design, supply: plan });
+    const failure = s.commit(stages({ ...s.design, supply: plan }));
     if (failure) {
       set({ supplyErrors: { ...get().supplyErrors, [at]: failure.message } });
       return false;
@@ -201,7 +203,16 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
         ...(p.feeds.screens !== undefined ? { screens: Math.min(node(p.feeds.screens), last) } : {}),
       };
       const plan = { ...p, sections: p.sections.filter((_, i) => i !== index), feeds };
-      if (tryPlan(plan, 'supply')) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
+      if (tryPlan(plan, 'supply', (d) => withStageNodesMoved(d, (k) => Math.min(node(k), last)))) set({ supplyDrafts: supplyDraftsFor(get().design.supply) });
+    },
+
+    setStageNode: (i, node) => {
+      const s = get();
+      const errors = { ...s.supplyErrors };
+      delete errors.supply;
+      set({ supplyErrors: errors });
+      const next = withStageNode(s.design, i, node);
+      tryPlan(next.supply, 'supply', (d) => ({ ...next, supply: d.supply }));
     },
 
     useSupplyVolts: () => {

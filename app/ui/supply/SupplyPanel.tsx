@@ -7,6 +7,7 @@ import { HeaterWindings } from './HeaterWindings';
 import { SupplySchematic } from './SupplySchematic';
 import { drivesPair } from '../../store/outputPlan';
 import { nodeOf } from '../../store/supplyPlan';
+import { nodeOfStage, voltageStages } from '../../store/stagePlans';
 
 const rectifierKey = (r: Rectifier) => (r.kind === 'tube' ? `tube:${r.tubeId}` : r.kind);
 const rectifierOf = (key: string): Rectifier => (key.startsWith('tube:') ? { kind: 'tube', tubeId: key.slice(5) } : { kind: key as 'silicon-bridge' | 'silicon-full-wave' });
@@ -25,6 +26,13 @@ export function SupplyPanel() {
   const pairDriven = useWorkbench((s) => drivesPair(s.design));
   // A driven pentode-connected output stage's screens may hang from a node of their own.
   const screensFed = useWorkbench((s) => s.design.drivesOutput && s.design.output.connection === 'pentode');
+  const setStageNode = useWorkbench((s) => s.setStageNode);
+  // Each gain stage and the node feeding it (its follower rides on it), as one string so the panel follows them alone.
+  const gainKey = useWorkbench((s) => {
+    const list = voltageStages(s.design);
+    return JSON.stringify(list.flatMap((p, i) => (p.kind === 'common-cathode' ? [{ index: i, tube: p.tubeId, node: nodeOfStage(s.design, list, i) }] : [])));
+  });
+  const gainFeeds = JSON.parse(gainKey) as { index: number; tube: string; node: number }[];
   const id = useId();
   const nodes = plan.sections.length + 1;
   const nodeOptions = Array.from({ length: nodes }, (_, k) => <option key={k} value={k}>{k === 0 ? 'node 1 (reservoir)' : `node ${k + 1}`}</option>);
@@ -139,10 +147,12 @@ export function SupplyPanel() {
                 </select>
               </span>
             ) : null}
-            <span>
-              <label htmlFor={`${id}-fv`}>Voltage stages from</label>
-              <select id={`${id}-fv`} value={plan.feeds.voltage} onChange={(e) => setSupply({ feeds: { ...plan.feeds, voltage: Number(e.target.value) } })}>{nodeOptions}</select>
-            </span>
+            {gainFeeds.map((g) => (
+              <span key={g.index}>
+                <label htmlFor={`${id}-fv${g.index}`}>{gainFeeds.length === 1 ? 'Voltage stages from' : `Stage ${g.index + 1} (${g.tube}) from`}</label>
+                <select id={`${id}-fv${g.index}`} value={g.node} onChange={(e) => setStageNode(g.index, Number(e.target.value))}>{nodeOptions}</select>
+              </span>
+            ))}
             <span>
               <label htmlFor={`${id}-ch`}>Channels</label>
               <select id={`${id}-ch`} value={plan.channels} onChange={(e) => setSupply({ channels: Number(e.target.value) })}>

@@ -3,7 +3,9 @@ import { farads, milliamps, ohms, plain, smallAmps, smallVolts, volts, watts } f
 import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
-import { fedFrom, nodeVoltsOf, screensOf } from '../../store/supplySlice';
+import { fedFrom, screensOf } from '../../store/supplySlice';
+import { bplusGroups, type BplusRole } from '../../store/supplyBplus';
+import { voltageStages } from '../../store/stagePlans';
 import { SupplyWaves } from './SupplyWaves';
 
 const SAME_BPLUS_SHARE = 0.01;
@@ -18,7 +20,8 @@ export function SupplyResults() {
   const view = useWorkbench((s) => s.supplyView);
   const plan = useWorkbench((s) => s.design.supply);
   // The three B+ only (voltage stages, splitter, output stage) and the screens': the whole design changes on every drag frame, and this table need not follow it.
-  const voltageBplus = useWorkbench((s) => s.design.bplus);
+  // Each voltage stage's B+ as designed (a follower's is its gain stage's), as one string so the table follows them alone.
+  const voltageBplus = useWorkbench((s) => voltageStages(s.design).map((p) => (p.kind === 'common-cathode' ? p.bplus : '')).join(' '));
   const outputBplus = useWorkbench((s) => s.design.output.bplus);
   const splitterBplus = useWorkbench((s) => s.design.output.splitter.bplus);
   const screenVolts = useWorkbench((s) => s.design.output.screenVolts);
@@ -38,9 +41,10 @@ export function SupplyResults() {
   const full = r.atFullPower;
   const caps = [plan.input.c, ...plan.sections.map((s) => s.c)];
   const feeding = (k: number) => fedFrom(view, k).map((n) => `${n.title} (${n.tube})`);
-  const held = { voltage: voltageBplus, splitter: splitterBplus, output: outputBplus };
-  // One line a role: the voltage stages share their node; a driven pair's splitter has its own B+ and node.
-  const byRole = view.names.map((n, i) => ({ key: n.role as string, who: ROLE_NAME[n.role], node: view.feeds[i]!, supply: nodeVoltsOf(view, r, i), bench: held[n.role] })).filter((x, i, all) => all.findIndex((y) => y.key === x.key) === i);
+  const stageBplus = voltageBplus.split(' ').map((t) => (t === '' ? null : Number(t)));
+  const held = (role: BplusRole, index: number | null) => (role === 'splitter' ? splitterBplus : role === 'output' ? outputBplus : index === null ? null : stageBplus[index] ?? null);
+  // One line a node and B+: the voltage stages together where they share them; a driven pair's splitter has its own B+ and node.
+  const byRole = bplusGroups(view, r, held, stageBplus.filter((b) => b !== null).length).map((g) => ({ key: g.key, who: g.role === 'voltage' ? g.who : ROLE_NAME[g.role], node: g.node, supply: g.supplied, bench: g.held }));
   // Screens on a node of their own are held at a voltage of their own.
   const screens = screensOf(view, r);
   const offBy = screens ? [...byRole, { key: 'screens', who: `${ROLE_NAME.output}'s screens`, node: screens.node, supply: screens.volts, bench: screenVolts }] : byRole;

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { DEMO_DESIGN } from '../../../app/store/demoDesign';
 import { readDesignFile, writeDesignFile } from '../../../app/keep/designFile';
-import { addGainStage, benchIndex, moveStage, removeStage, selectStage, voltageStages, MAX_VOLTAGE_STAGES, type StagePlan } from '../../../app/store/stagePlans';
+import { addGainStage, benchIndex, moveStage, nodeOfStage, removeStage, selectStage, voltageStages, withStageNode, MAX_VOLTAGE_STAGES, type StagePlan } from '../../../app/store/stagePlans';
 import type { BenchDesign } from '../../../app/store/analysis';
 import { chainProblem } from '../../../app/store/chainSlice';
 
@@ -10,8 +10,10 @@ import { chainProblem } from '../../../app/store/chainSlice';
 // draw fresh seeds and keep finding new cases (fast-check prints the seed).
 if (process.env.CI === 'true') fc.configureGlobal({ seed: 20261202 });
 
-type Step = { op: 'add' | 'follower' | 'remove' | 'left' | 'right' | 'select'; at: number };
-const step = fc.record({ op: fc.constantFrom('add', 'follower', 'remove', 'left', 'right', 'select'), at: fc.nat(9) }) as fc.Arbitrary<Step>;
+type Step = { op: 'add' | 'follower' | 'remove' | 'left' | 'right' | 'select' | 'node'; at: number };
+const step = fc.record({ op: fc.constantFrom('add', 'follower', 'remove', 'left', 'right', 'select', 'node'), at: fc.nat(9) }) as fc.Arbitrary<Step>;
+/** The supply node a 'node' step feeds its stage from: one of the demo supply's four, from the step's own number. */
+const nodeFor = (s: Step) => Math.floor(s.at / 2) % 4;
 
 /** A follower added the way the store adds one: onto gain stage `at`'s bench, as its stage2. */
 function addFollower(d: BenchDesign, at: number): BenchDesign | null {
@@ -30,7 +32,8 @@ function apply(d: BenchDesign, s: Step): BenchDesign {
         : s.op === 'remove' ? removeStage(d, at)
           : s.op === 'left' ? moveStage(d, at, -1)
             : s.op === 'right' ? moveStage(d, at, 1)
-              : selectStage(d, at);
+              : s.op === 'node' ? withStageNode(d, at, nodeFor(s))
+                : selectStage(d, at);
   return next ?? d;
 }
 
@@ -47,7 +50,7 @@ function wellFormed(list: readonly StagePlan[]): string | null {
 }
 
 describe('the chain keeps its shape through any edit', () => {
-  it('any sequence of add, remove, move and select leaves a well-formed chain, the bench on a gain stage, and a file that reopens as the same design', () => {
+  it('any sequence of add, remove, move, select and a stage\'s supply node leaves a well-formed chain, the bench on a gain stage, and a file that reopens as the same design', () => {
     fc.assert(
       fc.property(fc.array(step, { maxLength: 24 }), (steps) => {
         let d = DEMO_DESIGN;
@@ -62,6 +65,11 @@ describe('the chain keeps its shape through any edit', () => {
           // A follower right after the bench's stage is held as its stage2, never left in `after`.
           expect(d.after[0]?.kind).not.toBe('follower');
           expect(chainProblem(d)).toBeNull();
+          // Fed from the node asked (a follower: its gain stage), the one form kept: no stage carries the voltage stages' node as its own.
+          if (s.op === 'node') {
+            expect(nodeOfStage(d, list, s.at % list.length)).toBe(nodeFor(s));
+            expect(list.some((p) => p.kind === 'common-cathode' && p.node === d.supply.feeds.voltage)).toBe(false);
+          }
         }
         const back = readDesignFile(writeDesignFile({ title: 't', design: d }));
         if (!back.ok) throw new Error(back.message);
