@@ -72,7 +72,7 @@ export function SupplyPanel() {
             <SupplyField path="secondaryAmps" label="At its rated current" unit="A" example="200m or none" />
             <SupplyField path="windingOhms" label="Winding resistance" unit="Ω" example="35" />
             <SupplyField path="regulation" label="Or its regulation" unit="%" example="8 or none" />
-            <SupplyField path="humRms" label="Hum budget, voltage stages" unit="V rms" example="5m or none" />
+            <SupplyField path="humRms" label="Hum budget, stage 1's node" unit="V rms" example="5m or none" />
           </div>
           <h3>Filter</h3>
           <div className="option-row">
