@@ -53,7 +53,7 @@ export function chainNoise(net: ChainNetwork): Result<ChainNoise> {
         tr[r * w + c] = scratch.re[c * w + r]!;
         ti[r * w + c] = scratch.im[c * w + r]!;
       }
-      tr[r * w + n] = r === filled.out ? filled.scale : 0;
+      tr[r * w + n] = r === filled.out ? filled.scale : r === filled.outRef ? -filled.scale : 0;
       ti[r * w + n] = 0;
     }
     if (!csolveFlat(tr, ti, n, yr, yi)) return fail('unreachable', 'The amplifier\'s network cannot be solved for its noise: check the values');

@@ -27,6 +27,34 @@ export interface ChainNetwork {
   readonly loadCc?: number | null;
   /** Global feedback from the output to the first stage's cathode, when the network carries it. */
   readonly feedback?: FeedbackPath;
+  /** The B+ supply's filter ladder, when the network carries it: each stage's plate load returns to its node, not to signal ground. */
+  readonly supply?: SupplyLadder;
+}
+
+/**
+ * The supply as the signal sees it: the reservoir behind the rectifier's
+ * and winding's source resistance, each node's capacitor to ground, and the
+ * series element (a resistor, or a choke's inductance with its resistance)
+ * from each node to the next. Each stage's plate load (its transformer's
+ * primary, a long-tailed pair's second plate load, a follower's plate)
+ * returns to the node feeding it, so a stage's signal current develops a
+ * voltage there that reaches every stage on the ladder: the amplifier's low
+ * end as built, and the loop through the supply that motorboats. A
+ * push-pull pair's half circuit keeps its centre tap at signal ground (its
+ * difference current does not flow there); screens are taken at signal
+ * ground, as elsewhere in this network.
+ */
+export interface SupplyLadder {
+  /** The reservoir's source resistance to signal ground, Ω (Infinity: none). */
+  readonly sourceOhms: number;
+  /** Each node's capacitor, F, the reservoir first. */
+  readonly caps: readonly number[];
+  /** The series element from node k to node k + 1: resistance, Ω, and inductance, H (0 for a resistor). */
+  readonly links: readonly { readonly r: number; readonly l: number }[];
+  /** The node feeding each stage's plate. */
+  readonly feeds: readonly number[];
+  /** A choke input: the choke between the rectifier and the reservoir, in series with the source. */
+  readonly choke?: { readonly r: number; readonly l: number };
 }
 
 /**
@@ -64,7 +92,7 @@ export function chainGainAt(net: ChainNetwork, freqHz: number, scratch = scratch
  * capacitor-coupled grid's stopper.
  */
 function extraNodes(net: ChainNetwork): number {
-  let extra = (net.feedback ? 1 : 0) + (loadCoupled(net) ? 1 : 0);
+  let extra = (net.feedback ? 1 : 0) + (loadCoupled(net) ? 1 : 0) + (net.supply?.caps.length ?? 0);
   net.stages.forEach(({ linear, stopper, coupling }, i) => {
     if (stopper !== undefined && stopper > 0 && coupling !== null) extra += 1;
     if (potted(coupling)) extra += 1;
@@ -119,8 +147,12 @@ export const TRIODE_NOISE_RESISTANCE_GM = 2.5;
 interface Filled {
   readonly n: number;
   readonly out: number;
+  /** The node the output is measured from (−1: ground): a transformer's primary returned to a supply node floats with it. */
+  readonly outRef: number;
   readonly scale: number;
   readonly equationRow: number;
+  /** The supply's nodes (SupplyLadder), the first and how many; none without it. */
+  readonly supplyNodes: { readonly start: number; readonly count: number };
 }
 
 /** vout / vsource at one frequency as [re, im] (the output's phase against the source's), or null when the network cannot be solved. */
@@ -128,7 +160,8 @@ export function chainResponseAt(net: ChainNetwork, freqHz: number, scratch = scr
   const f = fillChain(net, freqHz, scratch, null);
   const { xr, xi } = scratch;
   if (!csolveFlat(scratch.re, scratch.im, f.n, xr, xi)) return null;
-  return [xr[f.out]! * f.scale, xi[f.out]! * f.scale];
+  const [rr, ri] = f.outRef < 0 ? [0, 0] : [xr[f.outRef]!, xi[f.outRef]!];
+  return [(xr[f.out]! - rr) * f.scale, (xi[f.out]! - ri) * f.scale];
 }
 
 /** Fills the equations; with `noise`, each physical resistance's and each tube's noise current is recorded as it is stamped. */
@@ -175,7 +208,19 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
   let previous = 0;
   let previous2: number | null = null;
   let scale = 1;
+  let outRef = -1;
   let spare = 1 + 3 * net.stages.length;
+  // The supply's nodes first among the spare ones: the reservoir behind its source, each node's capacitor, the ladder.
+  const ladder = net.supply;
+  const supplyBase = spare;
+  if (ladder) {
+    spare += ladder.caps.length;
+    if (Number.isFinite(ladder.sourceOhms)) resistor(supplyBase, -1, ...seriesRl(ladder.sourceOhms + (ladder.choke?.r ?? 0), ladder.choke?.l ?? 0, omega));
+    ladder.caps.forEach((c, k) => stamp(supplyBase + k, -1, 0, omega * c));
+    ladder.links.forEach((link, k) => resistor(supplyBase + k, supplyBase + k + 1, ...seriesRl(link.r, link.l, omega)));
+  }
+  // Where stage i's plate load returns: its supply node, or signal ground.
+  const returnOf = (i: number): number => (ladder ? supplyBase + ladder.feeds[i]! : -1);
   net.stages.forEach(({ linear: s, coupling, gin, stopper }, i) => {
     const [g, p, k] = [1 + 3 * i, 2 + 3 * i, 3 + 3 * i];
     // The grid's current's slope at its bias, grid to cathode (it depends on Vgk alone).
@@ -210,10 +255,12 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
       spare += 2;
       const half = (wdg.ll ?? 0) / 2;
       resistor(p, m, ...seriesRl(wdg.rSeries, half, omega));
-      if (wdg.lm !== null) stamp(m, -1, ...seriesRl(0, wdg.lm, omega));
+      // The primary's far end is its supply node (a pair's centre tap stays at signal ground: see SupplyLadder).
+      const b = s.pair ? -1 : returnOf(i);
+      if (wdg.lm !== null) stamp(m, b, ...seriesRl(0, wdg.lm, omega));
       stamp(m, x, ...seriesRl(0, half, omega));
-      resistor(x, -1, conductance(wdg.reflected), 0);
-    } else resistor(p, -1, conductance(s.plateLoad), 0);
+      resistor(x, b, conductance(wdg.reflected), 0);
+    } else resistor(p, s.pair ? -1 : returnOf(i), conductance(s.plateLoad), 0);
     const rk = fb && i === 0 ? fb.rk : s.rk;
     resistor(k, -1, s.cathodeGrounded ? SHORT : conductance(rk), s.ck === null ? 0 : omega * s.ck);
     stamp(p, k, 1 / s.rp, omega * s.caps.cpk);
@@ -246,7 +293,8 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     // A long-tailed pair's second triode: grid at signal ground, so gm·(0 − vk) from its plate to the shared cathode.
     const p2 = s.second ? spare++ : null;
     if (s.second && p2 !== null) {
-      resistor(p2, -1, conductance(s.second.plateLoad), omega * s.caps.cgp);
+      resistor(p2, returnOf(i), conductance(s.second.plateLoad), 0);
+      stamp(p2, -1, 0, omega * s.caps.cgp);
       stamp(p2, k, 1 / s.second.rp, omega * s.caps.cpk);
       stamp(k, -1, 0, omega * s.caps.cgk);
       add(p2, k, -s.second.gm, 0);
@@ -256,6 +304,9 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     previous = wdg ? spare - 1 : s.output === 'plate' ? p : k;
     previous2 = s.output2 === 'cathode' ? k : s.output2 === 'second' && p2 !== null ? p2 : null;
     scale = wdg ? wdg.scale : s.outputScale;
+    // A transformer's secondary gives the voltage across its primary (outputScale is its turns ratio): measured from
+    // the supply node the primary returns to (signal ground without the supply, or for a pair's centre tap).
+    outRef = wdg || s.outputScale !== 1 ? (s.pair ? -1 : returnOf(i)) : -1;
   });
   if (loadCoupled(net)) {
     // The load's node is the last before the feedback node's (which, with the loop's figures, comes last).
@@ -263,7 +314,7 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     stamp(previous, l, 0, omega * net.loadCc!);
     previous = l;
   }
-  resistor(previous, -1, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
+  resistor(previous, outRef, conductance(net.rl === Infinity ? Infinity : net.rl), 0);
   if (fb) {
     // Rf's end is held by a source, its row that source's equation: 1 V with the loop broken, else the output times the
     // secondary's sense. (Written as an equation, not as a huge conductance to a source: that would swamp the grid's
@@ -274,9 +325,12 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     }
     re[fNode * w + fNode] = 1;
     if (fb.mode === 'broken') re[fNode * w + n] = 1;
-    else re[fNode * w + previous] = -fb.polarity * scale;
+    else {
+      re[fNode * w + previous] = -fb.polarity * scale;
+      if (outRef >= 0) re[fNode * w + outRef] = fb.polarity * scale;
+    }
   }
-  return { n, out: previous, scale, equationRow: fNode };
+  return { n, out: previous, outRef, scale, equationRow: fNode, supplyNodes: { start: supplyBase, count: ladder ? ladder.caps.length : 0 } };
 }
 
 export function scratchFor(net: ChainNetwork) {

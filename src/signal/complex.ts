@@ -69,3 +69,66 @@ export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Fl
   }
   return true;
 }
+
+/**
+ * The determinant of the square submatrix of rows and columns `idx` of a
+ * matrix stored row by row with stride `w`, in polar form: its log magnitude
+ * and its argument (the sum of the pivots' arguments, π for each row swap;
+ * not wrapped). Null for a singular one. Gaussian elimination with partial
+ * pivoting on a copy; the matrix is left as it was.
+ */
+export function cdetPolar(re: Float64Array, im: Float64Array, w: number, idx: readonly number[]): { logAbs: number; arg: number } | null {
+  const n = idx.length;
+  const ar = new Float64Array(n * n);
+  const ai = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) {
+    for (let c = 0; c < n; c++) {
+      ar[r * n + c] = re[idx[r]! * w + idx[c]!]!;
+      ai[r * n + c] = im[idx[r]! * w + idx[c]!]!;
+    }
+  }
+  let logAbs = 0;
+  let arg = 0;
+  for (let col = 0; col < n; col++) {
+    let pivot = col;
+    let best = Math.hypot(ar[col * n + col]!, ai[col * n + col]!);
+    for (let r = col + 1; r < n; r++) {
+      const m = Math.hypot(ar[r * n + col]!, ai[r * n + col]!);
+      if (m > best) {
+        best = m;
+        pivot = r;
+      }
+    }
+    if (!(best > 0) || !Number.isFinite(best)) return null;
+    if (pivot !== col) {
+      arg += Math.PI;
+      for (let c = 0; c < n; c++) {
+        const t = ar[col * n + c]!;
+        ar[col * n + c] = ar[pivot * n + c]!;
+        ar[pivot * n + c] = t;
+        const u = ai[col * n + c]!;
+        ai[col * n + c] = ai[pivot * n + c]!;
+        ai[pivot * n + c] = u;
+      }
+    }
+    const pr = ar[col * n + col]!;
+    const pi = ai[col * n + col]!;
+    logAbs += Math.log(best);
+    arg += Math.atan2(pi, pr);
+    const pd = pr * pr + pi * pi;
+    for (let r = col + 1; r < n; r++) {
+      const xr = ar[r * n + col]!;
+      const xi = ai[r * n + col]!;
+      if (xr === 0 && xi === 0) continue;
+      const fr = (xr * pr + xi * pi) / pd;
+      const fi = (xi * pr - xr * pi) / pd;
+      for (let c = col + 1; c < n; c++) {
+        const vr = ar[col * n + c]!;
+        const vi = ai[col * n + c]!;
+        ar[r * n + c] = ar[r * n + c]! - (fr * vr - fi * vi);
+        ai[r * n + c] = ai[r * n + c]! - (fr * vi + fi * vr);
+      }
+    }
+  }
+  return { logAbs, arg };
+}

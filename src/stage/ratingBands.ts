@@ -29,6 +29,7 @@ export type FindingKind =
   | 'transformer-current'
   | 'hum'
   | 'supply-bplus'
+  | 'supply-coupling'
   | 'loop-stability'
   | 'primary-imbalance'
   | 'tube-spread'

@@ -163,6 +163,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const screenedSolved = Q.solveOnSupply(screenedInput);
   if (!screenedSolved.ok) throw new Error(screenedSolved.message);
   run('humOnSupply', fc.tuple(fc.oneof(fc.constant(screenedInput), near(screenedInput), anything), fc.oneof(fc.constant(screenedSolved), near(screenedSolved), anything)), Q.humOnSupply, 60);
+  run('supplyLowEnd', fc.tuple(fc.oneof(fc.constant(screenedInput), near(screenedInput), anything), fc.oneof(fc.constant(screenedSolved), near(screenedSolved), anything)), Q.supplyLowEnd, 40);
   const tangentSupply = { ...supply, loads: [0.05, 0.004] } as Q.SupplyDesign;
   const solvedSupply = Q.solveSupply(tangentSupply);
   const tangent = solvedSupply.ok ? Q.supplyTangent(tangentSupply, solvedSupply) : null;

@@ -1,4 +1,5 @@
 import type { ChainInput, ChainStage } from '../../src/index';
+import type { SupplyLadder } from '../../src/chain/chainResponse';
 import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, POWER_GRID_RESISTANCE, recordOf } from '../../src/index';
 import { pentodeSubckt } from './outputNetlist';
 import { triodeSubckt } from './netlists';
@@ -50,7 +51,7 @@ function windingOf(s: { readonly primaryInductance?: number | null; readonly lea
  * Inside the clean limit only: past it a grid in grid current would also charge its coupling capacitor over the run
  * (10 µF through its leak), a shift of bias the model does not follow.
  */
-export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'noise' } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
+export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'noise' } | { readonly kind: 'kick'; readonly seconds: number } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
 
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
@@ -177,9 +178,44 @@ function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: 
   return lines;
 }
 
-export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
+/**
+ * The supply's filter ladder behind the stages (SupplyLadder): each stage's B+ source becomes a 0 V ammeter from its
+ * plate load to its node, the nodes fed from `v0` (the reservoir's DC under the stages' current plus the drop in the
+ * source resistance, so the nodes sit where the supply put them) through the source resistance (and a choke input's
+ * choke), each node's capacitor to ground and each section's resistor (or choke with its resistance) to the next.
+ */
+export interface NetlistLadder {
+  readonly ladder: SupplyLadder;
+  readonly v0: number;
+}
+
+function ladderLines(lines: string[], stages: number, n: NetlistLadder): string[] {
+  const { ladder, v0 } = n;
+  const fed = lines.map((l) => {
+    for (let i = 0; i < stages; i++) {
+      const head = `${nodes.supply(i).toUpperCase()} `;
+      if (l.startsWith(head)) {
+        const parts = l.split(' ');
+        return `${parts[0]} ${parts[1]} sn${ladder.feeds[i]} DC 0`;
+      }
+    }
+    return l;
+  });
+  const choke = ladder.choke;
+  const supply = [`VSUP sx 0 DC ${g(v0)}`, choke ? `RSRC sx sy ${g(ladder.sourceOhms + choke.r)}` : `RSRC sx sn0 ${g(ladder.sourceOhms)}`];
+  if (choke) supply.push(`LCH sy sn0 ${g(choke.l)}`);
+  ladder.caps.forEach((c, k) => supply.push(`CN${k} sn${k} 0 ${g(c)}`));
+  ladder.links.forEach((link, k) => {
+    if (link.l > 0) supply.push(`RLK${k} sn${k} sl${k} ${g(Math.max(link.r, 1e-6))}`, `LLK${k} sl${k} sn${k + 1} ${g(link.l)}`);
+    else supply.push(`RLK${k} sn${k} sn${k + 1} ${g(Math.max(link.r, 1e-6))}`);
+  });
+  return [...fed, ...supply];
+}
+
+export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: NetlistLadder): string {
   const large = analysis.kind === 'tran' ? 1e-3 : 1;
-  const source = analysis.kind === 'tran' ? `DC 0 SIN(0 ${g(analysis.peak)} 1000)` : 'DC 0 AC 1';
+  // 'kick': a 20 ms, 50 mV pulse at the input 0.2 s in, every capacitor as given, to watch what the circuit does after it.
+  const source = analysis.kind === 'tran' ? `DC 0 SIN(0 ${g(analysis.peak)} 1000)` : analysis.kind === 'kick' ? 'DC 0 PULSE(0 0.05 0.2 1m 1m 20m 1000)' : 'DC 0 AC 1';
   const lines = ['* amplifier chain', `VS src 0 ${source}`, `RS src a ${g(Math.max(c.source.rsource, 1e-3))}`];
   let input = 'a';
   let input2: string | null = null;
@@ -201,10 +237,13 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis): string {
         ? ['ac dec 50 0.01 1e8', 'wrdata {data} vm(out)']
         : analysis.kind === 'noise'
           ? ['noise v(out) vs dec 50 20 20000', 'print onoise_total', 'setplot noise1', 'wrdata {data} onoise_spectrum']
+        : analysis.kind === 'kick'
+          ? [`tran 2m ${analysis.seconds} 0 2m`, 'wrdata {data} v(out)']
         : analysis.settle
           ? ['set nfreqs=10', 'set fourgridsize=16384', `tran 0.5u ${analysis.settle.ms}m ${analysis.settle.ms - 10}m 0.5u`, 'fourier 1000 v(out)']
           : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
   // Noise at the IEEE reference temperature, 290 K, as the model takes it (ngspice's default is 300.15 K).
   if (analysis.kind === 'noise') lines.push('.options temp=16.85');
-  return [...lines, '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
+  const circuit = ladder ? ladderLines(lines, c.stages.length, ladder) : lines;
+  return [...circuit, '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
 }
