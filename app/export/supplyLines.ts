@@ -2,6 +2,7 @@ import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../for
 import type { WorkbenchState } from '../store/workbenchStore';
 import { fedFrom } from '../store/supplySlice';
 import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
+import { lowEndWords } from '../ui/supply/lowEndWords';
 
 /**
  * The B+ supply on the card, in three or four lines: what it is, every
@@ -28,6 +29,8 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   ];
   const hum = humWords(view, humSpeakerOhms(s, view));
   if (hum) lines.push(`${hum}, each stage's ripple carried to the output and added in phase`);
+  const low = lowEndWords(view);
+  if (low) lines.push(low);
   const b = view.bleeder;
   if (b?.ok && b.needed) lines.push(`Bleeder ${ohms(b.ohms)}, ${watts(b.partWatts)} across node 1: under 60 V in ${plain(b.seconds, 2)} s`);
   return { heading: 'B+ supply', lines };

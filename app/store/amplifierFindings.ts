@@ -39,7 +39,10 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   // its notes, the margins, stay with its own table.
   const supply = s.supplyView?.result;
   // So does a stage designed for a B+ its node does not give: its figures describe another amplifier.
-  if (d.supply.on && supply?.ok) stages.push({ name: SUPPLY_STAGE_NAME, findings: [...supply.supply.findings.filter((f) => f.severity !== 'note'), ...supplyBplusFindings(s)] });
+  // And the loop through the supply, once worked out: a low end it moves, or a loop that motorboats.
+  const lowEnd = s.supplyView?.lowEnd;
+  const coupling = lowEnd?.ok && !s.supplyView!.stale ? lowEnd.findings : [];
+  if (d.supply.on && supply?.ok) stages.push({ name: SUPPLY_STAGE_NAME, findings: [...supply.supply.findings.filter((f) => f.severity !== 'note'), ...supplyBplusFindings(s), ...coupling] });
   return stages;
 }
 

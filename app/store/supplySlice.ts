@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { bleederFor, humOnSupply, parseValue, supplyPartsList, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
+import { bleederFor, humOnSupply, parseValue, supplyLowEnd, supplyPartsList, type SupplyLowEnd, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, checkStageNodes, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
@@ -23,6 +23,12 @@ export interface SupplyView {
   readonly hum: Result<HumAtOutput> | null;
   /** True while the design has moved on and the new solve has not come back. */
   readonly stale: boolean;
+  /**
+   * The amplifier's low end on this supply and whether the loop through it
+   * is stable (supplyLowEnd), worked out after each settled solve (null
+   * until it comes back, and for a drag's live answers).
+   */
+  readonly lowEnd: Result<SupplyLowEnd> | null;
 }
 
 /** The supply's typed values: the plan's path ("secondaryRms", "input.c", "sections.1.r") to the text in its box. */
@@ -226,6 +232,12 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
   };
 };
 
+/** Works out the amplifier's low end on its solved supply, asynchronously (the page's: in the model worker). */
+export type LowEndSolver = (input: AmplifierOnSupply, solved: AmplifierOnSupplyResult) => Promise<Result<SupplyLowEnd>>;
+
+/** In place, on the thread that asks (the tests', and a browser without workers). */
+export const inPlaceLowEnd: LowEndSolver = async (input, solved) => supplyLowEnd(input, solved);
+
 /** Solves the amplifier on its supply, asynchronously (the page's: supplyBetweenFrames). */
 export type SupplySolver = (input: AmplifierOnSupply) => Promise<Result<AmplifierOnSupplyResult> | 'cancelled'>;
 
@@ -241,7 +253,7 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
   const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
   const screenFeeds = chain.input.screenFeeds ?? chain.names.map(() => null);
-  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, stale };
+  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, stale, lowEnd: null };
 }
 
 /** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */
@@ -258,7 +270,7 @@ function bleederOf(d: BenchDesign, r: Result<AmplifierOnSupplyResult>): Result<B
  * a drag or typing runs ahead of it; a late answer to an older design is
  * dropped. Without a solver (tests that do not ask for one) nothing runs.
  */
-export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null): void {
+export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null, lowEnd: LowEndSolver = inPlaceLowEnd): void {
   if (!solver) return;
   let job = 0;
   let timer: ReturnType<typeof setTimeout> | undefined;
@@ -280,6 +292,12 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null):
         // A stage's failure named as its card is ("Phase splitter (12AU7): …"), not by its place in the model's list.
         const view = viewOf(d, chain, r.ok ? r : namedAsCards(r, chain.names), false);
         store.setState({ supplyView: view });
+        // The low end and the loop through the supply: tens of milliseconds of sweeps, after the figures are shown.
+        if (r.ok) {
+          void lowEnd(chain.input, r).then((le) => {
+            if (store.getState().supplyView === view) store.setState({ supplyView: { ...view, lowEnd: le } });
+          });
+        }
         // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
         // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
         const next = d.supply.follow ? supplyBplusOf(d, view) : null;

@@ -7,7 +7,7 @@ import { createHistorySlice, recordHistory, type HistorySlice } from './historyS
 import { createViewSlice, type ViewSlice } from './viewSlice';
 import { createOutputSlice, type OutputSlice } from './outputSlice';
 import { createChainSlice, type ChainSlice } from './chainSlice';
-import { createSupplySlice, watchSupply, type SupplySlice, type SupplySolver } from './supplySlice';
+import { createSupplySlice, watchSupply, type LowEndSolver, type SupplySlice, type SupplySolver } from './supplySlice';
 import { createRegionSlice, inPlaceRegionSolver, watchRegion, type RegionSlice, type RegionSolver } from './regionSlice';
 
 /** The whole workbench state: the slices, combined once. */
@@ -23,6 +23,8 @@ export interface StoreOptions {
    * do not look at the supply.
    */
   readonly supplySolver?: SupplySolver | null;
+  /** Where the amplifier's low end on its supply is worked out after each settled solve (the page passes the model worker's); default in place. */
+  readonly lowEndSolver?: LowEndSolver;
   /** Where the target region and the tube ranking are worked out (the page passes a Web Worker's); default in place. */
   readonly regionSolver?: RegionSolver;
 }
@@ -43,7 +45,7 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
     ...createRegionSlice(regions)(...a),
   }));
   recordHistory(store, options.now);
-  watchSupply(store, options.supplySolver ?? null);
+  watchSupply(store, options.supplySolver ?? null, options.lowEndSolver);
   watchRegion(store, regions);
   return store;
 }

@@ -7,6 +7,7 @@ import { fedFrom, screensOf } from '../../store/supplySlice';
 import { bplusGroups, type BplusRole } from '../../store/supplyBplus';
 import { voltageStages } from '../../store/stagePlans';
 import { SupplyWaves } from './SupplyWaves';
+import { lowEndWords } from './lowEndWords';
 
 const SAME_BPLUS_SHARE = 0.01;
 
@@ -101,6 +102,9 @@ export function SupplyResults() {
         <p className="field-hint">No ratings given to check the supply against (the winding's current, a hum budget).</p>
       )}
       <SupplyHumLine view={view} />
+      <p className={`supply-low-end${view.lowEnd?.ok && view.lowEnd.unstablePoles ? ' finding danger' : ''}`} data-testid="supply-low-end" role="status">
+        {lowEndWords(view) ?? 'Working out the low end on this supply…'}
+      </p>
       <div className="supply-bplus">
         <ul>
           {offBy.map((x) => (
