@@ -13,7 +13,9 @@ export function lowEndWords(view: SupplyView): string | null {
   const le = view.lowEnd;
   if (!le) return null;
   if (!le.ok) return `Low end on this supply: ${le.message}`;
-  const rise = le.peakDb >= 0.1 && le.peakHz !== null && le.peakHz < 1000 ? `, rising ${le.peakDb.toFixed(1)} dB above midband at ${hz(le.peakHz)}` : '';
+  // An unstable loop's response on the axis is no figure to read: only a stable one's rise is given.
+  const stable = le.unstablePoles === 0;
+  const rise = stable && le.peakDb >= 0.1 && le.peakHz !== null && le.peakHz < 1000 ? `, rising ${le.peakDb.toFixed(1)} dB above midband at ${hz(le.peakHz)}` : '';
   const loop =
     le.unstablePoles === null ? 'whether the loop through the supply is stable could not be told'
       : le.unstablePoles > 0 ? 'the loop through the supply OSCILLATES (motorboating)'
