@@ -28,30 +28,25 @@ const toTriode300B = (cc: number, primaryInductance: number) => ({
   bias: 'cathode' as const, rk: 1200, vg: -70, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor' as const, cc, rg: 220e3 },
 });
 
+/** A bypassed gain stage at 300 V (the supply puts it where its node is), capacitor-coupled into its leak. */
+const gain = (tube: typeof ax7, ra: number, rk: number, ck: number, cc: number, rg: number) =>
+  ({ kind: 'common-cathode' as const, tube, bplus: 300, ra, rk, bypassed: true, ck, coupling: { kind: 'capacitor' as const, cc, rg } });
+
 const threeStages: ChainInput = {
   source: { rsource: 1e3 },
-  stages: [
-    { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 47e-6, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
-    { kind: 'common-cathode', tube: au7, bplus: 300, ra: 33e3, rk: 1000, bypassed: true, ck: 100e-6, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 } },
-    toTriode300B(470e-9, 20),
-  ],
+  stages: [gain(ax7, 100e3, 1500, 47e-6, 100e-9, 1e6), gain(au7, 33e3, 1000, 100e-6, 220e-9, 470e3), toTriode300B(470e-9, 20)],
 };
 
 /** Two 12AX7 stages and a 12AU7 driving the 300B: gain enough for the supply's loop to matter. */
 const fourStages: ChainInput = {
   source: { rsource: 1e3 },
-  stages: [
-    { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 220e-6, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
-    { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, ck: 220e-6, coupling: { kind: 'capacitor', cc: 100e-9, rg: 470e3 } },
-    { kind: 'common-cathode', tube: au7, bplus: 300, ra: 33e3, rk: 1000, bypassed: true, ck: 220e-6, coupling: { kind: 'capacitor', cc: 100e-9, rg: 470e3 } },
-    toTriode300B(100e-9, 30),
-  ],
+  stages: [gain(ax7, 100e3, 1500, 220e-6, 100e-9, 1e6), gain(ax7, 100e3, 1500, 220e-6, 100e-9, 470e3), gain(au7, 33e3, 1000, 220e-6, 100e-9, 470e3), toTriode300B(100e-9, 30)],
 };
 
 const followerDriven: ChainInput = {
   source: { rsource: 600 },
   stages: [
-    { kind: 'common-cathode', tube: at7, bplus: 300, ra: 56e3, rk: 820, bypassed: true, ck: 100e-6, coupling: { kind: 'capacitor', cc: 220e-9, rg: 680e3 } },
+    gain(at7, 56e3, 820, 100e-6, 220e-9, 680e3),
     { kind: 'follower', tube: au7, bplus: 300, rk: 27e3, coupling: { kind: 'direct' } },
     toTriode300B(1e-6, 20),
   ],
@@ -112,16 +107,30 @@ function simulatedPeak(data: string): number {
   return b! + ((a! - c!) ** 2) / (8 * (2 * b! - a! - c!));
 }
 
+/**
+ * The model's low end for an amplifier on its supply, and ngspice's runs of the same circuit with the ladder in it
+ * (each stage's B+ an ammeter to its node; the nodes fed from the reservoir's DC plus the drop in the source
+ * resistance the model takes): the AC sweep, and the transient kicked at the input, 8 s.
+ */
+function bothWays(on: AmplifierOnSupply) {
+  const r = solveOnSupply(on);
+  if (!r.ok) throw new Error(r.message);
+  const low = supplyLowEnd(on, r);
+  if (!low.ok) throw new Error(low.message);
+  const ladder = ladderOf(on, r);
+  const v0 = r.supply.nodes[0]!.dc + r.loads.reduce((a, x) => a + x, 0) * ladder.sourceOhms;
+  const placed = placedOnSupply(on.amplifier, r.bplus, r.screenVolts);
+  return {
+    low,
+    sweep: () => runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, { ladder, v0 })).data,
+    kick: () => runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, { ladder, v0 })).data,
+  };
+}
+
 describe.runIf(run)('the amplifier\'s low end through its supply, against ngspice', () => {
   it.each(cases)('$label', ({ on, oscillates, moves }) => {
-    const r = solveOnSupply(on);
-    if (!r.ok) throw new Error(r.message);
-    const low = supplyLowEnd(on, r);
-    if (!low.ok) throw new Error(low.message);
-    const ladder = ladderOf(on, r);
-    const v0 = r.supply.nodes[0]!.dc + r.loads.reduce((a, x) => a + x, 0) * ladder.sourceOhms;
-    const placed = placedOnSupply(on.amplifier, r.bplus, r.screenVolts);
-    const data = runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, { ladder, v0 })).data;
+    const { low, sweep, kick } = bothWays(on);
+    const data = sweep();
     const sim = simulatedCorners(data, 1000);
     expectClose(low.lowHz!, sim.low!, { rel: 0.03 }, 'low −3 dB point with the ladder');
     expect(Math.abs(low.peakDb - simulatedPeak(data))).toBeLessThan(0.5);
@@ -129,9 +138,9 @@ describe.runIf(run)('the amplifier\'s low end through its supply, against ngspic
     if (moves !== false) expect(Math.abs(low.idealLowHz! / sim.low! - 1)).toBeGreaterThan(0.03);
     // Stability: ngspice's transient after a 20 ms kick at the input, 8 s long. A stable loop's swing dies away (by
     // ten times from the second second to the eighth); an unstable one grows to a limit and keeps swinging.
-    const kick = runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, { ladder, v0 })).data;
-    const early = swingBetween(kick, 1, 2);
-    const late = swingBetween(kick, 7, 8);
+    const kicked = kick();
+    const early = swingBetween(kicked, 1, 2);
+    const late = swingBetween(kicked, 7, 8);
     expect(low.unstablePoles! > 0).toBe(oscillates);
     if (oscillates) {
       expect(late).toBeGreaterThan(1);
@@ -152,18 +161,12 @@ describe.runIf(run)('the amplifier\'s low end through its supply, against ngspic
   ])('$label', ({ lp, oscillates }) => {
     const design = lp === null ? DEMO_DESIGN : { ...DEMO_DESIGN, output: { ...DEMO_DESIGN.output, primaryInductance: lp } };
     const on = onSupplyInputOf(design, LIBRARY_TUBES)!.input;
-    const r = solveOnSupply(on);
-    if (!r.ok) throw new Error(r.message);
-    const low = supplyLowEnd(on, r);
-    if (!low.ok) throw new Error(low.message);
-    const ladder = ladderOf(on, r);
-    const v0 = r.supply.nodes[0]!.dc + r.loads.reduce((a, x) => a + x, 0) * ladder.sourceOhms;
-    const placed = placedOnSupply(on.amplifier, r.bplus, r.screenVolts);
-    const sim = simulatedCorners(runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, { ladder, v0 })).data, 1000);
+    const { low, sweep, kick } = bothWays(on);
+    const sim = simulatedCorners(sweep(), 1000);
     expectClose(low.lowHz!, sim.low!, { rel: 0.15 }, 'low −3 dB point, ultralinear');
-    const kick = runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, { ladder, v0 })).data;
     expect(low.unstablePoles! > 0).toBe(oscillates);
-    const [early, late] = [swingBetween(kick, 1, 2), swingBetween(kick, 7, 8)];
+    const kicked = kick();
+    const [early, late] = [swingBetween(kicked, 1, 2), swingBetween(kicked, 7, 8)];
     if (oscillates) expect(late).toBeGreaterThan(early);
     else expect(late).toBeLessThan(0.1 * early);
   });
