@@ -112,7 +112,7 @@ export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection
 export { SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
-export { supplyLowEnd, SUPPLY_PEAK_WARNING_DB, type SupplyLowEnd } from './chain/supplyLowEnd';
+export { supplyLowEnd, SUPPLY_GAIN_MARGIN_DB, SUPPLY_PEAK_WARNING_DB, type SupplyLowEnd } from './chain/supplyLowEnd';
 export { supplyHum, humAtOutput, type SupplyHum, type HumAtOutput } from './chain/supplyHum';
 export { humOnSupply } from './chain/humOnSupply';
 export { NOISE_BAND_HZ, type ChainNoise } from './chain/chainNoise';

@@ -45,8 +45,11 @@ export interface SupplyPlan {
  * single-ended output stage (its primary carries the ripple to the speaker: on the
  * reservoir alone the demo hummed at about 120 mV, with the choke under 1 mV;
  * common practice for a single-ended stage), then 1 kΩ (the splitter's node when a
- * pair is chosen) and 9.1 kΩ sections of 47 µF down to the voltage stages, chosen
- * so the nodes deliver the demo's own B+ (330 V and 275 V, each within 1 %); a
+ * pair is chosen) and 9.1 kΩ sections, 47 µF and then 220 µF, down to the voltage
+ * stages, chosen so the nodes deliver the demo's own B+ (330 V and 275 V, each
+ * within 1 %); the voltage stages' 220 µF keeps the loop through the supply
+ * 10 dB from oscillating (at 47 µF it had under 3.5 dB, and with a real 20 H
+ * primary it motorboated: supplyLowEnd, held to ngspice); a
  * 200 mA winding, and a hum budget of 5 mV rms on the input stage's node (common
  * practice for a quiet first stage).
  */
@@ -57,7 +60,7 @@ export const DEMO_SUPPLY: SupplyPlan = {
   windingOhms: 35,
   rectifier: { kind: 'silicon-full-wave' },
   input: { kind: 'capacitor', c: 100e-6 },
-  sections: [{ kind: 'lc', l: 5, rdc: 100, c: 100e-6 }, { kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 9.1e3, c: 47e-6 }],
+  sections: [{ kind: 'lc', l: 5, rdc: 100, c: 100e-6 }, { kind: 'rc', r: 1000, c: 47e-6 }, { kind: 'rc', r: 9.1e3, c: 220e-6 }],
   feeds: { output: 1, voltage: 3 },
   channels: 1,
   follow: false,

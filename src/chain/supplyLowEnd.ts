@@ -23,6 +23,14 @@ export const SUPPLY_PEAK_WARNING_DB = 3;
 export const SUPPLY_CORNER_WARNING_RATIO = 2;
 export const SUPPLY_CORNER_WARNING_HZ = 10;
 
+/**
+ * The gain margin the loop through the supply should keep: 10 dB (common
+ * practice for a feedback loop, as the global loop's check asks). A loop that
+ * oscillates with its gain raised this much is said to be thin. Its phase
+ * margin is not read here.
+ */
+export const SUPPLY_GAIN_MARGIN_DB = 10;
+
 /** The low end's sweep: from 0.1 Hz to 1 kHz at 20 points a decade, the peak then refined. */
 const SWEEP_LO_HZ = 0.1;
 const PER_DECADE = 20;
@@ -39,6 +47,8 @@ export interface SupplyLowEnd {
   readonly sourceOhms: number;
   /** The loop through the supply: how many natural frequencies it puts in the right half plane (0: stable; more: it motorboats), or null where it could not be told. */
   readonly unstablePoles: number | null;
+  /** True when the loop is stable but would oscillate with SUPPLY_GAIN_MARGIN_DB more gain around it; null where it could not be told. */
+  readonly thinLoop: boolean | null;
   /** An output transformer taken as ideal down to DC (no primary inductance given): the low end then leaves out the primary's own roll-off. */
   readonly idealTransformer: boolean;
   readonly findings: readonly Finding[];
@@ -103,11 +113,15 @@ export function supplyLowEnd(input: AmplifierOnSupply, r: AmplifierOnSupplyResul
   const peak = peakBelowBand(withSupply);
   if (!Number.isFinite(built.midbandGain) || built.midbandGain <= 0) return fail('unreachable', 'The amplifier passes no signal at 1 kHz on its supply', 'stages');
   const unstablePoles = supplyLoopUnstablePoles(withSupply);
+  const raised = unstablePoles === 0 ? supplyLoopUnstablePoles(withSupply, Math.pow(10, SUPPLY_GAIN_MARGIN_DB / 20)) : null;
+  const thinLoop = unstablePoles === 0 ? (raised === null ? null : raised > 0) : null;
   const idealTransformer = stages.some((st) => (st.kind === 'single-ended-output' || st.kind === 'push-pull-output') && !(st.primaryInductance! > 0));
   const idealWords = idealTransformer ? ' (Output transformer taken as ideal: give its primary inductance.)' : '';
   const findings: Finding[] = [];
   if (unstablePoles !== null && unstablePoles > 0) {
     findings.push(finding('supply-coupling', 'danger', `The loop through the supply oscillates (motorboating): the stages couple through the B+ nodes they share. Feed the early stages from later nodes of their own, with larger decoupling capacitors (common practice).${idealWords}`, unstablePoles, 0));
+  } else if (thinLoop) {
+    findings.push(finding('supply-coupling', 'warning', `The loop through the supply is stable but thin: with ${SUPPLY_GAIN_MARGIN_DB} dB more gain around it (a hotter tube, a higher mains) it would motorboat. Larger decoupling capacitors, or the early stages on later nodes of their own, give it room (common practice).${idealWords}`, SUPPLY_GAIN_MARGIN_DB, SUPPLY_GAIN_MARGIN_DB));
   } else if (peak.db >= SUPPLY_PEAK_WARNING_DB) {
     findings.push(finding('supply-coupling', 'warning', `The response rises ${peak.db.toFixed(1)} dB above midband at ${peak.hz.toPrecision(2)} Hz through the supply, a loop near motorboating: the stages couple through the B+ nodes they share. Larger decoupling capacitors, or the early stages on later nodes of their own, damp it (common practice).${idealWords}`, peak.db, SUPPLY_PEAK_WARNING_DB));
   } else if (built.lowHz !== null && own.lowHz !== null && built.lowHz >= SUPPLY_CORNER_WARNING_RATIO * own.lowHz && built.lowHz >= SUPPLY_CORNER_WARNING_HZ) {
@@ -121,6 +135,7 @@ export function supplyLowEnd(input: AmplifierOnSupply, r: AmplifierOnSupplyResul
     peakHz: peak.db > 0 ? peak.hz : null,
     sourceOhms: ladder.sourceOhms,
     unstablePoles,
+    thinLoop,
     idealTransformer,
     findings,
   };
@@ -178,7 +193,7 @@ const MAX_HALVINGS = 14;
  * conjugate symmetry, the zeros of M there number −(2Δ + mπ)/2π, Δ the
  * argument's change from DC to ∞. Null where a determinant cannot be taken.
  */
-export function supplyLoopUnstablePoles(net: ChainNetwork): number | null {
+export function supplyLoopUnstablePoles(net: ChainNetwork, loopScale = 1): number | null {
   if (!net.supply) return 0;
   const scratch = scratchFor(net);
   const at = (f: number): { arg: number; logAbs: number } | null => {
@@ -188,6 +203,16 @@ export function supplyLoopUnstablePoles(net: ChainNetwork): number | null {
     const all = Array.from({ length: filled.n }, (_, k) => k);
     const amp = all.filter((k) => k < start || k >= start + count);
     const sup = all.filter((k) => k >= start && k < start + count);
+    // The loop's gain times loopScale: each supply node's voltage acts on the amplifier's equations that much harder
+    // (det M then is det A · det(D − loopScale · C A⁻¹ B); A and D stand).
+    if (loopScale !== 1) {
+      for (const r of amp) {
+        for (const c of sup) {
+          scratch.re[r * w + c] = scratch.re[r * w + c]! * loopScale;
+          scratch.im[r * w + c] = scratch.im[r * w + c]! * loopScale;
+        }
+      }
+    }
     const m = cdetPolar(scratch.re, scratch.im, w, all);
     const a = cdetPolar(scratch.re, scratch.im, w, amp);
     const d = cdetPolar(scratch.re, scratch.im, w, sup);

@@ -1,4 +1,4 @@
-import { formatValue } from '../../../src/index';
+import { formatValue, SUPPLY_GAIN_MARGIN_DB } from '../../../src/index';
 import type { SupplyView } from '../../store/supplySlice';
 
 const hz = (f: number | null) => (f === null ? 'DC' : formatValue(f, 'Hz'));
@@ -19,7 +19,7 @@ export function lowEndWords(view: SupplyView): string | null {
   const loop =
     le.unstablePoles === null ? 'whether the loop through the supply is stable could not be told'
       : le.unstablePoles > 0 ? 'the loop through the supply OSCILLATES (motorboating)'
-        : 'the loop through the supply is stable';
+        : le.thinLoop ? `the loop through the supply is stable but thin (under ${SUPPLY_GAIN_MARGIN_DB} dB of gain margin)` : 'the loop through the supply is stable';
   const ideal = le.idealTransformer ? ' (output transformer taken as ideal: give its primary inductance)' : '';
   return `Low end on this supply: −3 dB at ${hz(le.lowHz)} (${hz(le.idealLowHz)} on an ideal supply)${rise}; ${loop}${ideal}`;
 }
