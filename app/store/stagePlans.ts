@@ -220,20 +220,23 @@ export function loadAfterBench(d: BenchDesign): { rl: number; cout: number | nul
   return { rl: d.rl, cout: d.cout };
 }
 
-/** The supply node voltage stage i hangs from: its gain stage's own, else the voltage stages' (a follower rides on its gain stage's B+). */
+/** The supply node a gain stage hangs from: its own, else the voltage stages'. */
+const fedNode = (d: BenchDesign, p: { readonly node?: number | undefined }): number => p.node ?? d.supply.feeds.voltage;
+
+/** The supply node voltage stage i hangs from: its gain stage's (a follower rides on its gain stage's B+). */
 export function nodeOfStage(d: BenchDesign, list: readonly StagePlan[], i: number): number {
   const p = list[gainIndexOf(list, i)];
-  return (p?.kind === 'common-cathode' ? p.node : undefined) ?? d.supply.feeds.voltage;
+  return fedNode(d, p?.kind === 'common-cathode' ? p : {});
 }
 
 /** Every gain stage's B+ set to what its node gives (`voltsAt(node)`; null leaves it as typed). */
 export function withNodeBplus(d: BenchDesign, voltsAt: (node: number) => number | null): BenchDesign {
   const set = (p: StagePlan): StagePlan => {
     if (p.kind !== 'common-cathode') return p;
-    const v = voltsAt(p.node ?? d.supply.feeds.voltage);
+    const v = voltsAt(fedNode(d, p));
     return v === null || v === p.bplus ? p : { ...p, bplus: v };
   };
-  const bench = voltsAt(d.node ?? d.supply.feeds.voltage);
+  const bench = voltsAt(fedNode(d, d));
   return { ...d, ...(bench !== null ? { bplus: bench } : {}), before: d.before.map(set), after: d.after.map(set) };
 }
 
@@ -246,7 +249,7 @@ export function withNodeBplus(d: BenchDesign, voltsAt: (node: number) => number 
 export function withStageNode(d: BenchDesign, i: number, node: number): BenchDesign {
   const list = voltageStages(d);
   const k = gainIndexOf(list, i);
-  const nodes = list.map((p, j) => (p.kind !== 'common-cathode' ? null : j === k ? node : p.node ?? d.supply.feeds.voltage));
+  const nodes = list.map((p, j) => (p.kind !== 'common-cathode' ? null : j === k ? node : fedNode(d, p)));
   const gains = nodes.filter((n): n is number => n !== null);
   const shared = gains[0] ?? node;
   const held = (p: StagePlan, j: number): StagePlan => {

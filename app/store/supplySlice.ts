@@ -218,7 +218,7 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
       delete errors.supply;
       set({ supplyErrors: errors });
       const next = withStageNode(s.design, i, node);
-      tryPlan(next.supply, 'supply', (d) => ({ ...next, supply: d.supply }));
+      tryPlan(next.supply, 'supply', () => next);
     },
 
     useSupplyVolts: () => {

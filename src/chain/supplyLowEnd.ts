@@ -99,14 +99,13 @@ export function supplyLowEnd(input: AmplifierOnSupply, r: AmplifierOnSupplyResul
   if (!solved || !Array.isArray(solved.nodes) || !finite(solved.nodes.map((n) => n?.dc), nodes) || !Number.isFinite(solved.noLoadVolts) || !finite(r.loads, nodes) || !finite(r.bplus, stages.length)) {
     return fail('invalid-input', 'The solved supply does not match the supply given: solve it again', 'supply');
   }
-  const caps = [s.input.c, ...s.sections.map((x) => x.c)];
-  if (!caps.every((c) => Number.isFinite(c) && c > 0)) return fail('invalid-input', 'Every node needs its capacitor', 'supply');
+  const ladder = ladderOf(input, r);
+  if (!ladder.caps.every((c) => Number.isFinite(c) && c > 0)) return fail('invalid-input', 'Every node needs its capacitor', 'supply');
   const screens = Array.isArray(r.screenVolts) && r.screenVolts.length === stages.length ? r.screenVolts : stages.map(() => null);
   const placed = placedOnSupply(input.amplifier, r.bplus, screens);
   const prepared = prepareAmplifier(placed);
   if (!prepared.ok) return prepared;
   const ideal = networkOf(placed, prepared);
-  const ladder = ladderOf(input, r);
   const withSupply: ChainNetwork = { ...ideal, supply: ladder };
   const own = chainCorners(ideal);
   const built = chainCorners(withSupply);

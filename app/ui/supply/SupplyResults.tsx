@@ -102,7 +102,7 @@ export function SupplyResults() {
         <p className="field-hint">No ratings given to check the supply against (the winding's current, a hum budget).</p>
       )}
       <SupplyHumLine view={view} />
-      <p className={`supply-low-end${view.lowEnd?.ok && view.lowEnd.unstablePoles ? ' finding danger' : ''}`} data-testid="supply-low-end" role="status">
+      <p className={`supply-low-end${view.lowEnd?.ok && view.lowEnd.unstablePoles ? ' finding danger' : view.lowEnd?.ok && view.lowEnd.thinLoop ? ' finding warning' : ''}`} data-testid="supply-low-end" role="status">
         {lowEndWords(view) ?? 'Working out the low end on this supply…'}
       </p>
       <div className="supply-bplus">
