@@ -106,47 +106,94 @@ export class ChainSignal {
     return v;
   }
 
-  /** Which of stage i's limits a source peak reaches, at either polarity (null: neither). */
-  private limitAt(i: number, peak: number): ClipCause | null {
+  /**
+   * Which of stage i's limits a source peak reaches, at either polarity (null:
+   * neither; grid current named first where both are), and `margin`, how far
+   * past the nearest limit it is: ≥ 0 exactly where one is reached. Each
+   * limit's distance is taken over its own scale (the grid's distance from
+   * bias to its limit, the cutoff swing, the operating current) so the pieces
+   * meet in proportion: that sets how fast clipOf closes in, not where.
+   */
+  reachAt(i: number, peak: number): { margin: number; by: ClipCause | null } {
     const link = this.links[i]!;
-    let cause: ClipCause | null = null;
     const gridLimit = link.gridLimit ?? GRID_CURRENT_ONSET;
+    const gridScale = Math.abs(gridLimit - link.op.vgk) || 1;
+    let margin = -Infinity;
+    let cut = false;
     for (let sign = 1; sign >= -1; sign -= 2) {
       this.at(sign * peak, i);
       const s = this.samples[i]!;
-      if (s.vgk >= gridLimit) return 'grid-current';
+      const grid = (s.vgk - gridLimit) / gridScale;
       // A settled primary's cutoff is its own clean limit's, read on the grid's swing below bias.
-      const cut = link.cutoffSwing === undefined ? s.ia <= link.cutoffCurrent : link.cutoffSwing !== null && link.op.vgk - s.vgk >= link.cutoffSwing;
-      if (cut) cause = 'cutoff';
+      const cutoff = link.cutoffSwing === undefined
+        ? (link.cutoffCurrent - s.ia) / (Math.abs(link.op.ia) || 1)
+        : link.cutoffSwing === null ? -Infinity : (link.op.vgk - s.vgk - link.cutoffSwing) / (Math.abs(link.cutoffSwing) || 1);
+      margin = Math.max(margin, grid, cutoff);
+      if (s.vgk >= gridLimit) return { margin, by: 'grid-current' };
+      if (link.cutoffSwing === undefined ? s.ia <= link.cutoffCurrent : link.cutoffSwing !== null && link.op.vgk - s.vgk >= link.cutoffSwing) cut = true;
     }
-    return cause;
+    return { margin, by: cut ? 'cutoff' : null };
   }
 
   /**
    * The source peak at which stage i's swing ends, and by what; null if it
    * does not below MAX_SEARCH_PEAK. Either limit ends the swing, so one
    * search finds the first: a bracket grown by factors of 2 from `guess`
-   * (the small-signal estimate), then bisection to CLIP_REL_TOL.
+   * (the small-signal estimate), then closed to CLIP_REL_TOL by false
+   * position on the margin with Illinois's halving of a stale end (see
+   * numeric/illinois), each step kept a little inside the bracket so it
+   * closes from both sides; bisection where a margin is not a number.
    */
   clipOf(i: number, guess = 1e-3): { inputPeak: number; by: ClipCause } | null {
     let hi = Math.min(Math.max(guess, 1e-9), MAX_SEARCH_PEAK);
     let lo = 0;
-    if (this.limitAt(i, hi) !== null) {
-      while (hi > 1e-9 && this.limitAt(i, hi / 2) !== null) hi /= 2;
-      lo = hi / 2;
-    } else {
-      while (hi < MAX_SEARCH_PEAK && this.limitAt(i, hi) === null) {
-        lo = hi;
-        hi *= 2;
+    let atHi = this.reachAt(i, hi);
+    let fLo = NaN;
+    if (atHi.by !== null) {
+      for (;;) {
+        if (!(hi > 1e-9)) {
+          lo = hi / 2;
+          break;
+        }
+        const half = this.reachAt(i, hi / 2);
+        if (half.by === null) {
+          lo = hi / 2;
+          fLo = half.margin;
+          break;
+        }
+        hi /= 2;
+        atHi = half;
       }
-      if (this.limitAt(i, hi) === null) return null;
+    } else {
+      while (atHi.by === null) {
+        if (!(hi < MAX_SEARCH_PEAK)) return null;
+        lo = hi;
+        fLo = atHi.margin;
+        hi = Math.min(hi * 2, MAX_SEARCH_PEAK);
+        atHi = this.reachAt(i, hi);
+      }
     }
+    let fHi = atHi.margin;
+    let kept = 0;
     for (let k = 0; k < 60 && hi - lo > CLIP_REL_TOL * hi; k++) {
-      const mid = 0.5 * (lo + hi);
-      if (this.limitAt(i, mid) !== null) hi = mid;
-      else lo = mid;
+      const inset = 0.4 * CLIP_REL_TOL * hi;
+      const falsePosition = fHi > fLo ? (lo * fHi - hi * fLo) / (fHi - fLo) : NaN;
+      const x = Number.isFinite(falsePosition) ? Math.min(Math.max(falsePosition, lo + inset), hi - inset) : 0.5 * (lo + hi);
+      const at = this.reachAt(i, x);
+      if (at.by !== null) {
+        hi = x;
+        atHi = at;
+        fHi = at.margin;
+        if (kept === 1) fLo /= 2;
+        kept = 1;
+      } else {
+        lo = x;
+        fLo = at.margin;
+        if (kept === -1) fHi /= 2;
+        kept = -1;
+      }
     }
-    return { inputPeak: hi, by: this.limitAt(i, hi)! };
+    return { inputPeak: hi, by: atHi.by! };
   }
 
   /** Every stage's output for one source voltage, written into `into` (one pass through the chain). */

@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { findOutputTube, findTube, type ChainInput } from '../../src/index';
+import { CLIP_REL_TOL } from '../../src/chain/chainSwing';
+import { prepareAmplifier } from '../../src/chain/solveAmplifier';
+
+// Our own amplifiers, one for each way a stage's swing ends: a voltage stage into grid current, a direct-coupled
+// follower, a single-ended output stage (cutoff read on its settled swing) and a push-pull pair (cutoff at the instant).
+const ax7 = findTube('12AX7')!;
+const au7 = findTube('12AU7')!;
+const fourStages: ChainInput = {
+  source: { rsource: 1e3 },
+  stages: [
+    { kind: 'common-cathode', tube: ax7, bplus: 290, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    { kind: 'common-cathode', tube: au7, bplus: 290, ra: 33e3, rk: 3300, bypassed: false, coupling: { kind: 'capacitor', cc: 68e-9, rg: 470e3 } },
+    { kind: 'follower', tube: au7, bplus: 290, rk: 33e3, coupling: { kind: 'direct' } },
+    {
+      kind: 'single-ended-output', tube: findOutputTube('EL34')!, connection: 'ultralinear', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3300, rPrimary: 120,
+      bias: 'cathode', rk: 330, vg: -20, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 270e3 },
+    },
+  ],
+};
+const pushPull: ChainInput = {
+  source: { rsource: 600 },
+  stages: [
+    { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+    {
+      kind: 'push-pull-output', tube: findOutputTube('EL84')!, connection: 'ultralinear', bplus: 300, screenVolts: 300, ulTap: 0.4, raa: 8000, rPrimary: 240,
+      bias: 'cathode', rk: 130, vg: 0, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 },
+    },
+  ],
+};
+
+// A cold-biased 6SN7 with a light plate load: its plate current runs out before its grid reaches current.
+const coldStage: ChainInput = {
+  source: { rsource: 1e3 },
+  stages: [{ kind: 'common-cathode', tube: findTube('6SN7')!, bplus: 300, ra: 10e3, rk: 6800, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }],
+};
+
+describe("the search for each stage's clean limit", () => {
+  it.each([['four stages to a single-ended output', fourStages], ['a split-load splitter and a push-pull pair', pushPull], ['a cold stage that cuts off first', coldStage]])(
+    '%s: every stage stops at the first source peak where a limit is reached, to CLIP_REL_TOL, whatever the first guess',
+    (_name, chain) => {
+      const a = prepareAmplifier(chain);
+      if (!a.ok) throw new Error(a.message);
+      a.clips.forEach((clip, i) => {
+        if (!clip) return;
+        // By definition: reached at the answer, not reached a tolerance below it (each limit rises with the drive).
+        expect(a.signal.reachAt(i, clip.inputPeak).by, `stage ${i + 1} at its limit`).toBe(clip.by);
+        expect(a.signal.reachAt(i, clip.inputPeak * (1 - CLIP_REL_TOL)).by, `stage ${i + 1} just below`).toBeNull();
+        // A guess a hundred times off either way grows or shrinks a different bracket, and must land on the same peak.
+        for (const scale of [0.01, 100]) {
+          const again = a.signal.clipOf(i, clip.inputPeak * scale)!;
+          expect(again.by).toBe(clip.by);
+          expect(Math.abs(again.inputPeak / clip.inputPeak - 1), `stage ${i + 1}, guess × ${scale}`).toBeLessThanOrEqual(2 * CLIP_REL_TOL);
+        }
+      });
+      expect(a.clips.filter((c) => c).length, 'every stage reaches a limit').toBe(chain.stages.length);
+    },
+  );
+
+  it('finds cutoff as well as grid current', () => {
+    const a = prepareAmplifier(coldStage);
+    if (!a.ok) throw new Error(a.message);
+    expect(a.clips[0]!.by).toBe('cutoff');
+  });
+});
