@@ -95,7 +95,10 @@ function peakWithinClean(a: PreparedAmplifier, target: number): number {
   const fundamentalAt = (peak: number) => harmonicAmplitudes(a.signal.cycle(SEARCH_SAMPLES, peak, searchWave), 1)[1]!;
   let p0 = Math.min(target / Math.max(Math.abs(a.gain), 1e-12), cleanPeak);
   let f0 = fundamentalAt(p0) - target;
-  let p1 = p0 * (f0 > 0 ? 0.99 : 1.01);
+  // The second point from the small-signal slope (a Newton step on the gain), which the curvature alone keeps from the root.
+  const slope = Math.abs(a.gain);
+  let p1 = slope > 0 ? Math.min(Math.max(p0 - f0 / slope, 0), cleanPeak) : p0 * (f0 > 0 ? 0.99 : 1.01);
+  if (p1 === p0) p1 = p0 * (f0 > 0 ? 0.99 : 1.01);
   for (let k = 0; k < 40 && Math.abs(f0) > 1e-9 * target; k++) {
     const f1 = fundamentalAt(Math.min(p1, cleanPeak)) - target;
     const next = f1 === f0 ? p1 : p1 - (f1 * (p1 - p0)) / (f1 - f0);
