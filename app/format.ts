@@ -14,6 +14,8 @@ export const milliamps = (a: number) => `${Number((a * 1e3).toPrecision(3))} mA`
 /** Transconductance in mA/V (= millisiemens), as curve sheets print it. */
 export const mAPerV = (s: number) => `${Number((s * 1e3).toPrecision(3))} mA/V`;
 export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digits))).replace('-', '−');
+/** An angle in degrees to a tenth, with a true minus sign; what rounds to zero reads 0.0° (not −0.0°, nor a rounding residue such as 2.8e-14°). */
+export const degrees = (x: number) => `${(Math.abs(x) < 0.05 ? 0 : x).toFixed(1).replace('-', '−')}°`;
 /** Gain as a voltage ratio in decibels (20·log10). */
 export const decibels = (ratio: number) => dB(20 * Math.log10(Math.abs(ratio)));
 /** A level in dB to a tenth, negative with a true minus sign (as every other figure here). */

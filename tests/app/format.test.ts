@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { rmsLevel, voltsRms } from '../../app/format';
+import { degrees, rmsLevel, voltsRms } from '../../app/format';
 import { sineLevel } from '../../src/index';
 
 const levelOf = (rms: number) => sineLevel(rms * Math.SQRT2);
@@ -17,5 +17,14 @@ describe('a sine level as the bench reads it', () => {
     expect(rmsLevel(levelOf(7.29e-7), 'dBu')).toBe('0.729 µV rms (−120.5 dBu)');
     expect(voltsRms(4.2e-4)).toBe('0.42 mV rms');
     expect(voltsRms(8.22)).toBe('8.22 V rms');
+  });
+});
+
+describe('an angle as the bench reads it', () => {
+  it("reads a tenth of a degree with a true minus, and a balanced splitter's rounding residue as 0.0°, never an exponent", () => {
+    expect(degrees(-2.8e-14)).toBe('0.0°');
+    expect(degrees(-0.04)).toBe('0.0°');
+    expect(degrees(-3.26)).toBe('−3.3°');
+    expect(degrees(52.04)).toBe('52.0°');
   });
 });

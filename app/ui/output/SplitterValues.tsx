@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { milliamps, ohms, percentOf, plain, volts } from '../../format';
+import { degrees, milliamps, ohms, percentOf, plain, volts } from '../../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
 import { drivesPair } from '../../store/outputPlan';
@@ -86,7 +86,7 @@ export function SplitterValues() {
       ) : null}
       {driven && figures ? (
         <p className="field-hint" data-figure="splitter-balance">
-          {`Balance ${percentOf(figures.balance)} at midband; ${figures.balanceAt.filter((b) => b.hz === 20e3 || b.hz === 100e3).map((b) => `${percentOf(b.ratio)} and ${plain(b.phaseErrorDeg, 2)}° off at ${b.hz / 1e3} kHz`).join(', ')} (each output into a pair grid's ${ohms(rgPair)} and its Miller capacitance). Clean to ${volts(figures.inputPeak)} peak at its grid (${figures.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}).`}
+          {`Balance ${percentOf(figures.balance)} at midband; ${figures.balanceAt.filter((b) => b.hz === 20e3 || b.hz === 100e3).map((b) => `${percentOf(b.ratio)} and ${degrees(b.phaseErrorDeg)} off at ${b.hz / 1e3} kHz`).join(', ')} (each output into a pair grid's ${ohms(rgPair)} and its Miller capacitance). Clean to ${volts(figures.inputPeak)} peak at its grid (${figures.limitedBy === 'grid-current' ? 'grid current' : 'cutoff'}).`}
           {figures.tail ? ` Tail: ${milliamps(figures.tail.current)} at ${volts(figures.tail.volts)}.` : ''}
           {!ltp ? ' Unloaded, the plate\'s output impedance is near Ra and the cathode\'s a follower\'s: they differ greatly; equal loads keep the outputs balanced.' : ''}
         </p>
