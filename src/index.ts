@@ -68,7 +68,7 @@ export { feedbackBand, type FeedbackBand, type FeedbackDivider, type LoopMargins
 export { windingProblem, WINDING_LIMITS, type WindingInductance } from './output/windingInductance';
 export { solveAmplifier, stagesInPlaceProblem, MAX_CHAIN_STAGES } from './chain/solveAmplifier';
 export { STAGE_KINDS, STAGE_KIND_LABELS } from './chain/stageKinds';
-export type { ChainInput, ChainResult, ChainStage, StageKindName, StageResult, Coupling, CapacitorCoupling, DirectCoupling, CommonCathodeLink, FollowerLink, SingleEndedLink, SplitLoadLink, LongTailedPairLink, PushPullLink, ClipCause } from './chain/chainTypes';
+export type { ChainInput, ChainResult, ChainStage, StageKindName, StageResult, StagePins, Coupling, CapacitorCoupling, DirectCoupling, CommonCathodeLink, FollowerLink, SingleEndedLink, SplitLoadLink, LongTailedPairLink, PushPullLink, ClipCause } from './chain/chainTypes';
 export { sineLevel, decibelsOf, DB_FLOOR, NO_SIGNAL_VOLTS, DBU_REFERENCE_VOLTS, type Level } from './signal/levels';
 export { solvedStage, type SolvedStage } from './signal/analysisInput';
 export { stageTransfer, type StageTransfer, type TransferSample } from './signal/stageTransfer';

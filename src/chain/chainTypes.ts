@@ -151,12 +151,29 @@ export interface ChainInput {
 /** What ends a stage's clean swing. */
 export type ClipCause = 'grid-current' | 'cutoff';
 
+/**
+ * What a meter reads from chassis to each of a stage's electrodes at idle,
+ * V: the figures to check at first switch-on. The grid is the cathode plus
+ * the grid's bias; a screen (an output tube's) and a second plate (a
+ * long-tailed pair's) are null where the stage has none; a push-pull pair's
+ * are its first tube's.
+ */
+export interface StagePins {
+  readonly plate: number;
+  readonly cathode: number;
+  readonly grid: number;
+  readonly screen: number | null;
+  readonly plate2: number | null;
+}
+
 export interface StageResult {
   readonly kind: StageKindName;
   /** DC operating point: plate and cathode to ground, plate current, grid to cathode (V, V, A, V). */
   readonly op: { readonly va: number; readonly vk: number; readonly ia: number; readonly vgk: number };
   /** DC voltage of the stage's output (plate, or cathode for a follower), V: what a direct-coupled grid after it sits at. */
   readonly outputDc: number;
+  /** Each electrode's DC voltage to ground at idle (the figures a meter checks). */
+  readonly pins: StagePins;
   /** DC current drawn from the stage's B+ node, A. */
   readonly supplyCurrent: number;
   /** An output stage's average current driven to its own clean limit, A (the supply's full-power load). */
