@@ -16,6 +16,8 @@ export const mAPerV = (s: number) => `${Number((s * 1e3).toPrecision(3))} mA/V`;
 export const plain = (x: number, digits = 3) => String(Number(x.toPrecision(digits))).replace('-', '−');
 /** An angle in degrees to a tenth, with a true minus sign; what rounds to zero reads 0.0° (not −0.0°, nor a rounding residue such as 2.8e-14°). */
 export const degrees = (x: number) => `${(Math.abs(x) < 0.05 ? 0 : x).toFixed(1).replace('-', '−')}°`;
+/** A DC voltage as a meter reads it: a grid a few millivolts off ground reads 0 V. */
+export const meterVolts = (v: number) => (Math.abs(v) < 0.005 ? '0 V' : volts(v));
 /** Gain as a voltage ratio in decibels (20·log10). */
 export const decibels = (ratio: number) => dB(20 * Math.log10(Math.abs(ratio)));
 /** A level in dB to a tenth, negative with a true minus sign (as every other figure here). */

@@ -1,13 +1,14 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
 import { marginWords } from '../ui/targets/marginWords';
 import { targetWithValue } from '../ui/targets/targetValue';
-import { dB, decibels, farads, mAPerV, milliamps, ohms, plain, rmsLevel, volts, watts, voltsRms } from '../format';
+import { dB, decibels, farads, mAPerV, meterVolts, milliamps, ohms, plain, rmsLevel, volts, watts, voltsRms } from '../format';
 import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
 import { AMPLIFIER_COMPARE_ROWS } from '../ui/panels/AmplifierCompare';
 import type { AmplifierView } from '../store/amplifierChain';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import { tubesToOrderLine } from '../store/tubesToOrder';
+import { IDLE_VOLTAGES_WORDS, idleVoltagesOf } from '../store/idleVoltages';
 import { feedbackPartLine } from '../ui/chain/feedbackPart';
 import { feedbackBrief } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -32,7 +33,20 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   const supplyParts = supplyPartLines(s);
   // The tubes once for the whole design, whichever bench the card is made from (no stage's section repeats them).
   const tubes = { heading: 'Tubes to order', lines: [tubesToOrderLine(s)] };
-  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : [])];
+  const idle = idleVoltageSection(s);
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(idle ? [idle] : [])];
+}
+
+/** Each stage's electrode voltages at idle, chassis to each: the figures to check at first switch-on. */
+function idleVoltageSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
+  const idle = idleVoltagesOf(s);
+  if (!idle) return null;
+  const lines = idle.rows.map((r) => {
+    const plate = r.pins.plate2 === null ? `plate ${meterVolts(r.pins.plate)}` : `plates ${meterVolts(r.pins.plate)} and ${meterVolts(r.pins.plate2)}`;
+    const screen = r.pins.screen === null ? '' : `, screen ${meterVolts(r.pins.screen)}`;
+    return `${r.name}${r.eachTube ? ' (each tube)' : ''}: B+ ${meterVolts(r.bplus)}, ${plate}, cathode ${meterVolts(r.pins.cathode)}, grid ${meterVolts(r.pins.grid)}${screen}; Ia ${milliamps(r.ia)}`;
+  });
+  return { heading: 'Voltages to check at first switch-on', lines: [...lines, IDLE_VOLTAGES_WORDS] };
 }
 
 /** The builder's targets, each with how the stage on the bench meets it. */

@@ -22,7 +22,7 @@ describe('the output stage on screen', () => {
     act(() => store.getState().setStageKind('output'));
     const sheet = within(screen.getByRole('region', { name: 'Parts to order' }));
     // The demo: two gain stages driving the EL34; each stage's parts under its own heading, the output stage's last.
-    expect(sheet.getAllByRole('heading', { level: 3 }).map((h) => h.textContent)).toEqual(['Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage', 'Output stage, EL34 (on the bench)']);
+    expect(sheet.getAllByRole('heading', { level: 3 }).map((h) => h.textContent)).toEqual(['Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage', 'Output stage, EL34 (on the bench)', 'Voltages to check at first switch-on']);
     expect(sheet.getByRole('rowheader', { name: /^Ra1 / })).toBeTruthy();
     expect(sheet.getByRole('rowheader', { name: /^Cout / })).toBeTruthy();
     // Apart, the output stage is the whole design on this bench: its parts alone.

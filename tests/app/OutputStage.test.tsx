@@ -131,10 +131,10 @@ describe('the build card for an output stage', () => {
     const sections = cardSections(store.getState());
     const text = sections.map((s) => `${s.heading}\n${s.lines.join('\n')}`).join('\n');
     // The demo's stages are joined, so the card opens with the whole amplifier and ends with the parts of the voltage stages driving it,
-    // then the tubes for the whole design.
+    // then the tubes for the whole design, and last every stage's voltages to check at first switch-on.
     expect(sections.map((s) => s.heading)).toEqual([
       'Amplifier', 'Output stage', 'Operating point', 'Power and distortion', 'Ratings, every stage', 'Parts to order', 'Compared: EL34 against KT88 (same parts)',
-      'Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage', 'Tubes to order',
+      'Stage 1, 12AX7 gain stage', 'Stage 2, 12AU7 gain stage', 'Tubes to order', 'Voltages to check at first switch-on',
     ]);
     expect(text).toMatch(/Tubes to order\nTubes: 1 × 12AX7 \(1 of 2 sections used\), 1 × 12AU7 \(1 of 2 sections used\), 1 × EL34$/m);
     expect(text).toMatch(/Output transformer: 3\.5 kΩ to 8 Ω/);

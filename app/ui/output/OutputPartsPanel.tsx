@@ -9,6 +9,7 @@ import { PartsTables } from '../panels/PartsTables';
 import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
 import { StagesParts } from '../panels/StagesParts';
+import { IdleVoltages } from '../panels/IdleVoltages';
 import { TubesToOrder } from '../panels/TubesToOrder';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
 
@@ -29,6 +30,7 @@ export function OutputPartsPanel() {
       ) : null}
       <OutputPartsLines />
       <SupplyPartsList />
+      {driven ? <IdleVoltages /> : null}
     </section>
   );
 }

@@ -6,6 +6,7 @@ import { HeaterSection } from './HeaterSection';
 import { TubesToOrder } from './TubesToOrder';
 import { feedbackPartLine } from '../chain/feedbackPart';
 import { StagesParts } from './StagesParts';
+import { IdleVoltages } from './IdleVoltages';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
 
@@ -52,6 +53,7 @@ export function BuildSheetPanel() {
       ) : null}
       {feedbackPart ? <p data-testid="feedback-part">{feedbackPart}</p> : null}
       <SupplyPartsList />
+      <IdleVoltages />
       <h3 className="subhead corner-head">Capacitors for a wanted low corner, the bench's stage</h3>
       <div className="option-row">
         <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />

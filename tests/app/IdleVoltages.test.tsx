@@ -1,0 +1,34 @@
+import { render, screen, within } from '@testing-library/react';
+import { act } from 'react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { cardSections } from '../../app/export/buildCard';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+describe('the voltages to check at first switch-on', () => {
+  it("list every stage of the demo with its electrodes' voltages to chassis, as the solved amplifier has them, on the sheet and the card", () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    const table = screen.getByRole('table', { name: 'Voltages to check at first switch-on' });
+    const rows = within(table).getAllByRole('row').slice(1);
+    expect(rows.map((r) => within(r).getByRole('rowheader').textContent)).toEqual(['Stage 1 · 12AX7', 'Stage 2 · 12AU7', 'Output · EL34']);
+    // Stage 2 is the bench's: the same plate and cathode its figures show (Va 152 V, Vk 5.45 V at Ia 4.54 mA); its grid on its leak reads 0 V.
+    const cells = (r: HTMLElement) => within(r).getAllByRole('cell').map((c) => c.textContent);
+    expect(cells(rows[1]!)).toEqual(['275 V', '152 V', '5.45 V', '0 V', '—', '4.54 mA']);
+    // The ultralinear EL34's screens sit on the taps: at its B+ at DC.
+    expect(cells(rows[2]!)[0]).toBe('330 V');
+    expect(cells(rows[2]!)[4]).toBe('330 V');
+    const card = cardSections(store.getState()).find((c) => c.heading === 'Voltages to check at first switch-on')!;
+    expect(card.lines[1]).toBe('Stage 2 · 12AU7: B+ 275 V, plate 152 V, cathode 5.45 V, grid 0 V; Ia 4.54 mA');
+    expect(card.lines.at(-1)).toMatch(/common practice/);
+  });
+
+  it('with the output stage apart, list the voltage stages and say where the output stage went', () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => store.getState().setDrivesOutput(false));
+    const table = screen.getByRole('table', { name: 'Voltages to check at first switch-on' });
+    expect(within(table).getAllByRole('row')).toHaveLength(3);
+    expect(screen.getByText(/The output stage is apart from the voltage stages/)).toBeTruthy();
+  });
+});
