@@ -150,6 +150,9 @@ describe.runIf(run)('whole amplifiers agree with ngspice', () => {
       // The B+ source feeds the plate; an ultralinear screen draws from it too.
       const fromSupply = stage.kind === 'single-ended-output' ? s.op.vk / stage.rk : s.op.ia;
       expectClose(fromSupply, -sim[`i(${nodes.supply(i)})`]!, { rel: 0.005 }, `stage ${i + 1} supply current`);
+      // What a meter reads at first switch-on: a capacitor-coupled grid on its leak, an ultralinear screen on its tap.
+      if (stage.coupling.kind === 'capacitor') expectClose(s.pins.grid, sim[`v(g${i})`]!, { rel: 0.005, abs: 2e-3 }, `stage ${i + 1} grid to chassis`);
+      if (stage.kind === 'single-ended-output' && stage.connection !== 'triode') expectClose(s.pins.screen!, sim[`v(${stage.connection === 'ultralinear' ? 'tap' : 'screen'})`]!, { rel: 0.005 }, `stage ${i + 1} screen to chassis`);
     });
     expectClose(Math.abs(ours.gain), Math.hypot(sim['vr(out)']!, sim['vi(out)']!), { rel: 0.01 }, 'gain at 1 kHz');
 

@@ -54,6 +54,13 @@ function windingOf(s: { readonly primaryInductance?: number | null; readonly lea
 export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'noise' } | { readonly kind: 'kick'; readonly seconds: number } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
 
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
+/** The operating point's other electrodes a meter reads: a capacitor-coupled grid (on its leak) and a single-ended output's screen (its tap, or its own supply). */
+function opExtras(s: ChainStage, i: number): string {
+  const grid = s.coupling.kind === 'capacitor' ? ` v(g${i})` : '';
+  const screen = s.kind === 'single-ended-output' && s.tube.law.kind === 'pentode' && s.connection !== 'triode' ? ` v(${s.connection === 'ultralinear' ? 'tap' : 'screen'})` : '';
+  return grid + screen;
+}
+
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
 
 function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle?: { readonly lp: number }): { lines: string[]; output: string; output2?: string } {
@@ -232,7 +239,7 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
   lines.push(`EOUT ${nodes.output} 0 ${c.load ? 'lo' : input} 0 1`);
   const control =
     analysis.kind === 'op-ac'
-      ? ['op', `print ${c.stages.map((_, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']
+      ? ['op', `print ${c.stages.map((st, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})${opExtras(st, i)}`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']
       : analysis.kind === 'sweep'
         ? ['ac dec 50 0.01 1e8', 'wrdata {data} vm(out)']
         : analysis.kind === 'noise'
