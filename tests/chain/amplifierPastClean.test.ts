@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { amplifierAtLevel, distortion, findOutputTube, findTube, solveChain, type ChainInput } from '../../src/index';
+import { amplifierAtLevel, distortion, findTube, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { SPLIT_LOAD_EL84_PAIR } from '../helpers/pushPullAmplifier';
 
 // Our own designs. The one-stage amplifier is the single stage the grid-current checks hold against ngspice
 // (tests/spice/gridCurrent.spice.test.ts: a 12AX7 from a 100k source); the chain must give the same figures.
@@ -20,17 +21,7 @@ const threeStages: ChainInput = {
   ],
   load: { rl: 100e3 },
 };
-const pushPull: ChainInput = {
-  source: { rsource: 600 },
-  stages: [
-    { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
-    { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
-    {
-      kind: 'push-pull-output', tube: findOutputTube('EL84')!, connection: 'ultralinear', bplus: 300, screenVolts: 300, ulTap: 0.4, raa: 8000, rPrimary: 240,
-      bias: 'cathode', rk: 130, vg: 0, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 },
-    },
-  ],
-};
+const pushPull = SPLIT_LOAD_EL84_PAIR;
 
 const clean = (c: ChainInput) => {
   const r = solveChain(c);

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, type ChainInput } from '../../src/index';
 import { CLIP_REL_TOL } from '../../src/chain/chainSwing';
 import { prepareAmplifier } from '../../src/chain/solveAmplifier';
+import { SPLIT_LOAD_EL84_PAIR } from '../helpers/pushPullAmplifier';
 
 // Our own amplifiers, one for each way a stage's swing ends: a voltage stage into grid current, a direct-coupled
 // follower, a single-ended output stage (cutoff read on its settled swing) and a push-pull pair (cutoff at the instant).
@@ -19,17 +20,7 @@ const fourStages: ChainInput = {
     },
   ],
 };
-const pushPull: ChainInput = {
-  source: { rsource: 600 },
-  stages: [
-    { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 100e3, rk: 1500, bypassed: true, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
-    { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
-    {
-      kind: 'push-pull-output', tube: findOutputTube('EL84')!, connection: 'ultralinear', bplus: 300, screenVolts: 300, ulTap: 0.4, raa: 8000, rPrimary: 240,
-      bias: 'cathode', rk: 130, vg: 0, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 470e3 },
-    },
-  ],
-};
+const pushPull = SPLIT_LOAD_EL84_PAIR;
 
 // A cold-biased 6SN7 with a light plate load: its plate current runs out before its grid reaches current.
 const coldStage: ChainInput = {
