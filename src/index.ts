@@ -90,6 +90,7 @@ export { CONNECTIONS, connectionsOf, type Connection, type OutputTube, type Outp
 export { outputTubeLibrary, findOutputTube } from './output/library/index';
 export { OUTPUT_LIMITS, type OutputDesign } from './output/outputDesign';
 export { solveOutput, OUTPUT_CUTOFF_A, type OutputSolution, type OutputPoint } from './output/solveOutput';
+export { singleEndedPins, pushPullPins } from './output/outputPins';
 export { OUTPUT_SAMPLES, CUTOFF_SHARE, type DriveResult, type CleanLimit, type Waveform } from './output/outputSignal';
 export { type LimitedPower, type ZSweep } from './output/powerSweep';
 export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimarySweep, switchBias } from './output/outputCalls';

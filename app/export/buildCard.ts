@@ -8,7 +8,7 @@ import type { AmplifierView } from '../store/amplifierChain';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import { tubesToOrderLine } from '../store/tubesToOrder';
-import { IDLE_VOLTAGES_WORDS, idleVoltagesOf } from '../store/idleVoltages';
+import { IDLE_VOLTAGES_WORDS, idleRowsFor, idleVoltagesOf } from '../store/idleVoltages';
 import { feedbackPartLine } from '../ui/chain/feedbackPart';
 import { feedbackBrief } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -41,7 +41,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
 function idleVoltageSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
   const idle = idleVoltagesOf(s);
   if (!idle) return null;
-  const lines = idle.rows.map((r) => {
+  const lines = idleRowsFor(idle, s.design.stageKind === 'output').map((r) => {
     const plate = r.pins.plate2 === null ? `plate ${meterVolts(r.pins.plate)}` : `plates ${meterVolts(r.pins.plate)} and ${meterVolts(r.pins.plate2)}`;
     const screen = r.pins.screen === null ? '' : `, screen ${meterVolts(r.pins.screen)}`;
     return `${r.name}${r.eachTube ? ' (each tube)' : ''}: B+ ${meterVolts(r.bplus)}, ${plate}, cathode ${meterVolts(r.pins.cathode)}, grid ${meterVolts(r.pins.grid)}${screen}; Ia ${milliamps(r.ia)}`;

@@ -1,4 +1,4 @@
-import type { StagePins } from '../../src/index';
+import { pushPullPins, singleEndedPins, type StagePins } from '../../src/index';
 import type { WorkbenchState } from './workbenchStore';
 
 /** One stage's row of DC voltages to check at first switch-on, as the solved amplifier gives them. */
@@ -14,23 +14,37 @@ export interface IdleVoltageRow {
 }
 
 export interface IdleVoltages {
+  /** The amplifier's stages in chain order: the voltage stages, and the output stage when they drive it. */
   readonly rows: readonly IdleVoltageRow[];
-  /** The output stage is apart from the voltage stages (not driven): its figures are on its own bench, not here. */
-  readonly outputApart: boolean;
+  /** The output stage apart from the voltage stages (not driven): its own bench's design, listed with its own parts; null when driven. */
+  readonly apartOutput: IdleVoltageRow | null;
 }
 
-const memo = new WeakMap<object, IdleVoltages>();
+const memo = new WeakMap<object, { outputBench: WorkbenchState['outputBench']; drives: boolean; idle: IdleVoltages }>();
+
+/** The output stage on its own bench, apart from the voltage stages: its row from its own analysis. */
+function apartOutputRow(s: WorkbenchState): IdleVoltageRow {
+  const b = s.outputBench;
+  const name = `Output · ${s.design.output.tubeId}`;
+  if (b.pair === 'push-pull') {
+    return { name, bplus: s.design.output.bplus, pins: pushPullPins(b.settled.solution), ia: b.settled.solution.idle[0].ip, eachTube: true };
+  }
+  return { name, bplus: s.design.output.bplus, pins: singleEndedPins(b.settled.solution.op), ia: b.settled.solution.op.ip, eachTube: false };
+}
 
 /**
  * Every stage's electrode voltages at idle, chassis to each, in chain
  * order: what a builder's meter should read at first switch-on, with the
  * B+ the stage was designed for. Null when the amplifier does not solve.
+ * Like the parts lists, an output stage apart from the voltage stages is
+ * listed on its own bench (`apartOutput`), not with them.
  */
 export function idleVoltagesOf(s: WorkbenchState): IdleVoltages | null {
   const view = s.amplifier;
   if (!view?.result.ok) return null;
+  const drives = s.design.drivesOutput;
   const cached = memo.get(view);
-  if (cached) return cached;
+  if (cached && cached.drives === drives && (drives || cached.outputBench === s.outputBench)) return cached.idle;
   const r = view.result;
   const rows = r.stages.map((st, i) => ({
     name: `${view.names[i]!.title} · ${view.names[i]!.tube}`,
@@ -39,9 +53,14 @@ export function idleVoltagesOf(s: WorkbenchState): IdleVoltages | null {
     ia: st.op.ia,
     eachTube: st.kind === 'push-pull-output',
   }));
-  const out = { rows, outputApart: !s.design.drivesOutput };
-  memo.set(view, out);
+  const out = { rows, apartOutput: drives ? null : apartOutputRow(s) };
+  memo.set(view, { outputBench: s.outputBench, drives, idle: out });
   return out;
+}
+
+/** The rows a bench lists: the output bench with the stages apart lists its own stage alone; every other, the amplifier's. */
+export function idleRowsFor(idle: IdleVoltages, outputBench: boolean): readonly IdleVoltageRow[] {
+  return outputBench && idle.apartOutput ? [idle.apartOutput] : idle.rows;
 }
 
 /** The rule of thumb beside the figures (common practice), on the page and on the card. */

@@ -1,4 +1,5 @@
-import { emptyCurrents, screenVoltage, stageCurrentsInto } from '../output/electrodes';
+import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
+import { pushPullPins } from '../output/outputPins';
 import { SWEEP_SAMPLES } from '../output/outputSignal';
 import { linearWinding } from '../output/windingInductance';
 import { checkPushPull, type PushPullDesign } from '../pushpull/pushPullDesign';
@@ -76,7 +77,7 @@ export const pushPullKind: StageKind<PushPullLink> = {
     return {
       ok: true,
       op: { va: solved.idle[0].vpk + solved.vk, vk: solved.vk, ia: solved.idle[0].ip, vgk },
-      pins: { screen: solved.vk + screenVoltage(solved.feed, solved.idle[0].vpk, 0) },
+      pins: { screen: pushPullPins(solved).screen! },
       supplyCurrent: solved.supplyCurrent,
       // A pentode pair's screens, at idle and averaged with the grids driven to 0 V.
       ...(solved.feed.kind === 'fixed' ? { screenCurrent: solved.idle[0].ig2 + solved.idle[1].ig2, fullPowerScreenCurrent: screensAtDrive(solved, full) ?? solved.idle[0].ig2 + solved.idle[1].ig2 } : {}),

@@ -4,7 +4,8 @@ import { cleanLimit, CUTOFF_SHARE, SETTLE_TOL, solveInstant, SWEEP_SAMPLES, type
 import type { OutputDesign } from '../output/outputDesign';
 import { linearWinding } from '../output/windingInductance';
 import { solveOutput, type OutputSolution } from '../output/solveOutput';
-import { emptyCurrents, screenVoltage, stageCurrentsInto } from '../output/electrodes';
+import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
+import { singleEndedPins } from '../output/outputPins';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { classA1GridCurrent, POWER_GRID_RESISTANCE } from '../tube/gridCurrent';
 import type { SingleEndedLink } from './chainTypes';
@@ -79,8 +80,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
     return {
       ok: true,
       op: { va: op.vpk + op.vk, vk: op.vk, ia: op.ip, vgk: op.vgk },
-      // At DC the winding drops nothing: a tap sits at the supply, a tied screen at the plate.
-      pins: { screen: op.vk + screenVoltage(op.feed, op.vpk, 0) },
+      pins: { screen: singleEndedPins(op).screen! },
       supplyCurrent: op.ik,
       // The cathode's average at the clean limit: the plate's shifts under drive (the law's curvature rectifies), and a
       // screen's rises as the plate swings low.

@@ -23,12 +23,25 @@ describe('the voltages to check at first switch-on', () => {
     expect(card.lines.at(-1)).toMatch(/common practice/);
   });
 
-  it('with the output stage apart, list the voltage stages and say where the output stage went', () => {
+  it('with the output stage apart, list the voltage stages here and the output stage with its own parts, each bench its own, as the parts lists do', () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);
     act(() => store.getState().setDrivesOutput(false));
-    const table = screen.getByRole('table', { name: 'Voltages to check at first switch-on' });
-    expect(within(table).getAllByRole('row')).toHaveLength(3);
+    const heads = () => within(screen.getByRole('table', { name: 'Voltages to check at first switch-on' })).getAllByRole('rowheader').map((h) => h.textContent);
+    expect(heads()).toEqual(['Stage 1 · 12AX7', 'Stage 2 · 12AU7']);
     expect(screen.getByText(/The output stage is apart from the voltage stages/)).toBeTruthy();
+    const cardHeads = () => cardSections(store.getState()).find((c) => c.heading === 'Voltages to check at first switch-on')!.lines.slice(0, -1).map((l) => l.split(':')[0]);
+    expect(cardHeads()).toEqual(['Stage 1 · 12AX7', 'Stage 2 · 12AU7']);
+    // On the output bench: its own row, from its own analysis (the cathode its figures show).
+    act(() => store.getState().setStageKind('output'));
+    expect(heads()).toEqual(['Output · EL34']);
+    expect(cardHeads()).toEqual(['Output · EL34']);
+    const op = store.getState().outputBench;
+    if (op.pair !== 'single-ended') throw new Error('the demo is single-ended');
+    const row = within(screen.getByRole('table', { name: 'Voltages to check at first switch-on' })).getAllByRole('row')[1]!;
+    expect(within(row).getAllByRole('cell').map((c) => c.textContent)[2]).toBe(`${op.settled.solution.op.vk.toPrecision(3)} V`);
+    // A pair on its own bench: each tube's row.
+    act(() => store.getState().setOutputPair('push-pull'));
+    expect(heads()).toEqual(['Output · EL34 (each tube)']);
   });
 });

@@ -27,7 +27,9 @@ describe('the output stage on screen', () => {
     expect(sheet.getByRole('rowheader', { name: /^Cout / })).toBeTruthy();
     // Apart, the output stage is the whole design on this bench: its parts alone.
     act(() => store.getState().setDrivesOutput(false));
-    expect(sheet.queryAllByRole('heading', { level: 3 })).toHaveLength(0);
+    expect(sheet.queryAllByRole('heading', { level: 3 }).map((h) => h.textContent)).toEqual(['Voltages to check at first switch-on']);
     expect(sheet.queryByRole('rowheader', { name: /^Ra1 / })).toBeNull();
+    // Its switch-on voltages too: its own row alone.
+    expect(within(sheet.getByRole('table', { name: 'Voltages to check at first switch-on' })).getAllByRole('rowheader').map((h) => h.textContent)).toEqual(['Output · EL34']);
   });
 });

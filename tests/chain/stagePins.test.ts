@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findOutputTube, findTube, solveChain, type ChainInput, type ChainStage, type PushPullLink } from '../../src/index';
+import { findOutputTube, findTube, pushPullPins, singleEndedPins, solveChain, solveOutput, solvePushPull, type ChainInput, type ChainStage, type PushPullLink } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 // Our own amplifiers. The checks are Ohm's law on each stage's own resistors and what a wire or a winding at DC
@@ -67,5 +67,17 @@ describe("each stage's DC voltages to chassis at idle", () => {
     expectClose(pp.pins.cathode, 0, { abs: 1e-12 }, 'cathodes grounded');
     expectClose(pp.pins.screen!, 300, { rel: 1e-9 }, 'screens on the taps: at the centre tap at DC');
     expectClose(pp.pins.plate, 300 - 120 * pp.op.ia, { rel: 1e-6 }, 'each plate below the centre tap by its half of the primary');
+  });
+
+  it('an output stage on its own bench reads as it does at the end of the amplifier (one calculation for both)', () => {
+    const se = singleEnded('ultralinear') as Extract<ChainStage, { kind: 'single-ended-output' }>;
+    const inChain = solved({ source: { rsource: 1e3 }, stages: [input, se] }).stages[1]!.pins;
+    const alone = solveOutput(el34, { ...se, tubeId: 'EL34', rg: 270e3 });
+    if (!alone.ok) throw new Error(alone.message);
+    expect(singleEndedPins(alone.op)).toEqual(inChain);
+    const inChainPair = solved({ source: { rsource: 600 }, stages: [input, ltpStage, pair] }).stages[2]!.pins;
+    const pairAlone = solvePushPull(findOutputTube('EL84')!, { ...pair, tubeId: 'EL84', rg: 220e3 });
+    if (!pairAlone.ok) throw new Error(pairAlone.message);
+    expect(pushPullPins(pairAlone)).toEqual(inChainPair);
   });
 });

@@ -121,6 +121,8 @@ describe('every helper: no throw, no NaN or ±Infinity in an ok result', () => {
   run('zPrimaryThrough', fc.tuple(solvedOutputs, finiteNumbers, finiteNumbers), Q.zPrimaryThrough);
   run('outputPartsList', fc.tuple(outputAnalyses, series), Q.outputPartsList, 100);
   run('pushPullPartsList', fc.tuple(pairAnalyses, series), Q.pushPullPartsList, 60);
+  run('singleEndedPins', fc.tuple(solvedOutputs), (s: Q.OutputSolution) => Q.singleEndedPins(s.op));
+  run('pushPullPins', fc.tuple(pairAnalyses), (a: Q.PushPullAnalysis) => Q.pushPullPins(a.solution), 60);
 
   // The amplifier and its supply.
   run('stagesInPlaceProblem', fc.tuple(fc.oneof(near(chainInput), anything)), Q.stagesInPlaceProblem, 60);

@@ -30,7 +30,7 @@ export function OutputPartsPanel() {
       ) : null}
       <OutputPartsLines />
       <SupplyPartsList />
-      {driven ? <IdleVoltages /> : null}
+      <IdleVoltages outputAlone />
     </section>
   );
 }

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { meterVolts, milliamps } from '../../format';
-import { IDLE_VOLTAGES_WORDS, idleVoltagesOf } from '../../store/idleVoltages';
+import { IDLE_VOLTAGES_WORDS, idleRowsFor, idleVoltagesOf } from '../../store/idleVoltages';
 import { useWorkbench } from '../../store/StoreProvider';
 
 /**
@@ -8,11 +8,12 @@ import { useWorkbench } from '../../store/StoreProvider';
  * cathode, grid and screen to chassis at idle, and its plate current, from
  * the solved amplifier (the model's figures; this only lays them out).
  */
-export function IdleVoltages() {
+export function IdleVoltages({ outputAlone = false }: { readonly outputAlone?: boolean }) {
   const idle = useWorkbench(idleVoltagesOf);
   const id = useId();
   if (!idle) return null;
-  const anyScreen = idle.rows.some((r) => r.pins.screen !== null);
+  const rows = idleRowsFor(idle, outputAlone);
+  const anyScreen = rows.some((r) => r.pins.screen !== null);
   return (
     <div className="idle-voltages">
       <h3 className="subhead" id={`${id}-h`}>Voltages to check at first switch-on</h3>
@@ -29,7 +30,7 @@ export function IdleVoltages() {
           </tr>
         </thead>
         <tbody>
-          {idle.rows.map((r) => (
+          {rows.map((r) => (
             <tr key={r.name}>
               <th scope="row">{`${r.name}${r.eachTube ? ' (each tube)' : ''}`}</th>
               <td>{meterVolts(r.bplus)}</td>
@@ -42,7 +43,7 @@ export function IdleVoltages() {
           ))}
         </tbody>
       </table>
-      <p className="field-hint">{`${IDLE_VOLTAGES_WORDS}${idle.outputApart ? ' The output stage is apart from the voltage stages: tick “The voltage stages drive the output stage” to list it here.' : ''}`}</p>
+      <p className="field-hint">{`${IDLE_VOLTAGES_WORDS}${idle.apartOutput && !outputAlone ? ' The output stage is apart from the voltage stages (the strip\'s box): its voltages are with its own parts.' : ''}`}</p>
     </div>
   );
 }
