@@ -44,7 +44,7 @@ function idleVoltageSection(s: WorkbenchState): { heading: string; lines: string
   const lines = idleRowsFor(idle, s.design.stageKind === 'output').map((r) => {
     const plate = r.pins.plate2 === null ? `plate ${meterVolts(r.pins.plate)}` : `plates ${meterVolts(r.pins.plate)} and ${meterVolts(r.pins.plate2)}`;
     const screen = r.pins.screen === null ? '' : `, screen ${meterVolts(r.pins.screen)}`;
-    return `${r.name}${r.eachTube ? ' (each tube)' : ''}: B+ ${meterVolts(r.bplus)}, ${plate}, cathode ${meterVolts(r.pins.cathode)}, grid ${meterVolts(r.pins.grid)}${screen}; Ia ${milliamps(r.ia)}`;
+    return `${r.name}${r.eachTube ? ' (each tube)' : ''}: B+ ${meterVolts(r.bplus)}, ${plate}, cathode ${meterVolts(r.pins.cathode)}, grid ${meterVolts(r.pins.grid)}${screen}; Ia ${milliamps(r.ia)}${r.pins.plate2Current === null ? '' : ` and ${milliamps(r.pins.plate2Current)}`}`;
   });
   return { heading: 'Voltages to check at first switch-on', lines: [...lines, IDLE_VOLTAGES_WORDS] };
 }

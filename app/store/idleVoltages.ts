@@ -7,7 +7,7 @@ export interface IdleVoltageRow {
   readonly name: string;
   readonly bplus: number;
   readonly pins: StagePins;
-  /** Plate current, A (a pair's and a long-tailed pair's first tube's). */
+  /** Plate current, A (a push-pull pair's first tube's; a long-tailed pair's first triode's, its second's in `pins`). */
   readonly ia: number;
   /** A push-pull pair: the figures are each tube's. */
   readonly eachTube: boolean;

@@ -155,8 +155,8 @@ export type ClipCause = 'grid-current' | 'cutoff';
  * What a meter reads from chassis to each of a stage's electrodes at idle,
  * V: the figures to check at first switch-on. The grid is the cathode plus
  * the grid's bias; a screen (an output tube's) and a second plate (a
- * long-tailed pair's) are null where the stage has none; a push-pull pair's
- * are its first tube's.
+ * long-tailed pair's, with its current) are null where the stage has none;
+ * a push-pull pair's are its first tube's.
  */
 export interface StagePins {
   readonly plate: number;
@@ -164,6 +164,8 @@ export interface StagePins {
   readonly grid: number;
   readonly screen: number | null;
   readonly plate2: number | null;
+  /** The second plate's current, A (a long-tailed pair's second triode); null where there is none. */
+  readonly plate2Current: number | null;
 }
 
 export interface StageResult {

@@ -104,7 +104,7 @@ export const longTailedPairKind: StageKind<LongTailedPairLink> = {
     return {
       ok: true,
       op: { va: o1.va, vk: o1.vk, ia: o1.ia, vgk: o1.vgk },
-      pins: { plate2: o2.va },
+      pins: { plate2: o2.va, plate2Current: o2.ia },
       supplyCurrent: sum0,
       outputDc: o1.va,
       gain: r.gain1,

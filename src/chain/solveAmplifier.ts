@@ -44,7 +44,7 @@ export function amplifierOf(input: ChainInput, a: Result<PreparedAmplifier>, lev
     kind: stages[i]!.kind,
     op: l.op,
     outputDc: l.outputDc,
-    pins: { plate: l.op.va, cathode: l.op.vk, grid: l.op.vk + l.op.vgk, screen: l.pins?.screen ?? null, plate2: l.pins?.plate2 ?? null },
+    pins: { plate: l.op.va, cathode: l.op.vk, grid: l.op.vk + l.op.vgk, screen: l.pins?.screen ?? null, plate2: l.pins?.plate2 ?? null, plate2Current: l.pins?.plate2Current ?? null },
     supplyCurrent: l.supplyCurrent,
     ...(l.fullPowerCurrent !== undefined ? { fullPowerCurrent: l.fullPowerCurrent } : {}),
     gain: a.gains[i]!,

@@ -101,8 +101,8 @@ export interface SolvedLink {
   readonly outputDc: number;
   /** DC current the stage draws from its supply, A (an output stage's screens included). */
   readonly supplyCurrent: number;
-  /** DC voltages to ground at idle beyond the op's plate, cathode and grid, V: an output tube's screen, a long-tailed pair's second plate. */
-  readonly pins?: { readonly screen?: number; readonly plate2?: number };
+  /** DC voltages to ground at idle beyond the op's plate, cathode and grid, V: an output tube's screen, a long-tailed pair's second plate (and its current, A). */
+  readonly pins?: { readonly screen?: number; readonly plate2?: number; readonly plate2Current?: number };
   /** A pentode-connected output stage's screens' share of supplyCurrent at idle, A (what a node of their own carries); absent for other stages. */
   readonly screenCurrent?: number;
   /** Their share of fullPowerCurrent, A: the screens' average driven to the stage's clean limit (they take more as the plates swing low). */

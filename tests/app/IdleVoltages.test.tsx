@@ -44,4 +44,21 @@ describe('the voltages to check at first switch-on', () => {
     act(() => store.getState().setOutputPair('push-pull'));
     expect(heads()).toEqual(['Output · EL34 (each tube)']);
   });
+
+  it("a long-tailed pair's row gives both plates and both currents, each pair of figures as the model solved them", () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => {
+      store.getState().setOutputPair('push-pull');
+      store.getState().setSplitter({ kind: 'long-tailed-pair' });
+    });
+    const row = within(screen.getByRole('table', { name: 'Voltages to check at first switch-on' })).getByRole('row', { name: /^Splitter · 12AU7/ });
+    const cells = within(row).getAllByRole('cell').map((c) => c.textContent);
+    const amp = store.getState().amplifier!.result;
+    if (!amp.ok) throw new Error(amp.message);
+    const ltp = amp.stages.find((st) => st.kind === 'long-tailed-pair')!;
+    expect(ltp.pins.plate2Current).toBeGreaterThan(0);
+    expect(cells[1]).toMatch(/^\d+ V, \d+ V$/);
+    expect(cells.at(-1)).toMatch(/^\d\.\d+ mA, \d\.\d+ mA$/);
+  });
 });

@@ -36,6 +36,7 @@ describe("each stage's DC voltages to chassis at idle", () => {
       expect(Math.abs(st.pins.grid), `stage ${i + 1} grid`).toBeLessThan(0.1);
       expect(st.pins.screen).toBeNull();
       expect(st.pins.plate2).toBeNull();
+      expect(st.pins.plate2Current).toBeNull();
     });
     const f = r.stages[2]!;
     expectClose(f.pins.grid, r.stages[1]!.pins.plate, { rel: 1e-9 }, "the follower's grid is the driver's plate (one wire)");
@@ -60,6 +61,7 @@ describe("each stage's DC voltages to chassis at idle", () => {
     const ia2 = ltp.supplyCurrent - ltp.op.ia;
     expect(ia2).toBeGreaterThan(0);
     expectClose(ltp.pins.plate2!, 350 - 36e3 * ia2, { rel: 1e-9 }, 'second plate');
+    expectClose(ltp.pins.plate2Current!, ia2, { rel: 1e-9 }, 'second plate current: the tail\'s less the first\'s (Kirchhoff)');
     expectClose(ltp.pins.plate, 350 - 33e3 * ltp.op.ia, { rel: 1e-9 }, 'first plate');
     expectClose(ltp.pins.grid, 60, { rel: 1e-9 }, 'grid on its divider');
     const pp = r.stages[2]!;

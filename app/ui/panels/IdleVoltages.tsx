@@ -38,7 +38,7 @@ export function IdleVoltages({ outputAlone = false }: { readonly outputAlone?: b
               <td>{meterVolts(r.pins.cathode)}</td>
               <td>{meterVolts(r.pins.grid)}</td>
               {anyScreen ? <td>{r.pins.screen === null ? '—' : meterVolts(r.pins.screen)}</td> : null}
-              <td>{milliamps(r.ia)}</td>
+              <td>{r.pins.plate2Current === null ? milliamps(r.ia) : `${milliamps(r.ia)}, ${milliamps(r.pins.plate2Current)}`}</td>
             </tr>
           ))}
         </tbody>
