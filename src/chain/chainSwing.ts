@@ -175,10 +175,14 @@ export class ChainSignal {
     }
     let fHi = atHi.margin;
     let kept = 0;
+    // Every two steps the bracket must have halved, or the next step bisects: at worst a halving every three steps.
+    let checkpoint = hi - lo;
+    let bisect = false;
     for (let k = 0; k < 60 && hi - lo > CLIP_REL_TOL * hi; k++) {
       const inset = 0.4 * CLIP_REL_TOL * hi;
       const falsePosition = fHi > fLo ? (lo * fHi - hi * fLo) / (fHi - fLo) : NaN;
-      const x = Number.isFinite(falsePosition) ? Math.min(Math.max(falsePosition, lo + inset), hi - inset) : 0.5 * (lo + hi);
+      const x = !bisect && Number.isFinite(falsePosition) ? Math.min(Math.max(falsePosition, lo + inset), hi - inset) : 0.5 * (lo + hi);
+      bisect = false;
       const at = this.reachAt(i, x);
       if (at.by !== null) {
         hi = x;
@@ -191,6 +195,10 @@ export class ChainSignal {
         fLo = at.margin;
         if (kept === -1) fHi /= 2;
         kept = -1;
+      }
+      if (k % 2 === 1) {
+        bisect = hi - lo > 0.5 * checkpoint;
+        checkpoint = hi - lo;
       }
     }
     return { inputPeak: hi, by: atHi.by! };

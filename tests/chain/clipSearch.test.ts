@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, type ChainInput } from '../../src/index';
-import { CLIP_REL_TOL } from '../../src/chain/chainSwing';
+import { ChainSignal, CLIP_REL_TOL } from '../../src/chain/chainSwing';
+import type { LinkSample, SolvedLink } from '../../src/chain/stageKind';
 import { prepareAmplifier } from '../../src/chain/solveAmplifier';
 import { SPLIT_LOAD_EL84_PAIR } from '../helpers/pushPullAmplifier';
 
@@ -54,5 +55,31 @@ describe("the search for each stage's clean limit", () => {
     const a = prepareAmplifier(coldStage);
     if (!a.ok) throw new Error(a.message);
     expect(a.clips[0]!.by).toBe('cutoff');
+  });
+
+  it('closes in on a limit approached in a shape false position handles badly (a ninth power), within tolerance and the step budget', () => {
+    // A stand-in stage of our own: its grid swings as the ninth power of the drive, so the margin is flat, then a wall;
+    // plain false position would creep from one side. The link carries only what the search reads.
+    let calls = 0;
+    const link = {
+      op: { va: 200, vk: 2, ia: 1e-3, vgk: -2 }, outputDc: 200, supplyCurrent: 1e-3, gain: -10, zin: 1e6, zout: 1e4, cutoffCurrent: 1e-5,
+      sample: (vin: number, out: LinkSample) => {
+        calls++;
+        out.vgk = -2 + 1e-3 * Math.sign(vin) * Math.abs(vin) ** 9;
+        out.vout = -10 * vin;
+        out.ia = 1e-3;
+        out.vout2 = 0;
+      },
+      findings: [],
+    } as unknown as SolvedLink;
+    const signal = new ChainSignal([link], 1);
+    // The grid reaches −0.7 V (GRID_CURRENT_ONSET) where 1e-3·v⁹ = 1.3.
+    const exact = (1.3 / 1e-3) ** (1 / 9);
+    const clip = signal.clipOf(0, exact / 50)!;
+    expect(clip.by).toBe('grid-current');
+    expect(Math.abs(clip.inputPeak / exact - 1)).toBeLessThanOrEqual(CLIP_REL_TOL);
+    expect(clip.inputPeak).toBeGreaterThanOrEqual(exact);
+    // No slower than bisection from the same bracket: six doublings from a fiftieth, then 17 halvings to 10 ppm, each reach two passes.
+    expect(calls).toBeLessThanOrEqual(2 * (6 + 17));
   });
 });
