@@ -4,28 +4,28 @@ export type Complex = readonly [number, number];
 export const cabs = (a: Complex): number => Math.hypot(a[0], a[1]);
 
 /**
- * Solves the augmented complex system [A | b] (n rows of n + 1 entries, real
- * and imaginary parts in two flat arrays, overwritten) by Gaussian
- * elimination with partial pivoting, writing x into xr, xi. Returns false
- * when the matrix is singular or the answer is not finite. No allocation.
+ * Gaussian elimination with partial pivoting on the first n rows and columns
+ * of a complex matrix stored row by row with stride w (columns past n, an
+ * augmented right-hand side, are carried along), leaving it upper
+ * triangular in place. `pivot` hears each pivot as it is taken, and whether
+ * rows were swapped for it. False when a column has no nonzero pivot.
  */
-export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Float64Array, xi: Float64Array): boolean {
-  const w = n + 1;
+function eliminate(re: Float64Array, im: Float64Array, n: number, w: number, pivot?: (magnitude: number, pr: number, pi: number, swapped: boolean) => void): boolean {
   for (let col = 0; col < n; col++) {
-    let pivot = col;
+    let row = col;
     let best = Math.hypot(re[col * w + col]!, im[col * w + col]!);
     for (let r = col + 1; r < n; r++) {
       const m = Math.hypot(re[r * w + col]!, im[r * w + col]!);
       if (m > best) {
         best = m;
-        pivot = r;
+        row = r;
       }
     }
     if (!(best > 0)) return false;
-    if (pivot !== col) {
-      for (let c = 0; c < w; c++) {
+    if (row !== col) {
+      for (let c = col; c < w; c++) {
         const i1 = col * w + c;
-        const i2 = pivot * w + c;
+        const i2 = row * w + c;
         const tr = re[i1]!;
         const ti = im[i1]!;
         re[i1] = re[i2]!;
@@ -36,6 +36,7 @@ export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Fl
     }
     const pr = re[col * w + col]!;
     const pi = im[col * w + col]!;
+    pivot?.(best, pr, pi, row !== col);
     const pd = pr * pr + pi * pi;
     for (let r = col + 1; r < n; r++) {
       const ar = re[r * w + col]!;
@@ -43,7 +44,7 @@ export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Fl
       if (ar === 0 && ai === 0) continue;
       const fr = (ar * pr + ai * pi) / pd;
       const fi = (ai * pr - ar * pi) / pd;
-      for (let c = col; c < w; c++) {
+      for (let c = col + 1; c < w; c++) {
         const vr = re[col * w + c]!;
         const vi = im[col * w + c]!;
         re[r * w + c] = re[r * w + c]! - (fr * vr - fi * vi);
@@ -51,6 +52,18 @@ export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Fl
       }
     }
   }
+  return true;
+}
+
+/**
+ * Solves the augmented complex system [A | b] (n rows of n + 1 entries, real
+ * and imaginary parts in two flat arrays, overwritten) by Gaussian
+ * elimination with partial pivoting, writing x into xr, xi. Returns false
+ * when the matrix is singular or the answer is not finite. No allocation.
+ */
+export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Float64Array, xi: Float64Array): boolean {
+  const w = n + 1;
+  if (!eliminate(re, im, n, w)) return false;
   for (let r = n - 1; r >= 0; r--) {
     let sr = re[r * w + n]!;
     let si = im[r * w + n]!;
@@ -74,8 +87,8 @@ export function csolveFlat(re: Float64Array, im: Float64Array, n: number, xr: Fl
  * The determinant of the square submatrix of rows and columns `idx` of a
  * matrix stored row by row with stride `w`, in polar form: its log magnitude
  * and its argument (the sum of the pivots' arguments, π for each row swap;
- * not wrapped). Null for a singular one. Gaussian elimination with partial
- * pivoting on a copy; the matrix is left as it was.
+ * not wrapped). Null for a singular one. Eliminated on a copy; the matrix is
+ * left as it was.
  */
 export function cdetPolar(re: Float64Array, im: Float64Array, w: number, idx: readonly number[]): { logAbs: number; arg: number } | null {
   const n = idx.length;
@@ -89,46 +102,9 @@ export function cdetPolar(re: Float64Array, im: Float64Array, w: number, idx: re
   }
   let logAbs = 0;
   let arg = 0;
-  for (let col = 0; col < n; col++) {
-    let pivot = col;
-    let best = Math.hypot(ar[col * n + col]!, ai[col * n + col]!);
-    for (let r = col + 1; r < n; r++) {
-      const m = Math.hypot(ar[r * n + col]!, ai[r * n + col]!);
-      if (m > best) {
-        best = m;
-        pivot = r;
-      }
-    }
-    if (!(best > 0) || !Number.isFinite(best)) return null;
-    if (pivot !== col) {
-      arg += Math.PI;
-      for (let c = 0; c < n; c++) {
-        const t = ar[col * n + c]!;
-        ar[col * n + c] = ar[pivot * n + c]!;
-        ar[pivot * n + c] = t;
-        const u = ai[col * n + c]!;
-        ai[col * n + c] = ai[pivot * n + c]!;
-        ai[pivot * n + c] = u;
-      }
-    }
-    const pr = ar[col * n + col]!;
-    const pi = ai[col * n + col]!;
-    logAbs += Math.log(best);
-    arg += Math.atan2(pi, pr);
-    const pd = pr * pr + pi * pi;
-    for (let r = col + 1; r < n; r++) {
-      const xr = ar[r * n + col]!;
-      const xi = ai[r * n + col]!;
-      if (xr === 0 && xi === 0) continue;
-      const fr = (xr * pr + xi * pi) / pd;
-      const fi = (xi * pr - xr * pi) / pd;
-      for (let c = col + 1; c < n; c++) {
-        const vr = ar[col * n + c]!;
-        const vi = ai[col * n + c]!;
-        ar[r * n + c] = ar[r * n + c]! - (fr * vr - fi * vi);
-        ai[r * n + c] = ai[r * n + c]! - (fr * vi + fi * vr);
-      }
-    }
-  }
-  return { logAbs, arg };
+  const solved = eliminate(ar, ai, n, n, (magnitude, pr, pi, swapped) => {
+    logAbs += Math.log(magnitude);
+    arg += Math.atan2(pi, pr) + (swapped ? Math.PI : 0);
+  });
+  return solved && Number.isFinite(logAbs) && Number.isFinite(arg) ? { logAbs, arg } : null;
 }
