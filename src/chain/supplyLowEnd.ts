@@ -195,13 +195,17 @@ const MAX_HALVINGS = 14;
 export function supplyLoopUnstablePoles(net: ChainNetwork, loopScale = 1): number | null {
   if (!net.supply) return 0;
   const scratch = scratchFor(net);
+  // Which equations are the amplifier's and which the supply's: fixed by the network's shape, the same at every frequency.
+  let parts: { all: number[]; amp: number[]; sup: number[] } | null = null;
   const at = (f: number): { arg: number; logAbs: number } | null => {
     const filled = fillChain(net, f, scratch, null);
     const w = filled.n + 1;
-    const { start, count } = filled.supplyNodes;
-    const all = Array.from({ length: filled.n }, (_, k) => k);
-    const amp = all.filter((k) => k < start || k >= start + count);
-    const sup = all.filter((k) => k >= start && k < start + count);
+    if (!parts) {
+      const { start, count } = filled.supplyNodes;
+      const all = Array.from({ length: filled.n }, (_, k) => k);
+      parts = { all, amp: all.filter((k) => k < start || k >= start + count), sup: all.filter((k) => k >= start && k < start + count) };
+    }
+    const { all, amp, sup } = parts;
     // The loop's gain times loopScale: each supply node's voltage acts on the amplifier's equations that much harder
     // (det M then is det A · det(D − loopScale · C A⁻¹ B); A and D stand).
     if (loopScale !== 1) {
@@ -218,7 +222,7 @@ export function supplyLoopUnstablePoles(net: ChainNetwork, loopScale = 1): numbe
     if (!m || !a || !d) return null;
     return { arg: wrap(m.arg - a.arg - d.arg), logAbs: m.logAbs - a.logAbs - d.logAbs };
   };
-  const argAt = (f: number): number | null => at(f)?.arg ?? null;
+  const argAt = (x: number): number | null => at(Math.pow(10, x))?.arg ?? null;
   const x0 = Math.log10(LOOP_LO_HZ);
   const steps = Math.round(Math.log10(LOOP_HI_HZ / LOOP_LO_HZ) * LOOP_PER_DECADE);
   const lowest = at(LOOP_LO_HZ);
@@ -226,26 +230,27 @@ export function supplyLoopUnstablePoles(net: ChainNetwork, loopScale = 1): numbe
   if (lowest === null || decadeUp === null) return null;
   // F's order at the origin, from its slope over the lowest decade.
   const order = Math.round((decadeUp.logAbs - lowest.logAbs) / Math.LN10);
-  let prev = lowest.arg;
-  let total = 0;
-  // The change from one frequency to the next, halving the step where the argument moves fast (a resonance near the axis).
-  const change = (xa: number, xb: number, aa: number, depth: number): number | null => {
-    const ab = argAt(Math.pow(10, xb));
-    if (ab === null) return null;
+  // The change between two frequencies whose arguments are known, halving the step where it moves fast (a resonance near the axis).
+  const change = (xa: number, aa: number, xb: number, ab: number, depth: number): number | null => {
     const d = wrap(ab - aa);
     if (Math.abs(d) < Math.PI / 3 || depth >= MAX_HALVINGS) return d;
     const xm = 0.5 * (xa + xb);
-    const am = argAt(Math.pow(10, xm));
+    const am = argAt(xm);
     if (am === null) return null;
-    const left = change(xa, xm, aa, depth + 1);
-    const right = change(xm, xb, am, depth + 1);
+    const left = change(xa, aa, xm, am, depth + 1);
+    const right = change(xm, am, xb, ab, depth + 1);
     return left === null || right === null ? null : left + right;
   };
+  let prev = lowest.arg;
+  let total = 0;
   for (let k = 1; k <= steps; k++) {
-    const d = change(x0 + (k - 1) / LOOP_PER_DECADE, x0 + k / LOOP_PER_DECADE, prev, 0);
+    const xb = x0 + k / LOOP_PER_DECADE;
+    const ab = argAt(xb);
+    if (ab === null) return null;
+    const d = change(xb - 1 / LOOP_PER_DECADE, prev, xb, ab, 0);
     if (d === null) return null;
     total += d;
-    prev = wrap(prev + d);
+    prev = ab;
   }
   // Near DC F = c·(jω)^m with c real: its argument is mπ/2, or that and π.
   const base = (order * Math.PI) / 2;
