@@ -68,8 +68,7 @@ function gainStageParts(s: Extract<ChainStage, { kind: 'common-cathode' }>, at: 
     resistors.push(s.volume !== undefined ? volumeLine(`VR${n}`, `stage ${n} volume control, audio taper, in the grid leak's place: wiper to the grid`, s.coupling.rg, series) : resistorLine(`Rg${n}`, `stage ${n} grid leak`, s.coupling.rg, 0, series));
     capacitors.push(capacitorLine(`Cc${n}`, before ? `coupling from stage ${n - 1} into stage ${n}` : `input coupling into stage ${n}`, s.coupling.cc, before?.solved.outputDc ?? 0, before?.bplus ?? 0, before ? `+ to stage ${n - 1}'s output` : '+ to the grid'));
   }
-  // It carries no current below the grid's onset; at the socket, so the wire to the grid is short.
-  if ((s.rstopper ?? 0) > 0) resistors.push(resistorLine(`Rst${n}`, `stage ${n} grid stopper, at the socket`, s.rstopper!, 0, series));
+  resistors.push(...stopperLines(s.rstopper, `Rst${n}`, `stage ${n} grid stopper, at the socket`, series));
   if (s.bypassed && s.rk > 0) capacitors.push(capacitorLine(`Ck${n}`, `stage ${n} cathode bypass`, s.ck ?? null, solved.op.vk, 0, '+ to the cathode'));
   return { resistors, capacitors };
 }
@@ -84,7 +83,13 @@ function followerParts(s: FollowerLink, at: PartsContext): Parts {
     resistors.push(...own.resistors);
     capacitors.push(...own.capacitors);
   }
+  resistors.push(...stopperLines(s.rstopper, `Rst${n}`, `stage ${n} follower grid stopper, at the socket`, series));
   return { resistors, capacitors };
+}
+
+/** A grid stopper's line, if there is one: it carries no current below the grid's onset; at the socket, so the wire to the grid is short. */
+function stopperLines(rstopper: number | undefined, ref: string, role: string, series: PreferredSeries): ResistorLine[] {
+  return rstopper !== undefined && rstopper > 0 ? [resistorLine(ref, role, rstopper, 0, series)] : [];
 }
 
 /**
@@ -126,6 +131,7 @@ function splitterParts(s: SplitLoadLink | LongTailedPairLink, at: PartsContext):
   // needs its leak to that voltage, held at signal ground by its capacitor.
   const leak = s.coupling.kind === 'capacitor' ? s.coupling.rg : both ? s.heldGridLeak : undefined;
   if (leak !== undefined) resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks, one per grid, to the divider' : 'splitter grid leak, to the divider', leak, 0, series));
+  if (!both) resistors.push(...stopperLines(s.rstopper, 'Rsts', 'splitter grid stopper, at the socket', series));
   if (s.coupling.kind === 'capacitor') {
     const divider = gridDivider({ upper: 'Rd1', lower: 'Rd2', cap: 'Cd' }, s.bplus, s.vbias ?? 0, series);
     resistors.push(...divider.resistors);

@@ -62,6 +62,8 @@ export interface FollowerLink {
   /** Grid DC voltage to ground with capacitor coupling (a divider or bias supply through the grid leak), V; default 0. */
   readonly vbias?: number;
   readonly heaterVolts?: number;
+  /** Grid stopper, Ω, between what feeds the grid (the coupling's leak, or the plate before) and the grid, at the socket; default 0, none. */
+  readonly rstopper?: number;
   readonly coupling: Coupling;
 }
 
@@ -90,6 +92,8 @@ export interface SplitLoadLink {
   /** Grid DC voltage to ground with capacitor coupling, V; default 0. */
   readonly vbias?: number;
   readonly heaterVolts?: number;
+  /** Grid stopper, Ω, between what feeds the grid (the coupling's leak, or the plate before) and the grid, at the socket; default 0, none. */
+  readonly rstopper?: number;
   readonly coupling: Coupling;
 }
 

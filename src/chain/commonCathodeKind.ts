@@ -25,7 +25,6 @@ export const commonCathodeKind: StageKind<CommonCathodeLink> = {
       checkNumber('rk', 'Rk', s.rk, 'Ω', 0, LIMITS.maxOhms) ??
       (typeof s.bypassed === 'boolean' ? null : fail('invalid-input', 'Bypass must be on or off', 'bypassed')) ??
       (s.ck === undefined ? null : checkNumber('ck', 'Ck', s.ck, 'F', LIMITS.minFarads, LIMITS.maxFarads)) ??
-      (s.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', s.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
       volumeProblem(s.volume, s.coupling?.kind === 'capacitor'),
     ),
   inputImpedance: (s) => couplingImpedance(s.coupling),

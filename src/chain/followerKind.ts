@@ -9,6 +9,7 @@ import { modelOf, type TubeLike } from '../tube/types';
 import type { FollowerLink } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
 import { checkTriodeLink } from './checkTriodeLink';
+import { stopperNote } from './stopperNote';
 import { triodeLink } from './triodeLink';
 import type { StageKind } from './stageKind';
 
@@ -27,7 +28,8 @@ export const followerKind: StageKind<FollowerLink> = {
     const own = solveFollower({ tube: s.tube, bplus: s.bplus, vgrid, rk: s.rk, rl: env.load, heaterVolts: s.heaterVolts ?? 0 });
     if (!own.ok) return own;
     const leak = s.coupling.kind === 'capacitor' ? leakBiasFinding(s.tube, s.bplus, s.rk, vgrid, s.coupling.rg, own.op.vk) : null;
-    const solved = leak ? { ...own, findings: [...own.findings, leak] } : own;
+    const added = [leak, stopperNote(s.tube, s.rstopper, 0, own.gain)].filter((f) => f !== null);
+    const solved = added.length ? { ...own, findings: [...own.findings, ...added] } : own;
     const { op } = solved;
     const grid = op.vgk + op.vk;
     const t = followerTransfer(modelOf(s.tube), s.bplus, s.rk, env.load, op);

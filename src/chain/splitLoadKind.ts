@@ -9,6 +9,7 @@ import { modelOf, recordOf } from '../tube/types';
 import type { SplitLoadLink } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
 import { checkTriodeLink } from './checkTriodeLink';
+import { stopperNote } from './stopperNote';
 import { NO_CAPACITANCES } from './noCapacitances';
 import type { LinkSample, StageKind } from './stageKind';
 
@@ -55,7 +56,7 @@ export const splitLoadKind: StageKind<SplitLoadLink> = {
       sample,
       cutoffCurrent: CUTOFF_FRACTION * op.ia,
       gridLaw: (vgk) => gridCurrent(modelOf(s.tube), vgk),
-      findings: r.findings,
+      findings: [...r.findings, ...[stopperNote(s.tube, s.rstopper, r.gainPlate, r.gainCathode)].filter((f) => f !== null)],
       // The plate output as a common-cathode stage with an unbypassed cathode resistor, the other output; the push-pull
       // pair's second grid loads it through its own coupling in the network.
       linear: { gm: r.gm, rp: r.rp, plateLoad: s.ra, rk: s.rk, ck: null, cathodeGrounded: false, gScreen: 0, caps: recordOf(s.tube)?.capacitances ?? NO_CAPACITANCES, output: 'plate', output2: 'cathode', outputScale: 1 },

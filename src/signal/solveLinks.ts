@@ -6,6 +6,7 @@ import type { StageDesign } from '../stage/stageDesign';
 import type { TubeLike } from '../tube/types';
 import type { ChainInput, ChainStage, CommonCathodeLink, Coupling } from '../chain/chainTypes';
 import { prepareAmplifier } from '../chain/prepareAmplifier';
+import { stopperNote } from '../chain/stopperNote';
 import { sineLevel, type Level } from './levels';
 
 /** A link of a chain: a common-cathode stage, or a cathode follower after the plate before it (direct- or capacitor-coupled). */
@@ -20,6 +21,8 @@ export type ChainLink =
       readonly heaterVolts?: number;
       /** Capacitor-coupled: through `cc` into the grid leak `rg`, the grid held at `vbias` (a divider's). Absent: direct-coupled to the plate before it. */
       readonly coupling?: FollowerCoupling;
+      /** Grid stopper at its socket, Ω; absent or 0: none. */
+      readonly rstopper?: number;
     };
 
 /** A follower fed through a coupling capacitor, its grid held at its own bias: free of the plate before it, at the cost of Cc and a leak that loads that plate. */
@@ -98,10 +101,13 @@ export function solveLinks(links: readonly ChainLink[]): Result<LinkChainResult>
     const c = second.coupling;
     const f = solveFollower({ tube: second.tube, bplus: second.bplus, vgrid: c ? c.vbias : s1.op.va, rk: second.rk, rl: second.rl, heaterVolts: second.heaterVolts });
     if (!f.ok) return { ...f, message: `Follower: ${f.message}` };
-    results.push({ kind: 'follower', ...f });
+    // Its stopper noted as the amplifier notes it (its figures here are its operating point's, which the stopper leaves).
+    const note = stopperNote(second.tube, second.rstopper, 0, f.gain);
+    results.push({ kind: 'follower', ...f, ...(note ? { findings: [...f.findings, note] } : {}) });
     stages.push({
       kind: 'follower', tube: second.tube, bplus: second.bplus, rk: second.rk,
       ...(second.heaterVolts !== undefined ? { heaterVolts: second.heaterVolts } : {}),
+      ...(second.rstopper !== undefined ? { rstopper: second.rstopper } : {}),
       ...(c ? { vbias: c.vbias, coupling: { kind: 'capacitor' as const, cc: c.cc, rg: c.rg } } : { coupling: { kind: 'direct' as const } }),
     });
     load = second.rl;

@@ -87,6 +87,23 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     expect(partsOf(2).resistors.map((x) => x.ref)).not.toContain('Rst3');
   });
 
+  it('a follower\'s and a split-load splitter\'s grid stoppers are listed with their own parts, carrying no current', () => {
+    const follower: ChainInput = { ...input, stages: input.stages.map((s, i) => (i === 1 ? { ...s, rstopper: 47e3 } : s)) };
+    const r = solveAmplifier(follower);
+    if (!r.ok) throw new Error(r.message);
+    const p = chainStageParts(follower, r, 1, 'E12')!;
+    expect(p.resistors.map((x) => x.ref)).toEqual(['Rk2', 'Rg2', 'Rd2a', 'Rd2b', 'Rst2']);
+    expect(line(p.resistors, 'Rst2')).toMatchObject({ role: 'stage 2 follower grid stopper, at the socket', preferred: 47e3, watts: 0 });
+    expect(partsOf(1).resistors.map((x) => x.ref)).not.toContain('Rst2');
+
+    const splitter = { kind: 'split-load' as const, tube: findTube('12AU7')!, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, rstopper: 10e3, coupling: { kind: 'capacitor' as const, cc: 100e-9, rg: 1e6 } };
+    const split: ChainInput = { source: { rsource: 600 }, stages: [input.stages[2]!, splitter, pair] };
+    const rs = solveAmplifier(split);
+    if (!rs.ok) throw new Error(rs.message);
+    const ps = chainStageParts(split, rs, 1, 'E12')!;
+    expect(line(ps.resistors, 'Rsts')).toMatchObject({ role: 'splitter grid stopper, at the socket', preferred: 10e3, watts: 0 });
+  });
+
   it('a gain stage with a volume control lists the pot in its leak\'s place, at its value as given (pots come in their own few values)', () => {
     const potted: ChainInput = { ...input, stages: input.stages.map((s, i) => (i === 2 && s.kind === 'common-cathode' && s.coupling.kind === 'capacitor' ? { ...s, volume: 0.5, coupling: { ...s.coupling, rg: 250e3 } } : s)) };
     const r = solveAmplifier(potted);

@@ -56,7 +56,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
         source: { rsource: 250e3 },
         stages: [
           { kind: 'common-cathode', tube: ax7, bplus: 250, ra: 100e3, rk: 820, bypassed: true, rstopper: 68e3, volume: 0.4, coupling: { kind: 'capacitor', cc: 1e-6, rg: 1e6 } },
-          { kind: 'follower', tube: au7, bplus: 250, rk: 22e3, coupling: { kind: 'direct' } },
+          { kind: 'follower', tube: au7, bplus: 250, rk: 22e3, rstopper: 47e3, coupling: { kind: 'direct' } },
         ],
         load: { rl: 10e3, cc: 1e-6 },
       }),
@@ -88,7 +88,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
     source: { rsource: 600 },
     stages: [
       chainStages[0]!,
-      { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+      { kind: 'split-load', tube: au7, bplus: 300, ra: 22e3, rk: 22e3, vbias: 90, rstopper: 10e3, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
       { kind: 'push-pull-output', tube: el34, connection: 'pentode', bplus: 420, screenVolts: 400, ulTap: 0.4, raa: 6600, rPrimary: 180, bias: 'fixed', rk: 1, vg: -36, speakerOhms: 8, thdLimit: 0.05, mismatch: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 } },
     ],
   };
