@@ -57,9 +57,9 @@ export function otherStageSections(s: WorkbenchState, sheet: BuildSheet): { head
     if (!st) return { heading: parts.title, lines: partLines(parts) };
     const sp = s.design.output.splitter;
     const values = !p
-      ? `${sp.kind === 'split-load' ? `Split-load: Ra ${ohms(sp.ra)}, Rk ${ohms(sp.rk)}` : `Long-tailed pair: Ra ${ohms(sp.ra)} and ${ohms(sp.ra2)}, Rk ${ohms(sp.rk)} over a ${ohms(sp.rtail)} tail`}, B+ ${volts(sp.bplus)}, ${sp.coupling === 'direct' ? 'grid direct from the plate before it' : `grid at ${volts(sp.vgrid)} through ${ohms(sp.rg)}`}, Cc ${farads(sp.cc)} into each output grid`
+      ? `${sp.kind === 'split-load' ? `Split-load: Ra ${ohms(sp.ra)}, Rk ${ohms(sp.rk)}${sp.rstopper ? `, grid stopper ${ohms(sp.rstopper)}` : ''}` : `Long-tailed pair: Ra ${ohms(sp.ra)} and ${ohms(sp.ra2)}, Rk ${ohms(sp.rk)} over a ${ohms(sp.rtail)} tail`}, B+ ${volts(sp.bplus)}, ${sp.coupling === 'direct' ? 'grid direct from the plate before it' : `grid at ${volts(sp.vgrid)} through ${ohms(sp.rg)}`}, Cc ${farads(sp.cc)} into each output grid`
       : p.kind === 'follower'
-      ? `Rk ${ohms(p.rk)}, direct-coupled to stage ${i}'s plate`
+      ? `Rk ${ohms(p.rk)}, ${p.coupling ? `Cc ${farads(p.coupling.cc)} from stage ${i}'s plate into ${ohms(p.coupling.rg)}, grid held at ${volts(p.coupling.vbias)}` : `direct-coupled to stage ${i}'s plate`}${p.rstopper ? `, grid stopper ${ohms(p.rstopper)}` : ''}`
       : `B+ ${volts(p.bplus)}, Ra ${ohms(p.ra)}, Rk ${ohms(p.rk)}${p.bypassed ? ` bypassed${p.ck ? ` by ${farads(p.ck)}` : ''}` : ' unbypassed'}, ${p.cc === null ? 'direct from the source' : `Cc ${farads(p.cc)}`}, ${leakWords(p.rg, p.volume ?? null)}${p.rstopper ? `, grid stopper ${ohms(p.rstopper)}` : ''}`;
     return {
       heading: parts.title,

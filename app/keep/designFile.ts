@@ -17,7 +17,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                 stageKind, output: { tubeId, connection, bplus, screenVolts, ulTap, zPrimary, rPrimary,
  *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch, idleMismatch,
  *                                      primaryInductance, leakageInductance,
- *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling } }, drivesOutput,
+ *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling, rstopper? } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms },
  *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
@@ -28,7 +28,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * and `after` the stages either side of it, input first (stagePlans.ts). A
  * stage is { kind: "common-cathode", tubeId, bplus, ra, rk, bypassed, ck, cc, rg, rstopper?, volume?, node? }
  * (cc null: direct from the source, first stage only) or
- * { kind: "follower", tubeId, rk, coupling? } (direct-coupled to the gain stage
+ * { kind: "follower", tubeId, rk, coupling?, rstopper? } (direct-coupled to the gain stage
  * before it; with coupling { cc, rg, vbias }, through a capacitor into its own
  * grid leak, the grid held at vbias; `stage2` carries the same).
  * Versions 1 and 2 open as a chain of their one or two voltage stages.
@@ -48,8 +48,10 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
  * bench's default (on the AC heater winding); `feedbackRf` (global
  * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across
- * it, F, or null): absent, none; `rstopper` (a gain stage's grid stopper,
- * Ω, 0 for none; the bench's and each such stage's): absent, none; `volume`
+ * it, F, or null): absent, none; `rstopper` (a gain stage's, a
+ * follower's or a split-load splitter's grid stopper, Ω, 0 for none; the
+ * bench's, its follower's, the splitter's and each such stage's): absent,
+ * none; `volume`
  * (a volume control in Rg's place, its setting in dB below full, or null
  * for a fixed Rg; the bench's and each gain stage's): absent, none; `node`
  * (the supply node feeding a gain stage, 0 the reservoir; the bench's and
@@ -105,7 +107,7 @@ function readPlans(v: unknown, side: 'before' | 'after', firstIsInput: boolean, 
     if (raw.kind === 'follower') {
       if (!prevIsGain) return { ok: false, message: `${at} is a cathode follower with no gain stage right before it to be coupled to. Nothing was opened.` };
       const coupling = raw.coupling as FollowerCoupling | undefined;
-      plans.push({ kind: 'follower', tubeId: knownId(raw.tubeId as string), rk: raw.rk as number, ...(coupling ? { coupling: { cc: coupling.cc, rg: coupling.rg, vbias: coupling.vbias } } : {}) });
+      plans.push({ kind: 'follower', tubeId: knownId(raw.tubeId as string), rk: raw.rk as number, ...(coupling ? { coupling: { cc: coupling.cc, rg: coupling.rg, vbias: coupling.vbias } } : {}), ...(raw.rstopper ? { rstopper: raw.rstopper as number } : {}) });
     } else {
       const first = firstIsInput && i === 0;
       if (!first && raw.cc === null) return { ok: false, message: `${at}.cc must be a coupling capacitor: only the first stage may be direct-coupled (to the source). Nothing was opened.` };
@@ -233,6 +235,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
       rk: s2.rk as number,
       rg: s2.rg as number,
       ...(s2.kind === 'follower' && s2.coupling ? { coupling: { ...(s2.coupling as FollowerCoupling) } } : {}),
+      ...(s2.kind === 'follower' && s2.rstopper ? { rstopper: s2.rstopper as number } : {}),
     },
     before: before.plans,
     after: after.plans,

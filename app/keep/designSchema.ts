@@ -92,6 +92,8 @@ export const BENCH_STAGE = v.object({
     rk: ranged(L.stage2.rk),
     rg: ranged(L.stage2.rg),
     coupling: FOLLOWER_COUPLING,
+    // Came later within version 3: absent, none.
+    rstopper: v.optional(ranged(L.rstopper)),
   }),
 });
 
@@ -133,6 +135,8 @@ export const OUTPUT_STAGE = v.object({
         rg: ranged(L.splitter.rg),
         cc: ranged(L.splitter.cc),
         coupling: v.optional(oneOf(['capacitor', 'direct'])),
+        // Came later within version 3: absent, none.
+        rstopper: v.optional(ranged(L.rstopper)),
       }),
     ),
   }),
@@ -176,7 +180,7 @@ export const GAIN_STAGE = v.object({
   volume: v.optional(rangedOrNull(L.volume)),
   node: supplyNode(),
 });
-export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk), coupling: FOLLOWER_COUPLING });
+export const FOLLOWER_STAGE = v.object({ tubeId: tubeName(), rk: ranged(L.stage2.rk), coupling: FOLLOWER_COUPLING, rstopper: v.optional(ranged(L.rstopper)) });
 
 /** Values quoted in messages are cut short and shown as JSON text, never interpreted. */
 export const quote = (x: unknown) => {

@@ -68,7 +68,7 @@ function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[])
     if (p.kind === 'follower') {
       const c = p.coupling;
       const coupling = c ? { vbias: c.vbias, coupling: { kind: 'capacitor' as const, cc: c.cc, rg: c.rg } } : { coupling: { kind: 'direct' as const } };
-      return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, ...coupling };
+      return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, ...coupling, ...(p.rstopper ? { rstopper: p.rstopper } : {}) };
     }
     return {
       kind: 'common-cathode', tube, bplus: p.bplus, ra: p.ra, rk: p.rk, bypassed: p.bypassed,
@@ -99,7 +99,7 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
     const grid = direct ? {} : { vbias: sp.vgrid };
     stages.push(
       sp.kind === 'split-load'
-        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, coupling: into }
+        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), coupling: into }
         : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });

@@ -86,6 +86,8 @@ export interface Stage2Design {
   readonly rg: number;
   /** A follower's coupling capacitor, leak and grid bias; absent (or undefined): direct-coupled to the plate. */
   readonly coupling?: FollowerCoupling;
+  /** A follower's grid stopper at its socket, Ω; 0 or absent: none. */
+  readonly rstopper?: number;
 }
 
 /** Everything the screen shows that the model derives from a design (see analyzeStage). */
@@ -111,7 +113,7 @@ function secondLink(d: BenchDesign, registry: TubeRegistry): ChainLink | null {
   if (s2.kind === 'none' || !tube) return null;
   // The second stage drives the next gain stage's grid, or the amplifier's own load.
   const { rl } = loadAfterBench(d);
-  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl, ...(s2.coupling ? { coupling: s2.coupling } : {}) };
+  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl, ...(s2.coupling ? { coupling: s2.coupling } : {}), ...(s2.rstopper ? { rstopper: s2.rstopper } : {}) };
   return { kind: 'common-cathode', tube, bplus: d.bplus, ra: s2.ra, rk: s2.rk, rg: s2.rg, bypassed: true, rl };
 }
 

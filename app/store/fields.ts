@@ -8,7 +8,7 @@ import { DESIGN_LIMITS as L, type Limit } from './designLimits';
 
 /** The design values a user types; each has one definition of how it is read, checked, shown and stored. */
 export type FieldName =
-  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'rstopper' | 'volume' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'feedbackRf' | 'feedbackCf'
+  | 'bplus' | 'ra' | 'rk' | 'rl' | 'rsource' | 'cin' | 'rg' | 'rstopper' | 'volume' | 'ck' | 'cout' | 'level' | 'thd' | 'ra2' | 'rk2' | 'rg2' | 'fRst' | 'sRst' | 'feedbackRf' | 'feedbackCf'
   | 'fCc' | 'fRg' | 'fVbias'
   | 'oBplus' | 'oScreen' | 'oTap' | 'oZ' | 'oRpri' | 'oLp' | 'oLl' | 'oRk' | 'oVg' | 'oRg' | 'oSpeaker' | 'oThd' | 'oRaa' | 'oMismatch' | 'oIdleMismatch'
   | 'sBplus' | 'sRa' | 'sRa2' | 'sRk' | 'sRtail' | 'sVgrid' | 'sRg' | 'sCc'
@@ -145,6 +145,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', L.stage2.rg), show: compact, ...second('rg') },
   fCc: { label: 'Cc (follower)', unit: 'F', example: '100n', read: ranged('Coupling capacitor', L.stage2.cc), show: compact, ...coupling('cc') },
   fRg: { label: 'Rg (follower)', unit: 'Ω', example: '1M', read: ranged('Grid leak', L.stage2.rg), show: compact, ...coupling('rg') },
+  fRst: { label: 'Grid stopper (follower)', unit: 'Ω', example: '10k or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.stage2.rstopper ?? 0, put: (d, v) => ({ ...d, stage2: { ...d.stage2, rstopper: v ?? 0 } }) },
   fVbias: { label: 'Follower grid', unit: 'V', example: '150', read: ranged('Follower grid voltage', L.stage2.vbias), show: compact, ...coupling('vbias') },
   oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', L.output.bplus), show: compact, ...out('bplus') },
   oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
@@ -168,6 +169,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   sRtail: { label: 'Tail', unit: 'Ω', example: '10k', read: ranged('Tail resistor', L.splitter.rtail), show: compact, ...splitter('rtail') },
   sVgrid: { label: 'Splitter grid', unit: 'V', example: '90', read: ranged('Splitter grid voltage', L.splitter.vgrid), show: compact, ...splitter('vgrid') },
   sRg: { label: 'Splitter Rg', unit: 'Ω', example: '1M', read: ranged('Splitter grid leak', L.splitter.rg), show: compact, ...splitter('rg') },
+  sRst: { label: 'Splitter grid stopper', unit: 'Ω', example: '4k7 or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.output.splitter.rstopper ?? 0, put: (d, v) => ({ ...d, output: { ...d.output, splitter: { ...d.output.splitter, rstopper: v ?? 0 } } }) },
   sCc: { label: 'Splitter Cc', unit: 'F', example: '100n', read: ranged('Splitter coupling capacitor', L.splitter.cc), show: compact, ...splitter('cc') },
   tGain: { label: 'Least gain', unit: '×', example: 'off, e.g. 30', read: optional(ranged('Gain', L.targets.gain)), show: showOptional(compact), ...target('minGain') },
   tClean: { label: 'Least clean output', unit: 'V rms', example: 'off, e.g. 20', read: optional(ranged('Clean output', L.targets.level)), show: showOptional(compact), ...target('minCleanOutputRms') },

@@ -49,6 +49,8 @@ export interface FollowerPlan {
   readonly rk: number;
   /** Absent: direct-coupled. */
   readonly coupling?: FollowerCoupling;
+  /** Grid stopper at the socket, Ω; 0 or absent: none. */
+  readonly rstopper?: number;
 }
 
 /**
@@ -80,7 +82,7 @@ export function benchPlan(d: BenchDesign): GainPlan {
 /** The bench stage's second stage as plans: its follower, or a gain stage kept from a design before version 3. */
 function stage2Plans(d: BenchDesign): StagePlan[] {
   const s2 = d.stage2;
-  if (s2.kind === 'follower') return [{ kind: 'follower', tubeId: s2.tubeId, rk: s2.rk, ...(s2.coupling ? { coupling: s2.coupling } : {}) }];
+  if (s2.kind === 'follower') return [{ kind: 'follower', tubeId: s2.tubeId, rk: s2.rk, ...(s2.coupling ? { coupling: s2.coupling } : {}), ...(s2.rstopper ? { rstopper: s2.rstopper } : {}) }];
   if (s2.kind === 'common-cathode') return [{ kind: 'common-cathode', tubeId: s2.tubeId, bplus: d.bplus, ra: s2.ra, rk: s2.rk, bypassed: true, ck: null, cc: IDEAL_CC, rg: s2.rg }];
   return [];
 }
@@ -131,7 +133,7 @@ export function withStagesOnBench(d: BenchDesign, list: readonly StagePlan[], k:
     rstopper: on.rstopper ?? 0,
     volume: on.volume ?? null,
     node: on.node,
-    stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk, coupling: next.coupling } : { ...d.stage2, kind: 'none' },
+    stage2: follows ? { ...d.stage2, kind: 'follower', tubeId: next.tubeId, rk: next.rk, coupling: next.coupling, rstopper: next.rstopper } : { ...d.stage2, kind: 'none' },
     before: list.slice(0, k),
     after: list.slice(k + (follows ? 2 : 1)),
   };

@@ -134,27 +134,42 @@ export const GainCell = memo(function GainCell({ x0, p, value }: { x0: number; p
   );
 }, sameProps);
 
-/** A follower's cell is wider when capacitor-coupled: its capacitor and leak stand before the tube. */
-export const cellWidth = (p: FollowerPlan | GainPlan) => (p.kind === 'follower' ? WIDTH.follower + (p.coupling ? FOLLOWER_COUPLING_WIDTH : 0) : WIDTH.gain);
+/** A follower's cell is wider when capacitor-coupled (its capacitor and leak stand before the tube) and with a grid stopper. */
+export const cellWidth = (p: FollowerPlan | GainPlan) => (p.kind === 'follower' ? WIDTH.follower + gridSide(p) : WIDTH.gain);
 const FOLLOWER_COUPLING_WIDTH = 46;
+const FOLLOWER_STOPPER_WIDTH = 28;
+const gridSide = (p: FollowerPlan) => (p.coupling ? FOLLOWER_COUPLING_WIDTH : 0) + ((p.rstopper ?? 0) > 0 ? FOLLOWER_STOPPER_WIDTH : 0);
 
-/** A cathode follower: its grid straight from the plate before it, or through its capacitor into its leak, returned to the divider that holds it. */
+/**
+ * A cathode follower: its grid straight from the plate before it, or through
+ * its capacitor into its leak, returned to the divider that holds it; its
+ * grid stopper, if any, last before the grid.
+ */
 export const FollowerCell = memo(function FollowerCell({ x0, p, value }: { x0: number; p: FollowerPlan; value: ValueLabel }) {
   const c = p.coupling;
-  const cx = x0 + 54 + (c ? FOLLOWER_COUPLING_WIDTH : 0);
+  const cx = x0 + 54 + gridSide(p);
   const r = 22;
   const width = cellWidth(p);
+  const stopper = p.rstopper ?? 0;
+  // Where the stopper starts: past the leak's dot, or a little past the plate before.
+  const from = c ? x0 + RG_X + 4 : x0 + 4;
   return (
     <>
       {c ? (
         <>
           <Coupling x0={x0} cc={c.cc} value={value} field="fCc" />
-          <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+          <Wire points={[[x0 + CC_END, GRID], [stopper > 0 ? from : cx - r, GRID]]} />
           <GridLeak x0={x0} rg={c.rg} value={value} field="fRg" to={{ field: 'fVbias', volts: c.vbias }} />
         </>
       ) : (
-        <Wire points={[[x0, GRID], [cx - r, GRID]]} />
+        <Wire points={[[x0, GRID], [stopper > 0 ? from : cx - r, GRID]]} />
       )}
+      {stopper > 0 ? (
+        <>
+          <HResistor x1={from} x2={cx - r} y={GRID} />
+          {value('fRst', 'Grid stopper', (from + cx - r) / 2, GRID - 12, ohms(stopper), 'middle')}
+        </>
+      ) : null}
       <Triode cx={cx} cy={GRID} r={r} />
       <Wire points={[[x0, RAIL], [x0 + width, RAIL]]} />
       <Wire points={[[cx, RAIL], [cx, GRID - r]]} />
@@ -177,10 +192,20 @@ export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { 
   const cx = x0 + 100;
   const r = 22;
   const ltp = sp.kind === 'long-tailed-pair';
+  const stopper = ltp ? 0 : (sp.rstopper ?? 0);
   return (
     <>
       <Coupling x0={x0} cc={cc} value={value} field="cout" />
-      <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      {stopper > 0 ? (
+        <>
+          {/* Past the leak's dot, last before the grid. */}
+          <Wire points={[[x0 + CC_END, GRID], [x0 + RG_X + 2, GRID]]} />
+          <HResistor x1={x0 + RG_X + 2} x2={cx - r} y={GRID} />
+          {value('sRst', 'Grid stopper', (x0 + RG_X + 2 + cx - r) / 2, GRID - 12, ohms(stopper), 'middle')}
+        </>
+      ) : (
+        <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+      )}
       {sp.coupling === 'capacitor' && <GridLeak x0={x0} rg={sp.rg} value={value} field="sRg" to={{ field: 'sVgrid', volts: sp.vgrid }} />}
       <PlateLoad x0={x0} width={WIDTH.splitter} cx={cx} r={r} ra={sp.ra} field="sRa" value={value} />
       <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />

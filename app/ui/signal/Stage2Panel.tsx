@@ -63,6 +63,7 @@ export function Stage2Panel() {
             {stage2.kind === 'common-cathode' ? <ValueField field="ra2" /> : null}
             <ValueField field="rk2" />
             {stage2.kind === 'common-cathode' ? <ValueField field="rg2" /> : null}
+            {stage2.kind === 'follower' ? <ValueField field="fRst" hint="at the follower's socket, in series with its grid; “none” to leave it out" /> : null}
             {choice === 'follower-capacitor' ? (
               <>
                 <ValueField field="fCc" />

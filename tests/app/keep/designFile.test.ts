@@ -149,6 +149,37 @@ describe('design files', () => {
     if (!bad.ok) expect(bad.message).toBe('design.rstopper must be 0 or a number from 10 to 1000000 Ω (found 5). Nothing was opened.');
   });
 
+  it('a follower\'s and a splitter\'s grid stoppers round-trip (the bench\'s follower, one off the bench, the split-load); a file from before them opens with none; a bad one is named', () => {
+    const stopped = {
+      title: 'Line stage',
+      design: {
+        ...DEMO_DESIGN,
+        stage2: { ...DEMO_DESIGN.stage2, kind: 'follower' as const, tubeId: '12AU7', rk: 47e3, rstopper: 22e3 },
+        before: [{ ...GAIN, cc: 470e-9, rg: 1e6 }, { kind: 'follower', tubeId: '12AU7', rk: 33e3, rstopper: 4.7e3 }] as BenchDesign['before'],
+        // Driving the pair, the last voltage stage's RL is the splitter's leak.
+        rl: DEMO_DESIGN.output.splitter.rg,
+        output: { ...DEMO_DESIGN.output, pair: 'push-pull' as const, splitter: { ...DEMO_DESIGN.output.splitter, rstopper: 10e3 } },
+      },
+    };
+    const back = readDesignFile(writeDesignFile(stopped));
+    if (!back.ok) throw new Error(back.message);
+    expect(back.doc).toEqual(stopped);
+    expect(voltageStages(back.doc.design).map((p) => (p.kind === 'follower' ? (p.rstopper ?? 0) : null))).toEqual([null, 4.7e3, null, 22e3]);
+    const follows = variant((f) => { f.design.stage2 = { kind: 'follower', tubeId: '12AU7', ra: 22e3, rk: 47e3, rg: 470e3 }; });
+    const older = readDesignFile(follows);
+    if (!older.ok) throw new Error(older.message);
+    expect(older.doc.design.stage2.rstopper ?? 0).toBe(0);
+    const bad = readDesignFile(variant((f) => { f.design.stage2 = { kind: 'follower', tubeId: '12AU7', ra: 22e3, rk: 47e3, rg: 470e3, rstopper: -1 }; }));
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.message).toBe('design.stage2.rstopper must be 0 or a number from 10 to 1000000 Ω (found -1). Nothing was opened.');
+    const badOff = readDesignFile(variant((f) => { f.design.after = [{ kind: 'follower', tubeId: '12AU7', rk: 33e3, rstopper: 2e6 }]; }));
+    expect(badOff.ok).toBe(false);
+    if (!badOff.ok) expect(badOff.message).toBe('design.after[0].rstopper must be 0 or a number from 10 to 1000000 Ω (found 2000000). Nothing was opened.');
+    const badSplitter = readDesignFile(variant((f) => { (f.design.output as Record<string, Record<string, unknown>>).splitter!.rstopper = 'none'; }));
+    expect(badSplitter.ok).toBe(false);
+    if (!badSplitter.ok) expect(badSplitter.message).toBe('design.output.splitter.rstopper must be 0 or a number from 10 to 1000000 Ω (found "none"). Nothing was opened.');
+  });
+
   it('a version 2 file with a second gain stage opens as the same two-stage chain', () => {
     const v2 = variant((f) => {
       f.version = 2;

@@ -1,0 +1,34 @@
+import { render, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+describe('a cathode follower\'s grid stopper', () => {
+  it('typed in the follower\'s values: the ratings name its corner, the parts list, the drawing and the amplifier carry it, a slip is named, and none takes it out', async () => {
+    const store = createWorkbenchStore();
+    const user = userEvent.setup();
+    const view = render(<App store={store} />);
+    // The demo's driver (stage 2, 12AU7) gets a direct-coupled 12AU7 follower, which becomes stage 3.
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Add' }), 'follower');
+    const field = screen.getByRole('textbox', { name: /^Grid stopper \(follower\)/ }) as HTMLInputElement;
+    expect(field.value).toBe('none');
+    await user.clear(field);
+    await user.type(field, '100k{Tab}');
+    expect(store.getState().design.stage2.rstopper).toBe(100e3);
+    // The follower's input capacitance is Cgp plus Cgk less what its cathode follows (Miller): about 1.6 pF for a 12AU7
+    // (Cgp 1.5 pF, Cgk 1.6 pF, gain near 0.95), so 100 kΩ alone has its corner near 1 MHz (first-order RC, 1/(2πRC)).
+    await waitFor(() => expect(screen.getByText(/^Grid stopper 100 kΩ with the grid's 1\.\d+ pF \(Miller effect\): its own corner is (9\d\d|1\.0\d) (kHz|MHz), above the audio band/)).toBeTruthy());
+    expect(view.container.querySelector('[data-part-line="Rst3"]')?.textContent).toMatch(/^Rst3 \(stage 3 follower grid stopper, at the socket\)100 kΩ E24/);
+    expect(within(screen.getByRole('group', { name: /^Amplifier drawing|amplifier/i })).getByRole('button', { name: /Stage 3 Grid stopper 100 kΩ/ })).toBeTruthy();
+    // A value below any real part is named beside the box, and the design keeps its last good value.
+    await user.type(field, '5', { initialSelectionStart: 0, initialSelectionEnd: field.value.length });
+    expect(screen.getByText('Grid stopper must be at least 10 Ω')).toBeTruthy();
+    expect(store.getState().design.stage2.rstopper).toBe(100e3);
+    await user.clear(field);
+    await user.type(field, 'none{Tab}');
+    expect(store.getState().design.stage2.rstopper).toBe(0);
+    await waitFor(() => expect(view.container.querySelector('[data-part-line="Rst3"]')).toBeNull());
+    expect(screen.queryByText(/^Grid stopper 100 kΩ/)).toBeNull();
+  });
+});

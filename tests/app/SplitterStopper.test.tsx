@@ -1,0 +1,33 @@
+import { render, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { act } from 'react';
+import { describe, expect, it } from 'vitest';
+import { App } from '../../app/App';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+describe('a split-load splitter\'s grid stopper', () => {
+  it('typed in the splitter\'s values: its corner is noted, the parts list and the drawing carry it; a long-tailed pair has no box for one', async () => {
+    const store = createWorkbenchStore();
+    const user = userEvent.setup();
+    const view = render(<App store={store} />);
+    act(() => {
+      store.getState().setOutputPair('push-pull');
+      store.getState().setStageKind('output');
+    });
+    const group = within(screen.getByRole('group', { name: 'Phase splitter' }));
+    const field = group.getByRole('textbox', { name: /^Splitter grid stopper/ }) as HTMLInputElement;
+    expect(field.value).toBe('none');
+    await user.clear(field);
+    await user.type(field, '47k{Tab}');
+    expect(store.getState().design.output.splitter.rstopper).toBe(47e3);
+    // Its plate inverts at nearly unity and its cathode follows: Cgp counts about twice, Cgk hardly (Miller), some 3 pF for
+    // a 12AU7 (Cgp 1.5 pF, Cgk 1.6 pF), so 47 kΩ alone has its corner near 1.1 MHz (first-order RC, 1/(2πRC)).
+    await waitFor(() => expect(screen.getByText(/^Grid stopper 47 kΩ with the grid's (2\.\d+|3\.\d+) pF \(Miller effect\): its own corner is 1\.\d+ MHz, above the audio band/)).toBeTruthy());
+    expect(view.container.querySelector('[data-part-line="Rsts"]')?.textContent).toMatch(/^Rsts \(splitter grid stopper, at the socket\)47 kΩ E24/);
+    expect(within(screen.getByRole('group', { name: /^Amplifier drawing|amplifier/i })).getByRole('button', { name: /Grid stopper 47 kΩ/ })).toBeTruthy();
+    // The long-tailed pair's driven grid takes none here: no box, and nothing of the split-load's stopper listed.
+    await user.click(group.getByRole('radio', { name: 'Long-tailed pair' }));
+    expect(group.queryByRole('textbox', { name: /^Splitter grid stopper/ })).toBeNull();
+    await waitFor(() => expect(view.container.querySelector('[data-part-line="Rsts"]')).toBeNull());
+  });
+});
