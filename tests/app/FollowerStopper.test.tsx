@@ -2,6 +2,8 @@ import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
+import { cardSections } from '../../app/export/buildCard';
+import type { BenchDesign } from '../../app/store/analysis';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 
 describe('a cathode follower\'s grid stopper', () => {
@@ -30,5 +32,16 @@ describe('a cathode follower\'s grid stopper', () => {
     expect(store.getState().design.stage2.rstopper).toBe(0);
     await waitFor(() => expect(view.container.querySelector('[data-part-line="Rst3"]')).toBeNull());
     expect(screen.queryByText(/^Grid stopper 100 kΩ/)).toBeNull();
+  });
+
+  it('a follower off the bench is written on the build card as it is wired: its coupling and its stopper', () => {
+    const store = createWorkbenchStore();
+    const d = store.getState().design;
+    const input = { kind: 'common-cathode', tubeId: '12AX7', bplus: 280, ra: 100e3, rk: 1500, bypassed: true, ck: 22e-6, cc: 470e-9, rg: 1e6 };
+    const follower = { kind: 'follower', tubeId: '12AU7', rk: 22e3, coupling: { cc: 100e-9, rg: 1e6, vbias: 140 }, rstopper: 4.7e3 };
+    store.getState().commit({ ...d, before: [input, follower] as BenchDesign['before'] });
+    const section = cardSections(store.getState()).find((x) => x.heading === 'Stage 2, 12AU7 cathode follower, capacitor-coupled');
+    expect(section?.lines[0]).toBe('Rk 22 kΩ, Cc 100 nF from stage 1\'s plate into 1 MΩ, grid held at 140 V, grid stopper 4.7 kΩ');
+    expect(section?.lines).toEqual(expect.arrayContaining([expect.stringMatching(/^Rst2: 4\.7 kΩ E24/)]));
   });
 });
