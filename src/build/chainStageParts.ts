@@ -131,7 +131,7 @@ function splitterParts(s: SplitLoadLink | LongTailedPairLink, at: PartsContext):
   // needs its leak to that voltage, held at signal ground by its capacitor.
   const leak = s.coupling.kind === 'capacitor' ? s.coupling.rg : both ? s.heldGridLeak : undefined;
   if (leak !== undefined) resistors.push(resistorLine('Rgs', both ? 'splitter grid leaks, one per grid, to the divider' : 'splitter grid leak, to the divider', leak, 0, series));
-  if (!both) resistors.push(...stopperLines(s.rstopper, 'Rsts', 'splitter grid stopper, at the socket', series));
+  resistors.push(...stopperLines(s.rstopper, 'Rsts', both ? 'splitter grid stopper, at the first grid\'s socket' : 'splitter grid stopper, at the socket', series));
   if (s.coupling.kind === 'capacitor') {
     const divider = gridDivider({ upper: 'Rd1', lower: 'Rd2', cap: 'Cd' }, s.bplus, s.vbias ?? 0, series);
     resistors.push(...divider.resistors);

@@ -119,6 +119,8 @@ export interface LongTailedPairLink {
   /** Both grids' DC voltage with capacitor coupling, V; default 0. */
   readonly vbias?: number;
   readonly heaterVolts?: number;
+  /** Grid stopper, Ω, at the first (driven) grid's socket, between what feeds it and the grid; default 0, none. */
+  readonly rstopper?: number;
   readonly coupling: Coupling;
 }
 

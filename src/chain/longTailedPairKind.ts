@@ -8,6 +8,7 @@ import { modelOf, recordOf } from '../tube/types';
 import type { LongTailedPairLink } from './chainTypes';
 import { couplingImpedance } from './checkCoupling';
 import { checkTriodeLink } from './checkTriodeLink';
+import { stopperNote } from './stopperNote';
 import { NO_CAPACITANCES } from './noCapacitances';
 import type { LinkSample, StageKind } from './stageKind';
 
@@ -114,7 +115,7 @@ export const longTailedPairKind: StageKind<LongTailedPairLink> = {
       sample,
       cutoffCurrent: CUTOFF_FRACTION * Math.min(o1.ia, o2.ia),
       // One envelope: each triode's own findings named by it, the shared ones once.
-      findings: bothTriodesFindings(r.findings),
+      findings: [...bothTriodesFindings(r.findings), ...[stopperNote(s.tube, s.rstopper, r.gain1, r.gainCathode)].filter((f) => f !== null)],
       // The first triode, the tail at its cathode, and the second triode (its grid at signal ground) on the same cathode, its
       // plate the second output; each plate's next grid loads it through its own coupling in the network.
       linear: {

@@ -5,13 +5,15 @@ import type { ChainStage } from './chainTypes';
  * (its grid leak, or the plate before it when direct-coupled) and its grid,
  * so whatever its grid draws (the small-signal slope of its grid current,
  * its current past the onset, its Miller capacitance) is fed through it.
- * Gain stages, followers and split-load splitters carry one; other kinds none.
+ * Every triode kind carries one (a long-tailed pair's at its driven grid);
+ * output stages none (theirs are on their own parts lists, outside the band).
  */
 export function stopperOf(stage: ChainStage): number {
   switch (stage.kind) {
     case 'common-cathode':
     case 'follower':
     case 'split-load':
+    case 'long-tailed-pair':
       return stage.rstopper ?? 0;
     default:
       return 0;

@@ -40,6 +40,8 @@ export interface LongTailedPairResult {
   /** Gain from grid 1 to each plate with both loaded, signed: plate 1 inverts, plate 2 follows. */
   readonly gain1: number;
   readonly gain2: number;
+  /** The joined cathodes' swing over grid 1's, at midband (about a half with a long tail: the second triode's grid-to-cathode drive). */
+  readonly gainCathode: number;
   /** Plate 2's output over plate 1's, in magnitude (below 1 with equal plate resistors and a finite tail). */
   readonly balance: number;
   /** Each plate's output impedance with the grids at signal ground and the other plate loaded, Ω. */
@@ -175,6 +177,7 @@ export function solveLongTailedPair(design: LongTailedPairDesign): Result<LongTa
     gm,
     gain1,
     gain2,
+    gainCathode: mid[2]![0],
     balance: Math.abs(gain2 / gain1),
     zout,
     balanceAt,

@@ -87,7 +87,7 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     expect(partsOf(2).resistors.map((x) => x.ref)).not.toContain('Rst3');
   });
 
-  it('a follower\'s and a split-load splitter\'s grid stoppers are listed with their own parts, carrying no current', () => {
+  it('a follower\'s and a splitter\'s grid stoppers are listed with their own parts, carrying no current', () => {
     const follower: ChainInput = { ...input, stages: input.stages.map((s, i) => (i === 1 ? { ...s, rstopper: 47e3 } : s)) };
     const r = solveAmplifier(follower);
     if (!r.ok) throw new Error(r.message);
@@ -102,6 +102,11 @@ describe('each stage kind\'s parts, rated from its place in the solved amplifier
     if (!rs.ok) throw new Error(rs.message);
     const ps = chainStageParts(split, rs, 1, 'E12')!;
     expect(line(ps.resistors, 'Rsts')).toMatchObject({ role: 'splitter grid stopper, at the socket', preferred: 10e3, watts: 0 });
+    // A long-tailed pair's, at the grid the signal drives.
+    const tail: ChainInput = { ...input, stages: input.stages.map((s, i) => (i === 3 ? { ...s, rstopper: 4.7e3 } : s)) };
+    const rt = solveAmplifier(tail);
+    if (!rt.ok) throw new Error(rt.message);
+    expect(line(chainStageParts(tail, rt, 3, 'E12')!.resistors, 'Rsts')).toMatchObject({ role: 'splitter grid stopper, at the first grid\'s socket', preferred: 4.7e3, watts: 0 });
   });
 
   it('a gain stage with a volume control lists the pot in its leak\'s place, at its value as given (pots come in their own few values)', () => {

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, recordOf, solveChain, type ChainInput, type ChainStage } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
+import { longTailedPairKind } from '../../src/chain/longTailedPairKind';
+import type { LinkSample } from '../../src/chain/stageKind';
 
 // A follower's and a split-load splitter's grid stopper, as a gain stage's: checked as a field of its stage, and noted
 // with its own corner, 1/(2π·Rst·Cin), Cin by the Miller effect from the stage's own gains (J. M. Miller, Bureau of
@@ -20,6 +22,10 @@ const splitter = (rstopper: number): ChainInput => ({
     },
   ],
 });
+const longTail = (rstopper: number): ChainInput => {
+  const s = splitter(rstopper);
+  return { ...s, stages: [s.stages[0]!, { kind: 'long-tailed-pair', tube: au7, bplus: 400, ra: 47e3, ra2: 51e3, rk: 470, rtail: 15e3, vbias: 80, rstopper, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } }, s.stages[2]!] };
+};
 const cornerOf = (r: ReturnType<typeof solveChain>, stage: number) => {
   if (!r.ok) throw new Error(r.message);
   return r.findings.find((f) => f.kind === 'grid-stopper' && f.stage === stage);
@@ -48,6 +54,24 @@ describe('a grid stopper on a follower or a splitter', () => {
     expectClose(note.value!, 1 / (2 * Math.PI * 220e3 * (caps.cgp * (1 - s.gain) + caps.cgk * (1 - ak))), { rel: 1e-9 }, 'corner');
   });
 
+  it('a long-tailed pair\'s, at its driven grid: Cgp by one less the first plate\'s gain, Cgk by one less the joined cathodes\' (about a half)', () => {
+    const chain = longTail(100e3);
+    const r = solveChain(chain);
+    if (!r.ok) throw new Error(r.message);
+    const s = r.stages[1]!;
+    // How far the cathodes follow the first grid, read off the pair's own large-signal transfer (Koren's law solved at
+    // each instant): a millivolt on the grid, less what its grid-to-cathode voltage moves.
+    const solved = longTailedPairKind.solve(chain.stages[1] as Parameters<typeof longTailedPairKind.solve>[0], { gridDc: null, load: 470e3 });
+    if (!solved.ok) throw new Error(solved.message);
+    const out: LinkSample = { vout: 0, vout2: 0, vgk: 0, ia: 0 };
+    solved.sample(1e-3, out);
+    const ak = 1 - (out.vgk - s.op.vgk) / 1e-3;
+    expect(ak).toBeGreaterThan(0.3);
+    expect(ak).toBeLessThan(0.7);
+    const note = cornerOf(r, 1)!;
+    expectClose(note.value!, 1 / (2 * Math.PI * 100e3 * (caps.cgp * (1 - s.gain) + caps.cgk * (1 - ak))), { rel: 1e-4 }, 'corner');
+  });
+
   it('none without one, and the same operating points with one', () => {
     const bare = solveChain(follower(0));
     const stopped = solveChain(follower(100e3));
@@ -59,5 +83,6 @@ describe('a grid stopper on a follower or a splitter', () => {
   it('a bad value is named as the stage\'s field', () => {
     expect(solveChain(follower(-1))).toMatchObject({ ok: false, field: 'stages.1.rstopper', message: expect.stringMatching(/^Stage 2: Grid stopper/) });
     expect(solveChain(splitter(Number.NaN))).toMatchObject({ ok: false, field: 'stages.1.rstopper' });
+    expect(solveChain(longTail(-1))).toMatchObject({ ok: false, field: 'stages.1.rstopper' });
   });
 });

@@ -66,9 +66,9 @@ export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k
 function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle?: { readonly lp: number }): { lines: string[]; output: string; output2?: string } {
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
-  // A grid stopper (a gain stage's, a follower's, a split-load's): the coupling (or the output before, direct) ends at its
+  // A grid stopper (a gain stage's, a follower's, a splitter's first grid's): the coupling (or the output before, direct) ends at its
   // far side, the grid behind it.
-  const stopper = (s.kind === 'common-cathode' || s.kind === 'follower' || s.kind === 'split-load') && (s.rstopper ?? 0) > 0 ? s.rstopper! : 0;
+  const stopper = s.kind !== 'single-ended-output' && s.kind !== 'push-pull-output' && (s.rstopper ?? 0) > 0 ? s.rstopper! : 0;
   const gnode = s.coupling.kind === 'direct' && stopper === 0 ? input : `g${i}`;
   const leakTop = stopper > 0 ? (s.coupling.kind === 'direct' ? input : `g${i}x`) : gnode;
   const lines: string[] = stopper > 0 ? [`RST${i} ${leakTop} ${gnode} ${g(stopper)}`] : [];

@@ -5,8 +5,8 @@ import { chainNetlist, nodes } from './chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';
 
-// Outside reference: ngspice (Debian's package) on whole amplifiers whose followers and split-load splitter carry grid
-// stoppers, built from the same input the model takes (chainNetlist: the stopper between what feeds the grid and the
+// Outside reference: ngspice (Debian's package) on whole amplifiers whose followers and splitters (a split-load, a
+// long-tailed pair's driven grid) carry grid stoppers, built from the same input the model takes (chainNetlist: the stopper between what feeds the grid and the
 // grid, the tube's capacitances at its pins). Asked, as of every chain: each operating point within 0.5 %, the gain at
 // 1 kHz within 1 %, the −3 dB points within 3 %. The stoppers are large enough to move the top of each band by more
 // than twice that (checked below against the same amplifier without them), so a model that left them out fails.
@@ -41,6 +41,20 @@ const cases: { label: string; chain: (stopper: number) => ChainInput }[] = [
         {
           kind: 'push-pull-output', tube: findOutputTube('EL84')!, connection: 'ultralinear', bplus: 300, screenVolts: 300, ulTap: 0.4, raa: 8000, rPrimary: 240,
           bias: 'cathode', rk: 130, vg: 0, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 100e-9, rg: 470e3 },
+        },
+      ],
+    }),
+  },
+  {
+    label: '12AX7 → 12AU7 long-tailed pair (100k stopper at its first grid) → push-pull EL34, pentode, fixed bias',
+    chain: (r) => ({
+      source: { rsource: 600 },
+      stages: [
+        { kind: 'common-cathode', tube: ax7, bplus: 300, ra: 220e3, rk: 1500, bypassed: false, coupling: { kind: 'capacitor', cc: 47e-9, rg: 1e6 } },
+        { kind: 'long-tailed-pair', tube: au7, bplus: 400, ra: 47e3, ra2: 51e3, rk: 470, rtail: 15e3, vbias: 80, rstopper: r, coupling: { kind: 'capacitor', cc: 100e-9, rg: 1e6 } },
+        {
+          kind: 'push-pull-output', tube: findOutputTube('EL34')!, connection: 'pentode', bplus: 420, screenVolts: 400, ulTap: 0.4, raa: 6600, rPrimary: 180,
+          bias: 'fixed', rk: 1, vg: -36, speakerOhms: 8, thdLimit: 0.05, coupling: { kind: 'capacitor', cc: 220e-9, rg: 220e3 },
         },
       ],
     }),
