@@ -49,7 +49,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * bench's default (on the AC heater winding); `feedbackRf` (global
  * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across
  * it, F, or null): absent, none; `rstopper` (a gain stage's, a
- * follower's or a split-load splitter's grid stopper, Ω, 0 for none; the
+ * follower's or a splitter's grid stopper, Ω, 0 for none; the
  * bench's, its follower's, the splitter's and each such stage's): absent,
  * none; `volume`
  * (a volume control in Rg's place, its setting in dB below full, or null

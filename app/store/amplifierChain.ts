@@ -100,7 +100,7 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
     stages.push(
       sp.kind === 'split-load'
         ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), coupling: into }
-        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, coupling: into },
+        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
     const { tubeId: _id, rg, ...parts } = pushPullDesignOf(outputOnSupply(d, d.output));

@@ -35,7 +35,7 @@ export interface SplitterPlan {
   readonly cc: number;
   /** How its grid is fed: through Cout into its leak (held at `vgrid` by a divider), or direct from the last voltage stage's plate. */
   readonly coupling: 'capacitor' | 'direct';
-  /** The split-load's grid stopper at its socket, Ω; 0 or absent: none (a long-tailed pair here takes none). */
+  /** Its grid stopper at the (driven) grid's socket, Ω; 0 or absent: none. */
   readonly rstopper?: number;
 }
 

@@ -5,8 +5,8 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 
-describe('a split-load splitter\'s grid stopper', () => {
-  it('typed in the splitter\'s values: its corner is noted, the parts list and the drawing carry it; a long-tailed pair has no box for one', async () => {
+describe('a phase splitter\'s grid stopper', () => {
+  it('typed in the splitter\'s values: its corner is noted, the parts list and the drawing carry it, for a split-load and at a long-tailed pair\'s driven grid', async () => {
     const store = createWorkbenchStore();
     const user = userEvent.setup();
     const view = render(<App store={store} />);
@@ -25,9 +25,15 @@ describe('a split-load splitter\'s grid stopper', () => {
     await waitFor(() => expect(screen.getByText(/^Grid stopper 47 kΩ with the grid's (2\.\d+|3\.\d+) pF \(Miller effect\): its own corner is 1\.\d+ MHz, above the audio band/)).toBeTruthy());
     expect(view.container.querySelector('[data-part-line="Rsts"]')?.textContent).toMatch(/^Rsts \(splitter grid stopper, at the socket\)47 kΩ E24/);
     expect(within(screen.getByRole('group', { name: /^Amplifier drawing|amplifier/i })).getByRole('button', { name: /Grid stopper 47 kΩ/ })).toBeTruthy();
-    // The long-tailed pair's driven grid takes none here: no box, and nothing of the split-load's stopper listed.
+    // A long-tailed pair keeps it, at its driven grid: its cathodes follow that grid about half way, so Cgk counts about
+    // half, and one less its first plate's gain (about −6 for a 12AU7 pair here) multiplies Cgp: some 11 pF, a corner near
+    // 300 kHz.
     await user.click(group.getByRole('radio', { name: 'Long-tailed pair' }));
-    expect(group.queryByRole('textbox', { name: /^Splitter grid stopper/ })).toBeNull();
+    expect((group.getByRole('textbox', { name: /^Splitter grid stopper/ }) as HTMLInputElement).value).toBe('47k');
+    await waitFor(() => expect(view.container.querySelector('[data-part-line="Rsts"]')?.textContent).toMatch(/^Rsts \(splitter grid stopper, at the first grid's socket\)47 kΩ E24/));
+    expect(screen.getByText(/^Grid stopper 47 kΩ with the grid's 1[01]\.\d pF \(Miller effect\): its own corner is 3\d\d kHz, above the audio band/)).toBeTruthy();
+    await user.clear(group.getByRole('textbox', { name: /^Splitter grid stopper/ }));
+    await user.type(group.getByRole('textbox', { name: /^Splitter grid stopper/ }), 'none{Tab}');
     await waitFor(() => expect(view.container.querySelector('[data-part-line="Rsts"]')).toBeNull());
   });
 });

@@ -59,7 +59,7 @@ export function SplitterValues() {
         {ltp ? <ValueField field="sRtail" hint="to ground" /> : null}
         {sp.coupling === 'direct' ? null : <ValueField field="sVgrid" hint="grid DC, from a divider" />}
         {sp.coupling === 'direct' && !ltp ? null : <ValueField field="sRg" hint={sp.coupling === 'direct' ? 'the second grid\'s leak' : 'grid leak (RL of the stage before)'} />}
-        {ltp ? null : <ValueField field="sRst" hint="at its socket, in series with its grid; “none” to leave it out" />}
+        <ValueField field="sRst" hint={`at ${ltp ? 'the first grid\'s' : 'its'} socket, in series with the grid; “none” to leave it out`} />
         <ValueField field="sCc" hint="into each output grid" />
       </div>
       {driven && stage ? (

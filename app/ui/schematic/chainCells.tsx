@@ -192,7 +192,7 @@ export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { 
   const cx = x0 + 100;
   const r = 22;
   const ltp = sp.kind === 'long-tailed-pair';
-  const stopper = ltp ? 0 : (sp.rstopper ?? 0);
+  const stopper = sp.rstopper ?? 0;
   return (
     <>
       <Coupling x0={x0} cc={cc} value={value} field="cout" />
