@@ -124,6 +124,9 @@ const gridBias: Read = (text) => {
   return r;
 };
 
+/** A grid stopper's box, wherever it stands: "none" (or empty) is none, else the stopper's range; it shows "none" for none. */
+const stopper = { unit: 'Ω', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v: number | null) => (v ? compact(v) : 'none') };
+
 export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   bplus: { label: 'B+', unit: 'V', example: '275', read: ranged('B+', L.bplus), show: compact, ...top('bplus') },
   ra: { label: 'Ra', unit: 'Ω', example: '33k', read: ranged('Ra', L.ra), show: compact, ...top('ra') },
@@ -132,7 +135,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   rsource: { label: 'Source Rs', unit: 'Ω', example: '10k', read: ranged('Source impedance', L.rsource), show: compact, ...top('rsource') },
   cin: { label: 'Cin', unit: 'F', example: '68n or none', read: ranged('Cin', L.cin, { none: 'null' }), show: compact, ...top('cin') },
   rg: { label: 'Rg', unit: 'Ω', example: '2M2', read: ranged('Rg', L.rg), show: compact, ...top('rg') },
-  rstopper: { label: 'Grid stopper', unit: 'Ω', example: '68k or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.rstopper, put: (d, v) => ({ ...d, rstopper: v ?? 0 }) },
+  rstopper: { label: 'Grid stopper', example: '68k or none', ...stopper, get: (d) => d.rstopper, put: (d, v) => ({ ...d, rstopper: v ?? 0 }) },
   volume: { label: 'Volume control', unit: 'dB', example: '-6 or none', read: optional(decibelsBelowFull('Volume control', L.volume)), show: (v) => (v === null ? 'none' : String(Number(v.toPrecision(3)))), get: (d) => d.volume, put: (d, v) => ({ ...d, volume: v }) },
   ck: { label: 'Ck', unit: 'F', example: '100u or none', read: ranged('Ck', L.ck, { none: 'null' }), show: compact, ...top('ck') },
   cout: { label: 'Cout', unit: 'F', example: '470n or none', read: ranged('Cout', L.cout, { none: 'null' }), show: compact, ...top('cout') },
@@ -145,7 +148,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   rg2: { label: 'Rg (stage 2)', unit: 'Ω', example: '470k', read: ranged('Rg', L.stage2.rg), show: compact, ...second('rg') },
   fCc: { label: 'Cc (follower)', unit: 'F', example: '100n', read: ranged('Coupling capacitor', L.stage2.cc), show: compact, ...coupling('cc') },
   fRg: { label: 'Rg (follower)', unit: 'Ω', example: '1M', read: ranged('Grid leak', L.stage2.rg), show: compact, ...coupling('rg') },
-  fRst: { label: 'Grid stopper (follower)', unit: 'Ω', example: '10k or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.stage2.rstopper ?? 0, put: (d, v) => ({ ...d, stage2: { ...d.stage2, rstopper: v ?? 0 } }) },
+  fRst: { label: 'Grid stopper (follower)', example: '10k or none', ...stopper, get: (d) => d.stage2.rstopper ?? 0, put: (d, v) => ({ ...d, stage2: { ...d.stage2, rstopper: v ?? 0 } }) },
   fVbias: { label: 'Follower grid', unit: 'V', example: '150', read: ranged('Follower grid voltage', L.stage2.vbias), show: compact, ...coupling('vbias') },
   oBplus: { label: 'B+', unit: 'V', example: '350', read: ranged('B+', L.output.bplus), show: compact, ...out('bplus') },
   oScreen: { label: 'Screen supply', unit: 'V', example: '300', read: ranged('Screen supply', L.output.screenVolts), show: compact, ...out('screenVolts') },
@@ -169,7 +172,7 @@ export const FIELDS: Readonly<Record<FieldName, FieldDef>> = {
   sRtail: { label: 'Tail', unit: 'Ω', example: '10k', read: ranged('Tail resistor', L.splitter.rtail), show: compact, ...splitter('rtail') },
   sVgrid: { label: 'Splitter grid', unit: 'V', example: '90', read: ranged('Splitter grid voltage', L.splitter.vgrid), show: compact, ...splitter('vgrid') },
   sRg: { label: 'Splitter Rg', unit: 'Ω', example: '1M', read: ranged('Splitter grid leak', L.splitter.rg), show: compact, ...splitter('rg') },
-  sRst: { label: 'Splitter grid stopper', unit: 'Ω', example: '4k7 or none', read: noneIsZero(ranged('Grid stopper', L.rstopper)), show: (v) => (v ? compact(v) : 'none'), get: (d) => d.output.splitter.rstopper ?? 0, put: (d, v) => ({ ...d, output: { ...d.output, splitter: { ...d.output.splitter, rstopper: v ?? 0 } } }) },
+  sRst: { label: 'Splitter grid stopper', example: '4k7 or none', ...stopper, get: (d) => d.output.splitter.rstopper ?? 0, put: (d, v) => ({ ...d, output: { ...d.output, splitter: { ...d.output.splitter, rstopper: v ?? 0 } } }) },
   sCc: { label: 'Splitter Cc', unit: 'F', example: '100n', read: ranged('Splitter coupling capacitor', L.splitter.cc), show: compact, ...splitter('cc') },
   tGain: { label: 'Least gain', unit: '×', example: 'off, e.g. 30', read: optional(ranged('Gain', L.targets.gain)), show: showOptional(compact), ...target('minGain') },
   tClean: { label: 'Least clean output', unit: 'V rms', example: 'off, e.g. 20', read: optional(ranged('Clean output', L.targets.level)), show: showOptional(compact), ...target('minCleanOutputRms') },
