@@ -8,6 +8,7 @@ import type { AmplifierView } from '../store/amplifierChain';
 import { buildSheetOf, railOf } from '../store/buildSheet';
 import { heaterWindingsOf } from '../store/heaterPlan';
 import { tubesToOrderLine } from '../store/tubesToOrder';
+import { benchIndex } from '../store/stagePlans';
 import { IDLE_VOLTAGES_WORDS, idleRowsFor, idleVoltagesOf } from '../store/idleVoltages';
 import { feedbackPartLine } from '../ui/chain/feedbackPart';
 import { feedbackBrief } from '../ui/chain/feedbackWords';
@@ -100,11 +101,13 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   const chain = sig.chain?.ok ? sig.chain : null;
   const link = chain?.links[1];
   if (chain && link) {
+    // Numbered by its place in the amplifier: right after the bench's stage.
+    const n = benchIndex(d) + 2;
     sections.push({
-      heading: link.kind === 'follower' ? `Stage 2: ${d.stage2.tubeId} cathode follower, ${d.stage2.coupling ? 'capacitor-coupled' : 'direct-coupled'}` : `Stage 2: ${d.stage2.tubeId} gain stage, capacitor-coupled`,
+      heading: link.kind === 'follower' ? `Stage ${n}: ${d.stage2.tubeId} cathode follower, ${d.stage2.coupling ? 'capacitor-coupled' : 'direct-coupled'}` : `Stage ${n}: ${d.stage2.tubeId} gain stage, capacitor-coupled`,
       lines: [
         link.kind === 'follower'
-          ? `Rk ${ohms(d.stage2.rk)}${d.stage2.coupling ? `; Cc ${farads(d.stage2.coupling.cc)} into Rg ${ohms(d.stage2.coupling.rg)}, grid held at ${volts(d.stage2.coupling.vbias)}` : ''}`
+          ? `Rk ${ohms(d.stage2.rk)}${d.stage2.coupling ? `; Cc ${farads(d.stage2.coupling.cc)} into Rg ${ohms(d.stage2.coupling.rg)}, grid held at ${volts(d.stage2.coupling.vbias)}` : ''}${d.stage2.rstopper ? `; grid stopper ${ohms(d.stage2.rstopper)}` : ''}`
           : `Ra ${ohms(d.stage2.ra)}, Rk ${ohms(d.stage2.rk)} bypassed, Rg ${ohms(d.stage2.rg)}`,
         `Va ${volts(link.op.va)}, Vk ${volts(link.op.vk)}, Ia ${milliamps(link.op.ia)}, Vgk ${volts(link.op.vgk)}, Pa ${watts(link.op.pa)}`,
         `Gain ${plain(link.gain)} ×, Zout ${ohms(link.zout)}${link.kind === 'follower' ? `, heater–cathode ${volts(link.vhk)}` : ''}`,

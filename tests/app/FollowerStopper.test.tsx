@@ -24,6 +24,10 @@ describe('a cathode follower\'s grid stopper', () => {
     expect(view.container.querySelector('[data-part-line="Rst3"]')?.textContent).toMatch(/^Rst3 \(stage 3 follower grid stopper, at the socket\)100 kΩ E24/);
     expect(within(screen.getByRole('group', { name: /^Amplifier drawing|amplifier/i })).getByRole('button', { name: /Stage 3 Grid stopper 100 kΩ/ })).toBeTruthy();
     // A value below any real part is named beside the box, and the design keeps its last good value.
+    // On the card, under its own number (the bench's stage is the demo's second, so its follower is the third).
+    const card = cardSections(store.getState()).find((x) => x.heading.startsWith('Stage 3: 12AU7 cathode follower'));
+    expect(card?.heading).toBe('Stage 3: 12AU7 cathode follower, direct-coupled');
+    expect(card?.lines[0]).toBe('Rk 22 kΩ; grid stopper 100 kΩ');
     await user.type(field, '5', { initialSelectionStart: 0, initialSelectionEnd: field.value.length });
     expect(screen.getByText('Grid stopper must be at least 10 Ω')).toBeTruthy();
     expect(store.getState().design.stage2.rstopper).toBe(100e3);
