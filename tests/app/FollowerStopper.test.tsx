@@ -13,6 +13,8 @@ describe('a cathode follower\'s grid stopper', () => {
     const view = render(<App store={store} />);
     // The demo's driver (stage 2, 12AU7) gets a direct-coupled 12AU7 follower, which becomes stage 3.
     await user.selectOptions(screen.getByRole('combobox', { name: 'Add' }), 'follower');
+    // Its boxes are named for the follower (it is the amplifier's stage 3 here, not "stage 2").
+    expect((screen.getByRole('textbox', { name: /^Rk \(follower\)/ }) as HTMLInputElement).value).toBe('22k');
     const field = screen.getByRole('textbox', { name: /^Grid stopper \(follower\)/ }) as HTMLInputElement;
     expect(field.value).toBe('none');
     await user.clear(field);

@@ -38,7 +38,7 @@ describe.runIf(run)('nothing lost, every danger shown, in Chromium', () => {
     await page.getByRole('textbox', { name: /^Ra/ }).fill('220k');
     await page.getByRole('textbox', { name: /^Rk/ }).fill('1k8');
     await page.getByLabel('Add', { exact: true }).selectOption('follower');
-    await page.getByRole('textbox', { name: /^Rk \(stage 2\)/ }).fill('150k');
+    await page.getByRole('textbox', { name: /^Rk \(follower\)/ }).fill('150k');
     const ratings = page.getByRole('region', { name: 'Ratings checks' });
     // The demo's driver is stage 2 (after its 12AX7 input stage): its follower is stage 3.
     await expect.poll(() => ratings.locator('.finding.danger').filter({ hasText: 'Stage 3, 12AX7 cathode follower: Heater-to-cathode voltage' }).count()).toBe(1);

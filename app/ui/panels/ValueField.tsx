@@ -6,9 +6,11 @@ import { useDragPaced } from './useDragPaced';
 /**
  * One design value typed in the trade's notation. The box shows the user's
  * text; a message beside it says what is wrong, and the design keeps its last
- * valid value until the text is fixed.
+ * valid value until the text is fixed. `label` names the box where one
+ * field serves stages of more than one kind (a follower's Rk, a second gain
+ * stage's).
  */
-export function ValueField({ field, hint, readOnly }: { field: FieldName; hint?: string; readOnly?: boolean }) {
+export function ValueField({ field, hint, readOnly, label }: { field: FieldName; hint?: string; readOnly?: boolean; label?: string }) {
   const def = FIELDS[field];
   // A drag rewrites Ra, Rk or B+ on every move: the box follows at a readable pace, the figures strip live.
   const draft = useDragPaced((s) => s.drafts[field]);
@@ -19,7 +21,7 @@ export function ValueField({ field, hint, readOnly }: { field: FieldName; hint?:
   return (
     <div className={error ? 'value-field has-error' : 'value-field'}>
       <label htmlFor={id} className="field-label">
-        {def.label} <span className="unit">({def.unit})</span>
+        {label ?? def.label} <span className="unit">({def.unit})</span>
       </label>
       <input
         id={id}

@@ -61,7 +61,8 @@ export function Stage2Panel() {
           </div>
           <div className="value-grid">
             {stage2.kind === 'common-cathode' ? <ValueField field="ra2" /> : null}
-            <ValueField field="rk2" />
+            {/* Named for what it is: the follower after this stage is not always the amplifier's stage 2. */}
+            <ValueField field="rk2" label={stage2.kind === 'follower' ? 'Rk (follower)' : undefined} />
             {stage2.kind === 'common-cathode' ? <ValueField field="rg2" /> : null}
             {stage2.kind === 'follower' ? <ValueField field="fRst" hint="at the follower's socket, in series with its grid; “none” to leave it out" /> : null}
             {choice === 'follower-capacitor' ? (
