@@ -9,13 +9,5 @@ import type { ChainStage } from './chainTypes';
  * output stages none (theirs are on their own parts lists, outside the band).
  */
 export function stopperOf(stage: ChainStage): number {
-  switch (stage.kind) {
-    case 'common-cathode':
-    case 'follower':
-    case 'split-load':
-    case 'long-tailed-pair':
-      return stage.rstopper ?? 0;
-    default:
-      return 0;
-  }
+  return stage.kind === 'single-ended-output' || stage.kind === 'push-pull-output' ? 0 : (stage.rstopper ?? 0);
 }
