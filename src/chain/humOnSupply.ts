@@ -18,7 +18,7 @@ export function humOnSupply(input: AmplifierOnSupply, solved: AmplifierOnSupplyR
   if (!Array.isArray(nodes) || !Array.isArray(input.feeds) || typeof input.amplifier !== 'object' || input.amplifier === null || !Array.isArray(input.amplifier.stages)) {
     return fail('invalid-input', 'The solution must give every node, and the amplifier every stage and its node');
   }
-  const hum = supplyHum(placedOnSupply(input.amplifier, solved.bplus, solved.screenVolts), solved.amplifier, input.supply?.mainsHz);
+  const hum = supplyHum(placedOnSupply(input.amplifier, solved.bplus, solved.screenVolts), solved.amplifier, input.supply?.mainsHz, input.supply?.rectifier?.kind === 'silicon-half-wave');
   if (!hum.ok) return hum;
   const ripple = (node: unknown) => (typeof node === 'number' ? (nodes[node]?.rippleRms ?? 0) : null);
   const plates = input.feeds.map((node) => ripple(node) ?? 0);

@@ -53,8 +53,8 @@ export interface SupplyHum {
   readonly screenShare: readonly (number | null)[];
 }
 
-/** The ripple's frequency for a mains frequency: twice it, as every rectifier here is full wave (a centre-tapped winding, a bridge, or a full-wave tube). */
-export const rippleHzOf = (mainsHz: number) => 2 * mainsHz;
+/** The ripple's frequency for a mains frequency: twice it behind a full-wave rectifier (a centre-tapped winding, a bridge, a full-wave tube), the mains' own behind a half-wave one. */
+export const rippleHzOf = (mainsHz: number, halfWave = false) => (halfWave ? mainsHz : 2 * mainsHz);
 
 /** What drives a stage's grid at the ripple's frequency: the output impedance before it (the source's for the first stage), Ω, and that frequency, Hz. */
 interface GridDrive {
@@ -334,16 +334,17 @@ function screenShareOf(plan: ScreenFeedPlan, g: number, rippleHz: number, fromNo
  * injection at its output node, the stage loaded by the next one's input
  * (its grid leak, or nothing for a direct-coupled grid) or the amplifier's
  * load, then carried by every later stage's midband gain. `mainsHz` sets
- * the ripple's frequency, at which a screen dropper's bypass is read.
+ * the ripple's frequency (twice it; the mains' own with `halfWave`), at
+ * which a screen dropper's bypass is read.
  */
-export function supplyHum(chain: ChainInput, solved: ChainResult, mainsHz = 50): Result<SupplyHum> {
+export function supplyHum(chain: ChainInput, solved: ChainResult, mainsHz = 50, halfWave = false): Result<SupplyHum> {
   if (typeof chain !== 'object' || chain === null || !Array.isArray(chain.stages) || typeof solved !== 'object' || solved === null || !Array.isArray(solved.stages)) {
     return fail('invalid-input', 'Give the amplifier and its solution');
   }
   const problem = checkChain(chain);
   if (problem) return problem;
   if (!(typeof mainsHz === 'number' && mainsHz >= 1 && mainsHz <= 1000)) return fail('invalid-input', `The mains frequency must be from 1 Hz to 1 kHz (got ${shown(mainsHz)})`, 'mainsHz');
-  const rippleHz = rippleHzOf(mainsHz);
+  const rippleHz = rippleHzOf(mainsHz, halfWave === true);
   if (chain.stages.length !== solved.stages.length) return fail('invalid-input', `The solution has ${solved.stages.length} stages for an amplifier of ${chain.stages.length}`);
   const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
   const usable = solved.stages.every((st) => typeof st === 'object' && st !== null && finite(st.gain) && typeof st.op === 'object' && st.op !== null && finite(st.op.va) && finite(st.op.vk) && finite(st.op.vgk) && (st.zin === null || typeof st.zin === 'number'));

@@ -27,6 +27,7 @@ export type FindingKind =
   | 'rectifier-peak-current'
   | 'reservoir-capacitance'
   | 'transformer-current'
+  | 'winding-dc'
   | 'hum'
   | 'supply-bplus'
   | 'supply-coupling'

@@ -13,8 +13,8 @@ export function checkSupply(d: unknown): Failure | null {
   const s = d as SupplyDesign;
   const r = s.rectifier as { kind?: unknown; tubeId?: unknown } | undefined;
   const rectifierProblem =
-    typeof r !== 'object' || r === null || !['silicon-bridge', 'silicon-full-wave', 'tube'].includes(r.kind as string)
-      ? fail('invalid-input', 'Choose the rectifier: a silicon bridge, silicon full-wave (centre-tapped) or a rectifier tube', 'rectifier')
+    typeof r !== 'object' || r === null || !['silicon-bridge', 'silicon-full-wave', 'silicon-half-wave', 'tube'].includes(r.kind as string)
+      ? fail('invalid-input', 'Choose the rectifier: a silicon bridge, silicon full-wave (centre-tapped), silicon half-wave or a rectifier tube', 'rectifier')
       : r.kind === 'tube' && (typeof r.tubeId !== 'string' || !findRectifierTube(r.tubeId))
         ? fail('invalid-input', 'Choose a rectifier tube from the list (5AR4, 5U4GB, 5Y3GT, EZ81)', 'rectifier')
         : null;
@@ -35,6 +35,9 @@ export function checkSupply(d: unknown): Failure | null {
     checkNumber('c', 'Reservoir capacitor', input.c, 'F', 1e-7, 10) ??
     (input.kind === 'choke' ? checkNumber('l', 'Input choke', input.l, 'H', 0.01, 1000) ?? checkNumber('rdc', 'Choke resistance', input.rdc, 'Ω', 0, 100_000) : null);
   if (inputProblem) return { ...inputProblem, field: `input.${inputProblem.field}` };
+  // Common practice: a choke input holds its current through the gaps between pulses, and a half-wave rectifier leaves a
+  // whole half-cycle dead, far past what a practical choke bridges.
+  if (input.kind === 'choke' && r?.kind === 'silicon-half-wave') return fail('invalid-input', 'A choke input needs a full-wave rectifier: half-wave leaves it a dead half-cycle to carry the load through. Use a reservoir capacitor', 'input');
   if (!Array.isArray(s.sections) || s.sections.length > MAX_SECTIONS) return fail('invalid-input', `Give at most ${MAX_SECTIONS} filter sections`, 'sections');
   for (const [k, sec] of s.sections.entries()) {
     const x = sec as { kind?: unknown; r?: unknown; l?: unknown; rdc?: unknown; c?: unknown };

@@ -44,6 +44,10 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
   const omega = 2 * Math.PI * d.mainsHz;
   const period = 1 / d.mainsHz;
   const choke = d.input.kind === 'choke' ? d.input : null;
+  // The rectified source repeats every half mains cycle, or every cycle behind a half-wave rectifier.
+  const halfWave = d.rectifier.kind === 'silicon-half-wave';
+  const rectified = halfWave ? period : period / 2;
+  const measured = halfWave ? MEASURE_STEPS : MEASURE_STEPS / 2;
   const totalLoad = d.loads.reduce((a, b) => a + b, 0);
 
   // A first guess at the steady state: the peak less the rectifier's drop at the pulses' current and each section's IR drop.
@@ -68,12 +72,11 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
   const start = options?.start;
   if (Array.isArray(start) && start.length === n && start.every((x) => typeof x === 'number' && Number.isFinite(x) && x >= 0 && x <= peak)) guess.set(start);
 
-  // The rectified source repeats every half mains cycle.
-  const shot = options?.steady === 'marching' ? null : shootSteadyState(st, guess, period / 2, MEASURE_STEPS / 2);
+  const shot = options?.steady === 'marching' ? null : shootSteadyState(st, guess, rectified, measured);
   let cycles: number;
   if (shot) {
     st.writeState(shot.state);
-    cycles = shot.periods / 2;
+    cycles = (shot.periods * rectified) / period;
   } else {
     st.writeState(guess);
     const marched = marchToSteadyState(st, peak, period);
@@ -82,8 +85,7 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
   }
   const means = new Float64Array(n);
 
-  // Measure one period of the rectified source (half a mains cycle: both halves are alike) at the fine step.
-  const measured = MEASURE_STEPS / 2;
+  // Measure one period of the rectified source (half a mains cycle, both halves alike; a whole one behind half-wave) at the fine step.
   const lo = new Float64Array(n).fill(Infinity);
   const hi = new Float64Array(n).fill(-Infinity);
   const sq = new Float64Array(n);
@@ -92,7 +94,7 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
   let iSq = 0;
   let conducting = 0;
   const prev = new Float64Array(n);
-  const h = period / 2 / measured;
+  const h = rectified / measured;
   const samples: number[][] = Array.from({ length: n }, () => []);
   const waveT: number[] = [];
   const waveI: number[] = [];
@@ -128,14 +130,15 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
     capacitorRippleRms: Math.sqrt(capSq[m]!),
   }));
   const rectifierRms = Math.sqrt(iSq);
-  const centreTapped = d.rectifier.kind !== 'silicon-bridge';
+  // Each half of a centre-tapped winding carries every other pulse; a bridge's and a half-wave's winding carries them all.
+  const centreTapped = d.rectifier.kind !== 'silicon-bridge' && !halfWave;
   const secondaryRmsCurrent = centreTapped ? rectifierRms / Math.SQRT2 : rectifierRms;
   const dcAtInput = nodes[0]!.dc;
   const solution: SupplySolution = {
     nodes,
     rectifierPeak: iPeak,
     rectifierRms,
-    conductionDegrees: (conducting / measured) * 180,
+    conductionDegrees: (conducting / measured) * (halfWave ? 360 : 180),
     secondaryRmsCurrent,
     // Rated as a transformer is: its rated-load voltage times the current.
     secondaryVa: (centreTapped ? 2 : 1) * asked.secondaryRms * secondaryRmsCurrent,

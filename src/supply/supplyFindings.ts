@@ -6,6 +6,9 @@ import type { SupplyDesign, SupplySolution } from './supplyTypes';
 /** Above this share of a supply part's rating it gets a warning: mains runs up to 10 % high (common practice). */
 export const SUPPLY_WARN_FRACTION = 0.9;
 
+/** A half-wave winding's DC past this is a warning, A: a few milliamps (a bias supply's) a mains winding takes in its stride; tens magnetise its core (our threshold). */
+export const HALF_WAVE_DC_WARN_AMPS = 0.01;
+
 const v0 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
 const mA = (a: number) => `${(a * 1e3).toFixed(0)} mA`;
 
@@ -38,6 +41,12 @@ export function supplyFindings(d: SupplyDesign, s: SupplySolution): Finding[] {
     banded('rectifier-current', `The ${t.id} delivers`, total, t.maxDcAmps, mA, 'the cathode will be stripped; use a larger rectifier.');
     banded('rectifier-peak-current', `The ${t.id}'s peak plate current`, s.rectifierPeak, t.maxPeakAmps, mA, 'arcing and a short life: add winding or series resistance, or a smaller reservoir.');
     if (d.input.kind === 'capacitor') banded('reservoir-capacitance', `The ${t.id}'s reservoir capacitor of ${(d.input.c * 1e6).toFixed(0)} µF:`, d.input.c, t.maxReservoirFarads, (x) => `${(x * 1e6).toFixed(0)} µF`, 'the charging surge at switch-on exceeds what the tube is rated for.');
+  }
+  if (d.rectifier.kind === 'silicon-half-wave') {
+    // One diode passes current one way only: the winding carries the load's whole DC, which biases its core (common practice).
+    const dc = d.loads.reduce((a, b) => a + b, 0);
+    const heavy = dc > HALF_WAVE_DC_WARN_AMPS;
+    out.push(finding('winding-dc', heavy ? 'warning' : 'note', `Half-wave, the winding carries the load's ${mA(dc)} DC as well as its pulses${heavy ? ': that magnetises the transformer\'s core, which then runs hot and hums. Use a transformer rated for it, or rectify full wave.' : ', which a mains transformer takes at this size.'}`, dc, HALF_WAVE_DC_WARN_AMPS));
   }
   if (typeof r.secondaryAmps === 'number') banded('transformer-current', 'The secondary carries', s.secondaryRmsCurrent, r.secondaryAmps, (x) => `${mA(x)} rms`, 'the transformer will overheat.');
   if (r.hum && s.nodes[r.hum.node]) {

@@ -9,7 +9,8 @@ import type { SupplyDesign } from './supplyTypes';
  * the reservoir (a diode or a tube plate) solved by Newton inside each step.
  * The ladder is a chain, so each Newton iteration is one tridiagonal solve.
  * The transformer is a sine source behind its winding resistance (no
- * leakage inductance), full-wave rectified; the loads draw constant currents.
+ * leakage inductance), full-wave rectified (half-wave: the positive half
+ * only); the loads draw constant currents.
  *
  * The state (what the next step needs from the last) is every node voltage,
  * the current in each L–C section, and the input choke's current: `stateSize`
@@ -37,6 +38,7 @@ export function supplyStepper(d: SupplyDesign, law: DropLaw): SupplyStepper {
   const peak = Math.SQRT2 * d.secondaryRms;
   const omega = 2 * Math.PI * d.mainsHz;
   const rw = d.windingOhms;
+  const halfWave = d.rectifier.kind === 'silicon-half-wave';
   const choke = d.input.kind === 'choke' ? d.input : null;
   const inductive = d.sections.map((s, i) => (s.kind === 'lc' ? i + 1 : -1)).filter((k) => k > 0);
   const stateSize = n + inductive.length + (choke ? 1 : 0);
@@ -84,7 +86,8 @@ export function supplyStepper(d: SupplyDesign, law: DropLaw): SupplyStepper {
   };
 
   const step = (t: number, h: number): void => {
-    const e = peak * Math.abs(Math.sin(omega * t));
+    const s = Math.sin(omega * t);
+    const e = peak * (halfWave ? Math.max(s, 0) : Math.abs(s));
     for (let k = 1; k < n; k++) {
       const s = d.sections[k - 1]!;
       if (s.kind === 'rc') {

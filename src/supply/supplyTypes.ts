@@ -44,6 +44,8 @@ export interface SupplyRatings {
 export type Rectifier =
   | { readonly kind: 'silicon-bridge' }
   | { readonly kind: 'silicon-full-wave' }
+  /** One diode on one winding: a pulse a mains cycle, the ripple at the mains frequency, and the load's DC through the winding. */
+  | { readonly kind: 'silicon-half-wave' }
   | { readonly kind: 'tube'; readonly tubeId: string };
 
 export type FilterSection = { readonly kind: 'rc'; readonly r: number; readonly c: number } | { readonly kind: 'lc'; readonly l: number; readonly rdc: number; readonly c: number };
@@ -60,7 +62,7 @@ export interface SupplyNode {
 
 export interface SupplySolution {
   readonly nodes: readonly SupplyNode[];
-  /** Rectifier current: peak and rms of all its pulses, A; the share of each half-cycle it conducts, degrees of 180. */
+  /** Rectifier current: peak and rms of all its pulses, A; how long each pulse lasts, electrical degrees (of 180 a half-cycle; of 360 behind a half-wave rectifier, one pulse a cycle). */
   readonly rectifierPeak: number;
   readonly rectifierRms: number;
   readonly conductionDegrees: number;

@@ -72,6 +72,9 @@ describe("the supply's parts to order", () => {
     expectClose(bridge.piv, 250 * Math.SQRT2, { rel: 1e-9 }, 'bridge PIV');
     expect(bridge.diodeVolts).toBe(400);
     expect(listed({ ...base, secondaryRms: 400 }).parts.rectifier.diodeVolts).toBeNull();
+    // Half wave: with the reservoir charged to the peak, the diode stands it plus the winding's opposite peak, 2·Vpk.
+    const half = listed({ ...base, rectifier: { kind: 'silicon-half-wave' } }).parts.rectifier;
+    expectClose(half.piv, 2 * 250 * Math.SQRT2, { rel: 1e-9 }, 'half-wave PIV');
   });
 
   it('an input choke carries the whole supply\'s current', () => {

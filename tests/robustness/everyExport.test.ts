@@ -102,7 +102,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('humAtOutput', fc.tuple(fc.oneof(near({ perVolt: [0.1, null, -0.02] }), near({ perVolt: [0.1, null, -0.02], screenPerVolt: [null, null, -0.5], screenShare: [null, null, 0.05] }), anything), fc.oneof(fc.constant([1e-3, 2e-3, 0.5]), fc.array(numbers, { maxLength: 4 }), anything)), Q.humAtOutput);
   run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };
-  run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);
+  run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, rectifier: { kind: 'silicon-half-wave' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);
   run('solveSupply (rated winding)', fc.tuple(near({ ...supply, ratedAmps: 0.2, regulation: 0.08 })), Q.solveSupply, 30);
   const supplySolved = Q.solveSupply(supply as Q.SupplyDesign);
   if (!supplySolved.ok) throw new Error(supplySolved.message);

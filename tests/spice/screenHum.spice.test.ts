@@ -88,5 +88,11 @@ describe.runIf(run)('hum through a pentode output stage\'s screens, against ngsp
     expect(whole).toBeLessThanOrEqual(bound);
     // The bypass turns the screens' share near 90° from the plate's: the bound is not far over the whole (0.7: our threshold).
     expect(whole).toBeGreaterThan(0.7 * bound);
+    // Behind a half-wave rectifier the ripple comes at the mains' own 50 Hz, where the bypass passes twice as much.
+    const half = supplyHum(chain, solved, 50, true);
+    if (!half.ok) throw new Error(half.message);
+    const sim50 = rippleRun(chain, dropper, 'vm(screen) vr(out) vi(out)', 50);
+    expectClose(half.screenShare[1]!, sim50['vm(screen)']!, { rel: 0.02 }, 'share at 50 Hz');
+    expect(half.screenShare[1]! / hum.screenShare[1]!).toBeGreaterThan(1.8);
   });
 });

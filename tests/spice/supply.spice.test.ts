@@ -30,6 +30,16 @@ const supplies: { label: string; d: SupplyDesign; seconds: number }[] = [
     seconds: 1.5,
   },
   {
+    label: 'silicon half wave, 220 µF reservoir, one R–C section (a small single-ended amplifier\'s)',
+    d: { mainsHz: 50, secondaryRms: 230, windingOhms: 60, rectifier: { kind: 'silicon-half-wave' }, input: { kind: 'capacitor', c: 220e-6 }, sections: [{ kind: 'rc', r: 2200, c: 100e-6 }], loads: [0.045, 0.004] },
+    seconds: 2,
+  },
+  {
+    label: 'silicon half wave at 60 Hz from a 50 V bias tap: 47 µF, 10 kΩ into 47 µF, 2 mA (a fixed-bias rail\'s size)',
+    d: { mainsHz: 60, secondaryRms: 50, windingOhms: 150, rectifier: { kind: 'silicon-half-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 10e3, c: 47e-6 }], loads: [0, 0.002] },
+    seconds: 3,
+  },
+  {
     label: 'choke input (10 H, 150 Ω) into 47 µF, one R–C section',
     d: { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 }, sections: [{ kind: 'rc', r: 4700, c: 22e-6 }], loads: [0.08, 0.004] },
     seconds: 3,

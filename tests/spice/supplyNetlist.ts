@@ -4,7 +4,8 @@ import type { SupplyDesign } from '../../src/supply/supplyTypes';
 
 /**
  * A supply for ngspice: the secondary as sine sources behind the winding
- * resistance (two in antiphase for a centre-tapped winding), silicon diodes
+ * resistance (two in antiphase for a centre-tapped winding; one, into one
+ * diode, for half-wave), silicon diodes
  * with the model's own Shockley constants, a 0 V source carrying the rectifier's current (the bridge's winding source itself), a rectifier tube as a behavioural
  * Child–Langmuir source, the filter ladder and constant-current loads. The
  * capacitors start at 90 % of `start` (the model's answer), far enough off
@@ -26,6 +27,9 @@ export function supplyNetlist(d: SupplyDesign, start: readonly number[], seconds
     // Straight into the filter: a sense source there left the floating winding's far end too loose for the simulator's
     // steps (it stopped at 1.4 s, "timestep too small"); the winding's own source carries every pulse instead.
     lines.push(`D1 a1 ${into} DSI`, `D2 b ${into} DSI`, 'D3 0 a1 DSI', 'D4 0 b DSI');
+  } else if (d.rectifier.kind === 'silicon-half-wave') {
+    // One winding, one diode.
+    lines.push(`VA a 0 SIN(0 ${g(peak)} ${f})`, `RWA a a1 ${g(Math.max(d.windingOhms, 1e-6))}`, plate('a1', '1'));
   } else {
     lines.push(`VA a 0 SIN(0 ${g(peak)} ${f})`, `VB b 0 SIN(0 ${g(-peak)} ${f})`, `RWA a a1 ${g(Math.max(d.windingOhms, 1e-6))}`, `RWB b b1 ${g(Math.max(d.windingOhms, 1e-6))}`);
     lines.push(plate('a1', '1'), plate('b1', '2'));

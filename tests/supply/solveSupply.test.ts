@@ -116,7 +116,29 @@ describe('the B+ supply, solved in time', () => {
     expect(solveSupply({ ...base, ratedAmps: 0.2, regulation: 0.9 })).toMatchObject({ ok: false, field: 'regulation' });
   });
 
+  // Common practice: behind one diode the reservoir discharges for most of a whole mains cycle, so its ripple is about
+  // I/(f·C), twice a full-wave supply's from the same winding, and the pulses come once a cycle.
+  it('half-wave: ripple near I/(fC) and under it, about twice full wave\'s; one pulse a cycle; the winding carries every pulse; its DC named', () => {
+    const half = solved({ ...base, rectifier: { kind: 'silicon-half-wave' } });
+    const full = solved(base);
+    const rule = 0.07 / (50 * 47e-6);
+    expect(half.nodes[0]!.ripplePp).toBeLessThan(rule);
+    expect(half.nodes[0]!.ripplePp).toBeGreaterThan(0.6 * rule);
+    expect(half.nodes[0]!.ripplePp / full.nodes[0]!.ripplePp).toBeGreaterThan(1.6);
+    // The same charge a cycle in one pulse, not two: a longer, higher pulse.
+    expect(half.rectifierPeak).toBeGreaterThan(full.rectifierPeak);
+    // One winding carries all of the rectifier's current (a centre-tapped winding's halves each carry half the pulses).
+    expectClose(half.secondaryRmsCurrent, half.rectifierRms, { rel: 1e-12 }, 'winding rms');
+    expectClose(half.secondaryVa, 250 * half.rectifierRms, { rel: 1e-12 }, 'winding VA');
+    // 70 mA through the winding one way: past our 10 mA threshold, a warning; a bias rail's 2 mA is a note.
+    expect(half.findings.find((f) => f.kind === 'winding-dc')).toMatchObject({ severity: 'warning', message: expect.stringMatching(/^Half-wave, the winding carries the load's 70 mA DC/) });
+    const bias = solved({ ...base, secondaryRms: 50, rectifier: { kind: 'silicon-half-wave' }, loads: [0, 0.002] });
+    expect(bias.findings.find((f) => f.kind === 'winding-dc')?.severity).toBe('note');
+    expect(full.findings.find((f) => f.kind === 'winding-dc')).toBeUndefined();
+  });
+
   it('names the field of a bad value', () => {
+    expect(solveSupply({ ...base, rectifier: { kind: 'silicon-half-wave' }, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } })).toMatchObject({ ok: false, field: 'input', message: expect.stringMatching(/^A choke input needs a full-wave rectifier/) });
     expect(solveSupply({ ...base, mainsHz: 400 })).toMatchObject({ ok: false, field: 'mainsHz' });
     expect(solveSupply({ ...base, rectifier: { kind: 'tube', tubeId: '6SN7' } })).toMatchObject({ ok: false, field: 'rectifier' });
     expect(solveSupply({ ...base, sections: [{ kind: 'rc', r: 0, c: 47e-6 }] })).toMatchObject({ ok: false, field: 'sections.0.r', message: expect.stringMatching(/^Section 1: /) });
