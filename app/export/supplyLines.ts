@@ -2,6 +2,7 @@ import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../for
 import type { WorkbenchState } from '../store/workbenchStore';
 import { fedFrom } from '../store/supplySlice';
 import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
+import { oneWinding, rectifierName } from '../ui/supply/rectifierWords';
 import { lowEndWords } from '../ui/supply/lowEndWords';
 
 /**
@@ -15,7 +16,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   const view = s.supplyView;
   if (!p.on || !view || !view.result.ok) return null;
   const r = view.result;
-  const rectifier = p.rectifier.kind === 'tube' ? `${p.rectifier.tubeId} rectifier` : p.rectifier.kind === 'silicon-bridge' ? 'silicon bridge' : 'silicon full wave';
+  const rectifier = p.rectifier.kind === 'tube' ? `${p.rectifier.tubeId} rectifier` : `silicon ${rectifierName(p.rectifier)}`;
   const filter = [
     p.input.kind === 'choke' ? `${plain(p.input.l)} H (${ohms(p.input.rdc)}) into ${farads(p.input.c)}` : farads(p.input.c),
     ...p.sections.map((x) => `${x.kind === 'rc' ? ohms(x.r) : `${plain(x.l)} H (${ohms(x.rdc)})`} / ${farads(x.c)}`),
@@ -23,7 +24,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   const feeds = (k: number) => fedFrom(view, k).map((n) => n.title.toLowerCase());
   const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${smallVolts(n.ripplePp)} p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
   const lines = [
-    `${plain(p.secondaryRms)} V rms${p.rectifier.kind === 'silicon-bridge' ? '' : ' a side'}${p.secondaryAmps !== null ? ` at ${milliamps(p.secondaryAmps)}` : ''}, ${p.regulation !== null ? `${plain(p.regulation * 100)} % regulation` : `${ohms(p.windingOhms)} winding`}, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
+    `${plain(p.secondaryRms)} V rms${oneWinding(p.rectifier) ? '' : ' a side'}${p.secondaryAmps !== null ? ` at ${milliamps(p.secondaryAmps)}` : ''}, ${p.regulation !== null ? `${plain(p.regulation * 100)} % regulation` : `${ohms(p.windingOhms)} winding`}, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
     `Nodes ${nodes}`,
     `Rectifier peak ${milliamps(r.supply.rectifierPeak)}, winding ${milliamps(r.supply.secondaryRmsCurrent)} rms (${plain(r.supply.secondaryVa)} VA); ${volts(r.supply.noLoadVolts)} on every capacitor cold`,
   ];

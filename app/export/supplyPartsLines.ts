@@ -9,7 +9,7 @@ export const SUPPLY_CAPACITOR_RULE = 'Filter capacitors (voltage rating: the col
 export function rectifierWords(r: RectifierLine, tubeId: string | null): string {
   const stands = `stands ${volts(r.piv)} peak inverse cold (${volts(r.pivHighMains)} with the mains 10 % high), peak current ${milliamps(r.peakAmps)}`;
   if (r.kind === 'tube') return `Rectifier tube${tubeId ? ` ${tubeId}` : ''}: ${stands}; check its data sheet's peak inverse rating.`;
-  const each = r.kind === 'silicon-bridge' ? 'four diodes in a bridge, each' : 'two diodes, each';
+  const each = r.kind === 'silicon-bridge' ? 'four diodes in a bridge, each' : r.kind === 'silicon-half-wave' ? 'one diode, which' : 'two diodes, each';
   const part = r.diodeVolts !== null ? `: ${r.diodeVolts} V or more (1N400x series ratings)` : ': past 1000 V, two 1000 V diodes in series for each (common practice)';
   return `Rectifier, ${each} ${stands}${part}.`;
 }

@@ -23,9 +23,9 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   if (raw.regulation !== undefined && raw.regulation !== null && !isNum(raw.regulation)) return bad('.regulation', 'must be a number or null', raw.regulation);
   const r = raw.rectifier;
   let rectifier: Rectifier;
-  if (isRecord(r) && (r.kind === 'silicon-bridge' || r.kind === 'silicon-full-wave')) rectifier = { kind: r.kind };
+  if (isRecord(r) && (r.kind === 'silicon-bridge' || r.kind === 'silicon-full-wave' || r.kind === 'silicon-half-wave')) rectifier = { kind: r.kind };
   else if (isRecord(r) && r.kind === 'tube' && typeof r.tubeId === 'string' && findRectifierTube(r.tubeId)) rectifier = { kind: 'tube', tubeId: findRectifierTube(r.tubeId)!.id };
-  else return bad('.rectifier', 'must be a silicon bridge, silicon full wave or a known rectifier tube', r);
+  else return bad('.rectifier', 'must be a silicon bridge, silicon full wave, silicon half wave or a known rectifier tube', r);
   const i = raw.input;
   let input: SupplyDesign['input'];
   if (isRecord(i) && i.kind === 'capacitor' && isNum(i.c)) input = { kind: 'capacitor', c: i.c };

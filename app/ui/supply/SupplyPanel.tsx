@@ -5,12 +5,13 @@ import { SupplyField } from './SupplyField';
 import { SupplyResults } from './SupplyResults';
 import { HeaterWindings } from './HeaterWindings';
 import { SupplySchematic } from './SupplySchematic';
+import { oneWinding } from './rectifierWords';
 import { drivesPair } from '../../store/outputPlan';
 import { nodeOf } from '../../store/supplyPlan';
 import { nodeOfStage, voltageStages } from '../../store/stagePlans';
 
 const rectifierKey = (r: Rectifier) => (r.kind === 'tube' ? `tube:${r.tubeId}` : r.kind);
-const rectifierOf = (key: string): Rectifier => (key.startsWith('tube:') ? { kind: 'tube', tubeId: key.slice(5) } : { kind: key as 'silicon-bridge' | 'silicon-full-wave' });
+const rectifierOf = (key: string): Rectifier => (key.startsWith('tube:') ? { kind: 'tube', tubeId: key.slice(5) } : { kind: key as 'silicon-bridge' | 'silicon-full-wave' | 'silicon-half-wave' });
 
 /**
  * The B+ supply: transformer, rectifier and filter ladder, which node feeds
@@ -63,12 +64,13 @@ export function SupplyPanel() {
             <select id={`${id}-rect`} value={rectifierKey(plan.rectifier)} onChange={(e) => setSupply({ rectifier: rectifierOf(e.target.value) })}>
               <option value="silicon-full-wave">silicon, full wave (centre-tapped)</option>
               <option value="silicon-bridge">silicon bridge</option>
+              <option value="silicon-half-wave">silicon, half wave (one diode)</option>
               {RECTIFIER_TUBES.map((t) => <option key={t.id} value={`tube:${t.id}`}>{t.id} rectifier tube</option>)}
             </select>
           </div>
           <p className="field-hint">A transformer's voltage is stated at its rated current; with no load it rises by the winding's drop (its resistance, or its regulation when given).</p>
           <div className="value-grid">
-            <SupplyField path="secondaryRms" label={plan.rectifier.kind === 'silicon-bridge' ? 'Secondary' : 'Secondary, each half'} unit="V rms" example="260" />
+            <SupplyField path="secondaryRms" label={oneWinding(plan.rectifier) ? 'Secondary' : 'Secondary, each half'} unit="V rms" example="260" />
             <SupplyField path="secondaryAmps" label="At its rated current" unit="A" example="200m or none" />
             <SupplyField path="windingOhms" label="Winding resistance" unit="Ω" example="35" />
             <SupplyField path="regulation" label="Or its regulation" unit="%" example="8 or none" />

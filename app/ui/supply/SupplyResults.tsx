@@ -7,6 +7,7 @@ import { fedFrom, screensOf } from '../../store/supplySlice';
 import { bplusGroups, type BplusRole } from '../../store/supplyBplus';
 import { voltageStages } from '../../store/stagePlans';
 import { SupplyWaves } from './SupplyWaves';
+import { oneWinding } from './rectifierWords';
 import { lowEndWords } from './lowEndWords';
 
 const SAME_BPLUS_SHARE = 0.01;
@@ -79,8 +80,8 @@ export function SupplyResults() {
       <dl className="figure-group supply-figures">
         <div className="figure"><dt>Rectifier peak</dt><dd>{milliamps(sup.rectifierPeak)}</dd></div>
         <div className="figure"><dt>Rectifier rms</dt><dd>{milliamps(sup.rectifierRms)}</dd></div>
-        <div className="figure"><dt>Conducts</dt><dd>{plain(sup.conductionDegrees)}° of 180°</dd></div>
-        <div className="figure"><dt>Winding rms{plan.rectifier.kind === 'silicon-bridge' ? '' : ' (each half)'}</dt><dd>{milliamps(sup.secondaryRmsCurrent)}</dd></div>
+        <div className="figure"><dt>Conducts</dt><dd>{plain(sup.conductionDegrees)}° of {plan.rectifier.kind === 'silicon-half-wave' ? 360 : 180}°</dd></div>
+        <div className="figure"><dt>Winding rms{oneWinding(plan.rectifier) ? '' : ' (each half)'}</dt><dd>{milliamps(sup.secondaryRmsCurrent)}</dd></div>
         <div className="figure"><dt>Secondary</dt><dd>{plain(sup.secondaryVa)} VA</dd></div>
         <div className="figure"><dt>Cold (no load)</dt><dd>{volts(sup.noLoadVolts)}</dd></div>
         {sup.criticalInductance !== null ? <div className="figure"><dt>Critical L</dt><dd>{plain(sup.criticalInductance)} H</dd></div> : null}

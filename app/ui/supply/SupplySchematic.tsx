@@ -1,6 +1,6 @@
 import { farads, ohms, plain } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
-import type { SupplyPlan } from '../../store/supplyPlan';
+import { oneWinding, rectifierName } from './rectifierWords';
 import { fedFrom } from '../../store/supplySlice';
 
 const STEP = 118;
@@ -48,7 +48,6 @@ function labelLines(names: readonly string[]): string[] {
   return lines;
 }
 
-const rectifierText = (p: SupplyPlan) => (p.rectifier.kind === 'tube' ? p.rectifier.tubeId : p.rectifier.kind === 'silicon-bridge' ? 'bridge' : 'full wave');
 
 /**
  * The supply as a drawing of our own: the transformer and rectifier, then
@@ -69,7 +68,7 @@ export function SupplySchematic() {
   const labels = Array.from({ length: nodes }, (_, k) => (names && feeds && screenFeeds ? labelLines(fedFrom({ names, feeds, screenFeeds }, k).map((n) => n.title)) : []));
   const extra = (Math.max(1, ...labels.map((l) => l.length)) - 1) * LINE_HEIGHT;
   return (
-    <svg className="supply-schematic" viewBox={`0 ${-extra} ${width} ${150 + extra}`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierText(p)} rectifier, ${nodes} filter nodes`}>
+    <svg className="supply-schematic" viewBox={`0 ${-extra} ${width} ${150 + extra}`} role="img" aria-label={`The supply drawn: ${plain(p.secondaryRms)} V secondary, ${rectifierName(p.rectifier)} rectifier, ${nodes} filter nodes`}>
       <g stroke={INK} fill="none" strokeWidth={1.4}>
         {/* Transformer: primary and secondary coils with the core between. */}
         <path d={`${winding(26, 36, 64, 1)} M14 36 H26 M14 100 H26`} />
@@ -89,8 +88,8 @@ export function SupplySchematic() {
         ))}
       </g>
       <g fontSize={10} fill={INK}>
-        <text x={8} y={120}>{plain(p.secondaryRms)} V{p.rectifier.kind === 'silicon-bridge' ? '' : ' ×2'}</text>
-        <text x={80} y={TOP + 24}>{rectifierText(p)}</text>
+        <text x={8} y={120}>{plain(p.secondaryRms)} V{oneWinding(p.rectifier) ? '' : ' ×2'}</text>
+        <text x={80} y={TOP + 24}>{rectifierName(p.rectifier)}</text>
         {p.input.kind === 'choke' ? <text x={120} y={TOP - 12}>{plain(p.input.l)} H</text> : null}
         {Array.from({ length: nodes }, (_, k) => {
           const s = p.sections[k - 1];

@@ -12,14 +12,16 @@ const CYCLES = 2;
 /**
  * The rectifier's current pulses and the reservoir's voltage over two mains
  * cycles at the steady state: the model gives one rectified period (half a
- * cycle); it repeats, so it is drawn four times end to end.
+ * cycle, or a whole one behind a half-wave rectifier); it repeats, so it is
+ * drawn end to end as many times as two cycles hold.
  */
 export function SupplyWaves() {
   const wave = useWorkbench((s) => (s.supplyView?.result.ok ? s.supplyView.result.supply.wave : null));
+  const mainsHz = useWorkbench((s) => s.design.supply.mainsHz);
   const charts = useMemo(() => {
     if (!wave || wave.t.length === 0) return null;
     const period = wave.t.at(-1)!;
-    const repeats = 2 * CYCLES;
+    const repeats = Math.max(1, Math.round(CYCLES / (period * mainsHz)));
     const along = (ys: readonly number[], scale: number) => {
       const pts = [{ x: 0, y: ys.at(-1)! * scale }];
       for (let r = 0; r < repeats; r++) wave.t.forEach((t, k) => pts.push({ x: (r * period + t) * 1e3, y: ys[k]! * scale }));
@@ -35,7 +37,7 @@ export function SupplyWaves() {
     const i: XYSpec = { width: W, height: H, x, y: { domain: [0, Math.max(...current.map((p) => p.y)) * 1.1 || 1], label: 'Rectifier (mA)' }, series: [{ key: 'i', points: current, stroke: PALETTE.limit }] };
     const v: XYSpec = { width: W, height: H, x, y: { domain: [lo - pad, hi + pad], label: 'Node 1 (V)' }, series: [{ key: 'v', points: volts, stroke: PALETTE.load }] };
     return { i, v };
-  }, [wave]);
+  }, [wave, mainsHz]);
   if (!charts) return null;
   return (
     <div className="supply-waves">
