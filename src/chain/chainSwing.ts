@@ -129,8 +129,9 @@ export class ChainSignal {
         ? (link.cutoffCurrent - s.ia) / (Math.abs(link.op.ia) || 1)
         : link.cutoffSwing === null ? -Infinity : (link.op.vgk - s.vgk - link.cutoffSwing) / (Math.abs(link.cutoffSwing) || 1);
       margin = Math.max(margin, grid, cutoff);
-      if (s.vgk >= gridLimit) return { margin, by: 'grid-current' };
-      if (link.cutoffSwing === undefined ? s.ia <= link.cutoffCurrent : link.cutoffSwing !== null && link.op.vgk - s.vgk >= link.cutoffSwing) cut = true;
+      // Each scale is positive, so a limit is reached exactly where its margin is not below zero.
+      if (grid >= 0) return { margin, by: 'grid-current' };
+      if (cutoff >= 0) cut = true;
     }
     return { margin, by: cut ? 'cutoff' : null };
   }
