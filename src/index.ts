@@ -97,6 +97,11 @@ export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimaryS
 export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
+export { outputBiasSupply, pairBiasSupply, type FixedBiasSupply } from './output/fixedBiasSupply';
+export { type HotEnd } from './output/hotEnd';
+export { solveBiasSupply, checkBiasSupply, type BiasSupplyDesign, type BiasSupplySolution, type BiasTap } from './supply/biasSupply';
+export { STRING_AMPS, HOT_END_SLACK, COLD_END_MARGIN, POT_VALUES, type BiasString, type BiasReach } from './supply/biasString';
+export { type BiasParts } from './build/biasParts';
 export type { OutputSpread, SpreadEnd } from './output/outputSpread';
 export { STOPPER_CORNER_CLEAR_HZ, type GridStopper } from './output/gridStopper';
 export { settledCathode, type SettledCathode } from './output/settledCathode';

@@ -2,6 +2,7 @@ import { capacitorForCorner, capacitorLine, resistorLine, type CapacitorLine, ty
 import type { PreferredSeries } from '../parts/preferredValues';
 import type { Result } from '../result';
 import { biasAdjustment, type BiasAdjustment } from '../output/biasAdjustment';
+import { pairBiasTubes } from '../output/fixedBiasSupply';
 import { gridStopperFor, type GridStopper } from '../output/gridStopper';
 import { slopesAt } from '../output/solveOutput';
 import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
@@ -75,6 +76,7 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
     resistors.push(...screen.resistors);
     capacitors.push(...screen.capacitors);
   }
+  const fixed = pairBiasTubes(a);
   return {
     resistors,
     capacitors,
@@ -88,8 +90,7 @@ export function pushPullPartsList(a: PushPullAnalysis, series: PreferredSeries):
       screenTap: s.feed.kind === 'tap' ? d.ulTap : null,
     },
     biasSupply: d.bias === 'fixed' ? d.vg : null,
-    // Each tube as a single-ended stage on its own half of the primary (its DC resistance and a quarter of Raa, the load one tube sees in class A).
-    biasAdjustment: d.bias === 'fixed' ? biasAdjustment(s.tube, { ...d, zPrimary: d.raa / 4, rPrimary: d.rPrimary / 2 }, s.idle[0].vpk, s.idle[0].ip) : null,
+    biasAdjustment: fixed ? biasAdjustment(fixed.tube, fixed.design, fixed.vpk, fixed.ip) : null,
     gridStopper,
   };
 }

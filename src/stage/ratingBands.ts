@@ -34,6 +34,8 @@ export type FindingKind =
   | 'loop-stability'
   | 'primary-imbalance'
   | 'tube-spread'
+  /** A fixed-bias adjustment turned to its hot end. */
+  | 'bias-range'
   | 'distortion';
 
 /** One check of the design against the tube's ratings, worded to be shown as is. */

@@ -103,6 +103,9 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('amplifierAtLevel', fc.tuple(amplifier, fc.oneof(near({ outputRms: 2 }), near({ power: 1 }))), Q.amplifierAtLevel, 100);
   const supply = { mainsHz: 50, secondaryRms: 250, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 47e-6 }, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0.06, 0.01] };
   run('solveSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, rectifier: { kind: 'tube', tubeId: 'EZ81' } }), near({ ...supply, rectifier: { kind: 'silicon-half-wave' } }), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }))), Q.solveSupply, 40);
+  const biasRail = { mainsHz: 50, secondaryRms: 50, windingOhms: 150, reservoir: 47e-6, r: 4700, c: 100e-6 };
+  const reach = { weakest: 33, nominal: 37, strongest: 41 };
+  run('solveBiasSupply', fc.tuple(near(biasRail), fc.oneof(near([reach, reach]), near([reach]), anything)), Q.solveBiasSupply, 30);
   run('solveSupply (rated winding)', fc.tuple(near({ ...supply, ratedAmps: 0.2, regulation: 0.08 })), Q.solveSupply, 30);
   const supplySolved = Q.solveSupply(supply as Q.SupplyDesign);
   if (!supplySolved.ok) throw new Error(supplySolved.message);

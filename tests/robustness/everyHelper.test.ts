@@ -71,6 +71,7 @@ const outputAnalyses = fc.oneof(
   solvedBy({ ...output, bias: 'fixed', vg: -28 }, (d: Q.OutputDesign) => Q.analyzeOutput(el34, d)),
 );
 const pairAnalyses = solvedBy(ppDesign, (d: Q.PushPullDesign) => Q.analyzePushPull(el34, d));
+const cathodePairAnalyses = solvedBy({ ...ppDesign, bias: 'cathode' }, (d: Q.PushPullDesign) => Q.analyzePushPull(el34, d));
 const solvedChains = solvedBy(chainInput, (c: Q.ChainInput) => {
   const r = Q.solveChain(c);
   return r.ok ? { ok: true as const, pair: [c, r] as const } : r;
@@ -131,6 +132,11 @@ describe('every helper: no throw, no NaN or ±Infinity in an ok result', () => {
   run('amplifierParts', fc.tuple(solvedChains, typedNear({ series: 'E24', loadCoupling: 1e-6 })), (c: [Q.ChainInput, Q.ChainResult], o: Q.AmplifierPartsOptions) => Q.amplifierParts(c[0], c[1], o), 60);
   run('envelopesOf', fc.tuple(fc.array(fc.oneof(fc.constantFrom<unknown>(...Q.tubeLibrary), typedNear(au7)), { maxLength: 4 })), Q.envelopesOf);
   run('checkSupply', fc.tuple(fc.oneof(typedNear(supply), anything)), Q.checkSupply);
+  // A fixed-bias stage's grid supply, from the stage's analysis (a cathode-biased one is refused by name).
+  const biasRail = { mainsHz: 50, secondaryRms: 50, windingOhms: 150, reservoir: 47e-6, r: 4700, c: 100e-6 };
+  run('checkBiasSupply', fc.tuple(fc.oneof(typedNear(biasRail), anything)), Q.checkBiasSupply);
+  run('outputBiasSupply', fc.tuple(outputAnalyses, fc.oneof(fc.constant(biasRail), typedNear(biasRail))), Q.outputBiasSupply, 30);
+  run('pairBiasSupply', fc.tuple(fc.oneof(pairAnalyses, cathodePairAnalyses), fc.oneof(fc.constant(biasRail), typedNear(biasRail))), Q.pairBiasSupply, 30);
   run('findRectifierTube', fc.tuple(fc.oneof(fc.constantFrom('EZ81', '5AR4', 'GZ34'))), Q.findRectifierTube);
   // Found by fresh seeds when this run began (each failed before its fix).
   const sheetTube = Q.findTube('12AX7')!;
