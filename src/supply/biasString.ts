@@ -46,13 +46,16 @@ const RESISTORS: readonly number[] = [2, 3, 4, 5].flatMap((d) => E12.map((m) => 
  * trimmer whose hot end lies between the weakest tube's setting and
  * HOT_END_SLACK below it (as near it as the values allow: a pot turned the
  * wrong way then overheats no tube more than it must), whose cold end
- * reaches COLD_END_MARGIN past the strongest tube's, at a current from half
- * to twice STRING_AMPS, nearest it among equals. Null when the rail cannot
- * reach that far (or the reach is not a range of negative settings).
+ * reaches COLD_END_MARGIN past the strongest tube's and not far beyond (the
+ * narrower the span, the finer the setting), at a current from half to
+ * twice STRING_AMPS, nearest it among equals. With a `guard` (a share),
+ * both ends keep that much inside what they must reach. Null when the rail
+ * cannot reach that far (or the reach is not a range of negative settings).
  */
-export function designString(rail: number, reach: BiasReach): BiasString | null {
-  const lo = reach.weakest;
-  const hi = reach.strongest * (1 + COLD_END_MARGIN);
+export function designString(rail: number, reach: BiasReach, guard = 0): BiasString | null {
+  // A guard narrows what the string may do at this rail, so it still reaches when the rail moves by that share.
+  const lo = reach.weakest * (1 - guard);
+  const hi = reach.strongest * (1 + COLD_END_MARGIN) * (1 + guard);
   if (!(rail > 0 && lo > 0 && hi >= lo && hi < rail) || !Number.isFinite(rail + hi)) return null;
   let best: BiasString | null = null;
   let bestScore = Infinity;
@@ -61,8 +64,9 @@ export function designString(rail: number, reach: BiasReach): BiasString | null 
       for (const top of RESISTORS) {
         const { least, most, amps } = reachOn({ top, pot, bottom }, rail);
         if (!inReach(least, most, lo, hi) || amps < STRING_AMPS / 2 || amps > STRING_AMPS * 2) continue;
-        // The hot end as near the weakest tube's setting as the values allow, then the current near its aim.
-        const score = (lo - least) / lo + 0.1 * Math.abs(Math.log(amps / STRING_AMPS));
+        // The hot end as near the weakest tube's setting as the values allow; then the cold end not far past its margin
+        // (a trimmer that spans little more than the tubes need sets finely); then the current near its aim.
+        const score = (lo - least) / lo + 0.3 * ((most - hi) / hi) + 0.1 * Math.abs(Math.log(amps / STRING_AMPS));
         if (score < bestScore) {
           bestScore = score;
           best = { top, pot, bottom, amps, least, most };

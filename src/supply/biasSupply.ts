@@ -54,8 +54,11 @@ export interface BiasSupplySolution {
   readonly taps: readonly BiasTap[];
 }
 
-/** Rounds of rail and strings: each string's current moves the rail, which moves the string's choice. */
+/** Solves of the rail for one choice of strings (the secant settles in two or three), and choices of strings. */
 const MAX_ROUNDS = 8;
+const MAX_CHOICES = 3;
+/** How far inside what they must reach the strings are chosen (a share): the rail moves less than this as their current settles. */
+const CHOICE_GUARD = 0.01;
 /** Agreement asked between the current the rail was solved at and what the strings draw there (a fraction of it). */
 const LOAD_TOL = 1e-3;
 
@@ -106,32 +109,42 @@ export function solveBiasSupply(d: BiasSupplyDesign, reaches: readonly (BiasReac
     const ok = typeof r === 'object' && r !== null && [r.weakest, r.nominal, r.strongest].every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) && r.weakest <= r.nominal && r.nominal <= r.strongest;
     if (!ok) return fail('invalid-input', 'Each tube\'s settings must be volts below ground, the weakest tube\'s the least and the strongest\'s the most', 'reaches');
   }
-  let strings: (BiasString | null)[] = [];
   let load = reaches.length * STRING_AMPS;
   let start: number[] | null = null;
-  let before: { readonly load: number; readonly v: number } | null = null;
-  for (let round = 0; round < MAX_ROUNDS; round++) {
-    const rail = solveSupply(railOf(d, load), start ? { start } : {});
-    if (!rail.ok) return rail;
-    start = rail.nodes.map((n) => n.dc);
-    const v = rail.nodes[1]!.dc;
-    const held = strings.length > 0 && strings.every((s, i) => s !== null && stillReaches(s, v, reaches[i]!));
-    if (!held) strings = reaches.map((r) => designString(v, r));
+  let rail = solveSupply(railOf(d, load));
+  if (!rail.ok) return rail;
+  // Choose the strings on the rail as it stands, then find the current they and the rail agree on; a string that no
+  // longer reaches on the settled rail is chosen again there. Each is chosen with a guard, so the rail's own small move
+  // under the strings' current leaves it reaching.
+  for (let attempt = 0; attempt < MAX_CHOICES; attempt++) {
+    const v0 = rail.nodes[1]!.dc;
+    const strings = reaches.map((r) => designString(v0, r, CHOICE_GUARD) ?? designString(v0, r));
     const missing = strings.findIndex((s) => s === null);
     if (missing >= 0) {
       const need = reaches[missing]!.strongest * (1 + COLD_END_MARGIN);
-      return fail('supply-too-low', `The bias rail gives −${v.toFixed(1)} V; tube ${missing + 1}'s adjustment must reach −${need.toFixed(1)} V (the strongest tube's setting and ${Math.round(COLD_END_MARGIN * 100)} % past it). Raise the bias winding's voltage or lower the filter resistor`, 'secondaryRms');
+      return fail('supply-too-low', `The bias rail gives −${v0.toFixed(1)} V; tube ${missing + 1}'s adjustment must reach −${need.toFixed(1)} V (the strongest tube's setting and ${Math.round(COLD_END_MARGIN * 100)} % past it). Raise the bias winding's voltage or lower the filter resistor`, 'secondaryRms');
     }
     // The strings are resistors: they draw the rail's voltage times their conductance.
     const conductance = strings.reduce((a, s) => a + 1 / (s!.top + s!.pot + s!.bottom), 0);
-    const drawn = conductance * v;
-    if (held && Math.abs(drawn - load) <= LOAD_TOL * load) return { ok: true, ...solution(rail, v, drawn, strings as BiasString[], reaches) };
-    // From the second round, the rail's slope under load (the secant of the last two) points straight at the current the
-    // strings and the rail agree on: one more solve confirms it, where stepping by the strings' current alone takes several.
-    const slope = before && before.load !== load ? (v - before.v) / (load - before.load) : NaN;
-    const agreed = slope < 0 && Number.isFinite(slope) ? (conductance * (v - slope * load)) / (1 - slope * conductance) : drawn;
-    before = { load, v };
-    load = agreed > 0 && Number.isFinite(agreed) ? agreed : drawn;
+    let before: { readonly load: number; readonly v: number } | null = null;
+    for (let round = 0; round < MAX_ROUNDS; round++) {
+      const v = rail.nodes[1]!.dc;
+      const drawn = conductance * v;
+      if (Math.abs(drawn - load) <= LOAD_TOL * load) {
+        if (strings.every((s, i) => stillReaches(s!, v, reaches[i]!))) return { ok: true, ...solution(rail, v, drawn, strings as BiasString[], reaches) };
+        break;
+      }
+      // The rail's slope under load (the secant of the last two solves) points straight at the current the strings and
+      // the rail agree on: one more solve confirms it, where stepping by the strings' current alone takes several.
+      const slope = before && before.load !== load ? (v - before.v) / (load - before.load) : NaN;
+      const agreed = slope < 0 && Number.isFinite(slope) ? (conductance * (v - slope * load)) / (1 - slope * conductance) : drawn;
+      before = { load, v };
+      load = agreed > 0 && Number.isFinite(agreed) ? agreed : drawn;
+      start = rail.nodes.map((n) => n.dc);
+      const next = solveSupply(railOf(d, load), { start });
+      if (!next.ok) return next;
+      rail = next;
+    }
   }
   return fail('no-convergence', 'The bias rail and its strings did not settle: try a stiffer rail (a smaller filter resistor)', 'r');
 }
