@@ -19,7 +19,7 @@ import { elevationAdvice } from '../ui/panels/elevationAdvice';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, leakWords, otherStageSections, partLines } from './amplifierLines';
 import { supplySection } from './supplyLines';
-import { supplyPartLines } from './supplyPartsLines';
+import { biasSection, supplyPartLines } from './supplyPartsLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
 export const CARD_WIDTH = 1240;
@@ -35,7 +35,8 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   // The tubes once for the whole design, whichever bench the card is made from (no stage's section repeats them).
   const tubes = { heading: 'Tubes to order', lines: [tubesToOrderLine(s)] };
   const idle = idleVoltageSection(s);
-  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(idle ? [idle] : [])];
+  const bias = biasSection(s);
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(bias ? [bias] : []), ...(idle ? [idle] : [])];
 }
 
 /** Each stage's electrode voltages at idle, chassis to each: the figures to check at first switch-on. */

@@ -1,5 +1,6 @@
-import type { ChokeLine, RectifierLine, SupplyParts } from '../../src/index';
-import { farads, milliamps, ohms, plain, smallAmps, volts, watts } from '../format';
+import type { BiasParts, ChokeLine, RectifierLine, SupplyParts } from '../../src/index';
+import { biasSupplyOf } from '../store/biasSupply';
+import { farads, milliamps, ohms, plain, smallAmps, smallVolts, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /** The supply's capacitors' rating rule, as the table's caption states it. */
@@ -36,4 +37,44 @@ export function supplyPartLines(s: WorkbenchState): string[] {
 export function supplyPartsOf(s: WorkbenchState): SupplyParts | null {
   const v = s.supplyView;
   return s.design.supply.on && v && v.parts?.ok ? v.parts : null;
+}
+
+/** The bias supply's parts when the output stage is fixed-bias and its supply solves, else null. */
+export function biasPartsOf(s: WorkbenchState): BiasParts | null {
+  const r = biasSupplyOf(s);
+  return r?.ok ? r.parts : null;
+}
+
+/** The bias supply's parts as the card lists them: capacitors (fitted + to ground), resistors and trimmers, the diode. */
+export function biasPartLines(s: WorkbenchState): string[] {
+  const parts = biasPartsOf(s);
+  if (!parts) return [];
+  return [
+    ...parts.capacitors.map((c) => `${c.ref} (${c.role}): ${farads(c.value!)}, ${c.ratingVolts} V, ${c.polarity}`),
+    ...parts.resistors.map((r) => `${r.ref} (${r.role}): ${ohms(r.preferred)}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
+    biasDiodeWords(parts.rectifier),
+  ];
+}
+
+/** The bias rectifier in words: one diode, its cathode to the winding, anode to the reservoir. */
+export function biasDiodeWords(r: RectifierLine): string {
+  const part = r.diodeVolts !== null ? `: ${r.diodeVolts} V or more (1N400x series ratings)` : ': past 1000 V, two in series (common practice)';
+  return `Bias rectifier, one diode, anode to the reservoir (the rail is negative), which stands ${volts(r.piv)} peak inverse cold (${volts(r.pivHighMains)} with the mains 10 % high), peak current ${milliamps(r.peakAmps)}${part}.`;
+}
+
+/** The bias supply on the card: what the rail gives, what each trimmer reaches, the caution, then its parts; none without one. */
+export function biasSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
+  const r = biasSupplyOf(s);
+  if (!r) return null;
+  if (!r.ok) return { heading: 'Bias supply', lines: [`Not solved: ${r.message}`] };
+  const t = r.taps[0]!;
+  const each = r.taps.length > 1 ? 'Each tube’s trimmer' : 'The trimmer';
+  return {
+    heading: 'Bias supply: parts to order',
+    lines: [
+      `Rail −${volts(r.rail)} (${smallVolts(r.railRippleRms)} rms ripple). ${each} reaches −${volts(t.string.least)} to −${volts(t.string.most)}; a typical ${s.design.output.tubeId} sets at −${volts(t.nominal)}.`,
+      'Turn every trimmer to its cold end (most negative) and measure each grid with the output tubes out before first switch-on (common practice).',
+      ...biasPartLines(s),
+    ],
+  };
 }

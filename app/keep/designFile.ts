@@ -19,7 +19,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                                      primaryInductance, leakageInductance,
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling, rstopper? } }, drivesOutput,
  *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
- *                           channels, secondaryAmps, humRms },
+ *                           channels, secondaryAmps, humRms, bias? },
  *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
  *                 before: [stage…], after: [stage…] } }
  *
@@ -44,7 +44,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * amplifier; RL is then the output grid resistor) came later within
  * version 2: a file without it opens as it always did, the stages apart.
  * So did `supply` (the B+ supply, see supplyInFile.ts): a file without it
- * opens on the bench's default supply, its own values unchanged; and
+ * opens on the bench's default supply, its own values unchanged; and the
+ * supply's `bias` (a fixed-bias output stage's grid supply: { secondaryRms,
+ * windingOhms, reservoir, r, c }): absent, the bench's default; and
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
  * bench's default (on the AC heater winding); `feedbackRf` (global
  * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across

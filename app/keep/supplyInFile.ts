@@ -1,5 +1,5 @@
 import { findRectifierTube, type FilterSection, type Rectifier, type SupplyDesign } from '../../src/index';
-import { checkPlan, DEMO_SUPPLY, type SupplyPlan } from '../store/supplyPlan';
+import { checkPlan, DEMO_BIAS, DEMO_SUPPLY, type SupplyPlan } from '../store/supplyPlan';
 
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const isNum = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
@@ -42,6 +42,12 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   if (!isRecord(f) || !isNum(f.output) || !isNum(f.voltage)) return bad('.feeds', 'must name the output and voltage stages\' nodes', f);
   if (f.splitter !== undefined && !isNum(f.splitter)) return bad('.feeds.splitter', 'must be the phase splitter\'s node (a number), or left out', f.splitter);
   if (f.screens !== undefined && !isNum(f.screens)) return bad('.feeds.screens', 'must be the output stage\'s screens\' node (a number), or left out', f.screens);
+  // The bias supply came after the supply itself: a file without it opens with the bench's own, which changes nothing
+  // it designed (a cathode-biased stage has no use for one).
+  const b = raw.bias;
+  if (b !== undefined && !isRecord(b)) return bad('.bias', 'must be an object, or left out', b);
+  if (b !== undefined) for (const key of ['secondaryRms', 'windingOhms', 'reservoir', 'r', 'c'] as const) if (!isNum(b[key])) return bad(`.bias.${key}`, 'must be a number', b[key]);
+  const bias = b === undefined ? DEMO_BIAS : { secondaryRms: b.secondaryRms as number, windingOhms: b.windingOhms as number, reservoir: b.reservoir as number, r: b.r as number, c: b.c as number };
   const plan: SupplyPlan = {
     on: raw.on,
     mainsHz: raw.mainsHz as number,
@@ -59,6 +65,7 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
     secondaryAmps: raw.secondaryAmps as number | null,
     humRms: raw.humRms as number | null,
     regulation: (raw.regulation ?? null) as number | null,
+    bias,
   };
   const problem = checkPlan(plan);
   return problem ? { ok: false, message: `design.supply: ${problem.message}. Nothing was opened.` } : { ok: true, plan };

@@ -1,4 +1,5 @@
 import { amplifierFindings, type Finding, type StageFinding } from '../../src/index';
+import { biasSupplyOf } from './biasSupply';
 import type { WorkbenchState } from './workbenchStore';
 import { benchIndex, voltageStages } from './stagePlans';
 import { drivesPair, splitterName } from './outputPlan';
@@ -6,6 +7,8 @@ import { supplyBplusFindings } from './supplyBplus';
 
 /** How the supply is named in the ratings list. */
 export const SUPPLY_STAGE_NAME = 'B+ supply';
+/** How the fixed-bias output stage's grid supply is named in the ratings list. */
+export const BIAS_STAGE_NAME = 'Bias supply';
 /** How the feedback loop is named in the ratings list. */
 export const FEEDBACK_STAGE_NAME = 'Global feedback';
 
@@ -43,6 +46,11 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   const lowEnd = s.supplyView?.lowEnd;
   const coupling = lowEnd?.ok && !s.supplyView!.stale ? lowEnd.findings : [];
   if (d.supply.on && supply?.ok) stages.push({ name: SUPPLY_STAGE_NAME, findings: [...supply.supply.findings.filter((f) => f.severity !== 'note'), ...supplyBplusFindings(s), ...coupling] });
+  // A fixed-bias stage's grid supply: a rail that cannot bias the tubes is the amplifier's danger; its warnings (the hot
+  // end, the grid circuit's resistance) go with every other.
+  const bias = biasSupplyOf(s);
+  if (bias && !bias.ok) stages.push({ name: BIAS_STAGE_NAME, findings: [{ kind: 'bias-range', severity: 'danger', message: `The output tubes cannot be biased: ${bias.message}`, value: 0, limit: 0, percent: 0 }] });
+  else if (bias?.ok && bias.findings.some((f) => f.severity !== 'note')) stages.push({ name: BIAS_STAGE_NAME, findings: bias.findings.filter((f) => f.severity !== 'note') });
   return stages;
 }
 

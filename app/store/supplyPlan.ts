@@ -1,4 +1,4 @@
-import { checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
+import { checkBiasSupply, checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type BiasSupplyDesign, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
 import { chainInputOf, type ChainCardName } from './amplifierChain';
 import { screensOnNode } from './outputPlan';
 import type { BenchDesign } from './analysis';
@@ -37,7 +37,23 @@ export interface SupplyPlan {
   readonly regulation: number | null;
   /** The most ripple (rms) the voltage stages' node may carry, V; null for no budget. */
   readonly humRms: number | null;
+  /** A fixed-bias output stage's grid supply (its winding, one diode, reservoir and one R–C section); used only while the output stage is fixed-bias. */
+  readonly bias: BiasPlan;
 }
+
+/** The bias supply as the bench holds it: the model's BiasSupplyDesign on the plan's own mains. */
+export type BiasPlan = Omit<BiasSupplyDesign, 'mainsHz'>;
+
+/**
+ * The bias supply a plan opens with, of our own: a 50 V winding (or tap) of
+ * 150 Ω into 47 µF, then 4.7 kΩ into 100 µF. Two 1 mA strings leave a rail
+ * near −57 V, enough for the library's pentodes at their fixed-bias
+ * examples, and under 1 mV rms of ripple on it.
+ */
+export const DEMO_BIAS: BiasPlan = { secondaryRms: 50, windingOhms: 150, reservoir: 47e-6, r: 4700, c: 100e-6 };
+
+/** The model's bias supply for a plan: its bias values on the plan's mains. */
+export const biasDesignOf = (p: SupplyPlan): BiasSupplyDesign => ({ ...p.bias, mainsHz: p.mainsHz });
 
 /**
  * The supply the bench opens on, of our own: 246 V a side at 200 mA, full wave with
@@ -67,6 +83,7 @@ export const DEMO_SUPPLY: SupplyPlan = {
   secondaryAmps: 0.2,
   regulation: null,
   humRms: 0.005,
+  bias: DEMO_BIAS,
 };
 
 /** The model's supply for a plan, drawing nothing of its own (the stages' currents are added when it is solved); the hum budget is held at `humNode` (the first stage's). */
@@ -94,6 +111,8 @@ export function supplyDesignOf(p: SupplyPlan, humNode = p.feeds.voltage): Supply
 export function checkPlan(p: SupplyPlan): Failure | null {
   const problem = checkSupply(supplyDesignOf(p));
   if (problem) return problem;
+  const bias = checkBiasSupply(biasDesignOf(p));
+  if (bias) return { ...bias, field: `bias.${bias.field}` };
   const nodes = p.sections.length + 1;
   for (const which of ['output', 'voltage', 'splitter', 'screens'] as const) {
     const k = p.feeds[which];

@@ -104,6 +104,11 @@ export function supplyDraftsFor(p: SupplyPlan): Record<string, string> {
     secondaryAmps: p.secondaryAmps === null ? 'none' : compact(p.secondaryAmps),
     humRms: p.humRms === null ? 'none' : compact(p.humRms),
     regulation: p.regulation === null ? 'none' : compact(p.regulation / TYPED_SCALE.regulation!),
+    'bias.secondaryRms': compact(p.bias.secondaryRms),
+    'bias.windingOhms': compact(p.bias.windingOhms),
+    'bias.reservoir': compact(p.bias.reservoir),
+    'bias.r': compact(p.bias.r),
+    'bias.c': compact(p.bias.c),
   };
   if (p.input.kind === 'choke') {
     out['input.l'] = compact(p.input.l);
@@ -124,6 +129,7 @@ export function supplyDraftsFor(p: SupplyPlan): Record<string, string> {
 function putAt(p: SupplyPlan, path: string, value: number | null): SupplyPlan {
   const [head, index, key] = path.split('.');
   if (head === 'input' && index) return { ...p, input: { ...p.input, [index]: value } as SupplyPlan['input'] };
+  if (head === 'bias' && index) return { ...p, bias: { ...p.bias, [index]: value } };
   if (head === 'sections' && index !== undefined && key) {
     const k = Number(index);
     return { ...p, sections: p.sections.map((s, i) => (i === k ? ({ ...s, [key]: value } as FilterSection) : s)) };

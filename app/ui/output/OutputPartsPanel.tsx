@@ -12,6 +12,7 @@ import { StagesParts } from '../panels/StagesParts';
 import { IdleVoltages } from '../panels/IdleVoltages';
 import { TubesToOrder } from '../panels/TubesToOrder';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
+import { BiasPartsList } from '../supply/BiasPartsList';
 
 /** The parts to order on screen with the output stage on the bench, as the card lists them: every stage's when driven, then its transformer, resistors, capacitors, heater. */
 export function OutputPartsPanel() {
@@ -30,6 +31,7 @@ export function OutputPartsPanel() {
       ) : null}
       <OutputPartsLines />
       <SupplyPartsList />
+      <BiasPartsList />
       <IdleVoltages outputAlone />
     </section>
   );

@@ -9,6 +9,7 @@ import { StagesParts } from './StagesParts';
 import { IdleVoltages } from './IdleVoltages';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
+import { BiasPartsList } from '../supply/BiasPartsList';
 
 /** A number box for the build sheet's own inputs: shows the value, reports a bad entry beside itself. */
 function NumberInput({ label, value, unit, onValue, min }: { label: string; value: number; unit: string; onValue: (v: number) => void; min: number }) {
@@ -53,6 +54,7 @@ export function BuildSheetPanel() {
       ) : null}
       {feedbackPart ? <p data-testid="feedback-part">{feedbackPart}</p> : null}
       <SupplyPartsList />
+      <BiasPartsList />
       <IdleVoltages />
       <h3 className="subhead corner-head">Capacitors for a wanted low corner, the bench's stage</h3>
       <div className="option-row">

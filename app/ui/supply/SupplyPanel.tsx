@@ -4,6 +4,7 @@ import { useWorkbench } from '../../store/StoreProvider';
 import { SupplyField } from './SupplyField';
 import { SupplyResults } from './SupplyResults';
 import { HeaterWindings } from './HeaterWindings';
+import { BiasSupply } from './BiasSupply';
 import { SupplySchematic } from './SupplySchematic';
 import { oneWinding } from './rectifierWords';
 import { drivesPair } from '../../store/outputPlan';
@@ -164,6 +165,7 @@ export function SupplyPanel() {
           </div>
           {error ? <p className="field-error" role="alert">{error}</p> : null}
           <HeaterWindings />
+          <BiasSupply />
         </div>
         <SupplyResults />
       </div>
