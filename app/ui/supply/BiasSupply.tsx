@@ -3,6 +3,7 @@ import { ohms, percentOf, smallAmps, smallVolts, volts } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import { biasSupplyOf, needsBiasSupply } from '../../store/biasSupply';
 import { SupplyField } from './SupplyField';
+import { BiasSchematic } from './BiasSchematic';
 
 /** A negative voltage as the trade writes it: "−37.6 V". */
 const below = (v: number) => `−${volts(v)}`;
@@ -18,6 +19,7 @@ export function BiasSupply() {
   const result = useWorkbench(biasSupplyOf);
   const pair = useWorkbench((s) => s.design.output.pair === 'push-pull');
   const tube = useWorkbench((s) => s.design.output.tubeId);
+  const plan = useWorkbench((s) => s.design.supply.bias);
   const id = useId();
   if (!shown) return null;
   return (
@@ -27,6 +29,7 @@ export function BiasSupply() {
         The fixed-bias output {pair ? 'tubes’' : 'tube’s'} grid {pair ? 'voltages come' : 'voltage comes'} from a winding (or a bias tap) through one diode turned the negative way, a
         reservoir and one R–C section; from that rail a trimmer string for each tube, its wiper feeding the tube’s grid leak.
       </p>
+      <BiasSchematic plan={plan} result={result?.ok ? result : null} tubes={pair ? 2 : 1} />
       <div className="value-grid">
         <SupplyField path="bias.secondaryRms" label="Bias winding" unit="V rms" example="50" />
         <SupplyField path="bias.windingOhms" label="Its resistance" unit="Ω" example="150" />

@@ -2,38 +2,13 @@ import { farads, ohms, plain } from '../../format';
 import { useWorkbench } from '../../store/StoreProvider';
 import { oneWinding, rectifierName } from './rectifierWords';
 import { fedFrom } from '../../store/supplySlice';
+import { capacitorDown, coil, winding, zigzag } from './drawnParts';
 
 const STEP = 118;
 const TOP = 46;
 const GROUND = 118;
 const LEFT = 150;
 const INK = '#1d2733';
-
-/** A resistor drawn as a zigzag from x to x + w at height y. */
-function zigzag(x: number, y: number, w: number): string {
-  const n = 6;
-  const pts = [`M${x},${y}`, `L${x + w * 0.2},${y}`];
-  for (let k = 0; k < n; k++) pts.push(`L${x + w * 0.2 + ((k + 0.5) * w * 0.6) / n},${y + (k % 2 === 0 ? -6 : 6)}`);
-  pts.push(`L${x + w * 0.8},${y}`, `L${x + w},${y}`);
-  return pts.join(' ');
-}
-
-/** An inductor drawn as four humps from x to x + w at height y. */
-function coil(x: number, y: number, w: number): string {
-  const a = x + w * 0.15;
-  const hump = (w * 0.7) / 4;
-  let p = `M${x},${y} L${a},${y}`;
-  for (let k = 0; k < 4; k++) p += ` a${hump / 2},${hump / 2} 0 0 1 ${hump},0`;
-  return `${p} L${x + w},${y}`;
-}
-
-/** A vertical winding from (x, y) down h, its turns bulging left (−1) or right (+1). */
-function winding(x: number, y: number, h: number, side: 1 | -1): string {
-  const turn = h / 4;
-  let p = `M${x},${y}`;
-  for (let k = 0; k < 4; k++) p += ` a${turn / 2},${turn / 2} 0 0 ${side === 1 ? 1 : 0} 0,${turn}`;
-  return p;
-}
 
 /** A node's label lines, its names packed so each line fits between two nodes (about 19 characters at this size). */
 const LINE_CHARS = 19;
@@ -81,7 +56,7 @@ export function SupplySchematic() {
         <path d={`M${nodeX(0) - 10} ${GROUND} H${nodeX(nodes - 1) + 10}`} />
         {Array.from({ length: nodes }, (_, k) => (
           <g key={k}>
-            <path d={`M${nodeX(k)} ${TOP} V${TOP + 30} M${nodeX(k) - 12} ${TOP + 30} H${nodeX(k) + 12} M${nodeX(k) - 12} ${TOP + 36} H${nodeX(k) + 12} M${nodeX(k)} ${TOP + 36} V${GROUND}`} />
+            <path d={capacitorDown(nodeX(k), TOP, GROUND)} />
             {k > 0 ? <path d={p.sections[k - 1]!.kind === 'rc' ? zigzag(nodeX(k - 1), TOP, STEP) : coil(nodeX(k - 1), TOP, STEP)} /> : null}
             <circle cx={nodeX(k)} cy={TOP} r={2.5} fill={INK} />
           </g>
