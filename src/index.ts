@@ -119,7 +119,7 @@ export { SUPPLY_WARN_FRACTION } from './supply/supplyFindings';
 export type { SupplyRatings } from './supply/supplyTypes';
 export { solveOnSupply, solveOnSupplyInRounds, MAX_CHANNELS, type AmplifierOnSupply, type AmplifierOnSupplyResult } from './chain/solveOnSupply';
 export { supplyLowEnd, SUPPLY_GAIN_MARGIN_DB, SUPPLY_PEAK_WARNING_DB, type SupplyLowEnd } from './chain/supplyLowEnd';
-export { supplyHum, humAtOutput, type SupplyHum, type HumAtOutput } from './chain/supplyHum';
+export { supplyHum, humAtOutput, withBiasHum, type SupplyHum, type HumAtOutput, type HumWithBias } from './chain/supplyHum';
 export { humOnSupply } from './chain/humOnSupply';
 export { NOISE_BAND_HZ, type ChainNoise } from './chain/chainNoise';
 export { TRIODE_NOISE_RESISTANCE_GM } from './chain/chainResponse';

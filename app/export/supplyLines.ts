@@ -2,6 +2,7 @@ import { farads, milliamps, ohms, plain, smallVolts, volts, watts } from '../for
 import type { WorkbenchState } from '../store/workbenchStore';
 import { fedFrom } from '../store/supplySlice';
 import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
+import { biasHumOf } from '../store/biasSupply';
 import { oneWinding, rectifierName } from '../ui/supply/rectifierWords';
 import { lowEndWords } from '../ui/supply/lowEndWords';
 
@@ -28,7 +29,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
     `Nodes ${nodes}`,
     `Rectifier peak ${milliamps(r.supply.rectifierPeak)}, winding ${milliamps(r.supply.secondaryRmsCurrent)} rms (${plain(r.supply.secondaryVa)} VA); ${volts(r.supply.noLoadVolts)} on every capacitor cold`,
   ];
-  const hum = humWords(view, humSpeakerOhms(s, view));
+  const hum = humWords(view, humSpeakerOhms(s, view), biasHumOf(s));
   if (hum) lines.push(`${hum}, each stage's ripple carried to the output and added in phase`);
   const low = lowEndWords(view);
   if (low) lines.push(low);

@@ -26,3 +26,9 @@ export function biasSupplyOf(s: WorkbenchState): Result<FixedBiasSupply> | null 
   memo.set(b.settled, { plan, mainsHz, result });
   return result;
 }
+
+/** A fixed-bias single tube's hum at the speaker from its grid's ripple, V rms; null for a pair, cathode bias or a bias supply that does not solve. */
+export function biasHumOf(s: WorkbenchState): number | null {
+  const b = biasSupplyOf(s);
+  return b?.ok ? b.humAtSpeaker : null;
+}

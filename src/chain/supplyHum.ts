@@ -383,6 +383,25 @@ export interface HumAtOutput {
   readonly bound: number;
 }
 
+/** The hum at the output with a fixed-bias single tube's share added: its grid's ripple through the stage, V rms (null: none). */
+export interface HumWithBias extends HumAtOutput {
+  readonly bias: number | null;
+}
+
+/**
+ * The hum with the bias rail's share (FixedBiasSupply's humAtSpeaker) added
+ * to the bound as if in phase, as the B+ shares are (the rail's ripple is at
+ * the mains' frequency and the B+'s usually at twice it, so the real sum is
+ * at or under this bound too). Null or a share that is not a finite,
+ * not negative voltage adds nothing.
+ */
+export function withBiasHum(h: HumAtOutput, bias: number | null): Result<HumWithBias> {
+  const shares = (x: unknown) => Array.isArray(x) && x.every((v) => v === null || (typeof v === 'number' && Number.isFinite(v)));
+  if (typeof h !== 'object' || h === null || typeof h.bound !== 'number' || !Number.isFinite(h.bound) || h.bound < 0 || !shares(h.volts) || !shares(h.screens)) return fail('invalid-input', 'Give the hum at the output');
+  const share = typeof bias === 'number' && Number.isFinite(bias) && bias >= 0 ? bias : null;
+  return { ok: true, volts: h.volts, screens: h.screens, bound: h.bound + (share ?? 0), bias: share };
+}
+
 /**
  * The hum each stage's ripple gives at the output (its B+'s ripple, V rms,
  * times its share per volt, plus its screens' share of the ripple on the

@@ -5,6 +5,7 @@ import { App } from '../../app/App';
 import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { solveOnSupply } from '../../src/index';
 
 function bench() {
   const store = createWorkbenchStore();
@@ -59,6 +60,14 @@ describe('the bias supply of a fixed-bias output stage', () => {
     // Undo brings the rail back.
     act(() => store.getState().undo());
     expect(store.getState().design.supply.bias.secondaryRms).toBe(50);
+  });
+
+  it('adds a single tube\'s bias hum to the amplifier\'s hum at the speaker', async () => {
+    const store = createWorkbenchStore({ supplySolver: async (input) => solveOnSupply(input) });
+    render(<App store={store} />);
+    await waitFor(() => expect(store.getState().supplyView?.hum?.ok).toBe(true), { timeout: 5000 });
+    act(() => void store.getState().setOutputBias('fixed'));
+    await waitFor(() => expect(screen.getByTestId('supply-hum').textContent).toMatch(/; from the bias rail's ripple at the output tube's grid, [\d.]+ [µm]V\./), { timeout: 5000 });
   });
 
   it('opens an older file, written before the bias supply, with the bench\'s own', () => {

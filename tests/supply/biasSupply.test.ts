@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { solveChain, type ChainInput, analyzeOutput, analyzePushPull, findOutputTube, outputBiasSupply, pairBiasSupply, solveBiasSupply, COLD_END_MARGIN, HOT_END_SLACK, POT_VALUES, E12, type OutputDesign, type PushPullDesign } from '../../src/index';
+import { solveChain, withBiasHum, type ChainInput, analyzeOutput, analyzePushPull, findOutputTube, outputBiasSupply, pairBiasSupply, solveBiasSupply, COLD_END_MARGIN, HOT_END_SLACK, POT_VALUES, E12, type OutputDesign, type PushPullDesign } from '../../src/index';
 import { hotEnd } from '../../src/output/hotEnd';
 import { designString, reachOn } from '../../src/supply/biasString';
 import { expectClose } from '../helpers/expectClose';
@@ -117,6 +117,16 @@ describe('a fixed-bias output stage\'s bias supply', () => {
     const a = analyzeOutput(l6, { ...single, bias: 'cathode', rk: 250 });
     if (!a.ok) throw new Error(a.message);
     expect(outputBiasSupply(a, rail)).toMatchObject({ ok: false, field: 'bias' });
+  });
+});
+
+describe('withBiasHum', () => {
+  it('adds the bias rail\'s share to the bound as if in phase, and nothing for none', () => {
+    const h = { volts: [1e-3, 2e-4], screens: [null, null], bound: 1.2e-3 };
+    const added = withBiasHum(h, 3e-4);
+    expect(added).toMatchObject({ ok: true, bias: 3e-4 });
+    expect(added.ok && added.bound).toBeCloseTo(1.5e-3, 15);
+    expect(withBiasHum(h, null)).toMatchObject({ ok: true, bound: 1.2e-3, bias: null });
   });
 });
 

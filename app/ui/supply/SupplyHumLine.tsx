@@ -1,4 +1,6 @@
+import { withBiasHum } from '../../../src/index';
 import { smallVolts } from '../../format';
+import { biasHumOf } from '../../store/biasSupply';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { SupplyView } from '../../store/supplySlice';
 import type { WorkbenchState } from '../../store/workbenchStore';
@@ -9,8 +11,8 @@ import { drivesPair } from '../../store/outputPlan';
 export const humSpeakerOhms = (s: WorkbenchState, view: SupplyView | null) => (view?.names.some((n) => n.role === 'output') ? s.design.output.speakerOhms : null);
 
 /** The hum's headline in words, as the card prints it: the bound and how far under the reference it is. */
-export function humWords(view: SupplyView, speakerOhms: number | null): string | null {
-  const h = view.hum;
+export function humWords(view: SupplyView, speakerOhms: number | null, biasHum: number | null = null): string | null {
+  const h = view.hum?.ok ? withBiasHum(view.hum, biasHum) : null;
   if (!h?.ok) return null;
   const db = speakerOhms !== null ? `${(20 * Math.log10(Math.sqrt(speakerOhms) / Math.max(h.bound, 1e-12))).toFixed(0)} dB below 1 W into ${speakerOhms} Ω` : `${(20 * Math.log10(Math.max(h.bound, 1e-12))).toFixed(0).replace('-', '−')} dBV`;
   return `Hum at the ${speakerOhms !== null ? 'speaker' : 'output'}: at most ${smallVolts(h.bound)} rms (${db})`;
@@ -26,6 +28,7 @@ export function humWords(view: SupplyView, speakerOhms: number | null): string |
 export function SupplyHumLine({ view }: { view: SupplyView }) {
   const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
   const pairDriven = useWorkbench((s) => drivesPair(s.design));
+  const biasHum = useWorkbench(biasHumOf);
   const hum = view.hum;
   if (!hum) return null;
   if (!hum.ok) return <p className="field-error">{`Hum at the output: ${hum.message}`}</p>;
@@ -36,8 +39,8 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
   const screened = h.screens.some((v) => v !== null);
   return (
     <p className="supply-hum" data-testid="supply-hum">
-      <strong>{humWords(view, speakerOhms)}</strong>
-      {`. From each stage's B+ ripple: ${shares}.`}
+      <strong>{humWords(view, speakerOhms, biasHum)}</strong>
+      {`. From each stage's B+ ripple: ${shares}${biasHum !== null ? `; from the bias rail's ripple at the output tube's grid, ${smallVolts(biasHum)}` : ''}.`}
       <span className="supply-hum-why">
         {' Each stage\u2019s ripple is carried to the output by the stages after it at midband and the shares added as if in phase, so the real hum is at or under this.'}
         {uncounted ? ' Not counted: a stage whose own share could not be worked out at its operating point.' : ''}
@@ -56,7 +59,8 @@ export function SupplyHumLine({ view }: { view: SupplyView }) {
 export function StripHum() {
   const view = useWorkbench((s) => (s.design.supply.on ? s.supplyView : null));
   const speakerOhms = useWorkbench((s) => humSpeakerOhms(s, view));
-  const words = view ? humWords(view, speakerOhms) : null;
+  const biasHum = useWorkbench(biasHumOf);
+  const words = view ? humWords(view, speakerOhms, biasHum) : null;
   if (!words) return null;
   return (
     <div data-testid="strip-hum">
