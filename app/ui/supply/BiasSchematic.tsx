@@ -61,7 +61,7 @@ export function BiasSchematic({ plan, result, tubes }: { plan: { secondaryRms: n
         ) : null}
         <text x={STRING_X + 40} y={wiper - 10}>grid leak</text>
         <text x={STRING_X + 106} y={wiper + 4}>grid</text>
-        {tubes > 1 ? <text x={STRING_X + 22} y={TOP - 10} fill={NOTE}>one string a tube (×{tubes})</text> : null}
+        {tubes > 1 ? <text x={STRING_X + 16} y={GROUND - 6} fill={NOTE}>one string a tube (×{tubes})</text> : null}
       </g>
     </svg>
   );
