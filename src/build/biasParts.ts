@@ -28,7 +28,7 @@ export function biasPartsList(d: BiasSupplyDesign, s: BiasSupplySolution): BiasP
     volts: -volts,
     voltsAtSwitchOn: -cold,
     ratingVolts: rating,
-    polarity: '+ to ground (the rail is negative)',
+    polarity: '+ to ground',
     rippleAmps,
     note: null,
   });
@@ -36,14 +36,13 @@ export function biasPartsList(d: BiasSupplyDesign, s: BiasSupplySolution): BiasP
   const reservoirRipple = Math.sqrt(Math.max(s.diodeRms ** 2 - s.load ** 2, 0));
   const capacitors = [capacitor('Cb1', 'bias reservoir', d.reservoir, s.reservoir, reservoirRipple), capacitor('Cb2', 'bias rail', d.c, s.rail, s.railRippleRms / impedanceAt(d.c, d.mainsHz))];
   const resistors: ResistorLine[] = [resistorLine('Rb1', 'bias filter, reservoir to rail', d.r, s.load, 'E24')];
-  s.taps.forEach((t, i) => {
-    const n = s.taps.length > 1 ? `${i + 1}` : '';
-    const whose = s.taps.length > 1 ? ` for tube ${i + 1}` : '';
-    const { top, pot, bottom, amps } = t.string;
-    resistors.push(resistorLine(`Rbt${n}`, `bias string${whose}, rail to the trimmer`, top, amps, 'E12'));
-    resistors.push({ ...resistorLine(`VRb${n}`, `bias trimmer${whose}, linear: wiper to the grid leak`, pot, amps, 'E12'), preferred: pot, potentiometer: true });
-    resistors.push(resistorLine(`Rbb${n}`, `bias string${whose}, trimmer to ground`, bottom, amps, 'E12'));
-  });
+  // Every tube needs the same reach, so every string is alike: one line each part, its references one per tube.
+  const refs = (ref: string) => (s.taps.length > 1 ? s.taps.map((_, i) => `${ref}${i + 1}`).join(', ') : ref);
+  const each = s.taps.length > 1 ? ', one per tube' : '';
+  const { top, pot, bottom, amps } = s.taps[0]!.string;
+  resistors.push(resistorLine(refs('Rbt'), `bias string, rail to the trimmer${each}`, top, amps, 'E12'));
+  resistors.push({ ...resistorLine(refs('VRb'), `bias trimmer, linear: wiper to the grid leak${each}`, pot, amps, 'E12'), preferred: pot, potentiometer: true });
+  resistors.push(resistorLine(refs('Rbb'), `bias string, trimmer to ground${each}`, bottom, amps, 'E12'));
   const piv = s.piv;
   const pivHighMains = piv * MAINS_HIGH;
   return {

@@ -70,8 +70,8 @@ describe('a fixed-bias output stage\'s bias supply', () => {
     expect(b.taps[0]!.string.least).toBeLessThanOrEqual(-b.adjustment.weakest);
     expect(b.taps[0]!.string.most).toBeGreaterThanOrEqual(-b.adjustment.strongest);
     expect(b.humAtSpeaker).toBeNull();
-    expect(b.parts.resistors.map((r) => r.ref)).toEqual(['Rb1', 'Rbt1', 'VRb1', 'Rbb1', 'Rbt2', 'VRb2', 'Rbb2']);
-    expect(b.parts.capacitors.every((c) => c.polarity === '+ to ground (the rail is negative)' && c.ratingVolts >= 1.1 * b.noLoadVolts)).toBe(true);
+    expect(b.parts.resistors.map((r) => r.ref)).toEqual(['Rb1', 'Rbt1, Rbt2', 'VRb1, VRb2', 'Rbb1, Rbb2']);
+    expect(b.parts.capacitors.every((c) => c.polarity === '+ to ground' && c.ratingVolts >= 1.1 * b.noLoadVolts)).toBe(true);
     // 1N4001–1N4007 reverse ratings (their data sheet): the first at or past the PIV with the mains 10 % high.
     expect(b.parts.rectifier.diodeVolts).toBe(200);
   });

@@ -3,7 +3,7 @@ import { biasDiodeWords, biasPartsOf } from '../../export/supplyPartsLines';
 import { useWorkbench } from '../../store/StoreProvider';
 
 /** The bias supply's capacitors' rating rule, as the table's caption states it. */
-const BIAS_CAPACITOR_RULE = 'Bias capacitors (voltage rating: the cold voltage, mains 10 % high, IEC 60038; fitted + to ground)';
+const BIAS_CAPACITOR_RULE = 'Bias capacitors (voltage rating: the cold voltage, mains 10 % high, IEC 60038; fitted + to ground, the rail being negative)';
 
 /** The fixed-bias output stage's grid supply to order: its capacitors, filter resistor, each tube's string and trimmer, and its diode. */
 export function BiasPartsList() {
