@@ -142,7 +142,7 @@ describe('the amplifier strip', () => {
     expect(drawing().getByRole('button', { name: `Output stage Rk ${ohms(store.getState().design.output.rk)}: change` })).toBeTruthy();
     act(() => store.getState().commit({ ...store.getState().design, output: { ...store.getState().design.output, bias: 'fixed', vg: -24 } }));
     expect(drawing().queryByRole('button', { name: /^Output stage Rk/ })).toBeNull();
-    act(() => fireEvent.click(drawing().getByRole('button', { name: 'Output stage grid held at −24 V: change' })));
+    act(() => fireEvent.click(drawing().getByRole('button', { name: 'Output stage grid leak returned to −24 V: change' })));
     expect((editor() as HTMLInputElement).value).toBe('-24');
     act(() => fireEvent.keyDown(editor(), { key: 'Escape' }));
     // The source's impedance, at the input.

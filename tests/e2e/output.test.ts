@@ -53,6 +53,24 @@ describe.runIf(run)('the output stage in Chromium', () => {
     await page.close();
   });
 
+  it('switched to fixed bias, designs its bias supply: the rail, the string, the drawing, with no serious accessibility violation', async () => {
+    // The accessibility check injects its script: a browser that lets it past the page's policy.
+    const tooling = await openBrowser(undefined, { bypassCSP: true });
+    const { page, errors } = await openOutput(tooling);
+    await page.getByLabel('Fixed bias').first().check();
+    const bias = page.getByRole('region', { name: 'Bias supply' });
+    await bias.scrollIntoViewIfNeeded();
+    await expect.poll(() => bias.getByTestId('bias-results').textContent()).toMatch(/Rail−\d+(\.\d+)? V/);
+    expect(await bias.getByRole('img', { name: /^The bias supply drawn: 50 V winding, one diode/ }).count()).toBe(1);
+    // A winding too low for the strongest tube: said where the figures were, and the last good design kept.
+    const winding = bias.getByRole('textbox', { name: /^Bias winding/ });
+    await winding.fill('12');
+    await expect.poll(() => bias.getByRole('alert').first().textContent()).toMatch(/^The bias rail gives −/);
+    expect(await seriousViolations(page)).toEqual([]);
+    expect(errors).toEqual([]);
+    await tooling.close();
+  });
+
   it('compares two output tubes on one chart', async () => {
     const { page, errors } = await openOutput();
     await page.getByLabel('Compare with').check();

@@ -83,7 +83,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
     const hit = labels.get(stage);
     if (hit) return hit;
     const made: ValueLabel = (field, name, x, y, text, anchor = 'start') => (
-      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|Rs|to|2nd|\+) /, '')}`} onEdit={(at) => {
+      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|Rs|2nd|\+) /, '')}`} onEdit={(at) => {
         const spot = editorSpot(at, frame.current);
         open();
         setEditing({ field, at: spot });

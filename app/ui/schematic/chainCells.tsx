@@ -71,7 +71,7 @@ function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg:
     <>
       <Dot x={x0 + RG_X} y={GRID} />
       <Resistor x={x0 + RG_X} y1={GRID} y2={GROUND - 8} />
-      {to ? value(to.field, 'grid held at', x0 + RG_X, GROUND + 4, `to ${volts(to.volts)}`, 'middle') : <Ground x={x0 + RG_X} y={GROUND} />}
+      {to ? value(to.field, 'grid leak returned', x0 + RG_X, GROUND + 4, `to ${volts(to.volts)}`, 'middle') : <Ground x={x0 + RG_X} y={GROUND} />}
       {value(field, volume === null ? 'Rg' : 'Volume control', x0 + RG_X + 11, GRID + 32, ohms(rg))}
       {volume !== null && (
         <>
