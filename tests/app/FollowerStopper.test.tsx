@@ -25,6 +25,9 @@ describe('a cathode follower\'s grid stopper', () => {
     await waitFor(() => expect(screen.getByText(/^Grid stopper 100 kΩ with the grid's 1\.\d+ pF \(Miller effect\): its own corner is (9\d\d|1\.0\d) (kHz|MHz), above the audio band/)).toBeTruthy());
     expect(view.container.querySelector('[data-part-line="Rst3"]')?.textContent).toMatch(/^Rst3 \(stage 3 follower grid stopper, at the socket\)100 kΩ E24/);
     expect(within(screen.getByRole('group', { name: /^Amplifier drawing|amplifier/i })).getByRole('button', { name: /Stage 3 Grid stopper 100 kΩ/ })).toBeTruthy();
+    // The bench's own drawing of the stage and its follower draws it too, at the follower's grid, its value a button.
+    const bench = within(screen.getByRole('region', { name: 'Stage schematic: click a value to change it' }));
+    expect(bench.getByRole('button', { name: 'Grid stopper (follower) Rst 100 kΩ: change' })).toBeTruthy();
     // A value below any real part is named beside the box, and the design keeps its last good value.
     // On the card, under its own number (the bench's stage is the demo's second, so its follower is the third).
     const card = cardSections(store.getState()).find((x) => x.heading.startsWith('Stage 3: 12AU7 cathode follower'));
@@ -37,6 +40,7 @@ describe('a cathode follower\'s grid stopper', () => {
     await user.type(field, 'none{Tab}');
     expect(store.getState().design.stage2.rstopper).toBe(0);
     await waitFor(() => expect(view.container.querySelector('[data-part-line="Rst3"]')).toBeNull());
+    expect(within(screen.getByRole('region', { name: 'Stage schematic: click a value to change it' })).queryByRole('button', { name: /^Grid stopper \(follower\)/ })).toBeNull();
     expect(screen.queryByText(/^Grid stopper 100 kΩ/)).toBeNull();
   });
 

@@ -13,6 +13,15 @@ export const GRID_Y = 190;
 /** A capacitor-coupled follower's grid leak: where it stands and where it ends (at the divider). */
 export const FOLLOWER_LEAK_X = 292;
 export const FOLLOWER_LEAK_END = 252;
+/**
+ * With a stopper at the follower's grid, the leak rises from the wire after
+ * the capacitor instead (the stopper takes the run to the grid, and below
+ * the wire stand stage 1's name and figures): where it stands, and its top.
+ */
+export const STOPPED_LEAK_X = 263;
+export const STOPPED_LEAK_TOP = 84;
+/** Where a follower's stopper sits: from the corner to its grid. */
+const FOLLOWER_STOPPER = { x1: 274, x2: X2 - 36 } as const;
 
 interface DrawingProps {
   readonly kind: BenchDesign['stage2']['kind'];
@@ -22,6 +31,8 @@ interface DrawingProps {
   readonly hasLoad: boolean;
   /** A grid stopper between the leak and the grid. */
   readonly stopped: boolean;
+  /** A grid stopper at the follower's grid (after its leak, when capacitor-coupled). */
+  readonly followerStopped: boolean;
   /** The leak is a volume control: its wiper drawn as an arrow onto the track. */
   readonly potted: boolean;
   readonly tubeId: string;
@@ -33,7 +44,27 @@ interface DrawingProps {
  * the circuit's shape, so a drag (which changes values, not wiring) never
  * renders it again.
  */
-export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, stopped, potted, tubeId, tube2Id }: DrawingProps) {
+export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed, hasLoad, stopped, followerStopped, potted, tubeId, tube2Id }: DrawingProps) {
+  // The follower's grid wire from the corner: straight, or through its stopper.
+  const toFollowerGrid = followerStopped ? (
+    <>
+      <Wire points={[[270, GRID_Y], [FOLLOWER_STOPPER.x1, GRID_Y]]} />
+      <HResistor x1={FOLLOWER_STOPPER.x1} x2={FOLLOWER_STOPPER.x2} y={GRID_Y} />
+    </>
+  ) : (
+    <Wire points={[[270, GRID_Y], [X2 - 36, GRID_Y]]} />
+  );
+  const leak = followerStopped ? (
+    <>
+      <Dot x={STOPPED_LEAK_X} y={130} />
+      <Resistor x={STOPPED_LEAK_X} y1={STOPPED_LEAK_TOP} y2={130} />
+    </>
+  ) : (
+    <>
+      <Dot x={FOLLOWER_LEAK_X} y={GRID_Y} />
+      <Resistor x={FOLLOWER_LEAK_X} y1={GRID_Y} y2={FOLLOWER_LEAK_END} />
+    </>
+  );
   const outX = kind === 'none' ? 300 : 404;
   const outY = kind === 'follower' ? 250 : 130;
   const fromX = kind === 'none' ? X1 : X2;
@@ -76,13 +107,16 @@ export const StageDrawing = memo(function StageDrawing({ kind, coupled, bypassed
                 {coupled ? (
                   <>
                     <Capacitor at={130} from={X1} to={256} vertical={false} />
-                    <Wire points={[[256, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                    <Wire points={[[256, 130], [270, 130], [270, GRID_Y]]} />
+                    {toFollowerGrid}
                     {/* The leak hangs short, to the divider (named by its voltage), clear of stage 1's bypass and the follower's Rk. */}
-                    <Dot x={FOLLOWER_LEAK_X} y={GRID_Y} />
-                    <Resistor x={FOLLOWER_LEAK_X} y1={GRID_Y} y2={FOLLOWER_LEAK_END} />
+                    {leak}
                   </>
                 ) : (
-                  <Wire points={[[X1, 130], [270, 130], [270, GRID_Y], [X2 - 36, GRID_Y]]} />
+                  <>
+                    <Wire points={[[X1, 130], [270, 130], [270, GRID_Y]]} />
+                    {toFollowerGrid}
+                  </>
                 )}
                 <Wire points={[[X2, RAIL], [X2, 154]]} />
                 <Dot x={X2} y={RAIL} />

@@ -6,7 +6,7 @@ import { useWorkbench } from '../../store/StoreProvider';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import type { BenchDesign } from '../../store/analysis';
 import { benchSource } from '../../store/amplifierChain';
-import { FOLLOWER_LEAK_END, FOLLOWER_LEAK_X, GRID_Y, H, RAIL, StageDrawing, X1, X2 } from './StageDrawing';
+import { FOLLOWER_LEAK_END, FOLLOWER_LEAK_X, GRID_Y, H, RAIL, STOPPED_LEAK_TOP, STOPPED_LEAK_X, StageDrawing, X1, X2 } from './StageDrawing';
 
 /**
  * The stage drawn as a schematic, and the main control surface: each part's
@@ -16,7 +16,7 @@ import { FOLLOWER_LEAK_END, FOLLOWER_LEAK_X, GRID_Y, H, RAIL, StageDrawing, X1, 
  */
 type Spot = { x: number; y: number; anchor: 'start' | 'end' | 'middle' };
 
-function labelSpots(kind: BenchDesign['stage2']['kind'], coupled: boolean): Partial<Record<FieldName, Spot>> {
+function labelSpots(kind: BenchDesign['stage2']['kind'], coupled: boolean, followerStopped: boolean): Partial<Record<FieldName, Spot>> {
   const out = kind === 'none' ? { x: 300, yC: 130 } : { x: 404, yC: kind === 'follower' ? 250 : 130 };
   return {
     bplus: { x: X1 + 14, y: RAIL - 18, anchor: 'start' },
@@ -34,10 +34,13 @@ function labelSpots(kind: BenchDesign['stage2']['kind'], coupled: boolean): Part
     ...(kind === 'follower' && coupled
       ? {
           fCc: { x: 226, y: 112, anchor: 'middle' as const },
-          fRg: { x: FOLLOWER_LEAK_X - 8, y: 230, anchor: 'end' as const },
-          fVbias: { x: FOLLOWER_LEAK_X, y: FOLLOWER_LEAK_END + 14, anchor: 'middle' as const },
+          ...(followerStopped
+            ? { fRg: { x: STOPPED_LEAK_X + 10, y: 108, anchor: 'start' as const }, fVbias: { x: STOPPED_LEAK_X, y: STOPPED_LEAK_TOP - 8, anchor: 'middle' as const } }
+            : { fRg: { x: FOLLOWER_LEAK_X - 8, y: 230, anchor: 'end' as const }, fVbias: { x: FOLLOWER_LEAK_X, y: FOLLOWER_LEAK_END + 14, anchor: 'middle' as const } }),
         }
       : {}),
+    // Above the stopper and the follower's grid, clear of stage 1's name and the follower's envelope.
+    ...(kind === 'follower' && followerStopped ? { fRst: { x: 292, y: 150, anchor: 'middle' as const } } : {}),
   };
 }
 
@@ -60,6 +63,7 @@ function partText(f: FieldName, d: BenchDesign): string {
     case 'fCc': return d.stage2.coupling ? farads(d.stage2.coupling.cc) : '';
     case 'fRg': return d.stage2.coupling ? `Rg ${ohms(d.stage2.coupling.rg)}` : '';
     case 'fVbias': return d.stage2.coupling ? `to ${volts(d.stage2.coupling.vbias)}` : '';
+    case 'fRst': return `Rst ${ohms(d.stage2.rstopper ?? 0)}`;
     default: return FIELDS[f].label;
   }
 }
@@ -81,7 +85,8 @@ export function StageSchematic() {
   const fedFrom = useWorkbench((s) => (s.design.before.length > 0 ? benchSource(s.design, s.registry) : null));
   const fedBy = fedStage > 0 && fedFrom ? { stage: fedStage, source: fedFrom } : null;
   // A volume control's setting sits by its wiper, drawn only when Rg is one.
-  const allSpots = { ...labelSpots(kind, coupled), ...(design.volume !== null ? { volume: { x: 146, y: 272, anchor: 'start' as const } } : {}) };
+  const followerStopped = kind === 'follower' && (design.stage2.rstopper ?? 0) > 0;
+  const allSpots = { ...labelSpots(kind, coupled, followerStopped), ...(design.volume !== null ? { volume: { x: 146, y: 272, anchor: 'start' as const } } : {}) };
   const { rsource: _rs, ...laterSpots } = allSpots;
   const spots: Partial<Record<FieldName, Spot>> = fedBy ? laterSpots : allSpots;
   const hasLoad = Number.isFinite(design.rl);
@@ -90,7 +95,7 @@ export function StageSchematic() {
     <section className="panel schematic" aria-label="Stage schematic: click a value to change it">
       <div className="schematic-frame">
         <svg viewBox={`0 0 ${width} ${H}`} className="schematic-svg" role="group" aria-label={`Schematic: ${design.tubeId} common-cathode stage${kind === 'none' ? '' : kind === 'follower' ? `, then a cathode follower${coupled ? ', capacitor-coupled' : ''}` : ', then a second gain stage'}`}>
-          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} stopped={(design.rstopper ?? 0) > 0} potted={design.volume !== null} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
+          <StageDrawing kind={kind} coupled={coupled} bypassed={design.bypassed} hasLoad={hasLoad} stopped={(design.rstopper ?? 0) > 0} followerStopped={followerStopped} potted={design.volume !== null} tubeId={design.tubeId} tube2Id={design.stage2.tubeId} />
           {fedBy ? (
             <g fontSize={12} fill="#4a535c" textAnchor="middle">
               <text x={45} y={GRID_Y - 44}>{`from stage ${fedBy.stage}`}</text>
