@@ -6,6 +6,7 @@ import { checkPlan, checkStageNodes, onSupplyInputOf, type SupplyPlan } from './
 import { compact } from './fields';
 import { withNodeBplus, withStageNode, withStageNodesMoved } from './stagePlans';
 import { DEMO_DESIGN } from './demoDesign';
+import type { BiasView } from './biasSupply';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
 /** What the supply view shows: the amplifier solved on its supply, and the bleeder its capacitors need. */
@@ -36,6 +37,8 @@ export type SupplyDrafts = Readonly<Record<string, string>>;
 
 export interface SupplySlice {
   supplyView: SupplyView | null;
+  /** A fixed-bias output stage's grid supply, as last solved (watchBias in biasSupply.ts); null when none is needed. */
+  biasView: BiasView | null;
   supplyDrafts: SupplyDrafts;
   /** Messages by the same paths, and "supply" for the plan as a whole. */
   supplyErrors: Readonly<Record<string, string>>;
@@ -166,6 +169,7 @@ export const createSupplySlice: StateCreator<WorkbenchState, [], [], SupplySlice
   };
   return {
     supplyView: null,
+    biasView: null,
     supplyDrafts: supplyDraftsFor(DEMO_DESIGN.supply),
     supplyErrors: {},
 

@@ -8,6 +8,7 @@ import { createViewSlice, type ViewSlice } from './viewSlice';
 import { createOutputSlice, type OutputSlice } from './outputSlice';
 import { createChainSlice, type ChainSlice } from './chainSlice';
 import { createSupplySlice, watchSupply, type LowEndSolver, type SupplySlice, type SupplySolver } from './supplySlice';
+import { watchBias } from './biasSupply';
 import { createRegionSlice, inPlaceRegionSolver, watchRegion, type RegionSlice, type RegionSolver } from './regionSlice';
 
 /** The whole workbench state: the slices, combined once. */
@@ -46,6 +47,7 @@ export function createWorkbenchStore(options: StoreOptions = {}): WorkbenchStore
   }));
   recordHistory(store, options.now);
   watchSupply(store, options.supplySolver ?? null, options.lowEndSolver);
+  watchBias(store);
   watchRegion(store, regions);
   return store;
 }

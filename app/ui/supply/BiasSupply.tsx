@@ -17,6 +17,7 @@ const below = (v: number) => `−${volts(v)}`;
 export function BiasSupply() {
   const shown = useWorkbench(needsBiasSupply);
   const result = useWorkbench(biasSupplyOf);
+  const stale = useWorkbench((s) => s.biasView?.stale ?? false);
   const pair = useWorkbench((s) => s.design.output.pair === 'push-pull');
   const tube = useWorkbench((s) => s.design.output.tubeId);
   const plan = useWorkbench((s) => s.design.supply.bias);
@@ -39,10 +40,13 @@ export function BiasSupply() {
         <SupplyField path="bias.r" label="Bias filter resistor" unit="Ω" example="4k7" />
         <SupplyField path="bias.c" label="Bias rail capacitor" unit="F" example="100u" />
       </div>
-      {result === null ? null : !result.ok ? (
+      {result === null ? (
+        <p className="field-hint" role="status">Solving the bias supply…</p>
+      ) : !result.ok ? (
         <p className="finding danger" role="alert">{result.message}</p>
       ) : (
-        <div className="bias-results" data-testid="bias-results">
+        <div className={`bias-results${stale ? ' stale' : ''}`} data-testid="bias-results">
+          {stale ? <p className="stale-note" role="status">Solving again for the changed design; these figures are from before it.</p> : null}
           <table className="parts-table">
             <caption>The rail under the strings’ {smallAmps(result.load)}</caption>
             <tbody>
