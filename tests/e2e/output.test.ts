@@ -62,6 +62,13 @@ describe.runIf(run)('the output stage in Chromium', () => {
     await bias.scrollIntoViewIfNeeded();
     await expect.poll(() => bias.getByTestId('bias-results').textContent()).toMatch(/Rail−\d+(\.\d+)? V/);
     expect(await bias.getByRole('img', { name: /^The bias supply drawn: 50 V winding, one diode/ }).count()).toBe(1);
+    // Printed, the amplifier still takes one sheet: the bias supply's parts are the card's (its last sections).
+    await page.locator('[data-part-line="bias-rectifier"]').waitFor();
+    await page.locator('.supply-parts [data-part-line="rectifier"]').waitFor();
+    await page.emulateMedia({ media: 'print' });
+    const pdf = await page.pdf({ format: 'A4', printBackground: true });
+    expect((pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length).toBe(1);
+    await page.emulateMedia({ media: 'screen' });
     // A winding too low for the strongest tube: said where the figures were, and the last good design kept.
     const winding = bias.getByRole('textbox', { name: /^Bias winding/ });
     await winding.fill('12');

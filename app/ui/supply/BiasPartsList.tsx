@@ -10,7 +10,7 @@ export function BiasPartsList() {
   const parts = useWorkbench(biasPartsOf);
   if (!parts) return null;
   return (
-    <div className="stage-parts supply-parts">
+    <div className="stage-parts supply-parts bias-parts">
       <h3 className="subhead">Bias supply</h3>
       <PartsTables resistors={parts.resistors} capacitors={parts.capacitors} capacitorRule={BIAS_CAPACITOR_RULE} />
       <p data-part-line="bias-rectifier">{biasDiodeWords(parts.rectifier)}</p>
