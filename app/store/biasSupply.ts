@@ -3,7 +3,7 @@ import { biasDesignOf, type BiasPlan } from './supplyPlan';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
 /** The bias supply per settled analysis of the output stage, with the plan and mains it was solved for (tens of milliseconds a solve: once each). */
-const memo = new WeakMap<object, { plan: BiasPlan; mainsHz: number; result: Result<FixedBiasSupply> }>();
+const memo = new WeakMap<object, { plan: BiasPlan; mainsHz: number; channels: number; result: Result<FixedBiasSupply> }>();
 
 /** Whether the amplifier ends in a fixed-bias output stage, the one stage a bias supply feeds. */
 export const needsBiasSupply = (s: WorkbenchState) => (s.design.stageKind === 'output' || s.design.drivesOutput) && s.design.output.bias === 'fixed';
@@ -57,10 +57,11 @@ function solveBiasFor(s: WorkbenchState): Result<FixedBiasSupply> {
   const plan = s.design.supply.bias;
   const mainsHz = s.design.supply.mainsHz;
   const hit = memo.get(b.settled);
-  if (hit && hit.plan === plan && hit.mainsHz === mainsHz) return hit.result;
+  const channels = s.design.supply.channels;
+  if (hit && hit.plan === plan && hit.mainsHz === mainsHz && hit.channels === channels) return hit.result;
   const design = biasDesignOf(s.design.supply);
-  const result = b.pair === 'push-pull' ? pairBiasSupply(b.settled, design) : outputBiasSupply(b.settled, design);
-  memo.set(b.settled, { plan, mainsHz, result });
+  const result = b.pair === 'push-pull' ? pairBiasSupply(b.settled, design, channels) : outputBiasSupply(b.settled, design, channels);
+  memo.set(b.settled, { plan, mainsHz, channels, result });
   return result;
 }
 

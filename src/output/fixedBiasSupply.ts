@@ -60,12 +60,13 @@ export interface FixedBiasSupply extends BiasSupplySolution {
  * (solveBiasSupply), the hot end's dissipation (hotEnd), and for one tube
  * the hum its grid's ripple gives at the speaker through the stage's gain.
  */
-function fixedBiasSupply(t: FixedBiasTubes | null, bias: BiasSupplyDesign): Result<FixedBiasSupply> {
+function fixedBiasSupply(t: FixedBiasTubes | null, bias: BiasSupplyDesign, channels: number): Result<FixedBiasSupply> {
   if (t === null) return fail('invalid-input', 'A cathode-biased stage sets its own bias: it needs no bias supply', 'bias');
+  if (!Number.isInteger(channels) || channels < 1 || channels > MAX_BIAS_CHANNELS) return fail('invalid-input', `Give 1 to ${MAX_BIAS_CHANNELS} channels on the bias supply`, 'channels');
   const adjustment = biasAdjustment(t.tube, t.design, t.vpk, t.ip);
   if (!adjustment.ok) return adjustment;
   const reach = { weakest: -adjustment.weakest, nominal: -adjustment.nominal, strongest: -adjustment.strongest };
-  const solved = solveBiasSupply(bias, Array.from({ length: t.count }, () => reach));
+  const solved = solveBiasSupply(bias, Array.from({ length: t.count * channels }, () => reach));
   if (!solved.ok) return solved;
   const tap = solved.taps[0]!;
   const hot = hotEnd(t.tube, t.design, t.vpk, t.ip, -tap.string.least);
@@ -80,16 +81,19 @@ function fixedBiasSupply(t: FixedBiasTubes | null, bias: BiasSupplyDesign): Resu
   return { ...solved, adjustment, parts: biasPartsList(bias, solved), hotEnd: hot, humAtSpeaker: t.speakerGain === null ? null : tap.gridRippleRms * Math.abs(t.speakerGain), findings };
 }
 
-/** A fixed-bias single-ended stage's bias supply, from its analysis, with the hum its grid's ripple makes at the speaker. */
-export function outputBiasSupply(a: OutputAnalysis, bias: BiasSupplyDesign): Result<FixedBiasSupply> {
+/** Channels one bias supply may feed: a string per tube, the pair's two per channel (solveBiasSupply takes 8 strings). */
+const MAX_BIAS_CHANNELS = 4;
+
+/** A fixed-bias single-ended stage's bias supply (every channel's tube on the one rail), from its analysis, with the hum its grid's ripple makes at the speaker. */
+export function outputBiasSupply(a: OutputAnalysis, bias: BiasSupplyDesign, channels = 1): Result<FixedBiasSupply> {
   if (typeof a !== 'object' || a === null || typeof a.solution !== 'object' || a.solution === null) return fail('invalid-input', 'Give the output stage\'s analysis');
-  return fixedBiasSupply(singleEndedBiasTubes(a), bias);
+  return fixedBiasSupply(singleEndedBiasTubes(a), bias, channels);
 }
 
-/** A fixed-bias pair's bias supply, from its analysis: a string per tube, their ripple common to both grids. */
-export function pairBiasSupply(a: PushPullAnalysis, bias: BiasSupplyDesign): Result<FixedBiasSupply> {
+/** A fixed-bias pair's bias supply (every channel's pair on the one rail), from its analysis: a string per tube, their ripple common to both grids. */
+export function pairBiasSupply(a: PushPullAnalysis, bias: BiasSupplyDesign, channels = 1): Result<FixedBiasSupply> {
   if (typeof a !== 'object' || a === null || typeof a.solution !== 'object' || a.solution === null) return fail('invalid-input', 'Give the pair\'s analysis');
-  return fixedBiasSupply(pairBiasTubes(a), bias);
+  return fixedBiasSupply(pairBiasTubes(a), bias, channels);
 }
 
 const kilohms = (ohms: number) => `${Math.round(ohms / 1e3)} kΩ`;

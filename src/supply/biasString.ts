@@ -48,11 +48,12 @@ const RESISTORS: readonly number[] = [2, 3, 4, 5].flatMap((d) => E12.map((m) => 
  * wrong way then overheats no tube more than it must), whose cold end
  * reaches COLD_END_MARGIN past the strongest tube's and not far beyond (the
  * narrower the span, the finer the setting), at a current from half to
- * twice STRING_AMPS, nearest it among equals. With a `guard` (a share),
+ * twice `aim` (STRING_AMPS unless a rail too weak for it asks less),
+ * nearest it among equals. With a `guard` (a share),
  * both ends keep that much inside what they must reach. Null when the rail
  * cannot reach that far (or the reach is not a range of negative settings).
  */
-export function designString(rail: number, reach: BiasReach, guard = 0): BiasString | null {
+export function designString(rail: number, reach: BiasReach, guard = 0, aim = STRING_AMPS): BiasString | null {
   // A guard narrows what the string may do at this rail, so it still reaches when the rail moves by that share.
   const lo = reach.weakest * (1 - guard);
   const hi = reach.strongest * (1 + COLD_END_MARGIN) * (1 + guard);
@@ -63,10 +64,10 @@ export function designString(rail: number, reach: BiasReach, guard = 0): BiasStr
     for (const bottom of RESISTORS) {
       for (const top of RESISTORS) {
         const { least, most, amps } = reachOn({ top, pot, bottom }, rail);
-        if (!inReach(least, most, lo, hi) || amps < STRING_AMPS / 2 || amps > STRING_AMPS * 2) continue;
+        if (!inReach(least, most, lo, hi) || amps < aim / 2 || amps > aim * 2) continue;
         // The hot end as near the weakest tube's setting as the values allow; then the cold end not far past its margin
         // (a trimmer that spans little more than the tubes need sets finely); then the current near its aim.
-        const score = (lo - least) / lo + 0.3 * ((most - hi) / hi) + 0.1 * Math.abs(Math.log(amps / STRING_AMPS));
+        const score = (lo - least) / lo + 0.3 * ((most - hi) / hi) + 0.1 * Math.abs(Math.log(amps / aim));
         if (score < bestScore) {
           bestScore = score;
           best = { top, pot, bottom, amps, least, most };

@@ -56,7 +56,9 @@ export interface BiasSupplySolution {
 
 /** Solves of the rail for one choice of strings (the secant settles in two or three), and choices of strings. */
 const MAX_ROUNDS = 8;
-const MAX_CHOICES = 3;
+const MAX_CHOICES = 6;
+/** The lightest strings aimed at, A: a quarter of STRING_AMPS (a wiper with a few hundred kilohms behind it would add to the grid circuit's resistance). */
+const LIGHTEST_AIM = STRING_AMPS / 4;
 /** How far inside what they must reach the strings are chosen (a share): the rail moves less than this as their current settles. */
 const CHOICE_GUARD = 0.01;
 /** Agreement asked between the current the rail was solved at and what the strings draw there (a fraction of it). */
@@ -116,10 +118,21 @@ export function solveBiasSupply(d: BiasSupplyDesign, reaches: readonly (BiasReac
   // Choose the strings on the rail as it stands, then find the current they and the rail agree on; a string that no
   // longer reaches on the settled rail is chosen again there. Each is chosen with a guard, so the rail's own small move
   // under the strings' current leaves it reaching.
+  // The strings' current aimed at: lighter strings when the rail sags too far under heavier ones (a rail of several
+  // strings through a large filter resistor), down to a quarter of STRING_AMPS.
+  let aim = STRING_AMPS;
   for (let attempt = 0; attempt < MAX_CHOICES; attempt++) {
     const v0 = rail.nodes[1]!.dc;
-    const strings = reaches.map((r) => designString(v0, r, CHOICE_GUARD) ?? designString(v0, r));
+    const strings = reaches.map((r) => designString(v0, r, CHOICE_GUARD, aim) ?? designString(v0, r, 0, aim));
     const missing = strings.findIndex((s) => s === null);
+    if (missing >= 0 && aim > LIGHTEST_AIM * 1.01) {
+      aim = Math.max(aim / 2, LIGHTEST_AIM);
+      load = reaches.length * aim;
+      const lighter = solveSupply(railOf(d, load), { start: rail.nodes.map((n) => n.dc) });
+      if (!lighter.ok) return lighter;
+      rail = lighter;
+      continue;
+    }
     if (missing >= 0) {
       const need = reaches[missing]!.strongest * (1 + COLD_END_MARGIN);
       return fail('supply-too-low', `The bias rail gives −${v0.toFixed(1)} V; tube ${missing + 1}'s adjustment must reach −${need.toFixed(1)} V (the strongest tube's setting and ${Math.round(COLD_END_MARGIN * 100)} % past it). Raise the bias winding's voltage or lower the filter resistor`, 'secondaryRms');
@@ -132,6 +145,8 @@ export function solveBiasSupply(d: BiasSupplyDesign, reaches: readonly (BiasReac
       const drawn = conductance * v;
       if (Math.abs(drawn - load) <= LOAD_TOL * load) {
         if (strings.every((s, i) => stillReaches(s!, v, reaches[i]!))) return { ok: true, ...solution(rail, v, drawn, strings as BiasString[], reaches) };
+        // Chosen again on the settled rail, a little lighter, so the rail sags less under them.
+        aim = Math.max(aim / 1.5, LIGHTEST_AIM);
         break;
       }
       // The rail's slope under load (the secant of the last two solves) points straight at the current the strings and

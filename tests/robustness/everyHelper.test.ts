@@ -135,9 +135,9 @@ describe('every helper: no throw, no NaN or ±Infinity in an ok result', () => {
   // A fixed-bias stage's grid supply, from the stage's analysis (a cathode-biased one is refused by name).
   const biasRail = { mainsHz: 50, secondaryRms: 50, windingOhms: 150, reservoir: 47e-6, r: 4700, c: 100e-6 };
   run('checkBiasSupply', fc.tuple(fc.oneof(typedNear(biasRail), anything)), Q.checkBiasSupply);
-  run('outputBiasSupply', fc.tuple(outputAnalyses, fc.oneof(fc.constant(biasRail), typedNear(biasRail))), Q.outputBiasSupply, 30);
+  run('outputBiasSupply', fc.tuple(outputAnalyses, fc.oneof(fc.constant(biasRail), typedNear(biasRail)), fc.oneof(fc.constant(undefined), fc.integer({ min: -1, max: 6 }), anything)), Q.outputBiasSupply, 30);
   run('withBiasHum', fc.tuple(fc.oneof(typedNear({ volts: [1e-3, null], screens: [null, 2e-4], bound: 1e-3 }), anything), fc.oneof(fc.constant(null), finiteNumbers, anything)), Q.withBiasHum);
-  run('pairBiasSupply', fc.tuple(fc.oneof(pairAnalyses, cathodePairAnalyses), fc.oneof(fc.constant(biasRail), typedNear(biasRail))), Q.pairBiasSupply, 30);
+  run('pairBiasSupply', fc.tuple(fc.oneof(pairAnalyses, cathodePairAnalyses), fc.oneof(fc.constant(biasRail), typedNear(biasRail)), fc.oneof(fc.constant(undefined), fc.integer({ min: -1, max: 6 }), anything)), Q.pairBiasSupply, 30);
   run('findRectifierTube', fc.tuple(fc.oneof(fc.constantFrom('EZ81', '5AR4', 'GZ34'))), Q.findRectifierTube);
   // Found by fresh seeds when this run began (each failed before its fix).
   const sheetTube = Q.findTube('12AX7')!;

@@ -76,6 +76,35 @@ describe('a fixed-bias output stage\'s bias supply', () => {
     expect(b.parts.rectifier.diodeVolts).toBe(200);
   });
 
+  it('feeds every channel\'s tubes from the one rail: a stereo pair hangs four strings on it, which pull it lower', () => {
+    const a = analyzePushPull(el34, pair);
+    if (!a.ok) throw new Error(a.message);
+    const stiff = { ...rail, r: 1000 };
+    const mono = pairBiasSupply(a, stiff);
+    const stereo = pairBiasSupply(a, stiff, 2);
+    if (!mono.ok || !stereo.ok) throw new Error('not solved');
+    expect(stereo.taps).toHaveLength(4);
+    expect(stereo.parts.resistors.map((r) => r.ref)).toEqual(['Rb1', 'Rbt1, Rbt2, Rbt3, Rbt4', 'VRb1, VRb2, VRb3, VRb4', 'Rbb1, Rbb2, Rbb3, Rbb4']);
+    // Each string draws the rail over its resistance (Ohm's law), all four from the one rail.
+    const each = stereo.taps[0]!.string;
+    expectClose(stereo.load, (4 * stereo.rail) / (each.top + each.pot + each.bottom), { rel: 2e-3 }, 'four strings');
+    expect(stereo.load).toBeGreaterThan(1.5 * mono.load);
+    expect(stereo.rail).toBeLessThan(mono.rail);
+    expect(pairBiasSupply(a, rail, 0)).toMatchObject({ ok: false, field: 'channels' });
+  });
+
+  it('chooses lighter strings where the rail would sag too far under strings at their aim, and still reaches every setting', () => {
+    const a = analyzePushPull(el34, pair);
+    if (!a.ok) throw new Error(a.message);
+    // Through 4.7 kΩ, four strings at 1 mA leave about −45 V, short of the −46 V the strongest tube and its margin need.
+    const light = pairBiasSupply(a, rail, 2);
+    if (!light.ok) throw new Error(light.message);
+    const t = light.taps[0]!.string;
+    expect(t.amps).toBeLessThan(0.75e-3);
+    expect(t.least).toBeLessThanOrEqual(-light.adjustment.weakest);
+    expect(t.most).toBeGreaterThanOrEqual(-light.adjustment.strongest * (1 + COLD_END_MARGIN));
+  });
+
   it('turned to the hot end, a tube runs hotter than at idle, and its finding says to start at the cold end', () => {
     const a = analyzePushPull(el34, pair);
     if (!a.ok) throw new Error(a.message);
