@@ -1,0 +1,68 @@
+import { fail, type Result } from '../result';
+
+/** What the mains transformer's secondaries deliver, and the mains they run from. SI units. */
+export interface MainsDemand {
+  /** Nominal mains voltage, V rms. */
+  readonly mainsVolts: number;
+  /** The B+ winding's volt-amperes at idle and, where the amplifier draws more at full power, there (null: as at idle), VA. */
+  readonly bplusVa: number;
+  readonly bplusVaFull?: number | null;
+  /** Every heater winding's (and a DC heater supply's, at its output), VA. */
+  readonly heaterVa: number;
+  /** A bias winding's, VA (null or absent: none). */
+  readonly biasVa?: number | null;
+}
+
+export interface MainsAnswer {
+  /** Every secondary together, at the larger of idle and full power, VA: the transformer's rating must exceed it. */
+  readonly va: number;
+  /** The primary's rms current there, A (the secondaries' VA over the efficiency, at the mains voltage). */
+  readonly primaryAmps: number;
+  /** A time-lag primary fuse: the first IEC 60127-2 rating at or past FUSE_FACTOR times that current, A; null past 10 A. */
+  readonly fuseAmps: number | null;
+  readonly efficiency: number;
+}
+
+/** A small mains transformer's efficiency at full load (tens to hundreds of VA: 80 to 90 %, from memory; the lower end taken). */
+export const TRANSFORMER_EFFICIENCY = 0.85;
+/** A time-lag fuse at about twice the primary's full-load current rides out the switch-on surge of the transformer and the reservoir (common practice). */
+export const FUSE_FACTOR = 2;
+/** Rated currents of miniature fuses, the R10 series of IEC 60127-2, 50 mA to 10 A. */
+export const FUSE_AMPS: readonly number[] = [0.05, 0.063, 0.08, 0.1, 0.125, 0.16, 0.2, 0.25, 0.315, 0.4, 0.5, 0.63, 0.8, 1, 1.25, 1.6, 2, 2.5, 3.15, 4, 5, 6.3, 8, 10];
+
+/**
+ * The mains transformer's load and the primary's fuse: every secondary's
+ * volt-amperes added (their currents are not in phase, so this bounds the
+ * rating from above), the primary's current through the transformer's
+ * efficiency, and a time-lag fuse at FUSE_FACTOR times it.
+ */
+export function mainsFuse(d: MainsDemand): Result<MainsAnswer> {
+  if (typeof d !== 'object' || d === null) return fail('invalid-input', 'Give the mains voltage and what each winding delivers');
+  const va = (x: unknown) => typeof x === 'number' && Number.isFinite(x) && x >= 0 && x <= 1e5;
+  if (!(typeof d.mainsVolts === 'number' && d.mainsVolts >= 50 && d.mainsVolts <= 300)) return fail('invalid-input', 'The mains voltage must be from 50 V to 300 V', 'mainsVolts');
+  if (!va(d.bplusVa)) return fail('invalid-input', 'The B+ winding\'s VA must be a number from 0 to 100 kVA', 'bplusVa');
+  if (d.bplusVaFull !== undefined && d.bplusVaFull !== null && !va(d.bplusVaFull)) return fail('invalid-input', 'The B+ winding\'s VA at full power must be a number from 0 to 100 kVA, or none', 'bplusVaFull');
+  if (!va(d.heaterVa)) return fail('invalid-input', 'The heaters\' VA must be a number from 0 to 100 kVA', 'heaterVa');
+  if (d.biasVa !== undefined && d.biasVa !== null && !va(d.biasVa)) return fail('invalid-input', 'The bias winding\'s VA must be a number from 0 to 100 kVA, or none', 'biasVa');
+  const total = Math.max(d.bplusVa, d.bplusVaFull ?? 0) + d.heaterVa + (d.biasVa ?? 0);
+  const primaryAmps = total / TRANSFORMER_EFFICIENCY / d.mainsVolts;
+  const fuseAmps = FUSE_AMPS.find((a) => a >= FUSE_FACTOR * primaryAmps * (1 - 1e-9)) ?? null;
+  return { ok: true, va: total, primaryAmps, fuseAmps, efficiency: TRANSFORMER_EFFICIENCY };
+}
+
+/**
+ * The B+ winding's VA at full power, from its VA at idle scaled by the DC
+ * the supply delivers there over what it delivers at idle; null when it
+ * delivers no more (a class A stage). An overestimate: behind a reservoir
+ * capacitor the pulses widen as the load grows, so their rms current grows
+ * more slowly than the DC (the textbook behaviour of a capacitor-input
+ * rectifier), which suits a transformer's rating and a fuse.
+ */
+export function fullPowerVa(idleVa: number, loads: readonly number[], fullLoads: readonly number[] | null): number | null {
+  const amps = (x: unknown): x is readonly number[] => Array.isArray(x) && x.every((a) => typeof a === 'number' && Number.isFinite(a) && a >= 0);
+  if (!(typeof idleVa === 'number' && Number.isFinite(idleVa) && idleVa >= 0) || !amps(loads) || fullLoads === null || !amps(fullLoads)) return null;
+  const idle = loads.reduce((a, b) => a + b, 0);
+  const full = fullLoads.reduce((a, b) => a + b, 0);
+  const va = idleVa * (full / idle);
+  return idle > 0 && full > idle && Number.isFinite(va) ? va : null;
+}
