@@ -3,6 +3,8 @@ import type { WorkbenchState } from '../store/workbenchStore';
 import { fedFrom } from '../store/supplySlice';
 import { humSpeakerOhms, humWords } from '../ui/supply/SupplyHumLine';
 import { biasHumOf } from '../store/biasSupply';
+import { mainsOf } from '../store/mainsPlan';
+import { mainsWords } from '../ui/supply/mainsWords';
 import { oneWinding, rectifierName } from '../ui/supply/rectifierWords';
 import { lowEndWords } from '../ui/supply/lowEndWords';
 
@@ -35,5 +37,8 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   if (low) lines.push(low);
   const b = view.bleeder;
   if (b?.ok && b.needed) lines.push(`Bleeder ${ohms(b.ohms)}, ${watts(b.partWatts)} across node 1: under 60 V in ${plain(b.seconds, 2)} s`);
+  const m = mainsOf(s);
+  const mains = m ? mainsWords(m, p.mainsVolts) : null;
+  if (mains) lines.push(mains);
   return { heading: 'B+ supply', lines };
 }

@@ -48,9 +48,12 @@ export function readSupplyPlan(raw: unknown): { ok: true; plan: SupplyPlan } | {
   if (b !== undefined && !isRecord(b)) return bad('.bias', 'must be an object, or left out', b);
   if (b !== undefined) for (const key of ['secondaryRms', 'windingOhms', 'reservoir', 'r', 'c'] as const) if (!isNum(b[key])) return bad(`.bias.${key}`, 'must be a number', b[key]);
   const bias = b === undefined ? DEMO_BIAS : { secondaryRms: b.secondaryRms as number, windingOhms: b.windingOhms as number, reservoir: b.reservoir as number, r: b.r as number, c: b.c as number };
+  // The mains voltage came after the supply itself: a file without it opens at 230 V, which changes nothing it designed.
+  if (raw.mainsVolts !== undefined && !isNum(raw.mainsVolts)) return bad('.mainsVolts', 'must be a number, or left out', raw.mainsVolts);
   const plan: SupplyPlan = {
     on: raw.on,
     mainsHz: raw.mainsHz as number,
+    mainsVolts: (raw.mainsVolts as number | undefined) ?? DEMO_SUPPLY.mainsVolts,
     secondaryRms: raw.secondaryRms as number,
     windingOhms: raw.windingOhms as number,
     rectifier,

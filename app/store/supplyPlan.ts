@@ -14,6 +14,8 @@ export interface SupplyPlan {
   /** Solve the amplifier on this supply: every stage at the voltage its node delivers. */
   readonly on: boolean;
   readonly mainsHz: number;
+  /** The nominal mains voltage, V rms: what the primary's current and fuse are worked out at. */
+  readonly mainsVolts: number;
   /** Secondary rms voltage (each half of a centre-tapped winding), V. */
   readonly secondaryRms: number;
   readonly windingOhms: number;
@@ -72,6 +74,7 @@ export const biasDesignOf = (p: SupplyPlan): BiasSupplyDesign => ({ ...p.bias, m
 export const DEMO_SUPPLY: SupplyPlan = {
   on: true,
   mainsHz: 50,
+  mainsVolts: 230,
   secondaryRms: 246,
   windingOhms: 35,
   rectifier: { kind: 'silicon-full-wave' },
@@ -111,6 +114,7 @@ export function supplyDesignOf(p: SupplyPlan, humNode = p.feeds.voltage): Supply
 export function checkPlan(p: SupplyPlan): Failure | null {
   const problem = checkSupply(supplyDesignOf(p));
   if (problem) return problem;
+  if (!(typeof p.mainsVolts === 'number' && p.mainsVolts >= 50 && p.mainsVolts <= 300)) return { ok: false, reason: 'invalid-input', message: 'The mains voltage must be from 50 V to 300 V', field: 'mainsVolts' };
   const bias = checkBiasSupply(biasDesignOf(p));
   if (bias) return { ...bias, field: `bias.${bias.field}` };
   const nodes = p.sections.length + 1;

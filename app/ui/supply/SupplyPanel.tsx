@@ -5,6 +5,8 @@ import { SupplyField } from './SupplyField';
 import { SupplyResults } from './SupplyResults';
 import { HeaterWindings } from './HeaterWindings';
 import { BiasSupply } from './BiasSupply';
+import { MainsTransformer } from './MainsTransformer';
+import { MAINS_VOLTS } from '../../store/mainsPlan';
 import { SupplySchematic } from './SupplySchematic';
 import { oneWinding } from './rectifierWords';
 import { drivesPair } from '../../store/outputPlan';
@@ -60,6 +62,10 @@ export function SupplyPanel() {
             <select id={`${id}-mains`} value={plan.mainsHz} onChange={(e) => setSupply({ mainsHz: Number(e.target.value) })}>
               <option value={50}>50 Hz</option>
               <option value={60}>60 Hz</option>
+            </select>
+            <label htmlFor={`${id}-mainsv`}>Mains voltage</label>
+            <select id={`${id}-mainsv`} value={plan.mainsVolts} onChange={(e) => setSupply({ mainsVolts: Number(e.target.value) })}>
+              {MAINS_VOLTS.map((v) => <option key={v} value={v}>{v} V</option>)}
             </select>
             <label htmlFor={`${id}-rect`}>Rectifier</label>
             <select id={`${id}-rect`} value={rectifierKey(plan.rectifier)} onChange={(e) => setSupply({ rectifier: rectifierOf(e.target.value) })}>
@@ -165,6 +171,7 @@ export function SupplyPanel() {
           </div>
           {error ? <p className="field-error" role="alert">{error}</p> : null}
           <HeaterWindings />
+          <MainsTransformer />
           <BiasSupply />
         </div>
         <SupplyResults />
