@@ -18,7 +18,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                                      bias, rk, vg, rg, speakerOhms, thdLimit, pair, raa, mismatch, idleMismatch,
  *                                      primaryInductance, leakageInductance,
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling, rstopper? } }, drivesOutput,
- *                 supply: { on, mainsHz, secondaryRms, windingOhms, rectifier, input, sections, feeds,
+ *                 supply: { on, mainsHz, mainsVolts?, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms, bias? },
  *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
  *                 before: [stage…], after: [stage…] } }
@@ -46,7 +46,8 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * So did `supply` (the B+ supply, see supplyInFile.ts): a file without it
  * opens on the bench's default supply, its own values unchanged; and the
  * supply's `bias` (a fixed-bias output stage's grid supply: { secondaryRms,
- * windingOhms, reservoir, r, c }): absent, the bench's default; and
+ * windingOhms, reservoir, r, c }): absent, the bench's default; its
+ * `mainsVolts` (the nominal mains, V): absent, 230 V; and
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
  * bench's default (on the AC heater winding); `feedbackRf` (global
  * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across
