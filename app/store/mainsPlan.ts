@@ -1,4 +1,4 @@
-import { fullPowerVa, mainsFuse, type MainsAnswer, type Result } from '../../src/index';
+import { fullPowerVa, htFuseCurrent, mainsFuse, type MainsAnswer, type Result } from '../../src/index';
 import { biasSupplyOf, needsBiasSupply } from './biasSupply';
 import { heaterWindingsOf } from './heaterPlan';
 import type { WorkbenchState } from './workbenchStore';
@@ -16,6 +16,8 @@ export interface MainsView {
   readonly biasVa: number | null;
   /** A DC heater supply counted at its output (its winding is not designed here, and delivers more). */
   readonly dcHeaters: boolean;
+  /** Where the B+ winding's fuse goes (its centre tap, or in series with it); null where the model cannot say. */
+  readonly htFuseAt: 'centre tap' | 'winding' | null;
   readonly answer: Result<MainsAnswer>;
 }
 
@@ -36,5 +38,8 @@ export function mainsOf(s: WorkbenchState): MainsView | null {
   const bias = needsBiasSupply(s) ? biasSupplyOf(s) : null;
   // Behind one diode the winding carries the diode's pulses: its rms current times its voltage.
   const biasVa = bias?.ok ? s.design.supply.bias.secondaryRms * bias.diodeRms : null;
-  return { bplusVa, bplusVaFull, heaterVa, biasVa, dcHeaters: heaters.dc !== null, answer: mainsFuse({ mainsVolts: s.design.supply.mainsVolts, bplusVa, bplusVaFull, heaterVa, biasVa }) };
+  // The B+ fuse's current at full power, where the winding delivers more there, scaled as its VA is.
+  const ht = htFuseCurrent(s.design.supply.rectifier.kind, r.supply.rectifierRms, r.supply.secondaryRmsCurrent);
+  const htAmps = ht ? ht.amps * (bplusVaFull !== null && bplusVa > 0 ? bplusVaFull / bplusVa : 1) : null;
+  return { bplusVa, bplusVaFull, heaterVa, biasVa, dcHeaters: heaters.dc !== null, htFuseAt: ht?.where ?? null, answer: mainsFuse({ mainsVolts: s.design.supply.mainsVolts, bplusVa, bplusVaFull, heaterVa, biasVa, htAmps }) };
 }

@@ -1,4 +1,5 @@
 import { fail, type Result } from '../result';
+import type { Rectifier } from './supplyTypes';
 
 /** What the mains transformer's secondaries deliver, and the mains they run from. SI units. */
 export interface MainsDemand {
@@ -11,6 +12,8 @@ export interface MainsDemand {
   readonly heaterVa: number;
   /** A bias winding's, VA (null or absent: none). */
   readonly biasVa?: number | null;
+  /** The rms current where the B+ winding's fuse sits (the centre tap, or the winding itself), at the larger of idle and full power, A (absent: no B+ fuse asked). */
+  readonly htAmps?: number | null;
 }
 
 export interface MainsAnswer {
@@ -20,6 +23,8 @@ export interface MainsAnswer {
   readonly primaryAmps: number;
   /** A time-lag primary fuse: the first IEC 60127-2 rating at or past FUSE_FACTOR times that current, A; null past 10 A. */
   readonly fuseAmps: number | null;
+  /** A time-lag fuse for the B+ winding at FUSE_FACTOR times `htAmps`, A; null when not asked or past 10 A. */
+  readonly htFuseAmps: number | null;
   readonly efficiency: number;
 }
 
@@ -34,7 +39,10 @@ export const FUSE_AMPS: readonly number[] = [0.05, 0.063, 0.08, 0.1, 0.125, 0.16
  * The mains transformer's load and the primary's fuse: every secondary's
  * volt-amperes added (their currents are not in phase, so this bounds the
  * rating from above), the primary's current through the transformer's
- * efficiency, and a time-lag fuse at FUSE_FACTOR times it.
+ * efficiency, and a time-lag fuse at FUSE_FACTOR times it; and where asked
+ * the B+ winding's own fuse the same way (common practice: it opens on a
+ * shorted filter capacitor or a rectifier that arcs over before the
+ * primary's does).
  */
 export function mainsFuse(d: MainsDemand): Result<MainsAnswer> {
   if (typeof d !== 'object' || d === null) return fail('invalid-input', 'Give the mains voltage and what each winding delivers');
@@ -44,10 +52,12 @@ export function mainsFuse(d: MainsDemand): Result<MainsAnswer> {
   if (d.bplusVaFull !== undefined && d.bplusVaFull !== null && !va(d.bplusVaFull)) return fail('invalid-input', 'The B+ winding\'s VA at full power must be a number from 0 to 100 kVA, or none', 'bplusVaFull');
   if (!va(d.heaterVa)) return fail('invalid-input', 'The heaters\' VA must be a number from 0 to 100 kVA', 'heaterVa');
   if (d.biasVa !== undefined && d.biasVa !== null && !va(d.biasVa)) return fail('invalid-input', 'The bias winding\'s VA must be a number from 0 to 100 kVA, or none', 'biasVa');
+  const ht = d.htAmps ?? null;
+  if (ht !== null && !(typeof ht === 'number' && Number.isFinite(ht) && ht >= 0 && ht <= 100)) return fail('invalid-input', 'The B+ winding\'s fused current must be a number from 0 to 100 A, or none', 'htAmps');
   const total = Math.max(d.bplusVa, d.bplusVaFull ?? 0) + d.heaterVa + (d.biasVa ?? 0);
   const primaryAmps = total / TRANSFORMER_EFFICIENCY / d.mainsVolts;
-  const fuseAmps = FUSE_AMPS.find((a) => a >= FUSE_FACTOR * primaryAmps * (1 - 1e-9)) ?? null;
-  return { ok: true, va: total, primaryAmps, fuseAmps, efficiency: TRANSFORMER_EFFICIENCY };
+  const fuseFor = (amps: number) => FUSE_AMPS.find((a) => a >= FUSE_FACTOR * amps * (1 - 1e-9)) ?? null;
+  return { ok: true, va: total, primaryAmps, fuseAmps: fuseFor(primaryAmps), htFuseAmps: ht === null ? null : fuseFor(ht), efficiency: TRANSFORMER_EFFICIENCY };
 }
 
 /**
@@ -65,4 +75,18 @@ export function fullPowerVa(idleVa: number, loads: readonly number[], fullLoads:
   const full = fullLoads.reduce((a, b) => a + b, 0);
   const va = idleVa * (full / idle);
   return idle > 0 && full > idle && Number.isFinite(va) ? va : null;
+}
+
+/**
+ * Where the B+ winding's fuse goes and the rms current it carries: in a
+ * centre-tapped winding's centre tap, which carries both halves' pulses
+ * (the rectifier's whole current); in series with a bridge's or a
+ * half-wave rectifier's winding, which carries the winding's own current.
+ * Null for a rectifier it does not know or currents that are not finite.
+ */
+export function htFuseCurrent(rectifier: Rectifier['kind'], rectifierRms: number, secondaryRms: number): { readonly where: 'centre tap' | 'winding'; readonly amps: number } | null {
+  const amps = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x) && x >= 0;
+  if (rectifier === 'silicon-full-wave' || rectifier === 'tube') return amps(rectifierRms) ? { where: 'centre tap', amps: rectifierRms } : null;
+  if (rectifier === 'silicon-bridge' || rectifier === 'silicon-half-wave') return amps(secondaryRms) ? { where: 'winding', amps: secondaryRms } : null;
+  return null;
 }

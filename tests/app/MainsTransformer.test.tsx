@@ -19,6 +19,8 @@ describe('the mains transformer and its fuse', () => {
     // The larger of the B+ winding's idle and full-power VA, and the heaters': added (to the three figures shown).
     const [total, idle, full, heaters] = /at least ([\d.]+) VA \(B\+ ([\d.]+) VA idle, about ([\d.]+) VA at full power, heaters ([\d.]+) VA/.exec(line.textContent!)!.slice(1).map(Number);
     expect(Math.abs(total! - (Math.max(idle!, full!) + heaters!))).toBeLessThan(0.15);
+    // The demo's centre-tapped winding is fused in its centre tap.
+    expect(line.textContent).toMatch(/; a time-lag fuse of [\d.]+ A in the B\+ winding's centre tap \(the same rule/);
     const at230 = amps(line.textContent!);
     // The same amplifier on 120 V mains draws 230/120 times the primary current (P = V·I).
     act(() => void fireEvent.change(panel.getByLabelText('Mains voltage'), { target: { value: '120' } }));

@@ -136,7 +136,8 @@ describe('every helper: no throw, no NaN or ±Infinity in an ok result', () => {
   const biasRail = { mainsHz: 50, secondaryRms: 50, windingOhms: 150, reservoir: 47e-6, r: 4700, c: 100e-6 };
   run('checkBiasSupply', fc.tuple(fc.oneof(typedNear(biasRail), anything)), Q.checkBiasSupply);
   run('outputBiasSupply', fc.tuple(outputAnalyses, fc.oneof(fc.constant(biasRail), typedNear(biasRail)), fc.oneof(fc.constant(undefined), fc.integer({ min: -1, max: 6 }), anything)), Q.outputBiasSupply, 30);
-  run('mainsFuse', fc.tuple(fc.oneof(typedNear({ mainsVolts: 230, bplusVa: 90, bplusVaFull: 120, heaterVa: 40, biasVa: 0.5 }), anything)), Q.mainsFuse);
+  run('mainsFuse', fc.tuple(fc.oneof(typedNear({ mainsVolts: 230, bplusVa: 90, bplusVaFull: 120, heaterVa: 40, biasVa: 0.5, htAmps: 0.2 }), anything)), Q.mainsFuse);
+  run('htFuseCurrent', fc.tuple(fc.oneof(fc.constantFrom('silicon-full-wave', 'silicon-bridge', 'silicon-half-wave', 'tube'), anything), fc.oneof(finiteNumbers, anything), fc.oneof(finiteNumbers, anything)), Q.htFuseCurrent);
   run('fullPowerVa', fc.tuple(fc.oneof(finiteNumbers, anything), fc.oneof(typedNear([0.08, 0.01]), anything), fc.oneof(fc.constant(null), typedNear([0.12, 0.01]), anything)), Q.fullPowerVa);
   run('withBiasHum', fc.tuple(fc.oneof(typedNear({ volts: [1e-3, null], screens: [null, 2e-4], bound: 1e-3 }), anything), fc.oneof(fc.constant(null), finiteNumbers, anything)), Q.withBiasHum);
   run('pairBiasSupply', fc.tuple(fc.oneof(pairAnalyses, cathodePairAnalyses), fc.oneof(fc.constant(biasRail), typedNear(biasRail)), fc.oneof(fc.constant(undefined), fc.integer({ min: -1, max: 6 }), anything)), Q.pairBiasSupply, 30);

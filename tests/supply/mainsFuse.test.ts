@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fullPowerVa, mainsFuse, FUSE_AMPS } from '../../src/index';
+import { fullPowerVa, htFuseCurrent, mainsFuse, FUSE_AMPS } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 
 describe('mainsFuse', () => {
@@ -27,6 +27,19 @@ describe('mainsFuse', () => {
   it('names a bad mains voltage, and gives no fuse past 10 A', () => {
     expect(mainsFuse({ mainsVolts: 1000, bplusVa: 90, heaterVa: 40 })).toMatchObject({ ok: false, field: 'mainsVolts' });
     expect(mainsFuse({ mainsVolts: 100, bplusVa: 900, heaterVa: 40 })).toMatchObject({ ok: true, fuseAmps: null });
+  });
+});
+
+describe('the B+ winding\'s fuse', () => {
+  it('sits in a centre tap carrying the rectifier\'s whole current, or in series with a bridge\'s or a half-wave\'s winding, at twice its current', () => {
+    expect(htFuseCurrent('silicon-full-wave', 0.18, 0.13)).toEqual({ where: 'centre tap', amps: 0.18 });
+    expect(htFuseCurrent('tube', 0.18, 0.13)).toEqual({ where: 'centre tap', amps: 0.18 });
+    expect(htFuseCurrent('silicon-bridge', 0.18, 0.2)).toEqual({ where: 'winding', amps: 0.2 });
+    expect(htFuseCurrent('silicon-half-wave', 0.18, 0.18)).toEqual({ where: 'winding', amps: 0.18 });
+    // Twice 0.18 A is 0.36 A: the next IEC 60127-2 rating is 400 mA.
+    const r = mainsFuse({ mainsVolts: 230, bplusVa: 90, heaterVa: 40, htAmps: 0.18 });
+    expect(r.ok && r.htFuseAmps).toBe(0.4);
+    expect(mainsFuse({ mainsVolts: 230, bplusVa: 90, heaterVa: 40 })).toMatchObject({ ok: true, htFuseAmps: null });
   });
 });
 
