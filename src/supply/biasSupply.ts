@@ -71,7 +71,8 @@ export function checkBiasSupply(d: unknown): ReturnType<typeof checkNumber> {
   return (
     checkNumber('mainsHz', 'Mains frequency', b.mainsHz, 'Hz', 40, 70) ??
     checkNumber('secondaryRms', 'Bias winding voltage', b.secondaryRms, 'V', 5, 500) ??
-    checkNumber('windingOhms', 'Bias winding resistance', b.windingOhms, 'Ω', 0, 100_000) ??
+    // The B+ solver's own limit: the rail is solved by it.
+    checkNumber('windingOhms', 'Bias winding resistance', b.windingOhms, 'Ω', 0, 10_000) ??
     checkNumber('reservoir', 'Bias reservoir capacitor', b.reservoir, 'F', 1e-7, 0.1) ??
     checkNumber('r', 'Bias filter resistor', b.r, 'Ω', 1, 1e6) ??
     checkNumber('c', 'Bias filter capacitor', b.c, 'F', 1e-7, 0.1) ??

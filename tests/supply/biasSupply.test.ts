@@ -56,6 +56,8 @@ describe('solveBiasSupply', () => {
     expect(low).toMatchObject({ ok: false, reason: 'supply-too-low', field: 'secondaryRms', message: expect.stringMatching(/^The bias rail gives −\d+\.\d V; tube 1's adjustment must reach −45\.1 V/) });
     expect(solveBiasSupply({ ...rail, r: -1 }, [{ weakest: 33, nominal: 37, strongest: 41 }])).toMatchObject({ ok: false, field: 'r' });
     expect(solveBiasSupply({ ...rail, reservoir: 0 }, [{ weakest: 33, nominal: 37, strongest: 41 }])).toMatchObject({ ok: false, field: 'reservoir' });
+    // Named as the bias winding's own limit (the B+ solver's), not in the B+ winding's words.
+    expect(solveBiasSupply({ ...rail, windingOhms: 20e3 }, [{ weakest: 33, nominal: 37, strongest: 41 }])).toMatchObject({ ok: false, field: 'windingOhms', message: 'Bias winding resistance must be at most 10000 Ω (got 20000 Ω)' });
     expect(solveBiasSupply(rail, [{ weakest: 41, nominal: 37, strongest: 33 }])).toMatchObject({ ok: false, field: 'reaches' });
   });
 });

@@ -28,9 +28,7 @@ export function BiasSupply() {
       <h3 id={`${id}-h`}>Bias supply</h3>
       <p className="field-hint">
         The fixed-bias output {pair ? 'tubes’' : 'tube’s'} grid {pair ? 'voltages come' : 'voltage comes'} from a winding (or a bias tap) through one diode turned the negative way, a
-        reservoir and one R–C section; from that rail a trimmer string for each tube, its wiper feeding the tube’s grid leak. Fed through a resistor from one end
-        of a centre-tapped B+ winding instead of a winding of its own: give each half’s voltage, and the resistor (with the half’s own resistance) as its
-        resistance.
+        reservoir and one R–C section; from that rail a trimmer string for each tube, its wiper feeding the tube’s grid leak.
       </p>
       <BiasSchematic plan={plan} result={result?.ok ? result : null} tubes={pair ? 2 : 1} />
       <div className="value-grid">
