@@ -1,7 +1,6 @@
 import type { BiasSupplyDesign, BiasSupplySolution } from '../supply/biasSupply';
 import { resistorLine, type ResistorLine } from './partsList';
-import { CAPACITOR_VOLTS, roundUpTo } from './ratings';
-import { DIODE_VOLTS, MAINS_HIGH, type FilterCapacitorLine, type RectifierLine } from './supplyParts';
+import { coldRating, rectifierLine, type FilterCapacitorLine, type RectifierLine } from './supplyParts';
 
 export interface BiasParts {
   /** The filter resistor, then each tube's string: rail end, trimmer, ground end. */
@@ -20,7 +19,7 @@ export interface BiasParts {
  */
 export function biasPartsList(d: BiasSupplyDesign, s: BiasSupplySolution): BiasParts {
   const cold = s.noLoadVolts;
-  const rating = roundUpTo(CAPACITOR_VOLTS, cold * MAINS_HIGH);
+  const rating = coldRating(cold);
   const capacitor = (ref: string, role: string, value: number, volts: number, rippleAmps: number): FilterCapacitorLine => ({
     ref,
     role,
@@ -32,9 +31,7 @@ export function biasPartsList(d: BiasSupplyDesign, s: BiasSupplySolution): BiasP
     rippleAmps,
     note: null,
   });
-  // The reservoir passes the diode's pulses less the rail's steady current; the rail's capacitor almost none.
-  const reservoirRipple = Math.sqrt(Math.max(s.diodeRms ** 2 - s.load ** 2, 0));
-  const capacitors = [capacitor('Cb1', 'bias reservoir', d.reservoir, s.reservoir, reservoirRipple), capacitor('Cb2', 'bias rail', d.c, s.rail, s.railRippleRms / impedanceAt(d.c, d.mainsHz))];
+  const capacitors = [capacitor('Cb1', 'bias reservoir', d.reservoir, s.reservoir, s.reservoirRippleAmps), capacitor('Cb2', 'bias rail', d.c, s.rail, s.railRippleAmps)];
   const resistors: ResistorLine[] = [resistorLine('Rb1', 'bias filter, reservoir to rail', d.r, s.load, 'E24')];
   // Every tube needs the same reach, so every string is alike: one line each part, its references one per tube.
   const refs = (ref: string) => (s.taps.length > 1 ? s.taps.map((_, i) => `${ref}${i + 1}`).join(', ') : ref);
@@ -43,14 +40,5 @@ export function biasPartsList(d: BiasSupplyDesign, s: BiasSupplySolution): BiasP
   resistors.push(resistorLine(refs('Rbt'), `bias string, rail to the trimmer${each}`, top, amps, 'E12'));
   resistors.push({ ...resistorLine(refs('VRb'), `bias trimmer, linear: wiper to the grid leak${each}`, pot, amps, 'E12'), preferred: pot, potentiometer: true });
   resistors.push(resistorLine(refs('Rbb'), `bias string, trimmer to ground${each}`, bottom, amps, 'E12'));
-  const piv = s.piv;
-  const pivHighMains = piv * MAINS_HIGH;
-  return {
-    resistors,
-    capacitors,
-    rectifier: { kind: 'silicon-half-wave', piv, pivHighMains, diodeVolts: DIODE_VOLTS.find((v) => v >= pivHighMains) ?? null, peakAmps: s.diodePeak, rmsAmps: s.diodeRms },
-  };
+  return { resistors, capacitors, rectifier: rectifierLine('silicon-half-wave', s.piv, s.diodePeak, s.diodeRms) };
 }
-
-/** A capacitor's reactance at the ripple's frequency (the mains', behind one diode), Ω. */
-const impedanceAt = (c: number, hz: number) => 1 / (2 * Math.PI * hz * c);

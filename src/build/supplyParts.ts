@@ -80,7 +80,7 @@ export function supplyPartsList(d: SupplyDesign, solved: SolvedSupply, bleeder: 
   const downstream = (k: number) => Array.from({ length: nodes - k }, (_, j) => loadAt(k + j)).reduce((a, b) => a + b, 0);
   const cold = s.noLoadVolts;
   const need = cold * MAINS_HIGH;
-  const rating = roundUpTo(CAPACITOR_VOLTS, need);
+  const rating = coldRating(cold);
   const caps = [d.input.c, ...d.sections.map((x) => x.c)];
   const capacitors = caps.map((c, k): FilterCapacitorLine => ({
     ref: `Cf${k + 1}`,
@@ -107,11 +107,18 @@ export function supplyPartsList(d: SupplyDesign, solved: SolvedSupply, bleeder: 
     const running = (s.nodes[0]!.dc ** 2) / bleeder.ohms;
     resistors.push({ ref: 'Rbleed', role: 'bleeder across node 1', value: bleeder.ohms, preferred: bleeder.ohms, series: 'E12', watts: running, wattsWorst: bleeder.watts, ratingWatts: bleeder.partWatts });
   }
-  const bridge = d.rectifier.kind === 'silicon-bridge';
-  const piv = bridge ? cold : 2 * cold;
+  const piv = d.rectifier.kind === 'silicon-bridge' ? cold : 2 * cold;
+  return { ok: true, resistors, capacitors, chokes, rectifier: rectifierLine(d.rectifier.kind, piv, s.rectifierPeak, s.rectifierRms) };
+}
+
+/** A filter capacitor's voltage rating: the cold (no-load) voltage with the mains 10 % high, rounded up to a standard rating. */
+export const coldRating = (cold: number): number => roundUpTo(CAPACITOR_VOLTS, cold * MAINS_HIGH);
+
+/** The rectifier's line: its reverse voltage cold and with the mains 10 % high, and for silicon the 1N400x rating that stands it. */
+export function rectifierLine(kind: RectifierLine['kind'], piv: number, peakAmps: number, rmsAmps: number): RectifierLine {
   const pivHighMains = piv * MAINS_HIGH;
-  const diodeVolts = d.rectifier.kind === 'tube' ? null : (DIODE_VOLTS.find((v) => v >= pivHighMains) ?? null);
-  return { ok: true, resistors, capacitors, chokes, rectifier: { kind: d.rectifier.kind, piv, pivHighMains, diodeVolts, peakAmps: s.rectifierPeak, rmsAmps: s.rectifierRms } };
+  const diodeVolts = kind === 'tube' ? null : (DIODE_VOLTS.find((v) => v >= pivHighMains) ?? null);
+  return { kind, piv, pivHighMains, diodeVolts, peakAmps, rmsAmps };
 }
 
 /** Below this a bleeder is a slip, not a part (its power across the reservoir would overflow), Ω. */

@@ -1,4 +1,6 @@
 import { fail, type Result } from '../result';
+import { formatValue } from '../parts/formatValue';
+import { MAX_CHANNELS } from '../chain/solveOnSupply';
 import { finding, type Finding } from '../stage/ratingBands';
 import type { PushPullAnalysis } from '../pushpull/analyzePushPull';
 import { solveBiasSupply, type BiasSupplyDesign, type BiasSupplySolution } from '../supply/biasSupply';
@@ -76,13 +78,13 @@ function fixedBiasSupply(t: FixedBiasTubes | null, bias: BiasSupplyDesign, chann
   if (most !== undefined) {
     // The grid's return is the leak and, behind the wiper, the string: the data sheet's limit is on the whole path.
     const path = t.design.rg + Math.max(...solved.taps.map((x) => x.sourceOhms));
-    if (path > most) findings.push(finding('grid-resistor', 'warning', `The grid leak (${kilohms(t.design.rg)}) and the bias string behind the wiper come to ${kilohms(path)}, past the ${kilohms(most)} the data sheet allows under fixed bias: lower the grid leak.`, path, most));
+    if (path > most) findings.push(finding('grid-resistor', 'warning', `The grid leak (${formatValue(t.design.rg, 'Ω')}) and the bias string behind the wiper come to ${formatValue(path, 'Ω')}, past the ${formatValue(most, 'Ω')} the data sheet allows under fixed bias: lower the grid leak.`, path, most));
   }
   return { ...solved, adjustment, parts: biasPartsList(bias, solved), hotEnd: hot, humAtSpeaker: t.speakerGain === null ? null : tap.gridRippleRms * Math.abs(t.speakerGain), findings };
 }
 
-/** Channels one bias supply may feed: a string per tube, the pair's two per channel (solveBiasSupply takes 8 strings). */
-const MAX_BIAS_CHANNELS = 4;
+/** Channels one bias supply may feed: as many as one B+ supply does (solveBiasSupply takes a pair's two strings for each). */
+const MAX_BIAS_CHANNELS = MAX_CHANNELS;
 
 /** A fixed-bias single-ended stage's bias supply (every channel's tube on the one rail), from its analysis, with the hum its grid's ripple makes at the speaker. */
 export function outputBiasSupply(a: OutputAnalysis, bias: BiasSupplyDesign, channels = 1): Result<FixedBiasSupply> {
@@ -96,4 +98,3 @@ export function pairBiasSupply(a: PushPullAnalysis, bias: BiasSupplyDesign, chan
   return fixedBiasSupply(pairBiasTubes(a), bias, channels);
 }
 
-const kilohms = (ohms: number) => `${Math.round(ohms / 1e3)} kΩ`;

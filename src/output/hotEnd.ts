@@ -44,7 +44,7 @@ export function hotEnd(tube: OutputTube, d: OutputDesign, vpk: number, ip: numbe
   const base = dissipationFinding('bias-range', 'Plate', watts, rating);
   const where = `With its bias adjustment turned to the hot end (${vgk.toFixed(1).replace('-', '−')} V) a typical tube passes ${(c.ip * 1e3).toFixed(0)} mA: `;
   const message = `${where}${base.message.charAt(0).toLowerCase()}${base.message.slice(1)} Set every adjustment to its cold end (most negative) before switching on (common practice).`;
-    // Past the rating this is a setting to avoid, not the design's own running state: a warning, with what to do.
+  // Past the rating this is a setting to avoid, not the design's own running state: a warning, with what to do.
   const severity = base.severity === 'danger' ? 'warning' : base.severity;
   return { ok: true, vgk, vpk: plate, ip: c.ip, plateWatts: watts, finding: finding('bias-range', severity, message, watts, rating) };
 }

@@ -43,6 +43,9 @@ export interface BiasSupplySolution {
   readonly railRipplePp: number;
   readonly reservoir: number;
   readonly reservoirRippleRms: number;
+  /** Each capacitor's ripple current (rms), A: the reservoir's and the rail's. */
+  readonly reservoirRippleAmps: number;
+  readonly railRippleAmps: number;
   /** Every string's current together: what the rail carries, A. */
   readonly load: number;
   /** With nothing drawn: what both capacitors see, V below ground (the rail at switch-on is the same, the strings draw at once). */
@@ -51,6 +54,8 @@ export interface BiasSupplySolution {
   readonly diodePeak: number;
   readonly diodeRms: number;
   readonly piv: number;
+  /** The winding's volt-amperes: its rms voltage times the diode's rms current, which it carries, VA. */
+  readonly windingVa: number;
   readonly taps: readonly BiasTap[];
 }
 
@@ -61,6 +66,8 @@ const MAX_CHOICES = 6;
 const LIGHTEST_AIM = STRING_AMPS / 4;
 /** How far inside what they must reach the strings are chosen (a share): the rail moves less than this as their current settles. */
 const CHOICE_GUARD = 0.01;
+/** Strings one rail may carry: a pair's two for each of 8 channels. */
+export const MAX_STRINGS = 16;
 /** Agreement asked between the current the rail was solved at and what the strings draw there (a fraction of it). */
 const LOAD_TOL = 1e-3;
 
@@ -98,7 +105,8 @@ function railOf(d: BiasSupplyDesign, load: number): SupplyDesign {
  * The bias supply solved with its strings: the rail by the B+ supply's own
  * solver (a negative rail is the positive one mirrored, the diode turned
  * round), each tube's string chosen on it (designString) and the rail solved
- * again under the strings' current, until the strings no longer change.
+ * again under the strings' current until the two agree and every string
+ * still reaches (else chosen again on the settled rail, lighter).
  * Each tap's ripple is the rail's times the wiper's share of it (the grid
  * leak carries no current, so the grid sits at the wiper). A rail that
  * cannot reach past the strongest tube's setting is a failure naming the
@@ -107,24 +115,25 @@ function railOf(d: BiasSupplyDesign, load: number): SupplyDesign {
 export function solveBiasSupply(d: BiasSupplyDesign, reaches: readonly (BiasReach & { readonly nominal: number })[]): Result<BiasSupplySolution> {
   const problem = checkBiasSupply(d);
   if (problem) return problem;
-  if (!Array.isArray(reaches) || reaches.length < 1 || reaches.length > 8) return fail('invalid-input', 'Give each fixed-bias tube\'s settings (1 to 8 tubes)', 'reaches');
+  if (!Array.isArray(reaches) || reaches.length < 1 || reaches.length > MAX_STRINGS) return fail('invalid-input', `Give each fixed-bias tube's settings (1 to ${MAX_STRINGS} tubes)`, 'reaches');
   for (const r of reaches) {
     const ok = typeof r === 'object' && r !== null && [r.weakest, r.nominal, r.strongest].every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) && r.weakest <= r.nominal && r.nominal <= r.strongest;
     if (!ok) return fail('invalid-input', 'Each tube\'s settings must be volts below ground, the weakest tube\'s the least and the strongest\'s the most', 'reaches');
   }
   let load = reaches.length * STRING_AMPS;
-  let start: number[] | null = null;
   let rail = solveSupply(railOf(d, load));
   if (!rail.ok) return rail;
   // Choose the strings on the rail as it stands, then find the current they and the rail agree on; a string that no
-  // longer reaches on the settled rail is chosen again there. Each is chosen with a guard, so the rail's own small move
-  // under the strings' current leaves it reaching.
-  // The strings' current aimed at: lighter strings when the rail sags too far under heavier ones (a rail of several
-  // strings through a large filter resistor), down to a quarter of STRING_AMPS.
+  // longer reaches on the settled rail is chosen again there, a little lighter. Each is chosen with a guard, so the
+  // rail's own small move under the strings' current leaves it reaching. `aim` is the strings' current aimed at: lighter
+  // when the rail sags too far under heavier ones (several strings through a large filter resistor).
   let aim = STRING_AMPS;
   for (let attempt = 0; attempt < MAX_CHOICES; attempt++) {
     const v0 = rail.nodes[1]!.dc;
-    const strings = reaches.map((r) => designString(v0, r, CHOICE_GUARD, aim) ?? designString(v0, r, 0, aim));
+    // Tubes of one type share one reach: each distinct reach is searched once.
+    const chosen = new Map<BiasReach, BiasString | null>();
+    const choose = (r: BiasReach) => designString(v0, r, CHOICE_GUARD, aim) ?? designString(v0, r, 0, aim);
+    const strings = reaches.map((r) => (chosen.has(r) ? chosen.get(r)! : chosen.set(r, choose(r)).get(r)!));
     const missing = strings.findIndex((s) => s === null);
     if (missing >= 0 && aim > LIGHTEST_AIM * 1.01) {
       aim = Math.max(aim / 2, LIGHTEST_AIM);
@@ -156,8 +165,7 @@ export function solveBiasSupply(d: BiasSupplyDesign, reaches: readonly (BiasReac
       const agreed = slope < 0 && Number.isFinite(slope) ? (conductance * (v - slope * load)) / (1 - slope * conductance) : drawn;
       before = { load, v };
       load = agreed > 0 && Number.isFinite(agreed) ? agreed : drawn;
-      start = rail.nodes.map((n) => n.dc);
-      const next = solveSupply(railOf(d, load), { start });
+      const next = solveSupply(railOf(d, load), { start: rail.nodes.map((n) => n.dc) });
       if (!next.ok) return next;
       rail = next;
     }
@@ -165,7 +173,7 @@ export function solveBiasSupply(d: BiasSupplyDesign, reaches: readonly (BiasReac
   return fail('no-convergence', 'The bias rail and its strings did not settle: try a stiffer rail (a smaller filter resistor)', 'r');
 }
 
-function solution(rail: Extract<ReturnType<typeof solveSupply>, { ok: true }>, v: number, load: number, strings: readonly BiasString[], reaches: readonly { readonly nominal: number }[]): Omit<BiasSupplySolution, 'ok'> {
+function solution(rail: Extract<ReturnType<typeof solveSupply>, { ok: true }>, v: number, load: number, strings: readonly BiasString[], reaches: readonly { readonly nominal: number }[]): BiasSupplySolution {
   const railRipple = rail.nodes[1]!.rippleRms;
   const taps = strings.map((s0, i): BiasTap => {
     const s = { ...s0, ...reachOn(s0, v) };
@@ -179,12 +187,15 @@ function solution(rail: Extract<ReturnType<typeof solveSupply>, { ok: true }>, v
     railRipplePp: rail.nodes[1]!.ripplePp,
     reservoir: rail.nodes[0]!.dc,
     reservoirRippleRms: rail.nodes[0]!.rippleRms,
+    reservoirRippleAmps: rail.nodes[0]!.capacitorRippleRms,
+    railRippleAmps: rail.nodes[1]!.capacitorRippleRms,
     load,
     noLoadVolts: rail.noLoadVolts,
     diodePeak: rail.rectifierPeak,
     diodeRms: rail.rectifierRms,
     // Half-wave into a capacitor: reverse, the reservoir holds the peak while the winding swings the other way (the textbook relation).
     piv: 2 * rail.noLoadVolts,
+    windingVa: rail.secondaryVa,
     taps,
   };
 }

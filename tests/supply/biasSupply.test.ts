@@ -93,6 +93,9 @@ describe('a fixed-bias output stage\'s bias supply', () => {
     expect(stereo.load).toBeGreaterThan(1.5 * mono.load);
     expect(stereo.rail).toBeLessThan(mono.rail);
     expect(pairBiasSupply(a, rail, 0)).toMatchObject({ ok: false, field: 'channels' });
+    // As many channels as one B+ supply feeds (8): sixteen strings on a stiff rail.
+    const eight = pairBiasSupply(a, { ...rail, secondaryRms: 60, windingOhms: 50, reservoir: 100e-6, r: 470, c: 220e-6 }, 8);
+    expect(eight.ok && eight.taps.length).toBe(16);
   });
 
   it('chooses lighter strings where the rail would sag too far under strings at their aim, and still reaches every setting', () => {
