@@ -99,7 +99,7 @@ export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
 export { outputBiasSupply, pairBiasSupply, type FixedBiasSupply } from './output/fixedBiasSupply';
 export { type HotEnd } from './output/hotEnd';
-export { mainsFuse, fullPowerVa, htFuseCurrent, TRANSFORMER_EFFICIENCY, FUSE_FACTOR, FUSE_AMPS, type MainsDemand, type MainsAnswer } from './supply/mainsFuse';
+export { mainsFuse, fullPowerVa, htFuseCurrent, bplusWindingLoad, TRANSFORMER_EFFICIENCY, FUSE_FACTOR, FUSE_AMPS, type MainsDemand, type MainsAnswer, type BplusWindingLoad } from './supply/mainsFuse';
 export { solveBiasSupply, checkBiasSupply, type BiasSupplyDesign, type BiasSupplySolution, type BiasTap } from './supply/biasSupply';
 export { STRING_AMPS, HOT_END_SLACK, COLD_END_MARGIN, POT_VALUES, type BiasString, type BiasReach } from './supply/biasString';
 export { type BiasParts } from './build/biasParts';

@@ -6,13 +6,17 @@ import type { WorkbenchState } from '../store/workbenchStore';
 /** The supply's capacitors' rating rule, as the table's caption states it. */
 export const SUPPLY_CAPACITOR_RULE = 'Filter capacitors (voltage rating: the cold voltage, mains 10 % high, IEC 60038; ripple-current rating above the ripple current)';
 
-/** The rectifier's part in words: what each diode (or the tube) stands in reverse and carries at its peak. */
-export function rectifierWords(r: RectifierLine, tubeId: string | null): string {
+/**
+ * The rectifier's part in words: what each diode (or the tube) stands in
+ * reverse and carries at its peak. `bias` names a bias rail's one diode,
+ * turned round for the negative rail.
+ */
+export function rectifierWords(r: RectifierLine, tubeId: string | null, bias = false): string {
   const stands = `stands ${volts(r.piv)} peak inverse cold (${volts(r.pivHighMains)} with the mains 10 % high), peak current ${milliamps(r.peakAmps)}`;
   if (r.kind === 'tube') return `Rectifier tube${tubeId ? ` ${tubeId}` : ''}: ${stands}; check its data sheet's peak inverse rating.`;
-  const each = r.kind === 'silicon-bridge' ? 'four diodes in a bridge, each' : r.kind === 'silicon-half-wave' ? 'one diode, which' : 'two diodes, each';
+  const each = r.kind === 'silicon-bridge' ? 'four diodes in a bridge, each' : r.kind === 'silicon-half-wave' ? (bias ? 'one diode, anode to the reservoir (the rail is negative), which' : 'one diode, which') : 'two diodes, each';
   const part = r.diodeVolts !== null ? `: ${r.diodeVolts} V or more (1N400x series ratings)` : ': past 1000 V, two 1000 V diodes in series for each (common practice)';
-  return `Rectifier, ${each} ${stands}${part}.`;
+  return `${bias ? 'Bias rectifier' : 'Rectifier'}, ${each} ${stands}${part}.`;
 }
 
 /** A choke in words: its inductance, resistance and the DC it must be rated for. */
@@ -52,14 +56,8 @@ export function biasPartLines(s: WorkbenchState): string[] {
   return [
     ...parts.capacitors.map((c) => `${c.ref} (${c.role}): ${farads(c.value!)}, ${c.ratingVolts} V, ${c.polarity}`),
     ...parts.resistors.map((r) => `${r.ref} (${r.role}): ${ohms(r.preferred)}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
-    biasDiodeWords(parts.rectifier),
+    rectifierWords(parts.rectifier, null, true),
   ];
-}
-
-/** The bias rectifier in words: one diode, its cathode to the winding, anode to the reservoir. */
-export function biasDiodeWords(r: RectifierLine): string {
-  const part = r.diodeVolts !== null ? `: ${r.diodeVolts} V or more (1N400x series ratings)` : ': past 1000 V, two in series (common practice)';
-  return `Bias rectifier, one diode, anode to the reservoir (the rail is negative), which stands ${volts(r.piv)} peak inverse cold (${volts(r.pivHighMains)} with the mains 10 % high), peak current ${milliamps(r.peakAmps)}${part}.`;
 }
 
 /** The bias supply on the card: what the rail gives, what each trimmer reaches, the caution, then its parts; none without one. */

@@ -1,6 +1,6 @@
-import { fullPowerVa, htFuseCurrent, mainsFuse, type MainsAnswer, type Result } from '../../src/index';
-import { biasSupplyOf, needsBiasSupply } from './biasSupply';
-import { heaterWindingsOf } from './heaterPlan';
+import { bplusWindingLoad, mainsFuse, type AmplifierOnSupplyResult, type FixedBiasSupply, type MainsAnswer, type Rectifier, type Result } from '../../src/index';
+import { biasSupplyOf } from './biasSupply';
+import { heaterWindingsOf, type HeaterWindingsView } from './heaterPlan';
 import type { WorkbenchState } from './workbenchStore';
 
 /** The mains voltages offered, V rms (the usual nominal mains the world over, IEC 60038 among them). */
@@ -16,8 +16,8 @@ export interface MainsView {
   readonly biasVa: number | null;
   /** A DC heater supply counted at its output (its winding is not designed here, and delivers more). */
   readonly dcHeaters: boolean;
-  /** Where the B+ winding's fuse goes (its centre tap, or in series with it); null where the model cannot say. */
-  readonly htFuseAt: 'centre tap' | 'winding' | null;
+  /** Where the B+ winding's fuse goes: its centre tap, or in series with it. */
+  readonly htFuseAt: 'centre tap' | 'winding';
   readonly answer: Result<MainsAnswer>;
 }
 
@@ -32,14 +32,24 @@ export function mainsOf(s: WorkbenchState): MainsView | null {
   const r = s.design.supply.on && view?.result.ok ? view.result : null;
   const heaters = heaterWindingsOf(s);
   if (!r || !heaters.ok) return null;
-  const bplusVa = r.supply.secondaryVa;
-  const bplusVaFull = fullPowerVa(bplusVa, r.loads, r.atFullPower?.loads ?? null);
+  // Read on every store change (a drag's frames among them): worked out again only when one of its inputs moves.
+  const bias = biasSupplyOf(s);
+  const rectifier = s.design.supply.rectifier.kind;
+  const mainsVolts = s.design.supply.mainsVolts;
+  if (last && last.r === r && last.heaters === heaters && last.bias === bias && last.rectifier === rectifier && last.mainsVolts === mainsVolts) return last.view;
+  const made = mainsFrom(r, heaters, bias, rectifier, mainsVolts);
+  last = { r, heaters, bias, rectifier, mainsVolts, view: made };
+  return made;
+}
+
+let last: { r: object; heaters: object; bias: object | null; rectifier: string; mainsVolts: number; view: MainsView | null } | null = null;
+
+function mainsFrom(r: AmplifierOnSupplyResult, heaters: Extract<HeaterWindingsView, { ok: true }>, bias: Result<FixedBiasSupply> | null, rectifier: Rectifier['kind'], mainsVolts: number): MainsView | null {
+  const winding = bplusWindingLoad(rectifier, r.supply, r.loads, r.atFullPower?.loads ?? null);
+  if (!winding) return null;
+  // Every heater winding's VA as the model gives it; a DC heater supply at its output.
   const heaterVa = heaters.windings.reduce((a, w) => a + w.va, 0) + (heaters.dc ? heaters.dc.volts * heaters.dc.amps : 0);
-  const bias = needsBiasSupply(s) ? biasSupplyOf(s) : null;
-  // Behind one diode the winding carries the diode's pulses: its rms current times its voltage.
-  const biasVa = bias?.ok ? s.design.supply.bias.secondaryRms * bias.diodeRms : null;
-  // The B+ fuse's current at full power, where the winding delivers more there, scaled as its VA is.
-  const ht = htFuseCurrent(s.design.supply.rectifier.kind, r.supply.rectifierRms, r.supply.secondaryRmsCurrent);
-  const htAmps = ht ? ht.amps * (bplusVaFull !== null && bplusVa > 0 ? bplusVaFull / bplusVa : 1) : null;
-  return { bplusVa, bplusVaFull, heaterVa, biasVa, dcHeaters: heaters.dc !== null, htFuseAt: ht?.where ?? null, answer: mainsFuse({ mainsVolts: s.design.supply.mainsVolts, bplusVa, bplusVaFull, heaterVa, biasVa, htAmps }) };
+  const biasVa = bias?.ok ? bias.windingVa : null;
+  const answer = mainsFuse({ mainsVolts, bplusVa: winding.va, bplusVaFull: winding.vaFull, heaterVa, biasVa, htAmps: winding.fuseAmps });
+  return { bplusVa: winding.va, bplusVaFull: winding.vaFull, heaterVa, biasVa, dcHeaters: heaters.dc !== null, htFuseAt: winding.fuseAt, answer };
 }

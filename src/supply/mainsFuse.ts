@@ -90,3 +90,30 @@ export function htFuseCurrent(rectifier: Rectifier['kind'], rectifierRms: number
   if (rectifier === 'silicon-bridge' || rectifier === 'silicon-half-wave') return amps(secondaryRms) ? { where: 'winding', amps: secondaryRms } : null;
   return null;
 }
+
+/** The B+ winding's share of the mains transformer's load, from a solved supply: its VA at idle and full power, and its fuse's place and current. */
+export interface BplusWindingLoad {
+  readonly va: number;
+  /** At full power, where the amplifier draws more there (fullPowerVa); null otherwise, VA. */
+  readonly vaFull: number | null;
+  readonly fuseAt: 'centre tap' | 'winding';
+  /** The fuse's current at the larger of idle and full power (scaled as the VA is), A. */
+  readonly fuseAmps: number;
+}
+
+/**
+ * The B+ winding's load for mainsFuse: the solved supply's VA and its
+ * scaling to full power, and the current through the winding's fuse
+ * (htFuseCurrent) scaled the same way. Null where the solution does not
+ * give finite figures.
+ */
+export function bplusWindingLoad(rectifier: Rectifier['kind'], solved: { readonly secondaryVa: number; readonly rectifierRms: number; readonly secondaryRmsCurrent: number }, loads: readonly number[], fullLoads: readonly number[] | null): BplusWindingLoad | null {
+  if (typeof solved !== 'object' || solved === null) return null;
+  const va = solved.secondaryVa;
+  if (!(typeof va === 'number' && Number.isFinite(va) && va >= 0)) return null;
+  const ht = htFuseCurrent(rectifier, solved.rectifierRms, solved.secondaryRmsCurrent);
+  if (!ht) return null;
+  const vaFull = fullPowerVa(va, loads, fullLoads);
+  const fuseAmps = ht.amps * (vaFull !== null && va > 0 ? vaFull / va : 1);
+  return Number.isFinite(fuseAmps) ? { va, vaFull, fuseAt: ht.where, fuseAmps } : null;
+}

@@ -1,5 +1,5 @@
 import { PartsTables } from '../panels/PartsTables';
-import { biasDiodeWords, biasPartsOf } from '../../export/supplyPartsLines';
+import { biasPartsOf, rectifierWords } from '../../export/supplyPartsLines';
 import { useWorkbench } from '../../store/StoreProvider';
 
 /** The bias supply's capacitors' rating rule, as the table's caption states it. */
@@ -13,7 +13,7 @@ export function BiasPartsList() {
     <div className="stage-parts supply-parts bias-parts">
       <h3 className="subhead">Bias supply</h3>
       <PartsTables resistors={parts.resistors} capacitors={parts.capacitors} capacitorRule={BIAS_CAPACITOR_RULE} />
-      <p data-part-line="bias-rectifier">{biasDiodeWords(parts.rectifier)}</p>
+      <p data-part-line="bias-rectifier">{rectifierWords(parts.rectifier, null, true)}</p>
     </div>
   );
 }

@@ -11,6 +11,6 @@ export function mainsWords(m: MainsView, mainsVolts: number): string | null {
   const bplus = m.bplusVaFull !== null ? `B+ ${va(m.bplusVa)} idle, about ${va(m.bplusVaFull)} at full power` : `B+ ${va(m.bplusVa)}`;
   const parts = [bplus, `heaters ${va(m.heaterVa)}${m.dcHeaters ? ' (the DC supply at its output)' : ''}`, ...(m.biasVa !== null ? [`bias ${va(m.biasVa)}`] : [])];
   const fuse = a.fuseAmps !== null ? `a time-lag (T) fuse of ${plain(a.fuseAmps)} A in the primary (${FUSE_FACTOR} × its full-load current, common practice: it rides out the switch-on surge)` : 'past 10 A, more than a miniature fuse carries';
-  const ht = a.htFuseAmps !== null && m.htFuseAt !== null ? `; a time-lag fuse of ${plain(a.htFuseAmps)} A ${m.htFuseAt === 'centre tap' ? 'in the B+ winding\'s centre tap' : 'in series with the B+ winding'} (the same rule: it opens on a shorted filter capacitor first)` : '';
+  const ht = a.htFuseAmps !== null ? `; a time-lag fuse of ${plain(a.htFuseAmps)} A ${m.htFuseAt === 'centre tap' ? 'in the B+ winding\'s centre tap' : 'in series with the B+ winding'} (the same rule: it opens on a shorted filter capacitor first)` : '';
   return `Mains transformer: at least ${va(a.va)} (${parts.join(', ')}); ${plain(a.primaryAmps)} A in the primary at ${mainsVolts} V (at ${Math.round(a.efficiency * 100)} % efficiency, from memory); ${fuse}${ht}.`;
 }
