@@ -81,7 +81,7 @@ export function SignalCharts() {
     const pts = signal.response.map((p) => ({ x: p.freqHz, y: p.magnitudeDb }));
     const top = Math.max(...pts.map((p) => p.y));
     const { lowHz, highHz, midbandDb } = signal.corners;
-    const markers = [lowHz, highHz].filter((f): f is number => f !== null && f >= 1 && f <= 1e6).map((f) => ({ x: f, y: midbandDb - 3, color: PALETTE.bias, label: `${f < 1000 ? f.toPrecision(3) : `${(f / 1000).toPrecision(3)}k`} Hz` }));
+    const markers = [lowHz, highHz].filter((f): f is number => f !== null && f >= 1 && f <= 1e6).map((f) => ({ x: f, y: midbandDb - 3, color: PALETTE.bias, label: `${f < 1000 ? f.toPrecision(3) : `${(f / 1000).toPrecision(3)}k`} Hz`, below: true }));
     return {
       width: W,
       height: H,
@@ -111,10 +111,8 @@ export function SignalCharts() {
       <MiniChart title="Transfer curve (orange: the span in use)" spec={transfer} description="Output voltage against grid swing, from the model's large-signal solution" />
       <MiniChart title="Harmonics at the chosen level" spec={spectrum} description="Harmonics H2 to H9 in dB below the fundamental" />
       <MiniChart title="THD against output level (dashed: past the clean swing)" spec={thd} description="Total harmonic distortion against output level, across the clean limit (marked) and past it (dashed)" />
-      <div className="bode">
-        <MiniChart title="Response, source to output (−3 dB points marked)" spec={bode} description="Gain in dB against frequency from 1 Hz to 1 MHz" />
-        <MiniChart title="Phase" spec={phase} description="Phase in degrees against frequency" />
-      </div>
+      <MiniChart title="Response, source to output (−3 dB points marked)" spec={bode} description="Gain in dB against frequency from 1 Hz to 1 MHz" />
+      <MiniChart title="Phase, source to output" spec={phase} description="Phase in degrees against frequency" />
     </section>
   );
 }
