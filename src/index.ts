@@ -32,6 +32,7 @@ export { normalizeStage, STAGE_DEFAULTS, type StageDesign, type CheckedStage } f
 export { solveFollower, type FollowerDesign, type FollowerSolution } from './stage/solveFollower';
 export { followerPlane, followerRkFor, type FollowerPlane, type FollowerRk } from './stage/followerPlane';
 export { designFor, type DesignTarget, type DesignAnswer } from './stage/designFor';
+export { readMeter, type MeterReading, type MeterReadout, type ReadStage } from './stage/meterReading';
 export {
   designAtPlanePoint,
   nearestReachable,

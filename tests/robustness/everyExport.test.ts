@@ -27,6 +27,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('judgeFollower', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rl: 220e3 }), or(fc.double({ min: 100, max: 1e6 })), fc.oneof(fc.constant({ maxZout: 500, minGain: 0.9 }), anything)), Q.judgeFollower, 60);
   run('followerPlane', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rk: 33e3, rl: 100e3 }), near({ vmax: 400, iaMax: 0.02 })), Q.followerPlane);
   run('followerRkFor', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150 }), or(fc.double({ min: 1e-7, max: 0.05 })), fc.oneof(fc.constant(undefined), fc.tuple(or(fc.double({ min: 1, max: 1e4 })), or(fc.double({ min: 1e4, max: 1e7 }))), anything)), Q.followerRkFor);
+  // A technician's readings on a 12AU7 stage: inside the tube's range, at cut-off, and junk.
+  run('readMeter', fc.tuple(fc.oneof(near({ tube: au7, rk: 1200, grid: 0 }), anything), fc.oneof(near({ plate: 150, cathode: 5.4 }), near({ plate: 150, cathode: 40 }), anything)), Q.readMeter);
   run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
   run('designAtPlanePoint', fc.tuple(near({ tube: au7, bplus: 275, vpk: 150, ia: 5e-3 })), Q.designAtPlanePoint);
   // Through a grid leak, near the limit where the leak alone biases the grid.
