@@ -3,7 +3,8 @@ import { findOutputTube, findTube, TABLE_THD, type Connection, type FollowerCoup
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { NO_TARGETS, type TargetPlan } from '../store/targetPlan';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
-import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, HEATERS, JOIN, OUTPUT_STAGE, quote, STAGE_KIND } from './designSchema';
+import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, HEATERS, JOIN, OUTPUT_STAGE, quote, READINGS, STAGE_KIND } from './designSchema';
+import type { MeterPlan } from '../store/meterPlan';
 import { readSupplyPlan } from './supplyInFile';
 import { DEFAULT_HEATERS, type HeaterChoice } from '../store/heaterChoice';
 import type { TubeRegistry } from '../store/tubeRegistry';
@@ -21,7 +22,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                 supply: { on, mainsHz, mainsVolts?, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms, bias? },
  *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
- *                 before: [stage…], after: [stage…] } }
+ *                 before: [stage…], after: [stage…], readings? } }
  *
  * Version 3 holds the whole chain of voltage stages: the design's own
  * fields are the stage on the bench (and `stage2` its follower), `before`
@@ -61,7 +62,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * each gain stage's): absent, the voltage stages' node (supply.feeds.voltage),
  * as every such file was designed; and the output
  * transformer's `primaryInductance` and `leakageInductance` (H, or null):
- * absent, the ideal transformer.
+ * absent, the ideal transformer; `readings` (the builder's meter
+ * readings, [{ stage, tubeId, plate, cathode }], see meterPlan.ts): absent,
+ * none.
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -198,6 +201,9 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   if (!supply.ok) return supply;
   const heatersProblem = firstProblem(HEATERS, d, 'design');
   if (heatersProblem) return { ok: false, message: heatersProblem };
+  const readingsProblem = firstProblem(READINGS, d, 'design');
+  if (readingsProblem) return { ok: false, message: readingsProblem };
+  const readings = ((d.readings as MeterPlan[] | undefined) ?? []).map((r) => ({ stage: r.stage, tubeId: knownId(r.tubeId), plate: r.plate, cathode: r.cathode }));
   // Versions 1 and 2 hold no stages beyond the bench's: their chain is its stage and its second stage.
   const nodes = supply.plan.sections.length + 1;
   const benchNode = nodeInSupply(d.node, nodes, 'design');
@@ -249,6 +255,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     feedbackRf: (d.feedbackRf as number | null | undefined) ?? null,
     feedbackCf: (d.feedbackCf as number | null | undefined) ?? null,
     heaters: d.heaters === undefined ? DEFAULT_HEATERS : { ...(d.heaters as HeaterChoice), wiring: { ...(d.heaters as HeaterChoice).wiring } },
+    ...(readings.length > 0 ? { readings } : {}),
   };
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };
 }

@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import { CONNECTIONS, findOutputTube, MAX_SECTIONS } from '../../src/index';
+import { CONNECTIONS, findOutputTube, MAX_CHAIN_STAGES, MAX_SECTIONS } from '../../src/index';
 import { DESIGN_LIMITS as L, type Limit } from '../store/designLimits';
 
 /**
@@ -144,6 +144,28 @@ export const OUTPUT_STAGE = v.object({
 
 /** Whether the voltage stages drive the output stage (added within version 2; absent: apart). */
 export const JOIN = v.object({ drivesOutput: v.optional(yesNo()) });
+
+/**
+ * The builder's meter readings (came later within version 3: absent, none):
+ * one per stage at most, each naming its stage's place (1 the input stage)
+ * and the tube it was read on.
+ */
+export const READINGS = v.object({
+  readings: v.optional(
+    v.pipe(
+      v.array(
+        section({
+          stage: v.custom<number>((x) => typeof x === 'number' && Number.isInteger(x) && x >= 1 && x <= MAX_CHAIN_STAGES, `must be a stage’s place, a whole number from 1 (the input stage) to ${MAX_CHAIN_STAGES}`),
+          tubeId: tubeName(),
+          plate: ranged(L.meter),
+          cathode: ranged(L.meter),
+        }),
+        'must be a list of readings',
+      ),
+      v.check((list) => new Set(list.map((r) => r.stage)).size === list.length, 'must hold one reading per stage'),
+    ),
+  ),
+});
 
 /**
  * How the small tubes' heaters are fed (came later within version 3: absent,

@@ -1,3 +1,4 @@
+import type { MeterPlan } from './meterPlan';
 import type { OutputPlan } from './outputPlan';
 import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type FollowerCoupling, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
@@ -72,6 +73,8 @@ export interface BenchDesign {
    * voltage stage's, and a target set for one must not empty the other's chart.
    */
   readonly outputTargets: TargetPlan;
+  /** The builder's meter readings on stages of the amplifier as built (meterPlan.ts); absent: none. */
+  readonly readings?: readonly MeterPlan[];
 }
 
 /** Which stage the bench shows: a gain stage, its cathode follower (riding with it as `stage2`), or the output stage. */

@@ -51,6 +51,8 @@ export const DESIGN_LIMITS = {
   /** Global feedback's resistor, from the speaker to the first cathode (the model's own range). */
   feedbackRf: limit(FEEDBACK_RF_LIMITS.min, FEEDBACK_RF_LIMITS.max, 'Ω'),
   feedbackCf: limit(FEEDBACK_CF_LIMITS.min, FEEDBACK_CF_LIMITS.max, 'F'),
+  /** A meter's reading from chassis to an electrode, V. */
+  meter: limit(0, 2000, 'V'),
   /** A DC heater supply: from a 1.5 V cell to a string of heaters in series. */
   heaterDcVolts: limit(0.5, 500, 'V'),
   splitter: {

@@ -1,3 +1,4 @@
+import { withReading, type MeterPlan } from './meterPlan';
 import type { StateCreator } from 'zustand/vanilla';
 import type { HeaterChoice } from './heaterChoice';
 import { feedbackPartsProblem, loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
@@ -60,6 +61,8 @@ export interface DesignSlice {
   setSnap: (on: boolean) => void;
   /** How the small tubes' heaters are fed and wired (the build sheet's choice): one undo step. */
   setHeaters: (patch: Partial<HeaterChoice>) => void;
+  /** A stage's meter reading on the tube it holds (null: taken out): one undo step, kept in files and links. */
+  setReading: (stage: number, reading: MeterPlan | null) => void;
   /** Runs the model on `next`; on success makes it the design and returns null. */
   commit: (next: BenchDesign, opts?: CommitOptions) => Failure | null;
   /** How many plate curves the chart draws at most: 6 (sparse), 12 (normal) or 24 (dense). */
@@ -339,6 +342,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   setHeaters: (patch) => {
     const d = get().design;
     get().commit({ ...d, heaters: { ...d.heaters, ...patch } });
+  },
+  setReading: (stage, reading) => {
+    get().commit(withReading(get().design, stage, reading));
   },
 };
 };

@@ -48,6 +48,9 @@ function ranged(label: string, range: Limit, opts: { none?: 'infinite' | 'null' 
   };
 }
 
+/** A meter reading as typed ("252", "1.5"), in the range a reading may have. */
+export const readMeterText = ranged('A reading', L.meter);
+
 /** Compact trade notation for an input box: 27000 → "27k", 1.2e-7 → "120n", 275 → "275". */
 export const compact = (v: number | null) => (v === null ? 'none' : Number.isFinite(v) ? formatValue(v, '').replace('µ', 'u') : 'none');
 

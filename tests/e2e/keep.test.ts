@@ -62,6 +62,23 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     await page.close();
   });
 
+  it('meter readings typed on the build sheet are read by the model and come back after a reload', async () => {
+    const { page, errors } = await openWorkbench(browser, inject('baseUrl'));
+    const stage1 = page.getByRole('group', { name: 'Meter readings, Stage 1 · 12AX7' });
+    await stage1.getByRole('textbox', { name: /^Plate to chassis/ }).fill('175');
+    await stage1.getByRole('textbox', { name: /^Cathode to chassis/ }).fill('1.5');
+    await stage1.getByRole('textbox', { name: /^Cathode to chassis/ }).press('Enter');
+    // Ohm's law: 1.5 V across the demo's 1.5 kΩ.
+    await expect.poll(() => stage1.getByRole('status').textContent()).toMatch(/^Ia 1 mA \(the cathode’s drop across Rk\)/);
+    await page.waitForTimeout(700); // autosave waits 400 ms after the last change
+    await page.reload();
+    await page.waitForSelector('.layer-curves path');
+    expect(await stage1.getByRole('textbox', { name: /^Cathode to chassis/ }).inputValue()).toBe('1.5');
+    expect(await stage1.getByRole('status').textContent()).toMatch(/^Ia 1 mA /);
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
   it('undo after a drag restores the previous Ra and Rk', async () => {
     const { page } = await openWorkbench(browser, inject('baseUrl'));
     const ra = await page.getByRole('textbox', { name: /^Ra/ }).inputValue();

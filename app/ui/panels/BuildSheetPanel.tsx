@@ -7,6 +7,7 @@ import { TubesToOrder } from './TubesToOrder';
 import { feedbackPartLine } from '../chain/feedbackPart';
 import { StagesParts } from './StagesParts';
 import { IdleVoltages } from './IdleVoltages';
+import { MeterReadings } from './MeterReadings';
 import { OutputPartsLines } from '../output/OutputPartsPanel';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
 import { BiasPartsList } from '../supply/BiasPartsList';
@@ -56,6 +57,7 @@ export function BuildSheetPanel() {
       <SupplyPartsList />
       <BiasPartsList />
       <IdleVoltages />
+      <MeterReadings />
       <h3 className="subhead corner-head">Capacitors for a wanted low corner, the bench's stage</h3>
       <div className="option-row">
         <NumberInput label="Wanted low corner" unit="Hz" value={inputs.cornerHz} min={0.001} onValue={(v) => setInputs({ cornerHz: v })} />

@@ -1,0 +1,88 @@
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { act } from 'react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { COALESCE_MS } from '../../app/store/historySlice';
+import { App } from '../../app/App';
+import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
+import { createWorkbenchStore } from '../../app/store/workbenchStore';
+
+const typeInto = (box: HTMLElement, text: string) => act(() => void fireEvent.change(box, { target: { value: text } }));
+
+describe('your meter readings, stage by stage', () => {
+  afterEach(() => void vi.useRealTimers());
+
+  it('reads a stage from its plate and cathode, says where its tube sits, and keeps the reading through undo, files and a tube swapped back', async () => {
+    // The clock alone is the test's, so undo steps can be told apart (changes within COALESCE_MS merge).
+    vi.useFakeTimers({ toFake: ['Date'] });
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    // The demo: stage 1 a 12AX7, stage 2 a 12AU7 on Rk 1.2 kΩ (each a gain stage with its cathode resistor).
+    const stage2 = within(screen.getByRole('group', { name: 'Meter readings, Stage 2 · 12AU7' }));
+    expect(screen.getByRole('group', { name: 'Meter readings, Stage 1 · 12AX7' })).toBeTruthy();
+    const plate = stage2.getByLabelText(/^Plate to chassis/);
+    const cathode = stage2.getByLabelText(/^Cathode to chassis/);
+    // Each box shows what the design should read there.
+    expect((plate as HTMLInputElement).placeholder).toMatch(/^designed \d+(\.\d+)? V$/);
+    typeInto(plate, '160');
+    // Leaving the plate's box for the cathode's is not yet a reading, nor an error.
+    act(() => void fireEvent.blur(plate));
+    expect(stage2.queryByRole('alert')).toBeNull();
+    expect(store.getState().design.readings).toBeUndefined();
+    typeInto(cathode, '4.2');
+    act(() => void fireEvent.keyDown(cathode, { key: 'Enter' }));
+    // Ohm's law: 4.2 V across 1.2 kΩ is 3.5 mA; the tube at Vpk 155.8 V (shown as 156 V), Vgk −4.2 V.
+    const readout = await stage2.findByRole('status');
+    expect(readout.textContent).toMatch(/^Ia 3\.5 mA \(the cathode’s drop across Rk\), at Vpk 156 V and Vgk −4\.2 V: [\d.]+ % of a typical 12AU7’s current there, under the ±20 % spread/);
+    expect(readout.textContent).toMatch(/Plate dissipation 0\.545 W, 19\.8 % of its 2\.75 W rating\.$/);
+    expect(store.getState().design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]);
+    // Kept in the file.
+    const back = readDesignFile(writeDesignFile({ title: 'as built', design: store.getState().design }));
+    expect(back.ok && back.doc.design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]);
+    // Another tube in stage 2's socket: the reading was not taken on it, so it is not shown; the 12AU7 back, it is.
+    act(() => void store.getState().chooseTube('12AT7'));
+    await waitFor(() => expect(screen.queryByRole('group', { name: 'Meter readings, Stage 2 · 12AU7' })).toBeNull());
+    expect((within(screen.getByRole('group', { name: 'Meter readings, Stage 2 · 12AT7' })).getByLabelText(/^Plate to chassis/) as HTMLInputElement).value).toBe('');
+    act(() => void store.getState().chooseTube('12AU7'));
+    const again = within(await screen.findByRole('group', { name: 'Meter readings, Stage 2 · 12AU7' }));
+    expect((again.getByLabelText(/^Cathode to chassis/) as HTMLInputElement).value).toBe('4.2');
+    // Both boxes emptied: the reading is taken out, one undo step puts it back.
+    vi.setSystemTime(Date.now() + 2 * COALESCE_MS);
+    typeInto(again.getByLabelText(/^Plate to chassis/), '');
+    typeInto(again.getByLabelText(/^Cathode to chassis/), '');
+    act(() => void fireEvent.keyDown(again.getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    await waitFor(() => expect(store.getState().design.readings).toBeUndefined());
+    act(() => void store.getState().undo());
+    await waitFor(() => expect(store.getState().design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]));
+  });
+
+  it('says what is wrong beside the box: a slip, a missing half, a reading that cannot be', async () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    const stage1 = within(screen.getByRole('group', { name: 'Meter readings, Stage 1 · 12AX7' }));
+    const plate = stage1.getByLabelText(/^Plate to chassis/);
+    const cathode = stage1.getByLabelText(/^Cathode to chassis/);
+    typeInto(plate, '17O');
+    act(() => void fireEvent.keyDown(plate, { key: 'Enter' }));
+    expect(stage1.getAllByRole('alert').map((a) => a.textContent)).toEqual([expect.stringMatching(/./), 'Give the cathode’s reading too: the stage is read from both.']);
+    expect(plate.getAttribute('aria-invalid')).toBe('true');
+    typeInto(plate, '1.2');
+    typeInto(cathode, '1.4');
+    act(() => void fireEvent.keyDown(cathode, { key: 'Enter' }));
+    // Both numbers, but the plate below the cathode: the model's own message, where the readout would be.
+    await waitFor(() => expect(stage1.getByRole('alert').textContent).toBe('The plate must read above the cathode: check the meter’s leads and the plate resistor.'));
+    expect(store.getState().design.readings).toEqual([{ stage: 1, tubeId: '12AX7', plate: 1.2, cathode: 1.4 }]);
+  });
+
+  it('a file\u2019s readings are checked field by field', () => {
+    const store = createWorkbenchStore();
+    const doc = JSON.parse(writeDesignFile({ title: 't', design: store.getState().design })) as { design: Record<string, unknown> };
+    doc.design.readings = [{ stage: 0, tubeId: '12AX7', plate: 170, cathode: 1.4 }];
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings\[0\]\.stage must be a stage’s place, a whole number from 1/) });
+    doc.design.readings = [{ stage: 1, tubeId: '12AX7', plate: 170, cathode: -3 }];
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings\[0\]\.cathode must be a number from 0 to 2000 V/) });
+    doc.design.readings = [{ stage: 1, tubeId: '12AX7', plate: 170, cathode: 1.4 }, { stage: 1, tubeId: '12AX7', plate: 171, cathode: 1.4 }];
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings must hold one reading per stage/) });
+    doc.design.readings = 'none';
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings must be a list of readings/) });
+  });
+});
