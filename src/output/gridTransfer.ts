@@ -71,7 +71,8 @@ export const TRANSFER_SAMPLES = 32;
 function splineCurve(y: Float64Array, h: number): Float64Array {
   const n = y.length;
   const m = new Float64Array(n);
-  if (n < 3) return m;
+  // A span too small to square (a grid a few hundred orders of magnitude from 0 V) is read as straight lines: no curvature to find.
+  if (n < 3 || !(h * h > 0)) return m;
   const c = new Float64Array(n);
   const d = new Float64Array(n);
   for (let i = 1; i < n - 1; i++) {
@@ -117,6 +118,8 @@ export function gridTransfer(span: number, load: number, solve: (x: number, out:
 function readSpline(t: GridTransfer, y: Float64Array, m: Float64Array, x: number): number {
   const n = y.length;
   const h = (2 * t.span) / (n - 1);
+  // No span to read across (it underflowed): the idle node's value.
+  if (!(h > 0)) return y[(n - 1) >> 1]!;
   const u = Math.min(Math.max((x + t.span) / h, 0), n - 1);
   const k = Math.min(Math.floor(u), n - 2);
   const b = u - k;

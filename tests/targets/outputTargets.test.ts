@@ -194,4 +194,17 @@ describe('where an output stage meets its targets', () => {
     const noTubes = rankOutputTubes({}, { pair: 'single-ended', design: se }, 'EL34' as never);
     expect(noTubes.ok).toBe(false);
   });
+
+  // Found by the robustness run (tests/robustness/everyExport.test.ts): a fixed grid a few hundred orders of
+  // magnitude from 0 V left a span whose spline step squared to 0, and the power within a THD came back NaN.
+  it('a fixed grid a hair from 0 V judges like one at 0 V: no swing, every figure a number', () => {
+    const targets: Targets = { minPower: { power: 5, thd: 0.05 }, maxThdAtPower: { power: 1, thd: 0.02 }, minGridHeadroom: 5 };
+    const tiny = [-5e-324, -1e-310, -1e-300].map((vg) => judgeOutput({ pair: 'single-ended', tube: el34, design: { ...se, bias: 'fixed', vg } }, targets));
+    for (const j of tiny) {
+      if (!j.ok) throw new Error(j.message);
+      expect(j.failing).toEqual(['minPower', 'maxThdAtPower', 'minGridHeadroom']);
+      for (const v of Object.values(j.values)) expect(v === null || Number.isFinite(v)).toBe(true);
+    }
+  });
 });
+
