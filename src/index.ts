@@ -98,6 +98,7 @@ export { atDrive, cleanLimit, waveform, powerSweep, powerAtDistortion, zPrimaryS
 export { OUTPUT_CALL_LIMITS } from './output/checkOutput';
 export { biasForPoint, type BiasAnswer } from './output/outputBias';
 export { SENSE_OHMS, type BiasAdjustment } from './output/biasAdjustment';
+export { readOutputMeter, type OutputMeterReading, type OutputMeterReadout } from './output/outputMeter';
 export { outputBiasSupply, pairBiasSupply, type FixedBiasSupply } from './output/fixedBiasSupply';
 export { type HotEnd } from './output/hotEnd';
 export { mainsFuse, fullPowerVa, htFuseCurrent, bplusWindingLoad, TRANSFORMER_EFFICIENCY, FUSE_FACTOR, FUSE_AMPS, type MainsDemand, type MainsAnswer, type BplusWindingLoad } from './supply/mainsFuse';

@@ -64,7 +64,7 @@ export function readMeter(stage: ReadStage, reading: MeterReading): Result<Meter
     (typeof reading !== 'object' || reading === null ? fail('invalid-input', 'Give the plate and cathode readings.') : null) ??
     checkTube(stage.tube) ??
     ((stage.tube as { kind?: unknown }).kind !== 'tube' ? fail('invalid-tube', 'The reading needs a tube record, for its plate rating.', 'tube') : null) ??
-    checkNumber('rk', 'Rk', stage.rk, 'Ω', 0, LIMITS.maxOhms, { minExclusive: true }) ??
+    checkNumber('rk', 'Rk', stage.rk, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
     checkNumber('grid', 'The grid voltage', stage.grid, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
     checkNumber('plate', 'The plate reading', reading.plate, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
     checkNumber('cathode', 'The cathode reading', reading.cathode, 'V', -LIMITS.maxVolts, LIMITS.maxVolts);
@@ -92,6 +92,11 @@ export function readMeter(stage: ReadStage, reading: MeterReading): Result<Meter
     gridShift: shift.converged ? vgk - shift.x : null,
     pa,
     paFraction: pa / stage.tube.ratings.maxPlateDissipation,
-    verdict: ratio < 1 - TUBE_CURRENT_SPREAD ? 'low' : ratio > 1 + TUBE_CURRENT_SPREAD ? 'high' : 'within-spread',
+    verdict: verdictOf(ratio),
   };
+}
+
+/** A measured current against the typical tube's, as a verdict on the production spread (TUBE_CURRENT_SPREAD, common practice). */
+export function verdictOf(ratio: number): MeterReadout['verdict'] {
+  return ratio < 1 - TUBE_CURRENT_SPREAD ? 'low' : ratio > 1 + TUBE_CURRENT_SPREAD ? 'high' : 'within-spread';
 }

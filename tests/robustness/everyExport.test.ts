@@ -29,6 +29,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('followerRkFor', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150 }), or(fc.double({ min: 1e-7, max: 0.05 })), fc.oneof(fc.constant(undefined), fc.tuple(or(fc.double({ min: 1, max: 1e4 })), or(fc.double({ min: 1e4, max: 1e7 }))), anything)), Q.followerRkFor);
   // A technician's readings on a 12AU7 stage: inside the tube's range, at cut-off, and junk.
   run('readMeter', fc.tuple(fc.oneof(near({ tube: au7, rk: 1200, grid: 0 }), anything), fc.oneof(near({ plate: 150, cathode: 5.4 }), near({ plate: 150, cathode: 40 }), anything)), Q.readMeter);
+  // An output tube's readings: cathode-biased, fixed-bias across its sense resistor, a power triode's, and junk.
+  run('readOutputMeter', fc.tuple(fc.oneof(fc.constantFrom<unknown>(...Q.outputTubeLibrary), near(el34), anything), fc.oneof(near({ plate: 321, screen: 330, grid: 0, cathode: 23.5, rk: 330 }), near({ plate: 400, screen: 400, grid: -38, cathode: 0.06, rk: 1 }), near({ plate: 295, screen: null, grid: 0, cathode: 45, rk: 750 }), anything)), Q.readOutputMeter);
   run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
   run('designAtPlanePoint', fc.tuple(near({ tube: au7, bplus: 275, vpk: 150, ia: 5e-3 })), Q.designAtPlanePoint);
   // Through a grid leak, near the limit where the leak alone biases the grid.
