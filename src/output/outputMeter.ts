@@ -49,7 +49,8 @@ const SHIFT_SEARCH_VOLTS = 100;
  * screen, which a cathode resistor carries together). The plate's share of
  * the measured current is taken as the typical tube's share (a meter on the
  * cathode cannot tell them apart; measure the primary's drop for the plate's
- * alone), which gives the plate's and screen's dissipation.
+ * alone): the typical tube's share where it passes the measured current,
+ * which gives the plate's and screen's dissipation.
  */
 export function readOutputMeter(tube: OutputTube, reading: OutputMeterReading): Result<OutputMeterReadout> {
   const problem =
@@ -81,8 +82,13 @@ export function readOutputMeter(tube: OutputTube, reading: OutputMeterReading): 
     return fail('cutoff', `The model's ${tube.id} is cut off at these voltages (the grid ${Math.abs(vgk).toFixed(1)} V below the cathode): check the grid's voltage and the readings.`, 'grid');
   }
   const typicalIa = vg2k === null ? at.ik : at.ia;
-  const plateShare = vg2k === null ? 1 : at.ia / at.ik;
   const shift = bracketedRoot((vg) => cathodeCurrent(vg) - ik, vgk - SHIFT_SEARCH_VOLTS, vgk + SHIFT_SEARCH_VOLTS, 1e-4);
+  // The plate's share as the typical tube splits the same cathode current (at its shifted grid): a weak or strong
+  // tube's screen takes the share its current does, not the typical tube's at the measured grid (where Koren's
+  // screen law may have run out).
+  if (shift.converged) cathodeCurrent(shift.x);
+  else cathodeCurrent(vgk);
+  const plateShare = vg2k === null || !(at.ik > 0) ? 1 : at.ia / at.ik;
   const ratio = ik / typicalIk;
   const ia = ik * plateShare;
   const ig2 = vg2k === null ? null : ik - ia;

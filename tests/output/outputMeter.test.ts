@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, readOutputMeter, SENSE_OHMS, singleEndedPins, solveOutput, type OutputDesign } from '../../src/index';
+import { korenPentode } from '../../src/tube/pentode';
 import { expectClose } from '../helpers/expectClose';
 
 const a3 = findOutputTube('2A3')!;
@@ -61,4 +62,17 @@ describe('readOutputMeter: an output tube read from the meter', () => {
     expect(readOutputMeter(el34, { ...ok, grid: -200 })).toMatchObject({ ok: false, reason: 'cutoff', field: 'grid' });
     expect(readOutputMeter({ kind: 'tube' } as never, ok)).toMatchObject({ ok: false, reason: 'invalid-tube' });
   });
+
+  it('splits a strong tube\u2019s cathode current as the typical tube splits the same current, at its shifted grid', () => {
+    // Fixed bias, 75 mA across the sense resistor where the typical EL34 passes about 41 mA (and Koren's screen law gives it no screen current).
+    const r = readOutputMeter(el34, { plate: 320.075, screen: 330.075, grid: -30, cathode: 0.075, rk: SENSE_OHMS });
+    if (!r.ok) throw new Error(r.message);
+    expect(r.verdict).toBe('high');
+    const law = el34.law as Extract<typeof el34.law, { kind: 'pentode' }>;
+    const same = korenPentode(law.params, r.vpk, r.vgk - r.gridShift!, r.vg2k!);
+    expectClose(same.ia + same.ig2, r.ik, { rel: 1e-4 });
+    expectClose(r.ig2! / r.ik, same.ig2 / (same.ia + same.ig2), { rel: 1e-6 });
+    expect(r.ig2!).toBeGreaterThan(0);
+  });
 });
+
