@@ -399,7 +399,10 @@ export function withBiasHum(h: HumAtOutput, bias: number | null): Result<HumWith
   const shares = (x: unknown) => Array.isArray(x) && x.every((v) => v === null || (typeof v === 'number' && Number.isFinite(v)));
   if (typeof h !== 'object' || h === null || typeof h.bound !== 'number' || !Number.isFinite(h.bound) || h.bound < 0 || !shares(h.volts) || !shares(h.screens)) return fail('invalid-input', 'Give the hum at the output');
   const share = typeof bias === 'number' && Number.isFinite(bias) && bias >= 0 ? bias : null;
-  return { ok: true, volts: h.volts, screens: h.screens, bound: h.bound + (share ?? 0), bias: share };
+  const bound = h.bound + (share ?? 0);
+  // Two finite figures near the largest double add past it: no hum a meter could show.
+  if (!Number.isFinite(bound)) return fail('invalid-input', 'The hum at the output and the bias supply’s share add past any figure: check the supply');
+  return { ok: true, volts: h.volts, screens: h.screens, bound, bias: share };
 }
 
 /**

@@ -162,6 +162,11 @@ describe('withBiasHum', () => {
     expect(added.ok && added.bound).toBeCloseTo(1.5e-3, 15);
     expect(withBiasHum(h, null)).toMatchObject({ ok: true, bound: 1.2e-3, bias: null });
   });
+
+  // Found by the robustness run on a fresh seed: two finite figures whose sum overflowed came back Infinity.
+  it('a sum past the largest double is a typed failure, not Infinity', () => {
+    expect(withBiasHum({ volts: [0, null], screens: [null, 0], bound: 1.7e308 }, 9.77e306)).toMatchObject({ ok: false, reason: 'invalid-input' });
+  });
 });
 
 describe('reachOn', () => {
