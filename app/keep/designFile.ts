@@ -3,8 +3,8 @@ import { findOutputTube, findTube, TABLE_THD, type Connection, type FollowerCoup
 import { DEMO_DESIGN } from '../store/demoDesign';
 import { NO_TARGETS, type TargetPlan } from '../store/targetPlan';
 import type { BenchDesign, Stage2Design } from '../store/analysis';
-import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, HEATERS, JOIN, OUTPUT_STAGE, quote, READINGS, STAGE_KIND } from './designSchema';
-import type { MeterPlan } from '../store/meterPlan';
+import { BENCH_STAGE, firstProblem, FOLLOWER_STAGE, GAIN_STAGE, HEATERS, JOIN, OUTPUT_STAGE, OUTPUT_READINGS, quote, READINGS, STAGE_KIND } from './designSchema';
+import type { MeterPlan, OutputMeterPlan } from '../store/meterPlan';
 import { readSupplyPlan } from './supplyInFile';
 import { DEFAULT_HEATERS, type HeaterChoice } from '../store/heaterChoice';
 import type { TubeRegistry } from '../store/tubeRegistry';
@@ -22,7 +22,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                 supply: { on, mainsHz, mainsVolts?, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms, bias? },
  *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
- *                 before: [stage…], after: [stage…], readings? } }
+ *                 before: [stage…], after: [stage…], readings?, outputReadings? } }
  *
  * Version 3 holds the whole chain of voltage stages: the design's own
  * fields are the stage on the bench (and `stage2` its follower), `before`
@@ -63,8 +63,9 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * as every such file was designed; and the output
  * transformer's `primaryInductance` and `leakageInductance` (H, or null):
  * absent, the ideal transformer; `readings` (the builder's meter
- * readings, [{ stage, tubeId, plate, cathode }], see meterPlan.ts): absent,
- * none.
+ * readings, [{ stage, tubeId, plate, cathode }], see meterPlan.ts) and
+ * `outputReadings` (on the output tubes, [{ tube, tubeId, pair, bias, plate,
+ * screen, grid, cathode }]): absent, none.
  * Version 1 files (before output stages) open with the bench's default
  * output stage and the voltage stage shown.
  * SI units throughout. JSON has no Infinity, so an absent load (rl) and an
@@ -204,6 +205,9 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   const readingsProblem = firstProblem(READINGS, d, 'design');
   if (readingsProblem) return { ok: false, message: readingsProblem };
   const readings = ((d.readings as MeterPlan[] | undefined) ?? []).map((r) => ({ stage: r.stage, tubeId: knownId(r.tubeId), plate: r.plate, cathode: r.cathode }));
+  const outputReadingsProblem = firstProblem(OUTPUT_READINGS, d, 'design');
+  if (outputReadingsProblem) return { ok: false, message: outputReadingsProblem };
+  const outputReadings = ((d.outputReadings as OutputMeterPlan[] | undefined) ?? []).map((r) => ({ ...r, tubeId: findOutputTube(r.tubeId)?.id ?? r.tubeId }));
   // Versions 1 and 2 hold no stages beyond the bench's: their chain is its stage and its second stage.
   const nodes = supply.plan.sections.length + 1;
   const benchNode = nodeInSupply(d.node, nodes, 'design');
@@ -256,6 +260,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
     feedbackCf: (d.feedbackCf as number | null | undefined) ?? null,
     heaters: d.heaters === undefined ? DEFAULT_HEATERS : { ...(d.heaters as HeaterChoice), wiring: { ...(d.heaters as HeaterChoice).wiring } },
     ...(readings.length > 0 ? { readings } : {}),
+    ...(outputReadings.length > 0 ? { outputReadings } : {}),
   };
   return { ok: true, doc: { title: raw.title, design: normalized(design) } };
 }

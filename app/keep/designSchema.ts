@@ -168,6 +168,32 @@ export const READINGS = v.object({
 });
 
 /**
+ * The builder's meter readings on the output tubes (came later within
+ * version 3: absent, none): one per tube at most, each naming the tube (1 or
+ * 2), its type and the stage's form and bias it was read on.
+ */
+export const OUTPUT_READINGS = v.object({
+  outputReadings: v.optional(
+    v.pipe(
+      v.array(
+        section({
+          tube: v.picklist([1, 2], 'must be 1 or 2 (which tube of a pair; 1 for a single tube)'),
+          tubeId: tubeName(),
+          pair: oneOf(['single-ended', 'push-pull']),
+          bias: oneOf(['cathode', 'fixed']),
+          plate: ranged(L.meter),
+          screen: rangedOrNull(L.meter),
+          grid: v.custom<number>((x) => typeof x === 'number' && Number.isFinite(x) && x >= L.meterGrid.min && x <= L.meterGrid.max, `must be a number from ${L.meterGrid.min} to ${L.meterGrid.max} V`),
+          cathode: ranged(L.meter),
+        }),
+        'must be a list of readings',
+      ),
+      v.check((list) => new Set(list.map((r) => r.tube)).size === list.length, 'must hold one reading per tube'),
+    ),
+  ),
+});
+
+/**
  * How the small tubes' heaters are fed (came later within version 3: absent,
  * the bench's default). A wiring names one of the tube's heater wirings; a
  * name the tube does not have reads as its first, as a tube can change.

@@ -1,4 +1,4 @@
-import type { MeterPlan } from './meterPlan';
+import type { MeterPlan, OutputMeterPlan } from './meterPlan';
 import type { OutputPlan } from './outputPlan';
 import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type FollowerCoupling, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
@@ -75,6 +75,8 @@ export interface BenchDesign {
   readonly outputTargets: TargetPlan;
   /** The builder's meter readings on stages of the amplifier as built (meterPlan.ts); absent: none. */
   readonly readings?: readonly MeterPlan[];
+  /** The builder's meter readings on the output tubes as built (meterPlan.ts); absent: none. */
+  readonly outputReadings?: readonly OutputMeterPlan[];
 }
 
 /** Which stage the bench shows: a gain stage, its cathode follower (riding with it as `stage2`), or the output stage. */

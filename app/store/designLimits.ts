@@ -53,6 +53,8 @@ export const DESIGN_LIMITS = {
   feedbackCf: limit(FEEDBACK_CF_LIMITS.min, FEEDBACK_CF_LIMITS.max, 'F'),
   /** A meter's reading from chassis to an electrode, V. */
   meter: limit(0, 2000, 'V'),
+  /** A fixed-bias grid's reading from chassis, V: at or below chassis. */
+  meterGrid: limit(-1000, 0, 'V'),
   /** A DC heater supply: from a 1.5 V cell to a string of heaters in series. */
   heaterDcVolts: limit(0.5, 500, 'V'),
   splitter: {

@@ -1,4 +1,4 @@
-import { withReading, type MeterPlan } from './meterPlan';
+import { withOutputReading, withReading, type MeterPlan, type OutputMeterPlan } from './meterPlan';
 import type { StateCreator } from 'zustand/vanilla';
 import type { HeaterChoice } from './heaterChoice';
 import { feedbackPartsProblem, loadLineExtent, tubeLibrary, tubeSummary, type Failure, type Result, type PlateExtent, type PreferredSeries, type TubeSummary } from '../../src/index';
@@ -63,6 +63,8 @@ export interface DesignSlice {
   setHeaters: (patch: Partial<HeaterChoice>) => void;
   /** A stage's meter reading on the tube it holds (null: taken out): one undo step, kept in files and links. */
   setReading: (stage: number, reading: MeterPlan | null) => void;
+  /** An output tube's meter reading (null: taken out): one undo step, kept in files and links. */
+  setOutputReading: (tube: 1 | 2, reading: OutputMeterPlan | null) => void;
   /** Runs the model on `next`; on success makes it the design and returns null. */
   commit: (next: BenchDesign, opts?: CommitOptions) => Failure | null;
   /** How many plate curves the chart draws at most: 6 (sparse), 12 (normal) or 24 (dense). */
@@ -345,6 +347,9 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   },
   setReading: (stage, reading) => {
     get().commit(withReading(get().design, stage, reading));
+  },
+  setOutputReading: (tube, reading) => {
+    get().commit(withOutputReading(get().design, tube, reading));
   },
 };
 };

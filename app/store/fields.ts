@@ -51,6 +51,15 @@ function ranged(label: string, range: Limit, opts: { none?: 'infinite' | 'null' 
 /** A meter reading as typed ("252", "1.5"), in the range a reading may have. */
 export const readMeterText = ranged('A reading', L.meter);
 
+/** A fixed-bias grid's reading as typed ("-38", "−38"): at or below chassis. */
+export const readGridMeterText: Read = (text) => {
+  const r = parseValue(text.trim().replace(/^\u2212/, '-'));
+  if (!r.ok) return r;
+  if (r.value > 0) return { ok: false, message: 'A fixed-bias grid reads below chassis: type it with its minus sign, as −38' };
+  if (r.value < L.meterGrid.min) return { ok: false, message: `A grid reading must be at least ${L.meterGrid.min} V` };
+  return r;
+};
+
 /** Compact trade notation for an input box: 27000 → "27k", 1.2e-7 → "120n", 275 → "275". */
 export const compact = (v: number | null) => (v === null ? 'none' : Number.isFinite(v) ? formatValue(v, '').replace('µ', 'u') : 'none');
 

@@ -1,5 +1,6 @@
 import type { BenchDesign } from './analysis';
-import { readMeterText } from './fields';
+import { readGridMeterText, readMeterText } from './fields';
+import type { OutputPair } from './outputPlan';
 
 /**
  * A builder's meter readings on one stage of the amplifier as built: the
@@ -54,4 +55,70 @@ export function meterFromText(stage: number, tubeId: string, text: MeterText): {
   }
   if (values.plate === undefined || values.cathode === undefined) return { ok: false, errors };
   return { ok: true, reading: { stage, tubeId, plate: values.plate, cathode: values.cathode } };
+}
+
+/**
+ * A builder's meter readings on an output tube at idle, V to chassis: tube
+ * 1 or 2 of a pair (1 for a single tube, and for a cathode-biased pair, whose
+ * shared cathode resistor reads both at once), with the tube, the stage's
+ * form and its bias they were read on (a reading shows only while they
+ * hold). `cathode` is the cathode's voltage under cathode bias, the drop
+ * across the 1 Ω sense resistor under fixed bias; `grid` is 0 under cathode
+ * bias; `screen` null where the screen is not read apart (triode-connected,
+ * or a power triode).
+ */
+export interface OutputMeterPlan {
+  readonly tube: 1 | 2;
+  readonly tubeId: string;
+  readonly pair: OutputPair;
+  readonly bias: 'cathode' | 'fixed';
+  readonly plate: number;
+  readonly screen: number | null;
+  readonly grid: number;
+  readonly cathode: number;
+}
+
+/** The design with an output tube's reading put in its place (null: taken out); absent when none is left. */
+export function withOutputReading(d: BenchDesign, tube: 1 | 2, reading: OutputMeterPlan | null): BenchDesign {
+  const others = (d.outputReadings ?? []).filter((r) => r.tube !== tube);
+  const readings = reading ? [...others, reading].sort((a, b) => a.tube - b.tube) : others;
+  const { outputReadings: _old, ...rest } = d;
+  return readings.length > 0 ? { ...rest, outputReadings: readings } : rest;
+}
+
+/** An output tube's boxes as typed: plate and cathode always, the screen and grid where the stage has them to read. */
+export interface OutputMeterText {
+  readonly plate: string;
+  readonly screen: string;
+  readonly grid: string;
+  readonly cathode: string;
+}
+
+/** Which of an output tube's boxes the stage asks for. */
+export interface OutputMeterBoxes {
+  readonly screen: boolean;
+  readonly grid: boolean;
+}
+
+/** What an output tube's boxes make: a reading (every asked box read), none (all empty), or the boxes' messages. */
+export function outputMeterFromText(
+  at: Pick<OutputMeterPlan, 'tube' | 'tubeId' | 'pair' | 'bias'>,
+  boxes: OutputMeterBoxes,
+  text: OutputMeterText,
+): { ok: true; reading: OutputMeterPlan | null } | { ok: false; errors: Partial<Record<keyof OutputMeterText, string>> } {
+  const asked = (['plate', 'cathode', ...(boxes.screen ? ['screen'] : []), ...(boxes.grid ? ['grid'] : [])] as (keyof OutputMeterText)[]);
+  if (asked.every((k) => text[k].trim() === '')) return { ok: true, reading: null };
+  const errors: Partial<Record<keyof OutputMeterText, string>> = {};
+  const values: Partial<Record<keyof OutputMeterText, number>> = {};
+  for (const key of asked) {
+    if (text[key].trim() === '') {
+      errors[key] = `Give the ${key === 'cathode' && at.bias === 'fixed' ? 'sense resistor' : key}’s reading too: the tube is read from every box.`;
+      continue;
+    }
+    const r = key === 'grid' ? readGridMeterText(text[key]) : readMeterText(text[key]);
+    if (r.ok && r.value !== null) values[key] = r.value;
+    else errors[key] = r.ok ? 'A reading must be a number of volts' : r.message;
+  }
+  if (Object.keys(errors).length > 0 || values.plate === undefined || values.cathode === undefined) return { ok: false, errors };
+  return { ok: true, reading: { ...at, plate: values.plate, cathode: values.cathode, screen: boxes.screen ? values.screen! : null, grid: boxes.grid ? values.grid! : 0 } };
 }

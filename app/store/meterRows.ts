@@ -1,5 +1,8 @@
-import { readMeter, type MeterReadout, type Result } from '../../src/index';
-import type { MeterPlan } from './meterPlan';
+import { findOutputTube, readMeter, readOutputMeter, SENSE_OHMS, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
+import { idleVoltagesOf } from './idleVoltages';
+import type { MeterPlan, OutputMeterBoxes, OutputMeterPlan } from './meterPlan';
+import { outputPartsOf } from './outputParts';
+import type { OutputPair } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
 /** A stage the meter can be read on (a triode with a cathode resistor to chassis), with its reading and what the model makes of it. */
@@ -51,5 +54,81 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
     });
   });
   memo.set(view, { readings, rows });
+  return rows;
+}
+
+/** An output tube the meter can be read on (or a cathode-biased pair, read together), with its reading read by the model. */
+export interface OutputMeterRow {
+  /** Tube 1 or 2 of a fixed-bias pair; 1 for a single tube and for a cathode-biased pair (`together`). */
+  readonly tube: 1 | 2;
+  /** A cathode-biased pair: its shared cathode resistor reads both tubes at once, each on average. */
+  readonly together: boolean;
+  readonly name: string;
+  readonly tubeId: string;
+  readonly pair: OutputPair;
+  readonly bias: 'cathode' | 'fixed';
+  /** The boxes the stage asks for beyond plate and cathode. */
+  readonly boxes: OutputMeterBoxes;
+  /** What the meter should read at idle, V: the cathode box is the sense resistor's drop under fixed bias. */
+  readonly expected: { readonly plate: number; readonly screen: number | null; readonly grid: number; readonly cathode: number };
+  readonly ratedWatts: number;
+  readonly ratedScreenWatts: number | null;
+  readonly reading: OutputMeterPlan | null;
+  readonly readout: Result<OutputMeterReadout> | null;
+}
+
+const outputMemo = new WeakMap<object, { readings: WorkbenchState['design']['outputReadings']; sense: unknown; rows: readonly OutputMeterRow[] }>();
+
+/**
+ * The output stage's tubes as the meter reads them: one tube; a fixed-bias
+ * pair's two (each on its own sense resistor); a cathode-biased pair as one
+ * (its shared resistor carries both: each tube's average is half). Each with
+ * the builder's reading when it was taken on this tube, form and bias.
+ */
+export function outputMeterRowsOf(s: WorkbenchState): readonly OutputMeterRow[] {
+  const idle = idleVoltagesOf(s);
+  const o = s.design.output;
+  const tube = findOutputTube(o.tubeId);
+  if (!idle || !tube) return [];
+  const row = idle.apartOutput ?? idle.rows.find((r) => r.name.startsWith('Output'));
+  if (!row) return [];
+  const readings = s.design.outputReadings;
+  const parts = o.bias === 'fixed' ? outputPartsOf(s) : null;
+  const sense = parts?.biasAdjustment ?? null;
+  const cached = outputMemo.get(row);
+  if (cached && cached.readings === readings && cached.sense === sense) return cached.rows;
+  const pair = o.pair;
+  const bias = o.bias;
+  const together = pair === 'push-pull' && bias === 'cathode';
+  const boxes: OutputMeterBoxes = { screen: tube.law.kind === 'pentode' && o.connection !== 'triode', grid: bias === 'fixed' };
+  const senseVolts = sense?.ok ? sense.senseVolts : row.ia * SENSE_OHMS;
+  const expected = {
+    plate: row.pins.plate,
+    screen: boxes.screen ? row.pins.screen : null,
+    grid: bias === 'fixed' ? row.pins.grid : 0,
+    cathode: bias === 'fixed' ? senseVolts : row.pins.cathode,
+  };
+  // A pair's shared Rk carries both tubes: read across it as twice the resistance, the drop gives each tube's average.
+  const rk = bias === 'fixed' ? SENSE_OHMS : together ? 2 * o.rk : o.rk;
+  const tubes: (1 | 2)[] = pair === 'push-pull' && bias === 'fixed' ? [1, 2] : [1];
+  const rows = tubes.map((n): OutputMeterRow => {
+    const reading = readings?.find((r) => r.tube === n && r.tubeId === tube.id && r.pair === pair && r.bias === bias) ?? null;
+    const name = `Output · ${tube.id}${together ? ' pair, each tube on average (they share Rk)' : pair === 'push-pull' ? `, tube ${n}` : ''}`;
+    return {
+      tube: n,
+      together,
+      name,
+      tubeId: tube.id,
+      pair,
+      bias,
+      boxes,
+      expected,
+      ratedWatts: tube.ratings.maxPlateDissipation,
+      ratedScreenWatts: tube.ratings.maxScreenDissipation,
+      reading,
+      readout: reading ? readOutputMeter(tube, { plate: reading.plate, screen: reading.screen, grid: reading.grid, cathode: reading.cathode, rk }) : null,
+    };
+  });
+  outputMemo.set(row, { readings, sense, rows });
   return rows;
 }

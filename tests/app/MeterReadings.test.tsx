@@ -84,5 +84,56 @@ describe('your meter readings, stage by stage', () => {
     expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings must hold one reading per stage/) });
     doc.design.readings = 'none';
     expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings must be a list of readings/) });
+    delete doc.design.readings;
+    doc.design.outputReadings = [{ tube: 3, tubeId: 'EL34', pair: 'single-ended', bias: 'cathode', plate: 318, screen: 330, grid: 0, cathode: 22 }];
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.outputReadings\[0\]\.tube must be 1 or 2/) });
+    doc.design.outputReadings = [{ tube: 1, tubeId: 'EL34', pair: 'push-pull', bias: 'fixed', plate: 318, screen: null, grid: 5, cathode: 0.065 }];
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.outputReadings\[0\]\.grid must be a number from -1000 to 0 V/) });
+  });
+
+  it('reads the output tube: the single tube on its Rk, a cathode-biased pair on its shared Rk, a fixed-bias pair tube by tube across the 1 Ω sense resistors', async () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    // The demo's ultralinear EL34 on 330 Ω: plate, screen and cathode.
+    const single = within(screen.getByRole('group', { name: 'Meter readings, Output · EL34' }));
+    expect(single.queryByLabelText(/^Grid to chassis/)).toBeNull();
+    typeInto(single.getByLabelText(/^Plate to chassis/), '318');
+    typeInto(single.getByLabelText(/^Screen to chassis/), '330');
+    typeInto(single.getByLabelText(/^Cathode to chassis/), '22');
+    act(() => void fireEvent.keyDown(single.getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    // Ohm's law: 22 V across 330 Ω is 66.7 mA of cathode current.
+    await waitFor(() => expect(within(screen.getByRole('group', { name: 'Meter readings, Output · EL34' })).getByRole('status').textContent).toMatch(/^Ik 66\.7 mA \(the cathode’s drop across Rk\), at Vpk 296 V, Vg2k 308 V and Vgk −22 V: [\d.]+ % of a typical EL34’s cathode current there/));
+    expect(store.getState().design.outputReadings).toEqual([{ tube: 1, tubeId: 'EL34', pair: 'single-ended', bias: 'cathode', plate: 318, screen: 330, grid: 0, cathode: 22 }]);
+    // A pair on one shared Rk: one row, each tube's average is half the resistor's current; the single tube's reading is not shown there.
+    act(() => void store.getState().setOutputPair('push-pull'));
+    const together = within(await screen.findByRole('group', { name: 'Meter readings, Output · EL34 pair, each tube on average (they share Rk)' }));
+    expect((together.getByLabelText(/^Cathodes to chassis \(shared Rk\)/) as HTMLInputElement).value).toBe('');
+    const rk = store.getState().design.output.rk;
+    typeInto(together.getByLabelText(/^Plate to chassis/), '320');
+    typeInto(together.getByLabelText(/^Screen to chassis/), '330');
+    typeInto(together.getByLabelText(/^Cathodes to chassis/), '20');
+    act(() => void fireEvent.keyDown(together.getByLabelText(/^Cathodes to chassis/), { key: 'Enter' }));
+    const each = (20 / rk / 2) * 1e3;
+    await waitFor(() => expect(screen.getByRole('group', { name: /pair, each tube on average/ }).querySelector('[role=status]')?.textContent).toContain(`Ik ${Number(each.toPrecision(3))} mA (half the drop across the shared Rk)`));
+    // Fixed bias: a row per tube, with the grid and the sense resistor's drop.
+    act(() => void store.getState().setOutputBias('fixed'));
+    const tube2 = within(await screen.findByRole('group', { name: 'Meter readings, Output · EL34, tube 2' }));
+    expect(screen.getByRole('group', { name: 'Meter readings, Output · EL34, tube 1' })).toBeTruthy();
+    typeInto(tube2.getByLabelText(/^Plate to chassis/), '320');
+    typeInto(tube2.getByLabelText(/^Screen to chassis/), '330');
+    typeInto(tube2.getByLabelText(/^Grid to chassis/), '30');
+    typeInto(tube2.getByLabelText(/^Across its 1 Ω sense resistor/), '65m');
+    act(() => void fireEvent.keyDown(tube2.getByLabelText(/^Across its 1 Ω sense resistor/), { key: 'Enter' }));
+    // A grid typed without its minus sign is refused beside its box.
+    expect(tube2.getByRole('alert').textContent).toBe('A fixed-bias grid reads below chassis: type it with its minus sign, as −38');
+    typeInto(tube2.getByLabelText(/^Grid to chassis/), '−30');
+    act(() => void fireEvent.keyDown(tube2.getByLabelText(/^Grid to chassis/), { key: 'Enter' }));
+    const read = await within(screen.getByRole('group', { name: 'Meter readings, Output · EL34, tube 2' })).findByRole('status');
+    // 65 mV across 1 Ω is 65 mA (Ohm's law); the sense reading the design asks is named.
+    expect(read.textContent).toMatch(/^Ik 65 mA \(the drop across its 1 Ω sense resistor\), at Vpk 320 V, Vg2k 330 V and Vgk −30\.1 V: /);
+    expect(read.textContent).toMatch(/The designed idle reads [\d.]+ mV across the sense resistor: set the trimmer to it\.$/);
+    const back = readDesignFile(writeDesignFile({ title: 'biased', design: store.getState().design }));
+    expect(back.ok && back.doc.design.outputReadings?.map((r) => [r.tube, r.pair, r.bias])).toEqual([[1, 'push-pull', 'cathode'], [2, 'push-pull', 'fixed']]);
   });
 });
+

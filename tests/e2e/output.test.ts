@@ -62,6 +62,14 @@ describe.runIf(run)('the output stage in Chromium', () => {
     await bias.scrollIntoViewIfNeeded();
     await expect.poll(() => bias.getByTestId('bias-results').textContent()).toMatch(/Rail−\d+(\.\d+)? V/);
     expect(await bias.getByRole('img', { name: /^The bias supply drawn: 50 V winding, one diode/ }).count()).toBe(1);
+    // Built and idling, the tube is read at its grid and across its 1 Ω sense resistor (millivolts as milliamps).
+    const meter = page.getByRole('group', { name: 'Meter readings, Output · EL34' });
+    await meter.getByRole('textbox', { name: /^Plate to chassis/ }).fill('320');
+    await meter.getByRole('textbox', { name: /^Screen to chassis/ }).fill('330');
+    await meter.getByRole('textbox', { name: /^Grid to chassis/ }).fill('-24');
+    await meter.getByRole('textbox', { name: /^Across its 1 Ω sense resistor/ }).fill('70m');
+    await meter.getByRole('textbox', { name: /^Across its 1 Ω sense resistor/ }).press('Enter');
+    await expect.poll(() => meter.getByRole('status').textContent()).toMatch(/^Ik 70 mA \(the drop across its 1 Ω sense resistor\).* The designed idle reads [\d.]+ mV across the sense resistor: set the trimmer to it\.$/);
     // Printed, the amplifier still takes one sheet: the bias supply's parts are the card's (its last sections).
     await page.locator('[data-part-line="bias-rectifier"]').waitFor();
     await page.locator('.supply-parts [data-part-line="rectifier"]').waitFor();

@@ -10,6 +10,7 @@ import { outputPartsOf, type OutputStageParts } from '../../store/outputParts';
 import { useWorkbench } from '../../store/StoreProvider';
 import { StagesParts } from '../panels/StagesParts';
 import { IdleVoltages } from '../panels/IdleVoltages';
+import { MeterReadings } from '../panels/MeterReadings';
 import { TubesToOrder } from '../panels/TubesToOrder';
 import { SupplyPartsList } from '../supply/SupplyPartsList';
 import { BiasPartsList } from '../supply/BiasPartsList';
@@ -33,6 +34,7 @@ export function OutputPartsPanel() {
       <SupplyPartsList />
       <BiasPartsList />
       <IdleVoltages outputAlone />
+      <MeterReadings outputAlone />
     </section>
   );
 }

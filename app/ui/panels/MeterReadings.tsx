@@ -1,78 +1,100 @@
 import { useId, useState } from 'react';
-import { meterVolts } from '../../format';
-import { meterFromText, type MeterText } from '../../store/meterPlan';
-import { meterRowsOf, type MeterRow } from '../../store/meterRows';
+import { meterVolts, smallVolts } from '../../format';
+import { meterFromText, outputMeterFromText, type MeterText, type OutputMeterText } from '../../store/meterPlan';
+import { meterRowsOf, outputMeterRowsOf, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
 import { useWorkbench } from '../../store/StoreProvider';
 import { compact } from '../../store/fields';
-import { meterWords } from './meterWords';
+import { meterWords, outputMeterWords } from './meterWords';
 
 /**
  * The amplifier as built, read with a meter: for each gain stage and
- * follower with a cathode resistor, the plate and cathode to chassis at
- * idle typed in, and where that puts the tube against the model's typical
- * one. Readings are kept with the design (files, links, undo).
+ * follower with a cathode resistor, and each output tube, the electrodes to
+ * chassis at idle typed in, and where that puts the tube against the model's
+ * typical one. Readings are kept with the design (files, links, undo). Like
+ * the voltages to check, an output stage apart from the voltage stages is
+ * read on its own bench (`outputAlone`).
  */
-export function MeterReadings() {
-  const rows = useWorkbench(meterRowsOf);
+export function MeterReadings({ outputAlone = false }: { readonly outputAlone?: boolean }) {
+  const apart = useWorkbench((s) => !s.design.drivesOutput);
+  const triodes = useWorkbench(meterRowsOf);
+  const outputs = useWorkbench(outputMeterRowsOf);
   const id = useId();
-  if (rows.length === 0) return null;
+  const shownTriodes = outputAlone && apart ? [] : triodes;
+  const shownOutputs = apart && !outputAlone ? [] : outputs;
+  if (shownTriodes.length + shownOutputs.length === 0) return null;
   return (
     <section className="meter-readings" aria-labelledby={`${id}-h`}>
       <h3 className="subhead" id={`${id}-h`}>Your meter readings, stage by stage</h3>
       <p className="field-hint">
-        With the amplifier built and idling, read the plate and cathode to chassis and type them here: the cathode’s drop across Rk gives the current (Ohm’s law), and the model says where the tube sits against a typical one of its type.
+        With the amplifier built and idling, read each electrode to chassis and type it here: the drop across the cathode resistor (or a fixed-bias tube’s 1 Ω sense resistor) gives the current (Ohm’s law), and the model says where the tube sits against a typical one of its type.
       </p>
-      {rows.map((row) => (
-        <MeterRowBoxes key={`${row.stage}-${row.tubeId}`} row={row} />
-      ))}
+      {shownTriodes.map((row) => <TriodeMeter key={`${row.stage}-${row.tubeId}`} row={row} />)}
+      {shownOutputs.map((row) => <OutputMeter key={`${row.tube}-${row.tubeId}-${row.pair}-${row.bias}`} row={row} />)}
     </section>
   );
 }
 
-const textOf = (r: MeterRow['reading']): MeterText => ({ plate: r ? compact(r.plate) : '', cathode: r ? compact(r.cathode) : '' });
+/** One reading's box: a message beside it says what is wrong. */
+function MeterBox(props: { readonly id: string; readonly name: string; readonly label: string; readonly value: string; readonly placeholder: string; readonly error?: string; readonly onChange: (text: string) => void; readonly onSettle: (leaving: boolean) => void }) {
+  const { id, error } = props;
+  return (
+    <div className={error ? 'value-field has-error' : 'value-field'}>
+      <label htmlFor={id} className="field-label">
+        {props.label} <span className="unit">(V)</span>
+      </label>
+      <input
+        id={id}
+        name={props.name}
+        autoComplete="off"
+        spellCheck={false}
+        value={props.value}
+        placeholder={props.placeholder}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-err` : undefined}
+        onChange={(e) => props.onChange(e.target.value)}
+        onBlur={() => props.onSettle(true)}
+        onKeyDown={(e) => e.key === 'Enter' && props.onSettle(false)}
+      />
+      {error ? <p id={`${id}-err`} className="field-error" role="alert">{error}</p> : null}
+    </div>
+  );
+}
 
-function MeterRowBoxes({ row }: { readonly row: MeterRow }) {
-  const setReading = useWorkbench((s) => s.setReading);
-  const [text, setText] = useState<MeterText>(() => textOf(row.reading));
-  const [errors, setErrors] = useState<Partial<Record<keyof MeterText, string>>>({});
-  // A reading changed from outside the boxes (undo, a file opened): the boxes show it.
-  const [shown, setShown] = useState(row.reading);
-  if (shown !== row.reading) {
-    setShown(row.reading);
-    setText(textOf(row.reading));
+/**
+ * A row's boxes as typed, kept apart from the design until they make a
+ * reading; a reading changed from outside them (undo, a file opened) is
+ * shown afresh.
+ */
+function useMeterText<T, K extends string>(reading: T, textOf: (r: T) => Record<K, string>) {
+  const [text, setText] = useState<Record<K, string>>(() => textOf(reading));
+  const [errors, setErrors] = useState<Partial<Record<K, string>>>({});
+  const [shown, setShown] = useState(reading);
+  if (shown !== reading) {
+    setShown(reading);
+    setText(textOf(reading));
     setErrors({});
   }
+  return { text, setText, errors, setErrors };
+}
+
+/** Leaving a box waits while another of the row's is still empty (its turn may be next); Enter takes the boxes as they are. */
+const waitsForOthers = (texts: readonly string[]) => texts.some((t) => t.trim() === '') && texts.some((t) => t.trim() !== '');
+
+const triodeText = (r: MeterRow['reading']): MeterText => ({ plate: r ? compact(r.plate) : '', cathode: r ? compact(r.cathode) : '' });
+
+function TriodeMeter({ row }: { readonly row: MeterRow }) {
+  const setReading = useWorkbench((s) => s.setReading);
+  const { text, setText, errors, setErrors } = useMeterText(row.reading, triodeText);
   const id = useId();
-  /** Enter takes the boxes as they are; leaving a box waits while the other is still empty (its turn is next). */
   const settle = (leaving: boolean) => {
-    if (leaving && (text.plate.trim() === '') !== (text.cathode.trim() === '')) return setErrors({});
+    if (leaving && waitsForOthers([text.plate, text.cathode])) return setErrors({});
     const made = meterFromText(row.stage, row.tubeId, text);
     if (!made.ok) return setErrors(made.errors);
     setErrors({});
-    const same = made.reading && row.reading && made.reading.plate === row.reading.plate && made.reading.cathode === row.reading.cathode;
-    if (!same && !(made.reading === null && row.reading === null)) setReading(row.stage, made.reading);
+    if (!sameReading(made.reading, row.reading)) setReading(row.stage, made.reading);
   };
   const box = (key: keyof MeterText, label: string, expected: number) => (
-    <div className={errors[key] ? 'value-field has-error' : 'value-field'}>
-      <label htmlFor={`${id}-${key}`} className="field-label">
-        {label} <span className="unit">(V)</span>
-      </label>
-      <input
-        id={`${id}-${key}`}
-        name={`reading.${row.stage}.${key}`}
-        autoComplete="off"
-        spellCheck={false}
-        inputMode="decimal"
-        value={text[key]}
-        placeholder={`designed ${meterVolts(expected)}`}
-        aria-invalid={errors[key] ? true : undefined}
-        aria-describedby={errors[key] ? `${id}-${key}-err` : undefined}
-        onChange={(e) => setText({ ...text, [key]: e.target.value })}
-        onBlur={() => settle(true)}
-        onKeyDown={(e) => e.key === 'Enter' && settle(false)}
-      />
-      {errors[key] ? <p id={`${id}-${key}-err`} className="field-error" role="alert">{errors[key]}</p> : null}
-    </div>
+    <MeterBox id={`${id}-${key}`} name={`reading.${row.stage}.${key}`} label={label} value={text[key]} placeholder={`designed ${meterVolts(expected)}`} error={errors[key]} onChange={(t) => setText({ ...text, [key]: t })} onSettle={settle} />
   );
   const readout = row.readout;
   return (
@@ -89,4 +111,53 @@ function MeterRowBoxes({ row }: { readonly row: MeterRow }) {
       )}
     </div>
   );
+}
+
+const outputText = (r: OutputMeterRow['reading']): OutputMeterText => ({
+  plate: r ? compact(r.plate) : '',
+  screen: r?.screen != null ? compact(r.screen) : '',
+  grid: r && r.bias === 'fixed' ? String(r.grid) : '',
+  cathode: r ? compact(r.cathode) : '',
+});
+
+function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
+  const setReading = useWorkbench((s) => s.setOutputReading);
+  const { text, setText, errors, setErrors } = useMeterText(row.reading, outputText);
+  const id = useId();
+  const asked = (['plate', 'cathode', ...(row.boxes.screen ? ['screen'] : []), ...(row.boxes.grid ? ['grid'] : [])] as (keyof OutputMeterText)[]);
+  const settle = (leaving: boolean) => {
+    if (leaving && waitsForOthers(asked.map((k) => text[k]))) return setErrors({});
+    const made = outputMeterFromText({ tube: row.tube, tubeId: row.tubeId, pair: row.pair, bias: row.bias }, row.boxes, text);
+    if (!made.ok) return setErrors(made.errors);
+    setErrors({});
+    const was = row.reading;
+    const same = made.reading && was ? made.reading.plate === was.plate && made.reading.cathode === was.cathode && made.reading.screen === was.screen && made.reading.grid === was.grid : made.reading === was;
+    if (!same) setReading(row.tube, made.reading);
+  };
+  const box = (key: keyof OutputMeterText, label: string, placeholder: string) => (
+    <MeterBox id={`${id}-${key}`} name={`outputReading.${row.tube}.${key}`} label={label} value={text[key]} placeholder={placeholder} error={errors[key]} onChange={(t) => setText({ ...text, [key]: t })} onSettle={settle} />
+  );
+  const e = row.expected;
+  const readout = row.readout;
+  const over = readout?.ok && (readout.paFraction > 1 || (readout.pg2Fraction ?? 0) > 1);
+  return (
+    <div className="meter-row" role="group" aria-label={`Meter readings, ${row.name}`}>
+      <h4 className="meter-stage">{row.name}</h4>
+      <div className="value-grid">
+        {box('plate', 'Plate to chassis', `designed ${meterVolts(e.plate)}`)}
+        {row.boxes.screen ? box('screen', 'Screen to chassis', `designed ${meterVolts(e.screen ?? 0)}`) : null}
+        {row.boxes.grid ? box('grid', 'Grid to chassis', `designed ${meterVolts(e.grid).replace('-', '−')}`) : null}
+        {row.bias === 'fixed' ? box('cathode', 'Across its 1 Ω sense resistor', `designed ${smallVolts(e.cathode)}`) : box('cathode', row.together ? 'Cathodes to chassis (shared Rk)' : 'Cathode to chassis', `designed ${meterVolts(e.cathode)}`)}
+      </div>
+      {readout === null ? null : readout.ok ? (
+        <p className={`meter-readout${over ? ' finding danger' : ''}`} role="status">{outputMeterWords(readout, row)}</p>
+      ) : (
+        <p className="finding warning" role="alert">{readout.message}</p>
+      )}
+    </div>
+  );
+}
+
+function sameReading(a: MeterRow['reading'], b: MeterRow['reading']): boolean {
+  return a === b || (a !== null && b !== null && a.plate === b.plate && a.cathode === b.cathode);
 }

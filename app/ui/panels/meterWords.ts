@@ -1,5 +1,6 @@
-import type { MeterReadout } from '../../../src/index';
-import { meterVolts, milliamps, percentOf, plain, watts } from '../../format';
+import type { MeterReadout, OutputMeterReadout } from '../../../src/index';
+import { meterVolts, milliamps, percentOf, plain, smallVolts, watts } from '../../format';
+import type { OutputMeterRow } from '../../store/meterRows';
 
 /** What a verdict says of the tube, and what else could give it (common practice in fault-finding). */
 const VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
@@ -15,5 +16,27 @@ export function meterWords(r: MeterReadout, tubeId: string, ratedWatts: number):
     `Ia ${milliamps(r.ia)} (the cathode’s drop across Rk), at Vpk ${meterVolts(r.vpk)} and Vgk ${meterVolts(r.vgk).replace('-', '−')}: ` +
     `${percentOf(r.ratio)} of a typical ${tubeId}’s current there, ${VERDICT_WORDS[r.verdict]}${shift}. ` +
     `Plate dissipation ${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(ratedWatts)} rating.`
+  );
+}
+
+/** A fixed-bias tube's verdict: no cathode resistor to be off its value, and the grid was read (common practice in fault-finding). */
+const FIXED_VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
+  'within-spread': VERDICT_WORDS['within-spread'],
+  low: 'under the ±20 % spread: a weak or tired tube',
+  high: 'over the ±20 % spread: a strong tube, or one drawing grid current (a gassy tube, whose current creeps up as it warms)',
+};
+
+/** An output tube's reading in words: its cathode current, where it sits, against the typical tube, its plate's and screen's dissipation, and for a fixed bias the sense reading the design asks. */
+export function outputMeterWords(r: OutputMeterReadout, row: Pick<OutputMeterRow, 'tubeId' | 'bias' | 'together' | 'ratedWatts' | 'ratedScreenWatts' | 'expected'>): string {
+  const across = row.bias === 'fixed' ? 'the drop across its 1 Ω sense resistor' : row.together ? 'half the drop across the shared Rk' : 'the cathode’s drop across Rk';
+  const screen = r.vg2k === null ? '' : `, Vg2k ${meterVolts(r.vg2k)}`;
+  const shift = r.gridShift === null || Math.abs(r.gridShift) < 0.05 ? '' : `; it passes what a typical one would ${plain(Math.abs(r.gridShift), 2)} V ${r.gridShift > 0 ? 'further below' : 'closer to'} the cathode`;
+  const screenWatts = r.pg2 === null ? '' : `, the screen ${watts(r.pg2)}${r.pg2Fraction !== null && row.ratedScreenWatts !== null ? ` (${percentOf(r.pg2Fraction)} of ${watts(row.ratedScreenWatts)})` : ''}`;
+  const split = r.ig2 === null ? '' : ' (the cathode current split between plate and screen as a typical tube splits it: the cathode cannot tell them apart)';
+  const set = row.bias === 'fixed' ? ` The designed idle reads ${smallVolts(row.expected.cathode)} across the sense resistor: set the trimmer to it.` : '';
+  return (
+    `Ik ${milliamps(r.ik)} (${across}), at Vpk ${meterVolts(r.vpk)}${screen} and Vgk ${meterVolts(r.vgk).replace('-', '−')}: ` +
+    `${percentOf(r.ratio)} of a typical ${row.tubeId}’s cathode current there, ${(row.bias === 'fixed' ? FIXED_VERDICT_WORDS : VERDICT_WORDS)[r.verdict]}${shift}. ` +
+    `Plate dissipation ${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(row.ratedWatts)} rating${screenWatts}${split}.${set}`
   );
 }
