@@ -1,7 +1,7 @@
 import { formatValue, TARGET_LABELS, type TargetName } from '../../src/index';
 import { marginWords } from '../ui/targets/marginWords';
 import { targetWithValue } from '../ui/targets/targetValue';
-import { dB, decibels, farads, mAPerV, meterVolts, milliamps, ohms, plain, rmsLevel, volts, watts, voltsRms } from '../format';
+import { dB, decibels, farads, mAPerV, meterVolts, milliamps, ohms, plain, rmsLevel, smallVolts, volts, watts, voltsRms } from '../format';
 import { COMPARE_ROWS } from '../ui/panels/ComparePanel';
 import { AMPLIFIER_COMPARE_ROWS } from '../ui/panels/AmplifierCompare';
 import type { AmplifierView } from '../store/amplifierChain';
@@ -16,6 +16,8 @@ import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
 import { elevationAdvice } from '../ui/panels/elevationAdvice';
+import { meterWords, outputMeterWords } from '../ui/panels/meterWords';
+import { shownMeterRows } from '../store/meterRows';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, leakWords, otherStageSections, partLines } from './amplifierLines';
 import { supplySection } from './supplyLines';
@@ -36,7 +38,23 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   const tubes = { heading: 'Tubes to order', lines: [tubesToOrderLine(s)] };
   const idle = idleVoltageSection(s);
   const bias = biasSection(s);
-  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(bias ? [bias] : []), ...(idle ? [idle] : [])];
+  const readings = meterSection(s);
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(bias ? [bias] : []), ...(idle ? [idle] : []), ...(readings ? [readings] : [])];
+}
+
+/** The builder's meter readings, each with what the model makes of it: the bench notes of the amplifier as built. */
+function meterSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
+  const { triodes, outputs } = shownMeterRows(s, s.design.stageKind === 'output');
+  const lines = [
+    ...triodes.flatMap((r) => (r.reading && r.readout ? [`${r.name}, read plate ${meterVolts(r.reading.plate)}, cathode ${meterVolts(r.reading.cathode)}: ${r.readout.ok ? meterWords(r.readout, r.tubeId, r.ratedWatts) : r.readout.message}`] : [])),
+    ...outputs.flatMap((r) => {
+      if (!r.reading || !r.readout) return [];
+      const g = r.reading;
+      const read = [`plate ${meterVolts(g.plate)}`, ...(g.screen !== null ? [`screen ${meterVolts(g.screen)}`] : []), ...(r.bias === 'fixed' ? [`grid ${meterVolts(g.grid).replace('-', '−')}`, `sense resistor ${smallVolts(g.cathode)}`] : [`cathode ${meterVolts(g.cathode)}`])].join(', ');
+      return [`${r.name}, read ${read}: ${r.readout.ok ? outputMeterWords(r.readout, r) : r.readout.message}`];
+    }),
+  ];
+  return lines.length > 0 ? { heading: 'Meter readings, as built', lines } : null;
 }
 
 /** Each stage's electrode voltages at idle, chassis to each: the figures to check at first switch-on. */

@@ -20,6 +20,10 @@ export interface MeterRow {
   readonly readout: Result<MeterReadout> | null;
 }
 
+/** None, as one value: a selector answering a fresh [] each call would redraw its panel on every store change. */
+const NO_ROWS: readonly MeterRow[] = [];
+const NO_OUTPUT_ROWS: readonly OutputMeterRow[] = [];
+
 const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings']; rows: readonly MeterRow[] }>();
 
 /**
@@ -30,7 +34,7 @@ const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings'
  */
 export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
   const view = s.amplifier;
-  if (!view?.result.ok) return [];
+  if (!view?.result.ok) return NO_ROWS;
   const readings = s.design.readings;
   const cached = memo.get(view);
   if (cached && cached.readings === readings) return cached.rows;
@@ -89,9 +93,9 @@ export function outputMeterRowsOf(s: WorkbenchState): readonly OutputMeterRow[] 
   const idle = idleVoltagesOf(s);
   const o = s.design.output;
   const tube = findOutputTube(o.tubeId);
-  if (!idle || !tube) return [];
+  if (!idle || !tube) return NO_OUTPUT_ROWS;
   const row = idle.apartOutput ?? idle.rows.find((r) => r.name.startsWith('Output'));
-  if (!row) return [];
+  if (!row) return NO_OUTPUT_ROWS;
   const readings = s.design.outputReadings;
   const parts = o.bias === 'fixed' ? outputPartsOf(s) : null;
   const sense = parts?.biasAdjustment ?? null;
@@ -131,4 +135,14 @@ export function outputMeterRowsOf(s: WorkbenchState): readonly OutputMeterRow[] 
   });
   outputMemo.set(row, { readings, sense, rows });
   return rows;
+}
+
+/**
+ * The rows a bench shows, as the voltages to check are listed: the output
+ * bench with the stages apart reads its own tube alone; every other, the
+ * amplifier's stages, and its output tubes when they are driven.
+ */
+export function shownMeterRows(s: WorkbenchState, outputBench: boolean): { readonly triodes: readonly MeterRow[]; readonly outputs: readonly OutputMeterRow[] } {
+  const apart = !s.design.drivesOutput;
+  return { triodes: outputBench && apart ? NO_ROWS : meterRowsOf(s), outputs: apart && !outputBench ? NO_OUTPUT_ROWS : outputMeterRowsOf(s) };
 }

@@ -3,6 +3,7 @@ import { act } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { COALESCE_MS } from '../../app/store/historySlice';
 import { App } from '../../app/App';
+import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 
@@ -35,6 +36,9 @@ describe('your meter readings, stage by stage', () => {
     expect(readout.textContent).toMatch(/^Ia 3\.5 mA \(the cathode’s drop across Rk\), at Vpk 156 V and Vgk −4\.2 V: [\d.]+ % of a typical 12AU7’s current there, under the ±20 % spread/);
     expect(readout.textContent).toMatch(/Plate dissipation 0\.545 W, 19\.8 % of its 2\.75 W rating\.$/);
     expect(store.getState().design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]);
+    // On the build card, as the bench notes of the amplifier as built; none before a reading is taken.
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines).toEqual([expect.stringMatching(/^Stage 2 · 12AU7, read plate 160 V, cathode 4\.2 V: Ia 3\.5 mA \(the cathode’s drop across Rk\)/)]);
+    expect(cardSections(createWorkbenchStore().getState()).some((c) => c.heading === 'Meter readings, as built')).toBe(false);
     // Kept in the file.
     const back = readDesignFile(writeDesignFile({ title: 'as built', design: store.getState().design }));
     expect(back.ok && back.doc.design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]);
@@ -132,6 +136,7 @@ describe('your meter readings, stage by stage', () => {
     // 65 mV across 1 Ω is 65 mA (Ohm's law); the sense reading the design asks is named.
     expect(read.textContent).toMatch(/^Ik 65 mA \(the drop across its 1 Ω sense resistor\), at Vpk 320 V, Vg2k 330 V and Vgk −30\.1 V: /);
     expect(read.textContent).toMatch(/The designed idle reads [\d.]+ mV across the sense resistor: set the trimmer to it\.$/);
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines).toEqual([expect.stringMatching(/^Output · EL34, tube 2, read plate 320 V, screen 330 V, grid −30 V, sense resistor 65 mV: Ik 65 mA /)]);
     const back = readDesignFile(writeDesignFile({ title: 'biased', design: store.getState().design }));
     expect(back.ok && back.doc.design.outputReadings?.map((r) => [r.tube, r.pair, r.bias])).toEqual([[1, 'push-pull', 'cathode'], [2, 'push-pull', 'fixed']]);
   });

@@ -1,7 +1,7 @@
 import { useId, useState } from 'react';
 import { meterVolts, smallVolts } from '../../format';
 import { meterFromText, outputMeterFromText, type MeterText, type OutputMeterText } from '../../store/meterPlan';
-import { meterRowsOf, outputMeterRowsOf, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
+import { shownMeterRows, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
 import { useWorkbench } from '../../store/StoreProvider';
 import { compact } from '../../store/fields';
 import { meterWords, outputMeterWords } from './meterWords';
@@ -15,12 +15,9 @@ import { meterWords, outputMeterWords } from './meterWords';
  * read on its own bench (`outputAlone`).
  */
 export function MeterReadings({ outputAlone = false }: { readonly outputAlone?: boolean }) {
-  const apart = useWorkbench((s) => !s.design.drivesOutput);
-  const triodes = useWorkbench(meterRowsOf);
-  const outputs = useWorkbench(outputMeterRowsOf);
+  const shownTriodes = useWorkbench((s) => shownMeterRows(s, outputAlone).triodes);
+  const shownOutputs = useWorkbench((s) => shownMeterRows(s, outputAlone).outputs);
   const id = useId();
-  const shownTriodes = outputAlone && apart ? [] : triodes;
-  const shownOutputs = apart && !outputAlone ? [] : outputs;
   if (shownTriodes.length + shownOutputs.length === 0) return null;
   return (
     <section className="meter-readings" aria-labelledby={`${id}-h`}>
