@@ -119,6 +119,8 @@ describe('your meter readings, stage by stage', () => {
     act(() => void fireEvent.keyDown(together.getByLabelText(/^Cathodes to chassis/), { key: 'Enter' }));
     const each = (20 / rk / 2) * 1e3;
     await waitFor(() => expect(screen.getByRole('group', { name: /pair, each tube on average/ }).querySelector('[role=status]')?.textContent).toContain(`Ik ${Number(each.toPrecision(3))} mA (half the drop across the shared Rk)`));
+    // The pair's average: its words are the pair's, each tube's dissipation.
+    expect(screen.getByRole('group', { name: /pair, each tube on average/ }).querySelector('[role=status]')?.textContent).toMatch(/ of a typical EL34’s cathode current there, (within the ±20 % tubes of the type|under the ±20 % spread: weak or tired tubes|over the ±20 % spread: strong tubes).* Plate dissipation each [\d.]+ W/);
     // Fixed bias: a row per tube, with the grid and the sense resistor's drop.
     act(() => void store.getState().setOutputBias('fixed'));
     const tube2 = within(await screen.findByRole('group', { name: 'Meter readings, Output · EL34, tube 2' }));

@@ -26,17 +26,26 @@ const FIXED_VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
   high: 'over the ±20 % spread: a strong tube, or one drawing grid current (a gassy tube, whose current creeps up as it warms)',
 };
 
+/** A cathode-biased pair read across its shared Rk: the tubes' average, so the causes are the pair's. */
+const PAIR_VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
+  'within-spread': 'within the ±20 % tubes of the type may differ from typical (common practice)',
+  low: 'under the ±20 % spread: weak or tired tubes, or Rk above its value (measure it with the power off)',
+  high: 'over the ±20 % spread: strong tubes, a leaky coupling capacitor lifting the grids, or Rk below its value',
+};
+
 /** An output tube's reading in words: its cathode current, where it sits, against the typical tube, its plate's and screen's dissipation, and for a fixed bias the sense reading the design asks. */
 export function outputMeterWords(r: OutputMeterReadout, row: Pick<OutputMeterRow, 'tubeId' | 'bias' | 'together' | 'ratedWatts' | 'ratedScreenWatts' | 'expected'>): string {
   const across = row.bias === 'fixed' ? 'the drop across its 1 Ω sense resistor' : row.together ? 'half the drop across the shared Rk' : 'the cathode’s drop across Rk';
   const screen = r.vg2k === null ? '' : `, Vg2k ${meterVolts(r.vg2k)}`;
-  const shift = r.gridShift === null || Math.abs(r.gridShift) < 0.05 ? '' : `; it passes what a typical one would ${plain(Math.abs(r.gridShift), 2)} V ${r.gridShift > 0 ? 'further below' : 'closer to'} the cathode`;
+  const passes = row.together ? 'on average they pass what typical ones would' : 'it passes what a typical one would';
+  const shift = r.gridShift === null || Math.abs(r.gridShift) < 0.05 ? '' : `; ${passes} ${plain(Math.abs(r.gridShift), 2)} V ${r.gridShift > 0 ? 'further below' : 'closer to'} the cathode`;
+  const verdicts = row.bias === 'fixed' ? FIXED_VERDICT_WORDS : row.together ? PAIR_VERDICT_WORDS : VERDICT_WORDS;
   const screenWatts = r.pg2 === null ? '' : `, the screen ${watts(r.pg2)}${r.pg2Fraction !== null && row.ratedScreenWatts !== null ? ` (${percentOf(r.pg2Fraction)} of ${watts(row.ratedScreenWatts)})` : ''}`;
   const split = r.ig2 === null ? '' : ' (the cathode current split between plate and screen as a typical tube splits it: the cathode cannot tell them apart)';
   const set = row.bias === 'fixed' ? ` The designed idle reads ${smallVolts(row.expected.cathode)} across the sense resistor: set the trimmer to it.` : '';
   return (
     `Ik ${milliamps(r.ik)} (${across}), at Vpk ${meterVolts(r.vpk)}${screen} and Vgk ${meterVolts(r.vgk).replace('-', '−')}: ` +
-    `${percentOf(r.ratio)} of a typical ${row.tubeId}’s cathode current there, ${(row.bias === 'fixed' ? FIXED_VERDICT_WORDS : VERDICT_WORDS)[r.verdict]}${shift}. ` +
-    `Plate dissipation ${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(row.ratedWatts)} rating${screenWatts}${split}.${set}`
+    `${percentOf(r.ratio)} of a typical ${row.tubeId}’s cathode current there, ${verdicts[r.verdict]}${shift}. ` +
+    `Plate dissipation ${row.together ? 'each ' : ''}${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(row.ratedWatts)} rating${screenWatts}${split}.${set}`
   );
 }
