@@ -1,7 +1,7 @@
 import { useId } from 'react';
 import { meterVolts, milliamps } from '../../format';
 import { IDLE_VOLTAGES_WORDS, idleRowsFor, idleVoltagesOf } from '../../store/idleVoltages';
-import { useWorkbench } from '../../store/StoreProvider';
+import { useDragPaced } from './useDragPaced';
 
 /**
  * The voltages to check at first switch-on: each stage's B+, plate,
@@ -9,7 +9,8 @@ import { useWorkbench } from '../../store/StoreProvider';
  * the solved amplifier (the model's figures; this only lays them out).
  */
 export function IdleVoltages({ outputAlone = false }: { readonly outputAlone?: boolean }) {
-  const idle = useWorkbench(idleVoltagesOf);
+  // A table of many figures: during a drag it follows at the paced rate, not every frame.
+  const idle = useDragPaced(idleVoltagesOf);
   const id = useId();
   if (!idle) return null;
   const rows = idleRowsFor(idle, outputAlone);

@@ -3,6 +3,7 @@ import { meterVolts, smallVolts } from '../../format';
 import { meterFromText, outputMeterFromText, type MeterText, type OutputMeterText } from '../../store/meterPlan';
 import { shownMeterRows, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
 import { useWorkbench } from '../../store/StoreProvider';
+import { useDragPaced } from './useDragPaced';
 import { compact } from '../../store/fields';
 import { meterWords, outputMeterWords } from './meterWords';
 
@@ -15,8 +16,9 @@ import { meterWords, outputMeterWords } from './meterWords';
  * read on its own bench (`outputAlone`).
  */
 export function MeterReadings({ outputAlone = false }: { readonly outputAlone?: boolean }) {
-  const shownTriodes = useWorkbench((s) => shownMeterRows(s, outputAlone).triodes);
-  const shownOutputs = useWorkbench((s) => shownMeterRows(s, outputAlone).outputs);
+  // A table of many figures: during a drag it follows at the paced rate, not every frame (the designed values it shows move with the point).
+  const shownTriodes = useDragPaced((s) => shownMeterRows(s, outputAlone).triodes);
+  const shownOutputs = useDragPaced((s) => shownMeterRows(s, outputAlone).outputs);
   const id = useId();
   if (shownTriodes.length + shownOutputs.length === 0) return null;
   return (
