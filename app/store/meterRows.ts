@@ -5,7 +5,7 @@ import { outputPartsOf } from './outputParts';
 import type { OutputPair } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
-/** A stage the meter can be read on (a triode with a cathode resistor to chassis), with its reading and what the model makes of it. */
+/** A stage the meter can be read on (a triode with one cathode resistor to chassis: a gain stage, a follower, a split-load splitter), with its reading and what the model makes of it. */
 export interface MeterRow {
   /** The stage's place in the amplifier, 1 the input stage. */
   readonly stage: number;
@@ -27,8 +27,8 @@ const NO_OUTPUT_ROWS: readonly OutputMeterRow[] = [];
 const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings']; rows: readonly MeterRow[] }>();
 
 /**
- * The amplifier's gain stages and cathode followers with a cathode
- * resistor, in chain order, each with the builder's reading (when it was
+ * The amplifier's gain stages, cathode followers and split-load splitter
+ * with a cathode resistor, in chain order, each with the builder's reading (when it was
  * taken on the tube the stage now holds) read by the model. Empty when the
  * amplifier does not solve.
  */
@@ -41,7 +41,8 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
   const result = view.result;
   const rows: MeterRow[] = [];
   view.input.stages.forEach((st, i) => {
-    if (st.kind !== 'common-cathode' && st.kind !== 'follower') return;
+    // A split-load splitter reads as a follower does: one cathode resistor to chassis, its grid held where designed.
+    if (st.kind !== 'common-cathode' && st.kind !== 'follower' && st.kind !== 'split-load') return;
     const tube = st.tube;
     if (!(st.rk > 0) || tube.kind !== 'tube') return;
     const solved = result.stages[i]!;

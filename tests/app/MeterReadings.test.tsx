@@ -142,5 +142,19 @@ describe('your meter readings, stage by stage', () => {
     const back = readDesignFile(writeDesignFile({ title: 'biased', design: store.getState().design }));
     expect(back.ok && back.doc.design.outputReadings?.map((r) => [r.tube, r.pair, r.bias])).toEqual([[1, 'push-pull', 'cathode'], [2, 'push-pull', 'fixed']]);
   });
+
+  it('reads a split-load splitter as a follower: its cathode load to chassis, its grid where its divider holds it', async () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => void store.getState().setOutputPair('push-pull'));
+    // The bench's split-load: a 12AU7 with 22 kΩ in its cathode, its grid held at 90 V.
+    const splitter = within(await screen.findByRole('group', { name: 'Meter readings, Splitter · 12AU7' }));
+    typeInto(splitter.getByLabelText(/^Plate to chassis/), '250');
+    typeInto(splitter.getByLabelText(/^Cathode to chassis/), '95');
+    act(() => void fireEvent.keyDown(splitter.getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    // Ohm's law: 95 V across 22 kΩ is 4.32 mA; the tube at Vpk 155 V and Vgk 90 − 95 = −5 V.
+    await waitFor(() => expect(within(screen.getByRole('group', { name: 'Meter readings, Splitter · 12AU7' })).getByRole('status').textContent).toMatch(/^Ia 4\.32 mA \(the cathode’s drop across Rk\), at Vpk 155 V and Vgk −5 V: /));
+    expect(store.getState().design.readings).toEqual([{ stage: 3, tubeId: '12AU7', plate: 250, cathode: 95 }]);
+  });
 });
 
