@@ -28,9 +28,9 @@ const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings'
 
 /**
  * The amplifier's gain stages, cathode followers and split-load splitter
- * with a cathode resistor, in chain order, each with the builder's reading (when it was
- * taken on the tube the stage now holds) read by the model. Empty when the
- * amplifier does not solve.
+ * with a cathode resistor, in chain order, each with the builder's reading
+ * (when it was taken on the tube the stage now holds) read by the model.
+ * Empty when the amplifier does not solve.
  */
 export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
   const view = s.amplifier;
