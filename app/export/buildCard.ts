@@ -50,7 +50,7 @@ function meterSection(s: WorkbenchState): { heading: string; lines: string[] } |
     ...outputs.flatMap((r) => {
       if (!r.reading || !r.readout) return [];
       const g = r.reading;
-      const read = [`plate ${meterVolts(g.plate)}`, ...(g.screen !== null ? [`screen ${meterVolts(g.screen)}`] : []), ...(r.bias === 'fixed' ? [`grid ${meterVolts(g.grid).replace('-', '−')}`, `sense resistor ${smallVolts(g.cathode)}`] : [`cathode ${meterVolts(g.cathode)}`])].join(', ');
+      const read = [`plate ${meterVolts(g.plate)}`, ...(g.screen !== null ? [`screen ${meterVolts(g.screen)}`] : []), ...(r.bias === 'fixed' ? [`grid ${meterVolts(g.grid)}`, `sense resistor ${smallVolts(g.cathode)}`] : [`cathode ${meterVolts(g.cathode)}`])].join(', ');
       return [`${r.name}, read ${read}: ${r.readout.ok ? outputMeterWords(r.readout, r) : r.readout.message}`];
     }),
   ];

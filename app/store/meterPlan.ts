@@ -16,11 +16,6 @@ export interface MeterPlan {
   readonly cathode: number;
 }
 
-/** The design's reading for a stage, when it was taken on the tube the stage now holds. */
-export function readingFor(d: BenchDesign, stage: number, tubeId: string): MeterPlan | null {
-  return d.readings?.find((r) => r.stage === stage && r.tubeId === tubeId) ?? null;
-}
-
 /** The design with a stage's reading put in its place (null: taken out); absent when none is left. */
 export function withReading(d: BenchDesign, stage: number, reading: MeterPlan | null): BenchDesign {
   const others = (d.readings ?? []).filter((r) => r.stage !== stage);
@@ -35,26 +30,39 @@ export interface MeterText {
   readonly cathode: string;
 }
 
+/** A row's boxes as read: every asked box's value, or the boxes' messages; null when every asked box is empty. */
+type ReadBoxes<K extends string> = { ok: true; values: Record<K, number> | null } | { ok: false; errors: Partial<Record<K, string>> };
+
 /**
- * What a stage's two boxes make: a reading (both read), none (both empty:
- * the reading is taken out), or the boxes' messages. A box left empty
- * beside a filled one says so: a reading needs both.
+ * Reads a row's asked boxes: all empty is no reading; a box left empty
+ * beside a filled one says so (`missing` names it), as does a refused one.
  */
-export function meterFromText(stage: number, tubeId: string, text: MeterText): { ok: true; reading: MeterPlan | null } | { ok: false; errors: Partial<Record<keyof MeterText, string>> } {
-  if (text.plate.trim() === '' && text.cathode.trim() === '') return { ok: true, reading: null };
-  const errors: Partial<Record<keyof MeterText, string>> = {};
-  const values: Partial<Record<keyof MeterText, number>> = {};
-  for (const key of ['plate', 'cathode'] as const) {
+function readBoxes<K extends string>(asked: readonly K[], text: Readonly<Record<K, string>>, missing: (key: K) => string): ReadBoxes<K> {
+  if (asked.every((k) => text[k].trim() === '')) return { ok: true, values: null };
+  const errors: Partial<Record<K, string>> = {};
+  const values: Partial<Record<K, number>> = {};
+  for (const key of asked) {
     if (text[key].trim() === '') {
-      errors[key] = `Give the ${key}’s reading too: the stage is read from both.`;
+      errors[key] = missing(key);
       continue;
     }
-    const r = readMeterText(text[key]);
+    const r = key === 'grid' ? readGridMeterText(text[key]) : readMeterText(text[key]);
     if (r.ok && r.value !== null) values[key] = r.value;
     else errors[key] = r.ok ? 'A reading must be a number of volts' : r.message;
   }
-  if (values.plate === undefined || values.cathode === undefined) return { ok: false, errors };
-  return { ok: true, reading: { stage, tubeId, plate: values.plate, cathode: values.cathode } };
+  return Object.keys(errors).length > 0 ? { ok: false, errors } : { ok: true, values: values as Record<K, number> };
+}
+
+/** Two readings of one row the same, value for value (so settling an unchanged box is no undo step). */
+export function sameReading<T extends object>(a: T | null, b: T | null): boolean {
+  return a === b || (a !== null && b !== null && (Object.keys(a) as (keyof T)[]).every((k) => a[k] === b[k]));
+}
+
+/** What a stage's two boxes make: a reading (both read), none (both empty: the reading is taken out), or the boxes' messages. */
+export function meterFromText(stage: number, tubeId: string, text: MeterText): { ok: true; reading: MeterPlan | null } | { ok: false; errors: Partial<Record<keyof MeterText, string>> } {
+  const read = readBoxes(['plate', 'cathode'] as const, text, (key) => `Give the ${key}’s reading too: the stage is read from both.`);
+  if (!read.ok) return read;
+  return { ok: true, reading: read.values && { stage, tubeId, plate: read.values.plate, cathode: read.values.cathode } };
 }
 
 /**
@@ -100,25 +108,19 @@ export interface OutputMeterBoxes {
   readonly grid: boolean;
 }
 
+/** The boxes an output tube is read from: plate and cathode always, the screen and grid where the stage asks for them. */
+export function askedBoxes(boxes: OutputMeterBoxes): (keyof OutputMeterText)[] {
+  return ['plate', 'cathode', ...(boxes.screen ? ['screen' as const] : []), ...(boxes.grid ? ['grid' as const] : [])];
+}
+
 /** What an output tube's boxes make: a reading (every asked box read), none (all empty), or the boxes' messages. */
 export function outputMeterFromText(
   at: Pick<OutputMeterPlan, 'tube' | 'tubeId' | 'pair' | 'bias'>,
   boxes: OutputMeterBoxes,
   text: OutputMeterText,
 ): { ok: true; reading: OutputMeterPlan | null } | { ok: false; errors: Partial<Record<keyof OutputMeterText, string>> } {
-  const asked = (['plate', 'cathode', ...(boxes.screen ? ['screen'] : []), ...(boxes.grid ? ['grid'] : [])] as (keyof OutputMeterText)[]);
-  if (asked.every((k) => text[k].trim() === '')) return { ok: true, reading: null };
-  const errors: Partial<Record<keyof OutputMeterText, string>> = {};
-  const values: Partial<Record<keyof OutputMeterText, number>> = {};
-  for (const key of asked) {
-    if (text[key].trim() === '') {
-      errors[key] = `Give the ${key === 'cathode' && at.bias === 'fixed' ? 'sense resistor' : key}’s reading too: the tube is read from every box.`;
-      continue;
-    }
-    const r = key === 'grid' ? readGridMeterText(text[key]) : readMeterText(text[key]);
-    if (r.ok && r.value !== null) values[key] = r.value;
-    else errors[key] = r.ok ? 'A reading must be a number of volts' : r.message;
-  }
-  if (Object.keys(errors).length > 0 || values.plate === undefined || values.cathode === undefined) return { ok: false, errors };
-  return { ok: true, reading: { ...at, plate: values.plate, cathode: values.cathode, screen: boxes.screen ? values.screen! : null, grid: boxes.grid ? values.grid! : 0 } };
+  const read = readBoxes(askedBoxes(boxes), text, (key) => `Give the ${key === 'cathode' && at.bias === 'fixed' ? 'sense resistor' : key}’s reading too: the tube is read from every box.`);
+  if (!read.ok) return read;
+  const v = read.values;
+  return { ok: true, reading: v && { ...at, plate: v.plate, cathode: v.cathode, screen: boxes.screen ? v.screen : null, grid: boxes.grid ? v.grid : 0 } };
 }

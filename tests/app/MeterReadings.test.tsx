@@ -36,6 +36,10 @@ describe('your meter readings, stage by stage', () => {
     expect(readout.textContent).toMatch(/^Ia 3\.5 mA \(the cathode’s drop across Rk\), at Vpk 156 V and Vgk −4\.2 V: [\d.]+ % of a typical 12AU7’s current there, under the ±20 % spread/);
     expect(readout.textContent).toMatch(/Plate dissipation 0\.545 W, 19\.8 % of its 2\.75 W rating\.$/);
     expect(store.getState().design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]);
+    // Settling the same values again changes nothing: no new design, so no undo step.
+    const settled = store.getState().design;
+    act(() => void fireEvent.keyDown(within(screen.getByRole('group', { name: 'Meter readings, Stage 2 · 12AU7' })).getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    expect(store.getState().design).toBe(settled);
     // On the build card, as the bench notes of the amplifier as built; none before a reading is taken.
     expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines).toEqual([expect.stringMatching(/^Stage 2 · 12AU7, read plate 160 V, cathode 4\.2 V: Ia 3\.5 mA \(the cathode’s drop across Rk\)/)]);
     expect(cardSections(createWorkbenchStore().getState()).some((c) => c.heading === 'Meter readings, as built')).toBe(false);

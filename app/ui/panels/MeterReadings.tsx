@@ -1,6 +1,6 @@
 import { useId, useState } from 'react';
 import { meterVolts, smallVolts } from '../../format';
-import { meterFromText, outputMeterFromText, type MeterText, type OutputMeterText } from '../../store/meterPlan';
+import { askedBoxes, meterFromText, outputMeterFromText, sameReading, type MeterText, type OutputMeterText } from '../../store/meterPlan';
 import { shownMeterRows, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
 import { useWorkbench } from '../../store/StoreProvider';
 import { useDragPaced } from './useDragPaced';
@@ -8,8 +8,8 @@ import { compact } from '../../store/fields';
 import { meterWords, outputMeterWords } from './meterWords';
 
 /**
- * The amplifier as built, read with a meter: for each gain stage and
- * follower with a cathode resistor, and each output tube, the electrodes to
+ * The amplifier as built, read with a meter: for each gain stage,
+ * follower and split-load splitter with a cathode resistor, and each output tube, the electrodes to
  * chassis at idle typed in, and where that puts the tube against the model's
  * typical one. Readings are kept with the design (files, links, undo). Like
  * the voltages to check, an output stage apart from the voltage stages is
@@ -115,7 +115,7 @@ function TriodeMeter({ row }: { readonly row: MeterRow }) {
 const outputText = (r: OutputMeterRow['reading']): OutputMeterText => ({
   plate: r ? compact(r.plate) : '',
   screen: r?.screen != null ? compact(r.screen) : '',
-  grid: r && r.bias === 'fixed' ? String(r.grid) : '',
+  grid: r && r.bias === 'fixed' ? compact(r.grid) : '',
   cathode: r ? compact(r.cathode) : '',
 });
 
@@ -123,15 +123,13 @@ function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
   const setReading = useWorkbench((s) => s.setOutputReading);
   const { text, setText, errors, setErrors } = useMeterText(row.reading, outputText);
   const id = useId();
-  const asked = (['plate', 'cathode', ...(row.boxes.screen ? ['screen'] : []), ...(row.boxes.grid ? ['grid'] : [])] as (keyof OutputMeterText)[]);
+  const asked = askedBoxes(row.boxes);
   const settle = (leaving: boolean) => {
     if (leaving && waitsForOthers(asked.map((k) => text[k]))) return setErrors({});
     const made = outputMeterFromText({ tube: row.tube, tubeId: row.tubeId, pair: row.pair, bias: row.bias }, row.boxes, text);
     if (!made.ok) return setErrors(made.errors);
     setErrors({});
-    const was = row.reading;
-    const same = made.reading && was ? made.reading.plate === was.plate && made.reading.cathode === was.cathode && made.reading.screen === was.screen && made.reading.grid === was.grid : made.reading === was;
-    if (!same) setReading(row.tube, made.reading);
+    if (!sameReading(made.reading, row.reading)) setReading(row.tube, made.reading);
   };
   const box = (key: keyof OutputMeterText, label: string, placeholder: string) => (
     <MeterBox id={`${id}-${key}`} name={`outputReading.${row.tube}.${key}`} label={label} value={text[key]} placeholder={placeholder} error={errors[key]} onChange={(t) => setText({ ...text, [key]: t })} onSettle={settle} />
@@ -145,7 +143,7 @@ function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
       <div className="value-grid">
         {box('plate', 'Plate to chassis', `designed ${meterVolts(e.plate)}`)}
         {row.boxes.screen ? box('screen', 'Screen to chassis', `designed ${meterVolts(e.screen ?? 0)}`) : null}
-        {row.boxes.grid ? box('grid', 'Grid to chassis', `designed ${meterVolts(e.grid).replace('-', '−')}`) : null}
+        {row.boxes.grid ? box('grid', 'Grid to chassis', `designed ${meterVolts(e.grid)}`) : null}
         {row.bias === 'fixed' ? box('cathode', 'Across its 1 Ω sense resistor', `designed ${smallVolts(e.cathode)}`) : box('cathode', row.together ? 'Cathodes to chassis (shared Rk)' : 'Cathode to chassis', `designed ${meterVolts(e.cathode)}`)}
       </div>
       {readout === null ? null : readout.ok ? (
@@ -155,8 +153,4 @@ function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
       )}
     </div>
   );
-}
-
-function sameReading(a: MeterRow['reading'], b: MeterRow['reading']): boolean {
-  return a === b || (a !== null && b !== null && a.plate === b.plate && a.cathode === b.cathode);
 }

@@ -13,7 +13,7 @@ const VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
 export function meterWords(r: MeterReadout, tubeId: string, ratedWatts: number): string {
   const shift = r.gridShift === null || Math.abs(r.gridShift) < 0.05 ? '' : `; it passes what a typical one would ${plain(Math.abs(r.gridShift), 2)} V ${r.gridShift > 0 ? 'further below' : 'closer to'} the cathode`;
   return (
-    `Ia ${milliamps(r.ia)} (the cathode’s drop across Rk), at Vpk ${meterVolts(r.vpk)} and Vgk ${meterVolts(r.vgk).replace('-', '−')}: ` +
+    `Ia ${milliamps(r.ia)} (the cathode’s drop across Rk), at Vpk ${meterVolts(r.vpk)} and Vgk ${meterVolts(r.vgk)}: ` +
     `${percentOf(r.ratio)} of a typical ${tubeId}’s current there, ${VERDICT_WORDS[r.verdict]}${shift}. ` +
     `Plate dissipation ${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(ratedWatts)} rating.`
   );
@@ -44,7 +44,7 @@ export function outputMeterWords(r: OutputMeterReadout, row: Pick<OutputMeterRow
   const split = r.ig2 === null ? '' : ' (the cathode current split between plate and screen as a typical tube splits it: the cathode cannot tell them apart)';
   const set = row.bias === 'fixed' ? ` The designed idle reads ${smallVolts(row.expected.cathode)} across the sense resistor: set the trimmer to it.` : '';
   return (
-    `Ik ${milliamps(r.ik)} (${across}), at Vpk ${meterVolts(r.vpk)}${screen} and Vgk ${meterVolts(r.vgk).replace('-', '−')}: ` +
+    `Ik ${milliamps(r.ik)} (${across}), at Vpk ${meterVolts(r.vpk)}${screen} and Vgk ${meterVolts(r.vgk)}: ` +
     `${percentOf(r.ratio)} of a typical ${row.tubeId}’s cathode current there, ${verdicts[r.verdict]}${shift}. ` +
     `Plate dissipation ${row.together ? 'each ' : ''}${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(row.ratedWatts)} rating${screenWatts}${split}.${set}`
   );
