@@ -1,5 +1,6 @@
 import { amplifierFindings, type Finding, type StageFinding } from '../../src/index';
 import { biasSupplyOf } from './biasSupply';
+import { meterFindings } from './meterRows';
 import type { WorkbenchState } from './workbenchStore';
 import { benchIndex, voltageStages } from './stagePlans';
 import { drivesPair, splitterName } from './outputPlan';
@@ -51,6 +52,8 @@ function stagesOf(s: WorkbenchState): { name: string; findings: readonly Finding
   const bias = biasSupplyOf(s);
   if (bias && !bias.ok) stages.push({ name: BIAS_STAGE_NAME, findings: [{ kind: 'bias-range', severity: 'danger', message: `The output tubes cannot be biased: ${bias.message}`, value: 0, limit: 0, percent: 0 }] });
   else if (bias?.ok && bias.findings.some((f) => f.severity !== 'note')) stages.push({ name: BIAS_STAGE_NAME, findings: bias.findings.filter((f) => f.severity !== 'note') });
+  // The builder's meter readings: a tube past (or at) its rating as built belongs with the design's own checks.
+  stages.push(...meterFindings(s));
   return stages;
 }
 

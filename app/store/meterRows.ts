@@ -1,4 +1,4 @@
-import { findOutputTube, readMeter, readOutputMeter, SENSE_OHMS, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
+import { findOutputTube, readMeter, readOutputMeter, SENSE_OHMS, type Finding, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
 import { idleVoltagesOf } from './idleVoltages';
 import type { MeterPlan, OutputMeterBoxes, OutputMeterPlan } from './meterPlan';
 import { outputPartsOf } from './outputParts';
@@ -146,4 +146,17 @@ export function outputMeterRowsOf(s: WorkbenchState): readonly OutputMeterRow[] 
 export function shownMeterRows(s: WorkbenchState, outputBench: boolean): { readonly triodes: readonly MeterRow[]; readonly outputs: readonly OutputMeterRow[] } {
   const apart = !s.design.drivesOutput;
   return { triodes: outputBench && apart ? NO_ROWS : meterRowsOf(s), outputs: apart && !outputBench ? NO_OUTPUT_ROWS : outputMeterRowsOf(s) };
+}
+
+/**
+ * The readings' dissipation checks that are more than a note, one entry per
+ * row read, for the one ratings list (and so the card and the print): a
+ * tube running past its rating as built is the amplifier's danger.
+ */
+export function meterFindings(s: WorkbenchState): { name: string; findings: readonly Finding[] }[] {
+  const { triodes, outputs } = shownMeterRows(s, s.design.stageKind === 'output');
+  return [...triodes, ...outputs].flatMap((row) => {
+    const worth = row.readout?.ok ? row.readout.findings.filter((f) => f.severity !== 'note') : [];
+    return worth.length > 0 ? [{ name: `${row.name}, as read`, findings: worth }] : [];
+  });
 }

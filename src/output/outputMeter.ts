@@ -2,6 +2,7 @@ import { bracketedRoot } from '../numeric/bracketedRoot';
 import { fail, type Result } from '../result';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { verdictOf, type MeterReadout } from '../stage/meterReading';
+import { dissipationFinding } from '../stage/ratingBands';
 import { checkOutputTube } from './checkOutput';
 import { emptyCurrents, stageCurrentsInto, type ScreenFeed } from './electrodes';
 import type { OutputTube } from './outputTube';
@@ -112,5 +113,9 @@ export function readOutputMeter(tube: OutputTube, reading: OutputMeterReading): 
     pg2,
     pg2Fraction: pg2 === null || !(screenRating !== null && screenRating > 0) ? null : pg2 / screenRating,
     verdict: verdictOf(ratio),
+    findings: [
+      dissipationFinding('plate-dissipation', 'Plate', pa, tube.ratings.maxPlateDissipation, ' as read'),
+      ...(pg2 !== null && screenRating !== null && screenRating > 0 ? [dissipationFinding('screen-dissipation', 'Screen', pg2, screenRating, ' as read')] : []),
+    ],
   };
 }

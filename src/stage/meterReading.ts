@@ -4,6 +4,7 @@ import { fail, type Result } from '../result';
 import { checkNumber, checkTube, LIMITS } from './checkInput';
 import { plateCurrent } from '../tube/triode';
 import type { TubeRecord } from '../tube/types';
+import { dissipationFinding, type Finding } from './ratingBands';
 
 /** What a builder's meter read from chassis to a triode stage's plate and cathode at idle, V. */
 export interface MeterReading {
@@ -44,6 +45,8 @@ export interface MeterReadout {
    * within it, under it (a weak or tired tube, or a Rk off its value), or over it.
    */
   readonly verdict: 'within-spread' | 'low' | 'high';
+  /** The dissipation as read against its rating, banded as the design's own checks are (a note within it, a warning near or at it, a danger past it). */
+  readonly findings: readonly Finding[];
 }
 
 /** Below this the model's tube is taken as cut off at the reading (1 µA, our threshold). */
@@ -93,6 +96,7 @@ export function readMeter(stage: ReadStage, reading: MeterReading): Result<Meter
     pa,
     paFraction: pa / stage.tube.ratings.maxPlateDissipation,
     verdict: verdictOf(ratio),
+    findings: [dissipationFinding('plate-dissipation', 'Plate', pa, stage.tube.ratings.maxPlateDissipation, ' as read')],
   };
 }
 

@@ -43,6 +43,16 @@ describe('your meter readings, stage by stage', () => {
     // On the build card, as the bench notes of the amplifier as built; none before a reading is taken.
     expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines).toEqual([expect.stringMatching(/^Stage 2 · 12AU7, read plate 160 V, cathode 4\.2 V: Ia 3\.5 mA \(the cathode’s drop across Rk\)/)]);
     expect(cardSections(createWorkbenchStore().getState()).some((c) => c.heading === 'Meter readings, as built')).toBe(false);
+    // A reading past the plate's rating is a danger in the one ratings list, named as read, and so on the card.
+    const hot = within(screen.getByRole('group', { name: 'Meter readings, Stage 1 · 12AX7' }));
+    typeInto(hot.getByLabelText(/^Plate to chassis/), '300');
+    typeInto(hot.getByLabelText(/^Cathode to chassis/), '6');
+    act(() => void fireEvent.keyDown(hot.getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    // 6 V across the demo's 1.5 kΩ is 4 mA at 294 V: 1.18 W against the 12AX7's 1 W.
+    const ratings = within(screen.getByRole('region', { name: 'Ratings checks' }));
+    await waitFor(() => expect(ratings.getByText(/^Stage 1 · 12AX7, as read/).closest('.finding')?.className).toMatch(/danger/));
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Ratings, every stage')?.lines.some((l) => /Stage 1 · 12AX7, as read.*Plate dissipation 1\.18 W is 118 % of the 1 W rating as read/.test(l))).toBe(true);
+    act(() => void store.getState().setReading(1, null));
     // Kept in the file.
     const back = readDesignFile(writeDesignFile({ title: 'as built', design: store.getState().design }));
     expect(back.ok && back.doc.design.readings).toEqual([{ stage: 2, tubeId: '12AU7', plate: 160, cathode: 4.2 }]);

@@ -20,6 +20,8 @@ describe('readOutputMeter: an output tube read from the meter', () => {
     // 250 V × 60 mA = 15 W: the point sits on the 2A3's 15 W rating (tube-data.md §12).
     expectClose(r.pa, 15, { rel: 1e-9 });
     expectClose(r.paFraction, 1, { rel: 1e-9 });
+    // At the rating, not past it: a warning, as the design's own check gives a sheet's rated point; no screen to check.
+    expect(r.findings).toEqual([expect.objectContaining({ kind: 'plate-dissipation', severity: 'warning' })]);
     expect(r.vg2k).toBeNull();
   });
 
@@ -42,6 +44,8 @@ describe('readOutputMeter: an output tube read from the meter', () => {
     expectClose(r.ik, s.op.ik, { rel: 1e-9 });
     expectClose(r.pa, s.op.pa, { rel: 1e-6 });
     expectClose(r.pg2!, s.op.pg2, { rel: 1e-6 });
+    // The plate's and the screen's dissipation checked as the design's are (EL34: 25 W plate, 8 W screen).
+    expect(r.findings.map((f) => [f.kind, f.limit])).toEqual([['plate-dissipation', 25], ['screen-dissipation', 8]]);
     expect(Math.abs(r.gridShift!)).toBeLessThan(1e-3);
   });
 

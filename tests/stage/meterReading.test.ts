@@ -14,6 +14,16 @@ describe('readMeter: where a built stage\u2019s tube sits, from the meter', () =
     expect(r.vgk).toBe(-1.5);
     expectClose(r.pa, 178.5e-3, { rel: 1e-12 });
     expectClose(r.paFraction, 178.5e-3 / 1.0, { rel: 1e-12 }); // 12AX7 plate dissipation 1.0 W (Tung-Sol 12AX7, 1947)
+    expect(r.findings).toEqual([expect.objectContaining({ kind: 'plate-dissipation', severity: 'note' })]);
+  });
+
+  // Tung-Sol 12AU7 (1962): 2.75 W plate dissipation a section. 12 V across 1.2 kΩ is 10 mA (Ohm's law) at 288 V: 2.88 W.
+  it('a reading past the plate rating is a danger, banded as the design\u2019s own checks are', () => {
+    const r = readMeter({ tube: au7, rk: 1200, grid: 0 }, { plate: 300, cathode: 12 });
+    if (!r.ok) throw new Error(r.message);
+    expectClose(r.pa, 2.88, { rel: 1e-12 });
+    expect(r.findings).toEqual([expect.objectContaining({ kind: 'plate-dissipation', severity: 'danger', value: r.pa, limit: 2.75 })]);
+    expect(r.findings[0]!.message).toMatch(/as read: the plate will overheat\.$/);
   });
 
   // Tung-Sol 12AX7 (1947) p.1, class A1 each section: Va 250 V, Vg −2 V, Ia 1.2 mA. A stage built to sit

@@ -1,4 +1,5 @@
 import { useId, useState } from 'react';
+import type { Finding } from '../../../src/index';
 import { meterVolts, smallVolts } from '../../format';
 import { askedBoxes, meterFromText, outputMeterFromText, sameReading, type MeterText, type OutputMeterText } from '../../store/meterPlan';
 import { shownMeterRows, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
@@ -76,6 +77,9 @@ function useMeterText<T, K extends string>(reading: T, textOf: (r: T) => Record<
   return { text, setText, errors, setErrors };
 }
 
+/** A readout styled as its worst check (a dissipation near or past the rating), as the ratings list shows it. */
+const worstClass = (findings: readonly Finding[]) => (findings.some((f) => f.severity === 'danger') ? ' finding danger' : findings.some((f) => f.severity === 'warning') ? ' finding warning' : '');
+
 /** Leaving a box waits while another of the row's is still empty (its turn may be next); Enter takes the boxes as they are. */
 const waitsForOthers = (texts: readonly string[]) => texts.some((t) => t.trim() === '') && texts.some((t) => t.trim() !== '');
 
@@ -104,7 +108,7 @@ function TriodeMeter({ row }: { readonly row: MeterRow }) {
         {box('cathode', 'Cathode to chassis', row.expected.cathode)}
       </div>
       {readout === null ? null : readout.ok ? (
-        <p className={`meter-readout${readout.paFraction > 1 ? ' finding danger' : ''}`} role="status">{meterWords(readout, row.tubeId, row.ratedWatts)}</p>
+        <p className={`meter-readout${worstClass(readout.findings)}`} role="status">{meterWords(readout, row.tubeId, row.ratedWatts)}</p>
       ) : (
         <p className="finding warning" role="alert">{readout.message}</p>
       )}
@@ -136,7 +140,6 @@ function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
   );
   const e = row.expected;
   const readout = row.readout;
-  const over = readout?.ok && (readout.paFraction > 1 || (readout.pg2Fraction ?? 0) > 1);
   return (
     <div className="meter-row" role="group" aria-label={`Meter readings, ${row.name}`}>
       <h4 className="meter-stage">{row.name}</h4>
@@ -147,7 +150,7 @@ function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
         {row.bias === 'fixed' ? box('cathode', 'Across its 1 Ω sense resistor', `designed ${smallVolts(e.cathode)}`) : box('cathode', row.together ? 'Cathodes to chassis (shared Rk)' : 'Cathode to chassis', `designed ${meterVolts(e.cathode)}`)}
       </div>
       {readout === null ? null : readout.ok ? (
-        <p className={`meter-readout${over ? ' finding danger' : ''}`} role="status">{outputMeterWords(readout, row)}</p>
+        <p className={`meter-readout${worstClass(readout.findings)}`} role="status">{outputMeterWords(readout, row)}</p>
       ) : (
         <p className="finding warning" role="alert">{readout.message}</p>
       )}
