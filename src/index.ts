@@ -33,6 +33,8 @@ export { solveFollower, type FollowerDesign, type FollowerSolution } from './sta
 export { followerPlane, followerRkFor, type FollowerPlane, type FollowerRk } from './stage/followerPlane';
 export { designFor, type DesignTarget, type DesignAnswer } from './stage/designFor';
 export { readMeter, type MeterReading, type MeterReadout, type ReadStage } from './stage/meterReading';
+export { readPlateMeter, type PlateMeterReading, type PlateReadStage } from './stage/plateMeterReading';
+export { readPairMeter, TAIL_AGREEMENT, type PairMeterReading, type PairMeterReadout, type PairReadStage } from './splitter/pairMeter';
 export {
   designAtPlanePoint,
   nearestReachable,

@@ -1,6 +1,6 @@
 import { TUBE_CURRENT_SPREAD } from '../build/partsList';
 import { bracketedRoot } from '../numeric/bracketedRoot';
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { checkNumber, checkTube, LIMITS } from './checkInput';
 import { plateCurrent } from '../tube/triode';
 import type { TubeRecord } from '../tube/types';
@@ -65,8 +65,7 @@ export function readMeter(stage: ReadStage, reading: MeterReading): Result<Meter
   const problem =
     (typeof stage !== 'object' || stage === null ? fail('invalid-input', 'Give the stage the reading was taken on.') : null) ??
     (typeof reading !== 'object' || reading === null ? fail('invalid-input', 'Give the plate and cathode readings.') : null) ??
-    checkTube(stage.tube) ??
-    ((stage.tube as { kind?: unknown }).kind !== 'tube' ? fail('invalid-tube', 'The reading needs a tube record, for its plate rating.', 'tube') : null) ??
+    checkReadTube(stage.tube) ??
     checkNumber('rk', 'Rk', stage.rk, 'Ω', LIMITS.minOhms, LIMITS.maxOhms) ??
     checkNumber('grid', 'The grid voltage', stage.grid, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
     checkNumber('plate', 'The plate reading', reading.plate, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
@@ -75,14 +74,26 @@ export function readMeter(stage: ReadStage, reading: MeterReading): Result<Meter
   const { plate, cathode } = reading;
   if (!(cathode > 0)) return fail('invalid-input', 'A cathode at 0 V or below passes no current through Rk: check the meter’s leads and that the heater is lit.', 'cathode');
   if (!(plate > cathode)) return fail('invalid-input', 'The plate must read above the cathode: check the meter’s leads and the plate resistor.', 'plate');
-  const ia = cathode / stage.rk;
-  const vpk = plate - cathode;
-  const vgk = stage.grid - cathode;
-  const typicalIa = plateCurrent(stage.tube, vpk, vgk);
+  return readoutAt(stage.tube, plate - cathode, stage.grid - cathode, cathode / stage.rk, 'cathode');
+}
+
+/** A checked tube record: the reading needs its plate rating. */
+export function checkReadTube(tube: unknown): Failure | null {
+  return checkTube(tube) ?? ((tube as { kind?: unknown }).kind !== 'tube' ? fail('invalid-tube', 'The reading needs a tube record, for its plate rating.', 'tube') : null);
+}
+
+/**
+ * Where a tube passing `ia` at `vpk` and `vgk` sits against the model's
+ * typical tube there: the ratio, the grid shift, the verdict on the spread
+ * and the plate dissipation. `field` names the box a cut-off is blamed on.
+ * The tube must be checked, and the voltages finite.
+ */
+export function readoutAt(tube: TubeRecord, vpk: number, vgk: number, ia: number, field: string): Result<MeterReadout> {
+  const typicalIa = plateCurrent(tube, vpk, vgk);
   if (!(typicalIa > CUT_OFF_AMPS)) {
-    return fail('cutoff', `The model's ${stage.tube.id} is cut off at these voltages (the grid ${Math.abs(vgk).toFixed(1)} V below the cathode): check the grid's voltage and the readings.`, 'cathode');
+    return fail('cutoff', `The model's ${tube.id} is cut off at these voltages (the grid ${Math.abs(vgk).toFixed(1)} V below the cathode): check the grid's voltage and the readings.`, field);
   }
-  const shift = bracketedRoot((vg) => plateCurrent(stage.tube, vpk, vg) - ia, vgk - SHIFT_SEARCH_VOLTS, vgk + SHIFT_SEARCH_VOLTS, 1e-4);
+  const shift = bracketedRoot((vg) => plateCurrent(tube, vpk, vg) - ia, vgk - SHIFT_SEARCH_VOLTS, vgk + SHIFT_SEARCH_VOLTS, 1e-4);
   const ratio = ia / typicalIa;
   const pa = vpk * ia;
   return {
@@ -94,9 +105,9 @@ export function readMeter(stage: ReadStage, reading: MeterReading): Result<Meter
     ratio,
     gridShift: shift.converged ? vgk - shift.x : null,
     pa,
-    paFraction: pa / stage.tube.ratings.maxPlateDissipation,
+    paFraction: pa / tube.ratings.maxPlateDissipation,
     verdict: verdictOf(ratio),
-    findings: [dissipationFinding('plate-dissipation', 'Plate', pa, stage.tube.ratings.maxPlateDissipation, ' as read')],
+    findings: [dissipationFinding('plate-dissipation', 'Plate', pa, tube.ratings.maxPlateDissipation, ' as read')],
   };
 }
 

@@ -30,6 +30,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   // A technician's readings on a 12AU7 stage: inside the tube's range, at cut-off, and junk.
   run('readMeter', fc.tuple(fc.oneof(near({ tube: au7, rk: 1200, grid: 0 }), anything), fc.oneof(near({ plate: 150, cathode: 5.4 }), near({ plate: 150, cathode: 40 }), anything)), Q.readMeter);
   // An output tube's readings: cathode-biased, fixed-bias across its sense resistor, a power triode's, and junk.
+  run('readPlateMeter', fc.tuple(fc.oneof(near({ tube: ax7, ra: 100e3, grid: -2 }), anything), fc.oneof(near({ supply: 370, plate: 250, cathode: 0 }), near({ supply: 300, plate: 150, cathode: 40 }), anything)), Q.readPlateMeter);
+  run('readPairMeter', fc.tuple(fc.oneof(near({ tube: au7, ra: 10e3, ra2: 10e3, rk: 262, rtail: 3000, grid: 60 }), anything), fc.oneof(near({ supply: 423.5, plate: 318.5, plate2: 318.5, cathode: 68.5 }), near({ supply: 300, plate: 150, plate2: 140, cathode: 5 }), anything)), Q.readPairMeter);
   run('readOutputMeter', fc.tuple(fc.oneof(fc.constantFrom<unknown>(...Q.outputTubeLibrary), near(el34), anything), fc.oneof(near({ plate: 321, screen: 330, grid: 0, cathode: 23.5, rk: 330 }), near({ plate: 400, screen: 400, grid: -38, cathode: 0.06, rk: 1 }), near({ plate: 295, screen: null, grid: 0, cathode: 45, rk: 750 }), anything)), Q.readOutputMeter);
   run('designFor', fc.tuple(near({ tube: au7, bplus: 275, va: 150, ia: 5e-3 })), Q.designFor);
   run('designAtPlanePoint', fc.tuple(near({ tube: au7, bplus: 275, vpk: 150, ia: 5e-3 })), Q.designAtPlanePoint);
