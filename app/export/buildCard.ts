@@ -16,7 +16,8 @@ import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
 import { elevationAdvice } from '../ui/panels/elevationAdvice';
-import { meterWords, outputMeterWords } from '../ui/panels/meterWords';
+import { outputMeterWords, triodeMeterLines } from '../ui/panels/meterWords';
+import type { TriodeBox } from '../store/meterPlan';
 import { shownMeterRows } from '../store/meterRows';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, leakWords, otherStageSections, partLines } from './amplifierLines';
@@ -42,11 +43,19 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(bias ? [bias] : []), ...(idle ? [idle] : []), ...(readings ? [readings] : [])];
 }
 
+/** A triode stage's box as the card's line names it. */
+const CARD_BOX_WORDS: Record<TriodeBox, string> = { supply: 'supply', plate: 'plate', plate2: 'second plate', cathode: 'cathode' };
+
 /** The builder's meter readings, each with what the model makes of it: the bench notes of the amplifier as built. */
 function meterSection(s: WorkbenchState): { heading: string; lines: string[] } | null {
   const { triodes, outputs } = shownMeterRows(s, s.design.stageKind === 'output');
   const lines = [
-    ...triodes.flatMap((r) => (r.reading && r.readout ? [`${r.name}, read plate ${meterVolts(r.reading.plate)}, cathode ${meterVolts(r.reading.cathode)}: ${r.readout.ok ? meterWords(r.readout, r.tubeId, r.ratedWatts) : r.readout.message}`] : [])),
+    ...triodes.flatMap((r) => {
+      if (!r.reading || !r.readout) return [];
+      const g = r.reading;
+      const read = r.boxes.map((b) => `${CARD_BOX_WORDS[b]} ${meterVolts(g[b] ?? 0)}`).join(', ');
+      return [`${r.name}, read ${read}: ${r.readout.ok ? triodeMeterLines(r.readout, r).join(' ') : r.readout.message}`];
+    }),
     ...outputs.flatMap((r) => {
       if (!r.reading || !r.readout) return [];
       const g = r.reading;

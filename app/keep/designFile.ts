@@ -63,7 +63,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * as every such file was designed; and the output
  * transformer's `primaryInductance` and `leakageInductance` (H, or null):
  * absent, the ideal transformer; `readings` (the builder's meter
- * readings, [{ stage, tubeId, plate, cathode }], see meterPlan.ts) and
+ * readings, [{ stage, tubeId, plate, cathode, supply?, plate2? }], see meterPlan.ts) and
  * `outputReadings` (on the output tubes, [{ tube, tubeId, pair, bias, plate,
  * screen, grid, cathode }]): absent, none.
  * Version 1 files (before output stages) open with the bench's default
@@ -204,7 +204,7 @@ export function readDesignFile(text: string, byteLength = new TextEncoder().enco
   if (heatersProblem) return { ok: false, message: heatersProblem };
   const readingsProblem = firstProblem(READINGS, d, 'design');
   if (readingsProblem) return { ok: false, message: readingsProblem };
-  const readings = ((d.readings as MeterPlan[] | undefined) ?? []).map((r) => ({ stage: r.stage, tubeId: knownId(r.tubeId), plate: r.plate, cathode: r.cathode }));
+  const readings = ((d.readings as MeterPlan[] | undefined) ?? []).map((r) => ({ stage: r.stage, tubeId: knownId(r.tubeId), plate: r.plate, cathode: r.cathode, ...(r.supply === undefined ? {} : { supply: r.supply }), ...(r.plate2 === undefined ? {} : { plate2: r.plate2 }) }));
   const outputReadingsProblem = firstProblem(OUTPUT_READINGS, d, 'design');
   if (outputReadingsProblem) return { ok: false, message: outputReadingsProblem };
   const outputReadings = ((d.outputReadings as OutputMeterPlan[] | undefined) ?? []).map((r) => ({ ...r, tubeId: findOutputTube(r.tubeId)?.id ?? r.tubeId }));

@@ -148,7 +148,8 @@ export const JOIN = v.object({ drivesOutput: v.optional(yesNo()) });
 /**
  * The builder's meter readings (came later within version 3: absent, none):
  * one per stage at most, each naming its stage's place (1 the input stage)
- * and the tube it was read on.
+ * and the tube it was read on; the supply and a second plate where the
+ * stage is read from its plate side.
  */
 export const READINGS = v.object({
   readings: v.optional(
@@ -159,6 +160,8 @@ export const READINGS = v.object({
           tubeId: tubeName(),
           plate: ranged(L.meter),
           cathode: ranged(L.meter),
+          supply: v.optional(ranged(L.meter)),
+          plate2: v.optional(ranged(L.meter)),
         }),
         'must be a list of readings',
       ),

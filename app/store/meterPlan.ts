@@ -4,7 +4,10 @@ import type { OutputPair } from './outputPlan';
 
 /**
  * A builder's meter readings on one stage of the amplifier as built: the
- * plate and cathode to chassis at idle, V. `stage` is the stage's place in
+ * plate and cathode to chassis at idle, V, and where the current is read
+ * from the plate side (a stage with no cathode resistor, a long-tailed
+ * pair) the supply at the plate resistor's top and a pair's second plate.
+ * `stage` is the stage's place in
  * the amplifier (1 the input stage) and `tubeId` the tube it was read on: a
  * reading shows only while that place holds that tube, so a reordered chain
  * or a swapped tube never passes one stage's reading off as another's.
@@ -14,6 +17,8 @@ export interface MeterPlan {
   readonly tubeId: string;
   readonly plate: number;
   readonly cathode: number;
+  readonly supply?: number;
+  readonly plate2?: number;
 }
 
 /** The design with a stage's reading put in its place (null: taken out); absent when none is left. */
@@ -24,11 +29,19 @@ export function withReading(d: BenchDesign, stage: number, reading: MeterPlan | 
   return readings.length > 0 ? { ...rest, readings } : rest;
 }
 
-/** A stage's two readings as typed: each box's words when it is refused. */
+/** A stage's readings as typed, every box it may ask for: each box's words when it is refused. */
 export interface MeterText {
+  readonly supply: string;
   readonly plate: string;
+  readonly plate2: string;
   readonly cathode: string;
 }
+
+/** A box a triode stage is read from. */
+export type TriodeBox = keyof MeterText;
+
+/** Each box as the messages name it. */
+const BOX_WORDS: Record<TriodeBox, string> = { supply: 'supply', plate: 'plate', plate2: 'second plate', cathode: 'cathode' };
 
 /** A row's boxes as read: every asked box's value, or the boxes' messages; null when every asked box is empty. */
 type ReadBoxes<K extends string> = { ok: true; values: Record<K, number> | null } | { ok: false; errors: Partial<Record<K, string>> };
@@ -58,11 +71,17 @@ export function sameReading<T extends object>(a: T | null, b: T | null): boolean
   return a === b || (a !== null && b !== null && (Object.keys(a) as (keyof T)[]).every((k) => a[k] === b[k]));
 }
 
-/** What a stage's two boxes make: a reading (both read), none (both empty: the reading is taken out), or the boxes' messages. */
-export function meterFromText(stage: number, tubeId: string, text: MeterText): { ok: true; reading: MeterPlan | null } | { ok: false; errors: Partial<Record<keyof MeterText, string>> } {
-  const read = readBoxes(['plate', 'cathode'] as const, text, (key) => `Give the ${key}’s reading too: the stage is read from both.`);
+/**
+ * What a stage's asked boxes make: a reading (every one read), none (all
+ * empty: the reading is taken out), or the boxes' messages. A cathode not
+ * asked (a stage with no cathode resistor) sits at chassis, 0 V.
+ */
+export function meterFromText(stage: number, tubeId: string, asked: readonly TriodeBox[], text: MeterText): { ok: true; reading: MeterPlan | null } | { ok: false; errors: Partial<Record<TriodeBox, string>> } {
+  const read = readBoxes(asked, text, (key) => `Give the ${BOX_WORDS[key]}’s reading too: the stage is read from ${asked.length === 2 ? 'both' : 'every box'}.`);
   if (!read.ok) return read;
-  return { ok: true, reading: read.values && { stage, tubeId, plate: read.values.plate, cathode: read.values.cathode } };
+  const v = read.values as Partial<Record<TriodeBox, number>> | null;
+  if (v === null) return { ok: true, reading: null };
+  return { ok: true, reading: { stage, tubeId, plate: v.plate ?? 0, cathode: v.cathode ?? 0, ...(v.supply === undefined ? {} : { supply: v.supply }), ...(v.plate2 === undefined ? {} : { plate2: v.plate2 }) } };
 }
 
 /**

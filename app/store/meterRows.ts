@@ -1,11 +1,25 @@
-import { findOutputTube, readMeter, readOutputMeter, SENSE_OHMS, type Finding, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
+import { findOutputTube, readMeter, readOutputMeter, readPairMeter, readPlateMeter, SENSE_OHMS, type Finding, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
 import { idleVoltagesOf } from './idleVoltages';
-import type { MeterPlan, OutputMeterBoxes, OutputMeterPlan } from './meterPlan';
+import type { MeterPlan, OutputMeterBoxes, OutputMeterPlan, TriodeBox } from './meterPlan';
 import { outputPartsOf } from './outputParts';
 import type { OutputPair } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
 
-/** A stage the meter can be read on (a triode with one cathode resistor to chassis: a gain stage, a follower, a split-load splitter), with its reading and what the model makes of it. */
+/**
+ * How a triode stage's current is read: across its cathode resistor to
+ * chassis (a gain stage, a follower, a split-load splitter), as its plate
+ * resistor's drop from the supply (a gain stage with no cathode resistor),
+ * or a long-tailed pair's two plates that way, its tail a check on their sum.
+ */
+export type MeterRoute = 'cathode' | 'plate' | 'pair';
+
+/** What the model makes of a triode stage's reading: each tube's readout (two for a pair), and a pair's tail check. */
+export interface TriodeReadout {
+  readonly tubes: readonly MeterReadout[];
+  readonly tail: { readonly plateSum: number; readonly tailCurrent: number; readonly agrees: boolean } | null;
+}
+
+/** A stage the meter can be read on, with its reading and what the model makes of it. */
 export interface MeterRow {
   /** The stage's place in the amplifier, 1 the input stage. */
   readonly stage: number;
@@ -14,21 +28,29 @@ export interface MeterRow {
   readonly tubeId: string;
   /** The tube's plate dissipation rating, W. */
   readonly ratedWatts: number;
-  /** What the meter should read there at idle, V (the solved design's). */
-  readonly expected: { readonly plate: number; readonly cathode: number };
+  readonly route: MeterRoute;
+  /** The boxes the stage is read from, in the order shown. */
+  readonly boxes: readonly TriodeBox[];
+  /** What the meter should read there at idle, V (the solved design's), for each box asked. */
+  readonly expected: Readonly<Record<TriodeBox, number>>;
   readonly reading: MeterPlan | null;
-  readonly readout: Result<MeterReadout> | null;
+  readonly readout: Result<TriodeReadout> | null;
 }
 
 /** None, as one value: a selector answering a fresh [] each call would redraw its panel on every store change. */
 const NO_ROWS: readonly MeterRow[] = [];
 const NO_OUTPUT_ROWS: readonly OutputMeterRow[] = [];
 
+const BOXES: Record<MeterRoute, readonly TriodeBox[]> = { cathode: ['plate', 'cathode'], plate: ['supply', 'plate'], pair: ['supply', 'plate', 'plate2', 'cathode'] };
+
 const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings']; rows: readonly MeterRow[] }>();
 
+/** One tube's readout as a stage's. */
+const single = (r: Result<MeterReadout>): Result<TriodeReadout> => (r.ok ? { ok: true, tubes: [r], tail: null } : r);
+
 /**
- * The amplifier's gain stages, cathode followers and split-load splitter
- * with a cathode resistor, in chain order, each with the builder's reading
+ * The amplifier's gain stages, cathode followers, split-load splitters
+ * and long-tailed pairs, in chain order, each with the builder's reading
  * (when it was taken on the tube the stage now holds) read by the model.
  * Empty when the amplifier does not solve.
  */
@@ -41,21 +63,34 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
   const result = view.result;
   const rows: MeterRow[] = [];
   view.input.stages.forEach((st, i) => {
-    // A split-load splitter reads as a follower does: one cathode resistor to chassis, its grid held where designed.
-    if (st.kind !== 'common-cathode' && st.kind !== 'follower' && st.kind !== 'split-load') return;
+    if (st.kind !== 'common-cathode' && st.kind !== 'follower' && st.kind !== 'split-load' && st.kind !== 'long-tailed-pair') return;
     const tube = st.tube;
-    if (!(st.rk > 0) || tube.kind !== 'tube') return;
-    const solved = result.stages[i]!;
+    if (tube.kind !== 'tube') return;
+    // A split-load splitter reads as a follower does: one cathode resistor to chassis, its grid held where designed.
+    const route: MeterRoute = st.kind === 'long-tailed-pair' ? 'pair' : st.rk > 0 ? 'cathode' : st.kind === 'common-cathode' ? 'plate' : 'cathode';
+    if (route === 'cathode' && !(st.rk > 0)) return;
+    const pins = result.stages[i]!.pins;
     const stage = i + 1;
     const reading = readings?.find((r) => r.stage === stage && r.tubeId === tube.id) ?? null;
+    const read = (g: MeterPlan): Result<TriodeReadout> => {
+      if (st.kind === 'long-tailed-pair') {
+        const r = readPairMeter({ tube, ra: st.ra, ra2: st.ra2 ?? st.ra, rk: st.rk, rtail: st.rtail, grid: pins.grid }, { supply: g.supply ?? 0, plate: g.plate, plate2: g.plate2 ?? 0, cathode: g.cathode });
+        return r.ok ? { ok: true, tubes: r.tubes, tail: { plateSum: r.plateSum, tailCurrent: r.tailCurrent, agrees: r.tailAgrees } } : r;
+      }
+      if (route === 'plate' && st.kind === 'common-cathode') return single(readPlateMeter({ tube, ra: st.ra, grid: pins.grid }, { supply: g.supply ?? 0, plate: g.plate, cathode: 0 }));
+      return single(readMeter({ tube, rk: st.rk, grid: pins.grid }, g));
+    };
     rows.push({
       stage,
       name: `${view.names[i]!.title} · ${view.names[i]!.tube}`,
       tubeId: tube.id,
       ratedWatts: tube.ratings.maxPlateDissipation,
-      expected: { plate: solved.pins.plate, cathode: solved.pins.cathode },
+      route,
+      boxes: BOXES[route],
+      expected: { supply: st.bplus, plate: pins.plate, plate2: pins.plate2 ?? pins.plate, cathode: pins.cathode },
       reading,
-      readout: reading ? readMeter({ tube, rk: st.rk, grid: solved.pins.grid }, reading) : null,
+      // A reading kept from before the stage asked for its box (none for it) is read as not yet whole.
+      readout: reading && BOXES[route].every((b) => reading[b] !== undefined) ? read(reading) : null,
     });
   });
   memo.set(view, { readings, rows });
@@ -155,8 +190,7 @@ export function shownMeterRows(s: WorkbenchState, outputBench: boolean): { reado
  */
 export function meterFindings(s: WorkbenchState): { name: string; findings: readonly Finding[] }[] {
   const { triodes, outputs } = shownMeterRows(s, s.design.stageKind === 'output');
-  return [...triodes, ...outputs].flatMap((row) => {
-    const worth = row.readout?.ok ? row.readout.findings.filter((f) => f.severity !== 'note') : [];
-    return worth.length > 0 ? [{ name: `${row.name}, as read`, findings: worth }] : [];
-  });
+  const triodeWorth = triodes.map((row) => ({ name: row.name, worth: row.readout?.ok ? row.readout.tubes.flatMap((t, k) => t.findings.filter((f) => f.severity !== 'note').map((f) => (row.route === 'pair' ? { ...f, message: `${k === 0 ? 'First' : 'Second'} triode: ${f.message}` } : f))) : [] }));
+  const outputWorth = outputs.map((row) => ({ name: row.name, worth: row.readout?.ok ? row.readout.findings.filter((f) => f.severity !== 'note') : [] }));
+  return [...triodeWorth, ...outputWorth].flatMap(({ name, worth }) => (worth.length > 0 ? [{ name: `${name}, as read`, findings: worth }] : []));
 }

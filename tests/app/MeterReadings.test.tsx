@@ -91,6 +91,60 @@ describe('your meter readings, stage by stage', () => {
     expect(store.getState().design.readings).toEqual([{ stage: 1, tubeId: '12AX7', plate: 1.2, cathode: 1.4 }]);
   });
 
+  it('reads a long-tailed pair from its plates, the tail a check on their sum, and a gain stage with no Rk from its plate resistor', async () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => {
+      store.getState().setOutputPair('push-pull');
+      store.getState().setSplitter({ kind: 'long-tailed-pair' });
+    });
+    const amp = store.getState().amplifier!;
+    if (!amp.result.ok) throw new Error(amp.result.message);
+    const at = amp.result.stages.findIndex((st) => st.kind === 'long-tailed-pair');
+    const ltp = amp.input.stages[at]!;
+    if (ltp.kind !== 'long-tailed-pair') throw new Error('no pair');
+    const pins = amp.result.stages[at]!.pins;
+    const pair = within(await screen.findByRole('group', { name: 'Meter readings, Splitter · 12AU7' }));
+    expect(pair.getAllByRole('textbox').map((b) => b.getAttribute('name'))).toEqual([`reading.${at + 1}.supply`, `reading.${at + 1}.plate`, `reading.${at + 1}.plate2`, `reading.${at + 1}.cathode`]);
+    // The design's own idle voltages typed back read as the typical tube, and the tail's current agrees with the plates' sum.
+    typeInto(pair.getByLabelText(/^Supply at the top of Ra/), String(ltp.bplus));
+    typeInto(pair.getByLabelText(/^First plate to chassis/), String(pins.plate));
+    typeInto(pair.getByLabelText(/^Second plate to chassis/), String(pins.plate2));
+    typeInto(pair.getByLabelText(/^Cathodes to chassis/), String(pins.cathode));
+    act(() => void fireEvent.keyDown(pair.getByLabelText(/^Cathodes to chassis/), { key: 'Enter' }));
+    const readout = within(screen.getByRole('group', { name: 'Meter readings, Splitter · 12AU7' })).getByRole('status').textContent!;
+    expect(readout).toMatch(/^First triode \(inverting plate\): Ia [\d.]+ mA \(the drop across Ra, supply to plate\), at Vpk [\d.]+ V and Vgk −[\d.]+ V: 100 % of a typical 12AU7’s current there/);
+    expect(readout).toMatch(/Second triode: Ia [\d.]+ mA \(the drop across Ra, supply to plate\).*100 % of a typical 12AU7’s/);
+    expect(readout).toMatch(/The tail carries [\d.]+ mA \(the cathodes’ drop across Rk and the tail\), the plates [\d.]+ mA together: they agree\.$/);
+    // The typed text holds the figures to 15 digits.
+    expect(store.getState().design.readings).toEqual([{ stage: at + 1, tubeId: '12AU7', supply: ltp.bplus, plate: expect.closeTo(pins.plate, 9), plate2: expect.closeTo(pins.plate2!, 9), cathode: expect.closeTo(pins.cathode, 9) }]);
+    // The first plate 20 % further below the supply than designed: 20 % more current read through the nominal Ra, which the tail does not carry.
+    const drifted = ltp.bplus - 1.2 * (ltp.bplus - pins.plate);
+    typeInto(pair.getByLabelText(/^First plate to chassis/), String(drifted));
+    act(() => void fireEvent.keyDown(pair.getByLabelText(/^First plate to chassis/), { key: 'Enter' }));
+    await waitFor(() => expect(within(screen.getByRole('group', { name: 'Meter readings, Splitter · 12AU7' })).getByRole('status').textContent).toMatch(/together: they should agree within 10 %: a plate or tail resistor is off its value/));
+    // On the card with every box it was read from; kept in the file.
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines).toEqual([expect.stringMatching(/^Splitter · 12AU7, read supply \d+ V, plate [\d.]+ V, second plate [\d.]+ V, cathode [\d.]+ V: First triode/)]);
+    const back = readDesignFile(writeDesignFile({ title: 'as built', design: store.getState().design }));
+    expect(back.ok && back.doc.design.readings).toEqual(store.getState().design.readings);
+    // A gain stage with no cathode resistor is read from its plate resistor: the supply at its top and the plate. Its grid
+    // sits where its own leak's grid current holds it (grid-leak bias, a fraction of a volt below the cathode).
+    act(() => {
+      store.getState().editField('rk', '0');
+      store.getState().settleField('rk');
+      store.getState().settleAnalysis();
+    });
+    const noRk = within(await screen.findByRole('group', { name: 'Meter readings, Stage 2 · 12AU7' }));
+    expect(noRk.getAllByRole('textbox').map((b) => b.getAttribute('name'))).toEqual(['reading.2.supply', 'reading.2.plate']);
+    const b = store.getState().amplifier!;
+    if (!b.result.ok) throw new Error(b.result.message);
+    typeInto(noRk.getByLabelText(/^Supply at the top of Ra/), String(b.input.stages[1]!.bplus));
+    typeInto(noRk.getByLabelText(/^Plate to chassis/), String(b.result.stages[1]!.pins.plate));
+    act(() => void fireEvent.keyDown(noRk.getByLabelText(/^Plate to chassis/), { key: 'Enter' }));
+    await waitFor(() => expect(within(screen.getByRole('group', { name: 'Meter readings, Stage 2 · 12AU7' })).getByRole('status').textContent).toMatch(/^Ia [\d.]+ mA \(the drop across Ra, supply to plate\), at Vpk [\d.]+ V and Vgk −[\d.]+ m?V: 100 % of a typical 12AU7’s current there/));
+    expect(store.getState().design.readings?.find((r) => r.stage === 2)).toEqual({ stage: 2, tubeId: '12AU7', supply: b.input.stages[1]!.bplus, plate: expect.closeTo(b.result.stages[1]!.pins.plate, 9), cathode: 0 });
+  });
+
   it('a file\u2019s readings are checked field by field', () => {
     const store = createWorkbenchStore();
     const doc = JSON.parse(writeDesignFile({ title: 't', design: store.getState().design })) as { design: Record<string, unknown> };
@@ -102,6 +156,8 @@ describe('your meter readings, stage by stage', () => {
     expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings must hold one reading per stage/) });
     doc.design.readings = 'none';
     expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings must be a list of readings/) });
+    doc.design.readings = [{ stage: 3, tubeId: '12AU7', supply: 2500, plate: 170, plate2: 171, cathode: 40 }];
+    expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.readings\[0\]\.supply must be a number from 0 to 2000 V/) });
     delete doc.design.readings;
     doc.design.outputReadings = [{ tube: 3, tubeId: 'EL34', pair: 'single-ended', bias: 'cathode', plate: 318, screen: 330, grid: 0, cathode: 22 }];
     expect(readDesignFile(JSON.stringify(doc))).toMatchObject({ ok: false, message: expect.stringMatching(/^design\.outputReadings\[0\]\.tube must be 1 or 2/) });

@@ -1,16 +1,16 @@
 import { useId, useState } from 'react';
 import type { Finding } from '../../../src/index';
 import { meterVolts, smallVolts } from '../../format';
-import { askedBoxes, meterFromText, outputMeterFromText, sameReading, type MeterText, type OutputMeterText } from '../../store/meterPlan';
+import { askedBoxes, meterFromText, outputMeterFromText, sameReading, type MeterText, type OutputMeterText, type TriodeBox } from '../../store/meterPlan';
 import { shownMeterRows, type MeterRow, type OutputMeterRow } from '../../store/meterRows';
 import { useWorkbench } from '../../store/StoreProvider';
 import { useDragPaced } from './useDragPaced';
 import { compact } from '../../store/fields';
-import { meterWords, outputMeterWords } from './meterWords';
+import { outputMeterWords, triodeMeterLines } from './meterWords';
 
 /**
  * The amplifier as built, read with a meter: for each gain stage,
- * follower and split-load splitter with a cathode resistor, and each output tube, the electrodes to
+ * follower, phase splitter and output tube, the electrodes to
  * chassis at idle typed in, and where that puts the tube against the model's
  * typical one. Readings are kept with the design (files, links, undo). Like
  * the voltages to check, an output stage apart from the voltage stages is
@@ -26,7 +26,7 @@ export function MeterReadings({ outputAlone = false }: { readonly outputAlone?: 
     <section className="meter-readings" aria-labelledby={`${id}-h`}>
       <h3 className="subhead" id={`${id}-h`}>Your meter readings, stage by stage</h3>
       <p className="field-hint">
-        With the amplifier built and idling, read each electrode to chassis and type it here: the drop across the cathode resistor (or a fixed-bias tube’s 1 Ω sense resistor) gives the current (Ohm’s law), and the model says where the tube sits against a typical one of its type.
+        With the amplifier built and idling, read each electrode to chassis and type it here: the drop across the cathode resistor (or a fixed-bias tube’s 1 Ω sense resistor, or where there is neither, the plate resistor) gives the current (Ohm’s law), and the model says where the tube sits against a typical one of its type.
       </p>
       {shownTriodes.map((row) => <TriodeMeter key={`${row.stage}-${row.tubeId}`} row={row} />)}
       {shownOutputs.map((row) => <OutputMeter key={`${row.tube}-${row.tubeId}-${row.pair}-${row.bias}`} row={row} />)}
@@ -83,32 +83,40 @@ const worstClass = (findings: readonly Finding[]) => (findings.some((f) => f.sev
 /** Leaving a box waits while another of the row's is still empty (its turn may be next); Enter takes the boxes as they are. */
 const waitsForOthers = (texts: readonly string[]) => texts.some((t) => t.trim() === '') && texts.some((t) => t.trim() !== '');
 
-const triodeText = (r: MeterRow['reading']): MeterText => ({ plate: r ? compact(r.plate) : '', cathode: r ? compact(r.cathode) : '' });
+const triodeText = (r: MeterRow['reading']): MeterText => ({
+  supply: r?.supply !== undefined ? compact(r.supply) : '',
+  plate: r ? compact(r.plate) : '',
+  plate2: r?.plate2 !== undefined ? compact(r.plate2) : '',
+  cathode: r ? compact(r.cathode) : '',
+});
+
+/** Each box's label, by how the stage is read. */
+const triodeLabel = (key: TriodeBox, route: MeterRow['route']): string =>
+  ({ supply: 'Supply at the top of Ra', plate: route === 'pair' ? 'First plate to chassis' : 'Plate to chassis', plate2: 'Second plate to chassis', cathode: route === 'pair' ? 'Cathodes to chassis' : 'Cathode to chassis' })[key];
 
 function TriodeMeter({ row }: { readonly row: MeterRow }) {
   const setReading = useWorkbench((s) => s.setReading);
   const { text, setText, errors, setErrors } = useMeterText(row.reading, triodeText);
   const id = useId();
   const settle = (leaving: boolean) => {
-    if (leaving && waitsForOthers([text.plate, text.cathode])) return setErrors({});
-    const made = meterFromText(row.stage, row.tubeId, text);
+    if (leaving && waitsForOthers(row.boxes.map((k) => text[k]))) return setErrors({});
+    const made = meterFromText(row.stage, row.tubeId, row.boxes, text);
     if (!made.ok) return setErrors(made.errors);
     setErrors({});
     if (!sameReading(made.reading, row.reading)) setReading(row.stage, made.reading);
   };
-  const box = (key: keyof MeterText, label: string, expected: number) => (
-    <MeterBox id={`${id}-${key}`} name={`reading.${row.stage}.${key}`} label={label} value={text[key]} placeholder={`designed ${meterVolts(expected)}`} error={errors[key]} onChange={(t) => setText({ ...text, [key]: t })} onSettle={settle} />
+  const box = (key: TriodeBox) => (
+    <MeterBox key={key} id={`${id}-${key}`} name={`reading.${row.stage}.${key}`} label={triodeLabel(key, row.route)} value={text[key]} placeholder={`designed ${meterVolts(row.expected[key])}`} error={errors[key]} onChange={(t) => setText({ ...text, [key]: t })} onSettle={settle} />
   );
   const readout = row.readout;
   return (
     <div className="meter-row" role="group" aria-label={`Meter readings, ${row.name}`}>
       <h4 className="meter-stage">{row.name}</h4>
-      <div className="value-grid">
-        {box('plate', 'Plate to chassis', row.expected.plate)}
-        {box('cathode', 'Cathode to chassis', row.expected.cathode)}
-      </div>
+      <div className="value-grid">{row.boxes.map(box)}</div>
       {readout === null ? null : readout.ok ? (
-        <p className={`meter-readout${worstClass(readout.findings)}`} role="status">{meterWords(readout, row.tubeId, row.ratedWatts)}</p>
+        <p className={`meter-readout${worstClass(readout.tubes.flatMap((t) => t.findings))}`} role="status">
+          {triodeMeterLines(readout, row).map((line, k) => <span key={k} className="meter-line">{line}</span>)}
+        </p>
       ) : (
         <p className="finding warning" role="alert">{readout.message}</p>
       )}

@@ -1,6 +1,6 @@
 import type { MeterReadout, OutputMeterReadout } from '../../../src/index';
 import { meterVolts, milliamps, percentOf, plain, smallVolts, watts } from '../../format';
-import type { OutputMeterRow } from '../../store/meterRows';
+import type { MeterRow, OutputMeterRow, TriodeReadout } from '../../store/meterRows';
 
 /** What a verdict says of the tube, and what else could give it (common practice in fault-finding). */
 const VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
@@ -9,14 +9,36 @@ const VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
   high: 'over the ±20 % spread: a strong tube, a leaky coupling capacitor lifting the grid, or Rk below its value',
 };
 
+/** A tube read from its plate resistor's drop: the resistor that can be off its value is Ra (common practice in fault-finding). */
+const PLATE_VERDICT_WORDS: Record<MeterReadout['verdict'], string> = {
+  'within-spread': VERDICT_WORDS['within-spread'],
+  low: 'under the ±20 % spread: a weak or tired tube, or Ra off its value (measure it with the power off)',
+  high: 'over the ±20 % spread: a strong tube, a leaky coupling capacitor lifting the grid, or Ra off its value (carbon plate resistors drift up with age)',
+};
+
 /** A stage's reading in words: the current, where the tube sits, against the typical tube there, and its dissipation. */
-export function meterWords(r: MeterReadout, tubeId: string, ratedWatts: number): string {
+export function meterWords(r: MeterReadout, tubeId: string, ratedWatts: number, fromPlate = false): string {
   const shift = r.gridShift === null || Math.abs(r.gridShift) < 0.05 ? '' : `; it passes what a typical one would ${plain(Math.abs(r.gridShift), 2)} V ${r.gridShift > 0 ? 'further below' : 'closer to'} the cathode`;
   return (
-    `Ia ${milliamps(r.ia)} (the cathode’s drop across Rk), at Vpk ${meterVolts(r.vpk)} and Vgk ${meterVolts(r.vgk)}: ` +
-    `${percentOf(r.ratio)} of a typical ${tubeId}’s current there, ${VERDICT_WORDS[r.verdict]}${shift}. ` +
+    `Ia ${milliamps(r.ia)} (${fromPlate ? 'the drop across Ra, supply to plate' : 'the cathode’s drop across Rk'}), at Vpk ${meterVolts(r.vpk)} and Vgk ${meterVolts(r.vgk)}: ` +
+    `${percentOf(r.ratio)} of a typical ${tubeId}’s current there, ${(fromPlate ? PLATE_VERDICT_WORDS : VERDICT_WORDS)[r.verdict]}${shift}. ` +
     `Plate dissipation ${watts(r.pa)}, ${percentOf(r.paFraction)} of its ${watts(ratedWatts)} rating.`
   );
+}
+
+/** A triode stage's reading in words, a line per tube: its tube's, or a long-tailed pair's two and whether the tail agrees with their sum. */
+export function triodeMeterLines(r: TriodeReadout, row: Pick<MeterRow, 'tubeId' | 'ratedWatts' | 'route'>): string[] {
+  if (row.route !== 'pair' || r.tail === null) return [meterWords(r.tubes[0]!, row.tubeId, row.ratedWatts, row.route === 'plate')];
+  const [first, second] = r.tubes;
+  const tail = r.tail;
+  const agree = tail.agrees
+    ? 'they agree'
+    : 'they should agree within 10 %: a plate or tail resistor is off its value, a grid draws current, or a lead slipped (measure the resistors with the power off)';
+  return [
+    `First triode (inverting plate): ${meterWords(first!, row.tubeId, row.ratedWatts, true)}`,
+    `Second triode: ${meterWords(second!, row.tubeId, row.ratedWatts, true)}`,
+    `The tail carries ${milliamps(tail.tailCurrent)} (the cathodes’ drop across Rk and the tail), the plates ${milliamps(tail.plateSum)} together: ${agree}.`,
+  ];
 }
 
 /** A fixed-bias tube's verdict: no cathode resistor to be off its value, and the grid was read (common practice in fault-finding). */
