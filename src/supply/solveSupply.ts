@@ -1,6 +1,7 @@
 import { fail, type Result } from '../result';
 import { checkSupply } from './checkSupply';
 import { dropLaw } from './rectifierLaw';
+import { reservoirGuess } from './reservoirGuess';
 import { shootSteadyState } from './shootSteadyState';
 import { supplyFindings } from './supplyFindings';
 import { openCircuitWinding } from './winding';
@@ -50,11 +51,14 @@ export function solveSupply(asked: SupplyDesign, options: SupplySolveOptions | n
   const measured = halfWave ? MEASURE_STEPS : MEASURE_STEPS / 2;
   const totalLoad = d.loads.reduce((a, b) => a + b, 0);
 
-  // A first guess at the steady state: the peak less the rectifier's drop at the pulses' current and each section's IR drop.
+  // A first guess at the steady state: the peak less the rectifier's drop at the pulses' current (behind a reservoir,
+  // less what the winding's resistance takes at the load: reservoirGuess) and each section's IR drop.
   const guess = new Float64Array(st.stateSize);
+  const diodeDrop = law.drop(Math.max(totalLoad, 1e-6) * 3);
+  const top = choke ? peak - diodeDrop : reservoirGuess(peak, diodeDrop, d.windingOhms, totalLoad, halfWave ? 1 : 2);
   let drop = 0;
   for (let k = 0; k < n; k++) {
-    guess[k] = Math.max(peak - law.drop(Math.max(totalLoad, 1e-6) * 3) - drop, 0);
+    guess[k] = Math.max(top - drop, 0);
     const downstream = d.loads.slice(k + 1).reduce((a, b) => a + b, 0);
     const sec = d.sections[k];
     if (sec) drop += downstream * (sec.kind === 'rc' ? sec.r : sec.rdc);
