@@ -49,6 +49,11 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     // The demo is three stages: the whole amplifier is drawn across the page under the title (the band left of where the bench
     // stage's drawing alone had stood at the right is inked), before the chart.
     expect(await inkShare(page, card, { x: 60, y: 200, width: 640, height: 240 })).toBeGreaterThan(0.02);
+    // The amplifier as a netlist for ngspice (run by ngspice in tests/spice/amplifierNetlist.spice.test.ts).
+    const netlist = (await downloadOf(page, 'Netlist for ngspice (.cir)')).toString('utf8');
+    expect(netlist).toMatch(/^\* .+: a netlist for ngspice\n/);
+    expect(netlist).toMatch(/^\* stage 3 \(single-ended-output\)/m);
+    expect(netlist).toMatch(/\n\.control\nop\n[\s\S]*\n\.endc\n\.end$/);
     await page.close();
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { amplifierAtLevel, findOutputTube, findTube, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
+import { chainNetlist, nodes } from '../../src/netlist/chainNetlist';
 import { LINE_AMPLIFIER } from './lineAmplifier';
 import { fourierTable, ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist } from './chainNetlist';
+import { chainNetlist } from '../../src/netlist/chainNetlist';
 import { LINE_AMPLIFIER } from './lineAmplifier';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { withTubeNoise } from './tubeNoise';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { amplifierAtLevel, findOutputTube, findTube, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist } from './chainNetlist';
+import { chainNetlist } from '../../src/netlist/chainNetlist';
 import { fourierTable, ngspiceGate, runNgspiceFull } from './ngspice';
 
 // Outside reference: ngspice on the whole amplifier with every grid drawing current by the model's law

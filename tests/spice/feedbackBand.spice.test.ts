@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, globalFeedback, solveChain, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
+import { chainNetlist, nodes } from '../../src/netlist/chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';
 import { withTubeNoise } from './tubeNoise';

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { findOutputTube, findTube, globalFeedback, type ChainInput } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
+import { chainNetlist, nodes } from '../../src/netlist/chainNetlist';
 import { fourierTable, ngspiceGate, runNgspice, runNgspiceFull } from './ngspice';
 
 // Outside reference: ngspice (Debian's package) on whole amplifiers built from the same input the model takes

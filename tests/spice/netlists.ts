@@ -9,30 +9,8 @@ import type { KorenTriodeParams } from '../../src/index';
  */
 const g = (x: number) => x.toPrecision(12);
 
-export interface SpiceCaps {
-  readonly cgk: number;
-  readonly cgp: number;
-  readonly cpk: number;
-}
-
-/** The grid-current law (src/tube/gridCurrent.ts) as a B-source: onset, cathode kT/e and the tube's Rgrid. */
-export interface SpiceGridCurrent {
-  readonly onset: number;
-  readonly vt: number;
-  readonly rgrid: number;
-}
-
-export function triodeSubckt(name: string, p: KorenTriodeParams, caps?: SpiceCaps, grid?: SpiceGridCurrent): string {
-  return [
-    `.subckt ${name} plate grid cathode`,
-    `.param mu=${g(p.mu)} ex=${g(p.ex)} kg1=${g(p.kg1)} kp=${g(p.kp)} kvb=${g(p.kvb)}`,
-    `.func e1(vp,vg) = (vp/kp)*ln(1+exp(kp*(1/mu + vg/sqrt(kvb + vp*vp))))`,
-    `B1 plate cathode I = (1 + sgn(e1(v(plate,cathode),v(grid,cathode)))) * pwr(e1(v(plate,cathode),v(grid,cathode)),ex)/kg1`,
-    ...(grid ? [`BG grid cathode I = pwr(${g(grid.vt)}*ln(1+exp((v(grid,cathode)-(${g(grid.onset)}))/${g(grid.vt)})),1.5)/${g(grid.rgrid)}`] : []),
-    ...(caps ? [`CGK grid cathode ${g(caps.cgk)}`, `CGP grid plate ${g(caps.cgp)}`, `CPK plate cathode ${g(caps.cpk)}`] : []),
-    `.ends ${name}`,
-  ].join('\n');
-}
+export { triodeSubckt, type SpiceCaps, type SpiceGridCurrent } from '../../src/netlist/tubeSubckts';
+import { triodeSubckt, type SpiceCaps, type SpiceGridCurrent } from '../../src/netlist/tubeSubckts';
 
 export interface SpiceStage {
   readonly params: KorenTriodeParams;

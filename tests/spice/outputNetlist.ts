@@ -1,5 +1,7 @@
 import type { OutputDesign, OutputTube } from '../../src/index';
-import { triodeSubckt } from './netlists';
+import { pentodeSubckt, triodeSubckt } from '../../src/netlist/tubeSubckts';
+
+export { pentodeSubckt };
 
 /**
  * A transformer-coupled single-ended stage for ngspice: Koren's pentode law
@@ -14,17 +16,6 @@ import { triodeSubckt } from './netlists';
 const g = (x: number) => x.toPrecision(12);
 const L_PRIMARY = 100;
 const K = 0.999999;
-
-export function pentodeSubckt(p: { mu: number; ex: number; kg1: number; kg2: number; kp: number; kvb: number }): string {
-  return [
-    '.subckt pent plate screen grid cathode',
-    `.param mu=${g(p.mu)} ex=${g(p.ex)} kg1=${g(p.kg1)} kg2=${g(p.kg2)} kp=${g(p.kp)} kvb=${g(p.kvb)}`,
-    '.func e1(vs,vg) = (vs/kp)*ln(1+exp(kp*(1/mu + vg/vs)))',
-    'B1 plate cathode I = (1 + sgn(e1(v(screen,cathode),v(grid,cathode)))) * pwr(e1(v(screen,cathode),v(grid,cathode)),ex)/kg1 * atan(v(plate,cathode)/kvb)',
-    'B2 screen cathode I = 0.5*(1 + sgn(v(grid,cathode) + v(screen,cathode)/mu)) * pwr(v(grid,cathode) + v(screen,cathode)/mu, ex)/kg2',
-    '.ends pent',
-  ].join('\n');
-}
 
 /** A settling run: its length, the cathode bypass, and the primary's inductance where not the 100 H (H). */
 export interface Settle {

@@ -1,7 +1,7 @@
 import { describe, it } from 'vitest';
 import { solveChain } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist, nodes } from './chainNetlist';
+import { chainNetlist, nodes } from '../../src/netlist/chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { pushPullAmplifiers } from './pushPullAmplifiers';
 

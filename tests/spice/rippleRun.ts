@@ -1,5 +1,5 @@
 import type { ChainInput } from '../../src/index';
-import { chainNetlist, nodes } from './chainNetlist';
+import { chainNetlist, nodes } from '../../src/netlist/chainNetlist';
 import { runNgspice } from './ngspice';
 
 /** The hum checks' ripple frequency, Hz: full wave on 50 Hz mains. */

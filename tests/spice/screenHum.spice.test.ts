@@ -6,7 +6,7 @@ import { CATHODE_BYPASS_CORNER_HZ } from '../../src/output/outputParts';
 import { designOf } from '../../src/chain/singleEndedKind';
 import type { SingleEndedLink } from '../../src/chain/chainTypes';
 import { expectClose } from '../helpers/expectClose';
-import { nodes } from './chainNetlist';
+import { nodes } from '../../src/netlist/chainNetlist';
 import { ngspiceGate } from './ngspice';
 import { rippleRun } from './rippleRun';
 

@@ -3,7 +3,7 @@ import { findOutputTube, findTube, solveOnSupply, supplyLowEnd, type AmplifierOn
 import { ladderOf } from '../../src/chain/supplyLowEnd';
 import { placedOnSupply } from '../../src/chain/solveOnSupply';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist } from './chainNetlist';
+import { chainNetlist } from '../../src/netlist/chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';
 import { DEMO_DESIGN } from '../../app/store/demoDesign';

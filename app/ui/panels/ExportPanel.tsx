@@ -2,10 +2,11 @@ import { useId, useState } from 'react';
 import { buildCardPng } from '../../export/buildCard';
 import { chartCaption } from '../../export/chartCaption';
 import { chartPng, svgDocument } from '../../export/chartImage';
+import { amplifierNetlistOf } from '../../export/amplifierNetlistFile';
 import { download, fileStem } from '../../export/download';
 import { useWorkbenchStore } from '../../store/StoreProvider';
 
-/** Export for bench notes: the chart as PNG (1×, 2×, 3×) or SVG, and the whole build card as a PNG. */
+/** Export for bench notes: the chart as PNG (1×, 2×, 3×) or SVG, the whole build card as a PNG, and the amplifier as a netlist for a circuit simulator. */
 export function ExportPanel() {
   const store = useWorkbenchStore();
   const [note, setNote] = useState<string | null>(null);
@@ -36,7 +37,20 @@ export function ExportPanel() {
         ))}
         <button type="button" onClick={() => void run('Chart SVG', async () => ({ blob: new Blob([svgDocument(chart()!, chartCaption(store.getState())).text], { type: 'image/svg+xml' }), name: `${stem()}-chart.svg` }))}>Chart SVG</button>
         <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg'), new Date(), wholeAmplifier()), name: `${stem()}-build-card.png` }))}>Build card (PNG, A4)</button>
+        <button
+          type="button"
+          onClick={() =>
+            void run('Netlist', async () => {
+              const net = amplifierNetlistOf(store.getState());
+              if (!net.ok) throw new Error(net.message);
+              return { blob: new Blob([net.text], { type: 'text/plain' }), name: `${stem()}.cir` };
+            })
+          }
+        >
+          Netlist for ngspice (.cir)
+        </button>
       </div>
+      <p className="field-hint">The netlist is the amplifier as the strip above shows it, tubes by Koren’s laws, to run in the ngspice circuit simulator: operating point, response and a transient at the working level.</p>
       {note ? <p className="keep-ok" role="status">{note}</p> : null}
     </section>
   );

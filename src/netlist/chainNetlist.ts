@@ -1,9 +1,8 @@
-import type { ChainInput, ChainStage } from '../../src/index';
-import type { SupplyLadder } from '../../src/chain/chainResponse';
-import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, POWER_GRID_RESISTANCE, recordOf } from '../../src/index';
-import { pentodeSubckt } from './outputNetlist';
-import { triodeSubckt } from './netlists';
-import { modelOf } from '../../src/tube/types';
+import type { ChainInput, ChainStage } from '../chain/chainTypes';
+import type { SupplyLadder } from '../chain/chainResponse';
+import { pentodeSubckt, triodeSubckt } from './tubeSubckts';
+import { modelOf, recordOf } from '../tube/types';
+import { CATHODE_THERMAL_VOLTS, GRID_CURRENT_ONSET, POWER_GRID_RESISTANCE } from '../tube/gridCurrent';
 
 /**
  * A whole amplifier for ngspice, stage by stage from the same ChainInput the
@@ -51,7 +50,27 @@ function windingOf(s: { readonly primaryInductance?: number | null; readonly lea
  * Inside the clean limit only: past it a grid in grid current would also charge its coupling capacitor over the run
  * (10 µF through its leak), a shift of bias the model does not follow.
  */
-export type ChainAnalysis = { readonly kind: 'op-ac' } | { readonly kind: 'sweep' } | { readonly kind: 'noise' } | { readonly kind: 'kick'; readonly seconds: number } | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } };
+export type ChainAnalysis =
+  | { readonly kind: 'op-ac' }
+  | { readonly kind: 'sweep' }
+  | { readonly kind: 'noise' }
+  | { readonly kind: 'kick'; readonly seconds: number }
+  | { readonly kind: 'tran'; readonly peak: number; readonly settle?: { readonly ms: number; readonly lp: number } }
+  | BenchAnalysis;
+
+/**
+ * 'bench': the netlist a builder takes to a simulator, every capacitor as
+ * designed (1 mF where one is left ideal, which keeps a transient's time
+ * step), the source a 1 kHz sine of `peak` volts that is also the AC sweep's
+ * unit source, and a control block that ngspice runs, in batch or when the
+ * file is sourced: the operating point (every node printed), the response
+ * from 1 Hz to 1 MHz (printed in dB and degrees), and a 40 ms transient
+ * whose last cycle `fourier` reads for the output's harmonics.
+ */
+export interface BenchAnalysis {
+  readonly kind: 'bench';
+  readonly peak: number;
+}
 
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
 /** The operating point's other electrodes a meter reads: a capacitor-coupled grid (on its leak) and a single-ended output's screen (its tap, or its own supply). */
@@ -221,9 +240,10 @@ function ladderLines(lines: string[], stages: number, n: NetlistLadder): string[
 }
 
 export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: NetlistLadder): string {
-  const large = analysis.kind === 'tran' ? 1e-3 : 1;
+  const large = analysis.kind === 'tran' || analysis.kind === 'bench' ? 1e-3 : 1;
   // 'kick': a 20 ms, 50 mV pulse at the input 0.2 s in, every capacitor as given, to watch what the circuit does after it.
-  const source = analysis.kind === 'tran' ? `DC 0 SIN(0 ${g(analysis.peak)} 1000)` : analysis.kind === 'kick' ? 'DC 0 PULSE(0 0.05 0.2 1m 1m 20m 1000)' : 'DC 0 AC 1';
+  const source =
+    analysis.kind === 'tran' ? `DC 0 SIN(0 ${g(analysis.peak)} 1000)` : analysis.kind === 'bench' ? `DC 0 AC 1 SIN(0 ${g(analysis.peak)} 1000)` : analysis.kind === 'kick' ? 'DC 0 PULSE(0 0.05 0.2 1m 1m 20m 1000)' : 'DC 0 AC 1';
   const lines = ['* amplifier chain', `VS src 0 ${source}`, `RS src a ${g(Math.max(c.source.rsource, 1e-3))}`];
   let input = 'a';
   let input2: string | null = null;
@@ -235,9 +255,13 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
   });
   // The load's own coupling capacitor in the sweeps (an ideal one when none is given). The transient checks midband
   // levels: a 10 µF output capacitor there holds its charge over the run (RL·C ≥ 0.1 s); more collapses the time step.
-  if (c.load) lines.push(`CO ${input} lo ${analysis.kind === 'tran' ? '10u' : c.load.cc !== undefined ? g(c.load.cc) : '1'}`, `RL lo 0 ${g(c.load.rl)}`);
+  if (c.load && Number.isFinite(c.load.rl)) lines.push(`CO ${input} lo ${analysis.kind === 'tran' ? '10u' : c.load.cc !== undefined ? g(c.load.cc) : g(large)}`, `RL lo 0 ${g(c.load.rl)}`);
   // The output is read across the load (across the last stage's own output with none).
-  lines.push(`EOUT ${nodes.output} 0 ${c.load ? 'lo' : input} 0 1`);
+  lines.push(`EOUT ${nodes.output} 0 ${c.load && Number.isFinite(c.load.rl) ? 'lo' : input} 0 1`);
+  if (analysis.kind === 'bench') {
+    const circuit = ladder ? ladderLines(lines, c.stages.length, ladder) : lines;
+    return [...circuit, '.control', 'op', 'print all', 'ac dec 20 1 1meg', 'print vdb(out) vp(out)', 'tran 20u 40m 0 2u', 'fourier 1k v(out)', '.endc', '.end'].join('\n');
+  }
   const control =
     analysis.kind === 'op-ac'
       ? ['op', `print ${c.stages.map((st, i) => `v(${nodes.plate(i)}) v(${nodes.cathode(i)}) i(${nodes.supply(i)})${opExtras(st, i)}`).join(' ')}`, 'ac lin 1 1000 1000', 'print vr(out) vi(out)']

@@ -1,0 +1,67 @@
+import { checkNumber } from '../stage/checkInput';
+import { fail, type Result } from '../result';
+import { solveAmplifier } from '../chain/solveAmplifier';
+import type { ChainInput } from '../chain/chainTypes';
+import { chainNetlist, nodes } from './chainNetlist';
+
+/** What the netlist is for: its title, the sine its transient is driven with, and any global feedback. */
+export interface NetlistOptions {
+  /** The design's name, for the netlist's first line. */
+  readonly title: string;
+  /** The source's peak for the transient, V (say, the input a working level asks for). */
+  readonly inputPeak: number;
+  /** A resistor from the speaker to the first stage's cathode (and a capacitor across it), Ω and F; null or absent for none. */
+  readonly feedback?: { readonly rf: number; readonly cf: number | null } | null;
+}
+
+const volts = (x: number) => `${x.toPrecision(4)} V`;
+const hz = (x: number | null) => (x === null ? 'none' : `${x.toPrecision(3)} Hz`);
+
+/**
+ * The amplifier as a netlist for ngspice, to take the design further in a
+ * general-purpose simulator: every stage with its tube by Koren's laws as
+ * behavioural sources (with grid current and the interelectrode
+ * capacitances), every part as designed, each stage's B+ as a DC source,
+ * an output transformer as coupled inductors, and ngspice's control block
+ * for the analyses (operating point, AC response, a transient at
+ * `inputPeak` with a Fourier analysis of the output). The model's own figures head it as
+ * comments, to compare. With feedback, the secondary is wound the way that
+ * makes it negative: in phase with the input at the first cathode.
+ */
+export function amplifierNetlist(input: ChainInput, options: NetlistOptions): Result<{ readonly text: string }> {
+  if (typeof options !== 'object' || options === null) return fail('invalid-input', 'Give the netlist its title and input level');
+  const title = typeof options.title === 'string' ? options.title.replace(/[\r\n]+/g, ' ').trim() : '';
+  const problem = checkNumber('inputPeak', 'The input peak', options.inputPeak, 'V', 0, 1000);
+  if (problem) return problem;
+  const fb = options.feedback ?? null;
+  if (fb !== null) {
+    const fbProblem =
+      (typeof fb !== 'object' ? fail('invalid-input', 'Give the feedback as { rf, cf }', 'feedback') : null) ??
+      checkNumber('feedback.rf', 'Feedback Rf', fb.rf, 'Ω', 1, 1e9) ??
+      (fb.cf === null ? null : checkNumber('feedback.cf', 'Feedback Cf', fb.cf, 'F', 1e-15, 1));
+    if (fbProblem) return fbProblem;
+  }
+  const solved = solveAmplifier(input);
+  if (!solved.ok) return solved;
+  const last = input.stages[input.stages.length - 1]!;
+  const toSpeaker = last.kind === 'single-ended-output' || last.kind === 'push-pull-output';
+  if (fb !== null && !toSpeaker) return fail('invalid-input', 'Global feedback runs from the speaker: the amplifier must end in an output stage', 'feedback');
+  let text = chainNetlist(input, { kind: 'bench', peak: options.inputPeak });
+  if (fb !== null) {
+    // The secondary as drawn (its first node dotted like the primary's B+ end) carries the plate's swing inverted: a chain
+    // whose model output (plate-phased) is in phase with the input needs it turned round for the feedback to be negative.
+    if (!solved.inverting) text = text.replace(/^LS sec 0 /m, 'LS 0 sec ');
+    const k0 = nodes.cathode(0);
+    text = text.replace(/^RSPK sec 0 (\S+)$/m, `RSPK sec 0 $1\nRF sec ${k0} ${fb.rf.toPrecision(12)}${fb.cf !== null ? `\nCF sec ${k0} ${fb.cf.toPrecision(12)}` : ''}`);
+  }
+  const model = solved.stages.map((st, i) => `* stage ${i + 1} (${st.kind}): plate ${volts(st.pins.plate)}, cathode ${volts(st.pins.cathode)}, grid ${volts(st.pins.grid)}${st.pins.screen !== null ? `, screen ${volts(st.pins.screen)}` : ''}${st.pins.plate2 !== null ? `, second plate ${volts(st.pins.plate2)}` : ''}`);
+  const header = [
+    `* ${title || 'Amplifier'}: a netlist for ngspice`,
+    '* Units SI. Tubes by Koren\'s laws as behavioural sources; each stage\'s B+ a DC source (node bp<n>); the input at node src, the output at node out.',
+    `* The model's own figures${fb !== null ? ' (without the feedback)' : ''}, to compare with the operating point and the sweep:`,
+    ...model,
+    `* midband gain ${solved.gain.toPrecision(4)}, -3 dB at ${hz(solved.lowHz)} and ${hz(solved.highHz)}`,
+  ];
+  // The chain's own first line names it for the checks; the header takes its place.
+  return { ok: true, text: [...header, ...text.split('\n').slice(1)].join('\n') };
+}

@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+import { amplifierNetlistOf } from '../../../app/export/amplifierNetlistFile';
+import { createWorkbenchStore } from '../../../app/store/workbenchStore';
+
+// What the netlist does in a simulator is held against ngspice in tests/spice/amplifierNetlist.spice.test.ts; here, that
+// the export takes the amplifier the strip shows, its working level and the design's feedback.
+describe('the amplifier netlist the export panel writes', () => {
+  it('is the chain strip\u2019s amplifier, driven at its working level, with the design\u2019s feedback while the stages drive the output', () => {
+    const store = createWorkbenchStore();
+    const s = store.getState();
+    const net = amplifierNetlistOf(s);
+    if (!net.ok) throw new Error(net.message);
+    expect(net.text.split('\n')[0]).toBe(`* ${s.title}: a netlist for ngspice`);
+    // The demo's three stages: two gain stages and the EL34 (Koren's pentode).
+    expect(net.text).toMatch(/^\* stage 3 \(single-ended-output\)/m);
+    expect(net.text).toMatch(/^X2 p2 tap g2 k2 pent$/m);
+    const peak = s.amplifier!.atLevel!.ok ? s.amplifier!.atLevel!.inputPeak : NaN;
+    expect(net.text).toContain(`SIN(0 ${peak.toPrecision(12)} 1000)`);
+    expect(net.text).not.toMatch(/^RF /m);
+    store.getState().editField('feedbackRf', '47k');
+    store.getState().settleAnalysis();
+    const fed = amplifierNetlistOf(store.getState());
+    expect(fed.ok && fed.text).toMatch(/^RF sec k0 47000\.0+$/m);
+    // The voltage stages apart from the output stage: they alone, and no loop from a speaker.
+    store.getState().setDrivesOutput(false);
+    store.getState().settleAnalysis();
+    const apart = amplifierNetlistOf(store.getState());
+    if (!apart.ok) throw new Error(apart.message);
+    expect(apart.text).not.toMatch(/pent|^RF /m);
+    expect(apart.text).toMatch(/^\* stage 2 \(common-cathode\)/m);
+  });
+});
