@@ -2,6 +2,7 @@ import { checkNumber } from '../stage/checkInput';
 import { fail, type Result } from '../result';
 import { solveAmplifier } from '../chain/solveAmplifier';
 import type { ChainInput } from '../chain/chainTypes';
+import { globalFeedback } from '../chain/globalFeedback';
 import { chainNetlist, nodes } from './chainNetlist';
 
 /** What the netlist is for: its title, the sine its transient is driven with, and any global feedback. */
@@ -43,24 +44,27 @@ export function amplifierNetlist(input: ChainInput, options: NetlistOptions): Re
   }
   const solved = solveAmplifier(input);
   if (!solved.ok) return solved;
-  const last = input.stages[input.stages.length - 1]!;
-  const toSpeaker = last.kind === 'single-ended-output' || last.kind === 'push-pull-output';
-  if (fb !== null && !toSpeaker) return fail('invalid-input', 'Global feedback runs from the speaker: the amplifier must end in an output stage', 'feedback');
+  // With feedback, the model's loop: Rf's DC path joins the first cathode's resistor, so its open loop is the circuit's operating point.
+  const loop = fb === null ? null : globalFeedback(input, fb.rf, undefined, fb.cf);
+  if (loop && !loop.ok) return { ...loop, field: loop.field === 'rf' ? 'feedback.rf' : loop.field === 'cf' ? 'feedback.cf' : 'feedback' };
+  const figures = loop?.ok ? loop.open : solved;
   let text = chainNetlist(input, { kind: 'bench', peak: options.inputPeak });
   if (fb !== null) {
     // The secondary as drawn (its first node dotted like the primary's B+ end) carries the plate's swing inverted: a chain
     // whose model output (plate-phased) is in phase with the input needs it turned round for the feedback to be negative.
-    if (!solved.inverting) text = text.replace(/^LS sec 0 /m, 'LS 0 sec ');
+    if (!figures.inverting) text = text.replace(/^LS sec 0 /m, 'LS 0 sec ');
     const k0 = nodes.cathode(0);
     text = text.replace(/^RSPK sec 0 (\S+)$/m, `RSPK sec 0 $1\nRF sec ${k0} ${fb.rf.toPrecision(12)}${fb.cf !== null ? `\nCF sec ${k0} ${fb.cf.toPrecision(12)}` : ''}`);
   }
-  const model = solved.stages.map((st, i) => `* stage ${i + 1} (${st.kind}): plate ${volts(st.pins.plate)}, cathode ${volts(st.pins.cathode)}, grid ${volts(st.pins.grid)}${st.pins.screen !== null ? `, screen ${volts(st.pins.screen)}` : ''}${st.pins.plate2 !== null ? `, second plate ${volts(st.pins.plate2)}` : ''}`);
+  const model = figures.stages.map((st, i) => `* stage ${i + 1} (${st.kind}): plate ${volts(st.pins.plate)}, cathode ${volts(st.pins.cathode)}, grid ${volts(st.pins.grid)}${st.pins.screen !== null ? `, screen ${volts(st.pins.screen)}` : ''}${st.pins.plate2 !== null ? `, second plate ${volts(st.pins.plate2)}` : ''}`);
   const header = [
     `* ${title || 'Amplifier'}: a netlist for ngspice`,
     '* Units SI. Tubes by Koren\'s laws as behavioural sources; each stage\'s B+ a DC source (node bp<n>); the input at node src, the output at node out.',
-    `* The model's own figures${fb !== null ? ' (without the feedback)' : ''}, to compare with the operating point and the sweep:`,
+    "* The model's own figures, to compare with the operating point and the sweep:",
     ...model,
-    `* midband gain ${solved.gain.toPrecision(4)}, -3 dB at ${hz(solved.lowHz)} and ${hz(solved.highHz)}`,
+    loop?.ok
+      ? `* with Rf's DC path in the first cathode, loop open: midband gain ${figures.gain.toPrecision(4)}; closed: ${loop.closedGain.toPrecision(4)} (${loop.feedbackDb.toFixed(1)} dB of feedback)`
+      : `* midband gain ${figures.gain.toPrecision(4)}, -3 dB at ${hz(figures.lowHz)} and ${hz(figures.highHz)}`,
   ];
   // The chain's own first line names it for the checks; the header takes its place.
   return { ok: true, text: [...header, ...text.split('\n').slice(1)].join('\n') };

@@ -22,6 +22,8 @@ describe('amplifierNetlist: what it writes, and what it refuses', () => {
     expect(lines).toContain('RA0 bp0 p0 56000.0000000');
     expect(lines).toContain('VS src 0 DC 0 AC 1 SIN(0 0.100000000000 1000)');
     expect(lines).toContain('CF sec k0 1.00000000000e-10');
+    // With feedback, the model's figures are its open loop's (Rf's DC path in the first cathode) and its closed-loop gain.
+    expect(r.text).toMatch(/^\* with Rf's DC path in the first cathode, loop open: midband gain -?[\d.]+; closed: [\d.]+ \([\d.]+ dB of feedback\)$/m);
     expect(lines.slice(-9)).toEqual(['.control', 'op', 'print all', 'ac dec 20 1 1meg', 'print vdb(out) vp(out)', 'tran 20u 40m 0 2u', 'fourier 1k v(out)', '.endc', '.end']);
     expect(r.text).not.toMatch(/NaN|Infinity|undefined/);
   });
@@ -31,5 +33,8 @@ describe('amplifierNetlist: what it writes, and what it refuses', () => {
     expect(amplifierNetlist(chain, { title: 't', inputPeak: 0.1, feedback: { rf: 0, cf: null } })).toMatchObject({ ok: false, field: 'feedback.rf' });
     expect(amplifierNetlist({ ...chain, stages: chain.stages.slice(0, 1) }, { title: 't', inputPeak: 0.1, feedback: { rf: 1e4, cf: null } })).toMatchObject({ ok: false, field: 'feedback' });
     expect(amplifierNetlist({ ...chain, stages: [] }, { title: 't', inputPeak: 0.1 })).toMatchObject({ ok: false, field: 'stages' });
+    // A bypassed first cathode has no resistor for the feedback to return to: the model's loop refuses it, and so does the netlist.
+    const bypassed = { ...chain, stages: [{ ...chain.stages[0]!, bypassed: true, ck: 100e-6 } as ChainInput['stages'][number], chain.stages[1]!] };
+    expect(amplifierNetlist(bypassed, { title: 't', inputPeak: 0.1, feedback: { rf: 1e4, cf: null } })).toMatchObject({ ok: false, field: 'feedback' });
   });
 });
