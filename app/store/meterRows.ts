@@ -1,4 +1,4 @@
-import { findOutputTube, readMeter, readOutputMeter, readPairMeter, readPlateMeter, SENSE_OHMS, type Finding, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
+import { findOutputTube, readMeter, readOutputMeter, readPairMeter, readPlateMeter, SENSE_OHMS, type ChainStage, type Finding, type MeterReadout, type OutputMeterReadout, type Result } from '../../src/index';
 import { idleVoltagesOf } from './idleVoltages';
 import type { MeterPlan, OutputMeterBoxes, OutputMeterPlan, TriodeBox } from './meterPlan';
 import { outputPartsOf } from './outputParts';
@@ -35,6 +35,12 @@ export interface MeterRow {
   readonly expected: Readonly<Record<TriodeBox, number>>;
   readonly reading: MeterPlan | null;
   readonly readout: Result<TriodeReadout> | null;
+  /**
+   * A direct-coupled grid sits where the stage before's output reads: the
+   * place of the stage whose reading gave it (its plate, or a follower's
+   * cathode), and that voltage; null where the grid is taken as designed.
+   */
+  readonly gridRead: { readonly stage: number; readonly pin: 'plate' | 'cathode'; readonly volts: number } | null;
 }
 
 /** None, as one value: a selector answering a fresh [] each call would redraw its panel on every store change. */
@@ -47,6 +53,20 @@ const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings'
 
 /** One tube's readout as a stage's. */
 const single = (r: Result<MeterReadout>): Result<TriodeReadout> => (r.ok ? { ok: true, tubes: [r], tail: null } : r);
+
+/**
+ * Where a stage's output reads, for the direct-coupled grid after it: a gain
+ * stage's plate, a follower's cathode, as read on the tube it now holds
+ * (`place`, 1-based); null where it was not read.
+ */
+function outputRead(before: ChainStage, place: number, readings: WorkbenchState['design']['readings']): MeterRow['gridRead'] {
+  const tube = before.tube;
+  const r = tube.kind === 'tube' ? readings?.find((x) => x.stage === place && x.tubeId === tube.id) : undefined;
+  if (!r) return null;
+  if (before.kind === 'common-cathode') return { stage: place, pin: 'plate', volts: r.plate };
+  if (before.kind === 'follower') return { stage: place, pin: 'cathode', volts: r.cathode };
+  return null;
+}
 
 /**
  * The amplifier's gain stages, cathode followers, split-load splitters
@@ -72,13 +92,15 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
     const pins = result.stages[i]!.pins;
     const stage = i + 1;
     const reading = readings?.find((r) => r.stage === stage && r.tubeId === tube.id) ?? null;
+    const gridRead = st.coupling.kind === 'direct' && i > 0 ? outputRead(view.input.stages[i - 1]!, i, readings) : null;
+    const grid = gridRead?.volts ?? pins.grid;
     const read = (g: MeterPlan): Result<TriodeReadout> => {
       if (st.kind === 'long-tailed-pair') {
-        const r = readPairMeter({ tube, ra: st.ra, ra2: st.ra2 ?? st.ra, rk: st.rk, rtail: st.rtail, grid: pins.grid }, { supply: g.supply ?? 0, plate: g.plate, plate2: g.plate2 ?? 0, cathode: g.cathode });
+        const r = readPairMeter({ tube, ra: st.ra, ra2: st.ra2 ?? st.ra, rk: st.rk, rtail: st.rtail, grid }, { supply: g.supply ?? 0, plate: g.plate, plate2: g.plate2 ?? 0, cathode: g.cathode });
         return r.ok ? { ok: true, tubes: r.tubes, tail: { plateSum: r.plateSum, tailCurrent: r.tailCurrent, agrees: r.tailAgrees } } : r;
       }
-      if (route === 'plate' && st.kind === 'common-cathode') return single(readPlateMeter({ tube, ra: st.ra, grid: pins.grid }, { supply: g.supply ?? 0, plate: g.plate, cathode: 0 }));
-      return single(readMeter({ tube, rk: st.rk, grid: pins.grid }, g));
+      if (route === 'plate' && st.kind === 'common-cathode') return single(readPlateMeter({ tube, ra: st.ra, grid }, { supply: g.supply ?? 0, plate: g.plate, cathode: 0 }));
+      return single(readMeter({ tube, rk: st.rk, grid }, g));
     };
     rows.push({
       stage,
@@ -91,6 +113,7 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
       reading,
       // A reading kept from before the stage asked for its box (none for it) is read as not yet whole.
       readout: reading && BOXES[route].every((b) => reading[b] !== undefined) ? read(reading) : null,
+      gridRead,
     });
   });
   memo.set(view, { readings, rows });

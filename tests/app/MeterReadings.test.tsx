@@ -145,6 +145,40 @@ describe('your meter readings, stage by stage', () => {
     expect(store.getState().design.readings?.find((r) => r.stage === 2)).toEqual({ stage: 2, tubeId: '12AU7', supply: b.input.stages[1]!.bplus, plate: expect.closeTo(b.result.stages[1]!.pins.plate, 9), cathode: 0 });
   });
 
+  it('a direct-coupled follower\u2019s grid is taken where the plate before it reads, once that plate is read', async () => {
+    const store = createWorkbenchStore();
+    render(<App store={store} />);
+    act(() => {
+      store.getState().addStage(1, 'follower');
+      store.getState().settleAnalysis();
+    });
+    const amp = store.getState().amplifier!;
+    if (!amp.result.ok) throw new Error(amp.result.message);
+    const at = amp.input.stages.findIndex((st) => st.kind === 'follower');
+    expect(amp.input.stages[at]!.coupling.kind).toBe('direct');
+    const name = `Meter readings, ${amp.names[at]!.title} · ${amp.names[at]!.tube}`;
+    const pins = amp.result.stages[at]!.pins;
+    const before = amp.result.stages[at - 1]!.pins;
+    const follower = within(screen.getByRole('group', { name }));
+    typeInto(follower.getByLabelText(/^Plate to chassis/), String(pins.plate));
+    typeInto(follower.getByLabelText(/^Cathode to chassis/), String(pins.cathode));
+    act(() => void fireEvent.keyDown(follower.getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    // Its own designed voltages read back as the typical tube, its grid where designed (no reading before it yet).
+    const first = within(screen.getByRole('group', { name })).getByRole('status').textContent!;
+    expect(first).toMatch(/: 100 % of a typical/);
+    expect(first).not.toMatch(/direct-coupled/);
+    // The plate before it read 10 V high: the follower's grid follows it, 10 V nearer its cathode, so a typical tube would pass
+    // more there and this one reads under it.
+    const gain = within(screen.getByRole('group', { name: `Meter readings, ${amp.names[at - 1]!.title} · ${amp.names[at - 1]!.tube}` }));
+    typeInto(gain.getByLabelText(/^Plate to chassis/), String(before.plate + 10));
+    typeInto(gain.getByLabelText(/^Cathode to chassis/), String(before.cathode));
+    act(() => void fireEvent.keyDown(gain.getByLabelText(/^Cathode to chassis/), { key: 'Enter' }));
+    await waitFor(() => expect(within(screen.getByRole('group', { name })).getByRole('status').textContent).toMatch(new RegExp(`Its grid is direct-coupled: taken at [\\d.]+ V, where stage ${at}’s plate reads\\.$`)));
+    const after = within(screen.getByRole('group', { name })).getByRole('status').textContent!;
+    expect(after).toMatch(/under the ±20 % spread/);
+    expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines.some((l) => /Its grid is direct-coupled/.test(l))).toBe(true);
+  });
+
   it('a file\u2019s readings are checked field by field', () => {
     const store = createWorkbenchStore();
     const doc = JSON.parse(writeDesignFile({ title: 't', design: store.getState().design })) as { design: Record<string, unknown> };

@@ -27,8 +27,11 @@ export function meterWords(r: MeterReadout, tubeId: string, ratedWatts: number, 
 }
 
 /** A triode stage's reading in words, a line per tube: its tube's, or a long-tailed pair's two and whether the tail agrees with their sum. */
-export function triodeMeterLines(r: TriodeReadout, row: Pick<MeterRow, 'tubeId' | 'ratedWatts' | 'route'>): string[] {
-  if (row.route !== 'pair' || r.tail === null) return [meterWords(r.tubes[0]!, row.tubeId, row.ratedWatts, row.route === 'plate')];
+export function triodeMeterLines(r: TriodeReadout, row: Pick<MeterRow, 'tubeId' | 'ratedWatts' | 'route' | 'gridRead'>): string[] {
+  // A direct-coupled grid sits where the stage before's output was read, not where it was designed to.
+  const g = row.gridRead;
+  const grid = g ? [`Its grid is direct-coupled: taken at ${meterVolts(g.volts)}, where stage ${g.stage}’s ${g.pin} reads.`] : [];
+  if (row.route !== 'pair' || r.tail === null) return [meterWords(r.tubes[0]!, row.tubeId, row.ratedWatts, row.route === 'plate'), ...grid];
   const [first, second] = r.tubes;
   const tail = r.tail;
   const agree = tail.agrees
@@ -38,6 +41,7 @@ export function triodeMeterLines(r: TriodeReadout, row: Pick<MeterRow, 'tubeId' 
     `First triode (inverting plate): ${meterWords(first!, row.tubeId, row.ratedWatts, true)}`,
     `Second triode: ${meterWords(second!, row.tubeId, row.ratedWatts, true)}`,
     `The tail carries ${milliamps(tail.tailCurrent)} (the cathodes’ drop across Rk and the tail), the plates ${milliamps(tail.plateSum)} together: ${agree}.`,
+    ...grid,
   ];
 }
 
