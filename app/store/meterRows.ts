@@ -13,9 +13,10 @@ import type { WorkbenchState } from './workbenchStore';
  */
 export type MeterRoute = 'cathode' | 'plate' | 'pair';
 
-/** What the model makes of a triode stage's reading: each tube's readout (two for a pair), and a pair's tail check. */
+/** What the model makes of a triode stage's reading: each tube's readout (two for a pair), their checks, and a pair's tail check. */
 export interface TriodeReadout {
   readonly tubes: readonly MeterReadout[];
+  readonly findings: readonly Finding[];
   readonly tail: { readonly plateSum: number; readonly tailCurrent: number; readonly agrees: boolean } | null;
 }
 
@@ -52,7 +53,7 @@ const BOXES: Record<MeterRoute, readonly TriodeBox[]> = { cathode: ['plate', 'ca
 const memo = new WeakMap<object, { readings: WorkbenchState['design']['readings']; rows: readonly MeterRow[] }>();
 
 /** One tube's readout as a stage's. */
-const single = (r: Result<MeterReadout>): Result<TriodeReadout> => (r.ok ? { ok: true, tubes: [r], tail: null } : r);
+const single = (r: Result<MeterReadout>): Result<TriodeReadout> => (r.ok ? { ok: true, tubes: [r], findings: r.findings, tail: null } : r);
 
 /**
  * Where a stage's output reads, for the direct-coupled grid after it: a gain
@@ -86,9 +87,10 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
     if (st.kind !== 'common-cathode' && st.kind !== 'follower' && st.kind !== 'split-load' && st.kind !== 'long-tailed-pair') return;
     const tube = st.tube;
     if (tube.kind !== 'tube') return;
-    // A split-load splitter reads as a follower does: one cathode resistor to chassis, its grid held where designed.
-    const route: MeterRoute = st.kind === 'long-tailed-pair' ? 'pair' : st.rk > 0 ? 'cathode' : st.kind === 'common-cathode' ? 'plate' : 'cathode';
-    if (route === 'cathode' && !(st.rk > 0)) return;
+    // A split-load splitter reads as a follower does: one cathode resistor to chassis, its grid held where designed. Only a
+    // gain stage runs without one (then read from its plate resistor).
+    const route: MeterRoute | null = st.kind === 'long-tailed-pair' ? 'pair' : st.rk > 0 ? 'cathode' : st.kind === 'common-cathode' ? 'plate' : null;
+    if (route === null) return;
     const pins = result.stages[i]!.pins;
     const stage = i + 1;
     const reading = readings?.find((r) => r.stage === stage && r.tubeId === tube.id) ?? null;
@@ -97,7 +99,7 @@ export function meterRowsOf(s: WorkbenchState): readonly MeterRow[] {
     const read = (g: MeterPlan): Result<TriodeReadout> => {
       if (st.kind === 'long-tailed-pair') {
         const r = readPairMeter({ tube, ra: st.ra, ra2: st.ra2 ?? st.ra, rk: st.rk, rtail: st.rtail, grid }, { supply: g.supply ?? 0, plate: g.plate, plate2: g.plate2 ?? 0, cathode: g.cathode });
-        return r.ok ? { ok: true, tubes: r.tubes, tail: { plateSum: r.plateSum, tailCurrent: r.tailCurrent, agrees: r.tailAgrees } } : r;
+        return r.ok ? { ok: true, tubes: r.tubes, findings: r.findings, tail: { plateSum: r.plateSum, tailCurrent: r.tailCurrent, agrees: r.tailAgrees } } : r;
       }
       if (route === 'plate' && st.kind === 'common-cathode') return single(readPlateMeter({ tube, ra: st.ra, grid }, { supply: g.supply ?? 0, plate: g.plate, cathode: 0 }));
       return single(readMeter({ tube, rk: st.rk, grid }, g));
@@ -213,7 +215,8 @@ export function shownMeterRows(s: WorkbenchState, outputBench: boolean): { reado
  */
 export function meterFindings(s: WorkbenchState): { name: string; findings: readonly Finding[] }[] {
   const { triodes, outputs } = shownMeterRows(s, s.design.stageKind === 'output');
-  const triodeWorth = triodes.map((row) => ({ name: row.name, worth: row.readout?.ok ? row.readout.tubes.flatMap((t, k) => t.findings.filter((f) => f.severity !== 'note').map((f) => (row.route === 'pair' ? { ...f, message: `${k === 0 ? 'First' : 'Second'} triode: ${f.message}` } : f))) : [] }));
-  const outputWorth = outputs.map((row) => ({ name: row.name, worth: row.readout?.ok ? row.readout.findings.filter((f) => f.severity !== 'note') : [] }));
-  return [...triodeWorth, ...outputWorth].flatMap(({ name, worth }) => (worth.length > 0 ? [{ name: `${name}, as read`, findings: worth }] : []));
+  return [...triodes, ...outputs].flatMap((row) => {
+    const worth = row.readout?.ok ? row.readout.findings.filter((f) => f.severity !== 'note') : [];
+    return worth.length > 0 ? [{ name: `${row.name}, as read`, findings: worth }] : [];
+  });
 }

@@ -1,9 +1,9 @@
 import { checkNumber } from '../stage/checkInput';
 import { fail, type Result } from '../result';
 import { solveAmplifier } from '../chain/solveAmplifier';
-import type { ChainInput } from '../chain/chainTypes';
+import type { ChainInput, ChainResult } from '../chain/chainTypes';
 import { globalFeedback } from '../chain/globalFeedback';
-import { chainNetlist, nodes } from './chainNetlist';
+import { chainNetlist } from './chainNetlist';
 
 /** What the netlist is for: its title, the sine its transient is driven with, and any global feedback. */
 export interface NetlistOptions {
@@ -35,27 +35,18 @@ export function amplifierNetlist(input: ChainInput, options: NetlistOptions): Re
   const problem = checkNumber('inputPeak', 'The input peak', options.inputPeak, 'V', 0, 1000);
   if (problem) return problem;
   const fb = options.feedback ?? null;
-  if (fb !== null) {
-    const fbProblem =
-      (typeof fb !== 'object' ? fail('invalid-input', 'Give the feedback as { rf, cf }', 'feedback') : null) ??
-      checkNumber('feedback.rf', 'Feedback Rf', fb.rf, 'Ω', 1, 1e9) ??
-      (fb.cf === null ? null : checkNumber('feedback.cf', 'Feedback Cf', fb.cf, 'F', 1e-15, 1));
-    if (fbProblem) return fbProblem;
-  }
-  const solved = solveAmplifier(input);
-  if (!solved.ok) return solved;
-  // With feedback, the model's loop: Rf's DC path joins the first cathode's resistor, so its open loop is the circuit's operating point.
+  if (fb !== null && typeof fb !== 'object') return fail('invalid-input', 'Give the feedback as { rf, cf }', 'feedback');
+  // With feedback, the model's loop checks Rf, Cf and the chain's shape as the bench does; Rf's DC path joins the first
+  // cathode's resistor, so its open loop is the circuit's operating point.
   const loop = fb === null ? null : globalFeedback(input, fb.rf, undefined, fb.cf);
-  if (loop && !loop.ok) return { ...loop, field: loop.field === 'rf' ? 'feedback.rf' : loop.field === 'cf' ? 'feedback.cf' : 'feedback' };
-  const figures = loop?.ok ? loop.open : solved;
-  let text = chainNetlist(input, { kind: 'bench', peak: options.inputPeak });
-  if (fb !== null) {
-    // The secondary as drawn (its first node dotted like the primary's B+ end) carries the plate's swing inverted: a chain
-    // whose model output (plate-phased) is in phase with the input needs it turned round for the feedback to be negative.
-    if (!figures.inverting) text = text.replace(/^LS sec 0 /m, 'LS 0 sec ');
-    const k0 = nodes.cathode(0);
-    text = text.replace(/^RSPK sec 0 (\S+)$/m, `RSPK sec 0 $1\nRF sec ${k0} ${fb.rf.toPrecision(12)}${fb.cf !== null ? `\nCF sec ${k0} ${fb.cf.toPrecision(12)}` : ''}`);
-  }
+  if (loop && !loop.ok) return { ...loop, field: loop.field === 'rf' || loop.field === 'cf' ? `feedback.${loop.field}` : loop.field === 'stages' ? 'feedback' : loop.field };
+  const solved = loop?.ok ? null : solveAmplifier(input);
+  if (solved && !solved.ok) return solved;
+  const figures: ChainResult = loop?.ok ? loop.open : solved!;
+  // The secondary as drawn (its first node dotted like the primary's B+ end) carries the plate's swing inverted: a chain
+  // whose model output (plate-phased) is in phase with the input needs it turned round for the feedback to be negative.
+  const feedback = fb === null ? undefined : { rf: fb.rf, cf: fb.cf, reversed: !figures.inverting };
+  const text = chainNetlist(input, { kind: 'bench', peak: options.inputPeak, feedback });
   const model = figures.stages.map((st, i) => `* stage ${i + 1} (${st.kind}): plate ${volts(st.pins.plate)}, cathode ${volts(st.pins.cathode)}, grid ${volts(st.pins.grid)}${st.pins.screen !== null ? `, screen ${volts(st.pins.screen)}` : ''}${st.pins.plate2 !== null ? `, second plate ${volts(st.pins.plate2)}` : ''}`);
   const header = [
     `* ${title || 'Amplifier'}: a netlist for ngspice`,

@@ -70,7 +70,16 @@ export type ChainAnalysis =
 export interface BenchAnalysis {
   readonly kind: 'bench';
   readonly peak: number;
+  /**
+   * Global feedback: Rf (and Cf across it) from the speaker to the first
+   * cathode, the secondary wound `reversed` when the speaker must be turned
+   * round for the loop to be negative.
+   */
+  readonly feedback?: { readonly rf: number; readonly cf: number | null; readonly reversed: boolean };
 }
+
+/** The output transformer's secondary and the speaker across it; `reversed` swaps the secondary's ends (its dot at ground). */
+const secondaryLines = (ls: number, speakerOhms: number, reversed: boolean): string[] => [`LS ${reversed ? '0 sec' : 'sec 0'} ${g(ls)}`, `RSPK sec 0 ${g(speakerOhms)}`];
 
 /** Node names the checks read: each stage's plate, cathode and B+ source, and the output. */
 /** The operating point's other electrodes a meter reads: a capacitor-coupled grid (on its leak) and a single-ended output's screen (its tap, or its own supply). */
@@ -82,7 +91,7 @@ function opExtras(s: ChainStage, i: number): string {
 
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
 
-function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle?: { readonly lp: number }): { lines: string[]; output: string; output2?: string } {
+function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle: { readonly lp: number } | undefined, reversed: boolean): { lines: string[]; output: string; output2?: string } {
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
   // A grid stopper (a gain stage's, a follower's, a splitter's first grid's): the coupling (or the output before, direct) ends at its
@@ -101,7 +110,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
     if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b gb${i} ${g(s.coupling.rg)}`);
   }
-  if (s.kind === 'push-pull-output') return { lines: [...lines, ...pushPullLines(s, i, gnode, `${gnode}b`, large)], output: 'sec' };
+  if (s.kind === 'push-pull-output') return { lines: [...lines, ...pushPullLines(s, i, gnode, `${gnode}b`, large, reversed)], output: 'sec' };
   if (s.kind === 'single-ended-output') {
     const t = s.tube;
     const n2 = s.zPrimary / s.speakerOhms;
@@ -115,7 +124,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     } else {
       lines.push(`LP bp${i} bottom ${g(lp)}`, `KPS LP LS ${g(kw)}`);
     }
-    lines.push(`LS sec 0 ${g(lp / n2)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
+    lines.push(...secondaryLines(lp / n2, s.speakerOhms, reversed));
     lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(settle ? 10 : midband ? large : (s.ck ?? large))}` : `VK${i} ${k} 0 DC 0`);
     const rgrid = t.law.kind === 'triode' ? t.law.tube.model.gridResistance : POWER_GRID_RESISTANCE;
     lines.push(`BG${i} ${gnode} ${k} I = pwr(max(v(${gnode},${k}),0),1.5)/${g(rgrid)}`);
@@ -170,7 +179,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
  * bypassed (by a large capacitor) or fixed bias. Node names: the first
  * plate and the cathode are the stage's own; the second plate ends in b.
  */
-function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: number, grid1: string, grid2: string, large: number): string[] {
+function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: number, grid1: string, grid2: string, large: number, reversed: boolean): string[] {
   const t = s.tube;
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
@@ -189,7 +198,7 @@ function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: 
     lines.push(`LH1 end1 bp${i} ${g(quarter)}`, `LH2 bp${i} end2 ${g(quarter)}`);
     segments.push('LH1', 'LH2');
   }
-  lines.push(`LS sec 0 ${g((lp * s.speakerOhms) / s.raa)}`, `RSPK sec 0 ${g(s.speakerOhms)}`);
+  lines.push(...secondaryLines((lp * s.speakerOhms) / s.raa, s.speakerOhms, reversed));
   const all = [...segments, 'LS'];
   all.forEach((a, j) => all.slice(j + 1).forEach((b) => lines.push(`K${a}${b} ${a} ${b} ${g(b === 'LS' ? kw : K)}`)));
   lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(large)}` : `VK${i} ${k} 0 DC 0`);
@@ -248,7 +257,8 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
   let input = 'a';
   let input2: string | null = null;
   c.stages.forEach((s, i) => {
-    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2, analysis.kind === 'tran' ? analysis.settle : undefined);
+    const reversed = analysis.kind === 'bench' && analysis.feedback?.reversed === true;
+    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2, analysis.kind === 'tran' ? analysis.settle : undefined, reversed);
     lines.push(...st.lines);
     input = st.output;
     input2 = st.output2 ?? null;
@@ -259,6 +269,8 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
   // The output is read across the load (across the last stage's own output with none).
   lines.push(`EOUT ${nodes.output} 0 ${c.load && Number.isFinite(c.load.rl) ? 'lo' : input} 0 1`);
   if (analysis.kind === 'bench') {
+    const fb = analysis.feedback;
+    if (fb) lines.push(`RF sec ${nodes.cathode(0)} ${g(fb.rf)}`, ...(fb.cf !== null ? [`CF sec ${nodes.cathode(0)} ${g(fb.cf)}`] : []));
     const circuit = ladder ? ladderLines(lines, c.stages.length, ladder) : lines;
     return [...circuit, '.control', 'op', 'print all', 'ac dec 20 1 1meg', 'print vdb(out) vp(out)', 'tran 20u 40m 0 2u', 'fourier 1k v(out)', '.endc', '.end'].join('\n');
   }

@@ -244,6 +244,10 @@ function cleanSwing(p: Parameters<typeof korenPlateCurrent>[0], ops: readonly [O
  */
 export function bothTriodesFindings([first, second]: readonly [readonly Finding[], readonly Finding[]]): Finding[] {
   const said = (f: Finding, by: readonly Finding[]) => by.some((g) => g.message === f.message);
-  const named = (f: Finding, who: string): Finding => ({ ...f, message: `${who} triode: ${f.message.charAt(0).toLowerCase()}${f.message.slice(1)}` });
-  return [...first.map((f) => (said(f, second) ? f : named(f, 'First'))), ...second.filter((f) => !said(f, first)).map((f) => named(f, 'Second'))];
+  return [...first.map((f) => (said(f, second) ? f : byTriode(f, 'First'))), ...second.filter((f) => !said(f, first)).map((f) => byTriode(f, 'Second'))];
+}
+
+/** A finding named by the triode of a pair it belongs to ("Second triode: plate dissipation …"). */
+export function byTriode(f: Finding, which: 'First' | 'Second'): Finding {
+  return { ...f, message: `${which} triode: ${f.message.charAt(0).toLowerCase()}${f.message.slice(1)}` };
 }

@@ -3,6 +3,8 @@ import { checkNumber, LIMITS } from '../stage/checkInput';
 import { checkReadTube, type MeterReadout } from '../stage/meterReading';
 import { plateSideReadout } from '../stage/plateMeterReading';
 import type { TubeRecord } from '../tube/types';
+import type { Finding } from '../stage/findings';
+import { byTriode } from './longTailedPair';
 
 /** What a meter read on a long-tailed pair at idle, V to chassis: the supply at the plate resistors' top, each plate, and the joined cathodes. */
 export interface PairMeterReading {
@@ -30,6 +32,8 @@ export interface PairMeterReadout {
   readonly tailCurrent: number;
   /** Whether the two agree within TAIL_AGREEMENT: if not, a resistor is off its value, a grid draws current or a lead slipped. */
   readonly tailAgrees: boolean;
+  /** Both triodes' dissipation checks as read, each named by its triode (two alike are still two tubes: both named). */
+  readonly findings: readonly Finding[];
 }
 
 /**
@@ -66,5 +70,6 @@ export function readPairMeter(stage: PairReadStage, reading: PairMeterReading): 
   if (!second.ok) return second;
   const plateSum = first.ia + second.ia;
   const tailCurrent = reading.cathode / (stage.rk + stage.rtail);
-  return { ok: true, tubes: [first, second], plateSum, tailCurrent, tailAgrees: Math.abs(plateSum - tailCurrent) <= TAIL_AGREEMENT * tailCurrent };
+  const tailAgrees = Math.abs(plateSum - tailCurrent) <= TAIL_AGREEMENT * tailCurrent;
+  return { ok: true, tubes: [first, second], plateSum, tailCurrent, tailAgrees, findings: [...first.findings.map((f) => byTriode(f, 'First')), ...second.findings.map((f) => byTriode(f, 'Second'))] };
 }

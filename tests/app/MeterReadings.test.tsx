@@ -123,6 +123,17 @@ describe('your meter readings, stage by stage', () => {
     typeInto(pair.getByLabelText(/^First plate to chassis/), String(drifted));
     act(() => void fireEvent.keyDown(pair.getByLabelText(/^First plate to chassis/), { key: 'Enter' }));
     await waitFor(() => expect(within(screen.getByRole('group', { name: 'Meter readings, Splitter · 12AU7' })).getByRole('status').textContent).toMatch(/together: they should agree within 10 %: a plate or tail resistor is off its value/));
+    // A plate past its rating as read (1.7 kV across Ra: about 50 mA at 230 V, over 11 W against 2.75 W) is the pair's
+    // danger in the one ratings list, each triode named, and so on the card.
+    typeInto(pair.getByLabelText(/^Supply at the top of Ra/), '2000');
+    act(() => void fireEvent.keyDown(pair.getByLabelText(/^Supply at the top of Ra/), { key: 'Enter' }));
+    const ratings = within(screen.getByRole('region', { name: 'Ratings checks' }));
+    await waitFor(() => expect(ratings.getAllByText(/^Splitter · 12AU7, as read/).map((e) => e.closest('.finding')?.className)).toEqual([expect.stringMatching(/danger/), expect.stringMatching(/danger/)]));
+    const ratingLines = cardSections(store.getState()).find((c) => c.heading === 'Ratings, every stage')?.lines ?? [];
+    expect(ratingLines.some((l) => /Splitter · 12AU7, as read.*First triode: plate dissipation/.test(l))).toBe(true);
+    expect(ratingLines.some((l) => /Splitter · 12AU7, as read.*Second triode: plate dissipation/.test(l))).toBe(true);
+    typeInto(pair.getByLabelText(/^Supply at the top of Ra/), String(ltp.bplus));
+    act(() => void fireEvent.keyDown(pair.getByLabelText(/^Supply at the top of Ra/), { key: 'Enter' }));
     // On the card with every box it was read from; kept in the file.
     expect(cardSections(store.getState()).find((c) => c.heading === 'Meter readings, as built')?.lines).toEqual([expect.stringMatching(/^Splitter · 12AU7, read supply \d+ V, plate [\d.]+ V, second plate [\d.]+ V, cathode [\d.]+ V: First triode/)]);
     const back = readDesignFile(writeDesignFile({ title: 'as built', design: store.getState().design }));

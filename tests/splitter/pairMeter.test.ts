@@ -24,6 +24,12 @@ describe('readPairMeter: a long-tailed pair read from its plates, its tail a che
     expectClose(r.plateSum, 21e-3, { rel: 1e-12 });
     expectClose(r.tailCurrent, 21e-3, { rel: 1e-12 });
     expect(r.tailAgrees).toBe(true);
+    // Each triode's dissipation check, named by its triode as the pair's design findings are: 10.5 mA at 250 V is 2.63 W,
+    // 95 % of the Tung-Sol 12AU7's 2.75 W a section, near the rating on both.
+    expect(r.findings.map((f) => [f.severity, f.message.slice(0, 33)])).toEqual([
+      ['warning', 'First triode: plate dissipation 2'],
+      ['warning', 'Second triode: plate dissipation '],
+    ]);
   });
 
   // A first plate resistor drifted from 10 kΩ to 15 kΩ (carbon composition drifts up with age, common

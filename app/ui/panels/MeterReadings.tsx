@@ -114,7 +114,7 @@ function TriodeMeter({ row }: { readonly row: MeterRow }) {
       <h4 className="meter-stage">{row.name}</h4>
       <div className="value-grid">{row.boxes.map(box)}</div>
       {readout === null ? null : readout.ok ? (
-        <p className={`meter-readout${worstClass(readout.tubes.flatMap((t) => t.findings))}`} role="status">
+        <p className={`meter-readout${worstClass(readout.findings)}`} role="status">
           {triodeMeterLines(readout, row).map((line, k) => <span key={k} className="meter-line">{line}</span>)}
         </p>
       ) : (
