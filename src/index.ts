@@ -65,7 +65,7 @@ export { frequencyResponse, responseOf, logFrequencies, type ResponsePoint } fro
 export { corners, cornersOf, type Corners } from './signal/corners';
 export { type ChainLink, type FollowerCoupling, type LinkResult, type LinkChainResult } from './signal/solveLinks';
 export { solveChain } from './chain/solveChain';
-export { amplifierNetlist, type NetlistOptions } from './netlist/amplifierNetlist';
+export { amplifierNetlist, amplifierOnSupplyNetlist, type NetlistOptions } from './netlist/amplifierNetlist';
 export { globalFeedback, feedbackPartsProblem, FEEDBACK_CF_LIMITS, FEEDBACK_RF_LIMITS, type GlobalFeedback } from './chain/globalFeedback';
 export { squareWave, type SquareWave } from './signal/squareWave';
 export { feedbackBand, type FeedbackBand, type FeedbackDivider, type LoopMargins, type LoopSquareWave } from './chain/feedbackBand';

@@ -3,7 +3,9 @@ import { fail, type Result } from '../result';
 import { solveAmplifier } from '../chain/solveAmplifier';
 import type { ChainInput, ChainResult } from '../chain/chainTypes';
 import { globalFeedback } from '../chain/globalFeedback';
+import { placedOnSupply, solveOnSupply, type AmplifierOnSupply } from '../chain/solveOnSupply';
 import { chainNetlist } from './chainNetlist';
+import { benchSupply, type BenchSupply } from './benchSupply';
 
 /** What the netlist is for: its title, the sine its transient is driven with, and any global feedback. */
 export interface NetlistOptions {
@@ -30,6 +32,25 @@ const hz = (x: number | null) => (x === null ? 'none' : `${x.toPrecision(3)} Hz`
  * makes it negative: in phase with the input at the first cathode.
  */
 export function amplifierNetlist(input: ChainInput, options: NetlistOptions): Result<{ readonly text: string }> {
+  return netlistOf(input, options, null);
+}
+
+/**
+ * The amplifier on its own supply as a netlist for ngspice: as
+ * amplifierNetlist, with the stages at the voltages their nodes give
+ * (solveOnSupply) and drawing from them, and the supply's secondary,
+ * rectifier and filter in the circuit (benchSupply), so the transient
+ * (ten mains cycles) carries its ripple and hum, and its last cycle's mean
+ * and ripple at every node are measured against the model's, at its head.
+ */
+export function amplifierOnSupplyNetlist(on: AmplifierOnSupply, options: NetlistOptions): Result<{ readonly text: string }> {
+  const solved = solveOnSupply(on);
+  if (!solved.ok) return solved;
+  const placed = placedOnSupply(on.amplifier, solved.bplus, solved.screenVolts);
+  return netlistOf(placed, options, benchSupply(on, solved));
+}
+
+function netlistOf(input: ChainInput, options: NetlistOptions, supply: BenchSupply | null): Result<{ readonly text: string }> {
   if (typeof options !== 'object' || options === null) return fail('invalid-input', 'Give the netlist its title and input level');
   const title = typeof options.title === 'string' ? options.title.replace(/[\r\n]+/g, ' ').trim() : '';
   const problem = checkNumber('inputPeak', 'The input peak', options.inputPeak, 'V', 0, 1000);
@@ -46,16 +67,20 @@ export function amplifierNetlist(input: ChainInput, options: NetlistOptions): Re
   // The secondary as drawn (its first node dotted like the primary's B+ end) carries the plate's swing inverted: a chain
   // whose model output (plate-phased) is in phase with the input needs it turned round for the feedback to be negative.
   const feedback = fb === null ? undefined : { rf: fb.rf, cf: fb.cf, reversed: !figures.inverting };
-  const text = chainNetlist(input, { kind: 'bench', peak: options.inputPeak, feedback });
+  const bench = { kind: 'bench' as const, peak: options.inputPeak, feedback, ...(supply ? { seconds: supply.seconds, after: supply.measures, ...(supply.spectrumHz !== undefined ? { spectrumHz: supply.spectrumHz } : {}) } : {}) };
+  const text = chainNetlist(input, bench, supply?.supply);
   const model = figures.stages.map((st, i) => `* stage ${i + 1} (${st.kind}): plate ${volts(st.pins.plate)}, cathode ${volts(st.pins.cathode)}, grid ${volts(st.pins.grid)}${st.pins.screen !== null ? `, screen ${volts(st.pins.screen)}` : ''}${st.pins.plate2 !== null ? `, second plate ${volts(st.pins.plate2)}` : ''}`);
   const header = [
     `* ${title || 'Amplifier'}: a netlist for ngspice`,
-    '* Units SI. Tubes by Koren\'s laws as behavioural sources; each stage\'s B+ a DC source (node bp<n>); the input at node src, the output at node out.',
+    supply
+      ? "* Units SI. Tubes by Koren's laws as behavioural sources; the input at node src, the output at node out."
+      : "* Units SI. Tubes by Koren's laws as behavioural sources; each stage's B+ a DC source (node bp<n>); the input at node src, the output at node out.",
     "* The model's own figures, to compare with the operating point and the sweep:",
     ...model,
     loop?.ok
       ? `* with Rf's DC path in the first cathode, loop open: midband gain ${figures.gain.toPrecision(4)}; closed: ${loop.closedGain.toPrecision(4)} (${loop.feedbackDb.toFixed(1)} dB of feedback)`
       : `* midband gain ${figures.gain.toPrecision(4)}, -3 dB at ${hz(figures.lowHz)} and ${hz(figures.highHz)}`,
+    ...(supply?.header ?? []),
   ];
   // The chain's own first line names it for the checks; the header takes its place.
   return { ok: true, text: [...header, ...text.split('\n').slice(1)].join('\n') };

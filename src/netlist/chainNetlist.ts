@@ -76,6 +76,16 @@ export interface BenchAnalysis {
    * round for the loop to be negative.
    */
   readonly feedback?: { readonly rf: number; readonly cf: number | null; readonly reversed: boolean };
+  /** The transient's length, s (40 ms unless given: a supply in the circuit asks for its filter to settle). */
+  readonly seconds?: number;
+  /**
+   * The Fourier analysis's base frequency, Hz, when the output carries a supply's hum: a divisor of both 1 kHz and
+   * the ripple's frequency, so the window (its period, at the run's end) holds whole cycles of both and the hum's rows
+   * stand apart from the signal's harmonics (at 1, 2, … 5 kHz). Absent: the last millisecond, at 1 kHz.
+   */
+  readonly spectrumHz?: number;
+  /** More lines for the control block, after the transient's Fourier analysis (say, `meas` lines on the supply's nodes). */
+  readonly after?: readonly string[];
 }
 
 /** The output transformer's secondary and the speaker across it; `reversed` swaps the secondary's ends (its dot at ground). */
@@ -91,7 +101,7 @@ function opExtras(s: ChainStage, i: number): string {
 
 export const nodes = { plate: (i: number) => `p${i}`, cathode: (i: number) => `k${i}`, supply: (i: number) => `vb${i}`, output: 'out' } as const;
 
-function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle: { readonly lp: number } | undefined, reversed: boolean): { lines: string[]; output: string; output2?: string } {
+function stageLines(s: ChainStage, i: number, input: string, large: number, midband: boolean, input2: string | null, settle: { readonly lp: number } | undefined, reversed: boolean, fed: NetlistSupply | undefined): { lines: string[]; output: string; output2?: string } {
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
   // A grid stopper (a gain stage's, a follower's, a splitter's first grid's): the coupling (or the output before, direct) ends at its
@@ -110,13 +120,13 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
     if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b gb${i} ${g(s.coupling.rg)}`);
   }
-  if (s.kind === 'push-pull-output') return { lines: [...lines, ...pushPullLines(s, i, gnode, `${gnode}b`, large, reversed)], output: 'sec' };
+  if (s.kind === 'push-pull-output') return { lines: [...lines, ...pushPullLines(s, i, gnode, `${gnode}b`, large, reversed, fed)], output: 'sec' };
   if (s.kind === 'single-ended-output') {
     const t = s.tube;
     const n2 = s.zPrimary / s.speakerOhms;
     const ul = s.connection === 'ultralinear' && t.law.kind === 'pentode';
     lines.push(t.law.kind === 'pentode' ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params));
-    lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RPRI bottom ${p} ${g(Math.max(s.rPrimary, 1e-6))}`);
+    lines.push(bplusSource(i, `bp${i}`, s.bplus, fed), `RPRI bottom ${p} ${g(Math.max(s.rPrimary, 1e-6))}`);
     const { lp, k: kw } = windingOf(s, settle?.lp);
     if (ul) {
       const x = s.ulTap;
@@ -130,7 +140,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     lines.push(`BG${i} ${gnode} ${k} I = pwr(max(v(${gnode},${k}),0),1.5)/${g(rgrid)}`);
     if (t.law.kind === 'pentode') {
       const screen = s.connection === 'triode' ? p : ul ? 'tap' : 'screen';
-      if (s.connection === 'pentode') lines.push(`VSCR${i} screen 0 DC ${g(s.screenVolts)}`);
+      if (s.connection === 'pentode') lines.push(screenSource(`VSCR${i}`, i, s.screenVolts, fed));
       lines.push(`X${i} ${p} ${screen} ${gnode} ${k} pent`, `CGK${i} ${gnode} ${k} ${g(t.capacitances.cgk)}`, `CGP${i} ${gnode} ${p} ${g(t.capacitances.cgp)}`, `CPK${i} ${p} ${k} ${g(t.capacitances.cpk)}`);
     } else {
       lines.push(`X${i} ${p} ${gnode} ${k} outtri`, `CGK${i} ${gnode} ${k} ${g(t.capacitances.cgk)}`, `CGP${i} ${gnode} ${p} ${g(t.capacitances.cgp)}`, `CPK${i} ${p} ${k} ${g(t.capacitances.cpk)}`);
@@ -143,7 +153,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
   lines.push(triodeSubckt(`tri${i}`, model.params, caps ? { cgk: caps.cgk, cgp: caps.cgp, cpk: caps.cpk } : undefined, s.kind === 'long-tailed-pair' ? undefined : gridLaw));
   lines.push(`X${i} ${p} ${gnode} ${k} tri${i}`);
   if (s.kind === 'split-load') {
-    lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RA${i} bp${i} ${p} ${g(s.ra)}`, `RK${i} ${k} 0 ${g(s.rk)}`);
+    lines.push(bplusSource(i, `bp${i}`, s.bplus, fed), `RA${i} bp${i} ${p} ${g(s.ra)}`, `RK${i} ${k} 0 ${g(s.rk)}`);
     return { lines, output: p, output2: k };
   }
   if (s.kind === 'long-tailed-pair') {
@@ -154,7 +164,7 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
       `X${i}b ${p}b ${gnode}b ${k} tri${i}`,
       `RG${i}b ${gnode}b ${vgrid} 1e6`,
       `CG${i}b ${gnode}b 0 1`,
-      `${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`,
+      bplusSource(i, `bp${i}`, s.bplus, fed),
       `RA${i} bp${i} ${p} ${g(s.ra)}`,
       `RA${i}b bp${i} ${p}b ${g(s.ra2 ?? s.ra)}`,
       s.rk > 0 ? `RK${i} ${k} t${i} ${g(s.rk)}` : `VK${i} ${k} t${i} DC 0`,
@@ -163,12 +173,12 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     return { lines, output: p, output2: `${p}b` };
   }
   if (s.kind === 'common-cathode') {
-    lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RA${i} bp${i} ${p} ${g(s.ra)}`);
+    lines.push(bplusSource(i, `bp${i}`, s.bplus, fed), `RA${i} bp${i} ${p} ${g(s.ra)}`);
     lines.push(s.rk > 0 ? `RK${i} ${k} 0 ${g(s.rk)}` : `VK${i} ${k} 0 DC 0`);
     if (s.rk > 0 && s.bypassed) lines.push(`CK${i} ${k} 0 ${g(midband ? large : (s.ck ?? large))}`);
     return { lines, output: p };
   }
-  lines.push(`${nodes.supply(i).toUpperCase()} ${p} 0 DC ${g(s.bplus)}`, `RK${i} ${k} 0 ${g(s.rk)}`);
+  lines.push(bplusSource(i, p, s.bplus, fed), `RK${i} ${k} 0 ${g(s.rk)}`);
   return { lines, output: k };
 }
 
@@ -179,14 +189,14 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
  * bypassed (by a large capacitor) or fixed bias. Node names: the first
  * plate and the cathode are the stage's own; the second plate ends in b.
  */
-function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: number, grid1: string, grid2: string, large: number, reversed: boolean): string[] {
+function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: number, grid1: string, grid2: string, large: number, reversed: boolean, fed: NetlistSupply | undefined): string[] {
   const t = s.tube;
   const p = nodes.plate(i);
   const k = nodes.cathode(i);
   const pentode = t.law.kind === 'pentode';
   const ul = s.connection === 'ultralinear' && pentode;
   const lines = [pentode ? pentodeSubckt(t.law.params) : triodeSubckt('outtri', t.law.tube.model.params)];
-  lines.push(`${nodes.supply(i).toUpperCase()} bp${i} 0 DC ${g(s.bplus)}`, `RH1 end1 ${p} ${g(Math.max(s.rPrimary / 2, 1e-6))}`, `RH2 end2 ${p}b ${g(Math.max(s.rPrimary / 2, 1e-6))}`);
+  lines.push(bplusSource(i, `bp${i}`, s.bplus, fed), `RH1 end1 ${p} ${g(Math.max(s.rPrimary / 2, 1e-6))}`, `RH2 end2 ${p}b ${g(Math.max(s.rPrimary / 2, 1e-6))}`);
   const { lp, k: kw } = windingOf(s);
   const quarter = lp / 4;
   const segments: string[] = [];
@@ -204,7 +214,7 @@ function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: 
   lines.push(s.bias === 'cathode' ? `RK${i} ${k} 0 ${g(s.rk)}\nCK${i} ${k} 0 ${g(large)}` : `VK${i} ${k} 0 DC 0`);
   const screen = (n: 1 | 2) => (s.connection === 'triode' ? (n === 1 ? p : `${p}b`) : ul ? `tap${n}` : 'screen');
   if (pentode) {
-    if (s.connection === 'pentode') lines.push(`VSCR screen 0 DC ${g(s.screenVolts)}`);
+    if (s.connection === 'pentode') lines.push(screenSource('VSCR', i, s.screenVolts, fed));
     lines.push(`X${i} ${p} ${screen(1)} ${grid1} ${k} pent`, `X${i}b ${p}b ${screen(2)} ${grid2} ${k} pent`);
   } else {
     lines.push(`X${i} ${p} ${grid1} ${k} outtri`, `X${i}b ${p}b ${grid2} ${k} outtri`);
@@ -215,40 +225,57 @@ function pushPullLines(s: Extract<ChainStage, { kind: 'push-pull-output' }>, i: 
 }
 
 /**
- * The supply's filter ladder behind the stages (SupplyLadder): each stage's B+ source becomes a 0 V ammeter from its
- * plate load to its node, the nodes fed from `v0` (the reservoir's DC under the stages' current plus the drop in the
- * source resistance, so the nodes sit where the supply put them) through the source resistance (and a choke input's
- * choke), each node's capacitor to ground and each section's resistor (or choke with its resistance) to the next.
+ * A supply behind the stages: each stage's B+ source becomes a 0 V ammeter
+ * from its plate load (a follower's plate) to the node feeding it, and a
+ * pentode output stage's screens with a node of their own (`screenFeeds`)
+ * draw from it the same way; `lines` are the supply's own parts, on the
+ * nodes `supplyNode(k)`.
+ */
+export interface NetlistSupply {
+  readonly feeds: readonly number[];
+  readonly screenFeeds?: readonly (number | null)[];
+  readonly lines: readonly string[];
+}
+
+export const supplyNode = (k: number) => `sn${k}`;
+
+/** Stage i's B+ at `top`: a DC source of `bplus`, or an ammeter to the node feeding it. */
+function bplusSource(i: number, top: string, bplus: number, fed: NetlistSupply | undefined): string {
+  const name = nodes.supply(i).toUpperCase();
+  return fed ? `${name} ${top} ${supplyNode(fed.feeds[i]!)} DC 0` : `${name} ${top} 0 DC ${g(bplus)}`;
+}
+
+/** A pentode-connected stage's screens: their own DC source, or an ammeter to the node feeding them. */
+function screenSource(name: string, i: number, volts: number, fed: NetlistSupply | undefined): string {
+  const k = fed?.screenFeeds?.[i];
+  return typeof k === 'number' ? `${name} screen ${supplyNode(k)} DC 0` : `${name} screen 0 DC ${g(volts)}`;
+}
+
+/**
+ * The supply's filter ladder as the signal sees it (SupplyLadder), fed from `v0` (the reservoir's DC under the
+ * stages' current plus the drop in the source resistance, so the nodes sit where the supply put them) through the
+ * source resistance (and a choke input's choke), each node's capacitor to ground and each section's resistor (or
+ * choke with its resistance) to the next. Screens stay on their own DC sources, as the ladder's model takes them.
  */
 export interface NetlistLadder {
   readonly ladder: SupplyLadder;
   readonly v0: number;
 }
 
-function ladderLines(lines: string[], stages: number, n: NetlistLadder): string[] {
+export function ladderSupply(n: NetlistLadder): NetlistSupply {
   const { ladder, v0 } = n;
-  const fed = lines.map((l) => {
-    for (let i = 0; i < stages; i++) {
-      const head = `${nodes.supply(i).toUpperCase()} `;
-      if (l.startsWith(head)) {
-        const parts = l.split(' ');
-        return `${parts[0]} ${parts[1]} sn${ladder.feeds[i]} DC 0`;
-      }
-    }
-    return l;
-  });
   const choke = ladder.choke;
-  const supply = [`VSUP sx 0 DC ${g(v0)}`, choke ? `RSRC sx sy ${g(ladder.sourceOhms + choke.r)}` : `RSRC sx sn0 ${g(ladder.sourceOhms)}`];
-  if (choke) supply.push(`LCH sy sn0 ${g(choke.l)}`);
-  ladder.caps.forEach((c, k) => supply.push(`CN${k} sn${k} 0 ${g(c)}`));
+  const lines = [`VSUP sx 0 DC ${g(v0)}`, choke ? `RSRC sx sy ${g(ladder.sourceOhms + choke.r)}` : `RSRC sx ${supplyNode(0)} ${g(ladder.sourceOhms)}`];
+  if (choke) lines.push(`LCH sy ${supplyNode(0)} ${g(choke.l)}`);
+  ladder.caps.forEach((c, k) => lines.push(`CN${k} ${supplyNode(k)} 0 ${g(c)}`));
   ladder.links.forEach((link, k) => {
-    if (link.l > 0) supply.push(`RLK${k} sn${k} sl${k} ${g(Math.max(link.r, 1e-6))}`, `LLK${k} sl${k} sn${k + 1} ${g(link.l)}`);
-    else supply.push(`RLK${k} sn${k} sn${k + 1} ${g(Math.max(link.r, 1e-6))}`);
+    if (link.l > 0) lines.push(`RLK${k} ${supplyNode(k)} sl${k} ${g(Math.max(link.r, 1e-6))}`, `LLK${k} sl${k} ${supplyNode(k + 1)} ${g(link.l)}`);
+    else lines.push(`RLK${k} ${supplyNode(k)} ${supplyNode(k + 1)} ${g(Math.max(link.r, 1e-6))}`);
   });
-  return [...fed, ...supply];
+  return { feeds: ladder.feeds, lines };
 }
 
-export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: NetlistLadder): string {
+export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, supply?: NetlistSupply): string {
   const large = analysis.kind === 'tran' || analysis.kind === 'bench' ? 1e-3 : 1;
   // 'kick': a 20 ms, 50 mV pulse at the input 0.2 s in, every capacitor as given, to watch what the circuit does after it.
   const source =
@@ -258,7 +285,7 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
   let input2: string | null = null;
   c.stages.forEach((s, i) => {
     const reversed = analysis.kind === 'bench' && analysis.feedback?.reversed === true;
-    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2, analysis.kind === 'tran' ? analysis.settle : undefined, reversed);
+    const st = stageLines(s, i, input, large, analysis.kind === 'tran', input2, analysis.kind === 'tran' ? analysis.settle : undefined, reversed, supply);
     lines.push(...st.lines);
     input = st.output;
     input2 = st.output2 ?? null;
@@ -271,8 +298,17 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
   if (analysis.kind === 'bench') {
     const fb = analysis.feedback;
     if (fb) lines.push(`RF sec ${nodes.cathode(0)} ${g(fb.rf)}`, ...(fb.cf !== null ? [`CF sec ${nodes.cathode(0)} ${g(fb.cf)}`] : []));
-    const circuit = ladder ? ladderLines(lines, c.stages.length, ladder) : lines;
-    return [...circuit, '.control', 'op', 'print all', 'ac dec 20 1 1meg', 'print vdb(out) vp(out)', 'tran 20u 40m 0 2u', 'fourier 1k v(out)', '.endc', '.end'].join('\n');
+    const tran = `tran 20u ${analysis.seconds !== undefined ? g(analysis.seconds) : '40m'} 0 2u`;
+    const base = analysis.spectrumHz;
+    const fourier = base === undefined
+      ? ['fourier 1k v(out)']
+      : [
+          `* The output over the run's last ${g(1 / base)} s in steps of ${g(base)} Hz: the signal's harmonics at 1 to 5 kHz, the supply's hum at its ripple's multiples. The THD ngspice prints is against the first row: read the rows.`,
+          `set nfreqs=${Math.round(5000 / base) + 1}`,
+          'set fourgridsize=16384',
+          `fourier ${g(base)} v(out)`,
+        ];
+    return [...lines, ...(supply?.lines ?? []), '.control', 'op', 'print all', 'ac dec 20 1 1meg', 'print vdb(out) vp(out)', tran, ...fourier, ...(analysis.after ?? []), '.endc', '.end'].join('\n');
   }
   const control =
     analysis.kind === 'op-ac'
@@ -288,6 +324,5 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, ladder?: Ne
           : ['set nfreqs=10', 'set fourgridsize=16384', 'tran 0.25u 5m 0 0.25u', 'fourier 1000 v(out)'];
   // Noise at the IEEE reference temperature, 290 K, as the model takes it (ngspice's default is 300.15 K).
   if (analysis.kind === 'noise') lines.push('.options temp=16.85');
-  const circuit = ladder ? ladderLines(lines, c.stages.length, ladder) : lines;
-  return [...circuit, '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
+  return [...lines, ...(supply?.lines ?? []), '.control', 'set numdgt=12', ...control, 'quit 0', '.endc', '.end'].join('\n');
 }

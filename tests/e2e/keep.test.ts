@@ -54,6 +54,10 @@ describe.runIf(run)('compare, export and keep in Chromium', () => {
     expect(netlist).toMatch(/^\* .+: a netlist for ngspice\n/);
     expect(netlist).toMatch(/^\* stage 3 \(single-ended-output\)/m);
     expect(netlist).toMatch(/\n\.control\nop\n[\s\S]*\n\.endc\n\.end$/);
+    // And on the demo's own supply (run by ngspice in tests/spice/amplifierOnSupplyNetlist.spice.test.ts).
+    const onSupply = (await downloadOf(page, 'Netlist with the supply (.cir)')).toString('utf8');
+    expect(onSupply).toMatch(/^\* The supply: secondary, rectifier and filter/m);
+    expect(onSupply).not.toMatch(/^VB\d+ \S+ 0 DC/m);
     await page.close();
   });
 

@@ -3,7 +3,7 @@ import { findOutputTube, findTube, solveOnSupply, supplyLowEnd, type AmplifierOn
 import { ladderOf } from '../../src/chain/supplyLowEnd';
 import { placedOnSupply } from '../../src/chain/solveOnSupply';
 import { expectClose } from '../helpers/expectClose';
-import { chainNetlist } from '../../src/netlist/chainNetlist';
+import { chainNetlist, ladderSupply } from '../../src/netlist/chainNetlist';
 import { ngspiceGate, runNgspiceFull } from './ngspice';
 import { simulatedCorners } from './simulatedCorners';
 import { DEMO_DESIGN } from '../../app/store/demoDesign';
@@ -122,8 +122,8 @@ function bothWays(on: AmplifierOnSupply) {
   const placed = placedOnSupply(on.amplifier, r.bplus, r.screenVolts);
   return {
     low,
-    sweep: () => runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, { ladder, v0 })).data,
-    kick: () => runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, { ladder, v0 })).data,
+    sweep: () => runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, ladderSupply({ ladder, v0 }))).data,
+    kick: () => runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, ladderSupply({ ladder, v0 }))).data,
   };
 }
 

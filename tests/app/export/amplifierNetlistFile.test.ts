@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { amplifierNetlistOf } from '../../../app/export/amplifierNetlistFile';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
+import { onSupplyInputOf } from '../../../app/store/supplyPlan';
 
 // What the netlist does in a simulator is held against ngspice in tests/spice/amplifierNetlist.spice.test.ts; here, that
 // the export takes the amplifier the strip shows, its working level and the design's feedback.
@@ -28,5 +29,30 @@ describe('the amplifier netlist the export panel writes', () => {
     if (!apart.ok) throw new Error(apart.message);
     expect(apart.text).not.toMatch(/pent|^RF /m);
     expect(apart.text).toMatch(/^\* stage 2 \(common-cathode\)/m);
+  });
+
+  it('with the supply: every stage drawn from its node behind the design\u2019s rectifier and filter, the other channels as loads', () => {
+    const store = createWorkbenchStore();
+    const s = store.getState();
+    expect(s.design.supply.on).toBe(true);
+    const net = amplifierNetlistOf(s, true);
+    if (!net.ok) throw new Error(net.message);
+    // No stage keeps a DC source of its own: each is an ammeter to the node the supply plan names.
+    expect(net.text).not.toMatch(/^VB\d+ \S+ 0 DC/m);
+    const fed = [...net.text.matchAll(/^VB(\d+) \S+ sn(\d+) DC 0$/gm)].map((m) => Number(m[2]));
+    expect(fed).toEqual(onSupplyInputOf(s.design, s.registry)!.input.feeds);
+    expect(net.text).toMatch(/^VSECA /m);
+    expect(net.text).toMatch(/^\* The supply: secondary, rectifier and filter/m);
+    expect(net.text).not.toMatch(/^ISUP/m);
+    // Two channels on the one supply: this file holds one, and the other draws its idle current at each node.
+    store.getState().setSupply({ channels: 2 });
+    store.getState().settleAnalysis();
+    const stereo = amplifierNetlistOf(store.getState(), true);
+    expect(stereo.ok && stereo.text).toMatch(/^ISUP\d+ sn\d+ 0 DC /m);
+    // With the supply off, the plain netlist is still written, and there is no supply to put in one.
+    store.getState().setSupply({ on: false });
+    expect(amplifierNetlistOf(store.getState()).ok).toBe(true);
+    const off = amplifierNetlistOf(store.getState(), true);
+    expect(!off.ok && off.message).toMatch(/no supply/);
   });
 });
