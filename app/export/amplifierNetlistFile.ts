@@ -1,5 +1,6 @@
 import { amplifierNetlist, amplifierOnSupplyNetlist, type Result } from '../../src/index';
-import { onSupplyInputOf } from '../store/supplyPlan';
+import { biasDesignOf, onSupplyInputOf } from '../store/supplyPlan';
+import { biasSupplyOf } from '../store/biasSupply';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /** The input peak for a netlist whose working level does not solve: 10 mV, small enough for any chain's clean limit (our choice). */
@@ -11,7 +12,8 @@ const FALLBACK_PEAK = 0.01;
  * the bench's output level), and the design's global feedback when the
  * stages drive the output stage. `withSupply`: on the design's supply (its
  * rectifier and filter in the circuit, each stage drawing from its node),
- * its solve started from the supply panel's last answer.
+ * its solve started from the supply panel's last answer, and a fixed-bias
+ * output stage's grids on its bias supply's wipers once that is solved.
  */
 export function amplifierNetlistOf(s: WorkbenchState, withSupply = false): Result<{ readonly text: string }> {
   const view = s.amplifier;
@@ -26,5 +28,7 @@ export function amplifierNetlistOf(s: WorkbenchState, withSupply = false): Resul
   if (!chain) return { ok: false, reason: 'invalid-input', message: 'The amplifier does not solve: a stage’s tube is unknown.' };
   const last = s.supplyView?.result;
   const start = last?.ok ? { start: last.supply.nodes.map((n) => n.dc) } : {};
-  return amplifierOnSupplyNetlist({ ...chain.input, ...start }, options);
+  // A fixed-bias output stage's grid supply, as the supply panel last solved it.
+  const bias = biasSupplyOf(s);
+  return amplifierOnSupplyNetlist({ ...chain.input, ...start }, options, bias?.ok ? { design: biasDesignOf(d.supply), solved: bias } : null);
 }

@@ -1,5 +1,7 @@
 import { checkNumber } from '../stage/checkInput';
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
+import { checkBiasSupply } from '../supply/biasSupply';
+import { type NetlistBias } from './biasCircuit';
 import { solveAmplifier } from '../chain/solveAmplifier';
 import type { ChainInput, ChainResult } from '../chain/chainTypes';
 import { globalFeedback } from '../chain/globalFeedback';
@@ -43,11 +45,29 @@ export function amplifierNetlist(input: ChainInput, options: NetlistOptions): Re
  * (ten mains cycles) carries its ripple and hum, and its last cycle's mean
  * and ripple at every node are measured against the model's, at its head.
  */
-export function amplifierOnSupplyNetlist(on: AmplifierOnSupply, options: NetlistOptions): Result<{ readonly text: string }> {
+export function amplifierOnSupplyNetlist(on: AmplifierOnSupply, options: NetlistOptions, bias?: NetlistBias | null): Result<{ readonly text: string }> {
   const solved = solveOnSupply(on);
   if (!solved.ok) return solved;
+  const problem = bias ? biasProblem(bias, on) : null;
+  if (problem) return problem;
   const placed = placedOnSupply(on.amplifier, solved.bplus, solved.screenVolts);
-  return netlistOf(placed, options, benchSupply(on, solved));
+  return netlistOf(placed, options, benchSupply(on, solved, bias));
+}
+
+/** A bias supply the netlist cannot use: one for no fixed-bias output stage, or a solution without a string for each of its tubes. */
+function biasProblem(bias: NetlistBias, on: AmplifierOnSupply): Failure | null {
+  const stage = on.amplifier.stages.find((s) => (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') && s.bias === 'fixed');
+  if (!stage) return fail('invalid-input', 'Only a fixed-bias output stage takes a bias supply', 'bias');
+  const design = checkBiasSupply(bias.design);
+  if (design) return { ...design, field: `bias.${design.field}` };
+  const taps = bias.solved?.taps;
+  const tubes = stage.kind === 'push-pull-output' ? 2 : 1;
+  const numbers = (xs: unknown[]) => xs.every((x) => typeof x === 'number' && Number.isFinite(x) && x > 0);
+  const whole = Array.isArray(taps) && taps.length >= tubes && numbers([bias.solved.rail, bias.solved.reservoir, bias.solved.noLoadVolts, bias.solved.railRipplePp + 1, bias.solved.load + 1]);
+  if (!whole || !taps.every((t) => t && t.string && numbers([t.string.top, t.string.pot, t.string.bottom, t.nominal, t.travel + 1]))) {
+    return fail('invalid-input', 'The bias supply is not solved for this output stage: solve it again', 'bias');
+  }
+  return null;
 }
 
 function netlistOf(input: ChainInput, options: NetlistOptions, supply: BenchSupply | null): Result<{ readonly text: string }> {

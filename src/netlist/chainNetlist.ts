@@ -116,9 +116,14 @@ function stageLines(s: ChainStage, i: number, input: string, large: number, midb
     const volume = s.kind === 'common-cathode' ? s.volume : undefined;
     if (volume !== undefined && volume < 1) {
       lines.push(`CC${i} ${input} g${i}t ${midband ? '10u' : g(s.coupling.cc)}`, `RGU${i} g${i}t ${leakTop} ${g((1 - volume) * s.coupling.rg)}`, `RG${i} ${leakTop} gb${i} ${g(volume * s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
-    } else lines.push(`CC${i} ${input} ${leakTop} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${leakTop} gb${i} ${g(s.coupling.rg)}`, `VGB${i} gb${i} 0 DC ${g(vbias)}`);
-    // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
-    if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b gb${i} ${g(s.coupling.rg)}`);
+    } else {
+      // A bias supply in the circuit takes the leaks to its wipers; else they return to a DC source.
+      const wipers = fed?.biasWipers?.stage === i ? fed.biasWipers.wipers : null;
+      lines.push(`CC${i} ${input} ${leakTop} ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i} ${leakTop} ${wipers?.[0] ?? `gb${i}`} ${g(s.coupling.rg)}`);
+      if (!wipers) lines.push(`VGB${i} gb${i} 0 DC ${g(vbias)}`);
+      // A push-pull stage's second grid: the splitter's other output through its own capacitor and leak, alike.
+      if (s.kind === 'push-pull-output' && input2) lines.push(`CC${i}b ${input2} ${gnode}b ${midband ? '10u' : g(s.coupling.cc)}`, `RG${i}b ${gnode}b ${wipers?.[1] ?? `gb${i}`} ${g(s.coupling.rg)}`);
+    }
   }
   if (s.kind === 'push-pull-output') return { lines: [...lines, ...pushPullLines(s, i, gnode, `${gnode}b`, large, reversed, fed)], output: 'sec' };
   if (s.kind === 'single-ended-output') {
@@ -235,6 +240,8 @@ export interface NetlistSupply {
   readonly feeds: readonly number[];
   readonly screenFeeds?: readonly (number | null)[];
   readonly lines: readonly string[];
+  /** A fixed-bias output stage's grid leaks returned to its bias adjustments' wipers (a pair's second grid to the second) instead of a DC source. */
+  readonly biasWipers?: { readonly stage: number; readonly wipers: readonly string[] };
 }
 
 export const supplyNode = (k: number) => `sn${k}`;

@@ -176,7 +176,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('supplyLowEnd', fc.tuple(fc.oneof(fc.constant(screenedInput), near(screenedInput), anything), fc.oneof(fc.constant(screenedSolved), near(screenedSolved), anything)), Q.supplyLowEnd, 40);
   // The amplifier on its own supply as a netlist: the screened amplifier's, near it (two channels, a choke input), and junk.
   const options = fc.oneof(near({ title: 'x', inputPeak: 0.1, feedback: null }), anything);
-  run('amplifierOnSupplyNetlist', fc.tuple(fc.oneof(fc.constant(screenedInput), near({ ...screenedInput, channels: 2 }), near({ ...screenedInput, supply: { ...oneSection, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } } }), anything), options), Q.amplifierOnSupplyNetlist, 12);
+  run('amplifierOnSupplyNetlist', fc.tuple(fc.oneof(fc.constant(screenedInput), near({ ...screenedInput, channels: 2 }), near({ ...screenedInput, supply: { ...oneSection, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } } }), anything), options, fc.oneof(fc.constant(undefined), fc.constant(null), anything)), Q.amplifierOnSupplyNetlist, 12);
   const tangentSupply = { ...supply, loads: [0.05, 0.004] } as Q.SupplyDesign;
   const solvedSupply = Q.solveSupply(tangentSupply);
   const tangent = solvedSupply.ok ? Q.supplyTangent(tangentSupply, solvedSupply) : null;

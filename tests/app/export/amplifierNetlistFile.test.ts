@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { amplifierNetlistOf } from '../../../app/export/amplifierNetlistFile';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { onSupplyInputOf } from '../../../app/store/supplyPlan';
@@ -31,7 +31,7 @@ describe('the amplifier netlist the export panel writes', () => {
     expect(apart.text).toMatch(/^\* stage 2 \(common-cathode\)/m);
   });
 
-  it('with the supply: every stage drawn from its node behind the design\u2019s rectifier and filter, the other channels as loads', () => {
+  it('with the supply: every stage drawn from its node behind the design\u2019s rectifier and filter, the other channels as loads, a fixed-bias grid on its bias supply', async () => {
     const store = createWorkbenchStore();
     const s = store.getState();
     expect(s.design.supply.on).toBe(true);
@@ -49,6 +49,17 @@ describe('the amplifier netlist the export panel writes', () => {
     store.getState().settleAnalysis();
     const stereo = amplifierNetlistOf(store.getState(), true);
     expect(stereo.ok && stereo.text).toMatch(/^ISUP\d+ sn\d+ 0 DC /m);
+    // A fixed-bias output stage: its grid on a DC source until the bias supply is solved, then on its wiper.
+    store.getState().setOutputBias('fixed');
+    store.getState().settleAnalysis();
+    const before = amplifierNetlistOf(store.getState(), true);
+    expect(before.ok && before.text).toMatch(/^\* The output grids' bias is a DC source \(VGB2\)/m);
+    await vi.waitFor(() => expect(store.getState().biasView?.result.ok).toBe(true), { timeout: 5000 });
+    const biased = amplifierNetlistOf(store.getState(), true);
+    if (!biased.ok) throw new Error(biased.message);
+    expect(biased.text).toMatch(/^RG2 \S+ bw0 /m);
+    expect(biased.text).not.toMatch(/^VGB2 /m);
+    expect(biased.text).toMatch(/^\* The grid bias: /m);
     // With the supply off, the plain netlist is still written, and there is no supply to put in one.
     store.getState().setSupply({ on: false });
     expect(amplifierNetlistOf(store.getState()).ok).toBe(true);
