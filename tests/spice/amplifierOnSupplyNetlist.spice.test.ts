@@ -59,6 +59,14 @@ const supply = (over: Partial<SupplyDesign>): SupplyDesign => ({
   mainsHz: 50, secondaryRms: 330, windingOhms: 40, rectifier: { kind: 'silicon-full-wave' }, input: { kind: 'capacitor', c: 100e-6 }, sections: [], loads: [], ...over,
 });
 
+/** The pair behind a 5AR4 into a choke input: the input stage on the last node, the splitter one up, the screens on node 2. */
+const pairOnChoke: AmplifierOnSupply = {
+  amplifier: pushPullPentode,
+  supply: supply({ secondaryRms: 480, windingOhms: 60, rectifier: { kind: 'tube', tubeId: '5AR4' }, input: { kind: 'choke', l: 10, rdc: 100, c: 47e-6 }, sections: [{ kind: 'rc', r: 1e3, c: 47e-6 }, { kind: 'rc', r: 4.7e3, c: 22e-6 }, { kind: 'rc', r: 22e3, c: 22e-6 }], loads: [0, 0, 0, 0] }),
+  feeds: [3, 2, 0],
+  screenFeeds: [null, null, 1],
+};
+
 /** The pair's grid supply as the workbench solves it for the pair at its nodes (pairBiasSupply): a 60 V tap, half wave. */
 const gridSupply: BiasSupplyDesign = { mainsHz: 50, secondaryRms: 60, windingOhms: 100, reservoir: 100e-6, r: 10e3, c: 47e-6 };
 function pairBias(on: AmplifierOnSupply): NetlistBias {
@@ -88,21 +96,11 @@ const cases: { label: string; on: AmplifierOnSupply; feedback?: number; bias?: (
   },
   {
     label: 'common cathode → long-tailed pair → push-pull EL34 (pentode, fixed bias, screens on a node of their own), 5AR4 into a choke input',
-    on: {
-      amplifier: pushPullPentode,
-      supply: supply({ secondaryRms: 480, windingOhms: 60, rectifier: { kind: 'tube', tubeId: '5AR4' }, input: { kind: 'choke', l: 10, rdc: 100, c: 47e-6 }, sections: [{ kind: 'rc', r: 1e3, c: 47e-6 }, { kind: 'rc', r: 4.7e3, c: 22e-6 }, { kind: 'rc', r: 22e3, c: 22e-6 }], loads: [0, 0, 0, 0] }),
-      feeds: [3, 2, 0],
-      screenFeeds: [null, null, 1],
-    },
+    on: pairOnChoke,
   },
   {
     label: 'the same pair with its grid supply in the circuit: a 60 V tap, half wave, each grid on its adjustment\u2019s wiper',
-    on: {
-      amplifier: pushPullPentode,
-      supply: supply({ secondaryRms: 480, windingOhms: 60, rectifier: { kind: 'tube', tubeId: '5AR4' }, input: { kind: 'choke', l: 10, rdc: 100, c: 47e-6 }, sections: [{ kind: 'rc', r: 1e3, c: 47e-6 }, { kind: 'rc', r: 4.7e3, c: 22e-6 }, { kind: 'rc', r: 22e3, c: 22e-6 }], loads: [0, 0, 0, 0] }),
-      feeds: [3, 2, 0],
-      screenFeeds: [null, null, 1],
-    },
+    on: pairOnChoke,
     bias: pairBias,
   },
   {
