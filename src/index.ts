@@ -118,6 +118,7 @@ export { outputPartsList, CATHODE_BYPASS_CORNER_HZ, type OutputPartsList, type T
 export { screenFeedPlan, type ScreenFeedPlan } from './output/screenFeed';
 export { amplifierAtLevel, type AmplifierLevel, type AmplifierAtLevel, type StageLevel } from './chain/amplifierAtLevel';
 export { solveSupply } from './supply/solveSupply';
+export { capacitorForRipple, MAX_SUGGESTED_FARADS } from './supply/capacitorForRipple';
 export { checkSupply, MAX_SECTIONS } from './supply/checkSupply';
 export { RECTIFIER_TUBES, findRectifierTube, type RectifierTube } from './supply/rectifierTubes';
 export type { SupplyDesign, SupplySolution, SupplyNode, Rectifier, FilterSection } from './supply/supplyTypes';

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { bleederFor, humOnSupply, parseValue, supplyLowEnd, supplyPartsList, type SupplyLowEnd, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
+import { bleederFor, capacitorForRipple, humOnSupply, parseValue, supplyLowEnd, supplyPartsList, type SupplyLowEnd, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, checkStageNodes, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
@@ -24,6 +24,8 @@ export interface SupplyView {
   readonly hum: Result<HumAtOutput> | null;
   /** True while the design has moved on and the new solve has not come back. */
   readonly stale: boolean;
+  /** The capacitor that brings the hum budget's node within it (capacitorForRipple), when the node is over it. */
+  readonly humCure: { readonly node: number; readonly farads: number } | null;
   /**
    * The amplifier's low end on this supply and whether the loop through it
    * is stable (supplyLowEnd), worked out after each settled solve (null
@@ -263,7 +265,10 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
   const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
   const screenFeeds = chain.input.screenFeeds ?? chain.names.map(() => null);
-  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, stale, lowEnd: null };
+  const budget = chain.input.supply.ratings?.hum;
+  const farads = r.ok && budget ? capacitorForRipple(chain.input.supply, r.supply, budget.node, budget.maxRippleRms) : null;
+  const humCure = farads !== null && budget ? { node: budget.node, farads } : null;
+  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, humCure, stale, lowEnd: null };
 }
 
 /** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */

@@ -2,6 +2,7 @@ import { bandOf, BAND_SEVERITY, bySeverity, finding, type Finding } from '../sta
 import { findRectifierTube } from './rectifierTubes';
 import { formatValue } from '../parts/formatValue';
 import type { SupplyDesign, SupplySolution } from './supplyTypes';
+import { capacitorForRipple } from './capacitorForRipple';
 
 /** Above this share of a supply part's rating it gets a warning: mains runs up to 10 % high (common practice). */
 export const SUPPLY_WARN_FRACTION = 0.9;
@@ -52,7 +53,9 @@ export function supplyFindings(d: SupplyDesign, s: SupplySolution): Finding[] {
   if (r.hum && s.nodes[r.hum.node]) {
     const ripple = s.nodes[r.hum.node]!.rippleRms;
     const over = ripple > r.hum.maxRippleRms;
-    out.push(finding('hum', over ? 'warning' : 'note', `Ripple at node ${r.hum.node + 1}, which feeds the first stage, is ${formatValue(ripple, 'V')} rms against your budget of ${formatValue(r.hum.maxRippleRms, 'V')}${over ? ': expect hum; add a filter section or a larger capacitor.' : '.'}`, ripple, r.hum.maxRippleRms));
+    const cure = over ? capacitorForRipple(d, s, r.hum.node, r.hum.maxRippleRms) : null;
+    const advice = cure === null ? 'add a filter section or a larger capacitor.' : `node ${r.hum.node + 1}'s capacitor at ${formatValue(cure, 'F')} (rounded up to E12) brings it within, or add a filter section.`;
+    out.push(finding('hum', over ? 'warning' : 'note', `Ripple at node ${r.hum.node + 1}, which feeds the first stage, is ${formatValue(ripple, 'V')} rms against your budget of ${formatValue(r.hum.maxRippleRms, 'V')}${over ? `: expect hum; ${advice}` : '.'}`, ripple, r.hum.maxRippleRms));
   }
   return bySeverity(out);
 }

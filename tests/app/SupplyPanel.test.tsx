@@ -400,6 +400,29 @@ describe('the B+ supply on the bench', () => {
     expect(list()).toMatch(/^6\.3 V, 4\.2 A .*2 × 12AX7.*2 × 12AU7.*2 × EL34.*5 V, 3 A \(15 VA\): 5U4GB rectifier .*sits at B\+/);
   });
 
+  it('a hum budget the node misses offers the capacitor that meets it; one press fits it, and the node is then within', async () => {
+    const { store, panel } = bench();
+    await waitFor(() => expect(store.getState().supplyView?.result.ok).toBe(true), { timeout: 5000 });
+    const before = store.getState().supplyView!.result;
+    if (!before.ok) throw new Error(before.message);
+    // The demo's node 4 carries about 0.23 µV rms; a budget of 0.1 µV asks for more than twice its 220 µF.
+    act(() => store.getState().editSupplyValue('humRms', '100n'));
+    await waitFor(() => expect(store.getState().supplyView?.humCure).not.toBeNull(), { timeout: 5000 });
+    const cure = store.getState().supplyView!.humCure!;
+    expect(cure.node).toBe(3);
+    expect(cure.farads).toBeGreaterThan(2 * 220e-6);
+    const warning = panel.getByText(/^Ripple at node 4, which feeds the first stage, is .* expect hum; node 4's capacitor at \d+ µF \(rounded up to E12\)/);
+    expect(warning.closest('li')!.className).toContain('warning');
+    fireEvent.click(panel.getByRole('button', { name: `Use ${Math.round(cure.farads * 1e6)} µF at node 4` }));
+    expect(store.getState().design.supply.sections[2]!.c).toBeCloseTo(cure.farads, 12);
+    // Solved again with it: the node is within the budget, and there is nothing more to offer.
+    await waitFor(() => expect(panel.getByText(/^Ripple at node 4, which feeds the first stage, is .* against your budget of 100 nV\.$/)).toBeTruthy(), { timeout: 5000 });
+    expect(panel.queryByRole('button', { name: /^Use .* at node 4$/ })).toBeNull();
+    // One undo step takes the capacitor back.
+    act(() => store.getState().undo());
+    expect(store.getState().design.supply.sections[2]!.c).toBe(220e-6);
+  });
+
   it('is kept in the design file; a file from before the supply opens on the default one', () => {
     const store = createWorkbenchStore({ supplySolver: null });
     store.getState().setSupply({ channels: 2, rectifier: { kind: 'tube', tubeId: '5AR4' }, regulation: 0.08 });

@@ -181,6 +181,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   const solvedSupply = Q.solveSupply(tangentSupply);
   const tangent = solvedSupply.ok ? Q.supplyTangent(tangentSupply, solvedSupply) : null;
   const tangents = fc.oneof(fc.constant(tangent), anything);
+  // The capacitor a hum budget asks for: on a solved supply and near it, at any node and budget, and junk.
+  run('capacitorForRipple', fc.tuple(fc.oneof(near(tangentSupply), anything), fc.oneof(fc.constant(solvedSupply), near(solvedSupply), anything), or(fc.integer({ min: -1, max: 3 })), or(fc.double({ min: 0, max: 10 }))), Q.capacitorForRipple, 200);
   run('supplyTangent', fc.tuple(near(tangentSupply), fc.oneof(fc.constant(solvedSupply), anything)), Q.supplyTangent, 12);
   run('supplyNear', fc.tuple(near(tangentSupply), tangents, fc.oneof(fc.tuple(or(fc.double({ min: 0, max: 0.1 })), or(fc.double({ min: 0, max: 0.01 }))), anything)), Q.supplyNear, 200);
   run('nearbyLoads', fc.tuple(tangents, fc.oneof(fc.tuple(numbers, numbers), anything)), Q.nearbyLoads);

@@ -156,6 +156,8 @@ describe('the B+ supply, solved in time', () => {
     expect(hum).toMatchObject({ severity: 'warning' });
     // The ripple and the budget in the units they read in (the budget 10 mV, not "10.0 mV" or "0.0100 V"), as the node table shows them.
     expect(hum.message).toMatch(new RegExp(`is ${formatValue(hum.value, 'V')} rms against your budget of 10 mV: expect hum`));
+    // With the capacitor that cures it (capacitorForRipple, held against a solve in its own tests).
+    expect(hum.message).toMatch(/; node 2's capacitor at \d+ µF \(rounded up to E12\) brings it within, or add a filter section\.$/);
     // A 5Y3GT (125 mA, 20 µF; from memory) asked for 150 mA from 47 µF.
     const small = solved({ ...base, rectifier: { kind: 'tube', tubeId: '5Y3GT' }, loads: [0.14, 0.01] });
     const current = small.findings.find((f) => f.kind === 'rectifier-current')!;

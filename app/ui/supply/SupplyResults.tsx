@@ -4,6 +4,7 @@ import { SupplyHumLine } from './SupplyHumLine';
 import { useWorkbench } from '../../store/StoreProvider';
 import { ROLE_NAME } from '../../store/amplifierChain';
 import { fedFrom, screensOf } from '../../store/supplySlice';
+import { compact } from '../../store/fields';
 import { bplusGroups, type BplusRole } from '../../store/supplyBplus';
 import { voltageStages } from '../../store/stagePlans';
 import { SupplyWaves } from './SupplyWaves';
@@ -29,6 +30,7 @@ export function SupplyResults() {
   const screenVolts = useWorkbench((s) => s.design.output.screenVolts);
   const useVolts = useWorkbench((s) => s.useSupplyVolts);
   const setSupply = useWorkbench((s) => s.setSupply);
+  const editValue = useWorkbench((s) => s.editSupplyValue);
   if (!plan.on) return <div className="supply-results"><p className="field-hint">Not solved: tick “Solve the amplifier on this supply” to see every node’s B+ and ripple.</p></div>;
   if (!view) return <div className="supply-results"><p className="field-hint" role="status">Solving the supply…</p></div>;
   const r = view.result;
@@ -102,6 +104,14 @@ export function SupplyResults() {
       ) : (
         <p className="field-hint">No ratings given to check the supply against (the winding's current, a hum budget).</p>
       )}
+      {view.humCure ? (
+        <p className="option-row">
+          <button type="button" onClick={() => editValue(view.humCure!.node === 0 ? 'input.c' : `sections.${view.humCure!.node - 1}.c`, compact(view.humCure!.farads))}>
+            Use {farads(view.humCure.farads)} at node {view.humCure.node + 1}
+          </button>
+          <span className="field-hint">the hum budget's capacitor, rounded up to E12</span>
+        </p>
+      ) : null}
       <SupplyHumLine view={view} />
       <p className={`supply-low-end${view.lowEnd?.ok && view.lowEnd.unstablePoles ? ' finding danger' : view.lowEnd?.ok && view.lowEnd.thinLoop ? ' finding warning' : ''}`} data-testid="supply-low-end" role="status">
         {lowEndWords(view) ?? 'Working out the low end on this supply…'}
