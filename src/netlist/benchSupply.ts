@@ -1,5 +1,6 @@
 import type { AmplifierOnSupply, AmplifierOnSupplyResult } from '../chain/solveOnSupply';
 import { ladderOf } from '../chain/supplyLowEnd';
+import { humOnSupply } from '../chain/humOnSupply';
 import { openCircuitWinding } from '../supply/winding';
 import type { SupplyDesign } from '../supply/supplyTypes';
 import { supplyNode, type NetlistSupply } from './chainNetlist';
@@ -49,7 +50,7 @@ export function settlingNote(d: SupplyDesign, seconds: number): { readonly from:
   ].filter((x) => x.s > seconds / 3);
   if (slow.length === 0) return { from: null, note: null };
   const first = slow[0]!;
-  return { from: first.k, note: `* ${first.what}, against a run of ${seconds.toPrecision(2)} s: sn${first.k} and the nodes after it are still settling at its end, their ripple reading high. Lengthen the transient to read them.` };
+  return { from: first.k, note: `* ${first.what}, against a run of ${seconds.toPrecision(2)} s: sn${first.k} and the nodes after it are still settling at its end, their ripple (and the hum they give) reading high. Lengthen the transient to read them.` };
 }
 
 /**
@@ -92,6 +93,7 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
   const fixed = on.amplifier.stages.findIndex((s) => (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') && s.bias === 'fixed');
   const grid = fixed >= 0 && bias ? biasCircuit(bias, on.amplifier.stages[fixed]!.kind === 'push-pull-output' ? 2 : 1) : null;
   if (grid) lines.push(...grid.lines);
+  const hum = humOnSupply(on, r);
   const seconds = MAINS_CYCLES / d.mainsHz;
   const settling = settlingNote(d, seconds);
   const from = seconds - 1 / d.mainsHz;
@@ -106,6 +108,7 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
     "* The model's supply at idle (mean, ripple peak to peak), to compare with the transient's last mains cycle (meas sn<k>_avg, sn<k>_pp):",
     ...r.supply.nodes.map((n, k) => `*   sn${k}: ${n.dc.toPrecision(4)} V, ${n.ripplePp.toPrecision(3)} V${r.atFullPower ? `; at full power ${r.atFullPower.volts[k]!.toPrecision(4)} V` : ''}`),
     `*   the rectifier's peak current ${r.supply.rectifierPeak.toPrecision(3)} A (meas rect_peak)`,
+    ...(hum.ok ? [`*   the hum at the output, at most ${hum.bound.toPrecision(3)} V rms (each stage's share of its node's ripple, added as if in phase): the Fourier rows below 1 kHz hold ngspice's`] : []),
     ...(settling.note ? [settling.note] : []),
     ...(grid && bias
       ? [
