@@ -28,7 +28,8 @@ export function amplifierNetlistOf(s: WorkbenchState, withSupply = false): Resul
   if (!chain) return { ok: false, reason: 'invalid-input', message: 'The amplifier does not solve: a stage’s tube is unknown.' };
   const last = s.supplyView?.result;
   const start = last?.ok ? { start: last.supply.nodes.map((n) => n.dc) } : {};
-  // A fixed-bias output stage's grid supply, as the supply panel last solved it.
-  const bias = biasSupplyOf(s);
+  // A fixed-bias output stage's grid supply, as the supply panel solved it for this design (a solve still on its way
+  // leaves the grids on a DC source, as the file then says).
+  const bias = s.biasView?.stale ? null : biasSupplyOf(s);
   return amplifierOnSupplyNetlist({ ...chain.input, ...start }, options, bias?.ok ? { design: biasDesignOf(d.supply), solved: bias } : null);
 }

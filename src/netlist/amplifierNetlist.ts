@@ -1,7 +1,7 @@
 import { checkNumber } from '../stage/checkInput';
 import { fail, type Failure, type Result } from '../result';
 import { checkBiasSupply } from '../supply/biasSupply';
-import { type NetlistBias } from './biasCircuit';
+import { fixedBiasStage, type NetlistBias } from './biasCircuit';
 import { solveAmplifier } from '../chain/solveAmplifier';
 import type { ChainInput, ChainResult } from '../chain/chainTypes';
 import { globalFeedback } from '../chain/globalFeedback';
@@ -56,15 +56,16 @@ export function amplifierOnSupplyNetlist(on: AmplifierOnSupply, options: Netlist
 
 /** A bias supply the netlist cannot use: one for no fixed-bias output stage, or a solution without a string for each of its tubes. */
 function biasProblem(bias: NetlistBias, on: AmplifierOnSupply): Failure | null {
-  const stage = on.amplifier.stages.find((s) => (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') && s.bias === 'fixed');
+  const stage = fixedBiasStage(on.amplifier.stages);
   if (!stage) return fail('invalid-input', 'Only a fixed-bias output stage takes a bias supply', 'bias');
   const design = checkBiasSupply(bias.design);
   if (design) return { ...design, field: `bias.${design.field}` };
-  const taps = bias.solved?.taps;
-  const tubes = stage.kind === 'push-pull-output' ? 2 : 1;
-  const numbers = (xs: unknown[]) => xs.every((x) => typeof x === 'number' && Number.isFinite(x) && x > 0);
-  const whole = Array.isArray(taps) && taps.length >= tubes && numbers([bias.solved.rail, bias.solved.reservoir, bias.solved.noLoadVolts, bias.solved.railRipplePp + 1, bias.solved.load + 1]);
-  if (!whole || !taps.every((t) => t && t.string && numbers([t.string.top, t.string.pot, t.string.bottom, t.nominal, t.travel + 1]))) {
+  const s = bias.solved;
+  const atLeast = (min: number, ...xs: unknown[]) => xs.every((x) => typeof x === 'number' && Number.isFinite(x) && x >= min);
+  const positive = (...xs: unknown[]) => xs.every((x) => atLeast(Number.MIN_VALUE, x));
+  const taps = s?.taps;
+  const whole = Array.isArray(taps) && taps.length >= stage.tubes && positive(s.rail, s.reservoir, s.noLoadVolts) && atLeast(0, s.railRipplePp, s.load);
+  if (!whole || !taps.every((t) => t && t.string && positive(t.string.top, t.string.pot, t.string.bottom, t.nominal) && atLeast(0, t.travel))) {
     return fail('invalid-input', 'The bias supply is not solved for this output stage: solve it again', 'bias');
   }
   return null;

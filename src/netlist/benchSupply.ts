@@ -5,7 +5,7 @@ import { openCircuitWinding } from '../supply/winding';
 import type { SupplyDesign } from '../supply/supplyTypes';
 import { supplyNode, type NetlistSupply } from './chainNetlist';
 import { supplyCircuit } from './supplyCircuit';
-import { biasCircuit, type NetlistBias } from './biasCircuit';
+import { biasCircuit, fixedBiasStage, type NetlistBias } from './biasCircuit';
 
 const g = (x: number) => x.toPrecision(12);
 
@@ -90,17 +90,19 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
     '.model SWSTART SW(VT=0.5 VH=0.2 RON=1e-3 ROFF=1e12)',
   ];
   // A fixed-bias output stage: its grids on the bias supply's wipers when it is given, else on a DC source, as said.
-  const fixed = on.amplifier.stages.findIndex((s) => (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') && s.bias === 'fixed');
-  const grid = fixed >= 0 && bias ? biasCircuit(bias, on.amplifier.stages[fixed]!.kind === 'push-pull-output' ? 2 : 1) : null;
+  const fixed = fixedBiasStage(on.amplifier.stages);
+  const grid = fixed && bias ? biasCircuit(bias, fixed.tubes) : null;
   if (grid) lines.push(...grid.lines);
   const hum = humOnSupply(on, r);
   const seconds = MAINS_CYCLES / d.mainsHz;
   const settling = settlingNote(d, seconds);
   const from = seconds - 1 / d.mainsHz;
   const nodes = Array.from({ length: nodeCount }, (_, k) => k);
-  const measures = nodes.flatMap((k) => [`meas tran sn${k}_avg AVG v(${supplyNode(k)}) from=${g(from)} to=${g(seconds)}`, `meas tran sn${k}_pp PP v(${supplyNode(k)}) from=${g(from)} to=${g(seconds)}`]);
-  measures.push(`meas tran rect_peak MAX i(${circuit.pulses}) from=${g(from)} to=${g(seconds)}`);
-  if (grid) measures.push(`meas tran brail_avg AVG v(brail) from=${g(from)} to=${g(seconds)}`, `meas tran brail_pp PP v(brail) from=${g(from)} to=${g(seconds)}`, ...grid.wipers.map((w) => `meas tran ${w}_avg AVG v(${w}) from=${g(from)} to=${g(seconds)}`));
+  // Each reading over the run's last mains cycle.
+  const meas = (name: string, how: 'AVG' | 'PP' | 'MAX', of: string) => `meas tran ${name} ${how} ${of} from=${g(from)} to=${g(seconds)}`;
+  const measures = nodes.flatMap((k) => [meas(`sn${k}_avg`, 'AVG', `v(${supplyNode(k)})`), meas(`sn${k}_pp`, 'PP', `v(${supplyNode(k)})`)]);
+  measures.push(meas('rect_peak', 'MAX', `i(${circuit.pulses})`));
+  if (grid) measures.push(meas('brail_avg', 'AVG', 'v(brail)'), meas('brail_pp', 'PP', 'v(brail)'), ...grid.wipers.map((w) => meas(`${w}_avg`, 'AVG', `v(${w})`)));
   const header = [
     `* The supply: secondary, rectifier and filter (nodes sn0, the reservoir, to sn${nodeCount - 1}); each stage's B+ an ammeter (VB<n>) from its node.`,
     ...(channels > 1 || own.some((a) => a > 0) ? ['* ISUP<k>: what this one channel does not draw at node k (the other channels at idle, the supply\'s own loads).'] : []),
@@ -116,9 +118,9 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
           `*   the model's rail -${bias.solved.rail.toPrecision(4)} V, ripple ${bias.solved.railRipplePp.toPrecision(3)} V peak to peak (meas brail_avg, brail_pp); the grid at -${bias.solved.taps[0]!.nominal.toPrecision(4)} V`,
           `*   each leak returns through its wiper's ${(bias.solved.taps[0]!.sourceOhms / 1e3).toPrecision(3)} kOhm, which the figures above leave out (they take the leak alone): the gain here reads a little higher.`,
         ]
-      : fixed >= 0
-        ? [`* The output grids' bias is a DC source (VGB${fixed}): the bias supply is not in this file.`]
+      : fixed
+        ? [`* The output grids' bias is a DC source (VGB${fixed.index}): the bias supply is not in this file.`]
         : []),
   ];
-  return { supply: { feeds: on.feeds, ...(on.screenFeeds ? { screenFeeds: on.screenFeeds } : {}), lines, ...(grid ? { biasWipers: { stage: fixed, wipers: grid.wipers } } : {}) }, header, seconds, spectrumHz: spectrumBase(d.mainsHz), measures };
+  return { supply: { feeds: on.feeds, ...(on.screenFeeds ? { screenFeeds: on.screenFeeds } : {}), lines, ...(grid && fixed ? { biasWipers: { stage: fixed.index, wipers: grid.wipers } } : {}) }, header, seconds, spectrumHz: spectrumBase(d.mainsHz), measures };
 }

@@ -1,4 +1,5 @@
 import type { BiasSupplyDesign, BiasSupplySolution } from '../supply/biasSupply';
+import type { ChainStage } from '../chain/chainTypes';
 
 const g = (x: number) => x.toPrecision(12);
 
@@ -6,6 +7,12 @@ const g = (x: number) => x.toPrecision(12);
 export interface NetlistBias {
   readonly design: BiasSupplyDesign;
   readonly solved: BiasSupplySolution;
+}
+
+/** The amplifier's fixed-bias output stage, the one stage a bias supply feeds: its place, and how many grids it has (a pair's two); null when there is none. */
+export function fixedBiasStage(stages: readonly ChainStage[]): { readonly index: number; readonly tubes: 1 | 2 } | null {
+  const index = stages.findIndex((s) => (s.kind === 'single-ended-output' || s.kind === 'push-pull-output') && s.bias === 'fixed');
+  return index < 0 ? null : { index, tubes: stages[index]!.kind === 'push-pull-output' ? 2 : 1 };
 }
 
 export interface BiasCircuit {

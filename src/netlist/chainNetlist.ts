@@ -310,7 +310,7 @@ export function chainNetlist(c: ChainInput, analysis: ChainAnalysis, supply?: Ne
     const fourier = base === undefined
       ? ['fourier 1k v(out)']
       : [
-          `* The output over the run's last ${g(1 / base)} s in steps of ${g(base)} Hz: the signal's harmonics at 1 to 5 kHz, the supply's hum at its ripple's multiples. The THD ngspice prints is against the first row: read the rows.`,
+          `* The output over the run's last ${Number((1000 / base).toPrecision(3))} ms in steps of ${Number(base.toPrecision(3))} Hz: the signal's harmonics at 1 to 5 kHz, the supply's hum at its ripple's multiples. The THD ngspice prints is against the first row: read the rows.`,
           `set nfreqs=${Math.round(5000 / base) + 1}`,
           'set fourgridsize=16384',
           `fourier ${g(base)} v(out)`,

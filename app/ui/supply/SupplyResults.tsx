@@ -104,7 +104,7 @@ export function SupplyResults() {
       ) : (
         <p className="field-hint">No ratings given to check the supply against (the winding's current, a hum budget).</p>
       )}
-      {view.humCure ? (
+      {view.humCure && !view.stale ? (
         <p className="option-row">
           <button type="button" onClick={() => editValue(view.humCure!.node === 0 ? 'input.c' : `sections.${view.humCure!.node - 1}.c`, compact(view.humCure!.farads))}>
             Use {farads(view.humCure.farads)} at node {view.humCure.node + 1}
