@@ -29,11 +29,11 @@ export interface PushPullBench {
   readonly settled: PushPullAnalysis;
 }
 
-/** A second output tube in the same socket: same B+, primary, bias parts; its own screen connection. */
+/** A second output tube in the same socket: same B+, primary, bias parts; wired as the first (a tube swap), or its own screen connection. */
 export interface OutputRival {
   readonly on: boolean;
   readonly tubeId: string;
-  readonly connection: Connection;
+  readonly connection: Connection | 'as-wired';
 }
 
 /** The model's field names for the output design, as the bench's input boxes are named. */
@@ -78,8 +78,18 @@ export function analyzeOutputBench(d: OutputPlan, prev: OutputBench | null, opts
   return { ok: true, pair: 'single-ended', analysis: a, light, settled: light && before ? before.settled : a };
 }
 
+/**
+ * How the rival is wired: as the design's own tube unless chosen otherwise
+ * (an ultralinear socket keeps its tap when the tube is swapped); a triode
+ * has no screen, so it is a triode whatever the socket.
+ */
+export function rivalConnection(d: Pick<OutputPlan, 'connection'>, r: OutputRival): Connection {
+  if (findOutputTube(r.tubeId)?.law.kind === 'triode') return 'triode';
+  return r.connection === 'as-wired' ? d.connection : r.connection;
+}
+
 export function rivalOutputDesign(d: OutputPlan, r: OutputRival): OutputPlan {
-  return { ...d, tubeId: r.tubeId, connection: r.connection };
+  return { ...d, tubeId: r.tubeId, connection: rivalConnection(d, r) };
 }
 
 /** One chart window for both output tubes at this B+. */

@@ -63,7 +63,7 @@ function biasFor(b: OutputBench, d: OutputPlan, vpk: number, ip: number) {
 
 export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice> = (set, get) => ({
   outputBench: initialOutputBench(DEMO_DESIGN.output),
-  outputRival: { on: false, tubeId: '6L6GC', connection: 'pentode' },
+  outputRival: { on: false, tubeId: '6L6GC', connection: 'as-wired' },
   outputRivalBench: null,
 
   setStageKind: (kind) => {
@@ -134,10 +134,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
 
   setOutputRival: (patch) => {
     const s = get();
-    const outputRival = { ...s.outputRival, ...patch };
-    const tube = findOutputTube(outputRival.tubeId);
-    if (tube?.law.kind === 'triode') outputRival.connection = 'triode';
-    set({ outputRival });
+    set({ outputRival: { ...s.outputRival, ...patch } });
     s.commit(s.design, { force: true });
   },
 

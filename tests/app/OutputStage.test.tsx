@@ -76,6 +76,25 @@ describe('the output stage on the bench', () => {
     expect(row.textContent).toMatch(/W.*W/);
     expect(view.container.querySelectorAll('.layer-rival-curves path').length).toBeGreaterThan(3);
   });
+
+  it('the rival is wired as the socket is (the demo EL34 is ultralinear, so the 6L6GC keeps the tap) until another connection is chosen', async () => {
+    const { store, user, view } = await setup();
+    await user.click(screen.getByLabelText('Compare with'));
+    const connection = screen.getByLabelText('Its connection') as HTMLSelectElement;
+    expect(connection.selectedOptions[0]!.textContent).toBe('as wired (ultralinear)');
+    const rivalOp = () => {
+      const b = store.getState().outputRivalBench;
+      return b?.ok && b.pair === 'single-ended' ? b.analysis.solution.op.connection : null;
+    };
+    expect(rivalOp()).toBe('ultralinear');
+    expect(view.container.querySelector('section.compare .compare-table thead')!.textContent).toMatch(/6L6GC \(ultralinear\)/);
+    await user.selectOptions(connection, 'pentode');
+    expect(rivalOp()).toBe('pentode');
+    // A power triode has no screen: one choice, whatever the socket.
+    await user.selectOptions(screen.getByLabelText('Second output tube'), '300B');
+    expect([...connection.options].map((o) => o.textContent)).toEqual(['triode']);
+    expect(rivalOp()).toBe('triode');
+  });
 });
 
 describe('output stage in the store', () => {

@@ -1,9 +1,9 @@
 import { useId } from 'react';
-import { connectionsOf, findOutputTube, outputTubeLibrary, type Connection, type OutputAnalysis, type PushPullAnalysis } from '../../../src/index';
+import { connectionsOf, findOutputTube, outputTubeLibrary, type OutputAnalysis, type PushPullAnalysis } from '../../../src/index';
 import { mAPerV, milliamps, ohms, plain, volts, watts } from '../../format';
 import { difference } from '../panels/ComparePanel';
 import { useWorkbench } from '../../store/StoreProvider';
-import type { OutputBench } from '../../store/outputAnalysis';
+import { rivalConnection, type OutputBench, type OutputRival } from '../../store/outputAnalysis';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 
 interface Row<A = OutputAnalysis> {
@@ -80,6 +80,7 @@ export function OutputComparePanel() {
   const id = useId();
   const rivalTube = findOutputTube(rival.tubeId);
   const connections = rivalTube ? connectionsOf(rivalTube) : [];
+  const asWired = useWorkbench((s) => rivalConnection(s.design.output, s.outputRival));
   const b = second && second.ok ? second : null;
   return (
     <section className="panel compare" aria-labelledby={`${id}-h`}>
@@ -93,8 +94,9 @@ export function OutputComparePanel() {
           {outputTubeLibrary.map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
         </select>
         <label htmlFor={`${id}-conn`} className="visually-hidden">Its connection</label>
-        <select id={`${id}-conn`} value={rival.connection} onChange={(e) => setOutputRival({ connection: e.target.value as Connection })}>
-          {connections.map((c) => <option key={c} value={c}>{c}</option>)}
+        <select id={`${id}-conn`} value={connections.length > 1 ? rival.connection : 'as-wired'} onChange={(e) => setOutputRival({ connection: e.target.value as OutputRival['connection'] })}>
+          <option value="as-wired">{connections.length > 1 ? `as wired (${asWired})` : 'triode'}</option>
+          {connections.length > 1 ? connections.map((c) => <option key={c} value={c}>{c}</option>) : null}
         </select>
       </div>
       {rival.on && second && !second.ok ? <p className="field-error" role="alert">The {rival.tubeId} cannot run with these parts: {second.message}</p> : null}

@@ -32,6 +32,9 @@ export const COMPARE_ROWS: readonly Row[] = [
   { label: 'THD at the level', key: 'thd', value: (a) => (a.signal.distortion.ok ? a.signal.distortion.thdPercent : null), show: (v) => `${plain(v)} %`, diff: 'ratio' },
 ];
 
+/** A whole number with its sign, none for zero. */
+const signed = (n: number, unit: string) => `${n > 0 ? '+' : n < 0 ? '−' : ''}${Math.abs(n)}${unit}`;
+
 /**
  * The second design's value against the first: a percentage for quantities
  * that scale, percentage points between two shares (20 % → 9 % is −11
@@ -39,8 +42,9 @@ export const COMPARE_ROWS: readonly Row[] = [
  */
 export function difference(row: Pick<Row, 'show' | 'diff'>, a: number | null, b: number | null): string {
   if (a === null || b === null) return '—';
-  if (row.diff === 'points') return `${b >= a ? '+' : '−'}${Math.abs(b - a).toFixed(0)} points`;
-  if (row.diff === 'ratio') return a === 0 ? '—' : `${b / a >= 1 ? '+' : '−'}${Math.abs((b / a - 1) * 100).toFixed(0)} %`;
+  // Rounded before the sign is chosen: a change too small to show reads "0", not "−0".
+  if (row.diff === 'points') return signed(Math.round(b - a), ' points');
+  if (row.diff === 'ratio') return a === 0 ? '—' : signed(Math.round((b / a - 1) * 100), ' %');
   const d = b - a;
   return `${d >= 0 ? '+' : '−'}${row.show(Math.abs(d))}`.replace('−−', '−');
 }
