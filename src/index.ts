@@ -132,7 +132,7 @@ export { NOISE_BAND_HZ, type ChainNoise } from './chain/chainNoise';
 export { TRIODE_NOISE_RESISTANCE_GM } from './chain/chainResponse';
 export { supplyTangent, supplyNear, nearbyLoads, type SupplyTangent } from './supply/supplyTangent';
 export { bplusAgreement, BPLUS_AGREEMENT } from './supply/bplusAgreement';
-export { bleederFor, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
+export { bleederFor, bleederForSupply, SAFE_DC_VOLTS, BLEED_SECONDS, type Bleeder, type NeededBleeder } from './supply/bleeder';
 export { heaterWindings, type HeaterLoad, type HeaterWinding } from './build/heaterWindings';
 export { solvePushPull, type PushPullSolution, type PushPullTubePoint } from './pushpull/solvePushPull';
 export { pushPullAtDrive, PUSH_PULL_CUTOFF_SHARE, type PushPullDrive } from './pushpull/pushPullDrive';

@@ -1,4 +1,4 @@
-import { checkBiasSupply, checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type BiasSupplyDesign, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
+import { bleederForSupply, checkBiasSupply, checkSupply, MAX_CHANNELS, type AmplifierOnSupply, type BiasSupplyDesign, type FilterSection, type Rectifier, type SupplyDesign, type Failure } from '../../src/index';
 import { chainInputOf, type ChainCardName } from './amplifierChain';
 import { screensOnNode } from './outputPlan';
 import type { BenchDesign } from './analysis';
@@ -58,14 +58,14 @@ export const DEMO_BIAS: BiasPlan = { secondaryRms: 50, windingOhms: 150, reservo
 export const biasDesignOf = (p: SupplyPlan): BiasSupplyDesign => ({ ...p.bias, mainsHz: p.mainsHz });
 
 /**
- * The supply the bench opens on, of our own: 246 V a side at 200 mA, full wave with
+ * The supply the bench opens on, of our own: 248 V a side at 200 mA, full wave with
  * silicon diodes into a 100 µF reservoir; a 5 H, 100 Ω choke and 100 µF feed the
  * single-ended output stage (its primary carries the ripple to the speaker: on the
  * reservoir alone the demo hummed at about 120 mV, with the choke under 1 mV;
  * common practice for a single-ended stage), then 1 kΩ (the splitter's node when a
  * pair is chosen) and 9.1 kΩ sections, 47 µF and then 220 µF, down to the voltage
  * stages, chosen so the nodes deliver the demo's own B+ (330 V and 275 V, each
- * within 1 %); the voltage stages' 220 µF keeps the loop through the supply
+ * within a volt, with the bleeder's 10 mA drawn too); the voltage stages' 220 µF keeps the loop through the supply
  * 10 dB from oscillating (at 47 µF it had under 3.5 dB, and with a real 20 H
  * primary it motorboated: supplyLowEnd, held to ngspice); a
  * 200 mA winding, and a hum budget of 5 mV rms on the input stage's node (common
@@ -75,7 +75,7 @@ export const DEMO_SUPPLY: SupplyPlan = {
   on: true,
   mainsHz: 50,
   mainsVolts: 230,
-  secondaryRms: 246,
+  secondaryRms: 248,
   windingOhms: 35,
   rectifier: { kind: 'silicon-full-wave' },
   input: { kind: 'capacitor', c: 100e-6 },
@@ -168,5 +168,9 @@ export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input
   // The hum budget is the first stage's: the one whose ripple every stage after it amplifies.
   const first = chain.names.findIndex((n) => n.role === 'voltage');
   const screens = screensOnNode(d) ? { screenFeeds: chain.names.map((n) => (n.role === 'output' ? p.feeds.screens! : null)) } : {};
-  return { input: { amplifier: chain.input, supply: supplyDesignOf(p, first < 0 ? p.feeds.voltage : feeds[first]!), feeds, ...screens, channels: p.channels }, names: chain.names };
+  const supply = supplyDesignOf(p, first < 0 ? p.feeds.voltage : feeds[first]!);
+  // The bleeder the capacitors need is known from the design: the solve carries its current at the reservoir.
+  const bleeder = bleederForSupply(supply);
+  const bleederOhms = bleeder.ok && bleeder.needed ? { bleederOhms: bleeder.ohms } : {};
+  return { input: { amplifier: chain.input, supply, feeds, ...screens, channels: p.channels, ...bleederOhms }, names: chain.names };
 }

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand/vanilla';
-import { bleederFor, capacitorForRipple, humOnSupply, parseValue, supplyLowEnd, supplyPartsList, type SupplyLowEnd, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
+import { bleederForSupply, capacitorForRipple, humOnSupply, parseValue, supplyLowEnd, supplyPartsList, type SupplyLowEnd, type HumAtOutput, type AmplifierOnSupply, type AmplifierOnSupplyResult, type Bleeder, type FilterSection, type Result, type SupplyParts } from '../../src/index';
 import { namedAsCards, type ChainCardName } from './amplifierChain';
 import type { BenchDesign } from './analysis';
 import { checkPlan, checkStageNodes, onSupplyInputOf, type SupplyPlan } from './supplyPlan';
@@ -260,8 +260,8 @@ export const LIVE_SUPPLY_PAUSE_MS = 250;
 export const SUPPLY_SETTLE_MS = 150;
 
 /** What the supply view shows for an answer: the result, the bleeder the capacitors need and the parts to order. */
-function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readonly ChainCardName[] }, r: Result<AmplifierOnSupplyResult>, stale: boolean): SupplyView {
-  const bleeder = bleederOf(d, r);
+function viewOf(chain: { input: AmplifierOnSupply; names: readonly ChainCardName[] }, r: Result<AmplifierOnSupplyResult>, stale: boolean): SupplyView {
+  const bleeder = r.ok ? bleederForSupply(chain.input.supply, r.supply.nodes[0]!.dc) : null;
   const needed = bleeder?.ok && bleeder.needed ? bleeder : null;
   const parts = r.ok ? supplyPartsList(chain.input.supply, r, needed) : null;
   const screenFeeds = chain.input.screenFeeds ?? chain.names.map(() => null);
@@ -269,14 +269,6 @@ function viewOf(d: BenchDesign, chain: { input: AmplifierOnSupply; names: readon
   const farads = r.ok && budget ? capacitorForRipple(chain.input.supply, r.supply, budget.node, budget.maxRippleRms) : null;
   const humCure = farads !== null && budget ? { node: budget.node, farads } : null;
   return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, humCure, stale, lowEnd: null };
-}
-
-/** The bleeder for a solved supply: every capacitor together, from the no-load peak, at the reservoir's running voltage. */
-function bleederOf(d: BenchDesign, r: Result<AmplifierOnSupplyResult>): Result<Bleeder> | null {
-  if (!r.ok) return null;
-  const p = d.supply;
-  const total = p.input.c + p.sections.reduce((a, s) => a + s.c, 0);
-  return bleederFor(total, r.supply.noLoadVolts, Math.min(r.supply.nodes[0]!.dc, r.supply.noLoadVolts));
 }
 
 /**
@@ -305,7 +297,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null, 
       void solver({ ...chain.input, ...(last?.ok ? { start: last.supply.nodes.map((n) => n.dc) } : {}), keepTangent: true }).then((r) => {
         if (r === 'cancelled' || mine !== job || store.getState().design !== d) return;
         // A stage's failure named as its card is ("Phase splitter (12AU7): …"), not by its place in the model's list.
-        const view = viewOf(d, chain, r.ok ? r : namedAsCards(r, chain.names), false);
+        const view = viewOf(chain, r.ok ? r : namedAsCards(r, chain.names), false);
         store.setState({ supplyView: view });
         // The low end and the loop through the supply: tens of milliseconds of sweeps, after the figures are shown.
         if (r.ok) {
@@ -354,7 +346,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null, 
         const r = await solver({ ...chain.input, start: last.supply.nodes.map((n) => n.dc), ...(last.tangent ? { around: last.tangent } : {}), keepTangent: true });
         const now = store.getState();
         if (r === 'cancelled' || !r.ok || !now.dragging) return;
-        store.setState({ supplyView: viewOf(d, chain, r, now.design !== d) });
+        store.setState({ supplyView: viewOf(chain, r, now.design !== d) });
         lastLive = performance.now();
         if (now.design === d) return;
       }

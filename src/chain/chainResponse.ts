@@ -55,6 +55,8 @@ export interface SupplyLadder {
   readonly feeds: readonly number[];
   /** A choke input: the choke between the rectifier and the reservoir, in series with the source. */
   readonly choke?: { readonly r: number; readonly l: number };
+  /** A bleeder across the reservoir, Ω (AmplifierOnSupply.bleederOhms). */
+  readonly bleederOhms?: number;
 }
 
 /**
@@ -217,6 +219,7 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     spare += ladder.caps.length;
     if (Number.isFinite(ladder.sourceOhms)) resistor(supplyBase, -1, ...seriesRl(ladder.sourceOhms + (ladder.choke?.r ?? 0), ladder.choke?.l ?? 0, omega));
     ladder.caps.forEach((c, k) => stamp(supplyBase + k, -1, 0, omega * c));
+    if (ladder.bleederOhms !== undefined) stamp(supplyBase, -1, 1 / ladder.bleederOhms, 0);
     ladder.links.forEach((link, k) => resistor(supplyBase + k, supplyBase + k + 1, ...seriesRl(link.r, link.l, omega)));
   }
   // Where stage i's plate load returns: its supply node, or signal ground.

@@ -6,6 +6,7 @@ import type { ChainInput, ChainResult, ChainStage } from './chainTypes';
 import { prepareAmplifier, solveStagesInPlace } from './prepareAmplifier';
 import { amplifierOf } from './solveAmplifier';
 import type { SolvedLink } from './stageKind';
+import { SCREEN_FROM_BPLUS_VOLTS } from '../output/screenFeed';
 
 export interface AmplifierOnSupply {
   readonly amplifier: ChainInput;
@@ -24,6 +25,12 @@ export interface AmplifierOnSupply {
   readonly screenFeeds?: readonly (number | null)[];
   /** Identical channels on the one supply (2 for stereo): each node carries every channel's stages. Default 1. */
   readonly channels?: number;
+  /**
+   * A bleeder across the reservoir, Ω (bleederForSupply): it draws the
+   * reservoir's voltage over its resistance, one more load at node 1, so the
+   * B+, ripple and the transformer's current carry it. Absent: none.
+   */
+  readonly bleederOhms?: number;
   /**
    * Every node's voltage in a nearby solution (the last steady state, as
    * while a stage is dragged), V: the first round starts there instead of at
@@ -48,8 +55,10 @@ export interface AmplifierOnSupplyResult {
   readonly bplus: readonly number[];
   /** Each stage's screen voltage as solved where a node feeds its screens (`screenFeeds`; that node's voltage within 10 mV), V; null elsewhere. */
   readonly screenVolts: readonly (number | null)[];
-  /** The current drawn at each node (every channel's stages, plus the supply's own loads), A. */
+  /** The current drawn at each node (every channel's stages, plus the supply's own loads and the bleeder's at node 1), A. */
   readonly loads: readonly number[];
+  /** The bleeder's current at the reservoir's voltage, A (0 without one). */
+  readonly bleederAmps: number;
   /**
    * With an output stage driven to its clean limit (its average current then
    * differs from idle), every node's DC voltage and load: the sag at full
@@ -106,10 +115,18 @@ export function placedOnSupply(amplifier: ChainInput, bplus: readonly number[], 
     stages: amplifier.stages.map((s, i) => {
       const atNode = { ...s, bplus: bplus[i] ?? s.bplus };
       const vs = screenVolts[i];
-      return typeof vs === 'number' && 'screenVolts' in atNode ? { ...atNode, screenVolts: vs, screenFromNode: true } : atNode;
+      if (!('screenVolts' in atNode)) return atNode;
+      if (typeof vs === 'number') return { ...atNode, screenVolts: vs, screenFromNode: true };
+      // Screens designed at the plates' B+ are wired to it: they follow it to the node's voltage (held at the designed
+      // volts, a node a volt or two under them would read as a supply above B+ that nobody named).
+      return Math.abs(atNode.screenVolts - s.bplus) <= SCREEN_FROM_BPLUS_VOLTS ? { ...atNode, screenVolts: atNode.bplus } : atNode;
     }),
   };
 }
+
+/** The bleeders taken across a reservoir, Ω: from 1 kΩ (watts of heat at B+) to bleederFor's largest, 10 MΩ. */
+const MIN_BLEEDER_OHMS = 1e3;
+const MAX_BLEEDER_OHMS = 10e6;
 
 /** Channels one supply may feed (a multichannel amplifier beyond this has more than one supply). */
 export const MAX_CHANNELS = 8;
@@ -150,9 +167,18 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   const screenFeeds = input.screenFeeds ?? stages.map(() => null);
   const screenProblem = screenFeedsProblem(screenFeeds, stages, nodes);
   if (screenProblem) return screenProblem;
-  const own = Array.isArray(supply.loads) ? supply.loads : [];
+  const bleederOhms = input.bleederOhms;
+  if (bleederOhms !== undefined && !(typeof bleederOhms === 'number' && bleederOhms >= MIN_BLEEDER_OHMS && bleederOhms <= MAX_BLEEDER_OHMS)) {
+    return fail('invalid-input', `A bleeder across the reservoir must be from ${MIN_BLEEDER_OHMS / 1e3} kΩ to ${MAX_BLEEDER_OHMS / 1e6} MΩ`, 'bleederOhms');
+  }
   const start = input.start;
   let volts: number[] | null = Array.isArray(start) && start.length === nodes && start.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) ? [...start] : null;
+  // The bleeder draws the reservoir's voltage (as the last round left it; before any, the highest B+ a stage asks) over
+  // its resistance: one more load at node 1, held constant for a round like the stages' currents.
+  const bleederAt = (at: readonly number[] | null) => (bleederOhms === undefined ? 0 : (at ? at[0]! : Math.max(0, ...stages.map((s) => (Number.isFinite(s?.bplus) ? s.bplus : 0)))) / bleederOhms);
+  let bleederAmps = bleederAt(volts);
+  const ownLoads = Array.isArray(supply.loads) ? supply.loads : [];
+  const ownAt = () => ownLoads.map((a, k) => (k === 0 ? a + bleederAmps : a));
   let loads: number[] = [];
   const around = input.around && Array.isArray(input.around.loads) && input.around.loads.length === nodes ? input.around : null;
   let byTangent = around !== null;
@@ -181,19 +207,23 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
     // Screens on a node of their own draw their current there, and the plates' node the rest.
     const fed = (i: number) => screenFeeds[i] !== null && screenFeeds[i] !== undefined;
     const drawn = (current: (l: SolvedLink) => number, screens: (l: SolvedLink) => number) =>
-      own.map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) - (fed(i) ? screens(l) : 0) : 0) + (screenFeeds[i] === k && fed(i) ? screens(l) : 0), 0));
+      ownAt().map((a, k) => a + channels * inPlace.links.reduce((sum, l, i) => sum + (feeds[i] === k ? current(l) - (fed(i) ? screens(l) : 0) : 0) + (screenFeeds[i] === k && fed(i) ? screens(l) : 0), 0));
     const idleScreens = (l: SolvedLink) => l.screenCurrent ?? 0;
     loads = drawn((l) => l.supplyCurrent, idleScreens);
     const solved = supplyAt(loads, volts);
     if (!solved.ok) return solved;
     const next = solved.nodes.map((n) => n.dc);
     const moved = volts ? Math.max(...next.map((v, k) => Math.abs(v - volts![k]!))) : Infinity;
-    // The stages were solved at the nodes the supply now gives (from the first round when it started from a solution).
+    // The bleeder's current was taken at the reservoir's voltage the supply now gives, and the stages were solved at
+    // the nodes it now gives (from the first round when it started from a solution).
+    const bleederSettled = bleederOhms === undefined || Math.abs(bleederAmps - bleederAt(next)) * bleederOhms <= VOLT_TOL;
     const settled =
-      volts !== null && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!)), ...screenVolts.map((v, i) => (v === null ? 0 : Math.abs(v - next[screenFeeds[i]!]!)))) <= VOLT_TOL;
+      volts !== null && bleederSettled && Math.max(...bplus.map((b, i) => Math.abs(b - next[feeds[i]!]!)), ...screenVolts.map((v, i) => (v === null ? 0 : Math.abs(v - next[screenFeeds[i]!]!)))) <= VOLT_TOL;
+    const done = settled || (moved <= VOLT_TOL / 10 && bleederSettled);
     volts = next;
+    if (!done) bleederAmps = bleederAt(next);
     yield;
-    if (settled || moved <= VOLT_TOL / 10) {
+    if (done) {
       const fedNodes = [...feeds, ...screenFeeds.filter((k): k is number => k !== null && k !== undefined)];
       if (fedNodes.some((f) => next[f]! <= MIN_NODE_VOLTS)) return cannotDeliver(next, fedNodes, loads);
       const chain = amplifierOf(placed, prepareAmplifier(placed, inPlace));
@@ -209,7 +239,7 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
         atFullPower = { volts: driven.nodes.map((n) => n.dc), loads: full };
       }
       const solvedBy = byTangent ? ('tangent' as const) : ('transient' as const);
-      const answer = { ok: true as const, amplifier: amp, supply: sup, bplus, screenVolts, loads, atFullPower, iterations: iteration, supplyBy: solvedBy };
+      const answer = { ok: true as const, amplifier: amp, supply: sup, bplus, screenVolts, loads, bleederAmps, atFullPower, iterations: iteration, supplyBy: solvedBy };
       if (!input.keepTangent) return answer;
       // Along a tangent already, it stays the one to follow: it was taken at a steady state, this answer is on its line.
       if (byTangent) return { ...answer, tangent: around! };

@@ -68,6 +68,7 @@ export function ladderOf(input: AmplifierOnSupply, r: AmplifierOnSupplyResult): 
     links: s.sections.map((x) => (x.kind === 'rc' ? { r: x.r, l: 0 } : { r: x.rdc, l: x.l })),
     feeds: input.feeds,
     ...(choke ? { choke } : {}),
+    ...(input.bleederOhms !== undefined ? { bleederOhms: input.bleederOhms } : {}),
   };
 }
 
@@ -101,6 +102,7 @@ export function supplyLowEnd(input: AmplifierOnSupply, r: AmplifierOnSupplyResul
   }
   const ladder = ladderOf(input, r);
   if (!ladder.caps.every((c) => Number.isFinite(c) && c > 0)) return fail('invalid-input', 'Every node needs its capacitor', 'supply');
+  if (ladder.bleederOhms !== undefined && !(ladder.bleederOhms >= 1)) return fail('invalid-input', 'A bleeder across the reservoir needs a resistance of at least 1 Ω', 'bleederOhms');
   const screens = Array.isArray(r.screenVolts) && r.screenVolts.length === stages.length ? r.screenVolts : stages.map(() => null);
   const placed = placedOnSupply(input.amplifier, r.bplus, screens);
   const prepared = prepareAmplifier(placed);

@@ -73,8 +73,12 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
   const nodeCount = d.sections.length + 1;
   const channels = on.channels ?? 1;
   const own = d.loads;
-  // r.loads holds every channel's stages and the supply's own loads: the circuit is one channel.
-  const extra = r.loads.map((total, k) => (own[k] ?? 0) + ((channels - 1) * (total - (own[k] ?? 0))) / channels);
+  // r.loads holds every channel's stages, the supply's own loads and the bleeder (a resistor here): the circuit is one channel.
+  const bleeder = on.bleederOhms !== undefined ? r.bleederAmps : 0;
+  const extra = r.loads.map((total, k) => {
+    const ownHere = (own[k] ?? 0) + (k === 0 ? bleeder : 0);
+    return (own[k] ?? 0) + ((channels - 1) * (total - ownHere)) / channels;
+  });
   const total = r.loads.reduce((a, x) => a + x, 0);
   const ladder = ladderOf(on, r);
   const sourceOhms = Math.max(Number.isFinite(ladder.sourceOhms) ? ladder.sourceOhms : openCircuitWinding(d).ohms, 1e-3);
@@ -83,6 +87,7 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
   const lines = [
     ...circuit.lines,
     ...extra.flatMap((a, k) => (a > 0 ? [`ISUP${k} ${supplyNode(k)} 0 DC ${g(a)}`] : [])),
+    ...(on.bleederOhms !== undefined ? [`RBLEED ${supplyNode(0)} 0 ${g(on.bleederOhms)}`] : []),
     `VSTART sx 0 DC ${g(v0)}`,
     `RSTART sx sst ${g(sourceOhms)}`,
     `SSTART sst ${circuit.rectified} sctl 0 SWSTART`,
@@ -106,6 +111,7 @@ export function benchSupply(on: AmplifierOnSupply, r: AmplifierOnSupplyResult, b
   const header = [
     `* The supply: secondary, rectifier and filter (nodes sn0, the reservoir, to sn${nodeCount - 1}); each stage's B+ an ammeter (VB<n>) from its node.`,
     ...(channels > 1 || own.some((a) => a > 0) ? ['* ISUP<k>: what this one channel does not draw at node k (the other channels at idle, the supply\'s own loads).'] : []),
+    ...(on.bleederOhms !== undefined ? [`* RBLEED: the bleeder across the reservoir; the model carries its ${(r.bleederAmps * 1e3).toPrecision(3)} mA at node 1.`] : []),
     '* A start path (VSTART, RSTART, SSTART) holds the reservoir for the operating point and the AC sweep, and opens 1 us into the transient.',
     "* The model's supply at idle (mean, ripple peak to peak), to compare with the transient's last mains cycle (meas sn<k>_avg, sn<k>_pp):",
     ...r.supply.nodes.map((n, k) => `*   sn${k}: ${n.dc.toPrecision(4)} V, ${n.ripplePp.toPrecision(3)} V${r.atFullPower ? `; at full power ${r.atFullPower.volts[k]!.toPrecision(4)} V` : ''}`),

@@ -275,6 +275,7 @@ export function ladderSupply(n: NetlistLadder): NetlistSupply {
   const lines = [`VSUP sx 0 DC ${g(v0)}`, choke ? `RSRC sx sy ${g(ladder.sourceOhms + choke.r)}` : `RSRC sx ${supplyNode(0)} ${g(ladder.sourceOhms)}`];
   if (choke) lines.push(`LCH sy ${supplyNode(0)} ${g(choke.l)}`);
   ladder.caps.forEach((c, k) => lines.push(`CN${k} ${supplyNode(k)} 0 ${g(c)}`));
+  if (ladder.bleederOhms !== undefined) lines.push(`RBLEED ${supplyNode(0)} 0 ${g(ladder.bleederOhms)}`);
   ladder.links.forEach((link, k) => {
     if (link.l > 0) lines.push(`RLK${k} ${supplyNode(k)} sl${k} ${g(Math.max(link.r, 1e-6))}`, `LLK${k} sl${k} ${supplyNode(k + 1)} ${g(link.l)}`);
     else lines.push(`RLK${k} ${supplyNode(k)} ${supplyNode(k + 1)} ${g(Math.max(link.r, 1e-6))}`);

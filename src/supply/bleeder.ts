@@ -1,5 +1,7 @@
 import { fail, type Result } from '../result';
 import { E12 } from '../parts/preferredValues';
+import type { SupplyDesign } from './supplyTypes';
+import { openCircuitWinding } from './winding';
 
 /** A DC voltage taken as safe to touch: 60 V, the limit of extra-low voltage for DC (IEC 61140, from memory). */
 export const SAFE_DC_VOLTS = 60;
@@ -50,4 +52,20 @@ export function bleederFor(capacitance: number, peakVolts: number, runningVolts:
   const watts = (peakVolts * peakVolts) / ohms;
   const partWatts = POWER_RATINGS.find((w) => w >= 2 * watts) ?? 2 * watts;
   return { ok: true, needed: true, ohms, watts, partWatts, amps: runningVolts / ohms, seconds: ohms * capacitance * Math.log(peakVolts / safeVolts) };
+}
+
+/**
+ * The bleeder a supply's capacitors need (bleederFor), from its design alone:
+ * every filter capacitor together, charged to the winding's open-circuit
+ * peak (the tubes cold or pulled: what the supply solve calls its no-load
+ * voltage). Known before the supply is solved, so the solve can carry its
+ * current; `runningVolts` (the reservoir's, once solved; the peak before)
+ * sets the current reported.
+ */
+export function bleederForSupply(d: SupplyDesign, runningVolts?: number): Result<Bleeder> {
+  const caps = typeof d === 'object' && d !== null && typeof d.input === 'object' && d.input !== null && Array.isArray(d.sections) ? [d.input.c, ...d.sections.map((s) => s?.c)] : [];
+  if (caps.length === 0 || !caps.every((c) => typeof c === 'number' && Number.isFinite(c) && c > 0)) return fail('invalid-input', 'A bleeder needs every filter capacitor of the supply');
+  const peak = Math.SQRT2 * openCircuitWinding(d).emfRms;
+  const total = (caps as number[]).reduce((a, c) => a + c, 0);
+  return bleederFor(total, peak, runningVolts === undefined || !(runningVolts >= 0) ? peak : Math.min(runningVolts, peak));
 }

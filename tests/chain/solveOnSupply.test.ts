@@ -79,6 +79,23 @@ describe('the amplifier on its supply, solved as one', () => {
     expectClose(full.volts[0]!, direct.nodes[0]!.dc, { abs: 0.01 }, 'reservoir at full power');
   });
 
+  it('a bleeder across the reservoir draws its voltage over its resistance (Ohm\'s law): the same supply as that current drawn there, every node lower', () => {
+    const bled = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], bleederOhms: 22e3 });
+    const none = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
+    if (!bled.ok || !none.ok) throw new Error('both solve');
+    const v0 = bled.supply.nodes[0]!.dc;
+    expectClose(bled.bleederAmps, v0 / 22e3, { abs: 0.01 / 22e3 }, 'the bleeder at the reservoir\'s voltage, to the rounds\' 10 mV');
+    expect(none.bleederAmps).toBe(0);
+    // Its current is node 1's load with the output stage's, and the supply is the one that current drawn there gives.
+    expectClose(bled.loads[0]!, bled.amplifier.stages[2]!.supplyCurrent + bled.bleederAmps, { rel: 1e-9 }, 'node 1 carries the bleeder');
+    const asLoad = solveOnSupply({ amplifier, supply: { ...supply, loads: [bled.bleederAmps, 0, 0] }, feeds: [2, 1, 0] });
+    if (!asLoad.ok) throw new Error(asLoad.message);
+    asLoad.supply.nodes.forEach((n, k) => expectClose(bled.supply.nodes[k]!.dc, n.dc, { abs: 0.02 }, `node ${k + 1}`));
+    bled.supply.nodes.forEach((n, k) => expect(n.dc).toBeLessThan(none.supply.nodes[k]!.dc - 0.5));
+    expect(bled.supply.nodes[0]!.ripplePp).toBeGreaterThan(none.supply.nodes[0]!.ripplePp);
+    for (const bad of [0, 500, Number.NaN, 1e8]) expect(solveOnSupply({ amplifier, supply, feeds: [2, 1, 0], bleederOhms: bad })).toMatchObject({ ok: false, field: 'bleederOhms' });
+  });
+
   it('in rounds, pausing after each, it reaches the same solution (a page runs it between frames)', () => {
     const whole = solveOnSupply({ amplifier, supply, feeds: [2, 1, 0] });
     if (!whole.ok) throw new Error(whole.message);

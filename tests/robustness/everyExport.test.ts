@@ -165,6 +165,8 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('bplusAgreement', fc.tuple(or(fc.constant('Voltage stages')), or(fc.integer({ min: 0, max: 5 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), fc.oneof(fc.constant('B+'), fc.constant('screens'), anything)), Q.bplusAgreement);
   run('bleederFor', fc.tuple(or(fc.double({ min: 1e-7, max: 1e-2 })), or(fc.double({ min: 1, max: 2000 })), or(fc.double({ min: 0, max: 2000 })), or(fc.double({ min: 0.1, max: 600 })), or(fc.double({ min: 1, max: 100 }))), Q.bleederFor);
   run('solveOnSupply', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: near({ ...supply, sections: [], loads: [0] }), feeds: or(fc.constant([0, 0])) })), Q.solveOnSupply, 12);
+  run('solveOnSupply (a bleeder)', fc.tuple(fc.record({ amplifier: fc.constant({ source: { rsource: 1e3 }, stages: chainStages.slice(0, 2) }), supply: fc.constant({ ...supply, sections: [], loads: [0] }), feeds: fc.constant([0, 0]), bleederOhms: or(fc.double({ min: 1e3, max: 1e7 })) })), Q.solveOnSupply, 12);
+  run('bleederForSupply', fc.tuple(fc.oneof(near(supply), near({ ...supply, input: { kind: 'choke', l: 10, rdc: 150, c: 47e-6 } }), anything), or(fc.double({ min: 0, max: 2000 }))), Q.bleederForSupply);
   // A pentode output stage's screens on a node of their own (or a screen feed that is no node, or for no screens).
   const screenedAmplifier = { source: { rsource: 1e3 }, stages: [chainStages[0]!, { ...chainStages[2]!, connection: 'pentode', screenVolts: 280 }] };
   const oneSection = { ...supply, sections: [{ kind: 'rc', r: 1000, c: 47e-6 }], loads: [0, 0] };

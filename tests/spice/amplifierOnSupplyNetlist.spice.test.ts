@@ -92,8 +92,8 @@ function withLeak(on: AmplifierOnSupply, ohms: number) {
 
 const cases: { label: string; on: AmplifierOnSupply; feedback?: number; bias?: (on: AmplifierOnSupply) => NetlistBias; check?: { hum: boolean } }[] = [
   {
-    label: 'two channels of common cathode → follower → single-ended 300B, silicon full wave, two R–C sections',
-    on: { amplifier: seTriode, supply: supply({ sections: [{ kind: 'rc', r: 1e3, c: 47e-6 }, { kind: 'rc', r: 8.2e3, c: 22e-6 }], loads: [0, 0, 0] }), feeds: [2, 2, 0], channels: 2 },
+    label: 'two channels of common cathode → follower → single-ended 300B, silicon full wave, two R–C sections, a 47 kΩ bleeder',
+    on: { amplifier: seTriode, supply: supply({ sections: [{ kind: 'rc', r: 1e3, c: 47e-6 }, { kind: 'rc', r: 8.2e3, c: 22e-6 }], loads: [0, 0, 0] }), feeds: [2, 2, 0], channels: 2, bleederOhms: 47e3 },
     check: { hum: true },
   },
   {
@@ -138,8 +138,9 @@ describe.runIf(run)('the exported netlist with its supply, run by ngspice as wri
     const net = amplifierOnSupplyNetlist(c.on, { title: 'on its supply', inputPeak: peak, feedback: c.feedback ? { rf: c.feedback, cf: null } : null }, bias);
     if (!net.ok) throw new Error(net.message);
     expect(net.text).not.toMatch(/NaN|Infinity|undefined/);
-    // Every stage's B+ is drawn from its node; no stage keeps a DC source of its own.
+    // Every stage's B+ is drawn from its node; no stage keeps a DC source of its own. A bleeder is the resistor it is.
     expect(net.text).not.toMatch(/^VB\d+ \S+ 0 DC/m);
+    if (c.on.bleederOhms !== undefined) expect(net.text).toMatch(/^RBLEED sn0 0 /m);
     const r = runNgspiceFull(net.text.replace(/^\.endc$/m, 'quit 0\n.endc'));
     const open = c.feedback ? globalFeedback(placedOnSupply(c.on.amplifier, model.bplus, model.screenVolts), c.feedback) : null;
     if (open && !open.ok) throw new Error(open.message);
