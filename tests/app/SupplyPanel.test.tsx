@@ -87,6 +87,7 @@ describe('the B+ supply on the bench', () => {
     expect(Math.abs(view.result.bleederAmps - bleeder.amps)).toBeLessThanOrEqual(0.01 / bleeder.ohms);
     expect(view.result.loads[0]).toBe(view.result.bleederAmps);
     expect(document.querySelector('tr[data-node="1"]')!.textContent).toContain(`${Number((bleeder.amps * 1e3).toPrecision(3))} mA`);
+    expect(document.querySelector('tr[data-node="1"] td:last-child')!.textContent).toMatch(/^the bleeder \([\d.]+ mA\)$/);
     // The build card carries it, after the amplifier: the supply, every node and what it feeds, the currents, the bleeder.
     const card = cardSections(store.getState());
     expect(card.map((c) => c.heading).slice(0, 2)).toEqual(['Amplifier', 'B+ supply']);
