@@ -53,7 +53,8 @@ export function ratingsFindings(x: FindingInput): Finding[] {
       push('plate-voltage', 'danger', `Plate voltage ${v1(x.vpk)} V exceeds the ${r.maxPlateVoltage} V rating.`, x.vpk, r.maxPlateVoltage);
     } else if (x.bplus > r.maxPlateVoltage) {
       // A cold tube draws no current, so at switch-on the plate sees all of B+ (common practice).
-      push('cold-plate-voltage', 'warning', `At switch-on, before the heater warms, the plate sees the full B+ of ${v1(x.bplus)} V, above the ${r.maxPlateVoltage} V rating.`, x.bplus, r.maxPlateVoltage);
+      // The record holds the working rating; many sheets rate a cold plate higher (Va0, from memory), which it does not hold.
+      push('cold-plate-voltage', 'warning', `At switch-on, before the heater warms, the plate sees the full B+ of ${v1(x.bplus)} V, above the ${r.maxPlateVoltage} V rating for a working tube. Many data sheets rate a cold plate higher (Va0): check the sheet, or bring B+ up after the heaters (a rectifier tube or a slow start, common practice).`, x.bplus, r.maxPlateVoltage);
     }
 
     const hk = rec.directlyHeated ? null : heaterCathodeRating(r);

@@ -20,7 +20,7 @@ describe('ratingsFindings', () => {
   it('flags plate voltage over the 300 V rating, and full B+ at switch-on', () => {
     expect(ratingsFindings({ ...base, vpk: 320 }).some((x) => x.kind === 'plate-voltage' && x.severity === 'danger')).toBe(true);
     const cold = ratingsFindings({ ...base, bplus: 350 }).find((x) => x.kind === 'cold-plate-voltage');
-    expect(cold?.message).toBe('At switch-on, before the heater warms, the plate sees the full B+ of 350 V, above the 300 V rating.');
+    expect(cold?.message).toBe('At switch-on, before the heater warms, the plate sees the full B+ of 350 V, above the 300 V rating for a working tube. Many data sheets rate a cold plate higher (Va0): check the sheet, or bring B+ up after the heaters (a rectifier tube or a slow start, common practice).');
   });
 
   it('checks heater-to-cathode voltage against 180 V either polarity (Tung-Sol 12AX7, design-centre; shared reference § 12AX7)', () => {
