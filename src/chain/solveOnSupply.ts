@@ -7,6 +7,7 @@ import { prepareAmplifier, solveStagesInPlace } from './prepareAmplifier';
 import { amplifierOf } from './solveAmplifier';
 import type { SolvedLink } from './stageKind';
 import { SCREEN_FROM_BPLUS_VOLTS } from '../output/screenFeed';
+import { bleederOhmsProblem } from '../supply/bleeder';
 
 export interface AmplifierOnSupply {
   readonly amplifier: ChainInput;
@@ -124,10 +125,6 @@ export function placedOnSupply(amplifier: ChainInput, bplus: readonly number[], 
   };
 }
 
-/** The bleeders taken across a reservoir, Ω: from 1 kΩ (watts of heat at B+) to bleederFor's largest, 10 MΩ. */
-const MIN_BLEEDER_OHMS = 1e3;
-const MAX_BLEEDER_OHMS = 10e6;
-
 /** Channels one supply may feed (a multichannel amplifier beyond this has more than one supply). */
 export const MAX_CHANNELS = 8;
 
@@ -168,9 +165,8 @@ export function* solveOnSupplyInRounds(input: AmplifierOnSupply): Generator<void
   const screenProblem = screenFeedsProblem(screenFeeds, stages, nodes);
   if (screenProblem) return screenProblem;
   const bleederOhms = input.bleederOhms;
-  if (bleederOhms !== undefined && !(typeof bleederOhms === 'number' && bleederOhms >= MIN_BLEEDER_OHMS && bleederOhms <= MAX_BLEEDER_OHMS)) {
-    return fail('invalid-input', `A bleeder across the reservoir must be from ${MIN_BLEEDER_OHMS / 1e3} kΩ to ${MAX_BLEEDER_OHMS / 1e6} MΩ`, 'bleederOhms');
-  }
+  const bleederProblem = bleederOhms === undefined ? null : bleederOhmsProblem(bleederOhms);
+  if (bleederProblem) return bleederProblem;
   const start = input.start;
   let volts: number[] | null = Array.isArray(start) && start.length === nodes && start.every((v) => typeof v === 'number' && Number.isFinite(v) && v > 0) ? [...start] : null;
   // The bleeder draws the reservoir's voltage (as the last round left it; before any, the highest B+ a stage asks) over

@@ -1,6 +1,7 @@
 import { finding, type Finding } from '../stage/ratingBands';
 import { fail, type Result } from '../result';
 import { checkSupply } from '../supply/checkSupply';
+import { bleederOhmsProblem } from '../supply/bleeder';
 import { cdetPolar } from '../signal/complex';
 import { chainCorners, chainGainAt, fillChain, REFERENCE_HZ, scratchFor, type ChainNetwork, type SupplyLadder } from './chainResponse';
 import { prepareAmplifier } from './prepareAmplifier';
@@ -102,7 +103,8 @@ export function supplyLowEnd(input: AmplifierOnSupply, r: AmplifierOnSupplyResul
   }
   const ladder = ladderOf(input, r);
   if (!ladder.caps.every((c) => Number.isFinite(c) && c > 0)) return fail('invalid-input', 'Every node needs its capacitor', 'supply');
-  if (ladder.bleederOhms !== undefined && !(ladder.bleederOhms >= 1)) return fail('invalid-input', 'A bleeder across the reservoir needs a resistance of at least 1 Ω', 'bleederOhms');
+  const bleederProblem = ladder.bleederOhms === undefined ? null : bleederOhmsProblem(ladder.bleederOhms);
+  if (bleederProblem) return bleederProblem;
   const screens = Array.isArray(r.screenVolts) && r.screenVolts.length === stages.length ? r.screenVolts : stages.map(() => null);
   const placed = placedOnSupply(input.amplifier, r.bplus, screens);
   const prepared = prepareAmplifier(placed);

@@ -1,4 +1,4 @@
-import { fail, type Result } from '../result';
+import { fail, type Failure, type Result } from '../result';
 import { E12 } from '../parts/preferredValues';
 import type { SupplyDesign } from './supplyTypes';
 import { openCircuitWinding } from './winding';
@@ -12,6 +12,15 @@ export const BLEED_SECONDS = 30;
 export type Bleeder = { readonly needed: false } | NeededBleeder;
 
 const MAX_BLEEDER_OHMS = 10e6;
+
+/**
+ * A bleeder across a reservoir the supply solve takes: from 1 Ω (bleederFor
+ * sizes none smaller) to MAX_BLEEDER_OHMS (none larger), so whatever the
+ * design asks is taken; the first problem, or null.
+ */
+export function bleederOhmsProblem(ohms: unknown): Failure | null {
+  return typeof ohms === 'number' && ohms >= 1 && ohms <= MAX_BLEEDER_OHMS ? null : fail('invalid-input', 'A bleeder across the reservoir must be from 1 Ω to 10 MΩ', 'bleederOhms');
+}
 /** Resistor power ratings commonly stocked, W. */
 const POWER_RATINGS = [0.25, 0.5, 1, 2, 3, 5, 7, 10, 15, 25, 50];
 
