@@ -85,6 +85,7 @@ export { stagePartsList, capacitorsForCorner, TUBE_CURRENT_SPREAD, type Resistor
 export { productionSpread, type Spread, type SpreadSample } from './build/spread';
 export { envelopesOf, type EnvelopeCount } from './build/envelopes';
 export { heaterTotals, droppingResistor, heaterElevation, decouplingFilter, HEATER_TOLERANCE, type HeaterPlan, type DroppingResistor, type DecouplingResult } from './build/supply';
+export { elevationDivider, type ElevationDivider } from './build/elevationDivider';
 export { RESISTOR_WATTS, CAPACITOR_VOLTS, RATING_MARGIN, roundUpTo } from './build/ratings';
 export { supplyPartsList, MAINS_HIGH, DIODE_VOLTS, ELECTROLYTIC_MAX_VOLTS, type SupplyParts, type SolvedSupply, type FilterCapacitorLine, type ChokeLine, type RectifierLine } from './build/supplyParts';
 export { parseTypicalCsv } from './fit/parseTypicalCsv';

@@ -13,16 +13,17 @@ const DIVIDER_CORNER_HZ = 2;
  * few hundred kΩ, the upper the nearest preferred value for the voltage
  * (Ohm's law), the decoupling capacitor the next E12 value up from its
  * corner's. `refs` names its parts (a splitter's Rd1, Rd2, Cd; stage 3's
- * Rd3a, Rd3b, Cd3).
+ * Rd3a, Rd3b, Cd3); `holds` names what it holds (the heaters, for an
+ * elevation divider).
  */
-export function gridDivider(refs: { readonly upper: string; readonly lower: string; readonly cap: string }, bplus: number, vgrid: number, series: PreferredSeries): { resistors: ResistorLine[]; capacitor: CapacitorLine } {
+export function gridDivider(refs: { readonly upper: string; readonly lower: string; readonly cap: string }, bplus: number, vgrid: number, series: PreferredSeries, holds = 'the grid'): { resistors: ResistorLine[]; capacitor: CapacitorLine } {
   const upper = nearestPreferred((DIVIDER_LOWER * (bplus - vgrid)) / Math.max(vgrid, 1e-3), series);
   const lower = nearestPreferred(DIVIDER_LOWER, series);
   const dividerAmps = bplus / (upper + lower);
   const shunt = (upper * lower) / (upper + lower);
   return {
     resistors: [
-      resistorLine(refs.upper, `divider upper, with ${refs.lower} setting the grid near ${vgrid} V`, upper, dividerAmps, series),
+      resistorLine(refs.upper, `divider upper, with ${refs.lower} setting ${holds} near ${vgrid} V`, upper, dividerAmps, series),
       resistorLine(refs.lower, 'divider lower', lower, dividerAmps, series),
     ],
     // Ordered at the next E12 value up (capacitors come in E12 values, common practice): the corner lands at or below the one asked.

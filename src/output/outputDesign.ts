@@ -40,6 +40,8 @@ export interface OutputDesign extends WindingInductance {
   readonly speakerOhms: number;
   /** Distortion ceiling for "power at a distortion limit", a fraction. */
   readonly thdLimit: number;
+  /** DC potential of the heaters to ground, V (a winding held above ground); default 0. Only the heater–cathode check reads it. */
+  readonly heaterVolts?: number;
 }
 
 export const OUTPUT_LIMITS = {
@@ -78,6 +80,7 @@ export function outputDesignProblem(d: OutputDesign, tube: OutputTube): Failure 
     checkNumber('rg', 'Grid resistor', d.rg, 'Ω', L.minRg, L.maxRg) ??
     checkNumber('speakerOhms', 'Speaker', d.speakerOhms, 'Ω', L.minSpeaker, L.maxSpeaker) ??
     checkNumber('thdLimit', 'Distortion limit', d.thdLimit, '', L.minThd, L.maxThd) ??
+    (d.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', d.heaterVolts, 'V', -L.maxBplus, L.maxBplus)) ??
     windingProblem(d)
   );
 }

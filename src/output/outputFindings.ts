@@ -8,7 +8,7 @@ const v0 = (x: number) => x.toFixed(Math.abs(x) < 10 ? 1 : 0);
  * The output stage against the tube's ratings, most severe first: plate and
  * screen dissipation at idle (the class A worst case: signal takes power out
  * of the plate), DC plate and screen voltage, cathode current, heater to
- * cathode (heater at ground), grid resistor for the bias kind, and the peak
+ * cathode (the heaters at the design's potential, ground by default), grid resistor for the bias kind, and the peak
  * plate swing, which a transformer load carries well above B+.
  */
 export function outputFindings(s: OutputSolution, peakPlateVolts: number | null): Finding[] {
@@ -37,9 +37,10 @@ export function outputFindings(s: OutputSolution, peakPlateVolts: number | null)
   if (r.maxCathodeCurrent !== undefined && op.ik > r.maxCathodeCurrent) {
     push('cathode-current', 'danger', `Cathode current ${(op.ik * 1e3).toFixed(1)} mA exceeds the ${(r.maxCathodeCurrent * 1e3).toFixed(0)} mA rating.`, op.ik, r.maxCathodeCurrent);
   }
-  // The output stage's heaters are taken at ground, so the cathode sits op.vk above them.
+  // The cathode against its heaters: at ground unless the design holds their winding above it. None to report with both at 0 V.
   const hk = heaterCathodeRating(r);
-  if (hk && op.vk > 0) out.push(heaterCathodeFinding(op.vk, hk));
+  const vhk = op.vk - (design.heaterVolts ?? 0);
+  if (hk && vhk !== 0) out.push(heaterCathodeFinding(vhk, hk));
   const rgMax = design.bias === 'fixed' ? r.maxGridResistanceFixedBias : r.maxGridResistanceCathodeBias;
   if (rgMax !== undefined && design.rg > rgMax) {
     push('grid-resistor', 'warning', `Grid resistor ${(design.rg / 1e3).toFixed(0)} kΩ is above the ${(rgMax / 1e3).toFixed(0)} kΩ the data sheet allows with ${design.bias} bias: risk of thermal runaway from grid current.`, design.rg, rgMax);

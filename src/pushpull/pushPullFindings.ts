@@ -44,7 +44,8 @@ export function pushPullFindings(s: PushPullSolution, figures: PushPullFigures |
     out.push(finding('cathode-current', 'danger', `Cathode current ${mA(ik)} mA per tube exceeds the ${mA(r.maxCathodeCurrent)} mA rating.`, ik, r.maxCathodeCurrent));
   }
   const hk = heaterCathodeRating(r);
-  if (hk && s.vk > 0) out.push(heaterCathodeFinding(s.vk, hk));
+  const vhk = s.vk - (d.heaterVolts ?? 0);
+  if (hk && vhk !== 0) out.push(heaterCathodeFinding(vhk, hk));
   const rgMax = d.bias === 'fixed' ? r.maxGridResistanceFixedBias : r.maxGridResistanceCathodeBias;
   if (rgMax !== undefined && d.rg > rgMax) {
     out.push(finding('grid-resistor', 'warning', `Grid resistors ${(d.rg / 1e3).toFixed(0)} kΩ are above the ${(rgMax / 1e3).toFixed(0)} kΩ the data sheet allows with ${d.bias} bias: risk of thermal runaway from grid current.`, d.rg, rgMax));

@@ -133,10 +133,12 @@ export function heaterCathodeFinding(vhk: number, rating: HeaterCathodeRating): 
   const polarity = positive ? 'cathode positive to the heater' : 'cathode negative to the heater';
   const which = rating.onePolarity ? 'the record gives one figure for both polarities' : `the rating for this polarity; the other is ${positive ? rating.cathodeNegative : rating.cathodePositive} V`;
   const text = `Heater-to-cathode voltage ${v1(magnitude)} V (${polarity}) is ${Math.round(percentOf(magnitude, limit))} % of the ${limit} V rating (${which})`;
+  // A cathode above its heater asks for the heaters to be raised; one below (heaters held too high) for them to come down.
+  const remedy = positive ? 'elevate the heater supply' : 'hold the heaters lower';
   const tail = {
-    over: ': the insulation may break down; elevate the heater supply.',
-    at: ': at its maximum rating; elevate the heater supply for margin.',
-    near: ': little margin; consider elevating the heater supply.',
+    over: `: the insulation may break down; ${remedy}.`,
+    at: `: at its maximum rating; ${remedy} for margin.`,
+    near: `: little margin; consider ${positive ? 'elevating the heater supply' : 'holding the heaters lower'}.`,
     within: '.',
   }[band];
   return finding('heater-cathode', BAND_SEVERITY[band], `${text}${tail}`, magnitude, limit);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  capacitorsForCorner, decouplingFilter, droppingResistor, findTube, heaterElevation, heaterTotals, productionSpread,
+  capacitorsForCorner, decouplingFilter, droppingResistor, elevationDivider, findTube, heaterElevation, heaterTotals, productionSpread,
   solvedStage, stagePartsList, solveStage,
 } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
@@ -126,6 +126,33 @@ describe('heater supply', () => {
     if (!r.ok) throw new Error(r.message);
     expect(r.lo).toBe(20);
     expect(r.hi).toBe(105);
+  });
+});
+
+describe('heater elevation divider', () => {
+  // Hand calculation (Ohm's law): Rh2 220 kΩ (common practice: a few hundred kΩ); Rh1 = 220k · (275 − 60) / 60 = 788 kΩ,
+  // nearest E24 (IEC 60063) 820 kΩ; the heaters sit at 275 · 220 / 1040 = 58.2 V and the divider draws 275 V / 1.04 MΩ = 0.264 mA;
+  // Ch for a 2 Hz corner with Rh1 ∥ Rh2 = 173.5 kΩ is 1 / (2π · 173.5k · 2) = 0.459 µF, next E12 value up 0.47 µF.
+  it('holds the heaters at 58.2 V from a 275 V node with 820 kΩ over 220 kΩ, decoupled by 0.47 µF', () => {
+    const r = elevationDivider(275, 60, 'E24');
+    if (!r.ok) throw new Error(r.message);
+    expect(r.resistors.map((x) => [x.ref, x.preferred])).toEqual([['Rh1', 820e3], ['Rh2', 220e3]]);
+    expectClose(r.volts, 58.17, { abs: 0.01 });
+    expectClose(r.amps, 0.2644e-3, { rel: 1e-3 });
+    expect(r.capacitor.ref).toBe('Ch');
+    expectClose(r.capacitor.value!, 0.47e-6, { rel: 1e-9 });
+    // Twice what it sees (common practice): 120 V, so the next standard rating, 160 V.
+    expect(r.capacitor.ratingVolts).toBe(160);
+    expect(r.resistors[0]!.role).toContain('the heaters near 60 V');
+  });
+
+  it('refuses an elevation the node cannot give, naming the field', () => {
+    const r = elevationDivider(100, 95);
+    expect(r.ok).toBe(false);
+    expect(!r.ok && r.field).toBe('elevation');
+    expect(!r.ok && r.message).toContain('higher node');
+    expect(elevationDivider(Number.NaN, 60).ok).toBe(false);
+    expect(elevationDivider(275, 0).ok).toBe(false);
   });
 });
 

@@ -1,20 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeOutput, analyzePushPull, findOutputTube, outputPartsList, pushPullPartsList, screenFeedPlan, type OutputDesign, type PushPullDesign } from '../../src/index';
+import { analyzeOutput, analyzePushPull, findOutputTube, outputPartsList, pushPullPartsList, screenFeedPlan, type OutputDesign } from '../../src/index';
 import { emptyCurrents, stageCurrentsInto } from '../../src/output/electrodes';
 import { screenSagFinding } from '../../src/output/screenFeed';
 import { pairScreensAtFull } from '../../src/pushpull/pushPullParts';
 import { expectClose } from '../helpers/expectClose';
+import { EL34_SCREEN_DROPPED, PAIR_6L6GC_AB1 } from '../helpers/outputDesigns';
 
 // Our own designs: an EL34 pentode with its screens 30 V under the plate's B+, and a 6L6GC pair at the RCA sheet's
 // class AB1 voltages (450 V plates, 400 V screens; from memory, as in dataSheetPushPull.test.ts).
-const el34: OutputDesign = {
-  tubeId: 'EL34', connection: 'pentode', bplus: 330, screenVolts: 300, ulTap: 0.43, zPrimary: 3500, rPrimary: 130,
-  bias: 'cathode', rk: 330, vg: -22, rg: 220e3, speakerOhms: 8, thdLimit: 0.05,
-};
-const pair6l6: PushPullDesign = {
-  tubeId: '6L6GC', connection: 'pentode', bplus: 450, screenVolts: 400, ulTap: 0.43, raa: 5600, rPrimary: 0,
-  bias: 'fixed', rk: 0, vg: -37, rg: 100e3, speakerOhms: 8, thdLimit: 0.05,
-};
+const el34 = EL34_SCREEN_DROPPED;
+const pair6l6 = PAIR_6L6GC_AB1;
 const single = (d: OutputDesign) => {
   const a = analyzeOutput(findOutputTube(d.tubeId)!, d, { light: true });
   if (!a.ok) throw new Error(a.message);

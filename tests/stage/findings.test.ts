@@ -54,6 +54,9 @@ describe('ratingsFindings', () => {
     const negative = ratingsFindings({ ...base, tube: au7, vk: 2, heaterVolts: 150 }).find((x) => x.kind === 'heater-cathode');
     expect(negative).toMatchObject({ severity: 'danger', value: 148, limit: 100 });
     expect(negative?.message).toContain('cathode negative to the heater');
+    // Held too high, the remedy is to bring the heaters down, not to elevate them further.
+    expect(negative?.message).toMatch(/: the insulation may break down; hold the heaters lower\.$/);
+    expect(positive?.message).not.toContain('hold the heaters lower');
   });
 
   it('a figure at its rating is a warning, never a danger: 2A3 at 15 W against its 15 W rating (2A3 record: from memory)', () => {
