@@ -15,7 +15,8 @@ import { feedbackBrief } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
 import { canvasBlob, EXPORT_FONTS, svgDocument, svgImage } from './chartImage';
 import { drivenOutputSection, outputCardSections } from './outputCard';
-import { elevationAdvice } from '../ui/panels/elevationAdvice';
+import { dividerWords, elevationAdvice } from '../ui/panels/elevationAdvice';
+import { elevationOf } from '../store/heaterChoice';
 import { outputMeterWords, triodeMeterLines } from '../ui/panels/meterWords';
 import type { TriodeBox } from '../store/meterPlan';
 import { shownMeterRows } from '../store/meterRows';
@@ -150,16 +151,19 @@ function voltageCardSections(s: WorkbenchState): { heading: string; lines: strin
   const windings = heaterWindingsOf(s);
   const windingLines = windings.ok
     ? [
-        ...windings.windings.map((w) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}`),
-        ...(windings.dc ? [`DC heater supply ${plain(windings.dc.volts)} V, ${plain(windings.dc.amps)} A: ${windings.dc.feeds.join(', ')}`] : []),
+        ...windings.windings.map((w, i) => `Winding ${plain(w.volts)} V, ${plain(w.amps)} A (${plain(w.va)} VA): ${w.feeds.join(', ')}${w.atBplus ? ', at B+' : ''}${windings.held[i] ? `, held at ${plain(windings.heldVolts)} V` : ''}`),
+        ...(windings.dc ? [`DC heater supply ${plain(windings.dc.volts)} V, ${plain(windings.dc.amps)} A: ${windings.dc.feeds.join(', ')}${windings.heldVolts !== 0 ? `, held at ${plain(windings.heldVolts)} V` : ''}`] : []),
       ]
     : [windings.message];
-  sections.push({ heading: 'Heaters', lines: [build.elevation.ok ? elevationAdvice(build.elevation) : build.elevation.message, ...windingLines] });
+  const held = elevationOf(s.design.heaters);
+  const divider = build.elevationDivider;
+  sections.push({ heading: 'Heaters', lines: [build.elevation.ok ? elevationAdvice(build.elevation, held) : build.elevation.message, ...(divider ? [dividerWords(divider)] : []), ...windingLines] });
   sections.push({
     heading: 'Parts to order',
     lines: [
       ...build.stages.filter((st) => st.onBench).flatMap(partLines),
       feedbackPartLine(s) ?? '',
+      divider?.divider.ok ? `Heater elevation ${divider.divider.resistors.map((r) => `${r.ref} ${ohms(r.preferred)} ${r.ratingWatts} W`).join(', ')}, Ch ${farads(divider.divider.capacitor.value ?? 0)} ${divider.divider.capacitor.ratingVolts} V` : '',
       build.dropper?.ok && build.dropper.preferred > 0 ? `Heater dropper ${ohms(build.dropper.preferred)} ${build.dropper.ratingWatts} W from the ${plain(s.design.heaters.dcVolts)} V DC supply${s.design.supply.channels > 1 ? `, one for each channel (${s.design.supply.channels})` : ''}` : '',
       // With the supply solved its own ladder filters the stages (its parts are listed with it): the one-section estimate is not theirs.
       build.filter.ok && !s.design.supply.on ? `B+ filter ${ohms(s.buildInputs.filterR)} / ${farads(s.buildInputs.filterC)} from ${volts(railOf(s))}: drop ${volts(build.filter.dropVolts)}, ripple ${build.filter.ripple100Db.toFixed(0)} dB at 100 Hz` : '',

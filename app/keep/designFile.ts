@@ -21,7 +21,7 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  *                                      splitter: { kind, tubeId, bplus, ra, ra2, rk, rtail, vgrid, rg, cc, coupling, rstopper? } }, drivesOutput,
  *                 supply: { on, mainsHz, mainsVolts?, secondaryRms, windingOhms, rectifier, input, sections, feeds,
  *                           channels, secondaryAmps, humRms, bias? },
- *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring } }, feedbackRf, feedbackCf,
+ *                 heaters: { voltageStages: "ac" | "dc", dcVolts, wiring: { tubeId: wiring }, elevationVolts? }, feedbackRf, feedbackCf,
  *                 before: [stage…], after: [stage…], readings?, outputReadings? } }
  *
  * Version 3 holds the whole chain of voltage stages: the design's own
@@ -50,7 +50,8 @@ import { MAX_VOLTAGE_STAGES, normalized, type StagePlan } from '../store/stagePl
  * windingOhms, reservoir, r, c }): absent, the bench's default; its
  * `mainsVolts` (the nominal mains, V): absent, 230 V; and
  * `heaters` (how the small tubes are lit, heaterChoice.ts): absent, the
- * bench's default (on the AC heater winding); `feedbackRf` (global
+ * bench's default (on the AC heater winding), and its `elevationVolts`
+ * (the heaters held above ground, V): absent, at ground; `feedbackRf` (global
  * feedback's resistor, Ω, or null) and `feedbackCf` (a capacitor across
  * it, F, or null): absent, none; `rstopper` (a gain stage's, a
  * follower's or a splitter's grid stopper, Ω, 0 for none; the

@@ -206,6 +206,8 @@ export const HEATERS = v.object({
     section({
       voltageStages: oneOf(['ac', 'dc']),
       dcVolts: ranged(L.heaterDcVolts),
+      // Came later within version 3 (heater elevation): absent, at ground.
+      elevationVolts: v.optional(ranged(L.heaterElevationVolts)),
       wiring: v.record(
         v.custom<string>((x) => typeof x === 'string' && x.length <= 60, 'must be keyed by tube names of at most 60 characters'),
         v.custom<string>((x) => typeof x === 'string' && x.length <= 60, 'must name a heater wiring (text of at most 60 characters)'),

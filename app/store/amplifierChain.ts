@@ -15,8 +15,10 @@ import {
 } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import { volumeShare } from './volumeShare';
+import { elevationOf } from './heaterChoice';
 import type { BenchDesign } from './analysis';
-import { drivesPair, outputOnSupply, pushPullDesignOf } from './outputPlan';
+import { drivesPair, pushPullDesignOf } from './outputPlan';
+import { outputPlaced } from './heaterSharing';
 import { bplusOfStage, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
 
 /** A stage as the chain strip names it. */
@@ -61,20 +63,22 @@ function tubesOf(list: readonly StagePlan[], registry: TubeRegistry): Tubes {
   return { ok: true, tubes };
 }
 
-/** The model's chain stages for voltage plans (their tubes looked up). */
-function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[]): ChainStage[] {
+/** The model's chain stages for voltage plans (their tubes looked up), their heaters at `heaterVolts` (absent at 0 V: ground). */
+function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[], heaterVolts: number): ChainStage[] {
+  const heater = heaterVolts !== 0 ? { heaterVolts } : {};
   return list.map((p, i): ChainStage => {
     const tube = tubes[i]!;
     if (p.kind === 'follower') {
       const c = p.coupling;
       const coupling = c ? { vbias: c.vbias, coupling: { kind: 'capacitor' as const, cc: c.cc, rg: c.rg } } : { coupling: { kind: 'direct' as const } };
-      return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, ...coupling, ...(p.rstopper ? { rstopper: p.rstopper } : {}) };
+      return { kind: 'follower', tube, bplus: bplusOfStage(list, i), rk: p.rk, ...coupling, ...(p.rstopper ? { rstopper: p.rstopper } : {}), ...heater };
     }
     return {
       kind: 'common-cathode', tube, bplus: p.bplus, ra: p.ra, rk: p.rk, bypassed: p.bypassed,
       ...(p.bypassed && p.ck !== null && p.rk > 0 ? { ck: p.ck } : {}),
       ...(p.rstopper ? { rstopper: p.rstopper } : {}),
       ...(p.volume != null && p.cc !== null ? { volume: volumeShare(p.volume) } : {}),
+      ...heater,
       coupling: p.cc === null ? { kind: 'direct' } : { kind: 'capacitor', cc: p.cc, rg: p.rg },
     };
   });
@@ -85,7 +89,9 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
   const list = voltageStages(d);
   const found = tubesOf(list, registry);
   if (!found.ok) return null;
-  const stages = chainStagesOf(list, found.tubes);
+  const heaterVolts = elevationOf(d.heaters);
+  const heater = heaterVolts !== 0 ? { heaterVolts } : {};
+  const stages = chainStagesOf(list, found.tubes, heaterVolts);
   const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i, role: 'voltage' }));
   const outputTube = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
   if (outputTube && d.output.pair === 'push-pull') {
@@ -99,15 +105,15 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
     const grid = direct ? {} : { vbias: sp.vgrid };
     stages.push(
       sp.kind === 'split-load'
-        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), coupling: into }
-        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), coupling: into },
+        ? { kind: 'split-load', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, rk: sp.rk, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), ...heater, coupling: into }
+        : { kind: 'long-tailed-pair', tube: splitterTube, bplus: sp.bplus, ra: sp.ra, ra2: sp.ra2, rk: sp.rk, rtail: sp.rtail, heldGridLeak: sp.rg, ...grid, ...(sp.rstopper ? { rstopper: sp.rstopper } : {}), ...heater, coupling: into },
     );
     names.push({ title: 'Splitter', tube: splitterTube.id, bench: 'output', voltageIndex: null, role: 'splitter' });
-    const { tubeId: _id, rg, ...parts } = pushPullDesignOf(outputOnSupply(d, d.output));
+    const { tubeId: _id, rg, ...parts } = pushPullDesignOf(outputPlaced(d, d.output, registry));
     stages.push({ ...parts, kind: 'push-pull-output', tube: outputTube, coupling: { kind: 'capacitor', cc: sp.cc, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   } else if (outputTube) {
-    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, idleMismatch: _idle, splitter: _sp, ...parts } = outputOnSupply(d, d.output);
+    const { tubeId: _id, rg, pair: _pair, raa: _raa, mismatch: _mismatch, idleMismatch: _idle, splitter: _sp, ...parts } = outputPlaced(d, d.output, registry);
     stages.push({ ...parts, kind: 'single-ended-output', tube: outputTube, coupling: { kind: 'capacitor', cc: d.cout ?? IDEAL_CC, rg } });
     names.push({ title: 'Output', tube: outputTube.id, bench: 'output', voltageIndex: null, role: 'output' });
   }
@@ -158,7 +164,8 @@ export function benchSource(d: BenchDesign, registry: TubeRegistry): Result<{ oh
 function solvePrefix(before: readonly StagePlan[], rsource: number, registry: TubeRegistry): Result<{ ohms: number }> {
   const found = tubesOf(before, registry);
   if (!found.ok) return found;
-  const r = solveAmplifier({ source: { rsource }, stages: chainStagesOf(before, found.tubes) });
+  // Only the last one's output impedance is wanted here, which the heaters' potential does not move.
+  const r = solveAmplifier({ source: { rsource }, stages: chainStagesOf(before, found.tubes, 0) });
   if (!r.ok) return { ...r, message: `A stage before this one cannot run: ${r.message}` };
   return { ok: true, ohms: r.stages[r.stages.length - 1]!.zout };
 }

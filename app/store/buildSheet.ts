@@ -1,12 +1,14 @@
 import { outputIdleAmps } from './outputAnalysis';
 import {
-  amplifierParts, envelopesOf, capacitorsForCorner, decouplingFilter, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread, recordOf,
-  solveStage, stagePartsList, type CapacitorForCorner, type ChainInput, type ChainResult, type DecouplingResult, type DroppingResistor,
-  type Failure, type HeaterOption, type HeaterPlan, type Spread, type StageParts, type TubeRecord,
+  amplifierParts, envelopesOf, capacitorsForCorner, decouplingFilter, droppingResistor, elevationDivider, heaterElevation, heaterTotals, normalizeStage, productionSpread, recordOf,
+  solveStage, stagePartsList, type CapacitorForCorner, type ChainInput, type ChainResult, type DecouplingResult, type DroppingResistor, type ElevationDivider,
+  type Failure, type HeaterOption, type HeaterPlan, type PreferredSeries, type Spread, type StageParts, type TubeRecord,
 } from '../../src/index';
 import { stageDesignOf } from './analysis';
+import { elevationOf } from './heaterChoice';
+import { outputSharesSmallWinding } from './heaterSharing';
 import { drivesPair } from './outputPlan';
-import { benchIndex, IDEAL_CC, voltageStages } from './stagePlans';
+import { benchIndex, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
 /** The builder's own inputs for the build sheet. */
@@ -48,6 +50,12 @@ export interface BuildSheet {
   /** The DC heater supply's dropping resistor; null with the heaters on the AC winding. */
   readonly dropper: ({ ok: true } & DroppingResistor) | Failure | null;
   readonly elevation: { ok: true; lo: number | null; hi: number | null; suggested: number; groundedOk: boolean } | Failure;
+  /**
+   * The divider holding the heaters at the design's elevation, from the
+   * lowest voltage stage's B+ (the best-filtered node a gain stage uses),
+   * named by that stage; null with the heaters at ground.
+   */
+  readonly elevationDivider: { readonly stage: number; readonly fromVolts: number; readonly divider: ({ ok: true } & ElevationDivider) | Failure } | null;
   readonly filter: ({ ok: true } & DecouplingResult) | Failure;
   /** Where the bench's stage then sits, with the filter's B+. */
   readonly filteredOp: { va: number; ia: number } | null;
@@ -135,25 +143,41 @@ function compute(s: WorkbenchState): BuildSheet {
     tubes,
     heaters,
     dropper,
-    elevation: heaterElevation(amp && view ? elevationStages(view.input, amp) : [{ name: `stage ${bench + 1}`, vk: sol.op.vk, ...hk(tube1) }]),
+    elevation: heaterElevation(amp && view ? elevationStages(view.input, amp, outputSharesSmallWinding(d, s.registry)) : [{ name: `stage ${bench + 1}`, vk: sol.op.vk, ...hk(tube1) }]),
+    elevationDivider: dividerFor(list, elevationOf(d.heaters), d.series),
     filter,
     totalBplusAmps,
     outputBplusAmps: d.drivesOutput ? outputIdleAmps(s.outputBench) : 0,
   };
 }
 
+/** The elevation divider from the lowest gain stage's B+ (the first such, on a tie); null at ground. */
+function dividerFor(list: readonly StagePlan[], volts: number, series: PreferredSeries): BuildSheet['elevationDivider'] {
+  if (volts === 0) return null;
+  const gains = list.flatMap((p, stage) => (p.kind === 'common-cathode' ? [{ stage, fromVolts: p.bplus }] : []));
+  const lowest = gains.reduce<(typeof gains)[number] | undefined>((a, g) => (a && a.fromVolts <= g.fromVolts ? a : g), undefined);
+  return lowest ? { ...lowest, divider: elevationDivider(lowest.fromVolts, volts, series) } : null;
+}
+
 /** A tube's heater–cathode ratings as the elevation check takes them (a directly heated tube's filament is its cathode: none). */
-function hk(tube: TubeRecord) {
+function hk(tube: { readonly directlyHeated?: boolean; readonly ratings: { readonly maxHeaterCathodeVoltage: number | null; readonly maxHeaterCathodeVoltageCathodeNegative?: number } }) {
   return {
     maxVhk: tube.directlyHeated ? null : tube.ratings.maxHeaterCathodeVoltage,
     ...(tube.ratings.maxHeaterCathodeVoltageCathodeNegative !== undefined ? { maxVhkCathodeNegative: tube.ratings.maxHeaterCathodeVoltageCathodeNegative } : {}),
   };
 }
 
-/** Every voltage stage's and the splitter's cathode, on the heater supply they share (the output stage has its own winding). */
-function elevationStages(input: ChainInput, amp: ChainResult) {
+/**
+ * Every voltage stage's and the splitter's cathode, on the heater supply they
+ * share, and the output stage's when its tubes' heaters are on that winding
+ * too (`withOutput`; else they have their own).
+ */
+function elevationStages(input: ChainInput, amp: ChainResult, withOutput: boolean) {
   return input.stages.flatMap((st, i) => {
-    if (st.kind === 'single-ended-output' || st.kind === 'push-pull-output') return [];
+    if (st.kind === 'single-ended-output' || st.kind === 'push-pull-output') {
+      const solved = amp.stages[i];
+      return withOutput && solved ? [{ name: 'the output stage', vk: solved.op.vk, ...hk(st.tube) }] : [];
+    }
     const tube = recordOf(st.tube);
     const solved = amp.stages[i];
     if (!tube || !solved) return [];

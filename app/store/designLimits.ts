@@ -57,6 +57,8 @@ export const DESIGN_LIMITS = {
   meterGrid: limit(-1000, 0, 'V'),
   /** A DC heater supply: from a 1.5 V cell to a string of heaters in series. */
   heaterDcVolts: limit(0.5, 500, 'V'),
+  /** The small tubes' heaters held above ground: 0 (at ground) up to where a divider from a high B+ node still divides. */
+  heaterElevationVolts: limit(0, 500, 'V'),
   splitter: {
     bplus: limit(5, 1500, 'V'),
     ra: limit(100, 10e6, 'Ω'),

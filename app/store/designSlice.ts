@@ -7,7 +7,8 @@ import { analyzeAmplifier, splitterRefusal, type AmplifierView } from './amplifi
 import { analyzeRival, analyzeRivalAmplifier, sharedWindow } from './compareSlice';
 import { analyzeFollowerBench, type FollowerBench } from './followerBench';
 import { analyzeOutputBench, rivalOutputDesign, sharedOutputWindow } from './outputAnalysis';
-import { outputOnSupply, screensOnNode } from './outputPlan';
+import { screensOnNode } from './outputPlan';
+import { outputHeaterVolts, outputPlaced } from './heaterSharing';
 import { customTubes } from '../keep/customTubes';
 import { tubeRegistry, type TubeRegistry } from './tubeRegistry';
 import { autoTitle } from './autoTitle';
@@ -237,14 +238,16 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const outputShown = !showsVoltage || next.drivesOutput;
     // Where the supply feeds the screens is the output stage's too (a dropper, or their own node).
     const screensMoved = screensOnNode(next) !== screensOnNode(s.design);
-    if (next.output !== s.design.output || screensMoved || opts.force || (!light && outputShown && s.outputBench.light)) {
+    // So is the potential of its heaters, when they share the small tubes' winding held above ground.
+    const heatersMoved = next.heaters !== s.design.heaters && outputHeaterVolts(next, s.registry) !== outputHeaterVolts(s.design, s.registry);
+    if (next.output !== s.design.output || screensMoved || heatersMoved || opts.force || (!light && outputShown && s.outputBench.light)) {
       const outputLight = light || !outputShown;
       const window = opts.outputExtent ?? sharedOutputWindow(next.output, s.outputRival);
-      const ob = analyzeOutputBench(outputOnSupply(next, next.output), s.outputBench, { light: outputLight, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
+      const ob = analyzeOutputBench(outputPlaced(next, next.output, s.registry), s.outputBench, { light: outputLight, maxCurves: s.curveCount, ...(window ? { extent: window } : {}) });
       if (!ob.ok) return ob;
       patch.outputBench = ob;
       const prevRival = s.outputRivalBench && s.outputRivalBench.ok ? s.outputRivalBench : null;
-      patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(outputOnSupply(next, next.output), s.outputRival), prevRival, { light: outputLight, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
+      patch.outputRivalBench = s.outputRival.on ? analyzeOutputBench(rivalOutputDesign(outputPlaced(next, next.output, s.registry), s.outputRival), prevRival, { light: outputLight, maxCurves: s.curveCount, extent: ob.analysis.sheet.extent }) : null;
     }
     // The whole amplifier follows every full pass; a drag or keystroke shows the last one, marked as behind.
     if (next !== s.design || opts.force || s.amplifier?.stale) {

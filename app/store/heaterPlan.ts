@@ -2,6 +2,7 @@ import { findOutputTube, findRectifierTube, heaterWindings, type HeaterLoad, typ
 import { buildSheetOf } from './buildSheet';
 import { outputTubesPerChannel } from './outputPlan';
 import type { WorkbenchState } from './workbenchStore';
+import { elevationOf } from './heaterChoice';
 
 /** The DC heater supply the small tubes run from, when the builder chose one: its voltage, the current it delivers and what it lights. */
 export interface DcHeaterSupply {
@@ -10,7 +11,13 @@ export interface DcHeaterSupply {
   readonly feeds: readonly string[];
 }
 
-export type HeaterWindingsView = Result<{ windings: readonly HeaterWinding[]; dc: DcHeaterSupply | null }>;
+export type HeaterWindingsView = Result<{
+  windings: readonly HeaterWinding[];
+  dc: DcHeaterSupply | null;
+  /** The potential the small tubes' heater supply is held at, V (0: ground), and which windings (by place) it holds: those lighting a small tube. */
+  heldVolts: number;
+  held: readonly boolean[];
+}>;
 
 /** Keyed by the build sheet's tube list (the same object through a drag), with what else the windings depend on. */
 const cache = new WeakMap<object, { key: string; heaters: object; view: HeaterWindingsView }>();
@@ -51,7 +58,12 @@ export function heaterWindingsOf(s: WorkbenchState): HeaterWindingsView {
   const dc = onDc && sheet.heaters.ok
     ? { volts: d.heaters.dcVolts, amps: sheet.heaters.totalAmps * channels, feeds: small.map((l) => (l.count > 1 ? `${l.count} × ${l.label}` : l.label)) }
     : null;
-  const view: HeaterWindingsView = windings.ok ? { ok: true, windings: windings.windings, dc } : windings;
+  // A winding is held where it lights a small tube (the elevation divider returns its centre tap); the output tubes ride along on it.
+  const smallLabels = new Set(small.flatMap((l) => [l.label, `${l.count} × ${l.label}`]));
+  const heldVolts = elevationOf(d.heaters);
+  const view: HeaterWindingsView = windings.ok
+    ? { ok: true, windings: windings.windings, dc, heldVolts, held: windings.windings.map((w) => !onDc && heldVolts !== 0 && w.feeds.some((f) => smallLabels.has(f))) }
+    : windings;
   cache.set(tubes, { key, heaters: d.heaters, view });
   return view;
 }

@@ -3,15 +3,15 @@ import { ohms, plain, watts } from '../../format';
 import { buildSheetOf } from '../../store/buildSheet';
 import { DESIGN_LIMITS } from '../../store/designLimits';
 import { useWorkbench } from '../../store/StoreProvider';
-import { elevationAdvice } from './elevationAdvice';
-
-const DC = DESIGN_LIMITS.heaterDcVolts;
+import { dividerWords, elevationAdvice } from './elevationAdvice';
+import { elevationOf } from '../../store/heaterChoice';
+import type { Limit } from '../../store/designLimits';
 
 /**
  * The build sheet's heaters: where the small tubes are lit from (the
  * transformer's heater winding, or a DC supply with its dropping resistor),
- * each type's wiring and envelopes, what they draw, and the heater-elevation
- * advice. The choice is part of the design (an undo step, saved and shared);
+ * each type's wiring and envelopes, what they draw, and the heater elevation:
+ * the advice, the potential the builder holds them at and its divider. The choice is part of the design (an undo step, saved and shared);
  * the output and rectifier tubes' windings are listed with the supply.
  */
 export function HeaterSection() {
@@ -42,31 +42,34 @@ export function HeaterSection() {
       {sheet.heaters.ok ? (
         <p data-testid="heater-totals">{`${onDc ? 'From the DC heater supply' : 'From the heater winding'}: ${sheet.heaters.volts} V, ${plain(sheet.heaters.totalAmps)} A, ${plain(sheet.heaters.totalWatts)} W for the voltage stages${channels > 1 ? ' of each channel' : ''}${onDc ? '' : ' (the winding, with the output tubes on it, is listed with the B+ supply)'}.`}</p>
       ) : <p className="field-error">{sheet.heaters.message}</p>}
-      {onDc ? <DcSupply volts={heaters.dcVolts} onVolts={(v) => setHeaters({ dcVolts: v })} /> : null}
+      {onDc ? <VoltsBox label="DC heater supply (V)" limit={DESIGN_LIMITS.heaterDcVolts} volts={heaters.dcVolts} onVolts={(v) => setHeaters({ dcVolts: v })} /> : null}
       {sheet.dropper && !sheet.dropper.ok ? <p className="field-error" role="alert">{sheet.dropper.message}</p> : null}
       {sheet.dropper?.ok ? (
         <p data-testid="dropper">{sheet.dropper.preferred === 0 ? 'No dropping resistor needed.' : `Dropping resistor ${ohms(sheet.dropper.exact)} exactly, order ${ohms(sheet.dropper.preferred)} (${sheet.dropper.ratingWatts} W)${channels > 1 ? ', one for each channel' : ''}: heaters at ${plain(sheet.dropper.heaterVolts)} V, resistor dissipating ${watts(sheet.dropper.watts)}.`}{sheet.dropper.warning ? <span className="field-error"> {sheet.dropper.warning}</span> : null}</p>
       ) : null}
-      {sheet.elevation.ok ? <p data-testid="elevation">{elevationAdvice(sheet.elevation)}</p> : <p className="field-error">{sheet.elevation.message}</p>}
+      <VoltsBox label="Heaters held at (V DC, 0 at ground)" limit={DESIGN_LIMITS.heaterElevationVolts} volts={elevationOf(heaters)} onVolts={(v) => setHeaters({ elevationVolts: v })} />
+      {sheet.elevation.ok ? <p data-testid="elevation">{elevationAdvice(sheet.elevation, elevationOf(heaters))}</p> : <p className="field-error">{sheet.elevation.message}</p>}
+      {sheet.elevationDivider ? <p data-testid="elevation-divider" className={sheet.elevationDivider.divider.ok ? undefined : 'field-error'}>{dividerWords(sheet.elevationDivider)}</p> : null}
     </>
   );
 }
 
 /**
- * The DC heater supply's voltage: typed text stays in the box, a value out of
- * range is refused with its message beside it and the last good one stays in
- * the design; a value from elsewhere (undo, an opened file) shows.
+ * A heater voltage (the DC supply's, the elevation): typed text stays in the
+ * box, a value out of range is refused with its message beside it and the
+ * last good one stays in the design; a value from elsewhere (undo, an opened
+ * file) shows.
  */
-function DcSupply({ volts, onVolts }: { volts: number; onVolts: (v: number) => void }) {
+function VoltsBox({ label, limit, volts, onVolts }: { label: string; limit: Limit; volts: number; onVolts: (v: number) => void }) {
   const id = useId();
   const [text, setText] = useState(String(volts));
   useEffect(() => setText((t) => (Number(t) === volts ? t : String(volts))), [volts]);
   const typed = Number(text);
-  const bad = text.trim() === '' || !(typed >= DC.min && typed <= DC.max);
+  const bad = text.trim() === '' || !(typed >= limit.min && typed <= limit.max);
   return (
     <div className="option-row">
       <label className="field-label" htmlFor={id}>
-        DC heater supply (V)
+        {label}
         <input
           id={id}
           type="number"
@@ -75,10 +78,10 @@ function DcSupply({ volts, onVolts }: { volts: number; onVolts: (v: number) => v
           onChange={(e) => {
             setText(e.target.value);
             const v = Number(e.target.value);
-            if (e.target.value.trim() !== '' && v >= DC.min && v <= DC.max) onVolts(v);
+            if (e.target.value.trim() !== '' && v >= limit.min && v <= limit.max) onVolts(v);
           }}
         />
-        {bad ? <span className="field-error">{`must be a number from ${DC.min} to ${DC.max} V`}</span> : null}
+        {bad ? <span className="field-error">{`must be a number from ${limit.min} to ${limit.max} V`}</span> : null}
       </label>
     </div>
   );

@@ -16,9 +16,10 @@ export function HeaterWindings() {
             <li key={i}>
               <strong>{plain(w.volts)} V, {plain(w.amps)} A</strong> ({plain(w.va)} VA): {w.feeds.join(', ')}
               {w.atBplus ? '. Its own winding: the filament is the rectifier\'s cathode and sits at B+, so the winding must be insulated for it (common practice).' : ''}
+              {view.held[i] ? `; held at ${plain(view.heldVolts)} V DC by the elevation divider on the build sheet.` : ''}
             </li>
           ))}
-          {view.dc ? <li key="dc" data-heater="dc"><strong>DC heater supply {plain(view.dc.volts)} V, {plain(view.dc.amps)} A</strong> at the heaters: {view.dc.feeds.join(', ')}. Its winding, rectifier and filter are not designed here.</li> : null}
+          {view.dc ? <li key="dc" data-heater="dc"><strong>DC heater supply {plain(view.dc.volts)} V, {plain(view.dc.amps)} A</strong> at the heaters: {view.dc.feeds.join(', ')}{view.heldVolts !== 0 ? `, held at ${plain(view.heldVolts)} V DC by the elevation divider on the build sheet` : ''}. Its winding, rectifier and filter are not designed here.</li> : null}
         </ul>
       )}
       <p className="field-hint">Whether the voltage stages' heaters run on the winding or from a DC supply, their wiring and the supply's dropping resistor are on the build sheet.</p>
