@@ -46,4 +46,25 @@ describe.runIf(run)('at the bench: offline and on paper', () => {
     expect(pages).toBe(1);
     await page.close();
   });
+
+  it('a push-pull amplifier prints on one A4 page too: split-load or long-tailed splitter, either stage on the bench', async () => {
+    const { page } = await openWorkbench(browser.current, inject('baseUrl'));
+    await page.getByLabel('Output stage (transformer-coupled)').check();
+    await page.getByRole('radio', { name: 'Push-pull pair' }).check();
+    const pagesPrinted = async (name: string) => {
+      // Settled: the supply solved for this amplifier (its splitter's node fed) and its parts on the sheet.
+      await expect.poll(() => page.locator('tr[data-node="3"]').textContent(), { timeout: 15_000 }).toContain('Splitter');
+      await page.locator('.supply-parts [data-part-line="rectifier"]').waitFor();
+      await page.emulateMedia({ media: 'print' });
+      const pdf = await page.pdf({ format: 'A4', printBackground: true, path: `test-results/print-${name}.pdf` });
+      await page.emulateMedia({ media: 'screen' });
+      return (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+    };
+    expect(await pagesPrinted('pair-output-bench')).toBe(1);
+    await page.getByRole('radio', { name: 'Long-tailed pair' }).check();
+    expect(await pagesPrinted('pair-long-tailed')).toBe(1);
+    await page.getByLabel('Voltage stage (resistance-coupled)').check();
+    expect(await pagesPrinted('pair-voltage-bench')).toBe(1);
+    await page.close();
+  });
 });
