@@ -24,8 +24,9 @@ export interface ElevationDivider {
  * hum rides on the heaters' return (common practice).
  */
 export function elevationDivider(fromVolts: number, volts: number, series: PreferredSeries = 'E24'): Result<ElevationDivider> {
-  if (!(fromVolts > 0) || !(fromVolts <= 10_000)) return fail('invalid-input', `The node the divider hangs from must be above 0 V and at most 10 kV (got ${shown(fromVolts)} V)`, 'fromVolts');
-  if (!(volts > 0) || !(volts <= 10_000)) return fail('invalid-input', `The heater elevation must be above 0 V and at most 10 kV (got ${shown(volts)} V)`, 'elevation');
+  // Volts, not denormals: a divider for a node of a few picovolts would want an infinite decoupling capacitor.
+  if (!(fromVolts >= 1) || !(fromVolts <= 10_000)) return fail('invalid-input', `The node the divider hangs from must be from 1 V to 10 kV (got ${shown(fromVolts)} V)`, 'fromVolts');
+  if (!(volts >= 0.1) || !(volts <= 10_000)) return fail('invalid-input', `The heater elevation must be from 0.1 V to 10 kV (got ${shown(volts)} V)`, 'elevation');
   if (series !== 'E12' && series !== 'E24' && series !== 'E96') return fail('invalid-input', 'The preferred series must be E12, E24 or E96', 'series');
   // A divider only divides: leave it a tenth of the node at least, or the upper resistor is nothing and the heaters carry the node's ripple.
   if (volts > 0.9 * fromVolts) return fail('unreachable', `A divider from ${shown(fromVolts)} V cannot hold the heaters at ${shown(volts)} V: take it from a higher node, or elevate less`, 'elevation');

@@ -224,6 +224,10 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('droppingResistor', fc.tuple(near({ ok: true, volts: 6.3, totalAmps: 0.6, totalWatts: 3.78 }), numbers, anything), Q.droppingResistor);
   run('heaterElevation', fc.tuple(or(fc.array(near({ name: 'stage', vk: 100, maxVhk: 200 }), { maxLength: 3 }))), Q.heaterElevation);
   run('elevationDivider', fc.tuple(numbers, numbers, fc.oneof(fc.constantFrom('E12', 'E24', 'E96'), anything)), Q.elevationDivider);
+  // Found by a fresh seed: a node and an elevation of 5e-324 V asked an infinite decoupling capacitor.
+  it('elevationDivider at the ends of the doubles', () => {
+    for (const [from, at] of [[5e-324, 5e-324], [1, 0.1], [10_000, 0.1], [1.7e308, 1e308]] as const) keepsPromise('elevationDivider', () => Q.elevationDivider(from, at), [from, at]);
+  });
   run('fitTriode', fc.tuple(or(fc.array(near({ va: 200, vg: -2, ia: 5e-3 }), { maxLength: 8 })), fc.oneof(fc.constant(undefined), near({ typical: [] }))), Q.fitTriode, 60);
   run('logFrequencies', fc.tuple(numbers, numbers, numbers), Q.logFrequencies);
   run('capacitorsForCorner', fc.tuple(fc.constant(solvedStage.checked), fc.constant(solvedStage.solution), numbers, anything), Q.capacitorsForCorner);
