@@ -36,3 +36,7 @@ export function outputPlaced<O extends OutputPlan>(d: BenchDesign, output: O, re
   const heaterVolts = outputHeaterVolts(d, registry);
   return heaterVolts !== 0 ? { ...onSupply, heaterVolts } : onSupply;
 }
+
+/** The heaters' potential for the stage on the bench: the output tubes' winding with the output stage shown, else the small tubes' elevation. */
+export const benchHeaterVolts = (s: { readonly design: BenchDesign; readonly registry: TubeRegistry }): number =>
+  s.design.stageKind === 'output' ? outputHeaterVolts(s.design, s.registry) : elevationOf(s.design.heaters);

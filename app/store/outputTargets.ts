@@ -1,5 +1,6 @@
 import { findOutputTube, type OutputRegion, type OutputTargetStage, type PlaneRegion, type Targets } from '../../src/index';
 import { pushPullDesignOf } from './outputPlan';
+import { outputPlaced } from './heaterSharing';
 import { anyTarget, targetsOf } from './targetPlan';
 import type { WorkbenchState } from './workbenchStore';
 
@@ -12,7 +13,8 @@ import type { WorkbenchState } from './workbenchStore';
 export function outputRequestOf(s: WorkbenchState): { key: string; stage: OutputTargetStage; targets: Targets; extent: { vmax: number; iaMax: number } } | null {
   const d = s.design;
   if (d.stageKind !== 'output' || !anyTarget(d.outputTargets, 'output')) return null;
-  const o = d.output;
+  // As the amplifier places it: its screens on their node when the supply feeds them, its heaters at their winding's potential.
+  const o = outputPlaced(d, d.output, s.registry);
   const tube = findOutputTube(o.tubeId);
   if (!tube) return null;
   const stage: OutputTargetStage = o.pair === 'push-pull' ? { pair: 'push-pull', tube, design: pushPullDesignOf(o) } : { pair: 'single-ended', tube, design: outputDesignOf(o) };

@@ -4,6 +4,7 @@ import { outputRequestOf } from './outputTargets';
 import { DESIGN_LIMITS } from './designLimits';
 import { loadAfterBench } from './stagePlans';
 import { stageDesignOf } from './analysis';
+import { elevationOf } from './heaterChoice';
 import { anyTarget, NO_TARGETS, targetPlanOf, targetsOf, withTargetPlan } from './targetPlan';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
@@ -91,10 +92,10 @@ export function regionRequestOf(s: WorkbenchState): { key: string; stage: Region
   const tube = s.registry.lookup(d.tubeId);
   if (!tube) return null;
   const sd = stageDesignOf(d, tube, s.registry);
-  const stage: RegionStage = { tube, bplus: sd.bplus, rl: sd.rl ?? Infinity, rsource: sd.rsource ?? 0, bypassed: sd.bypassed ?? true, ...(sd.rg !== undefined ? { rg: sd.rg } : {}), ...(sd.rstopper ? { rstopper: sd.rstopper } : {}), ...(sd.volume !== undefined ? { volume: sd.volume } : {}) };
+  const stage: RegionStage = { tube, bplus: sd.bplus, rl: sd.rl ?? Infinity, rsource: sd.rsource ?? 0, bypassed: sd.bypassed ?? true, ...(sd.rg !== undefined ? { rg: sd.rg } : {}), ...(sd.rstopper ? { rstopper: sd.rstopper } : {}), ...(sd.volume !== undefined ? { volume: sd.volume } : {}), ...(sd.heaterVolts ? { heaterVolts: sd.heaterVolts } : {}) };
   const targets = targetsOf(d.targets);
   const extent = s.analysis.sheet.extent;
-  const key = JSON.stringify([tube.id, stage.bplus, stage.rl, stage.rsource, stage.bypassed, stage.rg ?? null, stage.rstopper ?? 0, stage.volume ?? 1, targets, extent.vmax, extent.iaMax]);
+  const key = JSON.stringify([tube.id, stage.bplus, stage.rl, stage.rsource, stage.bypassed, stage.rg ?? null, stage.rstopper ?? 0, stage.volume ?? 1, stage.heaterVolts ?? 0, targets, extent.vmax, extent.iaMax]);
   return { key, stage, targets, extent: { vmax: extent.vmax, iaMax: extent.iaMax } };
 }
 
@@ -103,9 +104,10 @@ export function followerRequestOf(s: WorkbenchState): { key: string; stage: Foll
   const d = s.design;
   const f = s.followerBench;
   if (d.stageKind !== 'follower' || !f || !anyTarget(d.followerTargets, 'follower')) return null;
-  const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl };
+  const heaterVolts = elevationOf(d.heaters);
+  const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl, ...(heaterVolts !== 0 ? { heaterVolts } : {}) };
   const targets = targetsOf(d.followerTargets);
-  return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, targets]), stage, targets };
+  return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, heaterVolts, targets]), stage, targets };
 }
 
 /** The Rk range a follower's drag and its region keep to: the design's own limits. */

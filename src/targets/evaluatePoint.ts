@@ -23,6 +23,8 @@ export interface RegionStage {
   readonly rstopper?: number;
   /** A volume control in the leak's place, its wiper's share of the track (absent: a fixed leak). */
   readonly volume?: number;
+  /** The heaters' potential to ground, V (default 0): the heater–cathode target reads the cathode against it. */
+  readonly heaterVolts?: number;
 }
 
 /** A point no cathode-biased stage on this B+ can sit at (above the 0 V grid curve, or past the load line's end). */
@@ -43,7 +45,7 @@ export interface PointVerdict {
    * magnitude, the clean output (V rms), THD (a fraction; null when the level
    * is past the clean swing), plate dissipation as a share of the rating
    * (null with no rating), Zout, Ra, Rk (Ω), the clean grid swing (V peak),
-   * the cathode's voltage to a grounded heater (V).
+   * the cathode's voltage to its heater (V; negative with the heater above it).
    */
   readonly values: Partial<Record<TargetName, number | null>>;
 }
@@ -67,7 +69,7 @@ const unreachable = UNREACHABLE_VERDICT;
 export function evaluatePoint(stage: RegionStage, targets: Targets, active: readonly TargetName[], vpk: number, ia: number): PointVerdict {
   const at = designAtPlanePoint({ tube: stage.tube, bplus: stage.bplus, vpk, ia, rg: (stage.rg ?? 1e6) * (stage.volume ?? 1) });
   if (!at.ok) return unreachable;
-  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0, ...(stage.volume !== undefined ? { volume: stage.volume } : {}) };
+  const design: StageDesign = { tube: stage.tube, bplus: stage.bplus, ra: at.ra, rk: at.rk, bypassed: stage.bypassed, rl: stage.rl, rsource: stage.rsource, rg: stage.rg ?? 1e6, rstopper: stage.rstopper ?? 0, ...(stage.volume !== undefined ? { volume: stage.volume } : {}), ...(stage.heaterVolts !== undefined ? { heaterVolts: stage.heaterVolts } : {}) };
   return judgeStage(design, targets, active);
 }
 
@@ -84,7 +86,7 @@ export function judgeStage(design: StageDesign, targets: Targets, active: readon
     pa: solution.op.pa,
     zout: solution.zout,
     rk: design.rk,
-    vhk: solution.op.vk,
+    vhk: solution.op.vk - checked.heaterVolts,
     ra: design.ra,
     gain: Math.abs(solution.gain),
     clean: () => ({ outputRms: swing!.output.rms, inputPeak: swing!.inputPeak }),

@@ -37,6 +37,7 @@ export function feasibleRegion(stage: RegionStage, targets: Targets, grid: Regio
     (stage.rg === undefined ? null : checkNumber('rg', 'Rg', stage.rg, 'Ω', LIMITS.minOhms, LIMITS.maxOhms)) ??
     (stage.rstopper === undefined ? null : checkNumber('rstopper', 'Grid stopper (0 for none)', stage.rstopper, 'Ω', 0, LIMITS.maxOhms)) ??
     volumeProblem(stage.volume, true) ??
+    (stage.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', stage.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts)) ??
     targetsProblem(targets);
   if (problem) return problem;
   const nx = grid?.nx ?? 60;

@@ -32,6 +32,8 @@ export interface FollowerTargetStage {
   readonly vgrid: number;
   /** The load on its cathode through the coupling capacitor, Ω (Infinity for none). */
   readonly rl: number;
+  /** The heaters' potential to ground, V (default 0): the heater–cathode target reads the cathode against it. */
+  readonly heaterVolts?: number;
 }
 
 /** The targets set that say something of a follower (not Ra's range: it has no plate resistor). */
@@ -50,7 +52,7 @@ function asChain(stage: FollowerTargetStage, rk: number): ChainInput {
 
 /** A follower with cathode resistor `rk` against the targets: one solve, the chain's transfer only when a target needs it. */
 export function judgeFollowerAt(stage: FollowerTargetStage, rk: number, targets: Targets, active: readonly TargetName[]): PointVerdict {
-  const solved = solveFollower({ tube: stage.tube, bplus: stage.bplus, vgrid: stage.vgrid, rk, rl: stage.rl });
+  const solved = solveFollower({ tube: stage.tube, bplus: stage.bplus, vgrid: stage.vgrid, rk, rl: stage.rl, ...(stage.heaterVolts !== undefined ? { heaterVolts: stage.heaterVolts } : {}) });
   if (!solved.ok) return unreachable;
   const needsSwing = active.includes('minCleanOutputRms') || active.includes('minGridHeadroom') || active.includes('maxThdAt');
   const want = targets.maxThdAt;
@@ -75,7 +77,8 @@ function stageProblem(stage: FollowerTargetStage) {
     checkTube(stage.tube) ??
     checkNumber('bplus', 'B+', stage.bplus, 'V', 0, LIMITS.maxVolts, { minExclusive: true }) ??
     checkNumber('vgrid', 'Grid voltage', stage.vgrid, 'V', -LIMITS.maxVolts, LIMITS.maxVolts) ??
-    checkNumber('rl', 'RL', stage.rl, 'Ω', LIMITS.minOhms, LIMITS.maxOhms, { allowInfinity: true })
+    checkNumber('rl', 'RL', stage.rl, 'Ω', LIMITS.minOhms, LIMITS.maxOhms, { allowInfinity: true }) ??
+    (stage.heaterVolts === undefined ? null : checkNumber('heaterVolts', 'Heater potential', stage.heaterVolts, 'V', -LIMITS.maxVolts, LIMITS.maxVolts))
   );
 }
 

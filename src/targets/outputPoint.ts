@@ -46,7 +46,11 @@ export interface SolvedOutput {
   readonly thdAtPower: (power: number) => { readonly thd: number | null; readonly most: number };
 }
 
-export const limitsOf = (tube: OutputTube): RatedLimits => ({ plateDissipation: tube.ratings.maxPlateDissipation, heaterCathode: tube.ratings.maxHeaterCathodeVoltage });
+export const limitsOf = (tube: OutputTube): RatedLimits => ({
+  plateDissipation: tube.ratings.maxPlateDissipation,
+  heaterCathode: tube.ratings.maxHeaterCathodeVoltage,
+  heaterCathodeNegative: tube.ratings.maxHeaterCathodeVoltageCathodeNegative ?? tube.ratings.maxHeaterCathodeVoltage,
+});
 
 function thdAt(t: GridTransfer, power: number) {
   const r = cycleForPower(t, power);
@@ -59,7 +63,7 @@ export function singleEndedFigures(s: OutputSolution): SolvedOutput {
   let transfer: GridTransfer | null = null;
   const t = () => (transfer ??= singleEndedTransfer(s));
   return {
-    shared: { pa: op.pa, zout: ((op.rp + design.rPrimary) * design.speakerOhms) / design.zPrimary, rk: design.bias === 'cathode' ? design.rk : 0, vhk: op.vk },
+    shared: { pa: op.pa, zout: ((op.rp + design.rPrimary) * design.speakerOhms) / design.zPrimary, rk: design.bias === 'cathode' ? design.rk : 0, vhk: op.vk - (design.heaterVolts ?? 0) },
     bplus: design.bplus,
     headroom: () => driveToFloor(t(), CUTOFF_SHARE * op.ip) ?? t().span,
     powerWithin: (thd) => powerWithin(t(), thd).power,
@@ -74,7 +78,7 @@ export function pairFigures(s: PushPullSolution): SolvedOutput {
   const t = () => (transfer ??= pairTransfer(s));
   const zpp = plateToPlateImpedance(s);
   return {
-    shared: { pa: Math.max(s.idle[0].pa, s.idle[1].pa), zout: zpp === null ? Infinity : (zpp * d.speakerOhms) / d.raa, rk: d.bias === 'cathode' ? d.rk : 0, vhk: s.vk },
+    shared: { pa: Math.max(s.idle[0].pa, s.idle[1].pa), zout: zpp === null ? Infinity : (zpp * d.speakerOhms) / d.raa, rk: d.bias === 'cathode' ? d.rk : 0, vhk: s.vk - (d.heaterVolts ?? 0) },
     bplus: d.bplus,
     headroom: () => Math.max(0, Math.min(-s.vgk, -s.vgk2)),
     powerWithin: (thd) => highestWithin(t(), thd)?.power ?? 0,

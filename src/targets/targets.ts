@@ -21,7 +21,7 @@ export interface Targets {
   readonly rkRange?: readonly [number, number];
   /** Least clean grid swing, V peak: the distance from the bias to the nearer of grid current and cutoff. */
   readonly minGridHeadroom?: number;
-  /** The cathode's voltage to a grounded heater within the tube's heater–cathode rating. */
+  /** The cathode's voltage to its heaters (at ground, unless the design holds them above it) within the tube's heater–cathode rating for its polarity. */
   readonly heaterCathodeWithinRating?: boolean;
   /** Output stages: the least power into the load (W) with THD at most `thd` (a fraction) and the grid never driven past 0 V. */
   readonly minPower?: { readonly power: number; readonly thd: number };

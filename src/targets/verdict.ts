@@ -29,10 +29,16 @@ export interface StageFigures {
 /** What every stage kind shares with the targets: plate dissipation, output impedance, Rk and the cathode's voltage to its heater. */
 export type SharedFigures = Pick<StageFigures, 'pa' | 'zout' | 'rk' | 'vhk'>;
 
-/** The ratings the shared targets are held to: plate dissipation, W, and the heater–cathode voltage (cathode positive), V; null where the tube has none. */
+/**
+ * The ratings the shared targets are held to: plate dissipation, W, and the
+ * heater–cathode voltage with the cathode positive and negative to the
+ * heater, V (the same figure where the sheet gives one); null where the tube
+ * has none.
+ */
 export interface RatedLimits {
   readonly plateDissipation: number | null;
   readonly heaterCathode: number | null;
+  readonly heaterCathodeNegative: number | null;
 }
 
 /** A small-signal tube's limits (none for an unknown tube; no heater–cathode rating for a directly heated one). */
@@ -40,6 +46,7 @@ export function limitsOfRecord(rec: TubeRecord | null): RatedLimits {
   return {
     plateDissipation: rec ? rec.ratings.maxPlateDissipation : null,
     heaterCathode: rec && !rec.directlyHeated ? (heaterCathodeRating(rec.ratings)?.cathodePositive ?? null) : null,
+    heaterCathodeNegative: rec && !rec.directlyHeated ? (heaterCathodeRating(rec.ratings)?.cathodeNegative ?? null) : null,
   };
 }
 
@@ -60,8 +67,9 @@ export function sharedMargin(k: TargetName, at: SharedFigures, limits: RatedLimi
     case 'rkRange':
       return { value: at.rk, margin: withinRange(at.rk, targets.rkRange!) };
     case 'heaterCathodeWithinRating': {
-      const hk = limits.heaterCathode;
-      return { value: at.vhk, margin: hk ? 1 - at.vhk / hk : 0 };
+      // Against the rating for its polarity: a cathode below heaters held above it meets the (often lower) negative figure.
+      const hk = at.vhk >= 0 ? limits.heaterCathode : limits.heaterCathodeNegative;
+      return { value: at.vhk, margin: hk ? 1 - Math.abs(at.vhk) / hk : 0 };
     }
     default:
       return null;

@@ -87,6 +87,19 @@ describe('heaters held above ground: the ratings follow, and the divider is desi
     expect(heaterCathode(store)[2]!.volts).toBe(163);
   });
 
+  it('the heater–cathode target reads the same potential: the driver met at ground, missed with the heaters at 150 V (cathode negative past 100 V)', () => {
+    const store = followerOn400();
+    render(<App store={store} />);
+    act(() => store.getState().setHeaterTarget(true));
+    const verdict = () => (store.getState().verdict?.ok ? store.getState().verdict : null);
+    expect(screen.getByLabelText(/^Heater–cathode voltage within the rating for its polarity \(heaters at ground\)/)).toBeTruthy();
+    expect(verdict()?.failing).not.toContain('heaterCathodeWithinRating');
+    act(() => store.getState().setHeaters({ elevationVolts: 150 }));
+    expect(screen.getByLabelText(/^Heater–cathode voltage within the rating for its polarity \(heaters held at 150 V\)/)).toBeTruthy();
+    expect(verdict()?.failing).toContain('heaterCathodeWithinRating');
+    expect(verdict()?.values.heaterCathodeWithinRating).toBeCloseTo(8.06 - 150, 1);
+  });
+
   it('a divider cannot hold the heaters above nine tenths of its node: the sheet says so in place of parts', () => {
     const store = followerOn400();
     act(() => store.getState().setHeaters({ elevationVolts: 260 }));

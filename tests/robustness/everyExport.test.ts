@@ -46,6 +46,9 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
   run('feasibleRegion (grid stopper)', fc.tuple(near({ tube: ax7, bplus: 300, rl: 470e3, rsource: 1e3, rstopper: 100e3, bypassed: true }), near({ minCleanOutputRms: 25, maxThdAt: { outputRms: 20, thd: 0.03 } }), or(near({ nx: 6, ny: 5 }))), Q.feasibleRegion, 30);
   run('rankTubes', fc.tuple(fc.oneof(near({ minGain: 10, minCleanOutputRms: 5 }), anything), near({ bplus: 250, rl: 100e3, rsource: 1e3, bypassed: true }), or(fc.constant([au7]))), Q.rankTubes, 30);
   run('preferredBest', fc.tuple(near(stage), fc.oneof(near({ minGain: 10, maxDissipationFraction: 0.6 }), anything), fc.oneof(fc.constantFrom('E12', 'E24', 'E96'), anything)), Q.preferredBest, 60);
+  // The heater–cathode target with the heaters held above ground: a cathode either side of them.
+  run('followerRegion (heaters held)', fc.tuple(near({ tube: au7, bplus: 300, vgrid: 150, rl: 220e3, heaterVolts: 60 }), fc.constant({ heaterCathodeWithinRating: true }), fc.oneof(fc.constant(8), anything)), Q.followerRegion, 30);
+  run('judgeDesign (heaters held)', fc.tuple(near({ ...stage, heaterVolts: 150 }), fc.constant({ heaterCathodeWithinRating: true })), Q.judgeDesign, 60);
   run('judgeDesign', fc.tuple(near(stage), fc.oneof(near({ minGain: 10, maxZout: 20e3, maxThdAt: { outputRms: 2, thd: 0.01 }, minGridHeadroom: 1 }), anything)), Q.judgeDesign, 60);
   run('levelAtThd', fc.tuple(near({ ...stage, rsource: 100e3, rg: 1e6 }), or(fc.double({ min: -0.1, max: 1.2 }))), Q.levelAtThd, 60);
   run('frequencyResponse', fc.tuple(near(stage), or(fc.array(fc.double({ min: 0.1, max: 1e7 }), { maxLength: 20 }))), Q.frequencyResponse);
@@ -205,6 +208,7 @@ describe('every export: no throw, no NaN or ±Infinity in an ok result', () => {
     }
   });
   run('analyzeOutput (light)', fc.tuple(outTubes, near(output), near({ light: true })), Q.analyzeOutput, 150);
+  run('analyzeOutput (heaters held)', fc.tuple(outTubes, near({ ...output, heaterVolts: 60 }), near({ light: true })), Q.analyzeOutput, 60);
   run('biasForPoint', fc.tuple(outTubes, near(output), or(fc.double({ min: 50, max: 500 })), or(fc.double({ min: 1e-3, max: 0.2 }))), Q.biasForPoint);
   run('switchBias', fc.tuple(solutions, fc.oneof(fc.constantFrom('cathode', 'fixed'), anything)), Q.switchBias);
   run('atDrive', fc.tuple(solutions, or(fc.double({ min: 0, max: 40 })), fc.oneof(fc.constant(undefined), anything), fc.oneof(fc.constant(64), anything)), Q.atDrive);

@@ -2,6 +2,7 @@ import { useId } from 'react';
 import { TARGET_LABELS, type FollowerRegion, type PlaneRegion, type TargetName } from '../../../src/index';
 import type { RegionView } from '../../store/regionSlice';
 import { targetPlanOf } from '../../store/targetPlan';
+import { benchHeaterVolts } from '../../store/heaterSharing';
 import { ohms, plain } from '../../format';
 import { ValueField } from '../panels/ValueField';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -17,6 +18,7 @@ import { targetWithValue } from './targetValue';
  */
 export function TargetsPanel() {
   const heater = useWorkbench((s) => targetPlanOf(s.design).heaterCathodeWithinRating);
+  const heaterVolts = useWorkbench(benchHeaterVolts);
   const keepInside = useWorkbench((s) => s.keepInside);
   const output = useWorkbench((s) => s.design.stageKind === 'output');
   const cathodeBias = useWorkbench((s) => s.design.output.bias === 'cathode');
@@ -76,7 +78,7 @@ export function TargetsPanel() {
       </div>
       )}
       <label className="option-row">
-        <input type="checkbox" checked={heater} onChange={(e) => setHeaterTarget(e.target.checked)} /> Heater–cathode voltage within the rating (heater at ground)
+        <input type="checkbox" checked={heater} onChange={(e) => setHeaterTarget(e.target.checked)} /> {`Heater–cathode voltage within the rating for its polarity (${heaterVolts === 0 ? 'heaters at ground' : `heaters held at ${plain(heaterVolts)} V`})`}
       </label>
       {verdict?.ok ? (
         <ul className="target-verdicts" aria-label="Each target at the operating point now">
