@@ -91,13 +91,27 @@ describe('heaters held above ground: the ratings follow, and the divider is desi
     const store = followerOn400();
     render(<App store={store} />);
     act(() => store.getState().setHeaterTarget(true));
-    const verdict = () => (store.getState().verdict?.ok ? store.getState().verdict : null);
+    const verdict = () => {
+      const v = store.getState().verdict;
+      return v?.ok ? v : null;
+    };
     expect(screen.getByLabelText(/^Heater–cathode voltage within the rating for its polarity \(heaters at ground\)/)).toBeTruthy();
     expect(verdict()?.failing).not.toContain('heaterCathodeWithinRating');
     act(() => store.getState().setHeaters({ elevationVolts: 150 }));
     expect(screen.getByLabelText(/^Heater–cathode voltage within the rating for its polarity \(heaters held at 150 V\)/)).toBeTruthy();
     expect(verdict()?.failing).toContain('heaterCathodeWithinRating');
     expect(verdict()?.values.heaterCathodeWithinRating).toBeCloseTo(8.06 - 150, 1);
+  });
+
+  it('the follower\'s own heater–cathode figure names the rating for its polarity: 200 V above the heaters, 100 V below them', () => {
+    const store = followerOn400();
+    act(() => store.getState().showStage(2));
+    render(<App store={store} />);
+    const label = () => document.querySelector('[data-figure="follower-vhk"] dt')?.textContent;
+    expect(label()).toBe('Heater–cathode (rated 200 V)');
+    // Held at 250 V, the follower's 223 V cathode sits 27 V below its heaters.
+    act(() => store.getState().setHeaters({ elevationVolts: 250 }));
+    expect(label()).toBe('Heater–cathode (cathode negative, rated 100 V)');
   });
 
   it('a divider cannot hold the heaters above nine tenths of its node: the sheet says so in place of parts', () => {

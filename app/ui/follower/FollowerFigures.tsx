@@ -14,7 +14,7 @@ export function FollowerFigures() {
   const bench = useWorkbench((s) => s.followerBench);
   const rk = useWorkbench((s) => s.design.stage2.rk);
   const coupled = useWorkbench((s) => s.design.stage2.coupling !== undefined);
-  const maxHk = useWorkbench((s) => s.followerBench?.tube.ratings.maxHeaterCathodeVoltage ?? null);
+  const ratings = useWorkbench((s) => s.followerBench?.tube.ratings ?? null);
   const inChain = useWorkbench((s) => {
     const view = s.amplifier;
     if (!view?.result.ok) return null;
@@ -44,7 +44,7 @@ export function FollowerFigures() {
         <Figure name="follower-gm" label="gm" value={`${plain(sol.gm * 1e3)} mA/V`} chars={9.5} />
       </dl>
       <dl className="figure-group">
-        <Figure name="follower-vhk" label={maxHk === null ? 'Heater–cathode' : `Heater–cathode (rated ${plain(maxHk)} V)`} value={volts(sol.vhk)} chars={6} />
+        <Figure name="follower-vhk" label={vhkLabel(sol.vhk, ratings)} value={volts(sol.vhk)} chars={6} />
         <Figure
           name="follower-headroom"
           label="Headroom in the amplifier"
@@ -54,4 +54,12 @@ export function FollowerFigures() {
       </dl>
     </section>
   );
+}
+
+/** The heater–cathode figure's label with the rating for its polarity: a cathode below heaters held above it meets the sheet's other figure. */
+function vhkLabel(vhk: number, ratings: { readonly maxHeaterCathodeVoltage: number | null; readonly maxHeaterCathodeVoltageCathodeNegative?: number } | null): string {
+  const positive = ratings?.maxHeaterCathodeVoltage ?? null;
+  if (positive === null) return 'Heater–cathode';
+  if (vhk >= 0) return `Heater–cathode (rated ${plain(positive)} V)`;
+  return `Heater–cathode (cathode negative, rated ${plain(ratings?.maxHeaterCathodeVoltageCathodeNegative ?? positive)} V)`;
 }
