@@ -114,6 +114,23 @@ describe('heaters held above ground: the ratings follow, and the divider is desi
     expect(label()).toBe('Heater–cathode (cathode negative, rated 100 V)');
   });
 
+  it('the suggestion is one click: held at the whole volts the advice names, every stage is within its rating', async () => {
+    const store = followerOn400();
+    const user = userEvent.setup();
+    render(<App store={store} />);
+    const sheet = within(screen.getByRole('region', { name: 'Build sheet' }));
+    // The window: from the follower's 223 V less its 200 V (23 V) to the driver's 8.1 V plus its 100 V negative rating (108 V).
+    const button = sheet.getByRole('button', { name: /^Hold them at \d+ V$/ });
+    const volts = Number(/(\d+) V$/.exec(button.textContent!)![1]);
+    expect(volts).toBeGreaterThan(23);
+    expect(volts).toBeLessThan(108);
+    await user.click(button);
+    expect(store.getState().design.heaters.elevationVolts).toBe(volts);
+    expect(sheet.getByTestId('elevation').textContent).toMatch(new RegExp(`^With the heaters held at ${volts} V, every stage is within`));
+    expect(sheet.queryByRole('button', { name: /^Hold them at/ })).toBeNull();
+    expect(heaterCathode(store)[2]!.severity).not.toBe('danger');
+  });
+
   it('a divider cannot hold the heaters above nine tenths of its node: the sheet says so in place of parts', () => {
     const store = followerOn400();
     act(() => store.getState().setHeaters({ elevationVolts: 260 }));

@@ -3,7 +3,7 @@ import { ohms, plain, watts } from '../../format';
 import { buildSheetOf } from '../../store/buildSheet';
 import { DESIGN_LIMITS } from '../../store/designLimits';
 import { useWorkbench } from '../../store/StoreProvider';
-import { dividerWords, elevationAdvice } from './elevationAdvice';
+import { dividerWords, elevationAdvice, keepsWithin, wholeVoltsSuggested } from './elevationAdvice';
 import { elevationOf } from '../../store/heaterChoice';
 import type { Limit } from '../../store/designLimits';
 
@@ -49,6 +49,9 @@ export function HeaterSection() {
       ) : null}
       <VoltsBox label="Heaters held at (V DC, 0 at ground)" limit={DESIGN_LIMITS.heaterElevationVolts} volts={elevationOf(heaters)} onVolts={(v) => setHeaters({ elevationVolts: v })} />
       {sheet.elevation.ok ? <p data-testid="elevation">{elevationAdvice(sheet.elevation, elevationOf(heaters))}</p> : <p className="field-error">{sheet.elevation.message}</p>}
+      {sheet.elevation.ok && !keepsWithin(sheet.elevation, elevationOf(heaters)) ? (
+        <button type="button" onClick={() => sheet.elevation.ok && setHeaters({ elevationVolts: wholeVoltsSuggested(sheet.elevation) })}>{`Hold them at ${wholeVoltsSuggested(sheet.elevation)} V`}</button>
+      ) : null}
       {sheet.elevationDivider ? <p data-testid="elevation-divider" className={sheet.elevationDivider.divider.ok ? undefined : 'field-error'}>{dividerWords(sheet.elevationDivider)}</p> : null}
     </>
   );

@@ -10,6 +10,15 @@ function windowWords(e: Window): string {
   return lo === null ? `anywhere up to ${volts(e.hi)}` : `anywhere from ${volts(lo)} to ${volts(e.hi)}`;
 }
 
+/** True when heaters at `heldAt` volts keep every stage within its heater–cathode rating. */
+export const keepsWithin = (e: Window, heldAt: number): boolean => (e.lo === null || heldAt >= e.lo) && (e.hi === null || heldAt <= e.hi);
+
+/** The suggestion in whole volts, as a builder sets it, kept inside the window (a window under a volt wide keeps its edge). */
+export function wholeVoltsSuggested(e: Window): number {
+  const v = Math.round(e.suggested);
+  return Math.min(e.hi ?? v, Math.max(e.lo ?? v, v));
+}
+
 /**
  * The heater-elevation advice in words, for the build sheet and the card
  * alike: with the heaters at ground, whether they may stay there; held at
@@ -20,8 +29,7 @@ export function elevationAdvice(e: Window, heldAt = 0): string {
     if (e.groundedOk) return 'Heater–cathode voltages are within every rating with the heaters at ground.';
     return `Elevate the heater supply to about ${volts(e.suggested)} DC (${windowWords(e)} keeps every stage within its heater–cathode rating).`;
   }
-  const inside = (e.lo === null || heldAt >= e.lo) && (e.hi === null || heldAt <= e.hi);
-  if (inside) return `With the heaters held at ${volts(heldAt)}, every stage is within its heater–cathode rating (${windowWords(e)} would do).`;
+  if (keepsWithin(e, heldAt)) return `With the heaters held at ${volts(heldAt)}, every stage is within its heater–cathode rating (${windowWords(e)} would do).`;
   return `Held at ${volts(heldAt)}, the heaters leave a stage past its heater–cathode rating: hold them ${windowWords(e)} (about ${volts(e.suggested)}).`;
 }
 
