@@ -1,14 +1,14 @@
 import { outputIdleAmps } from './outputAnalysis';
 import {
-  amplifierParts, envelopesOf, capacitorsForCorner, decouplingFilter, droppingResistor, elevationDivider, heaterElevation, heaterTotals, normalizeStage, productionSpread, recordOf,
-  solveStage, stagePartsList, type CapacitorForCorner, type ChainInput, type ChainResult, type DecouplingResult, type DroppingResistor, type ElevationDivider,
-  type Failure, type HeaterOption, type HeaterPlan, type PreferredSeries, type Spread, type StageParts, type TubeRecord,
+  amplifierParts, envelopesOf, capacitorsForCorner, decouplingFilter, droppingResistor, heaterElevation, heaterTotals, normalizeStage, productionSpread, recordOf,
+  solveStage, stagePartsList, type CapacitorForCorner, type ChainInput, type ChainResult, type DecouplingResult, type DroppingResistor,
+  type Failure, type HeaterOption, type HeaterPlan, type Spread, type StageParts, type TubeRecord,
 } from '../../src/index';
 import { stageDesignOf } from './analysis';
-import { elevationOf } from './heaterChoice';
+import { elevationPlanOf, type ElevationPlan } from './elevationPlan';
 import { outputSharesSmallWinding } from './heaterSharing';
 import { drivesPair } from './outputPlan';
-import { benchIndex, IDEAL_CC, voltageStages, type StagePlan } from './stagePlans';
+import { benchIndex, IDEAL_CC, voltageStages } from './stagePlans';
 import type { WorkbenchState } from './workbenchStore';
 
 /** The builder's own inputs for the build sheet. */
@@ -55,7 +55,7 @@ export interface BuildSheet {
    * lowest voltage stage's B+ (the best-filtered node a gain stage uses),
    * named by that stage; null with the heaters at ground.
    */
-  readonly elevationDivider: { readonly stage: number; readonly fromVolts: number; readonly divider: ({ ok: true } & ElevationDivider) | Failure } | null;
+  readonly elevationDivider: ElevationPlan | null;
   readonly filter: ({ ok: true } & DecouplingResult) | Failure;
   /** Where the bench's stage then sits, with the filter's B+. */
   readonly filteredOp: { va: number; ia: number } | null;
@@ -144,19 +144,11 @@ function compute(s: WorkbenchState): BuildSheet {
     heaters,
     dropper,
     elevation: heaterElevation(amp && view ? elevationStages(view.input, amp, outputSharesSmallWinding(d, s.registry)) : [{ name: `stage ${bench + 1}`, vk: sol.op.vk, ...hk(tube1) }]),
-    elevationDivider: dividerFor(list, elevationOf(d.heaters), d.series),
+    elevationDivider: elevationPlanOf(d),
     filter,
     totalBplusAmps,
     outputBplusAmps: d.drivesOutput ? outputIdleAmps(s.outputBench) : 0,
   };
-}
-
-/** The elevation divider from the lowest gain stage's B+ (the first such, on a tie); null at ground. */
-function dividerFor(list: readonly StagePlan[], volts: number, series: PreferredSeries): BuildSheet['elevationDivider'] {
-  if (volts === 0) return null;
-  const gains = list.flatMap((p, stage) => (p.kind === 'common-cathode' ? [{ stage, fromVolts: p.bplus }] : []));
-  const lowest = gains.reduce<(typeof gains)[number] | undefined>((a, g) => (a && a.fromVolts <= g.fromVolts ? a : g), undefined);
-  return lowest ? { ...lowest, divider: elevationDivider(lowest.fromVolts, volts, series) } : null;
 }
 
 /** A tube's heater–cathode ratings as the elevation check takes them (a directly heated tube's filament is its cathode: none). */

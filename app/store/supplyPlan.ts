@@ -4,6 +4,7 @@ import { screensOnNode } from './outputPlan';
 import type { BenchDesign } from './analysis';
 import type { TubeRegistry } from './tubeRegistry';
 import { nodeOfStage, voltageStages } from './stagePlans';
+import { elevationPlanOf } from './elevationPlan';
 
 /**
  * The B+ supply as the bench holds it: the transformer, rectifier and filter
@@ -158,6 +159,12 @@ export function withSplitterFed(p: SupplyPlan): SupplyPlan {
   return { ...p, feeds: { ...p.feeds, splitter: before > p.feeds.output ? before : p.feeds.voltage } };
 }
 
+/** The heater elevation divider as a load on the supply: its node (the gain stage's it hangs from) and its current, A; null with none. */
+export function elevationLoadOf(d: BenchDesign): { node: number; amps: number } | null {
+  const plan = elevationPlanOf(d);
+  return plan?.divider.ok ? { node: nodeOfStage(d, voltageStages(d), plan.stage), amps: plan.divider.amps } : null;
+}
+
 /** The amplifier as the chain strip shows it, on the plan's supply: each stage fed from its node, and the output stage's screens from theirs. */
 export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input: AmplifierOnSupply; names: readonly ChainCardName[] } | null {
   const chain = chainInputOf(d, registry);
@@ -168,7 +175,10 @@ export function onSupplyInputOf(d: BenchDesign, registry: TubeRegistry): { input
   // The hum budget is the first stage's: the one whose ripple every stage after it amplifies.
   const first = chain.names.findIndex((n) => n.role === 'voltage');
   const screens = screensOnNode(d) ? { screenFeeds: chain.names.map((n) => (n.role === 'output' ? p.feeds.screens! : null)) } : {};
-  const supply = supplyDesignOf(p, first < 0 ? p.feeds.voltage : feeds[first]!);
+  const planned = supplyDesignOf(p, first < 0 ? p.feeds.voltage : feeds[first]!);
+  // The heater elevation's divider draws its fraction of a milliamp from its gain stage's node: one of the supply's own loads.
+  const held = elevationLoadOf(d);
+  const supply = held ? { ...planned, loads: planned.loads.map((a, k) => (k === held.node ? a + held.amps : a)) } : planned;
   // The bleeder the capacitors need is known from the design: the solve carries its current at the reservoir.
   const bleeder = bleederForSupply(supply);
   const bleederOhms = bleeder.ok && bleeder.needed ? { bleederOhms: bleeder.ohms } : {};

@@ -17,6 +17,8 @@ export interface SupplyView {
   readonly feeds: readonly number[];
   /** The node feeding each stage's screens straight (a pentode output stage's, when the plan names one), else null. */
   readonly screenFeeds: readonly (number | null)[];
+  /** The supply's own loads at each node as solved, A: the heater elevation divider's (elevationLoadOf), else none. */
+  readonly ownLoads: readonly number[];
   readonly bleeder: Result<Bleeder> | null;
   /** The supply's parts to order (filter capacitors, resistors, chokes, bleeder, rectifier), when it was solved. */
   readonly parts: Result<SupplyParts> | null;
@@ -268,7 +270,7 @@ function viewOf(chain: { input: AmplifierOnSupply; names: readonly ChainCardName
   const budget = chain.input.supply.ratings?.hum;
   const farads = r.ok && budget ? capacitorForRipple(chain.input.supply, r.supply, budget.node, budget.maxRippleRms) : null;
   const humCure = farads !== null && budget ? { node: budget.node, farads } : null;
-  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, humCure, stale, lowEnd: null };
+  return { result: r, names: chain.names, feeds: chain.input.feeds, screenFeeds, ownLoads: chain.input.supply.loads ?? [], bleeder, parts, hum: r.ok ? humOnSupply(chain.input, r) : null, humCure, stale, lowEnd: null };
 }
 
 /**
@@ -306,7 +308,8 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null, 
           });
         }
         // Following: the stages take their nodes' B+. The solve after that gives the same nodes (they do not depend on
-        // the typed B+), so this settles at once; an undo lands on a design that already agreed, and changes nothing.
+        // the typed B+, but for the heater elevation divider's current, which moves them by millivolts), so this settles
+        // at once; an undo lands on a design that already agreed, and changes nothing.
         const next = d.supply.follow ? supplyBplusOf(d, view) : null;
         // B+ follow to the volt; a 1 V step alone is the rounding of a node solved from another start (to 10 mV), not a move.
         const far = (a: number, b: number) => Math.abs(a - b) > 1;

@@ -1,4 +1,4 @@
-import { fireEvent, render, screen, within } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { act } from 'react';
 import { describe, expect, it } from 'vitest';
@@ -7,6 +7,7 @@ import { cardSections } from '../../app/export/buildCard';
 import { readDesignFile, writeDesignFile } from '../../app/keep/designFile';
 import { benchFindings } from '../../app/store/amplifierFindings';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
+import { solveOnSupply } from '../../src/index';
 
 const cardLines = (store: ReturnType<typeof createWorkbenchStore>, heading: string) => cardSections(store.getState()).find((s) => s.heading === heading)?.lines ?? [];
 /** Each stage's heater–cathode finding, by its place in the chain. */
@@ -51,7 +52,7 @@ describe('heaters held above ground: the ratings follow, and the divider is desi
     // The divider by Ohm's law (as in tests/build: Rh1 = 220k · (275 − 60) / 60 = 788 kΩ, nearest E24 820 kΩ): from the lowest gain
     // stage's B+, stage 1's 275 V, the heaters at 275 · 220 / 1040 = 58.2 V, 275 V / 1.04 MΩ = 264 µA.
     expect(sheet.getByTestId('elevation-divider').textContent).toBe(
-      "Divider from stage 1's B+ (275 V): Rh1 820 kΩ (0.25 W) to Rh2 220 kΩ (0.125 W) to ground, Ch 470 nF 160 V across Rh2; the heater winding's centre tap (or one side) to their junction. The heaters sit at 58.2 V; the divider draws 264 µA from that node (the supply's figures leave it out).",
+      "Divider from stage 1's B+ (275 V): Rh1 820 kΩ (0.25 W) to Rh2 220 kΩ (0.125 W) to ground, Ch 470 nF 160 V across Rh2; the heater winding's centre tap (or one side) to their junction. The heaters sit at 58.2 V; the divider draws 264 µA from that node (a load on the supply there when the amplifier is solved on it).",
     );
     expect(cardLines(store, 'Heaters').slice(0, 2)).toEqual([
       expect.stringMatching(/^With the heaters held at 60 V/),
@@ -129,6 +130,29 @@ describe('heaters held above ground: the ratings follow, and the divider is desi
     expect(sheet.getByTestId('elevation').textContent).toMatch(new RegExp(`^With the heaters held at ${volts} V, every stage is within`));
     expect(sheet.queryByRole('button', { name: /^Hold them at/ })).toBeNull();
     expect(heaterCathode(store)[2]!.severity).not.toBe('danger');
+  });
+
+  it('the divider is a load on the supply at its stage\'s node: 264 µA more at node 4, named in the node table', async () => {
+    const store = createWorkbenchStore({ supplySolver: async (input) => solveOnSupply(input) });
+    render(<App store={store} />);
+    const solved = async () => {
+      await waitFor(() => expect(store.getState().supplyView?.stale === false && store.getState().supplyView?.result.ok).toBe(true), { timeout: 10_000 });
+      const r = store.getState().supplyView!.result;
+      if (!r.ok) throw new Error(r.message);
+      return r;
+    };
+    const before = await solved();
+    act(() => store.getState().setHeaters({ elevationVolts: 60 }));
+    await waitFor(() => expect(store.getState().supplyView?.ownLoads[3]).toBeGreaterThan(0), { timeout: 10_000 });
+    const after = await solved();
+    // The demo's two gain stages hang from node 4 (275 V): the divider from it draws 275 V / 1.04 MΩ = 264 µA (Ohm's law).
+    expect(store.getState().supplyView!.ownLoads).toEqual([0, 0, 0, expect.closeTo(0.2644e-3, 6)]);
+    // Node 4 carries its stages' currents and the divider's (Kirchhoff): the stages draw a little less as the node sags.
+    const view = store.getState().supplyView!;
+    const stagesAt4 = after.amplifier.stages.reduce((sum, st, i) => (view.feeds[i] === 3 ? sum + st.supplyCurrent : sum), 0);
+    expect(after.loads[3]! - stagesAt4).toBeCloseTo(0.2644e-3, 6);
+    expect(after.bplus.every((b, i) => b <= before.bplus[i]!)).toBe(true);
+    expect(screen.getByRole('row', { name: /^4 / }).textContent).toContain('the heater elevation divider (264 µA)');
   });
 
   it('a divider cannot hold the heaters above nine tenths of its node: the sheet says so in place of parts', () => {

@@ -38,5 +38,5 @@ export function dividerWords(e: NonNullable<BuildSheet['elevationDivider']>): st
   if (!e.divider.ok) return e.divider.message;
   const [upper, lower] = e.divider.resistors;
   const c = e.divider.capacitor;
-  return `Divider from stage ${e.stage + 1}'s B+ (${volts(e.fromVolts)}): Rh1 ${ohms(upper!.preferred)} (${upper!.ratingWatts} W) to Rh2 ${ohms(lower!.preferred)} (${lower!.ratingWatts} W) to ground, Ch ${farads(c.value ?? 0)} ${c.ratingVolts} V across Rh2; the heater winding's centre tap (or one side) to their junction. The heaters sit at ${volts(e.divider.volts)}; the divider draws ${smallAmps(e.divider.amps)} from that node (the supply's figures leave it out).`;
+  return `Divider from stage ${e.stage + 1}'s B+ (${volts(e.fromVolts)}): Rh1 ${ohms(upper!.preferred)} (${upper!.ratingWatts} W) to Rh2 ${ohms(lower!.preferred)} (${lower!.ratingWatts} W) to ground, Ch ${farads(c.value ?? 0)} ${c.ratingVolts} V across Rh2; the heater winding's centre tap (or one side) to their junction. The heaters sit at ${volts(e.divider.volts)}; the divider draws ${smallAmps(e.divider.amps)} from that node (a load on the supply there when the amplifier is solved on it).`;
 }

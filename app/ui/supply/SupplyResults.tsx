@@ -74,7 +74,7 @@ export function SupplyResults() {
               {full ? <td data-figure="node-full">{volts(full.volts[k]!)}</td> : null}
               <td>{milliamps(r.loads[k]!)}</td>
               <td>{smallAmps(node.capacitorRippleRms)} rms</td>
-              <td>{[...feeding(k), ...(k === 0 && r.bleederAmps > 0 ? [`the bleeder (${milliamps(r.bleederAmps)})`] : [])].join(', ') || '—'}</td>
+              <td>{[...feeding(k), ...(k === 0 && r.bleederAmps > 0 ? [`the bleeder (${milliamps(r.bleederAmps)})`] : []), ...((view.ownLoads[k] ?? 0) > 0 ? [`the heater elevation divider (${smallAmps(view.ownLoads[k]!)})`] : [])].join(', ') || '—'}</td>
             </tr>
           ))}
         </tbody>
