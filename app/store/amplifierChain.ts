@@ -15,7 +15,7 @@ import {
 } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import { volumeShare } from './volumeShare';
-import { elevationOf } from './heaterChoice';
+import { heaterField } from './heaterChoice';
 import type { BenchDesign } from './analysis';
 import { drivesPair, pushPullDesignOf } from './outputPlan';
 import { outputPlaced } from './heaterSharing';
@@ -63,9 +63,8 @@ function tubesOf(list: readonly StagePlan[], registry: TubeRegistry): Tubes {
   return { ok: true, tubes };
 }
 
-/** The model's chain stages for voltage plans (their tubes looked up), their heaters at `heaterVolts` (absent at 0 V: ground). */
-function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[], heaterVolts: number): ChainStage[] {
-  const heater = heaterVolts !== 0 ? { heaterVolts } : {};
+/** The model's chain stages for voltage plans (their tubes looked up), their heaters as `heater` holds them (heaterField). */
+function chainStagesOf(list: readonly StagePlan[], tubes: readonly TubeRecord[], heater: { heaterVolts?: number }): ChainStage[] {
   return list.map((p, i): ChainStage => {
     const tube = tubes[i]!;
     if (p.kind === 'follower') {
@@ -89,9 +88,8 @@ export function chainInputOf(d: BenchDesign, registry: TubeRegistry): { input: C
   const list = voltageStages(d);
   const found = tubesOf(list, registry);
   if (!found.ok) return null;
-  const heaterVolts = elevationOf(d.heaters);
-  const heater = heaterVolts !== 0 ? { heaterVolts } : {};
-  const stages = chainStagesOf(list, found.tubes, heaterVolts);
+  const heater = heaterField(d.heaters);
+  const stages = chainStagesOf(list, found.tubes, heater);
   const names: ChainCardName[] = list.map((p, i) => ({ title: `Stage ${i + 1}`, tube: found.tubes[i]!.id, bench: 'voltage', voltageIndex: i, role: 'voltage' }));
   const outputTube = d.drivesOutput ? findOutputTube(d.output.tubeId) : undefined;
   if (outputTube && d.output.pair === 'push-pull') {
@@ -165,7 +163,7 @@ function solvePrefix(before: readonly StagePlan[], rsource: number, registry: Tu
   const found = tubesOf(before, registry);
   if (!found.ok) return found;
   // Only the last one's output impedance is wanted here, which the heaters' potential does not move.
-  const r = solveAmplifier({ source: { rsource }, stages: chainStagesOf(before, found.tubes, 0) });
+  const r = solveAmplifier({ source: { rsource }, stages: chainStagesOf(before, found.tubes, {}) });
   if (!r.ok) return { ...r, message: `A stage before this one cannot run: ${r.message}` };
   return { ok: true, ohms: r.stages[r.stages.length - 1]!.zout };
 }

@@ -3,7 +3,7 @@ import type { OutputPlan } from './outputPlan';
 import { analyzeStage, MAX_FAMILY_CURVES, type ChainLink, type FollowerCoupling, type Failure, type PlateExtent, type PreferredSeries, type StageAnalysis, type StageDesign, type TubeRecord } from '../../src/index';
 import type { TubeRegistry } from './tubeRegistry';
 import type { SupplyPlan } from './supplyPlan';
-import { elevationOf, type HeaterChoice } from './heaterChoice';
+import { heaterField, type HeaterChoice } from './heaterChoice';
 import type { TargetPlan } from './targetPlan';
 import { loadAfterBench, type StagePlan } from './stagePlans';
 import { benchSource } from './amplifierChain';
@@ -118,8 +118,7 @@ function secondLink(d: BenchDesign, registry: TubeRegistry): ChainLink | null {
   if (s2.kind === 'none' || !tube) return null;
   // The second stage drives the next gain stage's grid, or the amplifier's own load.
   const { rl } = loadAfterBench(d);
-  const heaterVolts = elevationOf(d.heaters);
-  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl, ...(s2.coupling ? { coupling: s2.coupling } : {}), ...(s2.rstopper ? { rstopper: s2.rstopper } : {}), ...(heaterVolts !== 0 ? { heaterVolts } : {}) };
+  if (s2.kind === 'follower') return { kind: 'follower', tube, bplus: d.bplus, rk: s2.rk, rl, ...(s2.coupling ? { coupling: s2.coupling } : {}), ...(s2.rstopper ? { rstopper: s2.rstopper } : {}), ...heaterField(d.heaters) };
   return { kind: 'common-cathode', tube, bplus: d.bplus, ra: s2.ra, rk: s2.rk, rg: s2.rg, bypassed: true, rl };
 }
 
@@ -149,6 +148,6 @@ export function stageDesignOf(d: BenchDesign, tube: TubeRecord, registry: TubeRe
     ...(d.cin !== null ? { cin: d.cin } : {}),
     ...(d.bypassed && d.ck !== null && d.rk > 0 ? { ck: d.ck } : {}),
     ...(after.cout !== null && !chained ? { cout: after.cout } : {}),
-    ...(elevationOf(d.heaters) !== 0 ? { heaterVolts: elevationOf(d.heaters) } : {}),
+    ...heaterField(d.heaters),
   };
 }

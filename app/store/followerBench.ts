@@ -3,7 +3,7 @@ import type { TubeRegistry } from './tubeRegistry';
 import type { Analysis, BenchDesign } from './analysis';
 import type { Rival } from './compareSlice';
 import { loadAfterBench } from './stagePlans';
-import { elevationOf } from './heaterChoice';
+import { heaterField } from './heaterChoice';
 
 /**
  * The bench's cathode follower on its own plate curves: what the chart draws
@@ -37,8 +37,7 @@ function benchOf(d: BenchDesign, a: Analysis, tube: TubeRecord, extent: PlateExt
   // Direct-coupled, the grid is the plate before it; capacitor-coupled, its own bias holds it.
   const vgrid = d.stage2.coupling ? d.stage2.coupling.vbias : a.solution.op.va;
   // Its heaters where the design holds them: the heater–cathode figure reads the cathode against them.
-  const heaterVolts = elevationOf(d.heaters);
-  const plane = followerPlane({ tube, bplus: d.bplus, vgrid, rk: d.stage2.rk, rl: loadAfterBench(d).rl, ...(heaterVolts !== 0 ? { heaterVolts } : {}) }, extent);
+  const plane = followerPlane({ tube, bplus: d.bplus, vgrid, rk: d.stage2.rk, rl: loadAfterBench(d).rl, ...heaterField(d.heaters) }, extent);
   if (!plane.ok) return { ...plane, message: `Follower: ${plane.message}`, field: plane.field === 'rk' ? 'rk2' : 'stage2' };
   const sameSheet = prev && prev.tube === tube && prev.sheet.extent.vmax === extent.vmax && prev.sheet.extent.iaMax === extent.iaMax && prev.maxCurves === maxCurves;
   const sheet = sameSheet ? prev.sheet : curveSheet(tube, d.bplus, extent, maxCurves);

@@ -17,14 +17,17 @@ export interface HeaterChoice {
    * The DC potential the small tubes' heater supply is held at, V, through a
    * divider from the lowest voltage stage's B+ (elevationDivider); absent or
    * 0, the heaters return to ground. Every voltage stage's and the
-   * splitter's heater–cathode voltage is taken from it; the output tubes
-   * keep their own winding at ground.
+   * splitter's heater–cathode voltage is taken from it, and the output
+   * tubes' where they share the small tubes' AC winding (heaterSharing.ts).
    */
   readonly elevationVolts?: number;
 }
 
 /** The heaters' potential to ground the design asks, V (0: at ground). */
 export const elevationOf = (h: HeaterChoice): number => h.elevationVolts ?? 0;
+
+/** The small tubes' heater potential as a model stage takes it: `heaterVolts` when held above ground, else nothing (the model's default, 0 V). */
+export const heaterField = (h: HeaterChoice): { heaterVolts?: number } => (elevationOf(h) !== 0 ? { heaterVolts: elevationOf(h) } : {});
 
 /** The bench's default: everything on the heater winding, 12.6 V offered for a DC supply (two 6.3 V heaters in series, or 12AX7-family in series wiring). */
 export const DEFAULT_HEATERS: HeaterChoice = { voltageStages: 'ac', dcVolts: 12.6, wiring: {} };

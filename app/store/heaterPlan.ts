@@ -58,12 +58,11 @@ export function heaterWindingsOf(s: WorkbenchState): HeaterWindingsView {
   const dc = onDc && sheet.heaters.ok
     ? { volts: d.heaters.dcVolts, amps: sheet.heaters.totalAmps * channels, feeds: small.map((l) => (l.count > 1 ? `${l.count} × ${l.label}` : l.label)) }
     : null;
-  // A winding is held where it lights a small tube (the elevation divider returns its centre tap); the output tubes ride along on it.
-  const smallLabels = new Set(small.flatMap((l) => [l.label, `${l.count} × ${l.label}`]));
+  // A winding is held where it lights a small tube (the elevation divider returns its centre tap): the windings are grouped by
+  // voltage, so one at a small tube's voltage and not at B+ lights it. The output tubes on it ride along.
   const heldVolts = elevationOf(d.heaters);
-  const view: HeaterWindingsView = windings.ok
-    ? { ok: true, windings: windings.windings, dc, heldVolts, held: windings.windings.map((w) => !onDc && heldVolts !== 0 && w.feeds.some((f) => smallLabels.has(f))) }
-    : windings;
+  const held = (w: HeaterWinding) => !onDc && heldVolts !== 0 && !w.atBplus && small.some((l) => l.volts === w.volts);
+  const view: HeaterWindingsView = windings.ok ? { ok: true, windings: windings.windings, dc, heldVolts, held: windings.windings.map(held) } : windings;
   cache.set(tubes, { key, heaters: d.heaters, view });
   return view;
 }

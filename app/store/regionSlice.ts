@@ -4,7 +4,7 @@ import { outputRequestOf } from './outputTargets';
 import { DESIGN_LIMITS } from './designLimits';
 import { loadAfterBench } from './stagePlans';
 import { stageDesignOf } from './analysis';
-import { elevationOf } from './heaterChoice';
+import { heaterField } from './heaterChoice';
 import { anyTarget, NO_TARGETS, targetPlanOf, targetsOf, withTargetPlan } from './targetPlan';
 import type { WorkbenchState, WorkbenchStore } from './workbenchStore';
 
@@ -104,10 +104,9 @@ export function followerRequestOf(s: WorkbenchState): { key: string; stage: Foll
   const d = s.design;
   const f = s.followerBench;
   if (d.stageKind !== 'follower' || !f || !anyTarget(d.followerTargets, 'follower')) return null;
-  const heaterVolts = elevationOf(d.heaters);
-  const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl, ...(heaterVolts !== 0 ? { heaterVolts } : {}) };
+  const stage: FollowerTargetStage = { tube: f.tube, bplus: f.bplus, vgrid: f.vgrid, rl: loadAfterBench(d).rl, ...heaterField(d.heaters) };
   const targets = targetsOf(d.followerTargets);
-  return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, heaterVolts, targets]), stage, targets };
+  return { key: JSON.stringify(['follower', f.tube.id, stage.bplus, stage.vgrid, stage.rl, stage.heaterVolts ?? 0, targets]), stage, targets };
 }
 
 /** The Rk range a follower's drag and its region keep to: the design's own limits. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { elevationAdvice, keepsWithin, wholeVoltsSuggested } from '../../app/ui/panels/elevationAdvice';
+import { elevationAdvice, keepsWithin, remedyWords, wholeVoltsSuggested } from '../../app/ui/panels/elevationAdvice';
 
 // Windows of our own making, in volts.
 describe('the heater elevation in words and in whole volts', () => {
@@ -15,5 +15,9 @@ describe('the heater elevation in words and in whole volts', () => {
     expect(keepsWithin(e, 106)).toBe(false);
     expect(elevationAdvice(e, 60)).toBe('With the heaters held at 60 V, every stage is within its heater–cathode rating (anywhere up to 105 V would do).');
     expect(elevationAdvice({ lo: 23.2, hi: 108, suggested: 31.7, groundedOk: false }, 150)).toBe('Held at 150 V, the heaters leave a stage past its heater–cathode rating: hold them anywhere from 23.2 V to 108 V (about 31.7 V).');
+    // Where ground will do, the remedy says so, not "about 0 V".
+    expect(elevationAdvice(e, 150)).toBe('Held at 150 V, the heaters leave a stage past its heater–cathode rating: hold them anywhere up to 105 V, or return them to ground.');
+    expect(remedyWords(e)).toBe('Return them to ground');
+    expect(remedyWords({ lo: 23.2, hi: 108, suggested: 31.7, groundedOk: false })).toBe('Hold them at 32 V');
   });
 });

@@ -1,18 +1,18 @@
 import { useEffect, useId, useState } from 'react';
 import { ohms, plain, watts } from '../../format';
 import { buildSheetOf } from '../../store/buildSheet';
-import { DESIGN_LIMITS } from '../../store/designLimits';
+import { DESIGN_LIMITS, type Limit } from '../../store/designLimits';
 import { useWorkbench } from '../../store/StoreProvider';
-import { dividerWords, elevationAdvice, keepsWithin, wholeVoltsSuggested } from './elevationAdvice';
+import { dividerWords, elevationAdvice, keepsWithin, remedyWords, wholeVoltsSuggested } from './elevationAdvice';
 import { elevationOf } from '../../store/heaterChoice';
-import type { Limit } from '../../store/designLimits';
 
 /**
  * The build sheet's heaters: where the small tubes are lit from (the
  * transformer's heater winding, or a DC supply with its dropping resistor),
  * each type's wiring and envelopes, what they draw, and the heater elevation:
- * the advice, the potential the builder holds them at and its divider. The choice is part of the design (an undo step, saved and shared);
- * the output and rectifier tubes' windings are listed with the supply.
+ * the advice, the potential the builder holds them at and its divider. The
+ * choices are part of the design (undo steps, saved and shared); the output
+ * and rectifier tubes' windings are listed with the supply.
  */
 export function HeaterSection() {
   const sheet = useWorkbench(buildSheetOf);
@@ -50,7 +50,7 @@ export function HeaterSection() {
       <VoltsBox label="Heaters held at (V DC, 0 at ground)" limit={DESIGN_LIMITS.heaterElevationVolts} volts={elevationOf(heaters)} onVolts={(v) => setHeaters({ elevationVolts: v })} />
       {sheet.elevation.ok ? <p data-testid="elevation">{elevationAdvice(sheet.elevation, elevationOf(heaters))}</p> : <p className="field-error">{sheet.elevation.message}</p>}
       {sheet.elevation.ok && !keepsWithin(sheet.elevation, elevationOf(heaters)) ? (
-        <button type="button" onClick={() => sheet.elevation.ok && setHeaters({ elevationVolts: wholeVoltsSuggested(sheet.elevation) })}>{`Hold them at ${wholeVoltsSuggested(sheet.elevation)} V`}</button>
+        <button type="button" onClick={() => sheet.elevation.ok && setHeaters({ elevationVolts: wholeVoltsSuggested(sheet.elevation) })}>{remedyWords(sheet.elevation)}</button>
       ) : null}
       {sheet.elevationDivider ? <p data-testid="elevation-divider" className={sheet.elevationDivider.divider.ok ? undefined : 'field-error'}>{dividerWords(sheet.elevationDivider)}</p> : null}
     </>

@@ -13,6 +13,9 @@ function windowWords(e: Window): string {
 /** True when heaters at `heldAt` volts keep every stage within its heater–cathode rating. */
 export const keepsWithin = (e: Window, heldAt: number): boolean => (e.lo === null || heldAt >= e.lo) && (e.hi === null || heldAt <= e.hi);
 
+/** The one-click remedy's words: back to ground where ground will do, else the suggestion in whole volts. */
+export const remedyWords = (e: Window): string => (wholeVoltsSuggested(e) === 0 ? 'Return them to ground' : `Hold them at ${wholeVoltsSuggested(e)} V`);
+
 /** The suggestion in whole volts, as a builder sets it, kept inside the window (a window under a volt wide keeps its edge). */
 export function wholeVoltsSuggested(e: Window): number {
   const v = Math.round(e.suggested);
@@ -30,7 +33,8 @@ export function elevationAdvice(e: Window, heldAt = 0): string {
     return `Elevate the heater supply to about ${volts(e.suggested)} DC (${windowWords(e)} keeps every stage within its heater–cathode rating).`;
   }
   if (keepsWithin(e, heldAt)) return `With the heaters held at ${volts(heldAt)}, every stage is within its heater–cathode rating (${windowWords(e)} would do).`;
-  return `Held at ${volts(heldAt)}, the heaters leave a stage past its heater–cathode rating: hold them ${windowWords(e)} (about ${volts(e.suggested)}).`;
+  const back = e.groundedOk ? ', or return them to ground' : ` (about ${volts(e.suggested)})`;
+  return `Held at ${volts(heldAt)}, the heaters leave a stage past its heater–cathode rating: hold them ${windowWords(e)}${back}.`;
 }
 
 /** The elevation divider in words (its parts, where it hangs and what the heaters then sit at), or why it cannot be built. */
