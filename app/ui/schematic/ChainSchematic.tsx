@@ -1,6 +1,7 @@
 import { memo, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { Wire } from './wiring';
-import { FEEDBACK_ROW, FeedbackPath, FollowerCell, GainCell, GRID, H, LEAD_IN, LoadCell, MUTED, OutputCell, SplitterCell, WIDTH, cellWidth, label, type Anchor, type ValueLabel } from './chainCells';
+import { FEEDBACK_ROW, FeedbackPath, FollowerCell, GainCell, GRID, H, LEAD_IN, LoadCell, MUTED, OutputCell, SplitterCell, WIDTH, cellWidth, label, singleEndedTap, type Anchor, type ValueLabel } from './chainCells';
+import { LongTailedPairCell, PairCell, pairTap } from './pairCells';
 import { InlineEditor } from './InlineEditor';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../../store/StoreProvider';
@@ -83,7 +84,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
     const hit = labels.get(stage);
     if (hit) return hit;
     const made: ValueLabel = (field, name, x, y, text, anchor = 'start') => (
-      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|Rs|2nd|\+) /, '')}`} onEdit={(at) => {
+      <Value key={field} x={x} y={y} text={text} anchor={anchor} name={`${stage} ${name} ${text.replace(/^(B\+|RL|Rs|tail) /, '')}`} onEdit={(at) => {
         const spot = editorSpot(at, frame.current);
         open();
         setEditing({ field, at: spot });
@@ -113,26 +114,35 @@ export const ChainSchematic = memo(function ChainSchematic() {
   const pair = drivesPair(design);
   const openOutput = () => setStageKind('output');
   const splitterX = x;
-  if (pair) x += WIDTH.splitter;
+  const ltp = o.splitter.kind === 'long-tailed-pair';
+  const splitterWidth = ltp ? WIDTH.longTailedPair : WIDTH.splitter;
+  if (pair) x += splitterWidth;
+  const splitterValues = valuesOf('Phase splitter', openOutput);
+  const splitterCc = o.splitter.coupling === 'direct' ? null : design.cout;
   const splitter = pair ? (
-    <Cell key="splitter" x0={splitterX} width={WIDTH.splitter} onBench={design.stageKind === 'output'} name={`Phase splitter, ${splitterName(o.splitter)}`} tubeId={o.splitter.tubeId} onOpen={openOutput}>
-      <SplitterCell x0={splitterX} cc={o.splitter.coupling === 'direct' ? null : design.cout} sp={o.splitter} value={valuesOf('Phase splitter', openOutput)} />
+    <Cell key="splitter" x0={splitterX} width={splitterWidth} onBench={design.stageKind === 'output'} name={`Phase splitter, ${splitterName(o.splitter)}`} tubeId={o.splitter.tubeId} onOpen={openOutput}>
+      {ltp ? <LongTailedPairCell x0={splitterX} cc={splitterCc} sp={o.splitter} value={splitterValues} /> : <SplitterCell x0={splitterX} cc={splitterCc} sp={o.splitter} value={splitterValues} />}
     </Cell>
   ) : null;
+  const bias = o.bias === 'fixed' ? { kind: 'fixed' as const, vg: o.vg } : { kind: 'cathode' as const, rk: o.rk };
+  const outputValues = valuesOf('Output stage', openOutput);
+  const outputWidth = pair ? WIDTH.pair : WIDTH.output;
   const end = design.drivesOutput ? (
-    <Cell key="output" x0={x} width={WIDTH.output} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull (one drawn)` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={openOutput}>
-      <OutputCell x0={x} cc={pair ? o.splitter.cc : design.cout} ccField={pair ? 'sCc' : 'cout'} rg={o.rg} bias={o.bias === 'fixed' ? { kind: 'fixed', vg: o.vg } : { kind: 'cathode', rk: o.rk }} bplus={o.bplus} tubeId={pair ? `${o.tubeId} × 2` : o.tubeId} speakerOhms={o.speakerOhms} value={valuesOf('Output stage', openOutput)} />
+    <Cell key="output" x0={x} width={outputWidth} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={openOutput}>
+      {pair
+        ? <PairCell x0={x} cc={o.splitter.cc} ccField="sCc" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} value={outputValues} />
+        : <OutputCell x0={x} cc={design.cout} ccField="cout" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} value={outputValues} />}
     </Cell>
   ) : Number.isFinite(design.rl) ? (
     <g key="load">
       <LoadCell x0={x} rl={design.rl} cout={design.cout} value={valuesOf('Load', () => undefined)} />
     </g>
   ) : null;
-  const width = x + (design.drivesOutput ? WIDTH.output : WIDTH.load);
+  const width = x + (design.drivesOutput ? outputWidth : WIDTH.load);
   // Global feedback: Rf from the speaker's end of the secondary round under the drawing to the first cathode (unbypassed).
   const first = list[0];
   const feedback = design.drivesOutput && design.feedbackRf !== null && first?.kind === 'common-cathode' && !first.bypassed
-    ? <FeedbackPath fromX={x} toX={LEAD_IN} rf={design.feedbackRf} cf={design.feedbackCf} value={valuesOf('Global feedback', () => undefined)} />
+    ? <FeedbackPath from={pair ? pairTap(x) : singleEndedTap(x)} toX={LEAD_IN} rf={design.feedbackRf} cf={design.feedbackCf} value={valuesOf('Global feedback', () => undefined)} />
     : null;
   const height = feedback ? H + FEEDBACK_ROW : H;
   return (

@@ -20,6 +20,8 @@ export const GRID = 120;
 const PLATE_OUT = 84;
 /** Where a cathode's output is taken: on its lead between the tube and Rk's body. */
 const CATHODE_OUT = GRID + 27;
+/** Where a phase splitter's second output (in phase) reaches the push-pull pair's second grid: the split-load's cathode row. */
+export const SECOND_IN = CATHODE_OUT;
 export const GROUND = 200;
 export const H = 246;
 export const LEAD_IN = 52;
@@ -29,10 +31,10 @@ export const LEAD_IN = 52;
  * before it shares that stage's rail and continues it.
  */
 const RAIL_GAP = 8;
-export const WIDTH = { gain: 160, follower: 104, splitter: 160, output: 176, load: 96 } as const;
+export const WIDTH = { gain: 160, follower: 104, splitter: 160, longTailedPair: 250, output: 176, pair: 290, load: 96 } as const;
 /** Where a cell's coupling capacitor ends and its grid leak stands, from the cell's left edge. */
-const CC_END = 36;
-const RG_X = 48;
+export const CC_END = 36;
+export const RG_X = 48;
 export const MUTED = '#4a535c';
 
 export type Anchor = 'start' | 'middle' | 'end';
@@ -49,14 +51,14 @@ export const label = (x: number, y: number, text: string, anchor: Anchor = 'star
  * cell is drawn again only when its own stage changed, so a drag on one
  * stage does not redraw the others.
  */
-function sameProps<P extends object>(a: P, b: P): boolean {
+export function sameProps<P extends object>(a: P, b: P): boolean {
   const same = (x: unknown, y: unknown) => Object.is(x, y) || (typeof x === 'object' && typeof y === 'object' && x !== null && y !== null && Object.keys(x).length === Object.keys(y).length && Object.entries(x).every(([k, v]) => Object.is(v, (y as Record<string, unknown>)[k])));
   const ka = Object.keys(a) as (keyof P)[];
   return ka.length === Object.keys(b).length && ka.every((k) => same(a[k], b[k]));
 }
 
 /** A capacitor across the cell's input at grid height, or a plain wire for direct coupling. */
-function Coupling({ x0, cc, value, field, name = 'Cc' }: { x0: number; cc: number | null; value: ValueLabel; field: FieldName; name?: string }) {
+export function Coupling({ x0, cc, value, field, name = 'Cc' }: { x0: number; cc: number | null; value: ValueLabel; field: FieldName; name?: string }) {
   return cc === null ? <Wire points={[[x0, GRID], [x0 + CC_END, GRID]]} /> : (
     <>
       <Capacitor at={GRID} from={x0} to={x0 + CC_END} vertical={false} />
@@ -66,7 +68,7 @@ function Coupling({ x0, cc, value, field, name = 'Cc' }: { x0: number; cc: numbe
 }
 
 /** A grid leak from the grid line to ground (or, with `to`, to the divider holding the grid there). */
-function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number }; volume?: number | null }) {
+export function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number }; volume?: number | null }) {
   return (
     <>
       <Dot x={x0 + RG_X} y={GRID} />
@@ -183,15 +185,12 @@ export const FollowerCell = memo(function FollowerCell({ x0, p, value }: { x0: n
 }, sameProps);
 
 /**
- * The phase splitter before a pair: fed through Cout into its leak (returned
- * to the divider that sets its grid), its plate and cathode loads (for a
- * long-tailed pair, the first triode with the tail below; the second is
- * named), and two outputs to the pair's grids.
+ * A phase splitter's input up to its (first) grid at `gridX`: fed through
+ * Cout into its leak (returned to the divider that sets its grid), or
+ * straight from the plate before it, with its grid stopper, if any, last
+ * before the grid.
  */
-export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | null; sp: SplitterPlan; value: ValueLabel }) {
-  const cx = x0 + 100;
-  const r = 22;
-  const ltp = sp.kind === 'long-tailed-pair';
+export function SplitterInput({ x0, cc, sp, gridX, value }: { x0: number; cc: number | null; sp: SplitterPlan; gridX: number; value: ValueLabel }) {
   const stopper = sp.rstopper ?? 0;
   return (
     <>
@@ -200,31 +199,38 @@ export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { 
         <>
           {/* Past the leak's dot, last before the grid. */}
           <Wire points={[[x0 + CC_END, GRID], [x0 + RG_X + 2, GRID]]} />
-          <HResistor x1={x0 + RG_X + 2} x2={cx - r} y={GRID} />
-          {value('sRst', 'Grid stopper', (x0 + RG_X + 2 + cx - r) / 2, GRID - 12, ohms(stopper), 'middle')}
+          <HResistor x1={x0 + RG_X + 2} x2={gridX} y={GRID} />
+          {value('sRst', 'Grid stopper', (x0 + RG_X + 2 + gridX) / 2, GRID - 12, ohms(stopper), 'middle')}
         </>
       ) : (
-        <Wire points={[[x0 + CC_END, GRID], [cx - r, GRID]]} />
+        <Wire points={[[x0 + CC_END, GRID], [gridX, GRID]]} />
       )}
       {sp.coupling === 'capacitor' && <GridLeak x0={x0} rg={sp.rg} value={value} field="sRg" to={{ field: 'sVgrid', volts: sp.vgrid }} />}
+    </>
+  );
+}
+
+/**
+ * The split-load (cathodyne) phase splitter before a pair: its input, its
+ * plate and cathode loads, and two outputs to the pair's grids, the plate's
+ * (inverting) to the first and the cathode's (in phase) to the second.
+ */
+export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { x0: number; cc: number | null; sp: SplitterPlan; value: ValueLabel }) {
+  const cx = x0 + 100;
+  const r = 22;
+  const edge = x0 + WIDTH.splitter;
+  return (
+    <>
+      <SplitterInput x0={x0} cc={cc} sp={sp} gridX={cx - r} value={value} />
       <PlateLoad x0={x0} width={WIDTH.splitter} cx={cx} r={r} ra={sp.ra} field="sRa" value={value} />
       <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} />
       <Ground x={cx} y={GROUND} />
       {/* The cathode's values stand right of it, clear of the grid leak's. */}
-      {value('sRk', 'Rk', cx + 12, 172, ohms(sp.rk))}
-      {ltp ? (
-        <>
-          {value('sRtail', 'tail', cx + 12, 185, `+ ${ohms(sp.rtail)}`)}
-          {value('sRa2', 'second Ra', cx - 12, 73, `2nd ${ohms(sp.ra2)}`, 'end')}
-        </>
-      ) : (
-        <>
-          <Dot x={cx} y={CATHODE_OUT} />
-          <Wire points={[[cx, CATHODE_OUT], [x0 + WIDTH.splitter - 8, CATHODE_OUT]]} />
-          {/* Under its wire, clear of the tube: the wire itself leads on to the pair's second grid. */}
-          {label(cx + 12, CATHODE_OUT + 12, 'in phase')}
-        </>
-      )}
+      {value('sRk', 'Rk', cx + 12, 176, ohms(sp.rk))}
+      <Dot x={cx} y={CATHODE_OUT} />
+      <Wire points={[[cx, CATHODE_OUT], [edge, SECOND_IN]]} />
+      {/* Under its wire, clear of the tube: the wire leads on to the pair's second grid. */}
+      {label(cx + 12, CATHODE_OUT + 12, 'in phase')}
       {value('sBplus', 'B+', x0 + 4, RAIL - 8, `B+ ${volts(sp.bplus)}`)}
     </>
   );
@@ -271,26 +277,35 @@ export const LoadCell = memo(function LoadCell({ x0, rl, cout, value }: { x0: nu
 /** The row under the drawing that global feedback's path runs along. */
 export const FEEDBACK_ROW = 24;
 
+/** Where global feedback leaves the output stage's drawing: the speaker's end of the secondary, and the cell's right edge it runs down. */
+export interface SpeakerTap {
+  readonly x: number;
+  readonly y: number;
+  readonly edge: number;
+}
+
+/** The single-ended output cell's speaker end, from its left edge. */
+export const singleEndedTap = (x0: number): SpeakerTap => ({ x: x0 + 110 + 22, y: GRID - 30, edge: x0 + WIDTH.output - 6 });
+
 /**
- * Global feedback's resistor drawn from the secondary's lower end (the output
- * cell at `fromX`) round under the drawing to the first gain stage's cathode
- * lead (its cell at `toX`), above its Rk: where the loop returns. A
- * capacitor across Rf is named beside it (the row has no room for its plates).
+ * Global feedback's resistor drawn from the secondary's speaker end (`from`)
+ * round under the drawing to the first gain stage's cathode lead (its cell
+ * at `toX`), above its Rk: where the loop returns. A capacitor across Rf is
+ * named beside it (the row has no room for its plates).
  */
-export function FeedbackPath({ fromX, toX, rf, cf, value }: { fromX: number; toX: number; rf: number; cf: number | null; value: ValueLabel }) {
-  const speaker = fromX + 110 + 22;
-  const out = fromX + WIDTH.output - 6;
+export function FeedbackPath({ from, toX, rf, cf, value }: { from: SpeakerTap; toX: number; rf: number; cf: number | null; value: ValueLabel }) {
+  const out = from.edge;
   const cathode = toX + 112;
   const up = cathode + 16;
   const y = H + FEEDBACK_ROW / 2;
   const mid = (up + out) / 2;
   return (
     <g className="feedback-path">
-      <Wire points={[[speaker, GRID - 30], [out, GRID - 30], [out, y], [mid + 20, y]]} />
+      <Wire points={[[from.x, from.y], [out, from.y], [out, y], [mid + 20, y]]} />
       <rect x={mid - 20} y={y - 5} width={40} height={10} fill="#fff" stroke="#1d2329" strokeWidth={2} />
       <Wire points={[[mid - 20, y], [up, y], [up, CATHODE_OUT], [cathode, CATHODE_OUT]]} />
       <Dot x={cathode} y={CATHODE_OUT} />
-      <Dot x={speaker} y={GRID - 30} />
+      <Dot x={from.x} y={from.y} />
       {value('feedbackRf', 'Rf', mid, y - 8, `Rf ${ohms(rf)}`, cf === null ? 'middle' : 'end')}
       {cf === null ? null : value('feedbackCf', 'Cf', mid + 4, y - 8, `∥ Cf ${farads(cf)}`, 'start')}
     </g>

@@ -77,3 +77,10 @@ export function Winding({ x, y1, y2, side, turns = 5 }: { x: number; y1: number;
   const d = Array.from({ length: turns }, (_, k) => `A ${h / 2} ${h / 2} 0 0 ${side > 0 ? 1 : 0} ${x} ${y1 + (k + 1) * h}`).join(' ');
   return <path d={`M ${x} ${y1} ${d}`} fill="none" stroke={INK} strokeWidth={2} />;
 }
+
+/** A winding lying from (x1, y) to (x2, y) as a row of half-loops bulging up (`side` −1) or down (1). */
+export function HWinding({ x1, x2, y, side, turns = 5 }: { x1: number; x2: number; y: number; side: 1 | -1; turns?: number }) {
+  const w = (x2 - x1) / turns;
+  const d = Array.from({ length: turns }, (_, k) => `A ${w / 2} ${w / 2} 0 0 ${side > 0 ? 0 : 1} ${x1 + (k + 1) * w} ${y}`).join(' ');
+  return <path d={`M ${x1} ${y} ${d}`} fill="none" stroke={INK} strokeWidth={2} />;
+}

@@ -19,3 +19,17 @@ export function Ground({ x, y }: { x: number; y: number }) {
     </g>
   );
 }
+
+/** How far a wire's hop rises over the wire it crosses. */
+const HOP = 5;
+
+/**
+ * A horizontal wire at `y` from `from` to `to` that hops over the upright
+ * wires it crosses at `over` (a half-circle each): crossing, not joined.
+ */
+export function HopWire({ y, from, to, over }: { y: number; from: number; to: number; over: readonly number[] }) {
+  const dir = Math.sign(to - from) || 1;
+  const hops = [...over].sort((a, b) => (a - b) * dir);
+  const d = hops.map((x) => `H ${x - dir * HOP} A ${HOP} ${HOP} 0 0 ${dir > 0 ? 1 : 0} ${x + dir * HOP} ${y}`).join(' ');
+  return <path d={`M ${from} ${y} ${d} H ${to}`} fill="none" stroke={INK} strokeWidth={2} />;
+}
