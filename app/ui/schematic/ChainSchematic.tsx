@@ -1,12 +1,13 @@
 import { memo, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { Wire } from './wiring';
-import { FEEDBACK_ROW, FeedbackPath, FollowerCell, GainCell, GRID, H, LEAD_IN, LoadCell, MUTED, OutputCell, SplitterCell, WIDTH, cellWidth, label, singleEndedTap, type Anchor, type ValueLabel } from './chainCells';
+import { FEEDBACK_ROW, FeedbackPath, FollowerCell, GainCell, GRID, H, LEAD_IN, LoadCell, MUTED, OutputCell, RAIL, SplitterCell, WIDTH, cellWidth, label, singleEndedTap, type Anchor, type ValueLabel } from './chainCells';
 import { LongTailedPairCell, PairCell, pairTap } from './pairCells';
 import { InlineEditor } from './InlineEditor';
 import { sameEntries, useDragPaced } from '../panels/useDragPaced';
 import { useWorkbench } from '../../store/StoreProvider';
 import type { FieldName } from '../../store/fields';
-import { benchIndex, voltageStages } from '../../store/stagePlans';
+import { benchIndex, nodeOfStage, voltageStages } from '../../store/stagePlans';
+import { nodeOf } from '../../store/supplyPlan';
 import { drivesPair, splitterName } from '../../store/outputPlan';
 import { ohms } from '../../format';
 
@@ -27,7 +28,7 @@ const onPress = (act: () => void) => (e: KeyboardEvent) => {
  * target lies under the drawing, which lets presses through to it except on
  * the values, each a button of its own.
  */
-function Cell({ x0, width, onBench, name, onOpen, tubeId, children }: { x0: number; width: number; onBench: boolean; name: string; onOpen: () => void; tubeId: string | null; children: ReactNode }) {
+function Cell({ x0, width, onBench, name, onOpen, tubeId, node = null, children }: { x0: number; width: number; onBench: boolean; name: string; onOpen: () => void; tubeId: string | null; node?: number | null; children: ReactNode }) {
   return (
     <g>
       <rect
@@ -37,6 +38,8 @@ function Cell({ x0, width, onBench, name, onOpen, tubeId, children }: { x0: numb
       />
       <g className="chain-ink">
         {children}
+        {/* The supply node its rail hangs from, numbered as the supply's table numbers them. */}
+        {node !== null && label(x0 + width - 6, RAIL - 8, `node ${node + 1}`, 'end')}
         {tubeId && label(x0 + width / 2, H - 20, tubeId, 'middle')}
         {/* Above the highlighted frame's lower edge (at H − 4), so its descenders are not cut. */}
         <text x={x0 + width / 2} y={H - 9} fontSize={10} fill={MUTED} textAnchor="middle">{name.split(',')[0]}</text>
@@ -105,7 +108,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
     const open = () => showStage(i);
     const value = valuesOf(`Stage ${i + 1}`, open);
     return (
-      <Cell key={i} x0={x0} width={cellWidth(p)} onBench={onBench} name={name} tubeId={p.tubeId} onOpen={open}>
+      <Cell key={i} x0={x0} width={cellWidth(p)} onBench={onBench} name={name} tubeId={p.tubeId} node={p.kind === 'follower' ? null : nodeOfStage(design, list, i)} onOpen={open}>
         {p.kind === 'follower' ? <FollowerCell x0={x0} p={p} value={value} /> : <GainCell x0={x0} p={p} value={value} />}
       </Cell>
     );
@@ -120,7 +123,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   const splitterValues = valuesOf('Phase splitter', openOutput);
   const splitterCc = o.splitter.coupling === 'direct' ? null : design.cout;
   const splitter = pair ? (
-    <Cell key="splitter" x0={splitterX} width={splitterWidth} onBench={design.stageKind === 'output'} name={`Phase splitter, ${splitterName(o.splitter)}`} tubeId={o.splitter.tubeId} onOpen={openOutput}>
+    <Cell key="splitter" x0={splitterX} width={splitterWidth} onBench={design.stageKind === 'output'} name={`Phase splitter, ${splitterName(o.splitter)}`} tubeId={o.splitter.tubeId} node={nodeOf(design.supply, 'splitter')} onOpen={openOutput}>
       {ltp ? <LongTailedPairCell x0={splitterX} cc={splitterCc} sp={o.splitter} value={splitterValues} /> : <SplitterCell x0={splitterX} cc={splitterCc} sp={o.splitter} value={splitterValues} />}
     </Cell>
   ) : null;
@@ -128,7 +131,7 @@ export const ChainSchematic = memo(function ChainSchematic() {
   const outputValues = valuesOf('Output stage', openOutput);
   const outputWidth = pair ? WIDTH.pair : WIDTH.output;
   const end = design.drivesOutput ? (
-    <Cell key="output" x0={x} width={outputWidth} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull` : `Output stage, ${o.tubeId}`} tubeId={null} onOpen={openOutput}>
+    <Cell key="output" x0={x} width={outputWidth} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull` : `Output stage, ${o.tubeId}`} tubeId={null} node={nodeOf(design.supply, 'output')} onOpen={openOutput}>
       {pair
         ? <PairCell x0={x} cc={o.splitter.cc} ccField="sCc" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} value={outputValues} />
         : <OutputCell x0={x} cc={design.cout} ccField="cout" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} value={outputValues} />}
