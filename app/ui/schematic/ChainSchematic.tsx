@@ -10,6 +10,8 @@ import { benchIndex, nodeOfStage, voltageStages } from '../../store/stagePlans';
 import { nodeOf } from '../../store/supplyPlan';
 import { drivesPair, splitterName } from '../../store/outputPlan';
 import { ohms } from '../../format';
+import { findOutputTube } from '../../../src/index';
+import { screenWiringOf } from './screenWiring';
 
 const INK = '#1d2329';
 /** The in-place editor's width, px (as styled). */
@@ -129,12 +131,13 @@ export const ChainSchematic = memo(function ChainSchematic() {
   ) : null;
   const bias = o.bias === 'fixed' ? { kind: 'fixed' as const, vg: o.vg } : { kind: 'cathode' as const, rk: o.rk };
   const outputValues = valuesOf('Output stage', openOutput);
+  const wiring = screenWiringOf(o, findOutputTube(o.tubeId)?.law.kind === 'triode');
   const outputWidth = pair ? WIDTH.pair : WIDTH.output;
   const end = design.drivesOutput ? (
     <Cell key="output" x0={x} width={outputWidth} onBench={design.stageKind === 'output'} name={pair ? `Output stage, two ${o.tubeId} in push-pull` : `Output stage, ${o.tubeId}`} tubeId={null} node={nodeOf(design.supply, 'output')} onOpen={openOutput}>
       {pair
-        ? <PairCell x0={x} cc={o.splitter.cc} ccField="sCc" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} value={outputValues} />
-        : <OutputCell x0={x} cc={design.cout} ccField="cout" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} value={outputValues} />}
+        ? <PairCell x0={x} cc={o.splitter.cc} ccField="sCc" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} wiring={wiring} value={outputValues} />
+        : <OutputCell x0={x} cc={design.cout} ccField="cout" rg={o.rg} bias={bias} bplus={o.bplus} tubeId={o.tubeId} speakerOhms={o.speakerOhms} wiring={wiring} value={outputValues} />}
     </Cell>
   ) : Number.isFinite(design.rl) ? (
     <g key="load">

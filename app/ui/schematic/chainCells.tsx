@@ -1,8 +1,9 @@
 import { memo, type ReactNode } from 'react';
 import { Capacitor, HResistor, Resistor, Winding, Wiper } from './parts';
-import { Pentode, Triode } from './tubes';
+import { Triode } from './tubes';
+import { gridLeadBelow, OutputTubeSymbol, ScreenWire, screenWords, type ScreenWiring } from './screenWiring';
 import { Dot, Ground, Wire } from './wiring';
-import { farads, ohms, plain, volts } from '../../format';
+import { farads, ohms, percentOf, plain, volts } from '../../format';
 import type { FieldName } from '../../store/fields';
 import type { FollowerPlan, GainPlan } from '../../store/stagePlans';
 import type { SplitterPlan } from '../../store/outputPlan';
@@ -236,20 +237,33 @@ export const SplitterCell = memo(function SplitterCell({ x0, cc, sp, value }: { 
   );
 }, sameProps);
 
-/** The output stage: its coupling capacitor (`ccField` names whose box holds it) and grid resistor, the tube and its transformer. */
-export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
+/**
+ * The single-ended output stage: its coupling capacitor (`ccField` names
+ * whose box holds it) and grid resistor, the tube (a power triode, or a
+ * pentode with its screen wired as chosen, its lead on the left, away from
+ * the secondary) and its transformer.
+ */
+export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, wiring, value }: { x0: number; cc: number | null; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; wiring: ScreenWiring; value: ValueLabel }) {
   const cx = x0 + 110;
   const r = 26;
+  const primaryTop = RAIL + 10;
+  const primaryEnd = GRID - r - 4;
+  const tapY = primaryTop + (primaryEnd - primaryTop) * (wiring.kind === 'ultralinear' ? wiring.tap : 0);
+  const screenX = cx - r - 4;
+  const supplyY = GRID - r + 2;
   return (
     <>
       <Coupling x0={x0} cc={cc} value={value} field={ccField} />
       <GridLeak x0={x0} rg={rg} value={value} field="oRg" {...(bias.kind === 'fixed' ? { to: { field: 'oVg' as const, volts: bias.vg } } : {})} />
-      <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, GRID + 8], [cx - r, GRID + 8]]} />
-      <Pentode cx={cx} cy={GRID} r={r} />
-      <Wire points={[[x0 + 64, RAIL], [cx, RAIL], [cx, RAIL + 10]]} />
-      <Winding x={cx} y1={RAIL + 10} y2={GRID - r - 4} side={1} turns={4} />
-      <Wire points={[[cx, GRID - r - 4], [cx, GRID - r]]} />
-      <Winding x={cx + 22} y1={RAIL + 10} y2={GRID - r - 4} side={-1} turns={4} />
+      <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, GRID + gridLeadBelow(wiring)], [cx - r, GRID + gridLeadBelow(wiring)]]} />
+      <OutputTubeSymbol cx={cx} cy={GRID} r={r} wiring={wiring} side={-1} />
+      <ScreenWire cx={cx} cy={GRID} r={r} side={-1} wiring={wiring} tapAt={[cx, tapY]} plateY={primaryEnd + 2} supplyY={supplyY} />
+      {wiring.kind === 'pentode' && label(screenX, supplyY - 5, screenWords(wiring), 'middle')}
+      {wiring.kind === 'ultralinear' && label(screenX + 4, tapY - 4, percentOf(wiring.tap))}
+      <Wire points={[[x0 + 64, RAIL], [cx, RAIL], [cx, primaryTop]]} />
+      <Winding x={cx} y1={primaryTop} y2={primaryEnd} side={1} turns={4} />
+      <Wire points={[[cx, primaryEnd], [cx, GRID - r]]} />
+      <Winding x={cx + 22} y1={primaryTop} y2={primaryEnd} side={-1} turns={4} />
       {value('oSpeaker', 'speaker', cx + 30, 62, `${speakerOhms} Ω`)}
       {value('oBplus', 'B+', x0 + 66, RAIL - 8, `B+ ${volts(bplus)}`)}
       {bias.kind === 'cathode' ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}

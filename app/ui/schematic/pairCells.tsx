@@ -1,9 +1,10 @@
 import { memo } from 'react';
 import { Capacitor, HResistor, HWinding, Resistor } from './parts';
-import { Pentode, Triode } from './tubes';
+import { Triode } from './tubes';
 import { Dot, Ground, HopWire, Wire } from './wiring';
 import { Coupling, GRID, GROUND, H, label, RAIL, RG_X, sameProps, SECOND_IN, SplitterInput, WIDTH, type SpeakerTap, type ValueLabel } from './chainCells';
-import { farads, ohms, volts } from '../../format';
+import { farads, ohms, percentOf, volts } from '../../format';
+import { gridLeadBelow, OutputTubeSymbol, ScreenWire, screenWords, type ScreenWiring } from './screenWiring';
 import type { FieldName } from '../../store/fields';
 import type { SplitterPlan } from '../../store/outputPlan';
 
@@ -87,7 +88,7 @@ export const pairTap = (x0: number): SpeakerTap => ({ x: x0 + 262, y: PAIR.secon
  * speaker, and the cathodes joined (into the shared Rk, or to ground with
  * fixed bias).
  */
-export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, value }: { x0: number; cc: number; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; value: ValueLabel }) {
+export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplus, tubeId, speakerOhms, wiring, value }: { x0: number; cc: number; ccField: FieldName; rg: number; bias: { kind: 'cathode'; rk: number } | { kind: 'fixed'; vg: number }; bplus: number; tubeId: string; speakerOhms: number; wiring: ScreenWiring; value: ValueLabel }) {
   const { r } = PAIR;
   const a = x0 + PAIR.a;
   const b = x0 + PAIR.b;
@@ -99,12 +100,14 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
   const tap = pairTap(x0);
   const secondaryFrom = mid + 10;
   const secondaryTo = b + 10;
+  const screensY = GRID - r + 6;
+  const gridY = GRID + gridLeadBelow(wiring);
   return (
     <>
       {/* The first grid, from the splitter's inverting output. */}
       <Coupling x0={x0} cc={cc} value={value} field={ccField} />
       <Dot x={leak1} y={GRID} />
-      <Wire points={[[x0 + 36, GRID], [x0 + 64, GRID], [x0 + 64, GRID + 8], [a - r, GRID + 8]]} />
+      <Wire points={[[x0 + 36, GRID], [x0 + 64, GRID], [x0 + 64, gridY], [a - r, gridY]]} />
       {/* Short, so the second grid's wire crosses its lead below it, not its body. */}
       <Resistor x={leak1} y1={GRID} y2={GRID + PAIR.leakBody} />
       <Wire points={[[leak1, GRID + PAIR.leakBody], [leak1, leakFoot]]} />
@@ -115,7 +118,7 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       {/* Its own box, apart from the first capacitor's: the two are one value, kept in one field. */}
       <g>{value(ccField, 'second Cc', x0 + 6, PAIR.low + 26, farads(cc))}</g>
       <HopWire y={PAIR.low} from={x0 + 40} to={b - 40} over={[leak1, a]} />
-      <Wire points={[[b - 40, PAIR.low], [b - 40, GRID + 8], [b - r, GRID + 8]]} />
+      <Wire points={[[b - 40, PAIR.low], [b - 40, gridY], [b - r, gridY]]} />
       <Dot x={leak2} y={PAIR.low} />
       <Resistor x={leak2} y1={PAIR.low} y2={leakFoot} />
       <g>{value('oRg', 'second Rg', leak2 - 8, leakFoot - 6, ohms(rg), 'end')}</g>
@@ -123,8 +126,18 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       <Dot x={leak1} y={leakFoot} />
       {bias.kind === 'fixed' ? value('oVg', 'grid leaks returned', leak1, GROUND + 4, `to ${volts(bias.vg)}`, 'middle') : <Ground x={leak1} y={GROUND} />}
       {/* The tubes on the centre-tapped primary, B+ at the tap; the secondary beside it to the speaker. */}
-      <Pentode cx={a} cy={GRID} r={r} />
-      <Pentode cx={b} cy={GRID} r={r} />
+      {/* Each screen's lead toward the other tube: to its tap on its own half of the primary, its own plate, or the screens' supply. */}
+      <OutputTubeSymbol cx={a} cy={GRID} r={r} wiring={wiring} side={1} />
+      <OutputTubeSymbol cx={b} cy={GRID} r={r} wiring={wiring} side={-1} />
+      <ScreenWire cx={a} cy={GRID} r={r} side={1} wiring={wiring} tapAt={[a + r + 4, PAIR.primary]} plateY={PAIR.primary + 10} supplyY={screensY} />
+      <ScreenWire cx={b} cy={GRID} r={r} side={-1} wiring={wiring} tapAt={[b - r - 4, PAIR.primary]} plateY={PAIR.primary + 10} supplyY={screensY} />
+      {wiring.kind === 'pentode' && (
+        <>
+          <Wire points={[[a + r + 4, screensY], [b - r - 4, screensY]]} />
+          {label(mid, screensY - 4, screenWords(wiring), 'middle')}
+        </>
+      )}
+      {wiring.kind === 'ultralinear' && label(mid, screensY + 8, percentOf(wiring.tap), 'middle')}
       <HWinding x1={a} x2={b} y={PAIR.primary} side={-1} turns={6} />
       <Wire points={[[a, PAIR.primary], [a, GRID - r]]} />
       <Wire points={[[b, PAIR.primary], [b, GRID - r]]} />
