@@ -16,6 +16,8 @@ describe('the drawing of a push-pull amplifier', () => {
   /** How many times a tube's type is written under its symbol on the drawing. */
   const tubeLabels = (view: ReturnType<typeof render>, id: string) => [...view.container.querySelectorAll('svg.chain-schematic text')].filter((t) => t.textContent === id).length;
   /** How many tube envelopes of a radius the drawing holds (the voltage stages' and splitter's triodes are 22, the output tubes 26). */
+  /** The output stage's cathode bypass, named on the drawing (its value is sized on the build sheet). */
+  const bypassNamed = (view: ReturnType<typeof render>) => [...view.container.querySelectorAll('svg.chain-schematic text')].some((t) => t.textContent === 'Ck');
   const envelopes = (view: ReturnType<typeof render>, r: number) => [...view.container.querySelectorAll('svg.chain-schematic circle')].filter((c) => c.getAttribute('r') === String(r)).length;
 
   it('draws both output tubes, each grid fed through its own capacitor into its own resistor, editable there', { timeout: 20_000 }, () => {
@@ -23,7 +25,9 @@ describe('the drawing of a push-pull amplifier', () => {
     const view = render(<App store={store} />);
     expect(tubeLabels(view, 'EL34')).toBe(1);
     expect(envelopes(view, 26)).toBe(1);
+    expect(bypassNamed(view)).toBe(true);
     act(() => store.getState().setOutputPair('push-pull'));
+    expect(bypassNamed(view)).toBe(true);
     const o = () => store.getState().design.output;
     expect(drawing().getByRole('button', { name: 'Output stage, two EL34 in push-pull: put it on the bench' })).toBeTruthy();
     expect(tubeLabels(view, 'EL34')).toBe(2);
@@ -43,6 +47,7 @@ describe('the drawing of a push-pull amplifier', () => {
     expect(drawing().getByRole('button', { name: `Output stage Rk ${ohms(o().rk)}: change` })).toBeTruthy();
     act(() => store.getState().commit({ ...store.getState().design, output: { ...o(), bias: 'fixed', vg: -30 } }));
     expect(drawing().queryByRole('button', { name: /^Output stage Rk/ })).toBeNull();
+    expect(bypassNamed(view)).toBe(false);
     expect(drawing().getByRole('button', { name: 'Output stage grid leaks returned to −30 V: change' })).toBeTruthy();
   });
 

@@ -87,6 +87,17 @@ export function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: numb
   );
 }
 
+/** A cathode resistor's bypass capacitor beside it, from its lead at `top` to its foot at `bottom` (the resistor stands at x). */
+export function Bypass({ x, top, bottom }: { x: number; top: number; bottom: number }) {
+  return (
+    <>
+      <Wire points={[[x, top], [x + 24, top]]} />
+      <Capacitor at={x + 24} from={top} to={bottom} vertical polarised />
+      <Wire points={[[x + 24, bottom], [x, bottom]]} />
+    </>
+  );
+}
+
 /** A triode with its plate resistor from the rail, its plate taken to the cell's right edge and down to the next grid's height. */
 function PlateLoad({ x0, width, cx, r, ra, field, value }: { x0: number; width: number; cx: number; r: number; ra: number; field: FieldName; value: ValueLabel }) {
   return (
@@ -126,9 +137,7 @@ export const GainCell = memo(function GainCell({ x0, p, value }: { x0: number; p
       {p.rk > 0 && value('rk', 'Rk', cx - 12, 176, ohms(p.rk), 'end')}
       {p.bypassed && p.rk > 0 && (
         <>
-          <Wire points={[[cx, 150], [cx + 24, 150]]} />
-          <Capacitor at={cx + 24} from={150} to={GROUND - 8} vertical polarised />
-          <Wire points={[[cx + 24, GROUND - 8], [cx, GROUND - 8]]} />
+          <Bypass x={cx} top={150} bottom={GROUND - 8} />
           {value('ck', 'Ck', cx - 12, 189, p.ck === null ? 'Ck ideal' : farads(p.ck), 'end')}
         </>
       )}
@@ -267,7 +276,14 @@ export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, 
       {value('oSpeaker', 'speaker', cx + 30, 62, `${speakerOhms} Ω`)}
       {value('oBplus', 'B+', x0 + 66, RAIL - 8, `B+ ${volts(bplus)}`)}
       {bias.kind === 'cathode' ? <Resistor x={cx} y1={GRID + r} y2={GROUND - 8} /> : <Wire points={[[cx, GRID + r], [cx, GROUND - 8]]} />}
-      {bias.kind === 'cathode' && value('oRk', 'Rk', cx - 12, 176, ohms(bias.rk), 'end')}
+      {bias.kind === 'cathode' && (
+        <>
+          {value('oRk', 'Rk', cx - 12, 176, ohms(bias.rk), 'end')}
+          {/* Sized on the build sheet for the stage's low corner: named here, its value there. */}
+          <Bypass x={cx} top={GRID + r + 4} bottom={GROUND - 8} />
+          {label(cx + 40, 176, 'Ck')}
+        </>
+      )}
       <Ground x={cx} y={GROUND} />
       {label(x0 + 140, H - 20, tubeId, 'middle')}
     </>

@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { Capacitor, HResistor, HWinding, Resistor } from './parts';
 import { Triode } from './tubes';
 import { Dot, Ground, HopWire, Wire } from './wiring';
-import { Coupling, GRID, GROUND, H, label, RAIL, RG_X, sameProps, SECOND_IN, SplitterInput, WIDTH, type SpeakerTap, type ValueLabel } from './chainCells';
+import { Bypass, Coupling, GRID, GROUND, H, label, RAIL, RG_X, sameProps, SECOND_IN, SplitterInput, WIDTH, type SpeakerTap, type ValueLabel } from './chainCells';
 import { farads, ohms, percentOf, volts } from '../../format';
 import { gridLeadBelow, OutputTubeSymbol, ScreenWire, screenWords, type ScreenWiring } from './screenWiring';
 import type { FieldName } from '../../store/fields';
@@ -154,7 +154,15 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       <Wire points={[[a, GRID + r], [a, joined], [b, joined], [b, GRID + r]]} />
       <Dot x={mid} y={joined} />
       {bias.kind === 'cathode' ? <Resistor x={mid} y1={joined} y2={GROUND} /> : <Wire points={[[mid, joined], [mid, GROUND]]} />}
-      {bias.kind === 'cathode' && value('oRk', 'Rk', mid - 12, joined + 20, ohms(bias.rk), 'end')}
+      {bias.kind === 'cathode' && (
+        <>
+          {value('oRk', 'Rk', mid - 12, joined + 20, ohms(bias.rk), 'end')}
+          {/* Sized on the build sheet: named here, its value there. */}
+          <Bypass x={mid} top={joined} bottom={GROUND} />
+          <Dot x={mid + 24} y={joined} />
+          {label(mid + 40, joined + 20, 'Ck')}
+        </>
+      )}
       <Ground x={mid} y={GROUND + 8} />
       {label(a, H - 20, tubeId, 'middle')}
       {label(b, H - 20, tubeId, 'middle')}
