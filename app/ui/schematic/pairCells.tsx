@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { Capacitor, HResistor, HWinding, Resistor } from './parts';
 import { Triode } from './tubes';
 import { Dot, Ground, HopWire, Wire } from './wiring';
-import { Bypass, Coupling, GRID, GROUND, H, label, RAIL, RG_X, sameProps, SECOND_IN, SplitterInput, WIDTH, type SpeakerTap, type ValueLabel } from './chainCells';
+import { Bypass, CC_END, Coupling, GRID, GROUND, H, label, RAIL, RG_X, sameProps, SECOND_IN, SplitterInput, WIDTH, type SpeakerTap, type ValueLabel } from './chainCells';
 import { farads, ohms, percentOf, volts } from '../../format';
 import { gridLeadBelow, OutputTubeSymbol, ScreenWire, screenWords, type ScreenWiring } from './screenWiring';
 import type { FieldName } from '../../store/fields';
@@ -107,17 +107,17 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       {/* The first grid, from the splitter's inverting output. */}
       <Coupling x0={x0} cc={cc} value={value} field={ccField} />
       <Dot x={leak1} y={GRID} />
-      <Wire points={[[x0 + 36, GRID], [x0 + 64, GRID], [x0 + 64, gridY], [a - r, gridY]]} />
+      <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, gridY], [a - r, gridY]]} />
       {/* Short, so the second grid's wire crosses its lead below it, not its body. */}
       <Resistor x={leak1} y1={GRID} y2={GRID + PAIR.leakBody} />
       <Wire points={[[leak1, GRID + PAIR.leakBody], [leak1, leakFoot]]} />
       {value('oRg', 'Rg', leak1 + 12, GRID + 22, ohms(rg))}
       {/* The second grid, from the output in phase: under the first grid's leak and the first cathode, up to its grid. */}
       <Wire points={[[x0, SECOND_IN], [x0 + 4, SECOND_IN], [x0 + 4, PAIR.low]]} />
-      <Capacitor at={PAIR.low} from={x0 + 4} to={x0 + 40} vertical={false} />
+      <Capacitor at={PAIR.low} from={x0 + 4} to={x0 + 4 + CC_END} vertical={false} />
       {/* Its own box, apart from the first capacitor's: the two are one value, kept in one field. */}
       <g>{value(ccField, 'second Cc', x0 + 6, PAIR.low + 26, farads(cc))}</g>
-      <HopWire y={PAIR.low} from={x0 + 40} to={b - 40} over={[leak1, a]} />
+      <HopWire y={PAIR.low} from={x0 + 4 + CC_END} to={b - 40} over={[leak1, a]} />
       <Wire points={[[b - 40, PAIR.low], [b - 40, gridY], [b - r, gridY]]} />
       <Dot x={leak2} y={PAIR.low} />
       <Resistor x={leak2} y1={PAIR.low} y2={leakFoot} />
@@ -125,8 +125,10 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       <Wire points={[[leak2, leakFoot], [leak1, leakFoot]]} />
       <Dot x={leak1} y={leakFoot} />
       {bias.kind === 'fixed' ? value('oVg', 'grid leaks returned', leak1, GROUND + 4, `to ${volts(bias.vg)}`, 'middle') : <Ground x={leak1} y={GROUND} />}
-      {/* The tubes on the centre-tapped primary, B+ at the tap; the secondary beside it to the speaker. */}
-      {/* Each screen's lead toward the other tube: to its tap on its own half of the primary, its own plate, or the screens' supply. */}
+      {/*
+        The tubes on the centre-tapped primary, B+ at the tap, the secondary beside it to the speaker; each screen's lead
+        toward the other tube: to its tap on its own half of the primary, its own plate, or the screens' supply.
+      */}
       <OutputTubeSymbol cx={a} cy={GRID} r={r} wiring={wiring} side={1} />
       <OutputTubeSymbol cx={b} cy={GRID} r={r} wiring={wiring} side={-1} />
       <ScreenWire cx={a} cy={GRID} r={r} side={1} wiring={wiring} tapAt={[a + r + 4, PAIR.primary]} plateY={PAIR.primary + 10} supplyY={screensY} />
