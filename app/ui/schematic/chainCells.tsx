@@ -69,7 +69,7 @@ export function Coupling({ x0, cc, value, field, name = 'Cc' }: { x0: number; cc
 }
 
 /** A grid leak from the grid line to ground (or, with `to`, to the divider holding the grid there). */
-export function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number }; volume?: number | null }) {
+function GridLeak({ x0, rg, value, field, to, volume = null }: { x0: number; rg: number; value: ValueLabel; field: FieldName; to?: { field: FieldName; volts: number }; volume?: number | null }) {
   return (
     <>
       <Dot x={x0 + RG_X} y={GRID} />

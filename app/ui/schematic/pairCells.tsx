@@ -1,6 +1,7 @@
 import { memo } from 'react';
 import { Capacitor, HResistor, HWinding, Resistor } from './parts';
 import { Triode } from './tubes';
+import { INK } from './ink';
 import { Dot, Ground, HopWire, Wire } from './wiring';
 import { Bypass, CC_END, Coupling, GRID, GROUND, H, label, RAIL, RG_X, sameProps, SECOND_IN, SplitterInput, WIDTH, type SpeakerTap, type ValueLabel } from './chainCells';
 import { farads, ohms, percentOf, volts } from '../../format';
@@ -145,8 +146,8 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       <Wire points={[[b, PAIR.primary], [b, GRID - r]]} />
       <Wire points={[[x0 + 64, RAIL], [mid, RAIL], [mid, PAIR.primary]]} />
       <Dot x={mid} y={PAIR.primary} />
-      <line x1={mid + 6} x2={b + 14} y1={PAIR.secondary + 10} y2={PAIR.secondary + 10} stroke="#1d2329" strokeWidth={2} />
-      <line x1={mid + 6} x2={b + 14} y1={PAIR.secondary + 13} y2={PAIR.secondary + 13} stroke="#1d2329" strokeWidth={2} />
+      <line x1={mid + 6} x2={b + 14} y1={PAIR.secondary + 10} y2={PAIR.secondary + 10} stroke={INK} strokeWidth={2} />
+      <line x1={mid + 6} x2={b + 14} y1={PAIR.secondary + 13} y2={PAIR.secondary + 13} stroke={INK} strokeWidth={2} />
       <HWinding x1={secondaryFrom} x2={secondaryTo} y={PAIR.secondary} side={1} turns={4} />
       <Wire points={[[secondaryFrom, PAIR.secondary], [secondaryFrom, PAIR.secondary - 10], [tap.x, PAIR.secondary - 10]]} />
       <Wire points={[[secondaryTo, PAIR.secondary], [tap.x, PAIR.secondary]]} />

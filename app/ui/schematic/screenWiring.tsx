@@ -1,6 +1,6 @@
 import { Pentode, Triode } from './tubes';
 import { Dot, Wire } from './wiring';
-import { percentOf, volts } from '../../format';
+import { volts } from '../../format';
 import type { OutputPlan } from '../../store/outputPlan';
 
 /**
@@ -31,7 +31,7 @@ export function OutputTubeSymbol({ cx, cy, r, wiring, side }: { cx: number; cy: 
 export const gridLeadBelow = (w: ScreenWiring) => (w.kind === 'none' ? 0 : 8);
 
 /** The screen's lead leaves the envelope this far above the tube's centre (the Pentode symbol's). */
-export const SCREEN_ABOVE = 4;
+const SCREEN_ABOVE = 4;
 /** How far out from the envelope its wire turns. */
 const TURN = 4;
 
@@ -65,5 +65,5 @@ export function ScreenWire({ cx, cy, r, side, wiring, tapAt, plateY, supplyY }: 
   return <Wire points={[lead, [out, y], [out, supplyY]]} />;
 }
 
-/** The words for a screen's supply, or its tap, where the drawing names it. */
-export const screenWords = (w: ScreenWiring) => (w.kind === 'pentode' ? `g2 ${volts(w.volts)}` : w.kind === 'ultralinear' ? `g2 on ${percentOf(w.tap)} tap` : '');
+/** A pentode-connected screen's supply in the drawing's words. */
+export const screenWords = (w: Extract<ScreenWiring, { kind: 'pentode' }>) => `g2 ${volts(w.volts)}`;
