@@ -1,8 +1,8 @@
-import { farads, hertz, milliamps, ohms, plain, rmsLevel, volts, watts, voltsRms } from '../format';
+import { farads, hertz, milliamps, ohms, plain, volts, watts } from '../format';
 import type { BuildSheet } from '../store/buildSheet';
 import type { CapacitorLine, ResistorLine } from '../../src/index';
 import { voltageStages } from '../store/stagePlans';
-import { atLevelWords } from '../ui/chain/atLevelWords';
+import { atLevelWords, cleanLimitWords } from '../ui/chain/atLevelWords';
 import { NOISE_BAND_WORDS, noiseWords } from '../ui/chain/noiseWords';
 import { FEEDBACK_CAVEAT, feedbackBandWords, feedbackWords } from '../ui/chain/feedbackWords';
 import type { WorkbenchState } from '../store/workbenchStore';
@@ -23,7 +23,7 @@ export function amplifierSection(s: WorkbenchState): { heading: string; lines: s
   const lines = [
     chain,
     `Gain ${plain(Math.abs(r.gain))} × (${(20 * Math.log10(Math.abs(r.gain))).toFixed(1)} dB${r.inverting ? ', inverting' : ''}), −3 dB ${hz(r.lowHz, 'DC')} to ${hz(r.highHz, 'beyond 100 MHz')}`,
-    `Clean to ${r.outputPower !== null ? `${watts(r.outputPower)} (${voltsRms(r.speakerRms ?? 0)} at the speaker)` : rmsLevel(r.output, 'dBu')} from ${rmsLevel(r.input, 'dBu')} in; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`,
+    `Clean to ${cleanLimitWords(r, view.names)}${r.input.dBu === null ? '' : `; ${view.names[first.stage]!.title.toLowerCase()} clips first (${first.by === 'grid-current' ? 'grid current' : 'cutoff'})`}`,
   ];
   if (view.atLevel?.ok) lines.push(`At ${view.levelLabel}: ${atLevelWords(view)}`);
   const noise = noiseWords(r, r.outputPower !== null ? s.design.output.speakerOhms : null);

@@ -1,3 +1,4 @@
+import { formatValue } from '../parts/formatValue';
 import { fail, type Failure, type Result } from '../result';
 import { checkNumber } from '../stage/checkInput';
 import { harmonicAmplitudes } from '../signal/fft';
@@ -123,7 +124,7 @@ function peakPastClean(a: PreparedAmplifier, target: number): number | Failure {
   const limitWords = `stage ${first + 1} reaches ${clips[first]!.by === 'grid-current' ? 'grid current' : 'cutoff'}`;
   const unfollowed = a.links.findIndex((l) => !l.gridLaw);
   if (unfollowed >= 0) {
-    return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms is past the clean limit of ${(a.cleanFundamental() / Math.SQRT2).toPrecision(3)} V rms, where ${limitWords}; past it stage ${unfollowed + 1}'s grid current is not followed, so no figure is given there`, 'outputRms');
+    return fail('clipping', `${formatValue(target / Math.SQRT2, 'V')} rms is past the clean limit of ${formatValue(a.cleanFundamental() / Math.SQRT2, 'V')} rms, where ${limitWords}; past it stage ${unfollowed + 1}'s grid current is not followed, so no figure is given there`, 'outputRms');
   }
   const wave = new Float64Array(SAMPLES);
   const fundamentalAt = (peak: number) => harmonicAmplitudes(signal.cycle(SAMPLES, peak, wave), 1)[1]!;
@@ -133,7 +134,7 @@ function peakPastClean(a: PreparedAmplifier, target: number): number | Failure {
   let top = fundamentalAt(hi);
   while (top < target) {
     if (hi >= most) {
-      return fail('clipping', `${(target / Math.SQRT2).toPrecision(3)} V rms cannot be had: past the clean limit (where ${limitWords}) the output reaches ${(top / Math.SQRT2).toPrecision(3)} V rms at ${MAX_OVERDRIVE} times the clean input`, 'outputRms');
+      return fail('clipping', `${formatValue(target / Math.SQRT2, 'V')} rms cannot be had: past the clean limit (where ${limitWords}) the output reaches ${formatValue(top / Math.SQRT2, 'V')} rms at ${MAX_OVERDRIVE} times the clean input`, 'outputRms');
     }
     lo = hi;
     hi = Math.min(2 * hi, most);

@@ -1,3 +1,4 @@
+import { formatValue } from '../parts/formatValue';
 import { fail, type Result } from '../result';
 import type { StageDesign } from '../stage/stageDesign';
 import { solvedStage, type SolvedStage } from './analysisInput';
@@ -131,7 +132,7 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
   if ('inputRms' in level) {
     if (!(Number.isFinite(level.inputRms) && level.inputRms > 0)) return fail('invalid-input', `Input level must be above 0 V rms (got ${shown(level.inputRms)})`, 'inputRms');
     inputPeak = level.inputRms * Math.SQRT2;
-    if (inputPeak > MAX_OVERDRIVE * Math.max(clean.inputPeak, 1) * (1 + 1e-9)) return fail('clipping', `${shown(level.inputRms)} V rms is more than ${MAX_OVERDRIVE} times this stage's clean input of ${clean.input.rms.toPrecision(3)} V rms: far into clipping.`, 'inputRms');
+    if (inputPeak > MAX_OVERDRIVE * Math.max(clean.inputPeak, 1) * (1 + 1e-9)) return fail('clipping', `${shown(level.inputRms)} V rms is more than ${MAX_OVERDRIVE} times this stage's clean input of ${formatValue(clean.input.rms, 'V')} rms: far into clipping.`, 'inputRms');
   } else {
     if (!(Number.isFinite(level.outputRms) && level.outputRms > 0)) return fail('invalid-input', `Output level must be above 0 V rms (got ${shown(level.outputRms)})`, 'outputRms');
     const target = level.outputRms * Math.SQRT2;
@@ -139,7 +140,7 @@ export function distortionOf(s: SolvedStage, level: DriveLevel, options: Distort
     else {
       const over = overdriveFor(transfer, target, clean.inputPeak);
       const limit = clean.limitedBy === 'grid-current' ? 'grid current' : 'cutoff';
-      if (!over) return fail('clipping', `This stage cannot give ${shown(level.outputRms)} V rms: it is clean up to ${clean.output.rms.toPrecision(3)} V rms out (${clean.input.rms.toPrecision(3)} V rms in), where ${limit} sets in, and driven ${MAX_OVERDRIVE} times harder its output hardly grows.`, 'outputRms');
+      if (!over) return fail('clipping', `This stage cannot give ${shown(level.outputRms)} V rms: it is clean up to ${formatValue(clean.output.rms, 'V')} rms out (${formatValue(clean.input.rms, 'V')} rms in), where ${limit} sets in, and driven ${MAX_OVERDRIVE} times harder its output hardly grows.`, 'outputRms');
       inputPeak = inputForOutput(transfer, target, over.top, s.solution.gain, tolerance, Math.min(SEARCH_SAMPLES, n));
     }
   }

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
 import { stageDesignOf } from '../../app/store/analysis';
-import { distortion, findTube, levelAtThd, swing } from '../../src/index';
+import { distortion, findTube, formatValue, levelAtThd, swing } from '../../src/index';
 import { LIBRARY_TUBES } from '../../app/store/tubeRegistry';
 
 function setup() {
@@ -39,7 +39,7 @@ describe('signal views', () => {
     if (!clean.ok) throw new Error(clean.message);
     expect(store.getState().design.levelRms).toBe(100);
     // The signal views catch up once typing pauses.
-    expect((await screen.findByText(/^This stage cannot give 100 V rms: it is clean up to/)).textContent).toContain(`${clean.output.rms.toPrecision(3)} V rms out`);
+    expect((await screen.findByText(/^This stage cannot give 100 V rms: it is clean up to/)).textContent).toContain(`${formatValue(clean.output.rms, 'V')} rms out`);
   });
 
   it('a level past the clean swing shows its distortion and which limit it is past', async () => {

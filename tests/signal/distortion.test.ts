@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { distortion, findTube, sineLevel, solvedStage, swing } from '../../src/index';
+import { distortion, findTube, formatValue, sineLevel, solvedStage, swing } from '../../src/index';
 import { expectClose } from '../helpers/expectClose';
 import { distortionSweep } from '../../src/signal/distortionSweep';
 
@@ -41,7 +41,7 @@ describe('distortion and swing', () => {
     expect(r).toEqual({
       ok: false,
       reason: 'clipping',
-      message: `This stage cannot give 500 V rms: it is clean up to ${clean.output.rms.toPrecision(3)} V rms out (${clean.input.rms.toPrecision(3)} V rms in), where grid current sets in, and driven 10 times harder its output hardly grows.`,
+      message: `This stage cannot give 500 V rms: it is clean up to ${formatValue(clean.output.rms, 'V')} rms out (${formatValue(clean.input.rms, 'V')} rms in), where grid current sets in, and driven 10 times harder its output hardly grows.`,
       field: 'outputRms',
     });
   });

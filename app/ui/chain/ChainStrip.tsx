@@ -1,12 +1,12 @@
 import { useWorkbench, useWorkbenchStore } from '../../store/StoreProvider';
 import type { WorkbenchState } from '../../store/workbenchStore';
-import { hertz, plain, rmsLevel, watts, voltsRms } from '../../format';
+import { hertz, plain } from '../../format';
 import { benchIndex, canAddFollower, MAX_VOLTAGE_STAGES, voltageStages } from '../../store/stagePlans';
 import { StageCard } from './StageCard';
 import { StageMenu } from './StageMenu';
 import { ChainSchematic } from '../schematic/ChainSchematic';
 import { StripHum } from '../supply/SupplyHumLine';
-import { atLevelWords } from './atLevelWords';
+import { atLevelWords, cleanLimitWords } from './atLevelWords';
 import { NOISE_BAND_WORDS, noiseWords } from './noiseWords';
 import { GlobalFeedbackRow } from './GlobalFeedbackRow';
 
@@ -67,6 +67,7 @@ export function ChainStrip() {
                   kind={view.kinds[i]!}
                   result={result}
                   clipsFirst={r.ok && r.clipsFirst.stage === i ? r.clipsFirst : null}
+                  noSwing={r.ok && r.input.dBu === null}
                   onBench={onBench}
                   onOpen={() => (v === null ? setStageKind('output') : showStage(v))}
                 />
@@ -95,7 +96,7 @@ export function ChainStrip() {
           <div>
             <dt>{view.feedback?.ok ? 'Clean to, open loop' : 'Clean to'}</dt>
             <dd>
-              {r.outputPower !== null ? `${watts(r.outputPower)} (${voltsRms(r.speakerRms ?? 0)} at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`}, from {rmsLevel(r.input, 'dBu')} in
+              {cleanLimitWords(r, view.names)}
             </dd>
           </div>
           {view.atLevel && (

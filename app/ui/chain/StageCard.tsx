@@ -16,12 +16,14 @@ export interface StageCardProps {
   /** The stage solved in the amplifier; null while the amplifier cannot be solved (the card still opens its stage). */
   readonly result: StageResult | null;
   readonly clipsFirst: { readonly by: 'grid-current' | 'cutoff' } | null;
+  /** The amplifier has no clean swing (a stage clips with no signal): no headroom to read against it. */
+  readonly noSwing?: boolean;
   readonly onBench: boolean;
   readonly onOpen: () => void;
 }
 
 /** One stage of the amplifier: its kind, tube, gain, headroom and worst finding; pressing it puts the stage on the bench. */
-export function StageCard({ name, kind, result, clipsFirst, onBench, onOpen }: StageCardProps) {
+export function StageCard({ name, kind, result, clipsFirst, noSwing = false, onBench, onOpen }: StageCardProps) {
   const worst = result ? worstOf(result.findings) : null;
   const headroom = result?.headroomDb ?? null;
   return (
@@ -31,8 +33,10 @@ export function StageCard({ name, kind, result, clipsFirst, onBench, onOpen }: S
         <>
           <span className="card-gain">gain {plain(result.gain)}×{result.kind === 'single-ended-output' || result.kind === 'push-pull-output' ? ' (grid to speaker)' : ''}</span>
           <span className="card-headroom">
-            <meter min={0} max={HEADROOM_FULL_DB} low={3} optimum={HEADROOM_FULL_DB} value={headroom === null ? HEADROOM_FULL_DB : Math.min(headroom, HEADROOM_FULL_DB)} aria-label="headroom" />
-            {clipsFirst ? `clips first (${clipsFirst.by === 'grid-current' ? 'grid current' : 'cutoff'})` : headroom === null ? 'never clips' : `${headroom.toFixed(1)} dB headroom`}
+            <meter min={0} max={HEADROOM_FULL_DB} low={3} optimum={HEADROOM_FULL_DB} value={noSwing ? 0 : headroom === null ? HEADROOM_FULL_DB : Math.min(headroom, HEADROOM_FULL_DB)} aria-label="headroom" />
+            {clipsFirst
+              ? `${noSwing ? 'clips at rest' : 'clips first'} (${clipsFirst.by === 'grid-current' ? 'grid current' : 'cutoff'})`
+              : noSwing ? 'no clean swing' : headroom === null ? 'never clips' : `${headroom.toFixed(1)} dB headroom`}
           </span>
           <span className={`card-worst ${worst!.severity}`} title={worst!.text}>{worst!.severity === 'ok' ? '✓ ' : worst!.severity === 'danger' ? '⚠ Danger: ' : '⚠ '}{worst!.text}</span>
         </>

@@ -1,4 +1,4 @@
-import { plain, rmsLevel } from '../../format';
+import { plain, rmsLevel, voltsRms, watts } from '../../format';
 import type { AmplifierView } from '../../store/amplifierChain';
 
 /**
@@ -16,4 +16,20 @@ export function atLevelWords(view: AmplifierView): string | null {
   const stage = view.names[at.pastClean.stage];
   const by = at.pastClean.by === 'grid-current' ? 'drawing grid current' : 'cut off';
   return `${base}: past the clean limit, ${stage ? stage.title.toLowerCase() : `stage ${at.pastClean.stage + 1}`} ${by}`;
+}
+
+/**
+ * The amplifier's clean limit in words: the power (and the speaker's volts)
+ * or the output level, and the input it takes; when there is none (a stage
+ * already in grid current or cut off with no signal, say a direct-coupled
+ * follower whose grid sits above its cathode), which stage and why, not a
+ * power of some 10⁻¹⁴ W from "none" in.
+ */
+export function cleanLimitWords(r: Extract<AmplifierView['result'], { ok: true }>, names: AmplifierView['names']): string {
+  if (r.input.dBu === null) {
+    const title = names[r.clipsFirst.stage]?.title ?? `Stage ${r.clipsFirst.stage + 1}`;
+    return `none: ${title.toLowerCase()} is ${r.clipsFirst.by === 'grid-current' ? 'in grid current' : 'cut off'} with no signal`;
+  }
+  const out = r.outputPower !== null ? `${watts(r.outputPower)} (${voltsRms(r.speakerRms ?? 0)} at the speaker)` : `${rmsLevel(r.output, 'dBu')} out`;
+  return `${out} from ${rmsLevel(r.input, 'dBu')} in`;
 }
