@@ -34,6 +34,10 @@ describe('a tube of your own', () => {
     expect(panel.getByTestId('fit-summary').textContent).toMatch(/RMS error 0\.\d\d %/);
     const f = store.getState().custom.fit;
     expect(f?.ok && f.params.mu).toBeCloseTo(21.5, 0);
+    // The fitted curves are drawn over every point read: a dot each, in one path.
+    const cloud = panel.getByRole('img', { name: /fitted model's plate curves/ }).querySelector('path[data-dots="your-points"]');
+    expect(cloud?.getAttribute('d')?.match(/M/g)).toHaveLength(store.getState().custom.points.length);
+    expect(store.getState().custom.points.length).toBeGreaterThan(15);
 
     await user.type(panel.getByRole('textbox', { name: 'Name' }), '12AU7');
     await user.click(panel.getByRole('button', { name: 'Save as my tube' }));

@@ -36,10 +36,8 @@ export function CustomTubePanel() {
       x: { domain: [0, vmax], label: 'Va (V)' },
       y: { domain: [0, imax], label: 'Ia (mA)' },
       series: custom.curves.map((c) => ({ key: `fit-${c.vg}`, points: c.points.map((p) => ({ x: p.v, y: p.i * 1e3 })), stroke: PALETTE.ink, width: 1.2 })),
-      markers: [
-        ...custom.points.map((p) => ({ x: p.va, y: p.ia * 1e3, color: PALETTE.point })),
-        ...custom.typical.map((p) => ({ x: p.va, y: p.ia * 1e3, color: PALETTE.rival, label: 'typical' })),
-      ],
+      dots: { key: 'your-points', color: PALETTE.point, points: custom.points.map((p) => ({ x: p.va, y: p.ia * 1e3 })) },
+      markers: custom.typical.map((p) => ({ x: p.va, y: p.ia * 1e3, color: PALETTE.rival, label: 'typical' })),
     };
   }, [f, custom.curves, custom.points, custom.typical]);
 
