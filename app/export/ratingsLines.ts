@@ -2,14 +2,13 @@ import { benchFindings } from '../store/amplifierFindings';
 import type { WorkbenchState } from '../store/workbenchStore';
 
 /**
- * Every stage's ratings findings as the card prints them, tagged with the
- * stage. Dangers and warnings of every stage and of the supply (whose notes
- * stay with its own table) are always there; notes (the margins) only for the stages the card is about, so the
- * parts still fit the page.
+ * The ratings list as the card prints it: the workbench's own list, line for
+ * line, every finding tagged with its stage (the supply's notes, its margins,
+ * stay with its own table there as here). Every stage's notes too, not only
+ * the bench's: a margin such as an output plate's swing to 1.7 × B+ is what
+ * the builder checks the transformer and coupling parts against, and the card
+ * runs on to more pages when it needs them.
  */
 export function ratingsLines(s: WorkbenchState): string[] {
-  const onCard = (stageName: string) => (s.design.stageKind === 'output') === stageName.startsWith('Output stage');
-  return benchFindings(s)
-    .filter((f) => f.severity !== 'note' || onCard(f.stageName))
-    .map((f) => `${f.severity.toUpperCase()}: ${f.stageName}: ${f.message}`);
+  return benchFindings(s).map((f) => `${f.severity.toUpperCase()}: ${f.stageName}: ${f.message}`);
 }

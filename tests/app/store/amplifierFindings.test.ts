@@ -48,13 +48,18 @@ describe('one ratings list for the amplifier', () => {
   });
 });
 
-describe('the output stage\'s card', () => {
-  it('keeps every stage\'s dangers and warnings but only its own notes, so its parts fit the page', () => {
+describe('the card\'s ratings list', () => {
+  it('is the workbench\'s list line for line, every stage\'s notes included, whichever stage is on the bench', () => {
     const store = overRatedFollower();
-    store.getState().setStageKind('output');
-    const ratings = cardSections(store.getState()).find((x) => x.heading === 'Ratings, every stage')!.lines;
-    expect(ratings.some((l) => l.startsWith('DANGER: Stage 2, 12AX7 cathode follower: Heater-to-cathode'))).toBe(true);
-    expect(ratings.some((l) => l.startsWith('NOTE: Stage 1'))).toBe(false);
-    expect(ratings.some((l) => l.startsWith('NOTE: Output stage, EL34'))).toBe(true);
+    const expected = () => benchFindings(store.getState()).map((f) => `${f.severity.toUpperCase()}: ${f.stageName}: ${f.message}`);
+    const ratings = () => cardSections(store.getState()).find((x) => x.heading === 'Ratings, every stage')!.lines;
+    for (const kind of ['voltage', 'output'] as const) {
+      store.getState().setStageKind(kind);
+      expect(ratings()).toEqual(expected());
+      expect(ratings().some((l) => l.startsWith('DANGER: Stage 2, 12AX7 cathode follower: Heater-to-cathode'))).toBe(true);
+      // The margins of the stages off the bench as well as on it (the card once kept only the bench's).
+      expect(ratings().some((l) => l.startsWith('NOTE: Stage 1'))).toBe(true);
+      expect(ratings().some((l) => l.startsWith('NOTE: Output stage, EL34'))).toBe(true);
+    }
   });
 });
