@@ -122,8 +122,9 @@ function bothWays(on: AmplifierOnSupply) {
   const placed = placedOnSupply(on.amplifier, r.bplus, r.screenVolts);
   return {
     low,
-    sweep: () => runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, ladderSupply({ ladder, v0 }))).data,
-    kick: () => runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, ladderSupply({ ladder, v0 }))).data,
+    // A pentode's screens fed straight from a node hang from it in ngspice's circuit, as built.
+    sweep: () => runNgspiceFull(chainNetlist(placed, { kind: 'sweep' }, { ...ladderSupply({ ladder, v0 }), screenFeeds: on.screenFeeds })).data,
+    kick: () => runNgspiceFull(chainNetlist(placed, { kind: 'kick', seconds: 8 }, { ...ladderSupply({ ladder, v0 }), screenFeeds: on.screenFeeds })).data,
   };
 }
 
@@ -158,24 +159,37 @@ describe.runIf(run)('the amplifier\'s low end through its supply, against ngspic
   // bleeder's 10 mA (the reservoir's source resistance read from the regulation falls from 264 Ω to 253 Ω), the demo
   // with its 2000 H primary reads 2.32 Hz against ngspice's 2.73 Hz, 15.2 % low (it was 14.8 %). The test fails when it
   // comes back within 15 % (take it off the list), or drifts past 17 %.
+  // Drawing that screen current (d(ik − mmf)/dVg1) from the plate's node instead brings the 2000 H corner to 9.1 % and
+  // holds the verdicts below but one: with node 4 at the 47 µF it first had, the loop, stable and thin by ngspice's kick
+  // (its swing dies away some 28 times from the second second to the eighth), reads unstable (2 poles). The screen's own
+  // conductance and the plate current's pull by the tap's voltage, which the node moves, are not in the network; the
+  // current alone there is half a model, so it is left at signal ground, and that case stands here to catch it.
+  // Pentode-connected with the screen fed straight from a node, ngspice hangs the screen on that node (as built) and the
+  // model, for the same reason, leaves it at signal ground: held within 15 % as well.
   const KNOWN_CORNER_MISSES: Record<string, string> = { 'ideal-ish': 'model 2.32 Hz against 2.73 Hz (−15.2 %)' };
   it.each([
     // As it opens its transformer is ideal; ngspice's stands in with 10 kH, not ideal at a few hertz: both take 2000 H here.
     { key: 'ideal-ish', label: 'the demo (220 µF on the voltage stages\' node 4), its primary 2000 H, as near ideal as its box allows: stable, if thin', lp: 2000, node4: null, oscillates: false, thin: true },
     { key: '20H', label: 'the demo with a 20 H primary: stable, thin', lp: 20, node4: null, oscillates: false, thin: true },
     { key: '20H-47u', label: 'the same with 47 µF on node 4: it motorboats', lp: 20, node4: 47e-6, oscillates: true, thin: null },
-  ])('$label', ({ key, lp, node4, oscillates, thin }) => {
-    const supply = node4 === null ? DEMO_DESIGN.supply : { ...DEMO_DESIGN.supply, sections: DEMO_DESIGN.supply.sections.map((x, k) => (k === 2 ? { ...x, c: node4 } : x)) };
-    const design = { ...DEMO_DESIGN, supply, output: { ...DEMO_DESIGN.output, ...(lp === null ? {} : { primaryInductance: lp }) } };
+    { key: '2000H-47u', label: 'the demo with node 4 at the 47 µF it first had, its primary 2000 H: stable, thin', lp: 2000, node4: 47e-6, oscillates: false, thin: true },
+    { key: 'pentode', label: 'the demo\'s EL34 pentode-connected, its screen fed straight from node 3, a 20 H primary: stable, thin', lp: 20, node4: null, oscillates: false, thin: true, screensFrom: 2 },
+  ])('$label', ({ key, lp, node4, oscillates, thin, screensFrom }) => {
+    const sections = DEMO_DESIGN.supply.sections.map((x, k) => (k === 2 && node4 !== null ? { ...x, c: node4 } : x));
+    const supply = { ...DEMO_DESIGN.supply, sections, ...(screensFrom === undefined ? {} : { feeds: { ...DEMO_DESIGN.supply.feeds, screens: screensFrom } }) };
+    const output = { ...DEMO_DESIGN.output, primaryInductance: lp, ...(screensFrom === undefined ? {} : { connection: 'pentode' as const }) };
+    const design = { ...DEMO_DESIGN, supply, output };
     const on = onSupplyInputOf(design, LIBRARY_TUBES)!.input;
     const { low, sweep, kick } = bothWays(on);
     const sim = simulatedCorners(sweep(), 1000);
+    // The case is what it says: the screens on node 3 where it names them, else on the tap.
+    expect(on.screenFeeds?.at(-1) ?? null).toBe(screensFrom ?? null);
     if (key in KNOWN_CORNER_MISSES) {
       const miss = Math.abs(low.lowHz! / sim.low! - 1);
       expect(miss, `known miss (${KNOWN_CORNER_MISSES[key]}) now within 15 %: take it off the list`).toBeGreaterThan(0.15);
       expect(miss, `known miss (${KNOWN_CORNER_MISSES[key]}) drifted`).toBeLessThan(0.17);
     } else {
-      expectClose(low.lowHz!, sim.low!, { rel: 0.15 }, 'low −3 dB point, ultralinear');
+      expectClose(low.lowHz!, sim.low!, { rel: 0.15 }, `low −3 dB point (${key})`);
     }
     expect(low.unstablePoles! > 0).toBe(oscillates);
     // Under 10 dB of gain margin round the loop (the model's own reading, the same count with the loop's gain raised).
