@@ -41,8 +41,9 @@ export interface ChainNetwork {
  * voltage there that reaches every stage on the ladder: the amplifier's low
  * end as built, and the loop through the supply that motorboats. A
  * push-pull pair's half circuit keeps its centre tap at signal ground (its
- * difference current does not flow there); screens are taken at signal
- * ground, as elsewhere in this network.
+ * difference current does not flow there). A single-ended stage's screen
+ * that moves with a node (LinearStage.screen) follows it: an ultralinear
+ * tap the plate's node, a pentode's screens the node feeding them straight.
  */
 export interface SupplyLadder {
   /** The reservoir's source resistance to signal ground, Ω (Infinity: none). */
@@ -57,6 +58,8 @@ export interface SupplyLadder {
   readonly choke?: { readonly r: number; readonly l: number };
   /** A bleeder across the reservoir, Ω (AmplifierOnSupply.bleederOhms). */
   readonly bleederOhms?: number;
+  /** The node feeding each stage's pentode screens straight (AmplifierOnSupply.screenFeeds), or null: an ultralinear tap moves with the plate's node instead. */
+  readonly screens?: readonly (number | null)[];
 }
 
 /**
@@ -177,6 +180,14 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     re[r * w + c] = re[r * w + c]! + g;
     im[r * w + c] = im[r * w + c]! + b;
   };
+  // A current gm·(v(plus) − v(minus)) from node `from` to node `to` (−1: ground, whose voltage is 0 and row is none).
+  const transconductance = (from: number, to: number, gm: number, plus: number, minus: number) => {
+    for (const [row, sign] of [[from, 1], [to, -1]] as const) {
+      if (row < 0) continue;
+      if (plus >= 0) add(row, plus, sign * gm, 0);
+      if (minus >= 0) add(row, minus, -sign * gm, 0);
+    }
+  };
   const stamp = (a: number, b: number, g: number, bi: number) => {
     add(a, a, g, bi);
     if (b >= 0) {
@@ -293,6 +304,18 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
     // A screen's current enters the cathode from its supply (signal ground, near enough for the cathode's network).
     add(k, g, -s.gScreen, 0);
     add(k, k, s.gScreen, 0);
+    if (s.screen && !s.pair) {
+      // A screen that moves with a node S (an ultralinear tap with the plate's node; a pentode's own node): its voltage
+      // is (1 − x)·vS + x·vp. The plate's current takes (1 − x)(b + x·d)·vSk more; the screen's share not coupled,
+      // (1 − x)·ig2, is drawn from S: its grid term (gScreen, above), (1 − x)(c + x·d)·vpk and (1 − x)²·d·vSk.
+      const { x, plateByScreen: b, screenByPlate: c, screenByScreen: d } = s.screen;
+      const node = x > 0 ? returnOf(i) : ladder?.screens?.[i];
+      const sNode = node === null || node === undefined ? -1 : x > 0 ? node : supplyBase + node;
+      transconductance(p, k, (1 - x) * (b + x * d), sNode, k);
+      if (sNode >= 0) transconductance(sNode, -1, s.gScreen, g, k);
+      transconductance(sNode, k, (1 - x) * (c + x * d), p, k);
+      transconductance(sNode, k, (1 - x) * (1 - x) * d, sNode, k);
+    }
     // A long-tailed pair's second triode: grid at signal ground, so gm·(0 − vk) from its plate to the shared cathode.
     const p2 = s.second ? spare++ : null;
     if (s.second && p2 !== null) {

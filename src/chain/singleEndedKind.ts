@@ -3,15 +3,15 @@ import { outputFindings } from '../output/outputFindings';
 import { cleanLimit, CUTOFF_SHARE, SETTLE_TOL, solveInstant, SWEEP_SAMPLES, type Instant } from '../output/outputSignal';
 import type { OutputDesign } from '../output/outputDesign';
 import { linearWinding } from '../output/windingInductance';
-import { solveOutput, type OutputSolution } from '../output/solveOutput';
-import { emptyCurrents, stageCurrentsInto } from '../output/electrodes';
+import { pentodePartials, solveOutput, type OutputSolution } from '../output/solveOutput';
+import { emptyCurrents, screenVoltage, stageCurrentsInto } from '../output/electrodes';
 import { singleEndedPins } from '../output/outputPins';
 import { checkNumber, LIMITS } from '../stage/checkInput';
 import { classA1GridCurrent, POWER_GRID_RESISTANCE } from '../tube/gridCurrent';
 import type { SingleEndedLink } from './chainTypes';
 import { checkCoupling, couplingImpedance } from './checkCoupling';
 import { midbandGain } from './midbandGain';
-import type { LinkSample, MagnetisingState, StageKind } from './stageKind';
+import type { LinearStage, LinkSample, MagnetisingState, StageKind } from './stageKind';
 
 /** d(Ik − coupled current)/dVgk at the operating point: the screen current's share that the cathode carries but the winding does not. */
 function screenTransconductance(s: OutputSolution): number {
@@ -21,6 +21,19 @@ function screenTransconductance(s: OutputSolution): number {
   const up = c.ik - c.mmf;
   stageCurrentsInto(s.tube, s.op.feed, s.op.vpk, s.op.vgk - h, c, 0);
   return Math.max(0, (up - (c.ik - c.mmf)) / (2 * h));
+}
+
+/**
+ * An ultralinear screen, or a pentode's fed straight from a supply node: the
+ * slopes the chain's network needs to follow that node (LinearStage.screen).
+ * A screen on its own source or its dropper's capacitor has none.
+ */
+function linearScreen(s: OutputSolution, link: SingleEndedLink): { screen: NonNullable<LinearStage['screen']> } | Record<string, never> {
+  const law = s.tube.law;
+  const feed = s.op.feed;
+  if (law.kind !== 'pentode' || !(feed.kind === 'tap' || (feed.kind === 'fixed' && link.screenFromNode === true))) return {};
+  const { b, c, d } = pentodePartials(law.params, s.op.vpk, s.op.vgk, screenVoltage(feed, s.op.vpk, 0));
+  return { screen: { x: feed.kind === 'tap' ? feed.fraction : 0, plateByScreen: b, screenByPlate: c, screenByScreen: d } };
 }
 
 /** The output stage's own design record, its grid resistor being the coupling's grid leak. */
@@ -110,6 +123,7 @@ export const singleEndedKind: StageKind<SingleEndedLink> = {
         output: 'plate',
         outputScale: scale,
         winding: linearWinding(design, design.rPrimary, zp, 1, ratio),
+        ...linearScreen(solved, s),
       },
     };
   },

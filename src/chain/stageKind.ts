@@ -22,6 +22,18 @@ export interface LinearStage {
   readonly cathodeGrounded: boolean;
   /** Transconductance of current that enters the cathode but not the plate's load (a screen's, fed from its own supply or the tap), S; 0 for a triode. */
   readonly gScreen: number;
+  /**
+   * A screen whose voltage moves with a node (an ultralinear tap, with the
+   * plate's supply node; a pentode's screen on a node of its own): its
+   * voltage is (1 − x)·vS + x·vp, vS that node's, and of its current the
+   * share x couples as the plate's (through the tap's turns) and the rest is
+   * drawn from the node. The slopes a pentode's currents take on it, S:
+   * `plateByScreen` the plate current's, `screenByPlate`, `screenByScreen`
+   * the screen current's on the plate and on its own voltage. gm, rp and
+   * gScreen stand for the node held at signal ground with the cathode;
+   * these carry the rest. Absent: the screen at signal ground.
+   */
+  readonly screen?: { readonly x: number; readonly plateByScreen: number; readonly screenByPlate: number; readonly screenByScreen: number };
   readonly caps: Capacitances;
   /** Where the signal leaves the stage. */
   readonly output: 'plate' | 'cathode';

@@ -68,6 +68,7 @@ export function ladderOf(input: AmplifierOnSupply, r: AmplifierOnSupplyResult): 
     caps: [s.input.c, ...s.sections.map((x) => x.c)],
     links: s.sections.map((x) => (x.kind === 'rc' ? { r: x.r, l: 0 } : { r: x.rdc, l: x.l })),
     feeds: input.feeds,
+    ...(input.screenFeeds ? { screens: input.screenFeeds } : {}),
     ...(choke ? { choke } : {}),
     ...(input.bleederOhms !== undefined ? { bleederOhms: input.bleederOhms } : {}),
   };

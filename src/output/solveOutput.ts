@@ -132,20 +132,7 @@ export function slopesAt(tube: OutputTube, feed: ScreenFeed, vpk: number, vgk: n
  * on the grid, the plate and screen held.
  */
 function tapSlopes(p: KorenPentodeParams, x: number, vpk: number, vgk: number, vg2: number, r: number): { rp: number; gm: number } {
-  const e = { ia: 0, ig2: 0 };
-  const at = (va: number, g1: number, g2: number) => {
-    korenPentodeInto(p, va, g1, g2, e);
-    return [e.ia, e.ig2] as const;
-  };
-  const h = Math.max(1e-3, vpk * 1e-5);
-  const diff = (f: (s: number) => readonly [number, number], step: number) => {
-    const [ia1, ig1] = f(step);
-    const [ia0, ig0] = f(-step);
-    return [(ia1 - ia0) / (2 * step), (ig1 - ig0) / (2 * step)] as const;
-  };
-  const [a, c] = diff((s) => at(vpk + s, vgk, vg2), h);
-  const [b, d] = diff((s) => at(vpk, vgk, vg2 + s), Math.max(1e-3, vg2 * 1e-5));
-  const [gmA, gm2] = diff((s) => at(vpk, vgk + s, vg2), 1e-3);
+  const { a, b, c, d, gmA, gm2 } = pentodePartials(p, vpk, vgk, vg2);
   const dia = -(a + b * x) / (1 + a * r);
   const dig2 = -c * (1 + r * dia) - d * x;
   const g = -(dia + x * dig2);
@@ -213,4 +200,26 @@ export function solveOutput(tube: OutputTube, design: OutputDesign): Result<Outp
   }
   if (!(op.vpk > 0.5)) return fail('supply-too-low', 'The primary\'s DC drop leaves no voltage on the plate: lower its DC resistance or raise B+', 'rPrimary');
   return { ok: true, tube, design, op };
+}
+
+/**
+ * A pentode's currents' slopes at one point, by central differences: a, b
+ * the plate current's on the plate and the screen voltage, c, d the screen
+ * current's, gmA and gm2 each one's on the grid (S).
+ */
+export function pentodePartials(p: KorenPentodeParams, vpk: number, vgk: number, vg2: number): { a: number; b: number; c: number; d: number; gmA: number; gm2: number } {
+  const e = { ia: 0, ig2: 0 };
+  const at = (va: number, g1: number, g2: number) => {
+    korenPentodeInto(p, va, g1, g2, e);
+    return [e.ia, e.ig2] as const;
+  };
+  const diff = (f: (s: number) => readonly [number, number], step: number) => {
+    const [ia1, ig1] = f(step);
+    const [ia0, ig0] = f(-step);
+    return [(ia1 - ia0) / (2 * step), (ig1 - ig0) / (2 * step)] as const;
+  };
+  const [a, c] = diff((s) => at(vpk + s, vgk, vg2), Math.max(1e-3, vpk * 1e-5));
+  const [b, d] = diff((s) => at(vpk, vgk, vg2 + s), Math.max(1e-3, vg2 * 1e-5));
+  const [gmA, gm2] = diff((s) => at(vpk, vgk + s, vg2), 1e-3);
+  return { a, b, c, d, gmA, gm2 };
 }
