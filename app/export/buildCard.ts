@@ -232,7 +232,8 @@ const CONTINUED_TOP = MARGIN + 50;
  * the schematic (the whole amplifier's across the page when it has more than
  * one stage, else the bench's stage beside the title), chart, then the figures in two columns (the stages' own on the
  * left; ratings, heaters, parts and any comparison on the right), each
- * column running on to the next page when it fills one, every page with the
+ * column running on to the next page when it fills one (the right one into
+ * both halves of a page the left no longer reaches), every page with the
  * safety caution at its foot. Past MAX_CARD_PAGES a note names what is left.
  */
 export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, schematic: SVGSVGElement | null, date = new Date(), chain: SVGSVGElement | null = null): Promise<Blob> {
@@ -283,16 +284,27 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
   const columns = [sections.slice(0, split), sections.slice(split)];
   const colWidth = cw / 2 - 12;
   let pages = 1;
+  // The last page the left column reaches: past it the right column runs on in the left half first, then the right,
+  // so a long list of parts does not leave half of each page after the stages' figures blank.
+  let leftLast = 0;
   columns.forEach((column, c) => {
-    const x = MARGIN + c * (colWidth + 24);
+    const right = MARGIN + c * (colWidth + 24);
+    let x = right;
     let page = 0;
     let cy = y;
-    // Room for a block of `need` px on this page, or the top of the next; false past the last page.
+    // Room for a block of `need` px here, or at the top of the next slot (this page's right half, or the next page);
+    // false past the last page.
     const room = (need: number): boolean => {
       if (cy + need <= page * CARD_HEIGHT + TEXT_BOTTOM) return true;
+      if (c === 1 && x !== right) {
+        x = right;
+        cy = page * CARD_HEIGHT + CONTINUED_TOP;
+        return true;
+      }
       if (page + 1 >= MAX_CARD_PAGES) return false;
       page += 1;
       cy = page * CARD_HEIGHT + CONTINUED_TOP;
+      if (c === 1 && page > leftLast) x = MARGIN;
       return true;
     };
     for (const [n, section] of column.entries()) {
@@ -315,6 +327,7 @@ export async function buildCardPng(s: WorkbenchState, chart: SVGSVGElement, sche
       }
       cy += 8;
     }
+    if (c === 0) leftLast = page;
     pages = Math.max(pages, page + 1);
   });
   for (let p = 0; p < pages; p++) {

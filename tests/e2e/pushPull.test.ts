@@ -77,8 +77,12 @@ describe.runIf(run)('a push-pull output stage in Chromium', () => {
     const card = await downloadOf(page, 'Build card (PNG, A4)');
     writeFileSync('test-results/push-pull-build-card.png', card);
     // The pair, its splitter, the voltage stages' parts and the ratings run past one A4 page: the card goes on to a second.
-    expect(cardPages(pngSize(card))).toBeGreaterThanOrEqual(2);
+    const pages = cardPages(pngSize(card));
+    expect(pages).toBeGreaterThanOrEqual(2);
     expect(await inkShare(page, card)).toBeGreaterThan(0.03);
+    // The last page reads from its left half: the parts run on there once the stages' figures have ended (they ran on
+    // down the right half alone, the left half blank).
+    expect(await inkShare(page, card, { x: 60, y: (pages - 1) * 1754 + 110, width: 560, height: 300 })).toBeGreaterThan(0.01);
     // Reloaded: the pair comes back as it was.
     await page.waitForTimeout(700); // autosave waits 400 ms after the last change
     await page.reload();
