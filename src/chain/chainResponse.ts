@@ -301,7 +301,8 @@ export function fillChain(net: ChainNetwork, freqHz: number, scratch: ReturnType
       add(p, g, gm / 2, -b / 2);
       add(p, g2, -gm / 2, b / 2);
     }
-    // A screen's current enters the cathode from its supply (signal ground, near enough for the cathode's network).
+    // A screen's current enters the cathode from its supply: signal ground, or the node a screen that moves with one
+    // draws it from (below).
     add(k, g, -s.gScreen, 0);
     add(k, k, s.gScreen, 0);
     if (s.screen && !s.pair) {
