@@ -30,6 +30,13 @@ export interface SpiceRow {
 
 const dB = (x: number) => 20 * Math.log10(x);
 
+/**
+ * ngspice's node tolerance for a design whose transient's time step collapses with its default (1 µV): the 6SL7's, at
+ * B+ 300 V with 1 mF across Rk, ran past 60 s at a step under a nanosecond; with 10 µV it finishes in 0.2 s, its H3
+ * some 0.1 V at the output. Such a row is marked † in the table.
+ */
+export const RELAXED_VNTOL = '1e-5';
+
 /** A design ngspice could not finish, and why (its first line): said beside the table, never dropped silently. */
 export interface SpiceFailure {
   readonly design: string;
@@ -69,12 +76,26 @@ function benchOne(d: (typeof DESIGNS)[number]): SpiceRow {
   };
   const oursMs = stats(timeIt(ours, 30, 5)).median;
   const { s, h } = ours();
-  const t0 = performance.now();
-  const op = runNgspiceFull(stageNetlist({ ...d, params: tube.model.params }, 'gain')).values;
-  const four = fourierTable(runNgspiceFull(distortionNetlist({ ...d, params: tube.model.params }, inputRms * Math.SQRT2)).output);
-  const ngspiceMs = performance.now() - t0;
+  const distortion = distortionNetlist({ ...d, params: tube.model.params }, inputRms * Math.SQRT2);
+  const run = (relaxed: boolean) => {
+    const t0 = performance.now();
+    const op = runNgspiceFull(stageNetlist({ ...d, params: tube.model.params }, 'gain')).values;
+    const four = fourierTable(runNgspiceFull(relaxed ? distortion.replace('.control', `.options vntol=${RELAXED_VNTOL}\n.control`) : distortion).output);
+    return { op, four, ngspiceMs: performance.now() - t0 };
+  };
+  let relaxed = false;
+  let done: ReturnType<typeof run>;
+  try {
+    done = run(false);
+  } catch (e) {
+    if (!/Reference value/.test((e as Error).message)) throw e;
+    // Its time step collapsed: once more with the node tolerance relaxed, and the row says so (its time is that run's).
+    relaxed = true;
+    done = run(true);
+  }
+  const { op, four, ngspiceMs } = done;
   return {
-    design: `${d.id} ${d.bypassed ? 'bypassed' : 'unbypassed'}${Number.isFinite(d.rl) ? `, RL ${d.rl / 1e3}k` : ''}${d.vbias ? ', fixed bias' : ''}`,
+    design: `${d.id} ${d.bypassed ? 'bypassed' : 'unbypassed'}${Number.isFinite(d.rl) ? `, RL ${d.rl / 1e3}k` : ''}${d.vbias ? ', fixed bias' : ''}${relaxed ? ' †' : ''}`,
     oursMs,
     ngspiceMs,
     ratio: ngspiceMs / oursMs,
