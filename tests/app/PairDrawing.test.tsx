@@ -78,5 +78,11 @@ describe('the drawing of a push-pull amplifier', () => {
     act(() => fireEvent.change(editor(), { target: { value: '39k' } }));
     act(() => fireEvent.keyDown(editor(), { key: 'Enter' }));
     expect(sp().ra2).toBe(39e3);
+    // The second grid's leak returns to the same divider: its voltage opens the divider's box too.
+    act(() => fireEvent.click(drawing().getByRole('button', { name: 'Phase splitter second grid leak returned to 60 V: change' })));
+    act(() => fireEvent.change(editor(), { target: { value: '70' } }));
+    act(() => fireEvent.keyDown(editor(), { key: 'Enter' }));
+    expect(sp().vgrid).toBe(70);
+    expect(drawing().getByRole('button', { name: 'Phase splitter grid leak returned to 70 V: change' })).toBeTruthy();
   });
 });

@@ -1,4 +1,4 @@
-import { act, render } from '@testing-library/react';
+import { act, fireEvent, render, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { App } from '../../app/App';
 import { createWorkbenchStore } from '../../app/store/workbenchStore';
@@ -45,5 +45,26 @@ describe('the output tubes\' screens on the drawing', () => {
     act(() => { store.getState().changeOutput({ connection: 'pentode', screenVolts: 280 }); });
     // The pair's screens joined to one supply, named once.
     expect(texts(view).filter((t) => t === 'g2 280 V')).toHaveLength(1);
+  });
+
+  it('edits the screen\'s supply and the tap\'s share where they stand, as every value on the drawing', () => {
+    const store = createWorkbenchStore();
+    const view = render(<App store={store} />);
+    const drawing = () => within(view.container.querySelector('svg.chain-schematic') as unknown as HTMLElement);
+    const editor = () => within(view.container.querySelector('.chain-frame .inline-editor') as HTMLElement).getByRole('textbox');
+    const edit = (button: string, typed: string) => {
+      act(() => fireEvent.click(drawing().getByRole('button', { name: button })));
+      act(() => fireEvent.change(editor(), { target: { value: typed } }));
+      act(() => fireEvent.keyDown(editor(), { key: 'Enter' }));
+    };
+    edit('Output stage screen tap 43 %: change', '40');
+    expect(store.getState().design.output.ulTap).toBeCloseTo(0.4, 9);
+    act(() => { store.getState().changeOutput({ connection: 'pentode', screenVolts: 300 }); });
+    edit('Output stage screen supply g2 300 V: change', '280');
+    expect(store.getState().design.output.screenVolts).toBe(280);
+    // In a pair, the joined screens' one name opens the same box.
+    act(() => store.getState().setOutputPair('push-pull'));
+    edit('Output stage screen supply g2 280 V: change', '270');
+    expect(store.getState().design.output.screenVolts).toBe(270);
   });
 });

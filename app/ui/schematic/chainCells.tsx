@@ -267,8 +267,8 @@ export const OutputCell = memo(function OutputCell({ x0, cc, ccField, rg, bias, 
       <Wire points={[[x0 + CC_END, GRID], [x0 + 64, GRID], [x0 + 64, GRID + gridLeadBelow(wiring)], [cx - r, GRID + gridLeadBelow(wiring)]]} />
       <OutputTubeSymbol cx={cx} cy={GRID} r={r} wiring={wiring} side={-1} />
       <ScreenWire cx={cx} cy={GRID} r={r} side={-1} wiring={wiring} tapAt={[cx, tapY]} plateY={primaryEnd + 2} supplyY={supplyY} />
-      {wiring.kind === 'pentode' && label(screenX, supplyY - 5, screenWords(wiring), 'middle')}
-      {wiring.kind === 'ultralinear' && label(screenX + 4, tapY - 4, percentOf(wiring.tap))}
+      {wiring.kind === 'pentode' && value('oScreen', 'screen supply', screenX, supplyY - 5, screenWords(wiring), 'middle')}
+      {wiring.kind === 'ultralinear' && value('oTap', 'screen tap', screenX + 4, tapY - 4, percentOf(wiring.tap))}
       <Wire points={[[x0 + 64, RAIL], [cx, RAIL], [cx, primaryTop]]} />
       <Winding x={cx} y1={primaryTop} y2={primaryEnd} side={1} turns={4} />
       <Wire points={[[cx, primaryEnd], [cx, GRID - r]]} />

@@ -61,7 +61,9 @@ export const LongTailedPairCell = memo(function LongTailedPairCell({ x0, cc, sp,
       <Wire points={[[b, SECOND_OUT], [edge - 8, SECOND_OUT], [edge - 8, SECOND_IN], [edge, SECOND_IN]]} />
       {/* The second grid, held at signal ground through its leak. */}
       <HResistor x1={leakEnd} x2={b - r} y={GRID} />
-      {label((leakEnd + b - r) / 2, GRID - 10, sp.coupling === 'capacitor' ? `to ${volts(sp.vgrid)}` : 'to grid 1', 'middle')}
+      {sp.coupling === 'capacitor'
+        ? value('sVgrid', 'second grid leak returned', (leakEnd + b - r) / 2, GRID - 10, `to ${volts(sp.vgrid)}`, 'middle')
+        : label((leakEnd + b - r) / 2, GRID - 10, 'to grid 1', 'middle')}
       {value('sRg', 'second grid leak', (leakEnd + b - r) / 2, GRID + 22, ohms(sp.rg), 'middle')}
       {/* The cathodes joined, into the shared bias resistor and the tail below it. */}
       <Wire points={[[a, GRID + r], [a, joined], [b, joined], [b, GRID + r]]} />
@@ -137,10 +139,10 @@ export const PairCell = memo(function PairCell({ x0, cc, ccField, rg, bias, bplu
       {wiring.kind === 'pentode' && (
         <>
           <Wire points={[[a + r + 4, screensY], [b - r - 4, screensY]]} />
-          {label(mid, screensY - 4, screenWords(wiring), 'middle')}
+          {value('oScreen', 'screen supply', mid, screensY - 4, screenWords(wiring), 'middle')}
         </>
       )}
-      {wiring.kind === 'ultralinear' && label(mid, screensY + 8, percentOf(wiring.tap), 'middle')}
+      {wiring.kind === 'ultralinear' && value('oTap', 'screen tap', mid, screensY + 8, percentOf(wiring.tap), 'middle')}
       <HWinding x1={a} x2={b} y={PAIR.primary} side={-1} turns={6} />
       <Wire points={[[a, PAIR.primary], [a, GRID - r]]} />
       <Wire points={[[b, PAIR.primary], [b, GRID - r]]} />
