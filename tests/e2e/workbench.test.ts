@@ -83,6 +83,50 @@ describe.runIf(run)('the workbench in Chromium', () => {
     await page.close();
   });
 
+  it('every value box\'s message sits right under its box, as tall as its words (voltage bench with feedback on, then a push-pull pair behind its splitter)', async () => {
+    const { page } = await openBench(browser);
+    const rf = page.getByRole('textbox', { name: /^Feedback Rf/ });
+    await rf.fill('47k');
+    await rf.press('Tab');
+    await page.getByRole('textbox', { name: /^Across Rf/ }).waitFor();
+    const misplaced: string[] = [];
+    let checked = 0;
+    const sweep = async () => {
+      const fields = page.locator('.value-field:has(input):visible');
+      for (let i = 0; i < (await fields.count()); i++) {
+        const input = fields.nth(i).locator('input').first();
+        const name = (await input.getAttribute('name')) ?? `box ${i}`;
+        if (name.includes('eading.')) continue; // meter boxes: their messages are checked with their row (MeterReadings.test.tsx)
+        const before = await input.inputValue();
+        await input.fill('abc');
+        await input.press('Tab');
+        const message = fields.nth(i).locator('.field-error').first();
+        await message.waitFor();
+        // The words' own height (a range over them) against the message's box; and the gap from the input above it.
+        const m = await message.evaluate((e) => {
+          const words = document.createRange();
+          words.selectNodeContents(e);
+          const box = e.getBoundingClientRect();
+          return { slack: box.height - words.getBoundingClientRect().height, gap: box.top - e.parentElement!.querySelector('input')!.getBoundingClientRect().bottom };
+        });
+        if (m.slack > 4 || m.gap < 0 || m.gap > 8) misplaced.push(`${name}: ${JSON.stringify(m)}`);
+        checked++;
+        await input.fill(before);
+        await input.press('Tab');
+      }
+    };
+    await sweep();
+    await page.getByLabel('Output stage (transformer-coupled)').check();
+    await page.getByRole('radio', { name: 'Push-pull pair' }).check();
+    await page.getByRole('radio', { name: 'Long-tailed pair' }).check();
+    await page.getByRole('textbox', { name: /^Raa/ }).waitFor();
+    await sweep();
+    // Feedback's two boxes had stood 405 px tall under a rule meant for the loop's own words beside them.
+    expect(checked).toBeGreaterThan(60);
+    expect(misplaced).toEqual([]);
+    await page.close();
+  });
+
   it('has no serious accessibility violations (axe-core)', async () => {
     const tooling = await openBrowser(undefined, { bypassCSP: true });
     const { page } = await openWorkbench(tooling, inject('baseUrl'));
