@@ -91,6 +91,22 @@ describe('your meter readings, stage by stage', () => {
     expect(store.getState().design.readings).toEqual([{ stage: 1, tubeId: '12AX7', plate: 1.2, cathode: 1.4 }]);
   });
 
+  it('names a reading it cannot read as the box is left, while the empty box beside it waits its turn', () => {
+    render(<App store={createWorkbenchStore()} />);
+    const stage1 = within(screen.getByRole('group', { name: 'Meter readings, Stage 1 · 12AX7' }));
+    const plate = stage1.getByLabelText(/^Plate to chassis/);
+    const cathode = stage1.getByLabelText(/^Cathode to chassis/);
+    typeInto(plate, '17O');
+    act(() => void fireEvent.blur(plate));
+    // The slip is named beside its box; the cathode, not yet typed, is not asked for.
+    expect(stage1.getAllByRole('alert')).toHaveLength(1);
+    expect(plate.getAttribute('aria-invalid')).toBe('true');
+    expect(cathode.getAttribute('aria-invalid')).toBeNull();
+    typeInto(plate, '170');
+    act(() => void fireEvent.blur(plate));
+    expect(stage1.queryAllByRole('alert')).toEqual([]);
+  });
+
   it('reads a long-tailed pair from its plates, the tail a check on their sum, and a gain stage with no Rk from its plate resistor', async () => {
     const store = createWorkbenchStore();
     render(<App store={store} />);

@@ -83,6 +83,10 @@ const worstClass = (findings: readonly Finding[]) => (findings.some((f) => f.sev
 /** Leaving a box waits while another of the row's is still empty (its turn may be next); Enter takes the boxes as they are. */
 const waitsForOthers = (texts: readonly string[]) => texts.some((t) => t.trim() === '') && texts.some((t) => t.trim() !== '');
 
+/** While the row waits, a box whose text cannot be read says so at once; only the empty boxes' "give it too" waits. */
+const refusedOnly = <K extends string>(made: { ok: true } | { ok: false; errors: Partial<Record<K, string>> }, text: Readonly<Record<K, string>>): Partial<Record<K, string>> =>
+  made.ok ? {} : (Object.fromEntries(Object.entries(made.errors).filter(([key]) => text[key as K].trim() !== '')) as Partial<Record<K, string>>);
+
 const triodeText = (r: MeterRow['reading']): MeterText => ({
   supply: r?.supply !== undefined ? compact(r.supply) : '',
   plate: r ? compact(r.plate) : '',
@@ -99,8 +103,8 @@ function TriodeMeter({ row }: { readonly row: MeterRow }) {
   const { text, setText, errors, setErrors } = useMeterText(row.reading, triodeText);
   const id = useId();
   const settle = (leaving: boolean) => {
-    if (leaving && waitsForOthers(row.boxes.map((k) => text[k]))) return setErrors({});
     const made = meterFromText(row.stage, row.tubeId, row.boxes, text);
+    if (leaving && waitsForOthers(row.boxes.map((k) => text[k]))) return setErrors(refusedOnly(made, text));
     if (!made.ok) return setErrors(made.errors);
     setErrors({});
     if (!sameReading(made.reading, row.reading)) setReading(row.stage, made.reading);
@@ -137,8 +141,8 @@ function OutputMeter({ row }: { readonly row: OutputMeterRow }) {
   const id = useId();
   const asked = askedBoxes(row.boxes);
   const settle = (leaving: boolean) => {
-    if (leaving && waitsForOthers(asked.map((k) => text[k]))) return setErrors({});
     const made = outputMeterFromText({ tube: row.tube, tubeId: row.tubeId, pair: row.pair, bias: row.bias }, row.boxes, text);
+    if (leaving && waitsForOthers(asked.map((k) => text[k]))) return setErrors(refusedOnly(made, text));
     if (!made.ok) return setErrors(made.errors);
     setErrors({});
     if (!sameReading(made.reading, row.reading)) setReading(row.tube, made.reading);
