@@ -8,6 +8,9 @@ import { mainsWords } from '../ui/supply/mainsWords';
 import { oneWinding, rectifierName } from '../ui/supply/rectifierWords';
 import { lowEndWords } from '../ui/supply/lowEndWords';
 
+/** Said first where a supply's figures are its last solve's, the design having moved on before it was solved again. */
+export const BEHIND_WORDS = 'Not yet solved for this design: these figures and parts are from the solve before its last change. Make the card again once the workbench shows the supply solved.';
+
 /**
  * The B+ supply on the card, in three or four lines: what it is, every
  * node's voltage and ripple with what it feeds, the rectifier's and
@@ -27,6 +30,7 @@ export function supplySection(s: WorkbenchState): { heading: string; lines: stri
   const feeds = (k: number) => fedFrom(view, k).map((n) => n.title.toLowerCase());
   const nodes = r.supply.nodes.map((n, k) => `${k + 1}: ${volts(n.dc)}, ${smallVolts(n.ripplePp)} p-p${feeds(k).length ? ` (${feeds(k).join(', ')})` : ''}`).join('; ');
   const lines = [
+    ...(view.stale ? [BEHIND_WORDS] : []),
     `${plain(p.secondaryRms)} V rms${oneWinding(p.rectifier) ? '' : ' a side'}${p.secondaryAmps !== null ? ` at ${milliamps(p.secondaryAmps)}` : ''}, ${p.regulation !== null ? `${plain(p.regulation * 100)} % regulation` : `${ohms(p.windingOhms)} winding`}, ${rectifier}, ${p.mainsHz} Hz${p.channels > 1 ? `, ${p.channels} channels` : ''}; ${filter}`,
     `Nodes ${nodes}`,
     `Rectifier peak ${milliamps(r.supply.rectifierPeak)}, winding ${milliamps(r.supply.secondaryRmsCurrent)} rms (${plain(r.supply.secondaryVa)} VA); ${volts(r.supply.noLoadVolts)} on every capacitor cold`,

@@ -1,5 +1,6 @@
 import type { BiasParts, ChokeLine, RectifierLine, SupplyParts } from '../../src/index';
 import { biasSupplyOf } from '../store/biasSupply';
+import { BEHIND_WORDS } from './supplyLines';
 import { farads, milliamps, ohms, plain, smallAmps, smallVolts, volts, watts } from '../format';
 import type { WorkbenchState } from '../store/workbenchStore';
 
@@ -70,6 +71,7 @@ export function biasSection(s: WorkbenchState): { heading: string; lines: string
   return {
     heading: 'Bias supply: parts to order',
     lines: [
+      ...(s.biasView?.stale ? [BEHIND_WORDS] : []),
       `Rail −${volts(r.rail)} (${smallVolts(r.railRippleRms)} rms ripple). ${each} reaches −${volts(t.string.least)} to −${volts(t.string.most)}; a typical ${s.design.output.tubeId} sets at −${volts(t.nominal)}.`,
       'Turn every trimmer to its cold end (most negative) and measure each grid with the output tubes out before first switch-on (common practice).',
       ...biasPartLines(s),

@@ -5,6 +5,7 @@ import { chartPng, svgDocument } from '../../export/chartImage';
 import { amplifierNetlistOf } from '../../export/amplifierNetlistFile';
 import { download, fileStem } from '../../export/download';
 import { useWorkbench, useWorkbenchStore } from '../../store/StoreProvider';
+import { solvesPending, whenSolved } from '../../store/whenSolved';
 
 /** Export for bench notes: the chart as PNG (1×, 2×, 3×) or SVG, the whole build card as a PNG, and the amplifier as a netlist for a circuit simulator. */
 export function ExportPanel() {
@@ -25,6 +26,11 @@ export function ExportPanel() {
     try {
       // An export reads the figures: if a keystroke's light analysis is showing, finish it first.
       store.getState().settleAnalysis();
+      // And the supplies solved for this design (a card made straight after a change would print the last one's).
+      if (solvesPending(store.getState())) {
+        setNote(`${what}: waiting for the supply to be solved for this design…`);
+        await whenSolved(store);
+      }
       const { blob, name } = await make();
       download(blob, name);
       setNote(`${what} saved as ${name}.`);

@@ -62,8 +62,10 @@ export function StripHum() {
   const biasHum = useWorkbench(biasHumOf);
   const words = view ? humWords(view, speakerOhms, biasHum) : null;
   if (!words) return null;
+  // Until the supply is solved for the changed design, the last solve's hum shows greyed, as the supply's own table does.
+  const behind = view?.stale === true;
   return (
-    <div data-testid="strip-hum">
+    <div data-testid="strip-hum" className={behind ? 'stale' : undefined} title={behind ? 'From the supply’s last solve: solving it again for the change' : undefined}>
       <dt>Hum</dt>
       <dd>{words.replace(/^Hum at the (speaker|output): /, '')}</dd>
     </div>
