@@ -1,6 +1,8 @@
 import { wrap, type Remote } from 'comlink';
+import type { AmplifierOnSupply, AmplifierOnSupplyResult, Result } from '../../src/index';
 import type { LowEndSolver, SupplySolver } from '../store/supplySlice';
 import type { ModelWorkerApi } from './modelWorker';
+import { latestOnly } from './latestOnly';
 import { WORKER_SCRIPT } from './offThread';
 
 /**
@@ -9,15 +11,11 @@ import { WORKER_SCRIPT } from './offThread';
  * and supply (tens of milliseconds each) while a drag or typing goes on. The
  * worker shares the page's chunk of model code (vite.config.ts), so this
  * costs no second download. A newer solve makes an older one's answer
- * 'cancelled' (the worker finishes it, unseen).
+ * 'cancelled' (the worker finishes the one it is on, unseen), and replaces
+ * any still waiting for it (latestOnly).
  */
 export function supplyInWorker(): SupplySolver {
-  let latest = 0;
-  return async (input) => {
-    const mine = ++latest;
-    const r = await supplyWorker().solveOnSupply(input);
-    return mine === latest ? r : 'cancelled';
-  };
+  return latestOnly((input: AmplifierOnSupply): Promise<Result<AmplifierOnSupplyResult>> => supplyWorker().solveOnSupply(input));
 }
 
 /** The amplifier's low end on its solved supply, in the same worker (its sweeps take tens of milliseconds). */
