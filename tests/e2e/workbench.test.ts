@@ -84,7 +84,9 @@ describe.runIf(run)('the workbench in Chromium', () => {
   });
 
   it('every value box\'s message sits right under its box, as tall as its words (voltage bench with feedback on, then a push-pull pair behind its splitter)', async () => {
-    const { page } = await openBench(browser);
+    // A browser of its own: the design it leaves behind (feedback on, a push-pull pair) would be the next test's autosave.
+    const own = await openBrowser();
+    const { page } = await openBench(own);
     const rf = page.getByRole('textbox', { name: /^Feedback Rf/ });
     await rf.fill('47k');
     await rf.press('Tab');
@@ -124,7 +126,7 @@ describe.runIf(run)('the workbench in Chromium', () => {
     // Feedback's two boxes had stood 405 px tall under a rule meant for the loop's own words beside them.
     expect(checked).toBeGreaterThan(60);
     expect(misplaced).toEqual([]);
-    await page.close();
+    await own.close();
   });
 
   it('has no serious accessibility violations (axe-core)', async () => {
