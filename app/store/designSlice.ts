@@ -40,6 +40,8 @@ export interface DesignSlice {
   title: string;
   /** True once the user has typed a title; until then (and after clearing it) the title follows the design. */
   titleTyped: boolean;
+  /** Whether the design's last change was the workbench's own, following another (CommitOptions.derived): no undo step of its own. */
+  derivedCommit: boolean;
   setTitle: (title: string) => void;
   analysis: Analysis;
   /** The bench's cathode follower on its own curves, while it is the stage shown; null otherwise. */
@@ -96,6 +98,13 @@ export interface CommitOptions {
    * kept before a check existed still opens; the strip then says what cannot run.
    */
   readonly opened?: boolean;
+  /**
+   * The workbench's own change, following one the user made (the stages' B+
+   * taking their nodes' once the supply is solved): part of that change's undo
+   * step however late it lands, never a step of its own, which undo would
+   * take back only for it to follow again.
+   */
+  readonly derived?: boolean;
 }
 
 /** True when two designs differ only in their output stage, their supply, or which stage is shown. */
@@ -183,6 +192,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   design: DEMO_DESIGN,
   title: DEMO_TITLE,
   titleTyped: false,
+  derivedCommit: false,
   setTitle: (title) => {
     const typed = title.trim() !== '';
     set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
@@ -266,7 +276,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     for (const f of FIELD_NAMES) if (errors[f] !== undefined) drafts[f] = s.drafts[f];
     // A supply changed from outside its boxes (undo, an opened file) shows its own values.
     if (next.supply !== s.design.supply) patch.supplyDrafts = supplyDraftsFor(next.supply);
-    set({ ...patch, design: next, drafts, errors, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
+    set({ ...patch, design: next, drafts, errors, derivedCommit: opts.derived === true, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
     return null;
   },
 

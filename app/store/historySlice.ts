@@ -57,7 +57,9 @@ let applying = false;
 /**
  * Records undo steps by watching the store: a drag is one step from where it
  * began; other changes to the design or title are a step each, except that
- * changes within COALESCE_MS of the last merge into it (a value being typed).
+ * changes within COALESCE_MS of the last merge into it (a value being typed),
+ * and the workbench's own following changes (`derived`) are part of the step
+ * before them.
  */
 export function recordHistory(store: StoreApi<WorkbenchState>, now: () => number = Date.now): () => void {
   let gestureStart: Snapshot | null = null;
@@ -86,6 +88,8 @@ export function recordHistory(store: StoreApi<WorkbenchState>, now: () => number
       if (start && start.design !== s.design) push(start, false);
       return;
     }
+    // The workbench following the user's change (CommitOptions.derived) belongs to that change's step, however late.
+    if (s.design !== prev.design && s.derivedCommit) return;
     if (s.design !== prev.design || s.title !== prev.title) push({ design: prev.design, title: prev.title }, true);
   });
 }

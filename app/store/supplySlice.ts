@@ -315,7 +315,7 @@ export function watchSupply(store: WorkbenchStore, solver: SupplySolver | null, 
         const far = (a: number, b: number) => Math.abs(a - b) > 1;
         const bplusOf = (p: BenchDesign['before'][number]) => (p.kind === 'common-cathode' ? p.bplus : null);
         const moved = (a: BenchDesign['before'], b: BenchDesign['before']) => a.some((p, i) => p !== b[i] && (bplusOf(p) === null || bplusOf(b[i]!) === null || far(bplusOf(p)!, bplusOf(b[i]!)!)));
-        if (next && (far(next.bplus, d.bplus) || far(next.output.bplus, d.output.bplus) || far(next.output.screenVolts, d.output.screenVolts) || far(next.output.splitter.bplus, d.output.splitter.bplus) || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next);
+        if (next && (far(next.bplus, d.bplus) || far(next.output.bplus, d.output.bplus) || far(next.output.screenVolts, d.output.screenVolts) || far(next.output.splitter.bplus, d.output.splitter.bplus) || moved(next.before, d.before) || moved(next.after, d.after))) store.getState().commit(next, { derived: true });
       });
     }, SUPPLY_SETTLE_MS);
   };
