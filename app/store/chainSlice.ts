@@ -34,7 +34,7 @@ export const createChainSlice: StateCreator<WorkbenchState, [], [], ChainSlice> 
       set({ chainNote: refused });
       return;
     }
-    const failure = get().commit(next);
+    const failure = get().commit(next, { step: true });
     set({ chainNote: failure ? `${refused}: ${failure.message}` : null });
   };
   return {

@@ -42,6 +42,8 @@ export interface DesignSlice {
   titleTyped: boolean;
   /** Whether the design's last change was the workbench's own, following another (CommitOptions.derived): no undo step of its own. */
   derivedCommit: boolean;
+  /** Whether the design's last change was a whole action of the user's (CommitOptions.step): never merged into the change before it. */
+  stepCommit: boolean;
   setTitle: (title: string) => void;
   analysis: Analysis;
   /** The bench's cathode follower on its own curves, while it is the stage shown; null otherwise. */
@@ -105,6 +107,14 @@ export interface CommitOptions {
    * take back only for it to follow again.
    */
   readonly derived?: boolean;
+  /**
+   * A whole action of the user's (a stage added, removed or moved, a tube
+   * chosen, a pair switched on): an undo step of its own however soon after
+   * the last change it comes (changes within COALESCE_MS otherwise merge, as
+   * a value's keystrokes do). What follows it at once (its own second
+   * commit, a value typed straight after) still joins it.
+   */
+  readonly step?: boolean;
 }
 
 /** True when two designs differ only in their output stage, their supply, or which stage is shown. */
@@ -193,6 +203,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   title: DEMO_TITLE,
   titleTyped: false,
   derivedCommit: false,
+  stepCommit: false,
   setTitle: (title) => {
     const typed = title.trim() !== '';
     set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
@@ -276,7 +287,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     for (const f of FIELD_NAMES) if (errors[f] !== undefined) drafts[f] = s.drafts[f];
     // A supply changed from outside its boxes (undo, an opened file) shows its own values.
     if (next.supply !== s.design.supply) patch.supplyDrafts = supplyDraftsFor(next.supply);
-    set({ ...patch, design: next, drafts, errors, derivedCommit: opts.derived === true, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
+    set({ ...patch, design: next, drafts, errors, derivedCommit: opts.derived === true, stepCommit: opts.step === true, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
     return null;
   },
 
@@ -304,7 +315,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     const s = get();
     if (id === s.design.tubeId) return;
     // Same parts, new tube: what a tube swap in the same socket does.
-    const failure = s.commit({ ...s.design, tubeId: id });
+    const failure = s.commit({ ...s.design, tubeId: id }, { step: true });
     set({ errors: failure ? { ...get().errors, tube: `The ${id} cannot run with these parts: ${failure.message}` } : withoutError(get().errors, 'tube') });
   },
 

@@ -59,20 +59,22 @@ let applying = false;
  * began; other changes to the design or title are a step each, except that
  * changes within COALESCE_MS of the last merge into it (a value being typed),
  * and the workbench's own following changes (`derived`) are part of the step
- * before them.
+ * before them. A whole action of the user's (`step`) is never merged into the
+ * change before it.
  */
 export function recordHistory(store: StoreApi<WorkbenchState>, now: () => number = Date.now): () => void {
   let gestureStart: Snapshot | null = null;
   let lastPush = -Infinity;
-  const push = (snap: Snapshot, coalesce: boolean) => {
+  /** `coalesce`: 'merge' joins a change within COALESCE_MS of the last; 'new' always starts a step that what follows at once may join; 'alone' a step nothing joins. */
+  const push = (snap: Snapshot, coalesce: 'merge' | 'new' | 'alone') => {
     const s = store.getState();
     const t = now();
-    if (coalesce && t - lastPush < COALESCE_MS && s.past.length > 0) {
+    if (coalesce === 'merge' && t - lastPush < COALESCE_MS && s.past.length > 0) {
       lastPush = t;
       store.setState({ future: [] });
       return;
     }
-    lastPush = coalesce ? t : -Infinity;
+    lastPush = coalesce === 'alone' ? -Infinity : t;
     store.setState({ past: [...s.past, snap].slice(-HISTORY_LIMIT), future: [] });
   };
   return store.subscribe((s, prev) => {
@@ -85,11 +87,11 @@ export function recordHistory(store: StoreApi<WorkbenchState>, now: () => number
     if (!s.dragging && prev.dragging) {
       const start = gestureStart;
       gestureStart = null;
-      if (start && start.design !== s.design) push(start, false);
+      if (start && start.design !== s.design) push(start, 'alone');
       return;
     }
     // The workbench following the user's change (CommitOptions.derived) belongs to that change's step, however late.
     if (s.design !== prev.design && s.derivedCommit) return;
-    if (s.design !== prev.design || s.title !== prev.title) push({ design: prev.design, title: prev.title }, true);
+    if (s.design !== prev.design || s.title !== prev.title) push({ design: prev.design, title: prev.title }, s.design !== prev.design && s.stepCommit ? 'new' : 'merge');
   });
 }

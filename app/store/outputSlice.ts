@@ -101,7 +101,7 @@ export const createOutputSlice: StateCreator<WorkbenchState, [], [], OutputSlice
     const snapped = s.design.snap ? nearestPreferred(rk, s.design.series) : Math.round(rk);
     // The pair brings its splitter, and the splitter needs a node of the supply (one undo step with the pair).
     const supply = pair === 'push-pull' ? withSplitterFed(s.design.supply) : s.design.supply;
-    const failure = s.commit({ ...s.design, supply, output: { ...o, pair, rk: within(snapped, DESIGN_LIMITS.output.rk) } });
+    const failure = s.commit({ ...s.design, supply, output: { ...o, pair, rk: within(snapped, DESIGN_LIMITS.output.rk) } }, { step: true });
     // Said beside the choice, which stays as it was (a pair whose kept splitter cannot run, say).
     set({ errors: { ...get().errors, outputPair: failure ? `Not switched to ${pair === 'push-pull' ? 'a push-pull pair' : 'one tube'}: ${failure.message}` : undefined } });
   },
