@@ -1,28 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { createWorkbenchStore } from '../../../app/store/workbenchStore';
 import { COALESCE_MS } from '../../../app/store/historySlice';
-import { solveOnSupply, type AmplifierOnSupply } from '../../../src/index';
-
-/** A supply solver that answers only when told to, as a slow solve in the worker does. */
-function gatedSolver() {
-  const waiting: (() => void)[] = [];
-  const solver = (input: AmplifierOnSupply) => new Promise<ReturnType<typeof solveOnSupply>>((resolve) => waiting.push(() => resolve(solveOnSupply(input))));
-  return { solver, answer: () => waiting.splice(0).forEach((go) => go()), asked: () => waiting.length };
-}
-
-const until = async (test: () => boolean) => {
-  for (let k = 0; k < 250 && !test(); k++) await new Promise((r) => setTimeout(r, 20));
-  expect(test()).toBe(true);
-};
+import { solvedOnGate, until } from './gatedSolver';
 
 describe('the stages\u2019 B+ following their nodes, and undo', () => {
   it('a follow that lands long after its change is part of that change\u2019s step: one undo takes both back, and nothing follows again', async () => {
     let clock = 1_000_000;
-    const gate = gatedSolver();
-    const store = createWorkbenchStore({ supplySolver: gate.solver, now: () => clock });
-    await until(() => gate.asked() > 0);
-    gate.answer();
-    await until(() => store.getState().supplyView?.result.ok === true);
+    const { store, gate } = await solvedOnGate({ now: () => clock });
     store.getState().setSupply({ follow: true });
     await until(() => gate.asked() > 0);
     gate.answer();

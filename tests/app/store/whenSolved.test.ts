@@ -6,30 +6,14 @@ import { cardSections } from '../../../app/export/buildCard';
 import { BEHIND_WORDS } from '../../../app/export/supplyLines';
 import { solvesPending, whenSolved } from '../../../app/store/whenSolved';
 import { createWorkbenchStore } from '../../../app/store/workbenchStore';
-import { solveOnSupply, type AmplifierOnSupply } from '../../../src/index';
-
-/** A supply solver that answers only when told to: the model worker's, slowed to the test's pace. */
-function gatedSolver() {
-  const waiting: (() => void)[] = [];
-  const solver = (input: AmplifierOnSupply) => new Promise<ReturnType<typeof solveOnSupply>>((resolve) => waiting.push(() => resolve(solveOnSupply(input))));
-  return { solver, answer: () => waiting.splice(0).forEach((go) => go()), asked: () => waiting.length };
-}
-
-const until = async (test: () => boolean) => {
-  for (let k = 0; k < 200 && !test(); k++) await new Promise((r) => setTimeout(r, 20));
-  expect(test()).toBe(true);
-};
+import { gatedSolver, solvedOnGate, until } from './gatedSolver';
 
 const supplyLines = (s: Parameters<typeof cardSections>[0]) => cardSections(s).find((c) => c.heading === 'B+ supply')!.lines;
 const partLines = (s: Parameters<typeof cardSections>[0]) => cardSections(s).find((c) => c.heading === 'B+ supply: parts to order')!.lines;
 
 describe('an export waits for the supply solved for the design it shows', () => {
   it('after a change the card says its supply is the last solve\u2019s until the new one lands, and whenSolved resolves with it', async () => {
-    const gate = gatedSolver();
-    const store = createWorkbenchStore({ supplySolver: gate.solver });
-    await until(() => gate.asked() > 0);
-    gate.answer();
-    await until(() => store.getState().supplyView?.result.ok === true);
+    const { store, gate } = await solvedOnGate();
     expect(solvesPending(store.getState())).toBe(false);
     expect(supplyLines(store.getState())[0]).not.toBe(BEHIND_WORDS);
     const before = supplyLines(store.getState()).find((l) => l.startsWith('Nodes'))!;
@@ -54,11 +38,7 @@ describe('an export waits for the supply solved for the design it shows', () => 
   });
 
   it('gives up after its wait when the solve never lands, and says it did not settle', async () => {
-    const gate = gatedSolver();
-    const store = createWorkbenchStore({ supplySolver: gate.solver });
-    await until(() => gate.asked() > 0);
-    gate.answer();
-    await until(() => store.getState().supplyView?.result.ok === true);
+    const { store } = await solvedOnGate();
     store.getState().setSupply({ secondaryRms: 230 });
     expect(await whenSolved(store, 60)).toBe(false);
     expect(supplyLines(store.getState())[0]).toBe(BEHIND_WORDS);
