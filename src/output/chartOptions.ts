@@ -1,5 +1,5 @@
 import { checkCount, checkNumber } from '../stage/checkInput';
-import { MAX_FAMILY_CURVES } from '../stage/planeSeries';
+import { DENSEST_FAMILY_CURVES, MAX_FAMILY_CURVES } from '../stage/planeSeries';
 import type { PlateExtent } from '../stage/plateExtent';
 import { fail, type Result } from '../result';
 import { outputExtent } from './outputSheet';
@@ -24,6 +24,6 @@ export function chartOptionsOf<O extends ChartOptions>(given: O | null | undefin
   const problem =
     checkNumber('extent', 'Chart width', extent?.vmax, 'V', 1, 20_000) ??
     checkNumber('extent', 'Chart height', extent?.iaMax, 'A', 1e-6, 100) ??
-    checkCount('maxCurves', 'Plate curves', maxCurves, 1, MAX_FAMILY_CURVES);
+    checkCount('maxCurves', 'Plate curves', maxCurves, 1, DENSEST_FAMILY_CURVES);
   return problem ?? { ok: true, options, extent, maxCurves };
 }

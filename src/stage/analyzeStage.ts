@@ -4,7 +4,8 @@ import { solvedStage } from '../signal/analysisInput';
 import type { TubeRecord } from '../tube/types';
 import { curveSheet, withGridLimit, type CurveSheet } from './curveSheet';
 import { leakLimit } from './designAtPoint';
-import { MAX_FAMILY_CURVES } from './planeSeries';
+import { checkCount } from './checkInput';
+import { DENSEST_FAMILY_CURVES, MAX_FAMILY_CURVES } from './planeSeries';
 import { plateExtent, type PlateExtent } from './plateExtent';
 import type { StageSolution } from './solveStage';
 import type { StageDesign } from './stageDesign';
@@ -45,6 +46,8 @@ export function analyzeStage(stage: StageDesign & { readonly tube: TubeRecord },
     return fail('invalid-input', 'Give the output level and THD limit the stage is analysed at', 'levels');
   }
   const { second = null, levels, light = false, maxCurves = MAX_FAMILY_CURVES } = options;
+  const curves = checkCount('maxCurves', 'Plate curves', maxCurves, 1, DENSEST_FAMILY_CURVES);
+  if (curves) return curves;
   const solved = solvedStage(stage);
   if (!solved.ok) return solved;
   const { checked, solution } = solved;

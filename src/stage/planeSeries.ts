@@ -38,6 +38,8 @@ export function plateFamily(tube: TubeLike, grids: readonly number[], vmax: numb
 const NICE_STEPS = [0.05, 0.1, 0.2, 0.25, 0.5, 1, 2, 2.5, 5, 10, 20, 25, 50, 100];
 /** Most curves a family is drawn with; enough to read, few enough to label. */
 export const MAX_FAMILY_CURVES = 12;
+/** The most curves a sheet may be asked for: the densest the workbench offers, to interpolate between. */
+export const DENSEST_FAMILY_CURVES = 24;
 
 /**
  * Grid voltages for a plate family: 0 V down to the model's cutoff at vmax in

@@ -88,6 +88,10 @@ describe('the push-pull bench analysis', () => {
     if (!bad.ok) expect(bad.field).toBe('raa');
     const options = analyzePushPull(findOutputTube('EL84')!, el84, { maxCurves: 0 });
     expect(options.ok).toBe(false);
+    // The densest sheet the workbench offers is drawn (it had been refused past 12, so a bench set to 24 could not join the pair); past it, refused.
+    const dense = analyzePushPull(findOutputTube('EL84')!, el84, { maxCurves: 24 });
+    expect(dense.ok).toBe(true);
+    expect(analyzePushPull(findOutputTube('EL84')!, el84, { maxCurves: 25 }).ok).toBe(false);
   });
 });
 

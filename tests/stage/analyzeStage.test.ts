@@ -25,6 +25,19 @@ describe('analyzeStage: a voltage stage as the workbench shows it', () => {
     expect(otherTube.ok && otherTube.sheet).not.toBe(a.sheet);
   });
 
+  it('draws up to 24 curves when asked (the densest sheet the workbench offers) and refuses a count outside 1 to 24, naming it', () => {
+    const dense = analyzeStage(stage, { second: null, levels, maxCurves: 24 }, null);
+    const usual = analyzeStage(stage, { second: null, levels }, null);
+    if (!dense.ok || !usual.ok) throw new Error('the demo stage runs');
+    expect(dense.sheet.family.length).toBeGreaterThan(usual.sheet.family.length);
+    expect(dense.sheet.family.length).toBeLessThanOrEqual(24);
+    for (const maxCurves of [0, 25, 2.5, Number.NaN]) {
+      const r = analyzeStage(stage, { second: null, levels, maxCurves }, null);
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.field).toBe('maxCurves');
+    }
+  });
+
   // Ohm's law at the grid: where the leak alone biases it, Vgk + Rg·Ig(Vgk) = 0 (no Rk). The curve drawn there is where
   // the drag stops (nearestReachable), so the chart shows the limit the pointer meets.
   it('draws the plate curve at the grid-leak limit, where the drag stops; none with no leak; kept while Rg stays', () => {
