@@ -22,7 +22,7 @@ import type { TriodeBox } from '../store/meterPlan';
 import { shownMeterRows } from '../store/meterRows';
 import { ratingsLines } from './ratingsLines';
 import { amplifierSection, leakWords, otherStageSections, partLines } from './amplifierLines';
-import { BEHIND_WORDS, supplySection } from './supplyLines';
+import { supplySection } from './supplyLines';
 import { biasSection, supplyPartLines } from './supplyPartsLines';
 
 /** A4 portrait at 150 dots per inch: 210 × 297 mm. Letter paper prints it with a little white at the bottom. */
@@ -41,7 +41,7 @@ export function cardSections(s: WorkbenchState): { heading: string; lines: strin
   const idle = idleVoltageSection(s);
   const bias = biasSection(s);
   const readings = meterSection(s);
-  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: s.supplyView?.stale ? [BEHIND_WORDS, ...supplyParts] : supplyParts }] : []), ...(bias ? [bias] : []), ...(idle ? [idle] : []), ...(readings ? [readings] : [])];
+  return [...(amplifier ? [amplifier] : []), ...(supply ? [supply] : []), ...stageSections, tubes, ...(supplyParts.length ? [{ heading: 'B+ supply: parts to order', lines: supplyParts }] : []), ...(bias ? [bias] : []), ...(idle ? [idle] : []), ...(readings ? [readings] : [])];
 }
 
 /** A triode stage's box as the card's line names it. */

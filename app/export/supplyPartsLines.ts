@@ -31,6 +31,7 @@ export function supplyPartLines(s: WorkbenchState): string[] {
   if (!parts) return [];
   const tube = s.design.supply.rectifier.kind === 'tube' ? s.design.supply.rectifier.tubeId : null;
   return [
+    ...(s.supplyView?.stale ? [BEHIND_WORDS] : []),
     ...parts.capacitors.map((c) => `${c.ref} (${c.role}): ${c.value === null ? 'value to choose' : farads(c.value)}, ${c.ratingVolts} V, ${smallAmps(c.rippleAmps)} rms ripple${c.note ? `; ${c.note}` : ''}`),
     ...parts.resistors.map((r) => `${r.ref} (${r.role}): ${ohms(r.preferred)}, ${r.ratingWatts} W (runs at ${watts(r.watts)})`),
     ...parts.chokes.map(chokeWords),
@@ -38,7 +39,7 @@ export function supplyPartLines(s: WorkbenchState): string[] {
   ];
 }
 
-/** The supply's parts when its view is current and solved, else null. */
+/** The supply's parts from its last solve (the view says whether the design has moved on since), else null. */
 export function supplyPartsOf(s: WorkbenchState): SupplyParts | null {
   const v = s.supplyView;
   return s.design.supply.on && v && v.parts?.ok ? v.parts : null;

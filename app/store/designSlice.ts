@@ -40,10 +40,12 @@ export interface DesignSlice {
   title: string;
   /** True once the user has typed a title; until then (and after clearing it) the title follows the design. */
   titleTyped: boolean;
-  /** Whether the design's last change was the workbench's own, following another (CommitOptions.derived): no undo step of its own. */
-  derivedCommit: boolean;
-  /** Whether the design's last change was a whole action of the user's (CommitOptions.step): never merged into the change before it. */
-  stepCommit: boolean;
+  /**
+   * How the design's last change counts for undo: 'joins' the step before it
+   * (CommitOptions.derived), starts its 'own' (CommitOptions.step), or
+   * 'merges' with a change within COALESCE_MS (typing, and the rest).
+   */
+  undoStep: 'merges' | 'own' | 'joins';
   setTitle: (title: string) => void;
   analysis: Analysis;
   /** The bench's cathode follower on its own curves, while it is the stage shown; null otherwise. */
@@ -202,8 +204,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
   design: DEMO_DESIGN,
   title: DEMO_TITLE,
   titleTyped: false,
-  derivedCommit: false,
-  stepCommit: false,
+  undoStep: 'merges',
   setTitle: (title) => {
     const typed = title.trim() !== '';
     set({ title: typed ? title.slice(0, MAX_TITLE_CHARS) : autoTitle(get().design), titleTyped: typed });
@@ -287,7 +288,7 @@ export const createDesignSlice: StateCreator<WorkbenchState, [], [], DesignSlice
     for (const f of FIELD_NAMES) if (errors[f] !== undefined) drafts[f] = s.drafts[f];
     // A supply changed from outside its boxes (undo, an opened file) shows its own values.
     if (next.supply !== s.design.supply) patch.supplyDrafts = supplyDraftsFor(next.supply);
-    set({ ...patch, design: next, drafts, errors, derivedCommit: opts.derived === true, stepCommit: opts.step === true, ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
+    set({ ...patch, design: next, drafts, errors, undoStep: opts.derived ? 'joins' : opts.step ? 'own' : 'merges', ...(s.titleTyped ? {} : { title: autoTitle(next) }) });
     return null;
   },
 

@@ -90,8 +90,9 @@ export function recordHistory(store: StoreApi<WorkbenchState>, now: () => number
       if (start && start.design !== s.design) push(start, 'alone');
       return;
     }
+    const designed = s.design !== prev.design;
     // The workbench following the user's change (CommitOptions.derived) belongs to that change's step, however late.
-    if (s.design !== prev.design && s.derivedCommit) return;
-    if (s.design !== prev.design || s.title !== prev.title) push({ design: prev.design, title: prev.title }, s.design !== prev.design && s.stepCommit ? 'new' : 'merge');
+    if (designed && s.undoStep === 'joins') return;
+    if (designed || s.title !== prev.title) push({ design: prev.design, title: prev.title }, designed && s.undoStep === 'own' ? 'new' : 'merge');
   });
 }
