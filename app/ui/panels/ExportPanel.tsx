@@ -22,12 +22,13 @@ export function ExportPanel() {
     if (!net.ok) throw new Error(net.message);
     return { blob: new Blob([net.text], { type: 'text/plain' }), name: `${stem()}${withSupply ? '-with-supply' : ''}.cir` };
   };
-  const run = async (what: string, make: () => Promise<{ blob: Blob; name: string }>) => {
+  /** `withSupply`: the export carries the supplies' figures (the card, the netlist with the supply), so it waits for them. */
+  const run = async (what: string, make: () => Promise<{ blob: Blob; name: string }>, withSupply = false) => {
     try {
       // An export reads the figures: if a keystroke's light analysis is showing, finish it first.
       store.getState().settleAnalysis();
-      // And the supplies solved for this design (a card made straight after a change would print the last one's).
-      if (solvesPending(store.getState())) {
+      // And, for what carries them, the supplies solved for this design (a card made straight after a change would print the last one's).
+      if (withSupply && solvesPending(store.getState())) {
         setNote(`${what}: waiting for the supply to be solved for this design…`);
         await whenSolved(store);
       }
@@ -48,12 +49,12 @@ export function ExportPanel() {
           </button>
         ))}
         <button type="button" onClick={() => void run('Chart SVG', async () => ({ blob: new Blob([svgDocument(chart()!, chartCaption(store.getState())).text], { type: 'image/svg+xml' }), name: `${stem()}-chart.svg` }))}>Chart SVG</button>
-        <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg'), new Date(), wholeAmplifier()), name: `${stem()}-build-card.png` }))}>Build card (PNG, A4)</button>
+        <button type="button" onClick={() => void run('Build card', async () => ({ blob: await buildCardPng(store.getState(), chart()!, document.querySelector<SVGSVGElement>('svg.schematic-svg'), new Date(), wholeAmplifier()), name: `${stem()}-build-card.png` }), true)}>Build card (PNG, A4)</button>
         <button type="button" onClick={() => void run('Netlist', async () => netlistFile(false))}>
           Netlist for ngspice (.cir)
         </button>
         {supplyOn ? (
-          <button type="button" onClick={() => void run('Netlist with the supply', async () => netlistFile(true))}>
+          <button type="button" onClick={() => void run('Netlist with the supply', async () => netlistFile(true), true)}>
             Netlist with the supply (.cir)
           </button>
         ) : null}
